@@ -1,0 +1,36 @@
+/**
+ * `evaluate`: read a project and its data file, run the one evaluation pipeline, print the result.
+ * Files are read here (Node); everything after the bytes is the shared pipeline.
+ */
+import { readFile } from 'node:fs/promises';
+import { basename, dirname, resolve } from 'node:path';
+import { describeProblems } from '../core/result';
+import { evaluateProject } from '../pipeline/evaluateProject';
+import { evaluationToJson } from '../pipeline/evaluationJson';
+import { openProject } from '../pipeline/openProject';
+import { formatEvaluation } from './formatEvaluation';
+
+export async function runEvaluateCommand(projectPath: string, options: { json: boolean }): Promise<number> {
+  let text: string;
+  try {
+    text = await readFile(projectPath, 'utf8');
+  } catch (e) {
+    process.stderr.write(`Cannot read the project file ${projectPath}: ${(e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message}\n`);
+    return 1;
+  }
+  const folder = dirname(resolve(projectPath));
+  const loaded = await openProject(text, basename(projectPath), async (relativePath) => new Uint8Array(await readFile(resolve(folder, relativePath))));
+  if (!loaded.ok) {
+    process.stderr.write(`${describeProblems(loaded.problems)}\n`);
+    return 1;
+  }
+  const { project, dataset, warnings } = loaded.value;
+  const evaluation = await evaluateProject({ project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`) });
+  if (!evaluation.ok) {
+    process.stderr.write(`${describeProblems(evaluation.problems)}\n`);
+    return 1;
+  }
+  if (options.json) process.stdout.write(`${JSON.stringify(evaluationToJson(evaluation.value), null, 2)}\n`);
+  else process.stdout.write(formatEvaluation(evaluation.value, basename(projectPath)));
+  return evaluation.value.policies.some((p) => p.status === 'diverged') ? 3 : 0;
+}

@@ -1,0 +1,40 @@
+/** The readable table `evaluate` prints by default. */
+import type { Evaluation } from '../pipeline/estimates';
+
+const number = (v: number | null): string => (v === null || !Number.isFinite(v) ? '—' : formatSignificant(v));
+
+function formatSignificant(v: number): string {
+  const magnitude = Math.abs(v);
+  if (magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return v.toExponential(4);
+  return v.toPrecision(6).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+}
+
+function table(rows: string[][]): string {
+  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
+  return rows.map((r) => r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('   ')).join('\n');
+}
+
+export function formatEvaluation(e: Evaluation, projectFile: string): string {
+  const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';
+  const s = e.settings;
+  const rows: string[][] = [['policy', 'value J', '± s.e.', 'fixed point', 'fit']];
+  for (const p of e.policies) rows.push([p.name, number(p.policyValue), number(p.standardError), number(p.fixedPointValue), p.status === 'converged' ? `converged (${p.iterations} it.)` : p.status]);
+  rows.push(['logged behaviour (today)', number(e.behaviour.value), number(e.behaviour.standardError), '', `${e.behaviour.episodes} episodes`]);
+  const lines = [
+    `Setpoint Critic — ${e.project} (${projectFile})`,
+    `Values are the ${sense}, discount ${s.discount}.`,
+    `${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} episodes; J averaged over ${s.startStates} start states; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}.`,
+    '',
+    table(rows),
+    '',
+    '± s.e. covers start-state sampling only; it is not a confidence interval for the fit.',
+    ...e.policies.filter((p) => p.status !== 'converged').map((p) => `${p.name}: ${p.message}`),
+    ...(e.behaviour.largestTruncationWeight > 1e-3 ? [`Logged episodes are short for this discount: up to ${(100 * e.behaviour.largestTruncationWeight).toFixed(1)} % of the return's weight lies beyond their end, so the logged value is biased toward zero.`] : []),
+    ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),
+    '',
+    'Cautions:',
+    ...e.cautions.map((c) => `  - ${c}`),
+    '',
+  ];
+  return lines.join('\n');
+}

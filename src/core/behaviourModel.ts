@@ -1,0 +1,149 @@
+/**
+ * The behaviour policy, estimated from the log: a linear-Gaussian model of the logged actions
+ * on the state, a = c + G·s + e, e ~ N(0, Σ), fitted by ordinary least squares per action.
+ *
+ * Σ is the residual covariance with the degrees-of-freedom correction, EᵀE / (n − ds − 1), which
+ * makes each diagonal entry the unbiased estimate of that action's noise variance; the standard
+ * errors of the coefficients are σ_j²·(XᵀX)⁻¹ (Greene, "Econometric Analysis", 7th ed., §4.3–4.5).
+ * The fit works on centred data (states and actions minus their means), which gives the same
+ * coefficients as regressing on [1, s] but keeps the normal equations well conditioned when
+ * levels sit far from zero (e.g. 350 K ± 2 K).
+ *
+ * Shapes: states n×ds row-major, actions n×m row-major; gain m×ds.
+ */
+import { cholesky, choleskySolve, SingularMatrixError } from './linalg/dense';
+import type { GaussianPolicySpec } from './policy';
+
+export interface BehaviourModel extends Required<Pick<GaussianPolicySpec, 'offset' | 'gain' | 'std' | 'covariance'>> {
+  /** Coefficient of determination per action, 1 − SS_res/SS_tot. */
+  rSquared: number[];
+  offsetStandardError: number[]; // m
+  gainStandardError: number[][]; // m×ds
+  /** Transitions used, n. */
+  count: number;
+  /** n − ds − 1: the divisor of the residual covariance. */
+  degreesOfFreedom: number;
+}
+
+export class BehaviourModelError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'BehaviourModelError';
+  }
+}
+
+/** Means (length d) of the columns of an n×d row-major matrix. */
+function columnMeans(x: Float64Array, n: number, d: number): Float64Array {
+  const mean = new Float64Array(d);
+  for (let i = 0; i < n; i++) for (let j = 0; j < d; j++) mean[j] += x[i * d + j];
+  for (let j = 0; j < d; j++) mean[j] /= n;
+  return mean;
+}
+
+/** Centred cross products Σ (x−x̄)(y−ȳ)ᵀ: dx×dy row-major. */
+function crossProducts(x: Float64Array, xMean: Float64Array, y: Float64Array, yMean: Float64Array, n: number): Float64Array {
+  const dx = xMean.length, dy = yMean.length;
+  const out = new Float64Array(dx * dy);
+  const cx = new Float64Array(dx);
+  for (let i = 0; i < n; i++) {
+    for (let p = 0; p < dx; p++) cx[p] = x[i * dx + p] - xMean[p];
+    for (let p = 0; p < dx; p++) for (let q = 0; q < dy; q++) out[p * dy + q] += cx[p] * (y[i * dy + q] - yMean[q]);
+  }
+  return out;
+}
+
+export function fitBehaviourModel(states: Float64Array, actions: Float64Array, n: number, ds: number, m: number): BehaviourModel {
+  if (states.length !== n * ds) throw new BehaviourModelError(`states: expected ${n}×${ds} = ${n * ds} values, got ${states.length}`);
+  if (actions.length !== n * m) throw new BehaviourModelError(`actions: expected ${n}×${m} = ${n * m} values, got ${actions.length}`);
+  const dof = n - ds - 1;
+  if (dof < 1) throw new BehaviourModelError(`a behaviour model on ${ds} states needs at least ${ds + 2} transitions, got ${n}`);
+  const sMean = columnMeans(states, n, ds), aMean = columnMeans(actions, n, m);
+  const factor = stateScatterFactor(crossProducts(states, sMean, states, sMean, n), ds);
+  const ssa = crossProducts(states, sMean, actions, aMean, n); // ds×m
+  const gain = new Float64Array(m * ds);
+  for (let j = 0; j < m; j++) {
+    const g = choleskySolve(factor, ds, Array.from({ length: ds }, (_, p) => ssa[p * m + j]));
+    gain.set(g, j * ds);
+  }
+  const offset = new Float64Array(m);
+  for (let j = 0; j < m; j++) {
+    offset[j] = aMean[j];
+    for (let p = 0; p < ds; p++) offset[j] -= gain[j * ds + p] * sMean[p];
+  }
+  const { covariance, rSquared } = residualMoments(states, actions, n, ds, m, offset, gain, aMean, dof);
+  return assembleModel({ n, ds, m, dof, offset, gain, covariance, rSquared, factor, sMean });
+}
+
+function stateScatterFactor(sss: Float64Array, ds: number): Float64Array {
+  for (let p = 0; p < ds; p++) {
+    if (!(sss[p * ds + p] > 0)) throw new BehaviourModelError(`state ${p + 1} is constant in the log, so its gain cannot be estimated`);
+  }
+  try {
+    return cholesky(sss, ds);
+  } catch (error) {
+    if (!(error instanceof SingularMatrixError)) throw error;
+    throw new BehaviourModelError('the states are collinear in the log (one is a linear combination of others), so the gains are not identifiable');
+  }
+}
+
+/** Residual covariance EᵀE/dof (m×m) and R² per action. */
+function residualMoments(
+  states: Float64Array, actions: Float64Array, n: number, ds: number, m: number,
+  offset: Float64Array, gain: Float64Array, aMean: Float64Array, dof: number,
+): { covariance: Float64Array; rSquared: number[] } {
+  const covariance = new Float64Array(m * m);
+  const total = new Float64Array(m);
+  const e = new Float64Array(m);
+  for (let i = 0; i < n; i++) {
+    for (let j = 0; j < m; j++) {
+      let fitted = offset[j];
+      for (let p = 0; p < ds; p++) fitted += gain[j * ds + p] * states[i * ds + p];
+      e[j] = actions[i * m + j] - fitted;
+      total[j] += (actions[i * m + j] - aMean[j]) ** 2;
+    }
+    for (let j = 0; j < m; j++) for (let q = 0; q < m; q++) covariance[j * m + q] += e[j] * e[q];
+  }
+  const rSquared: number[] = [];
+  for (let j = 0; j < m; j++) {
+    if (!(total[j] > 0)) throw new BehaviourModelError(`action ${j + 1} is constant in the log; a Gaussian behaviour model needs actions that vary`);
+    if (!(covariance[j * m + j] > 0)) throw new BehaviourModelError(`action ${j + 1} follows the states exactly (no residual noise), so its behaviour density is degenerate`);
+    rSquared.push(1 - covariance[j * m + j] / total[j]);
+  }
+  for (let k = 0; k < m * m; k++) covariance[k] /= dof;
+  return { covariance, rSquared };
+}
+
+interface FittedParts {
+  n: number; ds: number; m: number; dof: number;
+  offset: Float64Array; gain: Float64Array; covariance: Float64Array; rSquared: number[];
+  factor: Float64Array; sMean: Float64Array;
+}
+
+function assembleModel(f: FittedParts): BehaviourModel {
+  const { ds, m } = f;
+  // (XᵀX)⁻¹ for X = [1, s]: the slope block is S⁻¹ (S the centred scatter), and the intercept
+  // entry is 1/n + s̄ᵀ S⁻¹ s̄ (partitioned inverse; Greene §3.5).
+  const inverseDiagonal = Array.from({ length: ds }, (_, p) => choleskySolve(f.factor, ds, unit(ds, p))[p]);
+  const w = choleskySolve(f.factor, ds, f.sMean);
+  let interceptFactor = 1 / f.n;
+  for (let p = 0; p < ds; p++) interceptFactor += f.sMean[p] * w[p];
+  const rows = (a: Float64Array, c: number): number[][] => Array.from({ length: a.length / c }, (_, i) => Array.from(a.subarray(i * c, (i + 1) * c)));
+  const variance = Array.from({ length: m }, (_, j) => f.covariance[j * m + j]);
+  return {
+    offset: Array.from(f.offset),
+    gain: rows(f.gain, ds),
+    std: variance.map(Math.sqrt),
+    covariance: rows(f.covariance, m),
+    rSquared: f.rSquared,
+    offsetStandardError: variance.map((v) => Math.sqrt(v * interceptFactor)),
+    gainStandardError: variance.map((v) => inverseDiagonal.map((d) => Math.sqrt(v * d))),
+    count: f.n,
+    degreesOfFreedom: f.dof,
+  };
+}
+
+function unit(d: number, p: number): Float64Array {
+  const e = new Float64Array(d);
+  e[p] = 1;
+  return e;
+}

@@ -1,0 +1,39 @@
+/**
+ * Full polynomial features of total degree ≤ k in the standardised inputs z = (x − mean)/scale,
+ * all cross terms and the constant included: φ(x) = (z^e : |e| ≤ k), d = C(n+k, k).
+ */
+import type { FeatureMap, PolynomialFeatureSpec } from './featureMap';
+import { FeatureSpecError } from './featureSpecError';
+import { monomialBasis, monomialCount } from './monomials';
+import { MAX_FEATURES } from './featureLimit';
+import { readStandardiser, type StandardiserSpec } from './standardiser';
+
+export function polynomialFeatureSpec(standardiser: StandardiserSpec, degree: number): PolynomialFeatureSpec {
+  return { kind: 'polynomial', degree, standardiser: { mean: [...standardiser.mean], scale: [...standardiser.scale] } };
+}
+
+export function createPolynomialFeatures(spec: PolynomialFeatureSpec): FeatureMap {
+  const { mean, scale } = readStandardiser(spec.standardiser);
+  const n = mean.length, k = spec.degree;
+  if (!Number.isInteger(k) || k < 0) throw new FeatureSpecError(`polynomial degree: expected a whole number ≥ 0, got ${k}`);
+  const count = monomialCount(n, k);
+  if (count > MAX_FEATURES) {
+    throw new FeatureSpecError(`polynomial degree ${k} in ${n} inputs gives ${count} features; at most ${MAX_FEATURES} are supported`);
+  }
+  const basis = monomialBasis(n, k);
+  const { parent, variable, size: d } = basis;
+  const frozen = polynomialFeatureSpec({ mean: [...mean], scale: [...scale] }, k);
+  return {
+    dim: d,
+    inputDim: n,
+    constantIndex: 0,
+    evaluate(input, inputOffset, out, outOffset) {
+      out[outOffset] = 1;
+      if (k === 0) return;
+      // Degree-1 monomials are exactly z in variable order (indices 1..n), so z lives in `out`.
+      for (let v = 0; v < n; v++) out[outOffset + 1 + v] = (input[inputOffset + v] - mean[v]) / scale[v];
+      for (let j = n + 1; j < d; j++) out[outOffset + j] = out[outOffset + parent[j]] * out[outOffset + 1 + variable[j]];
+    },
+    toSpec: () => structuredClone(frozen),
+  };
+}

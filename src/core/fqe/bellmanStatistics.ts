@@ -1,0 +1,193 @@
+/**
+ * One pass over the transitions that collects every sum linear fitted Q-evaluation needs.
+ *
+ * With a fixed policy and Q(s, a) = φ(s, a)ᵀw, the regression target of each FQE step is
+ * r_i + γ ψ_iᵀ w_k with ψ_i = (1 − done_i) Σ_j ω_ij φ(s'_i, a'_ij), the policy's expected next
+ * feature vector by quadrature (nodes a'_ij, weights ω_ij). Every step and the Bellman residual
+ * are then functions of these averages alone (the LSTD-Q statistics; Lagoudakis & Parr, "Least-
+ * squares policy iteration", JMLR 2003, §5):
+ *   G = ΦᵀΦ/n, M = ΦᵀΨ/n, H = ΨᵀΨ/n, b = Φᵀr/n, e = Ψᵀr/n, rr = rᵀr/n.
+ * No n×d matrix is kept: rows are folded in as they are read.
+ *
+ * Shapes: n transitions, d features; all matrices d×d row-major.
+ */
+import type { ActionQuadrature } from '../actionQuadrature';
+import type { FeatureMap } from '../features/featureMap';
+import type { TransitionSet } from '../transitions';
+import { throwIfCancelled, type CancellationCheck } from './cancellation';
+import { FqeDataError } from './fqeErrors';
+
+export interface BellmanStatistics {
+  readonly count: number; // n
+  readonly dim: number; // d
+  readonly gram: Float64Array; // G = ΦᵀΦ/n, symmetric
+  readonly crossNext: Float64Array; // M = ΦᵀΨ/n
+  readonly nextGram: Float64Array; // H = ΨᵀΨ/n, symmetric
+  readonly featureReward: Float64Array; // b = Φᵀr/n
+  readonly nextFeatureReward: Float64Array; // e = Ψᵀr/n
+  readonly rewardSquare: number; // rr = rᵀr/n
+}
+
+export interface AccumulationHooks {
+  onDataPass?: (rowsDone: number, rowsTotal: number) => void;
+  cancel?: CancellationCheck;
+}
+
+/**
+ * Rows are gathered into blocks (features stored feature-major, so each block sum below runs over
+ * contiguous memory with a register accumulator), each block's sums are formed separately and
+ * then added to the totals. Besides speed this is blocked summation, whose rounding error grows
+ * like (n/B + B)·u rather than n·u (Higham, "Accuracy and Stability of Numerical Algorithms",
+ * 2nd ed., §4.2).
+ */
+const BLOCK_VALUES = 1 << 17;
+const ROWS_PER_REPORT = 65536;
+
+export function accumulateBellmanStatistics(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {},
+): BellmanStatistics {
+  const n = data.count, d = features.dim;
+  const blockRows = Math.max(64, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
+  const total = newSums(d), row = newRowBuffers(data, features, quadrature), block = newBlock(d, blockRows);
+  let nextReport = ROWS_PER_REPORT;
+  for (let start = 0; start < n; start += blockRows) {
+    const size = Math.min(blockRows, n - start);
+    for (let t = 0; t < size; t++) gatherTransition(data, features, quadrature, row, block, start + t, t);
+    addBlock(block, size, total);
+    if (start + size >= nextReport || start + size === n) {
+      nextReport += ROWS_PER_REPORT;
+      throwIfCancelled(hooks.cancel);
+      hooks.onDataPass?.(start + size, n);
+    }
+  }
+  const stats = finish(total, n, d);
+  checkFinite(stats, data, features, quadrature);
+  return stats;
+}
+
+interface Sums {
+  gram: Float64Array; crossNext: Float64Array; nextGram: Float64Array;
+  featureReward: Float64Array; nextFeatureReward: Float64Array; rewardSquare: number;
+}
+
+function newSums(d: number): Sums {
+  return {
+    gram: new Float64Array(d * d), crossNext: new Float64Array(d * d), nextGram: new Float64Array(d * d),
+    featureReward: new Float64Array(d), nextFeatureReward: new Float64Array(d), rewardSquare: 0,
+  };
+}
+
+interface RowBuffers {
+  input: Float64Array; // [s, a] or [s', a'], length ds+m
+  phi: Float64Array; // φ(s_i, a_i), d
+  psi: Float64Array; // ψ_i, d
+  nodeFeatures: Float64Array; // φ(s'_i, a'_ij), d
+  points: Float64Array; // maxPoints×m
+  weights: Float64Array; // maxPoints
+}
+
+function newRowBuffers(data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature): RowBuffers {
+  const d = features.dim;
+  return {
+    input: new Float64Array(data.stateDim + data.actionDim),
+    phi: new Float64Array(d), psi: new Float64Array(d), nodeFeatures: new Float64Array(d),
+    points: new Float64Array(quadrature.maxPoints * data.actionDim), weights: new Float64Array(quadrature.maxPoints),
+  };
+}
+
+interface Block {
+  readonly d: number;
+  readonly rows: number; // B
+  readonly phi: Float64Array; // d×B: phi[a·B + t] = φ_a of row t
+  readonly psi: Float64Array; // d×B
+  readonly reward: Float64Array; // B
+}
+
+function newBlock(d: number, rows: number): Block {
+  return { d, rows, phi: new Float64Array(d * rows), psi: new Float64Array(d * rows), reward: new Float64Array(rows) };
+}
+
+/** φ_i and ψ_i of transition i, written to the row buffers (for checks) and to block row t. */
+function gatherTransition(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, row: RowBuffers, block: Block, i: number, t: number,
+): void {
+  const ds = data.stateDim, m = data.actionDim, d = features.dim, rows = block.rows;
+  const { input, phi, psi } = row;
+  for (let c = 0; c < ds; c++) input[c] = data.states[i * ds + c];
+  for (let c = 0; c < m; c++) input[ds + c] = data.actions[i * m + c];
+  features.evaluate(input, 0, phi, 0);
+  expectedNextFeatures(data, features, quadrature, row, i);
+  for (let a = 0; a < d; a++) {
+    block.phi[a * rows + t] = phi[a];
+    block.psi[a * rows + t] = psi[a];
+  }
+  block.reward[t] = data.rewards[i];
+}
+
+/** ψ_i: the policy-averaged feature vector at s'_i, or 0 past a terminal state. */
+function expectedNextFeatures(data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, row: RowBuffers, i: number): void {
+  const ds = data.stateDim, m = data.actionDim, d = features.dim;
+  const { input, psi, nodeFeatures, points, weights } = row;
+  psi.fill(0);
+  if (data.terminal[i] !== 0) return;
+  for (let c = 0; c < ds; c++) input[c] = data.nextStates[i * ds + c];
+  const k = quadrature.at(data.nextStates, i * ds, points, weights);
+  for (let j = 0; j < k; j++) {
+    for (let c = 0; c < m; c++) input[ds + c] = points[j * m + c];
+    features.evaluate(input, 0, nodeFeatures, 0);
+    const w = weights[j];
+    for (let a = 0; a < d; a++) psi[a] += w * nodeFeatures[a];
+  }
+}
+
+/** Add the first `size` rows of the block to the totals; G and H upper triangles only (finish() mirrors). */
+function addBlock(block: Block, size: number, total: Sums): void {
+  const { d, rows, phi, psi, reward } = block;
+  for (let a = 0; a < d; a++) {
+    const oa = a * rows;
+    for (let b = 0; b < d; b++) {
+      const ob = b * rows;
+      let g = 0, m = 0, h = 0;
+      if (b >= a) for (let t = 0; t < size; t++) { g += phi[oa + t] * phi[ob + t]; h += psi[oa + t] * psi[ob + t]; }
+      for (let t = 0; t < size; t++) m += phi[oa + t] * psi[ob + t];
+      total.gram[a * d + b] += g;
+      total.nextGram[a * d + b] += h;
+      total.crossNext[a * d + b] += m;
+    }
+    let br = 0, er = 0;
+    for (let t = 0; t < size; t++) { br += phi[oa + t] * reward[t]; er += psi[oa + t] * reward[t]; }
+    total.featureReward[a] += br;
+    total.nextFeatureReward[a] += er;
+  }
+  let rr = 0;
+  for (let t = 0; t < size; t++) rr += reward[t] * reward[t];
+  total.rewardSquare += rr;
+}
+
+function finish(s: Sums, n: number, d: number): BellmanStatistics {
+  const scale = 1 / n;
+  for (const key of ['gram', 'crossNext', 'nextGram', 'featureReward', 'nextFeatureReward'] as const) {
+    const a = s[key];
+    for (let k = 0; k < a.length; k++) a[k] *= scale;
+  }
+  for (const sym of [s.gram, s.nextGram]) {
+    for (let a = 0; a < d; a++) for (let b = 0; b < a; b++) sym[a * d + b] = sym[b * d + a];
+  }
+  return { count: n, dim: d, ...s, rewardSquare: s.rewardSquare * scale };
+}
+
+/** Non-finite sums are traced back to the first transition that produced them, by source line. */
+function checkFinite(stats: BellmanStatistics, data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature): void {
+  const ok = (a: Float64Array): boolean => a.every(Number.isFinite);
+  const sums = [stats.gram, stats.crossNext, stats.nextGram, stats.featureReward, stats.nextFeatureReward];
+  if (sums.every(ok) && Number.isFinite(stats.rewardSquare)) return;
+  const row = newRowBuffers(data, features, quadrature), block = newBlock(features.dim, 1);
+  for (let i = 0; i < data.count; i++) {
+    gatherTransition(data, features, quadrature, row, block, i, 0);
+    const r = data.rewards[i];
+    if (!ok(row.phi) || !ok(row.psi) || !Number.isFinite(r * r)) {
+      throw new FqeDataError(`transition ${i + 1} (line ${data.sourceLine[i]}): its reward or features are not finite numbers (overflow in the features?)`);
+    }
+  }
+  throw new FqeDataError('the feature sums overflowed; reduce the polynomial degree or check the data for extreme values');
+}

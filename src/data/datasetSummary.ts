@@ -1,0 +1,78 @@
+/**
+ * What the import found, for the data page and the report: row, transition and episode counts,
+ * statistics and a histogram of every used column over the rows that were kept, the sampling
+ * period, and how much of the file was excluded.
+ */
+import { importProblem, type ImportProblem } from './importProblem';
+import type { DecimalMark } from './numericCell';
+import type { Delimiter } from './csvDialect';
+import type { DateOrder } from './dateOrder';
+import { columnStatistics, type ColumnStatistics } from './columnStatistics';
+
+export interface ColumnSummary extends ColumnStatistics {
+  readonly name: string;
+  /** What the column is used as: "state", "action", "reward", "cost input", "timestamp", … */
+  readonly roles: readonly string[];
+}
+
+export interface DatasetSummary {
+  /** Data rows in the file (without the header). */
+  readonly rowCount: number;
+  readonly usedRowCount: number;
+  readonly excludedRowCount: number;
+  /** excludedRowCount / rowCount. */
+  readonly excludedFraction: number;
+  readonly transitionCount: number;
+  readonly episodeCount: number;
+  /** Every used numeric or timestamp column, in header order (timestamps in seconds). */
+  readonly columns: readonly ColumnSummary[];
+  /** The rewards as imported (costs already negated), over kept rows. */
+  readonly reward: ColumnStatistics;
+  /** Median step between adjacent kept rows' timestamps; null without a timestamp column. */
+  readonly samplingPeriodSeconds: number | null;
+  readonly delimiter: Delimiter;
+  readonly decimalMark: DecimalMark;
+  /** How day/month dates were read; null when no date depended on it. */
+  readonly dateOrder: DateOrder | null;
+}
+
+export interface SummaryInputs {
+  readonly rowCount: number;
+  readonly kept: Uint8Array;
+  readonly transitionCount: number;
+  readonly episodeCount: number;
+  /** Used columns in header order, with their values over all records. */
+  readonly columns: readonly { name: string; roles: string[]; values: Float64Array }[];
+  readonly rewards: Float64Array;
+  readonly samplingPeriodSeconds: number | null;
+  readonly delimiter: Delimiter;
+  readonly decimalMark: DecimalMark;
+  readonly dateOrder: DateOrder | null;
+}
+
+export function summariseDataset(s: SummaryInputs): DatasetSummary {
+  let used = 0;
+  for (let r = 0; r < s.kept.length; r++) used += s.kept[r];
+  return {
+    rowCount: s.rowCount,
+    usedRowCount: used,
+    excludedRowCount: s.rowCount - used,
+    excludedFraction: s.rowCount > 0 ? (s.rowCount - used) / s.rowCount : 0,
+    transitionCount: s.transitionCount,
+    episodeCount: s.episodeCount,
+    columns: s.columns.map(({ name, roles, values }) => ({ name, roles, ...columnStatistics(values, s.kept) })),
+    reward: columnStatistics(s.rewards, s.kept),
+    samplingPeriodSeconds: s.samplingPeriodSeconds,
+    delimiter: s.delimiter,
+    decimalMark: s.decimalMark,
+    dateOrder: s.dateOrder,
+  };
+}
+
+/** Warnings for state columns that never change over the kept rows: no information, singular fits. */
+export function constantStateWarnings(summary: DatasetSummary, fileName: string): ImportProblem[] {
+  return summary.columns
+    .filter((c) => c.roles.includes('state') && c.min === c.max)
+    .map((c) => importProblem('constant-state', `${fileName}, column ${c.name}`,
+      `the state column is constant (${c.min}) in every used row; it carries no information and can make least-squares fits singular`));
+}

@@ -1,0 +1,136 @@
+/**
+ * CSV file → TransitionSet: the boundary between a user's file and the estimators. Every fault a
+ * person can fix comes back as a Problem naming the file, the line as a spreadsheet numbers it
+ * (header = line 1; a record with a quoted line break counts as one line), the column, the text
+ * found and what was expected.
+ *
+ * Stages: decode → dialect → header and column plan → one streaming pass over the rows →
+ * timestamps and rewards → bad rows (stop, or exclude and list) → episodes → transitions → summary.
+ */
+import Papa from 'papaparse';
+import type { ColumnRoles, CsvSettings } from '../project/schema';
+import { failure, success, type Result } from '../core/result';
+import { importProblem, type ImportProblem } from './importProblem';
+import type { TransitionSet } from './transitions';
+import { sourceText } from './sourceText';
+import { resolveDialect, type Dialect } from './csvDialect';
+import { planColumns, type ColumnPlan } from './columnPlan';
+import { readColumns, type TableColumns } from './columnReader';
+import { RowProblems } from './rowProblems';
+import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
+import { rewardColumn } from './rewardColumn';
+import { assignEpisodes, medianStepSeconds } from './episodes';
+import { buildTransitions } from './transitionBuilder';
+import { constantStateWarnings, summariseDataset, type DatasetSummary } from './datasetSummary';
+import { dialectReport, excludedRows, excludedWarning, rowProblemList, type ExcludedRow } from './importReport';
+
+export type { DatasetSummary, ColumnSummary } from './datasetSummary';
+export type { ExcludedRow } from './importReport';
+export type { ImportProblem, ImportProblemKind } from './importProblem';
+
+export interface ImportedDataset {
+  transitions: TransitionSet;
+  summary: DatasetSummary;
+  /** Every row left out, with the first reason found (badRows = 'exclude'). */
+  excluded: ExcludedRow[];
+  /** Sentences for the import report: dialect, date order, episodes, transitions per rule. */
+  episodeReport: string[];
+  /** Data rows read (without the header and blank lines at the end). */
+  rowCount: number;
+}
+
+const lineOf = (record: number): number => record + 2;
+
+export function importDataset(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): Result<ImportedDataset> {
+  const decoded = sourceText(source);
+  if (!decoded.ok) return failure(importProblem('not-utf8', fileName, decoded.reason));
+  const text = decoded.text;
+  if (text.trim() === '') return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
+  const dialect = resolveDialect(text, csv.delimiter, csv.decimalMark);
+  const header = headerOf(text, dialect);
+  const { plan, problems: namingProblems } = planColumns(header, columns, fileName);
+  if (!plan) return failure(...namingProblems);
+  const problems = new RowProblems();
+  const table = readColumns(text, dialect.delimiter, dialect.decimalMark, header.length, plan.requests, problems);
+  if (table.recordCount === 0) {
+    return failure(importProblem('header-only', `${fileName}, line 2`, 'the file has a header line but no data rows below it'));
+  }
+  const timestamps = settleTimestampColumn(columns, table, problems);
+  const rewards = rewardColumn(columns.reward, plan.rewardExpression, table.numbers, table.recordCount, problems);
+  if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf);
+  if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf));
+  return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps });
+}
+
+function headerOf(text: string, dialect: Dialect): string[] {
+  const first = Papa.parse<string[]>(text, { delimiter: dialect.delimiter, preview: 1 }).data[0] ?? [];
+  return first.map((name) => name.trim());
+}
+
+function settleTimestampColumn(columns: ColumnRoles, table: TableColumns, problems: RowProblems): (SettledTimestamps & { column: string }) | undefined {
+  if (columns.episode.kind !== 'timeGap') return undefined;
+  const column = columns.episode.column;
+  return { column, ...settleTimestamps(column, table.timestamps.get(column)!, problems, lineOf) };
+}
+
+interface Stages {
+  fileName: string;
+  columns: ColumnRoles;
+  dialect: Dialect;
+  plan: ColumnPlan;
+  table: TableColumns;
+  problems: RowProblems;
+  rewards: Float64Array;
+  timestamps?: SettledTimestamps & { column: string };
+}
+
+function assemble(s: Stages): Result<ImportedDataset> {
+  const { columns, table, fileName } = s;
+  const kept = new Uint8Array(table.recordCount).fill(1);
+  for (const r of s.problems.badRecords()) kept[r] = 0;
+  if (!kept.includes(1)) return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, 'every data row has a problem, so no row is left to import'));
+  const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
+  const episodes = assignEpisodes(columns.episode, {
+    kept, terminal, lineOf,
+    labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
+    timestampsSeconds: s.timestamps?.seconds,
+  });
+  const number = (name: string): Float64Array => table.numbers.get(name)!;
+  const { transitions, report } = buildTransitions({
+    kept, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, rewards: s.rewards, terminal, lineOf,
+    states: columns.states.map((c) => number(c.column)),
+    actions: columns.actions.map((c) => number(c.column)),
+    nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
+    stateNames: columns.states.map((c) => c.column),
+    actionNames: columns.actions.map((c) => c.column),
+  });
+  if (transitions.count === 0) {
+    return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every episode has a single usable row; expected consecutive rows of the same episode (or next-state columns)'));
+  }
+  const summary = summarise(s, kept, transitions);
+  const excluded = excludedRows(s.problems, lineOf);
+  const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName)];
+  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), ...episodes.report, ...report];
+  return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount }, warnings);
+}
+
+function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet): DatasetSummary {
+  const used: { name: string; roles: string[]; values: Float64Array; field: number }[] = [];
+  for (const request of s.plan.requests) {
+    const values = request.kind === 'number' ? s.table.numbers.get(request.name) : request.kind === 'timestamp' ? s.timestamps?.seconds : undefined;
+    if (values) used.push({ name: request.name, roles: s.plan.roles.get(request.name) ?? [], values, field: request.field });
+  }
+  used.sort((a, b) => a.field - b.field);
+  const decision = s.timestamps?.decision;
+  return summariseDataset({
+    rowCount: s.table.recordCount, kept, transitionCount: transitions.count, episodeCount: transitions.episodeCount,
+    columns: used, rewards: s.rewards,
+    samplingPeriodSeconds: s.timestamps ? nullIfNaN(medianStepSeconds(s.timestamps.seconds, kept)) : null,
+    delimiter: s.dialect.delimiter, decimalMark: s.dialect.decimalMark,
+    dateOrder: decision?.ambiguous ? decision.order : null,
+  });
+}
+
+function nullIfNaN(x: number): number | null {
+  return Number.isNaN(x) ? null : x;
+}

@@ -1,0 +1,63 @@
+/**
+ * The words of an import: the problem list of a failed import (in file order, capped), the list
+ * of excluded rows, and the sentences on how the file was read.
+ */
+import { importProblem, type ImportProblem, type ImportProblemKind } from './importProblem';
+import type { Dialect } from './csvDialect';
+import type { DateOrderDecision } from './dateOrder';
+import type { RowProblems } from './rowProblems';
+import { formatCount, plural } from './reportFormat';
+
+export interface ExcludedRow {
+  /** 1-based line as a spreadsheet numbers it (header = line 1). */
+  readonly line: number;
+  readonly column?: string;
+  readonly kind: ImportProblemKind;
+  readonly reason: string;
+}
+
+/** Problems shown in full before "… and N more". */
+export const LISTED_PROBLEMS = 50;
+
+export function whereOf(fileName: string, line: number, column?: string): string {
+  return column === undefined ? `${fileName}, line ${line}` : `${fileName}, line ${line}, column ${column}`;
+}
+
+export function rowProblemList(problems: RowProblems, fileName: string, lineOf: (record: number) => number): ImportProblem[] {
+  const listed = problems.inFileOrder().slice(0, LISTED_PROBLEMS).map((p) => importProblem(p.kind, whereOf(fileName, lineOf(p.record), p.column), p.reason));
+  const more = problems.count - listed.length;
+  if (more > 0) {
+    listed.push(importProblem('more-problems', fileName,
+      `… and ${plural(more, 'more problem')} (${formatCount(problems.count)} in all, the first ${LISTED_PROBLEMS} shown); fix the file, or set bad rows to "exclude" to import without those rows`));
+  }
+  return listed;
+}
+
+export function excludedRows(problems: RowProblems, lineOf: (record: number) => number): ExcludedRow[] {
+  return problems.badRecords().map((record) => {
+    const { problem, count } = problems.firstProblem(record)!;
+    const others = count > 1 ? ` (and ${plural(count - 1, 'more problem')} on this line)` : '';
+    const reason = `${problem.reason}${others}`;
+    const line = lineOf(record), kind = problem.kind;
+    return problem.column === undefined ? { line, kind, reason } : { line, column: problem.column, kind, reason };
+  });
+}
+
+export function excludedWarning(excluded: readonly ExcludedRow[], rowCount: number, fileName: string): ImportProblem[] {
+  if (excluded.length === 0) return [];
+  const percent = (100 * excluded.length) / rowCount;
+  const first = excluded.slice(0, 5).map((e) => e.line).join(', ');
+  return [importProblem('rows-excluded', fileName,
+    `${plural(excluded.length, 'row')} of ${formatCount(rowCount)} (${+percent.toPrecision(3)}%) excluded because they could not be used (first at line${excluded.length > 1 ? 's' : ''} ${first}); each is listed with its reason`)];
+}
+
+const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };
+
+export function dialectReport(dialect: Dialect, timestampColumn?: string, decision?: DateOrderDecision): string[] {
+  const how = (detected: boolean): string => (detected ? 'detected' : 'as set');
+  const lines = [
+    `Fields separated by ${DELIMITER_NAMES[dialect.delimiter]} (${how(dialect.delimiterDetected)}); decimal mark "${dialect.decimalMark}" (${how(dialect.decimalMarkDetected)}).`,
+  ];
+  if (timestampColumn !== undefined && decision?.ambiguous) lines.push(`Dates in column ${timestampColumn}: ${decision.reason}.`);
+  return lines;
+}

@@ -1,0 +1,77 @@
+/**
+ * What one evaluation returns: per candidate policy its value and the fit behind it, and the
+ * logged behaviour's own return, plus the settings used so a result can be reproduced. Plain data
+ * (numbers, arrays, typed arrays) so it can cross a worker boundary as transferables.
+ */
+export type FitStatus = 'converged' | 'maxIterations' | 'diverged';
+
+export interface FitIteration {
+  iteration: number; // 1-based
+  /** Relative weight change of the linear iteration; null for a network. */
+  weightChange: number | null;
+  /** Mean squared Bellman (temporal-difference) error over the data (linear) or the held-out episodes (network). */
+  bellmanResidual: number | null;
+  /** J of this iterate over the start states, in the project's sense; null when not computed. */
+  policyValue: number | null;
+  /** Training loss of a network's regression step; null for the linear fit. */
+  loss: number | null;
+}
+
+export interface ValueSurface {
+  xState: string;
+  yState: string;
+  x: Float64Array; // nx
+  y: Float64Array; // ny
+  /** V^π on the grid, ny×nx row-major (row j is y[j]). */
+  values: Float64Array;
+  /** Values of every state dimension used for the dimensions not on an axis. */
+  heldState: number[];
+}
+
+export interface PolicyEstimate {
+  name: string;
+  /** J(π) = mean of V^π over the start states, from the iterated fit. */
+  policyValue: number;
+  /** Standard error of that mean over start states (start-state sampling only, not fit uncertainty). */
+  standardError: number;
+  /** J(π) from the direct fixed-point (LSTD-Q) solve of the same features, when it exists. */
+  fixedPointValue: number | null;
+  status: FitStatus;
+  /** Plain-language account of the fit (converged after N iterations, diverged because …). */
+  message: string;
+  iterations: number;
+  history: FitIteration[];
+  surface: ValueSurface | null;
+  featureCount: number;
+}
+
+export interface BehaviourEstimate {
+  /** Mean discounted return of the logged episodes. */
+  value: number;
+  standardError: number;
+  episodes: number;
+  largestTruncationWeight: number;
+}
+
+export interface EvaluationSettings {
+  discount: number;
+  approximator: string;
+  quadratureNodes: number;
+  seed: number;
+  transitions: number;
+  episodes: number;
+  startStates: number;
+}
+
+export interface Evaluation {
+  project: string;
+  /** ISO 8601 time the evaluation finished. */
+  evaluatedAt: string;
+  policies: PolicyEstimate[];
+  behaviour: BehaviourEstimate;
+  settings: EvaluationSettings;
+  /** Sense of the numbers: rewards (higher is better) or costs turned into rewards by sign. */
+  valueSense: 'reward' | 'cost';
+  warnings: string[];
+  cautions: readonly string[];
+}

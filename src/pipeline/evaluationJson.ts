@@ -1,0 +1,36 @@
+/**
+ * The evaluation as plain JSON (typed arrays become number arrays), for `--json` output and files.
+ * Field names here are a published interface of the CLI: add fields, do not rename them.
+ */
+import type { Evaluation } from './estimates';
+
+export function evaluationToJson(evaluation: Evaluation): Record<string, unknown> {
+  return {
+    project: evaluation.project,
+    evaluatedAt: evaluation.evaluatedAt,
+    valueSense: evaluation.valueSense,
+    settings: evaluation.settings,
+    behaviour: evaluation.behaviour,
+    policies: evaluation.policies.map((p) => ({
+      name: p.name,
+      policyValue: p.policyValue,
+      standardError: p.standardError,
+      fixedPointValue: p.fixedPointValue,
+      status: p.status,
+      message: p.message,
+      iterations: p.iterations,
+      featureCount: p.featureCount,
+      history: p.history,
+      surface: p.surface && {
+        xState: p.surface.xState,
+        yState: p.surface.yState,
+        x: Array.from(p.surface.x),
+        y: Array.from(p.surface.y),
+        values: Array.from(p.surface.values),
+        heldState: p.surface.heldState,
+      },
+    })),
+    warnings: evaluation.warnings,
+    cautions: evaluation.cautions,
+  };
+}

@@ -1,0 +1,60 @@
+/**
+ * Open a project document together with its data: parse and migrate the document, read the data
+ * file through the host's reader (the CLI reads from disk; the app asks its main process), check
+ * the file against the fingerprint saved in the project, and import it into transitions.
+ */
+import { failure, success, type Problem, type Result } from '../core/result';
+import type { TransitionSet } from '../core/transitions';
+import { importDataset, type ImportedDataset } from '../data/importDataset';
+import { parseProjectText } from '../project/projectFile';
+import type { ProjectDocument } from '../project/schema';
+import { dataFingerprint } from './dataFingerprint';
+
+export interface OpenedProject {
+  project: ProjectDocument;
+  dataset: TransitionSet;
+  imported: ImportedDataset;
+  /** SHA-256 of the data file as read now. */
+  fingerprint: string;
+  /** Things the user should know that do not stop the evaluation (changed data file, excluded rows…). */
+  warnings: Problem[];
+}
+
+/** Reads the data file named in the project (a path relative to the project's folder). */
+export type DataFileReader = (relativePath: string) => Promise<Uint8Array>;
+
+export async function openProject(projectText: string, projectFileName: string, readDataFile: DataFileReader): Promise<Result<OpenedProject>> {
+  const loaded = parseProjectText(projectText, projectFileName);
+  if (!loaded.ok) return loaded;
+  const project = loaded.value.document;
+  let bytes: Uint8Array;
+  try {
+    bytes = await readDataFile(project.data.path);
+  } catch (e) {
+    return failure({
+      where: `${projectFileName}, data.path`,
+      message: `cannot read the data file "${project.data.path}" (${(e as Error).message}); it may have moved: point the project to its new location`,
+    });
+  }
+  return importProjectData(project, bytes);
+}
+
+/** Import already-read data bytes for a project, checking them against the saved fingerprint. */
+export function importProjectData(project: ProjectDocument, bytes: Uint8Array): Result<OpenedProject> {
+  const fingerprint = dataFingerprint(bytes);
+  const imported = importDataset(bytes, project.data.path, project.data.csv, project.columns);
+  if (!imported.ok) return imported;
+  const warnings: Problem[] = [...imported.warnings];
+  const saved = project.data.sha256;
+  if (saved !== undefined && saved !== fingerprint) {
+    const rowsThen = project.data.rowCount === undefined ? 'unknown' : project.data.rowCount.toLocaleString('en-US');
+    warnings.unshift({
+      where: project.data.path,
+      message: `the data file has changed since the project was saved (rows then: ${rowsThen}, now: ${imported.value.rowCount.toLocaleString('en-US')}); results will differ from earlier runs`,
+    });
+  }
+  if (imported.value.excluded.length > 0) {
+    warnings.push({ where: project.data.path, message: `${imported.value.excluded.length} row(s) were excluded from the import (see the import report)` });
+  }
+  return success({ project, dataset: imported.value.transitions, imported: imported.value, fingerprint, warnings });
+}

@@ -1,0 +1,162 @@
+/**
+ * The project document: everything needed to reproduce an evaluation — which data file and how to
+ * read it, the roles of its columns, the candidate policies, and the estimator settings.
+ *
+ * Stored as JSON in a `.spcritic` file. One schema, with a version; older versions are migrated
+ * (see migrations.ts). Field names are ours; the README documents them.
+ */
+import { z } from 'zod';
+
+export const PROJECT_FORMAT = 'setpoint-critic-project';
+export const PROJECT_VERSION = 1;
+export const PROJECT_EXTENSION = '.spcritic';
+
+const columnName = z.string().trim().min(1, 'expected a column name');
+const finite = z.number().refine(Number.isFinite, 'expected a finite number');
+/** A limit that may be absent on one side: null means "no limit". */
+const optionalLimit = finite.nullable();
+
+const signalSchema = z.object({
+  column: columnName,
+  /** Engineering unit shown on axes, e.g. "m", "°C", "%". */
+  unit: z.string().default(''),
+});
+
+const rewardSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']) }),
+  z.object({ kind: z.literal('expression'), expression: z.string().trim().min(1), sense: z.enum(['reward', 'cost']) }),
+]);
+
+const nextStateSchema = z.discriminatedUnion('kind', [
+  /** s' is the state on the next row of the same episode. */
+  z.object({ kind: z.literal('nextRow') }),
+  /** s' is given on the same row, one column per state, in the order of `states`. */
+  z.object({ kind: z.literal('columns'), columns: z.array(columnName).min(1) }),
+]);
+
+const episodeSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('column'), column: columnName }),
+  /** A new episode starts where the timestamp jumps by more than maxGapSeconds (default: 3× the median period). */
+  z.object({ kind: z.literal('timeGap'), column: columnName, maxGapSeconds: finite.positive().optional() }),
+  z.object({ kind: z.literal('single') }),
+]);
+
+export const csvSettingsSchema = z.object({
+  delimiter: z.enum(['auto', ',', ';', '\t']).default('auto'),
+  decimalMark: z.enum(['auto', '.', ',']).default('auto'),
+  /** What to do with a row that cannot be used: stop the import, or exclude it (counted and listed). */
+  badRows: z.enum(['stop', 'exclude']).default('stop'),
+});
+
+export const dataSourceSchema = z.object({
+  /** Path of the CSV relative to the project file's folder, with forward slashes. */
+  path: z.string().trim().min(1, 'expected the path of the data file'),
+  /** SHA-256 of the file's bytes when the project was last saved, to detect a changed file. */
+  sha256: z.string().regex(/^[0-9a-f]{64}$/, 'expected 64 hexadecimal digits').optional(),
+  /** Data rows (without the header) when the project was last saved. */
+  rowCount: z.number().int().nonnegative().optional(),
+  csv: csvSettingsSchema.default({ delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }),
+});
+
+export const columnRolesSchema = z.object({
+  states: z.array(signalSchema).min(1, 'expected at least one state column').max(10),
+  actions: z.array(signalSchema).min(1, 'expected at least one action column').max(3, 'at most 3 action columns are supported'),
+  reward: rewardSchema,
+  nextState: nextStateSchema.default({ kind: 'nextRow' }),
+  episode: episodeSchema.default({ kind: 'single' }),
+  /** Column that is 1 (or true) on rows whose next state is terminal. */
+  terminal: columnName.optional(),
+});
+
+export const actuatorBoundsSchema = z.object({
+  lo: z.array(optionalLimit),
+  hi: z.array(optionalLimit),
+  /** clip: actions beyond a limit sit at the limit; truncate: the distribution is cut and renormalised. */
+  mode: z.enum(['clip', 'truncate']),
+});
+
+export const candidateSchema = z.object({
+  name: z.string().trim().min(1, 'expected a name'),
+  description: z.string().default(''),
+  /** μ(s) = offset + gain·s, in the units of the action and state columns. */
+  offset: z.array(finite).min(1),
+  gain: z.array(z.array(finite)).min(1),
+  /** Standard deviation of each action around μ(s), same units as the action. */
+  std: z.array(finite.positive('expected a positive standard deviation')).min(1),
+  bounds: actuatorBoundsSchema.optional(),
+});
+
+export const featureSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('polynomial'), degree: z.number().int().min(1).max(6) }),
+  z.object({
+    kind: z.literal('radialBasis'),
+    centresPerInput: z.number().int().min(2).max(12),
+    /** Width of each basis function as a multiple of the centre spacing. */
+    widthScale: finite.positive().default(1),
+  }),
+]);
+
+export const approximatorSchema = z.discriminatedUnion('kind', [
+  z.object({
+    kind: z.literal('linear'),
+    features: featureSchema,
+    /** Ridge penalty per sample on the averaged normal equations. */
+    ridge: finite.nonnegative().default(1e-6),
+    tolerance: finite.positive().default(1e-10),
+    maxIterations: z.number().int().min(1).max(1_000_000).default(5000),
+  }),
+  z.object({
+    kind: z.literal('network'),
+    /** Units per hidden layer. */
+    hiddenLayers: z.array(z.number().int().min(1).max(1024)).min(1).max(6).default([64, 64]),
+    activation: z.enum(['relu', 'tanh', 'elu']).default('relu'),
+    learningRate: finite.positive().default(1e-3),
+    batchSize: z.number().int().min(8).max(65_536).default(512),
+    /** Adam steps on each frozen regression target. */
+    stepsPerIteration: z.number().int().min(1).max(100_000).default(500),
+    /** Outer fitted-Q iterations (each recomputes the target from the previous network). */
+    outerIterations: z.number().int().min(1).max(10_000).default(40),
+    /** Fraction of episodes held out to measure the Bellman error; 0 turns early stopping off. */
+    heldOutFraction: finite.min(0).max(0.5).default(0.1),
+    /** Stop after this many outer iterations without held-out improvement; 0 = never. */
+    patience: z.number().int().min(0).max(10_000).default(8),
+    /** Average the weights of the last k outer iterations' networks (1 = no averaging). */
+    averageLast: z.number().int().min(1).max(100).default(1),
+    /** TensorFlow.js backend: auto = wasm where it loads and passes its check, else cpu. */
+    backend: z.enum(['auto', 'wasm', 'cpu']).default('auto'),
+  }),
+]);
+
+export const startStatesSchema = z.discriminatedUnion('kind', [
+  z.object({ kind: z.literal('episodeStarts') }),
+  z.object({ kind: z.literal('given'), states: z.array(z.array(finite)).min(1) }),
+]);
+
+export const surfaceSchema = z.object({
+  xState: columnName,
+  yState: columnName,
+  resolution: z.number().int().min(2).max(400).default(60),
+});
+
+export const projectSchema = z.object({
+  format: z.literal(PROJECT_FORMAT),
+  version: z.literal(PROJECT_VERSION),
+  name: z.string().trim().min(1, 'expected a project name'),
+  description: z.string().default(''),
+  data: dataSourceSchema,
+  columns: columnRolesSchema,
+  discount: finite.gt(0, 'expected a discount factor above 0').lt(1, 'expected a discount factor below 1'),
+  candidates: z.array(candidateSchema).min(1, 'expected at least one candidate policy'),
+  approximator: approximatorSchema,
+  quadratureNodes: z.number().int().min(1).max(64).default(10),
+  seed: z.number().int().min(0).max(2 ** 32 - 1).default(1),
+  startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
+  surface: surfaceSchema.optional(),
+});
+
+export type ProjectDocument = z.infer<typeof projectSchema>;
+export type ProjectInput = z.input<typeof projectSchema>;
+export type CandidateSpec = z.infer<typeof candidateSchema>;
+export type ColumnRoles = z.infer<typeof columnRolesSchema>;
+export type CsvSettings = z.infer<typeof csvSettingsSchema>;
+export type ApproximatorSettings = z.infer<typeof approximatorSchema>;

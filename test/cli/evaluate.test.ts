@@ -1,0 +1,78 @@
+/**
+ * The command line end to end: real processes on the sample projects and on broken inputs.
+ */
+import { execFile } from 'node:child_process';
+import { mkdtemp, writeFile, readFile, copyFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+const root = join(__dirname, '..', '..');
+const tsx = join(root, 'node_modules', '.bin', 'tsx');
+const cli = join(root, 'src', 'cli', 'main.ts');
+
+function run(args: string[]): Promise<{ code: number; stdout: string; stderr: string }> {
+  return new Promise((resolve) => {
+    execFile(tsx, [cli, ...args], { cwd: root, maxBuffer: 64 * 1024 * 1024 }, (error, stdout, stderr) => {
+      resolve({ code: error ? Number(error.code ?? 1) : 0, stdout, stderr });
+    });
+  });
+}
+
+const samples = ['tank-levels/tank-levels.spcritic', 'heating-loop/heating-loop.spcritic'];
+
+describe('evaluate command', () => {
+  it.each(samples)('evaluates %s: exit 0, JSON with finite values for every candidate', async (sample) => {
+    const { code, stdout, stderr } = await run(['evaluate', join('sample-projects', sample), '--json']);
+    expect(stderr).toBe('');
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout);
+    expect(json.policies.length).toBeGreaterThan(0);
+    for (const p of json.policies) {
+      expect(typeof p.name).toBe('string');
+      expect(Number.isFinite(p.policyValue)).toBe(true);
+      expect(Number.isFinite(p.standardError)).toBe(true);
+      expect(p.status).toBe('converged');
+      expect(p.surface.values.every(Number.isFinite)).toBe(true);
+    }
+    expect(Number.isFinite(json.behaviour.value)).toBe(true);
+    expect(json.cautions.join(' ')).toMatch(/advisory/);
+  });
+
+  it('prints a readable table with the cautions by default', async () => {
+    const { code, stdout } = await run(['evaluate', join('sample-projects', samples[0])]);
+    expect(code).toBe(0);
+    expect(stdout).toMatch(/logged behaviour \(today\)/);
+    expect(stdout).toMatch(/Cautions:/);
+    expect(stdout).toMatch(/independent safety functions/);
+  });
+
+  it('reports a missing project file on stderr with exit 1', async () => {
+    const { code, stdout, stderr } = await run(['evaluate', 'no/such/project.spcritic']);
+    expect(code).toBe(1);
+    expect(stdout).toBe('');
+    expect(stderr).toMatch(/Cannot read the project file no\/such\/project\.spcritic: no such file/);
+  });
+
+  it('reports wrong usage with exit 2', async () => {
+    expect((await run(['frobnicate'])).code).toBe(2);
+    expect((await run(['evaluate'])).code).toBe(2);
+  });
+
+  it('names the field of a broken project and the column of a missing data column', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'spc-cli-'));
+    const sample = JSON.parse(await readFile(join(root, 'sample-projects', samples[0]), 'utf8'));
+    await copyFile(join(root, 'sample-projects', 'tank-levels', sample.data.path), join(dir, sample.data.path));
+    await writeFile(join(dir, 'bad-discount.spcritic'), JSON.stringify({ ...sample, discount: 1.5 }));
+    const bad = await run(['evaluate', join(dir, 'bad-discount.spcritic')]);
+    expect(bad.code).toBe(1);
+    expect(bad.stderr).toMatch(/bad-discount\.spcritic, discount: expected a discount factor below 1/);
+
+    const renamed = { ...sample, columns: { ...sample.columns, states: [{ column: 'level_uper_m', unit: 'm' }, ...sample.columns.states.slice(1)] } };
+    await writeFile(join(dir, 'bad-column.spcritic'), JSON.stringify(renamed));
+    const missing = await run(['evaluate', join(dir, 'bad-column.spcritic')]);
+    expect(missing.code).toBe(1);
+    expect(missing.stderr).toMatch(/level_uper_m/);
+    expect(missing.stderr).toMatch(/level_upper_m/); // the closest header is suggested
+  });
+});
