@@ -169,19 +169,19 @@ function fullCovarianceLogDensity(p: GaussianPolicy, mean: Float64Array, action:
   return -0.5 * quad - logDet - 0.5 * m * Math.log(2 * Math.PI);
 }
 
-/** Draw a ~ π(·|s) into out (length m). Truncation uses rejection from the untruncated normal. */
+/**
+ * Draw a ~ π(·|s) into out (length m), allocation-free (simulators call it once per step).
+ * Truncation uses rejection from the untruncated normal.
+ */
 export function sampleAction(p: GaussianPolicy, state: ArrayLike<number>, rng: RandomSource, out: Float64Array): void {
-  const m = p.actionDim;
-  policyMean(p, state, out);
-  const mean = out.slice();
+  const m = p.actionDim, l = p.covarianceFactor, b = p.bounds;
   for (let attempt = 0; attempt < 10_000; attempt++) {
-    const z = Array.from({ length: m }, () => rng.normal());
+    // a = μ(s) + L z with z ~ N(0, I); m ≤ 3, so z lives in three locals.
+    const z0 = rng.normal(), z1 = m > 1 ? rng.normal() : 0, z2 = m > 2 ? rng.normal() : 0;
+    policyMean(p, state, out);
     for (let i = 0; i < m; i++) {
-      let v = mean[i];
-      for (let k = 0; k <= i; k++) v += p.covarianceFactor[i * m + k] * z[k];
-      out[i] = v;
+      out[i] += l[i * m] * z0 + (i >= 1 ? l[i * m + 1] * z1 : 0) + (i >= 2 ? l[i * m + 2] * z2 : 0);
     }
-    const b = p.bounds;
     if (!b) return;
     if (b.mode === 'clip') {
       for (let i = 0; i < m; i++) out[i] = Math.min(b.hi[i], Math.max(b.lo[i], out[i]));

@@ -16,19 +16,20 @@ export function rewardColumn(
     ? numbers.get(rule.column)!
     : evaluateExpression(tree!, (name) => numbers.get(name)!, recordCount);
   const sign = rule.sense === 'cost' ? -1 : 1;
+  if (tree) reportNonFinite(raw, tree, numbers, rule.sense, problems);
   const rewards = new Float64Array(recordCount);
   for (let r = 0; r < recordCount; r++) rewards[r] = sign * raw[r];
-  if (tree) reportNonFinite(rewards, tree, numbers, rule.sense, problems);
   return rewards;
 }
 
+/** raw: the expression's values before a cost is negated, so messages show what the user wrote. */
 function reportNonFinite(
-  rewards: Float64Array, tree: ExpressionNode, numbers: Map<string, Float64Array>, sense: string, problems: RowProblems,
+  raw: Float64Array, tree: ExpressionNode, numbers: Map<string, Float64Array>, sense: string, problems: RowProblems,
 ): void {
   const inputs = expressionColumns(tree).map(({ name }) => name);
-  for (let r = 0; r < rewards.length; r++) {
-    if (Number.isFinite(rewards[r]) || problems.isBad(r)) continue;
+  for (let r = 0; r < raw.length; r++) {
+    if (Number.isFinite(raw[r]) || problems.isBad(r)) continue;
     const values = inputs.map((name) => `${name} = ${numbers.get(name)![r]}`).join(', ');
-    problems.add(r, undefined, 'reward-not-finite', `the ${sense} expression gives ${rewards[r]} here (${values}); check for log or sqrt of a negative number and division by zero`);
+    problems.add(r, undefined, 'reward-not-finite', `the ${sense} expression gives ${raw[r]} here (${values}); check for log or sqrt of a negative number and division by zero`);
   }
 }

@@ -112,7 +112,7 @@ function diverged(history: FqeIterationProgress[], what: string, bound: number):
     status: 'diverged', weights: null, history,
     reason: `diverged: ${what}. With these features the Bellman update is not a contraction on the logged data${radius}, ` +
       'so repeating it drives the weights without bound. This happens when the candidate policy leads to states or actions ' +
-      'the data covers poorly, or the features cannot represent its Q; try a larger ridge, a smaller discount or other features.',
+      'the data covers poorly, or the features cannot represent its Q; try a larger ridge, a smaller discount or other features',
   };
 }
 

@@ -1,0 +1,46 @@
+/**
+ * `npm run bench`: throughput figures, printed, never asserted. Each measurement runs in its own
+ * child process so that peak memory (getrusage maxRSS) belongs to that measurement alone.
+ *   npm run bench                 all benchmarks
+ *   npm run bench -- linear       only the linear FQE sizes
+ */
+import { execFileSync } from 'node:child_process';
+import { fileURLToPath } from 'node:url';
+
+type Job = { name: string; group: string; run: () => Promise<Record<string, number | string>> };
+
+const jobs: Job[] = [
+  ...[100_000, 1_000_000].map((n) => ({
+    name: `linear FQE, ${n.toLocaleString('en-US')} transitions`, group: 'linear',
+    run: async () => (await import('./linearBench')).runLinearBench(n),
+  })),
+  ...[1_000_000].map((n) => ({
+    name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',
+    run: async () => (await import('./importBench')).runImportBench(n) as Promise<Record<string, number | string>>,
+  })),
+];
+
+function format(value: number | string): string {
+  if (typeof value === 'string') return value;
+  if (Number.isInteger(value)) return value.toLocaleString('en-US');
+  return Math.abs(value) >= 100 ? Math.round(value).toLocaleString('en-US') : value.toPrecision(4);
+}
+
+async function child(index: number): Promise<void> {
+  process.stdout.write(JSON.stringify(await jobs[index].run()));
+}
+
+function parent(groups: string[]): void {
+  const self = fileURLToPath(import.meta.url);
+  jobs.forEach((job, index) => {
+    if (groups.length && !groups.includes(job.group)) return;
+    const out = execFileSync(process.execPath, ['--import', 'tsx', self, '--child', String(index)], { encoding: 'utf8', maxBuffer: 1 << 26 });
+    const figures = JSON.parse(out) as Record<string, number | string>;
+    console.log(`\n${job.name}`);
+    for (const [key, value] of Object.entries(figures)) console.log(`  ${key.padEnd(28)} ${format(value)}`);
+  });
+}
+
+const args = process.argv.slice(2);
+if (args[0] === '--child') await child(Number(args[1]));
+else parent(args);
