@@ -158,8 +158,10 @@ export function quadratureNodesAt(policy: GaussianPolicy, state: ArrayLike<numbe
 
 /**
  * E_{a~π(·|s)} f(a) with the n-point rule per dimension, and errorEstimate = |value − value of
- * the 2n-point rule| (the richer rule is usually far more accurate, so this bounds the error of
- * `value` in practice; common practice). At the largest n the comparison is with ⌈n/2⌉ instead.
+ * the 2n-point rule| (common practice). For smooth f the richer rule is far more accurate, so
+ * the estimate is close to the true error of `value`; for f with a kink inside the action range
+ * (e.g. |a − c|) Gauss rules converge only like 1/n and the estimate can understate the error.
+ * When 2n exceeds the largest rule the comparison is with ⌈n/2⌉ nodes instead.
  * f receives a reused buffer of length m.
  */
 export function expectUnderPolicy(

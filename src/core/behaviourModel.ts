@@ -78,13 +78,22 @@ function stateScatterFactor(sss: Float64Array, ds: number): Float64Array {
   for (let p = 0; p < ds; p++) {
     if (!(sss[p * ds + p] > 0)) throw new BehaviourModelError(`state ${p + 1} is constant in the log, so its gain cannot be estimated`);
   }
+  const collinear = (p: number): BehaviourModelError => new BehaviourModelError(
+    `state ${p + 1} is (almost) a linear combination of the states before it in the log, so the gains are not identifiable`);
+  let factor: Float64Array;
   try {
-    return cholesky(sss, ds);
+    factor = cholesky(sss, ds);
   } catch (error) {
     if (!(error instanceof SingularMatrixError)) throw error;
-    throw new BehaviourModelError('the states are collinear in the log (one is a linear combination of others), so the gains are not identifiable');
+    throw collinear(ds - 1);
   }
+  // L_pp² / S_pp is the share of state p's variation not explained by states 1..p−1 (1 − R²_p).
+  for (let p = 0; p < ds; p++) if (factor[p * ds + p] ** 2 < NEGLIGIBLE_SHARE * sss[p * ds + p]) throw collinear(p);
+  return factor;
 }
+
+/** Below this relative share a variation is rounding noise, not signal (double precision, common practice). */
+const NEGLIGIBLE_SHARE = 1e-12;
 
 /** Residual covariance EᵀE/dof (m×m) and R² per action. */
 function residualMoments(
@@ -106,7 +115,7 @@ function residualMoments(
   const rSquared: number[] = [];
   for (let j = 0; j < m; j++) {
     if (!(total[j] > 0)) throw new BehaviourModelError(`action ${j + 1} is constant in the log; a Gaussian behaviour model needs actions that vary`);
-    if (!(covariance[j * m + j] > 0)) throw new BehaviourModelError(`action ${j + 1} follows the states exactly (no residual noise), so its behaviour density is degenerate`);
+    if (!(covariance[j * m + j] > NEGLIGIBLE_SHARE * total[j])) throw new BehaviourModelError(`action ${j + 1} follows the states exactly (no residual noise), so its behaviour density is degenerate`);
     rSquared.push(1 - covariance[j * m + j] / total[j]);
   }
   for (let k = 0; k < m * m; k++) covariance[k] /= dof;

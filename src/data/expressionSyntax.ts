@@ -131,7 +131,7 @@ export function parseExpression(source: string): ExpressionNode {
   }
   function call(nameToken: Token): ExpressionNode {
     const name = nameToken.text;
-    if (!(name in ARITY)) {
+    if (!Object.hasOwn(ARITY, name)) { // not `in`: that would accept "constructor"
       throw new ExpressionError(`unknown function "${name}"; expected one of ${Object.keys(ARITY).join(', ')}`, source, nameToken.index);
     }
     next(); // "("

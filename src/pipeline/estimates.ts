@@ -26,6 +26,11 @@ export interface ValueSurface {
   values: Float64Array;
   /** Values of every state dimension used for the dimensions not on an axis. */
   heldState: number[];
+  /**
+   * Logged states nearest each grid point, ny×nx, projected onto the two axes (the other states
+   * are ignored): a zero marks a region the logs never visited, where V is extrapolated.
+   */
+  visits: Uint32Array;
 }
 
 export interface PolicyEstimate {

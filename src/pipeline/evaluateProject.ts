@@ -21,7 +21,8 @@ import { describeApproximator } from './featureMapFor';
 import { fitCandidate } from './fitCandidate';
 import type { Evaluation, FitIteration, PolicyEstimate, ValueSurface } from './estimates';
 import { isEngineError } from './engineErrors';
-import { surfaceGridFor } from './surfaceGrid';
+import { surfaceGridFor, surfaceVisits } from './surfaceGrid';
+import type { GaussianPolicy } from '../core/policy';
 
 export interface EvaluationProgress {
   candidate: string;
@@ -39,6 +40,11 @@ export interface EvaluateOptions {
   cancel?: CancellationCheck;
   /** Clock for the evaluation time stamp (tests pass a fixed one). */
   now?: () => Date;
+  /**
+   * Take ownership of each candidate's fitted Q (the app's worker keeps them to redraw surfaces
+   * and slices); the caller must dispose them. Without it the pipeline disposes every fit.
+   */
+  retainFit?: (candidateIndex: number, fit: CandidateFit, policy: GaussianPolicy) => void;
 }
 
 export async function evaluateProject(options: EvaluateOptions): Promise<Result<Evaluation>> {
@@ -88,12 +94,16 @@ async function estimateCandidate(
     data: dataset, policy, approximator: project.approximator, discount: project.discount, quadratureNodes: project.quadratureNodes,
     seed: project.seed, startStates, onIteration: report, cancel: options.cancel,
   });
+  let retained = false;
   try {
     const grid = surfaceGridFor(project, dataset);
     let surface: ValueSurface | null = null;
     if (grid) {
       const values = valueSurface(fit.q, policy, createActionQuadrature(policy, project.quadratureNodes), grid);
-      surface = { xState: grid.xState, yState: grid.yState, x: values.x, y: values.y, values: values.values.map((v) => sign * v), heldState: Array.from(grid.heldState) };
+      surface = {
+        xState: grid.xState, yState: grid.yState, x: values.x, y: values.y, values: values.values.map((v) => sign * v),
+        heldState: Array.from(grid.heldState), visits: surfaceVisits(dataset, grid),
+      };
     }
     const estimate: PolicyEstimate = {
       name: candidate.name,
@@ -107,9 +117,13 @@ async function estimateCandidate(
       surface,
       featureCount: fit.featureCount,
     };
+    if (options.retainFit) {
+      options.retainFit(index, fit, policy);
+      retained = true;
+    }
     return { estimate, warnings: fit.warnings };
   } finally {
-    fit.dispose();
+    if (!retained) fit.dispose();
   }
 }
 

@@ -28,6 +28,7 @@ export function evaluationToJson(evaluation: Evaluation): Record<string, unknown
         y: Array.from(p.surface.y),
         values: Array.from(p.surface.values),
         heldState: p.surface.heldState,
+        visits: Array.from(p.surface.visits),
       },
     })),
     warnings: evaluation.warnings,

@@ -30,3 +30,16 @@ export function surfaceGridFor(project: ProjectDocument, data: TransitionSet): (
     xRange: span(xAxis), yRange: span(yAxis), resolution: [resolution, resolution], heldState: Array.from(mean),
   };
 }
+
+/** How many logged states fall nearest each grid point of the surface (ny×nx, row-major). */
+export function surfaceVisits(data: TransitionSet, grid: ValueSurfaceOptions): Uint32Array {
+  const [nx, ny] = grid.resolution, ds = data.stateDim;
+  const [x0, x1] = grid.xRange, [y0, y1] = grid.yRange;
+  const visits = new Uint32Array(nx * ny);
+  for (let i = 0; i < data.count; i++) {
+    const ix = Math.round(((data.states[i * ds + grid.xAxis] - x0) / (x1 - x0)) * (nx - 1));
+    const iy = Math.round(((data.states[i * ds + grid.yAxis] - y0) / (y1 - y0)) * (ny - 1));
+    if (ix >= 0 && ix < nx && iy >= 0 && iy < ny) visits[iy * nx + ix]++;
+  }
+  return visits;
+}

@@ -61,12 +61,7 @@ export function runFqeIteration(setup: IterationSetup): IterationOutcome {
   let w: Float64Array = Float64Array.from(setup.initialWeights), smallestStep = Infinity, lastStep = Infinity;
   for (let k = 1; k <= maxIterations; k++) {
     throwIfCancelled(setup.cancel);
-    for (let a = 0; a < d; a++) {
-      let mw = 0;
-      for (let b = 0; b < d; b++) mw += stats.crossNext[a * d + b] * w[b];
-      rhs[a] = stats.featureReward[a] + discount * mw;
-    }
-    const next = choleskySolve(factor, d, rhs);
+    const next = fqeStep(stats, factor, discount, w, rhs);
     const { step, size } = stepSize(w, next);
     const residual = bellmanResidual(stats, next, discount);
     if (!Number.isFinite(step) || !Number.isFinite(residual) || size > WEIGHT_NORM_LIMIT) {
@@ -85,15 +80,29 @@ export function runFqeIteration(setup: IterationSetup): IterationOutcome {
       return diverged(history, `the weight changes grew ${fmt(step / smallestStep)}-fold by iteration ${k}`, bound);
     }
   }
-  if (bound >= 1 && lastStep >= smallestStep) {
+  if (bound >= 1 && lastStep > smallestStep) {
     return diverged(history, `the weight changes had stopped shrinking after ${maxIterations} iterations`, bound);
   }
   const lastChange = history[history.length - 1].weightChange;
+  const rate = bound < 1
+    ? `the iteration contracts by a factor of at most ${fmt(bound)} per step in the long run`
+    : `the spectral-radius estimate ${fmt(bound)} is not below 1, so convergence is not guaranteed`;
   return {
     status: 'maxIterations', weights: w, history,
     reason: `stopped at the limit of ${maxIterations} iterations before reaching the tolerance (last relative weight change ` +
-      `${fmt(lastChange)}, tolerance ${fmt(tolerance)}; the iteration contracts by a factor of at most ${fmt(bound)} per step in the long run)`,
+      `${fmt(lastChange)}, tolerance ${fmt(tolerance)}; ${rate})`,
   };
+}
+
+/** w_{k+1} = (G + λD)⁻¹(b + γ M w_k); rhs is a scratch buffer of length d. */
+function fqeStep(stats: BellmanStatistics, factor: Float64Array, discount: number, w: Float64Array, rhs: Float64Array): Float64Array {
+  const d = stats.dim;
+  for (let a = 0; a < d; a++) {
+    let mw = 0;
+    for (let b = 0; b < d; b++) mw += stats.crossNext[a * d + b] * w[b];
+    rhs[a] = stats.featureReward[a] + discount * mw;
+  }
+  return choleskySolve(factor, d, rhs);
 }
 
 function stepSize(w: Float64Array, next: Float64Array): { step: number; size: number } {

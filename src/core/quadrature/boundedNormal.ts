@@ -9,17 +9,18 @@
  * The interior integral uses the n-point Gauss rule of the weight φ restricted to [α, β] itself,
  * not Gauss–Hermite across the kink and not a long composite rule: its n nodes are exact for
  * f∘(μ+σz) polynomial of degree ≤ 2n−1, as Gauss–Hermite is for the unbounded policy, so the
- * tensor grids of actionQuadrature stay at (n+2)^m points. Its recurrence coefficients are got
- * by the discretized Stieltjes procedure (Gautschi, "Orthogonal Polynomials: Computation and
+ * tensor grids of actionQuadrature stay at (n+2)^m points. Its recurrence coefficients come
+ * from the discretized Stieltjes procedure (Gautschi, "Orthogonal Polynomials: Computation and
  * Approximation", 2004, §2.2.3): the weight is first discretised by composite Gauss–Legendre on
  * [α, β] ∩ {z : φ(z) ≥ e^{−40}·max φ on [α, β]} (the cut loses a relative 4e−18 of mass), then the
  * Jacobi matrix is diagonalised (Golub & Welsch 1969). The density is taken relative to its peak
  * on the interval, so a mean 40σ outside the bounds still gives a proper truncated rule.
  *
- * Negligible pieces (choice, documented here): a tail, bound point mass or clipped interior
- * carrying less than 1e−15 of probability is dropped, changing E f by at most 1e−15·max|f|. When
- * both tails are below 1e−15 the plain Gauss–Hermite rule is used; the truncated-weight rule
- * then differs from it only by that mass, so there is no visible jump at the switch.
+ * Negligible pieces (a choice): with clipping, a bound point mass or the interior carrying less
+ * than 1e−15 of probability is left out, changing E f by at most 1e−15·max|f|; truncation instead
+ * cuts the density where it is below e^{−40} of its peak. When both tails beyond the bounds carry
+ * less than 1e−15, either mode uses the plain Gauss–Hermite rule; the bounded rule differs from it
+ * there by about that mass times f, so there is no visible jump at the switch.
  *
  * Work per call is O(n·N) with N ≤ 5(n+12) discretisation points plus an n×n QL, all in buffers
  * allocated once by createBoundedNormalQuadrature.

@@ -86,6 +86,13 @@ describe('linear FQE', () => {
     expect(Math.abs(fit.fixedPoint!.q.weights[0])).toBe(0);
     expect(Math.abs(fit.fixedPoint!.policyValue.value)).toBe(0);
     expect(fit.fixedPoint!.warning).toMatch(/diverges/);
+    // Growth 1.001 per step: too slow to trip the growth test in 50 iterations, still 'diverged' at the limit.
+    const slow = fitLinearFqe({
+      data: twoStateCounterexample(epsilon), policy: anyPolicy, features: stateOnlyFeature,
+      discount: (1.001 * 5) / (6 - 4 * epsilon), ridge: 0, quadratureNodes: 3, tolerance: 1e-10, maxIterations: 50, initialWeights: [1],
+    });
+    expect(slow.status).toBe('diverged');
+    expect(slow.message).toMatch(/stopped shrinking/);
   });
 
   it('diverges from w = 0 when the counterexample has rewards, and contracts at a small discount', () => {

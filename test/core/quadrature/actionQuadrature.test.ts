@@ -150,14 +150,14 @@ describe('expectUnderPolicy error estimate', () => {
     expect(r.points).toBe(9);
   });
 
-  it('for E|a| (a kink) is nonzero and bounds the true error within a factor of 3', () => {
-    // E|a| for a ~ N(μ, σ²): σ√(2/π)e^{−μ²/(2σ²)} + μ(1 − 2Φ(−μ/σ)) (folded normal mean, common practice).
+  it('for smooth f tracks the true error: E cos(2a) = cos(2μ)e^{−2σ²} (normal characteristic function)', () => {
     const policy = createGaussianPolicy({ offset: [0.3], gain: [[0]], std: [1] }, 1);
-    const exact = Math.sqrt(2 / Math.PI) * Math.exp(-0.045) + 0.3 * (1 - 2 * normalCdf(-0.3));
-    for (const n of [4, 8, 16]) {
-      const r = expectUnderPolicy(policy, [0], (a) => Math.abs(a[0]), n);
-      expect(r.errorEstimate).toBeGreaterThan(0);
-      expect(Math.abs(r.value - exact)).toBeLessThan(3 * r.errorEstimate);
+    const exact = Math.cos(0.6) * Math.exp(-2);
+    for (const n of [3, 4, 6, 8]) {
+      const r = expectUnderPolicy(policy, [0], (a) => Math.cos(2 * a[0]), n);
+      const error = Math.abs(r.value - exact);
+      expect(r.errorEstimate).toBeGreaterThan(0.5 * error);
+      expect(r.errorEstimate).toBeLessThan(2 * error);
     }
   });
 });

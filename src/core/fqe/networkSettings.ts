@@ -1,0 +1,74 @@
+/**
+ * Settings of the neural-network fitted Q-evaluation, as a plain interface so core does not
+ * depend on the project document (its zod schema mirrors these fields and defaults).
+ */
+import { FqeOptionsError } from './fqeErrors';
+
+export type NetworkActivation = 'relu' | 'tanh' | 'elu';
+export type NetworkBackendPreference = 'auto' | 'wasm' | 'cpu';
+
+export interface NetworkFqeSettings {
+  /** Units per hidden layer, input side first. */
+  hiddenLayers: number[];
+  activation: NetworkActivation;
+  /** Adam step size (Kingma & Ba, 2015). */
+  learningRate: number;
+  /** Transitions per gradient step (capped at the number of training transitions). */
+  batchSize: number;
+  /** Adam steps on each frozen regression target. */
+  stepsPerIteration: number;
+  /** Outer fitted-Q iterations; each recomputes the target from the previous network. */
+  outerIterations: number;
+  /** Fraction of whole episodes held out to measure the Bellman error; 0 turns early stopping off. */
+  heldOutFraction: number;
+  /** Stop after this many outer iterations without held-out improvement; 0 = never. */
+  patience: number;
+  /** Average the weights of the last k outer iterations' networks (1 = no averaging). */
+  averageLast: number;
+  backend: NetworkBackendPreference;
+}
+
+/** The defaults of the project schema (src/project/schema.ts, approximator kind "network"). */
+export const defaultNetworkSettings: Readonly<NetworkFqeSettings> = Object.freeze({
+  hiddenLayers: [64, 64],
+  activation: 'relu',
+  learningRate: 1e-3,
+  batchSize: 512,
+  stepsPerIteration: 500,
+  outerIterations: 40,
+  heldOutFraction: 0.1,
+  patience: 8,
+  averageLast: 1,
+  backend: 'auto',
+});
+
+const ACTIVATIONS: readonly NetworkActivation[] = ['relu', 'tanh', 'elu'];
+const BACKENDS: readonly NetworkBackendPreference[] = ['auto', 'wasm', 'cpu'];
+
+/** Throws FqeOptionsError naming the first setting that cannot be used. Limits match the schema. */
+export function checkNetworkSettings(s: NetworkFqeSettings): void {
+  const layers = s.hiddenLayers;
+  if (!Array.isArray(layers) || layers.length < 1 || layers.length > 6) {
+    throw new FqeOptionsError(`hiddenLayers: expected 1 to 6 hidden layers, got ${Array.isArray(layers) ? layers.length : String(layers)}`);
+  }
+  layers.forEach((units, i) => wholeNumber(`hiddenLayers[${i}]`, units, 1, 1024));
+  if (!ACTIVATIONS.includes(s.activation)) throw new FqeOptionsError(`activation: expected one of ${ACTIVATIONS.join(', ')}, got ${String(s.activation)}`);
+  if (!(s.learningRate > 0) || !Number.isFinite(s.learningRate)) {
+    throw new FqeOptionsError(`learningRate: expected a positive number, got ${s.learningRate}`);
+  }
+  wholeNumber('batchSize', s.batchSize, 8, 65_536);
+  wholeNumber('stepsPerIteration', s.stepsPerIteration, 1, 100_000);
+  wholeNumber('outerIterations', s.outerIterations, 1, 10_000);
+  if (!(s.heldOutFraction >= 0 && s.heldOutFraction <= 0.5)) {
+    throw new FqeOptionsError(`heldOutFraction: expected a fraction from 0 to 0.5, got ${s.heldOutFraction}`);
+  }
+  wholeNumber('patience', s.patience, 0, 10_000);
+  wholeNumber('averageLast', s.averageLast, 1, 100);
+  if (!BACKENDS.includes(s.backend)) throw new FqeOptionsError(`backend: expected one of ${BACKENDS.join(', ')}, got ${String(s.backend)}`);
+}
+
+function wholeNumber(name: string, value: number, lo: number, hi: number): void {
+  if (!Number.isInteger(value) || value < lo || value > hi) {
+    throw new FqeOptionsError(`${name}: expected a whole number from ${lo} to ${hi}, got ${value}`);
+  }
+}
