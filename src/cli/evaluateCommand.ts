@@ -6,9 +6,10 @@ import { readFile } from 'node:fs/promises';
 import { basename, dirname, resolve } from 'node:path';
 import { describeProblems } from '../core/result';
 import { evaluateProject } from '../pipeline/evaluateProject';
-import { evaluationToJson } from '../pipeline/evaluationJson';
+import { evaluationToJson, importToJson } from '../pipeline/evaluationJson';
 import { openProject } from '../pipeline/openProject';
 import { formatEvaluation } from './formatEvaluation';
+import { formatImport } from './formatImport';
 
 export async function runEvaluateCommand(projectPath: string, options: { json: boolean }): Promise<number> {
   let text: string;
@@ -24,13 +25,18 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     process.stderr.write(`${describeProblems(loaded.problems)}\n`);
     return 1;
   }
-  const { project, dataset, warnings } = loaded.value;
+  const { project, dataset, warnings, imported } = loaded.value;
   const evaluation = await evaluateProject({ project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`) });
   if (!evaluation.ok) {
     process.stderr.write(`${describeProblems(evaluation.problems)}\n`);
     return 1;
   }
-  if (options.json) process.stdout.write(`${JSON.stringify(evaluationToJson(evaluation.value), null, 2)}\n`);
-  else process.stdout.write(formatEvaluation(evaluation.value, basename(projectPath)));
+  if (options.json) {
+    const json = { ...evaluationToJson(evaluation.value), import: importToJson(imported) };
+    process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+  } else {
+    process.stdout.write(formatImport(imported, project.data.path));
+    process.stdout.write(formatEvaluation(evaluation.value, basename(projectPath)));
+  }
   return evaluation.value.policies.some((p) => p.status === 'diverged') ? 3 : 0;
 }

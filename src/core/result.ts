@@ -8,6 +8,8 @@ export interface Problem {
   readonly where: string;
   /** What is wrong and what was expected. */
   readonly message: string;
+  /** A stable machine-readable kind (e.g. "non-numeric-cell") so hosts can group problems. */
+  readonly kind?: string;
 }
 
 export type Result<T> = { ok: true; value: T; warnings: Problem[] } | { ok: false; problems: Problem[] };

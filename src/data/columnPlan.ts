@@ -44,7 +44,8 @@ export function planColumns(header: readonly string[], roles: ColumnRoles, fileN
   const rewardExpression = planReward(roles, header, fileName, use, problems);
   planNextState(roles, use, problems, fileName);
   if (roles.episode.kind === 'column') use(roles.episode.column, 'label', 'episode', 'episode column');
-  if (roles.episode.kind === 'timeGap') use(roles.episode.column, 'timestamp', 'timestamp', 'timestamp column for episodes');
+  const timestamp = timestampColumnOf(roles);
+  if (timestamp !== undefined) use(timestamp, 'timestamp', 'timestamp', roles.episode.kind === 'timeGap' ? 'timestamp column for episodes' : 'timestamp column');
   if (roles.terminal !== undefined) use(roles.terminal, 'flag', 'terminal', 'terminal column');
   if (problems.length > 0) return { problems };
   return { plan: { requests: [...requests.values()], rewardExpression, roles: used, warnings: duplicateWarnings(fields, used, where) }, problems };
@@ -95,4 +96,9 @@ function duplicateWarnings(fields: Map<string, number[]>, used: Map<string, stri
   return [...fields]
     .filter(([name, positions]) => positions.length > 1 && !used.has(name) && name !== '')
     .map(([name, positions]) => importProblem('unused-duplicate-column', where, `the column name "${name}" appears in fields ${positions.map((p) => p + 1).join(' and ')}; it is not used, so this does no harm`));
+}
+
+/** The timestamp column: the one a time-gap episode rule names, else the optional timestamp role. */
+export function timestampColumnOf(roles: ColumnRoles): string | undefined {
+  return roles.episode.kind === 'timeGap' ? roles.episode.column : roles.timestamp;
 }

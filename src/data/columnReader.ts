@@ -54,43 +54,63 @@ export function readColumns(
   text: string, delimiter: Delimiter, decimalMark: DecimalMark, fieldCount: number,
   requests: readonly ColumnRequest[], problems: RowProblems,
 ): TableColumns {
-  const sinks: Sink[] = requests.map((request) => ({
-    request,
-    values: new GrowableColumn(),
-    alternate: request.kind === 'timestamp' ? new GrowableColumn() : undefined,
-    codes: request.kind === 'label' ? new Map() : undefined,
-    oneOrderOnly: request.kind === 'timestamp' ? new Map() : undefined,
-  }));
+  const reader = new RecordReader(requests, decimalMark, fieldCount, problems);
   let record = -2; // incremented before use: the header is record −1
-  let lastContent = -1;
-  const blanks: number[] = [];
   Papa.parse<string[]>(text, {
     delimiter,
     skipEmptyLines: false,
     step: (results) => {
-      if (++record < 0) return;
-      const row = results.data;
-      if (row.length === 1 && row[0].trim() === '' && results.errors.length === 0) {
-        blanks.push(record);
-        pushMissing(sinks);
-        return;
-      }
-      for (const blank of blanks) problems.add(blank, undefined, 'blank-line', `the line is blank; expected ${fieldCount} fields`);
-      blanks.length = 0;
-      lastContent = record;
-      if (results.errors.length > 0) {
-        problems.add(record, undefined, 'quote', quoteProblem(results.errors[0].code));
-        pushMissing(sinks);
-      } else if (row.length !== fieldCount) {
-        const which = row.length > fieldCount ? 'too many' : 'too few';
-        problems.add(record, undefined, 'ragged-row', `${which} fields: found ${row.length}, expected ${fieldCount} as in the header`);
-        pushMissing(sinks);
-      } else {
-        for (const sink of sinks) readCell(sink, row[sink.request.field], record, decimalMark, problems);
-      }
+      if (++record >= 0) reader.accept(record, results.data, results.errors);
     },
   });
-  return collect(sinks, lastContent + 1);
+  return reader.finish();
+}
+
+/** Takes records one at a time into the sinks; blank lines count as bad only when content follows. */
+class RecordReader {
+  private readonly sinks: Sink[];
+  private readonly blanks: number[] = [];
+  private lastContent = -1;
+
+  constructor(
+    requests: readonly ColumnRequest[], private readonly decimalMark: DecimalMark,
+    private readonly fieldCount: number, private readonly problems: RowProblems,
+  ) {
+    this.sinks = requests.map((request) => ({
+      request,
+      values: new GrowableColumn(),
+      alternate: request.kind === 'timestamp' ? new GrowableColumn() : undefined,
+      codes: request.kind === 'label' ? new Map() : undefined,
+      oneOrderOnly: request.kind === 'timestamp' ? new Map() : undefined,
+    }));
+  }
+
+  accept(record: number, row: string[], errors: readonly { code: string }[]): void {
+    const { fieldCount, problems } = this;
+    if (row.length === 1 && row[0].trim() === '' && errors.length === 0) {
+      this.blanks.push(record);
+      pushMissing(this.sinks);
+      return;
+    }
+    for (const blank of this.blanks) problems.add(blank, undefined, 'blank-line', `the line is blank; expected ${fieldCount} fields`);
+    this.blanks.length = 0;
+    this.lastContent = record;
+    if (errors.length > 0) {
+      problems.add(record, undefined, 'quote', quoteProblem(errors[0].code));
+      pushMissing(this.sinks);
+    } else if (row.length !== fieldCount) {
+      const which = row.length > fieldCount ? 'too many' : 'too few';
+      problems.add(record, undefined, 'ragged-row', `${which} fields: found ${row.length}, expected ${fieldCount} as in the header`);
+      pushMissing(this.sinks);
+    } else {
+      for (const sink of this.sinks) readCell(sink, row[sink.request.field], record, this.decimalMark, problems);
+    }
+  }
+
+  /** The columns, cut after the last record with content (blank lines at the end are no rows). */
+  finish(): TableColumns {
+    return collect(this.sinks, this.lastContent + 1);
+  }
 }
 
 function quoteProblem(code: string): string {

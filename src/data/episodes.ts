@@ -5,7 +5,7 @@
  * reset, so the next row starts afresh).
  */
 import type { ColumnRoles } from '../project/schema';
-import { formatCount, formatSeconds } from './reportFormat';
+import { formatCount, formatSeconds, plural } from './reportFormat';
 
 export interface EpisodeAssignment {
   /** Episode of each record, 0-based in file order; −1 for excluded records. */
@@ -77,7 +77,8 @@ function labelRule(column: string, labels: { codes: Float64Array; values: string
       const lines = [`Episodes from column ${column}: ${formatCount(count)} episode${count === 1 ? '' : 's'} (a new episode wherever the value changes).`];
       if (reappearCount > 0) {
         const more = reappearCount > LISTED ? ` and ${reappearCount - LISTED} more` : '';
-        lines.push(`${reappearCount} value${reappearCount === 1 ? '' : 's'} of ${column} reappear after other values and start a new episode there: ${reappearing.join(', ')}${more}.`);
+        const one = reappearCount === 1;
+        lines.push(`${plural(reappearCount, 'value')} of ${column} ${one ? 'reappears' : 'reappear'} after other values and ${one ? 'starts' : 'start'} a new episode there: ${reappearing.join(', ')}${more}.`);
       }
       return lines;
     },

@@ -16,6 +16,7 @@
  * Functions: abs(x), exp(x), log(x) (natural), sqrt(x), min(x, y, …), max(x, y, …), clamp(x, lo, hi).
  */
 import { ExpressionError } from './expressionError';
+import { tokenize, type Token, type TokenType } from './expressionTokens';
 
 export type BinaryOperator = '+' | '-' | '*' | '/' | '^';
 export type FunctionName = 'abs' | 'exp' | 'log' | 'sqrt' | 'min' | 'max' | 'clamp';
@@ -33,127 +34,115 @@ const ARITY: Record<FunctionName, { min: number; max: number }> = {
   min: { min: 2, max: Infinity }, max: { min: 2, max: Infinity }, clamp: { min: 3, max: 3 },
 };
 
-type TokenType = 'number' | 'name' | 'operator' | '(' | ')' | ',' | 'end';
-/** `quoted` marks a backticked name, which is always a column, never a function. */
-interface Token { type: TokenType; text: string; index: number; quoted?: boolean }
-
-const NUMBER = /^(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?/;
-const NAME = /^[A-Za-z_][A-Za-z0-9_]*/;
-
-/** Split the source into tokens; `name` tokens carry the unquoted column or function name. */
-function tokenize(source: string): Token[] {
-  const tokens: Token[] = [];
-  let i = 0;
-  while (i < source.length) {
-    const ch = source[i];
-    if (/\s/.test(ch)) { i++; continue; }
-    const rest = source.slice(i);
-    const number = NUMBER.exec(rest);
-    const name = NAME.exec(rest);
-    if (number) { tokens.push({ type: 'number', text: number[0], index: i }); i += number[0].length; }
-    else if (name) { tokens.push({ type: 'name', text: name[0], index: i }); i += name[0].length; }
-    else if (ch === '`') i = readQuotedName(source, i, tokens);
-    else if ('+-−*/^'.includes(ch)) { tokens.push({ type: 'operator', text: ch === '−' ? '-' : ch, index: i }); i++; }
-    else if (ch === '(' || ch === ')' || ch === ',') { tokens.push({ type: ch, text: ch, index: i }); i++; }
-    else throw new ExpressionError(`unexpected character "${ch}"; expected a number, a column name, an operator (+ - * / ^) or a parenthesis`, source, i);
-  }
-  tokens.push({ type: 'end', text: '', index: source.length });
-  return tokens;
-}
-
-function readQuotedName(source: string, start: number, tokens: Token[]): number {
-  let name = '';
-  let i = start + 1;
-  for (;;) {
-    if (i >= source.length) throw new ExpressionError('this quoted column name is not closed; expected a closing backtick `', source, start);
-    if (source[i] === '`') {
-      if (source[i + 1] !== '`') break;
-      name += '`';
-      i += 2;
-    } else name += source[i++];
-  }
-  if (name.trim() === '') throw new ExpressionError('empty column name between backticks', source, start);
-  tokens.push({ type: 'name', text: name, index: start, quoted: true });
-  return i + 1;
-}
-
 /** Parse an expression; throws ExpressionError pointing at the offending character. */
 export function parseExpression(source: string): ExpressionNode {
-  const tokens = tokenize(source);
-  let position = 0;
-  const peek = (): Token => tokens[position];
-  const next = (): Token => tokens[position++];
-  const isOperator = (...ops: string[]): boolean => peek().type === 'operator' && ops.includes(peek().text);
+  if (source.trim() === '') throw new ExpressionError('the expression is empty; expected a formula such as -abs(level - 2)', source, 0);
+  const parser = new Parser(source);
+  const tree = parser.expression();
+  parser.expectEnd();
+  return tree;
+}
 
-  function expression(): ExpressionNode {
-    let left = term();
-    while (isOperator('+', '-')) {
-      const op = next();
-      left = { kind: 'binary', operator: op.text as BinaryOperator, left, right: term(), index: left.index };
-    }
+/** One method per grammar rule (recursive descent: Aho, Lam, Sethi & Ullman, "Compilers", §4.4). */
+class Parser {
+  private readonly tokens: Token[];
+  private position = 0;
+
+  constructor(private readonly source: string) {
+    this.tokens = tokenize(source);
+  }
+
+  expression(): ExpressionNode {
+    let left = this.term();
+    while (this.isOperator('+', '-')) left = this.binary(left, () => this.term());
     return left;
   }
-  function term(): ExpressionNode {
-    let left = unary();
-    while (isOperator('*', '/')) {
-      const op = next();
-      left = { kind: 'binary', operator: op.text as BinaryOperator, left, right: unary(), index: left.index };
-    }
+
+  expectEnd(): void {
+    const token = this.peek();
+    if (token.type !== 'end') throw this.error(`${describe(token)}; expected an operator or the end of the expression`, token);
+  }
+
+  private term(): ExpressionNode {
+    let left = this.unary();
+    while (this.isOperator('*', '/')) left = this.binary(left, () => this.unary());
     return left;
   }
-  function unary(): ExpressionNode {
-    if (isOperator('-', '+')) {
-      const op = next();
-      const operand = unary();
-      return op.text === '-' ? { kind: 'negate', operand, index: op.index } : operand;
-    }
-    return power();
+
+  private unary(): ExpressionNode {
+    if (!this.isOperator('-', '+')) return this.power();
+    const op = this.next();
+    const operand = this.unary();
+    return op.text === '-' ? { kind: 'negate', operand, index: op.index } : operand;
   }
-  function power(): ExpressionNode {
-    const base = primary();
-    if (!isOperator('^')) return base;
-    next();
-    return { kind: 'binary', operator: '^', left: base, right: unary(), index: base.index };
+
+  private power(): ExpressionNode {
+    const base = this.primary();
+    // The exponent is a unary: right-associative (2^3^2 = 2^9) and allows 2^-1.
+    return this.isOperator('^') ? this.binary(base, () => this.unary()) : base;
   }
-  function primary(): ExpressionNode {
-    const token = next();
+
+  private primary(): ExpressionNode {
+    const token = this.next();
     if (token.type === 'number') return { kind: 'number', value: Number(token.text), index: token.index };
     if (token.type === '(') {
-      const inner = expression();
-      expect(')', 'a closing parenthesis ")"');
+      const inner = this.expression();
+      this.expect(')', 'a closing parenthesis ")"');
       return inner;
     }
     if (token.type === 'name') {
-      if (!token.quoted && peek().type === '(') return call(token);
+      if (!token.quoted && this.peek().type === '(') return this.call(token);
       return { kind: 'column', name: token.text, index: token.index };
     }
-    throw new ExpressionError(`${describe(token)}; expected a number, a column name or "("`, source, token.index);
+    throw this.error(`${describe(token)}; expected a number, a column name or "("`, token);
   }
-  function call(nameToken: Token): ExpressionNode {
+
+  private call(nameToken: Token): ExpressionNode {
     const name = nameToken.text;
     if (!Object.hasOwn(ARITY, name)) { // not `in`: that would accept "constructor"
-      throw new ExpressionError(`unknown function "${name}"; expected one of ${Object.keys(ARITY).join(', ')}`, source, nameToken.index);
+      throw this.error(`unknown function "${name}"; expected one of ${Object.keys(ARITY).join(', ')}`, nameToken);
     }
-    next(); // "("
-    const args = [expression()];
-    while (peek().type === ',') { next(); args.push(expression()); }
-    expect(')', 'a closing parenthesis ")" or "," before the next argument');
+    this.next(); // "("
+    const args = [this.expression()];
+    while (this.peek().type === ',') {
+      this.next();
+      args.push(this.expression());
+    }
+    this.expect(')', 'a closing parenthesis ")" or "," before the next argument');
     const { min, max } = ARITY[name as FunctionName];
     if (args.length < min || args.length > max) {
-      const wanted = min === max ? `${min}` : `at least ${min}`;
-      throw new ExpressionError(`${name} takes ${wanted} argument${min === 1 && max === 1 ? '' : 's'}, got ${args.length}`, source, nameToken.index);
+      const wanted = min === max ? `${min} argument${min === 1 ? '' : 's'}` : `at least ${min} arguments`;
+      throw this.error(`${name} takes ${wanted}, got ${args.length}`, nameToken);
     }
     return { kind: 'call', name: name as FunctionName, args, index: nameToken.index };
   }
-  function expect(type: TokenType, what: string): void {
-    const token = next();
-    if (token.type !== type) throw new ExpressionError(`${describe(token)}; expected ${what}`, source, token.index);
+
+  private binary(left: ExpressionNode, right: () => ExpressionNode): ExpressionNode {
+    const operator = this.next().text as BinaryOperator;
+    return { kind: 'binary', operator, left, right: right(), index: left.index };
   }
 
-  if (source.trim() === '') throw new ExpressionError('the expression is empty; expected a formula such as -abs(level - 2)', source, 0);
-  const tree = expression();
-  if (peek().type !== 'end') throw new ExpressionError(`${describe(peek())}; expected an operator or the end of the expression`, source, peek().index);
-  return tree;
+  private expect(type: TokenType, what: string): void {
+    const token = this.next();
+    if (token.type !== type) throw this.error(`${describe(token)}; expected ${what}`, token);
+  }
+
+  private isOperator(...ops: string[]): boolean {
+    const token = this.peek();
+    return token.type === 'operator' && ops.includes(token.text);
+  }
+
+  private peek(): Token {
+    return this.tokens[this.position];
+  }
+
+  private next(): Token {
+    return this.tokens[this.position++];
+  }
+
+  private error(reason: string, token: Token): ExpressionError {
+    return new ExpressionError(reason, this.source, token.index);
+  }
 }
 
 function describe(token: Token): string {

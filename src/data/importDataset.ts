@@ -14,7 +14,7 @@ import { importProblem, type ImportProblem } from './importProblem';
 import type { TransitionSet } from './transitions';
 import { sourceText } from './sourceText';
 import { resolveDialect, type Dialect } from './csvDialect';
-import { planColumns, type ColumnPlan } from './columnPlan';
+import { planColumns, timestampColumnOf, type ColumnPlan } from './columnPlan';
 import { readColumns, type TableColumns } from './columnReader';
 import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
@@ -48,6 +48,9 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   if (text.trim() === '') return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
   const dialect = resolveDialect(text, csv.delimiter, csv.decimalMark);
   const header = headerOf(text, dialect);
+  if (header.every((name) => name === '')) {
+    return failure(importProblem('blank-header', `${fileName}, line 1`, 'the first line is blank; expected the header: column names separated by the delimiter'));
+  }
   const { plan, problems: namingProblems } = planColumns(header, columns, fileName);
   if (!plan) return failure(...namingProblems);
   const problems = new RowProblems();
@@ -68,8 +71,8 @@ function headerOf(text: string, dialect: Dialect): string[] {
 }
 
 function settleTimestampColumn(columns: ColumnRoles, table: TableColumns, problems: RowProblems): (SettledTimestamps & { column: string }) | undefined {
-  if (columns.episode.kind !== 'timeGap') return undefined;
-  const column = columns.episode.column;
+  const column = timestampColumnOf(columns);
+  if (column === undefined) return undefined;
   return { column, ...settleTimestamps(column, table.timestamps.get(column)!, problems, lineOf) };
 }
 

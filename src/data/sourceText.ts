@@ -7,6 +7,9 @@ export type TextReading = { ok: true; text: string } | { ok: false; reason: stri
 
 export function sourceText(source: string | Uint8Array): TextReading {
   if (typeof source === 'string') return { ok: true, text: stripByteOrderMark(source) };
+  if ((source[0] === 0xff && source[1] === 0xfe) || (source[0] === 0xfe && source[1] === 0xff)) {
+    return { ok: false, reason: 'the file is UTF-16 text (it starts with a UTF-16 byte-order mark); save it as UTF-8 CSV and import again' };
+  }
   try {
     const text = new TextDecoder('utf-8', { fatal: true, ignoreBOM: false }).decode(source);
     return { ok: true, text: stripByteOrderMark(text) };

@@ -115,7 +115,7 @@ function describeHoles(c: StepColumns): string[] {
     if (before >= 0 && r > before + 1 && c.episodeOf[r] === c.episodeOf[before]) {
       count++;
       const first = c.lineOf(before + 1), last = c.lineOf(r - 1);
-      if (holes.length < LISTED) holes.push(first === last ? `line ${first}` : `lines ${first}–${last}`);
+      if (holes.length < LISTED) holes.push(first === last ? `${first}` : `${first}–${last}`);
     }
     before = r;
   }
@@ -123,6 +123,7 @@ function describeHoles(c: StepColumns): string[] {
   const more = count > LISTED ? ` and ${formatCount(count - LISTED)} more` : '';
   const effect = c.nextStates
     ? 'each excluded row only loses its own transition'
-    : 'the rows on either side are not joined into a transition, so each such episode is split there';
-  return [`${plural(count, 'run')} of excluded rows inside an episode (${holes.join(', ')}${more}): ${effect}.`];
+    : 'the rows on either side are not joined into a transition; the episode is split there into separate chains of steps but keeps its one start state';
+  const lines = count === 1 && !holes[0].includes('–') ? 'line' : 'lines';
+  return [`${plural(count, 'run')} of excluded rows inside an episode (${lines} ${holes.join(', ')}${more}): ${effect}.`];
 }

@@ -2,6 +2,7 @@
  * The evaluation as plain JSON (typed arrays become number arrays), for `--json` output and files.
  * Field names here are a published interface of the CLI: add fields, do not rename them.
  */
+import type { ImportedDataset } from '../data/importDataset';
 import type { Evaluation } from './estimates';
 
 export function evaluationToJson(evaluation: Evaluation): Record<string, unknown> {
@@ -33,5 +34,23 @@ export function evaluationToJson(evaluation: Evaluation): Record<string, unknown
     })),
     warnings: evaluation.warnings,
     cautions: evaluation.cautions,
+  };
+}
+
+/** The import's account for `--json`: counts, the rules that made episodes, and every excluded row. */
+export function importToJson(imported: ImportedDataset): Record<string, unknown> {
+  const s = imported.summary;
+  return {
+    rows: s.rowCount,
+    usedRows: s.usedRowCount,
+    excludedRows: s.excludedRowCount,
+    transitions: s.transitionCount,
+    episodes: s.episodeCount,
+    samplingPeriodSeconds: s.samplingPeriodSeconds,
+    delimiter: s.delimiter,
+    decimalMark: s.decimalMark,
+    dateOrder: s.dateOrder,
+    report: imported.episodeReport,
+    excluded: imported.excluded,
   };
 }

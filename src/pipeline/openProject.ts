@@ -53,8 +53,5 @@ export function importProjectData(project: ProjectDocument, bytes: Uint8Array): 
       message: `the data file has changed since the project was saved (rows then: ${rowsThen}, now: ${imported.value.rowCount.toLocaleString('en-US')}); results will differ from earlier runs`,
     });
   }
-  if (imported.value.excluded.length > 0) {
-    warnings.push({ where: project.data.path, message: `${imported.value.excluded.length} row(s) were excluded from the import (see the import report)` });
-  }
   return success({ project, dataset: imported.value.transitions, imported: imported.value, fingerprint, warnings });
 }

@@ -36,6 +36,9 @@ export function checkProjectConsistency(doc: ProjectDocument, fileName: string):
   if (doc.columns.nextState.kind === 'columns' && doc.columns.nextState.columns.length !== stateCount) {
     problems.push({ where: at('columns.nextState.columns'), message: `expected ${stateCount} next-state column(s), one per state column` });
   }
+  if (doc.columns.timestamp !== undefined && doc.columns.episode.kind === 'timeGap' && doc.columns.timestamp !== doc.columns.episode.column) {
+    problems.push({ where: at('columns.timestamp'), message: `"${doc.columns.timestamp}" differs from the time-gap episode column "${doc.columns.episode.column}"; use one timestamp column` });
+  }
   if (doc.startStates.kind === 'given') {
     doc.startStates.states.forEach((s, i) => {
       if (s.length !== stateCount) problems.push({ where: at(`startStates.states[${i}]`), message: `expected ${stateCount} value(s), one per state column` });

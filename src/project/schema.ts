@@ -66,6 +66,8 @@ export const columnRolesSchema = z.object({
   episode: episodeSchema.default({ kind: 'single' }),
   /** Column that is 1 (or true) on rows whose next state is terminal. */
   terminal: columnName.optional(),
+  /** Timestamp column, for the sampling period and time checks (a timeGap episode rule names its own). */
+  timestamp: columnName.optional(),
 });
 
 export const actuatorBoundsSchema = z.object({

@@ -37,8 +37,13 @@ export type ExportKind = 'png' | 'svg' | 'csv';
 
 /** Commands the application menu sends to the renderer. */
 export type MenuCommand =
-  | 'new-project' | 'open-project' | 'save-project' | 'save-project-as' | 'close-project'
+  | 'new-project' | 'open-project' | 'open-recent-project' | 'save-project' | 'save-project-as' | 'close-project'
   | 'undo' | 'redo' | 'toggle-theme' | 'run-evaluation' | 'cancel-evaluation';
+
+/** Sent with 'open-recent-project': the recent entry the user picked (pass it to openRecentProject). */
+export interface MenuCommandDetail {
+  path: string;
+}
 
 export interface AppApi {
   readonly host: 'electron' | 'browser';
@@ -73,7 +78,7 @@ export interface AppApi {
   /** Tell the window its project name and whether it has unsaved changes (title, close prompt). */
   setDocumentState(state: { name: string; dirty: boolean }): void;
   /** Subscribe to menu commands; returns the unsubscribe function. */
-  onMenuCommand(listener: (command: MenuCommand) => void): () => void;
+  onMenuCommand(listener: (command: MenuCommand, detail?: MenuCommandDetail) => void): () => void;
 }
 
 declare global {

@@ -76,3 +76,18 @@ describe('evaluate command', () => {
     expect(missing.stderr).toMatch(/level_upper_m/); // the closest header is suggested
   });
 });
+
+describe('evaluate command on a historian-style export', () => {
+  // Expected counts worked out from the export script: 12 runs × 500 rows; each of the 5 corrupt
+  // rows removes the step into it and the step out of it: 12 × 499 − 2 × 5 = 5,978 transitions.
+  it('imports semicolons, decimal commas, time-gap episodes and an expression, listing every excluded row', async () => {
+    const { code, stdout } = await run(['evaluate', join('sample-projects', 'heating-historian', 'heating-historian.spcritic'), '--json']);
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout);
+    expect(json.import).toMatchObject({ rows: 6000, excludedRows: 5, transitions: 5978, episodes: 12, delimiter: ';', decimalMark: ',', samplingPeriodSeconds: 60 });
+    expect(json.import.excluded.map((r: { line: number; column: string }) => [r.line, r.column])).toEqual([
+      [214, 'zone_temp_c'], [1377, 'heating_valve_pct'], [2950, 'outdoor_temp_c'], [4108, 'zone_temp_c'], [5530, 'heating_valve_pct'],
+    ]);
+    expect(Number.isFinite(json.policies[0].policyValue)).toBe(true);
+  });
+});

@@ -66,7 +66,7 @@ describe('episodes', () => {
     expect(Array.from(t.episode)).toEqual([0, 1, 1, 2]);
     expect(Array.from(t.startStates)).toEqual([1, 3, 6]);
     expect(episodeReport).toContain('Episodes from column run: 3 episodes (a new episode wherever the value changes).');
-    expect(episodeReport).toContain('1 value of run reappear after other values and start a new episode there: "A" at line 7.');
+    expect(episodeReport).toContain('1 value of run reappears after other values and starts a new episode there: "A" at line 7.');
   });
 
   const timed = (times: number[]): string => table(times.length, ',t', (i) => `,${times[i - 1]}`);
@@ -120,7 +120,7 @@ describe('excluding rows never joins their neighbours', () => {
     expect(Array.from(t.nextStates)).toEqual([2, 6, 8]);
     expect(t.episodeCount).toBe(2);
     expect(Array.from(t.startStates)).toEqual([1, 7]);
-    expect(episodeReport).toContain('1 run of excluded rows inside an episode (lines 4–5): the rows on either side are not joined into a transition, so each such episode is split there.');
+    expect(episodeReport).toContain('1 run of excluded rows inside an episode (lines 4–5): the rows on either side are not joined into a transition; the episode is split there into separate chains of steps but keeps its one start state.');
     expect(summary.excludedRowCount).toBe(2);
     expect(summary.excludedFraction).toBe(2 / 8);
   });

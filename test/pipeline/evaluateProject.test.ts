@@ -63,6 +63,12 @@ describe('evaluateProject on the tank-levels sample', () => {
     expect(opened.warnings[0].message).toMatch(/changed since the project was saved \(rows then: 12,345, now: 20,000\)/);
   });
 
+  it('reads the sampling period from a timestamp column named apart from the episode rule', async () => {
+    // The tank simulator logs every 5 s (sample-projects/tank-levels/simulate.ts).
+    const opened = await openTankProject((doc) => { (doc.columns as Record<string, unknown>).timestamp = 'time_s'; });
+    expect(opened.imported.summary.samplingPeriodSeconds).toBe(5);
+  });
+
   it('names a data file that cannot be read', async () => {
     const doc = JSON.parse(await readFile(join(folder, 'tank-levels.spcritic'), 'utf8'));
     doc.data.path = 'moved-away.csv';

@@ -1,0 +1,84 @@
+/**
+ * One bootstrap replicate of linear fitted Q-evaluation, from per-episode sums and the resample's
+ * episode multiplicities: the resample's Bellman statistics (O(e·d²), episodeBellmanSums.ts), then
+ * the same solve the full-data fit runs (../fqe/linearFqe.ts) — Cholesky of G + λD, the FQE
+ * iteration to the same tolerance, or the LSTD-Q fixed point — and J = ξ̄ᵀw over the resample's
+ * start states. Feature map, ridge λ, discount and quadrature are those of the full-data fit: the
+ * bootstrap is conditional on them (the feature standardiser is not refitted per resample).
+ *
+ * The iteration starts from the full-data weights (initialWeights): it then needs only the steps
+ * from there, and stops by the same relative-change tolerance, so the answer differs from a cold
+ * start by at most the tolerance.
+ */
+import { dot } from '../linalg/dense';
+import { FqeDataError } from '../fqe/fqeErrors';
+import { runFqeIteration, type FqeStatus } from '../fqe/fqeIteration';
+import { fixedPointWeights, iterationMatrix, ridgeGram, ridgeGramFactor } from '../fqe/ridgeSystem';
+import { spectralRadiusBound } from '../fqe/spectralRadiusBound';
+import type { BellmanStatistics } from '../fqe/bellmanStatistics';
+import { resampleBellmanStatistics, type EpisodeBellmanSums } from './episodeBellmanSums';
+import { meanStartFeatures } from './startFeatures';
+
+/**
+ * iteration: the iterate at the tolerance, or — as the pipeline reports it — the fixed point when
+ * the iteration diverges; fixedPoint: always the LSTD-Q fixed point.
+ */
+export type ReplicateSolver = 'iteration' | 'fixedPoint';
+
+export interface LinearReplicateSetup {
+  readonly sums: EpisodeBellmanSums;
+  /** ξ(s0) per start state, count×d (startFeatures.ts). */
+  readonly startFeatures: Float64Array;
+  /** True when start state k is episode k's first state, so it is resampled with its episode. */
+  readonly startsFollowEpisodes: boolean;
+  readonly ridge: number;
+  readonly constantIndex: number | null;
+  readonly discount: number;
+  readonly solver: ReplicateSolver;
+  readonly tolerance: number;
+  readonly maxIterations: number;
+  readonly initialWeights: Float64Array; // d
+}
+
+export type ReplicateStatus = FqeStatus | 'singular';
+
+export interface LinearReplicate {
+  /** J of the resample (reward sense); null when no solution exists (status says why). */
+  readonly policyValue: number | null;
+  readonly weights: Float64Array | null;
+  readonly status: ReplicateStatus;
+}
+
+export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: ArrayLike<number>, scratch?: Float64Array): LinearReplicate {
+  const stats = resampleBellmanStatistics(setup.sums, multiplicities, scratch);
+  const xiBar = meanStartFeatures(setup.startFeatures, setup.sums.dim, setup.startsFollowEpisodes ? multiplicities : undefined);
+  return solveReplicate(setup, stats, xiBar);
+}
+
+/** The solve on given statistics (also used for the full data and for a discount sweep). */
+export function solveReplicate(setup: Omit<LinearReplicateSetup, 'sums' | 'startFeatures' | 'startsFollowEpisodes'>, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
+  const d = stats.dim, a = ridgeGram(stats, setup.ridge, setup.constantIndex);
+  let factor: Float64Array;
+  try {
+    factor = ridgeGramFactor(a, d, setup.ridge);
+  } catch (error) {
+    if (error instanceof FqeDataError) return { policyValue: null, weights: null, status: 'singular' };
+    throw error;
+  }
+  let status: ReplicateStatus = 'converged', weights: Float64Array | null = null;
+  if (setup.solver === 'iteration') {
+    const outcome = runFqeIteration({
+      stats, factor, discount: setup.discount, tolerance: setup.tolerance, maxIterations: setup.maxIterations,
+      initialWeights: setup.initialWeights, startFeatures: xiBar,
+      spectralRadiusBound: spectralRadiusBound(iterationMatrix(stats, factor, setup.discount), d),
+    });
+    status = outcome.status;
+    weights = outcome.weights;
+  }
+  if (!weights) {
+    const fixed = fixedPointWeights(stats, a, setup.discount);
+    if ('failure' in fixed) return { policyValue: null, weights: null, status: 'singular' };
+    weights = fixed.weights;
+  }
+  return { policyValue: dot(xiBar, weights), weights, status };
+}

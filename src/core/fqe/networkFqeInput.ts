@@ -1,0 +1,21 @@
+/** Validation of the inputs of network FQE; messages name the input and its value. */
+import { FqeOptionsError } from './fqeErrors';
+import type { NetworkFqeInput } from './networkFqe';
+import { checkNetworkSettings } from './networkSettings';
+
+export function checkNetworkFqeInput(input: NetworkFqeInput): void {
+  const { data, policy } = input;
+  if (!(data.count >= 1)) throw new FqeOptionsError('data: the transition set is empty');
+  if (policy.stateDim !== data.stateDim || policy.actionDim !== data.actionDim) {
+    throw new FqeOptionsError(`policy: has ${policy.stateDim} states and ${policy.actionDim} actions, the data ${data.stateDim} and ${data.actionDim}`);
+  }
+  // γ = 1 has no finite value bound and no fixed output scale; the project schema also requires γ < 1.
+  if (!(input.discount >= 0 && input.discount < 1)) throw new FqeOptionsError(`discount: expected a number from 0 up to (not including) 1, got ${input.discount}`);
+  if (!Number.isInteger(input.quadratureNodes) || input.quadratureNodes < 1) {
+    throw new FqeOptionsError(`quadratureNodes: expected a whole number ≥ 1, got ${input.quadratureNodes}`);
+  }
+  if (!Number.isInteger(input.seed) || input.seed < 0 || input.seed > 2 ** 32 - 1) {
+    throw new FqeOptionsError(`seed: expected a whole number from 0 to 2^32 − 1, got ${input.seed}`);
+  }
+  checkNetworkSettings(input.settings);
+}

@@ -1,0 +1,55 @@
+/**
+ * What every window's app service shares: the file system, the file store, the allow-list, the
+ * recent list and the recovery store over one state folder, and the dialogs. The Electron main
+ * process makes one context per run; the e2e server makes one per launch.
+ */
+import { randomBytes } from 'node:crypto';
+import type { Dialogs } from './dialogs';
+import { createFileStore, type FileStore } from './fileStore';
+import { nodeFileSystem, type FileSystem } from './fileSystem';
+import { createPathAccess, type PathAccess } from './pathAccess';
+import { flavourOf, type PathFlavour } from './pathIdentity';
+import { createRecentProjects, type RecentProjects } from './recentProjects';
+import { createRecoveryStore, type RecoveryStore } from './recoveryStore';
+
+export interface AppContext {
+  fs: FileSystem;
+  store: FileStore;
+  access: PathAccess;
+  recent: RecentProjects;
+  recovery: RecoveryStore;
+  dialogs: Dialogs;
+  flavour: PathFlavour;
+  /** Problems the user did not cause and need not act on now (a replaced state file); logged. */
+  report: (message: string) => void;
+  now: () => Date;
+}
+
+export interface AppContextOptions {
+  stateFolder: string;
+  dialogs: Dialogs;
+  fs?: FileSystem;
+  platform?: NodeJS.Platform;
+  runId?: string;
+  report?: (message: string) => void;
+  now?: () => Date;
+}
+
+export function createAppContext(options: AppContextOptions): AppContext {
+  const fs = options.fs ?? nodeFileSystem;
+  const store = createFileStore(fs);
+  const flavour = flavourOf(options.platform ?? process.platform);
+  const report = options.report ?? ((message: string) => console.warn(message));
+  const runId = options.runId ?? `${Date.now().toString(36)}-${randomBytes(4).toString('hex')}`;
+  return {
+    fs,
+    store,
+    access: createPathAccess(flavour),
+    recent: createRecentProjects({ fs, store, stateFolder: options.stateFolder, flavour, report }),
+    recovery: createRecoveryStore({ fs, store, stateFolder: options.stateFolder, runId, report }),
+    dialogs: options.dialogs,
+    flavour,
+    report,
+    now: options.now ?? (() => new Date()),
+  };
+}

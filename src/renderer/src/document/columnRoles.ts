@@ -1,0 +1,137 @@
+/**
+ * The role each CSV column plays in the project, read from and written to the document's
+ * `columns` section. Giving a column a role keeps the rest of the document in shape: a new state
+ * adds a zero gain entry to every candidate (and an empty next-state column), a new action adds an
+ * offset, a gain row, a standard deviation and open bounds; removing one removes those entries.
+ * Single roles (reward, episode, timestamp, terminal) move from their old column to the new one.
+ */
+import type { CandidateSpec, ColumnRoles, ProjectDocument } from '../../../project/schema';
+
+export type ColumnRole =
+  | 'unused' | 'state' | 'action' | 'reward' | 'cost' | 'episode' | 'timestamp' | 'terminal'
+  /** The next-state column of the named state column. */
+  | `next:${string}`;
+
+export function roleOf(columns: ColumnRoles, column: string): ColumnRole {
+  if (columns.states.some((s) => s.column === column)) return 'state';
+  if (columns.actions.some((a) => a.column === column)) return 'action';
+  if (columns.reward.kind === 'column' && columns.reward.column === column) return columns.reward.sense;
+  if (columns.episode.kind === 'column' && columns.episode.column === column) return 'episode';
+  if (columns.episode.kind === 'timeGap' && columns.episode.column === column) return 'timestamp';
+  if (columns.terminal === column) return 'terminal';
+  if (columns.nextState.kind === 'columns') {
+    const index = columns.nextState.columns.indexOf(column);
+    if (index >= 0 && columns.states[index]) return `next:${columns.states[index].column}`;
+  }
+  return 'unused';
+}
+
+/** The document with `column` in `role` (header: the CSV's column names, for ordering). */
+export function assignRole(doc: ProjectDocument, header: readonly string[], column: string, role: ColumnRole): ProjectDocument {
+  let next = releaseColumn(doc, column);
+  if (role === 'state') next = addState(next, header, column);
+  else if (role === 'action') next = addAction(next, header, column);
+  else if (role === 'reward' || role === 'cost') next = withColumns(next, { reward: { kind: 'column', column, sense: role } });
+  else if (role === 'episode') next = withColumns(next, { episode: { kind: 'column', column } });
+  else if (role === 'timestamp') next = withColumns(next, { episode: { kind: 'timeGap', column } });
+  else if (role === 'terminal') next = withColumns(next, { terminal: column });
+  else if (role.startsWith('next:')) next = setNextState(next, role.slice('next:'.length), column);
+  return next;
+}
+
+export function setUnit(doc: ProjectDocument, column: string, unit: string): ProjectDocument {
+  const relabel = (s: { column: string; unit: string }) => (s.column === column ? { ...s, unit } : s);
+  return withColumns(doc, { states: doc.columns.states.map(relabel), actions: doc.columns.actions.map(relabel) });
+}
+
+function withColumns(doc: ProjectDocument, change: Partial<ColumnRoles>): ProjectDocument {
+  return { ...doc, columns: { ...doc.columns, ...change } };
+}
+
+function mapCandidates(doc: ProjectDocument, f: (c: CandidateSpec) => CandidateSpec): ProjectDocument {
+  return { ...doc, candidates: doc.candidates.map(f) };
+}
+
+/** The document with `column` in no role at all. */
+function releaseColumn(doc: ProjectDocument, column: string): ProjectDocument {
+  const c = doc.columns;
+  let next = doc;
+  const stateIndex = c.states.findIndex((s) => s.column === column);
+  if (stateIndex >= 0) next = removeState(next, stateIndex);
+  const actionIndex = c.actions.findIndex((a) => a.column === column);
+  if (actionIndex >= 0) next = removeAction(next, actionIndex);
+  const n = next.columns;
+  if (n.reward.kind === 'column' && n.reward.column === column) next = withColumns(next, { reward: { ...n.reward, column: '' } });
+  if (n.episode.kind !== 'single' && n.episode.column === column) next = withColumns(next, { episode: { kind: 'single' } });
+  if (n.terminal === column) next = withColumns(next, { terminal: undefined });
+  if (n.nextState.kind === 'columns' && n.nextState.columns.includes(column)) {
+    next = withNextColumns(next, n.nextState.columns.map((x) => (x === column ? '' : x)));
+  }
+  return next;
+}
+
+/** Where a new signal goes among existing ones: after those that come earlier in the header. */
+function insertionIndex(existing: readonly { column: string }[], header: readonly string[], column: string): number {
+  const position = header.indexOf(column);
+  return existing.filter((s) => header.indexOf(s.column) < position).length;
+}
+
+function inserted<T>(list: readonly T[], index: number, item: T): T[] {
+  return [...list.slice(0, index), item, ...list.slice(index)];
+}
+
+function removed<T>(list: readonly T[], index: number): T[] {
+  return list.filter((_, i) => i !== index);
+}
+
+function addState(doc: ProjectDocument, header: readonly string[], column: string): ProjectDocument {
+  const at = insertionIndex(doc.columns.states, header, column);
+  let next = withColumns(doc, { states: inserted(doc.columns.states, at, { column, unit: '' }) });
+  if (doc.columns.nextState.kind === 'columns') next = withNextColumns(next, inserted(doc.columns.nextState.columns, at, ''));
+  return mapCandidates(next, (c) => ({ ...c, gain: c.gain.map((row) => inserted(row, at, 0)) }));
+}
+
+function removeState(doc: ProjectDocument, index: number): ProjectDocument {
+  const name = doc.columns.states[index].column;
+  let next = withColumns(doc, { states: removed(doc.columns.states, index) });
+  if (doc.columns.nextState.kind === 'columns') next = withNextColumns(next, removed(doc.columns.nextState.columns, index));
+  if (doc.surface && (doc.surface.xState === name || doc.surface.yState === name)) next = { ...next, surface: undefined };
+  return mapCandidates(next, (c) => ({ ...c, gain: c.gain.map((row) => removed(row, index)) }));
+}
+
+function addAction(doc: ProjectDocument, header: readonly string[], column: string): ProjectDocument {
+  const at = insertionIndex(doc.columns.actions, header, column);
+  const ds = doc.columns.states.length;
+  const next = withColumns(doc, { actions: inserted(doc.columns.actions, at, { column, unit: '' }) });
+  return mapCandidates(next, (c) => ({
+    ...c,
+    offset: inserted(c.offset, at, 0),
+    gain: inserted(c.gain, at, new Array<number>(ds).fill(0)),
+    std: inserted(c.std, at, 1),
+    bounds: c.bounds && { ...c.bounds, lo: inserted(c.bounds.lo, at, null), hi: inserted(c.bounds.hi, at, null) },
+  }));
+}
+
+function removeAction(doc: ProjectDocument, index: number): ProjectDocument {
+  const next = withColumns(doc, { actions: removed(doc.columns.actions, index) });
+  return mapCandidates(next, (c) => ({
+    ...c,
+    offset: removed(c.offset, index),
+    gain: removed(c.gain, index),
+    std: removed(c.std, index),
+    bounds: c.bounds && { ...c.bounds, lo: removed(c.bounds.lo, index), hi: removed(c.bounds.hi, index) },
+  }));
+}
+
+/** Next-state columns aligned with the states ('' where none is given yet); all empty → next row. */
+function withNextColumns(doc: ProjectDocument, columns: string[]): ProjectDocument {
+  return withColumns(doc, { nextState: columns.every((x) => x === '') ? { kind: 'nextRow' } : { kind: 'columns', columns } });
+}
+
+function setNextState(doc: ProjectDocument, stateColumn: string, column: string): ProjectDocument {
+  const index = doc.columns.states.findIndex((s) => s.column === stateColumn);
+  if (index < 0) return doc;
+  const current = doc.columns.nextState.kind === 'columns' ? [...doc.columns.nextState.columns] : doc.columns.states.map(() => '');
+  current[index] = column;
+  return withNextColumns(doc, current);
+}

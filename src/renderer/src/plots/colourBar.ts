@@ -1,0 +1,121 @@
+/**
+ * The colour bar of the heat map, drawn by us: a Chart.js layout box on the right of the plot
+ * area, as tall as the plot area, holding the colour ramp, nice ticks (Heckbert 1990) with labels,
+ * and the value label with its units written along the bar. Being a layout box, Chart.js makes room
+ * for it before it sizes the axes, so nothing overlaps at any font scale.
+ */
+import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
+import type { ColourScale } from './colourScale';
+import { niceTicks, type TickSet } from './niceTicks';
+import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
+import { paintRaster } from './raster';
+import { colourBarRaster } from './surfaceRaster';
+import { formatTick } from './tickFormat';
+
+/** Sizes in CSS px, times look.scale. */
+export const COLOUR_BAR_DEFAULTS = {
+  gapPx: 16, // plot area → bar
+  barWidthPx: 16,
+  tickLengthPx: 5,
+  labelGapPx: 4,
+  titleGapPx: 10,
+  /** About one tick per this many px of bar height. */
+  tickSpacingPx: 55,
+} as const;
+
+export interface ColourBarSpec {
+  readonly scale: ColourScale;
+  /** Value label with units, e.g. "V^π (cost, kWh)". */
+  readonly label: string;
+  readonly look: PlotLook;
+}
+
+/** Ticks for a bar heightPx tall: between 2 and 11, about one per tickSpacingPx. */
+export function colourBarTicks(scale: ColourScale, heightPx: number, look: PlotLook): TickSet {
+  const target = Math.min(11, Math.max(2, Math.round(heightPx / (COLOUR_BAR_DEFAULTS.tickSpacingPx * look.scale))));
+  return niceTicks(scale.min, scale.max, target);
+}
+
+class ColourBarBox implements LayoutItem {
+  readonly position = 'right' as const;
+  readonly weight = 10;
+  readonly fullSize = false;
+  width = 0;
+  height = 0;
+  left = 0;
+  top = 0;
+  right = 0;
+  bottom = 0;
+  private ticks: TickSet | null = null;
+  private readonly raster;
+
+  constructor(private readonly chart: Chart, private readonly spec: ColourBarSpec) {
+    this.raster = colourBarRaster(spec.scale);
+  }
+
+  isHorizontal(): boolean {
+    return false;
+  }
+
+  update(_maxWidth: number, maxHeight: number): void {
+    const { look } = this.spec, s = look.scale, ctx = this.chart.ctx, d = COLOUR_BAR_DEFAULTS;
+    this.ticks = colourBarTicks(this.spec.scale, maxHeight, look);
+    ctx.save();
+    ctx.font = fontString(look, PLOT_FONTS.tickPx);
+    const labelWidth = Math.max(...this.ticks.values.map((v) => ctx.measureText(this.tickText(v)).width), 0);
+    ctx.restore();
+    this.width = (d.gapPx + d.barWidthPx + d.tickLengthPx + d.labelGapPx + d.titleGapPx) * s + labelWidth + PLOT_FONTS.axisTitlePx * s * 1.3;
+    this.height = maxHeight;
+  }
+
+  draw(): void {
+    const { look, scale, label } = this.spec, s = look.scale, ctx = this.chart.ctx, d = COLOUR_BAR_DEFAULTS;
+    const x = this.left + d.gapPx * s, barWidth = d.barWidthPx * s, top = this.top, height = this.bottom - this.top;
+    paintRaster(ctx, this.raster, { x, y: top, width: barWidth, height }, true);
+    ctx.save();
+    ctx.strokeStyle = look.palette.axis;
+    ctx.lineWidth = s;
+    ctx.strokeRect(x, top, barWidth, height);
+    ctx.fillStyle = look.palette.text;
+    ctx.font = fontString(look, PLOT_FONTS.tickPx);
+    ctx.textAlign = 'left';
+    ctx.textBaseline = 'middle';
+    ctx.beginPath();
+    let labelRight = x + barWidth;
+    for (const v of this.ticks?.values ?? []) {
+      const y = top + (1 - (scale.position(v) ?? 0)) * height;
+      ctx.moveTo(x + barWidth, y);
+      ctx.lineTo(x + barWidth + d.tickLengthPx * s, y);
+      const textX = x + barWidth + (d.tickLengthPx + d.labelGapPx) * s, text = this.tickText(v);
+      ctx.fillText(text, textX, y);
+      labelRight = Math.max(labelRight, textX + ctx.measureText(text).width);
+    }
+    ctx.stroke();
+    ctx.translate(labelRight + d.titleGapPx * s + PLOT_FONTS.axisTitlePx * s * 0.5, top + height / 2);
+    ctx.rotate(-Math.PI / 2); // reads bottom to top, as the y-axis title does
+    ctx.textAlign = 'center';
+    ctx.font = fontString(look, PLOT_FONTS.axisTitlePx, 'bold');
+    ctx.fillText(label, 0, 0);
+    ctx.restore();
+  }
+
+  private tickText(v: number): string {
+    return formatTick(v, this.ticks?.fractionDigits ?? 0);
+  }
+}
+
+/** A per-chart plugin that adds the colour bar box while the chart lives. */
+export function colourBarPlugin(spec: ColourBarSpec): Plugin {
+  let box: ColourBarBox | null = null;
+  return {
+    id: 'setpointColourBar',
+    start(chart) {
+      box = new ColourBarBox(chart, spec);
+      layouts.addBox(chart, box);
+    },
+    stop(chart) {
+      if (box) layouts.removeBox(chart, box);
+      box = null;
+    },
+  };
+}

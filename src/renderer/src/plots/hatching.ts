@@ -1,0 +1,48 @@
+/**
+ * Diagonal hatching over a set of rectangles (the never-visited cells, and the legend swatch).
+ * Lines run at 45° with a fixed perpendicular spacing, anchored to the canvas origin so that
+ * neighbouring cells' lines join up. Each line is drawn twice — a wide dark stroke under a narrow
+ * light one — so it reads on both ends of the colour scale.
+ */
+import type { PlotLook } from './plotLook';
+import type { Rect } from './raster';
+
+/** Defaults in CSS px, times look.scale. */
+export const HATCH_DEFAULTS = { spacingPx: 7, darkWidthPx: 2.2, lightWidthPx: 1 } as const;
+
+export function drawHatching(ctx: CanvasRenderingContext2D, rects: readonly Rect[], look: PlotLook): void {
+  if (rects.length === 0) return;
+  const bounds = boundingBox(rects);
+  ctx.save();
+  ctx.beginPath();
+  for (const r of rects) ctx.rect(r.x, r.y, r.width, r.height);
+  ctx.clip();
+  ctx.beginPath();
+  // Lines x + y = c, c on a lattice of spacing·√2 so the perpendicular gap is `spacing`.
+  const step = HATCH_DEFAULTS.spacingPx * look.scale * Math.SQRT2;
+  const c0 = Math.floor((bounds.x + bounds.y) / step) * step;
+  const c1 = bounds.x + bounds.width + bounds.y + bounds.height;
+  for (let c = c0; c <= c1 + step; c += step) {
+    ctx.moveTo(bounds.x - 1, c - bounds.x + 1);
+    ctx.lineTo(c - bounds.y + 1, bounds.y - 1);
+  }
+  ctx.lineCap = 'butt';
+  ctx.strokeStyle = look.palette.hatchDark;
+  ctx.lineWidth = HATCH_DEFAULTS.darkWidthPx * look.scale;
+  ctx.stroke();
+  ctx.strokeStyle = look.palette.hatchLight;
+  ctx.lineWidth = HATCH_DEFAULTS.lightWidthPx * look.scale;
+  ctx.stroke();
+  ctx.restore();
+}
+
+function boundingBox(rects: readonly Rect[]): Rect {
+  let x0 = Infinity, y0 = Infinity, x1 = -Infinity, y1 = -Infinity;
+  for (const r of rects) {
+    x0 = Math.min(x0, r.x);
+    y0 = Math.min(y0, r.y);
+    x1 = Math.max(x1, r.x + r.width);
+    y1 = Math.max(y1, r.y + r.height);
+  }
+  return { x: x0, y: y0, width: x1 - x0, height: y1 - y0 };
+}

@@ -1,0 +1,18 @@
+/**
+ * What an evaluation's numbers depend on, as one string: the data's content (its fingerprint) and
+ * everything in the document except its name, descriptions, the surface axes (redrawn without a
+ * rerun) and where the data file lives or what was last saved about it. Two documents with the
+ * same key give the same numbers.
+ */
+import type { ProjectDocument } from '../../../project/schema';
+
+export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
+  const { name: _name, description: _description, surface: _surface, data, ...rest } = doc;
+  const candidates = rest.candidates.map(({ description: _d, ...c }) => c);
+  return JSON.stringify({ ...rest, candidates, csv: data.csv, dataFingerprint });
+}
+
+/** What an import depends on: the CSV settings, the column roles, and which bytes were loaded. */
+export function importKey(doc: ProjectDocument, sourceVersion: number): string {
+  return JSON.stringify([doc.data.csv, doc.columns, sourceVersion]);
+}

@@ -1,0 +1,69 @@
+/**
+ * Everything about the open project that is not the document itself: the data file's bytes and
+ * where they came from, the first look at its header, the last import, the run in progress and the
+ * last evaluation. Not saved and not undoable; it follows the document.
+ */
+import type { Problem } from '../../../core/result';
+import type { Evaluation } from '../../../pipeline/estimates';
+import type { DataImport, DataInspection, RunProgress } from '../../../shared/workerMessages';
+import { createStore, type Store } from '../state/store';
+
+export type DataSource =
+  | { kind: 'none' }
+  /** Picked in a dialog or read from the project's path; the main process knows it. */
+  | { kind: 'file'; absolutePath: string; bytes: Uint8Array }
+  /** Dropped on the window: the bytes are here, but the path is unknown to the main process until linked. */
+  | { kind: 'dropped'; fileName: string; bytes: Uint8Array };
+
+export type ImportState =
+  | { status: 'idle' }
+  | { status: 'importing'; key: string }
+  | { status: 'done'; key: string; result: DataImport; warnings: Problem[] }
+  | { status: 'failed'; key: string; problems: Problem[] };
+
+export type RunState =
+  | { status: 'idle' }
+  | { status: 'running'; progress: RunProgress[] }
+  | { status: 'cancelled' }
+  | { status: 'failed'; problems: Problem[] };
+
+export interface EvaluationRecord {
+  evaluation: Evaluation;
+  /** runKey of the document that was evaluated; a different key now means the results are stale. */
+  runKey: string;
+}
+
+export interface Notice {
+  tone: 'info' | 'warning' | 'error';
+  title: string;
+  problems: Problem[];
+  /** An action the notice offers, by name (the banner maps it to a command). */
+  action?: 'relocate-data';
+}
+
+export interface SessionState {
+  source: DataSource;
+  /** Increments whenever new data bytes are loaded (part of the import key). */
+  sourceVersion: number;
+  inspection: DataInspection | null;
+  /** Why the data file could not be read or looked at (missing, not UTF-8, empty …). */
+  dataProblems: Problem[];
+  importState: ImportState;
+  run: RunState;
+  evaluation: EvaluationRecord | null;
+  notice: Notice | null;
+  recentProjects: string[];
+}
+
+export function emptySession(recentProjects: string[] = []): SessionState {
+  return {
+    source: { kind: 'none' }, sourceVersion: 0, inspection: null, dataProblems: [], importState: { status: 'idle' },
+    run: { status: 'idle' }, evaluation: null, notice: null, recentProjects,
+  };
+}
+
+export type SessionStore = Store<SessionState>;
+
+export function createSessionStore(): SessionStore {
+  return createStore(emptySession());
+}

@@ -1,0 +1,53 @@
+/**
+ * The evaluation worker: everything heavy — reading the CSV, fitting the behaviour model, fitting
+ * Q for each candidate, value surfaces and slices — runs here, off the UI thread. Each request gets
+ * exactly one result message; a running evaluation also sends progress messages first.
+ * Typed errors from the engine become problems; anything else is reported as an internal error
+ * with its message (never a stack trace).
+ */
+/// <reference lib="webworker" />
+import { success, type Result } from '../../../core/result';
+import type { WorkerCall, WorkerReply, WorkerRequest, WorkerResult } from '../../../shared/workerMessages';
+import { inspectData } from './dataInspection';
+import { dataImportSummary } from './dataImportSummary';
+import { runEvaluation } from './evaluationRun';
+import { sliceFromFit, surfaceFromFit } from './fitQueries';
+import { createWorkerSession } from './workerSession';
+import { problemFromError } from './workerProblems';
+
+const scope = self as unknown as DedicatedWorkerGlobalScope;
+const session = createWorkerSession();
+
+function post(reply: WorkerReply): void {
+  scope.postMessage(reply);
+}
+
+async function answer(request: WorkerRequest): Promise<Result<unknown>> {
+  switch (request.call) {
+    case 'setData': {
+      const inspection = inspectData(request.bytes, request.fileName, request.csv);
+      if (inspection.ok) session.setData(request.bytes, request.fileName);
+      return inspection;
+    }
+    case 'importData': {
+      const opened = session.open(request.project);
+      return opened.ok ? success(dataImportSummary(opened.value), opened.warnings) : opened;
+    }
+    case 'evaluate':
+      return runEvaluation(session, request.project, (progress) => post({ kind: 'progress', id: request.id, progress }));
+    case 'surface':
+      return success(surfaceFromFit(session.lastRun(), request.query));
+    case 'slice':
+      return success(sliceFromFit(session.lastRun(), request.query));
+  }
+}
+
+scope.onmessage = (event: MessageEvent<WorkerRequest>) => {
+  const request = event.data;
+  answer(request)
+    .then((result): WorkerResult<WorkerCall> => (result.ok
+      ? { kind: 'result', id: request.id, ok: true, value: result.value as never, warnings: result.warnings }
+      : { kind: 'result', id: request.id, ok: false, problems: result.problems }))
+    .catch((error: unknown): WorkerResult => ({ kind: 'result', id: request.id, ok: false, problems: [problemFromError(error, request.call)] }))
+    .then(post);
+};

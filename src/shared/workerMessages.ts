@@ -1,0 +1,121 @@
+/**
+ * Every message between the renderer and its evaluation worker, typed once for both sides.
+ *
+ * The renderer sends a request { call, id, ...arguments }; the worker answers each with exactly one
+ * { kind: 'result', id, ok, ... } and, while an evaluation runs, any number of
+ * { kind: 'progress', id, progress } first. Large arrays travel as typed arrays (structured clone or
+ * transfer), never as JSON.
+ */
+import type { BehaviourModel } from '../core/behaviourModel';
+import type { Problem } from '../core/result';
+import type { DatasetSummary, ExcludedRow } from '../data/importDataset';
+import type { Evaluation, ValueSurface } from '../pipeline/estimates';
+import type { EvaluationProgress } from '../pipeline/evaluateProject';
+import type { CsvSettings, ProjectDocument } from '../project/schema';
+
+/** What the first lines of a data file look like, before any column has a role. */
+export interface DataInspection {
+  fileName: string;
+  /** Column names from the header line, trimmed. */
+  header: string[];
+  /** Up to five data rows as text, for the role table's sample column. */
+  previewRows: string[][];
+  delimiter: ',' | ';' | '\t';
+  decimalMark: '.' | ',';
+}
+
+/** An evenly spaced subset of the logged transitions, small enough to draw. */
+export interface LoggedSample {
+  count: number; // k
+  states: Float64Array; // k×ds row-major
+  actions: Float64Array; // k×m row-major
+}
+
+export type BehaviourFit = { ok: true; model: BehaviourModel } | { ok: false; message: string };
+
+/** The outcome of importing the data with the project's column roles. */
+export interface DataImport {
+  summary: DatasetSummary;
+  /** The first excluded rows (at most EXCLUDED_ROWS_SHOWN); summary.excludedRowCount has the total. */
+  excluded: ExcludedRow[];
+  episodeReport: string[];
+  rowCount: number;
+  /** SHA-256 of the bytes imported (saved into the project as data.sha256). */
+  fingerprint: string;
+  warnings: Problem[];
+  stateNames: string[];
+  actionNames: string[];
+  /** Mean of each state over the transitions (the default held values of sliders). */
+  stateMeans: number[];
+  /** [min, max] of each state over the transitions. */
+  stateRanges: [number, number][];
+  sample: LoggedSample;
+  behaviour: BehaviourFit;
+}
+
+export const EXCLUDED_ROWS_SHOWN = 1000;
+export const LOGGED_SAMPLE_SIZE = 2000;
+
+/** Recompute V^π from a retained fit over two chosen state axes, the other states held. */
+export interface SurfaceQuery {
+  candidateIndex: number;
+  xAxis: number;
+  yAxis: number;
+  /** Values of every state; the two axis entries are ignored. */
+  heldState: number[];
+  resolution: number;
+}
+
+/** Q(s, ·) of a retained fit along one action at a chosen state. */
+export interface SliceQuery {
+  candidateIndex: number;
+  state: number[];
+  actionIndex: number;
+  points: number;
+}
+
+/** The action-value slice with the policy's density and quadrature nodes, in the project's sense. */
+export interface ActionSliceReply {
+  actions: Float64Array;
+  actionValues: Float64Array;
+  density: Float64Array;
+  nodes: { points: Float64Array; weights: Float64Array };
+  state: number[];
+  policyName: string;
+}
+
+/** A progress report while an evaluation runs. */
+export interface RunProgress extends EvaluationProgress {
+  /** Milliseconds since the evaluation started. */
+  elapsedMs: number;
+  /** The linear fit's iteration cap and tolerance (null for a network fit). */
+  maxIterations: number | null;
+  tolerance: number | null;
+  /** Outer iterations of a network fit (null for a linear fit). */
+  outerIterations: number | null;
+}
+
+/** Each call's arguments and the value its successful result carries. */
+export interface WorkerCalls {
+  setData: { args: { bytes: Uint8Array; fileName: string; csv: CsvSettings }; value: DataInspection };
+  importData: { args: { project: ProjectDocument }; value: DataImport };
+  evaluate: { args: { project: ProjectDocument }; value: Evaluation };
+  surface: { args: { query: SurfaceQuery }; value: ValueSurface };
+  slice: { args: { query: SliceQuery }; value: ActionSliceReply };
+}
+
+export type WorkerCall = keyof WorkerCalls;
+
+export type WorkerRequest = { [K in WorkerCall]: { call: K; id: number } & WorkerCalls[K]['args'] }[WorkerCall];
+
+export type WorkerResult<K extends WorkerCall = WorkerCall> =
+  | { kind: 'result'; id: number; ok: true; value: WorkerCalls[K]['value']; warnings: Problem[] }
+  | { kind: 'result'; id: number; ok: false; problems: Problem[] };
+
+export interface WorkerProgress {
+  kind: 'progress';
+  id: number;
+  progress: RunProgress;
+}
+
+export type WorkerReply = WorkerResult | WorkerProgress;
