@@ -60,7 +60,8 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   }
   const timestamps = settleTimestampColumn(columns, table, problems);
   const rewards = rewardColumn(columns.reward, plan.rewardExpression, table.numbers, table.recordCount, problems);
-  if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf);
+  const episodeCodes = columns.episode.kind === 'column' ? table.labels.get(columns.episode.column)?.codes : undefined;
+  if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf, episodeCodes);
   if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf));
   return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps });
 }

@@ -27,11 +27,19 @@ export function settleTimestamps(
   return { seconds, decision };
 }
 
-/** Report rows whose timestamp is earlier than the previous usable row's. Call after all other cell checks. */
-export function checkTimestampsForward(column: string, seconds: Float64Array, problems: RowProblems, lineOf: (record: number) => number): void {
+/**
+ * Flag rows whose timestamp is earlier than the previous good row's. With an episode column the
+ * clock may restart in each episode (a run's own elapsed time), so the check starts afresh wherever
+ * the episode code changes. episodeCodes: one code per record, or undefined for one timeline.
+ * Call after all other cell checks.
+ */
+export function checkTimestampsForward(
+  column: string, seconds: Float64Array, problems: RowProblems, lineOf: (record: number) => number, episodeCodes?: Float64Array,
+): void {
   let previous = -1;
   for (let r = 0; r < seconds.length; r++) {
     if (problems.isBad(r)) continue;
+    if (previous >= 0 && episodeCodes && episodeCodes[r] !== episodeCodes[previous]) previous = -1;
     if (previous >= 0 && seconds[r] < seconds[previous]) {
       const back = seconds[previous] - seconds[r];
       problems.add(r, column, 'timestamp-backwards', `the timestamp goes backwards by ${+back.toPrecision(6)} s from line ${lineOf(previous)}; timestamps must not decrease`);

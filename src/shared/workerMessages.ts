@@ -97,7 +97,10 @@ export interface RunProgress extends EvaluationProgress {
 
 /** Each call's arguments and the value its successful result carries. */
 export interface WorkerCalls {
+  /** Keep these bytes as the data file (until the next setData) and look at its first lines. */
   setData: { args: { bytes: Uint8Array; fileName: string; csv: CsvSettings }; value: DataInspection };
+  /** Look at the kept data file's first lines again with other CSV settings. */
+  inspect: { args: { csv: CsvSettings }; value: DataInspection };
   importData: { args: { project: ProjectDocument }; value: DataImport };
   evaluate: { args: { project: ProjectDocument }; value: Evaluation };
   surface: { args: { query: SurfaceQuery }; value: ValueSurface };

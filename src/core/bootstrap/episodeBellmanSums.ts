@@ -70,7 +70,7 @@ function writeSums(stats: BellmanStatistics, out: Float64Array, offset: number):
  * given, is a buffer of length stride reused between calls.
  */
 export function resampleBellmanStatistics(
-  sums: EpisodeBellmanSums, multiplicities: ArrayLike<number>, scratch = new Float64Array(sums.stride),
+  sums: EpisodeBellmanSums, multiplicities: ArrayLike<number>, scratch: Float64Array = new Float64Array(sums.stride),
 ): BellmanStatistics {
   const { episodes: e, dim: d, stride } = sums;
   if (multiplicities.length !== e) throw new BootstrapError(`multiplicities: expected one per episode (${e}), got ${multiplicities.length}`);

@@ -31,7 +31,7 @@ export function startStateFeatures(features: FeatureMap, quadrature: ActionQuadr
  * Mean of the rows of xi (count×d) weighted by multiplicities (count), or unweighted when they
  * are omitted: ξ̄ of a resample whose start states are its episodes' first states.
  */
-export function meanStartFeatures(xi: Float64Array, d: number, multiplicities?: ArrayLike<number>, out = new Float64Array(d)): Float64Array {
+export function meanStartFeatures(xi: Float64Array, d: number, multiplicities?: ArrayLike<number>, out: Float64Array = new Float64Array(d)): Float64Array {
   const count = xi.length / d;
   if (multiplicities && multiplicities.length !== count) throw new BootstrapError(`multiplicities: expected ${count} (one per start state), got ${multiplicities.length}`);
   out.fill(0);

@@ -29,6 +29,10 @@ async function answer(request: WorkerRequest): Promise<Result<unknown>> {
       if (inspection.ok) session.setData(request.bytes, request.fileName);
       return inspection;
     }
+    case 'inspect': {
+      const { bytes, fileName } = session.data();
+      return inspectData(bytes, fileName, request.csv);
+    }
     case 'importData': {
       const opened = session.open(request.project);
       return opened.ok ? success(dataImportSummary(opened.value), opened.warnings) : opened;

@@ -8,7 +8,7 @@ import { BehaviourModelError } from '../../../core/behaviourModel';
 import { WorkerQueryError } from './workerSession';
 
 const CALL_NAMES: Record<string, string> = {
-  setData: 'reading the data file', importData: 'importing the data', evaluate: 'the evaluation',
+  setData: 'reading the data file', inspect: 'reading the data file', importData: 'importing the data', evaluate: 'the evaluation',
   surface: 'the value surface', slice: 'the action-value slice',
 };
 

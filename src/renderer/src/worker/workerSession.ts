@@ -30,12 +30,15 @@ export class WorkerQueryError extends Error {
 
 export interface WorkerSession {
   setData(bytes: Uint8Array, fileName: string): void;
+  data(): { bytes: Uint8Array; fileName: string };
   /** Import the data for project, or reuse the last import when nothing it depends on changed. */
   open(project: ProjectDocument): Result<OpenedProject>;
   /** Release the previous run's fits and start keeping the new run's. */
   beginRun(project: ProjectDocument, opened: OpenedProject): EvaluatedRun;
   lastRun(): EvaluatedRun;
 }
+
+const NO_DATA = 'no data file is loaded yet; choose a CSV file on the Plant log step';
 
 /** The parts of a project an import depends on; the same key means the same import. */
 function importKey(project: ProjectDocument): string {
@@ -56,8 +59,12 @@ export function createWorkerSession(): WorkerSession {
       cached = null;
       disposeRun();
     },
+    data() {
+      if (!data) throw new WorkerQueryError(NO_DATA);
+      return data;
+    },
     open(project) {
-      if (!data) return failure({ where: 'data', message: 'no data file is loaded yet; choose a CSV file on the Plant log step' });
+      if (!data) return failure({ where: 'data', message: NO_DATA });
       const key = importKey(project);
       if (cached && cached.key === key) return { ok: true, value: { ...cached.opened, project }, warnings: cached.opened.warnings };
       const opened = importProjectData(project, data.bytes);
