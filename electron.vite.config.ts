@@ -10,6 +10,8 @@ export default defineConfig({
   },
   preload: {
     build: {
+      // A sandboxed preload can require only 'electron': bundle zod and our shared code into it.
+      externalizeDeps: false,
       rollupOptions: {
         input: { index: resolve(__dirname, 'src/preload/index.ts') },
         // Sandboxed preloads cannot load ES modules: emit one CommonJS file.

@@ -1,10 +1,9 @@
 /**
  * What every window's app service shares: the file system, the file store, the allow-list, the
- * recent list and the recovery store over one state folder, and the dialogs. The Electron main
- * process makes one context per run; the e2e server makes one per launch.
+ * recent list and the recovery store over one state folder. The Electron main process makes one
+ * context per run; the e2e server makes one per launch.
  */
 import { randomBytes } from 'node:crypto';
-import type { Dialogs } from './dialogs';
 import { createFileStore, type FileStore } from './fileStore';
 import { nodeFileSystem, type FileSystem } from './fileSystem';
 import { createPathAccess, type PathAccess } from './pathAccess';
@@ -18,7 +17,6 @@ export interface AppContext {
   access: PathAccess;
   recent: RecentProjects;
   recovery: RecoveryStore;
-  dialogs: Dialogs;
   flavour: PathFlavour;
   /** Problems the user did not cause and need not act on now (a replaced state file); logged. */
   report: (message: string) => void;
@@ -27,11 +25,12 @@ export interface AppContext {
 
 export interface AppContextOptions {
   stateFolder: string;
-  dialogs: Dialogs;
   fs?: FileSystem;
   platform?: NodeJS.Platform;
   runId?: string;
   report?: (message: string) => void;
+  /** Told whenever the recent list changes (the menu's Open Recent is rebuilt). */
+  onRecentChange?: (list: readonly string[]) => void;
   now?: () => Date;
 }
 
@@ -45,9 +44,8 @@ export function createAppContext(options: AppContextOptions): AppContext {
     fs,
     store,
     access: createPathAccess(flavour),
-    recent: createRecentProjects({ fs, store, stateFolder: options.stateFolder, flavour, report }),
+    recent: createRecentProjects({ fs, store, stateFolder: options.stateFolder, flavour, report, onChange: options.onRecentChange }),
     recovery: createRecoveryStore({ fs, store, stateFolder: options.stateFolder, runId, report }),
-    dialogs: options.dialogs,
     flavour,
     report,
     now: options.now ?? (() => new Date()),

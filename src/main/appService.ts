@@ -8,6 +8,7 @@
  */
 import type { AppApi, DataFileReply, ExportKind, ProjectFileReply, RecoveryOffer, SaveReply } from '../shared/appApi';
 import type { AppContext } from './appContext';
+import type { Dialogs } from './dialogs';
 import { FileAccessError, describeFileError } from './fileErrors';
 import { EXPORT_EXTENSIONS, PROJECT_EXTENSION, suggestedFileName, withExtension } from './fileNames';
 import { pathApi } from './pathIdentity';
@@ -25,6 +26,8 @@ export type AppService = Omit<AppApi, 'host' | 'onMenuCommand'> & {
 export interface AppSession {
   /** Names this window's recovery copy: letters, digits, "-" or "_". */
   slot: string;
+  /** Native dialogs, parented to this window. */
+  dialogs: Dialogs;
   onDocumentState?: (state: DocumentState) => void;
   /** Every save's outcome, so a close that asked the renderer to save knows when it is done. */
   onSaveReply?: (reply: SaveReply) => void;
@@ -39,7 +42,8 @@ export class AccessDeniedError extends Error {
 }
 
 export function createAppService(context: AppContext, session: AppSession): AppService {
-  const { access, dialogs, recent, recovery, store } = context;
+  const { access, recent, recovery, store } = context;
+  const { dialogs } = session;
   const api = pathApi(context.flavour);
   let documentState: DocumentState = { name: '', dirty: false };
   let claimedOffer: RecoveryOffer | null = null;

@@ -10,6 +10,27 @@ export type CloseAction = 'close' | 'ask';
 export type ChoiceAction = 'save-then-close' | 'close-without-saving' | 'keep-open';
 export type CloseOutcome = 'closed' | 'kept-open';
 
+/** The buttons of the unsaved-changes question, in order; Save is the default, Cancel the Escape answer. */
+export const UNSAVED_CHANGES_BUTTONS: readonly { label: string; choice: UnsavedChangesChoice }[] = [
+  { label: 'Save', choice: 'save' },
+  { label: "Don't save", choice: 'discard' },
+  { label: 'Cancel', choice: 'cancel' },
+];
+export const UNSAVED_DEFAULT_BUTTON = 0;
+export const UNSAVED_CANCEL_BUTTON = 2;
+
+/** The answer a message box's button index stands for; anything unexpected keeps the window open. */
+export function choiceForButton(index: number): UnsavedChangesChoice {
+  return UNSAVED_CHANGES_BUTTONS[index]?.choice ?? 'cancel';
+}
+
+export function unsavedChangesQuestion(documentName: string): { message: string; detail: string } {
+  return {
+    message: `Save the changes to “${documentName.trim() || 'Untitled project'}” before closing?`,
+    detail: 'Changes you do not save are lost.',
+  };
+}
+
 /** A clean document closes at once; a dirty one asks. */
 export function closeAction(state: DocumentState): CloseAction {
   return state.dirty ? 'ask' : 'close';

@@ -18,7 +18,6 @@ export function withExtension(path: string, extension: string): string {
 export function suggestedFileName(name: string, extension: string, fallback = 'Untitled project'): string {
   // Windows forbids <>:"/\|?* and control characters in names (Microsoft, "Naming Files, Paths,
   // and Namespaces"); POSIX forbids only / and NUL — the stricter set keeps projects portable.
-  // eslint-disable-next-line no-control-regex
   const cleaned = name.replace(/[<>:"/\\|?*\u0000-\u001f]/g, '-').replace(/^[\s.]+|[\s.]+$/g, '');
   return withExtension(cleaned === '' ? fallback : cleaned, extension);
 }

@@ -16,3 +16,14 @@ export function navigationDecision(targetUrl: string, appOrigin: string): Naviga
 export function windowOpenDecision(): { action: 'deny' } {
   return { action: 'deny' };
 }
+
+/**
+ * Every request the renderer makes (the app makes no network requests, GUIDE §4): its own origin,
+ * blob: and data: URLs, and in development the dev server's live-reload socket. Anything else —
+ * an http(s) URL in a project description, a remote font — is cancelled.
+ */
+export function requestDecision(url: string, appOrigin: string): NavigationDecision {
+  if (isAppUrl(url, appOrigin) || url.startsWith('blob:') || url.startsWith('data:')) return 'allow';
+  const socketOrigin = appOrigin.replace(/^http:/, 'ws:');
+  return socketOrigin !== appOrigin && isAppUrl(url, socketOrigin) ? 'allow' : 'deny';
+}

@@ -36,6 +36,7 @@ export interface RecentProjectsOptions {
   flavour: PathFlavour;
   /** Told (once per problem) when the state file had to be replaced. */
   report: (message: string) => void;
+  onChange?: (list: readonly string[]) => void;
 }
 
 export function createRecentProjects(options: RecentProjectsOptions): RecentProjects {
@@ -64,6 +65,7 @@ export function createRecentProjects(options: RecentProjectsOptions): RecentProj
     await options.fs.makeFolder(options.stateFolder);
     await options.store.writeAtomic(file, `${JSON.stringify({ recentProjects: next }, null, 2)}\n`, { backup: false });
     cached = next;
+    options.onChange?.(next);
     return next;
   }
 

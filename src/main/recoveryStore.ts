@@ -28,6 +28,8 @@ export interface RecoveryStore {
   /** The newest leftover of an earlier run, moved to `slot`; null when there is none (or `slot` already holds a copy). */
   claimLeftover(slot: string): Promise<RecoveryOffer | null>;
   discard(slot: string): Promise<void>;
+  /** How many copies earlier runs left (so the app can open a window for each). */
+  leftoverCount(): Promise<number>;
 }
 
 export interface RecoveryStoreOptions {
@@ -50,6 +52,8 @@ export function createRecoveryStore(options: RecoveryStoreOptions): RecoveryStor
     if (!SAFE_NAME.test(slot)) throw new RangeError(`recovery slot: expected 1–64 letters, digits, "-" or "_", found ${JSON.stringify(slot)}`);
     return join(folder, `${runId}.${slot}.json`);
   };
+
+  const isLeftover = (name: string) => name.endsWith('.json') && !name.startsWith(`${runId}.`);
 
   async function write(slot: string, text: string, projectPath: string | null, savedAt: Date): Promise<void> {
     await fs.makeFolder(folder);
@@ -75,7 +79,7 @@ export function createRecoveryStore(options: RecoveryStoreOptions): RecoveryStor
     const names = await fs.listFolder(folder);
     if (names.includes(`${runId}.${slot}.json`)) return null;
     const leftovers: { name: string; offer: RecoveryOffer }[] = [];
-    for (const name of names.filter((n) => n.endsWith('.json') && !n.startsWith(`${runId}.`))) {
+    for (const name of names.filter(isLeftover)) {
       const offer = await readRecord(name);
       if (offer) leftovers.push({ name, offer });
     }
@@ -92,5 +96,9 @@ export function createRecoveryStore(options: RecoveryStoreOptions): RecoveryStor
     });
   }
 
-  return { write, claimLeftover, discard };
+  async function leftoverCount(): Promise<number> {
+    return (await fs.listFolder(folder)).filter(isLeftover).length;
+  }
+
+  return { write, claimLeftover, discard, leftoverCount };
 }

@@ -16,7 +16,7 @@ import { createNextInputs, type NextInputs } from './networkNextInputs';
 import { largestReward, outputScaleOf, type OutputScale } from './networkOutputScale';
 import { initialParameters, networkLayout, type NetworkLayout } from './networkParameters';
 import type { NetworkFqeSettings } from './networkSettings';
-import { createTrainingSet, type InputStandardiser, type NetworkTrainingSet } from './networkTrainingSet';
+import { createTrainingSet, type InputStandardiser, type NetworkTrainingSet, type RegressionRows } from './networkTrainingSet';
 import type { TrainableNetwork } from './networkTrainer';
 
 export interface FitSession {
@@ -24,8 +24,9 @@ export interface FitSession {
   readonly layout: NetworkLayout;
   readonly standardiser: InputStandardiser;
   readonly output: OutputScale;
-  readonly training: NetworkTrainingSet;
-  readonly next: NextInputs;
+  readonly rows: NetworkTrainingSet;
+  /** Next-state quadrature inputs of the training rows, and of the held-out rows (null without hold-out). */
+  readonly next: { readonly training: NextInputs; readonly heldOut: NextInputs | null };
   readonly batches: MinibatchStream;
   readonly average: ParameterAverage;
   readonly heldOutEpisodes: number;
@@ -58,15 +59,15 @@ export function createFitSession(input: SessionInput): FitSession {
   const layout = networkLayout(data.stateDim + data.actionDim, settings.hiddenLayers);
   const owned: { dispose(): void }[] = [];
   try {
-    const training = own(owned, createTrainingSet(data, split.order, split.trainingCount, standardiser, output, discount));
-    const next = own(owned, createNextInputs(data, split.order, input.policy, input.quadratureNodes, standardiser, discount));
-    const theta = own(owned, tf.variable(tf.tensor1d(initialParameters(layout, settings.activation, rng)), true));
+    const rows = own(owned, createTrainingSet(data, split, standardiser, output, discount));
+    const nextOf = (r: RegressionRows) => own(owned, createNextInputs(data, r.transitions, input.policy, input.quadratureNodes, standardiser, discount));
+    const next = { training: nextOf(rows.training), heldOut: rows.heldOut ? nextOf(rows.heldOut) : null };
+    const theta = own(owned, trainableParameters(initialParameters(layout, settings.activation, rng)));
     const optimizer = own(owned, tf.train.adam(settings.learningRate));
-    const trainingInputs = own(owned, tf.slice(training.inputs, [0, 0], [split.trainingCount, -1]));
-    const batches = own(owned, createMinibatchStream(trainingInputs, settings.batchSize, rng));
+    const batches = own(owned, createMinibatchStream(rows.training.inputs, settings.batchSize, rng));
     const average = own(owned, createParameterAverage(settings.averageLast));
     return {
-      net: { theta, layout, activation: settings.activation, optimizer }, layout, standardiser, output, training, next, batches, average,
+      net: { theta, layout, activation: settings.activation, optimizer }, layout, standardiser, output, rows, next, batches, average,
       heldOutEpisodes: split.heldOutEpisodes,
       valueLimit: (2 * largestReward(data.rewards)) / (1 - discount) + output.scale,
       dispose: () => owned.splice(0).reverse().forEach((o) => o.dispose()),
@@ -75,6 +76,14 @@ export function createFitSession(input: SessionInput): FitSession {
     owned.splice(0).reverse().forEach((o) => o.dispose());
     throw error;
   }
+}
+
+/** A variable holding θ; the variable keeps its own reference to the data, so the upload tensor is freed. */
+function trainableParameters(theta: Float32Array): tf.Variable<tf.Rank.R1> {
+  const initial = tf.tensor1d(theta);
+  const variable = tf.variable(initial, true);
+  initial.dispose();
+  return variable;
 }
 
 function own<T extends { dispose(): void }>(owned: { dispose(): void }[], resource: T): T {

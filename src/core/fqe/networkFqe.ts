@@ -35,7 +35,7 @@ export interface NetworkProgress {
   readonly outerIterations: number;
   /** Mean minibatch squared error of the iteration, reward units². */
   readonly loss: number;
-  /** Mean squared Bellman residual of Q_k against its frozen target on held-out episodes, reward units²; null without hold-out. */
+  /** Mean squared empirical Bellman residual of Q_k on held-out episodes (networkIterations.ts), reward units²; null without hold-out. */
   readonly heldOutBellmanError: number | null;
   /** Mean iteration time × iterations left (an upper estimate when early stopping is on). */
   readonly remainingSeconds: number;

@@ -8,7 +8,7 @@ import { FqeCancelledError } from './fqeErrors';
 import type { FitSession } from './networkFitSession';
 import type { NetworkFqeInput, NetworkIterationRecord } from './networkFqe';
 import { networkOutput } from './networkForward';
-import { frozenTargets, type FrozenTargets } from './networkNextInputs';
+import { bellmanTargets, type BellmanTargets } from './networkNextInputs';
 import { createPacer, trainSteps, type TrainingGuard } from './networkTrainer';
 import { valueReach } from './networkValueReach';
 import { requireActiveBackend, type TfBackendName } from './tfBackend';
@@ -66,10 +66,10 @@ export async function runOuterIterations(s: FitSession, input: NetworkFqeInput, 
 /** One outer iteration; returns why to stop, or null to go on. */
 async function outerIteration(s: FitSession, k: number, state: LoopState, guard: TrainingGuard, steps: number): Promise<IterationStop | null> {
   const frozen = tf.clone(s.net.theta); // Q_{k−1}
-  let kept = false, targets: FrozenTargets | null = null, trainingTargets: tf.Tensor1D | null = null;
+  let kept = false, targets: BellmanTargets | null = null;
   try {
     guard.checkBackend();
-    targets = frozenTargets(frozen, s.layout, s.net.activation, s.next, s.training.base);
+    targets = bellmanTargets(frozen, s.layout, s.net.activation, s.next.training, s.rows.training.base);
     const reach = valueReach(s.output, targets.smallestNextOutput, targets.largestNextOutput);
     if (!(reach <= s.valueLimit)) {
       return diverged(k, `the network of iteration ${k - 1} predicts |Q| up to ${reach.toPrecision(4)} at next states, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy's value can reach`);
@@ -79,18 +79,17 @@ async function outerIteration(s: FitSession, k: number, state: LoopState, guard:
       state.lastGood = { theta: frozen, iteration: k - 1 };
       kept = true;
     }
-    trainingTargets = tf.slice(targets.targets, 0, s.training.trainingCount);
-    s.batches.setTargets(trainingTargets);
+    s.batches.setTargets(targets.targets);
     const outcome = await trainSteps(s.net, s.batches, steps, guard);
     if (outcome.kind !== 'completed') {
       const what = outcome.kind === 'nonFinite' ? 'not finite' : `above ${guard.lossLimit.toPrecision(3)} (exploding)`;
       return diverged(k, `the minibatch loss at step ${outcome.step} was ${outcome.loss} in network units, ${what}`);
     }
     s.average.add(s.net.theta);
-    record(state, k, outcome.meanLoss * s.output.scale ** 2, heldOutError(s, targets.targets));
+    record(state, k, outcome.meanLoss * s.output.scale ** 2, heldOutBellmanError(s));
     return null;
   } finally {
-    tf.dispose([targets?.targets, trainingTargets].filter((t): t is tf.Tensor1D => !!t));
+    targets?.targets.dispose();
     if (!kept) frozen.dispose();
   }
 }
@@ -99,14 +98,23 @@ function diverged(k: number, reason: string): IterationStop {
   return { kind: 'diverged', message: `Stopped at outer iteration ${k}: ${reason}.` };
 }
 
-/** Mean of (Q_k − y_k)² over the held-out transitions, reward units²; null without hold-out. */
-function heldOutError(s: FitSession, targets: tf.Tensor1D): number | null {
-  const { trainingCount, heldOutCount, inputs } = s.training;
-  if (heldOutCount === 0) return null;
+/**
+ * Mean over held-out transitions of the empirical Bellman residual of the current network,
+ * (Q_k(s, a) − r − γ(1 − done)·E_{a'~π} Q_k(s', a'))², reward units²; null without hold-out.
+ * Q_k's own residual, not its error against the frozen target y_k: that error mostly measures
+ * the spread of y_k, which grows as the iterates pick up the value's variation, so it rises
+ * while the fit improves; the own residual falls as Q_k approaches its fixed point and levels
+ * off at the noise of r + γV(s').
+ */
+function heldOutBellmanError(s: FitSession): number | null {
+  const rows = s.rows.heldOut, next = s.next.heldOut;
+  if (!rows || !next) return null;
+  const { targets } = bellmanTargets(s.net.theta, s.layout, s.net.activation, next, rows.base);
   const meanSquare = tf.tidy(() => {
-    const q = networkOutput(s.net.theta, s.layout, s.net.activation, tf.slice(inputs, [trainingCount, 0], [heldOutCount, -1]));
-    return tf.mean(tf.squaredDifference(tf.reshape(q, [heldOutCount]), tf.slice(targets, trainingCount, heldOutCount))).dataSync()[0];
+    const q = networkOutput(s.net.theta, s.layout, s.net.activation, rows.inputs);
+    return tf.mean(tf.squaredDifference(tf.reshape(q, [-1]), targets)).dataSync()[0];
   });
+  targets.dispose();
   return meanSquare * s.output.scale ** 2;
 }
 

@@ -26,7 +26,7 @@ export interface NextInputChunk {
 }
 
 export interface NextInputs {
-  readonly chunks: readonly NextInputChunk[]; // in the transition order of the training set
+  readonly chunks: readonly NextInputChunk[]; // in the order of the transitions given
   readonly pointsPerState: number; // K
   dispose(): void;
 }
@@ -36,15 +36,18 @@ const ROWS_PER_CHUNK = 65_536;
 /** Float32 values of the whole next-input matrix (256 MB). */
 export const MAX_NEXT_INPUT_VALUES = 2 ** 26;
 
+/** transitions: indices into the data (the rows of a RegressionRows), in order. */
 export function createNextInputs(
-  data: TransitionSet, order: Int32Array, policy: GaussianPolicy, quadratureNodes: number,
+  data: TransitionSet, transitions: Int32Array, policy: GaussianPolicy, quadratureNodes: number,
   standardiser: InputStandardiser, discount: number,
 ): NextInputs {
   const quadrature = createActionQuadrature(policy, quadratureNodes);
-  const n = data.count, ds = data.stateDim, m = data.actionDim, p = ds + m, k = quadrature.maxPoints;
-  if (n * k * p > MAX_NEXT_INPUT_VALUES) {
-    throw new FqeOptionsError(`quadratureNodes: ${quadratureNodes} nodes per action dimension give ${k} points per next state, and ${n} transitions × ${k} points × ${p} inputs exceed the network path's budget of ${MAX_NEXT_INPUT_VALUES} values; use fewer quadratureNodes`);
+  const ds = data.stateDim, m = data.actionDim, p = ds + m, k = quadrature.maxPoints;
+  // Budgeted on the whole data set, since training and held-out inputs are both kept.
+  if (data.count * k * p > MAX_NEXT_INPUT_VALUES) {
+    throw new FqeOptionsError(`quadratureNodes: ${quadratureNodes} nodes per action dimension give ${k} points per next state, and ${data.count} transitions × ${k} points × ${p} inputs exceed the network path's budget of ${MAX_NEXT_INPUT_VALUES} values; use fewer quadratureNodes`);
   }
+  const n = transitions.length;
   const points = new Float64Array(k * m), nodeWeights = new Float64Array(k);
   const statesPerChunk = Math.max(1, Math.floor(ROWS_PER_CHUNK / k));
   const chunks: NextInputChunk[] = [];
@@ -52,7 +55,7 @@ export function createNextInputs(
     const states = Math.min(statesPerChunk, n - start);
     const inputs = new Float32Array(states * k * p), weights = new Float32Array(states * k);
     for (let b = 0; b < states; b++) {
-      const i = order[start + b];
+      const i = transitions[start + b];
       // Past a terminal state nothing is bootstrapped: its rows stay at the data mean (zeros) with weight 0.
       if (data.terminal[i] !== 0) continue;
       const count = quadrature.at(data.nextStates, i * ds, points, nodeWeights);
@@ -68,17 +71,17 @@ export function createNextInputs(
   return { chunks, pointsPerState: k, dispose: () => chunks.forEach((c) => tf.dispose([c.inputs, c.weights])) };
 }
 
-export interface FrozenTargets {
-  readonly targets: tf.Tensor1D; // n, network units: base + Σ_j W_ij q(s'_i, a'_ij)
+export interface BellmanTargets {
+  readonly targets: tf.Tensor1D; // rows, network units: base + Σ_j W_ij q(s'_i, a'_ij)
   /** Smallest and largest q over all next-state rows, for the divergence check. */
   readonly smallestNextOutput: number;
   readonly largestNextOutput: number;
 }
 
-/** Targets of one outer iteration from the frozen parameters θ (base: n, networkTrainingSet.ts). */
-export function frozenTargets(
+/** One-step Bellman targets of the network with parameters θ (base: rows, networkTrainingSet.ts). */
+export function bellmanTargets(
   theta: tf.Tensor1D, layout: NetworkLayout, activation: NetworkActivation, next: NextInputs, base: tf.Tensor1D,
-): FrozenTargets {
+): BellmanTargets {
   const k = next.pointsPerState;
   const expectations: tf.Tensor1D[] = [], extremes: tf.Scalar[] = [];
   for (const chunk of next.chunks) {

@@ -15,9 +15,22 @@ export function valueReach(output: OutputScale, smallest: number, largest: numbe
 
 const ROWS_PER_CALL = 65_536;
 
-/** max |Q| of parameters θ over the data's own (s, a) rows. */
+/** max |Q| of parameters θ over the data's own (s, a) rows, training and held-out. */
 export function valueReachOnInputs(theta: tf.Tensor1D, session: FitSession): number {
-  const inputs = session.training.inputs, n = inputs.shape[0];
+  let smallest = Infinity, largest = -Infinity;
+  for (const rows of [session.rows.training, session.rows.heldOut]) {
+    if (!rows) continue;
+    const range = outputRange(theta, session, rows.inputs);
+    if (Number.isNaN(range[0]) || Number.isNaN(range[1])) return NaN;
+    smallest = Math.min(smallest, range[0]);
+    largest = Math.max(largest, range[1]);
+  }
+  return valueReach(session.output, smallest, largest);
+}
+
+/** [min q, max q] over inputs (rows×p), NaN if any output is NaN. */
+function outputRange(theta: tf.Tensor1D, session: FitSession, inputs: tf.Tensor2D): [number, number] {
+  const n = inputs.shape[0];
   let smallest = Infinity, largest = -Infinity;
   for (let start = 0; start < n; start += ROWS_PER_CALL) {
     const rows = Math.min(ROWS_PER_CALL, n - start);
@@ -25,9 +38,9 @@ export function valueReachOnInputs(theta: tf.Tensor1D, session: FitSession): num
       const q = networkOutput(theta, session.layout, session.net.activation, tf.slice(inputs, [start, 0], [rows, -1]));
       return tf.stack([tf.min(q), tf.max(q)]).dataSync();
     });
-    if (Number.isNaN(lo) || Number.isNaN(hi)) return NaN;
+    if (Number.isNaN(lo) || Number.isNaN(hi)) return [NaN, NaN];
     smallest = Math.min(smallest, lo);
     largest = Math.max(largest, hi);
   }
-  return valueReach(session.output, smallest, largest);
+  return [smallest, largest];
 }

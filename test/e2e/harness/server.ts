@@ -49,8 +49,8 @@ export async function startHarnessServer(options: { rendererFolder: string; stat
   const reports: string[] = [];
   const apiCalls: ApiCallRecord[] = [];
   const saveListeners = new Set<(reply: SaveReply) => void>();
-  const context = createAppContext({ stateFolder: options.stateFolder, dialogs, report: (m) => reports.push(m) });
-  const service = createAppService(context, { slot: 'browser', onSaveReply: (reply) => saveListeners.forEach((l) => l(reply)) });
+  const context = createAppContext({ stateFolder: options.stateFolder, report: (m) => reports.push(m) });
+  const service = createAppService(context, { slot: 'browser', dialogs, onSaveReply: (reply) => saveListeners.forEach((l) => l(reply)) });
   let origin = '';
 
   const server = createServer((request, response) => {

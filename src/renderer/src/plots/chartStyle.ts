@@ -2,7 +2,7 @@
  * The options every plot shares — fonts, colours, title, legend, tooltip, axes — from one look, so
  * the four plots match each other and an export differs from the screen only by its scale.
  */
-import type { ChartOptions, ScaleOptionsByType } from 'chart.js';
+import type { ChartOptions, ScaleOptions } from 'chart.js';
 import { font, PLOT_FONTS, type PlotLook } from './plotLook';
 
 export const CHART_STYLE_DEFAULTS = { paddingPx: 10, titleGapPx: 6, legendBoxPx: 18, legendGapPx: 12, tooltipPaddingPx: 8 } as const;
@@ -38,7 +38,7 @@ export function sharedOptions(look: PlotLook, title: string, subtitle: string | 
   };
 }
 
-type AxisOptions = Partial<ScaleOptionsByType<'linear' | 'logarithmic'>>;
+type AxisOptions = ScaleOptions<'linear'>;
 
 /** A numeric axis with a title; grid lines inside the plot area unless drawOnChartArea is false. */
 export function valueAxis(look: PlotLook, title: string, position: 'left' | 'right' | 'bottom', gridInside = true): AxisOptions {

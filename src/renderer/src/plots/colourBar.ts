@@ -40,6 +40,8 @@ class ColourBarBox implements LayoutItem {
   readonly position = 'right' as const;
   readonly weight = 10;
   readonly fullSize = false;
+  /** Chart.js reads stack options from every layout box. */
+  readonly options = {};
   width = 0;
   height = 0;
   left = 0;

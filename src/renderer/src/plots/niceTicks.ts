@@ -33,12 +33,28 @@ export function niceTicks(min: number, max: number, target = 5): TickSet {
     throw new TickRangeError(`tick range: expected finite min < max, got [${min}, ${max}]`);
   }
   const range = niceNumber(max - min, false);
-  const step = niceNumber(range / Math.max(1, target - 1), true);
-  const first = Math.ceil(min / step - 1e-9), last = Math.floor(max / step + 1e-9);
-  const values: number[] = [];
-  // Multiply rather than accumulate, so 0.1-steps do not drift (0.30000000000000004).
-  for (let k = first; k <= last; k++) values.push(cleanZero(Number((k * step).toPrecision(12))));
-  return { step, values, fractionDigits: Math.max(0, -Math.floor(Math.log10(step))) };
+  let step = niceNumber(range / Math.max(1, target - 1), true);
+  let values = ticksInside(min, max, step);
+  // A range just over one step can hold a single tick; refine 1-2-5 until two fit (a colour bar needs two).
+  while (values.length < 2) {
+    step = finerStep(step);
+    values = ticksInside(min, max, step);
+  }
+  return { step, values, fractionDigits: Math.max(0, -Math.floor(Math.log10(step) + 1e-9)) };
+}
+
+function ticksInside(min: number, max: number, step: number): number[] {
+  const first = Math.ceil(min / step - 1e-9), last = Math.floor(max / step + 1e-9), values: number[] = [];
+  // Multiply rather than accumulate, then round to the step's own digits: 3 × 0.1 reads 0.3, not 0.30000000000000004.
+  const digits = Math.min(100, Math.max(0, -Math.floor(Math.log10(step) + 1e-9)) + 1);
+  for (let k = first; k <= last; k++) values.push(cleanZero(Number((k * step).toFixed(digits))));
+  return values;
+}
+
+/** The next smaller step of the 1-2-5 sequence. */
+function finerStep(step: number): number {
+  const exponent = Math.floor(Math.log10(step) + 1e-9), mantissa = Math.round(step / 10 ** exponent);
+  return mantissa === 1 ? 0.5 * 10 ** exponent : mantissa === 2 ? 10 ** exponent : 2 * 10 ** exponent;
 }
 
 function cleanZero(v: number): number {

@@ -19,6 +19,8 @@ class UnvisitedLegendBox implements LayoutItem {
   readonly position = 'top' as const;
   readonly weight = 500; // nearer the plot area than the title (Chart.js gives the title 2000)
   readonly fullSize = false;
+  /** Chart.js reads stack options from every layout box. */
+  readonly options = {};
   width = 0;
   height = 0;
   left = 0;

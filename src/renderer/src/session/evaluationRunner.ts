@@ -45,9 +45,14 @@ export function createEvaluationRunner(documents: DocumentStore, session: Sessio
         return;
       }
       const fingerprint = state.importState.status === 'done' ? state.importState.result.fingerprint : '';
-      session.set((s) => ({ ...s, run: { status: 'running', progress: [] }, evaluation: null }));
+      session.set((s) => ({ ...s, run: { status: 'running', progress: [], startsMs: [] }, evaluation: null }));
       const onProgress = (progress: RunProgress): void => session.set((s) => (s.run.status !== 'running' ? s : {
-        ...s, run: { status: 'running', progress: [...s.run.progress, progress].slice(-PROGRESS_KEPT) },
+        ...s,
+        run: {
+          status: 'running',
+          progress: [...s.run.progress, progress].slice(-PROGRESS_KEPT),
+          startsMs: progress.iteration === null ? [...s.run.startsMs, progress.elapsedMs] : s.run.startsMs,
+        },
       }));
       const result = await client.call('evaluate', { project: doc }, onProgress);
       session.set((s) => {

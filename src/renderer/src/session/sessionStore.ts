@@ -23,7 +23,8 @@ export type ImportState =
 
 export type RunState =
   | { status: 'idle' }
-  | { status: 'running'; progress: RunProgress[] }
+  /** progress: the latest reports; startsMs[c]: elapsed time at which candidate c started. */
+  | { status: 'running'; progress: RunProgress[]; startsMs: number[] }
   | { status: 'cancelled' }
   | { status: 'failed'; problems: Problem[] };
 

@@ -1,0 +1,60 @@
+/**
+ * The Dialogs interface over Electron's native dialogs, parented to one window (so they are sheets
+ * on macOS and modal elsewhere). Thin: the choices they lead to are the app service's.
+ */
+import { homedir } from 'node:os';
+import { join } from 'node:path';
+import { app, dialog, type BrowserWindow, type FileFilter } from 'electron';
+import type { ExportKind } from '../shared/appApi';
+import { UNSAVED_CANCEL_BUTTON, UNSAVED_CHANGES_BUTTONS, UNSAVED_DEFAULT_BUTTON, choiceForButton, unsavedChangesQuestion } from './closeGuard';
+import type { Dialogs } from './dialogs';
+
+const PROJECT_FILTERS: FileFilter[] = [{ name: 'Setpoint Critic projects', extensions: ['spcritic'] }];
+const DATA_FILTERS: FileFilter[] = [{ name: 'Logged data (CSV)', extensions: ['csv', 'tsv', 'txt'] }, { name: 'All files', extensions: ['*'] }];
+const EXPORT_FILTERS: Record<ExportKind, FileFilter[]> = {
+  png: [{ name: 'PNG image', extensions: ['png'] }],
+  svg: [{ name: 'SVG image', extensions: ['svg'] }],
+  csv: [{ name: 'CSV table', extensions: ['csv'] }],
+};
+
+function documentsFolder(): string {
+  try {
+    return app.getPath('documents');
+  } catch {
+    return homedir();
+  }
+}
+
+export function createElectronDialogs(window: BrowserWindow): Dialogs {
+  async function open(title: string, filters: FileFilter[]): Promise<string | null> {
+    const result = await dialog.showOpenDialog(window, { title, filters, properties: ['openFile'] });
+    return result.canceled ? null : (result.filePaths[0] ?? null);
+  }
+  async function save(title: string, suggestedName: string, filters: FileFilter[]): Promise<string | null> {
+    const result = await dialog.showSaveDialog(window, {
+      title,
+      defaultPath: join(documentsFolder(), suggestedName),
+      filters,
+      properties: ['createDirectory', 'showOverwriteConfirmation'],
+    });
+    return result.canceled || !result.filePath ? null : result.filePath;
+  }
+  return {
+    showOpenProject: () => open('Open project', PROJECT_FILTERS),
+    showOpenData: () => open('Choose the logged data', DATA_FILTERS),
+    showSaveProject: (suggestedName) => save('Save project', suggestedName, PROJECT_FILTERS),
+    showExport: (kind, suggestedName) => save(`Export ${kind.toUpperCase()}`, suggestedName, EXPORT_FILTERS[kind]),
+    async confirmUnsavedChanges(documentName) {
+      const question = unsavedChangesQuestion(documentName);
+      const { response } = await dialog.showMessageBox(window, {
+        type: 'warning',
+        buttons: UNSAVED_CHANGES_BUTTONS.map((b) => b.label),
+        defaultId: UNSAVED_DEFAULT_BUTTON,
+        cancelId: UNSAVED_CANCEL_BUTTON,
+        noLink: true,
+        ...question,
+      });
+      return choiceForButton(response);
+    },
+  };
+}

@@ -1,0 +1,93 @@
+/**
+ * Coverage diagnostics of one candidate and the warnings they raise. Thresholds, as stated in the
+ * report (which are rules of thumb is said beside each):
+ *   - distribution shift νᵀΣ⁻¹ν (Duan, Jia & Wang 2020): caution above 4, serious above 25 — the
+ *     error bound scales with its square root, so these are 2× and 5× the on-policy level (ours);
+ *   - importance weights: Kish effective size at the effective horizon below 10 % of the episodes
+ *     reaching it is a caution, below 1 % serious (a common rule of thumb in importance sampling);
+ *   - action support: a mean outside-probability above 10 % is a caution, above 25 % serious (ours;
+ *     the logged controller's own level is shown beside it for scale).
+ */
+import { meanStartFeatures } from '../core/bootstrap/startFeatures';
+import { distributionShift, nextStateFeatureMean } from '../core/diagnostics/distributionShift';
+import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../core/diagnostics/actionSupport';
+import { effectiveSampleSizeFromLogs } from '../core/diagnostics/effectiveSampleSize';
+import { ridgeGram, ridgeGramFactor } from '../core/fqe/ridgeSystem';
+import type { ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
+import type { GaussianPolicy } from '../core/policy';
+import type { ActionSupportDiagnostics, AssessmentWarning, CoverageDiagnostics, ImportanceWeightDiagnostics } from './assessment';
+import type { CandidateWork } from './assessCandidate';
+
+export const COVERAGE_THRESHOLDS = {
+  distributionShift: { caution: 4, serious: 25 },
+  effectiveShare: { caution: 0.1, serious: 0.01 },
+  outside: { caution: 0.1, serious: 0.25 },
+} as const;
+
+export function coverageDiagnostics(work: CandidateWork, ranges: LoggedActionRanges, behaviourOutside: number | null): CoverageDiagnostics {
+  const stats = work.fullStatistics, d = stats.dim;
+  const factor = ridgeGramFactor(ridgeGram(stats, work.setup.ridge, work.features.constantIndex), d, work.setup.ridge);
+  const next = nextStateFeatureMean(stats, work.features.constantIndex);
+  return {
+    distributionShiftStart: distributionShift(meanStartFeatures(work.setup.startFeatures, d), factor, d),
+    distributionShiftNext: next && distributionShift(next, factor, d),
+    importanceWeights: 'table' in work.offPolicy ? weightDiagnostics(work.offPolicy.table, work.setup.discount) : null,
+    actionSupport: actionSupport(work.policy, ranges, behaviourOutside),
+  };
+}
+
+export function weightDiagnostics(table: ImportanceWeightTable, discount: number): ImportanceWeightDiagnostics {
+  const oneStep = effectiveSampleSizeFromLogs(table.logRatio);
+  const horizonSteps = Math.max(1, Math.min(table.horizon, Math.round(1 / (1 - discount))));
+  const atHorizon: number[] = [];
+  for (let p = 0; p < table.step.length; p++) if (table.step[p] === horizonSteps - 1) atHorizon.push(table.logWeight[p]);
+  return {
+    oneStepEffectiveSize: oneStep, oneStepShare: oneStep / table.step.length,
+    horizonSteps, horizonEffectiveEpisodes: effectiveSampleSizeFromLogs(atHorizon), horizonEpisodes: atHorizon.length,
+  };
+}
+
+export function meanOutside(policy: GaussianPolicy, ranges: LoggedActionRanges): number {
+  const outside = probabilityOutsideLoggedActions(policy, ranges);
+  return outside.reduce((a, b) => a + b, 0) / outside.length;
+}
+
+function actionSupport(policy: GaussianPolicy, ranges: LoggedActionRanges, behaviourMeanOutside: number | null): ActionSupportDiagnostics {
+  const outside = Float64Array.from(probabilityOutsideLoggedActions(policy, ranges)).sort();
+  const q = outside.length;
+  return {
+    neighbours: ranges.neighbours, queryStates: q,
+    meanOutside: outside.reduce((a, b) => a + b, 0) / q, p90Outside: outside[Math.min(q - 1, Math.floor(0.9 * q))], maxOutside: outside[q - 1],
+    behaviourMeanOutside,
+  };
+}
+
+export function coverageWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
+  const t = COVERAGE_THRESHOLDS, out: AssessmentWarning[] = [];
+  const shift = Math.max(d.distributionShiftStart, d.distributionShiftNext ?? 0);
+  if (shift > t.distributionShift.caution) {
+    out.push({
+      severity: shift > t.distributionShift.serious ? 'serious' : 'caution', topic: 'distributionShift',
+      message: `Distribution shift νᵀΣ⁻¹ν = ${shift.toPrecision(3)} (1 means none): the error bound of linear FQE grows with its square root, here ${Math.sqrt(shift).toFixed(1)}× the on-policy level. ` +
+        'The candidate leads to feature combinations the logs rarely contain.',
+    });
+  }
+  const w = d.importanceWeights;
+  if (w && w.horizonEpisodes > 0 && w.horizonEffectiveEpisodes < t.effectiveShare.caution * w.horizonEpisodes) {
+    out.push({
+      severity: w.horizonEffectiveEpisodes < t.effectiveShare.serious * w.horizonEpisodes ? 'serious' : 'caution', topic: 'importanceWeights',
+      message: `Importance weights at step ${w.horizonSteps}: effective size ${w.horizonEffectiveEpisodes.toFixed(1)} of ${w.horizonEpisodes} episodes ` +
+        `(below ${100 * t.effectiveShare.caution} %, a common rule of thumb): the importance-sampling cross-checks rest on a few episodes.`,
+    });
+  }
+  const a = d.actionSupport;
+  if (a.meanOutside > t.outside.caution) {
+    const reference = a.behaviourMeanOutside === null ? '' : ` (the logged controller itself: ${(100 * a.behaviourMeanOutside).toFixed(1)} %)`;
+    out.push({
+      severity: a.meanOutside > t.outside.serious ? 'serious' : 'caution', topic: 'actionSupport',
+      message: `On average ${(100 * a.meanOutside).toFixed(1)} % of the candidate’s action probability lies outside the actions logged at the ${a.neighbours} nearest logged states${reference}: ` +
+        'there Q is extrapolated to actions the logs do not hold.',
+    });
+  }
+  return out;
+}

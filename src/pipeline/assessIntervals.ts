@@ -1,0 +1,67 @@
+/**
+ * Replicates → the intervals and comparisons of an assessment, and the turn from reward terms
+ * (the engine's) into the project's sense: with a cost, values, intervals and differences change
+ * sign, and an interval's ends swap.
+ */
+import { bootstrapInterval } from '../core/bootstrap/bootstrapInterval';
+import type { IntervalEstimate, PairedDifference, Ranking } from './assessment';
+import type { Replicates } from './assessResamples';
+
+/** sign = −1 for a cost project, 1 for a reward project. */
+export function intervalEstimate(point: number, replicates: Replicates, level: number, sign: number): IntervalEstimate {
+  const values = replicates.filter((v): v is number => v !== null && Number.isFinite(v));
+  const failedReplicates = replicates.length - values.length;
+  if (values.length < 2) {
+    return { value: sign * point, standardError: null, percentile: null, basic: null, replicates: values.length, failedReplicates };
+  }
+  const iv = bootstrapInterval(point, values, level);
+  const flip = ([lo, hi]: readonly [number, number]): [number, number] => (sign > 0 ? [lo, hi] : [-hi, -lo]);
+  return { value: sign * point, standardError: iv.standardError, percentile: flip(iv.percentile), basic: flip(iv.basic), replicates: values.length, failedReplicates };
+}
+
+/** a_b − b_b on the resamples where both have a value. */
+export function pairedReplicates(a: Replicates, b: Replicates): Replicates {
+  return a.map((v, i) => (v === null || b[i] === null ? null : v - (b[i] as number)));
+}
+
+export interface Estimator {
+  name: string;
+  point: number; // reward terms
+  replicates: Replicates;
+}
+
+export function pairedDifference(a: Estimator, b: Estimator, level: number, sign: number): PairedDifference {
+  const differences = pairedReplicates(a.replicates, b.replicates);
+  const usable = differences.filter((d): d is number => d !== null);
+  return {
+    a: a.name, b: b.name,
+    difference: intervalEstimate(a.point - b.point, differences, level, sign),
+    probabilityBetter: usable.length ? usable.filter((d) => d > 0).length / usable.length : 0, // reward terms: higher is better
+  };
+}
+
+/** Order by point estimate (best first) and how often that order holds across the resamples. */
+export function ranking(estimators: Estimator[]): Ranking {
+  const order = [...estimators].sort((x, y) => y.point - x.point);
+  const resamples = estimators[0]?.replicates.length ?? 0;
+  let whole = 0;
+  const neighbourCounts = new Array<number>(Math.max(0, order.length - 1)).fill(0);
+  let usable = 0;
+  for (let b = 0; b < resamples; b++) {
+    const values = order.map((e) => e.replicates[b]);
+    if (values.some((v) => v === null)) continue;
+    usable++;
+    let holds = true;
+    for (let i = 0; i + 1 < values.length; i++) {
+      if ((values[i] as number) > (values[i + 1] as number)) neighbourCounts[i]++;
+      else holds = false;
+    }
+    if (holds) whole++;
+  }
+  const share = (count: number) => (usable ? count / usable : 0);
+  return {
+    order: order.map((e) => e.name),
+    frequency: share(whole),
+    neighbours: neighbourCounts.map((count, i) => ({ better: order[i].name, worse: order[i + 1].name, frequency: share(count) })),
+  };
+}

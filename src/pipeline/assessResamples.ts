@@ -1,0 +1,113 @@
+/**
+ * The one loop over bootstrap resamples: each resample's episode multiplicities are drawn once and
+ * every estimator is evaluated on that same resample — the logged return, each candidate's fitted
+ * Q-evaluation, its importance-sampling and doubly robust cross-checks and the linear-quadratic
+ * model — so any two of them can be compared by a paired bootstrap (Efron & Tibshirani 1993,
+ * §14.1 on paired comparisons from common resamples). Values are in reward terms.
+ */
+import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
+import { linearFqeReplicate } from '../core/bootstrap/linearFqeReplicate';
+import { throwIfCancelled } from '../core/fqe/cancellation';
+import { fitLinearQuadraticModel, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
+import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
+import { ImportanceSamplingError, weightedDoublyRobust, weightedPerDecisionImportanceSampling } from '../core/offPolicy/perDecisionEstimators';
+import { isModelValueFailure } from './assessModelCheck';
+import type { CandidateWork, SharedInputs } from './assessCandidate';
+import type { AssessmentSettings } from './assessSettings';
+
+export type Replicates = (number | null)[];
+
+export interface CandidateReplicates {
+  fqe: Replicates;
+  importanceSampling: Replicates | null;
+  doublyRobust: Replicates | null;
+  model: Replicates | null;
+}
+
+export interface ReplicateSet {
+  behaviour: Replicates;
+  candidates: CandidateReplicates[];
+}
+
+export interface ResampleProgress {
+  done: number;
+  total: number;
+}
+
+export function runResamples(
+  shared: SharedInputs, works: CandidateWork[], perEpisodeReturns: Float64Array, model: { regressions: ModelRegressions; applicable: boolean[] } | null,
+  settings: AssessmentSettings, onProgress?: (p: ResampleProgress) => void,
+): ReplicateSet {
+  const e = shared.index.episodes, c = new Uint32Array(e), scratch = works.map((w) => new Float64Array(w.setup.sums.stride));
+  const out: ReplicateSet = {
+    behaviour: [],
+    candidates: works.map((w, j) => ({
+      fqe: [], importanceSampling: 'table' in w.offPolicy ? [] : null, doublyRobust: 'table' in w.offPolicy ? [] : null,
+      model: model?.applicable[j] ? [] : null,
+    })),
+  };
+  for (let b = 0; b < settings.resamples; b++) {
+    if (b % 25 === 0) {
+      throwIfCancelled(shared.cancel);
+      onProgress?.({ done: b, total: settings.resamples });
+    }
+    episodeMultiplicities(e, settings.seed, b, c);
+    out.behaviour.push(weightedMean(perEpisodeReturns, c));
+    const fitted = model ? resampleModel(model.regressions, c) : null;
+    works.forEach((w, j) => replicateCandidate(shared, w, out.candidates[j], c, scratch[j], fitted));
+  }
+  onProgress?.({ done: settings.resamples, total: settings.resamples });
+  return out;
+}
+
+function replicateCandidate(
+  shared: SharedInputs, w: CandidateWork, out: CandidateReplicates, c: Uint32Array, scratch: Float64Array, fitted: LinearQuadraticModelFit | null,
+): void {
+  const discount = shared.project.discount;
+  out.fqe.push(linearFqeReplicate(w.setup, c, scratch).policyValue);
+  if ('table' in w.offPolicy) {
+    const { table, actionValues, stateValues } = w.offPolicy;
+    out.importanceSampling!.push(guarded(() => weightedPerDecisionImportanceSampling(table, discount, c)));
+    out.doublyRobust!.push(guarded(() => weightedDoublyRobust(table, discount, actionValues, stateValues, c)));
+  }
+  if (out.model) {
+    out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.policy, discount, shared.startStates, shared.startsFollowEpisodes ? c : undefined)) : null);
+  }
+}
+
+/** Σ c_k G_k / Σ c_k: the mean of the resample's per-episode values. */
+export function weightedMean(values: Float64Array, c: ArrayLike<number>): number {
+  let total = 0, count = 0;
+  for (let k = 0; k < values.length; k++) {
+    total += c[k] * values[k];
+    count += c[k];
+  }
+  return total / count;
+}
+
+function resampleModel(regressions: ModelRegressions, c: Uint32Array): LinearQuadraticModelFit | null {
+  try {
+    return fitLinearQuadraticModel(regressions, c);
+  } catch (error) {
+    if (error instanceof ModelFitError) return null;
+    throw error;
+  }
+}
+
+function guarded(estimate: () => number): number | null {
+  try {
+    return estimate();
+  } catch (error) {
+    if (error instanceof ImportanceSamplingError) return null;
+    throw error;
+  }
+}
+
+function modelGuarded(estimate: () => number): number | null {
+  try {
+    return estimate();
+  } catch (error) {
+    if (isModelValueFailure(error)) return null;
+    throw error;
+  }
+}

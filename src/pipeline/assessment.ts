@@ -1,0 +1,167 @@
+/**
+ * What an assessment returns: the evidence a reviewer asks for beside each J — bootstrap
+ * intervals, the logged behaviour's baseline, cross-checks by other methods, coverage
+ * diagnostics, sensitivity to settings, and the comparison of candidates. Plain data (numbers,
+ * strings, arrays) so it crosses a worker boundary, prints as JSON and feeds the report and the
+ * app's plots. Values are in the project's sense (costs stay costs; lower is better then).
+ */
+
+export interface IntervalEstimate {
+  /** Point estimate on the full data. */
+  value: number;
+  /** Standard deviation of the bootstrap replicates; null with fewer than 2 replicates. */
+  standardError: number | null;
+  /** Percentile interval [q(α/2), q(1 − α/2)] of the replicates (Davison & Hinkley 1997, §5.3). */
+  percentile: [number, number] | null;
+  /** Basic interval [2θ̂ − q(1 − α/2), 2θ̂ − q(α/2)] (Davison & Hinkley 1997, §5.2). */
+  basic: [number, number] | null;
+  /** Replicates that gave a value, and those that did not (no solution on that resample). */
+  replicates: number;
+  failedReplicates: number;
+}
+
+export type CrossCheckMethod = 'weightedImportanceSampling' | 'weightedDoublyRobust' | 'linearQuadraticModel';
+export type Agreement = 'agrees' | 'disagrees' | 'uninformative' | 'notApplicable';
+
+export interface CrossCheck {
+  method: CrossCheckMethod;
+  label: string;
+  /** The assumption the method rests on, in plain words. */
+  assumption: string;
+  estimate: IntervalEstimate | null;
+  /** Paired difference (this method − fitted Q-evaluation) over the same resamples. */
+  difference: IntervalEstimate | null;
+  agreement: Agreement;
+  /** Why it is not applicable or uninformative, or how it compares. */
+  note: string;
+}
+
+export type Severity = 'caution' | 'serious';
+
+export interface AssessmentWarning {
+  severity: Severity;
+  /** Stable key for hosts (e.g. "distributionShift"), and the sentence for a reviewer. */
+  topic: string;
+  message: string;
+}
+
+export interface ImportanceWeightDiagnostics {
+  /** Kish ESS of the one-step ratios ρ over all transitions, and as a share of them. */
+  oneStepEffectiveSize: number;
+  oneStepShare: number;
+  /** Step H = round(1/(1 − γ)) (the effective horizon) and the ESS of the cumulative weights there, over the episodes reaching it. */
+  horizonSteps: number;
+  horizonEffectiveEpisodes: number;
+  horizonEpisodes: number;
+}
+
+export interface ActionSupportDiagnostics {
+  neighbours: number;
+  queryStates: number;
+  /** Mean, 90th percentile and largest outside-probability over the query states. */
+  meanOutside: number;
+  p90Outside: number;
+  maxOutside: number;
+  /** The same mean for the fitted behaviour model: the level the logs' own controller reaches. */
+  behaviourMeanOutside: number | null;
+}
+
+export interface CoverageDiagnostics {
+  /** νᵀΣ⁻¹ν with ν over the start states and over the logged next states (1 = no shift). */
+  distributionShiftStart: number;
+  distributionShiftNext: number | null;
+  importanceWeights: ImportanceWeightDiagnostics | null;
+  actionSupport: ActionSupportDiagnostics;
+}
+
+export interface ActionSlice {
+  /** Which state is varied to pick the slice states, and the state the slice is taken at. */
+  label: string;
+  state: number[];
+  actionIndex: number;
+  actions: number[];
+  /** Q(s, a) along the action, in the project's sense. */
+  values: number[];
+  candidateMean: number;
+  candidateStd: number;
+  /** Range of the logged actions near this state (k nearest logged states). */
+  loggedRange: [number, number];
+}
+
+export interface CandidateAssessment {
+  name: string;
+  policyValue: IntervalEstimate;
+  crossChecks: CrossCheck[];
+  diagnostics: CoverageDiagnostics;
+  slices: ActionSlice[];
+  warnings: AssessmentWarning[];
+}
+
+export interface PairedDifference {
+  /** a − b in the project's sense. */
+  a: string;
+  b: string;
+  difference: IntervalEstimate;
+  /** Share of resamples in which a is better than b (higher reward or lower cost). */
+  probabilityBetter: number;
+}
+
+export interface Ranking {
+  /** Best first, by the point estimates; the logged behaviour is included. */
+  order: string[];
+  /** Share of resamples in which this whole order holds. */
+  frequency: number;
+  /** Share of resamples in which each neighbouring pair keeps its order. */
+  neighbours: { better: string; worse: string; frequency: number }[];
+}
+
+export interface Comparison {
+  differences: PairedDifference[];
+  ranking: Ranking;
+}
+
+export interface SensitivitySeries {
+  name: string;
+  /** J at each setting in the project's sense; null where the fit gave no value (status says why). */
+  values: (number | null)[];
+  status: string[];
+}
+
+export interface SensitivityCurve {
+  parameter: 'discount' | 'polynomialDegree' | 'centresPerInput';
+  label: string;
+  settings: number[];
+  /** Index of the project's own setting in `settings`. */
+  projectIndex: number;
+  series: SensitivitySeries[];
+  /** Whether the ranking by J (candidates and behaviour where shown) is the same at every setting. */
+  rankingStable: boolean;
+}
+
+export interface Sensitivity {
+  curves: SensitivityCurve[];
+  notes: string[];
+}
+
+export interface AssessmentSettingsUsed {
+  resamples: number;
+  level: number;
+  seed: number;
+  resampledUnit: 'episodes';
+  episodes: number;
+  solver: string;
+}
+
+export interface Assessment {
+  settings: AssessmentSettingsUsed;
+  behaviour: IntervalEstimate;
+  candidates: CandidateAssessment[];
+  comparison: Comparison;
+  sensitivity: Sensitivity | null;
+  /** Share of the value-surface grid with no logged state (V is extrapolated there); null without a surface. */
+  unvisitedShare: number | null;
+  warnings: AssessmentWarning[];
+  /** Definitions and thresholds used, stated once for the report. */
+  method: string[];
+  valueSense: 'reward' | 'cost';
+}

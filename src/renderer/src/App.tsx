@@ -1,0 +1,77 @@
+/**
+ * The app shell: toolbar, notices, the step list and the current step's screen, and the dialog
+ * host. Menu commands and keyboard shortcuts arrive here and go to the workspace's commands.
+ */
+import { useCallback, useEffect, useRef, useState } from 'react';
+import type { MenuCommand, MenuCommandDetail } from '../../shared/appApi';
+import { keyCommand } from './commandKeys';
+import { DialogHost } from './components/DialogHost';
+import { useDocument, useDocumentState, useProblems, useSession, useStale } from './hooks';
+import { NoticeBanner } from './NoticeBanner';
+import { CandidatesScreen } from './screens/candidates/CandidatesScreen';
+import { EstimatorScreen } from './screens/estimator/EstimatorScreen';
+import { FindingsScreen } from './screens/findings/FindingsScreen';
+import { PlantLogScreen } from './screens/plantLog/PlantLogScreen';
+import { RunScreen } from './screens/run/RunScreen';
+import { StepNav } from './StepNav';
+import { stepStatuses, type StepId } from './steps';
+import { toggleTheme } from './theme';
+import { Toolbar } from './Toolbar';
+import { useWorkspace } from './WorkspaceContext';
+
+export function App() {
+  const workspace = useWorkspace();
+  const [step, setStep] = useState<StepId>('plant-log');
+  const screen = useRef<HTMLElement>(null);
+  const doc = useDocument();
+  const session = useSession();
+  const problems = useProblems();
+  const stale = useStale();
+  const statuses = stepStatuses(doc, session, problems, stale);
+
+  const command = useCallback((c: MenuCommand, detail?: MenuCommandDetail): void => {
+    const { files, documents, runner } = workspace;
+    const actions: Record<MenuCommand, () => unknown> = {
+      'new-project': files.newProject, 'open-project': files.openProject, 'save-project': files.save,
+      'open-recent-project': () => detail && files.openRecent(detail.path),
+      'save-project-as': files.saveAs, 'close-project': files.close, undo: documents.undo, redo: documents.redo,
+      'toggle-theme': toggleTheme, 'run-evaluation': () => { setStep('run'); return runner.run(); }, 'cancel-evaluation': runner.cancel,
+    };
+    void actions[c]();
+  }, [workspace]);
+
+  useEffect(() => workspace.api.onMenuCommand(command), [workspace, command]);
+  // Another document (new, opened, restored) starts at the first step.
+  const generation = useDocumentState((s) => s.generation);
+  useEffect(() => setStep('plant-log'), [generation]);
+  useEffect(() => {
+    const onKey = (e: KeyboardEvent): void => {
+      const found = keyCommand(e, workspace.api.host);
+      if (!found) return;
+      e.preventDefault();
+      if (found.kind === 'step') setStep(found.step);
+      else command(found.command);
+    };
+    window.addEventListener('keydown', onKey);
+    return () => window.removeEventListener('keydown', onKey);
+  }, [workspace, command]);
+
+  const go = (id: StepId): void => setStep(id);
+  return (
+    <div className="app">
+      <Toolbar />
+      <NoticeBanner />
+      <div className="body">
+        <StepNav current={step} statuses={statuses} onSelect={go} />
+        <main className="screen" id="screen" role="tabpanel" aria-labelledby={`tab-${step}`} ref={screen} tabIndex={-1}>
+          {step === 'plant-log' && <PlantLogScreen onNext={() => go('candidates')} />}
+          {step === 'candidates' && <CandidatesScreen onNext={() => go('estimator')} />}
+          {step === 'estimator' && <EstimatorScreen onNext={() => go('run')} />}
+          {step === 'run' && <RunScreen onFindings={() => go('findings')} />}
+          {step === 'findings' && <FindingsScreen />}
+        </main>
+      </div>
+      <DialogHost questions={workspace.questions} />
+    </div>
+  );
+}

@@ -1,0 +1,51 @@
+/** The top bar: project file commands, undo and redo, the theme, and the project's name and state. */
+import { useDirty, useDocumentState, useSession } from './hooks';
+import { fileNameOf } from './document/dataPath';
+import { redoLabel, undoLabel } from './document/editHistory';
+import { useStore } from './state/useStore';
+import { themeStore, toggleTheme, type Theme } from './theme';
+import { useWorkspace } from './WorkspaceContext';
+
+const same = (t: Theme) => t;
+
+export function Toolbar() {
+  const { files, documents } = useWorkspace();
+  const name = useDocumentState((s) => s.history.present.name);
+  const path = useDocumentState((s) => s.projectPath);
+  const undoText = useDocumentState((s) => undoLabel(s.history));
+  const redoText = useDocumentState((s) => redoLabel(s.history));
+  const dirty = useDirty();
+  const recent = useSession().recentProjects;
+  const theme = useStore(themeStore, same);
+  return (
+    <header className="toolbar">
+      <h1 className="title">Setpoint Critic</h1>
+      <span className="project-name" data-testid="project-title" title={path ?? 'not saved yet'}>
+        {name}{dirty ? ' • unsaved changes' : ''}
+      </span>
+      <span className="spacer" />
+      <div className="group" role="group" aria-label="Project file">
+        <button onClick={() => void files.newProject()} data-testid="new-project">New</button>
+        <button onClick={() => void files.openProject()} data-testid="open-project">Open…</button>
+        <label className="sr-only" htmlFor="recent-projects">Open a recent project</label>
+        <select
+          id="recent-projects" value="" disabled={recent.length === 0} data-testid="recent-projects"
+          onChange={(e) => e.target.value && void files.openRecent(e.target.value)}
+        >
+          <option value="">{recent.length === 0 ? 'No recent projects' : 'Open recent…'}</option>
+          {recent.map((p) => <option key={p} value={p} title={p}>{fileNameOf(p)}</option>)}
+        </select>
+        <button onClick={() => void files.save()} data-testid="save-project">Save</button>
+        <button onClick={() => void files.saveAs()} data-testid="save-project-as">Save as…</button>
+        <button onClick={() => void files.close()} data-testid="close-project">Close</button>
+      </div>
+      <div className="group" role="group" aria-label="Edit">
+        <button onClick={documents.undo} disabled={!undoText} title={undoText ? `Undo ${undoText} (Ctrl+Z)` : 'Nothing to undo'} data-testid="undo">Undo</button>
+        <button onClick={documents.redo} disabled={!redoText} title={redoText ? `Redo ${redoText} (Ctrl+Shift+Z)` : 'Nothing to redo'} data-testid="redo">Redo</button>
+      </div>
+      <button onClick={toggleTheme} aria-pressed={theme === 'dark'} data-testid="toggle-theme" title="Switch between light and dark">
+        {theme === 'dark' ? 'Light theme' : 'Dark theme'}
+      </button>
+    </header>
+  );
+}

@@ -1,0 +1,44 @@
+/**
+ * A plot as a PNG of exactly widthPx × heightPx: the chart drawn off screen at that size (fonts and
+ * lines scaled by dpi/96), the caption drawn under it, on white or left transparent, encoded by the
+ * browser, with a pHYs chunk telling the dpi so a report places it at its intended physical size
+ * (e.g. 1950 × 1200 px at 300 dpi = 6.5 in × 4 in).
+ */
+import { drawCaption } from './captionLayout';
+import { exportPlan } from './exportPlan';
+import { drawChartOnce } from './offscreenChart';
+import type { ExportOptions, PlotSpec } from './plotSpec';
+import { withPhysicalResolution } from './pngChunks';
+import { canvasTextMeasure } from './textMeasure';
+
+export class PngExportError extends Error {
+  constructor(message: string) {
+    super(message);
+    this.name = 'PngExportError';
+  }
+}
+
+export async function exportPlotPng(spec: PlotSpec, options: ExportOptions): Promise<Uint8Array> {
+  const measure = canvasTextMeasure();
+  if (!measure) throw new PngExportError('PNG export needs a browser canvas, and none is available here');
+  const plan = exportPlan(spec, options, measure);
+  const plot = document.createElement('canvas');
+  plot.width = plan.widthPx;
+  plot.height = plan.plotHeightPx;
+  const chart = drawChartOnce(plot, spec, plan.look);
+  const out = document.createElement('canvas');
+  out.width = plan.widthPx;
+  out.height = plan.heightPx;
+  const ctx = out.getContext('2d');
+  if (!ctx) throw new PngExportError('PNG export: the browser gave no 2D canvas context');
+  if (options.background === 'white') {
+    ctx.fillStyle = '#ffffff';
+    ctx.fillRect(0, 0, out.width, out.height);
+  }
+  ctx.drawImage(plot, 0, 0);
+  chart.destroy();
+  drawCaption(ctx, plan.caption, plan.plotHeightPx, plan.look);
+  const blob = await new Promise<Blob | null>((resolve) => out.toBlob(resolve, 'image/png'));
+  if (!blob) throw new PngExportError(`PNG export: the browser could not encode a ${out.width}×${out.height} image`);
+  return withPhysicalResolution(new Uint8Array(await blob.arrayBuffer()), options.dpi);
+}

@@ -1,0 +1,50 @@
+/**
+ * Numbers as people read them on screen: a few significant digits, no trailing zeros, exponent
+ * notation only for very large or very small magnitudes, and a true minus sign.
+ */
+export function formatNumber(x: number, significant = 4): string {
+  if (Number.isNaN(x)) return '—';
+  if (!Number.isFinite(x)) return x > 0 ? '∞' : '−∞';
+  if (x === 0) return '0';
+  const magnitude = Math.abs(x);
+  const text = magnitude >= 1e6 || magnitude < 1e-4 ? exponential(x, significant) : trimZeros(x.toPrecision(significant));
+  return text.replace(/^-/, '−');
+}
+
+function exponential(x: number, significant: number): string {
+  const [mantissa, exponent] = x.toExponential(significant - 1).split('e');
+  const trimmed = mantissa.includes('.') ? mantissa.replace(/\.?0+$/, '') : mantissa;
+  return `${trimmed}e${exponent.replace(/^\+/, '')}`;
+}
+
+function trimZeros(text: string): string {
+  if (text.includes('e')) return String(Number(text));
+  return text.includes('.') ? text.replace(/\.?0+$/, '') : text;
+}
+
+/** A value as an editable field shows it: the shortest text that reads back to the same number. */
+export function editableNumber(x: number | null): string {
+  if (x === null || Number.isNaN(x)) return '';
+  const magnitude = Math.abs(x);
+  // 1e-6 reads better than 0.000001; toExponential() without digits is the shortest round trip.
+  return magnitude !== 0 && (magnitude < 1e-3 || magnitude >= 1e9) ? x.toExponential().replace('e+', 'e') : String(x);
+}
+
+/** The number a field's text means, or null when it is not one (blank, "1,2", "abc"). */
+export function parseNumber(text: string): number | null {
+  const trimmed = text.trim().replace(/^−/, '-');
+  if (!/^[+-]?(?:\d+\.?\d*|\.\d+)(?:[eE][+-]?\d+)?$/.test(trimmed)) return null;
+  const value = Number(trimmed);
+  return Number.isFinite(value) ? value : null;
+}
+
+/** Milliseconds as "1 min 05 s", "12 s", "< 1 s". */
+export function formatDuration(ms: number): string {
+  if (!Number.isFinite(ms) || ms < 0) return '—';
+  const seconds = Math.round(ms / 1000);
+  if (seconds < 1) return '< 1 s';
+  if (seconds < 60) return `${seconds} s`;
+  const minutes = Math.floor(seconds / 60);
+  if (minutes < 60) return `${minutes} min ${String(seconds % 60).padStart(2, '0')} s`;
+  return `${Math.floor(minutes / 60)} h ${String(minutes % 60).padStart(2, '0')} min`;
+}

@@ -1,0 +1,20 @@
+/** The candidate comparison as a React component (see policyValueChart.ts for the drawing). */
+import type { ChartConfiguration } from 'chart.js';
+import { useMemo } from 'react';
+import { ChartFigure, tryBuild } from './ChartFigure';
+import { screenLook } from './plotLook';
+import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueChartHeight, policyValueSummary, type PolicyValueChartProps } from './policyValueChart';
+
+export function PolicyValueChart(props: PolicyValueChartProps) {
+  const look = useMemo(() => screenLook(props.theme), [props.theme]);
+  const build = useMemo(
+    () => tryBuild(() => policyValueChart(props, look) as unknown as ChartConfiguration),
+    [props.evaluation, props.title, look],
+  );
+  return (
+    <ChartFigure
+      testId="plot-comparison" label={props.title ?? POLICY_VALUE_DEFAULTS.title} summary={policyValueSummary(props)}
+      heightPx={policyValueChartHeight(props.evaluation)} palette={look.palette} build={build}
+    />
+  );
+}

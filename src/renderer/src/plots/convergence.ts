@@ -1,0 +1,109 @@
+/**
+ * The fit history on a log axis: for the linear fit, the relative weight change and the Bellman
+ * residual per iteration; for a network fit (no weight change), the training loss and the
+ * held-out Bellman error. A log axis cannot show zero or negative values, so those points are gaps.
+ */
+import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
+import type { FitIteration } from '../../../pipeline/estimates';
+import { sharedOptions, valueAxis } from './chartStyle';
+import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
+import type { Theme } from './plotTheme';
+import { formatValue } from './tickFormat';
+
+export const CONVERGENCE_DEFAULTS = { heightPx: 320, lineWidthPx: 2, pointRadiusPx: 2.5 } as const;
+
+export interface ConvergencePlotProps {
+  history: FitIteration[];
+  title: string;
+  theme: Theme;
+}
+
+type XY = { x: number; y: number | null };
+type SeriesField = 'weightChange' | 'bellmanResidual' | 'loss';
+
+interface Series {
+  readonly field: SeriesField;
+  readonly label: string;
+}
+
+/** A network fit reports a loss and no weight change. */
+export function isNetworkHistory(history: readonly FitIteration[]): boolean {
+  return history.length > 0 && history.every((h) => h.weightChange === null) && history.some((h) => h.loss !== null);
+}
+
+export function convergenceSeries(history: readonly FitIteration[]): Series[] {
+  return isNetworkHistory(history)
+    ? [{ field: 'loss', label: 'training loss' }, { field: 'bellmanResidual', label: 'held-out Bellman error (mean squared)' }]
+    : [{ field: 'weightChange', label: 'relative weight change' }, { field: 'bellmanResidual', label: 'Bellman residual (mean squared)' }];
+}
+
+function positiveOrNull(v: number | null): number | null {
+  return v !== null && Number.isFinite(v) && v > 0 ? v : null;
+}
+
+export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
+  const { history } = props, p = look.palette, s = look.scale, d = CONVERGENCE_DEFAULTS;
+  const series = convergenceSeries(history);
+  const datasets: ChartDataset<'line', XY[]>[] = series.map((serie, k) => ({
+    label: serie.label,
+    data: history.map((h) => ({ x: h.iteration, y: positiveOrNull(h[serie.field]) })),
+    borderColor: p.series[k], backgroundColor: p.series[k], borderWidth: d.lineWidthPx * s,
+    borderDash: k === 1 ? [6 * s, 3 * s] : [], pointRadius: history.length > 60 ? 0 : d.pointRadiusPx * s, spanGaps: false,
+  }));
+  const shared = sharedOptions(look, props.title, history.length ? `${history.length} iteration${history.length === 1 ? '' : 's'}, log scale` : null);
+  const hasData = datasets.some((set) => set.data.some((pt) => pt.y !== null));
+  return {
+    type: 'line',
+    data: { datasets },
+    plugins: hasData ? [] : [emptyNotice(look)],
+    options: {
+      ...shared,
+      parsing: false,
+      interaction: { mode: 'index', intersect: false },
+      scales: {
+        x: { ...valueAxis(look, 'iteration', 'bottom'), type: 'linear', min: 1, max: Math.max(2, history.length), ticks: { ...valueAxis(look, '', 'bottom').ticks, precision: 0 } },
+        y: { ...valueAxis(look, 'value (log scale)', 'left'), type: 'logarithmic', ticks: { ...valueAxis(look, '', 'left').ticks, callback: (v) => logTickLabel(Number(v)) } },
+      },
+      plugins: {
+        ...shared.plugins,
+        // Legend swatches as short lines, so the dashed series shows dashed.
+        legend: { ...shared.plugins?.legend, labels: { ...shared.plugins?.legend?.labels, usePointStyle: true, pointStyle: 'line', pointStyleWidth: 28 * s } },
+        tooltip: { ...shared.plugins?.tooltip, callbacks: { label: (item) => `${item.dataset.label}: ${formatValue(item.parsed.y ?? NaN)}` } },
+      },
+    },
+  };
+}
+
+/** Label only 1·10^k ticks (and 2 and 5 · 10^k when they fit), in short form; others stay unlabelled. */
+export function logTickLabel(value: number): string {
+  if (!(value > 0)) return '';
+  const mantissa = value / 10 ** Math.floor(Math.log10(value) + 1e-9);
+  const nearest = Math.round(mantissa);
+  return Math.abs(mantissa - nearest) < 1e-6 && (nearest === 1 || nearest === 2 || nearest === 5) ? formatValue(value) : '';
+}
+
+function emptyNotice(look: PlotLook): Plugin {
+  return {
+    id: 'setpointEmptyHistory',
+    afterDraw(chart) {
+      const { ctx, chartArea: a } = chart;
+      ctx.save();
+      ctx.fillStyle = look.palette.mutedText;
+      ctx.font = fontString(look, PLOT_FONTS.axisTitlePx);
+      ctx.textAlign = 'center';
+      ctx.textBaseline = 'middle';
+      ctx.fillText('no iteration history to show', (a.left + a.right) / 2, (a.top + a.bottom) / 2);
+      ctx.restore();
+    },
+  };
+}
+
+export function convergenceSummary(props: ConvergencePlotProps): string {
+  const { history } = props;
+  if (history.length === 0) return 'Fit history: no iterations recorded.';
+  const last = history[history.length - 1];
+  const parts = convergenceSeries(history)
+    .filter((serie) => last[serie.field] !== null)
+    .map((serie) => `${serie.label} ${formatValue(last[serie.field] as number)}`);
+  return `Fit history over ${history.length} iterations on a log scale. At the last iteration: ${parts.join('; ') || 'no values'}.`;
+}

@@ -1,0 +1,95 @@
+/**
+ * Policy value J ± standard error per candidate, next to the logged behaviour's own discounted
+ * return, as horizontal bars with whiskers. The axis title carries the value sense (a cost: lower
+ * is better; a reward: higher is better), because the numbers stay in the project's sense.
+ */
+import type { ChartConfiguration } from 'chart.js';
+import type { Evaluation, FitStatus } from '../../../pipeline/estimates';
+import { sharedOptions, valueAxis } from './chartStyle';
+import { errorWhiskersPlugin } from './errorWhiskers';
+import type { PlotLook } from './plotLook';
+import type { Theme } from './plotTheme';
+import { formatValue } from './tickFormat';
+
+export const POLICY_VALUE_DEFAULTS = {
+  /** On-screen height: base plus one row per bar, CSS px. */
+  baseHeightPx: 150,
+  rowHeightPx: 46,
+  /** Bar thickness as a share of its row, and its cap in CSS px. */
+  barShare: 0.55,
+  maxBarThicknessPx: 44,
+  /** Room past the largest whisker for its value label, as a fraction of the span. */
+  labelRoom: 0.15,
+  title: 'Policy value per candidate',
+} as const;
+
+export interface PolicyValueChartProps {
+  evaluation: Evaluation;
+  theme: Theme;
+  title?: string;
+}
+
+export const LOGGED_BEHAVIOUR_LABEL = 'logged behaviour (discounted return)';
+
+const STATUS_NOTE: Record<FitStatus, string> = { converged: '', maxIterations: ' (iteration limit)', diverged: ' (diverged)' };
+
+interface Row {
+  readonly label: string;
+  readonly value: number;
+  readonly error: number | null;
+}
+
+export function policyValueRows(evaluation: Evaluation): Row[] {
+  return [
+    ...evaluation.policies.map((p) => ({ label: `${p.name}${STATUS_NOTE[p.status]}`, value: p.policyValue, error: p.standardError })),
+    { label: LOGGED_BEHAVIOUR_LABEL, value: evaluation.behaviour.value, error: evaluation.behaviour.standardError },
+  ];
+}
+
+export function valueSenseText(sense: Evaluation['valueSense']): string {
+  return sense === 'cost' ? 'cost: lower is better' : 'reward: higher is better';
+}
+
+export function policyValueChartHeight(evaluation: Evaluation): number {
+  return POLICY_VALUE_DEFAULTS.baseHeightPx + POLICY_VALUE_DEFAULTS.rowHeightPx * (evaluation.policies.length + 1);
+}
+
+export function policyValueChart(props: PolicyValueChartProps, look: PlotLook): ChartConfiguration<'bar', number[], string> {
+  const rows = policyValueRows(props.evaluation), p = look.palette, s = look.scale, d = POLICY_VALUE_DEFAULTS;
+  const ends = rows.flatMap((r) => [r.value - (r.error ?? 0), r.value + (r.error ?? 0), 0]);
+  const lo = Math.min(...ends), hi = Math.max(...ends), span = hi - lo || 1;
+  const labels = rows.map((r) => (r.error === null ? formatValue(r.value) : `${formatValue(r.value)} ± ${formatValue(r.error)}`));
+  const colours = rows.map((_, i) => (i === rows.length - 1 ? p.reference : p.series[i % p.series.length]));
+  const shared = sharedOptions(look, props.title ?? d.title, 'bars: estimate of J; whiskers: ±1 standard error over start states (not the fit’s own error)');
+  return {
+    type: 'bar',
+    data: {
+      labels: rows.map((r) => r.label),
+      datasets: [{ label: 'J', data: rows.map((r) => r.value), backgroundColor: colours, borderColor: colours, borderWidth: 0, barPercentage: d.barShare, categoryPercentage: 1, maxBarThickness: d.maxBarThicknessPx * s }],
+    },
+    plugins: [errorWhiskersPlugin({ values: rows.map((r) => r.value), errors: rows.map((r) => r.error), labels, look })],
+    options: {
+      ...shared,
+      indexAxis: 'y',
+      scales: {
+        x: {
+          // Suggested, so Chart.js rounds the ends out to its own ticks.
+          type: 'linear', suggestedMin: lo < 0 ? lo - span * d.labelRoom : 0, suggestedMax: hi > 0 ? hi + span * d.labelRoom : 0,
+          ...valueAxis(look, `policy value J (${valueSenseText(props.evaluation.valueSense)})`, 'bottom'),
+        },
+        y: { type: 'category', ticks: { color: p.text, font: valueAxis(look, '', 'left').ticks?.font }, grid: { display: false }, border: { color: p.axis, width: s } },
+      },
+      plugins: {
+        ...shared.plugins,
+        legend: { display: false },
+        tooltip: { ...shared.plugins?.tooltip, callbacks: { label: (item) => `J = ${labels[item.dataIndex]}` } },
+      },
+    },
+  };
+}
+
+export function policyValueSummary(props: PolicyValueChartProps): string {
+  const rows = policyValueRows(props.evaluation);
+  return `Policy value J per candidate (${valueSenseText(props.evaluation.valueSense)}), ±1 standard error: `
+    + rows.map((r) => `${r.label} ${formatValue(r.value)}${r.error === null ? '' : ` ± ${formatValue(r.error)}`}`).join('; ') + '.';
+}

@@ -1,0 +1,45 @@
+/**
+ * The behaviour model fitted to the log (a = c + G·s + e): what today's controller looks like, each
+ * coefficient ± its standard error, one column per action.
+ */
+import type { BehaviourFit } from '../../../../shared/workerMessages';
+import type { ProjectDocument } from '../../../../project/schema';
+import { formatNumber } from '../../format/numberFormat';
+
+export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectDocument; behaviour: BehaviourFit; onStart: () => void }) {
+  if (!behaviour.ok) {
+    return (
+      <section className="panel" aria-labelledby="behaviour-heading">
+        <h3 id="behaviour-heading">Behaviour model</h3>
+        <p className="error-text">It could not be fitted: {behaviour.message}</p>
+      </section>
+    );
+  }
+  const m = behaviour.model;
+  const { states, actions } = doc.columns;
+  const pm = (value: number, se: number) => `${formatNumber(value)} ± ${formatNumber(se, 2)}`;
+  const rows: { label: string; cell: (j: number) => string }[] = [
+    { label: 'Offset', cell: (j) => pm(m.offset[j], m.offsetStandardError[j]) },
+    ...states.map((s, p) => ({ label: `Gain on ${s.column}`, cell: (j: number) => pm(m.gain[j][p], m.gainStandardError[j][p]) })),
+    { label: 'Standard deviation', cell: (j) => formatNumber(m.std[j]) },
+    { label: 'R²', cell: (j) => formatNumber(m.rSquared[j], 3) },
+  ];
+  return (
+    <section className="panel" aria-labelledby="behaviour-heading" data-testid="behaviour-model">
+      <h3 id="behaviour-heading">Behaviour model</h3>
+      <p className="small muted">
+        A linear-Gaussian fit of the logged actions on the states (least squares over {m.count.toLocaleString('en-US')} transitions):
+        roughly what today’s controller does. Values ± one standard error.
+      </p>
+      <table>
+        <thead><tr><th scope="col">Coefficient</th>{actions.map((a) => <th scope="col" className="number" key={a.column}>{a.column}</th>)}</tr></thead>
+        <tbody>
+          {rows.map((row) => (
+            <tr key={row.label}><th scope="row">{row.label}</th>{actions.map((a, j) => <td className="number" key={a.column}>{row.cell(j)}</td>)}</tr>
+          ))}
+        </tbody>
+      </table>
+      <p><button onClick={onStart} data-testid="candidate-from-behaviour">Start a candidate from the behaviour model</button></p>
+    </section>
+  );
+}

@@ -1,0 +1,57 @@
+/** Settings of the neural-network approximator (the project schema's network settings). */
+import { useEffect, useState } from 'react';
+import { NumberField } from '../../components/NumberField';
+import { SelectField } from '../../components/SelectField';
+import { problemAt, type FieldProblem } from '../../document/projectProblems';
+import type { ApproximatorSettings } from '../../../../project/schema';
+import { useWorkspace } from '../../WorkspaceContext';
+import { formatHiddenLayers, parseHiddenLayers } from './hiddenLayers';
+import { SETTING_HELP } from './settingHelp';
+
+type Network = Extract<ApproximatorSettings, { kind: 'network' }>;
+type NumericKey = 'learningRate' | 'batchSize' | 'stepsPerIteration' | 'outerIterations' | 'heldOutFraction' | 'patience' | 'averageLast';
+
+const NUMERIC: { key: NumericKey; label: string }[] = [
+  { key: 'learningRate', label: 'Learning rate' }, { key: 'batchSize', label: 'Batch size' },
+  { key: 'stepsPerIteration', label: 'Steps per round' }, { key: 'outerIterations', label: 'Rounds' },
+  { key: 'heldOutFraction', label: 'Held-out fraction' }, { key: 'patience', label: 'Patience' }, { key: 'averageLast', label: 'Average last' },
+];
+
+export function NetworkSettings({ settings, problems }: { settings: Network; problems: readonly FieldProblem[] }) {
+  const { documents } = useWorkspace();
+  const set = (label: string, change: Partial<Network>, key: string): void =>
+    documents.edit(label, (d) => (d.approximator.kind === 'network' ? { ...d, approximator: { ...d.approximator, ...change } } : d), `approximator.${key}`);
+  const at = (path: string) => problemAt(problems, `approximator.${path}`);
+  const [layersText, setLayersText] = useState(formatHiddenLayers(settings.hiddenLayers));
+  useEffect(() => setLayersText((t) => (parseHiddenLayers(t)?.join() === settings.hiddenLayers.join() ? t : formatHiddenLayers(settings.hiddenLayers))), [settings.hiddenLayers]);
+  const layers = parseHiddenLayers(layersText);
+  return (
+    <>
+      <div className="row">
+        <div className="field">
+          <label htmlFor="hidden-layers">Hidden layers</label>
+          <input id="hidden-layers" value={layersText} aria-invalid={layers === null || Boolean(at('hiddenLayers'))} onBlur={documents.closeStep}
+            onChange={(e) => {
+              setLayersText(e.target.value);
+              const parsed = parseHiddenLayers(e.target.value);
+              if (parsed) set('set the hidden layers', { hiddenLayers: parsed }, 'hiddenLayers');
+            }} />
+          <span className="help">{SETTING_HELP.hiddenLayers}</span>
+          {(layers === null || at('hiddenLayers')) && <span className="message">{layers === null ? 'expected whole numbers separated by commas, e.g. 64, 64' : at('hiddenLayers')}</span>}
+        </div>
+        <SelectField label="Activation" value={settings.activation} help={SETTING_HELP.activation}
+          options={[{ value: 'relu', label: 'ReLU' }, { value: 'tanh', label: 'tanh' }, { value: 'elu', label: 'ELU' }]}
+          onChange={(activation) => set('change the activation', { activation }, 'activation')} />
+        <SelectField label="Backend" value={settings.backend} help={SETTING_HELP.backend}
+          options={[{ value: 'auto', label: 'Automatic' }, { value: 'wasm', label: 'WebAssembly' }, { value: 'cpu', label: 'JavaScript (cpu)' }]}
+          onChange={(backend) => set('change the backend', { backend }, 'backend')} />
+      </div>
+      <div className="row">
+        {NUMERIC.map(({ key, label }) => (
+          <NumberField key={key} label={label} value={settings[key]} help={SETTING_HELP[key]} message={at(key)} onBlur={documents.closeStep}
+            onCommit={(v) => v !== null && set(`set the ${label.toLowerCase()}`, { [key]: v }, key)} />
+        ))}
+      </div>
+    </>
+  );
+}

@@ -1,0 +1,27 @@
+/** How each candidate's fit converged: weight change and Bellman residual (or loss) per iteration. */
+import { useState } from 'react';
+import { ConvergencePlot } from '../../plots';
+import { SelectField } from '../../components/SelectField';
+import type { Evaluation } from '../../../../pipeline/estimates';
+import type { Theme } from '../../theme';
+import { ExportPanel } from './ExportPanel';
+
+export function ConvergencePanel({ evaluation, theme }: { evaluation: Evaluation; theme: Theme }) {
+  const [candidate, setCandidate] = useState(0);
+  const estimate = evaluation.policies[candidate];
+  if (!estimate) return null;
+  const title = `Convergence of ${estimate.name}`;
+  return (
+    <section className="panel" aria-labelledby="convergence-heading">
+      <h3 id="convergence-heading">Convergence</h3>
+      <div className="row">
+        <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="convergence-candidate"
+          options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />
+      </div>
+      <p className="small">{estimate.message}</p>
+      <ConvergencePlot history={estimate.history} title={title} theme={theme} />
+      <ExportPanel kind="convergence" evaluation={evaluation} defaultTitle={title} policy={estimate.name} fileBase={`convergence-${estimate.name}`}
+        makeSpec={(t) => ({ kind: 'convergence', props: { history: estimate.history, title: t, theme } })} />
+    </section>
+  );
+}

@@ -1,0 +1,43 @@
+/**
+ * Step 5, the findings: the cautions first, then each candidate's value beside today's, the value
+ * surface, the action-value slice and the convergence of each fit, each with its export.
+ */
+import { Cautions } from '../../components/Cautions';
+import { ProblemList } from '../../components/ProblemList';
+import { useSession, useStale } from '../../hooks';
+import { useStore } from '../../state/useStore';
+import { themeStore, type Theme } from '../../theme';
+import { ConvergencePanel } from './ConvergencePanel';
+import { SlicePanel } from './SlicePanel';
+import { SurfacePanel } from './SurfacePanel';
+import { ValueComparison } from './ValueComparison';
+
+const same = (t: Theme) => t;
+
+export function FindingsScreen() {
+  const session = useSession();
+  const stale = useStale();
+  const theme = useStore(themeStore, same);
+  const record = session.evaluation;
+  const imported = session.importState.status === 'done' ? session.importState.result : null;
+  return (
+    <>
+      <header>
+        <h2>Findings</h2>
+        <p>What the log says about each candidate. Read the cautions before using any number.</p>
+      </header>
+      <Cautions />
+      {!record && <p className="problems info">No results yet: run the evaluation on the Run step.</p>}
+      {record && (
+        <>
+          {stale && <p className="problems warning" role="status" data-testid="stale-results">These results come from an earlier run; the settings or the data have changed since. Run again to update them.</p>}
+          <ProblemList title="Notes from the evaluation" problems={record.evaluation.warnings.map((w) => ({ where: 'evaluation', message: w }))} tone="warning" />
+          <ValueComparison evaluation={record.evaluation} theme={theme} />
+          {imported && imported.stateNames.length >= 2 && <SurfacePanel evaluation={record.evaluation} imported={imported} theme={theme} />}
+          {imported && <SlicePanel evaluation={record.evaluation} imported={imported} theme={theme} />}
+          <ConvergencePanel evaluation={record.evaluation} theme={theme} />
+        </>
+      )}
+    </>
+  );
+}

@@ -1,0 +1,36 @@
+/** Words on the plots and in export captions: axes with units, what V means, the settings in a line. */
+import type { Evaluation } from '../../../../pipeline/estimates';
+import type { ProjectDocument } from '../../../../project/schema';
+
+export function stateLabel(doc: ProjectDocument, index: number): string {
+  const s = doc.columns.states[index];
+  return s ? (s.unit ? `${s.column} (${s.unit})` : s.column) : `state ${index + 1}`;
+}
+
+export function actionLabel(doc: ProjectDocument, index: number): string {
+  const a = doc.columns.actions[index];
+  return a ? (a.unit ? `${a.column} (${a.unit})` : a.column) : `action ${index + 1}`;
+}
+
+/** What the plotted values are, short enough for an axis: discounted costs or rewards (the panel says which way is better). */
+export function valueLabel(sense: 'reward' | 'cost', symbol: 'V' | 'Q'): string {
+  return `${symbol}^π (discounted ${sense})`;
+}
+
+/** The settings behind the numbers, for captions: "γ = 0.95; linear …; 10 nodes; seed 1; 19,960 transitions". */
+export function settingsLine(evaluation: Evaluation): string {
+  const s = evaluation.settings;
+  return `γ = ${s.discount}; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}; ${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} episodes`;
+}
+
+/** "2024-05-01 14:03 UTC" from an ISO time stamp. */
+export function captionDate(iso: string): string {
+  const d = new Date(iso);
+  return Number.isNaN(d.getTime()) ? iso : `${d.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+}
+
+/** The held values of the states not on the axes, as "level_lower_m = 0.8 m". */
+export function heldLabel(doc: ProjectDocument, held: readonly number[], axes: readonly number[], format: (x: number) => string): string {
+  const parts = doc.columns.states.flatMap((s, i) => (axes.includes(i) ? [] : [`${s.column} = ${format(held[i])}${s.unit ? ` ${s.unit}` : ''}`]));
+  return parts.length === 0 ? '' : `Other states held at ${parts.join(', ')}`;
+}

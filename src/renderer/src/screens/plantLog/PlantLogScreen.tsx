@@ -1,0 +1,53 @@
+/** Step 1, the plant log: the project, the data file, how to read it, the column roles and the import. */
+import { ColumnRoleTable } from './ColumnRoleTable';
+import { CsvSettingsPanel } from './CsvSettingsPanel';
+import { DataSourcePanel } from './DataSourcePanel';
+import { ImportSummary } from './ImportSummary';
+import { ProjectNameFields } from './ProjectNameFields';
+import { RewardAndEpisodes } from './RewardAndEpisodes';
+import { useSession } from '../../hooks';
+import { Cautions } from '../../components/Cautions';
+
+export function PlantLogScreen(props: { onNext: () => void }) {
+  const session = useSession();
+  return (
+    <>
+      <header>
+        <h2>Plant log</h2>
+        <p>
+          Start with the data logged under today’s controller: a CSV file with one row per sample. Choose the file, tell the program which
+          columns are states, actions and the reward or cost, and check the import below before going on.
+        </p>
+      </header>
+      {session.source.kind === 'none' && <Welcome />}
+      <ProjectNameFields />
+      <DataSourcePanel />
+      {session.inspection && (
+        <>
+          <CsvSettingsPanel />
+          <ColumnRoleTable />
+          <RewardAndEpisodes />
+        </>
+      )}
+      <ImportSummary />
+      <button className="primary" onClick={props.onNext} disabled={session.importState.status !== 'done'} data-testid="next-candidates">
+        Next: candidates
+      </button>
+    </>
+  );
+}
+
+/** For a new project: what the tool does, the five steps, and the cautions before any number is seen. */
+function Welcome() {
+  return (
+    <section className="panel" aria-labelledby="welcome-heading" data-testid="welcome">
+      <h3 id="welcome-heading">What this does</h3>
+      <p>
+        From data logged under today’s controller, Setpoint Critic estimates how a candidate setpoint policy would perform before it touches
+        the plant: it fits the candidate’s action-value function by fitted Q-evaluation and reports its value beside what the plant does today.
+        Go through the steps on the left in order; each says what it still needs. To continue earlier work, use <strong>Open…</strong>.
+      </p>
+      <Cautions />
+    </section>
+  );
+}

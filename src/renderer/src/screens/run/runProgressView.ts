@@ -1,0 +1,35 @@
+/** The numbers the progress panel shows, from the run's latest reports. */
+import type { RunProgress } from '../../../../shared/workerMessages';
+import { iterationsRemaining, timeRemainingMs } from './timeRemaining';
+
+export interface ProgressView {
+  candidate: string;
+  candidateNumber: number; // 1-based
+  candidateCount: number;
+  iteration: number | null;
+  bellmanResidual: number | null;
+  weightChange: number | null;
+  elapsedMs: number;
+  remainingMs: number | null;
+  /** Share of the whole run done, 0…1. */
+  fraction: number;
+}
+
+export function progressView(reports: readonly RunProgress[], startsMs: readonly number[]): ProgressView | null {
+  const last = reports[reports.length - 1];
+  if (!last) return null;
+  const iteration = last.iteration?.iteration ?? null;
+  const remaining = iterationsRemaining(reports);
+  const withinCandidate = iteration !== null && remaining !== null ? iteration / (iteration + remaining) : 0;
+  return {
+    candidate: last.candidate,
+    candidateNumber: last.candidateIndex + 1,
+    candidateCount: last.candidateCount,
+    iteration,
+    bellmanResidual: last.iteration?.bellmanResidual ?? null,
+    weightChange: last.iteration?.weightChange ?? null,
+    elapsedMs: last.elapsedMs,
+    remainingMs: timeRemainingMs(reports, startsMs),
+    fraction: Math.min(1, (last.candidateIndex + withinCandidate) / last.candidateCount),
+  };
+}

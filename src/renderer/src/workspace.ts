@@ -1,0 +1,47 @@
+/**
+ * The app's parts, made once and wired together: the document store, the session, the worker
+ * client and the commands over them. Components reach it through WorkspaceContext and call its
+ * commands; the rules live in the modules it composes.
+ */
+import type { AppApi } from '../../shared/appApi';
+import { createDocumentStore, type DocumentStore } from './document/documentStore';
+import { syncDocumentState } from './files/documentTitle';
+import { createProjectCommands, type ProjectCommands } from './files/projectCommands';
+import { offerRecovery, startRecoveryAutosave } from './files/recovery';
+import { startAutoImport } from './session/autoImport';
+import { createDataLoading, type DataLoading } from './session/dataLoading';
+import { createEvaluationRunner, type EvaluationRunner } from './session/evaluationRunner';
+import { createSessionStore, type SessionStore } from './session/sessionStore';
+import { createQuestionStore, type QuestionStore } from './state/questionStore';
+import { createEvaluationClient, type EvaluationClient } from './worker/evaluationClient';
+
+export interface Workspace {
+  api: AppApi;
+  documents: DocumentStore;
+  session: SessionStore;
+  questions: QuestionStore;
+  client: EvaluationClient;
+  data: DataLoading;
+  files: ProjectCommands;
+  runner: EvaluationRunner;
+  /** Start the background duties (title, autosave, imports, recovery offer); returns the stop function. */
+  start(): () => void;
+}
+
+export function createWorkspace(api: AppApi, client: EvaluationClient = createEvaluationClient()): Workspace {
+  const documents = createDocumentStore();
+  const session = createSessionStore();
+  const questions = createQuestionStore();
+  const data = createDataLoading(api, documents, session, client);
+  const files = createProjectCommands({ api, documents, session, questions, data });
+  const runner = createEvaluationRunner(documents, session, client);
+  return {
+    api, documents, session, questions, client, data, files, runner,
+    start() {
+      const stops = [syncDocumentState(api, documents), startRecoveryAutosave(api, documents), startAutoImport(documents, session, client)];
+      void files.refreshRecent();
+      void offerRecovery({ api, documents, session, questions, data });
+      return () => stops.forEach((stop) => stop());
+    },
+  };
+}

@@ -1,0 +1,110 @@
+/**
+ * A new user's path from an empty window, in the built renderer with the real main-process modules
+ * behind it: choose the sample CSV, give its columns roles, define two candidates, run, read both
+ * values, export a PNG, save, reopen, run again and see the same numbers. Screenshots of every
+ * screen go to test-artifacts/screens/.
+ */
+import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchApp, type LaunchedApp } from './harness/launch';
+import {
+  addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, TANK_CSV,
+} from '../renderer/e2e/appSteps';
+
+describe('a new user evaluates two candidates (e2e)', () => {
+  let app: LaunchedApp;
+  let firstValues: number[] = [];
+  let projectPath = '';
+
+  beforeAll(async () => {
+    app = await launchApp();
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('starts on the plant log step with the cautions in view', async () => {
+    await app.page.getByRole('heading', { name: 'Plant log' }).waitFor();
+    await expect(app.page.getByTestId('welcome').innerText()).resolves.toContain('offline, advisory estimates');
+    await app.screenshot('workflow-1-start');
+  });
+
+  it('imports the sample CSV with the columns mapped', async () => {
+    const { page } = app;
+    await chooseData(app, TANK_CSV);
+    await mapTankColumns(page);
+    // The sample's simulator writes 40 runs of 500 rows (sample-projects/tank-levels/simulate.ts): 40 × 499 transitions.
+    await expect(page.getByTestId('transition-count').innerText()).resolves.toBe('19,960');
+    await expect(page.getByTestId('episode-count').innerText()).resolves.toBe('40');
+    await page.getByLabel('Project name').fill('Tank levels, e2e');
+    await app.screenshot('workflow-2-plant-log');
+  });
+
+  it('defines two candidates', async () => {
+    const { page } = app;
+    await goToStep(page, 'candidates');
+    await addCandidate(page, 0, { name: 'Tuned', offset: 189, gain: [-60, -90], std: 1.5 });
+    await addCandidate(page, 1, { name: 'Trim error', offset: 190.5, gain: [-60, -90], std: 1.5 });
+    await page.getByTestId('candidate-chart').waitFor();
+    await expect(page.getByTestId('step-candidates').innerText()).resolves.toContain('2 candidates');
+    await app.screenshot('workflow-3-candidates');
+    await goToStep(page, 'estimator');
+    await app.screenshot('workflow-4-estimator');
+  });
+
+  it('runs and shows both policy values beside the logged behaviour', async () => {
+    const { page } = app;
+    firstValues = await runAndReadValues(page, 2);
+    expect(firstValues.every(Number.isFinite)).toBe(true);
+    // A trim error moves the levels off their setpoints, so its expected cost is the higher one.
+    expect(firstValues[1]).toBeGreaterThan(firstValues[0]);
+    await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
+    await page.getByTestId('plot-slice').waitFor({ timeout: 30_000 });
+    await expect(page.getByTestId('cautions').innerText()).resolves.toContain('advisory');
+    await app.screenshot('workflow-5-findings-light');
+    await page.getByTestId('toggle-theme').click();
+    await app.screenshot('workflow-5-findings-dark');
+    await page.getByTestId('toggle-theme').click();
+  });
+
+  it('exports the value surface as a PNG of the chosen size that is not blank', async () => {
+    const { page, harness } = app;
+    const target = join(harness.workFolder, 'surface.png');
+    harness.dialogs.nextExport = target;
+    await page.getByTestId('export-surface').locator('summary').click();
+    await page.getByTestId('export-png-surface').click();
+    await page.getByTestId('export-status-surface').getByText('Saved').waitFor({ timeout: 30_000 });
+    const bytes = new Uint8Array(await readFile(target));
+    // The default preset: 6.5 × 4 in at 300 dpi = 1950 × 1200 px.
+    expect(pngSize(bytes)).toEqual({ width: 1950, height: 1200 });
+    const content = await decodedPngContent(page, bytes);
+    expect(content.colours).toBeGreaterThan(50);
+    expect(content.differing).toBeGreaterThan(0.05);
+  });
+
+  it('saves, reopens and reruns to the same numbers', async () => {
+    const { page, harness } = app;
+    projectPath = join(harness.workFolder, 'tank-levels-e2e.spcritic');
+    harness.dialogs.nextSave = projectPath;
+    await page.getByTestId('save-project').click();
+    await harness.waitForDocumentState((s) => !s.dirty && s.name === 'Tank levels, e2e');
+    const saved = JSON.parse(await readFile(projectPath, 'utf8'));
+    expect(saved.candidates.map((c: { name: string }) => c.name)).toEqual(['Tuned', 'Trim error']);
+    expect(saved.data.sha256).toMatch(/^[0-9a-f]{64}$/);
+
+    await page.getByTestId('new-project').click();
+    await page.getByTestId('welcome').waitFor();
+    harness.dialogs.nextOpenProject = projectPath;
+    await page.getByTestId('open-project').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
+    await expect(page.getByLabel('Project name').inputValue()).resolves.toBe('Tank levels, e2e');
+    const again = await runAndReadValues(page, 2);
+    expect(again).toEqual(firstValues);
+  });
+
+  it('logged no console errors and made no request beyond its origin', () => {
+    expect(app.consoleErrors).toEqual([]);
+    expect(app.blockedRequests).toEqual([]);
+  });
+});
