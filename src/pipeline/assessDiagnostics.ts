@@ -8,7 +8,8 @@
  *   - action support: a mean outside-probability above 10 % is a caution, above 25 % serious (ours;
  *     the logged controller's own level is shown beside it for scale).
  */
-import { meanStartFeatures } from '../core/bootstrap/startFeatures';
+import { createActionQuadrature } from '../core/actionQuadrature';
+import { meanStartFeatures, policyFeatureMean } from '../core/bootstrap/startFeatures';
 import { distributionShift, nextStateFeatureMean } from '../core/diagnostics/distributionShift';
 import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { effectiveSampleSizeFromLogs } from '../core/diagnostics/effectiveSampleSize';
@@ -16,7 +17,7 @@ import { ridgeGram, ridgeGramFactor } from '../core/fqe/ridgeSystem';
 import type { ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import type { GaussianPolicy } from '../core/policy';
 import type { ActionSupportDiagnostics, AssessmentWarning, CoverageDiagnostics, ImportanceWeightDiagnostics } from './assessment';
-import type { CandidateWork } from './assessCandidate';
+import type { CandidateWork, SharedInputs } from './assessCandidate';
 
 export const COVERAGE_THRESHOLDS = {
   distributionShift: { caution: 4, serious: 25 },
@@ -24,16 +25,33 @@ export const COVERAGE_THRESHOLDS = {
   outside: { caution: 0.1, serious: 0.25 },
 } as const;
 
-export function coverageDiagnostics(work: CandidateWork, ranges: LoggedActionRanges, behaviourOutside: number | null): CoverageDiagnostics {
+export interface BehaviourReference {
+  policy: GaussianPolicy | null;
+  /** Mean share of its action probability outside the logged range near each state. */
+  meanOutside: number | null;
+}
+
+export function coverageDiagnostics(work: CandidateWork, shared: SharedInputs, ranges: LoggedActionRanges, behaviour: BehaviourReference): CoverageDiagnostics {
   const stats = work.fullStatistics, d = stats.dim;
   const factor = ridgeGramFactor(ridgeGram(stats, work.setup.ridge, work.features.constantIndex), d, work.setup.ridge);
   const next = nextStateFeatureMean(stats, work.features.constantIndex);
+  const reference = behaviour.policy && behaviourShift(work, shared, behaviour.policy, factor);
   return {
     distributionShiftStart: distributionShift(meanStartFeatures(work.setup.startFeatures, d), factor, d),
     distributionShiftNext: next && distributionShift(next, factor, d),
-    importanceWeights: 'table' in work.offPolicy ? weightDiagnostics(work.offPolicy.table, work.setup.discount) : null,
-    actionSupport: actionSupport(work.policy, ranges, behaviourOutside),
+    behaviourShiftStart: reference?.start ?? null,
+    behaviourShiftNext: reference?.next ?? null,
+    importanceWeights: 'perDecision' in work.offPolicy ? weightDiagnostics(work.offPolicy.table, work.setup.discount) : null,
+    actionSupport: actionSupport(work.policy, ranges, behaviour.meanOutside),
   };
+}
+
+/** νᵀΣ⁻¹ν of the fitted behaviour with the same features and Σ (ν by its own action quadrature). */
+function behaviourShift(work: CandidateWork, shared: SharedInputs, policy: GaussianPolicy, factor: Float64Array): { start: number; next: number } {
+  const { data } = shared, d = work.features.dim, quadrature = createActionQuadrature(policy, shared.project.quadratureNodes);
+  const start = policyFeatureMean(work.features, quadrature, shared.startStates, data.stateDim);
+  const next = policyFeatureMean(work.features, quadrature, data.nextStates, data.stateDim, data.terminal);
+  return { start: distributionShift(start, factor, d), next: distributionShift(next, factor, d) };
 }
 
 export function weightDiagnostics(table: ImportanceWeightTable, discount: number): ImportanceWeightDiagnostics {
@@ -64,14 +82,7 @@ function actionSupport(policy: GaussianPolicy, ranges: LoggedActionRanges, behav
 
 export function coverageWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
   const t = COVERAGE_THRESHOLDS, out: AssessmentWarning[] = [];
-  const shift = Math.max(d.distributionShiftStart, d.distributionShiftNext ?? 0);
-  if (shift > t.distributionShift.caution) {
-    out.push({
-      severity: shift > t.distributionShift.serious ? 'serious' : 'caution', topic: 'distributionShift',
-      message: `Distribution shift νᵀΣ⁻¹ν = ${shift.toPrecision(3)} (1 means none): the error bound of linear FQE grows with its square root, here ${Math.sqrt(shift).toFixed(1)}× the on-policy level. ` +
-        'The candidate leads to feature combinations the logs rarely contain.',
-    });
-  }
+  out.push(...shiftWarnings(d));
   const w = d.importanceWeights;
   if (w && w.horizonEpisodes > 0 && w.horizonEffectiveEpisodes < t.effectiveShare.caution * w.horizonEpisodes) {
     out.push({
@@ -87,6 +98,33 @@ export function coverageWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
       severity: a.meanOutside > t.outside.serious ? 'serious' : 'caution', topic: 'actionSupport',
       message: `On average ${(100 * a.meanOutside).toFixed(1)} % of the candidate’s action probability lies outside the actions logged at the ${a.neighbours} nearest logged states${reference}: ` +
         'there Q is extrapolated to actions the logs do not hold.',
+    });
+  }
+  return out;
+}
+
+/**
+ * The next-state shift is the candidate's own (same states, its actions); the start-state shift
+ * also says how unusual the start states are in the logs, so it is read beside the behaviour's.
+ */
+function shiftWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
+  const t = COVERAGE_THRESHOLDS.distributionShift, out: AssessmentWarning[] = [];
+  const bound = (v: number) => `the error bound of linear FQE grows with its square root, here ${Math.sqrt(v).toFixed(1)}× the on-policy level`;
+  const next = d.distributionShiftNext;
+  if (next !== null && next > t.caution) {
+    out.push({
+      severity: next > t.serious ? 'serious' : 'caution', topic: 'distributionShift',
+      message: `Distribution shift over the logged next states νᵀΣ⁻¹ν = ${next.toPrecision(3)} (1 means none): ${bound(next)}. The candidate asks for actions in combinations the logs rarely contain.`,
+    });
+  }
+  const start = d.distributionShiftStart, reference = d.behaviourShiftStart;
+  if (start > t.caution) {
+    const own = reference === null ? '' : ` (the logged controller itself: ${reference.toPrecision(3)})`;
+    const ratherStarts = reference !== null && start < 2 * reference;
+    out.push({
+      severity: start > t.serious && !ratherStarts ? 'serious' : 'caution', topic: 'distributionShift',
+      message: `Distribution shift over the start states νᵀΣ⁻¹ν = ${start.toPrecision(3)}${own}: ${bound(start)}. ` +
+        (ratherStarts ? 'The start states themselves lie where the logs are thin, so J leans on extrapolated values there.' : 'The candidate’s actions at the start states lie where the logs are thin.'),
     });
   }
   return out;

@@ -10,7 +10,7 @@ import { linearFqeReplicate } from '../core/bootstrap/linearFqeReplicate';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { fitLinearQuadraticModel, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
-import { ImportanceSamplingError, weightedDoublyRobust, weightedPerDecisionImportanceSampling } from '../core/offPolicy/perDecisionEstimators';
+import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import { isModelValueFailure } from './assessModelCheck';
 import type { CandidateWork, SharedInputs } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
@@ -38,11 +38,12 @@ export function runResamples(
   shared: SharedInputs, works: CandidateWork[], perEpisodeReturns: Float64Array, model: { regressions: ModelRegressions; applicable: boolean[] } | null,
   settings: AssessmentSettings, onProgress?: (p: ResampleProgress) => void,
 ): ReplicateSet {
-  const e = shared.index.episodes, c = new Uint32Array(e), scratch = works.map((w) => new Float64Array(w.setup.sums.stride));
+  const e = shared.index.episodes, c = new Uint32Array(e);
+  const scratch = works.map((w) => new Float64Array(w.setup.sums.stride));
   const out: ReplicateSet = {
     behaviour: [],
     candidates: works.map((w, j) => ({
-      fqe: [], importanceSampling: 'table' in w.offPolicy ? [] : null, doublyRobust: 'table' in w.offPolicy ? [] : null,
+      fqe: [], importanceSampling: 'perDecision' in w.offPolicy ? [] : null, doublyRobust: 'perDecision' in w.offPolicy ? [] : null,
       model: model?.applicable[j] ? [] : null,
     })),
   };
@@ -61,14 +62,16 @@ export function runResamples(
 }
 
 function replicateCandidate(
-  shared: SharedInputs, w: CandidateWork, out: CandidateReplicates, c: Uint32Array, scratch: Float64Array, fitted: LinearQuadraticModelFit | null,
+  shared: SharedInputs, w: CandidateWork, out: CandidateReplicates, c: Uint32Array,
+  scratch: Float64Array, fitted: LinearQuadraticModelFit | null,
 ): void {
   const discount = shared.project.discount;
   out.fqe.push(linearFqeReplicate(w.setup, c, scratch).policyValue);
-  if ('table' in w.offPolicy) {
-    const { table, actionValues, stateValues } = w.offPolicy;
-    out.importanceSampling!.push(guarded(() => weightedPerDecisionImportanceSampling(table, discount, c)));
-    out.doublyRobust!.push(guarded(() => weightedDoublyRobust(table, discount, actionValues, stateValues, c)));
+  const offPolicy = w.offPolicy;
+  if ('perDecision' in offPolicy) {
+    const estimates = guarded(() => perDecisionEstimates(offPolicy.perDecision, discount, c));
+    out.importanceSampling!.push(estimates && estimates.importanceSampling);
+    out.doublyRobust!.push(estimates && estimates.doublyRobust);
   }
   if (out.model) {
     out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.policy, discount, shared.startStates, shared.startsFollowEpisodes ? c : undefined)) : null);
@@ -94,7 +97,7 @@ function resampleModel(regressions: ModelRegressions, c: Uint32Array): LinearQua
   }
 }
 
-function guarded(estimate: () => number): number | null {
+function guarded<T>(estimate: () => T): T | null {
   try {
     return estimate();
   } catch (error) {

@@ -6,11 +6,14 @@
  *
  * The discount sweep reuses each candidate's one-pass statistics, which do not depend on γ
  * (linearFqe.ts), so each point is one solve. Discounts are spread over the effective horizon
- * 1/(1 − γ) at ½, ¾, 1, 1½ and 2 times the project's. The feature sweep refits on the data.
+ * 1/(1 − γ) at ½, ¾, 1, 1½ and 2 times the project's. The feature sweep takes the project's
+ * degree (or centres per input) and one either side, each with its own data pass, solved as the
+ * resamples are (assessCandidate.ts: the fixed point when the full-data iteration converged).
  */
 import { meanStartFeatures } from '../core/bootstrap/startFeatures';
 import { solveReplicate } from '../core/bootstrap/linearFqeReplicate';
-import { fitLinearFqe } from '../core/fqe/linearFqe';
+import { accumulateBellmanStatistics } from '../core/fqe/bellmanStatistics';
+import { startStateFeatures } from '../core/bootstrap/startFeatures';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturn } from '../core/loggedReturn';
 import type { ApproximatorSettings } from '../project/schema';
@@ -20,8 +23,8 @@ import { isEngineError } from './engineErrors';
 import { featureMapFor } from './featureMapFor';
 
 const HORIZON_FACTORS = [0.5, 0.75, 1, 1.5, 2];
-const POLYNOMIAL_DEGREES = [1, 2, 3, 4];
-const RADIAL_CENTRES = [3, 4, 5, 6, 7];
+const MAX_DEGREE = 6; // the project schema's limit
+const MAX_CENTRES = 12;
 /** Feature maps larger than this are left out of the sweep (each costs a data pass of O(n·K·d²)). */
 const MAX_SWEEP_FEATURES = 300;
 const BEHAVIOUR = 'logged behaviour (today)';
@@ -50,7 +53,8 @@ function featureCurve(shared: SharedInputs, works: CandidateWork[], sign: number
   if (a.kind !== 'linear') return null;
   const polynomial = a.features.kind === 'polynomial';
   const own = a.features.kind === 'polynomial' ? a.features.degree : a.features.centresPerInput;
-  const candidates = [...new Set([...(polynomial ? POLYNOMIAL_DEGREES : RADIAL_CENTRES), own])].sort((x, y) => x - y);
+  const lowest = polynomial ? 1 : 2, highest = polynomial ? MAX_DEGREE : MAX_CENTRES;
+  const candidates = [own - 1, own, own + 1].filter((v) => v >= lowest && v <= highest);
   const variants = candidates
     .map((v) => ({ value: v, settings: { ...a, features: polynomial ? { kind: 'polynomial' as const, degree: v } : { ...a.features, centresPerInput: v } } }))
     .filter((v) => v.value === own || sizeOf(shared, v.settings) <= MAX_SWEEP_FEATURES);
@@ -77,12 +81,11 @@ function sizeOf(shared: SharedInputs, settings: Extract<ApproximatorSettings, { 
 function refit(shared: SharedInputs, w: CandidateWork, settings: Extract<ApproximatorSettings, { kind: 'linear' }>): { value: number | null; status: string } {
   throwIfCancelled(shared.cancel);
   try {
-    const fit = fitLinearFqe({
-      data: shared.data, policy: w.policy, features: featureMapFor(settings, shared.data), discount: shared.project.discount, ridge: settings.ridge,
-      quadratureNodes: shared.project.quadratureNodes, tolerance: settings.tolerance, maxIterations: settings.maxIterations, startStates: shared.startStates,
-    });
-    const chosen = fit.iterative ?? fit.fixedPoint;
-    return chosen ? { value: chosen.policyValue.value, status: fit.status } : { value: null, status: 'no solution' };
+    const features = featureMapFor(settings, shared.data), d = features.dim;
+    const stats = accumulateBellmanStatistics(shared.data, features, w.quadrature, { cancel: shared.cancel });
+    const xiBar = meanStartFeatures(startStateFeatures(features, w.quadrature, shared.startStates, shared.data.stateDim), d);
+    const fit = solveReplicate({ ...w.setup, ridge: settings.ridge, constantIndex: features.constantIndex, initialWeights: new Float64Array(d) }, stats, xiBar);
+    return { value: fit.policyValue, status: fit.status };
   } catch (error) {
     if (isEngineError(error)) return { value: null, status: (error as Error).message };
     throw error;

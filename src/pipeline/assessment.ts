@@ -70,6 +70,9 @@ export interface CoverageDiagnostics {
   /** νᵀΣ⁻¹ν with ν over the start states and over the logged next states (1 = no shift). */
   distributionShiftStart: number;
   distributionShiftNext: number | null;
+  /** The same statistics for the fitted behaviour model: the level the logs' own controller reaches. */
+  behaviourShiftStart: number | null;
+  behaviourShiftNext: number | null;
   importanceWeights: ImportanceWeightDiagnostics | null;
   actionSupport: ActionSupportDiagnostics;
 }

@@ -48,6 +48,17 @@ describe('a new user evaluates two candidates (e2e)', () => {
     await addCandidate(page, 1, { name: 'Trim error', offset: 190.5, gain: [-60, -90], std: 1.5 });
     await page.getByTestId('candidate-chart').waitFor();
     await expect(page.getByTestId('step-candidates').innerText()).resolves.toContain('2 candidates');
+    // Undo and redo from the keyboard take back and restore the last edit (the second candidate's spread).
+    const std = page.getByTestId('candidate-1').getByLabel('Standard deviation (%)');
+    await page.getByTestId('step-candidates').focus();
+    await page.keyboard.press('Control+z');
+    await expect(std.inputValue()).resolves.not.toBe('1.5');
+    await page.keyboard.press('Control+Shift+z');
+    await expect(std.inputValue()).resolves.toBe('1.5');
+    // Arrow keys move along the step list; Ctrl+number jumps.
+    await page.keyboard.press('ArrowDown');
+    await expect(page.getByTestId('step-estimator').getAttribute('aria-selected')).resolves.toBe('true');
+    await page.keyboard.press('Control+2');
     await app.screenshot('workflow-3-candidates');
     await goToStep(page, 'estimator');
     await app.screenshot('workflow-4-estimator');
@@ -56,6 +67,9 @@ describe('a new user evaluates two candidates (e2e)', () => {
   it('runs and shows both policy values beside the logged behaviour', async () => {
     const { page } = app;
     firstValues = await runAndReadValues(page, 2);
+    await goToStep(page, 'run');
+    await app.screenshot('workflow-5-run-finished');
+    await goToStep(page, 'findings');
     expect(firstValues.every(Number.isFinite)).toBe(true);
     // A trim error moves the levels off their setpoints, so its expected cost is the higher one.
     expect(firstValues[1]).toBeGreaterThan(firstValues[0]);
@@ -63,9 +77,13 @@ describe('a new user evaluates two candidates (e2e)', () => {
     await page.getByTestId('plot-slice').waitFor({ timeout: 30_000 });
     await expect(page.getByTestId('cautions').innerText()).resolves.toContain('advisory');
     await app.screenshot('workflow-5-findings-light');
-    await page.getByTestId('toggle-theme').click();
+    await app.harness.sendMenuCommand(page, 'toggle-theme');
     await app.screenshot('workflow-5-findings-dark');
     await page.getByTestId('toggle-theme').click();
+    // 125 % zoom of the 1280 × 840 window: 1024 × 672 CSS pixels at 1.25 device pixels each.
+    await page.setViewportSize({ width: 1024, height: 672 });
+    await app.screenshot('workflow-5-findings-125-percent');
+    await page.setViewportSize({ width: 1280, height: 840 });
   });
 
   it('exports the value surface as a PNG of the chosen size that is not blank', async () => {
@@ -87,7 +105,7 @@ describe('a new user evaluates two candidates (e2e)', () => {
     const { page, harness } = app;
     projectPath = join(harness.workFolder, 'tank-levels-e2e.spcritic');
     harness.dialogs.nextSave = projectPath;
-    await page.getByTestId('save-project').click();
+    await harness.sendMenuCommand(page, 'save-project'); // as the File menu's Save would
     await harness.waitForDocumentState((s) => !s.dirty && s.name === 'Tank levels, e2e');
     const saved = JSON.parse(await readFile(projectPath, 'utf8'));
     expect(saved.candidates.map((c: { name: string }) => c.name)).toEqual(['Tuned', 'Trim error']);

@@ -46,3 +46,27 @@ export function meanStartFeatures(xi: Float64Array, d: number, multiplicities?: 
   for (let f = 0; f < d; f++) out[f] /= total;
   return out;
 }
+
+/**
+ * Mean over states (count×ds) of ξ(s) = Σ_j ω_j φ(s, a_j), without storing the rows; rows with
+ * skip[i] ≠ 0 contribute zero features (a transition into a terminal state has no next action).
+ */
+export function policyFeatureMean(
+  features: FeatureMap, quadrature: ActionQuadrature, states: Float64Array, ds: number, skip?: Uint8Array,
+): Float64Array {
+  const d = features.dim, m = quadrature.actionDim, count = states.length / ds;
+  if (!Number.isInteger(count) || count < 1) throw new BootstrapError(`states: expected whole rows of ${ds} values, got ${states.length} values`);
+  const mean = new Float64Array(d), phi = new Float64Array(d), input = new Float64Array(ds + m);
+  const points = new Float64Array(quadrature.maxPoints * m), weights = new Float64Array(quadrature.maxPoints);
+  for (let s = 0; s < count; s++) {
+    if (skip?.[s]) continue;
+    for (let c = 0; c < ds; c++) input[c] = states[s * ds + c];
+    const k = quadrature.at(states, s * ds, points, weights);
+    for (let j = 0; j < k; j++) {
+      for (let c = 0; c < m; c++) input[ds + c] = points[j * m + c];
+      features.evaluate(input, 0, phi, 0);
+      for (let f = 0; f < d; f++) mean[f] += (weights[j] * phi[f]) / count;
+    }
+  }
+  return mean;
+}

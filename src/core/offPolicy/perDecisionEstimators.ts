@@ -27,63 +27,84 @@ export class ImportanceSamplingError extends Error {
   }
 }
 
-/** Per-step sums over the resample's episodes; grown once and reused across calls. */
-interface StepSums {
-  reached: Float64Array; // Σ_i c_i over episodes reaching step t
-  weight: Float64Array; // Σ_i c_i W_{i,t}
-  weightBefore: Float64Array; // Σ_i c_i W_{i,t−1} over episodes reaching t
-  weighted: Float64Array; // Σ_i c_i W_{i,t} (r − Q̂)   or   Σ_i c_i W_{i,t} r
-  weightedBefore: Float64Array; // Σ_i c_i W_{i,t−1} V̂(s_{i,t})
+/**
+ * The table's entries regrouped step by step (all episodes' step 0, then step 1, …), so that each
+ * step's sums accumulate in registers: a resample then costs one sequential pass with a gather of
+ * the episode multiplicity per entry, instead of scattered updates of per-step totals.
+ */
+export interface PerDecisionData {
+  readonly horizon: number;
+  readonly episodes: number;
+  readonly stepOffsets: Int32Array; // horizon+1: entries of step t at stepOffsets[t] … stepOffsets[t+1]
+  readonly episode: Int32Array; // n, step-major
+  readonly scaled: Float64Array; // n, step-major W_{i,t} (scaled per step)
+  readonly scaledBefore: Float64Array; // n, W_{i,t−1}
+  readonly rewards: Float64Array; // n
+  readonly actionValues: Float64Array | null; // n, Q̂(s_{i,t}, a_{i,t})
+  readonly stateValues: Float64Array | null; // n, V̂(s_{i,t})
 }
 
-function stepSums(horizon: number): StepSums {
-  return { reached: new Float64Array(horizon), weight: new Float64Array(horizon), weightBefore: new Float64Array(horizon), weighted: new Float64Array(horizon), weightedBefore: new Float64Array(horizon) };
+/** values: Q̂ and V̂ in the table's episode-major order (n each), or null for importance sampling alone. */
+export function perDecisionData(table: ImportanceWeightTable, values: { actionValues: Float64Array; stateValues: Float64Array } | null): PerDecisionData {
+  const { index, horizon, step } = table, n = step.length;
+  const stepOffsets = new Int32Array(horizon + 1);
+  for (let p = 0; p < n; p++) stepOffsets[step[p] + 1]++;
+  for (let t = 0; t < horizon; t++) stepOffsets[t + 1] += stepOffsets[t];
+  const next = stepOffsets.slice(0, horizon), order = new Int32Array(n), episode = new Int32Array(n);
+  for (let k = 0; k < index.episodes; k++) {
+    for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) {
+      const j = next[step[p]]++;
+      order[j] = p;
+      episode[j] = k;
+    }
+  }
+  const gather = (a: Float64Array) => Float64Array.from(order, (p) => a[p]);
+  return {
+    horizon, episodes: index.episodes, stepOffsets, episode,
+    scaled: gather(table.scaled), scaledBefore: gather(table.scaledBefore), rewards: gather(table.rewards),
+    actionValues: values && gather(values.actionValues), stateValues: values && gather(values.stateValues),
+  };
 }
 
-/** WPDIS (reward sense). multiplicities: e, default all 1. */
+export interface PerDecisionEstimates {
+  readonly importanceSampling: number; // WPDIS, reward sense
+  readonly doublyRobust: number | null; // WDR; null without Q̂ and V̂
+}
+
+/** WPDIS alone (reward sense). multiplicities: e, default all 1. */
 export function weightedPerDecisionImportanceSampling(table: ImportanceWeightTable, discount: number, multiplicities?: ArrayLike<number>): number {
-  return perDecisionEstimate(table, discount, multiplicities, null, null);
+  return perDecisionEstimates(perDecisionData(table, null), discount, multiplicities).importanceSampling;
 }
 
-/** WDR (reward sense). actionValues Q̂(s_t, a_t) and stateValues V̂(s_t): n, in the table's episode-major order. */
-export function weightedDoublyRobust(
-  table: ImportanceWeightTable, discount: number, actionValues: Float64Array, stateValues: Float64Array, multiplicities?: ArrayLike<number>,
-): number {
-  return perDecisionEstimate(table, discount, multiplicities, actionValues, stateValues);
-}
-
-function perDecisionEstimate(
-  table: ImportanceWeightTable, discount: number, multiplicities: ArrayLike<number> | undefined,
-  actionValues: Float64Array | null, stateValues: Float64Array | null,
-): number {
-  const sums = accumulate(table, multiplicities, actionValues, stateValues);
-  let total = 0, discountPower = 1;
-  for (let t = 0; t < table.horizon; t++, discountPower *= discount) {
-    if (sums.reached[t] === 0) continue; // no episode of the resample reaches step t
-    if (!(sums.weight[t] > 0 && sums.weightBefore[t] > 0)) {
+/** WPDIS and, when the data carry Q̂ and V̂, WDR — both from one pass. multiplicities: e, default all 1. */
+export function perDecisionEstimates(data: PerDecisionData, discount: number, multiplicities?: ArrayLike<number>): PerDecisionEstimates {
+  if (multiplicities && multiplicities.length !== data.episodes) {
+    throw new ImportanceSamplingError(`multiplicities: expected one per episode (${data.episodes}), got ${multiplicities.length}`);
+  }
+  // The inner loop is kept free of branches (V8 does not hoist them): absent inputs become ones and zeros.
+  const c = multiplicities ? Float64Array.from(multiplicities) : new Float64Array(data.episodes).fill(1);
+  const zeros = data.actionValues && data.stateValues ? null : new Float64Array(data.scaled.length);
+  const q = data.actionValues ?? zeros!, v = data.stateValues ?? zeros!;
+  const { stepOffsets, episode, scaled, scaledBefore, rewards } = data;
+  let is = 0, correction = 0, discountPower = 1;
+  for (let t = 0; t < data.horizon; t++, discountPower *= discount) {
+    let reached = 0, weight = 0, weightBefore = 0, reward = 0, action = 0, state = 0;
+    const end = stepOffsets[t + 1];
+    for (let j = stepOffsets[t]; j < end; j++) {
+      const ck = c[episode[j]], w = ck * scaled[j], before = ck * scaledBefore[j];
+      reached += ck;
+      weight += w;
+      weightBefore += before;
+      reward += w * rewards[j];
+      action += w * q[j];
+      state += before * v[j];
+    }
+    if (reached === 0) continue; // no episode of the resample reaches step t
+    if (!(weight > 0 && weightBefore > 0)) {
       throw new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every episode: the candidate gives the logged actions no probability`);
     }
-    total += discountPower * sums.weighted[t] / sums.weight[t];
-    if (stateValues) total += discountPower * sums.weightedBefore[t] / sums.weightBefore[t];
+    is += (discountPower * reward) / weight;
+    correction += discountPower * (state / weightBefore - action / weight);
   }
-  return total;
-}
-
-function accumulate(
-  table: ImportanceWeightTable, multiplicities: ArrayLike<number> | undefined, actionValues: Float64Array | null, stateValues: Float64Array | null,
-): StepSums {
-  const { index, step, scaled, scaledBefore, rewards } = table, sums = stepSums(table.horizon);
-  for (let k = 0; k < index.episodes; k++) {
-    const c = multiplicities ? multiplicities[k] : 1;
-    if (c === 0) continue;
-    for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) {
-      const t = step[p], w = c * scaled[p], before = c * scaledBefore[p];
-      sums.reached[t] += c;
-      sums.weight[t] += w;
-      sums.weightBefore[t] += before;
-      sums.weighted[t] += w * (actionValues ? rewards[p] - actionValues[p] : rewards[p]);
-      if (stateValues) sums.weightedBefore[t] += before * stateValues[p];
-    }
-  }
-  return sums;
+  return { importanceSampling: is, doublyRobust: zeros ? null : is + correction };
 }

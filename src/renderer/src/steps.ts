@@ -34,8 +34,8 @@ const ESTIMATOR_FIELDS = ['discount', 'approximator', 'quadratureNodes', 'seed',
 
 export function stepStatuses(doc: ProjectDocument, session: SessionState, problems: readonly FieldProblem[], stale: boolean): Record<StepId, StepStatus> {
   const imported = session.importState;
-  const plantLog: StepStatus = session.source.kind === 'none' ? { done: false, status: 'Needs a data file (CSV)' }
-    : session.dataProblems.length > 0 ? { done: false, status: 'The data file has a problem' }
+  const plantLog: StepStatus = session.dataProblems.length > 0 ? { done: false, status: 'The data file could not be read' }
+    : session.source.kind === 'none' ? { done: false, status: 'Needs a data file (CSV)' }
       : !rolesComplete(doc) ? { done: false, status: 'Needs column roles: a state, an action and a reward or cost' }
         : imported.status === 'failed' ? { done: false, status: 'The import found problems' }
           : imported.status === 'done' ? { done: true, status: `${imported.result.summary.transitionCount.toLocaleString('en-US')} transitions` }

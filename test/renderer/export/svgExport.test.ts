@@ -75,7 +75,7 @@ describe('exportPlotSvg', () => {
     expect(slice).not.toContain('<image');
     expect(slice).toContain('valve move (%)');
     expect(slice).toContain('cost &amp; energy');
-    expect(slice).toContain('upper limit: P = 0.1587');
+    expect(slice).toContain('upper limit 1.1: P = 0.1587');
     expect(fit).toContain('relative weight change');
     expect(fit).toContain('value (log scale)');
     expect(bars).toContain('policy value J (cost: lower is better)');
@@ -104,5 +104,16 @@ describe('export options', () => {
     expect(p.plotHeightPx + p.caption.heightPx).toBeLessThanOrEqual(1200);
     expect(p.plotHeightPx).toBeGreaterThan(1000);
     expect(p.caption.lines.join(' ')).toContain(CAUTION_SHORT);
+  });
+});
+
+describe('the well-formedness check itself', () => {
+  it('catches unbalanced tags, bare ampersands, unquoted attributes and two roots', () => {
+    expect(xmlProblems('<svg><g></svg>')).not.toEqual([]);
+    expect(xmlProblems('<svg>a & b</svg>')).not.toEqual([]);
+    expect(xmlProblems('<svg width=3></svg>')).not.toEqual([]);
+    expect(xmlProblems('<a/><b/>')).not.toEqual([]);
+    expect(xmlProblems('<svg a="1" a="2"/>')).not.toEqual([]);
+    expect(xmlProblems('<?xml version="1.0"?>\n<svg x="&amp;"><t>&lt;ok&gt;</t></svg>')).toEqual([]);
   });
 });

@@ -40,7 +40,7 @@ describe('recorded paths', () => {
     for (const [x, y] of ends) expect(Math.hypot(x - 100, y - 50)).toBeCloseTo(20, 2);
   });
 
-  it('the cubic quarter-arc stays within 3e-4 r of the circle (the k = 4/3·tan(θ/4) construction, common practice)', () => {
+  it('the cubic quarter-arc stays within 3e-4 r of the circle (k = 4/3·tan(θ/4), common practice; its largest radial error is about 2.7e-4 r, from memory)', () => {
     const p = new RecordedPath();
     p.arc(IDENTITY, 0, 0, 1000, 0, Math.PI / 2);
     const [[x0, y0], [x1, y1], [x2, y2], [x3, y3]] = pathPoints(p.toString());

@@ -9,7 +9,7 @@ import { clippedSlice, SLICE_POLICY } from './syntheticPlotData';
 const look: PlotLook = { palette: plotPalette('light'), scale: 1, interactive: false };
 const props = { slice: clippedSlice(), actionLabel: 'valve move (%)', valueLabel: 'cost (kWh)', title: 'Q at s', theme: 'light' as const };
 
-// Abramowitz & Stegun (1964), Table 26.1: Φ(1.0) = 0.8413447461, Φ(2.5) = 0.9937903347.
+// Abramowitz & Stegun (1964), Table 26.1: Φ(1.0) = 0.8413447461, Φ(2.5) = 0.9937903347 (from memory).
 const MASS_BELOW = 1 - 0.9937903347; // P(a ≤ lo) = Φ(−2.5): lo is 2.5σ below the mean
 const MASS_ABOVE = 1 - 0.8413447461; // P(a ≥ hi) = 1 − Φ(1): hi is 1σ above the mean
 
@@ -74,5 +74,29 @@ describe('actionSliceChart', () => {
     expect(text).toContain('highest 5 at 0.3');
     expect(text).toContain('lower bound -1');
     expect(text).toContain('upper bound 1.1');
+  });
+});
+
+describe('densityOutline', () => {
+  it('drops to zero exactly at the bounds, with the edge value extrapolated from inside', async () => {
+    const { densityOutline } = await import('../../../src/renderer/src/plots/densityOutline');
+    const actions = Float64Array.of(0, 1, 2, 3, 4), density = Float64Array.of(9, 1, 2, 3, 9); // 9s lie outside the bounds
+    const outline = densityOutline(actions, density, { lo: 0.5, hi: 3.5, mode: 'truncate' });
+    expect(outline).toEqual([
+      { x: 0, y: 0 }, { x: 0.5, y: 0 }, { x: 0.5, y: 0.5 }, { x: 1, y: 1 }, { x: 2, y: 2 }, { x: 3, y: 3 },
+      { x: 3.5, y: 3.5 }, { x: 3.5, y: 0 }, { x: 4, y: 0 },
+    ]);
+    expect(densityOutline(actions, density, undefined)).toHaveLength(5);
+  });
+});
+
+describe('actionRange', () => {
+  it('reaches past a slice end that carries a point mass, and not otherwise', async () => {
+    const { actionRange } = await import('../../../src/renderer/src/plots/actionSlice');
+    const actions = Float64Array.of(-1, 0, 1.1);
+    expect(actionRange(actions, [])).toEqual({ min: -1, max: 1.1 });
+    const range = actionRange(actions, [{ action: 1.1, probability: 0.16, side: 'upper' }]);
+    expect(range.min).toBe(-1);
+    expect(range.max).toBeCloseTo(1.1 + 0.03 * 2.1, 12);
   });
 });

@@ -10,7 +10,7 @@ const VIRIDIS_LAST = [0.993248, 0.906157, 0.143936].map((c) => c * 255);
 const CIVIDIS_FIRST = [0.0, 0.135112, 0.304751].map((c) => c * 255);
 const CIVIDIS_LAST = [0.995737, 0.909344, 0.217772].map((c) => c * 255);
 
-/** WCAG 2.x relative luminance of an sRGB colour (W3C, "relative luminance" definition). */
+/** WCAG 2.x relative luminance of an sRGB colour (W3C, the "relative luminance" definition; from memory). */
 function luminance([r, g, b]: readonly number[]): number {
   const lin = (c: number) => (c / 255 <= 0.04045 ? c / 255 / 12.92 : ((c / 255 + 0.055) / 1.055) ** 2.4);
   return 0.2126 * lin(r) + 0.7152 * lin(g) + 0.0722 * lin(b);

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { createColourScale } from '../../../src/renderer/src/plots/colourScale';
-import { cellAt, SurfaceShapeError, surfaceGeometry, unvisitedCount, unvisitedRuns } from '../../../src/renderer/src/plots/surfaceCells';
+import { SurfaceShapeError, surfaceGeometry, unvisitedCount, unvisitedRuns } from '../../../src/renderer/src/plots/surfaceCells';
 import { colourBarRaster, surfaceRaster } from '../../../src/renderer/src/plots/surfaceRaster';
 import { bowlSurface } from './syntheticPlotData';
 
@@ -13,8 +13,6 @@ describe('surface geometry', () => {
     expect(g.xExtent[1]).toBeCloseTo(2.5, 12);
     expect(g.yExtent[0]).toBeCloseTo(-1.625, 12);
     expect(g.yExtent[1]).toBeCloseTo(2.125, 12);
-    expect(cellAt(g, 0.4, 1.6)).toEqual({ ix: 1, iy: 2 });
-    expect(cellAt(g, 2.6, 0)).toBeNull();
   });
 
   it('names the field when shapes disagree or the grid is uneven', () => {

@@ -28,9 +28,10 @@ export function bowlSurface(nx = 40, ny = 30): ValueSurface {
 // Bounds 2.5σ below and 1σ above the mean, so the clipped masses are Φ(−2.5) and 1 − Φ(1), table values.
 export const SLICE_POLICY = { mean: 0.5, std: 0.6, lo: -1, hi: 1.1 } as const;
 
-export function clippedSlice(points = 81): ActionSliceData {
+/** The slice over [from, to] (default −2 … 2, wider than the bounds; the app cuts it at the bounds). */
+export function clippedSlice(points = 81, from = -2, to = 2): ActionSliceData {
   const { mean, std, lo, hi } = SLICE_POLICY;
-  const actions = Float64Array.from({ length: points }, (_, i) => -2 + (4 * i) / (points - 1));
+  const actions = Float64Array.from({ length: points }, (_, i) => (i === points - 1 ? to : from + ((to - from) * i) / (points - 1)));
   const actionValues = actions.map((a) => 5 - (a - 0.3) ** 2);
   const density = actions.map((a) => (a >= lo && a <= hi ? normalDensity((a - mean) / std) / std : 0));
   const policy = createGaussianPolicy({ offset: [mean], gain: [[0]], std: [std], bounds: { lo: [lo], hi: [hi], mode: 'clip' } }, 1);

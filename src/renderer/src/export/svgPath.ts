@@ -1,8 +1,8 @@
 /**
  * A canvas path recorded in device coordinates. Canvas 2D transforms each point by the current
  * matrix when it is added (HTML Living Standard, "Building paths"), so we do the same, and arcs
- * become cubic Bézier pieces of at most 90° (control distance k = 4/3·tan(θ/4) — common practice,
- * e.g. Riškus 2006) that stay exact under any affine map.
+ * become cubic Bézier pieces of at most 90° (control distance k = 4/3·tan(θ/4) — common practice;
+ * radial error below 3e-4 of the radius for a quarter turn, from memory) that stay exact under any affine map.
  */
 import { svgNumber } from './svgMarkup';
 

@@ -68,14 +68,10 @@ export function createProjectCommands({ api, documents, session, questions, data
 
   async function write(save: (text: string) => Promise<SaveReply>, pathKnown: boolean): Promise<boolean> {
     const doc = documents.get().history.present;
-    const problems = projectProblems(doc);
-    if (problems.length > 0) {
-      notify({ tone: 'error', title: 'The project cannot be saved yet', problems: asProblems(problems) });
-      return false;
-    }
     const state = session.get();
-    if (state.source.kind === 'dropped') {
-      notify({ tone: 'error', title: 'The project cannot be saved yet', problems: [DROPPED_FILE] });
+    const problems = [...(state.source.kind === 'dropped' ? [DROPPED_FILE] : []), ...asProblems(projectProblems(doc))];
+    if (problems.length > 0) {
+      notify({ tone: 'error', title: 'The project cannot be saved yet', problems });
       return false;
     }
     const first = documentToWrite(doc, state, pathKnown);

@@ -20,6 +20,8 @@ export const stepThroughIndex: KeyStep = (key, current, count) => {
   return null;
 };
 
+const KEY_HINT = 'Arrow keys step through the values; Escape hides the readout.';
+
 interface ChartFigureProps {
   testId: string;
   label: string;
@@ -85,7 +87,7 @@ export function ChartFigure({ testId, label, summary, heightPx, palette, build, 
       {config ? <canvas ref={canvasRef} aria-hidden="true" /> : (
         <p role="alert" style={{ margin: 0, padding: '1em', font: 'inherit' }}>{'error' in build ? build.error : ''}</p>
       )}
-      <p id={summaryId} style={visuallyHidden}>{summary}</p>
+      <p id={summaryId} style={visuallyHidden}>{summary} {KEY_HINT}</p>
     </figure>
   );
 }

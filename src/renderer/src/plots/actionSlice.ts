@@ -6,6 +6,7 @@
  */
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import { sharedOptions, valueAxis } from './chartStyle';
+import { densityOutline } from './densityOutline';
 import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
 import type { Theme } from './plotTheme';
 import { pointMassesAtBounds, type PointMass, type SliceBounds } from './pointMasses';
@@ -19,6 +20,8 @@ export const ACTION_SLICE_DEFAULTS = {
   nodeRadiusPx: 8,
   nodeMinRadiusPx: 2.5,
   massBarPx: 10,
+  /** Share of the action span added beyond a slice end that carries a point mass. */
+  massPadding: 0.03,
   /** The density axis runs to this multiple of the peak density, keeping the density under the Q curve. */
   densityHeadroom: 2.2,
 } as const;
@@ -52,31 +55,11 @@ export class ActionSliceShapeError extends Error {
 type XY = { x: number; y: number };
 
 export function actionSliceChart(props: ActionSlicePlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
-  const { slice } = props, p = look.palette, s = look.scale, d = ACTION_SLICE_DEFAULTS;
+  const { slice } = props, d = ACTION_SLICE_DEFAULTS;
   checkSlice(slice);
-  const n = slice.actions.length;
   const masses = pointMassesAtBounds(slice.nodes, slice.bounds);
   const shared = sharedOptions(look, props.title, `${slice.policyName} at state (${slice.state.map(formatValue).join(', ')})`);
-  const datasets: ChartDataset<'line' | 'scatter' | 'bar', XY[]>[] = [
-    {
-      type: 'line', label: `Q(s, a): ${props.valueLabel}`, yAxisID: 'y', order: 1,
-      data: Array.from({ length: n }, (_, i) => ({ x: slice.actions[i], y: slice.actionValues[i] })),
-      borderColor: p.series[0], backgroundColor: p.series[0], borderWidth: d.lineWidthPx * s, pointRadius: 0, pointHoverRadius: 0, tension: 0,
-    },
-    nodeDataset(slice, look),
-    {
-      type: 'line', label: 'policy density π(a | s)', yAxisID: 'yDensity', order: 3,
-      data: Array.from({ length: n }, (_, i) => ({ x: slice.actions[i], y: slice.density[i] })),
-      borderColor: p.reference, backgroundColor: p.densityFill, borderWidth: 1.2 * s, fill: 'origin', pointRadius: 0, pointHoverRadius: 0,
-    },
-  ];
-  if (masses.length) {
-    datasets.push({
-      type: 'bar', label: 'point mass at a bound (bar height = probability)', yAxisID: 'yMass', order: 2,
-      data: masses.map((m) => ({ x: m.action, y: m.probability })), backgroundColor: p.series[2], borderColor: p.series[2],
-      barThickness: d.massBarPx * s, grouped: false,
-    });
-  }
+  const datasets = sliceDatasets(props, masses, look);
   const densityPeak = Math.max(...Array.from(slice.density).filter(Number.isFinite), 0);
   return {
     type: 'line',
@@ -88,11 +71,15 @@ export function actionSliceChart(props: ActionSlicePlotProps, look: PlotLook): C
       interaction: { mode: 'nearest', intersect: false, axis: 'x' },
       scales: {
         // offset: false — the point-mass bars must not pad the action axis as a bar chart's would.
-        x: { type: 'linear', min: slice.actions[0], max: slice.actions[n - 1], offset: false, ...valueAxis(look, props.actionLabel, 'bottom') },
+        x: {
+          type: 'linear', ...actionRange(slice.actions, masses), offset: false, ...valueAxis(look, props.actionLabel, 'bottom'),
+          // Only round ticks: a padded end would read "-1.063"; the bounds carry their values in their labels.
+          ticks: { ...valueAxis(look, '', 'bottom').ticks, includeBounds: false },
+        },
         y: { type: 'linear', ...valueAxis(look, `Q(s, a): ${props.valueLabel}`, 'left') },
         yDensity: {
           type: 'linear', min: 0, suggestedMax: densityPeak > 0 ? densityPeak * d.densityHeadroom : 1,
-          ...valueAxis(look, 'policy density (per unit of action)', 'right', false),
+          ...valueAxis(look, 'policy density', 'right', false),
         },
         yMass: { type: 'linear', min: 0, max: 1, display: false },
       },
@@ -104,6 +91,44 @@ export function actionSliceChart(props: ActionSlicePlotProps, look: PlotLook): C
       },
     },
   };
+}
+
+/**
+ * The action axis spans the slice; where a point mass sits on an end of it (a slice cut at the
+ * bounds) the axis reaches a little past, so the bar is not cut in half by the plot edge.
+ */
+export function actionRange(actions: Float64Array, masses: readonly PointMass[]): { min: number; max: number } {
+  const lo = actions[0], hi = actions[actions.length - 1], pad = (hi - lo) * ACTION_SLICE_DEFAULTS.massPadding;
+  return {
+    min: masses.some((m) => m.action <= lo) ? lo - pad : lo,
+    max: masses.some((m) => m.action >= hi) ? hi + pad : hi,
+  };
+}
+
+/** Q(s, ·), the nodes on it, the density underneath, and the point masses (if clipped). */
+function sliceDatasets(props: ActionSlicePlotProps, masses: PointMass[], look: PlotLook): ChartDataset<'line' | 'scatter' | 'bar', XY[]>[] {
+  const { slice } = props, p = look.palette, s = look.scale, d = ACTION_SLICE_DEFAULTS, n = slice.actions.length;
+  const datasets: ChartDataset<'line' | 'scatter' | 'bar', XY[]>[] = [
+    {
+      type: 'line', label: `Q(s, a): ${props.valueLabel}`, yAxisID: 'y', order: 1,
+      data: Array.from({ length: n }, (_, i) => ({ x: slice.actions[i], y: slice.actionValues[i] })),
+      borderColor: p.series[0], backgroundColor: p.series[0], borderWidth: d.lineWidthPx * s, pointRadius: 0, pointHoverRadius: 0, tension: 0,
+    },
+    nodeDataset(slice, look),
+    {
+      type: 'line', label: 'policy density π(a | s)', yAxisID: 'yDensity', order: 3,
+      data: densityOutline(slice.actions, slice.density, slice.bounds),
+      borderColor: p.reference, backgroundColor: p.densityFill, borderWidth: 1.2 * s, fill: 'origin', pointRadius: 0, pointHoverRadius: 0,
+    },
+  ];
+  if (masses.length) {
+    datasets.push({
+      type: 'bar', label: 'point mass at a bound (bar height = probability)', yAxisID: 'yMass', order: 2,
+      data: masses.map((m) => ({ x: m.action, y: m.probability })), backgroundColor: p.series[2], borderColor: p.series[2],
+      barThickness: d.massBarPx * s, grouped: false,
+    });
+  }
+  return datasets;
 }
 
 function nodeDataset(slice: ActionSliceData, look: PlotLook): ChartDataset<'scatter', XY[]> {
@@ -145,7 +170,7 @@ function boundsPlugin(bounds: SliceBounds | undefined, masses: PointMass[], look
         ctx.lineTo(x, area.bottom);
         ctx.stroke();
         const mass = masses.find((m) => m.action === edge);
-        const text = mass ? `${name}: P = ${formatValue(mass.probability)}` : name;
+        const text = `${name} ${formatValue(edge)}${mass ? `: P = ${formatValue(mass.probability)}` : ''}`;
         ctx.textAlign = edge === bounds.lo ? 'left' : 'right';
         const y = mass ? Math.max(area.top + 14 * s, ys.getPixelForValue(mass.probability) - 3 * s) : area.top + 14 * s;
         ctx.fillText(text, x + (edge === bounds.lo ? 4 : -4) * s, y);

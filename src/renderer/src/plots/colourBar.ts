@@ -20,7 +20,7 @@ export const COLOUR_BAR_DEFAULTS = {
   labelGapPx: 4,
   titleGapPx: 10,
   /** About one tick per this many px of bar height. */
-  tickSpacingPx: 55,
+  tickSpacingPx: 40,
 } as const;
 
 export interface ColourBarSpec {

@@ -1,8 +1,9 @@
 /**
  * Error whiskers on horizontal bars (±1 standard error) and the value written past each whisker.
- * Drawn after the bars, through the chart's own value scale.
+ * Drawn after the bars, through the chart's own value scale. A layout box on the right, as wide as
+ * the longest label, keeps the labels of the largest bars inside the image at any font scale.
  */
-import type { Plugin } from 'chart.js';
+import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
 import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
 
 export interface WhiskerSpec {
@@ -15,9 +16,50 @@ export interface WhiskerSpec {
 
 export const WHISKER_DEFAULTS = { capPx: 7, lineWidthPx: 1.6, labelGapPx: 6 } as const;
 
+/** Empty room right of the plot area for the value labels. */
+class LabelRoomBox implements LayoutItem {
+  readonly position = 'right' as const;
+  readonly weight = 10;
+  readonly fullSize = false;
+  readonly options = {};
+  width = 0;
+  height = 0;
+  left = 0;
+  top = 0;
+  right = 0;
+  bottom = 0;
+
+  constructor(private readonly chart: Chart, private readonly spec: WhiskerSpec) {}
+
+  isHorizontal(): boolean {
+    return false;
+  }
+
+  update(_maxWidth: number, maxHeight: number): void {
+    const ctx = this.chart.ctx, { look } = this.spec;
+    ctx.save();
+    ctx.font = fontString(look, PLOT_FONTS.tickPx);
+    const widest = Math.max(0, ...this.spec.labels.map((l, i) => (this.spec.values[i] >= 0 ? ctx.measureText(l).width : 0)));
+    ctx.restore();
+    this.width = widest > 0 ? widest + WHISKER_DEFAULTS.labelGapPx * look.scale : 0;
+    this.height = maxHeight;
+  }
+
+  draw(): void {}
+}
+
 export function errorWhiskersPlugin(spec: WhiskerSpec): Plugin {
+  let box: LabelRoomBox | null = null;
   return {
     id: 'setpointErrorWhiskers',
+    start(chart) {
+      box = new LabelRoomBox(chart, spec);
+      layouts.addBox(chart, box);
+    },
+    stop(chart) {
+      if (box) layouts.removeBox(chart, box);
+      box = null;
+    },
     afterDatasetsDraw(chart) {
       const { ctx } = chart, xs = chart.scales.x, meta = chart.getDatasetMeta(0), s = spec.look.scale, d = WHISKER_DEFAULTS;
       ctx.save();

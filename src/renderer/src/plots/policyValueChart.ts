@@ -7,7 +7,7 @@ import type { ChartConfiguration } from 'chart.js';
 import type { Evaluation, FitStatus } from '../../../pipeline/estimates';
 import { sharedOptions, valueAxis } from './chartStyle';
 import { errorWhiskersPlugin } from './errorWhiskers';
-import type { PlotLook } from './plotLook';
+import { font, fontString, PLOT_FONTS, type PlotLook } from './plotLook';
 import type { Theme } from './plotTheme';
 import { formatValue } from './tickFormat';
 
@@ -18,8 +18,10 @@ export const POLICY_VALUE_DEFAULTS = {
   /** Bar thickness as a share of its row, and its cap in CSS px. */
   barShare: 0.55,
   maxBarThicknessPx: 44,
-  /** Room past the largest whisker for its value label, as a fraction of the span. */
-  labelRoom: 0.15,
+  /** Axis room past the largest whisker, as a fraction of the span; on the right the value labels get a box of their own. */
+  labelRoom: 0.05,
+  /** Left of a negative bar the labels share the plot area, so the axis reaches further (a choice). */
+  negativeLabelRoom: 0.3,
   title: 'Policy value per candidate',
 } as const;
 
@@ -74,10 +76,20 @@ export function policyValueChart(props: PolicyValueChartProps, look: PlotLook): 
       scales: {
         x: {
           // Suggested, so Chart.js rounds the ends out to its own ticks.
-          type: 'linear', suggestedMin: lo < 0 ? lo - span * d.labelRoom : 0, suggestedMax: hi > 0 ? hi + span * d.labelRoom : 0,
+          type: 'linear', suggestedMin: lo < 0 ? lo - span * d.negativeLabelRoom : 0, suggestedMax: hi > 0 ? hi + span * d.labelRoom : 0,
           ...valueAxis(look, `policy value J (${valueSenseText(props.evaluation.valueSense)})`, 'bottom'),
         },
-        y: { type: 'category', ticks: { color: p.text, font: valueAxis(look, '', 'left').ticks?.font }, grid: { display: false }, border: { color: p.axis, width: s } },
+        y: {
+          type: 'category', ticks: { color: p.text, font: font(look, PLOT_FONTS.tickPx), padding: 6 * s }, grid: { display: false }, border: { color: p.axis, width: s },
+          // Chart.js caps a side axis at a share of the width; candidate names must stay whole.
+          afterFit: (scale) => {
+            scale.ctx.save();
+            scale.ctx.font = fontString(look, PLOT_FONTS.tickPx);
+            const widest = Math.max(...rows.map((r) => scale.ctx.measureText(r.label).width));
+            scale.ctx.restore();
+            scale.width = Math.max(scale.width, widest + 16 * s); // label, tick padding, border
+          },
+        },
       },
       plugins: {
         ...shared.plugins,

@@ -88,10 +88,3 @@ export function unvisitedCount(visits: Uint32Array): number {
   return count;
 }
 
-/** Grid index of the cell holding (x, y), or null outside the extent. */
-export function cellAt(geometry: SurfaceGeometry, x: number, y: number): { ix: number; iy: number } | null {
-  const ix = Math.floor((x - geometry.xExtent[0]) / geometry.dx);
-  const iy = Math.floor((y - geometry.yExtent[0]) / geometry.dy);
-  if (ix < 0 || ix >= geometry.nx || iy < 0 || iy >= geometry.ny) return null;
-  return { ix, iy };
-}

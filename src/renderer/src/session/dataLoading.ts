@@ -14,7 +14,7 @@ export interface DataLoading {
   chooseDataFile(): Promise<void>;
   dropDataFile(file: File): Promise<void>;
   relocateDataFile(): Promise<void>;
-  /** Read the data an opened project names; false (and a notice offering to relocate) when it cannot. */
+  /** Read the data an opened project names; false (and the reason in dataProblems) when it cannot. */
   readProjectData(projectPath: string): Promise<boolean>;
 }
 
@@ -67,10 +67,8 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
           where: `${fileNameOf(projectPath)}, data.path`,
           message: `cannot read the data file "${path}" (${(e as Error).message}); it may have moved: point the project to its new location`,
         };
-        session.set((s) => ({
-          ...s, dataProblems: [problem],
-          notice: { tone: 'error', title: 'The data file could not be read', problems: [problem], action: 'relocate-data' },
-        }));
+        // Opening a project shows the Plant log step, where this stands with its "Locate" button.
+        session.set((s) => ({ ...s, dataProblems: [problem] }));
         return false;
       }
     },

@@ -38,8 +38,6 @@ export interface Notice {
   tone: 'info' | 'warning' | 'error';
   title: string;
   problems: Problem[];
-  /** An action the notice offers, by name (the banner maps it to a command). */
-  action?: 'relocate-data';
 }
 
 export interface SessionState {

@@ -18,6 +18,9 @@ export async function runEvaluation(
 ): Promise<Result<Evaluation>> {
   const opened = session.open(project);
   if (!opened.ok) return opened;
+  // The network fit picks its TensorFlow.js backend itself (wasm where it verifies, else cpu); it
+  // only needs to know where the wasm files are served, before the backend first starts.
+  if (project.approximator.kind === 'network' && project.approximator.backend !== 'cpu') (await import('./tensorflowWasmFiles')).configureWasmFiles();
   const run = session.beginRun(project, opened.value);
   const started = clock();
   let lastSent = -Infinity;

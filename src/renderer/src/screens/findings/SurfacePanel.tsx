@@ -50,7 +50,7 @@ export function SurfacePanel({ evaluation, imported, theme }: { evaluation: Eval
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />
         <SelectField label="Horizontal axis" value={String(xAxis)} options={options} testId="surface-x" onChange={(v) => setSurface(Number(v), Number(v) === yAxis ? xAxis : yAxis, resolution)} />
         <SelectField label="Vertical axis" value={String(yAxis)} options={options} testId="surface-y" onChange={(v) => setSurface(Number(v) === xAxis ? yAxis : xAxis, Number(v), resolution)} />
-        <SelectField label="Grid" value={String(resolution) as (typeof RESOLUTIONS)[number]} options={RESOLUTIONS.map((r) => ({ value: r, label: `${r} × ${r}` }))}
+        <SelectField label="Grid" value={String(resolution)} options={[...new Set([...RESOLUTIONS, String(resolution)])].map((r) => ({ value: r, label: `${r} × ${r}` }))}
           onChange={(v) => setSurface(xAxis, yAxis, Number(v))} />
       </div>
       <StateSliders doc={doc} ranges={imported.stateRanges} values={held} skip={[xAxis, yAxis]} onChange={setHeld} means={imported.stateMeans} />

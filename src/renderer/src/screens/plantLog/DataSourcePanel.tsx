@@ -46,7 +46,7 @@ export function DataSourcePanel() {
       )}
       <ProblemList title="The data file could not be read" problems={session.dataProblems} testId="data-problems" />
       {session.dataProblems.length > 0 && doc.data.path !== '' && (
-        <button onClick={() => void data.relocateDataFile()}>Locate the data file…</button>
+        <button onClick={() => void data.relocateDataFile()} data-testid="relocate-data">Locate the data file…</button>
       )}
     </section>
   );

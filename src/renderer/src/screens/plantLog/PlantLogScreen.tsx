@@ -5,11 +5,12 @@ import { DataSourcePanel } from './DataSourcePanel';
 import { ImportSummary } from './ImportSummary';
 import { ProjectNameFields } from './ProjectNameFields';
 import { RewardAndEpisodes } from './RewardAndEpisodes';
-import { useSession } from '../../hooks';
+import { useDocument, useSession } from '../../hooks';
 import { Cautions } from '../../components/Cautions';
 
 export function PlantLogScreen(props: { onNext: () => void }) {
   const session = useSession();
+  const doc = useDocument();
   return (
     <>
       <header>
@@ -19,7 +20,7 @@ export function PlantLogScreen(props: { onNext: () => void }) {
           columns are states, actions and the reward or cost, and check the import below before going on.
         </p>
       </header>
-      {session.source.kind === 'none' && <Welcome />}
+      {doc.data.path === '' && <Welcome />}
       <ProjectNameFields />
       <DataSourcePanel />
       {session.inspection && (

@@ -5,75 +5,106 @@
  */
 import { NumberField } from '../../components/NumberField';
 import { TextField } from '../../components/TextField';
-import { problemAt } from '../../document/projectProblems';
+import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import { useDocument, useProblems } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { ColumnRoles } from '../../../../project/schema';
+
+type SetColumns = (label: string, change: Partial<ColumnRoles>, key?: string) => void;
+
+interface PartProps {
+  columns: ColumnRoles;
+  problems: readonly FieldProblem[];
+  set: SetColumns;
+  closeStep: () => void;
+}
 
 export function RewardAndEpisodes() {
   const { documents } = useWorkspace();
   const doc = useDocument();
   const problems = useProblems();
-  const { reward, episode, nextState } = doc.columns;
-  const setColumns = (label: string, change: Partial<ColumnRoles>, key?: string): void =>
-    documents.edit(label, (d) => ({ ...d, columns: { ...d.columns, ...change } }), key);
+  const set: SetColumns = (label, change, key) => documents.edit(label, (d) => ({ ...d, columns: { ...d.columns, ...change } }), key);
+  const parts = { columns: doc.columns, problems, set, closeStep: documents.closeStep };
   return (
     <section className="panel" aria-labelledby="reward-heading">
       <h3 id="reward-heading">Reward, episodes and next state</h3>
-      <fieldset>
-        <legend>Reward</legend>
-        <label className="choice">
-          <input type="radio" name="reward-kind" checked={reward.kind === 'column'} data-testid="reward-from-column"
-            onChange={() => setColumns('take the reward from a column', { reward: { kind: 'column', column: '', sense: reward.sense } })} />
-          From a column (give it the role “Reward” or “Cost” above){reward.kind === 'column' && reward.column ? `: ${reward.column}` : ''}
-        </label>
-        <label className="choice">
-          <input type="radio" name="reward-kind" checked={reward.kind === 'expression'} data-testid="reward-from-expression"
-            onChange={() => setColumns('write a reward expression', { reward: { kind: 'expression', expression: '', sense: reward.sense } })} />
-          From an expression over columns
-        </label>
-        {reward.kind === 'expression' && (
-          <>
-            <TextField
-              label="Expression" value={reward.expression} multiline className="wide" placeholder="e.g. (level_upper_m - 1.2)^2 + 0.01 * inflow_valve_pct"
-              help="Column names (names with spaces in `backticks`), numbers with a point, + − * / ^, parentheses, abs, exp, log, sqrt, min, max, clamp."
-              message={problemAt(problems, 'columns.reward.expression')}
-              onChange={(expression) => setColumns('edit the reward expression', { reward: { ...reward, expression } }, 'reward-expression')}
-              onBlur={documents.closeStep}
-            />
-            <div className="choice" role="radiogroup" aria-label="Sense of the expression">
-              <label className="choice"><input type="radio" name="sense" checked={reward.sense === 'reward'} onChange={() => setColumns('treat the expression as a reward', { reward: { ...reward, sense: 'reward' } })} /> a reward (higher is better)</label>
-              <label className="choice"><input type="radio" name="sense" checked={reward.sense === 'cost'} onChange={() => setColumns('treat the expression as a cost', { reward: { ...reward, sense: 'cost' } })} /> a cost (lower is better)</label>
-            </div>
-          </>
-        )}
-        {problemAt(problems, 'columns.reward.column') && reward.kind === 'column' && <p className="error-text">{problemAt(problems, 'columns.reward.column')}</p>}
-      </fieldset>
-      <fieldset>
-        <legend>Episodes</legend>
-        <p className="small">
-          {episode.kind === 'column' && <>A new episode starts wherever <span className="mono">{episode.column}</span> changes.</>}
-          {episode.kind === 'timeGap' && <>A new episode starts where <span className="mono">{episode.column}</span> jumps by more than the gap below.</>}
-          {episode.kind === 'single' && <>The whole log is one episode. Give a column the role “Episode label” or “Timestamp” to split it.</>}
-        </p>
-        {episode.kind === 'timeGap' && (
-          <NumberField
-            label="Largest gap within an episode (s)" value={episode.maxGapSeconds ?? null} allowBlank placeholder="3× median step"
-            help="Leave blank for three times the median sampling period." message={problemAt(problems, 'columns.episode.maxGapSeconds')}
-            onCommit={(v) => setColumns('set the episode gap', { episode: { ...episode, maxGapSeconds: v ?? undefined } }, 'max-gap')}
-            onBlur={documents.closeStep}
-          />
-        )}
-      </fieldset>
-      <fieldset>
-        <legend>Next state</legend>
-        <p className="small">
-          {nextState.kind === 'nextRow'
-            ? 'The next state is the next row of the same episode. To give it in columns instead, give columns the role “Next value of …”.'
-            : `The next state is read from columns ${nextState.columns.map((c) => c || '(not chosen)').join(', ')}, one per state.`}
-        </p>
-        {problemAt(problems, 'columns.nextState.columns') && <p className="error-text">{problemAt(problems, 'columns.nextState.columns')}</p>}
-      </fieldset>
+      <RewardFieldset {...parts} />
+      <EpisodeFieldset {...parts} />
+      <NextStateFieldset {...parts} />
     </section>
+  );
+}
+
+function RewardFieldset({ columns, problems, set, closeStep }: PartProps) {
+  const reward = columns.reward;
+  const columnProblem = reward.kind === 'column' ? problemAt(problems, 'columns.reward.column') : null;
+  return (
+    <fieldset>
+      <legend>Reward</legend>
+      <label className="choice">
+        <input type="radio" name="reward-kind" checked={reward.kind === 'column'} data-testid="reward-from-column"
+          onChange={() => set('take the reward from a column', { reward: { kind: 'column', column: '', sense: reward.sense } })} />
+        From a column (give it the role “Reward” or “Cost” above){reward.kind === 'column' && reward.column ? `: ${reward.column}` : ''}
+      </label>
+      <label className="choice">
+        <input type="radio" name="reward-kind" checked={reward.kind === 'expression'} data-testid="reward-from-expression"
+          onChange={() => set('write a reward expression', { reward: { kind: 'expression', expression: '', sense: reward.sense } })} />
+        From an expression over columns
+      </label>
+      {reward.kind === 'expression' && (
+        <>
+          <TextField
+            label="Expression" value={reward.expression} multiline className="wide" placeholder="e.g. (level_upper_m - 1.2)^2 + 0.01 * inflow_valve_pct"
+            help="Column names (names with spaces in `backticks`), numbers with a point, + − * / ^, parentheses, abs, exp, log, sqrt, min, max, clamp."
+            message={problemAt(problems, 'columns.reward.expression')}
+            onChange={(expression) => set('edit the reward expression', { reward: { ...reward, expression } }, 'reward-expression')}
+            onBlur={closeStep}
+          />
+          <div className="choice" role="radiogroup" aria-label="Sense of the expression">
+            <label className="choice"><input type="radio" name="sense" checked={reward.sense === 'reward'} onChange={() => set('treat the expression as a reward', { reward: { ...reward, sense: 'reward' } })} /> a reward (higher is better)</label>
+            <label className="choice"><input type="radio" name="sense" checked={reward.sense === 'cost'} onChange={() => set('treat the expression as a cost', { reward: { ...reward, sense: 'cost' } })} /> a cost (lower is better)</label>
+          </div>
+        </>
+      )}
+      {columnProblem && <p className="error-text">{columnProblem}</p>}
+    </fieldset>
+  );
+}
+
+function EpisodeFieldset({ columns, problems, set, closeStep }: PartProps) {
+  const episode = columns.episode;
+  return (
+    <fieldset>
+      <legend>Episodes</legend>
+      <p className="small">
+        {episode.kind === 'column' && <>A new episode starts wherever <span className="mono">{episode.column}</span> changes.</>}
+        {episode.kind === 'timeGap' && <>A new episode starts where <span className="mono">{episode.column}</span> jumps by more than the gap below.</>}
+        {episode.kind === 'single' && <>The whole log is one episode. Give a column the role “Episode label” or “Timestamp” to split it.</>}
+      </p>
+      {episode.kind === 'timeGap' && (
+        <NumberField
+          label="Largest gap within an episode (s)" value={episode.maxGapSeconds ?? null} allowBlank placeholder="3× median step"
+          help="Leave blank for three times the median sampling period." message={problemAt(problems, 'columns.episode.maxGapSeconds')}
+          onCommit={(v) => set('set the episode gap', { episode: { ...episode, maxGapSeconds: v ?? undefined } }, 'max-gap')}
+          onBlur={closeStep}
+        />
+      )}
+    </fieldset>
+  );
+}
+
+function NextStateFieldset({ columns, problems }: PartProps) {
+  const nextState = columns.nextState;
+  const problem = problemAt(problems, 'columns.nextState.columns');
+  return (
+    <fieldset>
+      <legend>Next state</legend>
+      <p className="small">
+        {nextState.kind === 'nextRow'
+          ? 'The next state is the next row of the same episode. To give it in columns instead, give columns the role “Next value of …”.'
+          : `The next state is read from columns ${nextState.columns.map((c) => c || '(not chosen)').join(', ')}, one per state.`}
+      </p>
+      {problem && <p className="error-text">{problem}</p>}
+    </fieldset>
   );
 }

@@ -1,0 +1,137 @@
+/**
+ * Replicates and full-data estimates → the parts of an Assessment: per candidate its interval,
+ * cross-checks, diagnostics, slices and warnings; the comparison of all policies; the share of the
+ * surface the logs never visit; and the warnings that concern the whole assessment.
+ */
+import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
+import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
+import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
+import type { TransitionSet } from '../core/transitions';
+import type { ProjectDocument } from '../project/schema';
+import type { AssessmentWarning, CandidateAssessment, Comparison, IntervalEstimate, PairedDifference } from './assessment';
+import type { CandidateWork, SharedInputs } from './assessCandidate';
+import { crossChecks } from './assessCrossChecks';
+import { coverageDiagnostics, coverageWarnings } from './assessDiagnostics';
+import { intervalEstimate, pairedDifference, ranking, type Estimator } from './assessIntervals';
+import { isModelValueFailure, type ModelCheck } from './assessModelCheck';
+import type { ReplicateSet } from './assessResamples';
+import type { AssessmentSettings } from './assessSettings';
+import { actionSlices } from './assessSlices';
+import { surfaceGridFor, surfaceVisits } from './surfaceGrid';
+
+export const BEHAVIOUR_NAME = 'logged behaviour (today)';
+/** More failed resamples than this share raise a caution (our rule). */
+const FAILED_SHARE = 0.05;
+
+export interface AssemblyInputs {
+  shared: SharedInputs;
+  works: CandidateWork[];
+  replicates: ReplicateSet;
+  modelCheck: ModelCheck;
+  modelReasons: (string | null)[];
+  ranges: LoggedActionRanges;
+  behaviourOutside: number | null;
+  settings: AssessmentSettings;
+  sign: number;
+}
+
+export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
+  const { shared, works, replicates, settings, sign } = inputs;
+  return works.map((work, j) => {
+    const diagnostics = coverageDiagnostics(work, shared, inputs.ranges, { policy: shared.behaviour, meanOutside: inputs.behaviourOutside });
+    const points = fullDataCrossChecks(inputs, work, j);
+    const checks = crossChecks({
+      work, replicates: replicates.candidates[j], points: points.values, weights: diagnostics.importanceWeights,
+      offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: settings.level, sign,
+    });
+    const policyValue = intervalEstimate(work.full.policyValue, replicates.candidates[j].fqe, settings.level, sign);
+    const warnings = [
+      ...coverageWarnings(diagnostics),
+      ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
+      ...failedWarning(policyValue),
+    ];
+    return { name: work.name, policyValue, crossChecks: checks, diagnostics, slices: actionSlices(work, shared.data, sign), warnings };
+  });
+}
+
+function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, j: number) {
+  const { shared } = inputs, discount = shared.project.discount;
+  const values = { importanceSampling: null as number | null, doublyRobust: null as number | null, model: null as number | null };
+  let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? null : work.offPolicy.reason;
+  if ('perDecision' in work.offPolicy) {
+    try {
+      const estimates = perDecisionEstimates(work.offPolicy.perDecision, discount);
+      values.importanceSampling = estimates.importanceSampling;
+      values.doublyRobust = estimates.doublyRobust;
+    } catch (error) {
+      if (!(error instanceof ImportanceSamplingError)) throw error;
+      offPolicyReason = error.message;
+    }
+  }
+  let modelReason = inputs.modelReasons[j];
+  if (modelReason === null && inputs.modelCheck.fit) {
+    try {
+      values.model = modelPolicyValue(inputs.modelCheck.fit, work.policy, discount, shared.startStates);
+    } catch (error) {
+      if (!isModelValueFailure(error)) throw error;
+      modelReason = (error as Error).message;
+    }
+  }
+  return { values, offPolicyReason, modelReason };
+}
+
+function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
+  const total = estimate.replicates + estimate.failedReplicates;
+  if (estimate.failedReplicates <= FAILED_SHARE * total) return [];
+  return [{
+    severity: 'caution', topic: 'bootstrap',
+    message: `${estimate.failedReplicates} of ${total} resamples gave no solution of the fit; the interval uses the other ${estimate.replicates} and may be too narrow.`,
+  }];
+}
+
+export function behaviourInterval(value: number, replicates: (number | null)[], level: number, sign: number): IntervalEstimate {
+  return intervalEstimate(value, replicates, level, sign);
+}
+
+export function comparison(loggedValue: number, replicates: ReplicateSet, works: CandidateWork[], level: number, sign: number): Comparison {
+  const behaviour: Estimator = { name: BEHAVIOUR_NAME, point: loggedValue, replicates: replicates.behaviour };
+  const candidates: Estimator[] = works.map((w, j) => ({ name: w.name, point: w.full.policyValue, replicates: replicates.candidates[j].fqe }));
+  const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, behaviour, level, sign));
+  for (let i = 0; i < candidates.length; i++) {
+    for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));
+  }
+  return { differences, ranking: ranking([...candidates, behaviour]) };
+}
+
+export function unvisitedShare(project: ProjectDocument, data: TransitionSet): number | null {
+  const grid = surfaceGridFor(project, data);
+  if (!grid) return null;
+  const visits = surfaceVisits(data, grid);
+  return visits.filter((v) => v === 0).length / visits.length;
+}
+
+export function globalWarnings(shared: SharedInputs, truncationWeight: number, candidates: CandidateAssessment[], unvisited: number | null): AssessmentWarning[] {
+  const out: AssessmentWarning[] = [];
+  if (!shared.behaviour) out.push({ severity: 'caution', topic: 'behaviourModel', message: `Importance-sampling cross-checks are not available: ${shared.behaviourReason}.` });
+  shared.behaviourShareAtLimit.forEach((share, j) => {
+    if (share > FAILED_SHARE) {
+      out.push({
+        severity: 'caution', topic: 'behaviourModel',
+        message: `${(100 * share).toFixed(1)} % of the logged ${shared.data.actionNames[j]} values sit at an actuator limit; the behaviour model is a least-squares fit on all rows, so the importance weights are approximate.`,
+      });
+    }
+  });
+  if (truncationWeight > 1e-3) {
+    out.push({ severity: 'caution', topic: 'loggedReturn', message: `Logged episodes are short for this discount: up to ${(100 * truncationWeight).toFixed(1)} % of the return’s weight lies beyond their end, so the logged baseline and the importance-sampling estimates are biased toward zero.` });
+  }
+  if (unvisited !== null && unvisited > 0.5) {
+    out.push({ severity: 'caution', topic: 'unvisited', message: `${(100 * unvisited).toFixed(0)} % of the value-surface grid holds no logged state: the surfaces are extrapolated there.` });
+  }
+  for (const c of candidates) {
+    const { percentile: p, basic: b } = c.policyValue;
+    if (p && b && Math.abs((p[0] + p[1]) / 2 - (b[0] + b[1]) / 2) > 0.25 * (p[1] - p[0])) {
+      out.push({ severity: 'caution', topic: 'bootstrap', message: `${c.name}: the percentile and basic intervals differ markedly, a sign of a skewed or biased estimator; read both.` });
+    }
+  }
+  return out;
+}

@@ -1,0 +1,48 @@
+/** Text into HTML safely, and numbers as a reviewer reads them (the report's one number style). */
+
+const ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
+
+/** Escape text for HTML content and attribute values (OWASP XSS prevention, rule 1; common practice). */
+export function escapeHtml(text: string): string {
+  return text.replace(/[&<>"']/g, (c) => ESCAPES[c]);
+}
+
+/** Tagged template that escapes every interpolated value unless it is already Html. */
+export interface Html {
+  readonly html: string;
+}
+
+export function raw(html: string): Html {
+  return { html };
+}
+
+export function html(strings: TemplateStringsArray, ...values: (string | number | Html | Html[] | null | undefined)[]): Html {
+  let out = strings[0];
+  values.forEach((v, i) => {
+    out += piece(v) + strings[i + 1];
+  });
+  return { html: out };
+}
+
+function piece(v: string | number | Html | Html[] | null | undefined): string {
+  if (v === null || v === undefined) return '';
+  if (Array.isArray(v)) return v.map((h) => h.html).join('');
+  if (typeof v === 'object') return v.html;
+  return escapeHtml(String(v));
+}
+
+/** Six significant digits, trailing zeros dropped; exponent form for very large or small magnitudes; "—" for none. */
+export function formatNumber(v: number | null | undefined, digits = 6): string {
+  if (v === null || v === undefined || !Number.isFinite(v)) return '—';
+  const magnitude = Math.abs(v);
+  if (magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return v.toExponential(Math.max(1, digits - 3));
+  return v.toPrecision(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+}
+
+export function formatInterval(iv: readonly [number, number] | null, digits = 4): string {
+  return iv ? `[${formatNumber(iv[0], digits)}, ${formatNumber(iv[1], digits)}]` : '—';
+}
+
+export function formatPercent(share: number | null | undefined, decimals = 1): string {
+  return share === null || share === undefined || !Number.isFinite(share) ? '—' : `${(100 * share).toFixed(decimals)} %`;
+}

@@ -1,0 +1,60 @@
+/** The comparison section: J of every policy with its intervals, paired differences and the ranking. */
+import type { Assessment, IntervalEstimate } from '../assessment';
+import { BEHAVIOUR_NAME } from '../assessAssembly';
+import { formatInterval, formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { senseWords, type FigureCounter, type ReportInput } from './reportInput';
+import { svgIntervalChart, type IntervalRow } from './svgIntervalChart';
+
+export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
+  const a = input.assessment;
+  return html`<section id="comparison"><h2>Comparison of candidates</h2>
+    ${a ? assessedComparison(input, a, figures) : pointComparison(input)}</section>`;
+}
+
+function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCounter): Html {
+  const words = senseWords(input), level = formatPercent(a.settings.level, 0);
+  const vsToday = new Map(a.comparison.differences.filter((d) => d.b === BEHAVIOUR_NAME).map((d) => [d.a, d]));
+  const rows = [...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue })), { name: BEHAVIOUR_NAME, estimate: a.behaviour }];
+  const figure = figures.next();
+  const chartRows: IntervalRow[] = rows.map((r, i) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, group: i === rows.length - 1 ? 6 : i }));
+  return html`<p>J is the ${words.value} (${words.better}), the mean of V^π over the start states; the logged behaviour’s value is the mean discounted return of its episodes.
+      Intervals are ${level} bootstrap intervals over episodes; “vs today” is the paired difference J − J(today) on the same resamples.</p>
+    <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th>
+      <th class="num">vs today</th><th class="num">${level} interval of the difference</th><th class="num">Better than today in</th></tr></thead><tbody>
+    ${rows.map((r) => {
+      const d = vsToday.get(r.name);
+      return html`<tr><td>${r.name}</td>${estimateCells(r.estimate)}<td class="num">${d ? formatNumber(d.difference.value, 4) : ''}</td>
+        <td class="num">${d ? formatInterval(d.difference.percentile) : ''}</td><td class="num">${d ? `${formatPercent(d.probabilityBetter)} of resamples` : ''}</td></tr>`;
+    })}
+    </tbody></table>
+    <figure id="fig-comparison">${raw(svgIntervalChart(chartRows, `J — ${words.value}`, { value: a.behaviour.value, label: BEHAVIOUR_NAME }))}
+      <figcaption>Figure ${figure}. J of each candidate and of the logged behaviour (dashed line) with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} episodes. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
+    ${pairwise(a, level)}
+    <h3>Ranking</h3>
+    <p>By point estimate: <strong>${a.comparison.ranking.order.join(' › ')}</strong>. This whole order holds in ${formatPercent(a.comparison.ranking.frequency)} of the resamples.</p>
+    <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${n.better} better than ${n.worse} in ${formatPercent(n.frequency)} of resamples</li>`)}</ul>`;
+}
+
+export function estimateCells(e: IntervalEstimate): Html {
+  return html`<td class="num">${formatNumber(e.value, 5)}</td><td class="num">${formatNumber(e.standardError, 3)}</td>
+    <td class="num">${formatInterval(e.percentile)}</td><td class="num">${formatInterval(e.basic)}</td>`;
+}
+
+function pairwise(a: Assessment, level: string): Html {
+  const between = a.comparison.differences.filter((d) => d.b !== BEHAVIOUR_NAME);
+  if (!between.length) return html``;
+  return html`<h3>Candidates against each other</h3>
+    <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">First better in</th></tr></thead><tbody>
+    ${between.map((d) => html`<tr><td>${d.a} − ${d.b}</td><td class="num">${formatNumber(d.difference.value, 4)}</td><td class="num">${formatNumber(d.difference.standardError, 3)}</td>
+      <td class="num">${formatInterval(d.difference.percentile)}</td><td class="num">${formatPercent(d.probabilityBetter)} of resamples</td></tr>`)}
+    </tbody></table>`;
+}
+
+function pointComparison(input: ReportInput): Html {
+  const e = input.evaluation;
+  return html`<p>Point estimates only (no intervals: ${input.assessmentProblems.join('; ')}). The ± column covers start-state sampling only.</p>
+    <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">± s.e.</th><th>Fit</th></tr></thead><tbody>
+    ${e.policies.map((p) => html`<tr><td>${p.name}</td><td class="num">${formatNumber(p.policyValue, 5)}</td><td class="num">${formatNumber(p.standardError, 3)}</td><td>${p.status}</td></tr>`)}
+    <tr><td>${BEHAVIOUR_NAME}</td><td class="num">${formatNumber(e.behaviour.value, 5)}</td><td class="num">${formatNumber(e.behaviour.standardError, 3)}</td><td>${e.behaviour.episodes} episodes</td></tr>
+    </tbody></table>`;
+}

@@ -1,0 +1,88 @@
+/** The evidence sections: coverage diagnostics, cross-checks, sensitivity, and the warnings and cautions. */
+import type { Assessment, AssessmentWarning, CandidateAssessment } from '../assessment';
+import { CAUTIONS } from '../cautions';
+import { estimateCells } from './reportComparison';
+import { formatInterval, formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { senseWords, type FigureCounter, type ReportInput } from './reportInput';
+import { svgIntervalChart } from './svgIntervalChart';
+import { svgLineChart } from './svgLineChart';
+
+export function diagnosticsSection(input: ReportInput): Html {
+  const a = input.assessment;
+  if (!a) return html`<section id="diagnostics"><h2>Diagnostics</h2><p>Not computed: ${input.assessmentProblems.join('; ')}</p></section>`;
+  return html`<section id="diagnostics"><h2>Diagnostics</h2>
+    <p>Does the candidate stay inside what the logs cover? Values for the logged controller itself (fitted behaviour model) are shown in brackets for scale.</p>
+    <table><thead><tr><th>Candidate</th><th class="num">Shift νᵀΣ⁻¹ν, start states</th><th class="num">…, next states</th><th class="num">IS effective size, one step</th>
+      <th class="num">…, at the horizon</th><th class="num">Action probability outside logged range (mean / 90th pct / max)</th></tr></thead><tbody>
+    ${a.candidates.map((c) => diagnosticsRow(c))}
+    </tbody></table>
+    <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${formatPercent(a.unvisitedShare, 0)} of the value-surface grid holds no logged state.`}</p>
+    <h3>Warnings</h3>${warningList([...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))])}</section>`;
+}
+
+function diagnosticsRow(c: CandidateAssessment): Html {
+  const d = c.diagnostics, w = d.importanceWeights, s = d.actionSupport;
+  const ref = (v: number | null, f: (x: number) => string) => (v === null ? '' : ` (${f(v)})`);
+  return html`<tr><td>${c.name}</td>
+    <td class="num">${formatNumber(d.distributionShiftStart, 3)}${ref(d.behaviourShiftStart, (v) => formatNumber(v, 3))}</td>
+    <td class="num">${formatNumber(d.distributionShiftNext, 3)}${ref(d.behaviourShiftNext, (v) => formatNumber(v, 3))}</td>
+    <td class="num">${w ? formatPercent(w.oneStepShare) : '—'}</td>
+    <td class="num">${w ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes} episodes (step ${w.horizonSteps})` : '—'}</td>
+    <td class="num">${formatPercent(s.meanOutside)} / ${formatPercent(s.p90Outside)} / ${formatPercent(s.maxOutside)}${ref(s.behaviourMeanOutside, (v) => formatPercent(v))}</td></tr>`;
+}
+
+export function warningList(warnings: AssessmentWarning[]): Html {
+  if (!warnings.length) return html`<p>None.</p>`;
+  const ordered = [...warnings].sort((x, y) => (x.severity === y.severity ? 0 : x.severity === 'serious' ? -1 : 1));
+  return html`<ul>${ordered.map((w) => html`<li class="warning ${w.severity}"><strong>${w.severity === 'serious' ? 'Serious' : 'Caution'}:</strong> ${w.message}</li>`)}</ul>`;
+}
+
+export function crossChecksSection(input: ReportInput, figures: FigureCounter): Html {
+  const a = input.assessment, words = senseWords(input);
+  if (!a) return html`<section id="cross-checks"><h2>Cross-checks</h2><p>Not computed: ${input.assessmentProblems.join('; ')}</p></section>`;
+  return html`<section id="cross-checks"><h2>Cross-checks by independent methods</h2>
+    <p>Each method estimates the same J from the same logs under a different assumption; a large gap from fitted Q-evaluation (FQE) is flagged.</p>
+    ${a.candidates.map((c) => {
+      const n = figures.next(), level = formatPercent(a.settings.level, 0);
+      const rows = [{ label: 'Fitted Q-evaluation', value: c.policyValue.value, interval: c.policyValue.percentile, group: 0 },
+        ...c.crossChecks.filter((x) => x.estimate).map((x, i) => ({ label: x.label, value: x.estimate!.value, interval: x.estimate!.percentile, group: i + 1 }))];
+      return html`<h3>${c.name}</h3>
+        <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th><th class="num">− FQE</th><th>Verdict</th><th>Rests on</th></tr></thead><tbody>
+        <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td><td class="small">The features represent Q^π well where π goes (see Diagnostics).</td></tr>
+        ${c.crossChecks.map((x) => html`<tr><td>${x.label}</td>${x.estimate ? estimateCells(x.estimate) : html`<td class="num">—</td><td></td><td></td><td></td>`}
+          <td class="num">${x.difference ? `${formatNumber(x.difference.value, 3)} ${formatInterval(x.difference.percentile, 3)}` : ''}</td>
+          <td><span class="verdict-${x.agreement}">${verdictWord(x.agreement)}</span><br/><span class="small">${x.note}</span></td><td class="small">${x.assumption}</td></tr>`)}
+        </tbody></table>
+        <figure id="fig-checks-${n}">${raw(svgIntervalChart(rows, `J — ${words.value}`))}
+          <figcaption>Figure ${n}. ${c.name}: J by fitted Q-evaluation and by each applicable cross-check, with ${level} percentile bootstrap intervals over the same resamples.</figcaption></figure>`;
+    })}</section>`;
+}
+
+function verdictWord(agreement: string): string {
+  return { agrees: 'agrees', disagrees: 'DISAGREES', uninformative: 'uninformative', notApplicable: 'not applicable' }[agreement] ?? agreement;
+}
+
+export function sensitivitySection(input: ReportInput, figures: FigureCounter): Html {
+  const s = input.assessment?.sensitivity, words = senseWords(input);
+  if (!s) return html`<section id="sensitivity"><h2>Sensitivity</h2><p>Not computed.</p></section>`;
+  return html`<section id="sensitivity"><h2>Sensitivity</h2>
+    <p>J over a range of settings: a conclusion that holds across the range does not hinge on the setting.</p>
+    ${s.curves.map((curve) => {
+      const n = figures.next();
+      const chart = svgLineChart({
+        series: curve.series.map((x) => ({ name: x.name, x: curve.settings, y: x.values, points: true, dashed: x.status.every((st) => st === 'logged') })),
+        xLabel: curve.label, yLabel: `J — ${words.short}`, markers: [{ x: curve.settings[curve.projectIndex], label: 'project setting' }],
+      });
+      return html`<figure id="fig-sensitivity-${n}">${raw(chart)}<figcaption>Figure ${n}. J (${words.value}, ${words.better}) against the ${curve.label}; dotted line: the project’s setting.
+        The ranking is ${curve.rankingStable ? 'the same at every setting' : raw('<strong>not</strong> the same at every setting')}.</figcaption></figure>`;
+    })}
+    <ul class="small">${s.notes.map((note) => html`<li>${note}</li>`)}</ul></section>`;
+}
+
+export function cautionsSection(input: ReportInput, a: Assessment | null): Html {
+  const evaluationWarnings = input.evaluation.warnings;
+  return html`<section id="cautions"><h2>Cautions</h2>
+    ${evaluationWarnings.length ? html`<h3>Warnings from the evaluation</h3><ul>${evaluationWarnings.map((w) => html`<li>${w}</li>`)}</ul>` : ''}
+    ${a ? '' : html`<p>${input.assessmentProblems.join('; ')}</p>`}
+    <div class="cautions"><ul>${CAUTIONS.map((c) => html`<li>${c}</li>`)}</ul></div></section>`;
+}

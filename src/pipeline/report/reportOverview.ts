@@ -1,0 +1,64 @@
+/** The report's opening sections: the summary, the job, the data and the settings. */
+import type { Assessment } from '../assessment';
+import { html, formatNumber, formatPercent, type Html } from './htmlText';
+import { senseWords, type ReportInput } from './reportInput';
+
+export function summarySection(input: ReportInput): Html {
+  const a = input.assessment, e = input.evaluation, words = senseWords(input);
+  const ranking = a?.comparison.ranking;
+  const best = ranking ? ranking.order[0] : [...e.policies].sort((x, y) => (e.valueSense === 'cost' ? x.policyValue - y.policyValue : y.policyValue - x.policyValue))[0]?.name;
+  const serious = a ? [...a.warnings, ...a.candidates.flatMap((c) => c.warnings)].filter((w) => w.severity === 'serious').length : null;
+  return html`<div class="summary" id="summary"><p><strong>Summary.</strong> Values are the ${words.value} (${words.better}). By point estimate the best policy is
+    <strong>${best ?? '—'}</strong>${ranking ? html`; the full ranking ${ranking.order.join(' › ')} holds in ${formatPercent(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
+    ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p></div>`;
+}
+
+export function jobSection(input: ReportInput): Html {
+  const p = input.project;
+  return html`<section id="job"><h2>Job</h2>
+    <table><tbody>
+      <tr><th>Project</th><td>${p.name}</td></tr>
+      <tr><th>Description</th><td>${p.description || '—'}</td></tr>
+      <tr><th>Project file</th><td>${input.projectFile}</td></tr>
+      <tr><th>Data file</th><td>${p.data.path}</td></tr>
+      <tr><th>Evaluated</th><td>${input.evaluation.evaluatedAt}</td></tr>
+      <tr><th>Report written</th><td>${input.generatedAt}</td></tr>
+      <tr><th>Question</th><td>How would each of ${p.candidates.length} candidate setpoint polic${p.candidates.length === 1 ? 'y' : 'ies'} perform, judged offline from the logs gathered under today’s controller?</td></tr>
+    </tbody></table>
+    <h3>Candidates</h3>
+    <table><thead><tr><th>Name</th><th>Mean action μ(s) = offset + gain·s</th><th>Std</th><th>Limits</th><th>Description</th></tr></thead><tbody>
+    ${p.candidates.map((c) => html`<tr><td>${c.name}</td><td>offset ${c.offset.map((v) => formatNumber(v)).join(', ')}; gain ${c.gain.map((r) => `[${r.map((v) => formatNumber(v)).join(', ')}]`).join(' ')}</td>
+      <td>${c.std.map((v) => formatNumber(v)).join(', ')}</td><td>${c.bounds ? `${c.bounds.mode} to [${c.bounds.lo.map((v) => v ?? '−∞').join(', ')}] … [${c.bounds.hi.map((v) => v ?? '∞').join(', ')}]` : 'none'}</td><td>${c.description}</td></tr>`)}
+    </tbody></table></section>`;
+}
+
+export function dataSection(input: ReportInput): Html {
+  const s = input.data.summary, p = input.project;
+  const unit = (name: string) => [...p.columns.states, ...p.columns.actions].find((c) => c.column === name)?.unit ?? '';
+  return html`<section id="data"><h2>Data</h2>
+    <p>${s.rowCount.toLocaleString('en-US')} rows read, ${s.usedRowCount.toLocaleString('en-US')} used (${formatPercent(s.excludedFraction)} excluded);
+      ${s.transitionCount.toLocaleString('en-US')} transitions in ${s.episodeCount.toLocaleString('en-US')} episodes${s.samplingPeriodSeconds ? `, sampled every ${formatNumber(s.samplingPeriodSeconds, 4)} s` : ''}.
+      The reward is ${p.columns.reward.kind === 'column' ? `column “${p.columns.reward.column}”` : `the expression ${p.columns.reward.expression}`}, read as a ${p.columns.reward.sense}.</p>
+    <table><thead><tr><th>Column</th><th>Used as</th><th>Unit</th><th class="num">Min</th><th class="num">Mean</th><th class="num">Max</th><th class="num">Std</th></tr></thead><tbody>
+    ${s.columns.map((c) => html`<tr><td>${c.name}</td><td>${c.roles.join(', ')}</td><td>${unit(c.name)}</td><td class="num">${formatNumber(c.min)}</td><td class="num">${formatNumber(c.mean)}</td><td class="num">${formatNumber(c.max)}</td><td class="num">${formatNumber(c.std)}</td></tr>`)}
+    </tbody></table>
+    ${input.data.episodeReport.length ? html`<ul class="small">${input.data.episodeReport.map((line) => html`<li>${line}</li>`)}</ul>` : ''}</section>`;
+}
+
+export function settingsSection(input: ReportInput): Html {
+  const s = input.evaluation.settings, a = input.assessment;
+  return html`<section id="settings"><h2>Settings</h2>
+    <table><tbody>
+      <tr><th>Discount γ per logged step</th><td>${formatNumber(s.discount)} (effective horizon ${formatNumber(1 / (1 - s.discount), 4)} steps)</td></tr>
+      <tr><th>Approximator</th><td>${s.approximator}</td></tr>
+      <tr><th>Action quadrature</th><td>${s.quadratureNodes} Gauss–Hermite nodes per action</td></tr>
+      <tr><th>Start states</th><td>${s.startStates} (${input.project.startStates.kind === 'given' ? 'given in the project' : 'the first state of each logged episode'})</td></tr>
+      <tr><th>Seed</th><td>${s.seed}</td></tr>
+      ${a ? html`<tr><th>Bootstrap</th><td>${a.settings.resamples} resamples of the ${a.settings.episodes} episodes, level ${formatPercent(a.settings.level, 0)}, seed ${a.settings.seed}; ${a.settings.solver}</td></tr>` : ''}
+    </tbody></table>
+    ${a ? methodList(a) : html`<p><strong>Intervals, cross-checks and diagnostics were not computed:</strong> ${input.assessmentProblems.join('; ')}</p>`}</section>`;
+}
+
+function methodList(a: Assessment): Html {
+  return html`<h3>Definitions and thresholds</h3><ul class="small">${a.method.map((m) => html`<li>${m}</li>`)}</ul>`;
+}

@@ -1,0 +1,33 @@
+/** The report's stylesheet, inline so the file stands alone; plain and printable (A4, figures not split). */
+export const REPORT_CSS = `
+:root { --ink: #1a1a1a; --muted: #555; --rule: #c8c8c8; --serious: #9b1c1c; --caution: #8a5a00; --ok: #1e6b3a; }
+* { box-sizing: border-box; }
+body { font: 14px/1.45 "Segoe UI", "Helvetica Neue", Arial, sans-serif; color: var(--ink); margin: 0 auto; max-width: 980px; padding: 24px 32px 48px; background: #fff; }
+h1 { font-size: 24px; margin: 0 0 4px; }
+h2 { font-size: 19px; margin: 32px 0 10px; padding-bottom: 4px; border-bottom: 2px solid var(--ink); }
+h3 { font-size: 15px; margin: 20px 0 6px; }
+p, li { max-width: 78ch; }
+.subtitle { color: var(--muted); margin: 0 0 16px; }
+table { border-collapse: collapse; margin: 8px 0 14px; font-size: 13px; }
+th, td { border-bottom: 1px solid var(--rule); padding: 4px 10px 4px 0; text-align: left; vertical-align: top; }
+th { border-bottom: 1.5px solid var(--ink); font-weight: 600; }
+td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+figure { margin: 14px 0 20px; break-inside: avoid; page-break-inside: avoid; }
+figcaption { font-size: 12.5px; color: var(--muted); max-width: 86ch; margin-top: 4px; }
+svg { max-width: 100%; height: auto; font-size: 11px; font-family: inherit; }
+svg .axis line, svg .axis path { stroke: #333; }
+svg .axis-label { font-size: 12px; fill: #222; }
+svg .value { fill: #333; }
+.summary { border: 1px solid var(--rule); border-left: 5px solid var(--ink); padding: 10px 14px; margin: 12px 0; }
+.warning { margin: 4px 0; }
+.warning.serious strong { color: var(--serious); }
+.warning.caution strong { color: var(--caution); }
+.verdict-agrees { color: var(--ok); font-weight: 600; }
+.verdict-disagrees { color: var(--serious); font-weight: 600; }
+.verdict-uninformative, .verdict-notApplicable { color: var(--caution); font-weight: 600; }
+.cautions { border: 2px solid var(--ink); padding: 8px 16px; }
+.small { font-size: 12.5px; color: var(--muted); }
+.grid2 { display: flex; flex-wrap: wrap; gap: 12px 24px; }
+@page { size: A4; margin: 16mm 14mm; }
+@media print { body { padding: 0; max-width: none; } h2 { break-after: avoid; } section { break-inside: auto; } }
+`;

@@ -1,0 +1,225 @@
+/**
+ * The app under trouble: a CSV with a bad cell shows the importer's error (file, line, column) on
+ * screen; a long run can be cancelled and the next run still works; the page answers clicks while a
+ * fit runs (the longest main-thread task is measured and printed, never asserted); a project whose
+ * data file moved or changed says so; a project from a newer version is refused and left unchanged.
+ */
+import { copyFile, readFile, rename, writeFile } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchApp, type LaunchedApp } from './harness/launch';
+import { chooseData, goToStep, TANK_CSV } from '../renderer/e2e/appSteps';
+import { writeTankProject } from '../renderer/e2e/projectFiles';
+
+const BAD_CSV = resolve(__dirname, '../fixtures/bad/not-a-number.csv');
+
+/** New project; answers "Don’t save" when the app asks about unsaved changes. */
+async function startNewProject(app: LaunchedApp): Promise<void> {
+  const { page } = app;
+  await page.getByTestId('new-project').click();
+  const dontSave = page.getByRole('button', { name: 'Don’t save' });
+  await page.getByTestId('welcome').or(dontSave).waitFor();
+  if (await dontSave.isVisible()) await dontSave.click();
+  await page.getByTestId('welcome').waitFor();
+}
+
+async function openProject(app: LaunchedApp, path: string): Promise<void> {
+  app.harness.dialogs.nextOpenProject = path;
+  await app.page.getByTestId('open-project').click();
+}
+
+describe('the app under trouble (e2e)', () => {
+  let app: LaunchedApp;
+  beforeAll(async () => {
+    app = await launchApp();
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('shows a bad cell with its file, line and column, and lists the row when bad rows are left out', async () => {
+    const { page, harness } = app;
+    const csv = join(harness.workFolder, 'not-a-number.csv');
+    await copyFile(BAD_CSV, csv);
+    await chooseData(app, csv);
+    await page.getByTestId('role-level_m').selectOption('state');
+    await page.getByTestId('role-valve_pct').selectOption('action');
+    await page.getByTestId('role-cost').selectOption('cost');
+    const errors = page.getByTestId('import-errors');
+    await errors.waitFor({ timeout: 30_000 });
+    // The importer's own wording (test/data/badFiles.test.ts): line 17 holds "1,2.3" in column level_m.
+    await expect(errors.innerText()).resolves.toContain('not-a-number.csv, line 17, column level_m');
+    await expect(errors.innerText()).resolves.toContain('"1,2.3" is not a number');
+    await app.screenshot('robustness-bad-csv');
+    await page.getByTestId('bad-rows').selectOption('exclude');
+    const excluded = page.getByTestId('excluded-rows');
+    await excluded.waitFor({ timeout: 30_000 });
+    await expect(excluded.innerText()).resolves.toContain('17');
+  });
+
+  it('reads a dropped CSV, and asks for it through the picker before the project can be saved', async () => {
+    const { page } = app;
+    await startNewProject(app);
+    const text = await readFile(BAD_CSV, 'utf8');
+    const transfer = await page.evaluateHandle((csv) => {
+      const data = new DataTransfer();
+      data.items.add(new File([csv], 'dropped-levels.csv', { type: 'text/csv' }));
+      return data;
+    }, text);
+    await page.getByTestId('dropzone').dispatchEvent('drop', { dataTransfer: transfer });
+    await page.getByTestId('role-table').waitFor();
+    await expect(page.getByTestId('data-file').innerText()).resolves.toBe('dropped-levels.csv');
+    await page.getByTestId('save-project').click();
+    await expect(page.getByTestId('notice').innerText()).resolves.toContain('dropped onto the window');
+  });
+
+  it('cancels a long run, keeps the page responsive meanwhile, and runs again afterwards', async () => {
+    const { page, harness } = app;
+    const projectPath = join(harness.workFolder, 'long-run.spcritic');
+    // A tolerance no iteration reaches and the schema's largest iteration cap: the fit runs for a long time.
+    await writeTankProject({ projectPath, dataPath: TANK_CSV, approximator: { tolerance: 1e-300, maxIterations: 1_000_000 } });
+    await startNewProject(app);
+    await openProject(app, projectPath);
+    await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
+    await goToStep(page, 'run');
+    // For comparison: the same step switch with no run going.
+    await page.evaluate(startMainThreadProbe);
+    await goToStep(page, 'candidates');
+    await page.getByTestId('candidate-chart').waitFor();
+    await goToStep(page, 'run');
+    report('switching to Candidates and back, no run', await page.evaluate(stopMainThreadProbe));
+    await page.getByTestId('run-evaluation').click();
+    await page.getByTestId('progress-iteration').getByText(/^\d+$/).waitFor({ timeout: 30_000 });
+    // The main thread while the worker fits: one second left alone, then while the user switches steps.
+    await page.evaluate(startMainThreadProbe);
+    await page.waitForTimeout(1000);
+    report('a run left alone for 1 s', await page.evaluate(stopMainThreadProbe));
+    await page.evaluate(startMainThreadProbe);
+    await goToStep(page, 'candidates');
+    await expect(page.getByTestId('step-candidates').getAttribute('aria-selected')).resolves.toBe('true');
+    await page.getByTestId('candidate-chart').waitFor();
+    await goToStep(page, 'run');
+    report('switching to Candidates and back during a run', await page.evaluate(stopMainThreadProbe));
+    await expect(page.getByTestId('progress-iteration').innerText()).resolves.toMatch(/^\d+$/); // still running
+    await app.screenshot('robustness-run-progress');
+    await page.getByTestId('cancel-evaluation').click();
+    await page.getByTestId('run-cancelled').waitFor({ timeout: 10_000 });
+    await expect(page.getByTestId('run-progress').count()).resolves.toBe(0);
+
+    // The fresh worker has the data again: a short run finishes.
+    await goToStep(page, 'estimator');
+    await page.getByLabel('Tolerance').fill('1e-10');
+    await page.getByLabel('Maximum iterations').fill('5000');
+    await goToStep(page, 'run');
+    await page.getByTestId('run-evaluation').click();
+    await page.getByTestId('run-finished').waitFor({ timeout: 90_000 });
+  });
+
+  it('says when the data file has moved, and reads it from where the user points', async () => {
+    const { page, harness } = app;
+    const data = join(harness.workFolder, 'levels.csv');
+    const moved = join(harness.workFolder, 'levels-moved.csv');
+    const projectPath = join(harness.workFolder, 'moved.spcritic');
+    await copyFile(TANK_CSV, data);
+    await writeTankProject({ projectPath, dataPath: data, fingerprint: true });
+    await rename(data, moved);
+    await startNewProject(app);
+    await openProject(app, projectPath);
+    const problems = page.getByTestId('data-problems');
+    await problems.waitFor({ timeout: 30_000 });
+    await expect(problems.innerText()).resolves.toContain('cannot read the data file "levels.csv"');
+    await expect(page.getByTestId('step-plant-log').innerText()).resolves.toContain('could not be read');
+    await app.screenshot('robustness-data-moved');
+    harness.dialogs.nextOpenData = moved;
+    await page.getByTestId('relocate-data').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
+    await expect(page.getByTestId('import-warnings').count()).resolves.toBe(0); // the same bytes: no "changed" warning
+  });
+
+  it('says when the data file has changed since the project was saved, with the old and new row counts', async () => {
+    const { page, harness } = app;
+    const data = join(harness.workFolder, 'changing.csv');
+    const projectPath = join(harness.workFolder, 'changing.spcritic');
+    await copyFile(TANK_CSV, data);
+    await writeTankProject({ projectPath, dataPath: data, fingerprint: true });
+    const lines = (await readFile(data, 'utf8')).trimEnd().split('\n');
+    await writeFile(data, `${lines.slice(0, 1 + 19_000).join('\n')}\n`); // the first 38 runs only
+    await startNewProject(app);
+    await openProject(app, projectPath);
+    const warnings = page.getByTestId('import-warnings');
+    await warnings.waitFor({ timeout: 30_000 });
+    await expect(warnings.innerText()).resolves.toContain('rows then: 20,000, now: 19,000');
+  });
+
+  it('refuses a project from a newer format version and leaves the file unchanged', async () => {
+    const { page, harness } = app;
+    const projectPath = join(harness.workFolder, 'future.spcritic');
+    const text = await writeTankProject({ projectPath, dataPath: TANK_CSV, version: 99 });
+    await openProject(app, projectPath);
+    const notice = page.getByTestId('notice');
+    await notice.getByText('could not be opened').waitFor({ timeout: 30_000 });
+    await expect(notice.innerText()).resolves.toContain('newer Setpoint Critic');
+    await app.screenshot('robustness-newer-version');
+    // The open project is still the previous one: Save writes that one, and nothing touches future.spcritic.
+    const discards = () => harness.apiCalls.filter((c) => c.method === 'discardRecovery').length;
+    const before = discards();
+    await page.getByTestId('save-project').click();
+    await expect.poll(discards).toBeGreaterThan(before); // the save has finished
+    await expect(readFile(projectPath, 'utf8')).resolves.toBe(text);
+  });
+
+  it('offers unsaved work back after a crash, and restores it as unsaved', async () => {
+    // The recovery copy the autosave would write (every minute while there are unsaved changes).
+    const sample = JSON.parse(await readFile(resolve(__dirname, '../../sample-projects/tank-levels/tank-levels.spcritic'), 'utf8'));
+    const text = JSON.stringify({ ...sample, name: 'Recovered work', data: { ...sample.data, path: TANK_CSV } });
+    await app.page.evaluate((t) => window.setpointCritic!.writeRecovery(t, null), text);
+    // The app "crashes": a new run starts on the same state folder while the old copy is still there.
+    const next = await launchApp({ stateFolder: app.harness.stateFolder });
+    try {
+      await next.page.getByRole('alertdialog').getByText('did not close cleanly').waitFor({ timeout: 30_000 });
+      await next.screenshot('robustness-recovery-offer');
+      await next.page.getByRole('button', { name: 'Restore it' }).click();
+      await next.harness.waitForDocumentState((st) => st.name === 'Recovered work' && st.dirty);
+      await expect(next.page.getByTestId('notice').innerText()).resolves.toContain('Choose the data file again');
+      expect(next.consoleErrors).toEqual([]);
+    } finally {
+      await next.close();
+    }
+  });
+
+  it('logged no console errors and made no request beyond its origin', () => {
+    expect(app.consoleErrors).toEqual([]);
+    expect(app.blockedRequests).toEqual([]);
+  });
+});
+
+function report(what: string, probe: { longestTaskMs: number; longTasks: number; longestFrameGapMs: number }): void {
+  console.log(`main thread, ${what}: longest task ${probe.longestTaskMs} ms (${probe.longTasks} over 50 ms), longest gap between frames ${probe.longestFrameGapMs.toFixed(1)} ms`);
+}
+
+/** Runs in the page: record long tasks and the gaps between animation frames until stopped. */
+function startMainThreadProbe(): void {
+  const probe = { longestTaskMs: 0, longTasks: 0, longestFrameGapMs: 0, running: true, observer: null as PerformanceObserver | null };
+  probe.observer = new PerformanceObserver((list) => {
+    for (const entry of list.getEntries()) {
+      probe.longTasks++;
+      probe.longestTaskMs = Math.max(probe.longestTaskMs, entry.duration);
+    }
+  });
+  probe.observer.observe({ type: 'longtask' });
+  let last = performance.now();
+  const frame = (now: number) => {
+    probe.longestFrameGapMs = Math.max(probe.longestFrameGapMs, now - last);
+    last = now;
+    if (probe.running) requestAnimationFrame(frame);
+  };
+  requestAnimationFrame(frame);
+  (window as unknown as { __probe: typeof probe }).__probe = probe;
+}
+
+function stopMainThreadProbe(): { longestTaskMs: number; longTasks: number; longestFrameGapMs: number } {
+  const probe = (window as unknown as { __probe: { longestTaskMs: number; longTasks: number; longestFrameGapMs: number; running: boolean; observer: PerformanceObserver } }).__probe;
+  probe.running = false;
+  probe.observer.disconnect();
+  return { longestTaskMs: probe.longestTaskMs, longTasks: probe.longTasks, longestFrameGapMs: probe.longestFrameGapMs };
+}

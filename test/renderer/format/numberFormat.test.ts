@@ -1,0 +1,33 @@
+/** Numbers on screen and in fields: significant digits, exponents only at extremes, exact round trips. */
+import { describe, expect, it } from 'vitest';
+import { editableNumber, formatDuration, formatNumber, parseNumber } from '../../../src/renderer/src/format/numberFormat';
+
+describe('number format', () => {
+  it('shows a few significant digits with a true minus sign', () => {
+    expect(formatNumber(8.358179, 6)).toBe('8.35818');
+    expect(formatNumber(-29.18)).toBe('−29.18');
+    expect(formatNumber(0.0002505)).toBe('0.0002505');
+    expect(formatNumber(9.69e-11)).toBe('9.69e-11');
+    expect(formatNumber(1.5e6)).toBe('1.5e6');
+    expect(formatNumber(Infinity)).toBe('∞');
+  });
+
+  it('writes field values that read back to the same number', () => {
+    for (const x of [1e-6, 1e-10, 0.95, 189, -60, 123456.789, 5000, 1e12]) expect(parseNumber(editableNumber(x))).toBe(x);
+    expect(editableNumber(1e-6)).toBe('1e-6');
+    expect(editableNumber(null)).toBe('');
+  });
+
+  it('refuses text that is not a number', () => {
+    for (const text of ['', 'abc', '1,5', '1.2.3', '0x1A', 'Infinity', '1e400']) expect(parseNumber(text)).toBeNull();
+    expect(parseNumber(' −2.5 ')).toBe(-2.5);
+    expect(parseNumber('.5')).toBe(0.5);
+  });
+
+  it('says durations the way people do', () => {
+    expect(formatDuration(400)).toBe('< 1 s');
+    expect(formatDuration(12_400)).toBe('12 s');
+    expect(formatDuration(65_000)).toBe('1 min 05 s');
+    expect(formatDuration(3_720_000)).toBe('1 h 02 min');
+  });
+});

@@ -1,0 +1,45 @@
+/**
+ * What the candidate chart draws: μ(s) = offset + gain·s along one axis with the other state at its
+ * mean, checked at the two ends by hand arithmetic, and new candidates that take the logged mean,
+ * the logged spread or the behaviour model's rounded coefficients.
+ */
+import { describe, expect, it } from 'vitest';
+import { meanActionLine, loggedPoints } from '../../../src/renderer/src/screens/candidates/meanActionLines';
+import { candidateFromBehaviour, plainCandidate, roundSignificant, uniqueName } from '../../../src/renderer/src/screens/candidates/candidateDrafts';
+import { newProjectDocument } from '../../../src/renderer/src/document/newProject';
+import type { ProjectDocument } from '../../../src/project/schema';
+
+function doc(): ProjectDocument {
+  const d = newProjectDocument();
+  return {
+    ...d,
+    columns: { ...d.columns, states: [{ column: 'u', unit: 'm' }, { column: 'l', unit: 'm' }], actions: [{ column: 'v', unit: '%' }] },
+    candidates: [{ name: 'Candidate 1', description: '', offset: [0], gain: [[0, 0]], std: [1] }],
+  };
+}
+
+describe('candidate chart lines', () => {
+  it('draws μ along the axis with the other state at its mean', () => {
+    // 189 − 60·1.0 − 90·0.8 = 57; 189 − 60·1.4 − 90·0.8 = 33.
+    expect(meanActionLine({ offset: [189], gain: [[-60, -90]] }, 0, 0, [1.0, 1.4], [1.2, 0.8])).toEqual([{ x: 1.0, y: 57 }, { x: 1.4, y: 33 }]);
+    expect(meanActionLine({ offset: [189], gain: [[-60]] }, 0, 0, [1, 2], [1.2, 0.8])).toBeNull();
+  });
+
+  it('pairs each logged state with its action', () => {
+    const sample = { count: 2, states: Float64Array.from([1, 2, 3, 4]), actions: Float64Array.from([10, 20]) };
+    expect(loggedPoints(sample, 2, 1, 1, 0)).toEqual([{ x: 2, y: 10 }, { x: 4, y: 20 }]);
+  });
+});
+
+describe('new candidates', () => {
+  it('names them without clashes', () => {
+    expect(uniqueName(doc(), 'Candidate 1')).toBe('Candidate 1 2');
+    expect(plainCandidate(doc(), null)).toMatchObject({ name: 'Candidate 2', offset: [0], gain: [[0, 0]], std: [1] });
+  });
+
+  it('copies the behaviour model to four significant digits', () => {
+    const model = { offset: [97.2634], gain: [[-29.1812, -21.5678]], std: [3.98012] } as never;
+    expect(candidateFromBehaviour(doc(), model)).toMatchObject({ offset: [97.26], gain: [[-29.18, -21.57]], std: [3.98] });
+    expect(roundSignificant(0.000123456)).toBe(0.0001235);
+  });
+});

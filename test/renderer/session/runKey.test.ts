@@ -1,0 +1,32 @@
+/** Results go stale when what the numbers depend on changes, and only then. */
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { parseProjectText } from '../../../src/project/projectFile';
+import { importKey, runKey } from '../../../src/renderer/src/session/runKey';
+
+const loaded = parseProjectText(readFileSync(resolve(__dirname, '../../../sample-projects/tank-levels/tank-levels.spcritic'), 'utf8'), 'p');
+if (!loaded.ok) throw new Error('sample does not load');
+const doc = loaded.value.document;
+
+describe('run key', () => {
+  it('ignores the name, descriptions, surface axes and where the data file lives', () => {
+    const renamed = {
+      ...doc, name: 'Other', description: 'x', surface: undefined, data: { ...doc.data, path: '/abs/tank-levels.csv', sha256: 'a'.repeat(64) },
+      candidates: doc.candidates.map((c) => ({ ...c, description: 'changed' })),
+    };
+    expect(runKey(renamed, 'f')).toBe(runKey(doc, 'f'));
+  });
+
+  it('changes with the data, a candidate, a setting or how the CSV is read', () => {
+    expect(runKey(doc, 'g')).not.toBe(runKey(doc, 'f'));
+    expect(runKey({ ...doc, seed: 2 }, 'f')).not.toBe(runKey(doc, 'f'));
+    expect(runKey({ ...doc, candidates: [{ ...doc.candidates[0], std: [2] }, doc.candidates[1]] }, 'f')).not.toBe(runKey(doc, 'f'));
+    expect(runKey({ ...doc, data: { ...doc.data, csv: { ...doc.data.csv, badRows: 'exclude' } } }, 'f')).not.toBe(runKey(doc, 'f'));
+  });
+
+  it('imports again for new bytes or roles, not for a new name', () => {
+    expect(importKey({ ...doc, name: 'x' }, 1)).toBe(importKey(doc, 1));
+    expect(importKey(doc, 2)).not.toBe(importKey(doc, 1));
+  });
+});
