@@ -19,6 +19,8 @@ export interface CandidateFitRequest {
   startStates: Float64Array; // e×ds
   onIteration?: (iteration: FitIteration) => void;
   cancel?: CancellationCheck;
+  /** Where TensorFlow.js's wasm backend finds its .wasm files (the CLI passes node_modules; the app registers its own). */
+  wasmPath?: string;
 }
 
 export interface CandidateFit {
@@ -30,6 +32,8 @@ export interface CandidateFit {
   standardError: number | null;
   fixedPointValue: number | null;
   featureCount: number;
+  /** What computed the fit: "linear least squares" or "TensorFlow.js wasm" / "TensorFlow.js cpu". */
+  backend: string;
   warnings: string[];
   /** Release resources the fit holds (tensors); a no-op for linear fits. */
   dispose(): void;

@@ -7,9 +7,9 @@ import { FqeDataError, FqeOptionsError } from '../core/fqe/fqeErrors';
 import { SingularMatrixError } from '../core/linalg/dense';
 import { PolicyError } from '../core/policy';
 import { ValueQueryError } from '../core/value';
-import { UnsupportedApproximatorError } from './fitCandidate';
+import { NetworkDivergedError, TfBackendError } from '../core/fqe/networkErrors';
 
-const ENGINE_ERRORS = [PolicyError, FeatureSpecError, FqeDataError, FqeOptionsError, SingularMatrixError, ValueQueryError, UnsupportedApproximatorError];
+const ENGINE_ERRORS = [PolicyError, FeatureSpecError, FqeDataError, FqeOptionsError, SingularMatrixError, ValueQueryError, NetworkDivergedError, TfBackendError];
 
 export function isEngineError(e: unknown): e is Error {
   return ENGINE_ERRORS.some((type) => e instanceof type);

@@ -47,7 +47,10 @@ export interface PolicyEstimate {
   iterations: number;
   history: FitIteration[];
   surface: ValueSurface | null;
+  /** Fitted weights: features of a linear fit, weights and biases of a network. */
   featureCount: number;
+  /** What computed the fit (linear least squares, or the TensorFlow.js backend used). */
+  backend: string;
 }
 
 export interface BehaviourEstimate {

@@ -45,6 +45,8 @@ export interface EvaluateOptions {
    * and slices); the caller must dispose them. Without it the pipeline disposes every fit.
    */
   retainFit?: (candidateIndex: number, fit: CandidateFit, policy: GaussianPolicy) => void;
+  /** Where TensorFlow.js's wasm backend finds its .wasm files, for hosts that must say (the CLI). */
+  wasmPath?: string;
 }
 
 export async function evaluateProject(options: EvaluateOptions): Promise<Result<Evaluation>> {
@@ -92,7 +94,7 @@ async function estimateCandidate(
   report(null);
   const fit: CandidateFit = await fitCandidate({
     data: dataset, policy, approximator: project.approximator, discount: project.discount, quadratureNodes: project.quadratureNodes,
-    seed: project.seed, startStates, onIteration: report, cancel: options.cancel,
+    seed: project.seed, startStates, onIteration: report, cancel: options.cancel, wasmPath: options.wasmPath,
   });
   let retained = false;
   try {
@@ -116,6 +118,7 @@ async function estimateCandidate(
       history: fit.history.map((h) => ({ ...h, policyValue: h.policyValue === null ? null : sign * h.policyValue })),
       surface,
       featureCount: fit.featureCount,
+      backend: fit.backend,
     };
     if (options.retainFit) {
       options.retainFit(index, fit, policy);

@@ -21,6 +21,7 @@ export function evaluationToJson(evaluation: Evaluation): Record<string, unknown
       message: p.message,
       iterations: p.iterations,
       featureCount: p.featureCount,
+      backend: p.backend,
       history: p.history,
       surface: p.surface && {
         xState: p.surface.xState,

@@ -34,6 +34,7 @@ export function fitLinearCandidate(request: CandidateFitRequest): CandidateFit {
     standardError: chosen.policyValue.standardError,
     fixedPointValue: result.fixedPoint?.policyValue.value ?? null,
     featureCount: features.dim,
+    backend: 'linear least squares (double precision)',
     warnings,
     dispose: () => undefined,
   };

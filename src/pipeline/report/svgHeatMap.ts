@@ -1,10 +1,11 @@
 /**
- * A value surface as an SVG heat map: one rectangle per grid point, coloured by value (viridis),
- * a colour bar, and the grid points where no logged state falls hatched over, so a reader sees at
- * once where the surface is extrapolated.
+ * A value surface as an SVG heat map: the grid as an embedded PNG, one pixel per grid point
+ * coloured by value (viridis) and scaled up without smoothing, a colour bar, and the grid points
+ * where no logged state falls hatched over, so a reader sees at once where V is extrapolated.
  */
 import { escapeHtml, formatNumber } from './htmlText';
 import { bottomAxis, extent, leftAxis, linearScale, niceTicks } from './svgAxes';
+import { pngDataUrl, encodePng } from './pngImage';
 import { sequentialColour } from './svgPalette';
 
 export interface HeatMapInput {
@@ -27,25 +28,45 @@ export function svgHeatMap(input: HeatMapInput): string {
   const [vLo, vHi] = extent(Array.from(input.values));
   const xs = linearScale(input.x[0], input.x[nx - 1], LEFT, RIGHT), ys = linearScale(input.y[0], input.y[ny - 1], BOTTOM, TOP);
   const colour = linearScale(vLo, vHi, 0, 1);
+  // Grid point (i, j) is the centre of its cell, so the image spans half a cell beyond the axis ends.
   const cellW = (RIGHT - LEFT) / (nx - 1), cellH = (BOTTOM - TOP) / (ny - 1);
-  const cells: string[] = [], hatched: string[] = [];
+  const pixels = new Uint8Array(nx * ny * 3);
   for (let j = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++) {
-      const v = input.values[j * nx + i];
-      const x = (xs(input.x[i]) - cellW / 2).toFixed(2), y = (ys(input.y[j]) - cellH / 2).toFixed(2);
-      const rect = `x="${x}" y="${y}" width="${(cellW + 0.4).toFixed(2)}" height="${(cellH + 0.4).toFixed(2)}"`;
-      cells.push(`<rect ${rect} fill="${Number.isFinite(v) ? sequentialColour(colour(v)) : '#ffffff'}"/>`);
-      if (input.visits && input.visits[j * nx + i] === 0) hatched.push(`<rect ${rect}/>`);
+      const v = input.values[j * nx + i], o = ((ny - 1 - j) * nx + i) * 3; // image rows run top-down
+      pixels.set(Number.isFinite(v) ? rgbOf(sequentialColour(colour(v))) : [255, 255, 255], o);
     }
   }
+  const image = pngDataUrl(encodePng(nx, ny, pixels));
   const pattern = `${input.id}-unvisited`;
   return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${WIDTH} ${HEIGHT}" width="${WIDTH}" height="${HEIGHT}" role="img" aria-label="${escapeHtml(input.valueLabel)}">` +
     `<defs><pattern id="${pattern}" width="6" height="6" patternUnits="userSpaceOnUse" patternTransform="rotate(45)">` +
-    `<rect width="6" height="6" fill="#ffffff" fill-opacity="0.45"/><line x1="0" y1="0" x2="0" y2="6" stroke="#444" stroke-width="1.2"/></pattern></defs>` +
-    `<clipPath id="${input.id}-plot"><rect x="${LEFT}" y="${TOP}" width="${RIGHT - LEFT}" height="${BOTTOM - TOP}"/></clipPath>` +
-    `<g clip-path="url(#${input.id}-plot)" shape-rendering="crispEdges">${cells.join('')}<g fill="url(#${pattern})">${hatched.join('')}</g></g>` +
+    `<rect width="6" height="6" fill="#ffffff" fill-opacity="0.45"/><line x1="0" y1="0" x2="0" y2="6" stroke="#444" stroke-width="1.2"/></pattern>` +
+    `<clipPath id="${input.id}-plot"><rect x="${LEFT}" y="${TOP}" width="${RIGHT - LEFT}" height="${BOTTOM - TOP}"/></clipPath></defs>` +
+    `<g clip-path="url(#${input.id}-plot)"><image href="${image}" x="${(LEFT - cellW / 2).toFixed(2)}" y="${(TOP - cellH / 2).toFixed(2)}" ` +
+    `width="${(RIGHT - LEFT + cellW).toFixed(2)}" height="${(BOTTOM - TOP + cellH).toFixed(2)}" preserveAspectRatio="none" style="image-rendering: pixelated"/>` +
+    `<g fill="url(#${pattern})" shape-rendering="crispEdges">${input.visits ? unvisitedRuns(input, xs, ys, cellW, cellH) : ''}</g></g>` +
     `<rect x="${LEFT}" y="${TOP}" width="${RIGHT - LEFT}" height="${BOTTOM - TOP}" fill="none" stroke="#333"/>` +
     bottomAxis(xs, BOTTOM, input.xLabel) + leftAxis(ys, LEFT, input.yLabel) + colourBar(input.id, vLo, vHi, input.valueLabel, pattern, Boolean(input.visits)) + '</svg>';
+}
+
+/** One rectangle per horizontal run of never-visited grid points. */
+function unvisitedRuns(input: HeatMapInput, xs: (v: number) => number, ys: (v: number) => number, cellW: number, cellH: number): string {
+  const nx = input.x.length, ny = input.y.length, visits = input.visits!, out: string[] = [];
+  for (let j = 0; j < ny; j++) {
+    for (let i = 0; i < nx; i++) {
+      if (visits[j * nx + i] !== 0) continue;
+      const start = i;
+      while (i + 1 < nx && visits[j * nx + i + 1] === 0) i++;
+      const x = xs(input.x[start]) - cellW / 2, y = ys(input.y[j]) - cellH / 2;
+      out.push(`<rect x="${x.toFixed(2)}" y="${y.toFixed(2)}" width="${((i - start + 1) * cellW).toFixed(2)}" height="${cellH.toFixed(2)}"/>`);
+    }
+  }
+  return out.join('');
+}
+
+function rgbOf(hex: string): [number, number, number] {
+  return [parseInt(hex.slice(1, 3), 16), parseInt(hex.slice(3, 5), 16), parseInt(hex.slice(5, 7), 16)];
 }
 
 function colourBar(id: string, lo: number, hi: number, label: string, pattern: string, withUnvisited: boolean): string {

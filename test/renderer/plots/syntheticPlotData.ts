@@ -48,7 +48,7 @@ export function geometricHistory(iterations = 40): FitIteration[] {
 function estimate(name: string, policyValue: number, standardError: number, status: PolicyEstimate['status'] = 'converged'): PolicyEstimate {
   return {
     name, policyValue, standardError, fixedPointValue: null, status, message: '', iterations: 40,
-    history: geometricHistory(), surface: null, featureCount: 10,
+    history: geometricHistory(), surface: null, featureCount: 10, backend: 'linear least squares (double precision)',
   };
 }
 
