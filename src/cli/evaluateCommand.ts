@@ -3,7 +3,8 @@
  * Files are read here (Node); everything after the bytes is the shared pipeline.
  */
 import { readFile } from 'node:fs/promises';
-import { basename, dirname, resolve } from 'node:path';
+import { createRequire } from 'node:module';
+import { basename, dirname, join, resolve } from 'node:path';
 import { describeProblems } from '../core/result';
 import { evaluateProject } from '../pipeline/evaluateProject';
 import { evaluationToJson, importToJson } from '../pipeline/evaluationJson';
@@ -26,7 +27,8 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     return 1;
   }
   const { project, dataset, warnings, imported } = loaded.value;
-  const evaluation = await evaluateProject({ project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`) });
+  if (project.approximator.kind === 'network') await quietTensorflow();
+  const evaluation = await evaluateProject({ project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`), wasmPath: tensorflowWasmFolder() });
   if (!evaluation.ok) {
     process.stderr.write(`${describeProblems(evaluation.problems)}\n`);
     return 1;
@@ -39,4 +41,19 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     process.stdout.write(formatEvaluation(evaluation.value, basename(projectPath)));
   }
   return evaluation.value.policies.some((p) => p.status === 'diverged') ? 3 : 0;
+}
+
+/** The folder holding TensorFlow.js's .wasm files in node_modules (with a trailing slash, as setWasmPaths wants). */
+function tensorflowWasmFolder(): string {
+  const packageJson = createRequire(import.meta.url).resolve('@tensorflow/tfjs-backend-wasm/package.json');
+  return `${join(dirname(packageJson), 'dist')}/`;
+}
+
+/**
+ * TensorFlow.js in Node prints advice to install its native backend on first use; the CLI cannot act
+ * on it and its users should not have to read it. Production mode silences library warnings only.
+ */
+async function quietTensorflow(): Promise<void> {
+  const tf = await import('@tensorflow/tfjs');
+  tf.enableProdMode();
 }

@@ -7,6 +7,7 @@ import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import type { TransitionSet } from '../core/transitions';
+import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
 import type { ProjectDocument } from '../project/schema';
 import type { AssessmentWarning, CandidateAssessment, Comparison, IntervalEstimate, PairedDifference } from './assessment';
 import type { CandidateWork, SharedInputs } from './assessCandidate';
@@ -106,8 +107,7 @@ export function comparison(loggedValue: number, replicates: ReplicateSet, works:
 export function unvisitedShare(project: ProjectDocument, data: TransitionSet): number | null {
   const grid = surfaceGridFor(project, data);
   if (!grid) return null;
-  const visits = surfaceVisits(data, grid);
-  return visits.filter((v) => v === 0).length / visits.length;
+  return uncoveredShare(surfaceVisits(data, grid), grid.resolution[0], grid.resolution[1]);
 }
 
 export function globalWarnings(shared: SharedInputs, truncationWeight: number, candidates: CandidateAssessment[], unvisited: number | null): AssessmentWarning[] {
@@ -125,7 +125,7 @@ export function globalWarnings(shared: SharedInputs, truncationWeight: number, c
     out.push({ severity: 'caution', topic: 'loggedReturn', message: `Logged episodes are short for this discount: up to ${(100 * truncationWeight).toFixed(1)} % of the return’s weight lies beyond their end, so the logged baseline and the importance-sampling estimates are biased toward zero.` });
   }
   if (unvisited !== null && unvisited > 0.5) {
-    out.push({ severity: 'caution', topic: 'unvisited', message: `${(100 * unvisited).toFixed(0)} % of the value-surface grid holds no logged state: the surfaces are extrapolated there.` });
+    out.push({ severity: 'caution', topic: 'unvisited', message: `${(100 * unvisited).toFixed(0)} % of the value-surface grid has no logged state within one grid step: the surfaces are extrapolated there.` });
   }
   for (const c of candidates) {
     const { percentile: p, basic: b } = c.policyValue;

@@ -28,6 +28,6 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
     `Action support: for up to ${k.queryStates} logged states, the logged actions at the ${k.neighbours} nearest logged states (states scaled by their standard deviations; ` +
       `searched among up to ${k.referenceStates.toLocaleString('en-US')} logged states) give a range; the share of the candidate’s action probability outside it is averaged. ` +
       `Caution above ${pct(c.outside.caution)}, serious above ${pct(c.outside.serious)} (our rule); the logged controller’s own share is shown for scale.`,
-    'Never-visited region: the share of the value-surface grid (the logged range of its two states) that holds no logged state; V there is extrapolated.',
+    'Never-visited region: the share of the value-surface grid (spanning the logged range of its two states) with no logged state at a grid point or its 8 neighbours (our definition); V there is extrapolated.',
   ];
 }

@@ -37,12 +37,14 @@ export function actionSlices(work: CandidateWork, data: TransitionSet, sign: num
     const state = states.subarray(r * ds, (r + 1) * ds);
     policyMean(work.policy, state, mean);
     for (let j = 0; j < m; j++) {
-      const std = actionStd(work.policy, j);
-      const lo = Math.min(logged.lo[j], mean[j] - 2.5 * std), hi = Math.max(logged.hi[j], mean[j] + 2.5 * std);
+      // The logged range, widened to the candidate's bulk (μ ± 2.5σ) but not past its actuator limits.
+      const std = actionStd(work.policy, j), limits = work.policy.bounds;
+      const lo = Math.max(Math.min(logged.lo[j], mean[j] - 2.5 * std), limits ? limits.lo[j] : -Infinity);
+      const hi = Math.min(Math.max(logged.hi[j], mean[j] + 2.5 * std), limits ? limits.hi[j] : Infinity);
       const slice = actionValueSlice(work.q, state, j, [lo, hi], SLICE_POINTS, mean);
       slices.push({
         label: labels[r], state: Array.from(state), actionIndex: j, actions: Array.from(slice.actions),
-        values: Array.from(slice.values, (v) => sign * v), candidateMean: mean[j], candidateStd: std,
+        values: Array.from(slice.values, (v) => sign * v), candidateMean: Math.min(hi, Math.max(lo, mean[j])), candidateStd: std,
         loggedRange: [ranges.lo[r * m + j], ranges.hi[r * m + j]],
       });
     }

@@ -85,6 +85,7 @@ export interface ActionSlice {
   actions: number[];
   /** Q(s, a) along the action, in the project's sense. */
   values: number[];
+  /** The candidate's mean action there, clipped to the slice's range (its actuator limits). */
   candidateMean: number;
   candidateStd: number;
   /** Range of the logged actions near this state (k nearest logged states). */
@@ -161,7 +162,7 @@ export interface Assessment {
   candidates: CandidateAssessment[];
   comparison: Comparison;
   sensitivity: Sensitivity | null;
-  /** Share of the value-surface grid with no logged state (V is extrapolated there); null without a surface. */
+  /** Share of the value-surface grid with no logged state within one grid step (V is extrapolated there); null without a surface. */
   unvisitedShare: number | null;
   warnings: AssessmentWarning[];
   /** Definitions and thresholds used, stated once for the report. */

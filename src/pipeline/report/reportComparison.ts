@@ -17,7 +17,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
   const rows = [...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue })), { name: BEHAVIOUR_NAME, estimate: a.behaviour }];
   const figure = figures.next();
   const chartRows: IntervalRow[] = rows.map((r, i) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, group: i === rows.length - 1 ? 6 : i }));
-  return html`<p>J is the ${words.value} (${words.better}), the mean of V^π over the start states; the logged behaviour’s value is the mean discounted return of its episodes.
+  return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states; the logged behaviour’s value is the mean discounted return of its episodes.
       Intervals are ${level} bootstrap intervals over episodes; “vs today” is the paired difference J − J(today) on the same resamples.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th>
       <th class="num">vs today</th><th class="num">${level} interval of the difference</th><th class="num">Better than today in</th></tr></thead><tbody>

@@ -11,24 +11,28 @@ export function diagnosticsSection(input: ReportInput): Html {
   const a = input.assessment;
   if (!a) return html`<section id="diagnostics"><h2>Diagnostics</h2><p>Not computed: ${input.assessmentProblems.join('; ')}</p></section>`;
   return html`<section id="diagnostics"><h2>Diagnostics</h2>
-    <p>Does the candidate stay inside what the logs cover? Values for the logged controller itself (fitted behaviour model) are shown in brackets for scale.</p>
-    <table><thead><tr><th>Candidate</th><th class="num">Shift νᵀΣ⁻¹ν, start states</th><th class="num">…, next states</th><th class="num">IS effective size, one step</th>
-      <th class="num">…, at the horizon</th><th class="num">Action probability outside logged range (mean / 90th pct / max)</th></tr></thead><tbody>
-    ${a.candidates.map((c) => diagnosticsRow(c))}
+    <p>Does the candidate stay inside what the logs cover? The last column gives the logged controller itself (the fitted behaviour model) for scale.</p>
+    <table><thead><tr><th>Diagnostic</th>${a.candidates.map((c) => html`<th class="num">${c.name}</th>`)}<th class="num">logged controller</th></tr></thead><tbody>
+    ${diagnosticRows(a).map((row) => html`<tr><td>${row.label}</td>${row.values.map((v) => html`<td class="num">${v}</td>`)}<td class="num">${row.reference}</td></tr>`)}
     </tbody></table>
-    <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${formatPercent(a.unvisitedShare, 0)} of the value-surface grid holds no logged state.`}</p>
+    <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${formatPercent(a.unvisitedShare, 0)} of the value-surface grid has no logged state within one grid step.`}</p>
     <h3>Warnings</h3>${warningList([...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))])}</section>`;
 }
 
-function diagnosticsRow(c: CandidateAssessment): Html {
-  const d = c.diagnostics, w = d.importanceWeights, s = d.actionSupport;
-  const ref = (v: number | null, f: (x: number) => string) => (v === null ? '' : ` (${f(v)})`);
-  return html`<tr><td>${c.name}</td>
-    <td class="num">${formatNumber(d.distributionShiftStart, 3)}${ref(d.behaviourShiftStart, (v) => formatNumber(v, 3))}</td>
-    <td class="num">${formatNumber(d.distributionShiftNext, 3)}${ref(d.behaviourShiftNext, (v) => formatNumber(v, 3))}</td>
-    <td class="num">${w ? formatPercent(w.oneStepShare) : '—'}</td>
-    <td class="num">${w ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes} episodes (step ${w.horizonSteps})` : '—'}</td>
-    <td class="num">${formatPercent(s.meanOutside)} / ${formatPercent(s.p90Outside)} / ${formatPercent(s.maxOutside)}${ref(s.behaviourMeanOutside, (v) => formatPercent(v))}</td></tr>`;
+function diagnosticRows(a: Assessment): { label: string; values: string[]; reference: string }[] {
+  const first = a.candidates[0]?.diagnostics;
+  const row = (label: string, value: (c: CandidateAssessment) => string, reference: string) => ({ label, values: a.candidates.map(value), reference });
+  const weights = (c: CandidateAssessment) => c.diagnostics.importanceWeights;
+  const horizon = a.candidates.map(weights).find((w) => w)?.horizonSteps;
+  return [
+    row('Distribution shift νᵀΣ⁻¹ν over the start states (1 = none)', (c) => formatNumber(c.diagnostics.distributionShiftStart, 3), formatNumber(first?.behaviourShiftStart, 3)),
+    row('Distribution shift νᵀΣ⁻¹ν over the logged next states', (c) => formatNumber(c.diagnostics.distributionShiftNext, 3), formatNumber(first?.behaviourShiftNext, 3)),
+    row('Importance weights: effective share of the one-step ratios', (c) => formatPercent(weights(c)?.oneStepShare), ''),
+    row(`Importance weights: effective episodes at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return w ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes}` : '—'; }, ''),
+    row('Action probability outside the logged range near the state: mean', (c) => formatPercent(c.diagnostics.actionSupport.meanOutside), formatPercent(first?.actionSupport.behaviourMeanOutside)),
+    row('… 90th percentile over states', (c) => formatPercent(c.diagnostics.actionSupport.p90Outside), ''),
+    row('… largest', (c) => formatPercent(c.diagnostics.actionSupport.maxOutside), ''),
+  ];
 }
 
 export function warningList(warnings: AssessmentWarning[]): Html {
@@ -47,15 +51,18 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
       const rows = [{ label: 'Fitted Q-evaluation', value: c.policyValue.value, interval: c.policyValue.percentile, group: 0 },
         ...c.crossChecks.filter((x) => x.estimate).map((x, i) => ({ label: x.label, value: x.estimate!.value, interval: x.estimate!.percentile, group: i + 1 }))];
       return html`<h3>${c.name}</h3>
-        <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th><th class="num">− FQE</th><th>Verdict</th><th>Rests on</th></tr></thead><tbody>
-        <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td><td class="small">The features represent Q^π well where π goes (see Diagnostics).</td></tr>
+        <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th><th class="num">− FQE (${level})</th><th>Verdict</th></tr></thead><tbody>
+        <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td></tr>
         ${c.crossChecks.map((x) => html`<tr><td>${x.label}</td>${x.estimate ? estimateCells(x.estimate) : html`<td class="num">—</td><td></td><td></td><td></td>`}
-          <td class="num">${x.difference ? `${formatNumber(x.difference.value, 3)} ${formatInterval(x.difference.percentile, 3)}` : ''}</td>
-          <td><span class="verdict-${x.agreement}">${verdictWord(x.agreement)}</span><br/><span class="small">${x.note}</span></td><td class="small">${x.assumption}</td></tr>`)}
+          <td class="num">${x.difference ? html`${formatNumber(x.difference.value, 3)}<br/>${formatInterval(x.difference.percentile, 3)}` : ''}</td>
+          <td><span class="verdict-${x.agreement}">${verdictWord(x.agreement)}</span><br/><span class="small">${x.note}</span></td></tr>`)}
         </tbody></table>
         <figure id="fig-checks-${n}">${raw(svgIntervalChart(rows, `J — ${words.value}`))}
           <figcaption>Figure ${n}. ${c.name}: J by fitted Q-evaluation and by each applicable cross-check, with ${level} percentile bootstrap intervals over the same resamples.</figcaption></figure>`;
-    })}</section>`;
+    })}
+    <h3>What each method rests on</h3>
+    <ul><li><strong>Fitted Q-evaluation:</strong> the features represent ${raw('Q<sup>π</sup>')} well where the candidate goes (see Diagnostics), and episodes are independent.</li>
+    ${(a.candidates[0]?.crossChecks ?? []).map((x) => html`<li><strong>${x.label}:</strong> ${x.assumption}</li>`)}</ul></section>`;
 }
 
 function verdictWord(agreement: string): string {
@@ -71,7 +78,7 @@ export function sensitivitySection(input: ReportInput, figures: FigureCounter): 
       const n = figures.next();
       const chart = svgLineChart({
         series: curve.series.map((x) => ({ name: x.name, x: curve.settings, y: x.values, points: true, dashed: x.status.every((st) => st === 'logged') })),
-        xLabel: curve.label, yLabel: `J — ${words.short}`, markers: [{ x: curve.settings[curve.projectIndex], label: 'project setting' }],
+        xLabel: curve.label, yLabel: `J — ${words.short}`, integerX: curve.parameter !== 'discount', markers: [{ x: curve.settings[curve.projectIndex], label: 'project setting' }],
       });
       return html`<figure id="fig-sensitivity-${n}">${raw(chart)}<figcaption>Figure ${n}. J (${words.value}, ${words.better}) against the ${curve.label}; dotted line: the project’s setting.
         The ranking is ${curve.rankingStable ? 'the same at every setting' : raw('<strong>not</strong> the same at every setting')}.</figcaption></figure>`;

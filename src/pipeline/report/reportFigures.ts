@@ -1,4 +1,5 @@
 /** The value-surface and slice sections: the fitted values behind each J, drawn where the logs are. */
+import { uncoveredGridPoints } from '../../core/diagnostics/unvisitedRegion';
 import { CAUTION_SHORT } from '../cautions';
 import { formatNumber, html, raw, type Html } from './htmlText';
 import { senseWords, type FigureCounter, type ReportInput } from './reportInput';
@@ -10,18 +11,18 @@ export function surfacesSection(input: ReportInput, figures: FigureCounter): Htm
   const surfaces = input.evaluation.policies.filter((p) => p.surface);
   if (!surfaces.length) return html`<section id="surfaces"><h2>Value surfaces</h2><p>No surface: the project has fewer than two states.</p></section>`;
   return html`<section id="surfaces"><h2>Value surfaces</h2>
-    <p>V^π(s) = E_{a~π} Q(s, a) of each candidate over two states, the others held at their logged means. Hatched grid points hold no logged state: there the value is extrapolated.</p>
+    <p>${raw('V<sup>π</sup>(s) = E<sub>a~π</sub>[Q(s, a)]')} of each candidate over two states, the others held at their logged means. Hatched grid points have no logged state within one grid step: there the value is extrapolated.</p>
     ${surfaces.map((p, i) => {
       const s = p.surface!, n = figures.next();
       const names = input.project.columns.states.map((x) => x.column);
       const others = s.heldState.map((v, c) => ({ name: names[c], v })).filter((h) => h.name !== s.xState && h.name !== s.yState);
       const held = others.length ? `other states held at ${others.map((h) => `${h.name} = ${formatNumber(h.v, 4)}`).join(', ')}` : 'no other states';
       const svg = svgHeatMap({
-        id: `surface-${i}`, x: s.x, y: s.y, values: s.values, visits: s.visits,
+        id: `surface-${i}`, x: s.x, y: s.y, values: s.values, uncovered: uncoveredGridPoints(s.visits, s.x.length, s.y.length),
         xLabel: label(s.xState, units), yLabel: label(s.yState, units), valueLabel: `V — ${words.value}`,
       });
-      return html`<figure id="fig-surface-${i}">${raw(svg)}<figcaption>Figure ${n}. ${p.name}: V^π (${words.value}, ${words.better}) over ${s.xState} and ${s.yState};
-        ${held}. Hatched: no logged state at that grid point. ${CAUTION_SHORT}</figcaption></figure>`;
+      return html`<figure id="fig-surface-${i}">${raw(svg)}<figcaption>Figure ${n}. ${p.name}: ${raw('V<sup>π</sup>')} (${words.value}, ${words.better}) over ${s.xState} and ${s.yState};
+        ${held}. Hatched: no logged state within one grid step. ${CAUTION_SHORT}</figcaption></figure>`;
     })}</section>`;
 }
 
@@ -34,7 +35,7 @@ export function slicesSection(input: ReportInput, figures: FigureCounter): Html 
     ${a.candidates.map((c) => {
       const n = figures.next();
       const charts = c.slices.map((s) => svgLineChart({
-        width: 300, series: [{ name: `Q at ${s.label}`, x: s.actions, y: s.values }],
+        width: 292, series: [{ name: `Q at ${s.label}`, x: s.actions, y: s.values }],
         xLabel: label(actions[s.actionIndex].column, new Map(actions.map((x) => [x.column, x.unit]))), yLabel: `Q — ${words.short}`,
         bands: [{ x0: s.loggedRange[0], x1: s.loggedRange[1], label: 'actions logged near this state' }],
         markers: [{ x: s.candidateMean, label: `candidate mean ${formatNumber(s.candidateMean, 4)}` }],

@@ -11,7 +11,8 @@ p, li { max-width: 78ch; }
 table { border-collapse: collapse; margin: 8px 0 14px; font-size: 13px; }
 th, td { border-bottom: 1px solid var(--rule); padding: 4px 10px 4px 0; text-align: left; vertical-align: top; }
 th { border-bottom: 1.5px solid var(--ink); font-weight: 600; }
-td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; white-space: nowrap; }
+td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
+td.num { white-space: nowrap; }
 figure { margin: 14px 0 20px; break-inside: avoid; page-break-inside: avoid; }
 figcaption { font-size: 12.5px; color: var(--muted); max-width: 86ch; margin-top: 4px; }
 svg { max-width: 100%; height: auto; font-size: 11px; font-family: inherit; }
@@ -19,6 +20,7 @@ svg .axis line, svg .axis path { stroke: #333; }
 svg .axis-label { font-size: 12px; fill: #222; }
 svg .value { fill: #333; }
 .summary { border: 1px solid var(--rule); border-left: 5px solid var(--ink); padding: 10px 14px; margin: 12px 0; }
+.summary p { margin: 0; }
 .warning { margin: 4px 0; }
 .warning.serious strong { color: var(--serious); }
 .warning.caution strong { color: var(--caution); }
@@ -27,7 +29,7 @@ svg .value { fill: #333; }
 .verdict-uninformative, .verdict-notApplicable { color: var(--caution); font-weight: 600; }
 .cautions { border: 2px solid var(--ink); padding: 8px 16px; }
 .small { font-size: 12.5px; color: var(--muted); }
-.grid2 { display: flex; flex-wrap: wrap; gap: 12px 24px; }
+.grid2 { display: flex; flex-wrap: wrap; gap: 12px 10px; }
 @page { size: A4; margin: 16mm 14mm; }
 @media print { body { padding: 0; max-width: none; } h2 { break-after: avoid; } section { break-inside: auto; } }
 `;

@@ -45,9 +45,10 @@ export function extent(values: Iterable<number | null>): [number, number] {
 }
 
 /** Horizontal axis at y = baseline, with ticks and a label under it. */
-export function bottomAxis(scale: LinearScale, baseline: number, label: string): string {
+export function bottomAxis(scale: LinearScale, baseline: number, label: string, integers = false): string {
   const [lo, hi] = scale.domain, [x0, x1] = [scale(lo), scale(hi)];
-  const ticks = niceTicks(lo, hi, 5).map((t) => {
+  const values = niceTicks(lo, hi, 5);
+  const ticks = (integers ? values.filter(Number.isInteger) : values).map((t) => {
     const x = scale(t).toFixed(1);
     return `<line x1="${x}" x2="${x}" y1="${baseline}" y2="${baseline + 4}" class="tick"/><text x="${x}" y="${baseline + 15}" text-anchor="middle">${escapeHtml(formatNumber(t, 4))}</text>`;
   });

@@ -1,7 +1,7 @@
 /**
  * A value surface as an SVG heat map: the grid as an embedded PNG, one pixel per grid point
  * coloured by value (viridis) and scaled up without smoothing, a colour bar, and the grid points
- * where no logged state falls hatched over, so a reader sees at once where V is extrapolated.
+ * with no logged state nearby hatched over, so a reader sees at once where V is extrapolated.
  */
 import { escapeHtml, formatNumber } from './htmlText';
 import { bottomAxis, extent, leftAxis, linearScale, niceTicks } from './svgAxes';
@@ -14,8 +14,8 @@ export interface HeatMapInput {
   x: ArrayLike<number>; // nx
   y: ArrayLike<number>; // ny
   values: ArrayLike<number>; // ny×nx row-major, row j at y[j]
-  /** Logged states nearest each grid point (ny×nx); 0 marks a never-visited point. */
-  visits?: ArrayLike<number>;
+  /** 1 where no logged state is near the grid point (ny×nx; unvisitedRegion.ts), hatched over. */
+  uncovered?: ArrayLike<number>;
   xLabel: string;
   yLabel: string;
   valueLabel: string;
@@ -45,19 +45,19 @@ export function svgHeatMap(input: HeatMapInput): string {
     `<clipPath id="${input.id}-plot"><rect x="${LEFT}" y="${TOP}" width="${RIGHT - LEFT}" height="${BOTTOM - TOP}"/></clipPath></defs>` +
     `<g clip-path="url(#${input.id}-plot)"><image href="${image}" x="${(LEFT - cellW / 2).toFixed(2)}" y="${(TOP - cellH / 2).toFixed(2)}" ` +
     `width="${(RIGHT - LEFT + cellW).toFixed(2)}" height="${(BOTTOM - TOP + cellH).toFixed(2)}" preserveAspectRatio="none" style="image-rendering: pixelated"/>` +
-    `<g fill="url(#${pattern})" shape-rendering="crispEdges">${input.visits ? unvisitedRuns(input, xs, ys, cellW, cellH) : ''}</g></g>` +
+    `<g fill="url(#${pattern})" shape-rendering="crispEdges">${input.uncovered ? unvisitedRuns(input, xs, ys, cellW, cellH) : ''}</g></g>` +
     `<rect x="${LEFT}" y="${TOP}" width="${RIGHT - LEFT}" height="${BOTTOM - TOP}" fill="none" stroke="#333"/>` +
-    bottomAxis(xs, BOTTOM, input.xLabel) + leftAxis(ys, LEFT, input.yLabel) + colourBar(input.id, vLo, vHi, input.valueLabel, pattern, Boolean(input.visits)) + '</svg>';
+    bottomAxis(xs, BOTTOM, input.xLabel) + leftAxis(ys, LEFT, input.yLabel) + colourBar(input.id, vLo, vHi, input.valueLabel, pattern, Boolean(input.uncovered)) + '</svg>';
 }
 
-/** One rectangle per horizontal run of never-visited grid points. */
+/** One rectangle per horizontal run of uncovered grid points. */
 function unvisitedRuns(input: HeatMapInput, xs: (v: number) => number, ys: (v: number) => number, cellW: number, cellH: number): string {
-  const nx = input.x.length, ny = input.y.length, visits = input.visits!, out: string[] = [];
+  const nx = input.x.length, ny = input.y.length, uncovered = input.uncovered!, out: string[] = [];
   for (let j = 0; j < ny; j++) {
     for (let i = 0; i < nx; i++) {
-      if (visits[j * nx + i] !== 0) continue;
+      if (!uncovered[j * nx + i]) continue;
       const start = i;
-      while (i + 1 < nx && visits[j * nx + i + 1] === 0) i++;
+      while (i + 1 < nx && uncovered[j * nx + i + 1]) i++;
       const x = xs(input.x[start]) - cellW / 2, y = ys(input.y[j]) - cellH / 2;
       out.push(`<rect x="${x.toFixed(2)}" y="${y.toFixed(2)}" width="${((i - start + 1) * cellW).toFixed(2)}" height="${cellH.toFixed(2)}"/>`);
     }
@@ -77,9 +77,9 @@ function colourBar(id: string, lo: number, hi: number, label: string, pattern: s
     return `<line x1="${BAR_X + 14}" x2="${BAR_X + 18}" y1="${y}" y2="${y}" class="tick"/><text x="${BAR_X + 21}" y="${y}" dy="0.32em">${escapeHtml(formatNumber(t, 4))}</text>`;
   });
   const unvisited = withUnvisited
-    ? `<rect x="${LEFT}" y="${HEIGHT - 16}" width="14" height="14" fill="url(#${pattern})" stroke="#333"/><text x="${LEFT + 19}" y="${HEIGHT - 5}">no logged state at this grid point (V extrapolated)</text>`
+    ? `<rect x="${LEFT}" y="${HEIGHT - 16}" width="14" height="14" fill="url(#${pattern})" stroke="#333"/><text x="${LEFT + 19}" y="${HEIGHT - 5}">no logged state within one grid step (V extrapolated)</text>`
     : '';
   return `<defs><linearGradient id="${id}-bar" x1="0" x2="0" y1="0" y2="1">${stops}</linearGradient></defs>` +
     `<g class="axis"><rect x="${BAR_X}" y="${TOP}" width="14" height="${BOTTOM - 40 - TOP}" fill="url(#${id}-bar)" stroke="#333"/>${ticks.join('')}` +
-    `<text transform="translate(${WIDTH - 6} ${(TOP + BOTTOM - 40) / 2}) rotate(90)" text-anchor="middle" class="axis-label">${escapeHtml(label)}</text></g>${unvisited}`;
+    `<text transform="translate(${BAR_X + 66} ${(TOP + BOTTOM - 40) / 2}) rotate(90)" text-anchor="middle" class="axis-label">${escapeHtml(label)}</text></g>${unvisited}`;
 }

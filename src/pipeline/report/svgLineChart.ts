@@ -23,6 +23,8 @@ export interface LineChartInput {
   bands?: { x0: number; x1: number; label: string }[];
   markers?: { x: number; label: string }[];
   width?: number;
+  /** Whole-number settings (e.g. a polynomial degree): ticks only at integers. */
+  integerX?: boolean;
 }
 
 const HEIGHT = 250, TOP = 12, LEFT = 72, BOTTOM_PAD = 44, LEGEND_ROW = 16;
@@ -39,10 +41,10 @@ export function svgLineChart(input: LineChartInput): string {
   const markers = (input.markers ?? []).map((m) => `<line x1="${xs(m.x).toFixed(1)}" x2="${xs(m.x).toFixed(1)}" y1="${TOP}" y2="${plotBottom}" stroke="#555" stroke-dasharray="2 3"><title>${escapeHtml(m.label)}</title></line>`);
   const lines = input.series.map((s, k) => seriesPath(s, k, xs, ys));
   const legendRows = Math.ceil(input.series.length / 2) + (input.bands?.length ? 1 : 0);
-  const height = HEIGHT + legendRows * LEGEND_ROW;
+  const height = HEIGHT + 8 + legendRows * LEGEND_ROW;
   return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" aria-label="${escapeHtml(input.yLabel)}">` +
     bands.join('') + markers.join('') + `<rect x="${LEFT}" y="${TOP}" width="${right - LEFT}" height="${plotBottom - TOP}" fill="none" stroke="#333"/>` +
-    lines.join('') + bottomAxis(xs, plotBottom, input.xLabel) + leftAxis(ys, LEFT, input.yLabel) + legend(input, HEIGHT, width) + '</svg>';
+    lines.join('') + bottomAxis(xs, plotBottom, input.xLabel, input.integerX) + leftAxis(ys, LEFT, input.yLabel) + legend(input, HEIGHT + 8, width) + '</svg>';
 }
 
 function seriesPath(s: LineSeries, k: number, xs: (v: number) => number, ys: (v: number) => number): string {
