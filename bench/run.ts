@@ -14,6 +14,10 @@ const jobs: Job[] = [
     name: `linear FQE, ${n.toLocaleString('en-US')} transitions`, group: 'linear',
     run: async () => (await import('./linearBench')).runLinearBench(n),
   })),
+  {
+    name: 'network FQE, 100,000 transitions, default 64×64 network', group: 'network',
+    run: async () => (await import('./networkBench')).runNetworkBench(),
+  },
   ...[1_000_000].map((n) => ({
     name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',
     run: async () => ({ ...(await (await import('./importBench')).runImportBench(n)) }),

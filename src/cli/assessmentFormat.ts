@@ -8,7 +8,7 @@ const number = (v: number | null): string => {
   return v.toPrecision(5).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
 };
 const interval = (iv: [number, number] | null): string => (iv ? `[${number(iv[0])}, ${number(iv[1])}]` : '—');
-const percent = (share: number): string => `${(100 * share).toFixed(1)} %`;
+const percent = (share: number | null): string => (share === null ? '—' : `${(100 * share).toFixed(1)} %`);
 
 function table(rows: string[][]): string {
   const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
@@ -35,7 +35,7 @@ export function formatAssessment(a: Assessment): string {
     '',
     table(diffs),
     '',
-    `Ranking: ${a.comparison.ranking.order.join(' > ')} (holds in ${percent(a.comparison.ranking.frequency)} of resamples).`,
+    `Ranking: ${a.comparison.ranking.order.join(' > ')} (${a.comparison.ranking.frequency === null ? 'the candidates were not resampled' : `holds in ${percent(a.comparison.ranking.frequency)} of resamples`}).`,
     '',
     'Cross-checks:',
     ...checks,

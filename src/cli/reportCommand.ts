@@ -4,10 +4,12 @@
  * Files are read and written here (Node); everything between is the shared pipeline.
  */
 import { readFile, writeFile } from 'node:fs/promises';
-import { basename, dirname, resolve } from 'node:path';
+import { createRequire } from 'node:module';
+import { basename, dirname, join, resolve } from 'node:path';
 import { describeProblems } from '../core/result';
 import { assessProject } from '../pipeline/assessProject';
 import { assessmentSettingsFor, type AssessmentOverrides } from '../pipeline/assessSettings';
+import type { CandidateFit } from '../pipeline/candidateFit';
 import { evaluateProject } from '../pipeline/evaluateProject';
 import { openProject } from '../pipeline/openProject';
 import { renderReport } from '../pipeline/report/reportDocument';
@@ -34,10 +36,15 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   const { project, dataset, warnings, imported } = opened.value;
   const settings = assessmentSettingsFor(project, options);
   if (!settings.ok) return fail(describeProblems(settings.problems), 2);
-  const now = options.now ?? (() => new Date());
-  const evaluation = await evaluateProject({ project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`), now });
+  const now = options.now ?? (() => new Date()), network = project.approximator.kind === 'network';
+  if (network) (await import('@tensorflow/tfjs')).enableProdMode(); // as `evaluate` does: library advice the user cannot act on
+  const wasmPath = tensorflowWasmFolder(), fits: CandidateFit[] = [];
+  const evaluation = await evaluateProject({
+    project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`), now, wasmPath,
+    retainFit: network ? (i, fit) => { fits[i] = fit; } : undefined, // a network fit is slow: the assessment reuses it
+  });
   if (!evaluation.ok) return fail(describeProblems(evaluation.problems));
-  const assessment = await assessProject({ project, dataset, settings: settings.value });
+  const assessment = await assessProject({ project, dataset, settings: settings.value, fits, wasmPath }).finally(() => fits.forEach((f) => f.dispose()));
   const problems = assessment.ok ? [] : assessment.problems.map((p) => p.message);
   const html = renderReport({
     project, projectFile: basename(projectPath), evaluation: evaluation.value, assessment: assessment.ok ? assessment.value : null,
@@ -53,6 +60,12 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   else process.stderr.write(`The report has no intervals or diagnostics: ${problems.join('; ')}\n`);
   process.stdout.write(`Report written to ${out}\n`);
   return evaluation.value.policies.some((p) => p.status === 'diverged') ? 3 : 0;
+}
+
+/** TensorFlow.js's .wasm files in node_modules, with the trailing slash setWasmPaths wants (as evaluateCommand.ts finds them). */
+function tensorflowWasmFolder(): string {
+  const packageJson = createRequire(import.meta.url).resolve('@tensorflow/tfjs-backend-wasm/package.json');
+  return `${join(dirname(packageJson), 'dist')}/`;
 }
 
 function fail(message: string, code = 1): number {

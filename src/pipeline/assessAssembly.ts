@@ -45,7 +45,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
       work, replicates: replicates.candidates[j], points: points.values, weights: diagnostics.importanceWeights,
       offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: settings.level, sign,
     });
-    const policyValue = intervalEstimate(work.full.policyValue, replicates.candidates[j].fqe, settings.level, sign);
+    const policyValue = intervalEstimate(work.policyValue, replicates.candidates[j].fqe, settings.level, sign);
     const warnings = [
       ...coverageWarnings(diagnostics),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
@@ -83,20 +83,16 @@ function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, j: num
 
 function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
   const total = estimate.replicates + estimate.failedReplicates;
-  if (estimate.failedReplicates <= FAILED_SHARE * total) return [];
+  if (total === 0 || estimate.failedReplicates <= FAILED_SHARE * total) return [];
   return [{
     severity: 'caution', topic: 'bootstrap',
     message: `${estimate.failedReplicates} of ${total} resamples gave no solution of the fit; the interval uses the other ${estimate.replicates} and may be too narrow.`,
   }];
 }
 
-export function behaviourInterval(value: number, replicates: (number | null)[], level: number, sign: number): IntervalEstimate {
-  return intervalEstimate(value, replicates, level, sign);
-}
-
 export function comparison(loggedValue: number, replicates: ReplicateSet, works: CandidateWork[], level: number, sign: number): Comparison {
   const behaviour: Estimator = { name: BEHAVIOUR_NAME, point: loggedValue, replicates: replicates.behaviour };
-  const candidates: Estimator[] = works.map((w, j) => ({ name: w.name, point: w.full.policyValue, replicates: replicates.candidates[j].fqe }));
+  const candidates: Estimator[] = works.map((w, j) => ({ name: w.name, point: w.policyValue, replicates: replicates.candidates[j].fqe }));
   const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, behaviour, level, sign));
   for (let i = 0; i < candidates.length; i++) {
     for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));
@@ -112,6 +108,18 @@ export function unvisitedShare(project: ProjectDocument, data: TransitionSet): n
 
 export function globalWarnings(shared: SharedInputs, truncationWeight: number, candidates: CandidateAssessment[], unvisited: number | null): AssessmentWarning[] {
   const out: AssessmentWarning[] = [];
+  if (shared.project.approximator.kind === 'network') {
+    out.push({
+      severity: 'caution', topic: 'bootstrap',
+      message: 'The candidates’ J by the network approximator has no interval (each resample would refit the network); compare it with the cross-checks and the sensitivity to the network width.',
+    });
+  }
+  if (!shared.startsFollowEpisodes) {
+    out.push({
+      severity: 'caution', topic: 'startStates',
+      message: `The candidates’ J is taken at the ${shared.startStates.length / shared.data.stateDim} start states given in the project, the logged behaviour’s return at its episodes’ own starts: the comparison with today mixes two start distributions.`,
+    });
+  }
   if (!shared.behaviour) out.push({ severity: 'caution', topic: 'behaviourModel', message: `Importance-sampling cross-checks are not available: ${shared.behaviourReason}.` });
   shared.behaviourShareAtLimit.forEach((share, j) => {
     if (share > FAILED_SHARE) {

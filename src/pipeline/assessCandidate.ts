@@ -1,19 +1,21 @@
 /**
- * Everything one candidate's assessment computes once from the full data before resampling: the
- * linear fit's per-episode sums and its full-data solution, the fitted Q at the logged states and
- * actions (for the doubly robust estimator), and the importance weights against the fitted
- * behaviour — or the reason a piece cannot be formed. Values are in reward terms here.
+ * Everything one candidate's assessment computes once from the full data before resampling: for
+ * the linear approximator the per-episode sums and the full-data solution; for a network the one
+ * network fit (its resamples would each refit the network, so none are drawn); for both the fitted
+ * Q at the logged states and actions (for the doubly robust estimator) and the importance weights
+ * against the fitted behaviour — or the reason a piece cannot be formed. Reward terms throughout.
  */
 import { createActionQuadrature, type ActionQuadrature } from '../core/actionQuadrature';
+import type { ActionValueFunction } from '../core/actionValue';
 import { episodeBellmanSums, resampleBellmanStatistics } from '../core/bootstrap/episodeBellmanSums';
 import { unitMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import type { EpisodeIndex } from '../core/bootstrap/episodeTransitions';
-import { linearFqeReplicate, type LinearReplicate, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
+import { linearFqeReplicate, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
 import { startStateFeatures } from '../core/bootstrap/startFeatures';
 import type { FeatureMap } from '../core/features/featureMap';
 import type { BellmanStatistics } from '../core/fqe/bellmanStatistics';
 import type { CancellationCheck } from '../core/fqe/cancellation';
-import { linearActionValue, type LinearActionValue } from '../core/fqe/linearActionValue';
+import { linearActionValue } from '../core/fqe/linearActionValue';
 import { ImportanceRatioError } from '../core/offPolicy/importanceRatio';
 import { importanceWeightTable, type ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import { perDecisionData, type PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
@@ -21,8 +23,10 @@ import type { GaussianPolicy } from '../core/policy';
 import type { TransitionSet } from '../core/transitions';
 import { stateValues } from '../core/value';
 import type { CandidateSpec, ProjectDocument } from '../project/schema';
+import type { CandidateFit } from './candidateFit';
 import { candidatePolicy } from './candidatePolicy';
 import { featureMapFor } from './featureMapFor';
+import { fitCandidate } from './fitCandidate';
 
 export interface OffPolicyInputs {
   table: ImportanceWeightTable;
@@ -30,16 +34,25 @@ export interface OffPolicyInputs {
   perDecision: PerDecisionData;
 }
 
+/** The linear fit's one-pass material: resamples reweight `setup.sums`. */
+export interface LinearWork {
+  features: FeatureMap;
+  setup: LinearReplicateSetup;
+  fullStatistics: BellmanStatistics;
+}
+
 export interface CandidateWork {
   name: string;
   policy: GaussianPolicy;
-  features: FeatureMap;
   quadrature: ActionQuadrature;
-  setup: LinearReplicateSetup;
-  full: LinearReplicate & { weights: Float64Array; policyValue: number };
-  fullStatistics: BellmanStatistics;
-  q: LinearActionValue;
+  q: ActionValueFunction;
+  /** J on the full data, reward sense. */
+  policyValue: number;
+  /** Null for a network approximator. */
+  linear: LinearWork | null;
   offPolicy: OffPolicyInputs | { reason: string };
+  /** Releases the network fit this assessment made (a no-op otherwise). */
+  dispose(): void;
 }
 
 export interface SharedInputs {
@@ -53,6 +66,7 @@ export interface SharedInputs {
   /** Share of logged actions at a detected actuator limit, per action (behaviourPolicy.ts). */
   behaviourShareAtLimit: number[];
   cancel?: CancellationCheck;
+  wasmPath?: string;
 }
 
 export class AssessmentError extends Error {
@@ -62,12 +76,26 @@ export class AssessmentError extends Error {
   }
 }
 
-export function prepareCandidate(shared: SharedInputs, candidate: CandidateSpec): CandidateWork {
-  const { project, data } = shared;
-  const settings = project.approximator;
-  if (settings.kind !== 'linear') throw new AssessmentError('intervals and cross-checks are computed for the linear approximator only');
-  const policy = candidatePolicy(candidate, data.stateDim);
-  const features = featureMapFor(settings, data), quadrature = createActionQuadrature(policy, project.quadratureNodes);
+/** fit: the host's own fit of this candidate (network), reused rather than refitted; it stays the host's to dispose. */
+export async function prepareCandidate(shared: SharedInputs, candidate: CandidateSpec, fit?: CandidateFit): Promise<CandidateWork> {
+  const policy = candidatePolicy(candidate, shared.data.stateDim);
+  const quadrature = createActionQuadrature(policy, shared.project.quadratureNodes);
+  if (shared.project.approximator.kind === 'linear') return linearWork(shared, candidate.name, policy, quadrature);
+  const own = fit ? null : await fitCandidate({
+    data: shared.data, policy, approximator: shared.project.approximator, discount: shared.project.discount, quadratureNodes: shared.project.quadratureNodes,
+    seed: shared.project.seed, startStates: shared.startStates, cancel: shared.cancel, wasmPath: shared.wasmPath,
+  });
+  const used = (fit ?? own)!;
+  return {
+    name: candidate.name, policy, quadrature, q: used.q, policyValue: used.policyValue, linear: null,
+    offPolicy: offPolicyInputs(shared, policy, used.q, quadrature), dispose: () => own?.dispose(),
+  };
+}
+
+function linearWork(shared: SharedInputs, name: string, policy: GaussianPolicy, quadrature: ActionQuadrature): CandidateWork {
+  const { project, data } = shared, settings = project.approximator;
+  if (settings.kind !== 'linear') throw new AssessmentError('linearWork: expected linear approximator settings');
+  const features = featureMapFor(settings, data);
   const sums = episodeBellmanSums(data, features, quadrature, shared.cancel, shared.index);
   const setup: LinearReplicateSetup = {
     sums, startFeatures: startStateFeatures(features, quadrature, shared.startStates, data.stateDim), startsFollowEpisodes: shared.startsFollowEpisodes,
@@ -75,22 +103,21 @@ export function prepareCandidate(shared: SharedInputs, candidate: CandidateSpec)
     tolerance: settings.tolerance, maxIterations: settings.maxIterations, initialWeights: new Float64Array(features.dim),
   };
   const ones = unitMultiplicities(shared.index.episodes);
-  const full = linearFqeReplicate(setup, ones);
-  if (full.policyValue === null || full.weights === null) throw new AssessmentError(`the fit of "${candidate.name}" has no solution on the full data (${full.status})`);
+  const full = linearFqeReplicate(setup, ones); // the pipeline's own fit: the iteration from zero weights
+  if (full.policyValue === null || full.weights === null) throw new AssessmentError(`the fit of "${name}" has no solution on the full data (${full.status})`);
   const q = linearActionValue(features, full.weights, data.stateDim, data.actionDim);
+  // Resamples start from the full-data weights. When the full-data iteration converged, its
+  // iterate is the LSTD-Q fixed point up to the tolerance (linearFqe.ts), so each resample is
+  // solved directly at its fixed point (O(d³) instead of hundreds of O(d²) steps).
+  const resampleSetup: LinearReplicateSetup = { ...setup, initialWeights: full.weights, solver: full.status === 'converged' ? 'fixedPoint' : 'iteration' };
   return {
-    name: candidate.name, policy, features, quadrature, q,
-    // Resamples start from the full-data weights. When the full-data iteration converged, its
-    // iterate is the LSTD-Q fixed point up to the tolerance (linearFqe.ts), so each resample is
-    // solved directly at its fixed point (O(d³) instead of hundreds of O(d²) steps).
-    setup: { ...setup, initialWeights: full.weights, solver: full.status === 'converged' ? 'fixedPoint' : 'iteration' },
-    full: { ...full, weights: full.weights, policyValue: full.policyValue },
-    fullStatistics: resampleBellmanStatistics(sums, ones),
-    offPolicy: offPolicyInputs(shared, policy, q, quadrature),
+    name, policy, quadrature, q, policyValue: full.policyValue,
+    linear: { features, setup: resampleSetup, fullStatistics: resampleBellmanStatistics(sums, ones) },
+    offPolicy: offPolicyInputs(shared, policy, q, quadrature), dispose: () => undefined,
   };
 }
 
-function offPolicyInputs(shared: SharedInputs, policy: GaussianPolicy, q: LinearActionValue, quadrature: ActionQuadrature): OffPolicyInputs | { reason: string } {
+function offPolicyInputs(shared: SharedInputs, policy: GaussianPolicy, q: ActionValueFunction, quadrature: ActionQuadrature): OffPolicyInputs | { reason: string } {
   if (!shared.startsFollowEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged episodes’ own starts' };
   if (!shared.behaviour) return { reason: shared.behaviourReason };
   let table: ImportanceWeightTable;

@@ -59,18 +59,23 @@ function crossCheck(method: CrossCheckMethod, point: number | null, replicates: 
   if (point === null || replicates === null) {
     return { method, label, assumption, estimate: null, difference: null, agreement: 'notApplicable', note: `Not applicable: ${reason ?? 'no estimate on the full data'}.` };
   }
-  const fqe = inputs.work.full.policyValue;
+  const fqe = inputs.work.policyValue;
   const estimate = intervalEstimate(point, replicates, inputs.level, inputs.sign);
   const difference = intervalEstimate(point - fqe, pairedReplicates(replicates, inputs.replicates.fqe), inputs.level, inputs.sign);
-  const { agreement, note } = verdict(method, point - fqe, difference.standardError, fqe, inputs.weights);
+  // Without replicates of the main estimate (a network) the check's own standard error stands in for the paired one.
+  const standardError = difference.standardError ?? estimate.standardError;
+  const { agreement, note } = verdict(method, point - fqe, standardError, fqe, inputs.weights, difference.standardError !== null);
   return { method, label, assumption, estimate, difference, agreement, note };
 }
 
-function verdict(method: CrossCheckMethod, delta: number, standardError: number | null, fqe: number, weights: ImportanceWeightDiagnostics | null): { agreement: Agreement; note: string } {
+function verdict(
+  method: CrossCheckMethod, delta: number, standardError: number | null, fqe: number, weights: ImportanceWeightDiagnostics | null, paired: boolean,
+): { agreement: Agreement; note: string } {
   const t = AGREEMENT_THRESHOLDS;
   const relative = Math.abs(delta) / Math.max(Math.abs(fqe), Number.MIN_VALUE);
   const z = standardError && standardError > 0 ? Math.abs(delta) / standardError : Infinity;
-  const gap = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J (${Number.isFinite(z) ? z.toFixed(1) : '∞'} standard errors of the paired difference)`;
+  const of = paired ? 'of the paired difference' : 'of this check (the main estimate has no resamples)';
+  const gap = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J (${Number.isFinite(z) ? z.toFixed(1) : '∞'} standard errors ${of})`;
   if (method !== 'linearQuadraticModel' && weights) {
     const needed = Math.max(t.minEffectiveEpisodes, t.minEffectiveShare * weights.horizonEpisodes);
     if (weights.horizonEffectiveEpisodes < needed) {

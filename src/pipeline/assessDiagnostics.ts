@@ -17,7 +17,7 @@ import { ridgeGram, ridgeGramFactor } from '../core/fqe/ridgeSystem';
 import type { ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import type { GaussianPolicy } from '../core/policy';
 import type { ActionSupportDiagnostics, AssessmentWarning, CoverageDiagnostics, ImportanceWeightDiagnostics } from './assessment';
-import type { CandidateWork, SharedInputs } from './assessCandidate';
+import type { CandidateWork, LinearWork, SharedInputs } from './assessCandidate';
 
 export const COVERAGE_THRESHOLDS = {
   distributionShift: { caution: 4, serious: 25 },
@@ -32,29 +32,34 @@ export interface BehaviourReference {
 }
 
 export function coverageDiagnostics(work: CandidateWork, shared: SharedInputs, ranges: LoggedActionRanges, behaviour: BehaviourReference): CoverageDiagnostics {
-  const stats = work.fullStatistics, d = stats.dim;
-  const factor = ridgeGramFactor(ridgeGram(stats, work.setup.ridge, work.features.constantIndex), d, work.setup.ridge);
-  const next = nextStateFeatureMean(stats, work.features.constantIndex);
-  const reference = behaviour.policy && behaviourShift(work, shared, behaviour.policy, factor);
+  const shift = work.linear ? linearShift(work.linear, shared, behaviour.policy) : null;
   return {
-    distributionShiftStart: distributionShift(meanStartFeatures(work.setup.startFeatures, d), factor, d),
-    distributionShiftNext: next && distributionShift(next, factor, d),
-    behaviourShiftStart: reference?.start ?? null,
-    behaviourShiftNext: reference?.next ?? null,
-    importanceWeights: 'perDecision' in work.offPolicy ? weightDiagnostics(work.offPolicy.table, work.setup.discount) : null,
+    distributionShiftStart: shift?.start ?? null,
+    distributionShiftNext: shift?.next ?? null,
+    behaviourShiftStart: shift?.behaviourStart ?? null,
+    behaviourShiftNext: shift?.behaviourNext ?? null,
+    importanceWeights: 'perDecision' in work.offPolicy ? weightDiagnostics(work.offPolicy.table, shared.project.discount) : null,
     actionSupport: actionSupport(work.policy, ranges, behaviour.meanOutside),
   };
 }
 
-/** νᵀΣ⁻¹ν of the fitted behaviour with the same features and Σ (ν by its own action quadrature). */
-function behaviourShift(work: CandidateWork, shared: SharedInputs, policy: GaussianPolicy, factor: Float64Array): { start: number; next: number } {
-  const { data } = shared, d = work.features.dim, quadrature = createActionQuadrature(policy, shared.project.quadratureNodes);
-  const start = policyFeatureMean(work.features, quadrature, shared.startStates, data.stateDim);
-  const next = policyFeatureMean(work.features, quadrature, data.nextStates, data.stateDim, data.terminal);
-  return { start: distributionShift(start, factor, d), next: distributionShift(next, factor, d) };
+/** νᵀΣ⁻¹ν of the candidate and of the fitted behaviour (ν by its own action quadrature), with the same features and Σ. */
+function linearShift(linear: LinearWork, shared: SharedInputs, behaviour: GaussianPolicy | null) {
+  const { features, setup, fullStatistics: stats } = linear, { data } = shared, d = features.dim;
+  const factor = ridgeGramFactor(ridgeGram(stats, setup.ridge, features.constantIndex), d, setup.ridge);
+  const next = nextStateFeatureMean(stats, features.constantIndex);
+  let behaviourStart: number | null = null, behaviourNext: number | null = null;
+  if (behaviour) {
+    const quadrature = createActionQuadrature(behaviour, shared.project.quadratureNodes);
+    behaviourStart = distributionShift(policyFeatureMean(features, quadrature, shared.startStates, data.stateDim), factor, d);
+    behaviourNext = distributionShift(policyFeatureMean(features, quadrature, data.nextStates, data.stateDim, data.terminal), factor, d);
+  }
+  return {
+    start: distributionShift(meanStartFeatures(setup.startFeatures, d), factor, d), next: next && distributionShift(next, factor, d), behaviourStart, behaviourNext,
+  };
 }
 
-export function weightDiagnostics(table: ImportanceWeightTable, discount: number): ImportanceWeightDiagnostics {
+function weightDiagnostics(table: ImportanceWeightTable, discount: number): ImportanceWeightDiagnostics {
   const oneStep = effectiveSampleSizeFromLogs(table.logRatio);
   const horizonSteps = Math.max(1, Math.min(table.horizon, Math.round(1 / (1 - discount))));
   const atHorizon: number[] = [];
@@ -118,7 +123,7 @@ function shiftWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
     });
   }
   const start = d.distributionShiftStart, reference = d.behaviourShiftStart;
-  if (start > t.caution) {
+  if (start !== null && start > t.caution) {
     const own = reference === null ? '' : ` (the logged controller itself: ${reference.toPrecision(3)})`;
     const ratherStarts = reference !== null && start < 2 * reference;
     out.push({

@@ -36,7 +36,7 @@ export function pairedDifference(a: Estimator, b: Estimator, level: number, sign
   return {
     a: a.name, b: b.name,
     difference: intervalEstimate(a.point - b.point, differences, level, sign),
-    probabilityBetter: usable.length ? usable.filter((d) => d > 0).length / usable.length : 0, // reward terms: higher is better
+    probabilityBetter: usable.length ? usable.filter((d) => d > 0).length / usable.length : null, // reward terms: higher is better
   };
 }
 
@@ -58,7 +58,7 @@ export function ranking(estimators: Estimator[]): Ranking {
     }
     if (holds) whole++;
   }
-  const share = (count: number) => (usable ? count / usable : 0);
+  const share = (count: number) => (usable ? count / usable : null);
   return {
     order: order.map((e) => e.name),
     frequency: share(whole),

@@ -8,13 +8,15 @@ import { COVERAGE_THRESHOLDS } from './assessDiagnostics';
 import { MODEL_THRESHOLDS } from './assessModelCheck';
 import type { AssessmentSettings } from './assessSettings';
 
-export function methodStatements(settings: AssessmentSettings, episodes: number, startsFollowEpisodes: boolean): string[] {
+export function methodStatements(settings: AssessmentSettings, episodes: number, startsFollowEpisodes: boolean, approximator: 'linear' | 'network'): string[] {
   const pct = (x: number) => `${Math.round(100 * x)} %`;
   const c = COVERAGE_THRESHOLDS, a = AGREEMENT_THRESHOLDS, m = MODEL_THRESHOLDS, k = DEFAULT_ACTION_SUPPORT;
   return [
     `Intervals: nonparametric bootstrap over the ${episodes} logged episodes (whole episodes drawn with replacement; Hao et al. 2021), ` +
-      `${settings.resamples} resamples, seed ${settings.seed}, level ${pct(settings.level)}. Each resample reruns the linear fit on that resample ` +
-      `(same features, ridge, discount and tolerance) from per-episode sums. Percentile and basic intervals (Davison & Hinkley 1997, §5.2–5.3).` +
+      `${settings.resamples} resamples, seed ${settings.seed}, level ${pct(settings.level)}; percentile and basic intervals (Davison & Hinkley 1997, §5.2–5.3). ` +
+      (approximator === 'linear'
+        ? 'Each resample reruns the linear fit on that resample (same features, ridge, discount and tolerance) from per-episode sums.'
+        : 'With the network approximator the candidates are not resampled (each resample would refit the network), so their J has no interval; the baseline and the cross-checks are.') +
       (startsFollowEpisodes ? ' Start states are resampled with their episodes.' : ' The given start states are held fixed.'),
     'Baseline: the logged behaviour’s own discounted return per episode, resampled with the same episodes, so every candidate is compared with it by a paired bootstrap.',
     `Cross-checks agree unless the paired difference exceeds ${a.standardErrors} of its standard errors and ${pct(a.relative)} of J (our rule). ` +

@@ -2,9 +2,12 @@
  * Whether the model-based cross-check applies: a linear-quadratic model is fitted to the logs
  * (src/core/offPolicy/linearQuadraticModel.ts) and used only when it describes them well. Our
  * thresholds, stated in the report:
- *   - each next-state component: R² ≥ 0.9 of the linear dynamics, and the quadratic terms in
- *     (s, a) explain at most 5 % of its residual sum of squares (no visible curvature);
- *   - the reward (or cost): R² ≥ 0.95 of the quadratic fit;
+ *   - each next-state component: R² ≥ 0.5 of the linear dynamics, and the quadratic terms in
+ *     (s, a) explain at most 5 % of its residual sum of squares (no visible curvature). R² alone
+ *     cannot judge linearity — process noise lowers it on a perfectly linear plant, and the closed
+ *     form accounts for that noise — so its threshold only asks that the model explain most of the
+ *     next state; the curvature share is the test of linearity;
+ *   - the reward (or cost): R² ≥ 0.9 of the quadratic fit;
  *   - the candidate has no actuator limits (a clipped action is not linear-Gaussian).
  * With more than 8 states and actions together the quadratic regressions are not formed.
  */
@@ -19,7 +22,7 @@ import { ModelValueError } from '../core/offPolicy/modelBasedValue';
 import type { GaussianPolicy } from '../core/policy';
 import type { TransitionSet } from '../core/transitions';
 
-export const MODEL_THRESHOLDS = { dynamicsRSquared: 0.9, curvatureShare: 0.05, rewardRSquared: 0.95, maxInputs: 8 } as const;
+export const MODEL_THRESHOLDS = { dynamicsRSquared: 0.5, curvatureShare: 0.05, rewardRSquared: 0.9, maxInputs: 8 } as const;
 
 export interface ModelCheck {
   regressions: ModelRegressions | null;

@@ -4,7 +4,9 @@
  * importance sampling, doubly robust and linear-quadratic-model estimates, coverage diagnostics,
  * sensitivity to the discount and the features, and the paired comparison of all policies.
  * Hosts (CLI, app worker, report) call this after or beside evaluateProject; it refits what it
- * needs itself, so it depends only on the project and its transitions.
+ * needs itself, so it depends only on the project and its transitions. A network approximator's fit
+ * is the one exception worth passing in (`fits`): it is slow, and with a network no resamples are
+ * drawn for the candidates (each would refit the network), so their intervals are not computed.
  */
 import { BootstrapError } from '../core/bootstrap/episodeMultiplicities';
 import { indexEpisodes } from '../core/bootstrap/episodeTransitions';
@@ -19,7 +21,9 @@ import type { TransitionSet } from '../core/transitions';
 import type { ProjectDocument } from '../project/schema';
 import type { Assessment } from './assessment';
 import { AssessmentError, prepareCandidate, type CandidateWork, type SharedInputs } from './assessCandidate';
-import { assembleCandidates, behaviourInterval, comparison, globalWarnings, unvisitedShare } from './assessAssembly';
+import type { CandidateFit } from './candidateFit';
+import { assembleCandidates, comparison, globalWarnings, unvisitedShare } from './assessAssembly';
+import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
 import { checkLinearQuadraticModel, modelInapplicability } from './assessModelCheck';
@@ -43,11 +47,15 @@ export interface AssessOptions {
   settings: AssessmentSettings;
   onProgress?: (progress: AssessmentProgress) => void;
   cancel?: CancellationCheck;
+  /** The host's fits of the candidates (evaluateProject's retainFit), reused for a network; they stay the host's to dispose. */
+  fits?: (CandidateFit | undefined)[];
+  /** Where TensorFlow.js's wasm backend finds its .wasm files, for hosts that must say (the CLI). */
+  wasmPath?: string;
 }
 
 export async function assessProject(options: AssessOptions): Promise<Result<Assessment>> {
   try {
-    return success(assess(options));
+    return success(await assess(options));
   } catch (error) {
     if (error instanceof FqeCancelledError) return failure({ where: 'assessment', message: 'cancelled before it finished; no results were kept' });
     if (error instanceof AssessmentError || error instanceof BootstrapError || isEngineError(error)) {
@@ -57,14 +65,22 @@ export async function assessProject(options: AssessOptions): Promise<Result<Asse
   }
 }
 
-function assess(options: AssessOptions): Assessment {
+async function assess(options: AssessOptions): Promise<Assessment> {
+  const shared = sharedInputs(options), works: CandidateWork[] = [];
+  try {
+    for (const [i, candidate] of options.project.candidates.entries()) {
+      options.onProgress?.({ stage: 'preparing', done: i, total: options.project.candidates.length });
+      works.push(await prepareCandidate(shared, candidate, options.fits?.[i]));
+    }
+    return await assembleAssessment(options, shared, works);
+  } finally {
+    for (const w of works) w.dispose();
+  }
+}
+
+async function assembleAssessment(options: AssessOptions, shared: SharedInputs, works: CandidateWork[]): Promise<Assessment> {
   const { project, dataset: data, settings } = options;
-  const shared = sharedInputs(options);
   const sign = project.columns.reward.sense === 'cost' ? -1 : 1;
-  const works = project.candidates.map((candidate, i) => {
-    options.onProgress?.({ stage: 'preparing', done: i, total: project.candidates.length });
-    return prepareCandidate(shared, candidate);
-  });
   const modelCheck = checkLinearQuadraticModel(data, shared.index);
   const modelReasons = works.map((w) => modelInapplicability(modelCheck, w.policy));
   const logged = loggedDiscountedReturn(data, project.discount);
@@ -78,26 +94,26 @@ function assess(options: AssessOptions): Assessment {
   const unvisited = unvisitedShare(project, data);
   return {
     settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: shared.index.episodes, solver: resampleSolver(works) },
-    behaviour: behaviourInterval(logged.value, replicates.behaviour, settings.level, sign),
+    behaviour: intervalEstimate(logged.value, replicates.behaviour, settings.level, sign),
     candidates,
     comparison: comparison(logged.value, replicates, works, settings.level, sign),
-    sensitivity: settings.sensitivity ? sensitivity(shared, works, sign) : null,
+    sensitivity: settings.sensitivity ? await sensitivity(shared, works, sign) : null,
     unvisitedShare: unvisited,
     warnings: globalWarnings(shared, logged.largestTruncationWeight, candidates, unvisited),
-    method: methodStatements(settings, shared.index.episodes, shared.startsFollowEpisodes),
+    method: methodStatements(settings, shared.index.episodes, shared.startsFollowEpisodes, project.approximator.kind),
     valueSense: project.columns.reward.sense,
   };
 }
 
 function resampleSolver(works: CandidateWork[]): string {
-  return works.every((w) => w.setup.solver === 'fixedPoint')
+  if (works.some((w) => !w.linear)) return 'no candidate resamples: each would refit the network (the logged baseline and the cross-checks are resampled)';
+  return works.every((w) => w.linear!.setup.solver === 'fixedPoint')
     ? 'LSTD-Q fixed point per resample (the full-data iterations converged to it)'
     : 'the FQE iteration per resample to the project’s tolerance where the full-data iteration did not converge, else the LSTD-Q fixed point';
 }
 
 function sharedInputs(options: AssessOptions): SharedInputs {
   const { project, dataset: data } = options;
-  if (project.approximator.kind !== 'linear') throw new AssessmentError('intervals and cross-checks are computed for the linear approximator only');
   if (data.episodeCount < MIN_EPISODES) {
     throw new AssessmentError(`the bootstrap resamples whole episodes and needs at least ${MIN_EPISODES}; the data have ${data.episodeCount}. ` +
       'Mark the episodes in the log (columns.episode: a run column, or a time gap) to get intervals');
@@ -113,7 +129,7 @@ function sharedInputs(options: AssessOptions): SharedInputs {
     behaviourReason = `no behaviour model could be fitted (${error.message})`;
   }
   return {
-    project, data, index: indexEpisodes(data), cancel: options.cancel, behaviour, behaviourReason, behaviourShareAtLimit,
+    project, data, index: indexEpisodes(data), cancel: options.cancel, wasmPath: options.wasmPath, behaviour, behaviourReason, behaviourShareAtLimit,
     startStates: project.startStates.kind === 'given' ? Float64Array.from(project.startStates.states.flat()) : data.startStates,
     startsFollowEpisodes: !given,
   };

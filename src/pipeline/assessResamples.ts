@@ -39,7 +39,7 @@ export function runResamples(
   settings: AssessmentSettings, onProgress?: (p: ResampleProgress) => void,
 ): ReplicateSet {
   const e = shared.index.episodes, c = new Uint32Array(e);
-  const scratch = works.map((w) => new Float64Array(w.setup.sums.stride));
+  const scratch = works.map((w) => (w.linear ? new Float64Array(w.linear.setup.sums.stride) : null));
   const out: ReplicateSet = {
     behaviour: [],
     candidates: works.map((w, j) => ({
@@ -63,10 +63,11 @@ export function runResamples(
 
 function replicateCandidate(
   shared: SharedInputs, w: CandidateWork, out: CandidateReplicates, c: Uint32Array,
-  scratch: Float64Array, fitted: LinearQuadraticModelFit | null,
+  scratch: Float64Array | null, fitted: LinearQuadraticModelFit | null,
 ): void {
   const discount = shared.project.discount;
-  out.fqe.push(linearFqeReplicate(w.setup, c, scratch).policyValue);
+  // A network candidate has no fast replicate: its fqe replicates stay empty (no interval).
+  if (w.linear && scratch) out.fqe.push(linearFqeReplicate(w.linear.setup, c, scratch).policyValue);
   const offPolicy = w.offPolicy;
   if ('perDecision' in offPolicy) {
     const estimates = guarded(() => perDecisionEstimates(offPolicy.perDecision, discount, c));
@@ -79,7 +80,7 @@ function replicateCandidate(
 }
 
 /** Σ c_k G_k / Σ c_k: the mean of the resample's per-episode values. */
-export function weightedMean(values: Float64Array, c: ArrayLike<number>): number {
+function weightedMean(values: Float64Array, c: ArrayLike<number>): number {
   let total = 0, count = 0;
   for (let k = 0; k < values.length; k++) {
     total += c[k] * values[k];

@@ -15,7 +15,7 @@ const SLICE_POINTS = 61;
 const PERCENTILES = [0.1, 0.5, 0.9];
 
 /** The three slice states (3×ds) and their labels. */
-export function sliceStates(data: TransitionSet): { states: Float64Array; labels: string[] } {
+function sliceStates(data: TransitionSet): { states: Float64Array; labels: string[] } {
   const { count: n, stateDim: ds } = data, mean = new Float64Array(ds);
   for (let i = 0; i < n; i++) for (let c = 0; c < ds; c++) mean[c] += data.states[i * ds + c] / n;
   const first = Float64Array.from({ length: n }, (_, i) => data.states[i * ds]).sort();

@@ -67,8 +67,11 @@ export interface ActionSupportDiagnostics {
 }
 
 export interface CoverageDiagnostics {
-  /** νᵀΣ⁻¹ν with ν over the start states and over the logged next states (1 = no shift). */
-  distributionShiftStart: number;
+  /**
+   * νᵀΣ⁻¹ν with ν over the start states and over the logged next states (1 = no shift); defined
+   * for linear features, so null for a network approximator.
+   */
+  distributionShiftStart: number | null;
   distributionShiftNext: number | null;
   /** The same statistics for the fitted behaviour model: the level the logs' own controller reaches. */
   behaviourShiftStart: number | null;
@@ -106,17 +109,17 @@ export interface PairedDifference {
   a: string;
   b: string;
   difference: IntervalEstimate;
-  /** Share of resamples in which a is better than b (higher reward or lower cost). */
-  probabilityBetter: number;
+  /** Share of resamples in which a is better than b (higher reward or lower cost); null without replicates of both. */
+  probabilityBetter: number | null;
 }
 
 export interface Ranking {
   /** Best first, by the point estimates; the logged behaviour is included. */
   order: string[];
-  /** Share of resamples in which this whole order holds. */
-  frequency: number;
+  /** Share of resamples in which this whole order holds; null without replicates of every policy. */
+  frequency: number | null;
   /** Share of resamples in which each neighbouring pair keeps its order. */
-  neighbours: { better: string; worse: string; frequency: number }[];
+  neighbours: { better: string; worse: string; frequency: number | null }[];
 }
 
 export interface Comparison {
@@ -132,7 +135,7 @@ export interface SensitivitySeries {
 }
 
 export interface SensitivityCurve {
-  parameter: 'discount' | 'polynomialDegree' | 'centresPerInput';
+  parameter: 'discount' | 'polynomialDegree' | 'centresPerInput' | 'networkWidth';
   label: string;
   settings: number[];
   /** Index of the project's own setting in `settings`. */

@@ -91,3 +91,24 @@ describe('evaluate command on a historian-style export', () => {
     expect(Number.isFinite(json.policies[0].policyValue)).toBe(true);
   });
 });
+
+describe('evaluate command with the network approximator', () => {
+  it('fits a small TensorFlow.js network and says which backend computed it', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'spc-cli-net-'));
+    const sample = JSON.parse(await readFile(join(root, 'sample-projects', samples[0]), 'utf8'));
+    await copyFile(join(root, 'sample-projects', 'tank-levels', sample.data.path), join(dir, sample.data.path));
+    // Deliberately tiny (a few seconds): this checks the wiring, not the accuracy (test/core/fqe/network*.test.ts).
+    const network = { kind: 'network', hiddenLayers: [16, 16], outerIterations: 3, stepsPerIteration: 20, batchSize: 256, backend: 'wasm' };
+    await writeFile(join(dir, 'network.spcritic'), JSON.stringify({ ...sample, approximator: network }));
+    const { code, stdout, stderr } = await run(['evaluate', join(dir, 'network.spcritic'), '--json']);
+    expect(stderr).toBe('');
+    expect(code).toBe(0);
+    const json = JSON.parse(stdout);
+    expect(json.settings.approximator).toBe('network 16×16 (relu)');
+    for (const p of json.policies) {
+      expect(p.backend).toBe('TensorFlow.js wasm');
+      expect(Number.isFinite(p.policyValue)).toBe(true);
+      expect(p.history).toHaveLength(3);
+    }
+  });
+});

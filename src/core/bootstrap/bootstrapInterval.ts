@@ -55,6 +55,6 @@ export function sampleQuantile(sorted: ArrayLike<number>, p: number): number {
   return sorted[low] + (h - low) * (sorted[high] - sorted[low]);
 }
 
-export function checkLevel(level: number): void {
+function checkLevel(level: number): void {
   if (!(level > 0 && level < 1)) throw new BootstrapError(`level: expected a confidence level strictly between 0 and 1 (e.g. 0.9), got ${level}`);
 }

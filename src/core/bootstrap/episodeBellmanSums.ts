@@ -30,7 +30,7 @@ export interface EpisodeBellmanSums {
 /** Per-episode storage above this many numbers (2 GiB of doubles / 8) is refused with a message. */
 const MAX_STORED_VALUES = 1 << 28;
 
-export function bellmanSumsStride(d: number): number {
+function bellmanSumsStride(d: number): number {
   return 3 * d * d + 2 * d + 2;
 }
 

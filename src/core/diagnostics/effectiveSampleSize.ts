@@ -16,8 +16,3 @@ export function effectiveSampleSizeFromLogs(logWeights: ArrayLike<number>): numb
   }
   return (sum * sum) / squares;
 }
-
-/** The same for weights on their natural scale (each ≥ 0). */
-export function effectiveSampleSize(weights: ArrayLike<number>): number {
-  return effectiveSampleSizeFromLogs(Array.from({ length: weights.length }, (_, i) => Math.log(weights[i])));
-}

@@ -1,8 +1,9 @@
 /**
  * Seeded hold-out of whole episodes. Transitions of one episode are serially correlated, so
  * holding out single rows would leak their neighbours into training and flatter the held-out
- * error; splitting by episode is common practice for time series (Hastie, Tibshirani & Friedman,
- * "The Elements of Statistical Learning", 2nd ed., §7.10 on what cross-validation must leave out).
+ * error; holding out whole blocks is common practice for dependent data (blocked
+ * cross-validation; Roberts et al., "Cross-validation strategies for data with temporal, spatial,
+ * hierarchical, or phylogenetic structure", Ecography 2017).
  */
 import type { RandomSource } from '../random';
 import type { TransitionSet } from '../transitions';

@@ -29,12 +29,11 @@ export interface FitSession {
   readonly next: { readonly training: NextInputs; readonly heldOut: NextInputs | null };
   readonly batches: MinibatchStream;
   readonly average: ParameterAverage;
-  readonly heldOutEpisodes: number;
   /**
    * |Q| above this means divergence: every policy's true |Q| ≤ max|r|/(1−γ) (bounded rewards,
-   * geometric series; Bertsekas & Tsitsiklis, "Neuro-Dynamic Programming", 1996, §2.1), and an
-   * iterate at twice that is at least the whole bound away from the truth. One output-scale unit
-   * is added so that near-zero rewards do not make the limit vanish.
+   * geometric series; common practice, e.g. Bertsekas & Tsitsiklis, "Neuro-Dynamic Programming",
+   * 1996), and an iterate at twice that is at least the whole bound away from the truth. One
+   * output-scale unit is added so that near-zero rewards do not make the limit vanish.
    */
   readonly valueLimit: number;
   dispose(): void;
@@ -68,7 +67,6 @@ export function createFitSession(input: SessionInput): FitSession {
     const average = own(owned, createParameterAverage(settings.averageLast));
     return {
       net: { theta, layout, activation: settings.activation, optimizer }, layout, standardiser, output, rows, next, batches, average,
-      heldOutEpisodes: split.heldOutEpisodes,
       valueLimit: (2 * largestReward(data.rewards)) / (1 - discount) + output.scale,
       dispose: () => owned.splice(0).reverse().forEach((o) => o.dispose()),
     };

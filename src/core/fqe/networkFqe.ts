@@ -94,36 +94,49 @@ export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit>
 
 /** Picks the network to keep (averaged, or the last good one), checks it, and wraps it. */
 function finishFit(session: FitSession, input: NetworkFqeInput, selection: BackendSelection, run: IterationRun): NetworkFit {
-  const { stop } = run;
-  let theta: tf.Tensor1D, status = stop.kind, message = stop.message;
-  if (stop.kind === 'diverged' || session.average.count === 0) {
-    if (!run.lastGood) throw noNetworkError(stop.kind, stop.message);
-    theta = tf.clone(run.lastGood.theta);
-    if (stop.kind !== 'diverged') message += ` Kept the network of iteration ${run.lastGood.iteration}.`;
-  } else {
-    theta = session.average.mean();
-    if (session.average.count > 1) message += ` Weights averaged over the last ${session.average.count} outer iterations.`;
-    const reach = valueReachOnInputs(theta, session);
-    if (!(reach <= session.valueLimit)) {
-      theta.dispose();
-      const reason = `the final network predicts |Q| up to ${reach.toPrecision(4)} on the data, beyond the limit ${session.valueLimit.toPrecision(4)} that no policy's value can reach`;
-      if (!run.lastGood) throw new NetworkDivergedError(`network FQE diverged: ${reason}; lower learningRate or use fewer, smaller hidden layers`);
-      theta = tf.clone(run.lastGood.theta);
-      status = 'diverged';
-      message = `Stopped: ${reason}. Kept the network of iteration ${run.lastGood.iteration}, the last that passed the checks.`;
-    }
-  }
+  const kept = run.stop.kind === 'diverged' ? lastGoodNetwork(run, run.stop.message) : finalNetwork(session, run);
   const actionValue = createNetworkActionValue({
-    theta, layout: session.layout, activation: input.settings.activation, standardiser: session.standardiser,
+    theta: kept.theta, layout: session.layout, activation: input.settings.activation, standardiser: session.standardiser,
     output: session.output, backend: selection.backend, stateDim: input.data.stateDim, actionDim: input.data.actionDim,
   });
   return {
-    actionValue, status, message, history: run.history, backend: selection.backend, backendNote: selection.note, seed: input.seed,
+    actionValue, status: kept.status, message: kept.message, history: run.history,
+    backend: selection.backend, backendNote: selection.note, seed: input.seed,
     dispose: () => actionValue.dispose(),
   };
 }
 
-function noNetworkError(kind: string, message: string): Error {
-  if (kind === 'cancelled') return new FqeCancelledError(`network FQE was cancelled before its first outer iteration completed, so there is no network to keep`);
-  return new NetworkDivergedError(`network FQE diverged before any network passed its checks: ${message} Lower learningRate (e.g. by 10×) or check the rewards for outliers.`);
+interface KeptNetwork {
+  readonly theta: tf.Tensor1D; // a new tensor, handed to the action-value function
+  readonly status: NetworkFitStatus;
+  readonly message: string;
+}
+
+/** The average of the last completed iterations, if its values stay within the limit. */
+function finalNetwork(session: FitSession, run: IterationRun): KeptNetwork {
+  const { average } = session;
+  if (average.count === 0) {
+    throw new FqeCancelledError('network FQE was cancelled before its first outer iteration completed, so there is no network to keep');
+  }
+  const theta = average.mean();
+  const reach = valueReachOnInputs(theta, session);
+  if (!(reach <= session.valueLimit)) {
+    theta.dispose();
+    const reason = `Stopped after the last iteration: the final network predicts |Q| up to ${reach.toPrecision(4)} on the data, beyond the limit ${session.valueLimit.toPrecision(4)} that no policy's value can reach.`;
+    return lastGoodNetwork(run, reason);
+  }
+  const averaged = average.count > 1 ? ` Weights averaged over the last ${average.count} outer iterations.` : '';
+  return { theta, status: run.stop.kind, message: run.stop.message + averaged };
+}
+
+/** After divergence: the newest network that passed the checks, or NetworkDivergedError if there is none. */
+function lastGoodNetwork(run: IterationRun, reason: string): KeptNetwork {
+  if (!run.lastGood) {
+    throw new NetworkDivergedError(`network FQE diverged before any network passed its checks. ${reason} Lower learningRate (e.g. by 10×) or check the rewards for outliers.`);
+  }
+  const advice = 'a lower learningRate may avoid the divergence';
+  return {
+    theta: tf.clone(run.lastGood.theta), status: 'diverged',
+    message: `${reason} Kept the network of iteration ${run.lastGood.iteration}, the last that passed the checks; ${advice}.`,
+  };
 }

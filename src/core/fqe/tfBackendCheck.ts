@@ -1,14 +1,14 @@
 /**
  * Check that a TensorFlow.js backend computes the network's training step like the reference
- * `cpu` backend. TF.js tests the wasm backend's forward kernels, but our training step also
- * leans on transposes, steps, reductions and products in backward roles; this check runs the
- * exact code of a training step (networkGradient.ts) and of evaluation (networkForward.ts) on a
- * small fixed network, for every activation, on both backends and compares.
+ * `cpu` backend. TF.js's own test suite does not cover the wasm backend's gradient kernels, and
+ * the training step leans on transposes, steps, row sums and products in backward roles; so this
+ * runs the exact code of a training step (networkGradient.ts) and of evaluation
+ * (networkForward.ts) on a small fixed network, for every activation, on both backends.
  *
  * Tolerance. Both backends compute in float32 (unit roundoff u = 2⁻²⁴ ≈ 6·10⁻⁸) and may sum in
  * different orders (blocked SIMD kernels vs plain loops), so each may err by up to
  * γ_k·Σ|aᵢbᵢ| in a length-k dot product, γ_k = ku/(1 − ku) (Higham, "Accuracy and Stability of
- * Numerical Algorithms", 2nd ed., §3.1). Here the longest sums are the batch sums of the weight
+ * Numerical Algorithms", 2nd ed., §3.1, section from memory). Here the longest sums are the batch sums of the weight
  * gradient (k = 32) and the chain has 3 layers forward and back, so relative to the largest
  * component a difference up to about 2·6·γ_32 ≈ 2·10⁻⁵ is rounding; allowing for a
  * cancellation factor of up to ~50 in gradient components gives the tolerance 1·10⁻³ on

@@ -42,7 +42,7 @@ export function fittedBehaviourPolicy(data: TransitionSet): FittedBehaviour {
   return { model, limits, policy };
 }
 
-export function loggedActionLimits(data: TransitionSet): LoggedActionLimits {
+function loggedActionLimits(data: TransitionSet): LoggedActionLimits {
   const { count: n, actionDim: m, actions } = data;
   const needed = Math.max(2, Math.ceil(0.001 * n));
   const lo: number[] = [], hi: number[] = [], shareAtLimit: number[] = [];

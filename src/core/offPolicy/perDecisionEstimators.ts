@@ -71,11 +71,6 @@ export interface PerDecisionEstimates {
   readonly doublyRobust: number | null; // WDR; null without Q̂ and V̂
 }
 
-/** WPDIS alone (reward sense). multiplicities: e, default all 1. */
-export function weightedPerDecisionImportanceSampling(table: ImportanceWeightTable, discount: number, multiplicities?: ArrayLike<number>): number {
-  return perDecisionEstimates(perDecisionData(table, null), discount, multiplicities).importanceSampling;
-}
-
 /** WPDIS and, when the data carry Q̂ and V̂, WDR — both from one pass. multiplicities: e, default all 1. */
 export function perDecisionEstimates(data: PerDecisionData, discount: number, multiplicities?: ArrayLike<number>): PerDecisionEstimates {
   if (multiplicities && multiplicities.length !== data.episodes) {

@@ -24,15 +24,21 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
     ${rows.map((r) => {
       const d = vsToday.get(r.name);
       return html`<tr><td>${r.name}</td>${estimateCells(r.estimate)}<td class="num">${d ? formatNumber(d.difference.value, 4) : ''}</td>
-        <td class="num">${d ? formatInterval(d.difference.percentile) : ''}</td><td class="num">${d ? `${formatPercent(d.probabilityBetter)} of resamples` : ''}</td></tr>`;
+        <td class="num">${d ? formatInterval(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(d.probabilityBetter) : ''}</td></tr>`;
     })}
     </tbody></table>
     <figure id="fig-comparison">${raw(svgIntervalChart(chartRows, `J — ${words.value}`, { value: a.behaviour.value, label: BEHAVIOUR_NAME }))}
       <figcaption>Figure ${figure}. J of each candidate and of the logged behaviour (dashed line) with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} episodes. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
     ${pairwise(a, level)}
     <h3>Ranking</h3>
-    <p>By point estimate: <strong>${a.comparison.ranking.order.join(' › ')}</strong>. This whole order holds in ${formatPercent(a.comparison.ranking.frequency)} of the resamples.</p>
-    <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${n.better} better than ${n.worse} in ${formatPercent(n.frequency)} of resamples</li>`)}</ul>`;
+    <p>By point estimate: <strong>${a.comparison.ranking.order.join(' › ')}</strong>. ${a.comparison.ranking.frequency === null
+      ? 'How often it holds is not known: the candidates were not resampled.'
+      : `This whole order holds in ${formatPercent(a.comparison.ranking.frequency)} of the resamples.`}</p>
+    <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${n.better} better than ${n.worse}${n.frequency === null ? '' : ` in ${formatPercent(n.frequency)} of resamples`}</li>`)}</ul>`;
+}
+
+function resampleShare(share: number | null): string {
+  return share === null ? '—' : `${formatPercent(share)} of resamples`;
 }
 
 export function estimateCells(e: IntervalEstimate): Html {
@@ -46,7 +52,7 @@ function pairwise(a: Assessment, level: string): Html {
   return html`<h3>Candidates against each other</h3>
     <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">First better in</th></tr></thead><tbody>
     ${between.map((d) => html`<tr><td>${d.a} − ${d.b}</td><td class="num">${formatNumber(d.difference.value, 4)}</td><td class="num">${formatNumber(d.difference.standardError, 3)}</td>
-      <td class="num">${formatInterval(d.difference.percentile)}</td><td class="num">${formatPercent(d.probabilityBetter)} of resamples</td></tr>`)}
+      <td class="num">${formatInterval(d.difference.percentile)}</td><td class="num">${resampleShare(d.probabilityBetter)}</td></tr>`)}
     </tbody></table>`;
 }
 

@@ -35,7 +35,7 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
   ];
 }
 
-export function warningList(warnings: AssessmentWarning[]): Html {
+function warningList(warnings: AssessmentWarning[]): Html {
   if (!warnings.length) return html`<p>None.</p>`;
   const ordered = [...warnings].sort((x, y) => (x.severity === y.severity ? 0 : x.severity === 'serious' ? -1 : 1));
   return html`<ul>${ordered.map((w) => html`<li class="warning ${w.severity}"><strong>${w.severity === 'serious' ? 'Serious' : 'Caution'}:</strong> ${w.message}</li>`)}</ul>`;

@@ -35,7 +35,7 @@ export function slicesSection(input: ReportInput, figures: FigureCounter): Html 
     ${a.candidates.map((c) => {
       const n = figures.next();
       const charts = c.slices.map((s) => svgLineChart({
-        width: 292, series: [{ name: `Q at ${s.label}`, x: s.actions, y: s.values }],
+        width: 292, title: s.label, series: [{ name: 'Q(s, a) along the action', x: s.actions, y: s.values }],
         xLabel: label(actions[s.actionIndex].column, new Map(actions.map((x) => [x.column, x.unit]))), yLabel: `Q — ${words.short}`,
         bands: [{ x0: s.loggedRange[0], x1: s.loggedRange[1], label: 'actions logged near this state' }],
         markers: [{ x: s.candidateMean, label: `candidate mean ${formatNumber(s.candidateMean, 4)}` }],

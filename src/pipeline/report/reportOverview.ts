@@ -9,7 +9,7 @@ export function summarySection(input: ReportInput): Html {
   const best = ranking ? ranking.order[0] : [...e.policies].sort((x, y) => (e.valueSense === 'cost' ? x.policyValue - y.policyValue : y.policyValue - x.policyValue))[0]?.name;
   const serious = a ? [...a.warnings, ...a.candidates.flatMap((c) => c.warnings)].filter((w) => w.severity === 'serious').length : null;
   return html`<div class="summary" id="summary"><p><strong>Summary.</strong> Values are the ${words.value} (${words.better}). By point estimate the best policy is
-    <strong>${best ?? '—'}</strong>${ranking ? html`; the full ranking ${ranking.order.join(' › ')} holds in ${formatPercent(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
+    <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.join(' › ')} holds in ${formatPercent(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
     ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p></div>`;
 }
 

@@ -25,12 +25,14 @@ export interface LineChartInput {
   width?: number;
   /** Whole-number settings (e.g. a polynomial degree): ticks only at integers. */
   integerX?: boolean;
+  /** A line of text above the plot (e.g. the state a slice is taken at). */
+  title?: string;
 }
 
-const HEIGHT = 250, TOP = 12, LEFT = 72, BOTTOM_PAD = 44, LEGEND_ROW = 16;
+const HEIGHT = 250, LEFT = 72, BOTTOM_PAD = 44, LEGEND_ROW = 16;
 
 export function svgLineChart(input: LineChartInput): string {
-  const width = input.width ?? 520, right = width - 14;
+  const width = input.width ?? 520, right = width - 14, TOP = input.title ? 26 : 12;
   const plotBottom = HEIGHT - BOTTOM_PAD;
   const xs = linearScale(...extent(input.series.flatMap((s) => s.x)), LEFT, right);
   const ys = linearScale(...padded(extent(input.series.flatMap((s) => s.y))), plotBottom, TOP);
@@ -43,7 +45,7 @@ export function svgLineChart(input: LineChartInput): string {
   const legendRows = Math.ceil(input.series.length / 2) + (input.bands?.length ? 1 : 0);
   const height = HEIGHT + 8 + legendRows * LEGEND_ROW;
   return `<svg xmlns="http://www.w3.org/2000/svg" viewBox="0 0 ${width} ${height}" width="${width}" height="${height}" role="img" aria-label="${escapeHtml(input.yLabel)}">` +
-    bands.join('') + markers.join('') + `<rect x="${LEFT}" y="${TOP}" width="${right - LEFT}" height="${plotBottom - TOP}" fill="none" stroke="#333"/>` +
+    (input.title ? `<text x="10" y="14" class="axis-label">${escapeHtml(input.title)}</text>` : '') + bands.join('') + markers.join('') + `<rect x="${LEFT}" y="${TOP}" width="${right - LEFT}" height="${plotBottom - TOP}" fill="none" stroke="#333"/>` +
     lines.join('') + bottomAxis(xs, plotBottom, input.xLabel, input.integerX) + leftAxis(ys, LEFT, input.yLabel) + legend(input, HEIGHT + 8, width) + '</svg>';
 }
 

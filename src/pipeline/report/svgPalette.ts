@@ -5,7 +5,7 @@
  */
 import { interpolateViridis } from 'd3-scale-chromatic';
 
-export const SERIES_COLOURS = ['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69F00', '#56B4E9', '#000000'];
+const SERIES_COLOURS = ['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69F00', '#56B4E9', '#000000'];
 
 export function seriesColour(index: number): string {
   return SERIES_COLOURS[index % SERIES_COLOURS.length];

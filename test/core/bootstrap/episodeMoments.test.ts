@@ -1,0 +1,37 @@
+/**
+ * Per-episode regression moments reweighted by multiplicities equal the moments of the resample
+ * materialised as data, computed by ml-matrix (an independent library) from the explicit design.
+ */
+import { Matrix } from 'ml-matrix';
+import { describe, expect, it } from 'vitest';
+import { episodeMoments, resampleMoments } from '../../../src/core/bootstrap/episodeMoments';
+import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
+import { indexEpisodes, resampledTransitions } from '../../../src/core/bootstrap/episodeTransitions';
+import { simulateLinearPlant } from '../fqe/simulatedTransitions';
+
+const data = simulateLinearPlant({
+  dynamics: [0.9, 0.1, 0, 0.8], inputGain: [0.5, 0.2], processNoiseStd: [0.1, 0.1], stateWeight: [1, 0, 0, 1], actionWeight: [0.1],
+  behaviourGain: [-0.3, -0.1], behaviourStd: [0.5], startStd: 1, episodes: 12, stepsPerEpisode: 30, seed: 4,
+});
+
+describe('episodeMoments', () => {
+  it('gives XᵀX, XᵀY and YᵀY of a resample as ml-matrix does on the copied rows', () => {
+    const index = indexEpisodes(data);
+    const design = (states: Float64Array, actions: Float64Array, i: number) => [1, states[2 * i], states[2 * i + 1], actions[i]];
+    const moments = episodeMoments(index, 4, 2, (i, x, y) => {
+      x.set(design(data.states, data.actions, i));
+      y.set([data.nextStates[2 * i], data.nextStates[2 * i + 1]]);
+      return true;
+    });
+    const counts = episodeMultiplicities(data.episodeCount, 3, 0);
+    const r = resampledTransitions(data, index, counts);
+    const x = new Matrix(Array.from({ length: r.count }, (_, i) => design(r.states, r.actions, i)));
+    const y = new Matrix(Array.from({ length: r.count }, (_, i) => [r.nextStates[2 * i], r.nextStates[2 * i + 1]]));
+    const fast = resampleMoments(moments, counts);
+    expect(fast.count).toBe(r.count);
+    const close = (a: Float64Array, m: Matrix) => a.forEach((v, k) => expect(v).toBeCloseTo(m.get(Math.floor(k / m.columns), k % m.columns), 9));
+    close(fast.xx, x.transpose().mmul(x));
+    close(fast.xy, x.transpose().mmul(y));
+    close(fast.yy, y.transpose().mmul(y));
+  });
+});
