@@ -29,6 +29,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     '',
     '± s.e. covers start-state sampling only; it is not a confidence interval for the fit.',
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `${p.name}: ${p.message}`),
+    `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
     ...(e.behaviour.largestTruncationWeight > 1e-3 ? [`Logged episodes are short for this discount: up to ${(100 * e.behaviour.largestTruncationWeight).toFixed(1)} % of the return's weight lies beyond their end, so the logged value is biased toward zero.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),
     '',

@@ -34,7 +34,7 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   const opened = await openProject(text, basename(projectPath), async (relativePath) => new Uint8Array(await readFile(resolve(folder, relativePath))));
   if (!opened.ok) return fail(describeProblems(opened.problems));
   const { project, dataset, warnings, imported } = opened.value;
-  const settings = assessmentSettingsFor(project, options);
+  const settings = assessmentSettingsFor(project, { sensitivity: true, ...options });
   if (!settings.ok) return fail(describeProblems(settings.problems), 2);
   const now = options.now ?? (() => new Date()), network = project.approximator.kind === 'network';
   if (network) (await import('@tensorflow/tfjs')).enableProdMode(); // as `evaluate` does: library advice the user cannot act on

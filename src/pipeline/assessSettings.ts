@@ -36,7 +36,8 @@ export function assessmentSettingsFor(project: ProjectDocument & { bootstrap?: B
     resamples: overrides.resamples ?? project.bootstrap?.resamples ?? DEFAULT_RESAMPLES,
     level: overrides.level ?? project.bootstrap?.level ?? DEFAULT_LEVEL,
     seed: overrides.seed ?? project.seed,
-    sensitivity: overrides.sensitivity ?? true,
+    // Each sensitivity point of a network is a new network fit, so the sweep is opt-in there (the report asks for it).
+    sensitivity: overrides.sensitivity ?? project.approximator.kind === 'linear',
   };
   const problems: Problem[] = [];
   if (!Number.isInteger(settings.resamples) || settings.resamples < MIN_RESAMPLES || settings.resamples > MAX_RESAMPLES) {

@@ -88,8 +88,16 @@ async function requireLoaded(name: TfBackendName): Promise<void> {
 async function describeWasm(): Promise<string> {
   const simd = await tf.env().getAsync('WASM_HAS_SIMD_SUPPORT');
   const threads = getThreadsCount();
-  const threadNote = threads > 1 ? `${threads} threads` : '1 thread (not cross-origin isolated, so no shared memory for a thread pool)';
+  const threadNote = threads > 1 ? `${threads} threads` : `1 thread (${await singleThreadReason()})`;
   return `TensorFlow.js wasm backend (${simd ? 'SIMD' : 'no SIMD'}, ${threadNote})`;
+}
+
+/** Why the backend runs on one thread: the host turned threads off, or the page cannot share memory. */
+async function singleThreadReason(): Promise<string> {
+  const isolated = (globalThis as { crossOriginIsolated?: boolean }).crossOriginIsolated === true;
+  if (!isolated) return 'not cross-origin isolated, so no shared memory for a thread pool';
+  const threadsAllowed = await tf.env().getAsync('WASM_HAS_MULTITHREAD_SUPPORT');
+  return threadsAllowed ? 'one core available' : 'the host runs the single-threaded build';
 }
 
 function messageOf(error: unknown): string {

@@ -34,7 +34,7 @@ export function ValueComparison({ evaluation, theme }: { evaluation: Evaluation;
               <td className="number">{formatNumber(p.standardError, 3)}</td>
               <td className="number">{p.fixedPointValue === null ? '—' : formatNumber(p.fixedPointValue, 6)}</td>
               <td>{STATUS[p.status] ?? p.status} ({p.iterations} it.)</td>
-              <td className="small">{p.message}</td>
+              <td className="small" data-testid={`policy-account-${i}`}>{p.message} <span className="muted">Computed by {p.backend}.</span></td>
             </tr>
           ))}
           <tr data-testid="value-row-behaviour">

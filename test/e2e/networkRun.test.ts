@@ -1,0 +1,36 @@
+/**
+ * The network approximator chosen in the app: the worker loads TensorFlow.js, picks the wasm backend
+ * in the cross-origin-isolated page, fits, and the Findings say which backend computed the values.
+ */
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { launchApp, type LaunchedApp } from './harness/launch';
+import { addCandidate, chooseData, goToStep, mapTankColumns, runAndReadValues, TANK_CSV } from '../renderer/e2e/appSteps';
+
+let app: LaunchedApp;
+beforeAll(async () => { app = await launchApp(); });
+afterAll(async () => { await app?.close(); });
+
+describe('a network fit in the app', () => {
+  it('runs TensorFlow.js in the worker and reports the backend', async () => {
+    const { page } = app;
+    await chooseData(app, TANK_CSV);
+    await mapTankColumns(page);
+    await goToStep(page, 'candidates');
+    await addCandidate(page, 0, { name: 'Tuned', offset: 189, gain: [-60, -90], std: 1.5 });
+    await goToStep(page, 'estimator');
+    await page.getByLabel('Neural network').check();
+    // Tiny on purpose: the accuracy of network fits is tested in test/core/fqe/network*.test.ts.
+    await page.getByLabel('Hidden layers').fill('16, 16');
+    for (const [label, value] of [['Rounds', '3'], ['Steps per round', '20'], ['Batch size', '256']] as const) {
+      const field = page.getByLabel(label, { exact: true });
+      await field.fill(value);
+      await field.blur();
+    }
+    const [value] = await runAndReadValues(page, 1);
+    expect(Number.isFinite(value)).toBe(true);
+    await expect.poll(() => page.getByTestId('policy-account-0').textContent()).toMatch(/Computed by TensorFlow\.js (wasm|cpu)/);
+    expect(await page.getByTestId('policy-account-0').textContent()).toMatch(/TensorFlow\.js wasm/);
+    await app.screenshot('network-findings');
+    expect(app.consoleErrors).toEqual([]);
+  });
+});
