@@ -3,6 +3,7 @@
  * child process so that peak memory (getrusage maxRSS) belongs to that measurement alone.
  *   npm run bench                 all benchmarks
  *   npm run bench -- linear       only the linear FQE sizes
+ *   npm run bench -- bootstrap    only the bootstrap resampling rates
  */
 import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -17,6 +18,10 @@ const jobs: Job[] = [
   {
     name: 'network FQE, 100,000 transitions, default 64×64 network', group: 'network',
     run: async () => (await import('./networkBench')).runNetworkBench(),
+  },
+  {
+    name: 'bootstrap resamples, 100,000 transitions', group: 'bootstrap',
+    run: async () => (await import('./bootstrapBench')).runBootstrapBench(),
   },
   ...[1_000_000].map((n) => ({
     name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',

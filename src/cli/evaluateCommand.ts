@@ -6,13 +6,18 @@ import { readFile } from 'node:fs/promises';
 import { createRequire } from 'node:module';
 import { basename, dirname, join, resolve } from 'node:path';
 import { describeProblems } from '../core/result';
+import { assessmentToJson } from '../pipeline/assessmentJson';
+import { assessProject } from '../pipeline/assessProject';
+import { assessmentSettingsFor, type AssessmentOverrides } from '../pipeline/assessSettings';
+import type { CandidateFit } from '../pipeline/candidateFit';
 import { evaluateProject } from '../pipeline/evaluateProject';
 import { evaluationToJson, importToJson } from '../pipeline/evaluationJson';
 import { openProject } from '../pipeline/openProject';
-import { formatEvaluation } from './formatEvaluation';
+import { formatAssessment } from './assessmentFormat';
+import { formatCautions, formatEvaluation } from './formatEvaluation';
 import { formatImport } from './formatImport';
 
-export async function runEvaluateCommand(projectPath: string, options: { json: boolean }): Promise<number> {
+export async function runEvaluateCommand(projectPath: string, options: { json: boolean } & AssessmentOverrides): Promise<number> {
   let text: string;
   try {
     text = await readFile(projectPath, 'utf8');
@@ -27,18 +32,33 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     return 1;
   }
   const { project, dataset, warnings, imported } = loaded.value;
-  if (project.approximator.kind === 'network') await quietTensorflow();
-  const evaluation = await evaluateProject({ project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`), wasmPath: tensorflowWasmFolder() });
+  const settings = assessmentSettingsFor(project, options);
+  if (!settings.ok) {
+    process.stderr.write(`${describeProblems(settings.problems)}\n`);
+    return 2;
+  }
+  const network = project.approximator.kind === 'network', wasmPath = tensorflowWasmFolder(), fits: CandidateFit[] = [];
+  if (network) await quietTensorflow();
+  const evaluation = await evaluateProject({
+    project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`), wasmPath,
+    retainFit: network ? (i, fit) => { fits[i] = fit; } : undefined, // the assessment reuses a (slow) network fit
+  });
   if (!evaluation.ok) {
     process.stderr.write(`${describeProblems(evaluation.problems)}\n`);
     return 1;
   }
+  const assessment = await assessProject({ project, dataset, settings: settings.value, fits, wasmPath }).finally(() => fits.forEach((f) => f.dispose()));
   if (options.json) {
-    const json = { ...evaluationToJson(evaluation.value), import: importToJson(imported) };
+    const json = {
+      ...evaluationToJson(evaluation.value), import: importToJson(imported),
+      assessment: assessment.ok ? assessmentToJson(assessment.value) : null, assessmentProblems: assessment.ok ? [] : assessment.problems,
+    };
     process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
   } else {
     process.stdout.write(formatImport(imported, project.data.path));
     process.stdout.write(formatEvaluation(evaluation.value, basename(projectPath)));
+    process.stdout.write(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
+    process.stdout.write(formatCautions(evaluation.value));
   }
   return evaluation.value.policies.some((p) => p.status === 'diverged') ? 3 : 0;
 }

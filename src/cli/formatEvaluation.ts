@@ -33,9 +33,11 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     ...(e.behaviour.largestTruncationWeight > 1e-3 ? [`Logged episodes are short for this discount: up to ${(100 * e.behaviour.largestTruncationWeight).toFixed(1)} % of the return's weight lies beyond their end, so the logged value is biased toward zero.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),
     '',
-    'Cautions:',
-    ...e.cautions.map((c) => `  - ${c}`),
-    '',
   ];
   return lines.join('\n');
+}
+
+/** The cautions, printed last so they are the final thing a reader sees. */
+export function formatCautions(e: Evaluation): string {
+  return ['', 'Cautions:', ...e.cautions.map((c) => `  - ${c}`), ''].join('\n');
 }

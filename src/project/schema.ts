@@ -143,6 +143,14 @@ export const surfaceSchema = z.object({
   resolution: z.number().int().min(2).max(400).default(60),
 });
 
+/** Bootstrap settings of the assessment (src/pipeline/assessSettings.ts reads them; CLI flags override). */
+export const bootstrapSchema = z.object({
+  /** Episode resamples; 1000 keeps the Monte Carlo error of a 90 % percentile end small (Efron & Tibshirani 1993, §19.3). */
+  resamples: z.number().int().min(20).max(100_000).default(1000),
+  /** Confidence level of the intervals. */
+  level: finite.min(0.5, 'expected a confidence level of at least 0.5').lt(1, 'expected a confidence level below 1').default(0.9),
+});
+
 export const projectSchema = z.object({
   format: z.literal(PROJECT_FORMAT),
   version: z.literal(PROJECT_VERSION),
@@ -157,6 +165,7 @@ export const projectSchema = z.object({
   seed: z.number().int().min(0).max(2 ** 32 - 1).default(1),
   startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
   surface: surfaceSchema.optional(),
+  bootstrap: bootstrapSchema.optional(),
 });
 
 export type ProjectDocument = z.infer<typeof projectSchema>;
@@ -165,3 +174,4 @@ export type CandidateSpec = z.infer<typeof candidateSchema>;
 export type ColumnRoles = z.infer<typeof columnRolesSchema>;
 export type CsvSettings = z.infer<typeof csvSettingsSchema>;
 export type ApproximatorSettings = z.infer<typeof approximatorSchema>;
+export type BootstrapSettings = z.infer<typeof bootstrapSchema>;
