@@ -12,6 +12,7 @@ import { assessmentSettingsFor, type AssessmentOverrides } from '../pipeline/ass
 import type { CandidateFit } from '../pipeline/candidateFit';
 import { evaluateProject } from '../pipeline/evaluateProject';
 import { openProject } from '../pipeline/openProject';
+import { reportInputFrom } from '../pipeline/report/reportAssembly';
 import { renderReport } from '../pipeline/report/reportDocument';
 import { formatAssessment } from './assessmentFormat';
 
@@ -45,11 +46,8 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   });
   if (!evaluation.ok) return fail(describeProblems(evaluation.problems));
   const assessment = await assessProject({ project, dataset, settings: settings.value, fits, wasmPath }).finally(() => fits.forEach((f) => f.dispose()));
-  const problems = assessment.ok ? [] : assessment.problems.map((p) => p.message);
-  const html = renderReport({
-    project, projectFile: basename(projectPath), evaluation: evaluation.value, assessment: assessment.ok ? assessment.value : null,
-    assessmentProblems: problems, data: { summary: imported.summary, episodeReport: imported.episodeReport }, generatedAt: now().toISOString(),
-  });
+  const input = reportInputFrom({ project, projectFile: basename(projectPath), evaluation: evaluation.value, assessment, data: imported, generatedAt: now() });
+  const html = renderReport(input);
   const out = resolve(options.out ?? `${basename(projectPath).replace(/\.spcritic$/i, '')}-report.html`);
   try {
     await writeFile(out, html, 'utf8');
@@ -57,7 +55,7 @@ export async function runReportCommand(projectPath: string, options: ReportComma
     return fail(`Cannot write the report to ${out}: ${(e as Error).message}`);
   }
   if (assessment.ok) process.stdout.write(formatAssessment(assessment.value));
-  else process.stderr.write(`The report has no intervals or diagnostics: ${problems.join('; ')}\n`);
+  else process.stderr.write(`The report has no intervals or diagnostics: ${input.assessmentProblems.join('; ')}\n`);
   process.stdout.write(`Report written to ${out}\n`);
   return evaluation.value.policies.some((p) => p.status === 'diverged') ? 3 : 0;
 }

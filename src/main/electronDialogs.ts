@@ -15,6 +15,7 @@ const EXPORT_FILTERS: Record<ExportKind, FileFilter[]> = {
   png: [{ name: 'PNG image', extensions: ['png'] }],
   svg: [{ name: 'SVG image', extensions: ['svg'] }],
   csv: [{ name: 'CSV table', extensions: ['csv'] }],
+  html: [{ name: 'HTML report', extensions: ['html', 'htm'] }],
 };
 
 function documentsFolder(): string {

@@ -33,7 +33,7 @@ export interface RecoveryOffer {
   savedAt: string;
 }
 
-export type ExportKind = 'png' | 'svg' | 'csv';
+export type ExportKind = 'png' | 'svg' | 'csv' | 'html';
 
 /** Commands the application menu sends to the renderer. */
 export type MenuCommand =

@@ -85,7 +85,7 @@ export const API_ARGUMENTS = {
   discardRecovery: { names: [], schema: z.tuple([]) },
   exportFile: {
     names: ['kind', 'suggestedName', 'bytes'],
-    schema: z.tuple([z.enum(['png', 'svg', 'csv'], { error: 'expected "png", "svg" or "csv"' }), fileName, exportBytes]),
+    schema: z.tuple([z.enum(['png', 'svg', 'csv', 'html'], { error: 'expected "png", "svg", "csv" or "html"' }), fileName, exportBytes]),
   },
 } as const satisfies Record<InvokeMethod, { names: readonly string[]; schema: z.ZodTuple }>;
 

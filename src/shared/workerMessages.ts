@@ -9,6 +9,8 @@
 import type { BehaviourModel } from '../core/behaviourModel';
 import type { Problem } from '../core/result';
 import type { DatasetSummary, ExcludedRow } from '../data/importDataset';
+import type { Assessment } from '../pipeline/assessment';
+import type { AssessmentProgress } from '../pipeline/assessProject';
 import type { Evaluation, ValueSurface } from '../pipeline/estimates';
 import type { EvaluationProgress } from '../pipeline/evaluateProject';
 import type { CsvSettings, ProjectDocument } from '../project/schema';
@@ -95,6 +97,12 @@ export interface RunProgress extends EvaluationProgress {
   outerIterations: number | null;
 }
 
+/** A progress report while an assessment (bootstrap, cross-checks, sensitivity) runs. */
+export interface AssessRunProgress extends AssessmentProgress {
+  /** Milliseconds since the assessment started. */
+  elapsedMs: number;
+}
+
 /** Each call's arguments and the value its successful result carries. */
 export interface WorkerCalls {
   /** Keep these bytes as the data file (until the next setData) and look at its first lines. */
@@ -105,6 +113,13 @@ export interface WorkerCalls {
   evaluate: { args: { project: ProjectDocument }; value: Evaluation };
   surface: { args: { query: SurfaceQuery }; value: ValueSurface };
   slice: { args: { query: SliceQuery }; value: ActionSliceReply };
+  /**
+   * Intervals, cross-checks, diagnostics, sensitivity and comparison for the project last evaluated,
+   * with its `bootstrap` settings; reuses that run's retained fits (a network's) when the project
+   * matches. With `data`, the worker first takes these bytes as its data file (a worker of its own
+   * for the assessment, so the evaluation worker stays free for surfaces and slices).
+   */
+  assess: { args: { project: ProjectDocument; data?: { bytes: Uint8Array; fileName: string } }; value: Assessment };
 }
 
 export type WorkerCall = keyof WorkerCalls;
@@ -115,10 +130,11 @@ export type WorkerResult<K extends WorkerCall = WorkerCall> =
   | { kind: 'result'; id: number; ok: true; value: WorkerCalls[K]['value']; warnings: Problem[] }
   | { kind: 'result'; id: number; ok: false; problems: Problem[] };
 
-export interface WorkerProgress {
-  kind: 'progress';
-  id: number;
-  progress: RunProgress;
-}
+export type WorkerProgress =
+  | { kind: 'progress'; id: number; progress: RunProgress }
+  | { kind: 'assessmentProgress'; id: number; progress: AssessRunProgress };
+
+/** The progress reports a call sends before its result. */
+export type ProgressOf<K extends WorkerCall> = K extends 'assess' ? AssessRunProgress : RunProgress;
 
 export type WorkerReply = WorkerResult | WorkerProgress;

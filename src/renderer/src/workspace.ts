@@ -9,6 +9,7 @@ import { syncDocumentState } from './files/documentTitle';
 import { createProjectCommands, type ProjectCommands } from './files/projectCommands';
 import { offerRecovery, startRecoveryAutosave } from './files/recovery';
 import { startAutoImport } from './session/autoImport';
+import { createAssessmentRunner, type AssessmentRunner } from './session/assessmentRunner';
 import { createDataLoading, type DataLoading } from './session/dataLoading';
 import { createEvaluationRunner, type EvaluationRunner } from './session/evaluationRunner';
 import { createSessionStore, type SessionStore } from './session/sessionStore';
@@ -24,6 +25,7 @@ export interface Workspace {
   data: DataLoading;
   files: ProjectCommands;
   runner: EvaluationRunner;
+  assessor: AssessmentRunner;
   /** Start the background duties (title, autosave, imports, recovery offer); returns the stop function. */
   start(): () => void;
 }
@@ -34,9 +36,11 @@ export function createWorkspace(api: AppApi, client: EvaluationClient = createEv
   const questions = createQuestionStore();
   const data = createDataLoading(api, documents, session, client);
   const files = createProjectCommands({ api, documents, session, questions, data });
-  const runner = createEvaluationRunner(documents, session, client);
+  let assessmentClient: EvaluationClient | null = null;
+  const assessor = createAssessmentRunner(session, { evaluation: client, assessment: () => (assessmentClient ??= createEvaluationClient()) });
+  const runner = createEvaluationRunner(documents, session, client, assessor);
   return {
-    api, documents, session, questions, client, data, files, runner,
+    api, documents, session, questions, client, data, files, runner, assessor,
     start() {
       const stops = [syncDocumentState(api, documents), startRecoveryAutosave(api, documents), startAutoImport(documents, session, client)];
       void files.refreshRecent();

@@ -1,6 +1,7 @@
 /** The four plots with fixed synthetic data (see test/renderer/plots/syntheticPlotData.ts), per theme. */
 import type { PlotSpec } from '../../../src/renderer/src/export';
 import type { Theme } from '../../../src/renderer/src/plots';
+import { discountSweep } from '../../renderer/plots/syntheticSensitivity';
 import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from '../../renderer/plots/syntheticPlotData';
 
 export type PlotKind = PlotSpec['kind'];
@@ -18,5 +19,7 @@ export function plotSpec(kind: PlotKind, theme: Theme): PlotSpec {
       return { kind, props: { history, title: 'Fit history: gentle gain', theme } };
     case 'comparison':
       return { kind, props: { evaluation, theme } };
+    case 'sensitivity':
+      return { kind, props: { curve: discountSweep(), valueLabel: 'J (discounted cost)', title: 'J against the discount', theme } };
   }
 }

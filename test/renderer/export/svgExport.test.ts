@@ -8,6 +8,7 @@ import { pngSize, readChunks } from '../../../src/renderer/src/export/pngChunks'
 import { estimatedTextMeasure } from '../../../src/renderer/src/export/textMeasure';
 import { plotPalette } from '../../../src/renderer/src/plots/plotTheme';
 import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from '../plots/syntheticPlotData';
+import { discountSweep } from '../plots/syntheticSensitivity';
 import { xmlProblems } from './xmlWellFormed';
 
 const options: ExportOptions = { widthPx: 1950, heightPx: 1200, dpi: 300, background: 'white', caption: 'Project: Tank levels · Policy: gentle gain' };
@@ -17,6 +18,7 @@ const specs: Record<PlotSpec['kind'], PlotSpec> = {
   slice: { kind: 'slice', props: { slice: clippedSlice(), actionLabel: 'valve move (%)', valueLabel: 'cost & energy', title: 'Q(s, ·)', theme: 'light' } },
   convergence: { kind: 'convergence', props: { history: geometricHistory(), title: 'Fit history', theme: 'light' } },
   comparison: { kind: 'comparison', props: { evaluation: threeCandidateEvaluation(), theme: 'light' } },
+  sensitivity: { kind: 'sensitivity', props: { curve: discountSweep(), valueLabel: 'J (discounted cost)', title: 'J against γ', theme: 'light' } },
 };
 
 const svgOf = (spec: PlotSpec, o: ExportOptions = options) => exportPlotSvg(spec, o, estimatedTextMeasure)!;

@@ -38,6 +38,18 @@ describe('evaluation client', () => {
     expect(seen).toEqual([5]);
   });
 
+  it('passes an assessment’s progress on to its own callback', async () => {
+    const worker = new ScriptedWorker();
+    const client = createEvaluationClient(() => worker);
+    const stages: string[] = [];
+    const run = client.call('assess', { project: {} as never }, (p) => stages.push(p.stage));
+    const id = worker.received[0].id;
+    worker.reply({ kind: 'assessmentProgress', id, progress: { stage: 'resampling', done: 1, total: 20, elapsedMs: 3 } });
+    worker.reply({ kind: 'result', id, ok: false, problems: [{ where: 'assessment', message: 'no' }] });
+    await run;
+    expect(stages).toEqual(['resampling']);
+  });
+
   it('cancels by restarting the worker and sending it the data again', async () => {
     const workers: ScriptedWorker[] = [];
     const client = createEvaluationClient(() => (workers.push(new ScriptedWorker()), workers[workers.length - 1]));

@@ -1,5 +1,5 @@
 /**
- * What to export: one of the four plots with its props, and how (pixel size, dpi, background,
+ * What to export: one of the plots with its props, and how (pixel size, dpi, background,
  * caption). Each kind maps to its Chart.js configuration and text summary here, so the exporters
  * treat every plot alike.
  */
@@ -8,13 +8,15 @@ import { actionSliceChart, actionSliceSummary, type ActionSlicePlotProps } from 
 import { convergenceChart, convergenceSummary, type ConvergencePlotProps } from '../plots/convergence';
 import type { PlotLook } from '../plots/plotLook';
 import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueSummary, type PolicyValueChartProps } from '../plots/policyValueChart';
+import { sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../plots/sensitivity';
 import { valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../plots/valueSurface';
 
 export type PlotSpec =
   | { kind: 'surface'; props: ValueSurfacePlotProps }
   | { kind: 'slice'; props: ActionSlicePlotProps }
   | { kind: 'convergence'; props: ConvergencePlotProps }
-  | { kind: 'comparison'; props: PolicyValueChartProps };
+  | { kind: 'comparison'; props: PolicyValueChartProps }
+  | { kind: 'sensitivity'; props: SensitivityPlotProps };
 
 export interface ExportOptions {
   widthPx: number;
@@ -32,6 +34,7 @@ export function plotChartConfig(spec: PlotSpec, look: PlotLook): ChartConfigurat
     case 'slice': return actionSliceChart(spec.props, look) as unknown as ChartConfiguration;
     case 'convergence': return convergenceChart(spec.props, look) as unknown as ChartConfiguration;
     case 'comparison': return policyValueChart(spec.props, look) as unknown as ChartConfiguration;
+    case 'sensitivity': return sensitivityChart(spec.props, look) as unknown as ChartConfiguration;
   }
 }
 
@@ -41,6 +44,7 @@ export function plotSummary(spec: PlotSpec): string {
     case 'slice': return actionSliceSummary(spec.props);
     case 'convergence': return convergenceSummary(spec.props);
     case 'comparison': return policyValueSummary(spec.props);
+    case 'sensitivity': return sensitivitySummary(spec.props);
   }
 }
 

@@ -5,6 +5,7 @@
  */
 import type { Problem } from '../../../core/result';
 import type { RunProgress } from '../../../shared/workerMessages';
+import type { ProjectDocument } from '../../../project/schema';
 import type { DocumentStore } from '../document/documentStore';
 import { projectProblems, type FieldProblem } from '../document/projectProblems';
 import { CANCELLED, type EvaluationClient } from '../worker/evaluationClient';
@@ -34,7 +35,13 @@ export function runBlockers(session: SessionState, documentProblems: readonly Fi
   return null;
 }
 
-export function createEvaluationRunner(documents: DocumentStore, session: SessionStore, client: EvaluationClient): EvaluationRunner {
+/** What follows a run: the assessment starts after a successful one, and a running one stops before a new run. */
+export interface RunFollowUp {
+  assess(doc: ProjectDocument, runKey: string): Promise<void>;
+  cancel(): void;
+}
+
+export function createEvaluationRunner(documents: DocumentStore, session: SessionStore, client: EvaluationClient, followUp?: RunFollowUp): EvaluationRunner {
   return {
     async run() {
       const doc = documents.get().history.present;
@@ -45,7 +52,8 @@ export function createEvaluationRunner(documents: DocumentStore, session: Sessio
         return;
       }
       const fingerprint = state.importState.status === 'done' ? state.importState.result.fingerprint : '';
-      session.set((s) => ({ ...s, run: { status: 'running', progress: [], startsMs: [] }, evaluation: null }));
+      followUp?.cancel();
+      session.set((s) => ({ ...s, run: { status: 'running', progress: [], startsMs: [] }, evaluation: null, assessment: { status: 'idle' } }));
       const onProgress = (progress: RunProgress): void => session.set((s) => (s.run.status !== 'running' ? s : {
         ...s,
         run: {
@@ -60,6 +68,7 @@ export function createEvaluationRunner(documents: DocumentStore, session: Sessio
         const cancelled = result.problems.length === 1 && result.problems[0] === CANCELLED;
         return { ...s, run: cancelled ? { status: 'cancelled' } : { status: 'failed', problems: result.problems } };
       });
+      if (result.ok) await followUp?.assess(doc, runKey(doc, fingerprint));
     },
     cancel() {
       if (session.get().run.status === 'running') client.cancel();

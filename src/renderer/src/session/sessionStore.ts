@@ -4,8 +4,9 @@
  * last evaluation. Not saved and not undoable; it follows the document.
  */
 import type { Problem } from '../../../core/result';
+import type { Assessment } from '../../../pipeline/assessment';
 import type { Evaluation } from '../../../pipeline/estimates';
-import type { DataImport, DataInspection, RunProgress } from '../../../shared/workerMessages';
+import type { AssessRunProgress, DataImport, DataInspection, RunProgress } from '../../../shared/workerMessages';
 import { createStore, type Store } from '../state/store';
 
 export type DataSource =
@@ -34,6 +35,14 @@ export interface EvaluationRecord {
   runKey: string;
 }
 
+/** The intervals, cross-checks and diagnostics of the last evaluation (runKey says which). */
+export type AssessmentState =
+  | { status: 'idle' }
+  | { status: 'running'; runKey: string; progress: AssessRunProgress | null }
+  | { status: 'done'; runKey: string; assessment: Assessment }
+  | { status: 'cancelled'; runKey: string }
+  | { status: 'failed'; runKey: string; problems: Problem[] };
+
 export interface Notice {
   tone: 'info' | 'warning' | 'error';
   title: string;
@@ -50,6 +59,7 @@ export interface SessionState {
   importState: ImportState;
   run: RunState;
   evaluation: EvaluationRecord | null;
+  assessment: AssessmentState;
   notice: Notice | null;
   recentProjects: string[];
 }
@@ -57,7 +67,7 @@ export interface SessionState {
 export function emptySession(recentProjects: string[] = []): SessionState {
   return {
     source: { kind: 'none' }, sourceVersion: 0, inspection: null, dataProblems: [], importState: { status: 'idle' },
-    run: { status: 'idle' }, evaluation: null, notice: null, recentProjects,
+    run: { status: 'idle' }, evaluation: null, assessment: { status: 'idle' }, notice: null, recentProjects,
   };
 }
 

@@ -5,7 +5,7 @@
  * request then resolves as cancelled.
  */
 import type { Problem } from '../../../core/result';
-import type { RunProgress, WorkerCall, WorkerCalls, WorkerReply, WorkerRequest, WorkerResult } from '../../../shared/workerMessages';
+import type { AssessRunProgress, ProgressOf, RunProgress, WorkerCall, WorkerCalls, WorkerReply, WorkerRequest, WorkerResult } from '../../../shared/workerMessages';
 
 /** The part of a Worker the client uses (a fake one in unit tests). */
 export interface WorkerPort {
@@ -16,7 +16,7 @@ export interface WorkerPort {
 }
 
 export interface EvaluationClient {
-  call<K extends WorkerCall>(call: K, args: WorkerCalls[K]['args'], onProgress?: (progress: RunProgress) => void): Promise<WorkerResult<K>>;
+  call<K extends WorkerCall>(call: K, args: WorkerCalls[K]['args'], onProgress?: (progress: ProgressOf<K>) => void): Promise<WorkerResult<K>>;
   /** Stop whatever the worker is doing; pending calls resolve with a "cancelled" problem. */
   cancel(): void;
   dispose(): void;
@@ -24,7 +24,7 @@ export interface EvaluationClient {
 
 interface Pending {
   resolve: (result: WorkerResult) => void;
-  onProgress?: (progress: RunProgress) => void;
+  onProgress?: (progress: RunProgress | AssessRunProgress) => void;
 }
 
 export const CANCELLED: Problem = { where: 'evaluation', message: 'cancelled before it finished; no results were kept' };
@@ -53,7 +53,7 @@ export function createEvaluationClient(factory: () => WorkerPort = createEvaluat
   function receive(reply: WorkerReply): void {
     const entry = pending.get(reply.id);
     if (!entry) return; // a reply to a request already resolved as cancelled
-    if (reply.kind === 'progress') {
+    if (reply.kind === 'progress' || reply.kind === 'assessmentProgress') {
       entry.onProgress?.(reply.progress);
       return;
     }
@@ -79,7 +79,7 @@ export function createEvaluationClient(factory: () => WorkerPort = createEvaluat
       const id = nextId++;
       if (call === 'setData') lastData = args as WorkerCalls['setData']['args'];
       return new Promise((resolve) => {
-        pending.set(id, { resolve: resolve as (result: WorkerResult) => void, onProgress });
+        pending.set(id, { resolve: resolve as (result: WorkerResult) => void, onProgress: onProgress as Pending['onProgress'] });
         worker.postMessage({ call, id, ...args } as WorkerRequest);
       });
     },

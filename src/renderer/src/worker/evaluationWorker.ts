@@ -10,6 +10,7 @@ import { success, type Result } from '../../../core/result';
 import type { WorkerCall, WorkerReply, WorkerRequest, WorkerResult } from '../../../shared/workerMessages';
 import { inspectData } from './dataInspection';
 import { dataImportSummary } from './dataImportSummary';
+import { runAssessment } from './assessmentRun';
 import { runEvaluation } from './evaluationRun';
 import { sliceFromFit, surfaceFromFit } from './fitQueries';
 import { createWorkerSession } from './workerSession';
@@ -43,6 +44,9 @@ async function answer(request: WorkerRequest): Promise<Result<unknown>> {
       return success(surfaceFromFit(session.lastRun(), request.query));
     case 'slice':
       return success(sliceFromFit(session.lastRun(), request.query));
+    case 'assess':
+      if (request.data) session.setData(request.data.bytes, request.data.fileName);
+      return runAssessment(session, request.project, (progress) => post({ kind: 'assessmentProgress', id: request.id, progress }));
   }
 }
 

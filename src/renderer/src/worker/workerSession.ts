@@ -8,6 +8,7 @@ import { failure, type Result } from '../../../core/result';
 import type { CandidateFit } from '../../../pipeline/candidateFit';
 import { importProjectData, type OpenedProject } from '../../../pipeline/openProject';
 import type { ProjectDocument } from '../../../project/schema';
+import { runKey } from '../session/runKey';
 
 export interface RetainedFit {
   fit: CandidateFit;
@@ -36,6 +37,8 @@ export interface WorkerSession {
   /** Release the previous run's fits and start keeping the new run's. */
   beginRun(project: ProjectDocument, opened: OpenedProject): EvaluatedRun;
   lastRun(): EvaluatedRun;
+  /** The last run's fits by candidate when it evaluated the same project (same runKey), else none. */
+  retainedFits(project: ProjectDocument): (CandidateFit | undefined)[];
 }
 
 const NO_DATA = 'no data file is loaded yet; choose a CSV file on the Plant log step';
@@ -79,6 +82,11 @@ export function createWorkerSession(): WorkerSession {
     lastRun() {
       if (!run || run.fits.size === 0) throw new WorkerQueryError('there is no finished evaluation to draw from; run the evaluation first');
       return run;
+    },
+    retainedFits(project) {
+      if (!run || runKey(run.project, '') !== runKey(project, '')) return [];
+      const fits = run.fits;
+      return project.candidates.map((_, i) => fits.get(i)?.fit);
     },
   };
 }

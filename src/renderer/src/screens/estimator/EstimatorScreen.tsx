@@ -1,9 +1,10 @@
-/** Step 3, the estimator: discount, the approximator of Q, quadrature and seed, each with a line saying what it does. */
+/** Step 3, the estimator: discount, the approximator of Q, quadrature, seed and the bootstrap, each with a line saying what it does. */
 import { NumberField } from '../../components/NumberField';
 import { defaultApproximator } from '../../document/newProject';
 import { problemAt } from '../../document/projectProblems';
 import { useDocument, useProblems } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
+import { BootstrapSettings } from './BootstrapSettings';
 import { LinearSettings } from './LinearSettings';
 import { NetworkSettings } from './NetworkSettings';
 import { SETTING_HELP } from './settingHelp';
@@ -43,6 +44,7 @@ export function EstimatorScreen(props: { onNext: () => void }) {
         </div>
         {doc.approximator.kind === 'linear' ? <LinearSettings settings={doc.approximator} problems={problems} /> : <NetworkSettings settings={doc.approximator} problems={problems} />}
       </section>
+      <BootstrapSettings doc={doc} problems={problems} />
       <button className="primary" onClick={props.onNext} data-testid="next-run">Next: run</button>
     </>
   );

@@ -21,5 +21,8 @@ export const SETTING_HELP = {
   backend: 'TensorFlow.js backend: WebAssembly where it loads and passes its check, else the plain JavaScript one.',
   quadratureNodes: 'Gauss–Hermite nodes per action dimension for V(s) = E_a~π Q(s, a); 10 is plenty for smooth Q.',
   seed: 'Random seed; the same seed, data and settings give the same numbers.',
+  bootstrap: 'After each run, whole episodes are resampled with replacement and the fit repeated, giving intervals, paired comparisons and how often the ranking holds.',
+  resamples: 'Episode resamples (20–100,000); 1000 steadies the interval ends, 200 is enough for a first look.',
+  level: 'Share of resamples the interval covers (0.5 to below 1); 0.9 gives a 90 % interval.',
   startStates: 'J averages V over these states: the first state of every logged episode.',
 } as const;

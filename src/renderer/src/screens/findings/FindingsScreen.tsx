@@ -1,18 +1,23 @@
 /**
- * Step 5, the findings: the cautions first, then each candidate's value beside today's, the value
- * surface, the action-value slice and the convergence of each fit, each with its export.
+ * Step 5, the findings: the cautions first, then each candidate's value beside today's with its
+ * interval, the comparison, cross-checks, coverage and sensitivity of the assessment, the report,
+ * the value surface, the action-value slice and the convergence of each fit, each with its export.
  */
 import { Cautions } from '../../components/Cautions';
 import { ProblemList } from '../../components/ProblemList';
 import { useSession, useStale } from '../../hooks';
 import { useStore } from '../../state/useStore';
 import { themeStore, type Theme } from '../../theme';
+import type { AssessmentState } from '../../session/sessionStore';
+import { AssessmentPanel } from './AssessmentPanel';
 import { ConvergencePanel } from './ConvergencePanel';
 import { SlicePanel } from './SlicePanel';
 import { SurfacePanel } from './SurfacePanel';
 import { ValueComparison } from './ValueComparison';
 
 const same = (t: Theme) => t;
+
+const assessmentOf = (state: AssessmentState, key: string) => (state.status === 'done' && state.runKey === key ? state.assessment : null);
 
 export function FindingsScreen() {
   const session = useSession();
@@ -32,7 +37,8 @@ export function FindingsScreen() {
         <>
           {stale && <p className="problems warning" role="status" data-testid="stale-results">These results come from an earlier run; the settings or the data have changed since. Run again to update them.</p>}
           <ProblemList title="Notes from the evaluation" problems={record.evaluation.warnings.map((w) => ({ where: 'evaluation', message: w }))} tone="warning" />
-          <ValueComparison evaluation={record.evaluation} theme={theme} />
+          <ValueComparison evaluation={record.evaluation} theme={theme} assessment={assessmentOf(session.assessment, record.runKey)} />
+          <AssessmentPanel record={record} state={session.assessment} stale={stale} imported={imported} theme={theme} />
           {imported && imported.stateNames.length >= 2 && <SurfacePanel evaluation={record.evaluation} imported={imported} theme={theme} />}
           {imported && <SlicePanel evaluation={record.evaluation} imported={imported} theme={theme} />}
           <ConvergencePanel evaluation={record.evaluation} theme={theme} />

@@ -1,0 +1,52 @@
+/**
+ * The paired comparison: each candidate against the logged behaviour and against each other, the
+ * difference's interval over the same resamples and how often the first came out better, then the
+ * ranking and how often it holds across resamples.
+ */
+import type { Assessment } from '../../../../pipeline/assessment';
+import { formatNumber } from '../../format/numberFormat';
+import { intervalDetail, intervalText, levelText, shareText } from './assessmentWords';
+
+export function ComparisonTable({ assessment }: { assessment: Assessment }) {
+  const { differences, ranking } = assessment.comparison, level = assessment.settings.level;
+  const better = assessment.valueSense === 'cost' ? 'lower cost' : 'higher reward';
+  return (
+    <section className="panel" aria-labelledby="comparison-heading">
+      <h3 id="comparison-heading">Comparison</h3>
+      <p className="small muted">
+        Differences first − second in the project’s sense, {levelText(level)} percentile intervals from the same {assessment.settings.resamples.toLocaleString('en-US')} episode resamples
+        (paired bootstrap). “Better” means {better}. An interval that excludes 0 says the order is unlikely to be an accident of which episodes were logged.
+      </p>
+      <table data-testid="comparison-table">
+        <thead>
+          <tr>
+            <th scope="col">First</th><th scope="col">Second</th><th scope="col" className="number">Difference</th>
+            <th scope="col" className="number">{levelText(level)} interval</th><th scope="col" className="number">First better in</th>
+          </tr>
+        </thead>
+        <tbody>
+          {differences.map((d, i) => (
+            <tr key={`${d.a}|${d.b}`} data-testid={`difference-row-${i}`}>
+              <td>{d.a}</td><td>{d.b}</td>
+              <td className="number">{formatNumber(d.difference.value, 4)}</td>
+              <td className="number interval" title={intervalDetail(d.difference, level)}>{intervalText(d.difference.percentile)}</td>
+              <td className="number">{d.probabilityBetter === null ? '—' : `${shareText(d.probabilityBetter)} of resamples`}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+      <div data-testid="ranking">
+        <p><strong>Ranking, best first:</strong> {ranking.order.join(' › ')}.{' '}
+          {ranking.frequency === null ? 'How often it holds is unknown (some policy has no resamples).' : `This whole order holds in ${shareText(ranking.frequency)} of the resamples.`}
+        </p>
+        {ranking.neighbours.length > 0 && (
+          <ul className="small">
+            {ranking.neighbours.map((n) => (
+              <li key={`${n.better}|${n.worse}`}>{n.better} ahead of {n.worse}: {n.frequency === null ? 'unknown' : `in ${shareText(n.frequency)} of resamples`}</li>
+            ))}
+          </ul>
+        )}
+      </div>
+    </section>
+  );
+}

@@ -1,0 +1,40 @@
+/**
+ * Each candidate's value by independent methods — weighted importance sampling, weighted doubly
+ * robust, the linear-quadratic model — with its interval, its verdict against fitted
+ * Q-evaluation, and the assumption it rests on in plain words.
+ */
+import type { Assessment } from '../../../../pipeline/assessment';
+import { formatNumber } from '../../format/numberFormat';
+import { intervalDetail, intervalText, levelText, noteWithoutVerdict, VERDICT } from './assessmentWords';
+
+export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
+  const level = assessment.settings.level;
+  return (
+    <section className="panel" aria-labelledby="cross-checks-heading" data-testid="cross-checks">
+      <h3 id="cross-checks-heading">Cross-checks by other methods</h3>
+      <p className="small muted">Each method rests on a different assumption; agreement between them is evidence, disagreement is a reason to look closer.</p>
+      {assessment.candidates.map((c) => (
+        <table key={c.name} data-testid={`cross-checks-${c.name}`}>
+          <caption>{c.name}: fitted Q-evaluation J = {formatNumber(c.policyValue.value, 4)} {intervalText(c.policyValue.percentile)}</caption>
+          <thead>
+            <tr>
+              <th scope="col">Method</th><th scope="col" className="number">Value</th><th scope="col" className="number">{levelText(level)} interval</th>
+              <th scope="col">Verdict</th><th scope="col">Rests on</th>
+            </tr>
+          </thead>
+          <tbody>
+            {c.crossChecks.map((x) => (
+              <tr key={x.method} data-testid={`cross-check-${x.method}`}>
+                <th scope="row">{x.label}</th>
+                <td className="number">{x.estimate ? formatNumber(x.estimate.value, 4) : '—'}</td>
+                <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalText(x.estimate.percentile) : '—'}</td>
+                <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {noteWithoutVerdict(x.note)}</span> : null}</td>
+                <td className="small">{x.assumption}</td>
+              </tr>
+            ))}
+          </tbody>
+        </table>
+      ))}
+    </section>
+  );
+}

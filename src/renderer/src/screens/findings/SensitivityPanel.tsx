@@ -1,0 +1,34 @@
+/** J against the discount and against the feature degree (or centres, or network width), one sweep at a time, with its export. */
+import { useState } from 'react';
+import type { Sensitivity } from '../../../../pipeline/assessment';
+import type { Evaluation } from '../../../../pipeline/estimates';
+import { SelectField } from '../../components/SelectField';
+import { SensitivityPlot } from '../../plots';
+import { valueSenseText } from '../../plots/policyValueChart';
+import type { Theme } from '../../theme';
+import { ExportPanel } from './ExportPanel';
+
+export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivity: Sensitivity; evaluation: Evaluation; theme: Theme }) {
+  const [index, setIndex] = useState(0);
+  const curve = sensitivity.curves[index] ?? sensitivity.curves[0];
+  if (!curve) return null;
+  const title = `Policy value against ${curve.label}`;
+  const props = { curve, valueLabel: `J (${valueSenseText(evaluation.valueSense)})`, title, theme };
+  return (
+    <section className="panel" aria-labelledby="sensitivity-heading" data-testid="sensitivity">
+      <h3 id="sensitivity-heading">Sensitivity to the settings</h3>
+      <p className="small muted">J refitted at other settings on the full data. If the lines cross inside the range, the conclusion depends on that setting.</p>
+      {sensitivity.curves.length > 1 && (
+        <div className="row">
+          <SelectField label="Setting" value={String(index)} onChange={(v) => setIndex(Number(v))} testId="sensitivity-curve"
+            options={sensitivity.curves.map((c, i) => ({ value: String(i), label: c.label }))} />
+        </div>
+      )}
+      <SensitivityPlot {...props} />
+      <p data-testid="sensitivity-verdict">{curve.rankingStable ? 'The ranking is the same at every setting shown.' : 'The ranking changes within this range: the conclusion depends on this setting.'}</p>
+      {sensitivity.notes.map((n) => <p key={n} className="small muted">{n}</p>)}
+      <ExportPanel kind="sensitivity" evaluation={evaluation} defaultTitle={title} policy={curve.series.map((s) => s.name).join(', ')}
+        fileBase={`sensitivity-${curve.parameter}`} makeSpec={(t) => ({ kind: 'sensitivity', props: { ...props, title: t } })} />
+    </section>
+  );
+}

@@ -1,0 +1,86 @@
+/**
+ * The assessment's numbers in a reviewer's words: intervals as text, the verdict of a cross-check,
+ * the coverage diagnostics as sentences with the level the logged controller itself reaches, and
+ * the progress line while the assessment runs.
+ */
+import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
+import type { AssessRunProgress } from '../../../../shared/workerMessages';
+import { formatNumber } from '../../format/numberFormat';
+
+/** "[1.23, 4.56]", or a dash without replicates. */
+export function intervalText(interval: [number, number] | null, significant = 4): string {
+  return interval ? `[${formatNumber(interval[0], significant)}, ${formatNumber(interval[1], significant)}]` : '—';
+}
+
+/** "90 %" from 0.9. */
+export function levelText(level: number): string {
+  return `${formatNumber(level * 100, 3)} %`;
+}
+
+/** "73 %" from 0.73, a dash for null. */
+export function shareText(share: number | null): string {
+  return share === null ? '—' : `${formatNumber(share * 100, 3)} %`;
+}
+
+/** The basic interval and the replicate count, for the tooltip of an interval cell. */
+export function intervalDetail(estimate: IntervalEstimate, level: number): string {
+  const failed = estimate.failedReplicates > 0 ? `, ${estimate.failedReplicates} gave no value` : '';
+  return `${levelText(level)} basic interval ${intervalText(estimate.basic)}; bootstrap s.e. ${estimate.standardError === null ? '—' : formatNumber(estimate.standardError, 3)}; ${estimate.replicates} resamples${failed}`;
+}
+
+/** A cross-check's note without its leading verdict word, which the verdict column already says. */
+export function noteWithoutVerdict(note: string): string {
+  return note.replace(/^(agrees|disagrees|uninformative|not applicable)\s*[:.—-]\s*/i, '');
+}
+
+export const VERDICT: Record<Agreement, string> = {
+  agrees: 'Agrees with fitted Q-evaluation',
+  disagrees: 'Disagrees with fitted Q-evaluation — look into it before trusting J',
+  uninformative: 'Too uncertain to confirm or contradict',
+  notApplicable: 'Not applicable here',
+};
+
+/** The coverage diagnostics as sentences, each with the logged controller's own level where known. */
+export function coverageSentences(d: CoverageDiagnostics): string[] {
+  const sentences: string[] = [];
+  if (d.distributionShiftStart !== null) {
+    const own = (value: number | null) => (value === null ? '' : ` (the logged controller itself: ${formatNumber(value, 3)})`);
+    const next = d.distributionShiftNext === null ? '' : `; ${formatNumber(d.distributionShiftNext, 3)} over the logged next states${own(d.behaviourShiftNext)}`;
+    sentences.push(`Distribution shift νᵀΣ⁻¹ν: ${formatNumber(d.distributionShiftStart, 3)} over the start states${own(d.behaviourShiftStart)}${next}. `
+      + '1 means the candidate asks about the same mix of features the logs contain; the larger, the further it leaves them.');
+  }
+  const w = d.importanceWeights;
+  if (w) {
+    sentences.push(`Importance weights: the one-step weights are worth ${Math.round(w.oneStepEffectiveSize).toLocaleString('en-US')} transitions (${shareText(w.oneStepShare)} of them); `
+      + `after ${w.horizonSteps} steps the cumulative weights are worth ${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes} episodes. `
+      + 'Few effective samples make the importance-sampling cross-checks noisy.');
+  }
+  const a = d.actionSupport;
+  const own = a.behaviourMeanOutside === null ? '' : ` (the logged controller itself: ${shareText(a.behaviourMeanOutside)})`;
+  sentences.push(`Action probability outside the logged range: on average ${shareText(a.meanOutside)} of the candidate’s action probability falls outside the actions logged near the same state `
+    + `(${a.neighbours} nearest logged states), ${shareText(a.p90Outside)} at the 90th percentile of ${a.queryStates} states and ${shareText(a.maxOutside)} at worst${own}. Q is extrapolated there.`);
+  return sentences;
+}
+
+export function unvisitedSentence(share: number | null): string | null {
+  return share === null ? null : `Unvisited states: ${shareText(share)} of the value-surface grid has no logged state within one grid step; values there are extrapolated.`;
+}
+
+const STAGE: Record<AssessRunProgress['stage'], string> = {
+  preparing: 'Preparing each candidate',
+  resampling: 'Resampling episodes',
+  sensitivity: 'Sweeping the discount and the features',
+};
+
+export function progressLine(progress: AssessRunProgress | null): string {
+  if (!progress) return 'Starting the assessment…';
+  const count = progress.stage === 'sensitivity' ? '' : ` (${progress.done.toLocaleString('en-US')} of ${progress.total.toLocaleString('en-US')})`;
+  return `${STAGE[progress.stage]}${count}…`;
+}
+
+export function assessmentFraction(progress: AssessRunProgress | null): number {
+  if (!progress) return 0;
+  if (progress.stage === 'preparing') return 0.1 * (progress.done / Math.max(1, progress.total));
+  if (progress.stage === 'resampling') return 0.1 + 0.7 * (progress.done / Math.max(1, progress.total));
+  return 0.85;
+}

@@ -1,0 +1,143 @@
+/**
+ * The assessment in the app: after a run of two candidates on the tank-levels sample the findings
+ * show bootstrap intervals that contain J, the paired comparison and ranking, the cross-checks
+ * with their verdicts, the coverage diagnostics and a sensitivity plot; "Write report…" saves the
+ * same HTML document the CLI writes, with every section. Screenshots go to test-artifacts/screens/.
+ */
+import { readFile } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { REPORT_SECTIONS } from '../../src/pipeline/report/reportDocument';
+import { launchApp, type LaunchedApp } from './harness/launch';
+import {
+  addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, TANK_CSV,
+} from '../renderer/e2e/appSteps';
+
+const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
+
+describe('intervals, cross-checks and the report in the app (e2e)', () => {
+  let app: LaunchedApp;
+  let values: number[] = [];
+
+  beforeAll(async () => {
+    app = await launchApp();
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('runs two candidates with 200 resamples and shows intervals containing J', async () => {
+    const { page } = app;
+    await chooseData(app, TANK_CSV);
+    await mapTankColumns(page);
+    await page.getByLabel('Project name').fill('Tank levels, assessment');
+    await goToStep(page, 'candidates');
+    await addCandidate(page, 0, { name: 'Tuned', offset: 189, gain: [-60, -90], std: 1.5 });
+    await addCandidate(page, 1, { name: 'Trim error', offset: 190.5, gain: [-60, -90], std: 1.5 });
+    await goToStep(page, 'estimator');
+    await page.getByLabel('Bootstrap resamples').fill('200');
+    await page.getByLabel('Bootstrap resamples').blur();
+    await app.screenshot('assessment-1-estimator');
+    values = await runAndReadValues(page, 2);
+    await page.getByTestId('comparison-table').waitFor({ timeout: 90_000 });
+    for (const [i, testId] of ['policy-interval-0', 'policy-interval-1', 'behaviour-interval'].entries()) {
+      const cell = page.getByTestId(testId);
+      const lo = Number(await cell.getAttribute('data-lo')), hi = Number(await cell.getAttribute('data-hi'));
+      const j = i < 2 ? values[i] : Number(await page.getByTestId('behaviour-value').getAttribute('data-value'));
+      expect(Number.isFinite(lo) && Number.isFinite(hi)).toBe(true);
+      // A percentile interval of replicates around the estimate contains it here (the CLI's run of this sample shows it well inside).
+      expect(lo).toBeLessThanOrEqual(j);
+      expect(hi).toBeGreaterThanOrEqual(j);
+    }
+    await expect(page.getByTestId('policy-interval-0').getAttribute('title')).resolves.toContain('basic interval');
+  });
+
+  it('shows the ranking, the cross-checks with verdicts and the coverage in words', async () => {
+    const { page } = app;
+    const ranking = await page.getByTestId('ranking').innerText();
+    expect(ranking).toContain('Ranking, best first');
+    expect(ranking).toMatch(/holds in [\d.]+ % of the resamples/);
+    const lq = page.getByTestId('cross-check-linearQuadraticModel').first();
+    await expect(lq.innerText()).resolves.toContain('Linear-quadratic');
+    await expect(lq.getByTestId('verdict').innerText()).resolves.toMatch(/Agrees|Disagrees|Too uncertain|Not applicable/);
+    await expect(page.getByTestId('coverage').innerText()).resolves.toContain('Distribution shift');
+    await expect(page.getByTestId('coverage').innerText()).resolves.toContain('outside the logged range');
+  });
+
+  it('draws a sensitivity plot that is not blank', async () => {
+    const { page } = app;
+    const canvas = page.getByTestId('plot-sensitivity').locator('canvas');
+    await canvas.waitFor();
+    const differing = await canvas.evaluate((c: HTMLCanvasElement) => {
+      const context = c.getContext('2d')!;
+      const pixels = context.getImageData(0, 0, c.width, c.height).data;
+      let count = 0;
+      for (let i = 3; i < pixels.length; i += 4) if (pixels[i] !== 0) count++;
+      return count / (pixels.length / 4);
+    });
+    expect(differing).toBeGreaterThan(0.01);
+    // PNG export through the same export panel as the other plots.
+    const target = join(app.harness.workFolder, 'sensitivity.png');
+    app.harness.dialogs.nextExport = target;
+    await page.getByTestId('export-sensitivity').locator('summary').click();
+    await page.getByTestId('export-png-sensitivity').click();
+    await page.getByTestId('export-status-sensitivity').getByText('Saved').waitFor({ timeout: 30_000 });
+    const bytes = new Uint8Array(await readFile(target));
+    expect(pngSize(bytes)).toEqual({ width: 1950, height: 1200 }); // the default preset, 6.5 × 4 in at 300 dpi
+    expect((await decodedPngContent(page, bytes)).colours).toBeGreaterThan(20);
+    await page.getByTestId('export-sensitivity').locator('summary').click();
+    await app.screenshot('assessment-2-findings');
+    for (const [name, testId] of [['values', 'value-table'], ['comparison', 'comparison-table'], ['cross-checks', 'cross-checks'], ['coverage', 'coverage'], ['sensitivity', 'sensitivity']]) {
+      await page.getByTestId(testId).screenshot({ path: join(SCREENS, `assessment-3-${name}.png`) });
+    }
+  });
+
+  it('writes the report with every section through the export dialog', async () => {
+    const { page, harness } = app;
+    const target = join(harness.workFolder, 'tank-report.html');
+    harness.dialogs.nextExport = target;
+    await page.getByTestId('write-report').click();
+    await page.getByTestId('report-status').getByText('Saved').waitFor({ timeout: 30_000 });
+    expect(harness.dialogs.asked.at(-1)).toMatchObject({ dialog: 'export', kind: 'html' });
+    const html = await readFile(target, 'utf8');
+    // Every section opens with its heading (reportDocument.ts: stable section ids).
+    for (const section of REPORT_SECTIONS) expect(html).toMatch(new RegExp(`<section id="${section}"><h2>[^<]+</h2>`));
+    expect(html).toContain('Tank levels, assessment');
+    // The report Chromium renders: open it from disk and look at it.
+    const view = await page.context().newPage();
+    await view.setContent(html);
+    await view.screenshot({ path: join(SCREENS, 'assessment-4-report.png'), fullPage: true });
+    await view.close();
+  });
+
+  it('cancels a long assessment as it cancels a run, and offers to compute it again', async () => {
+    const { page } = app;
+    await goToStep(page, 'estimator');
+    await page.getByLabel('Bootstrap resamples').fill('100000');
+    await page.getByLabel('Bootstrap resamples').blur();
+    await goToStep(page, 'run');
+    await page.getByTestId('run-evaluation').click();
+    await page.getByTestId('run-finished').waitFor({ timeout: 90_000 });
+    await goToStep(page, 'findings');
+    await page.getByTestId('assessment-progress').waitFor({ timeout: 30_000 });
+    // A linear project is assessed in a worker of its own: the surface draws while the resampling runs.
+    await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
+    await expect(page.getByTestId('assessment-progress').isVisible()).resolves.toBe(true);
+    await app.screenshot('assessment-5-running');
+    await page.getByTestId('cancel-assessment').click();
+    await page.getByTestId('assessment-cancelled').waitFor({ timeout: 10_000 });
+    await expect(page.getByTestId('compute-assessment').isEnabled()).resolves.toBe(true);
+    // The evaluation itself stays: its values are still shown, without intervals.
+    await expect(page.getByTestId('policy-value-0').getAttribute('data-value')).resolves.toBe(String(values[0]));
+    await expect(page.getByTestId('policy-interval-0').count()).resolves.toBe(0);
+    // The evaluation worker kept its fits: the slice is still redrawn from them.
+    await page.getByTestId('slice-candidate').selectOption('1');
+    await page.getByRole('img', { name: 'Action values of Trim error' }).waitFor({ timeout: 30_000 });
+    await expect(page.getByText('The slice could not be drawn').count()).resolves.toBe(0);
+  });
+
+  it('logged no console errors and made no request beyond its origin', () => {
+    expect(app.consoleErrors).toEqual([]);
+    expect(app.blockedRequests).toEqual([]);
+  });
+});

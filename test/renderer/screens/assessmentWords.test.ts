@@ -1,0 +1,44 @@
+/** The assessment in words: interval text, verdict notes without a repeated verdict, progress lines, coverage sentences. */
+import { describe, expect, it } from 'vitest';
+import type { CoverageDiagnostics } from '../../../src/pipeline/assessment';
+import {
+  assessmentFraction, coverageSentences, intervalText, levelText, noteWithoutVerdict, progressLine, shareText, unvisitedSentence,
+} from '../../../src/renderer/src/screens/findings/assessmentWords';
+
+describe('assessment words', () => {
+  it('writes intervals, levels and shares', () => {
+    expect(intervalText([6.58123, 10.3349])).toBe('[6.581, 10.33]');
+    expect(intervalText(null)).toBe('—');
+    expect(levelText(0.9)).toBe('90 %');
+    expect(shareText(0.475)).toBe('47.5 %');
+    expect(shareText(null)).toBe('—');
+  });
+
+  it('drops the verdict word the verdict column already shows', () => {
+    expect(noteWithoutVerdict('Uninformative: at step 20 the weights …')).toBe('at step 20 the weights …');
+    expect(noteWithoutVerdict('Agrees: it differs by 0.5 % of J')).toBe('it differs by 0.5 % of J');
+    expect(noteWithoutVerdict('the fitted dynamics do not fit')).toBe('the fitted dynamics do not fit');
+  });
+
+  it('says where the assessment is and how far', () => {
+    expect(progressLine(null)).toBe('Starting the assessment…');
+    expect(progressLine({ stage: 'resampling', done: 1200, total: 2000, elapsedMs: 0 })).toBe('Resampling episodes (1,200 of 2,000)…');
+    expect(assessmentFraction({ stage: 'resampling', done: 1000, total: 2000, elapsedMs: 0 })).toBeCloseTo(0.45);
+    expect(assessmentFraction({ stage: 'preparing', done: 0, total: 2, elapsedMs: 0 })).toBe(0);
+  });
+
+  it('puts each diagnostic beside the logged controller’s own level', () => {
+    const d: CoverageDiagnostics = {
+      distributionShiftStart: 55.3, distributionShiftNext: 1.4, behaviourShiftStart: 44.9, behaviourShiftNext: 1.1,
+      importanceWeights: { oneStepEffectiveSize: 9490.4, oneStepShare: 0.475, horizonSteps: 20, horizonEffectiveEpisodes: 1.09, horizonEpisodes: 40 },
+      actionSupport: { neighbours: 50, queryStates: 400, meanOutside: 0.001, p90Outside: 0.0002, maxOutside: 0.2, behaviourMeanOutside: 0.039 },
+    };
+    const [shift, weights, support] = coverageSentences(d);
+    expect(shift).toContain('55.3 over the start states (the logged controller itself: 44.9); 1.4 over the logged next states (the logged controller itself: 1.1)');
+    expect(weights).toContain('worth 9,490 transitions (47.5 % of them)');
+    expect(support).toContain('on average 0.1 %');
+    expect(coverageSentences({ ...d, distributionShiftStart: null, importanceWeights: null })).toHaveLength(1);
+    expect(unvisitedSentence(0.497)).toContain('49.7 %');
+    expect(unvisitedSentence(null)).toBeNull();
+  });
+});
