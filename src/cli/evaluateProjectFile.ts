@@ -1,0 +1,72 @@
+/**
+ * What `evaluate` and `report` share: read a project file and its data from disk, run the one
+ * evaluation pipeline, then the assessment (intervals, cross-checks, diagnostics) on the same fits.
+ * Files are read here (Node); everything after the bytes is the shared pipeline.
+ */
+import { readFile } from 'node:fs/promises';
+import { createRequire } from 'node:module';
+import { basename, dirname, join, resolve } from 'node:path';
+import { describeProblems, type Result } from '../core/result';
+import type { Assessment } from '../pipeline/assessment';
+import { assessProject } from '../pipeline/assessProject';
+import { assessmentSettingsFor, type AssessmentOverrides } from '../pipeline/assessSettings';
+import type { CandidateFit } from '../pipeline/candidateFit';
+import type { Evaluation } from '../pipeline/estimates';
+import { evaluateProject } from '../pipeline/evaluateProject';
+import { openProject, type OpenedProject } from '../pipeline/openProject';
+
+export interface ProjectFileRun extends OpenedProject {
+  evaluation: Evaluation;
+  assessment: Result<Assessment>;
+}
+
+/** A failure to report on stderr, with the exit status (1 bad input, 2 bad usage). */
+export interface CliFailure {
+  message: string;
+  exitCode: 1 | 2;
+}
+
+export async function evaluateProjectFile(
+  projectPath: string, overrides: AssessmentOverrides, now?: () => Date,
+): Promise<{ ok: true; run: ProjectFileRun } | { ok: false; failure: CliFailure }> {
+  let text: string;
+  try {
+    text = await readFile(projectPath, 'utf8');
+  } catch (e) {
+    const reason = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
+    return { ok: false, failure: { message: `Cannot read the project file ${projectPath}: ${reason}`, exitCode: 1 } };
+  }
+  const folder = dirname(resolve(projectPath));
+  const opened = await openProject(text, basename(projectPath), async (relativePath) => new Uint8Array(await readFile(resolve(folder, relativePath))));
+  if (!opened.ok) return { ok: false, failure: { message: describeProblems(opened.problems), exitCode: 1 } };
+  const { project, dataset, warnings } = opened.value;
+  const settings = assessmentSettingsFor(project, overrides);
+  if (!settings.ok) return { ok: false, failure: { message: describeProblems(settings.problems), exitCode: 2 } };
+  const network = project.approximator.kind === 'network', wasmPath = tensorflowWasmFolder(), fits: CandidateFit[] = [];
+  if (network) await quietTensorflow();
+  const evaluation = await evaluateProject({
+    project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`), wasmPath, now,
+    retainFit: network ? (i, fit) => { fits[i] = fit; } : undefined, // a network fit is slow: the assessment reuses it
+  });
+  if (!evaluation.ok) {
+    fits.forEach((f) => f.dispose());
+    return { ok: false, failure: { message: describeProblems(evaluation.problems), exitCode: 1 } };
+  }
+  const assessment = await assessProject({ project, dataset, settings: settings.value, fits, wasmPath }).finally(() => fits.forEach((f) => f.dispose()));
+  return { ok: true, run: { ...opened.value, evaluation: evaluation.value, assessment } };
+}
+
+/** The folder holding TensorFlow.js's .wasm files in node_modules (with a trailing slash, as setWasmPaths wants). */
+function tensorflowWasmFolder(): string {
+  const packageJson = createRequire(import.meta.url).resolve('@tensorflow/tfjs-backend-wasm/package.json');
+  return `${join(dirname(packageJson), 'dist')}/`;
+}
+
+/**
+ * TensorFlow.js in Node prints advice to install its native backend on first use; the CLI cannot act
+ * on it and its users should not have to read it. Production mode silences library warnings only.
+ */
+async function quietTensorflow(): Promise<void> {
+  const tf = await import('@tensorflow/tfjs');
+  tf.enableProdMode();
+}
