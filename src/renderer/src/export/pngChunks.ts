@@ -84,6 +84,11 @@ export function withPhysicalResolution(png: Uint8Array, dpi: number): Uint8Array
     cursor = c.offset + 12 + c.dataLength;
   }
   parts.push(png.subarray(cursor));
+  return concatBytes(parts);
+}
+
+/** The byte arrays one after another in a new array. */
+export function concatBytes(parts: readonly Uint8Array[]): Uint8Array {
   const out = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
   let at = 0;
   for (const p of parts) {

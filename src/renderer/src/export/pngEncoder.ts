@@ -8,7 +8,7 @@
  */
 import type { Raster } from '../plots/raster';
 import { adler32 } from './adler32';
-import { PNG_SIGNATURE, PngFormatError, pngChunk } from './pngChunks';
+import { concatBytes, PNG_SIGNATURE, PngFormatError, pngChunk } from './pngChunks';
 
 /** Largest stored deflate block (LEN is 16 bits). */
 const STORED_BLOCK = 65535;
@@ -23,14 +23,7 @@ export function encodePng(raster: Raster): Uint8Array {
   view.setUint32(0, width);
   view.setUint32(4, height);
   header.set([8, 6, 0, 0, 0], 8); // bit depth 8, colour type 6 (RGBA), deflate, filter method 0, no interlace
-  const parts = [PNG_SIGNATURE, pngChunk('IHDR', header), pngChunk('IDAT', zlibStored(filteredRows(raster))), pngChunk('IEND', new Uint8Array(0))];
-  const out = new Uint8Array(parts.reduce((n, p) => n + p.length, 0));
-  let at = 0;
-  for (const p of parts) {
-    out.set(p, at);
-    at += p.length;
-  }
-  return out;
+  return concatBytes([PNG_SIGNATURE, pngChunk('IHDR', header), pngChunk('IDAT', zlibStored(filteredRows(raster))), pngChunk('IEND', new Uint8Array(0))]);
 }
 
 /** Each row prefixed with filter type 0 (None), PNG §9.2. */

@@ -5,6 +5,7 @@
  * for it before it sizes the axes, so nothing overlaps at any font scale.
  */
 import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
+import { LayoutBoxGeometry } from './layoutBox';
 import type { ColourScale } from './colourScale';
 import { niceTicks, type TickSet } from './niceTicks';
 import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
@@ -36,22 +37,14 @@ export function colourBarTicks(scale: ColourScale, heightPx: number, look: PlotL
   return niceTicks(scale.min, scale.max, target);
 }
 
-class ColourBarBox implements LayoutItem {
+class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
   readonly position = 'right' as const;
   readonly weight = 10;
-  readonly fullSize = false;
-  /** Chart.js reads stack options from every layout box. */
-  readonly options = {};
-  width = 0;
-  height = 0;
-  left = 0;
-  top = 0;
-  right = 0;
-  bottom = 0;
   private ticks: TickSet | null = null;
   private readonly raster;
 
   constructor(private readonly chart: Chart, private readonly spec: ColourBarSpec) {
+    super();
     this.raster = colourBarRaster(spec.scale);
   }
 

@@ -4,6 +4,7 @@
  * the longest label, keeps the labels of the largest bars inside the image at any font scale.
  */
 import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
+import { LayoutBoxGeometry } from './layoutBox';
 import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
 
 export interface WhiskerSpec {
@@ -17,19 +18,13 @@ export interface WhiskerSpec {
 export const WHISKER_DEFAULTS = { capPx: 7, lineWidthPx: 1.6, labelGapPx: 6 } as const;
 
 /** Empty room right of the plot area for the value labels. */
-class LabelRoomBox implements LayoutItem {
+class LabelRoomBox extends LayoutBoxGeometry implements LayoutItem {
   readonly position = 'right' as const;
   readonly weight = 10;
-  readonly fullSize = false;
-  readonly options = {};
-  width = 0;
-  height = 0;
-  left = 0;
-  top = 0;
-  right = 0;
-  bottom = 0;
 
-  constructor(private readonly chart: Chart, private readonly spec: WhiskerSpec) {}
+  constructor(private readonly chart: Chart, private readonly spec: WhiskerSpec) {
+    super();
+  }
 
   isHorizontal(): boolean {
     return false;

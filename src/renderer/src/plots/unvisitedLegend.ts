@@ -3,6 +3,7 @@
  * A Chart.js layout box, so the plot area shrinks to make room for it.
  */
 import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
+import { LayoutBoxGeometry } from './layoutBox';
 import { drawHatching } from './hatching';
 import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
 
@@ -15,20 +16,13 @@ export interface UnvisitedLegendSpec {
   readonly look: PlotLook;
 }
 
-class UnvisitedLegendBox implements LayoutItem {
+class UnvisitedLegendBox extends LayoutBoxGeometry implements LayoutItem {
   readonly position = 'top' as const;
   readonly weight = 500; // nearer the plot area than the title (Chart.js gives the title 2000)
-  readonly fullSize = false;
-  /** Chart.js reads stack options from every layout box. */
-  readonly options = {};
-  width = 0;
-  height = 0;
-  left = 0;
-  top = 0;
-  right = 0;
-  bottom = 0;
 
-  constructor(private readonly chart: Chart, private readonly spec: UnvisitedLegendSpec) {}
+  constructor(private readonly chart: Chart, private readonly spec: UnvisitedLegendSpec) {
+    super();
+  }
 
   isHorizontal(): boolean {
     return true;
