@@ -38,6 +38,14 @@ describe('surfaceCsv (long form, RFC 4180)', () => {
     expect(header[0]).toBe('level "A", m');
   });
 
+  it('defuses labels a spreadsheet would run as formulas (OWASP, "CSV Injection")', () => {
+    expect(csvField('=HYPERLINK("x")')).toBe(`"'=HYPERLINK(""x"")"`);
+    expect(csvField('+level')).toBe("'+level");
+    expect(csvField('-cost')).toBe("'-cost");
+    expect(csvField('@sum')).toBe("'@sum");
+    expect(csvField('level_m')).toBe('level_m');
+  });
+
   it('writes a non-finite value as an empty field', () => {
     const values = surface.values.slice();
     values[0] = NaN;

@@ -12,8 +12,14 @@ import type { ValueSurface } from '../../../pipeline/estimates';
 
 const CRLF = '\r\n';
 
+/**
+ * A label as an RFC 4180 field. A label a spreadsheet would run as a formula (leading =, +, -, @,
+ * tab or CR) gets a leading apostrophe first, as the OWASP guidance on CSV injection advises:
+ * column names come from the user's own files, and the export must not execute them.
+ */
 export function csvField(text: string): string {
-  return /[",\r\n]|^#|^\s|\s$/.test(text) ? `"${text.replace(/"/g, '""')}"` : text;
+  const inert = /^[=+\-@\t\r]/.test(text) ? `'${text}` : text;
+  return /[",\r\n]|^#|^\s|\s$/.test(inert) ? `"${inert.replace(/"/g, '""')}"` : inert;
 }
 
 function commentText(text: string): string {
