@@ -4,7 +4,7 @@
  */
 import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
-import type { TransitionSet } from './transitions';
+import type { TransitionSet } from '../core/transitions';
 import { formatCount, plural } from './reportFormat';
 
 /** Limits per action dimension; null (or a missing entry) means "no limit on this side". */

@@ -11,7 +11,7 @@ import Papa from 'papaparse';
 import type { ColumnRoles, CsvSettings } from '../project/schema';
 import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
-import type { TransitionSet } from './transitions';
+import type { TransitionSet } from '../core/transitions';
 import { sourceText } from './sourceText';
 import { resolveDialect, type Dialect } from './csvDialect';
 import { planColumns, timestampColumnOf, type ColumnPlan } from './columnPlan';

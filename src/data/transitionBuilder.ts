@@ -5,7 +5,7 @@
  * never took. A terminal row is a transition of its own with done = 1; its s' is a copy of s,
  * never used because nothing is bootstrapped past a terminal state.
  */
-import type { TransitionSet } from './transitions';
+import type { TransitionSet } from '../core/transitions';
 import { formatCount, plural } from './reportFormat';
 
 export interface StepColumns {

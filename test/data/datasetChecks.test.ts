@@ -6,7 +6,7 @@
 import { describe, expect, it } from 'vitest';
 import { checkActionBounds, checkEnoughTransitions } from '../../src/data/datasetChecks';
 import { importDataset } from '../../src/data/importDataset';
-import type { TransitionSet } from '../../src/data/transitions';
+import type { TransitionSet } from '../../src/core/transitions';
 
 function transitions(valves: number[]): TransitionSet {
   const text = ['level,valve,reward', ...valves.map((v, i) => `${i},${v},0`)].join('\n');
