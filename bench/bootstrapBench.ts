@@ -27,15 +27,9 @@ import type { EpisodeIndex } from '../src/core/bootstrap/episodeTransitions';
 import type { GaussianPolicy } from '../src/core/policy';
 import type { TransitionSet } from '../src/core/transitions';
 import { importDataset } from '../src/data/importDataset';
+import { TANK_COLUMNS } from './tankColumns';
 import { simulateTankLevels, tankDiscount, tankLevelsCsv, tankTunedPolicy } from '../sample-projects/tank-levels/simulate';
 
-const columns = {
-  states: [{ column: 'level_upper_m', unit: 'm' }, { column: 'level_lower_m', unit: 'm' }],
-  actions: [{ column: 'inflow_valve_pct', unit: '%' }],
-  reward: { kind: 'column' as const, column: 'cost', sense: 'cost' as const },
-  nextState: { kind: 'nextRow' as const },
-  episode: { kind: 'column' as const, column: 'run' },
-};
 
 const seconds = (start: bigint) => Number(process.hrtime.bigint() - start) / 1e9;
 
@@ -49,7 +43,7 @@ function rate(replicate: (b: number) => void, minimumSeconds = 1.5): number {
 
 export async function runBootstrapBench(): Promise<Record<string, number | string>> {
   const csv = tankLevelsCsv(simulateTankLevels({ runs: 200, stepsPerRun: 501, seed: 5 }));
-  const imported = importDataset(csv, 'bench.csv', { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }, columns);
+  const imported = importDataset(csv, 'bench.csv', { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }, TANK_COLUMNS);
   if (!imported.ok) throw new Error(imported.problems.map((p) => p.message).join('\n'));
   const data = imported.value.transitions;
   const policy = createGaussianPolicy(tankTunedPolicy, 2);

@@ -11,15 +11,9 @@ import { fitLinearFqe } from '../src/core/fqe/linearFqe';
 import { createGaussianPolicy } from '../src/core/policy';
 import { policyValue, valueSurface } from '../src/core/value';
 import { importDataset } from '../src/data/importDataset';
+import { TANK_COLUMNS } from './tankColumns';
 import { simulateTankLevels, tankDiscount, tankLevelsCsv, tankTunedPolicy } from '../sample-projects/tank-levels/simulate';
 
-const columns = {
-  states: [{ column: 'level_upper_m', unit: 'm' }, { column: 'level_lower_m', unit: 'm' }],
-  actions: [{ column: 'inflow_valve_pct', unit: '%' }],
-  reward: { kind: 'column' as const, column: 'cost', sense: 'cost' as const },
-  nextState: { kind: 'nextRow' as const },
-  episode: { kind: 'column' as const, column: 'run' },
-};
 
 const seconds = (start: bigint) => Number(process.hrtime.bigint() - start) / 1e9;
 
@@ -28,7 +22,7 @@ export function runLinearBench(transitions: number): Record<string, number> {
   const runs = Math.ceil(transitions / (stepsPerRun - 1));
   const csv = tankLevelsCsv(simulateTankLevels({ runs, stepsPerRun, seed: 5 }));
   let t = process.hrtime.bigint();
-  const imported = importDataset(csv, 'bench.csv', { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }, columns);
+  const imported = importDataset(csv, 'bench.csv', { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }, TANK_COLUMNS);
   if (!imported.ok) throw new Error(imported.problems.map((p) => p.message).join('\n'));
   const data = imported.value.transitions;
   const loadSeconds = seconds(t);

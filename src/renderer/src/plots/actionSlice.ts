@@ -4,6 +4,7 @@
  * (marker area ∝ weight, since V^π(s) = Σ w_j Q(s, a_j)), and — for clipped bounds — the point
  * masses at the limits as bars whose height is their probability.
  */
+import type { ActionSliceReply } from '../../../shared/workerMessages';
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import { sharedOptions, valueAxis } from './chartStyle';
 import { densityOutline } from './densityOutline';
@@ -26,13 +27,8 @@ export const ACTION_SLICE_DEFAULTS = {
   densityHeadroom: 2.2,
 } as const;
 
-export interface ActionSliceData {
-  actions: Float64Array;
-  actionValues: Float64Array;
-  density: Float64Array;
-  nodes: { points: Float64Array; weights: Float64Array };
-  state: number[];
-  policyName: string;
+/** The worker's slice of Q(s, ·), plus what the plot needs to mark clipped or truncated limits. */
+export interface ActionSliceData extends ActionSliceReply {
   /** Actuator bounds of this action, when the policy has them (clip: point masses are marked). */
   bounds?: SliceBounds;
 }

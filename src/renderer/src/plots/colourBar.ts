@@ -4,8 +4,8 @@
  * and the value label with its units written along the bar. Being a layout box, Chart.js makes room
  * for it before it sizes the axes, so nothing overlaps at any font scale.
  */
-import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
-import { LayoutBoxGeometry } from './layoutBox';
+import { type Chart, type LayoutItem, type Plugin } from 'chart.js';
+import { LayoutBoxGeometry, layoutBoxHooks } from './layoutBox';
 import type { ColourScale } from './colourScale';
 import { niceTicks, type TickSet } from './niceTicks';
 import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
@@ -101,16 +101,8 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
 
 /** A per-chart plugin that adds the colour bar box while the chart lives. */
 export function colourBarPlugin(spec: ColourBarSpec): Plugin {
-  let box: ColourBarBox | null = null;
   return {
     id: 'setpointColourBar',
-    start(chart) {
-      box = new ColourBarBox(chart, spec);
-      layouts.addBox(chart, box);
-    },
-    stop(chart) {
-      if (box) layouts.removeBox(chart, box);
-      box = null;
-    },
+    ...layoutBoxHooks((chart) => new ColourBarBox(chart, spec)),
   };
 }

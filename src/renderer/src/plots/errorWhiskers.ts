@@ -3,8 +3,8 @@
  * Drawn after the bars, through the chart's own value scale. A layout box on the right, as wide as
  * the longest label, keeps the labels of the largest bars inside the image at any font scale.
  */
-import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
-import { LayoutBoxGeometry } from './layoutBox';
+import { type Chart, type LayoutItem, type Plugin } from 'chart.js';
+import { LayoutBoxGeometry, layoutBoxHooks } from './layoutBox';
 import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
 
 export interface WhiskerSpec {
@@ -44,17 +44,9 @@ class LabelRoomBox extends LayoutBoxGeometry implements LayoutItem {
 }
 
 export function errorWhiskersPlugin(spec: WhiskerSpec): Plugin {
-  let box: LabelRoomBox | null = null;
   return {
     id: 'setpointErrorWhiskers',
-    start(chart) {
-      box = new LabelRoomBox(chart, spec);
-      layouts.addBox(chart, box);
-    },
-    stop(chart) {
-      if (box) layouts.removeBox(chart, box);
-      box = null;
-    },
+    ...layoutBoxHooks((chart) => new LabelRoomBox(chart, spec)),
     afterDatasetsDraw(chart) {
       const { ctx } = chart, xs = chart.scales.x, meta = chart.getDatasetMeta(0), s = spec.look.scale, d = WHISKER_DEFAULTS;
       ctx.save();

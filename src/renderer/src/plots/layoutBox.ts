@@ -1,3 +1,5 @@
+import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
+
 /**
  * The geometry every Chart.js layout box carries: Chart.js's layout engine reads and writes these
  * fields. Our boxes (colour bar, unvisited-region legend, room for value labels) extend this and
@@ -13,4 +15,22 @@ export abstract class LayoutBoxGeometry {
   top = 0;
   right = 0;
   bottom = 0;
+}
+
+/**
+ * The start/stop hooks of a per-chart plugin that adds one layout box while the chart lives and
+ * removes it when the chart stops; spread them into the plugin object.
+ */
+export function layoutBoxHooks(create: (chart: Chart) => LayoutItem): Pick<Plugin, 'start' | 'stop'> {
+  let box: LayoutItem | null = null;
+  return {
+    start(chart) {
+      box = create(chart);
+      layouts.addBox(chart, box);
+    },
+    stop(chart) {
+      if (box) layouts.removeBox(chart, box);
+      box = null;
+    },
+  };
 }

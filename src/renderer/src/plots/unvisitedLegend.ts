@@ -2,8 +2,8 @@
  * Legend line above the heat map explaining the hatching: a hatched swatch and what it means.
  * A Chart.js layout box, so the plot area shrinks to make room for it.
  */
-import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
-import { LayoutBoxGeometry } from './layoutBox';
+import { type Chart, type LayoutItem, type Plugin } from 'chart.js';
+import { LayoutBoxGeometry, layoutBoxHooks } from './layoutBox';
 import { drawHatching } from './hatching';
 import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
 
@@ -55,16 +55,8 @@ class UnvisitedLegendBox extends LayoutBoxGeometry implements LayoutItem {
 }
 
 export function unvisitedLegendPlugin(spec: UnvisitedLegendSpec): Plugin {
-  let box: UnvisitedLegendBox | null = null;
   return {
     id: 'setpointUnvisitedLegend',
-    start(chart) {
-      box = new UnvisitedLegendBox(chart, spec);
-      layouts.addBox(chart, box);
-    },
-    stop(chart) {
-      if (box) layouts.removeBox(chart, box);
-      box = null;
-    },
+    ...layoutBoxHooks((chart) => new UnvisitedLegendBox(chart, spec)),
   };
 }
