@@ -7,6 +7,7 @@
 import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { POLL } from './harness/poll';
 import { REPORT_SECTIONS } from '../../src/pipeline/report/reportDocument';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import {
@@ -49,7 +50,7 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
       expect(lo).toBeLessThanOrEqual(j);
       expect(hi).toBeGreaterThanOrEqual(j);
     }
-    await expect(page.getByTestId('policy-interval-0').getAttribute('title')).resolves.toContain('basic interval');
+    await expect.poll(() => page.getByTestId('policy-interval-0').getAttribute('title'), POLL).toContain('basic interval');
   });
 
   it('shows the ranking, the cross-checks with verdicts and the coverage in words', async () => {
@@ -58,10 +59,10 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     expect(ranking).toContain('Ranking, best first');
     expect(ranking).toMatch(/holds in [\d.]+ % of the resamples/);
     const lq = page.getByTestId('cross-check-linearQuadraticModel').first();
-    await expect(lq.innerText()).resolves.toContain('Linear-quadratic');
-    await expect(lq.getByTestId('verdict').innerText()).resolves.toMatch(/Agrees|Disagrees|Too uncertain|Not applicable/);
-    await expect(page.getByTestId('coverage').innerText()).resolves.toContain('Distribution shift');
-    await expect(page.getByTestId('coverage').innerText()).resolves.toContain('outside the logged range');
+    await expect.poll(() => lq.innerText(), POLL).toContain('Linear-quadratic');
+    await expect.poll(() => lq.getByTestId('verdict').innerText(), POLL).toMatch(/Agrees|Disagrees|Too uncertain|Not applicable/);
+    await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('Distribution shift');
+    await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('outside the logged range');
   });
 
   it('draws a sensitivity plot that is not blank', async () => {
@@ -122,18 +123,18 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     await page.getByTestId('assessment-progress').waitFor({ timeout: 30_000 });
     // A linear project is assessed in a worker of its own: the surface draws while the resampling runs.
     await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
-    await expect(page.getByTestId('assessment-progress').isVisible()).resolves.toBe(true);
+    await expect.poll(() => page.getByTestId('assessment-progress').isVisible(), POLL).toBe(true);
     await app.screenshot('assessment-5-running');
     await page.getByTestId('cancel-assessment').click();
     await page.getByTestId('assessment-cancelled').waitFor({ timeout: 10_000 });
-    await expect(page.getByTestId('compute-assessment').isEnabled()).resolves.toBe(true);
+    await expect.poll(() => page.getByTestId('compute-assessment').isEnabled(), POLL).toBe(true);
     // The evaluation itself stays: its values are still shown, without intervals.
-    await expect(page.getByTestId('policy-value-0').getAttribute('data-value')).resolves.toBe(String(values[0]));
-    await expect(page.getByTestId('policy-interval-0').count()).resolves.toBe(0);
+    await expect.poll(() => page.getByTestId('policy-value-0').getAttribute('data-value'), POLL).toBe(String(values[0]));
+    await expect.poll(() => page.getByTestId('policy-interval-0').count(), POLL).toBe(0);
     // The evaluation worker kept its fits: the slice is still redrawn from them.
     await page.getByTestId('slice-candidate').selectOption('1');
     await page.getByRole('img', { name: 'Action values of Trim error' }).waitFor({ timeout: 30_000 });
-    await expect(page.getByText('The slice could not be drawn').count()).resolves.toBe(0);
+    await expect.poll(() => page.getByText('The slice could not be drawn').count(), POLL).toBe(0);
   });
 
   it('logged no console errors and made no request beyond its origin', () => {

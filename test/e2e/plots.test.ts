@@ -16,11 +16,13 @@ import react from '@vitejs/plugin-react';
 import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { build } from 'vite';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { POLL } from './harness/poll';
 import { CAUTION_SHORT } from '../../src/pipeline/cautions';
 import { CONTENT_SECURITY_POLICY } from '../../src/main/rendererProtocol';
 import { pngDpi, pngSize } from '../../src/renderer/src/export/pngChunks';
 import { colourTable } from '../../src/renderer/src/plots/colourScale';
-import { CHROMIUM_ARGS, CHROMIUM_PATH } from './harness/launch';
+import { CHROMIUM_ARGS } from './harness/launch';
+import { requireChromium } from '../support/chromiumPath';
 import { PLOT_KINDS, type PlotKind } from './plots-page/plotSpecs';
 import type {} from './plots-page/main';
 
@@ -63,7 +65,7 @@ function serve(): Promise<void> {
 
 async function openPage(deviceScaleFactor: number): Promise<{ context: BrowserContext; page: Page }> {
   const ctx = await chromium.launchPersistentContext(await mkdtemp(join(profile, 'p-')), {
-    executablePath: CHROMIUM_PATH, headless: true, args: CHROMIUM_ARGS, viewport: { width: 960, height: 900 }, deviceScaleFactor,
+    executablePath: requireChromium(), headless: true, args: CHROMIUM_ARGS, viewport: { width: 960, height: 900 }, deviceScaleFactor,
   });
   const p = ctx.pages()[0] ?? (await ctx.newPage());
   p.on('console', (m) => { if (m.type() === 'error') pageErrors.push(m.text()); });
@@ -107,7 +109,7 @@ describe('plots on screen (e2e)', () => {
       const summaryId = (await first.getAttribute('aria-describedby'))!;
       expect((await page.locator(`[id="${summaryId}"]`).textContent())?.length).toBeGreaterThan(60);
     }
-    await expect(page.getByRole('img', { name: 'Value surface: gentle gain' }).count()).resolves.toBe(2);
+    await expect.poll(() => page.getByRole('img', { name: 'Value surface: gentle gain' }).count(), POLL).toBe(2);
   });
 
   it.each(THEMES)('the colour bar stands right of the heat map, its top the maximum colour and its bottom the minimum (%s)', async (theme) => {

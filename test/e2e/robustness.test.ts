@@ -7,6 +7,7 @@
 import { copyFile, readFile, rename, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { chooseData, goToStep, TANK_CSV } from '../renderer/e2e/appSteps';
 import { writeTankProject } from '../renderer/e2e/projectFiles';
@@ -48,13 +49,13 @@ describe('the app under trouble (e2e)', () => {
     const errors = page.getByTestId('import-errors');
     await errors.waitFor({ timeout: 30_000 });
     // The importer's own wording (test/data/badFiles.test.ts): line 17 holds "1,2.3" in column level_m.
-    await expect(errors.innerText()).resolves.toContain('not-a-number.csv, line 17, column level_m');
-    await expect(errors.innerText()).resolves.toContain('"1,2.3" is not a number');
+    await expect.poll(() => errors.innerText(), POLL).toContain('not-a-number.csv, line 17, column level_m');
+    await expect.poll(() => errors.innerText(), POLL).toContain('"1,2.3" is not a number');
     await app.screenshot('robustness-bad-csv');
     await page.getByTestId('bad-rows').selectOption('exclude');
     const excluded = page.getByTestId('excluded-rows');
     await excluded.waitFor({ timeout: 30_000 });
-    await expect(excluded.innerText()).resolves.toContain('17');
+    await expect.poll(() => excluded.innerText(), POLL).toContain('17');
   });
 
   it('reads a dropped CSV, and asks for it through the picker before the project can be saved', async () => {
@@ -68,9 +69,9 @@ describe('the app under trouble (e2e)', () => {
     }, text);
     await page.getByTestId('dropzone').dispatchEvent('drop', { dataTransfer: transfer });
     await page.getByTestId('role-table').waitFor();
-    await expect(page.getByTestId('data-file').innerText()).resolves.toBe('dropped-levels.csv');
+    await expect.poll(() => page.getByTestId('data-file').innerText(), POLL).toBe('dropped-levels.csv');
     await page.getByTestId('save-project').click();
-    await expect(page.getByTestId('notice').innerText()).resolves.toContain('dropped onto the window');
+    await expect.poll(() => page.getByTestId('notice').innerText(), POLL).toContain('dropped onto the window');
   });
 
   it('cancels a long run, keeps the page responsive meanwhile, and runs again afterwards', async () => {
@@ -96,15 +97,15 @@ describe('the app under trouble (e2e)', () => {
     report('a run left alone for 1 s', await page.evaluate(stopMainThreadProbe));
     await page.evaluate(startMainThreadProbe);
     await goToStep(page, 'candidates');
-    await expect(page.getByTestId('step-candidates').getAttribute('aria-selected')).resolves.toBe('true');
+    await expect.poll(() => page.getByTestId('step-candidates').getAttribute('aria-selected'), POLL).toBe('true');
     await page.getByTestId('candidate-chart').waitFor();
     await goToStep(page, 'run');
     report('switching to Candidates and back during a run', await page.evaluate(stopMainThreadProbe));
-    await expect(page.getByTestId('progress-iteration').innerText()).resolves.toMatch(/^\d+$/); // still running
+    await expect.poll(() => page.getByTestId('progress-iteration').innerText(), POLL).toMatch(/^\d+$/); // still running
     await app.screenshot('robustness-run-progress');
     await page.getByTestId('cancel-evaluation').click();
     await page.getByTestId('run-cancelled').waitFor({ timeout: 10_000 });
-    await expect(page.getByTestId('run-progress').count()).resolves.toBe(0);
+    await expect.poll(() => page.getByTestId('run-progress').count(), POLL).toBe(0);
 
     // The fresh worker has the data again: a short run finishes.
     await goToStep(page, 'estimator');
@@ -127,13 +128,13 @@ describe('the app under trouble (e2e)', () => {
     await openProject(app, projectPath);
     const problems = page.getByTestId('data-problems');
     await problems.waitFor({ timeout: 30_000 });
-    await expect(problems.innerText()).resolves.toContain('cannot read the data file "levels.csv"');
-    await expect(page.getByTestId('step-plant-log').innerText()).resolves.toContain('could not be read');
+    await expect.poll(() => problems.innerText(), POLL).toContain('cannot read the data file "levels.csv"');
+    await expect.poll(() => page.getByTestId('step-plant-log').innerText(), POLL).toContain('could not be read');
     await app.screenshot('robustness-data-moved');
     harness.dialogs.nextOpenData = moved;
     await page.getByTestId('relocate-data').click();
     await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
-    await expect(page.getByTestId('import-warnings').count()).resolves.toBe(0); // the same bytes: no "changed" warning
+    await expect.poll(() => page.getByTestId('import-warnings').count(), POLL).toBe(0); // the same bytes: no "changed" warning
   });
 
   it('says when the data file has changed since the project was saved, with the old and new row counts', async () => {
@@ -148,7 +149,7 @@ describe('the app under trouble (e2e)', () => {
     await openProject(app, projectPath);
     const warnings = page.getByTestId('import-warnings');
     await warnings.waitFor({ timeout: 30_000 });
-    await expect(warnings.innerText()).resolves.toContain('rows then: 20,000, now: 19,000');
+    await expect.poll(() => warnings.innerText(), POLL).toContain('rows then: 20,000, now: 19,000');
   });
 
   it('refuses a project from a newer format version and leaves the file unchanged', async () => {
@@ -158,7 +159,7 @@ describe('the app under trouble (e2e)', () => {
     await openProject(app, projectPath);
     const notice = page.getByTestId('notice');
     await notice.getByText('could not be opened').waitFor({ timeout: 30_000 });
-    await expect(notice.innerText()).resolves.toContain('newer Setpoint Critic');
+    await expect.poll(() => notice.innerText(), POLL).toContain('newer Setpoint Critic');
     await app.screenshot('robustness-newer-version');
     // The open project is still the previous one: Save writes that one, and nothing touches future.spcritic.
     const discards = () => harness.apiCalls.filter((c) => c.method === 'discardRecovery').length;
@@ -180,7 +181,7 @@ describe('the app under trouble (e2e)', () => {
       await next.screenshot('robustness-recovery-offer');
       await next.page.getByRole('button', { name: 'Restore it' }).click();
       await next.harness.waitForDocumentState((st) => st.name === 'Recovered work' && st.dirty);
-      await expect(next.page.getByTestId('notice').innerText()).resolves.toContain('Choose the data file again');
+      await expect.poll(() => next.page.getByTestId('notice').innerText(), POLL).toContain('Choose the data file again');
       expect(next.consoleErrors).toEqual([]);
     } finally {
       await next.close();

@@ -7,6 +7,7 @@
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import {
   addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, TANK_CSV,
@@ -26,7 +27,7 @@ describe('a new user evaluates two candidates (e2e)', () => {
 
   it('starts on the plant log step with the cautions in view', async () => {
     await app.page.getByRole('heading', { name: 'Plant log' }).waitFor();
-    await expect(app.page.getByTestId('welcome').innerText()).resolves.toContain('offline, advisory estimates');
+    await expect.poll(() => app.page.getByTestId('welcome').innerText(), POLL).toContain('offline, advisory estimates');
     await app.screenshot('workflow-1-start');
   });
 
@@ -35,8 +36,8 @@ describe('a new user evaluates two candidates (e2e)', () => {
     await chooseData(app, TANK_CSV);
     await mapTankColumns(page);
     // The sample's simulator writes 40 runs of 500 rows (sample-projects/tank-levels/simulate.ts): 40 × 499 transitions.
-    await expect(page.getByTestId('transition-count').innerText()).resolves.toBe('19,960');
-    await expect(page.getByTestId('episode-count').innerText()).resolves.toBe('40');
+    await expect.poll(() => page.getByTestId('transition-count').innerText(), POLL).toBe('19,960');
+    await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('40');
     await page.getByLabel('Project name').fill('Tank levels, e2e');
     await app.screenshot('workflow-2-plant-log');
   });
@@ -47,17 +48,17 @@ describe('a new user evaluates two candidates (e2e)', () => {
     await addCandidate(page, 0, { name: 'Tuned', offset: 189, gain: [-60, -90], std: 1.5 });
     await addCandidate(page, 1, { name: 'Trim error', offset: 190.5, gain: [-60, -90], std: 1.5 });
     await page.getByTestId('candidate-chart').waitFor();
-    await expect(page.getByTestId('step-candidates').innerText()).resolves.toContain('2 candidates');
+    await expect.poll(() => page.getByTestId('step-candidates').innerText(), POLL).toContain('2 candidates');
     // Undo and redo from the keyboard take back and restore the last edit (the second candidate's spread).
     const std = page.getByTestId('candidate-1').getByLabel('Standard deviation (%)');
     await page.getByTestId('step-candidates').focus();
     await page.keyboard.press('Control+z');
-    await expect(std.inputValue()).resolves.not.toBe('1.5');
+    await expect.poll(() => std.inputValue(), POLL).not.toBe('1.5');
     await page.keyboard.press('Control+Shift+z');
-    await expect(std.inputValue()).resolves.toBe('1.5');
+    await expect.poll(() => std.inputValue(), POLL).toBe('1.5');
     // Arrow keys move along the step list; Ctrl+number jumps.
     await page.keyboard.press('ArrowDown');
-    await expect(page.getByTestId('step-estimator').getAttribute('aria-selected')).resolves.toBe('true');
+    await expect.poll(() => page.getByTestId('step-estimator').getAttribute('aria-selected'), POLL).toBe('true');
     await page.keyboard.press('Control+2');
     await app.screenshot('workflow-3-candidates');
     await goToStep(page, 'estimator');
@@ -75,7 +76,7 @@ describe('a new user evaluates two candidates (e2e)', () => {
     expect(firstValues[1]).toBeGreaterThan(firstValues[0]);
     await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
     await page.getByTestId('plot-slice').waitFor({ timeout: 30_000 });
-    await expect(page.getByTestId('cautions').innerText()).resolves.toContain('advisory');
+    await expect.poll(() => page.getByTestId('cautions').innerText(), POLL).toContain('advisory');
     await app.screenshot('workflow-5-findings-light');
     await app.harness.sendMenuCommand(page, 'toggle-theme');
     await app.screenshot('workflow-5-findings-dark');
@@ -116,7 +117,7 @@ describe('a new user evaluates two candidates (e2e)', () => {
     harness.dialogs.nextOpenProject = projectPath;
     await page.getByTestId('open-project').click();
     await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
-    await expect(page.getByLabel('Project name').inputValue()).resolves.toBe('Tank levels, e2e');
+    await expect.poll(() => page.getByLabel('Project name').inputValue(), POLL).toBe('Tank levels, e2e');
     const again = await runAndReadValues(page, 2);
     expect(again).toEqual(firstValues);
   });

@@ -2,9 +2,8 @@
  * The report opens in a browser: headless Chromium renders the tank-levels report, every section
  * is there with its heading, every figure draws, nothing outside the file is requested, no console
  * error appears, and nothing is wider than the page. A screenshot is kept for a person to look at
- * (test-artifacts/screens/report.png). Skipped where Chromium is not installed.
+ * (test-artifacts/screens/report.png). Fails with what to install where no Chromium is found (test/support/chromiumPath.ts).
  */
-import { existsSync } from 'node:fs';
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { chromium, type Browser } from 'playwright-core';
@@ -12,9 +11,9 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { assessProject } from '../../src/pipeline/assessProject';
 import { evaluateProject } from '../../src/pipeline/evaluateProject';
 import { openProject } from '../../src/pipeline/openProject';
+import { requireChromium } from '../support/chromiumPath';
 import { REPORT_SECTIONS, renderReport } from '../../src/pipeline/report/reportDocument';
 
-const CHROMIUM = '/usr/bin/chromium';
 const root = join(__dirname, '..', '..');
 const screens = join(root, 'test-artifacts', 'screens');
 
@@ -32,14 +31,14 @@ async function tankReport(): Promise<string> {
   });
 }
 
-describe.skipIf(!existsSync(CHROMIUM))('the report in headless Chromium', () => {
+describe('the report in headless Chromium', () => {
   let browser: Browser;
   const file = join(screens, 'report.html');
   beforeAll(async () => {
     await mkdir(screens, { recursive: true });
     await writeFile(file, await tankReport(), 'utf8');
     browser = await chromium.launch({
-      executablePath: CHROMIUM,
+      executablePath: requireChromium(),
       args: ['--headless=new', '--no-sandbox', '--disable-gpu', '--disable-background-networking', '--disable-component-update', '--disable-sync'],
     });
   });

@@ -46,6 +46,7 @@ import type { MenuCommand, MenuCommandDetail, SaveReply } from '../../../src/sha
 import type { AppService, DocumentState } from '../../../src/main/appService';
 import { runCloseSequence, type CloseOutcome } from '../../../src/main/closeGuard';
 import type { ScriptedDialogs } from './scriptedDialogs';
+import { requireChromium } from '../../support/chromiumPath';
 import { startHarnessServer, type ApiCallRecord, type HarnessServer } from './server';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../../..');
@@ -53,7 +54,6 @@ const rendererFolder = join(root, 'out/renderer');
 const screensFolder = join(root, 'test-artifacts/screens');
 const browserApiScript = join(dirname(fileURLToPath(import.meta.url)), 'browserApi.js');
 
-export const CHROMIUM_PATH = '/usr/bin/chromium';
 export const CHROMIUM_ARGS = [
   '--headless=new', '--no-sandbox', '--disable-gpu', '--disable-background-networking',
   '--disable-component-update', '--disable-sync', '--no-first-run',
@@ -109,7 +109,7 @@ export async function launchApp(options: LaunchOptions = {}): Promise<LaunchedAp
   const profile = await makeTemp('spc-chromium-');
   const server = await startHarnessServer({ rendererFolder, stateFolder });
   const context = await chromium.launchPersistentContext(profile, {
-    executablePath: CHROMIUM_PATH,
+    executablePath: requireChromium(),
     headless: true,
     args: CHROMIUM_ARGS,
     viewport: options.viewport ?? { width: 1280, height: 840 },
