@@ -4,6 +4,8 @@
  *   npm run bench                 all benchmarks
  *   npm run bench -- linear       only the linear FQE sizes
  *   npm run bench -- bootstrap    only the bootstrap resampling rates
+ *   npm run bench -- battery [options]   the battery sweep of the network and linear estimators
+ *                                 (bench/batteryBench.ts; long: run it under `nice`)
  */
 import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -52,4 +54,5 @@ function parent(groups: string[]): void {
 
 const args = process.argv.slice(2);
 if (args[0] === '--child') await child(Number(args[1]));
+else if (args[0] === 'battery') await (await import('./batteryBench')).runBatteryBench(args.slice(1));
 else parent(args);

@@ -3,6 +3,8 @@
  * Values here are in reward terms (the engine's sense); the pipeline converts for display.
  */
 import type { ActionValueFunction } from '../core/actionValue';
+import type { Agreement } from '../core/fqe/approximatorAgreement';
+import type { ValueInterval } from '../core/fqe/networkValueEstimate';
 import type { CancellationCheck } from '../core/fqe/cancellation';
 import type { GaussianPolicy } from '../core/policy';
 import type { TransitionSet } from '../core/transitions';
@@ -37,4 +39,27 @@ export interface CandidateFit {
   warnings: string[];
   /** Release resources the fit holds (tensors); a no-op for linear fits. */
   dispose(): void;
+  /**
+   * Network fits: how the stopping rule judged the fit (src/core/fqe/networkConvergence.ts).
+   * converged is true exactly when status is 'converged'; remainingBound is the share of the value
+   * that may still be moving by the rule (null before two full windows); window 0 = rule off.
+   */
+  convergence?: { converged: boolean; iterations: number; remainingBound: number | null; tolerance: number; window: number; discount: number };
+  /**
+   * Network fits: the interval of policyValue (reward sense), by episode resamples of the last-layer
+   * solve; intervalCovers says in one sentence what it covers and what it does not.
+   */
+  interval?: ValueInterval;
+  intervalCovers?: string;
+  /**
+   * Network fits: the linear estimate the network started from (degree-2 polynomial LSTD-Q on the
+   * same data and start states) with its interval, the paired difference network − linear, and the
+   * agreement verdict with its message (src/core/fqe/approximatorAgreement.ts). Reward sense.
+   */
+  linearComparison?: {
+    value: number;
+    interval: ValueInterval;
+    difference: { value: number; interval: ValueInterval };
+    agreement: Agreement;
+  };
 }

@@ -1,9 +1,14 @@
-/** One candidate by neural-network fitted Q-evaluation with TensorFlow.js (src/core/fqe/networkFqe.ts). */
-import { createActionQuadrature } from '../core/actionQuadrature';
+/**
+ * One candidate by neural-network fitted Q-evaluation with TensorFlow.js (src/core/fqe/networkFqe.ts):
+ * the fit, its J with an interval over the request's start states, the linear estimate it started
+ * from, and whether the two agree (src/core/fqe/approximatorAgreement.ts).
+ */
 import { FqeCancelledError } from '../core/fqe/fqeErrors';
-import { fitNetworkFqe } from '../core/fqe/networkFqe';
-import { policyValue } from '../core/value';
+import { approximatorAgreement } from '../core/fqe/approximatorAgreement';
+import { fitNetworkFqe, type NetworkFit, type NetworkIterationRecord } from '../core/fqe/networkFqe';
+import { networkLayout } from '../core/fqe/networkParameters';
 import type { CandidateFit, CandidateFitRequest } from './candidateFit';
+import type { FitIteration } from './estimates';
 
 export async function fitNetworkCandidate(request: CandidateFitRequest): Promise<CandidateFit> {
   const settings = request.approximator;
@@ -11,40 +16,55 @@ export async function fitNetworkCandidate(request: CandidateFitRequest): Promise
   const { kind: _kind, ...networkSettings } = settings;
   const fit = await fitNetworkFqe({
     data: request.data, policy: request.policy, discount: request.discount, quadratureNodes: request.quadratureNodes,
-    seed: request.seed, settings: networkSettings, isCancelled: request.cancel, wasmPath: request.wasmPath,
-    onProgress: request.onIteration && ((p) => request.onIteration!({
-      iteration: p.iteration, weightChange: null, bellmanResidual: p.heldOutBellmanError, policyValue: null, loss: p.loss,
-    })),
+    seed: request.seed, settings: networkSettings, startStates: request.startStates, isCancelled: request.cancel, wasmPath: request.wasmPath,
+    onProgress: request.onIteration && ((p) => request.onIteration!(iterationOf(p))),
   });
   if (fit.status === 'cancelled') {
     fit.dispose();
     throw new FqeCancelledError();
   }
   try {
-    const j = policyValue(fit.actionValue, request.policy, request.startStates, createActionQuadrature(request.policy, request.quadratureNodes));
-    return {
-      q: fit.actionValue,
-      status: fit.status,
-      message: fit.message,
-      history: fit.history.map((h) => ({ iteration: h.iteration, weightChange: null, bellmanResidual: h.heldOutBellmanError, policyValue: null, loss: h.loss })),
-      policyValue: j.value,
-      standardError: j.standardError,
-      fixedPointValue: null,
-      featureCount: networkParameterCount(request.data.stateDim + request.data.actionDim, settings.hiddenLayers),
-      backend: `TensorFlow.js ${fit.backend}`,
-      warnings: fit.backendNote ? [fit.backendNote] : [],
-      dispose: () => fit.dispose(),
-    };
+    return candidateFitOf(fit, request);
   } catch (e) {
     fit.dispose();
     throw e;
   }
 }
 
-/** Weights and biases of a fully connected network inputs → hidden… → 1. */
-function networkParameterCount(inputs: number, hidden: readonly number[]): number {
-  const widths = [inputs, ...hidden, 1];
-  let count = 0;
-  for (let i = 1; i < widths.length; i++) count += widths[i - 1] * widths[i] + widths[i];
-  return count;
+function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest): CandidateFit {
+  const estimate = fit.estimate(request.startStates);
+  const { rule } = fit.convergence;
+  return {
+    q: fit.actionValue,
+    status: fit.status === 'cancelled' ? 'maxIterations' : fit.status,
+    message: fit.message,
+    history: fit.history.map(iterationOf),
+    policyValue: estimate.value,
+    standardError: estimate.interval.standardError,
+    fixedPointValue: null,
+    featureCount: parameterCount(fit, request),
+    backend: `TensorFlow.js ${fit.backend}`,
+    warnings: fit.backendNote ? [fit.backendNote] : [],
+    dispose: () => fit.dispose(),
+    convergence: {
+      converged: fit.convergence.converged, iterations: fit.convergence.iterations, remainingBound: fit.convergence.remainingBound,
+      tolerance: rule.tolerance, window: rule.window, discount: rule.discount,
+    },
+    interval: estimate.interval,
+    intervalCovers: estimate.covers,
+    linearComparison: {
+      value: estimate.linear.value, interval: estimate.linear.interval, difference: estimate.difference,
+      agreement: approximatorAgreement({ network: estimate, linear: estimate.linear, difference: estimate.difference }),
+    },
+  };
+}
+
+function iterationOf(p: NetworkIterationRecord): FitIteration {
+  return { iteration: p.iteration, weightChange: null, bellmanResidual: p.heldOutBellmanError, policyValue: p.policyValue, loss: p.loss };
+}
+
+/** Weights and biases of the network plus the weights of its quadratic part. */
+function parameterCount(fit: NetworkFit, request: CandidateFitRequest): number {
+  const hidden = request.approximator.kind === 'network' ? request.approximator.hiddenLayers : [];
+  return networkLayout(request.data.stateDim + request.data.actionDim, hidden).size + fit.linearStart.features.dim;
 }

@@ -6,6 +6,7 @@
  * (see migrations.ts). Field names are ours; the README documents them.
  */
 import { z } from 'zod';
+import { defaultNetworkSettings as net } from '../core/fqe/networkSettings';
 
 export const PROJECT_FORMAT = 'setpoint-critic-project';
 export const PROJECT_VERSION = 1;
@@ -109,26 +110,30 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
   }),
   z.object({
     kind: z.literal('network'),
-    /** Units per hidden layer. */
-    hiddenLayers: z.array(z.number().int().min(1).max(1024)).min(1).max(6).default([64, 64]),
-    activation: z.enum(['relu', 'tanh', 'elu']).default('relu'),
-    learningRate: finite.positive().default(1e-3),
-    batchSize: z.number().int().min(8).max(65_536).default(512),
-    /** Adam steps on each frozen regression target. */
-    stepsPerIteration: z.number().int().min(1).max(100_000).default(100),
+    // Defaults are the engine's (src/core/fqe/networkSettings.ts), chosen on the battery of invented plants.
+    /** Units per hidden layer; the last layer's units are the features the value is solved on. */
+    hiddenLayers: z.array(z.number().int().min(1).max(1024)).min(1).max(6).default(() => [...net.hiddenLayers]),
+    activation: z.enum(['relu', 'tanh', 'elu']).default(net.activation),
+    learningRate: finite.positive().default(net.learningRate),
+    batchSize: z.number().int().min(8).max(65_536).default(net.batchSize),
+    /** Adam steps per outer iteration (they improve the hidden features). */
+    stepsPerIteration: z.number().int().min(1).max(100_000).default(net.stepsPerIteration),
+    /** Most outer iterations; each solves the last layer over the whole horizon and then trains the features. */
+    outerIterations: z.number().int().min(1).max(10_000).default(net.outerIterations),
+    /** Fraction of episodes held out (not trained on) to report a held-out Bellman error; a diagnostic, not a stopping rule. */
+    heldOutFraction: finite.min(0).max(0.5).default(net.heldOutFraction),
     /**
-     * Outer fitted-Q iterations (each recomputes the target from the previous network). The error
-     * left after k iterations shrinks like γ^k, so about 4.6/(1 − γ) iterations leave 1 % (γ = 0.95: 92).
+     * Window of the stopping rule in outer iterations: "converged" when the drift of J and Q between
+     * two windows, times γ/(1 − γ), is within `tolerance`; 0 = never stop early. (Files from before
+     * this rule keep their value, now read as the window.)
      */
-    outerIterations: z.number().int().min(1).max(10_000).default(100),
-    /** Fraction of episodes held out to measure the Bellman error; 0 turns early stopping off. */
-    heldOutFraction: finite.min(0).max(0.5).default(0.1),
-    /** Stop after this many outer iterations without held-out improvement; 0 = never. */
-    patience: z.number().int().min(0).max(10_000).default(8),
-    /** Average the weights of the last k outer iterations' networks (1 = no averaging). */
-    averageLast: z.number().int().min(1).max(100).default(1),
+    patience: z.number().int().min(0).max(10_000).default(net.patience),
+    /** Stopping rule: the largest share of the value that may still be moving. */
+    tolerance: finite.gt(0).max(1).default(net.tolerance),
+    /** Average the hidden layers of the last k outer iterations and re-solve the last layer on them (1 = no averaging). */
+    averageLast: z.number().int().min(1).max(100).default(net.averageLast),
     /** TensorFlow.js backend: auto = wasm where it loads and passes its check, else cpu. */
-    backend: z.enum(['auto', 'wasm', 'cpu']).default('auto'),
+    backend: z.enum(['auto', 'wasm', 'cpu']).default(net.backend),
   }),
 ]);
 

@@ -38,3 +38,11 @@ function denseLayer(h: tf.Tensor2D, w: tf.Tensor2D, b: tf.Tensor1D, activation: 
   if (activation === 'tanh') return tf.tanh(tf.fused.matMul({ a: h, b: w, bias: b })) as tf.Tensor2D;
   return tf.fused.matMul({ a: h, b: w, bias: b, activation }) as tf.Tensor2D;
 }
+
+/** h_L, the last hidden layer's output (rows×units_L): the features the output layer is linear in. Call inside tf.tidy. */
+export function hiddenFeatures(theta: tf.Tensor1D, layout: NetworkLayout, activation: NetworkActivation, x: tf.Tensor2D): tf.Tensor2D {
+  const { weights, biases } = unpackParameters(theta, layout);
+  let h = x;
+  for (let l = 0; l < layout.layers.length - 1; l++) h = denseLayer(h, weights[l], biases[l], activation);
+  return h;
+}

@@ -1,64 +1,94 @@
 /**
- * Fitted Q-evaluation with a neural network (Ernst, Geurts & Wehenkel, "Tree-based batch mode
- * reinforcement learning", JMLR 2005, with a network as the regressor; Riedmiller, "Neural fitted
- * Q iteration", ECML 2005): Q_k is the least-squares regression of
- *   y_k = r + γ(1 − done)·E_{a'~π(·|s')} Q_{k−1}(s', a')
- * on the standardised (s, a), by stepsPerIteration Adam steps warm-started from Q_{k−1}. Each
- * target is computed once, from a frozen copy of the previous network, with the same action
- * quadrature as the linear path (networkNextInputs.ts).
+ * Fitted Q-evaluation with a neural network, started from what the linear path already knows.
  *
- * Outcomes: 'maxIterations' (all outer iterations ran), 'converged' (the held-out Bellman error
- * stopped improving for `patience` iterations), 'diverged' (non-finite or exploding loss, or
- * values beyond what any policy can earn: the last network that passed the checks is kept) and
- * 'cancelled' (the last completed network is kept). With nothing completed to keep, cancellation
- * throws FqeCancelledError and divergence NetworkDivergedError.
+ * Q(s, a) = φ(z)ᵀ·v₁ + h_θ(z)ᵀ·v₂, z the standardised (s, a): φ the degree-2 polynomial features
+ * (networkLinearPart.ts), h_θ the last hidden layer of a fully connected network. Before any
+ * network training, v₂ = 0 and v₁ is the linear LSTD-Q fixed point, solved in milliseconds: the
+ * fit starts at the linear estimate. Each outer iteration then (networkIterations.ts) solves the
+ * last layer [v₁; v₂] by the LSTD-Q fixed point on the current features (Levine et al., "Shallow
+ * updates for deep reinforcement learning", NeurIPS 2017), which carries value over the whole
+ * horizon at once, and takes Adam steps on the regression of the Bellman targets
+ * y = r + γ E_{a'~π} Q(s', a') (fitted Q-iteration: Ernst, Geurts & Wehenkel, JMLR 2005; Riedmiller,
+ * ECML 2005), which moves the hidden features towards what the quadratic part misses.
+ *
+ * Outcomes: 'converged' (the stopping rule of networkConvergence.ts was met), 'maxIterations'
+ * (not converged: the iteration limit came first — the message says how far from settled),
+ * 'diverged' (values beyond what any policy can earn, a singular last-layer system, or an
+ * exploding loss: the last iterate that passed the checks is kept) and 'cancelled' (the last
+ * measured iterate is kept). With nothing measured to keep, cancellation throws
+ * FqeCancelledError and divergence NetworkDivergedError.
+ *
+ * Every value comes with an interval (estimate(); networkInterval.ts) and with the linear estimate
+ * it started from, on the same resamples, so the two can be compared (approximatorAgreement.ts).
  */
-import * as tf from '@tensorflow/tfjs';
 import type { ActionValueFunction } from '../actionValue';
 import type { GaussianPolicy } from '../policy';
 import type { TransitionSet } from '../transitions';
 import type { CancellationCheck } from './cancellation';
-import { FqeCancelledError } from './fqeErrors';
-import { createNetworkActionValue } from './networkActionValue';
-import { createFitSession, type FitSession } from './networkFitSession';
+import { FqeDataError } from './fqeErrors';
+import type { LinearActionValue } from './linearActionValue';
+import type { ConvergenceRule } from './networkConvergence';
+import { createFitSession } from './networkFitSession';
 import { checkNetworkFqeInput } from './networkFqeInput';
-import { runOuterIterations, type IterationRun } from './networkIterations';
-import { valueReachOnInputs } from './networkValueReach';
+import { runOuterIterations } from './networkIterations';
+import { solveLastLayer } from './networkLastLayer';
+import { defaultNetworkMethod, type NetworkMethod } from './networkMethod';
+import { finishNetworkFit } from './networkFitResult';
+import type { NetworkValueEstimate, EstimateOptions } from './networkValueEstimate';
 import type { NetworkFqeSettings } from './networkSettings';
-import { selectBackend, type BackendSelection, type TfBackendName } from './tfBackend';
-import { NetworkDivergedError } from './networkErrors';
+import { selectBackend, type TfBackendName } from './tfBackend';
+import type { NetworkWork } from './networkWork';
 
 export type { NetworkFqeSettings } from './networkSettings';
 
-export interface NetworkProgress {
-  readonly iteration: number; // outer iterations completed, 1-based
-  readonly outerIterations: number;
-  /** Mean minibatch squared error of the iteration, reward units². */
-  readonly loss: number;
-  /** Mean squared empirical Bellman residual of Q_k on held-out episodes (networkIterations.ts), reward units²; null without hold-out. */
+export interface NetworkIterationRecord {
+  readonly iteration: number; // 1-based
+  /** Mean minibatch squared error of the Adam steps that followed this iterate, reward units²; null for the last. */
+  readonly loss: number | null;
+  /** Mean squared Bellman residual of this iterate on held-out episodes, reward units²; null without hold-out. A diagnostic, not a stopping criterion. */
   readonly heldOutBellmanError: number | null;
-  /** Mean iteration time × iterations left (an upper estimate when early stopping is on). */
-  readonly remainingSeconds: number;
+  /** J of this iterate over the fit's start states (reward sense). */
+  readonly policyValue: number;
+  /** δ_k of networkConvergence.ts; null at the first iteration. */
+  readonly relativeChange: number | null;
+  /** γ/(1 − γ)·δ_k: how much of the value may still be moving; null at the first iteration. */
+  readonly remainingBound: number | null;
 }
 
-export interface NetworkIterationRecord {
-  readonly iteration: number;
-  readonly loss: number;
-  readonly heldOutBellmanError: number | null;
+export interface NetworkProgress extends NetworkIterationRecord {
+  readonly outerIterations: number;
+  /** Mean iteration time × iterations left (an upper estimate when the stopping rule ends the fit early). */
+  readonly remainingSeconds: number;
 }
 
 export type NetworkFitStatus = 'converged' | 'maxIterations' | 'diverged' | 'cancelled';
 
+export interface NetworkConvergence {
+  readonly rule: ConvergenceRule;
+  readonly converged: boolean;
+  /** Outer iterations measured. */
+  readonly iterations: number;
+  /** remainingBound of the kept iterate (null when only one was measured). */
+  readonly remainingBound: number | null;
+}
+
 export interface NetworkFit {
   /** Q(s, a) in reward units; evaluate runs the network in batches. */
   readonly actionValue: ActionValueFunction;
+  /** The linear (degree-2 polynomial) LSTD-Q fixed point the fit started from. */
+  readonly linearStart: LinearActionValue;
   readonly status: NetworkFitStatus;
   readonly message: string;
+  readonly convergence: NetworkConvergence;
   readonly history: readonly NetworkIterationRecord[];
   readonly backend: TfBackendName;
   readonly backendNote: string;
   readonly seed: number;
-  /** Frees the network's tensors; actionValue.evaluate throws afterwards. */
+  /** Time, Adam steps and FLOPs of the fit (networkWork.ts). */
+  readonly work: NetworkWork;
+  /** J over startStates (count×ds) with its interval, the linear estimate and their paired difference. */
+  estimate(startStates: Float64Array, options?: EstimateOptions): NetworkValueEstimate;
+  /** Frees the network's tensors; actionValue.evaluate and estimate throw afterwards. */
   dispose(): void;
 }
 
@@ -69,6 +99,10 @@ export interface NetworkFqeInput {
   readonly quadratureNodes: number; // per action dimension
   readonly seed: number;
   readonly settings: NetworkFqeSettings;
+  /** e×ds start states of J for progress and the stopping rule; default data.startStates. */
+  readonly startStates?: Float64Array;
+  /** Method choices (networkMethod.ts); the defaults were chosen on the battery. */
+  readonly method?: Partial<NetworkMethod>;
   readonly onProgress?: (progress: NetworkProgress) => void;
   /** Polled between gradient steps: a function or an AbortSignal-like { aborted }. */
   readonly isCancelled?: CancellationCheck;
@@ -78,65 +112,24 @@ export interface NetworkFqeInput {
 
 export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit> {
   checkNetworkFqeInput(input);
+  const started = performance.now();
+  const method = { ...defaultNetworkMethod, ...input.method };
   const selection = await selectBackend(input.settings.backend, input.wasmPath);
-  const session = createFitSession(input);
+  const session = createFitSession({ ...input, method });
   try {
-    const run = await runOuterIterations(session, input, selection.backend);
-    try {
-      return finishFit(session, input, selection, run);
-    } finally {
-      run.lastGood?.theta.dispose();
-    }
+    const linearStart = solveLastLayer(session.linearTotal.sums, session.linearTotal.dim, session.linearTotal.dim, 0);
+    if ('failure' in linearStart) throw new FqeDataError(`the linear (degree-2) fixed point the network starts from does not exist: ${linearStart.failure}`);
+    const { settings } = input;
+    const run = await runOuterIterations(session, {
+      startStates: input.startStates ?? input.data.startStates, stateDim: input.data.stateDim, tolerance: settings.tolerance,
+      outerIterations: settings.outerIterations, patience: settings.patience, stepsPerIteration: settings.stepsPerIteration, learningRate: settings.learningRate,
+      isCancelled: input.isCancelled,
+      onProgress: input.onProgress && ((record, remainingSeconds) => input.onProgress!({ ...record, outerIterations: settings.outerIterations, remainingSeconds })),
+    }, selection.backend, linearStart.weights);
+    const fit = finishNetworkFit(session, run, { input, selection, linearWeights: linearStart.weights });
+    run.work.seconds = (performance.now() - started) / 1000;
+    return fit;
   } finally {
     session.dispose();
   }
-}
-
-/** Picks the network to keep (averaged, or the last good one), checks it, and wraps it. */
-function finishFit(session: FitSession, input: NetworkFqeInput, selection: BackendSelection, run: IterationRun): NetworkFit {
-  const kept = run.stop.kind === 'diverged' ? lastGoodNetwork(run, run.stop.message) : finalNetwork(session, run);
-  const actionValue = createNetworkActionValue({
-    theta: kept.theta, layout: session.layout, activation: input.settings.activation, standardiser: session.standardiser,
-    output: session.output, backend: selection.backend, stateDim: input.data.stateDim, actionDim: input.data.actionDim,
-  });
-  return {
-    actionValue, status: kept.status, message: kept.message, history: run.history,
-    backend: selection.backend, backendNote: selection.note, seed: input.seed,
-    dispose: () => actionValue.dispose(),
-  };
-}
-
-interface KeptNetwork {
-  readonly theta: tf.Tensor1D; // a new tensor, handed to the action-value function
-  readonly status: NetworkFitStatus;
-  readonly message: string;
-}
-
-/** The average of the last completed iterations, if its values stay within the limit. */
-function finalNetwork(session: FitSession, run: IterationRun): KeptNetwork {
-  const { average } = session;
-  if (average.count === 0) {
-    throw new FqeCancelledError('network FQE was cancelled before its first outer iteration completed, so there is no network to keep');
-  }
-  const theta = average.mean();
-  const reach = valueReachOnInputs(theta, session);
-  if (!(reach <= session.valueLimit)) {
-    theta.dispose();
-    const reason = `Stopped after the last iteration: the final network predicts |Q| up to ${reach.toPrecision(4)} on the data, beyond the limit ${session.valueLimit.toPrecision(4)} that no policy's value can reach.`;
-    return lastGoodNetwork(run, reason);
-  }
-  const averaged = average.count > 1 ? ` Weights averaged over the last ${average.count} outer iterations.` : '';
-  return { theta, status: run.stop.kind, message: run.stop.message + averaged };
-}
-
-/** After divergence: the newest network that passed the checks, or NetworkDivergedError if there is none. */
-function lastGoodNetwork(run: IterationRun, reason: string): KeptNetwork {
-  if (!run.lastGood) {
-    throw new NetworkDivergedError(`network FQE diverged before any network passed its checks. ${reason} Lower learningRate (e.g. by 10×) or check the rewards for outliers.`);
-  }
-  const advice = 'a lower learningRate may avoid the divergence';
-  return {
-    theta: tf.clone(run.lastGood.theta), status: 'diverged',
-    message: `${reason} Kept the network of iteration ${run.lastGood.iteration}, the last that passed the checks; ${advice}.`,
-  };
 }

@@ -1,16 +1,27 @@
 /**
- * The outer loop of network FQE: per iteration k, freeze Q_{k−1}, compute its targets once,
- * check its values, train Q_k on them, measure the held-out Bellman error, report, and decide
- * whether to stop. See networkFqe.ts for the method and the meaning of each outcome.
+ * The outer loop of network FQE. Iteration k, on the current network θ_k:
+ *   1. hidden features of the training rows and their next-state averages (networkHiddenFeatures.ts);
+ *   2. the last layer: by the LSTD-Q fixed point over [quadratic part, hidden features]
+ *      (networkLastLayer.ts), or, with method.lastLayer = 'gradient', as Adam left it on top of the
+ *      fixed linear fixed point;
+ *   3. J_k over the start states and Q_k on the probe rows, the divergence checks, and the
+ *      stopping rule (networkConvergence.ts);
+ *   4. unless stopping: Adam steps on the regression of the Bellman targets of Q_k,
+ *      y = r + γ E_{a'~π} Q_k(s', a'), which move the features (and give θ_{k+1}).
+ * See networkFqe.ts for the outcomes.
  */
 import * as tf from '@tensorflow/tfjs';
 import { FqeCancelledError } from './fqeErrors';
+import { convergenceRule, hasConverged, iterationChange, type ConvergenceRule, type IterationValues } from './networkConvergence';
 import type { FitSession } from './networkFitSession';
-import type { NetworkFqeInput, NetworkIterationRecord } from './networkFqe';
-import { networkOutput } from './networkForward';
-import { bellmanTargets, type BellmanTargets } from './networkNextInputs';
+import type { NetworkIterationRecord } from './networkFqe';
+import { hiddenFeatureRows, type HiddenFeatureRows } from './networkHiddenFeatures';
+import { lastLayerTotals } from './networkLastLayerSums';
+import { solveLastLayer } from './networkLastLayer';
+import { currentWeights, setOutputLayer, type LastLayer } from './networkOutputLayer';
 import { createPacer, trainSteps, type TrainingGuard } from './networkTrainer';
-import { valueReach } from './networkValueReach';
+import { adamStepFlop, featurePassFlop, lastLayerSumsFlop, newWork, type NetworkWork } from './networkWork';
+import { measureIterate, regressionTargets, heldOutBellmanError } from './networkIterateValues';
 import { requireActiveBackend, type TfBackendName } from './tfBackend';
 
 export interface IterationStop {
@@ -18,119 +29,161 @@ export interface IterationStop {
   readonly message: string;
 }
 
+/** A measured iterate: hidden layers θ (a tensor owned by whoever holds this) and its last layer. */
+export interface KeptIterate {
+  readonly theta: tf.Tensor1D;
+  readonly lastLayer: LastLayer;
+  readonly iteration: number;
+}
+
 export interface IterationRun {
   readonly history: NetworkIterationRecord[];
   readonly stop: IterationStop;
-  /** The newest Q_j (j ≥ 1) whose values passed the check, owned by the caller; null if none yet. */
-  readonly lastGood: { readonly theta: tf.Tensor1D; readonly iteration: number } | null;
+  /** The newest iterate that passed the checks (the final one unless diverged), owned by the caller; null if none. */
+  readonly kept: KeptIterate | null;
+  readonly rule: ConvergenceRule;
+  readonly work: NetworkWork;
+}
+
+export interface LoopInput {
+  readonly startStates: Float64Array;
+  readonly stateDim: number;
+  readonly tolerance: number;
+  readonly outerIterations: number;
+  readonly patience: number;
+  readonly stepsPerIteration: number;
+  readonly learningRate: number;
+  readonly onProgress?: (record: NetworkIterationRecord, remainingSeconds: number) => void;
+  readonly isCancelled?: TrainingGuard['cancel'];
 }
 
 interface LoopState {
   readonly history: NetworkIterationRecord[];
-  lastGood: { theta: tf.Tensor1D; iteration: number } | null;
-  best: { error: number; iteration: number } | null;
-  sinceBest: number;
+  kept: KeptIterate | null;
+  readonly iterates: IterationValues[];
+  readonly work: NetworkWork;
+  /** The quadratic part's weights the gradient mode keeps fixed (the linear fixed point). */
+  readonly linearStart: Float64Array;
 }
 
 /** Yield to the event loop about this often, so cancellation and progress can get through. */
 const PACE_MS = 50;
 
-export async function runOuterIterations(s: FitSession, input: NetworkFqeInput, backend: TfBackendName): Promise<IterationRun> {
-  const { outerIterations, patience } = input.settings;
-  const state: LoopState = { history: [], lastGood: null, best: null, sinceBest: 0 };
+export async function runOuterIterations(s: FitSession, input: LoopInput, backend: TfBackendName, linearStart: Float64Array): Promise<IterationRun> {
+  const rule = convergenceRule(s.discount, input.tolerance, input.patience);
+  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork() };
   const guard: TrainingGuard = {
     lossLimit: ((2 * s.valueLimit) / s.output.scale) ** 2, cancel: input.isCancelled, pace: createPacer(PACE_MS),
     checkBackend: () => requireActiveBackend(backend, 'network FQE'),
   };
-  const run = (stop: IterationStop): IterationRun => ({ history: state.history, stop, lastGood: state.lastGood });
+  const run = (stop: IterationStop): IterationRun => ({ history: state.history, stop, kept: state.kept, rule, work: state.work });
   const started = performance.now();
   try {
-    for (let k = 1; k <= outerIterations; k++) {
-      const stop = await outerIteration(s, k, state, guard, input.settings.stepsPerIteration);
+    for (let k = 1; k <= input.outerIterations; k++) {
+      const stop = await outerIteration(s, k, state, guard, input, rule);
+      const remainingSeconds = ((performance.now() - started) / 1000 / k) * (input.outerIterations - k);
+      if (state.history.length === k) input.onProgress?.(state.history[k - 1], remainingSeconds);
       if (stop) return run(stop);
-      const record = state.history[k - 1];
-      const remainingSeconds = ((performance.now() - started) / 1000 / k) * (outerIterations - k);
-      input.onProgress?.({ ...record, outerIterations, remainingSeconds });
-      if (patience > 0 && state.best && state.sinceBest >= patience) {
-        return run({ kind: 'converged', message: `Stopped early after outer iteration ${k} of ${outerIterations}: the held-out Bellman error has not improved for ${patience} iterations (best ${state.best.error.toPrecision(4)} at iteration ${state.best.iteration}).` });
-      }
     }
-    return run({ kind: 'maxIterations', message: `Ran all ${outerIterations} outer iterations${bestSummary(state)}.` });
+    throw new Error('network FQE: the outer loop ended without a stopping decision'); // unreachable: the last iteration stops
   } catch (error) {
     if (error instanceof FqeCancelledError) return run({ kind: 'cancelled', message: `Cancelled during outer iteration ${state.history.length + 1}.` });
-    state.lastGood?.theta.dispose();
+    state.kept?.theta.dispose();
     throw error;
   }
 }
 
 /** One outer iteration; returns why to stop, or null to go on. */
-async function outerIteration(s: FitSession, k: number, state: LoopState, guard: TrainingGuard, steps: number): Promise<IterationStop | null> {
-  const frozen = tf.clone(s.net.theta); // Q_{k−1}
-  let kept = false, targets: BellmanTargets | null = null;
+async function outerIteration(s: FitSession, k: number, state: LoopState, guard: TrainingGuard, input: LoopInput, rule: ConvergenceRule): Promise<IterationStop | null> {
+  guard.checkBackend();
+  const features = hiddenFeatureRows(s.net.theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
+  countFeatureWork(s, state.work);
   try {
-    guard.checkBackend();
-    targets = bellmanTargets(frozen, s.layout, s.net.activation, s.next.training, s.rows.training.base);
-    const reach = valueReach(s.output, targets.smallestNextOutput, targets.largestNextOutput);
-    if (!(reach <= s.valueLimit)) {
-      return diverged(k, `the network of iteration ${k - 1} predicts |Q| up to ${reach.toPrecision(4)} at next states, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy's value can reach`);
+    const lastLayer = lastLayerOf(s, features, state);
+    if ('failure' in lastLayer) return diverged(k, lastLayer.failure);
+    if (s.method.lastLayer === 'leastSquares') setOutputLayer(s.net.theta, s.layout, lastLayer, s.output.scale);
+    const values = measureIterate(s, lastLayer, input.startStates, input.stateDim);
+    if (!(values.reach <= s.valueLimit)) {
+      return diverged(k, `the values reach |Q| = ${values.reach.toPrecision(4)}, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy's value can reach`);
     }
-    if (k > 1) {
-      state.lastGood?.theta.dispose();
-      state.lastGood = { theta: frozen, iteration: k - 1 };
-      kept = true;
+    state.iterates.push({ policyValue: values.policyValue, probe: values.probe });
+    const change = iterationChange(rule, state.iterates);
+    state.history.push({
+      iteration: k, loss: null, heldOutBellmanError: heldOutBellmanError(s, lastLayer),
+      policyValue: values.policyValue, relativeChange: change.relativeChange, remainingBound: change.remainingBound,
+    });
+    state.kept?.theta.dispose();
+    state.kept = { theta: tf.clone(s.net.theta), lastLayer, iteration: k };
+    const bounds = state.history.map((h) => h.remainingBound);
+    if (hasConverged(rule, bounds)) return { kind: 'converged', message: convergedMessage(rule, k) };
+    if (k === input.outerIterations) return { kind: 'maxIterations', message: notConvergedMessage(rule, state.history) };
+    const targets = regressionTargets(s, features, lastLayer, s.method.lastLayer === 'gradient' ? state.linearStart : lastLayer.linear);
+    try {
+      setLearningRate(s, input.learningRate * learningRateFactor(s.method, k));
+      s.batches.setTargets(targets);
+      const trainingStarted = performance.now();
+      const outcome = await trainSteps(s.net, s.batches, input.stepsPerIteration, guard);
+      state.work.stepSeconds += (performance.now() - trainingStarted) / 1000;
+      state.work.adamSteps += input.stepsPerIteration;
+      state.work.flop += input.stepsPerIteration * adamStepFlop(s.layout, s.batches.batchSize);
+      if (outcome.kind !== 'completed') {
+        const what = outcome.kind === 'nonFinite' ? 'not finite' : `above ${guard.lossLimit.toPrecision(3)} (exploding)`;
+        return diverged(k, `the minibatch loss at step ${outcome.step} was ${outcome.loss} in network units, ${what}`);
+      }
+      state.history[k - 1] = { ...state.history[k - 1], loss: outcome.meanLoss * s.output.scale ** 2 };
+      s.average.add(s.net.theta);
+    } finally {
+      targets.dispose();
     }
-    s.batches.setTargets(targets.targets);
-    const outcome = await trainSteps(s.net, s.batches, steps, guard);
-    if (outcome.kind !== 'completed') {
-      const what = outcome.kind === 'nonFinite' ? 'not finite' : `above ${guard.lossLimit.toPrecision(3)} (exploding)`;
-      return diverged(k, `the minibatch loss at step ${outcome.step} was ${outcome.loss} in network units, ${what}`);
-    }
-    s.average.add(s.net.theta);
-    record(state, k, outcome.meanLoss * s.output.scale ** 2, heldOutBellmanError(s));
     return null;
   } finally {
-    targets?.targets.dispose();
-    if (!kept) frozen.dispose();
+    features.dispose();
   }
+}
+
+function countFeatureWork(s: FitSession, work: NetworkWork): void {
+  const n = s.rows.training.transitions.length, dh = s.layout.layers[s.layout.layers.length - 1].inputs;
+  work.flop += featurePassFlop(s.layout, n * (1 + s.next.training.pointsPerState));
+  if (s.method.lastLayer === 'leastSquares') work.flop += lastLayerSumsFlop(n, s.linearTotal.dim, dh);
+}
+
+/** The last layer of this iterate: solved (least squares) or read from θ on top of the fixed linear start (gradient). */
+function lastLayerOf(s: FitSession, features: HiddenFeatureRows, state: LoopState): LastLayer | { failure: string } {
+  if (s.method.lastLayer === 'gradient') return currentWeights(s.net.theta, s.layout, state.linearStart, s.output.scale);
+  const sums = lastLayerTotals(s.linear.training.tensors, features, s.linearTotal);
+  const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, s.method.hiddenRidge);
+  if ('failure' in solved) return solved;
+  return { linear: solved.weights.slice(0, sums.linearDim), hidden: solved.weights.slice(sums.linearDim) };
+}
+
+/** The Adam step size after iterate k (networkMethod.ts: constant, then a geometric decay to a floor). */
+export function learningRateFactor(method: FitSession['method'], k: number): number {
+  const { after, factor, floor } = method.learningRateDecay;
+  return Math.max(floor, factor ** Math.max(0, k - after));
+}
+
+function setLearningRate(s: FitSession, rate: number): void {
+  (s.net.optimizer as unknown as { learningRate: number }).learningRate = rate;
 }
 
 function diverged(k: number, reason: string): IterationStop {
   return { kind: 'diverged', message: `Stopped at outer iteration ${k}: ${reason}.` };
 }
 
-/**
- * Mean over held-out transitions of the empirical Bellman residual of the current network,
- * (Q_k(s, a) − r − γ(1 − done)·E_{a'~π} Q_k(s', a'))², reward units²; null without hold-out.
- * Q_k's own residual, not its error against the frozen target y_k: that error mostly measures
- * the spread of y_k, which grows as the iterates pick up the value's variation, so it rises
- * while the fit improves; the own residual falls as Q_k approaches its fixed point and levels
- * off at the noise of r + γV(s').
- */
-function heldOutBellmanError(s: FitSession): number | null {
-  const rows = s.rows.heldOut, next = s.next.heldOut;
-  if (!rows || !next) return null;
-  const { targets } = bellmanTargets(s.net.theta, s.layout, s.net.activation, next, rows.base);
-  const meanSquare = tf.tidy(() => {
-    const q = networkOutput(s.net.theta, s.layout, s.net.activation, rows.inputs);
-    return tf.mean(tf.squaredDifference(tf.reshape(q, [-1]), targets)).dataSync()[0];
-  });
-  targets.dispose();
-  return meanSquare * s.output.scale ** 2;
+function convergedMessage(rule: ConvergenceRule, k: number): string {
+  return `Converged at outer iteration ${k}: between the last two windows of ${rule.window} iterations, J and Q on the probe rows drifted so little ` +
+    `that, for a contraction at γ = ${rule.discount}, at most ${percent(rule.tolerance)} of the value can still be moving.`;
 }
 
-function record(state: LoopState, iteration: number, loss: number, heldOutBellmanError: number | null): void {
-  state.history.push({ iteration, loss, heldOutBellmanError });
-  if (heldOutBellmanError === null) return;
-  if (!state.best || heldOutBellmanError < state.best.error) {
-    state.best = { error: heldOutBellmanError, iteration };
-    state.sinceBest = 0;
-  } else {
-    state.sinceBest++;
-  }
+function notConvergedMessage(rule: ConvergenceRule, history: readonly NetworkIterationRecord[]): string {
+  const last = history[history.length - 1];
+  const bound = last.remainingBound === null ? 'unknown' : percent(last.remainingBound);
+  if (rule.window === 0) return `Ran all ${history.length} outer iterations (stopping rule off: patience 0), so convergence was not judged.`;
+  return `Not converged: stopped at the limit of ${history.length} outer iterations while J and Q were still changing ` +
+    `(the last drift allows up to ${bound} of further movement; the rule asks at most ${percent(rule.tolerance)}, judged on windows of ${rule.window} iterations). ` +
+    'More outer iterations, or a smaller learning rate, may settle it.';
 }
 
-function bestSummary(state: LoopState): string {
-  const last = state.history[state.history.length - 1]?.heldOutBellmanError;
-  if (last === null || last === undefined || !state.best) return '';
-  return `; held-out Bellman error ${last.toPrecision(4)} at the end, best ${state.best.error.toPrecision(4)} at iteration ${state.best.iteration}`;
+function percent(x: number): string {
+  return `${(100 * x).toPrecision(2)} %`;
 }

@@ -17,12 +17,14 @@ export interface NetworkFqeSettings {
   batchSize: number;
   /** Adam steps on each frozen regression target. */
   stepsPerIteration: number;
-  /** Outer fitted-Q iterations; each recomputes the target from the previous network. */
+  /** Most outer iterations; each solves the last layer and recomputes the targets. */
   outerIterations: number;
-  /** Fraction of whole episodes held out to measure the Bellman error; 0 turns early stopping off. */
+  /** Fraction of whole episodes held out (not trained on) to report a held-out Bellman error; a diagnostic only. */
   heldOutFraction: number;
-  /** Stop after this many outer iterations without held-out improvement; 0 = never. */
+  /** Window of the stopping rule, in outer iterations (networkConvergence.ts): it judges the drift between two windows; 0 = never stop early. */
   patience: number;
+  /** Stopping rule: the largest share of the value that may still be moving, γ/(1 − γ)·(relative change per iteration). */
+  tolerance: number;
   /** Average the weights of the last k outer iterations' networks (1 = no averaging). */
   averageLast: number;
   backend: NetworkBackendPreference;
@@ -30,15 +32,16 @@ export interface NetworkFqeSettings {
 
 /** The defaults of the project schema (src/project/schema.ts, approximator kind "network"). */
 export const defaultNetworkSettings: Readonly<NetworkFqeSettings> = Object.freeze({
-  hiddenLayers: [64, 64],
+  hiddenLayers: [64, 32],
   activation: 'relu',
   learningRate: 1e-3,
   batchSize: 512,
-  stepsPerIteration: 100,
-  outerIterations: 100,
-  heldOutFraction: 0.1,
-  patience: 8,
-  averageLast: 1,
+  stepsPerIteration: 150,
+  outerIterations: 40,
+  heldOutFraction: 0,
+  patience: 5,
+  tolerance: 0.01,
+  averageLast: 5,
   backend: 'auto',
 });
 
@@ -63,6 +66,7 @@ export function checkNetworkSettings(s: NetworkFqeSettings): void {
     throw new FqeOptionsError(`heldOutFraction: expected a fraction from 0 to 0.5, got ${s.heldOutFraction}`);
   }
   wholeNumber('patience', s.patience, 0, 10_000);
+  if (!(s.tolerance > 0 && s.tolerance <= 1)) throw new FqeOptionsError(`tolerance: expected a fraction above 0 and at most 1, got ${s.tolerance}`);
   wholeNumber('averageLast', s.averageLast, 1, 100);
   if (!BACKENDS.includes(s.backend)) throw new FqeOptionsError(`backend: expected one of ${BACKENDS.join(', ')}, got ${String(s.backend)}`);
 }

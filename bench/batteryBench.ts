@@ -1,0 +1,106 @@
+/**
+ * The full battery sweep (`npm run bench -- battery [options]`): for every battery plant
+ * (test/battery), candidate and seed, simulate a log, fit the network approximator with its
+ * default settings, and compare its J — and the linear degree-2 estimate it starts from (the
+ * LSTD-Q fixed point on the same data) — with the plant's known answer on both start sets.
+ * Prints, per plant, candidate and start set: truth, mean error %, largest |error| %, how often the
+ * 90 % interval held the truth, and for the network its convergence, time per fit, Adam steps/s
+ * and GFLOP/s. Results also go to test-artifacts/battery-<time>.json.
+ *
+ * Options: --seeds 20  --transitions 100000  --plants name,name  --candidates all|first
+ *          --settings '{"outerIterations": 60}'  --method '{"lastLayer": "gradient"}'  --cpu
+ * Seeds: the data of seed s is simulated with seed s and the network is fitted with seed s.
+ * Run it under `nice`; it takes about a minute of CPU per fit.
+ */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { fitNetworkFqe } from '../src/core/fqe/networkFqe';
+import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
+import { createGaussianPolicy } from '../src/core/policy';
+import { batteryPlants } from '../test/battery/catalogue';
+import type { BatteryPlant } from '../test/battery/batteryPlant';
+import { printBatteryTable, type FitRecord } from './batteryTable';
+
+const wasmPath = fileURLToPath(new URL('../node_modules/@tensorflow/tfjs-backend-wasm/dist/', import.meta.url));
+
+interface Options {
+  seeds: number;
+  transitions: number;
+  plants: string[] | null;
+  candidates: 'all' | 'first';
+  settings: Record<string, unknown>;
+  method: Record<string, unknown>;
+  backend: 'auto' | 'cpu';
+}
+
+function parseOptions(args: string[]): Options {
+  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto' };
+  for (let i = 0; i < args.length; i++) {
+    const value = () => args[++i];
+    if (args[i] === '--seeds') o.seeds = Number(value());
+    else if (args[i] === '--transitions') o.transitions = Number(value());
+    else if (args[i] === '--plants') o.plants = value().split(',');
+    else if (args[i] === '--candidates') o.candidates = value() === 'first' ? 'first' : 'all';
+    else if (args[i] === '--settings') o.settings = JSON.parse(value());
+    else if (args[i] === '--method') o.method = JSON.parse(value());
+    else if (args[i] === '--cpu') o.backend = 'cpu';
+    else throw new Error(`battery bench: unknown option ${args[i]}`);
+  }
+  return o;
+}
+
+async function fitOne(plant: BatteryPlant, candidate: number, seed: number, o: Options): Promise<FitRecord[]> {
+  const c = plant.candidates[candidate], sets = plant.startSets();
+  const data = plant.simulate({ transitions: o.transitions, seed });
+  const policy = createGaussianPolicy(c.spec, plant.stateDim);
+  const cpuStart = process.cpuUsage();
+  const fit = await fitNetworkFqe({
+    data, policy, discount: plant.discount, quadratureNodes: 10, seed, wasmPath, startStates: sets[0].states,
+    settings: { ...defaultNetworkSettings, backend: o.backend, ...o.settings }, method: o.method,
+  });
+  const cpu = process.cpuUsage(cpuStart);
+  try {
+    return sets.map((set) => {
+      const e = fit.estimate(set.states, { startsFollowEpisodes: false });
+      return {
+        plant: plant.name, candidate: c.name, startSet: set.name, seed, truth: plant.truth(c.name, set.name),
+        network: { value: e.value, lower: e.interval.lower, upper: e.interval.upper },
+        linear: { value: e.linear.value, lower: e.linear.interval.lower, upper: e.linear.interval.upper },
+        difference: { value: e.difference.value, lower: e.difference.interval.lower, upper: e.difference.interval.upper },
+        status: fit.status, iterations: fit.history.length, seconds: fit.work.seconds, cpuSeconds: (cpu.user + cpu.system) / 1e6,
+        adamSteps: fit.work.adamSteps, stepSeconds: fit.work.stepSeconds, flop: fit.work.flop, backend: fit.backend,
+      };
+    });
+  } finally {
+    fit.dispose();
+  }
+}
+
+export async function runBatteryBench(args: string[]): Promise<void> {
+  const o = parseOptions(args);
+  const plants = batteryPlants().filter((p) => !o.plants || o.plants.includes(p.name));
+  if (plants.length === 0) throw new Error(`battery bench: no plant matches ${o.plants?.join(', ')}; have ${batteryPlants().map((p) => p.name).join(', ')}`);
+  console.log(`battery sweep: ${plants.length} plants, ${o.seeds} seeds, ${o.transitions.toLocaleString('en-US')} transitions, settings ${JSON.stringify(o.settings)}, method ${JSON.stringify(o.method)}`);
+  const records: FitRecord[] = [];
+  for (const plant of plants) {
+    const candidates = o.candidates === 'first' ? [0] : plant.candidates.map((_, i) => i);
+    for (const candidate of candidates) {
+      for (let seed = 1; seed <= o.seeds; seed++) {
+        const fitted = await fitOne(plant, candidate, seed, o);
+        records.push(...fitted);
+        const f = fitted[0], err = (x: number) => `${(100 * (x - f.truth.value) / Math.abs(f.truth.value)).toFixed(2)} %`;
+        console.log(`  ${plant.name} ${f.candidate} seed ${seed}: network ${err(f.network.value)}, linear ${err(f.linear.value)} (${f.startSet}), ${f.status} after ${f.iterations}, ${f.seconds.toFixed(1)} s`);
+      }
+    }
+  }
+  printBatteryTable(records);
+  const folder = fileURLToPath(new URL('../test-artifacts/', import.meta.url));
+  mkdirSync(folder, { recursive: true });
+  const file = `${folder}battery-${new Date().toISOString().replace(/[:.]/g, '-')}.json`;
+  writeFileSync(file, JSON.stringify({ options: o, records }, null, 1));
+  console.log(`\nrecords written to ${file}`);
+}
+
+if (process.argv[1] && fileURLToPath(import.meta.url) === process.argv[1]) {
+  await runBatteryBench(process.argv.slice(2));
+}

@@ -1,0 +1,75 @@
+/**
+ * The battery sweep's table: one row per plant, candidate and start set, linear (degree 2) and
+ * network side by side. Errors are relative to |truth|; coverage is the share of seeds whose 90 %
+ * interval held the truth (a rollout truth's own standard error is small against these intervals:
+ * see the truth column). Throughput: Adam steps per second of training time, and GFLOP/s of the
+ * counted matrix products over the whole fit (networkWork.ts).
+ */
+import type { BatteryTruth } from '../test/battery/batteryPlant';
+
+export interface Estimate {
+  value: number;
+  lower: number;
+  upper: number;
+}
+
+export interface FitRecord {
+  plant: string;
+  candidate: string;
+  startSet: string;
+  seed: number;
+  truth: BatteryTruth;
+  network: Estimate;
+  linear: Estimate;
+  difference: Estimate;
+  status: string;
+  iterations: number;
+  seconds: number;
+  cpuSeconds: number;
+  adamSteps: number;
+  stepSeconds: number;
+  flop: number;
+  backend: string;
+}
+
+interface Summary {
+  mean: number;
+  largest: number;
+  coverage: number;
+}
+
+function summarise(records: FitRecord[], pick: (r: FitRecord) => Estimate): Summary {
+  const errors = records.map((r) => (pick(r).value - r.truth.value) / Math.abs(r.truth.value));
+  const covered = records.filter((r) => pick(r).lower <= r.truth.value && r.truth.value <= pick(r).upper).length;
+  return {
+    mean: errors.reduce((a, b) => a + b, 0) / errors.length,
+    largest: errors.reduce((a, b) => Math.max(a, Math.abs(b)), 0),
+    coverage: covered / records.length,
+  };
+}
+
+const pct = (x: number) => `${(100 * x).toFixed(2)}`.padStart(7);
+const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
+
+export function printBatteryTable(records: FitRecord[]): void {
+  const groups = new Map<string, FitRecord[]>();
+  for (const r of records) {
+    const key = `${r.plant}|${r.candidate}|${r.startSet}`;
+    groups.set(key, [...(groups.get(key) ?? []), r]);
+  }
+  console.log('\nplant / candidate / start set                    truth (±SE)        | linear deg 2: mean%  |max|%  cover | network: mean%  |max|%  cover  conv  iters  s/fit  cpu s  steps/s  GFLOP/s');
+  for (const [key, rs] of groups) {
+    const [plant, candidate, startSet] = key.split('|');
+    const t = rs[0].truth, lin = summarise(rs, (r) => r.linear), net = summarise(rs, (r) => r.network);
+    const converged = rs.filter((r) => r.status === 'converged').length / rs.length;
+    const stepsPerSecond = mean(rs.map((r) => r.adamSteps / Math.max(r.stepSeconds, 1e-9)));
+    const gflops = mean(rs.map((r) => r.flop / r.seconds / 1e9));
+    const truth = `${t.value.toPrecision(5)}${t.standardError > 0 ? ` ±${t.standardError.toPrecision(2)}` : ' exact'}`;
+    console.log(
+      `${`${plant} / ${candidate} / ${startSet}`.padEnd(48)} ${truth.padEnd(18)} | ${pct(lin.mean)} ${pct(lin.largest)} ${pct(lin.coverage).slice(1)} |` +
+      ` ${pct(net.mean)} ${pct(net.largest)} ${pct(net.coverage).slice(1)} ${pct(converged).slice(1)} ${mean(rs.map((r) => r.iterations)).toFixed(1).padStart(5)}` +
+      ` ${mean(rs.map((r) => r.seconds)).toFixed(1).padStart(6)} ${mean(rs.map((r) => r.cpuSeconds)).toFixed(1).padStart(6)} ${stepsPerSecond.toFixed(0).padStart(8)} ${gflops.toFixed(2).padStart(8)}`,
+    );
+  }
+  console.log(`(${records.length / 2} fits; errors in % of |truth|; cover = share of seeds whose 90 % interval holds the truth; conv = share with status "converged"; backend ${records[0]?.backend})`);
+}

@@ -1,0 +1,156 @@
+/**
+ * From the outer loop's run to the NetworkFit a caller holds: the iterate to keep (the last one
+ * measured, the average of the last few when averageLast > 1, or the last good one after a
+ * divergence), its per-episode last-layer systems for intervals, and the action-value functions.
+ */
+import * as tf from '@tensorflow/tfjs';
+import { createActionQuadrature } from '../actionQuadrature';
+import { FqeCancelledError } from './fqeErrors';
+import { linearActionValue } from './linearActionValue';
+import { createNetworkActionValue } from './networkActionValue';
+import { NetworkDisposedError, NetworkDivergedError } from './networkErrors';
+import type { FitSession } from './networkFitSession';
+import type { NetworkFit, NetworkFitStatus, NetworkFqeInput } from './networkFqe';
+import { hiddenFeatureRows } from './networkHiddenFeatures';
+import { valueReplicates, type EpisodeSystems } from './networkInterval';
+import { featureNetwork, jointWeights } from './networkIterateValues';
+import type { IterationRun } from './networkIterations';
+import { episodeLastLayerSums, lastLayerTotals } from './networkLastLayerSums';
+import { solveLastLayer } from './networkLastLayer';
+import type { LastLayer } from './networkOutputLayer';
+import { INTERVAL_COVERS, valueInterval, type EstimateOptions, type NetworkValueEstimate } from './networkValueEstimate';
+import { jointRowsAt, meanRow, rowValues, startFeatureRows } from './networkValueRows';
+import type { BackendSelection } from './tfBackend';
+
+export interface FinishContext {
+  readonly input: NetworkFqeInput;
+  readonly selection: BackendSelection;
+  /** The linear (degree-2) fixed point the fit started from, d1. */
+  readonly linearWeights: Float64Array;
+}
+
+interface FinalIterate {
+  readonly theta: tf.Tensor1D; // owned here
+  readonly lastLayer: LastLayer;
+  readonly status: NetworkFitStatus;
+  readonly message: string;
+}
+
+export function finishNetworkFit(s: FitSession, run: IterationRun, ctx: FinishContext): NetworkFit {
+  const final = chooseFinal(s, run);
+  try {
+    const systems = episodeSystems(s, final.theta);
+    return assemble(s, run, ctx, final, systems);
+  } catch (error) {
+    final.theta.dispose();
+    throw error;
+  } finally {
+    if (run.kept && run.kept.theta !== final.theta) run.kept.theta.dispose();
+  }
+}
+
+function chooseFinal(s: FitSession, run: IterationRun): FinalIterate {
+  const { stop, kept } = run;
+  if (!kept) {
+    if (stop.kind === 'cancelled') throw new FqeCancelledError('network FQE was cancelled before its first outer iteration completed, so there is no network to keep');
+    throw new NetworkDivergedError(`network FQE diverged before any iterate passed its checks. ${stop.message} Lower learningRate (e.g. by 10×) or check the rewards for outliers.`);
+  }
+  if (stop.kind === 'diverged') {
+    const message = `${stop.message} Kept iterate ${kept.iteration}, the last that passed the checks; a lower learningRate may avoid the divergence.`;
+    return { theta: kept.theta, lastLayer: kept.lastLayer, status: 'diverged', message };
+  }
+  const averaged = stop.kind !== 'cancelled' ? averagedIterate(s) : null;
+  if (averaged) return { ...averaged, status: stop.kind, message: `${stop.message} Hidden layers averaged over the last ${s.average.count} iterations, last layer re-solved on them.` };
+  return { theta: kept.theta, lastLayer: kept.lastLayer, status: stop.kind, message: stop.message };
+}
+
+/** With averageLast > 1 (least-squares last layer only): the average θ, its last layer re-solved; null when not applicable or not sound. */
+function averagedIterate(s: FitSession): { theta: tf.Tensor1D; lastLayer: LastLayer } | null {
+  if (s.average.count < 2 || s.method.lastLayer !== 'leastSquares') return null;
+  const theta = s.average.mean();
+  const features = hiddenFeatureRows(theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
+  try {
+    const sums = lastLayerTotals(s.linear.training.tensors, features, s.linearTotal);
+    const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, s.method.hiddenRidge);
+    if (!('failure' in solved)) {
+      const lastLayer = { linear: solved.weights.slice(0, sums.linearDim), hidden: solved.weights.slice(sums.linearDim) };
+      const probe = rowValues(jointRowsAt(featureNetwork(s, theta), s.probe.inputs, s.probe.linear), jointWeights(lastLayer), sums.dim);
+      const reach = probe.reduce((r, q) => Math.max(r, Math.abs(q)), 0);
+      if (reach <= s.valueLimit) return { theta, lastLayer };
+    }
+  } finally {
+    features.dispose();
+  }
+  theta.dispose();
+  return null;
+}
+
+function episodeSystems(s: FitSession, theta: tf.Tensor1D): EpisodeSystems {
+  const features = hiddenFeatureRows(theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
+  try {
+    const dh = features.hidden.shape[1], { part, rewards } = s.linear.training;
+    const joint = episodeLastLayerSums(part, rewards, features.hidden.dataSync() as Float32Array, features.nextHidden.dataSync() as Float32Array, dh, s.episodes.sums, s.episodes.ranges);
+    return { joint, linear: s.episodes.sums, ids: s.episodes.ids, hiddenRidge: s.method.hiddenRidge };
+  } finally {
+    features.dispose();
+  }
+}
+
+function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: FinalIterate, systems: EpisodeSystems): NetworkFit {
+  const { input } = ctx, ds = input.data.stateDim, m = input.data.actionDim;
+  const theta = withOutputLayer(final.theta, s, final.lastLayer);
+  final.theta.dispose();
+  const linearFeatures = s.linear.training.part.features;
+  const actionValue = createNetworkActionValue({
+    theta, layout: s.layout, activation: input.settings.activation, standardiser: s.standardiser, output: s.output,
+    backend: ctx.selection.backend, stateDim: ds, actionDim: m, linear: { features: linearFeatures, weights: final.lastLayer.linear },
+  });
+  const net = featureNetwork(s, theta), v = jointWeights(final.lastLayer), d1 = linearFeatures.dim;
+  const quadrature = createActionQuadrature(input.policy, input.quadratureNodes), dataStarts = input.data.startStates;
+  let disposed = false;
+  const last = run.history[run.history.length - 1];
+  return {
+    actionValue, linearStart: linearActionValue(linearFeatures, ctx.linearWeights, ds, m),
+    status: final.status, message: final.message, history: run.history,
+    convergence: { rule: run.rule, converged: final.status === 'converged', iterations: run.history.length, remainingBound: last?.remainingBound ?? null },
+    backend: ctx.selection.backend, backendNote: ctx.selection.note, seed: input.seed, work: run.work,
+    estimate(startStates: Float64Array, options: EstimateOptions = {}): NetworkValueEstimate {
+      if (disposed) throw new NetworkDisposedError();
+      const rows = startFeatureRows(net, quadrature, startStates, ds), d = v.length, mean = meanRow(rows, d);
+      const value = dot(mean, v, d), linear = dot(mean, ctx.linearWeights, d1);
+      const follow = options.startsFollowEpisodes ?? sameValues(startStates, dataStarts);
+      const resamples = options.resamples ?? s.method.intervalResamples;
+      const r = valueReplicates(systems, { startRows: rows, startsFollowEpisodes: follow, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed }, { network: value, linear });
+      return {
+        value, interval: valueInterval(r.network), linear: { value: linear, interval: valueInterval(r.linear) },
+        difference: { value: value - linear, interval: valueInterval(r.difference) },
+        startCount: rows.length / d, resamples, failedResamples: r.failed, covers: INTERVAL_COVERS,
+      };
+    },
+    dispose: () => {
+      disposed = true;
+      actionValue.dispose();
+    },
+  };
+}
+
+/** A copy of θ whose output layer holds lastLayer.hidden/scale and bias 0, so Q = φᵀ·linear + scale·f_θ. */
+function withOutputLayer(theta: tf.Tensor1D, s: FitSession, lastLayer: LastLayer): tf.Tensor1D {
+  const slot = s.layout.layers[s.layout.layers.length - 1], values = Float32Array.from(theta.dataSync());
+  for (let j = 0; j < slot.inputs; j++) values[slot.weightOffset + j] = lastLayer.hidden[j] / s.output.scale;
+  values[slot.biasOffset] = 0;
+  return tf.tensor1d(values);
+}
+
+function dot(a: ArrayLike<number>, b: ArrayLike<number>, n: number): number {
+  let x = 0;
+  for (let i = 0; i < n; i++) x += a[i] * b[i];
+  return x;
+}
+
+function sameValues(a: Float64Array, b: Float64Array): boolean {
+  if (a === b) return true;
+  if (a.length !== b.length) return false;
+  for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;
+  return true;
+}

@@ -1,0 +1,98 @@
+/**
+ * An interval for the network's J, and for the linear estimate beside it, by resampling whole
+ * episodes (Efron & Tibshirani, "An Introduction to the Bootstrap", 1993, ch. 6; for fitted
+ * Q-evaluation, Hao et al., "Bootstrapping Fitted Q-Evaluation for Off-Policy Inference", ICML
+ * 2021) and re-solving the last layer on each resample. The last-layer system is a sum of
+ * per-episode sums (networkLastLayerSums.ts), so a resample drawing episode k c_k times has the
+ * system Σ_k c_k S_k / Σ_k c_k n_k: O(e·d²) to form and O(d³) to solve, no pass over the data —
+ * the same device as the linear bootstrap (../bootstrap/episodeBellmanSums.ts).
+ *
+ * What it covers: the sampling variability of the last-layer solve given the learned hidden
+ * features, i.e. which episodes happened to be logged. Not covered: that the features were learned
+ * on the same data, the randomness of the network's training, and the approximation error of the
+ * function class. The battery measures how often the interval holds the truth anyway
+ * (`npm run bench -- battery`).
+ *
+ * The same resamples give the linear (quadratic part alone) estimate's replicates and the paired
+ * difference network − linear, whose interval is what the agreement rule reads
+ * (approximatorAgreement.ts): both estimates come from the same episodes, so their sampling
+ * errors are strongly correlated and the difference is far better determined than either value.
+ *
+ * Intervals are percentile intervals (Davison & Hinkley 1997, eq. 5.18, via bootstrapInterval).
+ */
+import { bootstrapInterval, type BootstrapInterval } from '../bootstrap/bootstrapInterval';
+import { episodeMultiplicities } from '../bootstrap/episodeMultiplicities';
+import { combineSums, type LastLayerSums } from './networkLastLayerSums';
+import { solveLastLayer } from './networkLastLayer';
+import { meanRow } from './networkValueRows';
+
+export interface EpisodeSystems {
+  /** Per training episode: the joint system (network) and the quadratic part alone (linear). */
+  readonly joint: LastLayerSums;
+  readonly linear: LastLayerSums;
+  /** Episode index (into the data's episodes and start states) of each range. */
+  readonly ids: Int32Array;
+  readonly hiddenRidge: number;
+}
+
+export interface IntervalRequest {
+  /** ξ(s0) rows of the start set, count×d (joint features; the first d1 columns are the quadratic part's). */
+  readonly startRows: Float64Array;
+  /** True when start row k is episode k's first state, so it is resampled with its episode. */
+  readonly startsFollowEpisodes: boolean;
+  readonly level: number;
+  readonly resamples: number;
+  readonly seed: number;
+}
+
+export interface ValueReplicates {
+  readonly network: BootstrapInterval;
+  readonly linear: BootstrapInterval;
+  /** network − linear, paired by resample. */
+  readonly difference: BootstrapInterval;
+  /** Resamples whose system could not be solved (left out of the intervals). */
+  readonly failed: number;
+}
+
+/** estimates: the full-data J of the network and of the linear part over the same start set. */
+export function valueReplicates(systems: EpisodeSystems, request: IntervalRequest, estimates: { network: number; linear: number }): ValueReplicates {
+  const { joint, linear, ids } = systems, d = joint.dim, d1 = joint.linearDim, e = joint.ranges;
+  const starts = request.startRows.length / d;
+  const linearStartRows = firstColumns(request.startRows, d, d1);
+  const net: number[] = [], lin: number[] = [], diff: number[] = [];
+  const jointScratch = new Float64Array(joint.stride), linearScratch = new Float64Array(linear.stride);
+  const c = new Uint32Array(e), startWeights = new Float64Array(starts).fill(1);
+  let failed = 0;
+  for (let b = 0; b < request.resamples; b++) {
+    episodeMultiplicities(e, request.seed, b, c);
+    if (request.startsFollowEpisodes) for (let r = 0; r < e; r++) if (ids[r] < starts) startWeights[ids[r]] = c[r];
+    const v = solveLastLayer(combineSums(joint, c, jointScratch), d, d1, systems.hiddenRidge);
+    const w = solveLastLayer(combineSums(linear, c, linearScratch), d1, d1, 0);
+    if ('failure' in v || 'failure' in w || startWeights.every((x) => x === 0)) {
+      failed++;
+      continue;
+    }
+    const jn = dotRow(meanRow(request.startRows, d, startWeights), v.weights), jl = dotRow(meanRow(linearStartRows, d1, startWeights), w.weights);
+    net.push(jn);
+    lin.push(jl);
+    diff.push(jn - jl);
+  }
+  return {
+    network: bootstrapInterval(estimates.network, net, request.level),
+    linear: bootstrapInterval(estimates.linear, lin, request.level),
+    difference: bootstrapInterval(estimates.network - estimates.linear, diff, request.level),
+    failed,
+  };
+}
+
+function firstColumns(rows: Float64Array, d: number, d1: number): Float64Array {
+  const count = rows.length / d, out = new Float64Array(count * d1);
+  for (let r = 0; r < count; r++) out.set(rows.subarray(r * d, r * d + d1), r * d1);
+  return out;
+}
+
+function dotRow(a: Float64Array, b: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < a.length; i++) s += a[i] * b[i];
+  return s;
+}

@@ -1,0 +1,38 @@
+/**
+ * Choices of method inside the network fit that are not project settings: they were measured on
+ * the battery of invented plants (test/battery, `npm run bench -- battery`) and fixed here; the
+ * bench and the tests can still switch them to compare.
+ */
+export interface NetworkMethod {
+  /**
+   * How the output layer is found each outer iteration:
+   *   'leastSquares' — the LSTD-Q fixed point over [quadratic part, hidden features]
+   *                    (networkLastLayer.ts), then Adam steps improve the hidden features;
+   *   'gradient'     — Adam only (classic fitted Q-iteration of the network), as a correction on
+   *                    top of the fixed linear (quadratic) LSTD-Q solution.
+   */
+  readonly lastLayer: 'leastSquares' | 'gradient';
+  /** λ_h of networkLastLayer.ts, relative to each hidden feature's second moment. */
+  readonly hiddenRidge: number;
+  /**
+   * Gauss–Hermite nodes per action dimension for the hidden features' next-state average (the
+   * quadratic part always uses the project's nodes and is exact). null: the project's.
+   */
+  readonly hiddenNodes: number | null;
+  /** Episode resamples of the last-layer solve behind the interval (networkInterval.ts). */
+  readonly intervalResamples: number;
+  /**
+   * Adam's step size after iterate k is learningRate·max(floor, factor^(k − after)): constant while
+   * the features learn, then shrinking so the minibatch noise of the iterates dies down (stochastic
+   * approximation needs decreasing steps to settle; Robbins & Monro, Ann. Math. Stat. 1951).
+   */
+  readonly learningRateDecay: { readonly after: number; readonly factor: number; readonly floor: number };
+}
+
+export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
+  lastLayer: 'leastSquares',
+  hiddenRidge: 1e-3,
+  hiddenNodes: 5,
+  intervalResamples: 200,
+  learningRateDecay: Object.freeze({ after: 8, factor: 0.85, floor: 0.1 }),
+});

@@ -1,0 +1,79 @@
+/**
+ * A seeded simulator harness shared by every battery plant: logs episodes of a plant under a
+ * Gaussian policy straight into a core TransitionSet (reward = −cost, as the importer stores it).
+ * Episodes end on their time limit (terminal = 0 everywhere: the plant goes on after the log stops).
+ *
+ * One RandomSource per call, drawn in a fixed order (start state, then per step the action and
+ * the process noise), so a seed fixes every number.
+ */
+import { sampleAction, type GaussianPolicy } from '../../src/core/policy';
+import { createRandom, type RandomSource } from '../../src/core/random';
+import type { TransitionSet } from '../../src/core/transitions';
+
+export interface PlantDynamics {
+  readonly stateDim: number; // ds
+  readonly actionDim: number; // m
+  /** Writes s' (ds) and returns the stage cost c(s, a); noise from rng. */
+  step(state: Float64Array, action: Float64Array, rng: RandomSource, next: Float64Array): number;
+}
+
+/** Writes one start state (ds) drawn from the plant's logged start distribution. */
+export type StartSampler = (rng: RandomSource, out: Float64Array) => void;
+
+export interface EpisodeLogOptions {
+  readonly episodes: number;
+  readonly stepsPerEpisode: number;
+  readonly seed: number;
+  readonly stateNames: readonly string[];
+  readonly actionNames: readonly string[];
+}
+
+export function logEpisodes(dynamics: PlantDynamics, policy: GaussianPolicy, start: StartSampler, options: EpisodeLogOptions): TransitionSet {
+  const { episodes, stepsPerEpisode: steps } = options;
+  const ds = dynamics.stateDim, m = dynamics.actionDim, count = episodes * steps;
+  const rng = createRandom(options.seed);
+  const states = new Float64Array(count * ds), actions = new Float64Array(count * m), nextStates = new Float64Array(count * ds);
+  const rewards = new Float64Array(count), episode = new Int32Array(count), startStates = new Float64Array(episodes * ds);
+  const s = new Float64Array(ds), a = new Float64Array(m), next = new Float64Array(ds);
+  let row = 0;
+  for (let e = 0; e < episodes; e++) {
+    start(rng, s);
+    startStates.set(s, e * ds);
+    for (let t = 0; t < steps; t++, row++) {
+      sampleAction(policy, s, rng, a);
+      rewards[row] = -dynamics.step(s, a, rng, next);
+      states.set(s, row * ds);
+      actions.set(a, row * m);
+      nextStates.set(next, row * ds);
+      episode[row] = e;
+      s.set(next);
+    }
+  }
+  return {
+    count, stateDim: ds, actionDim: m, stateNames: [...options.stateNames], actionNames: [...options.actionNames],
+    states, actions, rewards, nextStates, terminal: new Uint8Array(count), episode, episodeCount: episodes, startStates,
+    sourceLine: Int32Array.from({ length: count }, (_, i) => i + 2),
+  };
+}
+
+/** Episodes needed for at least `transitions` transitions of `steps` each. */
+export function episodesFor(transitions: number, steps: number): number {
+  if (!(transitions >= 1) || !(steps >= 1)) throw new RangeError(`simulation: expected transitions ≥ 1 and stepsPerEpisode ≥ 1, got ${transitions} and ${steps}`);
+  return Math.ceil(transitions / steps);
+}
+
+/**
+ * A start sampler that runs the behaviour policy for `burnIn` steps from `from`: the state it ends
+ * in is a draw from (close to) the logged steady state, for plants without a closed form for it.
+ */
+export function burnInStart(dynamics: PlantDynamics, policy: GaussianPolicy, from: ArrayLike<number>, burnIn: number): StartSampler {
+  const a = new Float64Array(dynamics.actionDim), next = new Float64Array(dynamics.stateDim);
+  return (rng, out) => {
+    for (let i = 0; i < out.length; i++) out[i] = from[i];
+    for (let t = 0; t < burnIn; t++) {
+      sampleAction(policy, out, rng, a);
+      dynamics.step(out, a, rng, next);
+      out.set(next);
+    }
+  };
+}

@@ -1,0 +1,34 @@
+/**
+ * The two start sets every battery plant offers, both fixed (their own seed, independent of any
+ * data seed), so the truth of a candidate is one number per plant, not one per data set:
+ *   steady — START_COUNT draws from the plant's logged start distribution (its steady state
+ *            under the logging controller), i.e. inside the data cloud;
+ *   wide   — the same states moved WIDE_FACTOR times further from the operating point, outside the
+ *            logged spread, where an approximator must extrapolate.
+ */
+import { createRandom } from '../../src/core/random';
+import type { StartSet } from './batteryPlant';
+import type { StartSampler } from './episodeLog';
+
+export const START_COUNT = 200;
+/** 2.5×: inside the 2–3× range the battery is asked to cover. */
+export const WIDE_FACTOR = 2.5;
+const START_SET_SEED = 60_606;
+
+/** centre: the operating point (ds); scaled: which state dimensions are moved (default all). */
+export function standardStartSets(sample: StartSampler, centre: ArrayLike<number>, scaled?: readonly boolean[]): StartSet[] {
+  const ds = centre.length, rng = createRandom(START_SET_SEED);
+  const steady = new Float64Array(START_COUNT * ds), row = new Float64Array(ds);
+  for (let k = 0; k < START_COUNT; k++) {
+    sample(rng, row);
+    steady.set(row, k * ds);
+  }
+  const wide = steady.map((v, i) => {
+    const c = i % ds;
+    return scaled && !scaled[c] ? v : centre[c] + WIDE_FACTOR * (v - centre[c]);
+  });
+  return [
+    { name: 'steady', description: `${START_COUNT} states from the logged steady state`, states: steady, count: START_COUNT },
+    { name: 'wide', description: `the same states, ${WIDE_FACTOR}× further from the operating point`, states: wide, count: START_COUNT },
+  ];
+}
