@@ -43,15 +43,15 @@ export type { NetworkFqeSettings } from './networkSettings';
 
 export interface NetworkIterationRecord {
   readonly iteration: number; // 1-based
-  /** Mean minibatch squared error of the Adam steps that followed this iterate, reward units²; null for the last. */
+  /** Mean minibatch squared error of the Adam steps that produced this iterate's hidden layers, reward units²; null for the first. */
   readonly loss: number | null;
   /** Mean squared Bellman residual of this iterate on held-out episodes, reward units²; null without hold-out. A diagnostic, not a stopping criterion. */
   readonly heldOutBellmanError: number | null;
   /** J of this iterate over the fit's start states (reward sense). */
   readonly policyValue: number;
-  /** δ_k of networkConvergence.ts; null at the first iteration. */
+  /** δ_k of networkConvergence.ts: relative change between the last two windows; null before two full windows. */
   readonly relativeChange: number | null;
-  /** γ/(1 − γ)·δ_k: how much of the value may still be moving; null at the first iteration. */
+  /** γ^W/(1 − γ^W)·δ_k (networkConvergence.ts): how much of the value may still be moving; null before two full windows. */
   readonly remainingBound: number | null;
 }
 

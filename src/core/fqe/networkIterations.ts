@@ -11,6 +11,7 @@
  * See networkFqe.ts for the outcomes.
  */
 import * as tf from '@tensorflow/tfjs';
+import { throwIfCancelled } from './cancellation';
 import { FqeCancelledError } from './fqeErrors';
 import { convergenceRule, hasConverged, iterationChange, type ConvergenceRule, type IterationValues } from './networkConvergence';
 import type { FitSession } from './networkFitSession';
@@ -62,6 +63,8 @@ interface LoopState {
   kept: KeptIterate | null;
   readonly iterates: IterationValues[];
   readonly work: NetworkWork;
+  /** Mean minibatch loss of the last Adam steps (reward units²), reported with the iterate they produced. */
+  lastLoss: number | null;
   /** The quadratic part's weights the gradient mode keeps fixed (the linear fixed point). */
   readonly linearStart: Float64Array;
 }
@@ -71,7 +74,7 @@ const PACE_MS = 50;
 
 export async function runOuterIterations(s: FitSession, input: LoopInput, backend: TfBackendName, linearStart: Float64Array): Promise<IterationRun> {
   const rule = convergenceRule(s.discount, input.tolerance, input.patience);
-  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork() };
+  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null };
   const guard: TrainingGuard = {
     lossLimit: ((2 * s.valueLimit) / s.output.scale) ** 2, cancel: input.isCancelled, pace: createPacer(PACE_MS),
     checkBackend: () => requireActiveBackend(backend, 'network FQE'),
@@ -80,9 +83,9 @@ export async function runOuterIterations(s: FitSession, input: LoopInput, backen
   const started = performance.now();
   try {
     for (let k = 1; k <= input.outerIterations; k++) {
-      const stop = await outerIteration(s, k, state, guard, input, rule);
-      const remainingSeconds = ((performance.now() - started) / 1000 / k) * (input.outerIterations - k);
-      if (state.history.length === k) input.onProgress?.(state.history[k - 1], remainingSeconds);
+      throwIfCancelled(input.isCancelled);
+      const report = () => input.onProgress?.(state.history[k - 1], ((performance.now() - started) / 1000 / k) * (input.outerIterations - k));
+      const stop = await outerIteration(s, k, state, guard, input, rule, report);
       if (stop) return run(stop);
     }
     throw new Error('network FQE: the outer loop ended without a stopping decision'); // unreachable: the last iteration stops
@@ -94,7 +97,9 @@ export async function runOuterIterations(s: FitSession, input: LoopInput, backen
 }
 
 /** One outer iteration; returns why to stop, or null to go on. */
-async function outerIteration(s: FitSession, k: number, state: LoopState, guard: TrainingGuard, input: LoopInput, rule: ConvergenceRule): Promise<IterationStop | null> {
+async function outerIteration(
+  s: FitSession, k: number, state: LoopState, guard: TrainingGuard, input: LoopInput, rule: ConvergenceRule, report: () => void,
+): Promise<IterationStop | null> {
   guard.checkBackend();
   const features = hiddenFeatureRows(s.net.theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
   countFeatureWork(s, state.work);
@@ -109,11 +114,12 @@ async function outerIteration(s: FitSession, k: number, state: LoopState, guard:
     state.iterates.push({ policyValue: values.policyValue, probe: values.probe });
     const change = iterationChange(rule, state.iterates);
     state.history.push({
-      iteration: k, loss: null, heldOutBellmanError: heldOutBellmanError(s, lastLayer),
+      iteration: k, loss: state.lastLoss, heldOutBellmanError: heldOutBellmanError(s, lastLayer),
       policyValue: values.policyValue, relativeChange: change.relativeChange, remainingBound: change.remainingBound,
     });
     state.kept?.theta.dispose();
     state.kept = { theta: tf.clone(s.net.theta), lastLayer, iteration: k };
+    report();
     const bounds = state.history.map((h) => h.remainingBound);
     if (hasConverged(rule, bounds)) return { kind: 'converged', message: convergedMessage(rule, k) };
     if (k === input.outerIterations) return { kind: 'maxIterations', message: notConvergedMessage(rule, state.history) };
@@ -130,7 +136,7 @@ async function outerIteration(s: FitSession, k: number, state: LoopState, guard:
         const what = outcome.kind === 'nonFinite' ? 'not finite' : `above ${guard.lossLimit.toPrecision(3)} (exploding)`;
         return diverged(k, `the minibatch loss at step ${outcome.step} was ${outcome.loss} in network units, ${what}`);
       }
-      state.history[k - 1] = { ...state.history[k - 1], loss: outcome.meanLoss * s.output.scale ** 2 };
+      state.lastLoss = outcome.meanLoss * s.output.scale ** 2;
       s.average.add(s.net.theta);
     } finally {
       targets.dispose();

@@ -1,9 +1,9 @@
 /**
- * The next-state part of the FQE target, E_{a'~π(·|s')} q(s', a') ≈ Σ_j w_j q(s', a'_j), by the
- * same action quadrature as the linear path (createActionQuadrature; bounded actions included).
- * The policy is fixed, so the nodes a'_j and weights w_j never change: the (n·K)×p matrix of
- * standardised [s', a'_j] rows and the n×K weights are built once, and each outer iteration only
- * runs the frozen network over them in large batches.
+ * The next-state inputs of the network's features, for E_{a'~π(·|s')} h(s', a') ≈ Σ_j w_j h(s', a'_j)
+ * by the same action quadrature as the linear path (createActionQuadrature; bounded actions
+ * included). The policy is fixed, so the nodes a'_j and weights w_j never change: the (n·K)×p
+ * matrix of standardised [s', a'_j] rows and the n×K weights are built once, and each outer
+ * iteration only runs the network over them in large batches (networkHiddenFeatures.ts).
  *
  * Rules with fewer than K = quadrature.maxPoints points at some state (bounded actions) are padded
  * with a copy of their first node at weight 0, so every state has K rows and the expectation is a
@@ -14,9 +14,6 @@ import { createActionQuadrature } from '../actionQuadrature';
 import type { GaussianPolicy } from '../policy';
 import type { TransitionSet } from '../transitions';
 import { FqeOptionsError } from './fqeErrors';
-import { networkOutput } from './networkForward';
-import type { NetworkLayout } from './networkParameters';
-import type { NetworkActivation } from './networkSettings';
 import { standardiseInto, type InputStandardiser } from './networkTrainingSet';
 
 export interface NextInputChunk {
@@ -69,36 +66,4 @@ export function createNextInputs(
     chunks.push({ states, inputs: tf.tensor2d(inputs, [states * k, p]), weights: tf.tensor2d(weights, [states, k]) });
   }
   return { chunks, pointsPerState: k, dispose: () => chunks.forEach((c) => tf.dispose([c.inputs, c.weights])) };
-}
-
-export interface BellmanTargets {
-  readonly targets: tf.Tensor1D; // rows, network units: base + Σ_j W_ij q(s'_i, a'_ij)
-  /** Smallest and largest q over all next-state rows, for the divergence check. */
-  readonly smallestNextOutput: number;
-  readonly largestNextOutput: number;
-}
-
-/** One-step Bellman targets of the network with parameters θ (base: rows, networkTrainingSet.ts). */
-export function bellmanTargets(
-  theta: tf.Tensor1D, layout: NetworkLayout, activation: NetworkActivation, next: NextInputs, base: tf.Tensor1D,
-): BellmanTargets {
-  const k = next.pointsPerState;
-  const expectations: tf.Tensor1D[] = [], extremes: tf.Scalar[] = [];
-  for (const chunk of next.chunks) {
-    tf.tidy(() => {
-      const q = networkOutput(theta, layout, activation, chunk.inputs);
-      const expectation = tf.sum(tf.mul(tf.reshape(q, [chunk.states, k]), chunk.weights), 1) as tf.Tensor1D;
-      expectations.push(tf.keep(expectation));
-      extremes.push(tf.keep(tf.min(q)), tf.keep(tf.max(q)));
-    });
-  }
-  const targets = tf.tidy(() => tf.add(base, tf.concat(expectations)) as tf.Tensor1D);
-  const range = tf.tidy(() => tf.stack(extremes).dataSync());
-  tf.dispose([...expectations, ...extremes]);
-  let smallest = Infinity, largest = -Infinity;
-  for (let i = 0; i < range.length; i++) {
-    smallest = Math.min(smallest, range[i]);
-    largest = Math.max(largest, range[i]);
-  }
-  return { targets, smallestNextOutput: smallest, largestNextOutput: largest };
 }

@@ -1,15 +1,18 @@
 /**
- * The batched Bellman targets of networkNextInputs.ts against a direct float64 computation:
- * r + γ(1 − done)·E_{a'~π} Q(s', a') with the expectation by expectUnderPolicy (actionQuadrature.ts,
- * one state at a time) over the same network evaluated row by row. A clipped policy makes the
- * number of quadrature points vary by state (point masses at the bounds), which exercises the padding.
+ * The batched next-state averages of the hidden features (networkNextInputs.ts and
+ * networkHiddenFeatures.ts) against a direct float64 computation: γ(1 − done)·E_{a'~π} h_j(s', a')
+ * for each hidden unit j, with the expectation by expectUnderPolicy (actionQuadrature.ts, one state
+ * at a time) over the same network evaluated row by row. A clipped policy makes the number of
+ * quadrature points vary by state (point masses at the bounds), which exercises the padding.
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import * as tf from '@tensorflow/tfjs';
 import { expectUnderPolicy, quadratureNodesAt } from '../../../src/core/actionQuadrature';
 import { fitStateActionStandardiser } from '../../../src/core/features/standardiser';
-import { createNetworkActionValue } from '../../../src/core/fqe/networkActionValue';
-import { bellmanTargets, createNextInputs, type NextInputs } from '../../../src/core/fqe/networkNextInputs';
+import { hiddenFeatures } from '../../../src/core/fqe/networkForward';
+import { hiddenFeatureRows } from '../../../src/core/fqe/networkHiddenFeatures';
+import { createNextInputs, type NextInputs } from '../../../src/core/fqe/networkNextInputs';
+import { standardiseInto } from '../../../src/core/fqe/networkTrainingSet';
 import { outputScaleOf } from '../../../src/core/fqe/networkOutputScale';
 import { networkLayout } from '../../../src/core/fqe/networkParameters';
 import { createTrainingSet, type NetworkTrainingSet } from '../../../src/core/fqe/networkTrainingSet';
@@ -37,7 +40,7 @@ const standardiser = { mean: Float64Array.from(spec.mean), scale: Float64Array.f
 const output = outputScaleOf(data.rewards, discount);
 const layout = networkLayout(3, [8]);
 
-describe('bellmanTargets', () => {
+describe('next-state averages of the hidden features', () => {
   let start: number, rows: NetworkTrainingSet, next: NextInputs, theta: tf.Tensor1D;
 
   beforeAll(async () => {
@@ -55,28 +58,30 @@ describe('bellmanTargets', () => {
     expect(tf.memory().numTensors).toBe(start);
   });
 
-  it('equal r + γ(1 − done)·Σ w_j Q(s′, a′_j) computed state by state', () => {
-    const { targets } = bellmanTargets(theta, layout, 'tanh', next, rows.training.base);
-    const batched = targets.dataSync();
-    targets.dispose();
-    const q = createNetworkActionValue({ theta: tf.clone(theta), layout, activation: 'tanh', standardiser, output, backend: 'cpu', stateDim: 2, actionDim: 1 });
-    const one = new Float64Array(3), value = new Float64Array(1);
+  it('equal γ(1 − done)·Σ w_j h(s′, a′_j) computed state by state', () => {
+    const features = hiddenFeatureRows(theta, layout, 'tanh', rows.training.inputs, next);
+    const batched = features.nextHidden.dataSync(), units = features.nextHidden.shape[1];
+    features.dispose();
+    const z = new Float32Array(3), hiddenAt = (s: ArrayLike<number>, a: number): Float32Array => {
+      standardiseInto(s, 0, 0, 2, standardiser, z, 0);
+      standardiseInto([a], 0, 2, 1, standardiser, z, 2);
+      const h = tf.tidy(() => hiddenFeatures(theta, layout, 'tanh', tf.tensor2d(z, [1, 3])));
+      const values = h.dataSync() as Float32Array;
+      h.dispose();
+      return values;
+    };
     for (let i = 0; i < data.count; i++) {
-      let expected = data.rewards[i];
-      if (!terminal[i]) {
-        const s = data.nextStates.subarray(2 * i, 2 * i + 2);
-        const future = expectUnderPolicy(policy, s, (a) => {
-          one.set(s);
-          one[2] = a[0];
-          q.evaluate(one, 1, value);
-          return value[0];
-        }, nodes).value;
-        expected += discount * future;
+      const row = rows.training.transitions.indexOf(i);
+      for (let j = 0; j < units; j++) {
+        let expected = 0;
+        if (!terminal[i]) {
+          const s = data.nextStates.subarray(2 * i, 2 * i + 2);
+          expected = discount * expectUnderPolicy(policy, s, (a) => hiddenAt(s, a[0])[j], nodes).value;
+        }
+        // Float32 network and sums of K ≤ 6 terms of size ≤ 1: 1e-5 absolute is rounding.
+        expect(batched[row * units + j]).toBeCloseTo(expected, 5);
       }
-      // Float32 network and sums; values are of order |offset| ≈ 10, so 1e-4 absolute is rounding.
-      expect(output.offset + output.scale * batched[i]).toBeCloseTo(expected, 4);
     }
-    q.dispose();
   });
 
   it('pads every state to the largest rule size (clipped rules add point masses at the bounds)', () => {
@@ -95,8 +100,7 @@ describe('bellmanTargets', () => {
   });
 
   it('keeps only its result: θ, the chunks (inputs, weights) and the rows (inputs, base) remain', () => {
-    const t = bellmanTargets(theta, layout, 'relu', next, rows.training.base);
-    t.targets.dispose();
+    hiddenFeatureRows(theta, layout, 'relu', rows.training.inputs, next).dispose();
     expect(tf.memory().numTensors).toBe(start + 1 + 2 * next.chunks.length + 2);
   });
 });
