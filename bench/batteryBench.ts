@@ -65,6 +65,7 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, o: O
       return {
         plant: plant.name, candidate: c.name, startSet: set.name, seed, truth: plant.truth(c.name, set.name),
         network: { value: e.value, lower: e.interval.lower, upper: e.interval.upper },
+        networkParts: { percentile: [...e.parts.percentile], basic: [...e.parts.basic], bootstrapStandardError: e.parts.bootstrapStandardError, iterateSpread: e.parts.iterateSpread },
         linear: { value: e.linear.value, lower: e.linear.interval.lower, upper: e.linear.interval.upper },
         difference: { value: e.difference.value, lower: e.difference.interval.lower, upper: e.difference.interval.upper },
         status: fit.status, iterations: fit.history.length, seconds: fit.work.seconds, cpuSeconds: (cpu.user + cpu.system) / 1e6,

@@ -2,8 +2,10 @@
  * The battery sweep's table: one row per plant, candidate and start set, linear (degree 2) and
  * network side by side. Errors are relative to |truth|; coverage is the share of seeds whose 90 %
  * interval held the truth (a rollout truth's own standard error is small against these intervals:
- * see the truth column). Throughput: Adam steps per second of training time, and GFLOP/s of the
- * counted matrix products over the whole fit (networkWork.ts).
+ * see the truth column). Time: wall-clock and CPU seconds per fit. Throughput per CPU second (the
+ * machine is shared, so wall-clock rates say more about the other load than about the fit): Adam
+ * steps/s (training wall time scaled by the fit's CPU/wall ratio) and GFLOP/s of the counted
+ * matrix products over the whole fit (networkWork.ts).
  */
 import type { BatteryTruth } from '../test/battery/batteryPlant';
 
@@ -20,6 +22,7 @@ export interface FitRecord {
   seed: number;
   truth: BatteryTruth;
   network: Estimate;
+  networkParts?: { percentile: number[]; basic: number[]; bootstrapStandardError: number; iterateSpread: number };
   linear: Estimate;
   difference: Estimate;
   status: string;
@@ -62,8 +65,8 @@ export function printBatteryTable(records: FitRecord[]): void {
     const [plant, candidate, startSet] = key.split('|');
     const t = rs[0].truth, lin = summarise(rs, (r) => r.linear), net = summarise(rs, (r) => r.network);
     const converged = rs.filter((r) => r.status === 'converged').length / rs.length;
-    const stepsPerSecond = mean(rs.map((r) => r.adamSteps / Math.max(r.stepSeconds, 1e-9)));
-    const gflops = mean(rs.map((r) => r.flop / r.seconds / 1e9));
+    const stepsPerSecond = mean(rs.map((r) => r.adamSteps / Math.max(r.stepSeconds * (r.cpuSeconds / r.seconds), 1e-9)));
+    const gflops = mean(rs.map((r) => r.flop / r.cpuSeconds / 1e9));
     const truth = `${t.value.toPrecision(5)}${t.standardError > 0 ? ` ±${t.standardError.toPrecision(2)}` : ' exact'}`;
     console.log(
       `${`${plant} / ${candidate} / ${startSet}`.padEnd(48)} ${truth.padEnd(18)} | ${pct(lin.mean)} ${pct(lin.largest)} ${pct(lin.coverage).slice(1)} |` +

@@ -3,7 +3,9 @@
  * the fit, its J with an interval over the request's start states, the linear estimate it started
  * from, and whether the two agree (src/core/fqe/approximatorAgreement.ts).
  */
+import { createActionQuadrature } from '../core/actionQuadrature';
 import { FqeCancelledError } from '../core/fqe/fqeErrors';
+import { policyValue } from '../core/value';
 import { approximatorAgreement } from '../core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit, type NetworkIterationRecord } from '../core/fqe/networkFqe';
 import { networkLayout } from '../core/fqe/networkParameters';
@@ -40,7 +42,8 @@ function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest): Candidat
     message: fit.message,
     history: fit.history.map(iterationOf),
     policyValue: estimate.value,
-    standardError: estimate.interval.standardError,
+    // As for the linear path: the start-state sampling part only; the fit's own uncertainty is in `interval`.
+    standardError: policyValue(fit.actionValue, request.policy, request.startStates, createActionQuadrature(request.policy, request.quadratureNodes)).standardError,
     fixedPointValue: null,
     featureCount: parameterCount(fit, request),
     backend: `TensorFlow.js ${fit.backend}`,

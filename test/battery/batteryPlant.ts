@@ -58,7 +58,7 @@ export interface BatteryPlant {
   readonly candidates: readonly BatteryCandidate[];
   /** Logged episodes under the behaviour policy; same options, same numbers. */
   simulate(options: SimulationOptions): TransitionSet;
-  /** 'steady' (drawn from the logged steady state) and 'wide' (the same states, 2.5× further from the operating point). */
+  /** 'steady' (drawn from the logged steady state) and 'wide' (the same states, WIDE_FACTOR = 2× further from the operating point). */
   startSets(): readonly StartSet[];
   /** The known answer for a candidate (by name) over a start set (by name); memoised. */
   truth(candidate: string, startSet: string): BatteryTruth;

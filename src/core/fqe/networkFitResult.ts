@@ -18,7 +18,7 @@ import type { IterationRun } from './networkIterations';
 import { episodeLastLayerSums, lastLayerTotals } from './networkLastLayerSums';
 import { solveLastLayer } from './networkLastLayer';
 import type { LastLayer } from './networkOutputLayer';
-import { INTERVAL_COVERS, valueInterval, type EstimateOptions, type NetworkValueEstimate } from './networkValueEstimate';
+import { INTERVAL_COVERS, networkValueInterval, valueInterval, type EstimateOptions, type NetworkValueEstimate } from './networkValueEstimate';
 import { jointRowsAt, meanRow, rowValues, startFeatureRows } from './networkValueRows';
 import type { BackendSelection } from './tfBackend';
 
@@ -108,7 +108,7 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
   const net = featureNetwork(s, theta), v = jointWeights(final.lastLayer), d1 = linearFeatures.dim;
   const quadrature = createActionQuadrature(input.policy, input.quadratureNodes), dataStarts = input.data.startStates;
   let disposed = false;
-  const last = run.history[run.history.length - 1];
+  const last = run.history[run.history.length - 1], spread = iterateSpread(run);
   return {
     actionValue, linearStart: linearActionValue(linearFeatures, ctx.linearWeights, ds, m),
     status: final.status, message: final.message, history: run.history,
@@ -122,9 +122,10 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
       const resamples = options.resamples ?? s.method.intervalResamples;
       const r = valueReplicates(systems, { startRows: rows, startsFollowEpisodes: follow, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed }, { network: value, linear });
       return {
-        value, interval: valueInterval(r.network), linear: { value: linear, interval: valueInterval(r.linear) },
-        difference: { value: value - linear, interval: valueInterval(r.difference) },
+        value, interval: networkValueInterval(r.network, spread * Math.abs(value)), linear: { value: linear, interval: valueInterval(r.linear) },
+        difference: { value: value - linear, interval: networkValueInterval(r.difference, spread * Math.abs(value)) },
         startCount: rows.length / d, resamples, failedResamples: r.failed, covers: INTERVAL_COVERS,
+        parts: { percentile: r.network.percentile, basic: r.network.basic, bootstrapStandardError: r.network.standardError, iterateSpread: spread },
       };
     },
     dispose: () => {
@@ -132,6 +133,22 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
       actionValue.dispose();
     },
   };
+}
+
+/**
+ * Standard deviation of J over the last window of iterates at the FULL step size (before the decay
+ * began, or the last window when it never did), relative to |mean J|; 0 with fewer than 2. At a
+ * constant step the iterates wander over the feature configurations the training can land on, so
+ * their spread stands in for how J would differ had the training run differently (a refit); after
+ * the decay the iterates are frozen and their spread would say nothing about it.
+ */
+function iterateSpread(run: IterationRun): number {
+  const w = Math.max(2, run.rule.window), end = run.decayFrom ?? run.history.length;
+  const values = run.history.slice(Math.max(0, end - w), end).map((h) => h.policyValue);
+  if (values.length < 2) return 0;
+  const mean = values.reduce((a, b) => a + b, 0) / values.length;
+  const variance = values.reduce((a, b) => a + (b - mean) ** 2, 0) / (values.length - 1);
+  return Math.sqrt(variance) / Math.max(Math.abs(mean), Number.MIN_VALUE);
 }
 
 /** A copy of θ whose output layer holds lastLayer.hidden/scale and bias 0, so Q = φᵀ·linear + scale·f_θ. */

@@ -44,6 +44,8 @@ export interface IterationRun {
   readonly kept: KeptIterate | null;
   readonly rule: ConvergenceRule;
   readonly work: NetworkWork;
+  /** The last iterate measured at the full step size (the decay began after it); null if it never began. */
+  readonly decayFrom: number | null;
 }
 
 export interface LoopInput {
@@ -65,6 +67,8 @@ interface LoopState {
   readonly work: NetworkWork;
   /** Mean minibatch loss of the last Adam steps (reward units²), reported with the iterate they produced. */
   lastLoss: number | null;
+  /** The iterate after which the step size began to decay; null while it is constant. */
+  decayFrom: number | null;
   /** The quadratic part's weights the gradient mode keeps fixed (the linear fixed point). */
   readonly linearStart: Float64Array;
 }
@@ -74,12 +78,12 @@ const PACE_MS = 50;
 
 export async function runOuterIterations(s: FitSession, input: LoopInput, backend: TfBackendName, linearStart: Float64Array): Promise<IterationRun> {
   const rule = convergenceRule(s.discount, input.tolerance, input.patience);
-  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null };
+  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null, decayFrom: null };
   const guard: TrainingGuard = {
     lossLimit: ((2 * s.valueLimit) / s.output.scale) ** 2, cancel: input.isCancelled, pace: createPacer(PACE_MS),
     checkBackend: () => requireActiveBackend(backend, 'network FQE'),
   };
-  const run = (stop: IterationStop): IterationRun => ({ history: state.history, stop, kept: state.kept, rule, work: state.work });
+  const run = (stop: IterationStop): IterationRun => ({ history: state.history, stop, kept: state.kept, rule, work: state.work, decayFrom: state.decayFrom });
   const started = performance.now();
   try {
     for (let k = 1; k <= input.outerIterations; k++) {
@@ -125,7 +129,8 @@ async function outerIteration(
     if (k === input.outerIterations) return { kind: 'maxIterations', message: notConvergedMessage(rule, state.history) };
     const targets = regressionTargets(s, features, lastLayer, s.method.lastLayer === 'gradient' ? state.linearStart : lastLayer.linear);
     try {
-      setLearningRate(s, input.learningRate * learningRateFactor(s.method, k));
+      state.decayFrom ??= decayStart(s.method, rule, k, change.remainingBound);
+      setLearningRate(s, input.learningRate * learningRateFactor(s.method, k, state.decayFrom));
       s.batches.setTargets(targets);
       const trainingStarted = performance.now();
       const outcome = await trainSteps(s.net, s.batches, input.stepsPerIteration, guard);
@@ -162,10 +167,16 @@ function lastLayerOf(s: FitSession, features: HiddenFeatureRows, state: LoopStat
   return { linear: solved.weights.slice(0, sums.linearDim), hidden: solved.weights.slice(sums.linearDim) };
 }
 
-/** The Adam step size after iterate k (networkMethod.ts: constant, then a geometric decay to a floor). */
-export function learningRateFactor(method: FitSession['method'], k: number): number {
-  const { after, factor, floor } = method.learningRateDecay;
-  return Math.max(floor, factor ** Math.max(0, k - after));
+/** The iterate after which the step size starts to decay (networkMethod.ts), or null: not yet. */
+function decayStart(method: FitSession['method'], rule: ConvergenceRule, k: number, bound: number | null): number | null {
+  const { plateau, latest } = method.learningRateDecay;
+  return (bound !== null && bound <= plateau * rule.tolerance) || k >= latest ? k : null;
+}
+
+/** The Adam step size after iterate k as a share of learningRate: 1 until the decay starts at iterate `from`, then factor^(k − from + 1) down to the floor. */
+export function learningRateFactor(method: FitSession['method'], k: number, from: number | null): number {
+  const { factor, floor } = method.learningRateDecay;
+  return from === null ? 1 : Math.max(floor, factor ** (k - from + 1));
 }
 
 function setLearningRate(s: FitSession, rate: number): void {

@@ -22,17 +22,19 @@ export interface NetworkMethod {
   /** Episode resamples of the last-layer solve behind the interval (networkInterval.ts). */
   readonly intervalResamples: number;
   /**
-   * Adam's step size after iterate k is learningRate·max(floor, factor^(k − after)): constant while
-   * the features learn, then shrinking so the minibatch noise of the iterates dies down (stochastic
-   * approximation needs decreasing steps to settle; Robbins & Monro, Ann. Math. Stat. 1951).
+   * Adam's step size: constant while the features learn, then ×factor per outer iteration down to
+   * floor·learningRate, so the minibatch noise of the iterates dies down (stochastic approximation
+   * needs decreasing steps to settle; Robbins & Monro, Ann. Math. Stat. 1951). The decay starts
+   * once the stopping rule's bound is within plateau × tolerance (J has nearly stopped drifting),
+   * or after `latest` outer iterations at the latest.
    */
-  readonly learningRateDecay: { readonly after: number; readonly factor: number; readonly floor: number };
+  readonly learningRateDecay: { readonly plateau: number; readonly latest: number; readonly factor: number; readonly floor: number };
 }
 
 export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
   lastLayer: 'leastSquares',
-  hiddenRidge: 1e-3,
+  hiddenRidge: 1e-2,
   hiddenNodes: 5,
   intervalResamples: 200,
-  learningRateDecay: Object.freeze({ after: 8, factor: 0.85, floor: 0.1 }),
+  learningRateDecay: Object.freeze({ plateau: 4, latest: 20, factor: 0.8, floor: 0.1 }),
 });

@@ -26,6 +26,14 @@ export interface NetworkValueEstimate {
   readonly failedResamples: number;
   /** One sentence: what the interval covers and what it does not. */
   readonly covers: string;
+  /** The parts the interval is built from (for the battery's choice of method). */
+  readonly parts: {
+    readonly percentile: readonly [number, number];
+    readonly basic: readonly [number, number];
+    readonly bootstrapStandardError: number;
+    /** Standard deviation of J over a window of iterates at the full step size, relative to |J| (the training's randomness). */
+    readonly iterateSpread: number;
+  };
 }
 
 export interface EstimateOptions {
@@ -40,9 +48,24 @@ export interface EstimateOptions {
 }
 
 export const INTERVAL_COVERS =
-  'episode-resampling interval of the last-layer solve on the learned features: it covers which episodes happened to be logged, ' +
-  'not the randomness of the network training nor the error of the function class';
+  'episode-resampling interval of the last-layer solve on the learned features, widened by the spread of J over the training\'s iterates: ' +
+  'it covers which episodes happened to be logged and the randomness of the training, not the error of the function class outside the logged states';
 
 export function valueInterval(b: BootstrapInterval): ValueInterval {
   return { level: b.level, lower: b.percentile[0], upper: b.percentile[1], standardError: b.standardError };
+}
+
+/**
+ * The network's interval: the bootstrap percentile interval, each side stretched by
+ * √(SE_b² + SE_it²)/SE_b where SE_it (refitError, value units) is the spread of J over a window of
+ * iterates at the full step size (networkFitResult.ts) — the training's own randomness, which
+ * resampling the last-layer solve does not see (the two added as independent variances; common practice).
+ */
+export function networkValueInterval(b: BootstrapInterval, refitError: number): ValueInterval {
+  const se = Math.hypot(b.standardError, refitError);
+  const stretch = b.standardError > 0 ? se / b.standardError : 1;
+  return {
+    level: b.level, standardError: se,
+    lower: b.estimate - stretch * (b.estimate - b.percentile[0]), upper: b.estimate + stretch * (b.percentile[1] - b.estimate),
+  };
 }
