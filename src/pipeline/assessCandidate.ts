@@ -96,7 +96,7 @@ function linearWork(shared: SharedInputs, name: string, policy: GaussianPolicy, 
   const { project, data } = shared, settings = project.approximator;
   if (settings.kind !== 'linear') throw new AssessmentError('linearWork: expected linear approximator settings');
   const features = featureMapFor(settings, data);
-  const sums = episodeBellmanSums(data, features, quadrature, shared.cancel, shared.index);
+  const sums = episodeBellmanSums(data, features, quadrature, { cancel: shared.cancel }, shared.index);
   const setup: LinearReplicateSetup = {
     sums, startFeatures: startStateFeatures(features, quadrature, shared.startStates, data.stateDim), startsFollowEpisodes: shared.startsFollowEpisodes,
     ridge: settings.ridge, constantIndex: features.constantIndex, discount: project.discount, solver: 'iteration',

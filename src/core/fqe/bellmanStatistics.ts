@@ -43,38 +43,63 @@ export interface AccumulationHooks {
 const BLOCK_VALUES = 1 << 17;
 const ROWS_PER_REPORT = 65536;
 
+/**
+ * Packed sums of one segment of transitions (not yet divided by its count):
+ * [ΦᵀΦ | ΦᵀΨ | ΨᵀΨ | Φᵀr | Ψᵀr | rᵀr | n], length 3d² + 2d + 2. Only the upper triangles of
+ * ΦᵀΦ and ΨᵀΨ are formed; statisticsFromSums mirrors them.
+ */
+export function bellmanSumsStride(d: number): number {
+  return 3 * d * d + 2 * d + 2;
+}
+
+/** Contiguous groups of transitions: segment k is order[offsets[k] .. offsets[k+1]). */
+export interface TransitionSegments {
+  readonly order: Int32Array; // n
+  readonly offsets: Int32Array; // segments + 1
+}
+
 export function accumulateBellmanStatistics(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {},
 ): BellmanStatistics {
   const n = data.count, d = features.dim;
-  const blockRows = Math.max(64, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
-  const total = newSums(d), row = newRowBuffers(data, features, quadrature), block = newBlock(d, blockRows);
-  let nextReport = ROWS_PER_REPORT;
-  for (let start = 0; start < n; start += blockRows) {
-    const size = Math.min(blockRows, n - start);
-    for (let t = 0; t < size; t++) gatherTransition(data, features, quadrature, row, block, start + t, t);
-    addBlock(block, size, total);
-    if (start + size >= nextReport || start + size === n) {
-      nextReport += ROWS_PER_REPORT;
-      throwIfCancelled(hooks.cancel);
-      hooks.onDataPass?.(start + size, n);
-    }
-  }
-  const stats = finish(total, n, d);
+  const whole = { order: Int32Array.from({ length: n }, (_, i) => i), offsets: Int32Array.of(0, n) };
+  const sums = new Float64Array(bellmanSumsStride(d));
+  accumulateSegmentSums(data, features, quadrature, whole, sums, hooks);
+  const stats = statisticsFromSums(sums, d);
   checkFinite(stats, data, features, quadrature);
   return stats;
 }
 
-interface Sums {
-  gram: Float64Array; crossNext: Float64Array; nextGram: Float64Array;
-  featureReward: Float64Array; nextFeatureReward: Float64Array; rewardSquare: number;
-}
-
-function newSums(d: number): Sums {
-  return {
-    gram: new Float64Array(d * d), crossNext: new Float64Array(d * d), nextGram: new Float64Array(d * d),
-    featureReward: new Float64Array(d), nextFeatureReward: new Float64Array(d), rewardSquare: 0,
-  };
+/**
+ * One pass over the transitions in segment order, adding each segment's packed sums to
+ * out[k·stride …] (out starts at zero). The pipeline keeps one segment per episode, so that a
+ * bootstrap resample's statistics are a weighted sum of them (src/core/bootstrap/
+ * episodeBellmanSums.ts) and the full data's are their plain sum: one pass serves the fit and
+ * every resample.
+ */
+export function accumulateSegmentSums(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, segments: TransitionSegments,
+  out: Float64Array, hooks: AccumulationHooks = {},
+): void {
+  const n = segments.order.length, d = features.dim, stride = bellmanSumsStride(d);
+  const blockRows = Math.max(64, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
+  const row = newRowBuffers(data, features, quadrature), block = newBlock(d, blockRows);
+  let nextReport = ROWS_PER_REPORT, done = 0;
+  for (let k = 0; k + 1 < segments.offsets.length; k++) {
+    const end = segments.offsets[k + 1], base = k * stride;
+    for (let start = segments.offsets[k]; start < end; start += blockRows) {
+      const size = Math.min(blockRows, end - start);
+      for (let t = 0; t < size; t++) gatherTransition(data, features, quadrature, row, block, segments.order[start + t], t);
+      addBlock(block, size, out, base);
+      done += size;
+      if (done >= nextReport || done === n) {
+        nextReport += ROWS_PER_REPORT;
+        throwIfCancelled(hooks.cancel);
+        hooks.onDataPass?.(done, n);
+      }
+    }
+    out[base + stride - 1] += end - segments.offsets[k];
+  }
 }
 
 interface RowBuffers {
@@ -140,9 +165,10 @@ function expectedNextFeatures(data: TransitionSet, features: FeatureMap, quadrat
   }
 }
 
-/** Add the first `size` rows of the block to the totals; G and H upper triangles only (finish() mirrors). */
-function addBlock(block: Block, size: number, total: Sums): void {
-  const { d, rows, phi, psi, reward } = block;
+/** Add the first `size` rows of the block to the packed sums at out[base …] (upper triangles of G and H). */
+function addBlock(block: Block, size: number, out: Float64Array, base: number): void {
+  const { d, rows, phi, psi, reward } = block, dd = d * d;
+  const g0 = base, m0 = base + dd, h0 = base + 2 * dd, b0 = base + 3 * dd, e0 = b0 + d;
   for (let a = 0; a < d; a++) {
     const oa = a * rows;
     for (let b = 0; b < d; b++) {
@@ -150,30 +176,35 @@ function addBlock(block: Block, size: number, total: Sums): void {
       let g = 0, m = 0, h = 0;
       if (b >= a) for (let t = 0; t < size; t++) { g += phi[oa + t] * phi[ob + t]; h += psi[oa + t] * psi[ob + t]; }
       for (let t = 0; t < size; t++) m += phi[oa + t] * psi[ob + t];
-      total.gram[a * d + b] += g;
-      total.nextGram[a * d + b] += h;
-      total.crossNext[a * d + b] += m;
+      out[g0 + a * d + b] += g;
+      out[h0 + a * d + b] += h;
+      out[m0 + a * d + b] += m;
     }
     let br = 0, er = 0;
     for (let t = 0; t < size; t++) { br += phi[oa + t] * reward[t]; er += psi[oa + t] * reward[t]; }
-    total.featureReward[a] += br;
-    total.nextFeatureReward[a] += er;
+    out[b0 + a] += br;
+    out[e0 + a] += er;
   }
   let rr = 0;
   for (let t = 0; t < size; t++) rr += reward[t] * reward[t];
-  total.rewardSquare += rr;
+  out[e0 + d] += rr;
 }
 
-function finish(s: Sums, n: number, d: number): BellmanStatistics {
-  const scale = 1 / n;
-  for (const key of ['gram', 'crossNext', 'nextGram', 'featureReward', 'nextFeatureReward'] as const) {
-    const a = s[key];
-    for (let k = 0; k < a.length; k++) a[k] *= scale;
-  }
-  for (const sym of [s.gram, s.nextGram]) {
+/**
+ * Averages from packed sums (one segment's, or a weighted total of several): each part divided by
+ * the count, the upper triangles of G and H mirrored.
+ */
+export function statisticsFromSums(sums: Float64Array, d: number): BellmanStatistics {
+  const dd = d * d, n = sums[bellmanSumsStride(d) - 1];
+  const part = (from: number, length: number) => Float64Array.from(sums.subarray(from, from + length), (v) => v / n);
+  const gram = part(0, dd), nextGram = part(2 * dd, dd);
+  for (const sym of [gram, nextGram]) {
     for (let a = 0; a < d; a++) for (let b = 0; b < a; b++) sym[a * d + b] = sym[b * d + a];
   }
-  return { count: n, dim: d, ...s, rewardSquare: s.rewardSquare * scale };
+  return {
+    count: n, dim: d, gram, crossNext: part(dd, dd), nextGram,
+    featureReward: part(3 * dd, d), nextFeatureReward: part(3 * dd + d, d), rewardSquare: sums[3 * dd + 2 * d] / n,
+  };
 }
 
 /** Non-finite sums are traced back to the first transition that produced them, by source line. */
