@@ -56,6 +56,14 @@ export const RIDGE = { default: 1e-6, max: 10 } as const;
 export const TOLERANCE = { default: 1e-10, min: 1e-14, max: 1e-2 } as const;
 export const MAX_ITERATIONS = { default: 5000, min: 1, max: 1_000_000 } as const;
 
+/**
+ * A linear fit's bootstrap reweights per-episode sums (3d² + 2d + 2 numbers per episode) when there
+ * are at most this many of them in all: then a resample costs about a millisecond and the sums a
+ * few megabytes. Above it (many episodes, or many features) each resample is taken to first order
+ * instead, at O(e) per resample (src/core/bootstrap/linearisedReplicate.ts; ours).
+ */
+export const MAX_EXACT_RESAMPLE_VALUES = 2 ** 20;
+
 /** Value-surface grid points per axis. */
 export const SURFACE_RESOLUTION = { default: 60, min: 2, max: 400 } as const;
 
