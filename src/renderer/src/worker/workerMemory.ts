@@ -8,7 +8,7 @@ import { failure, type Result } from '../../../core/result';
 import { importProjectData, type OpenedProject } from '../../../pipeline/openProject';
 import type { ProjectRun } from '../../../pipeline/projectRun';
 import type { ProjectDocument } from '../../../project/schema';
-import { runKey } from '../session/runKey';
+import { runKey } from '../../../shared/runKey';
 
 export interface EvaluatedRun {
   project: ProjectDocument;
@@ -23,7 +23,7 @@ export class WorkerQueryError extends Error {
   }
 }
 
-export interface WorkerSession {
+export interface WorkerMemory {
   setData(bytes: Uint8Array, fileName: string): void;
   data(): { bytes: Uint8Array; fileName: string };
   /** Import the data for project, or reuse the last import when nothing it depends on changed. */
@@ -46,7 +46,7 @@ function importKey(project: ProjectDocument): string {
   return JSON.stringify([project.data, project.columns]);
 }
 
-export function createWorkerSession(): WorkerSession {
+export function createWorkerMemory(): WorkerMemory {
   let data: { bytes: Uint8Array; fileName: string } | null = null;
   let cached: { key: string; opened: OpenedProject } | null = null;
   let last: EvaluatedRun | null = null;
