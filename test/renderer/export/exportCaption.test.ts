@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
 import { CAUTION_SHORT } from '../../../src/pipeline/cautions';
-import { wrap } from '../../../src/renderer/src/export/captionLayout';
-import { exportCaption, withCaution } from '../../../src/renderer/src/export/exportCaption';
+import { wrap } from '../../../src/figures/writers/captionLayout';
+import { exportCaption as captionWith, withCaution as cautionWith, type CaptionParts } from '../../../src/figures/writers/exportCaption';
+
+const exportCaption = (parts: CaptionParts) => captionWith(parts, CAUTION_SHORT);
+const withCaution = (caption: string) => cautionWith(caption, CAUTION_SHORT);
 
 describe('exportCaption', () => {
   const caption = exportCaption({ project: 'Tank levels', policy: 'gentle gain', settings: 'γ = 0.95, degree 2, 5 nodes, seed 7', date: '2025-01-15' });

@@ -1,17 +1,17 @@
 import { describe, expect, it } from 'vitest';
 import { inflateSync } from 'node:zlib';
 import { CAUTION_SHORT } from '../../../src/pipeline/cautions';
-import { exportPlan, ExportOptionsError } from '../../../src/renderer/src/export/exportPlan';
-import { exportPlotSvg } from '../../../src/renderer/src/export/exportSvg';
-import type { ExportOptions, PlotSpec } from '../../../src/renderer/src/export/plotSpec';
-import { pngSize, readChunks } from '../../../src/renderer/src/export/pngChunks';
-import { estimatedTextMeasure } from '../../../src/renderer/src/export/textMeasure';
-import { plotPalette } from '../../../src/renderer/src/plots/plotTheme';
+import { exportPlan, ExportOptionsError } from '../../../src/figures/writers/exportPlan';
+import { exportPlotSvg } from '../../../src/figures/writers/exportSvg';
+import type { ExportOptions, PlotSpec } from '../../../src/figures/writers/plotSpec';
+import { pngSize, readChunks } from '../../../src/figures/writers/pngChunks';
+import { estimatedTextMeasure } from '../../../src/figures/writers/textMeasure';
+import { plotPalette } from '../../../src/figures/parts/plotTheme';
 import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from '../plots/syntheticPlotData';
 import { discountSweep } from '../plots/syntheticSensitivity';
 import { xmlProblems } from './xmlWellFormed';
 
-const options: ExportOptions = { widthPx: 1950, heightPx: 1200, dpi: 300, background: 'white', caption: 'Project: Tank levels · Policy: gentle gain' };
+const options: ExportOptions = { widthPx: 1950, heightPx: 1200, dpi: 300, background: 'white', caption: 'Project: Tank levels · Policy: gentle gain', caution: CAUTION_SHORT };
 
 const specs: Record<PlotSpec['kind'], PlotSpec> = {
   surface: { kind: 'surface', props: { surface: bowlSurface(), xLabel: 'tank level (m)', yLabel: 'inflow (m³/h)', valueLabel: 'V^π (cost, kWh)', title: 'Value surface <gentle gain>', theme: 'dark' } },

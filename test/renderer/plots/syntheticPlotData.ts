@@ -10,7 +10,7 @@ import { quadratureNodesAt } from '../../../src/core/actionQuadrature';
 import { normalDensity } from '../../../src/core/normalDistribution';
 import { createGaussianPolicy } from '../../../src/core/policy';
 import type { Evaluation, FitIteration, PolicyEstimate, ValueSurface } from '../../../src/pipeline/estimates';
-import type { ActionSliceData } from '../../../src/renderer/src/plots/actionSlice';
+import type { ActionSliceData } from '../../../src/figures/charts/actionSlice';
 
 export function bowlSurface(nx = 40, ny = 30): ValueSurface {
   const x = Float64Array.from({ length: nx }, (_, i) => -1 + (3 * i) / (nx - 1));

@@ -6,8 +6,8 @@
  */
 import { Chart, type ChartConfiguration } from 'chart.js';
 import { useEffect, useId, useRef, type CSSProperties, type KeyboardEvent } from 'react';
-import { registerChartParts } from './chartParts';
-import type { PlotPalette } from './plotTheme';
+import { registerChartParts } from '../../../figures/parts/chartParts';
+import type { PlotPalette } from '../../../figures/parts/plotTheme';
 
 /** Moves the keyboard cursor; returns the new data index of dataset 0, or null to leave it. */
 export type KeyStep = (key: string, current: number, count: number) => number | null;

@@ -4,17 +4,17 @@
  * and its legend where the logs never went, and a tooltip (x, y, V, visits) on hover.
  */
 import type { ChartConfiguration, TooltipItem } from 'chart.js';
-import type { ValueSurface } from '../../../pipeline/estimates';
-import { colourBarPlugin } from './colourBar';
-import { createColourScale, parseColour, rgbText, type ColourScheme } from './colourScale';
-import { sharedOptions, valueAxis } from './chartStyle';
-import { heatmapLayerPlugin } from './heatmapLayer';
-import type { PlotLook } from './plotLook';
-import type { Theme } from './plotTheme';
-import { surfaceGeometry, unvisitedCount, unvisitedRuns } from './surfaceCells';
-import { surfaceRaster } from './surfaceRaster';
-import { formatValue } from './tickFormat';
-import { unvisitedLegendPlugin } from './unvisitedLegend';
+import type { SurfaceData as ValueSurface } from './figureData';
+import { colourBarPlugin } from '../parts/colourBar';
+import { createColourScale, parseColour, rgbText, type ColourScheme } from '../parts/colourScale';
+import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { heatmapLayerPlugin } from '../parts/heatmapLayer';
+import type { PlotLook } from '../parts/plotLook';
+import type { Theme } from '../parts/plotTheme';
+import { surfaceGeometry, unvisitedCount, unvisitedRuns } from '../parts/surfaceCells';
+import { surfaceRaster } from '../parts/surfaceRaster';
+import { formatValue } from '../parts/tickFormat';
+import { unvisitedLegendPlugin } from '../parts/unvisitedLegend';
 
 export const VALUE_SURFACE_DEFAULTS = {
   colourScheme: 'viridis' as ColourScheme,

@@ -8,7 +8,7 @@
  */
 import { drawCaption } from './captionLayout';
 import { exportPlan } from './exportPlan';
-import { drawChartOnce } from './offscreenChart';
+import { drawChartOnce } from './drawChart';
 import { plotSummary, plotTitle, type ExportOptions, type PlotSpec } from './plotSpec';
 import { SvgContext, type TextMeasure } from './svgContext';
 import { attributes, escapeXml, svgNumber } from './svgMarkup';

@@ -4,12 +4,12 @@
  * treat every plot alike.
  */
 import type { ChartConfiguration } from 'chart.js';
-import { actionSliceChart, actionSliceSummary, type ActionSlicePlotProps } from '../plots/actionSlice';
-import { convergenceChart, convergenceSummary, type ConvergencePlotProps } from '../plots/convergence';
-import type { PlotLook } from '../plots/plotLook';
-import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueSummary, type PolicyValueChartProps } from '../plots/policyValueChart';
-import { sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../plots/sensitivity';
-import { valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../plots/valueSurface';
+import { actionSliceChart, actionSliceSummary, type ActionSlicePlotProps } from '../charts/actionSlice';
+import { convergenceChart, convergenceSummary, type ConvergencePlotProps } from '../charts/convergence';
+import type { PlotLook } from '../parts/plotLook';
+import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueSummary, type PolicyValueChartProps } from '../charts/policyValueChart';
+import { sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../charts/sensitivity';
+import { valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../charts/valueSurface';
 
 export type PlotSpec =
   | { kind: 'surface'; props: ValueSurfacePlotProps }
@@ -26,6 +26,8 @@ export interface ExportOptions {
   background: 'white' | 'transparent';
   /** Project, policy, settings, date (see exportCaption); the short caution is added if missing. */
   caption: string;
+  /** The short engineering caution (src/pipeline/cautions.ts); added to the caption when missing. */
+  caution: string;
 }
 
 export function plotChartConfig(spec: PlotSpec, look: PlotLook): ChartConfiguration {

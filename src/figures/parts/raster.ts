@@ -28,14 +28,14 @@ function isRasterContext(ctx: unknown): ctx is RasterDrawingContext {
 }
 
 // Canvases made from a bitmap, kept while the bitmap lives (redraws on hover reuse them).
-const canvasOf = new WeakMap<Raster, HTMLCanvasElement>();
+const canvasOf = new WeakMap<Raster, OffscreenCanvas>();
 
-function rasterCanvas(raster: Raster): HTMLCanvasElement {
+/** The bitmap on an OffscreenCanvas (browsers and workers have one; Node does not: null). */
+function rasterCanvas(raster: Raster): OffscreenCanvas | null {
+  if (typeof OffscreenCanvas === 'undefined') return null;
   let canvas = canvasOf.get(raster);
   if (!canvas) {
-    canvas = document.createElement('canvas');
-    canvas.width = raster.width;
-    canvas.height = raster.height;
+    canvas = new OffscreenCanvas(raster.width, raster.height);
     const image = new ImageData(new Uint8ClampedArray(raster.rgba), raster.width, raster.height);
     canvas.getContext('2d')!.putImageData(image, 0, 0);
     canvasOf.set(raster, canvas);
@@ -49,8 +49,22 @@ export function paintRaster(ctx: CanvasRenderingContext2D, raster: Raster, rect:
     ctx.drawRaster(raster, rect.x, rect.y, rect.width, rect.height, smooth);
     return;
   }
+  const canvas = rasterCanvas(raster);
   ctx.save();
   ctx.imageSmoothingEnabled = smooth;
-  ctx.drawImage(rasterCanvas(raster), rect.x, rect.y, rect.width, rect.height);
+  if (canvas) ctx.drawImage(canvas, rect.x, rect.y, rect.width, rect.height);
+  else fillCells(ctx, raster, rect);
   ctx.restore();
+}
+
+/** Without an OffscreenCanvas: one rectangle per pixel (small grids only reach here). */
+function fillCells(ctx: CanvasRenderingContext2D, raster: Raster, rect: Rect): void {
+  const w = rect.width / raster.width, h = rect.height / raster.height;
+  for (let row = 0; row < raster.height; row++) {
+    for (let col = 0; col < raster.width; col++) {
+      const o = (row * raster.width + col) * 4, a = raster.rgba;
+      ctx.fillStyle = `rgba(${a[o]}, ${a[o + 1]}, ${a[o + 2]}, ${a[o + 3] / 255})`;
+      ctx.fillRect(rect.x + col * w, rect.y + row * h, w, h);
+    }
+  }
 }

@@ -8,7 +8,7 @@
  * Paths are kept in device coordinates (see svgPath.ts); text keeps its own matrix so rotated axis
  * titles stay text. Clipping nests: each clipPath is itself clipped by the one before it.
  */
-import type { Raster, RasterDrawingContext } from '../plots/raster';
+import type { Raster, RasterDrawingContext } from '../parts/raster';
 import { bytesToBase64 } from './base64';
 import { encodePng } from './pngEncoder';
 import { IDENTITY, lengthScale, multiply, RecordedPath, type Matrix } from './svgPath';

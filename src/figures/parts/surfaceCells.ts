@@ -6,7 +6,7 @@
  *
  * Shapes: x: nx, y: ny, values and visits: ny×nx row-major (row j is y[j]).
  */
-import type { ValueSurface } from '../../../pipeline/estimates';
+import type { SurfaceData as ValueSurface } from '../charts/figureData';
 
 export class SurfaceShapeError extends Error {
   constructor(message: string) {

@@ -4,12 +4,12 @@
  * is better; a reward: higher is better), because the numbers stay in the project's sense.
  */
 import type { ChartConfiguration } from 'chart.js';
-import type { Evaluation, FitStatus } from '../../../pipeline/estimates';
-import { sharedOptions, valueAxis } from './chartStyle';
-import { errorWhiskersPlugin } from './errorWhiskers';
-import { font, fontString, PLOT_FONTS, type PlotLook } from './plotLook';
-import type { Theme } from './plotTheme';
-import { formatValue } from './tickFormat';
+import type { FitOutcome as FitStatus, PolicyValueData as Evaluation } from './figureData';
+import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { errorWhiskersPlugin } from '../parts/errorWhiskers';
+import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
+import type { Theme } from '../parts/plotTheme';
+import { formatValue } from '../parts/tickFormat';
 
 export const POLICY_VALUE_DEFAULTS = {
   /** On-screen height: base plus one row per bar, CSS px. */

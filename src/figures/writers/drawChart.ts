@@ -4,8 +4,8 @@
  * exactly the size asked for. Chart.js draws synchronously in its constructor under these options.
  */
 import { BasicPlatform, Chart } from 'chart.js';
-import { registerChartParts } from '../plots/chartParts';
-import type { PlotLook } from '../plots/plotLook';
+import { registerChartParts } from '../parts/chartParts';
+import type { PlotLook } from '../parts/plotLook';
 import { plotChartConfig, type PlotSpec } from './plotSpec';
 
 /** Anything with a 2D context and a size: an HTMLCanvasElement, or SvgContext's stand-in canvas. */

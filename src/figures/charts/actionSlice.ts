@@ -4,15 +4,15 @@
  * (marker area ∝ weight, since V^π(s) = Σ w_j Q(s, a_j)), and — for clipped bounds — the point
  * masses at the limits as bars whose height is their probability.
  */
-import type { ActionSliceReply } from '../../../shared/workerMessages';
+import type { SliceData as ActionSliceReply } from './figureData';
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import { sharedOptions, valueAxis } from './chartStyle';
-import { densityOutline } from './densityOutline';
-import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
-import type { Theme } from './plotTheme';
-import { pointMassesAtBounds, type PointMass, type SliceBounds } from './pointMasses';
-import { interpolateOnGrid } from './sliceInterpolation';
-import { formatValue } from './tickFormat';
+import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { densityOutline } from '../parts/densityOutline';
+import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
+import type { Theme } from '../parts/plotTheme';
+import { pointMassesAtBounds, type PointMass, type SliceBounds } from '../parts/pointMasses';
+import { interpolateOnGrid } from '../parts/sliceInterpolation';
+import { formatValue } from '../parts/tickFormat';
 
 export const ACTION_SLICE_DEFAULTS = {
   heightPx: 380,

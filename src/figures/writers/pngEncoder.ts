@@ -6,7 +6,7 @@
  *
  * Layout: rgba is height×width×4 row-major, row 0 at the top.
  */
-import type { Raster } from '../plots/raster';
+import type { Raster } from '../parts/raster';
 import { adler32 } from './adler32';
 import { concatBytes, PNG_SIGNATURE, PngFormatError, pngChunk } from './pngChunks';
 

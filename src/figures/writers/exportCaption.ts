@@ -1,8 +1,7 @@
 /**
  * The caption under every exported plot: project, policy, settings and date on one line, then the
- * short engineering caution (src/pipeline/cautions.ts), which no export may leave out.
+ * short engineering caution (the host passes src/pipeline/cautions.ts's text), which no export may leave out.
  */
-import { CAUTION_SHORT } from '../../../pipeline/cautions';
 
 export interface CaptionParts {
   project: string;
@@ -12,7 +11,7 @@ export interface CaptionParts {
 }
 
 /** One line per part kind; newlines and runs of spaces inside a part become single spaces. */
-export function exportCaption(parts: CaptionParts): string {
+export function exportCaption(parts: CaptionParts, caution: string): string {
   const clean = (text: string) => text.replace(/\s+/g, ' ').trim();
   const facts = [
     clean(parts.project) && `Project: ${clean(parts.project)}`,
@@ -20,12 +19,12 @@ export function exportCaption(parts: CaptionParts): string {
     clean(parts.settings),
     clean(parts.date),
   ].filter(Boolean);
-  return `${facts.join(' · ')}\n${CAUTION_SHORT}`;
+  return `${facts.join(' · ')}\n${caution}`;
 }
 
 /** The caption as given, with the caution added when it is missing. */
-export function withCaution(caption: string): string {
+export function withCaution(caption: string, caution: string): string {
   const text = caption.trim();
-  if (text.includes(CAUTION_SHORT)) return text;
-  return text ? `${text}\n${CAUTION_SHORT}` : CAUTION_SHORT;
+  if (text.includes(caution)) return text;
+  return text ? `${text}\n${caution}` : caution;
 }

@@ -4,8 +4,8 @@
  * palette, so text never comes out white on white; a transparent one keeps the plot's theme), and
  * the caption block under the plot.
  */
-import { plotPalette } from '../plots/plotTheme';
-import type { PlotLook } from '../plots/plotLook';
+import { plotPalette } from '../parts/plotTheme';
+import type { PlotLook } from '../parts/plotLook';
 import { layoutCaption, type CaptionBlock } from './captionLayout';
 import { withCaution } from './exportCaption';
 import type { ExportOptions, PlotSpec } from './plotSpec';
@@ -40,7 +40,7 @@ export function exportPlan(spec: PlotSpec, options: ExportOptions, measure: Text
   if (background !== 'white' && background !== 'transparent') throw new ExportOptionsError(`background: expected "white" or "transparent", got "${String(background)}"`);
   const scale = dpi / 96;
   const look: PlotLook = { palette: plotPalette(background === 'white' ? 'light' : spec.props.theme), scale, interactive: false };
-  const caption = layoutCaption(withCaution(options.caption ?? ''), widthPx, look, measure);
+  const caption = layoutCaption(withCaution(options.caption ?? '', options.caution), widthPx, look, measure);
   const plotHeightPx = Math.floor(heightPx - caption.heightPx);
   const needed = Math.ceil(caption.heightPx + l.minPlotHeightPx * scale);
   if (plotHeightPx < l.minPlotHeightPx * scale) {

@@ -5,11 +5,11 @@
  * that flips within the range depends on the setting.
  */
 import type { ChartConfiguration, ChartDataset } from 'chart.js';
-import type { SensitivityCurve } from '../../../pipeline/assessment';
-import { sharedOptions, valueAxis } from './chartStyle';
-import type { PlotLook } from './plotLook';
-import type { Theme } from './plotTheme';
-import { formatValue } from './tickFormat';
+import type { SensitivityData as SensitivityCurve } from './figureData';
+import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import type { PlotLook } from '../parts/plotLook';
+import type { Theme } from '../parts/plotTheme';
+import { formatValue } from '../parts/tickFormat';
 
 export const SENSITIVITY_DEFAULTS = { heightPx: 300, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6 } as const;
 

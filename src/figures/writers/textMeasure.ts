@@ -1,10 +1,12 @@
 /**
  * Text widths for the SVG exporter and caption wrapping. In the app the browser's own canvas
- * measures (so the SVG's layout matches what the same fonts render); where no canvas exists (unit
- * tests in Node) an estimate of 0.55 em per character (0.6 em bold) stands in — common practice for
- * a proportional sans-serif average, good enough for layout tests.
+ * measures (so the SVG's layout matches what the same fonts render); where no canvas exists (the
+ * command line, unit tests in Node) the Helvetica metrics of fontMetrics.ts stand in. The plain
+ * estimate of 0.55 em per character (0.6 em bold; common practice for a sans-serif average) stays
+ * for layout tests that want round numbers.
  */
 import type { TextMeasure } from './svgContext';
+import { metricTextMeasure } from './fontMetrics';
 import { parseFont } from './svgMarkup';
 
 export const estimatedTextMeasure: TextMeasure = (font, text) => {
@@ -13,9 +15,7 @@ export const estimatedTextMeasure: TextMeasure = (font, text) => {
 };
 
 export function canvasTextMeasure(): TextMeasure | null {
-  const ctx = typeof OffscreenCanvas !== 'undefined'
-    ? new OffscreenCanvas(1, 1).getContext('2d')
-    : typeof document !== 'undefined' ? document.createElement('canvas').getContext('2d') : null;
+  const ctx = typeof OffscreenCanvas !== 'undefined' ? new OffscreenCanvas(1, 1).getContext('2d') : null;
   if (!ctx) return null;
   return (font, text) => {
     ctx.font = font;
@@ -24,5 +24,5 @@ export function canvasTextMeasure(): TextMeasure | null {
 }
 
 export function defaultTextMeasure(): TextMeasure {
-  return canvasTextMeasure() ?? estimatedTextMeasure;
+  return canvasTextMeasure() ?? metricTextMeasure;
 }

@@ -2,7 +2,7 @@
  * The caption block under an exported plot: words wrapped greedily to the image width (each line
  * of the caption text starts a new paragraph), and its height, so the plot gets the rest.
  */
-import { fontString, PLOT_FONTS, type PlotLook } from '../plots/plotLook';
+import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { TextMeasure } from './svgContext';
 
 export const CAPTION_DEFAULTS = { marginPx: 12, paddingTopPx: 6, paddingBottomPx: 10, lineHeightEm: 1.35 } as const;

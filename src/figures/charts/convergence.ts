@@ -4,11 +4,11 @@
  * held-out Bellman error. A log axis cannot show zero or negative values, so those points are gaps.
  */
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import type { FitIteration } from '../../../pipeline/estimates';
-import { sharedOptions, valueAxis } from './chartStyle';
-import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
-import type { Theme } from './plotTheme';
-import { formatValue } from './tickFormat';
+import type { FitStep as FitIteration } from './figureData';
+import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
+import type { Theme } from '../parts/plotTheme';
+import { formatValue } from '../parts/tickFormat';
 
 export const CONVERGENCE_DEFAULTS = { heightPx: 320, lineWidthPx: 2, pointRadiusPx: 2.5 } as const;
 
