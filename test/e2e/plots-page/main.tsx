@@ -8,7 +8,7 @@ import { CAUTION, exportCaption, exportPlotPng, exportPlotSvg, type ExportOption
 import { bytesToBase64 } from '../../../src/figures/writers/base64';
 import { ActionSlicePlot, ConvergencePlot, PolicyValueChart, ValueSurfacePlot, type Theme } from '../../../src/renderer/src/plots';
 import { plotPalette } from '../../../src/figures/parts/plotTheme';
-import { clippedSlice, SLICE_POLICY } from '../../renderer/plots/syntheticPlotData';
+import { clippedSlice, SLICE_POLICY } from '../../figures/syntheticPlotData';
 import { PLOT_KINDS, plotSpec, type PlotKind } from './plotSpecs';
 import { canvasStats, colourBarProbe, decodePng, parseSvg, renderSvg } from './pageProbes';
 

@@ -7,9 +7,9 @@ import type { ExportOptions, PlotSpec } from '../../../src/figures/writers/plotS
 import { pngSize, readChunks } from '../../../src/figures/writers/pngChunks';
 import { estimatedTextMeasure } from '../../../src/figures/writers/textMeasure';
 import { plotPalette } from '../../../src/figures/parts/plotTheme';
-import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from '../plots/syntheticPlotData';
-import { discountSweep } from '../plots/syntheticSensitivity';
-import { xmlProblems } from './xmlWellFormed';
+import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from '../../figures/syntheticPlotData';
+import { discountSweep } from '../../figures/syntheticSensitivity';
+import { xmlProblems } from '../../figures/xmlWellFormed';
 
 const options: ExportOptions = { widthPx: 1950, heightPx: 1200, dpi: 300, background: 'white', caption: 'Project: Tank levels · Policy: gentle gain', caution: CAUTION_SHORT };
 

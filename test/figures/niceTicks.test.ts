@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { niceNumber, niceTicks, TickRangeError } from '../../../src/figures/parts/niceTicks';
-import { formatTick, formatValue } from '../../../src/figures/parts/tickFormat';
+import { niceNumber, niceTicks, TickRangeError } from '../../src/figures/parts/niceTicks';
+import { formatTick, formatValue } from '../../src/figures/parts/tickFormat';
 
 describe('niceNumber (Heckbert, "Nice numbers for graph labels", Graphics Gems, 1990)', () => {
   // Heckbert's rules: rounded — fraction < 1.5 → 1, < 3 → 2, < 7 → 5, else 10; ceiling — ≤ 1, ≤ 2, ≤ 5, else 10.

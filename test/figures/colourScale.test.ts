@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { interpolateCividis, interpolateViridis } from 'd3-scale-chromatic';
-import { ColourScaleError, colourTable, createColourScale, parseColour } from '../../../src/figures/parts/colourScale';
+import { ColourScaleError, colourTable, createColourScale, parseColour } from '../../src/figures/parts/colourScale';
 
 // Published colour tables: matplotlib, lib/matplotlib/_cm_listed.py — `_viridis_data` (the map of
 // van der Walt & Smith, 2015) and `_cividis_data` (Nuñez, Anderton & Renslow, 2018, PLoS ONE

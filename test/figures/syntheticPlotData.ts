@@ -6,11 +6,11 @@
  *   quadrature nodes from the project's own bounded-normal rule;
  * - a geometric fit history and an evaluation of three candidates next to the logged behaviour.
  */
-import { quadratureNodesAt } from '../../../src/core/actionQuadrature';
-import { normalDensity } from '../../../src/core/normalDistribution';
-import { createGaussianPolicy } from '../../../src/core/policy';
-import type { Evaluation, FitIteration, PolicyEstimate, ValueSurface } from '../../../src/pipeline/estimates';
-import type { ActionSliceData } from '../../../src/figures/charts/actionSlice';
+import { quadratureNodesAt } from '../../src/core/actionQuadrature';
+import { normalDensity } from '../../src/core/normalDistribution';
+import { createGaussianPolicy } from '../../src/core/policy';
+import type { Evaluation, FitIteration, PolicyEstimate, ValueSurface } from '../../src/pipeline/estimates';
+import type { ActionSliceData } from '../../src/figures/charts/actionSlice';
 
 export function bowlSurface(nx = 40, ny = 30): ValueSurface {
   const x = Float64Array.from({ length: nx }, (_, i) => -1 + (3 * i) / (nx - 1));

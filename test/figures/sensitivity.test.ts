@@ -1,7 +1,7 @@
 /** The sensitivity chart: one line per series, the behaviour dashed in the reference colour, the project's setting marked, gaps kept. */
 import { describe, expect, it } from 'vitest';
-import { screenLook } from '../../../src/figures/parts/plotLook';
-import { sensitivityChart, sensitivitySummary } from '../../../src/figures/charts/sensitivity';
+import { screenLook } from '../../src/figures/parts/plotLook';
+import { sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
 import { discountSweep } from './syntheticSensitivity';
 
 describe('sensitivity chart', () => {

@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import { convergenceChart, convergenceSeries, convergenceSummary, isNetworkHistory, logTickLabel } from '../../../src/figures/charts/convergence';
-import { plotPalette } from '../../../src/figures/parts/plotTheme';
-import type { PlotLook } from '../../../src/figures/parts/plotLook';
-import { LOGGED_BEHAVIOUR_LABEL, policyValueChart, policyValueRows, policyValueSummary, valueSenseText } from '../../../src/figures/charts/policyValueChart';
+import { convergenceChart, convergenceSeries, convergenceSummary, isNetworkHistory, logTickLabel } from '../../src/figures/charts/convergence';
+import { plotPalette } from '../../src/figures/parts/plotTheme';
+import type { PlotLook } from '../../src/figures/parts/plotLook';
+import { LOGGED_BEHAVIOUR_LABEL, policyValueChart, policyValueRows, policyValueSummary, valueSenseText } from '../../src/figures/charts/policyValueChart';
 import { geometricHistory, threeCandidateEvaluation } from './syntheticPlotData';
 
 const look: PlotLook = { palette: plotPalette('dark'), scale: 1, interactive: false };

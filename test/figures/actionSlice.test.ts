@@ -1,9 +1,9 @@
 import { describe, expect, it } from 'vitest';
-import { actionSliceChart, actionSliceSummary, ActionSliceShapeError } from '../../../src/figures/charts/actionSlice';
-import { plotPalette } from '../../../src/figures/parts/plotTheme';
-import type { PlotLook } from '../../../src/figures/parts/plotLook';
-import { pointMassesAtBounds } from '../../../src/figures/parts/pointMasses';
-import { interpolateOnGrid } from '../../../src/figures/parts/sliceInterpolation';
+import { actionSliceChart, actionSliceSummary, ActionSliceShapeError } from '../../src/figures/charts/actionSlice';
+import { plotPalette } from '../../src/figures/parts/plotTheme';
+import type { PlotLook } from '../../src/figures/parts/plotLook';
+import { pointMassesAtBounds } from '../../src/figures/parts/pointMasses';
+import { interpolateOnGrid } from '../../src/figures/parts/sliceInterpolation';
 import { clippedSlice, SLICE_POLICY } from './syntheticPlotData';
 
 const look: PlotLook = { palette: plotPalette('light'), scale: 1, interactive: false };
@@ -79,7 +79,7 @@ describe('actionSliceChart', () => {
 
 describe('densityOutline', () => {
   it('drops to zero exactly at the bounds, with the edge value extrapolated from inside', async () => {
-    const { densityOutline } = await import('../../../src/figures/parts/densityOutline');
+    const { densityOutline } = await import('../../src/figures/parts/densityOutline');
     const actions = Float64Array.of(0, 1, 2, 3, 4), density = Float64Array.of(9, 1, 2, 3, 9); // 9s lie outside the bounds
     const outline = densityOutline(actions, density, { lo: 0.5, hi: 3.5, mode: 'truncate' });
     expect(outline).toEqual([
@@ -92,7 +92,7 @@ describe('densityOutline', () => {
 
 describe('actionRange', () => {
   it('reaches past a slice end that carries a point mass, and not otherwise', async () => {
-    const { actionRange } = await import('../../../src/figures/charts/actionSlice');
+    const { actionRange } = await import('../../src/figures/charts/actionSlice');
     const actions = Float64Array.of(-1, 0, 1.1);
     expect(actionRange(actions, [])).toEqual({ min: -1, max: 1.1 });
     const range = actionRange(actions, [{ action: 1.1, probability: 0.16, side: 'upper' }]);

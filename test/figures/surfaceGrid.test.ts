@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { createColourScale } from '../../../src/figures/parts/colourScale';
-import { SurfaceShapeError, surfaceGeometry, unvisitedCount, unvisitedRuns } from '../../../src/figures/parts/surfaceCells';
-import { colourBarRaster, surfaceRaster } from '../../../src/figures/parts/surfaceRaster';
+import { createColourScale } from '../../src/figures/parts/colourScale';
+import { SurfaceShapeError, surfaceGeometry, unvisitedCount, unvisitedRuns } from '../../src/figures/parts/surfaceCells';
+import { colourBarRaster, surfaceRaster } from '../../src/figures/parts/surfaceRaster';
 import { bowlSurface } from './syntheticPlotData';
 
 describe('surface geometry', () => {

@@ -1,5 +1,5 @@
 /** A made-up sensitivity curve for plot and export tests: two candidates and the behaviour over the discount. */
-import type { SensitivityCurve } from '../../../src/pipeline/assessment';
+import type { SensitivityCurve } from '../../src/pipeline/assessment';
 
 export function discountSweep(): SensitivityCurve {
   const settings = [0.9, 0.93, 0.95, 0.97, 0.99];
