@@ -1,8 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { crc32 as zlibCrc32 } from 'node:zlib';
-import { adler32 } from '../../../src/figures/writers/adler32';
-import { crc32 } from '../../../src/figures/writers/crc32';
-import { createRandom } from '../../../src/core/random';
+import { adler32 } from '../../src/figures/writers/adler32';
+import { crc32 } from '../../src/figures/writers/crc32';
+import { createRandom } from '../../src/core/random';
 
 const ascii = (text: string) => new TextEncoder().encode(text);
 

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { escapeXml, parseFont, parsePaint, svgNumber } from '../../../src/figures/writers/svgMarkup';
-import { IDENTITY, multiply, RecordedPath, type Matrix } from '../../../src/figures/writers/svgPath';
+import { escapeXml, parseFont, parsePaint, svgNumber } from '../../src/figures/writers/svgMarkup';
+import { IDENTITY, multiply, RecordedPath, type Matrix } from '../../src/figures/writers/svgPath';
 
 describe('svg markup', () => {
   it('escapes the five XML special characters and drops forbidden controls', () => {

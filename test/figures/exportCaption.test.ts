@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
-import { CAUTION_SHORT } from '../../../src/pipeline/cautions';
-import { wrap } from '../../../src/figures/writers/captionLayout';
-import { exportCaption as captionWith, withCaution as cautionWith, type CaptionParts } from '../../../src/figures/writers/exportCaption';
+import { CAUTION_SHORT } from '../../src/pipeline/cautions';
+import { wrap } from '../../src/figures/writers/captionLayout';
+import { exportCaption as captionWith, withCaution as cautionWith, type CaptionParts } from '../../src/figures/writers/exportCaption';
 
 const exportCaption = (parts: CaptionParts) => captionWith(parts, CAUTION_SHORT);
 const withCaution = (caption: string) => cautionWith(caption, CAUTION_SHORT);

@@ -1,15 +1,15 @@
 import { describe, expect, it } from 'vitest';
 import { inflateSync } from 'node:zlib';
-import { CAUTION_SHORT } from '../../../src/pipeline/cautions';
-import { exportPlan, ExportOptionsError } from '../../../src/figures/writers/exportPlan';
-import { exportPlotSvg } from '../../../src/figures/writers/exportSvg';
-import type { ExportOptions, PlotSpec } from '../../../src/figures/writers/plotSpec';
-import { pngSize, readChunks } from '../../../src/figures/writers/pngChunks';
-import { estimatedTextMeasure } from '../../../src/figures/writers/textMeasure';
-import { plotPalette } from '../../../src/figures/parts/plotTheme';
-import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from '../../figures/syntheticPlotData';
-import { discountSweep } from '../../figures/syntheticSensitivity';
-import { xmlProblems } from '../../figures/xmlWellFormed';
+import { CAUTION_SHORT } from '../../src/pipeline/cautions';
+import { exportPlan, ExportOptionsError } from '../../src/figures/writers/exportPlan';
+import { exportPlotSvg } from '../../src/figures/writers/exportSvg';
+import type { ExportOptions, PlotSpec } from '../../src/figures/writers/plotSpec';
+import { pngSize, readChunks } from '../../src/figures/writers/pngChunks';
+import { estimatedTextMeasure } from '../../src/figures/writers/textMeasure';
+import { plotPalette } from '../../src/figures/parts/plotTheme';
+import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from './syntheticPlotData';
+import { discountSweep } from './syntheticSensitivity';
+import { xmlProblems } from './xmlWellFormed';
 
 const options: ExportOptions = { widthPx: 1950, heightPx: 1200, dpi: 300, background: 'white', caption: 'Project: Tank levels · Policy: gentle gain', caution: CAUTION_SHORT };
 

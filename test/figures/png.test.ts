@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { crc32 as zlibCrc32, inflateSync } from 'node:zlib';
-import { encodePng } from '../../../src/figures/writers/pngEncoder';
-import { physChunk, pixelsPerMetre, PngFormatError, pngChunk, pngDpi, pngSize, readChunks, withPhysicalResolution } from '../../../src/figures/writers/pngChunks';
+import { encodePng } from '../../src/figures/writers/pngEncoder';
+import { physChunk, pixelsPerMetre, PngFormatError, pngChunk, pngDpi, pngSize, readChunks, withPhysicalResolution } from '../../src/figures/writers/pngChunks';
 
 const bytes = (...values: number[]) => Uint8Array.from(values);
 
