@@ -22,9 +22,12 @@ const signalSchema = z.object({
   unit: z.string().default(''),
 });
 
+/** The reward's or cost's own unit (e.g. "€", "kWh"); J, V and Q are in it, discounted. Optional. */
+const valueUnit = z.string().max(40).optional();
+
 const rewardSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']) }),
-  z.object({ kind: z.literal('expression'), expression: z.string().trim().min(1), sense: z.enum(['reward', 'cost']) }),
+  z.object({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  z.object({ kind: z.literal('expression'), expression: z.string().trim().min(1), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
 ]);
 
 const nextStateSchema = z.discriminatedUnion('kind', [

@@ -46,7 +46,7 @@ describe('actionSliceChart', () => {
 
   it('draws Q, the nodes, the density and the point masses', () => {
     expect(datasets.map((d) => d.label)).toEqual([
-      'Q(s, a): cost (kWh)', 'quadrature nodes (marker area ∝ weight)', 'policy density π(a | s)', 'point mass at a bound (bar height = probability)',
+      'Q(s, a)', 'quadrature nodes (marker area ∝ weight)', 'policy density π(a | s)', 'point mass at a bound (bar height = probability)',
     ]);
     expect(datasets[3].data.map((p) => p.x)).toEqual([SLICE_POLICY.lo, SLICE_POLICY.hi]);
   });
@@ -72,7 +72,7 @@ describe('actionSliceChart', () => {
   it('summary names the best action and the point masses', () => {
     const text = actionSliceSummary(props);
     expect(text).toContain('highest 5 at 0.3');
-    expect(text).toContain('lower bound -1');
+    expect(text).toContain('lower bound −1');
     expect(text).toContain('upper bound 1.1');
   });
 });

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import { convergenceChart, convergenceSeries, convergenceSummary, isNetworkHistory, logTickLabel } from '../../src/figures/charts/convergence';
 import { plotPalette } from '../../src/figures/parts/plotTheme';
 import type { PlotLook } from '../../src/figures/parts/plotLook';
-import { LOGGED_BEHAVIOUR_LABEL, policyValueChart, policyValueRows, policyValueSummary, valueSenseText } from '../../src/figures/charts/policyValueChart';
+import { LOGGED_BEHAVIOUR_LABEL, policyValueAxisTitle, policyValueChart, policyValueRows, policyValueSummary, valueSenseText } from '../../src/figures/charts/policyValueChart';
 import { geometricHistory, threeCandidateEvaluation } from './syntheticPlotData';
 
 const look: PlotLook = { palette: plotPalette('dark'), scale: 1, interactive: false };
@@ -17,7 +17,7 @@ describe('convergence plot', () => {
   it('network fits show loss and held-out Bellman error', () => {
     const history = geometricHistory(3).map((h) => ({ ...h, weightChange: null, loss: 0.1 / h.iteration }));
     expect(isNetworkHistory(history)).toBe(true);
-    expect(convergenceSeries(history).map((s) => s.label)).toEqual(['training loss', 'held-out Bellman error (mean squared)']);
+    expect(convergenceSeries(history).map((s) => s.label)).toEqual(['training loss', 'one-step mismatch on held-out runs (mean square)']);
   });
 
   it('leaves gaps where a log axis cannot show the value', () => {
@@ -30,12 +30,12 @@ describe('convergence plot', () => {
     expect(data[0][0]).toBe(0.5);
   });
 
-  it('labels only 1, 2 and 5 × 10^k on the log axis', () => {
-    expect([1e-4, 2e-3, 0.05, 1, 20, 3, 0.4, 7e5].map(logTickLabel)).toEqual(['0.0001', '0.002', '0.05', '1', '20', '', '', '']);
+  it('labels only the decades 10^k on the log axis, all as powers of ten', () => {
+    expect([1e-4, 2e-3, 0.05, 1, 20, 3, 0.4, 7e5].map(logTickLabel)).toEqual(['10⁻⁴', '', '', '10⁰', '', '', '', '']); // decades only, one notation
   });
 
   it('summary gives the last values, and says when there is no history', () => {
-    expect(convergenceSummary({ history: geometricHistory(2), title: '', theme: 'light' })).toMatch(/2 iterations.*relative weight change 0\.4; Bellman residual \(mean squared\) 0\.435/);
+    expect(convergenceSummary({ history: geometricHistory(2), title: '', theme: 'light' })).toMatch(/2 iterations.*relative weight change 0\.4; one-step mismatch \(mean square\) 0\.435/);
     expect(convergenceSummary({ history: [], title: '', theme: 'light' })).toMatch(/no iterations/);
   });
 });
@@ -49,8 +49,8 @@ describe('policy value chart', () => {
 
   it('the value sense is in the axis title', () => {
     const config = policyValueChart({ evaluation, theme: 'dark' }, look);
-    const x = config.options?.scales?.x as { title: { text: string } };
-    expect(x.title.text).toBe('policy value J (cost: lower is better)');
+    expect(config.plugins?.map((p) => p.id)).toContain('setpointAxisTitle-x');
+    expect(policyValueAxisTitle({ evaluation, theme: 'dark', unit: '€' })).toBe('J, expected cost (€, discounted): lower is better');
     expect(valueSenseText('reward')).toBe('reward: higher is better');
   });
 

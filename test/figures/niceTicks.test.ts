@@ -64,7 +64,7 @@ describe('tick text', () => {
   });
   it('exponent notation for very large and very small magnitudes', () => {
     expect(formatTick(2.5e7, 0)).toBe('2.50e7');
-    expect(formatTick(3e-6, 6)).toBe('3.00e-6');
+    expect(formatTick(3e-6, 6)).toBe('3.00e−6'); // true minus sign (U+2212)
     expect(formatValue(123456.789)).toBe('123,500');
     expect(formatValue(0.012345)).toBe('0.01235');
     expect(formatValue(NaN)).toBe('NaN');

@@ -80,7 +80,7 @@ describe('exportPlotSvg', () => {
     expect(slice).toContain('upper limit 1.1: P = 0.1587');
     expect(fit).toContain('relative weight change');
     expect(fit).toContain('value (log scale)');
-    expect(bars).toContain('policy value J (cost: lower is better)');
+    expect(bars).toContain('J, expected cost (discounted): lower is better');
     expect(bars).toContain('41.2 ± 1.8');
   });
 

@@ -6,7 +6,8 @@
  */
 import type { SliceData as ActionSliceReply } from './figureData';
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
-import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
+import { legendPlugin, type LegendKey } from '../parts/legendBox';
 import { densityOutline } from '../parts/densityOutline';
 import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
@@ -39,6 +40,12 @@ export interface ActionSlicePlotProps {
   valueLabel: string;
   title: string;
   theme: Theme;
+  /** Actions logged near this state: shaded, so a reader sees where Q is extrapolated. */
+  loggedRange?: readonly [number, number];
+  /** The candidate's mean action at this state: a dotted line. */
+  meanAction?: number;
+  /** The line under the title; default "<policy> at state (…)". */
+  subtitle?: string;
 }
 
 export class ActionSliceShapeError extends Error {
@@ -54,13 +61,19 @@ export function actionSliceChart(props: ActionSlicePlotProps, look: PlotLook): C
   const { slice } = props, d = ACTION_SLICE_DEFAULTS;
   checkSlice(slice);
   const masses = pointMassesAtBounds(slice.nodes, slice.bounds);
-  const shared = sharedOptions(look, props.title, `${slice.policyName} at state (${slice.state.map(formatValue).join(', ')})`);
+  const shared = sharedOptions(look, props.title, props.subtitle ?? `${slice.policyName} at state (${slice.state.map(formatValue).join(', ')})`);
   const datasets = sliceDatasets(props, masses, look);
   const densityPeak = Math.max(...Array.from(slice.density).filter(Number.isFinite), 0);
   return {
     type: 'line',
     data: { datasets: datasets as ChartDataset<'line', XY[]>[] },
-    plugins: [boundsPlugin(slice.bounds, masses, look)],
+    plugins: [
+      bandPlugin(props, look), boundsPlugin(slice.bounds, masses, look), legendPlugin(sliceKeys(props, masses, look), look),
+      ...axisTitles(look, [
+        { scaleId: 'x', position: 'bottom', text: props.actionLabel }, { scaleId: 'y', position: 'left', text: props.valueLabel },
+        ...(slice.density.some((v) => v > 0) ? [{ scaleId: 'yDensity', position: 'right' as const, text: 'policy density' }] : []),
+      ]),
+    ],
     options: {
       ...shared,
       parsing: false,
@@ -72,19 +85,56 @@ export function actionSliceChart(props: ActionSlicePlotProps, look: PlotLook): C
           // Only round ticks: a padded end would read "-1.063"; the bounds carry their values in their labels.
           ticks: { ...valueAxis(look, '', 'bottom').ticks, includeBounds: false },
         },
-        y: { type: 'linear', ...valueAxis(look, `Q(s, a): ${props.valueLabel}`, 'left') },
+        y: { type: 'linear', ...valueAxis(look, props.valueLabel, 'left') },
         yDensity: {
           type: 'linear', min: 0, suggestedMax: densityPeak > 0 ? densityPeak * d.densityHeadroom : 1,
-          ...valueAxis(look, 'policy density', 'right', false),
+          ...valueAxis(look, 'policy density', 'right', false), display: densityPeak > 0,
         },
         yMass: { type: 'linear', min: 0, max: 1, display: false },
       },
       plugins: {
         ...shared.plugins,
-        // Legend in dataset order (Q first), not in drawing order.
-        legend: { ...shared.plugins?.legend, labels: { ...shared.plugins?.legend?.labels, sort: (a, b) => (a.datasetIndex ?? 0) - (b.datasetIndex ?? 0) } },
         tooltip: { ...shared.plugins?.tooltip, callbacks: { label: (item) => `${item.dataset.label}: ${formatValue(item.parsed.y ?? NaN)} at ${formatValue(item.parsed.x ?? NaN)}` } },
       },
+    },
+  };
+}
+
+/** Legend keys drawn as the series are: the Q line, node markers, density area, masses, band, mean. */
+function sliceKeys(props: ActionSlicePlotProps, masses: PointMass[], look: PlotLook): LegendKey[] {
+  const p = look.palette, d = ACTION_SLICE_DEFAULTS, slice = props.slice;
+  const keys: LegendKey[] = [{ label: 'Q^{π}(s, a) along the action', kind: 'line', colour: p.series[0], lineWidthPx: d.lineWidthPx }];
+  if (slice.nodes.points.length) keys.push({ label: 'quadrature nodes (area ∝ weight)', kind: 'marker', colour: p.series[1], markerRadiusPx: 4 });
+  if (slice.density.some((v) => v > 0)) keys.push({ label: 'policy density π(a | s)', kind: 'area', colour: p.densityFill, border: p.reference });
+  if (masses.length) keys.push({ label: 'probability at a limit (bar height)', kind: 'area', colour: p.series[2] });
+  if (props.loggedRange) keys.push({ label: 'actions logged near this state', kind: 'area', colour: p.bandFill });
+  if (props.meanAction !== undefined) keys.push({ label: 'candidate’s mean action', kind: 'line', colour: p.text, dash: [2, 3], lineWidthPx: 1.2 });
+  return keys;
+}
+
+/** The logged-action band (under the curves) and the candidate's mean action (a dotted line). */
+function bandPlugin(props: ActionSlicePlotProps, look: PlotLook): Plugin {
+  return {
+    id: 'setpointLoggedBand',
+    beforeDatasetsDraw(chart) {
+      const { ctx, chartArea: a } = chart, xs = chart.scales.x, s = look.scale;
+      ctx.save();
+      if (props.loggedRange) {
+        const x0 = Math.max(a.left, xs.getPixelForValue(props.loggedRange[0])), x1 = Math.min(a.right, xs.getPixelForValue(props.loggedRange[1]));
+        ctx.fillStyle = look.palette.bandFill;
+        if (x1 > x0) ctx.fillRect(x0, a.top, x1 - x0, a.bottom - a.top);
+      }
+      if (props.meanAction !== undefined && props.meanAction >= xs.min && props.meanAction <= xs.max) {
+        const x = xs.getPixelForValue(props.meanAction);
+        ctx.strokeStyle = look.palette.text;
+        ctx.lineWidth = 1.2 * s;
+        ctx.setLineDash([2 * s, 3 * s]);
+        ctx.beginPath();
+        ctx.moveTo(x, a.top);
+        ctx.lineTo(x, a.bottom);
+        ctx.stroke();
+      }
+      ctx.restore();
     },
   };
 }
@@ -106,7 +156,7 @@ function sliceDatasets(props: ActionSlicePlotProps, masses: PointMass[], look: P
   const { slice } = props, p = look.palette, s = look.scale, d = ACTION_SLICE_DEFAULTS, n = slice.actions.length;
   const datasets: ChartDataset<'line' | 'scatter' | 'bar', XY[]>[] = [
     {
-      type: 'line', label: `Q(s, a): ${props.valueLabel}`, yAxisID: 'y', order: 1,
+      type: 'line', label: 'Q(s, a)', yAxisID: 'y', order: 1,
       data: Array.from({ length: n }, (_, i) => ({ x: slice.actions[i], y: slice.actionValues[i] })),
       borderColor: p.series[0], backgroundColor: p.series[0], borderWidth: d.lineWidthPx * s, pointRadius: 0, pointHoverRadius: 0, tension: 0,
     },

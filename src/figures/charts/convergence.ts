@@ -5,10 +5,11 @@
  */
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import type { FitStep as FitIteration } from './figureData';
-import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
-import { formatValue } from '../parts/tickFormat';
+import { decadeLabel, formatValue } from '../parts/tickFormat';
+import { legendPlugin } from '../parts/legendBox';
 
 export const CONVERGENCE_DEFAULTS = { heightPx: 320, lineWidthPx: 2, pointRadiusPx: 2.5 } as const;
 
@@ -33,8 +34,8 @@ export function isNetworkHistory(history: readonly FitIteration[]): boolean {
 
 export function convergenceSeries(history: readonly FitIteration[]): Series[] {
   return isNetworkHistory(history)
-    ? [{ field: 'loss', label: 'training loss' }, { field: 'bellmanResidual', label: 'held-out Bellman error (mean squared)' }]
-    : [{ field: 'weightChange', label: 'relative weight change' }, { field: 'bellmanResidual', label: 'Bellman residual (mean squared)' }];
+    ? [{ field: 'loss', label: 'training loss' }, { field: 'bellmanResidual', label: 'one-step mismatch on held-out runs (mean square)' }]
+    : [{ field: 'weightChange', label: 'relative weight change' }, { field: 'bellmanResidual', label: 'one-step mismatch (mean square)' }];
 }
 
 function positiveOrNull(v: number | null): number | null {
@@ -55,7 +56,11 @@ export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): C
   return {
     type: 'line',
     data: { datasets },
-    plugins: hasData ? [] : [emptyNotice(look)],
+    plugins: [
+      legendPlugin(series.map((serie, k) => ({ label: serie.label, kind: 'line' as const, colour: p.series[k], dash: k === 1 ? [6, 3] : [], lineWidthPx: d.lineWidthPx })), look),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: 'iteration' }, { scaleId: 'y', position: 'left', text: 'value (log scale)' }]),
+      ...(hasData ? [] : [emptyNotice(look)]),
+    ],
     options: {
       ...shared,
       parsing: false,
@@ -66,20 +71,15 @@ export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): C
       },
       plugins: {
         ...shared.plugins,
-        // Legend swatches as short lines, so the dashed series shows dashed.
-        legend: { ...shared.plugins?.legend, labels: { ...shared.plugins?.legend?.labels, usePointStyle: true, pointStyle: 'line', pointStyleWidth: 28 * s } },
         tooltip: { ...shared.plugins?.tooltip, callbacks: { label: (item) => `${item.dataset.label}: ${formatValue(item.parsed.y ?? NaN)}` } },
       },
     },
   };
 }
 
-/** Label only 1·10^k ticks (and 2 and 5 · 10^k when they fit), in short form; others stay unlabelled. */
+/** Label only the decades, all in one notation ("10⁻⁵"); ticks between decades stay unlabelled. */
 export function logTickLabel(value: number): string {
-  if (!(value > 0)) return '';
-  const mantissa = value / 10 ** Math.floor(Math.log10(value) + 1e-9);
-  const nearest = Math.round(mantissa);
-  return Math.abs(mantissa - nearest) < 1e-6 && (nearest === 1 || nearest === 2 || nearest === 5) ? formatValue(value) : '';
+  return decadeLabel(value);
 }
 
 function emptyNotice(look: PlotLook): Plugin {

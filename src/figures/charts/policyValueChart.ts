@@ -5,11 +5,12 @@
  */
 import type { ChartConfiguration } from 'chart.js';
 import type { FitOutcome as FitStatus, PolicyValueData as Evaluation } from './figureData';
-import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { errorWhiskersPlugin } from '../parts/errorWhiskers';
 import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
-import { formatValue } from '../parts/tickFormat';
+import { formatEstimate, formatValue } from '../parts/tickFormat';
+import { PRESENT_CONTROLLER } from '../parts/plotTheme';
 
 export const POLICY_VALUE_DEFAULTS = {
   /** On-screen height: base plus one row per bar, CSS px. */
@@ -29,9 +30,11 @@ export interface PolicyValueChartProps {
   evaluation: Evaluation;
   theme: Theme;
   title?: string;
+  /** The cost's or reward's own unit, e.g. "€" or "kWh"; J is in it, discounted. */
+  unit?: string;
 }
 
-export const LOGGED_BEHAVIOUR_LABEL = 'logged behaviour (discounted return)';
+export const LOGGED_BEHAVIOUR_LABEL = PRESENT_CONTROLLER;
 
 const STATUS_NOTE: Record<FitStatus, string> = { converged: '', maxIterations: ' (iteration limit)', diverged: ' (diverged)' };
 
@@ -48,6 +51,13 @@ export function policyValueRows(evaluation: Evaluation): Row[] {
   ];
 }
 
+/** "J, expected discounted cost (€) — lower is better". */
+export function policyValueAxisTitle(props: PolicyValueChartProps): string {
+  const sense = props.evaluation.valueSense;
+  const unit = props.unit ? ` (${props.unit}, discounted)` : ' (discounted)';
+  return `J, expected ${sense}${unit}: ${sense === 'cost' ? 'lower' : 'higher'} is better`;
+}
+
 export function valueSenseText(sense: Evaluation['valueSense']): string {
   return sense === 'cost' ? 'cost: lower is better' : 'reward: higher is better';
 }
@@ -60,16 +70,19 @@ export function policyValueChart(props: PolicyValueChartProps, look: PlotLook): 
   const rows = policyValueRows(props.evaluation), p = look.palette, s = look.scale, d = POLICY_VALUE_DEFAULTS;
   const ends = rows.flatMap((r) => [r.value - (r.error ?? 0), r.value + (r.error ?? 0), 0]);
   const lo = Math.min(...ends), hi = Math.max(...ends), span = hi - lo || 1;
-  const labels = rows.map((r) => (r.error === null ? formatValue(r.value) : `${formatValue(r.value)} ± ${formatValue(r.error)}`));
+  const labels = rows.map((r) => formatEstimate(r.value, r.error));
   const colours = rows.map((_, i) => (i === rows.length - 1 ? p.reference : p.series[i % p.series.length]));
-  const shared = sharedOptions(look, props.title ?? d.title, 'bars: estimate of J; whiskers: ±1 standard error over start states (not the fit’s own error)');
+  const shared = sharedOptions(look, props.title ?? d.title, 'bars: estimate of J; whiskers: ±1 standard error over the start states (not the fit’s own error)');
   return {
     type: 'bar',
     data: {
       labels: rows.map((r) => r.label),
       datasets: [{ label: 'J', data: rows.map((r) => r.value), backgroundColor: colours, borderColor: colours, borderWidth: 0, barPercentage: d.barShare, categoryPercentage: 1, maxBarThickness: d.maxBarThicknessPx * s }],
     },
-    plugins: [errorWhiskersPlugin({ values: rows.map((r) => r.value), errors: rows.map((r) => r.error), labels, look })],
+    plugins: [
+      errorWhiskersPlugin({ values: rows.map((r) => r.value), errors: rows.map((r) => r.error), labels, look }),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: policyValueAxisTitle(props) }]),
+    ],
     options: {
       ...shared,
       indexAxis: 'y',
@@ -103,5 +116,5 @@ export function policyValueChart(props: PolicyValueChartProps, look: PlotLook): 
 export function policyValueSummary(props: PolicyValueChartProps): string {
   const rows = policyValueRows(props.evaluation);
   return `Policy value J per candidate (${valueSenseText(props.evaluation.valueSense)}), ±1 standard error: `
-    + rows.map((r) => `${r.label} ${formatValue(r.value)}${r.error === null ? '' : ` ± ${formatValue(r.error)}`}`).join('; ') + '.';
+    + rows.map((r) => `${r.label} ${formatEstimate(r.value, r.error)}`).join('; ') + '.';
 }

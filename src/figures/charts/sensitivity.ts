@@ -6,7 +6,9 @@
  */
 import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { SensitivityData as SensitivityCurve } from './figureData';
-import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
+import { legendPlugin } from '../parts/legendBox';
+import { PRESENT_CONTROLLER, PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatValue } from '../parts/tickFormat';
@@ -25,7 +27,7 @@ type XY = { x: number; y: number | null };
 
 /** The behaviour's series is named by the pipeline; it is drawn as the reference. */
 export function isBehaviourSeries(name: string): boolean {
-  return name.toLowerCase().startsWith('logged');
+  return name === PRESENT_CONTROLLER || name.toLowerCase().startsWith('logged');
 }
 
 export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
@@ -35,17 +37,25 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
     const reference = isBehaviourSeries(serie.name);
     const colour = reference ? p.reference : p.series[candidate++ % p.series.length];
     return {
-      label: serie.name,
+      label: reference ? PRESENT_CONTROLLER : serie.name,
       data: curve.settings.map((x, i) => ({ x, y: serie.values[i] })),
-      borderColor: colour, backgroundColor: colour, borderWidth: d.lineWidthPx * s, borderDash: reference ? [6 * s, 3 * s] : [],
+      borderColor: colour, backgroundColor: colour, borderWidth: d.lineWidthPx * s, borderDash: reference ? PRESENT_DASH_PX.map((v) => v * s) : [],
       pointRadius: curve.settings.map((_, i) => (i === curve.projectIndex ? d.projectPointRadiusPx : d.pointRadiusPx) * s),
       spanGaps: false,
     };
   });
   const shared = sharedOptions(look, props.title, `large points: the project’s setting (${formatValue(curve.settings[curve.projectIndex] ?? NaN)}); ${curve.rankingStable ? 'the ranking is the same at every setting' : 'the ranking changes within this range'}`);
+  const keys = datasets.map((set) => ({
+    label: String(set.label), kind: 'line' as const, colour: String(set.borderColor), lineWidthPx: d.lineWidthPx,
+    dash: (set.borderDash as number[]).map((v) => v / s), markerRadiusPx: d.pointRadiusPx,
+  }));
   return {
     type: 'line',
     data: { datasets },
+    plugins: [
+      legendPlugin(keys, look),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: curve.label }, { scaleId: 'y', position: 'left', text: props.valueLabel }]),
+    ],
     options: {
       ...shared,
       parsing: false,
@@ -56,7 +66,6 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
       },
       plugins: {
         ...shared.plugins,
-        legend: { ...shared.plugins?.legend, labels: { ...shared.plugins?.legend?.labels, usePointStyle: true, pointStyle: 'line', pointStyleWidth: 28 * s } },
         tooltip: { ...shared.plugins?.tooltip, callbacks: { label: (item) => `${item.dataset.label}: ${item.parsed.y === null ? 'no value' : formatValue(item.parsed.y)}` } },
       },
     },

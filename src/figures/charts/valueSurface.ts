@@ -7,13 +7,14 @@ import type { ChartConfiguration, TooltipItem } from 'chart.js';
 import type { SurfaceData as ValueSurface } from './figureData';
 import { colourBarPlugin } from '../parts/colourBar';
 import { createColourScale, parseColour, rgbText, type ColourScheme } from '../parts/colourScale';
-import { sharedOptions, valueAxis } from '../parts/chartStyle';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { heatmapLayerPlugin } from '../parts/heatmapLayer';
 import type { PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { surfaceGeometry, unvisitedCount, unvisitedRuns } from '../parts/surfaceCells';
 import { surfaceRaster } from '../parts/surfaceRaster';
 import { formatValue } from '../parts/tickFormat';
+import { plainText } from '../parts/richText';
 import { unvisitedLegendPlugin } from '../parts/unvisitedLegend';
 
 export const VALUE_SURFACE_DEFAULTS = {
@@ -48,10 +49,11 @@ export function valueSurfaceChart(props: ValueSurfacePlotProps, look: PlotLook):
     heatmapLayerPlugin({ raster, geometry, unvisited: runs, look }),
     colourBarPlugin({ scale, label: props.valueLabel, look }),
   ];
+  plugins.push(...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: props.xLabel }, { scaleId: 'y', position: 'left', text: props.yLabel }]));
   if (runs.length > 0) {
-    const share = Math.round((100 * unvisitedCount(surface.visits)) / surface.visits.length);
+    const empty = unvisitedCount(surface.visits);
     plugins.push(unvisitedLegendPlugin({
-      text: `never visited by the logs (${share} % of cells): V there is extrapolated`,
+      text: `no logged state nearest these cells (${empty.toLocaleString('en-US')} of ${surface.visits.length.toLocaleString('en-US')} cells): V there is extrapolated`,
       swatchFill: rgbText(scale.colourAt(0.5)), look,
     }));
   }
@@ -90,7 +92,7 @@ function cellTooltip(props: ValueSurfacePlotProps, item: TooltipItem<'scatter'>)
   return [
     `${props.xLabel}: ${formatValue(surface.x[i % nx])}`,
     `${props.yLabel}: ${formatValue(surface.y[Math.floor(i / nx)])}`,
-    `${props.valueLabel}: ${formatValue(surface.values[i])}`,
+    `${plainText(props.valueLabel)}: ${formatValue(surface.values[i])}`,
     visits === 0 ? 'never visited by the logs (extrapolated)' : `${visits} logged state${visits === 1 ? '' : 's'} nearest this cell`,
   ];
 }
@@ -110,6 +112,6 @@ export function valueSurfaceSummary(props: ValueSurfacePlotProps): string {
   const unvisited = unvisitedCount(surface.visits);
   const extremes = lo < 0 ? 'No cell has a finite value.'
     : `Lowest ${formatValue(surface.values[lo])} at ${at(lo)}; highest ${formatValue(surface.values[hi])} at ${at(hi)}.`;
-  return `Heat map of ${valueLabel} over ${xLabel} (${span(surface.x)}) and ${yLabel} (${span(surface.y)}) on a ${nx}×${ny} grid. ${extremes} `
+  return `Heat map of ${plainText(valueLabel)} over ${xLabel} (${span(surface.x)}) and ${yLabel} (${span(surface.y)}) on a ${nx}×${ny} grid. ${extremes} `
     + `${unvisited} of ${nx * ny} cells were never visited by the logs and are hatched.`;
 }

@@ -12,6 +12,7 @@ import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
 import { paintRaster } from './raster';
 import { colourBarRaster } from './surfaceRaster';
 import { formatTick } from './tickFormat';
+import { drawRichText } from './richText';
 
 /** Sizes in CSS px, times look.scale. */
 export const COLOUR_BAR_DEFAULTS = {
@@ -59,7 +60,7 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
     ctx.font = fontString(look, PLOT_FONTS.tickPx);
     const labelWidth = Math.max(...this.ticks.values.map((v) => ctx.measureText(this.tickText(v)).width), 0);
     ctx.restore();
-    this.width = (d.gapPx + d.barWidthPx + d.tickLengthPx + d.labelGapPx + d.titleGapPx) * s + labelWidth + PLOT_FONTS.axisTitlePx * s * 1.3;
+    this.width = (d.gapPx + d.barWidthPx + d.tickLengthPx + d.labelGapPx + d.titleGapPx) * s + labelWidth + PLOT_FONTS.axisTitlePx * s * 1.5;
     this.height = maxHeight;
   }
 
@@ -86,11 +87,12 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
       labelRight = Math.max(labelRight, textX + ctx.measureText(text).width);
     }
     ctx.stroke();
-    ctx.translate(labelRight + d.titleGapPx * s + PLOT_FONTS.axisTitlePx * s * 0.5, top + height / 2);
-    ctx.rotate(-Math.PI / 2); // reads bottom to top, as the y-axis title does
-    ctx.textAlign = 'center';
-    ctx.font = fontString(look, PLOT_FONTS.axisTitlePx, 'bold');
-    ctx.fillText(label, 0, 0);
+    ctx.restore();
+    ctx.save();
+    ctx.fillStyle = look.palette.text;
+    // Reads bottom to top, as the y-axis title does; rich text, so V^{π} is typeset.
+    drawRichText(ctx, label, labelRight + d.titleGapPx * s + PLOT_FONTS.axisTitlePx * s * 0.6, top + height / 2,
+      { sizePx: PLOT_FONTS.axisTitlePx * s, family: look.fontFamily ?? PLOT_FONTS.family, weight: 'bold' }, 'center', -Math.PI / 2);
     ctx.restore();
   }
 

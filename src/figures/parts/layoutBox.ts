@@ -6,7 +6,7 @@ import { layouts, type Chart, type LayoutItem, type Plugin } from 'chart.js';
  * add their position, weight, sizing and drawing.
  */
 export abstract class LayoutBoxGeometry {
-  readonly fullSize = false;
+  readonly fullSize: boolean = false;
   /** Chart.js reads stack options from every layout box. */
   readonly options = {};
   width = 0;

@@ -12,6 +12,8 @@ export interface PlotLook {
   readonly scale: number;
   /** False for off-screen renders (exports): no tooltip, no hover, no animation. */
   readonly interactive: boolean;
+  /** Font family; default PLOT_FONTS.family (exports and the report use the metric-compatible family). */
+  readonly fontFamily?: string;
 }
 
 /** Default type sizes in CSS px at scale 1 (readable at 100 % and still balanced at 125 % zoom). */
@@ -34,10 +36,10 @@ export function screenLook(theme: Theme): PlotLook {
 }
 
 export function font(look: PlotLook, sizePx: number, weight: 'normal' | 'bold' = 'normal') {
-  return { family: PLOT_FONTS.family, size: sizePx * look.scale, weight };
+  return { family: look.fontFamily ?? PLOT_FONTS.family, size: sizePx * look.scale, weight };
 }
 
 /** CSS font shorthand, for text drawn by our own plugins. */
 export function fontString(look: PlotLook, sizePx: number, weight: 'normal' | 'bold' = 'normal'): string {
-  return `${weight === 'bold' ? 'bold ' : ''}${sizePx * look.scale}px ${PLOT_FONTS.family}`;
+  return `${weight === 'bold' ? 'bold ' : ''}${sizePx * look.scale}px ${look.fontFamily ?? PLOT_FONTS.family}`;
 }

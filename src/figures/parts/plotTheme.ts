@@ -19,6 +19,8 @@ export interface PlotPalette {
   readonly reference: string;
   /** Fill under the policy's action density. */
   readonly densityFill: string;
+  /** Shading of the range of actions logged near a state. */
+  readonly bandFill: string;
   /** Hatching over never-visited cells: a dark under-stroke and a light over-stroke read on any colour. */
   readonly hatchDark: string;
   readonly hatchLight: string;
@@ -38,6 +40,7 @@ const LIGHT: PlotPalette = {
   series: ['#0072B2', '#D55E00', '#009E73', '#CC79A7', '#E69F00', '#56B4E9'],
   reference: '#6b7280',
   densityFill: 'rgba(0, 114, 178, 0.16)',
+  bandFill: 'rgba(107, 114, 128, 0.18)',
   hatchDark: 'rgba(0, 0, 0, 0.6)',
   hatchLight: 'rgba(255, 255, 255, 0.9)',
   noValue: '#9ca3af',
@@ -55,6 +58,7 @@ const DARK: PlotPalette = {
   series: ['#56B4E9', '#E69F00', '#009E73', '#CC79A7', '#F0E442', '#D55E00'],
   reference: '#a1a8b3',
   densityFill: 'rgba(86, 180, 233, 0.2)',
+  bandFill: 'rgba(161, 168, 179, 0.2)',
   hatchDark: 'rgba(0, 0, 0, 0.65)',
   hatchLight: 'rgba(255, 255, 255, 0.85)',
   noValue: '#6b7280',
@@ -65,3 +69,10 @@ const DARK: PlotPalette = {
 export function plotPalette(theme: Theme): PlotPalette {
   return theme === 'dark' ? DARK : LIGHT;
 }
+
+/**
+ * The present controller (what the logs were gathered under) looks the same in every figure of
+ * the app, its exports and the report: the palette's reference grey, dashed, under this name.
+ */
+export const PRESENT_CONTROLLER = 'present controller (logged)';
+export const PRESENT_DASH_PX: readonly number[] = [6, 4];

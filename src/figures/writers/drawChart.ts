@@ -3,7 +3,7 @@
  * DOM events, no resize observer, no animation) at device pixel ratio 1, so the canvas pixel size is
  * exactly the size asked for. Chart.js draws synchronously in its constructor under these options.
  */
-import { BasicPlatform, Chart } from 'chart.js';
+import { BasicPlatform, Chart, type ChartConfiguration } from 'chart.js';
 import { registerChartParts } from '../parts/chartParts';
 import type { PlotLook } from '../parts/plotLook';
 import { plotChartConfig, type PlotSpec } from './plotSpec';
@@ -17,8 +17,12 @@ export interface ChartSurface {
 
 /** Draws the plot and returns the chart; the caller destroys it after reading the pixels. */
 export function drawChartOnce(surface: ChartSurface, spec: PlotSpec, look: PlotLook): Chart {
+  return drawConfigOnce(surface, plotChartConfig(spec, look));
+}
+
+/** Draws a ready configuration the same way. */
+export function drawConfigOnce(surface: ChartSurface, config: ChartConfiguration): Chart {
   registerChartParts();
-  const config = plotChartConfig(spec, look);
   return new Chart(surface as unknown as HTMLCanvasElement, {
     ...config,
     platform: BasicPlatform,

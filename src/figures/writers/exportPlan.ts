@@ -6,6 +6,7 @@
  */
 import { plotPalette } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
+import { METRIC_FONT_FAMILY } from './fontMetrics';
 import { layoutCaption, type CaptionBlock } from './captionLayout';
 import { withCaution } from './exportCaption';
 import type { ExportOptions, PlotSpec } from './plotSpec';
@@ -39,7 +40,7 @@ export function exportPlan(spec: PlotSpec, options: ExportOptions, measure: Text
   if (!Number.isFinite(dpi) || dpi < l.minDpi || dpi > l.maxDpi) throw new ExportOptionsError(`dpi: expected ${l.minDpi} to ${l.maxDpi}, got ${dpi}`);
   if (background !== 'white' && background !== 'transparent') throw new ExportOptionsError(`background: expected "white" or "transparent", got "${String(background)}"`);
   const scale = dpi / 96;
-  const look: PlotLook = { palette: plotPalette(background === 'white' ? 'light' : spec.props.theme), scale, interactive: false };
+  const look: PlotLook = { palette: plotPalette(background === 'white' ? 'light' : spec.props.theme), scale, interactive: false, fontFamily: METRIC_FONT_FAMILY };
   const caption = layoutCaption(withCaution(options.caption ?? '', options.caution), widthPx, look, measure);
   const plotHeightPx = Math.floor(heightPx - caption.heightPx);
   const needed = Math.ceil(caption.heightPx + l.minPlotHeightPx * scale);

@@ -57,7 +57,8 @@ export class SvgContext implements RasterDrawingContext {
   private readonly defs: string[] = [];
   private nextId = 0;
 
-  constructor(width: number, height: number, private readonly measure: TextMeasure) {
+  /** idPrefix keeps clip-path ids apart when several SVGs share one HTML document (the report). */
+  constructor(width: number, height: number, private readonly measure: TextMeasure, private readonly idPrefix = '') {
     const canvas = { width, height, getContext: () => this };
     this.canvas = canvas;
   }
@@ -132,7 +133,7 @@ export class SvgContext implements RasterDrawingContext {
   fill(rule?: CanvasFillRule): void { this.emitFill(this.path, rule); }
   stroke(): void { this.emitStroke(this.path); }
   clip(rule?: CanvasFillRule): void {
-    const id = `clip${this.nextId++}`;
+    const id = `${this.idPrefix}clip${this.nextId++}`;
     const parent = this.state.clipId ? `url(#${this.state.clipId})` : null;
     this.defs.push(`<clipPath${attributes({ id, 'clip-path': parent })}><path${attributes({ d: this.path.toString() || 'M0 0', 'clip-rule': rule === 'evenodd' ? 'evenodd' : null })}/></clipPath>`);
     this.state.clipId = id;

@@ -13,7 +13,7 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
   const curve = sensitivity.curves[index] ?? sensitivity.curves[0];
   if (!curve) return null;
   const title = `Policy value against ${curve.label}`;
-  const props = { curve, valueLabel: `J (${valueSenseText(evaluation.valueSense)})`, title, theme };
+  const props = { curve: { ...curve, series: curve.series.map((s) => ({ ...s, name: displayName(s.name) })) }, valueLabel: policyValueLabel(evaluation.valueSense, valueUnit(doc)), title, theme };
   return (
     <section className="panel" aria-labelledby="sensitivity-heading" data-testid="sensitivity">
       <h3 id="sensitivity-heading">Sensitivity to the settings</h3>

@@ -11,7 +11,7 @@ import type { DataImport } from '../../../../shared/workerMessages';
 import { useDocument } from '../../hooks';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
-import { actionLabel, valueLabel } from './plotLabels';
+import { actionLabel, valueLabel, valueUnit } from './plotLabels';
 import { StateSliders } from './StateSliders';
 import { useWorkerQuery } from './useWorkerQuery';
 
@@ -30,7 +30,7 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
   const bounds = limits ? { lo: limits.lo[action] ?? -Infinity, hi: limits.hi[action] ?? Infinity, mode: limits.mode } : undefined;
   const title = `Action values of ${policy}`;
   const sliceProps = answer.status === 'done' ? {
-    slice: { ...answer.value, bounds }, actionLabel: actionLabel(doc, action), valueLabel: valueLabel(evaluation.valueSense, 'Q'), title, theme,
+    slice: { ...answer.value, bounds }, actionLabel: actionLabel(doc, action), valueLabel: valueLabel(evaluation.valueSense, 'Q', valueUnit(doc)), title, theme,
   } : null;
   return (
     <section className="panel" aria-labelledby="slice-heading">

@@ -14,7 +14,7 @@ import { useDocument } from '../../hooks';
 import type { Theme } from '../../theme';
 import { useWorkspace } from '../../WorkspaceContext';
 import { ExportPanel } from './ExportPanel';
-import { heldLabel, stateLabel, valueLabel } from './plotLabels';
+import { heldLabel, stateLabel, valueLabel, valueUnit } from './plotLabels';
 import { StateSliders } from './StateSliders';
 import { useWorkerQuery } from './useWorkerQuery';
 
@@ -38,7 +38,7 @@ export function SurfacePanel({ evaluation, imported, theme }: { evaluation: Eval
   const held_ = useMemo(() => heldLabel(doc, held, [xAxis, yAxis], (v) => formatNumber(v)), [doc, held, xAxis, yAxis]);
   const options = names.map((n, i) => ({ value: String(i), label: n }));
   const surfaceProps = state.status === 'done' ? {
-    surface: state.value, xLabel: stateLabel(doc, xAxis), yLabel: stateLabel(doc, yAxis), valueLabel: valueLabel(evaluation.valueSense, 'V'), title, theme,
+    surface: state.value, xLabel: stateLabel(doc, xAxis), yLabel: stateLabel(doc, yAxis), valueLabel: valueLabel(evaluation.valueSense, 'V', valueUnit(doc)), title, theme,
     heldLabel: held_ || undefined,
   } : null;
   return (

@@ -12,9 +12,19 @@ export function actionLabel(doc: ProjectDocument, index: number): string {
   return a ? (a.unit ? `${a.column} (${a.unit})` : a.column) : `action ${index + 1}`;
 }
 
-/** What the plotted values are, short enough for an axis: discounted costs or rewards (the panel says which way is better). */
-export function valueLabel(sense: 'reward' | 'cost', symbol: 'V' | 'Q'): string {
-  return `${symbol}^π (discounted ${sense})`;
+/** The cost's or reward's own unit from the project, '' when none is given. */
+export function valueUnit(doc: ProjectDocument): string {
+  return doc.columns.reward.unit?.trim() ?? '';
+}
+
+/** What the plotted values are, as rich text for an axis: "V^{π}(s), discounted cost (€)". */
+export function valueLabel(sense: 'reward' | 'cost', symbol: 'V' | 'Q', unit = ''): string {
+  return `${symbol}^{π}${symbol === 'V' ? '(s)' : '(s, a)'}, discounted ${sense}${unit ? ` (${unit})` : ''}`;
+}
+
+/** J's axis title: "J, discounted cost (€)". */
+export function policyValueLabel(sense: 'reward' | 'cost', unit = ''): string {
+  return `J, discounted ${sense}${unit ? ` (${unit})` : ''}`;
 }
 
 /** The settings behind the numbers, for captions: "γ = 0.95; linear …; 10 nodes; seed 1; 19,960 transitions". */
