@@ -7,7 +7,7 @@ const EXPONENT_ABOVE = 1e6;
 const EXPONENT_BELOW = 1e-4;
 
 export function formatTick(value: number, fractionDigits: number): string {
-  if (value === 0) return '0';
+  if (value === 0) return (0).toFixed(Math.min(20, fractionDigits));
   const magnitude = Math.abs(value);
   if (magnitude >= EXPONENT_ABOVE || magnitude < EXPONENT_BELOW) return trueMinus(value.toExponential(2).replace('e+', 'e'));
   return trueMinus(value.toLocaleString('en-US', { minimumFractionDigits: fractionDigits, maximumFractionDigits: fractionDigits }));

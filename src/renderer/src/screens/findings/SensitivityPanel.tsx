@@ -7,9 +7,12 @@ import { SensitivityPlot } from '../../plots';
 import { valueSenseText } from '../../../../figures/charts/policyValueChart';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
+import { displayName, policyValueLabel, valueUnit } from './plotLabels';
+import { useDocument } from '../../hooks';
 
 export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivity: Sensitivity; evaluation: Evaluation; theme: Theme }) {
   const [index, setIndex] = useState(0);
+  const doc = useDocument();
   const curve = sensitivity.curves[index] ?? sensitivity.curves[0];
   if (!curve) return null;
   const title = `Policy value against ${curve.label}`;

@@ -1,4 +1,6 @@
 /** Words on the plots and in export captions: axes with units, what V means, the settings in a line. */
+import { PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
+import { BEHAVIOUR_NAME } from '../../../../pipeline/assessAssembly';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { ProjectDocument } from '../../../../project/schema';
 
@@ -43,4 +45,9 @@ export function captionDate(iso: string): string {
 export function heldLabel(doc: ProjectDocument, held: readonly number[], axes: readonly number[], format: (x: number) => string): string {
   const parts = doc.columns.states.flatMap((s, i) => (axes.includes(i) ? [] : [`${s.column} = ${format(held[i])}${s.unit ? ` ${s.unit}` : ''}`]));
   return parts.length === 0 ? '' : `Other states held at ${parts.join(', ')}`;
+}
+
+/** A policy's name as shown: the pipeline's name for the logged behaviour reads "present controller (logged)". */
+export function displayName(name: string): string {
+  return name === BEHAVIOUR_NAME ? PRESENT_CONTROLLER : name;
 }
