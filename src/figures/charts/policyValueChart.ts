@@ -9,7 +9,7 @@ import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { errorWhiskersPlugin } from '../parts/errorWhiskers';
 import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
-import { formatEstimate, formatValue } from '../parts/tickFormat';
+import { formatEstimate } from '../parts/tickFormat';
 import { PRESENT_CONTROLLER } from '../parts/plotTheme';
 
 export const POLICY_VALUE_DEFAULTS = {

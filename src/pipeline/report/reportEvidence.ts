@@ -42,7 +42,7 @@ function warningList(warnings: AssessmentWarning[]): Html {
 }
 
 export function crossChecksSection(input: ReportInput, figures: FigureCounter): Html {
-  const a = input.assessment, words = senseWords(input);
+  const a = input.assessment;
   if (!a) return html`<section id="cross-checks"><h2>Cross-checks</h2><p>Not computed: ${input.assessmentProblems.join('; ')}</p></section>`;
   return html`<section id="cross-checks"><h2>Cross-checks by independent methods</h2>
     <p>Each method estimates the same J from the same logs under a different assumption; a large gap from fitted Q-evaluation (FQE) is flagged.</p>

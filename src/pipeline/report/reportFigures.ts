@@ -1,5 +1,4 @@
 /** The value-surface and slice sections: the fitted values behind each J, drawn where the logs are. */
-import { uncoveredGridPoints } from '../../core/diagnostics/unvisitedRegion';
 import { actionSliceChart } from '../../figures/charts/actionSlice';
 import { valueSurfaceChart } from '../../figures/charts/valueSurface';
 import { inlineSvg } from '../../figures/writers/inlineSvg';

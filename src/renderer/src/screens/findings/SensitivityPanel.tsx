@@ -4,7 +4,6 @@ import type { Sensitivity } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import { SelectField } from '../../components/SelectField';
 import { SensitivityPlot } from '../../plots';
-import { valueSenseText } from '../../../../figures/charts/policyValueChart';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
 import { displayName, policyValueLabel, valueUnit } from './plotLabels';
