@@ -47,7 +47,7 @@ export function createProjectCommands({ api, documents, session, questions, data
 
   function reset(): void {
     documents.load(newProjectDocument(), null);
-    session.set((s) => emptySession(s.recentProjects));
+    session.set((s) => emptySession(s.recentProjects, s.sourceVersion));
   }
 
   async function openReply(reply: ProjectFileReply): Promise<void> {
@@ -60,7 +60,7 @@ export function createProjectCommands({ api, documents, session, questions, data
     const migrated = fromVersion < document.version;
     // A migrated document differs from its file until saved in the current format.
     documents.load(document, reply.path, migrated ? '' : serializeProject(document));
-    session.set((s) => emptySession(s.recentProjects));
+    session.set((s) => emptySession(s.recentProjects, s.sourceVersion));
     if (migrated) notify({ tone: 'info', title: `Opened a project of format version ${fromVersion}; saving writes version ${document.version}`, problems: [] });
     void refreshRecent();
     await data.readProjectData(reply.path);

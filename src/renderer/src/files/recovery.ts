@@ -58,7 +58,7 @@ export async function offerRecovery({ api, documents, session, questions, data }
   // Restored work is unsaved work: an empty baseline keeps the unsaved-changes marker on.
   documents.load(draft.document, offer.projectPath, '');
   session.set((s) => ({
-    ...emptySession(s.recentProjects),
+    ...emptySession(s.recentProjects, s.sourceVersion),
     notice: offer.projectPath || draft.document.data.path === '' ? null : {
       tone: 'warning', title: 'Choose the data file again', problems: [{ where: 'data', message: `the restored project was never saved, so “${draft.document.data.path}” must be chosen again with “Choose CSV file…”` }],
     },

@@ -22,7 +22,7 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
   const document = () => documents.get().history.present;
 
   async function accept(bytes: Uint8Array, source: DataSource, fileName: string): Promise<void> {
-    session.set((s) => ({ ...s, source, sourceVersion: s.sourceVersion + 1, inspection: null, dataProblems: [], importState: { status: 'idle' }, notice: null }));
+    session.set((s) => ({ ...s, source, sourceVersion: s.sourceVersion + 1, inspection: null, dataProblems: [], dataMissing: false, importState: { status: 'idle' }, notice: null }));
     const version = session.get().sourceVersion;
     const result = await client.call('setData', { bytes, fileName, csv: document().data.csv });
     if (session.get().sourceVersion !== version) return; // another file arrived meanwhile
@@ -68,7 +68,7 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
           message: `cannot read the data file "${path}" (${(e as Error).message}); it may have moved: point the project to its new location`,
         };
         // Opening a project shows the Plant log step, where this stands with its "Locate" button.
-        session.set((s) => ({ ...s, dataProblems: [problem] }));
+        session.set((s) => ({ ...s, dataProblems: [problem], dataMissing: true }));
         return false;
       }
     },

@@ -54,8 +54,10 @@ export interface SessionState {
   /** Increments whenever new data bytes are loaded (part of the import key). */
   sourceVersion: number;
   inspection: DataInspection | null;
-  /** Why the data file could not be read or looked at (missing, not UTF-8, empty …). */
+  /** Why the data file could not be read or looked at (missing, unreadable, empty …). */
   dataProblems: Problem[];
+  /** True when the project's data file was not found where the project says: offer to locate it. */
+  dataMissing: boolean;
   importState: ImportState;
   run: RunState;
   evaluation: EvaluationRecord | null;
@@ -64,9 +66,14 @@ export interface SessionState {
   recentProjects: string[];
 }
 
-export function emptySession(recentProjects: string[] = []): SessionState {
+/**
+ * A fresh session for another document. The source version only ever grows: it is part of the
+ * import key, so restarting it would let the same project with the same roles look already
+ * imported after its data is located again (the "Importing…" dead end).
+ */
+export function emptySession(recentProjects: string[] = [], previousSourceVersion = 0): SessionState {
   return {
-    source: { kind: 'none' }, sourceVersion: 0, inspection: null, dataProblems: [], importState: { status: 'idle' },
+    source: { kind: 'none' }, sourceVersion: previousSourceVersion + 1, dataMissing: false, inspection: null, dataProblems: [], importState: { status: 'idle' },
     run: { status: 'idle' }, evaluation: null, assessment: { status: 'idle' }, notice: null, recentProjects,
   };
 }

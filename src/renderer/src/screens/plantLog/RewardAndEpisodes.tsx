@@ -6,7 +6,7 @@
 import { NumberField } from '../../components/NumberField';
 import { TextField } from '../../components/TextField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
-import { useDocument, useProblems } from '../../hooks';
+import { useDocument, useProblems, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { ColumnRoles } from '../../../../project/schema';
 
@@ -37,6 +37,7 @@ export function RewardAndEpisodes() {
 
 function RewardFieldset({ columns, problems, set, closeStep }: PartProps) {
   const reward = columns.reward;
+  const decimalComma = useSession().inspection?.decimalMark === ',';
   const columnProblem = reward.kind === 'column' ? problemAt(problems, 'columns.reward.column') : null;
   return (
     <fieldset>
@@ -55,7 +56,7 @@ function RewardFieldset({ columns, problems, set, closeStep }: PartProps) {
         <>
           <TextField
             label="Expression" value={reward.expression} multiline className="wide" placeholder="e.g. (level_upper_m - 1.2)^2 + 0.01 * inflow_valve_pct"
-            help="Column names (names with spaces in `backticks`), numbers with a point, + − * / ^, parentheses, abs, exp, log, sqrt, min, max, clamp."
+            help={`Column names (names with spaces in \`backticks\`), numbers, + − * / ^, parentheses, abs, exp, log, sqrt, min, max, clamp.${decimalComma ? ' This file uses a decimal comma: write 0,5 and separate arguments with ; (as in max(a; 0,5)).' : ''}`}
             message={problemAt(problems, 'columns.reward.expression')}
             onChange={(expression) => set('edit the reward expression', { reward: { ...reward, expression } }, 'reward-expression')}
             onBlur={closeStep}
