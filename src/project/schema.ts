@@ -154,6 +154,21 @@ export const bootstrapSchema = z.object({
   level: finite.min(0.5, 'expected a confidence level of at least 0.5').lt(1, 'expected a confidence level below 1').default(0.9),
 });
 
+/**
+ * The last run's results, kept so reopening needs no rerun. `fingerprint` is the SHA-256 of what
+ * the numbers depend on (the data file's content and every setting; the renderer's runKey.ts):
+ * results whose fingerprint differs from the project's own are shown as out of date, never as
+ * current. evaluation and assessment are the CLI's published JSON forms (pipeline/*Json.ts).
+ */
+export const resultsSchema = z.object({
+  format: z.literal(1),
+  fingerprint: z.string().regex(/^[0-9a-f]{64}$/, 'expected 64 hexadecimal digits'),
+  /** ISO 8601 time the results were kept. */
+  savedAt: z.string(),
+  evaluation: z.record(z.string(), z.unknown()),
+  assessment: z.record(z.string(), z.unknown()).optional(),
+});
+
 export const projectSchema = z.object({
   format: z.literal(PROJECT_FORMAT),
   version: z.literal(PROJECT_VERSION),
@@ -169,6 +184,7 @@ export const projectSchema = z.object({
   startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
   surface: surfaceSchema.optional(),
   bootstrap: bootstrapSchema.optional(),
+  results: resultsSchema.optional(),
 });
 
 export type ProjectDocument = z.infer<typeof projectSchema>;
@@ -178,3 +194,4 @@ export type ColumnRoles = z.infer<typeof columnRolesSchema>;
 export type CsvSettings = z.infer<typeof csvSettingsSchema>;
 export type ApproximatorSettings = z.infer<typeof approximatorSchema>;
 export type BootstrapSettings = z.infer<typeof bootstrapSchema>;
+export type SavedResults = z.infer<typeof resultsSchema>;

@@ -33,6 +33,8 @@ export interface EvaluationRecord {
   evaluation: Evaluation;
   /** runKey of the document that was evaluated; a different key now means the results are stale. */
   runKey: string;
+  /** Set when the results were read back from the project file rather than computed in this session. */
+  restored?: { savedAt: string; current: boolean };
 }
 
 /** The intervals, cross-checks and diagnostics of the last evaluation (runKey says which). */

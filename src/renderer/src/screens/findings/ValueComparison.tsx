@@ -27,7 +27,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
   const sense = evaluation.valueSense === 'cost' ? 'Expected discounted cost (lower is better)' : 'Expected discounted reward (higher is better)';
   const b = evaluation.behaviour;
   return (
-    <section className="panel" aria-labelledby="values-heading">
+    <section className="panel span-2" aria-labelledby="values-heading" data-testid="panel-values">
       <h3 id="values-heading">Policy values</h3>
       <p className="small muted">{sense}. ± is one standard error over the start states only; it does not cover the error of the fit.</p>
       <PolicyValueChart evaluation={evaluation} theme={theme} />
