@@ -9,7 +9,7 @@ export function PolicyValueChart(props: PolicyValueChartProps) {
   const look = useMemo(() => screenLook(props.theme), [props.theme]);
   const build = useMemo(
     () => tryBuild(() => policyValueChart(props, look) as unknown as ChartConfiguration),
-    [props.evaluation, props.title, look],
+    [props.evaluation, props.title, props.unit, look],
   );
   return (
     <ChartFigure

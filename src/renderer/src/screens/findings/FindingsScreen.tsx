@@ -37,8 +37,8 @@ export function FindingsScreen() {
       {record && (
         <>
           {record.restored && (
-            <p className={`problems ${record.restored.current ? 'info' : 'warning'}`} role="status" data-testid="kept-results">
-              {record.restored.current
+            <p className={`problems ${!stale ? 'info' : 'warning'}`} role="status" data-testid="kept-results">
+              {!stale
                 ? `Results kept with the project (run of ${readableTime(record.evaluation.evaluatedAt)}); the data and settings are the same, so no rerun is needed. Run again to explore slices and other surfaces.`
                 : `Results kept with the project (run of ${readableTime(record.evaluation.evaluatedAt)}) were computed from other data or settings than the project has now: they are shown for reference only. Run again for current results.`}
             </p>

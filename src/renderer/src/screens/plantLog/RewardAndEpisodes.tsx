@@ -76,15 +76,15 @@ function EpisodeFieldset({ columns, problems, set, closeStep }: PartProps) {
   const episode = columns.episode;
   return (
     <fieldset>
-      <legend>Episodes</legend>
+      <legend>Runs (episodes)</legend>
       <p className="small">
-        {episode.kind === 'column' && <>A new episode starts wherever <span className="mono">{episode.column}</span> changes.</>}
-        {episode.kind === 'timeGap' && <>A new episode starts where <span className="mono">{episode.column}</span> jumps by more than the gap below.</>}
-        {episode.kind === 'single' && <>The whole log is one episode. Give a column the role “Episode label” or “Timestamp” to split it.</>}
+        {episode.kind === 'column' && <>A new run starts wherever <span className="mono">{episode.column}</span> changes.</>}
+        {episode.kind === 'timeGap' && <>A new run starts where <span className="mono">{episode.column}</span> jumps by more than the gap below.</>}
+        {episode.kind === 'single' && <>The whole log is one run. Give a column the role “Run or batch label” or “Timestamp” to split it.</>}
       </p>
       {episode.kind === 'timeGap' && (
         <NumberField
-          label="Largest gap within an episode (s)" value={episode.maxGapSeconds ?? null} allowBlank placeholder="3× median step"
+          label="Largest gap within a run (s)" value={episode.maxGapSeconds ?? null} allowBlank placeholder="3× median step"
           help="Leave blank for three times the median sampling period." message={problemAt(problems, 'columns.episode.maxGapSeconds')}
           onCommit={(v) => set('set the episode gap', { episode: { ...episode, maxGapSeconds: v ?? undefined } }, 'max-gap')}
           onBlur={closeStep}
@@ -102,7 +102,7 @@ function NextStateFieldset({ columns, problems }: PartProps) {
       <legend>Next state</legend>
       <p className="small">
         {nextState.kind === 'nextRow'
-          ? 'The next state is the next row of the same episode. To give it in columns instead, give columns the role “Next value of …”.'
+          ? 'The next state is the next row of the same run. To give it in columns instead, give columns the role “Next value of …”.'
           : `The next state is read from columns ${nextState.columns.map((c) => c || '(not chosen)').join(', ')}, one per state.`}
       </p>
       {problem && <p className="error-text">{problem}</p>}
