@@ -19,7 +19,7 @@ function useToolbarHeight(): (element: HTMLElement | null) => void {
   }, []);
 }
 
-export function Toolbar() {
+export function Toolbar({ onHelp }: { onHelp: () => void }) {
   const toolbarRef = useToolbarHeight();
   const { files, documents } = useWorkspace();
   const name = useDocumentState((s) => s.history.present.name);
@@ -53,8 +53,9 @@ export function Toolbar() {
       </div>
       <div className="group" role="group" aria-label="Edit">
         <button onClick={documents.undo} disabled={!undoText} title={undoText ? `Undo ${undoText} (Ctrl+Z)` : 'Nothing to undo'} data-testid="undo">Undo</button>
-        <button onClick={documents.redo} disabled={!redoText} title={redoText ? `Redo ${redoText} (Ctrl+Shift+Z)` : 'Nothing to redo'} data-testid="redo">Redo</button>
+        <button onClick={documents.redo} disabled={!redoText} title={redoText ? `Redo ${redoText} (Ctrl+Y or Ctrl+Shift+Z)` : 'Nothing to redo'} data-testid="redo">Redo</button>
       </div>
+      <button onClick={onHelp} data-testid="open-help" title="Steps, sample projects and the glossary (F1)">Help</button>
       <button onClick={toggleTheme} aria-pressed={theme === 'dark'} data-testid="toggle-theme" title="Switch between light and dark">
         {theme === 'dark' ? 'Light theme' : 'Dark theme'}
       </button>

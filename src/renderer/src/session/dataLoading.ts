@@ -14,6 +14,8 @@ export interface DataLoading {
   chooseDataFile(): Promise<void>;
   dropDataFile(file: File): Promise<void>;
   relocateDataFile(): Promise<void>;
+  /** Take a bundled sample's data (the document is already loaded). */
+  useSampleData(bytes: Uint8Array, fileName: string): Promise<void>;
   /** Read the data an opened project names; false (and the reason in dataProblems) when it cannot. */
   readProjectData(projectPath: string): Promise<boolean>;
 }
@@ -47,6 +49,9 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
       const bytes = new Uint8Array(await file.arrayBuffer());
       recordPath('drop a data file', file.name, false);
       await accept(bytes, { kind: 'dropped', fileName: file.name, bytes }, file.name);
+    },
+    async useSampleData(bytes, fileName) {
+      await accept(bytes, { kind: 'sample', fileName, bytes }, fileName);
     },
     async relocateDataFile() {
       const projectPath = documents.get().projectPath;

@@ -14,7 +14,9 @@ export type DataSource =
   /** Picked in a dialog or read from the project's path; the main process knows it. */
   | { kind: 'file'; absolutePath: string; bytes: Uint8Array }
   /** Dropped on the window: the bytes are here, but the path is unknown to the main process until linked. */
-  | { kind: 'dropped'; fileName: string; bytes: Uint8Array };
+  | { kind: 'dropped'; fileName: string; bytes: Uint8Array }
+  /** A sample project's data, bundled with the app: saving writes a copy where the user says. */
+  | { kind: 'sample'; fileName: string; bytes: Uint8Array };
 
 export type ImportState =
   | { status: 'idle' }
