@@ -91,9 +91,9 @@ describe('the app as a control engineer meets it (e2e)', () => {
     const { page, harness } = app;
     const moved = join(harness.workFolder, 'levels-moved.csv');
     await rename(join(harness.workFolder, 'levels.csv'), moved);
-    harness.dialogs.nextConfirm = 'discard';
     harness.dialogs.nextOpenProject = projectPath;
     await page.getByTestId('open-project').click();
+    await page.getByRole('button', { name: 'Don’t save' }).click(); // the edit of the discount above
     await page.getByTestId('relocate-data').waitFor({ timeout: 30_000 });
     harness.dialogs.nextOpenData = moved;
     await page.getByTestId('relocate-data').click();

@@ -3,9 +3,8 @@
  * its text goes to the main process's recovery file. On start, a copy left by a session that did not
  * close cleanly is offered back (restore or discard).
  */
-import { serializeProject } from '../../../project/projectFile';
 import type { AppApi } from '../../../shared/appApi';
-import { isDirty, type DocumentStore } from '../document/documentStore';
+import { isDirty, serializedDocument, type DocumentStore } from '../document/documentStore';
 import { recoveredDraft } from '../document/recoveredDraft';
 import type { DataLoading } from '../session/dataLoading';
 import { emptySession, type SessionStore } from '../session/sessionStore';
@@ -18,7 +17,7 @@ export function startRecoveryAutosave(api: AppApi, documents: DocumentStore, int
   const timer = setInterval(() => {
     const state = documents.get();
     if (!isDirty(state)) return;
-    const text = serializeProject(state.history.present);
+    const text = serializedDocument(state.history.present);
     if (text === lastWritten) return;
     lastWritten = text;
     api.writeRecovery(text, state.projectPath).catch(() => {
