@@ -12,7 +12,7 @@ import type { Evaluation, PolicyEstimate } from '../../../pipeline/estimates';
 import { evaluationToJson } from '../../../pipeline/evaluationJson';
 import type { ProjectDocument, SavedResults } from '../../../project/schema';
 import type { DocumentStore } from '../document/documentStore';
-import { runFingerprint, runKey } from './runKey';
+import { runFingerprint, runKey } from '../../../shared/runKey';
 import type { SessionStore } from './sessionStore';
 
 export function resultsOf(evaluation: Evaluation, assessment: Assessment | null, key: string, now: Date): SavedResults {

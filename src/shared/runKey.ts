@@ -6,7 +6,7 @@
  */
 import { sha256 } from '@noble/hashes/sha2.js';
 import { bytesToHex } from '@noble/hashes/utils.js';
-import type { ProjectDocument } from '../../../project/schema';
+import type { ProjectDocument } from '../project/schema';
 
 export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
   const { name: _name, description: _description, surface: _surface, data, results: _results, ...rest } = doc;
