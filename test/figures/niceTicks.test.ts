@@ -60,7 +60,7 @@ describe('tick text', () => {
   it('fixed notation with the tick digits, grouping thousands', () => {
     expect(formatTick(1234.5, 1)).toBe('1,234.5');
     expect(formatTick(0.25, 2)).toBe('0.25');
-    expect(formatTick(-0, 3)).toBe('0');
+    expect(formatTick(-0, 3)).toBe('0.000'); // zero with the axis' decimals, never '−0'
   });
   it('exponent notation for very large and very small magnitudes', () => {
     expect(formatTick(2.5e7, 0)).toBe('2.50e7');
