@@ -128,6 +128,26 @@ describe('the app as a control engineer meets it (e2e)', () => {
     await expect.poll(() => name.inputValue(), POLL).toBe('Redo check');
   });
 
+  it('screens of every step in both themes at 1280 × 800 and 1920 × 1080 (test-artifacts/screens/)', async () => {
+    const { page } = app;
+    await page.getByTestId('open-help').click();
+    await page.getByTestId('glossary').waitFor();
+    await app.screenshot('engineer-help');
+    await page.getByTestId('close-help').click();
+    for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
+      await page.setViewportSize(size);
+      for (const theme of ['light', 'dark']) {
+        if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
+        for (const step of ['plant-log', 'candidates', 'estimator', 'run', 'findings'] as const) {
+          await goToStep(page, step);
+          await expect.poll(() => page.getByTestId(`step-${step}`).getAttribute('aria-selected'), POLL).toBe('true');
+          await app.screenshot(`engineer-${size.width}-${theme}-${step}`);
+        }
+      }
+    }
+    await page.setViewportSize({ width: 1280, height: 800 });
+  });
+
   it('logged no console errors', () => {
     expect(app.consoleErrors).toEqual([]);
   });
