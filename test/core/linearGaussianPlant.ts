@@ -12,6 +12,8 @@
  */
 import type { FeatureMap } from '../../src/core/features/featureMap';
 import { cholesky } from '../../src/core/linalg/dense';
+import { closedFormPolicyCost, lqClosedForm, rewardFromCost, type LinearQuadraticPlant } from '../../src/core/lq';
+import { createGaussianPolicy } from '../../src/core/policy';
 import { standardNormalRule } from '../../src/core/quadrature/gaussHermite';
 import { createRandom } from '../../src/core/random';
 import type { TransitionSet } from '../../src/core/transitions';
@@ -172,4 +174,20 @@ function quadratic(w: number[], v: ArrayLike<number>): number {
   let s = 0;
   for (let i = 0; i < v.length; i++) for (let j = 0; j < v.length; j++) s += v[i] * w[i * v.length + j] * v[j];
   return s;
+}
+
+/** The plant in src/core/lq.ts's form (deviation coordinates around 0), for the closed-form values. */
+export function closedFormPlant(p: TestPlant): LinearQuadraticPlant {
+  return {
+    stateDim: p.n, actionDim: p.m, dynamics: Float64Array.from(p.A), inputGain: Float64Array.from(p.B),
+    processNoiseCovariance: Float64Array.from({ length: p.n * p.n }, (_, k) => (k % (p.n + 1) === 0 ? p.noiseStd[k / (p.n + 1)] ** 2 : 0)),
+    stateWeight: Float64Array.from(p.Q), actionWeight: Float64Array.from(p.R),
+  };
+}
+
+/** J of a linear-Gaussian controller in REWARD terms (−cost) from given start states (count×n), by the closed form. */
+export function exactPolicyValue(p: TestPlant, c: TestController, discount: number, starts: Float64Array): number {
+  const policy = createGaussianPolicy({ offset: c.offset, gain: [...Array(p.m)].map((_, a) => c.gain.slice(a * p.n, (a + 1) * p.n)), std: c.std }, p.n);
+  const form = lqClosedForm(closedFormPlant(p), { state: new Float64Array(p.n), action: new Float64Array(p.m) }, policy, discount);
+  return rewardFromCost(closedFormPolicyCost(form, starts, starts.length / p.n));
 }
