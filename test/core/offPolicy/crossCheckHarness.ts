@@ -11,7 +11,7 @@ import { linearFqeReplicate } from '../../../src/core/bootstrap/linearFqeReplica
 import { startStateFeatures } from '../../../src/core/bootstrap/startFeatures';
 import { effectiveSampleSizeFromLogs } from '../../../src/core/diagnostics/effectiveSampleSize';
 import type { FeatureMap } from '../../../src/core/features/featureMap';
-import { fitLinearFqe } from '../../../src/core/fqe/linearFqe';
+import { linearActionValue } from '../../../src/core/fqe/linearActionValue';
 import { episodeEnds } from '../../../src/core/loggedReturn';
 import { importanceWeightTable } from '../../../src/core/offPolicy/importanceWeights';
 import { modelRolloutValue } from '../../../src/core/offPolicy/modelRollouts';
@@ -38,18 +38,28 @@ export interface CrossCheckOptions {
   model?: { regressions: PolynomialModelRegressions; resamples: number; rolloutsPerStart: number };
 }
 
+/**
+ * Linear FQE (LSTD-Q fixed point) on the full data and on the seeded resamples, all from one set of
+ * per-episode sums (the full data is the resample with every multiplicity 1).
+ */
+export function fqeEstimate(data: TransitionSet, policy: GaussianPolicy, features: FeatureMap, discount: number, resamples: number, seed: number) {
+  const index = indexEpisodes(data), quadrature = createActionQuadrature(policy, 10), d = features.dim;
+  const setup = {
+    sums: episodeBellmanSums(data, features, quadrature, undefined, index), startFeatures: startStateFeatures(features, quadrature, data.startStates, data.stateDim),
+    startsFollowEpisodes: true, ridge: 1e-6, constantIndex: features.constantIndex, discount, solver: 'fixedPoint' as const,
+    tolerance: 1e-10, maxIterations: 20000, initialWeights: new Float64Array(d),
+  };
+  const full = linearFqeReplicate(setup, new Uint32Array(data.episodeCount).fill(1));
+  if (full.weights === null) throw new Error('the LSTD-Q fixed point does not exist on the full data');
+  const q = linearActionValue(features, full.weights, data.stateDim, data.actionDim);
+  const replicates = Array.from({ length: resamples }, (_, b) => linearFqeReplicate(setup, episodeMultiplicities(data.episodeCount, seed, b)).policyValue!);
+  return { q, quadrature, estimate: { point: full.policyValue!, replicates } as Estimate };
+}
+
 export function runCrossChecks(o: CrossCheckOptions): CrossCheckRun {
   const { data, policy, behaviour, features, discount } = o, index = indexEpisodes(data), n = data.count, ds = data.stateDim, m = data.actionDim;
-  const quadrature = createActionQuadrature(policy, 10);
-  const fit = fitLinearFqe({ data, policy, features, discount, ridge: 1e-6, quadratureNodes: 10, tolerance: 1e-10, maxIterations: 20000 });
-  const solution = fit.fixedPoint ?? fit.iterative!;
+  const { q, quadrature, estimate: fqe } = fqeEstimate(data, policy, features, discount, o.resamples, o.seed);
   const draws = Array.from({ length: o.resamples }, (_, b) => episodeMultiplicities(data.episodeCount, o.seed, b));
-  const setup = {
-    sums: episodeBellmanSums(data, features, quadrature, undefined, index), startFeatures: startStateFeatures(features, quadrature, data.startStates, ds),
-    startsFollowEpisodes: true, ridge: 1e-6, constantIndex: features.constantIndex, discount, solver: 'fixedPoint' as const,
-    tolerance: 1e-10, maxIterations: 20000, initialWeights: Float64Array.from(solution.q.weights),
-  };
-  const fqe = { point: solution.policyValue.value, replicates: draws.map((c) => linearFqeReplicate(setup, c).policyValue!) };
   const inputs = new Float64Array(n * (ds + m)), states = new Float64Array(n * ds), actionValues = new Float64Array(n);
   for (let p = 0; p < n; p++) {
     const i = index.order[p];
@@ -57,10 +67,10 @@ export function runCrossChecks(o: CrossCheckOptions): CrossCheckRun {
     inputs.set(data.actions.subarray(i * m, (i + 1) * m), p * (ds + m) + ds);
     states.set(data.states.subarray(i * ds, (i + 1) * ds), p * ds);
   }
-  solution.q.evaluate(inputs, n, actionValues);
-  const values = { actionValues, stateValues: stateValues(solution.q, policy, states, n, quadrature) };
+  q.evaluate(inputs, n, actionValues);
+  const values = { actionValues, stateValues: stateValues(q, policy, states, n, quadrature) };
   const ends = episodeEnds(data, discount);
-  const tails = { finalStateValues: stateValues(solution.q, policy, ends.finalStates, data.episodeCount, quadrature), tailWeights: ends.tailWeights };
+  const tails = { finalStateValues: stateValues(q, policy, ends.finalStates, data.episodeCount, quadrature), tailWeights: ends.tailWeights };
   const table = importanceWeightTable(data, index, policy, behaviour);
   const withTails = perDecisionData(table, values, tails), without = perDecisionData(table, values);
   const run = (prepared: typeof withTails, pick: (e: ReturnType<typeof perDecisionEstimates>) => number): Estimate => ({
