@@ -1,6 +1,6 @@
 /**
  * The measured tables behind the evidence checks, printed (never asserted): run with
- *   npx tsx test/core/evidenceSweep.ts [crossChecks] [classes]
+ *   npx tsx test/core/evidenceSweep.ts [linear] [pendulum] [classes]
  * Long (minutes); run under `nice -n 10`. The fast subsets that CI asserts are the *.test.ts files.
  */
 import { indexEpisodes } from '../../src/core/bootstrap/episodeTransitions';
@@ -95,8 +95,8 @@ function pendulumClasses(discount: number, data: TransitionSet): void {
 
 const parts = process.argv.slice(2);
 const want = (p: string) => parts.length === 0 || parts.includes(p);
-if (want('crossChecks')) {
-  for (const discount of [0.97, 0.99]) linearCrossChecks(discount);
+if (want('linear')) for (const discount of [0.97, 0.99]) linearCrossChecks(discount);
+if (want('pendulum')) {
   const data = pendulumLog(pendulumLogging, 300, 100, 3);
   for (const discount of [0.97, 0.99]) pendulumCrossChecks(discount, data);
 }

@@ -95,17 +95,38 @@ export function fitPolynomialModel(regressions: PolynomialModelRegressions, mult
   const ds = regressions.stateDim;
   const dyn = ridgeLeastSquares(resampleMoments(regressions.dynamics, multiplicities), 'the next states');
   const rew = ridgeLeastSquares(resampleMoments(regressions.reward, multiplicities), 'the reward');
-  let noiseFactor: Float64Array;
-  try {
-    noiseFactor = cholesky(dyn.residualCovariance, ds);
-  } catch (error) {
-    if (!(error instanceof SingularMatrixError)) throw error;
-    throw new ModelFitError('fitting the next states: the residuals are degenerate (a state follows the others exactly), so no noise model can be formed');
-  }
+  const noiseFactor = semidefiniteFactor(dyn.residualCovariance, ds);
   return {
     regressions, dynamicsWeights: dyn.coefficients, noiseFactor, rewardWeights: rew.coefficients,
     dynamicsRSquared: dyn.rSquared, rewardRSquared: rew.rSquared[0],
   };
+}
+
+/**
+ * A lower factor L with LLᵀ = W for a positive semi-definite W: Cholesky in which a pivot at rounding
+ * level (≤ 1e-12 of the largest diagonal) leaves its column zero. A position whose increment is the
+ * integrated rate (θ' = θ + Δt·ω') has noise fully correlated with the rate's, and W is singular;
+ * the factor then drives both from one noise source, as the plant does (Higham, "Accuracy and
+ * Stability of Numerical Algorithms", 2nd ed., §10.3, on semi-definite Cholesky).
+ */
+function semidefiniteFactor(w: Float64Array, n: number): Float64Array {
+  let scale = 0;
+  for (let i = 0; i < n; i++) scale = Math.max(scale, w[i * n + i]);
+  const l = new Float64Array(n * n), floor = 1e-12 * scale;
+  for (let j = 0; j < n; j++) {
+    let pivot = w[j * n + j];
+    for (let k = 0; k < j; k++) pivot -= l[j * n + k] ** 2;
+    if (pivot < -1e-8 * scale) throw new ModelFitError('fitting the next states: the residual covariance is not positive semi-definite (the fit is numerically unreliable)');
+    if (pivot <= floor) continue;
+    const root = Math.sqrt(pivot);
+    l[j * n + j] = root;
+    for (let i = j + 1; i < n; i++) {
+      let v = w[i * n + j];
+      for (let k = 0; k < j; k++) v -= l[i * n + k] * l[j * n + k];
+      l[i * n + j] = v / root;
+    }
+  }
+  return l;
 }
 
 interface Fit { coefficients: Float64Array; residualCovariance: Float64Array; rSquared: number[] }
