@@ -12,6 +12,7 @@ import { fitCensoredRegression } from '../../src/core/censoredRegression';
 import { loggedActionLimits } from '../../src/core/loggedActionLimits';
 import { normalCdf, normalSurvival } from '../../src/core/normalDistribution';
 import { fittedBehaviourPolicy } from '../../src/core/offPolicy/behaviourPolicy';
+import { logImportanceRatio } from '../../src/core/offPolicy/importanceRatio';
 import { createGaussianPolicy, policyMean } from '../../src/core/policy';
 import { createRandom } from '../../src/core/random';
 import { simulateLog } from './linearGaussianPlant';
@@ -102,10 +103,14 @@ describe('the behaviour model of a clipped logging controller', () => {
     expect(Math.abs(model.std[0] - 0.5)).toBeLessThan(0.02);
   });
 
-  it('is the same policy the importance-sampling check uses', () => {
+  it('is the same policy the importance-sampling check uses: the seeded candidate gives every logged action ratio 1', () => {
     const fitted = fittedBehaviourPolicy(data), model = fitBehaviourModel(data.states, data.actions, data.count, 3, 1);
     expect(Array.from(fitted.policy.offset)).toEqual(model.offset);
     expect(Array.from(fitted.policy.bounds!.lo)).toEqual([-0.4]);
     expect(fitted.limits.shareAtLimit[0]).toBeGreaterThan(0.05);
+    const seeded = createGaussianPolicy(behaviourPolicySpec(model), 3);
+    for (let i = 0; i < data.count; i += 7) {
+      expect(logImportanceRatio(seeded, fitted.policy, data.states.subarray(3 * i, 3 * i + 3), data.actions.subarray(i, i + 1))).toBe(0);
+    }
   });
 });
