@@ -5,7 +5,7 @@
 import type { FeatureMap, PolynomialFeatureSpec } from './featureMap';
 import { FeatureSpecError } from './featureSpecError';
 import { monomialBasis, monomialCount } from './monomials';
-import { MAX_FEATURES } from './featureLimit';
+import { MAX_FEATURES } from '../limits';
 import { readStandardiser, type StandardiserSpec } from './standardiser';
 
 export function polynomialFeatureSpec(standardiser: StandardiserSpec, degree: number): PolynomialFeatureSpec {

@@ -6,7 +6,7 @@
  */
 import type { FeatureMap, RadialBasisFeatureSpec } from './featureMap';
 import { FeatureSpecError } from './featureSpecError';
-import { MAX_FEATURES } from './featureLimit';
+import { MAX_FEATURES } from '../limits';
 import { readStandardiser, type StandardiserSpec } from './standardiser';
 
 export interface RadialBasisGridOptions {

@@ -45,8 +45,10 @@ async function answer(request: WorkerRequest): Promise<Result<unknown>> {
     case 'slice':
       return success(sliceFromFit(session.lastRun(), request.query));
     case 'assess':
-      if (request.data) session.setData(request.data.bytes, request.data.fileName);
       return runAssessment(session, request.project, (progress) => post({ kind: 'assessmentProgress', id: request.id, progress }));
+    case 'stopAssessment':
+      session.assessmentStop.requested = true;
+      return success(null);
   }
 }
 
