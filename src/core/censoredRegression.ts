@@ -11,7 +11,7 @@
  *   at lo:       log Φ(θ·lo − xᵀδ)
  *   at hi:       log Φ(xᵀδ − θ·hi)
  * With λ(z) = φ(z)/Φ(z) (the inverse Mills ratio), d log Φ/dz = λ and d² log Φ/dz² = −λ(z + λ)
- * (Greene, "Econometric Analysis", 7th ed., §19.3). Standard errors of (β, σ) by the delta method
+ * (Greene, "Econometric Analysis", 7th ed., ch. 19; section from memory). Standard errors of (β, σ) by the delta method
  * from the inverse of the observed information in (δ, θ).
  *
  * Shapes: x n×k row-major (include a column of ones for an intercept); y n.

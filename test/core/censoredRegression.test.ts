@@ -3,8 +3,8 @@
  * actuator. Outside references: the known parameters of the simulated law (Monte Carlo, tolerances
  * from the reported standard errors), the spread of the estimates over independent repetitions
  * (which the delta-method standard errors must match; Greene, "Econometric Analysis", 7th ed.,
- * §19.3), the censored-normal probability of sitting at a limit, Φ((lo − μ)/σ) (a closed form), and
- * the well-known attenuation of least squares on clipped responses (Greene §19.3.3).
+ * ch. 19, from memory), the censored-normal probability of sitting at a limit, Φ((lo − μ)/σ) (a closed form), and
+ * the well-known attenuation of least squares on clipped responses (Greene, same chapter).
  */
 import { describe, expect, it } from 'vitest';
 import { behaviourPolicySpec, fitBehaviourModel } from '../../src/core/behaviourModel';

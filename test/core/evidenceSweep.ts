@@ -10,28 +10,39 @@ import { polynomialFeatureSpec } from '../../src/core/features/polynomialFeature
 import { radialBasisGridSpec } from '../../src/core/features/radialBasisFeatures';
 import { fitStateActionStandardiser } from '../../src/core/features/standardiser';
 import { fittedBehaviourPolicy } from '../../src/core/offPolicy/behaviourPolicy';
+import { crossCheckVerdict, type CrossCheckEvidence } from '../../src/core/offPolicy/crossCheckVerdict';
 import { polynomialModelRegressions } from '../../src/core/offPolicy/polynomialDynamicsModel';
 import { createGaussianPolicy, type GaussianPolicy } from '../../src/core/policy';
 import type { TransitionSet } from '../../src/core/transitions';
 import { exactPolicyValue, simulateLog } from './linearGaussianPlant';
-import { fqeEstimate, paired, percentileInterval, runCrossChecks, standardDeviation, type CrossCheckRun } from './offPolicy/crossCheckHarness';
+import { fqeEstimate, paired, percentileInterval, runCrossChecks, standardDeviation, type CrossCheckRun, type Estimate } from './offPolicy/crossCheckHarness';
 import { PENDULUM, pendulumLog, pendulumLogging, pendulumRolloutValue, type PendulumController } from './saturatingPendulum';
 import { candidateFamily, cascadeLogging, cascadePlant, startLaws } from './testPlants';
 
 interface Row { name: string; truth: number; truthSe: number; run: CrossCheckRun }
 
-const fmt = (v: number, d = 2) => v.toFixed(d).padStart(8);
-const withSe = (point: number, replicates: number[]) => `${fmt(point)} ± ${standardDeviation(replicates).toFixed(2).padEnd(5)}`;
+const fmt = (v: number) => (Math.abs(v) >= 10 ? v.toFixed(2) : v.toFixed(3)).padStart(8);
+const withSe = (point: number, replicates: number[]) => `${fmt(point)} ± ${standardDeviation(replicates).toPrecision(2).padEnd(6)}`;
+const short: Record<string, string> = { agrees: 'agrees', disagrees: 'DISAGREES', uninformative: 'uninf.' };
 
-function print(title: string, rows: Row[]): void {
+/** The rule's verdict (crossCheckVerdict.ts) on a check's paired difference from FQE. */
+function verdictOf(label: string, check: Estimate, fqe: Estimate, extra: Partial<CrossCheckEvidence>): string {
+  const d = paired(check, fqe);
+  const v = crossCheckVerdict({ label, difference: d.point, differenceStandardError: standardDeviation(d.replicates), fqe: fqe.point, ...extra });
+  return short[v.agreement];
+}
+
+function print(title: string, rows: Row[], discount: number): void {
   console.log(`\n${title}`);
-  console.log('candidate                         truth        FQE              IS+tail          DR+tail          ESS@H  (of)   DR−FQE z   model            outside');
+  console.log('candidate                  truth            FQE (err)                IS+tail          DR+tail          ESS@H/300  IS      DR      model rollouts         outside  model   |FQE−truth|/SE');
   for (const { name, truth, truthSe, run } of rows) {
-    const dr = paired(run.doublyRobust, run.fqe), m = run.model;
-    const z = dr.point / standardDeviation(dr.replicates);
-    const model = m ? `${withSe(m.point, m.replicates)} ${(100 * m.shareOutsideLogs).toFixed(1).padStart(5)} %` : '';
-    console.log(`${name.padEnd(32)} ${fmt(truth)}${truthSe ? `±${truthSe.toFixed(2)}` : '      '} ${withSe(run.fqe.point, run.fqe.replicates)} ${withSe(run.importanceSampling.point, run.importanceSampling.replicates)} ` +
-      `${withSe(run.doublyRobust.point, run.doublyRobust.replicates)} ${run.effectiveEpisodes.toFixed(1).padStart(6)} ${String(run.episodesAtHorizon).padStart(5)} ${z.toFixed(1).padStart(8)}   ${model}`);
+    const m = run.model, tailWeight = discount ** 100;
+    const weights = { effectiveEpisodes: run.effectiveEpisodes, episodesReaching: run.episodesAtHorizon, horizonSteps: run.horizonSteps, tailWeight };
+    const err = `(${(100 * (run.fqe.point / truth - 1)).toFixed(1)} %)`.padEnd(9);
+    const model = m ? `${withSe(m.point, m.replicates)} ${(100 * m.shareOutsideLogs).toFixed(1).padStart(5)} %  ${verdictOf('model', m, run.fqe, { shareOutsideLogs: m.shareOutsideLogs }).padEnd(7)}` : '';
+    console.log(`${name.padEnd(24)} ${fmt(truth)}${truthSe ? `±${truthSe.toPrecision(1)}` : '       '} ${withSe(run.fqe.point, run.fqe.replicates)}${err} ${withSe(run.importanceSampling.point, run.importanceSampling.replicates)} ` +
+      `${withSe(run.doublyRobust.point, run.doublyRobust.replicates)} ${run.effectiveEpisodes.toFixed(1).padStart(6)}    ${verdictOf('IS', run.importanceSampling, run.fqe, { weights }).padEnd(7)} ` +
+      `${verdictOf('DR', run.doublyRobust, run.fqe, { weights }).padEnd(7)} ${model} ${(Math.abs(run.fqe.point - truth) / standardDeviation(run.fqe.replicates)).toFixed(1).padStart(5)}`);
   }
 }
 
@@ -44,7 +55,7 @@ function linearCrossChecks(discount: number): void {
     name, truth: exactPolicyValue(cascadePlant, c, discount, data.startStates), truthSe: 0,
     run: runCrossChecks({ data, policy: createGaussianPolicy({ offset: c.offset, gain: [c.gain], std: c.std }, 3), behaviour, features, discount, resamples: 100, seed: 13, model: { regressions, resamples: 30, rolloutsPerStart: 2 } }),
   }));
-  print(`Linear cascade plant, 300 runs × 100 steps, γ ${discount} (exact truth; FQE polynomial degree 2; model: degree-2 one-step model)`, rows);
+  print(`Linear cascade plant, 300 runs × 100 steps, γ ${discount} (exact truth; FQE polynomial degree 2; model: degree-2 one-step model)`, rows, discount);
 }
 
 const pendulumCandidates: [string, PendulumController][] = [
@@ -69,7 +80,7 @@ function pendulumCrossChecks(discount: number, data: TransitionSet): void {
       run: runCrossChecks({ data, policy: pendulumPolicy(c), behaviour, features, discount, resamples: 100, seed: 13, model: { regressions, resamples: 30, rolloutsPerStart: 2 } }),
     };
   });
-  print(`Saturating pendulum, ${data.episodeCount} runs × 100 steps, γ ${discount} (rollout truth; FQE polynomial degree 3; model: degree-3 one-step model)`, rows);
+  print(`Saturating pendulum, ${data.episodeCount} runs × 100 steps, γ ${discount} (rollout truth; FQE polynomial degree 3; model: degree-3 one-step model)`, rows, discount);
 }
 
 function pendulumClasses(discount: number, data: TransitionSet): void {
@@ -89,7 +100,7 @@ function pendulumClasses(discount: number, data: TransitionSet): void {
     const covers = v.range[0] <= truth.value && truth.value <= v.range[1];
     console.log(`${name}: truth ${truth.value.toFixed(4)} ± ${truth.standardError.toFixed(4)}; ` +
       estimates.map((e) => `${e.label} ${e.value.toFixed(4)} (${(100 * (e.value / truth.value - 1)).toFixed(1)} %) [${e.interval[0].toFixed(3)}, ${e.interval[1].toFixed(3)}]`).join('; ') +
-      `\n   → range [${v.range[0].toFixed(4)}, ${v.range[1].toFixed(4)}] ${covers ? 'covers' : 'MISSES'} the truth; ${v.settled ? 'settled' : 'not settled'}: ${v.reason}`);
+      `\n   → range [${v.range[0].toFixed(4)}, ${v.range[1].toFixed(4)}] ${covers ? 'covers' : 'MISSES'} the truth; ${v.reason}`);
   }
 }
 

@@ -3,7 +3,7 @@
  * occupancy, seen through the approximator's features, against the logged data's feature second
  * moment. 1 means "like the logs"; the error bound of linear fitted Q-evaluation grows with its
  * square root (Duan, Jia & Wang, "Minimax-optimal off-policy evaluation with linear function
- * approximation", ICML 2020, Thm. 2 and its discounted form).
+ * approximation", ICML 2020: their upper bound and its discounted form; theorem numbering from memory).
  *
  * What is measured. The candidate's normalised discounted occupancy d^π(s, a) = (1 − γ) Σ_t γ^t
  * P^π(s_t = s, a_t = a) from the start states has the feature mean ν = E_{d^π}[φ]. Against

@@ -6,7 +6,7 @@
  *
  * Calibrated occupancy shift s = νᵀΣ⁻¹ν (occupancyShift.ts; 1 = like the logs). Why 4 and 10:
  *   - The estimation error of linear fitted Q-evaluation is bounded by a term proportional to √s
- *     (Duan, Jia & Wang, ICML 2020, Thm. 2): the logs inform the candidate as n/s transitions would
+ *     (Duan, Jia & Wang, ICML 2020, upper bound): the logs inform the candidate as n/s transitions would
  *     inform the logged controller. 1/s is exactly the Kish effective share of the occupancy ratio
  *     projected on the features (occupancyShift.ts), the quantity the importance-weight rule below
  *     reads for the raw weights.
@@ -23,7 +23,7 @@
  *
  * Importance weights: Kish effective size at the effective horizon below 10 % of the episodes
  * reaching it is a caution, below 1 % serious (a common rule of thumb in importance sampling; Owen,
- * "Monte Carlo theory, methods and examples", 2013, §9.3). Action support: a mean share of the
+ * "Monte Carlo theory, methods and examples", 2013, ch. 9; section from memory). Action support: a mean share of the
  * candidate's action probability outside the logged actions above 10 % is a caution, above 25 %
  * serious (our rule; the logged controller's own share is shown beside it for scale).
  */

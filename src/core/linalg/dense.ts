@@ -128,7 +128,7 @@ export function luSolve({ n, lu, pivot }: LuFactors, b: ArrayLike<number>): Floa
 /**
  * Solve Aᵀ x = b with the factors of A: P·A = L·U gives Aᵀ = Uᵀ·Lᵀ·P, so solve Uᵀy = b (forward),
  * Lᵀw = y (backward, unit diagonal) and x = Pᵀw by undoing the row swaps in reverse order
- * (Golub & Van Loan, "Matrix Computations", 4th ed., §3.4). Lets one factorisation serve a system
+ * (Golub & Van Loan, "Matrix Computations", 4th ed., ch. 3). Lets one factorisation serve a system
  * and its adjoint.
  */
 export function luSolveTransposed({ n, lu, pivot }: LuFactors, b: ArrayLike<number>): Float64Array {

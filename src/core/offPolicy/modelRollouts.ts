@@ -14,7 +14,7 @@
  *
  * Seeded: rollout r of start s uses the stream createRandom(seed + s·R + r), so a bootstrap
  * replicate with the same seed reuses the same random numbers (common random numbers; Glasserman,
- * "Monte Carlo Methods in Financial Engineering", 2003, §4.2) and its spread is the models' spread.
+ * "Monte Carlo Methods in Financial Engineering", 2003, ch. 4; section from memory) and its spread is the models' spread.
  * Monte Carlo standard error: from the spread of the R rollouts within each start (R ≥ 2), given the
  * fitted model and the start states.
  *

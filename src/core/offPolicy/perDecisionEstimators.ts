@@ -26,7 +26,7 @@
  *          for the ending episode: the state term at step t averages w_{t−1}V̂(s_t) over every episode
  *          whose state at t is logged (those that act at t and those that end there), so its
  *          telescoping sum Σ_t γ^t(E V̂_t − E Q̂_t + E r_t) = E V̂_0 + Σ_t γ^t E[r_t + γV̂_{t+1} − Q̂_t]
- *          keeps its last term (Jiang & Li 2016, eq. 4, with V̂ past the horizon).
+ *          keeps its last term (the recursive form of Jiang & Li 2016, with V̂ past the horizon).
  *   WPDIS: γ^H Σ_k w̄_{k,H−1} V̂(s_{k,H}) over the episodes that end on a time limit at the longest
  *          length H (steps before H are already covered by the episodes that reach them).
  * Episodes that end in a terminal state get no tail. With tails neither estimate is free of the
