@@ -2,9 +2,8 @@
  * Whether a cross-check can confirm or contradict fitted Q-evaluation (FQE), and what the checks
  * together say. Thresholds are ours unless marked, named once in CROSS_CHECK_RULE.
  *
- * A check is informative only when it could see an error worth knowing about:
- *   - it can detect a gap of detectableGap (10 %) of |J|: 3 standard errors of its paired difference
- *     from FQE stay below that (a check whose interval spans ±20 % "agrees" with anything);
+ * A check is informative only when it rests on something other than FQE's own fit and can see an
+ * error worth knowing about:
  *   - weighted importance sampling / doubly robust: the importance weights at the effective horizon
  *     1/(1 − γ) keep a Kish effective size of at least max(10, 10 % of the episodes reaching it) (a
  *     common rule of thumb) — below it doubly robust falls back on FQE's own Q̂ and agreement proves
@@ -12,8 +11,11 @@
  *     of the discount weight, γ^H ≤ ½, since the tail is FQE's own value;
  *   - model rollouts: at most maxShareOutsideLogs (5 %) of the discounted simulated steps reach the
  *     edge of the logged state range (modelRollouts.ts), beyond which the fitted model extrapolates.
- * An informative check disagrees when its difference from FQE exceeds 3 standard errors of the paired
- * difference and 2 % of |J| (both needed: significance and size), else agrees.
+ * A check that passes those disagrees when its difference from FQE exceeds 3 standard errors of the
+ * paired difference and 2 % of |J| (both needed: significance and size). Otherwise it agrees only if
+ * it could have seen a gap of detectableGap (10 %) of |J| — 3 standard errors of the paired
+ * difference below that; a check whose interval spans ±20 % "agrees" with anything, so it is then
+ * uninformative. (A noisy check can still disagree: a gap beyond 3 of its standard errors is seen.)
  * Together: contradicted if any informative check disagrees; confirmed if at least one agrees and
  * none disagrees; unconfirmed when no check is informative — nothing in the logs can then confirm
  * the estimate, and the headline must say so.
@@ -47,6 +49,13 @@ export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   const weak = weakness(e);
   if (weak) return { label: e.label, agreement: 'uninformative', note: `Uninformative: ${weak}; it ${gap}.` };
   if (z > r.standardErrors && relative > r.relative) return { label: e.label, agreement: 'disagrees', note: `Disagrees: it ${gap}.` };
+  const detectable = (r.standardErrors * e.differenceStandardError) / scale;
+  if (!(detectable <= r.detectableGap)) {
+    return {
+      label: e.label, agreement: 'uninformative',
+      note: `Uninformative: its uncertainty is too wide to see an error of ${100 * r.detectableGap} % of J (it would need a gap of ${(100 * detectable).toFixed(0)} %); it ${gap}.`,
+    };
+  }
   return { label: e.label, agreement: 'agrees', note: `Agrees: it ${gap}.` };
 }
 
@@ -60,8 +69,6 @@ function weakness(e: CrossCheckEvidence): string | null {
   if (e.shareOutsideLogs !== undefined && e.shareOutsideLogs > r.maxShareOutsideLogs) {
     return `${(100 * e.shareOutsideLogs).toFixed(0)} % of the simulated (discounted) steps reach the edge of the logged states, where the fitted model extrapolates`;
   }
-  const detectable = (r.standardErrors * e.differenceStandardError) / Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
-  if (!(detectable <= r.detectableGap)) return `its uncertainty is too wide to see an error of ${100 * r.detectableGap} % of J (it would need a gap of ${(100 * detectable).toFixed(0)} %)`;
   return null;
 }
 

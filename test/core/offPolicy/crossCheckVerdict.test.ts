@@ -14,12 +14,13 @@ describe('crossCheckVerdict', () => {
     expect(v.note).toMatch(/2\.5 % of J \(5\.0 standard errors/);
   });
 
-  it('is uninformative when it could not see a 10 % error', () => {
+  it('is uninformative when it agrees but could not have seen a 10 % error; a gap beyond 3 of its standard errors still counts', () => {
     const limit = (CROSS_CHECK_RULE.detectableGap * 100) / CROSS_CHECK_RULE.standardErrors;
     expect(crossCheckVerdict({ ...base, differenceStandardError: 0.99 * limit }).agreement).toBe('agrees');
-    const v = crossCheckVerdict({ ...base, differenceStandardError: 1.01 * limit, difference: 30 });
+    const v = crossCheckVerdict({ ...base, differenceStandardError: 1.01 * limit, difference: 5 });
     expect(v.agreement).toBe('uninformative');
     expect(v.note).toMatch(/too wide to see an error of 10 % of J/);
+    expect(crossCheckVerdict({ ...base, differenceStandardError: 1.01 * limit, difference: 30 }).agreement).toBe('disagrees');
   });
 
   it('is uninformative when the importance weights collapse or the tail carries most of the weight', () => {
