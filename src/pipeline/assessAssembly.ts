@@ -38,7 +38,7 @@ export interface AssemblyInputs {
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
   const { context, works, replicates, settings, sign } = inputs;
   return works.map((work, j) => {
-    const diagnostics = coverageDiagnostics(work, context, inputs.ranges, { policy: context.behaviour, meanOutside: inputs.behaviourOutside });
+    const diagnostics = coverageDiagnostics(work, context, inputs.ranges, { policy: context.presentController, meanOutside: inputs.behaviourOutside });
     const points = fullDataCrossChecks(inputs, work, j);
     const checks = crossChecks({
       work, replicates: replicates.candidates[j], points: points.values, weights: diagnostics.importanceWeights,
@@ -90,8 +90,10 @@ function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
 }
 
 export function comparison(loggedValue: number, replicates: ReplicateSet, works: CandidateWork[], level: number, sign: number): Comparison {
-  const behaviour: Estimator = { name: BEHAVIOUR_NAME, point: loggedValue, replicates: replicates.behaviour };
-  const candidates: Estimator[] = works.map((w, j) => ({ name: w.model.name, point: w.model.fit.policyValue, replicates: replicates.candidates[j].fqe }));
+  const behaviour: Estimator = { name: BEHAVIOUR_NAME, point: loggedValue, replicates: replicates.loggedReturn };
+  // A fit that did not converge has no value to compare: it is left out of the differences and the ranking.
+  const candidates: Estimator[] = works.flatMap((w, j) => (w.model.fit.status !== 'converged' ? []
+    : [{ name: w.model.name, point: w.model.fit.policyValue, replicates: replicates.candidates[j].fqe }]));
   const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, behaviour, level, sign));
   for (let i = 0; i < candidates.length; i++) {
     for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));
@@ -120,8 +122,8 @@ export function globalWarnings(context: AssessmentContext, truncationWeight: num
       message: `The candidates’ J is taken at the ${plan.starts.count} start states given in the project, the logged behaviour’s return at its episodes’ own starts: the comparison with today mixes two start distributions.`,
     });
   }
-  if (!context.behaviour) out.push({ severity: 'caution', topic: 'behaviourModel', message: `Importance-sampling cross-checks are not available: ${context.behaviourReason}.` });
-  context.behaviourShareAtLimit.forEach((share, j) => {
+  if (!context.presentController) out.push({ severity: 'caution', topic: 'behaviourModel', message: `Importance-sampling cross-checks are not available: ${context.presentControllerReason}.` });
+  context.presentControllerShareAtLimit.forEach((share, j) => {
     if (share > FAILED_SHARE) {
       out.push({
         severity: 'caution', topic: 'behaviourModel',

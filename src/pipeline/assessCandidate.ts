@@ -32,10 +32,11 @@ export interface CandidateWork {
 /** What every candidate's assessment shares: the run's plan and the fitted present-controller model. */
 export interface AssessmentContext {
   readonly plan: EvaluationPlan;
-  readonly behaviour: GaussianPolicy | null;
-  readonly behaviourReason: string;
+  /** The present controller as a policy: the linear-Gaussian model fitted to the logged actions (behaviourPolicy.ts). */
+  readonly presentController: GaussianPolicy | null;
+  readonly presentControllerReason: string;
   /** Share of logged actions at a detected actuator limit, per action (behaviourPolicy.ts). */
-  readonly behaviourShareAtLimit: number[];
+  readonly presentControllerShareAtLimit: number[];
   readonly cancel?: CancellationCheck;
   readonly wasmPath?: string;
 }
@@ -88,10 +89,10 @@ export function linearSolveSettings(plan: EvaluationPlan, model: CandidateModel)
 function offPolicyInputs(context: AssessmentContext, model: CandidateModel): OffPolicyInputs | { reason: string } {
   const { plan } = context;
   if (!plan.starts.followEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged episodes’ own starts' };
-  if (!context.behaviour) return { reason: context.behaviourReason };
+  if (!context.presentController) return { reason: context.presentControllerReason };
   let table: ImportanceWeightTable;
   try {
-    table = importanceWeightTable(plan.data, plan.episodes, model.policy, context.behaviour);
+    table = importanceWeightTable(plan.data, plan.episodes, model.policy, context.presentController);
   } catch (error) {
     if (error instanceof ImportanceRatioError) return { reason: error.message };
     throw error;

@@ -9,7 +9,7 @@
  *     the logged controller's own level is shown beside it for scale).
  */
 import { createActionQuadrature } from '../core/actionQuadrature';
-import { meanStartFeatures, policyFeatureMean } from '../core/bootstrap/startFeatures';
+import { meanStartFeatures, policyFeatureMean } from '../core/features/policyFeatures';
 import { distributionShift, nextStateFeatureMean } from '../core/diagnostics/distributionShift';
 import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { effectiveSampleSizeFromLogs } from '../core/diagnostics/effectiveSampleSize';

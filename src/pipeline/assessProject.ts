@@ -12,7 +12,6 @@ import { loggedActionRanges } from '../core/diagnostics/actionSupport';
 import { BehaviourModelError } from '../core/behaviourModel';
 import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import type { CancellationCheck } from '../core/fqe/cancellation';
-import { loggedDiscountedReturn } from '../core/loggedReturn';
 import { fittedBehaviourPolicy } from '../core/offPolicy/behaviourPolicy';
 import { failure, success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
@@ -80,18 +79,18 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   const { plan } = run, { data, sign } = plan, { settings } = options;
   const modelCheck = checkLinearQuadraticModel(data, plan.episodes);
   const modelReasons = works.map((w) => modelInapplicability(modelCheck, w.model.policy));
-  const logged = loggedDiscountedReturn(data, plan.discount);
+  const logged = plan.loggedReturn;
   const model = modelCheck.regressions ? { regressions: modelCheck.regressions, applicable: modelReasons.map((r) => r === null) } : null;
   const replicates = await runResamples(context, works, logged.perEpisode, model, settings,
     (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
   const ranges = loggedActionRanges(data);
-  const behaviourOutside = context.behaviour ? meanOutside(context.behaviour, ranges) : null;
+  const behaviourOutside = context.presentController ? meanOutside(context.presentController, ranges) : null;
   const candidates = assembleCandidates({ context, works, replicates, modelCheck, modelReasons, ranges, behaviourOutside, settings, sign });
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
   const unvisited = unvisitedShare(plan);
   return {
     settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver: resampleSolver(works) },
-    behaviour: intervalEstimate(logged.value, replicates.behaviour, settings.level, sign),
+    behaviour: intervalEstimate(logged.value, replicates.loggedReturn, settings.level, sign),
     candidates,
     comparison: comparison(logged.value, replicates, works, settings.level, sign),
     sensitivity: settings.sensitivity ? await sensitivity(context, works, sign) : null,
@@ -117,14 +116,14 @@ function assessmentContext(run: ProjectRun, options: AssessRunOptions): Assessme
     throw new AssessmentError(`the bootstrap resamples whole episodes and needs at least ${MIN_EPISODES}; the data have ${data.episodeCount}. ` +
       'Mark the episodes in the log (columns.episode: a run column, or a time gap) to get intervals');
   }
-  let behaviour = null, behaviourReason = '', behaviourShareAtLimit: number[] = [];
+  let presentController = null, presentControllerReason = '', presentControllerShareAtLimit: number[] = [];
   try {
     const fitted = fittedBehaviourPolicy(data);
-    behaviour = fitted.policy;
-    behaviourShareAtLimit = fitted.limits.shareAtLimit;
+    presentController = fitted.policy;
+    presentControllerShareAtLimit = fitted.limits.shareAtLimit;
   } catch (error) {
     if (!(error instanceof BehaviourModelError)) throw error;
-    behaviourReason = `no behaviour model could be fitted (${error.message})`;
+    presentControllerReason = `no behaviour model could be fitted (${error.message})`;
   }
-  return { plan, behaviour, behaviourReason, behaviourShareAtLimit, cancel: options.cancel, wasmPath: options.wasmPath };
+  return { plan, presentController, presentControllerReason, presentControllerShareAtLimit, cancel: options.cancel, wasmPath: options.wasmPath };
 }

@@ -24,7 +24,7 @@ export interface CandidateReplicates {
 }
 
 export interface ReplicateSet {
-  behaviour: Replicates;
+  loggedReturn: Replicates;
   candidates: CandidateReplicates[];
 }
 
@@ -43,7 +43,7 @@ export async function runResamples(
   const pace = createPacer(PACE_MS);
   const e = context.plan.episodes.episodes, c = new Uint32Array(e);
   const out: ReplicateSet = {
-    behaviour: [],
+    loggedReturn: [],
     candidates: works.map((w, j) => ({
       fqe: [], importanceSampling: 'perDecision' in w.offPolicy ? [] : null, doublyRobust: 'perDecision' in w.offPolicy ? [] : null,
       model: model?.applicable[j] ? [] : null,
@@ -54,7 +54,7 @@ export async function runResamples(
     throwIfCancelled(context.cancel);
     if (b % 25 === 0) onProgress?.({ done: b, total: settings.resamples });
     episodeMultiplicities(e, settings.seed, b, c);
-    out.behaviour.push(weightedMean(perEpisodeReturns, c));
+    out.loggedReturn.push(weightedMean(perEpisodeReturns, c));
     const fitted = model ? resampleModel(model.regressions, c) : null;
     works.forEach((w, j) => replicateCandidate(context, w, out.candidates[j], c, fitted));
   }

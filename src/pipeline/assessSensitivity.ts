@@ -14,7 +14,7 @@
  * Network: every point is a new network fit, so only the width is swept (½× and 2× the units of
  * every hidden layer, beside the project's own fit) and the discount sweep is left out.
  */
-import { meanStartFeatures, startStateFeatures } from '../core/bootstrap/startFeatures';
+import { meanStartFeatures, startStateFeatures } from '../core/features/policyFeatures';
 import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
 import { solveReplicate } from '../core/bootstrap/linearFqeReplicate';
 import { accumulateBellmanStatistics } from '../core/fqe/bellmanStatistics';
@@ -97,7 +97,7 @@ async function widthCurve(context: AssessmentContext, works: CandidateWork[], a:
 }
 
 function flatBehaviour(context: AssessmentContext, count: number, sign: number): SensitivitySeries {
-  const value = sign * loggedDiscountedReturn(context.plan.data, context.plan.discount).value;
+  const value = sign * context.plan.loggedReturn.value;
   return { name: BEHAVIOUR, values: new Array<number>(count).fill(value), status: new Array<string>(count).fill('logged') };
 }
 

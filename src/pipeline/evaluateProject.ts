@@ -4,7 +4,6 @@
  * return. Numbers leave in the project's sense (a cost stays a cost). `evaluateProject` runs a
  * project start to finish for hosts that need nothing else; hosts that also assess keep the run.
  */
-import { loggedDiscountedReturn } from '../core/loggedReturn';
 import { success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import { valueSurface } from '../core/value';
@@ -45,7 +44,7 @@ export async function evaluateProject(options: EvaluateOptions): Promise<Result<
 
 export function evaluationOf(run: ProjectRun, warnings: string[] = [], now: () => Date = () => new Date()): Evaluation {
   const { plan } = run, { project, data } = plan;
-  const logged = loggedDiscountedReturn(data, plan.discount);
+  const logged = plan.loggedReturn;
   return {
     project: project.name,
     evaluatedAt: now().toISOString(),

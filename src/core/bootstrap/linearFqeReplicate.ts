@@ -17,7 +17,7 @@ import { fixedPointWeights, iterationMatrix, ridgeGram, ridgeGramFactor } from '
 import { spectralRadiusBound } from '../fqe/spectralRadiusBound';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { resampleBellmanStatistics, type EpisodeBellmanSums } from './episodeBellmanSums';
-import { meanStartFeatures } from './startFeatures';
+import { meanStartFeatures } from '../features/policyFeatures';
 
 /**
  * iteration: the iterate at the tolerance, or — as the pipeline reports it — the fixed point when

@@ -2,7 +2,7 @@
  * Full polynomial features of total degree ≤ k in the standardised inputs z = (x − mean)/scale,
  * all cross terms and the constant included: φ(x) = (z^e : |e| ≤ k), d = C(n+k, k).
  */
-import type { FeatureMap, PolynomialFeatureSpec } from './featureMap';
+import type { FeatureMap, PolynomialFeatureSpec } from './featureTypes';
 import { FeatureSpecError } from './featureSpecError';
 import { monomialBasis, monomialCount } from './monomials';
 import { MAX_FEATURES } from '../limits';

@@ -4,7 +4,7 @@
  * with centres c_j and width w both in standardised units (Bishop, "Pattern Recognition and
  * Machine Learning", 2006, §3.1, eq. 3.4).
  */
-import type { FeatureMap, RadialBasisFeatureSpec } from './featureMap';
+import type { FeatureMap, RadialBasisFeatureSpec } from './featureTypes';
 import { FeatureSpecError } from './featureSpecError';
 import { MAX_FEATURES } from '../limits';
 import { readStandardiser, type StandardiserSpec } from './standardiser';

@@ -7,38 +7,15 @@
  * iteration converges they agree, and when it diverges the fixed point may still exist.
  */
 import { createActionQuadrature } from '../actionQuadrature';
-import { startStateFeatures } from '../bootstrap/startFeatures';
-import type { FeatureMap } from '../features/featureMap';
-import type { GaussianPolicy } from '../policy';
-import type { TransitionSet } from '../transitions';
+import { startStateFeatures } from '../features/policyFeatures';
 import { accumulateBellmanStatistics, type BellmanStatistics } from './bellmanStatistics';
-import type { CancellationCheck } from './cancellation';
-import type { FqeIterationProgress } from './fqeIteration';
-import { checkFqeInput } from './linearFqeInput';
+import { checkFqeInput, type LinearFqeInput } from './linearFqeInput';
+
+export type { LinearFqeInput } from './linearFqeInput';
 import { solveLinearFqe, type LinearSolveResult } from './linearFqeSolve';
 
 export type { FqeIterationProgress, FqeStatus } from './fqeIteration';
 export type { FixedPointSolution, LinearFqeSolution } from './linearFqeSolve';
-
-export interface LinearFqeInput {
-  readonly data: TransitionSet;
-  readonly policy: GaussianPolicy;
-  readonly features: FeatureMap;
-  readonly discount: number; // γ ∈ [0, 1]
-  /** λ ≥ 0 per sample on the averaged normal equations; the constant feature is not penalised (ridgeSystem.ts). */
-  readonly ridge: number;
-  readonly quadratureNodes: number; // Gauss–Hermite nodes per action dimension
-  /** Stop when the relative weight change ‖Δw‖/‖w‖ is at most this. */
-  readonly tolerance: number;
-  readonly maxIterations: number;
-  /** w_0 (d); default 0, which makes w_1 the one-step reward regression. */
-  readonly initialWeights?: ArrayLike<number>;
-  /** e×ds start states for J; default data.startStates. */
-  readonly startStates?: Float64Array;
-  readonly onIteration?: (progress: FqeIterationProgress) => void;
-  readonly onDataPass?: (rowsDone: number, rowsTotal: number) => void;
-  readonly cancel?: CancellationCheck;
-}
 
 export interface LinearFqeResult extends LinearSolveResult {
   /** The one-pass sums; they depend on the policy and features but not on γ or λ. */

@@ -18,7 +18,7 @@ import { createActionQuadrature, type ActionQuadrature } from '../../core/action
 import { episodeBellmanSums, resampleBellmanStatistics, type EpisodeBellmanSums } from '../../core/bootstrap/episodeBellmanSums';
 import { unitMultiplicities } from '../../core/bootstrap/episodeMultiplicities';
 import { linearisedReplicates } from '../../core/bootstrap/linearisedReplicate';
-import { startStateFeatures } from '../../core/bootstrap/startFeatures';
+import { startStateFeatures } from '../../core/features/policyFeatures';
 import { accumulateBellmanStatistics, bellmanSumsStride, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
 import { solveLinearFqe } from '../../core/fqe/linearFqeSolve';
 import { MAX_EXACT_RESAMPLE_VALUES } from '../../core/limits';

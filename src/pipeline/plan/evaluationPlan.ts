@@ -7,31 +7,17 @@
  */
 import { indexEpisodes, type EpisodeIndex } from '../../core/bootstrap/episodeTransitions';
 import type { FeatureMap } from '../../core/features/featureMap';
-import type { GaussianPolicy } from '../../core/policy';
+import { loggedDiscountedReturn, type LoggedReturn } from '../../core/loggedReturn';
 import { failure, success, type Problem, type Result } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
-import type { ValueSurfaceOptions } from '../../core/value';
 import type { ApproximatorSettings, ProjectDocument } from '../../project/schema';
 import { planFeatures } from './featureMapFor';
 import { planPolicies } from './planPolicies';
 import { dataWarnings, discountProblems } from './planChecks';
 import { surfaceGridFor } from './surfaceGrid';
+import type { PlannedPolicy, StartStates, SurfaceGrid } from './planTypes';
 
-/** A policy the plan evaluates: a candidate of the project (index into project.candidates). */
-export interface PlannedPolicy {
-  readonly index: number;
-  readonly name: string;
-  readonly policy: GaussianPolicy;
-}
-
-export interface StartStates {
-  readonly states: Float64Array; // count×ds
-  readonly count: number;
-  /** True when start state k is episode k's first state (so it is resampled with its episode). */
-  readonly followEpisodes: boolean;
-}
-
-export type SurfaceGrid = ValueSurfaceOptions & { readonly xState: string; readonly yState: string };
+export type { PlannedPolicy, StartStates, SurfaceGrid } from './planTypes';
 
 export interface EvaluationPlan {
   readonly project: ProjectDocument;
@@ -49,6 +35,8 @@ export interface EvaluationPlan {
   /** The linear approximator's feature map, built once from the data for every candidate; null for a network. */
   readonly features: FeatureMap | null;
   readonly surface: SurfaceGrid | null;
+  /** The logs' own discounted return per episode at the project's discount (what the plant did). */
+  readonly loggedReturn: LoggedReturn;
   /** Things the user should know that do not stop the evaluation (few transitions per feature, constant columns…). */
   readonly warnings: readonly Problem[];
 }
@@ -64,7 +52,7 @@ export function planEvaluation(project: ProjectDocument, data: TransitionSet): R
   return success({
     project, data, episodes: indexEpisodes(data), discount: project.discount, quadratureNodes: project.quadratureNodes, seed: project.seed,
     sense, sign: sense === 'cost' ? -1 : 1, starts: starts.value, candidates: policies.value, approximator: project.approximator,
-    features: features.value, surface: surfaceGridFor(project, data), warnings: [...features.warnings, ...dataWarnings(data)],
+    features: features.value, surface: surfaceGridFor(project, data), loggedReturn: loggedDiscountedReturn(data, project.discount), warnings: [...features.warnings, ...dataWarnings(data)],
   });
 }
 

@@ -10,7 +10,7 @@ import { failure, success, type Problem, type Result } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
 import type { ProjectDocument } from '../../project/schema';
 import { candidatePolicy } from '../candidatePolicy';
-import type { PlannedPolicy } from './evaluationPlan';
+import type { PlannedPolicy } from './planTypes';
 
 export function planPolicies(project: ProjectDocument, data: TransitionSet): Result<PlannedPolicy[]> {
   const planned: PlannedPolicy[] = [], problems: Problem[] = [];

@@ -13,7 +13,7 @@ import { episodeMultiplicities, unitMultiplicities } from '../../../src/core/boo
 import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
 import { linearFqeReplicate, solveReplicate, type LinearReplicateSetup } from '../../../src/core/bootstrap/linearFqeReplicate';
 import { linearisedReplicate, linearisedReplicates } from '../../../src/core/bootstrap/linearisedReplicate';
-import { meanStartFeatures, startStateFeatures } from '../../../src/core/bootstrap/startFeatures';
+import { meanStartFeatures, startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
 import { fitStateActionStandardiser } from '../../../src/core/features/standardiser';

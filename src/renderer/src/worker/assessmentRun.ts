@@ -10,16 +10,16 @@ import { assessRun, type AssessmentProgress } from '../../../pipeline/assessProj
 import { assessmentSettingsFor } from '../../../pipeline/assessSettings';
 import type { ProjectDocument } from '../../../project/schema';
 import type { AssessRunProgress } from '../../../shared/workerMessages';
-import type { WorkerSession } from './workerSession';
+import type { WorkerMemory } from './workerMemory';
 
 const PROGRESS_INTERVAL_MS = 100;
 
 export async function runAssessment(
-  session: WorkerSession, project: ProjectDocument, report: (progress: AssessRunProgress) => void, clock: () => number = () => performance.now(),
+  memory: WorkerMemory, project: ProjectDocument, report: (progress: AssessRunProgress) => void, clock: () => number = () => performance.now(),
 ): Promise<Result<Assessment>> {
   const settings = assessmentSettingsFor(project);
   if (!settings.ok) return settings;
-  const evaluated = session.runFor(project);
+  const evaluated = memory.runFor(project);
   if (!evaluated) return failure({ where: 'assessment', message: 'there is no finished evaluation of this project to assess; run the evaluation first' });
   const started = clock();
   let lastSent = -Infinity, lastStage = '';
@@ -30,7 +30,7 @@ export async function runAssessment(
     lastStage = progress.stage;
     report({ ...progress, elapsedMs: now - started });
   };
-  const stop = session.assessmentStop;
+  const stop = memory.assessmentStop;
   stop.requested = false;
   return assessRun(evaluated.run, { settings: settings.value, onProgress, cancel: () => stop.requested });
 }

@@ -10,19 +10,19 @@ import { evaluationOf } from '../../../pipeline/evaluateProject';
 import { startRun, type EvaluationProgress } from '../../../pipeline/projectRun';
 import type { ProjectDocument } from '../../../project/schema';
 import type { RunProgress } from '../../../shared/workerMessages';
-import type { WorkerSession } from './workerSession';
+import type { WorkerMemory } from './workerMemory';
 
 const PROGRESS_INTERVAL_MS = 100;
 
 export async function runEvaluation(
-  session: WorkerSession, project: ProjectDocument, report: (progress: RunProgress) => void, clock: () => number = () => performance.now(),
+  memory: WorkerMemory, project: ProjectDocument, report: (progress: RunProgress) => void, clock: () => number = () => performance.now(),
 ): Promise<Result<Evaluation>> {
-  const opened = session.open(project);
+  const opened = memory.open(project);
   if (!opened.ok) return opened;
   // The network fit picks its TensorFlow.js backend itself (wasm where it verifies, else cpu); it
   // only needs to know where the wasm files are served, before the backend first starts.
   if (project.approximator.kind === 'network' && project.approximator.backend !== 'cpu') (await import('./tensorflowWasmFiles')).configureWasmFiles();
-  session.dropRun();
+  memory.dropRun();
   const started = clock();
   let lastSent = -Infinity;
   const settings = project.approximator;
@@ -43,6 +43,6 @@ export async function runEvaluation(
   const run = await startRun(project, opened.value.dataset, { onProgress });
   if (!run.ok) return run;
   const openingWarnings = [...opened.value.warnings, ...run.warnings].map((w) => `${w.where}: ${w.message}`);
-  session.keepRun({ project, opened: opened.value, run: run.value });
+  memory.keepRun({ project, opened: opened.value, run: run.value });
   return success(evaluationOf(run.value, openingWarnings));
 }

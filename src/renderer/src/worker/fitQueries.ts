@@ -11,7 +11,7 @@ import type { ValueSurface } from '../../../pipeline/estimates';
 import type { CandidateModel } from '../../../pipeline/model/candidateModel';
 import { surfaceGridFor, surfaceVisits } from '../../../pipeline/plan/surfaceGrid';
 import type { ActionSliceReply, SliceQuery, SurfaceQuery } from '../../../shared/workerMessages';
-import { WorkerQueryError, type EvaluatedRun } from './workerSession';
+import { WorkerQueryError, type EvaluatedRun } from './workerMemory';
 
 /** Half-width of the slice around the policy mean, in standard deviations (covers all but ~6e-5 of the mass; common practice). */
 const SLICE_HALF_WIDTH_STD = 4;

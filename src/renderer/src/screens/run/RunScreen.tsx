@@ -8,7 +8,7 @@ import { ProblemList } from '../../components/ProblemList';
 import { projectProblems } from '../../document/projectProblems';
 import { formatDuration, formatNumber } from '../../format/numberFormat';
 import { useDocument, useSession, useStale } from '../../hooks';
-import { importKey } from '../../session/runKey';
+import { importKey } from '../../../../shared/runKey';
 import { runBlockers } from '../../session/evaluationRunner';
 import { useWorkspace } from '../../WorkspaceContext';
 import { progressView } from './runProgressView';
