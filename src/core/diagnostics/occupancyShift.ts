@@ -19,7 +19,7 @@
  *     A = G + λD − γM      (G = ΦᵀΦ/n, M = ΦᵀΨ/n from bellmanStatistics.ts; λ, D as in ridgeSystem.ts),
  * and ν = (1 − γ) E_{s0}[Uᵀ ξ(s0)] = (1 − γ) Uᵀ ξ̄₀, i.e.
  *     ν = (1 − γ) G z,   Aᵀ z = ξ̄₀,   shift = νᵀ (G + λD)⁻¹ ν,
- * with ξ̄₀ the mean policy-averaged start feature vector (../bootstrap/startFeatures.ts). One solve
+ * with ξ̄₀ the mean policy-averaged start feature vector (../features/policyFeatures.ts). One solve
  * with Aᵀ, one with G + λD: the cost of one fixed-point solve, and the LU factor of A can be shared.
  *
  * Checks on the algebra (each is a test): with a constant feature c and no terminal transitions,

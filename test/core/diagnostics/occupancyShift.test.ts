@@ -16,7 +16,7 @@ import { describe, expect, it } from 'vitest';
 import { createActionQuadrature } from '../../../src/core/actionQuadrature';
 import { episodeBellmanSums, resampleBellmanStatistics } from '../../../src/core/bootstrap/episodeBellmanSums';
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
-import { meanStartFeatures, startStateFeatures } from '../../../src/core/bootstrap/startFeatures';
+import { meanStartFeatures, startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { occupancyShift, type OccupancyShift } from '../../../src/core/diagnostics/occupancyShift';
 import { OCCUPANCY_SHIFT_LIMITS, occupancyShiftFinding, severityAbove } from '../../../src/core/diagnostics/severity';
 import { createFeatureMap, type FeatureMap } from '../../../src/core/features/featureMap';

@@ -8,7 +8,7 @@ import { episodeBellmanSums } from '../../../src/core/bootstrap/episodeBellmanSu
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
 import { linearFqeReplicate } from '../../../src/core/bootstrap/linearFqeReplicate';
-import { startStateFeatures } from '../../../src/core/bootstrap/startFeatures';
+import { startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { effectiveSampleSizeFromLogs } from '../../../src/core/diagnostics/effectiveSampleSize';
 import type { FeatureMap } from '../../../src/core/features/featureMap';
 import { linearActionValue } from '../../../src/core/fqe/linearActionValue';
