@@ -15,7 +15,7 @@ import { createActionQuadrature } from '../../../src/core/actionQuadrature';
 import { episodeBellmanSums } from '../../../src/core/bootstrap/episodeBellmanSums';
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicate } from '../../../src/core/bootstrap/linearFqeReplicate';
-import { startStateFeatures } from '../../../src/core/bootstrap/startFeatures';
+import { startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { fitLinearFqe } from '../../../src/core/fqe/linearFqe';
 import { createFitSession } from '../../../src/core/fqe/networkFitSession';
 import { hiddenFeatureRows } from '../../../src/core/fqe/networkHiddenFeatures';
