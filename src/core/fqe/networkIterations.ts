@@ -108,47 +108,62 @@ async function outerIteration(
   const features = hiddenFeatureRows(s.net.theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
   countFeatureWork(s, state.work);
   try {
-    const lastLayer = lastLayerOf(s, features, state);
-    if ('failure' in lastLayer) return diverged(k, lastLayer.failure);
-    if (s.method.lastLayer === 'leastSquares') setOutputLayer(s.net.theta, s.layout, lastLayer, s.output.scale);
-    const values = measureIterate(s, lastLayer, input.startStates, input.stateDim);
-    if (!(values.reach <= s.valueLimit)) {
-      return diverged(k, `the values reach |Q| = ${values.reach.toPrecision(4)}, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy's value can reach`);
-    }
-    state.iterates.push({ policyValue: values.policyValue, probe: values.probe });
-    const change = iterationChange(rule, state.iterates);
-    state.history.push({
-      iteration: k, loss: state.lastLoss, heldOutBellmanError: heldOutBellmanError(s, lastLayer),
-      policyValue: values.policyValue, relativeChange: change.relativeChange, remainingBound: change.remainingBound,
-    });
-    state.kept?.theta.dispose();
-    state.kept = { theta: tf.clone(s.net.theta), lastLayer, iteration: k };
+    const measured = measure(s, k, state, features, input, rule);
+    if ('stop' in measured) return measured.stop;
     report();
-    const bounds = state.history.map((h) => h.remainingBound);
-    if (hasConverged(rule, bounds)) return { kind: 'converged', message: convergedMessage(rule, k) };
+    if (hasConverged(rule, state.history.map((h) => h.remainingBound))) return { kind: 'converged', message: convergedMessage(rule, k) };
     if (k === input.outerIterations) return { kind: 'maxIterations', message: notConvergedMessage(rule, state.history) };
-    const targets = regressionTargets(s, features, lastLayer, s.method.lastLayer === 'gradient' ? state.linearStart : lastLayer.linear);
-    try {
-      state.decayFrom ??= decayStart(s.method, rule, k, change.remainingBound);
-      setLearningRate(s, input.learningRate * learningRateFactor(s.method, k, state.decayFrom));
-      s.batches.setTargets(targets);
-      const trainingStarted = performance.now();
-      const outcome = await trainSteps(s.net, s.batches, input.stepsPerIteration, guard);
-      state.work.stepSeconds += (performance.now() - trainingStarted) / 1000;
-      state.work.adamSteps += input.stepsPerIteration;
-      state.work.flop += input.stepsPerIteration * adamStepFlop(s.layout, s.batches.batchSize);
-      if (outcome.kind !== 'completed') {
-        const what = outcome.kind === 'nonFinite' ? 'not finite' : `above ${guard.lossLimit.toPrecision(3)} (exploding)`;
-        return diverged(k, `the minibatch loss at step ${outcome.step} was ${outcome.loss} in network units, ${what}`);
-      }
-      state.lastLoss = outcome.meanLoss * s.output.scale ** 2;
-      s.average.add(s.net.theta);
-    } finally {
-      targets.dispose();
-    }
-    return null;
+    state.decayFrom ??= decayStart(s.method, rule, k, measured.remainingBound);
+    setLearningRate(s, input.learningRate * learningRateFactor(s.method, k, state.decayFrom));
+    return await train(s, k, state, features, measured.lastLayer, guard, input.stepsPerIteration);
   } finally {
     features.dispose();
+  }
+}
+
+/** Steps 2–3: the last layer of θ_k, its values and checks, the history record and the kept iterate. */
+function measure(
+  s: FitSession, k: number, state: LoopState, features: HiddenFeatureRows, input: LoopInput, rule: ConvergenceRule,
+): { stop: IterationStop } | { lastLayer: LastLayer; remainingBound: number | null } {
+  const lastLayer = lastLayerOf(s, features, state);
+  if ('failure' in lastLayer) return { stop: diverged(k, lastLayer.failure) };
+  if (s.method.lastLayer === 'leastSquares') setOutputLayer(s.net.theta, s.layout, lastLayer, s.output.scale);
+  const values = measureIterate(s, lastLayer, input.startStates, input.stateDim);
+  if (!(values.reach <= s.valueLimit)) {
+    return { stop: diverged(k, `the values reach |Q| = ${values.reach.toPrecision(4)}, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy's value can reach`) };
+  }
+  state.iterates.push({ policyValue: values.policyValue, probe: values.probe });
+  const change = iterationChange(rule, state.iterates);
+  state.history.push({
+    iteration: k, loss: state.lastLoss, heldOutBellmanError: heldOutBellmanError(s, lastLayer),
+    policyValue: values.policyValue, relativeChange: change.relativeChange, remainingBound: change.remainingBound,
+  });
+  state.kept?.theta.dispose();
+  state.kept = { theta: tf.clone(s.net.theta), lastLayer, iteration: k };
+  return { lastLayer, remainingBound: change.remainingBound };
+}
+
+/** Step 4: Adam steps on the Bellman targets of Q_k; null to go on, or why to stop. */
+async function train(
+  s: FitSession, k: number, state: LoopState, features: HiddenFeatureRows, lastLayer: LastLayer, guard: TrainingGuard, steps: number,
+): Promise<IterationStop | null> {
+  const targets = regressionTargets(s, features, lastLayer, s.method.lastLayer === 'gradient' ? state.linearStart : lastLayer.linear);
+  try {
+    s.batches.setTargets(targets);
+    const started = performance.now();
+    const outcome = await trainSteps(s.net, s.batches, steps, guard);
+    state.work.stepSeconds += (performance.now() - started) / 1000;
+    state.work.adamSteps += steps;
+    state.work.flop += steps * adamStepFlop(s.layout, s.batches.batchSize);
+    if (outcome.kind !== 'completed') {
+      const what = outcome.kind === 'nonFinite' ? 'not finite' : `above ${guard.lossLimit.toPrecision(3)} (exploding)`;
+      return diverged(k, `the minibatch loss at step ${outcome.step} was ${outcome.loss} in network units, ${what}`);
+    }
+    state.lastLoss = outcome.meanLoss * s.output.scale ** 2;
+    s.average.add(s.net.theta);
+    return null;
+  } finally {
+    targets.dispose();
   }
 }
 

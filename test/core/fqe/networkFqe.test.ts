@@ -150,7 +150,7 @@ describe('fitNetworkFqe values', () => {
     expect(e.difference.value).toBeCloseTo(e.value - e.linear.value, 12);
     expect(e.interval.lower).toBeLessThanOrEqual(e.interval.upper);
     expect(e.resamples).toBe(50);
-    expect(e.covers).toMatch(/not the randomness of the network training nor the error of the function class/);
+    expect(e.covers).toMatch(/randomness of the training, not the error of the function class outside the logged states/);
     fit.dispose();
   });
 });
