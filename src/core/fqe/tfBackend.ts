@@ -7,7 +7,8 @@
  * fit at a time per thread (the app runs fits in one worker, one after another).
  *
  * Threads: the wasm backend uses a thread pool only where SharedArrayBuffer is usable, i.e. in a
- * cross-origin-isolated page or worker; in Node and in an ordinary renderer it runs on one thread.
+ * cross-origin-isolated page or worker; in Node and in an ordinary renderer it runs on one thread
+ * (in Node TF.js turns threads off itself, and its threaded build cannot start its workers there).
  */
 import * as tf from '@tensorflow/tfjs';
 import { getThreadsCount, setWasmPaths } from '@tensorflow/tfjs-backend-wasm';
@@ -94,6 +95,9 @@ async function describeWasm(): Promise<string> {
 
 /** Why the backend runs on one thread: the host turned threads off, or the page cannot share memory. */
 async function singleThreadReason(): Promise<string> {
+  // Measured with TF.js 4.22: in Node it reports no thread support by design, and forcing the
+  // threaded build fails (ERR_WORKER_PATH) because its pthreads start from blob: URLs.
+  if (tf.env().getBool('IS_NODE')) return 'Node: TensorFlow.js runs its single-threaded build there';
   const isolated = (globalThis as { crossOriginIsolated?: boolean }).crossOriginIsolated === true;
   if (!isolated) return 'not cross-origin isolated, so no shared memory for a thread pool';
   const threadsAllowed = await tf.env().getAsync('WASM_HAS_MULTITHREAD_SUPPORT');
