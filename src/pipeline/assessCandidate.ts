@@ -78,7 +78,7 @@ export class AssessmentError extends Error {
 
 /** fit: the host's own fit of this candidate (network), reused rather than refitted; it stays the host's to dispose. */
 export async function prepareCandidate(shared: SharedInputs, candidate: CandidateSpec, fit?: CandidateFit): Promise<CandidateWork> {
-  const policy = candidatePolicy(candidate, shared.data.stateDim);
+  const policy = candidatePolicy(candidate, shared.data);
   const quadrature = createActionQuadrature(policy, shared.project.quadratureNodes);
   if (shared.project.approximator.kind === 'linear') return linearWork(shared, candidate.name, policy, quadrature);
   const own = fit ? null : await fitCandidate({

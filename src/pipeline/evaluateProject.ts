@@ -89,7 +89,7 @@ async function estimateCandidate(
   options: EvaluateOptions, candidate: CandidateSpec, index: number, startStates: Float64Array, sign: number,
 ): Promise<{ estimate: PolicyEstimate; warnings: string[] }> {
   const { project, dataset } = options;
-  const policy = candidatePolicy(candidate, dataset.stateDim);
+  const policy = candidatePolicy(candidate, dataset);
   const report = (iteration: FitIteration | null) => options.onProgress?.({ candidate: candidate.name, candidateIndex: index, candidateCount: project.candidates.length, iteration });
   report(null);
   const fit: CandidateFit = await fitCandidate({

@@ -37,7 +37,7 @@ export function parseProjectText(text: string, fileName: string): Result<LoadedP
   }
   const parsed = projectSchema.safeParse(migrated.document);
   if (!parsed.success) return failure(...zodProblems(parsed.error, fileName));
-  const problems = checkProjectConsistency(parsed.data, fileName);
+  const problems = checkProjectConsistency(parsed.data, fileName, migrated.document);
   if (problems.length > 0) return failure(...problems);
   return success({ document: parsed.data, fromVersion: migrated.fromVersion });
 }

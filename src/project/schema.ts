@@ -58,6 +58,38 @@ export const dataSourceSchema = z.object({
   csv: csvSettingsSchema.default({ delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }),
 });
 
+/**
+ * States derived from logged signals during import, per episode (src/data/derivedStates.ts, where
+ * the formulas and the reason they are Markov under a candidate are written out). A state column
+ * may name one of them instead of a file column. Sources are file columns; an action column may be
+ * used only by a "previous" state (the previous action, for a rate limit).
+ */
+const derivedName = columnName;
+const derivedUnit = z.string().default('');
+export const derivedStateSchema = z.discriminatedUnion('kind', [
+  /** I_t = initial + Σ_{k<t} (setpoint − measurement)_k·Δt_k from the episode start, in measurement unit·s. */
+  z.object({
+    kind: z.literal('errorIntegral'), name: derivedName, unit: derivedUnit,
+    measurement: columnName,
+    /** A constant setpoint, or the name of a setpoint column. */
+    setpoint: z.union([finite, columnName]),
+    initial: finite.default(0),
+    /** Δt per step; without it Δt comes from the timestamp column. */
+    periodSeconds: finite.positive().optional(),
+  }),
+  /** First-order lag f_t = f_{t−1} + (1 − e^{−Δt/τ})(x_t − f_{t−1}); starts at `initial` or the first sample. */
+  z.object({
+    kind: z.literal('filtered'), name: derivedName, unit: derivedUnit, source: columnName,
+    timeConstantSeconds: finite.positive('expected a positive time constant in seconds'),
+    initial: finite.optional(),
+    periodSeconds: finite.positive().optional(),
+  }),
+  /** x_{t−1}; on an episode's first row `initial`, or (without it) that row only supplies the value for the next. */
+  z.object({ kind: z.literal('previous'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
+  /** x_t − x_{t−1}; on an episode's first row `initial`, or (without it) that row only supplies x_{t−1}. */
+  z.object({ kind: z.literal('difference'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
+]);
+
 export const columnRolesSchema = z.object({
   states: z.array(signalSchema).min(1, 'expected at least one state column').max(10),
   actions: z.array(signalSchema).min(1, 'expected at least one action column').max(3, 'at most 3 action columns are supported'),
@@ -68,6 +100,8 @@ export const columnRolesSchema = z.object({
   terminal: columnName.optional(),
   /** Timestamp column, for the sampling period and time checks (a timeGap episode rule names its own). */
   timestamp: columnName.optional(),
+  /** States computed from the log during import; states may name them. */
+  derived: z.array(derivedStateSchema).max(10).optional(),
 });
 
 export const actuatorBoundsSchema = z.object({
@@ -77,16 +111,92 @@ export const actuatorBoundsSchema = z.object({
   mode: z.enum(['clip', 'truncate']),
 });
 
+/** Feedback on a setpoint error (P or PI), as a control engineer writes it. */
+const feedbackFields = {
+  /** The measured state (a state column or a derived state). */
+  measurement: columnName,
+  /** A constant setpoint in the measurement's unit, or the name of a setpoint state. */
+  setpoint: z.union([finite, columnName]),
+  /** Controller gain K_c ≥ 0, action unit per measurement unit; the direction sets the sign. */
+  proportionalGain: finite.nonnegative('expected a gain ≥ 0; choose the direction with "action"'),
+  /** Integral time T_i (K_i = K_c/T_i); or give integralGain; neither for P only. */
+  integralTimeSeconds: finite.positive('expected a positive integral time in seconds').optional(),
+  /** Integral gain K_i, action unit per (measurement unit·s), instead of an integral time. */
+  integralGain: finite.nonnegative().optional(),
+  /** The derived error-integral state Σ (setpoint − measurement)·Δt, needed with integral action. */
+  integralState: columnName.optional(),
+  /** reverse: output rises as the measurement falls below the setpoint (heating); direct: the opposite (cooling). */
+  action: z.enum(['reverse', 'direct']),
+};
+export const feedbackSchema = z.object(feedbackFields);
+export const piLoopSchema = z.object({
+  /** Output at zero error and zero integral, in the action's unit. */
+  bias: finite,
+  ...feedbackFields,
+});
+export const scheduleLoopSchema = z.object({
+  /** The state the schedule reads (e.g. outdoor temperature). */
+  input: columnName,
+  /** Strictly increasing values of the input; the output is held beyond the first and last. */
+  breakpoints: z.array(finite).min(1).max(50),
+  /** Output at each breakpoint, in the action's unit; straight lines between. */
+  values: z.array(finite).min(1).max(50),
+  /** Optional P/PI trim added to the schedule (no bias of its own). */
+  feedback: feedbackSchema.optional(),
+});
+
+/** How the candidate's mean action depends on the states: one form per candidate, one loop per action. */
+export const candidateFormSchema = z.discriminatedUnion('kind', [
+  /** μ(s) = offset + gain·s, in the units of the action and state columns. */
+  z.object({ kind: z.literal('affine'), offset: z.array(finite).min(1), gain: z.array(z.array(finite)).min(1) }),
+  z.object({ kind: z.literal('pi'), loops: z.array(piLoopSchema).min(1).max(3) }),
+  z.object({ kind: z.literal('schedule'), loops: z.array(scheduleLoopSchema).min(1).max(3) }),
+]);
+
+/** |a − a_prev| ≤ maxStep per sample, per action (null: no rate limit on that action). */
+export const rateLimitSchema = z.object({
+  maxStep: z.array(finite.positive('expected a positive step limit').nullable()).min(1),
+  /** The derived "previous" state of each action column (null where maxStep is null). */
+  previousAction: z.array(columnName.nullable()).min(1),
+});
+
+const ditherSchema = z.array(finite.positive('expected a positive standard deviation')).min(1);
+
+/**
+ * A candidate as written. The form may also be given the older way, as top-level `offset` and
+ * `gain` (the affine form); `std` is the older name of `dither`. Both are read and turned into the
+ * current shape, so older project files load unchanged.
+ */
 export const candidateSchema = z.object({
   name: z.string().trim().min(1, 'expected a name'),
   description: z.string().default(''),
-  /** μ(s) = offset + gain·s, in the units of the action and state columns. */
-  offset: z.array(finite).min(1),
-  gain: z.array(z.array(finite)).min(1),
-  /** Standard deviation of each action around μ(s), same units as the action. */
-  std: z.array(finite.positive('expected a positive standard deviation')).min(1),
+  form: candidateFormSchema.optional(),
+  /** Older affine form: μ(s) = offset + gain·s (read into form). */
+  offset: z.array(finite).min(1).optional(),
+  gain: z.array(z.array(finite)).min(1).optional(),
+  /** Dither: the standard deviation of each action around the mean, in the action's unit. */
+  dither: ditherSchema.optional(),
+  /** Older name of dither. */
+  std: ditherSchema.optional(),
+  /** Position limits of the actuator. */
   bounds: actuatorBoundsSchema.optional(),
-});
+  rateLimit: rateLimitSchema.optional(),
+}).superRefine((c, ctx) => {
+  if (c.form && (c.offset || c.gain)) ctx.addIssue({ code: 'custom', path: [c.offset ? 'offset' : 'gain'], message: 'give the mean once: as "form", or as the older "offset" and "gain", not both' });
+  if (!c.form) {
+    if (!c.offset && !c.gain) ctx.addIssue({ code: 'custom', path: ['form'], message: 'expected the candidate\'s form: {"kind": "pi" | "schedule" | "affine", …}' });
+    else if (!c.offset) ctx.addIssue({ code: 'custom', path: ['offset'], message: 'expected the offset of the affine form (one value per action)' });
+    else if (!c.gain) ctx.addIssue({ code: 'custom', path: ['gain'], message: 'expected the gain of the affine form (one row per action)' });
+  }
+  if (c.dither && c.std) ctx.addIssue({ code: 'custom', path: ['std'], message: 'give the dither once: "dither" ("std" is its older name)' });
+  if (!c.dither && !c.std) ctx.addIssue({ code: 'custom', path: ['dither'], message: 'expected the dither: the standard deviation of each action, in its unit' });
+}).transform(({ name, description, form, offset, gain, dither, std, bounds, rateLimit }) => ({
+  name, description,
+  form: form ?? { kind: 'affine' as const, offset: offset ?? [], gain: gain ?? [] },
+  dither: dither ?? std ?? [],
+  ...(bounds ? { bounds } : {}),
+  ...(rateLimit ? { rateLimit } : {}),
+}));
 
 export const featureSchema = z.discriminatedUnion('kind', [
   z.object({ kind: z.literal('polynomial'), degree: z.number().int().min(1).max(6) }),
@@ -171,6 +281,8 @@ export const projectSchema = z.object({
 export type ProjectDocument = z.infer<typeof projectSchema>;
 export type ProjectInput = z.input<typeof projectSchema>;
 export type CandidateSpec = z.infer<typeof candidateSchema>;
+export type CandidateForm = CandidateSpec['form'];
+export type DerivedStateSpec = z.infer<typeof derivedStateSchema>;
 export type ColumnRoles = z.infer<typeof columnRolesSchema>;
 export type CsvSettings = z.infer<typeof csvSettingsSchema>;
 export type ApproximatorSettings = z.infer<typeof approximatorSchema>;

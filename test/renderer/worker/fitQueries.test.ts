@@ -59,9 +59,10 @@ describe('evaluation worker handlers', async () => {
   it('puts the slice’s nodes where the Gauss–Hermite rule puts them, weights summing to one', () => {
     const state = [1.2, 0.8];
     const slice = sliceFromFit(session.lastRun(), { candidateIndex: 0, state, actionIndex: 0, points: 401 });
-    const c = project.candidates[0];
-    const mean = c.offset[0] + c.gain[0][0] * state[0] + c.gain[0][1] * state[1];
-    const sigma = c.std[0];
+    const c = project.candidates[0], form = c.form;
+    if (form.kind !== 'affine') throw new Error('the tank sample\'s first candidate is affine');
+    const mean = form.offset[0] + form.gain[0][0] * state[0] + form.gain[0][1] * state[1];
+    const sigma = c.dither[0];
     const expected = [...HERMITE_10].reverse().map((x) => mean - sigma * Math.SQRT2 * x).concat(HERMITE_10.map((x) => mean + sigma * Math.SQRT2 * x));
     Array.from(slice.nodes.points).forEach((p, i) => expect(p).toBeCloseTo(expected[i], 9));
     expect(slice.nodes.weights.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);
