@@ -19,7 +19,9 @@ import { readColumns, type TableColumns } from './columnReader';
 import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
 import { rewardColumn } from './rewardColumn';
-import { assignEpisodes, medianStepSeconds } from './episodes';
+import { assignEpisodes, medianStepSeconds, type EpisodeAssignment, type EpisodeInputs } from './episodes';
+import { computeDerivedStates, withoutFirstRows } from './derivedStates';
+import { plural } from './reportFormat';
 import { buildTransitions } from './transitionBuilder';
 import { constantStateWarnings, summariseDataset, type DatasetSummary } from './datasetSummary';
 import { dialectReport, excludedRows, excludedWarning, rowProblemList, type ExcludedRow } from './importReport';
@@ -94,14 +96,17 @@ function assemble(s: Stages): Result<ImportedDataset> {
   for (const r of s.problems.badRecords()) kept[r] = 0;
   if (!kept.includes(1)) return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, 'every data row has a problem, so no row is left to import'));
   const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
-  const episodes = assignEpisodes(columns.episode, {
+  const episodeInputs = {
     kept, terminal, lineOf,
     labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
     timestampsSeconds: s.timestamps?.seconds,
-  });
-  const number = (name: string): Float64Array => table.numbers.get(name)!;
+  };
+  const derived = derivedStates(s, episodeInputs, assignEpisodes(columns.episode, episodeInputs));
+  const { episodes, derivedValues } = derived;
+  const usedRows = derived.kept;
+  const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
   const { transitions, report } = buildTransitions({
-    kept, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, rewards: s.rewards, terminal, lineOf,
+    kept: usedRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, rewards: s.rewards, terminal, lineOf,
     states: columns.states.map((c) => number(c.column)),
     actions: columns.actions.map((c) => number(c.column)),
     nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
@@ -111,19 +116,45 @@ function assemble(s: Stages): Result<ImportedDataset> {
   if (transitions.count === 0) {
     return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every episode has a single usable row; expected consecutive rows of the same episode (or next-state columns)'));
   }
-  const summary = summarise(s, kept, transitions);
+  const summary = summarise(s, kept, transitions, derivedValues, usedRows);
   const excluded = excludedRows(s.problems, lineOf);
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName)];
-  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), ...episodes.report, ...report];
+  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), ...episodes.report, ...derived.report, ...report];
   return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount }, warnings);
 }
 
-function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet): DatasetSummary {
-  const used: { name: string; roles: string[]; values: Float64Array; field: number }[] = [];
+/**
+ * Derived states along the episodes (derivedStates.ts). Where one is undefined on an episode's
+ * first row, that row is taken out of the rows that start transitions and the episodes are
+ * assigned again on the rows left (an episode reduced to nothing disappears; the cuts between the
+ * others stay where they were).
+ */
+function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssignment) {
+  const definitions = s.columns.derived ?? [];
+  const stateNames = new Set(s.columns.states.map((c) => c.column));
+  const used = definitions.filter((d) => stateNames.has(d.name));
+  if (used.length === 0) return { episodes, derivedValues: new Map<string, Float64Array>(), kept: inputs.kept, report: [] as string[] };
+  const { values, firstRowUndefined } = computeDerivedStates(used, {
+    kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds,
+  });
+  const report = [`Derived states computed along each episode: ${used.map((d) => `${d.name} (${DERIVED_WORDS[d.kind]})`).join(', ')}.`];
+  if (firstRowUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
+  const { kept, removed } = withoutFirstRows(inputs.kept, episodes.episodeOf);
+  const names = [...firstRowUndefined].join(', ');
+  report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each episode only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
+  return { episodes: assignEpisodes(s.columns.episode, { ...inputs, kept }), derivedValues: values, kept, report };
+}
+
+const DERIVED_WORDS = { errorIntegral: 'error integral', filtered: 'first-order lag', previous: 'previous value', difference: 'difference' } as const;
+
+function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet, derived: Map<string, Float64Array>, derivedRows: Uint8Array): DatasetSummary {
+  const used: { name: string; roles: string[]; values: Float64Array; field: number; include?: Uint8Array }[] = [];
   for (const request of s.plan.requests) {
     const values = request.kind === 'number' ? s.table.numbers.get(request.name) : request.kind === 'timestamp' ? s.timestamps?.seconds : undefined;
     if (values) used.push({ name: request.name, roles: s.plan.roles.get(request.name) ?? [], values, field: request.field });
   }
+  let field = Math.max(0, ...s.plan.requests.map((r) => r.field + 1));
+  for (const [name, values] of derived) used.push({ name, roles: ['state', 'derived'], values, field: field++, include: derivedRows });
   used.sort((a, b) => a.field - b.field);
   const decision = s.timestamps?.decision;
   return summariseDataset({

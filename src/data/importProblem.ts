@@ -10,6 +10,7 @@ export type ImportProblemKind =
   | 'not-utf8' | 'empty-file' | 'blank-header' | 'header-only' | 'no-usable-rows' | 'no-transitions' | 'more-problems'
   // naming in the header and the column roles
   | 'missing-column' | 'duplicate-column' | 'next-state-count' | 'expression-syntax' | 'expression-unknown-column'
+  | 'derived-name-clash'
   // one row or one cell
   | 'blank-line' | 'ragged-row' | 'quote' | 'empty-cell' | 'not-a-number' | 'not-finite' | 'bad-flag'
   | 'empty-episode' | 'bad-timestamp' | 'invalid-date' | 'timestamp-backwards' | 'reward-not-finite'
