@@ -7,6 +7,7 @@ import type { Problem } from '../core/result';
 import type { ProjectDocument } from './schema';
 import { checkCandidate, writtenCandidate, writtenCandidatePath } from './candidateConsistency';
 import { checkDerivedStates } from './derivedStateConsistency';
+import { checkRetuneMaps } from './retuneMapConsistency';
 
 /**
  * `written`, when given, is the document as the file holds it (before the schema's defaults and
@@ -22,6 +23,7 @@ export function checkProjectConsistency(doc: ProjectDocument, fileName: string, 
     checkCandidate(doc, c, (path, message) => problems.push({ where: at(`${where}.${writtenCandidatePath(writtenCandidate(written, i), path)}`), message }));
   });
   checkDerivedStates(doc, (path, message) => problems.push({ where: at(path), message }));
+  checkRetuneMaps(doc, (path, message) => problems.push({ where: at(path), message }));
   const names = new Set<string>();
   doc.candidates.forEach((c, i) => {
     if (names.has(c.name)) problems.push({ where: at(`candidates[${i}].name`), message: `the name "${c.name}" is used by another candidate; names must be unique` });

@@ -6,6 +6,7 @@
  * (see migrations.ts). Field names are ours; the README documents them.
  */
 import { z } from 'zod';
+import { MAX_RETUNE_AXES, MAX_RETUNE_AXIS_POINTS, MIN_RETUNE_AXIS_POINTS } from '../core/retune/retuneAxes';
 
 export const PROJECT_FORMAT = 'setpoint-critic-project';
 export const PROJECT_VERSION = 1;
@@ -261,6 +262,23 @@ export const bootstrapSchema = z.object({
   level: finite.min(0.5, 'expected a confidence level of at least 0.5').lt(1, 'expected a confidence level below 1').default(0.9),
 });
 
+/** One swept number of a candidate: its dotted path and the values (src/core/retune/retuneAxes.ts). */
+export const retuneAxisSchema = z.object({
+  /** e.g. "form.loops.0.proportionalGain", "form.loops.0.integralTimeSeconds", "dither.0". */
+  parameter: z.string().trim().min(1, 'expected the path of a number of the candidate'),
+  from: finite,
+  to: finite,
+  count: z.number().int().min(MIN_RETUNE_AXIS_POINTS).max(MAX_RETUNE_AXIS_POINTS),
+  spacing: z.enum(['linear', 'logarithmic']).default('linear'),
+});
+
+/** A retune map: one candidate evaluated over a grid of one or two of its parameters. */
+export const retuneMapSchema = z.object({
+  /** The name of the candidate the map starts from. */
+  candidate: z.string().trim().min(1, 'expected the name of a candidate'),
+  axes: z.array(retuneAxisSchema).min(1).max(MAX_RETUNE_AXES),
+});
+
 export const projectSchema = z.object({
   format: z.literal(PROJECT_FORMAT),
   version: z.literal(PROJECT_VERSION),
@@ -276,6 +294,7 @@ export const projectSchema = z.object({
   startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
   surface: surfaceSchema.optional(),
   bootstrap: bootstrapSchema.optional(),
+  retuneMaps: z.array(retuneMapSchema).max(10).optional(),
 });
 
 export type ProjectDocument = z.infer<typeof projectSchema>;
@@ -283,6 +302,7 @@ export type ProjectInput = z.input<typeof projectSchema>;
 export type CandidateSpec = z.infer<typeof candidateSchema>;
 export type CandidateForm = CandidateSpec['form'];
 export type DerivedStateSpec = z.infer<typeof derivedStateSchema>;
+export type RetuneMapSpec = z.infer<typeof retuneMapSchema>;
 export type ColumnRoles = z.infer<typeof columnRolesSchema>;
 export type CsvSettings = z.infer<typeof csvSettingsSchema>;
 export type ApproximatorSettings = z.infer<typeof approximatorSchema>;
