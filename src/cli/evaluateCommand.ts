@@ -8,6 +8,7 @@ import { formatAssessment } from './assessmentFormat';
 import { evaluateProjectFile } from './evaluateProjectFile';
 import { formatCautions, formatEvaluation } from './formatEvaluation';
 import { formatImport } from './formatImport';
+import { formatCandidates } from './formatCandidates';
 
 export async function runEvaluateCommand(projectPath: string, options: { json: boolean } & AssessmentOverrides): Promise<number> {
   const result = await evaluateProjectFile(projectPath, options);
@@ -24,6 +25,7 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
   } else {
     process.stdout.write(formatImport(imported, project.data.path));
+    process.stdout.write(formatCandidates(project));
     process.stdout.write(formatEvaluation(evaluation, basename(projectPath)));
     process.stdout.write(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
     process.stdout.write(formatCautions(evaluation));

@@ -12,30 +12,20 @@
  * Cost per point: n evaluations of ψ (policyFeatureAverage.ts) plus ≈ 1.5·n·d² multiply-adds;
  * Φ is read, not recomputed, when it was kept.
  */
-import type { EpisodeBellmanSums } from '../bootstrap/episodeBellmanSums';
 import type { FeatureMap } from '../features/featureMap';
-import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
 import type { TransitionSet } from '../transitions';
 import { logged, type PolicyFreeSums } from './policyFreeSums';
 import type { PolicyFeatureAverage } from './policyFeatureAverage';
+import { addSlot, mirrorInPlace, newPacked, newSlot, packedSlot, statisticsOf, type PointSums, type Slot } from './pointSums';
 
 const BLOCK_VALUES = 1 << 16;
 
-export interface PointSums {
-  readonly statistics: BellmanStatistics;
-  readonly episodeSums: EpisodeBellmanSums | null;
-}
-
-interface Slot {
-  readonly cross: Float64Array; // d×d
-  readonly nextGram: Float64Array; // d×d, upper triangle
-  readonly nextReward: Float64Array; // d
-}
-
 export function policyDependentSums(
-  data: TransitionSet, features: FeatureMap, free: PolicyFreeSums, average: PolicyFeatureAverage, cancel?: CancellationCheck,
+  data: TransitionSet, features: FeatureMap, free: PolicyFreeSums, average: PolicyFeatureAverage,
+  options: { cancel?: CancellationCheck; withNextGram?: boolean } = {},
 ): PointSums {
+  const cancel = options.cancel, withNextGram = options.withNextGram !== false;
   const d = free.dim, index = free.index, perEpisode = free.episodeSums !== null;
   const rows = Math.max(32, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
   const block = { phi: new Float64Array(d * rows), psi: new Float64Array(d * rows), reward: new Float64Array(rows), input: new Float64Array(data.stateDim + data.actionDim), row: new Float64Array(d) };
@@ -46,18 +36,15 @@ export function policyDependentSums(
     for (let from = index.offsets[k]; from < index.offsets[k + 1]; from += rows) {
       const size = Math.min(rows, index.offsets[k + 1] - from);
       gather(data, features, free, average, block, from, size, rows);
-      addBlock(block.phi, block.psi, block.reward, size, rows, d, slot);
+      if (withNextGram) addBlock(block.phi, block.psi, block.reward, size, rows, d, slot);
+      else addCrossBlock(block.phi, block.psi, size, rows, d, slot);
     }
     if (packed) {
       addSlot(slot, total, d);
       mirrorInPlace(slot.nextGram, d);
     }
   }
-  return { statistics: statisticsOf(free, total), episodeSums: packed };
-}
-
-function newSlot(d: number): Slot {
-  return { cross: new Float64Array(d * d), nextGram: new Float64Array(d * d), nextReward: new Float64Array(d) };
+  return { statistics: statisticsOf(free, total, 'upper'), episodeSums: packed };
 }
 
 /** Block rows t = 0..size−1 hold transitions index.order[from + t], feature-major. */
@@ -81,75 +68,71 @@ function gather(
   }
 }
 
-/** slot += block sums of ΦᵀΨ, ΨᵀΨ (upper triangle) and Ψᵀr over the first `size` rows. */
-function addBlock(phi: Float64Array, psi: Float64Array, reward: Float64Array, size: number, rows: number, d: number, slot: Slot): void {
+/** slot.cross += block sums of ΦᵀΨ only (no Bellman residual wanted), four columns at a time. */
+function addCrossBlock(phi: Float64Array, psi: Float64Array, size: number, rows: number, d: number, slot: Slot): void {
+  const cross = slot.cross;
   for (let a = 0; a < d; a++) {
     const oa = a * rows;
-    for (let b = 0; b < d; b++) {
-      const ob = b * rows;
-      let m = 0;
-      for (let t = 0; t < size; t++) m += phi[oa + t] * psi[ob + t];
-      slot.cross[a * d + b] += m;
-      if (b < a) continue;
-      let h = 0;
-      for (let t = 0; t < size; t++) h += psi[oa + t] * psi[ob + t];
-      slot.nextGram[a * d + b] += h;
+    let b = 0;
+    for (; b + 3 < d; b += 4) {
+      const o0 = b * rows, o1 = o0 + rows, o2 = o1 + rows, o3 = o2 + rows;
+      let m0 = 0, m1 = 0, m2 = 0, m3 = 0;
+      for (let t = 0; t < size; t++) {
+        const pa = phi[oa + t];
+        m0 += pa * psi[o0 + t]; m1 += pa * psi[o1 + t]; m2 += pa * psi[o2 + t]; m3 += pa * psi[o3 + t];
+      }
+      const r = a * d + b;
+      cross[r] += m0; cross[r + 1] += m1; cross[r + 2] += m2; cross[r + 3] += m3;
     }
-    let e = 0;
-    for (let t = 0; t < size; t++) e += psi[oa + t] * reward[t];
-    slot.nextReward[a] += e;
+    for (; b < d; b++) {
+      let m = 0;
+      for (let t = 0; t < size; t++) m += phi[oa + t] * psi[b * rows + t];
+      cross[a * d + b] += m;
+    }
   }
-}
-
-function addSlot(from: Slot, to: Slot, d: number): void {
-  for (let j = 0; j < d * d; j++) {
-    to.cross[j] += from.cross[j];
-    to.nextGram[j] += from.nextGram[j];
-  }
-  for (let j = 0; j < d; j++) to.nextReward[j] += from.nextReward[j];
-}
-
-function mirrored(upper: Float64Array, d: number, scale: number): Float64Array {
-  const out = new Float64Array(d * d);
-  for (let a = 0; a < d; a++) for (let b = a; b < d; b++) out[a * d + b] = out[b * d + a] = upper[a * d + b] * scale;
-  return out;
-}
-
-function statisticsOf(free: PolicyFreeSums, total: Slot): BellmanStatistics {
-  const n = free.count, d = free.dim;
-  return {
-    count: n, dim: d, gram: free.gram, featureReward: free.featureReward, rewardSquare: free.rewardSquare,
-    crossNext: total.cross.map((v) => v / n), nextGram: mirrored(total.nextGram, d, 1 / n), nextFeatureReward: total.nextReward.map((v) => v / n),
-  };
 }
 
 /**
- * Per-episode sums in the bootstrap's packed layout [ΦᵀΦ | ΦᵀΨ | ΨᵀΨ | Φᵀr | Ψᵀr | rᵀr | n_k]
- * (episodeBellmanSums.ts), with the policy-free parts copied in and the rest accumulated in place.
+ * slot += block sums of ΦᵀΨ, ΨᵀΨ (upper triangle) and Ψᵀr over the first `size` rows. Four
+ * columns b of Ψ at a time share each load of φ_a and ψ_a (register blocking), which roughly
+ * halves the memory traffic of the plain inner product; the arithmetic is the same.
  */
-function newPacked(free: PolicyFreeSums): EpisodeBellmanSums {
-  const d = free.dim, dd = d * d, stride = 3 * dd + 2 * d + 2, freeStride = dd + d + 2, source = free.episodeSums!;
-  const e = free.index.episodes, sums = new Float64Array(e * stride);
-  for (let k = 0; k < e; k++) {
-    const o = k * stride, f = k * freeStride;
-    sums.set(source.subarray(f, f + dd), o);
-    sums.set(source.subarray(f + dd, f + dd + d), o + 3 * dd);
-    sums[o + 3 * dd + 2 * d] = source[f + dd + d];
-    sums[o + 3 * dd + 2 * d + 1] = source[f + dd + d + 1];
+function addBlock(phi: Float64Array, psi: Float64Array, reward: Float64Array, size: number, rows: number, d: number, slot: Slot): void {
+  const { cross, nextGram, nextReward } = slot;
+  for (let a = 0; a < d; a++) {
+    const oa = a * rows;
+    let b = 0;
+    for (; b + 3 < d; b += 4) {
+      const o0 = b * rows, o1 = o0 + rows, o2 = o1 + rows, o3 = o2 + rows;
+      let m0 = 0, m1 = 0, m2 = 0, m3 = 0, h0 = 0, h1 = 0, h2 = 0, h3 = 0;
+      for (let t = 0; t < size; t++) {
+        const pa = phi[oa + t], qa = psi[oa + t];
+        const q0 = psi[o0 + t], q1 = psi[o1 + t], q2 = psi[o2 + t], q3 = psi[o3 + t];
+        m0 += pa * q0; m1 += pa * q1; m2 += pa * q2; m3 += pa * q3;
+        h0 += qa * q0; h1 += qa * q1; h2 += qa * q2; h3 += qa * q3;
+      }
+      const r = a * d + b;
+      cross[r] += m0; cross[r + 1] += m1; cross[r + 2] += m2; cross[r + 3] += m3;
+      // ΨᵀΨ is kept in its upper triangle (b ≥ a) only.
+      if (b >= a) nextGram[r] += h0;
+      if (b + 1 >= a) nextGram[r + 1] += h1;
+      if (b + 2 >= a) nextGram[r + 2] += h2;
+      if (b + 3 >= a) nextGram[r + 3] += h3;
+    }
+    for (; b < d; b++) {
+      const ob = b * rows;
+      let m = 0, h = 0;
+      for (let t = 0; t < size; t++) {
+        const q = psi[ob + t];
+        m += phi[oa + t] * q;
+        h += psi[oa + t] * q;
+      }
+      cross[a * d + b] += m;
+      if (b >= a) nextGram[a * d + b] += h;
+    }
+    let e = 0;
+    for (let t = 0; t < size; t++) e += psi[oa + t] * reward[t];
+    nextReward[a] += e;
   }
-  return { episodes: e, dim: d, stride, sums };
 }
 
-/** Views of episode k's policy-dependent parts inside the packed sums. */
-function packedSlot(packed: EpisodeBellmanSums, k: number, d: number): Slot {
-  const dd = d * d, o = k * packed.stride;
-  return {
-    cross: packed.sums.subarray(o + dd, o + 2 * dd),
-    nextGram: packed.sums.subarray(o + 2 * dd, o + 3 * dd),
-    nextReward: packed.sums.subarray(o + 3 * dd + d, o + 3 * dd + 2 * d),
-  };
-}
-
-function mirrorInPlace(upper: Float64Array, d: number): void {
-  for (let a = 0; a < d; a++) for (let b = a + 1; b < d; b++) upper[b * d + a] = upper[a * d + b];
-}

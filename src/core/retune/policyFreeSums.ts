@@ -37,26 +37,40 @@ export function policyFreeSums(
   const n = data.count, d = features.dim, index = indexEpisodes(data);
   const store = n * d <= MAX_STORED_FEATURE_VALUES ? new Float64Array(n * d) : null;
   const stride = d * d + d + 2, perEpisode = options.perEpisode ? new Float64Array(index.episodes * stride) : null;
-  const gram = new Float64Array(d * d), featureReward = new Float64Array(d), phi = new Float64Array(d);
-  const input = new Float64Array(data.stateDim + data.actionDim);
+  const gram = new Float64Array(d * d), featureReward = new Float64Array(d), rows = Math.max(32, Math.min(1024, Math.floor((1 << 16) / d)));
+  const block = new Float64Array(d * rows), reward = new Float64Array(rows), phi = new Float64Array(d);
+  const input = new Float64Array(data.stateDim + data.actionDim), episodeGram = new Float64Array(d * d), episodeReward = new Float64Array(d);
   let rewardSquare = 0;
   for (let k = 0; k < index.episodes; k++) {
     if (k % 64 === 0) throwIfCancelled(options.cancel);
-    const slot = perEpisode ? k * stride : -1;
-    for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) {
-      const i = index.order[p], r = data.rewards[i];
-      logged(data, i, input);
-      features.evaluate(input, 0, phi, 0);
-      if (store) store.set(phi, p * d);
-      addOuter(phi, r, d, gram, featureReward);
-      rewardSquare += r * r;
-      if (perEpisode) {
-        addOuter(phi, r, d, perEpisode.subarray(slot, slot + d * d), perEpisode.subarray(slot + d * d, slot + d * d + d));
-        perEpisode[slot + d * d + d] += r * r;
-        perEpisode[slot + d * d + d + 1] += 1;
+    const target = perEpisode ? { gram: episodeGram.fill(0), reward: episodeReward.fill(0) } : { gram, reward: featureReward };
+    let square = 0;
+    for (let from = index.offsets[k]; from < index.offsets[k + 1]; from += rows) {
+      const size = Math.min(rows, index.offsets[k + 1] - from);
+      for (let t = 0; t < size; t++) {
+        const i = index.order[from + t];
+        logged(data, i, input);
+        features.evaluate(input, 0, phi, 0);
+        if (store) store.set(phi, (from + t) * d);
+        for (let a = 0; a < d; a++) block[a * rows + t] = phi[a];
+        reward[t] = data.rewards[i];
+        square += reward[t] * reward[t];
       }
+      addGramBlock(block, reward, size, rows, d, target.gram, target.reward);
+    }
+    rewardSquare += square;
+    if (perEpisode) {
+      mirror(episodeGram, d);
+      const o = k * stride;
+      perEpisode.set(episodeGram, o);
+      perEpisode.set(episodeReward, o + d * d);
+      perEpisode[o + d * d + d] = square;
+      perEpisode[o + d * d + d + 1] = index.offsets[k + 1] - index.offsets[k];
+      for (let j = 0; j < d * d; j++) gram[j] += episodeGram[j];
+      for (let j = 0; j < d; j++) featureReward[j] += episodeReward[j];
     }
   }
+  if (!perEpisode) mirror(gram, d);
   for (let j = 0; j < d * d; j++) gram[j] /= n;
   for (let j = 0; j < d; j++) featureReward[j] /= n;
   return { count: n, dim: d, index, features: store, gram, featureReward, rewardSquare: rewardSquare / n, episodeSums: perEpisode };
@@ -69,11 +83,23 @@ export function logged(data: TransitionSet, i: number, input: Float64Array): voi
   for (let c = 0; c < m; c++) input[ds + c] = data.actions[i * m + c];
 }
 
-/** gram += φφᵀ, reward += r·φ. */
-function addOuter(phi: Float64Array, r: number, d: number, gram: Float64Array, reward: Float64Array): void {
+/** gram (upper triangle) += Σ_t x_t x_tᵀ, reward += Σ_t r_t x_t over a feature-major block (blocked summation). */
+function addGramBlock(x: Float64Array, r: Float64Array, size: number, rows: number, d: number, gram: Float64Array, reward: Float64Array): void {
   for (let a = 0; a < d; a++) {
-    const pa = phi[a];
-    reward[a] += r * pa;
-    for (let b = 0; b < d; b++) gram[a * d + b] += pa * phi[b];
+    const oa = a * rows;
+    let e = 0;
+    for (let t = 0; t < size; t++) e += x[oa + t] * r[t];
+    reward[a] += e;
+    for (let b = a; b < d; b++) {
+      const ob = b * rows;
+      let g = 0;
+      for (let t = 0; t < size; t++) g += x[oa + t] * x[ob + t];
+      gram[a * d + b] += g;
+    }
   }
+}
+
+/** Copy the upper triangle onto the lower. */
+function mirror(m: Float64Array, d: number): void {
+  for (let a = 0; a < d; a++) for (let b = a + 1; b < d; b++) m[b * d + a] = m[a * d + b];
 }

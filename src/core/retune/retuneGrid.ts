@@ -1,14 +1,18 @@
 /**
  * A retune map's numbers: linear FQE of every candidate on a grid of one or two parameters of a
  * candidate form, built on one structure. With the features, data, discount and ridge fixed, the
- * statistics of linear FQE split into a policy-free part — Φ, r, G = ΦᵀΦ/n, b = Φᵀr/n, and the
- * Cholesky factor of G + λD — formed once (policyFreeSums.ts), and a policy part Ψ with
- * M = ΦᵀΨ/n, H = ΨᵀΨ/n, e = Ψᵀr/n, one pass per point (policyDependentSums.ts). For polynomial
- * features the candidate-averaged next features ψ come from closed-form moments of the (clipped)
- * normal action law instead of quadrature (policyFeatureAverage.ts), so that pass costs about
- * 1.5·n·d² multiply-adds and little else. Each point is then solved exactly as the main fit and
- * the bootstrap solve it (solveReplicate: the FQE iteration to the tolerance, or the LSTD-Q fixed
- * point where it diverges), warm-started from the previous point.
+ * statistics of linear FQE split into a policy-free part — Φ, r, G = ΦᵀΦ/n, b = Φᵀr/n — formed
+ * once (policyFreeSums.ts), and a policy part Ψ with M = ΦᵀΨ/n, H = ΨᵀΨ/n, e = Ψᵀr/n. Three
+ * routes to the policy part, the cheapest that applies (all equal to rounding):
+ *   closedForm — polynomial features and an affine Gaussian mean: ψ(s) = C·χ(s), so M, H, e are
+ *     products of C with sums of the next-state monomials χ formed once (nextStateMonomialSums.ts,
+ *     closedFormSums.ts), plus row corrections where actuator limits are within reach;
+ *   moments — polynomial features, any mean (e.g. a schedule): one pass, ψ per row from
+ *     closed-form moments of the (clipped) normal (policyFeatureAverage.ts);
+ *   quadrature — any features: one pass, ψ per row by the action quadrature.
+ * Each point is then solved as the main fit and the bootstrap solve it (solveReplicate: the FQE
+ * iteration to the tolerance, or the LSTD-Q fixed point where it diverges), warm-started from the
+ * previous point.
  *
  * Everything is in reward sense (J = ξ̄ᵀw). The per-point material — statistics, start features,
  * weights and, when asked for, per-episode sums — goes to onPoint and is not kept, so memory stays
@@ -24,9 +28,12 @@ import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
 import { FqeOptionsError } from '../fqe/fqeErrors';
 import type { GaussianPolicy } from '../policy';
 import type { TransitionSet } from '../transitions';
-import { createPolicyFeatureAverage, type AverageRoute, type PolicyFeatureAverage } from './policyFeatureAverage';
+import { closedFormPointSums, MAX_CORRECTED_SHARE, rowsNearLimits } from './closedFormSums';
+import { nextStateMonomialSums, type NextStateMonomialSums } from './nextStateMonomialSums';
+import { createPolicyFeatureAverage, momentRouteApplies, type PolicyFeatureAverage } from './policyFeatureAverage';
 import { policyDependentSums } from './policyDependentSums';
-import { policyFreeSums } from './policyFreeSums';
+import { policyFreeSums, type PolicyFreeSums } from './policyFreeSums';
+import type { PointSums } from './pointSums';
 import { MAX_RETUNE_POINTS } from './retuneAxes';
 
 export interface RetuneGridInput {
@@ -43,6 +50,11 @@ export interface RetuneGridInput {
   readonly solver?: ReplicateSolver;
   /** e×ds start states for J; default data.startStates. */
   readonly startStates?: Float64Array;
+  /**
+   * Form ΨᵀΨ and Ψᵀr too, for each point's Bellman residual (default true). Nothing else needs them
+   * (the solve and the bootstrap use G, M, b), and leaving them out saves about a third of a pass.
+   */
+  readonly withBellmanResidual?: boolean;
   /** Also form each point's per-episode sums (for bootstrap intervals); costs e·(3d² + 2d + 2) numbers per point. */
   readonly perEpisode?: boolean;
   readonly onPoint?: (material: RetunePointMaterial) => void;
@@ -61,11 +73,19 @@ export interface RetunePoint {
   /** J of the point's candidate, reward sense; null when no solution exists (status says why). */
   readonly policyValue: number | null;
   readonly status: ReplicateStatus;
-  /** Mean squared TD error on the data; null without a solution. */
+  /** Mean squared TD error on the data; null without a solution or when not asked for. */
   readonly bellmanResidual: number | null;
-  /** How ψ was formed: closed-form moments or the action quadrature. */
-  readonly route: AverageRoute;
+  /**
+   * How the point's sums were formed: 'closedForm' (ψ = C·χ from sums formed once, with row
+   * corrections at actuator limits), 'moments' (a pass with closed-form moments per row) or
+   * 'quadrature' (a pass with the action quadrature per row).
+   */
+  readonly route: RetuneRoute;
+  /** Rows recomputed at actuator limits by the closed-form route (0 otherwise). */
+  readonly correctedRows: number;
 }
+
+export type RetuneRoute = 'closedForm' | 'moments' | 'quadrature';
 
 export interface RetunePointMaterial extends RetunePoint {
   readonly policy: GaussianPolicy;
@@ -89,13 +109,14 @@ export function retuneGrid(input: RetuneGridInput): RetuneGridResult {
   const { data, features, policies } = input, total = policies.length;
   input.onProgress?.({ stage: 'shared sums', pointsDone: 0, pointsTotal: total });
   const free = policyFreeSums(data, features, { perEpisode: input.perEpisode ?? false, cancel: input.cancel });
+  const monomials = lazyMonomialSums(input, free);
   const starts = input.startStates ?? data.startStates;
   const points: RetunePoint[] = [];
   let warm: Float64Array = new Float64Array(features.dim);
   for (let p = 0; p < total; p++) {
     throwIfCancelled(input.cancel);
     const policy = policies[p], average = createPolicyFeatureAverage(features, policy, input.quadratureNodes);
-    const sums = policyDependentSums(data, features, free, average, input.cancel);
+    const { sums, route, correctedRows } = pointSums(input, free, monomials, policy, average);
     const startFeatures = averagedRows(average, starts, data.stateDim), xiBar = meanStartFeatures(startFeatures, features.dim);
     const solution = solveReplicate({
       ridge: input.ridge, constantIndex: features.constantIndex, discount: input.discount, solver: input.solver ?? 'iteration',
@@ -103,14 +124,43 @@ export function retuneGrid(input: RetuneGridInput): RetuneGridResult {
     }, sums.statistics, xiBar);
     if (solution.weights) warm = solution.weights;
     const point: RetunePoint = {
-      index: p, policyValue: solution.policyValue, status: solution.status, route: average.route,
-      bellmanResidual: solution.weights ? bellmanResidual(sums.statistics, solution.weights, input.discount) : null,
+      index: p, policyValue: solution.policyValue, status: solution.status, route, correctedRows,
+      bellmanResidual: solution.weights && input.withBellmanResidual !== false ? bellmanResidual(sums.statistics, solution.weights, input.discount) : null,
     };
     points.push(point);
     input.onPoint?.({ ...point, policy, statistics: sums.statistics, startFeatures, meanStartFeatures: xiBar, weights: solution.weights, episodeSums: sums.episodeSums });
     input.onProgress?.({ stage: 'points', pointsDone: p + 1, pointsTotal: total });
   }
   return { points, featureDim: features.dim, featuresKept: free.features !== null };
+}
+
+/** The closed-form route's sums, formed on first use (only polynomial features can use them). */
+function lazyMonomialSums(input: RetuneGridInput, free: PolicyFreeSums): () => NextStateMonomialSums | null {
+  let sums: NextStateMonomialSums | null | undefined;
+  return () => {
+    if (sums !== undefined) return sums;
+    const spec = input.features.toSpec();
+    sums = spec.kind === 'polynomial' ? nextStateMonomialSums(input.data, spec, free, input.cancel) : null;
+    return sums;
+  };
+}
+
+/** The closed-form route where it applies (affine mean, exact moments, sums available), else a pass. */
+function pointSums(
+  input: RetuneGridInput, free: PolicyFreeSums, monomials: () => NextStateMonomialSums | null, policy: GaussianPolicy, average: PolicyFeatureAverage,
+): { sums: PointSums; route: RetuneRoute; correctedRows: number } {
+  const spec = input.features.toSpec();
+  const affine = !policy.schedules || policy.schedules.length === 0;
+  if (spec.kind === 'polynomial' && affine && momentRouteApplies(spec, policy, input.quadratureNodes)) {
+    const near = rowsNearLimits(input.data, free, policy);
+    const mono = near.count <= MAX_CORRECTED_SHARE * free.count ? monomials() : null;
+    if (mono) {
+      const sums = closedFormPointSums(input.data, spec, free, mono, policy, average, near, input.cancel);
+      return { sums, route: 'closedForm', correctedRows: sums.correctedRows };
+    }
+  }
+  const sums = policyDependentSums(input.data, input.features, free, average, { cancel: input.cancel, withNextGram: input.withBellmanResidual !== false });
+  return { sums, route: average.route, correctedRows: 0 };
 }
 
 /** ψ(s) for each row of states (count×ds) → count×d. */

@@ -18,16 +18,19 @@ import { candidatePolicy } from '../../../src/pipeline/candidatePolicy';
 import { piLoopCsv, PI_LOOP_BEHAVIOUR } from '../../battery/piLoop';
 import { piLoopData, piLoopProject } from '../../battery/piProject';
 
-const candidate = (proportionalGain: number, integralTimeSeconds: number, rate: boolean) => ({
+type Limits = 'none' | 'clip' | 'rate';
+const candidate = (proportionalGain: number, integralTimeSeconds: number, limits: Limits) => ({
   name: `Kc ${proportionalGain}, Ti ${integralTimeSeconds}`,
   form: { kind: 'pi', loops: [{ measurement: 'temp_c', setpoint: 50, bias: 50, proportionalGain, integralTimeSeconds, integralState: 'temp_integral', action: 'reverse' }] },
-  dither: [1], ...(rate ? { bounds: { lo: [0], hi: [100], mode: 'clip' }, rateLimit: { maxStep: [2.5], previousAction: ['heater_prev'] } } : {}),
+  dither: [1],
+  ...(limits === 'clip' ? { bounds: { lo: [30], hi: [70], mode: 'clip' } } : {}),
+  ...(limits === 'rate' ? { bounds: { lo: [0], hi: [100], mode: 'clip' }, rateLimit: { maxStep: [2.5], previousAction: ['heater_prev'] } } : {}),
 });
 
-function setting(rate: boolean) {
+function setting(rate: Limits) {
   const grid = gridPoints([{ from: 2, to: 5, count: 3, spacing: 'linear' }, { from: 60, to: 240, count: 2, spacing: 'logarithmic' }]);
   const project = piLoopProject(grid.map(([kc, ti]) => candidate(kc, ti, rate)), true);
-  const data = piLoopData(project, piLoopCsv(150, 41, 5, { ...PI_LOOP_BEHAVIOUR, dither: 3, maxStep: 2.5, limits: [0, 100] }));
+  const data = piLoopData(project, piLoopCsv(80, 41, 5, { ...PI_LOOP_BEHAVIOUR, dither: 3, maxStep: 2.5, limits: [0, 100] }));
   return { project, data, policies: project.candidates.map((c) => candidatePolicy(c, data)) };
 }
 
@@ -46,7 +49,7 @@ describe('retune grid', () => {
     expect(gridPoints([{ from: 1, to: 2, count: 2, spacing: 'linear' }, { from: 0, to: 1, count: 2, spacing: 'linear' }])).toEqual([[1, 0], [1, 1], [2, 0], [2, 1]]);
   });
 
-  it.each([false, true])('gives each point the J of a fit of that candidate alone (rate limit: %s)', (rate) => {
+  it.each(['none', 'clip', 'rate'] as Limits[])('gives each point the J of a fit of that candidate alone (limits: %s)', (rate) => {
     const { data, policies } = setting(rate);
     const standardiser = fitStateActionStandardiser(data).spec;
     const maps: [string, FeatureMap][] = [
@@ -72,12 +75,32 @@ describe('retune grid', () => {
         expect(gaps.episodes).toBeLessThan(1e-11);
         expect(gaps.value).toBeLessThan(1e-6);
       }
-      expect(result.points[0].route).toBe(features.toSpec().kind === 'polynomial' ? 'moments' : 'quadrature');
+      // Polynomial features: the closed-form route, unless a rate limit's band is within reach on most rows.
+      expect(result.points[0].route).toBe(features.toSpec().kind !== 'polynomial' ? 'quadrature' : rate === 'rate' ? 'moments' : 'closedForm');
+      if (features.toSpec().kind === 'polynomial') {
+        const shares = result.points.map((point) => point.correctedRows / data.count);
+        // none: no limit to correct; clip: only rows near the limits; rate: per-row route, nothing corrected.
+        if (rate === 'none') expect(Math.max(...shares)).toBe(0);
+        if (rate === 'clip') expect(Math.max(...shares) > 0 && Math.max(...shares) <= 0.25).toBe(true);
+        if (rate === 'rate') expect(Math.max(...shares)).toBe(0);
+      }
     }
   });
 
+  it('gives a scheduled candidate (moments per row) the J of a fit of it alone', () => {
+    const { project, data } = setting('none');
+    const scheduled = { ...project.candidates[0], form: { kind: 'schedule' as const, loops: [{ input: 'temp_c', breakpoints: [45, 50, 55], values: [70, 50, 35], feedback: { measurement: 'temp_c', setpoint: 50, proportionalGain: 1, integralTimeSeconds: 200, integralState: 'temp_integral', action: 'reverse' as const } }] }, bounds: { lo: [0], hi: [100], mode: 'clip' as const } };
+    const policy = candidatePolicy(scheduled, data);
+    const features = createFeatureMap(polynomialFeatureSpec(fitStateActionStandardiser(data).spec, 2));
+    const result = retuneGrid({ data, features, policies: [policy], ...options });
+    expect(result.points[0].route).toBe('moments');
+    const alone = fitLinearFqe({ data, policy, features, ...options });
+    const reference = (alone.status === 'diverged' ? alone.fixedPoint : alone.iterative)!.policyValue.value;
+    expect(Math.abs(result.points[0].policyValue! - reference) / Math.abs(reference)).toBeLessThan(1e-6);
+  });
+
   it('reports progress and stops when cancelled', () => {
-    const { data, policies } = setting(false);
+    const { data, policies } = setting('none');
     const features = createFeatureMap(polynomialFeatureSpec(fitStateActionStandardiser(data).spec, 2));
     const seen: number[] = [];
     let stop = false;
