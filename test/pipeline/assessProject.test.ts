@@ -101,7 +101,10 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
     const check = result.value.candidates[0].crossChecks.find((x) => x.method === 'linearQuadraticModel')!;
     expect(check.agreement).toBe('notApplicable');
     expect(check.note).toMatch(/quadratic terms explain|actuator limits/);
-    expect(result.value.warnings.some((w) => w.topic === 'behaviourModel' && /actuator limit/.test(w.message))).toBe(true);
+    // Since the sample derives the previous opening, each run's first row (often at 100 % after the
+    // night setback) starts no transition: 994 of 19,920 logged openings (4.99 %) sit at 100 %, just
+    // under the 5 % share that raises the behaviour-model caution (it was 5.09 % before).
+    expect(result.value.warnings.some((w) => w.topic === 'behaviourModel' && /actuator limit/.test(w.message))).toBe(false);
     const curves = result.value.sensitivity!.curves;
     expect(curves.map((c) => c.parameter)).toEqual(['discount', 'polynomialDegree']);
     expect(curves[0].settings[curves[0].projectIndex]).toBe(0.95);
