@@ -1,5 +1,7 @@
 // Lint, chiefly to keep the layers of DEVELOPERS.md true: an import that points up a layer fails.
-// core ← data, project ← pipeline ← cli, renderer, main. Built-in no-restricted-imports per folder.
+// core ← data, project, figures ← pipeline ← shared ← cli, renderer, main, preload; and inside the renderer
+// format, state ← document ← worker ← session, plots, export ← components ← files, screens ← App.
+// Built-in no-restricted-imports per folder (folder names as path segments).
 import tseslint from 'typescript-eslint';
 
 const nodeBuiltins = ['node:*', 'fs', 'path', 'os', 'child_process', 'crypto', 'worker_threads'];
@@ -26,12 +28,33 @@ export default tseslint.config(
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
     },
   },
-  layer(['src/core/**'], ['data', 'project', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'shared'],
+  layer(['src/core/**'], ['data', 'project', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'shared', 'figures'],
     [...nodeBuiltins, 'electron', 'react', 'react-dom', 'chart.js', 'zod', 'papaparse']),
-  layer(['src/data/**'], ['pipeline', 'cli', 'main', 'preload', 'renderer'], [...nodeBuiltins, 'electron', 'react']),
-  layer(['src/project/**'], ['data', 'pipeline', 'cli', 'main', 'preload', 'renderer'], [...nodeBuiltins, 'electron', 'react']),
+  layer(['src/data/**'], ['pipeline', 'cli', 'main', 'preload', 'renderer', 'figures'], [...nodeBuiltins, 'electron', 'react']),
+  layer(['src/project/**'], ['data', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'figures'], [...nodeBuiltins, 'electron', 'react']),
   layer(['src/pipeline/**'], ['cli', 'main', 'preload', 'renderer'], [...nodeBuiltins, 'electron', 'react']),
   layer(['src/cli/**'], ['main', 'preload', 'renderer'], ['electron', 'react']),
   layer(['src/main/**'], ['renderer', 'cli', 'preload'], ['react']),
-  layer(['src/renderer/**'], ['main', 'cli'], [...nodeBuiltins, 'electron']),
+  layer(['src/figures/**'], ['data', 'project', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'shared'],
+    [...nodeBuiltins, 'electron', 'react', 'react-dom', 'zod', 'papaparse']),
+  // figures: host-free chart specs and the SVG/PNG writers (app export and report); no DOM host either.
+  {
+    files: ['src/figures/**'],
+    rules: { 'no-restricted-globals': ['error', ...['document', 'window', 'navigator', 'localStorage', 'HTMLCanvasElement'].map((name) => ({ name, message: 'layering: src/figures runs without a DOM (app, worker, command line)' }))] },
+  },
+  layer(['src/shared/**'], ['cli', 'main', 'preload', 'renderer'], [...nodeBuiltins, 'react', 'react-dom']),
+  layer(['src/preload/**'], ['core', 'data', 'project', 'pipeline', 'cli', 'main', 'renderer', 'figures'], [...nodeBuiltins, 'react']),
+  layer(['src/renderer/**'], ['main', 'cli', 'preload'], [...nodeBuiltins, 'electron']),
+  // The renderer's inside: the worker runs the pipeline and knows nothing of the page.
+  layer(['src/renderer/src/worker/**'], ['main', 'cli', 'preload', 'session', 'document', 'screens', 'components', 'plots', 'export', 'files', 'state', 'App'],
+    [...nodeBuiltins, 'electron', 'react', 'react-dom', 'chart.js']),
+  layer(['src/renderer/src/format/**', 'src/renderer/src/state/**'],
+    ['main', 'cli', 'preload', 'session', 'document', 'worker', 'screens', 'components', 'plots', 'export', 'files', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/document/**'], ['main', 'cli', 'preload', 'session', 'worker', 'screens', 'components', 'plots', 'export', 'files', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/session/**'], ['main', 'cli', 'preload', 'screens', 'components', 'plots', 'export', 'files', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/plots/**', 'src/renderer/src/export/**'], ['main', 'cli', 'preload', 'session', 'document', 'worker', 'screens', 'components', 'files', 'App'],
+    [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/components/**'], ['main', 'cli', 'preload', 'screens', 'files', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/files/**'], ['main', 'cli', 'preload', 'screens', 'components', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/screens/**'], ['main', 'cli', 'preload', 'App'], [...nodeBuiltins, 'electron']),
 );

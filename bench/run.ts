@@ -5,6 +5,7 @@
  *   npm run bench -- linear       only the linear FQE sizes
  *   npm run bench -- bootstrap    only the bootstrap resampling rates
  *   npm run bench -- retune       only the retune map
+ *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script
  */
 import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -28,6 +29,10 @@ const jobs: Job[] = [
     name: 'retune map, 100,000 transitions, 10×10 PI gain × integral time (heating-loop sample)', group: 'retune',
     run: async () => (await import('./retuneBench')).runRetuneBench(),
   },
+  ...[100_000, 1_000_000].map((n) => ({
+    name: `whole evaluate beside the numerical-Python peer, ${n.toLocaleString('en-US')} transitions`, group: 'peer',
+    run: async () => (await import('./peerBench')).runPeerBench(n),
+  })),
   ...[1_000_000].map((n) => ({
     name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',
     run: async () => ({ ...(await (await import('./importBench')).runImportBench(n)) }),

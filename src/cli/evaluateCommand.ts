@@ -9,9 +9,12 @@ import { evaluateProjectFile } from './evaluateProjectFile';
 import { formatCautions, formatEvaluation } from './formatEvaluation';
 import { formatImport } from './formatImport';
 import { formatCandidates } from './formatCandidates';
+import { createTerminalProgress } from './terminalProgress';
+import { exitStatusOf } from './exitStatus';
 
 export async function runEvaluateCommand(projectPath: string, options: { json: boolean } & AssessmentOverrides): Promise<number> {
-  const result = await evaluateProjectFile(projectPath, options);
+  const progress = createTerminalProgress();
+  const result = await evaluateProjectFile(projectPath, options, undefined, progress).finally(() => progress.done());
   if (!result.ok) {
     process.stderr.write(`${result.failure.message}\n`);
     return result.failure.exitCode;
@@ -30,5 +33,5 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     process.stdout.write(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
     process.stdout.write(formatCautions(evaluation));
   }
-  return evaluation.policies.some((p) => p.status === 'diverged') ? 3 : 0;
+  return exitStatusOf(evaluation);
 }

@@ -6,14 +6,15 @@
 import { readFile } from 'node:fs/promises';
 import { createRequire } from 'node:module';
 import { basename, dirname, join, resolve } from 'node:path';
-import { describeProblems, type Result } from '../core/result';
+import { describeProblems, type Problem, type Result } from '../core/result';
 import type { Assessment } from '../pipeline/assessment';
-import { assessProject } from '../pipeline/assessProject';
+import { assessRun } from '../pipeline/assessProject';
 import { assessmentSettingsFor, type AssessmentOverrides } from '../pipeline/assessSettings';
-import type { CandidateFit } from '../pipeline/candidateFit';
 import type { Evaluation } from '../pipeline/estimates';
-import { evaluateProject } from '../pipeline/evaluateProject';
+import { evaluationOf } from '../pipeline/evaluateProject';
 import { openProject, type OpenedProject } from '../pipeline/openProject';
+import { CANCELLED_PROBLEM, startRun } from '../pipeline/projectRun';
+import type { TerminalProgress } from './terminalProgress';
 
 export interface ProjectFileRun extends OpenedProject {
   evaluation: Evaluation;
@@ -23,11 +24,11 @@ export interface ProjectFileRun extends OpenedProject {
 /** A failure to report on stderr, with the exit status (1 bad input, 2 bad usage). */
 export interface CliFailure {
   message: string;
-  exitCode: 1 | 2;
+  exitCode: 1 | 2 | 130;
 }
 
 export async function evaluateProjectFile(
-  projectPath: string, overrides: AssessmentOverrides, now?: () => Date,
+  projectPath: string, overrides: AssessmentOverrides, now?: () => Date, progress: TerminalProgress | null = null,
 ): Promise<{ ok: true; run: ProjectFileRun } | { ok: false; failure: CliFailure }> {
   let text: string;
   try {
@@ -42,18 +43,29 @@ export async function evaluateProjectFile(
   const { project, dataset, warnings } = opened.value;
   const settings = assessmentSettingsFor(project, overrides);
   if (!settings.ok) return { ok: false, failure: { message: describeProblems(settings.problems), exitCode: 2 } };
-  const network = project.approximator.kind === 'network', wasmPath = tensorflowWasmFolder(), fits: CandidateFit[] = [];
-  if (network) await quietTensorflow();
-  const evaluation = await evaluateProject({
-    project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`), wasmPath, now,
-    retainFit: network ? (i, fit) => { fits[i] = fit; } : undefined, // a network fit is slow: the assessment reuses it
-  });
-  if (!evaluation.ok) {
-    fits.forEach((f) => f.dispose());
-    return { ok: false, failure: { message: describeProblems(evaluation.problems), exitCode: 1 } };
+  const wasmPath = tensorflowWasmFolder();
+  if (project.approximator.kind === 'network') await quietTensorflow();
+  const cancel = progress ? () => progress.cancelled() : undefined;
+  const started = await startRun(project, dataset, { wasmPath, cancel, onProgress: progress?.evaluation });
+  if (!started.ok) return { ok: false, failure: failureOf(started.problems) };
+  const run = started.value;
+  try {
+    const evaluation = evaluationOf(run, [...warnings, ...started.warnings].map((w) => `${w.where}: ${w.message}`), now);
+    const assessment = await assessRun(run, { settings: settings.value, wasmPath, cancel, onProgress: progress?.assessment });
+    if (!assessment.ok && isCancelled(assessment.problems)) return { ok: false, failure: failureOf(assessment.problems) };
+    return { ok: true, run: { ...opened.value, evaluation, assessment } };
+  } finally {
+    run.dispose();
   }
-  const assessment = await assessProject({ project, dataset, settings: settings.value, fits, wasmPath }).finally(() => fits.forEach((f) => f.dispose()));
-  return { ok: true, run: { ...opened.value, evaluation: evaluation.value, assessment } };
+}
+
+function isCancelled(problems: readonly Problem[]): boolean {
+  return problems.length === 1 && problems[0].message === CANCELLED_PROBLEM.message;
+}
+
+/** Exit 1 for problems with the project or its data; 130 when the user stopped the run (Ctrl+C). */
+function failureOf(problems: readonly Problem[]): CliFailure {
+  return isCancelled(problems) ? { message: 'Cancelled (Ctrl+C): no results were written.', exitCode: 130 } : { message: describeProblems(problems), exitCode: 1 };
 }
 
 /** The folder holding TensorFlow.js's .wasm files in node_modules (with a trailing slash, as setWasmPaths wants). */

@@ -10,6 +10,8 @@ import { renderReport } from '../pipeline/report/reportDocument';
 import type { AssessmentOverrides } from '../pipeline/assessSettings';
 import { formatAssessment } from './assessmentFormat';
 import { evaluateProjectFile } from './evaluateProjectFile';
+import { exitStatusOf } from './exitStatus';
+import { createTerminalProgress } from './terminalProgress';
 
 export interface ReportCommandOptions extends AssessmentOverrides {
   /** Where to write the HTML; default "<project name>-report.html" in the working folder. */
@@ -20,7 +22,8 @@ export interface ReportCommandOptions extends AssessmentOverrides {
 
 export async function runReportCommand(projectPath: string, options: ReportCommandOptions = {}): Promise<number> {
   const now = options.now ?? (() => new Date());
-  const result = await evaluateProjectFile(projectPath, { sensitivity: true, ...options }, now);
+  const progress = createTerminalProgress();
+  const result = await evaluateProjectFile(projectPath, { sensitivity: true, ...options }, now, progress).finally(() => progress.done());
   if (!result.ok) return fail(result.failure.message, result.failure.exitCode);
   const { project, imported, evaluation, assessment } = result.run;
   const input = reportInputFrom({ project, projectFile: basename(projectPath), evaluation, assessment, data: imported, generatedAt: now() });
@@ -34,7 +37,7 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   if (assessment.ok) process.stdout.write(formatAssessment(assessment.value));
   else process.stderr.write(`The report has no intervals or diagnostics: ${input.assessmentProblems.join('; ')}\n`);
   process.stdout.write(`Report written to ${out}\n`);
-  return evaluation.policies.some((p) => p.status === 'diverged') ? 3 : 0;
+  return exitStatusOf(evaluation);
 }
 
 function fail(message: string, code = 1): number {

@@ -12,7 +12,7 @@ import type { ColumnRoles, CsvSettings } from '../project/schema';
 import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
 import type { TransitionSet } from '../core/transitions';
-import { sourceText } from './sourceText';
+import { sourceText, type TextEncodingName } from './sourceText';
 import { resolveDialect, type Dialect } from './csvDialect';
 import { planColumns, timestampColumnOf, type ColumnPlan } from './columnPlan';
 import { readColumns, type TableColumns } from './columnReader';
@@ -46,14 +46,14 @@ const lineOf = (record: number): number => record + 2;
 export function importDataset(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): Result<ImportedDataset> {
   const decoded = sourceText(source);
   if (!decoded.ok) return failure(importProblem('not-utf8', fileName, decoded.reason));
-  const text = decoded.text;
+  const text = decoded.text, encoding = { name: decoded.encoding, how: decoded.how };
   if (text.trim() === '') return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
   const dialect = resolveDialect(text, csv.delimiter, csv.decimalMark);
   const header = headerOf(text, dialect);
   if (header.every((name) => name === '')) {
     return failure(importProblem('blank-header', `${fileName}, line 1`, 'the first line is blank; expected the header: column names separated by the delimiter'));
   }
-  const { plan, problems: namingProblems } = planColumns(header, columns, fileName);
+  const { plan, problems: namingProblems } = planColumns(header, columns, fileName, dialect.decimalMark);
   if (!plan) return failure(...namingProblems);
   const problems = new RowProblems();
   const table = readColumns(text, dialect.delimiter, dialect.decimalMark, header.length, plan.requests, problems);
@@ -65,7 +65,7 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   const episodeCodes = columns.episode.kind === 'column' ? table.labels.get(columns.episode.column)?.codes : undefined;
   if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf, episodeCodes);
   if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf));
-  return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps });
+  return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding });
 }
 
 function headerOf(text: string, dialect: Dialect): string[] {
@@ -88,6 +88,7 @@ interface Stages {
   problems: RowProblems;
   rewards: Float64Array;
   timestamps?: SettledTimestamps & { column: string };
+  encoding: { name: TextEncodingName; how: 'byte-order mark' | 'detected' };
 }
 
 function assemble(s: Stages): Result<ImportedDataset> {
@@ -119,7 +120,7 @@ function assemble(s: Stages): Result<ImportedDataset> {
   const summary = summarise(s, kept, transitions, derivedValues, usedRows);
   const excluded = excludedRows(s.problems, lineOf);
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName)];
-  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), ...episodes.report, ...derived.report, ...report];
+  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding), ...episodes.report, ...derived.report, ...report];
   return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount }, warnings);
 }
 
@@ -161,9 +162,15 @@ function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet, deri
     rowCount: s.table.recordCount, kept, transitionCount: transitions.count, episodeCount: transitions.episodeCount,
     columns: used, rewards: s.rewards,
     samplingPeriodSeconds: s.timestamps ? nullIfNaN(medianStepSeconds(s.timestamps.seconds, kept)) : null,
-    delimiter: s.dialect.delimiter, decimalMark: s.dialect.decimalMark,
+    delimiter: s.dialect.delimiter, decimalMark: s.dialect.decimalMark, encoding: s.encoding.name,
     dateOrder: decision?.ambiguous ? decision.order : null,
   });
+}
+
+/** "Text encoding: Windows-1252 (detected; the bytes are not valid UTF-8)." */
+function encodingReport(encoding: Stages['encoding']): string {
+  const why = encoding.how === 'byte-order mark' ? 'from its byte-order mark' : encoding.name === 'Windows-1252' ? 'detected: the bytes are not valid UTF-8' : 'detected';
+  return `Text encoding: ${encoding.name} (${why}).`;
 }
 
 function nullIfNaN(x: number): number | null {

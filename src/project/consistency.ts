@@ -20,10 +20,13 @@ export function checkProjectConsistency(doc: ProjectDocument, fileName: string, 
   const at = (path: string) => `${fileName}, ${path}`;
   doc.candidates.forEach((c, i) => {
     const where = `candidates[${i}] "${c.name}"`;
-    checkCandidate(doc, c, (path, message) => problems.push({ where: at(`${where}.${writtenCandidatePath(writtenCandidate(written, i), path)}`), message }));
+    checkCandidate(doc, c, (path, message) => {
+      const asWritten = writtenCandidatePath(writtenCandidate(written, i), path);
+      problems.push({ where: at(`${where}.${asWritten}`), field: ['candidates', i, ...fieldKeys(asWritten)], message });
+    });
   });
-  checkDerivedStates(doc, (path, message) => problems.push({ where: at(path), message }));
-  checkRetuneMaps(doc, (path, message) => problems.push({ where: at(path), message }));
+  checkDerivedStates(doc, (path, message) => problems.push({ where: at(path), field: fieldKeys(path), message }));
+  checkRetuneMaps(doc, (path, message) => problems.push({ where: at(path), field: fieldKeys(path), message }));
   const names = new Set<string>();
   doc.candidates.forEach((c, i) => {
     if (names.has(c.name)) problems.push({ where: at(`candidates[${i}].name`), message: `the name "${c.name}" is used by another candidate; names must be unique` });
@@ -47,4 +50,9 @@ export function checkProjectConsistency(doc: ProjectDocument, fileName: string, 
     }
   }
   return problems;
+}
+
+/** "form.loops[0].measurement" → ["form", "loops", 0, "measurement"] (paths this module writes itself). */
+function fieldKeys(path: string): (string | number)[] {
+  return path.split(/\.|(?=\[)/).map((key) => (/^\[\d+\]$/.test(key) ? Number(key.slice(1, -1)) : key));
 }

@@ -117,3 +117,13 @@ describe('retune maps', () => {
     expect(() => withCandidateParameter(c, 'form.loops.0.action', 1)).toThrow(/not a number/);
   });
 });
+
+describe('problem locations as data', () => {
+  it('gives each form problem the field path as keys and indices', () => {
+    const doc = base();
+    doc.candidates = [{ name: 'A', form: { kind: 'pi', loops: [{ ...pi.loops[0], measurement: 'tmep' }] }, dither: [1] }];
+    const r = parse(doc);
+    expect(r.ok).toBe(false);
+    if (!r.ok) expect(r.problems[0].field).toEqual(['candidates', 0, 'form', 'loops', 0, 'measurement']);
+  });
+});

@@ -17,7 +17,7 @@ import { fixedPointWeights, iterationMatrix, ridgeGram, ridgeGramFactor } from '
 import { spectralRadiusBound } from '../fqe/spectralRadiusBound';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { resampleBellmanStatistics, type EpisodeBellmanSums } from './episodeBellmanSums';
-import { meanStartFeatures } from './startFeatures';
+import { meanStartFeatures } from '../features/policyFeatures';
 
 /**
  * iteration: the iterate at the tolerance, or — as the pipeline reports it — the fixed point when
@@ -25,12 +25,8 @@ import { meanStartFeatures } from './startFeatures';
  */
 export type ReplicateSolver = 'iteration' | 'fixedPoint';
 
-export interface LinearReplicateSetup {
-  readonly sums: EpisodeBellmanSums;
-  /** ξ(s0) per start state, count×d (startFeatures.ts). */
-  readonly startFeatures: Float64Array;
-  /** True when start state k is episode k's first state, so it is resampled with its episode. */
-  readonly startsFollowEpisodes: boolean;
+/** How the linear fit is solved on any statistics. */
+export interface LinearSolveSettings {
   readonly ridge: number;
   readonly constantIndex: number | null;
   readonly discount: number;
@@ -38,6 +34,14 @@ export interface LinearReplicateSetup {
   readonly tolerance: number;
   readonly maxIterations: number;
   readonly initialWeights: Float64Array; // d
+}
+
+export interface LinearReplicateSetup extends LinearSolveSettings {
+  readonly sums: EpisodeBellmanSums;
+  /** ξ(s0) per start state, count×d (startFeatures.ts). */
+  readonly startFeatures: Float64Array;
+  /** True when start state k is episode k's first state, so it is resampled with its episode. */
+  readonly startsFollowEpisodes: boolean;
 }
 
 export type ReplicateStatus = FqeStatus | 'singular';
@@ -56,7 +60,7 @@ export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: 
 }
 
 /** The solve on given statistics (also used for the full data and for a discount sweep). */
-export function solveReplicate(setup: Omit<LinearReplicateSetup, 'sums' | 'startFeatures' | 'startsFollowEpisodes'>, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
+export function solveReplicate(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
   const d = stats.dim, a = ridgeGram(stats, setup.ridge, setup.constantIndex);
   let factor: Float64Array;
   try {

@@ -20,7 +20,7 @@
  */
 import type { EpisodeBellmanSums } from '../bootstrap/episodeBellmanSums';
 import { solveReplicate, type ReplicateSolver, type ReplicateStatus } from '../bootstrap/linearFqeReplicate';
-import { meanStartFeatures } from '../bootstrap/startFeatures';
+import { meanStartFeatures } from '../features/policyFeatures';
 import type { FeatureMap } from '../features/featureMap';
 import { bellmanResidual } from '../fqe/bellmanResidual';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';

@@ -9,6 +9,7 @@ import { syncDocumentState } from './files/documentTitle';
 import { createProjectCommands, type ProjectCommands } from './files/projectCommands';
 import { offerRecovery, startRecoveryAutosave } from './files/recovery';
 import { startAutoImport } from './session/autoImport';
+import { startResultsKeeping } from './session/savedResults';
 import { createAssessmentRunner, type AssessmentRunner } from './session/assessmentRunner';
 import { createDataLoading, type DataLoading } from './session/dataLoading';
 import { createEvaluationRunner, type EvaluationRunner } from './session/evaluationRunner';
@@ -36,13 +37,12 @@ export function createWorkspace(api: AppApi, client: EvaluationClient = createEv
   const questions = createQuestionStore();
   const data = createDataLoading(api, documents, session, client);
   const files = createProjectCommands({ api, documents, session, questions, data });
-  let assessmentClient: EvaluationClient | null = null;
-  const assessor = createAssessmentRunner(session, { evaluation: client, assessment: () => (assessmentClient ??= createEvaluationClient()) });
+  const assessor = createAssessmentRunner(session, client);
   const runner = createEvaluationRunner(documents, session, client, assessor);
   return {
     api, documents, session, questions, client, data, files, runner, assessor,
     start() {
-      const stops = [syncDocumentState(api, documents), startRecoveryAutosave(api, documents), startAutoImport(documents, session, client)];
+      const stops = [syncDocumentState(api, documents), startRecoveryAutosave(api, documents), startAutoImport(documents, session, client), startResultsKeeping(documents, session)];
       void files.refreshRecent();
       void offerRecovery({ api, documents, session, questions, data });
       return () => stops.forEach((stop) => stop());

@@ -42,7 +42,7 @@ export function CandidateEditor({ doc, index, problems, colour, onDuplicate }: P
       {affine ? null : <p className="small">{summariseCandidate(candidate, doc.columns).mean.join('; ')}. This form is edited in the project file for now.</p>}
       {actions.map((action, a) => (
         <fieldset key={action.column}>
-          <legend>{affine ? <>Mean and spread of {action.column}: μ = offset + Σ gain × state</> : <>Spread of {action.column}</>}</legend>
+          <legend>{affine ? <>{action.column}: mean μ = offset + Σ gain × state, with a dither around it</> : <>{action.column}: dither around the mean of the form above</>}</legend>
           <div className="row">
             {affine ? (
               <NumberField
@@ -59,8 +59,8 @@ export function CandidateEditor({ doc, index, problems, colour, onDuplicate }: P
               />
             )) : null}
             <NumberField
-              label={`Standard deviation (${unit(a)})`} value={candidate.dither[a] ?? null} message={problemAt(problems, `${path}.dither.${a}`)}
-              help="Dither: the spread of the action around its mean; must be above 0."
+              label={`Dither, standard deviation (${unit(a)})`} value={candidate.dither[a] ?? null} message={problemAt(problems, `${path}.dither.${a}`)}
+              help="How far the action wanders around its mean (one standard deviation of a Gaussian); above 0."
               onCommit={(v) => v !== null && update('set the dither', (c) => ({ ...c, dither: setAt(c.dither, a, v) }), `dither.${a}`)} onBlur={documents.closeStep}
             />
           </div>
