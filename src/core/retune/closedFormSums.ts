@@ -22,7 +22,7 @@ import { nextFeatureCoefficients } from './nextFeatureCoefficients';
 import type { NextStateMonomialSums } from './nextStateMonomialSums';
 import type { PolicyFeatureAverage } from './policyFeatureAverage';
 import type { PolicyFreeSums } from './policyFreeSums';
-import { newPacked, newSlot, packedSlot, statisticsOf, type PointSums, type Slot } from './pointSums';
+import { keepUpperTriangles, newPacked, newSlot, packedSlot, statisticsOf, type PointSums, type Slot } from './pointSums';
 
 /** Above this share of rows near a limit the per-row route is cheaper (a choice, from the bench). */
 export const MAX_CORRECTED_SHARE = 0.25;
@@ -66,6 +66,7 @@ export function closedFormPointSums(
     }
   }
   if (near.mask) correctAtLimits(data, free, mono, c, near.mask, average, total, packed, cancel);
+  if (packed) keepUpperTriangles(packed);
   return { statistics: statisticsOf(free, total, 'full'), episodeSums: packed, correctedRows: near.count };
 }
 

@@ -74,6 +74,15 @@ export function packedSlot(packed: EpisodeBellmanSums, k: number, d: number): Sl
   };
 }
 
-export function mirrorInPlace(upper: Float64Array, d: number): void {
-  for (let a = 0; a < d; a++) for (let b = a + 1; b < d; b++) upper[b * d + a] = upper[a * d + b];
+/**
+ * The bootstrap's packed layout keeps G and H as upper triangles (bellmanStatistics.ts), the lower
+ * parts zero; statisticsFromSums mirrors them. Bring a packed array to that convention.
+ */
+export function keepUpperTriangles(packed: EpisodeBellmanSums): void {
+  const d = packed.dim, dd = d * d;
+  for (let k = 0; k < packed.episodes; k++) {
+    for (const block of [k * packed.stride, k * packed.stride + 2 * dd]) {
+      for (let a = 1; a < d; a++) for (let b = 0; b < a; b++) packed.sums[block + a * d + b] = 0;
+    }
+  }
 }

@@ -17,7 +17,7 @@ import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
 import type { TransitionSet } from '../transitions';
 import { logged, type PolicyFreeSums } from './policyFreeSums';
 import type { PolicyFeatureAverage } from './policyFeatureAverage';
-import { addSlot, mirrorInPlace, newPacked, newSlot, packedSlot, statisticsOf, type PointSums, type Slot } from './pointSums';
+import { addSlot, keepUpperTriangles, newPacked, newSlot, packedSlot, statisticsOf, type PointSums, type Slot } from './pointSums';
 
 const BLOCK_VALUES = 1 << 16;
 
@@ -39,11 +39,9 @@ export function policyDependentSums(
       if (withNextGram) addBlock(block.phi, block.psi, block.reward, size, rows, d, slot);
       else addCrossBlock(block.phi, block.psi, size, rows, d, slot);
     }
-    if (packed) {
-      addSlot(slot, total, d);
-      mirrorInPlace(slot.nextGram, d);
-    }
+    if (packed) addSlot(slot, total, d);
   }
+  if (packed) keepUpperTriangles(packed);
   return { statistics: statisticsOf(free, total, 'upper'), episodeSums: packed };
 }
 
