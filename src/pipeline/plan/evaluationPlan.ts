@@ -13,6 +13,7 @@ import type { TransitionSet } from '../../core/transitions';
 import type { ApproximatorSettings, ProjectDocument } from '../../project/schema';
 import { planFeatures } from './featureMapFor';
 import { planPolicies } from './planPolicies';
+import { planPresentController, type PlannedPresentController } from './presentController';
 import { dataWarnings, discountProblems } from './planChecks';
 import { surfaceGridFor } from './surfaceGrid';
 import type { PlannedPolicy, StartStates, SurfaceGrid } from './planTypes';
@@ -31,6 +32,8 @@ export interface EvaluationPlan {
   readonly sign: 1 | -1;
   readonly starts: StartStates;
   readonly candidates: readonly PlannedPolicy[];
+  /** Today's controller as a policy (presentController.ts), evaluated like the candidates as the comparable baseline. */
+  readonly presentController: PlannedPresentController;
   readonly approximator: ApproximatorSettings;
   /** The linear approximator's feature map, built once from the data for every candidate; null for a network. */
   readonly features: FeatureMap | null;
@@ -51,7 +54,7 @@ export function planEvaluation(project: ProjectDocument, data: TransitionSet): R
   const sense = project.columns.reward.sense;
   return success({
     project, data, episodes: indexEpisodes(data), discount: project.discount, quadratureNodes: project.quadratureNodes, seed: project.seed,
-    sense, sign: sense === 'cost' ? -1 : 1, starts: starts.value, candidates: policies.value, approximator: project.approximator,
+    sense, sign: sense === 'cost' ? -1 : 1, starts: starts.value, candidates: policies.value, presentController: planPresentController(data, project.quadratureNodes), approximator: project.approximator,
     features: features.value, surface: surfaceGridFor(project, data), loggedReturn: loggedDiscountedReturn(data, project.discount), warnings: [...features.warnings, ...dataWarnings(data)],
   });
 }
