@@ -27,7 +27,7 @@ function stripByteOrderMark(text: string): string {
 }
 
 /** Offset of the first byte that does not fit the UTF-8 encoding scheme (RFC 3629 §4). */
-function firstInvalidUtf8Byte(bytes: Uint8Array): number {
+export function firstInvalidUtf8Byte(bytes: Uint8Array): number {
   let i = 0;
   while (i < bytes.length) {
     const b = bytes[i];

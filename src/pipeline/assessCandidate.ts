@@ -61,6 +61,8 @@ export interface SharedInputs {
   index: EpisodeIndex;
   startStates: Float64Array;
   startsFollowEpisodes: boolean;
+  /** Episode of each start state when some episode has none (TransitionSet.startEpisode). */
+  startEpisode?: Int32Array;
   behaviour: GaussianPolicy | null;
   behaviourReason: string;
   /** Share of logged actions at a detected actuator limit, per action (behaviourPolicy.ts). */
@@ -98,7 +100,7 @@ function linearWork(shared: SharedInputs, name: string, policy: GaussianPolicy, 
   const features = featureMapFor(settings, data);
   const sums = episodeBellmanSums(data, features, quadrature, shared.cancel, shared.index);
   const setup: LinearReplicateSetup = {
-    sums, startFeatures: startStateFeatures(features, quadrature, shared.startStates, data.stateDim), startsFollowEpisodes: shared.startsFollowEpisodes,
+    sums, startFeatures: startStateFeatures(features, quadrature, shared.startStates, data.stateDim), startsFollowEpisodes: shared.startsFollowEpisodes, startEpisode: shared.startEpisode,
     ridge: settings.ridge, constantIndex: features.constantIndex, discount: project.discount, solver: 'iteration',
     tolerance: settings.tolerance, maxIterations: settings.maxIterations, initialWeights: new Float64Array(features.dim),
   };

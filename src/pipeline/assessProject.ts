@@ -131,6 +131,6 @@ function sharedInputs(options: AssessOptions): SharedInputs {
   return {
     project, data, index: indexEpisodes(data), cancel: options.cancel, wasmPath: options.wasmPath, behaviour, behaviourReason, behaviourShareAtLimit,
     startStates: project.startStates.kind === 'given' ? Float64Array.from(project.startStates.states.flat()) : data.startStates,
-    startsFollowEpisodes: !given,
+    startsFollowEpisodes: !given, startEpisode: given ? undefined : data.startEpisode,
   };
 }

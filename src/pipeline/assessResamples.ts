@@ -7,6 +7,7 @@
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicate } from '../core/bootstrap/linearFqeReplicate';
+import { startMultiplicities } from '../core/bootstrap/startFeatures';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { fitLinearQuadraticModel, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
@@ -75,7 +76,7 @@ function replicateCandidate(
     out.doublyRobust!.push(estimates && estimates.doublyRobust);
   }
   if (out.model) {
-    out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.policy, discount, shared.startStates, shared.startsFollowEpisodes ? c : undefined)) : null);
+    out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.policy, discount, shared.startStates, shared.startsFollowEpisodes ? startMultiplicities(c, shared.startEpisode) : undefined)) : null);
   }
 }
 

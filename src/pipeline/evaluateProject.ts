@@ -132,7 +132,7 @@ async function estimateCandidate(
 
 function startStatesFor(project: ProjectDocument, dataset: TransitionSet): Result<Float64Array> {
   if (project.startStates.kind === 'episodeStarts') {
-    if (dataset.episodeCount < 1) return failure({ where: 'startStates', message: 'the data has no episodes, so there are no start states' });
+    if (dataset.startStates.length === 0) return failure({ where: 'startStates', message: 'no episode of the data keeps its first row (each was excluded), so there are no start states; fix those rows or give start states in the project' });
     return success(dataset.startStates);
   }
   return success(Float64Array.from(project.startStates.states.flat()));

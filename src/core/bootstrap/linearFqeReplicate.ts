@@ -17,7 +17,7 @@ import { fixedPointWeights, iterationMatrix, ridgeGram, ridgeGramFactor } from '
 import { spectralRadiusBound } from '../fqe/spectralRadiusBound';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { resampleBellmanStatistics, type EpisodeBellmanSums } from './episodeBellmanSums';
-import { meanStartFeatures } from './startFeatures';
+import { holdsStartState, meanStartFeatures, startMultiplicities } from './startFeatures';
 
 /**
  * iteration: the iterate at the tolerance, or — as the pipeline reports it — the fixed point when
@@ -29,8 +29,10 @@ export interface LinearReplicateSetup {
   readonly sums: EpisodeBellmanSums;
   /** ξ(s0) per start state, count×d (startFeatures.ts). */
   readonly startFeatures: Float64Array;
-  /** True when start state k is episode k's first state, so it is resampled with its episode. */
+  /** True when the start states are episodes' first states, so they are resampled with their episodes. */
   readonly startsFollowEpisodes: boolean;
+  /** Episode of each start state (TransitionSet.startEpisode); absent when start state k is episode k's. */
+  readonly startEpisode?: Int32Array;
   readonly ridge: number;
   readonly constantIndex: number | null;
   readonly discount: number;
@@ -40,7 +42,8 @@ export interface LinearReplicateSetup {
   readonly initialWeights: Float64Array; // d
 }
 
-export type ReplicateStatus = FqeStatus | 'singular';
+/** singular: no solution; noStartStates: the resample holds no episode with a start state. */
+export type ReplicateStatus = FqeStatus | 'singular' | 'noStartStates';
 
 export interface LinearReplicate {
   /** J of the resample (reward sense); null when no solution exists (status says why). */
@@ -50,13 +53,15 @@ export interface LinearReplicate {
 }
 
 export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: ArrayLike<number>, scratch?: Float64Array): LinearReplicate {
+  const startWeights = setup.startsFollowEpisodes ? startMultiplicities(multiplicities, setup.startEpisode) : undefined;
+  if (startWeights && !holdsStartState(startWeights)) return { policyValue: null, weights: null, status: 'noStartStates' };
   const stats = resampleBellmanStatistics(setup.sums, multiplicities, scratch);
-  const xiBar = meanStartFeatures(setup.startFeatures, setup.sums.dim, setup.startsFollowEpisodes ? multiplicities : undefined);
+  const xiBar = meanStartFeatures(setup.startFeatures, setup.sums.dim, startWeights);
   return solveReplicate(setup, stats, xiBar);
 }
 
 /** The solve on given statistics (also used for the full data and for a discount sweep). */
-export function solveReplicate(setup: Omit<LinearReplicateSetup, 'sums' | 'startFeatures' | 'startsFollowEpisodes'>, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
+export function solveReplicate(setup: Omit<LinearReplicateSetup, 'sums' | 'startFeatures' | 'startsFollowEpisodes' | 'startEpisode'>, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
   const d = stats.dim, a = ridgeGram(stats, setup.ridge, setup.constantIndex);
   let factor: Float64Array;
   try {

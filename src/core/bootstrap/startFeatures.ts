@@ -48,6 +48,22 @@ export function meanStartFeatures(xi: Float64Array, d: number, multiplicities?: 
 }
 
 /**
+ * Per-start-state multiplicities of a resample whose start states follow their episodes:
+ * multiplicities are per episode (e); startEpisode (k) names each start state's episode, or is
+ * absent when start state k is episode k's. Episodes without a start state contribute none.
+ */
+export function startMultiplicities(multiplicities: ArrayLike<number>, startEpisode?: Int32Array): ArrayLike<number> {
+  if (!startEpisode) return multiplicities;
+  return Float64Array.from(startEpisode, (e) => multiplicities[e]);
+}
+
+/** True when the resample holds at least one start state (Σ over start states of its multiplicity > 0). */
+export function holdsStartState(multiplicities: ArrayLike<number>): boolean {
+  for (let s = 0; s < multiplicities.length; s++) if (multiplicities[s] > 0) return true;
+  return false;
+}
+
+/**
  * Mean over states (count×ds) of ξ(s) = Σ_j ω_j φ(s, a_j), without storing the rows; rows with
  * skip[i] ≠ 0 contribute zero features (a transition into a terminal state has no next action).
  */
