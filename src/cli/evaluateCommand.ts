@@ -8,11 +8,13 @@ import { formatAssessment } from './assessmentFormat';
 import { evaluateProjectFile } from './evaluateProjectFile';
 import { formatCautions, formatEvaluation } from './formatEvaluation';
 import { formatImport } from './formatImport';
+import { processTerminal, type Terminal } from './terminal';
 
-export async function runEvaluateCommand(projectPath: string, options: { json: boolean } & AssessmentOverrides): Promise<number> {
+export async function runEvaluateCommand(projectPath: string, options: { json: boolean; terminal?: Terminal } & AssessmentOverrides): Promise<number> {
+  const terminal = options.terminal ?? processTerminal;
   const result = await evaluateProjectFile(projectPath, options);
   if (!result.ok) {
-    process.stderr.write(`${result.failure.message}\n`);
+    terminal.err(`${result.failure.message}\n`);
     return result.failure.exitCode;
   }
   const { project, imported, evaluation, assessment } = result.run;
@@ -21,12 +23,12 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
       ...evaluationToJson(evaluation), import: importToJson(imported),
       assessment: assessment.ok ? assessmentToJson(assessment.value) : null, assessmentProblems: assessment.ok ? [] : assessment.problems,
     };
-    process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+    terminal.out(`${JSON.stringify(json, null, 2)}\n`);
   } else {
-    process.stdout.write(formatImport(imported, project.data.path));
-    process.stdout.write(formatEvaluation(evaluation, basename(projectPath)));
-    process.stdout.write(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
-    process.stdout.write(formatCautions(evaluation));
+    terminal.out(formatImport(imported, project.data.path));
+    terminal.out(formatEvaluation(evaluation, basename(projectPath)));
+    terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
+    terminal.out(formatCautions(evaluation));
   }
   return evaluation.policies.some((p) => p.status === 'diverged') ? 3 : 0;
 }

@@ -8,9 +8,11 @@ import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseProjectText, serializeProject } from '../../src/project/projectFile';
 
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- a raw project document, edited field by field
+type Raw = Record<string, any>;
 const SAMPLE = JSON.parse(readFileSync(resolve(__dirname, '../../sample-projects/tank-levels/tank-levels.spcritic'), 'utf8'));
 
-function problemsOf(edit: (doc: Record<string, any>) => void): { where: string; message: string }[] {
+function problemsOf(edit: (doc: Raw) => void): { where: string; message: string }[] {
   const doc = structuredClone(SAMPLE);
   edit(doc);
   const loaded = parseProjectText(JSON.stringify(doc), 'p.spcritic');
@@ -20,11 +22,11 @@ function problemsOf(edit: (doc: Record<string, any>) => void): { where: string; 
 
 describe('unknown project fields', () => {
   it.each([
-    ['quadratureNode', (d: Record<string, any>) => { d.quadratureNode = 64; }, 'p.spcritic, quadratureNode', 'did you mean "quadratureNodes"?'],
-    ['rigde', (d: Record<string, any>) => { d.approximator.rigde = 1; }, 'p.spcritic, approximator.rigde', 'did you mean "ridge"?'],
-    ['badrows', (d: Record<string, any>) => { d.data.csv.badrows = 'exclude'; }, 'p.spcritic, data.csv.badrows', 'did you mean "badRows"?'],
-    ['bound', (d: Record<string, any>) => { d.candidates[0].bound = { lo: [0], hi: [1], mode: 'clip' }; }, 'p.spcritic, candidates[0].bound', 'did you mean "bounds"?'],
-    ['comment', (d: Record<string, any>) => { d.comment = 'checked'; }, 'p.spcritic, comment', 'your own remarks belong in the top-level "notes"'],
+    ['quadratureNode', (d: Raw) => { d.quadratureNode = 64; }, 'p.spcritic, quadratureNode', 'did you mean "quadratureNodes"?'],
+    ['rigde', (d: Raw) => { d.approximator.rigde = 1; }, 'p.spcritic, approximator.rigde', 'did you mean "ridge"?'],
+    ['badrows', (d: Raw) => { d.data.csv.badrows = 'exclude'; }, 'p.spcritic, data.csv.badrows', 'did you mean "badRows"?'],
+    ['bound', (d: Raw) => { d.candidates[0].bound = { lo: [0], hi: [1], mode: 'clip' }; }, 'p.spcritic, candidates[0].bound', 'did you mean "bounds"?'],
+    ['comment', (d: Raw) => { d.comment = 'checked'; }, 'p.spcritic, comment', 'your own remarks belong in the top-level "notes"'],
   ])('%s is refused, naming the field and the closest known name', (_name, edit, where, message) => {
     const [first] = problemsOf(edit);
     expect(first.where).toBe(where);
