@@ -10,7 +10,7 @@ import { isBlank } from './cellText';
 import { ColumnSink } from './columnSink';
 import type { Delimiter } from './csvDialect';
 import { CsvScanner, recordBound } from './csvScanner';
-import { numberFromBytesWith } from './numericBytes';
+import { BOUNDS, plainRecord, SKIP, type PlainRecordTarget } from './plainRecord';
 import type { DecimalMark } from './numericCell';
 import { formatCount } from './reportFormat';
 import type { RowProblems } from './rowProblems';
@@ -54,46 +54,72 @@ export interface DataBytes {
   readonly firstLine: number;
 }
 
+/** `fastPath` false reads every record the general way (for the test that the two agree). */
 export function readColumns(
   data: DataBytes, delimiter: Delimiter, decimalMark: DecimalMark, fieldCount: number,
-  requests: readonly ColumnRequest[], problems: RowProblems,
+  requests: readonly ColumnRequest[], problems: RowProblems, fastPath = true,
 ): TableColumns {
   const { bytes } = data;
   const capacity = recordBound(bytes, data.start);
   const sinks = requests.map((request) => new ColumnSink(request, capacity, decimalMark));
   const numbers = sinks.filter((s) => s.request.kind === 'number'), others = sinks.filter((s) => s.request.kind !== 'number');
-  const numberFields = numbers.map((s) => s.request.field), numberValues = numbers.map((s) => s.values);
   const scanner = new CsvScanner(bytes, delimiter.charCodeAt(0), fieldCount, data.start);
+  const fast = fastPath ? plainRecordTarget(bytes, delimiter, decimalMark, fieldCount, numbers, others) : null;
   const { starts, ends, escaped } = scanner;
-  const markByte = decimalMark.charCodeAt(0);
   const blanks: number[] = [];
-  let record = 0, lastContent = -1, lastLine = data.firstLine - 1;
+  let record = 0, lastContent = -1, lastLine = data.firstLine - 1, position = data.start, line = 1;
   const lineOffset = data.firstLine - 1;
-  while (scanner.next()) {
+  while (position < bytes.length) {
     const r = record++;
+    const after = fast ? plainRecord(fast, position, r) : -1;
+    if (after >= 0) { // the common case: numbers already in their columns
+      flushBlanks(blanks, fieldCount, problems);
+      lastContent = r;
+      lastLine = line + lineOffset;
+      for (const sink of others) sink.read(bytes, fast!.starts[sink.request.field], fast!.ends[sink.request.field], 0, r, problems);
+      position = after;
+      line++;
+      continue;
+    }
+    scanner.seek(position, line);
+    scanner.next();
+    position = scanner.offset;
+    line = scanner.nextLine;
     if (scanner.fieldCount === 1 && scanner.fault === 'none' && isBlank(bytes, starts[0], ends[0])) {
       blanks.push(r);
       for (const sink of sinks) sink.missing(r);
       continue;
     }
-    for (const blank of blanks) problems.add(blank, undefined, 'blank-line', `the line is blank; expected ${fieldCount} fields`);
-    blanks.length = 0;
+    flushBlanks(blanks, fieldCount, problems);
     lastContent = r;
     lastLine = scanner.lastLine + lineOffset;
     if (!acceptFaultless(scanner, fieldCount, r, problems, lineOffset)) {
       for (const sink of sinks) sink.missing(r);
       continue;
     }
-    // The hot loop: number cells straight into their columns; anything unusual goes the slow way.
-    for (let k = 0; k < numberFields.length; k++) {
-      const f = numberFields[k];
-      const value = escaped[f] ? NaN : numberFromBytesWith(bytes, starts[f], ends[f], markByte);
-      if (value - value === 0) numberValues[k][r] = value;
-      else numbers[k].notANumber(bytes, starts[f], ends[f], escaped[f], r, problems);
-    }
-    for (const sink of others) sink.read(bytes, starts[sink.request.field], ends[sink.request.field], escaped[sink.request.field], r, problems);
+    for (const sink of sinks) sink.read(bytes, starts[sink.request.field], ends[sink.request.field], escaped[sink.request.field], r, problems);
   }
   return collect(sinks, lastContent + 1, lastLine);
+}
+
+/** Blank lines followed by content are bad rows (blank lines at the end of the file are none). */
+function flushBlanks(blanks: number[], fieldCount: number, problems: RowProblems): void {
+  for (const blank of blanks) problems.add(blank, undefined, 'blank-line', `the line is blank; expected ${fieldCount} fields`);
+  blanks.length = 0;
+}
+
+/** The fast path's plan, or null when it cannot apply (a decimal mark that is also the delimiter). */
+function plainRecordTarget(
+  bytes: Uint8Array, delimiter: Delimiter, decimalMark: DecimalMark, fieldCount: number, numbers: ColumnSink[], others: ColumnSink[],
+): PlainRecordTarget | null {
+  if (decimalMark === delimiter) return null;
+  const plan = new Int32Array(fieldCount).fill(SKIP);
+  others.forEach((sink) => { plan[sink.request.field] = BOUNDS; });
+  numbers.forEach((sink, k) => { plan[sink.request.field] = k; });
+  return {
+    bytes, end: bytes.length, delimiter: delimiter.charCodeAt(0), markByte: decimalMark.charCodeAt(0), fieldCount, plan,
+    numbers: numbers.map((sink) => sink.values), starts: new Int32Array(fieldCount), ends: new Int32Array(fieldCount),
+  };
 }
 
 /** False (and the problem logged) when the record has a quote fault or the wrong number of fields. */

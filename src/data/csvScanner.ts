@@ -63,6 +63,17 @@ export class CsvScanner {
     return this.position;
   }
 
+  /** Physical line (1-based) where the next record starts. */
+  get nextLine(): number {
+    return this.line;
+  }
+
+  /** Go on from byte `position`, which starts physical line `line` (after a record read elsewhere). */
+  seek(position: number, line: number): void {
+    this.position = position;
+    this.line = line;
+  }
+
   /** Read the next record; false at the end of the input. */
   next(): boolean {
     if (this.position >= this.end) return false;

@@ -57,19 +57,15 @@ export function buildTransitions(c: StepColumns): { transitions: TransitionSet; 
     from[k++] = successor[r] === -1 ? r : successor[r];
   }
   const t = allocate(n, ds, m, c.hasStart);
-  for (let j = 0; j < ds; j++) {
-    const state = c.states[j], next = (c.nextStates ?? c.states)[j];
-    for (let k = 0; k < n; k++) {
-      t.states[k * ds + j] = state[rows[k]];
-      t.nextStates[k * ds + j] = successor[rows[k]] === -1 ? state[rows[k]] : next[from[k]];
-    }
-  }
-  for (let j = 0; j < m; j++) {
-    const action = c.actions[j];
-    for (let k = 0; k < n; k++) t.actions[k * m + j] = action[rows[k]];
-  }
+  const next = c.nextStates ?? c.states;
+  // Row by row: each output array is written once, in order, and each input column read in order.
   for (let k = 0; k < n; k++) {
-    const r = rows[k];
+    const r = rows[k], s = successor[r] === -1 ? r : from[k], nextColumns = successor[r] === -1 ? c.states : next;
+    for (let j = 0; j < ds; j++) {
+      t.states[k * ds + j] = c.states[j][r];
+      t.nextStates[k * ds + j] = nextColumns[j][s];
+    }
+    for (let j = 0; j < m; j++) t.actions[k * m + j] = c.actions[j][r];
     t.rewards[k] = c.rewards[r];
     t.terminal[k] = successor[r] === -1 ? 1 : 0;
     t.episode[k] = c.episodeOf[r];
