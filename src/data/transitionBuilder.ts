@@ -130,7 +130,7 @@ export function rowAccount(kept: Uint8Array, transitions: number): string {
   let used = 0;
   for (let r = 0; r < kept.length; r++) used += kept[r];
   const excluded = kept.length - used, unused = used - transitions;
-  return `Rows: ${formatCount(kept.length)} read = ${formatCount(transitions)} transitions + ${formatCount(excluded)} excluded + ${formatCount(unused)} unused (kept, but the last of an episode, with no next row).`;
+  return `Rows: ${formatCount(kept.length)} read = ${formatCount(transitions)} transitions + ${formatCount(excluded)} excluded + ${formatCount(unused)} unused (kept, with no next row to pair with: the last of an episode, or the row before an excluded one).`;
 }
 
 /** Runs of excluded rows with kept rows of one episode on both sides: where a chain was cut. */

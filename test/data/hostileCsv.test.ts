@@ -37,7 +37,7 @@ describe('every row is accounted for', () => {
     const { value } = imported(text.join('\n'));
     // 9 kept rows in two chains (3 and 6 rows): 2 + 5 = 7 transitions, 2 unused chain ends, 1 excluded.
     expect(value.transitions.count).toBe(7);
-    expect(value.episodeReport).toContain('Rows: 10 read = 7 transitions + 1 excluded + 2 unused (kept, but the last of an episode, with no next row).');
+    expect(value.episodeReport).toContain('Rows: 10 read = 7 transitions + 1 excluded + 2 unused (kept, with no next row to pair with: the last of an episode, or the row before an excluded one).');
   });
 
   it('a quote opened at line 81 of 161 and never closed: one row excluded that holds the other 81 lines, said in words', () => {
@@ -49,7 +49,7 @@ describe('every row is accounted for', () => {
     expect(value.excluded[0]).toMatchObject({ line: 81, kind: 'quote' });
     expect(value.excluded[0].reason).toContain('never closed, so the rest of the file — 81 lines of text, to line 161 — was read into this one row');
     expect(warnings.join('\n')).toContain("the file's 161 lines of text hold the header and 80 rows, so rows span 80 more lines than one each");
-    expect(value.episodeReport).toContain('Rows: 80 read = 78 transitions + 1 excluded + 1 unused (kept, but the last of an episode, with no next row).');
+    expect(value.episodeReport).toContain('Rows: 80 read = 78 transitions + 1 excluded + 1 unused (kept, with no next row to pair with: the last of an episode, or the row before an excluded one).');
   });
 
   it('a stray quote costs its own row only: the rows after it are read', () => {
