@@ -1,5 +1,7 @@
 // Lint, chiefly to keep the layers of DEVELOPERS.md true: an import that points up a layer fails.
-// core ← data, project ← pipeline ← cli, renderer, main. Built-in no-restricted-imports per folder.
+// core ← data, project ← pipeline ← shared ← cli, renderer, main, preload; and inside the renderer
+// format, state ← document ← worker ← session, plots, export ← components ← files, screens ← App.
+// Built-in no-restricted-imports per folder (folder names as path segments).
 import tseslint from 'typescript-eslint';
 
 const nodeBuiltins = ['node:*', 'fs', 'path', 'os', 'child_process', 'crypto', 'worker_threads'];
@@ -35,5 +37,21 @@ export default tseslint.config(
   layer(['src/host/**'], ['core', 'data', 'project', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'shared'], ['electron', 'react']),
   layer(['src/cli/**'], ['main', 'preload', 'renderer'], ['electron', 'react']),
   layer(['src/main/**'], ['renderer', 'cli', 'preload'], ['react']),
-  layer(['src/renderer/**'], ['main', 'cli', 'host'], [...nodeBuiltins, 'electron']),
+  layer(['src/figures/**'], ['data', 'project', 'pipeline', 'cli', 'host', 'main', 'preload', 'renderer', 'shared'],
+    [...nodeBuiltins, 'electron', 'react', 'react-dom', 'zod', 'papaparse']),
+  layer(['src/shared/**'], ['cli', 'host', 'main', 'preload', 'renderer'], [...nodeBuiltins, 'react', 'react-dom']),
+  layer(['src/preload/**'], ['core', 'data', 'project', 'pipeline', 'cli', 'host', 'main', 'renderer', 'figures'], [...nodeBuiltins, 'react']),
+  layer(['src/renderer/**'], ['main', 'cli', 'host', 'preload'], [...nodeBuiltins, 'electron']),
+  // The renderer's inside: the worker runs the pipeline and knows nothing of the page.
+  layer(['src/renderer/src/worker/**'], ['main', 'cli', 'host', 'preload', 'session', 'document', 'screens', 'components', 'plots', 'export', 'files', 'state', 'App'],
+    [...nodeBuiltins, 'electron', 'react', 'react-dom', 'chart.js']),
+  layer(['src/renderer/src/format/**', 'src/renderer/src/state/**'],
+    ['main', 'cli', 'host', 'preload', 'session', 'document', 'worker', 'screens', 'components', 'plots', 'export', 'files', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/document/**'], ['main', 'cli', 'host', 'preload', 'session', 'worker', 'screens', 'components', 'plots', 'export', 'files', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/session/**'], ['main', 'cli', 'host', 'preload', 'screens', 'components', 'plots', 'export', 'files', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/plots/**', 'src/renderer/src/export/**'], ['main', 'cli', 'host', 'preload', 'session', 'document', 'worker', 'screens', 'components', 'files', 'App'],
+    [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/components/**'], ['main', 'cli', 'host', 'preload', 'screens', 'files', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/files/**'], ['main', 'cli', 'host', 'preload', 'screens', 'components', 'App'], [...nodeBuiltins, 'electron']),
+  layer(['src/renderer/src/screens/**'], ['main', 'cli', 'host', 'preload', 'App'], [...nodeBuiltins, 'electron']),
 );

@@ -7,12 +7,12 @@ import { createRequire } from 'node:module';
 import { basename, dirname, join, resolve } from 'node:path';
 import { describeProblems, type Result } from '../core/result';
 import type { Assessment } from '../pipeline/assessment';
-import { assessProject } from '../pipeline/assessProject';
+import { assessRun } from '../pipeline/assessProject';
 import { assessmentSettingsFor, type AssessmentOverrides } from '../pipeline/assessSettings';
-import type { CandidateFit } from '../pipeline/candidateFit';
 import type { Evaluation } from '../pipeline/estimates';
-import { evaluateProject } from '../pipeline/evaluateProject';
+import { evaluationOf } from '../pipeline/evaluateProject';
 import { openProject, type OpenedProject } from '../pipeline/openProject';
+import { startRun } from '../pipeline/projectRun';
 import { HostFileError, MAX_DATA_BYTES, MAX_PROJECT_BYTES, readRegularFile } from '../host/regularFile';
 
 export interface ProjectFileRun extends OpenedProject {
@@ -59,18 +59,18 @@ export async function evaluateProjectFile(
   const { project, dataset, warnings } = opened.value;
   const settings = assessmentSettingsFor(project, overrides);
   if (!settings.ok) return { ok: false, failure: { message: describeProblems(settings.problems), exitCode: 2 } };
-  const network = project.approximator.kind === 'network', wasmPath = tensorflowWasmFolder(), fits: CandidateFit[] = [];
-  if (network) await quietTensorflow();
-  const evaluation = await evaluateProject({
-    project, dataset, warnings: warnings.map((w) => `${w.where}: ${w.message}`), wasmPath, now,
-    retainFit: network ? (i, fit) => { fits[i] = fit; } : undefined, // a network fit is slow: the assessment reuses it
-  });
-  if (!evaluation.ok) {
-    fits.forEach((f) => f.dispose());
-    return { ok: false, failure: { message: describeProblems(evaluation.problems), exitCode: 1 } };
+  const wasmPath = tensorflowWasmFolder();
+  if (project.approximator.kind === 'network') await quietTensorflow();
+  const started = await startRun(project, dataset, { wasmPath });
+  if (!started.ok) return { ok: false, failure: { message: describeProblems(started.problems), exitCode: 1 } };
+  const run = started.value;
+  try {
+    const evaluation = evaluationOf(run, [...warnings, ...started.warnings].map((w) => `${w.where}: ${w.message}`), now);
+    const assessment = await assessRun(run, { settings: settings.value, wasmPath });
+    return { ok: true, run: { ...opened.value, evaluation, assessment } };
+  } finally {
+    run.dispose();
   }
-  const assessment = await assessProject({ project, dataset, settings: settings.value, fits, wasmPath }).finally(() => fits.forEach((f) => f.dispose()));
-  return { ok: true, run: { ...opened.value, evaluation: evaluation.value, assessment } };
 }
 
 /** The folder holding TensorFlow.js's .wasm files in node_modules (with a trailing slash, as setWasmPaths wants). */

@@ -10,6 +10,11 @@ export interface Problem {
   readonly message: string;
   /** A stable machine-readable kind (e.g. "non-numeric-cell") so hosts can group problems. */
   readonly kind?: string;
+  /**
+   * The project-document field at fault as a path of keys and indices (["candidates", 0, "std", 1]),
+   * so a host can point at the field without parsing `where` back (it is prose for people).
+   */
+  readonly field?: readonly (string | number)[];
 }
 
 export type Result<T> = { ok: true; value: T; warnings: Problem[] } | { ok: false; problems: Problem[] };

@@ -17,10 +17,10 @@
  * clamp's limits, when both are constants, must not cross (lo ≤ hi).
  *
  * Bounded: at most MAX_EXPRESSION_LENGTH characters, MAX_EXPRESSION_DEPTH levels of nesting and
- * MAX_EXPRESSION_OPERATIONS operations (src/core/expressionLimits.ts); beyond them the expression is
+ * MAX_EXPRESSION_OPERATIONS operations (src/core/limits.ts); beyond them the expression is
  * refused with a message, never a stack overflow.
  */
-import { MAX_EXPRESSION_DEPTH, MAX_EXPRESSION_LENGTH, MAX_EXPRESSION_OPERATIONS } from '../core/expressionLimits';
+import { MAX_EXPRESSION_DEPTH, MAX_EXPRESSION_LENGTH, MAX_EXPRESSION_OPERATIONS } from '../core/limits';
 import { ExpressionError } from './expressionError';
 import { tokenize, type Token, type TokenType } from './expressionTokens';
 

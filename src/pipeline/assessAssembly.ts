@@ -6,11 +6,9 @@
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
-import type { TransitionSet } from '../core/transitions';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
-import type { ProjectDocument } from '../project/schema';
 import type { AssessmentWarning, CandidateAssessment, Comparison, IntervalEstimate, PairedDifference } from './assessment';
-import type { CandidateWork, SharedInputs } from './assessCandidate';
+import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import { crossChecks } from './assessCrossChecks';
 import { coverageDiagnostics, coverageWarnings } from './assessDiagnostics';
 import { intervalEstimate, pairedDifference, ranking, type Estimator } from './assessIntervals';
@@ -18,14 +16,15 @@ import { isModelValueFailure, type ModelCheck } from './assessModelCheck';
 import type { ReplicateSet } from './assessResamples';
 import type { AssessmentSettings } from './assessSettings';
 import { actionSlices } from './assessSlices';
-import { surfaceGridFor, surfaceVisits } from './surfaceGrid';
+import type { EvaluationPlan } from './plan/evaluationPlan';
+import { surfaceVisits } from './plan/surfaceGrid';
 
 export const BEHAVIOUR_NAME = 'logged behaviour (today)';
 /** More failed resamples than this share raise a caution (our rule). */
 const FAILED_SHARE = 0.05;
 
 export interface AssemblyInputs {
-  shared: SharedInputs;
+  context: AssessmentContext;
   works: CandidateWork[];
   replicates: ReplicateSet;
   modelCheck: ModelCheck;
@@ -37,26 +36,26 @@ export interface AssemblyInputs {
 }
 
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
-  const { shared, works, replicates, settings, sign } = inputs;
+  const { context, works, replicates, settings, sign } = inputs;
   return works.map((work, j) => {
-    const diagnostics = coverageDiagnostics(work, shared, inputs.ranges, { policy: shared.behaviour, meanOutside: inputs.behaviourOutside });
+    const diagnostics = coverageDiagnostics(work, context, inputs.ranges, { policy: context.presentController, meanOutside: inputs.behaviourOutside });
     const points = fullDataCrossChecks(inputs, work, j);
     const checks = crossChecks({
       work, replicates: replicates.candidates[j], points: points.values, weights: diagnostics.importanceWeights,
       offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: settings.level, sign,
     });
-    const policyValue = intervalEstimate(work.policyValue, replicates.candidates[j].fqe, settings.level, sign);
+    const policyValue = intervalEstimate(work.model.fit.policyValue, replicates.candidates[j].fqe, settings.level, sign);
     const warnings = [
       ...coverageWarnings(diagnostics),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
       ...failedWarning(policyValue),
     ];
-    return { name: work.name, policyValue, crossChecks: checks, diagnostics, slices: actionSlices(work, shared.data, sign), warnings };
+    return { name: work.model.name, policyValue, crossChecks: checks, diagnostics, slices: actionSlices(work.model, context.plan.data, sign), warnings };
   });
 }
 
 function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, j: number) {
-  const { shared } = inputs, discount = shared.project.discount;
+  const { plan } = inputs.context, discount = plan.discount;
   const values = { importanceSampling: null as number | null, doublyRobust: null as number | null, model: null as number | null };
   let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? null : work.offPolicy.reason;
   if ('perDecision' in work.offPolicy) {
@@ -72,7 +71,7 @@ function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, j: num
   let modelReason = inputs.modelReasons[j];
   if (modelReason === null && inputs.modelCheck.fit) {
     try {
-      values.model = modelPolicyValue(inputs.modelCheck.fit, work.policy, discount, shared.startStates);
+      values.model = modelPolicyValue(inputs.modelCheck.fit, work.model.policy, discount, plan.starts.states);
     } catch (error) {
       if (!isModelValueFailure(error)) throw error;
       modelReason = (error as Error).message;
@@ -91,8 +90,8 @@ function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
 }
 
 export function comparison(loggedValue: number, replicates: ReplicateSet, works: CandidateWork[], level: number, sign: number): Comparison {
-  const behaviour: Estimator = { name: BEHAVIOUR_NAME, point: loggedValue, replicates: replicates.behaviour };
-  const candidates: Estimator[] = works.map((w, j) => ({ name: w.name, point: w.policyValue, replicates: replicates.candidates[j].fqe }));
+  const behaviour: Estimator = { name: BEHAVIOUR_NAME, point: loggedValue, replicates: replicates.loggedReturn };
+  const candidates: Estimator[] = works.map((w, j) => ({ name: w.model.name, point: w.model.fit.policyValue, replicates: replicates.candidates[j].fqe }));
   const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, behaviour, level, sign));
   for (let i = 0; i < candidates.length; i++) {
     for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));
@@ -100,32 +99,33 @@ export function comparison(loggedValue: number, replicates: ReplicateSet, works:
   return { differences, ranking: ranking([...candidates, behaviour]) };
 }
 
-export function unvisitedShare(project: ProjectDocument, data: TransitionSet): number | null {
-  const grid = surfaceGridFor(project, data);
+export function unvisitedShare(plan: EvaluationPlan): number | null {
+  const grid = plan.surface;
   if (!grid) return null;
-  return uncoveredShare(surfaceVisits(data, grid), grid.resolution[0], grid.resolution[1]);
+  return uncoveredShare(surfaceVisits(plan.data, grid), grid.resolution[0], grid.resolution[1]);
 }
 
-export function globalWarnings(shared: SharedInputs, truncationWeight: number, candidates: CandidateAssessment[], unvisited: number | null): AssessmentWarning[] {
+export function globalWarnings(context: AssessmentContext, truncationWeight: number, candidates: CandidateAssessment[], unvisited: number | null): AssessmentWarning[] {
   const out: AssessmentWarning[] = [];
-  if (shared.project.approximator.kind === 'network') {
+  const { plan } = context;
+  if (plan.approximator.kind === 'network') {
     out.push({
       severity: 'caution', topic: 'bootstrap',
       message: 'The candidates’ J by the network approximator has no interval (each resample would refit the network); compare it with the cross-checks and the sensitivity to the network width.',
     });
   }
-  if (!shared.startsFollowEpisodes) {
+  if (!plan.starts.followEpisodes) {
     out.push({
       severity: 'caution', topic: 'startStates',
-      message: `The candidates’ J is taken at the ${shared.startStates.length / shared.data.stateDim} start states given in the project, the logged behaviour’s return at its episodes’ own starts: the comparison with today mixes two start distributions.`,
+      message: `The candidates’ J is taken at the ${plan.starts.count} start states given in the project, the logged behaviour’s return at its episodes’ own starts: the comparison with today mixes two start distributions.`,
     });
   }
-  if (!shared.behaviour) out.push({ severity: 'caution', topic: 'behaviourModel', message: `Importance-sampling cross-checks are not available: ${shared.behaviourReason}.` });
-  shared.behaviourShareAtLimit.forEach((share, j) => {
+  if (!context.presentController) out.push({ severity: 'caution', topic: 'behaviourModel', message: `Importance-sampling cross-checks are not available: ${context.presentControllerReason}.` });
+  context.presentControllerShareAtLimit.forEach((share, j) => {
     if (share > FAILED_SHARE) {
       out.push({
         severity: 'caution', topic: 'behaviourModel',
-        message: `${(100 * share).toFixed(1)} % of the logged ${shared.data.actionNames[j]} values sit at an actuator limit; the behaviour model is a least-squares fit on all rows, so the importance weights are approximate.`,
+        message: `${(100 * share).toFixed(1)} % of the logged ${plan.data.actionNames[j]} values sit at an actuator limit; the behaviour model is a least-squares fit on all rows, so the importance weights are approximate.`,
       });
     }
   });

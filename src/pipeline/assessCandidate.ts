@@ -1,32 +1,20 @@
 /**
- * Everything one candidate's assessment computes once from the full data before resampling: for
- * the linear approximator the per-episode sums and the full-data solution; for a network the one
- * network fit (its resamples would each refit the network, so none are drawn); for both the fitted
- * Q at the logged states and actions (for the doubly robust estimator) and the importance weights
- * against the fitted behaviour — or the reason a piece cannot be formed. Reward terms throughout.
+ * What the assessment adds to one candidate's model (model/candidateModel.ts) before resampling:
+ * the replicate setup of a linear fit (its per-episode sums are already in the model), and the
+ * inputs of the importance-sampling cross-checks — the fitted Q at the logged states and actions
+ * and the importance weights against the fitted present-controller model — or the reason they
+ * cannot be formed. Nothing here refits a candidate. Reward terms throughout.
  */
-import { createActionQuadrature, type ActionQuadrature } from '../core/actionQuadrature';
-import type { ActionValueFunction } from '../core/actionValue';
-import { episodeBellmanSums, resampleBellmanStatistics } from '../core/bootstrap/episodeBellmanSums';
-import { unitMultiplicities } from '../core/bootstrap/episodeMultiplicities';
-import type { EpisodeIndex } from '../core/bootstrap/episodeTransitions';
-import { linearFqeReplicate, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
-import { startStateFeatures } from '../core/bootstrap/startFeatures';
-import type { FeatureMap } from '../core/features/featureMap';
-import type { BellmanStatistics } from '../core/fqe/bellmanStatistics';
+import { linearFqeReplicate, type LinearReplicateSetup, type LinearSolveSettings } from '../core/bootstrap/linearFqeReplicate';
+import { linearisedReplicate } from '../core/bootstrap/linearisedReplicate';
 import type { CancellationCheck } from '../core/fqe/cancellation';
-import { linearActionValue } from '../core/fqe/linearActionValue';
 import { ImportanceRatioError } from '../core/offPolicy/importanceRatio';
 import { importanceWeightTable, type ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import { perDecisionData, type PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
 import type { GaussianPolicy } from '../core/policy';
-import type { TransitionSet } from '../core/transitions';
 import { stateValues } from '../core/value';
-import type { CandidateSpec, ProjectDocument } from '../project/schema';
-import type { CandidateFit } from './candidateFit';
-import { candidatePolicy } from './candidatePolicy';
-import { featureMapFor } from './featureMapFor';
-import { fitCandidate } from './fitCandidate';
+import type { CandidateModel } from './model/candidateModel';
+import type { EvaluationPlan } from './plan/evaluationPlan';
 
 export interface OffPolicyInputs {
   table: ImportanceWeightTable;
@@ -34,41 +22,23 @@ export interface OffPolicyInputs {
   perDecision: PerDecisionData;
 }
 
-/** The linear fit's one-pass material: resamples reweight `setup.sums`. */
-export interface LinearWork {
-  features: FeatureMap;
-  setup: LinearReplicateSetup;
-  fullStatistics: BellmanStatistics;
-}
-
 export interface CandidateWork {
-  name: string;
-  policy: GaussianPolicy;
-  quadrature: ActionQuadrature;
-  q: ActionValueFunction;
-  /** J on the full data, reward sense. */
-  policyValue: number;
-  /** Null for a network approximator. */
-  linear: LinearWork | null;
-  offPolicy: OffPolicyInputs | { reason: string };
-  /** Releases the network fit this assessment made (a no-op otherwise). */
-  dispose(): void;
+  readonly model: CandidateModel;
+  /** How the candidate's J is taken on a resample; null when it has no resamples (a network, or a fit that did not converge). */
+  readonly replicate: Replicator | null;
+  readonly offPolicy: OffPolicyInputs | { reason: string };
 }
 
-export interface SharedInputs {
-  project: ProjectDocument;
-  data: TransitionSet;
-  index: EpisodeIndex;
-  startStates: Float64Array;
-  startsFollowEpisodes: boolean;
-  /** Episode of each start state when some episode has none (TransitionSet.startEpisode). */
-  startEpisode?: Int32Array;
-  behaviour: GaussianPolicy | null;
-  behaviourReason: string;
+/** What every candidate's assessment shares: the run's plan and the fitted present-controller model. */
+export interface AssessmentContext {
+  readonly plan: EvaluationPlan;
+  /** The present controller as a policy: the linear-Gaussian model fitted to the logged actions (behaviourPolicy.ts). */
+  readonly presentController: GaussianPolicy | null;
+  readonly presentControllerReason: string;
   /** Share of logged actions at a detected actuator limit, per action (behaviourPolicy.ts). */
-  behaviourShareAtLimit: number[];
-  cancel?: CancellationCheck;
-  wasmPath?: string;
+  readonly presentControllerShareAtLimit: number[];
+  readonly cancel?: CancellationCheck;
+  readonly wasmPath?: string;
 }
 
 export class AssessmentError extends Error {
@@ -78,58 +48,56 @@ export class AssessmentError extends Error {
   }
 }
 
-/** fit: the host's own fit of this candidate (network), reused rather than refitted; it stays the host's to dispose. */
-export async function prepareCandidate(shared: SharedInputs, candidate: CandidateSpec, fit?: CandidateFit): Promise<CandidateWork> {
-  const policy = candidatePolicy(candidate, shared.data.stateDim);
-  const quadrature = createActionQuadrature(policy, shared.project.quadratureNodes);
-  if (shared.project.approximator.kind === 'linear') return linearWork(shared, candidate.name, policy, quadrature);
-  const own = fit ? null : await fitCandidate({
-    data: shared.data, policy, approximator: shared.project.approximator, discount: shared.project.discount, quadratureNodes: shared.project.quadratureNodes,
-    seed: shared.project.seed, startStates: shared.startStates, cancel: shared.cancel, wasmPath: shared.wasmPath,
-  });
-  const used = (fit ?? own)!;
+export function candidateWork(context: AssessmentContext, model: CandidateModel): CandidateWork {
+  return { model, replicate: replicator(context.plan, model), offPolicy: offPolicyInputs(context, model) };
+}
+
+/** One candidate's J on a bootstrap resample (reward sense; null when the resample has no solution). */
+export interface Replicator {
+  readonly kind: 'exact' | 'linearised';
+  value(multiplicities: Uint32Array): number | null;
+}
+
+/**
+ * Exact: the resample's statistics reweight the model's per-episode sums and are solved as the
+ * full data was — at its own fixed point when the full-data fit is at its fixed point (O(d³) instead
+ * of hundreds of O(d²) steps), else by the same iteration from the full-data weights.
+ * Linearised: to first order from per-episode influence values (linearisedReplicate.ts).
+ */
+function replicator(plan: EvaluationPlan, model: CandidateModel): Replicator | null {
+  const linear = model.linear;
+  if (!linear) return null;
+  const r = linear.resampling;
+  if (r.kind === 'linearised') return { kind: 'linearised', value: (c) => linearisedReplicate(r.replicates, c) };
+  if (r.kind === 'none') return null;
+  const setup: LinearReplicateSetup = { ...linearSolveSettings(plan, model), sums: r.sums, startFeatures: linear.startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode };
+  const scratch = new Float64Array(r.sums.stride);
+  return { kind: 'exact', value: (c) => linearFqeReplicate(setup, c, scratch).policyValue };
+}
+
+/** How a linear candidate's fit is solved on other statistics (a resample, another discount or features). */
+export function linearSolveSettings(plan: EvaluationPlan, model: CandidateModel): LinearSolveSettings {
+  const linear = model.linear, settings = plan.approximator;
+  if (!linear || settings.kind !== 'linear') throw new AssessmentError(`"${model.name}" has no linear fit to solve again`);
   return {
-    name: candidate.name, policy, quadrature, q: used.q, policyValue: used.policyValue, linear: null,
-    offPolicy: offPolicyInputs(shared, policy, used.q, quadrature), dispose: () => own?.dispose(),
+    ridge: settings.ridge, constantIndex: linear.features.constantIndex, discount: plan.discount,
+    solver: linear.atFixedPoint ? 'fixedPoint' : 'iteration', tolerance: settings.tolerance, maxIterations: settings.maxIterations,
+    initialWeights: linear.weights,
   };
 }
 
-function linearWork(shared: SharedInputs, name: string, policy: GaussianPolicy, quadrature: ActionQuadrature): CandidateWork {
-  const { project, data } = shared, settings = project.approximator;
-  if (settings.kind !== 'linear') throw new AssessmentError('linearWork: expected linear approximator settings');
-  const features = featureMapFor(settings, data);
-  const sums = episodeBellmanSums(data, features, quadrature, shared.cancel, shared.index);
-  const setup: LinearReplicateSetup = {
-    sums, startFeatures: startStateFeatures(features, quadrature, shared.startStates, data.stateDim), startsFollowEpisodes: shared.startsFollowEpisodes, startEpisode: shared.startEpisode,
-    ridge: settings.ridge, constantIndex: features.constantIndex, discount: project.discount, solver: 'iteration',
-    tolerance: settings.tolerance, maxIterations: settings.maxIterations, initialWeights: new Float64Array(features.dim),
-  };
-  const ones = unitMultiplicities(shared.index.episodes);
-  const full = linearFqeReplicate(setup, ones); // the pipeline's own fit: the iteration from zero weights
-  if (full.policyValue === null || full.weights === null) throw new AssessmentError(`the fit of "${name}" has no solution on the full data (${full.status})`);
-  const q = linearActionValue(features, full.weights, data.stateDim, data.actionDim);
-  // Resamples start from the full-data weights. When the full-data iteration converged, its
-  // iterate is the LSTD-Q fixed point up to the tolerance (linearFqe.ts), so each resample is
-  // solved directly at its fixed point (O(d³) instead of hundreds of O(d²) steps).
-  const resampleSetup: LinearReplicateSetup = { ...setup, initialWeights: full.weights, solver: full.status === 'converged' ? 'fixedPoint' : 'iteration' };
-  return {
-    name, policy, quadrature, q, policyValue: full.policyValue,
-    linear: { features, setup: resampleSetup, fullStatistics: resampleBellmanStatistics(sums, ones) },
-    offPolicy: offPolicyInputs(shared, policy, q, quadrature), dispose: () => undefined,
-  };
-}
-
-function offPolicyInputs(shared: SharedInputs, policy: GaussianPolicy, q: ActionValueFunction, quadrature: ActionQuadrature): OffPolicyInputs | { reason: string } {
-  if (!shared.startsFollowEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged episodes’ own starts' };
-  if (!shared.behaviour) return { reason: shared.behaviourReason };
+function offPolicyInputs(context: AssessmentContext, model: CandidateModel): OffPolicyInputs | { reason: string } {
+  const { plan } = context;
+  if (!plan.starts.followEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged episodes’ own starts' };
+  if (!context.presentController) return { reason: context.presentControllerReason };
   let table: ImportanceWeightTable;
   try {
-    table = importanceWeightTable(shared.data, shared.index, policy, shared.behaviour);
+    table = importanceWeightTable(plan.data, plan.episodes, model.policy, context.presentController);
   } catch (error) {
     if (error instanceof ImportanceRatioError) return { reason: error.message };
     throw error;
   }
-  const { data, index } = shared, n = data.count, ds = data.stateDim, m = data.actionDim, p = ds + m;
+  const { data, episodes: index } = plan, n = data.count, ds = data.stateDim, m = data.actionDim, p = ds + m;
   const inputs = new Float64Array(n * p), states = new Float64Array(n * ds);
   for (let r = 0; r < n; r++) {
     const i = index.order[r];
@@ -137,6 +105,6 @@ function offPolicyInputs(shared: SharedInputs, policy: GaussianPolicy, q: Action
     for (let c = 0; c < m; c++) inputs[r * p + ds + c] = data.actions[i * m + c];
   }
   const actionValues = new Float64Array(n);
-  q.evaluate(inputs, n, actionValues);
-  return { table, perDecision: perDecisionData(table, { actionValues, stateValues: stateValues(q, policy, states, n, quadrature) }) };
+  model.fit.q.evaluate(inputs, n, actionValues);
+  return { table, perDecision: perDecisionData(table, { actionValues, stateValues: stateValues(model.fit.q, model.policy, states, n, model.quadrature) }) };
 }

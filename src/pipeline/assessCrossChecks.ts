@@ -59,7 +59,7 @@ function crossCheck(method: CrossCheckMethod, point: number | null, replicates: 
   if (point === null || replicates === null) {
     return { method, label, assumption, estimate: null, difference: null, agreement: 'notApplicable', note: `Not applicable: ${reason ?? 'no estimate on the full data'}.` };
   }
-  const fqe = inputs.work.policyValue;
+  const fqe = inputs.work.model.fit.policyValue;
   const estimate = intervalEstimate(point, replicates, inputs.level, inputs.sign);
   const difference = intervalEstimate(point - fqe, pairedReplicates(replicates, inputs.replicates.fqe), inputs.level, inputs.sign);
   // Without replicates of the main estimate (a network) the check's own standard error stands in for the paired one.

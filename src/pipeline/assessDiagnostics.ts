@@ -9,7 +9,7 @@
  *     the logged controller's own level is shown beside it for scale).
  */
 import { createActionQuadrature } from '../core/actionQuadrature';
-import { meanStartFeatures, policyFeatureMean } from '../core/bootstrap/startFeatures';
+import { meanStartFeatures, policyFeatureMean } from '../core/features/policyFeatures';
 import { distributionShift, nextStateFeatureMean } from '../core/diagnostics/distributionShift';
 import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { effectiveSampleSizeFromLogs } from '../core/diagnostics/effectiveSampleSize';
@@ -17,7 +17,8 @@ import { ridgeGram, ridgeGramFactor } from '../core/fqe/ridgeSystem';
 import type { ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import type { GaussianPolicy } from '../core/policy';
 import type { ActionSupportDiagnostics, AssessmentWarning, CoverageDiagnostics, ImportanceWeightDiagnostics } from './assessment';
-import type { CandidateWork, LinearWork, SharedInputs } from './assessCandidate';
+import type { AssessmentContext, CandidateWork } from './assessCandidate';
+import type { LinearMaterial } from './model/candidateModel';
 
 export const COVERAGE_THRESHOLDS = {
   distributionShift: { caution: 4, serious: 25 },
@@ -31,31 +32,33 @@ export interface BehaviourReference {
   meanOutside: number | null;
 }
 
-export function coverageDiagnostics(work: CandidateWork, shared: SharedInputs, ranges: LoggedActionRanges, behaviour: BehaviourReference): CoverageDiagnostics {
-  const shift = work.linear ? linearShift(work.linear, shared, behaviour.policy) : null;
+export function coverageDiagnostics(work: CandidateWork, context: AssessmentContext, ranges: LoggedActionRanges, behaviour: BehaviourReference): CoverageDiagnostics {
+  const { model } = work, linear = model.linear;
+  const settings = context.plan.approximator;
+  const shift = linear && settings.kind === 'linear' ? linearShift(linear, settings.ridge, context, behaviour.policy) : null;
   return {
     distributionShiftStart: shift?.start ?? null,
     distributionShiftNext: shift?.next ?? null,
     behaviourShiftStart: shift?.behaviourStart ?? null,
     behaviourShiftNext: shift?.behaviourNext ?? null,
-    importanceWeights: 'perDecision' in work.offPolicy ? weightDiagnostics(work.offPolicy.table, shared.project.discount) : null,
-    actionSupport: actionSupport(work.policy, ranges, behaviour.meanOutside),
+    importanceWeights: 'perDecision' in work.offPolicy ? weightDiagnostics(work.offPolicy.table, context.plan.discount) : null,
+    actionSupport: actionSupport(model.policy, ranges, behaviour.meanOutside),
   };
 }
 
 /** νᵀΣ⁻¹ν of the candidate and of the fitted behaviour (ν by its own action quadrature), with the same features and Σ. */
-function linearShift(linear: LinearWork, shared: SharedInputs, behaviour: GaussianPolicy | null) {
-  const { features, setup, fullStatistics: stats } = linear, { data } = shared, d = features.dim;
-  const factor = ridgeGramFactor(ridgeGram(stats, setup.ridge, features.constantIndex), d, setup.ridge);
+function linearShift(linear: LinearMaterial, ridge: number, context: AssessmentContext, behaviour: GaussianPolicy | null) {
+  const { features, statistics: stats } = linear, { data, starts } = context.plan, d = features.dim;
+  const factor = ridgeGramFactor(ridgeGram(stats, ridge, features.constantIndex), d, ridge);
   const next = nextStateFeatureMean(stats, features.constantIndex);
   let behaviourStart: number | null = null, behaviourNext: number | null = null;
   if (behaviour) {
-    const quadrature = createActionQuadrature(behaviour, shared.project.quadratureNodes);
-    behaviourStart = distributionShift(policyFeatureMean(features, quadrature, shared.startStates, data.stateDim), factor, d);
+    const quadrature = createActionQuadrature(behaviour, context.plan.quadratureNodes);
+    behaviourStart = distributionShift(policyFeatureMean(features, quadrature, starts.states, data.stateDim), factor, d);
     behaviourNext = distributionShift(policyFeatureMean(features, quadrature, data.nextStates, data.stateDim, data.terminal), factor, d);
   }
   return {
-    start: distributionShift(meanStartFeatures(setup.startFeatures, d), factor, d), next: next && distributionShift(next, factor, d), behaviourStart, behaviourNext,
+    start: distributionShift(meanStartFeatures(linear.startFeatures, d), factor, d), next: next && distributionShift(next, factor, d), behaviourStart, behaviourNext,
   };
 }
 

@@ -6,14 +6,13 @@
  * §14.1 on paired comparisons from common resamples). Values are in reward terms.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
-import { linearFqeReplicate } from '../core/bootstrap/linearFqeReplicate';
-import { startMultiplicities } from '../core/bootstrap/startFeatures';
-import { throwIfCancelled } from '../core/fqe/cancellation';
+import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
+import { createPacer, throwIfCancelled } from '../core/fqe/cancellation';
 import { fitLinearQuadraticModel, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import { isModelValueFailure } from './assessModelCheck';
-import type { CandidateWork, SharedInputs } from './assessCandidate';
+import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
 
 export type Replicates = (number | null)[];
@@ -26,7 +25,7 @@ export interface CandidateReplicates {
 }
 
 export interface ReplicateSet {
-  behaviour: Replicates;
+  loggedReturn: Replicates;
   candidates: CandidateReplicates[];
 }
 
@@ -35,40 +34,41 @@ export interface ResampleProgress {
   total: number;
 }
 
-export function runResamples(
-  shared: SharedInputs, works: CandidateWork[], perEpisodeReturns: Float64Array, model: { regressions: ModelRegressions; applicable: boolean[] } | null,
+/** Yield to the event loop about this often, so a stop request or a surface query can get through. */
+const PACE_MS = 50;
+
+export async function runResamples(
+  context: AssessmentContext, works: CandidateWork[], perEpisodeReturns: Float64Array, model: { regressions: ModelRegressions; applicable: boolean[] } | null,
   settings: AssessmentSettings, onProgress?: (p: ResampleProgress) => void,
-): ReplicateSet {
-  const e = shared.index.episodes, c = new Uint32Array(e);
-  const scratch = works.map((w) => (w.linear ? new Float64Array(w.linear.setup.sums.stride) : null));
+): Promise<ReplicateSet> {
+  const pace = createPacer(PACE_MS);
+  const e = context.plan.episodes.episodes, c = new Uint32Array(e);
   const out: ReplicateSet = {
-    behaviour: [],
+    loggedReturn: [],
     candidates: works.map((w, j) => ({
       fqe: [], importanceSampling: 'perDecision' in w.offPolicy ? [] : null, doublyRobust: 'perDecision' in w.offPolicy ? [] : null,
       model: model?.applicable[j] ? [] : null,
     })),
   };
   for (let b = 0; b < settings.resamples; b++) {
-    if (b % 25 === 0) {
-      throwIfCancelled(shared.cancel);
-      onProgress?.({ done: b, total: settings.resamples });
-    }
+    await pace();
+    throwIfCancelled(context.cancel);
+    if (b % 25 === 0) onProgress?.({ done: b, total: settings.resamples });
     episodeMultiplicities(e, settings.seed, b, c);
-    out.behaviour.push(weightedMean(perEpisodeReturns, c));
+    out.loggedReturn.push(weightedMean(perEpisodeReturns, c));
     const fitted = model ? resampleModel(model.regressions, c) : null;
-    works.forEach((w, j) => replicateCandidate(shared, w, out.candidates[j], c, scratch[j], fitted));
+    works.forEach((w, j) => replicateCandidate(context, w, out.candidates[j], c, fitted));
   }
   onProgress?.({ done: settings.resamples, total: settings.resamples });
   return out;
 }
 
 function replicateCandidate(
-  shared: SharedInputs, w: CandidateWork, out: CandidateReplicates, c: Uint32Array,
-  scratch: Float64Array | null, fitted: LinearQuadraticModelFit | null,
+  context: AssessmentContext, w: CandidateWork, out: CandidateReplicates, c: Uint32Array, fitted: LinearQuadraticModelFit | null,
 ): void {
-  const discount = shared.project.discount;
-  // A network candidate has no fast replicate: its fqe replicates stay empty (no interval).
-  if (w.linear && scratch) out.fqe.push(linearFqeReplicate(w.linear.setup, c, scratch).policyValue);
+  const { discount, starts } = context.plan;
+  // A candidate without a replicator (a network) has no fqe replicates: no interval.
+  if (w.replicate) out.fqe.push(w.replicate.value(c));
   const offPolicy = w.offPolicy;
   if ('perDecision' in offPolicy) {
     const estimates = guarded(() => perDecisionEstimates(offPolicy.perDecision, discount, c));
@@ -76,7 +76,7 @@ function replicateCandidate(
     out.doublyRobust!.push(estimates && estimates.doublyRobust);
   }
   if (out.model) {
-    out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.policy, discount, shared.startStates, shared.startsFollowEpisodes ? startMultiplicities(c, shared.startEpisode) : undefined)) : null);
+    out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.model.policy, discount, starts.states, starts.followEpisodes ? startMultiplicities(c, starts.episode) : undefined)) : null);
   }
 }
 

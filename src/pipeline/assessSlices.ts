@@ -9,7 +9,7 @@ import { actionStd, policyMean } from '../core/policy';
 import type { TransitionSet } from '../core/transitions';
 import { actionValueSlice } from '../core/value';
 import type { ActionSlice } from './assessment';
-import type { CandidateWork } from './assessCandidate';
+import type { CandidateModel } from './model/candidateModel';
 
 const SLICE_POINTS = 61;
 const PERCENTILES = [0.1, 0.5, 0.9];
@@ -28,20 +28,20 @@ function sliceStates(data: TransitionSet): { states: Float64Array; labels: strin
   return { states, labels };
 }
 
-export function actionSlices(work: CandidateWork, data: TransitionSet, sign: number): ActionSlice[] {
+export function actionSlices(model: CandidateModel, data: TransitionSet, sign: number): ActionSlice[] {
   const { states, labels } = sliceStates(data), ds = data.stateDim, m = data.actionDim;
   const ranges = loggedActionRanges(data, DEFAULT_ACTION_SUPPORT, states);
   const logged = loggedExtent(data);
   const mean = new Float64Array(m), slices: ActionSlice[] = [];
   for (let r = 0; r < labels.length; r++) {
     const state = states.subarray(r * ds, (r + 1) * ds);
-    policyMean(work.policy, state, mean);
+    policyMean(model.policy, state, mean);
     for (let j = 0; j < m; j++) {
       // The logged range, widened to the candidate's bulk (μ ± 2.5σ) but not past its actuator limits.
-      const std = actionStd(work.policy, j), limits = work.policy.bounds;
+      const std = actionStd(model.policy, j), limits = model.policy.bounds;
       const lo = Math.max(Math.min(logged.lo[j], mean[j] - 2.5 * std), limits ? limits.lo[j] : -Infinity);
       const hi = Math.min(Math.max(logged.hi[j], mean[j] + 2.5 * std), limits ? limits.hi[j] : Infinity);
-      const slice = actionValueSlice(work.q, state, j, [lo, hi], SLICE_POINTS, mean);
+      const slice = actionValueSlice(model.fit.q, state, j, [lo, hi], SLICE_POINTS, mean);
       slices.push({
         label: labels[r], state: Array.from(state), actionIndex: j, actions: Array.from(slice.actions),
         values: Array.from(slice.values, (v) => sign * v), candidateMean: Math.min(hi, Math.max(lo, mean[j])), candidateStd: std,

@@ -3,7 +3,8 @@
  * logged behaviour's own return, plus the settings used so a result can be reproduced. Plain data
  * (numbers, arrays, typed arrays) so it can cross a worker boundary as transferables.
  */
-export type FitStatus = 'converged' | 'maxIterations' | 'diverged';
+export type { FitStatus } from '../core/fqe/fitStatus';
+import type { FitStatus } from '../core/fqe/fitStatus';
 
 export interface FitIteration {
   iteration: number; // 1-based
@@ -53,7 +54,7 @@ export interface PolicyEstimate {
   backend: string;
 }
 
-export interface BehaviourEstimate {
+export interface LoggedReturnEstimate {
   /** Mean discounted return of the logged episodes. */
   value: number;
   standardError: number;
@@ -76,7 +77,7 @@ export interface Evaluation {
   /** ISO 8601 time the evaluation finished. */
   evaluatedAt: string;
   policies: PolicyEstimate[];
-  behaviour: BehaviourEstimate;
+  behaviour: LoggedReturnEstimate;
   settings: EvaluationSettings;
   /** Sense of the numbers: rewards (higher is better) or costs turned into rewards by sign. */
   valueSense: 'reward' | 'cost';

@@ -1,139 +1,88 @@
 /**
- * The one evaluation pipeline: a project document and its transitions in, an Evaluation out.
- * The CLI, the app's worker and the tests all call this function; nothing here knows its host.
- *
- * Per candidate: build the Gaussian policy, fit Q^π (linear features or a network), take
- * J(π) = mean of V^π over the start states, and V^π on a grid; then the logged behaviour's own
- * discounted return. Numbers leave in the project's sense (a cost stays a cost).
+ * The evaluation: per candidate its J(π) = mean of V^π over the start states, the fit behind it and
+ * V^π on the surface grid, read from the run's models (projectRun.ts); and the logged discounted
+ * return. Numbers leave in the project's sense (a cost stays a cost). `evaluateProject` runs a
+ * project start to finish for hosts that need nothing else; hosts that also assess keep the run.
  */
-import { createActionQuadrature } from '../core/actionQuadrature';
-import { FqeCancelledError } from '../core/fqe/fqeErrors';
-import type { CancellationCheck } from '../core/fqe/cancellation';
-import { loggedDiscountedReturn } from '../core/loggedReturn';
-import { failure, success, type Problem, type Result } from '../core/result';
+import { success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import { valueSurface } from '../core/value';
-import type { CandidateSpec, ProjectDocument } from '../project/schema';
+import type { ProjectDocument } from '../project/schema';
 import { CAUTIONS } from './cautions';
-import type { CandidateFit } from './candidateFit';
-import { candidatePolicy } from './candidatePolicy';
-import { describeApproximator } from './featureMapFor';
-import { fitCandidate } from './fitCandidate';
-import type { Evaluation, FitIteration, PolicyEstimate, ValueSurface } from './estimates';
-import { isEngineError } from './engineErrors';
-import { surfaceGridFor, surfaceVisits } from './surfaceGrid';
-import type { GaussianPolicy } from '../core/policy';
+import type { Evaluation, PolicyEstimate, ValueSurface } from './estimates';
+import type { CandidateModel } from './model/candidateModel';
+import { describeApproximator } from './plan/featureMapFor';
+import type { EvaluationPlan } from './plan/evaluationPlan';
+import { surfaceVisits } from './plan/surfaceGrid';
+import { startRun, type ProjectRun, type RunHooks } from './projectRun';
 
-export interface EvaluationProgress {
-  candidate: string;
-  candidateIndex: number; // 0-based
-  candidateCount: number;
-  iteration: FitIteration | null;
-}
+export type { EvaluationProgress } from './projectRun';
 
-export interface EvaluateOptions {
+export interface EvaluateOptions extends RunHooks {
   project: ProjectDocument;
   dataset: TransitionSet;
   /** Warnings from opening the project (changed data file, excluded rows) to carry into the result. */
   warnings?: string[];
-  onProgress?: (progress: EvaluationProgress) => void;
-  cancel?: CancellationCheck;
   /** Clock for the evaluation time stamp (tests pass a fixed one). */
   now?: () => Date;
-  /**
-   * Take ownership of each candidate's fitted Q (the app's worker keeps them to redraw surfaces
-   * and slices); the caller must dispose them. Without it the pipeline disposes every fit.
-   */
-  retainFit?: (candidateIndex: number, fit: CandidateFit, policy: GaussianPolicy) => void;
-  /** Where TensorFlow.js's wasm backend finds its .wasm files, for hosts that must say (the CLI). */
-  wasmPath?: string;
+  /** Take over the run (its models) instead of releasing it: the host must dispose it. */
+  keepRun?: (run: ProjectRun) => void;
 }
 
 export async function evaluateProject(options: EvaluateOptions): Promise<Result<Evaluation>> {
-  const { project, dataset } = options;
-  const starts = startStatesFor(project, dataset);
-  if (!starts.ok) return starts;
-  const sign = project.columns.reward.sense === 'cost' ? -1 : 1;
-  const policies: PolicyEstimate[] = [];
-  const problems: Problem[] = [];
-  const warnings = [...(options.warnings ?? [])];
-  for (const [index, candidate] of project.candidates.entries()) {
-    try {
-      const estimate = await estimateCandidate(options, candidate, index, starts.value, sign);
-      policies.push(estimate.estimate);
-      warnings.push(...estimate.warnings.map((w) => `${candidate.name}: ${w}`));
-    } catch (e) {
-      if (e instanceof FqeCancelledError) return failure({ where: 'evaluation', message: 'cancelled before it finished; no results were kept' });
-      if (!isEngineError(e)) throw e;
-      problems.push({ where: `candidates[${index}] "${candidate.name}"`, message: (e as Error).message });
-    }
-  }
-  if (problems.length > 0) return failure(...problems);
-  const behaviour = loggedDiscountedReturn(dataset, project.discount);
-  return success({
-    project: project.name,
-    evaluatedAt: (options.now ?? (() => new Date()))().toISOString(),
-    policies,
-    behaviour: { value: sign * behaviour.value, standardError: behaviour.standardError, episodes: behaviour.episodes, largestTruncationWeight: behaviour.largestTruncationWeight },
-    settings: {
-      discount: project.discount, approximator: describeApproximator(project.approximator), quadratureNodes: project.quadratureNodes,
-      seed: project.seed, transitions: dataset.count, episodes: dataset.episodeCount, startStates: starts.value.length / dataset.stateDim,
-    },
-    valueSense: project.columns.reward.sense,
-    warnings,
-    cautions: CAUTIONS,
-  });
-}
-
-async function estimateCandidate(
-  options: EvaluateOptions, candidate: CandidateSpec, index: number, startStates: Float64Array, sign: number,
-): Promise<{ estimate: PolicyEstimate; warnings: string[] }> {
-  const { project, dataset } = options;
-  const policy = candidatePolicy(candidate, dataset.stateDim);
-  const report = (iteration: FitIteration | null) => options.onProgress?.({ candidate: candidate.name, candidateIndex: index, candidateCount: project.candidates.length, iteration });
-  report(null);
-  const fit: CandidateFit = await fitCandidate({
-    data: dataset, policy, approximator: project.approximator, discount: project.discount, quadratureNodes: project.quadratureNodes,
-    seed: project.seed, startStates, onIteration: report, cancel: options.cancel, wasmPath: options.wasmPath,
-  });
-  let retained = false;
+  const started = await startRun(options.project, options.dataset, options);
+  if (!started.ok) return started;
+  const run = started.value;
   try {
-    const grid = surfaceGridFor(project, dataset);
-    let surface: ValueSurface | null = null;
-    if (grid) {
-      const values = valueSurface(fit.q, policy, createActionQuadrature(policy, project.quadratureNodes), grid);
-      surface = {
-        xState: grid.xState, yState: grid.yState, x: values.x, y: values.y, values: values.values.map((v) => sign * v),
-        heldState: Array.from(grid.heldState), visits: surfaceVisits(dataset, grid),
-      };
-    }
-    const estimate: PolicyEstimate = {
-      name: candidate.name,
-      policyValue: sign * fit.policyValue,
-      standardError: fit.standardError ?? 0,
-      fixedPointValue: fit.fixedPointValue === null ? null : sign * fit.fixedPointValue,
-      status: fit.status,
-      message: fit.message,
-      iterations: fit.history.length,
-      history: fit.history.map((h) => ({ ...h, policyValue: h.policyValue === null ? null : sign * h.policyValue })),
-      surface,
-      featureCount: fit.featureCount,
-      backend: fit.backend,
-    };
-    if (options.retainFit) {
-      options.retainFit(index, fit, policy);
-      retained = true;
-    }
-    return { estimate, warnings: fit.warnings };
+    const evaluation = evaluationOf(run, [...(options.warnings ?? []), ...started.warnings.map((w) => `${w.where}: ${w.message}`)], options.now);
+    if (options.keepRun) options.keepRun(run);
+    return success(evaluation);
   } finally {
-    if (!retained) fit.dispose();
+    if (!options.keepRun) run.dispose();
   }
 }
 
-function startStatesFor(project: ProjectDocument, dataset: TransitionSet): Result<Float64Array> {
-  if (project.startStates.kind === 'episodeStarts') {
-    if (dataset.startStates.length === 0) return failure({ where: 'startStates', message: 'no episode of the data keeps its first row (each was excluded), so there are no start states; fix those rows or give start states in the project' });
-    return success(dataset.startStates);
-  }
-  return success(Float64Array.from(project.startStates.states.flat()));
+export function evaluationOf(run: ProjectRun, warnings: string[] = [], now: () => Date = () => new Date()): Evaluation {
+  const { plan } = run, { project, data } = plan;
+  const logged = plan.loggedReturn;
+  return {
+    project: project.name,
+    evaluatedAt: now().toISOString(),
+    policies: run.models.map((m) => policyEstimate(plan, m)),
+    behaviour: { value: plan.sign * logged.value, standardError: logged.standardError, episodes: logged.episodes, largestTruncationWeight: logged.largestTruncationWeight },
+    settings: {
+      discount: plan.discount, approximator: describeApproximator(plan.approximator), quadratureNodes: plan.quadratureNodes,
+      seed: plan.seed, transitions: data.count, episodes: data.episodeCount, startStates: plan.starts.count,
+    },
+    valueSense: plan.sense,
+    warnings: [...warnings, ...run.models.flatMap((m) => m.fit.warnings.map((w) => `${m.name}: ${w}`))],
+    cautions: CAUTIONS,
+  };
+}
+
+function policyEstimate(plan: EvaluationPlan, model: CandidateModel): PolicyEstimate {
+  const { fit } = model, sign = plan.sign;
+  return {
+    name: model.name,
+    policyValue: sign * fit.policyValue,
+    standardError: fit.standardError ?? 0,
+    fixedPointValue: fit.fixedPointValue === null ? null : sign * fit.fixedPointValue,
+    status: fit.status,
+    message: fit.message,
+    iterations: fit.history.length,
+    history: fit.history.map((h) => ({ ...h, policyValue: h.policyValue === null ? null : sign * h.policyValue })),
+    surface: surfaceOf(plan, model),
+    featureCount: fit.featureCount,
+    backend: fit.backend,
+  };
+}
+
+function surfaceOf(plan: EvaluationPlan, model: CandidateModel): ValueSurface | null {
+  const grid = plan.surface;
+  if (!grid) return null;
+  const values = valueSurface(model.fit.q, model.policy, model.quadrature, grid);
+  return {
+    xState: grid.xState, yState: grid.yState, x: values.x, y: values.y, values: values.values.map((v) => plan.sign * v),
+    heldState: Array.from(grid.heldState), visits: surfaceVisits(plan.data, grid),
+  };
 }

@@ -6,8 +6,12 @@
  * (see migrations.ts). Field names are ours; the README documents them.
  */
 import { z } from 'zod';
-import { MAX_EXPRESSION_LENGTH } from '../core/expressionLimits';
 import { strictObject } from './strictObject';
+import {
+  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
+  MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_STATE_COLUMNS, POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE, RIDGE, SEED,
+  SURFACE_RESOLUTION, TOLERANCE,
+} from '../core/limits';
 
 export const PROJECT_FORMAT = 'setpoint-critic-project';
 export const PROJECT_VERSION = 1;
@@ -61,8 +65,8 @@ export const dataSourceSchema = strictObject({
 });
 
 export const columnRolesSchema = strictObject({
-  states: z.array(signalSchema).min(1, 'expected at least one state column').max(10),
-  actions: z.array(signalSchema).min(1, 'expected at least one action column').max(3, 'at most 3 action columns are supported'),
+  states: z.array(signalSchema).min(1, 'expected at least one state column').max(MAX_STATE_COLUMNS, `at most ${MAX_STATE_COLUMNS} state columns are supported`),
+  actions: z.array(signalSchema).min(1, 'expected at least one action column').max(MAX_ACTION_COLUMNS, `at most ${MAX_ACTION_COLUMNS} action columns are supported`),
   reward: rewardSchema,
   nextState: nextStateSchema.default({ kind: 'nextRow' }),
   episode: episodeSchema.default({ kind: 'single' }),
@@ -91,10 +95,10 @@ export const candidateSchema = strictObject({
 });
 
 export const featureSchema = z.discriminatedUnion('kind', [
-  strictObject({ kind: z.literal('polynomial'), degree: z.number().int().min(1).max(6) }),
+  strictObject({ kind: z.literal('polynomial'), degree: z.number().int().min(POLYNOMIAL_DEGREE_RANGE.min).max(POLYNOMIAL_DEGREE_RANGE.max) }),
   strictObject({
     kind: z.literal('radialBasis'),
-    centresPerInput: z.number().int().min(2).max(12),
+    centresPerInput: z.number().int().min(RADIAL_CENTRES_RANGE.min).max(RADIAL_CENTRES_RANGE.max),
     /** Width of each basis function as a multiple of the centre spacing. */
     widthScale: finite.positive().default(1),
   }),
@@ -105,9 +109,9 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
     kind: z.literal('linear'),
     features: featureSchema,
     /** Ridge penalty per sample on the averaged normal equations. */
-    ridge: finite.nonnegative().default(1e-6),
-    tolerance: finite.positive().default(1e-10),
-    maxIterations: z.number().int().min(1).max(1_000_000).default(5000),
+    ridge: finite.nonnegative().max(RIDGE.max, `expected a ridge of at most ${RIDGE.max}; larger values shrink every weight to zero`).default(RIDGE.default),
+    tolerance: finite.min(TOLERANCE.min, `expected a tolerance of at least ${TOLERANCE.min} (round-off would stop a smaller one from ever being met)`).max(TOLERANCE.max).default(TOLERANCE.default),
+    maxIterations: z.number().int().min(MAX_ITERATIONS.min).max(MAX_ITERATIONS.max).default(MAX_ITERATIONS.default),
   }),
   strictObject({
     kind: z.literal('network'),
@@ -142,15 +146,15 @@ export const startStatesSchema = z.discriminatedUnion('kind', [
 export const surfaceSchema = strictObject({
   xState: columnName,
   yState: columnName,
-  resolution: z.number().int().min(2).max(400).default(60),
+  resolution: z.number().int().min(SURFACE_RESOLUTION.min).max(SURFACE_RESOLUTION.max).default(SURFACE_RESOLUTION.default),
 });
 
 /** Bootstrap settings of the assessment (src/pipeline/assessSettings.ts reads them; CLI flags override). */
 export const bootstrapSchema = strictObject({
   /** Episode resamples; 1000 keeps the Monte Carlo error of a 90 % percentile end small (Efron & Tibshirani 1993, §19.3). */
-  resamples: z.number().int().min(20).max(100_000).default(1000),
+  resamples: z.number().int().min(BOOTSTRAP_RESAMPLES.min).max(BOOTSTRAP_RESAMPLES.max).default(BOOTSTRAP_RESAMPLES.default),
   /** Confidence level of the intervals. */
-  level: finite.min(0.5, 'expected a confidence level of at least 0.5').lt(1, 'expected a confidence level below 1').default(0.9),
+  level: finite.min(CONFIDENCE_LEVEL.min, `expected a confidence level of at least ${CONFIDENCE_LEVEL.min}`).lt(CONFIDENCE_LEVEL.below, `expected a confidence level below ${CONFIDENCE_LEVEL.below}`).default(CONFIDENCE_LEVEL.default),
 });
 
 export const projectSchema = strictObject({
@@ -160,11 +164,12 @@ export const projectSchema = strictObject({
   description: z.string().default(''),
   data: dataSourceSchema,
   columns: columnRolesSchema,
-  discount: finite.gt(0, 'expected a discount factor above 0').lt(1, 'expected a discount factor below 1'),
-  candidates: z.array(candidateSchema).min(1, 'expected at least one candidate policy'),
+  discount: finite.gt(DISCOUNT_RANGE.above, `expected a discount factor above ${DISCOUNT_RANGE.above}`).lt(DISCOUNT_RANGE.below, `expected a discount factor below ${DISCOUNT_RANGE.below}`),
+  candidates: z.array(candidateSchema).min(1, 'expected at least one candidate policy').max(MAX_CANDIDATES, `at most ${MAX_CANDIDATES} candidates per project`),
   approximator: approximatorSchema,
-  quadratureNodes: z.number().int().min(1).max(64).default(10),
-  seed: z.number().int().min(0).max(2 ** 32 - 1).default(1),
+  /** Per action dimension; with actuator limits the plan allows at most MAX_BOUNDED_NORMAL_NODES (src/core/limits.ts). */
+  quadratureNodes: z.number().int().min(1).max(MAX_GAUSS_HERMITE_NODES).default(DEFAULT_QUADRATURE_NODES),
+  seed: z.number().int().min(SEED.min).max(SEED.max).default(SEED.default),
   startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
   surface: surfaceSchema.optional(),
   bootstrap: bootstrapSchema.optional(),

@@ -12,7 +12,7 @@ import type { DatasetSummary, ExcludedRow } from '../data/importDataset';
 import type { Assessment } from '../pipeline/assessment';
 import type { AssessmentProgress } from '../pipeline/assessProject';
 import type { Evaluation, ValueSurface } from '../pipeline/estimates';
-import type { EvaluationProgress } from '../pipeline/evaluateProject';
+import type { EvaluationProgress } from '../pipeline/projectRun';
 import type { CsvSettings, ProjectDocument } from '../project/schema';
 
 /** What the first lines of a data file look like, before any column has a role. */
@@ -115,11 +115,12 @@ export interface WorkerCalls {
   slice: { args: { query: SliceQuery }; value: ActionSliceReply };
   /**
    * Intervals, cross-checks, diagnostics, sensitivity and comparison for the project last evaluated,
-   * with its `bootstrap` settings; reuses that run's retained fits (a network's) when the project
-   * matches. With `data`, the worker first takes these bytes as its data file (a worker of its own
-   * for the assessment, so the evaluation worker stays free for surfaces and slices).
+   * with its `bootstrap` settings: extends that run's models (it fails when the project no longer
+   * matches the last run). Surface and slice requests are answered between its resamples.
    */
-  assess: { args: { project: ProjectDocument; data?: { bytes: Uint8Array; fileName: string } }; value: Assessment };
+  assess: { args: { project: ProjectDocument }; value: Assessment };
+  /** Ask the assessment in progress to stop at its next resample; the run's models are kept. */
+  stopAssessment: { args: Record<string, never>; value: null };
 }
 
 export type WorkerCall = keyof WorkerCalls;

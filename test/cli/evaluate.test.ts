@@ -75,6 +75,22 @@ describe('evaluate command', () => {
     expect(missing.stderr).toMatch(/level_uper_m/);
     expect(missing.stderr).toMatch(/level_upper_m/); // the closest header is suggested
   });
+
+  it('refuses settings the schema accepts but the engine cannot run with exit 1 naming the field, never 70', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'spc-cli-'));
+    const sample = JSON.parse(await readFile(join(root, 'sample-projects', samples[0]), 'utf8'));
+    await copyFile(join(root, 'sample-projects', 'tank-levels', sample.data.path), join(dir, sample.data.path));
+    // With clipped limits the bounded-normal rule allows 32 nodes per action (src/core/limits.ts).
+    const clipped = sample.candidates.map((c: Record<string, unknown>) => ({ ...c, bounds: { lo: [0], hi: [100], mode: 'clip' } }));
+    await writeFile(join(dir, 'nodes.spcritic'), JSON.stringify({ ...sample, candidates: clipped, quadratureNodes: 40 }));
+    const nodes = await run(['evaluate', join(dir, 'nodes.spcritic')]);
+    expect(nodes.code).toBe(1);
+    expect(nodes.stderr).toMatch(/quadratureNodes .*at most 32/);
+    await writeFile(join(dir, 'horizon.spcritic'), JSON.stringify({ ...sample, discount: 0.999999 }));
+    const horizon = await run(['evaluate', join(dir, 'horizon.spcritic')]);
+    expect(horizon.code).toBe(1);
+    expect(horizon.stderr).toMatch(/^discount: .*more than the .* transitions the logs hold/m);
+  });
 });
 
 describe('evaluate command on a historian-style export', () => {

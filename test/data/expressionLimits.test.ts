@@ -5,7 +5,7 @@
  * 00–23, minutes 00–59) are no timestamps.
  */
 import { describe, expect, it } from 'vitest';
-import { MAX_EXPRESSION_DEPTH, MAX_EXPRESSION_LENGTH, MAX_EXPRESSION_OPERATIONS } from '../../src/core/expressionLimits';
+import { MAX_EXPRESSION_DEPTH, MAX_EXPRESSION_LENGTH, MAX_EXPRESSION_OPERATIONS } from '../../src/core/limits';
 import { evaluateExpression } from '../../src/data/expressionEvaluation';
 import { ExpressionError } from '../../src/data/expressionError';
 import { parseExpression } from '../../src/data/expressionSyntax';

@@ -10,9 +10,9 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { closedFormPolicyCost, lqClosedForm } from '../../src/core/lq';
 import { createGaussianPolicy } from '../../src/core/policy';
 import type { Assessment } from '../../src/pipeline/assessment';
-import { assessProject } from '../../src/pipeline/assessProject';
+import { assessProject, assessRun } from '../../src/pipeline/assessProject';
 import { assessmentSettingsFor } from '../../src/pipeline/assessSettings';
-import type { CandidateFit } from '../../src/pipeline/candidateFit';
+import type { ProjectRun } from '../../src/pipeline/projectRun';
 import { evaluateProject } from '../../src/pipeline/evaluateProject';
 import { openProject, type OpenedProject } from '../../src/pipeline/openProject';
 import { tankDiscount, tankOperatingPoint, tankPlant, tankTunedPolicy } from '../../sample-projects/tank-levels/simulate';
@@ -139,14 +139,15 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
     expect(result.value.warnings.some((w) => w.topic === 'startStates')).toBe(true);
   });
 
-  it('assesses a network approximator without candidate resamples, reusing the host’s fits, and sweeps its width', async () => {
+  it('assesses a network approximator without candidate resamples, extending the run’s models, and sweeps its width', async () => {
     const { project, dataset } = await open('tank-levels', (doc) => {
       doc.approximator = { kind: 'network', hiddenLayers: [6], outerIterations: 2, stepsPerIteration: 10, batchSize: 256, backend: 'cpu', patience: 0 };
     });
-    const fits: CandidateFit[] = [];
-    const evaluation = await evaluateProject({ project, dataset, retainFit: (i, fit) => { fits[i] = fit; } });
+    let run: ProjectRun | null = null;
+    const evaluation = await evaluateProject({ project, dataset, keepRun: (r) => { run = r; } });
     try {
-      const result = await assessProject({ project, dataset, settings: { ...settings, sensitivity: true }, fits });
+      if (!run) throw new Error('no run kept');
+      const result = await assessRun(run, { settings: { ...settings, sensitivity: true } });
       if (!evaluation.ok || !result.ok) throw new Error('pipeline failed');
       const a = result.value;
       a.candidates.forEach((c, i) => {
@@ -159,7 +160,7 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
       expect(a.warnings.some((w) => /network approximator has no interval/.test(w.message))).toBe(true);
       expect(a.sensitivity!.curves.map((c) => [c.parameter, c.settings])).toEqual([['networkWidth', [3, 6, 12]]]);
     } finally {
-      for (const f of fits) f.dispose();
+      (run as ProjectRun | null)?.dispose();
     }
   });
 

@@ -83,12 +83,12 @@ describe('evaluateProject on the tank-levels sample', () => {
     expect(result).toMatchObject({ ok: false, problems: [{ where: 'evaluation', message: expect.stringMatching(/cancelled/) }] });
   });
 
-  it('reports a candidate the engine cannot use with its name', async () => {
+  it('refuses, at the plan, features the transitions cannot determine, naming the field', async () => {
     const { project, dataset } = await openTankProject();
     const broken = { ...project, approximator: { ...project.approximator, features: { kind: 'polynomial' as const, degree: 6 } } };
     const tiny = { ...dataset, count: 20 };
     const result = await evaluateProject({ project: broken, dataset: tiny });
     expect(result.ok).toBe(false);
-    if (!result.ok) expect(result.problems[0]).toMatchObject({ where: 'candidates[0] "Tuned (60, 90 %/m)"', message: expect.stringMatching(/cannot determine 84 features/) });
+    if (!result.ok) expect(result.problems[0]).toMatchObject({ field: ['approximator', 'features'], message: expect.stringMatching(/cannot determine 84 features/) });
   });
 });

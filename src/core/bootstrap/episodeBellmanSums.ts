@@ -14,11 +14,12 @@
  */
 import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
-import { accumulateBellmanStatistics, type BellmanStatistics } from '../fqe/bellmanStatistics';
-import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
+import {
+  accumulateSegmentSums, bellmanSumsStride, statisticsFromSums, type AccumulationHooks, type BellmanStatistics,
+} from '../fqe/bellmanStatistics';
 import type { TransitionSet } from '../transitions';
 import { BootstrapError } from './episodeMultiplicities';
-import { episodeTransitions, indexEpisodes, type EpisodeIndex } from './episodeTransitions';
+import { indexEpisodes, type EpisodeIndex } from './episodeTransitions';
 
 export interface EpisodeBellmanSums {
   readonly episodes: number; // e
@@ -28,41 +29,19 @@ export interface EpisodeBellmanSums {
 }
 
 /** Per-episode storage above this many numbers (2 GiB of doubles / 8) is refused with a message. */
-const MAX_STORED_VALUES = 1 << 28;
+export const MAX_STORED_VALUES = 1 << 28;
 
-function bellmanSumsStride(d: number): number {
-  return 3 * d * d + 2 * d + 2;
-}
-
+/** One pass over the data in episode order (bellmanStatistics.ts), each episode's sums kept apart. */
 export function episodeBellmanSums(
-  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, cancel?: CancellationCheck, index: EpisodeIndex = indexEpisodes(data),
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {}, index: EpisodeIndex = indexEpisodes(data),
 ): EpisodeBellmanSums {
   const e = index.episodes, d = features.dim, stride = bellmanSumsStride(d);
   if (e * stride > MAX_STORED_VALUES) {
     throw new BootstrapError(`the per-episode sums of ${e} episodes × ${d} features would need ${Math.round((e * stride * 8) / 2 ** 20)} MiB; use fewer features or join episodes`);
   }
-  const sums = new Float64Array(e * stride), one = Int32Array.of(0);
-  for (let k = 0; k < e; k++) {
-    throwIfCancelled(cancel);
-    const n = index.offsets[k + 1] - index.offsets[k];
-    if (n === 0) continue; // an episode without transitions adds only its start state
-    one[0] = k;
-    const stats = accumulateBellmanStatistics(episodeTransitions(data, index, one), features, quadrature);
-    writeSums(stats, sums, k * stride);
-  }
+  const sums = new Float64Array(e * stride);
+  accumulateSegmentSums(data, features, quadrature, index, sums, hooks);
   return { episodes: e, dim: d, stride, sums };
-}
-
-/** Averages × n back into sums, in the packed layout. */
-function writeSums(stats: BellmanStatistics, out: Float64Array, offset: number): void {
-  const n = stats.count;
-  let o = offset;
-  for (const part of [stats.gram, stats.crossNext, stats.nextGram, stats.featureReward, stats.nextFeatureReward]) {
-    for (let j = 0; j < part.length; j++) out[o + j] = part[j] * n;
-    o += part.length;
-  }
-  out[o] = stats.rewardSquare * n;
-  out[o + 1] = n;
 }
 
 /**
@@ -81,12 +60,6 @@ export function resampleBellmanStatistics(
     const o = k * stride;
     for (let j = 0; j < stride; j++) scratch[j] += c * sums.sums[o + j];
   }
-  const n = scratch[stride - 1];
-  if (!(n > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
-  const part = (from: number, length: number) => Float64Array.from(scratch.subarray(from, from + length), (v) => v / n);
-  const dd = d * d;
-  return {
-    count: n, dim: d, gram: part(0, dd), crossNext: part(dd, dd), nextGram: part(2 * dd, dd),
-    featureReward: part(3 * dd, d), nextFeatureReward: part(3 * dd + d, d), rewardSquare: scratch[stride - 2] / n,
-  };
+  if (!(scratch[stride - 1] > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
+  return statisticsFromSums(scratch, d);
 }

@@ -17,7 +17,8 @@ import { fixedPointWeights, iterationMatrix, ridgeGram, ridgeGramFactor } from '
 import { spectralRadiusBound } from '../fqe/spectralRadiusBound';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { resampleBellmanStatistics, type EpisodeBellmanSums } from './episodeBellmanSums';
-import { holdsStartState, meanStartFeatures, startMultiplicities } from './startFeatures';
+import { meanStartFeatures } from '../features/policyFeatures';
+import { holdsStartState, startMultiplicities } from './startMultiplicities';
 
 /**
  * iteration: the iterate at the tolerance, or — as the pipeline reports it — the fixed point when
@@ -25,14 +26,8 @@ import { holdsStartState, meanStartFeatures, startMultiplicities } from './start
  */
 export type ReplicateSolver = 'iteration' | 'fixedPoint';
 
-export interface LinearReplicateSetup {
-  readonly sums: EpisodeBellmanSums;
-  /** ξ(s0) per start state, count×d (startFeatures.ts). */
-  readonly startFeatures: Float64Array;
-  /** True when the start states are episodes' first states, so they are resampled with their episodes. */
-  readonly startsFollowEpisodes: boolean;
-  /** Episode of each start state (TransitionSet.startEpisode); absent when start state k is episode k's. */
-  readonly startEpisode?: Int32Array;
+/** How the linear fit is solved on any statistics. */
+export interface LinearSolveSettings {
   readonly ridge: number;
   readonly constantIndex: number | null;
   readonly discount: number;
@@ -40,6 +35,16 @@ export interface LinearReplicateSetup {
   readonly tolerance: number;
   readonly maxIterations: number;
   readonly initialWeights: Float64Array; // d
+}
+
+export interface LinearReplicateSetup extends LinearSolveSettings {
+  readonly sums: EpisodeBellmanSums;
+  /** ξ(s0) per start state, count×d (features/policyFeatures.ts). */
+  readonly startFeatures: Float64Array;
+  /** True when the start states are episodes' first states, so they are resampled with their episodes. */
+  readonly startsFollowEpisodes: boolean;
+  /** Episode of each start state (TransitionSet.startEpisode); absent when start state k is episode k's. */
+  readonly startEpisode?: Int32Array;
 }
 
 /** singular: no solution; noStartStates: the resample holds no episode with a start state. */
@@ -61,7 +66,7 @@ export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: 
 }
 
 /** The solve on given statistics (also used for the full data and for a discount sweep). */
-export function solveReplicate(setup: Omit<LinearReplicateSetup, 'sums' | 'startFeatures' | 'startsFollowEpisodes' | 'startEpisode'>, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
+export function solveReplicate(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
   const d = stats.dim, a = ridgeGram(stats, setup.ridge, setup.constantIndex);
   let factor: Float64Array;
   try {

@@ -7,41 +7,10 @@ import { FeatureSpecError } from './featureSpecError';
 import { monomialBasis } from './monomials';
 import { createPolynomialFeatures } from './polynomialFeatures';
 import { createRadialBasisFeatures } from './radialBasisFeatures';
-import type { StandardiserSpec } from './standardiser';
+import type { FeatureMap } from './featureTypes';
+import type { FeatureMapSpec } from './featureTypes';
 
-export interface PolynomialFeatureSpec {
-  kind: 'polynomial';
-  /** Total degree k ≥ 0. */
-  degree: number;
-  standardiser: StandardiserSpec;
-}
-
-export interface RadialBasisFeatureSpec {
-  kind: 'radialBasis';
-  /** Centres in standardised coordinates, one array of p numbers each. */
-  centres: number[][];
-  /** Gaussian width in standard deviations of the inputs. */
-  width: number;
-  /** Also include the standardised inputs themselves as features. */
-  linearTerms: boolean;
-  standardiser: StandardiserSpec;
-}
-
-export type FeatureMapSpec = PolynomialFeatureSpec | RadialBasisFeatureSpec;
-
-export interface FeatureMap {
-  readonly dim: number; // d
-  /** p: the input row length, stateDim + actionDim. */
-  readonly inputDim: number;
-  /** Index of the feature that is identically 1, or null when there is none (it is left unpenalised by ridge fits). */
-  readonly constantIndex: number | null;
-  /**
-   * Write φ(input[inputOffset .. inputOffset+p)) into out[outOffset .. outOffset+d).
-   * Allocates nothing, so it can run once per quadrature node per transition.
-   */
-  evaluate(input: ArrayLike<number>, inputOffset: number, out: Float64Array, outOffset: number): void;
-  toSpec(): FeatureMapSpec;
-}
+export type { FeatureMap, FeatureMapSpec, PolynomialFeatureSpec, RadialBasisFeatureSpec } from './featureTypes';
 
 /** Build a feature map from its specification; messages name the field at fault. */
 export function createFeatureMap(spec: FeatureMapSpec): FeatureMap {

@@ -2,10 +2,10 @@
  * Full polynomial features of total degree ≤ k in the standardised inputs z = (x − mean)/scale,
  * all cross terms and the constant included: φ(x) = (z^e : |e| ≤ k), d = C(n+k, k).
  */
-import type { FeatureMap, PolynomialFeatureSpec } from './featureMap';
+import type { FeatureMap, PolynomialFeatureSpec } from './featureTypes';
 import { FeatureSpecError } from './featureSpecError';
 import { monomialBasis, monomialCount } from './monomials';
-import { MAX_FEATURES } from './featureLimit';
+import { MAX_FEATURES } from '../limits';
 import { readStandardiser, type StandardiserSpec } from './standardiser';
 
 export function polynomialFeatureSpec(standardiser: StandardiserSpec, degree: number): PolynomialFeatureSpec {

@@ -4,9 +4,9 @@
  * with centres c_j and width w both in standardised units (Bishop, "Pattern Recognition and
  * Machine Learning", 2006, §3.1, eq. 3.4).
  */
-import type { FeatureMap, RadialBasisFeatureSpec } from './featureMap';
+import type { FeatureMap, RadialBasisFeatureSpec } from './featureTypes';
 import { FeatureSpecError } from './featureSpecError';
-import { MAX_FEATURES } from './featureLimit';
+import { MAX_FEATURES } from '../limits';
 import { readStandardiser, type StandardiserSpec } from './standardiser';
 
 export interface RadialBasisGridOptions {

@@ -16,6 +16,7 @@ import type { FeatureMap } from '../features/featureMap';
 import type { TransitionSet } from '../transitions';
 import { throwIfCancelled, type CancellationCheck } from './cancellation';
 import { FqeDataError } from './fqeErrors';
+import { createTransitionFeatureReader, type TransitionFeatureReader } from './transitionFeatures';
 
 export interface BellmanStatistics {
   readonly count: number; // n
@@ -41,58 +42,62 @@ export interface AccumulationHooks {
  * 2nd ed., §4.2).
  */
 const BLOCK_VALUES = 1 << 17;
-const ROWS_PER_REPORT = 65536;
+
+/**
+ * Packed sums of one segment of transitions (not yet divided by its count):
+ * [ΦᵀΦ | ΦᵀΨ | ΨᵀΨ | Φᵀr | Ψᵀr | rᵀr | n], length 3d² + 2d + 2. Only the upper triangles of
+ * ΦᵀΦ and ΨᵀΨ are formed; statisticsFromSums mirrors them.
+ */
+export function bellmanSumsStride(d: number): number {
+  return 3 * d * d + 2 * d + 2;
+}
+
+/** Contiguous groups of transitions: segment k is order[offsets[k] .. offsets[k+1]). */
+export interface TransitionSegments {
+  readonly order: Int32Array; // n
+  readonly offsets: Int32Array; // segments + 1
+}
 
 export function accumulateBellmanStatistics(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {},
 ): BellmanStatistics {
   const n = data.count, d = features.dim;
-  const blockRows = Math.max(64, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
-  const total = newSums(d), row = newRowBuffers(data, features, quadrature), block = newBlock(d, blockRows);
-  let nextReport = ROWS_PER_REPORT;
-  for (let start = 0; start < n; start += blockRows) {
-    const size = Math.min(blockRows, n - start);
-    for (let t = 0; t < size; t++) gatherTransition(data, features, quadrature, row, block, start + t, t);
-    addBlock(block, size, total);
-    if (start + size >= nextReport || start + size === n) {
-      nextReport += ROWS_PER_REPORT;
-      throwIfCancelled(hooks.cancel);
-      hooks.onDataPass?.(start + size, n);
-    }
-  }
-  const stats = finish(total, n, d);
-  checkFinite(stats, data, features, quadrature);
+  const whole = { order: Int32Array.from({ length: n }, (_, i) => i), offsets: Int32Array.of(0, n) };
+  const sums = new Float64Array(bellmanSumsStride(d));
+  accumulateSegmentSums(data, features, quadrature, whole, sums, hooks);
+  const stats = statisticsFromSums(sums, d);
+  checkStatisticsFinite(stats, data, features, quadrature);
   return stats;
 }
 
-interface Sums {
-  gram: Float64Array; crossNext: Float64Array; nextGram: Float64Array;
-  featureReward: Float64Array; nextFeatureReward: Float64Array; rewardSquare: number;
-}
-
-function newSums(d: number): Sums {
-  return {
-    gram: new Float64Array(d * d), crossNext: new Float64Array(d * d), nextGram: new Float64Array(d * d),
-    featureReward: new Float64Array(d), nextFeatureReward: new Float64Array(d), rewardSquare: 0,
-  };
-}
-
-interface RowBuffers {
-  input: Float64Array; // [s, a] or [s', a'], length ds+m
-  phi: Float64Array; // φ(s_i, a_i), d
-  psi: Float64Array; // ψ_i, d
-  nodeFeatures: Float64Array; // φ(s'_i, a'_ij), d
-  points: Float64Array; // maxPoints×m
-  weights: Float64Array; // maxPoints
-}
-
-function newRowBuffers(data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature): RowBuffers {
-  const d = features.dim;
-  return {
-    input: new Float64Array(data.stateDim + data.actionDim),
-    phi: new Float64Array(d), psi: new Float64Array(d), nodeFeatures: new Float64Array(d),
-    points: new Float64Array(quadrature.maxPoints * data.actionDim), weights: new Float64Array(quadrature.maxPoints),
-  };
+/**
+ * One pass over the transitions in segment order, adding each segment's packed sums to
+ * out[k·stride …] (out starts at zero). The pipeline keeps one segment per episode, so that a
+ * bootstrap resample's statistics are a weighted sum of them (src/core/bootstrap/
+ * episodeBellmanSums.ts) and the full data's are their plain sum: one pass serves the fit and
+ * every resample.
+ */
+export function accumulateSegmentSums(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, segments: TransitionSegments,
+  out: Float64Array, hooks: AccumulationHooks = {},
+): void {
+  const n = segments.order.length, d = features.dim, stride = bellmanSumsStride(d);
+  const blockRows = Math.max(64, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
+  const reader = createTransitionFeatureReader(data, features, quadrature), block = newBlock(d, blockRows);
+  let done = 0;
+  for (let k = 0; k + 1 < segments.offsets.length; k++) {
+    const end = segments.offsets[k + 1], base = k * stride;
+    for (let start = segments.offsets[k]; start < end; start += blockRows) {
+      const size = Math.min(blockRows, end - start);
+      for (let t = 0; t < size; t++) gatherTransition(reader, data, block, segments.order[start + t], t);
+      addBlock(block, size, out, base);
+      done += size;
+      // After every block (at most about 1.3·10⁵ feature values): hosts throttle what they show.
+      throwIfCancelled(hooks.cancel);
+      hooks.onDataPass?.(done, n);
+    }
+    out[base + stride - 1] += end - segments.offsets[k];
+  }
 }
 
 interface Block {
@@ -107,16 +112,10 @@ function newBlock(d: number, rows: number): Block {
   return { d, rows, phi: new Float64Array(d * rows), psi: new Float64Array(d * rows), reward: new Float64Array(rows) };
 }
 
-/** φ_i and ψ_i of transition i, written to the row buffers (for checks) and to block row t. */
-function gatherTransition(
-  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, row: RowBuffers, block: Block, i: number, t: number,
-): void {
-  const ds = data.stateDim, m = data.actionDim, d = features.dim, rows = block.rows;
-  const { input, phi, psi } = row;
-  for (let c = 0; c < ds; c++) input[c] = data.states[i * ds + c];
-  for (let c = 0; c < m; c++) input[ds + c] = data.actions[i * m + c];
-  features.evaluate(input, 0, phi, 0);
-  expectedNextFeatures(data, features, quadrature, row, i);
+/** φ_i and ψ_i of transition i (read into the reader's buffers) copied to block row t. */
+function gatherTransition(reader: TransitionFeatureReader, data: TransitionSet, block: Block, i: number, t: number): void {
+  const { phi, psi } = reader, d = block.d, rows = block.rows;
+  reader.read(i);
   for (let a = 0; a < d; a++) {
     block.phi[a * rows + t] = phi[a];
     block.psi[a * rows + t] = psi[a];
@@ -124,25 +123,10 @@ function gatherTransition(
   block.reward[t] = data.rewards[i];
 }
 
-/** ψ_i: the policy-averaged feature vector at s'_i, or 0 past a terminal state. */
-function expectedNextFeatures(data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, row: RowBuffers, i: number): void {
-  const ds = data.stateDim, m = data.actionDim, d = features.dim;
-  const { input, psi, nodeFeatures, points, weights } = row;
-  psi.fill(0);
-  if (data.terminal[i] !== 0) return;
-  for (let c = 0; c < ds; c++) input[c] = data.nextStates[i * ds + c];
-  const k = quadrature.at(data.nextStates, i * ds, points, weights);
-  for (let j = 0; j < k; j++) {
-    for (let c = 0; c < m; c++) input[ds + c] = points[j * m + c];
-    features.evaluate(input, 0, nodeFeatures, 0);
-    const w = weights[j];
-    for (let a = 0; a < d; a++) psi[a] += w * nodeFeatures[a];
-  }
-}
-
-/** Add the first `size` rows of the block to the totals; G and H upper triangles only (finish() mirrors). */
-function addBlock(block: Block, size: number, total: Sums): void {
-  const { d, rows, phi, psi, reward } = block;
+/** Add the first `size` rows of the block to the packed sums at out[base …] (upper triangles of G and H). */
+function addBlock(block: Block, size: number, out: Float64Array, base: number): void {
+  const { d, rows, phi, psi, reward } = block, dd = d * d;
+  const g0 = base, m0 = base + dd, h0 = base + 2 * dd, b0 = base + 3 * dd, e0 = b0 + d;
   for (let a = 0; a < d; a++) {
     const oa = a * rows;
     for (let b = 0; b < d; b++) {
@@ -150,44 +134,58 @@ function addBlock(block: Block, size: number, total: Sums): void {
       let g = 0, m = 0, h = 0;
       if (b >= a) for (let t = 0; t < size; t++) { g += phi[oa + t] * phi[ob + t]; h += psi[oa + t] * psi[ob + t]; }
       for (let t = 0; t < size; t++) m += phi[oa + t] * psi[ob + t];
-      total.gram[a * d + b] += g;
-      total.nextGram[a * d + b] += h;
-      total.crossNext[a * d + b] += m;
+      out[g0 + a * d + b] += g;
+      out[h0 + a * d + b] += h;
+      out[m0 + a * d + b] += m;
     }
     let br = 0, er = 0;
     for (let t = 0; t < size; t++) { br += phi[oa + t] * reward[t]; er += psi[oa + t] * reward[t]; }
-    total.featureReward[a] += br;
-    total.nextFeatureReward[a] += er;
+    out[b0 + a] += br;
+    out[e0 + a] += er;
   }
   let rr = 0;
   for (let t = 0; t < size; t++) rr += reward[t] * reward[t];
-  total.rewardSquare += rr;
+  out[e0 + d] += rr;
 }
 
-function finish(s: Sums, n: number, d: number): BellmanStatistics {
-  const scale = 1 / n;
-  for (const key of ['gram', 'crossNext', 'nextGram', 'featureReward', 'nextFeatureReward'] as const) {
-    const a = s[key];
-    for (let k = 0; k < a.length; k++) a[k] *= scale;
-  }
-  for (const sym of [s.gram, s.nextGram]) {
+/**
+ * Averages from packed sums (one segment's, or a weighted total of several): each part divided by
+ * the count, the upper triangles of G and H mirrored.
+ */
+export function statisticsFromSums(sums: Float64Array, d: number): BellmanStatistics {
+  const dd = d * d, n = sums[bellmanSumsStride(d) - 1];
+  const part = (from: number, length: number) => Float64Array.from(sums.subarray(from, from + length), (v) => v / n);
+  const gram = part(0, dd), nextGram = part(2 * dd, dd);
+  for (const sym of [gram, nextGram]) {
     for (let a = 0; a < d; a++) for (let b = 0; b < a; b++) sym[a * d + b] = sym[b * d + a];
   }
-  return { count: n, dim: d, ...s, rewardSquare: s.rewardSquare * scale };
+  return {
+    count: n, dim: d, gram, crossNext: part(dd, dd), nextGram,
+    featureReward: part(3 * dd, d), nextFeatureReward: part(3 * dd + d, d), rewardSquare: sums[3 * dd + 2 * d] / n,
+  };
 }
 
-/** Non-finite sums are traced back to the first transition that produced them, by source line. */
-function checkFinite(stats: BellmanStatistics, data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature): void {
+/** Throws FqeDataError when a sum is not finite, tracing it back to the first transition that produced it, by source line. */
+export function checkStatisticsFinite(stats: BellmanStatistics, data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature): void {
   const ok = (a: Float64Array): boolean => a.every(Number.isFinite);
   const sums = [stats.gram, stats.crossNext, stats.nextGram, stats.featureReward, stats.nextFeatureReward];
   if (sums.every(ok) && Number.isFinite(stats.rewardSquare)) return;
-  const row = newRowBuffers(data, features, quadrature), block = newBlock(features.dim, 1);
+  const reader = createTransitionFeatureReader(data, features, quadrature);
   for (let i = 0; i < data.count; i++) {
-    gatherTransition(data, features, quadrature, row, block, i, 0);
-    const r = data.rewards[i];
-    if (!ok(row.phi) || !ok(row.psi) || !Number.isFinite(r * r)) {
-      throw new FqeDataError(`transition ${i + 1} (line ${data.sourceLine[i]}): its reward or features are not finite numbers (overflow in the features?)`);
+    reader.read(i);
+    const r = data.rewards[i], where = `transition ${i + 1} (line ${data.sourceLine[i]})`;
+    if (!Number.isFinite(r * r)) {
+      throw new FqeDataError(`${where}: the reward ${r} is too large for the fit: its square overflows double precision (above about 1.3e154); rescale the reward or cost (e.g. other units)`);
+    }
+    if (!ok(reader.phi) || !ok(reader.psi) || !Number.isFinite(squares(reader.phi) + squares(reader.psi))) {
+      throw new FqeDataError(`${where}: its features overflow double precision (the state or action lies far outside the logged range the features were scaled to); reduce the polynomial degree or check the data for extreme values`);
     }
   }
-  throw new FqeDataError('the feature sums overflowed; reduce the polynomial degree or check the data for extreme values');
+  throw new FqeDataError('the feature sums overflowed double precision; reduce the polynomial degree or check the data for extreme values');
+}
+
+function squares(v: Float64Array): number {
+  let s = 0;
+  for (let i = 0; i < v.length; i++) s += v[i] * v[i];
+  return s;
 }

@@ -11,3 +11,17 @@ export function throwIfCancelled(check: CancellationCheck | undefined): void {
   const cancelled = typeof check === 'function' ? check() : check.aborted;
   if (cancelled) throw new FqeCancelledError();
 }
+
+/**
+ * A pace() that yields to the event loop once at least intervalMs have passed since the last
+ * yield, so that in a worker a stop message can arrive (and queued requests be answered) while a
+ * long synchronous computation runs in slices. setTimeout exists in Node, workers and pages alike.
+ */
+export function createPacer(intervalMs: number, now: () => number = () => performance.now()): () => Promise<void> {
+  let last = now();
+  return async () => {
+    if (now() - last < intervalMs) return;
+    await new Promise<void>((resolve) => setTimeout(resolve, 0));
+    last = now();
+  };
+}

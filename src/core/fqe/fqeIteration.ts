@@ -15,7 +15,9 @@ import type { BellmanStatistics } from './bellmanStatistics';
 import { bellmanResidual } from './bellmanResidual';
 import { throwIfCancelled, type CancellationCheck } from './cancellation';
 
-export type FqeStatus = 'converged' | 'maxIterations' | 'diverged';
+import type { FqeStatus } from './fitStatus';
+
+export type { FqeStatus } from './fitStatus';
 
 export interface FqeIterationProgress {
   readonly iteration: number; // 1-based

@@ -1,6 +1,31 @@
-/** Validation of the options of linear fitted Q-evaluation; messages name the option and value. */
+/** The input of linear fitted Q-evaluation (linearFqe.ts) and its validation; messages name the option and value. */
+import type { FeatureMap } from '../features/featureMap';
+import type { GaussianPolicy } from '../policy';
+import type { TransitionSet } from '../transitions';
+import type { CancellationCheck } from './cancellation';
+import type { FqeIterationProgress } from './fqeIteration';
 import { FqeOptionsError } from './fqeErrors';
-import type { LinearFqeInput } from './linearFqe';
+
+export interface LinearFqeInput {
+  readonly data: TransitionSet;
+  readonly policy: GaussianPolicy;
+  readonly features: FeatureMap;
+  readonly discount: number; // γ ∈ [0, 1]
+  /** λ ≥ 0 per sample on the averaged normal equations; the constant feature is not penalised (ridgeSystem.ts). */
+  readonly ridge: number;
+  readonly quadratureNodes: number; // Gauss–Hermite nodes per action dimension
+  /** Stop when the relative weight change ‖Δw‖/‖w‖ is at most this. */
+  readonly tolerance: number;
+  readonly maxIterations: number;
+  /** w_0 (d); default 0, which makes w_1 the one-step reward regression. */
+  readonly initialWeights?: ArrayLike<number>;
+  /** e×ds start states for J; default data.startStates. */
+  readonly startStates?: Float64Array;
+  readonly onIteration?: (progress: FqeIterationProgress) => void;
+  readonly onDataPass?: (rowsDone: number, rowsTotal: number) => void;
+  readonly cancel?: CancellationCheck;
+}
+
 
 export function checkFqeInput(input: LinearFqeInput): void {
   const { data, policy, features } = input;

@@ -25,13 +25,14 @@
  * Work per call is O(n·N) with N ≤ 5(n+12) discretisation points plus an n×n QL, all in buffers
  * allocated once by createBoundedNormalQuadrature.
  */
+import { MAX_BOUNDED_NORMAL_NODES } from '../limits';
 import type { BoundMode } from '../policy';
 import { normalCdf, normalIntervalProbability, normalSurvival } from '../normalDistribution';
 import { standardNormalRule } from './gaussHermite';
 import { gaussLegendreRule } from './gaussLegendre';
 import { tridiagonalEigenInPlace, type GaussRule } from './tridiagonalEigen';
 
-export const MAX_BOUNDED_NORMAL_NODES = 32;
+export { MAX_BOUNDED_NORMAL_NODES };
 /** Probability below which a tail, bound mass or clipped interior is ignored. */
 export const NEGLIGIBLE_MASS = 1e-15;
 /** Density cut-off below the interval's peak, as a log ratio: e^{−40} ≈ 4e−18. */

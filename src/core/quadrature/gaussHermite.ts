@@ -13,9 +13,10 @@
  * Rules are built once per n by Golub–Welsch plus Newton polishing (see tridiagonalEigen) and
  * memoised; callers receive fresh copies, so the memo can never be altered from outside.
  */
+import { MAX_GAUSS_HERMITE_NODES } from '../limits';
 import { gaussRuleFromRecurrence, type GaussRule } from './tridiagonalEigen';
 
-export const MAX_GAUSS_HERMITE_NODES = 64;
+export { MAX_GAUSS_HERMITE_NODES };
 
 const physicistsMemo = new Map<number, GaussRule>();
 const standardNormalMemo = new Map<number, GaussRule>();

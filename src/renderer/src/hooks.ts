@@ -3,7 +3,7 @@ import { useMemo } from 'react';
 import type { ProjectDocument } from '../../project/schema';
 import { isDirty, type DocumentState } from './document/documentStore';
 import { projectProblems, type FieldProblem } from './document/projectProblems';
-import { runKey } from './session/runKey';
+import { runKey } from '../../shared/runKey';
 import type { SessionState } from './session/sessionStore';
 import { useStore } from './state/useStore';
 import { useWorkspace } from './WorkspaceContext';

@@ -36,8 +36,7 @@ export function createWorkspace(api: AppApi, client: EvaluationClient = createEv
   const questions = createQuestionStore();
   const data = createDataLoading(api, documents, session, client);
   const files = createProjectCommands({ api, documents, session, questions, data });
-  let assessmentClient: EvaluationClient | null = null;
-  const assessor = createAssessmentRunner(session, { evaluation: client, assessment: () => (assessmentClient ??= createEvaluationClient()) });
+  const assessor = createAssessmentRunner(session, client);
   const runner = createEvaluationRunner(documents, session, client, assessor);
   return {
     api, documents, session, questions, client, data, files, runner, assessor,

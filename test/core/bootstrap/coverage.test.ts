@@ -16,7 +16,7 @@ import { bootstrapInterval } from '../../../src/core/bootstrap/bootstrapInterval
 import { episodeBellmanSums } from '../../../src/core/bootstrap/episodeBellmanSums';
 import { episodeMultiplicities, unitMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicate } from '../../../src/core/bootstrap/linearFqeReplicate';
-import { startStateFeatures } from '../../../src/core/bootstrap/startFeatures';
+import { startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
 import { fitStateActionStandardiser } from '../../../src/core/features/standardiser';

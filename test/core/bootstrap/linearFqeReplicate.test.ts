@@ -13,7 +13,7 @@ import { episodeBellmanSums, resampleBellmanStatistics } from '../../../src/core
 import { episodeMultiplicities, unitMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { indexEpisodes, resampledTransitions } from '../../../src/core/bootstrap/episodeTransitions';
 import { linearFqeReplicate, type LinearReplicateSetup } from '../../../src/core/bootstrap/linearFqeReplicate';
-import { startStateFeatures } from '../../../src/core/bootstrap/startFeatures';
+import { startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
 import { fitStateActionStandardiser } from '../../../src/core/features/standardiser';

@@ -8,7 +8,7 @@ import { Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { simulateTankLevels, tankBehaviourPolicy } from '../../../sample-projects/tank-levels/simulate';
 import { createActionQuadrature } from '../../../src/core/actionQuadrature';
-import { meanStartFeatures, startStateFeatures } from '../../../src/core/bootstrap/startFeatures';
+import { meanStartFeatures, startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { distributionShift, nextStateFeatureMean } from '../../../src/core/diagnostics/distributionShift';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';

@@ -13,7 +13,7 @@ import { createDocumentStore, isDirty } from '../../../src/renderer/src/document
 import { assignRole } from '../../../src/renderer/src/document/columnRoles';
 import { createProjectCommands } from '../../../src/renderer/src/files/projectCommands';
 import { createDataLoading } from '../../../src/renderer/src/session/dataLoading';
-import { importKey } from '../../../src/renderer/src/session/runKey';
+import { importKey } from '../../../src/shared/runKey';
 import { createSessionStore } from '../../../src/renderer/src/session/sessionStore';
 import { createQuestionStore } from '../../../src/renderer/src/state/questionStore';
 import type { EvaluationClient } from '../../../src/renderer/src/worker/evaluationClient';

@@ -13,7 +13,7 @@ function report(k: number, candidateIndex = 0, candidateCount = 1, startMs = 0):
   return {
     candidate: `c${candidateIndex}`, candidateIndex, candidateCount, elapsedMs: startMs + k * MS_PER_ITERATION,
     iteration: k === 0 ? null : { iteration: k, weightChange: W0 * RHO ** k, bellmanResidual: 1, policyValue: null, loss: null },
-    maxIterations: 5000, tolerance: TOL, outerIterations: null,
+    maxIterations: 5000, tolerance: TOL, outerIterations: null, dataPass: null,
   };
 }
 

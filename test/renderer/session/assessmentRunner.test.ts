@@ -1,7 +1,8 @@
 /**
  * The assessment runner against a scripted worker client: it assesses only the current
  * evaluation, passes assessment progress into the session, keeps the result under the run's key,
- * and a cancel (the client's terminate-and-restart, as for the run) leaves it "cancelled".
+ * and a cancel is a stop request to the worker (which keeps the run's models: no terminate) that
+ * leaves it "cancelled".
  */
 import { describe, expect, it } from 'vitest';
 import type { Problem } from '../../../src/core/result';
@@ -29,6 +30,11 @@ function scriptedClient(): Scripted {
     call(call, callArgs, progress) {
       calls.push(call);
       args.push(callArgs);
+      if (call === 'stopAssessment') {
+        // The worker's assessment sees the request between resamples and ends as cancelled.
+        resolve({ kind: 'result', id: 1, ok: false, problems: [{ ...CANCELLED }] });
+        return Promise.resolve({ kind: 'result', id: 2, ok: true, value: null, warnings: [] } as never);
+      }
       onProgress = progress as (p: AssessRunProgress) => void;
       return new Promise((r) => { resolve = r as (r: WorkerResult) => void; });
     },
@@ -50,9 +56,9 @@ const evaluated = { evaluation: {} as never, runKey: 'k1' };
 describe('assessment runner', () => {
   it('does nothing without the matching evaluation', async () => {
     const session = createSessionStore(), s = scriptedClient();
-    await createAssessmentRunner(session, { evaluation: s.client, assessment: () => s.client }).assess(doc, 'k1');
+    await createAssessmentRunner(session, s.client).assess(doc, 'k1');
     session.set((st) => ({ ...st, evaluation: evaluated }));
-    await createAssessmentRunner(session, { evaluation: s.client, assessment: () => s.client }).assess(doc, 'other');
+    await createAssessmentRunner(session, s.client).assess(doc, 'other');
     expect(s.calls).toEqual([]);
     expect(session.get().assessment).toEqual({ status: 'idle' });
   });
@@ -60,7 +66,7 @@ describe('assessment runner', () => {
   it('shows progress and keeps the result under the run key', async () => {
     const session = createSessionStore(), s = scriptedClient();
     session.set((st) => ({ ...st, evaluation: evaluated }));
-    const running = createAssessmentRunner(session, { evaluation: s.client, assessment: () => s.client }).assess(doc, 'k1');
+    const running = createAssessmentRunner(session, s.client).assess(doc, 'k1');
     expect(s.calls).toEqual(['assess']);
     s.progress({ stage: 'resampling', done: 10, total: 200, elapsedMs: 50 });
     expect(session.get().assessment).toEqual({ status: 'running', runKey: 'k1', progress: { stage: 'resampling', done: 10, total: 200, elapsedMs: 50 } });
@@ -70,40 +76,34 @@ describe('assessment runner', () => {
     expect(session.get().assessment).toEqual({ status: 'done', runKey: 'k1', assessment });
   });
 
-  it('cancels like the run (through the client) and says so', async () => {
+  it('cancels by a stop request that leaves the worker and its models alone, and says so', async () => {
     const session = createSessionStore(), s = scriptedClient();
     session.set((st) => ({ ...st, evaluation: evaluated }));
-    const runner = createAssessmentRunner(session, { evaluation: s.client, assessment: () => s.client });
+    const runner = createAssessmentRunner(session, s.client);
     const running = runner.assess(doc, 'k1');
     runner.cancel();
     await running;
-    expect(s.cancelled()).toBe(1);
+    expect(s.calls).toEqual(['assess', 'stopAssessment']);
+    expect(s.cancelled()).toBe(0); // no terminate-and-restart
     expect(session.get().assessment).toEqual({ status: 'cancelled', runKey: 'k1' });
-    runner.cancel(); // nothing running: the worker is left alone
-    expect(s.cancelled()).toBe(1);
+    runner.cancel(); // nothing running: nothing is sent
+    expect(s.calls).toEqual(['assess', 'stopAssessment']);
   });
 
-  it('sends a linear project with the data bytes to its own worker, a network project to the worker holding its fits', async () => {
-    const session = createSessionStore(), own = scriptedClient(), evaluation = scriptedClient();
-    const bytes = new Uint8Array([1, 2, 3]);
-    session.set((st) => ({ ...st, evaluation: evaluated, source: { kind: 'file', absolutePath: '/logs/tank.csv', bytes } }));
-    const runner = createAssessmentRunner(session, { evaluation: evaluation.client, assessment: () => own.client });
-    const linear = runner.assess(doc, 'k1');
-    expect(own.args[0]).toEqual({ project: doc, data: { bytes, fileName: 'tank.csv' } });
-    runner.cancel();
-    await linear;
-    expect([own.cancelled(), evaluation.cancelled()]).toEqual([1, 0]);
+  it('assesses every project in the evaluation worker that holds its run', async () => {
+    const session = createSessionStore(), s = scriptedClient();
+    session.set((st) => ({ ...st, evaluation: evaluated }));
     const network = { approximator: { kind: 'network' } } as never;
-    const fitted = runner.assess(network, 'k1');
-    expect(evaluation.args[0]).toEqual({ project: network });
-    evaluation.finish({ ok: false, problems: [{ where: 'x', message: 'y' }] });
+    const fitted = createAssessmentRunner(session, s.client).assess(network, 'k1');
+    expect(s.args[0]).toEqual({ project: network });
+    s.finish({ ok: false, problems: [{ where: 'x', message: 'y' }] });
     await fitted;
   });
 
   it('keeps the problems of a failed assessment', async () => {
     const session = createSessionStore(), s = scriptedClient();
     session.set((st) => ({ ...st, evaluation: evaluated }));
-    const running = createAssessmentRunner(session, { evaluation: s.client, assessment: () => s.client }).assess(doc, 'k1');
+    const running = createAssessmentRunner(session, s.client).assess(doc, 'k1');
     const problems = [{ where: 'assessment', message: 'the bootstrap resamples whole episodes and needs at least 10' }];
     s.finish({ ok: false, problems });
     await running;

@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
-import { importKey, runKey } from '../../../src/renderer/src/session/runKey';
+import { importKey, runKey } from '../../../src/shared/runKey';
 
 const loaded = parseProjectText(readFileSync(resolve(__dirname, '../../../sample-projects/tank-levels/tank-levels.spcritic'), 'utf8'), 'p');
 if (!loaded.ok) throw new Error('sample does not load');

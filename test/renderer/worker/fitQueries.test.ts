@@ -14,7 +14,7 @@ import { evaluateProject } from '../../../src/pipeline/evaluateProject';
 import { importProjectData } from '../../../src/pipeline/openProject';
 import { runEvaluation } from '../../../src/renderer/src/worker/evaluationRun';
 import { sliceFromFit, surfaceFromFit } from '../../../src/renderer/src/worker/fitQueries';
-import { createWorkerSession } from '../../../src/renderer/src/worker/workerSession';
+import { createWorkerMemory } from '../../../src/renderer/src/worker/workerMemory';
 import { dataImportSummary } from '../../../src/renderer/src/worker/dataImportSummary';
 import type { RunProgress } from '../../../src/shared/workerMessages';
 
@@ -28,11 +28,11 @@ const bytes = new Uint8Array(readFileSync(resolve(folder, 'tank-levels.csv')));
 const HERMITE_10 = [0.342901327223705, 1.036610829789514, 1.756683649299882, 2.532731674232790, 3.436159118837738];
 
 describe('evaluation worker handlers', async () => {
-  const session = createWorkerSession();
-  session.setData(bytes, 'tank-levels.csv');
+  const memory = createWorkerMemory();
+  memory.setData(bytes, 'tank-levels.csv');
   const reports: RunProgress[] = [];
   let clock = 0;
-  const result = await runEvaluation(session, project, (p) => reports.push(p), () => (clock += 1));
+  const result = await runEvaluation(memory, project, (p) => reports.push(p), () => (clock += 1));
 
   it('gives the same numbers as the pipeline called directly', async () => {
     const opened = importProjectData(project, bytes);
@@ -44,21 +44,21 @@ describe('evaluation worker handlers', async () => {
   });
 
   it('reports each candidate as it starts, then its iterations no closer than the interval', () => {
-    expect(reports.filter((r) => r.iteration === null).map((r) => r.candidate)).toEqual(project.candidates.map((c) => c.name));
+    expect(reports.filter((r) => r.iteration === null && r.dataPass === null).map((r) => r.candidate)).toEqual(project.candidates.map((c) => c.name));
     expect(reports.every((r) => r.maxIterations === 5000 && r.tolerance === 1e-10)).toBe(true);
   });
 
   it('recomputes the pipeline’s surface from the retained fit', () => {
     if (!result.ok) throw new Error('run failed');
     const original = result.value.policies[0].surface!;
-    const again = surfaceFromFit(session.lastRun(), { candidateIndex: 0, xAxis: 0, yAxis: 1, heldState: original.heldState, resolution: 60 });
+    const again = surfaceFromFit(memory.lastRun(), { candidateIndex: 0, xAxis: 0, yAxis: 1, heldState: original.heldState, resolution: 60 });
     expect(Array.from(again.values)).toEqual(Array.from(original.values));
     expect(Array.from(again.visits)).toEqual(Array.from(original.visits));
   });
 
   it('puts the slice’s nodes where the Gauss–Hermite rule puts them, weights summing to one', () => {
     const state = [1.2, 0.8];
-    const slice = sliceFromFit(session.lastRun(), { candidateIndex: 0, state, actionIndex: 0, points: 401 });
+    const slice = sliceFromFit(memory.lastRun(), { candidateIndex: 0, state, actionIndex: 0, points: 401 });
     const c = project.candidates[0];
     const mean = c.offset[0] + c.gain[0][0] * state[0] + c.gain[0][1] * state[1];
     const sigma = c.std[0];
@@ -73,7 +73,7 @@ describe('evaluation worker handlers', async () => {
   });
 
   it('summarises the import with an even sample and the behaviour model', () => {
-    const opened = session.open(project);
+    const opened = memory.open(project);
     if (!opened.ok) throw new Error('import failed');
     const summary = dataImportSummary(opened.value);
     expect(summary.sample.count).toBe(Math.ceil(19_960 / Math.ceil(19_960 / 2000)));
@@ -82,6 +82,6 @@ describe('evaluation worker handlers', async () => {
   });
 
   it('says so when asked about a run that has not happened', () => {
-    expect(() => createWorkerSession().lastRun()).toThrow(/run the evaluation first/);
+    expect(() => createWorkerMemory().lastRun()).toThrow(/run the evaluation first/);
   });
 });

@@ -5,7 +5,7 @@
  */
 import type { ProjectDocument } from '../../../project/schema';
 import { relativeDataPath } from '../document/dataPath';
-import { importKey } from '../session/runKey';
+import { importKey } from '../../../shared/runKey';
 import type { SessionState } from '../session/sessionStore';
 
 /** The document as it should be written before the project file's final place is known. */

@@ -7,7 +7,7 @@
 import type { ProjectDocument } from '../../../project/schema';
 import type { DocumentStore } from '../document/documentStore';
 import type { EvaluationClient } from '../worker/evaluationClient';
-import { importKey } from './runKey';
+import { importKey } from '../../../shared/runKey';
 import type { SessionStore } from './sessionStore';
 
 export const IMPORT_PAUSE_MS = 250;

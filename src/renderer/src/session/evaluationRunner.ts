@@ -9,7 +9,7 @@ import type { ProjectDocument } from '../../../project/schema';
 import type { DocumentStore } from '../document/documentStore';
 import { projectProblems, type FieldProblem } from '../document/projectProblems';
 import { CANCELLED, type EvaluationClient } from '../worker/evaluationClient';
-import { importKey, runKey } from './runKey';
+import { importKey, runKey } from '../../../shared/runKey';
 import type { SessionState, SessionStore } from './sessionStore';
 
 /** Progress reports kept for the time-remaining estimate. */

@@ -1,27 +1,26 @@
 /**
- * One assessment inside the worker: the project's bootstrap settings, the (cached) import, the last
- * run's retained fits when they belong to this project, and progress at most every
- * PROGRESS_INTERVAL_MS (a change of stage always goes out). Like the evaluation, the resampling
- * loop is synchronous, so the renderer stops it by terminating the worker.
+ * One assessment inside the worker: it extends the last run's models (the same project, by
+ * runKey) with the project's bootstrap settings, reporting progress at most every
+ * PROGRESS_INTERVAL_MS (a change of stage always goes out). The resampling loop yields now and
+ * then, so a stop request (a message) is seen between resamples and the run's models survive it.
  */
-import type { Result } from '../../../core/result';
+import { failure, type Result } from '../../../core/result';
 import type { Assessment } from '../../../pipeline/assessment';
-import { assessProject, type AssessmentProgress } from '../../../pipeline/assessProject';
+import { assessRun, type AssessmentProgress } from '../../../pipeline/assessProject';
 import { assessmentSettingsFor } from '../../../pipeline/assessSettings';
 import type { ProjectDocument } from '../../../project/schema';
 import type { AssessRunProgress } from '../../../shared/workerMessages';
-import type { WorkerSession } from './workerSession';
+import type { WorkerMemory } from './workerMemory';
 
 const PROGRESS_INTERVAL_MS = 100;
 
 export async function runAssessment(
-  session: WorkerSession, project: ProjectDocument, report: (progress: AssessRunProgress) => void, clock: () => number = () => performance.now(),
+  memory: WorkerMemory, project: ProjectDocument, report: (progress: AssessRunProgress) => void, clock: () => number = () => performance.now(),
 ): Promise<Result<Assessment>> {
   const settings = assessmentSettingsFor(project);
   if (!settings.ok) return settings;
-  const opened = session.open(project);
-  if (!opened.ok) return opened;
-  if (project.approximator.kind === 'network' && project.approximator.backend !== 'cpu') (await import('./tensorflowWasmFiles')).configureWasmFiles();
+  const evaluated = memory.runFor(project);
+  if (!evaluated) return failure({ where: 'assessment', message: 'there is no finished evaluation of this project to assess; run the evaluation first' });
   const started = clock();
   let lastSent = -Infinity, lastStage = '';
   const onProgress = (progress: AssessmentProgress): void => {
@@ -31,5 +30,7 @@ export async function runAssessment(
     lastStage = progress.stage;
     report({ ...progress, elapsedMs: now - started });
   };
-  return assessProject({ project, dataset: opened.value.dataset, settings: settings.value, onProgress, fits: session.retainedFits(project) });
+  const stop = memory.assessmentStop;
+  stop.requested = false;
+  return assessRun(evaluated.run, { settings: settings.value, onProgress, cancel: () => stop.requested });
 }

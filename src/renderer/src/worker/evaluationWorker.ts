@@ -13,11 +13,11 @@ import { dataImportSummary } from './dataImportSummary';
 import { runAssessment } from './assessmentRun';
 import { runEvaluation } from './evaluationRun';
 import { sliceFromFit, surfaceFromFit } from './fitQueries';
-import { createWorkerSession } from './workerSession';
+import { createWorkerMemory } from './workerMemory';
 import { problemFromError } from './workerProblems';
 
 const scope = self as unknown as DedicatedWorkerGlobalScope;
-const session = createWorkerSession();
+const memory = createWorkerMemory();
 
 function post(reply: WorkerReply): void {
   scope.postMessage(reply);
@@ -27,26 +27,28 @@ async function answer(request: WorkerRequest): Promise<Result<unknown>> {
   switch (request.call) {
     case 'setData': {
       const inspection = inspectData(request.bytes, request.fileName, request.csv);
-      if (inspection.ok) session.setData(request.bytes, request.fileName);
+      if (inspection.ok) memory.setData(request.bytes, request.fileName);
       return inspection;
     }
     case 'inspect': {
-      const { bytes, fileName } = session.data();
+      const { bytes, fileName } = memory.data();
       return inspectData(bytes, fileName, request.csv);
     }
     case 'importData': {
-      const opened = session.open(request.project);
+      const opened = memory.open(request.project);
       return opened.ok ? success(dataImportSummary(opened.value), opened.warnings) : opened;
     }
     case 'evaluate':
-      return runEvaluation(session, request.project, (progress) => post({ kind: 'progress', id: request.id, progress }));
+      return runEvaluation(memory, request.project, (progress) => post({ kind: 'progress', id: request.id, progress }));
     case 'surface':
-      return success(surfaceFromFit(session.lastRun(), request.query));
+      return success(surfaceFromFit(memory.lastRun(), request.query));
     case 'slice':
-      return success(sliceFromFit(session.lastRun(), request.query));
+      return success(sliceFromFit(memory.lastRun(), request.query));
     case 'assess':
-      if (request.data) session.setData(request.data.bytes, request.data.fileName);
-      return runAssessment(session, request.project, (progress) => post({ kind: 'assessmentProgress', id: request.id, progress }));
+      return runAssessment(memory, request.project, (progress) => post({ kind: 'assessmentProgress', id: request.id, progress }));
+    case 'stopAssessment':
+      memory.assessmentStop.requested = true;
+      return success(null);
   }
 }
 

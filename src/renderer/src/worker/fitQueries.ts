@@ -4,29 +4,26 @@
  * slice Q(s, ·) with the policy's marginal action density and the quadrature nodes at s.
  * Values leave in the project's sense (a cost stays a cost).
  */
-import { createActionQuadrature, quadratureNodesAt } from '../../../core/actionQuadrature';
+import { quadratureNodesAt } from '../../../core/actionQuadrature';
 import { actionStd, createGaussianPolicy, logDensity, policyMean, type GaussianPolicy } from '../../../core/policy';
 import { actionValueSlice, valueSurface } from '../../../core/value';
 import type { ValueSurface } from '../../../pipeline/estimates';
-import { surfaceGridFor, surfaceVisits } from '../../../pipeline/surfaceGrid';
+import type { CandidateModel } from '../../../pipeline/model/candidateModel';
+import { surfaceGridFor, surfaceVisits } from '../../../pipeline/plan/surfaceGrid';
 import type { ActionSliceReply, SliceQuery, SurfaceQuery } from '../../../shared/workerMessages';
-import { WorkerQueryError, type EvaluatedRun, type RetainedFit } from './workerSession';
+import { WorkerQueryError, type EvaluatedRun } from './workerMemory';
 
 /** Half-width of the slice around the policy mean, in standard deviations (covers all but ~6e-5 of the mass; common practice). */
 const SLICE_HALF_WIDTH_STD = 4;
 
-function retained(run: EvaluatedRun, index: number): RetainedFit {
-  const fit = run.fits.get(index);
-  if (!fit) throw new WorkerQueryError(`candidate ${index + 1}: no fitted action-value function from the last run`);
-  return fit;
-}
-
-function senseSign(run: EvaluatedRun): number {
-  return run.project.columns.reward.sense === 'cost' ? -1 : 1;
+function retained(evaluated: EvaluatedRun, index: number): CandidateModel {
+  const model = evaluated.run.models[index];
+  if (!model) throw new WorkerQueryError(`candidate ${index + 1}: no fitted action-value function from the last run`);
+  return model;
 }
 
 export function surfaceFromFit(run: EvaluatedRun, query: SurfaceQuery): ValueSurface {
-  const { fit, policy } = retained(run, query.candidateIndex);
+  const model = retained(run, query.candidateIndex);
   const names = run.project.columns.states.map((s) => s.column);
   const xState = names[query.xAxis], yState = names[query.yAxis];
   if (xState === undefined || yState === undefined) throw new WorkerQueryError(`surface axes: expected state indices below ${names.length}`);
@@ -35,8 +32,8 @@ export function surfaceFromFit(run: EvaluatedRun, query: SurfaceQuery): ValueSur
   const grid = surfaceGridFor({ ...run.project, surface: { xState, yState, resolution: query.resolution } }, dataset);
   if (!grid) throw new WorkerQueryError('a value surface needs at least two state columns');
   const options = { ...grid, heldState: query.heldState };
-  const values = valueSurface(fit.q, policy, createActionQuadrature(policy, run.project.quadratureNodes), options);
-  const sign = senseSign(run);
+  const values = valueSurface(model.fit.q, model.policy, model.quadrature, options);
+  const sign = run.run.plan.sign;
   return {
     xState, yState, x: values.x, y: values.y, values: values.values.map((v) => sign * v),
     heldState: [...query.heldState], visits: surfaceVisits(dataset, options),
@@ -52,7 +49,7 @@ export function sliceFromFit(run: EvaluatedRun, query: SliceQuery): ActionSliceR
   const marginal = marginalPolicy(policy, mean[i], i);
   const range = sliceRange(mean[i], actionStd(policy, i), policy, i);
   const slice = actionValueSlice(fit.q, state, i, range, query.points, mean);
-  const sign = senseSign(run);
+  const sign = run.run.plan.sign;
   const density = slice.actions.map((a) => (a < range[0] || a > range[1] ? 0 : Math.exp(logDensity(marginal, zeros(policy.stateDim), [a]))));
   return {
     actions: slice.actions, actionValues: slice.values.map((v) => sign * v), density,

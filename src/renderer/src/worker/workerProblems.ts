@@ -5,7 +5,7 @@
 import type { Problem } from '../../../core/result';
 import { isEngineError } from '../../../pipeline/engineErrors';
 import { BehaviourModelError } from '../../../core/behaviourModel';
-import { WorkerQueryError } from './workerSession';
+import { WorkerQueryError } from './workerMemory';
 
 const CALL_NAMES: Record<string, string> = {
   setData: 'reading the data file', inspect: 'reading the data file', importData: 'importing the data', evaluate: 'the evaluation',

@@ -2,7 +2,7 @@
  * The action-value slice Q(s, ·) at a state set by sliders, with the candidate's action density
  * under it and the quadrature nodes marked: what V^π(s) averages.
  */
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { ActionSlicePlot } from '../../plots';
 import { ProblemList } from '../../components/ProblemList';
 import { SelectField } from '../../components/SelectField';
@@ -27,10 +27,15 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
   const policy = evaluation.policies[candidate]?.name ?? '';
   const spec = doc.candidates.find((c) => c.name === policy);
   const limits = spec?.bounds;
-  const bounds = limits ? { lo: limits.lo[action] ?? -Infinity, hi: limits.hi[action] ?? Infinity, mode: limits.mode } : undefined;
+  const lo = limits ? limits.lo[action] ?? -Infinity : null, hi = limits ? limits.hi[action] ?? Infinity : null, mode = limits?.mode;
+  // One slice object per answer (and limits): a new one on every render would rebuild the chart each time.
+  const slice = useMemo(
+    () => (answer.status === 'done' ? { ...answer.value, bounds: lo === null || hi === null || !mode ? undefined : { lo, hi, mode } } : null),
+    [answer, lo, hi, mode],
+  );
   const title = `Action values of ${policy}`;
-  const sliceProps = answer.status === 'done' ? {
-    slice: { ...answer.value, bounds }, actionLabel: actionLabel(doc, action), valueLabel: valueLabel(evaluation.valueSense, 'Q'), title, theme,
+  const sliceProps = slice ? {
+    slice, actionLabel: actionLabel(doc, action), valueLabel: valueLabel(evaluation.valueSense, 'Q'), title, theme,
   } : null;
   return (
     <section className="panel" aria-labelledby="slice-heading">

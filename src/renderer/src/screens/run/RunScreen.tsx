@@ -8,11 +8,11 @@ import { ProblemList } from '../../components/ProblemList';
 import { projectProblems } from '../../document/projectProblems';
 import { formatDuration, formatNumber } from '../../format/numberFormat';
 import { useDocument, useSession, useStale } from '../../hooks';
-import { importKey } from '../../session/runKey';
+import { importKey } from '../../../../shared/runKey';
 import { runBlockers } from '../../session/evaluationRunner';
 import { useWorkspace } from '../../WorkspaceContext';
 import { progressView } from './runProgressView';
-import { describeApproximator } from '../../../../pipeline/featureMapFor';
+import { describeApproximator } from '../../../../pipeline/plan/featureMapFor';
 
 export function RunScreen(props: { onFindings: () => void }) {
   const { runner } = useWorkspace();
@@ -70,7 +70,7 @@ function Progress({ reports, startsMs }: { reports: Parameters<typeof progressVi
       {view ? (
         <dl className="facts" aria-live="polite">
           <dt>Candidate</dt><dd>{view.candidate} ({view.candidateNumber} of {view.candidateCount})</dd>
-          <dt>Iteration</dt><dd data-testid="progress-iteration">{view.iteration ?? 'starting'}</dd>
+          <dt>Iteration</dt><dd data-testid="progress-iteration">{view.iteration ?? (view.dataPass === null ? 'starting' : `reading the data (${Math.floor(100 * view.dataPass)} %)`)}</dd>
           <dt>Bellman residual</dt><dd>{view.bellmanResidual === null ? '—' : formatNumber(view.bellmanResidual)}</dd>
           <dt>Weight change</dt><dd>{view.weightChange === null ? '—' : formatNumber(view.weightChange)}</dd>
           <dt>Elapsed</dt><dd>{formatDuration(view.elapsedMs)}</dd>

@@ -7,6 +7,8 @@ export interface ProgressView {
   candidateNumber: number; // 1-based
   candidateCount: number;
   iteration: number | null;
+  /** Share of the data pass done (0…1) while a linear fit reads the transitions; null otherwise. */
+  dataPass: number | null;
   bellmanResidual: number | null;
   weightChange: number | null;
   elapsedMs: number;
@@ -20,12 +22,13 @@ export function progressView(reports: readonly RunProgress[], startsMs: readonly
   if (!last) return null;
   const iteration = last.iteration?.iteration ?? null;
   const remaining = iterationsRemaining(reports);
-  const withinCandidate = iteration !== null && remaining !== null ? iteration / (iteration + remaining) : 0;
+  const withinCandidate = iteration !== null && remaining !== null ? iteration / (iteration + remaining) : 0.5 * (last.dataPass ? last.dataPass.done / last.dataPass.total : 0);
   return {
     candidate: last.candidate,
     candidateNumber: last.candidateIndex + 1,
     candidateCount: last.candidateCount,
     iteration,
+    dataPass: last.dataPass ? last.dataPass.done / last.dataPass.total : null,
     bellmanResidual: last.iteration?.bellmanResidual ?? null,
     weightChange: last.iteration?.weightChange ?? null,
     elapsedMs: last.elapsedMs,

@@ -4,7 +4,7 @@
  * rerun) and where the data file lives or what was last saved about it. Two documents with the
  * same key give the same numbers.
  */
-import type { ProjectDocument } from '../../../project/schema';
+import type { ProjectDocument } from '../project/schema';
 
 export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
   const { name: _name, description: _description, surface: _surface, data, ...rest } = doc;

@@ -1,25 +1,19 @@
 /**
  * What the evaluation worker remembers between requests: the data file's bytes, the last import
- * (reused while the project's data settings and column roles stay the same), and each candidate's
- * fitted Q from the last evaluation, kept to redraw surfaces and slices until the next run.
+ * (reused while the project's data settings and column roles stay the same), and the last run —
+ * the plan and every candidate's model (src/pipeline/projectRun.ts) — kept to redraw surfaces and
+ * slices and to be extended by the assessment, until the next run or data file.
  */
-import type { GaussianPolicy } from '../../../core/policy';
 import { failure, type Result } from '../../../core/result';
-import type { CandidateFit } from '../../../pipeline/candidateFit';
 import { importProjectData, type OpenedProject } from '../../../pipeline/openProject';
+import type { ProjectRun } from '../../../pipeline/projectRun';
 import type { ProjectDocument } from '../../../project/schema';
-import { runKey } from '../session/runKey';
-
-export interface RetainedFit {
-  fit: CandidateFit;
-  policy: GaussianPolicy;
-  name: string;
-}
+import { runKey } from '../../../shared/runKey';
 
 export interface EvaluatedRun {
   project: ProjectDocument;
   opened: OpenedProject;
-  fits: Map<number, RetainedFit>;
+  run: ProjectRun;
 }
 
 export class WorkerQueryError extends Error {
@@ -29,16 +23,20 @@ export class WorkerQueryError extends Error {
   }
 }
 
-export interface WorkerSession {
+export interface WorkerMemory {
   setData(bytes: Uint8Array, fileName: string): void;
   data(): { bytes: Uint8Array; fileName: string };
   /** Import the data for project, or reuse the last import when nothing it depends on changed. */
   open(project: ProjectDocument): Result<OpenedProject>;
-  /** Release the previous run's fits and start keeping the new run's. */
-  beginRun(project: ProjectDocument, opened: OpenedProject): EvaluatedRun;
+  /** Release the previous run and keep this one. */
+  keepRun(evaluated: EvaluatedRun): void;
+  /** Release the previous run (a new one is starting). */
+  dropRun(): void;
   lastRun(): EvaluatedRun;
-  /** The last run's fits by candidate when it evaluated the same project (same runKey), else none. */
-  retainedFits(project: ProjectDocument): (CandidateFit | undefined)[];
+  /** The last run when it evaluated the same project (same runKey), else null. */
+  runFor(project: ProjectDocument): EvaluatedRun | null;
+  /** A stop request for the assessment in progress: set by a message, polled by the assessment. */
+  readonly assessmentStop: { requested: boolean };
 }
 
 const NO_DATA = 'no data file is loaded yet; choose a CSV file on the Plant log step';
@@ -48,19 +46,19 @@ function importKey(project: ProjectDocument): string {
   return JSON.stringify([project.data, project.columns]);
 }
 
-export function createWorkerSession(): WorkerSession {
+export function createWorkerMemory(): WorkerMemory {
   let data: { bytes: Uint8Array; fileName: string } | null = null;
   let cached: { key: string; opened: OpenedProject } | null = null;
-  let run: EvaluatedRun | null = null;
-  const disposeRun = (): void => {
-    run?.fits.forEach((retained) => retained.fit.dispose());
-    run = null;
+  let last: EvaluatedRun | null = null;
+  const dropRun = (): void => {
+    last?.run.dispose();
+    last = null;
   };
   return {
     setData(bytes, fileName) {
       data = { bytes, fileName };
       cached = null;
-      disposeRun();
+      dropRun();
     },
     data() {
       if (!data) throw new WorkerQueryError(NO_DATA);
@@ -74,19 +72,18 @@ export function createWorkerSession(): WorkerSession {
       cached = opened.ok ? { key, opened: opened.value } : null;
       return opened;
     },
-    beginRun(project, opened) {
-      disposeRun();
-      run = { project, opened, fits: new Map() };
-      return run;
+    keepRun(evaluated) {
+      dropRun();
+      last = evaluated;
     },
+    dropRun,
     lastRun() {
-      if (!run || run.fits.size === 0) throw new WorkerQueryError('there is no finished evaluation to draw from; run the evaluation first');
-      return run;
+      if (!last) throw new WorkerQueryError('there is no finished evaluation to draw from; run the evaluation first');
+      return last;
     },
-    retainedFits(project) {
-      if (!run || runKey(run.project, '') !== runKey(project, '')) return [];
-      const fits = run.fits;
-      return project.candidates.map((_, i) => fits.get(i)?.fit);
+    runFor(project) {
+      return last && runKey(last.project, '') === runKey(project, '') ? last : null;
     },
+    assessmentStop: { requested: false },
   };
 }

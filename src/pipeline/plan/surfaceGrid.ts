@@ -2,9 +2,9 @@
  * Where to draw the value surface: the project's chosen pair of states (default the first two),
  * spanning the range the logs cover, with the other states held at their logged means.
  */
-import type { ValueSurfaceOptions } from '../core/value';
-import type { TransitionSet } from '../core/transitions';
-import type { ProjectDocument } from '../project/schema';
+import type { ValueSurfaceOptions } from '../../core/value';
+import type { TransitionSet } from '../../core/transitions';
+import type { ProjectDocument } from '../../project/schema';
 
 export const DEFAULT_SURFACE_RESOLUTION = 60;
 

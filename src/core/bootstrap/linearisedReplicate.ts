@@ -1,0 +1,111 @@
+/**
+ * Bootstrap replicates of linear fitted Q-evaluation to first order in the resample weights, for
+ * fits whose per-episode sums (episodeBellmanSums.ts: 3d² + 2d + 2 numbers per episode) would not
+ * fit in memory or take too long to reweight — the delta method applied to each resample, i.e. the
+ * linearised (infinitesimal-jackknife) bootstrap (Efron, "The Jackknife, the Bootstrap and Other
+ * Resampling Plans", 1982, §6; Efron & Tibshirani 1993, §21.3).
+ *
+ * At the full data's fixed point (G + λD − γM)w = b, a resample that draws episode k c_k times has
+ * A_c w_c = b_c with A_c = G_c + λD − γM_c; to first order
+ *   w_c − w ≈ A⁻¹(b_c − A_c w) = A⁻¹ Σ_k c_k u_k / N_c,   N_c = Σ_k c_k n_k,
+ *   u_k = Σ_{i∈k} φ_i δ_i − n_k λDw,   δ_i = r_i + γψ_iᵀw − φ_iᵀw   (Σ_k u_k = 0 at the fixed point),
+ * and with v = A⁻ᵀξ̄ (ξ̄ the mean start feature) the value of the resample is
+ *   J_c ≈ Σ_k c_k j_k / Σ_k c_k + Σ_k c_k s_k / N_c,   s_k = vᵀu_k,   j_k = ξ(s0_k)ᵀw,
+ * so each resample costs O(e) after one more pass over the data that forms the scalars s_k. The
+ * terms left out are of second order, O(1/N); the test compares it with the exact reweighting.
+ */
+import type { ActionQuadrature } from '../actionQuadrature';
+import type { FeatureMap } from '../features/featureMap';
+import type { BellmanStatistics } from '../fqe/bellmanStatistics';
+import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
+import { createTransitionFeatureReader } from '../fqe/transitionFeatures';
+import { ridgeGram } from '../fqe/ridgeSystem';
+import { dot, luFactor, luSolve, transpose } from '../linalg/dense';
+import type { TransitionSet } from '../transitions';
+import { BootstrapError } from './episodeMultiplicities';
+import type { EpisodeIndex } from './episodeTransitions';
+
+export interface LinearisedReplicates {
+  /** s_k per episode (reward units per transition). */
+  readonly influence: Float64Array; // e
+  /** n_k per episode. */
+  readonly counts: Float64Array; // e
+  /** j_k = ξ(s0_k)ᵀw per start state. */
+  readonly startValues: Float64Array;
+  /** True when the start states are episodes' first states, so they are resampled with their episodes. */
+  readonly startsFollowEpisodes: boolean;
+  /** Episode of each start state (TransitionSet.startEpisode); absent when start state k is episode k's. */
+  readonly startEpisode?: Int32Array;
+}
+
+export interface LinearisationInput {
+  readonly data: TransitionSet;
+  readonly index: EpisodeIndex;
+  readonly features: FeatureMap;
+  readonly quadrature: ActionQuadrature;
+  /** The full data's statistics and the fixed-point weights solved from them. */
+  readonly statistics: BellmanStatistics;
+  readonly weights: Float64Array; // w, d
+  readonly ridge: number;
+  readonly discount: number;
+  /** ξ(s0) per start state, count×d. */
+  readonly startFeatures: Float64Array;
+  readonly startsFollowEpisodes: boolean;
+  readonly startEpisode?: Int32Array;
+  readonly cancel?: CancellationCheck;
+}
+
+export function linearisedReplicates(input: LinearisationInput): LinearisedReplicates {
+  const { data, index, features, statistics, weights: w, discount } = input, d = features.dim;
+  const starts = input.startFeatures.length / d, xiBar = new Float64Array(d), startValues = new Float64Array(starts);
+  for (let s = 0; s < starts; s++) {
+    const xi = input.startFeatures.subarray(s * d, (s + 1) * d);
+    startValues[s] = dot(xi, w);
+    for (let f = 0; f < d; f++) xiBar[f] += xi[f] / starts;
+  }
+  const system = ridgeGram(statistics, input.ridge, features.constantIndex);
+  for (let k = 0; k < d * d; k++) system[k] -= discount * statistics.crossNext[k];
+  const v = luSolve(luFactor(transpose(system, d, d), d), xiBar); // v = A⁻ᵀ ξ̄
+  // n_k λ vᵀDw: the ridge's share of u_k per transition (D = I but 0 at the constant feature).
+  let ridgeTerm = 0;
+  for (let f = 0; f < d; f++) if (f !== features.constantIndex) ridgeTerm += input.ridge * v[f] * w[f];
+  const e = index.episodes, influence = new Float64Array(e), counts = new Float64Array(e);
+  const reader = createTransitionFeatureReader(data, features, input.quadrature);
+  for (let k = 0; k < e; k++) {
+    throwIfCancelled(input.cancel);
+    let s = 0;
+    for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) {
+      const i = index.order[p];
+      reader.read(i);
+      const delta = data.rewards[i] + discount * dot(reader.psi, w) - dot(reader.phi, w);
+      s += delta * dot(reader.phi, v) - ridgeTerm;
+    }
+    influence[k] = s;
+    counts[k] = index.offsets[k + 1] - index.offsets[k];
+  }
+  return { influence, counts, startValues, startsFollowEpisodes: input.startsFollowEpisodes, startEpisode: input.startEpisode };
+}
+
+/** J of the resample with episode multiplicities c (reward sense); null when it holds no episode with a start state. */
+export function linearisedReplicate(lin: LinearisedReplicates, multiplicities: ArrayLike<number>): number | null {
+  const e = lin.counts.length;
+  if (multiplicities.length !== e) throw new BootstrapError(`multiplicities: expected one per episode (${e}), got ${multiplicities.length}`);
+  let influence = 0, transitions = 0;
+  for (let k = 0; k < e; k++) {
+    influence += multiplicities[k] * lin.influence[k];
+    transitions += multiplicities[k] * lin.counts[k];
+  }
+  if (!(transitions > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
+  const starts = startMean(lin, multiplicities);
+  return starts === null ? null : starts + influence / transitions;
+}
+
+function startMean(lin: LinearisedReplicates, c: ArrayLike<number>): number | null {
+  let total = 0, weight = 0;
+  for (let s = 0; s < lin.startValues.length; s++) {
+    const m = lin.startsFollowEpisodes ? c[lin.startEpisode ? lin.startEpisode[s] : s] : 1;
+    total += m * lin.startValues[s];
+    weight += m;
+  }
+  return weight > 0 ? total / weight : null;
+}

@@ -1,0 +1,41 @@
+/**
+ * The types of feature maps φ: R^p → R^d over the inputs z = [s, a] of an action-value function and
+ * of their plain-JSON specifications, in a file of their own so that the map kinds
+ * (polynomialFeatures.ts, radialBasisFeatures.ts) and the dispatcher (featureMap.ts) import them
+ * without importing each other.
+ */
+import type { StandardiserSpec } from './standardiser';
+
+export interface PolynomialFeatureSpec {
+  kind: 'polynomial';
+  /** Total degree k ≥ 0. */
+  degree: number;
+  standardiser: StandardiserSpec;
+}
+
+export interface RadialBasisFeatureSpec {
+  kind: 'radialBasis';
+  /** Centres in standardised coordinates, one array of p numbers each. */
+  centres: number[][];
+  /** Gaussian width in standard deviations of the inputs. */
+  width: number;
+  /** Also include the standardised inputs themselves as features. */
+  linearTerms: boolean;
+  standardiser: StandardiserSpec;
+}
+
+export type FeatureMapSpec = PolynomialFeatureSpec | RadialBasisFeatureSpec;
+
+export interface FeatureMap {
+  readonly dim: number; // d
+  /** p: the input row length, stateDim + actionDim. */
+  readonly inputDim: number;
+  /** Index of the feature that is identically 1, or null when there is none (it is left unpenalised by ridge fits). */
+  readonly constantIndex: number | null;
+  /**
+   * Write φ(input[inputOffset .. inputOffset+p)) into out[outOffset .. outOffset+d).
+   * Allocates nothing, so it can run once per quadrature node per transition.
+   */
+  evaluate(input: ArrayLike<number>, inputOffset: number, out: Float64Array, outOffset: number): void;
+  toSpec(): FeatureMapSpec;
+}

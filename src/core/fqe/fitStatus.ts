@@ -1,0 +1,16 @@
+/**
+ * How a fit ended, one name for every approximator and host:
+ *   converged      the fit met its stated convergence rule (linear: src/pipeline/model/linearModel.ts;
+ *                  network: networkIterations.ts), so its value is the fit's answer;
+ *   maxIterations  it stopped at its iteration limit without meeting the rule: not converged;
+ *   diverged       it stopped because its values left any possible range; what is kept is flagged.
+ * A fit the user stops ends 'cancelled' and reports no value. A linear bootstrap resample may also be
+ * 'singular' (no solution on that resample; linearFqeReplicate.ts).
+ */
+export type FitStatus = 'converged' | 'maxIterations' | 'diverged';
+
+/** A fit that may also have been stopped by the user. */
+export type FitOutcome = FitStatus | 'cancelled';
+
+/** The linear FQE iteration's name for the same statuses. */
+export type FqeStatus = FitStatus;

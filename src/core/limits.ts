@@ -1,0 +1,100 @@
+/**
+ * Every limit and default of the engine, in one place. The project schema, the evaluation plan
+ * and the numerics import them from here, so that a value the schema accepts is one the engine
+ * can run, and a limit changed here changes everywhere at once.
+ *
+ * Where a limit is a property of a method (the largest quadrature rule that keeps its accuracy)
+ * the reason is given beside it; where it is a budget (work or memory a desktop can afford) it is
+ * marked as ours.
+ */
+
+/** State columns of a project (dense least squares in polynomial features grows fast with them; ours). */
+export const MAX_STATE_COLUMNS = 10;
+/** Action columns: tensor-product quadrature has n^m points per state, so m stays small (ours). */
+export const MAX_ACTION_COLUMNS = 3;
+
+/** The discount factor γ lies strictly between these (γ = 1 has no discounted value in general). */
+export const DISCOUNT_RANGE = { above: 0, below: 1 } as const;
+
+/**
+ * Gauss–Hermite nodes per action dimension: the rule is built by Golub–Welsch with Newton polish,
+ * verified to 64 nodes (src/core/quadrature/gaussHermite.ts).
+ */
+export const MAX_GAUSS_HERMITE_NODES = 64;
+/**
+ * Interior nodes per action dimension of the bounded-normal rule (clipped or truncated actions):
+ * its discretised Stieltjes procedure keeps full accuracy to 32 nodes (boundedNormal.ts).
+ */
+export const MAX_BOUNDED_NORMAL_NODES = 32;
+export const DEFAULT_QUADRATURE_NODES = 10;
+/**
+ * Quadrature points per state (n^m, or (n + 2)^m with clipped limits). Every data pass evaluates
+ * the features at each point of each next state, so this bounds its cost (ours: 4,096 is 16 nodes
+ * in each of three actions).
+ */
+export const MAX_QUADRATURE_POINTS = 4096;
+
+/** Candidates per project (each is a fit and, in the assessment, a series of resamples; ours). */
+export const MAX_CANDIDATES = 100;
+
+/** Polynomial feature degree and radial-basis centres per input accepted by the schema. */
+export const POLYNOMIAL_DEGREE_RANGE = { min: 1, max: 6 } as const;
+export const RADIAL_CENTRES_RANGE = { min: 2, max: 12 } as const;
+/** Dense least squares is O(d³) per solve; beyond this many features a fit would not finish on a desktop. */
+export const MAX_FEATURES = 2000;
+
+/**
+ * Ridge λ per sample on the averaged normal equations of standardised features (ridgeSystem.ts).
+ * The features' second moments are of order 1, so λ well above 1 shrinks every weight towards zero
+ * and the value towards the reward's mean: 10 is far beyond any useful setting (ours).
+ */
+export const RIDGE = { default: 1e-6, max: 10 } as const;
+/**
+ * Relative weight change at which the linear FQE iteration stops. Below about 1e-14 round-off in
+ * the O(d²) update is larger than the change asked for, so the iteration could never stop (ours).
+ */
+export const TOLERANCE = { default: 1e-10, min: 1e-14, max: 1e-2 } as const;
+export const MAX_ITERATIONS = { default: 5000, min: 1, max: 1_000_000 } as const;
+
+/**
+ * A linear fit's bootstrap reweights per-episode sums (3d² + 2d + 2 numbers per episode) when there
+ * are at most this many of them in all: then a resample costs about a millisecond and the sums a
+ * few megabytes. Above it (many episodes, or many features) each resample is taken to first order
+ * instead, at O(e) per resample (src/core/bootstrap/linearisedReplicate.ts; ours).
+ */
+export const MAX_EXACT_RESAMPLE_VALUES = 2 ** 20;
+
+/** Value-surface grid points per axis. */
+export const SURFACE_RESOLUTION = { default: 60, min: 2, max: 400 } as const;
+
+/** Random seeds are unsigned 32-bit integers (src/core/random.ts). */
+export const SEED = { default: 1, min: 0, max: 2 ** 32 - 1 } as const;
+
+/**
+ * Bootstrap resamples over episodes: 1000 keeps the Monte Carlo error of a 90 % percentile
+ * endpoint near 0.03 standard errors of the estimate (Efron & Tibshirani 1993, §19.3, recommend
+ * B ≥ 1000 for percentile intervals; common practice). At least 20 give any spread at all.
+ */
+export const BOOTSTRAP_RESAMPLES = { default: 1000, min: 20, max: 100_000 } as const;
+/** Confidence level of the intervals. */
+export const CONFIDENCE_LEVEL = { default: 0.9, min: 0.5, below: 1 } as const;
+
+/**
+ * The effective horizon 1/(1 − γ) in logged steps may not exceed the number of logged
+ * transitions: a value that weighs the future over more steps than the logs hold in all is an
+ * extrapolation of the fitted model, not an estimate from the data (ours).
+ */
+export function horizonSteps(discount: number): number {
+  return 1 / (1 - discount);
+}
+
+/**
+ * A reward/cost expression (src/data/expressionSyntax.ts): a plant's formula is a few terms over a
+ * few columns, and these bounds are two orders of magnitude above that while keeping the recursive
+ * parser and the column-wise evaluation (one n-long array per operation) far from any stack or
+ * memory limit (ours). Characters of its text; nesting of parentheses, functions, signs and powers;
+ * operations (operators and function calls) in all.
+ */
+export const MAX_EXPRESSION_LENGTH = 2000;
+export const MAX_EXPRESSION_DEPTH = 40;
+export const MAX_EXPRESSION_OPERATIONS = 200;

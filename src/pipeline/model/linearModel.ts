@@ -1,0 +1,74 @@
+/**
+ * A candidate's model under the linear approximator: one pass over the data forms the Bellman
+ * statistics — kept per episode when that is affordable (episodeBellmanSums.ts), so that every
+ * bootstrap resample is a reweighting of them — and the FQE iteration and the LSTD-Q fixed point are
+ * solved from their total (linearFqeSolve.ts). When per-episode sums would be too many
+ * (MAX_EXACT_RESAMPLE_VALUES), the total is formed in the same one pass and, once the fixed point is
+ * known, a second, lighter pass forms the per-episode influence values of the linearised bootstrap.
+ *
+ * Which solution is reported, and when it is called converged (our rule, stated to the user):
+ *   - the iteration met the tolerance: its iterate, "converged";
+ *   - it stopped at the iteration limit but provably contracts (spectral-radius bound ρ < 1): its
+ *     limit is the unique fixed point (Banach), which is solved directly and reported, "converged";
+ *   - it stopped at the limit without a proof of contraction: its last iterate, "maxIterations"
+ *     (not converged; the fixed point is shown beside it);
+ *   - it diverged: the fixed point with its warning when one exists, "diverged"; else an error.
+ */
+import { createActionQuadrature, type ActionQuadrature } from '../../core/actionQuadrature';
+import { episodeBellmanSums, resampleBellmanStatistics, type EpisodeBellmanSums } from '../../core/bootstrap/episodeBellmanSums';
+import { unitMultiplicities } from '../../core/bootstrap/episodeMultiplicities';
+import { linearisedReplicates } from '../../core/bootstrap/linearisedReplicate';
+import { startStateFeatures } from '../../core/features/policyFeatures';
+import { accumulateBellmanStatistics, bellmanSumsStride, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
+import { solveLinearFqe } from '../../core/fqe/linearFqeSolve';
+import { MAX_EXACT_RESAMPLE_VALUES } from '../../core/limits';
+import type { CandidateFit } from '../candidateFit';
+import type { FitIteration } from '../estimates';
+import type { EvaluationPlan, PlannedPolicy } from '../plan/evaluationPlan';
+import type { CandidateModel, LinearResampling } from './candidateModel';
+import type { ModelHooks } from './modelHooks';
+import { reportedSolution } from './reportedSolution';
+
+export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}): CandidateModel {
+  const settings = plan.approximator, features = plan.features, { data } = plan;
+  if (settings.kind !== 'linear' || !features) throw new Error('buildLinearModel: the plan is not for the linear approximator');
+  const quadrature = createActionQuadrature(planned.policy, plan.quadratureNodes);
+  const { statistics, sums } = dataPass(plan, quadrature, hooks);
+  const startFeatures = startStateFeatures(features, quadrature, plan.starts.states, data.stateDim);
+  const solved = solveLinearFqe({
+    statistics, features, stateDim: data.stateDim, actionDim: data.actionDim, discount: plan.discount, ridge: settings.ridge,
+    tolerance: settings.tolerance, maxIterations: settings.maxIterations, startFeatures, cancel: hooks.cancel,
+    onIteration: hooks.onIteration && ((p) => hooks.onIteration!(fitIteration(p))),
+  });
+  const reported = reportedSolution(solved, settings.tolerance);
+  const weights = reported.solution.q.weights, atFixedPoint = reported.status === 'converged';
+  const fit: CandidateFit = {
+    q: reported.solution.q, status: reported.status, message: reported.message, history: solved.history.map(fitIteration),
+    policyValue: reported.solution.policyValue.value, standardError: reported.solution.policyValue.standardError,
+    fixedPointValue: solved.fixedPoint?.policyValue.value ?? null, featureCount: features.dim,
+    backend: 'linear least squares (double precision)', warnings: reported.warnings, dispose: () => undefined,
+  };
+  const resampling: LinearResampling = sums ? { kind: 'exact', sums }
+    : !atFixedPoint ? { kind: 'none', reason: 'the fit did not converge, so there is no fixed point to take resamples around' }
+    : { kind: 'linearised', replicates: linearisedReplicates({
+      data, index: plan.episodes, features, quadrature, statistics, weights, ridge: settings.ridge, discount: plan.discount,
+      startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode, cancel: hooks.cancel,
+    }) };
+  return { ...planned, quadrature, fit, dispose: () => undefined, linear: { features, resampling, statistics, startFeatures, weights, atFixedPoint } };
+}
+
+/** The one pass: per episode when the sums are affordable (their total is the full data's), else the total only. */
+function dataPass(plan: EvaluationPlan, quadrature: ActionQuadrature, hooks: ModelHooks): { statistics: BellmanStatistics; sums: EpisodeBellmanSums | null } {
+  const features = plan.features!, { data } = plan, passHooks = { cancel: hooks.cancel, onDataPass: hooks.onDataPass };
+  if (plan.episodes.episodes * bellmanSumsStride(features.dim) > MAX_EXACT_RESAMPLE_VALUES) {
+    return { statistics: accumulateBellmanStatistics(data, features, quadrature, passHooks), sums: null };
+  }
+  const sums = episodeBellmanSums(data, features, quadrature, passHooks, plan.episodes);
+  const statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
+  checkStatisticsFinite(statistics, data, features, quadrature);
+  return { statistics, sums };
+}
+
+function fitIteration(p: { iteration: number; weightChange: number; bellmanResidual: number; policyValue: number }): FitIteration {
+  return { iteration: p.iteration, weightChange: p.weightChange, bellmanResidual: p.bellmanResidual, policyValue: p.policyValue, loss: null };
+}

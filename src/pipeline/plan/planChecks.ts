@@ -1,0 +1,56 @@
+/**
+ * Checks of the settings against the data that no schema can make: a discount whose horizon is
+ * longer than the logs, and logged columns that never change.
+ */
+import { horizonSteps } from '../../core/limits';
+import type { Problem } from '../../core/result';
+import type { TransitionSet } from '../../core/transitions';
+
+/**
+ * The effective horizon 1/(1 − γ) may not exceed the number of logged transitions (our rule,
+ * src/core/limits.ts): such a value weighs the future over more steps than the logs hold in all.
+ */
+export function discountProblems(discount: number, transitions: number): Problem[] {
+  const horizon = horizonSteps(discount);
+  if (horizon <= transitions) return [];
+  return [{
+    where: 'discount', field: ['discount'],
+    message: `γ = ${discount} weighs the future over about ${formatSteps(horizon)} logged steps (1/(1 − γ)), more than the ` +
+      `${transitions.toLocaleString('en-US')} transitions the logs hold in all, so the value would be extrapolated rather than estimated; ` +
+      `use a discount of at most ${(1 - 1 / transitions).toPrecision(6)}, or more data`,
+  }];
+}
+
+/**
+ * A logged action that never changes leaves Q unidentified in the action: the fit can say nothing
+ * about what a different action would have done, whatever a candidate asks for (common practice:
+ * off-policy evaluation needs the logged actions to cover the candidate's). A state that never
+ * changes carries no information and is standardised away.
+ */
+export function dataWarnings(data: TransitionSet): Problem[] {
+  const out: Problem[] = [];
+  for (let j = 0; j < data.actionDim; j++) {
+    if (isConstant(data.actions, data.count, data.actionDim, j)) {
+      out.push({
+        where: `action ${data.actionNames[j]}`, kind: 'constant-action',
+        message: 'the logged action never changes, so the logs say nothing about what another action would do: every candidate that acts differently is extrapolated, and its value cannot be trusted',
+      });
+    }
+  }
+  for (let j = 0; j < data.stateDim; j++) {
+    if (isConstant(data.states, data.count, data.stateDim, j)) {
+      out.push({ where: `state ${data.stateNames[j]}`, kind: 'constant-state', message: 'the logged state never changes; it carries no information and is left out of the features' });
+    }
+  }
+  return out;
+}
+
+function isConstant(values: Float64Array, n: number, width: number, column: number): boolean {
+  const first = values[column];
+  for (let i = 1; i < n; i++) if (values[i * width + column] !== first) return false;
+  return true;
+}
+
+function formatSteps(steps: number): string {
+  return steps >= 1e6 ? steps.toExponential(2) : Math.round(steps).toLocaleString('en-US');
+}

@@ -1,0 +1,67 @@
+/**
+ * One run of a project: the plan (evaluationPlan.ts) and every candidate's model, built once
+ * (model/buildModels.ts). The evaluation reads it, the assessment extends it, and the host that
+ * started it releases it. Engine errors of one candidate become problems naming that candidate;
+ * cancellation becomes one "cancelled" problem; anything else is a bug and propagates.
+ */
+import { FqeCancelledError } from '../core/fqe/fqeErrors';
+import { failure, success, type Problem, type Result } from '../core/result';
+import type { TransitionSet } from '../core/transitions';
+import type { ProjectDocument } from '../project/schema';
+import { isEngineError } from './engineErrors';
+import type { FitIteration } from './estimates';
+import type { CandidateModel } from './model/candidateModel';
+import { buildModel } from './model/buildModel';
+import type { ModelHooks } from './model/modelHooks';
+import { planEvaluation, type EvaluationPlan } from './plan/evaluationPlan';
+
+export interface EvaluationProgress {
+  candidate: string;
+  candidateIndex: number; // 0-based
+  candidateCount: number;
+  iteration: FitIteration | null;
+  /** The pass over the data that forms a linear fit's sums: transitions done of all; null outside it. */
+  dataPass: { done: number; total: number } | null;
+}
+
+export interface RunHooks extends Omit<ModelHooks, 'onIteration'> {
+  readonly onProgress?: (progress: EvaluationProgress) => void;
+}
+
+export interface ProjectRun {
+  readonly plan: EvaluationPlan;
+  readonly models: readonly CandidateModel[];
+  /** Releases every model (a network's tensors). */
+  dispose(): void;
+}
+
+export const CANCELLED_PROBLEM: Problem = { where: 'evaluation', message: 'cancelled before it finished; no results were kept' };
+
+export async function startRun(project: ProjectDocument, dataset: TransitionSet, hooks: RunHooks = {}): Promise<Result<ProjectRun>> {
+  const planned = planEvaluation(project, dataset);
+  if (!planned.ok) return planned;
+  const plan = planned.value, models: CandidateModel[] = [], problems: Problem[] = [];
+  const count = plan.candidates.length;
+  try {
+    for (const [i, candidate] of plan.candidates.entries()) {
+      const report = (iteration: FitIteration | null, dataPass: EvaluationProgress['dataPass'] = null) =>
+        hooks.onProgress?.({ candidate: candidate.name, candidateIndex: i, candidateCount: count, iteration, dataPass });
+      report(null);
+      try {
+        models.push(await buildModel(plan, candidate, { ...hooks, onIteration: report, onDataPass: (done, total) => report(null, { done, total }) }));
+      } catch (error) {
+        if (!isEngineError(error)) throw error;
+        problems.push({ where: `candidates[${candidate.index}] "${candidate.name}"`, field: ['candidates', candidate.index], message: error.message });
+      }
+    }
+  } catch (error) {
+    for (const m of models) m.dispose();
+    if (error instanceof FqeCancelledError) return failure(CANCELLED_PROBLEM);
+    throw error;
+  }
+  if (problems.length > 0) {
+    for (const m of models) m.dispose();
+    return failure(...problems);
+  }
+  return success({ plan, models, dispose: () => models.forEach((m) => m.dispose()) }, [...plan.warnings]);
+}
