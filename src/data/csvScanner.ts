@@ -126,7 +126,9 @@ export class CsvScanner {
     for (;;) {
       const close = bytes.indexOf(QUOTE, i);
       if (close < 0 || close >= end) {
-        this.countLines(start, end);
+        // The file's final line break ends its last line; it does not start another.
+        const last = bytes[end - 1] === LF ? (bytes[end - 2] === CR ? end - 2 : end - 1) : bytes[end - 1] === CR ? end - 1 : end;
+        this.countLines(start, Math.max(start, last));
         this.fault = 'unclosed-quote';
         this.addField(start, end, escaped);
         return end;

@@ -43,7 +43,7 @@ describe('every row is accounted for', () => {
   it('a quote opened at line 81 of 161 and never closed: one row excluded that holds the other 81 lines, said in words', () => {
     const text = lines(160);
     text[80] = '80,"800,80'; // line 81
-    const { value, warnings } = imported(text.join('\n'));
+    const { value, warnings } = imported(`${text.join('\n')}\n`); // the file's final line break starts no line 162
     expect(value.rowCount).toBe(80); // lines 2–80, and the row at line 81 that runs to the end
     expect(value.excluded).toHaveLength(1);
     expect(value.excluded[0]).toMatchObject({ line: 81, kind: 'quote' });
