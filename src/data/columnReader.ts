@@ -150,7 +150,7 @@ function collect(sinks: ColumnSink[], recordCount: number, lastTextLine: number)
   for (const { request, values, alternate, codes, oneOrderOnly } of sinks) {
     const column = exactly(values, recordCount);
     if (request.kind === 'label') labels.set(request.name, { codes: column, values: [...codes!.keys()] });
-    else if (request.kind === 'timestamp') timestamps.set(request.name, { dayFirst: column, monthFirst: exactly(alternate!, recordCount), oneOrderOnly: oneOrderOnly! });
+    else if (request.kind === 'timestamp') timestamps.set(request.name, { dayFirst: column, monthFirst: alternate ? exactly(alternate, recordCount) : column, oneOrderOnly: oneOrderOnly! });
     else (request.kind === 'flag' ? flags : numbers).set(request.name, column);
   }
   return { recordCount, numbers, flags, labels, timestamps, lastTextLine };

@@ -19,8 +19,11 @@ const LABEL_BYTES = 1024;
 export class ColumnSink {
   /** One slot per record; `capacity` must bound the records (csvScanner.recordBound). */
   readonly values: Float64Array;
-  /** Month-first reading of a timestamp column. */
-  readonly alternate?: Float64Array;
+  /**
+   * Month-first reading of a timestamp column: allocated at the first cell that is not a plain
+   * number (plain seconds read the same either way, so a numeric column needs no second copy).
+   */
+  alternate?: Float64Array;
   readonly decimalMark: DecimalMark;
   readonly codes?: Map<string, number>;
   readonly oneOrderOnly?: Map<number, string>;
@@ -29,16 +32,19 @@ export class ColumnSink {
   constructor(readonly request: ColumnRequest, capacity: number, decimalMark: DecimalMark) {
     this.decimalMark = decimalMark;
     this.values = new Float64Array(capacity);
-    if (request.kind === 'timestamp') {
-      this.alternate = new Float64Array(capacity);
-      this.oneOrderOnly = new Map();
-    }
+    if (request.kind === 'timestamp') this.oneOrderOnly = new Map();
     if (request.kind === 'label') this.codes = new Map();
   }
 
   missing(record: number): void {
     this.values[record] = this.request.kind === 'label' ? -1 : NaN;
     if (this.alternate) this.alternate[record] = NaN;
+  }
+
+  /** The month-first column, made on first need as a copy of the day-first values read so far. */
+  private monthFirst(): Float64Array {
+    if (!this.alternate) this.alternate = Float64Array.from(this.values);
+    return this.alternate;
   }
 
   read(bytes: Uint8Array, start: number, end: number, escaped: number, record: number, problems: RowProblems): void {
@@ -92,13 +98,13 @@ export class ColumnSink {
     const seconds = escaped ? NaN : numberFromBytes(bytes, start, end, this.decimalMark);
     if (Number.isFinite(seconds)) {
       this.values[record] = seconds;
-      this.alternate![record] = seconds;
+      if (this.alternate) this.alternate[record] = seconds;
       return;
     }
     const cell = cellText(bytes, start, end, escaped, MESSAGE_BYTES).trim();
     const reading = end - start > MESSAGE_BYTES ? undefined : readTimestamp(cell, this.decimalMark);
     this.values[record] = reading ? reading.dayFirst : NaN;
-    this.alternate![record] = reading ? reading.monthFirst : NaN;
+    this.monthFirst()[record] = reading ? reading.monthFirst : NaN;
     const name = this.request.name;
     if (!reading) problems.add(record, name, 'bad-timestamp', `"${shorten(cell)}" is not a timestamp; expected ${TIMESTAMP_FORMS}`);
     else if (Number.isNaN(reading.dayFirst) && Number.isNaN(reading.monthFirst)) {

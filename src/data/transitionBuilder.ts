@@ -49,27 +49,22 @@ export function buildTransitions(c: StepColumns): { transitions: TransitionSet; 
   const ds = c.states.length, m = c.actions.length, records = c.kept.length;
   const successor = new Int32Array(records);
   const n = successors(c, successor);
-  const rows = new Int32Array(n), from = new Int32Array(n); // record of step k, and of its s'
-  let k = 0;
-  for (let r = 0; r < records; r++) {
-    if (successor[r] === -2) continue;
-    rows[k] = r;
-    from[k++] = successor[r] === -1 ? r : successor[r];
-  }
   const t = allocate(n, ds, m, c.hasStart);
   const next = c.nextStates ?? c.states;
-  // Row by row: each output array is written once, in order, and each input column read in order.
-  for (let k = 0; k < n; k++) {
-    const r = rows[k], s = successor[r] === -1 ? r : from[k], nextColumns = successor[r] === -1 ? c.states : next;
+  // Row by row in file order: each output array is written once, in order, and each column read in order.
+  for (let r = 0, k = 0; r < records; r++) {
+    const to = successor[r];
+    if (to === -2) continue;
+    const terminal = to === -1, s = terminal ? r : to, nextColumns = terminal ? c.states : next;
     for (let j = 0; j < ds; j++) {
       t.states[k * ds + j] = c.states[j][r];
       t.nextStates[k * ds + j] = nextColumns[j][s];
     }
     for (let j = 0; j < m; j++) t.actions[k * m + j] = c.actions[j][r];
     t.rewards[k] = c.rewards[r];
-    t.terminal[k] = successor[r] === -1 ? 1 : 0;
+    t.terminal[k] = terminal ? 1 : 0;
     t.episode[k] = c.episodeOf[r];
-    t.sourceLine[k] = c.lineOf(r);
+    t.sourceLine[k++] = c.lineOf(r);
   }
   writeStartStates(c, t.startStates, t.startEpisode);
   const transitions: TransitionSet = {
