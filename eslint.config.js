@@ -1,5 +1,5 @@
 // Lint, chiefly to keep the layers of DEVELOPERS.md true: an import that points up a layer fails.
-// core ← data, project ← pipeline ← shared ← cli, renderer, main, preload; and inside the renderer
+// core ← data, project, figures ← pipeline ← shared ← cli, renderer, main, preload; and inside the renderer
 // format, state ← document ← worker ← session, plots, export ← components ← files, screens ← App.
 // Built-in no-restricted-imports per folder (folder names as path segments).
 import tseslint from 'typescript-eslint';
@@ -28,17 +28,22 @@ export default tseslint.config(
       '@typescript-eslint/no-unused-vars': ['error', { argsIgnorePattern: '^_', varsIgnorePattern: '^_' }],
     },
   },
-  layer(['src/core/**'], ['data', 'project', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'shared', 'host'],
+  layer(['src/core/**'], ['data', 'project', 'pipeline', 'cli', 'host', 'main', 'preload', 'renderer', 'shared', 'figures'],
     [...nodeBuiltins, 'electron', 'react', 'react-dom', 'chart.js', 'zod', 'papaparse']),
-  layer(['src/data/**'], ['pipeline', 'cli', 'main', 'preload', 'renderer', 'host'], [...nodeBuiltins, 'electron', 'react']),
-  layer(['src/project/**'], ['data', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'host'], [...nodeBuiltins, 'electron', 'react']),
-  layer(['src/pipeline/**'], ['cli', 'main', 'preload', 'renderer', 'host'], [...nodeBuiltins, 'electron', 'react']),
+  layer(['src/data/**'], ['pipeline', 'cli', 'host', 'main', 'preload', 'renderer', 'figures'], [...nodeBuiltins, 'electron', 'react']),
+  layer(['src/project/**'], ['data', 'pipeline', 'cli', 'host', 'main', 'preload', 'renderer', 'figures'], [...nodeBuiltins, 'electron', 'react']),
+  layer(['src/pipeline/**'], ['cli', 'host', 'main', 'preload', 'renderer'], [...nodeBuiltins, 'electron', 'react']),
   // host: Node-side file access shared by the two Node hosts (cli, main); it knows no app layer.
-  layer(['src/host/**'], ['core', 'data', 'project', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'shared'], ['electron', 'react']),
+  layer(['src/host/**'], ['core', 'data', 'project', 'pipeline', 'cli', 'main', 'preload', 'renderer', 'shared', 'figures'], ['electron', 'react']),
   layer(['src/cli/**'], ['main', 'preload', 'renderer'], ['electron', 'react']),
   layer(['src/main/**'], ['renderer', 'cli', 'preload'], ['react']),
   layer(['src/figures/**'], ['data', 'project', 'pipeline', 'cli', 'host', 'main', 'preload', 'renderer', 'shared'],
     [...nodeBuiltins, 'electron', 'react', 'react-dom', 'zod', 'papaparse']),
+  // figures: host-free chart specs and the SVG/PNG writers (app export and report); no DOM host either.
+  {
+    files: ['src/figures/**'],
+    rules: { 'no-restricted-globals': ['error', ...['document', 'window', 'navigator', 'localStorage', 'HTMLCanvasElement'].map((name) => ({ name, message: 'layering: src/figures runs without a DOM (app, worker, command line)' }))] },
+  },
   layer(['src/shared/**'], ['cli', 'host', 'main', 'preload', 'renderer'], [...nodeBuiltins, 'react', 'react-dom']),
   layer(['src/preload/**'], ['core', 'data', 'project', 'pipeline', 'cli', 'host', 'main', 'renderer', 'figures'], [...nodeBuiltins, 'react']),
   layer(['src/renderer/**'], ['main', 'cli', 'host', 'preload'], [...nodeBuiltins, 'electron']),

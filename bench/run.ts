@@ -4,6 +4,7 @@
  *   npm run bench                 all benchmarks
  *   npm run bench -- linear       only the linear FQE sizes
  *   npm run bench -- bootstrap    only the bootstrap resampling rates
+ *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script
  */
 import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -23,6 +24,10 @@ const jobs: Job[] = [
     name: 'bootstrap resamples, 100,000 transitions', group: 'bootstrap',
     run: async () => (await import('./bootstrapBench')).runBootstrapBench(),
   },
+  ...[100_000, 1_000_000].map((n) => ({
+    name: `whole evaluate beside the numerical-Python peer, ${n.toLocaleString('en-US')} transitions`, group: 'peer',
+    run: async () => (await import('./peerBench')).runPeerBench(n),
+  })),
   ...[1_000_000].map((n) => ({
     name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',
     run: async () => ({ ...(await (await import('./importBench')).runImportBench(n)) }),

@@ -8,11 +8,14 @@ import { formatAssessment } from './assessmentFormat';
 import { evaluateProjectFile } from './evaluateProjectFile';
 import { formatCautions, formatEvaluation } from './formatEvaluation';
 import { formatImport } from './formatImport';
+import { createTerminalProgress } from './terminalProgress';
+import { exitStatusOf } from './exitStatus';
 import { processTerminal, type Terminal } from './terminal';
 
 export async function runEvaluateCommand(projectPath: string, options: { json: boolean; terminal?: Terminal } & AssessmentOverrides): Promise<number> {
   const terminal = options.terminal ?? processTerminal;
-  const result = await evaluateProjectFile(projectPath, options);
+  const progress = createTerminalProgress();
+  const result = await evaluateProjectFile(projectPath, options, undefined, progress).finally(() => progress.done());
   if (!result.ok) {
     terminal.err(`${result.failure.message}\n`);
     return result.failure.exitCode;
@@ -30,5 +33,5 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
     terminal.out(formatCautions(evaluation));
   }
-  return evaluation.policies.some((p) => p.status === 'diverged') ? 3 : 0;
+  return exitStatusOf(evaluation);
 }

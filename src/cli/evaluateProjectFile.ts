@@ -5,15 +5,16 @@
  */
 import { createRequire } from 'node:module';
 import { basename, dirname, join, resolve } from 'node:path';
-import { describeProblems, type Result } from '../core/result';
+import { describeProblems, type Problem, type Result } from '../core/result';
 import type { Assessment } from '../pipeline/assessment';
 import { assessRun } from '../pipeline/assessProject';
 import { assessmentSettingsFor, type AssessmentOverrides } from '../pipeline/assessSettings';
 import type { Evaluation } from '../pipeline/estimates';
 import { evaluationOf } from '../pipeline/evaluateProject';
 import { openProject, type OpenedProject } from '../pipeline/openProject';
-import { startRun } from '../pipeline/projectRun';
+import { CANCELLED_PROBLEM, startRun } from '../pipeline/projectRun';
 import { HostFileError, MAX_DATA_BYTES, MAX_PROJECT_BYTES, readRegularFile } from '../host/regularFile';
+import type { TerminalProgress } from './terminalProgress';
 
 export interface ProjectFileRun extends OpenedProject {
   evaluation: Evaluation;
@@ -23,7 +24,7 @@ export interface ProjectFileRun extends OpenedProject {
 /** A failure to report on stderr, with the exit status (1 bad input, 2 bad usage). */
 export interface CliFailure {
   message: string;
-  exitCode: 1 | 2;
+  exitCode: 1 | 2 | 130;
 }
 
 /** The files a run reads, absolute; `check` may refuse the run before any work (e.g. an --out that names one of them). */
@@ -33,7 +34,8 @@ export interface RunFiles {
 }
 
 export async function evaluateProjectFile(
-  projectPath: string, overrides: AssessmentOverrides, now?: () => Date, check?: (files: RunFiles) => Promise<CliFailure | null>,
+  projectPath: string, overrides: AssessmentOverrides, now?: () => Date, progress: TerminalProgress | null = null,
+  check?: (files: RunFiles) => Promise<CliFailure | null>,
 ): Promise<{ ok: true; run: ProjectFileRun } | { ok: false; failure: CliFailure }> {
   let text: string;
   try {
@@ -61,16 +63,27 @@ export async function evaluateProjectFile(
   if (!settings.ok) return { ok: false, failure: { message: describeProblems(settings.problems), exitCode: 2 } };
   const wasmPath = tensorflowWasmFolder();
   if (project.approximator.kind === 'network') await quietTensorflow();
-  const started = await startRun(project, dataset, { wasmPath });
-  if (!started.ok) return { ok: false, failure: { message: describeProblems(started.problems), exitCode: 1 } };
+  const cancel = progress ? () => progress.cancelled() : undefined;
+  const started = await startRun(project, dataset, { wasmPath, cancel, onProgress: progress?.evaluation });
+  if (!started.ok) return { ok: false, failure: failureOf(started.problems) };
   const run = started.value;
   try {
     const evaluation = evaluationOf(run, [...warnings, ...started.warnings].map((w) => `${w.where}: ${w.message}`), now);
-    const assessment = await assessRun(run, { settings: settings.value, wasmPath });
+    const assessment = await assessRun(run, { settings: settings.value, wasmPath, cancel, onProgress: progress?.assessment });
+    if (!assessment.ok && isCancelled(assessment.problems)) return { ok: false, failure: failureOf(assessment.problems) };
     return { ok: true, run: { ...opened.value, evaluation, assessment } };
   } finally {
     run.dispose();
   }
+}
+
+function isCancelled(problems: readonly Problem[]): boolean {
+  return problems.length === 1 && problems[0].message === CANCELLED_PROBLEM.message;
+}
+
+/** Exit 1 for problems with the project or its data; 130 when the user stopped the run (Ctrl+C). */
+function failureOf(problems: readonly Problem[]): CliFailure {
+  return isCancelled(problems) ? { message: 'Cancelled (Ctrl+C): no results were written.', exitCode: 130 } : { message: describeProblems(problems), exitCode: 1 };
 }
 
 /** The folder holding TensorFlow.js's .wasm files in node_modules (with a trailing slash, as setWasmPaths wants). */

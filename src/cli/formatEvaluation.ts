@@ -9,6 +9,8 @@ function formatSignificant(v: number): string {
   return v.toPrecision(6).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
 }
 
+const STATUS_WORDS = { converged: 'converged', maxIterations: 'NOT CONVERGED', diverged: 'DIVERGED' } as const;
+
 function table(rows: string[][]): string {
   const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
   return rows.map((r) => r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('   ')).join('\n');
@@ -18,7 +20,11 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
   const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';
   const s = e.settings;
   const rows: string[][] = [['policy', 'value J', '± s.e.', 'fixed point', 'fit']];
-  for (const p of e.policies) rows.push([p.name, number(p.policyValue), number(p.standardError), number(p.fixedPointValue), p.status === 'converged' ? `converged (${p.iterations} it.)` : p.status]);
+  // A fit that did not meet its convergence rule has no value to report: the table says so and its message says why.
+  for (const p of e.policies) {
+    const settled = p.status === 'converged';
+    rows.push([p.name, settled ? number(p.policyValue) : 'not settled', settled ? number(p.standardError) : '', number(p.fixedPointValue), settled ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
+  }
   rows.push(['logged behaviour (today)', number(e.behaviour.value), number(e.behaviour.standardError), '', `${e.behaviour.episodes} episodes`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
@@ -28,7 +34,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     table(rows),
     '',
     '± s.e. covers start-state sampling only; it is not a confidence interval for the fit.',
-    ...e.policies.filter((p) => p.status !== 'converged').map((p) => `${p.name}: ${p.message}`),
+    ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: its fit did not converge, so no value is reported for it. ${p.message}`),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
     ...(e.behaviour.largestTruncationWeight > 1e-3 ? [`Logged episodes are short for this discount: up to ${(100 * e.behaviour.largestTruncationWeight).toFixed(1)} % of the return's weight lies beyond their end, so the logged value is biased toward zero.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),

@@ -10,6 +10,8 @@ import { renderReport } from '../pipeline/report/reportDocument';
 import type { AssessmentOverrides } from '../pipeline/assessSettings';
 import { formatAssessment } from './assessmentFormat';
 import { evaluateProjectFile } from './evaluateProjectFile';
+import { exitStatusOf } from './exitStatus';
+import { createTerminalProgress } from './terminalProgress';
 import { destinationRefusal } from './reportDestination';
 import { processTerminal, type Terminal } from './terminal';
 
@@ -26,7 +28,8 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   const terminal = options.terminal ?? processTerminal;
   const fail = (message: string, code = 1): number => (terminal.err(`${message}\n`), code);
   const out = resolve(options.out ?? `${basename(projectPath).replace(/\.spcritic$/i, '')}-report.html`);
-  const result = await evaluateProjectFile(projectPath, { sensitivity: true, ...options }, now, (files) => destinationRefusal(out, files));
+  const progress = createTerminalProgress();
+  const result = await evaluateProjectFile(projectPath, { sensitivity: true, ...options }, now, progress, (files) => destinationRefusal(out, files)).finally(() => progress.done());
   if (!result.ok) return fail(result.failure.message, result.failure.exitCode);
   const { project, imported, evaluation, assessment } = result.run;
   const input = reportInputFrom({ project, projectFile: basename(projectPath), evaluation, assessment, data: imported, generatedAt: now() });
@@ -39,5 +42,5 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   if (assessment.ok) terminal.out(formatAssessment(assessment.value));
   else terminal.err(`The report has no intervals or diagnostics: ${input.assessmentProblems.join('; ')}\n`);
   terminal.out(`Report written to ${out}\n`);
-  return evaluation.policies.some((p) => p.status === 'diverged') ? 3 : 0;
+  return exitStatusOf(evaluation);
 }

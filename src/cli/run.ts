@@ -1,17 +1,17 @@
 /**
  * The command line's whole behaviour as one function, so tests (and the fuzz suite) run it
  * in-process with their own terminal. Exit statuses, as the README documents them:
- *   0 success; 1 a problem with the project or its data; 2 wrong usage; 3 a fit diverged;
- *   70 an internal error (a bug: please report it) — never for any input the program can name.
+ *   0 success; 1 a problem with the project or its data; 2 wrong usage; 3 a fit did not converge;
+ *   130 cancelled with Ctrl+C; 70 an internal error (a bug) — never for any input the program can name.
  *   npm run cli -- evaluate <project.spcritic> [--json] [--resamples N] [--level L]
  *   npm run cli -- report <project.spcritic> [--out report.html] [--resamples N] [--level L]
  */
 import { parseArgs } from 'node:util';
 import { runEvaluateCommand } from './evaluateCommand';
 import { runReportCommand } from './reportCommand';
+import { EXIT } from './exitStatus';
 import { processTerminal, type Terminal } from './terminal';
 
-export const EXIT = { ok: 0, badInput: 1, usage: 2, diverged: 3, internal: 70 } as const;
 
 const USAGE = `Usage:
   npm run cli -- evaluate <project.spcritic> [--json] [--resamples N] [--level L]
@@ -33,7 +33,7 @@ Options:
   --help            show this text
 
 Exit status: 0 success; 1 a problem with the project or its data; 2 wrong usage;
-3 a fit diverged; 70 an internal error (please report it with the project file).`;
+3 a fit did not converge; 130 cancelled (Ctrl+C); 70 an internal error (please report it).`;
 
 export async function runCli(argv: string[], terminal: Terminal = processTerminal): Promise<number> {
   try {

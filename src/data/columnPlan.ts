@@ -19,7 +19,7 @@ export interface ColumnPlan {
   readonly warnings: ImportProblem[];
 }
 
-export function planColumns(header: readonly string[], roles: ColumnRoles, fileName: string): { plan?: ColumnPlan; problems: ImportProblem[] } {
+export function planColumns(header: readonly string[], roles: ColumnRoles, fileName: string, decimalMark: '.' | ',' = '.'): { plan?: ColumnPlan; problems: ImportProblem[] } {
   const problems: ImportProblem[] = [];
   const where = `${fileName}, header (line 1)`;
   const fields = fieldPositions(header);
@@ -41,7 +41,7 @@ export function planColumns(header: readonly string[], roles: ColumnRoles, fileN
   };
   roles.states.forEach((s, i) => use(s.column, 'number', 'state', `state ${i + 1}`));
   roles.actions.forEach((a, i) => use(a.column, 'number', 'action', `action ${i + 1}`));
-  const rewardExpression = planReward(roles, header, fileName, use, problems);
+  const rewardExpression = planReward(roles, header, fileName, use, problems, decimalMark);
   planNextState(roles, use, problems, fileName);
   if (roles.episode.kind === 'column') use(roles.episode.column, 'label', 'episode', 'episode column');
   const timestamp = timestampColumnOf(roles);
@@ -59,7 +59,7 @@ function fieldPositions(header: readonly string[]): Map<string, number[]> {
 
 type Use = (name: string, kind: ColumnKind, role: string, setting: string) => void;
 
-function planReward(roles: ColumnRoles, header: readonly string[], fileName: string, use: Use, problems: ImportProblem[]): ExpressionNode | undefined {
+function planReward(roles: ColumnRoles, header: readonly string[], fileName: string, use: Use, problems: ImportProblem[], decimalMark: '.' | ','): ExpressionNode | undefined {
   const reward = roles.reward;
   const role = reward.sense === 'cost' ? 'cost' : 'reward';
   if (reward.kind === 'column') {
@@ -68,7 +68,7 @@ function planReward(roles: ColumnRoles, header: readonly string[], fileName: str
   }
   const where = `${fileName}, ${role} expression`;
   try {
-    const tree = parseExpression(reward.expression);
+    const tree = parseExpression(reward.expression, { decimalMark });
     for (const { name, index } of expressionColumns(tree)) {
       if (header.includes(name)) use(name, 'number', `${role} input`, `${role} expression`);
       else problems.push(importProblem('expression-unknown-column', where, new ExpressionError(`no column named "${name}"${suggestionFor(name, header)}`, reward.expression, index).message));

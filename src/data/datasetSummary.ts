@@ -34,6 +34,8 @@ export interface DatasetSummary {
   readonly decimalMark: DecimalMark;
   /** How day/month dates were read; null when no date depended on it. */
   readonly dateOrder: DateOrder | null;
+  /** The text encoding the file was read in (sourceText.ts). */
+  readonly encoding?: string;
 }
 
 export interface SummaryInputs {
@@ -48,6 +50,7 @@ export interface SummaryInputs {
   readonly delimiter: Delimiter;
   readonly decimalMark: DecimalMark;
   readonly dateOrder: DateOrder | null;
+  readonly encoding?: string;
 }
 
 export function summariseDataset(s: SummaryInputs): DatasetSummary {
@@ -66,6 +69,7 @@ export function summariseDataset(s: SummaryInputs): DatasetSummary {
     delimiter: s.delimiter,
     decimalMark: s.decimalMark,
     dateOrder: s.dateOrder,
+    ...(s.encoding ? { encoding: s.encoding } : {}),
   };
 }
 

@@ -10,7 +10,8 @@
  *   unary      := ("-" | "+") unary | power
  *   power      := primary ("^" unary)?
  *   primary    := number | column | function "(" expression ("," expression)* ")" | "(" expression ")"
- * Numbers always use "." as the decimal mark (1.5, 2e-3), whatever the file uses.
+ * Numbers use "." as the decimal mark (1.5, 2e-3); when the data file uses a decimal comma, "0,5"
+ * is read too and ";" separates function arguments (expressionTokens.ts).
  * Columns: a plain name of letters, digits and "_" (not starting with a digit), or any name in
  * backticks, e.g. `inlet flow (m³/h)`; a backtick inside a quoted name is written twice.
  * Functions: abs(x), exp(x), log(x) (natural), sqrt(x), min(x, y, …), max(x, y, …), clamp(x, lo, hi);
@@ -22,7 +23,7 @@
  */
 import { MAX_EXPRESSION_DEPTH, MAX_EXPRESSION_LENGTH, MAX_EXPRESSION_OPERATIONS } from '../core/limits';
 import { ExpressionError } from './expressionError';
-import { tokenize, type Token, type TokenType } from './expressionTokens';
+import { tokenize, type Token, type TokenOptions, type TokenType } from './expressionTokens';
 
 export type BinaryOperator = '+' | '-' | '*' | '/' | '^';
 export type FunctionName = 'abs' | 'exp' | 'log' | 'sqrt' | 'min' | 'max' | 'clamp';
@@ -41,12 +42,12 @@ const ARITY: Record<FunctionName, { min: number; max: number }> = {
 };
 
 /** Parse an expression; throws ExpressionError pointing at the offending character. */
-export function parseExpression(source: string): ExpressionNode {
+export function parseExpression(source: string, options: TokenOptions = {}): ExpressionNode {
   if (source.trim() === '') throw new ExpressionError('the expression is empty; expected a formula such as -abs(level - 2)', source, 0);
   if (source.length > MAX_EXPRESSION_LENGTH) {
     throw new ExpressionError(`the expression is ${source.length} characters long; at most ${MAX_EXPRESSION_LENGTH} are allowed (write a shorter formula)`, source, MAX_EXPRESSION_LENGTH);
   }
-  const parser = new Parser(source);
+  const parser = new Parser(source, options);
   const tree = parser.expression();
   parser.expectEnd();
   return tree;
@@ -59,8 +60,8 @@ class Parser {
   private depth = 0;
   private operations = 0;
 
-  constructor(private readonly source: string) {
-    this.tokens = tokenize(source);
+  constructor(private readonly source: string, options: TokenOptions) {
+    this.tokens = tokenize(source, options);
   }
 
   expression(): ExpressionNode {

@@ -11,6 +11,7 @@ import type { ColumnRoles, CsvSettings } from '../project/schema';
 import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
 import type { TransitionSet } from '../core/transitions';
+import type { TextEncodingName } from './sourceText';
 import { sampleText, sourceBytes } from './sourceBytes';
 import { isBlank } from './cellText';
 import { readHeader } from './csvHeader';
@@ -45,7 +46,7 @@ const lineOf = (record: number): number => record + 2;
 export function importDataset(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): Result<ImportedDataset> {
   const decoded = sourceBytes(source);
   if (!decoded.ok) return failure(importProblem(decoded.kind, fileName, decoded.reason));
-  const { bytes, start } = decoded;
+  const { bytes, start } = decoded, encoding = { name: decoded.encoding, how: decoded.how };
   if (isBlank(bytes, start, bytes.length)) return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
   const dialect = resolveDialect(sampleText(bytes, start), csv.delimiter, csv.decimalMark);
   const header = readHeader(bytes, start, dialect.delimiter);
@@ -53,7 +54,7 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   if (header.names.every((name) => name === '')) {
     return failure(importProblem('blank-header', `${fileName}, line 1`, 'the first line is blank; expected the header: column names separated by the delimiter'));
   }
-  const { plan, problems: namingProblems } = planColumns(header.names, columns, fileName);
+  const { plan, problems: namingProblems } = planColumns(header.names, columns, fileName, dialect.decimalMark);
   if (!plan) return failure(...namingProblems);
   const problems = new RowProblems();
   const data = { bytes, start: header.dataStart, firstLine: header.firstDataLine };
@@ -66,7 +67,7 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   const episodeCodes = columns.episode.kind === 'column' ? table.labels.get(columns.episode.column)?.codes : undefined;
   if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf, episodeCodes);
   if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf));
-  return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps });
+  return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding });
 }
 
 function settleTimestampColumn(columns: ColumnRoles, table: TableColumns, problems: RowProblems): (SettledTimestamps & { column: string }) | undefined {
@@ -84,6 +85,7 @@ interface Stages {
   problems: RowProblems;
   rewards: Float64Array;
   timestamps?: SettledTimestamps & { column: string };
+  encoding: { name: TextEncodingName; how: 'byte-order mark' | 'detected' };
 }
 
 function assemble(s: Stages): Result<ImportedDataset> {
@@ -113,7 +115,7 @@ function assemble(s: Stages): Result<ImportedDataset> {
   const summary = summarise(s, kept, transitions);
   const excluded = excludedRows(s.problems, lineOf);
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
-  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), ...episodes.report, ...report];
+  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding), ...episodes.report, ...report];
   return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount }, warnings);
 }
 
@@ -129,9 +131,15 @@ function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet): Dat
     rowCount: s.table.recordCount, kept, transitionCount: transitions.count, episodeCount: transitions.episodeCount,
     columns: used, rewards: s.rewards,
     samplingPeriodSeconds: s.timestamps ? nullIfNaN(medianStepSeconds(s.timestamps.seconds, kept)) : null,
-    delimiter: s.dialect.delimiter, decimalMark: s.dialect.decimalMark,
+    delimiter: s.dialect.delimiter, decimalMark: s.dialect.decimalMark, encoding: s.encoding.name,
     dateOrder: decision?.ambiguous ? decision.order : null,
   });
+}
+
+/** "Text encoding: Windows-1252 (detected; the bytes are not valid UTF-8)." */
+function encodingReport(encoding: Stages['encoding']): string {
+  const why = encoding.how === 'byte-order mark' ? 'from its byte-order mark' : encoding.name === 'Windows-1252' ? 'detected: the bytes are not valid UTF-8' : 'detected';
+  return `Text encoding: ${encoding.name} (${why}).`;
 }
 
 function nullIfNaN(x: number): number | null {

@@ -1,34 +1,34 @@
 /**
- * The data file's bytes, checked to be UTF-8 text before any record is read: a UTF-16 file, a byte
- * that does not fit UTF-8, or a NUL byte (no text file holds one; a binary or device file does) is
- * refused with its offset, never with the file's content. A UTF-8 byte-order mark is skipped.
- *
- * One pass: pure ASCII (the common case for logs) needs no decoding at all; otherwise the bytes
- * from the first non-ASCII one are checked by a fatal TextDecoder in 1 MiB pieces, so a large file
- * is never held twice (as bytes and as a string).
+ * The data file's bytes for the scanner, always UTF-8: UTF-8 (the common case) is checked without
+ * decoding — pure ASCII by a word-at-a-time test, anything else by a fatal TextDecoder in 1 MiB
+ * pieces, so a large file is never held twice — and other encodings (UTF-16, Windows-1252; see
+ * sourceText.ts) are decoded there and re-encoded. Refusals give the offset of the first bad
+ * byte, never the file's content. A UTF-8 byte-order mark is skipped.
  */
-import { firstInvalidUtf8Byte } from './sourceText';
+import { sourceText, type TextEncodingName } from './sourceText';
 
-export type SourceBytes = { ok: true; bytes: Uint8Array; start: number } | { ok: false; kind: 'not-utf8' | 'not-text'; reason: string };
+export type SourceBytes =
+  | { ok: true; bytes: Uint8Array; start: number; encoding: TextEncodingName; how: 'byte-order mark' | 'detected' }
+  | { ok: false; kind: 'not-utf8'; reason: string };
 
 const CHUNK = 1 << 20;
 
+/**
+ * UTF-8 (the common case) is read as it is, checked without decoding; any other encoding the
+ * text reader knows (sourceText.ts: UTF-16, Windows-1252) is decoded there and re-encoded as
+ * UTF-8, so the scanner always sees UTF-8 bytes. A zero byte goes the text reader's way too: it
+ * either finds UTF-16 or refuses the file with the byte's offset.
+ */
 export function sourceBytes(source: string | Uint8Array): SourceBytes {
-  const bytes = typeof source === 'string' ? new TextEncoder().encode(source) : source;
-  if ((bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff)) {
-    return { ok: false, kind: 'not-utf8', reason: 'the file is UTF-16 text (it starts with a UTF-16 byte-order mark); save it as UTF-8 CSV and import again' };
+  if (typeof source === 'string') return { ok: true, bytes: new TextEncoder().encode(source.replace(/^\uFEFF/, '')), start: 0, encoding: 'UTF-8', how: 'detected' };
+  const marked = source[0] === 0xef && source[1] === 0xbb && source[2] === 0xbf;
+  const utf16Mark = (source[0] === 0xff && source[1] === 0xfe) || (source[0] === 0xfe && source[1] === 0xff);
+  if (!utf16Mark && source.indexOf(0) < 0 && (isAscii(source) || validUtf8(source))) {
+    return { ok: true, bytes: source, start: marked ? 3 : 0, encoding: 'UTF-8', how: marked ? 'byte-order mark' : 'detected' };
   }
-  const nul = bytes.indexOf(0);
-  if (nul >= 0) return { ok: false, kind: 'not-text', reason: `byte ${nul + 1} is a NUL byte, which no CSV text holds; this is not a text file (choose the CSV export of the log)` };
-  if (!isAscii(bytes) && !validUtf8(bytes)) {
-    const offset = firstInvalidUtf8Byte(bytes);
-    return {
-      ok: false, kind: 'not-utf8',
-      reason: `the file is not UTF-8 text (byte ${offset + 1} is 0x${bytes[offset].toString(16).padStart(2, '0')}); save it as UTF-8 CSV and import again`,
-    };
-  }
-  const start = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf ? 3 : 0;
-  return { ok: true, bytes, start };
+  const text = sourceText(source);
+  if (!text.ok) return { ok: false, kind: 'not-utf8', reason: text.reason };
+  return { ok: true, bytes: new TextEncoder().encode(text.text), start: 0, encoding: text.encoding, how: text.how };
 }
 
 /** No byte has its high bit set: four bytes at a time over the aligned middle. */

@@ -16,6 +16,10 @@ function toElectron(entry: MenuEntry, handlers: MenuHandlers): MenuItemConstruct
   if (entry.role) item.role = entry.role;
   if (entry.accelerator) item.accelerator = entry.accelerator;
   if (entry.enabled === false) item.enabled = false;
+  if (entry.visible === false) {
+    item.visible = false;
+    item.acceleratorWorksWhenHidden = true;
+  }
   if (entry.submenu) item.submenu = entry.submenu.map((e) => toElectron(e, handlers));
   const action = entry.action;
   if (action) item.click = (_item, focused) => handlers.run(action, focused);

@@ -35,6 +35,8 @@ export interface MenuEntry {
   submenu?: MenuEntry[];
   type?: 'separator';
   enabled?: boolean;
+  /** Hidden items still answer their accelerator (a second shortcut for a command). */
+  visible?: boolean;
 }
 
 export interface MenuOptions {
@@ -86,6 +88,8 @@ function editMenu(): MenuEntry {
     submenu: [
       command('Undo', 'CmdOrCtrl+Z', 'undo'),
       command('Redo', 'CmdOrCtrl+Shift+Z', 'redo'),
+      // Ctrl+Y is redo on Windows and in most Linux apps (common practice): a second, hidden item carries it.
+      { ...command('Redo', 'CmdOrCtrl+Y', 'redo'), visible: false },
       separator,
       { role: 'cut', accelerator: 'CmdOrCtrl+X' },
       { role: 'copy', accelerator: 'CmdOrCtrl+C' },

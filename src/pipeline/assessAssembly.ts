@@ -91,7 +91,9 @@ function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
 
 export function comparison(loggedValue: number, replicates: ReplicateSet, works: CandidateWork[], level: number, sign: number): Comparison {
   const behaviour: Estimator = { name: BEHAVIOUR_NAME, point: loggedValue, replicates: replicates.loggedReturn };
-  const candidates: Estimator[] = works.map((w, j) => ({ name: w.model.name, point: w.model.fit.policyValue, replicates: replicates.candidates[j].fqe }));
+  // A fit that did not converge has no value to compare: it is left out of the differences and the ranking.
+  const candidates: Estimator[] = works.flatMap((w, j) => (w.model.fit.status !== 'converged' ? []
+    : [{ name: w.model.name, point: w.model.fit.policyValue, replicates: replicates.candidates[j].fqe }]));
   const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, behaviour, level, sign));
   for (let i = 0; i < candidates.length; i++) {
     for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));

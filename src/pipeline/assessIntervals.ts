@@ -58,7 +58,8 @@ export function ranking(estimators: Estimator[]): Ranking {
     }
     if (holds) whole++;
   }
-  const share = (count: number) => (usable ? count / usable : null);
+  // With fewer than two policies there is no order to hold.
+  const share = (count: number) => (usable && estimators.length > 1 ? count / usable : null);
   return {
     order: order.map((e) => e.name),
     frequency: share(whole),

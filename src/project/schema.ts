@@ -28,9 +28,12 @@ const signalSchema = strictObject({
   unit: z.string().default(''),
 });
 
+/** The reward's or cost's own unit (e.g. "€", "kWh"); J, V and Q are in it, discounted. Optional. */
+const valueUnit = z.string().max(40).optional();
+
 const rewardSchema = z.discriminatedUnion('kind', [
-  strictObject({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']) }),
-  strictObject({ kind: z.literal('expression'), expression: z.string().trim().min(1).max(MAX_EXPRESSION_LENGTH, `expected at most ${MAX_EXPRESSION_LENGTH} characters`), sense: z.enum(['reward', 'cost']) }),
+  strictObject({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  strictObject({ kind: z.literal('expression'), expression: z.string().trim().min(1).max(MAX_EXPRESSION_LENGTH, `expected at most ${MAX_EXPRESSION_LENGTH} characters`), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
 ]);
 
 const nextStateSchema = z.discriminatedUnion('kind', [
@@ -157,6 +160,21 @@ export const bootstrapSchema = strictObject({
   level: finite.min(CONFIDENCE_LEVEL.min, `expected a confidence level of at least ${CONFIDENCE_LEVEL.min}`).lt(CONFIDENCE_LEVEL.below, `expected a confidence level below ${CONFIDENCE_LEVEL.below}`).default(CONFIDENCE_LEVEL.default),
 });
 
+/**
+ * The last run's results, kept so reopening needs no rerun. `fingerprint` is the SHA-256 of what
+ * the numbers depend on (the data file's content and every setting; the renderer's runKey.ts):
+ * results whose fingerprint differs from the project's own are shown as out of date, never as
+ * current. evaluation and assessment are the CLI's published JSON forms (pipeline/*Json.ts).
+ */
+export const resultsSchema = strictObject({
+  format: z.literal(1),
+  fingerprint: z.string().regex(/^[0-9a-f]{64}$/, 'expected 64 hexadecimal digits'),
+  /** ISO 8601 time the results were kept. */
+  savedAt: z.string(),
+  evaluation: z.record(z.string(), z.unknown()),
+  assessment: z.record(z.string(), z.unknown()).optional(),
+});
+
 export const projectSchema = strictObject({
   format: z.literal(PROJECT_FORMAT),
   version: z.literal(PROJECT_VERSION),
@@ -173,6 +191,7 @@ export const projectSchema = strictObject({
   startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
   surface: surfaceSchema.optional(),
   bootstrap: bootstrapSchema.optional(),
+  results: resultsSchema.optional(),
   /**
    * Free-form remarks of the user's own (any JSON: text, or an object such as
    * { "reviewedBy": "…", "comment": "…" }); never read by the program, kept as written on every save.
@@ -189,3 +208,4 @@ export type ColumnRoles = z.infer<typeof columnRolesSchema>;
 export type CsvSettings = z.infer<typeof csvSettingsSchema>;
 export type ApproximatorSettings = z.infer<typeof approximatorSchema>;
 export type BootstrapSettings = z.infer<typeof bootstrapSchema>;
+export type SavedResults = z.infer<typeof resultsSchema>;

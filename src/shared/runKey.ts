@@ -1,13 +1,15 @@
 /**
  * What an evaluation's numbers depend on, as one string: the data's content (its fingerprint) and
  * everything in the document except its name, descriptions, the surface axes (redrawn without a
- * rerun) and where the data file lives or what was last saved about it. Two documents with the
+ * rerun), the kept results and where the data file lives or what was last saved about it. Two documents with the
  * same key give the same numbers.
  */
+import { sha256 } from '@noble/hashes/sha2.js';
+import { bytesToHex } from '@noble/hashes/utils.js';
 import type { ProjectDocument } from '../project/schema';
 
 export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
-  const { name: _name, description: _description, surface: _surface, data, ...rest } = doc;
+  const { name: _name, description: _description, surface: _surface, data, results: _results, ...rest } = doc;
   const candidates = rest.candidates.map(({ description: _d, ...c }) => c);
   return JSON.stringify({ ...rest, candidates, csv: data.csv, dataFingerprint });
 }
@@ -15,4 +17,9 @@ export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
 /** What an import depends on: the CSV settings, the column roles, and which bytes were loaded. */
 export function importKey(doc: ProjectDocument, sourceVersion: number): string {
   return JSON.stringify([doc.data.csv, doc.columns, sourceVersion]);
+}
+
+/** SHA-256 of the run key: the fingerprint kept with saved results (FIPS 180-4, @noble/hashes). */
+export function runFingerprint(key: string): string {
+  return bytesToHex(sha256(new TextEncoder().encode(key)));
 }

@@ -24,6 +24,8 @@ export interface DataInspection {
   previewRows: string[][];
   delimiter: ',' | ';' | '\t';
   decimalMark: '.' | ',';
+  /** The text encoding the bytes were read in (src/data/sourceText.ts), and how it was known. */
+  encoding?: { name: string; how: 'byte-order mark' | 'detected' };
 }
 
 /** An evenly spaced subset of the logged transitions, small enough to draw. */

@@ -8,6 +8,7 @@ import { copyFile, readFile, rename, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
+import { startMainThreadProbe, stopMainThreadProbe } from './harness/mainThreadProbe';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { chooseData, goToStep, TANK_CSV } from '../renderer/e2e/appSteps';
 import { writeTankProject } from '../renderer/e2e/projectFiles';
@@ -199,28 +200,3 @@ function report(what: string, probe: { longestTaskMs: number; longTasks: number;
 }
 
 /** Runs in the page: record long tasks and the gaps between animation frames until stopped. */
-function startMainThreadProbe(): void {
-  const probe = { longestTaskMs: 0, longTasks: 0, longestFrameGapMs: 0, running: true, observer: null as PerformanceObserver | null };
-  probe.observer = new PerformanceObserver((list) => {
-    for (const entry of list.getEntries()) {
-      probe.longTasks++;
-      probe.longestTaskMs = Math.max(probe.longestTaskMs, entry.duration);
-    }
-  });
-  probe.observer.observe({ type: 'longtask' });
-  let last = performance.now();
-  const frame = (now: number) => {
-    probe.longestFrameGapMs = Math.max(probe.longestFrameGapMs, now - last);
-    last = now;
-    if (probe.running) requestAnimationFrame(frame);
-  };
-  requestAnimationFrame(frame);
-  (window as unknown as { __probe: typeof probe }).__probe = probe;
-}
-
-function stopMainThreadProbe(): { longestTaskMs: number; longTasks: number; longestFrameGapMs: number } {
-  const probe = (window as unknown as { __probe: { longestTaskMs: number; longTasks: number; longestFrameGapMs: number; running: boolean; observer: PerformanceObserver } }).__probe;
-  probe.running = false;
-  probe.observer.disconnect();
-  return { longestTaskMs: probe.longestTaskMs, longTasks: probe.longTasks, longestFrameGapMs: probe.longestFrameGapMs };
-}

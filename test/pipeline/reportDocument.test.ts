@@ -11,14 +11,14 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { assessProject } from '../../src/pipeline/assessProject';
 import { evaluateProject } from '../../src/pipeline/evaluateProject';
 import { openProject } from '../../src/pipeline/openProject';
-import { encodePng } from '../../src/pipeline/report/pngImage';
+import { encodePng } from '../../src/figures/writers/pngEncoder';
 import { REPORT_SECTIONS, renderReport } from '../../src/pipeline/report/reportDocument';
 import { escapeHtml } from '../../src/pipeline/report/htmlText';
 
-describe('encodePng', () => {
+describe('encodePng (src/figures, shared by the report and the app’s SVG export)', () => {
   it('writes a PNG whose image data zlib inflates to the pixel rows, with valid CRCs', () => {
-    const w = 3, h = 2, rgb = Uint8Array.from({ length: w * h * 3 }, (_, i) => (i * 37) % 256);
-    const png = encodePng(w, h, rgb);
+    const w = 3, h = 2, rgb = Uint8ClampedArray.from({ length: w * h * 4 }, (_, i) => (i * 37) % 256);
+    const png = encodePng({ width: w, height: h, rgba: rgb });
     expect(Array.from(png.subarray(0, 8))).toEqual([137, 80, 78, 71, 13, 10, 26, 10]);
     const view = new DataView(png.buffer, png.byteOffset);
     const chunks: { type: string; data: Uint8Array }[] = [];
@@ -32,8 +32,8 @@ describe('encodePng', () => {
     expect(chunks.map((c) => c.type)).toEqual(['IHDR', 'IDAT', 'IEND']);
     const rows = inflateSync(chunks[1].data);
     for (let y = 0; y < h; y++) {
-      expect(rows[y * (1 + 3 * w)]).toBe(0); // filter type None
-      expect(Array.from(rows.subarray(y * (1 + 3 * w) + 1, (y + 1) * (1 + 3 * w)))).toEqual(Array.from(rgb.subarray(y * 3 * w, (y + 1) * 3 * w)));
+      expect(rows[y * (1 + 4 * w)]).toBe(0); // filter type None
+      expect(Array.from(rows.subarray(y * (1 + 4 * w) + 1, (y + 1) * (1 + 4 * w)))).toEqual(Array.from(rgb.subarray(y * 4 * w, (y + 1) * 4 * w)));
     }
   });
 });

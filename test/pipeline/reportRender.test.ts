@@ -61,8 +61,8 @@ describe('the report in headless Chromium', () => {
     }));
     expect(figures.length).toBeGreaterThanOrEqual(9);
     expect(figures.every((f) => f.drawn && f.captioned)).toBe(true);
-    const images = await page.$$eval('svg image', (all) => all.length);
-    expect(images).toBe(2); // one value surface per candidate
+    const images = await page.$$eval('figure[id^="fig-surface"] svg image', (all) => all.length);
+    expect(images).toBe(4); // per candidate's value surface: the grid and the colour ramp
     expect(requests.filter((u) => !u.startsWith('file://') && !u.startsWith('data:'))).toEqual([]);
     expect(failed).toEqual([]);
     expect(errors).toEqual([]);

@@ -2,8 +2,10 @@
 import type { Assessment, IntervalEstimate } from '../assessment';
 import { BEHAVIOUR_NAME } from '../assessAssembly';
 import { formatInterval, formatNumber, formatPercent, html, raw, type Html } from './htmlText';
-import { senseWords, type FigureCounter, type ReportInput } from './reportInput';
-import { svgIntervalChart, type IntervalRow } from './svgIntervalChart';
+import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
+import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
+import { PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
+import { inlineSvg } from '../../figures/writers/inlineSvg';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
   const a = input.assessment;
@@ -14,9 +16,9 @@ export function comparisonSection(input: ReportInput, figures: FigureCounter): H
 function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCounter): Html {
   const words = senseWords(input), level = formatPercent(a.settings.level, 0);
   const vsToday = new Map(a.comparison.differences.filter((d) => d.b === BEHAVIOUR_NAME).map((d) => [d.a, d]));
-  const rows = [...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue })), { name: BEHAVIOUR_NAME, estimate: a.behaviour }];
+  const rows = [...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue })), { name: PRESENT_CONTROLLER, estimate: a.behaviour }];
   const figure = figures.next();
-  const chartRows: IntervalRow[] = rows.map((r, i) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, group: i === rows.length - 1 ? 6 : i }));
+  const chartRows: IntervalRowData[] = rows.map((r, i) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: i === rows.length - 1 }));
   return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states; the logged behaviour’s value is the mean discounted return of its episodes.
       Intervals are ${level} bootstrap intervals over episodes; “vs today” is the paired difference J − J(today) on the same resamples.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th>
@@ -27,8 +29,8 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
         <td class="num">${d ? formatInterval(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(d.probabilityBetter) : ''}</td></tr>`;
     })}
     </tbody></table>
-    <figure id="fig-comparison">${raw(svgIntervalChart(chartRows, `J — ${words.value}`, { value: a.behaviour.value, label: BEHAVIOUR_NAME }))}
-      <figcaption>Figure ${figure}. J of each candidate and of the logged behaviour (dashed line) with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} episodes. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
+    <figure id="fig-comparison">${raw(intervalFigure('comparison-svg', chartRows, valueAxisLabel(input, 'J'), a.behaviour.value))}
+      <figcaption>Figure ${figure}. J of each candidate and of the present controller (dashed line) with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} episodes. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
     ${pairwise(a, level)}
     <h3>Ranking</h3>
     <p>By point estimate: <strong>${a.comparison.ranking.order.join(' › ')}</strong>. ${a.comparison.ranking.frequency === null
@@ -63,4 +65,15 @@ function pointComparison(input: ReportInput): Html {
     ${e.policies.map((p) => html`<tr><td>${p.name}</td><td class="num">${formatNumber(p.policyValue, 5)}</td><td class="num">${formatNumber(p.standardError, 3)}</td><td>${p.status}</td></tr>`)}
     <tr><td>${BEHAVIOUR_NAME}</td><td class="num">${formatNumber(e.behaviour.value, 5)}</td><td class="num">${formatNumber(e.behaviour.standardError, 3)}</td><td>${e.behaviour.episodes} episodes</td></tr>
     </tbody></table>`;
+}
+
+/** Estimates with intervals as an inline SVG (figures/charts/intervalChart.ts), 640 px wide. */
+export function intervalFigure(id: string, rows: IntervalRowData[], axisLabel: string, reference?: number): string {
+  return inlineSvg((look) => intervalChart({ rows, axisLabel, title: '', reference, theme: 'light' }, look) as never,
+    { widthPx: 640, heightPx: intervalChartHeight(rows.length), id, label: axisLabel.replace(/\^\{|\}|_\{/g, '') });
+}
+
+/** A policy's name as the report shows it: the logged behaviour reads "present controller (logged)". */
+export function shownName(name: string): string {
+  return name === BEHAVIOUR_NAME ? PRESENT_CONTROLLER : name;
 }

@@ -1,11 +1,11 @@
 /** The evidence sections: coverage diagnostics, cross-checks, sensitivity, and the warnings and cautions. */
 import type { Assessment, AssessmentWarning, CandidateAssessment } from '../assessment';
 import { CAUTIONS } from '../cautions';
-import { estimateCells } from './reportComparison';
+import { sensitivityChart } from '../../figures/charts/sensitivity';
+import { inlineSvg } from '../../figures/writers/inlineSvg';
+import { estimateCells, intervalFigure, shownName } from './reportComparison';
 import { formatInterval, formatNumber, formatPercent, html, raw, type Html } from './htmlText';
-import { senseWords, type FigureCounter, type ReportInput } from './reportInput';
-import { svgIntervalChart } from './svgIntervalChart';
-import { svgLineChart } from './svgLineChart';
+import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 export function diagnosticsSection(input: ReportInput): Html {
   const a = input.assessment;
@@ -42,14 +42,14 @@ function warningList(warnings: AssessmentWarning[]): Html {
 }
 
 export function crossChecksSection(input: ReportInput, figures: FigureCounter): Html {
-  const a = input.assessment, words = senseWords(input);
+  const a = input.assessment;
   if (!a) return html`<section id="cross-checks"><h2>Cross-checks</h2><p>Not computed: ${input.assessmentProblems.join('; ')}</p></section>`;
   return html`<section id="cross-checks"><h2>Cross-checks by independent methods</h2>
     <p>Each method estimates the same J from the same logs under a different assumption; a large gap from fitted Q-evaluation (FQE) is flagged.</p>
     ${a.candidates.map((c) => {
       const n = figures.next(), level = formatPercent(a.settings.level, 0);
-      const rows = [{ label: 'Fitted Q-evaluation', value: c.policyValue.value, interval: c.policyValue.percentile, group: 0 },
-        ...c.crossChecks.filter((x) => x.estimate).map((x, i) => ({ label: x.label, value: x.estimate!.value, interval: x.estimate!.percentile, group: i + 1 }))];
+      const rows = [{ label: 'Fitted Q-evaluation', value: c.policyValue.value, interval: c.policyValue.percentile },
+        ...c.crossChecks.filter((x) => x.estimate).map((x) => ({ label: x.label, value: x.estimate!.value, interval: x.estimate!.percentile }))];
       return html`<h3>${c.name}</h3>
         <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th><th class="num">− FQE (${level})</th><th>Verdict</th></tr></thead><tbody>
         <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td></tr>
@@ -57,7 +57,7 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
           <td class="num">${x.difference ? html`${formatNumber(x.difference.value, 3)}<br/>${formatInterval(x.difference.percentile, 3)}` : ''}</td>
           <td><span class="verdict-${x.agreement}">${verdictWord(x.agreement)}</span><br/><span class="small">${x.note}</span></td></tr>`)}
         </tbody></table>
-        <figure id="fig-checks-${n}">${raw(svgIntervalChart(rows, `J — ${words.value}`))}
+        <figure id="fig-checks-${n}">${raw(intervalFigure(`checks-${n}-svg`, rows, valueAxisLabel(input, 'J')))}
           <figcaption>Figure ${n}. ${c.name}: J by fitted Q-evaluation and by each applicable cross-check, with ${level} percentile bootstrap intervals over the same resamples.</figcaption></figure>`;
     })}
     <h3>What each method rests on</h3>
@@ -76,11 +76,10 @@ export function sensitivitySection(input: ReportInput, figures: FigureCounter): 
     <p>J over a range of settings: a conclusion that holds across the range does not hinge on the setting.</p>
     ${s.curves.map((curve) => {
       const n = figures.next();
-      const chart = svgLineChart({
-        series: curve.series.map((x) => ({ name: x.name, x: curve.settings, y: x.values, points: true, dashed: x.status.every((st) => st === 'logged') })),
-        xLabel: curve.label, yLabel: `J — ${words.short}`, integerX: curve.parameter !== 'discount', markers: [{ x: curve.settings[curve.projectIndex], label: 'project setting' }],
-      });
-      return html`<figure id="fig-sensitivity-${n}">${raw(chart)}<figcaption>Figure ${n}. J (${words.value}, ${words.better}) against the ${curve.label}; dotted line: the project’s setting.
+      const shown = { ...curve, series: curve.series.map((x) => ({ ...x, name: shownName(x.name) })) };
+      const chart = inlineSvg((look) => sensitivityChart({ curve: shown, valueLabel: valueAxisLabel(input, 'J'), title: '', theme: 'light' }, look) as never,
+        { widthPx: 640, heightPx: 360, id: `sensitivity-${n}-svg`, label: `J against the ${curve.label}` });
+      return html`<figure id="fig-sensitivity-${n}">${raw(chart)}<figcaption>Figure ${n}. J (${words.value}, ${words.better}) against the ${curve.label}; large points: the project’s setting.
         The ranking is ${curve.rankingStable ? 'the same at every setting' : raw('<strong>not</strong> the same at every setting')}.</figcaption></figure>`;
     })}
     <ul class="small">${s.notes.map((note) => html`<li>${note}</li>`)}</ul></section>`;

@@ -23,6 +23,18 @@ export function senseWords(input: ReportInput): { value: string; better: string;
     : { value: 'expected discounted reward', better: 'higher is better', short: 'reward' };
 }
 
+/** The cost's or reward's own unit from the project ('' when none). */
+export function valueUnit(input: ReportInput): string {
+  return input.project.columns.reward.unit?.trim() ?? '';
+}
+
+/** Rich-text axis title of V, Q or J: "V^{π}(s), discounted cost (€)". */
+export function valueAxisLabel(input: ReportInput, symbol: 'V' | 'Q' | 'J'): string {
+  const unit = valueUnit(input), sense = input.evaluation.valueSense;
+  const head = symbol === 'V' ? 'V^{π}(s)' : symbol === 'Q' ? 'Q^{π}(s, a)' : 'J';
+  return `${head}, discounted ${sense}${unit ? ` (${unit})` : ''}`;
+}
+
 /** Figure numbers in order of appearance, per document (no shared state between reports). */
 export class FigureCounter {
   private count = 0;

@@ -17,11 +17,13 @@ import { StepNav } from './StepNav';
 import { stepStatuses, type StepId } from './steps';
 import { toggleTheme } from './theme';
 import { Toolbar } from './Toolbar';
+import { HelpPanel } from './help/HelpPanel';
 import { useWorkspace } from './WorkspaceContext';
 
 export function App() {
   const workspace = useWorkspace();
   const [step, setStep] = useState<StepId>('plant-log');
+  const [helpOpen, setHelpOpen] = useState(false);
   const screen = useRef<HTMLElement>(null);
   const doc = useDocument();
   const session = useSession();
@@ -46,6 +48,12 @@ export function App() {
   useEffect(() => setStep('plant-log'), [generation]);
   useEffect(() => {
     const onKey = (e: KeyboardEvent): void => {
+      if (e.key === 'F1') {
+        e.preventDefault();
+        setHelpOpen(true);
+        return;
+      }
+      if (e.key === 'Escape') setHelpOpen(false);
       const found = keyCommand(e, workspace.api.host);
       if (!found) return;
       e.preventDefault();
@@ -59,7 +67,7 @@ export function App() {
   const go = (id: StepId): void => setStep(id);
   return (
     <div className="app">
-      <Toolbar />
+      <Toolbar onHelp={() => setHelpOpen((open) => !open)} />
       <NoticeBanner />
       <div className="body">
         <StepNav current={step} statuses={statuses} onSelect={go} />
@@ -71,6 +79,7 @@ export function App() {
           {step === 'findings' && <FindingsScreen />}
         </main>
       </div>
+      {helpOpen && <HelpPanel onClose={() => setHelpOpen(false)} />}
       <DialogHost questions={workspace.questions} />
     </div>
   );

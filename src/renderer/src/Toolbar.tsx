@@ -1,4 +1,5 @@
 /** The top bar: project file commands, undo and redo, the theme, and the project's name and state. */
+import { useCallback } from 'react';
 import { useDirty, useDocumentState, useSession } from './hooks';
 import { fileNameOf } from './document/dataPath';
 import { redoLabel, undoLabel } from './document/editHistory';
@@ -8,7 +9,18 @@ import { useWorkspace } from './WorkspaceContext';
 
 const same = (t: Theme) => t;
 
-export function Toolbar() {
+/** Keeps --toolbar-height on <html> equal to the toolbar's height, so the sticky step list sits under it. */
+function useToolbarHeight(): (element: HTMLElement | null) => void {
+  return useCallback((element: HTMLElement | null) => {
+    if (!element || typeof ResizeObserver === 'undefined') return;
+    const set = () => document.documentElement.style.setProperty('--toolbar-height', `${element.getBoundingClientRect().height}px`);
+    set();
+    new ResizeObserver(set).observe(element);
+  }, []);
+}
+
+export function Toolbar({ onHelp }: { onHelp: () => void }) {
+  const toolbarRef = useToolbarHeight();
   const { files, documents } = useWorkspace();
   const name = useDocumentState((s) => s.history.present.name);
   const path = useDocumentState((s) => s.projectPath);
@@ -18,7 +30,7 @@ export function Toolbar() {
   const recent = useSession().recentProjects;
   const theme = useStore(themeStore, same);
   return (
-    <header className="toolbar">
+    <header className="toolbar" ref={toolbarRef}>
       <h1 className="title">Setpoint Critic</h1>
       <span className="project-name" data-testid="project-title" title={path ?? 'not saved yet'}>
         {name}{dirty ? ' • unsaved changes' : ''}
@@ -41,8 +53,9 @@ export function Toolbar() {
       </div>
       <div className="group" role="group" aria-label="Edit">
         <button onClick={documents.undo} disabled={!undoText} title={undoText ? `Undo ${undoText} (Ctrl+Z)` : 'Nothing to undo'} data-testid="undo">Undo</button>
-        <button onClick={documents.redo} disabled={!redoText} title={redoText ? `Redo ${redoText} (Ctrl+Shift+Z)` : 'Nothing to redo'} data-testid="redo">Redo</button>
+        <button onClick={documents.redo} disabled={!redoText} title={redoText ? `Redo ${redoText} (Ctrl+Y or Ctrl+Shift+Z)` : 'Nothing to redo'} data-testid="redo">Redo</button>
       </div>
+      <button onClick={onHelp} data-testid="open-help" title="Steps, sample projects and the glossary (F1)">Help</button>
       <button onClick={toggleTheme} aria-pressed={theme === 'dark'} data-testid="toggle-theme" title="Switch between light and dark">
         {theme === 'dark' ? 'Light theme' : 'Dark theme'}
       </button>

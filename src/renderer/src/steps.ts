@@ -19,7 +19,7 @@ export interface StepDefinition {
 export const STEPS: readonly StepDefinition[] = [
   { id: 'plant-log', title: 'Plant log', purpose: 'The logged data: which file, and what each column is.' },
   { id: 'candidates', title: 'Candidates', purpose: 'The setpoint policies to evaluate.' },
-  { id: 'estimator', title: 'Estimator', purpose: 'How the values are estimated.' },
+  { id: 'estimator', title: 'Method', purpose: 'How the values are estimated from the log: discount, approximator of Q, intervals.' },
   { id: 'run', title: 'Run', purpose: 'Fit every candidate and watch the progress.' },
   { id: 'findings', title: 'Findings', purpose: 'Values, surfaces, slices and exports.' },
 ];
@@ -42,11 +42,11 @@ export function stepStatuses(doc: ProjectDocument, session: SessionState, proble
             : { done: false, status: 'Importing…' };
   const candidateProblems = problems.filter((p) => p.path.startsWith('candidates'));
   const candidates: StepStatus = doc.candidates.length === 0 ? { done: false, status: 'Needs at least one candidate' }
-    : candidateProblems.length > 0 ? { done: false, status: `${candidateProblems.length} field(s) to fix` }
+    : candidateProblems.length > 0 ? { done: false, status: `${candidateProblems.length} field${candidateProblems.length === 1 ? '' : 's'} to fix` }
       : { done: true, status: `${doc.candidates.length} candidate${doc.candidates.length === 1 ? '' : 's'}` };
   const estimatorProblems = problems.filter((p) => ESTIMATOR_FIELDS.some((f) => p.path === f || p.path.startsWith(`${f}.`)));
-  const estimator: StepStatus = estimatorProblems.length > 0 ? { done: false, status: `${estimatorProblems.length} setting(s) to fix` }
-    : { done: true, status: doc.approximator.kind === 'linear' ? 'Linear features' : 'Neural network' };
+  const estimator: StepStatus = estimatorProblems.length > 0 ? { done: false, status: `${estimatorProblems.length} setting${estimatorProblems.length === 1 ? '' : 's'} to fix` }
+    : { done: true, status: doc.approximator.kind === 'linear' ? 'Linear in features' : 'Neural network' };
   const run: StepStatus = session.run.status === 'running' ? { done: false, status: 'Running…' }
     : session.evaluation && !stale ? { done: true, status: 'Finished' }
       : plantLog.done && candidates.done && estimator.done ? { done: false, status: stale ? 'Settings changed: run again' : 'Ready to run' }

@@ -9,6 +9,7 @@ import { syncDocumentState } from './files/documentTitle';
 import { createProjectCommands, type ProjectCommands } from './files/projectCommands';
 import { offerRecovery, startRecoveryAutosave } from './files/recovery';
 import { startAutoImport } from './session/autoImport';
+import { startResultsKeeping } from './session/savedResults';
 import { createAssessmentRunner, type AssessmentRunner } from './session/assessmentRunner';
 import { createDataLoading, type DataLoading } from './session/dataLoading';
 import { createEvaluationRunner, type EvaluationRunner } from './session/evaluationRunner';
@@ -41,7 +42,7 @@ export function createWorkspace(api: AppApi, client: EvaluationClient = createEv
   return {
     api, documents, session, questions, client, data, files, runner, assessor,
     start() {
-      const stops = [syncDocumentState(api, documents), startRecoveryAutosave(api, documents), startAutoImport(documents, session, client)];
+      const stops = [syncDocumentState(api, documents), startRecoveryAutosave(api, documents), startAutoImport(documents, session, client), startResultsKeeping(documents, session)];
       void files.refreshRecent();
       void offerRecovery({ api, documents, session, questions, data });
       return () => stops.forEach((stop) => stop());

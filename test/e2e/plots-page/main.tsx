@@ -4,11 +4,11 @@
  */
 import { Chart } from 'chart.js';
 import { createRoot } from 'react-dom/client';
-import { exportCaption, exportPlotPng, exportPlotSvg, type ExportOptions } from '../../../src/renderer/src/export';
-import { bytesToBase64 } from '../../../src/renderer/src/export/base64';
+import { CAUTION, exportCaption, exportPlotPng, exportPlotSvg, type ExportOptions } from '../../../src/renderer/src/export';
+import { bytesToBase64 } from '../../../src/figures/writers/base64';
 import { ActionSlicePlot, ConvergencePlot, PolicyValueChart, ValueSurfacePlot, type Theme } from '../../../src/renderer/src/plots';
-import { plotPalette } from '../../../src/renderer/src/plots/plotTheme';
-import { clippedSlice, SLICE_POLICY } from '../../renderer/plots/syntheticPlotData';
+import { plotPalette } from '../../../src/figures/parts/plotTheme';
+import { clippedSlice, SLICE_POLICY } from '../../figures/syntheticPlotData';
 import { PLOT_KINDS, plotSpec, type PlotKind } from './plotSpecs';
 import { canvasStats, colourBarProbe, decodePng, parseSvg, renderSvg } from './pageProbes';
 
@@ -47,11 +47,11 @@ const caption = exportCaption({ project: 'Tank levels (synthetic)', policy: 'gen
 
 const api = {
   caption,
-  async exportPng(kind: PlotKind, theme: Theme, options: Omit<ExportOptions, 'caption'>): Promise<string> {
-    return bytesToBase64(await exportPlotPng(plotSpec(kind, theme), { ...options, caption }));
+  async exportPng(kind: PlotKind, theme: Theme, options: Omit<ExportOptions, 'caption' | 'caution'>): Promise<string> {
+    return bytesToBase64(await exportPlotPng(plotSpec(kind, theme), { ...options, caption, caution: CAUTION }));
   },
-  exportSvg(kind: PlotKind, theme: Theme, options: Omit<ExportOptions, 'caption'>): string | null {
-    return exportPlotSvg(plotSpec(kind, theme), { ...options, caption });
+  exportSvg(kind: PlotKind, theme: Theme, options: Omit<ExportOptions, 'caption' | 'caution'>): string | null {
+    return exportPlotSvg(plotSpec(kind, theme), { ...options, caption, caution: CAUTION });
   },
   decodePng, parseSvg, renderSvg, canvasStats, colourBarProbe,
   /** Whether the chart in a plot has an active tooltip (keyboard navigation). */

@@ -5,7 +5,7 @@
  */
 import { Chart } from 'chart.js';
 import type { Theme } from '../../../src/renderer/src/plots';
-import { COLOUR_BAR_DEFAULTS } from '../../../src/renderer/src/plots/colourBar';
+import { COLOUR_BAR_DEFAULTS } from '../../../src/figures/parts/colourBar';
 import type { PlotKind } from './plotSpecs';
 
 function canvasOf(kind: PlotKind, theme: Theme): HTMLCanvasElement {

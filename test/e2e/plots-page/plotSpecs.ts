@@ -1,8 +1,8 @@
 /** The four plots with fixed synthetic data (see test/renderer/plots/syntheticPlotData.ts), per theme. */
 import type { PlotSpec } from '../../../src/renderer/src/export';
 import type { Theme } from '../../../src/renderer/src/plots';
-import { discountSweep } from '../../renderer/plots/syntheticSensitivity';
-import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from '../../renderer/plots/syntheticPlotData';
+import { discountSweep } from '../../figures/syntheticSensitivity';
+import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from '../../figures/syntheticPlotData';
 
 export type PlotKind = PlotSpec['kind'];
 export const PLOT_KINDS: PlotKind[] = ['surface', 'slice', 'convergence', 'comparison'];

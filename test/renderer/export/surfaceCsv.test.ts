@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
 import { CAUTION_SHORT } from '../../../src/pipeline/cautions';
 import { csvField, surfaceCsv } from '../../../src/renderer/src/export/surfaceCsv';
-import { bowlSurface } from '../plots/syntheticPlotData';
+import { bowlSurface } from '../../figures/syntheticPlotData';
 
 describe('surfaceCsv (long form, RFC 4180)', () => {
   const surface = bowlSurface(4, 3);

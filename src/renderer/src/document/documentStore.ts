@@ -39,8 +39,21 @@ export function currentDocument(state: DocumentState): ProjectDocument {
   return state.history.present;
 }
 
+// Serialising a document with kept results is not free: once per document object is enough.
+const serialized = new WeakMap<ProjectDocument, string>();
+
+/** The document as its file would hold it, computed once per document object. */
+export function serializedDocument(document: ProjectDocument): string {
+  let text = serialized.get(document);
+  if (text === undefined) {
+    text = serializeProject(document);
+    serialized.set(document, text);
+  }
+  return text;
+}
+
 export function isDirty(state: DocumentState): boolean {
-  return serializeProject(state.history.present) !== state.baselineText;
+  return serializedDocument(state.history.present) !== state.baselineText;
 }
 
 function initialState(document: ProjectDocument, projectPath: string | null, baselineText: string, generation: number): DocumentState {

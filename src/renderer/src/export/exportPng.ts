@@ -4,12 +4,12 @@
  * browser, with a pHYs chunk telling the dpi so a report places it at its intended physical size
  * (e.g. 1950 × 1200 px at 300 dpi = 6.5 in × 4 in).
  */
-import { drawCaption } from './captionLayout';
-import { exportPlan } from './exportPlan';
-import { drawChartOnce } from './offscreenChart';
-import type { ExportOptions, PlotSpec } from './plotSpec';
-import { withPhysicalResolution } from './pngChunks';
-import { canvasTextMeasure } from './textMeasure';
+import { drawCaption } from '../../../figures/writers/captionLayout';
+import { exportPlan } from '../../../figures/writers/exportPlan';
+import { drawChartOnce } from '../../../figures/writers/drawChart';
+import type { ExportOptions, PlotSpec } from '../../../figures/writers/plotSpec';
+import { withPhysicalResolution } from '../../../figures/writers/pngChunks';
+import { canvasTextMeasure } from '../../../figures/writers/textMeasure';
 
 export class PngExportError extends Error {
   constructor(message: string) {

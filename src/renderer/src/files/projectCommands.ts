@@ -16,6 +16,7 @@ import { asProblems } from '../session/evaluationRunner';
 import { emptySession, type Notice, type SessionStore } from '../session/sessionStore';
 import type { QuestionStore } from '../state/questionStore';
 import { documentAt, documentToWrite, suggestedFileName } from './saveDocument';
+import { SAMPLE_PROJECTS } from '../help/sampleProjects';
 
 export interface ProjectCommands {
   newProject(): Promise<void>;
@@ -27,6 +28,8 @@ export interface ProjectCommands {
   /** Ask about unsaved changes; true when it is fine to go on. */
   confirmDiscard(): Promise<boolean>;
   refreshRecent(): Promise<void>;
+  /** Open a bundled sample project as a new, unsaved project. */
+  openSample(id: string): Promise<void>;
 }
 
 interface Deps {
@@ -47,7 +50,7 @@ export function createProjectCommands({ api, documents, session, questions, data
 
   function reset(): void {
     documents.load(newProjectDocument(), null);
-    session.set((s) => emptySession(s.recentProjects));
+    session.set((s) => emptySession(s.recentProjects, s.sourceVersion));
   }
 
   async function openReply(reply: ProjectFileReply): Promise<void> {
@@ -60,13 +63,25 @@ export function createProjectCommands({ api, documents, session, questions, data
     const migrated = fromVersion < document.version;
     // A migrated document differs from its file until saved in the current format.
     documents.load(document, reply.path, migrated ? '' : serializeProject(document));
-    session.set((s) => emptySession(s.recentProjects));
+    session.set((s) => emptySession(s.recentProjects, s.sourceVersion));
     if (migrated) notify({ tone: 'info', title: `Opened a project of format version ${fromVersion}; saving writes version ${document.version}`, problems: [] });
     void refreshRecent();
     await data.readProjectData(reply.path);
   }
 
+  /** A sample's data lives inside the app: before the project is saved, write a copy where the user says. */
+  async function placeSampleData(): Promise<boolean> {
+    const source = session.get().source;
+    if (source.kind !== 'sample') return true;
+    const written = await api.exportFile('csv', source.fileName, source.bytes);
+    if (!written) return false;
+    session.set((s) => ({ ...s, source: { kind: 'file', absolutePath: written.path, bytes: source.bytes } }));
+    documents.amendAll((d) => ({ ...d, data: { ...d.data, path: written.path } }));
+    return true;
+  }
+
   async function write(save: (text: string) => Promise<SaveReply>, pathKnown: boolean): Promise<boolean> {
+    if (!(await placeSampleData())) return false;
     const doc = documents.get().history.present;
     const state = session.get();
     const problems = [...(state.source.kind === 'dropped' ? [DROPPED_FILE] : []), ...asProblems(projectProblems(doc))];
@@ -143,6 +158,19 @@ export function createProjectCommands({ api, documents, session, questions, data
     },
     confirmDiscard,
     refreshRecent,
+    async openSample(id) {
+      const sample = SAMPLE_PROJECTS.find((s) => s.id === id);
+      if (!sample || !(await confirmDiscard())) return;
+      const loaded = parseProjectText(sample.projectText, sample.projectFile);
+      if (!loaded.ok) {
+        notify({ tone: 'error', title: `The sample ${sample.title} could not be opened`, problems: loaded.problems });
+        return;
+      }
+      documents.load(loaded.value.document, null, '');
+      session.set((s) => emptySession(s.recentProjects, s.sourceVersion));
+      const bytes = new Uint8Array(await (await fetch(sample.csvUrl)).arrayBuffer());
+      await data.useSampleData(bytes, sample.csvFile);
+    },
   };
   return commands;
 }

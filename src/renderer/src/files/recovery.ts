@@ -3,9 +3,8 @@
  * its text goes to the main process's recovery file. On start, a copy left by a session that did not
  * close cleanly is offered back (restore or discard).
  */
-import { serializeProject } from '../../../project/projectFile';
 import type { AppApi } from '../../../shared/appApi';
-import { isDirty, type DocumentStore } from '../document/documentStore';
+import { isDirty, serializedDocument, type DocumentStore } from '../document/documentStore';
 import { recoveredDraft } from '../document/recoveredDraft';
 import type { DataLoading } from '../session/dataLoading';
 import { emptySession, type SessionStore } from '../session/sessionStore';
@@ -18,7 +17,7 @@ export function startRecoveryAutosave(api: AppApi, documents: DocumentStore, int
   const timer = setInterval(() => {
     const state = documents.get();
     if (!isDirty(state)) return;
-    const text = serializeProject(state.history.present);
+    const text = serializedDocument(state.history.present);
     if (text === lastWritten) return;
     lastWritten = text;
     api.writeRecovery(text, state.projectPath).catch(() => {
@@ -58,7 +57,7 @@ export async function offerRecovery({ api, documents, session, questions, data }
   // Restored work is unsaved work: an empty baseline keeps the unsaved-changes marker on.
   documents.load(draft.document, offer.projectPath, '');
   session.set((s) => ({
-    ...emptySession(s.recentProjects),
+    ...emptySession(s.recentProjects, s.sourceVersion),
     notice: offer.projectPath || draft.document.data.path === '' ? null : {
       tone: 'warning', title: 'Choose the data file again', problems: [{ where: 'data', message: `the restored project was never saved, so “${draft.document.data.path}” must be chosen again with “Choose CSV file…”` }],
     },

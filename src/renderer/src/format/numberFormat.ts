@@ -48,3 +48,37 @@ export function formatDuration(ms: number): string {
   if (minutes < 60) return `${minutes} min ${String(seconds % 60).padStart(2, '0')} s`;
   return `${Math.floor(minutes / 60)} h ${String(minutes % 60).padStart(2, '0')} min`;
 }
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** An ISO 8601 time as people read it: "2 Dec 2026, 10:41 UTC" (no seconds, no milliseconds). */
+export function readableTime(iso: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  const two = (n: number) => String(n).padStart(2, '0');
+  return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}, ${two(d.getUTCHours())}:${two(d.getUTCMinutes())} UTC`;
+}
+
+/** "1 run", "40 runs", "1,200 rows": a count with its noun in the right number. */
+export function plural(count: number, noun: string, pluralNoun = `${noun}s`): string {
+  return `${count.toLocaleString('en-US')} ${count === 1 ? noun : pluralNoun}`;
+}
+
+/** Text as a sentence: first letter capital, and a full stop at the end. */
+export function sentence(text: string): string {
+  const t = text.trim();
+  if (!t) return t;
+  const capital = t[0].toUpperCase() + t.slice(1);
+  return /[.!?…]$/.test(capital) ? capital : `${capital}.`;
+}
+
+/**
+ * A value and its standard error at one precision: the error to two significant digits, the value
+ * to the same decimal place (JCGM 100, the GUM, §7.2.2 — common practice).
+ */
+export function estimateText(value: number, error: number | null): { value: string; error: string } {
+  if (error === null || !Number.isFinite(error) || error <= 0 || !Number.isFinite(value)) return { value: formatNumber(value, 4), error: error === null ? '—' : formatNumber(error, 2) };
+  const decimals = Math.min(10, Math.max(0, 1 - Math.floor(Math.log10(error))));
+  const fixed = (x: number) => x.toFixed(decimals).replace(/^-/, '−');
+  return { value: fixed(value), error: fixed(error) };
+}

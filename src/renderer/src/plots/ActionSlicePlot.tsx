@@ -1,9 +1,9 @@
 /** The action-value slice as a React component (see actionSlice.ts for the drawing). */
 import type { ChartConfiguration } from 'chart.js';
 import { useMemo } from 'react';
-import { ACTION_SLICE_DEFAULTS, actionSliceChart, actionSliceSummary, type ActionSlicePlotProps } from './actionSlice';
+import { ACTION_SLICE_DEFAULTS, actionSliceChart, actionSliceSummary, type ActionSlicePlotProps } from '../../../figures/charts/actionSlice';
 import { ChartFigure, tryBuild } from './ChartFigure';
-import { screenLook } from './plotLook';
+import { screenLook } from '../../../figures/parts/plotLook';
 
 export function ActionSlicePlot(props: ActionSlicePlotProps) {
   const look = useMemo(() => screenLook(props.theme), [props.theme]);

@@ -6,8 +6,9 @@
  */
 import { Chart, type ChartConfiguration } from 'chart.js';
 import { useEffect, useId, useRef, type CSSProperties, type KeyboardEvent } from 'react';
-import { registerChartParts } from './chartParts';
-import type { PlotPalette } from './plotTheme';
+import { scheduleChart } from './chartQueue';
+import { registerChartParts } from '../../../figures/parts/chartParts';
+import type { PlotPalette } from '../../../figures/parts/plotTheme';
 
 /** Moves the keyboard cursor; returns the new data index of dataset 0, or null to leave it. */
 export type KeyStep = (key: string, current: number, count: number) => number | null;
@@ -46,12 +47,17 @@ export function ChartFigure({ testId, label, summary, heightPx, palette, build, 
 
   useEffect(() => {
     if (!config || !canvasRef.current) return;
-    registerChartParts();
-    const chart = new Chart(canvasRef.current, config);
-    chartRef.current = chart;
-    cursor.current = -1;
+    const canvas = canvasRef.current;
+    let chart: Chart | null = null;
+    const cancel = scheduleChart(() => {
+      registerChartParts();
+      chart = new Chart(canvas, config);
+      chartRef.current = chart;
+      cursor.current = -1;
+    });
     return () => {
-      chart.destroy();
+      cancel();
+      chart?.destroy();
       chartRef.current = null;
     };
   }, [config]);

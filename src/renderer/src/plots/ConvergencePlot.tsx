@@ -2,8 +2,8 @@
 import type { ChartConfiguration } from 'chart.js';
 import { useMemo } from 'react';
 import { ChartFigure, tryBuild } from './ChartFigure';
-import { CONVERGENCE_DEFAULTS, convergenceChart, convergenceSummary, type ConvergencePlotProps } from './convergence';
-import { screenLook } from './plotLook';
+import { CONVERGENCE_DEFAULTS, convergenceChart, convergenceSummary, type ConvergencePlotProps } from '../../../figures/charts/convergence';
+import { screenLook } from '../../../figures/parts/plotLook';
 
 export function ConvergencePlot(props: ConvergencePlotProps) {
   const look = useMemo(() => screenLook(props.theme), [props.theme]);

@@ -2,8 +2,8 @@
 import type { ChartConfiguration } from 'chart.js';
 import { useMemo } from 'react';
 import { ChartFigure, tryBuild } from './ChartFigure';
-import { screenLook } from './plotLook';
-import { SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from './sensitivity';
+import { screenLook } from '../../../figures/parts/plotLook';
+import { SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../../../figures/charts/sensitivity';
 
 export function SensitivityPlot(props: SensitivityPlotProps) {
   const look = useMemo(() => screenLook(props.theme), [props.theme]);

@@ -2,8 +2,8 @@
 import type { ChartConfiguration } from 'chart.js';
 import { useMemo } from 'react';
 import { ChartFigure, tryBuild, type KeyStep } from './ChartFigure';
-import { screenLook } from './plotLook';
-import { VALUE_SURFACE_DEFAULTS, valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from './valueSurface';
+import { screenLook } from '../../../figures/parts/plotLook';
+import { VALUE_SURFACE_DEFAULTS, valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../../../figures/charts/valueSurface';
 
 /** Arrow keys move across the grid as seen: up is increasing y (the next row of values). */
 function gridStep(nx: number): KeyStep {

@@ -14,6 +14,8 @@ export interface DataLoading {
   chooseDataFile(): Promise<void>;
   dropDataFile(file: File): Promise<void>;
   relocateDataFile(): Promise<void>;
+  /** Take a bundled sample's data (the document is already loaded). */
+  useSampleData(bytes: Uint8Array, fileName: string): Promise<void>;
   /** Read the data an opened project names; false (and the reason in dataProblems) when it cannot. */
   readProjectData(projectPath: string): Promise<boolean>;
 }
@@ -22,7 +24,7 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
   const document = () => documents.get().history.present;
 
   async function accept(bytes: Uint8Array, source: DataSource, fileName: string): Promise<void> {
-    session.set((s) => ({ ...s, source, sourceVersion: s.sourceVersion + 1, inspection: null, dataProblems: [], importState: { status: 'idle' }, notice: null }));
+    session.set((s) => ({ ...s, source, sourceVersion: s.sourceVersion + 1, inspection: null, dataProblems: [], dataMissing: false, importState: { status: 'idle' }, notice: null }));
     const version = session.get().sourceVersion;
     const result = await client.call('setData', { bytes, fileName, csv: document().data.csv });
     if (session.get().sourceVersion !== version) return; // another file arrived meanwhile
@@ -48,6 +50,9 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
       recordPath('drop a data file', file.name, false);
       await accept(bytes, { kind: 'dropped', fileName: file.name, bytes }, file.name);
     },
+    async useSampleData(bytes, fileName) {
+      await accept(bytes, { kind: 'sample', fileName, bytes }, fileName);
+    },
     async relocateDataFile() {
       const projectPath = documents.get().projectPath;
       const reply = projectPath ? await api.relocateDataFile(projectPath) : await api.chooseDataFile(null);
@@ -68,7 +73,7 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
           message: `cannot read the data file "${path}" (${(e as Error).message}); it may have moved: point the project to its new location`,
         };
         // Opening a project shows the Plant log step, where this stands with its "Locate" button.
-        session.set((s) => ({ ...s, dataProblems: [problem] }));
+        session.set((s) => ({ ...s, dataProblems: [problem], dataMissing: true }));
         return false;
       }
     },

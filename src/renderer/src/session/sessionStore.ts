@@ -14,7 +14,9 @@ export type DataSource =
   /** Picked in a dialog or read from the project's path; the main process knows it. */
   | { kind: 'file'; absolutePath: string; bytes: Uint8Array }
   /** Dropped on the window: the bytes are here, but the path is unknown to the main process until linked. */
-  | { kind: 'dropped'; fileName: string; bytes: Uint8Array };
+  | { kind: 'dropped'; fileName: string; bytes: Uint8Array }
+  /** A sample project's data, bundled with the app: saving writes a copy where the user says. */
+  | { kind: 'sample'; fileName: string; bytes: Uint8Array };
 
 export type ImportState =
   | { status: 'idle' }
@@ -33,6 +35,8 @@ export interface EvaluationRecord {
   evaluation: Evaluation;
   /** runKey of the document that was evaluated; a different key now means the results are stale. */
   runKey: string;
+  /** Set when the results were read back from the project file rather than computed in this session. */
+  restored?: { savedAt: string; current: boolean };
 }
 
 /** The intervals, cross-checks and diagnostics of the last evaluation (runKey says which). */
@@ -54,8 +58,10 @@ export interface SessionState {
   /** Increments whenever new data bytes are loaded (part of the import key). */
   sourceVersion: number;
   inspection: DataInspection | null;
-  /** Why the data file could not be read or looked at (missing, not UTF-8, empty …). */
+  /** Why the data file could not be read or looked at (missing, unreadable, empty …). */
   dataProblems: Problem[];
+  /** True when the project's data file was not found where the project says: offer to locate it. */
+  dataMissing: boolean;
   importState: ImportState;
   run: RunState;
   evaluation: EvaluationRecord | null;
@@ -64,9 +70,14 @@ export interface SessionState {
   recentProjects: string[];
 }
 
-export function emptySession(recentProjects: string[] = []): SessionState {
+/**
+ * A fresh session for another document. The source version only ever grows: it is part of the
+ * import key, so restarting it would let the same project with the same roles look already
+ * imported after its data is located again (the "Importing…" dead end).
+ */
+export function emptySession(recentProjects: string[] = [], previousSourceVersion = 0): SessionState {
   return {
-    source: { kind: 'none' }, sourceVersion: 0, inspection: null, dataProblems: [], importState: { status: 'idle' },
+    source: { kind: 'none' }, sourceVersion: previousSourceVersion + 1, dataMissing: false, inspection: null, dataProblems: [], importState: { status: 'idle' },
     run: { status: 'idle' }, evaluation: null, assessment: { status: 'idle' }, notice: null, recentProjects,
   };
 }

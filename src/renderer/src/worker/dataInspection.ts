@@ -21,5 +21,6 @@ export function inspectData(bytes: Uint8Array, fileName: string, csv: CsvSetting
   if (header.every((name) => name === '')) return failure({ where: `${fileName}, line 1`, message: 'the header line has no column names' });
   return success({
     fileName, header, previewRows: rows.slice(1), delimiter: dialect.delimiter, decimalMark: dialect.decimalMark,
+    encoding: { name: decoded.encoding, how: decoded.how },
   });
 }

@@ -10,7 +10,7 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
   if (!behaviour.ok) {
     return (
       <section className="panel" aria-labelledby="behaviour-heading">
-        <h3 id="behaviour-heading">Behaviour model</h3>
+        <h3 id="behaviour-heading">Present controller, as fitted to the log</h3>
         <p className="error-text">It could not be fitted: {behaviour.message}</p>
       </section>
     );
@@ -21,15 +21,15 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
   const rows: { label: string; cell: (j: number) => string }[] = [
     { label: 'Offset', cell: (j) => pm(m.offset[j], m.offsetStandardError[j]) },
     ...states.map((s, p) => ({ label: `Gain on ${s.column}`, cell: (j: number) => pm(m.gain[j][p], m.gainStandardError[j][p]) })),
-    { label: 'Standard deviation', cell: (j) => formatNumber(m.std[j]) },
-    { label: 'R²', cell: (j) => formatNumber(m.rSquared[j], 3) },
+    { label: 'Dither (standard deviation)', cell: (j) => formatNumber(m.std[j]) },
+    { label: 'Share of action variance explained (R²)', cell: (j) => formatNumber(m.rSquared[j], 3) },
   ];
   return (
     <section className="panel" aria-labelledby="behaviour-heading" data-testid="behaviour-model">
-      <h3 id="behaviour-heading">Behaviour model</h3>
+      <h3 id="behaviour-heading">Present controller, as fitted to the log</h3>
       <p className="small muted">
-        A linear-Gaussian fit of the logged actions on the states (least squares over {m.count.toLocaleString('en-US')} transitions):
-        roughly what today’s controller does. Values ± one standard error.
+        A straight-line fit of the logged actions on the states (least squares over {m.count.toLocaleString('en-US')} logged steps):
+        roughly what the present controller does, and how much its action wanders around that (the dither). Values ± one standard error.
       </p>
       <table>
         <thead><tr><th scope="col">Coefficient</th>{actions.map((a) => <th scope="col" className="number" key={a.column}>{a.column}</th>)}</tr></thead>
@@ -39,7 +39,7 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
           ))}
         </tbody>
       </table>
-      <p><button onClick={onStart} data-testid="candidate-from-behaviour">Start a candidate from the behaviour model</button></p>
+      <p><button onClick={onStart} data-testid="candidate-from-behaviour">Start a candidate from the present controller</button></p>
     </section>
   );
 }

@@ -35,7 +35,7 @@ export function CandidateEditor({ doc, index, problems, colour, onDuplicate }: P
       </div>
       {actions.map((action, a) => (
         <fieldset key={action.column}>
-          <legend>Mean and spread of {action.column}: μ = offset + Σ gain × state</legend>
+          <legend>{action.column}: mean μ = offset + Σ gain × state, with a dither around it</legend>
           <div className="row">
             <NumberField
               label={`Offset (${unit(a)})`} value={candidate.offset[a] ?? null} message={problemAt(problems, `${path}.offset.${a}`)}
@@ -50,8 +50,8 @@ export function CandidateEditor({ doc, index, problems, colour, onDuplicate }: P
               />
             ))}
             <NumberField
-              label={`Standard deviation (${unit(a)})`} value={candidate.std[a] ?? null} message={problemAt(problems, `${path}.std.${a}`)}
-              help="Spread of the action around its mean; must be above 0."
+              label={`Dither, standard deviation (${unit(a)})`} value={candidate.std[a] ?? null} message={problemAt(problems, `${path}.std.${a}`)}
+              help="How far the action wanders around its mean (one standard deviation of a Gaussian); above 0."
               onCommit={(v) => v !== null && update('set the standard deviation', (c) => ({ ...c, std: setAt(c.std, a, v) }), `std.${a}`)} onBlur={documents.closeStep}
             />
           </div>

@@ -30,8 +30,8 @@ export function CandidatesScreen(props: { onNext: () => void }) {
       <header>
         <h2>Candidates</h2>
         <p>
-          Each candidate is a Gaussian setpoint policy: the action’s mean is an offset plus a gain on each state, with a spread around it, and
-          optionally actuator limits. Define as many as you want to compare; each is evaluated against the same log.
+          Each candidate is a control policy for the setpoint or valve: its mean action is an offset plus a gain on each state, with a small random
+          dither around it (a Gaussian policy), and optionally actuator limits. Define as many as you want to compare; each is evaluated against the same log.
         </p>
       </header>
       {!ready && <p className="problems info">Give columns the roles “state” and “action” on the Plant log step first.</p>}
@@ -57,7 +57,7 @@ export function CandidatesScreen(props: { onNext: () => void }) {
                   )}
                 </div>
                 <CandidateChart doc={doc} imported={imported} axis={Math.min(axis, doc.columns.states.length - 1)} action={Math.min(action, doc.columns.actions.length - 1)} />
-                <p className="small muted">Other states held at their logged means. Points: an even sample of the logged transitions.</p>
+                <p className="small muted">Lines: each candidate’s expected action (within its actuator limits) and the present controller’s (dashed), the other states held at their logged means. Points: an even sample of the logged steps.</p>
               </section>
               <BehaviourModelPanel doc={doc} behaviour={imported.behaviour}
                 onStart={() => startFromBehaviour(imported.behaviour)} />

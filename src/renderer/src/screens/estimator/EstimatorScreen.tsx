@@ -2,7 +2,8 @@
 import { NumberField } from '../../components/NumberField';
 import { defaultApproximator } from '../../document/newProject';
 import { problemAt } from '../../document/projectProblems';
-import { useDocument, useProblems } from '../../hooks';
+import { useDocument, useProblems, useSession } from '../../hooks';
+import { discountHelp } from './discountHorizon';
 import { useWorkspace } from '../../WorkspaceContext';
 import { BootstrapSettings } from './BootstrapSettings';
 import { LinearSettings } from './LinearSettings';
@@ -13,26 +14,28 @@ export function EstimatorScreen(props: { onNext: () => void }) {
   const { documents } = useWorkspace();
   const doc = useDocument();
   const problems = useProblems();
-  const number = (label: string, key: 'discount' | 'quadratureNodes' | 'seed') => (
-    <NumberField label={label} value={doc[key]} help={SETTING_HELP[key]} message={problemAt(problems, key)} onBlur={documents.closeStep}
+  const period = useSession().importState;
+  const periodSeconds = period.status === 'done' ? period.result.summary.samplingPeriodSeconds : null;
+  const number = (label: string, key: 'discount' | 'quadratureNodes' | 'seed', help: string = SETTING_HELP[key]) => (
+    <NumberField label={label} value={doc[key]} help={help} message={problemAt(problems, key)} onBlur={documents.closeStep}
       onCommit={(v) => v !== null && documents.edit(`set the ${label.toLowerCase()}`, (d) => ({ ...d, [key]: v }), key)} />
   );
   const kind = doc.approximator.kind;
   return (
     <>
       <header>
-        <h2>Estimator</h2>
-        <p>How the value of each candidate is estimated from the log by fitted Q-evaluation. The defaults suit most plants; change them when a fit reports trouble.</p>
+        <h2>Method</h2>
+        <p>How the value of each candidate is estimated from the log (by fitted Q-evaluation; see Help for the terms). The defaults suit most plants; change them when a fit reports trouble.</p>
       </header>
       <section className="panel" aria-labelledby="basics-heading">
-        <h3 id="basics-heading">Problem</h3>
+        <h3 id="basics-heading">Discount and averaging</h3>
         <div className="row">
-          {number('Discount', 'discount')}
-          {number('Quadrature nodes', 'quadratureNodes')}
-          {number('Seed', 'seed')}
+          {number('Discount factor γ', 'discount', discountHelp(doc.discount, periodSeconds))}
+          {number('Gauss–Hermite nodes', 'quadratureNodes')}
+          {number('Random seed', 'seed')}
         </div>
         <p className="small muted">
-          {doc.startStates.kind === 'episodeStarts' ? SETTING_HELP.startStates : `J averages V over ${doc.startStates.states.length} start state(s) given in the project file.`}
+          {doc.startStates.kind === 'episodeStarts' ? SETTING_HELP.startStates : `J averages V over ${doc.startStates.states.length} start state${doc.startStates.states.length === 1 ? '' : 's'} given in the project file.`}
         </p>
       </section>
       <section className="panel" aria-labelledby="approximator-heading">

@@ -40,7 +40,7 @@ export function LinearSettings({ settings, problems }: { settings: Linear; probl
         )}
       </div>
       <div className="row">
-        {number('Ridge', 'ridge', SETTING_HELP.ridge)}
+        {number('Weight penalty (ridge)', 'ridge', SETTING_HELP.ridge)}
         {number('Tolerance', 'tolerance', SETTING_HELP.tolerance)}
         {number('Maximum iterations', 'maxIterations', SETTING_HELP.maxIterations)}
       </div>

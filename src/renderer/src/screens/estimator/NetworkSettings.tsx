@@ -14,7 +14,7 @@ type NumericKey = 'learningRate' | 'batchSize' | 'stepsPerIteration' | 'outerIte
 const NUMERIC: { key: NumericKey; label: string }[] = [
   { key: 'learningRate', label: 'Learning rate' }, { key: 'batchSize', label: 'Batch size' },
   { key: 'stepsPerIteration', label: 'Steps per round' }, { key: 'outerIterations', label: 'Rounds' },
-  { key: 'heldOutFraction', label: 'Held-out fraction' }, { key: 'patience', label: 'Patience' }, { key: 'averageLast', label: 'Average last' },
+  { key: 'heldOutFraction', label: 'Share of runs held out' }, { key: 'patience', label: 'Rounds without improvement before stopping' }, { key: 'averageLast', label: 'Rounds averaged at the end' },
 ];
 
 export function NetworkSettings({ settings, problems }: { settings: Network; problems: readonly FieldProblem[] }) {
@@ -42,10 +42,13 @@ export function NetworkSettings({ settings, problems }: { settings: Network; pro
         <SelectField label="Activation" value={settings.activation} help={SETTING_HELP.activation}
           options={[{ value: 'relu', label: 'ReLU' }, { value: 'tanh', label: 'tanh' }, { value: 'elu', label: 'ELU' }]}
           onChange={(activation) => set('change the activation', { activation }, 'activation')} />
-        <SelectField label="Backend" value={settings.backend} help={SETTING_HELP.backend}
-          options={[{ value: 'auto', label: 'Automatic' }, { value: 'wasm', label: 'WebAssembly' }, { value: 'cpu', label: 'JavaScript (cpu)' }]}
-          onChange={(backend) => set('change the backend', { backend }, 'backend')} />
       </div>
+      <details className="details-section">
+        <summary>Computation details</summary>
+        <SelectField label="Computed with" value={settings.backend} help={SETTING_HELP.backend}
+          options={[{ value: 'auto', label: 'Automatic' }, { value: 'wasm', label: 'WebAssembly' }, { value: 'cpu', label: 'Plain JavaScript' }]}
+          onChange={(backend) => set('change how the network is computed', { backend }, 'backend')} />
+      </details>
       <div className="row">
         {NUMERIC.map(({ key, label }) => (
           <NumberField key={key} label={label} value={settings[key]} help={SETTING_HELP[key]} message={at(key)} onBlur={documents.closeStep}

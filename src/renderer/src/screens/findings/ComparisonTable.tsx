@@ -5,6 +5,8 @@
  */
 import type { Assessment } from '../../../../pipeline/assessment';
 import { formatNumber } from '../../format/numberFormat';
+import { CopyTable } from '../../components/CopyTable';
+import { displayName } from './plotLabels';
 import { intervalDetail, intervalText, levelText, shareText } from './assessmentWords';
 
 export function ComparisonTable({ assessment }: { assessment: Assessment }) {
@@ -15,7 +17,7 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
       <h3 id="comparison-heading">Comparison</h3>
       <p className="small muted">
         Differences first − second in the project’s sense, {levelText(level)} percentile intervals from the same {assessment.settings.resamples.toLocaleString('en-US')} episode resamples
-        (paired bootstrap). “Better” means {better}. An interval that excludes 0 says the order is unlikely to be an accident of which episodes were logged.
+        (paired bootstrap). “Better” means {better}; “first better in” counts the resamples in which the first came out better. An interval that excludes 0 says the order is unlikely to be an accident of which episodes were logged.
       </p>
       <table data-testid="comparison-table">
         <thead>
@@ -27,7 +29,7 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
         <tbody>
           {differences.map((d, i) => (
             <tr key={`${d.a}|${d.b}`} data-testid={`difference-row-${i}`}>
-              <td>{d.a}</td><td>{d.b}</td>
+              <td>{displayName(d.a)}</td><td>{displayName(d.b)}</td>
               <td className="number">{formatNumber(d.difference.value, 4)}</td>
               <td className="number interval" title={intervalDetail(d.difference, level)}>{intervalText(d.difference.percentile)}</td>
               <td className="number">{d.probabilityBetter === null ? '—' : `${shareText(d.probabilityBetter)} of resamples`}</td>
@@ -35,14 +37,15 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
           ))}
         </tbody>
       </table>
+      <CopyTable tableTestId="comparison-table" fileBase="paired-differences" />
       <div data-testid="ranking">
-        <p><strong>Ranking, best first:</strong> {ranking.order.join(' › ')}.{' '}
+        <p><strong>Ranking, best first:</strong> {ranking.order.map(displayName).join(' › ')}.{' '}
           {ranking.frequency === null ? 'How often it holds is unknown (some policy has no resamples).' : `This whole order holds in ${shareText(ranking.frequency)} of the resamples.`}
         </p>
         {ranking.neighbours.length > 0 && (
           <ul className="small">
             {ranking.neighbours.map((n) => (
-              <li key={`${n.better}|${n.worse}`}>{n.better} ahead of {n.worse}: {n.frequency === null ? 'unknown' : `in ${shareText(n.frequency)} of resamples`}</li>
+              <li key={`${n.better}|${n.worse}`}>{displayName(n.better)} ahead of {displayName(n.worse)}: {n.frequency === null ? 'unknown' : `in ${shareText(n.frequency)} of resamples`}</li>
             ))}
           </ul>
         )}

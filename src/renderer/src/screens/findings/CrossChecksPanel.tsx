@@ -10,7 +10,7 @@ import { intervalDetail, intervalText, levelText, noteWithoutVerdict, VERDICT } 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
   const level = assessment.settings.level;
   return (
-    <section className="panel" aria-labelledby="cross-checks-heading" data-testid="cross-checks">
+    <section className="panel span-2" aria-labelledby="cross-checks-heading" data-testid="cross-checks">
       <h3 id="cross-checks-heading">Cross-checks by other methods</h3>
       <p className="small muted">Each method rests on a different assumption; agreement between them is evidence, disagreement is a reason to look closer.</p>
       {assessment.candidates.map((c) => (

@@ -4,7 +4,7 @@
  * exporter can write it; the grid as CSV for the surface. Files go where the user says (main process).
  */
 import { useState } from 'react';
-import { exportCaption, exportPlotPng, exportPlotSvg, type PlotSpec } from '../../export';
+import { CAUTION, exportCaption, exportPlotPng, exportPlotSvg, type PlotSpec } from '../../export';
 import { NumberField } from '../../components/NumberField';
 import { SelectField } from '../../components/SelectField';
 import { TextField } from '../../components/TextField';
@@ -36,7 +36,7 @@ export function ExportPanel({ kind, evaluation, defaultTitle, policy, fileBase, 
   const [status, setStatus] = useState<Status>(null);
   const size = preset === 'custom' ? custom : presetPixels(SIZE_PRESETS.find((p) => p.id === preset) ?? SIZE_PRESETS[0]);
   const caption = exportCaption({ project: doc.name, policy, settings: settingsLine(evaluation), date: captionDate(evaluation.evaluatedAt) });
-  const options = { ...size, background, caption };
+  const options = { ...size, background, caption, caution: CAUTION };
   const spec = () => makeSpec(title ?? defaultTitle);
   const save = async (what: string, run: () => Promise<{ path: string } | null | 'unavailable'>): Promise<void> => {
     setStatus({ tone: 'info', text: `Exporting ${what}…` });

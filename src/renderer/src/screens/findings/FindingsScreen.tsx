@@ -14,6 +14,7 @@ import { ConvergencePanel } from './ConvergencePanel';
 import { SlicePanel } from './SlicePanel';
 import { SurfacePanel } from './SurfacePanel';
 import { ValueComparison } from './ValueComparison';
+import { readableTime } from '../../format/numberFormat';
 
 const same = (t: Theme) => t;
 
@@ -35,13 +36,22 @@ export function FindingsScreen() {
       {!record && <p className="problems info">No results yet: run the evaluation on the Run step.</p>}
       {record && (
         <>
-          {stale && <p className="problems warning" role="status" data-testid="stale-results">These results come from an earlier run; the settings or the data have changed since. Run again to update them.</p>}
+          {record.restored && (
+            <p className={`problems ${!stale ? 'info' : 'warning'}`} role="status" data-testid="kept-results">
+              {!stale
+                ? `Results kept with the project (run of ${readableTime(record.evaluation.evaluatedAt)}); the data and settings are the same, so no rerun is needed. Run again to explore slices and other surfaces.`
+                : `Results kept with the project (run of ${readableTime(record.evaluation.evaluatedAt)}) were computed from other data or settings than the project has now: they are shown for reference only. Run again for current results.`}
+            </p>
+          )}
+          {stale && !record.restored && <p className="problems warning" role="status" data-testid="stale-results">These results come from an earlier run; the settings or the data have changed since. Run again to update them.</p>}
           <ProblemList title="Notes from the evaluation" problems={record.evaluation.warnings.map((w) => ({ where: 'evaluation', message: w }))} tone="warning" />
-          <ValueComparison evaluation={record.evaluation} theme={theme} assessment={assessmentOf(session.assessment, record.runKey)} />
-          <AssessmentPanel record={record} state={session.assessment} stale={stale} imported={imported} theme={theme} />
-          {imported && imported.stateNames.length >= 2 && <SurfacePanel evaluation={record.evaluation} imported={imported} theme={theme} />}
-          {imported && <SlicePanel evaluation={record.evaluation} imported={imported} theme={theme} />}
-          <ConvergencePanel evaluation={record.evaluation} theme={theme} />
+          <div className="findings-grid" data-testid="findings-grid">
+            <ValueComparison evaluation={record.evaluation} theme={theme} assessment={assessmentOf(session.assessment, record.runKey)} />
+            <AssessmentPanel record={record} state={session.assessment} stale={stale} imported={imported} theme={theme} />
+            {imported && imported.stateNames.length >= 2 && <SurfacePanel evaluation={record.evaluation} imported={imported} theme={theme} restored={Boolean(record.restored)} />}
+            {imported && !record.restored && <SlicePanel evaluation={record.evaluation} imported={imported} theme={theme} />}
+            <ConvergencePanel evaluation={record.evaluation} theme={theme} />
+          </div>
         </>
       )}
     </>

@@ -1,19 +1,22 @@
 /** J against the discount and against the feature degree (or centres, or network width), one sweep at a time, with its export. */
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import type { Sensitivity } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import { SelectField } from '../../components/SelectField';
 import { SensitivityPlot } from '../../plots';
-import { valueSenseText } from '../../plots/policyValueChart';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
+import { displayName, policyValueLabel, valueUnit } from './plotLabels';
+import { useDocument } from '../../hooks';
 
 export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivity: Sensitivity; evaluation: Evaluation; theme: Theme }) {
   const [index, setIndex] = useState(0);
+  const doc = useDocument();
   const curve = sensitivity.curves[index] ?? sensitivity.curves[0];
-  if (!curve) return null;
-  const title = `Policy value against ${curve.label}`;
-  const props = { curve, valueLabel: `J (${valueSenseText(evaluation.valueSense)})`, title, theme };
+  const shown = useMemo(() => curve && { ...curve, series: curve.series.map((s) => ({ ...s, name: displayName(s.name) })) }, [curve]);
+  if (!curve || !shown) return null;
+  const title = `J against the ${curve.label}`;
+  const props = { curve: shown, valueLabel: policyValueLabel(evaluation.valueSense, valueUnit(doc)), title, theme };
   return (
     <section className="panel" aria-labelledby="sensitivity-heading" data-testid="sensitivity">
       <h3 id="sensitivity-heading">Sensitivity to the settings</h3>

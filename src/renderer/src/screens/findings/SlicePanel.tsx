@@ -11,7 +11,7 @@ import type { DataImport } from '../../../../shared/workerMessages';
 import { useDocument } from '../../hooks';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
-import { actionLabel, valueLabel } from './plotLabels';
+import { actionLabel, valueLabel, valueUnit } from './plotLabels';
 import { StateSliders } from './StateSliders';
 import { useWorkerQuery } from './useWorkerQuery';
 
@@ -35,7 +35,7 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
   );
   const title = `Action values of ${policy}`;
   const sliceProps = slice ? {
-    slice, actionLabel: actionLabel(doc, action), valueLabel: valueLabel(evaluation.valueSense, 'Q'), title, theme,
+    slice, actionLabel: actionLabel(doc, action), valueLabel: valueLabel(evaluation.valueSense, 'Q', valueUnit(doc)), title, theme,
   } : null;
   return (
     <section className="panel" aria-labelledby="slice-heading">

@@ -14,13 +14,13 @@ import { useDocument } from '../../hooks';
 import type { Theme } from '../../theme';
 import { useWorkspace } from '../../WorkspaceContext';
 import { ExportPanel } from './ExportPanel';
-import { heldLabel, stateLabel, valueLabel } from './plotLabels';
+import { heldLabel, stateLabel, valueLabel, valueUnit } from './plotLabels';
 import { StateSliders } from './StateSliders';
 import { useWorkerQuery } from './useWorkerQuery';
 
 const RESOLUTIONS = ['30', '60', '100'] as const;
 
-export function SurfacePanel({ evaluation, imported, theme }: { evaluation: Evaluation; imported: DataImport; theme: Theme }) {
+export function SurfacePanel({ evaluation, imported, theme, restored = false }: { evaluation: Evaluation; imported: DataImport; theme: Theme; restored?: boolean }) {
   const { documents } = useWorkspace();
   const doc = useDocument();
   const names = doc.columns.states.map((s) => s.column);
@@ -31,18 +31,21 @@ export function SurfacePanel({ evaluation, imported, theme }: { evaluation: Eval
   const resolution = doc.surface?.resolution ?? 60;
   const setSurface = (x: number, y: number, r: number): void =>
     documents.edit('choose the surface axes', (d) => ({ ...d, surface: { xState: names[x], yState: names[y], resolution: r } }));
-  const query = xAxis !== yAxis ? { query: { candidateIndex: candidate, xAxis, yAxis, heldState: held, resolution } } : null;
-  const state = useWorkerQuery('surface', query, JSON.stringify(query));
+  const query = xAxis !== yAxis && !restored ? { query: { candidateIndex: candidate, xAxis, yAxis, heldState: held, resolution } } : null;
+  const asked = useWorkerQuery('surface', query, JSON.stringify(query));
+  // Results read back from the project have the run's own surface, but no fitted model to ask for another.
+  const kept = restored ? evaluation.policies[candidate]?.surface ?? null : null;
+  const state = restored ? (kept ? { status: 'done' as const, value: kept } : { status: 'failed' as const, problems: [{ where: 'surface', message: 'no surface was kept with these results' }] }) : asked;
   const policy = evaluation.policies[candidate]?.name ?? '';
   const title = `Value surface of ${policy}`;
   const held_ = useMemo(() => heldLabel(doc, held, [xAxis, yAxis], (v) => formatNumber(v)), [doc, held, xAxis, yAxis]);
   const options = names.map((n, i) => ({ value: String(i), label: n }));
   const surfaceProps = state.status === 'done' ? {
-    surface: state.value, xLabel: stateLabel(doc, xAxis), yLabel: stateLabel(doc, yAxis), valueLabel: valueLabel(evaluation.valueSense, 'V'), title, theme,
+    surface: state.value, xLabel: stateLabel(doc, xAxis), yLabel: stateLabel(doc, yAxis), valueLabel: valueLabel(evaluation.valueSense, 'V', valueUnit(doc)), title, theme,
     heldLabel: held_ || undefined,
   } : null;
   return (
-    <section className="panel" aria-labelledby="surface-heading">
+    <section className="panel span-2" aria-labelledby="surface-heading" data-testid="panel-surface">
       <h3 id="surface-heading">Value surface</h3>
       <p className="small muted">V^π(s) over two states; hatched cells are where the logs never went, so V there is extrapolated.</p>
       <div className="row">
@@ -53,7 +56,9 @@ export function SurfacePanel({ evaluation, imported, theme }: { evaluation: Eval
         <SelectField label="Grid" value={String(resolution)} options={[...new Set([...RESOLUTIONS, String(resolution)])].map((r) => ({ value: r, label: `${r} × ${r}` }))}
           onChange={(v) => setSurface(xAxis, yAxis, Number(v))} />
       </div>
-      <StateSliders doc={doc} ranges={imported.stateRanges} values={held} skip={[xAxis, yAxis]} onChange={setHeld} means={imported.stateMeans} />
+      {restored
+        ? <p className="small muted" data-testid="surface-kept">The surface kept with the results (axes and held states of that run). The fitted models are not kept in the project: run again to choose other axes or move the sliders.</p>
+        : <StateSliders doc={doc} ranges={imported.stateRanges} values={held} skip={[xAxis, yAxis]} onChange={setHeld} means={imported.stateMeans} />}
       {state.status === 'failed' && <ProblemList title="The surface could not be drawn" problems={state.problems} />}
       {surfaceProps ? <ValueSurfacePlot {...surfaceProps} /> : state.status === 'waiting' && <div className="plot-placeholder">Computing the surface…</div>}
       {surfaceProps && (

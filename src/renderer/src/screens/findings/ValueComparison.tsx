@@ -7,10 +7,13 @@
 import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessment';
 import { PolicyValueChart } from '../../plots';
 import type { Evaluation } from '../../../../pipeline/estimates';
-import { formatNumber } from '../../format/numberFormat';
+import { estimateText, plural, sentence } from '../../format/numberFormat';
+import { useDocument } from '../../hooks';
+import { valueUnit } from './plotLabels';
 import type { Theme } from '../../theme';
 import { intervalDetail, intervalText, levelText } from './assessmentWords';
 import { ExportPanel } from './ExportPanel';
+import { CopyTable } from '../../components/CopyTable';
 
 const STATUS: Record<string, string> = { converged: 'converged', maxIterations: 'stopped at the iteration limit', diverged: 'diverged' };
 
@@ -23,47 +26,51 @@ function IntervalCell({ estimate, level, testId }: { estimate: IntervalEstimate 
 }
 
 export function ValueComparison({ evaluation, theme, assessment }: { evaluation: Evaluation; theme: Theme; assessment?: Assessment | null }) {
+  const doc = useDocument();
+  const unit = valueUnit(doc);
   const level = assessment?.settings.level ?? 0;
-  const sense = evaluation.valueSense === 'cost' ? 'Expected discounted cost (lower is better)' : 'Expected discounted reward (higher is better)';
+  const sense = evaluation.valueSense === 'cost' ? `J is the expected discounted cost${unit ? ` in ${unit}` : ''} from the start states on (lower is better)` : `J is the expected discounted reward${unit ? ` in ${unit}` : ''} from the start states on (higher is better)`;
   const b = evaluation.behaviour;
   return (
-    <section className="panel" aria-labelledby="values-heading">
-      <h3 id="values-heading">Policy values</h3>
-      <p className="small muted">{sense}. ± is one standard error over the start states only; it does not cover the error of the fit.</p>
-      <PolicyValueChart evaluation={evaluation} theme={theme} />
+    <section className="panel span-2" aria-labelledby="values-heading" data-testid="panel-values">
+      <h3 id="values-heading">Value of each candidate, J</h3>
+      <p className="small muted">{sense}. ± is one standard error over the start states only; it does not cover the error of the fit (the interval does, once computed).</p>
+      <PolicyValueChart evaluation={evaluation} theme={theme} unit={unit} />
       <table data-testid="value-table">
         <thead>
           <tr>
-            <th scope="col">Policy</th><th scope="col" className="number">J</th><th scope="col" className="number">± s.e.</th>
+            <th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">± s.e.</th>
             {assessment && <th scope="col" className="number" title="Percentile bootstrap interval over episodes; hover a cell for the basic interval">{levelText(level)} interval</th>}
-            <th scope="col" className="number">Fixed-point J</th><th scope="col">Fit</th><th scope="col">Account</th>
+            <th scope="col" className="number" title="J from solving the fit's fixed-point equations directly (LSTD-Q), as a check on the iterated fit">J by direct solve</th><th scope="col">Fit</th><th scope="col">How the fit went</th>
           </tr>
         </thead>
         <tbody>
           {evaluation.policies.map((p, i) => (
             <tr key={p.name} data-testid={`value-row-${i}`}>
               <th scope="row">{p.name}</th>
-              <td className="number" data-testid={`policy-value-${i}`} data-value={String(p.policyValue)}>{formatNumber(p.policyValue, 6)}</td>
-              <td className="number">{formatNumber(p.standardError, 3)}</td>
+              <td className="number" data-testid={`policy-value-${i}`} data-value={String(p.policyValue)}>{estimateText(p.policyValue, p.standardError).value}</td>
+              <td className="number">{estimateText(p.policyValue, p.standardError).error}</td>
               {assessment && <IntervalCell estimate={assessment.candidates[i]?.policyValue} level={level} testId={`policy-interval-${i}`} />}
-              <td className="number">{p.fixedPointValue === null ? '—' : formatNumber(p.fixedPointValue, 6)}</td>
-              <td>{STATUS[p.status] ?? p.status} ({p.iterations} it.)</td>
-              <td className="small" data-testid={`policy-account-${i}`}>{p.message} <span className="muted">Computed by {p.backend}.</span></td>
+              <td className="number">{p.fixedPointValue === null ? '—' : estimateText(p.fixedPointValue, p.standardError).value}</td>
+              <td>{STATUS[p.status] ?? p.status} ({plural(p.iterations, 'iteration')})</td>
+              <td className="small" data-testid={`policy-account-${i}`}>{sentence(p.message)}
+                <details className="details-section"><summary>Details</summary>Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
             </tr>
           ))}
           <tr data-testid="value-row-behaviour">
-            <th scope="row">Logged behaviour (today)</th>
-            <td className="number" data-testid="behaviour-value" data-value={String(b.value)}>{formatNumber(b.value, 6)}</td>
-            <td className="number">{formatNumber(b.standardError, 3)}</td>
+            <th scope="row">Present controller (logged)</th>
+            <td className="number" data-testid="behaviour-value" data-value={String(b.value)}>{estimateText(b.value, b.standardError).value}</td>
+            <td className="number">{estimateText(b.value, b.standardError).error}</td>
             {assessment && <IntervalCell estimate={assessment.behaviour} level={level} testId="behaviour-interval" />}
             <td className="number">—</td>
-            <td>{b.episodes} episodes</td>
-            <td className="small">Mean discounted return of the logged episodes.</td>
+            <td>{plural(b.episodes, 'run')}</td>
+            <td className="small">The discounted {evaluation.valueSense} actually logged, averaged over the runs.</td>
           </tr>
         </tbody>
       </table>
-      <ExportPanel kind="comparison" evaluation={evaluation} defaultTitle="Policy value per candidate" policy={evaluation.policies.map((p) => p.name).join(', ')}
-        fileBase="policy-values" makeSpec={(title) => ({ kind: 'comparison', props: { evaluation, theme, title } })} />
+      <CopyTable tableTestId="value-table" fileBase="candidate-values" />
+      <ExportPanel kind="comparison" evaluation={evaluation} defaultTitle="Value of each candidate" policy={evaluation.policies.map((p) => p.name).join(', ')}
+        fileBase="candidate-values" makeSpec={(title) => ({ kind: 'comparison', props: { evaluation, theme, title, unit } })} />
     </section>
   );
 }

@@ -1,4 +1,6 @@
 /** Words on the plots and in export captions: axes with units, what V means, the settings in a line. */
+import { PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
+import { BEHAVIOUR_NAME } from '../../../../pipeline/assessAssembly';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { ProjectDocument } from '../../../../project/schema';
 
@@ -12,9 +14,19 @@ export function actionLabel(doc: ProjectDocument, index: number): string {
   return a ? (a.unit ? `${a.column} (${a.unit})` : a.column) : `action ${index + 1}`;
 }
 
-/** What the plotted values are, short enough for an axis: discounted costs or rewards (the panel says which way is better). */
-export function valueLabel(sense: 'reward' | 'cost', symbol: 'V' | 'Q'): string {
-  return `${symbol}^π (discounted ${sense})`;
+/** The cost's or reward's own unit from the project, '' when none is given. */
+export function valueUnit(doc: ProjectDocument): string {
+  return doc.columns.reward.unit?.trim() ?? '';
+}
+
+/** What the plotted values are, as rich text for an axis: "V^{π}(s), discounted cost (€)". */
+export function valueLabel(sense: 'reward' | 'cost', symbol: 'V' | 'Q', unit = ''): string {
+  return `${symbol}^{π}${symbol === 'V' ? '(s)' : '(s, a)'}, discounted ${sense}${unit ? ` (${unit})` : ''}`;
+}
+
+/** J's axis title: "J, discounted cost (€)". */
+export function policyValueLabel(sense: 'reward' | 'cost', unit = ''): string {
+  return `J, discounted ${sense}${unit ? ` (${unit})` : ''}`;
 }
 
 /** The settings behind the numbers, for captions: "γ = 0.95; linear …; 10 nodes; seed 1; 19,960 transitions". */
@@ -33,4 +45,9 @@ export function captionDate(iso: string): string {
 export function heldLabel(doc: ProjectDocument, held: readonly number[], axes: readonly number[], format: (x: number) => string): string {
   const parts = doc.columns.states.flatMap((s, i) => (axes.includes(i) ? [] : [`${s.column} = ${format(held[i])}${s.unit ? ` ${s.unit}` : ''}`]));
   return parts.length === 0 ? '' : `Other states held at ${parts.join(', ')}`;
+}
+
+/** A policy's name as shown: the pipeline's name for the logged behaviour reads "present controller (logged)". */
+export function displayName(name: string): string {
+  return name === BEHAVIOUR_NAME ? PRESENT_CONTROLLER : name;
 }

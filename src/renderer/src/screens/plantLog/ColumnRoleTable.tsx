@@ -13,9 +13,9 @@ const BASE_ROLES: { value: ColumnRole; label: string }[] = [
   { value: 'action', label: 'Action' },
   { value: 'reward', label: 'Reward (higher is better)' },
   { value: 'cost', label: 'Cost (lower is better)' },
-  { value: 'episode', label: 'Episode label' },
-  { value: 'timestamp', label: 'Timestamp (episodes split at gaps)' },
-  { value: 'terminal', label: 'Terminal flag (1 = episode ends)' },
+  { value: 'episode', label: 'Run or batch label (episode)' },
+  { value: 'timestamp', label: 'Timestamp (runs split at gaps)' },
+  { value: 'terminal', label: 'End-of-run flag (1 = the run ends here)' },
 ];
 
 export function ColumnRoleTable() {
@@ -32,7 +32,7 @@ export function ColumnRoleTable() {
       <h3 id="roles-heading">Column roles</h3>
       <p className="muted">
         Give each column its role. States (1–10) describe the plant; actions (1–3) are what the controller set; one column is the reward or the cost,
-        or write an expression below. Units label the axes of every plot.
+        or write an expression below. Units label the axes of every plot; the cost’s unit is the unit of J, V and Q.
       </p>
       <div className="table-scroll">
         <table data-testid="role-table">
@@ -41,6 +41,8 @@ export function ColumnRoleTable() {
             {header.map((column, index) => {
               const role = roleOf(doc.columns, column);
               const signal = [...doc.columns.states, ...doc.columns.actions].find((s) => s.column === column);
+              const reward = doc.columns.reward;
+              const isValue = reward.kind === 'column' && reward.column === column;
               return (
                 <tr key={`${column}-${index}`}>
                   <th scope="row" className="mono">{column}</th>
@@ -52,6 +54,16 @@ export function ColumnRoleTable() {
                     </select>
                   </td>
                   <td>
+                    {isValue && (
+                      <>
+                        <label className="sr-only" htmlFor={`unit-${index}`}>Unit of {column}</label>
+                        <input
+                          id={`unit-${index}`} data-testid={`unit-${column}`} value={reward.unit ?? ''} placeholder="e.g. €, kWh" size={8} title="The cost’s own unit: J, V and Q are given in it"
+                          onChange={(e) => documents.edit(`set the unit of ${column}`, (d) => ({ ...d, columns: { ...d.columns, reward: { ...d.columns.reward, unit: e.target.value } } }), `unit-${column}`)}
+                          onBlur={documents.closeStep}
+                        />
+                      </>
+                    )}
                     {signal && (
                       <>
                         <label className="sr-only" htmlFor={`unit-${index}`}>Unit of {column}</label>

@@ -19,6 +19,7 @@ export function CsvSettingsPanel() {
   const detected = inspection
     ? `Read as ${inspection.delimiter === '\t' ? 'tab' : `“${inspection.delimiter}”`}-separated, decimal mark “${inspection.decimalMark}”.`
     : undefined;
+  const encoding = inspection?.encoding;
   return (
     <section className="panel" aria-labelledby="csv-heading">
       <h3 id="csv-heading">CSV settings</h3>
@@ -27,6 +28,11 @@ export function CsvSettingsPanel() {
         <SelectField label="Decimal mark" value={csv.decimalMark} options={DECIMALS} help="Point (1.5) or comma (1,5) in numbers." onChange={(decimalMark) => set({ decimalMark }, 'change the decimal mark')} />
         <SelectField label="Rows that cannot be used" value={csv.badRows} options={BAD_ROWS} help="Stop and list the problems, or import without those rows." testId="bad-rows" onChange={(badRows) => set({ badRows }, 'change how bad rows are handled')} />
       </div>
+      {encoding && (
+        <p className="small muted" data-testid="text-encoding">
+          Text encoding: <strong>{encoding.name}</strong> ({encoding.how === 'byte-order mark' ? 'from the file’s byte-order mark' : encoding.name === 'Windows-1252' ? 'detected: the bytes are not UTF-8' : 'detected'}).
+        </p>
+      )}
     </section>
   );
 }

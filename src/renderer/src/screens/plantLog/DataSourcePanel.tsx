@@ -45,7 +45,7 @@ export function DataSourcePanel() {
         </p>
       )}
       <ProblemList title="The data file could not be read" problems={session.dataProblems} testId="data-problems" />
-      {session.dataProblems.length > 0 && doc.data.path !== '' && (
+      {session.dataMissing && doc.data.path !== '' && (
         <button onClick={() => void data.relocateDataFile()} data-testid="relocate-data">Locate the data file…</button>
       )}
     </section>

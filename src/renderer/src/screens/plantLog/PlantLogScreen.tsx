@@ -7,6 +7,8 @@ import { ProjectNameFields } from './ProjectNameFields';
 import { RewardAndEpisodes } from './RewardAndEpisodes';
 import { useDocument, useSession } from '../../hooks';
 import { Cautions } from '../../components/Cautions';
+import { SAMPLE_PROJECTS } from '../../help/sampleProjects';
+import { useWorkspace } from '../../WorkspaceContext';
 
 export function PlantLogScreen(props: { onNext: () => void }) {
   const session = useSession();
@@ -40,13 +42,17 @@ export function PlantLogScreen(props: { onNext: () => void }) {
 
 /** For a new project: what the tool does, the five steps, and the cautions before any number is seen. */
 function Welcome() {
+  const { files } = useWorkspace();
   return (
     <section className="panel" aria-labelledby="welcome-heading" data-testid="welcome">
       <h3 id="welcome-heading">What this does</h3>
       <p>
         From data logged under today’s controller, Setpoint Critic estimates how a candidate setpoint policy would perform before it touches
         the plant: it fits the candidate’s action-value function by fitted Q-evaluation and reports its value beside what the plant does today.
-        Go through the steps on the left in order; each says what it still needs. To continue earlier work, use <strong>Open…</strong>.
+        Go through the steps on the left in order; each says what it still needs. To continue earlier work, use <strong>Open…</strong>;
+        to try the app first, open a sample project: {SAMPLE_PROJECTS.map((s, i) => (
+          <span key={s.id}>{i > 0 ? ', ' : ''}<button className="link" onClick={() => void files.openSample(s.id)} data-testid={`welcome-sample-${s.id}`}>{s.title}</button></span>
+        ))}. <strong>Help</strong> (F1) explains every term.
       </p>
       <Cautions />
     </section>

@@ -6,7 +6,7 @@
 import { NumberField } from '../../components/NumberField';
 import { TextField } from '../../components/TextField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
-import { useDocument, useProblems } from '../../hooks';
+import { useDocument, useProblems, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { ColumnRoles } from '../../../../project/schema';
 
@@ -37,6 +37,7 @@ export function RewardAndEpisodes() {
 
 function RewardFieldset({ columns, problems, set, closeStep }: PartProps) {
   const reward = columns.reward;
+  const decimalComma = useSession().inspection?.decimalMark === ',';
   const columnProblem = reward.kind === 'column' ? problemAt(problems, 'columns.reward.column') : null;
   return (
     <fieldset>
@@ -55,7 +56,7 @@ function RewardFieldset({ columns, problems, set, closeStep }: PartProps) {
         <>
           <TextField
             label="Expression" value={reward.expression} multiline className="wide" placeholder="e.g. (level_upper_m - 1.2)^2 + 0.01 * inflow_valve_pct"
-            help="Column names (names with spaces in `backticks`), numbers with a point, + − * / ^, parentheses, abs, exp, log, sqrt, min, max, clamp."
+            help={`Column names (names with spaces in \`backticks\`), numbers, + − * / ^, parentheses, abs, exp, log, sqrt, min, max, clamp.${decimalComma ? ' This file uses a decimal comma: write 0,5 and separate arguments with ; (as in max(a; 0,5)).' : ''}`}
             message={problemAt(problems, 'columns.reward.expression')}
             onChange={(expression) => set('edit the reward expression', { reward: { ...reward, expression } }, 'reward-expression')}
             onBlur={closeStep}
@@ -75,15 +76,15 @@ function EpisodeFieldset({ columns, problems, set, closeStep }: PartProps) {
   const episode = columns.episode;
   return (
     <fieldset>
-      <legend>Episodes</legend>
+      <legend>Runs (episodes)</legend>
       <p className="small">
-        {episode.kind === 'column' && <>A new episode starts wherever <span className="mono">{episode.column}</span> changes.</>}
-        {episode.kind === 'timeGap' && <>A new episode starts where <span className="mono">{episode.column}</span> jumps by more than the gap below.</>}
-        {episode.kind === 'single' && <>The whole log is one episode. Give a column the role “Episode label” or “Timestamp” to split it.</>}
+        {episode.kind === 'column' && <>A new run starts wherever <span className="mono">{episode.column}</span> changes.</>}
+        {episode.kind === 'timeGap' && <>A new run starts where <span className="mono">{episode.column}</span> jumps by more than the gap below.</>}
+        {episode.kind === 'single' && <>The whole log is one run. Give a column the role “Run or batch label” or “Timestamp” to split it.</>}
       </p>
       {episode.kind === 'timeGap' && (
         <NumberField
-          label="Largest gap within an episode (s)" value={episode.maxGapSeconds ?? null} allowBlank placeholder="3× median step"
+          label="Largest gap within a run (s)" value={episode.maxGapSeconds ?? null} allowBlank placeholder="3× median step"
           help="Leave blank for three times the median sampling period." message={problemAt(problems, 'columns.episode.maxGapSeconds')}
           onCommit={(v) => set('set the episode gap', { episode: { ...episode, maxGapSeconds: v ?? undefined } }, 'max-gap')}
           onBlur={closeStep}
@@ -101,7 +102,7 @@ function NextStateFieldset({ columns, problems }: PartProps) {
       <legend>Next state</legend>
       <p className="small">
         {nextState.kind === 'nextRow'
-          ? 'The next state is the next row of the same episode. To give it in columns instead, give columns the role “Next value of …”.'
+          ? 'The next state is the next row of the same run. To give it in columns instead, give columns the role “Next value of …”.'
           : `The next state is read from columns ${nextState.columns.map((c) => c || '(not chosen)').join(', ')}, one per state.`}
       </p>
       {problem && <p className="error-text">{problem}</p>}

@@ -1,0 +1,81 @@
+/**
+ * Side by side with a plain numerical-Python linear FQE (../shared/peers/fqe_numpy.py, outside this
+ * project) on the same CSV, pair by pair in one run: the peer's whole script (load, features, fit,
+ * closed form, grid) against Setpoint Critic's whole `evaluate` (import, fit, surface, and the
+ * assessment with the default 1,000 bootstrap resamples, cross-checks, diagnostics, sensitivity),
+ * both as fresh processes, wall clock. The CSV comes from the peer's own generator
+ * (make_lq_dataset.py, seed 0). Also prints our phases from an in-process run. Printed, never asserted.
+ */
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { readFile } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { assessRun } from '../src/pipeline/assessProject';
+import { assessmentSettingsFor } from '../src/pipeline/assessSettings';
+import { evaluationOf } from '../src/pipeline/evaluateProject';
+import { openProject } from '../src/pipeline/openProject';
+import { startRun } from '../src/pipeline/projectRun';
+
+const root = resolve(import.meta.dirname, '..');
+const peers = resolve(root, '..', 'shared', 'peers');
+const work = join(root, 'test-artifacts', 'bench-peer');
+
+/** The peer's plant as a project: states s0, s1; action a0; reward r; its target policy u = −[1.6, 1.3]x + N(0, 0.3²); γ 0.95. */
+function peerProject(csv: string): string {
+  return JSON.stringify({
+    format: 'setpoint-critic-project', version: 1, name: 'Peer LQ plant', data: { path: csv },
+    columns: {
+      states: [{ column: 's0' }, { column: 's1' }], actions: [{ column: 'a0' }], reward: { kind: 'column', column: 'r', sense: 'reward' },
+      nextState: { kind: 'columns', columns: ['next_s0', 'next_s1'] }, episode: { kind: 'column', column: 'episode' }, terminal: 'done',
+    },
+    discount: 0.95, candidates: [{ name: 'target', offset: [0], gain: [[-1.6, -1.3]], std: [0.3] }],
+    approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 }, ridge: 1e-6 }, quadratureNodes: 10,
+  }, null, 2);
+}
+
+const seconds = (start: bigint) => Number(process.hrtime.bigint() - start) / 1e9;
+
+function timed(command: string, args: string[], cwd: string): number {
+  const t = process.hrtime.bigint();
+  execFileSync(command, args, { cwd, stdio: 'ignore', maxBuffer: 1 << 28 });
+  return seconds(t);
+}
+
+export async function runPeerBench(n: number, pairs = 2): Promise<Record<string, number | string>> {
+  mkdirSync(work, { recursive: true });
+  const csv = `lq_${n}.csv`, project = join(work, `peer_${n}.spcritic`);
+  if (!existsSync(join(work, csv))) execFileSync('python3', [join(peers, 'make_lq_dataset.py'), '--n-transitions', String(n), '--seed', '0', '--out', join(work, csv)], { stdio: 'ignore' });
+  writeFileSync(project, peerProject(csv));
+  const ours: number[] = [], theirs: number[] = [];
+  for (let p = 0; p < pairs; p++) {
+    theirs.push(timed('python3', [join(peers, 'fqe_numpy.py'), '--data', join(work, csv)], peers));
+    ours.push(timed(process.execPath, ['--import', 'tsx', join(root, 'src/cli/main.ts'), 'evaluate', project, '--json'], root));
+  }
+  const phases = await inProcessPhases(project);
+  const ratios = ours.map((o, i) => o / theirs[i]);
+  return {
+    transitions: n, pairs, 'peer script (s)': theirs.map((t) => t.toFixed(1)).join(', '), 'our evaluate (s)': ours.map((t) => t.toFixed(1)).join(', '),
+    'ratio ours/peer': ratios.map((r) => r.toFixed(2)).join(', '), ...phases,
+  };
+}
+
+async function inProcessPhases(projectPath: string): Promise<Record<string, number>> {
+  const folder = resolve(projectPath, '..');
+  let t = process.hrtime.bigint();
+  const opened = await openProject(await readFile(projectPath, 'utf8'), 'peer.spcritic', async (p) => new Uint8Array(await readFile(join(folder, p))));
+  if (!opened.ok) throw new Error(JSON.stringify(opened.problems));
+  const importSeconds = seconds(t);
+  t = process.hrtime.bigint();
+  const run = await startRun(opened.value.project, opened.value.dataset);
+  if (!run.ok) throw new Error(JSON.stringify(run.problems));
+  evaluationOf(run.value);
+  const fitSeconds = seconds(t);
+  t = process.hrtime.bigint();
+  const settings = assessmentSettingsFor(opened.value.project);
+  if (!settings.ok) throw new Error('settings');
+  const assessment = await assessRun(run.value, { settings: settings.value });
+  const assessSeconds = seconds(t);
+  run.value.dispose();
+  if (!assessment.ok) throw new Error(JSON.stringify(assessment.problems));
+  return { 'import (s)': importSeconds, 'fit + surface (s)': fitSeconds, 'assessment (s)': assessSeconds };
+}

@@ -1,0 +1,109 @@
+/**
+ * The fit history on a log axis: for the linear fit, the relative weight change and the Bellman
+ * residual per iteration; for a network fit (no weight change), the training loss and the
+ * held-out Bellman error. A log axis cannot show zero or negative values, so those points are gaps.
+ */
+import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
+import type { FitStep as FitIteration } from './figureData';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
+import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
+import type { Theme } from '../parts/plotTheme';
+import { decadeLabel, formatValue } from '../parts/tickFormat';
+import { legendPlugin } from '../parts/legendBox';
+
+export const CONVERGENCE_DEFAULTS = { heightPx: 320, lineWidthPx: 2, pointRadiusPx: 2.5 } as const;
+
+export interface ConvergencePlotProps {
+  history: FitIteration[];
+  title: string;
+  theme: Theme;
+}
+
+type XY = { x: number; y: number | null };
+type SeriesField = 'weightChange' | 'bellmanResidual' | 'loss';
+
+interface Series {
+  readonly field: SeriesField;
+  readonly label: string;
+}
+
+/** A network fit reports a loss and no weight change. */
+export function isNetworkHistory(history: readonly FitIteration[]): boolean {
+  return history.length > 0 && history.every((h) => h.weightChange === null) && history.some((h) => h.loss !== null);
+}
+
+export function convergenceSeries(history: readonly FitIteration[]): Series[] {
+  return isNetworkHistory(history)
+    ? [{ field: 'loss', label: 'training loss' }, { field: 'bellmanResidual', label: 'one-step mismatch on held-out runs (mean square)' }]
+    : [{ field: 'weightChange', label: 'relative weight change' }, { field: 'bellmanResidual', label: 'one-step mismatch (mean square)' }];
+}
+
+function positiveOrNull(v: number | null): number | null {
+  return v !== null && Number.isFinite(v) && v > 0 ? v : null;
+}
+
+export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
+  const { history } = props, p = look.palette, s = look.scale, d = CONVERGENCE_DEFAULTS;
+  const series = convergenceSeries(history);
+  const datasets: ChartDataset<'line', XY[]>[] = series.map((serie, k) => ({
+    label: serie.label,
+    data: history.map((h) => ({ x: h.iteration, y: positiveOrNull(h[serie.field]) })),
+    borderColor: p.series[k], backgroundColor: p.series[k], borderWidth: d.lineWidthPx * s,
+    borderDash: k === 1 ? [6 * s, 3 * s] : [], pointRadius: history.length > 60 ? 0 : d.pointRadiusPx * s, spanGaps: false,
+  }));
+  const shared = sharedOptions(look, props.title, history.length ? `${history.length} iteration${history.length === 1 ? '' : 's'}, log scale` : null);
+  const hasData = datasets.some((set) => set.data.some((pt) => pt.y !== null));
+  return {
+    type: 'line',
+    data: { datasets },
+    plugins: [
+      legendPlugin(series.map((serie, k) => ({ label: serie.label, kind: 'line' as const, colour: p.series[k], dash: k === 1 ? [6, 3] : [], lineWidthPx: d.lineWidthPx })), look),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: 'iteration' }, { scaleId: 'y', position: 'left', text: 'value (log scale)' }]),
+      ...(hasData ? [] : [emptyNotice(look)]),
+    ],
+    options: {
+      ...shared,
+      parsing: false,
+      interaction: { mode: 'index', intersect: false },
+      scales: {
+        x: { ...valueAxis(look, 'iteration', 'bottom'), type: 'linear', min: 1, max: Math.max(2, history.length), ticks: { ...valueAxis(look, '', 'bottom').ticks, precision: 0 } },
+        y: { ...valueAxis(look, 'value (log scale)', 'left'), type: 'logarithmic', ticks: { ...valueAxis(look, '', 'left').ticks, callback: (v) => logTickLabel(Number(v)) } },
+      },
+      plugins: {
+        ...shared.plugins,
+        tooltip: { ...shared.plugins?.tooltip, callbacks: { label: (item) => `${item.dataset.label}: ${formatValue(item.parsed.y ?? NaN)}` } },
+      },
+    },
+  };
+}
+
+/** Label only the decades, all in one notation ("10⁻⁵"); ticks between decades stay unlabelled. */
+export function logTickLabel(value: number): string {
+  return decadeLabel(value);
+}
+
+function emptyNotice(look: PlotLook): Plugin {
+  return {
+    id: 'setpointEmptyHistory',
+    afterDraw(chart) {
+      const { ctx, chartArea: a } = chart;
+      ctx.save();
+      ctx.fillStyle = look.palette.mutedText;
+      ctx.font = fontString(look, PLOT_FONTS.axisTitlePx);
+      ctx.textAlign = 'center';
+      ctx.textBaseline = 'middle';
+      ctx.fillText('no iteration history to show', (a.left + a.right) / 2, (a.top + a.bottom) / 2);
+      ctx.restore();
+    },
+  };
+}
+
+export function convergenceSummary(props: ConvergencePlotProps): string {
+  const { history } = props;
+  if (history.length === 0) return 'Fit history: no iterations recorded.';
+  const last = history[history.length - 1];
+  const parts = convergenceSeries(history)
+    .filter((serie) => last[serie.field] !== null)
+    .map((serie) => `${serie.label} ${formatValue(last[serie.field] as number)}`);
+  return `Fit history over ${history.length} iterations on a log scale. At the last iteration: ${parts.join('; ') || 'no values'}.`;
+}

@@ -1,0 +1,59 @@
+/**
+ * The data the charts draw, declared here so src/figures needs nothing above src/core. The
+ * pipeline's results (src/pipeline/estimates.ts, assessment.ts) and the worker's replies have these
+ * shapes or wider ones, so they pass in as they are (TypeScript checks the fit structurally).
+ */
+
+/** A value surface on a uniform grid. x: nx, y: ny; values and visits: ny×nx row-major (row j at y[j]). */
+export interface SurfaceData {
+  x: Float64Array;
+  y: Float64Array;
+  values: Float64Array;
+  /** Logged states nearest each grid point; 0 marks a point the logs never came near. */
+  visits: Uint32Array;
+}
+
+/** One iteration of a fit: the linear fit has a weight change, a network a training loss. */
+export interface FitStep {
+  iteration: number;
+  weightChange: number | null;
+  bellmanResidual: number | null;
+  loss: number | null;
+}
+
+export type FitOutcome = 'converged' | 'maxIterations' | 'diverged';
+
+/** One bar of the policy-value chart. */
+export interface PolicyValueRowData {
+  name: string;
+  policyValue: number;
+  standardError: number;
+  status: FitOutcome;
+}
+
+/** What the policy-value chart needs of an evaluation. */
+export interface PolicyValueData {
+  policies: readonly PolicyValueRowData[];
+  behaviour: { value: number; standardError: number };
+  valueSense: 'reward' | 'cost';
+}
+
+/** J at a range of one setting, one series per policy (the present controller's marked by `present`). */
+export interface SensitivityData {
+  parameter: string;
+  label: string;
+  settings: number[];
+  projectIndex: number;
+  series: { name: string; values: (number | null)[] }[];
+  rankingStable: boolean;
+}
+
+/** The worker's slice of Q(s, ·) along one action at one state. Arrays: n, ascending actions. */
+export interface SliceData {
+  actions: Float64Array;
+  actionValues: Float64Array;
+  density: Float64Array;
+  nodes: { points: Float64Array; weights: Float64Array };
+  state: number[];
+  policyName: string;
+}

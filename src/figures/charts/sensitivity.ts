@@ -1,0 +1,83 @@
+/**
+ * J over a range of one setting (the discount, the feature degree or centres, the network width):
+ * one line per candidate and the logged behaviour as a dashed reference, the project's own setting
+ * marked by a larger point. Whether the lines cross is what the reader looks for: a conclusion
+ * that flips within the range depends on the setting.
+ */
+import type { ChartConfiguration, ChartDataset } from 'chart.js';
+import type { SensitivityData as SensitivityCurve } from './figureData';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
+import { legendPlugin } from '../parts/legendBox';
+import { PRESENT_CONTROLLER, PRESENT_DASH_PX } from '../parts/plotTheme';
+import type { PlotLook } from '../parts/plotLook';
+import type { Theme } from '../parts/plotTheme';
+import { formatValue } from '../parts/tickFormat';
+
+export const SENSITIVITY_DEFAULTS = { heightPx: 300, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6 } as const;
+
+export interface SensitivityPlotProps {
+  curve: SensitivityCurve;
+  /** What J is, with its sense, for the value axis (e.g. "J (discounted cost: lower is better)"). */
+  valueLabel: string;
+  title: string;
+  theme: Theme;
+}
+
+type XY = { x: number; y: number | null };
+
+/** The behaviour's series is named by the pipeline; it is drawn as the reference. */
+export function isBehaviourSeries(name: string): boolean {
+  return name === PRESENT_CONTROLLER || name.toLowerCase().startsWith('logged');
+}
+
+export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
+  const { curve } = props, p = look.palette, s = look.scale, d = SENSITIVITY_DEFAULTS;
+  let candidate = 0;
+  const datasets: ChartDataset<'line', XY[]>[] = curve.series.map((serie) => {
+    const reference = isBehaviourSeries(serie.name);
+    const colour = reference ? p.reference : p.series[candidate++ % p.series.length];
+    return {
+      label: reference ? PRESENT_CONTROLLER : serie.name,
+      data: curve.settings.map((x, i) => ({ x, y: serie.values[i] })),
+      borderColor: colour, backgroundColor: colour, borderWidth: d.lineWidthPx * s, borderDash: reference ? PRESENT_DASH_PX.map((v) => v * s) : [],
+      pointRadius: curve.settings.map((_, i) => (i === curve.projectIndex ? d.projectPointRadiusPx : d.pointRadiusPx) * s),
+      spanGaps: false,
+    };
+  });
+  const shared = sharedOptions(look, props.title, `large points: the project’s setting (${formatValue(curve.settings[curve.projectIndex] ?? NaN)}); ${curve.rankingStable ? 'the ranking is the same at every setting' : 'the ranking changes within this range'}`);
+  const keys = datasets.map((set) => ({
+    label: String(set.label), kind: 'line' as const, colour: String(set.borderColor), lineWidthPx: d.lineWidthPx,
+    dash: (set.borderDash as number[]).map((v) => v / s), markerRadiusPx: d.pointRadiusPx,
+  }));
+  return {
+    type: 'line',
+    data: { datasets },
+    plugins: [
+      legendPlugin(keys, look),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: curve.label }, { scaleId: 'y', position: 'left', text: props.valueLabel }]),
+    ],
+    options: {
+      ...shared,
+      parsing: false,
+      interaction: { mode: 'index', intersect: false },
+      scales: {
+        x: { ...valueAxis(look, curve.label, 'bottom'), type: 'linear' },
+        y: { ...valueAxis(look, props.valueLabel, 'left'), type: 'linear' },
+      },
+      plugins: {
+        ...shared.plugins,
+        tooltip: { ...shared.plugins?.tooltip, callbacks: { label: (item) => `${item.dataset.label}: ${item.parsed.y === null ? 'no value' : formatValue(item.parsed.y)}` } },
+      },
+    },
+  };
+}
+
+export function sensitivitySummary(props: SensitivityPlotProps): string {
+  const { curve } = props;
+  const lines = curve.series.map((serie) => {
+    const shown = serie.values.filter((v): v is number => v !== null);
+    return shown.length === 0 ? `${serie.name}: no values` : `${serie.name} from ${formatValue(Math.min(...shown))} to ${formatValue(Math.max(...shown))}`;
+  });
+  return `${props.valueLabel} over ${curve.label} from ${formatValue(curve.settings[0])} to ${formatValue(curve.settings[curve.settings.length - 1])}: ${lines.join('; ')}. `
+    + (curve.rankingStable ? 'The ranking is the same at every setting.' : 'The ranking changes within this range.');
+}

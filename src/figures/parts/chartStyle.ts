@@ -1,0 +1,65 @@
+/**
+ * The options every plot shares — fonts, colours, title, legend, tooltip, axes — from one look, so
+ * the four plots match each other and an export differs from the screen only by its scale.
+ */
+import type { ChartOptions, Plugin, ScaleOptions } from 'chart.js';
+import { axisTitlePlugin } from './axisTitle';
+import { formatTick, fractionDigitsOf } from './tickFormat';
+import { font, PLOT_FONTS, type PlotLook } from './plotLook';
+
+export const CHART_STYLE_DEFAULTS = { paddingPx: 10, titleGapPx: 6, legendBoxPx: 18, legendGapPx: 12, tooltipPaddingPx: 8 } as const;
+
+export function sharedOptions(look: PlotLook, title: string, subtitle: string | null): ChartOptions {
+  const p = look.palette, s = look.scale, d = CHART_STYLE_DEFAULTS;
+  return {
+    responsive: look.interactive,
+    maintainAspectRatio: false,
+    animation: false,
+    locale: 'en-US',
+    ...(look.interactive ? {} : { devicePixelRatio: 1, events: [] }),
+    color: p.text,
+    layout: { padding: d.paddingPx * s },
+    plugins: {
+      title: {
+        display: title.length > 0, text: title, color: p.text, font: font(look, PLOT_FONTS.titlePx, 'bold'),
+        padding: { top: 0, bottom: (subtitle ? 2 : d.titleGapPx) * s },
+      },
+      subtitle: {
+        display: subtitle !== null, text: subtitle ?? '', color: p.mutedText, font: font(look, PLOT_FONTS.subtitlePx),
+        padding: { top: 0, bottom: d.titleGapPx * s },
+      },
+      // Our own legend box (legendBox.ts) draws keys that match the series; Chart.js's stays off.
+      legend: { display: false },
+      tooltip: {
+        enabled: look.interactive, backgroundColor: p.tooltipBackground, titleColor: p.tooltipText, bodyColor: p.tooltipText,
+        titleFont: font(look, PLOT_FONTS.tooltipPx, 'bold'), bodyFont: font(look, PLOT_FONTS.tooltipPx), padding: d.tooltipPaddingPx * s,
+      },
+    },
+  };
+}
+
+type AxisOptions = ScaleOptions<'linear'>;
+
+/**
+ * A numeric axis. Its title is set by axisTitlePlugin (so it can carry V^{π}); ticks use one
+ * number of decimals per axis, the true minus sign, and no extra ticks at the axis ends (an end
+ * tick such as "3.2" would crowd the round "3" beside it).
+ */
+export function valueAxis(look: PlotLook, _title: string, position: 'left' | 'right' | 'bottom', gridInside = true): AxisOptions {
+  const p = look.palette, s = look.scale;
+  return {
+    position,
+    title: { display: false },
+    ticks: {
+      color: p.text, font: font(look, PLOT_FONTS.tickPx), padding: 4 * s, includeBounds: false,
+      callback: (value, _index, ticks) => formatTick(Number(value), fractionDigitsOf(ticks.map((t) => t.value))),
+    },
+    grid: { color: p.grid, lineWidth: s, drawOnChartArea: gridInside, tickLength: 5 * s, tickColor: p.axis },
+    border: { display: true, color: p.axis, width: s },
+  };
+}
+
+/** The axis titles of a chart as plugins (see axisTitle.ts). */
+export function axisTitles(look: PlotLook, titles: readonly { scaleId: string; position: 'left' | 'right' | 'bottom'; text: string }[]): Plugin[] {
+  return titles.map((t) => axisTitlePlugin({ ...t, look }));
+}

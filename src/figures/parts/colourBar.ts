@@ -1,0 +1,110 @@
+/**
+ * The colour bar of the heat map, drawn by us: a Chart.js layout box on the right of the plot
+ * area, as tall as the plot area, holding the colour ramp, nice ticks (Heckbert 1990) with labels,
+ * and the value label with its units written along the bar. Being a layout box, Chart.js makes room
+ * for it before it sizes the axes, so nothing overlaps at any font scale.
+ */
+import { type Chart, type LayoutItem, type Plugin } from 'chart.js';
+import { LayoutBoxGeometry, layoutBoxHooks } from './layoutBox';
+import type { ColourScale } from './colourScale';
+import { niceTicks, type TickSet } from './niceTicks';
+import { fontString, PLOT_FONTS, type PlotLook } from './plotLook';
+import { paintRaster } from './raster';
+import { colourBarRaster } from './surfaceRaster';
+import { formatTick } from './tickFormat';
+import { drawRichText } from './richText';
+
+/** Sizes in CSS px, times look.scale. */
+export const COLOUR_BAR_DEFAULTS = {
+  gapPx: 16, // plot area → bar
+  barWidthPx: 16,
+  tickLengthPx: 5,
+  labelGapPx: 4,
+  titleGapPx: 10,
+  /** About one tick per this many px of bar height. */
+  tickSpacingPx: 40,
+} as const;
+
+export interface ColourBarSpec {
+  readonly scale: ColourScale;
+  /** Value label with units, e.g. "V^π (cost, kWh)". */
+  readonly label: string;
+  readonly look: PlotLook;
+}
+
+/** Ticks for a bar heightPx tall: between 2 and 11, about one per tickSpacingPx. */
+export function colourBarTicks(scale: ColourScale, heightPx: number, look: PlotLook): TickSet {
+  const target = Math.min(11, Math.max(2, Math.round(heightPx / (COLOUR_BAR_DEFAULTS.tickSpacingPx * look.scale))));
+  return niceTicks(scale.min, scale.max, target);
+}
+
+class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
+  readonly position = 'right' as const;
+  readonly weight = 10;
+  private ticks: TickSet | null = null;
+  private readonly raster;
+
+  constructor(private readonly chart: Chart, private readonly spec: ColourBarSpec) {
+    super();
+    this.raster = colourBarRaster(spec.scale);
+  }
+
+  isHorizontal(): boolean {
+    return false;
+  }
+
+  update(_maxWidth: number, maxHeight: number): void {
+    const { look } = this.spec, s = look.scale, ctx = this.chart.ctx, d = COLOUR_BAR_DEFAULTS;
+    this.ticks = colourBarTicks(this.spec.scale, maxHeight, look);
+    ctx.save();
+    ctx.font = fontString(look, PLOT_FONTS.tickPx);
+    const labelWidth = Math.max(...this.ticks.values.map((v) => ctx.measureText(this.tickText(v)).width), 0);
+    ctx.restore();
+    this.width = (d.gapPx + d.barWidthPx + d.tickLengthPx + d.labelGapPx + d.titleGapPx) * s + labelWidth + PLOT_FONTS.axisTitlePx * s * 1.5;
+    this.height = maxHeight;
+  }
+
+  draw(): void {
+    const { look, scale, label } = this.spec, s = look.scale, ctx = this.chart.ctx, d = COLOUR_BAR_DEFAULTS;
+    const x = this.left + d.gapPx * s, barWidth = d.barWidthPx * s, top = this.top, height = this.bottom - this.top;
+    paintRaster(ctx, this.raster, { x, y: top, width: barWidth, height }, true);
+    ctx.save();
+    ctx.strokeStyle = look.palette.axis;
+    ctx.lineWidth = s;
+    ctx.strokeRect(x, top, barWidth, height);
+    ctx.fillStyle = look.palette.text;
+    ctx.font = fontString(look, PLOT_FONTS.tickPx);
+    ctx.textAlign = 'left';
+    ctx.textBaseline = 'middle';
+    ctx.beginPath();
+    let labelRight = x + barWidth;
+    for (const v of this.ticks?.values ?? []) {
+      const y = top + (1 - (scale.position(v) ?? 0)) * height;
+      ctx.moveTo(x + barWidth, y);
+      ctx.lineTo(x + barWidth + d.tickLengthPx * s, y);
+      const textX = x + barWidth + (d.tickLengthPx + d.labelGapPx) * s, text = this.tickText(v);
+      ctx.fillText(text, textX, y);
+      labelRight = Math.max(labelRight, textX + ctx.measureText(text).width);
+    }
+    ctx.stroke();
+    ctx.restore();
+    ctx.save();
+    ctx.fillStyle = look.palette.text;
+    // Reads bottom to top, as the y-axis title does; rich text, so V^{π} is typeset.
+    drawRichText(ctx, label, labelRight + d.titleGapPx * s + PLOT_FONTS.axisTitlePx * s * 0.6, top + height / 2,
+      { sizePx: PLOT_FONTS.axisTitlePx * s, family: look.fontFamily ?? PLOT_FONTS.family, weight: 'bold' }, 'center', -Math.PI / 2);
+    ctx.restore();
+  }
+
+  private tickText(v: number): string {
+    return formatTick(v, this.ticks?.fractionDigits ?? 0);
+  }
+}
+
+/** A per-chart plugin that adds the colour bar box while the chart lives. */
+export function colourBarPlugin(spec: ColourBarSpec): Plugin {
+  return {
+    id: 'setpointColourBar',
+    ...layoutBoxHooks((chart) => new ColourBarBox(chart, spec)),
+  };
+}

@@ -1,0 +1,59 @@
+/**
+ * Tick and tooltip number text. Fixed notation with the tick set's digits in the usual range,
+ * exponent notation for very large or very small magnitudes so labels stay short. The locale is
+ * fixed ('en-US') so an exported figure reads the same on every machine.
+ */
+const EXPONENT_ABOVE = 1e6;
+const EXPONENT_BELOW = 1e-4;
+
+export function formatTick(value: number, fractionDigits: number): string {
+  if (value === 0) return (0).toFixed(Math.min(20, fractionDigits));
+  const magnitude = Math.abs(value);
+  if (magnitude >= EXPONENT_ABOVE || magnitude < EXPONENT_BELOW) return trueMinus(value.toExponential(2).replace('e+', 'e'));
+  return trueMinus(value.toLocaleString('en-US', { minimumFractionDigits: fractionDigits, maximumFractionDigits: fractionDigits }));
+}
+
+/** The minus sign U+2212 for the hyphen-minus (typographic practice for numbers; ISO 80000-2). */
+export function trueMinus(text: string): string {
+  return text.replace(/-/g, '−');
+}
+
+/** Digits a set of evenly spaced ticks needs to tell neighbours apart (Heckbert's nfrac from the step). */
+export function fractionDigitsOf(values: readonly number[]): number {
+  if (values.length < 2) return 0;
+  const step = Math.abs(values[1] - values[0]);
+  return step > 0 ? Math.min(12, Math.max(0, -Math.floor(Math.log10(step) + 1e-9))) : 0;
+}
+
+const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
+
+/** A decade on a log axis as 10 with a superscript exponent ("10⁻⁵"); '' for values between decades. */
+export function decadeLabel(value: number): string {
+  if (!(value > 0)) return '';
+  const exponent = Math.log10(value), k = Math.round(exponent);
+  if (Math.abs(exponent - k) > 1e-9) return '';
+  return `10${String(k).split('').map((c) => SUPERSCRIPT[c]).join('')}`;
+}
+
+/** A value with four significant digits, for tooltips and text summaries. */
+export function formatValue(value: number): string {
+  if (!Number.isFinite(value)) return String(value);
+  if (value === 0) return '0';
+  const magnitude = Math.abs(value);
+  if (magnitude >= EXPONENT_ABOVE || magnitude < EXPONENT_BELOW) return trueMinus(value.toExponential(3).replace('e+', 'e'));
+  return trueMinus(Number(value.toPrecision(4)).toLocaleString('en-US', { maximumFractionDigits: 10 }));
+}
+
+/**
+ * A value with its standard error as "5.76 ± 0.18": the error to two significant digits and the
+ * value to the same decimal place (the usual way to quote a result with its uncertainty; JCGM 100,
+ * the GUM, §7.2.2 — common practice). Exponent form outside 1e-4 … 1e6.
+ */
+export function formatEstimate(value: number, error: number | null): string {
+  if (error === null || !Number.isFinite(error) || error <= 0) return formatValue(value);
+  const magnitude = Math.max(Math.abs(value), error);
+  if (magnitude >= EXPONENT_ABOVE || magnitude < EXPONENT_BELOW) return `${formatValue(value)} ± ${formatValue(error)}`;
+  const decimals = Math.min(12, Math.max(0, 1 - Math.floor(Math.log10(error))));
+  const fixed = (x: number) => trueMinus(x.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals }));
+  return `${fixed(value)} ± ${fixed(error)}`;
+}

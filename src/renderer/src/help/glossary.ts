@@ -1,0 +1,36 @@
+/**
+ * The terms a user meets, each in one line: the trade's own terms where it has them, plain coined
+ * names for the rest, and the method names a reviewer needs, explained once. Terms are rich text
+ * (V^{π}: superscript; E_{a~π}: subscript) so they are typeset as written in the literature.
+ */
+export interface GlossaryEntry {
+  term: string;
+  /** Other names the same thing goes by (the literature's, or ours elsewhere). */
+  aka?: string;
+  meaning: string;
+}
+
+export const GLOSSARY: readonly GlossaryEntry[] = [
+  { term: 'Present controller (logged)', aka: 'behaviour policy', meaning: 'The controller that ran while the log was recorded. Its discounted cost is read straight off the log; every candidate is compared with it.' },
+  { term: 'Candidate', aka: 'target policy', meaning: 'A retune to judge before it touches the plant: a mean action (offset plus a gain on each state), a dither around it, and optional actuator limits.' },
+  { term: 'Run', aka: 'episode, batch', meaning: 'A stretch of the log recorded without a break; discounted costs are summed within a run, never across two.' },
+  { term: 'Logged step', aka: 'transition', meaning: 'One row of the log with the next: state, action, cost, and the state that followed.' },
+  { term: 'Dither', aka: 'exploration noise, policy standard deviation', meaning: 'How far a candidate’s action wanders around its mean (one standard deviation of a Gaussian). The log must hold actions like it for the estimate to rest on data.' },
+  { term: 'Actuator limit', meaning: 'The lowest and highest action the actuator can take. Clip: the action sits at the limit. Truncate: the candidate never asks beyond it.' },
+  { term: 'Discount factor γ', meaning: 'Weight of a cost one logged step later. 1/(1 − γ) steps is the horizon it looks over; with the sampling period that is a time.' },
+  { term: 'J', aka: 'policy value', meaning: 'A candidate’s expected discounted cost from the start states on, in the cost’s own unit, discounted. Lower is better for a cost.' },
+  { term: 'V^{π}(s)', aka: 'state value', meaning: 'The expected discounted cost from state s on under candidate π. J is its mean over the start states.' },
+  { term: 'Q^{π}(s, a)', aka: 'action value, Q-function', meaning: 'The expected discounted cost of taking action a in state s, then following candidate π.' },
+  { term: 'E_{a~π}[Q^{π}(s, a)]', meaning: 'The average of Q over the candidate’s actions at s (its mean and dither): that average is V^{π}(s).' },
+  { term: 'Fitted Q-evaluation', aka: 'FQE', meaning: 'The method: Q^{π} is fitted to the logged steps by repeated least squares, each time against the cost plus γ times the averaged Q of the next state.' },
+  { term: 'Gauss–Hermite nodes', meaning: 'The points at which Q is averaged over a Gaussian action, with their weights (a quadrature rule; exact for polynomials up to twice the node count).' },
+  { term: 'One-step mismatch', aka: 'Bellman residual, temporal-difference error', meaning: 'How far the fitted Q misses cost + γ × next Q on the logged steps, as a mean square. It should fall and level off as the fit converges.' },
+  { term: 'J by direct solve', aka: 'fixed point, LSTD-Q', meaning: 'J from solving the fit’s equations in one step instead of iterating; it should match J from the iterated fit.' },
+  { term: 'Weight penalty', aka: 'ridge', meaning: 'A small penalty on the fitted weights that keeps the least-squares solve well posed.' },
+  { term: 'Bootstrap interval', meaning: 'The range J falls in when whole runs of the log are drawn again at random and the fit repeated; percentile and basic intervals are two ways to read the resamples.' },
+  { term: 'Paired difference', meaning: 'J of one policy minus J of another on the same resamples, so luck in which runs were logged cancels.' },
+  { term: 'Cross-checks', aka: 'importance sampling, doubly robust, model check', meaning: 'Other estimates of the same J under other assumptions. Agreement is evidence; disagreement is a reason to look closer.' },
+  { term: 'Distribution shift', meaning: 'How far the states and actions a candidate asks about lie from those in the log (1 = none). Large values mean extrapolation.' },
+  { term: 'Effective sample size', meaning: 'How many logged steps or runs the reweighted log is worth for a candidate; few means noisy cross-checks.' },
+  { term: 'Unvisited cells', meaning: 'Cells of a value surface with no logged state nearest them: there the value is extrapolated, not measured.' },
+];

@@ -1,0 +1,106 @@
+/**
+ * The last run's results kept in the project (schema `results`), so a reopened project shows its
+ * findings without a rerun. Written after each run and each assessment (an amendment, not an
+ * undoable edit, like the data fingerprint); read back when the data has been imported again, with
+ * the fingerprint of data + settings compared: results of other data or settings come back marked
+ * out of date, never as current. The fitted models are not kept, so surfaces and slices at new
+ * states need a new run.
+ */
+import type { Assessment } from '../../../pipeline/assessment';
+import { assessmentToJson } from '../../../pipeline/assessmentJson';
+import type { Evaluation, PolicyEstimate } from '../../../pipeline/estimates';
+import { evaluationToJson } from '../../../pipeline/evaluationJson';
+import type { ProjectDocument, SavedResults } from '../../../project/schema';
+import type { DocumentStore } from '../document/documentStore';
+import { runFingerprint, runKey } from '../../../shared/runKey';
+import type { SessionStore } from './sessionStore';
+
+export function resultsOf(evaluation: Evaluation, assessment: Assessment | null, key: string, now: Date): SavedResults {
+  return {
+    format: 1, fingerprint: runFingerprint(key), savedAt: now.toISOString(),
+    evaluation: evaluationToJson(evaluation), ...(assessment ? { assessment: assessmentToJson(assessment) } : {}),
+  };
+}
+
+/** Keep the results in the document (every snapshot, so undo does not drop them). */
+export function keepResults(documents: DocumentStore, results: SavedResults): void {
+  documents.amendAll((d) => ({ ...d, results }));
+}
+
+const isNumber = (v: unknown): v is number => typeof v === 'number';
+
+/** The evaluation from its JSON form, or null when it is not one this version can show. */
+export function evaluationFromJson(json: Record<string, unknown>): Evaluation | null {
+  const policies = json.policies, behaviour = json.behaviour as Record<string, unknown> | undefined;
+  if (!Array.isArray(policies) || !behaviour || !isNumber(behaviour.value) || typeof json.evaluatedAt !== 'string') return null;
+  if (json.valueSense !== 'cost' && json.valueSense !== 'reward') return null;
+  const decoded = policies.map(policyFromJson);
+  if (decoded.some((p) => p === null)) return null;
+  return { ...(json as unknown as Evaluation), policies: decoded as PolicyEstimate[] };
+}
+
+function policyFromJson(raw: unknown): PolicyEstimate | null {
+  const p = raw as Record<string, unknown>;
+  if (!p || typeof p.name !== 'string' || !isNumber(p.policyValue) || !Array.isArray(p.history)) return null;
+  const s = p.surface as Record<string, unknown> | null;
+  const surface = s && Array.isArray(s.x) && Array.isArray(s.y) && Array.isArray(s.values) && Array.isArray(s.visits)
+    ? { ...(s as object), x: Float64Array.from(s.x), y: Float64Array.from(s.y), values: Float64Array.from(s.values as number[], (v) => (v === null ? NaN : v)), visits: Uint32Array.from(s.visits) }
+    : null;
+  return { ...(p as unknown as PolicyEstimate), surface: surface as PolicyEstimate['surface'] };
+}
+
+/** The assessment from its JSON form (already plain data), or null. */
+export function assessmentFromJson(json: Record<string, unknown> | undefined): Assessment | null {
+  if (!json || !Array.isArray(json.candidates) || !json.comparison || !json.settings) return null;
+  return json as unknown as Assessment;
+}
+
+/** After an import of the current data: show the kept results, current or marked out of date. */
+export function restoreResults(doc: ProjectDocument, dataFingerprint: string, session: SessionStore): boolean {
+  const saved = doc.results;
+  if (!saved || session.get().evaluation) return false;
+  const evaluation = evaluationFromJson(saved.evaluation);
+  if (!evaluation) {
+    session.set((s) => ({ ...s, notice: { tone: 'warning', title: 'The results kept in this project could not be read by this version; run the evaluation again', problems: [] } }));
+    return false;
+  }
+  const key = runKey(doc, dataFingerprint);
+  const current = runFingerprint(key) === saved.fingerprint;
+  const recordKey = current ? key : `out of date: ${saved.fingerprint}`;
+  const assessment = assessmentFromJson(saved.assessment);
+  session.set((s) => ({
+    ...s,
+    evaluation: { evaluation, runKey: recordKey, restored: { savedAt: saved.savedAt, current } },
+    assessment: assessment ? { status: 'done', runKey: recordKey, assessment } : s.assessment,
+  }));
+  return true;
+}
+
+/**
+ * Keep each fresh run's results (and its assessment once done) in the document, and read kept
+ * results back once the data of an opened project has been imported. Returns the stop function.
+ */
+export function startResultsKeeping(documents: DocumentStore, session: SessionStore, now: () => Date = () => new Date()): () => void {
+  let keptEvaluation: Evaluation | null = null, keptAssessment: Assessment | null = null, restoredFor = '';
+  const check = (): void => {
+    const s = session.get(), doc = documents.get().history.present;
+    const record = s.evaluation;
+    if (record && !record.restored) {
+      const assessment = s.assessment.status === 'done' && s.assessment.runKey === record.runKey ? s.assessment.assessment : null;
+      if (record.evaluation !== keptEvaluation || assessment !== keptAssessment) {
+        keptEvaluation = record.evaluation;
+        keptAssessment = assessment;
+        keepResults(documents, resultsOf(record.evaluation, assessment, record.runKey, now()));
+      }
+      return;
+    }
+    const imported = s.importState;
+    const attempt = `${documents.get().generation}|${imported.status === 'done' ? imported.key : ''}`;
+    if (!record && doc.results && imported.status === 'done' && restoredFor !== attempt) {
+      restoredFor = attempt;
+      restoreResults(doc, imported.result.fingerprint, session);
+    }
+  };
+  const stops = [session.subscribe(check), documents.subscribe(check)];
+  return () => stops.forEach((stop) => stop());
+}

@@ -1,0 +1,154 @@
+/**
+ * The app as a control engineer meets it, in Chromium: each check here would have caught one of
+ * the stumbles found by trying the app as a new user — a dead end after locating a moved file,
+ * results lost on reopening, a 6,000-pixel Findings column, the toolbar scrolling away, files in
+ * other encodings refused, figure text overlapping, no redo on Ctrl+Y — and the main thread's
+ * longest task during a run is measured (Long Tasks API) and printed.
+ */
+import { copyFile, readFile, rename } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { startMainThreadProbe, stopMainThreadProbe } from './harness/mainThreadProbe';
+import { POLL } from './harness/poll';
+import { launchApp, type LaunchedApp } from './harness/launch';
+import { chooseData, goToStep, mapTankColumns, TANK_CSV } from '../renderer/e2e/appSteps';
+import { writeTankProject } from '../renderer/e2e/projectFiles';
+
+const ENCODED = resolve(__dirname, '../fixtures/encodings');
+
+describe('the app as a control engineer meets it (e2e)', () => {
+  let app: LaunchedApp;
+  let projectPath = '';
+  let firstValue = '';
+
+  beforeAll(async () => {
+    app = await launchApp({ viewport: { width: 1280, height: 800 } });
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('runs a prepared project with every main-thread task measured', async () => {
+    const { page, harness } = app;
+    const data = join(harness.workFolder, 'levels.csv');
+    projectPath = join(harness.workFolder, 'levels.spcritic');
+    await copyFile(TANK_CSV, data);
+    await writeTankProject({ projectPath, dataPath: data, fingerprint: true });
+    harness.dialogs.nextOpenProject = projectPath;
+    await page.getByTestId('open-project').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
+    await goToStep(page, 'run');
+    await page.evaluate(startMainThreadProbe);
+    await page.getByTestId('run-evaluation').click();
+    await page.getByTestId('run-finished').waitFor({ timeout: 90_000 });
+    await goToStep(page, 'findings');
+    await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
+    await page.getByTestId('comparison-table').waitFor({ timeout: 90_000 });
+    const probe = await page.evaluate(stopMainThreadProbe);
+    console.log(`main thread during a run and its findings: longest task ${probe.longestTaskMs.toFixed(0)} ms, ${probe.longTasks} tasks over 50 ms, longest frame gap ${probe.longestFrameGapMs.toFixed(0)} ms`);
+    firstValue = (await page.getByTestId('policy-value-0').getAttribute('data-value')) ?? '';
+    expect(Number(firstValue)).toBeGreaterThan(0);
+  });
+
+  it('lays Findings out in a grid at 1280 px, with the toolbar and the step list in view after scrolling', async () => {
+    const { page } = app;
+    const columns = await page.getByTestId('findings-grid').evaluate((grid) => getComputedStyle(grid).gridTemplateColumns.split(' ').length);
+    expect(columns).toBeGreaterThanOrEqual(2);
+    const height = await page.evaluate(() => document.documentElement.scrollHeight);
+    expect(height).toBeLessThan(6000);
+    await page.evaluate(() => window.scrollTo(0, 1500));
+    await expect.poll(() => page.getByTestId('save-project').boundingBox().then((b) => b?.y ?? -1), POLL).toBeGreaterThanOrEqual(0);
+    await expect.poll(() => page.getByTestId('step-run').boundingBox().then((b) => (b ? b.y : -1)), POLL).toBeLessThan(800);
+    await expect.poll(() => page.getByTestId('save-project').isVisible(), POLL).toBe(true);
+    await page.evaluate(() => window.scrollTo(0, 0));
+    await app.screenshot('engineer-findings-1280');
+  });
+
+  it('keeps the results in the project: reopening shows them without a rerun', async () => {
+    const { page, harness } = app;
+    await harness.sendMenuCommand(page, 'save-project');
+    await harness.waitForDocumentState((s) => !s.dirty);
+    const saved = JSON.parse(await readFile(projectPath, 'utf8'));
+    expect(saved.results.fingerprint).toMatch(/^[0-9a-f]{64}$/);
+    expect(saved.results.evaluation.policies[0].policyValue).toBe(Number(firstValue));
+    await page.getByTestId('new-project').click();
+    harness.dialogs.nextOpenProject = projectPath;
+    await page.getByTestId('open-project').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
+    await goToStep(page, 'findings');
+    await expect.poll(() => page.getByTestId('kept-results').innerText(), POLL).toContain('no rerun is needed');
+    await expect.poll(() => page.getByTestId('policy-value-0').getAttribute('data-value'), POLL).toBe(firstValue);
+    // A changed setting marks them out of date instead of showing them as current.
+    await goToStep(page, 'estimator');
+    await page.getByLabel('Discount factor γ').fill('0.9');
+    await page.getByLabel('Discount factor γ').blur();
+    await goToStep(page, 'findings');
+    await expect.poll(() => page.getByTestId('kept-results').innerText(), POLL).toContain('other data or settings');
+    await expect.poll(() => page.getByTestId('step-findings').innerText(), POLL).toContain('earlier run');
+  });
+
+  it('has no dead end after locating a moved data file (Don’t save, then Locate)', async () => {
+    const { page, harness } = app;
+    const moved = join(harness.workFolder, 'levels-moved.csv');
+    await rename(join(harness.workFolder, 'levels.csv'), moved);
+    harness.dialogs.nextOpenProject = projectPath;
+    await page.getByTestId('open-project').click();
+    await page.getByRole('button', { name: 'Don’t save' }).click(); // the edit of the discount above
+    await page.getByTestId('relocate-data').waitFor({ timeout: 30_000 });
+    harness.dialogs.nextOpenData = moved;
+    await page.getByTestId('relocate-data').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
+    await expect.poll(() => page.getByTestId('next-candidates').isEnabled(), POLL).toBe(true);
+    await expect.poll(() => page.getByTestId('step-plant-log').innerText(), POLL).toContain('transitions');
+  });
+
+  it('reads a Windows-1252 file and a UTF-16 file, naming the encoding, with no Locate button', async () => {
+    const { page } = app;
+    for (const [file, name] of [['windows-1252.csv', 'Windows-1252'], ['utf-16le-bom.csv', 'UTF-16LE']]) {
+      await chooseData(app, join(ENCODED, file));
+      await expect.poll(() => page.getByTestId('text-encoding').innerText(), POLL).toContain(name);
+      await expect.poll(() => page.getByTestId('data-problems').count(), POLL).toBe(0);
+      await expect.poll(() => page.getByTestId('relocate-data').count(), POLL).toBe(0);
+      await expect.poll(() => page.getByTestId('role-table').innerText(), POLL).toContain('temp_°C');
+    }
+    await app.screenshot('engineer-encoding');
+  });
+
+  it('redoes with Ctrl+Y as well as Ctrl+Shift+Z', async () => {
+    const { page } = app;
+    await chooseData(app, TANK_CSV);
+    await mapTankColumns(page);
+    const name = page.getByLabel('Project name');
+    await name.fill('Redo check');
+    await name.blur();
+    await page.getByTestId('step-plant-log').focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => name.inputValue(), POLL).not.toBe('Redo check');
+    await page.keyboard.press('Control+y');
+    await expect.poll(() => name.inputValue(), POLL).toBe('Redo check');
+  });
+
+  it('screens of every step in both themes at 1280 × 800 and 1920 × 1080 (test-artifacts/screens/)', async () => {
+    const { page } = app;
+    await page.getByTestId('open-help').click();
+    await page.getByTestId('glossary').waitFor();
+    await app.screenshot('engineer-help');
+    await page.getByTestId('close-help').click();
+    for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
+      await page.setViewportSize(size);
+      for (const theme of ['light', 'dark']) {
+        if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
+        for (const step of ['plant-log', 'candidates', 'estimator', 'run', 'findings'] as const) {
+          await goToStep(page, step);
+          await expect.poll(() => page.getByTestId(`step-${step}`).getAttribute('aria-selected'), POLL).toBe('true');
+          await app.screenshot(`engineer-${size.width}-${theme}-${step}`);
+        }
+      }
+    }
+    await page.setViewportSize({ width: 1280, height: 800 });
+  });
+
+  it('logged no console errors', () => {
+    expect(app.consoleErrors).toEqual([]);
+  });
+});

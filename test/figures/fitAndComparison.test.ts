@@ -1,0 +1,67 @@
+import { describe, expect, it } from 'vitest';
+import { convergenceChart, convergenceSeries, convergenceSummary, isNetworkHistory, logTickLabel } from '../../src/figures/charts/convergence';
+import { plotPalette } from '../../src/figures/parts/plotTheme';
+import type { PlotLook } from '../../src/figures/parts/plotLook';
+import { LOGGED_BEHAVIOUR_LABEL, policyValueAxisTitle, policyValueChart, policyValueRows, policyValueSummary, valueSenseText } from '../../src/figures/charts/policyValueChart';
+import { geometricHistory, threeCandidateEvaluation } from './syntheticPlotData';
+
+const look: PlotLook = { palette: plotPalette('dark'), scale: 1, interactive: false };
+
+describe('convergence plot', () => {
+  it('linear fits show weight change and Bellman residual', () => {
+    const history = geometricHistory(5);
+    expect(isNetworkHistory(history)).toBe(false);
+    expect(convergenceSeries(history).map((s) => s.field)).toEqual(['weightChange', 'bellmanResidual']);
+  });
+
+  it('network fits show loss and held-out Bellman error', () => {
+    const history = geometricHistory(3).map((h) => ({ ...h, weightChange: null, loss: 0.1 / h.iteration }));
+    expect(isNetworkHistory(history)).toBe(true);
+    expect(convergenceSeries(history).map((s) => s.label)).toEqual(['training loss', 'one-step mismatch on held-out runs (mean square)']);
+  });
+
+  it('leaves gaps where a log axis cannot show the value', () => {
+    const history = geometricHistory(3);
+    history[1] = { ...history[1], weightChange: 0, bellmanResidual: null };
+    const config = convergenceChart({ history, title: 'fit', theme: 'dark' }, look);
+    const data = config.data.datasets.map((d) => d.data.map((p) => p.y));
+    expect(data[0][1]).toBeNull();
+    expect(data[1][1]).toBeNull();
+    expect(data[0][0]).toBe(0.5);
+  });
+
+  it('labels only the decades 10^k on the log axis, all as powers of ten', () => {
+    expect([1e-4, 2e-3, 0.05, 1, 20, 3, 0.4, 7e5].map(logTickLabel)).toEqual(['10⁻⁴', '', '', '10⁰', '', '', '', '']); // decades only, one notation
+  });
+
+  it('summary gives the last values, and says when there is no history', () => {
+    expect(convergenceSummary({ history: geometricHistory(2), title: '', theme: 'light' })).toMatch(/2 iterations.*relative weight change 0\.4; one-step mismatch \(mean square\) 0\.435/);
+    expect(convergenceSummary({ history: [], title: '', theme: 'light' })).toMatch(/no iterations/);
+  });
+});
+
+describe('policy value chart', () => {
+  const evaluation = threeCandidateEvaluation();
+
+  it('one bar per candidate and one for the logged behaviour, with status notes', () => {
+    expect(policyValueRows(evaluation).map((r) => r.label)).toEqual(['gentle gain', 'aggressive gain (iteration limit)', 'wide noise', LOGGED_BEHAVIOUR_LABEL]);
+  });
+
+  it('the value sense is in the axis title', () => {
+    const config = policyValueChart({ evaluation, theme: 'dark' }, look);
+    expect(config.plugins?.map((p) => p.id)).toContain('setpointAxisTitle-x');
+    expect(policyValueAxisTitle({ evaluation, theme: 'dark', unit: '€' })).toBe('J, expected cost (€, discounted): lower is better');
+    expect(valueSenseText('reward')).toBe('reward: higher is better');
+  });
+
+  it('the axis reaches past the largest whisker', () => {
+    const config = policyValueChart({ evaluation, theme: 'dark' }, look);
+    const x = config.options?.scales?.x as { suggestedMin: number; suggestedMax: number };
+    expect(x.suggestedMin).toBe(0);
+    expect(x.suggestedMax).toBeGreaterThan(47.9 + 2.6);
+  });
+
+  it('summary lists J ± s.e. for every row', () => {
+    expect(policyValueSummary({ evaluation, theme: 'light' })).toContain('gentle gain 41.2 ± 1.8; aggressive gain (iteration limit) 47.9 ± 2.6');
+  });
+});

@@ -1,0 +1,28 @@
+/** The sensitivity chart: one line per series, the behaviour dashed in the reference colour, the project's setting marked, gaps kept. */
+import { describe, expect, it } from 'vitest';
+import { screenLook } from '../../src/figures/parts/plotLook';
+import { sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
+import { discountSweep } from './syntheticSensitivity';
+
+describe('sensitivity chart', () => {
+  const props = { curve: discountSweep(), valueLabel: 'J (cost)', title: 'J against γ', theme: 'light' as const };
+  const look = screenLook('light');
+
+  it('draws each series over the settings, the behaviour as the dashed reference', () => {
+    const config = sensitivityChart(props, look);
+    const sets = config.data.datasets;
+    expect(sets.map((s) => s.label)).toEqual(['gentle gain', 'sharp gain', 'present controller (logged)']);
+    expect(sets[1].data[2]).toEqual({ x: 0.95, y: null }); // a failed fit is a gap, not a zero
+    expect(sets[2].borderColor).toBe(look.palette.reference);
+    expect(sets[2].borderDash).not.toEqual([]);
+    expect(sets[0].borderColor).toBe(look.palette.series[0]);
+    const radii = sets[0].pointRadius as number[];
+    expect(radii[2]).toBeGreaterThan(radii[0]); // the project's own setting (projectIndex 2)
+  });
+
+  it('summarises the range of each series and whether the ranking holds', () => {
+    const text = sensitivitySummary(props);
+    expect(text).toContain('sharp gain from 24 to 230');
+    expect(text).toContain('The ranking is the same at every setting.');
+  });
+});
