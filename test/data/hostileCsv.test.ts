@@ -113,8 +113,8 @@ describe('files that are not CSV logs are refused in words, never echoed', () =>
     const result = importDataset(bytes, 'environ', EXCLUDE, ROLES);
     expect(result.ok).toBe(false);
     if (result.ok) return;
-    expect(result.problems[0]).toMatchObject({ kind: 'not-text', where: 'environ' });
-    expect(result.problems[0].message).toContain('byte 14 is a NUL byte');
+    expect(result.problems[0]).toMatchObject({ kind: 'not-utf8', where: 'environ' });
+    expect(result.problems[0].message).toContain('zero byte at byte 14');
     expect(JSON.stringify(result.problems)).not.toMatch(/PATH|HOME|root/);
   });
 
