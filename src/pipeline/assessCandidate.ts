@@ -70,7 +70,7 @@ function replicator(plan: EvaluationPlan, model: CandidateModel): Replicator | n
   const r = linear.resampling;
   if (r.kind === 'linearised') return { kind: 'linearised', value: (c) => linearisedReplicate(r.replicates, c) };
   if (r.kind === 'none') return null;
-  const setup: LinearReplicateSetup = { ...linearSolveSettings(plan, model), sums: r.sums, startFeatures: linear.startFeatures, startsFollowEpisodes: plan.starts.followEpisodes };
+  const setup: LinearReplicateSetup = { ...linearSolveSettings(plan, model), sums: r.sums, startFeatures: linear.startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode };
   const scratch = new Float64Array(r.sums.stride);
   return { kind: 'exact', value: (c) => linearFqeReplicate(setup, c, scratch).policyValue };
 }

@@ -6,6 +6,7 @@
  * §14.1 on paired comparisons from common resamples). Values are in reward terms.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
+import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
 import { createPacer, throwIfCancelled } from '../core/fqe/cancellation';
 import { fitLinearQuadraticModel, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
@@ -75,7 +76,7 @@ function replicateCandidate(
     out.doublyRobust!.push(estimates && estimates.doublyRobust);
   }
   if (out.model) {
-    out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.model.policy, discount, starts.states, starts.followEpisodes ? c : undefined)) : null);
+    out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.model.policy, discount, starts.states, starts.followEpisodes ? startMultiplicities(c, starts.episode) : undefined)) : null);
   }
 }
 

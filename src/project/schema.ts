@@ -6,8 +6,9 @@
  * (see migrations.ts). Field names are ours; the README documents them.
  */
 import { z } from 'zod';
+import { strictObject } from './strictObject';
 import {
-  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES,
+  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
   MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_STATE_COLUMNS, POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE, RIDGE, SEED,
   SURFACE_RESOLUTION, TOLERANCE,
 } from '../core/limits';
@@ -21,7 +22,7 @@ const finite = z.number().refine(Number.isFinite, 'expected a finite number');
 /** A limit that may be absent on one side: null means "no limit". */
 const optionalLimit = finite.nullable();
 
-const signalSchema = z.object({
+const signalSchema = strictObject({
   column: columnName,
   /** Engineering unit shown on axes, e.g. "m", "°C", "%". */
   unit: z.string().default(''),
@@ -31,32 +32,32 @@ const signalSchema = z.object({
 const valueUnit = z.string().max(40).optional();
 
 const rewardSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
-  z.object({ kind: z.literal('expression'), expression: z.string().trim().min(1), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  strictObject({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  strictObject({ kind: z.literal('expression'), expression: z.string().trim().min(1).max(MAX_EXPRESSION_LENGTH, `expected at most ${MAX_EXPRESSION_LENGTH} characters`), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
 ]);
 
 const nextStateSchema = z.discriminatedUnion('kind', [
   /** s' is the state on the next row of the same episode. */
-  z.object({ kind: z.literal('nextRow') }),
+  strictObject({ kind: z.literal('nextRow') }),
   /** s' is given on the same row, one column per state, in the order of `states`. */
-  z.object({ kind: z.literal('columns'), columns: z.array(columnName).min(1) }),
+  strictObject({ kind: z.literal('columns'), columns: z.array(columnName).min(1) }),
 ]);
 
 const episodeSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('column'), column: columnName }),
+  strictObject({ kind: z.literal('column'), column: columnName }),
   /** A new episode starts where the timestamp jumps by more than maxGapSeconds (default: 3× the median period). */
-  z.object({ kind: z.literal('timeGap'), column: columnName, maxGapSeconds: finite.positive().optional() }),
-  z.object({ kind: z.literal('single') }),
+  strictObject({ kind: z.literal('timeGap'), column: columnName, maxGapSeconds: finite.positive().optional() }),
+  strictObject({ kind: z.literal('single') }),
 ]);
 
-export const csvSettingsSchema = z.object({
+export const csvSettingsSchema = strictObject({
   delimiter: z.enum(['auto', ',', ';', '\t']).default('auto'),
   decimalMark: z.enum(['auto', '.', ',']).default('auto'),
   /** What to do with a row that cannot be used: stop the import, or exclude it (counted and listed). */
   badRows: z.enum(['stop', 'exclude']).default('stop'),
 });
 
-export const dataSourceSchema = z.object({
+export const dataSourceSchema = strictObject({
   /** Path of the CSV relative to the project file's folder, with forward slashes. */
   path: z.string().trim().min(1, 'expected the path of the data file'),
   /** SHA-256 of the file's bytes when the project was last saved, to detect a changed file. */
@@ -66,7 +67,7 @@ export const dataSourceSchema = z.object({
   csv: csvSettingsSchema.default({ delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }),
 });
 
-export const columnRolesSchema = z.object({
+export const columnRolesSchema = strictObject({
   states: z.array(signalSchema).min(1, 'expected at least one state column').max(MAX_STATE_COLUMNS, `at most ${MAX_STATE_COLUMNS} state columns are supported`),
   actions: z.array(signalSchema).min(1, 'expected at least one action column').max(MAX_ACTION_COLUMNS, `at most ${MAX_ACTION_COLUMNS} action columns are supported`),
   reward: rewardSchema,
@@ -78,14 +79,14 @@ export const columnRolesSchema = z.object({
   timestamp: columnName.optional(),
 });
 
-export const actuatorBoundsSchema = z.object({
+export const actuatorBoundsSchema = strictObject({
   lo: z.array(optionalLimit),
   hi: z.array(optionalLimit),
   /** clip: actions beyond a limit sit at the limit; truncate: the distribution is cut and renormalised. */
   mode: z.enum(['clip', 'truncate']),
 });
 
-export const candidateSchema = z.object({
+export const candidateSchema = strictObject({
   name: z.string().trim().min(1, 'expected a name'),
   description: z.string().default(''),
   /** μ(s) = offset + gain·s, in the units of the action and state columns. */
@@ -97,8 +98,8 @@ export const candidateSchema = z.object({
 });
 
 export const featureSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('polynomial'), degree: z.number().int().min(POLYNOMIAL_DEGREE_RANGE.min).max(POLYNOMIAL_DEGREE_RANGE.max) }),
-  z.object({
+  strictObject({ kind: z.literal('polynomial'), degree: z.number().int().min(POLYNOMIAL_DEGREE_RANGE.min).max(POLYNOMIAL_DEGREE_RANGE.max) }),
+  strictObject({
     kind: z.literal('radialBasis'),
     centresPerInput: z.number().int().min(RADIAL_CENTRES_RANGE.min).max(RADIAL_CENTRES_RANGE.max),
     /** Width of each basis function as a multiple of the centre spacing. */
@@ -107,7 +108,7 @@ export const featureSchema = z.discriminatedUnion('kind', [
 ]);
 
 export const approximatorSchema = z.discriminatedUnion('kind', [
-  z.object({
+  strictObject({
     kind: z.literal('linear'),
     features: featureSchema,
     /** Ridge penalty per sample on the averaged normal equations. */
@@ -115,7 +116,7 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
     tolerance: finite.min(TOLERANCE.min, `expected a tolerance of at least ${TOLERANCE.min} (round-off would stop a smaller one from ever being met)`).max(TOLERANCE.max).default(TOLERANCE.default),
     maxIterations: z.number().int().min(MAX_ITERATIONS.min).max(MAX_ITERATIONS.max).default(MAX_ITERATIONS.default),
   }),
-  z.object({
+  strictObject({
     kind: z.literal('network'),
     /** Units per hidden layer. */
     hiddenLayers: z.array(z.number().int().min(1).max(1024)).min(1).max(6).default([64, 64]),
@@ -141,18 +142,18 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
 ]);
 
 export const startStatesSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('episodeStarts') }),
-  z.object({ kind: z.literal('given'), states: z.array(z.array(finite)).min(1) }),
+  strictObject({ kind: z.literal('episodeStarts') }),
+  strictObject({ kind: z.literal('given'), states: z.array(z.array(finite)).min(1) }),
 ]);
 
-export const surfaceSchema = z.object({
+export const surfaceSchema = strictObject({
   xState: columnName,
   yState: columnName,
   resolution: z.number().int().min(SURFACE_RESOLUTION.min).max(SURFACE_RESOLUTION.max).default(SURFACE_RESOLUTION.default),
 });
 
 /** Bootstrap settings of the assessment (src/pipeline/assessSettings.ts reads them; CLI flags override). */
-export const bootstrapSchema = z.object({
+export const bootstrapSchema = strictObject({
   /** Episode resamples; 1000 keeps the Monte Carlo error of a 90 % percentile end small (Efron & Tibshirani 1993, §19.3). */
   resamples: z.number().int().min(BOOTSTRAP_RESAMPLES.min).max(BOOTSTRAP_RESAMPLES.max).default(BOOTSTRAP_RESAMPLES.default),
   /** Confidence level of the intervals. */
@@ -165,7 +166,7 @@ export const bootstrapSchema = z.object({
  * results whose fingerprint differs from the project's own are shown as out of date, never as
  * current. evaluation and assessment are the CLI's published JSON forms (pipeline/*Json.ts).
  */
-export const resultsSchema = z.object({
+export const resultsSchema = strictObject({
   format: z.literal(1),
   fingerprint: z.string().regex(/^[0-9a-f]{64}$/, 'expected 64 hexadecimal digits'),
   /** ISO 8601 time the results were kept. */
@@ -174,7 +175,7 @@ export const resultsSchema = z.object({
   assessment: z.record(z.string(), z.unknown()).optional(),
 });
 
-export const projectSchema = z.object({
+export const projectSchema = strictObject({
   format: z.literal(PROJECT_FORMAT),
   version: z.literal(PROJECT_VERSION),
   name: z.string().trim().min(1, 'expected a project name'),
@@ -191,6 +192,13 @@ export const projectSchema = z.object({
   surface: surfaceSchema.optional(),
   bootstrap: bootstrapSchema.optional(),
   results: resultsSchema.optional(),
+  /**
+   * Free-form remarks of the user's own (any JSON: text, or an object such as
+   * { "reviewedBy": "…", "comment": "…" }); never read by the program, kept as written on every save.
+   */
+  notes: z.unknown().optional(),
+  /** Fields an older format version had and this one has no place for (migrations.ts); kept, never read. */
+  carriedOver: z.record(z.string(), z.unknown()).optional(),
 });
 
 export type ProjectDocument = z.infer<typeof projectSchema>;

@@ -52,7 +52,7 @@ export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, h
     : !atFixedPoint ? { kind: 'none', reason: 'the fit did not converge, so there is no fixed point to take resamples around' }
     : { kind: 'linearised', replicates: linearisedReplicates({
       data, index: plan.episodes, features, quadrature, statistics, weights, ridge: settings.ridge, discount: plan.discount,
-      startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, cancel: hooks.cancel,
+      startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode, cancel: hooks.cancel,
     }) };
   return { ...planned, quadrature, fit, dispose: () => undefined, linear: { features, resampling, statistics, startFeatures, weights, atFixedPoint } };
 }

@@ -63,7 +63,10 @@ function startStatesFor(project: ProjectDocument, data: TransitionSet): Result<S
   const ds = data.stateDim;
   if (project.startStates.kind === 'episodeStarts') {
     if (data.episodeCount < 1) return failure({ where: 'startStates', field: ['startStates'], message: 'the data has no episodes, so there are no start states' });
-    return success({ states: data.startStates, count: data.startStates.length / ds, followEpisodes: true });
+    if (data.startStates.length === 0) {
+      return failure({ where: 'startStates', field: ['startStates'], message: 'no episode of the data keeps its first row (each was excluded), so there are no start states; fix those rows or give start states in the project' });
+    }
+    return success({ states: data.startStates, count: data.startStates.length / ds, followEpisodes: true, episode: data.startEpisode });
   }
   const states = Float64Array.from(project.startStates.states.flat());
   return success({ states, count: states.length / ds, followEpisodes: false });
