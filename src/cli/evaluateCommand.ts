@@ -11,12 +11,14 @@ import { formatImport } from './formatImport';
 import { formatCandidates } from './formatCandidates';
 import { createTerminalProgress } from './terminalProgress';
 import { exitStatusOf } from './exitStatus';
+import { processTerminal, type Terminal } from './terminal';
 
-export async function runEvaluateCommand(projectPath: string, options: { json: boolean } & AssessmentOverrides): Promise<number> {
+export async function runEvaluateCommand(projectPath: string, options: { json: boolean; terminal?: Terminal } & AssessmentOverrides): Promise<number> {
+  const terminal = options.terminal ?? processTerminal;
   const progress = createTerminalProgress();
   const result = await evaluateProjectFile(projectPath, options, undefined, progress).finally(() => progress.done());
   if (!result.ok) {
-    process.stderr.write(`${result.failure.message}\n`);
+    terminal.err(`${result.failure.message}\n`);
     return result.failure.exitCode;
   }
   const { project, imported, evaluation, assessment } = result.run;
@@ -25,13 +27,13 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
       ...evaluationToJson(evaluation), import: importToJson(imported),
       assessment: assessment.ok ? assessmentToJson(assessment.value) : null, assessmentProblems: assessment.ok ? [] : assessment.problems,
     };
-    process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+    terminal.out(`${JSON.stringify(json, null, 2)}\n`);
   } else {
-    process.stdout.write(formatImport(imported, project.data.path));
-    process.stdout.write(formatCandidates(project));
-    process.stdout.write(formatEvaluation(evaluation, basename(projectPath)));
-    process.stdout.write(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
-    process.stdout.write(formatCautions(evaluation));
+    terminal.out(formatImport(imported, project.data.path));
+    terminal.out(formatCandidates(project));
+    terminal.out(formatEvaluation(evaluation, basename(projectPath)));
+    terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
+    terminal.out(formatCautions(evaluation));
   }
   return exitStatusOf(evaluation);
 }

@@ -23,7 +23,7 @@
  *
  * Shapes: state read from state[stateOffset .. stateOffset+ds); points: count×m row-major.
  */
-import { hasActionLimits, limitsAtState, policyMean, type GaussianPolicy } from './policy';
+import { hasActionLimits, limitsAtState, policyMean, PolicyError, type GaussianPolicy } from './policy';
 import { MAX_GAUSS_HERMITE_NODES, standardNormalRule } from './quadrature/gaussHermite';
 import { createBoundedNormalQuadrature, MAX_BOUNDED_NORMAL_NODES, type BoundedNormalQuadrature } from './quadrature/boundedNormal';
 
@@ -151,7 +151,8 @@ function meanAt(policy: GaussianPolicy, state: ArrayLike<number>, stateOffset: n
   policyMean(policy, state, mean, stateOffset, 0);
   for (let i = 0; i < policy.actionDim; i++) {
     if (!Number.isFinite(mean[i])) {
-      throw new RangeError(`action quadrature: policy mean of action ${i + 1} is ${mean[i]} at the state starting at index ${stateOffset}`);
+      // A candidate whose offset or gains overflow at a logged state: the user's input, so a PolicyError (exit 1), not a bug.
+      throw new PolicyError(`the candidate's mean action ${i + 1} is ${mean[i]} at a state of the data (its offset or gains are too large for the states; check their units)`);
     }
   }
 }

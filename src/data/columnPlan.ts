@@ -7,7 +7,7 @@
 import type { ColumnRoles } from '../project/schema';
 import { importProblem, type ImportProblem } from './importProblem';
 import type { ColumnKind, ColumnRequest } from './columnReader';
-import { suggestionFor } from './closestName';
+import { suggestionFor } from '../core/closestName';
 import { ExpressionError } from './expressionError';
 import { expressionColumns, parseExpression, type ExpressionNode } from './expressionSyntax';
 

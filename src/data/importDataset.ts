@@ -7,12 +7,14 @@
  * Stages: decode → dialect → header and column plan → one streaming pass over the rows →
  * timestamps and rewards → bad rows (stop, or exclude and list) → episodes → transitions → summary.
  */
-import Papa from 'papaparse';
 import type { ColumnRoles, CsvSettings } from '../project/schema';
 import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
 import type { TransitionSet } from '../core/transitions';
-import { sourceText, type TextEncodingName } from './sourceText';
+import type { TextEncodingName } from './sourceText';
+import { sampleText, sourceBytes } from './sourceBytes';
+import { isBlank } from './cellText';
+import { readHeader } from './csvHeader';
 import { resolveDialect, type Dialect } from './csvDialect';
 import { planColumns, timestampColumnOf, type ColumnPlan } from './columnPlan';
 import { readColumns, type TableColumns } from './columnReader';
@@ -44,19 +46,21 @@ export interface ImportedDataset {
 const lineOf = (record: number): number => record + 2;
 
 export function importDataset(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): Result<ImportedDataset> {
-  const decoded = sourceText(source);
-  if (!decoded.ok) return failure(importProblem('not-utf8', fileName, decoded.reason));
-  const text = decoded.text, encoding = { name: decoded.encoding, how: decoded.how };
-  if (text.trim() === '') return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
-  const dialect = resolveDialect(text, csv.delimiter, csv.decimalMark);
-  const header = headerOf(text, dialect);
-  if (header.every((name) => name === '')) {
+  const decoded = sourceBytes(source);
+  if (!decoded.ok) return failure(importProblem(decoded.kind, fileName, decoded.reason));
+  const { bytes, start } = decoded, encoding = { name: decoded.encoding, how: decoded.how };
+  if (isBlank(bytes, start, bytes.length)) return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
+  const dialect = resolveDialect(sampleText(bytes, start), csv.delimiter, csv.decimalMark);
+  const header = readHeader(bytes, start, dialect.delimiter);
+  if (!header.ok) return failure(importProblem('header-too-long', `${fileName}, line 1`, header.reason));
+  if (header.names.every((name) => name === '')) {
     return failure(importProblem('blank-header', `${fileName}, line 1`, 'the first line is blank; expected the header: column names separated by the delimiter'));
   }
-  const { plan, problems: namingProblems } = planColumns(header, columns, fileName, dialect.decimalMark);
+  const { plan, problems: namingProblems } = planColumns(header.names, columns, fileName, dialect.decimalMark);
   if (!plan) return failure(...namingProblems);
   const problems = new RowProblems();
-  const table = readColumns(text, dialect.delimiter, dialect.decimalMark, header.length, plan.requests, problems);
+  const data = { bytes, start: header.dataStart, firstLine: header.firstDataLine };
+  const table = readColumns(data, dialect.delimiter, dialect.decimalMark, header.names.length, plan.requests, problems);
   if (table.recordCount === 0) {
     return failure(importProblem('header-only', `${fileName}, line 2`, 'the file has a header line but no data rows below it'));
   }
@@ -66,11 +70,6 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf, episodeCodes);
   if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf));
   return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding });
-}
-
-function headerOf(text: string, dialect: Dialect): string[] {
-  const first = Papa.parse<string[]>(text, { delimiter: dialect.delimiter, preview: 1 }).data[0] ?? [];
-  return first.map((name) => name.trim());
 }
 
 function settleTimestampColumn(columns: ColumnRoles, table: TableColumns, problems: RowProblems): (SettledTimestamps & { column: string }) | undefined {
@@ -101,13 +100,14 @@ function assemble(s: Stages): Result<ImportedDataset> {
     kept, terminal, lineOf,
     labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
     timestampsSeconds: s.timestamps?.seconds,
+    isBlankLine: (r: number) => s.problems.firstProblem(r)?.problem.kind === 'blank-line',
   };
   const derived = derivedStates(s, episodeInputs, assignEpisodes(columns.episode, episodeInputs));
   const { episodes, derivedValues } = derived;
   const usedRows = derived.kept;
   const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
   const { transitions, report } = buildTransitions({
-    kept: usedRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, rewards: s.rewards, terminal, lineOf,
+    kept: usedRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards, terminal, lineOf,
     states: columns.states.map((c) => number(c.column)),
     actions: columns.actions.map((c) => number(c.column)),
     nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
@@ -119,7 +119,7 @@ function assemble(s: Stages): Result<ImportedDataset> {
   }
   const summary = summarise(s, kept, transitions, derivedValues, usedRows);
   const excluded = excludedRows(s.problems, lineOf);
-  const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName)];
+  const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
   const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding), ...episodes.report, ...derived.report, ...report];
   return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount }, warnings);
 }

@@ -7,8 +7,9 @@
  */
 import { z } from 'zod';
 import { MAX_RETUNE_AXES, MAX_RETUNE_AXIS_POINTS, MIN_RETUNE_AXIS_POINTS } from '../core/retune/retuneAxes';
+import { strictObject } from './strictObject';
 import {
-  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES,
+  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
   MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_STATE_COLUMNS, POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE, RIDGE, SEED,
   SURFACE_RESOLUTION, TOLERANCE,
 } from '../core/limits';
@@ -22,7 +23,7 @@ const finite = z.number().refine(Number.isFinite, 'expected a finite number');
 /** A limit that may be absent on one side: null means "no limit". */
 const optionalLimit = finite.nullable();
 
-const signalSchema = z.object({
+const signalSchema = strictObject({
   column: columnName,
   /** Engineering unit shown on axes, e.g. "m", "°C", "%". */
   unit: z.string().default(''),
@@ -32,32 +33,32 @@ const signalSchema = z.object({
 const valueUnit = z.string().max(40).optional();
 
 const rewardSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
-  z.object({ kind: z.literal('expression'), expression: z.string().trim().min(1), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  strictObject({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  strictObject({ kind: z.literal('expression'), expression: z.string().trim().min(1).max(MAX_EXPRESSION_LENGTH, `expected at most ${MAX_EXPRESSION_LENGTH} characters`), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
 ]);
 
 const nextStateSchema = z.discriminatedUnion('kind', [
   /** s' is the state on the next row of the same episode. */
-  z.object({ kind: z.literal('nextRow') }),
+  strictObject({ kind: z.literal('nextRow') }),
   /** s' is given on the same row, one column per state, in the order of `states`. */
-  z.object({ kind: z.literal('columns'), columns: z.array(columnName).min(1) }),
+  strictObject({ kind: z.literal('columns'), columns: z.array(columnName).min(1) }),
 ]);
 
 const episodeSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('column'), column: columnName }),
+  strictObject({ kind: z.literal('column'), column: columnName }),
   /** A new episode starts where the timestamp jumps by more than maxGapSeconds (default: 3× the median period). */
-  z.object({ kind: z.literal('timeGap'), column: columnName, maxGapSeconds: finite.positive().optional() }),
-  z.object({ kind: z.literal('single') }),
+  strictObject({ kind: z.literal('timeGap'), column: columnName, maxGapSeconds: finite.positive().optional() }),
+  strictObject({ kind: z.literal('single') }),
 ]);
 
-export const csvSettingsSchema = z.object({
+export const csvSettingsSchema = strictObject({
   delimiter: z.enum(['auto', ',', ';', '\t']).default('auto'),
   decimalMark: z.enum(['auto', '.', ',']).default('auto'),
   /** What to do with a row that cannot be used: stop the import, or exclude it (counted and listed). */
   badRows: z.enum(['stop', 'exclude']).default('stop'),
 });
 
-export const dataSourceSchema = z.object({
+export const dataSourceSchema = strictObject({
   /** Path of the CSV relative to the project file's folder, with forward slashes. */
   path: z.string().trim().min(1, 'expected the path of the data file'),
   /** SHA-256 of the file's bytes when the project was last saved, to detect a changed file. */
@@ -77,7 +78,7 @@ const derivedName = columnName;
 const derivedUnit = z.string().default('');
 export const derivedStateSchema = z.discriminatedUnion('kind', [
   /** I_t = initial + Σ_{k<t} (setpoint − measurement)_k·Δt_k from the episode start, in measurement unit·s. */
-  z.object({
+  strictObject({
     kind: z.literal('errorIntegral'), name: derivedName, unit: derivedUnit,
     measurement: columnName,
     /** A constant setpoint, or the name of a setpoint column. */
@@ -87,19 +88,19 @@ export const derivedStateSchema = z.discriminatedUnion('kind', [
     periodSeconds: finite.positive().optional(),
   }),
   /** First-order lag f_t = f_{t−1} + (1 − e^{−Δt/τ})(x_t − f_{t−1}); starts at `initial` or the first sample. */
-  z.object({
+  strictObject({
     kind: z.literal('filtered'), name: derivedName, unit: derivedUnit, source: columnName,
     timeConstantSeconds: finite.positive('expected a positive time constant in seconds'),
     initial: finite.optional(),
     periodSeconds: finite.positive().optional(),
   }),
   /** x_{t−1}; on an episode's first row `initial`, or (without it) that row only supplies the value for the next. */
-  z.object({ kind: z.literal('previous'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
+  strictObject({ kind: z.literal('previous'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
   /** x_t − x_{t−1}; on an episode's first row `initial`, or (without it) that row only supplies x_{t−1}. */
-  z.object({ kind: z.literal('difference'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
+  strictObject({ kind: z.literal('difference'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
 ]);
 
-export const columnRolesSchema = z.object({
+export const columnRolesSchema = strictObject({
   states: z.array(signalSchema).min(1, 'expected at least one state column').max(MAX_STATE_COLUMNS, `at most ${MAX_STATE_COLUMNS} state columns are supported`),
   actions: z.array(signalSchema).min(1, 'expected at least one action column').max(MAX_ACTION_COLUMNS, `at most ${MAX_ACTION_COLUMNS} action columns are supported`),
   reward: rewardSchema,
@@ -113,7 +114,7 @@ export const columnRolesSchema = z.object({
   derived: z.array(derivedStateSchema).max(10).optional(),
 });
 
-export const actuatorBoundsSchema = z.object({
+export const actuatorBoundsSchema = strictObject({
   lo: z.array(optionalLimit),
   hi: z.array(optionalLimit),
   /** clip: actions beyond a limit sit at the limit; truncate: the distribution is cut and renormalised. */
@@ -137,13 +138,13 @@ const feedbackFields = {
   /** reverse: output rises as the measurement falls below the setpoint (heating); direct: the opposite (cooling). */
   action: z.enum(['reverse', 'direct']),
 };
-export const feedbackSchema = z.object(feedbackFields);
-export const piLoopSchema = z.object({
+export const feedbackSchema = strictObject(feedbackFields);
+export const piLoopSchema = strictObject({
   /** Output at zero error and zero integral, in the action's unit. */
   bias: finite,
   ...feedbackFields,
 });
-export const scheduleLoopSchema = z.object({
+export const scheduleLoopSchema = strictObject({
   /** The state the schedule reads (e.g. outdoor temperature). */
   input: columnName,
   /** Strictly increasing values of the input; the output is held beyond the first and last. */
@@ -157,13 +158,13 @@ export const scheduleLoopSchema = z.object({
 /** How the candidate's mean action depends on the states: one form per candidate, one loop per action. */
 export const candidateFormSchema = z.discriminatedUnion('kind', [
   /** μ(s) = offset + gain·s, in the units of the action and state columns. */
-  z.object({ kind: z.literal('affine'), offset: z.array(finite).min(1), gain: z.array(z.array(finite)).min(1) }),
-  z.object({ kind: z.literal('pi'), loops: z.array(piLoopSchema).min(1).max(3) }),
-  z.object({ kind: z.literal('schedule'), loops: z.array(scheduleLoopSchema).min(1).max(3) }),
+  strictObject({ kind: z.literal('affine'), offset: z.array(finite).min(1), gain: z.array(z.array(finite)).min(1) }),
+  strictObject({ kind: z.literal('pi'), loops: z.array(piLoopSchema).min(1).max(3) }),
+  strictObject({ kind: z.literal('schedule'), loops: z.array(scheduleLoopSchema).min(1).max(3) }),
 ]);
 
 /** |a − a_prev| ≤ maxStep per sample, per action (null: no rate limit on that action). */
-export const rateLimitSchema = z.object({
+export const rateLimitSchema = strictObject({
   maxStep: z.array(finite.positive('expected a positive step limit').nullable()).min(1),
   /** The derived "previous" state of each action column (null where maxStep is null). */
   previousAction: z.array(columnName.nullable()).min(1),
@@ -176,7 +177,7 @@ const ditherSchema = z.array(finite.positive('expected a positive standard devia
  * `gain` (the affine form); `std` is the older name of `dither`. Both are read and turned into the
  * current shape, so older project files load unchanged.
  */
-export const candidateSchema = z.object({
+export const candidateSchema = strictObject({
   name: z.string().trim().min(1, 'expected a name'),
   description: z.string().default(''),
   form: candidateFormSchema.optional(),
@@ -208,8 +209,8 @@ export const candidateSchema = z.object({
 }));
 
 export const featureSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('polynomial'), degree: z.number().int().min(POLYNOMIAL_DEGREE_RANGE.min).max(POLYNOMIAL_DEGREE_RANGE.max) }),
-  z.object({
+  strictObject({ kind: z.literal('polynomial'), degree: z.number().int().min(POLYNOMIAL_DEGREE_RANGE.min).max(POLYNOMIAL_DEGREE_RANGE.max) }),
+  strictObject({
     kind: z.literal('radialBasis'),
     centresPerInput: z.number().int().min(RADIAL_CENTRES_RANGE.min).max(RADIAL_CENTRES_RANGE.max),
     /** Width of each basis function as a multiple of the centre spacing. */
@@ -218,7 +219,7 @@ export const featureSchema = z.discriminatedUnion('kind', [
 ]);
 
 export const approximatorSchema = z.discriminatedUnion('kind', [
-  z.object({
+  strictObject({
     kind: z.literal('linear'),
     features: featureSchema,
     /** Ridge penalty per sample on the averaged normal equations. */
@@ -226,7 +227,7 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
     tolerance: finite.min(TOLERANCE.min, `expected a tolerance of at least ${TOLERANCE.min} (round-off would stop a smaller one from ever being met)`).max(TOLERANCE.max).default(TOLERANCE.default),
     maxIterations: z.number().int().min(MAX_ITERATIONS.min).max(MAX_ITERATIONS.max).default(MAX_ITERATIONS.default),
   }),
-  z.object({
+  strictObject({
     kind: z.literal('network'),
     /** Units per hidden layer. */
     hiddenLayers: z.array(z.number().int().min(1).max(1024)).min(1).max(6).default([64, 64]),
@@ -252,18 +253,18 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
 ]);
 
 export const startStatesSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('episodeStarts') }),
-  z.object({ kind: z.literal('given'), states: z.array(z.array(finite)).min(1) }),
+  strictObject({ kind: z.literal('episodeStarts') }),
+  strictObject({ kind: z.literal('given'), states: z.array(z.array(finite)).min(1) }),
 ]);
 
-export const surfaceSchema = z.object({
+export const surfaceSchema = strictObject({
   xState: columnName,
   yState: columnName,
   resolution: z.number().int().min(SURFACE_RESOLUTION.min).max(SURFACE_RESOLUTION.max).default(SURFACE_RESOLUTION.default),
 });
 
 /** Bootstrap settings of the assessment (src/pipeline/assessSettings.ts reads them; CLI flags override). */
-export const bootstrapSchema = z.object({
+export const bootstrapSchema = strictObject({
   /** Episode resamples; 1000 keeps the Monte Carlo error of a 90 % percentile end small (Efron & Tibshirani 1993, §19.3). */
   resamples: z.number().int().min(BOOTSTRAP_RESAMPLES.min).max(BOOTSTRAP_RESAMPLES.max).default(BOOTSTRAP_RESAMPLES.default),
   /** Confidence level of the intervals. */
@@ -276,7 +277,7 @@ export const bootstrapSchema = z.object({
  * results whose fingerprint differs from the project's own are shown as out of date, never as
  * current. evaluation and assessment are the CLI's published JSON forms (pipeline/*Json.ts).
  */
-export const resultsSchema = z.object({
+export const resultsSchema = strictObject({
   format: z.literal(1),
   fingerprint: z.string().regex(/^[0-9a-f]{64}$/, 'expected 64 hexadecimal digits'),
   /** ISO 8601 time the results were kept. */
@@ -286,7 +287,7 @@ export const resultsSchema = z.object({
 });
 
 /** One swept number of a candidate: its dotted path and the values (src/core/retune/retuneAxes.ts). */
-export const retuneAxisSchema = z.object({
+export const retuneAxisSchema = strictObject({
   /** e.g. "form.loops.0.proportionalGain", "form.loops.0.integralTimeSeconds", "dither.0". */
   parameter: z.string().trim().min(1, 'expected the path of a number of the candidate'),
   from: finite,
@@ -296,13 +297,13 @@ export const retuneAxisSchema = z.object({
 });
 
 /** A retune map: one candidate evaluated over a grid of one or two of its parameters. */
-export const retuneMapSchema = z.object({
+export const retuneMapSchema = strictObject({
   /** The name of the candidate the map starts from. */
   candidate: z.string().trim().min(1, 'expected the name of a candidate'),
   axes: z.array(retuneAxisSchema).min(1).max(MAX_RETUNE_AXES),
 });
 
-export const projectSchema = z.object({
+export const projectSchema = strictObject({
   format: z.literal(PROJECT_FORMAT),
   version: z.literal(PROJECT_VERSION),
   name: z.string().trim().min(1, 'expected a project name'),
@@ -320,6 +321,13 @@ export const projectSchema = z.object({
   bootstrap: bootstrapSchema.optional(),
   retuneMaps: z.array(retuneMapSchema).max(10).optional(),
   results: resultsSchema.optional(),
+  /**
+   * Free-form remarks of the user's own (any JSON: text, or an object such as
+   * { "reviewedBy": "…", "comment": "…" }); never read by the program, kept as written on every save.
+   */
+  notes: z.unknown().optional(),
+  /** Fields an older format version had and this one has no place for (migrations.ts); kept, never read. */
+  carriedOver: z.record(z.string(), z.unknown()).optional(),
 });
 
 export type ProjectDocument = z.infer<typeof projectSchema>;

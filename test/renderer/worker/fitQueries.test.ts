@@ -8,6 +8,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
+import { PRESENT_CONTROLLER_NAME } from '../../../src/pipeline/plan/presentController';
 import { describe, expect, it } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
 import { evaluateProject } from '../../../src/pipeline/evaluateProject';
@@ -43,8 +44,9 @@ describe('evaluation worker handlers', async () => {
     expect(result.value.behaviour.value).toBe(direct.value.behaviour.value);
   });
 
-  it('reports each candidate as it starts, then its iterations no closer than the interval', () => {
-    expect(reports.filter((r) => r.iteration === null && r.dataPass === null).map((r) => r.candidate)).toEqual(project.candidates.map((c) => c.name));
+  it('reports each candidate as it starts, then the present controller’s model (the baseline), then iterations no closer than the interval', () => {
+    expect(reports.filter((r) => r.iteration === null && r.dataPass === null).map((r) => r.candidate))
+      .toEqual([...project.candidates.map((c) => c.name), PRESENT_CONTROLLER_NAME]);
     expect(reports.every((r) => r.maxIterations === 5000 && r.tolerance === 1e-10)).toBe(true);
   });
 
