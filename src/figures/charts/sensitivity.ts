@@ -27,7 +27,8 @@ type XY = { x: number; y: number | null };
 
 /** The behaviour's series is named by the pipeline; it is drawn as the reference. */
 export function isBehaviourSeries(name: string): boolean {
-  return name === PRESENT_CONTROLLER || name.toLowerCase().startsWith('logged');
+  const n = name.toLowerCase();
+  return name === PRESENT_CONTROLLER || n.startsWith('logged') || n.startsWith('present controller');
 }
 
 export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
