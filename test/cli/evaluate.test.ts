@@ -42,7 +42,8 @@ describe('evaluate command', () => {
   it('prints a readable table with the cautions by default', async () => {
     const { code, stdout } = await run(['evaluate', join('sample-projects', samples[0])]);
     expect(code).toBe(0);
-    expect(stdout).toMatch(/logged behaviour \(today\)/);
+    expect(stdout).toMatch(/present controller \(model fitted to the log\) \[baseline\]/);
+    expect(stdout).toMatch(/logged return \(check; cut short at time limits\)/);
     expect(stdout).toMatch(/Cautions:/);
     expect(stdout).toMatch(/independent safety functions/);
   });
