@@ -13,12 +13,15 @@ import type { Evaluation } from '../pipeline/estimates';
 import { evaluationOf } from '../pipeline/evaluateProject';
 import { openProject, type OpenedProject } from '../pipeline/openProject';
 import { CANCELLED_PROBLEM, startRun } from '../pipeline/projectRun';
+import { retuneMapsOfRun, type RetuneMapResult } from '../pipeline/retuneMaps';
 import { HostFileError, MAX_DATA_BYTES, MAX_PROJECT_BYTES, readRegularFile } from '../host/regularFile';
 import type { TerminalProgress } from './terminalProgress';
 
 export interface ProjectFileRun extends OpenedProject {
   evaluation: Evaluation;
   assessment: Result<Assessment>;
+  /** The project's retune maps (none when it has none). */
+  retuneMaps: Result<RetuneMapResult[]>;
 }
 
 /** A failure to report on stderr, with the exit status (1 bad input, 2 bad usage). */
@@ -71,7 +74,9 @@ export async function evaluateProjectFile(
     const evaluation = evaluationOf(run, [...warnings, ...started.warnings].map((w) => `${w.where}: ${w.message}`), now);
     const assessment = await assessRun(run, { settings: settings.value, wasmPath, cancel, onProgress: progress?.assessment });
     if (!assessment.ok && isCancelled(assessment.problems)) return { ok: false, failure: failureOf(assessment.problems) };
-    return { ok: true, run: { ...opened.value, evaluation, assessment } };
+    const retuneMaps = retuneMapsOfRun(run, { cancel });
+    if (!retuneMaps.ok && isCancelled(retuneMaps.problems)) return { ok: false, failure: failureOf(retuneMaps.problems) };
+    return { ok: true, run: { ...opened.value, evaluation, assessment, retuneMaps } };
   } finally {
     run.dispose();
   }

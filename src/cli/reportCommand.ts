@@ -31,8 +31,8 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   const progress = createTerminalProgress();
   const result = await evaluateProjectFile(projectPath, { sensitivity: true, ...options }, now, progress, (files) => destinationRefusal(out, files)).finally(() => progress.done());
   if (!result.ok) return fail(result.failure.message, result.failure.exitCode);
-  const { project, imported, evaluation, assessment } = result.run;
-  const input = reportInputFrom({ project, projectFile: basename(projectPath), evaluation, assessment, data: imported, generatedAt: now() });
+  const { project, imported, evaluation, assessment, retuneMaps } = result.run;
+  const input = reportInputFrom({ project, projectFile: basename(projectPath), evaluation, assessment, retuneMaps, data: imported, generatedAt: now() });
   const html = renderReport(input);
   try {
     await writeFile(out, html, 'utf8');

@@ -143,7 +143,18 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const { kept, removed } = withoutFirstRows(inputs.kept, episodes.episodeOf);
   const names = [...firstRowUndefined].join(', ');
   report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each episode only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
-  return { episodes: assignEpisodes(s.columns.episode, { ...inputs, kept }), derivedValues: values, kept, report };
+  // The first row where every derived state is defined is the run's start: a run whose own first row
+  // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
+  const again = assignEpisodes(s.columns.episode, { ...inputs, kept });
+  const hasStart = new Uint8Array(again.episodeCount);
+  for (let r = 0, last = -1; r < kept.length; r++) {
+    if (!kept[r] || again.episodeOf[r] === last) continue;
+    last = again.episodeOf[r];
+    hasStart[last] = episodes.hasStart[episodes.episodeOf[r]];
+  }
+  const lost = (line: string) => /first row to exclusion/.test(line);
+  const episodeReport = [...again.report.filter((line) => !lost(line)), ...episodes.report.filter(lost)];
+  return { episodes: { ...again, hasStart, report: episodeReport }, derivedValues: values, kept, report };
 }
 
 const DERIVED_WORDS = { errorIntegral: 'error integral', filtered: 'first-order lag', previous: 'previous value', difference: 'difference' } as const;

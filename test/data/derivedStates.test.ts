@@ -82,8 +82,8 @@ describe('derived states in the project document', () => {
   });
 
   it('refuses a derived state built from the action being chosen, naming the field; the previous action is allowed', () => {
-    for (const kind of ['filtered', 'difference']) {
-      const bad = parseProjectText(project([{ kind, name: 'd', source: 'valve', timeConstantSeconds: 60, periodSeconds: 60 }]), 'p.spcritic');
+    for (const fields of [{ kind: 'filtered', timeConstantSeconds: 60, periodSeconds: 60 }, { kind: 'difference' }]) {
+      const bad = parseProjectText(project([{ ...fields, name: 'd', source: 'valve' }]), 'p.spcritic');
       expect(bad.ok).toBe(false);
       if (!bad.ok) expect(bad.problems[0]).toMatchObject({ where: 'p.spcritic, columns.derived[0].source', message: expect.stringMatching(/action column.*previous value/) });
     }

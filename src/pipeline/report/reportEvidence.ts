@@ -26,7 +26,7 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
   const weights = (c: CandidateAssessment) => c.diagnostics.importanceWeights;
   const horizon = a.candidates.map(weights).find((w) => w)?.horizonSteps;
   return [
-    row(`Occupancy shift (1 = like the logs; caution above ${OCCUPANCY_SHIFT_LIMITS.caution}, serious above ${OCCUPANCY_SHIFT_LIMITS.serious})`,
+    row(`Occupancy shift (1 = like the logs; caution above ${OCCUPANCY_SHIFT_LIMITS.caution}×, serious above ${OCCUPANCY_SHIFT_LIMITS.serious}× the present controller’s level, at least 1)`,
       (c) => formatNumber(c.diagnostics.occupancyShift, 3), formatNumber(first?.presentControllerShift, 3)),
     row('… upper 90 % over resamples', (c) => formatNumber(c.diagnostics.occupancyShiftUpper, 3), ''),
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),

@@ -35,7 +35,7 @@ describe('assessment words', () => {
     };
     const [shift, weights, support] = coverageSentences(d);
     expect(shift).toContain('Occupancy shift: 55.3, up to 61.2 over resamples (the present controller itself: 1.1), measured in the fit’s own features (15).');
-    expect(shift).toContain('caution above 4, serious above 10'); // the limits the code applies (src/core/diagnostics/severity.ts)
+    expect(shift).toContain('caution above 4 times the present controller’s own level (at least 1), serious above 10 times'); // the limits the code applies (src/core/diagnostics/severity.ts)
     expect(weights).toContain('worth 9,490 transitions (47.5 % of them)');
     expect(support).toContain('on average 0.1 %');
     expect(coverageSentences({ ...d, occupancyShift: null, importanceWeights: null })).toHaveLength(1);

@@ -49,7 +49,7 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
     const upper = d.occupancyShiftUpper === null ? '' : `, up to ${formatNumber(d.occupancyShiftUpper, 3)} over resamples`;
     sentences.push(`Occupancy shift: ${formatNumber(d.occupancyShift, 3)}${upper}${own}, measured in ${d.shiftFeatures}. `
       + `1 means the candidate would visit states and actions like the logged ones; the error of its estimate grows with the square root, `
-      + `caution above ${OCCUPANCY_SHIFT_LIMITS.caution}, serious above ${OCCUPANCY_SHIFT_LIMITS.serious}.`);
+      + `caution above ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller’s own level (at least 1), serious above ${OCCUPANCY_SHIFT_LIMITS.serious} times.`);
   }
   const w = d.importanceWeights;
   if (w) {
