@@ -69,19 +69,31 @@ export function occupancyShiftRuleText(): string {
   const { caution, serious } = OCCUPANCY_SHIFT_LIMITS;
   return `Occupancy shift: how far the states and actions the candidate would visit (discounted, from the start states) lie from the logged ones, ` +
     `in the fitted model's own terms; 1 means like the logs. The error of the estimate grows with its square root, as if the log held 1/shift of its data. ` +
-    `Caution above ${caution} (error twice the logged controller's), serious above ${serious} (more than ${fixed(Math.sqrt(serious), 1)} times) — our rule.`;
+    `It is read against the present controller's own shift (at least 1; above 1 when the runs start away from where they spend their time): ` +
+    `caution above ${caution} times that level (error twice the present controller's), serious above ${serious} times (more than ${fixed(Math.sqrt(serious), 1)} times) — our rule.`;
 }
 
-/** The finding for one candidate, or null below the caution limit. loggedShift: the logged controller's own value, for scale. */
+/** The level a shift is read against: the present controller's own shift, at least 1 (1 without it). */
+export function shiftReference(presentControllerShift: number | null): number {
+  return presentControllerShift !== null && presentControllerShift > 1 ? presentControllerShift : 1;
+}
+
+/** The severity of a shift against the present controller's own level (null: supported). */
+export function occupancyShiftSeverity(shift: number, presentControllerShift: number | null): SeverityLevel | null {
+  return severityAbove(shift / shiftReference(presentControllerShift), OCCUPANCY_SHIFT_LIMITS);
+}
+
+/** The finding for one candidate, or null below the caution limit. loggedShift: the present controller's own value, for scale. */
 export function occupancyShiftFinding(shift: number, loggedShift: number | null): SeverityFinding | null {
-  const severity = severityAbove(shift, OCCUPANCY_SHIFT_LIMITS);
+  const severity = occupancyShiftSeverity(shift, loggedShift);
   if (!severity) return null;
-  const own = loggedShift === null ? '' : ` (the logged controller: ${fixed(loggedShift, 2)})`;
-  const limit = severity === 'serious' ? OCCUPANCY_SHIFT_LIMITS.serious : OCCUPANCY_SHIFT_LIMITS.caution;
+  const reference = shiftReference(loggedShift), ratio = shift / reference;
+  const own = loggedShift === null ? '' : ` (the present controller: ${fixed(loggedShift, 2)})`;
+  const limit = (severity === 'serious' ? OCCUPANCY_SHIFT_LIMITS.serious : OCCUPANCY_SHIFT_LIMITS.caution) * reference;
   return {
     severity, topic: 'occupancyShift',
-    message: `Occupancy shift ${fixed(shift, 1)}${own}, above the ${severity} limit ${limit}: the candidate would spend its time where the logs are thin, ` +
-      `so its estimate carries about ${fixed(Math.sqrt(shift), 1)} times the error of the logged controller's and leans on extrapolating the fitted model.`,
+    message: `Occupancy shift ${fixed(shift, 1)}${own}, above the ${severity} limit ${fixed(limit, limit < 100 ? 1 : 0)}: the candidate would spend its time where the logs are thin, ` +
+      `so its estimate carries about ${fixed(Math.sqrt(ratio), 1)} times the error of the present controller's and leans on extrapolating the fitted model.`,
   };
 }
 

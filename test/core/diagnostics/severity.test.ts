@@ -18,8 +18,8 @@ describe('severity', () => {
   });
 
   it('states the limits it applies in the rule texts', () => {
-    expect(occupancyShiftRuleText()).toContain(`Caution above ${OCCUPANCY_SHIFT_LIMITS.caution}`);
-    expect(occupancyShiftRuleText()).toContain(`serious above ${OCCUPANCY_SHIFT_LIMITS.serious}`);
+    expect(occupancyShiftRuleText()).toContain(`caution above ${OCCUPANCY_SHIFT_LIMITS.caution} times that level`);
+    expect(occupancyShiftRuleText()).toContain(`serious above ${OCCUPANCY_SHIFT_LIMITS.serious} times`);
     expect(effectiveShareRuleText()).toContain(`caution below ${100 * EFFECTIVE_SHARE_LIMITS.caution} %`);
     expect(effectiveShareRuleText()).toContain(`serious below ${(100 * EFFECTIVE_SHARE_LIMITS.serious).toFixed(1)} %`);
     expect(actionSupportRuleText()).toContain(`serious above ${100 * ACTION_SUPPORT_LIMITS.serious} %`);
@@ -29,8 +29,11 @@ describe('severity', () => {
     expect(occupancyShiftFinding(1.6, 1.0)).toBeNull();
     const caution = occupancyShiftFinding(6, 1.02)!;
     expect(caution.severity).toBe('caution');
-    expect(caution.message).toMatch(/^Occupancy shift 6\.0 \(the logged controller: 1\.02\), above the caution limit 4: .* about 2\.4 times/);
+    expect(caution.message).toMatch(/^Occupancy shift 6\.0 \(the present controller: 1\.02\), above the caution limit 4\.1: .* about 2\.4 times/);
     expect(occupancyShiftFinding(97, null)!.message).toMatch(/above the serious limit 10/);
+    // Read against the present controller's own level when it is above 1 (runs that start away from where they spend their time).
+    expect(occupancyShiftFinding(6, 3)).toBeNull();
+    expect(occupancyShiftFinding(40, 3)).toMatchObject({ severity: 'serious', message: expect.stringMatching(/above the serious limit 30/) });
     expect(effectiveShareFinding(2, 300, 33)).toMatchObject({ severity: 'serious', topic: 'importanceWeights' });
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20\.0 of 300 episodes \(below 10 %\)/);
     expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the logged controller itself: 2\.0 %\)/);

@@ -30,7 +30,7 @@ function datasets({ doc, imported, axis, action }: Props, theme: Theme) {
     pointRadius: 1.5, backgroundColor: theme === 'dark' ? 'rgba(200,210,220,0.35)' : 'rgba(60,70,80,0.3)', borderWidth: 0,
   };
   const lines = doc.candidates.flatMap((c, i) => {
-    const data = meanActionLine(c, axis, action, range, imported.stateMeans);
+    const data = c.form.kind === 'affine' ? meanActionLine(c.form, axis, action, range, imported.stateMeans) : null;
     return data ? [{ type: 'line' as const, label: c.name, data, borderColor: candidateColour(i), backgroundColor: candidateColour(i), borderWidth: 2.5, pointRadius: 0 }] : [];
   });
   const model = imported.behaviour.ok ? meanActionLine(imported.behaviour.model, axis, action, range, imported.stateMeans) : null;

@@ -21,7 +21,7 @@ export function CandidatesScreen(props: { onNext: () => void }) {
   const [action, setAction] = useState(0);
   const add = (label: string, make: () => CandidateSpec): void => documents.edit(label, (d) => ({ ...d, candidates: [...d.candidates, make()] }));
   const startFromBehaviour = (fit: BehaviourFit): void => {
-    if (fit.ok) add('start a candidate from the behaviour model', () => candidateFromBehaviour(doc, fit.model));
+    if (fit.ok) add('start a candidate from the present controller’s model', () => candidateFromBehaviour(doc, fit.model));
   };
   const ready = doc.columns.states.length > 0 && doc.columns.actions.length > 0;
   const shapesMatch = imported !== null && imported.stateNames.length === doc.columns.states.length && imported.actionNames.length === doc.columns.actions.length;

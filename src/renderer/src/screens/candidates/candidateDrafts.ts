@@ -33,20 +33,25 @@ export function plainCandidate(doc: ProjectDocument, imported: DataImport | null
   return {
     name: uniqueName(doc, `Candidate ${doc.candidates.length + 1}`),
     description: '',
-    offset: mean,
-    gain: doc.columns.actions.map(() => doc.columns.states.map(() => 0)),
-    std,
+    form: { kind: 'affine', offset: mean, gain: doc.columns.actions.map(() => doc.columns.states.map(() => 0)) },
+    dither: std,
   };
 }
 
 export function candidateFromBehaviour(doc: ProjectDocument, model: BehaviourModel): CandidateSpec {
   return {
-    name: uniqueName(doc, 'Like the logged controller'),
-    description: 'Started from the behaviour model fitted to the log.',
-    offset: model.offset.map((v) => roundSignificant(v)),
-    gain: model.gain.map((row) => row.map((v) => roundSignificant(v))),
-    std: model.std.map((v) => roundSignificant(v)),
+    name: uniqueName(doc, 'Like the present controller'),
+    description: 'Started from the present controller’s model fitted to the log, with the actuator limits the log shows.',
+    form: { kind: 'affine', offset: model.offset.map((v) => roundSignificant(v)), gain: model.gain.map((row) => row.map((v) => roundSignificant(v))) },
+    dither: model.std.map((v) => roundSignificant(v)),
+    // The model was fitted with these limits (censored at them): a candidate without them would be a different policy.
+    ...(model.bounds ? { bounds: { lo: model.bounds.lo.map(limitOrNull), hi: model.bounds.hi.map(limitOrNull), mode: model.bounds.mode } } : {}),
   };
+}
+
+/** A limit as the project writes it: null where the log shows none. */
+function limitOrNull(v: number): number | null {
+  return Number.isFinite(v) ? v : null;
 }
 
 export function duplicateCandidate(doc: ProjectDocument, candidate: CandidateSpec): CandidateSpec {
