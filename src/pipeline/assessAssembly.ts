@@ -221,10 +221,13 @@ export function unvisitedShare(plan: EvaluationPlan): number | null {
 export function globalWarnings(context: AssessmentContext, candidates: CandidateAssessment[], unvisited: number | null): AssessmentWarning[] {
   const out: AssessmentWarning[] = [];
   const { plan } = context;
-  if (plan.approximator.kind === 'network' && candidates.some((c) => c.policyValue.percentile === null)) {
+  if (plan.approximator.kind === 'network') {
+    const none = candidates.some((c) => c.policyValue.percentile === null);
     out.push({
       severity: 'caution', topic: 'bootstrap',
-      message: 'Some candidates’ J by the network approximator has no interval; compare it with the linear classes, the cross-checks and the sensitivity to the network width.',
+      message: none
+        ? 'Some candidates’ J by the network approximator has no interval; compare it with the linear classes, the cross-checks and the sensitivity to the network width.'
+        : 'The network’s intervals come from resampling the runs in its last-layer solve, not from refitting the network: compare them with the linear classes, the cross-checks and the sensitivity to the network width.',
     });
   }
   if (!plan.starts.followEpisodes) {

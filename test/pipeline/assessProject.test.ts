@@ -141,7 +141,7 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
     expect(result.value.warnings.some((w) => w.topic === 'startStates')).toBe(true);
   });
 
-  it('assesses a network approximator without candidate resamples, extending the run’s models, and sweeps its width', async () => {
+  it('assesses a network approximator with its own interval and no refits, extending the run’s models, and sweeps its width', async () => {
     const { project, dataset } = await open('tank-levels', (doc) => {
       doc.approximator = { kind: 'network', hiddenLayers: [6], outerIterations: 2, stepsPerIteration: 10, batchSize: 256, backend: 'cpu', patience: 0 };
     });
@@ -153,7 +153,11 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
       if (!evaluation.ok || !result.ok) throw new Error('pipeline failed');
       const a = result.value;
       a.candidates.forEach((c, i) => {
-        expect(c.policyValue).toMatchObject({ value: evaluation.value.policies[i].policyValue, percentile: null, replicates: 0 });
+        // No bootstrap refits of the network: its interval is the run resamples of its last-layer solve (networkInterval.ts).
+        expect(c.policyValue).toMatchObject({ value: evaluation.value.policies[i].policyValue, replicates: 0 });
+        const network = evaluation.value.policies[i].network!;
+        expect(c.policyValue.percentile).toEqual(network.interval);
+        expect(['agree', 'inconclusive', 'disagree']).toContain(network.agreement.verdict);
         expect(c.diagnostics.shiftFeatures).toMatch(/degree-2 polynomial/); // measured in a linear class beside the network
         expect(c.reportedRange![0]).toBeLessThanOrEqual(c.policyValue.value); // the range reported holds the network's own value
         expect(c.reportedRange![1]).toBeGreaterThanOrEqual(c.policyValue.value);
@@ -161,7 +165,7 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
       });
       expect(a.behaviour.percentile).not.toBeNull();
       expect(a.comparison.ranking.frequency).toBeNull();
-      expect(a.warnings.some((w) => /network approximator has no interval/.test(w.message))).toBe(true);
+      expect(a.warnings.some((w) => /network’s intervals come from resampling the runs/.test(w.message))).toBe(true);
       expect(a.sensitivity!.curves.map((c) => [c.parameter, c.settings])).toEqual([['networkWidth', [3, 6, 12]]]);
     } finally {
       (run as ProjectRun | null)?.dispose();

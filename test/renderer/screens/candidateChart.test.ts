@@ -42,7 +42,7 @@ describe('new candidates', () => {
     expect(candidateFromBehaviour(doc(), model)).toMatchObject({ form: { offset: [97.26], gain: [[-29.18, -21.57]] }, dither: [3.98] });
     expect(roundSignificant(0.000123456)).toBe(0.0001235);
     // With the limits the log shows, so the candidate is the policy the model was fitted as (one-sided: null for no limit).
-    const limited = { ...model, bounds: { lo: [0], hi: [Infinity], mode: 'clip' } } as never;
+    const limited = { offset: [97.2634], gain: [[-29.1812, -21.5678]], std: [3.98012], bounds: { lo: [0], hi: [Infinity], mode: 'clip' } } as never;
     expect(candidateFromBehaviour(doc(), limited)).toMatchObject({ bounds: { lo: [0], hi: [null], mode: 'clip' } });
     expect(candidateFromBehaviour(doc(), model)).not.toHaveProperty('bounds');
   });
