@@ -38,7 +38,7 @@ async function buildPage(): Promise<void> {
   outDir = await mkdtemp(join(tmpdir(), 'spc-plots-page-'));
   await build({
     root: join(here, 'plots-page'), configFile: false, logLevel: 'warn', base: './', plugins: [react()],
-    build: { outDir, emptyOutDir: true, minify: false, chunkSizeWarningLimit: 4000 },
+    build: { outDir, emptyOutDir: true, minify: false, chunkSizeWarningLimit: 4000 }, worker: { format: 'es' },
   });
 }
 
@@ -125,9 +125,10 @@ describe('plots on screen (e2e)', () => {
     await figure.focus();
     await page.keyboard.press('ArrowRight');
     await page.keyboard.press('ArrowUp');
-    expect(await page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light'))).toBe(1);
+    // The chart worker draws the tooltip a moment later: retrying reads.
+    await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light')), POLL).toBe(1);
     await page.keyboard.press('Escape');
-    expect(await page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light'))).toBe(0);
+    await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light')), POLL).toBe(0);
   });
 
   it('screenshots of each plot, light and dark, and at 125 % zoom', async () => {
@@ -139,10 +140,11 @@ describe('plots on screen (e2e)', () => {
     // A hover tooltip over a never-visited cell, and one on the slice.
     const surface = page.locator('#surface-light canvas'), box = (await surface.boundingBox())!;
     await surface.hover({ position: { x: box.width * 0.8, y: box.height * 0.3 } });
-    expect(await page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light'))).toBe(1);
+    await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light')), POLL).toBe(1);
     await page.locator('#surface-light').screenshot({ path: join(screens, 'plots-surface-light-tooltip.png') });
     const slice = page.locator('#slice-light canvas'), sliceBox = (await slice.boundingBox())!;
     await slice.hover({ position: { x: sliceBox.width * 0.45, y: sliceBox.height * 0.5 } });
+    await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('slice', 'light')), POLL).toBeGreaterThan(0);
     await page.locator('#slice-light').screenshot({ path: join(screens, 'plots-slice-light-tooltip.png') });
     await page.mouse.move(0, 0);
     const zoomed = await openPage(1.25);
