@@ -192,6 +192,38 @@ describe('PNG export (e2e)', () => {
   });
 });
 
+/** Pairs of text boxes that overlap by more than 1 px both ways, and boxes that leave the image. */
+function layoutFaults(laid: { width: number; height: number; texts: { text: string; left: number; top: number; right: number; bottom: number }[] }): string[] {
+  const faults: string[] = [], t = laid.texts, slack = 1;
+  for (const b of t) {
+    if (b.left < -slack || b.top < -slack || b.right > laid.width + slack || b.bottom > laid.height + slack) faults.push(`"${b.text}" leaves the image (${b.left.toFixed(1)}, ${b.top.toFixed(1)})–(${b.right.toFixed(1)}, ${b.bottom.toFixed(1)})`);
+  }
+  for (let i = 0; i < t.length; i++) {
+    for (let j = i + 1; j < t.length; j++) {
+      const w = Math.min(t[i].right, t[j].right) - Math.max(t[i].left, t[j].left), h = Math.min(t[i].bottom, t[j].bottom) - Math.max(t[i].top, t[j].top);
+      if (w > slack && h > slack) faults.push(`"${t[i].text}" overlaps "${t[j].text}" by ${w.toFixed(1)} × ${h.toFixed(1)} px`);
+    }
+  }
+  return faults;
+}
+
+// The export sizes people pick: the default (report figure), the half-width figure, and a small on-screen size.
+const LAYOUT_SIZES = [
+  { name: 'report 6.5 × 4 in at 300 dpi', widthPx: 1950, heightPx: 1200, dpi: 300 },
+  { name: 'half-width 3.25 × 2.5 in at 300 dpi', widthPx: 975, heightPx: 750, dpi: 300 },
+  { name: 'small 560 × 400 px at 96 dpi', widthPx: 560, heightPx: 400, dpi: 96 },
+];
+
+describe('no text collides in an export (e2e, text boxes as Chromium lays out the SVG)', () => {
+  it.each(PLOT_KINDS.flatMap((kind) => LAYOUT_SIZES.map((size) => [kind, size.name, size] as const)))('%s at %s', async (kind, _name, size) => {
+    const options = { widthPx: size.widthPx, heightPx: size.heightPx, dpi: size.dpi, background: 'white' as const };
+    const svg = (await page.evaluate(([k, o]) => window.plotsPage.exportSvg(k, 'light', o), [kind, options] as const))!;
+    const laid = await page.evaluate(([s, w, h]) => window.plotsPage.svgTextBoxes(s, w, h), [svg, size.widthPx, size.heightPx] as const);
+    expect(laid.texts.length).toBeGreaterThan(5);
+    expect(layoutFaults(laid)).toEqual([]);
+  });
+});
+
 describe('SVG export (e2e)', () => {
   it.each(PLOT_KINDS)('%s: DOMParser accepts it, with its title, labels and caption, and it draws', async (kind: PlotKind) => {
     const options = { widthPx: 960, heightPx: 600, dpi: 96, background: 'white' as const };

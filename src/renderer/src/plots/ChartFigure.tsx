@@ -51,6 +51,7 @@ export function ChartFigure({ testId, label, summary, heightPx, palette, spec, k
   const handleRef = useRef<FigureHandle | null>(null);
   const sizeRef = useRef<FigureSize | null>(null);
   const drawnVersion = useRef(0);
+  const requestRef = useRef<((version: number) => void) | null>(null);
   const [state, setState] = useState<FigureState | null>(null);
   const summaryId = useId();
 
@@ -65,13 +66,19 @@ export function ChartFigure({ testId, label, summary, heightPx, palette, spec, k
     const handle = attachFigure(canvas, (s) => {
       if (s.version === drawnVersion.current) setState(s);
     });
+    // Until the worker reports the latest drawing, the figure says it is waiting (checks wait on it).
+    const request = (version: number) => {
+      drawnVersion.current = version;
+      setState(null);
+    };
+    requestRef.current = request;
     handleRef.current = handle;
     handles.set(figure, handle);
     const onResize = () => {
       const size = measure(box);
       if (sameSize(sizeRef.current, size)) return;
       sizeRef.current = size;
-      handle.resize(size);
+      request(handle.resize(size));
     };
     const observer = new ResizeObserver(onResize);
     observer.observe(box);
@@ -94,7 +101,7 @@ export function ChartFigure({ testId, label, summary, heightPx, palette, spec, k
     const size = sizeRef.current ?? measure(box);
     sizeRef.current = size;
     const keys: KeyNavigation = keyColumns ? { kind: 'grid', columns: keyColumns } : { kind: 'list' };
-    drawnVersion.current = handle.draw(spec, size, keys);
+    requestRef.current?.(handle.draw(spec, size, keys));
   }, [spec, keyColumns]);
 
   const onKeyDown = (event: KeyboardEvent) => {

@@ -13,8 +13,9 @@ import type { ChartReply, ChartRequest, FigureInspection, FigureSize, KeyNavigat
 export type FigureState = { status: 'drawn'; version: number } | { status: 'failed'; version: number; message: string };
 
 export interface FigureHandle {
+  /** Each returns the version the worker's report of this drawing will carry. */
   draw(spec: PlotSpec, size: FigureSize, keys: KeyNavigation): number;
-  resize(size: FigureSize): void;
+  resize(size: FigureSize): number;
   pointer(kind: PointerKind, x: number, y: number): void;
   key(key: string): void;
   inspect(): Promise<FigureInspection | null>;
@@ -85,7 +86,11 @@ export function attachFigure(canvas: HTMLCanvasElement, onState: (state: FigureS
       w.postMessage({ type: 'draw', figure, version, spec, size, keys });
       return version;
     },
-    resize: (size) => w.postMessage({ type: 'resize', figure, size }),
+    resize(size) {
+      version++;
+      w.postMessage({ type: 'resize', figure, version, size });
+      return version;
+    },
     pointer(kind, x, y) {
       if (kind !== 'mousemove') {
         queued = null;

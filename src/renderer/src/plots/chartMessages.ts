@@ -24,7 +24,7 @@ export type PointerKind = 'mousemove' | 'mouseout' | 'click';
 export type ChartRequest =
   | { type: 'attach'; figure: number; canvas: OffscreenCanvas }
   | { type: 'draw'; figure: number; version: number; spec: PlotSpec; size: FigureSize; keys: KeyNavigation }
-  | { type: 'resize'; figure: number; size: FigureSize }
+  | { type: 'resize'; figure: number; version: number; size: FigureSize }
   | { type: 'pointer'; figure: number; kind: PointerKind; x: number; y: number }
   | { type: 'key'; figure: number; key: string }
   | { type: 'detach'; figure: number }

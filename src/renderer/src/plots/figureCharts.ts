@@ -44,7 +44,11 @@ export function createFigureCharts(post: Post) {
     slot.chart?.destroy();
     slot.chart = null;
     slot.cursor = -1;
-    if (!slot.spec || !slot.size || slot.size.widthPx < 1 || slot.size.heightPx < 1) return;
+    if (!slot.spec || !slot.size) return;
+    if (slot.size.widthPx < 1 || slot.size.heightPx < 1) {
+      post({ type: 'drawn', figure, version: slot.version }); // nothing to see at zero size: drawn when it has a size
+      return;
+    }
     try {
       slot.chart = drawFigure(slot.canvas, slot.spec, slot.size);
       post({ type: 'drawn', figure, version: slot.version });
@@ -115,7 +119,10 @@ export function createFigureCharts(post: Post) {
         Object.assign(slot, { spec: request.spec, size: request.size, keys: request.keys, version: request.version });
         redraw(request.figure, slot);
         return;
-      case 'resize': resize(request.figure, slot, request.size); return;
+      case 'resize':
+        slot.version = request.version;
+        resize(request.figure, slot, request.size);
+        return;
       case 'pointer': pointer(slot, request.kind, request.x, request.y); return;
       case 'key': key(slot, request.key); return;
       case 'detach':
