@@ -1,26 +1,32 @@
 /**
- * Import throughput: synthesise a rows × 10 CSV in memory (a logged two-tank plant: time, six
- * levels and flows, two valve moves, a cost), then time parse + import into a TransitionSet.
- * Prints, never asserts; `npx tsx bench/importBench.ts 1000000` runs it alone.
+ * Import throughput, side by side with a plain numerical-Python read of the same file: a rows × 10
+ * CSV (a logged two-tank plant: time, six levels and flows, two valve moves, a cost; semicolons and
+ * decimal commas) is written once to a temp file by a separate process, then this process reads its
+ * bytes as the command line does and imports them into a TransitionSet (dialect, header, cells,
+ * timestamps, episodes, transitions, summary), and bench/importReference.py reads the same file
+ * with numpy.loadtxt and with the csv module. Prints, never asserts; peak memory is this process's
+ * (getrusage maxRSS), so it includes Node itself and the file's bytes.
+ *   npm run bench -- import        or        npx tsx bench/importBench.ts 1000000
  */
-import { pathToFileURL } from 'node:url';
+import { execFileSync } from 'node:child_process';
+import { existsSync, mkdirSync, statSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { fileURLToPath, pathToFileURL } from 'node:url';
 import { createRandom } from '../src/core/random';
 import { importDataset } from '../src/data/importDataset';
+import { MAX_DATA_BYTES, readRegularFile } from '../src/host/regularFile';
 import type { ColumnRoles } from '../src/project/schema';
 
-export interface ImportBenchResult {
-  rows: number;
-  rowsPerSecond: number;
-  seconds: number;
-  /** Peak resident set size of the whole process so far (includes the synthesised text). */
-  peakRssMiB: number;
-  /** RSS increase across the import itself. */
-  importRssGrowthMiB: number;
-  textMiB: number;
-  transitions: number;
-}
-
 const HEADER = 'time_s;level_1_m;level_2_m;level_3_m;inflow_1_m3h;inflow_2_m3h;outflow_m3h;valve_1_pct;valve_2_pct;cost';
+
+const ROLES: ColumnRoles = {
+  states: ['level_1_m', 'level_2_m', 'level_3_m', 'inflow_1_m3h', 'inflow_2_m3h', 'outflow_m3h'].map((column) => ({ column, unit: '' })),
+  actions: [{ column: 'valve_1_pct', unit: '%' }, { column: 'valve_2_pct', unit: '%' }],
+  reward: { kind: 'column', column: 'cost', sense: 'cost' },
+  nextState: { kind: 'nextRow' },
+  episode: { kind: 'timeGap', column: 'time_s' },
+};
 
 /** rows × 10 semicolon-separated, decimal-comma CSV text, seeded. */
 export function synthesiseTankLog(rows: number, seed = 7): string {
@@ -42,38 +48,60 @@ export function synthesiseTankLog(rows: number, seed = 7): string {
   return chunks.join('\n') + '\n';
 }
 
-const ROLES: ColumnRoles = {
-  states: ['level_1_m', 'level_2_m', 'level_3_m', 'inflow_1_m3h', 'inflow_2_m3h', 'outflow_m3h'].map((column) => ({ column, unit: '' })),
-  actions: [{ column: 'valve_1_pct', unit: '%' }, { column: 'valve_2_pct', unit: '%' }],
-  reward: { kind: 'column', column: 'cost', sense: 'cost' },
-  nextState: { kind: 'nextRow' },
-  episode: { kind: 'timeGap', column: 'time_s' },
-};
+/** The benchmark file for `rows`, written by a child process (so this one never holds the text). */
+function benchFile(rows: number): string {
+  const folder = join(tmpdir(), 'setpoint-critic-bench');
+  const path = join(folder, `tank-${rows}.csv`);
+  if (!existsSync(path)) {
+    mkdirSync(folder, { recursive: true });
+    execFileSync(process.execPath, ['--import', 'tsx', fileURLToPath(import.meta.url), '--write', String(rows), path], { stdio: 'inherit' });
+  }
+  return path;
+}
 
-const mib = (bytes: number): number => bytes / 1024 / 1024;
+interface Reference {
+  numpyLoadtxt: { wallSeconds: number; cpuSeconds: number };
+  csvModule: { wallSeconds: number; cpuSeconds: number };
+  peakRssMiB: number;
+  numpy: string;
+}
 
-export async function runImportBench(rows: number): Promise<ImportBenchResult> {
-  const text = synthesiseTankLog(rows);
-  const rssBefore = process.memoryUsage().rss;
-  const start = performance.now();
-  const result = importDataset(text, 'bench.csv', { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }, ROLES);
-  const seconds = (performance.now() - start) / 1000;
+function pythonReference(path: string): Reference | null {
+  try {
+    const script = fileURLToPath(new URL('./importReference.py', import.meta.url));
+    return JSON.parse(execFileSync('python3', [script, path], { encoding: 'utf8', maxBuffer: 1 << 20 })) as Reference;
+  } catch {
+    return null;
+  }
+}
+
+export async function runImportBench(rows: number): Promise<Record<string, number | string>> {
+  const path = benchFile(rows);
+  const megabytes = statSync(path).size / 1e6;
+  const wall = performance.now(), cpu = process.cpuUsage();
+  const bytes = await readRegularFile(path, { maxBytes: MAX_DATA_BYTES, what: 'data file' });
+  const result = importDataset(bytes, 'bench.csv', { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }, ROLES);
+  const seconds = (performance.now() - wall) / 1000, used = process.cpuUsage(cpu), cpuSeconds = (used.user + used.system) / 1e6;
   if (!result.ok) throw new Error(`benchmark import failed: ${result.problems[0].where}: ${result.problems[0].message}`);
+  const peakRssMiB = process.resourceUsage().maxRSS / 1024;
+  const reference = pythonReference(path);
+  const figures: Record<string, number | string> = {
+    'file MB': megabytes, transitions: result.value.transitions.count,
+    'read + import s (wall)': seconds, 'read + import s (CPU)': cpuSeconds,
+    'MB/s (wall)': megabytes / seconds, 'MB/s (CPU)': megabytes / cpuSeconds, 'peak RSS MiB': peakRssMiB,
+  };
+  if (!reference) return { ...figures, 'numerical Python': 'python3 with numpy not available' };
   return {
-    rows,
-    rowsPerSecond: rows / seconds,
-    seconds,
-    peakRssMiB: process.resourceUsage().maxRSS / 1024,
-    importRssGrowthMiB: mib(process.memoryUsage().rss - rssBefore),
-    textMiB: mib(text.length), // V8 keeps ASCII text one byte per character
-    transitions: result.value.transitions.count,
+    ...figures,
+    'numpy.loadtxt s (CPU)': reference.numpyLoadtxt.cpuSeconds, 'csv module s (CPU)': reference.csvModule.cpuSeconds,
+    'ratio to loadtxt (CPU)': cpuSeconds / reference.numpyLoadtxt.cpuSeconds, 'ratio to csv module (CPU)': cpuSeconds / reference.csvModule.cpuSeconds,
+    'Python peak RSS MiB': reference.peakRssMiB, numpy: reference.numpy,
   };
 }
 
-if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
-  const rows = Number(process.argv[2] ?? 1_000_000);
-  runImportBench(rows).then((r) => {
-    console.log(`import of ${r.rows.toLocaleString('en-US')} rows × 10 columns: ${r.seconds.toFixed(2)} s, ${Math.round(r.rowsPerSecond).toLocaleString('en-US')} rows/s`);
-    console.log(`text ${r.textMiB.toFixed(0)} MiB; peak RSS ${r.peakRssMiB.toFixed(0)} MiB; RSS growth during import ${r.importRssGrowthMiB.toFixed(0)} MiB; ${r.transitions.toLocaleString('en-US')} transitions`);
-  });
+if (process.argv[2] === '--write') {
+  writeFileSync(process.argv[4], synthesiseTankLog(Number(process.argv[3])));
+} else if (process.argv[1] && import.meta.url === pathToFileURL(process.argv[1]).href) {
+  const figures = await runImportBench(Number(process.argv[2] ?? 1_000_000));
+  for (const [key, value] of Object.entries(figures)) console.log(`${key.padEnd(28)} ${typeof value === 'number' ? +value.toPrecision(4) : value}`);
 }

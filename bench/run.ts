@@ -4,6 +4,7 @@
  *   npm run bench                 all benchmarks
  *   npm run bench -- linear       only the linear FQE sizes
  *   npm run bench -- bootstrap    only the bootstrap resampling rates
+ *   npm run bench -- retune       only the retune map
  *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script
  */
 import { execFileSync } from 'node:child_process';
@@ -23,6 +24,10 @@ const jobs: Job[] = [
   {
     name: 'bootstrap resamples, 100,000 transitions', group: 'bootstrap',
     run: async () => (await import('./bootstrapBench')).runBootstrapBench(),
+  },
+  {
+    name: 'retune map, 100,000 transitions, 10×10 PI gain × integral time (heating-loop sample)', group: 'retune',
+    run: async () => (await import('./retuneBench')).runRetuneBench(),
   },
   ...[100_000, 1_000_000].map((n) => ({
     name: `whole evaluate beside the numerical-Python peer, ${n.toLocaleString('en-US')} transitions`, group: 'peer',

@@ -16,7 +16,7 @@
  */
 import { pathToFileURL } from 'node:url';
 import { createRandom, type RandomSource } from '../../src/core/random';
-import { createGaussianPolicy, sampleAction, type GaussianPolicySpec } from '../../src/core/policy';
+import { createGaussianPolicy, sampleAction, type GaussianPolicy, type GaussianPolicySpec } from '../../src/core/policy';
 
 export const HEATING_LOOP_COLUMNS = ['run', 'time_s', 'zone_temp_c', 'outdoor_temp_c', 'heating_valve_pct', 'cost'] as const;
 export const heatingSamplePeriodSeconds = 60;
@@ -120,6 +120,47 @@ function advance(state: Float64Array, valvePct: number, rng: RandomSource): numb
   state[0] = zone + p.envelopeLossPerStep * (outdoor - zone) + p.fullHeatRiseKPerStep * heat + p.zoneNoiseStdK * rng.normal();
   state[1] = outdoor + p.outdoorReversionPerStep * (p.outdoorMeanC - outdoor) + p.outdoorNoiseStdK * rng.normal();
   return cost;
+}
+
+/**
+ * The value of a candidate that reads the sample project's four states — zone temperature,
+ * outdoor temperature, the zone error integral Σ (21 − T)·60 s (K·s) and the previous valve
+ * opening (%), as the project derives them on import — by seeded rollouts of this plant from
+ * given start states (count×4). Returns the mean over starts of each start's mean discounted cost
+ * over `horizon` steps (0.95^400 ≈ 1e−9) and its standard error given the starts,
+ * √(Σ_i s_i²/R)/count. Costs, as the project reports them.
+ */
+export function heatingCandidateCost(
+  policy: GaussianPolicy, starts: Float64Array, rolloutsPerStart: number, seed: number, horizon = 400,
+): { cost: number; standardError: number } {
+  if (policy.stateDim !== 4 || policy.actionDim !== 1) throw new RangeError('policy: expected the four states of the sample project and one action');
+  const rng = createRandom(seed), count = starts.length / 4, r = rolloutsPerStart, p = heatingPlantParameters;
+  const state = new Float64Array(4), plant = new Float64Array(2), action = new Float64Array(1);
+  let total = 0, variance = 0;
+  for (let i = 0; i < count; i++) {
+    let sum = 0, sumSq = 0;
+    for (let k = 0; k < r; k++) {
+      state.set(starts.subarray(4 * i, 4 * i + 4));
+      let ret = 0, weight = 1;
+      for (let t = 0; t < horizon; t++, weight *= heatingDiscount) {
+        sampleAction(policy, state, rng, action);
+        const applied = Math.min(p.valveMaxPct, Math.max(p.valveMinPct, action[0]));
+        plant[0] = state[0];
+        plant[1] = state[1];
+        ret += weight * advance(plant, applied, rng);
+        state[2] += (p.zoneSetpointC - state[0]) * heatingSamplePeriodSeconds;
+        state[0] = plant[0];
+        state[1] = plant[1];
+        state[3] = applied;
+      }
+      sum += ret;
+      sumSq += ret * ret;
+    }
+    const mean = sum / r;
+    total += mean;
+    variance += (sumSq - r * mean * mean) / (r - 1) / r;
+  }
+  return { cost: total / count, standardError: Math.sqrt(variance) / count };
 }
 
 /** CSV text with a header line; temperatures to 1e-4 K, opening to 1e-4 %, cost to 1e-8. */

@@ -19,23 +19,40 @@ function estimateRow(name: string, e: IntervalEstimate): string[] {
   return [name, number(e.value), number(e.standardError), interval(e.percentile), interval(e.basic)];
 }
 
+const settledWord = (settled: boolean | null): string => (settled === null ? 'one class' : settled ? 'settled' : 'NOT SETTLED');
+
 export function formatAssessment(a: Assessment): string {
   const level = `${Math.round(100 * a.settings.level)} %`;
-  const rows = [['policy', 'J', 'bootstrap s.e.', `${level} percentile`, `${level} basic`]];
-  for (const c of a.candidates) rows.push(estimateRow(c.name, c.policyValue));
-  rows.push(estimateRow('logged behaviour (today)', a.behaviour));
+  const rows = [['policy', 'J', 'bootstrap s.e.', `${level} percentile`, `${level} basic`, 'range to report', 'function classes', 'cross-checks', 'occupancy shift']];
+  for (const c of a.candidates) {
+    rows.push([...estimateRow(c.name, c.policyValue), interval(c.reportedRange), settledWord(c.settled), c.confirmation.status, number(c.diagnostics.occupancyShift)]);
+  }
+  const pc = a.presentController;
+  if (pc) rows.push([...estimateRow(`${pc.name} [baseline]`, pc.policyValue), interval(pc.policyValue.percentile), '', pc.confirmation.status, number(pc.occupancyShift)]);
+  rows.push([...estimateRow(pc ? 'logged return (check; cut short at time limits)' : 'logged return [baseline]', a.behaviour), '', '', '', '']);
+  if (pc) rows.push([...estimateRow('logged return completed past time limits (check)', pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
   for (const d of a.comparison.differences) diffs.push([`${d.a} − ${d.b}`, number(d.difference.value), interval(d.difference.percentile), percent(d.probabilityBetter)]);
-  const checks = a.candidates.flatMap((c) => c.crossChecks.map((x) => `  ${c.name} · ${x.label}: ${x.estimate ? `${number(x.estimate.value)} ${interval(x.estimate.percentile)}` : '—'} — ${x.note}`));
+  const named = [...a.candidates, ...(pc ? [{ ...pc, functionClasses: null }] : [])];
+  const checks = named.flatMap((c) => [
+    `  ${c.name}: ${c.confirmation.text}`,
+    ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? `${number(x.estimate.value)} ${interval(x.estimate.percentile)}` : '—'} — ${x.note}`),
+  ]);
+  const classes = a.candidates.flatMap((c) => (c.functionClasses ? [
+    `  ${c.name}: ${c.functionClasses.reason}`,
+    ...c.functionClasses.classes.map((k) => `    · ${k.label}: ${number(k.value)} ${interval(k.interval)}`),
+  ] : []));
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
   return [
-    `Bootstrap over ${a.settings.episodes} episodes: ${a.settings.resamples} resamples, level ${level}, seed ${a.settings.seed}.`,
+    `Bootstrap over ${a.settings.episodes} runs: ${a.settings.resamples} resamples, level ${level}, seed ${a.settings.seed}. Baseline: ${a.comparison.baseline.name}.`,
+    a.comparison.baseline.note,
     '',
     table(rows),
     '',
     table(diffs),
     '',
-    `Ranking: ${a.comparison.ranking.order.join(' > ')} (${a.comparison.ranking.frequency === null ? 'the candidates were not resampled' : `holds in ${percent(a.comparison.ranking.frequency)} of resamples`}).`,
+    `Ranking: ${a.comparison.ranking.order.join(' > ')} (${a.comparison.ranking.frequency === null ? 'not every policy was resampled' : `holds in ${percent(a.comparison.ranking.frequency)} of resamples`}).`,
+    ...(classes.length ? ['', 'Function classes (the range to report spans them):', ...classes] : []),
     '',
     'Cross-checks:',
     ...checks,

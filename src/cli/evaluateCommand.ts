@@ -8,28 +8,38 @@ import { formatAssessment } from './assessmentFormat';
 import { evaluateProjectFile } from './evaluateProjectFile';
 import { formatCautions, formatEvaluation } from './formatEvaluation';
 import { formatImport } from './formatImport';
+import { formatCandidates } from './formatCandidates';
+import { formatRetuneMap } from './retuneMapFormat';
+import { CONFIDENCE_LEVEL } from '../core/limits';
 import { createTerminalProgress } from './terminalProgress';
 import { exitStatusOf } from './exitStatus';
+import { processTerminal, type Terminal } from './terminal';
 
-export async function runEvaluateCommand(projectPath: string, options: { json: boolean } & AssessmentOverrides): Promise<number> {
+export async function runEvaluateCommand(projectPath: string, options: { json: boolean; terminal?: Terminal } & AssessmentOverrides): Promise<number> {
+  const terminal = options.terminal ?? processTerminal;
   const progress = createTerminalProgress();
   const result = await evaluateProjectFile(projectPath, options, undefined, progress).finally(() => progress.done());
   if (!result.ok) {
-    process.stderr.write(`${result.failure.message}\n`);
+    terminal.err(`${result.failure.message}\n`);
     return result.failure.exitCode;
   }
-  const { project, imported, evaluation, assessment } = result.run;
+  const { project, imported, evaluation, assessment, retuneMaps } = result.run;
+  const level = assessment.ok ? assessment.value.settings.level : CONFIDENCE_LEVEL.default;
   if (options.json) {
     const json = {
       ...evaluationToJson(evaluation), import: importToJson(imported),
       assessment: assessment.ok ? assessmentToJson(assessment.value) : null, assessmentProblems: assessment.ok ? [] : assessment.problems,
+      retuneMaps: retuneMaps.ok ? retuneMaps.value : null, retuneMapProblems: retuneMaps.ok ? [] : retuneMaps.problems,
     };
-    process.stdout.write(`${JSON.stringify(json, null, 2)}\n`);
+    terminal.out(`${JSON.stringify(json, null, 2)}\n`);
   } else {
-    process.stdout.write(formatImport(imported, project.data.path));
-    process.stdout.write(formatEvaluation(evaluation, basename(projectPath)));
-    process.stdout.write(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
-    process.stdout.write(formatCautions(evaluation));
+    terminal.out(formatImport(imported, project.data.path));
+    terminal.out(formatCandidates(project));
+    terminal.out(formatEvaluation(evaluation, basename(projectPath)));
+    terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
+    if (retuneMaps.ok) retuneMaps.value.forEach((map) => terminal.out(`\n${formatRetuneMap(map, level)}`));
+    else terminal.out(`\nRetune maps not computed: ${describeProblems(retuneMaps.problems)}\n`);
+    terminal.out(formatCautions(evaluation));
   }
   return exitStatusOf(evaluation);
 }

@@ -3,7 +3,6 @@
  * evaluation pipeline, then the assessment (intervals, cross-checks, diagnostics) on the same fits.
  * Files are read here (Node); everything after the bytes is the shared pipeline.
  */
-import { readFile } from 'node:fs/promises';
 import { createRequire } from 'node:module';
 import { basename, dirname, join, resolve } from 'node:path';
 import { describeProblems, type Problem, type Result } from '../core/result';
@@ -14,11 +13,15 @@ import type { Evaluation } from '../pipeline/estimates';
 import { evaluationOf } from '../pipeline/evaluateProject';
 import { openProject, type OpenedProject } from '../pipeline/openProject';
 import { CANCELLED_PROBLEM, startRun } from '../pipeline/projectRun';
+import { retuneMapsOfRun, type RetuneMapResult } from '../pipeline/retuneMaps';
+import { HostFileError, MAX_DATA_BYTES, MAX_PROJECT_BYTES, readRegularFile } from '../host/regularFile';
 import type { TerminalProgress } from './terminalProgress';
 
 export interface ProjectFileRun extends OpenedProject {
   evaluation: Evaluation;
   assessment: Result<Assessment>;
+  /** The project's retune maps (none when it has none). */
+  retuneMaps: Result<RetuneMapResult[]>;
 }
 
 /** A failure to report on stderr, with the exit status (1 bad input, 2 bad usage). */
@@ -27,18 +30,36 @@ export interface CliFailure {
   exitCode: 1 | 2 | 130;
 }
 
+/** The files a run reads, absolute; `check` may refuse the run before any work (e.g. an --out that names one of them). */
+export interface RunFiles {
+  projectPath: string;
+  dataPath: string;
+}
+
 export async function evaluateProjectFile(
   projectPath: string, overrides: AssessmentOverrides, now?: () => Date, progress: TerminalProgress | null = null,
+  check?: (files: RunFiles) => Promise<CliFailure | null>,
 ): Promise<{ ok: true; run: ProjectFileRun } | { ok: false; failure: CliFailure }> {
   let text: string;
   try {
-    text = await readFile(projectPath, 'utf8');
+    text = new TextDecoder().decode(await readRegularFile(projectPath, { maxBytes: MAX_PROJECT_BYTES, what: 'project file' }));
   } catch (e) {
-    const reason = (e as NodeJS.ErrnoException).code === 'ENOENT' ? 'no such file' : (e as Error).message;
-    return { ok: false, failure: { message: `Cannot read the project file ${projectPath}: ${reason}`, exitCode: 1 } };
+    if (!(e instanceof HostFileError)) throw e;
+    return { ok: false, failure: { message: e.message, exitCode: 1 } };
   }
   const folder = dirname(resolve(projectPath));
-  const opened = await openProject(text, basename(projectPath), async (relativePath) => new Uint8Array(await readFile(resolve(folder, relativePath))));
+  let refusal: CliFailure | null = null;
+  const opened = await openProject(text, basename(projectPath), async (relativePath) => {
+    const dataPath = resolve(folder, relativePath);
+    refusal = (await check?.({ projectPath: resolve(projectPath), dataPath })) ?? null;
+    if (refusal) return new Uint8Array(0);
+    try {
+      return await readRegularFile(dataPath, { maxBytes: MAX_DATA_BYTES, what: 'data file' });
+    } catch (e) {
+      throw e instanceof HostFileError ? new Error(e.reason) : e;
+    }
+  });
+  if (refusal) return { ok: false, failure: refusal };
   if (!opened.ok) return { ok: false, failure: { message: describeProblems(opened.problems), exitCode: 1 } };
   const { project, dataset, warnings } = opened.value;
   const settings = assessmentSettingsFor(project, overrides);
@@ -53,7 +74,9 @@ export async function evaluateProjectFile(
     const evaluation = evaluationOf(run, [...warnings, ...started.warnings].map((w) => `${w.where}: ${w.message}`), now);
     const assessment = await assessRun(run, { settings: settings.value, wasmPath, cancel, onProgress: progress?.assessment });
     if (!assessment.ok && isCancelled(assessment.problems)) return { ok: false, failure: failureOf(assessment.problems) };
-    return { ok: true, run: { ...opened.value, evaluation, assessment } };
+    const retuneMaps = retuneMapsOfRun(run, { cancel });
+    if (!retuneMaps.ok && isCancelled(retuneMaps.problems)) return { ok: false, failure: failureOf(retuneMaps.problems) };
+    return { ok: true, run: { ...opened.value, evaluation, assessment, retuneMaps } };
   } finally {
     run.dispose();
   }

@@ -25,18 +25,26 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     const settled = p.status === 'converged';
     rows.push([p.name, settled ? number(p.policyValue) : 'not settled', settled ? number(p.standardError) : '', number(p.fixedPointValue), settled ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
   }
-  rows.push(['logged behaviour (today)', number(e.behaviour.value), number(e.behaviour.standardError), '', `${e.behaviour.episodes} episodes`]);
+  const pc = e.presentController;
+  if (pc) {
+    const x = pc.estimate, settled = x.status === 'converged';
+    rows.push([`${x.name} [baseline]`, settled ? number(x.policyValue) : 'not settled', settled ? number(x.standardError) : '', number(x.fixedPointValue), settled ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
+    rows.push(['logged return, completed past time limits (check)', number(pc.completedReturn.value), number(pc.completedReturn.standardError), '', `${e.behaviour.episodes} runs`]);
+  }
+  rows.push([pc ? 'logged return (check; cut short at time limits)' : 'logged return [baseline]', number(e.behaviour.value), number(e.behaviour.standardError), '', `${e.behaviour.episodes} runs`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
     `Values are the ${sense}, discount ${s.discount}.`,
-    `${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} episodes; J averaged over ${s.startStates} start states; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}.`,
+    `${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} runs; J averaged over ${s.startStates} start states; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}.`,
     '',
     table(rows),
     '',
     '± s.e. covers start-state sampling only; it is not a confidence interval for the fit.',
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: its fit did not converge, so no value is reported for it. ${p.message}`),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
-    ...(e.behaviour.largestTruncationWeight > 1e-3 ? [`Logged episodes are short for this discount: up to ${(100 * e.behaviour.largestTruncationWeight).toFixed(1)} % of the return's weight lies beyond their end, so the logged value is biased toward zero.`] : []),
+    pc ? `Baseline: today's controller modelled from the log (offset ${pc.model.offset.map(number).join(', ')}; dither ${pc.model.std.map(number).join(', ')}) and evaluated like the candidates.`
+      : `Baseline: the logged return, because ${e.presentControllerReason}.`,
+    ...(e.behaviour.largestTruncationWeight > 1e-3 ? [`Logged runs are short for this discount: up to ${(100 * e.behaviour.largestTruncationWeight).toFixed(1)} % of the return's weight lies beyond their end, so the logged return is biased toward zero${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),
     '',
   ];

@@ -12,35 +12,35 @@ import { formatAssessment } from './assessmentFormat';
 import { evaluateProjectFile } from './evaluateProjectFile';
 import { exitStatusOf } from './exitStatus';
 import { createTerminalProgress } from './terminalProgress';
+import { destinationRefusal } from './reportDestination';
+import { processTerminal, type Terminal } from './terminal';
 
 export interface ReportCommandOptions extends AssessmentOverrides {
   /** Where to write the HTML; default "<project name>-report.html" in the working folder. */
   out?: string;
   /** Clock for the time stamps (tests pass a fixed one). */
   now?: () => Date;
+  terminal?: Terminal;
 }
 
 export async function runReportCommand(projectPath: string, options: ReportCommandOptions = {}): Promise<number> {
   const now = options.now ?? (() => new Date());
-  const progress = createTerminalProgress();
-  const result = await evaluateProjectFile(projectPath, { sensitivity: true, ...options }, now, progress).finally(() => progress.done());
-  if (!result.ok) return fail(result.failure.message, result.failure.exitCode);
-  const { project, imported, evaluation, assessment } = result.run;
-  const input = reportInputFrom({ project, projectFile: basename(projectPath), evaluation, assessment, data: imported, generatedAt: now() });
-  const html = renderReport(input);
+  const terminal = options.terminal ?? processTerminal;
+  const fail = (message: string, code = 1): number => (terminal.err(`${message}\n`), code);
   const out = resolve(options.out ?? `${basename(projectPath).replace(/\.spcritic$/i, '')}-report.html`);
+  const progress = createTerminalProgress();
+  const result = await evaluateProjectFile(projectPath, { sensitivity: true, ...options }, now, progress, (files) => destinationRefusal(out, files)).finally(() => progress.done());
+  if (!result.ok) return fail(result.failure.message, result.failure.exitCode);
+  const { project, imported, evaluation, assessment, retuneMaps } = result.run;
+  const input = reportInputFrom({ project, projectFile: basename(projectPath), evaluation, assessment, retuneMaps, data: imported, generatedAt: now() });
+  const html = renderReport(input);
   try {
     await writeFile(out, html, 'utf8');
   } catch (e) {
     return fail(`Cannot write the report to ${out}: ${(e as Error).message}`);
   }
-  if (assessment.ok) process.stdout.write(formatAssessment(assessment.value));
-  else process.stderr.write(`The report has no intervals or diagnostics: ${input.assessmentProblems.join('; ')}\n`);
-  process.stdout.write(`Report written to ${out}\n`);
+  if (assessment.ok) terminal.out(formatAssessment(assessment.value));
+  else terminal.err(`The report has no intervals or diagnostics: ${input.assessmentProblems.join('; ')}\n`);
+  terminal.out(`Report written to ${out}\n`);
   return exitStatusOf(evaluation);
-}
-
-function fail(message: string, code = 1): number {
-  process.stderr.write(`${message}\n`);
-  return code;
 }

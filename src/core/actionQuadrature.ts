@@ -8,15 +8,22 @@
  * rule is exact for polynomials of total degree ≤ 2n−1 in each coordinate of z (common
  * practice; Davis & Rabinowitz, "Methods of Numerical Integration", §5.6 on product rules).
  *
- * Bounded policies have independent action dimensions, so the action law is a product of 1-D
- * bounded normals (clipped: point masses at the bounds; truncated: renormalised density), and
+ * Limited policies have independent action dimensions, so the action law is a product of 1-D
+ * bounded normals (clipped: point masses at the limits; truncated: renormalised density), and
  * the rule is the tensor product of the 1-D rules of boundedNormal, which also have n interior
- * nodes exact to degree 2n−1. Their nodes depend on the state through μ(s), so they are rebuilt
- * per state into buffers owned by the quadrature object — nothing is allocated per call.
+ * nodes exact to degree 2n−1. Their nodes depend on the state through μ(s) and through the
+ * limits L(s), U(s) (a rate limit moves them with the previous action; policy/actionLimits.ts),
+ * so they are rebuilt per state into buffers owned by the quadrature object — nothing is
+ * allocated per call. Where the limits collapse (L = U) the dimension is one point of weight 1.
+ *
+ * Exactness for what it integrates: at a given state the rule sees only the numbers μ(s), σ,
+ * L(s), U(s), so a piecewise-linear mean or moving limits change where the nodes sit, never the
+ * degree to which the rule is exact in the action (test/core/policy/formQuadrature.test.ts checks
+ * this against a brute-force fine rule).
  *
  * Shapes: state read from state[stateOffset .. stateOffset+ds); points: count×m row-major.
  */
-import { policyMean, type GaussianPolicy } from './policy';
+import { hasActionLimits, limitsAtState, policyMean, PolicyError, type GaussianPolicy } from './policy';
 import { MAX_GAUSS_HERMITE_NODES, standardNormalRule } from './quadrature/gaussHermite';
 import { createBoundedNormalQuadrature, MAX_BOUNDED_NORMAL_NODES, type BoundedNormalQuadrature } from './quadrature/boundedNormal';
 
@@ -42,7 +49,7 @@ export function createActionQuadrature(policy: GaussianPolicy, nodesPerDimension
   if (!Number.isInteger(m) || m < 1 || m > MAX_ACTION_DIM) {
     throw new RangeError(`action quadrature: actionDim must be 1 to ${MAX_ACTION_DIM}, got ${m}`);
   }
-  return policy.bounds ? boundedQuadrature(policy, nodesPerDimension) : unboundedQuadrature(policy, nodesPerDimension);
+  return hasActionLimits(policy) ? boundedQuadrature(policy, nodesPerDimension) : unboundedQuadrature(policy, nodesPerDimension);
 }
 
 /** a = μ(s) + L z over the tensor Gauss–Hermite grid; the offsets L z are formed once. */
@@ -83,7 +90,7 @@ function unboundedQuadrature(policy: GaussianPolicy, n: number): ActionQuadratur
 
 /** Tensor product of per-dimension bounded-normal rules, rebuilt per state in owned buffers. */
 function boundedQuadrature(policy: GaussianPolicy, n: number): ActionQuadrature {
-  const m = policy.actionDim, bounds = policy.bounds!;
+  const m = policy.actionDim, limits = limitsAtState(policy);
   const rules: BoundedNormalQuadrature[] = [], nodes: Float64Array[] = [], nodeWeights: Float64Array[] = [];
   for (let i = 0; i < m; i++) {
     rules.push(createBoundedNormalQuadrature(n));
@@ -98,16 +105,29 @@ function boundedQuadrature(policy: GaussianPolicy, n: number): ActionQuadrature 
     at(state, stateOffset, points, weights) {
       checkCall(policy, state, stateOffset, points, weights, maxPoints);
       meanAt(policy, state, stateOffset, mean);
+      const mode = limits.at(state, stateOffset)!;
       let total = 1;
       for (let i = 0; i < m; i++) {
-        const std = policy.covarianceFactor[i * m + i];
-        counts[i] = rules[i].fill(mean[i], std, bounds.lo[i], bounds.hi[i], bounds.mode, nodes[i], nodeWeights[i]);
+        counts[i] = fillDimension(rules[i], mean[i], policy.covarianceFactor[i * m + i], limits.lo[i], limits.hi[i], mode, nodes[i], nodeWeights[i]);
         total *= counts[i];
       }
       writeTensorProduct(m, total, counts, digit, nodes, nodeWeights, points, weights);
       return total;
     },
   };
+}
+
+/** One dimension's rule; limits that collapsed onto one value (L = U) give that value with weight 1. */
+function fillDimension(
+  rule: BoundedNormalQuadrature, mean: number, std: number, lo: number, hi: number, mode: 'clip' | 'truncate',
+  nodes: Float64Array, weights: Float64Array,
+): number {
+  if (lo === hi) {
+    nodes[0] = lo;
+    weights[0] = 1;
+    return 1;
+  }
+  return rule.fill(mean, std, lo, hi, mode, nodes, weights);
 }
 
 /** Row j of the product grid takes node digit[i] of dimension i (first dimension fastest). */
@@ -131,7 +151,8 @@ function meanAt(policy: GaussianPolicy, state: ArrayLike<number>, stateOffset: n
   policyMean(policy, state, mean, stateOffset, 0);
   for (let i = 0; i < policy.actionDim; i++) {
     if (!Number.isFinite(mean[i])) {
-      throw new RangeError(`action quadrature: policy mean of action ${i + 1} is ${mean[i]} at the state starting at index ${stateOffset}`);
+      // A candidate whose offset or gains overflow at a logged state: the user's input, so a PolicyError (exit 1), not a bug.
+      throw new PolicyError(`the candidate's mean action ${i + 1} is ${mean[i]} at a state of the data (its offset or gains are too large for the states; check their units)`);
     }
   }
 }
@@ -167,7 +188,7 @@ export function quadratureNodesAt(policy: GaussianPolicy, state: ArrayLike<numbe
 export function expectUnderPolicy(
   policy: GaussianPolicy, state: ArrayLike<number>, f: (action: Float64Array) => number, nodesPerDimension: number,
 ): { value: number; errorEstimate: number; points: number } {
-  const largest = policy.bounds ? MAX_BOUNDED_NORMAL_NODES : MAX_GAUSS_HERMITE_NODES;
+  const largest = hasActionLimits(policy) ? MAX_BOUNDED_NORMAL_NODES : MAX_GAUSS_HERMITE_NODES;
   const n = nodesPerDimension;
   const reference = n * 2 <= largest ? n * 2 : Math.ceil(n / 2);
   const coarse = expectWithRule(policy, state, f, n);

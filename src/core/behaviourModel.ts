@@ -9,12 +9,28 @@
  * coefficients as regressing on [1, s] but keeps the normal equations well conditioned when
  * levels sit far from zero (e.g. 350 K ± 2 K).
  *
+ *
+ * Actuator limits: where the log shows an action saturating (loggedActionLimits.ts), that action's
+ * logged values are clipped, and least squares on them is biased toward zero slope and too small a
+ * spread. Its offset, gain and std are then the censored-normal maximum-likelihood fit (the Tobit
+ * model, censoredRegression.ts; started from least squares), the model carries the limits as a clip
+ * (`bounds`), and the noise is taken as independent across actions (a clip needs independent noise;
+ * policy.ts), so `covariance` is diagonal. A policy built from `behaviourPolicySpec(model)` then
+ * reproduces the logged actions' law, limits included — the candidate "like the logged controller".
+ * R² stays that of least squares on the logged values.
+ *
  * Shapes: states n×ds row-major, actions n×m row-major; gain m×ds.
  */
+import { CensoredRegressionError, fitCensoredRegression } from './censoredRegression';
 import { cholesky, choleskySolve, SingularMatrixError } from './linalg/dense';
+import { hasLimits, loggedActionLimits, type LoggedActionLimits } from './loggedActionLimits';
 import type { GaussianPolicySpec } from './policy';
 
 export interface BehaviourModel extends Required<Pick<GaussianPolicySpec, 'offset' | 'gain' | 'std' | 'covariance'>> {
+  /** The actuator limits seen in the log (±Infinity where none). */
+  limits: LoggedActionLimits;
+  /** The same limits as a clip, present only when some limit is seen; ready for a GaussianPolicySpec. */
+  bounds?: { lo: number[]; hi: number[]; mode: 'clip' };
   /** Coefficient of determination per action, 1 − SS_res/SS_tot. */
   rSquared: number[];
   offsetStandardError: number[]; // m
@@ -71,7 +87,58 @@ export function fitBehaviourModel(states: Float64Array, actions: Float64Array, n
     for (let p = 0; p < ds; p++) offset[j] -= gain[j * ds + p] * sMean[p];
   }
   const { covariance, rSquared } = residualMoments(states, actions, n, ds, m, offset, gain, aMean, dof);
-  return assembleModel({ n, ds, m, dof, offset, gain, covariance, rSquared, factor, sMean });
+  const model = assembleModel({ n, ds, m, dof, offset, gain, covariance, rSquared, factor, sMean });
+  const limits = loggedActionLimits(actions, n, m);
+  return hasLimits(limits) ? censoredModel(model, limits, states, actions, sMean) : { ...model, limits };
+}
+
+function censoredFit(x: Float64Array, y: Float64Array, n: number, k: number, limits: LoggedActionLimits, j: number, start: { coefficients: number[]; sigma: number }) {
+  try {
+    return fitCensoredRegression(x, y, n, k, limits.lo[j], limits.hi[j], start);
+  } catch (error) {
+    if (!(error instanceof CensoredRegressionError)) throw error;
+    throw new BehaviourModelError(`action ${j + 1} saturates at its limits in the log and ${error.message.replace(/^censored regression: /, 'its clipped fit failed: ')}`);
+  }
+}
+
+/** The policy specification of the fitted behaviour: clipped at the logged limits when there are any. */
+export function behaviourPolicySpec(model: BehaviourModel): GaussianPolicySpec {
+  return model.bounds
+    ? { offset: model.offset, gain: model.gain, std: model.std, bounds: model.bounds }
+    : { offset: model.offset, gain: model.gain, covariance: model.covariance };
+}
+
+/** Refit each limited action by censored maximum likelihood on x = [1, s − s̄]; independent noise. */
+function censoredModel(ols: Omit<BehaviourModel, 'limits'>, limits: LoggedActionLimits, states: Float64Array, actions: Float64Array, sMean: Float64Array): BehaviourModel {
+  const n = ols.count, ds = sMean.length, m = ols.offset.length, k = ds + 1;
+  const x = new Float64Array(n * k), y = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    x[i * k] = 1;
+    for (let p = 0; p < ds; p++) x[i * k + 1 + p] = states[i * ds + p] - sMean[p];
+  }
+  const model = structuredClone({ ...ols, limits });
+  for (let j = 0; j < m; j++) {
+    if (!Number.isFinite(limits.lo[j]) && !Number.isFinite(limits.hi[j])) continue;
+    for (let i = 0; i < n; i++) y[i] = actions[i * m + j];
+    const g = ols.gain[j];
+    const centredOffset = ols.offset[j] + g.reduce((s, v, p) => s + v * sMean[p], 0);
+    const fit = censoredFit(x, y, n, k, limits, j, { coefficients: [centredOffset, ...g], sigma: ols.std[j] });
+    const c = fit.coefficients, cov = fit.covariance, q = k + 1;
+    model.gain[j] = Array.from(c.subarray(1));
+    model.offset[j] = c[0] - model.gain[j].reduce((s, v, p) => s + v * sMean[p], 0);
+    model.std[j] = fit.sigma;
+    model.gainStandardError[j] = model.gain[j].map((_, p) => Math.sqrt(cov[(1 + p) * q + 1 + p]));
+    // Var(β0 − gᵀs̄) = Var β0 − 2 s̄ᵀCov(g, β0) + s̄ᵀ Cov(g) s̄.
+    let variance = cov[0];
+    for (let p = 0; p < ds; p++) {
+      variance -= 2 * sMean[p] * cov[(1 + p) * q];
+      for (let r = 0; r < ds; r++) variance += sMean[p] * cov[(1 + p) * q + 1 + r] * sMean[r];
+    }
+    model.offsetStandardError[j] = Math.sqrt(Math.max(0, variance));
+  }
+  model.covariance = model.std.map((s, a) => model.std.map((_, b) => (a === b ? s * s : 0)));
+  model.bounds = { lo: [...limits.lo], hi: [...limits.hi], mode: 'clip' };
+  return model;
 }
 
 function stateScatterFactor(sss: Float64Array, ds: number): Float64Array {
@@ -128,7 +195,7 @@ interface FittedParts {
   factor: Float64Array; sMean: Float64Array;
 }
 
-function assembleModel(f: FittedParts): BehaviourModel {
+function assembleModel(f: FittedParts): Omit<BehaviourModel, 'limits'> {
   const { ds, m } = f;
   // (XᵀX)⁻¹ for X = [1, s]: the slope block is S⁻¹ (S the centred scatter), and the intercept
   // entry is 1/n + s̄ᵀ S⁻¹ s̄ (partitioned inverse; Greene §3.5).

@@ -87,3 +87,14 @@ export const CONFIDENCE_LEVEL = { default: 0.9, min: 0.5, below: 1 } as const;
 export function horizonSteps(discount: number): number {
   return 1 / (1 - discount);
 }
+
+/**
+ * A reward/cost expression (src/data/expressionSyntax.ts): a plant's formula is a few terms over a
+ * few columns, and these bounds are two orders of magnitude above that while keeping the recursive
+ * parser and the column-wise evaluation (one n-long array per operation) far from any stack or
+ * memory limit (ours). Characters of its text; nesting of parentheses, functions, signs and powers;
+ * operations (operators and function calls) in all.
+ */
+export const MAX_EXPRESSION_LENGTH = 2000;
+export const MAX_EXPRESSION_DEPTH = 40;
+export const MAX_EXPRESSION_OPERATIONS = 200;

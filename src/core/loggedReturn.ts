@@ -5,6 +5,16 @@
  *
  * An episode that ends without a terminal state is truncated: the part of the return after its last
  * step, γ^T·V(s_T), is missing. The largest such weight γ^T is reported so the reader can judge it.
+ *
+ * The completed return puts that part back with a fitted value of the logged controller, V̂^b,
+ * at each truncated episode's last state (the bootstrapped return of time-limited episodes;
+ * Pardo et al., "Time limits in reinforcement learning", ICML 2018, §3; Sutton & Barto §7.1 for the
+ * n-step return G_{0:T} = Σ_{t<T} γ^t r_t + γ^T V(s_T)):
+ *   G_k^completed = Σ_{t<T_k} γ^t r_t + γ^{T_k} V̂^b(s_{T_k})   (the tail is 0 after a terminal state).
+ * V̂^b may come from any fit (linear FQE of the fitted behaviour model, a network); with a linear
+ * fit V̂^b(s) = ξ(s)ᵀw, so a bootstrap resample only swaps w (completedReturnOfResample). Its
+ * standard error over episodes holds V̂^b fixed: it covers the sampling of the episodes, not the
+ * error of V̂^b, which only the tails' weight γ^T carries (tailShare says how much that is).
  */
 import type { TransitionSet } from './transitions';
 
@@ -35,6 +45,70 @@ export function loggedDiscountedReturn(data: TransitionSet, discount: number): L
   for (let k = 0; k < e; k++) if (!endsTerminally[k]) largestTruncationWeight = Math.max(largestTruncationWeight, weight[k]);
   const { mean, standardError } = meanAndStandardError(perEpisode);
   return { value: mean, standardError, episodes: e, largestTruncationWeight, perEpisode };
+}
+
+/** Where each episode ends: its last next state and the weight of the value beyond it. */
+export interface EpisodeEnds {
+  readonly finalStates: Float64Array; // e×ds: s_T, the next state of each episode's last transition (0 for an empty episode)
+  /** γ^T for an episode that ends on a time limit; 0 after a terminal state or for an episode without transitions. */
+  readonly tailWeights: Float64Array; // e
+}
+
+export function episodeEnds(data: TransitionSet, discount: number): EpisodeEnds {
+  const e = data.episodeCount, ds = data.stateDim;
+  const finalStates = new Float64Array(e * ds), tailWeights = new Float64Array(e), last = new Int32Array(e).fill(-1), steps = new Int32Array(e);
+  for (let i = 0; i < data.count; i++) {
+    last[data.episode[i]] = i;
+    steps[data.episode[i]]++;
+  }
+  for (let k = 0; k < e; k++) {
+    const i = last[k];
+    if (i < 0) continue;
+    finalStates.set(data.nextStates.subarray(i * ds, (i + 1) * ds), k * ds);
+    tailWeights[k] = data.terminal[i] ? 0 : discount ** steps[k];
+  }
+  return { finalStates, tailWeights };
+}
+
+export interface CompletedReturn extends Omit<LoggedReturn, 'largestTruncationWeight'> {
+  /** Mean |γ^T V̂(s_T)| over mean |G^completed|: the share of the value that rests on V̂ rather than on logged rewards. */
+  tailShare: number;
+}
+
+/** The logged return completed by γ^T·V̂(s_T) per time-limited episode. finalStateValues: e, V̂ at ends.finalStates. */
+export function completedLoggedReturn(logged: LoggedReturn, ends: EpisodeEnds, finalStateValues: ArrayLike<number>): CompletedReturn {
+  const e = logged.episodes;
+  if (ends.tailWeights.length !== e || finalStateValues.length !== e) {
+    throw new RangeError(`completed return: expected one end and one final value per episode (${e}), got ${ends.tailWeights.length} and ${finalStateValues.length}`);
+  }
+  const perEpisode = new Float64Array(e);
+  let tails = 0, totals = 0;
+  for (let k = 0; k < e; k++) {
+    const tail = ends.tailWeights[k] === 0 ? 0 : ends.tailWeights[k] * finalStateValues[k];
+    perEpisode[k] = logged.perEpisode[k] + tail;
+    tails += Math.abs(tail);
+    totals += Math.abs(perEpisode[k]);
+  }
+  const { mean, standardError } = meanAndStandardError(perEpisode);
+  return { value: mean, standardError, episodes: e, perEpisode, tailShare: totals > 0 ? tails / totals : 0 };
+}
+
+/**
+ * The completed return of a bootstrap resample: Σ_k c_k (G_k + γ^{T_k} V̂*(s_{T_k})) / Σ_k c_k, with
+ * V̂* refitted on the resample (for a linear fit, finalStateValues = ξ(s_T)ᵀw*). All arrays: e.
+ */
+export function completedReturnOfResample(
+  truncated: ArrayLike<number>, tailWeights: ArrayLike<number>, finalStateValues: ArrayLike<number>, multiplicities: ArrayLike<number>,
+): number {
+  let total = 0, count = 0;
+  for (let k = 0; k < multiplicities.length; k++) {
+    const c = multiplicities[k];
+    if (c === 0) continue;
+    total += c * (truncated[k] + (tailWeights[k] === 0 ? 0 : tailWeights[k] * finalStateValues[k]));
+    count += c;
+  }
+  if (!(count > 0)) throw new RangeError('completed return: the resample holds no episode');
+  return total / count;
 }
 
 /** Sample mean and its standard error s/√n (n − 1 in the variance); SE is 0 for fewer than 2 values. */

@@ -27,7 +27,7 @@
  *   v = G x + (offset + G x_sp − u_sp) + e,  so  K = −G,  d = offset + G·x_sp − u_sp.
  * The policy is centred exactly when offset = u_sp − G·x_sp.
  */
-import type { GaussianPolicy } from './policy';
+import { notAffineReason, type GaussianPolicy } from './policy';
 import type { ActionValueFunction } from './actionValue';
 import { multiply, solve, transpose } from './linalg/dense';
 import { LyapunovStabilityError, solveDiscreteLyapunov } from './linalg/lyapunov';
@@ -149,9 +149,9 @@ export function deviationFeedback(policy: GaussianPolicy, point: OperatingPoint)
   if (point.state.length !== n || point.action.length !== m) {
     throw new LqModelError(`operating point: expected ${n} state and ${m} action setpoints, got ${point.state.length} and ${point.action.length}`);
   }
-  const b = policy.bounds;
-  if (b && (b.lo.some(Number.isFinite) || b.hi.some(Number.isFinite))) {
-    throw new LqModelError('policy bounds: the linear-quadratic closed form needs an unbounded actuator; a clipped or truncated action is not linear-Gaussian');
+  const reason = notAffineReason(policy, 'noLimits');
+  if (reason !== null) {
+    throw new LqModelError(`policy: the linear-quadratic closed form is not applicable (it needs an affine mean and an unbounded actuator): ${reason}`);
   }
   const gx = multiply(policy.gain, point.state, m, n, 1);
   const l = policy.covarianceFactor;

@@ -17,8 +17,17 @@ export interface TransitionSet {
   /** Episode of each transition, 0-based, in file order. */
   readonly episode: Int32Array; // n
   readonly episodeCount: number; // e
-  /** First state of each episode (the start-state distribution for J). */
-  readonly startStates: Float64Array; // e×ds
+  /**
+   * The start-state distribution for J: the first state of each episode whose first row is in the
+   * data (k ≤ e rows; an episode whose first row was excluded has no start state).
+   */
+  readonly startStates: Float64Array; // k×ds
+  /**
+   * Episode of each start state (k), when some episode has none; absent means start state k is
+   * episode k's (k = e). A bootstrap that resamples starts with their episodes maps through it
+   * (bootstrap/startFeatures.ts, startMultiplicities).
+   */
+  readonly startEpisode?: Int32Array; // k
   /** 1-based line number in the source file of the row each transition starts at (header = line 1). */
   readonly sourceLine: Int32Array; // n
 }

@@ -7,7 +7,7 @@
 import type { ColumnRoles } from '../project/schema';
 import { importProblem, type ImportProblem } from './importProblem';
 import type { ColumnKind, ColumnRequest } from './columnReader';
-import { suggestionFor } from './closestName';
+import { suggestionFor } from '../core/closestName';
 import { ExpressionError } from './expressionError';
 import { expressionColumns, parseExpression, type ExpressionNode } from './expressionSyntax';
 
@@ -39,7 +39,11 @@ export function planColumns(header: readonly string[], roles: ColumnRoles, fileN
     requests.set(`${kind}:${name}`, { name, field: positions[0], kind });
     used.set(name, [...(used.get(name) ?? []), role]);
   };
-  roles.states.forEach((s, i) => use(s.column, 'number', 'state', `state ${i + 1}`));
+  const derived = roles.derived ?? [];
+  planDerived(roles, header, use, problems, where);
+  roles.states.forEach((s, i) => {
+    if (!derived.some((d) => d.name === s.column)) use(s.column, 'number', 'state', `state ${i + 1}`);
+  });
   roles.actions.forEach((a, i) => use(a.column, 'number', 'action', `action ${i + 1}`));
   const rewardExpression = planReward(roles, header, fileName, use, problems, decimalMark);
   planNextState(roles, use, problems, fileName);
@@ -49,6 +53,22 @@ export function planColumns(header: readonly string[], roles: ColumnRoles, fileN
   if (roles.terminal !== undefined) use(roles.terminal, 'flag', 'terminal', 'terminal column');
   if (problems.length > 0) return { problems };
   return { plan: { requests: [...requests.values()], rewardExpression, roles: used, warnings: duplicateWarnings(fields, used, where) }, problems };
+}
+
+/** Derived states read file columns (their sources) and must not share a name with one. */
+function planDerived(roles: ColumnRoles, header: readonly string[], use: Use, problems: ImportProblem[], where: string): void {
+  (roles.derived ?? []).forEach((d, i) => {
+    if (header.includes(d.name)) {
+      problems.push(importProblem('derived-name-clash', where, `the derived state "${d.name}" (columns.derived[${i}]) has the name of a column in the file; give it a name of its own`));
+    }
+    const setting = `derived state "${d.name}"`;
+    if (d.kind === 'errorIntegral') {
+      use(d.measurement, 'number', 'derived-state input', `${setting}, measurement`);
+      if (typeof d.setpoint === 'string') use(d.setpoint, 'number', 'derived-state input', `${setting}, setpoint`);
+    } else {
+      use(d.source, 'number', 'derived-state input', `${setting}, source`);
+    }
+  });
 }
 
 function fieldPositions(header: readonly string[]): Map<string, number[]> {

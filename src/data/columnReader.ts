@@ -1,16 +1,18 @@
 /**
- * One streaming pass over the CSV text: papaparse hands over one record at a time (RFC 4180
- * quoting, CRLF or LF) and only the requested columns are kept, as Float64Arrays. No per-row
- * object survives the callback, so memory grows with (rows × requested columns × 8 bytes).
+ * One streaming pass over the data records (csvScanner.ts): only the requested columns are kept,
+ * as Float64Arrays sized from the file's line count, so memory grows with (rows × requested
+ * columns × 8 bytes) and nothing is allocated per row or per unused cell.
  *
- * Every record keeps its slot (NaN where a cell could not be read) so that record r is file
- * line r + 2 throughout the import; problems go to a RowProblems log.
+ * Every record keeps its slot (NaN where a cell could not be read) so that record r is file line
+ * r + 2 throughout the import; problems go to a RowProblems log.
  */
-import Papa from 'papaparse';
-import { GrowableColumn } from './growableColumn';
-import { numberOrNaN, readFlag, readNumber, shorten, type CellReading, type DecimalMark } from './numericCell';
-import { readTimestamp, TIMESTAMP_FORMS } from './timestampCell';
+import { isBlank } from './cellText';
+import { ColumnSink } from './columnSink';
 import type { Delimiter } from './csvDialect';
+import { CsvScanner, recordBound } from './csvScanner';
+import { BOUNDS, plainRecord, SKIP, type PlainRecordTarget } from './plainRecord';
+import type { DecimalMark } from './numericCell';
+import { formatCount } from './reportFormat';
 import type { RowProblems } from './rowProblems';
 
 export type ColumnKind = 'number' | 'flag' | 'label' | 'timestamp';
@@ -33,6 +35,8 @@ export interface TableColumns {
   readonly labels: Map<string, { codes: Float64Array; values: string[] }>;
   /** Timestamp columns in seconds under each day/month reading (NaN where unreadable). */
   readonly timestamps: Map<string, TimestampColumn>;
+  /** Line of text (1-based, header = 1) where the last record with content ends; a quoted line break counts. */
+  readonly lastTextLine: number;
 }
 
 export interface TimestampColumn {
@@ -42,139 +46,117 @@ export interface TimestampColumn {
   readonly oneOrderOnly: Map<number, string>;
 }
 
-interface Sink {
-  request: ColumnRequest;
-  values: GrowableColumn;
-  alternate?: GrowableColumn; // month-first reading of a timestamp
-  codes?: Map<string, number>;
-  oneOrderOnly?: Map<number, string>;
+/** The file's bytes and where its data records start (after the header's line break). */
+export interface DataBytes {
+  readonly bytes: Uint8Array;
+  readonly start: number;
+  /** Physical line (1-based) of the first data record. */
+  readonly firstLine: number;
 }
 
+/** `fastPath` false reads every record the general way (for the test that the two agree). */
 export function readColumns(
-  text: string, delimiter: Delimiter, decimalMark: DecimalMark, fieldCount: number,
-  requests: readonly ColumnRequest[], problems: RowProblems,
+  data: DataBytes, delimiter: Delimiter, decimalMark: DecimalMark, fieldCount: number,
+  requests: readonly ColumnRequest[], problems: RowProblems, fastPath = true,
 ): TableColumns {
-  const reader = new RecordReader(requests, decimalMark, fieldCount, problems);
-  let record = -2; // incremented before use: the header is record −1
-  Papa.parse<string[]>(text, {
-    delimiter,
-    skipEmptyLines: false,
-    step: (results) => {
-      if (++record >= 0) reader.accept(record, results.data, results.errors);
-    },
-  });
-  return reader.finish();
-}
-
-/** Takes records one at a time into the sinks; blank lines count as bad only when content follows. */
-class RecordReader {
-  private readonly sinks: Sink[];
-  private readonly blanks: number[] = [];
-  private lastContent = -1;
-
-  constructor(
-    requests: readonly ColumnRequest[], private readonly decimalMark: DecimalMark,
-    private readonly fieldCount: number, private readonly problems: RowProblems,
-  ) {
-    this.sinks = requests.map((request) => ({
-      request,
-      values: new GrowableColumn(),
-      alternate: request.kind === 'timestamp' ? new GrowableColumn() : undefined,
-      codes: request.kind === 'label' ? new Map() : undefined,
-      oneOrderOnly: request.kind === 'timestamp' ? new Map() : undefined,
-    }));
-  }
-
-  accept(record: number, row: string[], errors: readonly { code: string }[]): void {
-    const { fieldCount, problems } = this;
-    if (row.length === 1 && row[0].trim() === '' && errors.length === 0) {
-      this.blanks.push(record);
-      pushMissing(this.sinks);
-      return;
+  const { bytes } = data;
+  const capacity = recordBound(bytes, data.start);
+  const sinks = requests.map((request) => new ColumnSink(request, capacity, decimalMark));
+  const numbers = sinks.filter((s) => s.request.kind === 'number'), others = sinks.filter((s) => s.request.kind !== 'number');
+  const scanner = new CsvScanner(bytes, delimiter.charCodeAt(0), fieldCount, data.start);
+  const fast = fastPath ? plainRecordTarget(bytes, delimiter, decimalMark, fieldCount, numbers, others) : null;
+  const { starts, ends, escaped } = scanner;
+  const blanks: number[] = [];
+  let record = 0, lastContent = -1, lastLine = data.firstLine - 1, position = data.start, line = 1;
+  const lineOffset = data.firstLine - 1;
+  while (position < bytes.length) {
+    const r = record++;
+    const after = fast ? plainRecord(fast, position, r) : -1;
+    if (after >= 0) { // the common case: numbers already in their columns
+      flushBlanks(blanks, fieldCount, problems);
+      lastContent = r;
+      lastLine = line + lineOffset;
+      for (const sink of others) sink.read(bytes, fast!.starts[sink.request.field], fast!.ends[sink.request.field], 0, r, problems);
+      position = after;
+      line++;
+      continue;
     }
-    for (const blank of this.blanks) problems.add(blank, undefined, 'blank-line', `the line is blank; expected ${fieldCount} fields`);
-    this.blanks.length = 0;
-    this.lastContent = record;
-    if (errors.length > 0) {
-      problems.add(record, undefined, 'quote', quoteProblem(errors[0].code));
-      pushMissing(this.sinks);
-    } else if (row.length !== fieldCount) {
-      const which = row.length > fieldCount ? 'too many' : 'too few';
-      problems.add(record, undefined, 'ragged-row', `${which} fields: found ${row.length}, expected ${fieldCount} as in the header`);
-      pushMissing(this.sinks);
-    } else {
-      for (const sink of this.sinks) readCell(sink, row[sink.request.field], record, this.decimalMark, problems);
+    scanner.seek(position, line);
+    scanner.next();
+    position = scanner.offset;
+    line = scanner.nextLine;
+    if (scanner.fieldCount === 1 && scanner.fault === 'none' && isBlank(bytes, starts[0], ends[0])) {
+      blanks.push(r);
+      for (const sink of sinks) sink.missing(r);
+      continue;
     }
+    flushBlanks(blanks, fieldCount, problems);
+    lastContent = r;
+    lastLine = scanner.lastLine + lineOffset;
+    if (!acceptFaultless(scanner, fieldCount, r, problems, lineOffset)) {
+      for (const sink of sinks) sink.missing(r);
+      continue;
+    }
+    for (const sink of sinks) sink.read(bytes, starts[sink.request.field], ends[sink.request.field], escaped[sink.request.field], r, problems);
   }
-
-  /** The columns, cut after the last record with content (blank lines at the end are no rows). */
-  finish(): TableColumns {
-    return collect(this.sinks, this.lastContent + 1);
-  }
+  return collect(sinks, lastContent + 1, lastLine);
 }
 
-function quoteProblem(code: string): string {
-  if (code === 'MissingQuotes') {
-    return 'a field opened with a double quote is never closed, so the rest of the file was read into it; close the quote (RFC 4180 §2.5)';
+/** Blank lines followed by content are bad rows (blank lines at the end of the file are none). */
+function flushBlanks(blanks: number[], fieldCount: number, problems: RowProblems): void {
+  for (const blank of blanks) problems.add(blank, undefined, 'blank-line', `the line is blank; expected ${fieldCount} fields`);
+  blanks.length = 0;
+}
+
+/** The fast path's plan, or null when it cannot apply (a decimal mark that is also the delimiter). */
+function plainRecordTarget(
+  bytes: Uint8Array, delimiter: Delimiter, decimalMark: DecimalMark, fieldCount: number, numbers: ColumnSink[], others: ColumnSink[],
+): PlainRecordTarget | null {
+  if (decimalMark === delimiter) return null;
+  const plan = new Int32Array(fieldCount).fill(SKIP);
+  others.forEach((sink) => { plan[sink.request.field] = BOUNDS; });
+  numbers.forEach((sink, k) => { plan[sink.request.field] = k; });
+  return {
+    bytes, end: bytes.length, delimiter: delimiter.charCodeAt(0), markByte: decimalMark.charCodeAt(0), fieldCount, plan,
+    numbers: numbers.map((sink) => sink.values), starts: new Int32Array(fieldCount), ends: new Int32Array(fieldCount),
+  };
+}
+
+/** False (and the problem logged) when the record has a quote fault or the wrong number of fields. */
+function acceptFaultless(scanner: CsvScanner, fieldCount: number, record: number, problems: RowProblems, lineOffset: number): boolean {
+  const span = scanner.lastLine - scanner.firstLine + 1;
+  const spans = span > 1 ? ` (this row spans ${formatCount(span)} lines of text, ${scanner.firstLine + lineOffset}–${scanner.lastLine + lineOffset})` : '';
+  if (scanner.fault === 'unclosed-quote') {
+    problems.add(record, undefined, 'quote', `a field opened with a double quote is never closed, so the rest of the file — ${formatCount(span)} line${span === 1 ? '' : 's'} of text, to line ${scanner.lastLine + lineOffset} — was read into this one row; close the quote (RFC 4180 §2.5)`);
+    return false;
   }
-  return 'a double quote inside a quoted field must be written twice ("") and a quoted field must end at a delimiter (RFC 4180 §2.7)';
-}
-
-function pushMissing(sinks: Sink[]): void {
-  for (const sink of sinks) {
-    sink.values.push(sink.request.kind === 'label' ? -1 : NaN);
-    sink.alternate?.push(NaN);
+  if (scanner.fault === 'stray-quote') {
+    problems.add(record, undefined, 'quote', `a double quote inside a quoted field must be written twice ("") and a quoted field must end at a delimiter (RFC 4180 §2.7)${spans}`);
+    return false;
   }
-}
-
-function readCell(sink: Sink, cell: string, record: number, decimalMark: DecimalMark, problems: RowProblems): void {
-  const { name, kind } = sink.request;
-  if (kind === 'number') {
-    const value = numberOrNaN(cell, decimalMark);
-    sink.values.push(value);
-    if (Number.isNaN(value)) reportCell(readNumber(cell, decimalMark), record, name, problems);
-  } else if (kind === 'flag') {
-    const reading = readFlag(cell);
-    sink.values.push(reading.ok ? reading.value : NaN);
-    reportCell(reading, record, name, problems);
-  } else if (kind === 'label') {
-    const label = cell.trim();
-    if (label === '') problems.add(record, name, 'empty-episode', 'the episode cell is empty; expected an episode identifier');
-    sink.values.push(label === '' ? -1 : codeOf(sink.codes!, label));
-  } else {
-    const reading = readTimestamp(cell, decimalMark);
-    sink.values.push(reading ? reading.dayFirst : NaN);
-    sink.alternate!.push(reading ? reading.monthFirst : NaN);
-    if (!reading) problems.add(record, name, 'bad-timestamp', `"${shorten(cell.trim())}" is not a timestamp; expected ${TIMESTAMP_FORMS}`);
-    else if (Number.isNaN(reading.dayFirst) && Number.isNaN(reading.monthFirst)) {
-      problems.add(record, name, 'invalid-date', `"${shorten(cell.trim())}" is not a valid date or time (a day, month, hour or minute out of range)`);
-    } else if (Number.isNaN(reading.dayFirst) !== Number.isNaN(reading.monthFirst)) sink.oneOrderOnly!.set(record, cell.trim());
+  if (scanner.fieldCount !== fieldCount) {
+    const which = scanner.fieldCount > fieldCount ? 'too many' : 'too few';
+    problems.add(record, undefined, 'ragged-row', `${which} fields: found ${formatCount(scanner.fieldCount)}, expected ${formatCount(fieldCount)} as in the header${spans}`);
+    return false;
   }
+  return true;
 }
 
-function reportCell(reading: CellReading, record: number, column: string, problems: RowProblems): void {
-  if (!reading.ok) problems.add(record, column, reading.kind, reading.reason);
-}
-
-function codeOf(codes: Map<string, number>, label: string): number {
-  let code = codes.get(label);
-  if (code === undefined) {
-    code = codes.size;
-    codes.set(label, code);
-  }
-  return code;
-}
-
-function collect(sinks: Sink[], recordCount: number): TableColumns {
+function collect(sinks: ColumnSink[], recordCount: number, lastTextLine: number): TableColumns {
   const numbers = new Map<string, Float64Array>();
   const flags = new Map<string, Float64Array>();
   const labels = new Map<string, { codes: Float64Array; values: string[] }>();
   const timestamps = new Map<string, TimestampColumn>();
   for (const { request, values, alternate, codes, oneOrderOnly } of sinks) {
-    const column = values.toArray(recordCount);
+    const column = exactly(values, recordCount);
     if (request.kind === 'label') labels.set(request.name, { codes: column, values: [...codes!.keys()] });
-    else if (request.kind === 'timestamp') timestamps.set(request.name, { dayFirst: column, monthFirst: alternate!.toArray(recordCount), oneOrderOnly: oneOrderOnly! });
+    else if (request.kind === 'timestamp') timestamps.set(request.name, { dayFirst: column, monthFirst: alternate ? exactly(alternate, recordCount) : column, oneOrderOnly: oneOrderOnly! });
     else (request.kind === 'flag' ? flags : numbers).set(request.name, column);
   }
-  return { recordCount, numbers, flags, labels, timestamps };
+  return { recordCount, numbers, flags, labels, timestamps, lastTextLine };
+}
+
+/** The first n values: a view when the column was sized (nearly) right, else a copy that frees the rest. */
+function exactly(values: Float64Array, n: number): Float64Array {
+  return values.length - n <= values.length / 64 ? values.subarray(0, n) : values.slice(0, n);
 }

@@ -43,8 +43,8 @@ export interface SummaryInputs {
   readonly kept: Uint8Array;
   readonly transitionCount: number;
   readonly episodeCount: number;
-  /** Used columns in header order, with their values over all records. */
-  readonly columns: readonly { name: string; roles: string[]; values: Float64Array }[];
+  /** Used columns in header order, with their values over all records (over `include` where given, else `kept`). */
+  readonly columns: readonly { name: string; roles: string[]; values: Float64Array; include?: Uint8Array }[];
   readonly rewards: Float64Array;
   readonly samplingPeriodSeconds: number | null;
   readonly delimiter: Delimiter;
@@ -63,7 +63,7 @@ export function summariseDataset(s: SummaryInputs): DatasetSummary {
     excludedFraction: s.rowCount > 0 ? (s.rowCount - used) / s.rowCount : 0,
     transitionCount: s.transitionCount,
     episodeCount: s.episodeCount,
-    columns: s.columns.map(({ name, roles, values }) => ({ name, roles, ...columnStatistics(values, s.kept) })),
+    columns: s.columns.map(({ name, roles, values, include }) => ({ name, roles, ...columnStatistics(values, include ?? s.kept) })),
     reward: columnStatistics(s.rewards, s.kept),
     samplingPeriodSeconds: s.samplingPeriodSeconds,
     delimiter: s.delimiter,

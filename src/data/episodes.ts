@@ -11,6 +11,11 @@ export interface EpisodeAssignment {
   /** Episode of each record, 0-based in file order; −1 for excluded records. */
   readonly episodeOf: Int32Array; // records
   readonly episodeCount: number;
+  /**
+   * 1 where the episode's first kept row is its true first row, 0 where an excluded row before it
+   * may have been (then that row is mid-episode and no start state; see startIsFirstRow).
+   */
+  readonly hasStart: Uint8Array; // episodes
   /** Sentences for the import report. */
   readonly report: string[];
 }
@@ -20,6 +25,8 @@ export interface EpisodeInputs {
   readonly terminal?: Float64Array; // records; 1 = next state terminal
   readonly labels?: { codes: Float64Array; values: string[] }; // episode column
   readonly timestampsSeconds?: Float64Array; // timeGap column
+  /** True for an excluded record that is a blank line (it holds no row of any episode). */
+  readonly isBlankLine?: (record: number) => boolean;
   readonly lineOf: (record: number) => number;
 }
 
@@ -29,33 +36,67 @@ export function assignEpisodes(rule: ColumnRoles['episode'], inputs: EpisodeInpu
   const { kept } = inputs;
   const episodeOf = new Int32Array(kept.length).fill(-1);
   const startsNew = boundaryRule(rule, inputs);
+  const firstRows: number[] = [];
   let episode = -1, previous = -1, terminalCuts = 0;
   for (let r = 0; r < kept.length; r++) {
     if (!kept[r]) continue;
     const afterTerminal = previous >= 0 && inputs.terminal?.[previous] === 1;
     const ruleCut = previous < 0 || startsNew.cut(previous, r);
     if (afterTerminal && !ruleCut) terminalCuts++;
-    if (ruleCut || afterTerminal) episode++;
+    if (ruleCut || afterTerminal) {
+      episode++;
+      firstRows.push(r);
+    }
     episodeOf[r] = episode;
     previous = r;
   }
+  const hasStart = Uint8Array.from(firstRows, (r) => (startIsFirstRow(r, startsNew, inputs) ? 1 : 0));
   const report = [...startsNew.report(episode + 1)];
   if (terminalCuts > 0) {
     report.push(`${terminalCuts} terminal row${terminalCuts === 1 ? '' : 's'} ended an episode before the episode rule did; the following row starts a new episode.`);
   }
-  return { episodeOf, episodeCount: episode + 1, report };
+  report.push(...lostStartReport(hasStart, firstRows, inputs.lineOf));
+  return { episodeOf, episodeCount: episode + 1, hasStart, report };
+}
+
+/**
+ * Kept record r begins an episode. Its state is a start state only if r is the episode's first
+ * row: true when the record before it (blank lines skipped) is kept — the rule cut between two
+ * kept rows — or is the end of the file's head, or is an excluded row that the rule or a terminal
+ * flag places in another episode. An excluded row whose episode cannot be read (or that belongs
+ * to r's episode) may have been the first row, so r is mid-episode: no start state.
+ */
+function startIsFirstRow(r: number, rule: BoundaryRule, inputs: EpisodeInputs): boolean {
+  for (let q = r - 1; q >= 0; q--) {
+    if (inputs.kept[q]) return true;
+    if (inputs.isBlankLine?.(q)) continue;
+    return inputs.terminal?.[q] === 1 || rule.apart(q, r);
+  }
+  return true;
+}
+
+function lostStartReport(hasStart: Uint8Array, firstRows: readonly number[], lineOf: (r: number) => number): string[] {
+  const lost: number[] = [];
+  hasStart.forEach((h, e) => { if (!h) lost.push(lineOf(firstRows[e])); });
+  if (lost.length === 0) return [];
+  const one = lost.length === 1;
+  const listed = lost.slice(0, LISTED).join(', ') + (lost.length > LISTED ? ` and ${formatCount(lost.length - LISTED)} more` : '');
+  const kept = hasStart.length - lost.length;
+  return [`${plural(lost.length, 'episode')} lost ${one ? 'its' : 'their'} first row to exclusion, so ${one ? 'its' : 'their'} first usable row (line${one ? '' : 's'} ${listed}) is mid-episode and not a start state; the start states are the first rows of the other ${plural(kept, 'episode')}.`];
 }
 
 interface BoundaryRule {
-  /** True when kept record `r` starts a new episode after kept record `previous`. */
+  /** True when kept record `r` starts a new episode after kept record `previous` (counted for the report). */
   cut(previous: number, r: number): boolean;
+  /** True when record q (before r; it may be excluded) is readably in another episode than r. Not counted. */
+  apart(q: number, r: number): boolean;
   report(episodeCount: number): string[];
 }
 
 function boundaryRule(rule: ColumnRoles['episode'], inputs: EpisodeInputs): BoundaryRule {
   if (rule.kind === 'column') return labelRule(rule.column, inputs.labels!, inputs.lineOf);
   if (rule.kind === 'timeGap') return gapRule(rule.column, rule.maxGapSeconds, inputs);
-  return { cut: () => false, report: (count) => [`One episode for the whole file${count > 1 ? `, cut into ${count} by terminal rows` : ''}.`] };
+  return { cut: () => false, apart: () => false, report: (count) => [`One episode for the whole file${count > 1 ? `, cut into ${count} by terminal rows` : ''}.`] };
 }
 
 function labelRule(column: string, labels: { codes: Float64Array; values: string[] }, lineOf: (r: number) => number): BoundaryRule {
@@ -73,6 +114,7 @@ function labelRule(column: string, labels: { codes: Float64Array; values: string
       }
       return true;
     },
+    apart: (q, r) => labels.codes[q] >= 0 && labels.codes[q] !== labels.codes[r],
     report(count) {
       const lines = [`Episodes from column ${column}: ${formatCount(count)} episode${count === 1 ? '' : 's'} (a new episode wherever the value changes).`];
       if (reappearCount > 0) {
@@ -96,6 +138,7 @@ function gapRule(column: string, maxGapSeconds: number | undefined, inputs: Epis
       if (cut) gaps++;
       return cut;
     },
+    apart: (q, r) => t[r] - t[q] > limit,
     report(count) {
       if (Number.isNaN(limit)) return [`Episodes from timestamp gaps in column ${column}: no two adjacent rows have increasing timestamps, so the sampling period is unknown and the file is one episode${count > 1 ? ` (cut into ${count} by terminal rows)` : ''}.`];
       const why = maxGapSeconds === undefined ? `3 × the median sampling period of ${formatSeconds(periodSeconds)}` : 'as set';
@@ -117,7 +160,39 @@ export function medianStepSeconds(t: Float64Array, kept: Uint8Array): number {
     if (kept[r] && kept[r - 1] && step > 0) steps[count++] = step;
   }
   if (count === 0) return NaN;
-  const sorted = steps.subarray(0, count).sort();
-  const mid = sorted.length >> 1;
-  return sorted.length % 2 ? sorted[mid] : (sorted[mid - 1] + sorted[mid]) / 2;
+  const values = steps.subarray(0, count), mid = count >> 1;
+  const upper = selectKth(values, mid);
+  return count % 2 ? upper : (maxBelow(values, mid) + upper) / 2;
+}
+
+/**
+ * The k-th smallest of values (0-based), reordering them so that values[0..k) ≤ values[k]:
+ * Hoare's selection (Hoare 1961, "Algorithm 65: FIND"), O(n) on average, with the middle element
+ * as pivot (the steps of a log are nearly constant, so no order hurts it).
+ */
+function selectKth(values: Float64Array, k: number): number {
+  let lo = 0, hi = values.length - 1;
+  while (lo < hi) {
+    const pivot = values[(lo + hi) >> 1];
+    let i = lo, j = hi;
+    while (i <= j) {
+      while (values[i] < pivot) i++;
+      while (values[j] > pivot) j--;
+      if (i <= j) {
+        const swap = values[i]; values[i] = values[j]; values[j] = swap;
+        i++; j--;
+      }
+    }
+    if (k <= j) hi = j;
+    else if (k >= i) lo = i;
+    else break;
+  }
+  return values[k];
+}
+
+/** The largest of values[0..k) (after selectKth(values, k) these are the k smallest). */
+function maxBelow(values: Float64Array, k: number): number {
+  let best = -Infinity;
+  for (let i = 0; i < k; i++) if (values[i] > best) best = values[i];
+  return best;
 }

@@ -32,7 +32,11 @@ function evaluate(node: ExpressionNode, column: (name: string) => Float64Array, 
         const pick = node.name === 'min' ? Math.min : Math.max;
         return args.reduce((a, b) => map2(a, b, n, pick));
       }
-      if (node.name === 'clamp') return map2(map2(args[0], args[1], n, Math.max), args[2], n, Math.min);
+      if (node.name === 'clamp') {
+        // Crossed limits (lo > hi, possible only when a limit is a column) give NaN, reported per row.
+        const crossed = map2(args[1], args[2], n, (lo, hi) => (lo <= hi ? 0 : NaN));
+        return map2(map2(map2(args[0], args[1], n, Math.max), args[2], n, Math.min), crossed, n, (x, c) => x + c);
+      }
       return map1(args[0], UNARY[node.name]);
     }
   }

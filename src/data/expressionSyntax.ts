@@ -14,8 +14,14 @@
  * is read too and ";" separates function arguments (expressionTokens.ts).
  * Columns: a plain name of letters, digits and "_" (not starting with a digit), or any name in
  * backticks, e.g. `inlet flow (m³/h)`; a backtick inside a quoted name is written twice.
- * Functions: abs(x), exp(x), log(x) (natural), sqrt(x), min(x, y, …), max(x, y, …), clamp(x, lo, hi).
+ * Functions: abs(x), exp(x), log(x) (natural), sqrt(x), min(x, y, …), max(x, y, …), clamp(x, lo, hi);
+ * clamp's limits, when both are constants, must not cross (lo ≤ hi).
+ *
+ * Bounded: at most MAX_EXPRESSION_LENGTH characters, MAX_EXPRESSION_DEPTH levels of nesting and
+ * MAX_EXPRESSION_OPERATIONS operations (src/core/limits.ts); beyond them the expression is
+ * refused with a message, never a stack overflow.
  */
+import { MAX_EXPRESSION_DEPTH, MAX_EXPRESSION_LENGTH, MAX_EXPRESSION_OPERATIONS } from '../core/limits';
 import { ExpressionError } from './expressionError';
 import { tokenize, type Token, type TokenOptions, type TokenType } from './expressionTokens';
 
@@ -38,6 +44,9 @@ const ARITY: Record<FunctionName, { min: number; max: number }> = {
 /** Parse an expression; throws ExpressionError pointing at the offending character. */
 export function parseExpression(source: string, options: TokenOptions = {}): ExpressionNode {
   if (source.trim() === '') throw new ExpressionError('the expression is empty; expected a formula such as -abs(level - 2)', source, 0);
+  if (source.length > MAX_EXPRESSION_LENGTH) {
+    throw new ExpressionError(`the expression is ${source.length} characters long; at most ${MAX_EXPRESSION_LENGTH} are allowed (write a shorter formula)`, source, MAX_EXPRESSION_LENGTH);
+  }
   const parser = new Parser(source, options);
   const tree = parser.expression();
   parser.expectEnd();
@@ -48,6 +57,8 @@ export function parseExpression(source: string, options: TokenOptions = {}): Exp
 class Parser {
   private readonly tokens: Token[];
   private position = 0;
+  private depth = 0;
+  private operations = 0;
 
   constructor(private readonly source: string, options: TokenOptions) {
     this.tokens = tokenize(source, options);
@@ -73,8 +84,29 @@ class Parser {
   private unary(): ExpressionNode {
     if (!this.isOperator('-', '+')) return this.power();
     const op = this.next();
-    const operand = this.unary();
-    return op.text === '-' ? { kind: 'negate', operand, index: op.index } : operand;
+    const operand = this.nested(op, () => this.unary());
+    if (op.text === '+') return operand;
+    this.count(op);
+    return { kind: 'negate', operand, index: op.index };
+  }
+
+  /** Parse one level deeper; refuse nesting beyond MAX_EXPRESSION_DEPTH at `token`. */
+  private nested(token: Token, parse: () => ExpressionNode): ExpressionNode {
+    if (++this.depth > MAX_EXPRESSION_DEPTH) {
+      throw this.error(`the expression nests more than ${MAX_EXPRESSION_DEPTH} levels deep (parentheses, functions, signs and powers); write it flatter`, token);
+    }
+    try {
+      return parse();
+    } finally {
+      this.depth--;
+    }
+  }
+
+  /** Count one operation at `token`; refuse more than MAX_EXPRESSION_OPERATIONS. */
+  private count(token: Token): void {
+    if (++this.operations > MAX_EXPRESSION_OPERATIONS) {
+      throw this.error(`the expression has more than ${MAX_EXPRESSION_OPERATIONS} operations; write a shorter formula`, token);
+    }
   }
 
   private power(): ExpressionNode {
@@ -87,7 +119,7 @@ class Parser {
     const token = this.next();
     if (token.type === 'number') return { kind: 'number', value: Number(token.text), index: token.index };
     if (token.type === '(') {
-      const inner = this.expression();
+      const inner = this.nested(token, () => this.expression());
       this.expect(')', 'a closing parenthesis ")"');
       return inner;
     }
@@ -104,10 +136,11 @@ class Parser {
       throw this.error(`unknown function "${name}"; expected one of ${Object.keys(ARITY).join(', ')}`, nameToken);
     }
     this.next(); // "("
-    const args = [this.expression()];
+    this.count(nameToken);
+    const args = [this.nested(nameToken, () => this.expression())];
     while (this.peek().type === ',') {
       this.next();
-      args.push(this.expression());
+      args.push(this.nested(nameToken, () => this.expression()));
     }
     this.expect(')', 'a closing parenthesis ")" or "," before the next argument');
     const { min, max } = ARITY[name as FunctionName];
@@ -115,12 +148,23 @@ class Parser {
       const wanted = min === max ? `${min} argument${min === 1 ? '' : 's'}` : `at least ${min} arguments`;
       throw this.error(`${name} takes ${wanted}, got ${args.length}`, nameToken);
     }
+    if (name === 'clamp') this.checkClampLimits(args, nameToken);
     return { kind: 'call', name: name as FunctionName, args, index: nameToken.index };
   }
 
+  /** clamp(x, lo, hi) with constant limits lo > hi can only give nonsense: refused here. */
+  private checkClampLimits(args: ExpressionNode[], nameToken: Token): void {
+    const lo = constantValue(args[1]), hi = constantValue(args[2]);
+    if (lo !== undefined && hi !== undefined && !(lo <= hi)) {
+      throw this.error(`clamp's lower limit ${lo} is above its upper limit ${hi}; write clamp(x, lower, upper)`, nameToken);
+    }
+  }
+
   private binary(left: ExpressionNode, right: () => ExpressionNode): ExpressionNode {
-    const operator = this.next().text as BinaryOperator;
-    return { kind: 'binary', operator, left, right: right(), index: left.index };
+    const token = this.next();
+    this.count(token);
+    const operator = token.text as BinaryOperator;
+    return { kind: 'binary', operator, left, right: token.text === '^' ? this.nested(token, right) : right(), index: left.index };
   }
 
   private expect(type: TokenType, what: string): void {
@@ -148,6 +192,21 @@ class Parser {
 
 function describe(token: Token): string {
   return token.type === 'end' ? 'the expression ends too early' : `unexpected "${token.text}"`;
+}
+
+/** The value of a subtree without columns (numbers, signs, operators and functions of numbers), else undefined. */
+export function constantValue(node: ExpressionNode): number | undefined {
+  if (node.kind === 'number') return node.value;
+  if (node.kind === 'negate') {
+    const x = constantValue(node.operand);
+    return x === undefined ? undefined : -x;
+  }
+  if (node.kind === 'binary') {
+    const a = constantValue(node.left), b = constantValue(node.right);
+    if (a === undefined || b === undefined) return undefined;
+    return { '+': a + b, '-': a - b, '*': a * b, '/': a / b, '^': a ** b }[node.operator];
+  }
+  return undefined;
 }
 
 /** Every column the expression reads, each once, with the position of its first use. */

@@ -7,19 +7,23 @@
  * Stages: decode → dialect → header and column plan → one streaming pass over the rows →
  * timestamps and rewards → bad rows (stop, or exclude and list) → episodes → transitions → summary.
  */
-import Papa from 'papaparse';
 import type { ColumnRoles, CsvSettings } from '../project/schema';
 import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
 import type { TransitionSet } from '../core/transitions';
-import { sourceText, type TextEncodingName } from './sourceText';
+import type { TextEncodingName } from './sourceText';
+import { sampleText, sourceBytes } from './sourceBytes';
+import { isBlank } from './cellText';
+import { readHeader } from './csvHeader';
 import { resolveDialect, type Dialect } from './csvDialect';
 import { planColumns, timestampColumnOf, type ColumnPlan } from './columnPlan';
 import { readColumns, type TableColumns } from './columnReader';
 import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
 import { rewardColumn } from './rewardColumn';
-import { assignEpisodes, medianStepSeconds } from './episodes';
+import { assignEpisodes, medianStepSeconds, type EpisodeAssignment, type EpisodeInputs } from './episodes';
+import { computeDerivedStates, withoutFirstRows } from './derivedStates';
+import { plural } from './reportFormat';
 import { buildTransitions } from './transitionBuilder';
 import { constantStateWarnings, summariseDataset, type DatasetSummary } from './datasetSummary';
 import { dialectReport, excludedRows, excludedWarning, rowProblemList, type ExcludedRow } from './importReport';
@@ -42,19 +46,21 @@ export interface ImportedDataset {
 const lineOf = (record: number): number => record + 2;
 
 export function importDataset(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): Result<ImportedDataset> {
-  const decoded = sourceText(source);
-  if (!decoded.ok) return failure(importProblem('not-utf8', fileName, decoded.reason));
-  const text = decoded.text, encoding = { name: decoded.encoding, how: decoded.how };
-  if (text.trim() === '') return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
-  const dialect = resolveDialect(text, csv.delimiter, csv.decimalMark);
-  const header = headerOf(text, dialect);
-  if (header.every((name) => name === '')) {
+  const decoded = sourceBytes(source);
+  if (!decoded.ok) return failure(importProblem(decoded.kind, fileName, decoded.reason));
+  const { bytes, start } = decoded, encoding = { name: decoded.encoding, how: decoded.how };
+  if (isBlank(bytes, start, bytes.length)) return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
+  const dialect = resolveDialect(sampleText(bytes, start), csv.delimiter, csv.decimalMark);
+  const header = readHeader(bytes, start, dialect.delimiter);
+  if (!header.ok) return failure(importProblem('header-too-long', `${fileName}, line 1`, header.reason));
+  if (header.names.every((name) => name === '')) {
     return failure(importProblem('blank-header', `${fileName}, line 1`, 'the first line is blank; expected the header: column names separated by the delimiter'));
   }
-  const { plan, problems: namingProblems } = planColumns(header, columns, fileName, dialect.decimalMark);
+  const { plan, problems: namingProblems } = planColumns(header.names, columns, fileName, dialect.decimalMark);
   if (!plan) return failure(...namingProblems);
   const problems = new RowProblems();
-  const table = readColumns(text, dialect.delimiter, dialect.decimalMark, header.length, plan.requests, problems);
+  const data = { bytes, start: header.dataStart, firstLine: header.firstDataLine };
+  const table = readColumns(data, dialect.delimiter, dialect.decimalMark, header.names.length, plan.requests, problems);
   if (table.recordCount === 0) {
     return failure(importProblem('header-only', `${fileName}, line 2`, 'the file has a header line but no data rows below it'));
   }
@@ -64,11 +70,6 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf, episodeCodes);
   if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf));
   return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding });
-}
-
-function headerOf(text: string, dialect: Dialect): string[] {
-  const first = Papa.parse<string[]>(text, { delimiter: dialect.delimiter, preview: 1 }).data[0] ?? [];
-  return first.map((name) => name.trim());
 }
 
 function settleTimestampColumn(columns: ColumnRoles, table: TableColumns, problems: RowProblems): (SettledTimestamps & { column: string }) | undefined {
@@ -95,14 +96,18 @@ function assemble(s: Stages): Result<ImportedDataset> {
   for (const r of s.problems.badRecords()) kept[r] = 0;
   if (!kept.includes(1)) return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, 'every data row has a problem, so no row is left to import'));
   const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
-  const episodes = assignEpisodes(columns.episode, {
+  const episodeInputs = {
     kept, terminal, lineOf,
     labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
     timestampsSeconds: s.timestamps?.seconds,
-  });
-  const number = (name: string): Float64Array => table.numbers.get(name)!;
+    isBlankLine: (r: number) => s.problems.firstProblem(r)?.problem.kind === 'blank-line',
+  };
+  const derived = derivedStates(s, episodeInputs, assignEpisodes(columns.episode, episodeInputs));
+  const { episodes, derivedValues } = derived;
+  const usedRows = derived.kept;
+  const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
   const { transitions, report } = buildTransitions({
-    kept, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, rewards: s.rewards, terminal, lineOf,
+    kept: usedRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards, terminal, lineOf,
     states: columns.states.map((c) => number(c.column)),
     actions: columns.actions.map((c) => number(c.column)),
     nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
@@ -112,19 +117,56 @@ function assemble(s: Stages): Result<ImportedDataset> {
   if (transitions.count === 0) {
     return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every episode has a single usable row; expected consecutive rows of the same episode (or next-state columns)'));
   }
-  const summary = summarise(s, kept, transitions);
+  const summary = summarise(s, kept, transitions, derivedValues, usedRows);
   const excluded = excludedRows(s.problems, lineOf);
-  const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName)];
-  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding), ...episodes.report, ...report];
+  const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
+  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding), ...episodes.report, ...derived.report, ...report];
   return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount }, warnings);
 }
 
-function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet): DatasetSummary {
-  const used: { name: string; roles: string[]; values: Float64Array; field: number }[] = [];
+/**
+ * Derived states along the episodes (derivedStates.ts). Where one is undefined on an episode's
+ * first row, that row is taken out of the rows that start transitions and the episodes are
+ * assigned again on the rows left (an episode reduced to nothing disappears; the cuts between the
+ * others stay where they were).
+ */
+function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssignment) {
+  const definitions = s.columns.derived ?? [];
+  const stateNames = new Set(s.columns.states.map((c) => c.column));
+  const used = definitions.filter((d) => stateNames.has(d.name));
+  if (used.length === 0) return { episodes, derivedValues: new Map<string, Float64Array>(), kept: inputs.kept, report: [] as string[] };
+  const { values, firstRowUndefined } = computeDerivedStates(used, {
+    kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds,
+  });
+  const report = [`Derived states computed along each episode: ${used.map((d) => `${d.name} (${DERIVED_WORDS[d.kind]})`).join(', ')}.`];
+  if (firstRowUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
+  const { kept, removed } = withoutFirstRows(inputs.kept, episodes.episodeOf);
+  const names = [...firstRowUndefined].join(', ');
+  report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each episode only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
+  // The first row where every derived state is defined is the run's start: a run whose own first row
+  // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
+  const again = assignEpisodes(s.columns.episode, { ...inputs, kept });
+  const hasStart = new Uint8Array(again.episodeCount);
+  for (let r = 0, last = -1; r < kept.length; r++) {
+    if (!kept[r] || again.episodeOf[r] === last) continue;
+    last = again.episodeOf[r];
+    hasStart[last] = episodes.hasStart[episodes.episodeOf[r]];
+  }
+  const lost = (line: string) => /first row to exclusion/.test(line);
+  const episodeReport = [...again.report.filter((line) => !lost(line)), ...episodes.report.filter(lost)];
+  return { episodes: { ...again, hasStart, report: episodeReport }, derivedValues: values, kept, report };
+}
+
+const DERIVED_WORDS = { errorIntegral: 'error integral', filtered: 'first-order lag', previous: 'previous value', difference: 'difference' } as const;
+
+function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet, derived: Map<string, Float64Array>, derivedRows: Uint8Array): DatasetSummary {
+  const used: { name: string; roles: string[]; values: Float64Array; field: number; include?: Uint8Array }[] = [];
   for (const request of s.plan.requests) {
     const values = request.kind === 'number' ? s.table.numbers.get(request.name) : request.kind === 'timestamp' ? s.timestamps?.seconds : undefined;
     if (values) used.push({ name: request.name, roles: s.plan.roles.get(request.name) ?? [], values, field: request.field });
   }
+  let field = Math.max(0, ...s.plan.requests.map((r) => r.field + 1));
+  for (const [name, values] of derived) used.push({ name, roles: ['state', 'derived'], values, field: field++, include: derivedRows });
   used.sort((a, b) => a.field - b.field);
   const decision = s.timestamps?.decision;
   return summariseDataset({

@@ -43,12 +43,21 @@ export function excludedRows(problems: RowProblems, lineOf: (record: number) => 
   });
 }
 
-export function excludedWarning(excluded: readonly ExcludedRow[], rowCount: number, fileName: string): ImportProblem[] {
+/**
+ * The warning that rows were left out. `lastTextLine` is the file's last line of text with a row on
+ * it: when the rows (plus the header) are fewer, some row spans several lines of text (a quoted
+ * line break, or a quote never closed), and the warning says how many lines the rows hold.
+ */
+export function excludedWarning(excluded: readonly ExcludedRow[], rowCount: number, fileName: string, lastTextLine = rowCount + 1): ImportProblem[] {
   if (excluded.length === 0) return [];
   const percent = (100 * excluded.length) / rowCount;
   const first = excluded.slice(0, 5).map((e) => e.line).join(', ');
+  const extraLines = lastTextLine - (rowCount + 1);
+  const spans = extraLines > 0
+    ? `; the file's ${formatCount(lastTextLine)} lines of text hold the header and ${formatCount(rowCount)} rows, so rows span ${formatCount(extraLines)} more lines than one each (a quoted line break or a quote never closed) — see the reasons`
+    : '';
   return [importProblem('rows-excluded', fileName,
-    `${plural(excluded.length, 'row')} of ${formatCount(rowCount)} (${+percent.toPrecision(3)}%) excluded because they could not be used (first at line${excluded.length > 1 ? 's' : ''} ${first}); each is listed with its reason`)];
+    `${plural(excluded.length, 'row')} of ${formatCount(rowCount)} (${+percent.toPrecision(3)}%) excluded because they could not be used (first at line${excluded.length > 1 ? 's' : ''} ${first}); each is listed with its reason${spans}`)];
 }
 
 const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };

@@ -30,6 +30,6 @@ function reportNonFinite(
   for (let r = 0; r < raw.length; r++) {
     if (Number.isFinite(raw[r]) || problems.isBad(r)) continue;
     const values = inputs.map((name) => `${name} = ${numbers.get(name)![r]}`).join(', ');
-    problems.add(r, undefined, 'reward-not-finite', `the ${sense} expression gives ${raw[r]} here (${values}); check for log or sqrt of a negative number and division by zero`);
+    problems.add(r, undefined, 'reward-not-finite', `the ${sense} expression gives ${raw[r]} here (${values}); check for log or sqrt of a negative number, division by zero, and clamp limits that cross (lower above upper)`);
   }
 }

@@ -75,3 +75,28 @@ function decode(b: Uint8Array, encoding: TextEncodingName, how: 'byte-order mark
 function stripByteOrderMark(text: string): string {
   return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 }
+
+/** Offset of the first byte that does not fit the UTF-8 encoding scheme (RFC 3629 §4). */
+export function firstInvalidUtf8Byte(bytes: Uint8Array): number {
+  let i = 0;
+  while (i < bytes.length) {
+    const b = bytes[i];
+    const length = b < 0x80 ? 1 : b >= 0xc2 && b <= 0xdf ? 2 : b >= 0xe0 && b <= 0xef ? 3 : b >= 0xf0 && b <= 0xf4 ? 4 : 0;
+    if (length === 0) return i;
+    for (let k = 1; k < length; k++) {
+      if (i + k >= bytes.length || (bytes[i + k] & 0xc0) !== 0x80) return i;
+    }
+    if (length > 2 && !decodesAlone(bytes.subarray(i, i + length))) return i; // overlong or surrogate
+    i += length;
+  }
+  return Math.max(0, bytes.length - 1);
+}
+
+function decodesAlone(sequence: Uint8Array): boolean {
+  try {
+    new TextDecoder('utf-8', { fatal: true }).decode(sequence);
+    return true;
+  } catch {
+    return false;
+  }
+}

@@ -54,9 +54,12 @@ function daysInMonth(year: number, month: number): number {
   return new Date(Date.UTC(year, month, 0)).getUTCDate();
 }
 
+/** Seconds east of UTC; NaN for an offset outside hours 00–23, minutes 00–59 (RFC 3339 §5.6, time-numoffset). */
 function zoneOffsetSeconds(zone: string | undefined): number {
   if (zone === undefined || zone.toUpperCase() === 'Z') return 0;
   const digits = zone.replace(':', '');
   const sign = digits[0] === '-' ? -1 : 1;
-  return sign * (Number(digits.slice(1, 3)) * 3600 + Number(digits.slice(3, 5)) * 60);
+  const hours = Number(digits.slice(1, 3)), minutes = Number(digits.slice(3, 5));
+  if (hours > 23 || minutes > 59) return NaN;
+  return sign * (hours * 3600 + minutes * 60);
 }

@@ -12,6 +12,8 @@ export interface StepColumns {
   readonly kept: Uint8Array; // records
   readonly episodeOf: Int32Array; // records, −1 where excluded
   readonly episodeCount: number;
+  /** 1 where the episode's first kept row is its true first row (episodes.ts). */
+  readonly hasStart: Uint8Array; // episodes
   readonly states: readonly Float64Array[]; // ds columns over records
   readonly actions: readonly Float64Array[]; // m columns over records
   readonly rewards: Float64Array; // records, already rewards
@@ -23,69 +25,77 @@ export interface StepColumns {
   readonly lineOf: (record: number) => number;
 }
 
-type Successor = number | 'terminal' | 'none';
-
-/** The record holding s' for kept record r, 'terminal', or 'none' (end of episode or broken chain). */
-function successorOf(c: StepColumns, r: number): Successor {
-  if (c.terminal?.[r] === 1) return 'terminal';
-  if (c.nextStates) return r;
-  const next = r + 1;
-  return next < c.kept.length && c.kept[next] && c.episodeOf[next] === c.episodeOf[r] ? next : 'none';
+/**
+ * successor[r] for each record: the record holding s' (itself with next-state columns), −1 for a
+ * terminal row (s' is a copy of s, never used), −2 for no transition (excluded, or the last kept
+ * row of its episode's chain). Returns the transition count.
+ */
+function successors(c: StepColumns, successor: Int32Array): number {
+  const { kept, episodeOf, terminal, nextStates } = c, records = kept.length;
+  let n = 0;
+  for (let r = 0; r < records; r++) {
+    if (!kept[r]) { successor[r] = -2; continue; }
+    let s: number;
+    if (terminal !== undefined && terminal[r] === 1) s = -1;
+    else if (nextStates) s = r;
+    else s = r + 1 < records && kept[r + 1] && episodeOf[r + 1] === episodeOf[r] ? r + 1 : -2;
+    successor[r] = s;
+    if (s !== -2) n++;
+  }
+  return n;
 }
 
 export function buildTransitions(c: StepColumns): { transitions: TransitionSet; report: string[] } {
   const ds = c.states.length, m = c.actions.length, records = c.kept.length;
-  const successor = new Int32Array(records).fill(-2); // −2 no transition, −1 terminal, else record
-  let n = 0;
-  for (let r = 0; r < records; r++) {
-    if (!c.kept[r]) continue;
-    const s = successorOf(c, r);
-    if (s === 'none') continue;
-    successor[r] = s === 'terminal' ? -1 : s;
-    n++;
-  }
-  const t = allocate(n, ds, m, c.episodeCount);
-  let k = 0;
-  const started = new Uint8Array(c.episodeCount);
-  for (let r = 0; r < records; r++) {
-    if (!c.kept[r]) continue;
-    const e = c.episodeOf[r];
-    if (!started[e]) {
-      started[e] = 1;
-      for (let j = 0; j < ds; j++) t.startStates[e * ds + j] = c.states[j][r];
+  const successor = new Int32Array(records);
+  const n = successors(c, successor);
+  const t = allocate(n, ds, m, c.hasStart);
+  const next = c.nextStates ?? c.states;
+  // Row by row in file order: each output array is written once, in order, and each column read in order.
+  for (let r = 0, k = 0; r < records; r++) {
+    const to = successor[r];
+    if (to === -2) continue;
+    const terminal = to === -1, s = terminal ? r : to, nextColumns = terminal ? c.states : next;
+    for (let j = 0; j < ds; j++) {
+      t.states[k * ds + j] = c.states[j][r];
+      t.nextStates[k * ds + j] = nextColumns[j][s];
     }
-    if (successor[r] === -2) continue;
-    writeStep(c, r, successor[r], k, t);
-    k++;
+    for (let j = 0; j < m; j++) t.actions[k * m + j] = c.actions[j][r];
+    t.rewards[k] = c.rewards[r];
+    t.terminal[k] = terminal ? 1 : 0;
+    t.episode[k] = c.episodeOf[r];
+    t.sourceLine[k++] = c.lineOf(r);
   }
+  writeStartStates(c, t.startStates, t.startEpisode);
   const transitions: TransitionSet = {
     count: n, stateDim: ds, actionDim: m, stateNames: [...c.stateNames], actionNames: [...c.actionNames],
-    episodeCount: c.episodeCount, ...t,
+    episodeCount: c.episodeCount, ...t, startEpisode: t.startEpisode.length === c.episodeCount ? undefined : t.startEpisode,
   };
   return { transitions, report: describeSteps(c, transitions) };
 }
 
-function allocate(n: number, ds: number, m: number, e: number) {
+/** The first kept row's state of every episode that has its true first row (c.hasStart). */
+function writeStartStates(c: StepColumns, startStates: Float64Array, startEpisode: Int32Array): void {
+  const ds = c.states.length;
+  let next = 0, seen = -1;
+  for (let r = 0; r < c.kept.length; r++) {
+    const e = c.episodeOf[r];
+    if (!c.kept[r] || e <= seen) continue;
+    seen = e;
+    if (!c.hasStart[e]) continue;
+    for (let j = 0; j < ds; j++) startStates[next * ds + j] = c.states[j][r];
+    startEpisode[next++] = e;
+  }
+}
+
+function allocate(n: number, ds: number, m: number, hasStart: Uint8Array) {
+  let starts = 0;
+  for (const h of hasStart) starts += h;
   return {
     states: new Float64Array(n * ds), actions: new Float64Array(n * m), rewards: new Float64Array(n),
     nextStates: new Float64Array(n * ds), terminal: new Uint8Array(n), episode: new Int32Array(n),
-    startStates: new Float64Array(e * ds), sourceLine: new Int32Array(n),
+    startStates: new Float64Array(starts * ds), startEpisode: new Int32Array(starts), sourceLine: new Int32Array(n),
   };
-}
-
-function writeStep(c: StepColumns, r: number, successor: number, k: number, t: ReturnType<typeof allocate>): void {
-  const ds = c.states.length, m = c.actions.length;
-  const next = successor === -1 ? c.states : c.nextStates ?? c.states;
-  const from = successor === -1 ? r : successor;
-  for (let j = 0; j < ds; j++) {
-    t.states[k * ds + j] = c.states[j][r];
-    t.nextStates[k * ds + j] = next[j][from];
-  }
-  for (let j = 0; j < m; j++) t.actions[k * m + j] = c.actions[j][r];
-  t.rewards[k] = c.rewards[r];
-  t.terminal[k] = successor === -1 ? 1 : 0;
-  t.episode[k] = c.episodeOf[r];
-  t.sourceLine[k] = c.lineOf(r);
 }
 
 const LISTED = 5;
@@ -103,7 +113,19 @@ function describeSteps(c: StepColumns, t: TransitionSet): string[] {
   if (c.terminal) report.push(`Terminal column: ${plural(terminal, 'transition')} end${terminal === 1 ? 's' : ''} in a terminal state (not bootstrapped past).`);
   report.push(...describeHoles(c));
   report.push(`In all: ${plural(t.count, 'transition')} in ${plural(t.episodeCount, 'episode')}.`);
+  report.push(rowAccount(c.kept, t.count));
   return report;
+}
+
+/**
+ * Every data row is a transition, an excluded row, or an unused row (kept, but with no next row:
+ * the last row of an episode's chain), and the three add up to the rows read.
+ */
+export function rowAccount(kept: Uint8Array, transitions: number): string {
+  let used = 0;
+  for (let r = 0; r < kept.length; r++) used += kept[r];
+  const excluded = kept.length - used, unused = used - transitions;
+  return `Rows: ${formatCount(kept.length)} read = ${formatCount(transitions)} transitions + ${formatCount(excluded)} excluded + ${formatCount(unused)} unused (kept, with no next row to pair with: the last of an episode, or the row before an excluded one).`;
 }
 
 /** Runs of excluded rows with kept rows of one episode on both sides: where a chain was cut. */

@@ -5,6 +5,7 @@
  */
 import { randomBytes } from 'node:crypto';
 import { createFileStore, type FileStore } from './fileStore';
+import { createFileVersions, type FileVersions } from './fileVersions';
 import { nodeFileSystem, type FileSystem } from './fileSystem';
 import { createPathAccess, type PathAccess } from './pathAccess';
 import { flavourOf, type PathFlavour } from './pathIdentity';
@@ -17,6 +18,8 @@ export interface AppContext {
   access: PathAccess;
   recent: RecentProjects;
   recovery: RecoveryStore;
+  /** The version of each project file this app last read or wrote (a save asks when it changed). */
+  versions: FileVersions;
   flavour: PathFlavour;
   /** Problems the user did not cause and need not act on now (a replaced state file); logged. */
   report: (message: string) => void;
@@ -46,6 +49,7 @@ export function createAppContext(options: AppContextOptions): AppContext {
     access: createPathAccess(flavour),
     recent: createRecentProjects({ fs, store, stateFolder: options.stateFolder, flavour, report, onChange: options.onRecentChange }),
     recovery: createRecoveryStore({ fs, store, stateFolder: options.stateFolder, runId, report }),
+    versions: createFileVersions(flavour),
     flavour,
     report,
     now: options.now ?? (() => new Date()),

@@ -12,7 +12,9 @@ import type { Dialogs } from './dialogs';
 import { FileAccessError, describeFileError } from './fileErrors';
 import { EXPORT_EXTENSIONS, PROJECT_EXTENSION, suggestedFileName, withExtension } from './fileNames';
 import { pathApi } from './pathIdentity';
+import { resolveDataPath } from './pathAccess';
 import { overwriteRefusal, referencedDataPath } from './projectReferences';
+import type { RecoveryGrants } from './recoveryStore';
 
 export interface DocumentState {
   name: string;
@@ -53,6 +55,7 @@ export function createAppService(context: AppContext, session: AppSession): AppS
 
   async function openProjectAt(path: string): Promise<ProjectFileReply> {
     const text = await store.readText(path);
+    context.versions.remember(path, text);
     access.grantProject(path, referencedDataPath(text, fileName(path)));
     await recent.add(path).catch((e: unknown) => context.report(describeFileError(e, 'update the recent list at', path).message));
     return { path, text };
@@ -71,15 +74,25 @@ export function createAppService(context: AppContext, session: AppSession): AppS
     return dataReply(path, projectPath);
   }
 
+  /** What this session allows for `text` at `projectPath` (never more than the user already granted): for a recovery copy. */
+  function grantsFor(text: string, projectPath: string | null): RecoveryGrants {
+    const named = referencedDataPath(text, projectPath === null ? 'recovery' : fileName(projectPath));
+    const data = named === null ? null : projectPath === null ? (api.isAbsolute(named) ? named : null) : resolveDataPath(projectPath, named, context.flavour);
+    const projectFileSha256 = projectPath === null ? undefined : context.versions.known(projectPath);
+    return { dataPaths: data !== null && access.mayReadData(data) ? [data] : [], ...(projectFileSha256 ? { projectFileSha256 } : {}) };
+  }
+
   async function writeProject(text: string, path: string): Promise<SaveReply> {
     try {
       // Written first so a crash mid-save still leaves these exact words to recover.
-      await recovery.write(session.slot, text, path, context.now());
+      await recovery.write(session.slot, text, path, context.now(), grantsFor(text, path));
       await store.writeAtomic(path, text, { backup: true });
     } catch (e) {
       return { saved: false, reason: 'error', message: describeFileError(e, 'save', path).message };
     }
-    access.grantProject(path, referencedDataPath(text, fileName(path)));
+    context.versions.remember(path, text);
+    // A save passes on only data the user already allowed: the renderer's text grants nothing.
+    access.carryData(path, referencedDataPath(text, fileName(path)));
     claimedOffer = null;
     await recovery.discard(session.slot).catch((e: unknown) => context.report(`Could not remove the recovery copy after saving: ${String(e)}`));
     await recent.add(path).catch((e: unknown) => context.report(describeFileError(e, 'update the recent list at', path).message));
@@ -106,6 +119,11 @@ export function createAppService(context: AppContext, session: AppSession): AppS
     if (refusal !== null) {
       return { saved: false, reason: 'error', message: `"${path}" was left unchanged: the file there is not a project this version can replace (${refusal}). Use Save As to save under another name.` };
     }
+    if (existing !== null && context.versions.changed(path, existing)) {
+      const choice = await dialogs.confirmReplaceChanged(fileName(path));
+      if (choice === 'cancel') return { saved: false, reason: 'cancelled' };
+      if (choice === 'saveAs') return saveWithDialog(text, api.basename(path, PROJECT_EXTENSION));
+    }
     return writeProject(text, path);
   }
 
@@ -126,10 +144,20 @@ export function createAppService(context: AppContext, session: AppSession): AppS
     return openProjectAt(path);
   }
 
+  /**
+   * A leftover copy of an earlier run. Its project path was checked when the copy was written
+   * (writeRecovery), and only the grants recorded then are given back — never what its text names.
+   */
   async function pendingRecovery(): Promise<RecoveryOffer | null> {
     if (claimedOffer) return claimedOffer;
-    const offer = await recovery.claimLeftover(session.slot);
-    if (offer?.projectPath) access.grantProject(offer.projectPath, referencedDataPath(offer.text, fileName(offer.projectPath)));
+    const copy = await recovery.claimLeftover(session.slot);
+    if (!copy) return (claimedOffer = null);
+    const { grants, ...offer } = copy;
+    if (offer.projectPath) {
+      access.grantProject(offer.projectPath, null);
+      for (const data of grants?.dataPaths ?? []) access.grantProject(offer.projectPath, data);
+      if (grants?.projectFileSha256) context.versions.adopt(offer.projectPath, grants.projectFileSha256);
+    } else for (const data of grants?.dataPaths ?? []) access.grantFile(data);
     claimedOffer = offer;
     return offer;
   }
@@ -156,8 +184,12 @@ export function createAppService(context: AppContext, session: AppSession): AppS
     saveProject: (text, path, suggestedName) => notifySave(path === null ? saveWithDialog(text, suggestedName) : saveToKnownPath(text, path)),
     saveProjectAs: (text, suggestedName) => notifySave(saveWithDialog(text, suggestedName)),
     async writeRecovery(text, projectPath) {
+      // A copy names only a project this session opened or saved: otherwise a crash would turn any path into a save target.
+      if (projectPath !== null && !access.isProject(projectPath) && !(await recent.includes(projectPath))) {
+        throw new AccessDeniedError(`"${projectPath}" is not a project opened or saved in this session, so no recovery copy is kept for it.`);
+      }
       claimedOffer = null;
-      await recovery.write(session.slot, text, projectPath, context.now());
+      await recovery.write(session.slot, text, projectPath, context.now(), grantsFor(text, projectPath));
     },
     pendingRecovery,
     async discardRecovery() {

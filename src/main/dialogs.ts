@@ -8,6 +8,9 @@ import type { ExportKind } from '../shared/appApi';
 /** The answer to "save changes before closing?". */
 export type UnsavedChangesChoice = 'save' | 'discard' | 'cancel';
 
+/** The answer to "another program changed this project since you opened it: replace it?". */
+export type ChangedOnDiskChoice = 'replace' | 'saveAs' | 'cancel';
+
 export interface Dialogs {
   showOpenProject(): Promise<string | null>;
   showOpenData(): Promise<string | null>;
@@ -15,4 +18,6 @@ export interface Dialogs {
   showExport(kind: ExportKind, suggestedName: string): Promise<string | null>;
   /** Closing or quitting with unsaved changes: Save / Don't save / Cancel. */
   confirmUnsavedChanges(documentName: string): Promise<UnsavedChangesChoice>;
+  /** Saving over a project file that another program changed since this app read or wrote it: Replace / Save As… / Cancel. */
+  confirmReplaceChanged(fileName: string): Promise<ChangedOnDiskChoice>;
 }

@@ -7,7 +7,11 @@ import { join } from 'node:path';
 import { app, dialog, type BrowserWindow, type FileFilter } from 'electron';
 import type { ExportKind } from '../shared/appApi';
 import { UNSAVED_CANCEL_BUTTON, UNSAVED_CHANGES_BUTTONS, UNSAVED_DEFAULT_BUTTON, choiceForButton, unsavedChangesQuestion } from './closeGuard';
-import type { Dialogs } from './dialogs';
+import type { ChangedOnDiskChoice, Dialogs } from './dialogs';
+
+const CHANGED_ON_DISK_BUTTONS: { label: string; choice: ChangedOnDiskChoice }[] = [
+  { label: 'Replace', choice: 'replace' }, { label: 'Save As…', choice: 'saveAs' }, { label: 'Cancel', choice: 'cancel' },
+];
 
 const PROJECT_FILTERS: FileFilter[] = [{ name: 'Setpoint Critic projects', extensions: ['spcritic'] }];
 const DATA_FILTERS: FileFilter[] = [{ name: 'Logged data (CSV)', extensions: ['csv', 'tsv', 'txt'] }, { name: 'All files', extensions: ['*'] }];
@@ -56,6 +60,18 @@ export function createElectronDialogs(window: BrowserWindow): Dialogs {
         ...question,
       });
       return choiceForButton(response);
+    },
+    async confirmReplaceChanged(fileName) {
+      const { response } = await dialog.showMessageBox(window, {
+        type: 'warning',
+        buttons: CHANGED_ON_DISK_BUTTONS.map((b) => b.label),
+        defaultId: 2,
+        cancelId: 2,
+        noLink: true,
+        message: `“${fileName}” was changed by another program since you opened it`,
+        detail: 'Replacing it loses those changes (the version on disk is kept as a .bak file). Save As keeps both.',
+      });
+      return CHANGED_ON_DISK_BUTTONS[response]?.choice ?? 'cancel';
     },
   };
 }

@@ -4,6 +4,8 @@
  * ticket. Never a stack trace.
  */
 
+import { HostFileError } from '../host/regularFile';
+
 /** A file operation that failed; `message` is ready to show. */
 export class FileAccessError extends Error {
   readonly code: string | undefined;
@@ -33,6 +35,7 @@ const REASONS: Readonly<Record<string, string>> = {
   ENAMETOOLONG: 'the path is too long',
   EIO: 'the disk reported an input/output error',
   EXDEV: 'the temporary file and the target are on different disks',
+  ELOOP: 'too many symbolic links',
 };
 
 export function errorCode(error: unknown): string | undefined {
@@ -46,6 +49,10 @@ export function errorCode(error: unknown): string | undefined {
 export function describeFileError(error: unknown, action: string, path: string): FileAccessError {
   if (error instanceof FileAccessError) return error;
   const code = errorCode(error);
+  // The bounded reader's own reasons (a device, a pipe, too large) are more precise than "the system refused".
+  if (error instanceof HostFileError && !(code && code in REASONS)) {
+    return new FileAccessError(`Could not ${action} "${path}": ${error.reason}`, path, code);
+  }
   const reason = code ? `${REASONS[code] ?? 'the system refused'} (${code})` : firstLine(error);
   return new FileAccessError(`Could not ${action} "${path}": ${reason}`, path, code);
 }

@@ -14,17 +14,23 @@
  */
 import { randomBytes } from 'node:crypto';
 import { basename, dirname, join } from 'node:path';
-import { describeFileError } from './fileErrors';
+import { MAX_PROJECT_BYTES } from '../host/regularFile';
+import { FileAccessError, describeFileError } from './fileErrors';
 import type { FileSystem } from './fileSystem';
 
 const TEMP_SUFFIX = '.spcritic-tmp';
 const BACKUP_SUFFIX = '.bak';
 
 export interface FileStore {
-  readBytes(path: string): Promise<Uint8Array>;
-  /** UTF-8 text. */
+  /** A regular file's bytes, at most maxBytes (default: host/regularFile.ts, MAX_DATA_BYTES). */
+  readBytes(path: string, maxBytes?: number): Promise<Uint8Array>;
+  /** UTF-8 text of a regular file of at most MAX_PROJECT_BYTES (projects, state files). */
   readText(path: string): Promise<string>;
-  /** Atomic replace; with `backup`, the previous version (if any) is kept as `<path>.bak`. */
+  /**
+   * Atomic replace; with `backup`, the previous version (if any) is kept as `<path>.bak`. A
+   * symbolic link is written through (the file it names is replaced, the link stays); a read-only
+   * file is refused, unchanged.
+   */
   writeAtomic(path: string, contents: Uint8Array | string, options: { backup: boolean }): Promise<void>;
 }
 
@@ -46,9 +52,9 @@ export function createFileStore(fs: FileSystem, token: () => string = () => rand
   // Temporary files of saves still in progress in this process: never cleaned up under their feet.
   const inFlight = new Set<string>();
 
-  async function readBytes(path: string): Promise<Uint8Array> {
+  async function readBytes(path: string, maxBytes?: number): Promise<Uint8Array> {
     try {
-      return await fs.readFile(path);
+      return await fs.readFile(path, maxBytes);
     } catch (e) {
       throw describeFileError(e, 'read', path);
     }
@@ -80,11 +86,13 @@ export function createFileStore(fs: FileSystem, token: () => string = () => rand
   async function writeAtomic(path: string, contents: Uint8Array | string, options: { backup: boolean }): Promise<void> {
     const bytes = typeof contents === 'string' ? new TextEncoder().encode(contents) : contents;
     try {
-      await removeStaleTemporaries(path);
-      const mode = await fs.fileMode(path);
-      if (options.backup && mode !== null) await writeSynced(backupPathFor(path), await fs.readFile(path), mode);
-      await writeSynced(path, bytes, mode);
-      await fs.syncFolder(dirname(path));
+      const target = await fs.writeTarget(path);
+      if ((await fs.writeAccess(target)) === 'readOnly') throw new FileAccessError(`Could not save "${path}": the file is read-only, so it was left unchanged; save under another name, or make it writable first`, path, 'EACCES');
+      await removeStaleTemporaries(target);
+      const mode = await fs.fileMode(target);
+      if (options.backup && mode !== null) await writeSynced(backupPathFor(target), await fs.readFile(target), mode);
+      await writeSynced(target, bytes, mode);
+      await fs.syncFolder(dirname(target));
     } catch (e) {
       throw describeFileError(e, 'save', path);
     }
@@ -92,7 +100,7 @@ export function createFileStore(fs: FileSystem, token: () => string = () => rand
 
   return {
     readBytes,
-    readText: async (path) => new TextDecoder('utf-8').decode(await readBytes(path)),
+    readText: async (path) => new TextDecoder('utf-8').decode(await readBytes(path, MAX_PROJECT_BYTES)),
     writeAtomic,
   };
 }

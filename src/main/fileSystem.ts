@@ -3,10 +3,16 @@
  * interface so a test can stand in for the disk (e.g. stop between write and rename, as a crash
  * would) and the real implementation stays a thin layer over node:fs/promises.
  */
-import { mkdir, open, readdir, readFile, rename, stat, unlink } from 'node:fs/promises';
+import { constants } from 'node:fs';
+import { access, lstat, mkdir, open, readdir, realpath, rename, stat, unlink } from 'node:fs/promises';
+import { MAX_DATA_BYTES, readRegularFile } from '../host/regularFile';
+
+/** Whether a file can be written: it does not exist yet, or exists and may be written, or is read-only. */
+export type WriteAccess = 'missing' | 'writable' | 'readOnly';
 
 export interface FileSystem {
-  readFile(path: string): Promise<Uint8Array>;
+  /** A regular file's bytes, at most maxBytes (host/regularFile.ts: devices, pipes and folders are refused). */
+  readFile(path: string, maxBytes?: number): Promise<Uint8Array>;
   /** Create `path` (failing if it exists), write all bytes, fsync, close. */
   writeNewFileSynced(path: string, bytes: Uint8Array, mode?: number): Promise<void>;
   /** Replace `to` by `from` in one step (POSIX rename(2) is atomic within one file system). */
@@ -19,10 +25,18 @@ export interface FileSystem {
   /** Permission bits of a file, or null when it does not exist. */
   fileMode(path: string): Promise<number | null>;
   makeFolder(path: string): Promise<void>;
+  /**
+   * The file a write to `path` should replace: `path` itself, or — when it is a symbolic link — the
+   * file the link finally names (realpath(3)), so a save writes through the link and keeps it.
+   * Throws ENOENT-coded errors for a link to nothing.
+   */
+  writeTarget(path: string): Promise<string>;
+  /** readOnly: no write permission bit at all, or access(2) refuses writing. */
+  writeAccess(path: string): Promise<WriteAccess>;
 }
 
 export const nodeFileSystem: FileSystem = {
-  readFile: async (path) => new Uint8Array(await readFile(path)),
+  readFile: (path, maxBytes = MAX_DATA_BYTES) => readRegularFile(path, { maxBytes, what: 'file' }),
   async writeNewFileSynced(path, bytes, mode) {
     const handle = await open(path, 'wx', mode ?? 0o666);
     try {
@@ -64,5 +78,27 @@ export const nodeFileSystem: FileSystem = {
   },
   makeFolder: async (path) => {
     await mkdir(path, { recursive: true });
+  },
+  async writeTarget(path) {
+    try {
+      if (!(await lstat(path)).isSymbolicLink()) return path;
+    } catch (e) {
+      if ((e as { code?: string }).code === 'ENOENT') return path;
+      throw e;
+    }
+    return realpath(path);
+  },
+  async writeAccess(path) {
+    try {
+      // No write bit for anyone is a read-only file whoever we are (root passes access(2) regardless).
+      if (((await stat(path)).mode & 0o222) === 0) return 'readOnly';
+      await access(path, constants.W_OK);
+      return 'writable';
+    } catch (e) {
+      const code = (e as { code?: string }).code;
+      if (code === 'ENOENT') return 'missing';
+      if (code === 'EACCES' || code === 'EPERM' || code === 'EROFS') return 'readOnly';
+      throw e;
+    }
   },
 };

@@ -1,12 +1,17 @@
 /**
  * The allow-list of files the main process may touch on the renderer's behalf (GUIDE §4; Electron
- * security checklist, "do not trust the renderer" — common practice). A path is readable only if
+ * security checklist, "do not trust the renderer" — common practice). Every grant comes from
+ * something the user did, never from text the renderer sends. A path is readable only if
  *   - the user chose it in a dialog (grantFile), or
  *   - it is a project file the user opened, saved or recovered (grantProject; the recent list is
  *     checked by the app service), or
- *   - an open project references it: the project's data path, resolved against the project's
- *     folder. Exactly the file the project names is allowed — whatever `..` it contains is resolved
- *     first, and a different request that merely resolves inside the same folder is refused.
+ *   - a project the user opened references it: the data path written in the file as it was read
+ *     from disk, resolved against the project's folder. Exactly the file the project names is
+ *     allowed — whatever `..` it contains is resolved first, and a different request that merely
+ *     resolves inside the same folder is refused.
+ * A save passes on only what is already allowed (carryData): the project text a renderer saves can
+ * never make a new file readable, so a compromised renderer cannot save `"path": "/home/u/.ssh/id_rsa"`
+ * and then read it.
  * Lexical resolution (node:path resolve), case-insensitive on Windows.
  */
 import { pathApi, pathKey, type PathFlavour } from './pathIdentity';
@@ -16,9 +21,17 @@ export type DataAccess = { allowed: true; path: string } | { allowed: false; pat
 export interface PathAccess {
   /** The user chose this file in an open dialog. */
   grantFile(path: string): void;
-  /** A project file the user opened, saved or recovered, and the data path it references (if any). */
+  /** A project file the user opened or recovered, and the data path it references on disk (if any). */
   grantProject(projectPath: string, referencedDataPath: string | null): void;
+  /**
+   * A project file the user saved: it becomes a project, and the data path its text names is
+   * allowed for it only if that file is readable already (chosen, or referenced by a project read
+   * from disk). Returns the absolute data path carried, or null.
+   */
+  carryData(projectPath: string, dataPathInText: string | null): string | null;
   isProject(path: string): boolean;
+  /** An absolute data path the user chose or an opened project references. */
+  mayReadData(path: string): boolean;
   mayRead(path: string): boolean;
   /** Resolve a project's data path and decide whether it may be read. */
   projectData(projectPath: string, relativePath: string): DataAccess;
@@ -42,6 +55,20 @@ export function createPathAccess(flavour: PathFlavour): PathAccess {
     projects.set(key(projectPath), references);
   }
 
+  function mayReadData(path: string): boolean {
+    const k = key(path);
+    if (chosenFiles.has(k)) return true;
+    for (const references of projects.values()) if (references.has(k)) return true;
+    return false;
+  }
+
+  function carryData(projectPath: string, dataPathInText: string | null): string | null {
+    const carried = dataPathInText === null ? null : resolveDataPath(projectPath, dataPathInText, flavour);
+    const allowed = carried !== null && mayReadData(carried);
+    grantProject(projectPath, allowed ? carried : null);
+    return allowed ? carried : null;
+  }
+
   function projectData(projectPath: string, relativePath: string): DataAccess {
     const path = resolveDataPath(projectPath, relativePath, flavour);
     const references = projects.get(key(projectPath));
@@ -59,7 +86,9 @@ export function createPathAccess(flavour: PathFlavour): PathAccess {
   return {
     grantFile: (path) => void chosenFiles.add(key(path)),
     grantProject,
+    carryData,
     isProject: (path) => projects.has(key(path)),
+    mayReadData,
     mayRead: (path) => chosenFiles.has(key(path)) || projects.has(key(path)),
     projectData,
   };

@@ -10,23 +10,40 @@
 import { join } from 'node:path';
 import { z } from 'zod';
 import type { RecoveryOffer } from '../shared/appApi';
+import { MAX_PROJECT_BYTES } from '../host/regularFile';
 import { errorCode } from './fileErrors';
 import type { FileStore } from './fileStore';
 import type { FileSystem } from './fileSystem';
 
 const RECOVERY_FORMAT = 'setpoint-critic-recovery';
 
+/**
+ * What the main process had allowed for this work when it wrote the copy (never the renderer's
+ * say): the data files readable for it, and the fingerprint of the project file as this app last
+ * read or wrote it, so a restore grants no more than the crashed session had and a later save can
+ * tell whether another program changed the file since.
+ */
+export interface RecoveryGrants {
+  /** Absolute paths. */
+  dataPaths: string[];
+  projectFileSha256?: string;
+}
+
 const recoveryRecordSchema = z.object({
   format: z.literal(RECOVERY_FORMAT),
   projectPath: z.string().min(1).nullable(),
   text: z.string(),
   savedAt: z.string().min(1),
+  grants: z.object({ dataPaths: z.array(z.string().min(1)), projectFileSha256: z.string().optional() }).optional(),
 });
 
+/** A claimed copy: the offer the renderer sees, and the grants only the main process uses. */
+export type RecoveredCopy = RecoveryOffer & { grants?: RecoveryGrants };
+
 export interface RecoveryStore {
-  write(slot: string, text: string, projectPath: string | null, savedAt: Date): Promise<void>;
+  write(slot: string, text: string, projectPath: string | null, savedAt: Date, grants?: RecoveryGrants): Promise<void>;
   /** The newest leftover of an earlier run, moved to `slot`; null when there is none (or `slot` already holds a copy). */
-  claimLeftover(slot: string): Promise<RecoveryOffer | null>;
+  claimLeftover(slot: string): Promise<RecoveredCopy | null>;
   discard(slot: string): Promise<void>;
   /** How many copies earlier runs left (so the app can open a window for each). */
   leftoverCount(): Promise<number>;
@@ -40,6 +57,9 @@ export interface RecoveryStoreOptions {
   runId: string;
   report: (message: string) => void;
 }
+
+/** A copy holds one project's text (JSON-escaped, so up to six bytes a character) and a few fields. */
+const MAX_RECOVERY_BYTES = 6 * MAX_PROJECT_BYTES + 4096;
 
 /** Slot names become file names: keep them to safe characters. */
 const SAFE_NAME = /^[A-Za-z0-9_-]{1,64}$/;
@@ -55,17 +75,17 @@ export function createRecoveryStore(options: RecoveryStoreOptions): RecoveryStor
 
   const isLeftover = (name: string) => name.endsWith('.json') && !name.startsWith(`${runId}.`);
 
-  async function write(slot: string, text: string, projectPath: string | null, savedAt: Date): Promise<void> {
+  async function write(slot: string, text: string, projectPath: string | null, savedAt: Date, grants?: RecoveryGrants): Promise<void> {
     await fs.makeFolder(folder);
-    const record = { format: RECOVERY_FORMAT, projectPath, text, savedAt: savedAt.toISOString() };
+    const record = { format: RECOVERY_FORMAT, projectPath, text, savedAt: savedAt.toISOString(), grants };
     await store.writeAtomic(fileOf(slot), JSON.stringify(record), { backup: false });
   }
 
-  async function readRecord(name: string): Promise<RecoveryOffer | null> {
+  async function readRecord(name: string): Promise<RecoveredCopy | null> {
     const path = join(folder, name);
     try {
-      const parsed = recoveryRecordSchema.safeParse(JSON.parse(new TextDecoder().decode(await fs.readFile(path))));
-      if (parsed.success) return { projectPath: parsed.data.projectPath, text: parsed.data.text, savedAt: parsed.data.savedAt };
+      const parsed = recoveryRecordSchema.safeParse(JSON.parse(new TextDecoder().decode(await fs.readFile(path, MAX_RECOVERY_BYTES))));
+      if (parsed.success) return { projectPath: parsed.data.projectPath, text: parsed.data.text, savedAt: parsed.data.savedAt, grants: parsed.data.grants };
     } catch (e) {
       if (errorCode(e) === 'ENOENT') return null;
     }
@@ -74,11 +94,11 @@ export function createRecoveryStore(options: RecoveryStoreOptions): RecoveryStor
     return null;
   }
 
-  async function claimLeftover(slot: string): Promise<RecoveryOffer | null> {
+  async function claimLeftover(slot: string): Promise<RecoveredCopy | null> {
     const own = fileOf(slot);
     const names = await fs.listFolder(folder);
     if (names.includes(`${runId}.${slot}.json`)) return null;
-    const leftovers: { name: string; offer: RecoveryOffer }[] = [];
+    const leftovers: { name: string; offer: RecoveredCopy }[] = [];
     for (const name of names.filter(isLeftover)) {
       const offer = await readRecord(name);
       if (offer) leftovers.push({ name, offer });

@@ -1,60 +1,101 @@
 /**
- * Replicates and full-data estimates → the parts of an Assessment: per candidate its interval,
- * cross-checks, diagnostics, slices and warnings; the comparison of all policies; the share of the
- * surface the logs never visit; and the warnings that concern the whole assessment.
+ * Replicates and full-data estimates → the parts of an Assessment: per model its interval, the
+ * range across function classes, cross-checks with the headline they give, diagnostics, slices and
+ * warnings; the present controller as the baseline; the comparison of all policies; and the
+ * warnings that concern the whole assessment.
  */
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
+import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
+import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
+import { unitMultiplicities } from '../core/bootstrap/episodeMultiplicities';
+import { completedReturnOfResample } from '../core/loggedReturn';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
-import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
-import type { AssessmentWarning, CandidateAssessment, Comparison, IntervalEstimate, PairedDifference } from './assessment';
+import type {
+  AssessmentWarning, CandidateAssessment, Comparison, CrossCheck, FunctionClassAssessment, IntervalEstimate, PairedDifference, PresentControllerAssessment,
+} from './assessment';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import { crossChecks } from './assessCrossChecks';
-import { coverageDiagnostics, coverageWarnings } from './assessDiagnostics';
+import { coverageDiagnostics, coverageWarnings, linearModelOf, shiftOf, type CoverageReference } from './assessDiagnostics';
 import { intervalEstimate, pairedDifference, ranking, type Estimator } from './assessIntervals';
-import { isModelValueFailure, type ModelCheck } from './assessModelCheck';
-import type { ReplicateSet } from './assessResamples';
+import { isModelValueFailure, modelInapplicability, type ModelCheck } from './assessModelCheck';
+import type { CandidateReplicates, ReplicateSet, Replicates } from './assessResamples';
+import type { RolloutOutcome } from './assessRollouts';
 import type { AssessmentSettings } from './assessSettings';
 import { actionSlices } from './assessSlices';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 import { surfaceVisits } from './plan/surfaceGrid';
 
-export const BEHAVIOUR_NAME = 'logged behaviour (today)';
+/** The logged return's name wherever it is listed beside the candidates. */
+export const BEHAVIOUR_NAME = 'present controller, logged return';
 /** More failed resamples than this share raise a caution (our rule). */
 const FAILED_SHARE = 0.05;
 
 export interface AssemblyInputs {
   context: AssessmentContext;
   works: CandidateWork[];
+  baseline: CandidateWork | null;
   replicates: ReplicateSet;
   modelCheck: ModelCheck;
   modelReasons: (string | null)[];
+  rollouts: RolloutOutcome[];
+  baselineRollout: RolloutOutcome | null;
   ranges: LoggedActionRanges;
-  behaviourOutside: number | null;
+  reference: CoverageReference;
+  /** V̂ of the present controller's model at each run's end and the weights γ^T past time-limited ends. */
+  baselineEnds: { values: Float64Array; tailWeights: Float64Array } | null;
+  tailWeight: number;
   settings: AssessmentSettings;
-  sign: number;
 }
 
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
-  const { context, works, replicates, settings, sign } = inputs;
+  const { context, works, replicates, settings } = inputs, sign = context.plan.sign;
   return works.map((work, j) => {
-    const diagnostics = coverageDiagnostics(work, context, inputs.ranges, { policy: context.presentController, meanOutside: inputs.behaviourOutside });
-    const points = fullDataCrossChecks(inputs, work, j);
-    const checks = crossChecks({
-      work, replicates: replicates.candidates[j], points: points.values, weights: diagnostics.importanceWeights,
-      offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: settings.level, sign,
-    });
-    const policyValue = intervalEstimate(work.model.fit.policyValue, replicates.candidates[j].fqe, settings.level, sign);
+    const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
+    const r = replicates.candidates[j];
+    const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights);
+    const policyValue = intervalEstimate(work.model.fit.policyValue, r.fqe, settings.level, sign);
+    const classes = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
     const warnings = [
       ...coverageWarnings(diagnostics),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
+      ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: `Not settled across function classes: ${classes.reason} Report the range ${rangeText(classes.range)}, not a single value.` }] : []),
       ...failedWarning(policyValue),
     ];
-    return { name: work.model.name, policyValue, crossChecks: checks, diagnostics, slices: actionSlices(work.model, context.plan.data, sign), warnings };
+    return {
+      name: work.model.name, policyValue, reportedRange: classes?.range ?? policyValue.percentile, settled: classes ? classes.settled : null,
+      functionClasses: classes, confirmation, crossChecks: checks, diagnostics, slices: actionSlices(work.model, context.plan.data, sign), warnings,
+    };
   });
 }
 
-function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, j: number) {
+export function assemblePresentController(inputs: AssemblyInputs): PresentControllerAssessment | null {
+  const { context, baseline, replicates, settings } = inputs, sign = context.plan.sign;
+  if (!baseline || !replicates.presentController || !replicates.completedReturn) return null;
+  const r = replicates.presentController, model = baseline.model;
+  const modelReason = modelInapplicability(inputs.modelCheck, model.policy);
+  const { checks, confirmation } = checksOf(inputs, baseline, r, modelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null);
+  const ends = inputs.baselineEnds!, e = inputs.context.plan.episodes.episodes;
+  const completed = completedReturnOfResample(inputs.context.plan.loggedReturn.perEpisode, ends.tailWeights, ends.values, unitMultiplicities(e));
+  return {
+    name: model.name, policyValue: intervalEstimate(model.fit.policyValue, r.fqe, settings.level, sign),
+    completedReturn: intervalEstimate(completed, replicates.completedReturn, settings.level, sign, 'sampling of the logged runs; the value past each time limit is held at the full-data fit'),
+    occupancyShift: inputs.reference.presentControllerShift, crossChecks: checks, confirmation,
+  };
+}
+
+function checksOf(
+  inputs: AssemblyInputs, work: CandidateWork, r: CandidateReplicates, modelReason: string | null, rollout: RolloutOutcome,
+  weights: CandidateAssessment['diagnostics']['importanceWeights'],
+): { checks: CrossCheck[]; confirmation: CandidateAssessment['confirmation'] } {
+  const points = fullDataCrossChecks(inputs, work, modelReason);
+  return crossChecks({
+    work, replicates: r, points: points.values, rollout, weights, tailWeight: inputs.tailWeight,
+    offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: inputs.settings.level, sign: inputs.context.plan.sign,
+  });
+}
+
+function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, modelReason: string | null) {
   const { plan } = inputs.context, discount = plan.discount;
   const values = { importanceSampling: null as number | null, doublyRobust: null as number | null, model: null as number | null };
   let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? null : work.offPolicy.reason;
@@ -68,16 +109,54 @@ function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, j: num
       offPolicyReason = error.message;
     }
   }
-  let modelReason = inputs.modelReasons[j];
-  if (modelReason === null && inputs.modelCheck.fit) {
+  let reason = modelReason;
+  if (reason === null && inputs.modelCheck.fit) {
     try {
       values.model = modelPolicyValue(inputs.modelCheck.fit, work.model.policy, discount, plan.starts.states);
     } catch (error) {
       if (!isModelValueFailure(error)) throw error;
-      modelReason = (error as Error).message;
+      reason = (error as Error).message;
     }
   }
-  return { values, offPolicyReason, modelReason };
+  return { values, offPolicyReason, modelReason: reason };
+}
+
+/** The candidate in every function class with an interval, and the verdict across them; null with fewer than two. */
+function classAssessment(work: CandidateWork, r: CandidateReplicates, level: number, sign: number): FunctionClassAssessment | null {
+  const estimates: ClassEstimate[] = [];
+  work.classes.forEach((c, k) => {
+    const iv = intervalEstimate(c.model.fit.policyValue, r.classes[k], level, 1);
+    if (iv.standardError === null || !iv.percentile) return;
+    const replicates = r.classes[k].every((v) => v !== null) ? (r.classes[k] as number[]) : undefined;
+    estimates.push({ label: c.label, value: c.model.fit.policyValue, standardError: iv.standardError, interval: iv.percentile, replicates });
+  });
+  if (estimates.length < 2) return null;
+  const verdict = functionClassVerdict(estimates);
+  const flip = ([lo, hi]: readonly [number, number]): [number, number] => (sign > 0 ? [lo, hi] : [-hi, -lo]);
+  return {
+    classes: estimates.map((e) => ({ label: e.label, value: sign * e.value, interval: flip(e.interval), standardError: e.standardError })),
+    settled: verdict.settled, range: flip(verdict.range), coverage: verdict.coverageText, reason: verdict.reason,
+  };
+}
+
+/**
+ * A model without resamples of its own (a network) is not in the class verdict, which needs
+ * intervals; its value must still lie in the range reported, so the range is widened to it and the
+ * verdict is "not settled" when it lies outside the classes' range.
+ */
+function withUnresampledOwn(classes: FunctionClassAssessment | null, work: CandidateWork, sign: number): FunctionClassAssessment | null {
+  if (!classes || work.replicate) return classes;
+  const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range;
+  const entry = { label: work.classes[0].label, value: own, interval: null, standardError: null };
+  if (own >= lo && own <= hi) return { ...classes, classes: [entry, ...classes.classes] };
+  return {
+    ...classes, classes: [entry, ...classes.classes], settled: false, range: [Math.min(lo, own), Math.max(hi, own)],
+    reason: `Not settled: the ${work.classes[0].label} value ${own.toPrecision(4)} lies outside the range of the linear classes, ${rangeText([lo, hi])}.`,
+  };
+}
+
+function rangeText([lo, hi]: [number, number]): string {
+  return `[${lo.toPrecision(4)}, ${hi.toPrecision(4)}]`;
 }
 
 function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
@@ -89,16 +168,28 @@ function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
   }];
 }
 
-export function comparison(loggedValue: number, replicates: ReplicateSet, works: CandidateWork[], level: number, sign: number): Comparison {
-  const behaviour: Estimator = { name: BEHAVIOUR_NAME, point: loggedValue, replicates: replicates.loggedReturn };
-  // A fit that did not converge has no value to compare: it is left out of the differences and the ranking.
+/**
+ * Every candidate against the baseline — the present controller's model, evaluated the same way —
+ * and pairwise; the ranking over the candidates and the baseline. Without a present-controller model
+ * the logged return stands in and the comparison says it is biased where runs end on a time limit.
+ * A fit that did not converge has no value to compare: it is left out.
+ */
+export function comparison(plan: EvaluationPlan, replicates: ReplicateSet, works: CandidateWork[], baseline: CandidateWork | null, level: number): Comparison {
+  const sign = plan.sign;
+  const reference: Estimator = baseline && replicates.presentController
+    ? { name: baseline.model.name, point: baseline.model.fit.policyValue, replicates: replicates.presentController.fqe }
+    : { name: BEHAVIOUR_NAME, point: plan.loggedReturn.value, replicates: replicates.loggedReturn };
   const candidates: Estimator[] = works.flatMap((w, j) => (w.model.fit.status !== 'converged' ? []
     : [{ name: w.model.name, point: w.model.fit.policyValue, replicates: replicates.candidates[j].fqe }]));
-  const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, behaviour, level, sign));
+  const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, reference, level, sign));
   for (let i = 0; i < candidates.length; i++) {
     for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));
   }
-  return { differences, ranking: ranking([...candidates, behaviour]) };
+  const kind = baseline ? 'presentController' as const : 'loggedReturn' as const;
+  const note = baseline
+    ? 'Each candidate is compared with the present controller’s model, evaluated by the same fitted Q-evaluation on the same resamples; the logged return is shown as a check.'
+    : 'No model of the present controller could be fitted, so the logged return stands in as the baseline: it is cut short where runs end on a time limit, which biases it toward zero.';
+  return { baseline: { name: reference.name, kind, note }, differences, ranking: ranking([...candidates, reference]) };
 }
 
 export function unvisitedShare(plan: EvaluationPlan): number | null {
@@ -107,32 +198,29 @@ export function unvisitedShare(plan: EvaluationPlan): number | null {
   return uncoveredShare(surfaceVisits(plan.data, grid), grid.resolution[0], grid.resolution[1]);
 }
 
-export function globalWarnings(context: AssessmentContext, truncationWeight: number, candidates: CandidateAssessment[], unvisited: number | null): AssessmentWarning[] {
+export function globalWarnings(context: AssessmentContext, candidates: CandidateAssessment[], unvisited: number | null): AssessmentWarning[] {
   const out: AssessmentWarning[] = [];
   const { plan } = context;
-  if (plan.approximator.kind === 'network') {
+  if (plan.approximator.kind === 'network' && candidates.some((c) => c.policyValue.percentile === null)) {
     out.push({
       severity: 'caution', topic: 'bootstrap',
-      message: 'The candidates’ J by the network approximator has no interval (each resample would refit the network); compare it with the cross-checks and the sensitivity to the network width.',
+      message: 'Some candidates’ J by the network approximator has no interval; compare it with the linear classes, the cross-checks and the sensitivity to the network width.',
     });
   }
   if (!plan.starts.followEpisodes) {
     out.push({
       severity: 'caution', topic: 'startStates',
-      message: `The candidates’ J is taken at the ${plan.starts.count} start states given in the project, the logged behaviour’s return at its episodes’ own starts: the comparison with today mixes two start distributions.`,
+      message: `The candidates’ J is taken at the ${plan.starts.count} start states given in the project, the logged return at its runs’ own starts: the comparison with the logged return mixes two start distributions.`,
     });
   }
-  if (!context.presentController) out.push({ severity: 'caution', topic: 'behaviourModel', message: `Importance-sampling cross-checks are not available: ${context.presentControllerReason}.` });
-  context.presentControllerShareAtLimit.forEach((share, j) => {
-    if (share > FAILED_SHARE) {
-      out.push({
-        severity: 'caution', topic: 'behaviourModel',
-        message: `${(100 * share).toFixed(1)} % of the logged ${plan.data.actionNames[j]} values sit at an actuator limit; the behaviour model is a least-squares fit on all rows, so the importance weights are approximate.`,
-      });
-    }
-  });
-  if (truncationWeight > 1e-3) {
-    out.push({ severity: 'caution', topic: 'loggedReturn', message: `Logged episodes are short for this discount: up to ${(100 * truncationWeight).toFixed(1)} % of the return’s weight lies beyond their end, so the logged baseline and the importance-sampling estimates are biased toward zero.` });
+  if (!context.presentControllerModel) out.push({ severity: 'caution', topic: 'presentController', message: `The comparison uses the logged return: ${context.presentControllerReason}.` });
+  const truncation = plan.loggedReturn.largestTruncationWeight;
+  if (truncation > 1e-3) {
+    out.push({
+      severity: 'caution', topic: 'loggedReturn',
+      message: `Logged runs are short for this discount: up to ${(100 * truncation).toFixed(1)} % of the return’s weight lies beyond their end, so the logged return is biased toward zero. ` +
+        'Comparisons use the present controller’s model instead, and the logged return completed past each end is shown as a check.',
+    });
   }
   if (unvisited !== null && unvisited > 0.5) {
     out.push({ severity: 'caution', topic: 'unvisited', message: `${(100 * unvisited).toFixed(0)} % of the value-surface grid has no logged state within one grid step: the surfaces are extrapolated there.` });
@@ -142,6 +230,15 @@ export function globalWarnings(context: AssessmentContext, truncationWeight: num
     if (p && b && Math.abs((p[0] + p[1]) / 2 - (b[0] + b[1]) / 2) > 0.25 * (p[1] - p[0])) {
       out.push({ severity: 'caution', topic: 'bootstrap', message: `${c.name}: the percentile and basic intervals differ markedly, a sign of a skewed or biased estimator; read both.` });
     }
+    if (c.confirmation.status === 'unconfirmed') out.push({ severity: 'caution', topic: 'confirmation', message: `${c.name}: ${c.confirmation.text}` });
   }
   return out;
 }
+
+/** The present controller's shift, for scale beside every candidate's. */
+export function presentControllerShift(plan: EvaluationPlan, baseline: CandidateWork | null): number | null {
+  const model = baseline && linearModelOf(baseline);
+  return model ? shiftOf(plan, model) : null;
+}
+
+export type { Replicates };

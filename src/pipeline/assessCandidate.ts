@@ -1,25 +1,40 @@
 /**
- * What the assessment adds to one candidate's model (model/candidateModel.ts) before resampling:
- * the replicate setup of a linear fit (its per-episode sums are already in the model), and the
- * inputs of the importance-sampling cross-checks — the fitted Q at the logged states and actions
- * and the importance weights against the fitted present-controller model — or the reason they
- * cannot be formed. Nothing here refits a candidate. Reward terms throughout.
+ * What the assessment adds to one model (model/candidateModel.ts) before resampling: how its J is
+ * taken on a resample (its per-episode sums are already in the model), the inputs of the
+ * importance-sampling cross-checks — the fitted Q̂ at the logged states and actions, V̂ there and at
+ * each run's end for the value past a time limit, and the importance weights against the present
+ * controller's model — and its fits in other function classes. Nothing here refits the model
+ * itself. Reward terms throughout.
  */
 import { linearFqeReplicate, type LinearReplicateSetup, type LinearSolveSettings } from '../core/bootstrap/linearFqeReplicate';
 import { linearisedReplicate } from '../core/bootstrap/linearisedReplicate';
 import type { CancellationCheck } from '../core/fqe/cancellation';
+import type { FittedBehaviour } from '../core/offPolicy/behaviourPolicy';
 import { ImportanceRatioError } from '../core/offPolicy/importanceRatio';
 import { importanceWeightTable, type ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import { perDecisionData, type PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
-import type { GaussianPolicy } from '../core/policy';
 import { stateValues } from '../core/value';
 import type { CandidateModel } from './model/candidateModel';
+import { finalStateValues } from './model/completedReturn';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 
 export interface OffPolicyInputs {
   table: ImportanceWeightTable;
-  /** The weights with the fitted Q̂(s_t, a_t) and V̂(s_t), regrouped for the per-decision estimators. */
+  /** The weights with Q̂(s_t, a_t), V̂(s_t) and the bootstrapped tails, regrouped for the per-decision estimators. */
   perDecision: PerDecisionData;
+}
+
+/** One candidate's J on a bootstrap resample (reward sense; null when the resample has no solution). */
+export interface Replicator {
+  readonly kind: 'exact' | 'linearised';
+  value(multiplicities: Uint32Array): number | null;
+}
+
+/** A fit of the same candidate in another function class, for the class comparison. */
+export interface ClassWork {
+  readonly label: string;
+  readonly model: CandidateModel;
+  readonly replicate: Replicator | null;
 }
 
 export interface CandidateWork {
@@ -27,16 +42,17 @@ export interface CandidateWork {
   /** How the candidate's J is taken on a resample; null when it has no resamples (a network, or a fit that did not converge). */
   readonly replicate: Replicator | null;
   readonly offPolicy: OffPolicyInputs | { reason: string };
+  /** The candidate in every function class compared (its own first). */
+  readonly classes: ClassWork[];
 }
 
-/** What every candidate's assessment shares: the run's plan and the fitted present-controller model. */
+/** What every assessment of one run shares. */
 export interface AssessmentContext {
   readonly plan: EvaluationPlan;
-  /** The present controller as a policy: the linear-Gaussian model fitted to the logged actions (behaviourPolicy.ts). */
-  readonly presentController: GaussianPolicy | null;
+  /** Today's controller modelled from the log (plan/presentController.ts) and its fit; null with the reason when it could not be. */
+  readonly presentController: FittedBehaviour | null;
+  readonly presentControllerModel: CandidateModel | null;
   readonly presentControllerReason: string;
-  /** Share of logged actions at a detected actuator limit, per action (behaviourPolicy.ts). */
-  readonly presentControllerShareAtLimit: number[];
   readonly cancel?: CancellationCheck;
   readonly wasmPath?: string;
 }
@@ -48,14 +64,15 @@ export class AssessmentError extends Error {
   }
 }
 
-export function candidateWork(context: AssessmentContext, model: CandidateModel): CandidateWork {
-  return { model, replicate: replicator(context.plan, model), offPolicy: offPolicyInputs(context, model) };
+export function candidateWork(context: AssessmentContext, model: CandidateModel, classes: ClassWork[] = []): CandidateWork {
+  const replicate = replicator(context.plan, model);
+  return { model, replicate, offPolicy: offPolicyInputs(context, model), classes: [{ label: ownClassLabel(context.plan), model, replicate }, ...classes] };
 }
 
-/** One candidate's J on a bootstrap resample (reward sense; null when the resample has no solution). */
-export interface Replicator {
-  readonly kind: 'exact' | 'linearised';
-  value(multiplicities: Uint32Array): number | null;
+function ownClassLabel(plan: EvaluationPlan): string {
+  const a = plan.approximator;
+  if (a.kind === 'network') return `network ${a.hiddenLayers.join('×')}`;
+  return a.features.kind === 'polynomial' ? `polynomial, degree ${a.features.degree}` : `radial basis, ${a.features.centresPerInput} centres per input`;
 }
 
 /**
@@ -64,35 +81,38 @@ export interface Replicator {
  * of hundreds of O(d²) steps), else by the same iteration from the full-data weights.
  * Linearised: to first order from per-episode influence values (linearisedReplicate.ts).
  */
-function replicator(plan: EvaluationPlan, model: CandidateModel): Replicator | null {
+export function replicator(plan: EvaluationPlan, model: CandidateModel): Replicator | null {
   const linear = model.linear;
   if (!linear) return null;
   const r = linear.resampling;
   if (r.kind === 'linearised') return { kind: 'linearised', value: (c) => linearisedReplicate(r.replicates, c) };
   if (r.kind === 'none') return null;
-  const setup: LinearReplicateSetup = { ...linearSolveSettings(plan, model), sums: r.sums, startFeatures: linear.startFeatures, startsFollowEpisodes: plan.starts.followEpisodes };
+  const setup: LinearReplicateSetup = {
+    ...linearSolveSettings(plan, model), sums: r.sums, startFeatures: linear.startFeatures, startsFollowEpisodes: plan.starts.followEpisodes,
+    startEpisode: plan.starts.episode,
+  };
   const scratch = new Float64Array(r.sums.stride);
   return { kind: 'exact', value: (c) => linearFqeReplicate(setup, c, scratch).policyValue };
 }
 
-/** How a linear candidate's fit is solved on other statistics (a resample, another discount or features). */
+/** How a linear model's fit is solved on other statistics (a resample, another discount). */
 export function linearSolveSettings(plan: EvaluationPlan, model: CandidateModel): LinearSolveSettings {
-  const linear = model.linear, settings = plan.approximator;
-  if (!linear || settings.kind !== 'linear') throw new AssessmentError(`"${model.name}" has no linear fit to solve again`);
+  const linear = model.linear;
+  if (!linear) throw new AssessmentError(`"${model.name}" has no linear fit to solve again`);
   return {
-    ridge: settings.ridge, constantIndex: linear.features.constantIndex, discount: plan.discount,
-    solver: linear.atFixedPoint ? 'fixedPoint' : 'iteration', tolerance: settings.tolerance, maxIterations: settings.maxIterations,
+    ridge: linear.ridge, constantIndex: linear.features.constantIndex, discount: plan.discount,
+    solver: linear.atFixedPoint ? 'fixedPoint' : 'iteration', tolerance: linear.tolerance, maxIterations: linear.maxIterations,
     initialWeights: linear.weights,
   };
 }
 
 function offPolicyInputs(context: AssessmentContext, model: CandidateModel): OffPolicyInputs | { reason: string } {
   const { plan } = context;
-  if (!plan.starts.followEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged episodes’ own starts' };
+  if (!plan.starts.followEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged runs’ own starts' };
   if (!context.presentController) return { reason: context.presentControllerReason };
   let table: ImportanceWeightTable;
   try {
-    table = importanceWeightTable(plan.data, plan.episodes, model.policy, context.presentController);
+    table = importanceWeightTable(plan.data, plan.episodes, model.policy, context.presentController.policy);
   } catch (error) {
     if (error instanceof ImportanceRatioError) return { reason: error.message };
     throw error;
@@ -106,5 +126,7 @@ function offPolicyInputs(context: AssessmentContext, model: CandidateModel): Off
   }
   const actionValues = new Float64Array(n);
   model.fit.q.evaluate(inputs, n, actionValues);
-  return { table, perDecision: perDecisionData(table, { actionValues, stateValues: stateValues(model.fit.q, model.policy, states, n, model.quadrature) }) };
+  const ends = finalStateValues(plan, model);
+  const values = { actionValues, stateValues: stateValues(model.fit.q, model.policy, states, n, model.quadrature) };
+  return { table, perDecision: perDecisionData(table, values, { finalStateValues: ends.values, tailWeights: ends.tailWeights }) };
 }

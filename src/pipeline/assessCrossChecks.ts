@@ -1,31 +1,34 @@
 /**
- * The cross-checks of one candidate by other methods, each with the assumption it rests on and a
- * verdict against fitted Q-evaluation from the paired bootstrap over the same resamples.
- *
- * Verdict (our thresholds, stated in the report): "disagrees" when the difference exceeds 3
- * standard errors of the paired difference and 2 % of |J|; "uninformative" for the weighted
- * estimators when the importance weights at the effective horizon have a Kish effective size
- * below max(10, 10 % of the episodes) — the weights then rest on a handful of episodes (and the
- * doubly robust estimate falls back on the same fitted Q, so agreement would prove little).
+ * The cross-checks of one model by other methods, each with the assumption it rests on and a
+ * verdict against fitted Q-evaluation from the paired bootstrap (src/core/offPolicy/
+ * crossCheckVerdict.ts states the rule: informative only when it could see an error of 10 % of J,
+ * with enough effective weight and little extrapolation; disagrees beyond 3 paired standard errors
+ * and 2 % of J). The verdicts together give the headline: confirmed, contradicted or unconfirmed.
  */
-import type { Agreement, CrossCheck, CrossCheckMethod, ImportanceWeightDiagnostics } from './assessment';
+import { confirmationOf, crossCheckVerdict, type CrossCheckEvidence } from '../core/offPolicy/crossCheckVerdict';
+import type { CrossCheck, CrossCheckMethod, ImportanceWeightDiagnostics } from './assessment';
 import type { CandidateWork } from './assessCandidate';
 import { intervalEstimate, pairedReplicates } from './assessIntervals';
 import type { CandidateReplicates, Replicates } from './assessResamples';
-
-export const AGREEMENT_THRESHOLDS = { standardErrors: 3, relative: 0.02, minEffectiveEpisodes: 10, minEffectiveShare: 0.1 } as const;
+import { ROLLOUT_STARTS, type RolloutOutcome } from './assessRollouts';
 
 const ASSUMPTIONS: Record<CrossCheckMethod, { label: string; assumption: string }> = {
   weightedImportanceSampling: {
     label: 'Weighted per-decision importance sampling',
-    assumption: 'The logged actions were drawn from the fitted behaviour model (linear-Gaussian in the state, clipped at limits seen in the logs), ' +
-      'the candidate only takes actions the logged controller could also have taken, and episodes are independent. Uses the logged rewards only, ' +
-      'no model of Q; self-normalised per step, so slightly biased in small samples but consistent.',
+    assumption: 'The logged actions were drawn from the present controller’s fitted model (linear-Gaussian in the state, clipped at the limits seen in the logs), ' +
+      'the candidate only takes actions the logged controller could also have taken, and runs are independent. Uses the logged rewards; past a run that ends on a time limit ' +
+      'it adds the fitted value there, discounted. Self-normalised per step, so slightly biased in small samples but consistent.',
   },
   weightedDoublyRobust: {
     label: 'Weighted doubly robust',
-    assumption: 'Consistent when either the fitted Q or the behaviour model is right. It shares the fitted Q with the main estimate: when the ' +
+    assumption: 'Consistent when either the fitted Q or the present controller’s model is right. It shares the fitted Q with the main estimate: when the ' +
       'importance weights are concentrated it falls back on that Q and cannot confirm it. The Q part is held at the full-data fit across resamples.',
+  },
+  modelRollouts: {
+    label: 'Rollouts of a fitted plant model',
+    assumption: 'The plant’s next state and the reward are polynomials of the state and action with Gaussian noise, as fitted to the logs by least squares; ' +
+      `the candidate is simulated on that model from up to ${ROLLOUT_STARTS} start states. Shares no fit with Q, so it can see an error in it; it extrapolates ` +
+      'where the simulated states leave the logged range, and says how often they do.',
   },
   linearQuadraticModel: {
     label: 'Linear-quadratic model (closed form)',
@@ -38,50 +41,57 @@ export interface CrossCheckInputs {
   work: CandidateWork;
   replicates: CandidateReplicates;
   points: { importanceSampling: number | null; doublyRobust: number | null; model: number | null };
+  rollout: RolloutOutcome;
   weights: ImportanceWeightDiagnostics | null;
+  /** Mean over runs of γ^T past a time-limited end: the share of the discount weight the logs do not hold. */
+  tailWeight: number;
   offPolicyReason: string | null;
   modelReason: string | null;
   level: number;
   sign: number;
 }
 
-export function crossChecks(inputs: CrossCheckInputs): CrossCheck[] {
-  const { replicates: r, points } = inputs;
-  return [
-    crossCheck('weightedImportanceSampling', points.importanceSampling, r.importanceSampling, inputs.offPolicyReason, inputs),
-    crossCheck('weightedDoublyRobust', points.doublyRobust, r.doublyRobust, inputs.offPolicyReason, inputs),
-    crossCheck('linearQuadraticModel', points.model, r.model, inputs.modelReason, inputs),
+export function crossChecks(inputs: CrossCheckInputs): { checks: CrossCheck[]; confirmation: { status: 'confirmed' | 'contradicted' | 'unconfirmed'; text: string } } {
+  const { replicates: r, points, weights } = inputs;
+  const importance = weights ? { effectiveEpisodes: weights.horizonEffectiveEpisodes, episodesReaching: weights.horizonEpisodes, horizonSteps: weights.horizonSteps, tailWeight: inputs.tailWeight } : undefined;
+  const checks = [
+    crossCheck('weightedImportanceSampling', points.importanceSampling, r.importanceSampling, inputs.offPolicyReason, inputs, { weights: importance }),
+    crossCheck('weightedDoublyRobust', points.doublyRobust, r.doublyRobust, inputs.offPolicyReason, inputs, { weights: importance }),
+    rolloutCrossCheck(inputs),
+    crossCheck('linearQuadraticModel', points.model, r.model, inputs.modelReason, inputs, {}),
   ];
+  const verdicts = checks.filter((c) => c.agreement !== 'notApplicable').map((c) => ({ label: c.label, agreement: c.agreement as 'agrees' | 'disagrees' | 'uninformative', note: c.note }));
+  return { checks, confirmation: confirmationOf(verdicts) };
 }
 
-function crossCheck(method: CrossCheckMethod, point: number | null, replicates: Replicates | null, reason: string | null, inputs: CrossCheckInputs): CrossCheck {
+function crossCheck(
+  method: CrossCheckMethod, point: number | null, replicates: Replicates | null, reason: string | null, inputs: CrossCheckInputs,
+  evidence: Pick<CrossCheckEvidence, 'weights' | 'shareOutsideLogs'>,
+): CrossCheck {
   const { label, assumption } = ASSUMPTIONS[method];
-  if (point === null || replicates === null) {
-    return { method, label, assumption, estimate: null, difference: null, agreement: 'notApplicable', note: `Not applicable: ${reason ?? 'no estimate on the full data'}.` };
-  }
+  if (point === null || replicates === null) return notApplicable(method, reason);
   const fqe = inputs.work.model.fit.policyValue;
-  const estimate = intervalEstimate(point, replicates, inputs.level, inputs.sign);
-  const difference = intervalEstimate(point - fqe, pairedReplicates(replicates, inputs.replicates.fqe), inputs.level, inputs.sign);
+  const estimate = intervalEstimate(point, replicates, inputs.level, inputs.sign, 'sampling of the logged runs');
+  const difference = intervalEstimate(point - fqe, pairedReplicates(replicates, inputs.replicates.fqe), inputs.level, inputs.sign, 'sampling of the logged runs, paired');
   // Without replicates of the main estimate (a network) the check's own standard error stands in for the paired one.
-  const standardError = difference.standardError ?? estimate.standardError;
-  const { agreement, note } = verdict(method, point - fqe, standardError, fqe, inputs.weights, difference.standardError !== null);
-  return { method, label, assumption, estimate, difference, agreement, note };
+  const standardError = difference.standardError ?? estimate.standardError ?? Infinity;
+  const verdict = crossCheckVerdict({ label, difference: point - fqe, differenceStandardError: standardError, fqe, ...evidence });
+  return { method, label, assumption, estimate, difference, agreement: verdict.agreement, note: verdict.note };
 }
 
-function verdict(
-  method: CrossCheckMethod, delta: number, standardError: number | null, fqe: number, weights: ImportanceWeightDiagnostics | null, paired: boolean,
-): { agreement: Agreement; note: string } {
-  const t = AGREEMENT_THRESHOLDS;
-  const relative = Math.abs(delta) / Math.max(Math.abs(fqe), Number.MIN_VALUE);
-  const z = standardError && standardError > 0 ? Math.abs(delta) / standardError : Infinity;
-  const of = paired ? 'of the paired difference' : 'of this check (the main estimate has no resamples)';
-  const gap = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J (${Number.isFinite(z) ? z.toFixed(1) : '∞'} standard errors ${of})`;
-  if (method !== 'linearQuadraticModel' && weights) {
-    const needed = Math.max(t.minEffectiveEpisodes, t.minEffectiveShare * weights.horizonEpisodes);
-    if (weights.horizonEffectiveEpisodes < needed) {
-      return { agreement: 'uninformative', note: `Uninformative: at step ${weights.horizonSteps} the importance weights have an effective size of ${weights.horizonEffectiveEpisodes.toFixed(1)} episodes (below ${needed.toFixed(0)}); it ${gap}.` };
-    }
-  }
-  if (z > t.standardErrors && relative > t.relative) return { agreement: 'disagrees', note: `Disagrees: it ${gap}.` };
-  return { agreement: 'agrees', note: `Agrees: it ${gap}.` };
+function rolloutCrossCheck(inputs: CrossCheckInputs): CrossCheck {
+  const method: CrossCheckMethod = 'modelRollouts', { label, assumption } = ASSUMPTIONS[method], r = inputs.rollout;
+  if ('reason' in r) return notApplicable(method, r.reason);
+  const fqe = inputs.work.model.fit.policyValue, covers = `sampling of the logged runs (${r.differenceReplicates.length} resamples), paired`;
+  const difference = intervalEstimate(r.difference, r.differenceReplicates, inputs.level, inputs.sign, covers);
+  const estimate = { ...intervalEstimate(r.value, [], inputs.level, inputs.sign, `the model's value over ${r.starts} start states`) };
+  // The resamples reuse the rollouts' random numbers, so the Monte Carlo error of the full-data value is added on top of their spread.
+  const standardError = Math.hypot(difference.standardError ?? Infinity, r.monteCarloError);
+  const verdict = crossCheckVerdict({ label, difference: r.difference, differenceStandardError: standardError, fqe, shareOutsideLogs: r.shareOutsideLogs });
+  return { method, label, assumption, estimate, difference, agreement: verdict.agreement, note: verdict.note };
+}
+
+function notApplicable(method: CrossCheckMethod, reason: string | null): CrossCheck {
+  const { label, assumption } = ASSUMPTIONS[method];
+  return { method, label, assumption, estimate: null, difference: null, agreement: 'notApplicable', note: `Not applicable: ${reason ?? 'no estimate on the full data'}.` };
 }

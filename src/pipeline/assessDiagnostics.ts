@@ -1,65 +1,77 @@
 /**
- * Coverage diagnostics of one candidate and the warnings they raise. Thresholds, as stated in the
- * report (which are rules of thumb is said beside each):
- *   - distribution shift νᵀΣ⁻¹ν (Duan, Jia & Wang 2020): caution above 4, serious above 25 — the
- *     error bound scales with its square root, so these are 2× and 5× the on-policy level (ours);
- *   - importance weights: Kish effective size at the effective horizon below 10 % of the episodes
- *     reaching it is a caution, below 1 % serious (a common rule of thumb in importance sampling);
- *   - action support: a mean outside-probability above 10 % is a caution, above 25 % serious (ours;
- *     the logged controller's own level is shown beside it for scale).
+ * Coverage diagnostics of one model and the warnings they raise, each by one rule stated once
+ * (src/core/diagnostics/severity.ts: thresholds and sentences): the calibrated occupancy shift
+ * (src/core/diagnostics/occupancyShift.ts, 1 = like the logs), the effective size of the importance
+ * weights at the effective horizon, and the candidate's action probability outside the actions
+ * logged nearby, each beside the present controller's own level for scale.
  */
-import { createActionQuadrature } from '../core/actionQuadrature';
-import { meanStartFeatures, policyFeatureMean } from '../core/features/policyFeatures';
-import { distributionShift, nextStateFeatureMean } from '../core/diagnostics/distributionShift';
+import { resampleBellmanStatistics } from '../core/bootstrap/episodeBellmanSums';
+import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
+import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
+import { meanStartFeatures } from '../core/features/policyFeatures';
 import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { effectiveSampleSizeFromLogs } from '../core/diagnostics/effectiveSampleSize';
-import { ridgeGram, ridgeGramFactor } from '../core/fqe/ridgeSystem';
+import { occupancyShift } from '../core/diagnostics/occupancyShift';
+import { actionSupportFinding, effectiveShareFinding, occupancyShiftFinding } from '../core/diagnostics/severity';
+import type { BellmanStatistics } from '../core/fqe/bellmanStatistics';
 import type { ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import type { GaussianPolicy } from '../core/policy';
 import type { ActionSupportDiagnostics, AssessmentWarning, CoverageDiagnostics, ImportanceWeightDiagnostics } from './assessment';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
-import type { LinearMaterial } from './model/candidateModel';
+import type { CandidateModel } from './model/candidateModel';
+import type { EvaluationPlan } from './plan/evaluationPlan';
 
-export const COVERAGE_THRESHOLDS = {
-  distributionShift: { caution: 4, serious: 25 },
-  effectiveShare: { caution: 0.1, serious: 0.01 },
-  outside: { caution: 0.1, serious: 0.25 },
-} as const;
+/** Resamples on which the shift is recomputed for its upper percentile (each costs O(e·d² + d³); ours). */
+const SHIFT_RESAMPLES = 100;
 
-export interface BehaviourReference {
-  policy: GaussianPolicy | null;
-  /** Mean share of its action probability outside the logged range near each state. */
-  meanOutside: number | null;
+export interface CoverageReference {
+  /** The present controller's own shift and outside-share: the logs' own level. */
+  presentControllerShift: number | null;
+  presentControllerOutside: number | null;
 }
 
-export function coverageDiagnostics(work: CandidateWork, context: AssessmentContext, ranges: LoggedActionRanges, behaviour: BehaviourReference): CoverageDiagnostics {
-  const { model } = work, linear = model.linear;
-  const settings = context.plan.approximator;
-  const shift = linear && settings.kind === 'linear' ? linearShift(linear, settings.ridge, context, behaviour.policy) : null;
+export function coverageDiagnostics(work: CandidateWork, context: AssessmentContext, ranges: LoggedActionRanges, reference: CoverageReference): CoverageDiagnostics {
+  const shiftModel = linearModelOf(work);
+  const shift = shiftModel ? shiftOf(context.plan, shiftModel) : null;
   return {
-    distributionShiftStart: shift?.start ?? null,
-    distributionShiftNext: shift?.next ?? null,
-    behaviourShiftStart: shift?.behaviourStart ?? null,
-    behaviourShiftNext: shift?.behaviourNext ?? null,
+    occupancyShift: shift, occupancyShiftUpper: shiftModel && shift !== null ? shiftUpper(context, shiftModel) : null,
+    presentControllerShift: reference.presentControllerShift,
+    shiftFeatures: shiftModel ? `${work.model.linear ? 'the fit’s own' : 'degree-2 polynomial'} features (${shiftModel.linear!.features.dim})` : 'none: no linear fit to measure it in',
     importanceWeights: 'perDecision' in work.offPolicy ? weightDiagnostics(work.offPolicy.table, context.plan.discount) : null,
-    actionSupport: actionSupport(model.policy, ranges, behaviour.meanOutside),
+    actionSupport: actionSupport(work.model.policy, ranges, reference.presentControllerOutside),
   };
 }
 
-/** νᵀΣ⁻¹ν of the candidate and of the fitted behaviour (ν by its own action quadrature), with the same features and Σ. */
-function linearShift(linear: LinearMaterial, ridge: number, context: AssessmentContext, behaviour: GaussianPolicy | null) {
-  const { features, statistics: stats } = linear, { data, starts } = context.plan, d = features.dim;
-  const factor = ridgeGramFactor(ridgeGram(stats, ridge, features.constantIndex), d, ridge);
-  const next = nextStateFeatureMean(stats, features.constantIndex);
-  let behaviourStart: number | null = null, behaviourNext: number | null = null;
-  if (behaviour) {
-    const quadrature = createActionQuadrature(behaviour, context.plan.quadratureNodes);
-    behaviourStart = distributionShift(policyFeatureMean(features, quadrature, starts.states, data.stateDim), factor, d);
-    behaviourNext = distributionShift(policyFeatureMean(features, quadrature, data.nextStates, data.stateDim, data.terminal), factor, d);
+/** The model whose features the shift is measured in: the candidate's own linear fit, or its degree-2 class beside a network. */
+export function linearModelOf(work: CandidateWork): CandidateModel | null {
+  if (work.model.linear) return work.model;
+  return work.classes.find((c) => c.model.linear && c.label === 'polynomial, degree 2')?.model ?? null;
+}
+
+/** The calibrated shift of a linear model on the full data; null where it cannot be formed. */
+export function shiftOf(plan: EvaluationPlan, model: CandidateModel, statistics?: BellmanStatistics, startFeatureMean?: Float64Array): number | null {
+  const linear = model.linear!;
+  const result = occupancyShift({
+    statistics: statistics ?? linear.statistics, startFeatureMean: startFeatureMean ?? meanStartFeatures(linear.startFeatures, linear.features.dim),
+    discount: plan.discount, ridge: linear.ridge, constantIndex: linear.features.constantIndex,
+  });
+  return 'shift' in result ? result.shift : null;
+}
+
+/** The 90th percentile of the shift over the first resamples (exact per-episode sums only); the estimate is right-skewed. */
+function shiftUpper(context: AssessmentContext, model: CandidateModel): number | null {
+  const { plan } = context, linear = model.linear!, r = linear.resampling;
+  if (r.kind !== 'exact') return null;
+  const e = plan.episodes.episodes, c = new Uint32Array(e), d = linear.features.dim, values: number[] = [];
+  for (let b = 0; b < SHIFT_RESAMPLES; b++) {
+    episodeMultiplicities(e, plan.seed, b, c);
+    const weights = plan.starts.followEpisodes ? startMultiplicities(c, plan.starts.episode) : undefined;
+    const v = shiftOf(plan, model, resampleBellmanStatistics(r.sums, c), meanStartFeatures(linear.startFeatures, d, weights));
+    if (v !== null) values.push(v);
   }
-  return {
-    start: distributionShift(meanStartFeatures(linear.startFeatures, d), factor, d), next: next && distributionShift(next, factor, d), behaviourStart, behaviourNext,
-  };
+  if (values.length < 10) return null;
+  values.sort((a, b) => a - b);
+  return values[Math.min(values.length - 1, Math.floor(0.9 * values.length))];
 }
 
 function weightDiagnostics(table: ImportanceWeightTable, discount: number): ImportanceWeightDiagnostics {
@@ -88,52 +100,12 @@ function actionSupport(policy: GaussianPolicy, ranges: LoggedActionRanges, behav
   };
 }
 
+/** The findings of the severity rule (src/core/diagnostics/severity.ts), one text per rule. */
 export function coverageWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
-  const t = COVERAGE_THRESHOLDS, out: AssessmentWarning[] = [];
-  out.push(...shiftWarnings(d));
-  const w = d.importanceWeights;
-  if (w && w.horizonEpisodes > 0 && w.horizonEffectiveEpisodes < t.effectiveShare.caution * w.horizonEpisodes) {
-    out.push({
-      severity: w.horizonEffectiveEpisodes < t.effectiveShare.serious * w.horizonEpisodes ? 'serious' : 'caution', topic: 'importanceWeights',
-      message: `Importance weights at step ${w.horizonSteps}: effective size ${w.horizonEffectiveEpisodes.toFixed(1)} of ${w.horizonEpisodes} episodes ` +
-        `(below ${100 * t.effectiveShare.caution} %, a common rule of thumb): the importance-sampling cross-checks rest on a few episodes.`,
-    });
-  }
-  const a = d.actionSupport;
-  if (a.meanOutside > t.outside.caution) {
-    const reference = a.behaviourMeanOutside === null ? '' : ` (the logged controller itself: ${(100 * a.behaviourMeanOutside).toFixed(1)} %)`;
-    out.push({
-      severity: a.meanOutside > t.outside.serious ? 'serious' : 'caution', topic: 'actionSupport',
-      message: `On average ${(100 * a.meanOutside).toFixed(1)} % of the candidate’s action probability lies outside the actions logged at the ${a.neighbours} nearest logged states${reference}: ` +
-        'there Q is extrapolated to actions the logs do not hold.',
-    });
-  }
-  return out;
-}
-
-/**
- * The next-state shift is the candidate's own (same states, its actions); the start-state shift
- * also says how unusual the start states are in the logs, so it is read beside the behaviour's.
- */
-function shiftWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
-  const t = COVERAGE_THRESHOLDS.distributionShift, out: AssessmentWarning[] = [];
-  const bound = (v: number) => `the error bound of linear FQE grows with its square root, here ${Math.sqrt(v).toFixed(1)}× the on-policy level`;
-  const next = d.distributionShiftNext;
-  if (next !== null && next > t.caution) {
-    out.push({
-      severity: next > t.serious ? 'serious' : 'caution', topic: 'distributionShift',
-      message: `Distribution shift over the logged next states νᵀΣ⁻¹ν = ${next.toPrecision(3)} (1 means none): ${bound(next)}. The candidate asks for actions in combinations the logs rarely contain.`,
-    });
-  }
-  const start = d.distributionShiftStart, reference = d.behaviourShiftStart;
-  if (start !== null && start > t.caution) {
-    const own = reference === null ? '' : ` (the logged controller itself: ${reference.toPrecision(3)})`;
-    const ratherStarts = reference !== null && start < 2 * reference;
-    out.push({
-      severity: start > t.serious && !ratherStarts ? 'serious' : 'caution', topic: 'distributionShift',
-      message: `Distribution shift over the start states νᵀΣ⁻¹ν = ${start.toPrecision(3)}${own}: ${bound(start)}. ` +
-        (ratherStarts ? 'The start states themselves lie where the logs are thin, so J leans on extrapolated values there.' : 'The candidate’s actions at the start states lie where the logs are thin.'),
-    });
-  }
-  return out;
+  const findings = [
+    d.occupancyShift === null ? null : occupancyShiftFinding(d.occupancyShift, d.presentControllerShift),
+    d.importanceWeights ? effectiveShareFinding(d.importanceWeights.horizonEffectiveEpisodes, d.importanceWeights.horizonEpisodes, d.importanceWeights.horizonSteps) : null,
+    actionSupportFinding(d.actionSupport.meanOutside, d.actionSupport.neighbours, d.actionSupport.behaviourMeanOutside),
+  ];
+  return findings.filter((f): f is AssessmentWarning => f !== null);
 }

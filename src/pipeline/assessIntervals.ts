@@ -7,16 +7,19 @@ import { bootstrapInterval } from '../core/bootstrap/bootstrapInterval';
 import type { IntervalEstimate, PairedDifference, Ranking } from './assessment';
 import type { Replicates } from './assessResamples';
 
+/** What a bootstrap interval over runs covers, unless said otherwise. */
+export const SAMPLING_ONLY = 'sampling of the logged runs only, with the function class held fixed';
+
 /** sign = −1 for a cost project, 1 for a reward project. */
-export function intervalEstimate(point: number, replicates: Replicates, level: number, sign: number): IntervalEstimate {
+export function intervalEstimate(point: number, replicates: Replicates, level: number, sign: number, covers: string = SAMPLING_ONLY): IntervalEstimate {
   const values = replicates.filter((v): v is number => v !== null && Number.isFinite(v));
   const failedReplicates = replicates.length - values.length;
   if (values.length < 2) {
-    return { value: sign * point, standardError: null, percentile: null, basic: null, replicates: values.length, failedReplicates };
+    return { value: sign * point, standardError: null, percentile: null, basic: null, replicates: values.length, failedReplicates, covers };
   }
   const iv = bootstrapInterval(point, values, level);
   const flip = ([lo, hi]: readonly [number, number]): [number, number] => (sign > 0 ? [lo, hi] : [-hi, -lo]);
-  return { value: sign * point, standardError: iv.standardError, percentile: flip(iv.percentile), basic: flip(iv.basic), replicates: values.length, failedReplicates };
+  return { value: sign * point, standardError: iv.standardError, percentile: flip(iv.percentile), basic: flip(iv.basic), replicates: values.length, failedReplicates, covers };
 }
 
 /** a_b − b_b on the resamples where both have a value. */
@@ -58,7 +61,8 @@ export function ranking(estimators: Estimator[]): Ranking {
     }
     if (holds) whole++;
   }
-  const share = (count: number) => (usable ? count / usable : null);
+  // With fewer than two policies there is no order to hold.
+  const share = (count: number) => (usable && estimators.length > 1 ? count / usable : null);
   return {
     order: order.map((e) => e.name),
     frequency: share(whole),

@@ -1,35 +1,44 @@
 /**
  * The definitions and thresholds behind an assessment, stated once in words for the report and
- * the JSON, so a reviewer can see what each number means without reading the code.
+ * the JSON, so a reviewer can see what each number means without reading the code. Every threshold
+ * is quoted from the constant the code applies (src/core/diagnostics/severity.ts,
+ * crossCheckVerdict.ts, functionClassRange.ts).
  */
 import { DEFAULT_ACTION_SUPPORT } from '../core/diagnostics/actionSupport';
-import { AGREEMENT_THRESHOLDS } from './assessCrossChecks';
-import { COVERAGE_THRESHOLDS } from './assessDiagnostics';
+import { CLASS_AGREEMENT } from '../core/diagnostics/functionClassRange';
+import { actionSupportRuleText, effectiveShareRuleText, occupancyShiftRuleText } from '../core/diagnostics/severity';
+import { CROSS_CHECK_RULE } from '../core/offPolicy/crossCheckVerdict';
+import { COMPARED_DEGREES, MAX_CLASS_FEATURES } from './assessClasses';
 import { MODEL_THRESHOLDS } from './assessModelCheck';
+import { ROLLOUT_RESAMPLES, ROLLOUT_STARTS, ROLLOUTS_PER_START, ROLLOUTS_TOTAL } from './assessRollouts';
 import type { AssessmentSettings } from './assessSettings';
 
-export function methodStatements(settings: AssessmentSettings, episodes: number, startsFollowEpisodes: boolean, approximator: 'linear' | 'network'): string[] {
+export function methodStatements(settings: AssessmentSettings, episodes: number, startsFollowEpisodes: boolean, resampling: string): string[] {
   const pct = (x: number) => `${Math.round(100 * x)} %`;
-  const c = COVERAGE_THRESHOLDS, a = AGREEMENT_THRESHOLDS, m = MODEL_THRESHOLDS, k = DEFAULT_ACTION_SUPPORT;
+  const a = CROSS_CHECK_RULE, m = MODEL_THRESHOLDS, k = DEFAULT_ACTION_SUPPORT, c = CLASS_AGREEMENT;
   return [
-    `Intervals: nonparametric bootstrap over the ${episodes} logged episodes (whole episodes drawn with replacement; Hao et al. 2021), ` +
+    `Intervals: nonparametric bootstrap over the ${episodes} logged runs (whole runs drawn with replacement; Hao et al. 2021), ` +
       `${settings.resamples} resamples, seed ${settings.seed}, level ${pct(settings.level)}; percentile and basic intervals (Davison & Hinkley 1997, §5.2–5.3). ` +
-      (approximator === 'linear'
-        ? 'Each resample reruns the linear fit on that resample (same features, ridge, discount and tolerance) from per-episode sums.'
-        : 'With the network approximator the candidates are not resampled (each resample would refit the network), so their J has no interval; the baseline and the cross-checks are.') +
-      (startsFollowEpisodes ? ' Start states are resampled with their episodes.' : ' The given start states are held fixed.'),
-    'Baseline: the logged behaviour’s own discounted return per episode, resampled with the same episodes, so every candidate is compared with it by a paired bootstrap.',
-    `Cross-checks agree unless the paired difference exceeds ${a.standardErrors} of its standard errors and ${pct(a.relative)} of J (our rule). ` +
-      `Importance-weighted checks are uninformative when the weights at the effective horizon have a Kish effective size below max(${a.minEffectiveEpisodes}, ${pct(a.minEffectiveShare)} of the episodes).`,
-    `Model-based check: used only when each next state has linear-dynamics R² ≥ ${m.dynamicsRSquared}, quadratic terms explain at most ${pct(m.curvatureShare)} ` +
-      `of its residual sum of squares, and the quadratic reward fit has R² ≥ ${m.rewardRSquared} (our thresholds).`,
-    `Distribution shift νᵀΣ⁻¹ν (Duan, Jia & Wang 2020): ν is the candidate’s mean feature vector over the start states, and over the logged next states, with the candidate’s actions ` +
-      `by the action quadrature; Σ the logged feature second moment (with the fit’s ridge). 1 means no shift; caution above ${c.distributionShift.caution}, serious above ${c.distributionShift.serious} (our rule).`,
-    `Importance weights: Kish effective sample size (Kish 1965) of the one-step ratios and of the cumulative weights at the effective horizon 1/(1 − γ); ` +
-      `caution below ${pct(c.effectiveShare.caution)} of the episodes, serious below ${pct(c.effectiveShare.serious)} (a common rule of thumb).`,
-    `Action support: for up to ${k.queryStates} logged states, the logged actions at the ${k.neighbours} nearest logged states (states scaled by their standard deviations; ` +
-      `searched among up to ${k.referenceStates.toLocaleString('en-US')} logged states) give a range; the share of the candidate’s action probability outside it is averaged. ` +
-      `Caution above ${pct(c.outside.caution)}, serious above ${pct(c.outside.serious)} (our rule); the logged controller’s own share is shown for scale.`,
+      `How each candidate is resampled: ${resampling}.` + (startsFollowEpisodes ? ' Start states are resampled with their runs.' : ' The given start states are held fixed.') +
+      ' These intervals cover the sampling of the runs only, with the function class held fixed.',
+    `Function classes: each candidate is also fitted with polynomial features of degree ${COMPARED_DEGREES.join(', ')} (up to ${MAX_CLASS_FEATURES} features) on the same resamples. ` +
+      `The classes agree unless a pair differs by more than ${c.standardErrors} paired standard errors and ${pct(c.relative)} of J; ` +
+      'the reported range spans every class’s interval, so it covers sampling and the spread between the classes fitted — not a bias they all share.',
+    'Baseline: the present controller is modelled from the log (linear-Gaussian in the state, clipped at the logged limits and fitted there by censored maximum likelihood) ' +
+      'and evaluated by the same fitted Q-evaluation as the candidates, on the same resamples; every candidate is compared with it. The logged discounted return ' +
+      'is shown as a check, cut short where runs end on a time limit, and completed there by the fitted value γ^T·V̂(s_T).',
+    `Cross-checks are informative only when they could see an error of ${pct(a.detectableGap)} of J (three paired standard errors within it), with an effective size of at least ` +
+      `max(${a.minEffectiveEpisodes}, ${pct(a.minEffectiveShare)} of the runs) for the importance weights, at most ${pct(a.maxTailWeight)} of the discount weight past the runs’ ends, ` +
+      `and at most ${pct(a.maxShareOutsideLogs)} of simulated steps at the edge of the logged states for the model rollouts; an informative check disagrees when the paired ` +
+      `difference exceeds ${a.standardErrors} standard errors and ${pct(a.relative)} of J (our rule). When no check is informative, the estimate is reported as unconfirmed.`,
+    `Model rollouts: a one-step plant model (polynomial in the state and action) fitted to the logs, simulated from up to ${ROLLOUT_STARTS} start states ` +
+      `(${ROLLOUTS_PER_START} rollouts each, at least ${ROLLOUTS_TOTAL} in all), on the first ${ROLLOUT_RESAMPLES} resamples; its Monte Carlo error is added to the paired standard error. ` +
+      `Linear-quadratic closed form: used only when each next state has linear-dynamics R² ≥ ${m.dynamicsRSquared}, ` +
+      `quadratic terms explain at most ${pct(m.curvatureShare)} of its residual sum of squares, and the quadratic reward fit has R² ≥ ${m.rewardRSquared} (our thresholds).`,
+    occupancyShiftRuleText(),
+    effectiveShareRuleText(),
+    `${actionSupportRuleText()} The logged range near a state is that of the actions at the ${k.neighbours} nearest logged states (states scaled by their standard deviations), ` +
+      `for up to ${k.queryStates} logged states.`,
     'Never-visited region: the share of the value-surface grid (spanning the logged range of its two states) with no logged state at a grid point or its 8 neighbours (our definition); V there is extrapolated.',
   ];
 }

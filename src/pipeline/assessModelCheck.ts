@@ -19,7 +19,7 @@ import {
   type LinearQuadraticModelFit, type ModelRegressions,
 } from '../core/offPolicy/linearQuadraticModel';
 import { ModelValueError } from '../core/offPolicy/modelBasedValue';
-import type { GaussianPolicy } from '../core/policy';
+import { notAffineReason, type GaussianPolicy } from '../core/policy';
 import type { TransitionSet } from '../core/transitions';
 
 export const MODEL_THRESHOLDS = { dynamicsRSquared: 0.5, curvatureShare: 0.05, rewardRSquared: 0.9, maxInputs: 8 } as const;
@@ -61,9 +61,8 @@ export function checkLinearQuadraticModel(data: TransitionSet, index: EpisodeInd
 /** Why the model check cannot be used for this candidate, or null when it can. */
 export function modelInapplicability(check: ModelCheck, policy: GaussianPolicy): string | null {
   if (!check.fitsData) return check.summary;
-  const b = policy.bounds;
-  if (b && (b.lo.some(Number.isFinite) || b.hi.some(Number.isFinite))) return 'the candidate has actuator limits, so its actions are not linear-Gaussian';
-  return null;
+  const reason = notAffineReason(policy, 'noLimits');
+  return reason === null ? null : `not applicable to this candidate: ${reason}`;
 }
 
 /** The errors by which a fitted model or a candidate fails the closed form on one resample. */

@@ -1,24 +1,26 @@
 /**
  * The assessment: beside each candidate's J, the evidence a reviewer asks for — bootstrap
- * intervals over episodes, the logged behaviour's baseline on the same resamples, cross-checks by
- * importance sampling, doubly robust and linear-quadratic-model estimates, coverage diagnostics,
- * sensitivity to the discount and the features, and the paired comparison of all policies. It
- * extends the run's models (projectRun.ts): a linear candidate's resamples reweight the per-episode
- * sums its model already holds, and a network candidate is never refitted (no resamples are drawn
- * for it, so its J has no interval).
+ * intervals over runs, the candidate in other function classes, the present controller's model as
+ * the comparable baseline (with the logged return, completed past time limits, as a check),
+ * cross-checks by importance sampling, doubly robust, model rollouts and the linear-quadratic
+ * model, coverage diagnostics, sensitivity to the discount and the features, and the paired
+ * comparison of all policies. It extends the run's models (projectRun.ts): a linear model's
+ * resamples reweight the per-run sums it already holds, and a network is never refitted here.
  */
 import { BootstrapError } from '../core/bootstrap/episodeMultiplicities';
 import { loggedActionRanges } from '../core/diagnostics/actionSupport';
-import { BehaviourModelError } from '../core/behaviourModel';
 import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import type { CancellationCheck } from '../core/fqe/cancellation';
-import { fittedBehaviourPolicy } from '../core/offPolicy/behaviourPolicy';
+import { episodeEnds } from '../core/loggedReturn';
 import { failure, success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import type { ProjectDocument } from '../project/schema';
 import type { Assessment } from './assessment';
 import { AssessmentError, candidateWork, type AssessmentContext, type CandidateWork } from './assessCandidate';
-import { assembleCandidates, comparison, globalWarnings, unvisitedShare } from './assessAssembly';
+import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
+import { classWorks } from './assessClasses';
+import { rolloutCheck, rolloutModel, type RolloutOutcome } from './assessRollouts';
+import { finalStateValues } from './model/completedReturn';
 import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
@@ -72,40 +74,65 @@ export async function assessProject(options: AssessRunOptions & { project: Proje
 
 async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Assessment> {
   const context = assessmentContext(run, options);
-  const works: CandidateWork[] = run.models.map((model, i) => {
-    options.onProgress?.({ stage: 'preparing', done: i, total: run.models.length });
-    return candidateWork(context, model);
-  });
   const { plan } = run, { data, sign } = plan, { settings } = options;
+  const all = [...run.models, ...(run.presentController ? [run.presentController] : [])];
+  const progress = (done: number) => options.onProgress?.({ stage: 'preparing', done, total: all.length });
+  const works: CandidateWork[] = run.models.map((model, i) => {
+    progress(i);
+    return candidateWork(context, model, classWorks(context, model));
+  });
+  progress(run.models.length);
+  const baseline = run.presentController ? candidateWork(context, run.presentController) : null;
+  const baselineEnds = run.presentController ? finalStateValues(plan, run.presentController) : null;
   const modelCheck = checkLinearQuadraticModel(data, plan.episodes);
   const modelReasons = works.map((w) => modelInapplicability(modelCheck, w.model.policy));
-  const logged = plan.loggedReturn;
-  const model = modelCheck.regressions ? { regressions: modelCheck.regressions, applicable: modelReasons.map((r) => r === null) } : null;
-  const replicates = await runResamples(context, works, logged.perEpisode, model, settings,
+  const model = modelCheck.regressions ? {
+    regressions: modelCheck.regressions, applicable: modelReasons.map((r) => r === null),
+    baselineApplicable: baseline !== null && modelInapplicability(modelCheck, baseline.model.policy) === null,
+  } : null;
+  const dynamics = rolloutModel(context);
+  const rollouts: RolloutOutcome[] = works.map((w) => ('reason' in dynamics ? { reason: dynamics.reason } : rolloutCheck(context, w, dynamics, settings)));
+  const baselineRollout = baseline ? ('reason' in dynamics ? { reason: dynamics.reason } : rolloutCheck(context, baseline, dynamics, settings)) : null;
+  const replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings,
     (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
   const ranges = loggedActionRanges(data);
-  const behaviourOutside = context.presentController ? meanOutside(context.presentController, ranges) : null;
-  const candidates = assembleCandidates({ context, works, replicates, modelCheck, modelReasons, ranges, behaviourOutside, settings, sign });
+  const reference = {
+    presentControllerShift: presentControllerShift(plan, baseline),
+    presentControllerOutside: context.presentController ? meanOutside(context.presentController.policy, ranges) : null,
+  };
+  const inputs: AssemblyInputs = {
+    context, works, baseline, replicates, modelCheck, modelReasons, rollouts, baselineRollout, ranges, reference, baselineEnds,
+    tailWeight: baselineEnds ? mean(baselineEnds.tailWeights) : mean(episodeEnds(data, plan.discount).tailWeights), settings,
+  };
+  const candidates = assembleCandidates(inputs);
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
   const unvisited = unvisitedShare(plan);
   return {
     settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver: resampleSolver(works) },
-    behaviour: intervalEstimate(logged.value, replicates.loggedReturn, settings.level, sign),
+    behaviour: intervalEstimate(plan.loggedReturn.value, replicates.loggedReturn, settings.level, sign,
+      'sampling of the logged runs; cut short where runs end on a time limit'),
+    presentController: assemblePresentController(inputs),
     candidates,
-    comparison: comparison(logged.value, replicates, works, settings.level, sign),
+    comparison: comparison(plan, replicates, works, baseline, settings.level),
     sensitivity: settings.sensitivity ? await sensitivity(context, works, sign) : null,
     unvisitedShare: unvisited,
-    warnings: globalWarnings(context, logged.largestTruncationWeight, candidates, unvisited),
-    method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, plan.approximator.kind),
+    warnings: globalWarnings(context, candidates, unvisited),
+    method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, resampleSolver(works)),
     valueSense: plan.sense,
   };
+}
+
+function mean(values: Float64Array): number {
+  let total = 0;
+  for (const v of values) total += v;
+  return values.length ? total / values.length : 0;
 }
 
 function resampleSolver(works: CandidateWork[]): string {
   const kinds = new Set(works.map((w) => w.replicate?.kind ?? 'none'));
   const words: string[] = [];
-  if (kinds.has('exact')) words.push('each resample reweights the fit’s per-episode sums and is solved again');
-  if (kinds.has('linearised')) words.push('each resample is taken to first order around the full-data fixed point from per-episode influence values (the per-episode sums would be too many)');
+  if (kinds.has('exact')) words.push('each resample reweights the fit’s per-run sums and is solved again');
+  if (kinds.has('linearised')) words.push('each resample is taken to first order around the full-data fixed point from per-run influence values (the per-run sums would be too many)');
   if (kinds.has('none')) words.push('candidates whose fit is a network, or did not converge, are not resampled (the logged baseline and the cross-checks are)');
   return words.join('; ');
 }
@@ -113,17 +140,11 @@ function resampleSolver(works: CandidateWork[]): string {
 function assessmentContext(run: ProjectRun, options: AssessRunOptions): AssessmentContext {
   const { plan } = run, data = plan.data;
   if (data.episodeCount < MIN_EPISODES) {
-    throw new AssessmentError(`the bootstrap resamples whole episodes and needs at least ${MIN_EPISODES}; the data have ${data.episodeCount}. ` +
-      'Mark the episodes in the log (columns.episode: a run column, or a time gap) to get intervals');
+    throw new AssessmentError(`the bootstrap resamples whole runs and needs at least ${MIN_EPISODES}; the data have ${data.episodeCount}. ` +
+      'Mark the runs in the log (columns.episode: a run column, or a time gap) to get intervals');
   }
-  let presentController = null, presentControllerReason = '', presentControllerShareAtLimit: number[] = [];
-  try {
-    const fitted = fittedBehaviourPolicy(data);
-    presentController = fitted.policy;
-    presentControllerShareAtLimit = fitted.limits.shareAtLimit;
-  } catch (error) {
-    if (!(error instanceof BehaviourModelError)) throw error;
-    presentControllerReason = `no behaviour model could be fitted (${error.message})`;
-  }
-  return { plan, presentController, presentControllerReason, presentControllerShareAtLimit, cancel: options.cancel, wasmPath: options.wasmPath };
+  return {
+    plan, presentController: plan.presentController.fitted, presentControllerModel: run.presentController,
+    presentControllerReason: run.presentControllerReason, cancel: options.cancel, wasmPath: options.wasmPath,
+  };
 }

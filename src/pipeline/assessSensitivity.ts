@@ -23,6 +23,7 @@ import { loggedDiscountedReturn } from '../core/loggedReturn';
 import type { ApproximatorSettings } from '../project/schema';
 import type { Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
+import { BEHAVIOUR_NAME } from './assessAssembly';
 import { isEngineError } from './engineErrors';
 import { fitNetworkCandidate } from './fitNetworkCandidate';
 import { networkRequest } from './model/networkModel';
@@ -37,7 +38,6 @@ const MAX_UNITS = 1024;
 const WIDTH_FACTORS = [0.5, 1, 2];
 /** Feature maps larger than this are left out of the sweep (each costs a data pass of O(n·K·d²)). */
 const MAX_SWEEP_FEATURES = 300;
-const BEHAVIOUR = 'logged behaviour (today)';
 
 export async function sensitivity(context: AssessmentContext, works: CandidateWork[], sign: number): Promise<Sensitivity> {
   const a = context.plan.approximator;
@@ -63,7 +63,7 @@ function discountCurve(context: AssessmentContext, works: CandidateWork[], sign:
     const fits = settings.map((g) => solveReplicate({ ...setup, discount: g }, statistics, xiBar));
     return { name: w.model.name, values: fits.map((f) => (f.policyValue === null ? null : sign * f.policyValue)), status: fits.map((f) => f.status) };
   });
-  series.push({ name: BEHAVIOUR, values: settings.map((g) => sign * loggedDiscountedReturn(plan.data, g).value), status: settings.map(() => 'logged') });
+  series.push({ name: BEHAVIOUR_NAME, values: settings.map((g) => sign * loggedDiscountedReturn(plan.data, g).value), status: settings.map(() => 'logged') });
   return finish('discount', 'discount factor γ', settings, HORIZON_FACTORS.indexOf(1), series, sign);
 }
 
@@ -98,7 +98,7 @@ async function widthCurve(context: AssessmentContext, works: CandidateWork[], a:
 
 function flatBehaviour(context: AssessmentContext, count: number, sign: number): SensitivitySeries {
   const value = sign * context.plan.loggedReturn.value;
-  return { name: BEHAVIOUR, values: new Array<number>(count).fill(value), status: new Array<string>(count).fill('logged') };
+  return { name: BEHAVIOUR_NAME, values: new Array<number>(count).fill(value), status: new Array<string>(count).fill('logged') };
 }
 
 function sizeOf(context: AssessmentContext, settings: LinearSettings): number {

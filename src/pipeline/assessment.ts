@@ -18,9 +18,11 @@ export interface IntervalEstimate {
   /** Replicates that gave a value, and those that did not (no solution on that resample). */
   replicates: number;
   failedReplicates: number;
+  /** What the interval covers, in words (e.g. sampling of the logged runs only, with the function class held fixed). */
+  covers: string;
 }
 
-export type CrossCheckMethod = 'weightedImportanceSampling' | 'weightedDoublyRobust' | 'linearQuadraticModel';
+export type CrossCheckMethod = 'weightedImportanceSampling' | 'weightedDoublyRobust' | 'modelRollouts' | 'linearQuadraticModel';
 export type Agreement = 'agrees' | 'disagrees' | 'uninformative' | 'notApplicable';
 
 export interface CrossCheck {
@@ -68,14 +70,17 @@ export interface ActionSupportDiagnostics {
 
 export interface CoverageDiagnostics {
   /**
-   * νᵀΣ⁻¹ν with ν over the start states and over the logged next states (1 = no shift); defined
-   * for linear features, so null for a network approximator.
+   * The calibrated shift (src/core/diagnostics/occupancyShift.ts): the candidate's discounted
+   * state–action occupancy against the logs, in the linear features (1 = like the logs); null when
+   * it cannot be formed.
    */
-  distributionShiftStart: number | null;
-  distributionShiftNext: number | null;
-  /** The same statistics for the fitted behaviour model: the level the logs' own controller reaches. */
-  behaviourShiftStart: number | null;
-  behaviourShiftNext: number | null;
+  occupancyShift: number | null;
+  /** Its upper 90 % bootstrap percentile (the estimate is right-skewed); null without resamples. */
+  occupancyShiftUpper: number | null;
+  /** The same measure for the present controller's model: the level the logs' own controller reaches. */
+  presentControllerShift: number | null;
+  /** Which features the shift is measured in (the linear fit's, or a degree-2 polynomial beside a network). */
+  shiftFeatures: string;
   importanceWeights: ImportanceWeightDiagnostics | null;
   actionSupport: ActionSupportDiagnostics;
 }
@@ -95,9 +100,38 @@ export interface ActionSlice {
   loggedRange: [number, number];
 }
 
+/** One function class's estimate of a candidate's J, on the same resamples as every other class. */
+export interface ClassAssessment {
+  label: string;
+  value: number;
+  interval: [number, number] | null;
+  standardError: number | null;
+}
+
+export interface FunctionClassAssessment {
+  classes: ClassAssessment[];
+  /** True when every pair of classes agrees within the rule (src/core/diagnostics/functionClassRange.ts). */
+  settled: boolean;
+  /** The hull of every class's interval, in the project's sense: the range to report. */
+  range: [number, number];
+  /** What the range covers, and why settled or not, in words. */
+  coverage: string;
+  reason: string;
+}
+
 export interface CandidateAssessment {
   name: string;
   policyValue: IntervalEstimate;
+  /**
+   * The value to report: the function-class range when more than one class could be fitted (it
+   * covers sampling and the spread between classes), else the sampling interval; null without either.
+   */
+  reportedRange: [number, number] | null;
+  /** Whether the estimate is settled across function classes; null when only one class was fitted. */
+  settled: boolean | null;
+  functionClasses: FunctionClassAssessment | null;
+  /** Confirmed, contradicted or unconfirmed by the cross-checks, with the sentence for the headline. */
+  confirmation: { status: 'confirmed' | 'contradicted' | 'unconfirmed'; text: string };
   crossChecks: CrossCheck[];
   diagnostics: CoverageDiagnostics;
   slices: ActionSlice[];
@@ -123,6 +157,8 @@ export interface Ranking {
 }
 
 export interface Comparison {
+  /** What every candidate is compared with: the present controller's model (comparable), or the logged return when there is none. */
+  baseline: { name: string; kind: 'presentController' | 'loggedReturn'; note: string };
   differences: PairedDifference[];
   ranking: Ranking;
 }
@@ -159,9 +195,25 @@ export interface AssessmentSettingsUsed {
   solver: string;
 }
 
+/** Today's controller, evaluated like the candidates: the baseline of every comparison. */
+export interface PresentControllerAssessment {
+  name: string;
+  /** J of the present controller's model by fitted Q-evaluation, with its interval. */
+  policyValue: IntervalEstimate;
+  /** The logged return completed past time-limited run ends by the fitted value: a check that leans least on the fit. */
+  completedReturn: IntervalEstimate;
+  /** Its own calibrated shift (about 1 when the log starts in its steady state). */
+  occupancyShift: number | null;
+  crossChecks: CrossCheck[];
+  confirmation: { status: 'confirmed' | 'contradicted' | 'unconfirmed'; text: string };
+}
+
 export interface Assessment {
   settings: AssessmentSettingsUsed;
+  /** The logged discounted return with its interval: a check, cut short where runs end on a time limit. */
   behaviour: IntervalEstimate;
+  /** The comparable baseline; null when today's controller could not be modelled (the comparison then uses the logged return and says so). */
+  presentController: PresentControllerAssessment | null;
   candidates: CandidateAssessment[];
   comparison: Comparison;
   sensitivity: Sensitivity | null;

@@ -62,6 +62,23 @@ export interface LoggedReturnEstimate {
   largestTruncationWeight: number;
 }
 
+/**
+ * Today's controller evaluated as the candidates are: its model fitted to the log
+ * (plan/presentController.ts) through the same fitted Q-evaluation. This is the baseline that
+ * comparisons and the ranking use.
+ */
+export interface PresentControllerEstimate {
+  /** J of the present controller's model by fitted Q-evaluation, with its fit (as for a candidate; surface omitted). */
+  estimate: Omit<PolicyEstimate, 'surface'>;
+  /** The fitted model in the columns' units: μ(s) = offset + gain·s, dither (std), clip limits (null for none). */
+  model: { offset: number[]; gain: number[][]; std: number[]; lo: (number | null)[]; hi: (number | null)[] };
+  /**
+   * The logged return with each run that ends on a time limit completed by γ^T·V̂(s_T), V̂ the
+   * present controller's fitted value: the check on the estimate that leans least on the fit.
+   */
+  completedReturn: { value: number; standardError: number; tailShare: number };
+}
+
 export interface EvaluationSettings {
   discount: number;
   approximator: string;
@@ -77,7 +94,11 @@ export interface Evaluation {
   /** ISO 8601 time the evaluation finished. */
   evaluatedAt: string;
   policies: PolicyEstimate[];
+  /** The logged discounted return (cut short where runs end on a time limit): a check, not the baseline. */
   behaviour: LoggedReturnEstimate;
+  /** The comparable baseline; null when today's controller could not be modelled (presentControllerReason says why). */
+  presentController: PresentControllerEstimate | null;
+  presentControllerReason: string;
   settings: EvaluationSettings;
   /** Sense of the numbers: rewards (higher is better) or costs turned into rewards by sign. */
   valueSense: 'reward' | 'cost';

@@ -9,7 +9,8 @@ import type { TransitionSet } from '../core/transitions';
 import { valueSurface } from '../core/value';
 import type { ProjectDocument } from '../project/schema';
 import { CAUTIONS } from './cautions';
-import type { Evaluation, PolicyEstimate, ValueSurface } from './estimates';
+import type { Evaluation, PolicyEstimate, PresentControllerEstimate, ValueSurface } from './estimates';
+import { completedReturnOf } from './model/completedReturn';
 import type { CandidateModel } from './model/candidateModel';
 import { describeApproximator } from './plan/featureMapFor';
 import type { EvaluationPlan } from './plan/evaluationPlan';
@@ -50,6 +51,8 @@ export function evaluationOf(run: ProjectRun, warnings: string[] = [], now: () =
     evaluatedAt: now().toISOString(),
     policies: run.models.map((m) => policyEstimate(plan, m)),
     behaviour: { value: plan.sign * logged.value, standardError: logged.standardError, episodes: logged.episodes, largestTruncationWeight: logged.largestTruncationWeight },
+    presentController: run.presentController && presentControllerEstimate(run, run.presentController),
+    presentControllerReason: run.presentControllerReason,
     settings: {
       discount: plan.discount, approximator: describeApproximator(plan.approximator), quadratureNodes: plan.quadratureNodes,
       seed: plan.seed, transitions: data.count, episodes: data.episodeCount, startStates: plan.starts.count,
@@ -76,6 +79,22 @@ function policyEstimate(plan: EvaluationPlan, model: CandidateModel): PolicyEsti
     backend: fit.backend,
   };
 }
+
+function presentControllerEstimate(run: ProjectRun, model: CandidateModel): PresentControllerEstimate {
+  const { plan } = run, { surface: _surface, ...estimate } = policyEstimate({ ...plan, surface: null }, model);
+  const fitted = plan.presentController.fitted!.model;
+  const completed = completedReturnOf(plan, model);
+  return {
+    estimate,
+    model: {
+      offset: [...fitted.offset], gain: fitted.gain.map((row) => [...row]), std: [...fitted.std],
+      lo: fitted.offset.map((_, j) => finiteOrNull(fitted.limits.lo[j])), hi: fitted.offset.map((_, j) => finiteOrNull(fitted.limits.hi[j])),
+    },
+    completedReturn: { value: plan.sign * completed.value, standardError: completed.standardError, tailShare: completed.tailShare },
+  };
+}
+
+const finiteOrNull = (v: number): number | null => (Number.isFinite(v) ? v : null);
 
 function surfaceOf(plan: EvaluationPlan, model: CandidateModel): ValueSurface | null {
   const grid = plan.surface;

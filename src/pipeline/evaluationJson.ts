@@ -3,7 +3,7 @@
  * Field names here are a published interface of the CLI: add fields, do not rename them.
  */
 import type { ImportedDataset } from '../data/importDataset';
-import type { Evaluation } from './estimates';
+import type { Evaluation, PolicyEstimate, ValueSurface } from './estimates';
 
 export function evaluationToJson(evaluation: Evaluation): Record<string, unknown> {
   return {
@@ -12,29 +12,22 @@ export function evaluationToJson(evaluation: Evaluation): Record<string, unknown
     valueSense: evaluation.valueSense,
     settings: evaluation.settings,
     behaviour: evaluation.behaviour,
-    policies: evaluation.policies.map((p) => ({
-      name: p.name,
-      policyValue: p.policyValue,
-      standardError: p.standardError,
-      fixedPointValue: p.fixedPointValue,
-      status: p.status,
-      message: p.message,
-      iterations: p.iterations,
-      featureCount: p.featureCount,
-      backend: p.backend,
-      history: p.history,
-      surface: p.surface && {
-        xState: p.surface.xState,
-        yState: p.surface.yState,
-        x: Array.from(p.surface.x),
-        y: Array.from(p.surface.y),
-        values: Array.from(p.surface.values),
-        heldState: p.surface.heldState,
-        visits: Array.from(p.surface.visits),
-      },
-    })),
+    presentController: evaluation.presentController && { ...evaluation.presentController, estimate: policyJson(evaluation.presentController.estimate) },
+    presentControllerReason: evaluation.presentControllerReason,
+    policies: evaluation.policies.map(policyJson),
     warnings: evaluation.warnings,
     cautions: evaluation.cautions,
+  };
+}
+
+function policyJson(p: Omit<PolicyEstimate, 'surface'> & { surface?: ValueSurface | null }): Record<string, unknown> {
+  return {
+    name: p.name, policyValue: p.policyValue, standardError: p.standardError, fixedPointValue: p.fixedPointValue, status: p.status,
+    message: p.message, iterations: p.iterations, featureCount: p.featureCount, backend: p.backend, history: p.history,
+    surface: p.surface && {
+      xState: p.surface.xState, yState: p.surface.yState, x: Array.from(p.surface.x), y: Array.from(p.surface.y),
+      values: Array.from(p.surface.values), heldState: p.surface.heldState, visits: Array.from(p.surface.visits),
+    },
   };
 }
 

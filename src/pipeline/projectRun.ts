@@ -31,6 +31,9 @@ export interface RunHooks extends Omit<ModelHooks, 'onIteration'> {
 export interface ProjectRun {
   readonly plan: EvaluationPlan;
   readonly models: readonly CandidateModel[];
+  /** Today's controller modelled and fitted like a candidate: the comparable baseline; null with a reason when it cannot be. */
+  readonly presentController: CandidateModel | null;
+  readonly presentControllerReason: string;
   /** Releases every model (a network's tensors). */
   dispose(): void;
 }
@@ -41,11 +44,12 @@ export async function startRun(project: ProjectDocument, dataset: TransitionSet,
   const planned = planEvaluation(project, dataset);
   if (!planned.ok) return planned;
   const plan = planned.value, models: CandidateModel[] = [], problems: Problem[] = [];
-  const count = plan.candidates.length;
+  // Every fit is counted in the progress, the present controller's last.
+  const count = plan.candidates.length, total = count + (plan.presentController.planned ? 1 : 0);
   try {
     for (const [i, candidate] of plan.candidates.entries()) {
       const report = (iteration: FitIteration | null, dataPass: EvaluationProgress['dataPass'] = null) =>
-        hooks.onProgress?.({ candidate: candidate.name, candidateIndex: i, candidateCount: count, iteration, dataPass });
+        hooks.onProgress?.({ candidate: candidate.name, candidateIndex: i, candidateCount: total, iteration, dataPass });
       report(null);
       try {
         models.push(await buildModel(plan, candidate, { ...hooks, onIteration: report, onDataPass: (done, total) => report(null, { done, total }) }));
@@ -63,5 +67,31 @@ export async function startRun(project: ProjectDocument, dataset: TransitionSet,
     for (const m of models) m.dispose();
     return failure(...problems);
   }
-  return success({ plan, models, dispose: () => models.forEach((m) => m.dispose()) }, [...plan.warnings]);
+  let baseline: { model: CandidateModel | null; reason: string };
+  try {
+    baseline = await presentControllerModel(plan, hooks, count);
+  } catch (error) {
+    for (const m of models) m.dispose();
+    if (error instanceof FqeCancelledError) return failure(CANCELLED_PROBLEM);
+    throw error;
+  }
+  const all = baseline.model ? [...models, baseline.model] : models;
+  return success({
+    plan, models, presentController: baseline.model, presentControllerReason: baseline.reason, dispose: () => all.forEach((m) => m.dispose()),
+  }, [...plan.warnings]);
+}
+
+/** The present controller's model, fitted after the candidates; an engine error leaves it out with the reason. */
+async function presentControllerModel(plan: EvaluationPlan, hooks: RunHooks, count: number): Promise<{ model: CandidateModel | null; reason: string }> {
+  const planned = plan.presentController.planned;
+  if (!planned) return { model: null, reason: plan.presentController.reason };
+  const report = (iteration: FitIteration | null, dataPass: EvaluationProgress['dataPass'] = null) =>
+    hooks.onProgress?.({ candidate: planned.name, candidateIndex: count, candidateCount: count + 1, iteration, dataPass });
+  report(null);
+  try {
+    return { model: await buildModel(plan, planned, { ...hooks, onIteration: report, onDataPass: (done, total) => report(null, { done, total }) }), reason: '' };
+  } catch (error) {
+    if (!isEngineError(error)) throw error;
+    return { model: null, reason: `the present controller's model could not be fitted (${error.message})` };
+  }
 }

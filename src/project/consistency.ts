@@ -1,33 +1,32 @@
 /**
- * Checks across fields that a per-field schema cannot express: a candidate's gain must have one row
- * per action and one column per state, bounds one limit per action, surface axes must be states.
+ * Checks across fields that a per-field schema cannot express: each candidate against the columns
+ * (candidateConsistency.ts), the derived states (derivedStateConsistency.ts), unique names, next
+ * states and start states of the right length, surface axes that are states.
  */
 import type { Problem } from '../core/result';
 import type { ProjectDocument } from './schema';
+import { checkCandidate, writtenCandidate, writtenCandidatePath } from './candidateConsistency';
+import { checkDerivedStates } from './derivedStateConsistency';
+import { checkRetuneMaps } from './retuneMapConsistency';
 
-export function checkProjectConsistency(doc: ProjectDocument, fileName: string): Problem[] {
+/**
+ * `written`, when given, is the document as the file holds it (before the schema's defaults and
+ * the reading of older field names), so a problem in an older-style candidate names the field as
+ * written there ("gain[0]", "std") rather than as it is held ("form.gain[0]", "dither").
+ */
+export function checkProjectConsistency(doc: ProjectDocument, fileName: string, written?: unknown): Problem[] {
   const problems: Problem[] = [];
   const stateCount = doc.columns.states.length;
-  const actionCount = doc.columns.actions.length;
   const at = (path: string) => `${fileName}, ${path}`;
   doc.candidates.forEach((c, i) => {
     const where = `candidates[${i}] "${c.name}"`;
-    if (c.offset.length !== actionCount) problems.push({ where: at(`${where}.offset`), message: `expected ${actionCount} value(s), one per action column, found ${c.offset.length}` });
-    if (c.std.length !== actionCount) problems.push({ where: at(`${where}.std`), message: `expected ${actionCount} value(s), one per action column, found ${c.std.length}` });
-    if (c.gain.length !== actionCount) problems.push({ where: at(`${where}.gain`), message: `expected ${actionCount} row(s), one per action column, found ${c.gain.length}` });
-    c.gain.forEach((row, r) => {
-      if (row.length !== stateCount) problems.push({ where: at(`${where}.gain[${r}]`), message: `expected ${stateCount} value(s), one per state column, found ${row.length}` });
+    checkCandidate(doc, c, (path, message) => {
+      const asWritten = writtenCandidatePath(writtenCandidate(written, i), path);
+      problems.push({ where: at(`${where}.${asWritten}`), field: ['candidates', i, ...fieldKeys(asWritten)], message });
     });
-    if (c.bounds) {
-      for (const side of ['lo', 'hi'] as const) {
-        if (c.bounds[side].length !== actionCount) problems.push({ where: at(`${where}.bounds.${side}`), message: `expected ${actionCount} limit(s), one per action column (null for none)` });
-      }
-      c.bounds.lo.forEach((lo, k) => {
-        const hi = c.bounds!.hi[k];
-        if (lo !== null && hi !== null && hi !== undefined && !(lo < hi)) problems.push({ where: at(`${where}.bounds`), message: `lower limit ${lo} must be below upper limit ${hi} for action ${k + 1}` });
-      });
-    }
   });
+  checkDerivedStates(doc, (path, message) => problems.push({ where: at(path), field: fieldKeys(path), message }));
+  checkRetuneMaps(doc, (path, message) => problems.push({ where: at(path), field: fieldKeys(path), message }));
   const names = new Set<string>();
   doc.candidates.forEach((c, i) => {
     if (names.has(c.name)) problems.push({ where: at(`candidates[${i}].name`), message: `the name "${c.name}" is used by another candidate; names must be unique` });
@@ -51,4 +50,9 @@ export function checkProjectConsistency(doc: ProjectDocument, fileName: string):
     }
   }
   return problems;
+}
+
+/** "form.loops[0].measurement" → ["form", "loops", 0, "measurement"] (paths this module writes itself). */
+function fieldKeys(path: string): (string | number)[] {
+  return path.split(/\.|(?=\[)/).map((key) => (/^\[\d+\]$/.test(key) ? Number(key.slice(1, -1)) : key));
 }

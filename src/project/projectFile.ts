@@ -15,11 +15,16 @@ export interface LoadedProject {
 }
 
 export function parseProjectText(text: string, fileName: string): Result<LoadedProject> {
+  const body = text.replace(/^\uFEFF/, '');
+  const nesting = jsonNesting(body);
+  if (nesting > MAX_NESTING) {
+    return failure({ where: fileName, message: `is not a readable project file (its JSON nests ${nesting > 10_000 ? 'more than 10,000' : nesting} levels deep; a project nests at most ${MAX_NESTING})` });
+  }
   let raw: unknown;
   try {
-    raw = JSON.parse(text.replace(/^\uFEFF/, ''));
+    raw = JSON.parse(body);
   } catch (e) {
-    return failure({ where: fileName, message: `is not a readable project file (not valid JSON: ${(e as Error).message})` });
+    return failure({ where: fileName, message: `is not a readable project file (not valid JSON${jsonErrorPlace(body, e)})` });
   }
   if (typeof raw !== 'object' || raw === null || Array.isArray(raw)) {
     return failure({ where: fileName, message: 'is not a project file: expected a JSON object' });
@@ -37,7 +42,7 @@ export function parseProjectText(text: string, fileName: string): Result<LoadedP
   }
   const parsed = projectSchema.safeParse(migrated.document);
   if (!parsed.success) return failure(...zodProblems(parsed.error, fileName));
-  const problems = checkProjectConsistency(parsed.data, fileName);
+  const problems = checkProjectConsistency(parsed.data, fileName, migrated.document);
   if (problems.length > 0) return failure(...problems);
   return success({ document: parsed.data, fromVersion: migrated.fromVersion });
 }
@@ -48,10 +53,45 @@ export function serializeProject(document: ProjectDocument): string {
 }
 
 export function zodProblems(error: z.ZodError, fileName: string): Problem[] {
-  return error.issues.map((issue) => ({
-    where: `${fileName}, ${formatPath(issue.path) || '(top level)'}`,
-    message: issue.message,
-  }));
+  return error.issues.map((issue) => {
+    // One unknown field: the location names it (candidates[0].bound), the message the known ones.
+    const path = issue.code === 'unrecognized_keys' && issue.keys.length === 1 ? [...issue.path, issue.keys[0]] : issue.path;
+    return { where: `${fileName}, ${formatPath(path) || '(top level)'}`, message: issue.message };
+  });
+}
+
+/** Deepest JSON nesting a project may have (it needs 5; notes may hold a little structure). */
+const MAX_NESTING = 64;
+
+/** The deepest nesting of [ and { in JSON text (strings skipped), stopping early past 10,000. */
+function jsonNesting(text: string): number {
+  let depth = 0, deepest = 0, inString = false;
+  for (let i = 0; i < text.length; i++) {
+    const c = text.charCodeAt(i);
+    if (inString) {
+      if (c === 0x5c) i++; // backslash: skip the escaped character
+      else if (c === 0x22) inString = false;
+    } else if (c === 0x22) inString = true;
+    else if (c === 0x5b || c === 0x7b) {
+      deepest = Math.max(deepest, ++depth);
+      if (deepest > 10_000) return deepest;
+    } else if (c === 0x5d || c === 0x7d) depth--;
+  }
+  return deepest;
+}
+
+/**
+ * ": line L, column C" of a JSON syntax error when the parser gives a position, else "". The
+ * parser's own message is not shown: it quotes the text around the error, and a file that is not
+ * a project (a key, a password file) must never be echoed.
+ */
+function jsonErrorPlace(text: string, error: unknown): string {
+  const match = /position (\d+)/.exec(error instanceof Error ? error.message : '');
+  if (!match) return '';
+  const position = Number(match[1]);
+  const before = text.slice(0, position);
+  const line = before.split('\n').length, column = position - before.lastIndexOf('\n');
+  return `: line ${line}, column ${column}`;
 }
 
 function formatPath(path: readonly PropertyKey[]): string {

@@ -6,8 +6,10 @@
  * (see migrations.ts). Field names are ours; the README documents them.
  */
 import { z } from 'zod';
+import { MAX_RETUNE_AXES, MAX_RETUNE_AXIS_POINTS, MIN_RETUNE_AXIS_POINTS } from '../core/retune/retuneAxes';
+import { strictObject } from './strictObject';
 import {
-  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES,
+  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
   MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_STATE_COLUMNS, POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE, RIDGE, SEED,
   SURFACE_RESOLUTION, TOLERANCE,
 } from '../core/limits';
@@ -21,7 +23,7 @@ const finite = z.number().refine(Number.isFinite, 'expected a finite number');
 /** A limit that may be absent on one side: null means "no limit". */
 const optionalLimit = finite.nullable();
 
-const signalSchema = z.object({
+const signalSchema = strictObject({
   column: columnName,
   /** Engineering unit shown on axes, e.g. "m", "°C", "%". */
   unit: z.string().default(''),
@@ -31,32 +33,32 @@ const signalSchema = z.object({
 const valueUnit = z.string().max(40).optional();
 
 const rewardSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
-  z.object({ kind: z.literal('expression'), expression: z.string().trim().min(1), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  strictObject({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  strictObject({ kind: z.literal('expression'), expression: z.string().trim().min(1).max(MAX_EXPRESSION_LENGTH, `expected at most ${MAX_EXPRESSION_LENGTH} characters`), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
 ]);
 
 const nextStateSchema = z.discriminatedUnion('kind', [
   /** s' is the state on the next row of the same episode. */
-  z.object({ kind: z.literal('nextRow') }),
+  strictObject({ kind: z.literal('nextRow') }),
   /** s' is given on the same row, one column per state, in the order of `states`. */
-  z.object({ kind: z.literal('columns'), columns: z.array(columnName).min(1) }),
+  strictObject({ kind: z.literal('columns'), columns: z.array(columnName).min(1) }),
 ]);
 
 const episodeSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('column'), column: columnName }),
+  strictObject({ kind: z.literal('column'), column: columnName }),
   /** A new episode starts where the timestamp jumps by more than maxGapSeconds (default: 3× the median period). */
-  z.object({ kind: z.literal('timeGap'), column: columnName, maxGapSeconds: finite.positive().optional() }),
-  z.object({ kind: z.literal('single') }),
+  strictObject({ kind: z.literal('timeGap'), column: columnName, maxGapSeconds: finite.positive().optional() }),
+  strictObject({ kind: z.literal('single') }),
 ]);
 
-export const csvSettingsSchema = z.object({
+export const csvSettingsSchema = strictObject({
   delimiter: z.enum(['auto', ',', ';', '\t']).default('auto'),
   decimalMark: z.enum(['auto', '.', ',']).default('auto'),
   /** What to do with a row that cannot be used: stop the import, or exclude it (counted and listed). */
   badRows: z.enum(['stop', 'exclude']).default('stop'),
 });
 
-export const dataSourceSchema = z.object({
+export const dataSourceSchema = strictObject({
   /** Path of the CSV relative to the project file's folder, with forward slashes. */
   path: z.string().trim().min(1, 'expected the path of the data file'),
   /** SHA-256 of the file's bytes when the project was last saved, to detect a changed file. */
@@ -66,7 +68,39 @@ export const dataSourceSchema = z.object({
   csv: csvSettingsSchema.default({ delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }),
 });
 
-export const columnRolesSchema = z.object({
+/**
+ * States derived from logged signals during import, per episode (src/data/derivedStates.ts, where
+ * the formulas and the reason they are Markov under a candidate are written out). A state column
+ * may name one of them instead of a file column. Sources are file columns; an action column may be
+ * used only by a "previous" state (the previous action, for a rate limit).
+ */
+const derivedName = columnName;
+const derivedUnit = z.string().default('');
+export const derivedStateSchema = z.discriminatedUnion('kind', [
+  /** I_t = initial + Σ_{k<t} (setpoint − measurement)_k·Δt_k from the episode start, in measurement unit·s. */
+  strictObject({
+    kind: z.literal('errorIntegral'), name: derivedName, unit: derivedUnit,
+    measurement: columnName,
+    /** A constant setpoint, or the name of a setpoint column. */
+    setpoint: z.union([finite, columnName]),
+    initial: finite.default(0),
+    /** Δt per step; without it Δt comes from the timestamp column. */
+    periodSeconds: finite.positive().optional(),
+  }),
+  /** First-order lag f_t = f_{t−1} + (1 − e^{−Δt/τ})(x_t − f_{t−1}); starts at `initial` or the first sample. */
+  strictObject({
+    kind: z.literal('filtered'), name: derivedName, unit: derivedUnit, source: columnName,
+    timeConstantSeconds: finite.positive('expected a positive time constant in seconds'),
+    initial: finite.optional(),
+    periodSeconds: finite.positive().optional(),
+  }),
+  /** x_{t−1}; on an episode's first row `initial`, or (without it) that row only supplies the value for the next. */
+  strictObject({ kind: z.literal('previous'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
+  /** x_t − x_{t−1}; on an episode's first row `initial`, or (without it) that row only supplies x_{t−1}. */
+  strictObject({ kind: z.literal('difference'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
+]);
+
+export const columnRolesSchema = strictObject({
   states: z.array(signalSchema).min(1, 'expected at least one state column').max(MAX_STATE_COLUMNS, `at most ${MAX_STATE_COLUMNS} state columns are supported`),
   actions: z.array(signalSchema).min(1, 'expected at least one action column').max(MAX_ACTION_COLUMNS, `at most ${MAX_ACTION_COLUMNS} action columns are supported`),
   reward: rewardSchema,
@@ -76,29 +110,107 @@ export const columnRolesSchema = z.object({
   terminal: columnName.optional(),
   /** Timestamp column, for the sampling period and time checks (a timeGap episode rule names its own). */
   timestamp: columnName.optional(),
+  /** States computed from the log during import; states may name them. */
+  derived: z.array(derivedStateSchema).max(10).optional(),
 });
 
-export const actuatorBoundsSchema = z.object({
+export const actuatorBoundsSchema = strictObject({
   lo: z.array(optionalLimit),
   hi: z.array(optionalLimit),
   /** clip: actions beyond a limit sit at the limit; truncate: the distribution is cut and renormalised. */
   mode: z.enum(['clip', 'truncate']),
 });
 
-export const candidateSchema = z.object({
-  name: z.string().trim().min(1, 'expected a name'),
-  description: z.string().default(''),
-  /** μ(s) = offset + gain·s, in the units of the action and state columns. */
-  offset: z.array(finite).min(1),
-  gain: z.array(z.array(finite)).min(1),
-  /** Standard deviation of each action around μ(s), same units as the action. */
-  std: z.array(finite.positive('expected a positive standard deviation')).min(1),
-  bounds: actuatorBoundsSchema.optional(),
+/** Feedback on a setpoint error (P or PI), as a control engineer writes it. */
+const feedbackFields = {
+  /** The measured state (a state column or a derived state). */
+  measurement: columnName,
+  /** A constant setpoint in the measurement's unit, or the name of a setpoint state. */
+  setpoint: z.union([finite, columnName]),
+  /** Controller gain K_c ≥ 0, action unit per measurement unit; the direction sets the sign. */
+  proportionalGain: finite.nonnegative('expected a gain ≥ 0; choose the direction with "action"'),
+  /** Integral time T_i (K_i = K_c/T_i); or give integralGain; neither for P only. */
+  integralTimeSeconds: finite.positive('expected a positive integral time in seconds').optional(),
+  /** Integral gain K_i, action unit per (measurement unit·s), instead of an integral time. */
+  integralGain: finite.nonnegative().optional(),
+  /** The derived error-integral state Σ (setpoint − measurement)·Δt, needed with integral action. */
+  integralState: columnName.optional(),
+  /** reverse: output rises as the measurement falls below the setpoint (heating); direct: the opposite (cooling). */
+  action: z.enum(['reverse', 'direct']),
+};
+export const feedbackSchema = strictObject(feedbackFields);
+export const piLoopSchema = strictObject({
+  /** Output at zero error and zero integral, in the action's unit. */
+  bias: finite,
+  ...feedbackFields,
+});
+export const scheduleLoopSchema = strictObject({
+  /** The state the schedule reads (e.g. outdoor temperature). */
+  input: columnName,
+  /** Strictly increasing values of the input; the output is held beyond the first and last. */
+  breakpoints: z.array(finite).min(1).max(50),
+  /** Output at each breakpoint, in the action's unit; straight lines between. */
+  values: z.array(finite).min(1).max(50),
+  /** Optional P/PI trim added to the schedule (no bias of its own). */
+  feedback: feedbackSchema.optional(),
 });
 
+/** How the candidate's mean action depends on the states: one form per candidate, one loop per action. */
+export const candidateFormSchema = z.discriminatedUnion('kind', [
+  /** μ(s) = offset + gain·s, in the units of the action and state columns. */
+  strictObject({ kind: z.literal('affine'), offset: z.array(finite).min(1), gain: z.array(z.array(finite)).min(1) }),
+  strictObject({ kind: z.literal('pi'), loops: z.array(piLoopSchema).min(1).max(3) }),
+  strictObject({ kind: z.literal('schedule'), loops: z.array(scheduleLoopSchema).min(1).max(3) }),
+]);
+
+/** |a − a_prev| ≤ maxStep per sample, per action (null: no rate limit on that action). */
+export const rateLimitSchema = strictObject({
+  maxStep: z.array(finite.positive('expected a positive step limit').nullable()).min(1),
+  /** The derived "previous" state of each action column (null where maxStep is null). */
+  previousAction: z.array(columnName.nullable()).min(1),
+});
+
+const ditherSchema = z.array(finite.positive('expected a positive standard deviation')).min(1);
+
+/**
+ * A candidate as written. The form may also be given the older way, as top-level `offset` and
+ * `gain` (the affine form); `std` is the older name of `dither`. Both are read and turned into the
+ * current shape, so older project files load unchanged.
+ */
+export const candidateSchema = strictObject({
+  name: z.string().trim().min(1, 'expected a name'),
+  description: z.string().default(''),
+  form: candidateFormSchema.optional(),
+  /** Older affine form: μ(s) = offset + gain·s (read into form). */
+  offset: z.array(finite).min(1).optional(),
+  gain: z.array(z.array(finite)).min(1).optional(),
+  /** Dither: the standard deviation of each action around the mean, in the action's unit. */
+  dither: ditherSchema.optional(),
+  /** Older name of dither. */
+  std: ditherSchema.optional(),
+  /** Position limits of the actuator. */
+  bounds: actuatorBoundsSchema.optional(),
+  rateLimit: rateLimitSchema.optional(),
+}).superRefine((c, ctx) => {
+  if (c.form && (c.offset || c.gain)) ctx.addIssue({ code: 'custom', path: [c.offset ? 'offset' : 'gain'], message: 'give the mean once: as "form", or as the older "offset" and "gain", not both' });
+  if (!c.form) {
+    if (!c.offset && !c.gain) ctx.addIssue({ code: 'custom', path: ['form'], message: 'expected the candidate\'s form: {"kind": "pi" | "schedule" | "affine", …}' });
+    else if (!c.offset) ctx.addIssue({ code: 'custom', path: ['offset'], message: 'expected the offset of the affine form (one value per action)' });
+    else if (!c.gain) ctx.addIssue({ code: 'custom', path: ['gain'], message: 'expected the gain of the affine form (one row per action)' });
+  }
+  if (c.dither && c.std) ctx.addIssue({ code: 'custom', path: ['std'], message: 'give the dither once: "dither" ("std" is its older name)' });
+  if (!c.dither && !c.std) ctx.addIssue({ code: 'custom', path: ['dither'], message: 'expected the dither: the standard deviation of each action, in its unit' });
+}).transform(({ name, description, form, offset, gain, dither, std, bounds, rateLimit }) => ({
+  name, description,
+  form: form ?? { kind: 'affine' as const, offset: offset ?? [], gain: gain ?? [] },
+  dither: dither ?? std ?? [],
+  ...(bounds ? { bounds } : {}),
+  ...(rateLimit ? { rateLimit } : {}),
+}));
+
 export const featureSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('polynomial'), degree: z.number().int().min(POLYNOMIAL_DEGREE_RANGE.min).max(POLYNOMIAL_DEGREE_RANGE.max) }),
-  z.object({
+  strictObject({ kind: z.literal('polynomial'), degree: z.number().int().min(POLYNOMIAL_DEGREE_RANGE.min).max(POLYNOMIAL_DEGREE_RANGE.max) }),
+  strictObject({
     kind: z.literal('radialBasis'),
     centresPerInput: z.number().int().min(RADIAL_CENTRES_RANGE.min).max(RADIAL_CENTRES_RANGE.max),
     /** Width of each basis function as a multiple of the centre spacing. */
@@ -107,7 +219,7 @@ export const featureSchema = z.discriminatedUnion('kind', [
 ]);
 
 export const approximatorSchema = z.discriminatedUnion('kind', [
-  z.object({
+  strictObject({
     kind: z.literal('linear'),
     features: featureSchema,
     /** Ridge penalty per sample on the averaged normal equations. */
@@ -115,7 +227,7 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
     tolerance: finite.min(TOLERANCE.min, `expected a tolerance of at least ${TOLERANCE.min} (round-off would stop a smaller one from ever being met)`).max(TOLERANCE.max).default(TOLERANCE.default),
     maxIterations: z.number().int().min(MAX_ITERATIONS.min).max(MAX_ITERATIONS.max).default(MAX_ITERATIONS.default),
   }),
-  z.object({
+  strictObject({
     kind: z.literal('network'),
     /** Units per hidden layer. */
     hiddenLayers: z.array(z.number().int().min(1).max(1024)).min(1).max(6).default([64, 64]),
@@ -141,18 +253,18 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
 ]);
 
 export const startStatesSchema = z.discriminatedUnion('kind', [
-  z.object({ kind: z.literal('episodeStarts') }),
-  z.object({ kind: z.literal('given'), states: z.array(z.array(finite)).min(1) }),
+  strictObject({ kind: z.literal('episodeStarts') }),
+  strictObject({ kind: z.literal('given'), states: z.array(z.array(finite)).min(1) }),
 ]);
 
-export const surfaceSchema = z.object({
+export const surfaceSchema = strictObject({
   xState: columnName,
   yState: columnName,
   resolution: z.number().int().min(SURFACE_RESOLUTION.min).max(SURFACE_RESOLUTION.max).default(SURFACE_RESOLUTION.default),
 });
 
 /** Bootstrap settings of the assessment (src/pipeline/assessSettings.ts reads them; CLI flags override). */
-export const bootstrapSchema = z.object({
+export const bootstrapSchema = strictObject({
   /** Episode resamples; 1000 keeps the Monte Carlo error of a 90 % percentile end small (Efron & Tibshirani 1993, §19.3). */
   resamples: z.number().int().min(BOOTSTRAP_RESAMPLES.min).max(BOOTSTRAP_RESAMPLES.max).default(BOOTSTRAP_RESAMPLES.default),
   /** Confidence level of the intervals. */
@@ -165,7 +277,7 @@ export const bootstrapSchema = z.object({
  * results whose fingerprint differs from the project's own are shown as out of date, never as
  * current. evaluation and assessment are the CLI's published JSON forms (pipeline/*Json.ts).
  */
-export const resultsSchema = z.object({
+export const resultsSchema = strictObject({
   format: z.literal(1),
   fingerprint: z.string().regex(/^[0-9a-f]{64}$/, 'expected 64 hexadecimal digits'),
   /** ISO 8601 time the results were kept. */
@@ -174,7 +286,24 @@ export const resultsSchema = z.object({
   assessment: z.record(z.string(), z.unknown()).optional(),
 });
 
-export const projectSchema = z.object({
+/** One swept number of a candidate: its dotted path and the values (src/core/retune/retuneAxes.ts). */
+export const retuneAxisSchema = strictObject({
+  /** e.g. "form.loops.0.proportionalGain", "form.loops.0.integralTimeSeconds", "dither.0". */
+  parameter: z.string().trim().min(1, 'expected the path of a number of the candidate'),
+  from: finite,
+  to: finite,
+  count: z.number().int().min(MIN_RETUNE_AXIS_POINTS).max(MAX_RETUNE_AXIS_POINTS),
+  spacing: z.enum(['linear', 'logarithmic']).default('linear'),
+});
+
+/** A retune map: one candidate evaluated over a grid of one or two of its parameters. */
+export const retuneMapSchema = strictObject({
+  /** The name of the candidate the map starts from. */
+  candidate: z.string().trim().min(1, 'expected the name of a candidate'),
+  axes: z.array(retuneAxisSchema).min(1).max(MAX_RETUNE_AXES),
+});
+
+export const projectSchema = strictObject({
   format: z.literal(PROJECT_FORMAT),
   version: z.literal(PROJECT_VERSION),
   name: z.string().trim().min(1, 'expected a project name'),
@@ -190,12 +319,23 @@ export const projectSchema = z.object({
   startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
   surface: surfaceSchema.optional(),
   bootstrap: bootstrapSchema.optional(),
+  retuneMaps: z.array(retuneMapSchema).max(10).optional(),
   results: resultsSchema.optional(),
+  /**
+   * Free-form remarks of the user's own (any JSON: text, or an object such as
+   * { "reviewedBy": "…", "comment": "…" }); never read by the program, kept as written on every save.
+   */
+  notes: z.unknown().optional(),
+  /** Fields an older format version had and this one has no place for (migrations.ts); kept, never read. */
+  carriedOver: z.record(z.string(), z.unknown()).optional(),
 });
 
 export type ProjectDocument = z.infer<typeof projectSchema>;
 export type ProjectInput = z.input<typeof projectSchema>;
 export type CandidateSpec = z.infer<typeof candidateSchema>;
+export type CandidateForm = CandidateSpec['form'];
+export type DerivedStateSpec = z.infer<typeof derivedStateSchema>;
+export type RetuneMapSpec = z.infer<typeof retuneMapSchema>;
 export type ColumnRoles = z.infer<typeof columnRolesSchema>;
 export type CsvSettings = z.infer<typeof csvSettingsSchema>;
 export type ApproximatorSettings = z.infer<typeof approximatorSchema>;

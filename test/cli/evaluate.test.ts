@@ -37,12 +37,24 @@ describe('evaluate command', () => {
     }
     expect(Number.isFinite(json.behaviour.value)).toBe(true);
     expect(json.cautions.join(' ')).toMatch(/advisory/);
+    // The heating sample has a 10 × 10 retune map over gain and integral time: every point in the JSON, the best one supported by the logs.
+    if (sample.startsWith('heating')) {
+      const [map] = json.retuneMaps;
+      expect(map.points).toHaveLength(100);
+      expect(map.axes.map((a: { values: number[] }) => a.values.length)).toEqual([10, 10]);
+      expect(map.points[map.best.index].support).toBeNull();
+      expect(map.points.some((p: { support: string | null }) => p.support === 'serious')).toBe(true);
+      expect(map.points.filter((p: { value: number | null }) => p.value !== null).every((p: { value: number; interval: number[] }) => p.interval[0] <= p.value && p.value <= p.interval[1])).toBe(true);
+    } else {
+      expect(json.retuneMaps).toEqual([]);
+    }
   });
 
   it('prints a readable table with the cautions by default', async () => {
     const { code, stdout } = await run(['evaluate', join('sample-projects', samples[0])]);
     expect(code).toBe(0);
-    expect(stdout).toMatch(/logged behaviour \(today\)/);
+    expect(stdout).toMatch(/present controller \(model fitted to the log\) \[baseline\]/);
+    expect(stdout).toMatch(/logged return \(check; cut short at time limits\)/);
     expect(stdout).toMatch(/Cautions:/);
     expect(stdout).toMatch(/independent safety functions/);
   });

@@ -28,7 +28,7 @@ describe('report command', () => {
     vi.restoreAllMocks();
     expect(io.stderr()).toBe('');
     expect(code).toBe(0);
-    expect(io.stdout()).toMatch(/Bootstrap over 40 episodes: 100 resamples, level 90 %/);
+    expect(io.stdout()).toMatch(/Bootstrap over 40 runs: 100 resamples, level 90 %/);
     expect(io.stdout()).toContain(`Report written to ${out}`);
     const html = await readFile(out, 'utf8');
     expect(html.startsWith('<!DOCTYPE html>')).toBe(true);

@@ -62,7 +62,7 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     const lq = page.getByTestId('cross-check-linearQuadraticModel').first();
     await expect.poll(() => lq.innerText(), POLL).toContain('Linear-quadratic');
     await expect.poll(() => lq.getByTestId('verdict').innerText(), POLL).toMatch(/Agrees|Disagrees|Too uncertain|Not applicable/);
-    await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('Distribution shift');
+    await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('Occupancy shift');
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('outside the logged range');
   });
 

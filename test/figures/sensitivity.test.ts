@@ -11,7 +11,7 @@ describe('sensitivity chart', () => {
   it('draws each series over the settings, the behaviour as the dashed reference', () => {
     const config = sensitivityChart(props, look);
     const sets = config.data.datasets;
-    expect(sets.map((s) => s.label)).toEqual(['gentle gain', 'sharp gain', 'present controller (logged)']);
+    expect(sets.map((s) => s.label)).toEqual(['gentle gain', 'sharp gain', 'logged return (check)']);
     expect(sets[1].data[2]).toEqual({ x: 0.95, y: null }); // a failed fit is a gap, not a zero
     expect(sets[2].borderColor).toBe(look.palette.reference);
     expect(sets[2].borderDash).not.toEqual([]);

@@ -60,6 +60,8 @@ describe('app service', () => {
   });
 
   it('saves a new project where the user says, adds the extension, and lists it as recent', async () => {
+    dialogs.nextOpenData = join(root, 'plant', 'tank-levels.csv'); // the user chose the data of the new project
+    await service.chooseDataFile(null);
     dialogs.nextSave = join(root, 'plant', 'retuned');
     const reply = await service.saveProject(projectText, null, 'Tank levels: retuned');
     expect(reply).toEqual({ saved: true, path: join(root, 'plant', 'retuned.spcritic') });
@@ -130,6 +132,8 @@ describe('app service', () => {
 
   it('lets a restored project save back to its own file', async () => {
     const projectPath = join(root, 'plant', 'tank.spcritic');
+    dialogs.nextOpenProject = projectPath;
+    await service.openProjectDialog();
     await service.writeRecovery(projectText, projectPath);
     const next = start('run2');
     expect((await next.pendingRecovery())?.projectPath).toBe(projectPath);

@@ -59,17 +59,18 @@ describe('assessProject on the tank-levels sample', () => {
     expect(exact).toBeLessThan(a.candidates[0].policyValue.percentile![1]);
   });
 
-  it('compares every candidate with today and with each other on the same resamples', () => {
-    const d = a.comparison.differences;
+  it('compares every candidate with the present controller’s model and with each other on the same resamples', () => {
+    const d = a.comparison.differences, today = 'present controller (model fitted to the log)';
+    expect(a.comparison.baseline).toMatchObject({ name: today, kind: 'presentController' });
     expect(d.map((x) => [x.a, x.b])).toEqual([
-      ['Tuned (60, 90 %/m)', 'logged behaviour (today)'], ['Tuned, 1.5 % trim error', 'logged behaviour (today)'], ['Tuned (60, 90 %/m)', 'Tuned, 1.5 % trim error'],
+      ['Tuned (60, 90 %/m)', today], ['Tuned, 1.5 % trim error', today], ['Tuned (60, 90 %/m)', 'Tuned, 1.5 % trim error'],
     ]);
-    expect(d[0].difference.value).toBeCloseTo(a.candidates[0].policyValue.value - a.behaviour.value, 10);
+    expect(d[0].difference.value).toBeCloseTo(a.candidates[0].policyValue.value - a.presentController!.policyValue.value, 10);
     expect(d[0].probabilityBetter).toBeGreaterThan(0.95); // lower cost than today in nearly every resample
     // Paired differences are much tighter than the separate intervals (the resamples share episodes).
     expect(d[2].difference.standardError!).toBeLessThan(0.5 * a.candidates[0].policyValue.standardError!);
     expect(a.comparison.ranking.order[0]).toBe('Tuned (60, 90 %/m)');
-    expect(a.comparison.ranking.order.at(-1)).toBe('logged behaviour (today)');
+    expect(a.comparison.ranking.order.at(-1)).toBe('present controller (model fitted to the log)');
   });
 
   it('finds the linear-quadratic model agreeing and the importance weights too concentrated to judge', () => {
@@ -78,7 +79,8 @@ describe('assessProject on the tank-levels sample', () => {
       expect(byMethod.linearQuadraticModel.agreement).toBe('agrees');
       expect(byMethod.weightedImportanceSampling.agreement).toBe('uninformative');
       expect(c.warnings.some((w) => w.topic === 'importanceWeights')).toBe(true);
-      expect(c.diagnostics.behaviourShiftNext!).toBeCloseTo(1, 1);
+      expect(c.diagnostics.presentControllerShift).toBe(a.presentController!.occupancyShift);
+      expect(c.diagnostics.occupancyShift!).toBeGreaterThan(0);
       expect(c.slices.length).toBe(3);
     }
   });
@@ -101,7 +103,7 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
     const check = result.value.candidates[0].crossChecks.find((x) => x.method === 'linearQuadraticModel')!;
     expect(check.agreement).toBe('notApplicable');
     expect(check.note).toMatch(/quadratic terms explain|actuator limits/);
-    expect(result.value.warnings.some((w) => w.topic === 'behaviourModel' && /actuator limit/.test(w.message))).toBe(true);
+    expect(result.value.presentController?.name).toBe('present controller (model fitted to the log)');
     const curves = result.value.sensitivity!.curves;
     expect(curves.map((c) => c.parameter)).toEqual(['discount', 'polynomialDegree']);
     expect(curves[0].settings[curves[0].projectIndex]).toBe(0.95);
@@ -135,7 +137,7 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
       expect(c.slices.length).toBe(6); // 3 states × 2 actions
       expect(c.crossChecks[0]).toMatchObject({ agreement: 'notApplicable', note: expect.stringMatching(/given start states/) });
     });
-    expect(result.value.candidates[1].crossChecks[2].note).toMatch(/actuator limits/);
+    expect(result.value.candidates[1].crossChecks.find((x) => x.method === 'linearQuadraticModel')!.note).toMatch(/actuator limits/);
     expect(result.value.warnings.some((w) => w.topic === 'startStates')).toBe(true);
   });
 
@@ -152,7 +154,9 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
       const a = result.value;
       a.candidates.forEach((c, i) => {
         expect(c.policyValue).toMatchObject({ value: evaluation.value.policies[i].policyValue, percentile: null, replicates: 0 });
-        expect(c.diagnostics.distributionShiftStart).toBeNull(); // defined for linear features only
+        expect(c.diagnostics.shiftFeatures).toMatch(/degree-2 polynomial/); // measured in a linear class beside the network
+        expect(c.reportedRange![0]).toBeLessThanOrEqual(c.policyValue.value); // the range reported holds the network's own value
+        expect(c.reportedRange![1]).toBeGreaterThanOrEqual(c.policyValue.value);
         expect(c.crossChecks.find((x) => x.method === 'linearQuadraticModel')!.estimate!.percentile).not.toBeNull();
       });
       expect(a.behaviour.percentile).not.toBeNull();

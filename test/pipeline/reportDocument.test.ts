@@ -52,7 +52,7 @@ describe('renderReport on the tank-levels sample', () => {
     const assessment = await assessProject({ project, dataset, settings: { resamples: 100, level: 0.9, seed: 1, sensitivity: true } });
     if (!evaluation.ok || !assessment.ok) throw new Error('pipeline failed');
     html = renderReport({
-      project, projectFile: 'tank-levels.spcritic', evaluation: evaluation.value, assessment: assessment.value, assessmentProblems: [],
+      project, projectFile: 'tank-levels.spcritic', evaluation: evaluation.value, assessment: assessment.value, assessmentProblems: [], retuneMaps: [], retuneMapProblems: [],
       data: { summary: imported.summary, episodeReport: imported.episodeReport }, generatedAt: '2026-01-01T00:00:00.000Z',
     });
   });

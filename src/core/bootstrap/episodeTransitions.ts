@@ -45,12 +45,18 @@ export function episodeTransitions(
     count += r * (index.offsets[episodes[j] + 1] - index.offsets[episodes[j]]);
     episodeCount += r;
   }
-  const out = emptyLike(data, count, episodeCount);
-  let row = 0, copy = 0;
+  const startOf = startRowOfEpisode(data);
+  let startCount = 0;
+  for (let j = 0; j < episodes.length; j++) if (startOf[episodes[j]] >= 0) startCount += repeats ? repeats[j] : 1;
+  const out = emptyLike(data, count, episodeCount, startCount);
+  let row = 0, copy = 0, start = 0;
   for (let j = 0; j < episodes.length; j++) {
-    const k = episodes[j];
+    const k = episodes[j], s = startOf[k];
     for (let r = 0; r < (repeats ? repeats[j] : 1); r++, copy++) {
-      out.startStates.set(data.startStates.subarray(k * ds, (k + 1) * ds), copy * ds);
+      if (s >= 0) {
+        out.startStates.set(data.startStates.subarray(s * ds, (s + 1) * ds), start * ds);
+        out.startEpisode[start++] = copy;
+      }
       for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++, row++) {
         const i = index.order[p];
         out.states.set(data.states.subarray(i * ds, (i + 1) * ds), row * ds);
@@ -63,7 +69,15 @@ export function episodeTransitions(
       }
     }
   }
-  return out;
+  return out.startEpisode.length === episodeCount ? { ...out, startEpisode: undefined } : out;
+}
+
+/** Row of each episode's start state in data.startStates, −1 for an episode without one. */
+function startRowOfEpisode(data: TransitionSet): Int32Array {
+  const startOf = new Int32Array(data.episodeCount).fill(-1);
+  const starts = data.startStates.length / data.stateDim;
+  for (let s = 0; s < starts; s++) startOf[data.startEpisode ? data.startEpisode[s] : s] = s;
+  return startOf;
 }
 
 /** A resample as data: episode k repeated multiplicities[k] times (Σ c_k episodes). */
@@ -74,12 +88,12 @@ export function resampledTransitions(data: TransitionSet, index: EpisodeIndex, m
   return episodeTransitions(data, index, Int32Array.from({ length: index.episodes }, (_, k) => k), multiplicities);
 }
 
-function emptyLike(data: TransitionSet, n: number, e: number) {
+function emptyLike(data: TransitionSet, n: number, e: number, starts: number) {
   const ds = data.stateDim, m = data.actionDim;
   return {
     count: n, stateDim: ds, actionDim: m, stateNames: data.stateNames, actionNames: data.actionNames,
     states: new Float64Array(n * ds), actions: new Float64Array(n * m), rewards: new Float64Array(n),
     nextStates: new Float64Array(n * ds), terminal: new Uint8Array(n), episode: new Int32Array(n),
-    episodeCount: e, startStates: new Float64Array(e * ds), sourceLine: new Int32Array(n),
+    episodeCount: e, startStates: new Float64Array(starts * ds), startEpisode: new Int32Array(starts), sourceLine: new Int32Array(n),
   };
 }

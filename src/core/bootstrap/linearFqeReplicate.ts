@@ -18,6 +18,7 @@ import { spectralRadiusBound } from '../fqe/spectralRadiusBound';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { resampleBellmanStatistics, type EpisodeBellmanSums } from './episodeBellmanSums';
 import { meanStartFeatures } from '../features/policyFeatures';
+import { holdsStartState, startMultiplicities } from './startMultiplicities';
 
 /**
  * iteration: the iterate at the tolerance, or — as the pipeline reports it — the fixed point when
@@ -38,13 +39,16 @@ export interface LinearSolveSettings {
 
 export interface LinearReplicateSetup extends LinearSolveSettings {
   readonly sums: EpisodeBellmanSums;
-  /** ξ(s0) per start state, count×d (startFeatures.ts). */
+  /** ξ(s0) per start state, count×d (features/policyFeatures.ts). */
   readonly startFeatures: Float64Array;
-  /** True when start state k is episode k's first state, so it is resampled with its episode. */
+  /** True when the start states are episodes' first states, so they are resampled with their episodes. */
   readonly startsFollowEpisodes: boolean;
+  /** Episode of each start state (TransitionSet.startEpisode); absent when start state k is episode k's. */
+  readonly startEpisode?: Int32Array;
 }
 
-export type ReplicateStatus = FqeStatus | 'singular';
+/** singular: no solution; noStartStates: the resample holds no episode with a start state. */
+export type ReplicateStatus = FqeStatus | 'singular' | 'noStartStates';
 
 export interface LinearReplicate {
   /** J of the resample (reward sense); null when no solution exists (status says why). */
@@ -54,8 +58,10 @@ export interface LinearReplicate {
 }
 
 export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: ArrayLike<number>, scratch?: Float64Array): LinearReplicate {
+  const startWeights = setup.startsFollowEpisodes ? startMultiplicities(multiplicities, setup.startEpisode) : undefined;
+  if (startWeights && !holdsStartState(startWeights)) return { policyValue: null, weights: null, status: 'noStartStates' };
   const stats = resampleBellmanStatistics(setup.sums, multiplicities, scratch);
-  const xiBar = meanStartFeatures(setup.startFeatures, setup.sums.dim, setup.startsFollowEpisodes ? multiplicities : undefined);
+  const xiBar = meanStartFeatures(setup.startFeatures, setup.sums.dim, startWeights);
   return solveReplicate(setup, stats, xiBar);
 }
 

@@ -32,8 +32,10 @@ export interface LinearisedReplicates {
   readonly counts: Float64Array; // e
   /** j_k = ξ(s0_k)ᵀw per start state. */
   readonly startValues: Float64Array;
-  /** True when start state k is episode k's first state, so it is resampled with its episode. */
+  /** True when the start states are episodes' first states, so they are resampled with their episodes. */
   readonly startsFollowEpisodes: boolean;
+  /** Episode of each start state (TransitionSet.startEpisode); absent when start state k is episode k's. */
+  readonly startEpisode?: Int32Array;
 }
 
 export interface LinearisationInput {
@@ -49,6 +51,7 @@ export interface LinearisationInput {
   /** ξ(s0) per start state, count×d. */
   readonly startFeatures: Float64Array;
   readonly startsFollowEpisodes: boolean;
+  readonly startEpisode?: Int32Array;
   readonly cancel?: CancellationCheck;
 }
 
@@ -80,11 +83,11 @@ export function linearisedReplicates(input: LinearisationInput): LinearisedRepli
     influence[k] = s;
     counts[k] = index.offsets[k + 1] - index.offsets[k];
   }
-  return { influence, counts, startValues, startsFollowEpisodes: input.startsFollowEpisodes };
+  return { influence, counts, startValues, startsFollowEpisodes: input.startsFollowEpisodes, startEpisode: input.startEpisode };
 }
 
-/** J of the resample with episode multiplicities c (reward sense). */
-export function linearisedReplicate(lin: LinearisedReplicates, multiplicities: ArrayLike<number>): number {
+/** J of the resample with episode multiplicities c (reward sense); null when it holds no episode with a start state. */
+export function linearisedReplicate(lin: LinearisedReplicates, multiplicities: ArrayLike<number>): number | null {
   const e = lin.counts.length;
   if (multiplicities.length !== e) throw new BootstrapError(`multiplicities: expected one per episode (${e}), got ${multiplicities.length}`);
   let influence = 0, transitions = 0;
@@ -93,15 +96,16 @@ export function linearisedReplicate(lin: LinearisedReplicates, multiplicities: A
     transitions += multiplicities[k] * lin.counts[k];
   }
   if (!(transitions > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
-  return startMean(lin, multiplicities) + influence / transitions;
+  const starts = startMean(lin, multiplicities);
+  return starts === null ? null : starts + influence / transitions;
 }
 
-function startMean(lin: LinearisedReplicates, c: ArrayLike<number>): number {
+function startMean(lin: LinearisedReplicates, c: ArrayLike<number>): number | null {
   let total = 0, weight = 0;
   for (let s = 0; s < lin.startValues.length; s++) {
-    const m = lin.startsFollowEpisodes ? c[s] : 1;
+    const m = lin.startsFollowEpisodes ? c[lin.startEpisode ? lin.startEpisode[s] : s] : 1;
     total += m * lin.startValues[s];
     weight += m;
   }
-  return total / weight;
+  return weight > 0 ? total / weight : null;
 }

@@ -11,7 +11,7 @@
  *
  * Shapes: queries q×ds row-major; ranges q×m.
  */
-import { policyMean, type GaussianPolicy } from '../policy';
+import { limitsAtState, policyMean, type GaussianPolicy } from '../policy';
 import type { TransitionSet } from '../transitions';
 import { actionIntervalProbability } from './actionProbability';
 
@@ -63,12 +63,14 @@ export function loggedActionRanges(
 /** outside(s) per query state (q). */
 export function probabilityOutsideLoggedActions(policy: GaussianPolicy, ranges: LoggedActionRanges): Float64Array {
   const m = policy.actionDim, ds = policy.stateDim, q = ranges.queries.length / ds;
-  const out = new Float64Array(q), mean = new Float64Array(m);
+  const out = new Float64Array(q), mean = new Float64Array(m), limits = limitsAtState(policy);
   for (let s = 0; s < q; s++) {
     policyMean(policy, ranges.queries, mean, s * ds, 0);
+    const mode = limits.at(ranges.queries, s * ds);
+    const at = mode === null ? undefined : { lo: limits.lo, hi: limits.hi, mode };
     let inside = 1, outsideSum = 0;
     for (let j = 0; j < m; j++) {
-      const p = actionIntervalProbability(policy, j, mean[j], ranges.lo[s * m + j], ranges.hi[s * m + j]);
+      const p = actionIntervalProbability(policy, j, mean[j], ranges.lo[s * m + j], ranges.hi[s * m + j], at);
       inside *= p;
       outsideSum += 1 - p;
     }

@@ -3,6 +3,11 @@
  * φ(x) = [1, (z if linear terms), exp(−‖z − c_j‖² / (2 w²)) for each centre c_j],
  * with centres c_j and width w both in standardised units (Bishop, "Pattern Recognition and
  * Machine Learning", 2006, §3.1, eq. 3.4).
+ *
+ * When the centres form a full tensor grid (as radialBasisGridSpec makes them), the Gaussian
+ * factorises over the inputs, exp(−Σ_v (z_v − c_v)²/(2w²)) = Π_v exp(−(z_v − c_v)²/(2w²)), so the
+ * p^n features are products of n·p one-dimensional factors: n·p exponentials per evaluation
+ * instead of p^n (the same values up to rounding in the last place).
  */
 import type { FeatureMap, RadialBasisFeatureSpec } from './featureTypes';
 import { FeatureSpecError } from './featureSpecError';
@@ -55,6 +60,8 @@ export function createRadialBasisFeatures(spec: RadialBasisFeatureSpec): Feature
   const inverseTwoWidthSq = 1 / (2 * width * width);
   const z = new Float64Array(n); // scratch; evaluate is synchronous, so one buffer per map suffices
   const frozen: RadialBasisFeatureSpec = structuredClone(spec);
+  const grid = tensorGridAxes(centres, c, n);
+  const bumps = grid ? createGridBumps(grid, inverseTwoWidthSq) : null;
   return {
     dim: d,
     inputDim: n,
@@ -63,6 +70,10 @@ export function createRadialBasisFeatures(spec: RadialBasisFeatureSpec): Feature
       out[outOffset] = 1;
       for (let v = 0; v < n; v++) z[v] = (input[inputOffset + v] - mean[v]) / scale[v];
       if (linear) for (let v = 0; v < n; v++) out[outOffset + 1 + v] = z[v];
+      if (bumps) {
+        bumps(z, out, outOffset + first);
+        return;
+      }
       for (let j = 0; j < c; j++) {
         let r2 = 0;
         for (let v = 0; v < n; v++) {
@@ -73,6 +84,48 @@ export function createRadialBasisFeatures(spec: RadialBasisFeatureSpec): Feature
       }
     },
     toSpec: () => structuredClone(frozen),
+  };
+}
+
+/**
+ * The per-input axes when the c centres (c×n, row-major) are the full grid axes[0] × … × axes[n−1]
+ * in odometer order (the last input fastest, as radialBasisGridSpec writes them); else null.
+ */
+function tensorGridAxes(centres: Float64Array, c: number, n: number): Float64Array[] | null {
+  const axes: Float64Array[] = [];
+  for (let v = 0; v < n; v++) {
+    const values: number[] = []; // distinct values in order of first appearance
+    for (let j = 0; j < c; j++) if (!values.includes(centres[j * n + v])) values.push(centres[j * n + v]);
+    axes.push(Float64Array.from(values));
+  }
+  if (axes.reduce((k, a) => k * a.length, 1) !== c) return null;
+  const index = new Array<number>(n).fill(0);
+  for (let j = 0; j < c; j++) {
+    for (let v = 0; v < n; v++) if (centres[j * n + v] !== axes[v][index[v]]) return null;
+    for (let v = n - 1; v >= 0 && ++index[v] === axes[v].length; v--) index[v] = 0;
+  }
+  return axes;
+}
+
+/** Fills the p_0·…·p_(n−1) grid bumps at z as products of one-dimensional factors, odometer order. */
+function createGridBumps(axes: Float64Array[], inverseTwoWidthSq: number): (z: Float64Array, out: Float64Array, offset: number) => void {
+  const factors = axes.map((a) => new Float64Array(a.length));
+  const total = axes.reduce((k, a) => k * a.length, 1), scratch = new Float64Array(total);
+  return (z, out, offset) => {
+    axes.forEach((axis, v) => {
+      for (let i = 0; i < axis.length; i++) factors[v][i] = Math.exp(-((z[v] - axis[i]) ** 2) * inverseTwoWidthSq);
+    });
+    // Expand input by input: after input v the products over inputs 0…v, input v fastest.
+    scratch[0] = 1;
+    let size = 1;
+    for (const f of factors) {
+      for (let k = size - 1; k >= 0; k--) {
+        const prefix = scratch[k];
+        for (let i = f.length - 1; i >= 0; i--) scratch[k * f.length + i] = prefix * f[i];
+      }
+      size *= f.length;
+    }
+    for (let j = 0; j < total; j++) out[offset + j] = scratch[j];
   };
 }
 

@@ -123,29 +123,59 @@ function gatherTransition(reader: TransitionFeatureReader, data: TransitionSet, 
   block.reward[t] = data.rewards[i];
 }
 
-/** Add the first `size` rows of the block to the packed sums at out[base …] (upper triangles of G and H). */
+/**
+ * Add the first `size` rows of the block to the packed sums at out[base …]. Products are formed in
+ * 2×2 register blocks (rows a, a+1 against b, b+1), so each pass over the block loads four numbers
+ * for four multiply-adds instead of two for one — about twice as fast, with each entry summed in the
+ * same order as one dot product at a time (common practice for dense products, e.g. Goto & van de
+ * Geijn, "Anatomy of high-performance matrix multiplication", ACM TOMS 2008). G and H are formed on
+ * and above the diagonal blocks; lower entries written inside a diagonal block are overwritten by
+ * the mirror in statisticsFromSums.
+ */
 function addBlock(block: Block, size: number, out: Float64Array, base: number): void {
-  const { d, rows, phi, psi, reward } = block, dd = d * d;
-  const g0 = base, m0 = base + dd, h0 = base + 2 * dd, b0 = base + 3 * dd, e0 = b0 + d;
-  for (let a = 0; a < d; a++) {
-    const oa = a * rows;
-    for (let b = 0; b < d; b++) {
-      const ob = b * rows;
-      let g = 0, m = 0, h = 0;
-      if (b >= a) for (let t = 0; t < size; t++) { g += phi[oa + t] * phi[ob + t]; h += psi[oa + t] * psi[ob + t]; }
-      for (let t = 0; t < size; t++) m += phi[oa + t] * psi[ob + t];
-      out[g0 + a * d + b] += g;
-      out[h0 + a * d + b] += h;
-      out[m0 + a * d + b] += m;
+  const { d, rows, phi, psi } = block, dd = d * d;
+  for (let a = 0; a < d; a += 2) {
+    const a1 = Math.min(a + 1, d - 1);
+    for (let b = 0; b < d; b += 2) {
+      const b1 = Math.min(b + 1, d - 1);
+      addPairs(phi, psi, a * rows, a1 * rows, b * rows, b1 * rows, size, out, base + dd, a, a1, b, b1, d);
+      if (b < a) continue;
+      addPairs(phi, phi, a * rows, a1 * rows, b * rows, b1 * rows, size, out, base, a, a1, b, b1, d);
+      addPairs(psi, psi, a * rows, a1 * rows, b * rows, b1 * rows, size, out, base + 2 * dd, a, a1, b, b1, d);
     }
+  }
+  addVectors(block, size, out, base + 3 * dd);
+}
+
+/** out[o + i·d + j] += Σ_t x[i, t]·y[j, t] for i ∈ {a, a1}, j ∈ {b, b1} (a1 = a or b1 = b at an odd end). */
+function addPairs(
+  x: Float64Array, y: Float64Array, xa: number, xa1: number, yb: number, yb1: number, size: number,
+  out: Float64Array, o: number, a: number, a1: number, b: number, b1: number, d: number,
+): void {
+  let s00 = 0, s01 = 0, s10 = 0, s11 = 0;
+  for (let t = 0; t < size; t++) {
+    const p0 = x[xa + t], p1 = x[xa1 + t], q0 = y[yb + t], q1 = y[yb1 + t];
+    s00 += p0 * q0; s01 += p0 * q1; s10 += p1 * q0; s11 += p1 * q1;
+  }
+  out[o + a * d + b] += s00;
+  if (b1 !== b) out[o + a * d + b1] += s01;
+  if (a1 === a) return;
+  out[o + a1 * d + b] += s10;
+  if (b1 !== b) out[o + a1 * d + b1] += s11;
+}
+
+/** Φᵀr, Ψᵀr and rᵀr of the block's rows, at out[o …] = [Φᵀr | Ψᵀr | rᵀr]. */
+function addVectors(block: Block, size: number, out: Float64Array, o: number): void {
+  const { d, rows, phi, psi, reward } = block;
+  for (let a = 0; a < d; a++) {
     let br = 0, er = 0;
-    for (let t = 0; t < size; t++) { br += phi[oa + t] * reward[t]; er += psi[oa + t] * reward[t]; }
-    out[b0 + a] += br;
-    out[e0 + a] += er;
+    for (let t = 0; t < size; t++) { br += phi[a * rows + t] * reward[t]; er += psi[a * rows + t] * reward[t]; }
+    out[o + a] += br;
+    out[o + d + a] += er;
   }
   let rr = 0;
   for (let t = 0; t < size; t++) rr += reward[t] * reward[t];
-  out[e0 + d] += rr;
+  out[o + 2 * d] += rr;
 }
 
 /**

@@ -125,6 +125,26 @@ export function luSolve({ n, lu, pivot }: LuFactors, b: ArrayLike<number>): Floa
   return x;
 }
 
+/**
+ * Solve Aᵀ x = b with the factors of A: P·A = L·U gives Aᵀ = Uᵀ·Lᵀ·P, so solve Uᵀy = b (forward),
+ * Lᵀw = y (backward, unit diagonal) and x = Pᵀw by undoing the row swaps in reverse order
+ * (Golub & Van Loan, "Matrix Computations", 4th ed., ch. 3). Lets one factorisation serve a system
+ * and its adjoint.
+ */
+export function luSolveTransposed({ n, lu, pivot }: LuFactors, b: ArrayLike<number>): Float64Array {
+  const x = Float64Array.from(b as ArrayLike<number>);
+  for (let i = 0; i < n; i++) {
+    for (let k = 0; k < i; k++) x[i] -= lu[k * n + i] * x[k];
+    x[i] /= lu[i * n + i];
+  }
+  for (let i = n - 1; i >= 0; i--) for (let k = i + 1; k < n; k++) x[i] -= lu[k * n + i] * x[k];
+  for (let k = n - 1; k >= 0; k--) {
+    const p = pivot[k];
+    if (p !== k) [x[k], x[p]] = [x[p], x[k]];
+  }
+  return x;
+}
+
 /** Solve A x = b for a general square A (LU with partial pivoting). */
 export function solve(a: ArrayLike<number>, n: number, b: ArrayLike<number>): Float64Array {
   return luSolve(luFactor(a, n), b);

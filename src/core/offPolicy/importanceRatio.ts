@@ -11,7 +11,7 @@
  *   with positive probability, so π is not absolutely continuous with respect to b
  *   (ImportanceRatioError, naming the action).
  */
-import { logDensity, type GaussianPolicy } from '../policy';
+import { actionLimitsAt, logDensity, type GaussianPolicy } from '../policy';
 
 export class ImportanceRatioError extends Error {
   constructor(message: string) {
@@ -20,14 +20,17 @@ export class ImportanceRatioError extends Error {
   }
 }
 
-/** Bit j set when action dimension j sits exactly at a clip limit of the policy (a point mass). */
-export function pointMassMask(policy: GaussianPolicy, action: ArrayLike<number>, actionOffset = 0): number {
-  const b = policy.bounds;
-  if (!b || b.mode !== 'clip') return 0;
+/**
+ * Bit j set when action dimension j sits exactly at a clip limit the policy has at this state (a
+ * point mass; with a rate limit the limits move with the previous action, policy/actionLimits.ts).
+ */
+export function pointMassMask(policy: GaussianPolicy, state: ArrayLike<number>, action: ArrayLike<number>, actionOffset = 0): number {
+  const m = policy.actionDim, lo = new Float64Array(m), hi = new Float64Array(m);
+  if (actionLimitsAt(policy, state, 0, lo, hi) !== 'clip') return 0;
   let mask = 0;
-  for (let j = 0; j < policy.actionDim; j++) {
+  for (let j = 0; j < m; j++) {
     const a = action[actionOffset + j];
-    if (a === b.lo[j] || a === b.hi[j]) mask |= 1 << j;
+    if (a === lo[j] || a === hi[j]) mask |= 1 << j;
   }
   return mask;
 }
@@ -36,7 +39,7 @@ export function pointMassMask(policy: GaussianPolicy, action: ArrayLike<number>,
 export function logImportanceRatio(
   target: GaussianPolicy, behaviour: GaussianPolicy, state: Float64Array, action: Float64Array,
 ): number {
-  const targetMask = pointMassMask(target, action), behaviourMask = pointMassMask(behaviour, action);
+  const targetMask = pointMassMask(target, state, action), behaviourMask = pointMassMask(behaviour, state, action);
   const unmatched = targetMask & ~behaviourMask;
   if (unmatched !== 0) {
     let j = 0;

@@ -18,7 +18,7 @@
  */
 import { cholesky, choleskySolve, multiply, SingularMatrixError, transpose } from '../linalg/dense';
 import { feedbackCostToGo, stateCostToGo, type LinearQuadraticPlant } from '../lq';
-import type { GaussianPolicy } from '../policy';
+import { notAffineReason, type GaussianPolicy } from '../policy';
 import type { LinearQuadraticModelFit } from './linearQuadraticModel';
 
 export class ModelValueError extends Error {
@@ -36,10 +36,8 @@ export function modelPolicyValue(
   model: LinearQuadraticModelFit, policy: GaussianPolicy, discount: number, startStates: Float64Array, weights?: ArrayLike<number>,
 ): number {
   const ds = model.stateCentre.length, m = model.actionCentre.length, nz = ds + 1;
-  const b = policy.bounds;
-  if (b && (b.lo.some(Number.isFinite) || b.hi.some(Number.isFinite))) {
-    throw new ModelValueError('the candidate has actuator limits, so its actions are not linear-Gaussian and the closed form does not apply');
-  }
+  const reason = notAffineReason(policy, 'noLimits');
+  if (reason !== null) throw new ModelValueError(`the closed form is not applicable to this candidate: ${reason}`);
   const { plant, rInverseNt, shift } = equivalentPlant(model);
   const gain = affineFeedback(model, policy); // v = G_z z + e
   const feedbackGain = Float64Array.from(gain, (g, i) => -(g + rInverseNt[i])); // lq.ts: ṽ = −K̃z + e

@@ -8,7 +8,7 @@ import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { SensitivityData as SensitivityCurve } from './figureData';
 import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { legendPlugin } from '../parts/legendBox';
-import { PRESENT_CONTROLLER, PRESENT_DASH_PX } from '../parts/plotTheme';
+import { LOGGED_RETURN_LABEL, PRESENT_CONTROLLER, PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatValue } from '../parts/tickFormat';
@@ -27,7 +27,8 @@ type XY = { x: number; y: number | null };
 
 /** The behaviour's series is named by the pipeline; it is drawn as the reference. */
 export function isBehaviourSeries(name: string): boolean {
-  return name === PRESENT_CONTROLLER || name.toLowerCase().startsWith('logged');
+  const n = name.toLowerCase();
+  return name === PRESENT_CONTROLLER || n.startsWith('logged') || n.startsWith('present controller');
 }
 
 export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
@@ -37,7 +38,7 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
     const reference = isBehaviourSeries(serie.name);
     const colour = reference ? p.reference : p.series[candidate++ % p.series.length];
     return {
-      label: reference ? PRESENT_CONTROLLER : serie.name,
+      label: reference ? LOGGED_RETURN_LABEL : serie.name,
       data: curve.settings.map((x, i) => ({ x, y: serie.values[i] })),
       borderColor: colour, backgroundColor: colour, borderWidth: d.lineWidthPx * s, borderDash: reference ? PRESENT_DASH_PX.map((v) => v * s) : [],
       pointRadius: curve.settings.map((_, i) => (i === curve.projectIndex ? d.projectPointRadiusPx : d.pointRadiusPx) * s),

@@ -35,12 +35,22 @@ export function actionLimits(candidate: AffineCandidate, action: number): { lo: 
 /** The mean applied action over range on state `axis`, others at held; null when the shapes do not fit. */
 export function meanActionCurve(candidate: AffineCandidate, axis: number, action: number, range: readonly [number, number], held: readonly number[], points = CURVE_POINTS): Curve | null {
   const row = candidate.gain[action], offset = candidate.offset[action], std = candidate.std[action];
-  if (row === undefined || offset === undefined || std === undefined || row.length !== held.length || !(range[1] >= range[0])) return null;
-  const limits = actionLimits(candidate, action);
+  if (row === undefined || offset === undefined || std === undefined || row.length !== held.length) return null;
+  return meanCurve((s) => row.reduce((sum, g, j) => sum + g * (j === axis ? s : held[j]), offset), std, actionLimits(candidate, action), range, points);
+}
+
+/**
+ * The same for any mean along the axis (a PI loop or a schedule compiled to the engine's policy):
+ * meanAt(s) is μ at axis value s with the other states held.
+ */
+export function meanCurve(
+  meanAt: (s: number) => number, std: number, limits: { lo: number; hi: number; mode: LimitMode } | null, range: readonly [number, number], points = CURVE_POINTS,
+): Curve | null {
+  if (!(range[1] >= range[0]) || !(std >= 0)) return null;
   const x = new Float64Array(points), y = new Float64Array(points);
   for (let k = 0; k < points; k++) {
     const s = range[0] + ((range[1] - range[0]) * k) / (points - 1);
-    const mean = row.reduce((sum, g, j) => sum + g * (j === axis ? s : held[j]), offset);
+    const mean = meanAt(s);
     x[k] = s;
     y[k] = limits ? boundedNormalMean(mean, std, limits.lo, limits.hi, limits.mode) : mean;
   }

@@ -74,5 +74,7 @@ export function plotPalette(theme: Theme): PlotPalette {
  * The present controller (what the logs were gathered under) looks the same in every figure of
  * the app, its exports and the report: the palette's reference grey, dashed, under this name.
  */
-export const PRESENT_CONTROLLER = 'present controller (logged)';
+export const PRESENT_CONTROLLER = 'present controller';
+/** The logged discounted return, shown beside the baseline as a check. */
+export const LOGGED_RETURN_LABEL = 'logged return (check)';
 export const PRESENT_DASH_PX: readonly number[] = [6, 4];

@@ -24,9 +24,16 @@ export type LinearResampling =
   | { readonly kind: 'linearised'; readonly replicates: LinearisedReplicates }
   | { readonly kind: 'none'; readonly reason: string };
 
-/** The linear fit's one-pass material. */
-export interface LinearMaterial {
+/** What a linear fit is: its features and the settings of its solve. */
+export interface LinearFitSpec {
   readonly features: FeatureMap;
+  readonly ridge: number;
+  readonly tolerance: number;
+  readonly maxIterations: number;
+}
+
+/** The linear fit's one-pass material. */
+export interface LinearMaterial extends LinearFitSpec {
   readonly resampling: LinearResampling;
   /** The full data's Bellman statistics. */
   readonly statistics: BellmanStatistics;

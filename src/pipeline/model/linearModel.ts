@@ -25,15 +25,22 @@ import { MAX_EXACT_RESAMPLE_VALUES } from '../../core/limits';
 import type { CandidateFit } from '../candidateFit';
 import type { FitIteration } from '../estimates';
 import type { EvaluationPlan, PlannedPolicy } from '../plan/evaluationPlan';
-import type { CandidateModel, LinearResampling } from './candidateModel';
+import type { FeatureMap } from '../../core/features/featureMap';
+import type { CandidateModel, LinearFitSpec, LinearResampling } from './candidateModel';
 import type { ModelHooks } from './modelHooks';
 import { reportedSolution } from './reportedSolution';
 
-export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}): CandidateModel {
-  const settings = plan.approximator, features = plan.features, { data } = plan;
-  if (settings.kind !== 'linear' || !features) throw new Error('buildLinearModel: the plan is not for the linear approximator');
+/** The plan's own linear fit (its features and settings); only for a plan with the linear approximator. */
+export function planLinearFit(plan: EvaluationPlan): LinearFitSpec {
+  const settings = plan.approximator, features = plan.features;
+  if (settings.kind !== 'linear' || !features) throw new Error('planLinearFit: the plan is not for the linear approximator');
+  return { features, ridge: settings.ridge, tolerance: settings.tolerance, maxIterations: settings.maxIterations };
+}
+
+export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}, settings: LinearFitSpec = planLinearFit(plan)): CandidateModel {
+  const { features } = settings, { data } = plan;
   const quadrature = createActionQuadrature(planned.policy, plan.quadratureNodes);
-  const { statistics, sums } = dataPass(plan, quadrature, hooks);
+  const { statistics, sums } = dataPass(plan, features, quadrature, hooks);
   const startFeatures = startStateFeatures(features, quadrature, plan.starts.states, data.stateDim);
   const solved = solveLinearFqe({
     statistics, features, stateDim: data.stateDim, actionDim: data.actionDim, discount: plan.discount, ridge: settings.ridge,
@@ -52,14 +59,14 @@ export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, h
     : !atFixedPoint ? { kind: 'none', reason: 'the fit did not converge, so there is no fixed point to take resamples around' }
     : { kind: 'linearised', replicates: linearisedReplicates({
       data, index: plan.episodes, features, quadrature, statistics, weights, ridge: settings.ridge, discount: plan.discount,
-      startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, cancel: hooks.cancel,
+      startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode, cancel: hooks.cancel,
     }) };
-  return { ...planned, quadrature, fit, dispose: () => undefined, linear: { features, resampling, statistics, startFeatures, weights, atFixedPoint } };
+  return { ...planned, quadrature, fit, dispose: () => undefined, linear: { ...settings, resampling, statistics, startFeatures, weights, atFixedPoint } };
 }
 
 /** The one pass: per episode when the sums are affordable (their total is the full data's), else the total only. */
-function dataPass(plan: EvaluationPlan, quadrature: ActionQuadrature, hooks: ModelHooks): { statistics: BellmanStatistics; sums: EpisodeBellmanSums | null } {
-  const features = plan.features!, { data } = plan, passHooks = { cancel: hooks.cancel, onDataPass: hooks.onDataPass };
+function dataPass(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks): { statistics: BellmanStatistics; sums: EpisodeBellmanSums | null } {
+  const { data } = plan, passHooks = { cancel: hooks.cancel, onDataPass: hooks.onDataPass };
   if (plan.episodes.episodes * bellmanSumsStride(features.dim) > MAX_EXACT_RESAMPLE_VALUES) {
     return { statistics: accumulateBellmanStatistics(data, features, quadrature, passHooks), sums: null };
   }

@@ -13,6 +13,7 @@ import type { TransitionSet } from '../../core/transitions';
 import type { ApproximatorSettings, ProjectDocument } from '../../project/schema';
 import { planFeatures } from './featureMapFor';
 import { planPolicies } from './planPolicies';
+import { planPresentController, type PlannedPresentController } from './presentController';
 import { dataWarnings, discountProblems } from './planChecks';
 import { surfaceGridFor } from './surfaceGrid';
 import type { PlannedPolicy, StartStates, SurfaceGrid } from './planTypes';
@@ -31,6 +32,8 @@ export interface EvaluationPlan {
   readonly sign: 1 | -1;
   readonly starts: StartStates;
   readonly candidates: readonly PlannedPolicy[];
+  /** Today's controller as a policy (presentController.ts), evaluated like the candidates as the comparable baseline. */
+  readonly presentController: PlannedPresentController;
   readonly approximator: ApproximatorSettings;
   /** The linear approximator's feature map, built once from the data for every candidate; null for a network. */
   readonly features: FeatureMap | null;
@@ -51,7 +54,7 @@ export function planEvaluation(project: ProjectDocument, data: TransitionSet): R
   const sense = project.columns.reward.sense;
   return success({
     project, data, episodes: indexEpisodes(data), discount: project.discount, quadratureNodes: project.quadratureNodes, seed: project.seed,
-    sense, sign: sense === 'cost' ? -1 : 1, starts: starts.value, candidates: policies.value, approximator: project.approximator,
+    sense, sign: sense === 'cost' ? -1 : 1, starts: starts.value, candidates: policies.value, presentController: planPresentController(data, project.quadratureNodes), approximator: project.approximator,
     features: features.value, surface: surfaceGridFor(project, data), loggedReturn: loggedDiscountedReturn(data, project.discount), warnings: [...features.warnings, ...dataWarnings(data)],
   });
 }
@@ -60,7 +63,10 @@ function startStatesFor(project: ProjectDocument, data: TransitionSet): Result<S
   const ds = data.stateDim;
   if (project.startStates.kind === 'episodeStarts') {
     if (data.episodeCount < 1) return failure({ where: 'startStates', field: ['startStates'], message: 'the data has no episodes, so there are no start states' });
-    return success({ states: data.startStates, count: data.startStates.length / ds, followEpisodes: true });
+    if (data.startStates.length === 0) {
+      return failure({ where: 'startStates', field: ['startStates'], message: 'no episode of the data keeps its first row (each was excluded), so there are no start states; fix those rows or give start states in the project' });
+    }
+    return success({ states: data.startStates, count: data.startStates.length / ds, followEpisodes: true, episode: data.startEpisode });
   }
   const states = Float64Array.from(project.startStates.states.flat());
   return success({ states, count: states.length / ds, followEpisodes: false });

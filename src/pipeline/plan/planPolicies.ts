@@ -5,7 +5,7 @@
  * points on one state. A candidate that breaks either is refused with its name and the setting.
  */
 import { MAX_BOUNDED_NORMAL_NODES, MAX_QUADRATURE_POINTS } from '../../core/limits';
-import { PolicyError, type GaussianPolicy } from '../../core/policy';
+import { hasActionLimits, PolicyError, type GaussianPolicy } from '../../core/policy';
 import { failure, success, type Problem, type Result } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
 import type { ProjectDocument } from '../../project/schema';
@@ -18,7 +18,7 @@ export function planPolicies(project: ProjectDocument, data: TransitionSet): Res
     const where = `candidates[${index}] "${candidate.name}"`;
     let policy: GaussianPolicy;
     try {
-      policy = candidatePolicy(candidate, data.stateDim);
+      policy = candidatePolicy(candidate, data);
     } catch (error) {
       if (!(error instanceof PolicyError)) throw error;
       problems.push({ where, field: ['candidates', index], message: error.message });
@@ -33,7 +33,7 @@ export function planPolicies(project: ProjectDocument, data: TransitionSet): Res
 
 /** Why the action quadrature cannot be built for this policy with n nodes per action, or null. */
 export function quadratureProblem(policy: GaussianPolicy, n: number): string | null {
-  const bounded = policy.bounds !== undefined;
+  const bounded = hasActionLimits(policy);
   if (bounded && n > MAX_BOUNDED_NORMAL_NODES) {
     return `${n} nodes per action: with actuator limits at most ${MAX_BOUNDED_NORMAL_NODES} are supported (the bounded-normal rule keeps its accuracy up to there); use ${MAX_BOUNDED_NORMAL_NODES} or fewer`;
   }

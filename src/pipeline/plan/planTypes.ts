@@ -12,8 +12,10 @@ export interface PlannedPolicy {
 export interface StartStates {
   readonly states: Float64Array; // count×ds
   readonly count: number;
-  /** True when start state k is episode k's first state (so it is resampled with its episode). */
+  /** True when the start states are episodes' first states (so they are resampled with their episodes). */
   readonly followEpisodes: boolean;
+  /** Episode of each start state when some episode has none (TransitionSet.startEpisode); absent: start k is episode k's. */
+  readonly episode?: Int32Array;
 }
 
 export type SurfaceGrid = ValueSurfaceOptions & { readonly xState: string; readonly yState: string };

@@ -8,6 +8,7 @@ import type { DatasetSummary } from '../../data/importDataset';
 import type { ProjectDocument } from '../../project/schema';
 import type { Assessment } from '../assessment';
 import type { Evaluation } from '../estimates';
+import type { RetuneMapResult } from '../retuneMaps';
 import type { ReportInput } from './reportInput';
 
 export interface ReportParts {
@@ -16,6 +17,8 @@ export interface ReportParts {
   projectFile: string;
   evaluation: Evaluation;
   assessment: Result<Assessment>;
+  /** The retune maps' result; absent where the host computed none. */
+  retuneMaps?: Result<RetuneMapResult[]>;
   data: { summary: DatasetSummary; episodeReport: string[] };
   generatedAt: Date;
 }
@@ -28,6 +31,8 @@ export function reportInputFrom(parts: ReportParts): ReportInput {
     evaluation: parts.evaluation,
     assessment: assessment.ok ? assessment.value : null,
     assessmentProblems: assessment.ok ? [] : assessment.problems.map((p) => p.message),
+    retuneMaps: parts.retuneMaps?.ok ? parts.retuneMaps.value : [],
+    retuneMapProblems: parts.retuneMaps && !parts.retuneMaps.ok ? parts.retuneMaps.problems.map((p) => p.message) : [],
     data: { summary: parts.data.summary, episodeReport: parts.data.episodeReport },
     generatedAt: parts.generatedAt.toISOString(),
   };

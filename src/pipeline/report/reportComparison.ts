@@ -4,7 +4,7 @@ import { BEHAVIOUR_NAME } from '../assessAssembly';
 import { formatInterval, formatNumber, formatPercent, html, raw, type Html } from './htmlText';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
-import { PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
+import { LOGGED_RETURN_LABEL } from '../../figures/parts/plotTheme';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
@@ -15,26 +15,31 @@ export function comparisonSection(input: ReportInput, figures: FigureCounter): H
 
 function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCounter): Html {
   const words = senseWords(input), level = formatPercent(a.settings.level, 0);
-  const vsToday = new Map(a.comparison.differences.filter((d) => d.b === BEHAVIOUR_NAME).map((d) => [d.a, d]));
-  const rows = [...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue })), { name: PRESENT_CONTROLLER, estimate: a.behaviour }];
-  const figure = figures.next();
-  const chartRows: IntervalRowData[] = rows.map((r, i) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: i === rows.length - 1 }));
-  return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states; the logged behaviour’s value is the mean discounted return of its episodes.
-      Intervals are ${level} bootstrap intervals over episodes; “vs today” is the paired difference J − J(today) on the same resamples.</p>
+  const baseline = a.comparison.baseline, pc = a.presentController;
+  const vsToday = new Map(a.comparison.differences.filter((d) => d.b === baseline.name).map((d) => [d.a, d]));
+  const rows = [
+    ...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue, present: false })),
+    ...(pc ? [{ name: `${pc.name} — baseline`, estimate: pc.policyValue, present: true }, { name: 'logged return, completed past time limits (check)', estimate: pc.completedReturn, present: false }] : []),
+    { name: pc ? 'logged return (check; cut short at time limits)' : 'logged return — baseline', estimate: a.behaviour, present: !pc },
+  ];
+  const figure = figures.next(), reference = pc ? pc.policyValue.value : a.behaviour.value;
+  const chartRows: IntervalRowData[] = rows.map((r) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: r.present }));
+  return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
+      Intervals are ${level} bootstrap intervals over runs; “vs today” is the paired difference J − J(baseline) on the same resamples.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th>
       <th class="num">vs today</th><th class="num">${level} interval of the difference</th><th class="num">Better than today in</th></tr></thead><tbody>
     ${rows.map((r) => {
-      const d = vsToday.get(r.name);
+      const d = r.present ? undefined : vsToday.get(r.name);
       return html`<tr><td>${r.name}</td>${estimateCells(r.estimate)}<td class="num">${d ? formatNumber(d.difference.value, 4) : ''}</td>
         <td class="num">${d ? formatInterval(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(d.probabilityBetter) : ''}</td></tr>`;
     })}
     </tbody></table>
-    <figure id="fig-comparison">${raw(intervalFigure('comparison-svg', chartRows, valueAxisLabel(input, 'J'), a.behaviour.value))}
-      <figcaption>Figure ${figure}. J of each candidate and of the present controller (dashed line) with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} episodes. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
+    <figure id="fig-comparison">${raw(intervalFigure('comparison-svg', chartRows, valueAxisLabel(input, 'J'), reference))}
+      <figcaption>Figure ${figure}. J of each candidate and of the baseline (dashed line) with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} runs. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
     ${pairwise(a, level)}
     <h3>Ranking</h3>
     <p>By point estimate: <strong>${a.comparison.ranking.order.join(' › ')}</strong>. ${a.comparison.ranking.frequency === null
-      ? 'How often it holds is not known: the candidates were not resampled.'
+      ? 'How often it holds is not known: not every policy was resampled.'
       : `This whole order holds in ${formatPercent(a.comparison.ranking.frequency)} of the resamples.`}</p>
     <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${n.better} better than ${n.worse}${n.frequency === null ? '' : ` in ${formatPercent(n.frequency)} of resamples`}</li>`)}</ul>`;
 }
@@ -49,7 +54,7 @@ export function estimateCells(e: IntervalEstimate): Html {
 }
 
 function pairwise(a: Assessment, level: string): Html {
-  const between = a.comparison.differences.filter((d) => d.b !== BEHAVIOUR_NAME);
+  const between = a.comparison.differences.filter((d) => d.b !== a.comparison.baseline.name);
   if (!between.length) return html``;
   return html`<h3>Candidates against each other</h3>
     <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">First better in</th></tr></thead><tbody>
@@ -63,7 +68,7 @@ function pointComparison(input: ReportInput): Html {
   return html`<p>Point estimates only (no intervals: ${input.assessmentProblems.join('; ')}). The ± column covers start-state sampling only.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">± s.e.</th><th>Fit</th></tr></thead><tbody>
     ${e.policies.map((p) => html`<tr><td>${p.name}</td><td class="num">${formatNumber(p.policyValue, 5)}</td><td class="num">${formatNumber(p.standardError, 3)}</td><td>${p.status}</td></tr>`)}
-    <tr><td>${BEHAVIOUR_NAME}</td><td class="num">${formatNumber(e.behaviour.value, 5)}</td><td class="num">${formatNumber(e.behaviour.standardError, 3)}</td><td>${e.behaviour.episodes} episodes</td></tr>
+    <tr><td>${BEHAVIOUR_NAME}</td><td class="num">${formatNumber(e.behaviour.value, 5)}</td><td class="num">${formatNumber(e.behaviour.standardError, 3)}</td><td>${e.behaviour.episodes} runs</td></tr>
     </tbody></table>`;
 }
 
@@ -73,7 +78,7 @@ export function intervalFigure(id: string, rows: IntervalRowData[], axisLabel: s
     { widthPx: 640, heightPx: intervalChartHeight(rows.length), id, label: axisLabel.replace(/\^\{|\}|_\{/g, '') });
 }
 
-/** A policy's name as the report shows it: the logged behaviour reads "present controller (logged)". */
+/** A policy's name as the report shows it: the logged return reads as the check it is. */
 export function shownName(name: string): string {
-  return name === BEHAVIOUR_NAME ? PRESENT_CONTROLLER : name;
+  return name === BEHAVIOUR_NAME ? LOGGED_RETURN_LABEL : name;
 }

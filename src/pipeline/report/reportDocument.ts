@@ -2,7 +2,7 @@
  * The report as ONE self-contained HTML document: inline CSS, inline SVG figures, no scripts and
  * no external resources, so it opens anywhere, prints, and can be attached to a design review.
  * Section ids (job, data, settings, comparison, surfaces, slices, diagnostics, cross-checks,
- * sensitivity, cautions) are stable so hosts and tests can find them.
+ * sensitivity, retune-maps, cautions) are stable so hosts and tests can find them.
  */
 import { html, raw } from './htmlText';
 import { comparisonSection } from './reportComparison';
@@ -11,10 +11,11 @@ import { slicesSection, surfacesSection } from './reportFigures';
 import { FigureCounter, type ReportInput } from './reportInput';
 import { dataSection, jobSection, settingsSection, summarySection } from './reportOverview';
 import { REPORT_CSS } from './reportStyles';
+import { retuneSection } from './reportRetune';
 
 export type { ReportInput } from './reportInput';
 
-export const REPORT_SECTIONS = ['job', 'data', 'settings', 'comparison', 'surfaces', 'slices', 'diagnostics', 'cross-checks', 'sensitivity', 'cautions'] as const;
+export const REPORT_SECTIONS = ['job', 'data', 'settings', 'comparison', 'surfaces', 'slices', 'diagnostics', 'cross-checks', 'sensitivity', 'retune-maps', 'cautions'] as const;
 
 export function renderReport(input: ReportInput): string {
   const figures = new FigureCounter();
@@ -30,6 +31,7 @@ export function renderReport(input: ReportInput): string {
     ${diagnosticsSection(input)}
     ${crossChecksSection(input, figures)}
     ${sensitivitySection(input, figures)}
+    ${retuneSection(input)}
     ${cautionsSection(input, input.assessment)}`;
   return '<!DOCTYPE html>\n' + html`<html lang="en"><head><meta charset="utf-8"/>
     <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"/>

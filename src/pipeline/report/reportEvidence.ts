@@ -1,5 +1,6 @@
 /** The evidence sections: coverage diagnostics, cross-checks, sensitivity, and the warnings and cautions. */
 import type { Assessment, AssessmentWarning, CandidateAssessment } from '../assessment';
+import { OCCUPANCY_SHIFT_LIMITS } from '../../core/diagnostics/severity';
 import { CAUTIONS } from '../cautions';
 import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
@@ -11,7 +12,7 @@ export function diagnosticsSection(input: ReportInput): Html {
   const a = input.assessment;
   if (!a) return html`<section id="diagnostics"><h2>Diagnostics</h2><p>Not computed: ${input.assessmentProblems.join('; ')}</p></section>`;
   return html`<section id="diagnostics"><h2>Diagnostics</h2>
-    <p>Does the candidate stay inside what the logs cover? The last column gives the logged controller itself (the fitted behaviour model) for scale.</p>
+    <p>Does the candidate stay inside what the logs cover? The last column gives the present controller (its model fitted to the log) for scale.</p>
     <table><thead><tr><th>Diagnostic</th>${a.candidates.map((c) => html`<th class="num">${c.name}</th>`)}<th class="num">logged controller</th></tr></thead><tbody>
     ${diagnosticRows(a).map((row) => html`<tr><td>${row.label}</td>${row.values.map((v) => html`<td class="num">${v}</td>`)}<td class="num">${row.reference}</td></tr>`)}
     </tbody></table>
@@ -25,8 +26,11 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
   const weights = (c: CandidateAssessment) => c.diagnostics.importanceWeights;
   const horizon = a.candidates.map(weights).find((w) => w)?.horizonSteps;
   return [
-    row('Distribution shift νᵀΣ⁻¹ν over the start states (1 = none)', (c) => formatNumber(c.diagnostics.distributionShiftStart, 3), formatNumber(first?.behaviourShiftStart, 3)),
-    row('Distribution shift νᵀΣ⁻¹ν over the logged next states', (c) => formatNumber(c.diagnostics.distributionShiftNext, 3), formatNumber(first?.behaviourShiftNext, 3)),
+    row(`Occupancy shift (1 = like the logs; caution above ${OCCUPANCY_SHIFT_LIMITS.caution}×, serious above ${OCCUPANCY_SHIFT_LIMITS.serious}× the present controller’s level, at least 1)`,
+      (c) => formatNumber(c.diagnostics.occupancyShift, 3), formatNumber(first?.presentControllerShift, 3)),
+    row('… upper 90 % over resamples', (c) => formatNumber(c.diagnostics.occupancyShiftUpper, 3), ''),
+    row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
+    row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
     row('Importance weights: effective share of the one-step ratios', (c) => formatPercent(weights(c)?.oneStepShare), ''),
     row(`Importance weights: effective episodes at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return w ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes}` : '—'; }, ''),
     row('Action probability outside the logged range near the state: mean', (c) => formatPercent(c.diagnostics.actionSupport.meanOutside), formatPercent(first?.actionSupport.behaviourMeanOutside)),

@@ -4,6 +4,8 @@ import type { ProjectDocument } from '../../project/schema';
 import type { Assessment } from '../assessment';
 import type { Evaluation } from '../estimates';
 
+import type { RetuneMapResult } from '../retuneMaps';
+
 export interface ReportInput {
   project: ProjectDocument;
   projectFile: string;
@@ -11,6 +13,9 @@ export interface ReportInput {
   /** Null when the assessment could not be run; assessmentProblems then says why. */
   assessment: Assessment | null;
   assessmentProblems: string[];
+  /** The project's retune maps (empty when it has none); retuneMapProblems says why when they could not be computed. */
+  retuneMaps: RetuneMapResult[];
+  retuneMapProblems: string[];
   data: { summary: DatasetSummary; episodeReport: string[] };
   /** ISO 8601 time the report was written. */
   generatedAt: string;

@@ -1,5 +1,6 @@
 /** The report's opening sections: the summary, the job, the data and the settings. */
 import type { Assessment } from '../assessment';
+import { summariseCandidate } from '../../project/candidateSummary';
 import { html, formatNumber, formatPercent, type Html } from './htmlText';
 import { senseWords, type ReportInput } from './reportInput';
 
@@ -26,9 +27,11 @@ export function jobSection(input: ReportInput): Html {
       <tr><th>Question</th><td>How would each of ${p.candidates.length} candidate setpoint polic${p.candidates.length === 1 ? 'y' : 'ies'} perform, judged offline from the logs gathered under today’s controller?</td></tr>
     </tbody></table>
     <h3>Candidates</h3>
-    <table><thead><tr><th>Name</th><th>Mean action μ(s) = offset + gain·s</th><th>Std</th><th>Limits</th><th>Description</th></tr></thead><tbody>
-    ${p.candidates.map((c) => html`<tr><td>${c.name}</td><td>offset ${c.offset.map((v) => formatNumber(v)).join(', ')}; gain ${c.gain.map((r) => `[${r.map((v) => formatNumber(v)).join(', ')}]`).join(' ')}</td>
-      <td>${c.std.map((v) => formatNumber(v)).join(', ')}</td><td>${c.bounds ? `${c.bounds.mode} to [${c.bounds.lo.map((v) => v ?? '−∞').join(', ')}] … [${c.bounds.hi.map((v) => v ?? '∞').join(', ')}]` : 'none'}</td><td>${c.description}</td></tr>`)}
+    <table><thead><tr><th>Name</th><th>Mean action</th><th>Dither</th><th>Limits</th><th>Description</th></tr></thead><tbody>
+    ${p.candidates.map((c) => {
+      const summary = summariseCandidate(c, p.columns);
+      return html`<tr><td>${c.name}</td><td>${summary.mean.join('; ')}</td><td>${summary.dither}</td><td>${summary.limits}</td><td>${c.description}</td></tr>`;
+    })}
     </tbody></table></section>`;
 }
 

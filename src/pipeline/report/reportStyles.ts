@@ -13,6 +13,11 @@ th, td { border-bottom: 1px solid var(--rule); padding: 4px 10px 4px 0; text-ali
 th { border-bottom: 1.5px solid var(--ink); font-weight: 600; }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 td.num { white-space: nowrap; }
+.retune-caution { background: #e8e8e8; }
+.retune-serious { background: #b8b8b8; color: #222; }
+.retune-unknown { background: #f4f4f4; }
+.retune-best { outline: 3px solid var(--ink); outline-offset: -3px; }
+.retune-grid td, .retune-grid th { padding: 2px 4px; font-size: 0.85em; }
 figure { margin: 14px 0 20px; break-inside: avoid; page-break-inside: avoid; }
 figcaption { font-size: 12.5px; color: var(--muted); max-width: 86ch; margin-top: 4px; }
 svg { max-width: 100%; height: auto; font-size: 11px; font-family: inherit; }

@@ -53,7 +53,7 @@ describe('the linearised bootstrap replicate', () => {
     for (let b = 0; b < 200; b++) {
       episodeMultiplicities(index.episodes, 5, b, c);
       exactValues.push(linearFqeReplicate(exact, c).policyValue!);
-      firstOrder.push(linearisedReplicate(linearised, c));
+      firstOrder.push(linearisedReplicate(linearised, c)!);
     }
     const mean = exactValues.reduce((a, b) => a + b, 0) / exactValues.length;
     const spread = Math.sqrt(exactValues.reduce((a, v) => a + (v - mean) ** 2, 0) / (exactValues.length - 1));

@@ -37,3 +37,26 @@ describe('radial basis features', () => {
     expect(() => createFeatureMap({ kind: 'radialBasis', centres: [[0, 0]], width: -1, linearTerms: false, standardiser })).toThrow(FeatureSpecError);
   });
 });
+
+describe('radial basis features on a tensor grid', () => {
+  it('give the same values by products of one-dimensional factors as by the direct Gaussian, and a scattered set stays direct', () => {
+    const standardiser = { mean: [0.5, -1, 2], scale: [2, 0.5, 1] };
+    const grid = radialBasisGridSpec(standardiser, { pointsPerDimension: 4, width: 0.9, linearTerms: true });
+    // The same centres in a scrambled order are not an odometer grid: the map evaluates each Gaussian directly.
+    const scrambled = { ...grid, centres: [...grid.centres].reverse() };
+    const fast = createFeatureMap(grid), direct = createFeatureMap(scrambled);
+    const a = new Float64Array(fast.dim), b = new Float64Array(direct.dim);
+    for (const x of [[0.5, -1, 2], [3, 0, -1], [-2.5, -1.7, 2.2]]) {
+      fast.evaluate(x, 0, a, 0);
+      direct.evaluate(x, 0, b, 0);
+      const first = 4, c = grid.centres.length;
+      for (let j = 0; j < c; j++) {
+        // Direct Gaussian of centre j by hand (Bishop 2006, eq. 3.4), in standardised units.
+        const z = x.map((v, i) => (v - standardiser.mean[i]) / standardiser.scale[i]);
+        const r2 = grid.centres[j].reduce((s, cj, i) => s + (z[i] - cj) ** 2, 0);
+        expect(a[first + j]).toBeCloseTo(Math.exp(-r2 / (2 * 0.81)), 14);
+        expect(b[first + (c - 1 - j)]).toBeCloseTo(a[first + j], 14);
+      }
+    }
+  });
+});

@@ -169,7 +169,7 @@ describe('argument checks', () => {
     const points = new Float64Array(18), weights = new Float64Array(9);
     expect(() => quadrature.at([1, 2, 3], 2, points, weights)).toThrow(/state offset 2/);
     expect(() => quadrature.at([1, 2], 0, new Float64Array(4), weights)).toThrow(/buffers too small/);
-    expect(() => quadrature.at([NaN, 2], 0, points, weights)).toThrow(/policy mean of action 1 is NaN/);
+    expect(() => quadrature.at([NaN, 2], 0, points, weights)).toThrow(/mean action 1 is NaN/);
     expect(() => createActionQuadrature(policy, 0)).toThrow(RangeError);
   });
 });

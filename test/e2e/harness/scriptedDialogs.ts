@@ -4,14 +4,15 @@
  * (null, or 'cancel' for the unsaved-changes question). Every question is recorded in `asked`.
  */
 import type { ExportKind } from '../../../src/shared/appApi';
-import type { Dialogs, UnsavedChangesChoice } from '../../../src/main/dialogs';
+import type { ChangedOnDiskChoice, Dialogs, UnsavedChangesChoice } from '../../../src/main/dialogs';
 
 export type AskedDialog =
   | { dialog: 'openProject'; answer: string | null }
   | { dialog: 'openData'; answer: string | null }
   | { dialog: 'saveProject'; suggestedName: string; answer: string | null }
   | { dialog: 'export'; kind: ExportKind; suggestedName: string; answer: string | null }
-  | { dialog: 'confirmUnsavedChanges'; documentName: string; answer: UnsavedChangesChoice };
+  | { dialog: 'confirmUnsavedChanges'; documentName: string; answer: UnsavedChangesChoice }
+  | { dialog: 'confirmReplaceChanged'; fileName: string; answer: ChangedOnDiskChoice };
 
 export class ScriptedDialogs implements Dialogs {
   /** Absolute path the next "Open project" dialog returns. */
@@ -24,6 +25,8 @@ export class ScriptedDialogs implements Dialogs {
   nextExport: string | null = null;
   /** The answer to the next "save changes before closing?" question. */
   nextConfirm: UnsavedChangesChoice = 'cancel';
+  /** The answer to the next "changed by another program: replace?" question. */
+  nextReplaceChanged: ChangedOnDiskChoice = 'cancel';
   readonly asked: AskedDialog[] = [];
 
   async showOpenProject(): Promise<string | null> {
@@ -58,6 +61,13 @@ export class ScriptedDialogs implements Dialogs {
     const answer = this.nextConfirm;
     this.nextConfirm = 'cancel';
     this.asked.push({ dialog: 'confirmUnsavedChanges', documentName, answer });
+    return answer;
+  }
+
+  async confirmReplaceChanged(fileName: string): Promise<ChangedOnDiskChoice> {
+    const answer = this.nextReplaceChanged;
+    this.nextReplaceChanged = 'cancel';
+    this.asked.push({ dialog: 'confirmReplaceChanged', fileName, answer });
     return answer;
   }
 }

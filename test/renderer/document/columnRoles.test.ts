@@ -32,15 +32,15 @@ describe('column roles', () => {
 
   it('keeps candidates consistent as states and actions come and go', () => {
     let doc = mapped();
-    doc = { ...doc, candidates: [{ name: 'A', description: '', offset: [189], gain: [[-60, -90]], std: [1.5] }] };
+    doc = { ...doc, candidates: [{ name: 'A', description: '', form: { kind: 'affine', offset: [189], gain: [[-60, -90]] }, dither: [1.5] }] };
     expect(projectProblems(doc)).toEqual([]);
     doc = assignRole(doc, HEADER, 'time_s', 'state'); // time_s comes before the levels in the header
-    expect(doc.candidates[0].gain).toEqual([[0, -60, -90]]);
+    expect(doc.candidates[0].form).toMatchObject({ gain: [[0, -60, -90]] });
     expect(projectProblems(doc)).toEqual([]);
     doc = assignRole(doc, HEADER, 'level_upper_m', 'unused');
-    expect(doc.candidates[0].gain).toEqual([[0, -90]]);
+    expect(doc.candidates[0].form).toMatchObject({ gain: [[0, -90]] });
     doc = assignRole(doc, HEADER, 'level_upper_m', 'action');
-    expect(doc.candidates[0]).toMatchObject({ offset: [0, 189], std: [1, 1.5], gain: [[0, 0], [0, -90]] });
+    expect(doc.candidates[0]).toMatchObject({ form: { offset: [0, 189], gain: [[0, 0], [0, -90]] }, dither: [1, 1.5] });
     expect(projectProblems(doc)).toEqual([]);
   });
 

@@ -46,6 +46,16 @@ describe('surfaceCsv (long form, RFC 4180)', () => {
     expect(csvField('level_m')).toBe('level_m');
   });
 
+  it('no line, the "#" ones included, gives a formula cell however a spreadsheet splits it (OWASP, "CSV Injection")', () => {
+    const hostile = surfaceCsv({ ...surface, xState: 'a,=cmd|\' /C calc\'!A0', yState: '@SUM(1;2)\t-2+3' }, '+V, "=1"');
+    for (const delimiter of [',', ';', '\t']) {
+      const cells = Papa.parse<string[]>(hostile, { delimiter, skipEmptyLines: true }).data.flat();
+      for (const cell of cells.filter((c) => !Number.isFinite(Number(c)))) expect(cell.trim()).not.toMatch(/^[=+\-@]/); // numbers such as -1 are data
+    }
+    const header = Papa.parse<string[]>(hostile, { comments: '#' }).data[0];
+    expect(header.slice(0, 2)).toEqual(["a,=cmd|' /C calc'!A0", "'@SUM(1;2)\t-2+3"]);
+  });
+
   it('writes a non-finite value as an empty field', () => {
     const values = surface.values.slice();
     values[0] = NaN;

@@ -49,7 +49,7 @@ async function preparedWorkspace(saves: { text: string; path: string | null }[])
   const header = ['level_upper_m', 'level_lower_m', 'inflow_valve_pct', 'cost'];
   documents.edit('map', (d) => {
     let next = assignRole(assignRole(assignRole(assignRole(d, header, 'level_upper_m', 'state'), header, 'level_lower_m', 'state'), header, 'inflow_valve_pct', 'action'), header, 'cost', 'cost');
-    next = { ...next, candidates: [{ name: 'A', description: '', offset: [189], gain: [[-60, -90]], std: [1.5] }] };
+    next = { ...next, candidates: [{ name: 'A', description: '', form: { kind: 'affine', offset: [189], gain: [[-60, -90]] }, dither: [1.5] }] };
     return next;
   });
   const fingerprint = 'b'.repeat(64);
@@ -74,10 +74,10 @@ describe('project commands', () => {
   it('refuses to save a document the schema does not accept, saying why', async () => {
     const saves: { text: string; path: string | null }[] = [];
     const { documents, session, files } = await preparedWorkspace(saves);
-    documents.edit('bad std', (d) => ({ ...d, candidates: [{ ...d.candidates[0], std: [0] }] }));
+    documents.edit('bad dither', (d) => ({ ...d, candidates: [{ ...d.candidates[0], dither: [0] }] }));
     await expect(files.save()).resolves.toBe(false);
     expect(saves).toHaveLength(0);
-    expect(session.get().notice?.problems[0].where).toBe('candidates.0.std.0');
+    expect(session.get().notice?.problems[0].where).toBe('candidates.0.dither.0');
   });
 
   it('reports a project from a newer version and keeps the current project open', async () => {

@@ -22,22 +22,23 @@ describe('assessment words', () => {
 
   it('says where the assessment is and how far', () => {
     expect(progressLine(null)).toBe('Starting the assessment…');
-    expect(progressLine({ stage: 'resampling', done: 1200, total: 2000, elapsedMs: 0 })).toBe('Resampling episodes (1,200 of 2,000)…');
+    expect(progressLine({ stage: 'resampling', done: 1200, total: 2000, elapsedMs: 0 })).toBe('Resampling runs (1,200 of 2,000)…');
     expect(assessmentFraction({ stage: 'resampling', done: 1000, total: 2000, elapsedMs: 0 })).toBeCloseTo(0.45);
     expect(assessmentFraction({ stage: 'preparing', done: 0, total: 2, elapsedMs: 0 })).toBe(0);
   });
 
-  it('puts each diagnostic beside the logged controller’s own level', () => {
+  it('puts each diagnostic beside the present controller’s own level', () => {
     const d: CoverageDiagnostics = {
-      distributionShiftStart: 55.3, distributionShiftNext: 1.4, behaviourShiftStart: 44.9, behaviourShiftNext: 1.1,
+      occupancyShift: 55.3, occupancyShiftUpper: 61.2, presentControllerShift: 1.1, shiftFeatures: 'the fit’s own features (15)',
       importanceWeights: { oneStepEffectiveSize: 9490.4, oneStepShare: 0.475, horizonSteps: 20, horizonEffectiveEpisodes: 1.09, horizonEpisodes: 40 },
       actionSupport: { neighbours: 50, queryStates: 400, meanOutside: 0.001, p90Outside: 0.0002, maxOutside: 0.2, behaviourMeanOutside: 0.039 },
     };
     const [shift, weights, support] = coverageSentences(d);
-    expect(shift).toContain('55.3 over the start states (the logged controller itself: 44.9); 1.4 over the logged next states (the logged controller itself: 1.1)');
+    expect(shift).toContain('Occupancy shift: 55.3, up to 61.2 over resamples (the present controller itself: 1.1), measured in the fit’s own features (15).');
+    expect(shift).toContain('caution above 4 times the present controller’s own level (at least 1), serious above 10 times'); // the limits the code applies (src/core/diagnostics/severity.ts)
     expect(weights).toContain('worth 9,490 transitions (47.5 % of them)');
     expect(support).toContain('on average 0.1 %');
-    expect(coverageSentences({ ...d, distributionShiftStart: null, importanceWeights: null })).toHaveLength(1);
+    expect(coverageSentences({ ...d, occupancyShift: null, importanceWeights: null })).toHaveLength(1);
     expect(unvisitedSentence(0.497)).toContain('49.7 %');
     expect(unvisitedSentence(null)).toBeNull();
   });

@@ -16,7 +16,7 @@ function doc(): ProjectDocument {
   return {
     ...d,
     columns: { ...d.columns, states: [{ column: 'u', unit: 'm' }, { column: 'l', unit: 'm' }], actions: [{ column: 'v', unit: '%' }] },
-    candidates: [{ name: 'Candidate 1', description: '', offset: [0], gain: [[0, 0]], std: [1] }],
+    candidates: [{ name: 'Candidate 1', description: '', form: { kind: 'affine', offset: [0], gain: [[0, 0]] }, dither: [1] }],
   };
 }
 
@@ -50,12 +50,12 @@ describe('candidate chart lines', () => {
 describe('new candidates', () => {
   it('names them without clashes', () => {
     expect(uniqueName(doc(), 'Candidate 1')).toBe('Candidate 1 2');
-    expect(plainCandidate(doc(), null)).toMatchObject({ name: 'Candidate 2', offset: [0], gain: [[0, 0]], std: [1] });
+    expect(plainCandidate(doc(), null)).toMatchObject({ name: 'Candidate 2', form: { kind: 'affine', offset: [0], gain: [[0, 0]] }, dither: [1] });
   });
 
   it('copies the behaviour model to four significant digits', () => {
     const model = { offset: [97.2634], gain: [[-29.1812, -21.5678]], std: [3.98012] } as never;
-    expect(candidateFromBehaviour(doc(), model)).toMatchObject({ offset: [97.26], gain: [[-29.18, -21.57]], std: [3.98] });
+    expect(candidateFromBehaviour(doc(), model)).toMatchObject({ form: { offset: [97.26], gain: [[-29.18, -21.57]] }, dither: [3.98] });
     expect(roundSignificant(0.000123456)).toBe(0.0001235);
   });
 });

@@ -21,7 +21,7 @@ describe('run key', () => {
   it('changes with the data, a candidate, a setting or how the CSV is read', () => {
     expect(runKey(doc, 'g')).not.toBe(runKey(doc, 'f'));
     expect(runKey({ ...doc, seed: 2 }, 'f')).not.toBe(runKey(doc, 'f'));
-    expect(runKey({ ...doc, candidates: [{ ...doc.candidates[0], std: [2] }, doc.candidates[1]] }, 'f')).not.toBe(runKey(doc, 'f'));
+    expect(runKey({ ...doc, candidates: [{ ...doc.candidates[0], dither: [2] }, doc.candidates[1]] }, 'f')).not.toBe(runKey(doc, 'f'));
     expect(runKey({ ...doc, data: { ...doc.data, csv: { ...doc.data.csv, badRows: 'exclude' } } }, 'f')).not.toBe(runKey(doc, 'f'));
   });
 

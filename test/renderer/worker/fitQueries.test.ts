@@ -8,6 +8,7 @@
  */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
+import { PRESENT_CONTROLLER_NAME } from '../../../src/pipeline/plan/presentController';
 import { describe, expect, it } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
 import { evaluateProject } from '../../../src/pipeline/evaluateProject';
@@ -43,8 +44,9 @@ describe('evaluation worker handlers', async () => {
     expect(result.value.behaviour.value).toBe(direct.value.behaviour.value);
   });
 
-  it('reports each candidate as it starts, then its iterations no closer than the interval', () => {
-    expect(reports.filter((r) => r.iteration === null && r.dataPass === null).map((r) => r.candidate)).toEqual(project.candidates.map((c) => c.name));
+  it('reports each candidate as it starts, then the present controller’s model (the baseline), then iterations no closer than the interval', () => {
+    expect(reports.filter((r) => r.iteration === null && r.dataPass === null).map((r) => r.candidate))
+      .toEqual([...project.candidates.map((c) => c.name), PRESENT_CONTROLLER_NAME]);
     expect(reports.every((r) => r.maxIterations === 5000 && r.tolerance === 1e-10)).toBe(true);
   });
 
@@ -59,9 +61,10 @@ describe('evaluation worker handlers', async () => {
   it('puts the slice’s nodes where the Gauss–Hermite rule puts them, weights summing to one', () => {
     const state = [1.2, 0.8];
     const slice = sliceFromFit(memory.lastRun(), { candidateIndex: 0, state, actionIndex: 0, points: 401 });
-    const c = project.candidates[0];
-    const mean = c.offset[0] + c.gain[0][0] * state[0] + c.gain[0][1] * state[1];
-    const sigma = c.std[0];
+    const c = project.candidates[0], form = c.form;
+    if (form.kind !== 'affine') throw new Error('the tank sample\'s first candidate is affine');
+    const mean = form.offset[0] + form.gain[0][0] * state[0] + form.gain[0][1] * state[1];
+    const sigma = c.dither[0];
     const expected = [...HERMITE_10].reverse().map((x) => mean - sigma * Math.SQRT2 * x).concat(HERMITE_10.map((x) => mean + sigma * Math.SQRT2 * x));
     Array.from(slice.nodes.points).forEach((p, i) => expect(p).toBeCloseTo(expected[i], 9));
     expect(slice.nodes.weights.reduce((a, b) => a + b, 0)).toBeCloseTo(1, 12);

@@ -6,6 +6,7 @@
  * Single roles (reward, episode, timestamp, terminal) move from their old column to the new one.
  */
 import type { CandidateSpec, ColumnRoles, ProjectDocument } from '../../../project/schema';
+import { candidateWithActionInserted, candidateWithActionRemoved, candidateWithStateInserted, candidateWithStateRemoved } from '../../../project/candidateColumns';
 
 export type ColumnRole =
   | 'unused' | 'state' | 'action' | 'reward' | 'cost' | 'episode' | 'timestamp' | 'terminal'
@@ -88,7 +89,7 @@ function addState(doc: ProjectDocument, header: readonly string[], column: strin
   const at = insertionIndex(doc.columns.states, header, column);
   let next = withColumns(doc, { states: inserted(doc.columns.states, at, { column, unit: '' }) });
   if (doc.columns.nextState.kind === 'columns') next = withNextColumns(next, inserted(doc.columns.nextState.columns, at, ''));
-  return mapCandidates(next, (c) => ({ ...c, gain: c.gain.map((row) => inserted(row, at, 0)) }));
+  return mapCandidates(next, (c) => candidateWithStateInserted(c, at));
 }
 
 function removeState(doc: ProjectDocument, index: number): ProjectDocument {
@@ -96,31 +97,19 @@ function removeState(doc: ProjectDocument, index: number): ProjectDocument {
   let next = withColumns(doc, { states: removed(doc.columns.states, index) });
   if (doc.columns.nextState.kind === 'columns') next = withNextColumns(next, removed(doc.columns.nextState.columns, index));
   if (doc.surface && (doc.surface.xState === name || doc.surface.yState === name)) next = { ...next, surface: undefined };
-  return mapCandidates(next, (c) => ({ ...c, gain: c.gain.map((row) => removed(row, index)) }));
+  return mapCandidates(next, (c) => candidateWithStateRemoved(c, index));
 }
 
 function addAction(doc: ProjectDocument, header: readonly string[], column: string): ProjectDocument {
   const at = insertionIndex(doc.columns.actions, header, column);
   const ds = doc.columns.states.length;
   const next = withColumns(doc, { actions: inserted(doc.columns.actions, at, { column, unit: '' }) });
-  return mapCandidates(next, (c) => ({
-    ...c,
-    offset: inserted(c.offset, at, 0),
-    gain: inserted(c.gain, at, new Array<number>(ds).fill(0)),
-    std: inserted(c.std, at, 1),
-    bounds: c.bounds && { ...c.bounds, lo: inserted(c.bounds.lo, at, null), hi: inserted(c.bounds.hi, at, null) },
-  }));
+  return mapCandidates(next, (c) => candidateWithActionInserted(c, at, ds));
 }
 
 function removeAction(doc: ProjectDocument, index: number): ProjectDocument {
   const next = withColumns(doc, { actions: removed(doc.columns.actions, index) });
-  return mapCandidates(next, (c) => ({
-    ...c,
-    offset: removed(c.offset, index),
-    gain: removed(c.gain, index),
-    std: removed(c.std, index),
-    bounds: c.bounds && { ...c.bounds, lo: removed(c.bounds.lo, index), hi: removed(c.bounds.hi, index) },
-  }));
+  return mapCandidates(next, (c) => candidateWithActionRemoved(c, index));
 }
 
 /** Next-state columns aligned with the states ('' where none is given yet); all empty → next row. */

@@ -2,7 +2,9 @@
  * The value surface as a table, in long form: one record per grid point with its two state values,
  * V, and the visit count, so it loads straight into a spreadsheet or a data-frame without
  * reshaping, and the never-visited points (visits = 0) can be filtered. A few leading lines starting
- * with "#" describe the table (read them with a comment option, e.g. pandas comment="#"); the rest
+ * with "#" describe the table (read them with a comment option, e.g. pandas comment="#"). A
+ * spreadsheet that ignores the "#" still splits those lines at its delimiter (comma, semicolon or
+ * tab, by locale), so the names in them carry none of those and never start a formula; the rest
  * is RFC 4180: CRLF line ends, fields with a comma, quote, CR, LF, a leading "#" or edge spaces in
  * double quotes with inner quotes doubled. Numbers are written in shortest round-trip form; a
  * non-finite V is an empty field.
@@ -22,8 +24,13 @@ export function csvField(text: string): string {
   return /[",\r\n]|^#|^\s|\s$/.test(inert) ? `"${inert.replace(/"/g, '""')}"` : inert;
 }
 
+/**
+ * A name inside a "#" line, inert however a spreadsheet splits the line: no delimiter, quote or line
+ * break (each becomes a space), and a leading apostrophe before =, +, -, @ (OWASP, "CSV Injection").
+ */
 function commentText(text: string): string {
-  return text.replace(/[\r\n]+/g, ' ');
+  const flat = text.replace(/[,;\t\r\n"]+/g, ' ').trim();
+  return /^[=+\-@]/.test(flat) ? `'${flat}` : flat;
 }
 
 function numberField(v: number): string {
@@ -33,9 +40,9 @@ function numberField(v: number): string {
 export function surfaceCsv(surface: ValueSurface, valueLabel: string): string {
   const nx = surface.x.length, ny = surface.y.length;
   const lines = [
-    `# Value surface ${commentText(valueLabel)} over ${commentText(surface.xState)} and ${commentText(surface.yState)}: ${nx}×${ny} grid, long form, one row per grid point, ${commentText(surface.yState)} outer, ${commentText(surface.xState)} inner.`,
+    `# Value surface ${commentText(valueLabel)} over ${commentText(surface.xState)} and ${commentText(surface.yState)}: ${nx}×${ny} grid in long form (one row per grid point — ${commentText(surface.yState)} outer and ${commentText(surface.xState)} inner).`,
     '# visits = logged states nearest the grid point (projected onto these two states); 0 = never visited, V there is extrapolated.',
-    `# Other states held at: ${surface.heldState.map(numberField).join('; ')}`,
+    `# Other states held at: ${surface.heldState.map(numberField).join(' | ')}`,
     `# ${CAUTION_SHORT}`,
     [surface.xState, surface.yState, valueLabel, 'visits'].map(csvField).join(','),
   ];

@@ -30,7 +30,9 @@ export const GLOSSARY: readonly GlossaryEntry[] = [
   { term: 'Bootstrap interval', meaning: 'The range J falls in when whole runs of the log are drawn again at random and the fit repeated; percentile and basic intervals are two ways to read the resamples.' },
   { term: 'Paired difference', meaning: 'J of one policy minus J of another on the same resamples, so luck in which runs were logged cancels.' },
   { term: 'Cross-checks', aka: 'importance sampling, doubly robust, model check', meaning: 'Other estimates of the same J under other assumptions. Agreement is evidence; disagreement is a reason to look closer.' },
-  { term: 'Distribution shift', meaning: 'How far the states and actions a candidate asks about lie from those in the log (1 = none). Large values mean extrapolation.' },
+  { term: 'Occupancy shift', meaning: 'How far the states and actions a candidate would visit (discounted, from the start states) lie from the logged ones, in the fit’s own terms; 1 means like the logs. The estimate’s error grows with its square root.' },
+  { term: 'Present controller', meaning: 'Today’s controller as modelled from the log (gain, offset, dither and the actuator limits seen), evaluated like any candidate: the baseline every candidate is compared with.' },
+  { term: 'Function classes', meaning: 'The same candidate fitted with polynomial features of several degrees. When they disagree beyond sampling error the estimate is “not settled” and the range spanning them is reported.' },
   { term: 'Effective sample size', meaning: 'How many logged steps or runs the reweighted log is worth for a candidate; few means noisy cross-checks.' },
   { term: 'Unvisited cells', meaning: 'Cells of a value surface with no logged state nearest them: there the value is extrapolated, not measured.' },
 ];

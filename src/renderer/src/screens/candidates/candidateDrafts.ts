@@ -33,9 +33,8 @@ export function plainCandidate(doc: ProjectDocument, imported: DataImport | null
   return {
     name: uniqueName(doc, `Candidate ${doc.candidates.length + 1}`),
     description: '',
-    offset: mean,
-    gain: doc.columns.actions.map(() => doc.columns.states.map(() => 0)),
-    std,
+    form: { kind: 'affine', offset: mean, gain: doc.columns.actions.map(() => doc.columns.states.map(() => 0)) },
+    dither: std,
   };
 }
 
@@ -43,9 +42,8 @@ export function candidateFromBehaviour(doc: ProjectDocument, model: BehaviourMod
   return {
     name: uniqueName(doc, 'Like the logged controller'),
     description: 'Started from the behaviour model fitted to the log.',
-    offset: model.offset.map((v) => roundSignificant(v)),
-    gain: model.gain.map((row) => row.map((v) => roundSignificant(v))),
-    std: model.std.map((v) => roundSignificant(v)),
+    form: { kind: 'affine', offset: model.offset.map((v) => roundSignificant(v)), gain: model.gain.map((row) => row.map((v) => roundSignificant(v))) },
+    dither: model.std.map((v) => roundSignificant(v)),
   };
 }
 

@@ -6,7 +6,9 @@
  * limits on that action.
  */
 import type { CandidateActionsPlotProps } from '../../../../figures/charts/candidateActions';
-import { actionLimits, meanActionCurve, type Curve } from '../../../../figures/parts/meanActionCurve';
+import { actionLimits, meanActionCurve, meanCurve, type Curve } from '../../../../figures/parts/meanActionCurve';
+import { PolicyError, policyMean, type GaussianPolicy } from '../../../../core/policy';
+import { candidatePolicy, type CandidateColumns } from '../../../../pipeline/candidatePolicy';
 import type { Theme } from '../../../../figures/parts/plotTheme';
 import { formatValue } from '../../../../figures/parts/tickFormat';
 import type { ProjectDocument } from '../../../../project/schema';
@@ -26,16 +28,42 @@ const withUnit = (name: string, unit: string | undefined) => (unit ? `${name} ($
 /** The limits the chart draws: those of the first candidate that has any on this action. */
 function shownLimits(doc: ProjectDocument, action: number) {
   for (const c of doc.candidates) {
-    const l = actionLimits(c, action);
+    const l = actionLimits({ offset: [], gain: [], std: [], bounds: c.bounds }, action);
     if (l) return { lo: Number.isFinite(l.lo) ? l.lo : null, hi: Number.isFinite(l.hi) ? l.hi : null, mode: l.mode };
   }
   return null;
 }
 
+/**
+ * Any candidate form compiled to the engine's policy (pipeline/candidatePolicy.ts) and its mean
+ * taken along the axis; null when it does not compile yet (the editor names the fault). A rate
+ * limit moves with the previous action and is not drawn; the position limits are.
+ */
+function candidateCurve(
+  c: ProjectDocument['candidates'][number], columns: CandidateColumns, axis: number, action: number, range: [number, number], held: readonly number[],
+): Curve | null {
+  let policy: GaussianPolicy;
+  try {
+    policy = candidatePolicy(c, columns);
+  } catch (error) {
+    if (error instanceof PolicyError) return null;
+    throw error;
+  }
+  if (held.length !== policy.stateDim || action >= policy.actionDim) return null;
+  const state = Float64Array.from(held), out = new Float64Array(policy.actionDim);
+  const meanAt = (s: number) => {
+    state[axis] = s;
+    policyMean(policy, state, out);
+    return out[action];
+  };
+  return meanCurve(meanAt, c.dither[action] ?? 0, actionLimits({ offset: [], gain: [], std: [], bounds: c.bounds }, action), range);
+}
+
 export function candidateActionsProps(doc: ProjectDocument, imported: DataImport, axis: number, action: number, theme: Theme): CandidateActionsPlotProps {
   const range = imported.stateRanges[axis], held = imported.stateMeans, ds = imported.stateNames.length;
+  const columns = { stateNames: doc.columns.states.map((s) => s.column), actionNames: doc.columns.actions.map((a) => a.column) };
   const candidates = doc.candidates.flatMap((c) => {
-    const curve = meanActionCurve(c, axis, action, range, held);
+    const curve = candidateCurve(c, columns, axis, action, range, held);
     return curve ? [{ name: c.name, ...curve }] : [];
   });
   const model = imported.behaviour.ok ? imported.behaviour.model : null;

@@ -1,5 +1,5 @@
 /**
- * The paired comparison: each candidate against the logged behaviour and against each other, the
+ * The paired comparison: each candidate against the baseline (the present controller's model) and against each other, the
  * difference's interval over the same resamples and how often the first came out better, then the
  * ranking and how often it holds across resamples.
  */
@@ -15,9 +15,10 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
   return (
     <section className="panel" aria-labelledby="comparison-heading">
       <h3 id="comparison-heading">Comparison</h3>
+      <p data-testid="comparison-baseline"><strong>Baseline:</strong> {displayName(assessment.comparison.baseline.name)}. {assessment.comparison.baseline.note}</p>
       <p className="small muted">
-        Differences first − second in the project’s sense, {levelText(level)} percentile intervals from the same {assessment.settings.resamples.toLocaleString('en-US')} episode resamples
-        (paired bootstrap). “Better” means {better}; “first better in” counts the resamples in which the first came out better. An interval that excludes 0 says the order is unlikely to be an accident of which episodes were logged.
+        Differences first − second in the project’s sense, {levelText(level)} percentile intervals from the same {assessment.settings.resamples.toLocaleString('en-US')} resamples of the logged runs
+        (paired bootstrap). “Better” means {better}; “first better in” counts the resamples in which the first came out better. An interval that excludes 0 says the order is unlikely to be an accident of which runs were logged.
       </p>
       <table data-testid="comparison-table">
         <thead>

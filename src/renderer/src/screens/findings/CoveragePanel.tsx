@@ -1,5 +1,5 @@
 /**
- * Whether each candidate stays where the logs can speak for it: distribution shift, the
+ * Whether each candidate stays where the logs can speak for it: occupancy shift, the
  * importance weights' effective size, action probability outside the logged range, the unvisited
  * share of the state grid, and the warnings these raise, as sentences.
  */

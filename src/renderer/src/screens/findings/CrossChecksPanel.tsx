@@ -1,7 +1,9 @@
 /**
  * Each candidate's value by independent methods — weighted importance sampling, weighted doubly
- * robust, the linear-quadratic model — with its interval, its verdict against fitted
- * Q-evaluation, and the assumption it rests on in plain words.
+ * robust, rollouts of a fitted plant model, the linear-quadratic model — with its interval, its
+ * verdict against fitted Q-evaluation and the assumption it rests on; the headline those verdicts
+ * give (confirmed, contradicted, unconfirmed); and the candidate in other function classes with the
+ * range to report when they disagree.
  */
 import type { Assessment } from '../../../../pipeline/assessment';
 import { formatNumber } from '../../format/numberFormat';
@@ -14,7 +16,17 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
       <h3 id="cross-checks-heading">Cross-checks by other methods</h3>
       <p className="small muted">Each method rests on a different assumption; agreement between them is evidence, disagreement is a reason to look closer.</p>
       {assessment.candidates.map((c) => (
-        <table key={c.name} data-testid={`cross-checks-${c.name}`}>
+        <div key={c.name}>
+        <p data-testid={`confirmation-${c.name}`} className={c.confirmation.status === 'contradicted' ? 'error-text' : undefined}>
+          <strong>{c.name}:</strong> {c.confirmation.text}
+        </p>
+        {c.functionClasses && (
+          <p className="small" data-testid={`classes-${c.name}`}>
+            <strong>{c.settled ? 'Settled across function classes' : 'Not settled across function classes'}</strong>
+            {' '}(range to report {intervalText(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label} ${formatNumber(k.value, 4)} ${intervalText(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
+          </p>
+        )}
+        <table data-testid={`cross-checks-${c.name}`}>
           <caption>{c.name}: fitted Q-evaluation J = {formatNumber(c.policyValue.value, 4)} {intervalText(c.policyValue.percentile)}</caption>
           <thead>
             <tr>
@@ -34,6 +46,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
             ))}
           </tbody>
         </table>
+        </div>
       ))}
     </section>
   );

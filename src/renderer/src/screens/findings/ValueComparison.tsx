@@ -1,5 +1,6 @@
 /**
- * Each candidate's policy value beside the logged behaviour's discounted return: the comparison
+ * Each candidate's policy value beside the present controller's (its model, evaluated the same way:
+ * the baseline) and the logged return as a check: the comparison
  * chart, and a table with J, its standard error over start states, the fixed-point J, and how
  * the fit went; once the assessment is in, the bootstrap interval of each (percentile, the basic
  * interval in its tooltip).
@@ -30,7 +31,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
   const unit = valueUnit(doc);
   const level = assessment?.settings.level ?? 0;
   const sense = evaluation.valueSense === 'cost' ? `J is the expected discounted cost${unit ? ` in ${unit}` : ''} from the start states on (lower is better)` : `J is the expected discounted reward${unit ? ` in ${unit}` : ''} from the start states on (higher is better)`;
-  const b = evaluation.behaviour;
+  const b = evaluation.behaviour, pc = evaluation.presentController;
   return (
     <section className="panel span-2" aria-labelledby="values-heading" data-testid="panel-values">
       <h3 id="values-heading">Value of each candidate, J</h3>
@@ -57,14 +58,36 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
                 <details className="details-section"><summary>Details</summary>Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
             </tr>
           ))}
+          {pc && (
+            <tr data-testid="value-row-present">
+              <th scope="row">Present controller, modelled <span className="small muted">(baseline)</span></th>
+              <td className="number" data-testid="present-value" data-value={String(pc.estimate.policyValue)}>{estimateText(pc.estimate.policyValue, pc.estimate.standardError).value}</td>
+              <td className="number">{estimateText(pc.estimate.policyValue, pc.estimate.standardError).error}</td>
+              {assessment && <IntervalCell estimate={assessment.presentController?.policyValue} level={level} testId="present-interval" />}
+              <td className="number">{pc.estimate.fixedPointValue === null ? '—' : estimateText(pc.estimate.fixedPointValue, pc.estimate.standardError).value}</td>
+              <td>{STATUS[pc.estimate.status] ?? pc.estimate.status} ({plural(pc.estimate.iterations, 'iteration')})</td>
+              <td className="small">Today’s controller as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.</td>
+            </tr>
+          )}
+          {pc && (
+            <tr data-testid="value-row-completed">
+              <th scope="row">Logged return, completed <span className="small muted">(check)</span></th>
+              <td className="number" data-value={String(pc.completedReturn.value)}>{estimateText(pc.completedReturn.value, pc.completedReturn.standardError).value}</td>
+              <td className="number">{estimateText(pc.completedReturn.value, pc.completedReturn.standardError).error}</td>
+              {assessment && <IntervalCell estimate={assessment.presentController?.completedReturn} level={level} testId="completed-interval" />}
+              <td className="number">—</td>
+              <td>{plural(b.episodes, 'run')}</td>
+              <td className="small">The logged return with the value past each time-limited run end added from the present controller’s fit.</td>
+            </tr>
+          )}
           <tr data-testid="value-row-behaviour">
-            <th scope="row">Present controller (logged)</th>
+            <th scope="row">Logged return <span className="small muted">({pc ? 'check' : 'baseline'})</span></th>
             <td className="number" data-testid="behaviour-value" data-value={String(b.value)}>{estimateText(b.value, b.standardError).value}</td>
             <td className="number">{estimateText(b.value, b.standardError).error}</td>
             {assessment && <IntervalCell estimate={assessment.behaviour} level={level} testId="behaviour-interval" />}
             <td className="number">—</td>
             <td>{plural(b.episodes, 'run')}</td>
-            <td className="small">The discounted {evaluation.valueSense} actually logged, averaged over the runs.</td>
+            <td className="small">The discounted {evaluation.valueSense} actually logged, averaged over the runs; cut short where a run ends on a time limit{pc ? '' : ` (no model of the present controller: ${evaluation.presentControllerReason})`}.</td>
           </tr>
         </tbody>
       </table>

@@ -5,6 +5,7 @@
  */
 import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
 import type { AssessRunProgress } from '../../../../shared/workerMessages';
+import { OCCUPANCY_SHIFT_LIMITS } from '../../../../core/diagnostics/severity';
 import { formatNumber } from '../../format/numberFormat';
 
 /** "[1.23, 4.56]", or a dash without replicates. */
@@ -43,20 +44,21 @@ export const VERDICT: Record<Agreement, string> = {
 /** The coverage diagnostics as sentences, each with the logged controller's own level where known. */
 export function coverageSentences(d: CoverageDiagnostics): string[] {
   const sentences: string[] = [];
-  if (d.distributionShiftStart !== null) {
-    const own = (value: number | null) => (value === null ? '' : ` (the logged controller itself: ${formatNumber(value, 3)})`);
-    const next = d.distributionShiftNext === null ? '' : `; ${formatNumber(d.distributionShiftNext, 3)} over the logged next states${own(d.behaviourShiftNext)}`;
-    sentences.push(`Distribution shift νᵀΣ⁻¹ν: ${formatNumber(d.distributionShiftStart, 3)} over the start states${own(d.behaviourShiftStart)}${next}. `
-      + '1 means the candidate asks about the same mix of features the logs contain; the larger, the further it leaves them.');
+  if (d.occupancyShift !== null) {
+    const own = d.presentControllerShift === null ? '' : ` (the present controller itself: ${formatNumber(d.presentControllerShift, 3)})`;
+    const upper = d.occupancyShiftUpper === null ? '' : `, up to ${formatNumber(d.occupancyShiftUpper, 3)} over resamples`;
+    sentences.push(`Occupancy shift: ${formatNumber(d.occupancyShift, 3)}${upper}${own}, measured in ${d.shiftFeatures}. `
+      + `1 means the candidate would visit states and actions like the logged ones; the error of its estimate grows with the square root, `
+      + `caution above ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller’s own level (at least 1), serious above ${OCCUPANCY_SHIFT_LIMITS.serious} times.`);
   }
   const w = d.importanceWeights;
   if (w) {
     sentences.push(`Importance weights: the one-step weights are worth ${Math.round(w.oneStepEffectiveSize).toLocaleString('en-US')} transitions (${shareText(w.oneStepShare)} of them); `
-      + `after ${w.horizonSteps} steps the cumulative weights are worth ${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes} episodes. `
+      + `after ${w.horizonSteps} steps the cumulative weights are worth ${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes} runs. `
       + 'Few effective samples make the importance-sampling cross-checks noisy.');
   }
   const a = d.actionSupport;
-  const own = a.behaviourMeanOutside === null ? '' : ` (the logged controller itself: ${shareText(a.behaviourMeanOutside)})`;
+  const own = a.behaviourMeanOutside === null ? '' : ` (the present controller itself: ${shareText(a.behaviourMeanOutside)})`;
   sentences.push(`Action probability outside the logged range: on average ${shareText(a.meanOutside)} of the candidate’s action probability falls outside the actions logged near the same state `
     + `(${a.neighbours} nearest logged states), ${shareText(a.p90Outside)} at the 90th percentile of ${a.queryStates} states and ${shareText(a.maxOutside)} at worst${own}. Q is extrapolated there.`);
   return sentences;
@@ -68,7 +70,7 @@ export function unvisitedSentence(share: number | null): string | null {
 
 const STAGE: Record<AssessRunProgress['stage'], string> = {
   preparing: 'Preparing each candidate',
-  resampling: 'Resampling episodes',
+  resampling: 'Resampling runs',
   sensitivity: 'Sweeping the discount and the features',
 };
 

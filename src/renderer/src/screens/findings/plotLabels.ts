@@ -1,5 +1,5 @@
 /** Words on the plots and in export captions: axes with units, what V means, the settings in a line. */
-import { PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
+import { LOGGED_RETURN_LABEL } from '../../../../figures/parts/plotTheme';
 import { BEHAVIOUR_NAME } from '../../../../pipeline/assessAssembly';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { ProjectDocument } from '../../../../project/schema';
@@ -47,7 +47,7 @@ export function heldLabel(doc: ProjectDocument, held: readonly number[], axes: r
   return parts.length === 0 ? '' : `Other states held at ${parts.join(', ')}`;
 }
 
-/** A policy's name as shown: the pipeline's name for the logged behaviour reads "present controller (logged)". */
+/** A policy's name as shown: the pipeline's name for the logged return reads as the check it is. */
 export function displayName(name: string): string {
-  return name === BEHAVIOUR_NAME ? PRESENT_CONTROLLER : name;
+  return name === BEHAVIOUR_NAME ? LOGGED_RETURN_LABEL : name;
 }

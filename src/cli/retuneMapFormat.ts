@@ -1,0 +1,28 @@
+/** The readable table of a retune map for the terminal: J, its interval and the support of every point, the best supported point marked. */
+import type { RetuneMapResult } from '../pipeline/retuneMaps';
+
+const number = (v: number | null): string => (v === null || !Number.isFinite(v) ? '—' : v.toPrecision(5).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, ''));
+const SUPPORT = { null: 'supported', caution: 'thin logs (caution)', serious: 'beyond the logs (serious)', unknown: 'unknown' } as const;
+
+function table(rows: string[][]): string {
+  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
+  return rows.map((r) => r.map((cell, c) => cell.padStart(widths[c])).join('   ')).join('\n');
+}
+
+export function formatRetuneMap(map: RetuneMapResult, level: number): string {
+  const rows = [[...map.axes.map((a) => a.label), 'J', `${Math.round(100 * level)} % interval`, 'occupancy shift', 'support', '']];
+  map.points.forEach((p, i) => rows.push([
+    ...p.coordinates.map(number), p.value === null ? `no value (${p.status})` : number(p.value),
+    p.interval ? `[${number(p.interval[0])}, ${number(p.interval[1])}]` : '—', number(p.occupancyShift), SUPPORT[String(p.support) as keyof typeof SUPPORT],
+    map.best?.index === i ? '◀ best supported' : '',
+  ]));
+  const best = map.best ? `Best supported point: ${map.best.coordinates.map((v, a) => `${map.axes[a].label} = ${number(v)}`).join(', ')}, J ${number(map.best.value)}.`
+    : 'No point is both converged and supported by the logs.';
+  return [
+    `Retune map of "${map.candidate}" (${map.points.length} points; ${map.features}):`,
+    table(rows),
+    best + (map.presentController === null ? '' : ` Present controller: J ${number(map.presentController)}.`),
+    ...map.notes.map((n) => `  ${n}`),
+    '',
+  ].join('\n');
+}

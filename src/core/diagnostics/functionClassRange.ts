@@ -1,0 +1,127 @@
+/**
+ * The reported range of J when more than one function class was fitted, and whether the estimate
+ * is settled.
+ *
+ * Why: a bootstrap over episodes refits the same class on resampled data, so its interval measures
+ * sampling error only. When the class cannot represent Q^π (a saturating actuator, a nonlinear
+ * plant), every resample shares the same approximation bias and the interval can sit entirely on
+ * the wrong side of the truth. Fitting several classes (polynomials of two degrees, radial basis,
+ * a network) exposes that bias where they disagree: classes with different misspecifications rarely
+ * share the same bias (the model-selection argument of Xie & Jiang, "Batch value-function
+ * approximation with only realizability", ICML 2021, and the robust-range view of Jiang & Huang,
+ * "Minimax value interval for off-policy evaluation and policy optimization", NeurIPS 2020).
+ *
+ * The rule (thresholds ours, named once below):
+ *   - Two classes disagree when their estimates differ by more than CLASS_AGREEMENT.standardErrors
+ *     standard errors of the difference AND by more than CLASS_AGREEMENT.relative of |J|. The
+ *     standard error of the difference is the spread of the paired differences over the same
+ *     resamples when every class has replicates (classes fitted to the same resample are strongly
+ *     correlated, so pairing is much sharper), else √(se_a² + se_b²) (conservative).
+ *   - Settled: no pair disagrees. Not settled: some pair does; the reason names the widest gap.
+ *   - The reported range is the hull of all classes' sampling intervals, whatever the verdict, so
+ *     it never sits tight around a value another class contradicts. It covers the sampling of
+ *     episodes and the spread across the classes fitted, and nothing beyond them: if every class
+ *     shares one bias, no range built from them can show it (say so beside it).
+ * Two standard errors, not the three of the cross-check rule, because a false "not settled" only
+ * widens a range, while a missed disagreement shows a confident wrong number.
+ */
+
+export interface ClassEstimate {
+  /** The function class in words, e.g. "polynomial, degree 2". */
+  readonly label: string;
+  readonly value: number; // J on the full data
+  readonly standardError: number; // bootstrap standard error
+  readonly interval: readonly [number, number]; // its sampling interval (e.g. the 90 % percentile interval)
+  /** Bootstrap replicates on resamples shared by every class (same seeds, same order), when available. */
+  readonly replicates?: ArrayLike<number>;
+}
+
+export const CLASS_AGREEMENT = { standardErrors: 2, relative: 0.02 } as const;
+
+export type RangeCoverage = 'sampling' | 'samplingAndClasses';
+
+export interface ClassGap {
+  readonly first: string;
+  readonly second: string;
+  readonly difference: number; // first − second
+  readonly standardErrors: number; // |difference| / its standard error
+  readonly relative: number; // |difference| / max |J|
+  readonly paired: boolean;
+}
+
+export interface ClassVerdict {
+  readonly settled: boolean;
+  readonly range: readonly [number, number];
+  readonly covers: RangeCoverage;
+  /** What the range covers, in words for the reader. */
+  readonly coverageText: string;
+  /** Why settled or not, naming the widest gap and the rule. */
+  readonly reason: string;
+  /** The disagreeing pair with the largest relative gap, or the largest gap when all agree; null for one class. */
+  readonly widestGap: ClassGap | null;
+}
+
+export function functionClassVerdict(estimates: readonly ClassEstimate[]): ClassVerdict {
+  if (estimates.length === 0) throw new RangeError('function classes: at least one estimate is needed');
+  for (const e of estimates) {
+    if (![e.value, e.standardError, e.interval[0], e.interval[1]].every(Number.isFinite)) throw new RangeError(`function class "${e.label}": its estimate and interval must be finite numbers`);
+  }
+  const range: [number, number] = [Math.min(...estimates.map((e) => e.interval[0])), Math.max(...estimates.map((e) => e.interval[1]))];
+  if (estimates.length === 1) {
+    return {
+      settled: true, range, covers: 'sampling', widestGap: null,
+      coverageText: 'Covers the sampling of episodes only: no other function class was fitted, so the error of the class itself is not measured.',
+      reason: 'One function class only: its approximation error is not checked.',
+    };
+  }
+  const gaps = pairGaps(estimates), disagreeing = gaps.filter(disagrees);
+  const widest = (list: ClassGap[]) => list.reduce((w, g) => (g.relative > w.relative ? g : w));
+  const coverageText = `Covers the sampling of episodes and the spread across the ${estimates.length} function classes fitted ` +
+    `(${estimates.map((e) => e.label).join('; ')}); a bias they all share would not show.`;
+  if (disagreeing.length === 0) {
+    const g = widest(gaps);
+    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).` };
+  }
+  const g = widest(disagreeing);
+  return {
+    settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: g,
+    reason: `Not settled: ${describe(g)}, beyond ${CLASS_AGREEMENT.standardErrors} standard errors and ${100 * CLASS_AGREEMENT.relative} % of J, ` +
+      'so at least one class cannot represent the value of this policy; the range spans them all.',
+  };
+}
+
+function pairGaps(estimates: readonly ClassEstimate[]): ClassGap[] {
+  const paired = estimates.every((e) => e.replicates && e.replicates.length >= 2 && e.replicates.length === estimates[0].replicates!.length);
+  const gaps: ClassGap[] = [];
+  for (let i = 0; i < estimates.length; i++) {
+    for (let j = i + 1; j < estimates.length; j++) {
+      const a = estimates[i], b = estimates[j], difference = a.value - b.value;
+      const se = paired ? pairedSpread(a.replicates!, b.replicates!) : Math.hypot(a.standardError, b.standardError);
+      const scale = Math.max(Math.abs(a.value), Math.abs(b.value), Number.MIN_VALUE);
+      gaps.push({
+        first: a.label, second: b.label, difference, paired,
+        standardErrors: se > 0 ? Math.abs(difference) / se : difference === 0 ? 0 : Infinity, relative: Math.abs(difference) / scale,
+      });
+    }
+  }
+  return gaps;
+}
+
+function disagrees(g: ClassGap): boolean {
+  return g.standardErrors > CLASS_AGREEMENT.standardErrors && g.relative > CLASS_AGREEMENT.relative;
+}
+
+/** Standard deviation of the paired differences a_b − b_b (n − 1 divisor). */
+function pairedSpread(a: ArrayLike<number>, b: ArrayLike<number>): number {
+  const n = a.length;
+  let mean = 0;
+  for (let k = 0; k < n; k++) mean += (a[k] - b[k]) / n;
+  let squares = 0;
+  for (let k = 0; k < n; k++) squares += (a[k] - b[k] - mean) ** 2;
+  return Math.sqrt(squares / (n - 1));
+}
+
+function describe(g: ClassGap): string {
+  const z = Number.isFinite(g.standardErrors) ? g.standardErrors.toFixed(1) : '∞';
+  return `${g.first} and ${g.second} differ by ${(100 * g.relative).toFixed(1)} % of J (${z} ${g.paired ? 'paired ' : ''}standard errors)`;
+}

@@ -1,0 +1,83 @@
+/**
+ * Whether a cross-check can confirm or contradict fitted Q-evaluation (FQE), and what the checks
+ * together say. Thresholds are ours unless marked, named once in CROSS_CHECK_RULE.
+ *
+ * A check is informative only when it rests on something other than FQE's own fit and can see an
+ * error worth knowing about:
+ *   - weighted importance sampling / doubly robust: the importance weights at the effective horizon
+ *     1/(1 − γ) keep a Kish effective size of at least max(10, 10 % of the episodes reaching it) (a
+ *     common rule of thumb) — below it doubly robust falls back on FQE's own Q̂ and agreement proves
+ *     little — and the bootstrapped tail past the episodes' ends carries at most maxTailWeight (half)
+ *     of the discount weight, γ^H ≤ ½, since the tail is FQE's own value;
+ *   - model rollouts: at most maxShareOutsideLogs (5 %) of the discounted simulated steps reach the
+ *     edge of the logged state range (modelRollouts.ts), beyond which the fitted model extrapolates.
+ * A check that passes those disagrees when its difference from FQE exceeds 3 standard errors of the
+ * paired difference and 2 % of |J| (both needed: significance and size). Otherwise it agrees only if
+ * it could have seen a gap of detectableGap (10 %) of |J| — 3 standard errors of the paired
+ * difference below that; a check whose interval spans ±20 % "agrees" with anything, so it is then
+ * uninformative. (A noisy check can still disagree: a gap beyond 3 of its standard errors is seen.)
+ * Together: contradicted if any informative check disagrees; confirmed if at least one agrees and
+ * none disagrees; unconfirmed when no check is informative — nothing in the logs can then confirm
+ * the estimate, and the headline must say so.
+ */
+
+export const CROSS_CHECK_RULE = {
+  standardErrors: 3, relative: 0.02, detectableGap: 0.1,
+  minEffectiveEpisodes: 10, minEffectiveShare: 0.1, maxTailWeight: 0.5, maxShareOutsideLogs: 0.05,
+} as const;
+
+export type CheckAgreement = 'agrees' | 'disagrees' | 'uninformative';
+
+export interface CrossCheckEvidence {
+  readonly label: string;
+  readonly difference: number; // check − FQE (reward or cost sense, as long as fqe is the same)
+  readonly differenceStandardError: number; // paired bootstrap standard error of the difference
+  readonly fqe: number; // J by FQE
+  /** Weighted importance sampling and doubly robust: weights at the effective horizon and the tail weight γ^H. */
+  readonly weights?: { readonly effectiveEpisodes: number; readonly episodesReaching: number; readonly horizonSteps: number; readonly tailWeight: number };
+  /** Model rollouts: the discounted share of simulated steps at the logged-range edge. */
+  readonly shareOutsideLogs?: number;
+}
+
+export interface CheckVerdict { readonly label: string; readonly agreement: CheckAgreement; readonly note: string }
+
+export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
+  const r = CROSS_CHECK_RULE, scale = Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
+  const relative = Math.abs(e.difference) / scale;
+  const z = e.differenceStandardError > 0 ? Math.abs(e.difference) / e.differenceStandardError : Infinity;
+  const gap = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J (${Number.isFinite(z) ? z.toFixed(1) : '∞'} standard errors of the paired difference)`;
+  const weak = weakness(e);
+  if (weak) return { label: e.label, agreement: 'uninformative', note: `Uninformative: ${weak}; it ${gap}.` };
+  if (z > r.standardErrors && relative > r.relative) return { label: e.label, agreement: 'disagrees', note: `Disagrees: it ${gap}.` };
+  const detectable = (r.standardErrors * e.differenceStandardError) / scale;
+  if (!(detectable <= r.detectableGap)) {
+    return {
+      label: e.label, agreement: 'uninformative',
+      note: `Uninformative: its uncertainty is too wide to see an error of ${100 * r.detectableGap} % of J (it would need a gap of ${(100 * detectable).toFixed(0)} %); it ${gap}.`,
+    };
+  }
+  return { label: e.label, agreement: 'agrees', note: `Agrees: it ${gap}.` };
+}
+
+function weakness(e: CrossCheckEvidence): string | null {
+  const r = CROSS_CHECK_RULE, w = e.weights;
+  if (w) {
+    const needed = Math.max(r.minEffectiveEpisodes, r.minEffectiveShare * w.episodesReaching);
+    if (w.effectiveEpisodes < needed) return `at step ${w.horizonSteps} the importance weights have an effective size of ${w.effectiveEpisodes.toFixed(1)} episodes (below ${needed.toFixed(0)})`;
+    if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged episodes' ends, where it uses fitted Q-evaluation's own value`;
+  }
+  if (e.shareOutsideLogs !== undefined && e.shareOutsideLogs > r.maxShareOutsideLogs) {
+    return `${(100 * e.shareOutsideLogs).toFixed(0)} % of the simulated (discounted) steps reach the edge of the logged states, where the fitted model extrapolates`;
+  }
+  return null;
+}
+
+export type Confirmation = 'confirmed' | 'contradicted' | 'unconfirmed';
+
+export function confirmationOf(verdicts: readonly CheckVerdict[]): { readonly status: Confirmation; readonly text: string } {
+  const against = verdicts.filter((v) => v.agreement === 'disagrees'), support = verdicts.filter((v) => v.agreement === 'agrees');
+  const names = (list: readonly CheckVerdict[]) => list.map((v) => v.label.toLowerCase()).join(', ');
+  if (against.length) return { status: 'contradicted', text: `Contradicted by ${names(against)}: treat this estimate as unreliable until the difference is explained.` };
+  if (support.length) return { status: 'confirmed', text: `Confirmed by ${names(support)}, which rest${support.length === 1 ? 's' : ''} on assumptions other than the fitted Q.` };
+  return { status: 'unconfirmed', text: 'Nothing in the logs can confirm this estimate: every cross-check is uninformative here, so it rests on the fitted Q alone.' };
+}

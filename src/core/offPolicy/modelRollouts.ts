@@ -1,0 +1,109 @@
+/**
+ * J(π) by simulating the candidate on a fitted one-step model (polynomialDynamicsModel.ts): from each
+ * start state, R rollouts of L steps with actions drawn from π (its limits applied) and model noise,
+ *   Ĵ = Σ_s c_s (1/R) Σ_r Σ_{t<L} γ^t r̂(s_t, a_t) / Σ_s c_s,
+ * the direct model-based estimate (Sutton & Barto, "Reinforcement Learning", 2nd ed., §8.1; Paduraru,
+ * "Off-policy evaluation in Markov decision processes", PhD thesis, McGill 2013, on its bias-variance).
+ * L is the smallest with γ^L ≤ TAIL_WEIGHT, so the cut-off discards at most that share of a bounded
+ * reward stream's weight.
+ *
+ * Leaving the logs: a fitted polynomial extrapolates without limit, so each simulated state is held
+ * to the logged range widened by RANGE_MARGIN of its width on each side, and the discounted share of
+ * steps at which that box was reached is returned: above a few percent the estimate rests on
+ * extrapolated dynamics and cannot confirm anything.
+ *
+ * Seeded: rollout r of start s uses the stream createRandom(seed + s·R + r), so a bootstrap
+ * replicate with the same seed reuses the same random numbers (common random numbers; Glasserman,
+ * "Monte Carlo Methods in Financial Engineering", 2003, ch. 4; section from memory) and its spread is the models' spread.
+ * Monte Carlo standard error: from the spread of the R rollouts within each start (R ≥ 2), given the
+ * fitted model and the start states.
+ *
+ * Shapes: startStates e×ds; weights e.
+ */
+import type { GaussianPolicy } from '../policy';
+import { sampleAction } from '../policy';
+import { createRandom } from '../random';
+import { ModelValueError } from './modelBasedValue';
+import type { PolynomialModelFit } from './polynomialDynamicsModel';
+
+/** γ^L at the cut-off (our choice: a tenth of a percent of the weight). */
+export const TAIL_WEIGHT = 1e-3;
+/** Share of the logged range added on each side before a simulated state is held (our choice). */
+export const RANGE_MARGIN = 0.25;
+
+export interface RolloutSettings {
+  readonly rolloutsPerStart: number; // R ≥ 2
+  readonly seed: number;
+}
+
+export interface RolloutValue {
+  readonly value: number; // Ĵ, reward sense
+  readonly monteCarloError: number; // standard error of Ĵ from the rollouts' noise alone
+  readonly steps: number; // L
+  /** Σ_t γ^t [state held at the range box] / Σ_t γ^t, averaged over rollouts. */
+  readonly shareOutsideLogs: number;
+}
+
+export function modelRolloutValue(
+  model: PolynomialModelFit, policy: GaussianPolicy, discount: number, startStates: Float64Array, settings: RolloutSettings, weights?: ArrayLike<number>,
+): RolloutValue {
+  const ds = model.regressions.stateDim, e = startStates.length / ds, rolls = settings.rolloutsPerStart;
+  if (!(discount > 0 && discount < 1)) throw new ModelValueError(`model rollouts: the discount must lie in (0, 1), got ${discount}`);
+  if (!(Number.isInteger(rolls) && rolls >= 2)) throw new ModelValueError(`model rollouts: need at least 2 rollouts per start, got ${rolls}`);
+  if (policy.stateDim !== ds || policy.actionDim !== model.regressions.actionDim) throw new ModelValueError('model rollouts: the policy does not match the model’s states and actions');
+  const steps = Math.ceil(Math.log(TAIL_WEIGHT) / Math.log(discount));
+  const sim = simulator(model, policy, discount, steps);
+  let total = 0, weightSum = 0, variance = 0, outside = 0;
+  for (let s = 0; s < e; s++) {
+    const c = weights ? weights[s] : 1;
+    if (c === 0) continue;
+    let sum = 0, squares = 0;
+    for (let r = 0; r < rolls; r++) {
+      const { value, held } = sim(startStates, s * ds, settings.seed + s * rolls + r);
+      sum += value;
+      squares += value * value;
+      outside += (c * held) / rolls;
+    }
+    const mean = sum / rolls;
+    total += c * mean;
+    weightSum += c;
+    variance += (c * c * Math.max(0, squares - rolls * mean * mean)) / (rolls - 1) / rolls;
+  }
+  if (!(weightSum > 0)) throw new ModelValueError('model rollouts: no start state has a positive weight');
+  return { value: total / weightSum, monteCarloError: Math.sqrt(variance) / weightSum, steps, shareOutsideLogs: outside / weightSum };
+}
+
+/** One rollout from a start: its discounted reward sum and its discounted share of held steps. */
+function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: number, steps: number) {
+  const { regressions: reg, dynamicsWeights: bw, rewardWeights: cw, noiseFactor: l } = model;
+  const ds = reg.stateDim, m = reg.actionDim, d = reg.dynamicsFeatures.dim, dr = reg.rewardFeatures.dim;
+  const low = reg.stateLow.map((v, c) => v - RANGE_MARGIN * (reg.stateHigh[c] - v));
+  const high = reg.stateHigh.map((v, c) => v + RANGE_MARGIN * (v - reg.stateLow[c]));
+  const input = new Float64Array(ds + m), action = new Float64Array(m), phi = new Float64Array(d), psi = new Float64Array(dr), z = new Float64Array(ds);
+  const norm = (1 - discount) / (1 - discount ** steps);
+  return (starts: Float64Array, offset: number, seed: number): { value: number; held: number } => {
+    const rng = createRandom(seed);
+    for (let c = 0; c < ds; c++) input[c] = starts[offset + c];
+    let value = 0, held = 0, power = 1;
+    for (let t = 0; t < steps; t++, power *= discount) {
+      sampleAction(policy, input, rng, action);
+      input.set(action, ds);
+      reg.rewardFeatures.evaluate(input, 0, psi, 0);
+      let r = 0;
+      for (let j = 0; j < dr; j++) r += cw[j] * psi[j];
+      value += power * r;
+      reg.dynamicsFeatures.evaluate(input, 0, phi, 0);
+      for (let c = 0; c < ds; c++) z[c] = rng.normal();
+      let atBox = false;
+      for (let c = 0; c < ds; c++) {
+        let next = input[c];
+        for (let j = 0; j < d; j++) next += bw[j * ds + c] * phi[j];
+        for (let k = 0; k <= c; k++) next += l[c * ds + k] * z[k];
+        if (next < low[c] || next > high[c]) atBox = true;
+        input[c] = Math.min(high[c], Math.max(low[c], next));
+      }
+      if (atBox) held += power;
+    }
+    return { value, held: held * norm };
+  };
+}

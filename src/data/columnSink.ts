@@ -1,0 +1,123 @@
+/**
+ * Where the cells of one requested column go while the file streams past: numbers, terminal
+ * flags, episode labels (as codes) or timestamps (under both day/month readings), one slot per
+ * record (NaN, or −1 for a label, where a cell could not be read) so that record r stays file line
+ * r + 2 throughout the import. Problems go to the RowProblems log with the cell's text, shortened.
+ */
+import { cellText, sameBytes } from './cellText';
+import type { ColumnRequest } from './columnReader';
+import { numberFromBytes } from './numericBytes';
+import { readFlag, readNumber, shorten, type DecimalMark } from './numericCell';
+import type { RowProblems } from './rowProblems';
+import { readTimestamp, TIMESTAMP_FORMS } from './timestampCell';
+
+/** Bytes of a cell decoded for a message at most (messages show 40 characters). */
+const MESSAGE_BYTES = 256;
+/** Labels longer than this are not episode identifiers (the bytes are compared, then decoded). */
+const LABEL_BYTES = 1024;
+
+export class ColumnSink {
+  /** One slot per record; `capacity` must bound the records (csvScanner.recordBound). */
+  readonly values: Float64Array;
+  /**
+   * Month-first reading of a timestamp column: allocated at the first cell that is not a plain
+   * number (plain seconds read the same either way, so a numeric column needs no second copy).
+   */
+  alternate?: Float64Array;
+  readonly decimalMark: DecimalMark;
+  readonly codes?: Map<string, number>;
+  readonly oneOrderOnly?: Map<number, string>;
+  private previousLabel = { start: 0, end: -1, code: -1 };
+
+  constructor(readonly request: ColumnRequest, capacity: number, decimalMark: DecimalMark) {
+    this.decimalMark = decimalMark;
+    this.values = new Float64Array(capacity);
+    if (request.kind === 'timestamp') this.oneOrderOnly = new Map();
+    if (request.kind === 'label') this.codes = new Map();
+  }
+
+  missing(record: number): void {
+    this.values[record] = this.request.kind === 'label' ? -1 : NaN;
+    if (this.alternate) this.alternate[record] = NaN;
+  }
+
+  /** The month-first column, made on first need as a copy of the day-first values read so far. */
+  private monthFirst(): Float64Array {
+    if (!this.alternate) this.alternate = Float64Array.from(this.values);
+    return this.alternate;
+  }
+
+  read(bytes: Uint8Array, start: number, end: number, escaped: number, record: number, problems: RowProblems): void {
+    const kind = this.request.kind;
+    if (kind === 'number') this.readNumberCell(bytes, start, end, escaped, record, problems);
+    else if (kind === 'flag') this.readFlagCell(bytes, start, end, escaped, record, problems);
+    else if (kind === 'label') this.readLabelCell(bytes, start, end, escaped, record, problems);
+    else this.readTimestampCell(bytes, start, end, escaped, record, problems);
+  }
+
+  private readNumberCell(bytes: Uint8Array, start: number, end: number, escaped: number, record: number, problems: RowProblems): void {
+    const value = escaped ? NaN : numberFromBytes(bytes, start, end, this.decimalMark);
+    if (Number.isFinite(value)) this.values[record] = value;
+    else this.notANumber(bytes, start, end, escaped, record, problems);
+  }
+
+  /** A number cell the fast reading refused: NaN in its slot, and the reason in the log. */
+  notANumber(bytes: Uint8Array, start: number, end: number, escaped: number, record: number, problems: RowProblems): void {
+    this.values[record] = NaN;
+    const reading = readNumber(cellText(bytes, start, end, escaped, MESSAGE_BYTES), this.decimalMark);
+    if (!reading.ok) problems.add(record, this.request.name, reading.kind, reading.reason);
+    else if (end - start > MESSAGE_BYTES) problems.add(record, this.request.name, 'not-a-number', `the cell holds ${end - start} characters; expected a number`);
+  }
+
+  private readFlagCell(bytes: Uint8Array, start: number, end: number, escaped: number, record: number, problems: RowProblems): void {
+    const reading = readFlag(cellText(bytes, start, end, escaped, MESSAGE_BYTES));
+    this.values[record] = reading.ok ? reading.value : NaN;
+    if (!reading.ok) problems.add(record, this.request.name, reading.kind, reading.reason);
+  }
+
+  private readLabelCell(bytes: Uint8Array, start: number, end: number, escaped: number, record: number, problems: RowProblems): void {
+    const previous = this.previousLabel;
+    if (!escaped && end - start === previous.end - previous.start && sameBytes(bytes, start, previous.start, end - start)) {
+      this.values[record] = previous.code;
+      return;
+    }
+    const label = end - start > LABEL_BYTES ? '' : cellText(bytes, start, end, escaped).trim();
+    if (label === '') {
+      const reason = end - start > LABEL_BYTES ? `the episode cell holds ${end - start} characters; expected a short episode identifier` : 'the episode cell is empty; expected an episode identifier';
+      problems.add(record, this.request.name, 'empty-episode', reason);
+      this.values[record] = -1;
+      this.previousLabel = { start: 0, end: -1, code: -1 };
+      return;
+    }
+    const code = codeOf(this.codes!, label);
+    this.values[record] = code;
+    this.previousLabel = escaped ? { start: 0, end: -1, code: -1 } : { start, end, code };
+  }
+
+  private readTimestampCell(bytes: Uint8Array, start: number, end: number, escaped: number, record: number, problems: RowProblems): void {
+    const seconds = escaped ? NaN : numberFromBytes(bytes, start, end, this.decimalMark);
+    if (Number.isFinite(seconds)) {
+      this.values[record] = seconds;
+      if (this.alternate) this.alternate[record] = seconds;
+      return;
+    }
+    const cell = cellText(bytes, start, end, escaped, MESSAGE_BYTES).trim();
+    const reading = end - start > MESSAGE_BYTES ? undefined : readTimestamp(cell, this.decimalMark);
+    this.values[record] = reading ? reading.dayFirst : NaN;
+    this.monthFirst()[record] = reading ? reading.monthFirst : NaN;
+    const name = this.request.name;
+    if (!reading) problems.add(record, name, 'bad-timestamp', `"${shorten(cell)}" is not a timestamp; expected ${TIMESTAMP_FORMS}`);
+    else if (Number.isNaN(reading.dayFirst) && Number.isNaN(reading.monthFirst)) {
+      problems.add(record, name, 'invalid-date', `"${shorten(cell)}" is not a valid date or time (a day, month, hour, minute or zone offset out of range)`);
+    } else if (Number.isNaN(reading.dayFirst) !== Number.isNaN(reading.monthFirst)) this.oneOrderOnly!.set(record, cell);
+  }
+}
+
+function codeOf(codes: Map<string, number>, label: string): number {
+  let code = codes.get(label);
+  if (code === undefined) {
+    code = codes.size;
+    codes.set(label, code);
+  }
+  return code;
+}

@@ -1,0 +1,126 @@
+/**
+ * States derived from logged signals, computed along each episode during import (declared in the
+ * project under columns.derived; one value per row, in the unit the declaration states):
+ *
+ *   error integral  I_first = I_0,            I_{t+1} = I_t + (r_t − y_t)·Δt_t      (forward Euler)
+ *   first-order lag f_first = f_0 or x_first, f_t = f_{t−1} + (1 − e^{−Δt/τ})·(x_t − f_{t−1})
+ *   previous value  p_first = p_0,            p_t = x_{t−1}
+ *   difference      d_first = d_0,            d_t = x_t − x_{t−1}
+ *
+ * Δt_t is the stated period, or the time to the next (for the integral) or from the previous (for
+ * the lag) kept row of the episode from the timestamp column; across excluded rows it spans the
+ * gap, holding the last known value (zero-order hold). The lag is the exact discretisation of
+ * τ·ḟ = x − f for an input held between samples (common practice). The integral is the forward
+ * (rectangular) sum Σ_{k<t} e_k·Δt_k, so I_t uses only errors before row t; the error is
+ * r − y, the reverse-acting sign, whatever the direction of the loop that reads it.
+ * Without a stated initial value, a previous value or difference is undefined on an episode's
+ * first row: that row then only supplies x for the next, and starts no transition.
+ *
+ * Why they are Markov under a candidate. Each derived value at row t+1 is a fixed function of the
+ * derived value at row t and the logged signals at rows t and t+1: I_{t+1} = I_t + e_t·Δt_t,
+ * f_{t+1} = f_t + α(x_{t+1} − f_t), p_{t+1} = x_t, d_{t+1} = x_{t+1} − x_t. None reads the action
+ * the policy is choosing at the row it describes; a candidate acting on row t's state changes the
+ * later signals only through the plant, exactly as the logged controller did, so the logged
+ * transition (s_t, a_t, s_{t+1}) with its derived parts is a valid sample of the plant the
+ * candidate would face, and the state with them is as Markov as the signals it is built from.
+ * The previous action is the one exception allowed: p_{t+1} = a_t is fixed before the choice at
+ * t+1, and its dependence on a_t is part of the logged transition. Any other use of an action
+ * column (its lag, difference, or an error built from it) would make the state at t depend on a_t,
+ * the policy's input on its own output; the project check refuses it (derivedStateConsistency.ts).
+ */
+import type { DerivedStateSpec } from '../project/schema';
+
+export interface DerivedInputs {
+  readonly kept: Uint8Array; // records
+  readonly episodeOf: Int32Array; // records, −1 where not kept
+  /** A file column's values over records. */
+  readonly column: (name: string) => Float64Array;
+  readonly timestampsSeconds?: Float64Array; // records
+}
+
+export interface DerivedColumns {
+  /** Each derived state's values over records (NaN on rows not kept). */
+  readonly values: Map<string, Float64Array>;
+  /** True for a declaration whose first row per episode is undefined (no initial value). */
+  readonly firstRowUndefined: Set<string>;
+}
+
+export function computeDerivedStates(definitions: readonly DerivedStateSpec[], inputs: DerivedInputs): DerivedColumns {
+  const values = new Map<string, Float64Array>(), firstRowUndefined = new Set<string>();
+  for (const d of definitions) {
+    values.set(d.name, derivedColumn(d, inputs));
+    if ((d.kind === 'previous' || d.kind === 'difference') && d.initial === undefined) firstRowUndefined.add(d.name);
+  }
+  return { values, firstRowUndefined };
+}
+
+/** One declaration over all records, restarting at each episode's first kept row. */
+function derivedColumn(d: DerivedStateSpec, inputs: DerivedInputs): Float64Array {
+  const { kept, episodeOf } = inputs, n = kept.length;
+  const out = new Float64Array(n).fill(NaN);
+  const step = stepper(d, inputs);
+  let previous = -1;
+  for (let r = 0; r < n; r++) {
+    if (!kept[r]) continue;
+    const first = previous < 0 || episodeOf[r] !== episodeOf[previous];
+    out[r] = first ? step.start(r) : step.next(previous, r, out[previous]);
+    previous = r;
+  }
+  return out;
+}
+
+interface Stepper {
+  /** Value on an episode's first kept row r. */
+  start(r: number): number;
+  /** Value on kept row r given the previous kept row p of the same episode and its value. */
+  next(p: number, r: number, before: number): number;
+}
+
+function stepper(d: DerivedStateSpec, inputs: DerivedInputs): Stepper {
+  const seconds = (p: number, r: number): number => {
+    if ('periodSeconds' in d && d.periodSeconds !== undefined) return d.periodSeconds;
+    const t = inputs.timestampsSeconds;
+    return t ? t[r] - t[p] : NaN;
+  };
+  switch (d.kind) {
+    case 'errorIntegral': {
+      const y = inputs.column(d.measurement);
+      const sp = typeof d.setpoint === 'number' ? null : inputs.column(d.setpoint);
+      const error = (r: number) => (sp ? sp[r] : (d.setpoint as number)) - y[r];
+      return { start: () => d.initial, next: (p, r, before) => before + error(p) * seconds(p, r) };
+    }
+    case 'filtered': {
+      const x = inputs.column(d.source);
+      return {
+        start: (r) => d.initial ?? x[r],
+        next: (p, r, before) => before + -Math.expm1(-seconds(p, r) / d.timeConstantSeconds) * (x[r] - before),
+      };
+    }
+    case 'previous': {
+      const x = inputs.column(d.source);
+      return { start: () => d.initial ?? NaN, next: (p) => x[p] };
+    }
+    case 'difference': {
+      const x = inputs.column(d.source);
+      return { start: () => d.initial ?? NaN, next: (p, r) => x[r] - x[p] };
+    }
+  }
+}
+
+/**
+ * The kept mask with each episode's first kept row removed (for declarations without an initial
+ * value), and how many rows that removed.
+ */
+export function withoutFirstRows(kept: Uint8Array, episodeOf: Int32Array): { kept: Uint8Array; removed: number } {
+  const out = Uint8Array.from(kept);
+  let previous = -1, removed = 0;
+  for (let r = 0; r < kept.length; r++) {
+    if (!kept[r]) continue;
+    if (previous < 0 || episodeOf[r] !== episodeOf[previous]) {
+      out[r] = 0;
+      removed++;
+    }
+    previous = r;
+  }
+  return { kept: out, removed };
+}

@@ -1,0 +1,102 @@
+/**
+ * The import's fast path: one record with no quotes, its number cells parsed while the bytes are
+ * scanned (one pass, no call per cell). It handles the common case only — anything else (a quote,
+ * a field count other than the header's, a cell that is not a plain number, blanks around a
+ * number, more than 15 significant digits or a large exponent) returns −1 and the record is read
+ * again by the general scanner (csvScanner.ts) and cell readers (columnSink.ts), which also word
+ * every problem. So the fast path decides nothing the general path would decide differently; the
+ * property test test/data/plainRecord.property.test.ts checks that the two agree.
+ *
+ * Numbers use the same exact fast path as numericBytes.ts (Clinger 1990): M < 10^15, |E| ≤ 22.
+ */
+import { QUOTE } from './csvScanner';
+
+const LF = 0x0a, CR = 0x0d, PLUS = 43, MINUS = 45, ZERO = 48, NINE = 57, LOWER_E = 101, UPPER_E = 69;
+const POWERS = Array.from({ length: 23 }, (_, k) => 10 ** k);
+
+/** What the fast path does with each field: NUMBER_BASE + k parses into number column k; BOUNDS records start/end; SKIP ignores. */
+export const SKIP = -1;
+export const BOUNDS = -2;
+
+export interface PlainRecordTarget {
+  readonly bytes: Uint8Array;
+  readonly end: number;
+  readonly delimiter: number;
+  readonly markByte: number;
+  readonly fieldCount: number;
+  /** Per header field: a number column index (≥ 0), BOUNDS or SKIP. */
+  readonly plan: Int32Array;
+  readonly numbers: readonly Float64Array[];
+  /** Filled for BOUNDS and number fields. */
+  readonly starts: Int32Array;
+  readonly ends: Int32Array;
+}
+
+/** Read record `r` starting at byte `from`; the offset after its line break, or −1 for the general path. */
+export function plainRecord(t: PlainRecordTarget, from: number, r: number): number {
+  const { bytes: b, end, delimiter, fieldCount, plan } = t;
+  let i = from;
+  for (let f = 0; ; f++) {
+    if (f >= fieldCount || (i < end && b[i] === QUOTE)) return -1;
+    const what = plan[f];
+    if (what >= 0) {
+      const start = i;
+      i = plainNumber(t, i, what, r);
+      if (i < 0) return -1;
+      t.starts[f] = start; // a column read both as a number and otherwise (a timestamp that is also a state)
+      t.ends[f] = i;
+    } else {
+      const start = i;
+      while (i < end) {
+        const c = b[i];
+        if (c === delimiter || c === LF || c === CR) break;
+        i++;
+      }
+      if (what === BOUNDS) {
+        t.starts[f] = start;
+        t.ends[f] = i;
+      }
+    }
+    if (i < end && b[i] === delimiter) {
+      i++;
+      continue;
+    }
+    if (f !== fieldCount - 1) return -1;
+    if (i < end && b[i] === CR) i++;
+    if (i < end && b[i] === LF) i++;
+    return i;
+  }
+}
+
+/** Parse a plain number at i into numbers[k][r]; the offset after it, or −1 when it is not plain. */
+function plainNumber(t: PlainRecordTarget, from: number, k: number, r: number): number {
+  const { bytes: b, end, markByte, delimiter } = t;
+  let i = from, negative = false;
+  if (i < end && (b[i] === MINUS || b[i] === PLUS)) negative = b[i++] === MINUS;
+  let mantissa = 0, scale = 0, digits = 0, seenMark = false;
+  for (; i < end; i++) {
+    const c = b[i];
+    if (c >= ZERO && c <= NINE) {
+      digits++;
+      if (seenMark) scale--;
+      if (mantissa === 0 && c === ZERO) continue;
+      mantissa = mantissa * 10 + (c - ZERO);
+      if (mantissa >= 1e15) return -1;
+    } else if (c === markByte && !seenMark) seenMark = true;
+    else break;
+  }
+  if (digits === 0) return -1;
+  if (i < end && (b[i] === LOWER_E || b[i] === UPPER_E)) {
+    i++;
+    let exponentNegative = false, exponent = 0, exponentDigits = 0;
+    if (i < end && (b[i] === MINUS || b[i] === PLUS)) exponentNegative = b[i++] === MINUS;
+    for (; i < end && b[i] >= ZERO && b[i] <= NINE && exponentDigits < 4; i++, exponentDigits++) exponent = exponent * 10 + (b[i] - ZERO);
+    if (exponentDigits === 0) return -1;
+    scale += exponentNegative ? -exponent : exponent;
+  }
+  if (i < end && b[i] !== delimiter && b[i] !== LF && b[i] !== CR) return -1;
+  if (scale > 22 || scale < -22) return -1;
+  const magnitude = mantissa === 0 ? 0 : scale >= 0 ? mantissa * POWERS[scale] : mantissa / POWERS[-scale];
+  t.numbers[k][r] = negative ? -magnitude : magnitude;
+  return i;
+}

@@ -1,0 +1,54 @@
+/**
+ * A candidate fitted in other function classes, for the function-class check (issue of approximation
+ * error: a bootstrap over runs measures sampling error only, not the bias of a class too poor for
+ * V^π). Polynomial features of degrees 2 to 4 are fitted beside the project's own class, each by one
+ * pass over the data with per-episode sums, so every class is resampled on the same resamples and the
+ * classes can be compared pair by pair (src/core/diagnostics/functionClassRange.ts).
+ *
+ * Degree 1 is left out (our choice): a linear Q cannot represent the value of a quadratic cost, so it
+ * would make every verdict "not settled" without saying anything about the classes that can. Classes
+ * above MAX_CLASS_FEATURES features are left out for their cost (a data pass is O(n·d²)), and so is a
+ * class whose fit does not converge (it has no value to compare).
+ */
+import { MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
+import { throwIfCancelled } from '../core/fqe/cancellation';
+import { TRANSITIONS_PER_FEATURE } from '../data/datasetChecks';
+import { replicator, type AssessmentContext, type ClassWork } from './assessCandidate';
+import { isEngineError } from './engineErrors';
+import type { CandidateModel, LinearFitSpec } from './model/candidateModel';
+import { buildLinearModel } from './model/linearModel';
+import { featureMapFor } from './plan/featureMapFor';
+
+export const COMPARED_DEGREES = [2, 3, 4] as const;
+/** Largest feature count of a compared class (the sensitivity sweep's limit as well; ours). */
+export const MAX_CLASS_FEATURES = 300;
+
+export function classWorks(context: AssessmentContext, model: CandidateModel): ClassWork[] {
+  const { plan } = context, a = plan.approximator;
+  const own = a.kind === 'linear' && a.features.kind === 'polynomial' ? a.features.degree : null;
+  const out: ClassWork[] = [];
+  for (const degree of COMPARED_DEGREES) {
+    if (degree === own) continue;
+    throwIfCancelled(context.cancel);
+    const spec = classSpec(context, degree);
+    if (!spec) continue;
+    try {
+      const fitted = buildLinearModel(plan, model, { cancel: context.cancel }, spec);
+      if (fitted.fit.status === 'converged') out.push({ label: `polynomial, degree ${degree}`, model: fitted, replicate: replicator(plan, fitted) });
+    } catch (error) {
+      if (!isEngineError(error)) throw error; // a class that cannot be fitted is simply not compared
+    }
+  }
+  return out;
+}
+
+/** The fit of polynomial degree k with the project's ridge and tolerance (defaults beside a network); null when too large for the data or the budget. */
+function classSpec(context: AssessmentContext, degree: number): LinearFitSpec | null {
+  const { plan } = context, a = plan.approximator;
+  const settings = a.kind === 'linear'
+    ? { ridge: a.ridge, tolerance: a.tolerance, maxIterations: a.maxIterations }
+    : { ridge: RIDGE.default, tolerance: TOLERANCE.default, maxIterations: MAX_ITERATIONS.default };
+  const features = featureMapFor({ kind: 'linear', features: { kind: 'polynomial', degree }, ...settings }, plan.data);
+  if (features.dim > MAX_CLASS_FEATURES || plan.data.count < TRANSITIONS_PER_FEATURE * features.dim) return null;
+  return { features, ...settings };
+}

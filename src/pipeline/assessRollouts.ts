@@ -1,0 +1,102 @@
+/**
+ * The model-based cross-check: J by simulating the candidate on a one-step model of the plant fitted
+ * to the log (src/core/offPolicy/polynomialDynamicsModel.ts, modelRollouts.ts). It shares no fit with
+ * Q, so it stays informative on long horizons where importance weights collapse.
+ *
+ * Its cost is rollouts, so it runs on fewer resamples than the main loop — the first
+ * ROLLOUT_RESAMPLES, with the same episode multiplicities — and from at most ROLLOUT_STARTS start
+ * states (an evenly spaced, fixed subset; our choices). Paired with fitted Q-evaluation on the same
+ * start states: the difference on the full data is M − J_sub (J_sub the mean of V̂ over the subset),
+ * and on resample b, M_b − J_sub − (J_b − J) — the candidate's resample deviation taken over all
+ * its start states, the subset held fixed. Rollouts reuse their random numbers across resamples
+ * (common random numbers), so their spread is the models' spread.
+ */
+import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
+import { throwIfCancelled } from '../core/fqe/cancellation';
+import { ModelFitError } from '../core/offPolicy/linearQuadraticModel';
+import { ModelValueError } from '../core/offPolicy/modelBasedValue';
+import { modelRolloutValue } from '../core/offPolicy/modelRollouts';
+import { fitPolynomialModel, polynomialModelRegressions, type PolynomialModelFit, type PolynomialModelRegressions } from '../core/offPolicy/polynomialDynamicsModel';
+import { stateValues } from '../core/value';
+import type { AssessmentContext, CandidateWork } from './assessCandidate';
+import type { AssessmentSettings } from './assessSettings';
+
+export const ROLLOUT_RESAMPLES = 30;
+export const ROLLOUT_STARTS = 200;
+export const ROLLOUTS_PER_START = 2;
+/** At least this many simulated runs in all: with few start states each gets more rollouts (ours). */
+export const ROLLOUTS_TOTAL = 400;
+/** Dynamics of degree 3 where it has at most this many monomials, else degree 2; the reward is quadratic (ours). */
+const CUBIC_MONOMIALS = 120;
+
+export interface RolloutCheck {
+  /** J by model rollouts over the start subset, reward sense. */
+  readonly value: number;
+  /** Model − fitted Q-evaluation on the same starts, on the full data and on each of the rollout resamples. */
+  readonly difference: number;
+  readonly differenceReplicates: number[];
+  /** Discounted share of simulated steps held at the edge of the logged states. */
+  readonly shareOutsideLogs: number;
+  /** Monte Carlo standard error of the full-data value (the resamples reuse the random numbers, so it is not in their spread). */
+  readonly monteCarloError: number;
+  readonly starts: number;
+  readonly rolloutsPerStart: number;
+}
+
+export type RolloutOutcome = RolloutCheck | { readonly reason: string };
+
+/** The one-step model's regressions, fitted once for every candidate; or why there is none. */
+export function rolloutModel(context: AssessmentContext): { regressions: PolynomialModelRegressions; fit: PolynomialModelFit } | { reason: string } {
+  const { data, episodes } = context.plan, p = data.stateDim + data.actionDim;
+  const degree = binomial(p + 3, 3) <= CUBIC_MONOMIALS ? 3 : 2;
+  try {
+    const regressions = polynomialModelRegressions(data, episodes, { degree, rewardDegree: 2 });
+    return { regressions, fit: fitPolynomialModel(regressions) };
+  } catch (error) {
+    if (error instanceof ModelFitError) return { reason: `no one-step model of the plant could be fitted (${error.message})` };
+    throw error;
+  }
+}
+
+export function rolloutCheck(
+  context: AssessmentContext, work: CandidateWork, model: { regressions: PolynomialModelRegressions; fit: PolynomialModelFit }, settings: AssessmentSettings,
+): RolloutOutcome {
+  const { plan } = context, ds = plan.data.stateDim, starts = startSubset(plan.starts.states, plan.starts.count, ds);
+  const { q } = work.model.fit;
+  const values = stateValues(q, work.model.policy, starts.states, starts.count, work.model.quadrature);
+  const fqeOnStarts = values.reduce((a, b) => a + b, 0) / starts.count, fqe = work.model.fit.policyValue;
+  const rollout = { rolloutsPerStart: Math.max(ROLLOUTS_PER_START, Math.ceil(ROLLOUTS_TOTAL / starts.count)), seed: plan.seed };
+  try {
+    const full = modelRolloutValue(model.fit, work.model.policy, plan.discount, starts.states, rollout);
+    const e = plan.episodes.episodes, c = new Uint32Array(e), differenceReplicates: number[] = [];
+    for (let b = 0; b < Math.min(ROLLOUT_RESAMPLES, settings.resamples); b++) {
+      throwIfCancelled(context.cancel);
+      episodeMultiplicities(e, settings.seed, b, c);
+      const j = work.replicate?.value(c) ?? fqe;
+      const m = modelRolloutValue(fitPolynomialModel(model.regressions, c), work.model.policy, plan.discount, starts.states, rollout);
+      if (j !== null) differenceReplicates.push(m.value - fqeOnStarts - (j - fqe));
+    }
+    return { value: full.value, difference: full.value - fqeOnStarts, differenceReplicates, shareOutsideLogs: full.shareOutsideLogs, monteCarloError: full.monteCarloError,
+      starts: starts.count, rolloutsPerStart: rollout.rolloutsPerStart };
+  } catch (error) {
+    if (error instanceof ModelFitError || error instanceof ModelValueError) return { reason: error.message };
+    throw error;
+  }
+}
+
+/** At most ROLLOUT_STARTS start states, evenly spaced through the list. */
+function startSubset(states: Float64Array, count: number, ds: number): { states: Float64Array; count: number } {
+  if (count <= ROLLOUT_STARTS) return { states, count };
+  const out = new Float64Array(ROLLOUT_STARTS * ds);
+  for (let s = 0; s < ROLLOUT_STARTS; s++) {
+    const k = Math.floor(((s + 0.5) * count) / ROLLOUT_STARTS);
+    out.set(states.subarray(k * ds, (k + 1) * ds), s * ds);
+  }
+  return { states: out, count: ROLLOUT_STARTS };
+}
+
+function binomial(n: number, k: number): number {
+  let r = 1;
+  for (let i = 1; i <= k; i++) r = (r * (n - k + i)) / i;
+  return Math.round(r);
+}

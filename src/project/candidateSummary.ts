@@ -1,0 +1,73 @@
+/**
+ * A candidate described in the trade's words, with units, for the CLI, the report and the app:
+ * "PI, reverse acting, on 21 °C − zone_temp_c: bias 82.7 %, K_c 25 % per °C, T_i 600 s".
+ * Pure text from the document; no numbers are computed beyond K_i = K_c/T_i.
+ */
+import type { CandidateSpec, ColumnRoles } from './schema';
+
+export interface CandidateSummary {
+  /** One line per action: how its mean depends on the states. */
+  readonly mean: string[];
+  /** The dither (Gaussian spread) per action, with units. */
+  readonly dither: string;
+  /** Position limits and rate limit, or "none". */
+  readonly limits: string;
+}
+
+type Feedback = {
+  measurement: string; setpoint: number | string; proportionalGain: number; action: 'reverse' | 'direct';
+  integralTimeSeconds?: number; integralGain?: number; integralState?: string;
+};
+
+const num = (v: number): string => {
+  if (!Number.isFinite(v)) return String(v);
+  const a = Math.abs(v);
+  const text = a !== 0 && (a >= 1e6 || a < 1e-3) ? v.toExponential(3) : Number(v.toPrecision(5)).toString();
+  return text.replace('-', '−');
+};
+
+export function summariseCandidate(c: CandidateSpec, columns: ColumnRoles): CandidateSummary {
+  const unitOf = (name: string): string => columns.states.find((s) => s.column === name)?.unit ?? '';
+  const actionUnit = (j: number): string => columns.actions[j]?.unit ?? '';
+  const withUnit = (v: number, unit: string): string => (unit ? `${num(v)} ${unit}` : num(v));
+  const per = (j: number, state: string): string => `${actionUnit(j) || 'unit'} per ${unitOf(state) || 'unit'}`;
+  const actionName = (j: number): string => columns.actions[j]?.column ?? `action ${j + 1}`;
+  const feedback = (loop: Feedback, j: number): string => {
+    const setpoint = typeof loop.setpoint === 'number' ? withUnit(loop.setpoint, unitOf(loop.measurement)) : loop.setpoint;
+    const integral = loop.integralTimeSeconds !== undefined ? `, T_i ${num(loop.integralTimeSeconds)} s`
+      : loop.integralGain ? `, K_i ${num(loop.integralGain)} ${per(j, loop.measurement)}·s` : '';
+    const kind = integral ? 'PI' : 'P';
+    const state = integral && loop.integralState ? ` (integral state ${loop.integralState})` : '';
+    return `${kind}, ${loop.action} acting, on ${setpoint} − ${loop.measurement}: K_c ${num(loop.proportionalGain)} ${per(j, loop.measurement)}${integral}${state}`;
+  };
+  const form = c.form;
+  let mean: string[];
+  if (form.kind === 'affine') {
+    mean = form.offset.map((o, j) => `${actionName(j)} = ${withUnit(o, actionUnit(j))}${(form.gain[j] ?? []).map((g, k) => {
+      const state = columns.states[k]?.column ?? `state ${k + 1}`;
+      return ` + (${num(g)} ${per(j, state)})·${state}`;
+    }).join('')}`);
+  } else if (form.kind === 'pi') {
+    mean = form.loops.map((loop, j) => `${actionName(j)}: ${feedback(loop, j)}; bias ${withUnit(loop.bias, actionUnit(j))}`);
+  } else {
+    mean = form.loops.map((loop, j) => {
+      const table = loop.breakpoints.map((b, k) => `${withUnit(b, unitOf(loop.input))} → ${withUnit(loop.values[k], actionUnit(j))}`).join(', ');
+      return `${actionName(j)}: schedule on ${loop.input} (${table}; held beyond the ends)${loop.feedback ? `, plus ${feedback(loop.feedback, j)}` : ''}`;
+    });
+  }
+  const dither = `dither ${c.dither.map((d, j) => withUnit(d, actionUnit(j))).join(', ')} (standard deviation)`;
+  return { mean, dither, limits: limitsText(c, actionUnit, actionName) };
+}
+
+function limitsText(c: CandidateSpec, actionUnit: (j: number) => string, actionName: (j: number) => string): string {
+  const parts: string[] = [];
+  if (c.bounds) {
+    const b = c.bounds;
+    const range = b.lo.map((lo, j) => `${lo === null ? '−∞' : num(lo)} … ${b.hi[j] === null || b.hi[j] === undefined ? '∞' : num(b.hi[j]!)}${actionUnit(j) ? ` ${actionUnit(j)}` : ''}`);
+    parts.push(`${b.mode === 'clip' ? 'clipped' : 'truncated'} to ${range.join('; ')}`);
+  }
+  c.rateLimit?.maxStep.forEach((step, j) => {
+    if (step !== null) parts.push(`${actionName(j)} moves at most ${num(step)}${actionUnit(j) ? ` ${actionUnit(j)}` : ''} per step from ${c.rateLimit!.previousAction[j] ?? 'its previous value'}`);
+  });
+  return parts.length ? parts.join('; ') : 'none';
+}

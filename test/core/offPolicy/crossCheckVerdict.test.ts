@@ -1,0 +1,47 @@
+/** The cross-check rule's mechanics on hand-made evidence: each limit in CROSS_CHECK_RULE decides exactly where it says. */
+import { describe, expect, it } from 'vitest';
+import { confirmationOf, CROSS_CHECK_RULE, crossCheckVerdict, type CrossCheckEvidence } from '../../../src/core/offPolicy/crossCheckVerdict';
+
+const base: CrossCheckEvidence = { label: 'Model rollouts', difference: 0, differenceStandardError: 0.5, fqe: -100, shareOutsideLogs: 0 };
+const weights = { effectiveEpisodes: 150, episodesReaching: 300, horizonSteps: 33, tailWeight: 0.05 };
+
+describe('crossCheckVerdict', () => {
+  it('agrees within 3 standard errors or 2 % of J, disagrees beyond both', () => {
+    expect(crossCheckVerdict({ ...base, difference: 1.4 }).agreement).toBe('agrees'); // 2.8 SE
+    expect(crossCheckVerdict({ ...base, difference: 1.9, differenceStandardError: 0.2 }).agreement).toBe('agrees'); // 1.9 % of J
+    const v = crossCheckVerdict({ ...base, difference: 2.5 });
+    expect(v.agreement).toBe('disagrees');
+    expect(v.note).toMatch(/2\.5 % of J \(5\.0 standard errors/);
+  });
+
+  it('is uninformative when it agrees but could not have seen a 10 % error; a gap beyond 3 of its standard errors still counts', () => {
+    const limit = (CROSS_CHECK_RULE.detectableGap * 100) / CROSS_CHECK_RULE.standardErrors;
+    expect(crossCheckVerdict({ ...base, differenceStandardError: 0.99 * limit }).agreement).toBe('agrees');
+    const v = crossCheckVerdict({ ...base, differenceStandardError: 1.01 * limit, difference: 5 });
+    expect(v.agreement).toBe('uninformative');
+    expect(v.note).toMatch(/too wide to see an error of 10 % of J/);
+    expect(crossCheckVerdict({ ...base, differenceStandardError: 1.01 * limit, difference: 30 }).agreement).toBe('disagrees');
+  });
+
+  it('is uninformative when the importance weights collapse or the tail carries most of the weight', () => {
+    const ok = { ...base, shareOutsideLogs: undefined, label: 'Doubly robust' };
+    expect(crossCheckVerdict({ ...ok, weights }).agreement).toBe('agrees');
+    expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 29 } }).note).toMatch(/effective size of 29\.0 episodes \(below 30\)/);
+    expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 9, episodesReaching: 40 } }).note).toMatch(/below 10/);
+    expect(crossCheckVerdict({ ...ok, weights: { ...weights, tailWeight: 0.6 } }).note).toMatch(/60 % of the discount weight lies past/);
+  });
+
+  it('is uninformative when the rollouts leave the logged states', () => {
+    expect(crossCheckVerdict({ ...base, shareOutsideLogs: 0.05 }).agreement).toBe('agrees');
+    expect(crossCheckVerdict({ ...base, shareOutsideLogs: 0.06 }).agreement).toBe('uninformative');
+  });
+});
+
+describe('confirmationOf', () => {
+  it('says contradicted, confirmed or that nothing can confirm the estimate', () => {
+    const agree = crossCheckVerdict(base), disagree = crossCheckVerdict({ ...base, difference: 10 }), none = crossCheckVerdict({ ...base, shareOutsideLogs: 0.5 });
+    expect(confirmationOf([agree, disagree]).status).toBe('contradicted');
+    expect(confirmationOf([agree, none])).toEqual({ status: 'confirmed', text: 'Confirmed by model rollouts, which rests on assumptions other than the fitted Q.' });
+    expect(confirmationOf([none, none]).text).toMatch(/^Nothing in the logs can confirm this estimate/);
+  });
+});

@@ -1,0 +1,58 @@
+/**
+ * The two routes to ψ(s) = E_{a~π} φ(s, a) give the same numbers: closed-form moments of the
+ * (clipped) normal against the action quadrature, which is itself checked against handbook and
+ * brute-force rules elsewhere (test/core/quadrature, test/core/policy/formQuadrature.test.ts).
+ */
+import { describe, expect, it } from 'vitest';
+import { createFeatureMap } from '../../../src/core/features/featureMap';
+import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
+import { createGaussianPolicy, type GaussianPolicySpec } from '../../../src/core/policy';
+import { createPolicyFeatureAverage, quadratureAverage } from '../../../src/core/retune/policyFeatureAverage';
+import { clippedGaussianMoments } from '../../../src/core/retune/actionMoments';
+import { bruteForceExpectation } from '../policy/bruteForce';
+
+const standardiser = { mean: [1, -2, 50, 3], scale: [0.5, 2, 10, 4] }; // 3 states, 1 action … or 2 states, 2 actions
+const schedule = { action: 0, state: 1, breakpoints: [-5, 0, 5], values: [70, 50, 20] };
+
+const cases: [string, GaussianPolicySpec, number][] = [
+  ['unlimited affine, one action', { offset: [40], gain: [[3, -1, 0.2]], std: [4] }, 1],
+  ['scheduled and clipped', { offset: [0], gain: [[5, 0, 0]], std: [6], schedules: [schedule], bounds: { lo: [30], hi: [60], mode: 'clip' } }, 1],
+  ['rate limited around a previous action', { offset: [45], gain: [[2, -1, 0]], std: [3], rateLimit: { previousActionState: [2], maxStep: [2] } }, 1],
+  ['two actions, one clipped', { offset: [45, 1], gain: [[2, -1], [0, 0.5]], std: [3, 1.5], bounds: { lo: [40, -Infinity], hi: [52, Infinity], mode: 'clip' } }, 2],
+];
+
+describe('policy-averaged features: moments against quadrature', () => {
+  it.each(cases)('%s', (_, spec, m) => {
+    const ds = 4 - m, policy = createGaussianPolicy(spec, ds);
+    for (const degree of [2, 4]) {
+      const features = createFeatureMap(polynomialFeatureSpec(standardiser, degree));
+      const moments = createPolicyFeatureAverage(features, policy, 10), nodes = quadratureAverage(features, policy, 10);
+      expect(moments.route).toBe('moments');
+      for (const state of [[1.2, -3, 48], [0.4, 0, 52], [1.8, 4.9, 30], [1, -7, 60]]) {
+        const s = state.slice(0, ds), a = new Float64Array(features.dim), b = new Float64Array(features.dim);
+        moments.average(s, 0, a, 0);
+        nodes.average(s, 0, b, 0);
+        for (let j = 0; j < features.dim; j++) expect(Math.abs(a[j] - b[j])).toBeLessThan(1e-11 * Math.max(1, Math.abs(b[j])));
+      }
+    }
+  });
+
+  it('takes the quadrature route where the rule is not exact for the degree, or the law is truncated', () => {
+    const features = createFeatureMap(polynomialFeatureSpec(standardiser, 4));
+    expect(createPolicyFeatureAverage(features, createGaussianPolicy(cases[0][1], 3), 2).route).toBe('quadrature');
+    const truncated = createGaussianPolicy({ offset: [40], gain: [[0, 0, 0]], std: [4], bounds: { lo: [30], hi: [50], mode: 'truncate' } }, 3);
+    expect(createPolicyFeatureAverage(features, truncated, 10).route).toBe('quadrature');
+  });
+
+  it('clipped moments agree with a brute-force rule from the definitions', () => {
+    const out = new Float64Array(7), partial = new Float64Array(7);
+    for (const [mean, lo, hi] of [[10, 8, 13], [10, -Infinity, 9], [10, 12, Infinity], [0, -0.5, 0.5]]) {
+      clippedGaussianMoments(mean, 2, lo, hi, 9, 3, 6, out, partial);
+      for (let k = 0; k <= 6; k++) {
+        const reference = bruteForceExpectation((a) => ((a - 9) / 3) ** k, mean, 2, lo, hi, 'clip');
+        expect(out[k]).toBeCloseTo(reference, 9);
+      }
+    }
+  });
+});
+
