@@ -8,6 +8,7 @@ import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
+import { drawnPixels } from './harness/drawnPixels';
 import { REPORT_SECTIONS } from '../../src/pipeline/report/reportDocument';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import {
@@ -67,16 +68,10 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
 
   it('draws a sensitivity plot that is not blank', async () => {
     const { page } = app;
-    const canvas = page.getByTestId('plot-sensitivity').locator('canvas');
-    await canvas.waitFor();
-    const differing = await canvas.evaluate((c: HTMLCanvasElement) => {
-      const context = c.getContext('2d')!;
-      const pixels = context.getImageData(0, 0, c.width, c.height).data;
-      let count = 0;
-      for (let i = 3; i < pixels.length; i += 4) if (pixels[i] !== 0) count++;
-      return count / (pixels.length / 4);
-    });
-    expect(differing).toBeGreaterThan(0.01);
+    const figure = page.getByTestId('plot-sensitivity');
+    await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
+    const pixels = await drawnPixels(page, figure);
+    expect(pixels.drawnShare).toBeGreaterThan(0.01);
     // PNG export through the same export panel as the other plots.
     const target = join(app.harness.workFolder, 'sensitivity.png');
     app.harness.dialogs.nextExport = target;

@@ -38,7 +38,7 @@ async function buildPage(): Promise<void> {
   outDir = await mkdtemp(join(tmpdir(), 'spc-plots-page-'));
   await build({
     root: join(here, 'plots-page'), configFile: false, logLevel: 'warn', base: './', plugins: [react()],
-    build: { outDir, emptyOutDir: true, minify: false, chunkSizeWarningLimit: 4000 },
+    build: { outDir, emptyOutDir: true, minify: false, chunkSizeWarningLimit: 4000 }, worker: { format: 'es' },
   });
 }
 
@@ -125,9 +125,10 @@ describe('plots on screen (e2e)', () => {
     await figure.focus();
     await page.keyboard.press('ArrowRight');
     await page.keyboard.press('ArrowUp');
-    expect(await page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light'))).toBe(1);
+    // The chart worker draws the tooltip a moment later: retrying reads.
+    await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light')), POLL).toBe(1);
     await page.keyboard.press('Escape');
-    expect(await page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light'))).toBe(0);
+    await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light')), POLL).toBe(0);
   });
 
   it('screenshots of each plot, light and dark, and at 125 % zoom', async () => {
@@ -139,10 +140,11 @@ describe('plots on screen (e2e)', () => {
     // A hover tooltip over a never-visited cell, and one on the slice.
     const surface = page.locator('#surface-light canvas'), box = (await surface.boundingBox())!;
     await surface.hover({ position: { x: box.width * 0.8, y: box.height * 0.3 } });
-    expect(await page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light'))).toBe(1);
+    await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light')), POLL).toBe(1);
     await page.locator('#surface-light').screenshot({ path: join(screens, 'plots-surface-light-tooltip.png') });
     const slice = page.locator('#slice-light canvas'), sliceBox = (await slice.boundingBox())!;
     await slice.hover({ position: { x: sliceBox.width * 0.45, y: sliceBox.height * 0.5 } });
+    await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('slice', 'light')), POLL).toBeGreaterThan(0);
     await page.locator('#slice-light').screenshot({ path: join(screens, 'plots-slice-light-tooltip.png') });
     await page.mouse.move(0, 0);
     const zoomed = await openPage(1.25);
@@ -187,6 +189,38 @@ describe('PNG export (e2e)', () => {
     const decoded = await page.evaluate((b) => window.plotsPage.decodePng(b), base64);
     expect(decoded.cornerAlpha).toEqual([0, 0, 0, 0]);
     expect(decoded.distinctColours).toBeGreaterThan(50);
+  });
+});
+
+/** Pairs of text boxes that overlap by more than 1 px both ways, and boxes that leave the image. */
+function layoutFaults(laid: { width: number; height: number; texts: { text: string; left: number; top: number; right: number; bottom: number }[] }): string[] {
+  const faults: string[] = [], t = laid.texts, slack = 1;
+  for (const b of t) {
+    if (b.left < -slack || b.top < -slack || b.right > laid.width + slack || b.bottom > laid.height + slack) faults.push(`"${b.text}" leaves the image (${b.left.toFixed(1)}, ${b.top.toFixed(1)})–(${b.right.toFixed(1)}, ${b.bottom.toFixed(1)})`);
+  }
+  for (let i = 0; i < t.length; i++) {
+    for (let j = i + 1; j < t.length; j++) {
+      const w = Math.min(t[i].right, t[j].right) - Math.max(t[i].left, t[j].left), h = Math.min(t[i].bottom, t[j].bottom) - Math.max(t[i].top, t[j].top);
+      if (w > slack && h > slack) faults.push(`"${t[i].text}" overlaps "${t[j].text}" by ${w.toFixed(1)} × ${h.toFixed(1)} px`);
+    }
+  }
+  return faults;
+}
+
+// The export sizes people pick: the default (report figure), the half-width figure, and a small on-screen size.
+const LAYOUT_SIZES = [
+  { name: 'report 6.5 × 4 in at 300 dpi', widthPx: 1950, heightPx: 1200, dpi: 300 },
+  { name: 'half-width 3.25 × 2.5 in at 300 dpi', widthPx: 975, heightPx: 750, dpi: 300 },
+  { name: 'small 560 × 400 px at 96 dpi', widthPx: 560, heightPx: 400, dpi: 96 },
+];
+
+describe('no text collides in an export (e2e, text boxes as Chromium lays out the SVG)', () => {
+  it.each(PLOT_KINDS.flatMap((kind) => LAYOUT_SIZES.map((size) => [kind, size.name, size] as const)))('%s at %s', async (kind, _name, size) => {
+    const options = { widthPx: size.widthPx, heightPx: size.heightPx, dpi: size.dpi, background: 'white' as const };
+    const svg = (await page.evaluate(([k, o]) => window.plotsPage.exportSvg(k, 'light', o), [kind, options] as const))!;
+    const laid = await page.evaluate(([s, w, h]) => window.plotsPage.svgTextBoxes(s, w, h), [svg, size.widthPx, size.heightPx] as const);
+    expect(laid.texts.length).toBeGreaterThan(5);
+    expect(layoutFaults(laid)).toEqual([]);
   });
 });
 

@@ -7,18 +7,17 @@ import type { ExportOptions, PlotSpec } from '../../src/figures/writers/plotSpec
 import { pngSize, readChunks } from '../../src/figures/writers/pngChunks';
 import { estimatedTextMeasure } from '../../src/figures/writers/textMeasure';
 import { plotPalette } from '../../src/figures/parts/plotTheme';
-import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from './syntheticPlotData';
-import { discountSweep } from './syntheticSensitivity';
+import { ALL_PLOT_KINDS, syntheticSpec } from './syntheticSpecs';
 import { xmlProblems } from './xmlWellFormed';
 
 const options: ExportOptions = { widthPx: 1950, heightPx: 1200, dpi: 300, background: 'white', caption: 'Project: Tank levels · Policy: gentle gain', caution: CAUTION_SHORT };
 
+const base = Object.fromEntries(ALL_PLOT_KINDS.map((kind) => [kind, syntheticSpec(kind, kind === 'surface' ? 'dark' : 'light')])) as Record<PlotSpec['kind'], PlotSpec>;
+// Text that must be escaped in XML: a title with angle brackets, a label with an ampersand.
 const specs: Record<PlotSpec['kind'], PlotSpec> = {
-  surface: { kind: 'surface', props: { surface: bowlSurface(), xLabel: 'tank level (m)', yLabel: 'inflow (m³/h)', valueLabel: 'V^π (cost, kWh)', title: 'Value surface <gentle gain>', theme: 'dark' } },
-  slice: { kind: 'slice', props: { slice: clippedSlice(), actionLabel: 'valve move (%)', valueLabel: 'cost & energy', title: 'Q(s, ·)', theme: 'light' } },
-  convergence: { kind: 'convergence', props: { history: geometricHistory(), title: 'Fit history', theme: 'light' } },
-  comparison: { kind: 'comparison', props: { evaluation: threeCandidateEvaluation(), theme: 'light' } },
-  sensitivity: { kind: 'sensitivity', props: { curve: discountSweep(), valueLabel: 'J (discounted cost)', title: 'J against γ', theme: 'light' } },
+  ...base,
+  surface: { kind: 'surface', props: { ...(base.surface.props as Extract<PlotSpec, { kind: 'surface' }>['props']), title: 'Value surface <gentle gain>', heldLabel: undefined } },
+  slice: { kind: 'slice', props: { ...(base.slice.props as Extract<PlotSpec, { kind: 'slice' }>['props']), valueLabel: 'cost & energy', title: 'Q(s, ·)' } },
 };
 
 const svgOf = (spec: PlotSpec, o: ExportOptions = options) => exportPlotSvg(spec, o, estimatedTextMeasure)!;

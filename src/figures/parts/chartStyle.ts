@@ -51,7 +51,9 @@ export function valueAxis(look: PlotLook, _title: string, position: 'left' | 'ri
     position,
     title: { display: false },
     ticks: {
-      color: p.text, font: font(look, PLOT_FONTS.tickPx), padding: 4 * s, includeBounds: false,
+      // Never rotated: a rotated label's box reaches into its neighbours' and the axis title's;
+      // Chart.js leaves out every other label instead, with at least autoSkipPadding between two.
+      color: p.text, font: font(look, PLOT_FONTS.tickPx), padding: 4 * s, includeBounds: false, maxRotation: 0, autoSkipPadding: 8 * s,
       callback: (value, _index, ticks) => formatTick(Number(value), fractionDigitsOf(ticks.map((t) => t.value))),
     },
     grid: { color: p.grid, lineWidth: s, drawOnChartArea: gridInside, tickLength: 5 * s, tickColor: p.axis },

@@ -4,19 +4,23 @@
  * treat every plot alike.
  */
 import type { ChartConfiguration } from 'chart.js';
-import { actionSliceChart, actionSliceSummary, type ActionSlicePlotProps } from '../charts/actionSlice';
-import { convergenceChart, convergenceSummary, type ConvergencePlotProps } from '../charts/convergence';
+import { ACTION_SLICE_DEFAULTS, actionSliceChart, actionSliceSummary, type ActionSlicePlotProps } from '../charts/actionSlice';
+import { CANDIDATE_ACTIONS_DEFAULTS, candidateActionsChart, candidateActionsSummary, type CandidateActionsPlotProps } from '../charts/candidateActions';
+import { intervalChart, intervalChartHeight, intervalSummary, type IntervalChartProps } from '../charts/intervalChart';
+import { CONVERGENCE_DEFAULTS, convergenceChart, convergenceSummary, type ConvergencePlotProps } from '../charts/convergence';
 import type { PlotLook } from '../parts/plotLook';
-import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueSummary, type PolicyValueChartProps } from '../charts/policyValueChart';
-import { sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../charts/sensitivity';
-import { valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../charts/valueSurface';
+import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueChartHeight, policyValueSummary, type PolicyValueChartProps } from '../charts/policyValueChart';
+import { SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../charts/sensitivity';
+import { VALUE_SURFACE_DEFAULTS, valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../charts/valueSurface';
 
 export type PlotSpec =
   | { kind: 'surface'; props: ValueSurfacePlotProps }
   | { kind: 'slice'; props: ActionSlicePlotProps }
   | { kind: 'convergence'; props: ConvergencePlotProps }
   | { kind: 'comparison'; props: PolicyValueChartProps }
-  | { kind: 'sensitivity'; props: SensitivityPlotProps };
+  | { kind: 'sensitivity'; props: SensitivityPlotProps }
+  | { kind: 'candidates'; props: CandidateActionsPlotProps }
+  | { kind: 'interval'; props: IntervalChartProps };
 
 export interface ExportOptions {
   widthPx: number;
@@ -37,6 +41,8 @@ export function plotChartConfig(spec: PlotSpec, look: PlotLook): ChartConfigurat
     case 'convergence': return convergenceChart(spec.props, look) as unknown as ChartConfiguration;
     case 'comparison': return policyValueChart(spec.props, look) as unknown as ChartConfiguration;
     case 'sensitivity': return sensitivityChart(spec.props, look) as unknown as ChartConfiguration;
+    case 'candidates': return candidateActionsChart(spec.props, look) as unknown as ChartConfiguration;
+    case 'interval': return intervalChart(spec.props, look) as unknown as ChartConfiguration;
   }
 }
 
@@ -47,9 +53,26 @@ export function plotSummary(spec: PlotSpec): string {
     case 'convergence': return convergenceSummary(spec.props);
     case 'comparison': return policyValueSummary(spec.props);
     case 'sensitivity': return sensitivitySummary(spec.props);
+    case 'candidates': return candidateActionsSummary(spec.props);
+    case 'interval': return intervalSummary(spec.props);
   }
 }
 
 export function plotTitle(spec: PlotSpec): string {
-  return spec.kind === 'comparison' ? spec.props.title ?? POLICY_VALUE_DEFAULTS.title : spec.props.title;
+  if (spec.kind === 'comparison') return spec.props.title ?? POLICY_VALUE_DEFAULTS.title;
+  if (spec.kind === 'candidates') return spec.props.title || CANDIDATE_ACTIONS_DEFAULTS.title;
+  return spec.props.title;
+}
+
+/** The on-screen height of a plot in CSS px (the width follows its container). */
+export function plotScreenHeight(spec: PlotSpec): number {
+  switch (spec.kind) {
+    case 'surface': return VALUE_SURFACE_DEFAULTS.heightPx;
+    case 'slice': return ACTION_SLICE_DEFAULTS.heightPx;
+    case 'convergence': return CONVERGENCE_DEFAULTS.heightPx;
+    case 'comparison': return policyValueChartHeight(spec.props.evaluation);
+    case 'sensitivity': return SENSITIVITY_DEFAULTS.heightPx;
+    case 'candidates': return CANDIDATE_ACTIONS_DEFAULTS.heightPx;
+    case 'interval': return intervalChartHeight(spec.props.rows.length);
+  }
 }

@@ -2,7 +2,7 @@
  * The app shell: toolbar, notices, the step list and the current step's screen, and the dialog
  * host. Menu commands and keyboard shortcuts arrive here and go to the workspace's commands.
  */
-import { useCallback, useEffect, useRef, useState } from 'react';
+import { startTransition, useCallback, useEffect, useRef, useState } from 'react';
 import type { MenuCommand, MenuCommandDetail } from '../../shared/appApi';
 import { keyCommand } from './commandKeys';
 import { DialogHost } from './components/DialogHost';
@@ -57,14 +57,16 @@ export function App() {
       const found = keyCommand(e, workspace.api.host);
       if (!found) return;
       e.preventDefault();
-      if (found.kind === 'step') setStep(found.step);
+      if (found.kind === 'step') startTransition(() => setStep(found.step));
       else command(found.command);
     };
     window.addEventListener('keydown', onKey);
     return () => window.removeEventListener('keydown', onKey);
   }, [workspace, command]);
 
-  const go = (id: StepId): void => setStep(id);
+  // A step's screen can be large (Findings after a run): rendered as a transition, React yields to
+  // input and painting every few milliseconds instead of building it in one long task.
+  const go = (id: StepId): void => startTransition(() => setStep(id));
   return (
     <div className="app">
       <Toolbar onHelp={() => setHelpOpen((open) => !open)} />

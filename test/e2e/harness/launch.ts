@@ -164,6 +164,8 @@ async function screenshot(page: Page, name: string): Promise<string> {
   if (!/^[A-Za-z0-9_-]+$/.test(name)) throw new Error(`screenshot name: expected letters, digits, "-" or "_", found ${JSON.stringify(name)}`);
   await mkdir(screensFolder, { recursive: true });
   const path = join(screensFolder, `${name}.png`);
+  // Charts are drawn by a worker: wait (a while, without failing) until every figure reports its drawing.
+  await page.waitForFunction(() => [...document.querySelectorAll('figure[data-chart-state]')].every((f) => f.getAttribute('data-chart-state') !== 'waiting'), null, { timeout: 20_000 }).catch(() => undefined);
   await page.screenshot({ path, fullPage: true });
   return path;
 }

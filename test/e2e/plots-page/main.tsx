@@ -2,24 +2,19 @@
  * Test page: every plot in both themes with fixed synthetic data, plus the export functions on
  * window.plotsPage so the e2e test can call them in a real browser and inspect what comes out.
  */
-import { Chart } from 'chart.js';
 import { createRoot } from 'react-dom/client';
 import { CAUTION, exportCaption, exportPlotPng, exportPlotSvg, type ExportOptions } from '../../../src/renderer/src/export';
 import { bytesToBase64 } from '../../../src/figures/writers/base64';
-import { ActionSlicePlot, ConvergencePlot, PolicyValueChart, ValueSurfacePlot, type Theme } from '../../../src/renderer/src/plots';
+import { useMemo } from 'react';
+import { ActionSlicePlot, PlotFigure, type Theme } from '../../../src/renderer/src/plots';
 import { plotPalette } from '../../../src/figures/parts/plotTheme';
 import { clippedSlice, SLICE_POLICY } from '../../figures/syntheticPlotData';
 import { PLOT_KINDS, plotSpec, type PlotKind } from './plotSpecs';
-import { canvasStats, colourBarProbe, decodePng, parseSvg, renderSvg } from './pageProbes';
+import { allDrawn, canvasStats, colourBarProbe, decodePng, parseSvg, renderSvg, svgTextBoxes, tooltipActive } from './pageProbes';
 
 function Plot({ kind, theme }: { kind: PlotKind; theme: Theme }) {
-  const spec = plotSpec(kind, theme);
-  switch (spec.kind) {
-    case 'surface': return <ValueSurfacePlot {...spec.props} />;
-    case 'slice': return <ActionSlicePlot {...spec.props} />;
-    case 'convergence': return <ConvergencePlot {...spec.props} />;
-    case 'comparison': return <PolicyValueChart {...spec.props} />;
-  }
+  const spec = useMemo(() => plotSpec(kind, theme), [kind, theme]);
+  return <PlotFigure spec={spec} keyColumns={spec.kind === 'surface' ? spec.props.surface.x.length : undefined} />;
 }
 
 function Page() {
@@ -53,12 +48,7 @@ const api = {
   exportSvg(kind: PlotKind, theme: Theme, options: Omit<ExportOptions, 'caption' | 'caution'>): string | null {
     return exportPlotSvg(plotSpec(kind, theme), { ...options, caption, caution: CAUTION });
   },
-  decodePng, parseSvg, renderSvg, canvasStats, colourBarProbe,
-  /** Whether the chart in a plot has an active tooltip (keyboard navigation). */
-  tooltipActive(kind: PlotKind, theme: Theme): number {
-    const canvas = document.querySelector<HTMLCanvasElement>(`#${kind}-${theme} canvas`);
-    return canvas ? Chart.getChart(canvas)?.tooltip?.getActiveElements().length ?? 0 : 0;
-  },
+  decodePng, parseSvg, renderSvg, canvasStats, colourBarProbe, tooltipActive, svgTextBoxes,
 };
 
 declare global {
@@ -69,5 +59,6 @@ declare global {
 }
 window.plotsPage = api;
 createRoot(document.getElementById('root')!).render(<Page />);
-// Charts draw in effects after the first commit; two frames later every canvas is painted.
-requestAnimationFrame(() => requestAnimationFrame(() => { window.plotsReady = true; }));
+// Charts are drawn by the chart worker; the page is ready once every figure reports its drawing.
+const ready = () => (allDrawn() ? (window.plotsReady = true) : setTimeout(ready, 50));
+ready();

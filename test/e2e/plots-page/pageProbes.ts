@@ -3,15 +3,18 @@
  * ramp read back from the canvas, a PNG decoded by the browser's own decoder (<img>), and an SVG
  * parsed by DOMParser and rasterised through <img>.
  */
-import { Chart } from 'chart.js';
+import { inspectFigure } from '../../../src/renderer/src/plots/ChartFigure';
+import type { FigureInspection } from '../../../src/renderer/src/plots/chartMessages';
 import type { Theme } from '../../../src/renderer/src/plots';
 import { COLOUR_BAR_DEFAULTS } from '../../../src/figures/parts/colourBar';
 import type { PlotKind } from './plotSpecs';
 
-function canvasOf(kind: PlotKind, theme: Theme): HTMLCanvasElement {
-  const canvas = document.querySelector<HTMLCanvasElement>(`#${kind}-${theme} canvas`);
-  if (!canvas) throw new Error(`no canvas for ${kind} (${theme})`);
-  return canvas;
+/** What the chart worker drew in a plot's figure (see inspectFigure). */
+async function drawnOf(kind: PlotKind, theme: Theme): Promise<FigureInspection> {
+  const figure = document.querySelector(`#${kind}-${theme} figure`);
+  const drawn = figure ? await inspectFigure(figure) : null;
+  if (!drawn) throw new Error(`no chart drawn for ${kind} (${theme})`);
+  return drawn;
 }
 
 function pixelStats(data: Uint8ClampedArray): { variance: number; distinctColours: number } {
@@ -27,22 +30,35 @@ function pixelStats(data: Uint8ClampedArray): { variance: number; distinctColour
   return { variance: squares / n - (sum / n) ** 2, distinctColours: colours.size };
 }
 
-export function canvasStats(kind: PlotKind, theme: Theme) {
-  const canvas = canvasOf(kind, theme);
-  const data = canvas.getContext('2d')!.getImageData(0, 0, canvas.width, canvas.height).data;
-  return { width: canvas.width, height: canvas.height, ...pixelStats(data) };
+export async function canvasStats(kind: PlotKind, theme: Theme) {
+  const drawn = await drawnOf(kind, theme);
+  return { width: drawn.width, height: drawn.height, ...pixelStats(drawn.rgba) };
 }
 
 /** The colour bar box (layout box on the right that is not a scale), and the colours at its top and bottom. */
-export function colourBarProbe(theme: Theme) {
-  const canvas = canvasOf('surface', theme), chart = Chart.getChart(canvas)!;
-  const box = chart.boxes.find((b) => b.position === 'right' && !('axis' in b));
+export async function colourBarProbe(theme: Theme) {
+  const drawn = await drawnOf('surface', theme);
+  const box = drawn.boxes.find((b) => b.position === 'right' && !b.isScale);
   if (!box) return null;
-  const ratio = chart.currentDevicePixelRatio, ctx = canvas.getContext('2d')!;
+  const ratio = drawn.pixelRatio;
   // The middle of the ramp: the box starts a gap left of the bar (CSS px at scale 1 on screen).
   const x = box.left + COLOUR_BAR_DEFAULTS.gapPx + COLOUR_BAR_DEFAULTS.barWidthPx / 2;
-  const read = (y: number) => Array.from(ctx.getImageData(Math.round(x * ratio), Math.round(y * ratio), 1, 1).data.subarray(0, 3));
-  return { left: box.left, width: box.width, top: read(box.top + 2), bottom: read(box.bottom - 2) };
+  const read = (y: number) => {
+    const o = (Math.round(y * ratio) * drawn.width + Math.round(x * ratio)) * 4;
+    return Array.from(drawn.rgba.subarray(o, o + 3));
+  };
+  return { left: box.left, width: box.right - box.left, top: read(box.top + 2), bottom: read(box.bottom - 2) };
+}
+
+/** Data points with an active tooltip in a plot. */
+export async function tooltipActive(kind: PlotKind, theme: Theme): Promise<number> {
+  return (await drawnOf(kind, theme)).activeCount;
+}
+
+/** True once every figure on the page reports its chart drawn. */
+export function allDrawn(): boolean {
+  const figures = [...document.querySelectorAll('figure')];
+  return figures.length > 0 && figures.every((f) => f.getAttribute('data-chart-state') === 'drawn');
 }
 
 async function imageOf(url: string): Promise<HTMLImageElement> {
@@ -95,5 +111,29 @@ export async function renderSvg(svg: string, width: number, height: number) {
     return pixelStats(imageData(await imageOf(url), width, height));
   } finally {
     URL.revokeObjectURL(url);
+  }
+}
+
+/**
+ * The SVG placed in the page at its viewBox size, and the box of every text element as Chromium
+ * lays it out (transforms such as rotated axis titles included), relative to the SVG's top left.
+ */
+export function svgTextBoxes(svg: string, width: number, height: number) {
+  const host = document.createElement('div');
+  host.style.cssText = `position:absolute;left:0;top:0;width:${width}px;height:${height}px;`;
+  host.innerHTML = svg.replace(/^<\?xml[^>]*>\s*/, '');
+  document.body.appendChild(host);
+  try {
+    const root = host.querySelector('svg')!;
+    root.setAttribute('width', `${width}px`);
+    root.setAttribute('height', `${height}px`);
+    const origin = root.getBoundingClientRect();
+    const texts = Array.from(root.querySelectorAll('text'), (t) => {
+      const r = t.getBoundingClientRect();
+      return { text: t.textContent ?? '', left: r.left - origin.left, top: r.top - origin.top, right: r.right - origin.left, bottom: r.bottom - origin.top };
+    });
+    return { width: origin.width, height: origin.height, texts: texts.filter((t) => t.text.trim() !== '' && t.right > t.left) };
+  } finally {
+    host.remove();
   }
 }

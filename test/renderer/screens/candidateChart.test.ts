@@ -4,7 +4,9 @@
  * the logged spread or the behaviour model's rounded coefficients.
  */
 import { describe, expect, it } from 'vitest';
-import { meanActionLine, loggedPoints } from '../../../src/renderer/src/screens/candidates/meanActionLines';
+import { loggedCurve } from '../../../src/renderer/src/screens/candidates/meanActionLines';
+import { meanActionCurve } from '../../../src/figures/parts/meanActionCurve';
+import { normalDensity } from '../../../src/core/normalDistribution';
 import { candidateFromBehaviour, plainCandidate, roundSignificant, uniqueName } from '../../../src/renderer/src/screens/candidates/candidateDrafts';
 import { newProjectDocument } from '../../../src/renderer/src/document/newProject';
 import type { ProjectDocument } from '../../../src/project/schema';
@@ -20,14 +22,28 @@ function doc(): ProjectDocument {
 
 describe('candidate chart lines', () => {
   it('draws μ along the axis with the other state at its mean', () => {
-    // 189 − 60·1.0 − 90·0.8 = 57; 189 − 60·1.4 − 90·0.8 = 33.
-    expect(meanActionLine({ offset: [189], gain: [[-60, -90]] }, 0, 0, [1.0, 1.4], [1.2, 0.8])).toEqual([{ x: 1.0, y: 57 }, { x: 1.4, y: 33 }]);
-    expect(meanActionLine({ offset: [189], gain: [[-60]] }, 0, 0, [1, 2], [1.2, 0.8])).toBeNull();
+    // 189 − 60·1.0 − 90·0.8 = 57; 189 − 60·1.4 − 90·0.8 = 33 (hand arithmetic).
+    const line = meanActionCurve({ offset: [189], gain: [[-60, -90]], std: [2] }, 0, 0, [1.0, 1.4], [1.2, 0.8], 3)!;
+    expect(Array.from(line.x)).toEqual([1.0, 1.2, 1.4]);
+    expect(line.y[0]).toBeCloseTo(57, 12);
+    expect(line.y[2]).toBeCloseTo(33, 12);
+    expect(meanActionCurve({ offset: [189], gain: [[-60]], std: [2] }, 0, 0, [1, 2], [1.2, 0.8])).toBeNull();
+  });
+
+  it('keeps a clipped candidate inside its 0–100 % limits: at μ = 100 % the mean is 100 − σφ(0) (Tobit mean, Greene §19.3)', () => {
+    const candidate = { offset: [0], gain: [[100]], std: [10], bounds: { lo: [0], hi: [100], mode: 'clip' as const } };
+    const line = meanActionCurve(candidate, 0, 0, [0, 1.5], [0], 4)!; // μ = 0, 50, 100, 150 %
+    expect(line.y[0]).toBeCloseTo(10 * normalDensity(0), 10);
+    expect(line.y[1]).toBeCloseTo(50, 8);
+    expect(line.y[2]).toBeCloseTo(100 - 10 * normalDensity(0), 10);
+    expect(Math.max(...line.y)).toBeLessThanOrEqual(100);
   });
 
   it('pairs each logged state with its action', () => {
     const sample = { count: 2, states: Float64Array.from([1, 2, 3, 4]), actions: Float64Array.from([10, 20]) };
-    expect(loggedPoints(sample, 2, 1, 1, 0)).toEqual([{ x: 2, y: 10 }, { x: 4, y: 20 }]);
+    const logged = loggedCurve(sample, 2, 1, 1, 0);
+    expect(Array.from(logged.x)).toEqual([2, 4]);
+    expect(Array.from(logged.y)).toEqual([10, 20]);
   });
 });
 

@@ -3,18 +3,26 @@
  * text it had when last opened or saved (so "unsaved changes" means "differs from the file", and
  * undoing back to the saved state clears the marker).
  */
-import { serializeProject } from '../../../project/projectFile';
-import type { ProjectDocument } from '../../../project/schema';
+import type { ProjectDocument, SavedResults } from '../../../project/schema';
 import { createStore, type Store } from '../state/store';
 import { applyEdit, closeStep, createHistory, mapHistory, redo, undo, type EditHistory } from './editHistory';
 import { newProjectDocument } from './newProject';
+import { settingsText } from './documentText';
+
+export { serializedDocument } from './documentText';
+
+/** What the document was when last opened or saved: its settings' text and its kept results (by identity). */
+export interface Baseline {
+  readonly settingsText: string;
+  readonly results: SavedResults | undefined;
+}
 
 export interface DocumentState {
   readonly history: EditHistory<ProjectDocument>;
   /** Absolute path of the project file; null until first saved. */
   readonly projectPath: string | null;
-  /** Serialised document as last opened or saved (or as created). */
-  readonly baselineText: string;
+  /** The document as last opened or saved (or as created); null for work never saved (restored, migrated). */
+  readonly baseline: Baseline | null;
   /** Increments whenever a different document is loaded, so screens can reset local state. */
   readonly generation: number;
 }
@@ -27,10 +35,10 @@ export interface DocumentStore extends Store<DocumentState> {
   closeStep(): void;
   undo(): void;
   redo(): void;
-  /** Replace the document and forget its history (new, open, restore). */
-  load(document: ProjectDocument, projectPath: string | null, baselineText?: string): void;
-  /** The document was written to projectPath as text. */
-  markSaved(projectPath: string, text: string): void;
+  /** Replace the document and forget its history (new, open, restore); saved=false marks it as unsaved work. */
+  load(document: ProjectDocument, projectPath: string | null, saved?: boolean): void;
+  /** The present document was written to projectPath. */
+  markSaved(projectPath: string): void;
   /** A fact that is not an edit (e.g. the data fingerprint), applied to every snapshot. */
   amendAll(recipe: DocumentRecipe): void;
 }
@@ -39,29 +47,23 @@ export function currentDocument(state: DocumentState): ProjectDocument {
   return state.history.present;
 }
 
-// Serialising a document with kept results is not free: once per document object is enough.
-const serialized = new WeakMap<ProjectDocument, string>();
+const baselineOf = (document: ProjectDocument): Baseline => ({ settingsText: settingsText(document), results: document.results });
 
-/** The document as its file would hold it, computed once per document object. */
-export function serializedDocument(document: ProjectDocument): string {
-  let text = serialized.get(document);
-  if (text === undefined) {
-    text = serializeProject(document);
-    serialized.set(document, text);
-  }
-  return text;
-}
-
+/**
+ * Unsaved changes: the settings differ from the file's, or the results are not the ones it holds.
+ * Comparing the settings' text, not the whole file's, keeps this cheap on every edit during a run.
+ */
 export function isDirty(state: DocumentState): boolean {
-  return serializedDocument(state.history.present) !== state.baselineText;
+  const present = state.history.present, baseline = state.baseline;
+  return baseline === null || present.results !== baseline.results || settingsText(present) !== baseline.settingsText;
 }
 
-function initialState(document: ProjectDocument, projectPath: string | null, baselineText: string, generation: number): DocumentState {
-  return { history: createHistory(document), projectPath, baselineText, generation };
+function initialState(document: ProjectDocument, projectPath: string | null, saved: boolean, generation: number): DocumentState {
+  return { history: createHistory(document), projectPath, baseline: saved ? baselineOf(document) : null, generation };
 }
 
 export function createDocumentStore(document: ProjectDocument = newProjectDocument()): DocumentStore {
-  const store = createStore(initialState(document, null, serializeProject(document), 0));
+  const store = createStore(initialState(document, null, true, 0));
   const withHistory = (f: (h: EditHistory<ProjectDocument>) => EditHistory<ProjectDocument>) =>
     store.set((s) => {
       const history = f(s.history);
@@ -73,9 +75,8 @@ export function createDocumentStore(document: ProjectDocument = newProjectDocume
     closeStep: () => withHistory(closeStep),
     undo: () => withHistory(undo),
     redo: () => withHistory(redo),
-    load: (doc, projectPath, baselineText = serializeProject(doc)) =>
-      store.set((s) => initialState(doc, projectPath, baselineText, s.generation + 1)),
-    markSaved: (projectPath, text) => store.set((s) => ({ ...s, projectPath, baselineText: text })),
+    load: (doc, projectPath, saved = true) => store.set((s) => initialState(doc, projectPath, saved, s.generation + 1)),
+    markSaved: (projectPath) => store.set((s) => ({ ...s, projectPath, baseline: baselineOf(s.history.present) })),
     amendAll: (recipe) => withHistory((h) => mapHistory(h, recipe)),
   };
 }

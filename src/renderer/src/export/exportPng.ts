@@ -2,7 +2,8 @@
  * A plot as a PNG of exactly widthPx × heightPx: the chart drawn off screen at that size (fonts and
  * lines scaled by dpi/96), the caption drawn under it, on white or left transparent, encoded by the
  * browser, with a pHYs chunk telling the dpi so a report places it at its intended physical size
- * (e.g. 1950 × 1200 px at 300 dpi = 6.5 in × 4 in).
+ * (e.g. 1950 × 1200 px at 300 dpi = 6.5 in × 4 in). Drawn on OffscreenCanvas, so it runs in the
+ * chart worker as well as on the page.
  */
 import { drawCaption } from '../../../figures/writers/captionLayout';
 import { exportPlan } from '../../../figures/writers/exportPlan';
@@ -22,13 +23,9 @@ export async function exportPlotPng(spec: PlotSpec, options: ExportOptions): Pro
   const measure = canvasTextMeasure();
   if (!measure) throw new PngExportError('PNG export needs a browser canvas, and none is available here');
   const plan = exportPlan(spec, options, measure);
-  const plot = document.createElement('canvas');
-  plot.width = plan.widthPx;
-  plot.height = plan.plotHeightPx;
+  const plot = new OffscreenCanvas(plan.widthPx, plan.plotHeightPx);
   const chart = drawChartOnce(plot, spec, plan.look);
-  const out = document.createElement('canvas');
-  out.width = plan.widthPx;
-  out.height = plan.heightPx;
+  const out = new OffscreenCanvas(plan.widthPx, plan.heightPx);
   const ctx = out.getContext('2d');
   if (!ctx) throw new PngExportError('PNG export: the browser gave no 2D canvas context');
   if (options.background === 'white') {
@@ -37,8 +34,12 @@ export async function exportPlotPng(spec: PlotSpec, options: ExportOptions): Pro
   }
   ctx.drawImage(plot, 0, 0);
   chart.destroy();
-  drawCaption(ctx, plan.caption, plan.plotHeightPx, plan.look);
-  const blob = await new Promise<Blob | null>((resolve) => out.toBlob(resolve, 'image/png'));
-  if (!blob) throw new PngExportError(`PNG export: the browser could not encode a ${out.width}×${out.height} image`);
+  drawCaption(ctx as unknown as CanvasRenderingContext2D, plan.caption, plan.plotHeightPx, plan.look);
+  let blob: Blob;
+  try {
+    blob = await out.convertToBlob({ type: 'image/png' });
+  } catch {
+    throw new PngExportError(`PNG export: the browser could not encode a ${out.width}×${out.height} image`);
+  }
   return withPhysicalResolution(new Uint8Array(await blob.arrayBuffer()), options.dpi);
 }

@@ -4,11 +4,11 @@
  * becomes the current project, so nothing can overwrite it. Unsaved changes are asked about first.
  */
 import type { Problem } from '../../../core/result';
-import { parseProjectText, serializeProject } from '../../../project/projectFile';
+import { parseProjectText } from '../../../project/projectFile';
 import type { ProjectDocument } from '../../../project/schema';
 import type { AppApi, ProjectFileReply, SaveReply } from '../../../shared/appApi';
 import { fileNameOf } from '../document/dataPath';
-import { isDirty, type DocumentStore } from '../document/documentStore';
+import { isDirty, serializedDocument, type DocumentStore } from '../document/documentStore';
 import { newProjectDocument } from '../document/newProject';
 import { projectProblems } from '../document/projectProblems';
 import type { DataLoading } from '../session/dataLoading';
@@ -62,7 +62,7 @@ export function createProjectCommands({ api, documents, session, questions, data
     const { document, fromVersion } = loaded.value;
     const migrated = fromVersion < document.version;
     // A migrated document differs from its file until saved in the current format.
-    documents.load(document, reply.path, migrated ? '' : serializeProject(document));
+    documents.load(document, reply.path, !migrated);
     session.set((s) => emptySession(s.recentProjects, s.sourceVersion));
     if (migrated) notify({ tone: 'info', title: `Opened a project of format version ${fromVersion}; saving writes version ${document.version}`, problems: [] });
     void refreshRecent();
@@ -90,7 +90,7 @@ export function createProjectCommands({ api, documents, session, questions, data
       return false;
     }
     const first = documentToWrite(doc, state, pathKnown);
-    const reply = await save(serializeProject(first));
+    const reply = await save(serializedDocument(first));
     if (!reply.saved) {
       if (reply.reason === 'error') notify({ tone: 'error', title: 'The project was not saved', problems: [{ where: 'saving', message: reply.message }] });
       return false;
@@ -103,12 +103,12 @@ export function createProjectCommands({ api, documents, session, questions, data
     let final = written;
     const relative = documentAt(written, session.get(), path);
     if (relative.data.path !== written.data.path) {
-      const again = await api.saveProject(serializeProject(relative), path, suggestedFileName(relative));
+      const again = await api.saveProject(serializedDocument(relative), path, suggestedFileName(relative));
       if (again.saved) final = relative;
     }
     const oldPath = edited.data.path;
     documents.amendAll((d) => (d.data.path === oldPath ? { ...d, data: { ...d.data, path: final.data.path, sha256: final.data.sha256, rowCount: final.data.rowCount } } : d));
-    documents.markSaved(path, serializeProject(documents.get().history.present));
+    documents.markSaved(path);
     session.set((s) => ({ ...s, notice: null }));
     await api.discardRecovery().catch(() => undefined);
     void refreshRecent();
@@ -166,7 +166,7 @@ export function createProjectCommands({ api, documents, session, questions, data
         notify({ tone: 'error', title: `The sample ${sample.title} could not be opened`, problems: loaded.problems });
         return;
       }
-      documents.load(loaded.value.document, null, '');
+      documents.load(loaded.value.document, null, false);
       session.set((s) => emptySession(s.recentProjects, s.sourceVersion));
       const bytes = new Uint8Array(await (await fetch(sample.csvUrl)).arrayBuffer());
       await data.useSampleData(bytes, sample.csvFile);

@@ -55,7 +55,7 @@ export async function offerRecovery({ api, documents, session, questions, data }
     return;
   }
   // Restored work is unsaved work: an empty baseline keeps the unsaved-changes marker on.
-  documents.load(draft.document, offer.projectPath, '');
+  documents.load(draft.document, offer.projectPath, false);
   session.set((s) => ({
     ...emptySession(s.recentProjects, s.sourceVersion),
     notice: offer.projectPath || draft.document.data.path === '' ? null : {

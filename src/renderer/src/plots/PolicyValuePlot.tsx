@@ -1,20 +1,20 @@
 /** The candidate comparison as a React component (see policyValueChart.ts for the drawing). */
-import type { ChartConfiguration } from 'chart.js';
 import { useMemo } from 'react';
-import { ChartFigure, tryBuild } from './ChartFigure';
-import { screenLook } from '../../../figures/parts/plotLook';
-import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueChartHeight, policyValueSummary, type PolicyValueChartProps } from '../../../figures/charts/policyValueChart';
+import type { PolicyValueData } from '../../../figures/charts/figureData';
+import type { PolicyValueChartProps } from '../../../figures/charts/policyValueChart';
+import type { PlotSpec } from '../../../figures/writers/plotSpec';
+import { PlotFigure } from './PlotFigure';
 
-export function PolicyValueChart(props: PolicyValueChartProps) {
-  const look = useMemo(() => screenLook(props.theme), [props.theme]);
-  const build = useMemo(
-    () => tryBuild(() => policyValueChart(props, look) as unknown as ChartConfiguration),
-    [props.evaluation, props.title, props.unit, look],
-  );
-  return (
-    <ChartFigure
-      testId="plot-comparison" label={props.title ?? POLICY_VALUE_DEFAULTS.title} summary={policyValueSummary(props)}
-      heightPx={policyValueChartHeight(props.evaluation)} palette={look.palette} build={build}
-    />
-  );
+/** Only what the chart draws: an evaluation also carries surfaces and histories, which the worker need not be sent. */
+export function policyValueData(evaluation: PolicyValueData): PolicyValueData {
+  return {
+    policies: evaluation.policies.map(({ name, policyValue, standardError, status }) => ({ name, policyValue, standardError, status })),
+    behaviour: { value: evaluation.behaviour.value, standardError: evaluation.behaviour.standardError },
+    valueSense: evaluation.valueSense,
+  };
+}
+
+export function PolicyValueChart({ evaluation, theme, title, unit }: PolicyValueChartProps) {
+  const spec = useMemo<PlotSpec>(() => ({ kind: 'comparison', props: { evaluation: policyValueData(evaluation), theme, title, unit } }), [evaluation, theme, title, unit]);
+  return <PlotFigure spec={spec} />;
 }

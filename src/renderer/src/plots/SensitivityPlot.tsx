@@ -1,15 +1,10 @@
 /** J against one setting as a React component (see sensitivity.ts for the drawing). */
-import type { ChartConfiguration } from 'chart.js';
 import { useMemo } from 'react';
-import { ChartFigure, tryBuild } from './ChartFigure';
-import { screenLook } from '../../../figures/parts/plotLook';
-import { SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../../../figures/charts/sensitivity';
+import type { SensitivityPlotProps } from '../../../figures/charts/sensitivity';
+import type { PlotSpec } from '../../../figures/writers/plotSpec';
+import { PlotFigure } from './PlotFigure';
 
-export function SensitivityPlot(props: SensitivityPlotProps) {
-  const look = useMemo(() => screenLook(props.theme), [props.theme]);
-  const build = useMemo(
-    () => tryBuild(() => sensitivityChart(props, look) as unknown as ChartConfiguration),
-    [props.curve, props.title, props.valueLabel, look],
-  );
-  return <ChartFigure testId="plot-sensitivity" label={props.title} summary={sensitivitySummary(props)} heightPx={SENSITIVITY_DEFAULTS.heightPx} palette={look.palette} build={build} />;
+export function SensitivityPlot({ curve, valueLabel, title, theme }: SensitivityPlotProps) {
+  const spec = useMemo<PlotSpec>(() => ({ kind: 'sensitivity', props: { curve, valueLabel, title, theme } }), [curve, valueLabel, title, theme]);
+  return <PlotFigure spec={spec} />;
 }

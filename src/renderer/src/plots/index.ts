@@ -5,6 +5,7 @@ export { ActionSlicePlot } from './ActionSlicePlot';
 export { ConvergencePlot } from './ConvergencePlot';
 export { PolicyValueChart } from './PolicyValuePlot';
 export { SensitivityPlot } from './SensitivityPlot';
+export { PlotFigure } from './PlotFigure';
 export type { ValueSurfacePlotProps } from '../../../figures/charts/valueSurface';
 export type { ActionSliceData, ActionSlicePlotProps } from '../../../figures/charts/actionSlice';
 export type { ConvergencePlotProps } from '../../../figures/charts/convergence';

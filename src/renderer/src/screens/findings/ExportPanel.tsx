@@ -4,7 +4,8 @@
  * exporter can write it; the grid as CSV for the surface. Files go where the user says (main process).
  */
 import { useState } from 'react';
-import { CAUTION, exportCaption, exportPlotPng, exportPlotSvg, type PlotSpec } from '../../export';
+import { CAUTION, exportCaption, type PlotSpec } from '../../export';
+import { exportInWorker } from '../../plots/chartHost';
 import { NumberField } from '../../components/NumberField';
 import { SelectField } from '../../components/SelectField';
 import { TextField } from '../../components/TextField';
@@ -38,11 +39,11 @@ export function ExportPanel({ kind, evaluation, defaultTitle, policy, fileBase, 
   const caption = exportCaption({ project: doc.name, policy, settings: settingsLine(evaluation), date: captionDate(evaluation.evaluatedAt) });
   const options = { ...size, background, caption, caution: CAUTION };
   const spec = () => makeSpec(title ?? defaultTitle);
-  const save = async (what: string, run: () => Promise<{ path: string } | null | 'unavailable'>): Promise<void> => {
+  const save = async (what: string, run: () => Promise<{ path: string } | null>): Promise<void> => {
     setStatus({ tone: 'info', text: `Exporting ${what}…` });
     try {
       const written = await run();
-      setStatus(written === 'unavailable' ? { tone: 'error', text: `${what} is not available for this plot.` } : written ? { tone: 'info', text: `Saved ${written.path}` } : null);
+      setStatus(written ? { tone: 'info', text: `Saved ${written.path}` } : null);
     } catch (e) {
       setStatus({ tone: 'error', text: `${what} export failed: ${(e as Error).message}` });
     }
@@ -66,11 +67,8 @@ export function ExportPanel({ kind, evaluation, defaultTitle, policy, fileBase, 
       </div>
       <p className="small muted">Caption: {caption}</p>
       <div className="row">
-        <button data-testid={`export-png-${kind}`} onClick={() => void save('PNG', async () => api.exportFile('png', `${fileBase}.png`, await exportPlotPng(spec(), options)))}>Export PNG…</button>
-        <button data-testid={`export-svg-${kind}`} onClick={() => void save('SVG', async () => {
-          const svg = exportPlotSvg(spec(), options);
-          return svg === null ? 'unavailable' : api.exportFile('svg', `${fileBase}.svg`, encode(svg));
-        })}>Export SVG…</button>
+        <button data-testid={`export-png-${kind}`} onClick={() => void save('PNG', async () => api.exportFile('png', `${fileBase}.png`, await exportInWorker(spec(), options, 'png')))}>Export PNG…</button>
+        <button data-testid={`export-svg-${kind}`} onClick={() => void save('SVG', async () => api.exportFile('svg', `${fileBase}.svg`, await exportInWorker(spec(), options, 'svg')))}>Export SVG…</button>
         {csv && <button data-testid={`export-csv-${kind}`} onClick={() => void save('CSV', () => api.exportFile('csv', `${fileBase}.csv`, encode(csv())))}>Export grid as CSV…</button>}
       </div>
       {status && <p className={status.tone === 'error' ? 'error-text' : 'small'} role="status" data-testid={`export-status-${kind}`}>{status.text}</p>}
