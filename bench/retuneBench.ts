@@ -18,6 +18,8 @@ import { importDataset } from '../src/data/importDataset';
 import { candidatePolicy } from '../src/pipeline/candidatePolicy';
 import { parseProjectText } from '../src/project/projectFile';
 import { retuneMapCandidates } from '../src/project/retuneMapCandidates';
+import { planEvaluation } from '../src/pipeline/plan/evaluationPlan';
+import { runRetuneMaps } from '../src/pipeline/retuneMaps';
 import type { CandidateSpec, ProjectDocument } from '../src/project/schema';
 import { heatingLoopCsv, simulateHeatingLoop } from '../sample-projects/heating-loop/simulate';
 
@@ -75,6 +77,13 @@ export function runRetuneBench(): Record<string, number | string> {
         figures[`${tag}: plain ÷ map per point`] = plain / (total / policies.length);
       }
     }
+  }
+  // The whole map as hosts run it (src/pipeline/retuneMaps.ts): J, a 100-resample interval and the occupancy shift per point.
+  const plan = planEvaluation(doc, data);
+  if (plan.ok) {
+    const [result, total] = cpuSeconds(() => runRetuneMaps(plan.value, { presentControllerValue: null, presentControllerShift: null }));
+    figures[`pipeline map with intervals and shift (project features) 10×10`] = total;
+    figures['pipeline map: supported points'] = result[0].points.filter((p) => p.support === null).length;
   }
   figures.peakRssMiB = process.resourceUsage().maxRSS / 1024;
   return figures;

@@ -43,8 +43,12 @@ describe('convergence plot', () => {
 describe('policy value chart', () => {
   const evaluation = threeCandidateEvaluation();
 
-  it('one bar per candidate and one for the logged behaviour, with status notes', () => {
-    expect(policyValueRows(evaluation).map((r) => r.label)).toEqual(['gentle gain', 'aggressive gain (iteration limit)', 'wide noise', LOGGED_BEHAVIOUR_LABEL]);
+  it('one bar per candidate and one for the baseline, with status notes', () => {
+    const baseline = { ...evaluation, presentController: { estimate: { policyValue: 3.5, standardError: 0.2 } } };
+    expect(policyValueRows(baseline).map((r) => r.label)).toEqual(['gentle gain', 'aggressive gain (iteration limit)', 'wide noise', LOGGED_BEHAVIOUR_LABEL]);
+    expect(policyValueRows(baseline).at(-1)!.value).toBe(3.5); // the present controller's model, not the logged return
+    // Without a model of the present controller, the logged return stands in under its own name.
+    expect(policyValueRows({ ...evaluation, presentController: null }).at(-1)).toMatchObject({ label: 'logged return (check)', value: evaluation.behaviour.value });
   });
 
   it('the value sense is in the axis title', () => {

@@ -96,7 +96,9 @@ describe('export options', () => {
     expect(() => plan({ heightPx: 1200.5 })).toThrow(ExportOptionsError);
     expect(() => plan({ dpi: 0 })).toThrow(/dpi/);
     expect(() => plan({ background: 'grey' as 'white' })).toThrow(/background/);
-    expect(() => plan({ widthPx: 400, heightPx: 400, dpi: 600 })).toThrow(/too little room/);
+    // A small picture at a high dpi keeps its room by smaller type (typeScale < 1); only a height below what even that needs is refused.
+    expect(plan({ widthPx: 400, heightPx: 400, dpi: 600 }).typeScale).toBeLessThan(1);
+    expect(() => plan({ widthPx: 400, heightPx: 64, dpi: 2400 })).toThrow(/too little room/);
   });
 
   it('the plot gets the height the caption leaves', () => {

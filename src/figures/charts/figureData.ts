@@ -35,6 +35,8 @@ export interface PolicyValueRowData {
 export interface PolicyValueData {
   policies: readonly PolicyValueRowData[];
   behaviour: { value: number; standardError: number };
+  /** The present controller's model evaluated like the candidates (the baseline); null or absent without one. */
+  presentController?: { estimate: { policyValue: number; standardError: number } } | null;
   valueSense: 'reward' | 'cost';
 }
 

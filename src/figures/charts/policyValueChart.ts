@@ -1,6 +1,6 @@
 /**
- * Policy value J ± standard error per candidate, next to the logged behaviour's own discounted
- * return, as horizontal bars with whiskers. The axis title carries the value sense (a cost: lower
+ * Policy value J ± standard error per candidate, next to the present controller's (its model,
+ * evaluated the same way; the logged return where there is none), as horizontal bars with whiskers. The axis title carries the value sense (a cost: lower
  * is better; a reward: higher is better), because the numbers stay in the project's sense.
  */
 import type { ChartConfiguration } from 'chart.js';
@@ -10,7 +10,7 @@ import { errorWhiskersPlugin } from '../parts/errorWhiskers';
 import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatEstimate } from '../parts/tickFormat';
-import { PRESENT_CONTROLLER } from '../parts/plotTheme';
+import { LOGGED_RETURN_LABEL, PRESENT_CONTROLLER } from '../parts/plotTheme';
 
 export const POLICY_VALUE_DEFAULTS = {
   /** On-screen height: base plus one row per bar, CSS px. */
@@ -47,7 +47,10 @@ interface Row {
 export function policyValueRows(evaluation: Evaluation): Row[] {
   return [
     ...evaluation.policies.map((p) => ({ label: `${p.name}${STATUS_NOTE[p.status]}`, value: p.policyValue, error: p.standardError })),
-    { label: LOGGED_BEHAVIOUR_LABEL, value: evaluation.behaviour.value, error: evaluation.behaviour.standardError },
+    // The baseline: the present controller's model, evaluated like the candidates; the logged return where there is none.
+    evaluation.presentController
+      ? { label: LOGGED_BEHAVIOUR_LABEL, value: evaluation.presentController.estimate.policyValue, error: evaluation.presentController.estimate.standardError }
+      : { label: LOGGED_RETURN_LABEL, value: evaluation.behaviour.value, error: evaluation.behaviour.standardError },
   ];
 }
 

@@ -31,7 +31,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
           <thead>
             <tr>
               <th scope="col">Method</th><th scope="col" className="number">Value</th><th scope="col" className="number">{levelText(level)} interval</th>
-              <th scope="col">Verdict</th><th scope="col">Rests on</th>
+              <th scope="col">Verdict</th>
             </tr>
           </thead>
           <tbody>
@@ -41,13 +41,18 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
                 <td className="number">{x.estimate ? formatNumber(x.estimate.value, 4) : '—'}</td>
                 <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalText(x.estimate.percentile) : '—'}</td>
                 <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {noteWithoutVerdict(x.note)}</span> : null}</td>
-                <td className="small">{x.assumption}</td>
               </tr>
             ))}
           </tbody>
         </table>
         </div>
       ))}
+      <details data-testid="cross-check-assumptions">
+        <summary>What each method rests on</summary>
+        <dl className="small">
+          {(assessment.candidates[0]?.crossChecks ?? []).map((x) => <div key={x.method}><dt>{x.label}</dt><dd>{x.assumption}</dd></div>)}
+        </dl>
+      </details>
     </section>
   );
 }
