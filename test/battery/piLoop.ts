@@ -10,6 +10,7 @@
  * Lyapunov equation (src/core/lq.ts). Optionally the output is rate limited and clipped, in which
  * case the truth comes from seeded rollouts of this simulator instead.
  */
+import { meanOverStarts } from '../support/startMeans';
 import { createRandom, type RandomSource } from '../../src/core/random';
 import type { LinearQuadraticPlant, OperatingPoint } from '../../src/core/lq';
 
@@ -86,20 +87,11 @@ export function piLoopCsv(runs: number, rowsPerRun: number, seed: number, law: P
  * i's R returns (the truth is J over these very starts, as the estimate is).
  */
 export function rolloutValue(law: PiLaw, starts: Float64Array, rolloutsPerStart: number, seed: number): { value: number; standardError: number } {
-  const rng = createRandom(seed), count = starts.length / 3, r = rolloutsPerStart;
-  let total = 0, variance = 0;
-  for (let i = 0; i < count; i++) {
-    let sum = 0, sumSq = 0;
-    for (let k = 0; k < r; k++) {
-      const s = { y: starts[3 * i], integral: starts[3 * i + 1], previous: starts[3 * i + 2] };
-      let ret = 0, weight = 1;
-      for (let t = 0; t < 400; t++, weight *= PI_LOOP_DISCOUNT) ret -= weight * piStep(s, piAction(law, s, rng), rng);
-      sum += ret;
-      sumSq += ret * ret;
-    }
-    const mean = sum / r;
-    total += mean;
-    variance += (sumSq - r * mean * mean) / (r - 1) / r;
-  }
-  return { value: total / count, standardError: Math.sqrt(variance) / count };
+  const rng = createRandom(seed);
+  return meanOverStarts(starts.length / 3, rolloutsPerStart, (i) => {
+    const s = { y: starts[3 * i], integral: starts[3 * i + 1], previous: starts[3 * i + 2] };
+    let ret = 0, weight = 1;
+    for (let t = 0; t < 400; t++, weight *= PI_LOOP_DISCOUNT) ret -= weight * piStep(s, piAction(law, s, rng), rng);
+    return ret;
+  });
 }

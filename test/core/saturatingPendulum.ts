@@ -11,6 +11,7 @@
  * States (θ rad, ω rad/s), action u (torque per inertia, rad/s²). Truth J(π) over given start states
  * by seeded rollouts of the plant itself, with its Monte Carlo standard error.
  */
+import { meanOverStarts } from '../support/startMeans';
 import { createRandom, type RandomSource } from '../../src/core/random';
 import type { TransitionSet } from '../../src/core/transitions';
 
@@ -60,24 +61,15 @@ export function pendulumLog(c: PendulumController, episodes: number, steps: numb
 
 /** J(π) = mean over the start states of V^π(s₀), by `rollouts` seeded rollouts each, cut where γ^t < 1e-6; with its Monte Carlo SE. */
 export function pendulumRolloutValue(c: PendulumController, discount: number, starts: Float64Array, rollouts: number, seed: number): { value: number; standardError: number } {
-  const steps = Math.ceil(Math.log(1e-6) / Math.log(discount)), e = starts.length / 2;
-  let total = 0, variance = 0;
-  for (let s = 0; s < e; s++) {
-    let sum = 0, squares = 0;
-    for (let r = 0; r < rollouts; r++) {
-      const rng = createRandom(seed + s * rollouts + r);
-      let theta = starts[2 * s], omega = starts[2 * s + 1], g = 0, power = 1;
-      for (let t = 0; t < steps; t++, power *= discount) {
-        const u = torque(c, theta, omega, rng);
-        g -= power * cost(theta, omega, u);
-        [theta, omega] = step(theta, omega, u, rng);
-      }
-      sum += g;
-      squares += g * g;
+  const steps = Math.ceil(Math.log(1e-6) / Math.log(discount));
+  return meanOverStarts(starts.length / 2, rollouts, (s, r) => {
+    const rng = createRandom(seed + s * rollouts + r);
+    let theta = starts[2 * s], omega = starts[2 * s + 1], g = 0, power = 1;
+    for (let t = 0; t < steps; t++, power *= discount) {
+      const u = torque(c, theta, omega, rng);
+      g -= power * cost(theta, omega, u);
+      [theta, omega] = step(theta, omega, u, rng);
     }
-    const mean = sum / rollouts;
-    total += mean;
-    variance += (squares - rollouts * mean * mean) / (rollouts - 1) / rollouts;
-  }
-  return { value: total / e, standardError: Math.sqrt(variance) / e };
+    return g;
+  });
 }
