@@ -7,6 +7,7 @@
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
+import { outsidePossible, possibleValues } from '../core/diagnostics/possibleValues';
 import { unitMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { completedReturnOfResample } from '../core/loggedReturn';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
@@ -61,6 +62,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
       ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: `Not settled across function classes: ${classes.reason} Report the range ${rangeText(classes.range)}, not a single value.` }] : []),
       ...networkDisagreement(work),
+      ...impossibleValue(context.plan, work),
       ...failedWarning(policyValue),
     ];
     return {
@@ -138,6 +140,17 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
     classes: estimates.map((e) => ({ label: e.label, value: sign * e.value, interval: flip(e.interval), standardError: e.standardError })),
     settled: verdict.settled, range: flip(verdict.range), coverage: verdict.coverageText, reason: verdict.reason,
   };
+}
+
+/** J outside what any policy can reach with rewards in the logged range (core/diagnostics/possibleValues.ts): serious. */
+function impossibleValue(plan: EvaluationPlan, work: CandidateWork): AssessmentWarning[] {
+  const range = possibleValues(plan.data.rewards, plan.discount), j = work.model.fit.policyValue;
+  if (!outsidePossible(j, range)) return [];
+  const words = plan.sense === 'cost' ? 'costs' : 'rewards', [lo, hi] = plan.sign > 0 ? [range.lower, range.upper] : [-range.upper, -range.lower];
+  return [{
+    severity: 'serious', topic: 'impossibleValue',
+    message: `J = ${(plan.sign * j).toPrecision(4)} lies outside what any policy can reach while its ${words} stay within the logged range (${lo.toPrecision(4)} to ${hi.toPrecision(4)}, discounted): the fit extrapolates far from the logs; do not use this value.`,
+  }];
 }
 
 /** A network's J has no bootstrap replicates here; its own interval (run resamples of the last-layer solve) stands in. */

@@ -17,6 +17,7 @@
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicate } from '../core/bootstrap/linearFqeReplicate';
 import { occupancyShift } from '../core/diagnostics/occupancyShift';
+import { outsidePossible, possibleValues } from '../core/diagnostics/possibleValues';
 import { OCCUPANCY_SHIFT_LIMITS, occupancyShiftSeverity, shiftReference, type SeverityLevel } from '../core/diagnostics/severity';
 import type { CancellationCheck } from '../core/fqe/cancellation';
 import { CONFIDENCE_LEVEL, MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
@@ -113,7 +114,7 @@ function runRetuneMap(
   const e = plan.episodes.episodes, d = features.dim;
   const withIntervals = e >= 10 && e * d * d * policies.length * MAP_RESAMPLES <= INTERVAL_BUDGET;
   const c = new Uint32Array(e), level = plan.project.bootstrap?.level ?? CONFIDENCE_LEVEL.default;
-  const points: RetuneMapPoint[] = [];
+  const points: RetuneMapPoint[] = [], possible = possibleValues(data.rewards, plan.discount);
   const coordinatesOf = (p: number) => indexCoordinates(p, grid.coordinates);
   retuneGrid({
     data, features, policies, discount: plan.discount, ridge: settings.ridge, quadratureNodes: plan.quadratureNodes,
@@ -137,9 +138,11 @@ function runRetuneMap(
         }
         interval = intervalEstimate(m.policyValue, values, level, sign).percentile;
       }
+      // A value no policy can reach with rewards in the logged range is beyond the logs whatever its shift says.
+      const impossible = m.policyValue !== null && outsidePossible(m.policyValue, possible);
       points.push({
-        coordinates: coordinatesOf(m.index), value: m.policyValue === null ? null : sign * m.policyValue, interval, status: m.status,
-        occupancyShift: shiftValue, support: shiftValue === null ? 'unknown' : occupancyShiftSeverity(shiftValue, options.presentControllerShift), route: m.route,
+        coordinates: coordinatesOf(m.index), value: m.policyValue === null ? null : sign * m.policyValue, interval, status: impossible ? 'outside the possible range' : m.status,
+        occupancyShift: shiftValue, support: impossible ? 'serious' : shiftValue === null ? 'unknown' : occupancyShiftSeverity(shiftValue, options.presentControllerShift), route: m.route,
       });
     },
   });
