@@ -10,13 +10,14 @@ import { retuneMapChart, retuneMapSummary, hoverOrder } from '../../src/figures/
 import { geometricSpacing, lineRange, retuneMapLineChart } from '../../src/figures/charts/retuneMapLine';
 import { pointReadout, type RetuneMapPlotProps } from '../../src/figures/charts/retuneMapText';
 import { createColourScale, rgbText } from '../../src/figures/parts/colourScale';
-import { cellFill, mapCellLayerPlugin } from '../../src/figures/parts/mapCellLayer';
+import { cellFill } from '../../src/figures/parts/mapCellLayer';
 import { mapCellLayout, MapShapeError, shadeCount } from '../../src/figures/parts/mapCells';
 import { screenLook } from '../../src/figures/parts/plotLook';
+import type { RetuneMapData } from '../../src/figures/charts/figureData';
 import { GAINS, syntheticRetuneLine, syntheticRetuneMap, TIMES } from './syntheticRetuneMap';
 
 const look = screenLook('light');
-const props = (map = syntheticRetuneMap()): RetuneMapPlotProps => ({ map, valueLabel: 'J, discounted cost (kWh)', sense: 'cost', title: 'Retune map', theme: 'light' });
+const props = (map: RetuneMapData = syntheticRetuneMap()): RetuneMapPlotProps => ({ map, valueLabel: 'J, discounted cost (kWh)', sense: 'cost', title: 'Retune map', theme: 'light' });
 
 /** A canvas context that records fillRect, strokeRect and the clip rectangles given to rect(). */
 function recordingContext() {

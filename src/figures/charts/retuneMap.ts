@@ -41,7 +41,9 @@ export function retuneMapHeatChart(props: RetuneMapPlotProps, look: PlotLook): C
     const base = valueAxis(look, '', position, false);
     return {
       ...base, type: 'linear' as const, min: -0.5, max: values.length - 0.5,
-      ticks: { ...base.ticks, stepSize: 1, callback: (v: number | string) => (Number.isInteger(Number(v)) && values[Number(v)] !== undefined ? formatValue(values[Number(v)]) : '') },
+      ticks: { ...base.ticks, callback: (v: number | string) => (Number.isInteger(Number(v)) && values[Number(v)] !== undefined ? formatValue(values[Number(v)]) : '') },
+      // One tick at each cell centre (Chart.js would start its ticks at the axis minimum, a cell edge).
+      afterBuildTicks: (axis: { ticks: { value: number }[] }) => { axis.ticks = values.map((_, i) => ({ value: i })); },
     };
   };
   return {

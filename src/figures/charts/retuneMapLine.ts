@@ -1,6 +1,6 @@
 /**
  * A one-axis retune map: J against the parameter with its interval as a band, the stretches the
- * logs do not support shaded and strongly hatched (thin-log stretches lightly hatched) from midway
+ * logs do not support shaded and hatched (thin-log stretches shaded only) from midway
  * to the neighbouring points, the best supported point ringed, and the present controller's J as a
  * dashed line. A geometrically spaced axis is drawn on a logarithmic scale. The value axis spans
  * the supported and thin-log points (with their intervals) when there are any, so a far larger
@@ -8,7 +8,7 @@
  */
 import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
-import { drawHatching, HATCH_DEFAULTS, LIGHT_HATCH } from '../parts/hatching';
+import { drawHatching, LIGHT_HATCH } from '../parts/hatching';
 import { legendPlugin, type LegendKey } from '../parts/legendBox';
 import { shadeOf } from '../parts/mapCells';
 import { PRESENT_CONTROLLER, PRESENT_DASH_PX } from '../parts/plotTheme';
@@ -106,9 +106,8 @@ function stretchPlugin(props: RetuneMapPlotProps, look: PlotLook): Plugin {
       ctx.rect(area.left, area.top, area.right - area.left, area.bottom - area.top);
       ctx.clip();
       ctx.fillStyle = look.palette.bandFill;
-      for (const r of [...shaded('unsupported'), ...shaded('noValue')]) ctx.fillRect(r.x, r.y, r.width, r.height);
-      drawHatching(ctx, shaded('unsupported'), look, HATCH_DEFAULTS);
-      drawHatching(ctx, shaded('caution'), look, LIGHT_HATCH);
+      for (const r of [...shaded('unsupported'), ...shaded('noValue'), ...shaded('caution')]) ctx.fillRect(r.x, r.y, r.width, r.height);
+      drawHatching(ctx, shaded('unsupported'), look, LIGHT_HATCH);
       ctx.restore();
     },
   };
@@ -120,7 +119,7 @@ function lineKeys(props: RetuneMapPlotProps, look: PlotLook): LegendKey[] {
   if (pts.some((q) => q.interval)) keys.push({ label: 'interval', kind: 'area', colour: p.densityFill });
   if (props.map.best) keys.push({ label: 'best supported point (ringed)', kind: 'marker', colour: p.series[0], markerRadiusPx: d.bestRadiusPx - 2 });
   if (props.map.presentController !== null) keys.push({ label: `${PRESENT_CONTROLLER}: ${formatValue(props.map.presentController)}`, kind: 'line', colour: p.reference, dash: PRESENT_DASH_PX, lineWidthPx: 1.6 });
-  if (pts.some((q) => shadeOf(q.value, q.support) === 'caution')) keys.push({ label: 'thin logs (caution)', kind: 'hatch', colour: p.background, hatch: LIGHT_HATCH });
-  if (pts.some((q) => shadeOf(q.value, q.support) === 'unsupported')) keys.push({ label: 'beyond the logs: not supported', kind: 'hatch', colour: p.bandFill, hatch: HATCH_DEFAULTS });
+  if (pts.some((q) => shadeOf(q.value, q.support) === 'caution')) keys.push({ label: 'thin logs (caution)', kind: 'area', colour: p.bandFill });
+  if (pts.some((q) => shadeOf(q.value, q.support) === 'unsupported')) keys.push({ label: 'beyond the logs: not supported', kind: 'hatch', colour: p.bandFill, hatch: LIGHT_HATCH });
   return keys;
 }
