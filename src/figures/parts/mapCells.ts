@@ -26,7 +26,7 @@ export interface MapCellLayout {
   readonly columns: number;
   readonly rows: number;
   readonly cells: readonly MapCell[];
-  /** Values that set the colour scale's domain (every finite value when no cell is supported or caution). */
+  /** Values that set the colour scale's domain: the supported cells', else supported and thin-log, else every finite value. */
   readonly domainValues: readonly number[];
   /** Index of the best supported point, or null. */
   readonly best: number | null;
@@ -52,8 +52,9 @@ export function mapCellLayout(map: RetuneMapData): MapCellLayout {
   const cells = map.points.map((p, index): MapCell => ({
     index, column: Math.floor(index / rows), row: index % rows, value: p.value, shade: shadeOf(p.value, p.support),
   }));
-  const trusted = cells.filter((c) => c.shade === 'supported' || c.shade === 'caution').map((c) => c.value as number);
-  const domainValues = trusted.length > 0 ? trusted : cells.filter((c) => c.shade !== 'noValue').map((c) => c.value as number);
+  const valuesOf = (shades: readonly CellShade[]) => cells.filter((c) => shades.includes(c.shade)).map((c) => c.value as number);
+  const supported = valuesOf(['supported']), trusted = valuesOf(['supported', 'caution']);
+  const domainValues = supported.length > 1 ? supported : trusted.length > 1 ? trusted : valuesOf(['supported', 'caution', 'unsupported']);
   const best = map.best !== null && map.best.index >= 0 && map.best.index < cells.length ? map.best.index : null;
   return { columns, rows, cells, domainValues, best };
 }

@@ -8,6 +8,7 @@ import { useMemo, useState } from 'react';
 import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
 import type { PlotSpec } from '../../../../figures/writers/plotSpec';
 import { ProblemList } from '../../components/ProblemList';
+import { RichText } from '../../components/RichText';
 import { SelectField } from '../../components/SelectField';
 import { useDocument } from '../../hooks';
 import { PlotFigure } from '../../plots/PlotFigure';
@@ -87,7 +88,7 @@ function MapResults({ maps, record, theme }: { maps: RetuneMapResult[]; record: 
             options={maps.map((m, i) => ({ value: String(i), label: mapName(m) }))} />
         </div>
       )}
-      <p data-testid="retune-map-headline"><strong>{headline(map)}</strong></p>
+      <p data-testid="retune-map-headline"><strong><RichText text={richAxisLabel(headline(map))} /></strong></p>
       <PlotFigure spec={spec} keyColumns={map.axes.length === 2 ? map.axes[0].values.length : undefined} testId="plot-retuneMap" />
       <ul className="small muted" data-testid="retune-map-notes">
         <li>{`Features: ${map.features}.`}</li>
