@@ -35,10 +35,11 @@ export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: 
 function GridTable({ map, best, testId }: { map: RetuneMapResult; best: number; testId: string }) {
   const [rows, columns] = map.axes, n = columns.values.length;
   return (
-    <table data-testid={testId}>
+    <table data-testid={testId} className="map-table">
+      <caption className="small muted">Rows: <RichText text={richAxisLabel(rows.label)} />; columns: <RichText text={richAxisLabel(columns.label)} />.</caption>
       <thead>
         <tr>
-          <th scope="col"><RichText text={richAxisLabel(rows.label)} /> ↓ · <RichText text={richAxisLabel(columns.label)} /> →</th>
+          <th scope="col" aria-label="row value" />
           {columns.values.map((v) => <th key={v} scope="col" className="number">{formatNumber(v)}</th>)}
         </tr>
       </thead>
@@ -59,7 +60,7 @@ function GridTable({ map, best, testId }: { map: RetuneMapResult; best: number; 
 
 function ListTable({ map, best, testId }: { map: RetuneMapResult; best: number; testId: string }) {
   return (
-    <table data-testid={testId}>
+    <table data-testid={testId} className="map-table">
       <thead>
         <tr><th scope="col" className="number"><RichText text={richAxisLabel(map.axes[0].label)} /></th><th scope="col" className="number">J</th><th scope="col" className="number">Interval</th><th scope="col">Support</th></tr>
       </thead>
