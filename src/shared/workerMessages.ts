@@ -13,6 +13,7 @@ import type { Assessment } from '../pipeline/assessment';
 import type { AssessmentProgress } from '../pipeline/assessProject';
 import type { Evaluation, ValueSurface } from '../pipeline/estimates';
 import type { EvaluationProgress } from '../pipeline/projectRun';
+import type { RetuneMapResult } from '../pipeline/retuneMaps';
 import type { CsvSettings, ProjectDocument } from '../project/schema';
 
 /** What the first lines of a data file look like, before any column has a role. */
@@ -105,6 +106,16 @@ export interface AssessRunProgress extends AssessmentProgress {
   elapsedMs: number;
 }
 
+/** A progress report while the retune maps are computed: point pointsDone of pointsTotal in map map + 1 of maps. */
+export interface RetuneMapProgress {
+  map: number;
+  maps: number;
+  pointsDone: number;
+  pointsTotal: number;
+  /** Milliseconds since the maps started. */
+  elapsedMs: number;
+}
+
 /** Each call's arguments and the value its successful result carries. */
 export interface WorkerCalls {
   /** Keep these bytes as the data file (until the next setData) and look at its first lines. */
@@ -123,6 +134,13 @@ export interface WorkerCalls {
   assess: { args: { project: ProjectDocument }; value: Assessment };
   /** Ask the assessment in progress to stop at its next resample; the run's models are kept. */
   stopAssessment: { args: Record<string, never>; value: null };
+  /**
+   * The project's retune maps over the last run's data and plan (it fails when the project no longer
+   * matches the last run). The maps run synchronously, so a stop cannot arrive as a message: the
+   * renderer sets stopFlag[0] to 1 (an Int32Array on a SharedArrayBuffer, where the page is
+   * cross-origin isolated), which the worker reads between points; null where no such buffer exists.
+   */
+  retuneMaps: { args: { project: ProjectDocument; stopFlag: Int32Array | null }; value: RetuneMapResult[] };
 }
 
 export type WorkerCall = keyof WorkerCalls;
@@ -135,9 +153,10 @@ export type WorkerResult<K extends WorkerCall = WorkerCall> =
 
 export type WorkerProgress =
   | { kind: 'progress'; id: number; progress: RunProgress }
-  | { kind: 'assessmentProgress'; id: number; progress: AssessRunProgress };
+  | { kind: 'assessmentProgress'; id: number; progress: AssessRunProgress }
+  | { kind: 'retuneMapProgress'; id: number; progress: RetuneMapProgress };
 
 /** The progress reports a call sends before its result. */
-export type ProgressOf<K extends WorkerCall> = K extends 'assess' ? AssessRunProgress : RunProgress;
+export type ProgressOf<K extends WorkerCall> = K extends 'assess' ? AssessRunProgress : K extends 'retuneMaps' ? RetuneMapProgress : RunProgress;
 
 export type WorkerReply = WorkerResult | WorkerProgress;

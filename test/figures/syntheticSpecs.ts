@@ -7,9 +7,10 @@ import type { PlotSpec } from '../../src/figures/writers/plotSpec';
 import { meanActionCurve } from '../../src/figures/parts/meanActionCurve';
 import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from './syntheticPlotData';
 import { discountSweep } from './syntheticSensitivity';
+import { syntheticRetuneMap } from './syntheticRetuneMap';
 
 export type PlotKind = PlotSpec['kind'];
-export const ALL_PLOT_KINDS: readonly PlotKind[] = ['surface', 'slice', 'convergence', 'comparison', 'sensitivity', 'candidates', 'interval'];
+export const ALL_PLOT_KINDS: readonly PlotKind[] = ['surface', 'slice', 'convergence', 'comparison', 'sensitivity', 'candidates', 'interval', 'retuneMap'];
 
 const LIMITS = { lo: [0], hi: [100], mode: 'clip' as const };
 
@@ -56,5 +57,7 @@ export function syntheticSpec(kind: PlotKind, theme: Theme): PlotSpec {
           axisLabel: 'J, discounted cost (kWh)', title: '90 % intervals of J', theme, reference: 45.3,
         },
       };
+    case 'retuneMap':
+      return { kind, props: { map: syntheticRetuneMap(), valueLabel: 'J, discounted cost (kWh)', sense: 'cost', title: 'Retune map: PI on the supply temperature', theme } };
   }
 }

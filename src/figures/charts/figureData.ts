@@ -59,3 +59,16 @@ export interface SliceData {
   state: number[];
   policyName: string;
 }
+
+/** How far the logs speak for a retune-map point: null supported, else the level its shift reaches. */
+export type MapSupport = null | 'caution' | 'serious' | 'unknown';
+
+/** What the retune-map figure needs of a map (src/pipeline/retuneMaps.ts has this shape or a wider one). */
+export interface RetuneMapData {
+  /** One or two axes: the name in the trade's words with the unit, and the grid values. */
+  axes: readonly { label: string; values: readonly number[] }[];
+  /** Row-major over the axes (the last axis fastest); value in the project's sense, null without a solution. */
+  points: readonly { coordinates: readonly number[]; value: number | null; interval: readonly [number, number] | null; status: string; support: MapSupport }[];
+  best: { index: number; value: number } | null;
+  presentController: number | null;
+}

@@ -30,6 +30,8 @@ export interface ColourBarSpec {
   /** Value label with units, e.g. "V^π (cost, kWh)". */
   readonly label: string;
   readonly look: PlotLook;
+  /** A reference value marked across the bar (dashed), e.g. the present controller's J; left out when outside the scale. */
+  readonly reference?: { readonly value: number; readonly colour: string; readonly dash: readonly number[] };
 }
 
 /** Ticks for a bar heightPx tall: between 2 and 11, about one per tickSpacingPx. */
@@ -72,6 +74,7 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
     ctx.strokeStyle = look.palette.axis;
     ctx.lineWidth = s;
     ctx.strokeRect(x, top, barWidth, height);
+    this.drawReference(x, top, barWidth, height);
     ctx.fillStyle = look.palette.text;
     ctx.font = fontString(look, PLOT_FONTS.tickPx);
     ctx.textAlign = 'left';
@@ -93,6 +96,23 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
     // Reads bottom to top, as the y-axis title does; rich text, so V^{π} is typeset.
     drawRichText(ctx, label, labelRight + d.titleGapPx * s + PLOT_FONTS.axisTitlePx * s * 0.6, top + height / 2,
       { sizePx: PLOT_FONTS.axisTitlePx * s, family: look.fontFamily ?? PLOT_FONTS.family, weight: 'bold' }, 'center', -Math.PI / 2);
+    ctx.restore();
+  }
+
+  private drawReference(x: number, top: number, barWidth: number, height: number): void {
+    const ref = this.spec.reference, s = this.spec.look.scale, ctx = this.chart.ctx;
+    if (!ref || !(ref.value >= this.spec.scale.min && ref.value <= this.spec.scale.max)) return;
+    const y = top + (1 - (this.spec.scale.position(ref.value) ?? 0)) * height;
+    ctx.save();
+    ctx.setLineDash(ref.dash.map((v) => v * s));
+    for (const [colour, width] of [[this.spec.look.palette.background, 4], [ref.colour, 2]] as const) {
+      ctx.strokeStyle = colour;
+      ctx.lineWidth = width * s;
+      ctx.beginPath();
+      ctx.moveTo(x - 3 * s, y);
+      ctx.lineTo(x + barWidth + 3 * s, y);
+      ctx.stroke();
+    }
     ctx.restore();
   }
 

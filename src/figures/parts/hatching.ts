@@ -10,7 +10,16 @@ import type { Rect } from './raster';
 /** Defaults in CSS px, times look.scale. */
 export const HATCH_DEFAULTS = { spacingPx: 7, darkWidthPx: 2.2, lightWidthPx: 1 } as const;
 
-export function drawHatching(ctx: CanvasRenderingContext2D, rects: readonly Rect[], look: PlotLook): void {
+export interface HatchStyle {
+  readonly spacingPx: number;
+  readonly darkWidthPx: number;
+  readonly lightWidthPx: number;
+}
+
+/** A sparser, thinner hatch for a milder warning (the retune map's "caution" cells); ours. */
+export const LIGHT_HATCH: HatchStyle = { spacingPx: 11, darkWidthPx: 1.3, lightWidthPx: 0.6 };
+
+export function drawHatching(ctx: CanvasRenderingContext2D, rects: readonly Rect[], look: PlotLook, style: HatchStyle = HATCH_DEFAULTS): void {
   if (rects.length === 0) return;
   const bounds = boundingBox(rects);
   ctx.save();
@@ -19,7 +28,7 @@ export function drawHatching(ctx: CanvasRenderingContext2D, rects: readonly Rect
   ctx.clip();
   ctx.beginPath();
   // Lines x + y = c, c on a lattice of spacing·√2 so the perpendicular gap is `spacing`.
-  const step = HATCH_DEFAULTS.spacingPx * look.scale * Math.SQRT2;
+  const step = style.spacingPx * look.scale * Math.SQRT2;
   const c0 = Math.floor((bounds.x + bounds.y) / step) * step;
   const c1 = bounds.x + bounds.width + bounds.y + bounds.height;
   for (let c = c0; c <= c1 + step; c += step) {
@@ -28,10 +37,10 @@ export function drawHatching(ctx: CanvasRenderingContext2D, rects: readonly Rect
   }
   ctx.lineCap = 'butt';
   ctx.strokeStyle = look.palette.hatchDark;
-  ctx.lineWidth = HATCH_DEFAULTS.darkWidthPx * look.scale;
+  ctx.lineWidth = style.darkWidthPx * look.scale;
   ctx.stroke();
   ctx.strokeStyle = look.palette.hatchLight;
-  ctx.lineWidth = HATCH_DEFAULTS.lightWidthPx * look.scale;
+  ctx.lineWidth = style.lightWidthPx * look.scale;
   ctx.stroke();
   ctx.restore();
 }

@@ -6,7 +6,7 @@
  * at, so the reserved height always fits what is drawn (no row spills onto the ticks).
  */
 import { type Chart, type LayoutItem, type Plugin } from 'chart.js';
-import { drawHatching } from './hatching';
+import { drawHatching, HATCH_DEFAULTS, type HatchStyle } from './hatching';
 import { LayoutBoxGeometry, layoutBoxHooks } from './layoutBox';
 import { PLOT_FONTS, type PlotLook } from './plotLook';
 import { drawRichText, measureRichText } from './richText';
@@ -21,6 +21,12 @@ export interface LegendKey {
   readonly markerRadiusPx?: number;
   /** Border of an area swatch. */
   readonly border?: string;
+  /** Hatch of a 'hatch' swatch (default the strong one). */
+  readonly hatch?: HatchStyle;
+  /** Border width of an area or hatch swatch in CSS px (default 1). */
+  readonly borderWidthPx?: number;
+  /** Drawn over the swatch after its border, e.g. a double outline (a function: local to the chart, never cloned). */
+  readonly overlay?: (ctx: CanvasRenderingContext2D, rect: { x: number; y: number; width: number; height: number }, look: PlotLook) => void;
 }
 
 export const LEGEND_DEFAULTS = { keyWidthPx: 30, keyGapPx: 6, itemGapPx: 18, rowGapPx: 4, paddingPx: 6 } as const;
@@ -91,10 +97,11 @@ function drawKey(ctx: CanvasRenderingContext2D, key: LegendKey, left: number, mi
     const rect = { x: left, y: middle - h / 2, width, height: h };
     ctx.fillStyle = key.colour;
     ctx.fillRect(rect.x, rect.y, rect.width, rect.height);
-    if (key.kind === 'hatch') drawHatching(ctx, [rect], look);
+    if (key.kind === 'hatch') drawHatching(ctx, [rect], look, key.hatch ?? HATCH_DEFAULTS);
     ctx.strokeStyle = key.border ?? look.palette.axis;
-    ctx.lineWidth = s;
+    ctx.lineWidth = (key.borderWidthPx ?? 1) * s;
     ctx.strokeRect(rect.x, rect.y, rect.width, rect.height);
+    key.overlay?.(ctx, rect, look);
   }
   if (key.kind === 'line') {
     ctx.strokeStyle = key.colour;

@@ -10,6 +10,7 @@ import { intervalChart, intervalChartHeight, intervalSummary, type IntervalChart
 import { CONVERGENCE_DEFAULTS, convergenceChart, convergenceSummary, type ConvergencePlotProps } from '../charts/convergence';
 import type { PlotLook } from '../parts/plotLook';
 import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueChartHeight, policyValueSummary, type PolicyValueChartProps } from '../charts/policyValueChart';
+import { retuneMapChart, retuneMapHeight, retuneMapSummary, type RetuneMapPlotProps } from '../charts/retuneMap';
 import { SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../charts/sensitivity';
 import { VALUE_SURFACE_DEFAULTS, valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../charts/valueSurface';
 
@@ -20,7 +21,8 @@ export type PlotSpec =
   | { kind: 'comparison'; props: PolicyValueChartProps }
   | { kind: 'sensitivity'; props: SensitivityPlotProps }
   | { kind: 'candidates'; props: CandidateActionsPlotProps }
-  | { kind: 'interval'; props: IntervalChartProps };
+  | { kind: 'interval'; props: IntervalChartProps }
+  | { kind: 'retuneMap'; props: RetuneMapPlotProps };
 
 export interface ExportOptions {
   widthPx: number;
@@ -43,6 +45,7 @@ export function plotChartConfig(spec: PlotSpec, look: PlotLook): ChartConfigurat
     case 'sensitivity': return sensitivityChart(spec.props, look) as unknown as ChartConfiguration;
     case 'candidates': return candidateActionsChart(spec.props, look) as unknown as ChartConfiguration;
     case 'interval': return intervalChart(spec.props, look) as unknown as ChartConfiguration;
+    case 'retuneMap': return retuneMapChart(spec.props, look);
   }
 }
 
@@ -55,6 +58,7 @@ export function plotSummary(spec: PlotSpec): string {
     case 'sensitivity': return sensitivitySummary(spec.props);
     case 'candidates': return candidateActionsSummary(spec.props);
     case 'interval': return intervalSummary(spec.props);
+    case 'retuneMap': return retuneMapSummary(spec.props);
   }
 }
 
@@ -74,5 +78,6 @@ export function plotScreenHeight(spec: PlotSpec): number {
     case 'sensitivity': return SENSITIVITY_DEFAULTS.heightPx;
     case 'candidates': return CANDIDATE_ACTIONS_DEFAULTS.heightPx;
     case 'interval': return intervalChartHeight(spec.props.rows.length);
+    case 'retuneMap': return retuneMapHeight(spec.props.map);
   }
 }

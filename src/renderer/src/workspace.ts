@@ -13,6 +13,7 @@ import { startResultsKeeping } from './session/savedResults';
 import { createAssessmentRunner, type AssessmentRunner } from './session/assessmentRunner';
 import { createDataLoading, type DataLoading } from './session/dataLoading';
 import { createEvaluationRunner, type EvaluationRunner } from './session/evaluationRunner';
+import { createRetuneMapRunner, type RetuneMapRunner } from './session/retuneMapRunner';
 import { createSessionStore, type SessionStore } from './session/sessionStore';
 import { createQuestionStore, type QuestionStore } from './state/questionStore';
 import { createEvaluationClient, type EvaluationClient } from './worker/evaluationClient';
@@ -27,6 +28,7 @@ export interface Workspace {
   files: ProjectCommands;
   runner: EvaluationRunner;
   assessor: AssessmentRunner;
+  mapper: RetuneMapRunner;
   /** Start the background duties (title, autosave, imports, recovery offer); returns the stop function. */
   start(): () => void;
 }
@@ -38,9 +40,11 @@ export function createWorkspace(api: AppApi, client: EvaluationClient = createEv
   const data = createDataLoading(api, documents, session, client);
   const files = createProjectCommands({ api, documents, session, questions, data });
   const assessor = createAssessmentRunner(session, client);
-  const runner = createEvaluationRunner(documents, session, client, assessor);
+  const mapper = createRetuneMapRunner(session, client);
+  // A new run stops the assessment and any maps in progress first (both extend the run it replaces).
+  const runner = createEvaluationRunner(documents, session, client, { assess: assessor.assess, cancel: () => { assessor.cancel(); mapper.cancel(); } });
   return {
-    api, documents, session, questions, client, data, files, runner, assessor,
+    api, documents, session, questions, client, data, files, runner, assessor, mapper,
     start() {
       const stops = [syncDocumentState(api, documents), startRecoveryAutosave(api, documents), startAutoImport(documents, session, client), startResultsKeeping(documents, session)];
       void files.refreshRecent();

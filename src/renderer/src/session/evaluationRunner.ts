@@ -53,7 +53,7 @@ export function createEvaluationRunner(documents: DocumentStore, session: Sessio
       }
       const fingerprint = state.importState.status === 'done' ? state.importState.result.fingerprint : '';
       followUp?.cancel();
-      session.set((s) => ({ ...s, run: { status: 'running', progress: [], startsMs: [] }, evaluation: null, assessment: { status: 'idle' } }));
+      session.set((s) => ({ ...s, run: { status: 'running', progress: [], startsMs: [] }, evaluation: null, assessment: { status: 'idle' }, retuneMaps: { status: 'idle' } }));
       const onProgress = (progress: RunProgress): void => session.set((s) => (s.run.status !== 'running' ? s : {
         ...s,
         run: {

@@ -6,7 +6,8 @@
 import type { Problem } from '../../../core/result';
 import type { Assessment } from '../../../pipeline/assessment';
 import type { Evaluation } from '../../../pipeline/estimates';
-import type { AssessRunProgress, DataImport, DataInspection, RunProgress } from '../../../shared/workerMessages';
+import type { RetuneMapResult } from '../../../pipeline/retuneMaps';
+import type { AssessRunProgress, DataImport, DataInspection, RetuneMapProgress, RunProgress } from '../../../shared/workerMessages';
 import { createStore, type Store } from '../state/store';
 
 export type DataSource =
@@ -47,6 +48,14 @@ export type AssessmentState =
   | { status: 'cancelled'; runKey: string }
   | { status: 'failed'; runKey: string; problems: Problem[] };
 
+/** The retune maps of the last evaluation (runKey says which); computed on request only. */
+export type RetuneMapState =
+  | { status: 'idle' }
+  | { status: 'running'; runKey: string; progress: RetuneMapProgress | null }
+  | { status: 'done'; runKey: string; maps: RetuneMapResult[] }
+  | { status: 'cancelled'; runKey: string }
+  | { status: 'failed'; runKey: string; problems: Problem[] };
+
 export interface Notice {
   tone: 'info' | 'warning' | 'error';
   title: string;
@@ -66,6 +75,7 @@ export interface SessionState {
   run: RunState;
   evaluation: EvaluationRecord | null;
   assessment: AssessmentState;
+  retuneMaps: RetuneMapState;
   notice: Notice | null;
   recentProjects: string[];
 }
@@ -78,7 +88,7 @@ export interface SessionState {
 export function emptySession(recentProjects: string[] = [], previousSourceVersion = 0): SessionState {
   return {
     source: { kind: 'none' }, sourceVersion: previousSourceVersion + 1, dataMissing: false, inspection: null, dataProblems: [], importState: { status: 'idle' },
-    run: { status: 'idle' }, evaluation: null, assessment: { status: 'idle' }, notice: null, recentProjects,
+    run: { status: 'idle' }, evaluation: null, assessment: { status: 'idle' }, retuneMaps: { status: 'idle' }, notice: null, recentProjects,
   };
 }
 

@@ -5,7 +5,7 @@
  * request then resolves as cancelled.
  */
 import type { Problem } from '../../../core/result';
-import type { AssessRunProgress, ProgressOf, RunProgress, WorkerCall, WorkerCalls, WorkerReply, WorkerRequest, WorkerResult } from '../../../shared/workerMessages';
+import type { AssessRunProgress, ProgressOf, RetuneMapProgress, RunProgress, WorkerCall, WorkerCalls, WorkerReply, WorkerRequest, WorkerResult } from '../../../shared/workerMessages';
 
 /** The part of a Worker the client uses (a fake one in unit tests). */
 export interface WorkerPort {
@@ -24,7 +24,7 @@ export interface EvaluationClient {
 
 interface Pending {
   resolve: (result: WorkerResult) => void;
-  onProgress?: (progress: RunProgress | AssessRunProgress) => void;
+  onProgress?: (progress: RunProgress | AssessRunProgress | RetuneMapProgress) => void;
 }
 
 export const CANCELLED: Problem = { where: 'evaluation', message: 'cancelled before it finished; no results were kept' };
@@ -53,7 +53,7 @@ export function createEvaluationClient(factory: () => WorkerPort = createEvaluat
   function receive(reply: WorkerReply): void {
     const entry = pending.get(reply.id);
     if (!entry) return; // a reply to a request already resolved as cancelled
-    if (reply.kind === 'progress' || reply.kind === 'assessmentProgress') {
+    if (reply.kind !== 'result') {
       entry.onProgress?.(reply.progress);
       return;
     }

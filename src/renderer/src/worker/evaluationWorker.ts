@@ -12,6 +12,7 @@ import { inspectData } from './dataInspection';
 import { dataImportSummary } from './dataImportSummary';
 import { runAssessment } from './assessmentRun';
 import { runEvaluation } from './evaluationRun';
+import { runRetuneMaps } from './retuneMapRun';
 import { sliceFromFit, surfaceFromFit } from './fitQueries';
 import { createWorkerMemory } from './workerMemory';
 import { problemFromError } from './workerProblems';
@@ -49,6 +50,8 @@ async function answer(request: WorkerRequest): Promise<Result<unknown>> {
     case 'stopAssessment':
       memory.assessmentStop.requested = true;
       return success(null);
+    case 'retuneMaps':
+      return runRetuneMaps(memory, request.project, request.stopFlag, (progress) => post({ kind: 'retuneMapProgress', id: request.id, progress }));
   }
 }
 

@@ -1,16 +1,18 @@
 /**
  * Step 5, the findings: the cautions first, then each candidate's value beside today's with its
  * interval, the comparison, cross-checks, coverage and sensitivity of the assessment, the report,
+ * the retune maps (when the project has any),
  * the value surface, the action-value slice and the convergence of each fit, each with its export.
  */
 import { Cautions } from '../../components/Cautions';
 import { ProblemList } from '../../components/ProblemList';
-import { useSession, useStale } from '../../hooks';
+import { useDocument, useSession, useStale } from '../../hooks';
 import { useStore } from '../../state/useStore';
 import { themeStore, type Theme } from '../../theme';
 import type { AssessmentState } from '../../session/sessionStore';
 import { AssessmentPanel } from './AssessmentPanel';
 import { ConvergencePanel } from './ConvergencePanel';
+import { RetuneMapPanel } from './RetuneMapPanel';
 import { SlicePanel } from './SlicePanel';
 import { SurfacePanel } from './SurfacePanel';
 import { ValueComparison } from './ValueComparison';
@@ -26,6 +28,7 @@ export function FindingsScreen() {
   const theme = useStore(themeStore, same);
   const record = session.evaluation;
   const imported = session.importState.status === 'done' ? session.importState.result : null;
+  const hasMaps = (useDocument().retuneMaps ?? []).length > 0;
   return (
     <>
       <header>
@@ -48,6 +51,7 @@ export function FindingsScreen() {
           <div className="findings-grid" data-testid="findings-grid">
             <ValueComparison evaluation={record.evaluation} theme={theme} assessment={assessmentOf(session.assessment, record.runKey)} />
             <AssessmentPanel record={record} state={session.assessment} stale={stale} imported={imported} theme={theme} />
+            {hasMaps && <RetuneMapPanel record={record} state={session.retuneMaps} stale={stale} theme={theme} />}
             {imported && imported.stateNames.length >= 2 && <SurfacePanel evaluation={record.evaluation} imported={imported} theme={theme} restored={Boolean(record.restored)} />}
             {imported && !record.restored && <SlicePanel evaluation={record.evaluation} imported={imported} theme={theme} />}
             <ConvergencePanel evaluation={record.evaluation} theme={theme} />

@@ -1,0 +1,109 @@
+/**
+ * The retune map as a Chart.js chart. Two axes: a heat map of J over the grid (one cell per point,
+ * at its index, so a logarithmic axis gets equal cells), our colour bar on the right with the
+ * present controller's J marked across it, unsupported cells greyed and strongly hatched, thin-log
+ * cells lightly hatched, the best supported cell outlined, and a readout of each cell on hover.
+ * One axis: see retuneMapLine.ts.
+ */
+import type { ChartConfiguration, TooltipItem } from 'chart.js';
+import type { MapSupport, RetuneMapData } from './figureData';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
+import { colourBarPlugin } from '../parts/colourBar';
+import { createColourScale, parseColour, rgbText } from '../parts/colourScale';
+import { HATCH_DEFAULTS, LIGHT_HATCH } from '../parts/hatching';
+import { legendPlugin, type LegendKey } from '../parts/legendBox';
+import { mapCellLayout, shadeCount, type MapCellLayout } from '../parts/mapCells';
+import { drawOutline, GREY_OUT, mapCellLayerPlugin, mix } from '../parts/mapCellLayer';
+import { PRESENT_DASH_PX } from '../parts/plotTheme';
+import type { PlotLook } from '../parts/plotLook';
+import { plainText } from '../parts/richText';
+import { formatValue } from '../parts/tickFormat';
+import { retuneMapLineChart } from './retuneMapLine';
+import { betterWords, mapSubtitle, pointReadout, type RetuneMapPlotProps } from './retuneMapText';
+
+export type { RetuneMapPlotProps } from './retuneMapText';
+
+export const RETUNE_MAP_DEFAULTS = { heatHeightPx: 480, lineHeightPx: 380 } as const;
+
+type CellPoint = { x: number; y: number };
+
+export function retuneMapChart(props: RetuneMapPlotProps, look: PlotLook): ChartConfiguration {
+  if (props.map.axes.length === 1) return retuneMapLineChart(props, look) as unknown as ChartConfiguration;
+  return retuneMapHeatChart(props, look) as unknown as ChartConfiguration;
+}
+
+export function retuneMapHeatChart(props: RetuneMapPlotProps, look: PlotLook): ChartConfiguration<'scatter', CellPoint[]> {
+  const { map } = props, layout = mapCellLayout(map), [xAxis, yAxis] = map.axes;
+  const scale = createColourScale(layout.domainValues);
+  const shared = sharedOptions(look, props.title, mapSubtitle(props, 'Colour'));
+  const present = map.presentController;
+  const indexAxis = (values: readonly number[], position: 'bottom' | 'left') => {
+    const base = valueAxis(look, '', position, false);
+    return {
+      ...base, type: 'linear' as const, min: -0.5, max: values.length - 0.5,
+      ticks: { ...base.ticks, callback: (v: number | string) => (Number.isInteger(Number(v)) && values[Number(v)] !== undefined ? formatValue(values[Number(v)]) : '') },
+      // One tick at each cell centre (Chart.js would start its ticks at the axis minimum, a cell edge).
+      afterBuildTicks: (axis: { ticks: { value: number }[] }) => { axis.ticks = values.map((_, i) => ({ value: i })); },
+    };
+  };
+  return {
+    type: 'scatter',
+    data: { datasets: look.interactive ? [hoverCells(layout)] : [] },
+    plugins: [
+      mapCellLayerPlugin({ layout, scale, look }),
+      colourBarPlugin({ scale, label: props.valueLabel, look, ...(present === null ? {} : { reference: { value: present, colour: look.palette.text, dash: PRESENT_DASH_PX } }) }),
+      legendPlugin(heatKeys(layout, scale.colourAt(0.5), look), look),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: xAxis.label }, { scaleId: 'y', position: 'left', text: yAxis.label }]),
+    ],
+    options: {
+      ...shared,
+      parsing: false,
+      normalized: true,
+      interaction: { mode: 'nearest', intersect: false },
+      scales: { x: indexAxis(xAxis.values, 'bottom'), y: indexAxis(yAxis.values, 'left') },
+      plugins: {
+        ...shared.plugins,
+        legend: { display: false },
+        tooltip: { ...shared.plugins?.tooltip, displayColors: false, callbacks: { title: () => '', label: (item: TooltipItem<'scatter'>) => pointReadout(props, hoverOrder(layout)[item.dataIndex]) } },
+      },
+    },
+  };
+}
+
+/** Point indices in the order of the hover points: rows of the heat map (index row·columns + column), as the grid keys expect. */
+export function hoverOrder(layout: MapCellLayout): number[] {
+  const order: number[] = [];
+  for (let row = 0; row < layout.rows; row++) for (let column = 0; column < layout.columns; column++) order.push(column * layout.rows + row);
+  return order;
+}
+
+function hoverCells(layout: MapCellLayout) {
+  const data = hoverOrder(layout).map((p) => ({ x: layout.cells[p].column, y: layout.cells[p].row }));
+  return { label: 'cells', data, pointRadius: 0, pointHoverRadius: 0, pointHitRadius: 0 };
+}
+
+function heatKeys(layout: MapCellLayout, mid: readonly [number, number, number], look: PlotLook): LegendKey[] {
+  const p = look.palette, keys: LegendKey[] = [];
+  if (layout.best !== null) keys.push({ label: 'best supported point', kind: 'area', colour: rgbText(mid), overlay: (ctx, rect) => drawOutline(ctx, rect, look) });
+  if (shadeCount(layout, 'caution') > 0) keys.push({ label: 'thin logs (caution)', kind: 'hatch', colour: rgbText(mid), hatch: LIGHT_HATCH });
+  if (shadeCount(layout, 'unsupported') > 0) {
+    keys.push({ label: 'beyond the logs: not supported', kind: 'hatch', colour: rgbText(mix(mid, parseColour(p.noValue), GREY_OUT)), hatch: HATCH_DEFAULTS });
+  }
+  if (shadeCount(layout, 'noValue') > 0) keys.push({ label: 'no solution', kind: 'area', colour: p.noValue });
+  return keys;
+}
+
+export function retuneMapHeight(map: RetuneMapData): number {
+  return map.axes.length === 1 ? RETUNE_MAP_DEFAULTS.lineHeightPx : RETUNE_MAP_DEFAULTS.heatHeightPx;
+}
+
+/** Text alternative for screen readers and the figure's description. */
+export function retuneMapSummary(props: RetuneMapPlotProps): string {
+  const { map } = props, n = map.points.length;
+  const count = (s: MapSupport) => map.points.filter((p) => p.value !== null && p.support === s).length;
+  const over = map.axes.map((a) => `${plainText(a.label)} (${formatValue(a.values[0])} to ${formatValue(a.values[a.values.length - 1])})`).join(' and ');
+  const best = map.best ? `Best supported point: ${map.axes.map((a, i) => `${plainText(a.label)} ${formatValue(map.points[map.best!.index].coordinates[i])}`).join(', ')}, J ${formatValue(map.best.value)}.` : 'No point is both converged and supported by the logs.';
+  const present = map.presentController === null ? '' : ` Present controller: J ${formatValue(map.presentController)}.`;
+  return `${map.axes.length === 2 ? 'Heat map' : 'Curve'} of ${plainText(props.valueLabel)} (${betterWords(props.sense)}) over ${over}, ${n} points: `
+    + `${count(null)} supported by the logs, ${count('caution')} on thin logs, ${count('serious') + count('unknown')} beyond them (shaded). ${best}${present}`;
+}

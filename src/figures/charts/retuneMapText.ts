@@ -1,0 +1,47 @@
+/**
+ * The retune map's words, shared by its heat map and its curve: what a point's support means,
+ * which way is better, the line under the title, and the readout of one point.
+ */
+import type { MapSupport, RetuneMapData } from './figureData';
+import { PRESENT_CONTROLLER, type Theme } from '../parts/plotTheme';
+import { plainText } from '../parts/richText';
+import { formatValue } from '../parts/tickFormat';
+
+export interface RetuneMapPlotProps {
+  map: RetuneMapData;
+  /** What J is, with units, for the colour bar or value axis (e.g. "J, discounted cost (kWh)"). */
+  valueLabel: string;
+  sense: 'cost' | 'reward';
+  title: string;
+  theme: Theme;
+}
+
+/** The words for a point's support, the same levels as the candidates' (src/core/diagnostics/severity.ts). */
+export function supportWords(support: MapSupport): string {
+  if (support === null) return 'supported by the logs';
+  if (support === 'caution') return 'thin logs (caution)';
+  if (support === 'serious') return 'beyond the logs (serious)';
+  return 'support not known (no shift measure)';
+}
+
+export function betterWords(sense: 'cost' | 'reward'): string {
+  return sense === 'cost' ? 'lower is better' : 'higher is better';
+}
+
+/** The line under the title: what the colour or line means, and the present controller's J. */
+export function mapSubtitle(props: RetuneMapPlotProps, what: 'Colour' | 'Line'): string {
+  const present = props.map.presentController;
+  return `${what}: ${plainText(props.valueLabel)}, ${betterWords(props.sense)}`
+    + (present === null ? '' : `; ${PRESENT_CONTROLLER}: ${formatValue(present)}${what === 'Colour' ? ' (dashed on the colour bar)' : ' (dashed)'}`);
+}
+
+/** The readout of point p: its coordinates, J with its interval, its support and, when not converged, its fit status. */
+export function pointReadout(props: RetuneMapPlotProps, p: number): string[] {
+  const point = props.map.points[p];
+  const lines = props.map.axes.map((axis, a) => `${plainText(axis.label)}: ${formatValue(point.coordinates[a])}`);
+  const interval = point.interval ? ` [${formatValue(point.interval[0])}, ${formatValue(point.interval[1])}]` : '';
+  lines.push(point.value === null ? 'J: no solution' : `J: ${formatValue(point.value)}${interval}`, supportWords(point.support));
+  if (point.status !== 'converged') lines.push(`fit: ${point.status}`);
+  if (props.map.best?.index === p) lines.push('best supported point');
+  return lines;
+}

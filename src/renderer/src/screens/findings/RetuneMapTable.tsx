@@ -1,0 +1,79 @@
+/**
+ * Every point of a retune map as a table: for two axes a grid (rows the first axis, columns the
+ * second) with J in each cell, for one axis a list with the interval. Cells the logs do not support
+ * are greyed and marked †, thin-log cells marked *, the best supported cell bold; each cell's title
+ * gives its interval and support in words.
+ */
+import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
+import { supportWords } from '../../../../figures/charts/retuneMapText';
+import { CopyTable } from '../../components/CopyTable';
+import { RichText } from '../../components/RichText';
+import { formatNumber } from '../../format/numberFormat';
+import { intervalText } from './assessmentWords';
+import { richAxisLabel } from './retuneMapWords';
+
+type Point = RetuneMapResult['points'][number];
+
+const mark = (p: Point) => (p.value === null ? '' : p.support === null ? '' : p.support === 'caution' ? ' *' : ' †');
+const cellClass = (p: Point, best: boolean) => ['number', best ? 'map-best' : '', p.value !== null && p.support !== null && p.support !== 'caution' ? 'map-unsupported' : ''].join(' ').trim();
+const cellTitle = (p: Point) => `J ${p.value === null ? 'none' : formatNumber(p.value)} ${intervalText(p.interval)}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
+
+export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: string }) {
+  const best = map.best?.index ?? -1;
+  return (
+    <details className="details-section" data-testid={`${testId}-details`}>
+      <summary>Values at every point</summary>
+      <p className="small muted">J at each point; † beyond the logs (not supported), * thin logs (caution), bold the best supported point. Hover a cell for its interval.</p>
+      <div className="table-scroll">
+        {map.axes.length === 2 ? <GridTable map={map} best={best} testId={testId} /> : <ListTable map={map} best={best} testId={testId} />}
+      </div>
+      <CopyTable tableTestId={testId} fileBase="retune-map" />
+    </details>
+  );
+}
+
+function GridTable({ map, best, testId }: { map: RetuneMapResult; best: number; testId: string }) {
+  const [rows, columns] = map.axes, n = columns.values.length;
+  return (
+    <table data-testid={testId} className="map-table">
+      <caption className="small muted">Rows: <RichText text={richAxisLabel(rows.label)} />; columns: <RichText text={richAxisLabel(columns.label)} />.</caption>
+      <thead>
+        <tr>
+          <th scope="col" aria-label="row value" />
+          {columns.values.map((v) => <th key={v} scope="col" className="number">{formatNumber(v)}</th>)}
+        </tr>
+      </thead>
+      <tbody>
+        {rows.values.map((r, i) => (
+          <tr key={r}>
+            <th scope="row" className="number">{formatNumber(r)}</th>
+            {columns.values.map((c, j) => {
+              const p = map.points[i * n + j];
+              return <td key={c} className={cellClass(p, i * n + j === best)} title={cellTitle(p)}>{p.value === null ? '—' : formatNumber(p.value)}{mark(p)}</td>;
+            })}
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}
+
+function ListTable({ map, best, testId }: { map: RetuneMapResult; best: number; testId: string }) {
+  return (
+    <table data-testid={testId} className="map-table">
+      <thead>
+        <tr><th scope="col" className="number"><RichText text={richAxisLabel(map.axes[0].label)} /></th><th scope="col" className="number">J</th><th scope="col" className="number">Interval</th><th scope="col">Support</th></tr>
+      </thead>
+      <tbody>
+        {map.points.map((p, i) => (
+          <tr key={i} className={i === best ? 'map-best' : ''}>
+            <td className="number">{formatNumber(p.coordinates[0])}</td>
+            <td className={cellClass(p, false)}>{p.value === null ? '—' : formatNumber(p.value)}</td>
+            <td className="number">{intervalText(p.interval)}</td>
+            <td>{supportWords(p.support)}{p.status === 'converged' ? '' : ` (fit ${p.status})`}</td>
+          </tr>
+        ))}
+      </tbody>
+    </table>
+  );
+}

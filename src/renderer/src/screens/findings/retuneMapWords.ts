@@ -1,0 +1,43 @@
+/**
+ * The retune map in the engineer's words: axis labels with their subscripts typeset ("K_c" →
+ * K_{c}), the headline (best supported point with its J and interval, and the present
+ * controller's J), the progress line, and the name of a map in a chooser. Never a parameter path.
+ */
+import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
+import type { RetuneMapProgress } from '../../../../shared/workerMessages';
+import { formatDuration, formatNumber } from '../../format/numberFormat';
+import { intervalText } from './assessmentWords';
+
+/** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)": a one-letter symbol's subscript as markup. */
+export function richAxisLabel(label: string): string {
+  return label.replace(/\b([A-Za-z])_([A-Za-z0-9]+)\b/g, '$1_{$2}');
+}
+
+/** "proportional gain K_c (%/°C) = 90, integral time T_i (s) = 6,000" for point p. */
+export function pointText(map: RetuneMapResult, p: number): string {
+  return map.axes.map((axis, a) => `${axis.label} = ${formatNumber(map.points[p].coordinates[a])}`).join(', ');
+}
+
+export function headline(map: RetuneMapResult): string {
+  const present = map.presentController === null ? 'The present controller has no value to compare with.' : `Present controller: J ${formatNumber(map.presentController)}.`;
+  if (!map.best) return `No point of this map is both converged and supported by the logs. ${present}`;
+  const best = map.points[map.best.index], interval = best.interval ? ` ${intervalText(best.interval)}` : '';
+  return `Best supported point: ${pointText(map, map.best.index)}, J ${formatNumber(map.best.value)}${interval}. ${present}`;
+}
+
+/** "Map 1 of 2, point 37 of 100 (12 s)". */
+export function mapProgressLine(progress: RetuneMapProgress | null): string {
+  if (!progress) return 'Forming the sums shared by every point…';
+  const map = progress.maps > 1 ? `Map ${progress.map + 1} of ${progress.maps}, point` : 'Point';
+  return `${map} ${progress.pointsDone.toLocaleString('en-US')} of ${progress.pointsTotal.toLocaleString('en-US')} (${formatDuration(progress.elapsedMs)})…`;
+}
+
+export function mapFraction(progress: RetuneMapProgress | null): number {
+  if (!progress || progress.pointsTotal === 0) return 0;
+  return (progress.map + progress.pointsDone / progress.pointsTotal) / Math.max(1, progress.maps);
+}
+
+/** "PI (25 %/K, 30 min): proportional gain × integral time". */
+export function mapName(map: RetuneMapResult): string {
+  return `${map.candidate}: ${map.axes.map((a) => a.label.replace(/\s*\(.*\)$/, '')).join(' × ')}`;
+}
