@@ -10,6 +10,8 @@ export function policyValueData(evaluation: PolicyValueData): PolicyValueData {
   return {
     policies: evaluation.policies.map(({ name, policyValue, standardError, status }) => ({ name, policyValue, standardError, status })),
     behaviour: { value: evaluation.behaviour.value, standardError: evaluation.behaviour.standardError },
+    presentController: evaluation.presentController
+      ? { estimate: { policyValue: evaluation.presentController.estimate.policyValue, standardError: evaluation.presentController.estimate.standardError } } : null,
     valueSense: evaluation.valueSense,
   };
 }

@@ -36,7 +36,10 @@ export function evaluationFromJson(json: Record<string, unknown>): Evaluation | 
   if (json.valueSense !== 'cost' && json.valueSense !== 'reward') return null;
   const decoded = policies.map(policyFromJson);
   if (decoded.some((p) => p === null)) return null;
-  return { ...(json as unknown as Evaluation), policies: decoded as PolicyEstimate[] };
+  // Results saved by a version before the present controller's model was part of every run have no baseline: say so.
+  const presentController = (json.presentController ?? null) as Evaluation['presentController'];
+  const presentControllerReason = typeof json.presentControllerReason === 'string' ? json.presentControllerReason : 'these results were saved by an earlier version; run again for the comparable baseline';
+  return { ...(json as unknown as Evaluation), policies: decoded as PolicyEstimate[], presentController, presentControllerReason };
 }
 
 function policyFromJson(raw: unknown): PolicyEstimate | null {
@@ -52,7 +55,15 @@ function policyFromJson(raw: unknown): PolicyEstimate | null {
 /** The assessment from its JSON form (already plain data), or null. */
 export function assessmentFromJson(json: Record<string, unknown> | undefined): Assessment | null {
   if (!json || !Array.isArray(json.candidates) || !json.comparison || !json.settings) return null;
+  // An assessment saved by an earlier version lacks the baseline, the class verdict and the shift: not shown (a rerun computes them).
+  if (!('presentController' in json) || !json.candidates.every(hasCurrentShape)) return null;
   return json as unknown as Assessment;
+}
+
+function hasCurrentShape(raw: unknown): boolean {
+  const c = raw as Record<string, unknown> | null;
+  const d = c?.diagnostics as Record<string, unknown> | undefined;
+  return !!c && typeof c.confirmation === 'object' && c.confirmation !== null && 'reportedRange' in c && !!d && 'occupancyShift' in d;
 }
 
 /** After an import of the current data: show the kept results, current or marked out of date. */
