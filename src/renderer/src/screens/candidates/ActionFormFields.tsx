@@ -54,15 +54,13 @@ export function ActionFormFields({ doc, imported, index, action: a, problems, up
     const loop = form.loops[a];
     if (!loop) return <p className="error-text">No loop for this action yet; switch the form to start one.</p>;
     return (
-      <>
-        <div className="row">
+      <FeedbackFields doc={doc} path={loopPath} action={a} loop={loop} problems={problems}
+        edit={(label, f, key) => update(label, piLoop((l) => f(l)), `form.loops.${a}.${key}`)}
+        leading={
           <NumberField label={`Bias (${unit})`} value={loop.bias} message={problemAt(problems, `${loopPath}.bias`)}
             help="The output at zero error and zero integral, e.g. the opening that holds the setpoint."
             onCommit={(v) => v !== null && update('set the bias', piLoop((l) => ({ ...l, bias: v })), `form.loops.${a}.bias`)} onBlur={documents.closeStep} />
-        </div>
-        <FeedbackFields doc={doc} path={loopPath} action={a} loop={loop} problems={problems}
-          edit={(label, f, key) => update(label, piLoop((l) => f(l)), `form.loops.${a}.${key}`)} />
-      </>
+        } />
     );
   }
   const loop = form.loops[a];

@@ -28,9 +28,9 @@ interface Props {
 }
 
 const FORMS: readonly { value: FormKind; label: string }[] = [
-  { value: 'pi', label: 'P / PI loop on a setpoint error' },
-  { value: 'schedule', label: 'Schedule on one state (optional P/PI trim)' },
-  { value: 'affine', label: 'Affine: offset + gain × each state' },
+  { value: 'pi', label: 'P / PI loop' },
+  { value: 'schedule', label: 'Schedule (+ P/PI trim)' },
+  { value: 'affine', label: 'Affine in the states' },
 ];
 
 /** What each form means, in one line. */
@@ -85,8 +85,8 @@ export function CandidateEditor({ doc, imported, index, problems, colour, onDupl
         <p key={p.path + p.message} className="error-text" role="alert">{problemPlace(p.relative, actions.map((x) => x.column))}: {p.message}</p>
       ))}
       <div className="row">
-        <button onClick={onDuplicate}>Duplicate</button>
-        <button className="danger" onClick={() => documents.edit(`remove ${candidate.name}`, (d) => ({ ...d, candidates: d.candidates.filter((_, i) => i !== index) }))}>Remove</button>
+        <button onClick={onDuplicate}>Duplicate candidate</button>
+        <button className="danger" data-testid={`remove-candidate-${index}`} onClick={() => documents.edit(`remove ${candidate.name}`, (d) => ({ ...d, candidates: d.candidates.filter((_, i) => i !== index) }))}>Remove candidate</button>
       </div>
     </article>
   );

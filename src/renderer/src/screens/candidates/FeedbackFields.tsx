@@ -4,6 +4,7 @@
  * (none, integral time T_i or integral gain K_i) with its error-integral state, and direction.
  * Each field shows the project check's message for it.
  */
+import type { ReactNode } from 'react';
 import { NumberField } from '../../components/NumberField';
 import { SelectField } from '../../components/SelectField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
@@ -22,12 +23,14 @@ interface Props {
   loop: Feedback;
   problems: readonly FieldProblem[];
   edit: LoopEdit;
+  /** Fields placed before the direction and gain (a PI loop's bias). */
+  leading?: ReactNode;
 }
 
 const FIXED = '\u0000fixed';
 const NONE = '\u0000none';
 
-export function FeedbackFields({ doc, path, action, loop, problems, edit }: Props) {
+export function FeedbackFields({ doc, path, action, loop, problems, edit, leading }: Props) {
   const { documents } = useWorkspace();
   const states = doc.columns.states;
   const stateOptions = states.map((s) => ({ value: s.column, label: s.unit ? `${s.column} (${s.unit})` : s.column }));
@@ -51,20 +54,23 @@ export function FeedbackFields({ doc, path, action, loop, problems, edit }: Prop
           <NumberField label={`Setpoint value (${measurementUnit})`} value={loop.setpoint as number} message={at('setpoint')}
             onCommit={(v) => v !== null && edit('set the setpoint', (l) => ({ ...l, setpoint: v }), 'setpoint')} onBlur={documents.closeStep} />
         )}
+      </div>
+      <div className="row">
+        {leading}
         <SelectField label="Direction" value={loop.action} message={at('action')}
           options={[
-            { value: 'reverse', label: 'Reverse: output rises below the setpoint' },
-            { value: 'direct', label: 'Direct: output rises above the setpoint' },
+            { value: 'reverse', label: 'Reverse (e.g. heating)' },
+            { value: 'direct', label: 'Direct (e.g. cooling)' },
           ]}
           help={loop.action === 'reverse'
             ? 'Reverse: the output rises when the measurement is below the setpoint (e.g. heating).'
             : 'Direct: the output rises when the measurement is above the setpoint (e.g. cooling).'}
           onChange={(dir) => edit('change the direction', (l) => ({ ...l, action: dir }), 'action')} />
+        <NumberField label={`Proportional gain K_c (${actionUnit} per ${measurementUnit})`} value={loop.proportionalGain} message={at('proportionalGain')}
+          help="0 or more; the direction sets the sign."
+          onCommit={(v) => v !== null && edit('set the proportional gain', (l) => ({ ...l, proportionalGain: v }), 'proportionalGain')} onBlur={documents.closeStep} />
       </div>
       <div className="row">
-        <NumberField label={`Proportional gain K_c (${actionUnit} per ${measurementUnit})`} value={loop.proportionalGain} message={at('proportionalGain')}
-          help="0 or more; the direction above sets the sign."
-          onCommit={(v) => v !== null && edit('set the proportional gain', (l) => ({ ...l, proportionalGain: v }), 'proportionalGain')} onBlur={documents.closeStep} />
         <SelectField<IntegralMode> label="Integral action" value={mode} message={mode === 'gain' ? null : at('integralGain')}
           options={[
             { value: 'none', label: 'None (P only)' },

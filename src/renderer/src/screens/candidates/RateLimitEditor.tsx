@@ -29,15 +29,16 @@ export function RateLimitEditor({ doc, index, problems }: { doc: ProjectDocument
         const step = rate?.maxStep[a] ?? null;
         const previous = rate?.previousAction[a] ?? null;
         const unit = action.unit || 'units';
+        const of = doc.columns.actions.length > 1 ? ` of ${action.column}` : '';
         return (
           <div key={action.column}>
             <div className="row">
-              <NumberField label={`Largest step of ${action.column} per sample (${unit})`} value={step} allowBlank placeholder="none"
+              <NumberField label={`Largest step${of} per sample (${unit})`} value={step} allowBlank placeholder="none"
                 help="Blank: no rate limit." message={problemAt(problems, `${path}.maxStep.${a}`)}
                 onCommit={(v) => set('set the rate limit', a, { maxStep: v }, `maxStep.${a}`)} onBlur={documents.closeStep} />
-              <SelectField label={`Previous ${action.column} state`} value={previous ?? NONE} message={problemAt(problems, `${path}.previousAction.${a}`)}
+              <SelectField label={`Previous-action state${of}`} value={previous ?? NONE} message={problemAt(problems, `${path}.previousAction.${a}`)}
                 options={[{ value: NONE, label: 'Not chosen' }, ...stateOptions]}
-                help="The state holding this action’s value one sample earlier."
+                help={`The state holding ${action.column} one sample earlier.`}
                 onChange={(v) => set('choose the previous-action state', a, { previousAction: v === NONE ? null : v }, `previousAction.${a}`)} />
             </div>
             {step !== null && previousActionState(doc, action.column) === null && (

@@ -76,8 +76,11 @@ export function ScheduleFields({ doc, imported, path, action, loop, problems, ed
         Add a P/PI trim on a setpoint error (added to the scheduled output)
       </label>
       {trim && (
-        <FeedbackFields doc={doc} path={`${path}.feedback`} action={action} loop={trim} problems={problems}
-          edit={(label, f, key) => edit(label, (l) => (l.feedback ? { ...l, feedback: f(l.feedback) } : l), `feedback.${key}`)} />
+        <fieldset className="trim-loop">
+          <legend>Trim on {trim.measurement}</legend>
+          <FeedbackFields doc={doc} path={`${path}.feedback`} action={action} loop={trim} problems={problems}
+            edit={(label, f, key) => edit(label, (l) => (l.feedback ? { ...l, feedback: f(l.feedback) } : l), `feedback.${key}`)} />
+        </fieldset>
       )}
     </>
   );
