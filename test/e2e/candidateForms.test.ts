@@ -67,7 +67,7 @@ describe('candidate forms in the editor (e2e)', () => {
           await card.scrollIntoViewIfNeeded();
           await card.screenshot({ path: join(SCREENS, `candidate-forms-${i}-${size.width}-${theme}.png`), style: UNSTICK });
         }
-        await page.getByTestId('candidate-0').scrollIntoViewIfNeeded();
+        await page.evaluate(() => window.scrollTo(0, 0));
         await page.screenshot({ path: join(SCREENS, `candidate-forms-${size.width}-${theme}-window.png`) });
       }
     }
@@ -100,6 +100,8 @@ describe('candidate forms in the editor (e2e)', () => {
     await card.getByLabel('Measurement').selectOption('outdoor_temp_c');
     await card.getByTestId('integral-state-hint').waitFor();
     await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBeGreaterThan(0);
+    expect(await card.innerText()).not.toMatch(/form\.loops|candidates\.\d/);
+    await card.screenshot({ path: join(SCREENS, 'candidate-forms-problem.png'), style: UNSTICK });
     await card.getByLabel('Measurement').selectOption('zone_temp_c');
     await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
     await fill(card.getByLabel('Dither, standard deviation (%)'), '3');

@@ -174,3 +174,11 @@ describe('schedule rows and problem places', () => {
     expect(shownBesideField('form.loops.0.feedback.integralState')).toBe(true);
   });
 });
+
+describe('a fixed setpoint to start from', () => {
+  it('is the error integral’s setpoint of the measurement, or 0', async () => {
+    const { fixedSetpointFor } = await import('../../../src/renderer/src/screens/candidates/formDrafts');
+    expect(fixedSetpointFor(heating(), 'zone_temp_c')).toBe(21);
+    expect(fixedSetpointFor(heating(), 'outdoor_temp_c')).toBe(0);
+  });
+});

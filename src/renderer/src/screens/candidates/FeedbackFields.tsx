@@ -10,7 +10,7 @@ import { SelectField } from '../../components/SelectField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import type { ProjectDocument } from '../../../../project/schema';
 import { useWorkspace } from '../../WorkspaceContext';
-import { errorIntegralsFor, integralMode, withIntegralMode, type Feedback, type IntegralMode } from './formDrafts';
+import { errorIntegralsFor, fixedSetpointFor, integralMode, withIntegralMode, type Feedback, type IntegralMode } from './formDrafts';
 
 /** An edit of the loop that keeps whatever else the loop carries (a PI loop's bias). */
 export type LoopEdit = (label: string, f: <L extends Feedback>(loop: L) => L, key: string) => void;
@@ -49,7 +49,7 @@ export function FeedbackFields({ doc, path, action, loop, problems, edit, leadin
         <SelectField label="Setpoint" value={fixed ? FIXED : String(loop.setpoint)}
           options={[{ value: FIXED, label: 'A fixed value' }, ...stateOptions]} message={typeof loop.setpoint === 'string' ? at('setpoint') : null}
           help="A constant, or a state column that carries the setpoint."
-          onChange={(v) => edit('choose the setpoint', (l) => ({ ...l, setpoint: v === FIXED ? 0 : v }), 'setpoint')} />
+          onChange={(v) => edit('choose the setpoint', (l) => ({ ...l, setpoint: v === FIXED ? fixedSetpointFor(doc, l.measurement) : v }), 'setpoint')} />
         {fixed && (
           <NumberField label={`Setpoint value (${measurementUnit})`} value={loop.setpoint as number} message={at('setpoint')}
             onCommit={(v) => v !== null && edit('set the setpoint', (l) => ({ ...l, setpoint: v }), 'setpoint')} onBlur={documents.closeStep} />

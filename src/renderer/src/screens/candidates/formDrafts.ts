@@ -45,6 +45,12 @@ export function previousActionState(doc: ProjectDocument, actionColumn: string):
   return derivedStates(doc).find((d) => d.kind === 'previous' && d.source === actionColumn && states.has(d.name))?.name ?? null;
 }
 
+/** A fixed setpoint to start from for a measurement: its error integral's constant setpoint, or 0. */
+export function fixedSetpointFor(doc: ProjectDocument, measurement: string): number {
+  const integral = derivedStates(doc).find((d) => d.kind === 'errorIntegral' && d.measurement === measurement && typeof d.setpoint === 'number');
+  return integral?.kind === 'errorIntegral' && typeof integral.setpoint === 'number' ? integral.setpoint : 0;
+}
+
 /** Plain feedback on a measurement: setpoint from its error integral (or its logged mean), gain 0, P only, reverse. */
 export function defaultFeedback(doc: ProjectDocument, imported: DataImport | null, measurement = firstMeasuredState(doc)): Feedback {
   const integral = derivedStates(doc).find((d) => d.kind === 'errorIntegral' && d.measurement === measurement);
