@@ -109,6 +109,11 @@ describe('candidate forms in the editor (e2e)', () => {
     await fill(card.getByLabel('Lowest heating_valve_pct (%)'), '0');
     await fill(card.getByLabel('Highest heating_valve_pct (%)'), '100');
     await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
+    // A rate limit: the previous-action state is filled in from the project's derived states.
+    await card.getByLabel('The output may move only so far per sample').check();
+    await fill(card.getByLabel('Largest step per sample (%)'), '4');
+    expect(await card.getByLabel('Previous-action state').inputValue()).toBe('valve_prev_pct');
+    await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
     await card.screenshot({ path: join(SCREENS, 'candidate-forms-new-pi.png'), style: UNSTICK });
   });
 

@@ -12,8 +12,8 @@ import { parseProjectText } from '../../../src/project/projectFile';
 import type { CandidateSpec, ProjectDocument } from '../../../src/project/schema';
 import { projectProblems } from '../../../src/renderer/src/document/projectProblems';
 import {
-  defaultFeedback, defaultPiForm, defaultScheduleForm, errorIntegralsFor, firstMeasuredState, integralMode,
-  previousActionState, withFormKind, withIntegralMode, withRateLimit, type PiLoop,
+  defaultFeedback, defaultPiForm, defaultScheduleForm, errorIntegralsFor, firstMeasuredState, fixedSetpointFor, integralMode,
+  previousActionState, withFormKind, withIntegralMode, withoutRateLimit, withRateLimit, type PiLoop,
 } from '../../../src/renderer/src/screens/candidates/formDrafts';
 import { withRowAdded, withRowRemoved } from '../../../src/renderer/src/screens/candidates/scheduleRows';
 import { problemPlace, shownBesideField } from '../../../src/renderer/src/screens/candidates/candidateProblemPlaces';
@@ -176,9 +176,15 @@ describe('schedule rows and problem places', () => {
 });
 
 describe('a fixed setpoint to start from', () => {
-  it('is the error integral’s setpoint of the measurement, or 0', async () => {
-    const { fixedSetpointFor } = await import('../../../src/renderer/src/screens/candidates/formDrafts');
+  it('is the error integral’s setpoint of the measurement, or 0', () => {
     expect(fixedSetpointFor(heating(), 'zone_temp_c')).toBe(21);
     expect(fixedSetpointFor(heating(), 'outdoor_temp_c')).toBe(0);
+  });
+});
+
+describe('removing a rate limit', () => {
+  it('keeps everything else', () => {
+    const limited = { ...affineCandidate, rateLimit: { maxStep: [2], previousAction: ['valve_prev_pct'] } };
+    expect(withoutRateLimit(limited)).toEqual(affineCandidate);
   });
 });

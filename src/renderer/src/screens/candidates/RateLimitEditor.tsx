@@ -2,12 +2,13 @@
  * A candidate's rate limit: per action the largest step per sample (blank = none), applied as a
  * clip around the previous action, and the state that carries the previous action.
  */
+import { useState } from 'react';
 import { NumberField } from '../../components/NumberField';
 import { SelectField } from '../../components/SelectField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import type { ProjectDocument } from '../../../../project/schema';
 import { useWorkspace } from '../../WorkspaceContext';
-import { previousActionState, withRateLimit } from './formDrafts';
+import { previousActionState, withoutRateLimit, withRateLimit } from './formDrafts';
 
 const NONE = '\u0000none';
 
@@ -16,6 +17,9 @@ export function RateLimitEditor({ doc, index, problems }: { doc: ProjectDocument
   const candidate = doc.candidates[index];
   const path = `candidates.${index}.rateLimit`;
   const rate = candidate.rateLimit;
+  // Open while the engineer is writing one; a rate limit with no step and no state is not kept in the document.
+  const [open, setOpen] = useState(rate !== undefined);
+  const shown = open || rate !== undefined;
   const stateOptions = doc.columns.states.map((s) => ({ value: s.column, label: s.unit ? `${s.column} (${s.unit})` : s.column }));
   const set = (label: string, a: number, change: { maxStep?: number | null; previousAction?: string | null }, key: string): void =>
     documents.edit(`${label} of ${candidate.name}`, (d) => ({
@@ -24,8 +28,19 @@ export function RateLimitEditor({ doc, index, problems }: { doc: ProjectDocument
   return (
     <fieldset>
       <legend>Rate limit</legend>
-      <p className="small muted">|output − previous output| ≤ the largest step, per sample; the output is clipped to that band around the previous action.</p>
-      {doc.columns.actions.map((action, a) => {
+      <label className="choice">
+        <input type="checkbox" checked={shown} onChange={(e) => {
+          setOpen(e.target.checked);
+          if (!e.target.checked && rate) {
+            documents.edit(`remove the rate limit of ${candidate.name}`, (d) => ({
+              ...d, candidates: d.candidates.map((c, i) => (i === index ? withoutRateLimit(c) : c)),
+            }));
+          }
+        }} />
+        The output may move only so far per sample
+      </label>
+      {shown && <p className="small muted">|output − previous output| ≤ the largest step, per sample; the output is clipped to that band around the previous action.</p>}
+      {shown && doc.columns.actions.map((action, a) => {
         const step = rate?.maxStep[a] ?? null;
         const previous = rate?.previousAction[a] ?? null;
         const unit = action.unit || 'units';

@@ -179,3 +179,8 @@ export function withRateLimit(
   if (maxStep.every((s) => s === null) && previousAction.every((p) => p === null)) return rest;
   return { ...rest, rateLimit: { maxStep, previousAction } };
 }
+
+export function withoutRateLimit(candidate: CandidateSpec): CandidateSpec {
+  const { rateLimit: _old, ...rest } = candidate;
+  return rest;
+}
