@@ -30,15 +30,15 @@ export function CandidatesScreen(props: { onNext: () => void }) {
       <header>
         <h2>Candidates</h2>
         <p>
-          Each candidate is a control policy for the setpoint or valve: its mean action is an offset plus a gain on each state, with a small random
-          dither around it (a Gaussian policy), and optionally actuator limits. Define as many as you want to compare; each is evaluated against the same log.
+          Each candidate is a control policy for the setpoint or valve: its mean action is written as a P/PI loop, a schedule on one state, or an offset plus a gain on each state, with a small random
+          dither around it (a Gaussian policy), and optionally actuator limits and a rate limit. Define as many as you want to compare; each is evaluated against the same log.
         </p>
       </header>
       {!ready && <p className="problems info">Give columns the roles “state” and “action” on the Plant log step first.</p>}
       {ready && (
         <>
           {doc.candidates.map((_, i) => (
-            <CandidateEditor key={i} doc={doc} index={i} problems={problems} colour={candidateColour(i)}
+            <CandidateEditor key={i} doc={doc} imported={imported} index={i} problems={problems} colour={candidateColour(i)}
               onDuplicate={() => add('duplicate a candidate', () => duplicateCandidate(doc, doc.candidates[i]))} />
           ))}
           <p className="row">

@@ -1,0 +1,137 @@
+/**
+ * Writing candidates in the trade's forms in the app, on the heating-loop sample (PI, schedule with
+ * a P trim, rate-limited PI): the editor shows each form's fields in words with no field paths;
+ * screenshots in both themes at 1280 × 800 and 1920 × 1080 go to test-artifacts/screens/. Then a
+ * new PI candidate is written through the editor (form switch undone and redone from the keyboard,
+ * a hint where the project lacks the error integral), run, and its J read in Findings.
+ */
+import { copyFile } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import type { Locator } from 'playwright-core';
+import { POLL } from './harness/poll';
+import { launchApp, type LaunchedApp } from './harness/launch';
+import { goToStep } from '../renderer/e2e/appSteps';
+
+const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
+const SAMPLE = resolve(__dirname, '../../sample-projects/heating-loop');
+/** The toolbar sticks to the top of the window; in a screenshot of one card it would cover the card's first row. */
+const UNSTICK = '.toolbar { position: static !important; }';
+
+async function fill(field: Locator, value: string): Promise<void> {
+  await field.fill(value);
+  await field.blur();
+}
+
+describe('candidate forms in the editor (e2e)', () => {
+  let app: LaunchedApp;
+  beforeAll(async () => {
+    app = await launchApp({ viewport: { width: 1280, height: 800 } });
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('shows the sample’s PI, schedule and rate-limited candidates in words', async () => {
+    const { page, harness } = app;
+    const projectPath = join(harness.workFolder, 'heating-loop.spcritic');
+    await copyFile(join(SAMPLE, 'heating-loop.csv'), join(harness.workFolder, 'heating-loop.csv'));
+    await copyFile(join(SAMPLE, 'heating-loop.spcritic'), projectPath);
+    harness.dialogs.nextOpenProject = projectPath;
+    await page.getByTestId('open-project').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
+    await goToStep(page, 'candidates');
+    const [pi, schedule, limited] = [0, 1, 2].map((i) => page.getByTestId(`candidate-${i}`));
+    expect(await page.getByTestId('candidate-form-0').inputValue()).toBe('pi');
+    expect(await page.getByTestId('candidate-form-1').inputValue()).toBe('schedule');
+    expect(await pi.getByLabel('Proportional gain K_c (% per °C)').inputValue()).toBe('25');
+    expect(await pi.getByLabel('Integral time T_i (s)').inputValue()).toBe('1800');
+    expect(await pi.getByLabel('Error-integral state').inputValue()).toBe('zone_error_integral');
+    expect(await schedule.getByLabel('Output at breakpoint 3 (%)').inputValue()).toBe('82.7');
+    expect(await schedule.getByLabel('Add a P/PI trim').isChecked()).toBe(true);
+    expect(await limited.getByLabel('Largest step per sample (%)').inputValue()).toBe('2');
+    expect(await limited.getByLabel('Previous-action state').inputValue()).toBe('valve_prev_pct');
+    const text = await page.locator('body').innerText();
+    expect(text).not.toMatch(/form\.loops|candidates\.\d|proportionalGain|integralTimeSeconds/);
+    expect(await page.locator('[data-testid^="candidate-"] [role="alert"]').count()).toBe(0);
+  });
+
+  it('screens of the editor in both themes at 1280 × 800 and 1920 × 1080', async () => {
+    const { page } = app;
+    for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
+      await page.setViewportSize(size);
+      for (const theme of ['light', 'dark']) {
+        if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
+        for (const i of [0, 1, 2]) {
+          const card = page.getByTestId(`candidate-${i}`);
+          await card.scrollIntoViewIfNeeded();
+          await card.screenshot({ path: join(SCREENS, `candidate-forms-${i}-${size.width}-${theme}.png`), style: UNSTICK });
+        }
+        await page.evaluate(() => window.scrollTo(0, 0));
+        await page.screenshot({ path: join(SCREENS, `candidate-forms-${size.width}-${theme}-window.png`) });
+      }
+    }
+    await page.setViewportSize({ width: 1280, height: 800 });
+    if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== 'light') await page.getByTestId('toggle-theme').click();
+  });
+
+  it('writes a new PI candidate through the editor', async () => {
+    const { page } = app;
+    // Keep the run short: the sample's PI (its retune map names it) and the new candidate.
+    for (let k = 0; k < 2; k++) await page.getByTestId('remove-candidate-1').click();
+    await page.getByTestId('add-candidate').click();
+    const card = page.getByTestId('candidate-1');
+    await fill(card.getByLabel('Name', { exact: true }), 'PI from the editor');
+    await page.getByTestId('candidate-form-1').selectOption('pi');
+    await expect.poll(() => page.getByTestId('candidate-form-meaning-1').innerText(), POLL).toContain('K_c/T_i');
+    // The form switch is one undo step, and the name is kept across it.
+    await page.getByTestId('step-candidates').focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('candidate-form-1').inputValue(), POLL).toBe('affine');
+    await page.keyboard.press('Control+Shift+z');
+    await expect.poll(() => page.getByTestId('candidate-form-1').inputValue(), POLL).toBe('pi');
+    expect(await card.getByLabel('Name', { exact: true }).inputValue()).toBe('PI from the editor');
+    await fill(card.getByLabel('Bias (%)'), '82.7');
+    await fill(card.getByLabel('Proportional gain K_c (% per °C)'), '20');
+    await card.getByLabel('Integral action').selectOption('time');
+    await fill(card.getByLabel('Integral time T_i (s)'), '2400');
+    expect(await card.getByLabel('Error-integral state').inputValue()).toBe('zone_error_integral');
+    // An error integral of another measurement: the check's message stands beside the field, and a hint names what is missing.
+    await card.getByLabel('Measurement').selectOption('outdoor_temp_c');
+    await card.getByTestId('integral-state-hint').waitFor();
+    await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBeGreaterThan(0);
+    expect(await card.innerText()).not.toMatch(/form\.loops|candidates\.\d/);
+    await card.screenshot({ path: join(SCREENS, 'candidate-forms-problem.png'), style: UNSTICK });
+    await card.getByLabel('Measurement').selectOption('zone_temp_c');
+    await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
+    await fill(card.getByLabel('Dither, standard deviation (%)'), '3');
+    await card.getByLabel('The actuator has limits').check();
+    await fill(card.getByLabel('Lowest heating_valve_pct (%)'), '0');
+    await fill(card.getByLabel('Highest heating_valve_pct (%)'), '100');
+    await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
+    // A rate limit: the previous-action state is filled in from the project's derived states.
+    await card.getByLabel('The output may move only so far per sample').check();
+    await fill(card.getByLabel('Largest step per sample (%)'), '4');
+    expect(await card.getByLabel('Previous-action state').inputValue()).toBe('valve_prev_pct');
+    await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
+    await card.screenshot({ path: join(SCREENS, 'candidate-forms-new-pi.png'), style: UNSTICK });
+  });
+
+  it('runs it and shows its J in Findings', async () => {
+    const { page } = app;
+    await goToStep(page, 'run');
+    await page.getByTestId('run-evaluation').click();
+    await page.getByTestId('run-finished').waitFor({ timeout: 180_000 });
+    await goToStep(page, 'findings');
+    await page.getByTestId('value-table').waitFor();
+    expect(await page.getByTestId('value-table').innerText()).toContain('PI from the editor');
+    const values = [0, 1].map(async (i) => Number(await page.getByTestId(`policy-value-${i}`).getAttribute('data-value')));
+    expect((await Promise.all(values)).every(Number.isFinite)).toBe(true);
+    await expect.poll(() => page.getByTestId('policy-value-1').locator('xpath=ancestor::tr').innerText(), POLL).toContain('PI from the editor');
+    await app.screenshot('candidate-forms-findings');
+  }, 240_000);
+
+  it('logged no console errors', () => {
+    expect(app.consoleErrors).toEqual([]);
+  });
+});
