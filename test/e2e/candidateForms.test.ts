@@ -5,16 +5,15 @@
  * new PI candidate is written through the editor (form switch undone and redone from the keyboard,
  * a hint where the project lacks the error integral), run, and its J read in Findings.
  */
-import { copyFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Locator } from 'playwright-core';
 import { POLL } from './harness/poll';
+import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { goToStep } from '../renderer/e2e/appSteps';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
-const SAMPLE = resolve(__dirname, '../../sample-projects/heating-loop');
 /** The toolbar sticks to the top of the window; in a screenshot of one card it would cover the card's first row. */
 const UNSTICK = '.toolbar { position: static !important; }';
 
@@ -33,13 +32,8 @@ describe('candidate forms in the editor (e2e)', () => {
   });
 
   it('shows the sample’s PI, schedule and rate-limited candidates in words', async () => {
-    const { page, harness } = app;
-    const projectPath = join(harness.workFolder, 'heating-loop.spcritic');
-    await copyFile(join(SAMPLE, 'heating-loop.csv'), join(harness.workFolder, 'heating-loop.csv'));
-    await copyFile(join(SAMPLE, 'heating-loop.spcritic'), projectPath);
-    harness.dialogs.nextOpenProject = projectPath;
-    await page.getByTestId('open-project').click();
-    await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
+    const { page } = app;
+    await openSample(app, 'heating-loop');
     await goToStep(page, 'candidates');
     const [pi, schedule, limited] = [0, 1, 2].map((i) => page.getByTestId(`candidate-${i}`));
     expect(await page.getByTestId('candidate-form-0').inputValue()).toBe('pi');

@@ -5,16 +5,16 @@
  * the map is drawn with its headline, notes and table, and exports as PNG. Screenshots of the panel
  * in both themes at 1280 × 800 and 1920 × 1080 go to test-artifacts/screens/.
  */
-import { copyFile, readFile } from 'node:fs/promises';
+import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
 import { drawnPixels } from './harness/drawnPixels';
+import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { decodedPngContent, goToStep, pngSize } from '../renderer/e2e/appSteps';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
-const SAMPLE = resolve(__dirname, '../../sample-projects/heating-loop');
 
 describe('the retune map in the app (e2e)', () => {
   let app: LaunchedApp;
@@ -26,13 +26,8 @@ describe('the retune map in the app (e2e)', () => {
   });
 
   it('computes the map after a run, with progress and a cancel that keeps the run', async () => {
-    const { page, harness } = app;
-    const projectPath = join(harness.workFolder, 'heating-loop.spcritic');
-    await copyFile(join(SAMPLE, 'heating-loop.csv'), join(harness.workFolder, 'heating-loop.csv'));
-    await copyFile(join(SAMPLE, 'heating-loop.spcritic'), projectPath);
-    harness.dialogs.nextOpenProject = projectPath;
-    await page.getByTestId('open-project').click();
-    await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
+    const { page } = app;
+    await openSample(app, 'heating-loop');
     await goToStep(page, 'run');
     await page.getByTestId('run-evaluation').click();
     await page.getByTestId('run-finished').waitFor({ timeout: 180_000 });

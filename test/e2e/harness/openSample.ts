@@ -1,0 +1,18 @@
+/**
+ * Open one of the sample projects in the app under test: copy its CSV and project file into the
+ * harness's work folder, script the Open dialog to answer with it, and wait for the import summary.
+ */
+import { copyFile } from 'node:fs/promises';
+import { join, resolve } from 'node:path';
+import type { LaunchedApp } from './launch';
+
+export async function openSample(app: LaunchedApp, sample: string): Promise<string> {
+  const { page, harness } = app, folder = resolve(__dirname, '../../../sample-projects', sample);
+  const projectPath = join(harness.workFolder, `${sample}.spcritic`);
+  await copyFile(join(folder, `${sample}.csv`), join(harness.workFolder, `${sample}.csv`));
+  await copyFile(join(folder, `${sample}.spcritic`), projectPath);
+  harness.dialogs.nextOpenProject = projectPath;
+  await page.getByTestId('open-project').click();
+  await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
+  return projectPath;
+}
