@@ -71,6 +71,12 @@ describe('candidate forms in the editor (e2e)', () => {
 
   it('writes a new PI candidate through the editor', async () => {
     const { page } = app;
+    // Renaming the candidate the sample's retune map names leaves the map pointing nowhere: the step says so, and undo mends it.
+    await fill(page.getByTestId('candidate-0').getByLabel('Name', { exact: true }), 'PI renamed');
+    await expect.poll(() => page.getByTestId('retune-map-problems').innerText(), POLL).toMatch(/no candidate is named "PI \(25 %\/K, 30 min\)"/);
+    await page.getByTestId('step-candidates').focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('retune-map-problems').count(), POLL).toBe(0);
     // Keep the run short: the sample's PI (its retune map names it) and the new candidate.
     for (let k = 0; k < 2; k++) await page.getByTestId('remove-candidate-1').click();
     await page.getByTestId('add-candidate').click();

@@ -4,6 +4,7 @@ import { SelectField } from '../../components/SelectField';
 import { candidateColour } from '../../format/candidatePalette';
 import { useDocument, useProblems, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
+import { problemsUnder } from '../../document/projectProblems';
 import { BehaviourModelPanel } from './BehaviourModelPanel';
 import { CandidateChart } from './CandidateChart';
 import { CandidateEditor } from './CandidateEditor';
@@ -15,6 +16,7 @@ export function CandidatesScreen(props: { onNext: () => void }) {
   const { documents } = useWorkspace();
   const doc = useDocument();
   const problems = useProblems();
+  const mapProblems = problemsUnder(problems, 'retuneMaps');
   const importState = useSession().importState;
   const imported = importState.status === 'done' ? importState.result : null;
   const [axis, setAxis] = useState(0);
@@ -44,6 +46,13 @@ export function CandidatesScreen(props: { onNext: () => void }) {
           <p className="row">
             <button className="primary" onClick={() => add('add a candidate', () => plainCandidate(doc, imported))} data-testid="add-candidate">Add a candidate</button>
           </p>
+          {mapProblems.length > 0 && (
+            // A retune map names a candidate: renaming or removing it leaves the map pointing nowhere, which blocks a run.
+            <div className="problems error" role="alert" data-testid="retune-map-problems">
+              <p>The project’s retune maps no longer fit the candidates (a map names one by its name; the maps are written in the project file):</p>
+              <ul>{mapProblems.map((p) => <li key={`${p.path}|${p.message}`}>{p.message}</li>)}</ul>
+            </div>
+          )}
           {imported && shapesMatch && (
             <div className="grid-2">
               <section className="panel" aria-labelledby="chart-heading">
