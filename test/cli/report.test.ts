@@ -33,7 +33,7 @@ describe('report command', () => {
     const html = await readFile(out, 'utf8');
     expect(html.startsWith('<!DOCTYPE html>')).toBe(true);
     for (const id of ['job', 'data', 'settings', 'comparison', 'surfaces', 'slices', 'diagnostics', 'cross-checks', 'sensitivity', 'cautions']) expect(html).toContain(`<section id="${id}">`);
-    expect(html).toContain('2026-01-01T00:00:00.000Z');
+    expect(html).toContain('<time datetime="2026-01-01T00:00:00.000Z">1 January 2026, 00:00 UTC</time>'); // a date a reader reads, the ISO time for machines
   });
 
   it('names a missing project file (exit 1) and a bad number of resamples (exit 2)', async () => {

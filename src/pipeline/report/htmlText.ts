@@ -35,8 +35,23 @@ function piece(v: string | number | Html | Html[] | null | undefined): string {
 export function formatNumber(v: number | null | undefined, digits = 6): string {
   if (v === null || v === undefined || !Number.isFinite(v)) return '—';
   const magnitude = Math.abs(v);
-  if (magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return v.toExponential(Math.max(1, digits - 3));
-  return v.toPrecision(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+  if (magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return trueMinus(v.toExponential(Math.max(1, digits - 3)));
+  return trueMinus(v.toPrecision(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, ''));
+}
+
+/** The minus sign (U+2212) for the hyphen-minus in a number, as typesetting does (common practice). */
+function trueMinus(text: string): string {
+  return text.replace(/-/g, '\u2212');
+}
+
+const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
+
+/** "2 December 2026, 14:41 UTC" from an ISO 8601 time; the text itself when it is not one. */
+export function formatWrittenAt(iso: string): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  const two = (n: number) => String(n).padStart(2, '0');
+  return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}, ${two(d.getUTCHours())}:${two(d.getUTCMinutes())} UTC`;
 }
 
 export function formatInterval(iv: readonly [number, number] | null, digits = 4): string {

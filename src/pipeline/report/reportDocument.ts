@@ -4,7 +4,7 @@
  * Section ids (job, data, settings, comparison, surfaces, slices, diagnostics, cross-checks,
  * sensitivity, retune-maps, cautions) are stable so hosts and tests can find them.
  */
-import { html, raw } from './htmlText';
+import { formatWrittenAt, html, raw } from './htmlText';
 import { comparisonSection } from './reportComparison';
 import { cautionsSection, crossChecksSection, diagnosticsSection, sensitivitySection } from './reportEvidence';
 import { slicesSection, surfacesSection } from './reportFigures';
@@ -20,7 +20,7 @@ export const REPORT_SECTIONS = ['job', 'data', 'settings', 'comparison', 'surfac
 export function renderReport(input: ReportInput): string {
   const figures = new FigureCounter();
   const body = html`<header><h1>Offline evaluation report — ${input.project.name}</h1>
-      <p class="subtitle">Setpoint Critic · written ${input.generatedAt} · advisory offline estimates from logged data</p></header>
+      <p class="subtitle">Setpoint Critic · written ${html`<time datetime="${input.generatedAt}">${formatWrittenAt(input.generatedAt)}</time>`} · advisory offline estimates from logged data</p></header>
     ${summarySection(input)}
     ${jobSection(input)}
     ${dataSection(input)}

@@ -1,7 +1,7 @@
 /** The report's opening sections: the summary, the job, the data and the settings. */
 import type { Assessment } from '../assessment';
 import { summariseCandidate } from '../../project/candidateSummary';
-import { html, formatNumber, formatPercent, type Html } from './htmlText';
+import { html, formatNumber, formatPercent, formatWrittenAt, type Html } from './htmlText';
 import { senseWords, type ReportInput } from './reportInput';
 
 export function summarySection(input: ReportInput): Html {
@@ -23,7 +23,7 @@ export function jobSection(input: ReportInput): Html {
       <tr><th>Project file</th><td>${input.projectFile}</td></tr>
       <tr><th>Data file</th><td>${p.data.path}</td></tr>
       <tr><th>Evaluated</th><td>${input.evaluation.evaluatedAt}</td></tr>
-      <tr><th>Report written</th><td>${input.generatedAt}</td></tr>
+      <tr><th>Report written</th><td>${formatWrittenAt(input.generatedAt)}</td></tr>
       <tr><th>Question</th><td>How would each of ${p.candidates.length} candidate setpoint polic${p.candidates.length === 1 ? 'y' : 'ies'} perform, judged offline from the logs gathered under today’s controller?</td></tr>
     </tbody></table>
     <h3>Candidates</h3>
