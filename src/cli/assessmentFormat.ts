@@ -1,19 +1,10 @@
 /** The readable summary of an assessment for the terminal: intervals, comparison, cross-checks, warnings. */
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
+import { significant, textTable as table } from './textTable';
 
-const number = (v: number | null): string => {
-  if (v === null || !Number.isFinite(v)) return '—';
-  const magnitude = Math.abs(v);
-  if (magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return v.toExponential(3);
-  return v.toPrecision(5).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
-};
+const number = (v: number | null): string => significant(v, 5);
 const interval = (iv: [number, number] | null): string => (iv ? `[${number(iv[0])}, ${number(iv[1])}]` : '—');
 const percent = (share: number | null): string => (share === null ? '—' : `${(100 * share).toFixed(1)} %`);
-
-function table(rows: string[][]): string {
-  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
-  return rows.map((r) => r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('   ')).join('\n');
-}
 
 function estimateRow(name: string, e: IntervalEstimate): string[] {
   return [name, number(e.value), number(e.standardError), interval(e.percentile), interval(e.basic)];

@@ -1,20 +1,11 @@
 /** The readable table `evaluate` prints by default. */
 import type { Evaluation } from '../pipeline/estimates';
+import { significant, textTable as table } from './textTable';
 
-const number = (v: number | null): string => (v === null || !Number.isFinite(v) ? '—' : formatSignificant(v));
-
-function formatSignificant(v: number): string {
-  const magnitude = Math.abs(v);
-  if (magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return v.toExponential(4);
-  return v.toPrecision(6).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
-}
+const number = (v: number | null): string => significant(v, 6);
 
 const STATUS_WORDS = { converged: 'converged', maxIterations: 'NOT CONVERGED', diverged: 'DIVERGED' } as const;
 
-function table(rows: string[][]): string {
-  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
-  return rows.map((r) => r.map((cell, c) => (c === 0 ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('   ')).join('\n');
-}
 
 export function formatEvaluation(e: Evaluation, projectFile: string): string {
   const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';

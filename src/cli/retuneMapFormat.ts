@@ -1,13 +1,9 @@
 /** The readable table of a retune map for the terminal: J, its interval and the support of every point, the best supported point marked. */
 import type { RetuneMapResult } from '../pipeline/retuneMaps';
+import { significant, textTable } from './textTable';
 
-const number = (v: number | null): string => (v === null || !Number.isFinite(v) ? '—' : v.toPrecision(5).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, ''));
+const number = (v: number | null): string => significant(v, 5, false);
 const SUPPORT = { null: 'supported', caution: 'thin logs (caution)', serious: 'beyond the logs (serious)', unknown: 'unknown' } as const;
-
-function table(rows: string[][]): string {
-  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
-  return rows.map((r) => r.map((cell, c) => cell.padStart(widths[c])).join('   ')).join('\n');
-}
 
 export function formatRetuneMap(map: RetuneMapResult, level: number): string {
   const rows = [[...map.axes.map((a) => a.label), 'J', `${Math.round(100 * level)} % interval`, 'occupancy shift', 'support', '']];
@@ -20,7 +16,7 @@ export function formatRetuneMap(map: RetuneMapResult, level: number): string {
     : 'No point is both converged and supported by the logs.';
   return [
     `Retune map of "${map.candidate}" (${map.points.length} points; ${map.features}):`,
-    table(rows),
+    textTable(rows, false),
     best + (map.presentController === null ? '' : ` Present controller: J ${number(map.presentController)}.`),
     ...map.notes.map((n) => `  ${n}`),
     '',

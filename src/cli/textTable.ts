@@ -1,0 +1,18 @@
+/** What the terminal formatters share: a number to so many significant digits, and a plain text table. */
+
+/**
+ * `digits` significant digits with trailing zeros dropped; "—" for none. With `exponent`,
+ * magnitudes of 1e6 and above or below 1e-3 are written in exponent form (digits − 2 decimals).
+ */
+export function significant(v: number | null, digits: number, exponent = true): string {
+  if (v === null || !Number.isFinite(v)) return '—';
+  const magnitude = Math.abs(v);
+  if (exponent && magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return v.toExponential(digits - 2);
+  return v.toPrecision(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+}
+
+/** Columns three spaces apart, right-aligned; the first left-aligned unless `firstLeft` is false. */
+export function textTable(rows: string[][], firstLeft = true): string {
+  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
+  return rows.map((r) => r.map((cell, c) => (c === 0 && firstLeft ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('   ')).join('\n');
+}
