@@ -7,9 +7,7 @@
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
-import { outsidePossible, possibleValues } from '../core/diagnostics/possibleValues';
-import { unitMultiplicities } from '../core/bootstrap/episodeMultiplicities';
-import { completedReturnOfResample } from '../core/loggedReturn';
+import { outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import type {
@@ -26,6 +24,7 @@ import type { AssessmentSettings } from './assessSettings';
 import { actionSlices } from './assessSlices';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 import { surfaceVisits } from './plan/surfaceGrid';
+import { completedReturnFromEnds } from './model/completedReturn';
 
 /** The logged return's name wherever it is listed beside the candidates. */
 export const BEHAVIOUR_NAME = 'present controller, logged return';
@@ -51,6 +50,7 @@ export interface AssemblyInputs {
 
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
   const { context, works, replicates, settings } = inputs, sign = context.plan.sign;
+  const possible = possibleValues(context.plan.data.rewards, context.plan.discount);
   return works.map((work, j) => {
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];
@@ -62,7 +62,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
       ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: `Not settled across function classes: ${classes.reason} Report the range ${rangeText(classes.range)}, not a single value.` }] : []),
       ...networkDisagreement(work),
-      ...impossibleValue(context.plan, work),
+      ...impossibleValue(context.plan, possible, work),
       ...failedWarning(policyValue),
     ];
     return {
@@ -78,8 +78,7 @@ export function assemblePresentController(inputs: AssemblyInputs): PresentContro
   const r = replicates.presentController, model = baseline.model;
   const modelReason = modelInapplicability(inputs.modelCheck, model.policy);
   const { checks, confirmation } = checksOf(inputs, baseline, r, modelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null);
-  const ends = inputs.baselineEnds!, e = inputs.context.plan.episodes.episodes;
-  const completed = completedReturnOfResample(inputs.context.plan.loggedReturn.perEpisode, ends.tailWeights, ends.values, unitMultiplicities(e));
+  const completed = completedReturnFromEnds(inputs.context.plan, inputs.baselineEnds!).value;
   return {
     name: model.name, policyValue: intervalEstimate(model.fit.policyValue, r.fqe, settings.level, sign),
     completedReturn: intervalEstimate(completed, replicates.completedReturn, settings.level, sign, 'sampling of the logged runs; the value past each time limit is held at the full-data fit'),
@@ -143,8 +142,8 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
 }
 
 /** J outside what any policy can reach with rewards in the logged range (core/diagnostics/possibleValues.ts): serious. */
-function impossibleValue(plan: EvaluationPlan, work: CandidateWork): AssessmentWarning[] {
-  const range = possibleValues(plan.data.rewards, plan.discount), j = work.model.fit.policyValue;
+function impossibleValue(plan: EvaluationPlan, range: PossibleValues, work: CandidateWork): AssessmentWarning[] {
+  const j = work.model.fit.policyValue;
   if (!outsidePossible(j, range)) return [];
   const words = plan.sense === 'cost' ? 'costs' : 'rewards', [lo, hi] = plan.sign > 0 ? [range.lower, range.upper] : [-range.upper, -range.lower];
   return [{

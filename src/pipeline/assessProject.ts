@@ -11,7 +11,7 @@ import { BootstrapError } from '../core/bootstrap/episodeMultiplicities';
 import { loggedActionRanges } from '../core/diagnostics/actionSupport';
 import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import type { CancellationCheck } from '../core/fqe/cancellation';
-import { episodeEnds } from '../core/loggedReturn';
+import { episodeEnds, meanAndStandardError } from '../core/loggedReturn';
 import { failure, success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import type { ProjectDocument } from '../project/schema';
@@ -102,13 +102,13 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   };
   const inputs: AssemblyInputs = {
     context, works, baseline, replicates, modelCheck, modelReasons, rollouts, baselineRollout, ranges, reference, baselineEnds,
-    tailWeight: baselineEnds ? mean(baselineEnds.tailWeights) : mean(episodeEnds(data, plan.discount).tailWeights), settings,
+    tailWeight: meanAndStandardError((baselineEnds ?? episodeEnds(data, plan.discount)).tailWeights).mean, settings,
   };
   const candidates = assembleCandidates(inputs);
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
-  const unvisited = unvisitedShare(plan);
+  const unvisited = unvisitedShare(plan), solver = resampleSolver(works);
   return {
-    settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver: resampleSolver(works) },
+    settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver },
     behaviour: intervalEstimate(plan.loggedReturn.value, replicates.loggedReturn, settings.level, sign,
       'sampling of the logged runs; cut short where runs end on a time limit'),
     presentController: assemblePresentController(inputs),
@@ -117,15 +117,9 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
     sensitivity: settings.sensitivity ? await sensitivity(context, works, sign) : null,
     unvisitedShare: unvisited,
     warnings: globalWarnings(context, candidates, unvisited),
-    method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, resampleSolver(works)),
+    method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, solver),
     valueSense: plan.sense,
   };
-}
-
-function mean(values: Float64Array): number {
-  let total = 0;
-  for (const v of values) total += v;
-  return values.length ? total / values.length : 0;
 }
 
 function resampleSolver(works: CandidateWork[]): string {

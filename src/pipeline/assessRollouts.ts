@@ -12,6 +12,7 @@
  * (common random numbers), so their spread is the models' spread.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
+import { monomialCount } from '../core/features/monomials';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { ModelFitError } from '../core/offPolicy/linearQuadraticModel';
 import { ModelValueError } from '../core/offPolicy/modelBasedValue';
@@ -48,7 +49,7 @@ export type RolloutOutcome = RolloutCheck | { readonly reason: string };
 /** The one-step model's regressions, fitted once for every candidate; or why there is none. */
 export function rolloutModel(context: AssessmentContext): { regressions: PolynomialModelRegressions; fit: PolynomialModelFit } | { reason: string } {
   const { data, episodes } = context.plan, p = data.stateDim + data.actionDim;
-  const degree = binomial(p + 3, 3) <= CUBIC_MONOMIALS ? 3 : 2;
+  const degree = monomialCount(p, 3) <= CUBIC_MONOMIALS ? 3 : 2;
   try {
     const regressions = polynomialModelRegressions(data, episodes, { degree, rewardDegree: 2 });
     return { regressions, fit: fitPolynomialModel(regressions) };
@@ -93,10 +94,4 @@ function startSubset(states: Float64Array, count: number, ds: number): { states:
     out.set(states.subarray(k * ds, (k + 1) * ds), s * ds);
   }
   return { states: out, count: ROLLOUT_STARTS };
-}
-
-function binomial(n: number, k: number): number {
-  let r = 1;
-  for (let i = 1; i <= k; i++) r = (r * (n - k + i)) / i;
-  return Math.round(r);
 }

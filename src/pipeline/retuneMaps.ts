@@ -107,7 +107,7 @@ function runRetuneMap(
       if (problem) throw new RetuneMapError(`retune map of "${spec.candidate}", point ${p + 1}: ${problem}`);
       return policy;
     } catch (error) {
-      if (error instanceof PolicyError) throw new RetuneMapError(`retune map of "${spec.candidate}", point ${p + 1} (${describePoint(spec, grid.coordinates, p)}): ${error.message}`);
+      if (error instanceof PolicyError) throw new RetuneMapError(`retune map of "${spec.candidate}", point ${p + 1} (${describePoint(spec, grid.points[p])}): ${error.message}`);
       throw error;
     }
   });
@@ -115,7 +115,6 @@ function runRetuneMap(
   const withIntervals = e >= 10 && e * d * d * policies.length * MAP_RESAMPLES <= INTERVAL_BUDGET;
   const c = new Uint32Array(e), level = plan.project.bootstrap?.level ?? CONFIDENCE_LEVEL.default;
   const points: RetuneMapPoint[] = [], possible = possibleValues(data.rewards, plan.discount);
-  const coordinatesOf = (p: number) => indexCoordinates(p, grid.coordinates);
   retuneGrid({
     data, features, policies, discount: plan.discount, ridge: settings.ridge, quadratureNodes: plan.quadratureNodes,
     tolerance: settings.tolerance, maxIterations: settings.maxIterations, startStates: plan.starts.states,
@@ -141,7 +140,7 @@ function runRetuneMap(
       // A value no policy can reach with rewards in the logged range is beyond the logs whatever its shift says.
       const impossible = m.policyValue !== null && outsidePossible(m.policyValue, possible);
       points.push({
-        coordinates: coordinatesOf(m.index), value: m.policyValue === null ? null : sign * m.policyValue, interval, status: impossible ? 'outside the possible range' : m.status,
+        coordinates: grid.points[m.index], value: m.policyValue === null ? null : sign * m.policyValue, interval, status: impossible ? 'outside the possible range' : m.status,
         occupancyShift: shiftValue, support: impossible ? 'serious' : shiftValue === null ? 'unknown' : occupancyShiftSeverity(shiftValue, options.presentControllerShift), route: m.route,
       });
     },
@@ -176,19 +175,9 @@ function axisLabel(candidate: CandidateSpec, path: string, plan: EvaluationPlan)
   return known ? `${known.label}${known.unit ? ` (${known.unit})` : ''}` : path;
 }
 
-/** The axis values of grid point p, row-major (the last axis fastest). */
-function indexCoordinates(p: number, coordinates: number[][]): number[] {
-  const out: number[] = new Array(coordinates.length);
-  let rest = p;
-  for (let a = coordinates.length - 1; a >= 0; a--) {
-    out[a] = coordinates[a][rest % coordinates[a].length];
-    rest = Math.floor(rest / coordinates[a].length);
-  }
-  return out;
-}
 
-function describePoint(spec: RetuneMapSpec, coordinates: number[][], p: number): string {
-  return indexCoordinates(p, coordinates).map((v, a) => `${spec.axes[a].parameter} = ${v}`).join(', '); // the project's own paths, to find the field
+function describePoint(spec: RetuneMapSpec, point: number[]): string {
+  return point.map((v, a) => `${spec.axes[a].parameter} = ${v}`).join(', '); // the project's own paths, to find the field
 }
 
 /** The maps of a run, as a result: a map that cannot be formed is a problem naming it, not a crash. */

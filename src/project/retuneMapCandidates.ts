@@ -11,6 +11,8 @@ export interface RetuneMapCandidates {
   readonly base: CandidateSpec;
   /** The axis values, one array per axis. */
   readonly coordinates: number[][];
+  /** Each grid point's axis values, row-major (core's gridPoints). */
+  readonly points: number[][];
   /** One candidate per grid point, row-major. */
   readonly candidates: CandidateSpec[];
 }
@@ -23,5 +25,5 @@ export function retuneMapCandidates(doc: ProjectDocument, map: RetuneMapSpec): R
     (c, value, a) => withCandidateParameter(c, map.axes[a].parameter, value),
     { ...base, name: `${base.name} [${p + 1}]` },
   ));
-  return { base, coordinates: map.axes.map(axisValues), candidates };
+  return { base, coordinates: map.axes.map(axisValues), points, candidates };
 }

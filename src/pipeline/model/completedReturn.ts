@@ -15,6 +15,10 @@ export function finalStateValues(plan: EvaluationPlan, model: CandidateModel): {
 }
 
 export function completedReturnOf(plan: EvaluationPlan, model: CandidateModel): CompletedReturn {
-  const { values, tailWeights } = finalStateValues(plan, model);
-  return completedLoggedReturn(plan.loggedReturn, { finalStates: new Float64Array(0), tailWeights }, values);
+  return completedReturnFromEnds(plan, finalStateValues(plan, model));
+}
+
+/** The same from final-state values already taken (finalStateValues). */
+export function completedReturnFromEnds(plan: EvaluationPlan, ends: { values: Float64Array; tailWeights: Float64Array }): CompletedReturn {
+  return completedLoggedReturn(plan.loggedReturn, { finalStates: new Float64Array(0), tailWeights: ends.tailWeights }, ends.values);
 }
