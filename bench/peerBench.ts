@@ -17,7 +17,8 @@ import { openProject } from '../src/pipeline/openProject';
 import { startRun } from '../src/pipeline/projectRun';
 
 const root = resolve(import.meta.dirname, '..');
-const peers = resolve(root, '..', 'shared', 'peers');
+/** The peer scripts sit beside the main checkout (../shared/peers) or, from a worktree under ../wt/, two levels up; PEER_SCRIPTS overrides. */
+const peers = process.env.PEER_SCRIPTS ?? [resolve(root, '..', 'shared', 'peers'), resolve(root, '..', '..', 'shared', 'peers')].find((p) => existsSync(p)) ?? resolve(root, '..', 'shared', 'peers');
 const work = join(root, 'test-artifacts', 'bench-peer');
 
 /** The peer's plant as a project: states s0, s1; action a0; reward r; its target policy u = −[1.6, 1.3]x + N(0, 0.3²); γ 0.95. */

@@ -34,12 +34,16 @@ export function classWorks(context: AssessmentContext, model: CandidateModel): C
     if (!spec) continue;
     try {
       const fitted = buildLinearModel(plan, model, { cancel: context.cancel }, spec);
-      if (fitted.fit.status === 'converged') out.push({ label: `polynomial, degree ${degree}`, model: fitted, replicate: replicator(plan, fitted) });
+      if (fitted.fit.status === 'converged') out.push({ label: polynomialClassLabel(degree), model: fitted, replicate: replicator(plan, fitted) });
     } catch (error) {
       if (!isEngineError(error)) throw error; // a class that cannot be fitted is simply not compared
     }
   }
   return out;
+}
+
+export function polynomialClassLabel(degree: number): string {
+  return `polynomial, degree ${degree}`;
 }
 
 /** The fit of polynomial degree k with the project's ridge and tolerance (defaults beside a network); null when too large for the data or the budget. */

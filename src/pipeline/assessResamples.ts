@@ -10,9 +10,10 @@ import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
 import { createPacer, throwIfCancelled } from '../core/fqe/cancellation';
 import { completedReturnOfResample } from '../core/loggedReturn';
-import { fitLinearQuadraticModel, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
+import { fitLinearQuadraticModels, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
-import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
+import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
+import { perDecisionResamples, prepareResampleEntries, RESAMPLE_BLOCK, type ResampleEntries } from '../core/offPolicy/perDecisionResamples';
 import { isModelValueFailure } from './assessModelCheck';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
@@ -51,26 +52,37 @@ export interface ResampleInputs {
 
 /** Yield to the event loop about this often, so a stop request or a surface query can get through. */
 const PACE_MS = 50;
+/** Report progress about every this many resamples. */
+const PROGRESS_EVERY = 25;
 
 export async function runResamples(
   context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, onProgress?: (p: ResampleProgress) => void,
 ): Promise<ReplicateSet> {
-  const pace = createPacer(PACE_MS), { plan } = context, e = plan.episodes.episodes, c = new Uint32Array(e);
+  const pace = createPacer(PACE_MS), { plan } = context, e = plan.episodes.episodes;
   const { works, baseline, baselineEnds, model } = inputs;
   const out: ReplicateSet = {
     loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false)),
     presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [],
   };
-  for (let b = 0; b < settings.resamples; b++) {
+  const entries = new Map<CandidateWork, ResampleEntries>();
+  for (const w of [...works, ...(baseline ? [baseline] : [])]) if ('perDecision' in w.offPolicy) entries.set(w, prepareResampleEntries(w.offPolicy.perDecision));
+  const block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
+  let reported = -PROGRESS_EVERY;
+  for (let first = 0; first < settings.resamples; first += RESAMPLE_BLOCK) {
     await pace();
     throwIfCancelled(context.cancel);
-    if (b % 25 === 0) onProgress?.({ done: b, total: settings.resamples });
-    episodeMultiplicities(e, settings.seed, b, c);
-    out.loggedReturn.push(weightedMean(plan.loggedReturn.perEpisode, c));
-    const fitted = model ? resampleModel(model.regressions, c) : null;
-    works.forEach((w, j) => replicateCandidate(context, w, out.candidates[j], c, fitted));
-    if (baseline && out.presentController) replicateCandidate(context, baseline, out.presentController, c, null);
-    if (baselineEnds && out.completedReturn) out.completedReturn.push(completedReturnOfResample(plan.loggedReturn.perEpisode, baselineEnds.tailWeights, baselineEnds.values, c));
+    if (first - reported >= PROGRESS_EVERY) onProgress?.({ done: (reported = first), total: settings.resamples });
+    const drawn = block.slice(0, Math.min(RESAMPLE_BLOCK, settings.resamples - first));
+    drawn.forEach((c, i) => episodeMultiplicities(e, settings.seed, first + i, c));
+    // The two estimators bound by reading per-run or per-entry data take the block's resamples in one read.
+    const fitted = model ? fitLinearQuadraticModels(model.regressions, drawn).map((f) => (f instanceof ModelFitError ? null : f)) : null;
+    const perDecision = new Map([...entries].map(([w, en]) => [w, perDecisionResamples(en, plan.discount, drawn)]));
+    drawn.forEach((c, i) => {
+      out.loggedReturn.push(weightedMean(plan.loggedReturn.perEpisode, c));
+      works.forEach((w, j) => replicateCandidate(context, w, out.candidates[j], c, fitted && fitted[i], perDecision.get(w)?.[i]));
+      if (baseline && out.presentController) replicateCandidate(context, baseline, out.presentController, c, null, perDecision.get(baseline)?.[i]);
+      if (baselineEnds && out.completedReturn) out.completedReturn.push(completedReturnOfResample(plan.loggedReturn.perEpisode, baselineEnds.tailWeights, baselineEnds.values, c));
+    });
   }
   onProgress?.({ done: settings.resamples, total: settings.resamples });
   return out;
@@ -81,16 +93,17 @@ function emptyReplicates(w: CandidateWork, modelApplicable: boolean): CandidateR
   return { fqe, importanceSampling: offPolicy ? [] : null, doublyRobust: offPolicy ? [] : null, model: modelApplicable ? [] : null, classes: w.classes.map((_, i) => (i === 0 ? fqe : [])) };
 }
 
+/** perDecision: the resample's per-decision estimates (perDecisionResamples), or the error that stands for none. */
 function replicateCandidate(
   context: AssessmentContext, w: CandidateWork, out: CandidateReplicates, c: Uint32Array, fitted: LinearQuadraticModelFit | null,
+  perDecision: PerDecisionEstimates | ImportanceSamplingError | undefined,
 ): void {
   const { discount, starts } = context.plan;
   // A model without a replicator (a network) has no fqe replicates: no interval.
   if (w.replicate) out.fqe.push(w.replicate.value(c));
   for (let k = 1; k < w.classes.length; k++) out.classes[k].push(w.classes[k].replicate?.value(c) ?? null);
-  const offPolicy = w.offPolicy;
-  if ('perDecision' in offPolicy) {
-    const estimates = guarded(() => perDecisionEstimates(offPolicy.perDecision, discount, c));
+  if (perDecision !== undefined) {
+    const estimates = perDecision instanceof ImportanceSamplingError ? null : perDecision;
     out.importanceSampling!.push(estimates && estimates.importanceSampling);
     out.doublyRobust!.push(estimates && estimates.doublyRobust);
   }
@@ -108,24 +121,6 @@ function weightedMean(values: Float64Array, c: ArrayLike<number>): number {
     count += c[k];
   }
   return total / count;
-}
-
-function resampleModel(regressions: ModelRegressions, c: Uint32Array): LinearQuadraticModelFit | null {
-  try {
-    return fitLinearQuadraticModel(regressions, c);
-  } catch (error) {
-    if (error instanceof ModelFitError) return null;
-    throw error;
-  }
-}
-
-function guarded<T>(estimate: () => T): T | null {
-  try {
-    return estimate();
-  } catch (error) {
-    if (error instanceof ImportanceSamplingError) return null;
-    throw error;
-  }
 }
 
 function modelGuarded(estimate: () => number): number | null {

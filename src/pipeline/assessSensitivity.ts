@@ -24,6 +24,7 @@ import type { ApproximatorSettings } from '../project/schema';
 import type { Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { BEHAVIOUR_NAME } from './assessAssembly';
+import { polynomialClassLabel } from './assessClasses';
 import { isEngineError } from './engineErrors';
 import { fitNetworkCandidate } from './fitNetworkCandidate';
 import { networkRequest } from './model/networkModel';
@@ -110,13 +111,19 @@ function sizeOf(context: AssessmentContext, settings: LinearSettings): number {
   }
 }
 
+/**
+ * The candidate solved with other features. Its statistics and start features are those of the same
+ * class in the class comparison when that class was fitted (the same feature map, quadrature and
+ * ridge, so the same sums, up to their order of summation), else one more data pass.
+ */
 function refitLinear(context: AssessmentContext, w: CandidateWork, settings: LinearSettings): { value: number | null; status: string } {
   const { plan, cancel } = context, { quadrature } = w.model;
   throwIfCancelled(cancel);
   try {
-    const features = featureMapFor(settings, plan.data), d = features.dim;
-    const stats = accumulateBellmanStatistics(plan.data, features, quadrature, { cancel });
-    const xiBar = meanStartFeatures(startStateFeatures(features, quadrature, plan.starts.states, plan.data.stateDim), d);
+    const fitted = settings.features.kind === 'polynomial' ? w.classes.find((c) => c.label === polynomialClassLabel((settings.features as { degree: number }).degree))?.model.linear : undefined;
+    const features = fitted?.features ?? featureMapFor(settings, plan.data), d = features.dim;
+    const stats = fitted?.statistics ?? accumulateBellmanStatistics(plan.data, features, quadrature, { cancel });
+    const xiBar = meanStartFeatures(fitted?.startFeatures ?? startStateFeatures(features, quadrature, plan.starts.states, plan.data.stateDim), d);
     const fit = solveReplicate({ ...linearSolveSettings(plan, w.model), ridge: settings.ridge, constantIndex: features.constantIndex, initialWeights: new Float64Array(d) }, stats, xiBar);
     return { value: fit.policyValue, status: fit.status };
   } catch (error) {

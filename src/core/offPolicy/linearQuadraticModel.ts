@@ -11,7 +11,7 @@
  *
  * Shapes: ds states, m actions; A ds×ds, B ds×m, W ds×ds; cost Hessian blocks as named.
  */
-import { episodeMoments, resampleMoments, type EpisodeMoments, type RegressionMoments } from '../bootstrap/episodeMoments';
+import { episodeMoments, resampleMoments, resampleMomentsBlock, type EpisodeMoments, type RegressionMoments } from '../bootstrap/episodeMoments';
 import type { EpisodeIndex } from '../bootstrap/episodeTransitions';
 import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
 import type { TransitionSet } from '../transitions';
@@ -81,15 +81,35 @@ export function modelRegressions(data: TransitionSet, index: EpisodeIndex): Mode
 
 /** Fit on the full data (multiplicities omitted) or on a resample. */
 export function fitLinearQuadraticModel(regressions: ModelRegressions, multiplicities?: ArrayLike<number>): LinearQuadraticModelFit {
+  return fitFromMoments(regressions, resampleMoments(regressions.dynamics, multiplicities), resampleMoments(regressions.cost, multiplicities));
+}
+
+/**
+ * fitLinearQuadraticModel on each resample of a block, the moments summed in one read
+ * (resampleMomentsBlock: the same sums, so the same fits); a ModelFitError in place of a fit that fails.
+ */
+export function fitLinearQuadraticModels(regressions: ModelRegressions, multiplicities: readonly ArrayLike<number>[]): (LinearQuadraticModelFit | ModelFitError)[] {
+  const dynamics = resampleMomentsBlock(regressions.dynamics, multiplicities), cost = resampleMomentsBlock(regressions.cost, multiplicities);
+  return dynamics.map((d, b) => {
+    try {
+      return fitFromMoments(regressions, d, cost[b]);
+    } catch (error) {
+      if (error instanceof ModelFitError) return error;
+      throw error;
+    }
+  });
+}
+
+function fitFromMoments(regressions: ModelRegressions, dynamicsMoments: RegressionMoments, costMoments: RegressionMoments): LinearQuadraticModelFit {
   const { stateDim: ds, actionDim: m, centre, scale } = regressions;
-  const dyn = leastSquares(resampleMoments(regressions.dynamics, multiplicities), 'the next states');
+  const dyn = leastSquares(dynamicsMoments, 'the next states');
   const dynamics = new Float64Array(ds * ds), inputGain = new Float64Array(ds * m), intercept = new Float64Array(ds);
   for (let j = 0; j < ds; j++) {
     intercept[j] = dyn.coefficients[j];
     for (let c = 0; c < ds; c++) dynamics[j * ds + c] = dyn.coefficients[(1 + c) * ds + j] / scale[c];
     for (let c = 0; c < m; c++) inputGain[j * m + c] = dyn.coefficients[(1 + ds + c) * ds + j] / scale[ds + c];
   }
-  const costFit = leastSquares(resampleMoments(regressions.cost, multiplicities), 'the reward');
+  const costFit = leastSquares(costMoments, 'the reward');
   return {
     stateCentre: centre.slice(0, ds), actionCentre: centre.slice(ds), dynamics, inputGain, intercept,
     noiseCovariance: dyn.residualCovariance, dynamicsRSquared: dyn.rSquared,

@@ -91,7 +91,11 @@ export function perDecisionData(
       episode[j] = k;
     }
   }
-  const gather = (a: Float64Array) => Float64Array.from(order, (p) => a[p]);
+  const gather = (a: Float64Array) => {
+    const out = new Float64Array(n); // a plain loop: Float64Array.from with a map function is several times slower at 10⁶ entries
+    for (let j = 0; j < n; j++) out[j] = a[order[j]];
+    return out;
+  };
   return {
     horizon, episodes: index.episodes, stepOffsets, episode,
     scaled: gather(table.scaled), scaledBefore: gather(table.scaledBefore), rewards: gather(table.rewards),

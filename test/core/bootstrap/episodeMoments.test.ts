@@ -4,7 +4,7 @@
  */
 import { Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
-import { episodeMoments, resampleMoments } from '../../../src/core/bootstrap/episodeMoments';
+import { episodeMoments, resampleMoments, resampleMomentsBlock } from '../../../src/core/bootstrap/episodeMoments';
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { indexEpisodes, resampledTransitions } from '../../../src/core/bootstrap/episodeTransitions';
 import { simulateLinearPlant } from '../fqe/simulatedTransitions';
@@ -33,5 +33,16 @@ describe('episodeMoments', () => {
     close(fast.xx, x.transpose().mmul(x));
     close(fast.xy, x.transpose().mmul(y));
     close(fast.yy, y.transpose().mmul(y));
+  });
+
+  it('gives on a block of resamples exactly what it gives on each alone (the same sums in the same order)', () => {
+    const index = indexEpisodes(data);
+    const moments = episodeMoments(index, 3, 1, (i, x, y) => {
+      x.set([1, data.states[2 * i], data.actions[i]]);
+      y[0] = data.rewards[i];
+      return true;
+    });
+    const block = [0, 1, 2].map((b) => episodeMultiplicities(data.episodeCount, 5, b));
+    resampleMomentsBlock(moments, block).forEach((fast, b) => expect(fast).toEqual(resampleMoments(moments, block[b])));
   });
 });

@@ -6,8 +6,9 @@
  */
 import { Matrix, solve } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
+import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
-import { dynamicsNonlinearity, fitLinearQuadraticModel, modelRegressions } from '../../../src/core/offPolicy/linearQuadraticModel';
+import { dynamicsNonlinearity, fitLinearQuadraticModel, fitLinearQuadraticModels, modelRegressions } from '../../../src/core/offPolicy/linearQuadraticModel';
 import { createRandom } from '../../../src/core/random';
 import type { TransitionSet } from '../../../src/core/transitions';
 
@@ -60,5 +61,11 @@ describe('fitLinearQuadraticModel', () => {
     const linear = plant(3000, 0.3, 0, 3), curved = plant(3000, 0.3, 0.2, 3);
     expect(dynamicsNonlinearity(linear, modelRegressions(linear, indexEpisodes(linear)))[0]).toBeLessThan(0.01);
     expect(dynamicsNonlinearity(curved, modelRegressions(curved, indexEpisodes(curved)))[0]).toBeGreaterThan(0.3);
+  });
+
+  it('fits a block of resamples exactly as it fits each alone', () => {
+    const data = plant(400, 0.1, 0, 12), regressions = modelRegressions(data, indexEpisodes(data));
+    const block = [0, 1, 2, 3].map((b) => episodeMultiplicities(data.episodeCount, 9, b));
+    fitLinearQuadraticModels(regressions, block).forEach((fit, b) => expect(fit).toEqual(fitLinearQuadraticModel(regressions, block[b])));
   });
 });
