@@ -23,7 +23,7 @@ export function sourceBytes(source: string | Uint8Array): SourceBytes {
   if (typeof source === 'string') return { ok: true, bytes: new TextEncoder().encode(source.replace(/^\uFEFF/, '')), start: 0, encoding: 'UTF-8', how: 'detected' };
   const marked = source[0] === 0xef && source[1] === 0xbb && source[2] === 0xbf;
   const utf16Mark = (source[0] === 0xff && source[1] === 0xfe) || (source[0] === 0xfe && source[1] === 0xff);
-  if (!utf16Mark && source.indexOf(0) < 0 && (isAscii(source) || validUtf8(source))) {
+  if (!utf16Mark && (isAsciiWithoutZero(source) || (source.indexOf(0) < 0 && validUtf8(source)))) {
     return { ok: true, bytes: source, start: marked ? 3 : 0, encoding: 'UTF-8', how: marked ? 'byte-order mark' : 'detected' };
   }
   const text = sourceText(source);
@@ -32,15 +32,31 @@ export function sourceBytes(source: string | Uint8Array): SourceBytes {
 }
 
 /** No byte has its high bit set: four bytes at a time over the aligned middle. */
-function isAscii(bytes: Uint8Array): boolean {
+/**
+ * True when every byte is below 0x80 and none is 0 — one pass over 32-bit words for both tests: a
+ * set high bit anywhere, and a zero byte by the word test (v − 0x01010101) & ~v & 0x80808080 ≠ 0,
+ * which is non-zero exactly when some byte of v is 0 (Anderson, "Bit Twiddling Hacks", "Determine
+ * if a word has a zero byte"; common practice).
+ */
+function isAsciiWithoutZero(bytes: Uint8Array): boolean {
   const head = Math.min(bytes.length, (4 - (bytes.byteOffset % 4)) % 4);
   const words = (bytes.length - head) >> 2;
-  let high = 0;
-  for (let i = 0; i < head; i++) high |= bytes[i];
+  let high = 0, zero = 0;
+  for (let i = 0; i < head; i++) {
+    high |= bytes[i];
+    if (bytes[i] === 0) zero = 1;
+  }
   const view = new Uint32Array(bytes.buffer, bytes.byteOffset + head, words);
-  for (let i = 0; i < words; i++) high |= view[i];
-  for (let i = head + 4 * words; i < bytes.length; i++) high |= bytes[i];
-  return (high & 0x80808080) === 0;
+  for (let i = 0; i < words; i++) {
+    const v = view[i];
+    high |= v;
+    zero |= (v - 0x01010101) & ~v & 0x80808080;
+  }
+  for (let i = head + 4 * words; i < bytes.length; i++) {
+    high |= bytes[i];
+    if (bytes[i] === 0) zero = 1;
+  }
+  return (high & 0x80808080) === 0 && zero === 0;
 }
 
 function validUtf8(bytes: Uint8Array): boolean {

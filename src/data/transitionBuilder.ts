@@ -51,20 +51,31 @@ export function buildTransitions(c: StepColumns): { transitions: TransitionSet; 
   const n = successors(c, successor);
   const t = allocate(n, ds, m, c.hasStart);
   const next = c.nextStates ?? c.states;
-  // Row by row in file order: each output array is written once, in order, and each column read in order.
+  // The source rows of each transition first, then one column at a time: each loop reads one column
+  // and writes one output array with a fixed stride (a row-by-row loop over every column was the
+  // import's slowest step at 10⁶ rows).
+  const from = new Int32Array(n), to = new Int32Array(n);
   for (let r = 0, k = 0; r < records; r++) {
-    const to = successor[r];
-    if (to === -2) continue;
-    const terminal = to === -1, s = terminal ? r : to, nextColumns = terminal ? c.states : next;
-    for (let j = 0; j < ds; j++) {
-      t.states[k * ds + j] = c.states[j][r];
-      t.nextStates[k * ds + j] = nextColumns[j][s];
-    }
-    for (let j = 0; j < m; j++) t.actions[k * m + j] = c.actions[j][r];
+    const s = successor[r];
+    if (s === -2) continue;
+    const terminal = s === -1;
+    from[k] = r;
+    to[k] = terminal ? -1 : s;
     t.rewards[k] = c.rewards[r];
     t.terminal[k] = terminal ? 1 : 0;
     t.episode[k] = c.episodeOf[r];
     t.sourceLine[k++] = c.lineOf(r);
+  }
+  for (let j = 0; j < ds; j++) {
+    const column = c.states[j], nextColumn = next[j];
+    for (let k = 0; k < n; k++) {
+      t.states[k * ds + j] = column[from[k]];
+      t.nextStates[k * ds + j] = to[k] < 0 ? column[from[k]] : nextColumn[to[k]];
+    }
+  }
+  for (let j = 0; j < m; j++) {
+    const column = c.actions[j];
+    for (let k = 0; k < n; k++) t.actions[k * m + j] = column[from[k]];
   }
   writeStartStates(c, t.startStates, t.startEpisode);
   const transitions: TransitionSet = {

@@ -8,6 +8,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { importDataset } from '../../src/data/importDataset';
+import { sourceBytes } from '../../src/data/sourceBytes';
 import { sourceText } from '../../src/data/sourceText';
 import type { ColumnRoles } from '../../src/project/schema';
 
@@ -45,5 +46,18 @@ describe('sourceText detects and names the encoding', () => {
     const read = sourceText(Uint8Array.of(0x61, 0x2c, 0x62, 0x0a, 0x31, 0x00, 0x32, 0x0a));
     expect(read.ok).toBe(false);
     expect(!read.ok && read.reason).toContain('zero byte at byte 6');
+  });
+
+  it('a zero byte in an otherwise ASCII file is refused wherever it falls in a 32-bit word, and plain ASCII passes as it is', () => {
+    const text = 'a,b\n1,2\n3,4\n5,6\n';
+    const plain = new TextEncoder().encode(text);
+    expect(sourceBytes(plain)).toMatchObject({ ok: true, bytes: plain, encoding: 'UTF-8' });
+    for (let at = 4; at < plain.length - 1; at++) {
+      const bytes = plain.slice();
+      bytes[at] = 0;
+      const read = sourceBytes(bytes);
+      expect(read.ok).toBe(false);
+      expect(!read.ok && read.reason).toContain(`zero byte at byte ${at + 1}`);
+    }
   });
 });
