@@ -19,6 +19,8 @@ export interface FitRecord {
   plant: string;
   candidate: string;
   startSet: string;
+  /** Where the logged runs started (SimulationOptions.runStarts). */
+  runStarts?: 'steady' | 'wide';
   seed: number;
   truth: BatteryTruth;
   network: Estimate;
@@ -29,6 +31,12 @@ export interface FitRecord {
   iterations: number;
   seconds: number;
   cpuSeconds: number;
+  /**
+   * Wall-clock seconds until the iterates' J over the fit's start set (the steady set) came within
+   * 3 % of its truth and stayed there (fit set-up included); null if it never did. Only on the
+   * fit's start set's record.
+   */
+  secondsToWithin3?: number | null;
   adamSteps: number;
   stepSeconds: number;
   flop: number;
@@ -54,13 +62,23 @@ function summarise(records: FitRecord[], pick: (r: FitRecord) => Estimate): Summ
 const pct = (x: number) => `${(100 * x).toFixed(2)}`.padStart(7);
 const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
 
+/** Mean seconds to within 3 % over the seeds that got there, with how many did ('—' where not measured). */
+function toWithin3(rs: FitRecord[]): string {
+  const measured = rs.filter((r) => r.secondsToWithin3 !== undefined);
+  if (measured.length === 0) return '—';
+  const reached = measured.flatMap((r) => (r.secondsToWithin3 == null ? [] : [r.secondsToWithin3]));
+  if (reached.length === 0) return 'never';
+  const text = mean(reached).toFixed(1);
+  return reached.length === measured.length ? text : `${text} (${reached.length}/${measured.length})`;
+}
+
 export function printBatteryTable(records: FitRecord[]): void {
   const groups = new Map<string, FitRecord[]>();
   for (const r of records) {
-    const key = `${r.plant}|${r.candidate}|${r.startSet}`;
+    const key = `${r.plant}|${r.candidate}|${r.startSet}${r.runStarts === 'wide' ? ' (runs logged wide)' : ''}`;
     groups.set(key, [...(groups.get(key) ?? []), r]);
   }
-  console.log('\nplant / candidate / start set                    truth (±SE)        | linear deg 2: mean%  |max|%  cover | network: mean%  |max|%  cover  conv  iters  s/fit  cpu s  steps/s  GFLOP/s');
+  console.log('\nplant / candidate / start set                    truth (±SE)        | linear deg 2: mean%  |max|%  cover | network: mean%  |max|%  cover  conv  iters  s/fit  cpu s  s to 3%  steps/s  GFLOP/s');
   for (const [key, rs] of groups) {
     const [plant, candidate, startSet] = key.split('|');
     const t = rs[0].truth, lin = summarise(rs, (r) => r.linear), net = summarise(rs, (r) => r.network);
@@ -71,8 +89,8 @@ export function printBatteryTable(records: FitRecord[]): void {
     console.log(
       `${`${plant} / ${candidate} / ${startSet}`.padEnd(48)} ${truth.padEnd(18)} | ${pct(lin.mean)} ${pct(lin.largest)} ${pct(lin.coverage).slice(1)} |` +
       ` ${pct(net.mean)} ${pct(net.largest)} ${pct(net.coverage).slice(1)} ${pct(converged).slice(1)} ${mean(rs.map((r) => r.iterations)).toFixed(1).padStart(5)}` +
-      ` ${mean(rs.map((r) => r.seconds)).toFixed(1).padStart(6)} ${mean(rs.map((r) => r.cpuSeconds)).toFixed(1).padStart(6)} ${stepsPerSecond.toFixed(0).padStart(8)} ${gflops.toFixed(2).padStart(8)}`,
+      ` ${mean(rs.map((r) => r.seconds)).toFixed(1).padStart(6)} ${mean(rs.map((r) => r.cpuSeconds)).toFixed(1).padStart(6)} ${toWithin3(rs).padStart(8)} ${stepsPerSecond.toFixed(0).padStart(8)} ${gflops.toFixed(2).padStart(8)}`,
     );
   }
-  console.log(`(${records.length / 2} fits; errors in % of |truth|; cover = share of seeds whose 90 % interval holds the truth; conv = share with status "converged"; backend ${records[0]?.backend})`);
+  console.log(`(${records.length / 2} fits; errors in % of |truth|; cover = share of seeds whose 90 % interval holds the truth; s to 3% = wall seconds until the iterates' J on the steady set came and stayed within 3 % (set-up included); conv = share with status "converged"; backend ${records[0]?.backend})`);
 }
