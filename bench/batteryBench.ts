@@ -15,6 +15,7 @@
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
+import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
 import { createGaussianPolicy } from '../src/core/policy';
@@ -78,6 +79,7 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, runS
         networkParts: { percentile: [...e.parts.percentile], basic: [...e.parts.basic], bootstrapStandardError: e.parts.bootstrapStandardError, iterateSpread: e.parts.iterateSpread },
         linear: { value: e.linear.value, lower: e.linear.interval.lower, upper: e.linear.interval.upper },
         difference: { value: e.difference.value, lower: e.difference.interval.lower, upper: e.difference.interval.upper },
+        agreement: approximatorAgreement({ network: e, linear: e.linear, difference: e.difference }).verdict,
         status: fit.status, iterations: fit.history.length, seconds: fit.work.seconds, cpuSeconds: (cpu.user + cpu.system) / 1e6,
         ...(index === 0 ? { secondsToWithin3: secondsToWithin(fit, truth0, 0.03) } : {}),
         adamSteps: fit.work.adamSteps, stepSeconds: fit.work.stepSeconds, flop: fit.work.flop, backend: fit.backend,
