@@ -21,7 +21,7 @@ describe('a network fit in the app', () => {
     await page.getByLabel('Neural network').check();
     // Tiny on purpose: the accuracy of network fits is tested in test/core/fqe/network*.test.ts.
     await page.getByLabel('Hidden layers').fill('16, 16');
-    for (const [label, value] of [['Rounds', '3'], ['Steps per round', '20'], ['Batch size', '256']] as const) {
+    for (const [label, value] of [['Most outer iterations', '3'], ['Gradient steps per outer iteration', '20'], ['Batch size', '256']] as const) {
       const field = page.getByLabel(label, { exact: true });
       await field.fill(value);
       await field.blur();
