@@ -85,6 +85,8 @@ export interface NetworkFit {
   readonly history: readonly NetworkIterationRecord[];
   readonly backend: TfBackendName;
   readonly backendNote: string;
+  /** Why WebAssembly was not used although preferred (tfBackend.ts); null when it was, or plain JavaScript was asked for. */
+  readonly backendFallback: string | null;
   readonly seed: number;
   /** Time, Adam steps and FLOPs of the fit (networkWork.ts). */
   readonly work: NetworkWork;
