@@ -29,7 +29,7 @@ describe('a network fit in the app', () => {
     const [value] = await runAndReadValues(page, 1);
     expect(Number.isFinite(value)).toBe(true);
     await expect.poll(() => page.getByTestId('policy-account-0').textContent()).toMatch(/Computed by TensorFlow\.js \((WebAssembly|plain JavaScript)\)/);
-    expect(await page.getByTestId('policy-account-0').textContent()).toMatch(/TensorFlow\.js wasm/);
+    expect(await page.getByTestId('policy-account-0').textContent()).toMatch(/TensorFlow\.js \(WebAssembly\)/);
     await app.screenshot('network-findings');
     expect(app.consoleErrors).toEqual([]);
   });

@@ -212,8 +212,12 @@ function convergedMessage(rule: ConvergenceRule, k: number): string {
 
 function notConvergedMessage(rule: ConvergenceRule, history: readonly NetworkIterationRecord[]): string {
   const last = history[history.length - 1];
-  const bound = last.remainingBound === null ? 'unknown' : percent(last.remainingBound);
   if (rule.window === 0) return `Ran all ${history.length} outer iterations (stopping rule off: patience 0), so convergence was not judged.`;
+  if (last.remainingBound === null) {
+    return `Not converged: stopped at the limit of ${history.length} outer iterations, before the rule could judge the drift ` +
+      `(it compares two full windows of ${rule.window} iterations, so it needs at least ${rule.minimumIterations}). Allow more outer iterations.`;
+  }
+  const bound = percent(last.remainingBound);
   return `Not converged: stopped at the limit of ${history.length} outer iterations while J and Q were still changing ` +
     `(the last drift allows up to ${bound} of further movement; the rule asks at most ${percent(rule.tolerance)}, judged on windows of ${rule.window} iterations). ` +
     'More outer iterations, or a smaller learning rate, may settle it.';
