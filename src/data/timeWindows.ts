@@ -112,14 +112,9 @@ export function leftOutWindows(windows: readonly TimeWindow[], inWindow: Uint16A
   return windows.map((w, i) => ({ ...w, rows: counts[i] }));
 }
 
-/** "06:00 to 08:30 (2 h 30 min)" on the log's clock. */
+/** "1 Mar 2024 06:00 to 1 Mar 2024 08:30, 2 h 30 min" on the log's clock. */
 export function windowText(w: TimeWindow, calendar: boolean): string {
-  return `${clockText(w.fromSeconds, calendar)} to ${clockText(w.toSeconds, calendar)} (${durationText(w.toSeconds - w.fromSeconds)})`;
-}
-
-/** The reason an excluded row carries. */
-export function windowReason(w: TimeWindow, calendar: boolean): string {
-  return `in a time window left out${w.reason ? ` (${w.reason})` : ''}: ${windowText(w, calendar)}`;
+  return `${clockText(w.fromSeconds, calendar)} to ${clockText(w.toSeconds, calendar)}, ${durationText(w.toSeconds - w.fromSeconds)}`;
 }
 
 /** "Time windows left out: 360 rows in all; 340 rows for start-up (…), 20 rows for valve test (…)." */

@@ -47,7 +47,7 @@ describe('a time window left out', () => {
     expect(v.transitions.count).toBe(7);
     expect(v.transitions.episodeCount).toBe(2);
     expect(v.transitions.startStates.length).toBe(2) // one state per start;
-    expect(v.episodeReport.join(' ')).toContain('Time windows left out: 3 rows in all; 3 rows for valve test (30 s to 50 s (20 s))');
+    expect(v.episodeReport.join(' ')).toContain('Time windows left out: 3 rows in all; 3 rows for valve test (30 s to 50 s, 20 s)');
     expect(v.episodeReport.join(' ')).toContain('1 run cut in two by a time window left out');
   });
 
@@ -79,7 +79,7 @@ describe('a time window left out', () => {
     const v = imported([{ from: '2024-03-01 06:00:30', to: '2024-03-01T06:00:50', reason: 'test' }], log(-1, iso));
     expect(v.timeWindows[0].rows).toBe(3);
     expect(v.clock?.calendar).toBe(true);
-    expect(v.episodeReport.join(' ')).toContain('1 Mar 2024 06:00:30 to 1 Mar 2024 06:00:50 (20 s)');
+    expect(v.episodeReport.join(' ')).toContain('1 Mar 2024 06:00:30 to 1 Mar 2024 06:00:50, 20 s');
   });
 });
 

@@ -38,9 +38,9 @@ export function trendChartHeight(trend: TrendData): number {
   return TREND_DEFAULTS.frameHeightPx + TREND_DEFAULTS.bandHeightPx * Math.max(1, trend.signals.length);
 }
 
-/** "level_m (m) — state". */
+/** "level_m (m) — state"; a cost from an expression is named "cost" and says so once. */
 export function signalLabel(s: TrendSignal): string {
-  return `${s.name}${s.unit ? ` (${s.unit})` : ''} — ${s.role}`;
+  return `${s.name}${s.unit ? ` (${s.unit})` : ''}${s.name === s.role ? '' : ` — ${s.role}`}`;
 }
 
 /** The envelope as a line: (t, lo), (t, hi) per group; a gap where a group has no readable value. */
@@ -73,10 +73,12 @@ export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfigur
     borderColor: colours[k % colours.length], backgroundColor: colours[k % colours.length],
     borderWidth: TREND_DEFAULTS.lineWidthPx * s, pointRadius: 0, pointHitRadius: 4 * s, spanGaps: false,
   }));
+  // Chart.js stacks axes of one stack from the bottom up in the order they are declared: declared
+  // last to first, the first signal (a state) is the top band.
   const yScales = Object.fromEntries(trend.signals.map((_, k) => [`y${k}`, {
     ...valueAxis(look, '', 'left'), type: 'linear' as const, stack: 'signals', stackWeight: 1, offset: true, grace: '5%',
     ticks: { ...valueAxis(look, '', 'left').ticks, maxTicksLimit: 4 },
-  }]));
+  }]).reverse());
   const shared = sharedOptions(look, props.title, trendSubtitle(trend));
   const xTitle = trend.clock === 'line' ? 'line in the file' : trend.calendar ? 'time (the log’s clock)' : 'time from the log’s zero';
   return {
