@@ -25,6 +25,8 @@ export interface TrendData {
   /** True when the clock is calendar time (seconds since 1970), see core/clockText.ts. */
   readonly calendar: boolean;
   readonly time: Float64Array; // g: the first readable time (or line) of each group
+  /** The last readable time (or line) of all rows: where the last group ends. */
+  readonly endTime: number;
   readonly rowsPerGroup: number;
   readonly rowCount: number;
   readonly signals: readonly TrendSignal[];
@@ -51,6 +53,8 @@ export function signalEnvelope(
     const g = Math.floor(r / per);
     if (Number.isNaN(groupTime[g])) groupTime[g] = time[r];
   }
+  let endTime = NaN;
+  for (let r = rows - 1; r >= 0 && Number.isNaN(endTime); r--) endTime = time[r];
   const signals = inputs.map(({ name, role, unit, values }) => {
     const lo = new Float64Array(groups).fill(NaN), hi = new Float64Array(groups).fill(NaN);
     for (let r = 0; r < rows; r++) {
@@ -61,5 +65,5 @@ export function signalEnvelope(
     }
     return { name, role, unit, lo, hi };
   });
-  return { clock, calendar, time: groupTime, rowsPerGroup: per, rowCount: rows, signals };
+  return { clock, calendar, time: groupTime, endTime, rowsPerGroup: per, rowCount: rows, signals };
 }

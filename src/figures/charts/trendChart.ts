@@ -58,7 +58,7 @@ export function envelopePoints(time: Float64Array, signal: TrendSignal): XY[] {
 
 function timeRange(trend: TrendData): [number, number] {
   let min = Infinity, max = -Infinity;
-  for (const t of trend.time) {
+  for (const t of [...trend.time, trend.endTime]) {
     if (t < min) min = t;
     if (t > max) max = t;
   }
@@ -76,7 +76,7 @@ export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfigur
   // Chart.js stacks axes of one stack from the bottom up in the order they are declared: declared
   // last to first, the first signal (a state) is the top band.
   const yScales = Object.fromEntries(trend.signals.map((_, k) => [`y${k}`, {
-    ...valueAxis(look, '', 'left'), type: 'linear' as const, stack: 'signals', stackWeight: 1, offset: true, grace: '5%',
+    ...valueAxis(look, '', 'left'), type: 'linear' as const, stack: 'signals', stackWeight: 1, offset: true,
     ticks: { ...valueAxis(look, '', 'left').ticks, maxTicksLimit: 4 },
   }]).reverse());
   const shared = sharedOptions(look, props.title, trendSubtitle(trend));

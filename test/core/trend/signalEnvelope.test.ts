@@ -9,6 +9,7 @@ describe('min/max envelope of a logged signal', () => {
     const trend = signalEnvelope([{ name: 'level', role: 'state', unit: 'm', values }], time, 'seconds', false, 4);
     expect(trend.rowsPerGroup).toBe(3);
     expect(Array.from(trend.time)).toEqual([0, 30, 60, 90]);
+    expect(trend.endTime).toBe(90);
     expect(Array.from(trend.signals[0].lo)).toEqual([1, 2, -4, 7]);
     expect(Array.from(trend.signals[0].hi)).toEqual([5, 8, 0, 7]);
   });

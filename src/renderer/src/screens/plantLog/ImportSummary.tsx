@@ -62,10 +62,11 @@ function Counts({ result }: { result: DataImport }) {
   const s = result.summary;
   const n = (x: number): string => x.toLocaleString('en-US');
   const inWindows = windowRows(result), bad = s.excludedRowCount - inWindows;
-  const parts = [inWindows > 0 ? `${n(inWindows)} in time windows left out` : '', bad > 0 || inWindows === 0 ? `${n(bad)} that cannot be used` : ''].filter(Boolean);
+  const parts = [inWindows > 0 ? `${n(inWindows)} in time windows left out` : '', bad > 0 ? `${n(bad)} that cannot be used` : ''].filter(Boolean);
+  const used = parts.length === 0 ? 'all used' : `${n(s.usedRowCount)} used; left out: ${parts.join(', ')}`;
   return (
     <dl className="facts" data-testid="import-counts">
-      <dt>Rows</dt><dd data-testid="row-counts">{n(s.rowCount)} ({n(s.usedRowCount)} used; left out: {parts.join(', ')})</dd>
+      <dt>Rows</dt><dd data-testid="row-counts">{n(s.rowCount)} ({used})</dd>
       <dt>Transitions</dt><dd data-testid="transition-count">{n(s.transitionCount)}</dd>
       <dt>Runs</dt><dd data-testid="episode-count">{n(s.episodeCount)}</dd>
       {s.samplingPeriodSeconds !== null && <><dt>Sampling period</dt><dd data-testid="sampling-period">{durationText(s.samplingPeriodSeconds)} (median)</dd></>}

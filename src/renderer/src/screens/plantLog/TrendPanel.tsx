@@ -31,6 +31,7 @@ function useLastImport(): DataImport | null {
 
 export function TrendPanel() {
   const imported = useLastImport();
+  const importing = useSession().importState.status === 'importing';
   const theme = useStore(themeStore, same);
   const spec = useMemo<PlotSpec | null>(() => imported && {
     kind: 'trend',
@@ -41,7 +42,7 @@ export function TrendPanel() {
   }, [imported, theme]);
   if (!imported || !spec) return null;
   return (
-    <section className="panel" aria-labelledby="trend-heading" data-testid="trend-panel">
+    <section className="panel" aria-labelledby="trend-heading" aria-busy={importing} data-testid="trend-panel">
       <h3 id="trend-heading">Trend of the logged signals</h3>
       <p className="small muted">
         Every row of the file, states, actions and the {imported.trend.signals.at(-1)?.role ?? 'cost'} each on its own scale. Look for a start-up,
