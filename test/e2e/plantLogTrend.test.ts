@@ -94,7 +94,10 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
         // Nothing on the step is wider than the page.
         await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth), POLL).toBe(true);
         await page.getByTestId('trend-panel').scrollIntoViewIfNeeded();
+        // Drawn in this theme: the pixels on screen, not only the state attribute, which a redraw after the switch may not yet have reset.
+        await expect.poll(() => drawnPixels(page, page.getByTestId('plot-trend')).then((p) => p.drawnShare), POLL).toBeGreaterThan(0.02);
         await app.screenshot(`plant-log-trend-${theme}-${size.width}`);
+        await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-trend-panel-${theme}-${size.width}.png` });
       }
     }
     expect(app.consoleErrors).toEqual([]);

@@ -26,4 +26,11 @@ describe('time axis', () => {
     const points = envelopePoints(Float64Array.from([0, 10, 20]), { name: 'v', role: 'state', unit: '', lo: Float64Array.from([1, NaN, 2]), hi: Float64Array.from([3, NaN, 2]) });
     expect(points).toEqual([{ x: 0, y: 1 }, { x: 0, y: 3 }, { x: 10, y: null }, { x: 20, y: 2 }]);
   });
+
+  it('a stop in the log (a step over 3 × the median step of 10) is a gap, not a straight line across it', () => {
+    const flat = (n: number) => Float64Array.from({ length: n }, () => 1);
+    const points = envelopePoints(Float64Array.from([0, 10, 20, 30, 100, 110]), { name: 'v', role: 'state', unit: '', lo: flat(6), hi: flat(6) });
+    expect(points.map((p) => p.y)).toEqual([1, 1, 1, 1, null, 1, 1]);
+    expect(points[4].x).toBe(65);
+  });
 });

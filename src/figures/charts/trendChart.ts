@@ -43,17 +43,35 @@ export function signalLabel(s: TrendSignal): string {
   return `${s.name}${s.unit ? ` (${s.unit})` : ''}${s.name === s.role ? '' : ` — ${s.role}`}`;
 }
 
-/** The envelope as a line: (t, lo), (t, hi) per group; a gap where a group has no readable value. */
+/** A step between groups longer than this many times their median step is a stop in the log, drawn as a gap (a choice: the importer's default run gap is three sampling periods too). */
+export const TREND_GAP_STEPS = 3;
+
+/**
+ * The envelope as a line: (t, lo), (t, hi) per group; a gap where a group has no readable value
+ * and where the log stops (a step over TREND_GAP_STEPS × the median step), so no straight line is
+ * drawn across an overnight stop as if the plant had been logged there.
+ */
 export function envelopePoints(time: Float64Array, signal: TrendSignal): XY[] {
+  const gap = TREND_GAP_STEPS * medianStep(time);
   const points: XY[] = [];
+  let previous = NaN;
   for (let g = 0; g < time.length; g++) {
     const lo = signal.lo[g], hi = signal.hi[g], x = time[g];
     if (Number.isNaN(x)) continue;
+    if (x - previous > gap) points.push({ x: (x + previous) / 2, y: null });
+    previous = x;
     if (Number.isNaN(lo)) { points.push({ x, y: null }); continue; }
     points.push({ x, y: lo });
     if (hi !== lo) points.push({ x, y: hi });
   }
   return points;
+}
+
+function medianStep(time: Float64Array): number {
+  const steps: number[] = [];
+  for (let g = 1; g < time.length; g++) if (time[g] > time[g - 1]) steps.push(time[g] - time[g - 1]);
+  steps.sort((a, b) => a - b);
+  return steps.length ? steps[steps.length >> 1] : Infinity;
 }
 
 function timeRange(trend: TrendData): [number, number] {
