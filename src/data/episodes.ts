@@ -1,8 +1,8 @@
 /**
  * Which rows belong to which episode. Only kept rows (not excluded) take part; an episode is a
  * run of kept rows in file order, cut where the episode column changes value, where the
- * timestamp jumps by more than the allowed gap, and after every terminal row (the plant was
- * reset, so the next row starts afresh).
+ * timestamp jumps by more than the allowed gap, after every terminal row (the plant was
+ * reset, so the next row starts afresh), and after a time window left out (timeWindows.ts).
  */
 import type { ColumnRoles } from '../project/schema';
 import { formatCount, formatSeconds, plural } from './reportFormat';
@@ -25,6 +25,8 @@ export interface EpisodeInputs {
   readonly terminal?: Float64Array; // records; 1 = next state terminal
   readonly labels?: { codes: Float64Array; values: string[] }; // episode column
   readonly timestampsSeconds?: Float64Array; // timeGap column
+  /** Per record, non-zero where it lies in a time window left out (timeWindows.ts): the episode is cut there. */
+  readonly inWindow?: Uint16Array; // records
   /** True for an excluded record that is a blank line (it holds no row of any episode). */
   readonly isBlankLine?: (record: number) => boolean;
   readonly lineOf: (record: number) => number;
@@ -37,13 +39,19 @@ export function assignEpisodes(rule: ColumnRoles['episode'], inputs: EpisodeInpu
   const episodeOf = new Int32Array(kept.length).fill(-1);
   const startsNew = boundaryRule(rule, inputs);
   const firstRows: number[] = [];
-  let episode = -1, previous = -1, terminalCuts = 0;
+  let episode = -1, previous = -1, terminalCuts = 0, windowCuts = 0, afterWindow = false;
   for (let r = 0; r < kept.length; r++) {
-    if (!kept[r]) continue;
+    if (!kept[r]) {
+      afterWindow ||= (inputs.inWindow?.[r] ?? 0) > 0;
+      continue;
+    }
     const afterTerminal = previous >= 0 && inputs.terminal?.[previous] === 1;
     const ruleCut = previous < 0 || startsNew.cut(previous, r);
     if (afterTerminal && !ruleCut) terminalCuts++;
-    if (ruleCut || afterTerminal) {
+    const windowCut = previous >= 0 && afterWindow && !ruleCut && !afterTerminal;
+    if (windowCut) windowCuts++;
+    afterWindow = false;
+    if (ruleCut || afterTerminal || windowCut) {
       episode++;
       firstRows.push(r);
     }
@@ -55,6 +63,7 @@ export function assignEpisodes(rule: ColumnRoles['episode'], inputs: EpisodeInpu
   if (terminalCuts > 0) {
     report.push(`${terminalCuts} terminal row${terminalCuts === 1 ? '' : 's'} ended an episode before the episode rule did; the following row starts a new episode.`);
   }
+  if (windowCuts > 0) report.push(`${plural(windowCuts, 'run')} cut in two by a time window left out (one more episode each).`);
   report.push(...lostStartReport(hasStart, firstRows, inputs.lineOf));
   return { episodeOf, episodeCount: episode + 1, hasStart, report };
 }
@@ -70,6 +79,8 @@ function startIsFirstRow(r: number, rule: BoundaryRule, inputs: EpisodeInputs): 
   for (let q = r - 1; q >= 0; q--) {
     if (inputs.kept[q]) return true;
     if (inputs.isBlankLine?.(q)) continue;
+    // The plant was elsewhere (a start-up, a test) and the present controller takes over again here.
+    if ((inputs.inWindow?.[q] ?? 0) > 0) return true;
     return inputs.terminal?.[q] === 1 || rule.apart(q, r);
   }
   return true;

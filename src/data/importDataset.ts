@@ -26,10 +26,14 @@ import { computeDerivedStates, withoutFirstRows } from './derivedStates';
 import { plural } from './reportFormat';
 import { buildTransitions } from './transitionBuilder';
 import { constantStateWarnings, summariseDataset, type DatasetSummary } from './datasetSummary';
-import { dialectReport, excludedRows, excludedWarning, rowProblemList, type ExcludedRow } from './importReport';
+import { badRowsHint, dialectReport, excludedRows, excludedWarning, rowProblemList, type ExcludedRow } from './importReport';
+import { leftOutWindows, logClock, readTimeWindows, recordsInWindows, windowReport, type LeftOutWindow, type LogClock, type TimeWindow } from './timeWindows';
+import { trendOfImport, type TrendData } from './trendSeries';
 
 export type { DatasetSummary, ColumnSummary } from './datasetSummary';
 export type { ExcludedRow } from './importReport';
+export type { LeftOutWindow, LogClock } from './timeWindows';
+export type { TrendData, TrendSignal } from './trendSeries';
 export type { ImportProblem, ImportProblemKind } from './importProblem';
 
 export interface ImportedDataset {
@@ -41,6 +45,12 @@ export interface ImportedDataset {
   episodeReport: string[];
   /** Data rows read (without the header and blank lines at the end). */
   rowCount: number;
+  /** Each time window left out (data.csv.excludedTimes) and how many rows it left out; their rows are in summary.excludedRowCount, not in `excluded`. */
+  timeWindows: LeftOutWindow[];
+  /** The timestamp column's first and last time, when there is one. */
+  clock?: LogClock;
+  /** The logged signals over every row, as min/max envelopes for drawing (trendSeries.ts). */
+  trend: TrendData;
 }
 
 const lineOf = (record: number): number => record + 2;
@@ -65,11 +75,17 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
     return failure(importProblem('header-only', `${fileName}, line 2`, 'the file has a header line but no data rows below it'));
   }
   const timestamps = settleTimestampColumn(columns, table, problems);
+  const clock = timestamps && logClock(timestamps.seconds);
+  const read = readTimeWindows(csv.excludedTimes ?? [], timestamps?.column, timestamps?.decision.order ?? 'dayFirst', clock);
+  if (read.problems.length > 0) return failure(...read.problems);
   const rewards = rewardColumn(columns.reward, plan.rewardExpression, table.numbers, table.recordCount, problems);
   const episodeCodes = columns.episode.kind === 'column' ? table.labels.get(columns.episode.column)?.codes : undefined;
   if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf, episodeCodes);
-  if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf));
-  return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding });
+  // A row in a time window left out is not a bad row: its problems neither stop the import nor list it twice.
+  const inWindow = recordsInWindows(read.windows, timestamps?.seconds, table.recordCount);
+  inWindow.forEach((w, r) => { if (w > 0) problems.forget(r); });
+  if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf), badRowsHint(problems.badRecords().length, fileName));
+  return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding, clock, windows: read.windows, inWindow });
 }
 
 function settleTimestampColumn(columns: ColumnRoles, table: TableColumns, problems: RowProblems): (SettledTimestamps & { column: string }) | undefined {
@@ -88,16 +104,23 @@ interface Stages {
   rewards: Float64Array;
   timestamps?: SettledTimestamps & { column: string };
   encoding: { name: TextEncodingName; how: 'byte-order mark' | 'detected' };
+  clock?: LogClock;
+  windows: TimeWindow[];
+  inWindow: Uint16Array; // records: 1 + the window holding the record, or 0
 }
 
 function assemble(s: Stages): Result<ImportedDataset> {
   const { columns, table, fileName } = s;
   const kept = new Uint8Array(table.recordCount).fill(1);
   for (const r of s.problems.badRecords()) kept[r] = 0;
-  if (!kept.includes(1)) return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, 'every data row has a problem, so no row is left to import'));
+  s.inWindow.forEach((w, r) => { if (w > 0) kept[r] = 0; });
+  if (!kept.includes(1)) {
+    const why = s.windows.length === 0 ? 'every data row has a problem' : 'every data row has a problem or lies in a time window left out';
+    return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, `${why}, so no row is left to import`));
+  }
   const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
   const episodeInputs = {
-    kept, terminal, lineOf,
+    kept, terminal, lineOf, inWindow: s.inWindow,
     labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
     timestampsSeconds: s.timestamps?.seconds,
     isBlankLine: (r: number) => s.problems.firstProblem(r)?.problem.kind === 'blank-line',
@@ -120,8 +143,14 @@ function assemble(s: Stages): Result<ImportedDataset> {
   const summary = summarise(s, kept, transitions, derivedValues, usedRows);
   const excluded = excludedRows(s.problems, lineOf);
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
-  const episodeReport = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding), ...episodes.report, ...derived.report, ...report];
-  return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount }, warnings);
+  const timeWindows = leftOutWindows(s.windows, s.inWindow);
+  const calendar = s.clock?.calendar ?? false;
+  const episodeReport = [
+    ...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding),
+    ...windowReport(timeWindows, calendar), ...episodes.report, ...derived.report, ...report,
+  ];
+  const trend = trendOfImport(columns, table.numbers, s.rewards, s.timestamps?.seconds, table.recordCount, lineOf);
+  return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
 }
 
 /**

@@ -14,12 +14,16 @@ export type ImportProblemKind =
   // one row or one cell
   | 'blank-line' | 'ragged-row' | 'quote' | 'empty-cell' | 'not-a-number' | 'not-finite' | 'bad-flag'
   | 'empty-episode' | 'bad-timestamp' | 'invalid-date' | 'timestamp-backwards' | 'reward-not-finite'
+  // a time window left out that cannot be used; the closing hint of an import stopped by bad rows
+  | 'bad-time-window' | 'bad-rows'
   // warnings
   | 'unused-duplicate-column' | 'constant-state' | 'rows-excluded' | 'actions-outside-bounds'
   | 'few-transitions' | 'too-few-transitions';
 
 export interface ImportProblem extends Problem {
   readonly kind: ImportProblemKind;
+  /** For 'bad-rows': how many rows cannot be used (the problems listed may be fewer). */
+  readonly rows?: number;
 }
 
 export function importProblem(kind: ImportProblemKind, where: string, message: string): ImportProblem {

@@ -28,9 +28,25 @@ export function rowProblemList(problems: RowProblems, fileName: string, lineOf: 
   const more = problems.count - listed.length;
   if (more > 0) {
     listed.push(importProblem('more-problems', fileName,
-      `… and ${plural(more, 'more problem')} (${formatCount(problems.count)} in all, the first ${LISTED_PROBLEMS} shown); fix the file, or set bad rows to "exclude" to import without those rows`));
+      `… and ${plural(more, 'more problem')} (${formatCount(problems.count)} in all, the first ${LISTED_PROBLEMS} shown)`));
   }
   return listed;
+}
+
+/**
+ * The closing problem of an import stopped by rows that cannot be used: how many, and how to
+ * import without them, in the words of the Plant log step and of the project file. `rows` carries
+ * the count as data, so the app can offer the switch with it.
+ */
+export function badRowsHint(rows: number, fileName: string): ImportProblem {
+  const them = rows === 1 ? 'it' : 'them';
+  return {
+    ...importProblem('bad-rows', fileName,
+      `${plural(rows, 'row')} cannot be used. To import without ${them}, fix the file, or on the Plant log step set “Rows that cannot be used” to `
+      + `“Leave them out and list them” (in the project file: "badRows": "exclude" under data.csv); each row left out is then counted and listed with its reason. `
+      + 'To leave out a whole period instead (a start-up, a plant test), add a time window left out (data.csv.excludedTimes).'),
+    rows,
+  };
 }
 
 export function excludedRows(problems: RowProblems, lineOf: (record: number) => number): ExcludedRow[] {

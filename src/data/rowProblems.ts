@@ -21,6 +21,7 @@ export class RowProblems {
   private readonly firstByRecord = new Map<number, RowProblem>();
   private readonly countByRecord = new Map<number, number>();
   private total = 0;
+  private readonly forgotten = new Set<number>();
 
   add(record: number, column: string | undefined, kind: ImportProblemKind, reason: string): void {
     const problem: RowProblem = column === undefined ? { record, kind, reason } : { record, kind, column, reason };
@@ -32,6 +33,16 @@ export class RowProblems {
 
   get count(): number {
     return this.total;
+  }
+
+  /** Forget every problem of a record the project leaves out anyway (a row in a time window left out). */
+  forget(record: number): void {
+    const count = this.countByRecord.get(record);
+    if (count === undefined) return;
+    this.total -= count;
+    this.firstByRecord.delete(record);
+    this.countByRecord.delete(record);
+    this.forgotten.add(record);
   }
 
   isBad(record: number): boolean {
@@ -51,6 +62,7 @@ export class RowProblems {
 
   /** Stored problems in file order (record, then the order they were found). */
   inFileOrder(): RowProblem[] {
-    return this.stored.map((p, i) => ({ p, i })).sort((a, b) => a.p.record - b.p.record || a.i - b.i).map(({ p }) => p);
+    const stored = this.forgotten.size === 0 ? this.stored : this.stored.filter((p) => !this.forgotten.has(p.record));
+    return stored.map((p, i) => ({ p, i })).sort((a, b) => a.p.record - b.p.record || a.i - b.i).map(({ p }) => p);
   }
 }

@@ -31,7 +31,7 @@ function policyJson(p: Omit<PolicyEstimate, 'surface'> & { surface?: ValueSurfac
   };
 }
 
-/** The import's account for `--json`: counts, the rules that made episodes, and every excluded row. */
+/** The import's account for `--json`: counts, the rules that made episodes, every excluded row and the time windows left out. */
 export function importToJson(imported: ImportedDataset): Record<string, unknown> {
   const s = imported.summary;
   return {
@@ -46,5 +46,7 @@ export function importToJson(imported: ImportedDataset): Record<string, unknown>
     dateOrder: s.dateOrder,
     report: imported.episodeReport,
     excluded: imported.excluded,
+    /** Each time window left out, in seconds on the timestamp column's clock, and the rows it left out. */
+    timeWindows: imported.timeWindows,
   };
 }

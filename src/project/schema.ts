@@ -52,11 +52,32 @@ const episodeSchema = z.discriminatedUnion('kind', [
   strictObject({ kind: z.literal('single') }),
 ]);
 
+/** A time in the timestamp column's own terms: seconds (a number), or a date and time written like its cells (src/data/timestampCell.ts). */
+const timeValue = z.union([finite, z.string().trim().min(1, 'expected a time, e.g. "2024-03-01 06:00" or a number of seconds').max(64)]);
+
+/**
+ * A time window left out of the import (a start-up, a plant test): rows with a timestamp from
+ * `from` to `to` (both included) are left out and counted, and the run is cut there
+ * (src/data/timeWindows.ts). Windows that need the log to be checked (outside it, overlapping,
+ * unreadable) are checked on import.
+ */
+export const excludedTimeSchema = strictObject({
+  from: timeValue,
+  to: timeValue,
+  reason: z.string().trim().max(200).default(''),
+}).superRefine((w, ctx) => {
+  if (typeof w.from === 'number' && typeof w.to === 'number' && w.to < w.from) {
+    ctx.addIssue({ code: 'custom', path: ['to'], message: `the window ends (${w.to}) before it starts (${w.from}); expected an end at or after the start` });
+  }
+});
+
 export const csvSettingsSchema = strictObject({
   delimiter: z.enum(['auto', ',', ';', '\t']).default('auto'),
   decimalMark: z.enum(['auto', '.', ',']).default('auto'),
   /** What to do with a row that cannot be used: stop the import, or exclude it (counted and listed). */
   badRows: z.enum(['stop', 'exclude']).default('stop'),
+  /** Time windows whose rows are left out (needs a timestamp column); the rows are counted per window. */
+  excludedTimes: z.array(excludedTimeSchema).max(100, 'expected at most 100 time windows left out').optional(),
 });
 
 export const dataSourceSchema = strictObject({
@@ -343,6 +364,7 @@ export type DerivedStateSpec = z.infer<typeof derivedStateSchema>;
 export type RetuneMapSpec = z.infer<typeof retuneMapSchema>;
 export type ColumnRoles = z.infer<typeof columnRolesSchema>;
 export type CsvSettings = z.infer<typeof csvSettingsSchema>;
+export type ExcludedTime = z.infer<typeof excludedTimeSchema>;
 export type ApproximatorSettings = z.infer<typeof approximatorSchema>;
 export type BootstrapSettings = z.infer<typeof bootstrapSchema>;
 export type SavedResults = z.infer<typeof resultsSchema>;

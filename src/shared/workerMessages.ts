@@ -8,7 +8,7 @@
  */
 import type { BehaviourModel } from '../core/behaviourModel';
 import type { Problem } from '../core/result';
-import type { DatasetSummary, ExcludedRow } from '../data/importDataset';
+import type { DatasetSummary, ExcludedRow, LeftOutWindow, LogClock, TrendData } from '../data/importDataset';
 import type { Assessment } from '../pipeline/assessment';
 import type { AssessmentProgress } from '../pipeline/assessProject';
 import type { Evaluation, ValueSurface } from '../pipeline/estimates';
@@ -56,6 +56,12 @@ export interface DataImport {
   stateRanges: [number, number][];
   sample: LoggedSample;
   behaviour: BehaviourFit;
+  /** Each time window left out and the rows it left out (their rows are in summary.excludedRowCount, not in `excluded`). */
+  timeWindows: LeftOutWindow[];
+  /** The timestamp column's first and last time, when there is one. */
+  clock?: LogClock;
+  /** The logged signals over every row as min/max envelopes, for the Plant log step's trend. */
+  trend: TrendData;
 }
 
 export const EXCLUDED_ROWS_SHOWN = 1000;

@@ -94,7 +94,26 @@ describe('bad files fail with a precise first problem', () => {
     expect(first.kind).toBe(c.kind);
     expect(first.where).toBe(c.where);
     expect(first.message).toContain(c.message);
-    if (c.problems !== undefined) expect(result.problems).toHaveLength(c.problems);
+    // An import stopped by rows that cannot be used closes with how to leave them out (kind 'bad-rows').
+    const rows = result.problems.filter((p) => (p as ImportProblem).kind !== 'bad-rows');
+    if (c.problems !== undefined) expect(rows).toHaveLength(c.problems);
+    const hint = result.problems.find((p) => (p as ImportProblem).kind === 'bad-rows') as ImportProblem | undefined;
+    if (hint) {
+      expect(result.problems[result.problems.length - 1]).toBe(hint);
+      expect(hint.message).toContain('“Rows that cannot be used” to “Leave them out and list them”');
+      expect(hint.message).toContain('"badRows": "exclude"');
+      expect(hint.rows).toBeGreaterThan(0);
+    }
+  });
+
+  it('every case stopped by its rows (a cell, a line, a timestamp) says how to leave those rows out', () => {
+    const rowKinds = new Set(['ragged-row', 'quote', 'empty-cell', 'not-a-number', 'not-finite', 'bad-flag', 'empty-episode', 'bad-timestamp', 'invalid-date', 'timestamp-backwards', 'reward-not-finite', 'blank-line']);
+    const stoppedByRows = FAILURES.filter((c) => rowKinds.has(c.kind) && c.csv?.badRows !== 'exclude');
+    expect(stoppedByRows.length).toBeGreaterThanOrEqual(8);
+    for (const c of stoppedByRows) {
+      const result = run(c);
+      expect(!result.ok && (result.problems.at(-1) as ImportProblem).kind, c.file).toBe('bad-rows');
+    }
   });
 
   it('the corpus has at least 25 failing cases, each on its own fixture', () => {
@@ -107,12 +126,15 @@ describe('long problem lists and exclusion', () => {
     const result = run({ file: 'many-bad-rows.csv' });
     expect(result.ok).toBe(false);
     if (result.ok) return;
-    expect(result.problems).toHaveLength(51);
+    expect(result.problems).toHaveLength(52);
     expect(result.problems[0].where).toBe('many-bad-rows.csv, line 2, column level_m');
     expect(result.problems[49].where).toBe('many-bad-rows.csv, line 51, column level_m');
     const last = result.problems[50] as ImportProblem;
     expect(last.kind).toBe('more-problems');
     expect(last.message).toContain('… and 10 more problems (60 in all, the first 50 shown)');
+    // 60 problems on 60 rows (one bad cell per row): the closing hint counts rows, as data too.
+    expect(result.problems[51]).toMatchObject({ kind: 'bad-rows', rows: 60, where: 'many-bad-rows.csv' });
+    expect(result.problems[51].message).toMatch(/^60 rows cannot be used\. To import without them/);
   });
 
   it('all-rows-bad.csv with bad rows excluded: every row listed, then "no row is left"', () => {

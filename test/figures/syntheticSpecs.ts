@@ -8,9 +8,10 @@ import { meanActionCurve } from '../../src/figures/parts/meanActionCurve';
 import { bowlSurface, clippedSlice, geometricHistory, threeCandidateEvaluation } from './syntheticPlotData';
 import { discountSweep } from './syntheticSensitivity';
 import { syntheticRetuneMap } from './syntheticRetuneMap';
+import { signalEnvelope } from '../../src/core/trend/signalEnvelope';
 
 export type PlotKind = PlotSpec['kind'];
-export const ALL_PLOT_KINDS: readonly PlotKind[] = ['surface', 'slice', 'convergence', 'comparison', 'sensitivity', 'candidates', 'interval', 'retuneMap'];
+export const ALL_PLOT_KINDS: readonly PlotKind[] = ['surface', 'slice', 'convergence', 'comparison', 'sensitivity', 'candidates', 'interval', 'retuneMap', 'trend'];
 
 const LIMITS = { lo: [0], hi: [100], mode: 'clip' as const };
 
@@ -59,5 +60,26 @@ export function syntheticSpec(kind: PlotKind, theme: Theme): PlotSpec {
       };
     case 'retuneMap':
       return { kind, props: { map: syntheticRetuneMap(), valueLabel: 'J, discounted cost (kWh)', sense: 'cost', title: 'Retune map: PI on the supply temperature', theme } };
+    case 'trend':
+      return { kind, props: { trend: tankTrend(), windows: [{ fromSeconds: START + 6 * 3600, toSeconds: START + 9 * 3600, label: 'valve test' }], title: 'Logged signals over time', theme } };
   }
+}
+
+/** 1 Mar 2024 00:00 (seconds since 1970): the invented tank log's first row. */
+const START = Date.UTC(2024, 2, 1) / 1000;
+
+/** Two days of an invented tank log every 60 s: a level, a valve and a cost, as min/max envelopes. */
+export function tankTrend() {
+  const n = 2 * 1440, time = new Float64Array(n), level = new Float64Array(n), valve = new Float64Array(n), cost = new Float64Array(n);
+  for (let k = 0; k < n; k++) {
+    time[k] = START + 60 * k;
+    level[k] = 1.5 + 0.3 * Math.sin((2 * Math.PI * k) / 1440) + 0.05 * Math.sin(k * 2.399);
+    valve[k] = 40 + 15 * Math.sin((2 * Math.PI * k) / 720 + 1);
+    cost[k] = (level[k] - 1.5) ** 2 + 0.001 * valve[k];
+  }
+  return signalEnvelope([
+    { name: 'level_upper', role: 'state', unit: 'm', values: level },
+    { name: 'inflow_valve', role: 'action', unit: '%', values: valve },
+    { name: 'cost', role: 'cost', unit: 'kWh', values: cost },
+  ], time, 'seconds', true, 800);
 }

@@ -12,6 +12,7 @@ import type { PlotLook } from '../parts/plotLook';
 import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueChartHeight, policyValueSummary, type PolicyValueChartProps } from '../charts/policyValueChart';
 import { retuneMapChart, retuneMapHeight, retuneMapSummary, type RetuneMapPlotProps } from '../charts/retuneMap';
 import { SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../charts/sensitivity';
+import { trendChart, trendChartHeight, trendSummary, type TrendPlotProps } from '../charts/trendChart';
 import { VALUE_SURFACE_DEFAULTS, valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../charts/valueSurface';
 
 export type PlotSpec =
@@ -22,7 +23,8 @@ export type PlotSpec =
   | { kind: 'sensitivity'; props: SensitivityPlotProps }
   | { kind: 'candidates'; props: CandidateActionsPlotProps }
   | { kind: 'interval'; props: IntervalChartProps }
-  | { kind: 'retuneMap'; props: RetuneMapPlotProps };
+  | { kind: 'retuneMap'; props: RetuneMapPlotProps }
+  | { kind: 'trend'; props: TrendPlotProps };
 
 export interface ExportOptions {
   widthPx: number;
@@ -46,6 +48,7 @@ export function plotChartConfig(spec: PlotSpec, look: PlotLook): ChartConfigurat
     case 'candidates': return candidateActionsChart(spec.props, look) as unknown as ChartConfiguration;
     case 'interval': return intervalChart(spec.props, look) as unknown as ChartConfiguration;
     case 'retuneMap': return retuneMapChart(spec.props, look);
+    case 'trend': return trendChart(spec.props, look) as unknown as ChartConfiguration;
   }
 }
 
@@ -59,6 +62,7 @@ export function plotSummary(spec: PlotSpec): string {
     case 'candidates': return candidateActionsSummary(spec.props);
     case 'interval': return intervalSummary(spec.props);
     case 'retuneMap': return retuneMapSummary(spec.props);
+    case 'trend': return trendSummary(spec.props);
   }
 }
 
@@ -79,5 +83,6 @@ export function plotScreenHeight(spec: PlotSpec): number {
     case 'candidates': return CANDIDATE_ACTIONS_DEFAULTS.heightPx;
     case 'interval': return intervalChartHeight(spec.props.rows.length);
     case 'retuneMap': return retuneMapHeight(spec.props.map);
+    case 'trend': return trendChartHeight(spec.props.trend);
   }
 }

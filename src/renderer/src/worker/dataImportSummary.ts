@@ -26,6 +26,9 @@ export function dataImportSummary(opened: OpenedProject): DataImport {
     stateRanges: ranges,
     sample: loggedSample(dataset, LOGGED_SAMPLE_SIZE),
     behaviour: behaviourFit(dataset),
+    timeWindows: imported.timeWindows,
+    ...(imported.clock ? { clock: imported.clock } : {}),
+    trend: imported.trend,
   };
 }
 

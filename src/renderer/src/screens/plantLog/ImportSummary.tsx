@@ -1,16 +1,21 @@
 /**
- * What the import made of the file: counts, each used column's range, mean, spread and histogram,
- * the rows left out with their reasons, the importer's warnings and report, or its errors exactly
- * as it words them (file, line, column).
+ * What the import made of the file: counts, each used column's unit, range, mean, spread and
+ * histogram (times and durations written readably), the rows left out with their reasons, the
+ * importer's warnings and report, or its errors exactly as it words them (file, line, column) —
+ * with, when rows cannot be used, the one click that imports without them.
  */
+import { clockText, durationText } from '../../../../core/clockText';
+import type { ProjectDocument } from '../../../../project/schema';
 import { ProblemList } from '../../components/ProblemList';
 import { Histogram } from '../../components/Histogram';
 import { formatNumber } from '../../format/numberFormat';
-import { useSession } from '../../hooks';
+import { useDocument, useSession } from '../../hooks';
+import { useWorkspace } from '../../WorkspaceContext';
 import type { DataImport } from '../../../../shared/workerMessages';
 
 export function ImportSummary() {
   const state = useSession().importState;
+  const doc = useDocument();
   if (state.status === 'idle') return null;
   if (state.status === 'importing') return <section className="panel" aria-busy="true"><h3>Import</h3><p>Importing…</p></section>;
   if (state.status === 'failed') {
@@ -18,6 +23,7 @@ export function ImportSummary() {
       <section className="panel" aria-labelledby="import-heading">
         <h3 id="import-heading">Import</h3>
         <ProblemList title="The data could not be imported" problems={state.problems} testId="import-errors" />
+        <LeaveOutBadRows problems={state.problems} />
       </section>
     );
   }
@@ -28,34 +34,72 @@ export function ImportSummary() {
       <Counts result={result} />
       <ProblemList title="Warnings" problems={result.warnings} tone="warning" testId="import-warnings" />
       {result.episodeReport.length > 0 && <ul className="small muted">{result.episodeReport.map((line) => <li key={line}>{line}</li>)}</ul>}
-      <ColumnTable result={result} />
+      <ColumnTable result={result} units={unitsOf(doc)} />
       <ExcludedRows result={result} />
     </section>
   );
 }
 
+/** When the import stopped on rows that cannot be used: import without them in one click (undoable). */
+function LeaveOutBadRows({ problems }: { problems: readonly { kind?: string; rows?: number }[] }) {
+  const { documents } = useWorkspace();
+  const hint = problems.find((p) => p.kind === 'bad-rows');
+  if (!hint?.rows) return null;
+  const leaveOut = (): void => documents.edit('leave out the rows that cannot be used', (d) => ({ ...d, data: { ...d.data, csv: { ...d.data.csv, badRows: 'exclude' } } }));
+  return (
+    <button onClick={leaveOut} data-testid="leave-out-bad-rows">
+      Leave out the {hint.rows.toLocaleString('en-US')} row{hint.rows === 1 ? '' : 's'} that cannot be used
+    </button>
+  );
+}
+
+/** Rows left out in time windows (counted per window) and rows that cannot be used (listed). */
+function windowRows(result: DataImport): number {
+  return result.timeWindows.reduce((sum, w) => sum + w.rows, 0);
+}
+
 function Counts({ result }: { result: DataImport }) {
   const s = result.summary;
   const n = (x: number): string => x.toLocaleString('en-US');
+  const inWindows = windowRows(result), bad = s.excludedRowCount - inWindows;
+  const parts = [inWindows > 0 ? `${n(inWindows)} in time windows left out` : '', bad > 0 ? `${n(bad)} that cannot be used` : ''].filter(Boolean);
+  const used = parts.length === 0 ? 'all used' : `${n(s.usedRowCount)} used; left out: ${parts.join(', ')}`;
   return (
     <dl className="facts" data-testid="import-counts">
-      <dt>Rows</dt><dd>{n(s.rowCount)} ({n(s.usedRowCount)} used, {n(s.excludedRowCount)} excluded)</dd>
+      <dt>Rows</dt><dd data-testid="row-counts">{n(s.rowCount)} ({used})</dd>
       <dt>Transitions</dt><dd data-testid="transition-count">{n(s.transitionCount)}</dd>
-      <dt>Episodes</dt><dd data-testid="episode-count">{n(s.episodeCount)}</dd>
-      {s.samplingPeriodSeconds !== null && <><dt>Sampling period</dt><dd>{formatNumber(s.samplingPeriodSeconds)} s (median)</dd></>}
+      <dt>Runs</dt><dd data-testid="episode-count">{n(s.episodeCount)}</dd>
+      {s.samplingPeriodSeconds !== null && <><dt>Sampling period</dt><dd data-testid="sampling-period">{durationText(s.samplingPeriodSeconds)} (median)</dd></>}
+      {result.clock && <><dt>Time span</dt><dd>{clockText(result.clock.firstSeconds, result.clock.calendar)} to {clockText(result.clock.lastSeconds, result.clock.calendar)} ({durationText(result.clock.lastSeconds - result.clock.firstSeconds)})</dd></>}
     </dl>
   );
 }
 
-function ColumnTable({ result }: { result: DataImport }) {
+/** Each column's unit from the project: states, actions, the reward or cost, derived states. */
+function unitsOf(doc: ProjectDocument): Map<string, string> {
+  const c = doc.columns, units = new Map<string, string>();
+  for (const s of [...c.states, ...c.actions]) if (s.unit) units.set(s.column, s.unit);
+  for (const d of c.derived ?? []) if (d.unit) units.set(d.name, d.unit);
+  if (c.reward.kind === 'column' && c.reward.unit) units.set(c.reward.column, c.reward.unit);
+  return units;
+}
+
+/** A timestamp column's statistics are times (min, max, mean) and a duration (spread); others are numbers. */
+function statistics(c: DataImport['summary']['columns'][number], result: DataImport): string[] {
+  if (!c.roles.includes('timestamp')) return [c.min, c.max, c.mean, c.std].map((x) => formatNumber(x));
+  const calendar = result.clock?.calendar ?? false;
+  return [clockText(c.min, calendar), clockText(c.max, calendar), clockText(c.mean, calendar), durationText(c.std)];
+}
+
+function ColumnTable({ result, units }: { result: DataImport; units: ReadonlyMap<string, string> }) {
   return (
     <div className="table-scroll">
       <table>
         <caption className="sr-only">Statistics of the used columns over the rows kept</caption>
         <thead>
           <tr>
-            <th scope="col">Column</th><th scope="col">Role</th><th scope="col" className="number">Min</th><th scope="col" className="number">Max</th>
-            <th scope="col" className="number">Mean</th><th scope="col" className="number">Std</th><th scope="col">Histogram</th>
+            <th scope="col">Column</th><th scope="col">Role</th><th scope="col">Unit</th><th scope="col" className="number">Min</th><th scope="col" className="number">Max</th>
+            <th scope="col" className="number">Mean</th><th scope="col" className="number">Std dev</th><th scope="col">Histogram</th>
           </tr>
         </thead>
         <tbody>
@@ -63,8 +107,8 @@ function ColumnTable({ result }: { result: DataImport }) {
             <tr key={c.name}>
               <th scope="row" className="mono">{c.name}</th>
               <td>{c.roles.join(', ')}</td>
-              <td className="number">{formatNumber(c.min)}</td><td className="number">{formatNumber(c.max)}</td>
-              <td className="number">{formatNumber(c.mean)}</td><td className="number">{formatNumber(c.std)}</td>
+              <td data-testid={`stat-unit-${c.name}`}>{c.roles.includes('timestamp') ? (result.clock?.calendar ? 'date and time' : 's') : units.get(c.name) ?? '—'}</td>
+              {statistics(c, result).map((text, k) => <td key={k} className="number">{text}</td>)}
               <td><Histogram histogram={c.histogram} label={c.name} /></td>
             </tr>
           ))}
@@ -75,11 +119,11 @@ function ColumnTable({ result }: { result: DataImport }) {
 }
 
 function ExcludedRows({ result }: { result: DataImport }) {
-  const total = result.summary.excludedRowCount;
+  const total = result.summary.excludedRowCount - windowRows(result);
   if (total === 0) return null;
   return (
     <>
-      <h4>Rows left out ({total.toLocaleString('en-US')}{result.excluded.length < total ? `, the first ${result.excluded.length} listed` : ''})</h4>
+      <h4>Rows that cannot be used, left out ({total.toLocaleString('en-US')}{result.excluded.length < total ? `, the first ${result.excluded.length} listed` : ''})</h4>
       <div className="table-scroll">
         <table data-testid="excluded-rows">
           <thead><tr><th scope="col" className="number">Line</th><th scope="col">Column</th><th scope="col">Reason</th></tr></thead>

@@ -3,6 +3,7 @@ import { ColumnRoleTable } from './ColumnRoleTable';
 import { CsvSettingsPanel } from './CsvSettingsPanel';
 import { DataSourcePanel } from './DataSourcePanel';
 import { ImportSummary } from './ImportSummary';
+import { TrendPanel } from './TrendPanel';
 import { ProjectNameFields } from './ProjectNameFields';
 import { RewardAndEpisodes } from './RewardAndEpisodes';
 import { useDocument, useSession } from '../../hooks';
@@ -33,6 +34,7 @@ export function PlantLogScreen(props: { onNext: () => void }) {
         </>
       )}
       <ImportSummary />
+      {session.inspection && <TrendPanel />}
       <button className="primary" onClick={props.onNext} disabled={session.importState.status !== 'done'} data-testid="next-candidates">
         Next: candidates
       </button>

@@ -1,0 +1,30 @@
+/**
+ * The import's trend: the project's states, actions and reward or cost over every row of the file,
+ * on the timestamp column's clock (or line numbers without one), as min/max envelopes
+ * (core/trend/signalEnvelope.ts). A cost is drawn as a cost, a reward as a reward.
+ */
+import type { ColumnRoles } from '../project/schema';
+import { isCalendarClock } from '../core/clockText';
+import { signalEnvelope, type TrendData, type TrendInput } from '../core/trend/signalEnvelope';
+
+export type { TrendData, TrendSignal } from '../core/trend/signalEnvelope';
+
+/** numbers: every numeric column read (rows each); rewards: rows, the reward (a cost negated). */
+export function trendOfImport(
+  columns: ColumnRoles, numbers: ReadonlyMap<string, Float64Array>, rewards: Float64Array,
+  seconds: Float64Array | undefined, rowCount: number, lineOf: (record: number) => number,
+): TrendData {
+  const inputs: TrendInput[] = [];
+  for (const c of columns.states) {
+    const values = numbers.get(c.column);
+    if (values) inputs.push({ name: c.column, role: 'state', unit: c.unit ?? '', values }); // a derived state has no file column: not drawn
+  }
+  for (const c of columns.actions) inputs.push({ name: c.column, role: 'action', unit: c.unit ?? '', values: numbers.get(c.column)! });
+  const sense = columns.reward.sense;
+  const sign = sense === 'cost' ? -1 : 1;
+  const name = columns.reward.kind === 'column' ? columns.reward.column : sense;
+  inputs.push({ name, role: sense, unit: columns.reward.unit ?? '', values: rewards.map((r) => sign * r) });
+  const first = seconds?.find((t) => Number.isFinite(t)) ?? NaN;
+  const time = seconds ?? Float64Array.from({ length: rowCount }, (_, r) => lineOf(r));
+  return signalEnvelope(inputs, time, seconds ? 'seconds' : 'line', seconds !== undefined && isCalendarClock(first));
+}

@@ -1,0 +1,212 @@
+/**
+ * The logged signals over time on the Plant log step: one band per signal (states, actions, the
+ * reward or cost), stacked on a shared time axis, each with its own value axis and its name and
+ * unit written in the band. A million rows arrive as min/max envelopes (core/trend/signalEnvelope.ts:
+ * per group of rows, about one group per pixel column, the smallest and largest value); the line
+ * runs through (t, min), (t, max) of every group in turn, so the drawing looks like the full trace
+ * at screen width and a one-row spike still shows. Time windows left out are shaded grey across
+ * every band with their reason on top.
+ */
+import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
+import { clockText, durationText } from '../../core/clockText';
+import type { TrendData, TrendSignal } from '../../core/trend/signalEnvelope';
+import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
+import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
+import type { Theme } from '../parts/plotTheme';
+import { timeTickLabel, timeTicks } from '../parts/timeAxis';
+import { formatValue } from '../parts/tickFormat';
+
+export const TREND_DEFAULTS = { bandHeightPx: 86, frameHeightPx: 96, lineWidthPx: 1, tickSpacingPx: 120 } as const;
+
+/** A window left out, in seconds on the trend's clock. */
+export interface TrendWindow {
+  readonly fromSeconds: number;
+  readonly toSeconds: number;
+  readonly label: string;
+}
+
+export interface TrendPlotProps {
+  trend: TrendData;
+  windows: readonly TrendWindow[];
+  title: string;
+  theme: Theme;
+}
+
+type XY = { x: number; y: number | null };
+
+export function trendChartHeight(trend: TrendData): number {
+  return TREND_DEFAULTS.frameHeightPx + TREND_DEFAULTS.bandHeightPx * Math.max(1, trend.signals.length);
+}
+
+/** "level_m (m) — state"; a cost from an expression is named "cost" and says so once. */
+export function signalLabel(s: TrendSignal): string {
+  return `${s.name}${s.unit ? ` (${s.unit})` : ''}${s.name === s.role ? '' : ` — ${s.role}`}`;
+}
+
+/** A step between groups longer than this many times their median step is a stop in the log, drawn as a gap (a choice: the importer's default run gap is three sampling periods too). */
+export const TREND_GAP_STEPS = 3;
+
+/**
+ * The envelope as a line: (t, lo), (t, hi) per group; a gap where a group has no readable value
+ * and where the log stops (a step over TREND_GAP_STEPS × the median step), so no straight line is
+ * drawn across an overnight stop as if the plant had been logged there.
+ */
+export function envelopePoints(time: Float64Array, signal: TrendSignal): XY[] {
+  const gap = TREND_GAP_STEPS * medianStep(time);
+  const points: XY[] = [];
+  let previous = NaN;
+  for (let g = 0; g < time.length; g++) {
+    const lo = signal.lo[g], hi = signal.hi[g], x = time[g];
+    if (Number.isNaN(x)) continue;
+    if (x - previous > gap) points.push({ x: (x + previous) / 2, y: null });
+    previous = x;
+    if (Number.isNaN(lo)) { points.push({ x, y: null }); continue; }
+    points.push({ x, y: lo });
+    if (hi !== lo) points.push({ x, y: hi });
+  }
+  return points;
+}
+
+function medianStep(time: Float64Array): number {
+  const steps: number[] = [];
+  for (let g = 1; g < time.length; g++) if (time[g] > time[g - 1]) steps.push(time[g] - time[g - 1]);
+  steps.sort((a, b) => a - b);
+  return steps.length ? steps[steps.length >> 1] : Infinity;
+}
+
+function timeRange(trend: TrendData): [number, number] {
+  let min = Infinity, max = -Infinity;
+  for (const t of [...trend.time, trend.endTime]) {
+    if (t < min) min = t;
+    if (t > max) max = t;
+  }
+  return min <= max ? [min, max === min ? min + 1 : max] : [0, 1];
+}
+
+export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
+  const { trend } = props, p = look.palette, s = look.scale, [min, max] = timeRange(trend);
+  const colours = [...p.series];
+  const datasets: ChartDataset<'line', XY[]>[] = trend.signals.map((signal, k) => ({
+    label: signalLabel(signal), yAxisID: `y${k}`, data: envelopePoints(trend.time, signal),
+    borderColor: colours[k % colours.length], backgroundColor: colours[k % colours.length],
+    borderWidth: TREND_DEFAULTS.lineWidthPx * s, pointRadius: 0, pointHitRadius: 4 * s, spanGaps: false,
+  }));
+  // Chart.js stacks axes of one stack from the bottom up in the order they are declared: declared
+  // last to first, the first signal (a state) is the top band.
+  const yScales = Object.fromEntries(trend.signals.map((_, k) => [`y${k}`, {
+    ...valueAxis(look, '', 'left'), type: 'linear' as const, stack: 'signals', stackWeight: 1, offset: true,
+    ticks: { ...valueAxis(look, '', 'left').ticks, maxTicksLimit: 4 },
+  }]).reverse());
+  const shared = sharedOptions(look, props.title, trendSubtitle(trend));
+  const xTitle = trend.clock === 'line' ? 'line in the file' : trend.calendar ? 'time (the log’s clock)' : 'time from the log’s zero';
+  return {
+    type: 'line',
+    data: { datasets },
+    plugins: [windowShading(props.windows, look), bandLabels(trend.signals, look), ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: xTitle }])],
+    options: {
+      ...shared,
+      parsing: false,
+      normalized: true,
+      interaction: { mode: 'nearest', axis: 'x', intersect: false },
+      scales: { x: timeScale(trend, min, max, look), ...yScales },
+      plugins: {
+        ...shared.plugins,
+        tooltip: {
+          ...shared.plugins?.tooltip,
+          callbacks: {
+            title: (items) => (items.length ? timeText(trend, items[0].parsed.x ?? NaN) : ''),
+            label: (item) => `${item.dataset.label}: ${formatValue(item.parsed.y ?? NaN)}`,
+          },
+        },
+      },
+    },
+  };
+}
+
+function timeText(trend: TrendData, x: number): string {
+  return trend.clock === 'line' ? `line ${Math.round(x)}` : clockText(x, trend.calendar);
+}
+
+function timeScale(trend: TrendData, min: number, max: number, look: PlotLook) {
+  const base = valueAxis(look, '', 'bottom');
+  if (trend.clock === 'line') return { ...base, type: 'linear' as const, min, max, ticks: { ...base.ticks, precision: 0 } };
+  let step = 1;
+  return {
+    ...base, type: 'linear' as const, min, max,
+    afterBuildTicks: (axis: Scale) => {
+      const ticks = timeTicks(min, max, Math.max(2, Math.floor(axis.width / (TREND_DEFAULTS.tickSpacingPx * look.scale))));
+      step = ticks.stepSeconds;
+      axis.ticks = ticks.values.map((value) => ({ value }));
+    },
+    ticks: { ...base.ticks, callback: (value: number | string) => timeTickLabel(Number(value), trend.calendar, step, max - min) },
+  };
+}
+
+function trendSubtitle(trend: TrendData): string {
+  const rows = trend.rowCount.toLocaleString('en-US');
+  return trend.rowsPerGroup > 1
+    ? `${rows} rows, drawn as the smallest and largest value of every ${trend.rowsPerGroup.toLocaleString('en-US')} rows`
+    : `${rows} rows`;
+}
+
+/** Grey shading over each window left out, its reason written at the top. */
+function windowShading(windows: readonly TrendWindow[], look: PlotLook): Plugin<'line'> {
+  return {
+    id: 'setpointTrendWindows',
+    beforeDatasetsDraw(chart) {
+      const { ctx, chartArea: a } = chart, x = chart.scales.x;
+      ctx.save();
+      ctx.font = fontString(look, PLOT_FONTS.tickPx);
+      ctx.textBaseline = 'top';
+      for (const w of windows) {
+        const left = Math.max(a.left, x.getPixelForValue(w.fromSeconds)), right = Math.min(a.right, x.getPixelForValue(w.toSeconds));
+        if (!(right >= left)) continue;
+        ctx.fillStyle = look.palette.bandFill;
+        ctx.fillRect(left, a.top, Math.max(right - left, 2 * look.scale), a.bottom - a.top);
+        ctx.strokeStyle = look.palette.axis;
+        ctx.lineWidth = look.scale;
+        ctx.strokeRect(left, a.top, Math.max(right - left, 2 * look.scale), a.bottom - a.top);
+        const text = `left out${w.label ? `: ${w.label}` : ''}`;
+        if (ctx.measureText(text).width + 6 * look.scale <= right - left) {
+          ctx.fillStyle = look.palette.mutedText;
+          ctx.fillText(text, left + 3 * look.scale, a.top + 2 * look.scale);
+        }
+      }
+      ctx.restore();
+    },
+  };
+}
+
+/** Each band's signal name, unit and role at its top left, on a backing so the trace never hides it. */
+function bandLabels(signals: readonly TrendSignal[], look: PlotLook): Plugin<'line'> {
+  return {
+    id: 'setpointTrendBandLabels',
+    afterDatasetsDraw(chart) {
+      const { ctx } = chart, pad = 3 * look.scale;
+      ctx.save();
+      ctx.font = fontString(look, PLOT_FONTS.legendPx, 'bold');
+      ctx.textBaseline = 'top';
+      signals.forEach((signal, k) => {
+        const axis = chart.scales[`y${k}`];
+        if (!axis) return;
+        const text = signalLabel(signal), width = ctx.measureText(text).width;
+        const left = chart.chartArea.right - width - 2 * pad, top = axis.top + pad;
+        ctx.fillStyle = look.palette.background;
+        ctx.globalAlpha = 0.85;
+        ctx.fillRect(left - pad, top - pad / 2, width + 2 * pad, PLOT_FONTS.legendPx * look.scale + pad);
+        ctx.globalAlpha = 1;
+        ctx.fillStyle = look.palette.series[k % look.palette.series.length];
+        ctx.fillText(text, left, top);
+      });
+      ctx.restore();
+    },
+  };
+}
+
+export function trendSummary(props: TrendPlotProps): string {
+  const { trend, windows } = props;
+  const [min, max] = timeRange(trend);
+  const span = trend.clock === 'line' ? `lines ${min} to ${max}` : `${clockText(min, trend.calendar)} to ${clockText(max, trend.calendar)} (${durationText(max - min)})`;
+  const left = windows.length === 0 ? 'No time window left out.' : `${windows.length} time window${windows.length === 1 ? '' : 's'} left out, shaded: ${windows.map((w) => `${w.label || 'window'} from ${timeText(trend, w.fromSeconds)} to ${timeText(trend, w.toSeconds)}`).join('; ')}.`;
+  return `Trend of ${trend.signals.map(signalLabel).join(', ')} over ${span}; ${trendSubtitle(trend)}. ${left}`;
+}

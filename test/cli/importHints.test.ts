@@ -1,0 +1,52 @@
+/**
+ * The command line on the heating-historian sample (invented data with a few corrupt cells): a
+ * project that stops on bad rows says, with exit 1, how to leave those rows out; a time window that
+ * cannot be used is named by its field; a project check refuses a window of two numbers that ends
+ * before it starts.
+ */
+import { copyFile, mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
+import { tmpdir } from 'node:os';
+import { join, resolve } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { runCli } from '../../src/cli/run';
+import { recordingTerminal } from '../../src/cli/terminal';
+
+const SAMPLE = resolve(__dirname, '../../sample-projects/heating-historian');
+
+describe('the command line says how to leave rows and windows out', () => {
+  let root: string, project: Record<string, { csv: Record<string, unknown> } & Record<string, unknown>>;
+  beforeAll(async () => {
+    root = await mkdtemp(join(tmpdir(), 'spc-hints-'));
+    await copyFile(join(SAMPLE, 'heating-historian.csv'), join(root, 'heating-historian.csv'));
+    project = JSON.parse(await readFile(join(SAMPLE, 'heating-historian.spcritic'), 'utf8'));
+  });
+  afterAll(() => rm(root, { recursive: true, force: true }));
+
+  async function evaluate(name: string, csv: Record<string, unknown>) {
+    const path = join(root, `${name}.spcritic`);
+    await writeFile(path, JSON.stringify({ ...project, data: { ...project.data, csv: { ...project.data.csv, ...csv } } }));
+    const terminal = recordingTerminal();
+    const code = await runCli(['evaluate', path], terminal);
+    return { code, stderr: terminal.stderr };
+  }
+
+  it('bad rows with "stop": exit 1, each row named, then how to import without them', async () => {
+    const { code, stderr } = await evaluate('stop', { badRows: 'stop' });
+    expect(code).toBe(1);
+    expect(stderr).toContain('heating-historian.csv, line 214, column zone_temp_c');
+    expect(stderr).toContain('5 rows cannot be used. To import without them');
+    expect(stderr).toContain('"badRows": "exclude"');
+  });
+
+  it('a window that overlaps another: exit 1, naming the field', async () => {
+    const { code, stderr } = await evaluate('overlap', { excludedTimes: [{ from: '13.01.2025 08:00', to: '13.01.2025 09:00', reason: 'a' }, { from: '13.01.2025 08:30', to: '13.01.2025 10:00', reason: 'b' }] });
+    expect(code).toBe(1);
+    expect(stderr).toContain('data.csv.excludedTimes[1]: window “b” overlaps window “a” (data.csv.excludedTimes[0])');
+  });
+
+  it('the project check: two numbers that end before they start, exit 1 naming the field', async () => {
+    const { code, stderr } = await evaluate('backwards', { excludedTimes: [{ from: 50, to: 30 }] });
+    expect(code).toBe(1);
+    expect(stderr).toMatch(/data\.csv\.excludedTimes\[0\]\.to.*ends \(30\) before it starts \(50\)/);
+  });
+});
