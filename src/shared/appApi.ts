@@ -33,7 +33,7 @@ export interface RecoveryOffer {
   savedAt: string;
 }
 
-export type ExportKind = 'png' | 'svg' | 'csv' | 'html';
+export type ExportKind = 'png' | 'svg' | 'csv' | 'html' | 'pdf';
 
 /** Commands the application menu sends to the renderer. */
 export type MenuCommand =
@@ -74,6 +74,10 @@ export interface AppApi {
 
   /** Ask for a destination and write an exported image or table; null when cancelled. */
   exportFile(kind: ExportKind, suggestedName: string, bytes: Uint8Array): Promise<{ path: string } | null>;
+  /** The report (renderReport's HTML) written as PDF where the user says; null when cancelled. */
+  saveReportPdf(html: string, suggestedName: string): Promise<{ path: string } | null>;
+  /** The report sent to a printer through the system's print dialog; false when cancelled. */
+  printReport(html: string): Promise<boolean>;
 
   /** Tell the window its project name and whether it has unsaved changes (title, close prompt). */
   setDocumentState(state: { name: string; dirty: boolean }): void;

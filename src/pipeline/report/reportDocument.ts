@@ -31,7 +31,7 @@ export function renderReport(input: ReportInput): string {
     ${diagnosticsSection(input)}
     ${crossChecksSection(input, figures)}
     ${sensitivitySection(input, figures)}
-    ${retuneSection(input)}
+    ${retuneSection(input, figures)}
     ${cautionsSection(input, input.assessment)}`;
   return '<!DOCTYPE html>\n' + html`<html lang="en"><head><meta charset="utf-8"/>
     <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"/>
