@@ -38,7 +38,7 @@ export type ExportKind = 'png' | 'svg' | 'csv' | 'html' | 'pdf';
 /** Commands the application menu sends to the renderer. */
 export type MenuCommand =
   | 'new-project' | 'open-project' | 'open-recent-project' | 'save-project' | 'save-project-as' | 'close-project'
-  | 'undo' | 'redo' | 'toggle-theme' | 'run-evaluation' | 'cancel-evaluation';
+  | 'undo' | 'redo' | 'toggle-theme' | 'run-evaluation' | 'cancel-evaluation' | 'print-report' | 'save-report-pdf';
 
 /** Sent with 'open-recent-project': the recent entry the user picked (pass it to openRecentProject). */
 export interface MenuCommandDetail {

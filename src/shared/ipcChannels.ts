@@ -32,7 +32,7 @@ export type ApiReply<T> = { ok: true; value: T } | { ok: false; message: string 
 
 export const MENU_COMMANDS = [
   'new-project', 'open-project', 'open-recent-project', 'save-project', 'save-project-as', 'close-project',
-  'undo', 'redo', 'toggle-theme', 'run-evaluation', 'cancel-evaluation',
+  'undo', 'redo', 'toggle-theme', 'run-evaluation', 'cancel-evaluation', 'print-report', 'save-report-pdf',
 ] as const satisfies readonly MenuCommand[];
 // Compile-time check that the list above names every MenuCommand.
 const _everyMenuCommand: Record<MenuCommand, true> = Object.fromEntries(MENU_COMMANDS.map((c) => [c, true])) as Record<(typeof MENU_COMMANDS)[number], true>;

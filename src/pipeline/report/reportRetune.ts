@@ -9,11 +9,11 @@
  * for reference.
  */
 import { retuneMapChart, retuneMapHeight, retuneMapSummary } from '../../figures/charts/retuneMap';
-import { subscriptMarkup } from '../../figures/parts/richText';
+import { richTextHtml, subscriptMarkup } from '../../figures/parts/richText';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
-import { formatInterval, formatNumber, html, raw, type Html } from './htmlText';
+import { escapeHtml, formatInterval, formatNumber, html, raw, type Html } from './htmlText';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 /** The figure's width in CSS px: the report's text column (reportStyles.ts, 980 px less padding). */
@@ -46,7 +46,7 @@ function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: n
   const svg = inlineSvg((look) => retuneMapChart(props, look), {
     widthPx: MAP_WIDTH_PX, heightPx: retuneMapHeight(map), id: `retune-map-${index}`, label: retuneMapSummary(props),
   });
-  const over = map.axes.map((a) => a.label).join(map.axes.length === 2 ? ' (across) and ' : '');
+  const over = raw(map.axes.map((a) => richTextHtml(subscriptMarkup(a.label), escapeHtml)).join(map.axes.length === 2 ? ' (across) and ' : ''));
   return html`<figure id="fig-retune-map-${index}" class="retune-figure">${raw(svg)}<figcaption>Figure ${n}. Retune map of ${map.candidate}: J (${words.value}, ${words.better}) over ${over}${map.axes.length === 2 ? ' (up)' : ''};
     hatched: not supported by the logs; outlined: the best supported point${map.presentController === null ? '' : '; dashed: the present controller'}. The table below gives each point’s value and interval. ${CAUTION_SHORT}</figcaption></figure>`;
 }
