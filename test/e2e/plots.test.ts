@@ -17,6 +17,7 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { build } from 'vite';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
+import { layoutFaults } from './harness/svgLayout';
 import { CAUTION_SHORT } from '../../src/pipeline/cautions';
 import { CONTENT_SECURITY_POLICY } from '../../src/main/rendererProtocol';
 import { pngDpi, pngSize } from '../../src/figures/writers/pngChunks';
@@ -192,21 +193,6 @@ describe('PNG export (e2e)', () => {
     expect(decoded.distinctColours).toBeGreaterThan(50);
   });
 });
-
-/** Pairs of text boxes that overlap by more than 1 px both ways, and boxes that leave the image. */
-function layoutFaults(laid: { width: number; height: number; texts: { text: string; left: number; top: number; right: number; bottom: number }[] }): string[] {
-  const faults: string[] = [], t = laid.texts, slack = 1;
-  for (const b of t) {
-    if (b.left < -slack || b.top < -slack || b.right > laid.width + slack || b.bottom > laid.height + slack) faults.push(`"${b.text}" leaves the image (${b.left.toFixed(1)}, ${b.top.toFixed(1)})–(${b.right.toFixed(1)}, ${b.bottom.toFixed(1)})`);
-  }
-  for (let i = 0; i < t.length; i++) {
-    for (let j = i + 1; j < t.length; j++) {
-      const w = Math.min(t[i].right, t[j].right) - Math.max(t[i].left, t[j].left), h = Math.min(t[i].bottom, t[j].bottom) - Math.max(t[i].top, t[j].top);
-      if (w > slack && h > slack) faults.push(`"${t[i].text}" overlaps "${t[j].text}" by ${w.toFixed(1)} × ${h.toFixed(1)} px`);
-    }
-  }
-  return faults;
-}
 
 // Every size the app's export panel offers (its presets, src/renderer/src/screens/findings/exportSizes.ts),
 // the old half-width figure, and a small custom size at screen resolution.
