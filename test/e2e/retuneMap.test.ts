@@ -25,10 +25,15 @@ const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
 describe('the retune map in the app (e2e)', () => {
   let app: LaunchedApp, projectPath = '';
   const SIZES = [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }];
+  /** Switch the theme and wait until the map is redrawn in it: its figure's background changes first, then the worker reports the drawing. */
   const setTheme = async (theme: string) => {
-    const { page } = app;
-    if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
+    const { page } = app, figure = page.getByTestId('plot-retuneMap');
+    const background = () => figure.evaluate((f) => (f as HTMLElement).style.background);
+    const before = await background();
+    if ((await page.evaluate(() => document.documentElement.dataset.theme)) === theme) return;
+    await page.getByTestId('toggle-theme').click();
     await expect.poll(() => page.evaluate(() => document.documentElement.dataset.theme), POLL).toBe(theme);
+    await expect.poll(background, POLL).not.toBe(before);
   };
   beforeAll(async () => {
     app = await launchApp({ viewport: { width: 1280, height: 800 } });
@@ -114,6 +119,15 @@ describe('the retune map in the app (e2e)', () => {
     expect(html.indexOf('id="fig-retune-map-0"')).toBeLessThan(html.indexOf('class="retune-grid"'));
     expect(html.indexOf('id="read-first"')).toBeLessThan(html.indexOf('id="job"'));
     expect(html).toContain('local codes and licensed practice');
+    // The report as a reader sees it (one look: a document for print, light in both app themes), at both window sizes.
+    const reader = await app.context.newPage();
+    await reader.setContent(html, { waitUntil: 'load' }); // no request: the harness blocks every URL but the app's
+    for (const size of SIZES) {
+      await reader.setViewportSize(size);
+      await reader.screenshot({ path: join(SCREENS, `app-report-${size.width}.png`) });
+      await reader.locator('#retune-maps').screenshot({ path: join(SCREENS, `app-report-retune-map-${size.width}.png`) });
+    }
+    await reader.close();
     harness.dialogs.nextExport = pdfPath;
     await page.getByTestId('report-pdf').click();
     await expect.poll(() => page.getByTestId('report-status').innerText(), { ...POLL, timeout: 120_000 }).toContain(pdfPath);
@@ -182,6 +196,7 @@ describe('the retune map in the app (e2e)', () => {
         await setTheme(theme);
         await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
         await panel.scrollIntoViewIfNeeded();
+        await expect.poll(async () => (await drawnPixels(page, figure)).drawnShare, POLL).toBeGreaterThan(0.3);
         await page.screenshot({ path: join(SCREENS, `retune-map-kept-out-of-date-${size.width}-${theme}.png`) });
       }
     }

@@ -36,6 +36,11 @@ export function retuneSection(input: ReportInput, figures: FigureCounter): Html 
     ${maps.map((m, i) => html`${mapFigure(input, m, i, figures.next())}${mapTable(m)}`)}</section>`;
 }
 
+/** "proportional gain K_c (%/°C)" with its symbol's subscript set as HTML. */
+function axisHtml(label: string): string {
+  return richTextHtml(subscriptMarkup(label), escapeHtml);
+}
+
 /** The map drawn by the shared chart, with a numbered caption that says what is marked and the short caution. */
 function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: number): Html {
   const words = senseWords(input);
@@ -46,7 +51,7 @@ function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: n
   const svg = inlineSvg((look) => retuneMapChart(props, look), {
     widthPx: MAP_WIDTH_PX, heightPx: retuneMapHeight(map), id: `retune-map-${index}`, label: retuneMapSummary(props),
   });
-  const over = raw(map.axes.map((a) => richTextHtml(subscriptMarkup(a.label), escapeHtml)).join(map.axes.length === 2 ? ' (across) and ' : ''));
+  const over = raw(map.axes.map((a) => axisHtml(a.label)).join(map.axes.length === 2 ? ' (across) and ' : ''));
   return html`<figure id="fig-retune-map-${index}" class="retune-figure">${raw(svg)}<figcaption>Figure ${n}. Retune map of ${map.candidate}: J (${words.value}, ${words.better}) over ${over}${map.axes.length === 2 ? ' (up)' : ''};
     hatched: not supported by the logs; outlined: the best supported point${map.presentController === null ? '' : '; dashed: the present controller'}. The table below gives each point’s value and interval. ${CAUTION_SHORT}</figcaption></figure>`;
 }
@@ -54,17 +59,17 @@ function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: n
 function mapTable(map: RetuneMapResult): Html {
   const best = map.best;
   const caption = html`<p><strong>${map.candidate}</strong> — ${best
-    ? `best supported point ${best.coordinates.map((v, a) => `${map.axes[a].label} = ${formatNumber(v, 4)}`).join(', ')}, J ${formatNumber(best.value, 4)}`
+    ? html`best supported point ${raw(best.coordinates.map((v, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(formatNumber(v, 4))}`).join(', '))}, J ${formatNumber(best.value, 4)}`
     : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${formatNumber(map.presentController, 4)}`}.</p>`;
   const notes = html`<ul class="small">${map.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"
     title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${formatNumber(p.occupancyShift, 3)}">${p.value === null ? `no value (${p.status})` : formatNumber(p.value, 4)}<br/><span class="small">${formatInterval(p.interval, 3)}</span></td>`;
   if (map.axes.length === 1) {
-    return html`${caption}<table><thead><tr><th>${map.axes[0].label}</th><th class="num">J and interval</th></tr></thead><tbody>
+    return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">J and interval</th></tr></thead><tbody>
       ${map.points.map((p, i) => html`<tr><td class="num">${formatNumber(p.coordinates[0], 4)}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;
   }
   const [rows, cols] = map.axes, width = cols.values.length;
-  return html`${caption}<table class="retune-grid"><thead><tr><th>${rows.label} ↓ · ${cols.label} →</th>${cols.values.map((v) => html`<th class="num">${formatNumber(v, 4)}</th>`)}</tr></thead><tbody>
+  return html`${caption}<table class="retune-grid"><thead><tr><th>${raw(axisHtml(rows.label))} ↓ · ${raw(axisHtml(cols.label))} →</th>${cols.values.map((v) => html`<th class="num">${formatNumber(v, 4)}</th>`)}</tr></thead><tbody>
     ${rows.values.map((v, r) => html`<tr><th class="num">${formatNumber(v, 4)}</th>${cols.values.map((_, c) => cell(map.points[r * width + c], r * width + c))}</tr>`)}
     </tbody></table>${notes}`;
 }
