@@ -85,11 +85,17 @@ describe('the retune map in the app (e2e)', () => {
     const { page, harness } = app;
     const details = page.getByTestId('export-retuneMap'), select = page.getByTestId('export-size-retuneMap');
     await details.locator('summary').click();
+    // The size list in the full-width map panel and in a half-width one (the convergence panel's) at both window sizes.
+    const narrow = page.getByTestId('export-convergence');
+    await narrow.locator('summary').click();
     for (const size of SIZES) {
       await page.setViewportSize(size);
-      const room = await selectRoom(select);
-      expect(room.longest, `${room.longestText} at ${size.width} px`).toBeLessThanOrEqual(room.room);
+      for (const list of [select, page.getByTestId('export-size-convergence')]) {
+        const room = await selectRoom(list);
+        expect(room.longest, `${room.longestText} at ${size.width} px`).toBeLessThanOrEqual(room.room);
+      }
     }
+    await narrow.locator('summary').click();
     await page.setViewportSize(SIZES[0]);
     for (const preset of SIZE_PRESETS) {
       const px = presetPixels(preset), target = join(harness.workFolder, `retune-map-${preset.id}.svg`);

@@ -17,9 +17,10 @@ describe('export sizes', () => {
   it('makes an 85 mm column and a 175 mm page width at 300 dpi (85 / 25.4 × 300 = 1003.9 px)', () => {
     expect(presetPixels(preset('column'))).toEqual({ widthPx: 1004, heightPx: 756, dpi: 300 });
     expect(presetPixels(preset('page'))).toEqual({ widthPx: 2067, heightPx: 1276, dpi: 300 });
-    expect(presetLabel(preset('column'))).toBe('85 mm column, 85 × 64 mm at 300 dpi (1004 × 756 px)');
-    expect(presetLabel(preset('page'))).toBe('175 mm page width, 175 × 108 mm at 300 dpi (2067 × 1276 px)');
-    expect(presetLabel(preset('report'))).toBe('Report figure, 165 × 102 mm at 300 dpi (1950 × 1200 px)');
+    expect(presetLabel(preset('column'))).toBe('85 mm column at 300 dpi (1004 × 756 px)');
+    expect(presetLabel(preset('page'))).toBe('175 mm page width at 300 dpi (2067 × 1276 px)');
+    expect(presetLabel(preset('report'))).toBe('165 mm report figure at 300 dpi (1950 × 1200 px)');
+    expect(sizeText(presetPixels(preset('column')))).toBe('1004 × 756 px at 300 dpi: prints at 85 × 64 mm (3.35 × 2.52 in)');
   });
 
   it('prints a pixel size back at its inches and millimetres', () => {

@@ -3,7 +3,8 @@
  * journal column, a 175 mm page width, a slide, a screen), and custom sizes in millimetres or in
  * pixels, each at a resolution. pixels = inches × dots per inch and 1 in = 25.4 mm exactly (the
  * units' definitions; the PNG records the dpi in its pHYs chunk). Every label says the printed size
- * in millimetres and the pixel count, computed from the same numbers the export uses.
+ * width in millimetres and the pixel count, and the line under it the whole printed size, all
+ * computed from the same numbers the export uses.
  *
  * The column and page widths are the usual two-column journal layout (about 85 mm per column,
  * about 175 mm across the page; common practice, from memory — publishers vary by a few mm).
@@ -32,10 +33,10 @@ export interface SizePreset extends MillimetreSize {
 const inches = (v: number) => v * MM_PER_INCH;
 
 export const SIZE_PRESETS: readonly SizePreset[] = [
-  { id: 'report', name: 'Report figure', widthMm: inches(6.5), heightMm: inches(4), dpi: 300 },
+  { id: 'report', name: '165 mm report figure', widthMm: inches(6.5), heightMm: inches(4), dpi: 300 },
   { id: 'column', name: '85 mm column', widthMm: 85, heightMm: 64, dpi: 300 },
   { id: 'page', name: '175 mm page width', widthMm: 175, heightMm: 108, dpi: 300 },
-  { id: 'slide', name: 'Slide', widthMm: inches(10), heightMm: inches(5.625), dpi: 192 },
+  { id: 'slide', name: '254 mm slide', widthMm: inches(10), heightMm: inches(5.625), dpi: 192 },
   { id: 'screen', name: 'Screen', widthMm: inches(1280 / 96), heightMm: inches(800 / 96), dpi: 96 },
 ];
 
@@ -68,10 +69,13 @@ export function millimetreText(size: PixelSize): string {
   return `${mm(widthMm)} × ${mm(heightMm)} mm`;
 }
 
-/** "85 mm column, 85 × 64 mm at 300 dpi (1004 × 756 px)": the option's label. */
+/**
+ * "85 mm column at 300 dpi (1004 × 756 px)": the option's label, short enough for a half-width
+ * panel; the line under the list gives the full printed size (sizeText).
+ */
 export function presetLabel(preset: SizePreset): string {
   const px = presetPixels(preset);
-  return `${preset.name}, ${millimetreText(px)} at ${px.dpi} dpi (${px.widthPx} × ${px.heightPx} px)`;
+  return `${preset.name} at ${px.dpi} dpi (${px.widthPx} × ${px.heightPx} px)`;
 }
 
 /** "1950 × 1200 px at 300 dpi: prints at 165 × 102 mm (6.50 × 4.00 in)". */
