@@ -8,13 +8,15 @@
  * and GFLOP/s. Results also go to test-artifacts/battery-<time>.json.
  *
  * Options: --seeds 20  --transitions 100000  --plants name,name  --candidates all|first
+ *          --run-starts steady|wide|both (where the logged runs start: test/battery/startSets.ts)
  *          --settings '{"outerIterations": 60}'  --method '{"lastLayer": "gradient"}'  --cpu
  * Seeds: the data of seed s is simulated with seed s and the network is fitted with seed s.
  * Run it under `nice`; it takes about a minute of CPU per fit.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { fitNetworkFqe } from '../src/core/fqe/networkFqe';
+import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
+import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
 import { createGaussianPolicy } from '../src/core/policy';
 import { batteryPlants } from '../test/battery/catalogue';
@@ -31,10 +33,11 @@ interface Options {
   settings: Record<string, unknown>;
   method: Record<string, unknown>;
   backend: 'auto' | 'cpu';
+  runStarts: ('steady' | 'wide')[];
 }
 
 function parseOptions(args: string[]): Options {
-  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto' };
+  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto', runStarts: ['steady'] };
   for (let i = 0; i < args.length; i++) {
     const value = () => args[++i];
     if (args[i] === '--seeds') o.seeds = Number(value());
@@ -44,14 +47,21 @@ function parseOptions(args: string[]): Options {
     else if (args[i] === '--settings') o.settings = JSON.parse(value());
     else if (args[i] === '--method') o.method = JSON.parse(value());
     else if (args[i] === '--cpu') o.backend = 'cpu';
+    else if (args[i] === '--run-starts') o.runStarts = runStartsOption(value());
     else throw new Error(`battery bench: unknown option ${args[i]}`);
   }
   return o;
 }
 
-async function fitOne(plant: BatteryPlant, candidate: number, seed: number, o: Options): Promise<FitRecord[]> {
+function runStartsOption(v: string): ('steady' | 'wide')[] {
+  if (v === 'both') return ['steady', 'wide'];
+  if (v === 'steady' || v === 'wide') return [v];
+  throw new Error(`battery bench: --run-starts expects steady, wide or both, got ${v}`);
+}
+
+async function fitOne(plant: BatteryPlant, candidate: number, seed: number, runStarts: 'steady' | 'wide', o: Options): Promise<FitRecord[]> {
   const c = plant.candidates[candidate], sets = plant.startSets();
-  const data = plant.simulate({ transitions: o.transitions, seed });
+  const data = plant.simulate({ transitions: o.transitions, seed, runStarts });
   const policy = createGaussianPolicy(c.spec, plant.stateDim);
   const cpuStart = process.cpuUsage();
   const fit = await fitNetworkFqe({
@@ -60,21 +70,35 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, o: O
   });
   const cpu = process.cpuUsage(cpuStart);
   try {
-    return sets.map((set) => {
+    const truth0 = plant.truth(c.name, sets[0].name).value;
+    return sets.map((set, index) => {
       const e = fit.estimate(set.states, { startsFollowEpisodes: false });
       return {
-        plant: plant.name, candidate: c.name, startSet: set.name, seed, truth: plant.truth(c.name, set.name),
+        plant: plant.name, candidate: c.name, startSet: set.name, runStarts, seed, truth: plant.truth(c.name, set.name),
         network: { value: e.value, lower: e.interval.lower, upper: e.interval.upper },
         networkParts: { percentile: [...e.parts.percentile], basic: [...e.parts.basic], bootstrapStandardError: e.parts.bootstrapStandardError, iterateSpread: e.parts.iterateSpread },
         linear: { value: e.linear.value, lower: e.linear.interval.lower, upper: e.linear.interval.upper },
         difference: { value: e.difference.value, lower: e.difference.interval.lower, upper: e.difference.interval.upper },
+        agreement: approximatorAgreement({ network: e, linear: e.linear, difference: e.difference }).verdict,
         status: fit.status, iterations: fit.history.length, seconds: fit.work.seconds, cpuSeconds: (cpu.user + cpu.system) / 1e6,
+        ...(index === 0 ? { secondsToWithin3: secondsToWithin(fit, truth0, 0.03) } : {}),
         adamSteps: fit.work.adamSteps, stepSeconds: fit.work.stepSeconds, flop: fit.work.flop, backend: fit.backend,
       };
     });
   } finally {
     fit.dispose();
   }
+}
+
+/** Set-up plus loop time at the first iterate after which every iterate's J stays within `share` of the truth; null if none. */
+function secondsToWithin(fit: NetworkFit, truth: number, share: number): number | null {
+  const h = fit.history, last = h[h.length - 1];
+  if (!last) return null;
+  let k = h.length;
+  while (k > 0 && Math.abs(h[k - 1].policyValue - truth) <= share * Math.abs(truth)) k--;
+  if (k === h.length) return null;
+  const setUp = Math.max(0, fit.work.seconds - last.elapsedSeconds);
+  return setUp + h[k].elapsedSeconds;
 }
 
 export async function runBatteryBench(args: string[]): Promise<void> {
@@ -86,11 +110,11 @@ export async function runBatteryBench(args: string[]): Promise<void> {
   for (const plant of plants) {
     const candidates = o.candidates === 'first' ? [0] : plant.candidates.map((_, i) => i);
     for (const candidate of candidates) {
-      for (let seed = 1; seed <= o.seeds; seed++) {
-        const fitted = await fitOne(plant, candidate, seed, o);
+      for (const runStarts of o.runStarts) for (let seed = 1; seed <= o.seeds; seed++) {
+        const fitted = await fitOne(plant, candidate, seed, runStarts, o);
         records.push(...fitted);
         const f = fitted[0], err = (x: number) => `${(100 * (x - f.truth.value) / Math.abs(f.truth.value)).toFixed(2)} %`;
-        console.log(`  ${plant.name} ${f.candidate} seed ${seed}: network ${err(f.network.value)}, linear ${err(f.linear.value)} (${f.startSet}), ${f.status} after ${f.iterations}, ${f.seconds.toFixed(1)} s`);
+        console.log(`  ${plant.name} ${f.candidate} seed ${seed}: network ${err(f.network.value)}, linear ${err(f.linear.value)} (${f.startSet}; runs logged ${runStarts}), ${f.status} after ${f.iterations}, ${f.seconds.toFixed(1)} s`);
       }
     }
   }

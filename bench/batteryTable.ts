@@ -19,16 +19,26 @@ export interface FitRecord {
   plant: string;
   candidate: string;
   startSet: string;
+  /** Where the logged runs started (SimulationOptions.runStarts). */
+  runStarts?: 'steady' | 'wide';
   seed: number;
   truth: BatteryTruth;
   network: Estimate;
   networkParts?: { percentile: number[]; basic: number[]; bootstrapStandardError: number; iterateSpread: number };
   linear: Estimate;
   difference: Estimate;
+  /** The network/linear agreement verdict the app shows (approximatorAgreement.ts); absent in older records. */
+  agreement?: 'agree' | 'inconclusive' | 'disagree';
   status: string;
   iterations: number;
   seconds: number;
   cpuSeconds: number;
+  /**
+   * Wall-clock seconds until the iterates' J over the fit's start set (the steady set) came within
+   * 3 % of its truth and stayed there (fit set-up included); null if it never did. Only on the
+   * fit's start set's record.
+   */
+  secondsToWithin3?: number | null;
   adamSteps: number;
   stepSeconds: number;
   flop: number;
@@ -54,25 +64,50 @@ function summarise(records: FitRecord[], pick: (r: FitRecord) => Estimate): Summ
 const pct = (x: number) => `${(100 * x).toFixed(2)}`.padStart(7);
 const mean = (xs: number[]) => xs.reduce((a, b) => a + b, 0) / xs.length;
 
+/**
+ * Share of seeds whose range holds the truth: the network's interval, widened to the linear
+ * estimate's interval where the two disagree (the app then says "not settled" and its range to
+ * report spans both and the polynomial classes of degree 3 and 4 as well, so the app's range holds
+ * the truth at least this often).
+ */
+function rangeCoverage(rs: FitRecord[]): number {
+  return rs.filter((r) => {
+    const lo = r.agreement === 'disagree' ? Math.min(r.network.lower, r.linear.lower) : r.network.lower;
+    const hi = r.agreement === 'disagree' ? Math.max(r.network.upper, r.linear.upper) : r.network.upper;
+    return lo <= r.truth.value && r.truth.value <= hi;
+  }).length / rs.length;
+}
+
+/** Mean seconds to within 3 % over the seeds that got there, with how many did ('—' where not measured). */
+function toWithin3(rs: FitRecord[]): string {
+  const measured = rs.filter((r) => r.secondsToWithin3 !== undefined);
+  if (measured.length === 0) return '—';
+  const reached = measured.flatMap((r) => (r.secondsToWithin3 == null ? [] : [r.secondsToWithin3]));
+  if (reached.length === 0) return 'never';
+  const text = mean(reached).toFixed(1);
+  return reached.length === measured.length ? text : `${text} (${reached.length}/${measured.length})`;
+}
+
 export function printBatteryTable(records: FitRecord[]): void {
   const groups = new Map<string, FitRecord[]>();
   for (const r of records) {
-    const key = `${r.plant}|${r.candidate}|${r.startSet}`;
+    const key = `${r.plant}|${r.candidate}|${r.startSet}${r.runStarts === 'wide' ? ' (runs logged wide)' : ''}`;
     groups.set(key, [...(groups.get(key) ?? []), r]);
   }
-  console.log('\nplant / candidate / start set                    truth (±SE)        | linear deg 2: mean%  |max|%  cover | network: mean%  |max|%  cover  conv  iters  s/fit  cpu s  steps/s  GFLOP/s');
+  console.log('\nplant / candidate / start set                    truth (±SE)        | linear deg 2: mean%  |max|%  cover | network: mean%  |max|%  cover  disagr  range  conv  iters  s/fit  cpu s  s to 3%  steps/s  GFLOP/s');
   for (const [key, rs] of groups) {
     const [plant, candidate, startSet] = key.split('|');
     const t = rs[0].truth, lin = summarise(rs, (r) => r.linear), net = summarise(rs, (r) => r.network);
     const converged = rs.filter((r) => r.status === 'converged').length / rs.length;
+    const disagreeing = rs.filter((r) => r.agreement === 'disagree').length / rs.length;
     const stepsPerSecond = mean(rs.map((r) => r.adamSteps / Math.max(r.stepSeconds * (r.cpuSeconds / r.seconds), 1e-9)));
     const gflops = mean(rs.map((r) => r.flop / r.cpuSeconds / 1e9));
     const truth = `${t.value.toPrecision(5)}${t.standardError > 0 ? ` ±${t.standardError.toPrecision(2)}` : ' exact'}`;
     console.log(
       `${`${plant} / ${candidate} / ${startSet}`.padEnd(48)} ${truth.padEnd(18)} | ${pct(lin.mean)} ${pct(lin.largest)} ${pct(lin.coverage).slice(1)} |` +
-      ` ${pct(net.mean)} ${pct(net.largest)} ${pct(net.coverage).slice(1)} ${pct(converged).slice(1)} ${mean(rs.map((r) => r.iterations)).toFixed(1).padStart(5)}` +
-      ` ${mean(rs.map((r) => r.seconds)).toFixed(1).padStart(6)} ${mean(rs.map((r) => r.cpuSeconds)).toFixed(1).padStart(6)} ${stepsPerSecond.toFixed(0).padStart(8)} ${gflops.toFixed(2).padStart(8)}`,
+      ` ${pct(net.mean)} ${pct(net.largest)} ${pct(net.coverage).slice(1)} ${pct(disagreeing).slice(1)} ${pct(rangeCoverage(rs)).slice(1)} ${pct(converged).slice(1)} ${mean(rs.map((r) => r.iterations)).toFixed(1).padStart(5)}` +
+      ` ${mean(rs.map((r) => r.seconds)).toFixed(1).padStart(6)} ${mean(rs.map((r) => r.cpuSeconds)).toFixed(1).padStart(6)} ${toWithin3(rs).padStart(8)} ${stepsPerSecond.toFixed(0).padStart(8)} ${gflops.toFixed(2).padStart(8)}`,
     );
   }
-  console.log(`(${records.length / 2} fits; errors in % of |truth|; cover = share of seeds whose 90 % interval holds the truth; conv = share with status "converged"; backend ${records[0]?.backend})`);
+  console.log(`(${records.length / 2} fits; errors in % of |truth|; cover = share of seeds whose 90 % interval holds the truth; disagr = share where network and linear disagree (the app says "not settled"); range = share whose network interval, widened to the linear one where they disagree, holds the truth; s to 3% = wall seconds until the iterates' J on the steady set came and stayed within 3 % (set-up included); conv = share with status "converged"; backend ${records[0]?.backend})`);
 }

@@ -20,7 +20,7 @@ const jobs: Job[] = [
     run: async () => (await import('./linearBench')).runLinearBench(n),
   })),
   {
-    name: 'network FQE, 100,000 transitions, default 64×64 network', group: 'network',
+    name: 'network FQE, 100,000 transitions, default network (src/core/fqe/networkSettings.ts)', group: 'network',
     run: async () => (await import('./networkBench')).runNetworkBench(),
   },
   {

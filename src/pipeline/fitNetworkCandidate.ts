@@ -46,8 +46,9 @@ function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest): Candidat
     standardError: policyValue(fit.actionValue, request.policy, request.startStates, createActionQuadrature(request.policy, request.quadratureNodes)).standardError,
     fixedPointValue: null,
     featureCount: parameterCount(fit, request),
-    backend: `TensorFlow.js ${fit.backend}`,
-    warnings: fit.backendNote ? [fit.backendNote] : [],
+    backend: fit.backend === 'wasm' ? 'TensorFlow.js (WebAssembly)' : 'TensorFlow.js (plain JavaScript)',
+    // Said to the user only when it matters to them: the fit ran slower than it could.
+    warnings: fit.backendFallback ? [`Computed with plain JavaScript instead of WebAssembly (${fit.backendFallback}): the same numbers, several times slower.`] : [],
     dispose: () => fit.dispose(),
     convergence: {
       converged: fit.convergence.converged, iterations: fit.convergence.iterations, remainingBound: fit.convergence.remainingBound,

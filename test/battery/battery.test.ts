@@ -39,6 +39,21 @@ describe('battery simulators', () => {
 describe('linear-quadratic battery plants', () => {
   const lq = batteryPlants().filter((p): p is LinearQuadraticBatteryPlant => p.kind === 'linearQuadratic');
 
+  it.each(lq.map((p) => [p.name, p] as const))('%s logs runs that start twice as far out when asked (runStarts wide)', (_, plant) => {
+    // By construction (startSets.ts): each run's first state is centre + 2·(steady draw − centre), and
+    // a seed draws the same numbers in the same order either way, so the root-mean-square deviation
+    // of the first states about the operating point is exactly twice the steady log's (to rounding).
+    const opts = { transitions: 400 * plant.stepsPerEpisode, seed: 9 };
+    const rms = (starts: Float64Array) => {
+      const n = plant.stateDim, c = plant.lq.operatingPoint.state;
+      let sum = 0;
+      for (let i = 0; i < starts.length; i++) sum += (starts[i] - c[i % n]) ** 2;
+      return Math.sqrt(sum / starts.length);
+    };
+    const ratio = rms(plant.simulate({ ...opts, runStarts: 'wide' }).startStates) / rms(plant.simulate(opts).startStates);
+    expect(ratio).toBeCloseTo(2, 9);
+  });
+
   it.each(lq.map((p) => [p.name, p] as const))('%s logs states with the exact stationary mean and covariance', (_, plant) => {
     const data = plant.simulate({ transitions: 200_000, seed: 11 });
     const { mean, covariance } = plant.lq.stationaryStart, n = plant.stateDim;

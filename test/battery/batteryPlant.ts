@@ -16,6 +16,12 @@ export interface SimulationOptions {
   readonly seed: number;
   /** Steps per logged episode (default: the plant's stepsPerEpisode). Episodes end on this time limit, never on a terminal state. */
   readonly stepsPerEpisode?: number;
+  /**
+   * Where logged runs start (startSets.ts, runStartSampler): 'steady' (default) at the logged steady
+   * state, so the wide start set lies outside the logs; 'wide' as far out as the wide start set,
+   * as logs with start-ups and upsets do, so both start sets lie inside the logs.
+   */
+  readonly runStarts?: 'steady' | 'wide';
 }
 
 export interface BatteryCandidate {

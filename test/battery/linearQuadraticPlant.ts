@@ -19,7 +19,7 @@ import { createGaussianPolicy, type GaussianPolicySpec } from '../../src/core/po
 import type { RandomSource } from '../../src/core/random';
 import { candidateNamed, startSetNamed, type BatteryCandidate, type BatteryPlant, type BatteryTruth, type StartSet } from './batteryPlant';
 import { episodesFor, logEpisodes, type PlantDynamics, type StartSampler } from './episodeLog';
-import { standardStartSets } from './startSets';
+import { runStartSampler, standardStartSets } from './startSets';
 
 export interface LinearQuadraticDefinition {
   readonly name: string;
@@ -63,7 +63,7 @@ export function linearQuadraticBatteryPlant(def: LinearQuadraticDefinition): Lin
     lq: { plant: def.plant, operatingPoint: def.operatingPoint, stationaryStart },
     simulate: (o) => {
       const steps = o.stepsPerEpisode ?? def.stepsPerEpisode;
-      return logEpisodes(dynamics, createGaussianPolicy(def.behaviour, def.plant.stateDim), sampler, {
+      return logEpisodes(dynamics, createGaussianPolicy(def.behaviour, def.plant.stateDim), runStartSampler(sampler, def.operatingPoint.state, o.runStarts), {
         episodes: episodesFor(o.transitions, steps), stepsPerEpisode: steps, seed: o.seed, stateNames: def.stateNames, actionNames: def.actionNames,
       });
     },

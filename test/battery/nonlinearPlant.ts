@@ -7,7 +7,7 @@ import { createGaussianPolicy, type GaussianPolicySpec } from '../../src/core/po
 import { candidateNamed, startSetNamed, type BatteryCandidate, type BatteryPlant, type BatteryTruth, type StartSet } from './batteryPlant';
 import { burnInStart, episodesFor, logEpisodes, type PlantDynamics } from './episodeLog';
 import { rolloutTruth } from './rolloutTruth';
-import { standardStartSets } from './startSets';
+import { runStartSampler, standardStartSets } from './startSets';
 
 export interface NonlinearDefinition {
   readonly name: string;
@@ -40,7 +40,7 @@ export function nonlinearBatteryPlant(def: NonlinearDefinition): BatteryPlant {
     discount: def.discount, stepsPerEpisode: def.stepsPerEpisode, behaviour: def.behaviour, candidates: def.candidates,
     simulate: (o) => {
       const steps = o.stepsPerEpisode ?? def.stepsPerEpisode;
-      return logEpisodes(def.dynamics, behaviour, sampler, {
+      return logEpisodes(def.dynamics, behaviour, runStartSampler(sampler, def.operatingState, o.runStarts), {
         episodes: episodesFor(o.transitions, steps), stepsPerEpisode: steps, seed: o.seed, stateNames: def.stateNames, actionNames: def.actionNames,
       });
     },

@@ -19,6 +19,24 @@ export const START_COUNT = 200;
 export const WIDE_FACTOR = 2;
 const START_SET_SEED = 60_606;
 
+function widenCoordinate(v: number, c: number, centre: ArrayLike<number>, scaled?: readonly boolean[]): number {
+  return scaled && !scaled[c] ? v : centre[c] + WIDE_FACTOR * (v - centre[c]);
+}
+
+/**
+ * The logged runs' start sampler of a simulation: 'steady' draws from the logged steady state;
+ * 'wide' moves each draw WIDE_FACTOR times further from the operating point, as logs that hold
+ * start-ups and upsets do — each run then settles from there, so the wide start set lies inside
+ * the logged states (as the first rows of runs always are in a project, where J is taken over them).
+ */
+export function runStartSampler(sample: StartSampler, centre: ArrayLike<number>, runStarts: 'steady' | 'wide' = 'steady', scaled?: readonly boolean[]): StartSampler {
+  if (runStarts === 'steady') return sample;
+  return (rng, out) => {
+    sample(rng, out);
+    for (let c = 0; c < out.length; c++) out[c] = widenCoordinate(out[c], c, centre, scaled);
+  };
+}
+
 /** centre: the operating point (ds); scaled: which state dimensions are moved (default all). */
 export function standardStartSets(sample: StartSampler, centre: ArrayLike<number>, scaled?: readonly boolean[]): StartSet[] {
   const ds = centre.length, rng = createRandom(START_SET_SEED);
@@ -27,10 +45,7 @@ export function standardStartSets(sample: StartSampler, centre: ArrayLike<number
     sample(rng, row);
     steady.set(row, k * ds);
   }
-  const wide = steady.map((v, i) => {
-    const c = i % ds;
-    return scaled && !scaled[c] ? v : centre[c] + WIDE_FACTOR * (v - centre[c]);
-  });
+  const wide = steady.map((v, i) => widenCoordinate(v, i % ds, centre, scaled));
   return [
     { name: 'steady', description: `${START_COUNT} states from the logged steady state`, states: steady, count: START_COUNT },
     { name: 'wide', description: `the same states, ${WIDE_FACTOR}× further from the operating point`, states: wide, count: START_COUNT },

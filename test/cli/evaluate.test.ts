@@ -136,7 +136,7 @@ describe('evaluate command with the network approximator', () => {
     const json = JSON.parse(stdout);
     expect(json.settings.approximator).toBe('network 16×16 (relu)');
     for (const p of json.policies) {
-      expect(p.backend).toBe('TensorFlow.js wasm');
+      expect(p.backend).toBe('TensorFlow.js (WebAssembly)');
       expect(Number.isFinite(p.policyValue)).toBe(true);
       expect(p.history).toHaveLength(3);
       expect(p.status).not.toBe('converged');

@@ -21,15 +21,15 @@ describe('a network fit in the app', () => {
     await page.getByLabel('Neural network').check();
     // Tiny on purpose: the accuracy of network fits is tested in test/core/fqe/network*.test.ts.
     await page.getByLabel('Hidden layers').fill('16, 16');
-    for (const [label, value] of [['Rounds', '3'], ['Steps per round', '20'], ['Batch size', '256']] as const) {
+    for (const [label, value] of [['Most outer iterations', '3'], ['Gradient steps per outer iteration', '20'], ['Batch size', '256']] as const) {
       const field = page.getByLabel(label, { exact: true });
       await field.fill(value);
       await field.blur();
     }
     const [value] = await runAndReadValues(page, 1);
     expect(Number.isFinite(value)).toBe(true);
-    await expect.poll(() => page.getByTestId('policy-account-0').textContent()).toMatch(/Computed by TensorFlow\.js (wasm|cpu)/);
-    expect(await page.getByTestId('policy-account-0').textContent()).toMatch(/TensorFlow\.js wasm/);
+    await expect.poll(() => page.getByTestId('policy-account-0').textContent()).toMatch(/Computed by TensorFlow\.js \((WebAssembly|plain JavaScript)\)/);
+    expect(await page.getByTestId('policy-account-0').textContent()).toMatch(/TensorFlow\.js \(WebAssembly\)/);
     await app.screenshot('network-findings');
     expect(app.consoleErrors).toEqual([]);
   });

@@ -53,6 +53,8 @@ export interface NetworkIterationRecord {
   readonly relativeChange: number | null;
   /** γ^W/(1 − γ^W)·δ_k (networkConvergence.ts): how much of the value may still be moving; null before two full windows. */
   readonly remainingBound: number | null;
+  /** Wall-clock seconds from the start of the outer loop to this iterate's measurement. */
+  readonly elapsedSeconds: number;
 }
 
 export interface NetworkProgress extends NetworkIterationRecord {
@@ -83,6 +85,8 @@ export interface NetworkFit {
   readonly history: readonly NetworkIterationRecord[];
   readonly backend: TfBackendName;
   readonly backendNote: string;
+  /** Why WebAssembly was not used although preferred (tfBackend.ts); null when it was, or plain JavaScript was asked for. */
+  readonly backendFallback: string | null;
   readonly seed: number;
   /** Time, Adam steps and FLOPs of the fit (networkWork.ts). */
   readonly work: NetworkWork;

@@ -71,6 +71,8 @@ interface LoopState {
   decayFrom: number | null;
   /** The quadratic part's weights the gradient mode keeps fixed (the linear fixed point). */
   readonly linearStart: Float64Array;
+  /** performance.now() at the start of the outer loop. */
+  readonly started: number;
 }
 
 /** Yield to the event loop about this often, so cancellation and progress can get through. */
@@ -78,13 +80,13 @@ const PACE_MS = 50;
 
 export async function runOuterIterations(s: FitSession, input: LoopInput, backend: TfBackendName, linearStart: Float64Array): Promise<IterationRun> {
   const rule = convergenceRule(s.discount, input.tolerance, input.patience);
-  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null, decayFrom: null };
+  const started = performance.now();
+  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null, decayFrom: null, started };
   const guard: TrainingGuard = {
     lossLimit: ((2 * s.valueLimit) / s.output.scale) ** 2, cancel: input.isCancelled, pace: createPacer(PACE_MS),
     checkBackend: () => requireActiveBackend(backend, 'network FQE'),
   };
   const run = (stop: IterationStop): IterationRun => ({ history: state.history, stop, kept: state.kept, rule, work: state.work, decayFrom: state.decayFrom });
-  const started = performance.now();
   try {
     for (let k = 1; k <= input.outerIterations; k++) {
       throwIfCancelled(input.isCancelled);
@@ -137,6 +139,7 @@ function measure(
   state.history.push({
     iteration: k, loss: state.lastLoss, heldOutBellmanError: heldOutBellmanError(s, lastLayer),
     policyValue: values.policyValue, relativeChange: change.relativeChange, remainingBound: change.remainingBound,
+    elapsedSeconds: (performance.now() - state.started) / 1000,
   });
   state.kept?.theta.dispose();
   state.kept = { theta: tf.clone(s.net.theta), lastLayer, iteration: k };
@@ -209,8 +212,12 @@ function convergedMessage(rule: ConvergenceRule, k: number): string {
 
 function notConvergedMessage(rule: ConvergenceRule, history: readonly NetworkIterationRecord[]): string {
   const last = history[history.length - 1];
-  const bound = last.remainingBound === null ? 'unknown' : percent(last.remainingBound);
   if (rule.window === 0) return `Ran all ${history.length} outer iterations (stopping rule off: patience 0), so convergence was not judged.`;
+  if (last.remainingBound === null) {
+    return `Not converged: stopped at the limit of ${history.length} outer iterations, before the rule could judge the drift ` +
+      `(it compares two full windows of ${rule.window} iterations, so it needs at least ${rule.minimumIterations}). Allow more outer iterations.`;
+  }
+  const bound = percent(last.remainingBound);
   return `Not converged: stopped at the limit of ${history.length} outer iterations while J and Q were still changing ` +
     `(the last drift allows up to ${bound} of further movement; the rule asks at most ${percent(rule.tolerance)}, judged on windows of ${rule.window} iterations). ` +
     'More outer iterations, or a smaller learning rate, may settle it.';

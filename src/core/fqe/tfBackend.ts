@@ -20,8 +20,10 @@ export type TfBackendName = 'wasm' | 'cpu';
 
 export interface BackendSelection {
   readonly backend: TfBackendName;
-  /** One sentence for the report: what runs, and why, including any fallback. */
+  /** One sentence for the technical details: what runs, and why, including any fallback. */
   readonly note: string;
+  /** Why WebAssembly was not used although it was preferred (plain words); null when it was used or not asked for. */
+  readonly fallbackReason: string | null;
 }
 
 /**
@@ -57,14 +59,14 @@ export async function selectBackend(preference: NetworkBackendPreference, wasmPa
       const check = await verifyBackend('wasm');
       if (check.agrees) {
         await requireLoaded('wasm');
-        return { backend: 'wasm', note: `${await describeWasm()}; agrees with cpu on a training step (largest relative difference ${check.largestDifference.toExponential(1)}, tolerance ${check.tolerance.toExponential(0)})` };
+        return { backend: 'wasm', fallbackReason: null, note: `${await describeWasm()}; agrees with cpu on a training step (largest relative difference ${check.largestDifference.toExponential(1)}, tolerance ${check.tolerance.toExponential(0)})` };
       }
       return fallBack(preference, `it disagreed with cpu on a training step: ${check.reason}`);
     }
     return fallBack(preference, failure);
   }
   await requireLoaded('cpu');
-  return { backend: 'cpu', note: 'TensorFlow.js cpu backend, as requested' };
+  return { backend: 'cpu', fallbackReason: null, note: 'TensorFlow.js cpu backend, as requested' };
 }
 
 /** Throws TfBackendError unless `name` is the active backend (what: who needs it, for the message). */
@@ -78,7 +80,7 @@ export function requireActiveBackend(name: TfBackendName, what: string): void {
 async function fallBack(preference: NetworkBackendPreference, reason: string): Promise<BackendSelection> {
   await requireLoaded('cpu');
   const asked = preference === 'wasm' ? 'wasm was requested' : 'auto preferred wasm';
-  return { backend: 'cpu', note: `TensorFlow.js cpu backend: ${asked}, but ${reason}; cpu is much slower` };
+  return { backend: 'cpu', fallbackReason: reason, note: `TensorFlow.js cpu backend: ${asked}, but ${reason}; cpu is much slower` };
 }
 
 async function requireLoaded(name: TfBackendName): Promise<void> {

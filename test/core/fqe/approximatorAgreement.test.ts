@@ -22,7 +22,7 @@ describe('approximatorAgreement with a paired difference', () => {
     const small = 0.5 * NEGLIGIBLE_SHARE * 10;
     const a = approximatorAgreement({ network: at(-10 + small, -10.2, -9.8), linear: at(-10, -10.2, -9.8), difference: at(small, 0.01, 0.09) });
     expect(a.verdict).toBe('agree');
-    expect(a.message).toMatch(/agree.*under 1 % of the value/);
+    expect(a.message).toMatch(/agree.*under 2\.5 % of the value/);
   });
 
   it('agrees when the paired interval holds 0 and is narrow, even though the separate intervals barely overlap', () => {

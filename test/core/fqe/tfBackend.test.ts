@@ -31,7 +31,7 @@ describe('selectBackend', () => {
   });
 
   it('takes cpu when asked', async () => {
-    expect(await selectBackend('cpu')).toEqual({ backend: 'cpu', note: 'TensorFlow.js cpu backend, as requested' });
+    expect(await selectBackend('cpu')).toEqual({ backend: 'cpu', fallbackReason: null, note: 'TensorFlow.js cpu backend, as requested' });
     expect(tf.getBackend()).toBe('cpu');
   });
 

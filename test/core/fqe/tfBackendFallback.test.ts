@@ -13,6 +13,7 @@ describe('selectBackend when wasm cannot load', () => {
     expect(selection.backend).toBe('cpu');
     expect(tf.getBackend()).toBe('cpu');
     expect(selection.note).toMatch(/^TensorFlow.js cpu backend: wasm was requested, but .*could not start the wasm backend/);
+    expect(selection.fallbackReason).toMatch(/could not start the wasm backend/);
   });
 
   it('stays on cpu for auto, and says the earlier failure cannot be retried', async () => {

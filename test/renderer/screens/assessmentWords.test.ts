@@ -7,7 +7,10 @@ import {
 
 describe('assessment words', () => {
   it('writes intervals, levels and shares', () => {
-    expect(intervalText([6.58123, 10.3349])).toBe('[6.581, 10.33]');
+    expect(intervalText([6.58123, 10.3349])).toBe('[6.58, 10.33]'); // one decimal place for both ends
+    expect(intervalText([-53.5712, -50.7204])).toBe('[−53.57, −50.72]');
+    expect(intervalText([1200.4, 1350.6])).toBe('[1200, 1351]');
+    expect(intervalText([2, 2])).toBe('[2, 2]');
     expect(intervalText(null)).toBe('—');
     expect(levelText(0.9)).toBe('90 %');
     expect(shareText(0.475)).toBe('47.5 %');

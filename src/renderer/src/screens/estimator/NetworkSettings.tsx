@@ -9,12 +9,16 @@ import { formatHiddenLayers, parseHiddenLayers } from './hiddenLayers';
 import { SETTING_HELP } from './settingHelp';
 
 type Network = Extract<ApproximatorSettings, { kind: 'network' }>;
-type NumericKey = 'learningRate' | 'batchSize' | 'stepsPerIteration' | 'outerIterations' | 'heldOutFraction' | 'patience' | 'averageLast';
+type NumericKey = 'learningRate' | 'batchSize' | 'stepsPerIteration' | 'outerIterations' | 'patience' | 'tolerance' | 'averageLast' | 'heldOutFraction';
 
-const NUMERIC: { key: NumericKey; label: string }[] = [
-  { key: 'learningRate', label: 'Learning rate' }, { key: 'batchSize', label: 'Batch size' },
-  { key: 'stepsPerIteration', label: 'Steps per round' }, { key: 'outerIterations', label: 'Rounds' },
-  { key: 'heldOutFraction', label: 'Share of runs held out' }, { key: 'patience', label: 'Rounds without improvement before stopping' }, { key: 'averageLast', label: 'Rounds averaged at the end' },
+const NUMERIC: { key: NumericKey; label: string; help: string }[] = [
+  { key: 'learningRate', label: 'Learning rate', help: SETTING_HELP.learningRate }, { key: 'batchSize', label: 'Batch size', help: SETTING_HELP.batchSize },
+  { key: 'stepsPerIteration', label: 'Gradient steps per outer iteration', help: SETTING_HELP.stepsPerIteration },
+  { key: 'outerIterations', label: 'Most outer iterations', help: SETTING_HELP.outerIterations },
+  { key: 'patience', label: 'Stopping window (outer iterations)', help: SETTING_HELP.patience },
+  { key: 'tolerance', label: 'Stopping tolerance (share of the value)', help: SETTING_HELP.networkTolerance },
+  { key: 'averageLast', label: 'Outer iterations averaged at the end', help: SETTING_HELP.averageLast },
+  { key: 'heldOutFraction', label: 'Share of runs held out', help: SETTING_HELP.heldOutFraction },
 ];
 
 export function NetworkSettings({ settings, problems }: { settings: Network; problems: readonly FieldProblem[] }) {
@@ -50,8 +54,8 @@ export function NetworkSettings({ settings, problems }: { settings: Network; pro
           onChange={(backend) => set('change how the network is computed', { backend }, 'backend')} />
       </details>
       <div className="row">
-        {NUMERIC.map(({ key, label }) => (
-          <NumberField key={key} label={label} value={settings[key]} help={SETTING_HELP[key]} message={at(key)} onBlur={documents.closeStep}
+        {NUMERIC.map(({ key, label, help }) => (
+          <NumberField key={key} label={label} value={settings[key]} help={help} message={at(key)} onBlur={documents.closeStep}
             onCommit={(v) => v !== null && set(`set the ${label.toLowerCase()}`, { [key]: v }, key)} />
         ))}
       </div>

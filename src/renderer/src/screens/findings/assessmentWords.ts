@@ -8,9 +8,21 @@ import type { AssessRunProgress } from '../../../../shared/workerMessages';
 import { OCCUPANCY_SHIFT_LIMITS } from '../../../../core/diagnostics/severity';
 import { formatNumber } from '../../format/numberFormat';
 
-/** "[1.23, 4.56]", or a dash without replicates. */
+/**
+ * "[6.58, 10.33]", or a dash without replicates: both ends to the same decimal place, the one that
+ * gives the interval's width three significant digits (ends of one interval at one precision —
+ * common practice, as for a value and its uncertainty in JCGM 100 §7.2.2); very large, very small
+ * or zero-width intervals fall back to `significant` digits per end.
+ */
 export function intervalText(interval: [number, number] | null, significant = 4): string {
-  return interval ? `[${formatNumber(interval[0], significant)}, ${formatNumber(interval[1], significant)}]` : '—';
+  if (!interval) return '—';
+  const [lo, hi] = interval, width = hi - lo, magnitude = Math.max(Math.abs(lo), Math.abs(hi));
+  if (!(width > 0) || !Number.isFinite(width) || magnitude >= 1e6 || magnitude < 1e-4) {
+    return `[${formatNumber(lo, significant)}, ${formatNumber(hi, significant)}]`;
+  }
+  const decimals = Math.min(10, Math.max(0, 2 - Math.floor(Math.log10(width))));
+  const fixed = (x: number) => x.toFixed(decimals).replace(/^-/, '−');
+  return `[${fixed(lo)}, ${fixed(hi)}]`;
 }
 
 /** "90 %" from 0.9. */
