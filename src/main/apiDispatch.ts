@@ -7,6 +7,7 @@
 import { IpcArgumentError, isInvokeMethod, validateArguments, type ApiReply, type InvokeMethod } from '../shared/ipcChannels';
 import { AccessDeniedError, type AppService } from './appService';
 import { FileAccessError } from './fileErrors';
+import { ReportPrintError } from './reportPrinting';
 
 export async function dispatchApiCall(service: AppService, method: string, args: unknown, log: (error: unknown) => void = console.error): Promise<ApiReply<unknown>> {
   if (!isInvokeMethod(method)) return { ok: false, message: `There is no API method "${method}".` };
@@ -20,7 +21,7 @@ export async function dispatchApiCall(service: AppService, method: string, args:
 }
 
 function messageFor(method: InvokeMethod, error: unknown, log: (error: unknown) => void): string {
-  if (error instanceof IpcArgumentError || error instanceof FileAccessError || error instanceof AccessDeniedError) return error.message;
+  if (error instanceof IpcArgumentError || error instanceof FileAccessError || error instanceof AccessDeniedError || error instanceof ReportPrintError) return error.message;
   log(error);
   const text = error instanceof Error ? error.message.split('\n')[0] : String(error);
   return `Unexpected problem in ${method}: ${text}`;

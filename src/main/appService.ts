@@ -15,6 +15,7 @@ import { pathApi } from './pathIdentity';
 import { resolveDataPath } from './pathAccess';
 import { overwriteRefusal, referencedDataPath } from './projectReferences';
 import type { RecoveryGrants } from './recoveryStore';
+import { ReportPrintError, type ReportPrinter } from './reportPrinting';
 
 export interface DocumentState {
   name: string;
@@ -33,6 +34,8 @@ export interface AppSession {
   onDocumentState?: (state: DocumentState) => void;
   /** Every save's outcome, so a close that asked the renderer to save knows when it is done. */
   onSaveReply?: (reply: SaveReply) => void;
+  /** Prints the report or writes it as PDF (electronPrinter.ts); absent where the host cannot print. */
+  printer?: ReportPrinter;
 }
 
 /** The main process refused a path the user did not choose; the message says so. */
@@ -171,6 +174,20 @@ export function createAppService(context: AppContext, session: AppSession): AppS
     return { path };
   }
 
+  function printer(): ReportPrinter {
+    if (!session.printer) throw new ReportPrintError('Printing is not available in this window; write the report as HTML and print it from a browser.');
+    return session.printer;
+  }
+
+  /** The PDF is made only after the user chose where it goes, then written like every export (atomic). */
+  async function saveReportPdf(html: string, suggestedName: string): Promise<{ path: string } | null> {
+    const chosen = await dialogs.showExport('pdf', suggestedFileName(suggestedName, EXPORT_EXTENSIONS.pdf, 'report'));
+    if (chosen === null) return null;
+    const path = withExtension(chosen, EXPORT_EXTENSIONS.pdf);
+    await store.writeAtomic(path, await printer().toPdf(html), { backup: false });
+    return { path };
+  }
+
   return {
     async openProjectDialog() {
       const path = await dialogs.showOpenProject();
@@ -197,6 +214,8 @@ export function createAppService(context: AppContext, session: AppSession): AppS
       await recovery.discard(session.slot);
     },
     exportFile,
+    saveReportPdf,
+    printReport: (html) => printer().print(html),
     setDocumentState(state) {
       documentState = { name: state.name, dirty: state.dirty };
       session.onDocumentState?.(documentState);

@@ -20,6 +20,7 @@ const EXPORT_FILTERS: Record<ExportKind, FileFilter[]> = {
   svg: [{ name: 'SVG image', extensions: ['svg'] }],
   csv: [{ name: 'CSV table', extensions: ['csv'] }],
   html: [{ name: 'HTML report', extensions: ['html', 'htm'] }],
+  pdf: [{ name: 'PDF document', extensions: ['pdf'] }],
 };
 
 function documentsFolder(): string {

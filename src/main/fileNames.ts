@@ -7,7 +7,7 @@ import type { ExportKind } from '../shared/appApi';
 
 export const PROJECT_EXTENSION = '.spcritic';
 
-export const EXPORT_EXTENSIONS: Readonly<Record<ExportKind, string>> = { png: '.png', svg: '.svg', csv: '.csv', html: '.html' };
+export const EXPORT_EXTENSIONS: Readonly<Record<ExportKind, string>> = { png: '.png', svg: '.svg', csv: '.csv', html: '.html', pdf: '.pdf' };
 
 /** `path` with `extension` appended unless it already ends with it (any letter case). */
 export function withExtension(path: string, extension: string): string {

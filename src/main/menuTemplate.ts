@@ -1,6 +1,6 @@
 /**
  * The application menu as plain data: File (New, New Window, Open…, Open Recent, Save, Save As…,
- * Close, Quit), Edit (Undo/Redo and the clipboard), View (zoom, dark/light theme, full screen),
+ * Print Report…, Save Report as PDF…, Close, Quit), Edit (Undo/Redo and the clipboard), View (zoom, dark/light theme, full screen),
  * Evaluation (Run, Cancel run), and on macOS the app and Window menus. Pure, so every accelerator
  * and command is unit-tested; menu.ts turns it into Electron's Menu with click handlers.
  *
@@ -74,6 +74,9 @@ function fileMenu(options: MenuOptions): MenuEntry {
       separator,
       command('Save', 'CmdOrCtrl+S', 'save-project'),
       command('Save As…', 'CmdOrCtrl+Shift+S', 'save-project-as'),
+      separator,
+      command('Print Report…', 'CmdOrCtrl+P', 'print-report'),
+      command('Save Report as PDF…', 'CmdOrCtrl+Shift+P', 'save-report-pdf'),
       separator,
       command('Close Project', 'CmdOrCtrl+W', 'close-project'),
       { label: 'Close Window', accelerator: 'CmdOrCtrl+Shift+W', action: { kind: 'close-window' } },

@@ -8,6 +8,7 @@ import type { MenuCommand, MenuCommandDetail } from '../shared/appApi';
 import { MENU_COMMAND_CHANNEL } from '../shared/ipcChannels';
 import type { AppContext } from './appContext';
 import { createAppService, type AppService } from './appService';
+import { createElectronPrinter } from './electronPrinter';
 import { quitOutcome, runCloseSequence, type CloseOutcome } from './closeGuard';
 import type { Dialogs } from './dialogs';
 import { createElectronDialogs } from './electronDialogs';
@@ -93,6 +94,7 @@ export function createWindowManager(options: WindowManagerOptions) {
         if (process.platform === 'darwin') window.setDocumentEdited(state.dirty);
       },
       onSaveReply: (reply) => [...saveWaiters].forEach((waiter) => waiter(reply.saved)),
+      printer: createElectronPrinter(),
     });
     const record: WindowRecord = { window, dialogs, service, closeApproved: false, guarding: null, saveWaiters };
     const contentsId = window.webContents.id;

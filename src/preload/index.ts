@@ -32,6 +32,8 @@ const api: AppApi = {
   pendingRecovery: () => call('pendingRecovery'),
   discardRecovery: () => call('discardRecovery'),
   exportFile: (kind, suggestedName, bytes) => call('exportFile', kind, suggestedName, bytes),
+  saveReportPdf: (html, suggestedName) => call('saveReportPdf', html, suggestedName),
+  printReport: (html) => call('printReport', html),
   setDocumentState: (state) => ipcRenderer.send(DOCUMENT_STATE_CHANNEL, { name: state.name, dirty: state.dirty }),
   onMenuCommand(listener) {
     // Wrap so the renderer never receives the IpcRendererEvent (it exposes ipcRenderer itself).

@@ -60,25 +60,25 @@ function checkFeedback(loop: Feedback, where: string, ctx: Context): void {
   checkState(loop.measurement, `${where}.measurement`, ctx);
   if (typeof loop.setpoint === 'string') checkState(loop.setpoint, `${where}.setpoint`, ctx);
   if (loop.integralTimeSeconds !== undefined && loop.integralGain !== undefined) {
-    ctx.add(`${where}.integralGain`, 'give the integral action once: integralTimeSeconds or integralGain, not both');
+    ctx.add(`${where}.integralGain`, 'give the integral action once, as an integral time T_i or as an integral gain K_i, not both');
   }
   if (loop.integralTimeSeconds !== undefined && loop.proportionalGain === 0) {
-    ctx.add(`${where}.integralTimeSeconds`, 'with proportionalGain 0 an integral time gives no integral action (K_i = K_c/T_i = 0); give integralGain instead');
+    ctx.add(`${where}.integralTimeSeconds`, 'with a proportional gain K_c of 0 an integral time gives no integral action (K_i = K_c/T_i = 0); give an integral gain K_i instead');
   }
   const integral = loop.integralTimeSeconds !== undefined || (loop.integralGain ?? 0) > 0;
   if (!integral) return;
   if (loop.integralState === undefined) {
-    ctx.add(`${where}.integralState`, 'integral action needs the error-integral state: add a derived state of kind "errorIntegral" to columns.derived and to the states, and name it here');
+    ctx.add(`${where}.integralState`, 'integral action needs the error-integral state: choose the integral of this loop\'s error as its error-integral state (the project file computes one on import as a derived state of kind "errorIntegral" among the states)');
     return;
   }
   if (!checkState(loop.integralState, `${where}.integralState`, ctx)) return;
   const integralState = ctx.derived.find((d) => d.name === loop.integralState);
   if (!integralState || integralState.kind !== 'errorIntegral') {
-    ctx.add(`${where}.integralState`, `"${loop.integralState}" is not a derived error integral (columns.derived, kind "errorIntegral")`);
+    ctx.add(`${where}.integralState`, `"${loop.integralState}" is not an error integral computed on import; choose one of this loop's error as its error-integral state`);
     return;
   }
   if (integralState.measurement !== loop.measurement || integralState.setpoint !== loop.setpoint) {
-    ctx.add(`${where}.integralState`, `"${loop.integralState}" integrates ${JSON.stringify(integralState.setpoint)} − ${integralState.measurement}, but this loop's error is ${JSON.stringify(loop.setpoint)} − ${loop.measurement}; use the same measurement and setpoint`);
+    ctx.add(`${where}.integralState`, `"${loop.integralState}" integrates ${JSON.stringify(integralState.setpoint)} − ${integralState.measurement}, but this loop's error is ${JSON.stringify(loop.setpoint)} − ${loop.measurement}; choose an error-integral state of the same measurement and setpoint`);
   }
 }
 
@@ -92,11 +92,11 @@ function checkBounds(c: CandidateSpec, ctx: Context): void {
   if (!c.bounds) return;
   const m = ctx.actionNames.length;
   for (const side of ['lo', 'hi'] as const) {
-    if (c.bounds[side].length !== m) ctx.add(`bounds.${side}`, `expected ${m} limit(s), one per action column (null for none)`);
+    if (c.bounds[side].length !== m) ctx.add(`bounds.${side}`, `expected ${m} limit(s), one per action column (blank for none)`);
   }
   c.bounds.lo.forEach((lo, k) => {
     const hi = c.bounds!.hi[k];
-    if (lo !== null && hi !== null && hi !== undefined && !(lo < hi)) ctx.add('bounds', `lower limit ${lo} must be below upper limit ${hi} for action ${k + 1}`);
+    if (lo !== null && hi !== null && hi !== undefined && !(lo < hi)) ctx.add(`bounds.lo[${k}]`, `the lowest ${ctx.actionNames[k] ?? `action ${k + 1}`} (${lo}) must be below the highest (${hi})`);
   });
 }
 
@@ -104,20 +104,20 @@ function checkRateLimit(c: CandidateSpec, ctx: Context): void {
   const rate = c.rateLimit;
   if (!rate) return;
   const m = ctx.actionNames.length;
-  if (rate.maxStep.length !== m) ctx.add('rateLimit.maxStep', `expected ${m} value(s), one per action column (null for no rate limit)`);
-  if (rate.previousAction.length !== m) ctx.add('rateLimit.previousAction', `expected ${m} name(s), one per action column (null where there is no rate limit)`);
-  if (c.bounds?.mode === 'truncate') ctx.add('rateLimit', 'a rate limit clips the action, so the position limits must clip too (bounds.mode "clip")');
+  if (rate.maxStep.length !== m) ctx.add('rateLimit.maxStep', `expected ${m} largest step(s) per sample, one per action column (blank for no rate limit)`);
+  if (rate.previousAction.length !== m) ctx.add('rateLimit.previousAction', `expected ${m} previous-action state(s), one per action column (none where there is no rate limit)`);
+  if (c.bounds?.mode === 'truncate') ctx.add('rateLimit', 'a rate limit clips the action, so the actuator limits must clip too: set "At a limit" to Clip');
   rate.maxStep.forEach((step, j) => {
     const previous = rate.previousAction[j] ?? null, where = `rateLimit.previousAction[${j}]`;
     if (step === null) return;
     if (previous === null) {
-      ctx.add(where, `a rate limit on ${ctx.actionNames[j] ?? `action ${j + 1}`} needs the previous value of that action: a derived state of kind "previous" among the states`);
+      ctx.add(where, `a rate limit on ${ctx.actionNames[j] ?? `action ${j + 1}`} needs the previous value of that action among the states: choose it as the previous-action state`);
       return;
     }
     if (!checkState(previous, where, ctx)) return;
     const d = ctx.derived.find((x) => x.name === previous);
     if (!d || d.kind !== 'previous' || d.source !== ctx.actionNames[j]) {
-      ctx.add(where, `"${previous}" must be the derived previous value of the action column "${ctx.actionNames[j]}" (columns.derived, kind "previous", source "${ctx.actionNames[j]}")`);
+      ctx.add(where, `"${previous}" is not the previous value of ${ctx.actionNames[j]}; choose the state that holds ${ctx.actionNames[j]} one sample earlier as the previous-action state`);
     }
   });
 }

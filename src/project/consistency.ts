@@ -29,24 +29,24 @@ export function checkProjectConsistency(doc: ProjectDocument, fileName: string, 
   checkRetuneMaps(doc, (path, message) => problems.push({ where: at(path), field: fieldKeys(path), message }));
   const names = new Set<string>();
   doc.candidates.forEach((c, i) => {
-    if (names.has(c.name)) problems.push({ where: at(`candidates[${i}].name`), message: `the name "${c.name}" is used by another candidate; names must be unique` });
+    if (names.has(c.name)) problems.push({ where: at(`candidates[${i}].name`), field: ['candidates', i, 'name'], message: `the name "${c.name}" is used by another candidate; names must be unique` });
     names.add(c.name);
   });
   if (doc.columns.nextState.kind === 'columns' && doc.columns.nextState.columns.length !== stateCount) {
-    problems.push({ where: at('columns.nextState.columns'), message: `expected ${stateCount} next-state column(s), one per state column` });
+    problems.push({ where: at('columns.nextState.columns'), field: ['columns', 'nextState', 'columns'], message: `expected ${stateCount} next-state column(s), one per state column` });
   }
   if (doc.columns.timestamp !== undefined && doc.columns.episode.kind === 'timeGap' && doc.columns.timestamp !== doc.columns.episode.column) {
-    problems.push({ where: at('columns.timestamp'), message: `"${doc.columns.timestamp}" differs from the time-gap episode column "${doc.columns.episode.column}"; use one timestamp column` });
+    problems.push({ where: at('columns.timestamp'), field: ['columns', 'timestamp'], message: `"${doc.columns.timestamp}" differs from the time-gap episode column "${doc.columns.episode.column}"; use one timestamp column` });
   }
   if (doc.startStates.kind === 'given') {
     doc.startStates.states.forEach((s, i) => {
-      if (s.length !== stateCount) problems.push({ where: at(`startStates.states[${i}]`), message: `expected ${stateCount} value(s), one per state column` });
+      if (s.length !== stateCount) problems.push({ where: at(`startStates.states[${i}]`), field: ['startStates', 'states', i], message: `expected ${stateCount} value(s), one per state column` });
     });
   }
   if (doc.surface) {
     const stateNames = doc.columns.states.map((s) => s.column);
     for (const axis of ['xState', 'yState'] as const) {
-      if (!stateNames.includes(doc.surface[axis])) problems.push({ where: at(`surface.${axis}`), message: `"${doc.surface[axis]}" is not one of the state columns (${stateNames.join(', ')})` });
+      if (!stateNames.includes(doc.surface[axis])) problems.push({ where: at(`surface.${axis}`), field: ['surface', axis], message: `"${doc.surface[axis]}" is not one of the state columns (${stateNames.join(', ')})` });
     }
   }
   return problems;

@@ -310,6 +310,8 @@ export const resultsSchema = strictObject({
   savedAt: z.string(),
   evaluation: z.record(z.string(), z.unknown()),
   assessment: z.record(z.string(), z.unknown()).optional(),
+  /** The retune maps computed from the same run (pipeline/retuneMaps.ts RetuneMapResult, as the CLI's --json writes them); absent in older files. */
+  retuneMaps: z.array(z.record(z.string(), z.unknown())).max(10).optional(),
 });
 
 /** One swept number of a candidate: its dotted path and the values (src/core/retune/retuneAxes.ts). */

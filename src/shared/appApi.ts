@@ -33,12 +33,12 @@ export interface RecoveryOffer {
   savedAt: string;
 }
 
-export type ExportKind = 'png' | 'svg' | 'csv' | 'html';
+export type ExportKind = 'png' | 'svg' | 'csv' | 'html' | 'pdf';
 
 /** Commands the application menu sends to the renderer. */
 export type MenuCommand =
   | 'new-project' | 'open-project' | 'open-recent-project' | 'save-project' | 'save-project-as' | 'close-project'
-  | 'undo' | 'redo' | 'toggle-theme' | 'run-evaluation' | 'cancel-evaluation';
+  | 'undo' | 'redo' | 'toggle-theme' | 'run-evaluation' | 'cancel-evaluation' | 'print-report' | 'save-report-pdf';
 
 /** Sent with 'open-recent-project': the recent entry the user picked (pass it to openRecentProject). */
 export interface MenuCommandDetail {
@@ -74,6 +74,10 @@ export interface AppApi {
 
   /** Ask for a destination and write an exported image or table; null when cancelled. */
   exportFile(kind: ExportKind, suggestedName: string, bytes: Uint8Array): Promise<{ path: string } | null>;
+  /** The report (renderReport's HTML) written as PDF where the user says; null when cancelled. */
+  saveReportPdf(html: string, suggestedName: string): Promise<{ path: string } | null>;
+  /** The report sent to a printer through the system's print dialog; false when cancelled. */
+  printReport(html: string): Promise<boolean>;
 
   /** Tell the window its project name and whether it has unsaved changes (title, close prompt). */
   setDocumentState(state: { name: string; dirty: boolean }): void;

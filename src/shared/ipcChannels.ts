@@ -32,7 +32,7 @@ export type ApiReply<T> = { ok: true; value: T } | { ok: false; message: string 
 
 export const MENU_COMMANDS = [
   'new-project', 'open-project', 'open-recent-project', 'save-project', 'save-project-as', 'close-project',
-  'undo', 'redo', 'toggle-theme', 'run-evaluation', 'cancel-evaluation',
+  'undo', 'redo', 'toggle-theme', 'run-evaluation', 'cancel-evaluation', 'print-report', 'save-report-pdf',
 ] as const satisfies readonly MenuCommand[];
 // Compile-time check that the list above names every MenuCommand.
 const _everyMenuCommand: Record<MenuCommand, true> = Object.fromEntries(MENU_COMMANDS.map((c) => [c, true])) as Record<(typeof MENU_COMMANDS)[number], true>;
@@ -70,6 +70,9 @@ const projectText = z.string({ error: 'expected the project text' })
 const exportBytes = z.instanceof(Uint8Array, { error: 'expected the file contents as a Uint8Array' })
   .refine((bytes) => bytes.byteLength <= MAX_EXPORT_BYTES, `expected at most ${MAX_EXPORT_BYTES} bytes`);
 
+const reportHtml = z.string({ error: 'expected the report as HTML text' })
+  .max(MAX_PROJECT_TEXT_CHARS, `expected at most ${MAX_PROJECT_TEXT_CHARS} characters of report`);
+
 /** One entry per invoke method: argument names (for messages) and the tuple schema. */
 export const API_ARGUMENTS = {
   openProjectDialog: { names: [], schema: z.tuple([]) },
@@ -85,8 +88,10 @@ export const API_ARGUMENTS = {
   discardRecovery: { names: [], schema: z.tuple([]) },
   exportFile: {
     names: ['kind', 'suggestedName', 'bytes'],
-    schema: z.tuple([z.enum(['png', 'svg', 'csv', 'html'], { error: 'expected "png", "svg", "csv" or "html"' }), fileName, exportBytes]),
+    schema: z.tuple([z.enum(['png', 'svg', 'csv', 'html', 'pdf'], { error: 'expected "png", "svg", "csv", "html" or "pdf"' }), fileName, exportBytes]),
   },
+  saveReportPdf: { names: ['html', 'suggestedName'], schema: z.tuple([reportHtml, fileName]) },
+  printReport: { names: ['html'], schema: z.tuple([reportHtml]) },
 } as const satisfies Record<InvokeMethod, { names: readonly string[]; schema: z.ZodTuple }>;
 
 export const INVOKE_METHODS = Object.keys(API_ARGUMENTS) as InvokeMethod[];

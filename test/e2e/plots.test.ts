@@ -17,6 +17,7 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { build } from 'vite';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
+import { layoutFaults } from './harness/svgLayout';
 import { CAUTION_SHORT } from '../../src/pipeline/cautions';
 import { CONTENT_SECURITY_POLICY } from '../../src/main/rendererProtocol';
 import { pngDpi, pngSize } from '../../src/figures/writers/pngChunks';
@@ -24,6 +25,7 @@ import { colourTable } from '../../src/figures/parts/colourScale';
 import { CHROMIUM_ARGS } from './harness/launch';
 import { requireChromium } from '../support/chromiumPath';
 import { PLOT_KINDS, type PlotKind } from './plots-page/plotSpecs';
+import { presetLabel, presetPixels, SIZE_PRESETS } from '../../src/renderer/src/screens/findings/exportSizes';
 import type {} from './plots-page/main';
 
 const here = dirname(fileURLToPath(import.meta.url));
@@ -192,35 +194,31 @@ describe('PNG export (e2e)', () => {
   });
 });
 
-/** Pairs of text boxes that overlap by more than 1 px both ways, and boxes that leave the image. */
-function layoutFaults(laid: { width: number; height: number; texts: { text: string; left: number; top: number; right: number; bottom: number }[] }): string[] {
-  const faults: string[] = [], t = laid.texts, slack = 1;
-  for (const b of t) {
-    if (b.left < -slack || b.top < -slack || b.right > laid.width + slack || b.bottom > laid.height + slack) faults.push(`"${b.text}" leaves the image (${b.left.toFixed(1)}, ${b.top.toFixed(1)})–(${b.right.toFixed(1)}, ${b.bottom.toFixed(1)})`);
-  }
-  for (let i = 0; i < t.length; i++) {
-    for (let j = i + 1; j < t.length; j++) {
-      const w = Math.min(t[i].right, t[j].right) - Math.max(t[i].left, t[j].left), h = Math.min(t[i].bottom, t[j].bottom) - Math.max(t[i].top, t[j].top);
-      if (w > slack && h > slack) faults.push(`"${t[i].text}" overlaps "${t[j].text}" by ${w.toFixed(1)} × ${h.toFixed(1)} px`);
-    }
-  }
-  return faults;
-}
-
-// The export sizes people pick: the default (report figure), the half-width figure, and a small on-screen size.
+// Every size the app's export panel offers (its presets, src/renderer/src/screens/findings/exportSizes.ts),
+// the old half-width figure, and a small custom size at screen resolution.
 const LAYOUT_SIZES = [
-  { name: 'report 6.5 × 4 in at 300 dpi', widthPx: 1950, heightPx: 1200, dpi: 300 },
+  ...SIZE_PRESETS.map((p) => ({ name: presetLabel(p), ...presetPixels(p) })),
   { name: 'half-width 3.25 × 2.5 in at 300 dpi', widthPx: 975, heightPx: 750, dpi: 300 },
   { name: 'small 560 × 400 px at 96 dpi', widthPx: 560, heightPx: 400, dpi: 96 },
 ];
 
-describe('no text collides in an export (e2e, text boxes as Chromium lays out the SVG)', () => {
+/** Text of the kinds the check must see in each export: the title, the axis titles and the caution. */
+const MUST_SEE: Record<PlotKind, RegExp[]> = Object.fromEntries(PLOT_KINDS.map((k) => [k, [/Advisory offline estimate/]])) as Record<PlotKind, RegExp[]>;
+MUST_SEE.surface.push(/tank level/, /inflow/);
+MUST_SEE.retuneMap.push(/proportional gain/, /integral time/, /best supported point/, /supported by the logs/);
+
+describe('no text collides or is clipped in an export, at every export size (e2e, text boxes as Chromium lays out the SVG)', () => {
   it.each(PLOT_KINDS.flatMap((kind) => LAYOUT_SIZES.map((size) => [kind, size.name, size] as const)))('%s at %s', async (kind, _name, size) => {
-    const options = { widthPx: size.widthPx, heightPx: size.heightPx, dpi: size.dpi, background: 'white' as const };
-    const svg = (await page.evaluate(([k, o]) => window.plotsPage.exportSvg(k, 'light', o), [kind, options] as const))!;
-    const laid = await page.evaluate(([s, w, h]) => window.plotsPage.svgTextBoxes(s, w, h), [svg, size.widthPx, size.heightPx] as const);
-    expect(laid.texts.length).toBeGreaterThan(5);
-    expect(layoutFaults(laid)).toEqual([]);
+    for (const theme of THEMES) {
+      // A transparent background keeps the plot's theme (a white one is always light): both are laid out.
+      const options = { widthPx: size.widthPx, heightPx: size.heightPx, dpi: size.dpi, background: theme === 'light' ? 'white' as const : 'transparent' as const };
+      const svg = (await page.evaluate(([k, t, o]) => window.plotsPage.exportSvg(k, t, o), [kind, theme, options] as const))!;
+      const laid = await page.evaluate(([s, w, h]) => window.plotsPage.svgTextBoxes(s, w, h), [svg, size.widthPx, size.heightPx] as const);
+      expect(laid.texts.length).toBeGreaterThan(5);
+      const all = laid.texts.map((t) => t.text).join(' ');
+      for (const words of MUST_SEE[kind]) expect(all, `${kind} ${theme}`).toMatch(words);
+      expect(layoutFaults(laid), `${kind} ${theme}`).toEqual([]);
+    }
   });
 });
 

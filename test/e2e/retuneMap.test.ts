@@ -2,8 +2,12 @@
  * The retune map in the app, on the heating-loop sample (one 10×10 map of proportional gain ×
  * integral time): after a run, Findings offers "Compute the retune map"; Cancel stops it through the
  * shared stop flag and the run survives (the map can be computed again at once, without a rerun);
- * the map is drawn with its headline, notes and table, and exports as PNG. Screenshots of the panel
- * in both themes at 1280 × 800 and 1920 × 1080 go to test-artifacts/screens/.
+ * the map is drawn with its headline, notes and table, and exports as PNG, and as SVG at every size
+ * the export panel offers with no text overlapping or clipped (the size list itself not clipped);
+ * the report written from the app draws the map above its table, saves as PDF, and Ctrl+P prints it;
+ * the map is kept with the saved project and shows again on reopening without recomputing, marked
+ * out of date once a candidate changes. Screenshots of the panel, its export settings and the kept
+ * map in both themes at 1280 × 800 and 1920 × 1080 go to test-artifacts/screens/.
  */
 import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
@@ -13,11 +17,24 @@ import { drawnPixels } from './harness/drawnPixels';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { decodedPngContent, goToStep, pngSize } from '../renderer/e2e/appSteps';
+import { layoutFaults, selectRoom, svgLayoutIn } from './harness/svgLayout';
+import { presetPixels, SIZE_PRESETS } from '../../src/renderer/src/screens/findings/exportSizes';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
 
 describe('the retune map in the app (e2e)', () => {
-  let app: LaunchedApp;
+  let app: LaunchedApp, projectPath = '';
+  const SIZES = [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }];
+  /** Switch the theme and wait until the map is redrawn in it: its figure's background changes first, then the worker reports the drawing. */
+  const setTheme = async (theme: string) => {
+    const { page } = app, figure = page.getByTestId('plot-retuneMap');
+    const background = () => figure.evaluate((f) => (f as HTMLElement).style.background);
+    const before = await background();
+    if ((await page.evaluate(() => document.documentElement.dataset.theme)) === theme) return;
+    await page.getByTestId('toggle-theme').click();
+    await expect.poll(() => page.evaluate(() => document.documentElement.dataset.theme), POLL).toBe(theme);
+    await expect.poll(background, POLL).not.toBe(before);
+  };
   beforeAll(async () => {
     app = await launchApp({ viewport: { width: 1280, height: 800 } });
   });
@@ -27,7 +44,7 @@ describe('the retune map in the app (e2e)', () => {
 
   it('computes the map after a run, with progress and a cancel that keeps the run', async () => {
     const { page } = app;
-    await openSample(app, 'heating-loop');
+    projectPath = await openSample(app, 'heating-loop');
     await goToStep(page, 'run');
     await page.getByTestId('run-evaluation').click();
     await page.getByTestId('run-finished').waitFor({ timeout: 180_000 });
@@ -64,6 +81,71 @@ describe('the retune map in the app (e2e)', () => {
     await page.getByTestId('export-retuneMap').locator('summary').click();
   });
 
+  it('exports the map as SVG at every size offered, no text overlapping or clipped; the size list is not clipped', async () => {
+    const { page, harness } = app;
+    const details = page.getByTestId('export-retuneMap'), select = page.getByTestId('export-size-retuneMap');
+    await details.locator('summary').click();
+    // The size list in the full-width map panel and in a half-width one (the convergence panel's) at both window sizes.
+    const narrow = page.getByTestId('export-convergence');
+    await narrow.locator('summary').click();
+    for (const size of SIZES) {
+      await page.setViewportSize(size);
+      for (const list of [select, page.getByTestId('export-size-convergence')]) {
+        const room = await selectRoom(list);
+        expect(room.longest, `${room.longestText} at ${size.width} px`).toBeLessThanOrEqual(room.room);
+      }
+    }
+    await narrow.locator('summary').click();
+    await page.setViewportSize(SIZES[0]);
+    for (const preset of SIZE_PRESETS) {
+      const px = presetPixels(preset), target = join(harness.workFolder, `retune-map-${preset.id}.svg`);
+      await select.selectOption(preset.id);
+      await expect.poll(() => page.getByTestId('export-size-text-retuneMap').innerText(), POLL).toContain(`${px.widthPx} × ${px.heightPx} px at ${px.dpi} dpi: prints at`);
+      harness.dialogs.nextExport = target;
+      await page.getByTestId('export-svg-retuneMap').click();
+      await expect.poll(() => page.getByTestId('export-status-retuneMap').innerText(), { ...POLL, timeout: 30_000 }).toContain(target);
+      const laid = await svgLayoutIn(page, await readFile(target, 'utf8'), px.widthPx, px.heightPx);
+      const words = laid.texts.map((t) => t.text).join(' ');
+      for (const expected of ['proportional gain', 'integral time', 'supported by the logs', 'Advisory offline estimate']) expect(words, preset.id).toContain(expected);
+      expect(layoutFaults(laid), preset.id).toEqual([]);
+    }
+    await select.selectOption('report');
+    await details.locator('summary').click();
+  });
+
+  it('writes the report with the map drawn above its table, as HTML and as PDF; Ctrl+P prints it', async () => {
+    const { page, harness } = app;
+    await expect.poll(() => page.getByTestId('write-report').isEnabled(), { ...POLL, timeout: 240_000 }).toBe(true);
+    const htmlPath = join(harness.workFolder, 'heating-report.html'), pdfPath = join(harness.workFolder, 'heating-report.pdf');
+    harness.dialogs.nextExport = htmlPath;
+    await page.getByTestId('write-report').click();
+    await expect.poll(() => page.getByTestId('report-status').innerText(), { ...POLL, timeout: 60_000 }).toContain(htmlPath);
+    const html = await readFile(htmlPath, 'utf8');
+    expect(html).toMatch(/<figure id="fig-retune-map-0"[^>]*><svg[^>]*aria-label="Heat map of J/);
+    expect(html.indexOf('id="fig-retune-map-0"')).toBeLessThan(html.indexOf('class="retune-grid"'));
+    expect(html.indexOf('id="read-first"')).toBeLessThan(html.indexOf('id="job"'));
+    expect(html).toContain('local codes and licensed practice');
+    // The report as a reader sees it (one look: a document for print, light in both app themes), at both window sizes.
+    const reader = await app.context.newPage();
+    await reader.setContent(html, { waitUntil: 'load' }); // no request: the harness blocks every URL but the app's
+    for (const size of SIZES) {
+      await reader.setViewportSize(size);
+      await reader.screenshot({ path: join(SCREENS, `app-report-${size.width}.png`) });
+      await reader.locator('#retune-maps').screenshot({ path: join(SCREENS, `app-report-retune-map-${size.width}.png`) });
+    }
+    await reader.close();
+    harness.dialogs.nextExport = pdfPath;
+    await page.getByTestId('report-pdf').click();
+    await expect.poll(() => page.getByTestId('report-status').innerText(), { ...POLL, timeout: 120_000 }).toContain(pdfPath);
+    expect((await readFile(pdfPath)).subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    await page.keyboard.press('Control+p');
+    await expect.poll(() => harness.printer.printed.length, { ...POLL, timeout: 60_000 }).toBe(1);
+    expect(harness.printer.printed[0]).toContain('id="fig-retune-map-0"');
+    await expect.poll(() => page.getByTestId('notice').innerText(), POLL).toContain('Sent the report to the printer');
+    await page.getByTestId('report-status').scrollIntoViewIfNeeded();
+    await app.screenshot('report-panel-1280');
+  });
+
   it('screens of the panel in both themes at 1280 × 800 and 1920 × 1080', async () => {
     const { page } = app;
     const panel = page.getByTestId('retune-map'), figure = page.getByTestId('plot-retuneMap');
@@ -74,6 +156,10 @@ describe('the retune map in the app (e2e)', () => {
         await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
         await panel.scrollIntoViewIfNeeded();
         await panel.screenshot({ path: join(SCREENS, `retune-map-${size.width}-${theme}.png`) });
+        const exportPanel = page.getByTestId('export-retuneMap');
+        await exportPanel.locator('summary').click();
+        await exportPanel.screenshot({ path: join(SCREENS, `export-panel-${size.width}-${theme}.png`) });
+        await exportPanel.locator('summary').click();
         if (size.width === 1280 && theme === 'light') {
           await page.getByTestId('retune-map-table-details').locator('summary').click();
           await page.getByTestId('retune-map-table-details').screenshot({ path: join(SCREENS, 'retune-map-table.png') });
@@ -83,6 +169,45 @@ describe('the retune map in the app (e2e)', () => {
       }
     }
     await page.setViewportSize({ width: 1280, height: 800 });
+  });
+
+  it('keeps the map with the saved project: reopened it shows without recomputing; a changed candidate marks it out of date', async () => {
+    const { page, harness } = app;
+    const headline = await page.getByTestId('retune-map-headline').innerText();
+    await harness.sendMenuCommand(page, 'save-project');
+    await harness.waitForDocumentState((s) => !s.dirty);
+    const saved = JSON.parse(await readFile(projectPath, 'utf8'));
+    expect(saved.results.retuneMaps).toHaveLength(1);
+    expect(saved.results.retuneMaps[0].points).toHaveLength(100);
+    await page.getByTestId('new-project').click();
+    harness.dialogs.nextOpenProject = projectPath;
+    await page.getByTestId('open-project').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
+    await goToStep(page, 'findings');
+    await expect.poll(() => page.getByTestId('kept-retune-map').innerText(), POLL).toContain('needs no recomputing');
+    await expect.poll(() => page.getByTestId('retune-map-headline').innerText(), POLL).toBe(headline);
+    const figure = page.getByTestId('plot-retuneMap');
+    await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
+    await expect.poll(() => page.getByTestId('retune-map-table').locator('tbody tr').count(), POLL).toBe(10);
+    await goToStep(page, 'candidates');
+    const dither = page.getByLabel(/^Dither, standard deviation/).first();
+    await dither.fill(String(Number(await dither.inputValue()) * 2));
+    await dither.blur();
+    await goToStep(page, 'findings');
+    await expect.poll(() => page.getByTestId('kept-retune-map').innerText(), POLL).toContain('Out of date');
+    const panel = page.getByTestId('retune-map');
+    for (const size of SIZES) {
+      await page.setViewportSize(size);
+      for (const theme of ['light', 'dark']) {
+        await setTheme(theme);
+        await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
+        await panel.scrollIntoViewIfNeeded();
+        await expect.poll(async () => (await drawnPixels(page, figure)).drawnShare, POLL).toBeGreaterThan(0.3);
+        await page.screenshot({ path: join(SCREENS, `retune-map-kept-out-of-date-${size.width}-${theme}.png`) });
+      }
+    }
+    await setTheme('light');
+    await page.setViewportSize(SIZES[0]);
   });
 
   it('logged no console errors', () => {

@@ -12,8 +12,8 @@ describe('IPC argument validation', () => {
     const channels = INVOKE_METHODS.map(invokeChannel);
     expect(new Set([...channels, DOCUMENT_STATE_CHANNEL, MENU_COMMAND_CHANNEL]).size).toBe(channels.length + 2);
     expect(INVOKE_METHODS.sort()).toEqual([
-      'chooseDataFile', 'discardRecovery', 'exportFile', 'openProjectDialog', 'openRecentProject', 'pendingRecovery',
-      'readProjectData', 'recentProjects', 'relocateDataFile', 'saveProject', 'saveProjectAs', 'writeRecovery',
+      'chooseDataFile', 'discardRecovery', 'exportFile', 'openProjectDialog', 'openRecentProject', 'pendingRecovery', 'printReport',
+      'readProjectData', 'recentProjects', 'relocateDataFile', 'saveProject', 'saveProjectAs', 'saveReportPdf', 'writeRecovery',
     ]);
   });
 
@@ -34,7 +34,7 @@ describe('IPC argument validation', () => {
     ['saveProject', [{}, null, 'x'], 'saveProject: argument "text": expected the project text'],
     ['saveProject', ['{}', null, '../../etc/passwd'], 'saveProject: argument "suggestedName": expected a file name without folders (no / or \\)'],
     ['saveProject', ['{}', undefined, 'x'], 'saveProject: argument "path": expected a path (text)'],
-    ['exportFile', ['gif', 'x.gif', new Uint8Array(1)], 'exportFile: argument "kind": expected "png", "svg", "csv" or "html"'],
+    ['exportFile', ['gif', 'x.gif', new Uint8Array(1)], 'exportFile: argument "kind": expected "png", "svg", "csv", "html" or "pdf"'],
     ['exportFile', ['png', 'x.png', [1, 2, 3]], 'exportFile: argument "bytes": expected the file contents as a Uint8Array'],
     ['writeRecovery', ['{}', 7], 'writeRecovery: argument "projectPath": expected a path (text)'],
     ['saveProjectAs', ['{}'], 'saveProjectAs: expected 2 (text, suggestedName), received 1'],

@@ -12,6 +12,7 @@ describe('application menu template', () => {
     const accelerators = new Map(menuItems(template(platform)).filter((e) => e.accelerator).map((e) => [e.accelerator!, e.label ?? e.role]));
     const expected: Record<string, string> = {
       'CmdOrCtrl+N': 'New Project', 'CmdOrCtrl+O': 'Open…', 'CmdOrCtrl+S': 'Save', 'CmdOrCtrl+Shift+S': 'Save As…',
+      'CmdOrCtrl+P': 'Print Report…', 'CmdOrCtrl+Shift+P': 'Save Report as PDF…',
       'CmdOrCtrl+W': 'Close Project', 'CmdOrCtrl+Z': 'Undo', 'CmdOrCtrl+Shift+Z': 'Redo',
       'CmdOrCtrl+=': 'Zoom In', 'CmdOrCtrl+-': 'Zoom Out', 'CmdOrCtrl+0': 'Actual Size',
       'CmdOrCtrl+Shift+D': 'Toggle Dark/Light Theme', F5: 'Run Evaluation', 'Shift+F5': 'Cancel Run',

@@ -3,6 +3,11 @@
  * is there with its heading, every figure draws, nothing outside the file is requested, no console
  * error appears, and nothing is wider than the page. A screenshot is kept for a person to look at
  * (test-artifacts/screens/report.png). Fails with what to install where no Chromium is found (test/support/chromiumPath.ts).
+ *
+ * The report carries an invented retune map (test/figures/syntheticRetuneMap.ts, drawing data, not
+ * a result): drawn as a figure with its legend and axis titles, the table under it. Printed (CSS
+ * print media at the A4 text width, then Chromium's PDF writer): the cautions sit on the first page,
+ * figures and tables are never split, nothing is wider than the paper.
  */
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import { join } from 'node:path';
@@ -13,6 +18,23 @@ import { evaluateProject } from '../../src/pipeline/evaluateProject';
 import { openProject } from '../../src/pipeline/openProject';
 import { requireChromium } from '../support/chromiumPath';
 import { REPORT_SECTIONS, renderReport } from '../../src/pipeline/report/reportDocument';
+import type { RetuneMapResult } from '../../src/pipeline/retuneMaps';
+import { syntheticRetuneMap } from '../figures/syntheticRetuneMap';
+
+/** The invented map in the pipeline's result shape (labels as the pipeline writes them, "K_c" not "K_{c}"). */
+function inventedMap(): RetuneMapResult {
+  const m = syntheticRetuneMap();
+  return {
+    candidate: 'gentle gain', features: 'polynomial degree 2', notes: ['Invented for the rendering test.'], presentController: m.presentController,
+    axes: [{ parameter: 'form.loops.0.proportionalGain', label: 'proportional gain K_c (%/°C)', values: [...m.axes[0].values] }, { parameter: 'form.loops.0.integralTimeSeconds', label: 'integral time T_i (s)', values: [...m.axes[1].values] }],
+    points: m.points.map((p) => ({ ...p, coordinates: [...p.coordinates], interval: p.interval && [p.interval[0], p.interval[1]], occupancyShift: 1, route: 'closedForm' as never })),
+    best: m.best && { ...m.best, coordinates: [...m.points[m.best.index].coordinates] },
+  };
+}
+
+// A4 is 210 × 297 mm (ISO 216); the report's @page margins are 16 mm top/bottom and 14 mm left/right
+// (reportStyles.ts), leaving 182 × 265 mm; at 96 CSS px per inch (CSS Values §6.2) that is 687.9 × 1001.6 px.
+const A4_TEXT_PX = { width: Math.floor((182 / 25.4) * 96), height: Math.floor((265 / 25.4) * 96) };
 
 const root = join(__dirname, '..', '..');
 const screens = join(root, 'test-artifacts', 'screens');
@@ -26,7 +48,7 @@ async function tankReport(): Promise<string> {
   const assessment = await assessProject({ project, dataset, settings: { resamples: 200, level: 0.9, seed: 1, sensitivity: true } });
   if (!evaluation.ok || !assessment.ok) throw new Error('pipeline failed');
   return renderReport({
-    project, projectFile: 'tank-levels.spcritic', evaluation: evaluation.value, assessment: assessment.value, assessmentProblems: [], retuneMaps: [], retuneMapProblems: [],
+    project, projectFile: 'tank-levels.spcritic', evaluation: evaluation.value, assessment: assessment.value, assessmentProblems: [], retuneMaps: [inventedMap()], retuneMapProblems: [],
     data: { summary: imported.summary, episodeReport: imported.episodeReport }, generatedAt: '2026-01-01T00:00:00.000Z',
   });
 }
@@ -68,6 +90,38 @@ describe('the report in headless Chromium', () => {
     expect(errors).toEqual([]);
     expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(1040);
     await page.screenshot({ path: join(screens, 'report.png'), fullPage: true });
+    await page.close();
+  });
+
+  it('draws the retune map as a figure with legend and axis titles, the table under it', async () => {
+    const page = await browser.newPage({ viewport: { width: 1040, height: 1400 } });
+    await page.goto(`file://${file}`, { waitUntil: 'load' });
+    const figure = page.locator('#fig-retune-map-0');
+    const text = await figure.locator('svg').evaluate((svg) => [...svg.querySelectorAll('text')].map((t) => t.textContent ?? '').join('|'));
+    for (const words of ['proportional gain K', '(%/°C)', 'integral time T', '(s)', 'best supported point', 'beyond the logs: not supported', 'thin logs (caution)', 'discounted cost']) expect(text).toContain(words);
+    expect(await figure.locator('figcaption').innerText()).toMatch(/^Figure \d+\. Retune map of gentle gain: .*hatched: not supported by the logs.*Advisory offline estimate/s);
+    // The accessible fallback: the same numbers as a table right after the figure.
+    expect(await figure.evaluate((f) => f.nextElementSibling?.nextElementSibling?.tagName)).toBe('TABLE');
+    expect(await figure.locator('svg').getAttribute('aria-label')).toMatch(/^Heat map of J, discounted cost/);
+    await figure.screenshot({ path: join(screens, 'report-retune-map.png') });
+    await page.close();
+  });
+
+  it('prints on A4 with the cautions on the first page and no figure or table split', async () => {
+    const page = await browser.newPage({ viewport: A4_TEXT_PX });
+    await page.goto(`file://${file}`, { waitUntil: 'load' });
+    await page.emulateMedia({ media: 'print' });
+    const cautions = (await page.locator('#read-first').boundingBox())!;
+    expect(cautions.y + cautions.height).toBeLessThan(A4_TEXT_PX.height);
+    expect(await page.locator('#read-first').innerText()).toMatch(/advisory estimates.*design review and commissioning.*local codes and licensed practice/s);
+    const breaks = await page.$$eval('figure, table', (all) => [...new Set(all.map((e) => getComputedStyle(e).breakInside))]);
+    expect(breaks).toEqual(['avoid']);
+    expect(await page.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(A4_TEXT_PX.width);
+    const pdf = await page.pdf({ printBackground: true, preferCSSPageSize: true });
+    expect(pdf.subarray(0, 5).toString('latin1')).toBe('%PDF-');
+    const pages = pdf.toString('latin1').match(/\/Type\s*\/Page(?!s)/g) ?? [];
+    expect(pages.length).toBeGreaterThan(3);
+    await writeFile(join(screens, 'report.pdf'), pdf);
     await page.close();
   });
 });

@@ -72,8 +72,8 @@ describe('candidate forms in the project document', () => {
     expect(found).toMatch(/"B"\.form\.loops\[0\]\.integralState: integral action needs the error-integral state/);
     expect(found).toMatch(/"C"\.form\.loops\[0\]\.integralState: "ie" integrates 21 − temp, but this loop's error is 20 − temp/);
     expect(found).toMatch(/"D"\.form\.loops\[0\]\.breakpoints\[1\]: breakpoints must increase strictly/);
-    expect(found).toMatch(/"E"\.rateLimit\.previousAction\[0\]: "ie" must be the derived previous value of the action column "valve"/);
-    expect(found).toMatch(/"F"\.rateLimit: a rate limit clips the action/);
+    expect(found).toMatch(/"E"\.rateLimit\.previousAction\[0\]: "ie" is not the previous value of valve; choose the state that holds valve one sample earlier/);
+    expect(found).toMatch(/"F"\.rateLimit: a rate limit clips the action, so the actuator limits must clip too: set "At a limit" to Clip/);
   });
 
   it('describes each form in the trade\'s words, with units', () => {
@@ -125,5 +125,30 @@ describe('problem locations as data', () => {
     const r = parse(doc);
     expect(r.ok).toBe(false);
     if (!r.ok) expect(r.problems[0].field).toEqual(['candidates', 0, 'form', 'loops', 0, 'measurement']);
+  });
+});
+
+describe('candidate checks speak the editor’s words', () => {
+  it('names no file field in the message, and keeps the field path as data', () => {
+    const doc = base();
+    doc.candidates = [
+      { name: 'G', form: { kind: 'pi', loops: [{ ...pi.loops[0], integralGain: 0.1 }] }, dither: [1] },
+      { name: 'H', form: { kind: 'pi', loops: [{ ...pi.loops[0], proportionalGain: 0 }] }, dither: [1] },
+      { name: 'I', form: { kind: 'pi', loops: [{ ...pi.loops[0], integralState: undefined }] }, dither: [1] },
+      { name: 'J', form: pi, dither: [1], bounds: { lo: [5], hi: [1], mode: 'clip' } },
+      { name: 'K', form: pi, dither: [1], bounds: { lo: [0], hi: [1], mode: 'truncate' }, rateLimit: { maxStep: [2], previousAction: [null] } },
+    ];
+    const r = parse(doc), found = r.ok ? [] : r.problems;
+    expect(found.length).toBeGreaterThanOrEqual(5);
+    for (const p of found) {
+      // Quoted text is a value the user typed or a kind to write in the file; outside quotes, no camelCase field name.
+      expect(p.message.replace(/"[^"]*"/g, ''), p.message).not.toMatch(/\b[a-z]+[A-Z][A-Za-z]*\b|\bcolumns\.|\bbounds\.|\bnull\b/);
+      expect(p.field?.[0], p.where).toBe('candidates');
+    }
+    const messages = found.map((p) => p.message).join('\n');
+    expect(messages).toContain('give the integral action once, as an integral time T_i or as an integral gain K_i, not both');
+    expect(messages).toContain('with a proportional gain K_c of 0');
+    expect(messages).toContain('the lowest valve (5) must be below the highest (1)');
+    expect(found.find((p) => p.message.startsWith('the lowest'))?.field).toEqual(['candidates', 3, 'bounds', 'lo', 0]);
   });
 });

@@ -84,6 +84,7 @@ function hoverCells(layout: MapCellLayout) {
 
 function heatKeys(layout: MapCellLayout, mid: readonly [number, number, number], look: PlotLook): LegendKey[] {
   const p = look.palette, keys: LegendKey[] = [];
+  if (shadeCount(layout, 'supported') > 0) keys.push({ label: 'supported by the logs', kind: 'area', colour: rgbText(mid) });
   if (layout.best !== null) keys.push({ label: 'best supported point', kind: 'area', colour: rgbText(mid), overlay: (ctx, rect) => drawOutline(ctx, rect, look) });
   if (shadeCount(layout, 'caution') > 0) keys.push({ label: 'thin logs (caution)', kind: 'hatch', colour: rgbText(mid), hatch: LIGHT_HATCH });
   if (shadeCount(layout, 'unsupported') > 0) {

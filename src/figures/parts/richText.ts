@@ -12,6 +12,11 @@ export interface TextRun {
   readonly kind: ScriptKind;
 }
 
+/** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)": a one-letter symbol's subscript written plainly becomes markup. */
+export function subscriptMarkup(label: string): string {
+  return label.replace(/\b([A-Za-z])_([A-Za-z0-9]+)\b/g, '$1_{$2}');
+}
+
 export const RICH_TEXT_DEFAULTS = { scriptScale: 0.7, supShiftEm: 0.35, subShiftEm: 0.2 } as const;
 
 /** "V^{π}(s)" → [V][π sup][(s)]. An unclosed brace is read as plain text. */

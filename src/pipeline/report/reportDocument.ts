@@ -1,6 +1,7 @@
 /**
  * The report as ONE self-contained HTML document: inline CSS, inline SVG figures, no scripts and
- * no external resources, so it opens anywhere, prints, and can be attached to a design review.
+ * no external resources, so it opens anywhere, prints (A4, the cautions on the first page, no figure
+ * or table split across pages: reportStyles.ts), and can be attached to a design review.
  * Section ids (job, data, settings, comparison, surfaces, slices, diagnostics, cross-checks,
  * sensitivity, retune-maps, cautions) are stable so hosts and tests can find them.
  */
@@ -9,7 +10,7 @@ import { comparisonSection } from './reportComparison';
 import { cautionsSection, crossChecksSection, diagnosticsSection, sensitivitySection } from './reportEvidence';
 import { slicesSection, surfacesSection } from './reportFigures';
 import { FigureCounter, type ReportInput } from './reportInput';
-import { dataSection, jobSection, settingsSection, summarySection } from './reportOverview';
+import { dataSection, firstPageCautions, jobSection, settingsSection, summarySection } from './reportOverview';
 import { REPORT_CSS } from './reportStyles';
 import { retuneSection } from './reportRetune';
 
@@ -21,6 +22,7 @@ export function renderReport(input: ReportInput): string {
   const figures = new FigureCounter();
   const body = html`<header><h1>Offline evaluation report — ${input.project.name}</h1>
       <p class="subtitle">Setpoint Critic · written ${html`<time datetime="${input.generatedAt}">${formatWrittenAt(input.generatedAt)}</time>`} · advisory offline estimates from logged data</p></header>
+    ${firstPageCautions()}
     ${summarySection(input)}
     ${jobSection(input)}
     ${dataSection(input)}
@@ -31,7 +33,7 @@ export function renderReport(input: ReportInput): string {
     ${diagnosticsSection(input)}
     ${crossChecksSection(input, figures)}
     ${sensitivitySection(input, figures)}
-    ${retuneSection(input)}
+    ${retuneSection(input, figures)}
     ${cautionsSection(input, input.assessment)}`;
   return '<!DOCTYPE html>\n' + html`<html lang="en"><head><meta charset="utf-8"/>
     <meta http-equiv="Content-Security-Policy" content="default-src 'none'; style-src 'unsafe-inline'; img-src data:"/>

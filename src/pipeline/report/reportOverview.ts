@@ -1,6 +1,7 @@
 /** The report's opening sections: the summary, the job, the data and the settings. */
 import type { Assessment } from '../assessment';
 import { summariseCandidate } from '../../project/candidateSummary';
+import { CAUTIONS } from '../cautions';
 import { html, formatNumber, formatPercent, formatWrittenAt, type Html } from './htmlText';
 import { senseWords, type ReportInput } from './reportInput';
 
@@ -12,6 +13,12 @@ export function summarySection(input: ReportInput): Html {
   return html`<div class="summary" id="summary"><p><strong>Summary.</strong> Values are the ${words.value} (${words.better}). By point estimate the best policy is
     <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.join(' › ')} holds in ${formatPercent(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
     ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p></div>`;
+}
+
+/** The cautions at the head of the document, so a printout carries them on its first page. */
+export function firstPageCautions(): Html {
+  return html`<aside class="cautions-first" id="read-first" aria-label="Cautions"><p><strong>Read before using any number.</strong></p>
+    <ul>${CAUTIONS.map((c) => html`<li>${c}</li>`)}</ul></aside>`;
 }
 
 export function jobSection(input: ReportInput): Html {

@@ -1,42 +1,75 @@
 /**
- * The retune maps section: each map as a table — for two axes a grid with the first axis down and
- * the second across, each cell J with its interval, shaded by whether the logs support it (the
- * occupancy-shift rule, src/core/diagnostics/severity.ts), the best supported cell outlined; the
- * present controller's value for reference.
+ * The retune maps section: each map as a figure — the same chart the app draws and exports
+ * (src/figures/charts/retuneMap.ts: a heat map over two parameters with the colour bar, the
+ * unsupported points hatched and keyed in the legend, the best supported point outlined; a curve
+ * over one), written inline by the shared figure stack (src/figures/writers/inlineSvg.ts) — and
+ * below it the same numbers as a table, the accessible fallback: for two axes a grid with the first
+ * axis down and the second across, each cell J with its interval, shaded by whether the logs support
+ * it (the occupancy-shift rule, src/core/diagnostics/severity.ts); the present controller's value
+ * for reference.
  */
+import { retuneMapChart, retuneMapHeight, retuneMapSummary } from '../../figures/charts/retuneMap';
+import { richTextHtml, subscriptMarkup } from '../../figures/parts/richText';
+import { inlineSvg } from '../../figures/writers/inlineSvg';
+import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
-import { formatInterval, formatNumber, html, type Html } from './htmlText';
-import type { ReportInput } from './reportInput';
+import { escapeHtml, formatInterval, formatNumber, html, raw, type Html } from './htmlText';
+import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
+
+/** The figure's width in CSS px: the report's text column (reportStyles.ts, 980 px less padding). */
+const MAP_WIDTH_PX = 720;
 
 const SUPPORT_WORD = { caution: 'thin logs', serious: 'beyond the logs', unknown: 'support unknown' } as const;
 
-export function retuneSection(input: ReportInput): Html {
+export function retuneSection(input: ReportInput, figures: FigureCounter): Html {
   const maps = input.retuneMaps;
   if (maps.length === 0 && input.retuneMapProblems.length === 0) {
     return html`<section id="retune-maps"><h2>Retune maps</h2><p>This project defines no retune map (the project field <code>retuneMaps</code>).</p></section>`;
   }
   return html`<section id="retune-maps"><h2>Retune maps</h2>
     ${input.retuneMapProblems.length ? html`<p>Not computed: ${input.retuneMapProblems.join('; ')}</p>` : html``}
-    <p>Each cell is J of the candidate with the numbers on its row and column, by linear fitted Q-evaluation on the same logs.
-      <span class="retune-supported">Unshaded</span>: the logs support the estimate; <span class="retune-caution">light</span>: thin logs (caution);
-      <span class="retune-serious">dark</span>: beyond the logs (serious) — read those as extrapolation. The outlined cell is the best supported point.</p>
-    ${maps.map((m) => mapTable(m))}</section>`;
+    <p>Each point is J of the candidate with the numbers on its axes, by linear fitted Q-evaluation on the same logs.
+      In the figure, hatched points are on thin logs (light hatching) or beyond the logs (grey, dense hatching) — read those as extrapolation; the outlined point is the best supported one.
+      The table under each figure gives the same numbers with their intervals:
+      <span class="retune-supported">unshaded</span>: the logs support the estimate; <span class="retune-caution">light</span>: thin logs (caution);
+      <span class="retune-serious">dark</span>: beyond the logs (serious).</p>
+    ${maps.map((m, i) => html`${mapFigure(input, m, i, figures.next())}${mapTable(m)}`)}</section>`;
+}
+
+/** "proportional gain K_c (%/°C)" with its symbol's subscript set as HTML. */
+function axisHtml(label: string): string {
+  return richTextHtml(subscriptMarkup(label), escapeHtml);
+}
+
+/** The map drawn by the shared chart, with a numbered caption that says what is marked and the short caution. */
+function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: number): Html {
+  const words = senseWords(input);
+  const props = {
+    map: { ...map, axes: map.axes.map((a) => ({ ...a, label: subscriptMarkup(a.label) })) },
+    valueLabel: valueAxisLabel(input, 'J'), sense: input.evaluation.valueSense, title: '', theme: 'light' as const,
+  };
+  const svg = inlineSvg((look) => retuneMapChart(props, look), {
+    widthPx: MAP_WIDTH_PX, heightPx: retuneMapHeight(map), id: `retune-map-${index}`, label: retuneMapSummary(props),
+  });
+  const over = raw(map.axes.map((a) => axisHtml(a.label)).join(map.axes.length === 2 ? ' (across) and ' : ''));
+  return html`<figure id="fig-retune-map-${index}" class="retune-figure">${raw(svg)}<figcaption>Figure ${n}. Retune map of ${map.candidate}: J (${words.value}, ${words.better}) over ${over}${map.axes.length === 2 ? ' (up)' : ''};
+    hatched: not supported by the logs; outlined: the best supported point${map.presentController === null ? '' : '; dashed: the present controller'}. The table below gives each point’s value and interval. ${CAUTION_SHORT}</figcaption></figure>`;
 }
 
 function mapTable(map: RetuneMapResult): Html {
   const best = map.best;
   const caption = html`<p><strong>${map.candidate}</strong> — ${best
-    ? `best supported point ${best.coordinates.map((v, a) => `${map.axes[a].label} = ${formatNumber(v, 4)}`).join(', ')}, J ${formatNumber(best.value, 4)}`
+    ? html`best supported point ${raw(best.coordinates.map((v, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(formatNumber(v, 4))}`).join(', '))}, J ${formatNumber(best.value, 4)}`
     : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${formatNumber(map.presentController, 4)}`}.</p>`;
   const notes = html`<ul class="small">${map.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"
     title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${formatNumber(p.occupancyShift, 3)}">${p.value === null ? `no value (${p.status})` : formatNumber(p.value, 4)}<br/><span class="small">${formatInterval(p.interval, 3)}</span></td>`;
   if (map.axes.length === 1) {
-    return html`${caption}<table><thead><tr><th>${map.axes[0].label}</th><th class="num">J and interval</th></tr></thead><tbody>
+    return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">J and interval</th></tr></thead><tbody>
       ${map.points.map((p, i) => html`<tr><td class="num">${formatNumber(p.coordinates[0], 4)}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;
   }
   const [rows, cols] = map.axes, width = cols.values.length;
-  return html`${caption}<table class="retune-grid"><thead><tr><th>${rows.label} ↓ · ${cols.label} →</th>${cols.values.map((v) => html`<th class="num">${formatNumber(v, 4)}</th>`)}</tr></thead><tbody>
+  return html`${caption}<table class="retune-grid"><thead><tr><th>${raw(axisHtml(rows.label))} ↓ · ${raw(axisHtml(cols.label))} →</th>${cols.values.map((v) => html`<th class="num">${formatNumber(v, 4)}</th>`)}</tr></thead><tbody>
     ${rows.values.map((v, r) => html`<tr><th class="num">${formatNumber(v, 4)}</th>${cols.values.map((_, c) => cell(map.points[r * width + c], r * width + c))}</tr>`)}
     </tbody></table>${notes}`;
 }

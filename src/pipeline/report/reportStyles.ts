@@ -1,4 +1,9 @@
-/** The report's stylesheet, inline so the file stands alone; plain and printable (A4, figures not split). */
+/**
+ * The report's stylesheet, inline so the file stands alone; plain and printable: A4 with 16 × 14 mm
+ * margins (the @page rule, which the app's PDF writer follows), figures, tables, table rows and the
+ * caution boxes never split across pages, headings kept with what follows, table headers repeated
+ * on each page, shading printed (print-color-adjust, CSS Color Adjustment Level 1).
+ */
 export const REPORT_CSS = `
 :root { --ink: #1a1a1a; --muted: #555; --rule: #c8c8c8; --serious: #9b1c1c; --caution: #8a5a00; --ok: #1e6b3a; }
 * { box-sizing: border-box; }
@@ -33,8 +38,18 @@ svg .value { fill: #333; }
 .verdict-disagrees { color: var(--serious); font-weight: 600; }
 .verdict-uninformative, .verdict-notApplicable { color: var(--caution); font-weight: 600; }
 .cautions { border: 2px solid var(--ink); padding: 8px 16px; }
+.cautions-first { border: 2px solid var(--ink); padding: 6px 14px; margin: 10px 0 14px; font-size: 13px; }
+.cautions-first p { margin: 0 0 2px; }
+.cautions-first ul { margin: 0; padding-left: 20px; }
 .small { font-size: 12.5px; color: var(--muted); }
 .grid2 { display: flex; flex-wrap: wrap; gap: 12px 10px; }
 @page { size: A4; margin: 16mm 14mm; }
-@media print { body { padding: 0; max-width: none; } h2 { break-after: avoid; } section { break-inside: auto; } }
+@media print {
+  body { padding: 0; max-width: none; font-size: 10.5pt; }
+  h2, h3 { break-after: avoid; page-break-after: avoid; }
+  section { break-inside: auto; }
+  figure, table, tr, .summary, .cautions, .cautions-first { break-inside: avoid; page-break-inside: avoid; }
+  thead { display: table-header-group; }
+  * { -webkit-print-color-adjust: exact; print-color-adjust: exact; }
+}
 `;

@@ -17,8 +17,10 @@ import { StepNav } from './StepNav';
 import { stepStatuses, type StepId } from './steps';
 import { toggleTheme } from './theme';
 import { Toolbar } from './Toolbar';
+import { reportCommand, type ReportAction } from './files/reportCommands';
 import { HelpPanel } from './help/HelpPanel';
 import { useWorkspace } from './WorkspaceContext';
+import type { Workspace } from './workspace';
 
 export function App() {
   const workspace = useWorkspace();
@@ -38,6 +40,7 @@ export function App() {
       'open-recent-project': () => detail && files.openRecent(detail.path),
       'save-project-as': files.saveAs, 'close-project': files.close, undo: documents.undo, redo: documents.redo,
       'toggle-theme': toggleTheme, 'run-evaluation': () => { setStep('run'); return runner.run(); }, 'cancel-evaluation': runner.cancel,
+      'print-report': () => reportFromMenu('print', workspace), 'save-report-pdf': () => reportFromMenu('pdf', workspace),
     };
     void actions[c]();
   }, [workspace]);
@@ -85,4 +88,10 @@ export function App() {
       <DialogHost questions={workspace.questions} />
     </div>
   );
+}
+
+/** The menu's report commands: the outcome (or why there is no report yet) as the session's notice. */
+async function reportFromMenu(action: ReportAction, workspace: Workspace): Promise<void> {
+  const outcome = await reportCommand(action, workspace.api, workspace.documents, workspace.session);
+  if (outcome) workspace.session.set((s) => ({ ...s, notice: { tone: outcome.tone === 'error' ? 'warning' : 'info', title: outcome.text, problems: [] } }));
 }

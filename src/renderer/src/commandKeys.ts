@@ -32,5 +32,6 @@ export function keyCommand(e: KeyPress, host: 'electron' | 'browser'): KeyComman
   if (key === 'n' && !e.shiftKey) return { kind: 'menu', command: 'new-project' };
   if (key === 'w' && !e.shiftKey) return { kind: 'menu', command: 'close-project' };
   if (key === 'd' && e.shiftKey) return { kind: 'menu', command: 'toggle-theme' };
+  if (key === 'p') return { kind: 'menu', command: e.shiftKey ? 'save-report-pdf' : 'print-report' };
   return null;
 }

@@ -70,6 +70,8 @@
     pendingRecovery: () => call('pendingRecovery', []),
     discardRecovery: () => call('discardRecovery', []),
     exportFile: (kind, suggestedName, bytes) => call('exportFile', [kind, suggestedName, bytes]),
+    saveReportPdf: (html, suggestedName) => call('saveReportPdf', [html, suggestedName]),
+    printReport: (html) => call('printReport', [html]),
     setDocumentState(state) {
       const args = [{ name: state.name, dirty: state.dirty }];
       stateChain = stateChain.then(() => post('setDocumentState', args)).catch(() => undefined);

@@ -46,6 +46,7 @@ import type { MenuCommand, MenuCommandDetail, SaveReply } from '../../../src/sha
 import type { AppService, DocumentState } from '../../../src/main/appService';
 import { runCloseSequence, type CloseOutcome } from '../../../src/main/closeGuard';
 import type { ScriptedDialogs } from './scriptedDialogs';
+import type { HeadlessPrinter } from './headlessPrinter';
 import { requireChromium } from '../../support/chromiumPath';
 import { startHarnessServer, type ApiCallRecord, type HarnessServer } from './server';
 
@@ -73,6 +74,8 @@ export interface Harness {
   /** http://127.0.0.1:<port> — the app's origin in the tests. */
   origin: string;
   dialogs: ScriptedDialogs;
+  /** The report printer: real PDFs from this Chromium; `printed` holds what went to the pretend printer. */
+  printer: HeadlessPrinter;
   service: AppService;
   stateFolder: string;
   workFolder: string;
@@ -117,6 +120,7 @@ export async function launchApp(options: LaunchOptions = {}): Promise<LaunchedAp
     colorScheme: options.colorScheme ?? 'light',
     acceptDownloads: false,
   });
+  server.printer.attach(context);
   const blockedRequests = await blockForeignRequests(context, server.origin);
   await context.addInitScript({ path: browserApiScript });
   const page = context.pages()[0] ?? (await context.newPage());
@@ -200,6 +204,7 @@ function makeHarness(server: HarnessServer, workFolder: string): Harness {
   return {
     origin: server.origin,
     dialogs: server.dialogs,
+    printer: server.printer,
     service: server.service,
     stateFolder: server.stateFolder,
     workFolder,

@@ -17,6 +17,7 @@ import { dispatchApiCall } from '../../../src/main/apiDispatch';
 import { createAppContext } from '../../../src/main/appContext';
 import { isAppUrl } from '../../../src/main/appOrigin';
 import { createAppService, type AppService } from '../../../src/main/appService';
+import { createHeadlessPrinter, type HeadlessPrinter } from './headlessPrinter';
 import { rendererResponse } from '../../../src/main/rendererProtocol';
 import { ScriptedDialogs } from './scriptedDialogs';
 import { fromWire, toWire } from './wireCodec';
@@ -31,6 +32,8 @@ export interface ApiCallRecord {
 export interface HarnessServer {
   origin: string;
   dialogs: ScriptedDialogs;
+  /** Writes PDFs with the test's Chromium and records what was printed. */
+  printer: HeadlessPrinter;
   service: AppService;
   stateFolder: string;
   /** Every API call the page made, in order. */
@@ -50,7 +53,8 @@ export async function startHarnessServer(options: { rendererFolder: string; stat
   const apiCalls: ApiCallRecord[] = [];
   const saveListeners = new Set<(reply: SaveReply) => void>();
   const context = createAppContext({ stateFolder: options.stateFolder, report: (m) => reports.push(m) });
-  const service = createAppService(context, { slot: 'browser', dialogs, onSaveReply: (reply) => saveListeners.forEach((l) => l(reply)) });
+  const printer = createHeadlessPrinter();
+  const service = createAppService(context, { slot: 'browser', dialogs, printer, onSaveReply: (reply) => saveListeners.forEach((l) => l(reply)) });
   let origin = '';
 
   const server = createServer((request, response) => {
@@ -100,6 +104,7 @@ export async function startHarnessServer(options: { rendererFolder: string; stat
   return {
     origin,
     dialogs,
+    printer,
     service,
     stateFolder: options.stateFolder,
     apiCalls,

@@ -5,7 +5,10 @@
  * computes it). Invented minimal results, shaped as the JSON the app writes.
  */
 import { describe, expect, it } from 'vitest';
-import { assessmentFromJson, evaluationFromJson } from '../../../src/renderer/src/session/savedResults';
+import { assessmentFromJson, evaluationFromJson, restoreResults, resultsOf, retuneMapsFromJson } from '../../../src/renderer/src/session/savedResults';
+import { createSessionStore } from '../../../src/renderer/src/session/sessionStore';
+import { newProjectDocument } from '../../../src/renderer/src/document/newProject';
+import { runKey } from '../../../src/shared/runKey';
 
 const evaluation = {
   project: 'p', evaluatedAt: '2026-11-01T00:00:00.000Z', valueSense: 'cost', behaviour: { value: 3, standardError: 0.1, episodes: 10, largestTruncationWeight: 0 },
@@ -24,5 +27,47 @@ describe('results saved by an earlier version', () => {
     expect(assessmentFromJson(old)).toBeNull();
     const current = { settings: {}, comparison: {}, presentController: null, candidates: [{ name: 'A', confirmation: { status: 'unconfirmed', text: '' }, reportedRange: null, diagnostics: { occupancyShift: 1.1 } }] };
     expect(assessmentFromJson(current)).not.toBeNull();
+  });
+});
+
+describe('retune maps kept with the results', () => {
+  // An invented 1×2 map, shaped as pipeline/retuneMaps.ts writes it (not any plant's result).
+  const map = {
+    candidate: 'A', features: 'polynomial degree 2', notes: ['note'], presentController: 3,
+    axes: [{ parameter: 'form.loops.0.proportionalGain', label: 'proportional gain', values: [1, 2] }],
+    points: [
+      { coordinates: [1], value: 2.5, interval: [2, 3], status: 'converged', occupancyShift: 1.2, support: null, route: 'closedForm' },
+      { coordinates: [2], value: null, interval: null, status: 'diverged', occupancyShift: null, support: 'unknown', route: 'closedForm' },
+    ],
+    best: { index: 0, coordinates: [1], value: 2.5 },
+  };
+  const parsedEvaluation = evaluationFromJson(evaluation)!;
+
+  it('writes the maps with the evaluation and reads them back unchanged', () => {
+    const saved = resultsOf({ evaluation: parsedEvaluation, assessment: null, retuneMaps: [map as never] }, 'key', new Date('2026-11-02T00:00:00Z'));
+    const text = JSON.parse(JSON.stringify(saved));
+    expect(retuneMapsFromJson(text.retuneMaps)).toEqual([map]);
+  });
+
+  it('opens results of an older file without maps, and refuses a map missing a field', () => {
+    const saved = resultsOf({ evaluation: parsedEvaluation, assessment: null, retuneMaps: null }, 'key', new Date());
+    expect(saved.retuneMaps).toBeUndefined();
+    expect(retuneMapsFromJson(undefined)).toBeNull();
+    expect(retuneMapsFromJson([{ ...map, points: map.points.slice(1) }])).toBeNull(); // two axis values, one point
+    expect(retuneMapsFromJson([{ ...map, axes: undefined } as never])).toBeNull();
+  });
+
+  it('restores a kept map as done for the current run key, and out of date for another', () => {
+    const doc = { ...newProjectDocument(), retuneMaps: undefined };
+    const key = runKey(doc, 'data-a');
+    const results = resultsOf({ evaluation: parsedEvaluation, assessment: null, retuneMaps: [map as never] }, key, new Date());
+    for (const [fingerprint, current] of [['data-a', true], ['data-b', false]] as const) {
+      const session = createSessionStore();
+      expect(restoreResults({ ...doc, results }, fingerprint, session)).toBe(true);
+      const state = session.get();
+      expect(state.retuneMaps.status).toBe('done');
+      expect(state.retuneMaps.status === 'done' && state.retuneMaps.runKey).toBe(current ? key : `out of date: ${results.fingerprint}`);
+      expect(state.evaluation?.restored?.current).toBe(current);
+    }
   });
 });

@@ -41,5 +41,8 @@ describe('keyboard shortcuts', () => {
     expect(keyCommand(press('Z', { ctrlKey: true, shiftKey: true }), 'browser')).toEqual({ kind: 'menu', command: 'redo' });
     expect(keyCommand(press('S', { ctrlKey: true, shiftKey: true }), 'browser')).toEqual({ kind: 'menu', command: 'save-project-as' });
     expect(keyCommand(press('F5'), 'browser')).toEqual({ kind: 'menu', command: 'run-evaluation' });
+    expect(keyCommand(press('p', { ctrlKey: true }), 'browser')).toEqual({ kind: 'menu', command: 'print-report' });
+    expect(keyCommand(press('P', { ctrlKey: true, shiftKey: true }), 'browser')).toEqual({ kind: 'menu', command: 'save-report-pdf' });
+    expect(keyCommand(press('p', { ctrlKey: true }), 'electron')).toBeNull(); // the menu's accelerator there
   });
 });

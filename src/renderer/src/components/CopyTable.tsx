@@ -11,7 +11,7 @@ export function CopyTable({ tableTestId, fileBase }: { tableTestId: string; file
   const { api } = useWorkspace();
   const [status, setStatus] = useState('');
   const cells = (): string[][] => {
-    const table = document.querySelector<HTMLTableElement>(`[data-testid="${tableTestId}"]`);
+    const table = document.querySelector<HTMLTableElement>(`[data-testid="${CSS.escape(tableTestId)}"]`);
     return table ? tableCells(table) : [];
   };
   const copy = (): void => {

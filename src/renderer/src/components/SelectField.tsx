@@ -10,12 +10,13 @@ export interface SelectFieldProps<V extends string> {
   message?: string | null;
   hideLabel?: boolean;
   testId?: string;
+  className?: string;
 }
 
 export function SelectField<V extends string>(props: SelectFieldProps<V>) {
   const id = useId();
   return (
-    <div className="field">
+    <div className={props.className ? `field ${props.className}` : 'field'}>
       <label htmlFor={id} className={props.hideLabel ? 'sr-only' : undefined}>{props.label}</label>
       <select
         id={id} value={props.value} data-testid={props.testId} aria-invalid={Boolean(props.message)} aria-describedby={`${id}-help`}

@@ -1,6 +1,6 @@
 /**
  * The last run's results kept in the project (schema `results`), so a reopened project shows its
- * findings without a rerun. Written after each run and each assessment (an amendment, not an
+ * findings without a rerun. Written after each run, each assessment and each retune map (an amendment, not an
  * undoable edit, like the data fingerprint); read back when the data has been imported again, with
  * the fingerprint of data + settings compared: results of other data or settings come back marked
  * out of date, never as current. The fitted models are not kept, so surfaces and slices at new
@@ -10,15 +10,25 @@ import type { Assessment } from '../../../pipeline/assessment';
 import { assessmentToJson } from '../../../pipeline/assessmentJson';
 import type { Evaluation, PolicyEstimate } from '../../../pipeline/estimates';
 import { evaluationToJson } from '../../../pipeline/evaluationJson';
+import type { RetuneMapResult } from '../../../pipeline/retuneMaps';
 import type { ProjectDocument, SavedResults } from '../../../project/schema';
 import type { DocumentStore } from '../document/documentStore';
 import { runFingerprint, runKey } from '../../../shared/runKey';
 import type { SessionStore } from './sessionStore';
 
-export function resultsOf(evaluation: Evaluation, assessment: Assessment | null, key: string, now: Date): SavedResults {
+/** What one run produced: the evaluation, and its assessment and retune maps once computed. */
+export interface RunResults {
+  readonly evaluation: Evaluation;
+  readonly assessment: Assessment | null;
+  readonly retuneMaps: readonly RetuneMapResult[] | null;
+}
+
+export function resultsOf({ evaluation, assessment, retuneMaps }: RunResults, key: string, now: Date): SavedResults {
   return {
     format: 1, fingerprint: runFingerprint(key), savedAt: now.toISOString(),
     evaluation: evaluationToJson(evaluation), ...(assessment ? { assessment: assessmentToJson(assessment) } : {}),
+    // Plain data already (numbers, strings, nulls): kept as the CLI's --json writes it.
+    ...(retuneMaps ? { retuneMaps: retuneMaps.map((m) => JSON.parse(JSON.stringify(m)) as Record<string, unknown>) } : {}),
   };
 }
 
@@ -66,6 +76,28 @@ function hasCurrentShape(raw: unknown): boolean {
   return !!c && typeof c.confirmation === 'object' && c.confirmation !== null && 'reportedRange' in c && !!d && 'occupancyShift' in d;
 }
 
+const isNumberList = (v: unknown): boolean => Array.isArray(v) && v.every(isNumber);
+
+/** One kept map, checked for the fields the Findings panel and the report read; null when it lacks one. */
+function retuneMapFromJson(raw: Record<string, unknown>): RetuneMapResult | null {
+  const axes = raw.axes, points = raw.points, best = raw.best as Record<string, unknown> | null | undefined;
+  if (typeof raw.candidate !== 'string' || typeof raw.features !== 'string' || !Array.isArray(raw.notes) || !Array.isArray(axes) || !Array.isArray(points)) return null;
+  if (!axes.every((a) => typeof a?.parameter === 'string' && typeof a?.label === 'string' && isNumberList(a?.values))) return null;
+  const cells = axes.reduce((n: number, a: { values: number[] }) => n * a.values.length, 1);
+  const pointOk = (p: Record<string, unknown>) => !!p && isNumberList(p.coordinates) && (p.value === null || isNumber(p.value)) && typeof p.status === 'string' && 'support' in p;
+  if (axes.length < 1 || points.length !== cells || !points.every(pointOk)) return null;
+  if (best !== null && !(best && isNumber(best.index) && isNumber(best.value) && isNumberList(best.coordinates))) return null;
+  if (raw.presentController !== null && !isNumber(raw.presentController)) return null;
+  return raw as unknown as RetuneMapResult;
+}
+
+/** The kept retune maps, or null when there are none or one is not in a shape this version can show. */
+export function retuneMapsFromJson(json: readonly Record<string, unknown>[] | undefined): RetuneMapResult[] | null {
+  if (!json || json.length === 0) return null;
+  const maps = json.map(retuneMapFromJson);
+  return maps.every((m) => m !== null) ? (maps as RetuneMapResult[]) : null;
+}
+
 /** After an import of the current data: show the kept results, current or marked out of date. */
 export function restoreResults(doc: ProjectDocument, dataFingerprint: string, session: SessionStore): boolean {
   const saved = doc.results;
@@ -78,11 +110,12 @@ export function restoreResults(doc: ProjectDocument, dataFingerprint: string, se
   const key = runKey(doc, dataFingerprint);
   const current = runFingerprint(key) === saved.fingerprint;
   const recordKey = current ? key : `out of date: ${saved.fingerprint}`;
-  const assessment = assessmentFromJson(saved.assessment);
+  const assessment = assessmentFromJson(saved.assessment), maps = retuneMapsFromJson(saved.retuneMaps);
   session.set((s) => ({
     ...s,
     evaluation: { evaluation, runKey: recordKey, restored: { savedAt: saved.savedAt, current } },
     assessment: assessment ? { status: 'done', runKey: recordKey, assessment } : s.assessment,
+    retuneMaps: maps ? { status: 'done', runKey: recordKey, maps } : s.retuneMaps,
   }));
   return true;
 }
@@ -92,16 +125,16 @@ export function restoreResults(doc: ProjectDocument, dataFingerprint: string, se
  * results back once the data of an opened project has been imported. Returns the stop function.
  */
 export function startResultsKeeping(documents: DocumentStore, session: SessionStore, now: () => Date = () => new Date()): () => void {
-  let keptEvaluation: Evaluation | null = null, keptAssessment: Assessment | null = null, restoredFor = '';
+  let kept: RunResults | null = null, restoredFor = '';
   const check = (): void => {
     const s = session.get(), doc = documents.get().history.present;
     const record = s.evaluation;
     if (record && !record.restored) {
       const assessment = s.assessment.status === 'done' && s.assessment.runKey === record.runKey ? s.assessment.assessment : null;
-      if (record.evaluation !== keptEvaluation || assessment !== keptAssessment) {
-        keptEvaluation = record.evaluation;
-        keptAssessment = assessment;
-        keepResults(documents, resultsOf(record.evaluation, assessment, record.runKey, now()));
+      const retuneMaps = s.retuneMaps.status === 'done' && s.retuneMaps.runKey === record.runKey ? s.retuneMaps.maps : null;
+      if (record.evaluation !== kept?.evaluation || assessment !== kept.assessment || retuneMaps !== kept.retuneMaps) {
+        kept = { evaluation: record.evaluation, assessment, retuneMaps };
+        keepResults(documents, resultsOf(kept, record.runKey, now()));
       }
       return;
     }

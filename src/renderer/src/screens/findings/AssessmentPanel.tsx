@@ -38,7 +38,7 @@ export function AssessmentPanel({ record, state, stale, imported, theme }: Props
           {done.sensitivity && <SensitivityPanel sensitivity={done.sensitivity} evaluation={record.evaluation} theme={theme} />}
         </>
       )}
-      {imported && !stale && <ReportButton evaluation={record.evaluation} state={current} imported={imported} />}
+      {imported && !stale && <ReportButton state={current} />}
     </>
   );
 }

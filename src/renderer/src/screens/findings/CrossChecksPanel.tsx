@@ -5,6 +5,7 @@
  * give (confirmed, contradicted, unconfirmed); and the candidate in other function classes with the
  * range to report when they disagree.
  */
+import { CopyTable } from '../../components/CopyTable';
 import type { Assessment } from '../../../../pipeline/assessment';
 import { formatNumber } from '../../format/numberFormat';
 import { intervalDetail, intervalText, levelText, noteWithoutVerdict, VERDICT } from './assessmentWords';
@@ -45,6 +46,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
             ))}
           </tbody>
         </table>
+        <CopyTable tableTestId={`cross-checks-${c.name}`} fileBase={`cross-checks-${c.name.replace(/[^\w-]+/g, '-').toLowerCase()}`} />
         </div>
       ))}
       <details data-testid="cross-check-assumptions">

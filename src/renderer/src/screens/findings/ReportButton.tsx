@@ -1,52 +1,34 @@
 /**
- * "Write report…": the same self-contained HTML document the CLI's `report` command writes, from
- * this run's evaluation and assessment (or the reason the assessment is missing), saved where the
- * user says through the main process.
+ * The report panel: "Write report…" (the same self-contained HTML document the CLI's `report`
+ * command writes), "Save as PDF…" and "Print…" (the main process prints the same document; the
+ * menu's Print Report… and Ctrl+P do the same), from this run's evaluation, assessment and retune
+ * maps (src/renderer/src/files/reportCommands.ts).
  */
 import { useState } from 'react';
-import { failure, success, type Result } from '../../../../core/result';
-import type { Assessment } from '../../../../pipeline/assessment';
-import type { Evaluation } from '../../../../pipeline/estimates';
-import { reportInputFrom } from '../../../../pipeline/report/reportAssembly';
-import { renderReport } from '../../../../pipeline/report/reportDocument';
-import type { DataImport } from '../../../../shared/workerMessages';
-import { useDocument, useDocumentState } from '../../hooks';
+import { reportCommand, type ReportAction, type ReportOutcome } from '../../files/reportCommands';
 import type { AssessmentState } from '../../session/sessionStore';
 import { useWorkspace } from '../../WorkspaceContext';
 
-type Status = { tone: 'info' | 'error'; text: string } | null;
+const WORKING: Record<ReportAction, string> = { html: 'Writing the report…', pdf: 'Writing the report as PDF…', print: 'Preparing the report for printing…' };
 
-const pathOf = (s: { projectPath: string | null }) => s.projectPath;
-
-function assessmentResult(state: AssessmentState | null): Result<Assessment> {
-  if (state?.status === 'done') return success(state.assessment);
-  if (state?.status === 'failed') return failure(...state.problems);
-  return failure({ where: 'assessment', message: state?.status === 'cancelled' ? 'the assessment was cancelled' : 'the assessment has not been computed' });
-}
-
-export function ReportButton({ evaluation, state, imported }: { evaluation: Evaluation; state: AssessmentState | null; imported: DataImport }) {
-  const { api } = useWorkspace();
-  const doc = useDocument();
-  const projectPath = useDocumentState(pathOf);
-  const [status, setStatus] = useState<Status>(null);
+export function ReportButton({ state }: { state: AssessmentState | null }) {
+  const { api, documents, session } = useWorkspace();
+  const [status, setStatus] = useState<ReportOutcome>(null);
   const running = state?.status === 'running';
-  const write = async (): Promise<void> => {
-    setStatus({ tone: 'info', text: 'Writing the report…' });
-    try {
-      const projectFile = projectPath?.split(/[\\/]/).pop() ?? `${doc.name}.spcritic`;
-      const input = reportInputFrom({ project: doc, projectFile, evaluation, assessment: assessmentResult(state), data: imported, generatedAt: new Date() });
-      const written = await api.exportFile('html', `${doc.name}-report.html`, new TextEncoder().encode(renderReport(input)));
-      setStatus(written ? { tone: 'info', text: `Saved ${written.path}` } : null);
-    } catch (e) {
-      setStatus({ tone: 'error', text: `The report could not be written: ${(e as Error).message}` });
-    }
+  const act = async (action: ReportAction): Promise<void> => {
+    setStatus({ tone: 'info', text: WORKING[action] });
+    setStatus(await reportCommand(action, api, documents, session));
   };
   return (
     <section className="panel" aria-labelledby="report-heading">
       <h3 id="report-heading">Report</h3>
-      <p className="small muted">One self-contained HTML file — the job, the data, the settings, the comparison, the figures, the diagnostics, the cross-checks and the cautions — to attach to a design review.</p>
-      <button className="primary" onClick={() => void write()} disabled={running} data-testid="write-report">Write report…</button>
-      {running && <span className="small muted"> (waits for the intervals and checks)</span>}
+      <p className="small muted">One self-contained document — the job, the data, the settings, the comparison, the figures, the diagnostics, the cross-checks, the retune maps and the cautions — to attach to a design review, as HTML or PDF (A4), or printed.</p>
+      <div className="row">
+        <button className="primary" onClick={() => void act('html')} disabled={running} data-testid="write-report">Write report…</button>
+        <button onClick={() => void act('pdf')} disabled={running} data-testid="report-pdf">Save as PDF…</button>
+        <button onClick={() => void act('print')} disabled={running} data-testid="print-report" title="Print the report (Ctrl+P)">Print…</button>
+      </div>
+      {running && <p className="small muted">The report waits for the intervals and checks.</p>}
       {status && <p className={status.tone === 'error' ? 'error-text' : 'small'} role="status" data-testid="report-status">{status.text}</p>}
     </section>
   );

@@ -36,10 +36,22 @@ export function RetuneMapPanel({ record, state, stale, theme }: Props) {
         J over a grid of retunes of one candidate, each point a full estimate with its interval, shaded where the logs no longer support it.
         A map takes seconds to a minute.
       </p>
+      {current?.status === 'done' && record.restored && <KeptMapNote stale={stale} />}
       {current?.status === 'done'
         ? <MapResults maps={current.maps} record={record} theme={theme} />
         : <MapStatus record={record} state={current} stale={stale} />}
     </section>
+  );
+}
+
+/** Maps read back from the project file: current when the data and settings are the ones they were computed from. */
+function KeptMapNote({ stale }: { stale: boolean }) {
+  return (
+    <p className={`problems ${stale ? 'warning' : 'info'}`} role="status" data-testid="kept-retune-map">
+      {stale
+        ? 'Out of date: this map was kept with the project but computed from other data or settings than the project has now (a changed candidate, map or data file). It is shown for reference only; run the evaluation again and compute the map for current values.'
+        : 'Map kept with the project from the last run; the data and settings are the same, so it needs no recomputing.'}
+    </p>
   );
 }
 

@@ -6,12 +6,11 @@
 import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
 import type { RetuneMapProgress } from '../../../../shared/workerMessages';
 import { formatDuration, formatNumber } from '../../format/numberFormat';
+import { subscriptMarkup } from '../../../../figures/parts/richText';
 import { intervalText } from './assessmentWords';
 
-/** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)": a one-letter symbol's subscript as markup. */
-export function richAxisLabel(label: string): string {
-  return label.replace(/\b([A-Za-z])_([A-Za-z0-9]+)\b/g, '$1_{$2}');
-}
+/** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)" (the figures' rich-text markup). */
+export const richAxisLabel = subscriptMarkup;
 
 /** "proportional gain K_c (%/°C) = 90, integral time T_i (s) = 6,000" for point p. */
 export function pointText(map: RetuneMapResult, p: number): string {
