@@ -47,7 +47,7 @@ export function dataSection(input: ReportInput): Html {
   const unit = (name: string) => [...p.columns.states, ...p.columns.actions].find((c) => c.column === name)?.unit ?? '';
   return html`<section id="data"><h2>Data</h2>
     <p>${s.rowCount.toLocaleString('en-US')} rows read, ${s.usedRowCount.toLocaleString('en-US')} used (${formatPercent(s.excludedFraction)} excluded);
-      ${s.transitionCount.toLocaleString('en-US')} transitions in ${s.episodeCount.toLocaleString('en-US')} episodes${s.samplingPeriodSeconds ? `, sampled every ${formatNumber(s.samplingPeriodSeconds, 4)} s` : ''}.
+      ${s.transitionCount.toLocaleString('en-US')} transitions in ${s.episodeCount.toLocaleString('en-US')} runs${s.samplingPeriodSeconds ? `, sampled every ${formatNumber(s.samplingPeriodSeconds, 4)} s` : ''}.
       The reward is ${p.columns.reward.kind === 'column' ? `column “${p.columns.reward.column}”` : `the expression ${p.columns.reward.expression}`}, read as a ${p.columns.reward.sense}.</p>
     <table><thead><tr><th>Column</th><th>Used as</th><th>Unit</th><th class="num">Min</th><th class="num">Mean</th><th class="num">Max</th><th class="num">Std</th></tr></thead><tbody>
     ${s.columns.map((c) => html`<tr><td>${c.name}</td><td>${c.roles.join(', ')}</td><td>${unit(c.name)}</td><td class="num">${formatNumber(c.min)}</td><td class="num">${formatNumber(c.mean)}</td><td class="num">${formatNumber(c.max)}</td><td class="num">${formatNumber(c.std)}</td></tr>`)}

@@ -95,7 +95,7 @@ export function ExportPanel({ kind, evaluation, defaultTitle, policy, fileBase, 
         <TextField label="Title" value={title ?? defaultTitle} className="wide" onChange={setTitle} />
       </div>
       <p className={check.ok ? 'small' : 'error-text'} data-testid={`export-size-text-${kind}`}>{check.text}</p>
-      <p className="small muted">Caption: {caption}</p>
+      <p className="small muted" style={{ whiteSpace: 'pre-line' }}>Caption: {caption}</p>
       <div className="row">
         <button data-testid={`export-png-${kind}`} disabled={!check.ok} onClick={() => void save('PNG', async () => api.exportFile('png', `${fileBase}.png`, await exportInWorker(spec(), options, 'png')))}>Export PNG…</button>
         <button data-testid={`export-svg-${kind}`} disabled={!check.ok} onClick={() => void save('SVG', async () => api.exportFile('svg', `${fileBase}.svg`, await exportInWorker(spec(), options, 'svg')))}>Export SVG…</button>

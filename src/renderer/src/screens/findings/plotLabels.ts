@@ -32,7 +32,7 @@ export function policyValueLabel(sense: 'reward' | 'cost', unit = ''): string {
 /** The settings behind the numbers, for captions: "γ = 0.95; linear …; 10 nodes; seed 1; 19,960 transitions". */
 export function settingsLine(evaluation: Evaluation): string {
   const s = evaluation.settings;
-  return `γ = ${s.discount}; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}; ${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} episodes`;
+  return `γ = ${s.discount}; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}; ${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} runs`;
 }
 
 /** "2024-05-01 14:03 UTC" from an ISO time stamp. */
