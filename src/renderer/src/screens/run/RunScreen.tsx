@@ -71,8 +71,8 @@ function Progress({ reports, startsMs }: { reports: Parameters<typeof progressVi
         <dl className="facts" aria-live="polite">
           <dt>Candidate</dt><dd>{view.candidate} ({view.candidateNumber} of {view.candidateCount})</dd>
           <dt>Iteration</dt><dd data-testid="progress-iteration">{view.iteration ?? (view.dataPass === null ? 'starting' : `reading the data (${Math.floor(100 * view.dataPass)} %)`)}</dd>
-          <dt>Bellman residual</dt><dd>{view.bellmanResidual === null ? '—' : formatNumber(view.bellmanResidual)}</dd>
-          <dt>Weight change</dt><dd>{view.weightChange === null ? '—' : formatNumber(view.weightChange)}</dd>
+          {view.bellmanResidual !== null && <><dt title="How far Q is from its own one-step target r + γV(s′) on the logged steps (the Bellman residual)">One-step mismatch</dt><dd>{formatNumber(view.bellmanResidual)}</dd></>}
+          {view.weightChange !== null && <><dt title="Relative change of the fitted weights in the last iteration">Weight change</dt><dd>{formatNumber(view.weightChange)}</dd></>}
           <dt>Elapsed</dt><dd>{formatDuration(view.elapsedMs)}</dd>
           <dt>Time remaining</dt><dd>{view.remainingMs === null ? 'estimating…' : `about ${formatDuration(view.remainingMs)}`}</dd>
         </dl>
