@@ -12,8 +12,8 @@
  *     must be within 3 % and at most half the linear estimate's error, and the two must be judged
  *     to disagree.
  *
- * Tolerances: measured over seeds 1–3 during development (`npm run bench -- battery --seeds 3`),
- * the network's error was within ±1.6 % on the oven and ±0.9 % on the greenhouse; 3 % is about
+ * Tolerances: measured over seeds 1–3 with the current defaults (`npm run bench -- battery --seeds 3`),
+ * the network's error was within ±1.7 % on the oven and ±1.6 % on the greenhouse; 3 % is about
  * twice the largest seen, so it catches a broken estimator (one that ignores the hidden features,
  * stops early, or loses the quadratic start) rather than seed noise.
  */
