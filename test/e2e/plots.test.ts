@@ -17,7 +17,7 @@ import { chromium, type BrowserContext, type Page } from 'playwright-core';
 import { build } from 'vite';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
-import { layoutFaults } from './harness/svgLayout';
+import { layoutFaults, svgLayoutIn } from './harness/svgLayout';
 import { CAUTION_SHORT } from '../../src/pipeline/cautions';
 import { CONTENT_SECURITY_POLICY } from '../../src/main/rendererProtocol';
 import { pngDpi, pngSize } from '../../src/figures/writers/pngChunks';
@@ -213,7 +213,7 @@ describe('no text collides or is clipped in an export, at every export size (e2e
       // A transparent background keeps the plot's theme (a white one is always light): both are laid out.
       const options = { widthPx: size.widthPx, heightPx: size.heightPx, dpi: size.dpi, background: theme === 'light' ? 'white' as const : 'transparent' as const };
       const svg = (await page.evaluate(([k, t, o]) => window.plotsPage.exportSvg(k, t, o), [kind, theme, options] as const))!;
-      const laid = await page.evaluate(([s, w, h]) => window.plotsPage.svgTextBoxes(s, w, h), [svg, size.widthPx, size.heightPx] as const);
+      const laid = await svgLayoutIn(page, svg, size.widthPx, size.heightPx);
       expect(laid.texts.length).toBeGreaterThan(5);
       const all = laid.texts.map((t) => t.text).join(' ');
       for (const words of MUST_SEE[kind]) expect(all, `${kind} ${theme}`).toMatch(words);

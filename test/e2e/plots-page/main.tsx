@@ -10,7 +10,7 @@ import { ActionSlicePlot, PlotFigure, type Theme } from '../../../src/renderer/s
 import { plotPalette } from '../../../src/figures/parts/plotTheme';
 import { clippedSlice, SLICE_POLICY } from '../../figures/syntheticPlotData';
 import { PLOT_KINDS, plotSpec, type PlotKind } from './plotSpecs';
-import { allDrawn, canvasStats, colourBarProbe, decodePng, parseSvg, renderSvg, svgTextBoxes, tooltipActive } from './pageProbes';
+import { allDrawn, canvasStats, colourBarProbe, decodePng, parseSvg, renderSvg, tooltipActive } from './pageProbes';
 
 function Plot({ kind, theme }: { kind: PlotKind; theme: Theme }) {
   const spec = useMemo(() => plotSpec(kind, theme), [kind, theme]);
@@ -48,7 +48,7 @@ const api = {
   exportSvg(kind: PlotKind, theme: Theme, options: Omit<ExportOptions, 'caption' | 'caution'>): string | null {
     return exportPlotSvg(plotSpec(kind, theme), { ...options, caption, caution: CAUTION });
   },
-  decodePng, parseSvg, renderSvg, canvasStats, colourBarProbe, tooltipActive, svgTextBoxes,
+  decodePng, parseSvg, renderSvg, canvasStats, colourBarProbe, tooltipActive,
 };
 
 declare global {

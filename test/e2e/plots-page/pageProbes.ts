@@ -114,26 +114,3 @@ export async function renderSvg(svg: string, width: number, height: number) {
   }
 }
 
-/**
- * The SVG placed in the page at its viewBox size, and the box of every text element as Chromium
- * lays it out (transforms such as rotated axis titles included), relative to the SVG's top left.
- */
-export function svgTextBoxes(svg: string, width: number, height: number) {
-  const host = document.createElement('div');
-  host.style.cssText = `position:absolute;left:0;top:0;width:${width}px;height:${height}px;`;
-  host.innerHTML = svg.replace(/^<\?xml[^>]*>\s*/, '');
-  document.body.appendChild(host);
-  try {
-    const root = host.querySelector('svg')!;
-    root.setAttribute('width', `${width}px`);
-    root.setAttribute('height', `${height}px`);
-    const origin = root.getBoundingClientRect();
-    const texts = Array.from(root.querySelectorAll('text'), (t) => {
-      const r = t.getBoundingClientRect();
-      return { text: t.textContent ?? '', left: r.left - origin.left, top: r.top - origin.top, right: r.right - origin.left, bottom: r.bottom - origin.top };
-    });
-    return { width: origin.width, height: origin.height, texts: texts.filter((t) => t.text.trim() !== '' && t.right > t.left) };
-  } finally {
-    host.remove();
-  }
-}
