@@ -70,6 +70,9 @@ export interface BatteryPlant {
   truth(candidate: string, startSet: string): BatteryTruth;
 }
 
+/** What every plant definition states about itself (the kind-specific parts are added by each maker). */
+export type PlantDescription = Pick<BatteryPlant, 'name' | 'description' | 'stateNames' | 'actionNames' | 'discount' | 'stepsPerEpisode' | 'behaviour' | 'candidates'>;
+
 export function candidateNamed(plant: BatteryPlant, name: string): BatteryCandidate {
   const found = plant.candidates.find((c) => c.name === name);
   if (!found) throw new Error(`${plant.name}: no candidate "${name}" (have ${plant.candidates.map((c) => c.name).join(', ')})`);

@@ -17,21 +17,14 @@ import { cholesky, identity, multiply, solve, transpose } from '../../src/core/l
 import { solveDiscreteLyapunov } from '../../src/core/linalg/lyapunov';
 import { createGaussianPolicy, type GaussianPolicySpec } from '../../src/core/policy';
 import type { RandomSource } from '../../src/core/random';
-import { candidateNamed, startSetNamed, type BatteryCandidate, type BatteryPlant, type BatteryTruth, type StartSet } from './batteryPlant';
+import { candidateNamed, startSetNamed, type BatteryPlant, type PlantDescription, type BatteryTruth, type StartSet } from './batteryPlant';
 import { episodesFor, logEpisodes, type PlantDynamics, type StartSampler } from './episodeLog';
 import { runStartSampler, standardStartSets } from './startSets';
 
-export interface LinearQuadraticDefinition {
-  readonly name: string;
-  readonly description: string;
-  readonly stateNames: readonly string[];
-  readonly actionNames: readonly string[];
-  readonly discount: number;
-  readonly stepsPerEpisode: number;
+export interface LinearQuadraticDefinition extends PlantDescription {
   readonly plant: LinearQuadraticPlant; // deviation coordinates
   readonly operatingPoint: OperatingPoint;
   readonly behaviour: GaussianPolicySpec; // absolute coordinates, unbounded
-  readonly candidates: readonly BatteryCandidate[];
 }
 
 /** The stationary law of the logged state under the behaviour policy, absolute coordinates. */

@@ -3,26 +3,18 @@
  * the truth from seeded rollouts (rolloutTruth.ts, with its standard error) and episodes that
  * start from a burn-in under the logging controller (the logged steady state).
  */
-import { createGaussianPolicy, type GaussianPolicySpec } from '../../src/core/policy';
-import { candidateNamed, startSetNamed, type BatteryCandidate, type BatteryPlant, type BatteryTruth, type StartSet } from './batteryPlant';
+import { createGaussianPolicy } from '../../src/core/policy';
+import { candidateNamed, startSetNamed, type BatteryPlant, type BatteryTruth, type PlantDescription, type StartSet } from './batteryPlant';
 import { burnInStart, episodesFor, logEpisodes, type PlantDynamics } from './episodeLog';
 import { rolloutTruth } from './rolloutTruth';
 import { runStartSampler, standardStartSets } from './startSets';
 
-export interface NonlinearDefinition {
-  readonly name: string;
-  readonly description: string;
-  readonly stateNames: readonly string[];
-  readonly actionNames: readonly string[];
-  readonly discount: number;
-  readonly stepsPerEpisode: number;
+export interface NonlinearDefinition extends PlantDescription {
   readonly dynamics: PlantDynamics;
   /** The state the plant is held at; burn-ins start here and the wide start set is scaled around it. */
   readonly operatingState: readonly number[];
   /** Steps of the behaviour policy before an episode's first logged row. */
   readonly burnIn: number;
-  readonly behaviour: GaussianPolicySpec;
-  readonly candidates: readonly BatteryCandidate[];
   /** Rollouts per start state for the truth (their count sets its standard error). */
   readonly rolloutsPerStart: number;
 }
