@@ -78,7 +78,16 @@ export function sentence(text: string): string {
  */
 export function estimateText(value: number, error: number | null): { value: string; error: string } {
   if (error === null || !Number.isFinite(error) || error <= 0 || !Number.isFinite(value)) return { value: formatNumber(value, 4), error: error === null ? '—' : formatNumber(error, 2) };
-  const decimals = Math.min(10, Math.max(0, 1 - Math.floor(Math.log10(error))));
-  const fixed = (x: number) => x.toFixed(decimals).replace(/^-/, '−');
+  const fixed = fixedAtPrecisionOf(error, 2);
   return { value: fixed(value), error: fixed(error) };
+}
+
+/**
+ * A formatter writing numbers to the decimal place at which `scale` (> 0) has `significant`
+ * significant digits (at most 10 decimals, none below the units), with a true minus sign: one
+ * precision for numbers read together, such as a value and its error or an interval's two ends.
+ */
+export function fixedAtPrecisionOf(scale: number, significant: number): (x: number) => string {
+  const decimals = Math.min(10, Math.max(0, significant - 1 - Math.floor(Math.log10(scale))));
+  return (x) => x.toFixed(decimals).replace(/^-/, '−');
 }

@@ -6,7 +6,7 @@
 import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
 import type { AssessRunProgress } from '../../../../shared/workerMessages';
 import { OCCUPANCY_SHIFT_LIMITS } from '../../../../core/diagnostics/severity';
-import { formatNumber } from '../../format/numberFormat';
+import { fixedAtPrecisionOf, formatNumber } from '../../format/numberFormat';
 
 /**
  * "[6.58, 10.33]", or a dash without replicates: both ends to the same decimal place, the one that
@@ -20,8 +20,7 @@ export function intervalText(interval: [number, number] | null, significant = 4)
   if (!(width > 0) || !Number.isFinite(width) || magnitude >= 1e6 || magnitude < 1e-4) {
     return `[${formatNumber(lo, significant)}, ${formatNumber(hi, significant)}]`;
   }
-  const decimals = Math.min(10, Math.max(0, 2 - Math.floor(Math.log10(width))));
-  const fixed = (x: number) => x.toFixed(decimals).replace(/^-/, '−');
+  const fixed = fixedAtPrecisionOf(width, 3);
   return `[${fixed(lo)}, ${fixed(hi)}]`;
 }
 
