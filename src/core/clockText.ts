@@ -17,7 +17,19 @@ export function isCalendarClock(firstSeconds: number): boolean {
 }
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+const MONTHS_IN_FULL = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
 const two = (n: number): string => String(n).padStart(2, '0');
+
+/**
+ * An ISO 8601 time as people read it, to the minute in UTC: "2 Dec 2026, 10:41 UTC", or with the
+ * month in full for a document ("2 December 2026, 10:41 UTC"); the text itself when it is not a time.
+ */
+export function isoTimeText(iso: string, month: 'short' | 'full' = 'short'): string {
+  const d = new Date(iso);
+  if (Number.isNaN(d.getTime())) return iso;
+  const name = (month === 'full' ? MONTHS_IN_FULL : MONTHS)[d.getUTCMonth()];
+  return `${d.getUTCDate()} ${name} ${d.getUTCFullYear()}, ${two(d.getUTCHours())}:${two(d.getUTCMinutes())} UTC`;
+}
 
 /** "1 Mar 2024 06:00:10" (seconds shown only when not zero; fractions of a second rounded). */
 export function dateText(secondsSince1970: number): string {

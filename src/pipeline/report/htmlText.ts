@@ -1,4 +1,5 @@
 /** Text into HTML safely, and numbers as a reviewer reads them (the report's one number style). */
+import { isoTimeText } from '../../core/clockText';
 
 const ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
 
@@ -44,14 +45,9 @@ function trueMinus(text: string): string {
   return text.replace(/-/g, '\u2212');
 }
 
-const MONTHS = ['January', 'February', 'March', 'April', 'May', 'June', 'July', 'August', 'September', 'October', 'November', 'December'];
-
 /** "2 December 2026, 14:41 UTC" from an ISO 8601 time; the text itself when it is not one. */
 export function formatWrittenAt(iso: string): string {
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return iso;
-  const two = (n: number) => String(n).padStart(2, '0');
-  return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}, ${two(d.getUTCHours())}:${two(d.getUTCMinutes())} UTC`;
+  return isoTimeText(iso, 'full');
 }
 
 export function formatInterval(iv: readonly [number, number] | null, digits = 4): string {

@@ -2,6 +2,8 @@
  * Numbers as people read them on screen: a few significant digits, no trailing zeros, exponent
  * notation only for very large or very small magnitudes, and a true minus sign.
  */
+import { isoTimeText } from '../../../core/clockText';
+
 export function formatNumber(x: number, significant = 4): string {
   if (Number.isNaN(x)) return '—';
   if (!Number.isFinite(x)) return x > 0 ? '∞' : '−∞';
@@ -49,14 +51,9 @@ export function formatDuration(ms: number): string {
   return `${Math.floor(minutes / 60)} h ${String(minutes % 60).padStart(2, '0')} min`;
 }
 
-const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
-
 /** An ISO 8601 time as people read it: "2 Dec 2026, 10:41 UTC" (no seconds, no milliseconds). */
 export function readableTime(iso: string): string {
-  const d = new Date(iso);
-  if (Number.isNaN(d.getTime())) return iso;
-  const two = (n: number) => String(n).padStart(2, '0');
-  return `${d.getUTCDate()} ${MONTHS[d.getUTCMonth()]} ${d.getUTCFullYear()}, ${two(d.getUTCHours())}:${two(d.getUTCMinutes())} UTC`;
+  return isoTimeText(iso);
 }
 
 /** "1 run", "40 runs", "1,200 rows": a count with its noun in the right number. */
