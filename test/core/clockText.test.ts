@@ -1,6 +1,6 @@
 /** Times and durations as written for a reader; the calendar values are checked against the JavaScript Date of the same instant (ECMA-262 time values, UTC). */
 import { describe, expect, it } from 'vitest';
-import { clockText, dateEntryText, dateText, durationText, isCalendarClock } from '../../src/core/clockText';
+import { clockText, dateEntryText, dateText, durationText, isCalendarClock, isoTimeText } from '../../src/core/clockText';
 
 describe('readable times', () => {
   it('durations in the two largest units that matter', () => {
@@ -20,5 +20,15 @@ describe('readable times', () => {
     expect(isCalendarClock(t)).toBe(true);
     expect(isCalendarClock(3600)).toBe(false);
     expect(clockText(3600, false)).toBe('1 h');
+  });
+});
+
+describe('an ISO time for a reader', () => {
+  it('writes the UTC minute with a short or full month name, and leaves a non-time as it is', () => {
+    // The instant is built with JavaScript's own Date.UTC (the reference); seconds and milliseconds are dropped.
+    const iso = new Date(Date.UTC(2026, 11, 2, 14, 41, 37, 512)).toISOString();
+    expect(isoTimeText(iso)).toBe('2 Dec 2026, 14:41 UTC');
+    expect(isoTimeText(iso, 'full')).toBe('2 December 2026, 14:41 UTC');
+    expect(isoTimeText('not a time')).toBe('not a time');
   });
 });
