@@ -1,10 +1,9 @@
 /**
  * The assessment of the last run on the findings screen: its progress and Cancel while it runs
  * (it starts by itself after every run), then the comparison, the cross-checks, the coverage
- * diagnostics, the sensitivity sweep and the report. It runs in the worker, so the screen stays live.
+ * diagnostics and the sensitivity sweep (the report panel follows at the end of the screen). It runs in the worker, so the screen stays live.
  */
 import { ProblemList } from '../../components/ProblemList';
-import type { DataImport } from '../../../../shared/workerMessages';
 import { useDocument } from '../../hooks';
 import type { AssessmentState, EvaluationRecord } from '../../session/sessionStore';
 import type { Theme } from '../../theme';
@@ -13,18 +12,16 @@ import { assessmentFraction, progressLine } from './assessmentWords';
 import { ComparisonTable } from './ComparisonTable';
 import { CoveragePanel } from './CoveragePanel';
 import { CrossChecksPanel } from './CrossChecksPanel';
-import { ReportButton } from './ReportButton';
 import { SensitivityPanel } from './SensitivityPanel';
 
 interface Props {
   record: EvaluationRecord;
   state: AssessmentState;
   stale: boolean;
-  imported: DataImport | null;
   theme: Theme;
 }
 
-export function AssessmentPanel({ record, state, stale, imported, theme }: Props) {
+export function AssessmentPanel({ record, state, stale, theme }: Props) {
   const current = state.status !== 'idle' && state.runKey === record.runKey ? state : null;
   const done = current?.status === 'done' ? current.assessment : null;
   return (
@@ -38,7 +35,6 @@ export function AssessmentPanel({ record, state, stale, imported, theme }: Props
           {done.sensitivity && <SensitivityPanel sensitivity={done.sensitivity} evaluation={record.evaluation} theme={theme} />}
         </>
       )}
-      {imported && !stale && <ReportButton state={current} />}
     </>
   );
 }

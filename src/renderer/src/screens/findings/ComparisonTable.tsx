@@ -6,6 +6,7 @@
 import type { Assessment } from '../../../../pipeline/assessment';
 import { formatNumber } from '../../format/numberFormat';
 import { CopyTable } from '../../components/CopyTable';
+import { FoldPanel } from './FoldPanel';
 import { displayName } from './plotLabels';
 import { intervalDetail, intervalText, levelText, shareText } from './assessmentWords';
 
@@ -13,8 +14,7 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
   const { differences, ranking } = assessment.comparison, level = assessment.settings.level;
   const better = assessment.valueSense === 'cost' ? 'lower cost' : 'higher reward';
   return (
-    <section className="panel" aria-labelledby="comparison-heading">
-      <h3 id="comparison-heading">Comparison</h3>
+    <FoldPanel section="comparison" testId="panel-comparison" gist={`Each candidate against the baseline and each other, ${levelText(level)} intervals; the ranking holds in ${shareText(ranking.frequency)} of resamples.`}>
       <p data-testid="comparison-baseline"><strong>Baseline:</strong> {displayName(assessment.comparison.baseline.name)}. {assessment.comparison.baseline.note}</p>
       <p className="small muted">
         Differences first − second in the project’s sense, {levelText(level)} percentile intervals from the same {assessment.settings.resamples.toLocaleString('en-US')} resamples of the logged runs
@@ -51,6 +51,6 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
           </ul>
         )}
       </div>
-    </section>
+    </FoldPanel>
   );
 }

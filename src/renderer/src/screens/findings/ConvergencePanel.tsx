@@ -5,6 +5,7 @@ import { SelectField } from '../../components/SelectField';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
+import { FoldPanel } from './FoldPanel';
 
 export function ConvergencePanel({ evaluation, theme }: { evaluation: Evaluation; theme: Theme }) {
   const [candidate, setCandidate] = useState(0);
@@ -12,8 +13,7 @@ export function ConvergencePanel({ evaluation, theme }: { evaluation: Evaluation
   if (!estimate) return null;
   const title = `Convergence of ${estimate.name}`;
   return (
-    <section className="panel" aria-labelledby="convergence-heading">
-      <h3 id="convergence-heading">Convergence</h3>
+    <FoldPanel section="convergence" testId="panel-convergence" gist={evaluation.policies.map((p) => `${p.name}: ${p.status === 'converged' ? 'converged' : p.status === 'diverged' ? 'diverged' : 'stopped at the iteration limit'}`).join('; ')}>
       <div className="row">
         <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="convergence-candidate"
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />
@@ -22,6 +22,6 @@ export function ConvergencePanel({ evaluation, theme }: { evaluation: Evaluation
       <ConvergencePlot history={estimate.history} title={title} theme={theme} />
       <ExportPanel kind="convergence" evaluation={evaluation} defaultTitle={title} policy={estimate.name} fileBase={`convergence-${estimate.name}`}
         makeSpec={(t) => ({ kind: 'convergence', props: { history: estimate.history, title: t, theme } })} />
-    </section>
+    </FoldPanel>
   );
 }

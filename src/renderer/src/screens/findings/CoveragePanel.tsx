@@ -5,12 +5,12 @@
  */
 import type { Assessment, AssessmentWarning } from '../../../../pipeline/assessment';
 import { coverageSentences, unvisitedSentence } from './assessmentWords';
+import { FoldPanel } from './FoldPanel';
 
 export function CoveragePanel({ assessment }: { assessment: Assessment }) {
   const unvisited = unvisitedSentence(assessment.unvisitedShare);
   return (
-    <section className="panel" aria-labelledby="coverage-heading" data-testid="coverage">
-      <h3 id="coverage-heading">Coverage of the logs</h3>
+    <FoldPanel section="coverage" testId="coverage" gist={coverageGist(assessment)}>
       <Warnings warnings={assessment.warnings} testId="assessment-warnings" />
       {unvisited && <p>{unvisited}</p>}
       {assessment.candidates.map((c, i) => (
@@ -24,8 +24,17 @@ export function CoveragePanel({ assessment }: { assessment: Assessment }) {
         <summary>How these were computed</summary>
         <ul className="small">{assessment.method.map((m) => <li key={m}>{m}</li>)}</ul>
       </details>
-    </section>
+    </FoldPanel>
   );
+}
+
+/** "2 serious warnings, 5 cautions over 3 candidates": what the folded panel holds. */
+export function coverageGist(assessment: Assessment): string {
+  const all = [...assessment.warnings, ...assessment.candidates.flatMap((c) => c.warnings)];
+  const serious = all.filter((w) => w.severity === 'serious').length, cautions = all.length - serious;
+  if (all.length === 0) return 'No warnings: occupancy shift, importance weights and action support per candidate.';
+  const parts = [serious ? `${serious} serious warning${serious === 1 ? '' : 's'}` : '', cautions ? `${cautions} caution${cautions === 1 ? '' : 's'}` : ''].filter(Boolean);
+  return `${parts.join(' and ')}: occupancy shift, importance weights and action support per candidate.`;
 }
 
 function Warnings({ warnings, testId }: { warnings: AssessmentWarning[]; testId: string }) {

@@ -6,6 +6,7 @@
  * range to report when they disagree.
  */
 import { CopyTable } from '../../components/CopyTable';
+import { FoldPanel } from './FoldPanel';
 import type { Assessment } from '../../../../pipeline/assessment';
 import { formatNumber } from '../../format/numberFormat';
 import { intervalDetail, intervalText, levelText, noteWithoutVerdict, VERDICT } from './assessmentWords';
@@ -13,8 +14,7 @@ import { intervalDetail, intervalText, levelText, noteWithoutVerdict, VERDICT } 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
   const level = assessment.settings.level;
   return (
-    <section className="panel span-2" aria-labelledby="cross-checks-heading" data-testid="cross-checks">
-      <h3 id="cross-checks-heading">Cross-checks by other methods</h3>
+    <FoldPanel section="crossChecks" span="span-2" testId="cross-checks" gist={assessment.candidates.map((c) => `${c.name}: ${c.confirmation.status}`).join('; ')}>
       <p className="small muted">Each method rests on a different assumption; agreement between them is evidence, disagreement is a reason to look closer.</p>
       {assessment.candidates.map((c) => (
         <div key={c.name}>
@@ -55,6 +55,6 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
           {(assessment.candidates[0]?.crossChecks ?? []).map((x) => <div key={x.method}><dt>{x.label}</dt><dd>{x.assumption}</dd></div>)}
         </dl>
       </details>
-    </section>
+    </FoldPanel>
   );
 }

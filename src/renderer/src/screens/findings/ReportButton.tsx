@@ -20,8 +20,7 @@ export function ReportButton({ state }: { state: AssessmentState | null }) {
     setStatus(await reportCommand(action, api, documents, session));
   };
   return (
-    <section className="panel" aria-labelledby="report-heading">
-      <h3 id="report-heading">Report</h3>
+    <>
       <p className="small muted">One self-contained document — the job, the data, the settings, the comparison, the figures, the diagnostics, the cross-checks, the retune maps and the cautions — to attach to a design review, as HTML or PDF (A4), or printed.</p>
       <div className="row">
         <button className="primary" onClick={() => void act('html')} disabled={running} data-testid="write-report">Write report…</button>
@@ -30,6 +29,6 @@ export function ReportButton({ state }: { state: AssessmentState | null }) {
       </div>
       {running && <p className="small muted">The report waits for the intervals and checks.</p>}
       {status && <p className={status.tone === 'error' ? 'error-text' : 'small'} role="status" data-testid="report-status">{status.text}</p>}
-    </section>
+    </>
   );
 }

@@ -30,8 +30,7 @@ interface Props {
 export function RetuneMapPanel({ record, state, stale, theme }: Props) {
   const current = state.status !== 'idle' && state.runKey === record.runKey ? state : null;
   return (
-    <section className="panel span-2" aria-labelledby="retune-map-heading" data-testid="retune-map">
-      <h3 id="retune-map-heading">Retune map</h3>
+    <>
       <p className="small muted">
         J over a grid of retunes of one candidate, each point a full estimate with its interval, shaded where the logs no longer support it.
         A map takes seconds to a minute.
@@ -40,7 +39,7 @@ export function RetuneMapPanel({ record, state, stale, theme }: Props) {
       {current?.status === 'done'
         ? <MapResults maps={current.maps} record={record} theme={theme} />
         : <MapStatus record={record} state={current} stale={stale} />}
-    </section>
+    </>
   );
 }
 

@@ -6,6 +6,7 @@ import { SelectField } from '../../components/SelectField';
 import { SensitivityPlot } from '../../plots';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
+import { FoldPanel } from './FoldPanel';
 import { displayName, policyValueLabel, valueUnit } from './plotLabels';
 import { useDocument } from '../../hooks';
 
@@ -18,8 +19,7 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
   const title = `J against the ${curve.label}`;
   const props = { curve: shown, valueLabel: policyValueLabel(evaluation.valueSense, valueUnit(doc)), title, theme };
   return (
-    <section className="panel" aria-labelledby="sensitivity-heading" data-testid="sensitivity">
-      <h3 id="sensitivity-heading">Sensitivity to the settings</h3>
+    <FoldPanel section="sensitivity" testId="sensitivity" gist={`J against ${sensitivity.curves.map((c) => `the ${c.label}`).join(' and ')}: ${sensitivity.curves.every((c) => c.rankingStable) ? 'the ranking is the same at every setting shown' : 'the ranking changes within the range'}.`}>
       <p className="small muted">J refitted at other settings on the full data. If the lines cross inside the range, the conclusion depends on that setting.</p>
       {sensitivity.curves.length > 1 && (
         <div className="row">
@@ -32,6 +32,6 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
       {sensitivity.notes.map((n) => <p key={n} className="small muted">{n}</p>)}
       <ExportPanel kind="sensitivity" evaluation={evaluation} defaultTitle={title} policy={curve.series.map((s) => s.name).join(', ')}
         fileBase={`sensitivity-${curve.parameter}`} makeSpec={(t) => ({ kind: 'sensitivity', props: { ...props, title: t } })} />
-    </section>
+    </FoldPanel>
   );
 }

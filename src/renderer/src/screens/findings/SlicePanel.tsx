@@ -38,8 +38,7 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
     slice, actionLabel: actionLabel(doc, action), valueLabel: valueLabel(evaluation.valueSense, 'Q', valueUnit(doc)), title, theme,
   } : null;
   return (
-    <section className="panel" aria-labelledby="slice-heading">
-      <h3 id="slice-heading">Action-value slice</h3>
+    <>
       <p className="small muted">Q(s, a) along the action at one state, the policy’s action density beneath, and the quadrature nodes whose weighted mean is V^π(s).</p>
       <div className="row">
         <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="slice-candidate"
@@ -56,6 +55,6 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
         <ExportPanel kind="slice" evaluation={evaluation} defaultTitle={title} policy={policy} fileBase={`action-slice-${policy}`}
           makeSpec={(t) => ({ kind: 'slice', props: { ...sliceProps, title: t } })} />
       )}
-    </section>
+    </>
   );
 }

@@ -45,8 +45,7 @@ export function SurfacePanel({ evaluation, imported, theme, restored = false }: 
     heldLabel: held_ || undefined,
   } : null;
   return (
-    <section className="panel span-2" aria-labelledby="surface-heading" data-testid="panel-surface">
-      <h3 id="surface-heading">Value surface</h3>
+    <>
       <p className="small muted">V^π(s) over two states; hatched cells are where the logs never went, so V there is extrapolated.</p>
       <div className="row">
         <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="surface-candidate"
@@ -66,6 +65,6 @@ export function SurfacePanel({ evaluation, imported, theme, restored = false }: 
           makeSpec={(t) => ({ kind: 'surface', props: { ...surfaceProps, title: t } })}
           csv={() => surfaceCsv(surfaceProps.surface, surfaceProps.valueLabel)} />
       )}
-    </section>
+    </>
   );
 }

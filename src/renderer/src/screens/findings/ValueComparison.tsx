@@ -15,6 +15,7 @@ import type { Theme } from '../../theme';
 import { intervalDetail, intervalText, levelText } from './assessmentWords';
 import { ExportPanel } from './ExportPanel';
 import { CopyTable } from '../../components/CopyTable';
+import { FoldPanel } from './FoldPanel';
 
 const STATUS: Record<string, string> = { converged: 'converged', maxIterations: 'stopped at the iteration limit', diverged: 'diverged' };
 
@@ -33,8 +34,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
   const sense = evaluation.valueSense === 'cost' ? `J is the expected discounted cost${unit ? ` in ${unit}` : ''} from the start states on (lower is better)` : `J is the expected discounted reward${unit ? ` in ${unit}` : ''} from the start states on (higher is better)`;
   const b = evaluation.behaviour, pc = evaluation.presentController;
   return (
-    <section className="panel span-2" aria-labelledby="values-heading" data-testid="panel-values">
-      <h3 id="values-heading">Value of each candidate, J</h3>
+    <FoldPanel section="values" span="span-2" testId="panel-values" gist={`J of ${plural(evaluation.policies.length, 'candidate')} beside the baseline: chart, table and how each fit went.`}>
       <p className="small muted">{sense}. ± is one standard error over the start states only; it does not cover the error of the fit (the interval does, once computed).</p>
       <PolicyValueChart evaluation={evaluation} theme={theme} unit={unit} />
       <table data-testid="value-table">
@@ -99,6 +99,6 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
       <CopyTable tableTestId="value-table" fileBase="candidate-values" />
       <ExportPanel kind="comparison" evaluation={evaluation} defaultTitle="Value of each candidate" policy={evaluation.policies.map((p) => p.name).join(', ')}
         fileBase="candidate-values" makeSpec={(title) => ({ kind: 'comparison', props: { evaluation, theme, title, unit } })} />
-    </section>
+    </FoldPanel>
   );
 }

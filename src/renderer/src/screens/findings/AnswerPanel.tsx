@@ -1,0 +1,116 @@
+/**
+ * The answer first: which candidate to take to a plant trial (by the rule in trialChoice.ts, stated
+ * beside it), each candidate's J with its interval and unit against today's controller, how often
+ * it came out better, what the cross-checks and the coverage warnings say, and where to read more.
+ * Before the intervals and checks are in, J ± s.e. only, and no candidate is named.
+ */
+import type { Assessment } from '../../../../pipeline/assessment';
+import type { Evaluation } from '../../../../pipeline/estimates';
+import { estimateText, formatNumber, plural } from '../../format/numberFormat';
+import { useDocument } from '../../hooks';
+import { intervalText, levelText, shareText } from './assessmentWords';
+import { FoldPanel } from './FoldPanel';
+import type { SectionId } from './findingsSections';
+import { displayName, valueUnit } from './plotLabels';
+import { TRIAL_RULE, trialChoice, type TrialChoice, type TrialLine } from './trialChoice';
+import { jumpToSection, useProjectKey } from './useFold';
+
+const CONFIRMATION: Record<string, string> = { confirmed: 'confirmed', contradicted: 'contradicted', unconfirmed: 'unconfirmed' };
+
+function warningsText(line: TrialLine): string {
+  if (line.serious + line.cautions === 0) return 'none';
+  return [line.serious ? `${line.serious} serious` : '', line.cautions ? plural(line.cautions, 'caution') : ''].filter(Boolean).join(', ');
+}
+
+function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: Assessment; unit: string }) {
+  const baseline = displayName(assessment.comparison.baseline.name), pick = choice.pick;
+  if (pick) {
+    const d = pick.difference;
+    if (!d) return null;
+    return (
+      <p className="answer-lead" data-testid="answer-lead">
+        <strong>Trial first: {pick.candidate.name}.</strong> J {formatNumber(pick.candidate.policyValue.value, 4)} {intervalText(pick.candidate.policyValue.percentile)}{unit ? ` ${unit}` : ''};
+        {' '}{formatNumber(Math.abs(d.difference.value), 3)}{unit ? ` ${unit}` : ''} {assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the {baseline} (difference {intervalText(d.difference.percentile)}), better in {shareText(d.probabilityBetter)} of resamples.
+      </p>
+    );
+  }
+  const best = choice.best;
+  return (
+    <p className="answer-lead" data-testid="answer-lead">
+      <strong>No candidate is named for a trial.</strong>
+      {best && ` The best J is ${best.candidate.name}’s (${formatNumber(best.candidate.policyValue.value, 4)}${unit ? ` ${unit}` : ''}), but ${best.reasons.join(', and ')}. Read its warnings under Coverage before any trial.`}
+    </p>
+  );
+}
+
+function JumpLink({ section, children }: { section: SectionId; children: string }) {
+  const key = useProjectKey();
+  return <button type="button" className="link" onClick={() => jumpToSection(key, section)}>{children}</button>;
+}
+
+function AssessedTable({ choice, assessment, evaluation, unit }: { choice: TrialChoice; assessment: Assessment; evaluation: Evaluation; unit: string }) {
+  const level = levelText(assessment.settings.level), base = assessment.presentController?.policyValue ?? assessment.behaviour;
+  const baseName = displayName(assessment.comparison.baseline.name);
+  return (
+    <table className="answer-table" data-testid="answer-table">
+      <thead>
+        <tr>
+          <th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">{level} interval</th>
+          <th scope="col" className="number">Minus baseline</th><th scope="col" className="number">Better in</th><th scope="col">Cross-checks</th><th scope="col">Warnings</th>
+        </tr>
+      </thead>
+      <tbody>
+        {choice.lines.map((l) => (
+          <tr key={l.candidate.name} className={l === choice.pick ? 'answer-pick' : undefined} data-testid={`answer-row-${evaluation.policies.findIndex((p) => p.name === l.candidate.name)}`}>
+            <th scope="row">{l.candidate.name}</th>
+            <td className="number">{formatNumber(l.candidate.policyValue.value, 4)}</td>
+            <td className="number interval">{intervalText(l.candidate.policyValue.percentile)}</td>
+            <td className="number interval">{l.difference ? `${formatNumber(l.difference.difference.value, 3)} ${intervalText(l.difference.difference.percentile)}` : '—'}</td>
+            <td className="number">{shareText(l.difference?.probabilityBetter ?? null)}</td>
+            <td className={l.candidate.confirmation.status === 'contradicted' ? 'error-text' : undefined}>{CONFIRMATION[l.candidate.confirmation.status]}</td>
+            <td className={l.serious ? 'error-text' : undefined}>{warningsText(l)}</td>
+          </tr>
+        ))}
+        <tr data-testid="answer-row-baseline">
+          <th scope="row">{baseName} <span className="small muted">(baseline)</span></th>
+          <td className="number">{formatNumber(base.value, 4)}</td><td className="number interval">{intervalText(base.percentile)}</td>
+          <td className="number">—</td><td className="number">—</td><td /><td />
+        </tr>
+      </tbody>
+    </table>
+  );
+}
+
+function PointTable({ evaluation, unit }: { evaluation: Evaluation; unit: string }) {
+  const pc = evaluation.presentController;
+  const rows = [...evaluation.policies.map((p) => ({ name: p.name, value: p.policyValue, se: p.standardError })),
+    pc ? { name: 'present controller, modelled (baseline)', value: pc.estimate.policyValue, se: pc.estimate.standardError } : { name: 'logged return (baseline)', value: evaluation.behaviour.value, se: evaluation.behaviour.standardError }];
+  return (
+    <table className="answer-table" data-testid="answer-table">
+      <thead><tr><th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">± s.e.</th></tr></thead>
+      <tbody>{rows.map((r) => <tr key={r.name}><th scope="row">{r.name}</th><td className="number">{estimateText(r.value, r.se).value}</td><td className="number">{estimateText(r.value, r.se).error}</td></tr>)}</tbody>
+    </table>
+  );
+}
+
+export function AnswerPanel({ evaluation, assessment }: { evaluation: Evaluation; assessment: Assessment | null }) {
+  const unit = valueUnit(useDocument());
+  const choice = assessment ? trialChoice(assessment) : null;
+  const sense = `J is the expected discounted ${evaluation.valueSense}${unit ? ` in ${unit}` : ''} from the start states on (${evaluation.valueSense === 'cost' ? 'lower' : 'higher'} is better).`;
+  const gist = choice ? (choice.pick ? `Trial first: ${choice.pick.candidate.name}.` : 'No candidate is named for a trial.') : 'Waiting for the intervals and checks.';
+  return (
+    <FoldPanel section="answer" span="span-2" testId="panel-answer" gist={gist}>
+      {assessment && choice ? <Lead choice={choice} assessment={assessment} unit={unit} />
+        : <p className="answer-lead" data-testid="answer-lead"><strong>Intervals and checks are not in yet:</strong> J ± one standard error over the start states only; no candidate is named until they are.</p>}
+      {assessment && choice ? <AssessedTable choice={choice} assessment={assessment} evaluation={evaluation} unit={unit} /> : <PointTable evaluation={evaluation} unit={unit} />}
+      <p className="small muted">{sense}{assessment ? ` Baseline: ${displayName(assessment.comparison.baseline.name)}; “minus baseline” and “better in” come from the same ${assessment.settings.resamples.toLocaleString('en-US')} paired resamples of the logged runs.` : ''}</p>
+      {assessment && <p className="small muted" data-testid="answer-rule">{TRIAL_RULE}</p>}
+      {assessment && (
+        <p className="small answer-more">
+          Read more: <JumpLink section="comparison">paired comparison</JumpLink> · <JumpLink section="crossChecks">cross-checks</JumpLink> · <JumpLink section="coverage">coverage and warnings</JumpLink>
+          {assessment.sensitivity && <> · <JumpLink section="sensitivity">sensitivity</JumpLink> ({assessment.sensitivity.curves.every((c) => c.rankingStable) ? 'ranking the same at every setting' : 'ranking changes with a setting'})</>}
+        </p>
+      )}
+    </FoldPanel>
+  );
+}

@@ -1,0 +1,47 @@
+/**
+ * Which Findings sections the reader opened or folded, remembered per project for the session
+ * (this window's session storage, so a reload keeps it and a new window starts from the defaults).
+ * Only the reader's own choices are kept; a section never touched follows findingsSections.ts.
+ */
+import { createStore, type Store } from '../../state/store';
+import { FINDINGS_SECTIONS, type SectionId } from './findingsSections';
+
+const STORAGE_KEY = 'setpoint-critic.findings-folds';
+
+/** project key → section → open. */
+export type FoldChoices = Readonly<Record<string, Readonly<Partial<Record<SectionId, boolean>>>>>;
+
+function readSaved(): FoldChoices {
+  try {
+    const text = globalThis.sessionStorage?.getItem(STORAGE_KEY);
+    const parsed: unknown = text ? JSON.parse(text) : {};
+    return parsed && typeof parsed === 'object' && !Array.isArray(parsed) ? (parsed as FoldChoices) : {};
+  } catch {
+    return {}; // unreadable or unavailable storage: start from the defaults
+  }
+}
+
+export const foldStore: Store<FoldChoices> = createStore<FoldChoices>(readSaved());
+
+foldStore.subscribe(() => {
+  try {
+    globalThis.sessionStorage?.setItem(STORAGE_KEY, JSON.stringify(foldStore.get()));
+  } catch {
+    // storage full or disabled: the choice still holds in this page
+  }
+});
+
+/** The key a project's choices are kept under: its file, or one key for work not yet saved. */
+export const projectKey = (projectPath: string | null): string => projectPath ?? '(unsaved)';
+
+export function isOpen(choices: FoldChoices, key: string, id: SectionId): boolean {
+  return choices[key]?.[id] ?? FINDINGS_SECTIONS.find((s) => s.id === id)?.defaultOpen ?? true;
+}
+
+export function setOpen(key: string, ids: readonly SectionId[], open: boolean): void {
+  foldStore.set((all) => {
+    const mine = { ...all[key] };
+    for (const id of ids) mine[id] = open;
+    return { ...all, [key]: mine };
+  });
+}
