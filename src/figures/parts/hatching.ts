@@ -16,8 +16,26 @@ export interface HatchStyle {
   readonly lightWidthPx: number;
 }
 
-/** A sparser, thinner hatch for a milder warning (the retune map's "caution" cells); ours. */
-export const LIGHT_HATCH: HatchStyle = { spacingPx: 11, darkWidthPx: 1.3, lightWidthPx: 0.6 };
+/**
+ * A sparser hatch for a milder warning (the retune map's "caution" cells); ours. Its dark edge on
+ * each side of the light line, (dark − light) / 2 = 0.6 px, is the strong hatch's, so it reads on
+ * both ends of the colour scale and in both themes; it differs by its wider spacing and finer light line.
+ */
+export const LIGHT_HATCH: HatchStyle = { spacingPx: 9.5, darkWidthPx: 2, lightWidthPx: 0.8 };
+
+/** Fewest hatch lines across a legend swatch, so a small key still shows the pattern it stands for; ours. */
+export const MIN_SWATCH_LINES = 3;
+
+/**
+ * The hatch of a legend swatch of w × h CSS px: the cells' own style, its spacing narrowed only where
+ * fewer than MIN_SWATCH_LINES lines would cross the swatch (lines x + y = c cross it for c in a
+ * range of length w + h, one every spacing·√2).
+ */
+export function swatchHatch(style: HatchStyle, widthPx: number, heightPx: number): HatchStyle {
+  const fits = (widthPx + heightPx) / (style.spacingPx * Math.SQRT2);
+  if (fits >= MIN_SWATCH_LINES) return style;
+  return { ...style, spacingPx: (widthPx + heightPx) / (MIN_SWATCH_LINES * Math.SQRT2) };
+}
 
 export function drawHatching(ctx: CanvasRenderingContext2D, rects: readonly Rect[], look: PlotLook, style: HatchStyle = HATCH_DEFAULTS): void {
   if (rects.length === 0) return;

@@ -6,7 +6,10 @@
  * at, so the reserved height always fits what is drawn (no row spills onto the ticks).
  */
 import { type Chart, type LayoutItem, type Plugin } from 'chart.js';
-import { drawHatching, HATCH_DEFAULTS, type HatchStyle } from './hatching';
+import { drawHatching, HATCH_DEFAULTS, swatchHatch, type HatchStyle } from './hatching';
+
+/** Height of a hatched key in em of the legend text; ours. */
+export const HATCH_SWATCH_HEIGHT = 1.1;
 import { LayoutBoxGeometry, layoutBoxHooks } from './layoutBox';
 import { PLOT_FONTS, type PlotLook } from './plotLook';
 import { drawRichText, measureRichText } from './richText';
@@ -91,13 +94,14 @@ class LegendBox extends LayoutBoxGeometry implements LayoutItem {
 }
 
 function drawKey(ctx: CanvasRenderingContext2D, key: LegendKey, left: number, middle: number, width: number, look: PlotLook): void {
-  const s = look.scale, h = PLOT_FONTS.legendPx * s * 0.8;
+  // A hatched key is as tall as the text, so its pattern shows (HATCH_SWATCH_HEIGHT, under the row height of 1.3 em).
+  const s = look.scale, h = PLOT_FONTS.legendPx * s * (key.kind === 'hatch' ? HATCH_SWATCH_HEIGHT : 0.8);
   ctx.save();
   if (key.kind === 'area' || key.kind === 'hatch') {
     const rect = { x: left, y: middle - h / 2, width, height: h };
     ctx.fillStyle = key.colour;
     ctx.fillRect(rect.x, rect.y, rect.width, rect.height);
-    if (key.kind === 'hatch') drawHatching(ctx, [rect], look, key.hatch ?? HATCH_DEFAULTS);
+    if (key.kind === 'hatch') drawHatching(ctx, [rect], look, swatchHatch(key.hatch ?? HATCH_DEFAULTS, width / s, h / s));
     ctx.strokeStyle = key.border ?? look.palette.axis;
     ctx.lineWidth = (key.borderWidthPx ?? 1) * s;
     ctx.strokeRect(rect.x, rect.y, rect.width, rect.height);

@@ -1,0 +1,55 @@
+/**
+ * The Findings answer's rule (trialChoice.ts) on hand-made assessments: a candidate is named only when
+ * its paired interval against the baseline lies wholly on the better side of 0 (below 0 for a cost,
+ * above for a reward), no serious warning and no contradicting cross-check; the best J of those is named.
+ * Invented numbers; the rule is the app's own, so these check its logic, not an outside value.
+ */
+import { describe, expect, it } from 'vitest';
+import type { Assessment, CandidateAssessment, IntervalEstimate, PairedDifference } from '../../../src/pipeline/assessment';
+import { trialChoice, whollyBetter } from '../../../src/renderer/src/screens/findings/trialChoice';
+
+const BASE = 'present controller';
+const estimate = (value: number, lo: number, hi: number): IntervalEstimate =>
+  ({ value, standardError: null, percentile: [lo, hi], basic: null, replicates: 100, failedReplicates: 0, covers: '' }) as IntervalEstimate;
+
+function candidate(name: string, value: number, extra: Partial<CandidateAssessment> = {}): CandidateAssessment {
+  return { name, policyValue: estimate(value, value - 1, value + 1), warnings: [], confirmation: { status: 'unconfirmed', text: '' }, ...extra } as CandidateAssessment;
+}
+
+function assessment(sense: 'cost' | 'reward', candidates: CandidateAssessment[], differences: [string, number, number, number][], order: string[]): Assessment {
+  const diffs: PairedDifference[] = differences.map(([a, v, lo, hi]) => ({ a, b: BASE, difference: estimate(v, lo, hi), probabilityBetter: 0.9 }));
+  return {
+    valueSense: sense, candidates,
+    comparison: { baseline: { name: BASE, kind: 'presentController', note: '' }, differences: diffs, ranking: { order, frequency: 0.8, neighbours: [] } },
+  } as unknown as Assessment;
+}
+
+describe('which candidate to trial', () => {
+  it('reads the better side from the project’s sense', () => {
+    expect(whollyBetter([-2, -0.1], 'cost')).toBe(true);
+    expect(whollyBetter([-2, 0.1], 'cost')).toBe(false);
+    expect(whollyBetter([0.1, 2], 'reward')).toBe(true);
+    expect(whollyBetter([-0.1, 2], 'reward')).toBe(false);
+    expect(whollyBetter(null, 'cost')).toBe(false);
+  });
+
+  it('names the best qualifying candidate, passing over a better J with a serious warning', () => {
+    const serious = { severity: 'serious' as const, topic: 'shift', message: 'far from the logs' };
+    const a = assessment('cost', [candidate('A', 5, { warnings: [serious] }), candidate('B', 6), candidate('C', 7)],
+      [['A', -3, -4, -2], ['B', -2, -3, -1], ['C', -1, -2, 0.5]], ['A', 'B', 'C', BASE]);
+    const choice = trialChoice(a);
+    expect(choice.pick?.candidate.name).toBe('B');
+    expect(choice.best?.candidate.name).toBe('A');
+    expect(choice.lines.map((l) => l.candidate.name)).toEqual(['A', 'B', 'C']);
+    expect(choice.lines[0].reasons).toEqual(['the assessment raised a serious warning for it']);
+    expect(choice.lines[2].reasons).toEqual(['the interval of its difference from the baseline reaches 0 or the worse side']);
+  });
+
+  it('names none when every candidate fails the rule, and says why for the best', () => {
+    const a = assessment('reward', [candidate('A', 5, { confirmation: { status: 'contradicted', text: '' } }), candidate('B', 4)],
+      [['A', 1, 0.5, 2], ['B', 0.5, -0.2, 1]], ['A', 'B', BASE]);
+    const choice = trialChoice(a);
+    expect(choice.pick).toBeNull();
+    expect(choice.best?.reasons).toEqual(['a cross-check contradicts it']);
+  });
+});
