@@ -8,6 +8,7 @@ import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
+import { openAllFindings } from './harness/findingsSections';
 import { drawnPixels } from './harness/drawnPixels';
 import { REPORT_SECTIONS } from '../../src/pipeline/report/reportDocument';
 import { launchApp, type LaunchedApp } from './harness/launch';
@@ -41,6 +42,7 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     await page.getByLabel('Bootstrap resamples').blur();
     await app.screenshot('assessment-1-estimator');
     values = await runAndReadValues(page, 2);
+    await openAllFindings(page); // the evidence starts folded
     await page.getByTestId('comparison-table').waitFor({ timeout: 90_000 });
     for (const [i, testId] of ['policy-interval-0', 'policy-interval-1', 'behaviour-interval'].entries()) {
       const cell = page.getByTestId(testId);

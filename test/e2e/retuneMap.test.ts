@@ -13,6 +13,7 @@ import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
+import { openAllFindings } from './harness/findingsSections';
 import { drawnPixels } from './harness/drawnPixels';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
@@ -49,6 +50,7 @@ describe('the retune map in the app (e2e)', () => {
     await page.getByTestId('run-evaluation').click();
     await page.getByTestId('run-finished').waitFor({ timeout: 180_000 });
     await goToStep(page, 'findings');
+    await openAllFindings(page); // the convergence panel's export is used below; the evidence starts folded
     const panel = page.getByTestId('retune-map');
     await panel.waitFor({ timeout: 30_000 });
     await page.getByTestId('compute-retune-map').click();

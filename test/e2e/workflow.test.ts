@@ -8,6 +8,7 @@ import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { POLL } from './harness/poll';
+import { openAllFindings } from './harness/findingsSections';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import {
   addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, TANK_CSV,
@@ -71,6 +72,7 @@ describe('a new user evaluates two candidates (e2e)', () => {
     await goToStep(page, 'run');
     await app.screenshot('workflow-5-run-finished');
     await goToStep(page, 'findings');
+    await openAllFindings(page); // the evidence starts folded
     expect(firstValues.every(Number.isFinite)).toBe(true);
     // A trim error moves the levels off their setpoints, so its expected cost is the higher one.
     expect(firstValues[1]).toBeGreaterThan(firstValues[0]);

@@ -2,7 +2,7 @@
  * The Findings section index: one button per section on the screen, in reading order, that opens
  * it and brings it into view; it stays in view under the toolbar while the screen scrolls. A folded
  * section is marked ▸; a note (such as a count of serious warnings) can stand beside a name. Open
- * all and Fold all change every section at once (remembered like a single fold).
+ * all and Fold all change every section at once, also those still being computed (remembered like a single fold).
  */
 import { useCallback } from 'react';
 import { FINDINGS_SECTIONS, type SectionId } from './findingsSections';
@@ -20,6 +20,9 @@ function useIndexHeight(): (element: HTMLElement | null) => (() => void) | undef
     return () => observer.disconnect();
   }, []);
 }
+
+/** Every section, also those a run has not produced yet (the checks while they are computed): "all" means all. */
+const ALL = FINDINGS_SECTIONS.map((s) => s.id);
 
 export function SectionIndex({ present, notes = {} }: { present: readonly SectionId[]; notes?: Partial<Record<SectionId, string>> }) {
   const { key, choices } = useFoldChoices();
@@ -42,8 +45,8 @@ export function SectionIndex({ present, notes = {} }: { present: readonly Sectio
         })}
       </ul>
       <span className="index-tools">
-        <button type="button" onClick={() => setOpen(key, sections.map((s) => s.id), true)} data-testid="open-all-sections">Open all</button>
-        <button type="button" onClick={() => setOpen(key, sections.map((s) => s.id), false)} data-testid="fold-all-sections">Fold all</button>
+        <button type="button" onClick={() => setOpen(key, ALL, true)} data-testid="open-all-sections">Open all</button>
+        <button type="button" onClick={() => setOpen(key, ALL, false)} data-testid="fold-all-sections">Fold all</button>
       </span>
     </nav>
   );
