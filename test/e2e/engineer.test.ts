@@ -10,7 +10,7 @@ import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { startMainThreadProbe, startTaskTrace, stopMainThreadProbe } from './harness/mainThreadProbe';
 import { POLL } from './harness/poll';
-import { openAllFindings } from './harness/findingsSections';
+import { openFindingsSection } from './harness/findingsSections';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { chooseData, goToStep, mapTankColumns, TANK_CSV } from '../renderer/e2e/appSteps';
 import { writeTankProject } from '../renderer/e2e/projectFiles';
@@ -44,8 +44,10 @@ describe('the app as a control engineer meets it (e2e)', () => {
     await page.getByTestId('run-evaluation').click();
     await page.getByTestId('run-finished').waitFor({ timeout: 90_000 });
     await goToStep(page, 'findings');
-    await openAllFindings(page); // the evidence starts folded
+    // The evidence starts folded: open the two sections read here from the section index.
+    await openFindingsSection(page, 'surface');
     await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
+    await openFindingsSection(page, 'comparison');
     await page.getByTestId('comparison-table').waitFor({ timeout: 90_000 });
     await expect.poll(() => page.locator('figure[data-chart-state="waiting"]').count(), POLL).toBe(0);
     const probe = await page.evaluate(stopMainThreadProbe);

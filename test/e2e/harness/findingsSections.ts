@@ -9,3 +9,11 @@ export async function openAllFindings(page: Page): Promise<void> {
   await button.waitFor({ timeout: 60_000 });
   await button.click();
 }
+
+/** Open one Findings section from the section index (waiting for it: the assessment's sections appear when it is done). */
+export async function openFindingsSection(page: Page, id: string, timeout = 90_000): Promise<void> {
+  const entry = page.getByTestId(`index-${id}`);
+  await entry.waitFor({ timeout });
+  await entry.click();
+  await page.locator(`[data-section="${id}"][data-open="true"]`).waitFor({ timeout: 15_000 });
+}
