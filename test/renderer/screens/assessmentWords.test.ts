@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import type { CoverageDiagnostics } from '../../../src/pipeline/assessment';
 import {
-  assessmentFraction, coverageSentences, intervalText, levelText, noteWithoutVerdict, progressLine, shareText, unvisitedSentence,
+  assessmentFraction, coverageSentences, intervalText, levelText, noteWithoutVerdict, progressLine, shareText, unvisitedSentence, valueAtIntervalPrecision,
 } from '../../../src/renderer/src/screens/findings/assessmentWords';
 
 describe('assessment words', () => {
@@ -15,6 +15,12 @@ describe('assessment words', () => {
     expect(levelText(0.9)).toBe('90 %');
     expect(shareText(0.475)).toBe('47.5 %');
     expect(shareText(null)).toBe('—');
+  });
+
+  it('writes a value at its interval’s precision (one precision for numbers read together, JCGM 100 §7.2.2, common practice)', () => {
+    expect(valueAtIntervalPrecision(7.71841, [5.62131, 10.1834])).toBe('7.72'); // beside "[5.62, 10.18]"
+    expect(valueAtIntervalPrecision(-0.84712, [-1.04533, -0.63021])).toBe('−0.847'); // beside "[−1.045, −0.630]"
+    expect(valueAtIntervalPrecision(8.565, null)).toBe('8.565');
   });
 
   it('drops the verdict word the verdict column already shows', () => {

@@ -6,9 +6,9 @@
  */
 import type { Assessment } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
-import { estimateText, formatNumber, plural } from '../../format/numberFormat';
+import { estimateText, plural } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
-import { intervalText, levelText, shareText } from './assessmentWords';
+import { intervalText, levelText, shareText, valueAtIntervalPrecision } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
 import { displayName, valueUnit } from './plotLabels';
@@ -29,8 +29,8 @@ function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: A
     if (!d) return null;
     return (
       <p className="answer-lead" data-testid="answer-lead">
-        <strong>Trial first: {pick.candidate.name}.</strong> J {formatNumber(pick.candidate.policyValue.value, 4)} {intervalText(pick.candidate.policyValue.percentile)}{unit ? ` ${unit}` : ''};
-        {' '}{formatNumber(Math.abs(d.difference.value), 3)}{unit ? ` ${unit}` : ''} {assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the {baseline} (difference {intervalText(d.difference.percentile)}), better in {shareText(d.probabilityBetter)} of resamples.
+        <strong>Trial first: {pick.candidate.name}.</strong> J {valueAtIntervalPrecision(pick.candidate.policyValue.value, pick.candidate.policyValue.percentile)} {intervalText(pick.candidate.policyValue.percentile)}{unit ? ` ${unit}` : ''};
+        {' '}{valueAtIntervalPrecision(Math.abs(d.difference.value), d.difference.percentile)}{unit ? ` ${unit}` : ''} {assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the {baseline} (difference {intervalText(d.difference.percentile)}), better in {shareText(d.probabilityBetter)} of resamples.
       </p>
     );
   }
@@ -38,7 +38,7 @@ function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: A
   return (
     <p className="answer-lead" data-testid="answer-lead">
       <strong>No candidate is named for a trial.</strong>
-      {best && ` The best J is ${best.candidate.name}’s (${formatNumber(best.candidate.policyValue.value, 4)}${unit ? ` ${unit}` : ''}), but ${best.reasons.join(', and ')}. Read its warnings under Coverage before any trial.`}
+      {best && ` The best J is ${best.candidate.name}’s (${valueAtIntervalPrecision(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${unit ? ` ${unit}` : ''}), but ${best.reasons.join(', and ')}. Read its warnings under Coverage before any trial.`}
     </p>
   );
 }
@@ -63,9 +63,9 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
         {choice.lines.map((l) => (
           <tr key={l.candidate.name} className={l === choice.pick ? 'answer-pick' : undefined} data-testid={`answer-row-${evaluation.policies.findIndex((p) => p.name === l.candidate.name)}`}>
             <th scope="row">{l.candidate.name}</th>
-            <td className="number">{formatNumber(l.candidate.policyValue.value, 4)}</td>
+            <td className="number">{valueAtIntervalPrecision(l.candidate.policyValue.value, l.candidate.policyValue.percentile)}</td>
             <td className="number interval">{intervalText(l.candidate.policyValue.percentile)}</td>
-            <td className="number interval">{l.difference ? `${formatNumber(l.difference.difference.value, 3)} ${intervalText(l.difference.difference.percentile)}` : '—'}</td>
+            <td className="number interval">{l.difference ? `${valueAtIntervalPrecision(l.difference.difference.value, l.difference.difference.percentile)} ${intervalText(l.difference.difference.percentile)}` : '—'}</td>
             <td className="number">{shareText(l.difference?.probabilityBetter ?? null)}</td>
             <td className={l.candidate.confirmation.status === 'contradicted' ? 'error-text' : undefined}>{CONFIRMATION[l.candidate.confirmation.status]}</td>
             <td className={l.serious ? 'error-text' : undefined}>{warningsText(l)}</td>
@@ -73,7 +73,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
         ))}
         <tr data-testid="answer-row-baseline">
           <th scope="row">{baseName} <span className="small muted">(baseline)</span></th>
-          <td className="number">{formatNumber(base.value, 4)}</td><td className="number interval">{intervalText(base.percentile)}</td>
+          <td className="number">{valueAtIntervalPrecision(base.value, base.percentile)}</td><td className="number interval">{intervalText(base.percentile)}</td>
           <td className="number">—</td><td className="number">—</td><td /><td />
         </tr>
       </tbody>

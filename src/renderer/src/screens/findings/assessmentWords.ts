@@ -24,6 +24,17 @@ export function intervalText(interval: [number, number] | null, significant = 4)
   return `[${fixed(lo)}, ${fixed(hi)}]`;
 }
 
+/**
+ * A value written to the decimal place its interval's ends are written to ("7.72" beside
+ * "[5.62, 10.18]"), so a number read with its interval has one precision (as intervalText; JCGM 100
+ * §7.2.2, common practice); without a usable interval, `significant` digits.
+ */
+export function valueAtIntervalPrecision(value: number, interval: [number, number] | null, significant = 4): string {
+  const width = interval ? interval[1] - interval[0] : NaN, magnitude = interval ? Math.max(Math.abs(interval[0]), Math.abs(interval[1])) : NaN;
+  if (!(width > 0) || !Number.isFinite(width) || magnitude >= 1e6 || magnitude < 1e-4 || !Number.isFinite(value)) return formatNumber(value, significant);
+  return fixedAtPrecisionOf(width, 3)(value);
+}
+
 /** "90 %" from 0.9. */
 export function levelText(level: number): string {
   return `${formatNumber(level * 100, 3)} %`;
