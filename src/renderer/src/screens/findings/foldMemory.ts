@@ -31,8 +31,18 @@ foldStore.subscribe(() => {
   }
 });
 
-/** The key a project's choices are kept under: its file, or one key for work not yet saved. */
-export const projectKey = (projectPath: string | null): string => projectPath ?? '(unsaved)';
+/** The key a project's choices are kept under: its file, or, not yet saved, the document's generation (a new document starts afresh). */
+export const projectKey = (projectPath: string | null, generation: number): string => projectPath ?? `(unsaved #${generation})`;
+
+/** On a first save the choices made while the project had no file go with it (they are the same project). */
+export function carryUnsaved(projectPath: string, generation: number): void {
+  const from = projectKey(null, generation);
+  foldStore.set((all) => {
+    if (!all[from] || all[projectPath]) return all;
+    const { [from]: moved, ...rest } = all;
+    return { ...rest, [projectPath]: moved };
+  });
+}
 
 export function isOpen(choices: FoldChoices, key: string, id: SectionId): boolean {
   return choices[key]?.[id] ?? FINDINGS_SECTIONS.find((s) => s.id === id)?.defaultOpen ?? true;

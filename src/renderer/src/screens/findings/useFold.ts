@@ -1,14 +1,18 @@
 /** A Findings section's open or folded state for the open project, and the jump to a section from the index. */
-import { useCallback } from 'react';
+import { useCallback, useEffect } from 'react';
 import { useDocumentState } from '../../hooks';
 import { useStore } from '../../state/useStore';
 import { sectionElementId, type SectionId } from './findingsSections';
-import { foldStore, isOpen, projectKey, setOpen, type FoldChoices } from './foldMemory';
+import { carryUnsaved, foldStore, isOpen, projectKey, setOpen, type FoldChoices } from './foldMemory';
 
 const all = (c: FoldChoices) => c;
 
 export function useProjectKey(): string {
-  return projectKey(useDocumentState((s) => s.projectPath));
+  const path = useDocumentState((s) => s.projectPath), generation = useDocumentState((s) => s.generation);
+  useEffect(() => {
+    if (path) carryUnsaved(path, generation);
+  }, [path, generation]);
+  return projectKey(path, generation);
 }
 
 /** [open, set] for one section of the open project. */
