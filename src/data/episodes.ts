@@ -96,6 +96,14 @@ function lostStartReport(hasStart: Uint8Array, firstRows: readonly number[], lin
   return [`${plural(lost.length, 'episode')} lost ${one ? 'its' : 'their'} first row to exclusion, so ${one ? 'its' : 'their'} first usable row (line${one ? '' : 's'} ${listed}) is mid-episode and not a start state; the start states are the first rows of the other ${plural(kept, 'episode')}.`];
 }
 
+/**
+ * Whether record q (before r) lies in another run than r by the run rule alone (the run column, a
+ * stop in the timestamps), for counting the runs a time window takes rows from (timeWindows.ts).
+ */
+export function runsApart(rule: ColumnRoles['episode'], inputs: EpisodeInputs): (q: number, r: number) => boolean {
+  return boundaryRule(rule, inputs).apart;
+}
+
 interface BoundaryRule {
   /** True when kept record `r` starts a new episode after kept record `previous` (counted for the report). */
   cut(previous: number, r: number): boolean;
