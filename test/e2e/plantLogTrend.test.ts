@@ -3,15 +3,61 @@
  * modules behind it, on the heating-historian sample (invented data: one row a minute, runs split
  * at overnight stops, a few corrupt cells). A window from 08:00 to 08:59 on 13 Jan inside the first
  * run takes out its 60 rows (one a minute, both ends included, none of them corrupt: counted
- * independently from the CSV in Python) and cuts that run in two. Screenshots of the step in both
+ * independently from the CSV in Python) and cuts that run in two. A window dragged on the trend is
+ * checked against the rows of the CSV counted here with Date.UTC, independently of the app's reader. Screenshots of the step in both
  * themes at 1280×800 and 1920×1080 go to test-artifacts/screens/.
  */
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { drawnPixels } from './harness/drawnPixels';
 import { startMainThreadProbe, startTaskTrace, stopMainThreadProbe } from './harness/mainThreadProbe';
 import { openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
+
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** "16 Jan 2025 10:00" (the app's list) → seconds since 1970, by Date.UTC. */
+function listedSeconds(text: string): number {
+  const m = /(\d+) (\w{3}) (\d{4}) (\d\d):(\d\d)(?::(\d\d))?/.exec(text);
+  if (!m) throw new Error(`not a listed time: ${text}`);
+  return Date.UTC(Number(m[3]), MONTHS.indexOf(m[2]), Number(m[1]), Number(m[4]), Number(m[5]), Number(m[6] ?? 0)) / 1000;
+}
+
+/** Rows of the heating-historian CSV whose timestamp (dd.mm.yyyy hh:mm:ss) lies in [from, to], by Date.UTC. */
+function csvRowsBetween(fromSeconds: number, toSeconds: number): number {
+  const text = readFileSync(resolve(__dirname, '../../sample-projects/heating-historian/heating-historian.csv'), 'utf8');
+  let rows = 0;
+  for (const line of text.split(/\r?\n/).slice(1)) {
+    const m = /^(\d\d)\.(\d\d)\.(\d{4}) (\d\d):(\d\d):(\d\d);/.exec(line);
+    if (!m) continue;
+    const t = Date.UTC(Number(m[3]), Number(m[2]) - 1, Number(m[1]), Number(m[4]), Number(m[5]), Number(m[6])) / 1000;
+    if (t >= fromSeconds && t <= toSeconds) rows++;
+  }
+  return rows;
+}
+
+/** The page position of a time on the trend, from the plot area the drag layer reports. */
+async function trendPoint(page: Page, seconds: number): Promise<{ x: number; y: number }> {
+  const layer = page.getByTestId('trend-drag');
+  await expect.poll(() => layer.getAttribute('data-plot-area'), POLL).toBeTruthy();
+  const [left, right, atLeft, atRight] = (await layer.getAttribute('data-plot-area'))!.split(' ').map(Number);
+  const box = (await layer.boundingBox())!;
+  return { x: box.x + left + ((seconds - atLeft) / (atRight - atLeft)) * (right - left), y: box.y + box.height / 2 };
+}
+
+/** Press at one time, move to the other in steps, and (unless told not to) release. */
+async function dragTrend(page: Page, fromSeconds: number, toSeconds: number, release = true): Promise<void> {
+  await page.getByTestId('trend-drag').evaluate((e) => e.scrollIntoView({ block: 'center' }));
+  const a = await trendPoint(page, fromSeconds), b = await trendPoint(page, toSeconds);
+  await page.mouse.move(a.x, a.y);
+  await page.mouse.down();
+  await page.mouse.move(b.x, b.y, { steps: 8 });
+  if (release) await page.mouse.up();
+}
 
 describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)', () => {
   let app: LaunchedApp;
@@ -68,6 +114,45 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
     await page.getByTestId('add-window-button').click();
     await expect.poll(() => page.getByTestId('window-problems').innerText(), POLL).toContain('Window 2, To: window 2 ends (13 Jan 2025 09:30) before it starts (13 Jan 2025 10:00)');
     await page.getByTestId('time-windows').getByRole('button', { name: 'Remove' }).nth(1).click();
+    await expect.poll(() => page.getByTestId('window-problems').count(), POLL).toBe(0);
+    await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe('60');
+  });
+
+  it('a drag across the trend shows the span, adds the window to the list and the report, Escape cancels, Ctrl+Z removes it', async () => {
+    const { page } = app;
+    const at = (d: number, h: number, min = 0) => Date.UTC(2025, 0, d, h, min) / 1000;
+    // Escape while the button is held: no window.
+    await dragTrend(page, at(16, 10), at(16, 12), false);
+    await expect.poll(() => page.getByTestId('trend-drag-span').innerText(), POLL).toContain('16 Jan 2025 10:');
+    await expect.poll(() => page.getByTestId('trend-drag-span').innerText(), POLL).toContain('release to leave out, Escape to cancel');
+    await page.keyboard.press('Escape');
+    await expect.poll(() => page.getByTestId('trend-drag-span').count(), POLL).toBe(0);
+    await page.mouse.up();
+    await expect.poll(() => page.getByTestId('time-windows').locator('tbody tr').count(), POLL).toBe(1);
+
+    // Released: the window is in the list with the rows the import left out, counted here from the CSV.
+    await dragTrend(page, at(16, 10), at(16, 12));
+    const row = page.getByTestId('time-windows').locator('tbody tr').nth(1);
+    await expect.poll(() => page.getByTestId('window-rows-1').innerText(), POLL).toMatch(/^[\d,]+$/);
+    const [from, to] = [await row.locator('td').nth(1).innerText(), await row.locator('td').nth(2).innerText()];
+    // Within a rounding step (at most 15 min at this width: a week over about a thousand pixels) of where the drag began.
+    expect(Math.abs(listedSeconds(from) - at(16, 10))).toBeLessThanOrEqual(1800);
+    const rows = csvRowsBetween(listedSeconds(from), listedSeconds(to));
+    expect(rows).toBeGreaterThan(100); // about two hours of one row a minute
+    await expect.poll(() => page.getByTestId('window-rows-1').innerText(), POLL).toBe(String(rows));
+    await expect.poll(() => page.getByTestId('window-runs-1').innerText(), POLL).toBe('1');
+    await expect.poll(() => page.getByTestId('row-counts').innerText(), POLL).toContain(`${(60 + rows).toLocaleString('en-US')} in time windows left out`);
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 1 run for window 2`);
+
+    // Undo takes it away again.
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('time-windows').locator('tbody tr').count(), POLL).toBe(1);
+    await expect.poll(() => page.getByTestId('row-counts').innerText(), POLL).toContain('60 in time windows left out');
+
+    // A drag over the window already there gets the form's overlap message; Ctrl+Z clears it.
+    await dragTrend(page, at(13, 8, 30), at(13, 9, 30));
+    await expect.poll(() => page.getByTestId('window-problems').innerText(), POLL).toContain('window 2 overlaps window “valve test” (data.csv.excludedTimes[0])');
+    await page.keyboard.press('Control+z');
     await expect.poll(() => page.getByTestId('window-problems').count(), POLL).toBe(0);
     await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe('60');
   });

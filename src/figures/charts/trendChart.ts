@@ -49,7 +49,8 @@ export const TREND_GAP_STEPS = 3;
 /**
  * The envelope as a line: (t, lo), (t, hi) per group; a gap where a group has no readable value
  * and where the log stops (a step over TREND_GAP_STEPS × the median step), so no straight line is
- * drawn across an overnight stop as if the plant had been logged there.
+ * drawn across an overnight stop as if the plant had been logged there; and where the clock steps
+ * back (each run on its own run time), so the runs are drawn over one another, not joined.
  */
 export function envelopePoints(time: Float64Array, signal: TrendSignal): XY[] {
   const gap = TREND_GAP_STEPS * medianStep(time);
@@ -59,6 +60,7 @@ export function envelopePoints(time: Float64Array, signal: TrendSignal): XY[] {
     const lo = signal.lo[g], hi = signal.hi[g], x = time[g];
     if (Number.isNaN(x)) continue;
     if (x - previous > gap) points.push({ x: (x + previous) / 2, y: null });
+    else if (x < previous) points.push({ x, y: null }); // the clock started again (a new run on run time): no line drawn back
     previous = x;
     if (Number.isNaN(lo)) { points.push({ x, y: null }); continue; }
     points.push({ x, y: lo });

@@ -83,6 +83,8 @@ export function TrendWindowDrag({ frame, calendar, everyRun, onAdd, children }: 
   return (
     <div
       ref={boxRef} style={{ position: 'relative', cursor: frame ? 'col-resize' : undefined, touchAction: 'pan-y' }} data-testid="trend-drag"
+      // The plot area and the times at its edges, for checks that drag to a given time.
+      data-plot-area={frame ? [frame.left, frame.right, frame.xAtLeft, frame.xAtRight].join(' ') : undefined}
       onPointerDown={onPointerDown} onPointerMove={onPointerMove} onPointerUp={onPointerUp}
       onPointerCancel={end} onLostPointerCapture={() => setDrag(null)} onMouseMoveCapture={swallow} onClickCapture={swallow}
     >
