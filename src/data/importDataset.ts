@@ -138,7 +138,7 @@ function assemble(s: Stages): Result<ImportedDataset> {
     actionNames: columns.actions.map((c) => c.column),
   });
   if (transitions.count === 0) {
-    return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every episode has a single usable row; expected consecutive rows of the same episode (or next-state columns)'));
+    return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every run has a single usable row; expected consecutive rows of the same run (or next-state columns)'));
   }
   const summary = summarise(s, kept, transitions, derivedValues, usedRows);
   const excluded = excludedRows(s.problems, lineOf);
@@ -166,11 +166,11 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const { values, firstRowUndefined } = computeDerivedStates(used, {
     kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds,
   });
-  const report = [`Derived states computed along each episode: ${used.map((d) => `${d.name} (${DERIVED_WORDS[d.kind]})`).join(', ')}.`];
+  const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${DERIVED_WORDS[d.kind]})`).join(', ')}.`];
   if (firstRowUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
   const { kept, removed } = withoutFirstRows(inputs.kept, episodes.episodeOf);
   const names = [...firstRowUndefined].join(', ');
-  report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each episode only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
+  report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each run only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
   // The first row where every derived state is defined is the run's start: a run whose own first row
   // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
   const again = assignEpisodes(s.columns.episode, { ...inputs, kept });

@@ -13,7 +13,7 @@ const BASE_ROLES: { value: ColumnRole; label: string }[] = [
   { value: 'action', label: 'Action' },
   { value: 'reward', label: 'Reward (higher is better)' },
   { value: 'cost', label: 'Cost (lower is better)' },
-  { value: 'episode', label: 'Run or batch label (episode)' },
+  { value: 'episode', label: 'Run or batch label' },
   { value: 'timestamp', label: 'Timestamp (runs split at gaps)' },
   { value: 'terminal', label: 'End-of-run flag (1 = the run ends here)' },
 ];
