@@ -27,6 +27,14 @@ function listedSeconds(text: string): number {
   return Date.UTC(Number(m[3]), MONTHS.indexOf(m[2]), Number(m[1]), Number(m[4]), Number(m[5]), Number(m[6] ?? 0)) / 1000;
 }
 
+/** "10 min", "9 min 30 s", "45 s", "0 s" (the app's list on an elapsed clock) → seconds. */
+function durationSeconds(text: string): number {
+  const units: Record<string, number> = { d: 86400, h: 3600, min: 60, s: 1 };
+  let total = 0;
+  for (const [, n, unit] of text.matchAll(/([\d.]+) (d|h|min|s)\b/g)) total += Number(n) * units[unit];
+  return total;
+}
+
 /** Rows of the heating-historian CSV whose timestamp (dd.mm.yyyy hh:mm:ss) lies in [from, to], by Date.UTC. */
 function csvRowsBetween(fromSeconds: number, toSeconds: number): number {
   const text = readFileSync(resolve(__dirname, '../../sample-projects/heating-historian/heating-historian.csv'), 'utf8');
@@ -185,6 +193,48 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
         await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-trend-panel-${theme}-${size.width}.png` });
       }
     }
+    expect(app.consoleErrors).toEqual([]);
+  });
+});
+
+/**
+ * A clock that starts again in each run: the heating-loop sample (invented data: 40 runs of 500
+ * rows, one a minute, time_s counting from 0 in every run). Given time_s as its timestamp beside the
+ * run label, the step says where a window is added that a window is run time; a drag over the first
+ * minutes of the trend takes those minutes from all 40 runs (rows counted here from the CSV).
+ */
+describe('the Plant log step on a clock that restarts in each run (e2e)', () => {
+  let app: LaunchedApp;
+
+  beforeAll(async () => {
+    app = await launchApp({ viewport: { width: 1280, height: 800 } });
+    await openSample(app, 'heating-loop');
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('says a window is run time where it is added, and a drag leaves out the same minutes of every run', async () => {
+    const { page } = app;
+    await page.getByTestId('role-time_s').selectOption('timestamp');
+    await expect.poll(() => page.getByTestId('every-run-note').innerText(), POLL).toContain('clock starts again in each run');
+    await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('40');
+    await dragTrend(page, 0, 600, false);
+    await expect.poll(() => page.getByTestId('trend-drag-span').innerText(), POLL).toContain('in every run');
+    await page.mouse.up();
+    const row = page.getByTestId('time-windows').locator('tbody tr').first();
+    await expect.poll(() => page.getByTestId('window-runs-0').innerText(), POLL).toBe('40');
+    const seconds = async (k: number) => durationSeconds(await row.locator('td').nth(k).innerText());
+    const [from, to] = [await seconds(1), await seconds(2)];
+    expect(from).toBe(0);
+    expect(Math.abs(to - 600)).toBeLessThanOrEqual(60); // within a rounding step of where the drag ended
+    const text = readFileSync(resolve(__dirname, '../../sample-projects/heating-loop/heating-loop.csv'), 'utf8');
+    const rows = text.split(/\r?\n/).slice(1).filter((line) => line && Number(line.split(',')[1]) >= from && Number(line.split(',')[1]) <= to).length;
+    await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe(rows.toLocaleString('en-US'));
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 40 runs for window 1`);
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain('This log’s clock starts again in each run');
+    await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
+    await page.getByTestId('trend-panel').screenshot({ path: 'test-artifacts/screens/plant-log-run-time-window.png' });
     expect(app.consoleErrors).toEqual([]);
   });
 });

@@ -37,7 +37,7 @@ export function TrendPanel() {
   const spec = useMemo<PlotSpec | null>(() => imported && {
     kind: 'trend',
     props: {
-      trend: imported.trend, theme, title: 'Logged signals over time',
+      trend: imported.trend, theme, title: 'Logged signals over time', runTime: (imported.clock?.runRestarts ?? 0) > 0,
       windows: imported.timeWindows.map((w) => ({ fromSeconds: w.fromSeconds, toSeconds: w.toSeconds, label: w.reason })),
     },
   }, [imported, theme]);
