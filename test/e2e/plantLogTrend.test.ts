@@ -152,7 +152,12 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
     await expect.poll(() => page.getByTestId('row-counts').innerText(), POLL).toContain(`${(60 + rows).toLocaleString('en-US')} in time windows left out`);
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 1 run for window 2`);
 
-    // Undo takes it away again.
+    // A dragged window gets its reason in the list (one undo step); two undos take the reason and then the window away.
+    await page.getByTestId('window-reason-1').fill('trial of a new valve');
+    await page.getByTestId('window-reason-1').press('Tab');
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 1 run for trial of a new valve`);
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('window-reason-1').inputValue(), POLL).toBe('');
     await page.keyboard.press('Control+z');
     await expect.poll(() => page.getByTestId('time-windows').locator('tbody tr').count(), POLL).toBe(1);
     await expect.poll(() => page.getByTestId('row-counts').innerText(), POLL).toContain('60 in time windows left out');

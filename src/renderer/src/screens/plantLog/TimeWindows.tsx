@@ -39,6 +39,10 @@ export function TimeWindows({ imported }: { imported: DataImport }) {
   const addWindow = useAddWindow();
   const windows = useDocument().data.csv.excludedTimes ?? [];
   const clock = imported.clock;
+  // Typing a reason is one undo step per window (merged until the field is left); the shading's label follows on the next import.
+  const setReason = (i: number, reason: string): void => documents.edit(`name time window ${i + 1}`, (d) => ({
+    ...d, data: { ...d.data, csv: { ...d.data.csv, excludedTimes: (d.data.csv.excludedTimes ?? []).map((x, k) => (k === i ? { ...x, reason } : x)) } },
+  }), `window-reason-${i}`);
   const remove = (i: number): void => documents.edit('remove a time window left out', (d) => ({
     ...d, data: { ...d.data, csv: { ...d.data.csv, excludedTimes: (d.data.csv.excludedTimes ?? []).filter((_, k) => k !== i) } },
   }));
@@ -61,7 +65,12 @@ export function TimeWindows({ imported }: { imported: DataImport }) {
                 const c = counted[i];
                 return (
                   <tr key={i}>
-                    <td>{w.reason || '—'}</td>
+                    <td>
+                      <input
+                        aria-label={`Reason for window ${i + 1}`} data-testid={`window-reason-${i}`} value={w.reason} placeholder="e.g. valve test" size={14}
+                        onChange={(e) => setReason(i, e.target.value)} onBlur={documents.closeStep}
+                      />
+                    </td>
                     <td>{endText(w.from, c?.fromSeconds, clock.calendar)}</td>
                     <td>{endText(w.to, c?.toSeconds, clock.calendar)}</td>
                     <td className="number">{c ? durationText(c.toSeconds - c.fromSeconds) : '—'}</td>
