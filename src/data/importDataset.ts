@@ -148,7 +148,7 @@ function assemble(s: Stages): Result<ImportedDataset> {
     ...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding),
     ...windowReport(timeWindows, s.clock ?? { calendar: false, runRestarts: 0 }), ...episodes.report, ...derived.report, ...report,
   ];
-  const trend = trendOfImport(columns, table.numbers, s.rewards, s.timestamps?.seconds, table.recordCount, lineOf);
+  const trend = trendOfImport(columns, table.numbers, s.rewards, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
   return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
 }
 

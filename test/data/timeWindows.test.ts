@@ -119,6 +119,12 @@ describe('a time window on a clock that starts again in each run', () => {
     expect(report).toContain('This log’s clock starts again in each run, so a time window is run time');
   });
 
+  it('draws the runs over one another: the trend keeps more groups (here every row: 18 rows, far under the limit) and its clock steps back at each run', () => {
+    const v = runTime([]);
+    expect(v.trend.rowsPerGroup).toBe(1);
+    expect(Array.from(v.trend.time.slice(4, 8))).toEqual([40, 50, 0, 10]);
+  });
+
   it('[20 s, 30 s] inside every run: 6 rows from 3 runs, each run cut in two', () => {
     const v = runTime([{ from: 20, to: 30, reason: 'test' }]);
     expect(v.timeWindows.map((w) => [w.rows, w.runs])).toEqual([[6, 3]]);
