@@ -139,9 +139,16 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
     await expect.poll(() => page.getByTestId('time-windows').locator('tbody tr').count(), POLL).toBe(1);
 
     // Released: the window is in the list with the rows the import left out, counted here from the CSV.
+    await page.evaluate(startMainThreadProbe);
+    const trace = await startTaskTrace(page);
     await dragTrend(page, at(16, 10), at(16, 12));
     const row = page.getByTestId('time-windows').locator('tbody tr').nth(1);
     await expect.poll(() => page.getByTestId('window-rows-1').innerText(), POLL).toMatch(/^[\d,]+$/);
+    await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
+    const probe = await page.evaluate(stopMainThreadProbe), cpu = await trace.stop();
+    // Printed, not asserted (speed is never asserted in a test).
+    console.log(`main thread while a window is dragged, imported and the trend redrawn: longest task ${probe.longestTaskMs.toFixed(0)} ms (Long Tasks API), ${probe.longTasks} over 50 ms; `
+      + `trace: longest ${cpu.longestWallMs.toFixed(0)} ms wall, ${cpu.longestCpuMs.toFixed(0)} ms CPU, ${cpu.tasksOver50CpuMs} of ${cpu.tasks} tasks over 50 ms CPU`);
     const [from, to] = [await row.locator('td').nth(1).innerText(), await row.locator('td').nth(2).innerText()];
     // Within a rounding step (at most 15 min at this width: a week over about a thousand pixels) of where the drag began.
     expect(Math.abs(listedSeconds(from) - at(16, 10))).toBeLessThanOrEqual(1800);
