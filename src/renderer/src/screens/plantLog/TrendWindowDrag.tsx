@@ -102,8 +102,9 @@ function DragSpan({ drag, calendar, everyRun }: { drag: Drag; calendar: boolean;
     ? `${clockText(span.fromSeconds, calendar)} to ${clockText(span.toSeconds, calendar)} (${durationText(span.toSeconds - span.fromSeconds)})${everyRun ? ' in every run' : ''} — release to leave out, Escape to cancel`
     : 'Drag across the time axis to leave out a window; Escape cancels';
   return (
-    <div className="trend-drag-span" data-testid="trend-drag-span" style={{ left, width: Math.max(1, right - left), top: frame.top, height: frame.bottom - frame.top }}>
-      <span className="trend-drag-label" role="status" style={labelSide(frame, left, right)}>{text}</span>
+    // Pointer feedback only (it changes with every move, so it is not announced); the list below says what was added.
+    <div className="trend-drag-span" data-testid="trend-drag-span" aria-hidden="true" style={{ left, width: Math.max(1, right - left), top: frame.top, height: frame.bottom - frame.top }}>
+      <span className="trend-drag-label" style={labelSide(frame, left, right)}>{text}</span>
     </div>
   );
 }
