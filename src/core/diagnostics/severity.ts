@@ -108,8 +108,8 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
-    message: `Importance weights at step ${step}: effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} episodes ` +
-      `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): the importance-sampling cross-checks rest on a few episodes.`,
+    message: `Importance weights at step ${step}: effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} runs ` +
+      `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): the importance-sampling cross-checks rest on a few runs.`,
   };
 }
 
