@@ -64,6 +64,8 @@ async function dragTrend(page: Page, fromSeconds: number, toSeconds: number, rel
   await page.mouse.move(a.x, a.y);
   await page.mouse.down();
   await page.mouse.move(b.x, b.y, { steps: 8 });
+  // The span is on screen before the release, as a person sees it before letting go.
+  await expect.poll(() => page.getByTestId('trend-drag-span').count(), POLL).toBe(1);
   if (release) await page.mouse.up();
 }
 

@@ -33,29 +33,37 @@ interface TrendWindowDragProps {
 const inside = (f: PlotFrame, x: number, y: number): boolean => x >= f.left && x <= f.right && y >= f.top && y <= f.bottom;
 
 export function TrendWindowDrag({ frame, calendar, everyRun, onAdd, children }: TrendWindowDragProps) {
-  const [drag, setDrag] = useState<Drag | null>(null);
+  // The drag lives in a ref, read by every pointer event as it arrives (no event waits for a render
+  // to see the press), and is mirrored into state only to draw the span.
+  const [drag, setDragState] = useState<Drag | null>(null);
+  const dragRef = useRef<Drag | null>(null);
   const boxRef = useRef<HTMLDivElement>(null);
   const justDragged = useRef(false);
+  const setDrag = (next: Drag | null): void => {
+    dragRef.current = next;
+    setDragState(next);
+  };
   const at = (event: PointerEvent): { x: number; y: number } => {
     const r = boxRef.current!.getBoundingClientRect();
     return { x: event.clientX - r.left, y: event.clientY - r.top };
   };
-  const end = (event: PointerEvent | null): void => {
-    if (event && boxRef.current?.hasPointerCapture(event.pointerId)) boxRef.current.releasePointerCapture(event.pointerId);
+  const cancel = (): void => {
+    const current = dragRef.current;
+    if (current && boxRef.current?.hasPointerCapture(current.pointerId)) boxRef.current.releasePointerCapture(current.pointerId);
     setDrag(null);
   };
 
+  const dragging = drag !== null;
   useEffect(() => {
-    if (!drag) return;
+    if (!dragging) return;
     const onKey = (event: KeyboardEvent): void => {
       if (event.key !== 'Escape') return;
       event.preventDefault();
-      if (boxRef.current?.hasPointerCapture(drag.pointerId)) boxRef.current.releasePointerCapture(drag.pointerId);
-      setDrag(null);
+      cancel();
     };
     window.addEventListener('keydown', onKey, true);
     return () => window.removeEventListener('keydown', onKey, true);
-  }, [drag]);
+  }, [dragging]); // cancel reads refs only, so the listener never goes stale
 
   const onPointerDown = (event: PointerEvent): void => {
     const p = at(event);
@@ -65,18 +73,25 @@ export function TrendWindowDrag({ frame, calendar, everyRun, onAdd, children }: 
     setDrag({ frame, pointerId: event.pointerId, startPx: p.x, endPx: p.x });
   };
   const onPointerMove = (event: PointerEvent): void => {
-    if (drag?.pointerId === event.pointerId) setDrag({ ...drag, endPx: clampToFrame(drag.frame, at(event).x) });
+    const current = dragRef.current;
+    if (current?.pointerId === event.pointerId) setDrag({ ...current, endPx: clampToFrame(current.frame, at(event).x) });
   };
   const onPointerUp = (event: PointerEvent): void => {
-    if (drag?.pointerId !== event.pointerId) return;
-    const span = draggedSpan(drag.frame, drag.startPx, at(event).x);
-    end(event);
+    const current = dragRef.current;
+    if (current?.pointerId !== event.pointerId) return;
+    const span = draggedSpan(current.frame, current.startPx, at(event).x);
+    cancel();
     justDragged.current = span !== null;
     if (span) onAdd(span);
   };
+  // Capture taken away (the window lost focus, the element went): the drag ends. A late notice of an
+  // earlier release is ignored while this drag still holds the capture.
+  const loseCapture = (event: PointerEvent): void => {
+    if (dragRef.current?.pointerId === event.pointerId && !boxRef.current?.hasPointerCapture(event.pointerId)) setDrag(null);
+  };
   // While dragging, the figure's tooltip does not follow the pointer, and the release is not also a click on the chart.
   const swallow = (event: SyntheticEvent): void => {
-    if (drag || justDragged.current) event.stopPropagation();
+    if (dragRef.current || justDragged.current) event.stopPropagation();
     if (event.type === 'click') justDragged.current = false;
   };
 
@@ -86,7 +101,7 @@ export function TrendWindowDrag({ frame, calendar, everyRun, onAdd, children }: 
       // The plot area and the times at its edges, for checks that drag to a given time.
       data-plot-area={frame ? [frame.left, frame.right, frame.xAtLeft, frame.xAtRight].join(' ') : undefined}
       onPointerDown={onPointerDown} onPointerMove={onPointerMove} onPointerUp={onPointerUp}
-      onPointerCancel={end} onLostPointerCapture={() => setDrag(null)} onMouseMoveCapture={swallow} onClickCapture={swallow}
+      onPointerCancel={cancel} onLostPointerCapture={loseCapture} onMouseMoveCapture={swallow} onClickCapture={swallow}
     >
       {children}
       {drag && <DragSpan drag={drag} calendar={calendar} everyRun={everyRun} />}
