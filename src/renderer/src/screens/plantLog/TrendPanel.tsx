@@ -43,7 +43,9 @@ export function TrendPanel() {
   }, [imported, theme]);
   if (!imported || !spec) return null;
   const clock = imported.clock;
-  const figure = <PlotFigure spec={spec} testId="plot-trend" onFrame={setFrame} />;
+  // The last drawn plot area is kept while the trend is drawn again (each import redraws it over
+  // the same time axis), so a press at that moment is not lost.
+  const figure = <PlotFigure spec={spec} testId="plot-trend" onFrame={(f) => { if (f) setFrame(f); }} />;
   return (
     <section className="panel" aria-labelledby="trend-heading" aria-busy={importing} data-testid="trend-panel">
       <h3 id="trend-heading">Trend of the logged signals</h3>

@@ -97,7 +97,7 @@ export function TrendWindowDrag({ frame, calendar, everyRun, onAdd, children }: 
 
   return (
     <div
-      ref={boxRef} style={{ position: 'relative', cursor: frame ? 'col-resize' : undefined, touchAction: 'pan-y' }} data-testid="trend-drag"
+      ref={boxRef} style={{ position: 'relative', overflow: 'hidden', cursor: frame ? 'col-resize' : undefined, touchAction: 'pan-y' }} data-testid="trend-drag"
       // The plot area and the times at its edges, for checks that drag to a given time.
       data-plot-area={frame ? [frame.left, frame.right, frame.xAtLeft, frame.xAtRight].join(' ') : undefined}
       onPointerDown={onPointerDown} onPointerMove={onPointerMove} onPointerUp={onPointerUp}
@@ -124,7 +124,14 @@ function DragSpan({ drag, calendar, everyRun }: { drag: Drag; calendar: boolean;
   );
 }
 
-/** The label goes beside the span on the side with more room, so it stays on the plot. */
-function labelSide(frame: PlotFrame, left: number, right: number): { left?: number; right?: number } {
-  return left - frame.left > frame.right - right ? { right: right - left + 4 } : { left: right - left + 4 };
+/**
+ * The label goes beside the span on the side with more room and wraps to that room, so it stays on
+ * the plot: nothing of the drag may reach past the figure, or the page would gain a scroll bar,
+ * the figure a new width and the chart a redraw in the middle of the drag.
+ */
+function labelSide(frame: PlotFrame, left: number, right: number): { left?: number; right?: number; maxWidth: number } {
+  const roomLeft = left - frame.left, roomRight = frame.right - right;
+  return roomLeft > roomRight
+    ? { right: right - left + 4, maxWidth: Math.max(120, roomLeft - 8) }
+    : { left: right - left + 4, maxWidth: Math.max(120, roomRight - 8) };
 }
