@@ -7,7 +7,7 @@ const LISTED_EXCLUSIONS = 20;
 export function formatImport(imported: ImportedDataset, dataPath: string): string {
   const s = imported.summary;
   const lines = [
-    `Data: ${dataPath} — ${s.rowCount.toLocaleString('en-US')} rows, ${s.transitionCount.toLocaleString('en-US')} transitions, ${s.episodeCount} episodes.`,
+    `Data: ${dataPath} — ${s.rowCount.toLocaleString('en-US')} rows, ${s.transitionCount.toLocaleString('en-US')} transitions, ${s.episodeCount} runs.`,
     ...imported.episodeReport.map((sentence) => `  ${sentence}`),
   ];
   if (imported.excluded.length > 0) {

@@ -28,7 +28,7 @@ Options:
   --json            write one JSON object to stdout instead of the readable table (evaluate)
   --out <file>      where to write the report (default: <project>-report.html in this folder);
                     never the project file or its data file
-  --resamples <N>   bootstrap resamples of the episodes (default: the project's, else 1000)
+  --resamples <N>   bootstrap resamples of the runs (default: the project's, else 1000)
   --level <L>       confidence level of the intervals (default: the project's, else 0.9)
   --help            show this text
 

@@ -41,7 +41,7 @@ export function createTerminalProgress(stream: NodeJS.WriteStream = process.stde
       line(`Fitting ${p.candidate} (${p.candidateIndex + 1} of ${p.candidateCount}): ${what}`, p.iteration === null && p.dataPass === null);
     },
     assessment(p) {
-      line(p.stage === 'resampling' ? `Resampling episodes: ${p.done} of ${p.total}` : p.stage === 'sensitivity' ? 'Sensitivity to the settings…' : 'Preparing the assessment…', p.done === 0);
+      line(p.stage === 'resampling' ? `Resampling runs: ${p.done} of ${p.total}` : p.stage === 'sensitivity' ? 'Sensitivity to the settings…' : 'Preparing the assessment…', p.done === 0);
     },
     cancelled: () => stop,
     done() {

@@ -47,10 +47,10 @@ export function planColumns(header: readonly string[], roles: ColumnRoles, fileN
   roles.actions.forEach((a, i) => use(a.column, 'number', 'action', `action ${i + 1}`));
   const rewardExpression = planReward(roles, header, fileName, use, problems, decimalMark);
   planNextState(roles, use, problems, fileName);
-  if (roles.episode.kind === 'column') use(roles.episode.column, 'label', 'episode', 'episode column');
+  if (roles.episode.kind === 'column') use(roles.episode.column, 'label', 'run', 'run column');
   const timestamp = timestampColumnOf(roles);
-  if (timestamp !== undefined) use(timestamp, 'timestamp', 'timestamp', roles.episode.kind === 'timeGap' ? 'timestamp column for episodes' : 'timestamp column');
-  if (roles.terminal !== undefined) use(roles.terminal, 'flag', 'terminal', 'terminal column');
+  if (timestamp !== undefined) use(timestamp, 'timestamp', 'timestamp', roles.episode.kind === 'timeGap' ? 'timestamp column for runs' : 'timestamp column');
+  if (roles.terminal !== undefined) use(roles.terminal, 'flag', 'end of run', 'end-of-run column');
   if (problems.length > 0) return { problems };
   return { plan: { requests: [...requests.values()], rewardExpression, roles: used, warnings: duplicateWarnings(fields, used, where) }, problems };
 }

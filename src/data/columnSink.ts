@@ -83,7 +83,7 @@ export class ColumnSink {
     }
     const label = end - start > LABEL_BYTES ? '' : cellText(bytes, start, end, escaped).trim();
     if (label === '') {
-      const reason = end - start > LABEL_BYTES ? `the episode cell holds ${end - start} characters; expected a short episode identifier` : 'the episode cell is empty; expected an episode identifier';
+      const reason = end - start > LABEL_BYTES ? `the run label cell holds ${end - start} characters; expected a short run or batch label` : 'the run label cell is empty; expected a run or batch label';
       problems.add(record, this.request.name, 'empty-episode', reason);
       this.values[record] = -1;
       this.previousLabel = { start: 0, end: -1, code: -1 };

@@ -61,9 +61,9 @@ export function assignEpisodes(rule: ColumnRoles['episode'], inputs: EpisodeInpu
   const hasStart = Uint8Array.from(firstRows, (r) => (startIsFirstRow(r, startsNew, inputs) ? 1 : 0));
   const report = [...startsNew.report(episode + 1)];
   if (terminalCuts > 0) {
-    report.push(`${terminalCuts} terminal row${terminalCuts === 1 ? '' : 's'} ended an episode before the episode rule did; the following row starts a new episode.`);
+    report.push(`${plural(terminalCuts, 'end-of-run flag')} ended a run before the run rule did; the following row starts a new run.`);
   }
-  if (windowCuts > 0) report.push(`${plural(windowCuts, 'run')} cut in two by a time window left out (one more episode each).`);
+  if (windowCuts > 0) report.push(`${plural(windowCuts, 'run')} cut in two by a time window left out (one more run each).`);
   report.push(...lostStartReport(hasStart, firstRows, inputs.lineOf));
   return { episodeOf, episodeCount: episode + 1, hasStart, report };
 }
@@ -93,7 +93,15 @@ function lostStartReport(hasStart: Uint8Array, firstRows: readonly number[], lin
   const one = lost.length === 1;
   const listed = lost.slice(0, LISTED).join(', ') + (lost.length > LISTED ? ` and ${formatCount(lost.length - LISTED)} more` : '');
   const kept = hasStart.length - lost.length;
-  return [`${plural(lost.length, 'episode')} lost ${one ? 'its' : 'their'} first row to exclusion, so ${one ? 'its' : 'their'} first usable row (line${one ? '' : 's'} ${listed}) is mid-episode and not a start state; the start states are the first rows of the other ${plural(kept, 'episode')}.`];
+  return [`${plural(lost.length, 'run')} lost ${one ? 'its' : 'their'} first row to exclusion, so ${one ? 'its' : 'their'} first usable row (line${one ? '' : 's'} ${listed}) is mid-run and not a start state; the start states are the first rows of the other ${plural(kept, 'run')}.`];
+}
+
+/**
+ * Whether record q (before r) lies in another run than r by the run rule alone (the run column, a
+ * stop in the timestamps), for counting the runs a time window takes rows from (timeWindows.ts).
+ */
+export function runsApart(rule: ColumnRoles['episode'], inputs: EpisodeInputs): (q: number, r: number) => boolean {
+  return boundaryRule(rule, inputs).apart;
 }
 
 interface BoundaryRule {
@@ -107,7 +115,7 @@ interface BoundaryRule {
 function boundaryRule(rule: ColumnRoles['episode'], inputs: EpisodeInputs): BoundaryRule {
   if (rule.kind === 'column') return labelRule(rule.column, inputs.labels!, inputs.lineOf);
   if (rule.kind === 'timeGap') return gapRule(rule.column, rule.maxGapSeconds, inputs);
-  return { cut: () => false, apart: () => false, report: (count) => [`One episode for the whole file${count > 1 ? `, cut into ${count} by terminal rows` : ''}.`] };
+  return { cut: () => false, apart: () => false, report: (count) => [`One run for the whole file${count > 1 ? `, cut into ${count} by end-of-run flags` : ''}.`] };
 }
 
 function labelRule(column: string, labels: { codes: Float64Array; values: string[] }, lineOf: (r: number) => number): BoundaryRule {
@@ -127,11 +135,11 @@ function labelRule(column: string, labels: { codes: Float64Array; values: string
     },
     apart: (q, r) => labels.codes[q] >= 0 && labels.codes[q] !== labels.codes[r],
     report(count) {
-      const lines = [`Episodes from column ${column}: ${formatCount(count)} episode${count === 1 ? '' : 's'} (a new episode wherever the value changes).`];
+      const lines = [`Runs from column ${column}: ${formatCount(count)} run${count === 1 ? '' : 's'} (a new run wherever the value changes).`];
       if (reappearCount > 0) {
         const more = reappearCount > LISTED ? ` and ${reappearCount - LISTED} more` : '';
         const one = reappearCount === 1;
-        lines.push(`${plural(reappearCount, 'value')} of ${column} ${one ? 'reappears' : 'reappear'} after other values and ${one ? 'starts' : 'start'} a new episode there: ${reappearing.join(', ')}${more}.`);
+        lines.push(`${plural(reappearCount, 'value')} of ${column} ${one ? 'reappears' : 'reappear'} after other values and ${one ? 'starts' : 'start'} a new run there: ${reappearing.join(', ')}${more}.`);
       }
       return lines;
     },
@@ -151,9 +159,9 @@ function gapRule(column: string, maxGapSeconds: number | undefined, inputs: Epis
     },
     apart: (q, r) => t[r] - t[q] > limit,
     report(count) {
-      if (Number.isNaN(limit)) return [`Episodes from timestamp gaps in column ${column}: no two adjacent rows have increasing timestamps, so the sampling period is unknown and the file is one episode${count > 1 ? ` (cut into ${count} by terminal rows)` : ''}.`];
+      if (Number.isNaN(limit)) return [`Runs from timestamp gaps in column ${column}: no two adjacent rows have increasing timestamps, so the sampling period is unknown and the file is one run${count > 1 ? ` (cut into ${count} by end-of-run flags)` : ''}.`];
       const why = maxGapSeconds === undefined ? `3 × the median sampling period of ${formatSeconds(periodSeconds)}` : 'as set';
-      return [`Episodes from timestamp gaps in column ${column}: a step longer than ${formatSeconds(limit)} (${why}) starts a new episode; ${formatCount(gaps)} gap${gaps === 1 ? '' : 's'} → ${formatCount(count)} episode${count === 1 ? '' : 's'}.`];
+      return [`Runs from timestamp gaps in column ${column}: a step longer than ${formatSeconds(limit)} (${why}) starts a new run; ${formatCount(gaps)} gap${gaps === 1 ? '' : 's'} → ${formatCount(count)} run${count === 1 ? '' : 's'}.`];
     },
   };
 }

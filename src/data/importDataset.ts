@@ -21,7 +21,7 @@ import { readColumns, type TableColumns } from './columnReader';
 import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
 import { rewardColumn } from './rewardColumn';
-import { assignEpisodes, medianStepSeconds, type EpisodeAssignment, type EpisodeInputs } from './episodes';
+import { assignEpisodes, medianStepSeconds, runsApart, type EpisodeAssignment, type EpisodeInputs } from './episodes';
 import { computeDerivedStates, withoutFirstRows } from './derivedStates';
 import { plural } from './reportFormat';
 import { buildTransitions } from './transitionBuilder';
@@ -75,11 +75,11 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
     return failure(importProblem('header-only', `${fileName}, line 2`, 'the file has a header line but no data rows below it'));
   }
   const timestamps = settleTimestampColumn(columns, table, problems);
-  const clock = timestamps && logClock(timestamps.seconds);
+  const episodeCodes = columns.episode.kind === 'column' ? table.labels.get(columns.episode.column)?.codes : undefined;
+  const clock = timestamps && logClock(timestamps.seconds, episodeCodes);
   const read = readTimeWindows(csv.excludedTimes ?? [], timestamps?.column, timestamps?.decision.order ?? 'dayFirst', clock);
   if (read.problems.length > 0) return failure(...read.problems);
   const rewards = rewardColumn(columns.reward, plan.rewardExpression, table.numbers, table.recordCount, problems);
-  const episodeCodes = columns.episode.kind === 'column' ? table.labels.get(columns.episode.column)?.codes : undefined;
   if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf, episodeCodes);
   // A row in a time window left out is not a bad row: its problems neither stop the import nor list it twice.
   const inWindow = recordsInWindows(read.windows, timestamps?.seconds, table.recordCount);
@@ -138,18 +138,17 @@ function assemble(s: Stages): Result<ImportedDataset> {
     actionNames: columns.actions.map((c) => c.column),
   });
   if (transitions.count === 0) {
-    return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every episode has a single usable row; expected consecutive rows of the same episode (or next-state columns)'));
+    return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every run has a single usable row; expected consecutive rows of the same run (or next-state columns)'));
   }
   const summary = summarise(s, kept, transitions, derivedValues, usedRows);
   const excluded = excludedRows(s.problems, lineOf);
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
-  const timeWindows = leftOutWindows(s.windows, s.inWindow);
-  const calendar = s.clock?.calendar ?? false;
+  const timeWindows = leftOutWindows(s.windows, s.inWindow, kept, s.windows.length > 0 ? runsApart(columns.episode, episodeInputs) : undefined);
   const episodeReport = [
     ...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding),
-    ...windowReport(timeWindows, calendar), ...episodes.report, ...derived.report, ...report,
+    ...windowReport(timeWindows, s.clock ?? { calendar: false, runRestarts: 0 }), ...episodes.report, ...derived.report, ...report,
   ];
-  const trend = trendOfImport(columns, table.numbers, s.rewards, s.timestamps?.seconds, table.recordCount, lineOf);
+  const trend = trendOfImport(columns, table.numbers, s.rewards, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
   return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
 }
 
@@ -167,11 +166,11 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const { values, firstRowUndefined } = computeDerivedStates(used, {
     kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds,
   });
-  const report = [`Derived states computed along each episode: ${used.map((d) => `${d.name} (${DERIVED_WORDS[d.kind]})`).join(', ')}.`];
+  const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${DERIVED_WORDS[d.kind]})`).join(', ')}.`];
   if (firstRowUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
   const { kept, removed } = withoutFirstRows(inputs.kept, episodes.episodeOf);
   const names = [...firstRowUndefined].join(', ');
-  report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each episode only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
+  report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each run only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
   // The first row where every derived state is defined is the run's start: a run whose own first row
   // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
   const again = assignEpisodes(s.columns.episode, { ...inputs, kept });

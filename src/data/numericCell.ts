@@ -85,5 +85,5 @@ export function readFlag(text: string): CellReading {
   const cell = text.trim().toLowerCase();
   if (TRUE_WORDS.has(cell)) return { ok: true, value: 1 };
   if (FALSE_WORDS.has(cell)) return { ok: true, value: 0 };
-  return { ok: false, kind: 'bad-flag', reason: `"${shorten(text.trim())}" is not a terminal flag; expected 1 or 0 (or true/false, yes/no, or empty for 0)` };
+  return { ok: false, kind: 'bad-flag', reason: `"${shorten(text.trim())}" is not an end-of-run flag; expected 1 or 0 (or true/false, yes/no, or empty for 0)` };
 }

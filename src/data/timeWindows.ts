@@ -9,6 +9,11 @@
  * A window stops the import with a problem naming its field when it cannot be read, ends before
  * it starts, lies wholly outside the log, or overlaps another window; and every window needs a
  * timestamp column.
+ *
+ * When the clock starts again in each run (a run column, and the time steps back where the run
+ * changes: each run's own elapsed time), a window is a stretch of that run-relative time and takes
+ * rows from every run that reaches it — 0 to 600 s leaves out the first ten minutes of each run.
+ * The import report says so, and counts per window the runs it touched as well as its rows.
  */
 import type { ExcludedTime } from '../project/schema';
 import { clockText, durationText, isCalendarClock } from '../core/clockText';
@@ -23,9 +28,11 @@ export interface TimeWindow {
   readonly reason: string;
 }
 
-/** A window with the rows it left out, for the import report. */
+/** A window with the rows it left out and the runs those rows were in, for the import report. */
 export interface LeftOutWindow extends TimeWindow {
   readonly rows: number;
+  /** Runs the window took rows from: stretches of its rows not broken by a used row or a run boundary. */
+  readonly runs: number;
 }
 
 /** The log's clock: its first and last readable timestamp, in seconds, and whether they are dates. */
@@ -33,16 +40,26 @@ export interface LogClock {
   readonly firstSeconds: number;
   readonly lastSeconds: number;
   readonly calendar: boolean;
+  /** Times the clock stepped back where the run column changed: more than 0 when each run keeps its own time. */
+  readonly runRestarts: number;
 }
 
-/** The first and last readable timestamp. seconds: records, NaN where unreadable. */
-export function logClock(seconds: Float64Array): LogClock | undefined {
-  let first = Infinity, last = -Infinity;
-  for (const t of seconds) {
+/**
+ * The first and last readable timestamp, and how often the clock starts again at a new run.
+ * seconds: records, NaN where unreadable; runCodes: records, the run column's code (none: one timeline).
+ */
+export function logClock(seconds: Float64Array, runCodes?: Float64Array): LogClock | undefined {
+  let first = Infinity, last = -Infinity, previous = NaN, previousRun = NaN, runRestarts = 0;
+  for (let r = 0; r < seconds.length; r++) {
+    const t = seconds[r];
+    if (Number.isNaN(t)) continue;
     if (t < first) first = t;
     if (t > last) last = t;
+    if (runCodes && runCodes[r] !== previousRun && t < previous) runRestarts++;
+    previous = t;
+    previousRun = runCodes ? runCodes[r] : NaN;
   }
-  return first <= last ? { firstSeconds: first, lastSeconds: last, calendar: isCalendarClock(first) } : undefined;
+  return first <= last ? { firstSeconds: first, lastSeconds: last, calendar: isCalendarClock(first), runRestarts } : undefined;
 }
 
 const fieldOf = (i: number, end?: 'from' | 'to') => ['data', 'csv', 'excludedTimes', i, ...(end ? [end] : [])];
@@ -105,11 +122,30 @@ export function recordsInWindows(windows: readonly TimeWindow[], seconds: Float6
   return inWindow;
 }
 
-/** How many rows each window left out. */
-export function leftOutWindows(windows: readonly TimeWindow[], inWindow: Uint16Array): LeftOutWindow[] {
-  const counts = new Array<number>(windows.length).fill(0);
-  for (const w of inWindow) if (w > 0) counts[w - 1]++;
-  return windows.map((w, i) => ({ ...w, rows: counts[i] }));
+/**
+ * How many rows each window left out, and from how many runs. A window's rows start another run's
+ * stretch where a used row came between them (the log left the window and came back: on a clock
+ * that restarts per run, the next run) or where `apart` says the two rows lie in different runs
+ * (the run column changed, a stop in the log). inWindow, kept: records.
+ */
+export function leftOutWindows(
+  windows: readonly TimeWindow[], inWindow: Uint16Array, kept?: Uint8Array, apart: (q: number, r: number) => boolean = () => false,
+): LeftOutWindow[] {
+  const rows = new Array<number>(windows.length).fill(0), runs = rows.slice();
+  const last = new Int32Array(windows.length).fill(-1);
+  let lastKept = -1;
+  for (let r = 0; r < inWindow.length; r++) {
+    const w = inWindow[r] - 1;
+    if (w < 0) {
+      if (kept?.[r]) lastKept = r;
+      continue;
+    }
+    const q = last[w];
+    if (q < 0 || lastKept > q || apart(q, r)) runs[w]++;
+    rows[w]++;
+    last[w] = r;
+  }
+  return windows.map((w, i) => ({ ...w, rows: rows[i], runs: runs[i] }));
 }
 
 /** "1 Mar 2024 06:00 to 1 Mar 2024 08:30, 2 h 30 min" on the log's clock. */
@@ -117,10 +153,18 @@ export function windowText(w: TimeWindow, calendar: boolean): string {
   return `${clockText(w.fromSeconds, calendar)} to ${clockText(w.toSeconds, calendar)}, ${durationText(w.toSeconds - w.fromSeconds)}`;
 }
 
-/** "Time windows left out: 360 rows in all; 340 rows for start-up (…), 20 rows for valve test (…)." */
-export function windowReport(left: readonly LeftOutWindow[], calendar: boolean): string[] {
+/**
+ * "Time windows left out: 360 rows in all; 340 rows in 1 run for start-up (…); 20 rows in 1 run for
+ * valve test (…). …", and on a clock that restarts in each run, that a window is taken from every run.
+ */
+export function windowReport(left: readonly LeftOutWindow[], clock: Pick<LogClock, 'calendar' | 'runRestarts'>): string[] {
   if (left.length === 0) return [];
   const total = left.reduce((sum, w) => sum + w.rows, 0);
-  const each = left.map((w, i) => `${plural(w.rows, 'row')} for ${w.reason || `window ${i + 1}`} (${windowText(w, calendar)})`);
-  return [`Time windows left out: ${plural(total, 'row')} in all; ${each.join('; ')}. Each window cuts its run in two.`];
+  const each = left.map((w, i) => `${plural(w.rows, 'row')} in ${plural(w.runs, 'run')} for ${w.reason || `window ${i + 1}`} (${windowText(w, clock.calendar)})`);
+  const lines = [`Time windows left out: ${plural(total, 'row')} in all; ${each.join('; ')}. Where a window lies inside a run, the rows before and after it become two runs.`];
+  if (clock.runRestarts > 0) lines.push(EVERY_RUN_SENTENCE);
+  return lines;
 }
+
+/** Said wherever a window is added or reported on a clock that restarts in each run (README: Time windows left out). */
+export const EVERY_RUN_SENTENCE = 'This log’s clock starts again in each run, so a time window is run time: it leaves out the rows in that stretch of every run (0 to 600 s: the first ten minutes of each run).';

@@ -119,11 +119,11 @@ function describeSteps(c: StepColumns, t: TransitionSet): string[] {
     report.push(`Next states from the next-state columns of the same row: ${plural(t.count, 'transition')}.`);
   } else {
     const chained = t.count - terminal;
-    report.push(`Next states from the next row of the same episode: ${plural(chained, 'transition')}; the last row of each episode has no successor.`);
+    report.push(`Next states from the next row of the same run: ${plural(chained, 'transition')}; the last row of each run has no successor.`);
   }
-  if (c.terminal) report.push(`Terminal column: ${plural(terminal, 'transition')} end${terminal === 1 ? 's' : ''} in a terminal state (not bootstrapped past).`);
+  if (c.terminal) report.push(`End-of-run column: ${plural(terminal, 'transition')} end${terminal === 1 ? 's' : ''} a run (the plant stopped or was reset there; no value is added past it).`);
   report.push(...describeHoles(c));
-  report.push(`In all: ${plural(t.count, 'transition')} in ${plural(t.episodeCount, 'episode')}.`);
+  report.push(`In all: ${plural(t.count, 'transition')} in ${plural(t.episodeCount, 'run')}.`);
   report.push(rowAccount(c.kept, t.count));
   return report;
 }
@@ -136,7 +136,7 @@ export function rowAccount(kept: Uint8Array, transitions: number): string {
   let used = 0;
   for (let r = 0; r < kept.length; r++) used += kept[r];
   const excluded = kept.length - used, unused = used - transitions;
-  return `Rows: ${formatCount(kept.length)} read = ${formatCount(transitions)} transitions + ${formatCount(excluded)} excluded + ${formatCount(unused)} unused (kept, with no next row to pair with: the last of an episode, or the row before an excluded one).`;
+  return `Rows: ${formatCount(kept.length)} read = ${formatCount(transitions)} transitions + ${formatCount(excluded)} excluded + ${formatCount(unused)} unused (kept, with no next row to pair with: the last of a run, or the row before an excluded one).`;
 }
 
 /** Runs of excluded rows with kept rows of one episode on both sides: where a chain was cut. */
@@ -156,7 +156,7 @@ function describeHoles(c: StepColumns): string[] {
   const more = count > LISTED ? ` and ${formatCount(count - LISTED)} more` : '';
   const effect = c.nextStates
     ? 'each excluded row only loses its own transition'
-    : 'the rows on either side are not joined into a transition; the episode is split there into separate chains of steps but keeps its one start state';
+    : 'the rows on either side are not joined into a transition; the run is split there into separate chains of steps but keeps its one start state';
   const lines = count === 1 && !holes[0].includes('–') ? 'line' : 'lines';
-  return [`${plural(count, 'run')} of excluded rows inside an episode (${lines} ${holes.join(', ')}${more}): ${effect}.`];
+  return [`${plural(count, 'stretch', 'stretches')} of excluded rows inside a run (${lines} ${holes.join(', ')}${more}): ${effect}.`];
 }

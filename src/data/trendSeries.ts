@@ -5,14 +5,25 @@
  */
 import type { ColumnRoles } from '../project/schema';
 import { isCalendarClock } from '../core/clockText';
-import { signalEnvelope, type TrendData, type TrendInput } from '../core/trend/signalEnvelope';
+import { signalEnvelope, TREND_BUCKETS, type TrendData, type TrendInput } from '../core/trend/signalEnvelope';
 
 export type { TrendData, TrendSignal } from '../core/trend/signalEnvelope';
 
-/** numbers: every numeric column read (rows each); rewards: rows, the reward (a cost negated). */
+/**
+ * On a clock that starts again in each run the runs are drawn over one another, so each run's rows
+ * share the chart's width with every other run's: the envelope keeps this many times more groups
+ * (a choice: about eight runs' worth of one group per pixel column; more only adds points that
+ * land on the same pixels).
+ */
+export const RUN_TIME_GROUP_FACTOR = 8;
+
+/**
+ * numbers: every numeric column read (rows each); rewards: rows, the reward (a cost negated);
+ * runRestarts: how often the clock started again at a new run (LogClock.runRestarts).
+ */
 export function trendOfImport(
   columns: ColumnRoles, numbers: ReadonlyMap<string, Float64Array>, rewards: Float64Array,
-  seconds: Float64Array | undefined, rowCount: number, lineOf: (record: number) => number,
+  seconds: Float64Array | undefined, rowCount: number, lineOf: (record: number) => number, runRestarts = 0,
 ): TrendData {
   const inputs: TrendInput[] = [];
   for (const c of columns.states) {
@@ -26,5 +37,6 @@ export function trendOfImport(
   inputs.push({ name, role: sense, unit: columns.reward.unit ?? '', values: rewards.map((r) => sign * r) });
   const first = seconds?.find((t) => Number.isFinite(t)) ?? NaN;
   const time = seconds ?? Float64Array.from({ length: rowCount }, (_, r) => lineOf(r));
-  return signalEnvelope(inputs, time, seconds ? 'seconds' : 'line', seconds !== undefined && isCalendarClock(first));
+  const buckets = runRestarts > 0 ? TREND_BUCKETS * Math.min(runRestarts + 1, RUN_TIME_GROUP_FACTOR) : TREND_BUCKETS;
+  return signalEnvelope(inputs, time, seconds ? 'seconds' : 'line', seconds !== undefined && isCalendarClock(first), buckets);
 }

@@ -36,7 +36,7 @@ export function checkProjectConsistency(doc: ProjectDocument, fileName: string, 
     problems.push({ where: at('columns.nextState.columns'), field: ['columns', 'nextState', 'columns'], message: `expected ${stateCount} next-state column(s), one per state column` });
   }
   if (doc.columns.timestamp !== undefined && doc.columns.episode.kind === 'timeGap' && doc.columns.timestamp !== doc.columns.episode.column) {
-    problems.push({ where: at('columns.timestamp'), field: ['columns', 'timestamp'], message: `"${doc.columns.timestamp}" differs from the time-gap episode column "${doc.columns.episode.column}"; use one timestamp column` });
+    problems.push({ where: at('columns.timestamp'), field: ['columns', 'timestamp'], message: `"${doc.columns.timestamp}" differs from the column whose time gaps mark the runs "${doc.columns.episode.column}"; use one timestamp column` });
   }
   if (doc.startStates.kind === 'given') {
     doc.startStates.states.forEach((s, i) => {

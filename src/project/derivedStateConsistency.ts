@@ -30,6 +30,6 @@ export function checkDerivedStates(doc: ProjectDocument, add: (path: string, mes
   });
   const usesDerived = doc.columns.states.some((s) => names.has(s.column));
   if (usesDerived && doc.columns.nextState.kind === 'columns') {
-    add('columns.nextState', 'derived states need next states from the next row of the same episode (nextState "nextRow"), since they are computed along each episode');
+    add('columns.nextState', 'derived states need next states from the next row of the same run (nextState "nextRow"), since they are computed along each run');
   }
 }

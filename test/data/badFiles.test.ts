@@ -43,8 +43,8 @@ const FAILURES: Case[] = [
   // UTF-16 and Windows-1252 files are read now (test/data/encodings.test.ts); a zero byte is still refused.
   { file: 'binary.csv', kind: 'not-utf8', where: 'binary.csv', message: 'the file holds a zero byte at byte 47' },
   { file: 'missing-column.csv', kind: 'missing-column', where: header('missing-column.csv'), message: 'no column named "level_m" (state 1); did you mean "levl_m"?' },
-  { file: 'missing-episode-column.csv', roles: { episode: { kind: 'column', column: 'Run' } }, kind: 'missing-column', where: header('missing-episode-column.csv'), message: 'no column named "Run" (episode column); did you mean "run"?' },
-  { file: 'timegap-missing-column.csv', roles: { episode: { kind: 'timeGap', column: 'timestamp' } }, kind: 'missing-column', where: header('timegap-missing-column.csv'), message: 'no column named "timestamp" (timestamp column for episodes); did you mean "time"?' },
+  { file: 'missing-episode-column.csv', roles: { episode: { kind: 'column', column: 'Run' } }, kind: 'missing-column', where: header('missing-episode-column.csv'), message: 'no column named "Run" (run column); did you mean "run"?' },
+  { file: 'timegap-missing-column.csv', roles: { episode: { kind: 'timeGap', column: 'timestamp' } }, kind: 'missing-column', where: header('timegap-missing-column.csv'), message: 'no column named "timestamp" (timestamp column for runs); did you mean "time"?' },
   { file: 'missing-next-state-column.csv', roles: { nextState: { kind: 'columns', columns: ['level_nxt_m'] } }, kind: 'missing-column', where: header('missing-next-state-column.csv'), message: 'no column named "level_nxt_m" (next state 1); did you mean "level_next_m"?' },
   { file: 'duplicate-header.csv', kind: 'duplicate-column', where: header('duplicate-header.csv'), message: 'the column name "level_m" (state 1) appears in fields 2 and 4' },
   { file: 'next-state-count.csv', roles: { nextState: { kind: 'columns', columns: ['level_next_m', 'cost'] } }, kind: 'next-state-count', where: 'next-state-count.csv, next-state columns', message: 'expected 1 next-state column (one per state, in the order of the states), got 2' },
@@ -75,8 +75,8 @@ const FAILURES: Case[] = [
     message: 'unexpected ")"; expected an operator or the end of the expression (character 14)\n  (level_m - 2))^2\n               ^',
   },
   { file: 'expression-not-finite.csv', roles: { reward: { kind: 'expression', expression: 'log(level_m)', sense: 'cost' } }, kind: 'reward-not-finite', where: 'expression-not-finite.csv, line 4', message: 'the cost expression gives -Infinity here (level_m = 0)', problems: 1 },
-  { file: 'terminal-bad-flag.csv', roles: { terminal: 'done' }, kind: 'bad-flag', where: 'terminal-bad-flag.csv, line 3, column done', message: '"maybe" is not a terminal flag; expected 1 or 0' },
-  { file: 'episode-empty.csv', roles: { episode: { kind: 'column', column: 'run' } }, kind: 'empty-episode', where: 'episode-empty.csv, line 4, column run', message: 'the episode cell is empty' },
+  { file: 'terminal-bad-flag.csv', roles: { terminal: 'done' }, kind: 'bad-flag', where: 'terminal-bad-flag.csv, line 3, column done', message: '"maybe" is not an end-of-run flag; expected 1 or 0' },
+  { file: 'episode-empty.csv', roles: { episode: { kind: 'column', column: 'run' } }, kind: 'empty-episode', where: 'episode-empty.csv, line 4, column run', message: 'the run label cell is empty' },
   { file: 'single-row-episodes.csv', roles: { episode: { kind: 'column', column: 'run' } }, kind: 'no-transitions', where: 'single-row-episodes.csv', message: 'no transitions could be formed' },
 ];
 
@@ -155,7 +155,7 @@ describe('long problem lists and exclusion', () => {
     expect(transitions.count).toBe(17);
     expect(Array.from(transitions.sourceLine)).not.toContain(16);
     expect(Array.from(transitions.sourceLine)).not.toContain(17);
-    expect(episodeReport.join('\n')).toContain('1 run of excluded rows inside an episode (line 17)');
+    expect(episodeReport.join('\n')).toContain('1 stretch of excluded rows inside a run (line 17)');
     expect(result.warnings.map((w) => (w as ImportProblem).kind)).toEqual(['rows-excluded']);
   });
 });

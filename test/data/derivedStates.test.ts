@@ -51,7 +51,7 @@ describe('derived states', () => {
     expect(column(d, 1)).toEqual([50, 55, 40]);
     expect(Array.from(d.transitions.actions)).toEqual([55, 58, 45]);
     expect(Array.from(d.transitions.startStates)).toEqual([20.5, 50, 19.5, 40]);
-    expect(d.episodeReport.join(' ')).toMatch(/valve_prev has no initial value, so the first row of each episode only supplies the value before it: 2 rows start no transition/);
+    expect(d.episodeReport.join(' ')).toMatch(/valve_prev has no initial value, so the first row of each run only supplies the value before it: 2 rows start no transition/);
     const stated = imported(LOG, [{ kind: 'previous', name: 'valve_prev', unit: '%', source: 'valve', initial: 52 }], ['temp', 'valve_prev']);
     expect(column(stated, 1)).toEqual([52, 50, 55, 52, 40]);
   });

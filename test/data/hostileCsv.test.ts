@@ -37,7 +37,7 @@ describe('every row is accounted for', () => {
     const { value } = imported(text.join('\n'));
     // 9 kept rows in two chains (3 and 6 rows): 2 + 5 = 7 transitions, 2 unused chain ends, 1 excluded.
     expect(value.transitions.count).toBe(7);
-    expect(value.episodeReport).toContain('Rows: 10 read = 7 transitions + 1 excluded + 2 unused (kept, with no next row to pair with: the last of an episode, or the row before an excluded one).');
+    expect(value.episodeReport).toContain('Rows: 10 read = 7 transitions + 1 excluded + 2 unused (kept, with no next row to pair with: the last of a run, or the row before an excluded one).');
   });
 
   it('a quote opened at line 81 of 161 and never closed: one row excluded that holds the other 81 lines, said in words', () => {
@@ -49,7 +49,7 @@ describe('every row is accounted for', () => {
     expect(value.excluded[0]).toMatchObject({ line: 81, kind: 'quote' });
     expect(value.excluded[0].reason).toContain('never closed, so the rest of the file — 81 lines of text, to line 161 — was read into this one row');
     expect(warnings.join('\n')).toContain("the file's 161 lines of text hold the header and 80 rows, so rows span 80 more lines than one each");
-    expect(value.episodeReport).toContain('Rows: 80 read = 78 transitions + 1 excluded + 1 unused (kept, with no next row to pair with: the last of an episode, or the row before an excluded one).');
+    expect(value.episodeReport).toContain('Rows: 80 read = 78 transitions + 1 excluded + 1 unused (kept, with no next row to pair with: the last of a run, or the row before an excluded one).');
   });
 
   it('a stray quote costs its own row only: the rows after it are read', () => {
@@ -74,7 +74,7 @@ describe('start states are true first rows only', () => {
     expect(t.episodeCount).toBe(3);
     expect(Array.from(t.startStates)).toEqual([1, 11]); // A's and C's first rows; B's first usable row (level 7) is mid-run
     expect(Array.from(t.startEpisode ?? [])).toEqual([0, 2]);
-    expect(value.episodeReport.join('\n')).toContain('1 episode lost its first row to exclusion, so its first usable row (line 8) is mid-episode and not a start state; the start states are the first rows of the other 2 episodes.');
+    expect(value.episodeReport.join('\n')).toContain('1 run lost its first row to exclusion, so its first usable row (line 8) is mid-run and not a start state; the start states are the first rows of the other 2 runs.');
   });
 
   it('an excluded row that readably belongs to the previous episode does not cost the next its start', () => {

@@ -41,7 +41,7 @@ describe('next state from the next row', () => {
     expect(Array.from(t.sourceLine)).toEqual([2, 3, 4, 5]);
     expect(Array.from(t.startStates)).toEqual([1]);
     expect(t.episodeCount).toBe(1);
-    expect(episodeReport).toContain('Next states from the next row of the same episode: 4 transitions; the last row of each episode has no successor.');
+    expect(episodeReport).toContain('Next states from the next row of the same run: 4 transitions; the last row of each run has no successor.');
   });
 
   it('a cost is negated into a reward', () => {
@@ -65,8 +65,8 @@ describe('episodes', () => {
     expect(t.count).toBe(1 + 2 + 1); // runs of 2, 3 and 2 rows
     expect(Array.from(t.episode)).toEqual([0, 1, 1, 2]);
     expect(Array.from(t.startStates)).toEqual([1, 3, 6]);
-    expect(episodeReport).toContain('Episodes from column run: 3 episodes (a new episode wherever the value changes).');
-    expect(episodeReport).toContain('1 value of run reappears after other values and starts a new episode there: "A" at line 7.');
+    expect(episodeReport).toContain('Runs from column run: 3 runs (a new run wherever the value changes).');
+    expect(episodeReport).toContain('1 value of run reappears after other values and starts a new run there: "A" at line 7.');
   });
 
   const timed = (times: number[]): string => table(times.length, ',t', (i) => `,${times[i - 1]}`);
@@ -77,7 +77,7 @@ describe('episodes', () => {
     expect(t.episodeCount).toBe(2); // 45 s > 30 s
     expect(t.count).toBe(3 + 2);
     expect(Array.from(t.startStates)).toEqual([1, 5]);
-    expect(episodeReport).toContain('Episodes from timestamp gaps in column t: a step longer than 30 s (3 × the median sampling period of 10 s) starts a new episode; 1 gap → 2 episodes.');
+    expect(episodeReport).toContain('Runs from timestamp gaps in column t: a step longer than 30 s (3 × the median sampling period of 10 s) starts a new run; 1 gap → 2 runs.');
   });
 
   it('from timestamp gaps with maxGapSeconds set: the same 45 s step stays inside one episode under a 60 s limit', () => {
@@ -94,8 +94,8 @@ describe('episodes', () => {
     expect(Array.from(t.terminal)).toEqual([0, 0, 1, 0, 0, 1]);
     expect(Array.from(t.nextStates)).toEqual([2, 3, 3, 5, 6, 6]);
     expect(t.episodeCount).toBe(2);
-    expect(episodeReport).toContain('Terminal column: 2 transitions end in a terminal state (not bootstrapped past).');
-    expect(episodeReport).toContain('1 terminal row ended an episode before the episode rule did; the following row starts a new episode.');
+    expect(episodeReport).toContain('End-of-run column: 2 transitions end a run (the plant stopped or was reset there; no value is added past it).');
+    expect(episodeReport).toContain('1 end-of-run flag ended a run before the run rule did; the following row starts a new run.');
   });
 });
 
@@ -120,7 +120,7 @@ describe('excluding rows never joins their neighbours', () => {
     expect(Array.from(t.nextStates)).toEqual([2, 6, 8]);
     expect(t.episodeCount).toBe(2);
     expect(Array.from(t.startStates)).toEqual([1, 7]);
-    expect(episodeReport).toContain('1 run of excluded rows inside an episode (lines 4–5): the rows on either side are not joined into a transition; the episode is split there into separate chains of steps but keeps its one start state.');
+    expect(episodeReport).toContain('1 stretch of excluded rows inside a run (lines 4–5): the rows on either side are not joined into a transition; the run is split there into separate chains of steps but keeps its one start state.');
     expect(summary.excludedRowCount).toBe(2);
     expect(summary.excludedFraction).toBe(2 / 8);
   });

@@ -73,8 +73,8 @@ describe('realistic tank log', () => {
     for (const line of [56, 57, 122, 123, 249, 250, 400, 401, 479, 480, 554, 555, 301, 601]) {
       expect(Array.from(t.sourceLine)).not.toContain(line);
     }
-    expect(episodeReport).toContain('Episodes from timestamp gaps in column timestamp: a step longer than 30 s (3 × the median sampling period of 10 s) starts a new episode; 1 gap → 2 episodes.');
-    expect(episodeReport.join('\n')).toContain('6 runs of excluded rows inside an episode (lines 57, 123, 250, 401, 480 and 1 more)');
+    expect(episodeReport).toContain('Runs from timestamp gaps in column timestamp: a step longer than 30 s (3 × the median sampling period of 10 s) starts a new run; 1 gap → 2 runs.');
+    expect(episodeReport.join('\n')).toContain('6 stretches of excluded rows inside a run (lines 57, 123, 250, 401, 480 and 1 more)');
     expect(episodeReport).toContain('Dates in column timestamp: line 2 has a day above 12 in first place, so dates read day first (dd/mm/yyyy).');
   });
 });

@@ -47,7 +47,10 @@ describe('a time window left out', () => {
     expect(v.transitions.count).toBe(7);
     expect(v.transitions.episodeCount).toBe(2);
     expect(v.transitions.startStates.length).toBe(2) // one state per start;
-    expect(v.episodeReport.join(' ')).toContain('Time windows left out: 3 rows in all; 3 rows for valve test (30 s to 50 s, 20 s)');
+    expect(v.timeWindows.map((w) => w.runs)).toEqual([1]);
+    expect(v.clock?.runRestarts).toBe(0);
+    expect(v.episodeReport.join(' ')).toContain('Time windows left out: 3 rows in all; 3 rows in 1 run for valve test (30 s to 50 s, 20 s)');
+    expect(v.episodeReport.join(' ')).not.toContain('starts again in each run');
     expect(v.episodeReport.join(' ')).toContain('1 run cut in two by a time window left out');
   });
 
@@ -80,6 +83,53 @@ describe('a time window left out', () => {
     expect(v.timeWindows[0].rows).toBe(3);
     expect(v.clock?.calendar).toBe(true);
     expect(v.episodeReport.join(' ')).toContain('1 Mar 2024 06:00:30 to 1 Mar 2024 06:00:50, 20 s');
+  });
+});
+
+/**
+ * A log whose clock starts again in each run: 3 runs (column run), 6 rows each at t = 0, 10, …,
+ * 50 s of run time. Worked by hand: a window [0 s, 15 s] holds t = 0 and 10 of every run (2 rows ×
+ * 3 runs = 6 rows), and [20 s, 30 s] holds t = 20 and 30 of every run (6 rows) and cuts each run
+ * in two (rows 0, 10 | 40, 50).
+ */
+function runTimeLog(): string {
+  const rows = ['run,time,level_m,valve_pct,cost'];
+  for (let run = 1; run <= 3; run++) {
+    for (let k = 0; k < 6; k++) rows.push(`${run},${10 * k},${(1 + 0.01 * k + 0.1 * run).toFixed(2)},${40 + k + run},${(0.5 + 0.1 * k).toFixed(1)}`);
+  }
+  return `${rows.join('\n')}\n`;
+}
+const RUN_ROLES: ColumnRoles = { ...ROLES, episode: { kind: 'column', column: 'run' } };
+
+describe('a time window on a clock that starts again in each run', () => {
+  const runTime = (windows: ExcludedTime[]) => {
+    const result = importDataset(runTimeLog(), 'runs.csv', { ...STOP, excludedTimes: windows }, RUN_ROLES);
+    if (!result.ok) throw new Error(result.problems.map((p) => p.message).join('\n'));
+    return result.value;
+  };
+
+  it('is run time: [0 s, 15 s] takes the first two rows of each of the 3 runs, and the report says so', () => {
+    const v = runTime([{ from: 0, to: 15, reason: 'start-up' }]);
+    expect(v.clock?.runRestarts).toBe(2);
+    expect(v.timeWindows.map((w) => [w.rows, w.runs])).toEqual([[6, 3]]);
+    expect(v.transitions.episodeCount).toBe(3); // a window at each run's head trims it; it cuts none in two
+    expect(v.transitions.count).toBe(9); // 4 rows left in each run → 3 transitions each
+    const report = v.episodeReport.join(' ');
+    expect(report).toContain('6 rows in 3 runs for start-up (0 s to 15 s, 15 s)');
+    expect(report).toContain('This log’s clock starts again in each run, so a time window is run time');
+  });
+
+  it('draws the runs over one another: the trend keeps more groups (here every row: 18 rows, far under the limit) and its clock steps back at each run', () => {
+    const v = runTime([]);
+    expect(v.trend.rowsPerGroup).toBe(1);
+    expect(Array.from(v.trend.time.slice(4, 8))).toEqual([40, 50, 0, 10]);
+  });
+
+  it('[20 s, 30 s] inside every run: 6 rows from 3 runs, each run cut in two', () => {
+    const v = runTime([{ from: 20, to: 30, reason: 'test' }]);
+    expect(v.timeWindows.map((w) => [w.rows, w.runs])).toEqual([[6, 3]]);
+    expect(v.transitions.episodeCount).toBe(6);
+    expect(v.transitions.count).toBe(6); // 6 runs of 2 rows
   });
 });
 

@@ -3,15 +3,71 @@
  * modules behind it, on the heating-historian sample (invented data: one row a minute, runs split
  * at overnight stops, a few corrupt cells). A window from 08:00 to 08:59 on 13 Jan inside the first
  * run takes out its 60 rows (one a minute, both ends included, none of them corrupt: counted
- * independently from the CSV in Python) and cuts that run in two. Screenshots of the step in both
+ * independently from the CSV in Python) and cuts that run in two. A window dragged on the trend is
+ * checked against the rows of the CSV counted here with Date.UTC, independently of the app's reader. Screenshots of the step in both
  * themes at 1280×800 and 1920×1080 go to test-artifacts/screens/.
  */
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import type { Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { drawnPixels } from './harness/drawnPixels';
 import { startMainThreadProbe, startTaskTrace, stopMainThreadProbe } from './harness/mainThreadProbe';
 import { openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
+
+
+const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
+
+/** "16 Jan 2025 10:00" (the app's list) → seconds since 1970, by Date.UTC. */
+function listedSeconds(text: string): number {
+  const m = /(\d+) (\w{3}) (\d{4}) (\d\d):(\d\d)(?::(\d\d))?/.exec(text);
+  if (!m) throw new Error(`not a listed time: ${text}`);
+  return Date.UTC(Number(m[3]), MONTHS.indexOf(m[2]), Number(m[1]), Number(m[4]), Number(m[5]), Number(m[6] ?? 0)) / 1000;
+}
+
+/** "10 min", "9 min 30 s", "45 s", "0 s" (the app's list on an elapsed clock) → seconds. */
+function durationSeconds(text: string): number {
+  const units: Record<string, number> = { d: 86400, h: 3600, min: 60, s: 1 };
+  let total = 0;
+  for (const [, n, unit] of text.matchAll(/([\d.]+) (d|h|min|s)\b/g)) total += Number(n) * units[unit];
+  return total;
+}
+
+/** Rows of the heating-historian CSV whose timestamp (dd.mm.yyyy hh:mm:ss) lies in [from, to], by Date.UTC. */
+function csvRowsBetween(fromSeconds: number, toSeconds: number): number {
+  const text = readFileSync(resolve(__dirname, '../../sample-projects/heating-historian/heating-historian.csv'), 'utf8');
+  let rows = 0;
+  for (const line of text.split(/\r?\n/).slice(1)) {
+    const m = /^(\d\d)\.(\d\d)\.(\d{4}) (\d\d):(\d\d):(\d\d);/.exec(line);
+    if (!m) continue;
+    const t = Date.UTC(Number(m[3]), Number(m[2]) - 1, Number(m[1]), Number(m[4]), Number(m[5]), Number(m[6])) / 1000;
+    if (t >= fromSeconds && t <= toSeconds) rows++;
+  }
+  return rows;
+}
+
+/** The page position of a time on the trend, from the plot area the drag layer reports. */
+async function trendPoint(page: Page, seconds: number): Promise<{ x: number; y: number }> {
+  const layer = page.getByTestId('trend-drag');
+  await expect.poll(() => layer.getAttribute('data-plot-area'), POLL).toBeTruthy();
+  const [left, right, atLeft, atRight] = (await layer.getAttribute('data-plot-area'))!.split(' ').map(Number);
+  const box = (await layer.boundingBox())!;
+  return { x: box.x + left + ((seconds - atLeft) / (atRight - atLeft)) * (right - left), y: box.y + box.height / 2 };
+}
+
+/** Press at one time, move to the other in steps, and (unless told not to) release. */
+async function dragTrend(page: Page, fromSeconds: number, toSeconds: number, release = true): Promise<void> {
+  await page.getByTestId('trend-drag').evaluate((e) => e.scrollIntoView({ block: 'center' }));
+  const a = await trendPoint(page, fromSeconds), b = await trendPoint(page, toSeconds);
+  await page.mouse.move(a.x, a.y);
+  await page.mouse.down();
+  await page.mouse.move(b.x, b.y, { steps: 8 });
+  // The span is on screen before the release, as a person sees it before letting go.
+  await expect.poll(() => page.getByTestId('trend-drag-span').count(), POLL).toBe(1);
+  if (release) await page.mouse.up();
+}
 
 describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)', () => {
   let app: LaunchedApp;
@@ -72,6 +128,57 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
     await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe('60');
   });
 
+  it('a drag across the trend shows the span, adds the window to the list and the report, Escape cancels, Ctrl+Z removes it', async () => {
+    const { page } = app;
+    const at = (d: number, h: number, min = 0) => Date.UTC(2025, 0, d, h, min) / 1000;
+    // Escape while the button is held: no window.
+    await dragTrend(page, at(16, 10), at(16, 12), false);
+    await expect.poll(() => page.getByTestId('trend-drag-span').innerText(), POLL).toContain('16 Jan 2025 10:');
+    await expect.poll(() => page.getByTestId('trend-drag-span').innerText(), POLL).toContain('release to leave out, Escape to cancel');
+    await page.keyboard.press('Escape');
+    await expect.poll(() => page.getByTestId('trend-drag-span').count(), POLL).toBe(0);
+    await page.mouse.up();
+    await expect.poll(() => page.getByTestId('time-windows').locator('tbody tr').count(), POLL).toBe(1);
+
+    // Released: the window is in the list with the rows the import left out, counted here from the CSV.
+    await page.evaluate(startMainThreadProbe);
+    const trace = await startTaskTrace(page);
+    await dragTrend(page, at(16, 10), at(16, 12));
+    const row = page.getByTestId('time-windows').locator('tbody tr').nth(1);
+    await expect.poll(() => page.getByTestId('window-rows-1').innerText(), POLL).toMatch(/^[\d,]+$/);
+    await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
+    const probe = await page.evaluate(stopMainThreadProbe), cpu = await trace.stop();
+    // Printed, not asserted (speed is never asserted in a test).
+    console.log(`main thread while a window is dragged, imported and the trend redrawn: longest task ${probe.longestTaskMs.toFixed(0)} ms (Long Tasks API), ${probe.longTasks} over 50 ms; `
+      + `trace: longest ${cpu.longestWallMs.toFixed(0)} ms wall, ${cpu.longestCpuMs.toFixed(0)} ms CPU, ${cpu.tasksOver50CpuMs} of ${cpu.tasks} tasks over 50 ms CPU`);
+    const [from, to] = [await row.locator('td').nth(1).innerText(), await row.locator('td').nth(2).innerText()];
+    // Within a rounding step (at most 15 min at this width: a week over about a thousand pixels) of where the drag began.
+    expect(Math.abs(listedSeconds(from) - at(16, 10))).toBeLessThanOrEqual(1800);
+    const rows = csvRowsBetween(listedSeconds(from), listedSeconds(to));
+    expect(rows).toBeGreaterThan(100); // about two hours of one row a minute
+    await expect.poll(() => page.getByTestId('window-rows-1').innerText(), POLL).toBe(String(rows));
+    await expect.poll(() => page.getByTestId('window-runs-1').innerText(), POLL).toBe('1');
+    await expect.poll(() => page.getByTestId('row-counts').innerText(), POLL).toContain(`${(60 + rows).toLocaleString('en-US')} in time windows left out`);
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 1 run for window 2`);
+
+    // A dragged window gets its reason in the list (one undo step); two undos take the reason and then the window away.
+    await page.getByTestId('window-reason-1').fill('trial of a new valve');
+    await page.getByTestId('window-reason-1').press('Tab');
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 1 run for trial of a new valve`);
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('window-reason-1').inputValue(), POLL).toBe('');
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('time-windows').locator('tbody tr').count(), POLL).toBe(1);
+    await expect.poll(() => page.getByTestId('row-counts').innerText(), POLL).toContain('60 in time windows left out');
+
+    // A drag over the window already there gets the form's overlap message; Ctrl+Z clears it.
+    await dragTrend(page, at(13, 8, 30), at(13, 9, 30));
+    await expect.poll(() => page.getByTestId('window-problems').innerText(), POLL).toContain('window 2 overlaps window “valve test” (data.csv.excludedTimes[0])');
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('window-problems').count(), POLL).toBe(0);
+    await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe('60');
+  });
+
   it('a stopped import says how to leave the bad rows out, and one click does it', async () => {
     const { page } = app;
     await page.getByTestId('bad-rows').selectOption('stop');
@@ -100,6 +207,48 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
         await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-trend-panel-${theme}-${size.width}.png` });
       }
     }
+    expect(app.consoleErrors).toEqual([]);
+  });
+});
+
+/**
+ * A clock that starts again in each run: the heating-loop sample (invented data: 40 runs of 500
+ * rows, one a minute, time_s counting from 0 in every run). Given time_s as its timestamp beside the
+ * run label, the step says where a window is added that a window is run time; a drag over the first
+ * minutes of the trend takes those minutes from all 40 runs (rows counted here from the CSV).
+ */
+describe('the Plant log step on a clock that restarts in each run (e2e)', () => {
+  let app: LaunchedApp;
+
+  beforeAll(async () => {
+    app = await launchApp({ viewport: { width: 1280, height: 800 } });
+    await openSample(app, 'heating-loop');
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('says a window is run time where it is added, and a drag leaves out the same minutes of every run', async () => {
+    const { page } = app;
+    await page.getByTestId('role-time_s').selectOption('timestamp');
+    await expect.poll(() => page.getByTestId('every-run-note').innerText(), POLL).toContain('clock starts again in each run');
+    await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('40');
+    await dragTrend(page, 0, 600, false);
+    await expect.poll(() => page.getByTestId('trend-drag-span').innerText(), POLL).toContain('in every run');
+    await page.mouse.up();
+    const row = page.getByTestId('time-windows').locator('tbody tr').first();
+    await expect.poll(() => page.getByTestId('window-runs-0').innerText(), POLL).toBe('40');
+    const seconds = async (k: number) => durationSeconds(await row.locator('td').nth(k).innerText());
+    const [from, to] = [await seconds(1), await seconds(2)];
+    expect(from).toBe(0);
+    expect(Math.abs(to - 600)).toBeLessThanOrEqual(60); // within a rounding step of where the drag ended
+    const text = readFileSync(resolve(__dirname, '../../sample-projects/heating-loop/heating-loop.csv'), 'utf8');
+    const rows = text.split(/\r?\n/).slice(1).filter((line) => line && Number(line.split(',')[1]) >= from && Number(line.split(',')[1]) <= to).length;
+    await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe(rows.toLocaleString('en-US'));
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 40 runs for window 1`);
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain('This log’s clock starts again in each run');
+    await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
+    await page.getByTestId('trend-panel').screenshot({ path: 'test-artifacts/screens/plant-log-run-time-window.png' });
     expect(app.consoleErrors).toEqual([]);
   });
 });

@@ -33,4 +33,10 @@ describe('time axis', () => {
     expect(points.map((p) => p.y)).toEqual([1, 1, 1, 1, null, 1, 1]);
     expect(points[4].x).toBe(65);
   });
+
+  it('leaves a gap where the clock steps back (each run on its own run time), so runs are not joined by a line drawn backwards', () => {
+    const flat = (n: number) => new Float64Array(n).fill(1);
+    const points = envelopePoints(Float64Array.from([0, 10, 20, 0, 10, 20]), { name: 'v', role: 'state', unit: '', lo: flat(6), hi: flat(6) });
+    expect(points.map((p) => p.y === null ? `gap@${p.x}` : p.x)).toEqual([0, 10, 20, 'gap@0', 0, 10, 20]);
+  });
 });

@@ -70,13 +70,13 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[]): Class
   if (estimates.length === 1) {
     return {
       settled: true, range, covers: 'sampling', widestGap: null,
-      coverageText: 'Covers the sampling of episodes only: no other function class was fitted, so the error of the class itself is not measured.',
+      coverageText: 'Covers the sampling of runs only: no other function class was fitted, so the error of the class itself is not measured.',
       reason: 'One function class only: its approximation error is not checked.',
     };
   }
   const gaps = pairGaps(estimates), disagreeing = gaps.filter(disagrees);
   const widest = (list: ClassGap[]) => list.reduce((w, g) => (g.relative > w.relative ? g : w));
-  const coverageText = `Covers the sampling of episodes and the spread across the ${estimates.length} function classes fitted ` +
+  const coverageText = `Covers the sampling of runs and the spread across the ${estimates.length} function classes fitted ` +
     `(${estimates.map((e) => e.label).join('; ')}); a bias they all share would not show.`;
   if (disagreeing.length === 0) {
     const g = widest(gaps);

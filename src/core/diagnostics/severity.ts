@@ -99,7 +99,7 @@ export function occupancyShiftFinding(shift: number, loggedShift: number | null)
 
 export function effectiveShareRuleText(): string {
   const { caution, serious } = EFFECTIVE_SHARE_LIMITS;
-  return `Importance weights: the Kish effective number of episodes at the effective horizon 1/(1 − γ), as a share of the episodes reaching it; ` +
+  return `Importance weights: the Kish effective number of runs at the effective horizon 1/(1 − γ), as a share of the runs reaching it; ` +
     `caution below ${percent(caution)}, serious below ${percent(serious)} (a common rule of thumb).`;
 }
 
@@ -108,8 +108,8 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
-    message: `Importance weights at step ${step}: effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} episodes ` +
-      `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): the importance-sampling cross-checks rest on a few episodes.`,
+    message: `Importance weights at step ${step}: effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} runs ` +
+      `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): the importance-sampling cross-checks rest on a few runs.`,
   };
 }
 

@@ -63,8 +63,8 @@ function weakness(e: CrossCheckEvidence): string | null {
   const r = CROSS_CHECK_RULE, w = e.weights;
   if (w) {
     const needed = Math.max(r.minEffectiveEpisodes, r.minEffectiveShare * w.episodesReaching);
-    if (w.effectiveEpisodes < needed) return `at step ${w.horizonSteps} the importance weights have an effective size of ${w.effectiveEpisodes.toFixed(1)} episodes (below ${needed.toFixed(0)})`;
-    if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged episodes' ends, where it uses fitted Q-evaluation's own value`;
+    if (w.effectiveEpisodes < needed) return `at step ${w.horizonSteps} the importance weights have an effective size of ${w.effectiveEpisodes.toFixed(1)} runs (below ${needed.toFixed(0)})`;
+    if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged runs' ends, where it uses fitted Q-evaluation's own value`;
   }
   if (e.shareOutsideLogs !== undefined && e.shareOutsideLogs > r.maxShareOutsideLogs) {
     return `${(100 * e.shareOutsideLogs).toFixed(0)} % of the simulated (discounted) steps reach the edge of the logged states, where the fitted model extrapolates`;

@@ -164,7 +164,7 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
       endingValue += before * endValue[j];
     }
     if (reached > 0 && !(weight > 0 && weightBefore > 0)) {
-      throw new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every episode: the candidate gives the logged actions no probability`);
+      throw new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run: the candidate gives the logged actions no probability`);
     }
     if (reached > 0) is += (discountPower * reward) / weight;
     if (reached > 0) correction -= (discountPower * action) / weight;

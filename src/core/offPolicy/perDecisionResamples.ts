@@ -135,7 +135,7 @@ function setSums(s: StepSums, reached: number, weight: number, weightBefore: num
 function finishStep(r: Running, s: StepSums, t: number, horizon: number, discountPower: number): void {
   if (r.failure) return;
   if (s.reached > 0 && !(s.weight > 0 && s.weightBefore > 0)) {
-    r.failure = new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every episode: the candidate gives the logged actions no probability`);
+    r.failure = new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run: the candidate gives the logged actions no probability`);
     return;
   }
   if (s.reached > 0) r.is += (discountPower * s.reward) / s.weight;

@@ -30,6 +30,8 @@ export interface TrendPlotProps {
   windows: readonly TrendWindow[];
   title: string;
   theme: Theme;
+  /** The clock starts again in each run (run time): the runs are drawn over one another on it. */
+  runTime?: boolean;
 }
 
 type XY = { x: number; y: number | null };
@@ -49,7 +51,8 @@ export const TREND_GAP_STEPS = 3;
 /**
  * The envelope as a line: (t, lo), (t, hi) per group; a gap where a group has no readable value
  * and where the log stops (a step over TREND_GAP_STEPS × the median step), so no straight line is
- * drawn across an overnight stop as if the plant had been logged there.
+ * drawn across an overnight stop as if the plant had been logged there; and where the clock steps
+ * back (each run on its own run time), so the runs are drawn over one another, not joined.
  */
 export function envelopePoints(time: Float64Array, signal: TrendSignal): XY[] {
   const gap = TREND_GAP_STEPS * medianStep(time);
@@ -59,6 +62,7 @@ export function envelopePoints(time: Float64Array, signal: TrendSignal): XY[] {
     const lo = signal.lo[g], hi = signal.hi[g], x = time[g];
     if (Number.isNaN(x)) continue;
     if (x - previous > gap) points.push({ x: (x + previous) / 2, y: null });
+    else if (x < previous) points.push({ x, y: null }); // the clock started again (a new run on run time): no line drawn back
     previous = x;
     if (Number.isNaN(lo)) { points.push({ x, y: null }); continue; }
     points.push({ x, y: lo });
@@ -98,7 +102,8 @@ export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfigur
     ticks: { ...valueAxis(look, '', 'left').ticks, maxTicksLimit: 4 },
   }]).reverse());
   const shared = sharedOptions(look, props.title, trendSubtitle(trend));
-  const xTitle = trend.clock === 'line' ? 'line in the file' : trend.calendar ? 'time (the log’s clock)' : 'time from the log’s zero';
+  const xTitle = trend.clock === 'line' ? 'line in the file' : trend.calendar ? 'time (the log’s clock)'
+    : props.runTime ? 'time in each run (the runs drawn over one another)' : 'time from the log’s zero';
   return {
     type: 'line',
     data: { datasets },
@@ -208,5 +213,6 @@ export function trendSummary(props: TrendPlotProps): string {
   const [min, max] = timeRange(trend);
   const span = trend.clock === 'line' ? `lines ${min} to ${max}` : `${clockText(min, trend.calendar)} to ${clockText(max, trend.calendar)} (${durationText(max - min)})`;
   const left = windows.length === 0 ? 'No time window left out.' : `${windows.length} time window${windows.length === 1 ? '' : 's'} left out, shaded: ${windows.map((w) => `${w.label || 'window'} from ${timeText(trend, w.fromSeconds)} to ${timeText(trend, w.toSeconds)}`).join('; ')}.`;
-  return `Trend of ${trend.signals.map(signalLabel).join(', ')} over ${span}; ${trendSubtitle(trend)}. ${left}`;
+  const over = props.runTime ? `${span} of run time, the runs drawn over one another` : span;
+  return `Trend of ${trend.signals.map(signalLabel).join(', ')} over ${over}; ${trendSubtitle(trend)}. ${left}`;
 }

@@ -62,9 +62,9 @@ export function planEvaluation(project: ProjectDocument, data: TransitionSet): R
 function startStatesFor(project: ProjectDocument, data: TransitionSet): Result<StartStates> {
   const ds = data.stateDim;
   if (project.startStates.kind === 'episodeStarts') {
-    if (data.episodeCount < 1) return failure({ where: 'startStates', field: ['startStates'], message: 'the data has no episodes, so there are no start states' });
+    if (data.episodeCount < 1) return failure({ where: 'startStates', field: ['startStates'], message: 'the data has no runs, so there are no start states' });
     if (data.startStates.length === 0) {
-      return failure({ where: 'startStates', field: ['startStates'], message: 'no episode of the data keeps its first row (each was excluded), so there are no start states; fix those rows or give start states in the project' });
+      return failure({ where: 'startStates', field: ['startStates'], message: 'no run of the data keeps its first row (each was excluded), so there are no start states; fix those rows or give start states in the project' });
     }
     return success({ states: data.startStates, count: data.startStates.length / ds, followEpisodes: true, episode: data.startEpisode });
   }

@@ -32,7 +32,7 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
     row('Importance weights: effective share of the one-step ratios', (c) => formatPercent(weights(c)?.oneStepShare), ''),
-    row(`Importance weights: effective episodes at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return w ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes}` : '—'; }, ''),
+    row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return w ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes}` : '—'; }, ''),
     row('Action probability outside the logged range near the state: mean', (c) => formatPercent(c.diagnostics.actionSupport.meanOutside), formatPercent(first?.actionSupport.behaviourMeanOutside)),
     row('… 90th percentile over states', (c) => formatPercent(c.diagnostics.actionSupport.p90Outside), ''),
     row('… largest', (c) => formatPercent(c.diagnostics.actionSupport.maxOutside), ''),
@@ -65,7 +65,7 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
           <figcaption>Figure ${n}. ${c.name}: J by fitted Q-evaluation and by each applicable cross-check, with ${level} percentile bootstrap intervals over the same resamples.</figcaption></figure>`;
     })}
     <h3>What each method rests on</h3>
-    <ul><li><strong>Fitted Q-evaluation:</strong> the features represent ${raw('Q<sup>π</sup>')} well where the candidate goes (see Diagnostics), and episodes are independent.</li>
+    <ul><li><strong>Fitted Q-evaluation:</strong> the features represent ${raw('Q<sup>π</sup>')} well where the candidate goes (see Diagnostics), and runs are independent of one another.</li>
     ${(a.candidates[0]?.crossChecks ?? []).map((x) => html`<li><strong>${x.label}:</strong> ${x.assumption}</li>`)}</ul></section>`;
 }
 

@@ -62,9 +62,9 @@ export function settingsSection(input: ReportInput): Html {
       <tr><th>Discount γ per logged step</th><td>${formatNumber(s.discount)} (effective horizon ${formatNumber(1 / (1 - s.discount), 4)} steps)</td></tr>
       <tr><th>Approximator</th><td>${s.approximator}</td></tr>
       <tr><th>Action quadrature</th><td>${s.quadratureNodes} Gauss–Hermite nodes per action</td></tr>
-      <tr><th>Start states</th><td>${s.startStates} (${input.project.startStates.kind === 'given' ? 'given in the project' : 'the first state of each logged episode'})</td></tr>
+      <tr><th>Start states</th><td>${s.startStates} (${input.project.startStates.kind === 'given' ? 'given in the project' : 'the first state of each logged run'})</td></tr>
       <tr><th>Seed</th><td>${s.seed}</td></tr>
-      ${a ? html`<tr><th>Bootstrap</th><td>${a.settings.resamples} resamples of the ${a.settings.episodes} episodes, level ${formatPercent(a.settings.level, 0)}, seed ${a.settings.seed}; ${a.settings.solver}</td></tr>` : ''}
+      ${a ? html`<tr><th>Bootstrap</th><td>${a.settings.resamples} resamples of the ${a.settings.episodes} runs, level ${formatPercent(a.settings.level, 0)}, seed ${a.settings.seed}; ${a.settings.solver}</td></tr>` : ''}
     </tbody></table>
     ${a ? methodList(a) : html`<p><strong>Intervals, cross-checks and diagnostics were not computed:</strong> ${input.assessmentProblems.join('; ')}</p>`}</section>`;
 }

@@ -77,7 +77,7 @@ describe('function-class rule: mechanics', () => {
   it('labels a single class as covering sampling only', () => {
     const v = functionClassVerdict([at('degree 2', -10, 0.2)]);
     expect(v.covers).toBe('sampling');
-    expect(v.coverageText).toMatch(/sampling of episodes only/);
+    expect(v.coverageText).toMatch(/sampling of runs only/);
     expect(v.range).toEqual([-10 - 1.645 * 0.2, -10 + 1.645 * 0.2]);
   });
 

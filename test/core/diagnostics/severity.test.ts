@@ -35,7 +35,7 @@ describe('severity', () => {
     expect(occupancyShiftFinding(6, 3)).toBeNull();
     expect(occupancyShiftFinding(40, 3)).toMatchObject({ severity: 'serious', message: expect.stringMatching(/above the serious limit 30/) });
     expect(effectiveShareFinding(2, 300, 33)).toMatchObject({ severity: 'serious', topic: 'importanceWeights' });
-    expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20\.0 of 300 episodes \(below 10 %\)/);
+    expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20\.0 of 300 runs \(below 10 %\)/);
     expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the logged controller itself: 2\.0 %\)/);
   });
 });

@@ -26,7 +26,7 @@ describe('crossCheckVerdict', () => {
   it('is uninformative when the importance weights collapse or the tail carries most of the weight', () => {
     const ok = { ...base, shareOutsideLogs: undefined, label: 'Doubly robust' };
     expect(crossCheckVerdict({ ...ok, weights }).agreement).toBe('agrees');
-    expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 29 } }).note).toMatch(/effective size of 29\.0 episodes \(below 30\)/);
+    expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 29 } }).note).toMatch(/effective size of 29\.0 runs \(below 30\)/);
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 9, episodesReaching: 40 } }).note).toMatch(/below 10/);
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, tailWeight: 0.6 } }).note).toMatch(/60 % of the discount weight lies past/);
   });

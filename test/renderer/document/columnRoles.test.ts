@@ -45,13 +45,28 @@ describe('column roles', () => {
   });
 
   it('moves a single role from one column to another', () => {
-    let doc = mapped();
+    let doc = assignRole(mapped(), HEADER, 'run', 'unused');
     doc = assignRole(doc, HEADER, 'time_s', 'timestamp');
     expect(doc.columns.episode).toEqual({ kind: 'timeGap', column: 'time_s' });
-    expect(roleOf(doc.columns, 'run')).toBe('unused');
     doc = assignRole(doc, HEADER, 'time_s', 'cost');
     expect(roleOf(doc.columns, 'cost')).toBe('unused');
     expect(doc.columns.episode).toEqual({ kind: 'single' });
+  });
+
+  it('a timestamp beside a run label is the log’s clock (it may restart in each run); without the label its gaps split the runs', () => {
+    let doc = assignRole(mapped(), HEADER, 'time_s', 'timestamp');
+    expect(doc.columns.episode).toEqual({ kind: 'column', column: 'run' });
+    expect(doc.columns.timestamp).toBe('time_s');
+    expect([roleOf(doc.columns, 'run'), roleOf(doc.columns, 'time_s')]).toEqual(['episode', 'timestamp']);
+    doc = assignRole(doc, HEADER, 'run', 'unused');
+    expect(doc.columns.episode).toEqual({ kind: 'timeGap', column: 'time_s' });
+    expect(doc.columns.timestamp).toBeUndefined();
+    doc = assignRole(doc, HEADER, 'run', 'episode');
+    expect(doc.columns.episode).toEqual({ kind: 'column', column: 'run' });
+    expect(doc.columns.timestamp).toBe('time_s');
+    doc = assignRole(doc, HEADER, 'time_s', 'unused');
+    expect(doc.columns.timestamp).toBeUndefined();
+    expect(doc.columns.episode).toEqual({ kind: 'column', column: 'run' });
   });
 
   it('collects next-state columns per state and goes back to the next row when none is left', () => {

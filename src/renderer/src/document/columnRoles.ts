@@ -4,6 +4,10 @@
  * adds a zero gain entry to every candidate (and an empty next-state column), a new action adds an
  * offset, a gain row, a standard deviation and open bounds; removing one removes those entries.
  * Single roles (reward, episode, timestamp, terminal) move from their old column to the new one.
+ *
+ * A timestamp splits the runs at its gaps while no column labels the runs (columns.episode
+ * timeGap); next to a run label it is the log's clock only (columns.timestamp), which may start
+ * again in each run (run time), so the two roles can be held by two columns at once.
  */
 import type { CandidateSpec, ColumnRoles, ProjectDocument } from '../../../project/schema';
 import { candidateWithActionInserted, candidateWithActionRemoved, candidateWithStateInserted, candidateWithStateRemoved } from '../../../project/candidateColumns';
@@ -19,6 +23,7 @@ export function roleOf(columns: ColumnRoles, column: string): ColumnRole {
   if (columns.reward.kind === 'column' && columns.reward.column === column) return columns.reward.sense;
   if (columns.episode.kind === 'column' && columns.episode.column === column) return 'episode';
   if (columns.episode.kind === 'timeGap' && columns.episode.column === column) return 'timestamp';
+  if (columns.timestamp === column) return 'timestamp';
   if (columns.terminal === column) return 'terminal';
   if (columns.nextState.kind === 'columns') {
     const index = columns.nextState.columns.indexOf(column);
@@ -33,8 +38,8 @@ export function assignRole(doc: ProjectDocument, header: readonly string[], colu
   if (role === 'state') next = addState(next, header, column);
   else if (role === 'action') next = addAction(next, header, column);
   else if (role === 'reward' || role === 'cost') next = withColumns(next, { reward: { kind: 'column', column, sense: role } });
-  else if (role === 'episode') next = withColumns(next, { episode: { kind: 'column', column } });
-  else if (role === 'timestamp') next = withColumns(next, { episode: { kind: 'timeGap', column } });
+  else if (role === 'episode') next = withRunLabel(next, column);
+  else if (role === 'timestamp') next = withTimestamp(next, column);
   else if (role === 'terminal') next = withColumns(next, { terminal: column });
   else if (role.startsWith('next:')) next = setNextState(next, role.slice('next:'.length), column);
   return next;
@@ -53,6 +58,19 @@ function mapCandidates(doc: ProjectDocument, f: (c: CandidateSpec) => CandidateS
   return { ...doc, candidates: doc.candidates.map(f) };
 }
 
+/** A run label; a timestamp that split the runs at its gaps stays as the log's clock. */
+function withRunLabel(doc: ProjectDocument, column: string): ProjectDocument {
+  const c = doc.columns;
+  const clock = c.episode.kind === 'timeGap' ? c.episode.column : c.timestamp;
+  return withColumns(doc, { episode: { kind: 'column', column }, timestamp: clock });
+}
+
+/** Beside a run label, the log's clock; with none, the clock whose gaps split the runs (one timestamp column either way). */
+function withTimestamp(doc: ProjectDocument, column: string): ProjectDocument {
+  if (doc.columns.episode.kind === 'column') return withColumns(doc, { timestamp: column });
+  return withColumns(doc, { episode: { kind: 'timeGap', column }, timestamp: undefined });
+}
+
 /** The document with `column` in no role at all. */
 function releaseColumn(doc: ProjectDocument, column: string): ProjectDocument {
   const c = doc.columns;
@@ -63,8 +81,11 @@ function releaseColumn(doc: ProjectDocument, column: string): ProjectDocument {
   if (actionIndex >= 0) next = removeAction(next, actionIndex);
   const n = next.columns;
   if (n.reward.kind === 'column' && n.reward.column === column) next = withColumns(next, { reward: { ...n.reward, column: '' } });
-  if (n.episode.kind !== 'single' && n.episode.column === column) next = withColumns(next, { episode: { kind: 'single' } });
+  if (n.episode.kind === 'column' && n.episode.column === column && n.timestamp !== undefined) {
+    next = withColumns(next, { episode: { kind: 'timeGap', column: n.timestamp }, timestamp: undefined }); // the clock splits the runs again
+  } else if (n.episode.kind !== 'single' && n.episode.column === column) next = withColumns(next, { episode: { kind: 'single' } });
   if (n.terminal === column) next = withColumns(next, { terminal: undefined });
+  if (n.timestamp === column) next = withColumns(next, { timestamp: undefined });
   if (n.nextState.kind === 'columns' && n.nextState.columns.includes(column)) {
     next = withNextColumns(next, n.nextState.columns.map((x) => (x === column ? '' : x)));
   }

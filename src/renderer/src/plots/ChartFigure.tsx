@@ -9,7 +9,7 @@ import { useEffect, useId, useRef, useState, type CSSProperties, type KeyboardEv
 import type { PlotSpec } from '../../../figures/writers/plotSpec';
 import type { PlotPalette } from '../../../figures/parts/plotTheme';
 import { attachFigure, type FigureHandle, type FigureState } from './chartHost';
-import type { FigureInspection, FigureSize, KeyNavigation, PointerKind } from './chartMessages';
+import type { FigureInspection, FigureSize, KeyNavigation, PlotFrame, PointerKind } from './chartMessages';
 import { NAVIGATION_KEYS } from './keyNavigation';
 
 const KEY_HINT = 'Arrow keys step through the values; Escape hides the readout.';
@@ -24,6 +24,8 @@ interface ChartFigureProps {
   spec: PlotSpec;
   /** Arrow keys walk a grid of this many values per row (the heat map); else the list of values. */
   keyColumns?: number;
+  /** Hears where each drawing put its plot area (null while a drawing is pending or failed), for gestures on the figure. */
+  onFrame?: (frame: PlotFrame | null) => void;
 }
 
 const visuallyHidden: CSSProperties = {
@@ -45,7 +47,7 @@ function measure(box: HTMLElement): FigureSize {
 
 const sameSize = (a: FigureSize | null, b: FigureSize) => a !== null && a.widthPx === b.widthPx && a.heightPx === b.heightPx && a.pixelRatio === b.pixelRatio;
 
-export function ChartFigure({ testId, label, summary, heightPx, palette, spec, keyColumns }: ChartFigureProps) {
+export function ChartFigure({ testId, label, summary, heightPx, palette, spec, keyColumns, onFrame }: ChartFigureProps) {
   const figureRef = useRef<HTMLElement>(null);
   const boxRef = useRef<HTMLDivElement>(null);
   const handleRef = useRef<FigureHandle | null>(null);
@@ -54,6 +56,9 @@ export function ChartFigure({ testId, label, summary, heightPx, palette, spec, k
   const requestRef = useRef<((version: number) => void) | null>(null);
   const [state, setState] = useState<FigureState | null>(null);
   const summaryId = useId();
+  const onFrameRef = useRef(onFrame);
+  onFrameRef.current = onFrame;
+  useEffect(() => onFrameRef.current?.(state?.status === 'drawn' ? state.frame ?? null : null), [state]);
 
   // The canvas is made here, not by React: once handed to the worker it cannot be handed again,
   // so a remount (StrictMode, a new figure) gets a fresh one.

@@ -6,14 +6,23 @@
 import { useMemo } from 'react';
 import { plotPalette } from '../../../figures/parts/plotTheme';
 import { plotScreenHeight, plotSummary, plotTitle, type PlotSpec } from '../../../figures/writers/plotSpec';
+import type { PlotFrame } from './chartMessages';
 import { ChartFigure } from './ChartFigure';
 
-export function PlotFigure({ spec, keyColumns, testId }: { spec: PlotSpec; keyColumns?: number; testId?: string }) {
+interface PlotFigureProps {
+  spec: PlotSpec;
+  keyColumns?: number;
+  testId?: string;
+  /** Where each drawing put its plot area (see ChartFigure). */
+  onFrame?: (frame: PlotFrame | null) => void;
+}
+
+export function PlotFigure({ spec, keyColumns, testId, onFrame }: PlotFigureProps) {
   const summary = useMemo(() => plotSummary(spec), [spec]);
   return (
     <ChartFigure
       testId={testId ?? `plot-${spec.kind}`} label={plotTitle(spec)} summary={summary} heightPx={plotScreenHeight(spec)}
-      palette={plotPalette(spec.props.theme)} spec={spec} keyColumns={keyColumns}
+      palette={plotPalette(spec.props.theme)} spec={spec} keyColumns={keyColumns} onFrame={onFrame}
     />
   );
 }

@@ -8,9 +8,9 @@
  * browser delivers them to a canvas's own listeners.
  */
 import type { ExportOptions, PlotSpec } from '../../../figures/writers/plotSpec';
-import type { ChartReply, ChartRequest, FigureInspection, FigureSize, KeyNavigation, PointerKind } from './chartMessages';
+import type { ChartReply, ChartRequest, FigureInspection, FigureSize, KeyNavigation, PlotFrame, PointerKind } from './chartMessages';
 
-export type FigureState = { status: 'drawn'; version: number } | { status: 'failed'; version: number; message: string };
+export type FigureState = { status: 'drawn'; version: number; frame?: PlotFrame } | { status: 'failed'; version: number; message: string };
 
 export interface FigureHandle {
   /** Each returns the version the worker's report of this drawing will carry. */
@@ -42,7 +42,7 @@ function chartWorker(): WorkerLike {
 
 function receive(reply: ChartReply): void {
   switch (reply.type) {
-    case 'drawn': listeners.get(reply.figure)?.({ status: 'drawn', version: reply.version }); return;
+    case 'drawn': listeners.get(reply.figure)?.({ status: 'drawn', version: reply.version, ...(reply.frame ? { frame: reply.frame } : {}) }); return;
     case 'failed': listeners.get(reply.figure)?.({ status: 'failed', version: reply.version, message: reply.message }); return;
     case 'inspected': settle(reply.request, (p) => p.resolve(reply.inspection as never)); return;
     case 'exported': settle(reply.request, (p) => p.resolve(reply.bytes as never)); return;

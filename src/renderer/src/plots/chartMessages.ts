@@ -42,6 +42,20 @@ export interface PlacedBox {
   bottom: number;
 }
 
+/**
+ * Where a drawn chart put its plot area (CSS px from the figure's top left) and the x values at
+ * its left and right edges, so a gesture on the page can turn a pointer position into a value on
+ * a linear x axis without asking the worker: x = xAtLeft + (px − left)/(right − left)·(xAtRight − xAtLeft).
+ */
+export interface PlotFrame {
+  left: number;
+  right: number;
+  top: number;
+  bottom: number;
+  xAtLeft: number;
+  xAtRight: number;
+}
+
 export interface FigureInspection {
   width: number;
   height: number;
@@ -54,7 +68,7 @@ export interface FigureInspection {
 }
 
 export type ChartReply =
-  | { type: 'drawn'; figure: number; version: number }
+  | { type: 'drawn'; figure: number; version: number; frame?: PlotFrame }
   | { type: 'failed'; figure: number; version: number; message: string }
   | { type: 'inspected'; request: number; inspection: FigureInspection | null }
   | { type: 'exported'; request: number; bytes: Uint8Array }

@@ -8,7 +8,7 @@ import { Chart, type ChartConfiguration } from 'chart.js';
 import { registerChartParts } from '../../../figures/parts/chartParts';
 import { screenLook } from '../../../figures/parts/plotLook';
 import { plotChartConfig, type PlotSpec } from '../../../figures/writers/plotSpec';
-import type { ChartReply, ChartRequest, FigureInspection, FigureSize, KeyNavigation, PointerKind } from './chartMessages';
+import type { ChartReply, ChartRequest, FigureInspection, FigureSize, KeyNavigation, PlotFrame, PointerKind } from './chartMessages';
 import { ForwardedEventsPlatform } from './forwardedEventsPlatform';
 import { keyStepOf } from './keyNavigation';
 
@@ -37,7 +37,21 @@ export function drawFigure(canvas: OffscreenCanvas, spec: PlotSpec, size: Figure
   });
 }
 
+/** The plot area and the values at its left and right edges, for a chart whose x axis is linear. */
+export function plotFrameOf(chart: Chart): PlotFrame | undefined {
+  const a = chart.chartArea, x = chart.scales.x;
+  if (!a || !x || x.type !== 'linear') return undefined;
+  const xAtLeft = x.getValueForPixel(a.left), xAtRight = x.getValueForPixel(a.right);
+  if (xAtLeft === undefined || xAtRight === undefined || !Number.isFinite(xAtLeft) || !Number.isFinite(xAtRight)) return undefined;
+  return { left: a.left, right: a.right, top: a.top, bottom: a.bottom, xAtLeft, xAtRight };
+}
+
 export function createFigureCharts(post: Post) {
+  const drawn = (figure: number, slot: Slot): void => {
+    const frame = slot.chart ? plotFrameOf(slot.chart) : undefined;
+    post({ type: 'drawn', figure, version: slot.version, ...(frame ? { frame } : {}) });
+  };
+
   const slots = new Map<number, Slot>();
 
   function redraw(figure: number, slot: Slot): void {
@@ -51,7 +65,7 @@ export function createFigureCharts(post: Post) {
     }
     try {
       slot.chart = drawFigure(slot.canvas, slot.spec, slot.size);
-      post({ type: 'drawn', figure, version: slot.version });
+      drawn(figure, slot);
     } catch (error) {
       post({ type: 'failed', figure, version: slot.version, message: error instanceof Error ? error.message : String(error) });
     }
@@ -62,7 +76,7 @@ export function createFigureCharts(post: Post) {
     slot.size = size;
     if (slot.chart && before && before.pixelRatio === size.pixelRatio && size.widthPx > 0 && size.heightPx > 0) {
       slot.chart.resize(size.widthPx, size.heightPx);
-      post({ type: 'drawn', figure, version: slot.version });
+      drawn(figure, slot);
     } else {
       redraw(figure, slot);
     }

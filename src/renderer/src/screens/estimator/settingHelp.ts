@@ -22,7 +22,7 @@ export const SETTING_HELP = {
   backend: 'How the network is computed: WebAssembly where it loads and passes its check, else plain JavaScript. The numbers agree to rounding.',
   quadratureNodes: 'Points per action at which Q is averaged over the candidate’s dither (Gauss–Hermite rule); 10 is plenty for smooth Q.',
   seed: 'Random seed; the same seed, data and settings give the same numbers.',
-  bootstrap: 'After each run, whole runs (episodes) of the log are drawn again at random with replacement and the fit repeated (the bootstrap), giving intervals, paired comparisons and how often the ranking holds.',
+  bootstrap: 'After each run, whole runs of the log are drawn again at random with replacement and the fit repeated (the bootstrap), giving intervals, paired comparisons and how often the ranking holds.',
   resamples: 'How many times the runs are drawn again (20–100,000); 1,000 steadies the interval ends, 200 is enough for a first look.',
   level: 'Share of resamples the interval covers (0.5 to below 1); 0.9 gives a 90 % interval.',
   startStates: 'J averages V over the first state of every logged run.',

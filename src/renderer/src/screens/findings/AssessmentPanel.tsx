@@ -64,7 +64,7 @@ function AssessmentStatus({ record, state }: { record: EvaluationRecord; state: 
             </p>
           )}
           {state?.status === 'failed' && <ProblemList title="The intervals and checks could not be computed" problems={state.problems} testId="assessment-problems" />}
-          <p className="small muted">Bootstrap intervals over episodes, cross-checks by other estimators, coverage diagnostics and the sensitivity to the settings.</p>
+          <p className="small muted">Bootstrap intervals over runs, cross-checks by other estimators, coverage diagnostics and the sensitivity to the settings.</p>
           <button onClick={compute} data-testid="compute-assessment">Compute intervals and checks</button>
         </>
       )}

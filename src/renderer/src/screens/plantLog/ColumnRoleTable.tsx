@@ -13,10 +13,21 @@ const BASE_ROLES: { value: ColumnRole; label: string }[] = [
   { value: 'action', label: 'Action' },
   { value: 'reward', label: 'Reward (higher is better)' },
   { value: 'cost', label: 'Cost (lower is better)' },
-  { value: 'episode', label: 'Run or batch label (episode)' },
-  { value: 'timestamp', label: 'Timestamp (runs split at gaps)' },
+  { value: 'episode', label: 'Run or batch label' },
+  { value: 'timestamp', label: 'Timestamp' },
   { value: 'terminal', label: 'End-of-run flag (1 = the run ends here)' },
 ];
+
+/** The role as the undo list names it: "make run the run label". */
+const ROLE_WORDS: Partial<Record<ColumnRole, string>> = {
+  state: 'a state', action: 'an action', reward: 'the reward', cost: 'the cost', episode: 'the run label', timestamp: 'the timestamp', terminal: 'the end-of-run flag',
+};
+
+/** The timestamp splits the runs at its gaps unless a column labels them (then it is the log's clock, which may restart in each run). */
+function rolesFor(episode: { kind: string }): { value: ColumnRole; label: string }[] {
+  const timestamp = episode.kind === 'column' ? 'Timestamp (the log’s clock; runs from the run label)' : 'Timestamp (runs split at gaps)';
+  return BASE_ROLES.map((r) => (r.value === 'timestamp' ? { ...r, label: timestamp } : r));
+}
 
 export function ColumnRoleTable() {
   const { documents } = useWorkspace();
@@ -26,7 +37,8 @@ export function ColumnRoleTable() {
   const { header, previewRows } = inspection;
   const nextRoles = doc.columns.states.map((s) => ({ value: `next:${s.column}` as ColumnRole, label: `Next value of ${s.column}` }));
   const setRole = (column: string, role: ColumnRole): void =>
-    documents.edit(`make ${column} ${role === 'unused' ? 'unused' : `a ${role.replace('next:', 'next value of ')}`}`, (d) => assignRole(d, header, column, role));
+    documents.edit(`make ${column} ${role === 'unused' ? 'unused' : ROLE_WORDS[role] ?? `the ${role.replace('next:', 'next value of ')}`}`, (d) => assignRole(d, header, column, role));
+  const roles = rolesFor(doc.columns.episode);
   return (
     <section className="panel" aria-labelledby="roles-heading">
       <h3 id="roles-heading">Column roles</h3>
@@ -50,7 +62,7 @@ export function ColumnRoleTable() {
                   <td>
                     <label className="sr-only" htmlFor={`role-${index}`}>Role of {column}</label>
                     <select id={`role-${index}`} data-testid={`role-${column}`} value={role} onChange={(e) => setRole(column, e.target.value as ColumnRole)}>
-                      {[...BASE_ROLES, ...nextRoles.filter((r) => r.value !== `next:${column}`)].map((r) => <option key={r.value} value={r.value}>{r.label}</option>)}
+                      {[...roles, ...nextRoles.filter((r) => r.value !== `next:${column}`)].map((r) => <option key={r.value} value={r.value}>{r.label}</option>)}
                     </select>
                   </td>
                   <td>

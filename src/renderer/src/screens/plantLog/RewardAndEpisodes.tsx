@@ -27,7 +27,7 @@ export function RewardAndEpisodes() {
   const parts = { columns: doc.columns, problems, set, closeStep: documents.closeStep };
   return (
     <section className="panel" aria-labelledby="reward-heading">
-      <h3 id="reward-heading">Reward, episodes and next state</h3>
+      <h3 id="reward-heading">Reward, runs and next state</h3>
       <RewardFieldset {...parts} />
       <EpisodeFieldset {...parts} />
       <NextStateFieldset {...parts} />
@@ -76,7 +76,7 @@ function EpisodeFieldset({ columns, problems, set, closeStep }: PartProps) {
   const episode = columns.episode;
   return (
     <fieldset>
-      <legend>Runs (episodes)</legend>
+      <legend>Runs</legend>
       <p className="small">
         {episode.kind === 'column' && <>A new run starts wherever <span className="mono">{episode.column}</span> changes.</>}
         {episode.kind === 'timeGap' && <>A new run starts where <span className="mono">{episode.column}</span> jumps by more than the gap below.</>}
@@ -86,7 +86,7 @@ function EpisodeFieldset({ columns, problems, set, closeStep }: PartProps) {
         <NumberField
           label="Largest gap within a run (s)" value={episode.maxGapSeconds ?? null} allowBlank placeholder="3× median step"
           help="Leave blank for three times the median sampling period." message={problemAt(problems, 'columns.episode.maxGapSeconds')}
-          onCommit={(v) => set('set the episode gap', { episode: { ...episode, maxGapSeconds: v ?? undefined } }, 'max-gap')}
+          onCommit={(v) => set('set the largest gap within a run', { episode: { ...episode, maxGapSeconds: v ?? undefined } }, 'max-gap')}
           onBlur={closeStep}
         />
       )}
