@@ -15,9 +15,10 @@
 import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
 import {
-  accumulateSegmentSums, bellmanSumsStride, statisticsFromSums, type AccumulationHooks, type BellmanStatistics,
+  segmentSumsSteps, bellmanSumsStride, statisticsFromSums, type AccumulationHooks, type BellmanStatistics,
 } from '../fqe/bellmanStatistics';
 import type { TransitionSet } from '../transitions';
+import { runSteps, type PassSteps } from '../fqe/cancellation';
 import { BootstrapError } from './episodeMultiplicities';
 import { indexEpisodes, type EpisodeIndex } from './episodeTransitions';
 
@@ -35,12 +36,19 @@ export const MAX_STORED_VALUES = 1 << 28;
 export function episodeBellmanSums(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {}, index: EpisodeIndex = indexEpisodes(data),
 ): EpisodeBellmanSums {
+  return runSteps(episodeBellmanSumsSteps(data, features, quadrature, hooks, index));
+}
+
+/** episodeBellmanSums as a pass that yields after every block (cancellation.ts). */
+export function* episodeBellmanSumsSteps(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {}, index: EpisodeIndex = indexEpisodes(data),
+): PassSteps<EpisodeBellmanSums> {
   const e = index.episodes, d = features.dim, stride = bellmanSumsStride(d);
   if (e * stride > MAX_STORED_VALUES) {
     throw new BootstrapError(`the per-episode sums of ${e} episodes × ${d} features would need ${Math.round((e * stride * 8) / 2 ** 20)} MiB; use fewer features or join episodes`);
   }
   const sums = new Float64Array(e * stride);
-  accumulateSegmentSums(data, features, quadrature, index, sums, hooks);
+  yield* segmentSumsSteps(data, features, quadrature, index, sums, hooks);
   return { episodes: e, dim: d, stride, sums };
 }
 

@@ -14,7 +14,7 @@
 import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
 import type { TransitionSet } from '../transitions';
-import { throwIfCancelled, type CancellationCheck } from './cancellation';
+import { runSteps, throwIfCancelled, type CancellationCheck, type PassSteps } from './cancellation';
 import { FqeDataError } from './fqeErrors';
 import { createTransitionFeatureReader, type TransitionFeatureReader } from './transitionFeatures';
 
@@ -61,10 +61,17 @@ export interface TransitionSegments {
 export function accumulateBellmanStatistics(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {},
 ): BellmanStatistics {
+  return runSteps(bellmanStatisticsSteps(data, features, quadrature, hooks));
+}
+
+/** accumulateBellmanStatistics as a pass that yields after every block (cancellation.ts). */
+export function* bellmanStatisticsSteps(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {},
+): PassSteps<BellmanStatistics> {
   const n = data.count, d = features.dim;
   const whole = { order: Int32Array.from({ length: n }, (_, i) => i), offsets: Int32Array.of(0, n) };
   const sums = new Float64Array(bellmanSumsStride(d));
-  accumulateSegmentSums(data, features, quadrature, whole, sums, hooks);
+  yield* segmentSumsSteps(data, features, quadrature, whole, sums, hooks);
   const stats = statisticsFromSums(sums, d);
   checkStatisticsFinite(stats, data, features, quadrature);
   return stats;
@@ -81,6 +88,14 @@ export function accumulateSegmentSums(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, segments: TransitionSegments,
   out: Float64Array, hooks: AccumulationHooks = {},
 ): void {
+  runSteps(segmentSumsSteps(data, features, quadrature, segments, out, hooks));
+}
+
+/** accumulateSegmentSums as a pass that yields after every block. */
+export function* segmentSumsSteps(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, segments: TransitionSegments,
+  out: Float64Array, hooks: AccumulationHooks = {},
+): PassSteps<void> {
   const n = segments.order.length, d = features.dim, stride = bellmanSumsStride(d);
   const blockRows = Math.max(64, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
   const reader = createTransitionFeatureReader(data, features, quadrature), block = newBlock(d, blockRows);
@@ -95,6 +110,7 @@ export function accumulateSegmentSums(
       // After every block (at most about 1.3·10⁵ feature values): hosts throttle what they show.
       throwIfCancelled(hooks.cancel);
       hooks.onDataPass?.(done, n);
+      yield;
     }
     out[base + stride - 1] += end - segments.offsets[k];
   }

@@ -15,11 +15,12 @@
  *   - it diverged: the fixed point with its warning when one exists, "diverged"; else an error.
  */
 import { createActionQuadrature, type ActionQuadrature } from '../../core/actionQuadrature';
-import { episodeBellmanSums, resampleBellmanStatistics, type EpisodeBellmanSums } from '../../core/bootstrap/episodeBellmanSums';
+import { episodeBellmanSumsSteps, resampleBellmanStatistics, type EpisodeBellmanSums } from '../../core/bootstrap/episodeBellmanSums';
 import { unitMultiplicities } from '../../core/bootstrap/episodeMultiplicities';
-import { linearisedReplicates } from '../../core/bootstrap/linearisedReplicate';
+import { linearisedReplicatesSteps } from '../../core/bootstrap/linearisedReplicate';
+import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, type PassSteps } from '../../core/fqe/cancellation';
 import { startStateFeatures } from '../../core/features/policyFeatures';
-import { accumulateBellmanStatistics, bellmanSumsStride, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
+import { bellmanStatisticsSteps, bellmanSumsStride, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
 import { solveLinearFqe } from '../../core/fqe/linearFqeSolve';
 import { MAX_EXACT_RESAMPLE_VALUES } from '../../core/limits';
 import type { CandidateFit } from '../candidateFit';
@@ -38,9 +39,18 @@ export function planLinearFit(plan: EvaluationPlan): LinearFitSpec {
 }
 
 export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}, settings: LinearFitSpec = planLinearFit(plan)): CandidateModel {
+  return runSteps(linearModelSteps(plan, planned, hooks, settings));
+}
+
+/** buildLinearModel awaiting hooks.pace (default: a yield to the event loop about every PACE_INTERVAL_MS) between slices, so a host's cancel is heard during a data pass. */
+export function buildLinearModelPaced(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}, settings: LinearFitSpec = planLinearFit(plan)): Promise<CandidateModel> {
+  return runStepsPaced(linearModelSteps(plan, planned, hooks, settings), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
+}
+
+function* linearModelSteps(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, settings: LinearFitSpec): PassSteps<CandidateModel> {
   const { features } = settings, { data } = plan;
   const quadrature = createActionQuadrature(planned.policy, plan.quadratureNodes);
-  const { statistics, sums } = dataPass(plan, features, quadrature, hooks);
+  const { statistics, sums } = yield* dataPass(plan, features, quadrature, hooks);
   const startFeatures = startStateFeatures(features, quadrature, plan.starts.states, data.stateDim);
   const solved = solveLinearFqe({
     statistics, features, stateDim: data.stateDim, actionDim: data.actionDim, discount: plan.discount, ridge: settings.ridge,
@@ -57,7 +67,7 @@ export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, h
   };
   const resampling: LinearResampling = sums ? { kind: 'exact', sums }
     : !atFixedPoint ? { kind: 'none', reason: 'the fit did not converge, so there is no fixed point to take resamples around' }
-    : { kind: 'linearised', replicates: linearisedReplicates({
+    : { kind: 'linearised', replicates: yield* linearisedReplicatesSteps({
       data, index: plan.episodes, features, quadrature, statistics, weights, ridge: settings.ridge, discount: plan.discount,
       startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode, cancel: hooks.cancel,
     }) };
@@ -65,12 +75,12 @@ export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, h
 }
 
 /** The one pass: per episode when the sums are affordable (their total is the full data's), else the total only. */
-function dataPass(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks): { statistics: BellmanStatistics; sums: EpisodeBellmanSums | null } {
+function* dataPass(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks): PassSteps<{ statistics: BellmanStatistics; sums: EpisodeBellmanSums | null }> {
   const { data } = plan, passHooks = { cancel: hooks.cancel, onDataPass: hooks.onDataPass };
   if (plan.episodes.episodes * bellmanSumsStride(features.dim) > MAX_EXACT_RESAMPLE_VALUES) {
-    return { statistics: accumulateBellmanStatistics(data, features, quadrature, passHooks), sums: null };
+    return { statistics: yield* bellmanStatisticsSteps(data, features, quadrature, passHooks), sums: null };
   }
-  const sums = episodeBellmanSums(data, features, quadrature, passHooks, plan.episodes);
+  const sums = yield* episodeBellmanSumsSteps(data, features, quadrature, passHooks, plan.episodes);
   const statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
   checkStatisticsFinite(statistics, data, features, quadrature);
   return { statistics, sums };
