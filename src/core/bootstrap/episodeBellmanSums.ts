@@ -15,7 +15,7 @@
 import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
 import {
-  segmentSumsSteps, bellmanSumsStride, statisticsFromSums, type AccumulationHooks, type BellmanStatistics,
+  leadingSums, segmentSumsSteps, bellmanSumsStride, statisticsFromSums, type AccumulationHooks, type BellmanStatistics,
 } from '../fqe/bellmanStatistics';
 import type { TransitionSet } from '../transitions';
 import { runSteps, type PassSteps } from '../fqe/cancellation';
@@ -70,4 +70,11 @@ export function resampleBellmanStatistics(
   }
   if (!(scratch[stride - 1] > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
   return statisticsFromSums(scratch, d);
+}
+
+/** Each episode's sums of the first k features (leadingSums in bellmanStatistics.ts): a pass with the smaller nested map, to the last bit. */
+export function leadingEpisodeSums(sums: EpisodeBellmanSums, k: number): EpisodeBellmanSums {
+  const stride = bellmanSumsStride(k), out = new Float64Array(sums.episodes * stride);
+  for (let e = 0; e < sums.episodes; e++) leadingSums(sums.sums, e * sums.stride, sums.dim, out, e * stride, k);
+  return { episodes: sums.episodes, dim: k, stride, sums: out };
 }
