@@ -18,11 +18,11 @@ import { startRun } from '../src/pipeline/projectRun';
 
 const root = resolve(import.meta.dirname, '..');
 /** The peer scripts sit beside the main checkout (../shared/peers) or, from a worktree under ../wt/, two levels up; PEER_SCRIPTS overrides. */
-const peers = process.env.PEER_SCRIPTS ?? [resolve(root, '..', 'shared', 'peers'), resolve(root, '..', '..', 'shared', 'peers')].find((p) => existsSync(p)) ?? resolve(root, '..', 'shared', 'peers');
-const work = join(root, 'test-artifacts', 'bench-peer');
+export const peers = process.env.PEER_SCRIPTS ?? [resolve(root, '..', 'shared', 'peers'), resolve(root, '..', '..', 'shared', 'peers')].find((p) => existsSync(p)) ?? resolve(root, '..', 'shared', 'peers');
+export const work = join(root, 'test-artifacts', 'bench-peer');
 
 /** The peer's plant as a project: states s0, s1; action a0; reward r; its target policy u = −[1.6, 1.3]x + N(0, 0.3²); γ 0.95. */
-function peerProject(csv: string): string {
+export function peerProject(csv: string, quadratureNodes = 10): string {
   return JSON.stringify({
     format: 'setpoint-critic-project', version: 1, name: 'Peer LQ plant', data: { path: csv },
     columns: {
@@ -30,7 +30,7 @@ function peerProject(csv: string): string {
       nextState: { kind: 'columns', columns: ['next_s0', 'next_s1'] }, episode: { kind: 'column', column: 'episode' }, terminal: 'done',
     },
     discount: 0.95, candidates: [{ name: 'target', offset: [0], gain: [[-1.6, -1.3]], std: [0.3] }],
-    approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 }, ridge: 1e-6 }, quadratureNodes: 10,
+    approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 }, ridge: 1e-6 }, quadratureNodes,
   }, null, 2);
 }
 

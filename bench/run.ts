@@ -6,6 +6,7 @@
  *   npm run bench -- bootstrap    only the bootstrap resampling rates
  *   npm run bench -- retune       only the retune map
  *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script
+ *   npm run bench -- growth       slopes of evaluate time in transitions and in quadrature nodes
  *   npm run bench -- battery [options]   the battery sweep of the network and linear estimators
  *                                 (bench/batteryBench.ts; long: run it under `nice`)
  */
@@ -35,6 +36,10 @@ const jobs: Job[] = [
     name: `whole evaluate beside the numerical-Python peer, ${n.toLocaleString('en-US')} transitions`, group: 'peer',
     run: async () => (await import('./peerBench')).runPeerBench(n),
   })),
+  {
+    name: 'growth of the whole evaluate in transitions and in quadrature nodes (log–log slopes)', group: 'growth',
+    run: async () => (await import('./growthBench')).runGrowthBench(),
+  },
   ...[1_000_000].map((n) => ({
     name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',
     run: async () => ({ ...(await (await import('./importBench')).runImportBench(n)) }),

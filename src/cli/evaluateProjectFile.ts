@@ -67,7 +67,7 @@ export async function evaluateProjectFile(
   const wasmPath = tensorflowWasmFolder();
   if (project.approximator.kind === 'network') await quietTensorflow();
   const cancel = progress ? () => progress.cancelled() : undefined;
-  const started = await startRun(project, dataset, { wasmPath, cancel, onProgress: progress?.evaluation });
+  const started = await startRun(project, dataset, { wasmPath, cancel, pace: progress?.pace, onProgress: progress?.evaluation });
   if (!started.ok) return { ok: false, failure: failureOf(started.problems) };
   const run = started.value;
   try {

@@ -12,6 +12,8 @@ export interface TerminalProgress {
   assessment(progress: AssessmentProgress): void;
   /** Polled by the pipeline: true once the user pressed Ctrl+C. */
   cancelled(): boolean;
+  /** Awaited between slices of a data pass (default: the pipeline's pacer); tests yield at every slice. */
+  readonly pace?: () => Promise<void>;
   /** Clear the progress line and stop listening for Ctrl+C. */
   done(): void;
 }

@@ -16,25 +16,29 @@ import { TRANSITIONS_PER_FEATURE } from '../data/datasetChecks';
 import { replicator, type AssessmentContext, type ClassWork } from './assessCandidate';
 import { isEngineError } from './engineErrors';
 import type { CandidateModel, LinearFitSpec } from './model/candidateModel';
-import { buildLinearModel } from './model/linearModel';
+import { buildLinearModelPaced } from './model/linearModel';
 import { featureMapFor } from './plan/featureMapFor';
 
 export const COMPARED_DEGREES = [2, 3, 4] as const;
 /** Largest feature count of a compared class (the sensitivity sweep's limit as well; ours). */
 export const MAX_CLASS_FEATURES = 300;
 
-export function classWorks(context: AssessmentContext, model: CandidateModel): ClassWork[] {
+export async function classWorks(context: AssessmentContext, model: CandidateModel): Promise<ClassWork[]> {
   const { plan } = context, a = plan.approximator;
   const own = a.kind === 'linear' && a.features.kind === 'polynomial' ? a.features.degree : null;
   const out: ClassWork[] = [];
-  for (const degree of COMPARED_DEGREES) {
+  // Highest degree first: a higher degree's data pass (the project's own included) serves the lower
+  // degrees, whose monomials lead its own (linearModel.ts nestedStatistics).
+  const built: CandidateModel[] = [model];
+  for (const degree of [...COMPARED_DEGREES].reverse()) {
     if (degree === own) continue;
     throwIfCancelled(context.cancel);
     const spec = classSpec(context, degree);
     if (!spec) continue;
     try {
-      const fitted = buildLinearModel(plan, model, { cancel: context.cancel }, spec);
-      if (fitted.fit.status === 'converged') out.push({ label: polynomialClassLabel(degree), model: fitted, replicate: replicator(plan, fitted) });
+      const fitted = await buildLinearModelPaced(plan, model, { cancel: context.cancel }, spec, built);
+      built.push(fitted);
+      if (fitted.fit.status === 'converged') out.unshift({ label: polynomialClassLabel(degree), model: fitted, replicate: replicator(plan, fitted) });
     } catch (error) {
       if (!isEngineError(error)) throw error; // a class that cannot be fitted is simply not compared
     }

@@ -77,10 +77,11 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   const { plan } = run, { data, sign } = plan, { settings } = options;
   const all = [...run.models, ...(run.presentController ? [run.presentController] : [])];
   const progress = (done: number) => options.onProgress?.({ stage: 'preparing', done, total: all.length });
-  const works: CandidateWork[] = run.models.map((model, i) => {
+  const works: CandidateWork[] = [];
+  for (const [i, model] of run.models.entries()) {
     progress(i);
-    return candidateWork(context, model, classWorks(context, model));
-  });
+    works.push(candidateWork(context, model, await classWorks(context, model)));
+  }
   progress(run.models.length);
   const baseline = run.presentController ? candidateWork(context, run.presentController) : null;
   const baselineEnds = run.presentController ? finalStateValues(plan, run.presentController) : null;

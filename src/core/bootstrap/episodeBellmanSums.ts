@@ -15,9 +15,10 @@
 import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
 import {
-  accumulateSegmentSums, bellmanSumsStride, statisticsFromSums, type AccumulationHooks, type BellmanStatistics,
+  leadingSums, segmentSumsSteps, bellmanSumsStride, statisticsFromSums, type AccumulationHooks, type BellmanStatistics,
 } from '../fqe/bellmanStatistics';
 import type { TransitionSet } from '../transitions';
+import { runSteps, type PassSteps } from '../fqe/cancellation';
 import { BootstrapError } from './episodeMultiplicities';
 import { indexEpisodes, type EpisodeIndex } from './episodeTransitions';
 
@@ -35,12 +36,19 @@ export const MAX_STORED_VALUES = 1 << 28;
 export function episodeBellmanSums(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {}, index: EpisodeIndex = indexEpisodes(data),
 ): EpisodeBellmanSums {
+  return runSteps(episodeBellmanSumsSteps(data, features, quadrature, hooks, index));
+}
+
+/** episodeBellmanSums as a pass that yields after every block (cancellation.ts). */
+export function* episodeBellmanSumsSteps(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {}, index: EpisodeIndex = indexEpisodes(data),
+): PassSteps<EpisodeBellmanSums> {
   const e = index.episodes, d = features.dim, stride = bellmanSumsStride(d);
   if (e * stride > MAX_STORED_VALUES) {
     throw new BootstrapError(`the per-episode sums of ${e} episodes × ${d} features would need ${Math.round((e * stride * 8) / 2 ** 20)} MiB; use fewer features or join episodes`);
   }
   const sums = new Float64Array(e * stride);
-  accumulateSegmentSums(data, features, quadrature, index, sums, hooks);
+  yield* segmentSumsSteps(data, features, quadrature, index, sums, hooks);
   return { episodes: e, dim: d, stride, sums };
 }
 
@@ -62,4 +70,11 @@ export function resampleBellmanStatistics(
   }
   if (!(scratch[stride - 1] > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
   return statisticsFromSums(scratch, d);
+}
+
+/** Each episode's sums of the first k features (leadingSums in bellmanStatistics.ts): a pass with the smaller nested map, to the last bit. */
+export function leadingEpisodeSums(sums: EpisodeBellmanSums, k: number): EpisodeBellmanSums {
+  const stride = bellmanSumsStride(k), out = new Float64Array(sums.episodes * stride);
+  for (let e = 0; e < sums.episodes; e++) leadingSums(sums.sums, e * sums.stride, sums.dim, out, e * stride, k);
+  return { episodes: sums.episodes, dim: k, stride, sums: out };
 }

@@ -94,16 +94,70 @@ export function resampleMoments(moments: EpisodeMoments, multiplicities?: ArrayL
  * is what a resample's cost is bound by (memory traffic, not arithmetic).
  */
 export function resampleMomentsBlock(moments: EpisodeMoments, multiplicities: readonly ArrayLike<number>[]): RegressionMoments[] {
-  const { episodes, p, q, stride, sums } = moments, count = multiplicities.length;
+  const { episodes, p, q, stride } = moments, count = multiplicities.length;
   for (const c of multiplicities) if (c.length !== episodes) throw new BootstrapError(`multiplicities: expected ${episodes}, got ${c.length}`);
-  const totals = multiplicities.map(() => new Float64Array(stride)), ranges = summedRanges(p, q);
-  for (let k = 0; k < episodes; k++) {
-    for (let b = 0; b < count; b++) {
-      const c = multiplicities[b][k];
-      if (c !== 0) addScaled(totals[b], c, sums, k * stride, ranges);
+  const packed = packedMoments(moments), width = packed.index.length, out: RegressionMoments[] = [];
+  if (!packed.finite) return multiplicities.map((c) => split(rangeTotal(moments, c), p, q, stride));
+  for (let first = 0; first < count; first += 4) {
+    const block = multiplicities.slice(first, first + 4), totals = addFourScaled(packed.values, width, episodes, block);
+    for (let b = 0; b < block.length; b++) {
+      const total = new Float64Array(stride);
+      for (let j = 0; j < width; j++) total[packed.index[j]] = totals[b * width + j];
+      out.push(split(total, p, q, stride));
     }
   }
-  return totals.map((total) => split(total, p, q, stride));
+  return out;
+}
+
+/** The summed entries of each episode's moments side by side (e×width), and whether all are finite. */
+interface PackedMoments { readonly index: Int32Array; readonly values: Float64Array; readonly finite: boolean }
+const packedCache = new WeakMap<EpisodeMoments, PackedMoments>();
+
+function packedMoments(moments: EpisodeMoments): PackedMoments {
+  const cached = packedCache.get(moments);
+  if (cached) return cached;
+  const ranges = summedRanges(moments.p, moments.q), positions: number[] = [];
+  for (let r = 0; r < ranges.length; r += 2) for (let j = ranges[r]; j < ranges[r + 1]; j++) positions.push(j);
+  const index = Int32Array.from(positions), width = index.length, values = new Float64Array(moments.episodes * width);
+  let finite = true;
+  for (let k = 0; k < moments.episodes; k++) {
+    for (let j = 0; j < width; j++) {
+      const v = moments.sums[k * moments.stride + index[j]];
+      values[k * width + j] = v;
+      if (!Number.isFinite(v)) finite = false;
+    }
+  }
+  const packed = { index, values, finite };
+  packedCache.set(moments, packed);
+  return packed;
+}
+
+/**
+ * Σ_k c_k·values_k for up to four resamples at once (4×width, resample-major). A zero multiplicity
+ * adds 0·v = 0 to a finite total, which leaves it unchanged, so the sums equal resampleMoments's
+ * (which skips such episodes) exactly; callers use this only when every value is finite.
+ */
+function addFourScaled(values: Float64Array, width: number, episodes: number, block: readonly ArrayLike<number>[]): Float64Array {
+  const totals = new Float64Array(4 * width), zero = new Float64Array(episodes);
+  const m0 = block[0], m1 = block[1] ?? zero, m2 = block[2] ?? zero, m3 = block[3] ?? zero;
+  const o1 = width, o2 = 2 * width, o3 = 3 * width;
+  for (let k = 0; k < episodes; k++) {
+    const c0 = m0[k], c1 = m1[k], c2 = m2[k], c3 = m3[k];
+    if (c0 === 0 && c1 === 0 && c2 === 0 && c3 === 0) continue;
+    const o = k * width;
+    for (let j = 0; j < width; j++) {
+      const v = values[o + j];
+      totals[j] += c0 * v; totals[o1 + j] += c1 * v; totals[o2 + j] += c2 * v; totals[o3 + j] += c3 * v;
+    }
+  }
+  return totals;
+}
+
+/** One resample's packed total by the summed ranges (the route for moments with a non-finite entry). */
+function rangeTotal(moments: EpisodeMoments, c: ArrayLike<number>): Float64Array {
+  const total = new Float64Array(moments.stride), ranges = summedRanges(moments.p, moments.q);
+  for (let k = 0; k < moments.episodes; k++) if (c[k] !== 0) addScaled(total, c[k], moments.sums, k * moments.stride, ranges);
+  return total;
 }
 
 /** total[j] += c·sums[o + j] over the summed ranges. */

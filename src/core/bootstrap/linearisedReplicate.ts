@@ -17,7 +17,7 @@
 import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
-import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
+import { runSteps, throwIfCancelled, type CancellationCheck, type PassSteps } from '../fqe/cancellation';
 import { createTransitionFeatureReader } from '../fqe/transitionFeatures';
 import { ridgeGram } from '../fqe/ridgeSystem';
 import { dot, luFactor, luSolve, transpose } from '../linalg/dense';
@@ -56,6 +56,14 @@ export interface LinearisationInput {
 }
 
 export function linearisedReplicates(input: LinearisationInput): LinearisedReplicates {
+  return runSteps(linearisedReplicatesSteps(input));
+}
+
+/** Transitions read between two yields of the influence pass (as a block of the Bellman pass). */
+const ROWS_PER_STEP = 1024;
+
+/** linearisedReplicates as a pass that yields after about every ROWS_PER_STEP transitions (cancellation.ts). */
+export function* linearisedReplicatesSteps(input: LinearisationInput): PassSteps<LinearisedReplicates> {
   const { data, index, features, statistics, weights: w, discount } = input, d = features.dim;
   const starts = input.startFeatures.length / d, xiBar = new Float64Array(d), startValues = new Float64Array(starts);
   for (let s = 0; s < starts; s++) {
@@ -71,8 +79,11 @@ export function linearisedReplicates(input: LinearisationInput): LinearisedRepli
   for (let f = 0; f < d; f++) if (f !== features.constantIndex) ridgeTerm += input.ridge * v[f] * w[f];
   const e = index.episodes, influence = new Float64Array(e), counts = new Float64Array(e);
   const reader = createTransitionFeatureReader(data, features, input.quadrature);
+  let sinceStep = 0;
   for (let k = 0; k < e; k++) {
     throwIfCancelled(input.cancel);
+    if (sinceStep >= ROWS_PER_STEP) { sinceStep = 0; yield; }
+    sinceStep += index.offsets[k + 1] - index.offsets[k];
     let s = 0;
     for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) {
       const i = index.order[p];

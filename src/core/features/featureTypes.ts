@@ -4,6 +4,7 @@
  * (polynomialFeatures.ts, radialBasisFeatures.ts) and the dispatcher (featureMap.ts) import them
  * without importing each other.
  */
+import type { NodeAverage } from './polynomialNodeAverage';
 import type { StandardiserSpec } from './standardiser';
 
 export interface PolynomialFeatureSpec {
@@ -37,5 +38,10 @@ export interface FeatureMap {
    * Allocates nothing, so it can run once per quadrature node per transition.
    */
   evaluate(input: ArrayLike<number>, inputOffset: number, out: Float64Array, outOffset: number): void;
+  /**
+   * Optional faster route to the quadrature average Σ_j ω_j φ(s, a_j) when the first ds inputs are
+   * the state (e.g. polynomialNodeAverage.ts); the same values up to rounding. Absent: node by node.
+   */
+  nodeAverage?(ds: number): NodeAverage;
   toSpec(): FeatureMapSpec;
 }

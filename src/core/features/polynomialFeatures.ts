@@ -6,6 +6,7 @@ import type { FeatureMap, PolynomialFeatureSpec } from './featureTypes';
 import { FeatureSpecError } from './featureSpecError';
 import { monomialBasis, monomialCount } from './monomials';
 import { MAX_FEATURES } from '../limits';
+import { polynomialNodeAverage } from './polynomialNodeAverage';
 import { readStandardiser, type StandardiserSpec } from './standardiser';
 
 export function polynomialFeatureSpec(standardiser: StandardiserSpec, degree: number): PolynomialFeatureSpec {
@@ -34,6 +35,7 @@ export function createPolynomialFeatures(spec: PolynomialFeatureSpec): FeatureMa
       for (let v = 0; v < n; v++) out[outOffset + 1 + v] = (input[inputOffset + v] - mean[v]) / scale[v];
       for (let j = n + 1; j < d; j++) out[outOffset + j] = out[outOffset + parent[j]] * out[outOffset + 1 + variable[j]];
     },
+    nodeAverage: (ds) => polynomialNodeAverage(mean, scale, k, ds),
     toSpec: () => structuredClone(frozen),
   };
 }

@@ -12,6 +12,7 @@
 import type { FeatureMap, RadialBasisFeatureSpec } from './featureTypes';
 import { FeatureSpecError } from './featureSpecError';
 import { MAX_FEATURES } from '../limits';
+import { gridNodeAverage } from './gridNodeAverage';
 import { readStandardiser, type StandardiserSpec } from './standardiser';
 
 export interface RadialBasisGridOptions {
@@ -83,6 +84,7 @@ export function createRadialBasisFeatures(spec: RadialBasisFeatureSpec): Feature
         out[outOffset + first + j] = Math.exp(-r2 * inverseTwoWidthSq);
       }
     },
+    nodeAverage: grid ? (ds) => gridNodeAverage({ mean, scale, axes: grid, inverseTwoWidthSq, linear }, ds) : undefined,
     toSpec: () => structuredClone(frozen),
   };
 }

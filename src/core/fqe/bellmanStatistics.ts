@@ -14,7 +14,7 @@
 import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
 import type { TransitionSet } from '../transitions';
-import { throwIfCancelled, type CancellationCheck } from './cancellation';
+import { runSteps, throwIfCancelled, type CancellationCheck, type PassSteps } from './cancellation';
 import { FqeDataError } from './fqeErrors';
 import { createTransitionFeatureReader, type TransitionFeatureReader } from './transitionFeatures';
 
@@ -61,10 +61,17 @@ export interface TransitionSegments {
 export function accumulateBellmanStatistics(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {},
 ): BellmanStatistics {
+  return runSteps(bellmanStatisticsSteps(data, features, quadrature, hooks));
+}
+
+/** accumulateBellmanStatistics as a pass that yields after every block (cancellation.ts). */
+export function* bellmanStatisticsSteps(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {},
+): PassSteps<BellmanStatistics> {
   const n = data.count, d = features.dim;
   const whole = { order: Int32Array.from({ length: n }, (_, i) => i), offsets: Int32Array.of(0, n) };
   const sums = new Float64Array(bellmanSumsStride(d));
-  accumulateSegmentSums(data, features, quadrature, whole, sums, hooks);
+  yield* segmentSumsSteps(data, features, quadrature, whole, sums, hooks);
   const stats = statisticsFromSums(sums, d);
   checkStatisticsFinite(stats, data, features, quadrature);
   return stats;
@@ -81,8 +88,16 @@ export function accumulateSegmentSums(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, segments: TransitionSegments,
   out: Float64Array, hooks: AccumulationHooks = {},
 ): void {
+  runSteps(segmentSumsSteps(data, features, quadrature, segments, out, hooks));
+}
+
+/** accumulateSegmentSums as a pass that yields after every block. */
+export function* segmentSumsSteps(
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, segments: TransitionSegments,
+  out: Float64Array, hooks: AccumulationHooks = {},
+): PassSteps<void> {
   const n = segments.order.length, d = features.dim, stride = bellmanSumsStride(d);
-  const blockRows = Math.max(64, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
+  const blockRows = blockRowsFor(d);
   const reader = createTransitionFeatureReader(data, features, quadrature), block = newBlock(d, blockRows);
   let done = 0;
   for (let k = 0; k + 1 < segments.offsets.length; k++) {
@@ -95,6 +110,7 @@ export function accumulateSegmentSums(
       // After every block (at most about 1.3·10⁵ feature values): hosts throttle what they show.
       throwIfCancelled(hooks.cancel);
       hooks.onDataPass?.(done, n);
+      yield;
     }
     out[base + stride - 1] += end - segments.offsets[k];
   }
@@ -241,4 +257,41 @@ function squares(v: Float64Array): number {
   let s = 0;
   for (let i = 0; i < v.length; i++) s += v[i] * v[i];
   return s;
+}
+
+/**
+ * The statistics of the first k features of a map whose leading k features are another map's (a
+ * polynomial's lower-degree monomials lead in the graded order, monomials.ts): each is an entry of
+ * the larger map's, summed over the same rows in the same blocks (when both maps have the same
+ * rows per block, blockRowsFor), so they equal a pass with the smaller map to the last bit.
+ */
+export function leadingStatistics(stats: BellmanStatistics, k: number): BellmanStatistics {
+  const d = stats.dim, lead = (m: Float64Array) => {
+    const out = new Float64Array(k * k);
+    for (let a = 0; a < k; a++) for (let b = 0; b < k; b++) out[a * k + b] = m[a * d + b];
+    return out;
+  };
+  return {
+    count: stats.count, dim: k, gram: lead(stats.gram), crossNext: lead(stats.crossNext), nextGram: lead(stats.nextGram),
+    featureReward: stats.featureReward.slice(0, k), nextFeatureReward: stats.nextFeatureReward.slice(0, k), rewardSquare: stats.rewardSquare,
+  };
+}
+
+/** The same as leadingStatistics on one segment's packed sums (bellmanSumsStride layout), from d features to k. */
+export function leadingSums(sums: Float64Array, from: number, d: number, out: Float64Array, to: number, k: number): void {
+  const dd = d * d, kk = k * k;
+  for (let part = 0; part < 3; part++) {
+    for (let a = 0; a < k; a++) for (let b = 0; b < k; b++) out[to + part * kk + a * k + b] = sums[from + part * dd + a * d + b];
+  }
+  for (let a = 0; a < k; a++) {
+    out[to + 3 * kk + a] = sums[from + 3 * dd + a];
+    out[to + 3 * kk + k + a] = sums[from + 3 * dd + d + a];
+  }
+  out[to + 3 * kk + 2 * k] = sums[from + 3 * dd + 2 * d];
+  out[to + 3 * kk + 2 * k + 1] = sums[from + 3 * dd + 2 * d + 1];
+}
+
+/** Rows per block of a pass with d features (so two maps whose passes agree block for block can be recognised). */
+export function blockRowsFor(d: number): number {
+  return Math.max(64, Math.min(1024, Math.floor(BLOCK_VALUES / d)));
 }

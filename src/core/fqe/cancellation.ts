@@ -25,3 +25,28 @@ export function createPacer(intervalMs: number, now: () => number = () => perfor
     last = now();
   };
 }
+
+/**
+ * A long pass written once as a generator that yields between slices (a block of transitions, a
+ * few runs): runSteps drives it straight through, runStepsPaced awaits pace() between slices so a
+ * host's Ctrl+C or stop message is heard within about a slice plus the pacer's interval.
+ */
+export type PassSteps<T> = Generator<void, T, void>;
+
+export function runSteps<T>(steps: PassSteps<T>): T {
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+  }
+}
+
+export async function runStepsPaced<T>(steps: PassSteps<T>, pace: () => Promise<void>): Promise<T> {
+  for (;;) {
+    const step = steps.next();
+    if (step.done) return step.value;
+    await pace();
+  }
+}
+
+/** How often a paced pass yields to the event loop (ours: well inside the second a user waits after Ctrl+C, and a setTimeout(0) costs about a millisecond, so under 1 % of the time). */
+export const PACE_INTERVAL_MS = 100;

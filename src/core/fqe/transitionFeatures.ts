@@ -21,16 +21,18 @@ export function createTransitionFeatureReader(data: TransitionSet, features: Fea
   const ds = data.stateDim, m = data.actionDim, d = features.dim;
   const input = new Float64Array(ds + m), phi = new Float64Array(d), psi = new Float64Array(d), node = new Float64Array(d);
   const points = new Float64Array(quadrature.maxPoints * m), weights = new Float64Array(quadrature.maxPoints);
+  const average = features.nodeAverage?.(ds);
   return {
     phi, psi,
     read(i) {
       for (let c = 0; c < ds; c++) input[c] = data.states[i * ds + c];
       for (let c = 0; c < m; c++) input[ds + c] = data.actions[i * m + c];
       features.evaluate(input, 0, phi, 0);
-      psi.fill(0);
-      if (data.terminal[i] !== 0) return;
-      for (let c = 0; c < ds; c++) input[c] = data.nextStates[i * ds + c];
+      if (data.terminal[i] !== 0) { psi.fill(0); return; }
       const k = quadrature.at(data.nextStates, i * ds, points, weights);
+      if (average) { average(data.nextStates, i * ds, points, weights, k, psi, 0); return; }
+      psi.fill(0);
+      for (let c = 0; c < ds; c++) input[c] = data.nextStates[i * ds + c];
       for (let j = 0; j < k; j++) {
         for (let c = 0; c < m; c++) input[ds + c] = points[j * m + c];
         features.evaluate(input, 0, node, 0);

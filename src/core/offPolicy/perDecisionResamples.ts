@@ -92,21 +92,31 @@ function emptySums(): StepSums {
   return { reached: 0, weight: 0, weightBefore: 0, reward: 0, action: 0, state: 0, ending: 0, endingValue: 0 };
 }
 
-/** Step t's sums for the block's resamples: one read of the step's entries, four resamples in registers. */
+/**
+ * Step t's sums for the block's resamples: the step's entries read twice, three quantities for four
+ * resamples at a time (twelve running sums fit the registers; twenty-four spill), each sum added in
+ * entry order as before.
+ */
 function stepSums(entries: ResampleEntries, c: Float64Array, t: number, out: StepSums[]): void {
   const { data, weightedReward: wr, weightedAction: wq, weightedState: wv } = entries, { episode, scaled, scaledBefore } = data;
-  let n0 = 0, w0 = 0, p0 = 0, r0 = 0, a0 = 0, s0 = 0;
-  let n1 = 0, w1 = 0, p1 = 0, r1 = 0, a1 = 0, s1 = 0;
-  let n2 = 0, w2 = 0, p2 = 0, r2 = 0, a2 = 0, s2 = 0;
-  let n3 = 0, w3 = 0, p3 = 0, r3 = 0, a3 = 0, s3 = 0;
-  const end = t < data.horizon ? data.stepOffsets[t + 1] : 0;
-  for (let j = t < data.horizon ? data.stepOffsets[t] : 0; j < end; j++) {
-    const o = episode[j] * 4, w = scaled[j], p = scaledBefore[j], r = wr[j], a = wq[j], s = wv[j];
+  const start = t < data.horizon ? data.stepOffsets[t] : 0, end = t < data.horizon ? data.stepOffsets[t + 1] : 0;
+  let n0 = 0, w0 = 0, p0 = 0, n1 = 0, w1 = 0, p1 = 0, n2 = 0, w2 = 0, p2 = 0, n3 = 0, w3 = 0, p3 = 0;
+  for (let j = start; j < end; j++) {
+    const o = episode[j] * 4, w = scaled[j], p = scaledBefore[j];
     const c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
-    n0 += c0; w0 += c0 * w; p0 += c0 * p; r0 += c0 * r; a0 += c0 * a; s0 += c0 * s;
-    n1 += c1; w1 += c1 * w; p1 += c1 * p; r1 += c1 * r; a1 += c1 * a; s1 += c1 * s;
-    n2 += c2; w2 += c2 * w; p2 += c2 * p; r2 += c2 * r; a2 += c2 * a; s2 += c2 * s;
-    n3 += c3; w3 += c3 * w; p3 += c3 * p; r3 += c3 * r; a3 += c3 * a; s3 += c3 * s;
+    n0 += c0; w0 += c0 * w; p0 += c0 * p;
+    n1 += c1; w1 += c1 * w; p1 += c1 * p;
+    n2 += c2; w2 += c2 * w; p2 += c2 * p;
+    n3 += c3; w3 += c3 * w; p3 += c3 * p;
+  }
+  let r0 = 0, a0 = 0, s0 = 0, r1 = 0, a1 = 0, s1 = 0, r2 = 0, a2 = 0, s2 = 0, r3 = 0, a3 = 0, s3 = 0;
+  for (let j = start; j < end; j++) {
+    const o = episode[j] * 4, r = wr[j], a = wq[j], s = wv[j];
+    const c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
+    r0 += c0 * r; a0 += c0 * a; s0 += c0 * s;
+    r1 += c1 * r; a1 += c1 * a; s1 += c1 * s;
+    r2 += c2 * r; a2 += c2 * a; s2 += c2 * s;
+    r3 += c3 * r; a3 += c3 * a; s3 += c3 * s;
   }
   setSums(out[0], n0, w0, p0, r0, a0, s0);
   setSums(out[1], n1, w1, p1, r1, a1, s1);

@@ -15,11 +15,12 @@
  *   - it diverged: the fixed point with its warning when one exists, "diverged"; else an error.
  */
 import { createActionQuadrature, type ActionQuadrature } from '../../core/actionQuadrature';
-import { episodeBellmanSums, resampleBellmanStatistics, type EpisodeBellmanSums } from '../../core/bootstrap/episodeBellmanSums';
+import { episodeBellmanSumsSteps, leadingEpisodeSums, resampleBellmanStatistics, type EpisodeBellmanSums } from '../../core/bootstrap/episodeBellmanSums';
 import { unitMultiplicities } from '../../core/bootstrap/episodeMultiplicities';
-import { linearisedReplicates } from '../../core/bootstrap/linearisedReplicate';
+import { linearisedReplicatesSteps } from '../../core/bootstrap/linearisedReplicate';
+import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, type PassSteps } from '../../core/fqe/cancellation';
 import { startStateFeatures } from '../../core/features/policyFeatures';
-import { accumulateBellmanStatistics, bellmanSumsStride, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
+import { bellmanStatisticsSteps, bellmanSumsStride, blockRowsFor, leadingStatistics, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
 import { solveLinearFqe } from '../../core/fqe/linearFqeSolve';
 import { MAX_EXACT_RESAMPLE_VALUES } from '../../core/limits';
 import type { CandidateFit } from '../candidateFit';
@@ -38,9 +39,22 @@ export function planLinearFit(plan: EvaluationPlan): LinearFitSpec {
 }
 
 export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}, settings: LinearFitSpec = planLinearFit(plan)): CandidateModel {
+  return runSteps(linearModelSteps(plan, planned, hooks, settings));
+}
+
+/** buildLinearModel awaiting hooks.pace (default: a yield to the event loop about every PACE_INTERVAL_MS) between slices, so a host's cancel is heard during a data pass. */
+export function buildLinearModelPaced(
+  plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}, settings: LinearFitSpec = planLinearFit(plan), enclosing: readonly CandidateModel[] = [],
+): Promise<CandidateModel> {
+  return runStepsPaced(linearModelSteps(plan, planned, hooks, settings, enclosing), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
+}
+
+/** `enclosing`: models of the same policy already built; one whose features lead with these (nestedStatistics) serves this one's pass. */
+function* linearModelSteps(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, settings: LinearFitSpec, enclosing: readonly CandidateModel[] = []): PassSteps<CandidateModel> {
   const { features } = settings, { data } = plan;
   const quadrature = createActionQuadrature(planned.policy, plan.quadratureNodes);
-  const { statistics, sums } = dataPass(plan, features, quadrature, hooks);
+  const nested = enclosing.reduce<ReturnType<typeof nestedStatistics>>((found, outer) => found ?? nestedStatistics(plan, features, quadrature, outer), null);
+  const { statistics, sums } = nested ?? (yield* dataPass(plan, features, quadrature, hooks));
   const startFeatures = startStateFeatures(features, quadrature, plan.starts.states, data.stateDim);
   const solved = solveLinearFqe({
     statistics, features, stateDim: data.stateDim, actionDim: data.actionDim, discount: plan.discount, ridge: settings.ridge,
@@ -57,7 +71,7 @@ export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, h
   };
   const resampling: LinearResampling = sums ? { kind: 'exact', sums }
     : !atFixedPoint ? { kind: 'none', reason: 'the fit did not converge, so there is no fixed point to take resamples around' }
-    : { kind: 'linearised', replicates: linearisedReplicates({
+    : { kind: 'linearised', replicates: yield* linearisedReplicatesSteps({
       data, index: plan.episodes, features, quadrature, statistics, weights, ridge: settings.ridge, discount: plan.discount,
       startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode, cancel: hooks.cancel,
     }) };
@@ -65,15 +79,45 @@ export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, h
 }
 
 /** The one pass: per episode when the sums are affordable (their total is the full data's), else the total only. */
-function dataPass(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks): { statistics: BellmanStatistics; sums: EpisodeBellmanSums | null } {
+function* dataPass(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks): PassSteps<{ statistics: BellmanStatistics; sums: EpisodeBellmanSums | null }> {
   const { data } = plan, passHooks = { cancel: hooks.cancel, onDataPass: hooks.onDataPass };
   if (plan.episodes.episodes * bellmanSumsStride(features.dim) > MAX_EXACT_RESAMPLE_VALUES) {
-    return { statistics: accumulateBellmanStatistics(data, features, quadrature, passHooks), sums: null };
+    return { statistics: yield* bellmanStatisticsSteps(data, features, quadrature, passHooks), sums: null };
   }
-  const sums = episodeBellmanSums(data, features, quadrature, passHooks, plan.episodes);
+  const sums = yield* episodeBellmanSumsSteps(data, features, quadrature, passHooks, plan.episodes);
   const statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
   checkStatisticsFinite(statistics, data, features, quadrature);
   return { statistics, sums };
+}
+
+/**
+ * The statistics of a polynomial map read off an enclosing model's (a higher degree on the same
+ * standardised inputs, so these monomials lead; leadingStatistics), when its pass is the one this
+ * map would make: the same route (total or per episode, by MAX_EXACT_RESAMPLE_VALUES) and the same
+ * rows per block. Then they are this map's own pass to the last bit; else null (make the pass).
+ */
+function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, enclosing: CandidateModel): { statistics: BellmanStatistics; sums: EpisodeBellmanSums | null } | null {
+  const outer = enclosing.linear, k = features.dim;
+  if (!outer || !leadsIn(features, outer.features) || blockRowsFor(k) !== blockRowsFor(outer.features.dim)) return null;
+  const exact = plan.episodes.episodes * bellmanSumsStride(k) <= MAX_EXACT_RESAMPLE_VALUES;
+  if (!exact) {
+    if (outer.resampling.kind === 'exact') return null; // its total came from per-episode sums, in another order
+    const statistics = leadingStatistics(outer.statistics, k);
+    checkStatisticsFinite(statistics, plan.data, features, quadrature);
+    return { statistics, sums: null };
+  }
+  if (outer.resampling.kind !== 'exact') return null;
+  const sums = leadingEpisodeSums(outer.resampling.sums, k), statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
+  checkStatisticsFinite(statistics, plan.data, features, quadrature);
+  return { statistics, sums };
+}
+
+/** True when `inner` is a polynomial map of lower degree than `outer` on the same standardised inputs. */
+function leadsIn(inner: FeatureMap, outer: FeatureMap): boolean {
+  const a = inner.toSpec(), b = outer.toSpec();
+  if (a.kind !== 'polynomial' || b.kind !== 'polynomial' || a.degree > b.degree) return false;
+  const same = (x: number[], y: number[]) => x.length === y.length && x.every((v, i) => Object.is(v, y[i]));
+  return same(a.standardiser.mean, b.standardiser.mean) && same(a.standardiser.scale, b.standardiser.scale);
 }
 
 function fitIteration(p: { iteration: number; weightChange: number; bellmanResidual: number; policyValue: number }): FitIteration {

@@ -42,7 +42,22 @@ describe('episodeMoments', () => {
       y[0] = data.rewards[i];
       return true;
     });
-    const block = [0, 1, 2].map((b) => episodeMultiplicities(data.episodeCount, 5, b));
+    // Six resamples: a full block of four and a part block of two.
+    const block = [0, 1, 2, 3, 4, 5].map((b) => episodeMultiplicities(data.episodeCount, 5, b));
     resampleMomentsBlock(moments, block).forEach((fast, b) => expect(fast).toEqual(resampleMoments(moments, block[b])));
+  });
+
+  it('keeps a non-finite run out of the resamples that do not draw it, as one resample at a time does', () => {
+    const index = indexEpisodes(data);
+    const moments = episodeMoments(index, 3, 1, (i, x, y) => {
+      x.set([1, data.states[2 * i], data.actions[i]]);
+      y[0] = index.order[index.offsets[1]] === i ? Infinity : data.rewards[i]; // one value of run 2 overflows
+      return true;
+    });
+    const block = [0, 1, 2].map((b) => episodeMultiplicities(data.episodeCount, 5, b));
+    block[0][1] = 0;
+    const fast = resampleMomentsBlock(moments, block);
+    fast.forEach((f, b) => expect(f).toEqual(resampleMoments(moments, block[b])));
+    expect(fast[0].yy.every(Number.isFinite)).toBe(true);
   });
 });

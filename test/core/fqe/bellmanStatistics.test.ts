@@ -11,7 +11,9 @@ import { createActionQuadrature } from '../../../src/core/actionQuadrature';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
 import { fitStateActionStandardiser } from '../../../src/core/features/standardiser';
-import { accumulateBellmanStatistics } from '../../../src/core/fqe/bellmanStatistics';
+import { episodeBellmanSums, leadingEpisodeSums } from '../../../src/core/bootstrap/episodeBellmanSums';
+import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
+import { accumulateBellmanStatistics, leadingStatistics } from '../../../src/core/fqe/bellmanStatistics';
 import { createTransitionFeatureReader } from '../../../src/core/fqe/transitionFeatures';
 import { createGaussianPolicy } from '../../../src/core/policy';
 import { simulateLinearPlant } from './simulatedTransitions';
@@ -47,5 +49,16 @@ describe('accumulateBellmanStatistics', () => {
     same(stats.nextGram, h);
     same(stats.featureReward, b);
     same(stats.nextFeatureReward, e);
+  });
+
+  it('gives a lower degree the same statistics, to the last bit, as the leading block of a higher degree (graded monomial order)', () => {
+    const spec = fitStateActionStandardiser(data).spec;
+    const index = indexEpisodes(data);
+    for (const [low, high] of [[2, 4], [3, 4], [2, 3]]) {
+      const small = createFeatureMap(polynomialFeatureSpec(spec, low)), large = createFeatureMap(polynomialFeatureSpec(spec, high));
+      expect(leadingStatistics(accumulateBellmanStatistics(data, large, quadrature), small.dim)).toEqual(accumulateBellmanStatistics(data, small, quadrature));
+      const perEpisode = leadingEpisodeSums(episodeBellmanSums(data, large, quadrature, {}, index), small.dim);
+      expect(perEpisode).toEqual(episodeBellmanSums(data, small, quadrature, {}, index));
+    }
   });
 });
