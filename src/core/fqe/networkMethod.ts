@@ -19,6 +19,8 @@ export interface NetworkMethod {
    * quadratic part always uses the project's nodes and is exact). null: the project's.
    */
   readonly hiddenNodes: number | null;
+  /** Fits from different starting weights, averaged, their intervals' hull reported (networkMembers.ts). */
+  readonly members: number;
   /** Episode resamples of the last-layer solve behind the interval (networkInterval.ts). */
   readonly intervalResamples: number;
   /**
@@ -35,6 +37,7 @@ export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
   lastLayer: 'leastSquares',
   hiddenRidge: 1e-2,
   hiddenNodes: 5,
+  members: 2,
   intervalResamples: 200,
   learningRateDecay: Object.freeze({ plateau: 4, latest: 20, factor: 0.8, floor: 0.1 }),
 });

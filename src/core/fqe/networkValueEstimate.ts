@@ -33,6 +33,8 @@ export interface NetworkValueEstimate {
     readonly bootstrapStandardError: number;
     /** Standard deviation of J over a window of iterates at the full step size, relative to |J| (the training's randomness). */
     readonly iterateSpread: number;
+    /** J of each member when several fits were averaged (networkMembers.ts). */
+    readonly memberValues?: readonly number[];
   };
 }
 
@@ -48,8 +50,8 @@ export interface EstimateOptions {
 }
 
 export const INTERVAL_COVERS =
-  'episode-resampling interval of the last-layer solve on the learned features, widened by the spread of J over the training\'s iterates: ' +
-  'it covers which episodes happened to be logged and the randomness of the training, not the error of the function class outside the logged states';
+  'resampling whole runs and re-solving the last layer on the learned features, widened by the spread of J over the training\'s iterates: ' +
+  'it covers which runs happened to be logged and the randomness of the training, not the error of the function class outside the logged states';
 
 export function valueInterval(b: BootstrapInterval): ValueInterval {
   return { level: b.level, lower: b.percentile[0], upper: b.percentile[1], standardError: b.standardError };
