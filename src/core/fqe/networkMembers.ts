@@ -70,7 +70,10 @@ export function combineEstimates(estimates: readonly NetworkValueEstimate[]): Ne
     difference: { value: differenceValue, interval: hull(estimates.map((e) => e.difference.interval), estimates.map((e) => e.difference.value)) },
     failedResamples: Math.max(...estimates.map((e) => e.failedResamples)),
     covers: `${first.covers}; the span of ${estimates.length} fits from different starting weights, so it also covers where the training lands`,
-    parts: { ...first.parts, iterateSpread: Math.max(...estimates.map((e) => e.parts.iterateSpread)), memberValues: values },
+    parts: {
+      ...first.parts, iterateSpread: Math.max(...estimates.map((e) => e.parts.iterateSpread)),
+      driftAllowance: Math.max(...estimates.map((e) => e.parts.driftAllowance)), memberValues: values,
+    },
   };
 }
 
