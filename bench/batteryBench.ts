@@ -10,7 +10,8 @@
  * Options: --seeds 20  --transitions 100000  --plants name,name  --candidates all|first
  *          --run-starts steady|wide|both (where the logged runs start: test/battery/startSets.ts)
  *          --settings '{"outerIterations": 60}'  --method '{"lastLayer": "gradient"}'  --cpu
- * Seeds: the data of seed s is simulated with seed s and the network is fitted with seed s.
+ *          --fit-seed-offset k (fit with seed s + k on the data of seed s: the training's own randomness)
+ * Seeds: the data of seed s is simulated with seed s and the network is fitted with seed s (+ k).
  * Run it under `nice`; it takes about a minute of CPU per fit.
  */
 import { mkdirSync, writeFileSync } from 'node:fs';
@@ -34,10 +35,12 @@ interface Options {
   method: Record<string, unknown>;
   backend: 'auto' | 'cpu';
   runStarts: ('steady' | 'wide')[];
+  /** Added to the seed of the network's fit only (the data keep theirs): measures the training's own randomness. */
+  fitSeedOffset: number;
 }
 
 function parseOptions(args: string[]): Options {
-  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto', runStarts: ['steady'] };
+  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto', runStarts: ['steady'], fitSeedOffset: 0 };
   for (let i = 0; i < args.length; i++) {
     const value = () => args[++i];
     if (args[i] === '--seeds') o.seeds = Number(value());
@@ -48,6 +51,7 @@ function parseOptions(args: string[]): Options {
     else if (args[i] === '--method') o.method = JSON.parse(value());
     else if (args[i] === '--cpu') o.backend = 'cpu';
     else if (args[i] === '--run-starts') o.runStarts = runStartsOption(value());
+    else if (args[i] === '--fit-seed-offset') o.fitSeedOffset = Number(value());
     else throw new Error(`battery bench: unknown option ${args[i]}`);
   }
   return o;
@@ -65,7 +69,7 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, runS
   const policy = createGaussianPolicy(c.spec, plant.stateDim);
   const cpuStart = process.cpuUsage();
   const fit = await fitNetworkFqe({
-    data, policy, discount: plant.discount, quadratureNodes: 10, seed, wasmPath, startStates: sets[0].states,
+    data, policy, discount: plant.discount, quadratureNodes: 10, seed: seed + o.fitSeedOffset, wasmPath, startStates: sets[0].states,
     settings: { ...defaultNetworkSettings, backend: o.backend, ...o.settings }, method: o.method,
   });
   const cpu = process.cpuUsage(cpuStart);

@@ -39,7 +39,7 @@ export function createTerminalProgress(stream: NodeJS.WriteStream = process.stde
   return {
     evaluation(p) {
       const what = p.dataPass ? `reading the data ${Math.floor((100 * p.dataPass.done) / p.dataPass.total)} %`
-        : p.iteration ? `iteration ${p.iteration.iteration}` : 'starting';
+        : p.iteration ? `iteration ${p.iteration.iteration}${p.iteration.member ? ` of fit ${p.iteration.member.index} of ${p.iteration.member.count}` : ''}` : 'starting';
       line(`Fitting ${p.candidate} (${p.candidateIndex + 1} of ${p.candidateCount}): ${what}`, p.iteration === null && p.dataPass === null);
     },
     assessment(p) {

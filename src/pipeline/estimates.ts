@@ -16,6 +16,8 @@ export interface FitIteration {
   policyValue: number | null;
   /** Training loss of a network's regression step; null for the linear fit. */
   loss: number | null;
+  /** A network fit of several members (core/fqe/networkMembers.ts): which one this iterate belongs to, 1-based; absent otherwise. */
+  member?: { index: number; count: number };
 }
 
 export interface ValueSurface {

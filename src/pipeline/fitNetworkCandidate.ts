@@ -19,7 +19,7 @@ export async function fitNetworkCandidate(request: CandidateFitRequest): Promise
   const fit = await fitNetworkFqe({
     data: request.data, policy: request.policy, discount: request.discount, quadratureNodes: request.quadratureNodes,
     seed: request.seed, settings: networkSettings, startStates: request.startStates, isCancelled: request.cancel, wasmPath: request.wasmPath,
-    onProgress: request.onIteration && ((p) => request.onIteration!(iterationOf(p))),
+    onProgress: request.onIteration && ((p) => request.onIteration!({ ...iterationOf(p), ...(p.members > 1 ? { member: { index: p.member, count: p.members } } : {}) })),
   });
   if (fit.status === 'cancelled') {
     fit.dispose();

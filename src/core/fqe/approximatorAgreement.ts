@@ -80,17 +80,17 @@ function agreementMessage(verdict: AgreementVerdict, difference: number, relativ
   const by = `differ by ${formatNumber(difference)} (${(100 * relative).toFixed(1)} % of the value)`;
   const level = `${Math.round(100 * (e.difference ?? e.network).interval.level)} %`;
   if (verdict === 'disagree') {
-    return `The network and the linear (quadratic) estimate disagree: they ${by}, more than resampling the logged episodes explains ` +
+    return `The network and the linear (quadratic) estimate disagree: they ${by}, more than resampling the logged runs explains ` +
       `(${level} intervals). At least one of them is biased by its function class — a quadratic cannot follow saturation, clipping ` +
       'or an asymmetric cost, and a network can extrapolate poorly outside the logged states. Treat both values with caution; ' +
       'prefer the network where the plant is known to saturate and the candidate stays inside the logged states.';
   }
   if (verdict === 'inconclusive') {
-    return `The network and the linear (quadratic) estimate ${by}, within what resampling the logged episodes explains, but the ` +
+    return `The network and the linear (quadratic) estimate ${by}, within what resampling the logged runs explains, but the ` +
       `${level} interval of their difference is wider than ${Math.round(100 * WIDE_SHARE)} % of the value: too little data to tell ` +
-      'whether they agree. More logged episodes would narrow it.';
+      'whether they agree. More logged runs would narrow it.';
   }
-  const negligible = relative < NEGLIGIBLE_SHARE ? `, under ${+(100 * NEGLIGIBLE_SHARE).toFixed(1)} % of the value` : ', within what resampling the logged episodes explains';
+  const negligible = relative < NEGLIGIBLE_SHARE ? `, under ${+(100 * NEGLIGIBLE_SHARE).toFixed(1)} % of the value` : ', within what resampling the logged runs explains';
   return `The network and the linear (quadratic) estimate agree: they ${by}${negligible}.`;
 }
 

@@ -36,7 +36,8 @@ import { defaultNetworkMethod, type NetworkMethod } from './networkMethod';
 import { finishNetworkFit } from './networkFitResult';
 import type { NetworkValueEstimate, EstimateOptions } from './networkValueEstimate';
 import type { NetworkFqeSettings } from './networkSettings';
-import { selectBackend, type TfBackendName } from './tfBackend';
+import { combineMembers, memberSeed } from './networkMembers';
+import { selectBackend, type BackendSelection, type TfBackendName } from './tfBackend';
 import type { NetworkWork } from './networkWork';
 
 export type { NetworkFqeSettings } from './networkSettings';
@@ -58,6 +59,9 @@ export interface NetworkIterationRecord {
 }
 
 export interface NetworkProgress extends NetworkIterationRecord {
+  /** Which of the fit's members (networkMembers.ts) is iterating, 1-based, and how many there are. */
+  readonly member: number;
+  readonly members: number;
   readonly outerIterations: number;
   /** Mean iteration time × iterations left (an upper estimate when the stopping rule ends the fit early). */
   readonly remainingSeconds: number;
@@ -88,6 +92,8 @@ export interface NetworkFit {
   /** Why WebAssembly was not used although preferred (tfBackend.ts); null when it was, or plain JavaScript was asked for. */
   readonly backendFallback: string | null;
   readonly seed: number;
+  /** Fits from different starting weights averaged into this one (networkMembers.ts); history and backend are the first's. */
+  readonly members: number;
   /** Time, Adam steps and FLOPs of the fit (networkWork.ts). */
   readonly work: NetworkWork;
   /** J over startStates (count×ds) with its interval, the linear estimate and their paired difference. */
@@ -116,9 +122,25 @@ export interface NetworkFqeInput {
 
 export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit> {
   checkNetworkFqeInput(input);
-  const started = performance.now();
   const method = { ...defaultNetworkMethod, ...input.method };
   const selection = await selectBackend(input.settings.backend, input.wasmPath);
+  const fits: NetworkFit[] = [];
+  try {
+    for (let k = 0; k < method.members; k++) {
+      const fit = await fitMember({ ...input, seed: memberSeed(input.seed, k) }, method, selection, { member: k + 1, members: method.members });
+      fits.push(fit);
+      if (fit.status === 'cancelled' || fit.status === 'diverged') break;
+    }
+  } catch (error) {
+    fits.forEach((f) => f.dispose());
+    throw error;
+  }
+  return fits.length === 1 ? fits[0] : combineMembers(fits);
+}
+
+/** One member: the linear start, the outer iterations and the kept network. */
+async function fitMember(input: NetworkFqeInput, method: NetworkMethod, selection: BackendSelection, place: { member: number; members: number }): Promise<NetworkFit> {
+  const started = performance.now();
   const session = createFitSession({ ...input, method });
   try {
     const linearStart = solveLastLayer(session.linearTotal.sums, session.linearTotal.dim, session.linearTotal.dim, 0);
@@ -128,7 +150,7 @@ export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit>
       startStates: input.startStates ?? input.data.startStates, stateDim: input.data.stateDim, tolerance: settings.tolerance,
       outerIterations: settings.outerIterations, patience: settings.patience, stepsPerIteration: settings.stepsPerIteration, learningRate: settings.learningRate,
       isCancelled: input.isCancelled,
-      onProgress: input.onProgress && ((record, remainingSeconds) => input.onProgress!({ ...record, outerIterations: settings.outerIterations, remainingSeconds })),
+      onProgress: input.onProgress && ((record, remainingSeconds) => input.onProgress!({ ...record, ...place, outerIterations: settings.outerIterations, remainingSeconds })),
     }, selection.backend, linearStart.weights);
     const fit = finishNetworkFit(session, run, { input, selection, linearWeights: linearStart.weights });
     run.work.seconds = (performance.now() - started) / 1000;

@@ -33,6 +33,10 @@ export interface NetworkValueEstimate {
     readonly bootstrapStandardError: number;
     /** Standard deviation of J over a window of iterates at the full step size, relative to |J| (the training's randomness). */
     readonly iterateSpread: number;
+    /** How far the stopping rule allows J still to move, relative to |J|, added to both ends of the interval. */
+    readonly driftAllowance: number;
+    /** J of each member when several fits were averaged (networkMembers.ts). */
+    readonly memberValues?: readonly number[];
   };
 }
 
@@ -48,8 +52,8 @@ export interface EstimateOptions {
 }
 
 export const INTERVAL_COVERS =
-  'episode-resampling interval of the last-layer solve on the learned features, widened by the spread of J over the training\'s iterates: ' +
-  'it covers which episodes happened to be logged and the randomness of the training, not the error of the function class outside the logged states';
+  'resampling whole runs and re-solving the last layer on the learned features, widened by the spread of J over the training\'s iterates: ' +
+  'it covers which runs happened to be logged, the randomness of the training and how far the stopping rule lets J still move, not the error of the function class outside the logged states';
 
 export function valueInterval(b: BootstrapInterval): ValueInterval {
   return { level: b.level, lower: b.percentile[0], upper: b.percentile[1], standardError: b.standardError };
@@ -59,13 +63,17 @@ export function valueInterval(b: BootstrapInterval): ValueInterval {
  * The network's interval: the bootstrap percentile interval, each side stretched by
  * √(SE_b² + SE_it²)/SE_b where SE_it (refitError, value units) is the spread of J over a window of
  * iterates at the full step size (networkFitResult.ts) — the training's own randomness, which
- * resampling the last-layer solve does not see (the two added as independent variances; common practice).
+ * resampling the last-layer solve does not see (the two added as independent variances; common
+ * practice) — and then widened on both sides by `drift` (value units): how far the stopping rule
+ * allows J still to move (networkConvergence.ts), a bound on an error of unknown sign, so it is
+ * added to the ends rather than as a variance. The standard error reported counts it as one more
+ * independent part, √(SE_b² + SE_it² + drift²).
  */
-export function networkValueInterval(b: BootstrapInterval, refitError: number): ValueInterval {
+export function networkValueInterval(b: BootstrapInterval, refitError: number, drift = 0): ValueInterval {
   const se = Math.hypot(b.standardError, refitError);
   const stretch = b.standardError > 0 ? se / b.standardError : 1;
   return {
-    level: b.level, standardError: se,
-    lower: b.estimate - stretch * (b.estimate - b.percentile[0]), upper: b.estimate + stretch * (b.percentile[1] - b.estimate),
+    level: b.level, standardError: Math.hypot(se, drift),
+    lower: b.estimate - stretch * (b.estimate - b.percentile[0]) - drift, upper: b.estimate + stretch * (b.percentile[1] - b.estimate) + drift,
   };
 }

@@ -10,6 +10,7 @@ import { createActionQuadrature } from '../../../src/core/actionQuadrature';
 import { FqeCancelledError, FqeOptionsError } from '../../../src/core/fqe/fqeErrors';
 import { fitNetworkFqe, type NetworkFqeInput, type NetworkProgress } from '../../../src/core/fqe/networkFqe';
 import { NetworkDisposedError, TfBackendError } from '../../../src/core/fqe/networkErrors';
+import { memberSeed } from '../../../src/core/fqe/networkMembers';
 import { defaultNetworkSettings, type NetworkFqeSettings } from '../../../src/core/fqe/networkSettings';
 import { loadBackend } from '../../../src/core/fqe/tfBackend';
 import { createGaussianPolicy } from '../../../src/core/policy';
@@ -22,8 +23,9 @@ const data = tankLogTransitions(simulateTankLevels({ runs: 30, stepsPerRun: 41, 
 const policy = createGaussianPolicy(tankTunedPolicy, 2);
 const small: NetworkFqeSettings = { ...defaultNetworkSettings, hiddenLayers: [16, 16], batchSize: 64, stepsPerIteration: 20, outerIterations: 4, heldOutFraction: 0.2, patience: 0, averageLast: 1 };
 
+/** One member unless asked (the members' combination has its own tests below). */
 function input(settings: Partial<NetworkFqeSettings>, extra: Partial<NetworkFqeInput> = {}): NetworkFqeInput {
-  return { data, policy, discount: tankDiscount, quadratureNodes: 3, seed: 1, settings: { ...small, ...settings }, wasmPath: wasmDirectory, ...extra };
+  return { data, policy, discount: tankDiscount, quadratureNodes: 3, seed: 1, settings: { ...small, ...settings }, wasmPath: wasmDirectory, method: { members: 1 }, ...extra };
 }
 
 function policyValueOf(fit: { actionValue: Parameters<typeof policyValue>[0] }): number {
@@ -77,7 +79,7 @@ describe('fitNetworkFqe progress and stopping', () => {
     expect(seen.slice(1).every((p) => p.loss! > 0)).toBe(true);
     expect(seen[3].remainingSeconds).toBe(0);
     expect(seen.every((p) => p.relativeChange === null)).toBe(true); // patience 0: the rule is off
-    expect(fit.history).toEqual(seen.map(({ outerIterations: _o, remainingSeconds: _r, ...record }) => record));
+    expect(fit.history).toEqual(seen.map(({ outerIterations: _o, remainingSeconds: _r, member: _m, members: _n, ...record }) => record));
     expect(fit.status).toBe('maxIterations');
     expect(fit.message).toMatch(/stopping rule off/);
     fit.dispose();
@@ -151,8 +153,42 @@ describe('fitNetworkFqe values', () => {
     expect(e.difference.value).toBeCloseTo(e.value - e.linear.value, 12);
     expect(e.interval.lower).toBeLessThanOrEqual(e.interval.upper);
     expect(e.resamples).toBe(50);
-    expect(e.covers).toMatch(/randomness of the training, not the error of the function class outside the logged states/);
+    expect(e.covers).toMatch(/the randomness of the training and how far the stopping rule lets J still move, not the error of the function class outside the logged states/);
+    expect(e.parts.driftAllowance).toBeGreaterThanOrEqual(small.tolerance); // at least the rule's tolerance
     fit.dispose();
+  });
+});
+
+describe('fitNetworkFqe with several members (networkMembers.ts)', () => {
+  it('is the mean of the single fits from the members\' seeds, with the hull of their intervals', async () => {
+    const seen: NetworkProgress[] = [];
+    const pair = await fitNetworkFqe(input({}, { method: { members: 2 }, onProgress: (p) => seen.push(p) }));
+    const one = await fitNetworkFqe(input({}, { seed: 1 })), two = await fitNetworkFqe(input({}, { seed: memberSeed(1, 1) }));
+    const options = { resamples: 40, seed: 5 };
+    const [e, e1, e2] = [pair, one, two].map((f) => f.estimate(data.startStates, options));
+    expect(e.value).toBeCloseTo((e1.value + e2.value) / 2, 12);
+    expect(e.interval.lower).toBe(Math.min(e1.interval.lower, e2.interval.lower));
+    expect(e.interval.upper).toBe(Math.max(e1.interval.upper, e2.interval.upper));
+    expect(e.difference.value).toBeCloseTo((e1.difference.value + e2.difference.value) / 2, 12);
+    expect(e.parts.memberValues).toEqual([e1.value, e2.value]);
+    expect(e.covers).toMatch(/span of 2 fits from different starting weights/);
+    expect(policyValueOf(pair)).toBeCloseTo((policyValueOf(one) + policyValueOf(two)) / 2, 6); // Q is the members' mean
+    expect(pair).toMatchObject({ members: 2, history: one.history.map((h) => ({ ...h, elapsedSeconds: expect.any(Number) })) });
+    expect(pair.convergence.iterations).toBe(8);
+    expect(seen.map((p) => [p.member, p.iteration])).toEqual([[1, 1], [1, 2], [1, 3], [1, 4], [2, 1], [2, 2], [2, 3], [2, 4]]);
+    expect(pair.message).toMatch(/2 fits from different starting weights, averaged \(maxIterations after 4; maxIterations after 4 outer iterations\)\.$/);
+    [pair, one, two].forEach((f) => f.dispose());
+  });
+
+  it('frees every member\'s tensors on dispose, and a cancelled first member ends the fit', async () => {
+    const start = tf.memory().numTensors;
+    const pair = await fitNetworkFqe(input({}, { method: { members: 2 } }));
+    pair.dispose();
+    expect(tf.memory().numTensors).toBe(start);
+    let iterations = 0;
+    const cancelled = await fitNetworkFqe(input({}, { method: { members: 2 }, onProgress: () => iterations++, isCancelled: () => iterations >= 2 }));
+    expect(cancelled).toMatchObject({ status: 'cancelled', members: 1 });
+    cancelled.dispose();
   });
 });
 

@@ -9,12 +9,22 @@
  */
 import type { RunProgress } from '../../../../shared/workerMessages';
 
+/**
+ * Position of a report within its candidate's fit, counting the iterations of a network fit's
+ * earlier members at their limit (an upper bound, as the limit is).
+ */
+export function iterationWithinFit(r: RunProgress): number {
+  const it = r.iteration;
+  if (!it) return 0;
+  return it.member && r.outerIterations !== null ? (it.member.index - 1) * r.outerIterations + it.iteration : it.iteration;
+}
+
 /** Iterations still to go for the candidate of the last report, or null when unknown. */
 export function iterationsRemaining(reports: readonly RunProgress[]): number | null {
   const last = reports[reports.length - 1];
   if (!last?.iteration) return null;
   const k = last.iteration.iteration;
-  if (last.outerIterations !== null) return Math.max(0, last.outerIterations - k);
+  if (last.outerIterations !== null) return Math.max(0, last.outerIterations * (last.iteration.member?.count ?? 1) - iterationWithinFit(last));
   if (last.maxIterations === null) return null;
   const cap = Math.max(0, last.maxIterations - k);
   const previous = [...reports].reverse().find((r) => r.candidateIndex === last.candidateIndex && r.iteration && r.iteration.iteration < k);
@@ -37,7 +47,7 @@ export function timeRemainingMs(reports: readonly RunProgress[], startsMs: reado
   const oldest = reports.find((r) => r.candidateIndex === last.candidateIndex);
   const started = startsMs[last.candidateIndex] ?? oldest?.elapsedMs;
   if (!oldest || started === undefined) return null;
-  const done = last.iteration.iteration - (oldest.iteration?.iteration ?? 0);
+  const done = iterationWithinFit(last) - iterationWithinFit(oldest);
   if (done <= 0) return null;
   const perIteration = (last.elapsedMs - oldest.elapsedMs) / done;
   const current = remaining * perIteration;
