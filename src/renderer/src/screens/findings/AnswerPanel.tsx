@@ -31,6 +31,7 @@ function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: A
       <p className="answer-lead" data-testid="answer-lead">
         <strong>Trial first: {pick.candidate.name}.</strong> J {valueAtIntervalPrecision(pick.candidate.policyValue.value, pick.candidate.policyValue.percentile)} {intervalText(pick.candidate.policyValue.percentile)}{unit ? ` ${unit}` : ''};
         {' '}{valueAtIntervalPrecision(Math.abs(d.difference.value), d.difference.percentile)}{unit ? ` ${unit}` : ''} {assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the {baseline} (difference {intervalText(d.difference.percentile)}), better in {shareText(d.probabilityBetter)} of resamples.
+        {' '}An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions above).
       </p>
     );
   }
