@@ -57,15 +57,44 @@ async function trendPoint(page: Page, seconds: number): Promise<{ x: number; y: 
   return { x: box.x + left + ((seconds - atLeft) / (atRight - atLeft)) * (right - left), y: box.y + box.height / 2 };
 }
 
-/** Press at one time, move to the other in steps, and (unless told not to) release. */
+/** The plot area the drag layer reports once it has held still for a moment (the trend may still be redrawing after an edit). */
+async function settledPlotArea(page: Page): Promise<void> {
+  const layer = page.getByTestId('trend-drag');
+  let previous: string | null = null;
+  await expect.poll(async () => {
+    const now = await layer.getAttribute('data-plot-area');
+    const still = now !== null && now === previous;
+    previous = now;
+    return still;
+  }, { timeout: POLL.timeout, interval: 400 }).toBe(true);
+}
+
+/**
+ * Press at one time, move to the other in steps, and (unless told not to) release. A press that
+ * lands while the trend is being redrawn or the page is still growing starts no drag (the plot area
+ * it was aimed at has moved), so the gesture is tried again from where the plot now is, as a
+ * person would, up to three times.
+ */
 async function dragTrend(page: Page, fromSeconds: number, toSeconds: number, release = true): Promise<void> {
-  await page.getByTestId('trend-drag').evaluate((e) => e.scrollIntoView({ block: 'center' }));
-  const a = await trendPoint(page, fromSeconds), b = await trendPoint(page, toSeconds);
-  await page.mouse.move(a.x, a.y);
-  await page.mouse.down();
-  await page.mouse.move(b.x, b.y, { steps: 8 });
-  // The span is on screen before the release, as a person sees it before letting go.
-  await expect.poll(() => page.getByTestId('trend-drag-span').count(), POLL).toBe(1);
+  const span = page.getByTestId('trend-drag-span');
+  for (let attempt = 1; ; attempt++) {
+    await settledPlotArea(page);
+    // Scrolled into view on every attempt: the page may have grown above the trend since (an import report).
+    await page.getByTestId('trend-drag').evaluate((e) => e.scrollIntoView({ block: 'center' }));
+    const a = await trendPoint(page, fromSeconds), b = await trendPoint(page, toSeconds);
+    await page.mouse.move(a.x, a.y);
+    await page.mouse.down();
+    await page.mouse.move(b.x, b.y, { steps: 8 });
+    // The span is on screen before the release, as a person sees it before letting go.
+    try {
+      await expect.poll(() => span.count(), { timeout: 5_000 }).toBe(1);
+      break;
+    } catch (error) {
+      await page.mouse.up();
+      if (process.env.DRAG_DEBUG) console.log('drag attempt', attempt, a, b, JSON.stringify(await page.getByTestId('trend-drag').boundingBox()));
+      if (attempt === 3) throw error;
+    }
+  }
   if (release) await page.mouse.up();
 }
 
