@@ -12,8 +12,8 @@
  */
 import type { NodeAverage } from './polynomialNodeAverage';
 
-/** Products of one-dimensional factors expanded in odometer order (the last factor fastest) into out[0 …]. */
-function expand(factors: readonly Float64Array[], out: Float64Array): number {
+/** Products of one-dimensional factors expanded in odometer order (the last factor fastest) into out[0 …]; returns their count. */
+export function expandProducts(factors: readonly Float64Array[], out: Float64Array): number {
   out[0] = 1;
   let size = 1;
   for (const f of factors) {
@@ -45,7 +45,7 @@ export function gridNodeAverage(spec: GridAverageSpec, ds: number): NodeAverage 
   };
   return (state, stateOffset, points, weights, k, out, outOffset) => {
     for (let v = 0; v < ds; v++) fill(v, (state[stateOffset + v] - mean[v]) / scale[v]);
-    expand(stateFactors, stateBumps);
+    expandProducts(stateFactors, stateBumps);
     actionMean.fill(0);
     zMean.fill(0);
     let weightSum = 0;
@@ -56,7 +56,7 @@ export function gridNodeAverage(spec: GridAverageSpec, ds: number): NodeAverage 
         fill(ds + c, z);
         zMean[c] += w * z;
       }
-      expand(actionFactors, nodeBumps);
+      expandProducts(actionFactors, nodeBumps);
       for (let a = 0; a < actionCount; a++) actionMean[a] += w * nodeBumps[a];
       weightSum += w;
     }

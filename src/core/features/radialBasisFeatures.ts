@@ -12,7 +12,7 @@
 import type { FeatureMap, RadialBasisFeatureSpec } from './featureTypes';
 import { FeatureSpecError } from './featureSpecError';
 import { MAX_FEATURES } from '../limits';
-import { gridNodeAverage } from './gridNodeAverage';
+import { expandProducts, gridNodeAverage } from './gridNodeAverage';
 import { readStandardiser, type StandardiserSpec } from './standardiser';
 
 export interface RadialBasisGridOptions {
@@ -117,16 +117,7 @@ function createGridBumps(axes: Float64Array[], inverseTwoWidthSq: number): (z: F
     axes.forEach((axis, v) => {
       for (let i = 0; i < axis.length; i++) factors[v][i] = Math.exp(-((z[v] - axis[i]) ** 2) * inverseTwoWidthSq);
     });
-    // Expand input by input: after input v the products over inputs 0…v, input v fastest.
-    scratch[0] = 1;
-    let size = 1;
-    for (const f of factors) {
-      for (let k = size - 1; k >= 0; k--) {
-        const prefix = scratch[k];
-        for (let i = f.length - 1; i >= 0; i--) scratch[k * f.length + i] = prefix * f[i];
-      }
-      size *= f.length;
-    }
+    expandProducts(factors, scratch); // input by input, the last input fastest
     for (let j = 0; j < total; j++) out[offset + j] = scratch[j];
   };
 }
