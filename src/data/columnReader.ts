@@ -118,7 +118,7 @@ function plainRecordTarget(
   numbers.forEach((sink, k) => { plan[sink.request.field] = k; });
   return {
     bytes, end: bytes.length, delimiter: delimiter.charCodeAt(0), markByte: decimalMark.charCodeAt(0), fieldCount, plan,
-    numbers: numbers.map((sink) => sink.values), starts: new Int32Array(fieldCount), ends: new Int32Array(fieldCount),
+    numbers: numbers.map((sink) => sink.values), starts: new Int32Array(fieldCount), ends: new Int32Array(fieldCount), exponent: 0,
   };
 }
 

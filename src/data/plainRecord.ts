@@ -13,6 +13,8 @@ import { QUOTE } from './csvScanner';
 
 const LF = 0x0a, CR = 0x0d, PLUS = 43, MINUS = 45, ZERO = 48, NINE = 57, LOWER_E = 101, UPPER_E = 69;
 const POWERS = Array.from({ length: 23 }, (_, k) => 10 ** k);
+/** Digits a plain number may have on the fast path: then its mantissa is below 10^15 (Clinger 1990). */
+const MAX_PLAIN_DIGITS = 15;
 
 /** What the fast path does with each field: NUMBER_BASE + k parses into number column k; BOUNDS records start/end; SKIP ignores. */
 export const SKIP = -1;
@@ -30,6 +32,8 @@ export interface PlainRecordTarget {
   /** Filled for BOUNDS and number fields. */
   readonly starts: Int32Array;
   readonly ends: Int32Array;
+  /** The last exponent read (scratch, so no object is made per cell). */
+  exponent: number;
 }
 
 /** Read record `r` starting at byte `from`; the offset after its line break, or −1 for the general path. */
@@ -68,35 +72,57 @@ export function plainRecord(t: PlainRecordTarget, from: number, r: number): numb
   }
 }
 
-/** Parse a plain number at i into numbers[k][r]; the offset after it, or −1 when it is not plain. */
+/**
+ * Parse a plain number at i into numbers[k][r]; the offset after it, or −1 when it is not plain.
+ * The integer and fraction digits are read in two tight loops; at most 15 digits in all (leading
+ * zeros included) keep the mantissa below 10^15, so the fast path is exact. A cell with more digits
+ * goes to the general reader, which gives the same double (numericBytes.ts).
+ */
 function plainNumber(t: PlainRecordTarget, from: number, k: number, r: number): number {
-  const { bytes: b, end, markByte, delimiter } = t;
-  let i = from, negative = false;
-  if (i < end && (b[i] === MINUS || b[i] === PLUS)) negative = b[i++] === MINUS;
-  let mantissa = 0, scale = 0, digits = 0, seenMark = false;
-  for (; i < end; i++) {
-    const c = b[i];
-    if (c >= ZERO && c <= NINE) {
-      digits++;
-      if (seenMark) scale--;
-      if (mantissa === 0 && c === ZERO) continue;
+  const { bytes: b, end } = t;
+  let i = from, negative = false, c = i < end ? b[i] : -1;
+  if (c === MINUS || c === PLUS) {
+    negative = c === MINUS;
+    c = ++i < end ? b[i] : -1;
+  }
+  const digitsFrom = i;
+  let mantissa = 0;
+  while (c >= ZERO && c <= NINE) {
+    mantissa = mantissa * 10 + (c - ZERO);
+    c = ++i < end ? b[i] : -1;
+  }
+  let digits = i - digitsFrom, scale = 0;
+  if (c === t.markByte) {
+    const fractionFrom = ++i;
+    c = i < end ? b[i] : -1;
+    while (c >= ZERO && c <= NINE) {
       mantissa = mantissa * 10 + (c - ZERO);
-      if (mantissa >= 1e15) return -1;
-    } else if (c === markByte && !seenMark) seenMark = true;
-    else break;
+      c = ++i < end ? b[i] : -1;
+    }
+    scale = fractionFrom - i;
+    digits += i - fractionFrom;
   }
-  if (digits === 0) return -1;
-  if (i < end && (b[i] === LOWER_E || b[i] === UPPER_E)) {
-    i++;
-    let exponentNegative = false, exponent = 0, exponentDigits = 0;
-    if (i < end && (b[i] === MINUS || b[i] === PLUS)) exponentNegative = b[i++] === MINUS;
-    for (; i < end && b[i] >= ZERO && b[i] <= NINE && exponentDigits < 4; i++, exponentDigits++) exponent = exponent * 10 + (b[i] - ZERO);
-    if (exponentDigits === 0) return -1;
-    scale += exponentNegative ? -exponent : exponent;
+  if (digits === 0 || digits > MAX_PLAIN_DIGITS) return -1;
+  if (c === LOWER_E || c === UPPER_E) {
+    i = plainExponent(t, i + 1);
+    if (i < 0) return -1;
+    scale += t.exponent;
+    c = i < end ? b[i] : -1;
   }
-  if (i < end && b[i] !== delimiter && b[i] !== LF && b[i] !== CR) return -1;
+  if (c !== -1 && c !== t.delimiter && c !== LF && c !== CR) return -1;
   if (scale > 22 || scale < -22) return -1;
   const magnitude = mantissa === 0 ? 0 : scale >= 0 ? mantissa * POWERS[scale] : mantissa / POWERS[-scale];
   t.numbers[k][r] = negative ? -magnitude : magnitude;
+  return i;
+}
+
+/** The exponent's digits from i (sign allowed, at most 4 digits) into t.exponent; the offset after them, or −1. */
+function plainExponent(t: PlainRecordTarget, from: number): number {
+  const { bytes: b, end } = t;
+  let i = from, negative = false, exponent = 0, exponentDigits = 0;
+  if (i < end && (b[i] === MINUS || b[i] === PLUS)) negative = b[i++] === MINUS;
+  for (; i < end && b[i] >= ZERO && b[i] <= NINE && exponentDigits < 4; i++, exponentDigits++) exponent = exponent * 10 + (b[i] - ZERO);
+  if (exponentDigits === 0) return -1;
+  t.exponent = negative ? -exponent : exponent;
   return i;
 }
