@@ -49,6 +49,7 @@ export async function evaluateProjectFile(
   }
   const folder = dirname(resolve(projectPath));
   let refusal: CliFailure | null = null;
+  const cancel = progress ? () => progress.cancelled() : undefined;
   const opened = await openProject(text, basename(projectPath), async (relativePath) => {
     const dataPath = resolve(folder, relativePath);
     refusal = (await check?.({ projectPath: resolve(projectPath), dataPath })) ?? null;
@@ -58,15 +59,14 @@ export async function evaluateProjectFile(
     } catch (e) {
       throw e instanceof HostFileError ? new Error(e.reason) : e;
     }
-  });
+  }, { cancel, pace: progress?.pace });
   if (refusal) return { ok: false, failure: refusal };
-  if (!opened.ok) return { ok: false, failure: { message: describeProblems(opened.problems), exitCode: 1 } };
+  if (!opened.ok) return { ok: false, failure: failureOf(opened.problems) };
   const { project, dataset, warnings } = opened.value;
   const settings = assessmentSettingsFor(project, overrides);
   if (!settings.ok) return { ok: false, failure: { message: describeProblems(settings.problems), exitCode: 2 } };
   const wasmPath = tensorflowWasmFolder();
   if (project.approximator.kind === 'network') await quietTensorflow();
-  const cancel = progress ? () => progress.cancelled() : undefined;
   const started = await startRun(project, dataset, { wasmPath, cancel, pace: progress?.pace, onProgress: progress?.evaluation });
   if (!started.ok) return { ok: false, failure: failureOf(started.problems) };
   const run = started.value;

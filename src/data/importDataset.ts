@@ -17,7 +17,8 @@ import { isBlank } from './cellText';
 import { readHeader } from './csvHeader';
 import { resolveDialect, type Dialect } from './csvDialect';
 import { planColumns, timestampColumnOf, type ColumnPlan } from './columnPlan';
-import { readColumns, type TableColumns } from './columnReader';
+import { readColumnsSteps, type TableColumns } from './columnReader';
+import { runSteps, type PassSteps } from '../core/fqe/cancellation';
 import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
 import { rewardColumn } from './rewardColumn';
@@ -56,6 +57,14 @@ export interface ImportedDataset {
 const lineOf = (record: number): number => record + 2;
 
 export function importDataset(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): Result<ImportedDataset> {
+  return runSteps(importDatasetSteps(source, fileName, csv, columns));
+}
+
+/**
+ * importDataset as a generator that yields between blocks of records and between stages
+ * (core/fqe/cancellation.ts), so a host that drives it paced hears a stop request within a block.
+ */
+export function* importDatasetSteps(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): PassSteps<Result<ImportedDataset>> {
   const decoded = sourceBytes(source);
   if (!decoded.ok) return failure(importProblem(decoded.kind, fileName, decoded.reason));
   const { bytes, start } = decoded, encoding = { name: decoded.encoding, how: decoded.how };
@@ -70,7 +79,7 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   if (!plan) return failure(...namingProblems);
   const problems = new RowProblems();
   const data = { bytes, start: header.dataStart, firstLine: header.firstDataLine };
-  const table = readColumns(data, dialect.delimiter, dialect.decimalMark, header.names.length, plan.requests, problems);
+  const table = yield* readColumnsSteps(data, dialect.delimiter, dialect.decimalMark, header.names.length, plan.requests, problems);
   if (table.recordCount === 0) {
     return failure(importProblem('header-only', `${fileName}, line 2`, 'the file has a header line but no data rows below it'));
   }
@@ -85,7 +94,8 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
   const inWindow = recordsInWindows(read.windows, timestamps?.seconds, table.recordCount);
   inWindow.forEach((w, r) => { if (w > 0) problems.forget(r); });
   if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf), badRowsHint(problems.badRecords().length, fileName));
-  return assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding, clock, windows: read.windows, inWindow });
+  yield;
+  return yield* assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding, clock, windows: read.windows, inWindow });
 }
 
 function settleTimestampColumn(columns: ColumnRoles, table: TableColumns, problems: RowProblems): (SettledTimestamps & { column: string }) | undefined {
@@ -109,7 +119,7 @@ interface Stages {
   inWindow: Uint16Array; // records: 1 + the window holding the record, or 0
 }
 
-function assemble(s: Stages): Result<ImportedDataset> {
+function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   const { columns, table, fileName } = s;
   const kept = new Uint8Array(table.recordCount).fill(1);
   for (const r of s.problems.badRecords()) kept[r] = 0;
@@ -126,6 +136,7 @@ function assemble(s: Stages): Result<ImportedDataset> {
     isBlankLine: (r: number) => s.problems.firstProblem(r)?.problem.kind === 'blank-line',
   };
   const derived = derivedStates(s, episodeInputs, assignEpisodes(columns.episode, episodeInputs));
+  yield;
   const { episodes, derivedValues } = derived;
   const usedRows = derived.kept;
   const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
@@ -140,7 +151,9 @@ function assemble(s: Stages): Result<ImportedDataset> {
   if (transitions.count === 0) {
     return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every run has a single usable row; expected consecutive rows of the same run (or next-state columns)'));
   }
+  yield;
   const summary = summarise(s, kept, transitions, derivedValues, usedRows);
+  yield;
   const excluded = excludedRows(s.problems, lineOf);
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
   const timeWindows = leftOutWindows(s.windows, s.inWindow, kept, s.windows.length > 0 ? runsApart(columns.episode, episodeInputs) : undefined);

@@ -5,10 +5,13 @@
  */
 import { failure, success, type Problem, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
-import { importDataset, type ImportedDataset } from '../data/importDataset';
+import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, throwIfCancelled, type CancellationCheck, type PassSteps } from '../core/fqe/cancellation';
+import { FqeCancelledError } from '../core/fqe/fqeErrors';
+import { importDatasetSteps, type ImportedDataset } from '../data/importDataset';
 import { parseProjectText } from '../project/projectFile';
 import type { ProjectDocument } from '../project/schema';
-import { dataFingerprint } from './dataFingerprint';
+import { dataFingerprintSteps } from './dataFingerprint';
+import { CANCELLED_PROBLEM } from './cancelledProblem';
 
 export interface OpenedProject {
   project: ProjectDocument;
@@ -23,7 +26,14 @@ export interface OpenedProject {
 /** Reads the data file named in the project (a path relative to the project's folder). */
 export type DataFileReader = (relativePath: string) => Promise<Uint8Array>;
 
-export async function openProject(projectText: string, projectFileName: string, readDataFile: DataFileReader): Promise<Result<OpenedProject>> {
+/** What a host may give a paced import: a stop request, polled between blocks of records, and the pacer awaited there. */
+export interface ImportHooks {
+  readonly cancel?: CancellationCheck;
+  /** Default: a yield to the event loop about every PACE_INTERVAL_MS. */
+  readonly pace?: () => Promise<void>;
+}
+
+export async function openProject(projectText: string, projectFileName: string, readDataFile: DataFileReader, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
   const loaded = parseProjectText(projectText, projectFileName);
   if (!loaded.ok) return loaded;
   const project = loaded.value.document;
@@ -36,13 +46,35 @@ export async function openProject(projectText: string, projectFileName: string, 
       message: `cannot read the data file "${project.data.path}" (${(e as Error).message}); it may have moved: point the project to its new location`,
     });
   }
-  return importProjectData(project, bytes);
+  return importProjectDataPaced(project, bytes, hooks);
 }
 
 /** Import already-read data bytes for a project, checking them against the saved fingerprint. */
 export function importProjectData(project: ProjectDocument, bytes: Uint8Array): Result<OpenedProject> {
-  const fingerprint = dataFingerprint(bytes);
-  const imported = importDataset(bytes, project.data.path, project.data.csv, project.columns);
+  return runSteps(importSteps(project, bytes));
+}
+
+/**
+ * importProjectData yielding to the event loop between blocks (hooks.pace), so that a stop request
+ * (Ctrl+C, a message to the worker) is heard during the import; then it ends with the one
+ * "cancelled" problem (CANCELLED_PROBLEM) and keeps nothing.
+ */
+export async function importProjectDataPaced(project: ProjectDocument, bytes: Uint8Array, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
+  const pace = hooks.pace ?? createPacer(PACE_INTERVAL_MS);
+  try {
+    return await runStepsPaced(importSteps(project, bytes), async () => {
+      await pace();
+      throwIfCancelled(hooks.cancel);
+    });
+  } catch (error) {
+    if (error instanceof FqeCancelledError) return failure(CANCELLED_PROBLEM);
+    throw error;
+  }
+}
+
+function* importSteps(project: ProjectDocument, bytes: Uint8Array): PassSteps<Result<OpenedProject>> {
+  const fingerprint = yield* dataFingerprintSteps(bytes);
+  const imported = yield* importDatasetSteps(bytes, project.data.path, project.data.csv, project.columns);
   if (!imported.ok) return imported;
   const warnings: Problem[] = [...imported.warnings];
   const saved = project.data.sha256;

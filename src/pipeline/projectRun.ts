@@ -14,6 +14,7 @@ import type { CandidateModel } from './model/candidateModel';
 import { buildModel } from './model/buildModel';
 import type { ModelHooks } from './model/modelHooks';
 import { planEvaluation, type EvaluationPlan } from './plan/evaluationPlan';
+import { CANCELLED_PROBLEM } from './cancelledProblem';
 
 export interface EvaluationProgress {
   candidate: string;
@@ -38,7 +39,7 @@ export interface ProjectRun {
   dispose(): void;
 }
 
-export const CANCELLED_PROBLEM: Problem = { where: 'evaluation', message: 'cancelled before it finished; no results were kept' };
+export { CANCELLED_PROBLEM } from './cancelledProblem';
 
 export async function startRun(project: ProjectDocument, dataset: TransitionSet, hooks: RunHooks = {}): Promise<Result<ProjectRun>> {
   const planned = planEvaluation(project, dataset);
