@@ -128,7 +128,13 @@ export interface WorkerCalls {
   setData: { args: { bytes: Uint8Array; fileName: string; csv: CsvSettings }; value: DataInspection };
   /** Look at the kept data file's first lines again with other CSV settings. */
   inspect: { args: { csv: CsvSettings }; value: DataInspection };
+  /**
+   * Import the kept data file for the project (or reuse the last import). It yields between blocks
+   * of records: a newer importData, setData or stopImport heard meanwhile ends it as cancelled.
+   */
   importData: { args: { project: ProjectDocument }; value: DataImport };
+  /** Ask the import in progress to stop at its next block of records; nothing when none runs. */
+  stopImport: { args: Record<string, never>; value: null };
   evaluate: { args: { project: ProjectDocument }; value: Evaluation };
   surface: { args: { query: SurfaceQuery }; value: ValueSurface };
   slice: { args: { query: SliceQuery }; value: ActionSliceReply };

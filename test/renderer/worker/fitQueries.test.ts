@@ -75,8 +75,8 @@ describe('evaluation worker handlers', async () => {
     expect(slice.policyName).toBe(c.name);
   });
 
-  it('summarises the import with an even sample and the behaviour model', () => {
-    const opened = memory.open(project);
+  it('summarises the import with an even sample and the behaviour model', async () => {
+    const opened = await memory.open(project);
     if (!opened.ok) throw new Error('import failed');
     const summary = dataImportSummary(opened.value);
     expect(summary.sample.count).toBe(Math.ceil(19_960 / Math.ceil(19_960 / 2000)));

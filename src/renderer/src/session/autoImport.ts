@@ -2,7 +2,8 @@
  * Imports follow the document: whenever the CSV settings, the column roles or the data bytes
  * change, and the roles are complete enough to read transitions, the worker imports again (after
  * a short pause, so a burst of edits costs one import). CSV settings that change the dialect also
- * refresh the header preview.
+ * refresh the header preview. An import in progress stops in the worker when a newer one is asked
+ * for, and on a stop message when the roles no longer make transitions.
  */
 import type { ProjectDocument } from '../../../project/schema';
 import type { DocumentStore } from '../document/documentStore';
@@ -55,6 +56,7 @@ export function startAutoImport(documents: DocumentStore, session: SessionStore,
     if (timer) clearTimeout(timer);
     if (!rolesComplete(doc)) {
       importedKey = '';
+      if (s.importState.status === 'importing') void client.call('stopImport', {}); // its answer would be dropped anyway
       if (s.importState.status !== 'idle') session.set((x) => ({ ...x, importState: { status: 'idle' } }));
       return;
     }

@@ -1,7 +1,8 @@
 /**
  * One evaluation inside the worker: import (or reuse) the data, start the run — plan and one model
  * per candidate — with progress reports at most every PROGRESS_INTERVAL_MS, keep the run for
- * surface and slice queries and the assessment, and answer with the evaluation. The fit loops are
+ * surface and slice queries and the assessment, and answer with the evaluation. The import yields
+ * between blocks of records (a newer import or a stop message ends it); the fit loops are
  * synchronous, so the renderer stops a run by terminating this worker.
  */
 import { success, type Result } from '../../../core/result';
@@ -17,7 +18,7 @@ const PROGRESS_INTERVAL_MS = 100;
 export async function runEvaluation(
   memory: WorkerMemory, project: ProjectDocument, report: (progress: RunProgress) => void, clock: () => number = () => performance.now(),
 ): Promise<Result<Evaluation>> {
-  const opened = memory.open(project);
+  const opened = await memory.open(project);
   if (!opened.ok) return opened;
   // The network fit picks its TensorFlow.js backend itself (wasm where it verifies, else cpu); it
   // only needs to know where the wasm files are served, before the backend first starts.

@@ -36,7 +36,7 @@ async function answer(request: WorkerRequest): Promise<Result<unknown>> {
       return inspectData(bytes, fileName, request.csv);
     }
     case 'importData': {
-      const opened = memory.open(request.project);
+      const opened = await memory.open(request.project);
       return opened.ok ? success(dataImportSummary(opened.value), opened.warnings) : opened;
     }
     case 'evaluate':
@@ -47,6 +47,9 @@ async function answer(request: WorkerRequest): Promise<Result<unknown>> {
       return success(sliceFromFit(memory.lastRun(), request.query));
     case 'assess':
       return runAssessment(memory, request.project, (progress) => post({ kind: 'assessmentProgress', id: request.id, progress }));
+    case 'stopImport':
+      memory.stopImport();
+      return success(null);
     case 'stopAssessment':
       memory.assessmentStop.requested = true;
       return success(null);

@@ -1,11 +1,13 @@
 /**
  * What the evaluation worker remembers between requests: the data file's bytes, the last import
- * (reused while the project's data settings and column roles stay the same), and the last run —
+ * (reused while the project's data settings and column roles stay the same), the import in
+ * progress (it yields between blocks of records, so a request for another import, new data or a
+ * stop message is heard during it and stops it: it ends as cancelled), and the last run —
  * the plan and every candidate's model (src/pipeline/projectRun.ts) — kept to redraw surfaces and
  * slices and to be extended by the assessment, until the next run or data file.
  */
 import { failure, type Result } from '../../../core/result';
-import { importProjectData, type OpenedProject } from '../../../pipeline/openProject';
+import { importProjectDataPaced, type OpenedProject } from '../../../pipeline/openProject';
 import type { ProjectRun } from '../../../pipeline/projectRun';
 import type { ProjectDocument } from '../../../project/schema';
 import { runKey } from '../../../shared/runKey';
@@ -26,8 +28,13 @@ export class WorkerQueryError extends Error {
 export interface WorkerMemory {
   setData(bytes: Uint8Array, fileName: string): void;
   data(): { bytes: Uint8Array; fileName: string };
-  /** Import the data for project, or reuse the last import when nothing it depends on changed. */
-  open(project: ProjectDocument): Result<OpenedProject>;
+  /**
+   * Import the data for project, or reuse the last import (or the one in progress) when nothing it
+   * depends on changed. A different import in progress is stopped: it answers as cancelled.
+   */
+  open(project: ProjectDocument): Promise<Result<OpenedProject>>;
+  /** Stop the import in progress at its next block (it answers with CANCELLED_PROBLEM); nothing when none runs. */
+  stopImport(): void;
   /** Release the previous run and keep this one. */
   keepRun(evaluated: EvaluatedRun): void;
   /** Release the previous run (a new one is starting). */
@@ -46,9 +53,31 @@ function importKey(project: ProjectDocument): string {
   return JSON.stringify([project.data, project.columns]);
 }
 
-export function createWorkerMemory(): WorkerMemory {
+/** An import in progress: its key, its answer to come, and its stop request. */
+interface RunningImport {
+  readonly key: string;
+  readonly answer: Promise<Result<OpenedProject>>;
+  readonly stop: { requested: boolean };
+}
+
+export function createWorkerMemory(pace?: () => Promise<void>): WorkerMemory {
   let data: { bytes: Uint8Array; fileName: string } | null = null;
   let cached: { key: string; opened: OpenedProject } | null = null;
+  let running: RunningImport | null = null;
+  const stopImport = (): void => {
+    if (running) running.stop.requested = true;
+    running = null;
+  };
+  const startImport = (project: ProjectDocument, bytes: Uint8Array, key: string): RunningImport => {
+    const stop = { requested: false };
+    const answer = importProjectDataPaced(project, bytes, { cancel: () => stop.requested, pace }).then((opened) => {
+      if (stop.requested) return opened; // superseded: its answer is its own, the memory keeps nothing of it
+      if (running?.stop === stop) running = null;
+      cached = opened.ok ? { key, opened: opened.value } : null;
+      return opened;
+    });
+    return { key, answer, stop };
+  };
   let last: EvaluatedRun | null = null;
   const dropRun = (): void => {
     last?.run.dispose();
@@ -56,6 +85,7 @@ export function createWorkerMemory(): WorkerMemory {
   };
   return {
     setData(bytes, fileName) {
+      stopImport();
       data = { bytes, fileName };
       cached = null;
       dropRun();
@@ -64,14 +94,18 @@ export function createWorkerMemory(): WorkerMemory {
       if (!data) throw new WorkerQueryError(NO_DATA);
       return data;
     },
-    open(project) {
+    async open(project) {
       if (!data) return failure({ where: 'data', message: NO_DATA });
       const key = importKey(project);
       if (cached && cached.key === key) return { ok: true, value: { ...cached.opened, project }, warnings: cached.opened.warnings };
-      const opened = importProjectData(project, data.bytes);
-      cached = opened.ok ? { key, opened: opened.value } : null;
-      return opened;
+      if (running?.key !== key) {
+        stopImport();
+        running = startImport(project, data.bytes, key);
+      }
+      const opened = await running.answer;
+      return opened.ok ? { ok: true, value: { ...opened.value, project }, warnings: opened.warnings } : opened;
     },
+    stopImport,
     keepRun(evaluated) {
       dropRun();
       last = evaluated;
