@@ -4,8 +4,9 @@
  * decimal commas) is written once to a temp file by a separate process, then this process reads its
  * bytes as the command line does and imports them into a TransitionSet (dialect, header, cells,
  * timestamps, episodes, transitions, summary), and bench/importReference.py reads the same file
- * with numpy.loadtxt and with the csv module. Prints, never asserts; peak memory is this process's
- * (getrusage maxRSS), so it includes Node itself and the file's bytes.
+ * with numpy.loadtxt and with the csv module. Prints MB/s and rows/s (wall and CPU), peak memory and
+ * the ratios of our time to the Python reads' (below 1: faster); never asserts. Peak memory is this
+ * process's (getrusage maxRSS), so it includes Node itself, the TypeScript loader and the file's bytes.
  *   npm run bench -- import        or        npx tsx bench/importBench.ts 1000000
  */
 import { execFileSync } from 'node:child_process';
@@ -85,16 +86,21 @@ export async function runImportBench(rows: number): Promise<Record<string, numbe
   if (!result.ok) throw new Error(`benchmark import failed: ${result.problems[0].where}: ${result.problems[0].message}`);
   const peakRssMiB = process.resourceUsage().maxRSS / 1024;
   const reference = pythonReference(path);
+  const rowsRead = result.value.rowCount;
   const figures: Record<string, number | string> = {
-    'file MB': megabytes, transitions: result.value.transitions.count,
+    'file MB': megabytes, 'rows read': rowsRead, transitions: result.value.transitions.count,
     'read + import s (wall)': seconds, 'read + import s (CPU)': cpuSeconds,
-    'MB/s (wall)': megabytes / seconds, 'MB/s (CPU)': megabytes / cpuSeconds, 'peak RSS MiB': peakRssMiB,
+    'MB/s (wall)': megabytes / seconds, 'MB/s (CPU)': megabytes / cpuSeconds,
+    'rows/s (wall)': rowsRead / seconds, 'rows/s (CPU)': rowsRead / cpuSeconds, 'peak RSS MiB': peakRssMiB,
   };
   if (!reference) return { ...figures, 'numerical Python': 'python3 with numpy not available' };
+  const { numpyLoadtxt: loadtxt, csvModule } = reference;
   return {
     ...figures,
-    'numpy.loadtxt s (CPU)': reference.numpyLoadtxt.cpuSeconds, 'csv module s (CPU)': reference.csvModule.cpuSeconds,
-    'ratio to loadtxt (CPU)': cpuSeconds / reference.numpyLoadtxt.cpuSeconds, 'ratio to csv module (CPU)': cpuSeconds / reference.csvModule.cpuSeconds,
+    'numpy.loadtxt s (wall)': loadtxt.wallSeconds, 'numpy.loadtxt s (CPU)': loadtxt.cpuSeconds, 'numpy.loadtxt MB/s (CPU)': megabytes / loadtxt.cpuSeconds,
+    'csv module s (CPU)': csvModule.cpuSeconds,
+    'ratio to loadtxt (wall)': seconds / loadtxt.wallSeconds, 'ratio to loadtxt (CPU)': cpuSeconds / loadtxt.cpuSeconds,
+    'ratio to csv module (CPU)': cpuSeconds / csvModule.cpuSeconds,
     'Python peak RSS MiB': reference.peakRssMiB, numpy: reference.numpy,
   };
 }
