@@ -49,21 +49,33 @@ export function signalEnvelope(
   const rows = time.length;
   const per = Math.max(1, Math.ceil(rows / buckets)), groups = Math.ceil(rows / per);
   const groupTime = new Float64Array(groups).fill(NaN);
-  for (let r = 0; r < rows; r++) {
-    const g = Math.floor(r / per);
-    if (Number.isNaN(groupTime[g])) groupTime[g] = time[r];
+  for (let g = 0; g < groups; g++) {
+    for (let r = g * per, last = Math.min(rows, r + per); r < last; r++) {
+      if (!Number.isNaN(time[r])) {
+        groupTime[g] = time[r];
+        break;
+      }
+    }
   }
   let endTime = NaN;
   for (let r = rows - 1; r >= 0 && Number.isNaN(endTime); r--) endTime = time[r];
   const signals = inputs.map(({ name, role, unit, values }) => {
-    const lo = new Float64Array(groups).fill(NaN), hi = new Float64Array(groups).fill(NaN);
-    for (let r = 0; r < rows; r++) {
-      const v = values[r], g = Math.floor(r / per);
-      if (!Number.isFinite(v)) continue;
-      if (!(v >= lo[g])) lo[g] = v; // NaN compares false: the first value sets both
-      if (!(v <= hi[g])) hi[g] = v;
-    }
+    const lo = new Float64Array(groups), hi = new Float64Array(groups);
+    for (let g = 0; g < groups; g++) envelopeOfGroup(values, g * per, Math.min(rows, (g + 1) * per), lo, hi, g);
     return { name, role, unit, lo, hi };
   });
   return { clock, calendar, time: groupTime, endTime, rowsPerGroup: per, rowCount: rows, signals };
+}
+
+/** lo[g], hi[g]: the least and greatest finite value of values[from, to), NaN when there is none (selects, not branches). */
+function envelopeOfGroup(values: Float64Array, from: number, to: number, lo: Float64Array, hi: Float64Array, g: number): void {
+  let least = NaN, greatest = NaN;
+  for (let r = from; r < to; r++) {
+    const v = values[r];
+    if (!Number.isFinite(v)) continue;
+    least = v >= least ? least : v; // NaN compares false: the first value sets both
+    greatest = v <= greatest ? greatest : v;
+  }
+  lo[g] = least;
+  hi[g] = greatest;
 }
