@@ -12,12 +12,10 @@ import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
 import type { TransitionSet } from '../core/transitions';
 import type { TextEncodingName } from './sourceText';
-import { sampleText, sourceBytes } from './sourceBytes';
-import { isBlank } from './cellText';
-import { readHeader } from './csvHeader';
-import { resolveDialect, type Dialect } from './csvDialect';
-import { planColumns, timestampColumnOf, type ColumnPlan } from './columnPlan';
-import { readColumnsSteps, type TableColumns } from './columnReader';
+import type { Dialect } from './csvDialect';
+import { timestampColumnOf, type ColumnPlan } from './columnPlan';
+import type { TableColumns } from './columnReader';
+import { readTableSteps, type ImportSource } from './csvTable';
 import { runSteps, type PassSteps } from '../core/fqe/cancellation';
 import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
@@ -36,6 +34,7 @@ export type { ExcludedRow } from './importReport';
 export type { LeftOutWindow, LogClock } from './timeWindows';
 export type { TrendData, TrendSignal } from './trendSeries';
 export type { ImportProblem, ImportProblemKind } from './importProblem';
+export type { HandedBytes, ImportSource } from './csvTable';
 
 export interface ImportedDataset {
   transitions: TransitionSet;
@@ -56,7 +55,7 @@ export interface ImportedDataset {
 
 const lineOf = (record: number): number => record + 2;
 
-export function importDataset(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): Result<ImportedDataset> {
+export function importDataset(source: ImportSource, fileName: string, csv: CsvSettings, columns: ColumnRoles): Result<ImportedDataset> {
   return runSteps(importDatasetSteps(source, fileName, csv, columns));
 }
 
@@ -64,22 +63,10 @@ export function importDataset(source: string | Uint8Array, fileName: string, csv
  * importDataset as a generator that yields between blocks of records and between stages
  * (core/fqe/cancellation.ts), so a host that drives it paced hears a stop request within a block.
  */
-export function* importDatasetSteps(source: string | Uint8Array, fileName: string, csv: CsvSettings, columns: ColumnRoles): PassSteps<Result<ImportedDataset>> {
-  const decoded = sourceBytes(source);
-  if (!decoded.ok) return failure(importProblem(decoded.kind, fileName, decoded.reason));
-  const { bytes, start } = decoded, encoding = { name: decoded.encoding, how: decoded.how };
-  if (isBlank(bytes, start, bytes.length)) return failure(importProblem('empty-file', fileName, 'the file is empty; expected a header line of column names and data rows below it'));
-  const dialect = resolveDialect(sampleText(bytes, start), csv.delimiter, csv.decimalMark);
-  const header = readHeader(bytes, start, dialect.delimiter);
-  if (!header.ok) return failure(importProblem('header-too-long', `${fileName}, line 1`, header.reason));
-  if (header.names.every((name) => name === '')) {
-    return failure(importProblem('blank-header', `${fileName}, line 1`, 'the first line is blank; expected the header: column names separated by the delimiter'));
-  }
-  const { plan, problems: namingProblems } = planColumns(header.names, columns, fileName, dialect.decimalMark);
-  if (!plan) return failure(...namingProblems);
-  const problems = new RowProblems();
-  const data = { bytes, start: header.dataStart, firstLine: header.firstDataLine };
-  const table = yield* readColumnsSteps(data, dialect.delimiter, dialect.decimalMark, header.names.length, plan.requests, problems);
+export function* importDatasetSteps(source: ImportSource, fileName: string, csv: CsvSettings, columns: ColumnRoles): PassSteps<Result<ImportedDataset>> {
+  const csvTable = yield* readTableSteps(source, fileName, csv, columns);
+  if (!csvTable.ok) return csvTable;
+  const { table, plan, dialect, encoding, problems } = csvTable.value;
   if (table.recordCount === 0) {
     return failure(importProblem('header-only', `${fileName}, line 2`, 'the file has a header line but no data rows below it'));
   }

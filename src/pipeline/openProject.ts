@@ -7,7 +7,7 @@ import { failure, success, type Problem, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, throwIfCancelled, type CancellationCheck, type PassSteps } from '../core/fqe/cancellation';
 import { FqeCancelledError } from '../core/fqe/fqeErrors';
-import { importDatasetSteps, type ImportedDataset } from '../data/importDataset';
+import { importDatasetSteps, type HandedBytes, type ImportedDataset } from '../data/importDataset';
 import { parseProjectText } from '../project/projectFile';
 import type { ProjectDocument } from '../project/schema';
 import { dataFingerprintSteps } from './dataFingerprint';
@@ -37,20 +37,20 @@ export async function openProject(projectText: string, projectFileName: string, 
   const loaded = parseProjectText(projectText, projectFileName);
   if (!loaded.ok) return loaded;
   const project = loaded.value.document;
-  let bytes: Uint8Array;
+  let handed: HandedBytes; // handed over: the import lets go of the file's bytes after its read pass
   try {
-    bytes = await readDataFile(project.data.path);
+    handed = { bytes: await readDataFile(project.data.path) };
   } catch (e) {
     return failure({
       where: `${projectFileName}, data.path`,
       message: `cannot read the data file "${project.data.path}" (${(e as Error).message}); it may have moved: point the project to its new location`,
     });
   }
-  return importProjectDataPaced(project, bytes, hooks);
+  return importProjectDataPaced(project, handed, hooks);
 }
 
 /** Import already-read data bytes for a project, checking them against the saved fingerprint. */
-export function importProjectData(project: ProjectDocument, bytes: Uint8Array): Result<OpenedProject> {
+export function importProjectData(project: ProjectDocument, bytes: Uint8Array | HandedBytes): Result<OpenedProject> {
   return runSteps(importSteps(project, bytes));
 }
 
@@ -59,7 +59,7 @@ export function importProjectData(project: ProjectDocument, bytes: Uint8Array): 
  * (Ctrl+C, a message to the worker) is heard during the import; then it ends with the one
  * "cancelled" problem (CANCELLED_PROBLEM) and keeps nothing.
  */
-export async function importProjectDataPaced(project: ProjectDocument, bytes: Uint8Array, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
+export async function importProjectDataPaced(project: ProjectDocument, bytes: Uint8Array | HandedBytes, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
   const pace = hooks.pace ?? createPacer(PACE_INTERVAL_MS);
   try {
     return await runStepsPaced(importSteps(project, bytes), async () => {
@@ -72,8 +72,8 @@ export async function importProjectDataPaced(project: ProjectDocument, bytes: Ui
   }
 }
 
-function* importSteps(project: ProjectDocument, bytes: Uint8Array): PassSteps<Result<OpenedProject>> {
-  const fingerprint = yield* dataFingerprintSteps(bytes);
+function* importSteps(project: ProjectDocument, bytes: Uint8Array | HandedBytes): PassSteps<Result<OpenedProject>> {
+  const fingerprint = yield* dataFingerprintSteps(bytes instanceof Uint8Array ? bytes : bytes.bytes ?? new Uint8Array(0));
   const imported = yield* importDatasetSteps(bytes, project.data.path, project.data.csv, project.columns);
   if (!imported.ok) return imported;
   const warnings: Problem[] = [...imported.warnings];
