@@ -86,7 +86,10 @@ interface Reading {
   readonly fieldCount: number;
   readonly problems: RowProblems;
   readonly sinks: ColumnSink[];
+  /** Sinks the fast path gives the bounds of their cell (labels, flags, timestamps with dates). */
   readonly others: ColumnSink[];
+  /** Timestamp sinks the fast path parses as plain seconds, until their column shows a date. */
+  readonly plainTimes: ColumnSink[];
   readonly scanner: CsvScanner;
   readonly fast: PlainRecordTarget | null;
   readonly lineOffset: number;
@@ -105,11 +108,14 @@ function startReading(
   const { bytes } = data;
   const capacity = recordBound(bytes, data.start);
   const sinks = requests.map((request) => new ColumnSink(request, capacity, decimalMark));
-  const numbers = sinks.filter((s) => s.request.kind === 'number'), others = sinks.filter((s) => s.request.kind !== 'number');
+  const numbers = sinks.filter((s) => s.request.kind === 'number'), numberFields = new Set(numbers.map((s) => s.request.field));
+  // A timestamp of plain seconds reads the same under either day/month order, so the fast path parses it like a number.
+  const plainTimes = fastPath && decimalMark !== delimiter ? sinks.filter((s) => s.request.kind === 'timestamp' && !numberFields.has(s.request.field)) : [];
+  const others = sinks.filter((s) => s.request.kind !== 'number' && !plainTimes.includes(s));
   return {
-    bytes, fieldCount, problems, sinks, others,
+    bytes, fieldCount, problems, sinks, others, plainTimes,
     scanner: new CsvScanner(bytes, delimiter.charCodeAt(0), fieldCount, data.start),
-    fast: fastPath ? plainRecordTarget(bytes, delimiter, decimalMark, fieldCount, numbers, others) : null,
+    fast: fastPath ? plainRecordTarget(bytes, delimiter, decimalMark, fieldCount, [...numbers, ...plainTimes], others) : null,
     lineOffset: data.firstLine - 1, blanks: [],
     record: 0, lastContent: -1, lastLine: data.firstLine - 1, position: data.start, line: 1,
   };
@@ -150,11 +156,24 @@ function readBlock(g: Reading, limit: number): boolean {
       continue;
     }
     for (const sink of sinks) sink.read(bytes, starts[sink.request.field], ends[sink.request.field], escaped[sink.request.field], r, problems);
+    if (g.plainTimes.length > 0) handBackDated(g);
   }
   g.record = record;
   g.position = position;
   g.line = line;
   return position < bytes.length;
+}
+
+/**
+ * A timestamp column that has shown a date keeps both day/month readings (ColumnSink.alternate), so
+ * its cells go back to the sink's own reader: the fast path gives their bounds from now on.
+ */
+function handBackDated(g: Reading): void {
+  for (const sink of g.plainTimes.filter((s) => s.alternate !== undefined)) {
+    g.fast!.plan[sink.request.field] = BOUNDS;
+    g.others.push(sink);
+    g.plainTimes.splice(g.plainTimes.indexOf(sink), 1);
+  }
 }
 
 /** Blank lines followed by content are bad rows (blank lines at the end of the file are none). */
@@ -163,17 +182,17 @@ function flushBlanks(blanks: number[], fieldCount: number, problems: RowProblems
   blanks.length = 0;
 }
 
-/** The fast path's plan, or null when it cannot apply (a decimal mark that is also the delimiter). */
+/** The fast path's plan (`parsed`: sinks it parses plain numbers into; `others`: sinks it gives bounds), or null when it cannot apply (a decimal mark that is also the delimiter). */
 function plainRecordTarget(
-  bytes: Uint8Array, delimiter: Delimiter, decimalMark: DecimalMark, fieldCount: number, numbers: ColumnSink[], others: ColumnSink[],
+  bytes: Uint8Array, delimiter: Delimiter, decimalMark: DecimalMark, fieldCount: number, parsed: ColumnSink[], others: ColumnSink[],
 ): PlainRecordTarget | null {
   if (decimalMark === delimiter) return null;
   const plan = new Int32Array(fieldCount).fill(SKIP);
   others.forEach((sink) => { plan[sink.request.field] = BOUNDS; });
-  numbers.forEach((sink, k) => { plan[sink.request.field] = k; });
+  parsed.forEach((sink, k) => { plan[sink.request.field] = k; });
   return {
     bytes, end: bytes.length, delimiter: delimiter.charCodeAt(0), markByte: decimalMark.charCodeAt(0), fieldCount, plan,
-    numbers: numbers.map((sink) => sink.values), starts: new Int32Array(fieldCount), ends: new Int32Array(fieldCount), exponent: 0,
+    numbers: parsed.map((sink) => sink.values), starts: new Int32Array(fieldCount), ends: new Int32Array(fieldCount), exponent: 0,
   };
 }
 
