@@ -34,9 +34,16 @@ export function trendOfImport(
   const sense = columns.reward.sense;
   const sign = sense === 'cost' ? -1 : 1;
   const name = columns.reward.kind === 'column' ? columns.reward.column : sense;
-  inputs.push({ name, role: sense, unit: columns.reward.unit ?? '', values: rewards.map((r) => sign * r) });
+  inputs.push({ name, role: sense, unit: columns.reward.unit ?? '', values: signed(rewards, sign) });
   const first = seconds?.find((t) => Number.isFinite(t)) ?? NaN;
   const time = seconds ?? Float64Array.from({ length: rowCount }, (_, r) => lineOf(r));
   const buckets = runRestarts > 0 ? TREND_BUCKETS * Math.min(runRestarts + 1, RUN_TIME_GROUP_FACTOR) : TREND_BUCKETS;
   return signalEnvelope(inputs, time, seconds ? 'seconds' : 'line', seconds !== undefined && isCalendarClock(first), buckets);
+}
+
+/** sign · values, in a loop (TypedArray.map boxes each value its callback returns: a million short-lived numbers). */
+function signed(values: Float64Array, sign: number): Float64Array {
+  const out = new Float64Array(values.length);
+  for (let r = 0; r < values.length; r++) out[r] = sign * values[r];
+  return out;
 }
