@@ -13,8 +13,8 @@ import { QUOTE } from './csvScanner';
 
 const LF = 0x0a, CR = 0x0d, PLUS = 43, MINUS = 45, ZERO = 48, NINE = 57, LOWER_E = 101, UPPER_E = 69;
 const POWERS = Array.from({ length: 23 }, (_, k) => 10 ** k);
-/** Digits a plain number may have on the fast path: then its mantissa is below 10^15 (Clinger 1990). */
-const MAX_PLAIN_DIGITS = 15;
+/** Significant digits (from the first non-zero one) a plain number may have on the fast path: then its mantissa is below 10^15 (Clinger 1990). */
+const MAX_SIGNIFICANT_DIGITS = 15;
 
 /** What the fast path does with each field: NUMBER_BASE + k parses into number column k; BOUNDS records start/end; SKIP ignores. */
 export const SKIP = -1;
@@ -74,9 +74,9 @@ export function plainRecord(t: PlainRecordTarget, from: number, r: number): numb
 
 /**
  * Parse a plain number at i into numbers[k][r]; the offset after it, or −1 when it is not plain.
- * The integer and fraction digits are read in two tight loops; at most 15 digits in all (leading
- * zeros included) keep the mantissa below 10^15, so the fast path is exact. A cell with more digits
- * goes to the general reader, which gives the same double (numericBytes.ts).
+ * The integer and fraction digits are read in tight loops; at most 15 significant digits (leading
+ * zeros skipped) keep the mantissa below 10^15, so the fast path is exact. A cell with more goes
+ * to the general reader, which gives the same double (numericBytes.ts).
  */
 function plainNumber(t: PlainRecordTarget, from: number, k: number, r: number): number {
   const { bytes: b, end } = t;
@@ -86,23 +86,28 @@ function plainNumber(t: PlainRecordTarget, from: number, k: number, r: number): 
     c = ++i < end ? b[i] : -1;
   }
   const digitsFrom = i;
+  while (c === ZERO) c = ++i < end ? b[i] : -1; // leading zeros: no value, and not significant
+  const significantFrom = i;
   let mantissa = 0;
   while (c >= ZERO && c <= NINE) {
     mantissa = mantissa * 10 + (c - ZERO);
     c = ++i < end ? b[i] : -1;
   }
-  let digits = i - digitsFrom, scale = 0;
+  let digits = i - digitsFrom, significant = i - significantFrom, scale = 0;
   if (c === t.markByte) {
     const fractionFrom = ++i;
     c = i < end ? b[i] : -1;
+    if (mantissa === 0) while (c === ZERO) c = ++i < end ? b[i] : -1; // a value below 1: its leading zeros only scale it
+    const fractionSignificantFrom = i;
     while (c >= ZERO && c <= NINE) {
       mantissa = mantissa * 10 + (c - ZERO);
       c = ++i < end ? b[i] : -1;
     }
     scale = fractionFrom - i;
     digits += i - fractionFrom;
+    significant += i - fractionSignificantFrom;
   }
-  if (digits === 0 || digits > MAX_PLAIN_DIGITS) return -1;
+  if (digits === 0 || significant > MAX_SIGNIFICANT_DIGITS) return -1;
   if (c === LOWER_E || c === UPPER_E) {
     i = plainExponent(t, i + 1);
     if (i < 0) return -1;
