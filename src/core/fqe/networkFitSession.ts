@@ -19,6 +19,7 @@ import { linearPartSums, type LastLayerSums, type LinearPartTensors } from './ne
 import { createLinearPart, type LinearPart } from './networkLinearPart';
 import type { NetworkMethod } from './networkMethod';
 import { createMinibatchStream, type MinibatchStream } from './networkMinibatches';
+import { runStartEmphasis } from './networkRunEmphasis';
 import { createNextInputs, type NextInputs } from './networkNextInputs';
 import { largestReward, outputScaleOf, type OutputScale } from './networkOutputScale';
 import { initialParameters, networkLayout, type NetworkLayout } from './networkParameters';
@@ -98,7 +99,7 @@ export function createFitSession(input: SessionInput): FitSession {
     const theta = own(owned, trainableParameters(initialParameters(layout, settings.activation, rng)));
     const probe = own(owned, probeRows(rows.training, linear.training.part, rng));
     const optimizer = own(owned, tf.train.adam(settings.learningRate));
-    const batches = own(owned, createMinibatchStream(rows.training.inputs, settings.batchSize, rng));
+    const batches = own(owned, createMinibatchStream(rows.training.inputs, settings.batchSize, rng, runStartEmphasis(data, rows.training.transitions, discount, input.method.runStartEmphasis)));
     const average = own(owned, createParameterAverage(settings.averageLast));
     const all = Int32Array.of(0, rows.training.transitions.length);
     return {
@@ -159,3 +160,4 @@ function own<T extends { dispose(): void }>(owned: { dispose(): void }[], resour
   owned.push(resource);
   return resource;
 }
+

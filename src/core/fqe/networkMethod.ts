@@ -37,6 +37,12 @@ export interface NetworkMethod {
    * or after `latest` outer iterations at the latest.
    */
   readonly learningRateDecay: { readonly plateau: number; readonly latest: number; readonly factor: number; readonly floor: number };
+  /**
+   * Share ρ of the Adam minibatch rows drawn from the logged runs' own discounted occupancy from
+   * their first rows instead of uniformly (networkRunEmphasis.ts). 0: measured on the battery, it
+   * traded the pendulum's wide starts against the greenhouse's and the pendulum's steady ones.
+   */
+  readonly runStartEmphasis: number;
 }
 
 export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
@@ -44,6 +50,7 @@ export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
   hiddenRidge: 1e-2,
   hiddenNodes: 5,
   members: 1,
+  runStartEmphasis: 0,
   intervalResamples: 200,
   learningRateDecay: Object.freeze({ plateau: 4, latest: 20, factor: 0.8, floor: 0.1 }),
 });

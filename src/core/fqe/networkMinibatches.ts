@@ -5,6 +5,8 @@
  * (Knuth, TAOCP Vol. 2, §3.4.2, Algorithm P). The permuted copy is gathered once per epoch, so a
  * step only slices B consecutive rows. A final partial batch is dropped. The epoch runs on across
  * outer iterations; when the targets change, the new targets are gathered in the current order.
+ * With cumulative weights (networkRunEmphasis.ts) an epoch is instead `rows` draws with replacement,
+ * each row with probability equal to its weight (inverse-CDF sampling by bisection).
  */
 import * as tf from '@tensorflow/tfjs';
 import type { RandomSource } from '../random';
@@ -23,8 +25,8 @@ export interface MinibatchStream {
   dispose(): void;
 }
 
-/** inputs: rows×p training inputs (not taken over). */
-export function createMinibatchStream(inputs: tf.Tensor2D, batchSize: number, rng: RandomSource): MinibatchStream {
+/** inputs: rows×p training inputs (not taken over); cumulative: rows weights' running sum ending at 1, or null for uniform epochs. */
+export function createMinibatchStream(inputs: tf.Tensor2D, batchSize: number, rng: RandomSource, cumulative: Float64Array | null = null): MinibatchStream {
   const rows = inputs.shape[0], b = Math.min(batchSize, rows);
   const order = Int32Array.from({ length: rows }, (_, i) => i);
   let orderT: tf.Tensor1D | null = null, shuffledInputs: tf.Tensor2D | null = null, shuffledTargets: tf.Tensor2D | null = null;
@@ -34,7 +36,8 @@ export function createMinibatchStream(inputs: tf.Tensor2D, batchSize: number, rn
     shuffledTargets = source && orderT ? tf.keep(tf.tidy(() => tf.reshape(tf.gather(source!, orderT!), [rows, 1]) as tf.Tensor2D)) : null;
   };
   const reshuffle = (): void => {
-    for (let i = rows - 1; i > 0; i--) {
+    if (cumulative) drawWeighted(order, cumulative, rng);
+    else for (let i = rows - 1; i > 0; i--) {
       const j = rng.integer(i + 1);
       const swap = order[i];
       order[i] = order[j];
@@ -67,4 +70,18 @@ export function createMinibatchStream(inputs: tf.Tensor2D, batchSize: number, rn
       source = null;
     },
   };
+}
+
+/** order[k] = a row drawn with probability ∝ its weight (cumulative: rows, increasing, last = 1): inverse CDF by bisection. */
+function drawWeighted(order: Int32Array, cumulative: Float64Array, rng: RandomSource): void {
+  for (let k = 0; k < order.length; k++) {
+    const u = rng.uniform();
+    let lo = 0, hi = cumulative.length - 1;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (cumulative[mid] < u) lo = mid + 1;
+      else hi = mid;
+    }
+    order[k] = lo;
+  }
 }

@@ -1,0 +1,43 @@
+/**
+ * Minibatch weights that lean toward the first rows of the logged runs (a method option,
+ * networkMethod.ts `runStartEmphasis`; off by default). A share ρ of the rows is drawn from the logged
+ * runs' own discounted occupancy from their first rows, row t of a run weighted γ^t, and the rest
+ * uniformly:
+ *   w_r = (1 − ρ)/n + ρ·γ^{t_r} / Σ_q γ^{t_q},   t_r = rows since its run's first logged row.
+ * Only the Adam steps (the hidden features) see these weights; the last layer is still the LSTD-Q
+ * fixed point under the logged rows, so the estimator's target is unchanged — only which region the
+ * features learn first. Measured on the battery (seeds 1–2, runs logged both ways, ρ = 0.5): the
+ * pendulum's wide starts went from +3.8 to +1.6 % mean error, but the greenhouse's steady starts from
+ * −0.4 to +2.1 % and the pendulum's steady starts from −1.7 to −2.6 %, so it stays off.
+ */
+import type { TransitionSet } from '../transitions';
+
+/**
+ * The cumulative weights (rows, increasing, last = 1) of the training rows `transitions` (indices
+ * into data, n of them) for ρ in (0, 1]; null for ρ = 0 (uniform epochs without replacement).
+ */
+export function runStartEmphasis(data: TransitionSet, transitions: Int32Array, discount: number, rho: number): Float64Array | null {
+  if (!(rho > 0)) return null;
+  const n = transitions.length, occupancy = new Float64Array(n), first = firstRowOfRuns(data);
+  let total = 0;
+  for (let r = 0; r < n; r++) {
+    const i = transitions[r];
+    occupancy[r] = discount ** (i - first[data.episode[i]]);
+    total += occupancy[r];
+  }
+  const cumulative = new Float64Array(n);
+  let running = 0;
+  for (let r = 0; r < n; r++) {
+    running += (1 - rho) / n + (rho * occupancy[r]) / total;
+    cumulative[r] = running;
+  }
+  cumulative[n - 1] = 1; // rounding
+  return cumulative;
+}
+
+/** The first row (file order) of each run: e entries. */
+function firstRowOfRuns(data: TransitionSet): Int32Array {
+  const first = new Int32Array(data.episodeCount).fill(-1);
+  for (let i = 0; i < data.count; i++) if (first[data.episode[i]] < 0) first[data.episode[i]] = i;
+  return first;
+}
