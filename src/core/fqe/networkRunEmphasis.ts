@@ -6,9 +6,9 @@
  *   w_r = (1 − ρ)/n + ρ·γ^{t_r} / Σ_q γ^{t_q},   t_r = rows since its run's first logged row.
  * Only the Adam steps (the hidden features) see these weights; the last layer is still the LSTD-Q
  * fixed point under the logged rows, so the estimator's target is unchanged — only which region the
- * features learn first. Measured on the battery (seeds 1–2, runs logged both ways, ρ = 0.5): the
- * pendulum's wide starts went from +3.8 to +1.6 % mean error, but the greenhouse's steady starts from
- * −0.4 to +2.1 % and the pendulum's steady starts from −1.7 to −2.6 %, so it stays off.
+ * features learn first. Measured on the battery (seeds 1–2, J over the start set the runs were logged
+ * from, ρ = 0.5 against 0): the pendulum's wide starts went from +4.4 to +1.6 % mean error, but the
+ * greenhouse's steady starts from +0.2 to +2.1 % and the pendulum's from −1.8 to −2.6 %, so it stays off.
  */
 import type { TransitionSet } from '../transitions';
 
