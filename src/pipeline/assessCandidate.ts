@@ -54,6 +54,8 @@ export interface AssessmentContext {
   readonly presentControllerModel: CandidateModel | null;
   readonly presentControllerReason: string;
   readonly cancel?: CancellationCheck;
+  /** Awaited between slices of the assessment's own data passes (default: a yield to the event loop about every PACE_INTERVAL_MS, cancellation.ts). */
+  readonly pace?: () => Promise<void>;
   readonly wasmPath?: string;
 }
 
