@@ -42,19 +42,26 @@ export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, h
   return runSteps(linearModelSteps(plan, planned, hooks, settings));
 }
 
-/** buildLinearModel awaiting hooks.pace (default: a yield to the event loop about every PACE_INTERVAL_MS) between slices, so a host's cancel is heard during a data pass. */
+/**
+ * buildLinearModel awaiting hooks.pace (default: a yield to the event loop about every PACE_INTERVAL_MS) between slices, so a host's cancel is heard during a data pass.
+ * `others`: models of other policies already built on this plan; one with the same feature map lends its policy-free sums (G, b, rr) to this one's pass.
+ */
 export function buildLinearModelPaced(
   plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}, settings: LinearFitSpec = planLinearFit(plan), enclosing: readonly CandidateModel[] = [],
+  others: readonly CandidateModel[] = [],
 ): Promise<CandidateModel> {
-  return runStepsPaced(linearModelSteps(plan, planned, hooks, settings, enclosing), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
+  return runStepsPaced(linearModelSteps(plan, planned, hooks, settings, enclosing, others), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
 }
 
 /** `enclosing`: models of the same policy already built; one whose features lead with these (nestedStatistics) serves this one's pass. */
-function* linearModelSteps(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, settings: LinearFitSpec, enclosing: readonly CandidateModel[] = []): PassSteps<CandidateModel> {
+function* linearModelSteps(
+  plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, settings: LinearFitSpec, enclosing: readonly CandidateModel[] = [], others: readonly CandidateModel[] = [],
+): PassSteps<CandidateModel> {
   const { features } = settings, { data } = plan;
   const quadrature = createActionQuadrature(planned.policy, plan.quadratureNodes);
   const nested = enclosing.reduce<ReturnType<typeof nestedStatistics>>((found, outer) => found ?? nestedStatistics(plan, features, quadrature, outer), null);
-  const { statistics, sums } = nested ?? (yield* dataPass(plan, features, quadrature, hooks));
+  const lender = others.find((m) => m.linear?.features === features)?.linear ?? undefined;
+  const { statistics, sums } = nested ?? (yield* dataPass(plan, features, quadrature, hooks, lender));
   const startFeatures = startStateFeatures(features, quadrature, plan.starts.states, data.stateDim);
   const solved = solveLinearFqe({
     statistics, features, stateDim: data.stateDim, actionDim: data.actionDim, discount: plan.discount, ridge: settings.ridge,
@@ -78,13 +85,21 @@ function* linearModelSteps(plan: EvaluationPlan, planned: PlannedPolicy, hooks: 
   return { ...planned, quadrature, fit, dispose: () => undefined, linear: { ...settings, resampling, statistics, startFeatures, weights, atFixedPoint } };
 }
 
-/** The one pass: per episode when the sums are affordable (their total is the full data's), else the total only. */
-function* dataPass(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks): PassSteps<{ statistics: BellmanStatistics; sums: EpisodeBellmanSums | null }> {
+/**
+ * The one pass: per episode when the sums are affordable (their total is the full data's), else the
+ * total only. lender: another policy's model with this feature map, whose policy-free sums this pass
+ * takes instead of forming them (../../core/fqe/nextFeatureSums.ts; the same numbers to the last bit).
+ */
+function* dataPass(
+  plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks, lender?: NonNullable<CandidateModel['linear']>,
+): PassSteps<{ statistics: BellmanStatistics; sums: EpisodeBellmanSums | null }> {
   const { data } = plan, passHooks = { cancel: hooks.cancel, onDataPass: hooks.onDataPass };
   if (plan.episodes.episodes * bellmanSumsStride(features.dim) > MAX_EXACT_RESAMPLE_VALUES) {
-    return { statistics: yield* bellmanStatisticsSteps(data, features, quadrature, passHooks), sums: null };
+    const shared = lender && lender.resampling.kind !== 'exact' ? lender.statistics : undefined;
+    return { statistics: yield* bellmanStatisticsSteps(data, features, quadrature, passHooks, shared), sums: null };
   }
-  const sums = yield* episodeBellmanSumsSteps(data, features, quadrature, passHooks, plan.episodes);
+  const shared = lender?.resampling.kind === 'exact' ? lender.resampling.sums : undefined;
+  const sums = yield* episodeBellmanSumsSteps(data, features, quadrature, passHooks, plan.episodes, shared);
   const statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
   checkStatisticsFinite(statistics, data, features, quadrature);
   return { statistics, sums };
