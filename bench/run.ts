@@ -7,6 +7,7 @@
  *   npm run bench -- retune       only the retune map
  *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script
  *   npm run bench -- growth       slopes of evaluate time in transitions and in quadrature nodes
+ *   npm run bench -- radial       the whole evaluate with radial-basis features, d = 343, 100,000 transitions
  *   npm run bench -- battery [options]   the battery sweep of the network and linear estimators
  *                                 (bench/batteryBench.ts; long: run it under `nice`)
  */
@@ -36,6 +37,10 @@ const jobs: Job[] = [
     name: `whole evaluate beside the numerical-Python peer, ${n.toLocaleString('en-US')} transitions`, group: 'peer',
     run: async () => (await import('./peerBench')).runPeerBench(n),
   })),
+  {
+    name: 'whole evaluate with radial-basis features, 7 centres per input (d = 343), 100,000 transitions, two runs', group: 'radial',
+    run: async () => (await import('./radialBench')).runRadialBench(),
+  },
   {
     name: 'growth of the whole evaluate in transitions and in quadrature nodes (log–log slopes)', group: 'growth',
     run: async () => (await import('./growthBench')).runGrowthBench(),

@@ -64,6 +64,14 @@ export const MAX_ITERATIONS = { default: 5000, min: 1, max: 1_000_000 } as const
  */
 export const MAX_EXACT_RESAMPLE_VALUES = 2 ** 20;
 
+/**
+ * Above MAX_EXACT_RESAMPLE_VALUES, the per-episode sums are still formed in the fit's one pass when
+ * there are at most this many (64 MiB of doubles, held only until the fit is solved): the first-order
+ * resamples' influence values then follow from them by algebra, with no second pass over the data
+ * (src/core/bootstrap/linearisedReplicate.ts, linearisedReplicatesFromSums; ours).
+ */
+export const MAX_INFLUENCE_SUM_VALUES = 2 ** 23;
+
 /** Value-surface grid points per axis. */
 export const SURFACE_RESOLUTION = { default: 60, min: 2, max: 400 } as const;
 

@@ -14,6 +14,7 @@ import { ImportanceRatioError } from '../core/offPolicy/importanceRatio';
 import { importanceWeightTable, type ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import { perDecisionData, type PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
 import { stateValues } from '../core/value';
+import { linearStateValues } from '../core/features/linearStateValues';
 import type { CandidateModel } from './model/candidateModel';
 import { finalStateValues } from './model/completedReturn';
 import type { EvaluationPlan } from './plan/evaluationPlan';
@@ -54,6 +55,8 @@ export interface AssessmentContext {
   readonly presentControllerModel: CandidateModel | null;
   readonly presentControllerReason: string;
   readonly cancel?: CancellationCheck;
+  /** Awaited between slices of the assessment's own data passes (default: a yield to the event loop about every PACE_INTERVAL_MS, cancellation.ts). */
+  readonly pace?: () => Promise<void>;
   readonly wasmPath?: string;
 }
 
@@ -127,6 +130,9 @@ function offPolicyInputs(context: AssessmentContext, model: CandidateModel): Off
   const actionValues = new Float64Array(n);
   model.fit.q.evaluate(inputs, n, actionValues);
   const ends = finalStateValues(plan, model);
-  const values = { actionValues, stateValues: stateValues(model.fit.q, model.policy, states, n, model.quadrature) };
+  // A linear Q's V̂ from the policy-averaged features (the feature map's node average; the same numbers up to rounding).
+  const linear = model.linear, valuesAtStates = linear ? linearStateValues(linear.features, linear.weights, model.quadrature, states, n, ds)
+    : stateValues(model.fit.q, model.policy, states, n, model.quadrature);
+  const values = { actionValues, stateValues: valuesAtStates };
   return { table, perDecision: perDecisionData(table, values, { finalStateValues: ends.values, tailWeights: ends.tailWeights }) };
 }

@@ -46,22 +46,48 @@ export interface RolloutCheck {
 
 export type RolloutOutcome = RolloutCheck | { readonly reason: string };
 
+/** The one-step model: its regressions, the full data's fit, and the fit on rollout resample b (seeded by `seed`), each formed once for every candidate. */
+export interface RolloutModel {
+  readonly regressions: PolynomialModelRegressions;
+  readonly fit: PolynomialModelFit;
+  /** The model refitted on rollout resample b with multiplicities c (drawn from seed and b); a ModelFitError is thrown again to every caller. */
+  resampleFit(seed: number, b: number, c: Uint32Array): PolynomialModelFit;
+}
+
 /** The one-step model's regressions, fitted once for every candidate; or why there is none. */
-export function rolloutModel(context: AssessmentContext): { regressions: PolynomialModelRegressions; fit: PolynomialModelFit } | { reason: string } {
+export function rolloutModel(context: AssessmentContext): RolloutModel | { reason: string } {
   const { data, episodes } = context.plan, p = data.stateDim + data.actionDim;
   const degree = monomialCount(p, 3) <= CUBIC_MONOMIALS ? 3 : 2;
   try {
     const regressions = polynomialModelRegressions(data, episodes, { degree, rewardDegree: 2 });
-    return { regressions, fit: fitPolynomialModel(regressions) };
+    return { regressions, fit: fitPolynomialModel(regressions), resampleFit: resampleFits(regressions) };
   } catch (error) {
     if (error instanceof ModelFitError) return { reason: `no one-step model of the plant could be fitted (${error.message})` };
     throw error;
   }
 }
 
-export function rolloutCheck(
-  context: AssessmentContext, work: CandidateWork, model: { regressions: PolynomialModelRegressions; fit: PolynomialModelFit }, settings: AssessmentSettings,
-): RolloutOutcome {
+/** The model's refits on the rollout resamples, kept by (seed, b): the regressions do not depend on the policy, so every candidate and the present controller share them. */
+function resampleFits(regressions: PolynomialModelRegressions): RolloutModel['resampleFit'] {
+  const kept = new Map<string, PolynomialModelFit | ModelFitError>();
+  return (seed, b, c) => {
+    const key = `${seed}:${b}`;
+    let fit = kept.get(key);
+    if (!fit) {
+      try {
+        fit = fitPolynomialModel(regressions, c);
+      } catch (error) {
+        if (!(error instanceof ModelFitError)) throw error;
+        fit = error;
+      }
+      kept.set(key, fit);
+    }
+    if (fit instanceof ModelFitError) throw fit;
+    return fit;
+  };
+}
+
+export function rolloutCheck(context: AssessmentContext, work: CandidateWork, model: RolloutModel, settings: AssessmentSettings): RolloutOutcome {
   const { plan } = context, ds = plan.data.stateDim, starts = startSubset(plan.starts.states, plan.starts.count, ds);
   const { q } = work.model.fit;
   const values = stateValues(q, work.model.policy, starts.states, starts.count, work.model.quadrature);
@@ -74,7 +100,7 @@ export function rolloutCheck(
       throwIfCancelled(context.cancel);
       episodeMultiplicities(e, settings.seed, b, c);
       const j = work.replicate?.value(c) ?? fqe;
-      const m = modelRolloutValue(fitPolynomialModel(model.regressions, c), work.model.policy, plan.discount, starts.states, rollout);
+      const m = modelRolloutValue(model.resampleFit(settings.seed, b, c), work.model.policy, plan.discount, starts.states, rollout);
       if (j !== null) differenceReplicates.push(m.value - fqeOnStarts - (j - fqe));
     }
     return { value: full.value, difference: full.value - fqeOnStarts, differenceReplicates, shareOutsideLogs: full.shareOutsideLogs, monteCarloError: full.monteCarloError,

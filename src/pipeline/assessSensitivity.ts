@@ -17,8 +17,8 @@
 import { meanStartFeatures, startStateFeatures } from '../core/features/policyFeatures';
 import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
 import { solveReplicate } from '../core/bootstrap/linearFqeReplicate';
-import { accumulateBellmanStatistics } from '../core/fqe/bellmanStatistics';
-import { throwIfCancelled } from '../core/fqe/cancellation';
+import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
+import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturn } from '../core/loggedReturn';
 import type { ApproximatorSettings } from '../project/schema';
 import type { Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
@@ -46,7 +46,7 @@ export async function sensitivity(context: AssessmentContext, works: CandidateWo
     return { curves: [await widthCurve(context, works, a, sign)], notes: ['With the network approximator every setting is a new network fit, so the discount is not swept.'] };
   }
   const curves = [discountCurve(context, works, sign)];
-  const features = featureCurve(context, works, a, sign);
+  const features = await featureCurve(context, works, a, sign);
   if (features) curves.push(features);
   return { curves, notes: ['Network sizes are swept when the project uses the network approximator; this project’s sweep covers the linear features.'] };
 }
@@ -68,17 +68,19 @@ function discountCurve(context: AssessmentContext, works: CandidateWork[], sign:
   return finish('discount', 'discount factor γ', settings, HORIZON_FACTORS.indexOf(1), series, sign);
 }
 
-function featureCurve(context: AssessmentContext, works: CandidateWork[], a: LinearSettings, sign: number): SensitivityCurve | null {
+async function featureCurve(context: AssessmentContext, works: CandidateWork[], a: LinearSettings, sign: number): Promise<SensitivityCurve | null> {
   const polynomial = a.features.kind === 'polynomial';
   const own = a.features.kind === 'polynomial' ? a.features.degree : a.features.centresPerInput;
   const range = polynomial ? POLYNOMIAL_DEGREE_RANGE : RADIAL_CENTRES_RANGE, lowest = range.min, highest = range.max;
   const variants = [own - 1, own, own + 1].filter((v) => v >= lowest && v <= highest)
     .map((v) => ({ value: v, settings: { ...a, features: polynomial ? { kind: 'polynomial' as const, degree: v } : { ...a.features, centresPerInput: v } } }))
     .filter((v) => v.value === own || sizeOf(context, v.settings) <= MAX_SWEEP_FEATURES);
-  const series: SensitivitySeries[] = works.map((w) => {
-    const fits = variants.map((v) => (v.value === own ? { value: w.model.fit.policyValue, status: 'project setting' } : refitLinear(context, w, v.settings)));
-    return { name: w.model.name, values: fits.map((f) => (f.value === null ? null : sign * f.value)), status: fits.map((f) => f.status) };
-  });
+  const series: SensitivitySeries[] = [];
+  for (const w of works) {
+    const fits = [];
+    for (const v of variants) fits.push(v.value === own ? { value: w.model.fit.policyValue, status: 'project setting' } : await refitLinear(context, w, v.settings));
+    series.push({ name: w.model.name, values: fits.map((f) => (f.value === null ? null : sign * f.value)), status: fits.map((f) => f.status) });
+  }
   series.push(flatBehaviour(context, variants.length, sign));
   const parameter = polynomial ? 'polynomialDegree' : 'centresPerInput';
   const label = polynomial ? 'polynomial degree of the features' : 'radial-basis centres per input';
@@ -114,15 +116,16 @@ function sizeOf(context: AssessmentContext, settings: LinearSettings): number {
 /**
  * The candidate solved with other features. Its statistics and start features are those of the same
  * class in the class comparison when that class was fitted (the same feature map, quadrature and
- * ridge, so the same sums, up to their order of summation), else one more data pass.
+ * ridge, so the same sums, up to their order of summation), else one more data pass — paced like the
+ * model's own (cancellation.ts), so a stop request is heard during it.
  */
-function refitLinear(context: AssessmentContext, w: CandidateWork, settings: LinearSettings): { value: number | null; status: string } {
+async function refitLinear(context: AssessmentContext, w: CandidateWork, settings: LinearSettings): Promise<{ value: number | null; status: string }> {
   const { plan, cancel } = context, { quadrature } = w.model;
   throwIfCancelled(cancel);
   try {
     const fitted = settings.features.kind === 'polynomial' ? w.classes.find((c) => c.label === polynomialClassLabel((settings.features as { degree: number }).degree))?.model.linear : undefined;
     const features = fitted?.features ?? featureMapFor(settings, plan.data), d = features.dim;
-    const stats = fitted?.statistics ?? accumulateBellmanStatistics(plan.data, features, quadrature, { cancel });
+    const stats = fitted?.statistics ?? await runStepsPaced(bellmanStatisticsSteps(plan.data, features, quadrature, { cancel }), context.pace ?? createPacer(PACE_INTERVAL_MS));
     const xiBar = meanStartFeatures(fitted?.startFeatures ?? startStateFeatures(features, quadrature, plan.starts.states, plan.data.stateDim), d);
     const fit = solveReplicate({ ...linearSolveSettings(plan, w.model), ridge: settings.ridge, constantIndex: features.constantIndex, initialWeights: new Float64Array(d) }, stats, xiBar);
     return { value: fit.policyValue, status: fit.status };

@@ -53,7 +53,7 @@ export async function startRun(project: ProjectDocument, dataset: TransitionSet,
         hooks.onProgress?.({ candidate: candidate.name, candidateIndex: i, candidateCount: total, iteration, dataPass });
       report(null);
       try {
-        models.push(await buildModel(plan, candidate, { ...hooks, onIteration: report, onDataPass: (done, total) => report(null, { done, total }) }));
+        models.push(await buildModel(plan, candidate, { ...hooks, onIteration: report, onDataPass: (done, total) => report(null, { done, total }) }, models));
       } catch (error) {
         if (!isEngineError(error)) throw error;
         problems.push({ where: `candidates[${candidate.index}] "${candidate.name}"`, field: ['candidates', candidate.index], message: error.message });
@@ -70,7 +70,7 @@ export async function startRun(project: ProjectDocument, dataset: TransitionSet,
   }
   let baseline: { model: CandidateModel | null; reason: string };
   try {
-    baseline = await presentControllerModel(plan, hooks, count);
+    baseline = await presentControllerModel(plan, hooks, count, models);
   } catch (error) {
     for (const m of models) m.dispose();
     if (error instanceof FqeCancelledError) return failure(CANCELLED_PROBLEM);
@@ -83,14 +83,14 @@ export async function startRun(project: ProjectDocument, dataset: TransitionSet,
 }
 
 /** The present controller's model, fitted after the candidates; an engine error leaves it out with the reason. */
-async function presentControllerModel(plan: EvaluationPlan, hooks: RunHooks, count: number): Promise<{ model: CandidateModel | null; reason: string }> {
+async function presentControllerModel(plan: EvaluationPlan, hooks: RunHooks, count: number, built: readonly CandidateModel[]): Promise<{ model: CandidateModel | null; reason: string }> {
   const planned = plan.presentController.planned;
   if (!planned) return { model: null, reason: plan.presentController.reason };
   const report = (iteration: FitIteration | null, dataPass: EvaluationProgress['dataPass'] = null) =>
     hooks.onProgress?.({ candidate: planned.name, candidateIndex: count, candidateCount: count + 1, iteration, dataPass });
   report(null);
   try {
-    return { model: await buildModel(plan, planned, { ...hooks, onIteration: report, onDataPass: (done, total) => report(null, { done, total }) }), reason: '' };
+    return { model: await buildModel(plan, planned, { ...hooks, onIteration: report, onDataPass: (done, total) => report(null, { done, total }) }, built), reason: '' };
   } catch (error) {
     if (!isEngineError(error)) throw error;
     return { model: null, reason: `the present controller's model could not be fitted (${error.message})` };

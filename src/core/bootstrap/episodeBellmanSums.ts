@@ -39,17 +39,36 @@ export function episodeBellmanSums(
   return runSteps(episodeBellmanSumsSteps(data, features, quadrature, hooks, index));
 }
 
-/** episodeBellmanSums as a pass that yields after every block (cancellation.ts). */
+/**
+ * episodeBellmanSums as a pass that yields after every block (cancellation.ts). policyFree: the
+ * per-episode sums of another policy's pass over the same episodes with the same feature map; each
+ * episode's ΦᵀΦ, Φᵀr and rᵀr are copied from it (they are this pass's to the last bit,
+ * ../fqe/nextFeatureSums.ts) and only the rest is formed.
+ */
 export function* episodeBellmanSumsSteps(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {}, index: EpisodeIndex = indexEpisodes(data),
+  policyFree?: EpisodeBellmanSums,
 ): PassSteps<EpisodeBellmanSums> {
   const e = index.episodes, d = features.dim, stride = bellmanSumsStride(d);
   if (e * stride > MAX_STORED_VALUES) {
     throw new BootstrapError(`the per-episode sums of ${e} episodes × ${d} features would need ${Math.round((e * stride * 8) / 2 ** 20)} MiB; use fewer features or join episodes`);
   }
+  if (policyFree && (policyFree.episodes !== e || policyFree.dim !== d)) throw new RangeError('episodeBellmanSumsSteps: the shared sums are of another size');
   const sums = new Float64Array(e * stride);
-  yield* segmentSumsSteps(data, features, quadrature, index, sums, hooks);
+  if (policyFree) copyPolicyFree(policyFree, sums);
+  yield* segmentSumsSteps(data, features, quadrature, index, sums, hooks, policyFree !== undefined);
   return { episodes: e, dim: d, stride, sums };
+}
+
+/** Each episode's ΦᵀΦ (the first d² numbers), Φᵀr (d numbers after the three matrices) and rᵀr (after Ψᵀr). */
+function copyPolicyFree(from: EpisodeBellmanSums, to: Float64Array): void {
+  const { episodes: e, dim: d, stride } = from, dd = d * d;
+  for (let k = 0; k < e; k++) {
+    const o = k * stride;
+    to.set(from.sums.subarray(o, o + dd), o);
+    to.set(from.sums.subarray(o + 3 * dd, o + 3 * dd + d), o + 3 * dd);
+    to[o + 3 * dd + 2 * d] = from.sums[o + 3 * dd + 2 * d];
+  }
 }
 
 /**

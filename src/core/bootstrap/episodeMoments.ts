@@ -24,29 +24,55 @@ export interface RegressionMoments {
   readonly count: number;
 }
 
+/** Rows gathered per chunk before their products are summed (feature-major, so each sum runs over contiguous memory). */
+const CHUNK_ROWS = 256;
+
 /**
  * row(i, x, y) fills x (p) and y (q) for transition i and returns false to leave it out
  * (e.g. a transition into a terminal state has no next state to regress on).
+ *
+ * Each episode's rows are gathered in chunks into feature-major columns and every entry is summed
+ * over a chunk in a register, starting from its running total: the same additions in the same
+ * order as adding each row's products straight into the totals, so the same numbers to the last
+ * bit, without a load and a store of the total per product.
  */
 export function episodeMoments(
   index: EpisodeIndex, p: number, q: number, row: (i: number, x: Float64Array, y: Float64Array) => boolean,
 ): EpisodeMoments {
   const stride = p * p + p * q + q * q + 1, sums = new Float64Array(index.episodes * stride);
-  const x = new Float64Array(p), y = new Float64Array(q);
+  const x = new Float64Array(p), y = new Float64Array(q), cx = new Float64Array(p * CHUNK_ROWS), cy = new Float64Array(q * CHUNK_ROWS);
   for (let k = 0; k < index.episodes; k++) {
     const o = k * stride;
+    let size = 0;
     for (let r = index.offsets[k]; r < index.offsets[k + 1]; r++) {
       if (!row(index.order[r], x, y)) continue;
-      for (let a = 0; a < p; a++) {
-        for (let b = a; b < p; b++) sums[o + a * p + b] += x[a] * x[b];
-        for (let b = 0; b < q; b++) sums[o + p * p + a * q + b] += x[a] * y[b];
-      }
-      for (let a = 0; a < q; a++) for (let b = a; b < q; b++) sums[o + p * p + p * q + a * q + b] += y[a] * y[b];
-      sums[o + stride - 1]++;
+      for (let a = 0; a < p; a++) cx[a * CHUNK_ROWS + size] = x[a];
+      for (let a = 0; a < q; a++) cy[a * CHUNK_ROWS + size] = y[a];
+      if (++size === CHUNK_ROWS) { addChunk(sums, o, cx, cy, p, q, size); size = 0; }
     }
+    if (size > 0) addChunk(sums, o, cx, cy, p, q, size);
     mirror(sums, o, p, q);
   }
   return { episodes: index.episodes, p, q, stride, sums };
+}
+
+/** The chunk's products added to episode totals at sums[o …]: XᵀX and YᵀY on and above the diagonal, XᵀY whole, and the count. */
+function addChunk(sums: Float64Array, o: number, cx: Float64Array, cy: Float64Array, p: number, q: number, size: number): void {
+  const yy = o + p * p + p * q;
+  for (let a = 0; a < p; a++) {
+    const xa = a * CHUNK_ROWS;
+    for (let b = a; b < p; b++) sums[o + a * p + b] = dotFrom(sums[o + a * p + b], cx, xa, cx, b * CHUNK_ROWS, size);
+    for (let b = 0; b < q; b++) sums[o + p * p + a * q + b] = dotFrom(sums[o + p * p + a * q + b], cx, xa, cy, b * CHUNK_ROWS, size);
+  }
+  for (let a = 0; a < q; a++) for (let b = a; b < q; b++) sums[yy + a * q + b] = dotFrom(sums[yy + a * q + b], cy, a * CHUNK_ROWS, cy, b * CHUNK_ROWS, size);
+  sums[o + p * p + p * q + q * q] += size;
+}
+
+/** start + Σ_t u[i+t]·v[j+t], added one product at a time in order. */
+function dotFrom(start: number, u: Float64Array, i: number, v: Float64Array, j: number, size: number): number {
+  let s = start;
+  for (let t = 0; t < size; t++) s += u[i + t] * v[j + t];
+  return s;
 }
 
 /**

@@ -22,6 +22,7 @@ import { createTransitionFeatureReader } from '../fqe/transitionFeatures';
 import { ridgeGram } from '../fqe/ridgeSystem';
 import { dot, luFactor, luSolve, transpose } from '../linalg/dense';
 import type { TransitionSet } from '../transitions';
+import type { EpisodeBellmanSums } from './episodeBellmanSums';
 import { BootstrapError } from './episodeMultiplicities';
 import type { EpisodeIndex } from './episodeTransitions';
 
@@ -62,9 +63,15 @@ export function linearisedReplicates(input: LinearisationInput): LinearisedRepli
 /** Transitions read between two yields of the influence pass (as a block of the Bellman pass). */
 const ROWS_PER_STEP = 1024;
 
-/** linearisedReplicates as a pass that yields after about every ROWS_PER_STEP transitions (cancellation.ts). */
-export function* linearisedReplicatesSteps(input: LinearisationInput): PassSteps<LinearisedReplicates> {
-  const { data, index, features, statistics, weights: w, discount } = input, d = features.dim;
+/** What both routes to the influence values share: v = A⁻ᵀξ̄, the ridge's share per transition and j_k. */
+interface InfluenceSetup {
+  readonly v: Float64Array; // d
+  readonly ridgeTerm: number;
+  readonly startValues: Float64Array;
+}
+
+function influenceSetup(input: LinearisationInput): InfluenceSetup {
+  const { features, statistics, weights: w, discount } = input, d = features.dim;
   const starts = input.startFeatures.length / d, xiBar = new Float64Array(d), startValues = new Float64Array(starts);
   for (let s = 0; s < starts; s++) {
     const xi = input.startFeatures.subarray(s * d, (s + 1) * d);
@@ -77,6 +84,13 @@ export function* linearisedReplicatesSteps(input: LinearisationInput): PassSteps
   // n_k λ vᵀDw: the ridge's share of u_k per transition (D = I but 0 at the constant feature).
   let ridgeTerm = 0;
   for (let f = 0; f < d; f++) if (f !== features.constantIndex) ridgeTerm += input.ridge * v[f] * w[f];
+  return { v, ridgeTerm, startValues };
+}
+
+/** linearisedReplicates as a pass that yields after about every ROWS_PER_STEP transitions (cancellation.ts). */
+export function* linearisedReplicatesSteps(input: LinearisationInput): PassSteps<LinearisedReplicates> {
+  const { data, index, features, weights: w, discount } = input;
+  const { v, ridgeTerm, startValues } = influenceSetup(input);
   const e = index.episodes, influence = new Float64Array(e), counts = new Float64Array(e);
   const reader = createTransitionFeatureReader(data, features, input.quadrature);
   let sinceStep = 0;
@@ -93,6 +107,34 @@ export function* linearisedReplicatesSteps(input: LinearisationInput): PassSteps
     }
     influence[k] = s;
     counts[k] = index.offsets[k + 1] - index.offsets[k];
+  }
+  return { influence, counts, startValues, startsFollowEpisodes: input.startsFollowEpisodes, startEpisode: input.startEpisode };
+}
+
+/**
+ * The same influence values from each episode's Bellman sums (episodeBellmanSums.ts), with no pass
+ * over the data: Σ_{i∈k} δ_i φ_iᵀv = vᵀ(Φᵀr)_k + γ vᵀ(ΦᵀΨ)_k w − vᵀ(ΦᵀΦ)_k w (distributive law), so
+ * each episode costs O(d²). Equal to the pass up to rounding in the order of summation; the test
+ * compares the two. ΦᵀΦ is read from its upper triangle (the packed sums keep only that).
+ */
+export function linearisedReplicatesFromSums(input: LinearisationInput, sums: EpisodeBellmanSums): LinearisedReplicates {
+  const { weights: w, discount } = input, { episodes: e, dim: d, stride } = sums, dd = d * d;
+  if (d !== input.features.dim || e !== input.index.episodes) throw new BootstrapError('linearised replicates: the per-episode sums are of another size');
+  const { v, ridgeTerm, startValues } = influenceSetup(input);
+  const influence = new Float64Array(e), counts = new Float64Array(e);
+  for (let k = 0; k < e; k++) {
+    const o = k * stride, n = sums.sums[o + stride - 1];
+    let s = 0;
+    for (let a = 0; a < d; a++) {
+      let gw = 0, mw = 0;
+      for (let b = 0; b < d; b++) {
+        gw += sums.sums[o + (a <= b ? a * d + b : b * d + a)] * w[b];
+        mw += sums.sums[o + dd + a * d + b] * w[b];
+      }
+      s += v[a] * (sums.sums[o + 3 * dd + a] + discount * mw - gw);
+    }
+    influence[k] = s - n * ridgeTerm;
+    counts[k] = n;
   }
   return { influence, counts, startValues, startsFollowEpisodes: input.startsFollowEpisodes, startEpisode: input.startEpisode };
 }

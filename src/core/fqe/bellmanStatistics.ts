@@ -16,6 +16,7 @@ import type { FeatureMap } from '../features/featureMap';
 import type { TransitionSet } from '../transitions';
 import { runSteps, throwIfCancelled, type CancellationCheck, type PassSteps } from './cancellation';
 import { FqeDataError } from './fqeErrors';
+import { addNextBlock, type Block } from './nextFeatureSums';
 import { createTransitionFeatureReader, type TransitionFeatureReader } from './transitionFeatures';
 
 export interface BellmanStatistics {
@@ -64,15 +65,22 @@ export function accumulateBellmanStatistics(
   return runSteps(bellmanStatisticsSteps(data, features, quadrature, hooks));
 }
 
-/** accumulateBellmanStatistics as a pass that yields after every block (cancellation.ts). */
+/**
+ * accumulateBellmanStatistics as a pass that yields after every block (cancellation.ts).
+ * policyFree: the statistics of a pass over the same data with the same feature map for another
+ * policy; its G, b and rr are this pass's to the last bit (nextFeatureSums.ts), so only M, H and e
+ * are formed.
+ */
 export function* bellmanStatisticsSteps(
-  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {},
+  data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, hooks: AccumulationHooks = {}, policyFree?: BellmanStatistics,
 ): PassSteps<BellmanStatistics> {
   const n = data.count, d = features.dim;
+  if (policyFree && (policyFree.dim !== d || policyFree.count !== n)) throw new RangeError('bellmanStatisticsSteps: the shared statistics are of another size');
   const whole = { order: Int32Array.from({ length: n }, (_, i) => i), offsets: Int32Array.of(0, n) };
   const sums = new Float64Array(bellmanSumsStride(d));
-  yield* segmentSumsSteps(data, features, quadrature, whole, sums, hooks);
-  const stats = statisticsFromSums(sums, d);
+  yield* segmentSumsSteps(data, features, quadrature, whole, sums, hooks, policyFree !== undefined);
+  const formed = statisticsFromSums(sums, d);
+  const stats = policyFree ? { ...formed, gram: policyFree.gram.slice(), featureReward: policyFree.featureReward.slice(), rewardSquare: policyFree.rewardSquare } : formed;
   checkStatisticsFinite(stats, data, features, quadrature);
   return stats;
 }
@@ -91,10 +99,13 @@ export function accumulateSegmentSums(
   runSteps(segmentSumsSteps(data, features, quadrature, segments, out, hooks));
 }
 
-/** accumulateSegmentSums as a pass that yields after every block. */
+/**
+ * accumulateSegmentSums as a pass that yields after every block. givenPolicyFree: out already holds
+ * each segment's ΦᵀΦ, Φᵀr and rᵀr from another policy's pass (nextFeatureSums.ts); only the rest is added.
+ */
 export function* segmentSumsSteps(
   data: TransitionSet, features: FeatureMap, quadrature: ActionQuadrature, segments: TransitionSegments,
-  out: Float64Array, hooks: AccumulationHooks = {},
+  out: Float64Array, hooks: AccumulationHooks = {}, givenPolicyFree = false,
 ): PassSteps<void> {
   const n = segments.order.length, d = features.dim, stride = bellmanSumsStride(d);
   const blockRows = blockRowsFor(d);
@@ -105,7 +116,8 @@ export function* segmentSumsSteps(
     for (let start = segments.offsets[k]; start < end; start += blockRows) {
       const size = Math.min(blockRows, end - start);
       for (let t = 0; t < size; t++) gatherTransition(reader, data, block, segments.order[start + t], t);
-      addBlock(block, size, out, base);
+      if (givenPolicyFree) addNextBlock(block, size, out, base);
+      else addBlock(block, size, out, base);
       done += size;
       // After every block (at most about 1.3·10⁵ feature values): hosts throttle what they show.
       throwIfCancelled(hooks.cancel);
@@ -114,14 +126,6 @@ export function* segmentSumsSteps(
     }
     out[base + stride - 1] += end - segments.offsets[k];
   }
-}
-
-interface Block {
-  readonly d: number;
-  readonly rows: number; // B
-  readonly phi: Float64Array; // d×B: phi[a·B + t] = φ_a of row t
-  readonly psi: Float64Array; // d×B
-  readonly reward: Float64Array; // B
 }
 
 function newBlock(d: number, rows: number): Block {

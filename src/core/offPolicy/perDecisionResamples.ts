@@ -4,44 +4,35 @@
  * weighted doubly robust (Thomas & Brunskill 2016, eq. 10; Jiang & Li, ICML 2016), with the same
  * time-limit tails — on a block of bootstrap resamples at once.
  *
- * Why: each estimate needs, per step t, the sums Σ_i c_i x_{i,t} of five quantities over the
- * episodes that reach t (the per-step normalisation makes it a ratio per step, so no per-episode
- * total can stand in for them): one pass over all n entries per resample, which is bound by memory
- * traffic (six arrays of n numbers). Here the entries are read once per block of RESAMPLE_BLOCK
- * resamples, and the products W·r, W·Q̂ and W_{t−1}·V̂ are formed once (prepareResampleEntries), so a
- * resample costs a quarter of the reading. The sums are the same sums: the result equals
- * perDecisionEstimates(data, γ, c) up to rounding in the order of multiplication (c·(W·r) against
- * (c·W)·r); the test compares the two.
+ * Why: each estimate needs, per step t, sums Σ_i c_i x_{i,t} over the episodes that reach t (the
+ * per-step normalisation makes it a ratio per step, so no per-episode total can stand in for
+ * them): for R resamples that is the product of an R×e matrix of multiplicities with e×H tables,
+ * R·n multiply-adds per table however it is arranged. What this file saves is the constant:
+ *   - four tables instead of six (rankedEntries.ts: the count is a prefix sum of the ranked
+ *     multiplicities, the weight before the decision a partial sum of the step before's weight);
+ *   - the entries ranked so a step's episodes are a prefix, read in order with the multiplicities
+ *     of four resamples side by side (no gather by episode index);
+ *   - a step's entries (a few hundred kilobytes) read from memory once for RESAMPLE_BLOCK
+ *     resamples, four at a time while they are still in cache.
+ * The sums are the same sums, added in rank order rather than episode order: the result equals
+ * perDecisionEstimates(data, γ, c) up to rounding; the test compares the two.
  *
- * Shapes: entries step-major as in PerDecisionData (n each); multiplicities one Uint32Array of e per resample.
+ * Shapes: multiplicities one Uint32Array of e per resample, at most RESAMPLE_BLOCK.
  */
-import { ImportanceSamplingError, type PerDecisionData, type PerDecisionEstimates } from './perDecisionEstimators';
+import { ImportanceSamplingError, type PerDecisionEstimates } from './perDecisionEstimators';
+import { rankEntries, type RankedEntries } from './rankedEntries';
 
-/** Resamples summed in one read of the entries (the inner loop is written out for this many). */
-export const RESAMPLE_BLOCK = 4;
+/** Resamples summed in one read of the entries from memory. */
+export const RESAMPLE_BLOCK = 8;
+/** Resamples summed side by side in registers (the inner loops are written out for this many). */
+const LANES = 4;
 
-/** The per-entry products, formed once for every resample. */
-export interface ResampleEntries {
-  readonly data: PerDecisionData;
-  readonly weightedReward: Float64Array; // n: W_{i,t} r_{i,t}
-  readonly weightedAction: Float64Array; // n: W_{i,t} Q̂(s_{i,t}, a_{i,t}) (0 without Q̂)
-  readonly weightedState: Float64Array; // n: W_{i,t−1} V̂(s_{i,t}) (0 without V̂)
-  readonly endWeightedValue: Float64Array; // W_{k,T−1} V̂(s_{k,T}) per time-limited episode
-}
+export type ResampleEntries = RankedEntries;
+export const prepareResampleEntries = rankEntries;
 
-export function prepareResampleEntries(data: PerDecisionData): ResampleEntries {
-  const n = data.scaled.length, q = data.actionValues, v = data.stateValues;
-  const weightedReward = new Float64Array(n), weightedAction = new Float64Array(n), weightedState = new Float64Array(n);
-  for (let j = 0; j < n; j++) {
-    weightedReward[j] = data.scaled[j] * data.rewards[j];
-    if (q && v) {
-      weightedAction[j] = data.scaled[j] * q[j];
-      weightedState[j] = data.scaledBefore[j] * v[j];
-    }
-  }
-  const endWeightedValue = Float64Array.from(data.endWeight, (w, j) => w * data.endValue[j]);
-  return { data, weightedReward, weightedAction, weightedState, endWeightedValue };
-}
+/** One step's sums per resample: LANES × FIELDS per group, resample-major within the group. */
+const FIELDS = 8;
+const REACHED = 0, WEIGHT = 1, BEFORE = 2, REWARD = 3, ACTION = 4, STATE = 5, ENDING = 6, ENDING_VALUE = 7;
 
 /** The running totals of one resample across the steps. */
 interface Running {
@@ -51,105 +42,125 @@ interface Running {
   failure: ImportanceSamplingError | null;
 }
 
-/** One step's sums for one resample (as in perDecisionEstimates). */
-interface StepSums {
-  reached: number;
-  weight: number;
-  weightBefore: number;
-  reward: number;
-  action: number;
-  state: number;
-  ending: number;
-  endingValue: number;
-}
-
 /**
  * WPDIS and WDR on each resample of the block (at most RESAMPLE_BLOCK); an ImportanceSamplingError
  * in place of the estimates where a resample has none, as perDecisionEstimates would throw.
  */
 export function perDecisionResamples(entries: ResampleEntries, discount: number, multiplicities: readonly Uint32Array[]): (PerDecisionEstimates | ImportanceSamplingError)[] {
-  const { data } = entries, e = data.episodes, count = multiplicities.length;
+  const { data } = entries, e = data.episodes, count = multiplicities.length, horizon = data.horizon;
   if (count < 1 || count > RESAMPLE_BLOCK) throw new RangeError(`perDecisionResamples: 1 to ${RESAMPLE_BLOCK} resamples per block, got ${count}`);
   for (const c of multiplicities) {
     if (c.length !== e) throw new ImportanceSamplingError(`multiplicities: expected one per episode (${e}), got ${c.length}`);
   }
-  // Episode-major multiplicities, RESAMPLE_BLOCK per episode (missing resamples repeat the first).
-  const c = new Float64Array(e * RESAMPLE_BLOCK);
-  for (let k = 0; k < e; k++) for (let b = 0; b < RESAMPLE_BLOCK; b++) c[k * RESAMPLE_BLOCK + b] = multiplicities[b < count ? b : 0][k];
-  const running: Running[] = Array.from({ length: RESAMPLE_BLOCK }, () => ({ is: 0, correction: 0, tail: 0, failure: null }));
-  const sums: StepSums[] = Array.from({ length: RESAMPLE_BLOCK }, () => emptySums());
+  const groups = Math.ceil(count / LANES), lanes = Array.from({ length: groups }, (_, g) => rankedLanes(entries, multiplicities, g));
+  const reached = lanes.map((c) => reachedCounts(entries, c));
+  const running: Running[] = Array.from({ length: count }, () => ({ is: 0, correction: 0, tail: 0, failure: null }));
+  const sums = new Float64Array(groups * LANES * FIELDS), before = new Float64Array(groups * LANES);
+  for (let g = 0; g < groups; g++) for (let l = 0; l < LANES; l++) before[g * LANES + l] = reached[g][l]; // W_{i,−1} = 1
   let discountPower = 1;
-  for (let t = 0; t <= data.horizon; t++, discountPower *= discount) {
-    stepSums(entries, c, t, sums);
-    for (let b = 0; b < count; b++) finishStep(running[b], sums[b], t, data.horizon, discountPower);
+  for (let t = 0; t <= horizon; t++, discountPower *= discount) {
+    for (let g = 0; g < groups; g++) {
+      const s = sums.subarray(g * LANES * FIELDS, (g + 1) * LANES * FIELDS);
+      for (let l = 0; l < LANES; l++) {
+        s[l * FIELDS + REACHED] = reached[g][t * LANES + l];
+        s[l * FIELDS + BEFORE] = before[g * LANES + l];
+      }
+      weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES));
+      valueSums(entries, lanes[g], t, s);
+      endingSums(entries, lanes[g], t, s);
+    }
+    for (let b = 0; b < count; b++) finishStep(running[b], sums.subarray(b * FIELDS, (b + 1) * FIELDS), t, horizon, discountPower);
   }
-  return running.slice(0, count).map((r) => r.failure ?? {
-    importanceSampling: r.is + r.tail, doublyRobust: data.actionValues && data.stateValues ? r.is + r.correction : null, importanceSamplingTail: r.tail,
+  return running.map((r) => r.failure ?? {
+    importanceSampling: r.is + r.tail, doublyRobust: entries.weightedAction ? r.is + r.correction : null, importanceSamplingTail: r.tail,
   });
 }
 
-function emptySums(): StepSums {
-  return { reached: 0, weight: 0, weightBefore: 0, reward: 0, action: 0, state: 0, ending: 0, endingValue: 0 };
+/** Group g's multiplicities in rank order, LANES per rank (lanes past the block's end are 0). */
+function rankedLanes(entries: ResampleEntries, multiplicities: readonly Uint32Array[], g: number): Float64Array {
+  const { rankOf } = entries, e = rankOf.length, c = new Float64Array(e * LANES);
+  for (let l = 0; l < LANES; l++) {
+    const m = multiplicities[g * LANES + l];
+    if (m) for (let k = 0; k < e; k++) c[rankOf[k] * LANES + l] = m[k];
+  }
+  return c;
+}
+
+/** Σ_{rank < m_t} c per lane and step (H+1)×LANES: the episodes that reach each step, counted with their multiplicities. */
+function reachedCounts(entries: ResampleEntries, c: Float64Array): Float64Array {
+  const { reaching } = entries, horizon = reaching.length - 1, out = new Float64Array((horizon + 1) * LANES);
+  let n0 = 0, n1 = 0, n2 = 0, n3 = 0;
+  for (let t = horizon, r = 0; t >= 0; t--) {
+    for (; r < reaching[t]; r++) {
+      n0 += c[r * 4]; n1 += c[r * 4 + 1]; n2 += c[r * 4 + 2]; n3 += c[r * 4 + 3];
+    }
+    out[t * 4] = n0; out[t * 4 + 1] = n1; out[t * 4 + 2] = n2; out[t * 4 + 3] = n3;
+  }
+  return out;
 }
 
 /**
- * Step t's sums for the block's resamples: the step's entries read twice, three quantities for four
- * resamples at a time (twelve running sums fit the registers; twenty-four spill), each sum added in
- * entry order as before.
+ * Σ c W and Σ c W r at step t for one group's four resamples; the weight sum over the ranks that
+ * also reach t + 1 is kept in `before` as the next step's Σ c W_{t}·[reaches t + 1].
  */
-function stepSums(entries: ResampleEntries, c: Float64Array, t: number, out: StepSums[]): void {
-  const { data, weightedReward: wr, weightedAction: wq, weightedState: wv } = entries, { episode, scaled, scaledBefore } = data;
-  const start = t < data.horizon ? data.stepOffsets[t] : 0, end = t < data.horizon ? data.stepOffsets[t + 1] : 0;
-  let n0 = 0, w0 = 0, p0 = 0, n1 = 0, w1 = 0, p1 = 0, n2 = 0, w2 = 0, p2 = 0, n3 = 0, w3 = 0, p3 = 0;
-  for (let j = start; j < end; j++) {
-    const o = episode[j] * 4, w = scaled[j], p = scaledBefore[j];
-    const c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
-    n0 += c0; w0 += c0 * w; p0 += c0 * p;
-    n1 += c1; w1 += c1 * w; p1 += c1 * p;
-    n2 += c2; w2 += c2 * w; p2 += c2 * p;
-    n3 += c3; w3 += c3 * w; p3 += c3 * p;
+function weightSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, before: Float64Array): void {
+  const { weight: w, weightedReward: wr, offsets, reaching } = entries;
+  const base = offsets[t], split = base + (reaching[t + 1] ?? 0), end = base + reaching[t];
+  let w0 = 0, w1 = 0, w2 = 0, w3 = 0, r0 = 0, r1 = 0, r2 = 0, r3 = 0;
+  for (let j = base, o = 0; j < split; j++, o += 4) {
+    const x = w[j], y = wr[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
+    w0 += c0 * x; w1 += c1 * x; w2 += c2 * x; w3 += c3 * x;
+    r0 += c0 * y; r1 += c1 * y; r2 += c2 * y; r3 += c3 * y;
   }
-  let r0 = 0, a0 = 0, s0 = 0, r1 = 0, a1 = 0, s1 = 0, r2 = 0, a2 = 0, s2 = 0, r3 = 0, a3 = 0, s3 = 0;
-  for (let j = start; j < end; j++) {
-    const o = episode[j] * 4, r = wr[j], a = wq[j], s = wv[j];
-    const c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
-    r0 += c0 * r; a0 += c0 * a; s0 += c0 * s;
-    r1 += c1 * r; a1 += c1 * a; s1 += c1 * s;
-    r2 += c2 * r; a2 += c2 * a; s2 += c2 * s;
-    r3 += c3 * r; a3 += c3 * a; s3 += c3 * s;
+  before[0] = w0; before[1] = w1; before[2] = w2; before[3] = w3;
+  for (let j = split, o = (split - base) * 4; j < end; j++, o += 4) {
+    const x = w[j], y = wr[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
+    w0 += c0 * x; w1 += c1 * x; w2 += c2 * x; w3 += c3 * x;
+    r0 += c0 * y; r1 += c1 * y; r2 += c2 * y; r3 += c3 * y;
   }
-  setSums(out[0], n0, w0, p0, r0, a0, s0);
-  setSums(out[1], n1, w1, p1, r1, a1, s1);
-  setSums(out[2], n2, w2, p2, r2, a2, s2);
-  setSums(out[3], n3, w3, p3, r3, a3, s3);
-  for (const s of out) s.ending = s.endingValue = 0;
-  for (let j = data.endOffsets[t]; j < data.endOffsets[t + 1]; j++) {
-    const o = data.endEpisode[j] * 4;
-    for (let b = 0; b < RESAMPLE_BLOCK; b++) {
-      out[b].ending += c[o + b] * data.endWeight[j];
-      out[b].endingValue += c[o + b] * entries.endWeightedValue[j];
+  s[WEIGHT] = w0; s[FIELDS + WEIGHT] = w1; s[2 * FIELDS + WEIGHT] = w2; s[3 * FIELDS + WEIGHT] = w3;
+  s[REWARD] = r0; s[FIELDS + REWARD] = r1; s[2 * FIELDS + REWARD] = r2; s[3 * FIELDS + REWARD] = r3;
+}
+
+/** Σ c W Q̂ and Σ c W_{t−1} V̂ at step t (0 without Q̂ and V̂). */
+function valueSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array): void {
+  const { weightedAction: wq, weightedState: wv, offsets, reaching } = entries;
+  let a0 = 0, a1 = 0, a2 = 0, a3 = 0, v0 = 0, v1 = 0, v2 = 0, v3 = 0;
+  if (wq && wv) {
+    const base = offsets[t], end = base + reaching[t];
+    for (let j = base, o = 0; j < end; j++, o += 4) {
+      const x = wq[j], y = wv[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
+      a0 += c0 * x; a1 += c1 * x; a2 += c2 * x; a3 += c3 * x;
+      v0 += c0 * y; v1 += c1 * y; v2 += c2 * y; v3 += c3 * y;
+    }
+  }
+  s[ACTION] = a0; s[FIELDS + ACTION] = a1; s[2 * FIELDS + ACTION] = a2; s[3 * FIELDS + ACTION] = a3;
+  s[STATE] = v0; s[FIELDS + STATE] = v1; s[2 * FIELDS + STATE] = v2; s[3 * FIELDS + STATE] = v3;
+}
+
+/** The time-limited episodes that end at step t: Σ c W_{T−1} and Σ c W_{T−1} V̂(s_T). */
+function endingSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array): void {
+  const { endOffsets, endWeight } = entries.data;
+  for (let l = 0; l < LANES; l++) s[l * FIELDS + ENDING] = s[l * FIELDS + ENDING_VALUE] = 0;
+  for (let j = endOffsets[t]; j < endOffsets[t + 1]; j++) {
+    const o = entries.endRank[j] * LANES;
+    for (let l = 0; l < LANES; l++) {
+      s[l * FIELDS + ENDING] += c[o + l] * endWeight[j];
+      s[l * FIELDS + ENDING_VALUE] += c[o + l] * entries.endWeightedValue[j];
     }
   }
 }
 
-function setSums(s: StepSums, reached: number, weight: number, weightBefore: number, reward: number, action: number, state: number): void {
-  s.reached = reached;
-  s.weight = weight;
-  s.weightBefore = weightBefore;
-  s.reward = reward;
-  s.action = action;
-  s.state = state;
-}
-
-/** The step's contribution, exactly as perDecisionEstimates adds it. */
-function finishStep(r: Running, s: StepSums, t: number, horizon: number, discountPower: number): void {
+/** The step's contribution, exactly as perDecisionEstimates adds it. s: one resample's FIELDS. */
+function finishStep(r: Running, s: Float64Array, t: number, horizon: number, discountPower: number): void {
   if (r.failure) return;
-  if (s.reached > 0 && !(s.weight > 0 && s.weightBefore > 0)) {
+  const reached = s[REACHED], weight = s[WEIGHT], weightBefore = s[BEFORE], ending = s[ENDING];
+  if (reached > 0 && !(weight > 0 && weightBefore > 0)) {
     r.failure = new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run: the candidate gives the logged actions no probability`);
     return;
   }
-  if (s.reached > 0) r.is += (discountPower * s.reward) / s.weight;
-  if (s.reached > 0) r.correction -= (discountPower * s.action) / s.weight;
-  if (s.weightBefore + s.ending > 0) r.correction += (discountPower * (s.state + s.endingValue)) / (s.weightBefore + s.ending);
-  if (t === horizon && s.ending > 0) r.tail = (discountPower * s.endingValue) / s.ending;
+  if (reached > 0) r.is += (discountPower * s[REWARD]) / weight;
+  if (reached > 0) r.correction -= (discountPower * s[ACTION]) / weight;
+  if (weightBefore + ending > 0) r.correction += (discountPower * (s[STATE] + s[ENDING_VALUE])) / (weightBefore + ending);
+  if (t === horizon && ending > 0) r.tail = (discountPower * s[ENDING_VALUE]) / ending;
 }

@@ -5,6 +5,7 @@ import { buildLinearModelPaced } from './linearModel';
 import type { ModelHooks } from './modelHooks';
 import { buildNetworkModel } from './networkModel';
 
-export function buildModel(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}): Promise<CandidateModel> {
-  return plan.approximator.kind === 'linear' ? buildLinearModelPaced(plan, planned, hooks) : buildNetworkModel(plan, planned, hooks);
+/** `built`: the models of other policies already built on this plan (a linear pass takes their policy-free sums). */
+export function buildModel(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}, built: readonly CandidateModel[] = []): Promise<CandidateModel> {
+  return plan.approximator.kind === 'linear' ? buildLinearModelPaced(plan, planned, hooks, undefined, [], built) : buildNetworkModel(plan, planned, hooks);
 }

@@ -17,12 +17,12 @@
 import { createActionQuadrature, type ActionQuadrature } from '../../core/actionQuadrature';
 import { episodeBellmanSumsSteps, leadingEpisodeSums, resampleBellmanStatistics, type EpisodeBellmanSums } from '../../core/bootstrap/episodeBellmanSums';
 import { unitMultiplicities } from '../../core/bootstrap/episodeMultiplicities';
-import { linearisedReplicatesSteps } from '../../core/bootstrap/linearisedReplicate';
+import { linearisedReplicatesFromSums, linearisedReplicatesSteps } from '../../core/bootstrap/linearisedReplicate';
 import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, type PassSteps } from '../../core/fqe/cancellation';
 import { startStateFeatures } from '../../core/features/policyFeatures';
 import { bellmanStatisticsSteps, bellmanSumsStride, blockRowsFor, leadingStatistics, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
 import { solveLinearFqe } from '../../core/fqe/linearFqeSolve';
-import { MAX_EXACT_RESAMPLE_VALUES } from '../../core/limits';
+import { MAX_EXACT_RESAMPLE_VALUES, MAX_INFLUENCE_SUM_VALUES } from '../../core/limits';
 import type { CandidateFit } from '../candidateFit';
 import type { FitIteration } from '../estimates';
 import type { EvaluationPlan, PlannedPolicy } from '../plan/evaluationPlan';
@@ -42,19 +42,26 @@ export function buildLinearModel(plan: EvaluationPlan, planned: PlannedPolicy, h
   return runSteps(linearModelSteps(plan, planned, hooks, settings));
 }
 
-/** buildLinearModel awaiting hooks.pace (default: a yield to the event loop about every PACE_INTERVAL_MS) between slices, so a host's cancel is heard during a data pass. */
+/**
+ * buildLinearModel awaiting hooks.pace (default: a yield to the event loop about every PACE_INTERVAL_MS) between slices, so a host's cancel is heard during a data pass.
+ * `others`: models of other policies already built on this plan; one with the same feature map lends its policy-free sums (G, b, rr) to this one's pass.
+ */
 export function buildLinearModelPaced(
   plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks = {}, settings: LinearFitSpec = planLinearFit(plan), enclosing: readonly CandidateModel[] = [],
+  others: readonly CandidateModel[] = [],
 ): Promise<CandidateModel> {
-  return runStepsPaced(linearModelSteps(plan, planned, hooks, settings, enclosing), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
+  return runStepsPaced(linearModelSteps(plan, planned, hooks, settings, enclosing, others), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
 }
 
 /** `enclosing`: models of the same policy already built; one whose features lead with these (nestedStatistics) serves this one's pass. */
-function* linearModelSteps(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, settings: LinearFitSpec, enclosing: readonly CandidateModel[] = []): PassSteps<CandidateModel> {
+function* linearModelSteps(
+  plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, settings: LinearFitSpec, enclosing: readonly CandidateModel[] = [], others: readonly CandidateModel[] = [],
+): PassSteps<CandidateModel> {
   const { features } = settings, { data } = plan;
   const quadrature = createActionQuadrature(planned.policy, plan.quadratureNodes);
   const nested = enclosing.reduce<ReturnType<typeof nestedStatistics>>((found, outer) => found ?? nestedStatistics(plan, features, quadrature, outer), null);
-  const { statistics, sums } = nested ?? (yield* dataPass(plan, features, quadrature, hooks));
+  const lender = others.find((m) => m.linear?.features === features)?.linear ?? undefined;
+  const { statistics, sums, exact } = nested ?? (yield* dataPass(plan, features, quadrature, hooks, lender));
   const startFeatures = startStateFeatures(features, quadrature, plan.starts.states, data.stateDim);
   const solved = solveLinearFqe({
     statistics, features, stateDim: data.stateDim, actionDim: data.actionDim, discount: plan.discount, ridge: settings.ridge,
@@ -69,25 +76,50 @@ function* linearModelSteps(plan: EvaluationPlan, planned: PlannedPolicy, hooks: 
     fixedPointValue: solved.fixedPoint?.policyValue.value ?? null, featureCount: features.dim,
     backend: 'linear least squares (double precision)', warnings: reported.warnings, dispose: () => undefined,
   };
-  const resampling: LinearResampling = sums ? { kind: 'exact', sums }
+  const linearisation = {
+    data, index: plan.episodes, features, quadrature, statistics, weights, ridge: settings.ridge, discount: plan.discount,
+    startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode, cancel: hooks.cancel,
+  };
+  const resampling: LinearResampling = exact && sums ? { kind: 'exact', sums }
     : !atFixedPoint ? { kind: 'none', reason: 'the fit did not converge, so there is no fixed point to take resamples around' }
-    : { kind: 'linearised', replicates: yield* linearisedReplicatesSteps({
-      data, index: plan.episodes, features, quadrature, statistics, weights, ridge: settings.ridge, discount: plan.discount,
-      startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode, cancel: hooks.cancel,
-    }) };
+    : { kind: 'linearised', replicates: sums ? linearisedReplicatesFromSums(linearisation, sums) : yield* linearisedReplicatesSteps(linearisation) };
   return { ...planned, quadrature, fit, dispose: () => undefined, linear: { ...settings, resampling, statistics, startFeatures, weights, atFixedPoint } };
 }
 
-/** The one pass: per episode when the sums are affordable (their total is the full data's), else the total only. */
-function* dataPass(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks): PassSteps<{ statistics: BellmanStatistics; sums: EpisodeBellmanSums | null }> {
+/** A pass's statistics, with the per-episode sums when it kept them; `exact`: the resamples reweight those sums. */
+interface PassResult {
+  statistics: BellmanStatistics;
+  sums: EpisodeBellmanSums | null;
+  exact: boolean;
+}
+
+/**
+ * The one pass: per episode when the sums are affordable (their total is the full data's; kept for
+ * exact resamples up to MAX_EXACT_RESAMPLE_VALUES, else up to MAX_INFLUENCE_SUM_VALUES only for the
+ * first-order resamples' influence values), else the total only. lender: another policy's model with
+ * this feature map, whose policy-free sums this pass takes instead of forming them
+ * (../../core/fqe/nextFeatureSums.ts; the same numbers to the last bit).
+ */
+function* dataPass(
+  plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, hooks: ModelHooks, lender?: NonNullable<CandidateModel['linear']>,
+): PassSteps<PassResult> {
   const { data } = plan, passHooks = { cancel: hooks.cancel, onDataPass: hooks.onDataPass };
-  if (plan.episodes.episodes * bellmanSumsStride(features.dim) > MAX_EXACT_RESAMPLE_VALUES) {
-    return { statistics: yield* bellmanStatisticsSteps(data, features, quadrature, passHooks), sums: null };
+  const route = passRoute(plan, features.dim), exact = route === 'exact';
+  if (route === 'whole') {
+    const shared = lender && lender.resampling.kind !== 'exact' ? lender.statistics : undefined;
+    return { statistics: yield* bellmanStatisticsSteps(data, features, quadrature, passHooks, shared), sums: null, exact: false };
   }
-  const sums = yield* episodeBellmanSumsSteps(data, features, quadrature, passHooks, plan.episodes);
+  const shared = lender?.resampling.kind === 'exact' ? lender.resampling.sums : undefined;
+  const sums = yield* episodeBellmanSumsSteps(data, features, quadrature, passHooks, plan.episodes, shared);
   const statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
   checkStatisticsFinite(statistics, data, features, quadrature);
-  return { statistics, sums };
+  return { statistics, sums, exact };
+}
+
+/** How a pass with d features over the plan's episodes is made (dataPass): its per-episode sums reweighted, kept for the influence values, or the total only. */
+function passRoute(plan: EvaluationPlan, d: number): 'exact' | 'episodes' | 'whole' {
+  const values = plan.episodes.episodes * bellmanSumsStride(d);
+  return values <= MAX_EXACT_RESAMPLE_VALUES ? 'exact' : values <= MAX_INFLUENCE_SUM_VALUES ? 'episodes' : 'whole';
 }
 
 /**
@@ -96,20 +128,21 @@ function* dataPass(plan: EvaluationPlan, features: FeatureMap, quadrature: Actio
  * map would make: the same route (total or per episode, by MAX_EXACT_RESAMPLE_VALUES) and the same
  * rows per block. Then they are this map's own pass to the last bit; else null (make the pass).
  */
-function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, enclosing: CandidateModel): { statistics: BellmanStatistics; sums: EpisodeBellmanSums | null } | null {
+function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, enclosing: CandidateModel): PassResult | null {
   const outer = enclosing.linear, k = features.dim;
   if (!outer || !leadsIn(features, outer.features) || blockRowsFor(k) !== blockRowsFor(outer.features.dim)) return null;
-  const exact = plan.episodes.episodes * bellmanSumsStride(k) <= MAX_EXACT_RESAMPLE_VALUES;
-  if (!exact) {
-    if (outer.resampling.kind === 'exact') return null; // its total came from per-episode sums, in another order
+  const route = passRoute(plan, k);
+  if (route === 'episodes') return null; // its own pass keeps per-episode sums that no enclosing model keeps
+  if (route === 'whole') {
+    if (passRoute(plan, outer.features.dim) !== 'whole') return null; // its total came from per-episode sums, in another order
     const statistics = leadingStatistics(outer.statistics, k);
     checkStatisticsFinite(statistics, plan.data, features, quadrature);
-    return { statistics, sums: null };
+    return { statistics, sums: null, exact: false };
   }
   if (outer.resampling.kind !== 'exact') return null;
   const sums = leadingEpisodeSums(outer.resampling.sums, k), statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
   checkStatisticsFinite(statistics, plan.data, features, quadrature);
-  return { statistics, sums };
+  return { statistics, sums, exact: true };
 }
 
 /** True when `inner` is a polynomial map of lower degree than `outer` on the same standardised inputs. */

@@ -60,4 +60,35 @@ describe('episodeMoments', () => {
     fast.forEach((f, b) => expect(f).toEqual(resampleMoments(moments, block[b])));
     expect(fast[0].yy.every(Number.isFinite)).toBe(true);
   });
+
+  it('sums in chunks exactly as adding each row’s products straight into the totals (runs longer than a chunk, rows left out)', () => {
+    const long = simulateLinearPlant({
+      dynamics: [0.9, 0.1, 0, 0.8], inputGain: [0.5, 0.2], processNoiseStd: [0.1, 0.1], stateWeight: [1, 0, 0, 1], actionWeight: [0.1],
+      behaviourGain: [-0.3, -0.1], behaviourStd: [0.5], startStd: 1, episodes: 3, stepsPerEpisode: 600, seed: 8,
+    });
+    const index = indexEpisodes(long), p = 5, q = 2;
+    const row = (i: number, x: Float64Array, y: Float64Array) => {
+      const s0 = long.states[2 * i], s1 = long.states[2 * i + 1];
+      x.set([1, s0, s1, long.actions[i], s0 * long.actions[i]]);
+      y.set([long.nextStates[2 * i], long.rewards[i]]);
+      return i % 7 !== 3;
+    };
+    // The straightforward route: every product added to its total as the row is read.
+    const stride = p * p + p * q + q * q + 1, plain = new Float64Array(index.episodes * stride), x = new Float64Array(p), y = new Float64Array(q);
+    for (let k = 0; k < index.episodes; k++) {
+      const o = k * stride;
+      for (let r = index.offsets[k]; r < index.offsets[k + 1]; r++) {
+        if (!row(index.order[r], x, y)) continue;
+        for (let a = 0; a < p; a++) {
+          for (let b = a; b < p; b++) plain[o + a * p + b] += x[a] * x[b];
+          for (let b = 0; b < q; b++) plain[o + p * p + a * q + b] += x[a] * y[b];
+        }
+        for (let a = 0; a < q; a++) for (let b = a; b < q; b++) plain[o + p * p + p * q + a * q + b] += y[a] * y[b];
+        plain[o + stride - 1]++;
+      }
+      for (let a = 1; a < p; a++) for (let b = 0; b < a; b++) plain[o + a * p + b] = plain[o + b * p + a];
+      for (let a = 1; a < q; a++) for (let b = 0; b < a; b++) plain[o + p * p + p * q + a * q + b] = plain[o + p * p + p * q + b * q + a];
+    }
+    expect(episodeMoments(index, p, q, row).sums).toEqual(plain);
+  });
 });

@@ -12,7 +12,7 @@ import { episodeBellmanSums, resampleBellmanStatistics } from '../../../src/core
 import { episodeMultiplicities, unitMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
 import { linearFqeReplicate, solveReplicate, type LinearReplicateSetup } from '../../../src/core/bootstrap/linearFqeReplicate';
-import { linearisedReplicate, linearisedReplicates } from '../../../src/core/bootstrap/linearisedReplicate';
+import { linearisedReplicate, linearisedReplicates, linearisedReplicatesFromSums } from '../../../src/core/bootstrap/linearisedReplicate';
 import { meanStartFeatures, startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
@@ -34,10 +34,11 @@ const exact: LinearReplicateSetup = {
 };
 const statistics = resampleBellmanStatistics(sums, unitMultiplicities(index.episodes));
 const full = solveReplicate(exact, statistics, meanStartFeatures(startFeatures, features.dim));
-const linearised = linearisedReplicates({
+const linearisation = {
   data, index, features, quadrature, statistics, weights: full.weights!, ridge: exact.ridge, discount: tankDiscount,
   startFeatures, startsFollowEpisodes: true,
-});
+};
+const linearised = linearisedReplicates(linearisation);
 
 describe('the linearised bootstrap replicate', () => {
   it('gives the full-data J with every episode once', () => {
@@ -60,5 +61,15 @@ describe('the linearised bootstrap replicate', () => {
     const worst = Math.max(...exactValues.map((v, i) => Math.abs(v - firstOrder[i])));
     expect(spread).toBeGreaterThan(0);
     expect(worst / spread).toBeLessThan(0.1);
+  });
+
+  it('has the same influence values from the per-episode sums as from a second pass over the data (distributive law; rounding only)', () => {
+    const fromSums = linearisedReplicatesFromSums(linearisation, sums);
+    expect(fromSums.counts).toEqual(linearised.counts);
+    expect(fromSums.startValues).toEqual(linearised.startValues);
+    const scale = Math.max(...linearised.influence.map(Math.abs));
+    fromSums.influence.forEach((v, k) => expect(Math.abs(v - linearised.influence[k])).toBeLessThan(1e-10 * scale));
+    const c = episodeMultiplicities(index.episodes, 5, 3);
+    expect(linearisedReplicate(fromSums, c)).toBeCloseTo(linearisedReplicate(linearised, c)!, 10);
   });
 });

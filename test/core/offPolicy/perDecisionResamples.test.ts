@@ -2,8 +2,9 @@
  * The block route for bootstrap resamples (perDecisionResamples.ts) against the straightforward one
  * (perDecisionEstimates, one pass per resample): the same weighted per-decision importance sampling
  * and weighted doubly robust sums (Thomas & Brunskill 2016), multiplied in another order, so equal up
- * to rounding — on a log with episodes of unequal length, terminal ends and time-limit tails, for
- * blocks of every size, with and without Q̂ and V̂.
+ * to rounding — on a log with episodes of unequal length (so the ranked route's runs reach different
+ * steps, and a step's weight is split where runs end), terminal ends and time-limit tails, for blocks
+ * of every size, with and without Q̂ and V̂.
  */
 import { describe, expect, it } from 'vitest';
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
@@ -63,6 +64,12 @@ describe('per-decision estimates on a block of resamples', () => {
     const prepared = perDecisionData(table, values, tails), ones = new Uint32Array(data.episodeCount).fill(1);
     expect(prepared.endEpisode.length).toBeGreaterThan(0); // the tails are exercised
     expectSame(perDecisionResamples(prepareResampleEntries(prepared), discount, [ones])[0], perDecisionEstimates(prepared, discount));
+  });
+
+  it('refuse entries whose weight before a decision is not the same run’s weight one step earlier (the ranked route rests on it)', () => {
+    const prepared = perDecisionData(table, null), scaledBefore = prepared.scaledBefore.slice();
+    scaledBefore[prepared.stepOffsets[2] + 1] *= 0.5;
+    expect(() => prepareResampleEntries({ ...prepared, scaledBefore })).toThrow(ImportanceSamplingError);
   });
 
   it('refuse a block of the wrong size or multiplicities of the wrong length', () => {

@@ -1,0 +1,39 @@
+/**
+ * The sensitivity sweep's extra data pass (a feature size no function class fitted) runs in slices
+ * like every other pass (cancellation.ts): the assessment's pace is awaited between blocks, so a
+ * stop request that arrives while it runs is heard before the pass ends. Here the pace itself
+ * raises the stop, as a host's message would arrive during a yield.
+ */
+import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { FqeCancelledError } from '../../src/core/fqe/fqeErrors';
+import { candidateWork, type AssessmentContext } from '../../src/pipeline/assessCandidate';
+import { sensitivity } from '../../src/pipeline/assessSensitivity';
+import { openProject } from '../../src/pipeline/openProject';
+import { startRun } from '../../src/pipeline/projectRun';
+
+async function heatingRun() {
+  const folder = join(__dirname, '..', '..', 'sample-projects', 'heating-loop');
+  const opened = await openProject(await readFile(join(folder, 'heating-loop.spcritic'), 'utf8'), 'heating-loop.spcritic', async (p) => new Uint8Array(await readFile(join(folder, p))));
+  if (!opened.ok) throw new Error(opened.problems.map((p) => p.message).join('\n'));
+  const run = await startRun(opened.value.project, opened.value.dataset);
+  if (!run.ok) throw new Error(run.problems.map((p) => p.message).join('\n'));
+  return run.value;
+}
+
+describe('the sensitivity sweep’s refit pass', () => {
+  it('awaits the pace between blocks and stops when a stop request arrives during it', async () => {
+    const run = await heatingRun();
+    let paced = 0, stopped = false;
+    const base = { plan: run.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+    const counting: AssessmentContext = { ...base, pace: async () => { paced++; } };
+    // No function classes fitted beside the project's degree 2: degrees 1 and 3 each take a data pass.
+    const finished = await sensitivity(counting, [candidateWork(counting, run.models[0])], -1);
+    expect(finished.curves.map((c) => c.parameter)).toEqual(['discount', 'polynomialDegree']);
+    expect(paced).toBeGreaterThan(0);
+    const stopping: AssessmentContext = { ...base, cancel: () => stopped, pace: async () => { stopped = true; } };
+    await expect(sensitivity(stopping, [candidateWork(stopping, run.models[0])], -1)).rejects.toThrow(FqeCancelledError);
+    run.dispose();
+  });
+});
