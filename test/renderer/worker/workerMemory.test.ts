@@ -72,3 +72,18 @@ describe('the worker’s import', () => {
     if (a.ok && b.ok) expect(a.value.dataset).toBe(b.value.dataset);
   });
 });
+
+describe('the worker’s import after an internal error', () => {
+  it('tries the same import again when asked, rather than answering with the old failure', async () => {
+    let calls = 0;
+    // The first step fails as an allocation might; every later step goes on at once.
+    const memory = createWorkerMemory(async () => {
+      calls++;
+      if (calls === 1) throw new RangeError('Array buffer allocation failed');
+    });
+    memory.setData(bytes, 'tank-levels.csv');
+    await expect(memory.open(project)).rejects.toThrow('Array buffer allocation failed');
+    const again = await memory.open(project);
+    expect(again.ok).toBe(true);
+  });
+});

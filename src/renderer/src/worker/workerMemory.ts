@@ -70,11 +70,17 @@ export function createWorkerMemory(pace?: () => Promise<void>): WorkerMemory {
   };
   const startImport = (project: ProjectDocument, bytes: Uint8Array, key: string): RunningImport => {
     const stop = { requested: false };
+    const finished = (): void => {
+      if (running?.stop === stop) running = null;
+    };
     const answer = importProjectDataPaced(project, bytes, { cancel: () => stop.requested, pace }).then((opened) => {
       if (stop.requested) return opened; // superseded: its answer is its own, the memory keeps nothing of it
-      if (running?.stop === stop) running = null;
+      finished();
       cached = opened.ok ? { key, opened: opened.value } : null;
       return opened;
+    }, (error: unknown) => {
+      finished(); // an internal error is not kept: the same import asked again runs again
+      throw error;
     });
     return { key, answer, stop };
   };
