@@ -24,11 +24,14 @@ export function startAutoImport(documents: DocumentStore, session: SessionStore,
   let timer: ReturnType<typeof setTimeout> | null = null;
   let inspected = { version: -1, csv: '' };
   let importedKey = '';
+  /** Counts import requests: only the latest one's answer is shown (a stopped one may answer late, for the same key). */
+  let requests = 0;
 
   async function importNow(doc: ProjectDocument, key: string): Promise<void> {
+    const request = ++requests;
     session.set((s) => ({ ...s, importState: { status: 'importing', key } }));
     const result = await client.call('importData', { project: doc });
-    if (session.get().importState.status !== 'importing' || currentKey() !== key) return; // superseded
+    if (request !== requests || session.get().importState.status !== 'importing' || currentKey() !== key) return; // superseded
     session.set((s) => ({
       ...s,
       importState: result.ok ? { status: 'done', key, result: result.value, warnings: result.warnings } : { status: 'failed', key, problems: result.problems },
