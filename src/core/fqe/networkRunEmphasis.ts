@@ -3,7 +3,9 @@
  * networkMethod.ts `runStartEmphasis`; off by default). A share ρ of the rows is drawn from the logged
  * runs' own discounted occupancy from their first rows, row t of a run weighted γ^t, and the rest
  * uniformly:
- *   w_r = (1 − ρ)/n + ρ·γ^{t_r} / Σ_q γ^{t_q},   t_r = rows since its run's first logged row.
+ *   w_r = (1 − ρ)/n + ρ·γ^{t_r} / Σ_q γ^{t_q},   t_r = rows since its run's first logged row
+ * (a run's rows are consecutive in file order: TransitionSet.episode numbers them in file order and
+ * a new run starts a new number, src/data/episodes.ts).
  * Only the Adam steps (the hidden features) see these weights; the last layer is still the LSTD-Q
  * fixed point under the logged rows, so the estimator's target is unchanged — only which region the
  * features learn first. Measured on the battery (seeds 1–2, J over the start set the runs were logged
