@@ -55,7 +55,7 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
   const groups = Math.ceil(count / LANES), lanes = Array.from({ length: groups }, (_, g) => rankedLanes(entries, multiplicities, g));
   const reached = lanes.map((c) => reachedCounts(entries, c));
   const running: Running[] = Array.from({ length: count }, () => ({ is: 0, correction: 0, tail: 0, failure: null }));
-  const sums = new Float64Array(groups * LANES * FIELDS), before = new Float64Array(groups * LANES);
+  const sums = new Float64Array(groups * LANES * FIELDS), before = new Float64Array(groups * LANES), pair = new Float64Array(2 * LANES);
   for (let g = 0; g < groups; g++) for (let l = 0; l < LANES; l++) before[g * LANES + l] = reached[g][l]; // W_{i,−1} = 1
   let discountPower = 1;
   for (let t = 0; t <= horizon; t++, discountPower *= discount) {
@@ -65,8 +65,8 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
         s[l * FIELDS + REACHED] = reached[g][t * LANES + l];
         s[l * FIELDS + BEFORE] = before[g * LANES + l];
       }
-      weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES));
-      valueSums(entries, lanes[g], t, s);
+      weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES), pair);
+      valueSums(entries, lanes[g], t, s, pair);
       endingSums(entries, lanes[g], t, s);
     }
     for (let b = 0; b < count; b++) finishStep(running[b], sums.subarray(b * FIELDS, (b + 1) * FIELDS), t, horizon, discountPower);
@@ -103,39 +103,46 @@ function reachedCounts(entries: ResampleEntries, c: Float64Array): Float64Array 
  * Σ c W and Σ c W r at step t for one group's four resamples; the weight sum over the ranks that
  * also reach t + 1 is kept in `before` as the next step's Σ c W_{t}·[reaches t + 1].
  */
-function weightSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, before: Float64Array): void {
+function weightSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, before: Float64Array, pair: Float64Array): void {
   const { weight: w, weightedReward: wr, offsets, reaching } = entries;
   const base = offsets[t], split = base + (reaching[t + 1] ?? 0), end = base + reaching[t];
-  let w0 = 0, w1 = 0, w2 = 0, w3 = 0, r0 = 0, r1 = 0, r2 = 0, r3 = 0;
-  for (let j = base, o = 0; j < split; j++, o += 4) {
-    const x = w[j], y = wr[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
-    w0 += c0 * x; w1 += c1 * x; w2 += c2 * x; w3 += c3 * x;
-    r0 += c0 * y; r1 += c1 * y; r2 += c2 * y; r3 += c3 * y;
-  }
-  before[0] = w0; before[1] = w1; before[2] = w2; before[3] = w3;
-  for (let j = split, o = (split - base) * 4; j < end; j++, o += 4) {
-    const x = w[j], y = wr[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
-    w0 += c0 * x; w1 += c1 * x; w2 += c2 * x; w3 += c3 * x;
-    r0 += c0 * y; r1 += c1 * y; r2 += c2 * y; r3 += c3 * y;
-  }
-  s[WEIGHT] = w0; s[FIELDS + WEIGHT] = w1; s[2 * FIELDS + WEIGHT] = w2; s[3 * FIELDS + WEIGHT] = w3;
-  s[REWARD] = r0; s[FIELDS + REWARD] = r1; s[2 * FIELDS + REWARD] = r2; s[3 * FIELDS + REWARD] = r3;
+  pair.fill(0);
+  pairedLaneSums(w, wr, c, base, split, 0, pair);
+  before.set(pair.subarray(0, LANES));
+  pairedLaneSums(w, wr, c, split, end, (split - base) * LANES, pair);
+  storeLanes(s, WEIGHT, REWARD, pair);
 }
 
 /** Σ c W Q̂ and Σ c W_{t−1} V̂ at step t (0 without Q̂ and V̂). */
-function valueSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array): void {
+function valueSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, pair: Float64Array): void {
   const { weightedAction: wq, weightedState: wv, offsets, reaching } = entries;
-  let a0 = 0, a1 = 0, a2 = 0, a3 = 0, v0 = 0, v1 = 0, v2 = 0, v3 = 0;
-  if (wq && wv) {
-    const base = offsets[t], end = base + reaching[t];
-    for (let j = base, o = 0; j < end; j++, o += 4) {
-      const x = wq[j], y = wv[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
-      a0 += c0 * x; a1 += c1 * x; a2 += c2 * x; a3 += c3 * x;
-      v0 += c0 * y; v1 += c1 * y; v2 += c2 * y; v3 += c3 * y;
-    }
+  pair.fill(0);
+  if (wq && wv) pairedLaneSums(wq, wv, c, offsets[t], offsets[t] + reaching[t], 0, pair);
+  storeLanes(s, ACTION, STATE, pair);
+}
+
+/**
+ * pair[l] += Σ_j c_{j,l}·x_j and pair[LANES + l] += Σ_j c_{j,l}·y_j for the four lanes l, over the
+ * entries j in [from, to), whose multiplicities start at c[o0] (LANES per entry). The eight sums are
+ * carried in locals through the loop and added in entry order from pair's values, so a range split
+ * in two gives the same sums to the last bit as one pass.
+ */
+function pairedLaneSums(x: Float64Array, y: Float64Array, c: Float64Array, from: number, to: number, o0: number, pair: Float64Array): void {
+  let x0 = pair[0], x1 = pair[1], x2 = pair[2], x3 = pair[3], y0 = pair[4], y1 = pair[5], y2 = pair[6], y3 = pair[7];
+  for (let j = from, o = o0; j < to; j++, o += LANES) {
+    const a = x[j], b = y[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
+    x0 += c0 * a; x1 += c1 * a; x2 += c2 * a; x3 += c3 * a;
+    y0 += c0 * b; y1 += c1 * b; y2 += c2 * b; y3 += c3 * b;
   }
-  s[ACTION] = a0; s[FIELDS + ACTION] = a1; s[2 * FIELDS + ACTION] = a2; s[3 * FIELDS + ACTION] = a3;
-  s[STATE] = v0; s[FIELDS + STATE] = v1; s[2 * FIELDS + STATE] = v2; s[3 * FIELDS + STATE] = v3;
+  pair[0] = x0; pair[1] = x1; pair[2] = x2; pair[3] = x3; pair[4] = y0; pair[5] = y1; pair[6] = y2; pair[7] = y3;
+}
+
+/** The lanes' x sums into field fx and their y sums into field fy of each resample's FIELDS. */
+function storeLanes(s: Float64Array, fx: number, fy: number, pair: Float64Array): void {
+  for (let l = 0; l < LANES; l++) {
+    s[l * FIELDS + fx] = pair[l];
+    s[l * FIELDS + fy] = pair[LANES + l];
+  }
 }
 
 /** The time-limited episodes that end at step t: Σ c W_{T−1} and Σ c W_{T−1} V̂(s_T). */
