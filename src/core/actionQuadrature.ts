@@ -30,6 +30,9 @@ import { createBoundedNormalQuadrature, MAX_BOUNDED_NORMAL_NODES, type BoundedNo
 export interface ActionQuadrature {
   readonly actionDim: number; // m
   readonly maxPoints: number; // upper bound on points any state yields
+  /** The policy and the nodes per dimension the rule was built for (so a caller can take a closed form the rule agrees with; policyFeatureAverage.ts). */
+  readonly policy: GaussianPolicy;
+  readonly nodesPerDimension: number;
   /** Fill points (row-major, each row an action of length m) and weights (sum to 1) for the
    *  state read from state[stateOffset .. stateOffset+ds); returns the number of points used. */
   at(state: ArrayLike<number>, stateOffset: number, points: Float64Array, weights: Float64Array): number;
@@ -75,7 +78,7 @@ function unboundedQuadrature(policy: GaussianPolicy, n: number): ActionQuadratur
   const mean = new Float64Array(m);
   return {
     actionDim: m,
-    maxPoints: count,
+    maxPoints: count, policy, nodesPerDimension: n,
     at(state, stateOffset, points, weights) {
       checkCall(policy, state, stateOffset, points, weights, count);
       meanAt(policy, state, stateOffset, mean);
@@ -101,7 +104,7 @@ function boundedQuadrature(policy: GaussianPolicy, n: number): ActionQuadrature 
   const mean = new Float64Array(m), counts = new Int32Array(m), digit = new Int32Array(m);
   return {
     actionDim: m,
-    maxPoints,
+    maxPoints, policy, nodesPerDimension: n,
     at(state, stateOffset, points, weights) {
       checkCall(policy, state, stateOffset, points, weights, maxPoints);
       meanAt(policy, state, stateOffset, mean);
@@ -147,7 +150,8 @@ function writeTensorProduct(
   }
 }
 
-function meanAt(policy: GaussianPolicy, state: ArrayLike<number>, stateOffset: number, mean: Float64Array): void {
+/** μ(s) into mean; a PolicyError where it is not finite (every route to E_{a~π} goes through here). */
+export function meanAt(policy: GaussianPolicy, state: ArrayLike<number>, stateOffset: number, mean: Float64Array): void {
   policyMean(policy, state, mean, stateOffset, 0);
   for (let i = 0; i < policy.actionDim; i++) {
     if (!Number.isFinite(mean[i])) {

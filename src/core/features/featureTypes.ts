@@ -43,5 +43,7 @@ export interface FeatureMap {
    * the state (e.g. polynomialNodeAverage.ts); the same values up to rounding. Absent: node by node.
    */
   nodeAverage?(ds: number): NodeAverage;
+  /** Present when φ is the full polynomial basis of this spec (read-only), so E_{a~π} φ can be taken by closed-form moments (policyFeatureAverage.ts). */
+  readonly polynomial?: Readonly<PolynomialFeatureSpec>;
   toSpec(): FeatureMapSpec;
 }

@@ -36,6 +36,7 @@ export function createPolynomialFeatures(spec: PolynomialFeatureSpec): FeatureMa
       for (let j = n + 1; j < d; j++) out[outOffset + j] = out[outOffset + parent[j]] * out[outOffset + 1 + variable[j]];
     },
     nodeAverage: (ds) => polynomialNodeAverage(mean, scale, k, ds),
+    polynomial: frozen,
     toSpec: () => structuredClone(frozen),
   };
 }

@@ -20,7 +20,7 @@ import { NEGLIGIBLE_MASS } from '../quadrature/boundedNormal';
 import type { TransitionSet } from '../transitions';
 import { nextFeatureCoefficients } from './nextFeatureCoefficients';
 import type { NextStateMonomialSums } from './nextStateMonomialSums';
-import type { PolicyFeatureAverage } from './policyFeatureAverage';
+import type { PolicyFeatureAverage } from '../features/policyFeatureAverage';
 import type { PolicyFreeSums } from './policyFreeSums';
 import { keepUpperTriangles, newPacked, newSlot, packedSlot, statisticsOf, type PointSums, type Slot } from './pointSums';
 

@@ -16,7 +16,7 @@ import type { FeatureMap } from '../features/featureMap';
 import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
 import type { TransitionSet } from '../transitions';
 import { logged, type PolicyFreeSums } from './policyFreeSums';
-import type { PolicyFeatureAverage } from './policyFeatureAverage';
+import type { PolicyFeatureAverage } from '../features/policyFeatureAverage';
 import { addSlot, keepUpperTriangles, newPacked, newSlot, packedSlot, statisticsOf, type PointSums, type Slot } from './pointSums';
 
 const BLOCK_VALUES = 1 << 16;

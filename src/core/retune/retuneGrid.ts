@@ -30,7 +30,7 @@ import type { GaussianPolicy } from '../policy';
 import type { TransitionSet } from '../transitions';
 import { closedFormPointSums, MAX_CORRECTED_SHARE, rowsNearLimits } from './closedFormSums';
 import { nextStateMonomialSums, type NextStateMonomialSums } from './nextStateMonomialSums';
-import { createPolicyFeatureAverage, momentRouteApplies, type PolicyFeatureAverage } from './policyFeatureAverage';
+import { createPolicyFeatureAverage, momentRouteApplies, type PolicyFeatureAverage } from '../features/policyFeatureAverage';
 import { policyDependentSums } from './policyDependentSums';
 import { policyFreeSums, type PolicyFreeSums } from './policyFreeSums';
 import type { PointSums } from './pointSums';

@@ -8,7 +8,7 @@ import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
 import { createGaussianPolicy } from '../../../src/core/policy';
 import { featureStructure, nextFeatureCoefficients } from '../../../src/core/retune/nextFeatureCoefficients';
-import { createPolicyFeatureAverage } from '../../../src/core/retune/policyFeatureAverage';
+import { createPolicyFeatureAverage } from '../../../src/core/features/policyFeatureAverage';
 import { evaluateMonomials, statePolynomialRing } from '../../../src/core/retune/statePolynomials';
 
 describe('candidate-averaged features as a polynomial in the state', () => {

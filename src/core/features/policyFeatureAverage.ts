@@ -1,7 +1,9 @@
 /**
  * ψ(s) = E_{a~π(·|s)} φ(s, a): the candidate-averaged feature vector at a state, by one of two
  * routes that give the same numbers to rounding:
- *   quadrature — the action quadrature's nodes and weights (actionQuadrature.ts), φ at each node;
+ *   quadrature — the action quadrature's nodes and weights (actionQuadrature.ts), through the
+ *     feature map's node average where it has one (polynomialNodeAverage.ts, gridNodeAverage.ts:
+ *     state factors once per state), else φ at each node;
  *   moments    — for polynomial features, φ_j(s, a) = S_j(s)·Π_i z_i^{k_ij} with z_i the
  *     standardised action, so by independence of the action dimensions
  *       ψ_j(s) = S_j(s) · Π_i E[z_i^{k_ij}],
@@ -9,16 +11,18 @@
  *     O(nodes^m · d).
  * The moment route is taken only where the quadrature is itself exact for the features (its
  * n nodes per dimension integrate degree ≤ 2n − 1, and the feature degree is at most that) and
- * the action law has independent dimensions without truncation; so a retune map's points agree
- * with the main fit of the same policy to rounding, whichever route served them.
+ * the action law has independent dimensions without truncation; so every pass — the fit's data
+ * passes, V̂ at the logged states, a retune map's points — gets the numbers the quadrature would
+ * give, to rounding, whichever route served them. Both routes raise the quadrature's PolicyError
+ * where the candidate's mean is not finite at a state.
  *
  * Shapes: state read from states[offset .. offset+ds); out[outOffset .. outOffset+d).
  */
-import { createActionQuadrature } from '../actionQuadrature';
-import type { FeatureMap, PolynomialFeatureSpec } from '../features/featureMap';
-import { monomialBasis } from '../features/monomials';
-import { actionLimitsAt, actionStd, limitModeOf, policyMean, type GaussianPolicy } from '../policy';
+import { createActionQuadrature, meanAt, type ActionQuadrature } from '../actionQuadrature';
+import { actionLimitsAt, actionStd, limitModeOf, type GaussianPolicy } from '../policy';
 import { clippedGaussianMoments, gaussianMoments, MAX_MOMENT_DEGREE } from './actionMoments';
+import type { FeatureMap, PolynomialFeatureSpec } from './featureMap';
+import { monomialBasis } from './monomials';
 
 export type AverageRoute = 'moments' | 'quadrature';
 
@@ -29,24 +33,39 @@ export interface PolicyFeatureAverage {
 }
 
 export function createPolicyFeatureAverage(features: FeatureMap, policy: GaussianPolicy, quadratureNodes: number): PolicyFeatureAverage {
-  const spec = features.toSpec();
-  if (spec.kind === 'polynomial' && momentRouteApplies(spec, policy, quadratureNodes)) return momentAverage(spec, policy);
-  return quadratureAverage(features, policy, quadratureNodes);
+  return averageForQuadrature(features, createActionQuadrature(policy, quadratureNodes));
+}
+
+/** ψ for the policy and rule a quadrature was built for: the moment route where it applies, else that quadrature. */
+export function averageForQuadrature(features: FeatureMap, quadrature: ActionQuadrature): PolicyFeatureAverage {
+  const spec = features.polynomial, { policy } = quadrature;
+  if (spec && momentRouteApplies(spec, policy, quadrature.nodesPerDimension)) return momentAverage(spec, policy);
+  return quadratureRoute(features, quadrature);
 }
 
 /** True when the closed-form moments reproduce the quadrature exactly (see above). */
-export function momentRouteApplies(spec: PolynomialFeatureSpec, policy: GaussianPolicy, quadratureNodes: number): boolean {
+export function momentRouteApplies(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPolicy, quadratureNodes: number): boolean {
   return policy.independent && limitModeOf(policy) !== 'truncate' && spec.degree <= Math.min(2 * quadratureNodes - 1, MAX_MOMENT_DEGREE);
 }
 
+/** The quadrature route for a policy and node count (the slow reference the tests compare with). */
 export function quadratureAverage(features: FeatureMap, policy: GaussianPolicy, nodes: number): PolicyFeatureAverage {
-  const quadrature = createActionQuadrature(policy, nodes);
-  const ds = policy.stateDim, m = policy.actionDim, d = features.dim;
+  return quadratureRoute(features, createActionQuadrature(policy, nodes));
+}
+
+function quadratureRoute(features: FeatureMap, quadrature: ActionQuadrature): PolicyFeatureAverage {
+  const { policy } = quadrature, ds = policy.stateDim, m = policy.actionDim, d = features.dim;
   const input = new Float64Array(ds + m), phi = new Float64Array(d);
   const points = new Float64Array(quadrature.maxPoints * m), weights = new Float64Array(quadrature.maxPoints);
+  const nodeAverage = features.nodeAverage?.(ds);
   return {
     route: 'quadrature', dim: d,
     average(states, offset, out, outOffset) {
+      if (nodeAverage) {
+        const k = quadrature.at(states, offset, points, weights);
+        nodeAverage(states, offset, points, weights, k, out, outOffset);
+        return;
+      }
       for (let f = 0; f < d; f++) out[outOffset + f] = 0;
       for (let c = 0; c < ds; c++) input[c] = states[offset + c];
       const k = quadrature.at(states, offset, points, weights);
@@ -60,7 +79,7 @@ export function quadratureAverage(features: FeatureMap, policy: GaussianPolicy, 
   };
 }
 
-function momentAverage(spec: PolynomialFeatureSpec, policy: GaussianPolicy): PolicyFeatureAverage {
+function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPolicy): PolicyFeatureAverage {
   const ds = policy.stateDim, m = policy.actionDim, n = ds + m, degree = spec.degree;
   const { mean: centre, scale } = spec.standardiser;
   const basis = monomialBasis(n, degree), d = basis.size;
@@ -73,7 +92,7 @@ function momentAverage(spec: PolynomialFeatureSpec, policy: GaussianPolicy): Pol
     route: 'moments', dim: d,
     average(states, offset, out, outOffset) {
       for (let c = 0; c < ds; c++) z[c] = (states[offset + c] - centre[c]) / scale[c];
-      policyMean(policy, states, mu, offset, 0);
+      meanAt(policy, states, offset, mu);
       const mode = actionLimitsAt(policy, states, offset, lo, hi);
       for (let i = 0; i < m; i++) {
         const c = centre[ds + i], h = scale[ds + i];

@@ -7,8 +7,8 @@ import { describe, expect, it } from 'vitest';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
 import { createGaussianPolicy, type GaussianPolicySpec } from '../../../src/core/policy';
-import { createPolicyFeatureAverage, quadratureAverage } from '../../../src/core/retune/policyFeatureAverage';
-import { clippedGaussianMoments } from '../../../src/core/retune/actionMoments';
+import { createPolicyFeatureAverage, quadratureAverage } from '../../../src/core/features/policyFeatureAverage';
+import { clippedGaussianMoments } from '../../../src/core/features/actionMoments';
 import { bruteForceExpectation } from '../policy/bruteForce';
 
 const standardiser = { mean: [1, -2, 50, 3], scale: [0.5, 2, 10, 4] }; // 3 states, 1 action … or 2 states, 2 actions
