@@ -29,14 +29,16 @@ const NORMAL_MOMENT = BINOMIAL.map((_, l) => (l % 2 === 1 ? 0 : l === 0 ? 1 : Ar
 
 export const MAX_MOMENT_DEGREE = 12;
 
-/** Unlimited Gaussian: E[((a − c)/h)^k] for k = 0..degree into out. */
+/**
+ * Unlimited Gaussian: E[((a − c)/h)^k] for k = 0..degree into out, by the raw-moment recurrence of
+ * a normal z ~ N(u, τ²),  E z^k = u E z^{k−1} + (k − 1) τ² E z^{k−2}  (Stein's identity
+ * E[z g(z)] = u E g + τ² E g′ with g = z^{k−1}; common practice) — the binomial sum above, without powers.
+ */
 export function gaussianMoments(mean: number, std: number, centre: number, scale: number, degree: number, out: Float64Array): void {
-  const u = (mean - centre) / scale, tau = std / scale;
-  for (let k = 0; k <= degree; k++) {
-    let s = 0;
-    for (let l = 0; l <= k; l += 2) s += BINOMIAL[k][l] * u ** (k - l) * tau ** l * NORMAL_MOMENT[l];
-    out[k] = s;
-  }
+  const u = (mean - centre) / scale, tau = std / scale, variance = tau * tau;
+  out[0] = 1;
+  if (degree >= 1) out[1] = u;
+  for (let k = 2; k <= degree; k++) out[k] = u * out[k - 1] + (k - 1) * variance * out[k - 2];
 }
 
 /** Clipped to [lo, hi] (either may be infinite, lo ≤ hi): E[((a − c)/h)^k] for k = 0..degree into out. */

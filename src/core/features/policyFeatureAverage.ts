@@ -80,52 +80,55 @@ function quadratureRoute(features: FeatureMap, quadrature: ActionQuadrature): Po
 }
 
 function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPolicy): PolicyFeatureAverage {
-  const ds = policy.stateDim, m = policy.actionDim, n = ds + m, degree = spec.degree;
+  const ds = policy.stateDim, m = policy.actionDim, n = ds + m, degree = spec.degree, width = degree + 1;
   const { mean: centre, scale } = spec.standardiser;
-  const basis = monomialBasis(n, degree), d = basis.size;
-  const { keys, keyOf } = actionExponentKeys(basis.exponents, d, ds, m);
-  const stateFactor = new Float64Array(d), z = new Float64Array(ds), mu = new Float64Array(m);
-  const lo = new Float64Array(m), hi = new Float64Array(m), partial = new Float64Array(degree + 1);
-  const moments = Array.from({ length: m }, () => new Float64Array(degree + 1)), product = new Float64Array(keys.length);
+  const { size: d, parent, variable, exponents } = monomialBasis(n, degree);
+  const { keys, keyOf } = actionExponentKeys(exponents, d, ds, m), keyCount = keys.length / m;
+  const stateFactor = new Float64Array(d), z = new Float64Array(ds + 1), mu = new Float64Array(m);
+  const lo = new Float64Array(m), hi = new Float64Array(m), partial = new Float64Array(width), limited = limitModeOf(policy) !== null;
+  const moments = new Float64Array(m * width), product = new Float64Array(keyCount), row = new Float64Array(width);
   const std = Array.from({ length: m }, (_, i) => actionStd(policy, i));
+  // z[v] for a state variable v; z[ds] = 1 stands for every action variable in the state factors.
+  const factorOf = Int32Array.from(variable, (v) => (v < ds ? v : ds));
+  z[ds] = 1;
   return {
     route: 'moments', dim: d,
     average(states, offset, out, outOffset) {
       for (let c = 0; c < ds; c++) z[c] = (states[offset + c] - centre[c]) / scale[c];
       meanAt(policy, states, offset, mu);
-      const mode = actionLimitsAt(policy, states, offset, lo, hi);
+      const mode = limited ? actionLimitsAt(policy, states, offset, lo, hi) : null;
       for (let i = 0; i < m; i++) {
         const c = centre[ds + i], h = scale[ds + i];
-        if (mode === null) gaussianMoments(mu[i], std[i], c, h, degree, moments[i]);
-        else clippedGaussianMoments(mu[i], std[i], lo[i], hi[i], c, h, degree, moments[i], partial);
+        if (mode === null) gaussianMoments(mu[i], std[i], c, h, degree, row);
+        else clippedGaussianMoments(mu[i], std[i], lo[i], hi[i], c, h, degree, row, partial);
+        moments.set(row, i * width);
       }
-      for (let k = 0; k < keys.length; k++) {
+      for (let k = 0; k < keyCount; k++) {
         let p = 1;
-        for (let i = 0; i < m; i++) p *= moments[i][keys[k][i]];
+        for (let i = 0; i < m; i++) p *= moments[i * width + keys[k * m + i]];
         product[k] = p;
       }
       stateFactor[0] = 1;
       out[outOffset] = product[keyOf[0]];
       for (let j = 1; j < d; j++) {
-        const v = basis.variable[j];
-        stateFactor[j] = stateFactor[basis.parent[j]] * (v < ds ? z[v] : 1);
+        stateFactor[j] = stateFactor[parent[j]] * z[factorOf[j]];
         out[outOffset + j] = stateFactor[j] * product[keyOf[j]];
       }
     },
   };
 }
 
-/** The distinct action-exponent tuples of the monomials, and each monomial's tuple index. */
-function actionExponentKeys(exponents: Int32Array, d: number, ds: number, m: number): { keys: number[][]; keyOf: Int32Array } {
-  const n = ds + m, index = new Map<string, number>(), keys: number[][] = [], keyOf = new Int32Array(d);
+/** The distinct action-exponent tuples of the monomials (flat, m per tuple), and each monomial's tuple index. */
+function actionExponentKeys(exponents: Int32Array, d: number, ds: number, m: number): { keys: Int32Array; keyOf: Int32Array } {
+  const n = ds + m, index = new Map<string, number>(), keys: number[] = [], keyOf = new Int32Array(d);
   for (let j = 0; j < d; j++) {
     const tuple = Array.from(exponents.subarray(j * n + ds, (j + 1) * n));
     const name = tuple.join(',');
     if (!index.has(name)) {
-      index.set(name, keys.length);
-      keys.push(tuple);
+      index.set(name, keys.length / m);
+      keys.push(...tuple);
     }
     keyOf[j] = index.get(name)!;
   }
-  return { keys, keyOf };
+  return { keys: Int32Array.from(keys), keyOf };
 }

@@ -8,7 +8,7 @@ import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
 import { createGaussianPolicy, type GaussianPolicySpec } from '../../../src/core/policy';
 import { createPolicyFeatureAverage, quadratureAverage } from '../../../src/core/features/policyFeatureAverage';
-import { clippedGaussianMoments } from '../../../src/core/features/actionMoments';
+import { clippedGaussianMoments, gaussianMoments } from '../../../src/core/features/actionMoments';
 import { bruteForceExpectation } from '../policy/bruteForce';
 
 const standardiser = { mean: [1, -2, 50, 3], scale: [0.5, 2, 10, 4] }; // 3 states, 1 action … or 2 states, 2 actions
@@ -56,3 +56,15 @@ describe('policy-averaged features: moments against quadrature', () => {
   });
 });
 
+
+describe('normal raw moments', () => {
+  // E X^k of X ~ N(μ, σ²), k ≤ 6: the binomial expansion with E ξ^l = (l − 1)!! (standard-normal
+  // moments; common practice, written from memory and re-derived by hand).
+  const raw = (mu: number, s: number) => [1, mu, mu ** 2 + s ** 2, mu ** 3 + 3 * mu * s ** 2, mu ** 4 + 6 * mu ** 2 * s ** 2 + 3 * s ** 4,
+    mu ** 5 + 10 * mu ** 3 * s ** 2 + 15 * mu * s ** 4, mu ** 6 + 15 * mu ** 4 * s ** 2 + 45 * mu ** 2 * s ** 4 + 15 * s ** 6];
+  it.each([[0.3, 1.2], [-2, 0.5], [0, 1], [5, 3]])('gaussianMoments(μ = %d, σ = %d) of the standardised action', (mu, s) => {
+    const out = new Float64Array(7), centre = 0.7, scale = 2.5;
+    gaussianMoments(mu, s, centre, scale, 6, out);
+    raw((mu - centre) / scale, s / scale).forEach((v, k) => expect(out[k]).toBeCloseTo(v, 12));
+  });
+});
