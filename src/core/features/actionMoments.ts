@@ -24,8 +24,6 @@ for (let k = 0; k <= 12; k++) {
   BINOMIAL[k] = [1];
   for (let l = 1; l <= k; l++) BINOMIAL[k][l] = l === k ? 1 : BINOMIAL[k - 1][l - 1] + BINOMIAL[k - 1][l];
 }
-/** E ξ^l of a standard normal: 0 for odd l, (l − 1)!! for even l. */
-const NORMAL_MOMENT = BINOMIAL.map((_, l) => (l % 2 === 1 ? 0 : l === 0 ? 1 : Array.from({ length: l / 2 }, (_, i) => 2 * i + 1).reduce((a, b) => a * b, 1)));
 
 export const MAX_MOMENT_DEGREE = 12;
 
