@@ -6,7 +6,7 @@
  * controller's model — and its fits in other function classes. Nothing here refits the model
  * itself. Reward terms throughout.
  */
-import { linearFqeReplicate, type LinearReplicateSetup, type LinearSolveSettings } from '../core/bootstrap/linearFqeReplicate';
+import { linearFqeReplicate, linearFqeReplicateBlock, type LinearReplicateSetup, type LinearSolveSettings } from '../core/bootstrap/linearFqeReplicate';
 import { linearisedReplicate } from '../core/bootstrap/linearisedReplicate';
 import type { CancellationCheck } from '../core/fqe/cancellation';
 import type { FittedBehaviour } from '../core/offPolicy/behaviourPolicy';
@@ -29,6 +29,8 @@ export interface OffPolicyInputs {
 export interface Replicator {
   readonly kind: 'exact' | 'linearised';
   value(multiplicities: Uint32Array): number | null;
+  /** value() on each resample of a block, the same numbers, in one read of the per-episode sums where that is cheaper. */
+  values(block: readonly Uint32Array[]): (number | null)[];
 }
 
 /** A fit of the same candidate in another function class, for the class comparison. */
@@ -88,14 +90,24 @@ export function replicator(plan: EvaluationPlan, model: CandidateModel): Replica
   const linear = model.linear;
   if (!linear) return null;
   const r = linear.resampling;
-  if (r.kind === 'linearised') return { kind: 'linearised', value: (c) => linearisedReplicate(r.replicates, c) };
+  if (r.kind === 'linearised') {
+    const value = (c: Uint32Array) => linearisedReplicate(r.replicates, c);
+    return { kind: 'linearised', value, values: (block) => block.map(value) };
+  }
   if (r.kind === 'none') return null;
   const setup: LinearReplicateSetup = {
     ...linearSolveSettings(plan, model), sums: r.sums, startFeatures: linear.startFeatures, startsFollowEpisodes: plan.starts.followEpisodes,
     startEpisode: plan.starts.episode,
   };
-  const scratch = new Float64Array(r.sums.stride);
-  return { kind: 'exact', value: (c) => linearFqeReplicate(setup, c, scratch).policyValue };
+  const scratch: Float64Array[] = [];
+  const room = (count: number) => {
+    while (scratch.length < count) scratch.push(new Float64Array(r.sums.stride));
+    return scratch;
+  };
+  return {
+    kind: 'exact', value: (c) => linearFqeReplicate(setup, c, room(1)[0]).policyValue,
+    values: (block) => linearFqeReplicateBlock(setup, block, room(block.length)).map((replicate) => replicate.policyValue),
+  };
 }
 
 /** How a linear model's fit is solved on other statistics (a resample, another discount). */

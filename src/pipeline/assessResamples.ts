@@ -77,10 +77,11 @@ export async function runResamples(
     // The two estimators bound by reading per-run or per-entry data take the block's resamples in one read.
     const fitted = model ? fitLinearQuadraticModels(model.regressions, drawn).map((f) => (f instanceof ModelFitError ? null : f)) : null;
     const perDecision = new Map([...entries].map(([w, en]) => [w, perDecisionResamples(en, plan.discount, drawn)]));
+    const fqe = new Map([...works, ...(baseline ? [baseline] : [])].map((w) => [w, blockValues(w, drawn)]));
     drawn.forEach((c, i) => {
       out.loggedReturn.push(weightedMean(plan.loggedReturn.perEpisode, c));
-      works.forEach((w, j) => replicateCandidate(context, w, out.candidates[j], c, fitted && fitted[i], perDecision.get(w)?.[i]));
-      if (baseline && out.presentController) replicateCandidate(context, baseline, out.presentController, c, null, perDecision.get(baseline)?.[i]);
+      works.forEach((w, j) => replicateCandidate(context, w, out.candidates[j], c, fqe.get(w)!.map((v) => v?.[i]), fitted && fitted[i], perDecision.get(w)?.[i]));
+      if (baseline && out.presentController) replicateCandidate(context, baseline, out.presentController, c, fqe.get(baseline)!.map((v) => v?.[i]), null, perDecision.get(baseline)?.[i]);
       if (baselineEnds && out.completedReturn) out.completedReturn.push(completedReturnOfResample(plan.loggedReturn.perEpisode, baselineEnds.tailWeights, baselineEnds.values, c));
     });
   }
@@ -93,15 +94,26 @@ function emptyReplicates(w: CandidateWork, modelApplicable: boolean): CandidateR
   return { fqe, importanceSampling: offPolicy ? [] : null, doublyRobust: offPolicy ? [] : null, model: modelApplicable ? [] : null, classes: w.classes.map((_, i) => (i === 0 ? fqe : [])) };
 }
 
-/** perDecision: the resample's per-decision estimates (perDecisionResamples), or the error that stands for none. */
+/**
+ * J of each function class of the work (its own first) on every resample of the block, each class's
+ * resamples taken together (Replicator.values); null for a class without a replicator.
+ */
+function blockValues(w: CandidateWork, block: readonly Uint32Array[]): ((number | null)[] | null)[] {
+  return [w.replicate, ...w.classes.slice(1).map((k) => k.replicate)].map((r) => r && r.values(block));
+}
+
+/**
+ * classValues: J of the work's function classes on this resample (blockValues), null for a class without a replicator;
+ * perDecision: the resample's per-decision estimates (perDecisionResamples), or the error that stands for none.
+ */
 function replicateCandidate(
-  context: AssessmentContext, w: CandidateWork, out: CandidateReplicates, c: Uint32Array, fitted: LinearQuadraticModelFit | null,
-  perDecision: PerDecisionEstimates | ImportanceSamplingError | undefined,
+  context: AssessmentContext, w: CandidateWork, out: CandidateReplicates, c: Uint32Array, classValues: (number | null | undefined)[],
+  fitted: LinearQuadraticModelFit | null, perDecision: PerDecisionEstimates | ImportanceSamplingError | undefined,
 ): void {
   const { discount, starts } = context.plan;
   // A model without a replicator (a network) has no fqe replicates: no interval.
-  if (w.replicate) out.fqe.push(w.replicate.value(c));
-  for (let k = 1; k < w.classes.length; k++) out.classes[k].push(w.classes[k].replicate?.value(c) ?? null);
+  if (w.replicate) out.fqe.push(classValues[0] ?? null);
+  for (let k = 1; k < w.classes.length; k++) out.classes[k].push(classValues[k] ?? null);
   if (perDecision !== undefined) {
     const estimates = perDecision instanceof ImportanceSamplingError ? null : perDecision;
     out.importanceSampling!.push(estimates && estimates.importanceSampling);

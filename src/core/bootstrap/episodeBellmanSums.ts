@@ -78,17 +78,53 @@ function copyPolicyFree(from: EpisodeBellmanSums, to: Float64Array): void {
 export function resampleBellmanStatistics(
   sums: EpisodeBellmanSums, multiplicities: ArrayLike<number>, scratch: Float64Array = new Float64Array(sums.stride),
 ): BellmanStatistics {
-  const { episodes: e, dim: d, stride } = sums;
-  if (multiplicities.length !== e) throw new BootstrapError(`multiplicities: expected one per episode (${e}), got ${multiplicities.length}`);
-  scratch.fill(0);
-  for (let k = 0; k < e; k++) {
-    const c = multiplicities[k];
-    if (c === 0) continue;
-    const o = k * stride;
-    for (let j = 0; j < stride; j++) scratch[j] += c * sums.sums[o + j];
+  return resampleBellmanStatisticsBlock(sums, [multiplicities], [scratch])[0];
+}
+
+/**
+ * resampleBellmanStatistics for several resamples at once: each episode's row of sums (a few tens
+ * of kilobytes at most) is read from memory once for the block and added into every resample that
+ * drew it while it is in cache, instead of once per resample. Only the entries the statistics use
+ * are added (the upper triangles of the symmetric ΦᵀΦ and ΨᵀΨ; statisticsFromSums mirrors them).
+ * Per resample these are the same additions in the same order as one at a time, so the same
+ * numbers to the last bit. scratch: one buffer of length stride per resample, reused between calls.
+ */
+export function resampleBellmanStatisticsBlock(
+  sums: EpisodeBellmanSums, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[],
+): BellmanStatistics[] {
+  const { episodes: e, dim: d, stride } = sums, count = block.length, ranges = usedRanges(d);
+  if (count > scratch.length) throw new RangeError(`resampleBellmanStatisticsBlock: ${count} resamples, ${scratch.length} scratch buffers`);
+  for (let r = 0; r < count; r++) {
+    if (block[r].length !== e) throw new BootstrapError(`multiplicities: expected one per episode (${e}), got ${block[r].length}`);
+    if (scratch[r].length < stride) throw new RangeError(`resampleBellmanStatisticsBlock: scratch of ${scratch[r].length}, need ${stride}`);
+    scratch[r].fill(0, 0, stride);
   }
-  if (!(scratch[stride - 1] > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
-  return statisticsFromSums(scratch, d);
+  const values = sums.sums;
+  for (let k = 0; k < e; k++) {
+    const o = k * stride;
+    for (let r = 0; r < count; r++) {
+      const c = block[r][k];
+      if (c === 0) continue;
+      const total = scratch[r];
+      for (let g = 0; g < ranges.length; g += 2) {
+        for (let j = ranges[g]; j < ranges[g + 1]; j++) total[j] += c * values[o + j];
+      }
+    }
+  }
+  return scratch.slice(0, count).map((total) => {
+    if (!(total[stride - 1] > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
+    return statisticsFromSums(total, d);
+  });
+}
+
+/** [from, to) pairs of the entries of a row that statisticsFromSums reads: upper ΦᵀΦ, all of ΦᵀΨ, upper ΨᵀΨ, then the vectors, rᵀr and n. */
+function usedRanges(d: number): Int32Array {
+  const dd = d * d, out: number[] = [];
+  for (let a = 0; a < d; a++) out.push(a * d + a, a * d + d);
+  out.push(dd, 2 * dd);
+  for (let a = 0; a < d; a++) out.push(2 * dd + a * d + a, 2 * dd + a * d + d);
+  out.push(3 * dd, bellmanSumsStride(d));
+  return Int32Array.from(out);
 }
 
 /** Each episode's sums of the first k features (leadingSums in bellmanStatistics.ts): a pass with the smaller nested map, to the last bit. */

@@ -16,7 +16,7 @@ import { runFqeIteration, type FqeStatus } from '../fqe/fqeIteration';
 import { fixedPointWeights, iterationMatrix, ridgeGram, ridgeGramFactor } from '../fqe/ridgeSystem';
 import { spectralRadiusBound } from '../fqe/spectralRadiusBound';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
-import { resampleBellmanStatistics, type EpisodeBellmanSums } from './episodeBellmanSums';
+import { resampleBellmanStatisticsBlock, type EpisodeBellmanSums } from './episodeBellmanSums';
 import { meanStartFeatures } from '../features/policyFeatures';
 import { holdsStartState, startMultiplicities } from './startMultiplicities';
 
@@ -57,12 +57,18 @@ export interface LinearReplicate {
   readonly status: ReplicateStatus;
 }
 
-export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: ArrayLike<number>, scratch?: Float64Array): LinearReplicate {
-  const startWeights = setup.startsFollowEpisodes ? startMultiplicities(multiplicities, setup.startEpisode) : undefined;
-  if (startWeights && !holdsStartState(startWeights)) return { policyValue: null, weights: null, status: 'noStartStates' };
-  const stats = resampleBellmanStatistics(setup.sums, multiplicities, scratch);
-  const xiBar = meanStartFeatures(setup.startFeatures, setup.sums.dim, startWeights);
-  return solveReplicate(setup, stats, xiBar);
+export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: ArrayLike<number>, scratch: Float64Array = new Float64Array(setup.sums.stride)): LinearReplicate {
+  return linearFqeReplicateBlock(setup, [multiplicities], [scratch])[0];
+}
+
+/** linearFqeReplicate on a block of resamples, their statistics formed in one read of the sums (resampleBellmanStatisticsBlock); the same numbers. */
+export function linearFqeReplicateBlock(setup: LinearReplicateSetup, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[]): LinearReplicate[] {
+  const stats = resampleBellmanStatisticsBlock(setup.sums, block, scratch);
+  return block.map((multiplicities, r) => {
+    const startWeights = setup.startsFollowEpisodes ? startMultiplicities(multiplicities, setup.startEpisode) : undefined;
+    if (startWeights && !holdsStartState(startWeights)) return { policyValue: null, weights: null, status: 'noStartStates' };
+    return solveReplicate(setup, stats[r], meanStartFeatures(setup.startFeatures, setup.sums.dim, startWeights));
+  });
 }
 
 /** The solve on given statistics (also used for the full data and for a discount sweep). */

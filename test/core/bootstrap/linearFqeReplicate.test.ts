@@ -9,10 +9,10 @@ import { Matrix } from 'ml-matrix';
 import { describe, expect, it } from 'vitest';
 import { simulateTankLevels, tankDiscount, tankTrimmedPolicy } from '../../../sample-projects/tank-levels/simulate';
 import { createActionQuadrature } from '../../../src/core/actionQuadrature';
-import { episodeBellmanSums, resampleBellmanStatistics } from '../../../src/core/bootstrap/episodeBellmanSums';
+import { episodeBellmanSums, resampleBellmanStatistics, resampleBellmanStatisticsBlock } from '../../../src/core/bootstrap/episodeBellmanSums';
 import { episodeMultiplicities, unitMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { indexEpisodes, resampledTransitions } from '../../../src/core/bootstrap/episodeTransitions';
-import { linearFqeReplicate, type LinearReplicateSetup } from '../../../src/core/bootstrap/linearFqeReplicate';
+import { linearFqeReplicate, linearFqeReplicateBlock, type LinearReplicateSetup } from '../../../src/core/bootstrap/linearFqeReplicate';
 import { startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
@@ -79,5 +79,23 @@ describe('the fast linear bootstrap replicate', () => {
     const fast = resampleBellmanStatistics(sums, counts).gram;
     const scale = Math.max(...gram.to1DArray().map(Math.abs));
     fast.forEach((v, k) => expect(Math.abs(v - gram.get(Math.floor(k / d), k % d)) / scale).toBeLessThan(1e-12));
+  });
+
+  it('takes a block of resamples in one read of the sums to the same numbers, to the last bit, as one at a time and as the plain weighted sum', () => {
+    const block = Array.from({ length: 7 }, (_, b) => episodeMultiplicities(data.episodeCount, 9, b));
+    const scratch = Array.from({ length: 8 }, () => new Float64Array(sums.stride));
+    const together = resampleBellmanStatisticsBlock(sums, block, scratch);
+    block.forEach((c, r) => {
+      expect(together[r]).toEqual(resampleBellmanStatistics(sums, c));
+      // The definition, Σ_k c_k S_k over every entry of the row, then the averages.
+      const plain = new Float64Array(sums.stride);
+      for (let k = 0; k < sums.episodes; k++) for (let j = 0; j < sums.stride; j++) plain[j] += c[k] * sums.sums[k * sums.stride + j];
+      const d = sums.dim, n = plain[sums.stride - 1];
+      expect(together[r].count).toBe(n);
+      together[r].gram.forEach((v, k) => expect(v).toBe(plain[Math.min(k, (k % d) * d + Math.floor(k / d))] / n));
+      together[r].crossNext.forEach((v, k) => expect(v).toBe(plain[d * d + k] / n));
+    });
+    const replicates = linearFqeReplicateBlock(base, block, scratch);
+    block.forEach((c, r) => expect(replicates[r]).toEqual(linearFqeReplicate(base, c)));
   });
 });
