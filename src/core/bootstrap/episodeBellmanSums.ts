@@ -81,40 +81,60 @@ export function resampleBellmanStatistics(
   return resampleBellmanStatisticsBlock(sums, [multiplicities], [scratch])[0];
 }
 
+/** Resamples summed side by side in one sweep of a row (the inner loop is written out for this many). */
+const LANES = 4;
+
 /**
- * resampleBellmanStatistics for several resamples at once: each episode's row of sums (a few tens
- * of kilobytes at most) is read from memory once for the block and added into every resample that
- * drew it while it is in cache, instead of once per resample. Only the entries the statistics use
- * are added (the upper triangles of the symmetric ΦᵀΦ and ΨᵀΨ; statisticsFromSums mirrors them).
- * Per resample these are the same additions in the same order as one at a time, so the same
- * numbers to the last bit. scratch: one buffer of length stride per resample, reused between calls.
+ * resampleBellmanStatistics for several resamples at once: each episode's row of sums is read once
+ * for four resamples side by side (their totals interleaved), and only the entries the statistics
+ * use are added (the upper triangles of the symmetric ΦᵀΦ and ΨᵀΨ; statisticsFromSums mirrors
+ * them). Per resample these are the same additions in the same order as one at a time — an episode
+ * a resample did not draw adds c·x = +0, which leaves a total that started at +0 unchanged — so,
+ * for finite sums, the same numbers to the last bit. scratch: one buffer of length stride per
+ * resample, reused between calls.
  */
 export function resampleBellmanStatisticsBlock(
   sums: EpisodeBellmanSums, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[],
 ): BellmanStatistics[] {
-  const { episodes: e, dim: d, stride } = sums, count = block.length, ranges = usedRanges(d);
+  const { episodes: e, dim: d, stride } = sums, count = block.length;
   if (count > scratch.length) throw new RangeError(`resampleBellmanStatisticsBlock: ${count} resamples, ${scratch.length} scratch buffers`);
   for (let r = 0; r < count; r++) {
     if (block[r].length !== e) throw new BootstrapError(`multiplicities: expected one per episode (${e}), got ${block[r].length}`);
     if (scratch[r].length < stride) throw new RangeError(`resampleBellmanStatisticsBlock: scratch of ${scratch[r].length}, need ${stride}`);
-    scratch[r].fill(0, 0, stride);
   }
-  const values = sums.sums;
-  for (let k = 0; k < e; k++) {
-    const o = k * stride;
-    for (let r = 0; r < count; r++) {
-      const c = block[r][k];
-      if (c === 0) continue;
-      const total = scratch[r];
-      for (let g = 0; g < ranges.length; g += 2) {
-        for (let j = ranges[g]; j < ranges[g + 1]; j++) total[j] += c * values[o + j];
-      }
+  const ranges = usedRanges(d), lanes = new Float64Array(LANES * stride), none = new Uint32Array(e);
+  for (let first = 0; first < count; first += LANES) {
+    const group = Array.from({ length: LANES }, (_, l) => (first + l < count ? block[first + l] : none));
+    addLanes(sums.sums, stride, e, ranges, group, lanes);
+    for (let l = 0; l < LANES && first + l < count; l++) {
+      const total = scratch[first + l];
+      for (let j = 0; j < stride; j++) total[j] = lanes[j * LANES + l];
     }
   }
   return scratch.slice(0, count).map((total) => {
     if (!(total[stride - 1] > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
     return statisticsFromSums(total, d);
   });
+}
+
+/** totals[j·4 + l] = Σ_k c_{l,k} S_k[j] over the used entries j, four resamples l side by side. */
+function addLanes(values: Float64Array, stride: number, e: number, ranges: Int32Array, c: readonly ArrayLike<number>[], totals: Float64Array): void {
+  totals.fill(0);
+  const [m0, m1, m2, m3] = c;
+  for (let k = 0; k < e; k++) {
+    const c0 = m0[k], c1 = m1[k], c2 = m2[k], c3 = m3[k];
+    if (c0 === 0 && c1 === 0 && c2 === 0 && c3 === 0) continue;
+    const o = k * stride;
+    for (let g = 0; g < ranges.length; g += 2) {
+      for (let j = ranges[g], q = j * LANES; j < ranges[g + 1]; j++, q += LANES) {
+        const x = values[o + j];
+        totals[q] += c0 * x;
+        totals[q + 1] += c1 * x;
+        totals[q + 2] += c2 * x;
+        totals[q + 3] += c3 * x;
+      }
+    }
+  }
 }
 
 /** [from, to) pairs of the entries of a row that statisticsFromSums reads: upper ΦᵀΦ, all of ΦᵀΨ, upper ΨᵀΨ, then the vectors, rᵀr and n. */
