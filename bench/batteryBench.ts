@@ -22,6 +22,7 @@ import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
 import { createGaussianPolicy } from '../src/core/policy';
 import { batteryPlants } from '../test/battery/catalogue';
 import type { BatteryPlant } from '../test/battery/batteryPlant';
+import { printAllowanceTable } from './batteryAllowanceTable';
 import { printBatteryTable, type FitRecord } from './batteryTable';
 
 const wasmPath = fileURLToPath(new URL('../node_modules/@tensorflow/tfjs-backend-wasm/dist/', import.meta.url));
@@ -80,7 +81,10 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, runS
       return {
         plant: plant.name, candidate: c.name, startSet: set.name, runStarts, seed, truth: plant.truth(c.name, set.name),
         network: { value: e.value, lower: e.interval.lower, upper: e.interval.upper },
-        networkParts: { percentile: [...e.parts.percentile], basic: [...e.parts.basic], bootstrapStandardError: e.parts.bootstrapStandardError, iterateSpread: e.parts.iterateSpread },
+        networkParts: {
+          percentile: [...e.parts.percentile], basic: [...e.parts.basic], bootstrapStandardError: e.parts.bootstrapStandardError, iterateSpread: e.parts.iterateSpread,
+          classErrorAllowance: e.parts.classErrorAllowance,
+        },
         linear: { value: e.linear.value, lower: e.linear.interval.lower, upper: e.linear.interval.upper },
         difference: { value: e.difference.value, lower: e.difference.interval.lower, upper: e.difference.interval.upper },
         agreement: approximatorAgreement({ network: e, linear: e.linear, difference: e.difference }).verdict,
@@ -123,6 +127,7 @@ export async function runBatteryBench(args: string[]): Promise<void> {
     }
   }
   printBatteryTable(records);
+  printAllowanceTable(records);
   const folder = fileURLToPath(new URL('../test-artifacts/', import.meta.url));
   mkdirSync(folder, { recursive: true });
   const file = `${folder}battery-${new Date().toISOString().replace(/[:.]/g, '-')}.json`;

@@ -72,7 +72,8 @@ export function combineEstimates(estimates: readonly NetworkValueEstimate[]): Ne
     covers: `${first.covers}; the span of ${estimates.length} fits from different starting weights, so it also covers where the training lands`,
     parts: {
       ...first.parts, iterateSpread: Math.max(...estimates.map((e) => e.parts.iterateSpread)),
-      driftAllowance: Math.max(...estimates.map((e) => e.parts.driftAllowance)), memberValues: values,
+      driftAllowance: Math.max(...estimates.map((e) => e.parts.driftAllowance)), classErrorAllowance: Math.max(...estimates.map((e) => e.parts.classErrorAllowance)),
+      memberValues: values,
     },
   };
 }
