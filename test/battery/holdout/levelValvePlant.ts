@@ -15,6 +15,7 @@
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
+import { exchangerPlant } from './exchangerPlant';
 
 const AREA_M2 = 3, STEP_S = 10, VALVE_FLOW_M3_S = 0.05, LEVEL_SETPOINT_M = 2, VALVE_BIAS = 0.8;
 /** Restriction coefficient that holds the setpoint at the valve bias: k·√2 = 0.05·0.8. */
@@ -73,5 +74,5 @@ export function gentleLevelValvePlant(): BatteryPlant {
 }
 
 export function holdoutPlants(): BatteryPlant[] {
-  return [levelValvePlant(), gentleLevelValvePlant()];
+  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant()];
 }
