@@ -11,6 +11,7 @@
  *          --run-starts steady|wide|both (where the logged runs start: test/battery/startSets.ts)
  *          --settings '{"outerIterations": 60}'  --method '{"lastLayer": "gradient"}'  --cpu
  *          --fit-seed-offset k (fit with seed s + k on the data of seed s: the training's own randomness)
+ *          --holdout (the hold-out plants of test/battery/holdout/ instead of the battery's six)
  * Seeds: the data of seed s is simulated with seed s and the network is fitted with seed s (+ k).
  * Run it under `nice`; it takes about a minute of CPU per fit.
  */
@@ -21,7 +22,9 @@ import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
 import { createGaussianPolicy } from '../src/core/policy';
 import { batteryPlants } from '../test/battery/catalogue';
+import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
 import type { BatteryPlant } from '../test/battery/batteryPlant';
+import { printAllowanceTable } from './batteryAllowanceTable';
 import { printBatteryTable, type FitRecord } from './batteryTable';
 
 const wasmPath = fileURLToPath(new URL('../node_modules/@tensorflow/tfjs-backend-wasm/dist/', import.meta.url));
@@ -37,10 +40,12 @@ interface Options {
   runStarts: ('steady' | 'wide')[];
   /** Added to the seed of the network's fit only (the data keep theirs): measures the training's own randomness. */
   fitSeedOffset: number;
+  /** Run the hold-out plants (test/battery/holdout/) instead of the battery: they check choices made on the battery. */
+  holdout: boolean;
 }
 
 function parseOptions(args: string[]): Options {
-  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto', runStarts: ['steady'], fitSeedOffset: 0 };
+  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto', runStarts: ['steady'], fitSeedOffset: 0, holdout: false };
   for (let i = 0; i < args.length; i++) {
     const value = () => args[++i];
     if (args[i] === '--seeds') o.seeds = Number(value());
@@ -52,6 +57,7 @@ function parseOptions(args: string[]): Options {
     else if (args[i] === '--cpu') o.backend = 'cpu';
     else if (args[i] === '--run-starts') o.runStarts = runStartsOption(value());
     else if (args[i] === '--fit-seed-offset') o.fitSeedOffset = Number(value());
+    else if (args[i] === '--holdout') o.holdout = true;
     else throw new Error(`battery bench: unknown option ${args[i]}`);
   }
   return o;
@@ -80,7 +86,10 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, runS
       return {
         plant: plant.name, candidate: c.name, startSet: set.name, runStarts, seed, truth: plant.truth(c.name, set.name),
         network: { value: e.value, lower: e.interval.lower, upper: e.interval.upper },
-        networkParts: { percentile: [...e.parts.percentile], basic: [...e.parts.basic], bootstrapStandardError: e.parts.bootstrapStandardError, iterateSpread: e.parts.iterateSpread },
+        networkParts: {
+          percentile: [...e.parts.percentile], basic: [...e.parts.basic], bootstrapStandardError: e.parts.bootstrapStandardError, iterateSpread: e.parts.iterateSpread,
+          classErrorAllowance: e.parts.classErrorAllowance,
+        },
         linear: { value: e.linear.value, lower: e.linear.interval.lower, upper: e.linear.interval.upper },
         difference: { value: e.difference.value, lower: e.difference.interval.lower, upper: e.difference.interval.upper },
         agreement: approximatorAgreement({ network: e, linear: e.linear, difference: e.difference }).verdict,
@@ -107,8 +116,8 @@ function secondsToWithin(fit: NetworkFit, truth: number, share: number): number 
 
 export async function runBatteryBench(args: string[]): Promise<void> {
   const o = parseOptions(args);
-  const plants = batteryPlants().filter((p) => !o.plants || o.plants.includes(p.name));
-  if (plants.length === 0) throw new Error(`battery bench: no plant matches ${o.plants?.join(', ')}; have ${batteryPlants().map((p) => p.name).join(', ')}`);
+  const all = o.holdout ? holdoutPlants() : batteryPlants(), plants = all.filter((p) => !o.plants || o.plants.includes(p.name));
+  if (plants.length === 0) throw new Error(`battery bench: no plant matches ${o.plants?.join(', ')}; have ${all.map((p) => p.name).join(', ')}`);
   console.log(`battery sweep: ${plants.length} plants, ${o.seeds} seeds, ${o.transitions.toLocaleString('en-US')} transitions, settings ${JSON.stringify(o.settings)}, method ${JSON.stringify(o.method)}`);
   const records: FitRecord[] = [];
   for (const plant of plants) {
@@ -123,6 +132,7 @@ export async function runBatteryBench(args: string[]): Promise<void> {
     }
   }
   printBatteryTable(records);
+  printAllowanceTable(records);
   const folder = fileURLToPath(new URL('../test-artifacts/', import.meta.url));
   mkdirSync(folder, { recursive: true });
   const file = `${folder}battery-${new Date().toISOString().replace(/[:.]/g, '-')}.json`;

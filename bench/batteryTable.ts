@@ -24,7 +24,8 @@ export interface FitRecord {
   seed: number;
   truth: BatteryTruth;
   network: Estimate;
-  networkParts?: { percentile: number[]; basic: number[]; bootstrapStandardError: number; iterateSpread: number };
+  /** classErrorAllowance: relative to |network J| (classErrorAllowance.ts); absent in older records. */
+  networkParts?: { percentile: number[]; basic: number[]; bootstrapStandardError: number; iterateSpread: number; classErrorAllowance?: number };
   linear: Estimate;
   difference: Estimate;
   /** The network/linear agreement verdict the app shows (approximatorAgreement.ts); absent in older records. */

@@ -10,6 +10,8 @@
  *   npm run bench -- radial       the whole evaluate with radial-basis features, d = 343, 100,000 transitions
  *   npm run bench -- battery [options]   the battery sweep of the network and linear estimators
  *                                 (bench/batteryBench.ts; long: run it under `nice`)
+ *   npm run bench -- battery-table f.json …   the network interval without and with the class-error
+ *                                 allowance, from records the battery sweep wrote (bench/batteryAllowanceTable.ts)
  */
 import { execFileSync } from 'node:child_process';
 import { fileURLToPath } from 'node:url';
@@ -75,4 +77,5 @@ function parent(groups: string[]): void {
 const args = process.argv.slice(2);
 if (args[0] === '--child') await child(Number(args[1]));
 else if (args[0] === 'battery') await (await import('./batteryBench')).runBatteryBench(args.slice(1));
+else if (args[0] === 'battery-table') (await import('./batteryAllowanceTable')).printAllowanceTableOf(args.slice(1));
 else parent(args);

@@ -5,6 +5,7 @@
  */
 import * as tf from '@tensorflow/tfjs';
 import { createActionQuadrature } from '../actionQuadrature';
+import { classErrorAllowance, classErrorSentence, withClassErrorAllowance } from './classErrorAllowance';
 import { FqeCancelledError } from './fqeErrors';
 import { linearActionValue } from './linearActionValue';
 import { createNetworkActionValue } from './networkActionValue';
@@ -121,11 +122,16 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
       const follow = options.startsFollowEpisodes ?? sameValues(startStates, dataStarts);
       const resamples = options.resamples ?? s.method.intervalResamples;
       const r = valueReplicates(systems, { startRows: rows, startsFollowEpisodes: follow, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed }, { network: value, linear });
+      const difference = networkValueInterval(r.difference, spread * Math.abs(value), drift * Math.abs(value));
+      const allowance = classErrorAllowance(difference);
       return {
-        value, interval: networkValueInterval(r.network, spread * Math.abs(value), drift * Math.abs(value)), linear: { value: linear, interval: valueInterval(r.linear) },
-        difference: { value: value - linear, interval: networkValueInterval(r.difference, spread * Math.abs(value), drift * Math.abs(value)) },
-        startCount: rows.length / d, resamples, failedResamples: r.failed, covers: INTERVAL_COVERS,
-        parts: { percentile: r.network.percentile, basic: r.network.basic, bootstrapStandardError: r.network.standardError, iterateSpread: spread, driftAllowance: drift },
+        value, interval: withClassErrorAllowance(networkValueInterval(r.network, spread * Math.abs(value), drift * Math.abs(value)), allowance),
+        linear: { value: linear, interval: valueInterval(r.linear) }, difference: { value: value - linear, interval: difference },
+        startCount: rows.length / d, resamples, failedResamples: r.failed, covers: allowance > 0 ? `${INTERVAL_COVERS}; ${classErrorSentence()}` : INTERVAL_COVERS,
+        parts: {
+          percentile: r.network.percentile, basic: r.network.basic, bootstrapStandardError: r.network.standardError, iterateSpread: spread, driftAllowance: drift,
+          classErrorAllowance: allowance / Math.max(Math.abs(value), Number.MIN_VALUE),
+        },
       };
     },
     dispose: () => {

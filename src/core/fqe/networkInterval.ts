@@ -10,8 +10,9 @@
  * What it covers: the sampling variability of the last-layer solve given the learned hidden
  * features, i.e. which episodes happened to be logged. Not covered: that the features were learned
  * on the same data, the randomness of the network's training, and the approximation error of the
- * function class. The battery measures how often the interval holds the truth anyway
- * (`npm run bench -- battery`).
+ * function class. Where the network and the linear estimate disagree beyond resampling, the fit
+ * adds an allowance for the function class's error to the network's interval (classErrorAllowance.ts).
+ * The battery measures how often the interval holds the truth anyway (`npm run bench -- battery`).
  *
  * The same resamples give the linear (quadratic part alone) estimate's replicates and the paired
  * difference network − linear, whose interval is what the agreement rule reads

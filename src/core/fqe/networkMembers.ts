@@ -63,16 +63,19 @@ export function combineMembers(members: readonly NetworkFit[]): NetworkFit {
 export function combineEstimates(estimates: readonly NetworkValueEstimate[]): NetworkValueEstimate {
   const first = estimates[0], values = estimates.map((e) => e.value);
   const value = mean(values), differenceValue = mean(estimates.map((e) => e.difference.value));
+  // A member whose interval carries the class-error allowance says so (classErrorAllowance.ts).
+  const widest = estimates.find((e) => e.parts.classErrorAllowance > 0) ?? first;
   return {
     ...first,
     value,
     interval: hull(estimates.map((e) => e.interval), values),
     difference: { value: differenceValue, interval: hull(estimates.map((e) => e.difference.interval), estimates.map((e) => e.difference.value)) },
     failedResamples: Math.max(...estimates.map((e) => e.failedResamples)),
-    covers: `${first.covers}; the span of ${estimates.length} fits from different starting weights, so it also covers where the training lands`,
+    covers: `${widest.covers}; the span of ${estimates.length} fits from different starting weights, so it also covers where the training lands`,
     parts: {
       ...first.parts, iterateSpread: Math.max(...estimates.map((e) => e.parts.iterateSpread)),
-      driftAllowance: Math.max(...estimates.map((e) => e.parts.driftAllowance)), memberValues: values,
+      driftAllowance: Math.max(...estimates.map((e) => e.parts.driftAllowance)), classErrorAllowance: Math.max(...estimates.map((e) => e.parts.classErrorAllowance)),
+      memberValues: values,
     },
   };
 }

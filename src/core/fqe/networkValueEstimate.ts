@@ -35,6 +35,11 @@ export interface NetworkValueEstimate {
     readonly iterateSpread: number;
     /** How far the stopping rule allows J still to move, relative to |J|, added to both ends of the interval. */
     readonly driftAllowance: number;
+    /**
+     * Added to both ends for the function class's error where the network and the linear estimate
+     * disagree beyond resampling, relative to |J| (classErrorAllowance.ts); 0 where they do not.
+     */
+    readonly classErrorAllowance: number;
     /** J of each member when several fits were averaged (networkMembers.ts). */
     readonly memberValues?: readonly number[];
   };

@@ -7,6 +7,7 @@
 import { beforeAll, describe, expect, it } from 'vitest';
 import * as tf from '@tensorflow/tfjs';
 import { createActionQuadrature } from '../../../src/core/actionQuadrature';
+import { classErrorAllowance, classErrorSentence } from '../../../src/core/fqe/classErrorAllowance';
 import { FqeCancelledError, FqeOptionsError } from '../../../src/core/fqe/fqeErrors';
 import { fitNetworkFqe, type NetworkFqeInput, type NetworkProgress } from '../../../src/core/fqe/networkFqe';
 import { NetworkDisposedError, TfBackendError } from '../../../src/core/fqe/networkErrors';
@@ -155,6 +156,9 @@ describe('fitNetworkFqe values', () => {
     expect(e.resamples).toBe(50);
     expect(e.covers).toMatch(/the randomness of the training and how far the stopping rule lets J still move, not the error of the function class outside the logged states/);
     expect(e.parts.driftAllowance).toBeGreaterThanOrEqual(small.tolerance); // at least the rule's tolerance
+    // The class-error allowance is the rule of classErrorAllowance.ts applied to the paired difference's interval.
+    expect(e.parts.classErrorAllowance * Math.abs(e.value)).toBeCloseTo(classErrorAllowance(e.difference.interval), 9);
+    if (e.parts.classErrorAllowance > 0) expect(e.covers).toContain(classErrorSentence());
     fit.dispose();
   });
 });
