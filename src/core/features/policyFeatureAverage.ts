@@ -38,9 +38,15 @@ export function createPolicyFeatureAverage(features: FeatureMap, policy: Gaussia
 
 /** ψ for the policy and rule a quadrature was built for: the moment route where it applies, else that quadrature. */
 export function averageForQuadrature(features: FeatureMap, quadrature: ActionQuadrature): PolicyFeatureAverage {
-  const spec = features.polynomial, { policy } = quadrature;
-  if (spec && momentRouteApplies(spec, policy, quadrature.nodesPerDimension)) return momentAverage(spec, policy);
+  const spec = features.polynomial;
+  if (spec && averageRoute(features, quadrature) === 'moments') return momentAverage(spec, quadrature.policy);
   return quadratureRoute(features, quadrature);
+}
+
+/** The route averageForQuadrature takes for these features and rule (the two agree to rounding only, so passes to be equal to the last bit must share it). */
+export function averageRoute(features: FeatureMap, quadrature: ActionQuadrature): AverageRoute {
+  const spec = features.polynomial;
+  return spec && momentRouteApplies(spec, quadrature.policy, quadrature.nodesPerDimension) ? 'moments' : 'quadrature';
 }
 
 /** True when the closed-form moments reproduce the quadrature exactly (see above). */
