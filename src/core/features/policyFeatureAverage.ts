@@ -8,7 +8,9 @@
  *     standardised action, so by independence of the action dimensions
  *       ψ_j(s) = S_j(s) · Π_i E[z_i^{k_ij}],
  *     the moments in closed form (actionMoments.ts). Cost per state O(d + m·K²) instead of
- *     O(nodes^m · d).
+ *     O(nodes^m · d). Where a clipped dimension's closed form would lose digits (a dither far
+ *     wider than the band between its limits), that dimension's moments come from its own
+ *     bounded-normal rule instead (clippedMomentRow): still one factor per dimension.
  * The moment route is taken only where the quadrature is itself exact for the features (its
  * n nodes per dimension integrate degree ≤ 2n − 1, and the feature degree is at most that) and
  * the action law has independent dimensions without truncation; so every pass — the fit's data
@@ -20,6 +22,7 @@
  */
 import { createActionQuadrature, meanAt, type ActionQuadrature } from '../actionQuadrature';
 import { actionLimitsAt, actionStd, limitModeOf, type GaussianPolicy } from '../policy';
+import { createBoundedNormalQuadrature } from '../quadrature/boundedNormal';
 import { clippedGaussianMoments, gaussianMoments, MAX_MOMENT_DEGREE } from './actionMoments';
 import type { FeatureMap, PolynomialFeatureSpec } from './featureMap';
 import { monomialBasis } from './monomials';
@@ -39,7 +42,7 @@ export function createPolicyFeatureAverage(features: FeatureMap, policy: Gaussia
 /** ψ for the policy and rule a quadrature was built for: the moment route where it applies, else that quadrature. */
 export function averageForQuadrature(features: FeatureMap, quadrature: ActionQuadrature): PolicyFeatureAverage {
   const spec = features.polynomial;
-  if (spec && averageRoute(features, quadrature) === 'moments') return momentAverage(spec, quadrature.policy);
+  if (spec && averageRoute(features, quadrature) === 'moments') return momentAverage(spec, quadrature.policy, quadrature.nodesPerDimension);
   return quadratureRoute(features, quadrature);
 }
 
@@ -85,15 +88,15 @@ function quadratureRoute(features: FeatureMap, quadrature: ActionQuadrature): Po
   };
 }
 
-function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPolicy): PolicyFeatureAverage {
+function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPolicy, nodes: number): PolicyFeatureAverage {
   const ds = policy.stateDim, m = policy.actionDim, n = ds + m, degree = spec.degree, width = degree + 1;
   const { mean: centre, scale } = spec.standardiser;
   const { size: d, parent, variable, exponents } = monomialBasis(n, degree);
   const { keys, keyOf } = actionExponentKeys(exponents, d, ds, m), keyCount = keys.length / m;
   const stateFactor = new Float64Array(d), z = new Float64Array(ds + 1), mu = new Float64Array(m);
-  const lo = new Float64Array(m), hi = new Float64Array(m), partial = new Float64Array(width), limited = limitModeOf(policy) !== null;
+  const lo = new Float64Array(m), hi = new Float64Array(m), limited = limitModeOf(policy) !== null;
   const moments = new Float64Array(m * width), product = new Float64Array(keyCount), row = new Float64Array(width);
-  const std = Array.from({ length: m }, (_, i) => actionStd(policy, i));
+  const std = Array.from({ length: m }, (_, i) => actionStd(policy, i)), clipped = limited ? clippedMomentRow(nodes, degree) : null;
   // z[v] for a state variable v; z[ds] = 1 stands for every action variable in the state factors.
   const factorOf = Int32Array.from(variable, (v) => (v < ds ? v : ds));
   z[ds] = 1;
@@ -106,7 +109,7 @@ function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPo
       for (let i = 0; i < m; i++) {
         const c = centre[ds + i], h = scale[ds + i];
         if (mode === null) gaussianMoments(mu[i], std[i], c, h, degree, row);
-        else clippedGaussianMoments(mu[i], std[i], lo[i], hi[i], c, h, degree, row, partial);
+        else clipped!(mu[i], std[i], lo[i], hi[i], c, h, row);
         moments.set(row, i * width);
       }
       for (let k = 0; k < keyCount; k++) {
@@ -121,6 +124,26 @@ function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPo
         out[outOffset + j] = stateFactor[j] * product[keyOf[j]];
       }
     },
+  };
+}
+
+/**
+ * One clipped action dimension's E z^k, k = 0..degree, into row: the closed form where it keeps its
+ * digits (clippedGaussianMoments), else Σ_j ω_j z_j^k over the dimension's own bounded-normal rule
+ * with the quadrature's n nodes — the factor the tensor rule gives this dimension, exact for
+ * degree ≤ 2n − 1 like the closed form.
+ */
+function clippedMomentRow(n: number, degree: number) {
+  const width = degree + 1, partial = new Float64Array(width), magnitude = new Float64Array(width);
+  const rule = createBoundedNormalQuadrature(n), nodes = new Float64Array(rule.maxPoints), weights = new Float64Array(rule.maxPoints);
+  return (mean: number, std: number, lo: number, hi: number, centre: number, scale: number, row: Float64Array): void => {
+    if (clippedGaussianMoments(mean, std, lo, hi, centre, scale, degree, row, partial, magnitude)) return;
+    const count = rule.fill(mean, std, lo, hi, 'clip', nodes, weights);
+    row.fill(0, 0, width);
+    for (let j = 0; j < count; j++) {
+      const z = (nodes[j] - centre) / scale;
+      for (let k = 0, p = weights[j]; k <= degree; k++, p *= z) row[k] += p;
+    }
   };
 }
 
