@@ -95,6 +95,16 @@ describe('clipped moments where the dither is far wider than the band between th
     expect(clippedGaussianMoments(0, 1, -1, 1, 0, 1, 4, out, partial)).toBe(true);
   });
 
+  it('a mean far beyond a limit (1e200, finite) gives the limit\'s features, as the rule does (the closed form made 0·∞ = NaN)', () => {
+    // Clipping puts all the mass at U = 1 (censored normal, definition): E z^k = 1 for every k.
+    const features = createFeatureMap(polynomialFeatureSpec({ mean: [0, 0], scale: [1, 1] }, 2));
+    const policy = createGaussianPolicy({ offset: [1e200], gain: [[0]], std: [1], bounds: { lo: [-1], hi: [1], mode: 'clip' } }, 1);
+    const psi = new Float64Array(features.dim), phi = new Float64Array(features.dim);
+    createPolicyFeatureAverage(features, policy, 10).average([0.5], 0, psi, 0);
+    features.evaluate([0.5, 1], 0, phi, 0);
+    expect(Array.from(psi)).toEqual(Array.from(phi));
+  });
+
   it('a rate limit of 0.002 under a dither of 300 (75 action scales), degree 6: the quadrature\'s numbers', () => {
     const policy = createGaussianPolicy({ offset: [45], gain: [[2, -1, 0]], std: [300], rateLimit: { previousActionState: [2], maxStep: [0.002] } }, 3);
     const features = createFeatureMap(polynomialFeatureSpec(standardiser, 6));
