@@ -22,7 +22,7 @@
  */
 import { createActionQuadrature, meanAt, type ActionQuadrature } from '../actionQuadrature';
 import { actionLimitsAt, actionStd, limitModeOf, type GaussianPolicy } from '../policy';
-import { createBoundedNormalQuadrature } from '../quadrature/boundedNormal';
+import { createBoundedNormalQuadrature, type BoundedNormalQuadrature } from '../quadrature/boundedNormal';
 import { clippedGaussianMoments, gaussianMoments, MAX_MOMENT_DEGREE } from './actionMoments';
 import type { FeatureMap, PolynomialFeatureSpec } from './featureMap';
 import { monomialBasis } from './monomials';
@@ -135,9 +135,11 @@ function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPo
  */
 function clippedMomentRow(n: number, degree: number) {
   const width = degree + 1, partial = new Float64Array(width), magnitude = new Float64Array(width);
-  const rule = createBoundedNormalQuadrature(n), nodes = new Float64Array(rule.maxPoints), weights = new Float64Array(rule.maxPoints);
+  const nodes = new Float64Array(n + 2), weights = new Float64Array(n + 2);
+  let rule: BoundedNormalQuadrature | null = null; // built the first time the closed form is not trusted
   return (mean: number, std: number, lo: number, hi: number, centre: number, scale: number, row: Float64Array): void => {
     if (clippedGaussianMoments(mean, std, lo, hi, centre, scale, degree, row, partial, magnitude)) return;
+    rule ??= createBoundedNormalQuadrature(n);
     const count = rule.fill(mean, std, lo, hi, 'clip', nodes, weights);
     row.fill(0, 0, width);
     for (let j = 0; j < count; j++) {
