@@ -19,8 +19,9 @@
  * of Numerical Algorithms", 2nd ed., §4.2). Where the dither is far wider than the band between
  * the limits (τ large, β − α small) those terms are huge and cancel to a sliver of probability,
  * and E z^k loses many digits (σ = 1000 on limits ±1: 1e−4 at k = 4). clippedGaussianMoments
- * bounds that error and reports whether the result is good to CLIPPED_MOMENT_TOLERANCE of
- * max(1, |E z^k|); where it is not, the caller takes the moments from a Gauss rule instead.
+ * bounds that error and reports how many leading moments are good to CLIPPED_MOMENT_TOLERANCE of
+ * max(1, |E z^k|); the caller takes the rest from a Gauss rule. The count depends on k alone, not
+ * on the degree asked for, so a lower degree's moments are a higher degree's leading ones.
  *
  * out: K+1 values.
  */
@@ -49,24 +50,24 @@ export function gaussianMoments(mean: number, std: number, centre: number, scale
 
 /**
  * Clipped to [lo, hi] (either may be infinite, lo ≤ hi): E[((a − c)/h)^k] for k = 0..degree into out.
- * Returns false where the rounding bound above exceeds CLIPPED_MOMENT_TOLERANCE·max(1, |out[k]|)
- * for some k (out is then not to be used). partial, magnitude: degree + 1 each, scratch.
+ * Returns the count t of leading moments k < t whose rounding bound above is within
+ * CLIPPED_MOMENT_TOLERANCE·max(1, |out[k]|) (degree + 1 when all are; out[t..] are not to be
+ * used). partial, magnitude: degree + 1 each, scratch.
  */
 export function clippedGaussianMoments(
   mean: number, std: number, lo: number, hi: number, centre: number, scale: number, degree: number, out: Float64Array, partial: Float64Array,
   magnitude: Float64Array = new Float64Array(degree + 1),
-): boolean {
+): number {
   if (lo === hi) {
     const z = (lo - centre) / scale;
     for (let k = 0; k <= degree; k++) out[k] = z ** k;
-    return true;
+    return degree + 1;
   }
   const alpha = (lo - mean) / std, beta = (hi - mean) / std;
   partialNormalMoments(alpha, beta, degree, partial, magnitude);
   const u = (mean - centre) / scale, tau = std / scale;
   const massLo = Number.isFinite(lo) ? normalCdf(alpha) : 0, massHi = Number.isFinite(hi) ? normalSurvival(beta) : 0;
   const zLo = (lo - centre) / scale, zHi = (hi - centre) / scale;
-  let accurate = true;
   for (let k = 0; k <= degree; k++) {
     let s = 0, size = 0;
     for (let l = 0; l <= k; l++) {
@@ -78,18 +79,20 @@ export function clippedGaussianMoments(
     if (massHi > 0) s += massHi * zHi ** k;
     out[k] = s;
     // (2k + 4)·ε·size: k + 1 additions here, up to k + 2 in the recursion for I_k, and I_0 itself.
-    if (!((2 * k + 4) * Number.EPSILON * size <= CLIPPED_MOMENT_TOLERANCE * Math.max(1, Math.abs(s)))) accurate = false;
+    if (!((2 * k + 4) * Number.EPSILON * size <= CLIPPED_MOMENT_TOLERANCE * Math.max(1, Math.abs(s)))) return k;
   }
-  return accurate;
+  return degree + 1;
 }
 
 /**
  * I_l = ∫_α^β ξ^l φ(ξ) dξ for l = 0..degree (α < β, either infinite) into out, and into magnitude
- * B_l ≥ |I_l|, the sum of the magnitudes the recursion added to form it.
+ * B_l ≥ |I_l|, the sum of the magnitudes that went into it (for I_0, the tail probabilities).
  */
 function partialNormalMoments(alpha: number, beta: number, degree: number, out: Float64Array, magnitude: Float64Array): void {
   const phiA = Number.isFinite(alpha) ? normalDensity(alpha) : 0, phiB = Number.isFinite(beta) ? normalDensity(beta) : 0;
-  out[0] = magnitude[0] = normalIntervalProbability(alpha, beta);
+  out[0] = normalIntervalProbability(alpha, beta);
+  // It is a difference of two tail probabilities (normalDistribution.ts), so its error scales with the larger one.
+  magnitude[0] = alpha >= 0 ? normalSurvival(alpha) : beta <= 0 ? normalCdf(beta) : 1;
   if (degree >= 1) {
     out[1] = phiA - phiB;
     magnitude[1] = phiA + phiB;

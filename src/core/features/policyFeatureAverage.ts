@@ -128,23 +128,25 @@ function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPo
 }
 
 /**
- * One clipped action dimension's E z^k, k = 0..degree, into row: the closed form where it keeps its
- * digits (clippedGaussianMoments), else Σ_j ω_j z_j^k over the dimension's own bounded-normal rule
- * with the quadrature's n nodes — the factor the tensor rule gives this dimension, exact for
- * degree ≤ 2n − 1 like the closed form.
+ * One clipped action dimension's E z^k, k = 0..degree, into row: the closed form for the leading
+ * moments that keep their digits (clippedGaussianMoments), the rest as Σ_j ω_j z_j^k over the
+ * dimension's own bounded-normal rule with the quadrature's n nodes — the factor the tensor rule
+ * gives this dimension, exact for degree ≤ 2n − 1 like the closed form. Which moment takes which
+ * route depends on k alone, so a lower degree's row is a higher degree's leading part to the bit.
  */
 function clippedMomentRow(n: number, degree: number) {
   const width = degree + 1, partial = new Float64Array(width), magnitude = new Float64Array(width);
   const nodes = new Float64Array(n + 2), weights = new Float64Array(n + 2);
   let rule: BoundedNormalQuadrature | null = null; // built the first time the closed form is not trusted
   return (mean: number, std: number, lo: number, hi: number, centre: number, scale: number, row: Float64Array): void => {
-    if (clippedGaussianMoments(mean, std, lo, hi, centre, scale, degree, row, partial, magnitude)) return;
+    const trusted = clippedGaussianMoments(mean, std, lo, hi, centre, scale, degree, row, partial, magnitude);
+    if (trusted > degree) return;
     rule ??= createBoundedNormalQuadrature(n);
     const count = rule.fill(mean, std, lo, hi, 'clip', nodes, weights);
-    row.fill(0, 0, width);
+    row.fill(0, trusted, width);
     for (let j = 0; j < count; j++) {
       const z = (nodes[j] - centre) / scale;
-      for (let k = 0, p = weights[j]; k <= degree; k++, p *= z) row[k] += p;
+      for (let k = 0, p = weights[j]; k <= degree; k++, p *= z) if (k >= trusted) row[k] += p;
     }
   };
 }
