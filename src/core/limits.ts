@@ -38,7 +38,8 @@ export const MAX_QUADRATURE_POINTS = 4096;
  * taken in closed form (actionMoments.ts); above it (a dither far wider than the band between the
  * limits, whose interior terms cancel) the bounded-normal rule gives them. Ours: the bound runs
  * 10–100× above the error measured against that rule, so 1e−11 keeps the closed form to about
- * 1e−12 and for every dither up to the logged actions' spread (τ ≤ 1, degree ≤ 6).
+ * 1e−12, and in closed form for every dither up to the logged actions' spread (τ ≤ 1, degree ≤ 6,
+ * on a grid of means and limits).
  */
 export const CLIPPED_MOMENT_TOLERANCE = 1e-11;
 

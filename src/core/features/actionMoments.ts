@@ -16,7 +16,7 @@
  * Rounding: the upward recursion and the binomial sum add terms of either sign, so the error of
  * the interior part is about ε·Σ_l C(k, l) |u|^{k−l} τ^l B_l, with B_l the sum of the magnitudes
  * that went into I_l (common practice for error bounds of sums; Higham, "Accuracy and Stability
- * of Numerical Algorithms", 2nd ed., §4.2). Where the dither is far wider than the band between
+ * of Numerical Algorithms", 2nd ed., ch. 4; section from memory). Where the dither is far wider than the band between
  * the limits (τ large, β − α small) those terms are huge and cancel to a sliver of probability,
  * and E z^k loses many digits (σ = 1000 on limits ±1: 1e−4 at k = 4). clippedGaussianMoments
  * bounds that error and reports how many leading moments are good to CLIPPED_MOMENT_TOLERANCE of
