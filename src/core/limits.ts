@@ -33,6 +33,15 @@ export const DEFAULT_QUADRATURE_NODES = 10;
  * in each of three actions).
  */
 export const MAX_QUADRATURE_POINTS = 4096;
+/**
+ * Largest rounding-error bound, relative to max(1, |E z^k|), at which a clipped action's moments are
+ * taken in closed form (actionMoments.ts); above it (a dither far wider than the band between the
+ * limits, whose interior terms cancel) the bounded-normal rule gives them. Ours: the bound runs
+ * 10–100× above the error measured against that rule, so 1e−11 keeps the closed form to about
+ * 1e−12, and in closed form for every dither up to the logged actions' spread (τ ≤ 1, degree ≤ 6,
+ * on a grid of means and limits).
+ */
+export const CLIPPED_MOMENT_TOLERANCE = 1e-11;
 
 /** Candidates per project (each is a fit and, in the assessment, a series of resamples; ours). */
 export const MAX_CANDIDATES = 100;

@@ -147,7 +147,7 @@ function usedRanges(d: number): Int32Array {
   return Int32Array.from(out);
 }
 
-/** Each episode's sums of the first k features (leadingSums in bellmanStatistics.ts): a pass with the smaller nested map, to the last bit. */
+/** Each episode's sums of the first k features (leadingSums in bellmanStatistics.ts): a pass with the smaller nested map, to the last bit, where both maps take the same route to E_{a~π} φ (policyFeatureAverage.ts averageRoute). */
 export function leadingEpisodeSums(sums: EpisodeBellmanSums, k: number): EpisodeBellmanSums {
   const stride = bellmanSumsStride(k), out = new Float64Array(sums.episodes * stride);
   for (let e = 0; e < sums.episodes; e++) leadingSums(sums.sums, e * sums.stride, sums.dim, out, e * stride, k);

@@ -61,13 +61,20 @@ export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: 
   return linearFqeReplicateBlock(setup, [multiplicities], [scratch])[0];
 }
 
-/** linearFqeReplicate on a block of resamples, their statistics formed in one read of the sums (resampleBellmanStatisticsBlock); the same numbers. */
+/**
+ * linearFqeReplicate on a block of resamples, their statistics formed in one read of the sums
+ * (resampleBellmanStatisticsBlock); the same numbers. A resample without start states is answered
+ * before any statistics are formed, as one at a time.
+ */
 export function linearFqeReplicateBlock(setup: LinearReplicateSetup, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[]): LinearReplicate[] {
-  const stats = resampleBellmanStatisticsBlock(setup.sums, block, scratch);
-  return block.map((multiplicities, r) => {
-    const startWeights = setup.startsFollowEpisodes ? startMultiplicities(multiplicities, setup.startEpisode) : undefined;
-    if (startWeights && !holdsStartState(startWeights)) return { policyValue: null, weights: null, status: 'noStartStates' };
-    return solveReplicate(setup, stats[r], meanStartFeatures(setup.startFeatures, setup.sums.dim, startWeights));
+  const startWeights = block.map((c) => (setup.startsFollowEpisodes ? startMultiplicities(c, setup.startEpisode) : undefined));
+  const solved = block.filter((_, r) => !startWeights[r] || holdsStartState(startWeights[r]!));
+  const stats = resampleBellmanStatisticsBlock(setup.sums, solved, scratch);
+  let next = 0;
+  return block.map((_, r): LinearReplicate => {
+    const w = startWeights[r];
+    if (w && !holdsStartState(w)) return { policyValue: null, weights: null, status: 'noStartStates' };
+    return solveReplicate(setup, stats[next++], meanStartFeatures(setup.startFeatures, setup.sums.dim, w));
   });
 }
 

@@ -8,7 +8,9 @@
  *     standardised action, so by independence of the action dimensions
  *       ψ_j(s) = S_j(s) · Π_i E[z_i^{k_ij}],
  *     the moments in closed form (actionMoments.ts). Cost per state O(d + m·K²) instead of
- *     O(nodes^m · d).
+ *     O(nodes^m · d). Where a clipped dimension's closed form would lose digits (a dither far
+ *     wider than the band between its limits), that dimension's moments come from its own
+ *     bounded-normal rule instead (clippedMomentRow): still one factor per dimension.
  * The moment route is taken only where the quadrature is itself exact for the features (its
  * n nodes per dimension integrate degree ≤ 2n − 1, and the feature degree is at most that) and
  * the action law has independent dimensions without truncation; so every pass — the fit's data
@@ -20,6 +22,7 @@
  */
 import { createActionQuadrature, meanAt, type ActionQuadrature } from '../actionQuadrature';
 import { actionLimitsAt, actionStd, limitModeOf, type GaussianPolicy } from '../policy';
+import { createBoundedNormalQuadrature, type BoundedNormalQuadrature } from '../quadrature/boundedNormal';
 import { clippedGaussianMoments, gaussianMoments, MAX_MOMENT_DEGREE } from './actionMoments';
 import type { FeatureMap, PolynomialFeatureSpec } from './featureMap';
 import { monomialBasis } from './monomials';
@@ -38,9 +41,15 @@ export function createPolicyFeatureAverage(features: FeatureMap, policy: Gaussia
 
 /** ψ for the policy and rule a quadrature was built for: the moment route where it applies, else that quadrature. */
 export function averageForQuadrature(features: FeatureMap, quadrature: ActionQuadrature): PolicyFeatureAverage {
-  const spec = features.polynomial, { policy } = quadrature;
-  if (spec && momentRouteApplies(spec, policy, quadrature.nodesPerDimension)) return momentAverage(spec, policy);
+  const spec = features.polynomial;
+  if (spec && averageRoute(features, quadrature) === 'moments') return momentAverage(spec, quadrature.policy, quadrature.nodesPerDimension);
   return quadratureRoute(features, quadrature);
+}
+
+/** The route averageForQuadrature takes for these features and rule (the two agree to rounding only, so passes to be equal to the last bit must share it). */
+export function averageRoute(features: FeatureMap, quadrature: ActionQuadrature): AverageRoute {
+  const spec = features.polynomial;
+  return spec && momentRouteApplies(spec, quadrature.policy, quadrature.nodesPerDimension) ? 'moments' : 'quadrature';
 }
 
 /** True when the closed-form moments reproduce the quadrature exactly (see above). */
@@ -79,15 +88,15 @@ function quadratureRoute(features: FeatureMap, quadrature: ActionQuadrature): Po
   };
 }
 
-function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPolicy): PolicyFeatureAverage {
+function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPolicy, nodes: number): PolicyFeatureAverage {
   const ds = policy.stateDim, m = policy.actionDim, n = ds + m, degree = spec.degree, width = degree + 1;
   const { mean: centre, scale } = spec.standardiser;
   const { size: d, parent, variable, exponents } = monomialBasis(n, degree);
   const { keys, keyOf } = actionExponentKeys(exponents, d, ds, m), keyCount = keys.length / m;
   const stateFactor = new Float64Array(d), z = new Float64Array(ds + 1), mu = new Float64Array(m);
-  const lo = new Float64Array(m), hi = new Float64Array(m), partial = new Float64Array(width), limited = limitModeOf(policy) !== null;
+  const lo = new Float64Array(m), hi = new Float64Array(m), limited = limitModeOf(policy) !== null;
   const moments = new Float64Array(m * width), product = new Float64Array(keyCount), row = new Float64Array(width);
-  const std = Array.from({ length: m }, (_, i) => actionStd(policy, i));
+  const std = Array.from({ length: m }, (_, i) => actionStd(policy, i)), clipped = limited ? clippedMomentRow(nodes, degree) : null;
   // z[v] for a state variable v; z[ds] = 1 stands for every action variable in the state factors.
   const factorOf = Int32Array.from(variable, (v) => (v < ds ? v : ds));
   z[ds] = 1;
@@ -100,7 +109,7 @@ function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPo
       for (let i = 0; i < m; i++) {
         const c = centre[ds + i], h = scale[ds + i];
         if (mode === null) gaussianMoments(mu[i], std[i], c, h, degree, row);
-        else clippedGaussianMoments(mu[i], std[i], lo[i], hi[i], c, h, degree, row, partial);
+        else clipped!(mu[i], std[i], lo[i], hi[i], c, h, row);
         moments.set(row, i * width);
       }
       for (let k = 0; k < keyCount; k++) {
@@ -115,6 +124,30 @@ function momentAverage(spec: Readonly<PolynomialFeatureSpec>, policy: GaussianPo
         out[outOffset + j] = stateFactor[j] * product[keyOf[j]];
       }
     },
+  };
+}
+
+/**
+ * One clipped action dimension's E z^k, k = 0..degree, into row: the closed form for the leading
+ * moments that keep their digits (clippedGaussianMoments), the rest as Σ_j ω_j z_j^k over the
+ * dimension's own bounded-normal rule with the quadrature's n nodes — the factor the tensor rule
+ * gives this dimension, exact for degree ≤ 2n − 1 like the closed form. Which moment takes which
+ * route depends on k alone, so a lower degree's row is a higher degree's leading part to the bit.
+ */
+function clippedMomentRow(n: number, degree: number) {
+  const width = degree + 1, partial = new Float64Array(width), magnitude = new Float64Array(width);
+  const nodes = new Float64Array(n + 2), weights = new Float64Array(n + 2);
+  let rule: BoundedNormalQuadrature | null = null; // built the first time the closed form is not trusted
+  return (mean: number, std: number, lo: number, hi: number, centre: number, scale: number, row: Float64Array): void => {
+    const trusted = clippedGaussianMoments(mean, std, lo, hi, centre, scale, degree, row, partial, magnitude);
+    if (trusted > degree) return;
+    rule ??= createBoundedNormalQuadrature(n);
+    const count = rule.fill(mean, std, lo, hi, 'clip', nodes, weights);
+    row.fill(0, trusted, width);
+    for (let j = 0; j < count; j++) {
+      const z = (nodes[j] - centre) / scale;
+      for (let k = 0, p = weights[j]; k <= degree; k++, p *= z) if (k >= trusted) row[k] += p;
+    }
   };
 }
 

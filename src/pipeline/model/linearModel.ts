@@ -19,6 +19,7 @@ import { episodeBellmanSumsSteps, leadingEpisodeSums, resampleBellmanStatistics,
 import { unitMultiplicities } from '../../core/bootstrap/episodeMultiplicities';
 import { linearisedReplicatesFromSums, linearisedReplicatesSteps } from '../../core/bootstrap/linearisedReplicate';
 import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, type PassSteps } from '../../core/fqe/cancellation';
+import { averageRoute } from '../../core/features/policyFeatureAverage';
 import { startStateFeatures } from '../../core/features/policyFeatures';
 import { bellmanStatisticsSteps, bellmanSumsStride, blockRowsFor, leadingStatistics, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
 import { solveLinearFqe } from '../../core/fqe/linearFqeSolve';
@@ -125,12 +126,15 @@ function passRoute(plan: EvaluationPlan, d: number): 'exact' | 'episodes' | 'who
 /**
  * The statistics of a polynomial map read off an enclosing model's (a higher degree on the same
  * standardised inputs, so these monomials lead; leadingStatistics), when its pass is the one this
- * map would make: the same route (total or per episode, by MAX_EXACT_RESAMPLE_VALUES) and the same
- * rows per block. Then they are this map's own pass to the last bit; else null (make the pass).
+ * map would make: the same route (total or per episode, by MAX_EXACT_RESAMPLE_VALUES), the same
+ * rows per block and the same route to the expected next features (averageRoute). Then they are
+ * this map's own pass to the last bit; else null (make the pass).
  */
 function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, enclosing: CandidateModel): PassResult | null {
   const outer = enclosing.linear, k = features.dim;
   if (!outer || !leadsIn(features, outer.features) || blockRowsFor(k) !== blockRowsFor(outer.features.dim)) return null;
+  // The same route to E_{a~π} φ (closed-form moments serve degrees ≤ 2n − 1 only; the two routes agree to rounding, not to the bit).
+  if (averageRoute(features, quadrature) !== averageRoute(outer.features, enclosing.quadrature)) return null;
   const route = passRoute(plan, k);
   if (route === 'episodes') return null; // its own pass keeps per-episode sums that no enclosing model keeps
   if (route === 'whole') {

@@ -98,4 +98,13 @@ describe('the fast linear bootstrap replicate', () => {
     const replicates = linearFqeReplicateBlock(base, block, scratch);
     block.forEach((c, r) => expect(replicates[r]).toEqual(linearFqeReplicate(base, c)));
   });
+
+  it('answers "no start states" for a resample without any, before its statistics are formed, alone or in a block (as one at a time did)', () => {
+    const none = new Uint32Array(data.episodeCount), drawn = episodeMultiplicities(data.episodeCount, 9, 0);
+    expect(linearFqeReplicate(base, none)).toEqual({ policyValue: null, weights: null, status: 'noStartStates' });
+    const scratch = [0, 1].map(() => new Float64Array(sums.stride));
+    const [first, second] = linearFqeReplicateBlock(base, [none, drawn], scratch);
+    expect(first.status).toBe('noStartStates');
+    expect(second).toEqual(linearFqeReplicate(base, drawn));
+  });
 });

@@ -47,7 +47,7 @@ describe('policy-averaged features: moments against quadrature', () => {
   it('clipped moments agree with a brute-force rule from the definitions', () => {
     const out = new Float64Array(7), partial = new Float64Array(7);
     for (const [mean, lo, hi] of [[10, 8, 13], [10, -Infinity, 9], [10, 12, Infinity], [0, -0.5, 0.5]]) {
-      clippedGaussianMoments(mean, 2, lo, hi, 9, 3, 6, out, partial);
+      expect(clippedGaussianMoments(mean, 2, lo, hi, 9, 3, 6, out, partial)).toBe(7);
       for (let k = 0; k <= 6; k++) {
         const reference = bruteForceExpectation((a) => ((a - 9) / 3) ** k, mean, 2, lo, hi, 'clip');
         expect(out[k]).toBeCloseTo(reference, 9);
@@ -66,5 +66,55 @@ describe('normal raw moments', () => {
     const out = new Float64Array(7), centre = 0.7, scale = 2.5;
     gaussianMoments(mu, s, centre, scale, 6, out);
     raw((mu - centre) / scale, s / scale).forEach((v, k) => expect(out[k]).toBeCloseTo(v, 12));
+  });
+});
+
+describe('clipped moments where the dither is far wider than the band between the limits', () => {
+  // The band holds a sliver of the normal's mass, so the interior terms of the binomial sum are huge
+  // and cancel; the moments must still be those of the censored normal (the rule serves there).
+  // Reference: E z^k = Φ(α) z_L^k + (1 − Φ(β)) z_U^k + ∫_L^U z(a)^k N(a; μ, σ²) da, evaluated with
+  // mpmath 1.3 (ncdf, npdf, quad) at 50 digits, z = a here (centre 0, scale 1).
+  const censored: [number, number[]][] = [
+    [0, [1, 0, 0.99946807701265705, 0, 0.9993616924273467]],
+    [1000, [1, 0.68268941148018579, 0.99967737236730781, 0.68268934695466847, 0.99961284684076937]],
+  ];
+  it.each(censored)('mean %d, σ = 1000, limits ±1', (mean, reference) => {
+    const features = createFeatureMap(polynomialFeatureSpec({ mean: [0, 0], scale: [1, 1] }, 4));
+    const policy = createGaussianPolicy({ offset: [mean], gain: [[0]], std: [1000], bounds: { lo: [-1], hi: [1], mode: 'clip' } }, 1);
+    const average = createPolicyFeatureAverage(features, policy, 10);
+    expect(average.route).toBe('moments');
+    const psi = new Float64Array(features.dim), phi = new Float64Array(features.dim);
+    average.average([0], 0, psi, 0);
+    features.evaluate([0, 2], 0, phi, 0); // at s = 0 only the powers a^k are non-zero: 2^k marks a^k
+    for (let k = 0; k <= 4; k++) expect(Math.abs(psi[phi.indexOf(2 ** k)] - reference[k])).toBeLessThan(1e-12);
+  });
+
+  it('the closed form says from which moment on it cannot be trusted', () => {
+    const out = new Float64Array(5), partial = new Float64Array(5);
+    expect(clippedGaussianMoments(0, 1000, -1, 1, 0, 1, 4, out, partial)).toBeLessThan(5);
+    expect(clippedGaussianMoments(0, 1, -1, 1, 0, 1, 4, out, partial)).toBe(5);
+  });
+
+  it('a mean far beyond a limit (1e200, finite) gives the limit\'s features, as the rule does (the closed form made 0·∞ = NaN)', () => {
+    // Clipping puts all the mass at U = 1 (censored normal, definition): E z^k = 1 for every k.
+    const features = createFeatureMap(polynomialFeatureSpec({ mean: [0, 0], scale: [1, 1] }, 2));
+    const policy = createGaussianPolicy({ offset: [1e200], gain: [[0]], std: [1], bounds: { lo: [-1], hi: [1], mode: 'clip' } }, 1);
+    const psi = new Float64Array(features.dim), phi = new Float64Array(features.dim);
+    createPolicyFeatureAverage(features, policy, 10).average([0.5], 0, psi, 0);
+    features.evaluate([0.5, 1], 0, phi, 0);
+    expect(Array.from(psi)).toEqual(Array.from(phi));
+  });
+
+  it('a rate limit of 0.002 under a dither of 300 (75 action scales), degree 6: the quadrature\'s numbers', () => {
+    const policy = createGaussianPolicy({ offset: [45], gain: [[2, -1, 0]], std: [300], rateLimit: { previousActionState: [2], maxStep: [0.002] } }, 3);
+    const features = createFeatureMap(polynomialFeatureSpec(standardiser, 6));
+    const moments = createPolicyFeatureAverage(features, policy, 10), nodes = quadratureAverage(features, policy, 10);
+    expect(moments.route).toBe('moments');
+    for (const s of [[1.2, -3, 48], [0.4, 0, 52], [1.8, 4.9, 30], [1, -7, 60]]) {
+      const a = new Float64Array(features.dim), b = new Float64Array(features.dim);
+      moments.average(s, 0, a, 0);
+      nodes.average(s, 0, b, 0);
+      for (let j = 0; j < features.dim; j++) expect(Math.abs(a[j] - b[j])).toBeLessThan(1e-11 * Math.max(1, Math.abs(b[j])));
+    }
   });
 });

@@ -61,4 +61,13 @@ describe('accumulateBellmanStatistics', () => {
       expect(perEpisode).toEqual(episodeBellmanSums(data, small, quadrature, {}, index));
     }
   });
+
+  it('the same for a clipped candidate whose dither is far wider than its limits (where some of its closed-form moments give way to the rule)', () => {
+    const spec = fitStateActionStandardiser(data).spec;
+    const wide = createActionQuadrature(createGaussianPolicy({ offset: [0.1], gain: [[-0.5, -0.2]], std: [60], bounds: { lo: [-0.5], hi: [0.6], mode: 'clip' } }, 2), 6);
+    for (const [low, high] of [[2, 4], [3, 4], [2, 3]]) {
+      const small = createFeatureMap(polynomialFeatureSpec(spec, low)), large = createFeatureMap(polynomialFeatureSpec(spec, high));
+      expect(leadingStatistics(accumulateBellmanStatistics(data, large, wide), small.dim)).toEqual(accumulateBellmanStatistics(data, small, wide));
+    }
+  });
 });
