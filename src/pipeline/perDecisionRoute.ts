@@ -39,8 +39,8 @@ export interface PerDecisionRoute {
   close(): void;
 }
 
-export const ONE_THREAD_NOTE = 'the resamples on one thread';
-export const HELPER_THREAD_NOTE = 'the per-decision cross-checks’ resamples on a second thread, the other estimators on the first';
+export const ONE_THREAD_NOTE = 'one thread for the resamples';
+export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks on the second';
 
 export function openPerDecisionRoute(
   data: readonly PerDecisionData[], job: Omit<PerDecisionJob, 'entries'>, helper: ResampleHelper | undefined,

@@ -9,7 +9,7 @@
  */
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
-import { describe, expect, it } from 'vitest';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { EXIT } from '../../src/cli/exitStatus';
 import { evaluateProjectFile } from '../../src/cli/evaluateProjectFile';
 import { helperThread } from '../../src/cli/helperThread';
@@ -22,11 +22,11 @@ import { RESAMPLE_BLOCK } from '../../src/core/offPolicy/perDecisionResamples';
 import { createGaussianPolicy } from '../../src/core/policy';
 import type { TransitionSet } from '../../src/core/transitions';
 import { assessRun } from '../../src/pipeline/assessProject';
-import { assessmentSettingsFor } from '../../src/pipeline/assessSettings';
+import { assessmentSettingsFor, type AssessmentSettings } from '../../src/pipeline/assessSettings';
 import { drawBlock, perDecisionBlocks, type PerDecisionOutcome } from '../../src/pipeline/perDecisionBlocks';
 import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, type HelperFeed, type ResampleHelper } from '../../src/pipeline/perDecisionRoute';
 import { openProject } from '../../src/pipeline/openProject';
-import { CANCELLED_PROBLEM, startRun } from '../../src/pipeline/projectRun';
+import { CANCELLED_PROBLEM, startRun, type ProjectRun } from '../../src/pipeline/projectRun';
 import { simulateLog, type TestController } from '../core/linearGaussianPlant';
 import { candidateFamily, cascadeLogging, cascadePlant, startLaws } from '../core/testPlants';
 
@@ -128,22 +128,39 @@ describe('the per-decision resamples on the helper thread', () => {
 const tank = join(__dirname, '..', '..', 'sample-projects', 'tank-levels', 'tank-levels.spcritic');
 
 describe('the assessment with the CLI’s helper thread', () => {
-  it('gives the same assessment as one thread on the tank-levels sample, and says which route ran', async () => {
+  let run: ProjectRun, settings: AssessmentSettings;
+  beforeAll(async () => {
     const opened = await openProject(await readFile(tank, 'utf8'), 'tank-levels.spcritic', async (p) => new Uint8Array(await readFile(join(tank, '..', p))));
     if (!opened.ok) throw new Error(opened.problems.map((p) => p.message).join('\n'));
-    const settings = assessmentSettingsFor(opened.value.project, { resamples: 60 });
-    const run = await startRun(opened.value.project, opened.value.dataset);
-    if (!settings.ok || !run.ok) throw new Error('setup failed');
-    try {
-      const one = await assessRun(run.value, { settings: settings.value });
-      const two = await assessRun(run.value, { settings: settings.value, helper: helperThread() });
-      if (!one.ok || !two.ok) throw new Error('assessment failed');
-      expect(one.value.settings.threads).toBe(ONE_THREAD_NOTE);
-      expect(two.value.settings.threads).toBe(HELPER_THREAD_NOTE);
-      expect({ ...two.value, settings: { ...two.value.settings, threads: '' } }).toEqual({ ...one.value, settings: { ...one.value.settings, threads: '' } });
-    } finally {
-      run.value.dispose();
-    }
+    const chosen = assessmentSettingsFor(opened.value.project, { resamples: 60 }), started = await startRun(opened.value.project, opened.value.dataset);
+    if (!chosen.ok || !started.ok) throw new Error('setup failed');
+    [run, settings] = [started.value, { ...chosen.value, sensitivity: false }]; // the sweep does not resample
+  });
+  afterAll(() => run?.dispose());
+
+  it('gives the same assessment as one thread on the tank-levels sample, and says which route ran', async () => {
+    const one = await assessRun(run, { settings });
+    const two = await assessRun(run, { settings, helper: helperThread() });
+    if (!one.ok || !two.ok) throw new Error('assessment failed');
+    expect(one.value.settings.threads).toBe(ONE_THREAD_NOTE);
+    expect(two.value.settings.threads).toBe(HELPER_THREAD_NOTE);
+    expect({ ...two.value, settings: { ...two.value.settings, threads: '' } }).toEqual({ ...one.value, settings: { ...one.value.settings, threads: '' } });
+  });
+
+  it('closes the helper thread when the run stops, as when it ends', async () => {
+    const real = helperThread();
+    let closed = 0, stop = false;
+    const counting: ResampleHelper = { start: (given) => { const feed = real.start(given); return { next: () => feed.next(), close: () => { closed++; feed.close(); } }; } };
+    const stopped = await assessRun(run, {
+      settings: { ...settings, resamples: 5000 }, helper: counting, cancel: () => stop,
+      onProgress: (p) => { if (p.stage === 'resampling' && p.done > 0) stop = true; },
+    });
+    expect(stopped.ok).toBe(false);
+    if (!stopped.ok) expect(stopped.problems).toEqual([CANCELLED_PROBLEM]);
+    expect(closed).toBe(1);
+    const ended = await assessRun(run, { settings, helper: counting });
+    expect(ended.ok).toBe(true);
+    expect(closed).toBe(2);
   });
 
   it('ends with exit 130 and the cancelled message on a stop request during the resamples', async () => {
@@ -165,30 +182,5 @@ describe('the assessment with the CLI’s helper thread', () => {
     expect(result.failure.exitCode).toBe(EXIT.cancelled);
     expect(result.failure.message).toBe('Cancelled (Ctrl+C): no results were written.');
     expect(resampled[resampled.length - 1]).toBeLessThan(5000);
-  });
-
-  it('closes the helper thread when the run stops, as when it ends', async () => {
-    const opened = await openProject(await readFile(tank, 'utf8'), 'tank-levels.spcritic', async (p) => new Uint8Array(await readFile(join(tank, '..', p))));
-    if (!opened.ok) throw new Error('open failed');
-    const settings = assessmentSettingsFor(opened.value.project, { resamples: 5000 });
-    const run = await startRun(opened.value.project, opened.value.dataset);
-    if (!settings.ok || !run.ok) throw new Error('setup failed');
-    const real = helperThread();
-    let closed = 0, stop = false;
-    const counting: ResampleHelper = { start: (given) => { const feed = real.start(given); return { next: () => feed.next(), close: () => { closed++; feed.close(); } }; } };
-    try {
-      const stopped = await assessRun(run.value, {
-        settings: settings.value, helper: counting, cancel: () => stop,
-        onProgress: (p) => { if (p.stage === 'resampling' && p.done > 0) stop = true; },
-      });
-      expect(stopped.ok).toBe(false);
-      if (!stopped.ok) expect(stopped.problems).toEqual([CANCELLED_PROBLEM]);
-      expect(closed).toBe(1);
-      const ended = await assessRun(run.value, { settings: { ...settings.value, resamples: 40 }, helper: counting });
-      expect(ended.ok).toBe(true);
-      expect(closed).toBe(2);
-    } finally {
-      run.value.dispose();
-    }
   });
 });
