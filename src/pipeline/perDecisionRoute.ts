@@ -67,7 +67,7 @@ export function openPerDecisionRoute(
       if (feed) {
         const answer = await feed.next();
         if ('stopped' in answer) keepToOwn(answer.stopped, first);
-        else if (answer.first !== first || answer.outcomes.length !== data.length) keepToOwn(`answered out of turn (resample ${answer.first + 1})`, first);
+        else if (!answersBlock(answer, first, data.length, drawn.length)) keepToOwn(`answered out of turn (resample ${answer.first + 1})`, first);
         else return answer.outcomes.map((row) => row.map(receiveOutcome));
       }
       return perDecisionBlock(ownJob(), drawn);
@@ -80,4 +80,9 @@ export function openPerDecisionRoute(
       feed = null;
     },
   };
+}
+
+/** The answer is the block asked for: its first resample, one row per data, one outcome per resample drawn. */
+function answersBlock(answer: SentBlock, first: number, rows: number, count: number): boolean {
+  return answer.first === first && answer.outcomes.length === rows && answer.outcomes.every((row) => row.length === count);
 }
