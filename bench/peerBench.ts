@@ -4,12 +4,14 @@
  * closed form, grid) against Setpoint Critic's whole `evaluate` (import, fit, surface, and the
  * assessment with the default 1,000 bootstrap resamples, cross-checks, diagnostics, sensitivity),
  * both as fresh processes, wall clock. The CSV comes from the peer's own generator
- * (make_lq_dataset.py, seed 0). Also prints our phases from an in-process run. Printed, never asserted.
+ * (make_lq_dataset.py, seed 0). Also prints our phases from an in-process run, the assessment with
+ * the CLI's helper thread (as `evaluate` runs it) and again on one thread. Printed, never asserted.
  */
 import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
+import { helperThread } from '../src/cli/helperThread';
 import { assessRun } from '../src/pipeline/assessProject';
 import { assessmentSettingsFor } from '../src/pipeline/assessSettings';
 import { evaluationOf } from '../src/pipeline/evaluateProject';
@@ -60,7 +62,7 @@ export async function runPeerBench(n: number, pairs = 2): Promise<Record<string,
   };
 }
 
-async function inProcessPhases(projectPath: string): Promise<Record<string, number>> {
+async function inProcessPhases(projectPath: string): Promise<Record<string, number | string>> {
   const folder = resolve(projectPath, '..');
   let t = process.hrtime.bigint();
   const opened = await openProject(await readFile(projectPath, 'utf8'), 'peer.spcritic', async (p) => new Uint8Array(await readFile(join(folder, p))));
@@ -74,9 +76,16 @@ async function inProcessPhases(projectPath: string): Promise<Record<string, numb
   t = process.hrtime.bigint();
   const settings = assessmentSettingsFor(opened.value.project);
   if (!settings.ok) throw new Error('settings');
-  const assessment = await assessRun(run.value, { settings: settings.value });
+  const assessment = await assessRun(run.value, { settings: settings.value, helper: helperThread() });
   const assessSeconds = seconds(t);
+  t = process.hrtime.bigint();
+  const oneThread = await assessRun(run.value, { settings: settings.value });
+  const oneThreadSeconds = seconds(t);
   run.value.dispose();
   if (!assessment.ok) throw new Error(JSON.stringify(assessment.problems));
-  return { 'import (s)': importSeconds, 'fit + surface (s)': fitSeconds, 'assessment (s)': assessSeconds };
+  if (!oneThread.ok) throw new Error(JSON.stringify(oneThread.problems));
+  return {
+    'import (s)': importSeconds, 'fit + surface (s)': fitSeconds, 'assessment (s)': assessSeconds, 'assessment, one thread (s)': oneThreadSeconds,
+    'one thread / helper': oneThreadSeconds / assessSeconds, 'resample threads': assessment.value.settings.threads,
+  };
 }

@@ -49,5 +49,7 @@ export function formatAssessment(a: Assessment): string {
     ...checks,
     ...(warnings.length ? ['', 'Assessment warnings:', ...warnings.map((w) => `  - [${w.severity}] ${w.message}`)] : []),
     '',
+    `Computed with ${a.settings.threads}.`,
+    '',
   ].join('\n');
 }

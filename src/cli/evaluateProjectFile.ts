@@ -15,6 +15,7 @@ import { openProject, type OpenedProject } from '../pipeline/openProject';
 import { CANCELLED_PROBLEM, startRun } from '../pipeline/projectRun';
 import { retuneMapsOfRun, type RetuneMapResult } from '../pipeline/retuneMaps';
 import { HostFileError, MAX_DATA_BYTES, MAX_PROJECT_BYTES, readRegularFile } from '../host/regularFile';
+import { helperThread } from './helperThread';
 import type { TerminalProgress } from './terminalProgress';
 
 export interface ProjectFileRun extends OpenedProject {
@@ -72,7 +73,7 @@ export async function evaluateProjectFile(
   const run = started.value;
   try {
     const evaluation = evaluationOf(run, [...warnings, ...started.warnings].map((w) => `${w.where}: ${w.message}`), now);
-    const assessment = await assessRun(run, { settings: settings.value, wasmPath, cancel, onProgress: progress?.assessment });
+    const assessment = await assessRun(run, { settings: settings.value, wasmPath, cancel, onProgress: progress?.assessment, helper: helperThread() });
     if (!assessment.ok && isCancelled(assessment.problems)) return { ok: false, failure: failureOf(assessment.problems) };
     const retuneMaps = retuneMapsOfRun(run, { cancel });
     if (!retuneMaps.ok && isCancelled(retuneMaps.problems)) return { ok: false, failure: failureOf(retuneMaps.problems) };

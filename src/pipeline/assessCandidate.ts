@@ -18,6 +18,7 @@ import { linearStateValues } from '../core/features/linearStateValues';
 import type { CandidateModel } from './model/candidateModel';
 import { finalStateValues } from './model/completedReturn';
 import type { EvaluationPlan } from './plan/evaluationPlan';
+import type { ResampleHelper } from './perDecisionRoute';
 
 export interface OffPolicyInputs {
   table: ImportanceWeightTable;
@@ -60,6 +61,8 @@ export interface AssessmentContext {
   /** Awaited between slices of the assessment's own data passes (default: a yield to the event loop about every PACE_INTERVAL_MS, cancellation.ts). */
   readonly pace?: () => Promise<void>;
   readonly wasmPath?: string;
+  /** A second thread the host lends the resample loop (perDecisionRoute.ts); without one the loop keeps to its own. */
+  readonly helper?: ResampleHelper;
 }
 
 export class AssessmentError extends Error {

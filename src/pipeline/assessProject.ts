@@ -26,6 +26,7 @@ import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
 import { checkLinearQuadraticModel, modelInapplicability } from './assessModelCheck';
 import { runResamples, type ResampleProgress } from './assessResamples';
+import type { ResampleHelper } from './perDecisionRoute';
 import { sensitivity } from './assessSensitivity';
 import type { AssessmentSettings } from './assessSettings';
 import { isEngineError } from './engineErrors';
@@ -46,6 +47,8 @@ export interface AssessRunOptions {
   cancel?: CancellationCheck;
   /** Where TensorFlow.js's wasm backend finds its .wasm files, for hosts that must say (the CLI). */
   wasmPath?: string;
+  /** A second thread for the resample loop, where the host has one (the CLI's: src/cli/helperThread.ts). */
+  helper?: ResampleHelper;
 }
 
 /** Assess a run the host holds; the run stays the host's to dispose. */
@@ -109,7 +112,7 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
   const unvisited = unvisitedShare(plan), solver = resampleSolver(works);
   return {
-    settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver },
+    settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver, threads: replicates.threads },
     behaviour: intervalEstimate(plan.loggedReturn.value, replicates.loggedReturn, settings.level, sign,
       'sampling of the logged runs; cut short where runs end on a time limit'),
     presentController: assemblePresentController(inputs),
@@ -140,6 +143,6 @@ function assessmentContext(run: ProjectRun, options: AssessRunOptions): Assessme
   }
   return {
     plan, presentController: plan.presentController.fitted, presentControllerModel: run.presentController,
-    presentControllerReason: run.presentControllerReason, cancel: options.cancel, wasmPath: options.wasmPath,
+    presentControllerReason: run.presentControllerReason, cancel: options.cancel, wasmPath: options.wasmPath, helper: options.helper,
   };
 }

@@ -6,17 +6,18 @@
  * them can be compared by a paired bootstrap (Efron & Tibshirani 1993, §14.1 on paired comparisons
  * from common resamples). Values are in reward terms.
  */
-import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
 import { createPacer, throwIfCancelled } from '../core/fqe/cancellation';
 import { completedReturnOfResample } from '../core/loggedReturn';
 import { fitLinearQuadraticModels, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
-import { perDecisionResamples, prepareResampleEntries, RESAMPLE_BLOCK, type ResampleEntries } from '../core/offPolicy/perDecisionResamples';
+import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import { isModelValueFailure } from './assessModelCheck';
-import type { AssessmentContext, CandidateWork } from './assessCandidate';
+import type { AssessmentContext, CandidateWork, OffPolicyInputs } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
+import { drawBlock } from './perDecisionBlocks';
+import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
 
 export type Replicates = (number | null)[];
 
@@ -35,6 +36,8 @@ export interface ReplicateSet {
   /** The present controller's model (the baseline), and the logged return completed by its fitted value. */
   presentController: CandidateReplicates | null;
   completedReturn: Replicates | null;
+  /** Which thread computed what (perDecisionRoute.ts), for the details of the result. */
+  threads: string;
 }
 
 export interface ResampleProgress {
@@ -58,26 +61,41 @@ const PROGRESS_EVERY = 25;
 export async function runResamples(
   context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, onProgress?: (p: ResampleProgress) => void,
 ): Promise<ReplicateSet> {
+  const { plan } = context, e = plan.episodes.episodes;
+  const { works, baseline } = inputs;
+  const withPerDecision = [...works, ...(baseline ? [baseline] : [])].filter((w) => 'perDecision' in w.offPolicy);
+  const route = openPerDecisionRoute(withPerDecision.map((w) => (w.offPolicy as OffPolicyInputs).perDecision),
+    { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper);
+  try {
+    return await resampleLoop(context, inputs, settings, { route, withPerDecision }, onProgress);
+  } finally {
+    route.close();
+  }
+}
+
+async function resampleLoop(
+  context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, perDecisionOf: { route: PerDecisionRoute; withPerDecision: CandidateWork[] },
+  onProgress?: (p: ResampleProgress) => void,
+): Promise<ReplicateSet> {
   const pace = createPacer(PACE_MS), { plan } = context, e = plan.episodes.episodes;
-  const { works, baseline, baselineEnds, model } = inputs;
+  const { works, baseline, baselineEnds, model } = inputs, { route, withPerDecision } = perDecisionOf;
   const out: ReplicateSet = {
     loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false)),
-    presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [],
+    presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [], threads: '',
   };
-  const entries = new Map<CandidateWork, ResampleEntries>();
-  for (const w of [...works, ...(baseline ? [baseline] : [])]) if ('perDecision' in w.offPolicy) entries.set(w, prepareResampleEntries(w.offPolicy.perDecision));
   const block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
   let reported = -PROGRESS_EVERY;
   for (let first = 0; first < settings.resamples; first += RESAMPLE_BLOCK) {
     await pace();
     throwIfCancelled(context.cancel);
     if (first - reported >= PROGRESS_EVERY) onProgress?.({ done: (reported = first), total: settings.resamples });
-    const drawn = block.slice(0, Math.min(RESAMPLE_BLOCK, settings.resamples - first));
-    drawn.forEach((c, i) => episodeMultiplicities(e, settings.seed, first + i, c));
+    const drawn = drawBlock(e, settings.seed, first, settings.resamples, block);
     // The two estimators bound by reading per-run or per-entry data take the block's resamples in one read.
     const fitted = model ? fitLinearQuadraticModels(model.regressions, drawn).map((f) => (f instanceof ModelFitError ? null : f)) : null;
-    const perDecision = new Map([...entries].map(([w, en]) => [w, perDecisionResamples(en, plan.discount, drawn)]));
     const fqe = new Map([...works, ...(baseline ? [baseline] : [])].map((w) => [w, blockValues(w, drawn)]));
+    // Asked for last, so a helper thread computing them has had this block's other work to run ahead.
+    const outcomes = await route.block(first, drawn);
+    const perDecision = new Map(withPerDecision.map((w, k) => [w, outcomes[k]]));
     drawn.forEach((c, i) => {
       out.loggedReturn.push(weightedMean(plan.loggedReturn.perEpisode, c));
       works.forEach((w, j) => replicateCandidate(context, w, out.candidates[j], c, fqe.get(w)!.map((v) => v?.[i]), fitted && fitted[i], perDecision.get(w)?.[i]));
@@ -86,6 +104,7 @@ export async function runResamples(
     });
   }
   onProgress?.({ done: settings.resamples, total: settings.resamples });
+  out.threads = route.note;
   return out;
 }
 

@@ -193,6 +193,8 @@ export interface AssessmentSettingsUsed {
   resampledUnit: 'episodes';
   episodes: number;
   solver: string;
+  /** Which thread computed what (developer detail: one thread, or the per-decision cross-checks on a second). */
+  threads: string;
 }
 
 /** Today's controller, evaluated like the candidates: the baseline of every comparison. */

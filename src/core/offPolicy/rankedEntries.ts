@@ -16,8 +16,15 @@
  */
 import { ImportanceSamplingError, type PerDecisionData } from './perDecisionEstimators';
 
+/** What the resamples read of the data besides the ranked tables: plain numbers and small per-end arrays. */
+export type RankedData = Pick<PerDecisionData, 'episodes' | 'horizon' | 'endOffsets' | 'endWeight'>;
+
+/**
+ * The ranked tables (every typed array but data's) own their buffers, so a host may transfer them to
+ * another thread without copying them and without detaching anything of the data's.
+ */
 export interface RankedEntries {
-  readonly data: PerDecisionData;
+  readonly data: RankedData;
   /** m_t: episodes that reach step t, t = 0 … H (m_H = 0); non-increasing. */
   readonly reaching: Int32Array; // H+1
   /** Step t's entries at offsets[t] … offsets[t] + reaching[t]. */
@@ -62,7 +69,8 @@ export function rankEntries(data: PerDecisionData): RankedEntries {
   }
   const endRank = Int32Array.from(data.endEpisode, (k) => rankOf[k]);
   const endWeightedValue = Float64Array.from(data.endWeight, (w, j) => w * data.endValue[j]);
-  return { data, reaching, offsets, rankOf, weight, weightedReward, weightedAction, weightedState, endRank, endWeightedValue };
+  const kept: RankedData = { episodes: e, horizon, endOffsets: data.endOffsets, endWeight: data.endWeight };
+  return { data: kept, reaching, offsets, rankOf, weight, weightedReward, weightedAction, weightedState, endRank, endWeightedValue };
 }
 
 /** Ranks by length, longest first; ties keep the data's episode order (a stable sort). */

@@ -1,0 +1,186 @@
+/**
+ * The CLI's second thread for the resample loop (src/cli/helperThread.ts, src/pipeline/perDecisionRoute.ts)
+ * against the loop's own thread: the same per-decision estimates to the last bit, replicate by
+ * replicate (the same function on the same inputs, so nothing less than Object.is equality is
+ * accepted), an ImportanceSamplingError carried across with its message, a helper that cannot
+ * start or stops half-way replaced by the loop's own route without a change in any number, and a
+ * stop request (Ctrl+C) ending the run with the cancelled status and the thread closed. The test
+ * log is invented (the uneven cascade log of perDecisionResamples.test.ts); no speed is asserted.
+ */
+import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { afterAll, beforeAll, describe, expect, it } from 'vitest';
+import { EXIT } from '../../src/cli/exitStatus';
+import { evaluateProjectFile } from '../../src/cli/evaluateProjectFile';
+import { helperThread } from '../../src/cli/helperThread';
+import type { TerminalProgress } from '../../src/cli/terminalProgress';
+import { indexEpisodes } from '../../src/core/bootstrap/episodeTransitions';
+import { episodeEnds } from '../../src/core/loggedReturn';
+import { importanceWeightTable } from '../../src/core/offPolicy/importanceWeights';
+import { ImportanceSamplingError, perDecisionData, type PerDecisionData } from '../../src/core/offPolicy/perDecisionEstimators';
+import { RESAMPLE_BLOCK } from '../../src/core/offPolicy/perDecisionResamples';
+import { createGaussianPolicy } from '../../src/core/policy';
+import type { TransitionSet } from '../../src/core/transitions';
+import { assessRun } from '../../src/pipeline/assessProject';
+import { assessmentSettingsFor, type AssessmentSettings } from '../../src/pipeline/assessSettings';
+import { drawBlock, perDecisionBlocks, type PerDecisionOutcome } from '../../src/pipeline/perDecisionBlocks';
+import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, type HelperFeed, type ResampleHelper } from '../../src/pipeline/perDecisionRoute';
+import { openProject } from '../../src/pipeline/openProject';
+import { CANCELLED_PROBLEM, startRun, type ProjectRun } from '../../src/pipeline/projectRun';
+import { simulateLog, type TestController } from '../core/linearGaussianPlant';
+import { candidateFamily, cascadeLogging, cascadePlant, startLaws } from '../core/testPlants';
+
+const policyOf = (c: TestController) => createGaussianPolicy({ offset: c.offset, gain: [c.gain], std: c.std }, 3);
+
+/** Episodes of unequal length (every fifth cut at 30 steps), some ending in a terminal state (invented, test only). */
+function unevenLog(): TransitionSet {
+  const full = simulateLog(cascadePlant, cascadeLogging, { episodes: 25, steps: 40, seed: 3, start: startLaws(cascadePlant, cascadeLogging)[0][1] });
+  const keep = Array.from({ length: full.count }, (_, i) => i).filter((i) => full.episode[i] % 5 !== 0 || i % 40 < 30);
+  const pick = <T extends Float64Array | Int32Array | Uint8Array>(a: T, w: number) => keep.flatMap((i) => Array.from(a.subarray(i * w, (i + 1) * w)));
+  return {
+    ...full, count: keep.length, states: Float64Array.from(pick(full.states, 3)), actions: Float64Array.from(pick(full.actions, 1)),
+    rewards: Float64Array.from(pick(full.rewards, 1)), nextStates: Float64Array.from(pick(full.nextStates, 3)),
+    terminal: Uint8Array.from(keep, (i) => (full.episode[i] % 7 === 3 && i % 40 === 39 ? 1 : 0)),
+    episode: Int32Array.from(pick(full.episode, 1)), sourceLine: Int32Array.from(pick(full.sourceLine, 1)),
+  };
+}
+
+const log = unevenLog(), index = indexEpisodes(log), discount = 0.95, e = log.episodeCount;
+const table = importanceWeightTable(log, index, policyOf(candidateFamily(cascadeLogging)[3][1]), policyOf(cascadeLogging));
+const tails = { finalStateValues: Float64Array.from({ length: e }, (_, k) => -8 - Math.cos(k)), tailWeights: episodeEnds(log, discount).tailWeights };
+const values = { actionValues: Float64Array.from(index.order, (i) => Math.cos(log.rewards[i])), stateValues: Float64Array.from(index.order, (i) => Math.sin(log.rewards[i])) };
+
+/** Only run 1 (one of the longest) keeps a non-zero weight: a resample without it has none at step 1, an ImportanceSamplingError (invented for the test). */
+function onlyRunOneWeighs(data: PerDecisionData): PerDecisionData {
+  const scaled = data.scaled.map((w, j) => (data.episode[j] === 1 ? w : 0));
+  const scaledBefore = data.scaledBefore.map((w, j) => (data.episode[j] === 1 || j < data.stepOffsets[1] ? w : 0)); // 1 at step 1
+  return { ...data, scaled, scaledBefore };
+}
+
+const sources = () => [perDecisionData(table, values, tails), perDecisionData(table, null), onlyRunOneWeighs(perDecisionData(table, values, tails))];
+const job = { discount, episodes: e, seed: 11, resamples: 45 }; // 45: the last block is short
+
+/** Every block through a route, as the resample loop asks for them. */
+async function allOutcomes(helper: ResampleHelper | undefined): Promise<{ outcomes: PerDecisionOutcome[][][]; note: string }> {
+  const route = openPerDecisionRoute(sources(), job, helper), block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
+  const outcomes: PerDecisionOutcome[][][] = [];
+  try {
+    for (let first = 0; first < job.resamples; first += RESAMPLE_BLOCK) outcomes.push(await route.block(first, drawBlock(e, job.seed, first, job.resamples, block)));
+  } finally {
+    route.close();
+  }
+  return { outcomes, note: route.note };
+}
+
+function expectIdentical(a: PerDecisionOutcome[][][], b: PerDecisionOutcome[][][]): void {
+  expect(a.length).toBe(b.length);
+  a.forEach((rows, k) => rows.forEach((row, s) => row.forEach((x, i) => {
+    const y = b[k][s][i];
+    if (x instanceof ImportanceSamplingError) {
+      expect(y).toBeInstanceOf(ImportanceSamplingError);
+      expect((y as Error).message).toBe(x.message);
+      return;
+    }
+    expect(y).not.toBeInstanceOf(Error);
+    for (const key of ['importanceSampling', 'doublyRobust', 'importanceSamplingTail'] as const) expect(Object.is(x[key], (y as typeof x)[key])).toBe(true);
+  })));
+}
+
+/** A helper on this thread that answers `blocks` blocks and then stops, counting its closes. */
+function stoppingHelper(blocks: number): ResampleHelper & { closed: number } {
+  const helper = {
+    closed: 0,
+    start(given: Parameters<ResampleHelper['start']>[0]): HelperFeed {
+      const answers = perDecisionBlocks(given);
+      let answered = 0;
+      return {
+        next: async () => (answered++ < blocks ? answers.next().value ?? { stopped: 'ran out' } : { stopped: 'stopped: a test stop' }),
+        close: () => { helper.closed++; },
+      };
+    },
+  };
+  return helper;
+}
+
+describe('the per-decision resamples on the helper thread', () => {
+  it('equal the loop’s own route replicate by replicate, errors included', async () => {
+    const own = await allOutcomes(undefined), helped = await allOutcomes(helperThread());
+    expect(own.note).toBe(ONE_THREAD_NOTE);
+    expect(helped.note).toBe(HELPER_THREAD_NOTE);
+    const failures = own.outcomes.flat(2).filter((x) => x instanceof ImportanceSamplingError).length;
+    expect(failures).toBeGreaterThan(0); // the error route is exercised …
+    expect(failures).toBeLessThan(job.resamples); // … and so is the estimate route on the same data
+    expectIdentical(own.outcomes, helped.outcomes);
+  });
+
+  it('fall back to the loop’s own thread, with the same numbers, when the helper cannot start or stops', async () => {
+    const own = await allOutcomes(undefined);
+    const refused = await allOutcomes({ start: () => { throw new Error('no threads here'); } });
+    expect(refused.note).toBe(`${ONE_THREAD_NOTE} (the helper thread could not start: no threads here)`);
+    expectIdentical(own.outcomes, refused.outcomes);
+    const stopping = stoppingHelper(2), halfway = await allOutcomes(stopping);
+    expect(halfway.note).toBe(`${ONE_THREAD_NOTE} (from resample ${2 * RESAMPLE_BLOCK + 1}; the helper thread stopped: a test stop)`);
+    expect(stopping.closed).toBeGreaterThan(0);
+    expectIdentical(own.outcomes, halfway.outcomes);
+  });
+});
+
+const tank = join(__dirname, '..', '..', 'sample-projects', 'tank-levels', 'tank-levels.spcritic');
+
+describe('the assessment with the CLI’s helper thread', () => {
+  let run: ProjectRun, settings: AssessmentSettings;
+  beforeAll(async () => {
+    const opened = await openProject(await readFile(tank, 'utf8'), 'tank-levels.spcritic', async (p) => new Uint8Array(await readFile(join(tank, '..', p))));
+    if (!opened.ok) throw new Error(opened.problems.map((p) => p.message).join('\n'));
+    const chosen = assessmentSettingsFor(opened.value.project, { resamples: 60 }), started = await startRun(opened.value.project, opened.value.dataset);
+    if (!chosen.ok || !started.ok) throw new Error('setup failed');
+    [run, settings] = [started.value, { ...chosen.value, sensitivity: false }]; // the sweep does not resample
+  });
+  afterAll(() => run?.dispose());
+
+  it('gives the same assessment as one thread on the tank-levels sample, and says which route ran', async () => {
+    const one = await assessRun(run, { settings });
+    const two = await assessRun(run, { settings, helper: helperThread() });
+    if (!one.ok || !two.ok) throw new Error('assessment failed');
+    expect(one.value.settings.threads).toBe(ONE_THREAD_NOTE);
+    expect(two.value.settings.threads).toBe(HELPER_THREAD_NOTE);
+    expect({ ...two.value, settings: { ...two.value.settings, threads: '' } }).toEqual({ ...one.value, settings: { ...one.value.settings, threads: '' } });
+  });
+
+  it('closes the helper thread when the run stops, as when it ends', async () => {
+    const real = helperThread();
+    let closed = 0, stop = false;
+    const counting: ResampleHelper = { start: (given) => { const feed = real.start(given); return { next: () => feed.next(), close: () => { closed++; feed.close(); } }; } };
+    const stopped = await assessRun(run, {
+      settings: { ...settings, resamples: 5000 }, helper: counting, cancel: () => stop,
+      onProgress: (p) => { if (p.stage === 'resampling' && p.done > 0) stop = true; },
+    });
+    expect(stopped.ok).toBe(false);
+    if (!stopped.ok) expect(stopped.problems).toEqual([CANCELLED_PROBLEM]);
+    expect(closed).toBe(1);
+    const ended = await assessRun(run, { settings, helper: counting });
+    expect(ended.ok).toBe(true);
+    expect(closed).toBe(2);
+  });
+
+  it('ends with exit 130 and the cancelled message on a stop request during the resamples', async () => {
+    let stop = false;
+    const resampled: number[] = [];
+    const progress: TerminalProgress = {
+      evaluation: () => undefined,
+      assessment(p) {
+        if (p.stage !== 'resampling') return;
+        resampled.push(p.done);
+        if (p.done > 0 && !stop) setTimeout(() => { stop = true; }, 0);
+      },
+      cancelled: () => stop,
+      done: () => undefined,
+    };
+    const result = await evaluateProjectFile(tank, { resamples: 5000 }, undefined, progress);
+    expect(result.ok).toBe(false);
+    if (result.ok) return;
+    expect(result.failure.exitCode).toBe(EXIT.cancelled);
+    expect(result.failure.message).toBe('Cancelled (Ctrl+C): no results were written.');
+    expect(resampled[resampled.length - 1]).toBeLessThan(5000);
+  });
+});
