@@ -24,8 +24,16 @@ function bootCode(): string {
   return `import(${JSON.stringify(tsx)}).then((tsx) => { tsx.register(); return import(${JSON.stringify(threadModule)}); });`;
 }
 
-export function helperThread(): ResampleHelper {
-  return { start: startHelper };
+/**
+ * Per-decision work (logged entries × resamples) below which the CLI keeps to one thread. Measured
+ * on the peer plant's logs (bench/peerBench.ts): 10^8 (100,000 transitions, 1,000 resamples) is about
+ * 0.9 s of the helper's CPU against about 0.3 s to start a thread and 20–50 MiB more memory; 10^9,
+ * about 7 s. Our choice: lend it from 3·10^8, where the work is some ten times the start.
+ */
+export const HELPER_MINIMUM_WORK = 3e8;
+
+export function helperThread(minimumWork = HELPER_MINIMUM_WORK): ResampleHelper {
+  return { minimumWork, start: startHelper };
 }
 
 function startHelper(job: PerDecisionJob): HelperFeed {

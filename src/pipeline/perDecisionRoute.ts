@@ -27,6 +27,8 @@ export interface HelperFeed {
 
 /** A host's helper thread for the resample loop. start may throw; the loop then keeps to its own thread. */
 export interface ResampleHelper {
+  /** Lend the thread only when the per-decision work (logged entries × resamples) is at least this: below it a thread costs more to start than it saves. Default 0. */
+  readonly minimumWork?: number;
   /** Runs perDecisionBlocks(job) on the helper; the job's ranked tables are transferred there (unusable here afterwards). */
   start(job: PerDecisionJob): HelperFeed;
 }
@@ -53,7 +55,9 @@ export function openPerDecisionRoute(
     own = null; // the helper holds the tables it was given: rank again
     note = `${ONE_THREAD_NOTE} (${first === 0 ? '' : `from resample ${first + 1}; `}the helper thread ${why})`;
   };
-  if (helper && data.length > 0) {
+  const work = data.reduce((total, d) => total + d.scaled.length, 0) * job.resamples;
+  if (helper && data.length > 0 && work < (helper.minimumWork ?? 0)) note = `${ONE_THREAD_NOTE} (too little per-decision work to be worth a second thread)`;
+  else if (helper && data.length > 0) {
     const given = ownJob(); // ranked here: an error of the data's arises on this thread, as without a helper
     try {
       feed = helper.start(given);

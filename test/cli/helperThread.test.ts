@@ -103,8 +103,18 @@ function stoppingHelper(blocks: number): ResampleHelper & { closed: number } {
 }
 
 describe('the per-decision resamples on the helper thread', () => {
+  it('stay on the loop’s own thread, without starting one, when the work is below the helper’s minimum', async () => {
+    const work = sources().reduce((t, d) => t + d.scaled.length, 0) * job.resamples;
+    let started = 0;
+    const small: ResampleHelper = { minimumWork: work + 1, start: () => { started++; throw new Error('not expected'); } };
+    const own = await allOutcomes(undefined), kept = await allOutcomes(small);
+    expect(started).toBe(0);
+    expect(kept.note).toContain(ONE_THREAD_NOTE);
+    expectIdentical(own.outcomes, kept.outcomes);
+  });
+
   it('equal the loop’s own route replicate by replicate, errors included', async () => {
-    const own = await allOutcomes(undefined), helped = await allOutcomes(helperThread());
+    const own = await allOutcomes(undefined), helped = await allOutcomes(helperThread(0));
     expect(own.note).toBe(ONE_THREAD_NOTE);
     expect(helped.note).toBe(HELPER_THREAD_NOTE);
     const failures = own.outcomes.flat(2).filter((x) => x instanceof ImportanceSamplingError).length;
@@ -140,7 +150,7 @@ describe('the assessment with the CLI’s helper thread', () => {
 
   it('gives the same assessment as one thread on the tank-levels sample, and says which route ran', async () => {
     const one = await assessRun(run, { settings });
-    const two = await assessRun(run, { settings, helper: helperThread() });
+    const two = await assessRun(run, { settings, helper: helperThread(0) });
     if (!one.ok || !two.ok) throw new Error('assessment failed');
     expect(one.value.settings.threads).toBe(ONE_THREAD_NOTE);
     expect(two.value.settings.threads).toBe(HELPER_THREAD_NOTE);
@@ -148,7 +158,7 @@ describe('the assessment with the CLI’s helper thread', () => {
   });
 
   it('closes the helper thread when the run stops, as when it ends', async () => {
-    const real = helperThread();
+    const real = helperThread(0);
     let closed = 0, stop = false;
     const counting: ResampleHelper = { start: (given) => { const feed = real.start(given); return { next: () => feed.next(), close: () => { closed++; feed.close(); } }; } };
     const stopped = await assessRun(run, {
