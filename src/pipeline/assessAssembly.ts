@@ -60,7 +60,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
     const warnings = [
       ...coverageWarnings(diagnostics),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
-      ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: `Not settled across function classes: ${classes.reason} Report the range ${rangeText(classes.range)}, not a single value.` }] : []),
+      ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes) }] : []),
       ...networkDisagreement(work),
       ...impossibleValue(context.plan, possible, work),
       ...failedWarning(policyValue),
@@ -123,7 +123,15 @@ function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, modelR
   return { values, offPolicyReason, modelReason: reason };
 }
 
-/** The candidate in every function class with an interval, and the verdict across them; null with fewer than two. */
+/** The serious warning of an estimate that is not settled across function classes: a range to report, or with one class an interval that checks nothing. */
+function notSettledMessage(classes: FunctionClassAssessment): string {
+  const range = rangeText(classes.range);
+  return classes.classes.length > 1
+    ? `Not settled across function classes: ${classes.reason} Report the range ${range}, not a single value.`
+    : `Not settled across function classes: ${classes.reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.`;
+}
+
+/** The candidate in every function class with an interval, and the verdict across them; null with fewer than two, unless others were fitted and did not converge. */
 function classAssessment(work: CandidateWork, r: CandidateReplicates, level: number, sign: number): FunctionClassAssessment | null {
   const estimates: ClassEstimate[] = [];
   work.classes.forEach((c, k) => {
@@ -132,8 +140,8 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
     const replicates = r.classes[k].every((v) => v !== null) ? (r.classes[k] as number[]) : undefined;
     estimates.push({ label: c.label, value: c.model.fit.policyValue, standardError: iv.standardError, interval: iv.percentile, replicates });
   });
-  if (estimates.length < 2) return null;
-  const verdict = functionClassVerdict(estimates);
+  if (estimates.length === 0 || (estimates.length < 2 && work.unconvergedClasses.length === 0)) return null;
+  const verdict = functionClassVerdict(estimates, work.unconvergedClasses);
   const flip = ([lo, hi]: readonly [number, number]): [number, number] => (sign > 0 ? [lo, hi] : [-hi, -lo]);
   return {
     classes: estimates.map((e) => ({ label: e.label, value: sign * e.value, interval: flip(e.interval), standardError: e.standardError })),

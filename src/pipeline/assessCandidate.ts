@@ -6,6 +6,7 @@
  * controller's model — and its fits in other function classes. Nothing here refits the model
  * itself. Reward terms throughout.
  */
+import type { UnconvergedClass } from '../core/diagnostics/functionClassRange';
 import { linearFqeReplicate, linearFqeReplicateBlock, type LinearReplicateSetup, type LinearSolveSettings } from '../core/bootstrap/linearFqeReplicate';
 import { linearisedReplicate } from '../core/bootstrap/linearisedReplicate';
 import type { CancellationCheck } from '../core/fqe/cancellation';
@@ -48,6 +49,8 @@ export interface CandidateWork {
   readonly offPolicy: OffPolicyInputs | { reason: string };
   /** The candidate in every function class compared (its own first). */
   readonly classes: ClassWork[];
+  /** Other classes that were fitted but did not converge (no value to compare; the verdict reads them). */
+  readonly unconvergedClasses: readonly UnconvergedClass[];
 }
 
 /** What every assessment of one run shares. */
@@ -72,9 +75,12 @@ export class AssessmentError extends Error {
   }
 }
 
-export function candidateWork(context: AssessmentContext, model: CandidateModel, classes: ClassWork[] = []): CandidateWork {
+export function candidateWork(context: AssessmentContext, model: CandidateModel, classes: ClassWork[] = [], unconverged: readonly UnconvergedClass[] = []): CandidateWork {
   const replicate = replicator(context.plan, model);
-  return { model, replicate, offPolicy: offPolicyInputs(context, model), classes: [{ label: ownClassLabel(context.plan), model, replicate }, ...classes] };
+  return {
+    model, replicate, offPolicy: offPolicyInputs(context, model), classes: [{ label: ownClassLabel(context.plan), model, replicate }, ...classes],
+    unconvergedClasses: unconverged,
+  };
 }
 
 function ownClassLabel(plan: EvaluationPlan): string {

@@ -7,9 +7,12 @@
  *
  * Degree 1 is left out (our choice): a linear Q cannot represent the value of a quadratic cost, so it
  * would make every verdict "not settled" without saying anything about the classes that can. Classes
- * above MAX_CLASS_FEATURES features are left out for their cost (a data pass is O(n·d²)), and so is a
- * class whose fit does not converge (it has no value to compare).
+ * above MAX_CLASS_FEATURES features are left out for their cost (a data pass is O(n·d²)). A class
+ * whose fit does not converge has no value to compare; it is listed as such, and the verdict reads it
+ * (src/core/diagnostics/functionClassRange.ts).
  */
+import type { UnconvergedClass } from '../core/diagnostics/functionClassRange';
+import type { FitStatus } from '../core/fqe/fitStatus';
 import { MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { TRANSITIONS_PER_FEATURE } from '../data/datasetChecks';
@@ -23,10 +26,16 @@ export const COMPARED_DEGREES = [2, 3, 4] as const;
 /** Largest feature count of a compared class (the sensitivity sweep's limit as well; ours). */
 export const MAX_CLASS_FEATURES = 300;
 
-export async function classWorks(context: AssessmentContext, model: CandidateModel): Promise<ClassWork[]> {
+/** The candidate's other function classes: those fitted to convergence, and those whose fit did not converge. */
+export interface OtherClasses {
+  readonly fitted: ClassWork[];
+  readonly unconverged: UnconvergedClass[];
+}
+
+export async function classWorks(context: AssessmentContext, model: CandidateModel): Promise<OtherClasses> {
   const { plan } = context, a = plan.approximator;
   const own = a.kind === 'linear' && a.features.kind === 'polynomial' ? a.features.degree : null;
-  const out: ClassWork[] = [];
+  const out: ClassWork[] = [], unconverged: UnconvergedClass[] = [];
   // Highest degree first: a higher degree's data pass (the project's own included) serves the lower
   // degrees, whose monomials lead its own (linearModel.ts nestedStatistics).
   const built: CandidateModel[] = [model];
@@ -39,12 +48,15 @@ export async function classWorks(context: AssessmentContext, model: CandidateMod
       const fitted = await buildLinearModelPaced(plan, model, { cancel: context.cancel }, spec, built);
       built.push(fitted);
       if (fitted.fit.status === 'converged') out.unshift({ label: polynomialClassLabel(degree), model: fitted, replicate: replicator(plan, fitted) });
+      else unconverged.unshift({ label: polynomialClassLabel(degree), why: STATUS_WORDS[fitted.fit.status] });
     } catch (error) {
       if (!isEngineError(error)) throw error; // a class that cannot be fitted is simply not compared
     }
   }
-  return out;
+  return { fitted: out, unconverged };
 }
+
+const STATUS_WORDS: Record<FitStatus, string> = { converged: 'converged', diverged: 'diverged', maxIterations: 'stopped at its iteration limit' };
 
 export function polynomialClassLabel(degree: number): string {
   return `polynomial, degree ${degree}`;

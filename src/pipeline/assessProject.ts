@@ -83,7 +83,8 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   const works: CandidateWork[] = [];
   for (const [i, model] of run.models.entries()) {
     progress(i);
-    works.push(candidateWork(context, model, await classWorks(context, model)));
+    const others = await classWorks(context, model);
+    works.push(candidateWork(context, model, others.fitted, others.unconverged));
   }
   progress(run.models.length);
   const baseline = run.presentController ? candidateWork(context, run.presentController) : null;

@@ -18,6 +18,13 @@
  *     resamples when every class has replicates (classes fitted to the same resample are strongly
  *     correlated, so pairing is much sharper), else √(se_a² + se_b²) (conservative).
  *   - Settled: no pair disagrees. Not settled: some pair does; the reason names the widest gap.
+ *   - A class that was fitted but whose fitted Q-evaluation did not converge (it diverged, or stopped
+ *     at its iteration limit) has no value to compare. When it leaves the project's own class alone,
+ *     the estimate is not settled: the richer classes could not be fitted stably on these logs,
+ *     which is what linear fitted Q-evaluation does where the candidate's states and actions lie
+ *     beyond the data (the off-policy divergence of Tsitsiklis & Van Roy, "An analysis of
+ *     temporal-difference learning with function approximation", IEEE TAC 42(5), 1997), so nothing
+ *     checks the one class that could. Beside classes that agree it is named in the reason.
  *   - The reported range is the hull of all classes' sampling intervals, whatever the verdict, so
  *     it never sits tight around a value another class contradicts. It covers the sampling of
  *     episodes and the spread across the classes fitted, and nothing beyond them: if every class
@@ -37,6 +44,12 @@ export interface ClassEstimate {
 }
 
 export const CLASS_AGREEMENT = { standardErrors: 2, relative: 0.02 } as const;
+
+/** A class that was fitted but did not converge: its label and why, in a few words ("diverged"). */
+export interface UnconvergedClass {
+  readonly label: string;
+  readonly why: string;
+}
 
 export type RangeCoverage = 'sampling' | 'samplingAndClasses';
 
@@ -61,12 +74,22 @@ export interface ClassVerdict {
   readonly widestGap: ClassGap | null;
 }
 
-export function functionClassVerdict(estimates: readonly ClassEstimate[]): ClassVerdict {
+export function functionClassVerdict(estimates: readonly ClassEstimate[], unconverged: readonly UnconvergedClass[] = []): ClassVerdict {
   if (estimates.length === 0) throw new RangeError('function classes: at least one estimate is needed');
   for (const e of estimates) {
     if (![e.value, e.standardError, e.interval[0], e.interval[1]].every(Number.isFinite)) throw new RangeError(`function class "${e.label}": its estimate and interval must be finite numbers`);
   }
   const range: [number, number] = [Math.min(...estimates.map((e) => e.interval[0])), Math.max(...estimates.map((e) => e.interval[1]))];
+  const failed = unconverged.map((u) => `${u.label} (${u.why})`).join('; ');
+  if (estimates.length === 1 && unconverged.length > 0) {
+    return {
+      settled: false, range, covers: 'sampling', widestGap: null,
+      coverageText: 'Covers the sampling of runs only: the other function classes fitted did not converge, so the error of the class itself is not measured.',
+      reason: `Not settled: the other function classes fitted did not converge (${failed}), so no second class checks this one; ` +
+        'that happens where the candidate leads beyond the states and actions the logs cover.',
+    };
+  }
+  const notCompared = unconverged.length === 0 ? '' : ` Not compared, as their fits did not converge: ${failed}.`;
   if (estimates.length === 1) {
     return {
       settled: true, range, covers: 'sampling', widestGap: null,
@@ -80,13 +103,13 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[]): Class
     `(${estimates.map((e) => e.label).join('; ')}); a bias they all share would not show.`;
   if (disagreeing.length === 0) {
     const g = widest(gaps);
-    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).` };
+    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).${notCompared}` };
   }
   const g = widest(disagreeing);
   return {
     settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: g,
     reason: `Not settled: ${describe(g)}, beyond ${CLASS_AGREEMENT.standardErrors} standard errors and ${100 * CLASS_AGREEMENT.relative} % of J, ` +
-      'so at least one class cannot represent the value of this policy; the range spans them all.',
+      `so at least one class cannot represent the value of this policy; the range spans them all.${notCompared}`,
   };
 }
 

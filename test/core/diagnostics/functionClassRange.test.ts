@@ -81,6 +81,21 @@ describe('function-class rule: mechanics', () => {
     expect(v.range).toEqual([-10 - 1.645 * 0.2, -10 + 1.645 * 0.2]);
   });
 
+  it('calls one class not settled when the other classes fitted did not converge, and names them beside classes that agree', () => {
+    // The rule's own statements (ours); a diverged richer class is the off-policy divergence of linear
+    // fitted Q-evaluation (Tsitsiklis & Van Roy, IEEE TAC 1997), shown on data in test/core/fqe/linearFqe.test.ts.
+    const unconverged = [{ label: 'degree 3', why: 'diverged' }, { label: 'degree 4', why: 'stopped at its iteration limit' }];
+    const alone = functionClassVerdict([at('degree 2', -10, 0.2)], unconverged);
+    expect(alone.settled).toBe(false);
+    expect(alone.covers).toBe('sampling');
+    expect(alone.range).toEqual([-10 - 1.645 * 0.2, -10 + 1.645 * 0.2]);
+    expect(alone.reason).toContain('degree 3 (diverged); degree 4 (stopped at its iteration limit)');
+    const agreeing = functionClassVerdict([at('degree 2', -10, 0.2), at('degree 3', -10.05, 0.2)], [unconverged[1]]);
+    expect(agreeing.settled).toBe(true);
+    expect(agreeing.reason).toContain('Not compared, as their fits did not converge: degree 4 (stopped at its iteration limit).');
+    expect(functionClassVerdict([at('degree 2', -10, 0.2)]).settled).toBe(true); // nothing else fitted: one class, unchecked, as before
+  });
+
   it('needs both the standard-error and the relative limit to call a disagreement', () => {
     // 5 % apart but 1 combined standard error: settled (sampling explains it).
     expect(functionClassVerdict([at('a', -10, 0.35), at('b', -10.5, 0.35)]).settled).toBe(true);
