@@ -108,6 +108,11 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
     expect(curves.map((c) => c.parameter)).toEqual(['discount', 'polynomialDegree']);
     expect(curves[0].settings[curves[0].projectIndex]).toBe(0.95);
     expect(curves[1].settings).toEqual([1, 2, 3]);
+    // A compared class whose fit did not converge is carried to the verdict and named (functionClassRange.ts):
+    // in this sample the rate-limited PI's degree-4 fit diverges, while degrees 2 and 3 converge.
+    const rateLimited = result.value.candidates.find((c) => /rate limit/.test(c.name))!;
+    expect(rateLimited.functionClasses?.classes.map((c) => c.label)).toEqual(['polynomial, degree 2', 'polynomial, degree 3']);
+    expect(rateLimited.functionClasses?.reason).toContain('Not compared, as their fits did not converge: polynomial, degree 4 (diverged).');
   });
 
   it('refuses too few episodes, and stops when cancelled', async () => {
