@@ -5,8 +5,7 @@
  * weights at the effective horizon, and the candidate's action probability outside the actions
  * logged nearby, each beside the present controller's own level for scale.
  */
-import { resampleBellmanStatistics } from '../core/bootstrap/episodeBellmanSums';
-import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
+import { resampleBellmanStatisticsBlock } from '../core/bootstrap/episodeBellmanSums';
 import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
 import { meanStartFeatures } from '../core/features/policyFeatures';
 import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../core/diagnostics/actionSupport';
@@ -15,10 +14,12 @@ import { occupancyShift } from '../core/diagnostics/occupancyShift';
 import { actionSupportFinding, effectiveShareFinding, occupancyShiftFinding } from '../core/diagnostics/severity';
 import type { BellmanStatistics } from '../core/fqe/bellmanStatistics';
 import type { ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
+import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import type { GaussianPolicy } from '../core/policy';
 import type { ActionSupportDiagnostics, AssessmentWarning, CoverageDiagnostics, ImportanceWeightDiagnostics } from './assessment';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import type { CandidateModel } from './model/candidateModel';
+import { drawBlock } from './perDecisionBlocks';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 
 /** Resamples on which the shift is recomputed for its upper percentile (each costs O(e·d² + d³); ours). */
@@ -58,16 +59,23 @@ export function shiftOf(plan: EvaluationPlan, model: CandidateModel, statistics?
   return 'shift' in result ? result.shift : null;
 }
 
-/** The 90th percentile of the shift over the first resamples (exact per-episode sums only); the estimate is right-skewed. */
+/**
+ * The 90th percentile of the shift over the first resamples (exact per-episode sums only); the
+ * estimate is right-skewed. The resamples' statistics are formed a block at a time
+ * (resampleBellmanStatisticsBlock: one read of each run's sums for the block), as in the resample loop.
+ */
 function shiftUpper(context: AssessmentContext, model: CandidateModel): number | null {
   const { plan } = context, linear = model.linear!, r = linear.resampling;
   if (r.kind !== 'exact') return null;
-  const e = plan.episodes.episodes, c = new Uint32Array(e), d = linear.features.dim, values: number[] = [];
-  for (let b = 0; b < SHIFT_RESAMPLES; b++) {
-    episodeMultiplicities(e, plan.seed, b, c);
-    const weights = plan.starts.followEpisodes ? startMultiplicities(c, plan.starts.episode) : undefined;
-    const v = shiftOf(plan, model, resampleBellmanStatistics(r.sums, c), meanStartFeatures(linear.startFeatures, d, weights));
-    if (v !== null) values.push(v);
+  const e = plan.episodes.episodes, d = linear.features.dim, values: number[] = [];
+  const block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e)), scratch = block.map(() => new Float64Array(r.sums.stride));
+  for (let first = 0; first < SHIFT_RESAMPLES; first += RESAMPLE_BLOCK) {
+    const drawn = drawBlock(e, plan.seed, first, SHIFT_RESAMPLES, block);
+    resampleBellmanStatisticsBlock(r.sums, drawn, scratch).forEach((statistics, i) => {
+      const weights = plan.starts.followEpisodes ? startMultiplicities(drawn[i], plan.starts.episode) : undefined;
+      const v = shiftOf(plan, model, statistics, meanStartFeatures(linear.startFeatures, d, weights));
+      if (v !== null) values.push(v);
+    });
   }
   if (values.length < 10) return null;
   values.sort((a, b) => a - b);

@@ -68,13 +68,12 @@ export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: 
  */
 export function linearFqeReplicateBlock(setup: LinearReplicateSetup, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[]): LinearReplicate[] {
   const startWeights = block.map((c) => (setup.startsFollowEpisodes ? startMultiplicities(c, setup.startEpisode) : undefined));
-  const solved = block.filter((_, r) => !startWeights[r] || holdsStartState(startWeights[r]!));
-  const stats = resampleBellmanStatisticsBlock(setup.sums, solved, scratch);
+  const holds = startWeights.map((w) => !w || holdsStartState(w));
+  const stats = resampleBellmanStatisticsBlock(setup.sums, block.filter((_, r) => holds[r]), scratch);
   let next = 0;
   return block.map((_, r): LinearReplicate => {
-    const w = startWeights[r];
-    if (w && !holdsStartState(w)) return { policyValue: null, weights: null, status: 'noStartStates' };
-    return solveReplicate(setup, stats[next++], meanStartFeatures(setup.startFeatures, setup.sums.dim, w));
+    if (!holds[r]) return { policyValue: null, weights: null, status: 'noStartStates' };
+    return solveReplicate(setup, stats[next++], meanStartFeatures(setup.startFeatures, setup.sums.dim, startWeights[r]));
   });
 }
 
