@@ -5,7 +5,7 @@
  * accepted), an ImportanceSamplingError carried across with its message, a helper that cannot
  * start or stops half-way replaced by the loop's own route without a change in any number, and a
  * stop request (Ctrl+C) ending the run with the cancelled status and the thread closed. The test
- * log is invented (the uneven cascade log of perDecisionResamples.test.ts); no speed is asserted.
+ * log is invented (the uneven cascade log of test/core/offPolicy/unevenCascadeLog.ts); no speed is asserted.
  */
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
@@ -14,41 +14,17 @@ import { EXIT } from '../../src/cli/exitStatus';
 import { evaluateProjectFile } from '../../src/cli/evaluateProjectFile';
 import { helperThread } from '../../src/cli/helperThread';
 import type { TerminalProgress } from '../../src/cli/terminalProgress';
-import { indexEpisodes } from '../../src/core/bootstrap/episodeTransitions';
-import { episodeEnds } from '../../src/core/loggedReturn';
-import { importanceWeightTable } from '../../src/core/offPolicy/importanceWeights';
 import { ImportanceSamplingError, perDecisionData, type PerDecisionData } from '../../src/core/offPolicy/perDecisionEstimators';
 import { RESAMPLE_BLOCK } from '../../src/core/offPolicy/perDecisionResamples';
-import { createGaussianPolicy } from '../../src/core/policy';
-import type { TransitionSet } from '../../src/core/transitions';
 import { assessRun } from '../../src/pipeline/assessProject';
 import { assessmentSettingsFor, type AssessmentSettings } from '../../src/pipeline/assessSettings';
 import { drawBlock, perDecisionBlocks, type PerDecisionOutcome } from '../../src/pipeline/perDecisionBlocks';
 import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, type HelperFeed, type ResampleHelper } from '../../src/pipeline/perDecisionRoute';
 import { openProject } from '../../src/pipeline/openProject';
 import { CANCELLED_PROBLEM, startRun, type ProjectRun } from '../../src/pipeline/projectRun';
-import { simulateLog, type TestController } from '../core/linearGaussianPlant';
-import { candidateFamily, cascadeLogging, cascadePlant, startLaws } from '../core/testPlants';
+import { unevenLogInputs } from '../core/offPolicy/unevenCascadeLog';
 
-const policyOf = (c: TestController) => createGaussianPolicy({ offset: c.offset, gain: [c.gain], std: c.std }, 3);
-
-/** Episodes of unequal length (every fifth cut at 30 steps), some ending in a terminal state (invented, test only). */
-function unevenLog(): TransitionSet {
-  const full = simulateLog(cascadePlant, cascadeLogging, { episodes: 25, steps: 40, seed: 3, start: startLaws(cascadePlant, cascadeLogging)[0][1] });
-  const keep = Array.from({ length: full.count }, (_, i) => i).filter((i) => full.episode[i] % 5 !== 0 || i % 40 < 30);
-  const pick = <T extends Float64Array | Int32Array | Uint8Array>(a: T, w: number) => keep.flatMap((i) => Array.from(a.subarray(i * w, (i + 1) * w)));
-  return {
-    ...full, count: keep.length, states: Float64Array.from(pick(full.states, 3)), actions: Float64Array.from(pick(full.actions, 1)),
-    rewards: Float64Array.from(pick(full.rewards, 1)), nextStates: Float64Array.from(pick(full.nextStates, 3)),
-    terminal: Uint8Array.from(keep, (i) => (full.episode[i] % 7 === 3 && i % 40 === 39 ? 1 : 0)),
-    episode: Int32Array.from(pick(full.episode, 1)), sourceLine: Int32Array.from(pick(full.sourceLine, 1)),
-  };
-}
-
-const log = unevenLog(), index = indexEpisodes(log), discount = 0.95, e = log.episodeCount;
-const table = importanceWeightTable(log, index, policyOf(candidateFamily(cascadeLogging)[3][1]), policyOf(cascadeLogging));
-const tails = { finalStateValues: Float64Array.from({ length: e }, (_, k) => -8 - Math.cos(k)), tailWeights: episodeEnds(log, discount).tailWeights };
-const values = { actionValues: Float64Array.from(index.order, (i) => Math.cos(log.rewards[i])), stateValues: Float64Array.from(index.order, (i) => Math.sin(log.rewards[i])) };
+const discount = 0.95, { data: log, table, tails, values } = unevenLogInputs(discount), e = log.episodeCount;
 
 /** Only run 1 (one of the longest) keeps a non-zero weight: a resample without it has none at step 1, an ImportanceSamplingError (invented for the test). */
 function onlyRunOneWeighs(data: PerDecisionData): PerDecisionData {

@@ -8,35 +8,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
-import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
-import { episodeEnds } from '../../../src/core/loggedReturn';
-import { importanceWeightTable } from '../../../src/core/offPolicy/importanceWeights';
 import { ImportanceSamplingError, perDecisionData, perDecisionEstimates, type PerDecisionEstimates } from '../../../src/core/offPolicy/perDecisionEstimators';
 import { perDecisionResamples, prepareResampleEntries, RESAMPLE_BLOCK } from '../../../src/core/offPolicy/perDecisionResamples';
-import { createGaussianPolicy } from '../../../src/core/policy';
-import type { TransitionSet } from '../../../src/core/transitions';
-import { simulateLog, type TestController } from '../linearGaussianPlant';
-import { candidateFamily, cascadeLogging, cascadePlant, startLaws } from '../testPlants';
+import { unevenLogInputs } from './unevenCascadeLog';
 
-const policyOf = (c: TestController) => createGaussianPolicy({ offset: c.offset, gain: [c.gain], std: c.std }, 3);
-
-/** Episodes of unequal length (every fifth cut at 30 steps), some ending in a terminal state (invented, test only). */
-function unevenLog(): TransitionSet {
-  const full = simulateLog(cascadePlant, cascadeLogging, { episodes: 25, steps: 40, seed: 3, start: startLaws(cascadePlant, cascadeLogging)[0][1] });
-  const keep = Array.from({ length: full.count }, (_, i) => i).filter((i) => full.episode[i] % 5 !== 0 || i % 40 < 30);
-  const pick = <T extends Float64Array | Int32Array | Uint8Array>(a: T, w: number) => keep.flatMap((i) => Array.from(a.subarray(i * w, (i + 1) * w)));
-  return {
-    ...full, count: keep.length, states: Float64Array.from(pick(full.states, 3)), actions: Float64Array.from(pick(full.actions, 1)),
-    rewards: Float64Array.from(pick(full.rewards, 1)), nextStates: Float64Array.from(pick(full.nextStates, 3)),
-    terminal: Uint8Array.from(keep, (i) => (full.episode[i] % 7 === 3 && i % 40 === 39 ? 1 : 0)),
-    episode: Int32Array.from(pick(full.episode, 1)), sourceLine: Int32Array.from(pick(full.sourceLine, 1)),
-  };
-}
-
-const data = unevenLog(), index = indexEpisodes(data), discount = 0.95;
-const table = importanceWeightTable(data, index, policyOf(candidateFamily(cascadeLogging)[3][1]), policyOf(cascadeLogging));
-const tails = { finalStateValues: Float64Array.from({ length: data.episodeCount }, (_, k) => -8 - Math.cos(k)), tailWeights: episodeEnds(data, discount).tailWeights };
-const values = { actionValues: Float64Array.from(index.order, (i) => Math.cos(data.rewards[i])), stateValues: Float64Array.from(index.order, (i) => Math.sin(data.rewards[i])) };
+const discount = 0.95, { data, table, tails, values } = unevenLogInputs(discount);
 
 function expectSame(fast: PerDecisionEstimates | ImportanceSamplingError, plain: PerDecisionEstimates): void {
   if (fast instanceof ImportanceSamplingError) throw fast;
