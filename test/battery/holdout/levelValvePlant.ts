@@ -38,18 +38,19 @@ function valveCommand(k: number, feedforward: number, std: number) {
   return { offset: [VALVE_BIAS + k * LEVEL_SETPOINT_M], gain: [[-k, -feedforward]], std: [std] };
 }
 
-export function levelValvePlant(): BatteryPlant {
+/** The vessel as a battery plant, with its name, the logging controller's dither and its one candidate (the two variants differ only there). */
+function levelLoop(name: string, description: string, loggedDither: number, candidate: BatteryPlant['candidates'][number]): BatteryPlant {
   return nonlinearBatteryPlant({
-    name: 'holdout-level-valve-g0.96',
-    description: 'level loop, valve saturating at 0 and 1, √h outflow, measured disturbance, 2 states, γ 0.96 (hold-out)',
+    name, description,
     stateNames: ['level_m', 'disturbance_m3_s'], actionNames: ['valve_fraction'], discount: 0.96, stepsPerEpisode: 400,
     dynamics: levelValveDynamics, operatingState: [LEVEL_SETPOINT_M, 0], burnIn: 200,
-    behaviour: valveCommand(1, 0, 0.1),
-    candidates: [
-      { name: 'firmer', description: 'K = 3 per m, feedforward 20 per m³/s, dither 0.05', spec: valveCommand(3, 20, 0.05) },
-    ],
-    rolloutsPerStart: 400,
+    behaviour: valveCommand(1, 0, loggedDither), candidates: [candidate], rolloutsPerStart: 400,
   });
+}
+
+export function levelValvePlant(): BatteryPlant {
+  return levelLoop('holdout-level-valve-g0.96', 'level loop, valve saturating at 0 and 1, √h outflow, measured disturbance, 2 states, γ 0.96 (hold-out)', 0.1,
+    { name: 'firmer', description: 'K = 3 per m, feedforward 20 per m³/s, dither 0.05', spec: valveCommand(3, 20, 0.05) });
 }
 
 /**
@@ -60,17 +61,8 @@ export function levelValvePlant(): BatteryPlant {
  * so it stays within the logged actions except on upsets, where the valve still hits its limit.
  */
 export function gentleLevelValvePlant(): BatteryPlant {
-  return nonlinearBatteryPlant({
-    name: 'holdout-level-valve-gentle-g0.96',
-    description: 'the hold-out level loop with a milder retune and a logging controller that dithers more (hold-out)',
-    stateNames: ['level_m', 'disturbance_m3_s'], actionNames: ['valve_fraction'], discount: 0.96, stepsPerEpisode: 400,
-    dynamics: levelValveDynamics, operatingState: [LEVEL_SETPOINT_M, 0], burnIn: 200,
-    behaviour: valveCommand(1, 0, 0.15),
-    candidates: [
-      { name: 'milder', description: 'K = 1.8 per m, feedforward 8 per m³/s, dither 0.08', spec: valveCommand(1.8, 8, 0.08) },
-    ],
-    rolloutsPerStart: 400,
-  });
+  return levelLoop('holdout-level-valve-gentle-g0.96', 'the hold-out level loop with a milder retune and a logging controller that dithers more (hold-out)', 0.15,
+    { name: 'milder', description: 'K = 1.8 per m, feedforward 8 per m³/s, dither 0.08', spec: valveCommand(1.8, 8, 0.08) });
 }
 
 export function holdoutPlants(): BatteryPlant[] {
