@@ -15,12 +15,13 @@
  * one training per point), and says so.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
-import { linearFqeReplicate } from '../core/bootstrap/linearFqeReplicate';
+import { linearFqeReplicateBlock } from '../core/bootstrap/linearFqeReplicate';
 import { occupancyShift } from '../core/diagnostics/occupancyShift';
 import { outsidePossible, possibleValues } from '../core/diagnostics/possibleValues';
 import { OCCUPANCY_SHIFT_LIMITS, occupancyShiftSeverity, shiftReference, type SeverityLevel } from '../core/diagnostics/severity';
 import type { CancellationCheck } from '../core/fqe/cancellation';
 import { CONFIDENCE_LEVEL, MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
+import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import { PolicyError, type GaussianPolicy } from '../core/policy';
 import { RetuneAxisError } from '../core/retune/retuneAxes';
 import { retuneGrid, type RetuneRoute } from '../core/retune/retuneGrid';
@@ -113,7 +114,9 @@ function runRetuneMap(
   });
   const e = plan.episodes.episodes, d = features.dim;
   const withIntervals = e >= 10 && e * d * d * policies.length * MAP_RESAMPLES <= INTERVAL_BUDGET;
-  const c = new Uint32Array(e), level = plan.project.bootstrap?.level ?? CONFIDENCE_LEVEL.default;
+  const level = plan.project.bootstrap?.level ?? CONFIDENCE_LEVEL.default;
+  // The same resamples at every point (seed, b), drawn once; each point's replicates are taken a block at a time (linearFqeReplicateBlock).
+  const resamples = withIntervals ? Array.from({ length: MAP_RESAMPLES }, (_, b) => episodeMultiplicities(e, plan.seed, b)) : [];
   const points: RetuneMapPoint[] = [], possible = possibleValues(data.rewards, plan.discount);
   retuneGrid({
     data, features, policies, discount: plan.discount, ridge: settings.ridge, quadratureNodes: plan.quadratureNodes,
@@ -125,15 +128,14 @@ function runRetuneMap(
       const shiftValue = 'shift' in shift ? shift.shift : null;
       let interval: [number, number] | null = null;
       if (withIntervals && m.episodeSums && m.weights && m.policyValue !== null) {
-        const values: (number | null)[] = [];
-        for (let b = 0; b < MAP_RESAMPLES; b++) {
-          episodeMultiplicities(e, plan.seed, b, c);
-          const r = linearFqeReplicate({
-            ridge: settings.ridge, constantIndex: features.constantIndex, discount: plan.discount, solver: 'fixedPoint', tolerance: settings.tolerance,
-            maxIterations: settings.maxIterations, initialWeights: m.weights, sums: m.episodeSums, startFeatures: m.startFeatures,
-            startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode,
-          }, c);
-          values.push(r.policyValue);
+        const setup = {
+          ridge: settings.ridge, constantIndex: features.constantIndex, discount: plan.discount, solver: 'fixedPoint' as const, tolerance: settings.tolerance,
+          maxIterations: settings.maxIterations, initialWeights: m.weights, sums: m.episodeSums, startFeatures: m.startFeatures,
+          startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode,
+        };
+        const scratch = Array.from({ length: RESAMPLE_BLOCK }, () => new Float64Array(setup.sums.stride)), values: (number | null)[] = [];
+        for (let first = 0; first < MAP_RESAMPLES; first += RESAMPLE_BLOCK) {
+          for (const r of linearFqeReplicateBlock(setup, resamples.slice(first, first + RESAMPLE_BLOCK), scratch)) values.push(r.policyValue);
         }
         interval = intervalEstimate(m.policyValue, values, level, sign).percentile;
       }
