@@ -1,17 +1,12 @@
 /**
  * The CLI's helper thread (helperThread.ts starts it): runs the per-decision cross-checks' share of
- * the resample loop (src/pipeline/perDecisionBlocks.ts) on the job it was given, posting each block
- * as soon as it is done, ahead of the loop. It listens for nothing: the loop's side ends it with
- * Worker.terminate(), which stops it even inside a block. An error is posted once, as words.
+ * the resample loop on the job it was given (src/pipeline/helperFeed.ts, serveHelperJob), posting
+ * each block as soon as it is done, ahead of the loop. It listens for nothing: the loop's side ends
+ * it with Worker.terminate(), which stops it even inside a block.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { perDecisionBlocks, type PerDecisionJob } from '../pipeline/perDecisionBlocks';
+import { serveHelperJob } from '../pipeline/helperFeed';
+import type { PerDecisionJob } from '../pipeline/perDecisionBlocks';
 
 const port = parentPort;
-if (port) {
-  try {
-    for (const block of perDecisionBlocks(workerData as PerDecisionJob)) port.postMessage(block);
-  } catch (error) {
-    port.postMessage({ stopped: `stopped: ${error instanceof Error ? error.message : String(error)}` });
-  }
-}
+if (port) serveHelperJob(workerData as PerDecisionJob, (answer) => port.postMessage(answer));
