@@ -8,47 +8,24 @@
  * exactly (the reference is the one-thread route: the same functions on the same multiplicities);
  * only `settings.threads` says which route ran. Below the helper's minimum work no thread starts.
  */
-import { mkdtemp, readFile, rm } from 'node:fs/promises';
-import { createServer, type Server } from 'node:http';
-import { tmpdir } from 'node:os';
+import { readFile } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
-import { chromium, type BrowserContext, type Page } from 'playwright-core';
-import { build } from 'vite';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { rendererResponse } from '../../src/main/rendererProtocol';
 import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE } from '../../src/pipeline/perDecisionRoute';
-import { requireChromium } from '../support/chromiumPath';
-import { CHROMIUM_ARGS } from './harness/launch';
+import { openHelperPage, type HelperPage } from './harness/helperPage';
 import type { HelperRun } from './helper-page/main';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const sample = resolve(here, '../../sample-projects/tank-levels');
-let outDir: string, profile: string, server: Server, origin: string, context: BrowserContext, page: Page;
-const pageErrors: string[] = [];
 /** Fewer than the default 1,000 to keep the test short: still 25 blocks of eight through the helper. */
 const RESAMPLES = 200;
-
-async function serve(): Promise<void> {
-  server = createServer(async (request, response) => {
-    const mapped = rendererResponse(`${origin}${request.url ?? '/'}`, origin);
-    if (mapped.kind === 'refused') return void response.writeHead(mapped.status, mapped.headers).end(mapped.reason);
-    try {
-      const body = await readFile(join(outDir, mapped.relativePath));
-      response.writeHead(200, mapped.headers).end(body);
-    } catch {
-      response.writeHead(404).end();
-    }
-  });
-  await new Promise<void>((done) => server.listen(0, '127.0.0.1', done));
-  const address = server.address();
-  origin = `http://127.0.0.1:${typeof address === 'object' && address ? address.port : 0}`;
-}
+let helper: HelperPage;
 
 async function assess(minimumWork: number | null): Promise<HelperRun & { assessment: Record<string, unknown> }> {
   const [text, csv] = await Promise.all([readFile(join(sample, 'tank-levels.spcritic'), 'utf8'), readFile(join(sample, 'tank-levels.csv'))]);
   const projectText = JSON.stringify({ ...(JSON.parse(text) as object), bootstrap: { resamples: RESAMPLES } });
-  const run = await page.evaluate(([text, bytes, work]) => window.helperPage.assess(text, new Uint8Array(bytes), work),
+  const run = await helper.page.evaluate(([text, bytes, work]) => window.helperPage.assess(text, new Uint8Array(bytes), work),
     [projectText, Array.from(csv), minimumWork] as const);
   return { ...run, assessment: run.ok ? (JSON.parse(run.json) as Record<string, unknown>) : {} };
 }
@@ -60,25 +37,11 @@ function withoutThreads(assessment: Record<string, unknown>): unknown {
 }
 
 beforeAll(async () => {
-  outDir = await mkdtemp(join(tmpdir(), 'spc-helper-page-'));
-  await build({
-    root: join(here, 'helper-page'), configFile: false, logLevel: 'warn', base: './',
-    build: { outDir, emptyOutDir: true, minify: false, chunkSizeWarningLimit: 8000 }, worker: { format: 'es' },
-  });
-  await serve();
-  profile = await mkdtemp(join(tmpdir(), 'spc-helper-chromium-'));
-  context = await chromium.launchPersistentContext(profile, { executablePath: requireChromium(), headless: true, args: CHROMIUM_ARGS });
-  page = context.pages()[0] ?? (await context.newPage());
-  page.on('console', (m) => { if (m.type() === 'error') pageErrors.push(m.text()); });
-  page.on('pageerror', (e) => pageErrors.push(e.message));
-  await page.goto(`${origin}/index.html`);
-  await page.waitForFunction(() => window.helperReady === true);
+  helper = await openHelperPage();
 }, 240_000);
 
 afterAll(async () => {
-  await context?.close();
-  await new Promise((done) => (server ? server.close(done) : done(undefined)));
-  await Promise.all([outDir, profile].filter(Boolean).map((d) => rm(d, { recursive: true, force: true })));
+  await helper?.close();
 });
 
 describe('the app’s helper worker (e2e)', () => {
@@ -89,7 +52,7 @@ describe('the app’s helper worker (e2e)', () => {
     expect((one.assessment.settings as { threads: string }).threads).toBe(ONE_THREAD_NOTE);
     expect((two.assessment.settings as { threads: string }).threads).toBe(HELPER_THREAD_NOTE);
     expect(withoutThreads(two.assessment)).toEqual(withoutThreads(one.assessment));
-    expect(pageErrors).toEqual([]);
+    expect(helper.errors).toEqual([]);
   }, 240_000);
 
   it('starts no thread below its minimum work', async () => {

@@ -22,6 +22,12 @@ const api = {
       worker.postMessage({ projectText, csv, minimumWork }, [csv.buffer]);
     });
   },
+  /** assess() on a project and a data file this page's server hands out (a large CSV for the app bench); also the wall time in ms. */
+  async assessServed(projectText: string, csvPath: string, minimumWork: number | null): Promise<HelperRun & { ms: number }> {
+    const csv = new Uint8Array(await (await fetch(csvPath)).arrayBuffer());
+    const started = performance.now(), run = await api.assess(projectText, csv, minimumWork);
+    return { ...run, ms: performance.now() - started };
+  },
 };
 
 declare global {
