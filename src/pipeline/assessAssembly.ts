@@ -162,10 +162,15 @@ function impossibleValue(plan: EvaluationPlan, range: PossibleValues, work: Cand
 
 /** A network's J has no bootstrap replicates here; its own interval (run resamples of the last-layer solve) stands in. */
 function withNetworkInterval(estimate: IntervalEstimate, work: CandidateWork, sign: number): IntervalEstimate {
-  const iv = work.model.fit.interval;
-  if (estimate.percentile || !iv) return estimate;
-  const interval: [number, number] = sign > 0 ? [iv.lower, iv.upper] : [-iv.upper, -iv.lower];
+  const iv = work.model.fit.interval, interval = networkInterval(work, sign);
+  if (estimate.percentile || !iv || !interval) return estimate;
   return { ...estimate, percentile: interval, standardError: iv.standardError, covers: work.model.fit.intervalCovers ?? estimate.covers };
+}
+
+/** A network fit's interval of J in the project's sense; null for a fit without one. */
+function networkInterval(work: CandidateWork, sign: number): [number, number] | null {
+  const iv = work.model.fit.interval;
+  return !iv ? null : sign > 0 ? [iv.lower, iv.upper] : [-iv.upper, -iv.lower];
 }
 
 /** The network and the degree-2 linear estimate it started from disagree beyond their intervals: serious (approximatorAgreement.ts). */
@@ -176,21 +181,23 @@ function networkDisagreement(work: CandidateWork): AssessmentWarning[] {
 }
 
 /**
- * A model without resamples of its own (a network) is not in the class verdict, which needs
- * intervals; its value must still lie in the range reported, so the range is widened to it and the
- * verdict is "not settled" when it lies outside the classes' range.
+ * A model without resamples of its own (a network) is not in the class verdict, which needs paired
+ * replicates; its value and its own interval (networkInterval.ts) must still lie in the range
+ * reported, which spans every class's interval, so the range is widened to them, and the verdict is
+ * "not settled" when its value lies outside the classes' range or it disagrees with the linear
+ * estimate (approximatorAgreement.ts).
  */
 function withUnresampledOwn(classes: FunctionClassAssessment | null, work: CandidateWork, sign: number): FunctionClassAssessment | null {
   if (!classes || work.replicate) return classes;
-  const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range;
-  const entry = { label: work.classes[0].label, value: own, interval: null, standardError: null };
+  const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range, interval = networkInterval(work, sign);
+  const entry = { label: work.classes[0].label, value: own, interval, standardError: work.model.fit.interval?.standardError ?? null };
+  const [ownLo, ownHi] = interval ?? [own, own];
+  const widened = { ...classes, classes: [entry, ...classes.classes], range: [Math.min(lo, ownLo, own), Math.max(hi, ownHi, own)] as [number, number] };
   const agreement = work.model.fit.linearComparison?.agreement;
-  if (agreement?.verdict === 'disagree') {
-    return { ...classes, classes: [entry, ...classes.classes], settled: false, range: [Math.min(lo, own), Math.max(hi, own)], reason: `Not settled: ${agreement.message}` };
-  }
-  if (own >= lo && own <= hi) return { ...classes, classes: [entry, ...classes.classes] };
+  if (agreement?.verdict === 'disagree') return { ...widened, settled: false, reason: `Not settled: ${agreement.message}` };
+  if (own >= lo && own <= hi) return widened;
   return {
-    ...classes, classes: [entry, ...classes.classes], settled: false, range: [Math.min(lo, own), Math.max(hi, own)],
+    ...widened, settled: false,
     reason: `Not settled: the ${work.classes[0].label} value ${own.toPrecision(4)} lies outside the range of the linear classes, ${rangeText([lo, hi])}.`,
   };
 }

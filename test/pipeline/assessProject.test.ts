@@ -164,8 +164,10 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
         expect(c.policyValue.percentile).toEqual(network.interval);
         expect(['agree', 'inconclusive', 'disagree']).toContain(network.agreement.verdict);
         expect(c.diagnostics.shiftFeatures).toMatch(/degree-2 polynomial/); // measured in a linear class beside the network
-        expect(c.reportedRange![0]).toBeLessThanOrEqual(c.policyValue.value); // the range reported holds the network's own value
-        expect(c.reportedRange![1]).toBeGreaterThanOrEqual(c.policyValue.value);
+        // The range reported spans every class's interval, the network's own among them (its value and its interval).
+        expect(c.reportedRange![0]).toBeLessThanOrEqual(Math.min(c.policyValue.value, c.policyValue.percentile![0]));
+        expect(c.reportedRange![1]).toBeGreaterThanOrEqual(Math.max(c.policyValue.value, c.policyValue.percentile![1]));
+        expect(c.functionClasses!.classes[0].interval).toEqual(c.policyValue.percentile);
         expect(c.crossChecks.find((x) => x.method === 'linearQuadraticModel')!.estimate!.percentile).not.toBeNull();
       });
       expect(a.behaviour.percentile).not.toBeNull();
