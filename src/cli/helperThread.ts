@@ -11,7 +11,7 @@
  * tsx's loader through its API and then imports the thread module.
  */
 import { Worker } from 'node:worker_threads';
-import { transferables, type PerDecisionJob } from '../pipeline/perDecisionBlocks';
+import { transferables, type ResampleJob } from '../pipeline/perDecisionBlocks';
 import type { HelperAnswer, HelperFeed, ResampleHelper } from '../pipeline/perDecisionRoute';
 
 const fromSource = import.meta.url.endsWith('.ts');
@@ -25,10 +25,12 @@ function bootCode(): string {
 }
 
 /**
- * Per-decision work (logged entries × resamples) below which the CLI keeps to one thread. Measured
- * on the peer plant's logs (bench/peerBench.ts): 10^8 (100,000 transitions, 1,000 resamples) is about
- * 0.9 s of the helper's CPU against about 0.3 s to start a thread and 20–50 MiB more memory; 10^9,
- * about 7 s. Our choice: lend it from 3·10^8, where the work is some ten times the start.
+ * Work the helper could take (resampleWork in src/pipeline/perDecisionRoute.ts: logged entries ×
+ * resamples, the linear-quadratic model's moment values counted at a third of an entry each) below
+ * which the CLI keeps to one thread. Measured on the peer plant's logs (bench/peerBench.ts) for the
+ * per-decision share alone: 10^8 (100,000 transitions, 1,000 resamples) is about 0.9 s of the
+ * helper's CPU against about 0.3 s to start a thread and 20–50 MiB more memory; 10^9, about 7 s.
+ * Our choice: lend it from 3·10^8, where the work is some ten times the start.
  */
 export const HELPER_MINIMUM_WORK = 3e8;
 
@@ -36,7 +38,7 @@ export function helperThread(minimumWork = HELPER_MINIMUM_WORK): ResampleHelper 
   return { minimumWork, start: startHelper };
 }
 
-function startHelper(job: PerDecisionJob): HelperFeed {
+function startHelper(job: ResampleJob): HelperFeed {
   const worker = new Worker(bootCode(), { eval: true, workerData: job, transferList: transferables(job) });
   const answers: HelperAnswer[] = [];
   let waiting: ((answer: HelperAnswer) => void) | null = null, ended: string | null = null;

@@ -1,19 +1,22 @@
 /**
- * Where the resample loop's per-decision cross-checks are computed: on a helper thread the host
+ * Where the resample loop's share that a second core can take is computed — the per-decision
+ * cross-checks and the linear-quadratic model's refits and values: on a helper thread the host
  * lends (the CLI's is built on node:worker_threads, src/cli/helperThread.ts), which runs every block
  * ahead of the loop while the loop's own thread takes the other estimators of each block — a
  * pipeline over two cores — or, without one, on the loop's own thread, block by block. Both routes
- * run perDecisionBlocks.ts's functions on the same inputs, so the replicates are the same to the
- * last bit; the route only changes which core does the work.
+ * run perDecisionBlocks.ts's functions (and modelBlocks.ts's) on the same inputs, so the replicates
+ * are the same to the last bit; the route only changes which core does the work.
  *
  * Any trouble with the helper (it cannot start, stops, answers out of turn) sends the loop back to
- * its own route from the block in question, never to a failure: the entries are ranked again from
- * the data (the helper holds the transferred tables), and an error of the numerics themselves then
- * arises on the loop's thread exactly as without a helper. `note` says which route ran, and why.
+ * its own route from the block in question, never to a failure: the entries are ranked again and
+ * the model's moments formed again from the data (the helper holds the transferred arrays), and an
+ * error of the numerics themselves then arises on the loop's thread exactly as without a helper.
+ * `note` says which route ran, and why.
  */
 import type { PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
 import { prepareResampleEntries } from '../core/offPolicy/perDecisionResamples';
-import { perDecisionBlock, receiveOutcome, type PerDecisionJob, type PerDecisionOutcome, type SentBlock } from './perDecisionBlocks';
+import { answersModelBlock, modelMomentValues, type ModelJob } from './modelBlocks';
+import { receiveOutcome, shareOfBlock, type BlockShare, type ResampleJob, type SentBlock } from './perDecisionBlocks';
 
 /** What a host's helper thread answers for the next block, in order; `stopped` when it can answer no more. */
 export type HelperAnswer = SentBlock | { stopped: string };
@@ -27,43 +30,60 @@ export interface HelperFeed {
 
 /** A host's helper thread for the resample loop. start may throw; the loop then keeps to its own thread. */
 export interface ResampleHelper {
-  /** Lend the thread only when the per-decision work (logged entries × resamples) is at least this: below it a thread costs more to start than it saves. Default 0. */
+  /** Lend the thread only when the work it could take (resampleWork) is at least this: below it a thread costs more to start than it saves. Default 0. */
   readonly minimumWork?: number;
-  /** Runs perDecisionBlocks(job) on the helper; the job's ranked tables are transferred there (unusable here afterwards). */
-  start(job: PerDecisionJob): HelperFeed;
+  /** Runs helperBlocks(job) on the helper; the job's ranked tables are transferred there (unusable here afterwards). */
+  start(job: ResampleJob): HelperFeed;
 }
 
 export interface PerDecisionRoute {
-  /** Per data (in the order given), the outcomes of resamples first … first + drawn.length − 1. */
-  block(first: number, drawn: readonly Uint32Array[]): Promise<PerDecisionOutcome[][]>;
-  /** Which thread computed the per-decision resamples, in words for the details of a result. */
+  /** Per data (in the order given), the outcomes of resamples first … first + drawn.length − 1; the model's values on them. */
+  block(first: number, drawn: readonly Uint32Array[]): Promise<BlockShare>;
+  /** Which thread computed the per-decision and model resamples, in words for the details of a result. */
   readonly note: string;
   close(): void;
 }
 
 export const ONE_THREAD_NOTE = 'one thread for the resamples';
-export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks on the second';
+export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks and the linear-quadratic model on the second';
 
+/**
+ * The work a helper could take, in logged entries read per resample (the per-decision unit) times
+ * resamples: a moment value of the model counts as a third of an entry. Measured on the peer plant
+ * (bench/peerBench.ts, 1,000,000 transitions, 1,000 resamples): 2·10^6 entries per resample took the
+ * helper about 7 s, 2.8·10^6 moment values (with the candidate's value on each refit) about 3.7 s.
+ */
+export function resampleWork(data: readonly PerDecisionData[], model: ModelJob | null, resamples: number): number {
+  return (data.reduce((total, d) => total + d.scaled.length, 0) + (model ? modelMomentValues(model) / MOMENT_VALUES_PER_ENTRY : 0)) * resamples;
+}
+const MOMENT_VALUES_PER_ENTRY = 3;
+
+/**
+ * model: the model's job, made on demand (null: the loop has no model). The first call may hand
+ * over arrays the loop already holds; a later one (after a helper was given them) forms them again.
+ */
 export function openPerDecisionRoute(
-  data: readonly PerDecisionData[], job: Omit<PerDecisionJob, 'entries'>, helper: ResampleHelper | undefined,
+  data: readonly PerDecisionData[], job: Omit<ResampleJob, 'entries' | 'model'>, helper: ResampleHelper | undefined, model: (() => ModelJob) | null = null,
 ): PerDecisionRoute {
-  let own: PerDecisionJob | null = null, feed: HelperFeed | null = null, note = ONE_THREAD_NOTE;
-  const ownJob = (): PerDecisionJob => (own ??= { ...job, entries: data.map(prepareResampleEntries) });
+  let own: ResampleJob | null = null, feed: HelperFeed | null = null, note = ONE_THREAD_NOTE, policies: ModelJob['policies'] | null = null;
+  const ownJob = (): ResampleJob => (own ??= { ...job, entries: data.map(prepareResampleEntries), model: model && model() });
   const keepToOwn = (why: string, first: number): void => {
     feed?.close();
     feed = null;
-    own = null; // the helper holds the tables it was given: rank again
+    own = null; // the helper holds the tables and moments it was given: form them again
     note = `${ONE_THREAD_NOTE} (${first === 0 ? '' : `from resample ${first + 1}; `}the helper thread ${why})`;
   };
-  const work = data.reduce((total, d) => total + d.scaled.length, 0) * job.resamples;
-  if (helper && data.length > 0 && work < (helper.minimumWork ?? 0)) note = `${ONE_THREAD_NOTE} (too little per-decision work to be worth a second thread)`;
-  else if (helper && data.length > 0) {
-    const given = ownJob(); // ranked here: an error of the data's arises on this thread, as without a helper
-    try {
-      feed = helper.start(given);
-      note = HELPER_THREAD_NOTE;
-    } catch (error) {
-      keepToOwn(`could not start: ${error instanceof Error ? error.message : String(error)}`, 0);
+  if (helper && (data.length > 0 || model)) {
+    const given = ownJob(); // formed here: an error of the data's arises on this thread, as without a helper
+    if (resampleWork(data, given.model, job.resamples) < (helper.minimumWork ?? 0)) note = `${ONE_THREAD_NOTE} (too little work to be worth a second thread)`;
+    else {
+      try {
+        policies = given.model && given.model.policies; // plain objects, cloned: still readable here
+        feed = helper.start(given);
+        note = HELPER_THREAD_NOTE;
+      } catch (error) {
+        keepToOwn(`could not start: ${error instanceof Error ? error.message : String(error)}`, 0);
+      }
     }
   }
   return {
@@ -71,10 +91,11 @@ export function openPerDecisionRoute(
       if (feed) {
         const answer = await feed.next();
         if ('stopped' in answer) keepToOwn(answer.stopped, first);
-        else if (!answersBlock(answer, first, data.length, drawn.length)) keepToOwn(`answered out of turn (resample ${answer.first + 1})`, first);
-        else return answer.outcomes.map((row) => row.map(receiveOutcome));
+        else if (!answersBlock(answer, first, data.length, drawn.length) || !answersModels(answer, policies, drawn.length)) {
+          keepToOwn(`answered out of turn (resample ${answer.first + 1})`, first);
+        } else return { perDecision: answer.outcomes.map((row) => row.map(receiveOutcome)), models: answer.models };
       }
-      return perDecisionBlock(ownJob(), drawn);
+      return shareOfBlock(ownJob(), drawn);
     },
     get note() {
       return note;
@@ -89,4 +110,9 @@ export function openPerDecisionRoute(
 /** The answer is the block asked for: its first resample, one row per data, one outcome per resample drawn. */
 function answersBlock(answer: SentBlock, first: number, rows: number, count: number): boolean {
   return answer.first === first && answer.outcomes.length === rows && answer.outcomes.every((row) => row.length === count);
+}
+
+/** The answer's model values match the job given: none without a model job, else answersModelBlock. */
+function answersModels(answer: SentBlock, policies: ModelJob['policies'] | null, count: number): boolean {
+  return policies === null ? answer.models === null : answer.models !== null && answersModelBlock(answer.models, { policies }, count);
 }

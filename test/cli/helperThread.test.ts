@@ -14,17 +14,20 @@ import { EXIT } from '../../src/cli/exitStatus';
 import { evaluateProjectFile } from '../../src/cli/evaluateProjectFile';
 import { helperThread } from '../../src/cli/helperThread';
 import type { TerminalProgress } from '../../src/cli/terminalProgress';
+import { modelRegressions } from '../../src/core/offPolicy/linearQuadraticModel';
 import { ImportanceSamplingError, perDecisionData, type PerDecisionData } from '../../src/core/offPolicy/perDecisionEstimators';
 import { RESAMPLE_BLOCK } from '../../src/core/offPolicy/perDecisionResamples';
+import { createGaussianPolicy } from '../../src/core/policy';
 import { assessRun } from '../../src/pipeline/assessProject';
 import { assessmentSettingsFor, type AssessmentSettings } from '../../src/pipeline/assessSettings';
-import { drawBlock, perDecisionBlocks, type PerDecisionOutcome } from '../../src/pipeline/perDecisionBlocks';
-import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, type HelperFeed, type ResampleHelper } from '../../src/pipeline/perDecisionRoute';
+import type { ModelBlockValues, ModelJob } from '../../src/pipeline/modelBlocks';
+import { drawBlock, helperBlocks, type PerDecisionOutcome } from '../../src/pipeline/perDecisionBlocks';
+import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, resampleWork, type HelperFeed, type ResampleHelper } from '../../src/pipeline/perDecisionRoute';
 import { openProject } from '../../src/pipeline/openProject';
 import { CANCELLED_PROBLEM, startRun, type ProjectRun } from '../../src/pipeline/projectRun';
 import { unevenLogInputs } from '../core/offPolicy/unevenCascadeLog';
 
-const discount = 0.95, { data: log, table, tails, values } = unevenLogInputs(discount), e = log.episodeCount;
+const discount = 0.95, { data: log, index, table, tails, values } = unevenLogInputs(discount), e = log.episodeCount;
 
 /** Only run 1 (one of the longest) keeps a non-zero weight: a resample without it has none at step 1, an ImportanceSamplingError (invented for the test). */
 function onlyRunOneWeighs(data: PerDecisionData): PerDecisionData {
@@ -36,16 +39,46 @@ function onlyRunOneWeighs(data: PerDecisionData): PerDecisionData {
 const sources = () => [perDecisionData(table, values, tails), perDecisionData(table, null), onlyRunOneWeighs(perDecisionData(table, values, tails))];
 const job = { discount, episodes: e, seed: 11, resamples: 45 }; // 45: the last block is short
 
+/**
+ * The linear-quadratic model's share on the same log: a candidate and the logging controller, and
+ * one without values between them; one start state, of run 1, so a resample without run 1 weighs no
+ * start state and its value fails (ModelValueError, a null replicate) while the others are numbers.
+ * A fresh job at each call, as the loop forms one again after a helper was given the last.
+ */
+const modelJob = (): ModelJob => ({
+  regressions: modelRegressions(log, index), discount,
+  policies: [createGaussianPolicy({ offset: [0], gain: [[-0.4, -0.2, -0.1]], std: [0.3] }, 3), null, createGaussianPolicy({ offset: [0.1], gain: [[-0.2, 0, -0.3]], std: [0.5] }, 3)],
+  starts: { states: log.startStates.slice(3, 6), followEpisodes: true, episode: Int32Array.of(1) },
+});
+
 /** Every block through a route, as the resample loop asks for them. */
-async function allOutcomes(helper: ResampleHelper | undefined): Promise<{ outcomes: PerDecisionOutcome[][][]; note: string }> {
-  const route = openPerDecisionRoute(sources(), job, helper), block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
-  const outcomes: PerDecisionOutcome[][][] = [];
+async function allOutcomes(helper: ResampleHelper | undefined, model: (() => ModelJob) | null = modelJob): Promise<{ outcomes: PerDecisionOutcome[][][]; models: (ModelBlockValues | null)[]; note: string }> {
+  const route = openPerDecisionRoute(sources(), job, helper, model), block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
+  const outcomes: PerDecisionOutcome[][][] = [], models: (ModelBlockValues | null)[] = [];
   try {
-    for (let first = 0; first < job.resamples; first += RESAMPLE_BLOCK) outcomes.push(await route.block(first, drawBlock(e, job.seed, first, job.resamples, block)));
+    for (let first = 0; first < job.resamples; first += RESAMPLE_BLOCK) {
+      const share = await route.block(first, drawBlock(e, job.seed, first, job.resamples, block));
+      outcomes.push(share.perDecision);
+      models.push(share.models);
+    }
   } finally {
     route.close();
   }
-  return { outcomes, note: route.note };
+  return { outcomes, models, note: route.note };
+}
+
+/** Every model value the same number (Object.is: the same bits) or null in the same places, block by block. */
+function expectSameModels(a: (ModelBlockValues | null)[], b: (ModelBlockValues | null)[]): void {
+  expect(b.length).toBe(a.length);
+  a.forEach((rows, s) => {
+    if (rows === null) return expect(b[s]).toBeNull();
+    expect(b[s]).not.toBeNull();
+    rows.forEach((row, k) => {
+      if (row === null) return expect(b[s]![k]).toBeNull();
+      expect(b[s]![k]!.length).toBe(row.length);
+      row.forEach((x, i) => expect(Object.is(x, b[s]![k]![i])).toBe(true));
+    });
+  });
 }
 
 function expectIdentical(a: PerDecisionOutcome[][][], b: PerDecisionOutcome[][][]): void {
@@ -67,7 +100,7 @@ function stoppingHelper(blocks: number): ResampleHelper & { closed: number } {
   const helper = {
     closed: 0,
     start(given: Parameters<ResampleHelper['start']>[0]): HelperFeed {
-      const answers = perDecisionBlocks(given);
+      const answers = helperBlocks(given);
       let answered = 0;
       return {
         next: async () => (answered++ < blocks ? answers.next().value ?? { stopped: 'ran out' } : { stopped: 'stopped: a test stop' }),
@@ -80,13 +113,14 @@ function stoppingHelper(blocks: number): ResampleHelper & { closed: number } {
 
 describe('the per-decision resamples on the helper thread', () => {
   it('stay on the loop’s own thread, without starting one, when the work is below the helper’s minimum', async () => {
-    const work = sources().reduce((t, d) => t + d.scaled.length, 0) * job.resamples;
+    const work = resampleWork(sources(), modelJob(), job.resamples);
     let started = 0;
     const small: ResampleHelper = { minimumWork: work + 1, start: () => { started++; throw new Error('not expected'); } };
     const own = await allOutcomes(undefined), kept = await allOutcomes(small);
     expect(started).toBe(0);
     expect(kept.note).toContain(ONE_THREAD_NOTE);
     expectIdentical(own.outcomes, kept.outcomes);
+    expectSameModels(own.models, kept.models);
   });
 
   it('equal the loop’s own route replicate by replicate, errors included', async () => {
@@ -97,6 +131,10 @@ describe('the per-decision resamples on the helper thread', () => {
     expect(failures).toBeGreaterThan(0); // the error route is exercised …
     expect(failures).toBeLessThan(job.resamples); // … and so is the estimate route on the same data
     expectIdentical(own.outcomes, helped.outcomes);
+    const values = own.models.flatMap((rows) => rows!.flatMap((row) => row ?? []));
+    expect(values.filter((v) => v === null).length).toBeGreaterThan(0); // a model value failure on some resamples …
+    expect(values.filter((v) => typeof v === 'number').length).toBeGreaterThan(0); // … and values on the others
+    expectSameModels(own.models, helped.models);
   });
 
   it('fall back to the loop’s own thread, with the same numbers, when the helper cannot start or stops', async () => {
@@ -104,10 +142,29 @@ describe('the per-decision resamples on the helper thread', () => {
     const refused = await allOutcomes({ start: () => { throw new Error('no threads here'); } });
     expect(refused.note).toBe(`${ONE_THREAD_NOTE} (the helper thread could not start: no threads here)`);
     expectIdentical(own.outcomes, refused.outcomes);
+    expectSameModels(own.models, refused.models);
     const stopping = stoppingHelper(2), halfway = await allOutcomes(stopping);
     expect(halfway.note).toBe(`${ONE_THREAD_NOTE} (from resample ${2 * RESAMPLE_BLOCK + 1}; the helper thread stopped: a test stop)`);
     expect(stopping.closed).toBeGreaterThan(0);
     expectIdentical(own.outcomes, halfway.outcomes);
+    expectSameModels(own.models, halfway.models);
+  });
+
+  it('take the model’s share alone, the same as on the loop’s own thread, when there are no per-decision data', async () => {
+    const route = (helper: ResampleHelper | undefined) => openPerDecisionRoute([], job, helper, modelJob);
+    const ownRoute = route(undefined), helped = route(helperThread(0)), block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
+    try {
+      expect(helped.note).toBe(HELPER_THREAD_NOTE);
+      for (let first = 0; first < job.resamples; first += RESAMPLE_BLOCK) {
+        const drawn = drawBlock(e, job.seed, first, job.resamples, block);
+        const a = await ownRoute.block(first, drawn), b = await helped.block(first, drawn);
+        expectSameModels([a.models], [b.models]);
+      }
+      expect(helped.note).toBe(HELPER_THREAD_NOTE); // it never fell back
+    } finally {
+      ownRoute.close();
+      helped.close();
+    }
   });
 });
 
