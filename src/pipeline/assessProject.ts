@@ -19,7 +19,7 @@ import type { Assessment } from './assessment';
 import { AssessmentError, candidateWork, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
 import { classWorks } from './assessClasses';
-import { rolloutCheck, rolloutModel, type RolloutOutcome } from './assessRollouts';
+import { rolloutCheck, rolloutJobs, rolloutModel, type RolloutOutcome } from './assessRollouts';
 import { finalStateValues } from './model/completedReturn';
 import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
@@ -95,11 +95,12 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
     regressions: modelCheck.regressions, applicable: modelReasons.map((r) => r === null),
     baselineApplicable: baseline !== null && modelInapplicability(modelCheck, baseline.model.policy) === null,
   } : null;
-  const dynamics = rolloutModel(context);
-  const rollouts: RolloutOutcome[] = works.map((w) => ('reason' in dynamics ? { reason: dynamics.reason } : rolloutCheck(context, w, dynamics, settings)));
-  const baselineRollout = baseline ? ('reason' in dynamics ? { reason: dynamics.reason } : rolloutCheck(context, baseline, dynamics, settings)) : null;
-  const replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings,
+  const dynamics = rolloutModel(context), checked = [...works, ...(baseline ? [baseline] : [])];
+  const replicates = await runResamples(context, { works, baseline, baselineEnds, model, rollouts: 'reason' in dynamics ? null : rolloutJobs(context, checked, dynamics, settings) }, settings,
     (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
+  const simulated = replicates.rollouts;
+  const rolloutOf = (w: CandidateWork, k: number): RolloutOutcome => (simulated ? rolloutCheck(context, w, simulated[k], settings) : { reason: 'reason' in dynamics ? dynamics.reason : '' });
+  const rollouts = works.map(rolloutOf), baselineRollout = baseline && rolloutOf(baseline, works.length);
   const ranges = loggedActionRanges(data);
   const reference = {
     presentControllerShift: presentControllerShift(plan, baseline),

@@ -15,6 +15,7 @@ import type { AssessmentContext, CandidateWork, OffPolicyInputs } from './assess
 import type { AssessmentSettings } from './assessSettings';
 import type { ModelJob } from './modelBlocks';
 import { drawBlock } from './perDecisionBlocks';
+import type { RolloutValues, SentRolloutJob } from './rolloutValues';
 import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
 
 export type Replicates = (number | null)[];
@@ -34,6 +35,8 @@ export interface ReplicateSet {
   /** The present controller's model (the baseline), and the logged return completed by its fitted value. */
   presentController: CandidateReplicates | null;
   completedReturn: Replicates | null;
+  /** The rollout check's simulations per policy of its job (the candidates, then the present controller); null without a one-step model. */
+  rollouts: RolloutValues[] | null;
   /** Which thread computed what (perDecisionRoute.ts), for the details of the result. */
   threads: string;
 }
@@ -49,6 +52,8 @@ export interface ResampleInputs {
   /** V̂ of the baseline at each run's end and the tail weights γ^T (0 after a terminal state), for the completed return. */
   baselineEnds: { values: Float64Array; tailWeights: Float64Array } | null;
   model: { regressions: ModelRegressions; applicable: boolean[]; baselineApplicable: boolean } | null;
+  /** The rollout check's simulations, for the route to run (assessRollouts.ts, rolloutJobs); null without a one-step model. */
+  rollouts: (() => SentRolloutJob) | null;
 }
 
 /** Yield to the event loop about this often, so a stop request or a surface query can get through. */
@@ -63,7 +68,7 @@ export async function runResamples(
   const { works, baseline } = inputs;
   const withPerDecision = [...works, ...(baseline ? [baseline] : [])].filter((w) => 'perDecision' in w.offPolicy);
   const route = openPerDecisionRoute(withPerDecision.map((w) => (w.offPolicy as OffPolicyInputs).perDecision),
-    { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper, modelJobOf(context, inputs));
+    { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper, { model: modelJobOf(context, inputs), rollouts: inputs.rollouts });
   try {
     return await resampleLoop(context, inputs, settings, { route, withPerDecision }, onProgress);
   } finally {
@@ -79,7 +84,7 @@ async function resampleLoop(
   const { works, baseline, baselineEnds, model } = inputs, { route, withPerDecision } = perDecisionOf;
   const out: ReplicateSet = {
     loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false)),
-    presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [], threads: '',
+    presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [], rollouts: null, threads: '',
   };
   const block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
   let reported = -PROGRESS_EVERY;
@@ -100,6 +105,7 @@ async function resampleLoop(
     });
   }
   onProgress?.({ done: settings.resamples, total: settings.resamples });
+  out.rollouts = await route.rollouts(context.cancel);
   out.threads = route.note;
   return out;
 }

@@ -1,20 +1,22 @@
 /**
  * The share of the resample loop (assessResamples.ts) a helper thread can take — the per-decision
- * cross-checks and, where the loop has one, the linear-quadratic model (modelBlocks.ts) — written
- * once for whichever thread runs it: block by block, the same multiplicities (episodeMultiplicities draws
- * resample b from its own seeded stream, so any thread draws the same ones) and the same
- * perDecisionResamples on the same ranked entries (and modelBlock on the same moments). A helper
- * thread runs `helperBlocks` ahead of the loop; the loop's own route calls `shareOfBlock`; the numbers are the same to the last
- * bit because the function and its inputs are.
+ * cross-checks and, where the loop has them, the linear-quadratic model (modelBlocks.ts) and, after
+ * the last block, the rollout check's simulations (rolloutValues.ts) — written once for whichever
+ * thread runs it: block by block, the same multiplicities (episodeMultiplicities draws resample b
+ * from its own seeded stream, so any thread draws the same ones) and the same perDecisionResamples
+ * on the same ranked entries (modelBlock on the same moments). A helper thread runs `helperBlocks`
+ * ahead of the loop; the loop's own route calls `shareOfBlock` (and rolloutValues); the numbers are
+ * the same to the last bit because the functions and their inputs are.
  *
- * What crosses a thread boundary is plain data: the job (its ranked tables transferred, not
- * copied: `transferables`) and each block's outcomes, an ImportanceSamplingError as its message,
- * and the model's values.
+ * What crosses a thread boundary is plain data: the job (its ranked tables and moments transferred,
+ * not copied: `transferables`) and each block's outcomes, an ImportanceSamplingError as its
+ * message, the model's values, and the rollouts' values or reasons.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import { perDecisionResamples, RESAMPLE_BLOCK, type ResampleEntries } from '../core/offPolicy/perDecisionResamples';
 import { modelBlock, modelTransferables, type ModelBlockValues, type ModelJob } from './modelBlocks';
+import { receiveRolloutJob, rolloutTransferables, rolloutValues, type RolloutValues, type SentRolloutJob } from './rolloutValues';
 
 /** Everything a thread needs to compute every block's share on its own. */
 export interface ResampleJob {
@@ -26,6 +28,13 @@ export interface ResampleJob {
   readonly resamples: number;
   /** The linear-quadratic model's replicates, where the loop has the model; else null. */
   readonly model: ModelJob | null;
+  /** The rollout check's simulations (rolloutValues.ts), answered after the last block; null without a one-step model. */
+  readonly rollouts: SentRolloutJob | null;
+}
+
+/** The rollout check's simulations as a helper answers them, after the last block. */
+export interface SentRollouts {
+  readonly rollouts: RolloutValues[];
 }
 
 export type PerDecisionOutcome = PerDecisionEstimates | ImportanceSamplingError;
@@ -63,13 +72,14 @@ export function shareOfBlock(job: Pick<ResampleJob, 'entries' | 'discount' | 'mo
   return { perDecision, models: job.model && modelBlock(job.model, drawn) };
 }
 
-/** Every block of the job in order, ready to send: what a helper thread runs. */
-export function* helperBlocks(job: ResampleJob): Generator<SentBlock, void, void> {
+/** Every block of the job in order, then the rollouts, ready to send: what a helper thread runs. */
+export function* helperBlocks(job: ResampleJob): Generator<SentBlock | SentRollouts, void, void> {
   const block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(job.episodes));
   for (let first = 0; first < job.resamples; first += RESAMPLE_BLOCK) {
     const share = shareOfBlock(job, drawBlock(job.episodes, job.seed, first, job.resamples, block));
     yield { first, outcomes: share.perDecision.map((row) => row.map(sendOutcome)), models: share.models };
   }
+  if (job.rollouts) yield { rollouts: rolloutValues(receiveRolloutJob(job.rollouts)) };
 }
 
 export function sendOutcome(outcome: PerDecisionOutcome): SentOutcome {
@@ -80,9 +90,9 @@ export function receiveOutcome(sent: SentOutcome): PerDecisionOutcome {
   return 'failure' in sent ? new ImportanceSamplingError(sent.failure) : sent;
 }
 
-/** The buffers of the job's ranked tables and model moments, each once: a host transfers these instead of copying them. */
+/** The buffers of the job's ranked tables and models' moments, each once: a host transfers these instead of copying them. */
 export function transferables(job: ResampleJob): ArrayBuffer[] {
-  const buffers = new Set<ArrayBuffer>(job.model ? modelTransferables(job.model) : []);
+  const buffers = new Set<ArrayBuffer>([...(job.model ? modelTransferables(job.model) : []), ...(job.rollouts ? rolloutTransferables(job.rollouts) : [])]);
   for (const en of job.entries) {
     for (const a of [en.reaching, en.offsets, en.rankOf, en.weight, en.weightedReward, en.weightedAction, en.weightedState, en.endRank, en.endWeightedValue]) {
       if (a && a.buffer instanceof ArrayBuffer) buffers.add(a.buffer);

@@ -1,25 +1,28 @@
 /**
  * Where the resample loop's share that a second core can take is computed — the per-decision
- * cross-checks and the linear-quadratic model's refits and values: on a helper thread the host
+ * cross-checks, the linear-quadratic model's refits and values, and the rollout check's simulations
+ * (answered after the last block, as the loop needs them only then): on a helper thread the host
  * lends (the CLI's is built on node:worker_threads, src/cli/helperThread.ts), which runs every block
  * ahead of the loop while the loop's own thread takes the other estimators of each block — a
  * pipeline over two cores — or, without one, on the loop's own thread, block by block. Both routes
- * run perDecisionBlocks.ts's functions (and modelBlocks.ts's) on the same inputs, so the replicates
+ * run perDecisionBlocks.ts's functions (modelBlocks.ts's, rolloutValues.ts's) on the same inputs, so the replicates
  * are the same to the last bit; the route only changes which core does the work.
  *
  * Any trouble with the helper (it cannot start, stops, answers out of turn) sends the loop back to
  * its own route from the block in question, never to a failure: the entries are ranked again and
- * the model's moments formed again from the data (the helper holds the transferred arrays), and an
+ * the models' moments formed again from the data (the helper holds the transferred arrays), and an
  * error of the numerics themselves then arises on the loop's thread exactly as without a helper.
  * `note` says which route ran, and why.
  */
+import type { CancellationCheck } from '../core/fqe/cancellation';
 import type { PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
-import { prepareResampleEntries } from '../core/offPolicy/perDecisionResamples';
+import { prepareResampleEntries, type ResampleEntries } from '../core/offPolicy/perDecisionResamples';
 import { answersModelBlock, modelMomentValues, type ModelJob } from './modelBlocks';
-import { receiveOutcome, shareOfBlock, type BlockShare, type ResampleJob, type SentBlock } from './perDecisionBlocks';
+import { receiveOutcome, shareOfBlock, type BlockShare, type ResampleJob, type SentBlock, type SentRollouts } from './perDecisionBlocks';
+import { answersRollouts, receiveRolloutJob, rolloutSteps, rolloutValues, type RolloutValues, type SentRolloutJob } from './rolloutValues';
 
-/** What a host's helper thread answers for the next block, in order; `stopped` when it can answer no more. */
-export type HelperAnswer = SentBlock | { stopped: string };
+/** What a host's helper thread answers for the next block (then the rollouts), in order; `stopped` when it can answer no more. */
+export type HelperAnswer = SentBlock | SentRollouts | { stopped: string };
 
 /** A running helper: its answers one block at a time, and its end. */
 export interface HelperFeed {
@@ -39,47 +42,69 @@ export interface ResampleHelper {
 export interface PerDecisionRoute {
   /** Per data (in the order given), the outcomes of resamples first … first + drawn.length − 1; the model's values on them. */
   block(first: number, drawn: readonly Uint32Array[]): Promise<BlockShare>;
-  /** Which thread computed the per-decision and model resamples, in words for the details of a result. */
+  /** After the last block: the rollout check's simulations per policy of its job (null without one). */
+  rollouts(cancel?: CancellationCheck): Promise<RolloutValues[] | null>;
+  /** Which thread computed the resamples' shares, in words for the details of a result. */
   readonly note: string;
   close(): void;
 }
 
-export const ONE_THREAD_NOTE = 'one thread for the resamples';
-export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks and the linear-quadratic model on the second';
-
-/**
- * The work a helper could take, in logged entries read per resample (the per-decision unit) times
- * resamples: a moment value of the model counts as a third of an entry. Measured on the peer plant
- * (bench/peerBench.ts, 1,000,000 transitions, 1,000 resamples): 2·10^6 entries per resample took the
- * helper about 7 s, 2.8·10^6 moment values (with the candidate's value on each refit) about 3.7 s.
- */
-export function resampleWork(data: readonly PerDecisionData[], model: ModelJob | null, resamples: number): number {
-  return (data.reduce((total, d) => total + d.scaled.length, 0) + (model ? modelMomentValues(model) / MOMENT_VALUES_PER_ENTRY : 0)) * resamples;
+/** The parts of the job beside the per-decision data, each made on demand (null: the loop has none); see openPerDecisionRoute. */
+export interface HelperShares {
+  readonly model: (() => ModelJob) | null;
+  readonly rollouts: (() => SentRolloutJob) | null;
 }
-const MOMENT_VALUES_PER_ENTRY = 3;
+
+export const ONE_THREAD_NOTE = 'one thread for the resamples';
+export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks, the linear-quadratic model and the model rollouts on the second';
 
 /**
- * model: the model's job, made on demand (null: the loop has no model). The first call may hand
- * over arrays the loop already holds; a later one (after a helper was given them) forms them again.
+ * The work a helper could take, in logged entries read per resample (the per-decision unit): the
+ * per-decision entries and the model's moment values (a third of an entry each) times resamples,
+ * plus the rollouts' simulated steps at 200 entries each. Measured on the peer plant
+ * (bench/peerBench.ts, 1,000,000 transitions, 1,000 resamples): 2·10^6 entries per resample took the
+ * helper about 7 s, 2.8·10^6 moment values (with the candidate's value on each refit) about 3.7 s,
+ * 3.3·10^6 simulated steps about 2.7 s.
+ */
+export function resampleWork(data: readonly PerDecisionData[], model: ModelJob | null, rollouts: SentRolloutJob | null, resamples: number): number {
+  const perResample = data.reduce((total, d) => total + d.scaled.length, 0) + (model ? modelMomentValues(model) / MOMENT_VALUES_PER_ENTRY : 0);
+  return perResample * resamples + (rollouts ? rolloutSteps(rollouts) * ENTRIES_PER_SIMULATED_STEP : 0);
+}
+const MOMENT_VALUES_PER_ENTRY = 3, ENTRIES_PER_SIMULATED_STEP = 200;
+
+/** A value made on first use and kept until reset. */
+function kept<T>(make: () => T): { get(): T; reset(): void } {
+  let held: { value: T } | null = null;
+  return { get: () => (held ??= { value: make() }).value, reset: () => { held = null; } };
+}
+
+/**
+ * shares: the model's and the rollouts' jobs, made on demand. The first call may hand over arrays
+ * the loop already holds; a later one (after a helper was given them) forms them again.
  */
 export function openPerDecisionRoute(
-  data: readonly PerDecisionData[], job: Omit<ResampleJob, 'entries' | 'model'>, helper: ResampleHelper | undefined, model: (() => ModelJob) | null = null,
+  data: readonly PerDecisionData[], job: Omit<ResampleJob, 'entries' | 'model' | 'rollouts'>, helper: ResampleHelper | undefined,
+  shares: HelperShares = { model: null, rollouts: null },
 ): PerDecisionRoute {
-  let own: ResampleJob | null = null, feed: HelperFeed | null = null, note = ONE_THREAD_NOTE, policies: ModelJob['policies'] | null = null;
-  const ownJob = (): ResampleJob => (own ??= { ...job, entries: data.map(prepareResampleEntries), model: model && model() });
-  const keepToOwn = (why: string, first: number): void => {
+  const own = {
+    entries: kept((): ResampleEntries[] => data.map(prepareResampleEntries)), model: kept(() => shares.model && shares.model()),
+    rollouts: kept(() => shares.rollouts && shares.rollouts()),
+  };
+  const ownJob = (): ResampleJob => ({ ...job, entries: own.entries.get(), model: own.model.get(), rollouts: own.rollouts.get() });
+  let feed: HelperFeed | null = null, note = ONE_THREAD_NOTE, given: ResampleJob | null = null;
+  const keepToOwn = (why: string, first: number | null): void => {
     feed?.close();
     feed = null;
-    own = null; // the helper holds the tables and moments it was given: form them again
-    note = `${ONE_THREAD_NOTE} (${first === 0 ? '' : `from resample ${first + 1}; `}the helper thread ${why})`;
+    Object.values(own).forEach((part) => part.reset()); // the helper holds the tables and moments it was given: form them again
+    note = `${ONE_THREAD_NOTE} (${first === null ? 'for the rollouts; ' : first === 0 ? '' : `from resample ${first + 1}; `}the helper thread ${why})`;
   };
-  if (helper && (data.length > 0 || model)) {
-    const given = ownJob(); // formed here: an error of the data's arises on this thread, as without a helper
-    if (resampleWork(data, given.model, job.resamples) < (helper.minimumWork ?? 0)) note = `${ONE_THREAD_NOTE} (too little work to be worth a second thread)`;
+  if (helper && (data.length > 0 || shares.model || shares.rollouts)) {
+    const formed = ownJob(); // formed here: an error of the data's arises on this thread, as without a helper
+    if (resampleWork(data, formed.model, formed.rollouts, job.resamples) < (helper.minimumWork ?? 0)) note = `${ONE_THREAD_NOTE} (too little work to be worth a second thread)`;
     else {
       try {
-        policies = given.model && given.model.policies; // plain objects, cloned: still readable here
-        feed = helper.start(given);
+        given = formed; // its policies and counts stay readable here; its large arrays go to the helper
+        feed = helper.start(formed);
         note = HELPER_THREAD_NOTE;
       } catch (error) {
         keepToOwn(`could not start: ${error instanceof Error ? error.message : String(error)}`, 0);
@@ -88,14 +113,24 @@ export function openPerDecisionRoute(
   }
   return {
     async block(first, drawn) {
-      if (feed) {
+      if (feed && given) {
         const answer = await feed.next();
         if ('stopped' in answer) keepToOwn(answer.stopped, first);
-        else if (!answersBlock(answer, first, data.length, drawn.length) || !answersModels(answer, policies, drawn.length)) {
-          keepToOwn(`answered out of turn (resample ${answer.first + 1})`, first);
+        else if (!('first' in answer) || !answersBlock(answer, first, data.length, drawn.length) || !answersModels(answer, given.model?.policies ?? null, drawn.length)) {
+          keepToOwn(`answered out of turn (resample ${'first' in answer ? answer.first + 1 : '?'})`, first);
         } else return { perDecision: answer.outcomes.map((row) => row.map(receiveOutcome)), models: answer.models };
       }
-      return shareOfBlock(ownJob(), drawn);
+      return shareOfBlock({ ...job, entries: own.entries.get(), model: own.model.get() }, drawn);
+    },
+    async rollouts(cancel) {
+      if (!shares.rollouts) return null;
+      if (feed && given?.rollouts) {
+        const answer = await feed.next();
+        if ('rollouts' in answer && answersRollouts(answer.rollouts, given.rollouts)) return answer.rollouts;
+        keepToOwn('stopped' in answer ? answer.stopped : 'answered out of turn', null);
+      }
+      const rollouts = own.rollouts.get();
+      return rollouts && rolloutValues(receiveRolloutJob(rollouts), cancel);
     },
     get note() {
       return note;

@@ -15,6 +15,7 @@ import { evaluateProjectFile } from '../../src/cli/evaluateProjectFile';
 import { helperThread } from '../../src/cli/helperThread';
 import type { TerminalProgress } from '../../src/cli/terminalProgress';
 import { modelRegressions } from '../../src/core/offPolicy/linearQuadraticModel';
+import { polynomialModelRegressions } from '../../src/core/offPolicy/polynomialDynamicsModel';
 import { ImportanceSamplingError, perDecisionData, type PerDecisionData } from '../../src/core/offPolicy/perDecisionEstimators';
 import { RESAMPLE_BLOCK } from '../../src/core/offPolicy/perDecisionResamples';
 import { createGaussianPolicy } from '../../src/core/policy';
@@ -24,6 +25,7 @@ import type { ModelBlockValues, ModelJob } from '../../src/pipeline/modelBlocks'
 import { drawBlock, helperBlocks, type PerDecisionOutcome } from '../../src/pipeline/perDecisionBlocks';
 import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, resampleWork, type HelperFeed, type ResampleHelper } from '../../src/pipeline/perDecisionRoute';
 import { openProject } from '../../src/pipeline/openProject';
+import { sendRolloutJob, type RolloutValues, type SentRolloutJob } from '../../src/pipeline/rolloutValues';
 import { CANCELLED_PROBLEM, startRun, type ProjectRun } from '../../src/pipeline/projectRun';
 import { unevenLogInputs } from '../core/offPolicy/unevenCascadeLog';
 
@@ -51,9 +53,23 @@ const modelJob = (): ModelJob => ({
   starts: { states: log.startStates.slice(3, 6), followEpisodes: true, episode: Int32Array.of(1) },
 });
 
+/**
+ * The rollout check's simulations on the same log: the model's two policies and one for two states,
+ * which the three-state model refuses (a ModelValueError: its reason, on either thread).
+ */
+const rolloutJob = (): SentRolloutJob => sendRolloutJob({
+  regressions: polynomialModelRegressions(log, index, { degree: 2, rewardDegree: 2 }), discount, seed: job.seed, episodes: e, resamples: 5,
+  policies: [...modelJob().policies.filter((p) => p !== null), createGaussianPolicy({ offset: [0], gain: [[-0.1, -0.1]], std: [0.3] }, 2)],
+  startStates: log.startStates.slice(0, 15), rollout: { rolloutsPerStart: 2, seed: 5 },
+});
+const shares = { model: modelJob, rollouts: rolloutJob };
+
 /** Every block through a route, as the resample loop asks for them. */
-async function allOutcomes(helper: ResampleHelper | undefined, model: (() => ModelJob) | null = modelJob): Promise<{ outcomes: PerDecisionOutcome[][][]; models: (ModelBlockValues | null)[]; note: string }> {
-  const route = openPerDecisionRoute(sources(), job, helper, model), block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
+interface RouteAnswers { outcomes: PerDecisionOutcome[][][]; models: (ModelBlockValues | null)[]; rollouts: RolloutValues[] | null; note: string }
+
+/** Every block through a route, as the resample loop asks for them, then the rollouts. */
+async function allOutcomes(helper: ResampleHelper | undefined, data: readonly PerDecisionData[] = sources()): Promise<RouteAnswers> {
+  const route = openPerDecisionRoute(data, job, helper, shares), block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
   const outcomes: PerDecisionOutcome[][][] = [], models: (ModelBlockValues | null)[] = [];
   try {
     for (let first = 0; first < job.resamples; first += RESAMPLE_BLOCK) {
@@ -61,10 +77,30 @@ async function allOutcomes(helper: ResampleHelper | undefined, model: (() => Mod
       outcomes.push(share.perDecision);
       models.push(share.models);
     }
+    return { outcomes, models, rollouts: await route.rollouts(), note: route.note };
   } finally {
     route.close();
   }
-  return { outcomes, models, note: route.note };
+}
+
+/** Every rollout value the same number (Object.is), every reason the same words. */
+function expectSameRollouts(a: RolloutValues[] | null, b: RolloutValues[] | null): void {
+  expect(a).not.toBeNull();
+  expect(b!.length).toBe(a!.length);
+  a!.forEach((x, k) => {
+    const y = b![k];
+    if ('reason' in x) return expect(y).toEqual({ reason: x.reason });
+    if ('reason' in y) throw new Error(`rollouts ${k}: ${y.reason}`);
+    for (const key of ['value', 'monteCarloError', 'steps', 'shareOutsideLogs'] as const) expect(Object.is(x.full[key], y.full[key])).toBe(true);
+    expect(y.resampled.length).toBe(x.resampled.length);
+    x.resampled.forEach((v, i) => expect(Object.is(v, y.resampled[i])).toBe(true));
+  });
+}
+
+function expectSameAnswers(a: RouteAnswers, b: RouteAnswers): void {
+  expectIdentical(a.outcomes, b.outcomes);
+  expectSameModels(a.models, b.models);
+  expectSameRollouts(a.rollouts, b.rollouts);
 }
 
 /** Every model value the same number (Object.is: the same bits) or null in the same places, block by block. */
@@ -113,14 +149,13 @@ function stoppingHelper(blocks: number): ResampleHelper & { closed: number } {
 
 describe('the per-decision resamples on the helper thread', () => {
   it('stay on the loop’s own thread, without starting one, when the work is below the helper’s minimum', async () => {
-    const work = resampleWork(sources(), modelJob(), job.resamples);
+    const work = resampleWork(sources(), modelJob(), rolloutJob(), job.resamples);
     let started = 0;
     const small: ResampleHelper = { minimumWork: work + 1, start: () => { started++; throw new Error('not expected'); } };
     const own = await allOutcomes(undefined), kept = await allOutcomes(small);
     expect(started).toBe(0);
     expect(kept.note).toContain(ONE_THREAD_NOTE);
-    expectIdentical(own.outcomes, kept.outcomes);
-    expectSameModels(own.models, kept.models);
+    expectSameAnswers(own, kept);
   });
 
   it('equal the loop’s own route replicate by replicate, errors included', async () => {
@@ -130,41 +165,31 @@ describe('the per-decision resamples on the helper thread', () => {
     const failures = own.outcomes.flat(2).filter((x) => x instanceof ImportanceSamplingError).length;
     expect(failures).toBeGreaterThan(0); // the error route is exercised …
     expect(failures).toBeLessThan(job.resamples); // … and so is the estimate route on the same data
-    expectIdentical(own.outcomes, helped.outcomes);
     const values = own.models.flatMap((rows) => rows!.flatMap((row) => row ?? []));
     expect(values.filter((v) => v === null).length).toBeGreaterThan(0); // a model value failure on some resamples …
     expect(values.filter((v) => typeof v === 'number').length).toBeGreaterThan(0); // … and values on the others
-    expectSameModels(own.models, helped.models);
+    expect(own.rollouts!.map((r) => 'reason' in r)).toEqual([false, false, true]); // rollouts, and a refusal
+    expectSameAnswers(own, helped);
   });
 
   it('fall back to the loop’s own thread, with the same numbers, when the helper cannot start or stops', async () => {
     const own = await allOutcomes(undefined);
     const refused = await allOutcomes({ start: () => { throw new Error('no threads here'); } });
     expect(refused.note).toBe(`${ONE_THREAD_NOTE} (the helper thread could not start: no threads here)`);
-    expectIdentical(own.outcomes, refused.outcomes);
-    expectSameModels(own.models, refused.models);
+    expectSameAnswers(own, refused);
     const stopping = stoppingHelper(2), halfway = await allOutcomes(stopping);
     expect(halfway.note).toBe(`${ONE_THREAD_NOTE} (from resample ${2 * RESAMPLE_BLOCK + 1}; the helper thread stopped: a test stop)`);
     expect(stopping.closed).toBeGreaterThan(0);
-    expectIdentical(own.outcomes, halfway.outcomes);
-    expectSameModels(own.models, halfway.models);
+    expectSameAnswers(own, halfway);
+    const beforeRollouts = stoppingHelper(Math.ceil(job.resamples / RESAMPLE_BLOCK)), late = await allOutcomes(beforeRollouts);
+    expect(late.note).toBe(`${ONE_THREAD_NOTE} (for the rollouts; the helper thread stopped: a test stop)`);
+    expectSameAnswers(own, late);
   });
 
-  it('take the model’s share alone, the same as on the loop’s own thread, when there are no per-decision data', async () => {
-    const route = (helper: ResampleHelper | undefined) => openPerDecisionRoute([], job, helper, modelJob);
-    const ownRoute = route(undefined), helped = route(helperThread(0)), block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
-    try {
-      expect(helped.note).toBe(HELPER_THREAD_NOTE);
-      for (let first = 0; first < job.resamples; first += RESAMPLE_BLOCK) {
-        const drawn = drawBlock(e, job.seed, first, job.resamples, block);
-        const a = await ownRoute.block(first, drawn), b = await helped.block(first, drawn);
-        expectSameModels([a.models], [b.models]);
-      }
-      expect(helped.note).toBe(HELPER_THREAD_NOTE); // it never fell back
-    } finally {
-      ownRoute.close();
-      helped.close();
-    }
+  it('take the models’ shares alone, the same as on the loop’s own thread, when there are no per-decision data', async () => {
+    const own = await allOutcomes(undefined, []), helped = await allOutcomes(helperThread(0), []);
+    expect(helped.note).toBe(HELPER_THREAD_NOTE); // it never fell back
+    expectSameAnswers(own, helped);
   });
 });
 
