@@ -56,6 +56,13 @@ export interface HelperShares {
 }
 
 export const ONE_THREAD_NOTE = 'one thread for the resamples';
+
+/** The words for a helper that runs the job's parts (all three, HELPER_THREAD_NOTE, in the usual case). */
+export function helperThreadNote(job: Pick<ResampleJob, 'entries' | 'model' | 'rollouts'>): string {
+  const parts = [job.entries.length > 0 && 'the per-decision cross-checks', job.model && 'the linear-quadratic model', job.rollouts && 'the model rollouts'].filter((p): p is string => !!p);
+  const listed = parts.length > 1 ? `${parts.slice(0, -1).join(', ')} and ${parts[parts.length - 1]}` : parts[0];
+  return `two threads for the resamples: ${listed} on the second`;
+}
 export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks, the linear-quadratic model and the model rollouts on the second';
 
 /**
@@ -96,29 +103,20 @@ export function openPerDecisionRoute(
     feed?.close();
     feed = null;
     Object.values(own).forEach((part) => part.reset()); // the helper holds the tables and moments it was given: form them again
-    note = `${ONE_THREAD_NOTE} (${first === null ? 'for the rollouts; ' : first === 0 ? '' : `from resample ${first + 1}; `}the helper thread ${why})`;
+    note = `${ONE_THREAD_NOTE} (${first === null ? 'for the model rollouts; ' : first === 0 ? '' : `from resample ${first + 1}; `}the helper thread ${why})`;
   };
   if (helper && (data.length > 0 || shares.model || shares.rollouts)) {
     const formed = ownJob(); // formed here: an error of the data's arises on this thread, as without a helper
-    if (resampleWork(data, formed.model, formed.rollouts, job.resamples) < (helper.minimumWork ?? 0)) note = `${ONE_THREAD_NOTE} (too little work to be worth a second thread)`;
-    else {
-      try {
-        given = formed; // its policies and counts stay readable here; its large arrays go to the helper
-        feed = helper.start(formed);
-        note = HELPER_THREAD_NOTE;
-      } catch (error) {
-        keepToOwn(`could not start: ${error instanceof Error ? error.message : String(error)}`, 0);
-      }
-    }
+    const lent = lend(helper, formed, data);
+    if ('refused' in lent) keepToOwn(`could not start: ${lent.refused}`, 0);
+    else [feed, note, given] = [lent.feed, lent.note, lent.feed && formed]; // the job's policies and counts stay readable here; its large arrays go to the helper
   }
   return {
     async block(first, drawn) {
       if (feed && given) {
-        const answer = await feed.next();
-        if ('stopped' in answer) keepToOwn(answer.stopped, first);
-        else if (!('first' in answer) || !answersBlock(answer, first, data.length, drawn.length) || !answersModels(answer, given.model?.policies ?? null, drawn.length)) {
-          keepToOwn(`answered out of turn (resample ${'first' in answer ? answer.first + 1 : '?'})`, first);
-        } else return { perDecision: answer.outcomes.map((row) => row.map(receiveOutcome)), models: answer.models };
+        const answer = await feed.next(), taken = takeBlock(answer, first, drawn.length, data.length, given);
+        if (typeof taken !== 'string') return taken;
+        keepToOwn(taken, first);
       }
       return shareOfBlock({ ...job, entries: own.entries.get(), model: own.model.get() }, drawn);
     },
@@ -140,6 +138,25 @@ export function openPerDecisionRoute(
       feed = null;
     },
   };
+}
+
+/** Start the helper on the job where the work is worth a thread: its feed (null: not lent) and the words; or why it could not start. */
+function lend(helper: ResampleHelper, formed: ResampleJob, data: readonly PerDecisionData[]): { feed: HelperFeed | null; note: string } | { refused: string } {
+  if (resampleWork(data, formed.model, formed.rollouts, formed.resamples) < (helper.minimumWork ?? 0)) return { feed: null, note: `${ONE_THREAD_NOTE} (too little work to be worth a second thread)` };
+  try {
+    return { feed: helper.start(formed), note: helperThreadNote(formed) };
+  } catch (error) {
+    return { refused: error instanceof Error ? error.message : String(error) };
+  }
+}
+
+/** The block's share from the helper's answer, or why the loop must take it itself. */
+function takeBlock(answer: HelperAnswer, first: number, count: number, rows: number, given: ResampleJob): BlockShare | string {
+  if ('stopped' in answer) return answer.stopped;
+  if (!('first' in answer) || !answersBlock(answer, first, rows, count) || !answersModels(answer, given.model?.policies ?? null, count)) {
+    return `answered out of turn (resample ${'first' in answer ? answer.first + 1 : '?'})`;
+  }
+  return { perDecision: answer.outcomes.map((row) => row.map(receiveOutcome)), models: answer.models };
 }
 
 /** The answer is the block asked for: its first resample, one row per data, one outcome per resample drawn. */

@@ -182,13 +182,13 @@ describe('the per-decision resamples on the helper thread', () => {
     expect(stopping.closed).toBeGreaterThan(0);
     expectSameAnswers(own, halfway);
     const beforeRollouts = stoppingHelper(Math.ceil(job.resamples / RESAMPLE_BLOCK)), late = await allOutcomes(beforeRollouts);
-    expect(late.note).toBe(`${ONE_THREAD_NOTE} (for the rollouts; the helper thread stopped: a test stop)`);
+    expect(late.note).toBe(`${ONE_THREAD_NOTE} (for the model rollouts; the helper thread stopped: a test stop)`);
     expectSameAnswers(own, late);
   });
 
   it('take the models’ shares alone, the same as on the loop’s own thread, when there are no per-decision data', async () => {
     const own = await allOutcomes(undefined, []), helped = await allOutcomes(helperThread(0), []);
-    expect(helped.note).toBe(HELPER_THREAD_NOTE); // it never fell back
+    expect(helped.note).toBe('two threads for the resamples: the linear-quadratic model and the model rollouts on the second'); // it never fell back
     expectSameAnswers(own, helped);
   });
 });
