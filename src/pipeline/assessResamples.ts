@@ -13,9 +13,8 @@ import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offP
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import type { AssessmentContext, CandidateWork, OffPolicyInputs } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
-import type { ModelJob } from './modelBlocks';
+import { modelBlock, type ModelJob } from './modelBlocks';
 import { drawBlock } from './perDecisionBlocks';
-import type { RolloutValues, SentRolloutJob } from './rolloutValues';
 import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
 
 export type Replicates = (number | null)[];
@@ -35,8 +34,6 @@ export interface ReplicateSet {
   /** The present controller's model (the baseline), and the logged return completed by its fitted value. */
   presentController: CandidateReplicates | null;
   completedReturn: Replicates | null;
-  /** The rollout check's simulations per policy of its job (the candidates, then the present controller); null without a one-step model. */
-  rollouts: RolloutValues[] | null;
   /** Which thread computed what (perDecisionRoute.ts), for the details of the result. */
   threads: string;
 }
@@ -52,8 +49,6 @@ export interface ResampleInputs {
   /** V̂ of the baseline at each run's end and the tail weights γ^T (0 after a terminal state), for the completed return. */
   baselineEnds: { values: Float64Array; tailWeights: Float64Array } | null;
   model: { regressions: ModelRegressions; applicable: boolean[]; baselineApplicable: boolean } | null;
-  /** The rollout check's simulations, for the route to run (assessRollouts.ts, rolloutJobs); null without a one-step model. */
-  rollouts: (() => SentRolloutJob) | null;
 }
 
 /** Yield to the event loop about this often, so a stop request or a surface query can get through. */
@@ -67,24 +62,28 @@ export async function runResamples(
   const { plan } = context, e = plan.episodes.episodes;
   const { works, baseline } = inputs;
   const withPerDecision = [...works, ...(baseline ? [baseline] : [])].filter((w) => 'perDecision' in w.offPolicy);
+  // Balance (bench/peerBench.ts profile, 1,000,000 transitions): the per-decision blocks alone cost the
+  // helper about what the fits' replicates and the model cost this thread (8.8 s against 7.3 s), so the
+  // model goes to the helper only where it has no per-decision work; either way modelBlock runs it.
+  const modelJob = modelJobOf(context, inputs), modelOnRoute = withPerDecision.length === 0;
   const route = openPerDecisionRoute(withPerDecision.map((w) => (w.offPolicy as OffPolicyInputs).perDecision),
-    { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper, { model: modelJobOf(context, inputs), rollouts: inputs.rollouts });
+    { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper, { model: modelOnRoute ? modelJob : null, rollouts: null });
   try {
-    return await resampleLoop(context, inputs, settings, { route, withPerDecision }, onProgress);
+    return await resampleLoop(context, inputs, settings, { route, withPerDecision, ownModel: modelOnRoute ? null : modelJob && modelJob() }, onProgress);
   } finally {
     route.close();
   }
 }
 
 async function resampleLoop(
-  context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, perDecisionOf: { route: PerDecisionRoute; withPerDecision: CandidateWork[] },
+  context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, shares: { route: PerDecisionRoute; withPerDecision: CandidateWork[]; ownModel: ModelJob | null },
   onProgress?: (p: ResampleProgress) => void,
 ): Promise<ReplicateSet> {
   const pace = createPacer(PACE_MS), { plan } = context, e = plan.episodes.episodes;
-  const { works, baseline, baselineEnds, model } = inputs, { route, withPerDecision } = perDecisionOf;
+  const { works, baseline, baselineEnds, model } = inputs, { route, withPerDecision, ownModel } = shares;
   const out: ReplicateSet = {
     loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false)),
-    presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [], rollouts: null, threads: '',
+    presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [], threads: '',
   };
   const block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
   let reported = -PROGRESS_EVERY;
@@ -93,19 +92,19 @@ async function resampleLoop(
     throwIfCancelled(context.cancel);
     if (first - reported >= PROGRESS_EVERY) onProgress?.({ done: (reported = first), total: settings.resamples });
     const drawn = drawBlock(e, settings.seed, first, settings.resamples, block);
+    const ownModels = ownModel && modelBlock(ownModel, drawn);
     const fqe = new Map([...works, ...(baseline ? [baseline] : [])].map((w) => [w, blockValues(w, drawn)]));
     // Asked for last, so a helper thread computing them has had this block's other work to run ahead.
     const share = await route.block(first, drawn);
-    const perDecision = new Map(withPerDecision.map((w, k) => [w, share.perDecision[k]]));
+    const perDecision = new Map(withPerDecision.map((w, k) => [w, share.perDecision[k]])), models = ownModels ?? share.models;
     drawn.forEach((c, i) => {
       out.loggedReturn.push(weightedMean(plan.loggedReturn.perEpisode, c));
-      works.forEach((w, j) => replicateCandidate(w, out.candidates[j], fqe.get(w)!.map((v) => v?.[i]), share.models?.[j]?.[i] ?? null, perDecision.get(w)?.[i]));
+      works.forEach((w, j) => replicateCandidate(w, out.candidates[j], fqe.get(w)!.map((v) => v?.[i]), models?.[j]?.[i] ?? null, perDecision.get(w)?.[i]));
       if (baseline && out.presentController) replicateCandidate(baseline, out.presentController, fqe.get(baseline)!.map((v) => v?.[i]), null, perDecision.get(baseline)?.[i]);
       if (baselineEnds && out.completedReturn) out.completedReturn.push(completedReturnOfResample(plan.loggedReturn.perEpisode, baselineEnds.tailWeights, baselineEnds.values, c));
     });
   }
   onProgress?.({ done: settings.resamples, total: settings.resamples });
-  out.rollouts = await route.rollouts(context.cancel);
   out.threads = route.note;
   return out;
 }

@@ -22,6 +22,7 @@ import type { GaussianPolicy } from '../core/policy';
 import { stateValues } from '../core/value';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
+import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
 import { sendRolloutJob, type RolloutJob, type RolloutValues, type SentRolloutJob } from './rolloutValues';
 
 export const ROLLOUT_RESAMPLES = 30;
@@ -77,11 +78,11 @@ export function rolloutJob(context: AssessmentContext, policies: readonly Gaussi
 }
 
 /**
- * The simulations' job for the resample route, made on demand: the first time on the regressions
+ * The simulations' job for their route, made on demand: the first time on the regressions
  * already formed, again from the data after a helper thread was given those (the same pass, so the
  * same numbers).
  */
-export function rolloutJobs(context: AssessmentContext, works: readonly CandidateWork[], model: RolloutModel, settings: AssessmentSettings): () => SentRolloutJob {
+function rolloutJobs(context: AssessmentContext, policies: readonly GaussianPolicy[], model: RolloutModel, settings: AssessmentSettings): () => SentRolloutJob {
   let held: PolynomialModelRegressions | null = model.regressions;
   return () => {
     let regressions = held;
@@ -91,8 +92,19 @@ export function rolloutJobs(context: AssessmentContext, works: readonly Candidat
       if ('reason' in formed) throw new ModelFitError(formed.reason); // not met: the same pass succeeded before
       regressions = formed.regressions;
     }
-    return sendRolloutJob(rolloutJob(context, works.map((w) => w.model.policy), regressions, settings));
+    return sendRolloutJob(rolloutJob(context, policies, regressions, settings));
   };
+}
+
+/**
+ * The simulations of every policy's check, opened before the function classes are fitted: on the
+ * host's helper, a thread of their own that runs them meanwhile (their work, resampleWork, decides
+ * as for the loop's), else on this thread when `rollouts()` is asked for after the loop.
+ */
+export function openRolloutSimulations(context: AssessmentContext, policies: readonly GaussianPolicy[], model: RolloutModel, settings: AssessmentSettings): PerDecisionRoute {
+  const { plan } = context;
+  return openPerDecisionRoute([], { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: 0 }, context.helper,
+    { model: null, rollouts: rolloutJobs(context, policies, model, settings) });
 }
 
 function rolloutSettings(context: AssessmentContext, starts: number): { rolloutsPerStart: number; seed: number } {

@@ -63,7 +63,15 @@ export function helperThreadNote(job: Pick<ResampleJob, 'entries' | 'model' | 'r
   const listed = parts.length > 1 ? `${parts.slice(0, -1).join(', ')} and ${parts[parts.length - 1]}` : parts[0];
   return `two threads for the resamples: ${listed} on the second`;
 }
-export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks, the linear-quadratic model and the model rollouts on the second';
+export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks on the second';
+/** Added to the loop's words when the model rollouts ran on a thread of their own (assessRollouts.ts, openRolloutSimulations). */
+export const ROLLOUT_THREAD_NOTE = 'the model rollouts on a second thread while the function classes were fitted';
+
+/** The words for the loop's route and the rollouts' beside it; the rollouts are named only when they did not simply run on this thread. */
+export function threadsNote(loop: string, rollouts: string | null): string {
+  if (rollouts === null || rollouts === ONE_THREAD_NOTE) return loop;
+  return `${loop}; ${rollouts.startsWith(ONE_THREAD_NOTE) ? `the model rollouts on this thread${rollouts.slice(ONE_THREAD_NOTE.length)}` : ROLLOUT_THREAD_NOTE}`;
+}
 
 /**
  * The work a helper could take, in logged entries read per resample (the per-decision unit): the

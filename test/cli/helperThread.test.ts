@@ -23,7 +23,7 @@ import { assessRun } from '../../src/pipeline/assessProject';
 import { assessmentSettingsFor, type AssessmentSettings } from '../../src/pipeline/assessSettings';
 import type { ModelBlockValues, ModelJob } from '../../src/pipeline/modelBlocks';
 import { drawBlock, helperBlocks, type PerDecisionOutcome } from '../../src/pipeline/perDecisionBlocks';
-import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, resampleWork, type HelperFeed, type ResampleHelper } from '../../src/pipeline/perDecisionRoute';
+import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, resampleWork, ROLLOUT_THREAD_NOTE, type HelperFeed, type ResampleHelper } from '../../src/pipeline/perDecisionRoute';
 import { openProject } from '../../src/pipeline/openProject';
 import { sendRolloutJob, type RolloutValues, type SentRolloutJob } from '../../src/pipeline/rolloutValues';
 import { CANCELLED_PROBLEM, startRun, type ProjectRun } from '../../src/pipeline/projectRun';
@@ -161,7 +161,7 @@ describe('the per-decision resamples on the helper thread', () => {
   it('equal the loop’s own route replicate by replicate, errors included', async () => {
     const own = await allOutcomes(undefined), helped = await allOutcomes(helperThread(0));
     expect(own.note).toBe(ONE_THREAD_NOTE);
-    expect(helped.note).toBe(HELPER_THREAD_NOTE);
+    expect(helped.note).toBe('two threads for the resamples: the per-decision cross-checks, the linear-quadratic model and the model rollouts on the second');
     const failures = own.outcomes.flat(2).filter((x) => x instanceof ImportanceSamplingError).length;
     expect(failures).toBeGreaterThan(0); // the error route is exercised …
     expect(failures).toBeLessThan(job.resamples); // … and so is the estimate route on the same data
@@ -211,24 +211,31 @@ describe('the assessment with the CLI’s helper thread', () => {
     const two = await assessRun(run, { settings, helper: helperThread(0) });
     if (!one.ok || !two.ok) throw new Error('assessment failed');
     expect(one.value.settings.threads).toBe(ONE_THREAD_NOTE);
-    expect(two.value.settings.threads).toBe(HELPER_THREAD_NOTE);
+    expect(two.value.settings.threads).toBe(`${HELPER_THREAD_NOTE}; ${ROLLOUT_THREAD_NOTE}`); // the loop's helper, and the rollouts' own thread before it
     expect({ ...two.value, settings: { ...two.value.settings, threads: '' } }).toEqual({ ...one.value, settings: { ...one.value.settings, threads: '' } });
   });
 
   it('closes the helper thread when the run stops, as when it ends', async () => {
     const real = helperThread(0);
-    let closed = 0, stop = false;
-    const counting: ResampleHelper = { start: (given) => { const feed = real.start(given); return { next: () => feed.next(), close: () => { closed++; feed.close(); } }; } };
+    let closed = 0, started = 0, stop = false;
+    const counting: ResampleHelper = { start: (given) => { const feed = real.start(given); started++; return { next: () => feed.next(), close: () => { closed++; feed.close(); } }; } };
     const stopped = await assessRun(run, {
       settings: { ...settings, resamples: 5000 }, helper: counting, cancel: () => stop,
       onProgress: (p) => { if (p.stage === 'resampling' && p.done > 0) stop = true; },
     });
     expect(stopped.ok).toBe(false);
     if (!stopped.ok) expect(stopped.problems).toEqual([CANCELLED_PROBLEM]);
-    expect(closed).toBe(1);
+    expect(started).toBe(2); // the rollouts' thread and the loop's
+    expect(closed).toBe(started);
     const ended = await assessRun(run, { settings, helper: counting });
     expect(ended.ok).toBe(true);
-    expect(closed).toBe(2);
+    expect(started).toBe(4);
+    expect(closed).toBe(started);
+    let early = false; // a stop while the function classes are fitted, the rollouts' thread at work
+    const beforeLoop = await assessRun(run, { settings, helper: counting, cancel: () => early, onProgress: (p) => { if (p.stage === 'preparing') early = true; } });
+    expect(beforeLoop.ok).toBe(false);
+    expect(started).toBeGreaterThan(4);
+    expect(closed).toBe(started);
   });
 
   it('ends with exit 130 and the cancelled message on a stop request during the resamples', async () => {
