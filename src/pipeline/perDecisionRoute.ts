@@ -1,7 +1,8 @@
 /**
  * Where the resample loop's share that a second core can take is computed — the per-decision
  * cross-checks, the linear-quadratic model's refits and values, and the rollout check's simulations
- * (answered after the last block, as the loop needs them only then): on a helper thread the host
+ * (answered after the last block; assessRollouts.ts opens a route of their own, with no blocks,
+ * before the function classes are fitted): on a helper thread the host
  * lends (the CLI's is built on node:worker_threads, src/cli/helperThread.ts), which runs every block
  * ahead of the loop while the loop's own thread takes the other estimators of each block — a
  * pipeline over two cores — or, without one, on the loop's own thread, block by block. Both routes
