@@ -56,11 +56,17 @@ function timed(command: string, args: string[], cwd: string): number {
   return seconds(t);
 }
 
-export async function runPeerBench(n: number, pairs = 2): Promise<Record<string, number | string>> {
+/** The peer's CSV of n transitions (made by its generator on first use) and our project on it, in `work`. */
+export function peerFiles(n: number): { csv: string; project: string } {
   mkdirSync(work, { recursive: true });
   const csv = `lq_${n}.csv`, project = join(work, `peer_${n}.spcritic`);
   if (!existsSync(join(work, csv))) execFileSync('python3', [join(peers, 'make_lq_dataset.py'), '--n-transitions', String(n), '--seed', '0', '--out', join(work, csv)], { stdio: 'ignore' });
   writeFileSync(project, peerProject(csv));
+  return { csv, project };
+}
+
+export async function runPeerBench(n: number, pairs = 2): Promise<Record<string, number | string>> {
+  const { csv, project } = peerFiles(n);
   const ours: number[] = [], theirs: number[] = [];
   for (let p = 0; p < pairs; p++) {
     theirs.push(timed('python3', [join(peers, 'fqe_numpy.py'), '--data', join(work, csv)], peers));

@@ -6,6 +6,7 @@
  *   npm run bench -- bootstrap    only the bootstrap resampling rates
  *   npm run bench -- retune       only the retune map
  *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script
+ *   npm run bench -- app-thread   the app's assessment in Chromium with one thread and with its helper worker, 1,000,000 transitions
  *   npm run bench -- growth       slopes of evaluate time in transitions and in quadrature nodes
  *   npm run bench -- radial       the whole evaluate with radial-basis features, d = 343, 100,000 transitions
  *   npm run bench -- battery [options]   the battery sweep of the network and linear estimators
@@ -39,6 +40,10 @@ const jobs: Job[] = [
     name: `whole evaluate beside the numerical-Python peer, ${n.toLocaleString('en-US')} transitions`, group: 'peer',
     run: async () => (await import('./peerBench')).runPeerBench(n),
   })),
+  {
+    name: 'the app’s open, fit and assessment in Chromium, one thread beside the helper worker, 1,000,000 transitions (peer plant)', group: 'app-thread',
+    run: async () => (await import('./appThreadBench')).runAppThreadBench(1_000_000),
+  },
   {
     name: 'whole evaluate with radial-basis features, 7 centres per input (d = 343), 100,000 transitions, two runs', group: 'radial',
     run: async () => (await import('./radialBench')).runRadialBench(),

@@ -16,6 +16,7 @@ import { CANCELLED_PROBLEM, startRun } from '../pipeline/projectRun';
 import { retuneMapsOfRun, type RetuneMapResult } from '../pipeline/retuneMaps';
 import { HostFileError, MAX_DATA_BYTES, MAX_PROJECT_BYTES, readRegularFile } from '../host/regularFile';
 import { helperThread } from './helperThread';
+import { nativeSha256 } from './nativeSha256';
 import type { TerminalProgress } from './terminalProgress';
 
 export interface ProjectFileRun extends OpenedProject {
@@ -60,7 +61,7 @@ export async function evaluateProjectFile(
     } catch (e) {
       throw e instanceof HostFileError ? new Error(e.reason) : e;
     }
-  }, { cancel, pace: progress?.pace });
+  }, { cancel, pace: progress?.pace, sha256: nativeSha256 });
   if (refusal) return { ok: false, failure: refusal };
   if (!opened.ok) return { ok: false, failure: failureOf(opened.problems) };
   const { project, dataset, warnings } = opened.value;

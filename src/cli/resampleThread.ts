@@ -1,18 +1,12 @@
 /**
- * The CLI's helper thread (helperThread.ts starts it): runs the share of the resample loop a
- * second core can take (the per-decision cross-checks and the linear-quadratic model:
- * src/pipeline/perDecisionBlocks.ts) on the job it was given, posting each block as soon as it is
- * done, ahead of the loop. It listens for nothing: the loop's side ends it with
- * Worker.terminate(), which stops it even inside a block. An error is posted once, as words.
+ * The CLI's helper thread (helperThread.ts starts it): runs the share of
+ * the resample loop on the job it was given (src/pipeline/helperFeed.ts, serveHelperJob), posting
+ * each block as soon as it is done, ahead of the loop. It listens for nothing: the loop's side ends
+ * it with Worker.terminate(), which stops it even inside a block.
  */
 import { parentPort, workerData } from 'node:worker_threads';
-import { helperBlocks, type ResampleJob } from '../pipeline/perDecisionBlocks';
+import { serveHelperJob } from '../pipeline/helperFeed';
+import type { ResampleJob } from '../pipeline/perDecisionBlocks';
 
 const port = parentPort;
-if (port) {
-  try {
-    for (const block of helperBlocks(workerData as ResampleJob)) port.postMessage(block);
-  } catch (error) {
-    port.postMessage({ stopped: `stopped: ${error instanceof Error ? error.message : String(error)}` });
-  }
-}
+if (port) serveHelperJob(workerData as ResampleJob, (answer) => port.postMessage(answer));

@@ -27,9 +27,7 @@ function splitmix32(seed: number): () => number {
 
 /** A generator whose whole stream is fixed by `seed` (any finite number; its low 32 bits are used). */
 export function createRandom(seed: number): RandomSource {
-  const init = splitmix32(seed);
-  let s0 = init(), s1 = init(), s2 = init(), s3 = init();
-  if ((s0 | s1 | s2 | s3) === 0) s0 = 1; // the all-zero state is a fixed point of xoshiro
+  let [s0, s1, s2, s3] = initialState(seed);
   const next32 = (): number => {
     const result = Math.imul(rotl(Math.imul(s1, 5) >>> 0, 7), 9) >>> 0;
     const t = (s1 << 9) >>> 0;
@@ -59,6 +57,34 @@ export function createRandom(seed: number): RandomSource {
       return Math.floor(uniform() * n);
     },
   };
+}
+
+/** The four xoshiro128** state words a stream seeded with `seed` starts from. */
+function initialState(seed: number): [number, number, number, number] {
+  const init = splitmix32(seed);
+  const s0 = init(), s1 = init(), s2 = init(), s3 = init();
+  return (s0 | s1 | s2 | s3) === 0 ? [1, s1, s2, s3] : [s0, s1, s2, s3]; // the all-zero state is a fixed point of xoshiro
+}
+
+/**
+ * How often each of 0 … n − 1 comes up in `draws` calls of createRandom(seed).integer(n), added into
+ * out[0 … n): the same stream and arithmetic as those calls (each takes two 32-bit outputs for a
+ * 53-bit uniform), with the generator's state in local variables, which is several times faster
+ * in the bootstrap's multiplicities (episodeMultiplicities.ts) than calling integer() per draw.
+ */
+export function addIntegerCounts(seed: number, n: number, draws: number, out: Uint32Array): void {
+  let [s0, s1, s2, s3] = initialState(seed);
+  for (let draw = 0; draw < draws; draw++) {
+    let r = Math.imul(s1, 5);
+    const high = Math.imul((r << 7) | (r >>> 25), 9) >>> 0;
+    let t = s1 << 9;
+    s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
+    r = Math.imul(s1, 5);
+    const low = Math.imul((r << 7) | (r >>> 25), 9) >>> 0;
+    t = s1 << 9;
+    s2 ^= s0; s3 ^= s1; s1 ^= s2; s0 ^= s3; s2 ^= t; s3 = (s3 << 11) | (s3 >>> 21);
+    out[Math.floor((((high >>> 5) * 67108864 + (low >>> 6)) / 9007199254740992) * n)]++;
+  }
 }
 
 function rotl(x: number, k: number): number {

@@ -1,21 +1,37 @@
 /**
  * The content hash of a data file, stored in the project so that a changed or replaced file is
- * noticed when the project is reopened. SHA-256 (FIPS 180-4) from @noble/hashes, which runs the same
- * in Node, a worker and the renderer.
+ * noticed when the project is reopened. SHA-256 (FIPS 180-4), by default from @noble/hashes, which
+ * runs the same in Node, a worker and the renderer; a host with a native SHA-256 may hand its own
+ * (the CLI hands Node's, src/cli/nativeSha256.ts: some ten times faster on a 90 MB log).
  */
 import { sha256 } from '@noble/hashes/sha2.js';
 import { bytesToHex } from '@noble/hashes/utils.js';
 import type { PassSteps } from '../core/fqe/cancellation';
 
-/** Bytes hashed between two yields of dataFingerprintSteps (a choice: tens of milliseconds). */
+/** SHA-256 fed in pieces: update with each piece in order, then the digest as lowercase hex. */
+export interface Sha256Stream {
+  update(piece: Uint8Array): void;
+  hex(): string;
+}
+
+/** Starts a fresh SHA-256 stream. */
+export type Sha256Factory = () => Sha256Stream;
+
+/** The SHA-256 every host can run (pure JavaScript, @noble/hashes). */
+export const portableSha256: Sha256Factory = () => {
+  const hash = sha256.create();
+  return { update: (piece) => void hash.update(piece), hex: () => bytesToHex(hash.digest()) };
+};
+
+/** Bytes hashed between two yields of dataFingerprintSteps (a choice: tens of milliseconds on the portable hash). */
 const BYTES_PER_STEP = 4 << 20;
 
 /** The SHA-256 of the data file's bytes (hex), as a pass that yields after every BYTES_PER_STEP bytes; SHA-256 fed in pieces is the same hash (FIPS 180-4 §6.2: the blocks are processed in order either way). */
-export function* dataFingerprintSteps(bytes: Uint8Array): PassSteps<string> {
-  const hash = sha256.create();
+export function* dataFingerprintSteps(bytes: Uint8Array, create: Sha256Factory = portableSha256): PassSteps<string> {
+  const hash = create();
   for (let at = 0; at < bytes.length; at += BYTES_PER_STEP) {
     hash.update(bytes.subarray(at, Math.min(bytes.length, at + BYTES_PER_STEP)));
     yield;
   }
-  return bytesToHex(hash.digest());
+  return hash.hex();
 }

@@ -10,7 +10,7 @@ import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import { importDatasetSteps, type HandedBytes, type ImportedDataset } from '../data/importDataset';
 import { parseProjectText } from '../project/projectFile';
 import type { ProjectDocument } from '../project/schema';
-import { dataFingerprintSteps } from './dataFingerprint';
+import { dataFingerprintSteps, type Sha256Factory } from './dataFingerprint';
 import { CANCELLED_PROBLEM } from './cancelledProblem';
 
 export interface OpenedProject {
@@ -31,6 +31,8 @@ export interface ImportHooks {
   readonly cancel?: CancellationCheck;
   /** Default: a yield to the event loop about every PACE_INTERVAL_MS. */
   readonly pace?: () => Promise<void>;
+  /** The data file's SHA-256 (dataFingerprint.ts); default the portable one. */
+  readonly sha256?: Sha256Factory;
 }
 
 export async function openProject(projectText: string, projectFileName: string, readDataFile: DataFileReader, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
@@ -62,7 +64,7 @@ export function importProjectData(project: ProjectDocument, bytes: Uint8Array | 
 export async function importProjectDataPaced(project: ProjectDocument, bytes: Uint8Array | HandedBytes, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
   const pace = hooks.pace ?? createPacer(PACE_INTERVAL_MS);
   try {
-    return await runStepsPaced(importSteps(project, bytes), async () => {
+    return await runStepsPaced(importSteps(project, bytes, hooks.sha256), async () => {
       await pace();
       throwIfCancelled(hooks.cancel);
     });
@@ -72,8 +74,8 @@ export async function importProjectDataPaced(project: ProjectDocument, bytes: Ui
   }
 }
 
-function* importSteps(project: ProjectDocument, bytes: Uint8Array | HandedBytes): PassSteps<Result<OpenedProject>> {
-  const fingerprint = yield* dataFingerprintSteps(bytes instanceof Uint8Array ? bytes : bytes.bytes ?? new Uint8Array(0));
+function* importSteps(project: ProjectDocument, bytes: Uint8Array | HandedBytes, sha256?: Sha256Factory): PassSteps<Result<OpenedProject>> {
+  const fingerprint = yield* dataFingerprintSteps(bytes instanceof Uint8Array ? bytes : bytes.bytes ?? new Uint8Array(0), sha256);
   const imported = yield* importDatasetSteps(bytes, project.data.path, project.data.csv, project.columns);
   if (!imported.ok) return imported;
   const warnings: Problem[] = [...imported.warnings];

@@ -10,7 +10,7 @@
  * from its own stream seeded by resampleSeed(seed, b): the same b gives the same resample in
  * whichever worker and order it is computed, so resamples can be split across workers freely.
  */
-import { createRandom } from '../random';
+import { addIntegerCounts } from '../random';
 
 export class BootstrapError extends Error {
   constructor(message: string) {
@@ -45,9 +45,8 @@ export function episodeMultiplicities(episodeCount: number, seed: number, index:
   if (!Number.isInteger(episodeCount) || episodeCount < 1) throw new BootstrapError(`episodes: expected a whole number ≥ 1, got ${episodeCount}`);
   if (!Number.isInteger(index) || index < 0) throw new BootstrapError(`resample index: expected a whole number ≥ 0, got ${index}`);
   if (out.length < episodeCount) throw new BootstrapError(`multiplicities: room for ${out.length} episodes, need ${episodeCount}`);
-  const rng = createRandom(resampleSeed(seed, index));
   out.fill(0, 0, episodeCount);
-  for (let draw = 0; draw < episodeCount; draw++) out[rng.integer(episodeCount)]++;
+  addIntegerCounts(resampleSeed(seed, index), episodeCount, episodeCount, out); // draw k is createRandom(resampleSeed(seed, index)).integer(e)
   return out;
 }
 

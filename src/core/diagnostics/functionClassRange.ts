@@ -16,7 +16,12 @@
  *     standard errors of the difference AND by more than CLASS_AGREEMENT.relative of |J|. The
  *     standard error of the difference is the spread of the paired differences over the same
  *     resamples when every class has replicates (classes fitted to the same resample are strongly
- *     correlated, so pairing is much sharper), else √(se_a² + se_b²) (conservative).
+ *     correlated, so pairing is much sharper), else √(se_a² + se_b²) (conservative). The spread is
+ *     the normalised interquartile range (robustSpread.ts), not the standard deviation: it is the
+ *     same for normal replicates, but a richer class that runs away on a few resamples would
+ *     otherwise make a gap of 18 % of J read as 0.8 standard errors ("settled") while its own 90 %
+ *     interval, and nearly every resample, showed the gap plainly (found on the hold-out
+ *     neutralisation tank, test/battery/holdout/neutralisationPlant.ts).
  *   - Settled: no pair disagrees. Not settled: some pair does; the reason names the widest gap.
  *   - A class that was fitted but whose fitted Q-evaluation did not converge (it diverged, or stopped
  *     at its iteration limit) has no value to compare. When it leaves the project's own class alone,
@@ -32,6 +37,7 @@
  * Two standard errors, not the three of the cross-check rule, because a false "not settled" only
  * widens a range, while a missed disagreement shows a confident wrong number.
  */
+import { normalisedInterquartileRange } from './robustSpread';
 
 export interface ClassEstimate {
   /** The function class in words, e.g. "polynomial, degree 2". */
@@ -134,14 +140,9 @@ function disagrees(g: ClassGap): boolean {
   return g.standardErrors > CLASS_AGREEMENT.standardErrors && g.relative > CLASS_AGREEMENT.relative;
 }
 
-/** Standard deviation of the paired differences a_b − b_b (n − 1 divisor). */
+/** Robust spread (IQR/1.349) of the paired differences a_b − b_b. */
 function pairedSpread(a: ArrayLike<number>, b: ArrayLike<number>): number {
-  const n = a.length;
-  let mean = 0;
-  for (let k = 0; k < n; k++) mean += (a[k] - b[k]) / n;
-  let squares = 0;
-  for (let k = 0; k < n; k++) squares += (a[k] - b[k] - mean) ** 2;
-  return Math.sqrt(squares / (n - 1));
+  return normalisedInterquartileRange(Float64Array.from({ length: a.length }, (_, k) => a[k] - b[k]));
 }
 
 function describe(g: ClassGap): string {

@@ -15,7 +15,9 @@
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
+import { dryerPlant } from './dryerPlant';
 import { exchangerPlant } from './exchangerPlant';
+import { neutralisationPlant } from './neutralisationPlant';
 
 const AREA_M2 = 3, STEP_S = 10, VALVE_FLOW_M3_S = 0.05, LEVEL_SETPOINT_M = 2, VALVE_BIAS = 0.8;
 /** Restriction coefficient that holds the setpoint at the valve bias: k·√2 = 0.05·0.8. */
@@ -66,5 +68,5 @@ export function gentleLevelValvePlant(): BatteryPlant {
 }
 
 export function holdoutPlants(): BatteryPlant[] {
-  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant()];
+  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant()];
 }

@@ -6,6 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { BootstrapError, episodeMultiplicities, resampleSeed } from '../../../src/core/bootstrap/episodeMultiplicities';
+import { createRandom } from '../../../src/core/random';
 
 describe('episodeMultiplicities', () => {
   it('draws e episodes per resample, the same resample for the same (seed, index) in any order', () => {
@@ -16,6 +17,14 @@ describe('episodeMultiplicities', () => {
     for (const c of forward) expect(c.reduce((a, b) => a + b, 0)).toBe(e);
     expect(forward[0]).not.toEqual(forward[1]);
     expect(Array.from(episodeMultiplicities(e, 12, 0))).not.toEqual(forward[0]);
+  });
+
+  it.each([1, 2, 37, 20_000])('counts the very draws createRandom(resampleSeed(seed, b)).integer(e) makes (e = %i)', (e) => {
+    for (const [seed, b] of [[1, 0], [1, 999], [2024, 7], [0xffffffff, 3]]) {
+      const rng = createRandom(resampleSeed(seed, b)), expected = new Uint32Array(e);
+      for (let draw = 0; draw < e; draw++) expected[rng.integer(e)]++;
+      expect(episodeMultiplicities(e, seed, b)).toEqual(expected);
+    }
   });
 
   it('has the multinomial mean, variance and covariance (Monte Carlo, 4 standard errors)', () => {

@@ -116,4 +116,17 @@ describe('function-class rule: mechanics', () => {
     expect(v.widestGap!.paired).toBe(true);
     expect(v.settled).toBe(false); // unpaired, 0.5 / (0.7·√2) ≈ 0.5 standard errors would have called it settled
   });
+
+  it('is not talked into "settled" by a richer class that runs away on a few resamples', () => {
+    // Shaped like the hold-out neutralisation tank's firm candidate, seed 3 (test/battery/holdout/):
+    // degree 2 at −14.7 and degree 4 at −12.05 (18 % apart) move together on nearly every resample,
+    // but degree 4 runs away on 3 % of them. The standard deviation of the paired differences (≈ 3)
+    // read the gap as 0.8 standard errors; the robust spread (robustSpread.ts) reads the bulk.
+    const shared = Array.from({ length: 200 }, (_, k) => 0.25 * Math.sin(1.7 * k));
+    const d2 = shared.map((s) => -14.7 + s), d4 = shared.map((s, k) => -12.05 + s + 0.05 * Math.cos(k) + (k % 33 === 0 ? (k % 2 === 0 ? 25 : -25) : 0));
+    const v = functionClassVerdict([at('degree 2', -14.7, 0.25, d2), at('degree 4', -12.05, 3.2, d4)]);
+    expect(v.widestGap!.paired).toBe(true);
+    expect(v.settled).toBe(false);
+    expect(v.widestGap!.standardErrors).toBeGreaterThan(10);
+  });
 });

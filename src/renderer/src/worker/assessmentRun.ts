@@ -10,6 +10,7 @@ import { assessRun, type AssessmentProgress } from '../../../pipeline/assessProj
 import { assessmentSettingsFor } from '../../../pipeline/assessSettings';
 import type { ProjectDocument } from '../../../project/schema';
 import type { AssessRunProgress } from '../../../shared/workerMessages';
+import { helperWorker } from './helperWorker';
 import type { WorkerMemory } from './workerMemory';
 
 const PROGRESS_INTERVAL_MS = 100;
@@ -32,5 +33,5 @@ export async function runAssessment(
   };
   const stop = memory.assessmentStop;
   stop.requested = false;
-  return assessRun(evaluated.run, { settings: settings.value, onProgress, cancel: () => stop.requested });
+  return assessRun(evaluated.run, { settings: settings.value, onProgress, cancel: () => stop.requested, helper: helperWorker() });
 }
