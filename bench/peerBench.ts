@@ -5,10 +5,12 @@
  * assessment with the default 1,000 bootstrap resamples, cross-checks, diagnostics, sensitivity),
  * both as fresh processes, wall clock. The CSV comes from the peer's own generator
  * (make_lq_dataset.py, seed 0). Also prints our phases from an in-process run, the assessment with
- * the CLI's helper thread (as `evaluate` runs it) and again on one thread. Printed, never asserted.
+ * the CLI's helper thread (as `evaluate` runs it) and again on one thread, each with the CPU time of
+ * the loop's own (main) thread beside its wall clock — on a shared machine the wall clock of two
+ * threads says little, the main thread's CPU says how much of the work left it. Printed, never asserted.
  */
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { helperThread } from '../src/cli/helperThread';
@@ -37,6 +39,16 @@ export function peerProject(csv: string, quadratureNodes = 10): string {
 }
 
 const seconds = (start: bigint) => Number(process.hrtime.bigint() - start) / 1e9;
+
+/** CPU seconds of this process's main thread (Linux: /proc/self/task/<pid>/stat, utime + stime in clock ticks of 1/100 s); NaN elsewhere. */
+function mainThreadCpuSeconds(): number {
+  try {
+    const fields = readFileSync(`/proc/self/task/${process.pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / 100;
+  } catch {
+    return NaN;
+  }
+}
 
 function timed(command: string, args: string[], cwd: string): number {
   const t = process.hrtime.bigint();
@@ -68,6 +80,13 @@ export async function runPeerBench(n: number, pairs = 2): Promise<Record<string,
   };
 }
 
+/** Wall clock and the main thread's CPU time of one call. */
+async function timedCall<T>(call: () => Promise<T>): Promise<{ result: T; wall: number; mainCpu: number }> {
+  const t = process.hrtime.bigint(), cpu = mainThreadCpuSeconds();
+  const result = await call();
+  return { result, wall: seconds(t), mainCpu: mainThreadCpuSeconds() - cpu };
+}
+
 async function inProcessPhases(projectPath: string): Promise<Record<string, number | string>> {
   const folder = resolve(projectPath, '..');
   let t = process.hrtime.bigint();
@@ -79,19 +98,17 @@ async function inProcessPhases(projectPath: string): Promise<Record<string, numb
   if (!run.ok) throw new Error(JSON.stringify(run.problems));
   evaluationOf(run.value);
   const fitSeconds = seconds(t);
-  t = process.hrtime.bigint();
   const settings = assessmentSettingsFor(opened.value.project);
   if (!settings.ok) throw new Error('settings');
-  const assessment = await assessRun(run.value, { settings: settings.value, helper: helperThread() });
-  const assessSeconds = seconds(t);
-  t = process.hrtime.bigint();
-  const oneThread = await assessRun(run.value, { settings: settings.value });
-  const oneThreadSeconds = seconds(t);
+  const { result: assessment, wall: assessSeconds, mainCpu: assessMainCpu } = await timedCall(() => assessRun(run.value, { settings: settings.value, helper: helperThread() }));
+  const { result: oneThread, wall: oneThreadSeconds, mainCpu: oneThreadMainCpu } = await timedCall(() => assessRun(run.value, { settings: settings.value }));
   run.value.dispose();
   if (!assessment.ok) throw new Error(JSON.stringify(assessment.problems));
   if (!oneThread.ok) throw new Error(JSON.stringify(oneThread.problems));
   return {
-    'import (s)': importSeconds, 'fit + surface (s)': fitSeconds, 'assessment (s)': assessSeconds, 'assessment, one thread (s)': oneThreadSeconds,
+    'import (s)': importSeconds, 'fit + surface (s)': fitSeconds, 'assessment (s)': assessSeconds, 'assessment, main-thread CPU (s)': assessMainCpu,
+    'assessment, one thread (s)': oneThreadSeconds, 'one thread, main-thread CPU (s)': oneThreadMainCpu,
     'one thread / helper': oneThreadSeconds / assessSeconds, 'resample threads': assessment.value.settings.threads,
+    'in-process peak RSS (MiB)': process.resourceUsage().maxRSS / 1024,
   };
 }

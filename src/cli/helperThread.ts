@@ -11,7 +11,7 @@
  * tsx's loader through its API and then imports the thread module.
  */
 import { Worker } from 'node:worker_threads';
-import { transferables, type PerDecisionJob } from '../pipeline/perDecisionBlocks';
+import { transferables, type ResampleJob } from '../pipeline/perDecisionBlocks';
 import { HELPER_MINIMUM_WORK, helperFeed } from '../pipeline/helperFeed';
 import type { HelperAnswer, HelperFeed, ResampleHelper } from '../pipeline/perDecisionRoute';
 
@@ -29,7 +29,7 @@ export function helperThread(minimumWork = HELPER_MINIMUM_WORK): ResampleHelper 
   return { minimumWork, start: startHelper };
 }
 
-function startHelper(job: PerDecisionJob): HelperFeed {
+function startHelper(job: ResampleJob): HelperFeed {
   const worker = new Worker(bootCode(), { eval: true, workerData: job, transferList: transferables(job) });
   return helperFeed({
     listen(heard) {

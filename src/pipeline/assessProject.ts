@@ -19,14 +19,14 @@ import type { Assessment } from './assessment';
 import { AssessmentError, candidateWork, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
 import { classWorks } from './assessClasses';
-import { rolloutCheck, rolloutModel, type RolloutOutcome } from './assessRollouts';
+import { openRolloutSimulations, rolloutCheck, rolloutModel, type RolloutModel, type RolloutOutcome } from './assessRollouts';
 import { finalStateValues } from './model/completedReturn';
 import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
 import { checkLinearQuadraticModel, modelInapplicability } from './assessModelCheck';
 import { runResamples, type ResampleProgress } from './assessResamples';
-import type { ResampleHelper } from './perDecisionRoute';
+import { threadsNote, type PerDecisionRoute, type ResampleHelper } from './perDecisionRoute';
 import { sensitivity } from './assessSensitivity';
 import type { AssessmentSettings } from './assessSettings';
 import { isEngineError } from './engineErrors';
@@ -77,6 +77,20 @@ export async function assessProject(options: AssessRunOptions & { project: Proje
 
 async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Assessment> {
   const context = assessmentContext(run, options);
+  const all = [...run.models, ...(run.presentController ? [run.presentController] : [])];
+  // Opened first, so that a helper thread simulates them while this thread fits the function classes.
+  const dynamics = rolloutModel(context);
+  const simulations = 'reason' in dynamics ? null : openRolloutSimulations(context, all.map((m) => m.policy), dynamics, options.settings);
+  try {
+    return await assessWith(run, options, context, { dynamics, simulations });
+  } finally {
+    simulations?.close();
+  }
+}
+
+async function assessWith(
+  run: ProjectRun, options: AssessRunOptions, context: AssessmentContext, rollout: { dynamics: RolloutModel | { reason: string }; simulations: PerDecisionRoute | null },
+): Promise<Assessment> {
   const { plan } = run, { data, sign } = plan, { settings } = options;
   const all = [...run.models, ...(run.presentController ? [run.presentController] : [])];
   const progress = (done: number) => options.onProgress?.({ stage: 'preparing', done, total: all.length });
@@ -95,11 +109,12 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
     regressions: modelCheck.regressions, applicable: modelReasons.map((r) => r === null),
     baselineApplicable: baseline !== null && modelInapplicability(modelCheck, baseline.model.policy) === null,
   } : null;
-  const dynamics = rolloutModel(context);
-  const rollouts: RolloutOutcome[] = works.map((w) => ('reason' in dynamics ? { reason: dynamics.reason } : rolloutCheck(context, w, dynamics, settings)));
-  const baselineRollout = baseline ? ('reason' in dynamics ? { reason: dynamics.reason } : rolloutCheck(context, baseline, dynamics, settings)) : null;
   const replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings,
     (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
+  const simulated = rollout.simulations && await rollout.simulations.rollouts(context.cancel), { dynamics } = rollout;
+  const rolloutOf = (w: CandidateWork, k: number): RolloutOutcome => (simulated ? rolloutCheck(context, w, simulated[k], settings) : { reason: 'reason' in dynamics ? dynamics.reason : '' });
+  const rollouts = works.map(rolloutOf), baselineRollout = baseline && rolloutOf(baseline, works.length);
+  const threads = threadsNote(replicates.threads, rollout.simulations && rollout.simulations.note);
   const ranges = loggedActionRanges(data);
   const reference = {
     presentControllerShift: presentControllerShift(plan, baseline),
@@ -113,7 +128,7 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
   const unvisited = unvisitedShare(plan), solver = resampleSolver(works);
   return {
-    settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver, threads: replicates.threads },
+    settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver, threads },
     behaviour: intervalEstimate(plan.loggedReturn.value, replicates.loggedReturn, settings.level, sign,
       'sampling of the logged runs; cut short where runs end on a time limit'),
     presentController: assemblePresentController(inputs),

@@ -6,16 +6,14 @@
  * them can be compared by a paired bootstrap (Efron & Tibshirani 1993, §14.1 on paired comparisons
  * from common resamples). Values are in reward terms.
  */
-import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
 import { createPacer, throwIfCancelled } from '../core/fqe/cancellation';
 import { completedReturnOfResample } from '../core/loggedReturn';
-import { fitLinearQuadraticModels, ModelFitError, type LinearQuadraticModelFit, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
-import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
+import { modelRegressions, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
 import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
-import { isModelValueFailure } from './assessModelCheck';
 import type { AssessmentContext, CandidateWork, OffPolicyInputs } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
+import { modelBlock, type ModelJob } from './modelBlocks';
 import { drawBlock } from './perDecisionBlocks';
 import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
 
@@ -64,21 +62,25 @@ export async function runResamples(
   const { plan } = context, e = plan.episodes.episodes;
   const { works, baseline } = inputs;
   const withPerDecision = [...works, ...(baseline ? [baseline] : [])].filter((w) => 'perDecision' in w.offPolicy);
+  // Balance (bench/peerBench.ts profile, 1,000,000 transitions): the per-decision blocks alone cost the
+  // helper about what the fits' replicates and the model cost this thread (8.8 s against 7.3 s), so the
+  // model goes to the helper only where it has no per-decision work; either way modelBlock runs it.
+  const modelJob = modelJobOf(context, inputs), modelOnRoute = withPerDecision.length === 0;
   const route = openPerDecisionRoute(withPerDecision.map((w) => (w.offPolicy as OffPolicyInputs).perDecision),
-    { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper);
+    { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper, { model: modelOnRoute ? modelJob : null, rollouts: null });
   try {
-    return await resampleLoop(context, inputs, settings, { route, withPerDecision }, onProgress);
+    return await resampleLoop(context, inputs, settings, { route, withPerDecision, ownModel: modelOnRoute ? null : modelJob && modelJob() }, onProgress);
   } finally {
     route.close();
   }
 }
 
 async function resampleLoop(
-  context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, perDecisionOf: { route: PerDecisionRoute; withPerDecision: CandidateWork[] },
+  context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, shares: { route: PerDecisionRoute; withPerDecision: CandidateWork[]; ownModel: ModelJob | null },
   onProgress?: (p: ResampleProgress) => void,
 ): Promise<ReplicateSet> {
   const pace = createPacer(PACE_MS), { plan } = context, e = plan.episodes.episodes;
-  const { works, baseline, baselineEnds, model } = inputs, { route, withPerDecision } = perDecisionOf;
+  const { works, baseline, baselineEnds, model } = inputs, { route, withPerDecision, ownModel } = shares;
   const out: ReplicateSet = {
     loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false)),
     presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [], threads: '',
@@ -90,16 +92,15 @@ async function resampleLoop(
     throwIfCancelled(context.cancel);
     if (first - reported >= PROGRESS_EVERY) onProgress?.({ done: (reported = first), total: settings.resamples });
     const drawn = drawBlock(e, settings.seed, first, settings.resamples, block);
-    // The two estimators bound by reading per-run or per-entry data take the block's resamples in one read.
-    const fitted = model ? fitLinearQuadraticModels(model.regressions, drawn).map((f) => (f instanceof ModelFitError ? null : f)) : null;
+    const ownModels = ownModel && modelBlock(ownModel, drawn);
     const fqe = new Map([...works, ...(baseline ? [baseline] : [])].map((w) => [w, blockValues(w, drawn)]));
     // Asked for last, so a helper thread computing them has had this block's other work to run ahead.
-    const outcomes = await route.block(first, drawn);
-    const perDecision = new Map(withPerDecision.map((w, k) => [w, outcomes[k]]));
+    const share = await route.block(first, drawn);
+    const perDecision = new Map(withPerDecision.map((w, k) => [w, share.perDecision[k]])), models = ownModels ?? share.models;
     drawn.forEach((c, i) => {
       out.loggedReturn.push(weightedMean(plan.loggedReturn.perEpisode, c));
-      works.forEach((w, j) => replicateCandidate(context, w, out.candidates[j], c, fqe.get(w)!.map((v) => v?.[i]), fitted && fitted[i], perDecision.get(w)?.[i]));
-      if (baseline && out.presentController) replicateCandidate(context, baseline, out.presentController, c, fqe.get(baseline)!.map((v) => v?.[i]), null, perDecision.get(baseline)?.[i]);
+      works.forEach((w, j) => replicateCandidate(w, out.candidates[j], fqe.get(w)!.map((v) => v?.[i]), models?.[j]?.[i] ?? null, perDecision.get(w)?.[i]));
+      if (baseline && out.presentController) replicateCandidate(baseline, out.presentController, fqe.get(baseline)!.map((v) => v?.[i]), null, perDecision.get(baseline)?.[i]);
       if (baselineEnds && out.completedReturn) out.completedReturn.push(completedReturnOfResample(plan.loggedReturn.perEpisode, baselineEnds.tailWeights, baselineEnds.values, c));
     });
   }
@@ -123,13 +124,13 @@ function blockValues(w: CandidateWork, block: readonly Uint32Array[]): ((number 
 
 /**
  * classValues: J of the work's function classes on this resample (blockValues), null for a class without a replicator;
+ * modelValue: the linear-quadratic model's J on this resample (modelBlock), null where there is none;
  * perDecision: the resample's per-decision estimates (perDecisionResamples), or the error that stands for none.
  */
 function replicateCandidate(
-  context: AssessmentContext, w: CandidateWork, out: CandidateReplicates, c: Uint32Array, classValues: (number | null | undefined)[],
-  fitted: LinearQuadraticModelFit | null, perDecision: PerDecisionEstimates | ImportanceSamplingError | undefined,
+  w: CandidateWork, out: CandidateReplicates, classValues: (number | null | undefined)[],
+  modelValue: number | null, perDecision: PerDecisionEstimates | ImportanceSamplingError | undefined,
 ): void {
-  const { discount, starts } = context.plan;
   // A model without a replicator (a network) has no fqe replicates: no interval.
   if (w.replicate) out.fqe.push(classValues[0] ?? null);
   for (let k = 1; k < w.classes.length; k++) out.classes[k].push(classValues[k] ?? null);
@@ -138,10 +139,24 @@ function replicateCandidate(
     out.importanceSampling!.push(estimates && estimates.importanceSampling);
     out.doublyRobust!.push(estimates && estimates.doublyRobust);
   }
-  if (out.model) {
-    const weights = starts.followEpisodes ? startMultiplicities(c, starts.episode) : undefined;
-    out.model.push(fitted ? modelGuarded(() => modelPolicyValue(fitted, w.model.policy, discount, starts.states, weights)) : null);
-  }
+  if (out.model) out.model.push(modelValue);
+}
+
+/**
+ * The model's job for the resample route (modelBlocks.ts), made on demand: the first time with the
+ * moments the model check formed, again from the data after a helper thread was given those
+ * (the same pass, so the same numbers). Candidates the model does not apply to get no values.
+ */
+function modelJobOf(context: AssessmentContext, inputs: ResampleInputs): (() => ModelJob) | null {
+  const { model, works } = inputs, { plan } = context;
+  if (!model) return null;
+  let held: ModelRegressions | null = model.regressions;
+  const policies = works.map((w, j) => (model.applicable[j] ? w.model.policy : null));
+  return () => {
+    const regressions = held ?? modelRegressions(plan.data, plan.episodes);
+    held = null;
+    return { regressions, policies, discount: plan.discount, starts: plan.starts };
+  };
 }
 
 /** Σ c_k G_k / Σ c_k: the mean of the resample's per-episode values. */
@@ -152,13 +167,4 @@ function weightedMean(values: Float64Array, c: ArrayLike<number>): number {
     count += c[k];
   }
   return total / count;
-}
-
-function modelGuarded(estimate: () => number): number | null {
-  try {
-    return estimate();
-  } catch (error) {
-    if (isModelValueFailure(error)) return null;
-    throw error;
-  }
 }

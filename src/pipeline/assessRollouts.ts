@@ -9,18 +9,21 @@
  * start states: the difference on the full data is M − J_sub (J_sub the mean of V̂ over the subset),
  * and on resample b, M_b − J_sub − (J_b − J) — the candidate's resample deviation taken over all
  * its start states, the subset held fixed. Rollouts reuse their random numbers across resamples
- * (common random numbers), so their spread is the models' spread.
+ * (common random numbers), so their spread is the models' spread. The simulations themselves
+ * (rolloutValues.ts) need nothing from the fit, so a helper thread may run them during the resample
+ * loop; rolloutCheck pairs them with the fit's values.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { monomialCount } from '../core/features/monomials';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { ModelFitError } from '../core/offPolicy/linearQuadraticModel';
-import { ModelValueError } from '../core/offPolicy/modelBasedValue';
-import { modelRolloutValue } from '../core/offPolicy/modelRollouts';
 import { fitPolynomialModel, polynomialModelRegressions, type PolynomialModelFit, type PolynomialModelRegressions } from '../core/offPolicy/polynomialDynamicsModel';
+import type { GaussianPolicy } from '../core/policy';
 import { stateValues } from '../core/value';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
+import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
+import { sendRolloutJob, type RolloutJob, type RolloutValues, type SentRolloutJob } from './rolloutValues';
 
 export const ROLLOUT_RESAMPLES = 30;
 export const ROLLOUT_STARTS = 200;
@@ -46,12 +49,10 @@ export interface RolloutCheck {
 
 export type RolloutOutcome = RolloutCheck | { readonly reason: string };
 
-/** The one-step model: its regressions, the full data's fit, and the fit on rollout resample b (seeded by `seed`), each formed once for every candidate. */
+/** The one-step model: its regressions and the full data's fit, formed once for every candidate. */
 export interface RolloutModel {
   readonly regressions: PolynomialModelRegressions;
   readonly fit: PolynomialModelFit;
-  /** The model refitted on rollout resample b with multiplicities c (drawn from seed and b); a ModelFitError is thrown again to every caller. */
-  resampleFit(seed: number, b: number, c: Uint32Array): PolynomialModelFit;
 }
 
 /** The one-step model's regressions, fitted once for every candidate; or why there is none. */
@@ -60,55 +61,76 @@ export function rolloutModel(context: AssessmentContext): RolloutModel | { reaso
   const degree = monomialCount(p, 3) <= CUBIC_MONOMIALS ? 3 : 2;
   try {
     const regressions = polynomialModelRegressions(data, episodes, { degree, rewardDegree: 2 });
-    return { regressions, fit: fitPolynomialModel(regressions), resampleFit: resampleFits(regressions) };
+    return { regressions, fit: fitPolynomialModel(regressions) };
   } catch (error) {
     if (error instanceof ModelFitError) return { reason: `no one-step model of the plant could be fitted (${error.message})` };
     throw error;
   }
 }
 
-/** The model's refits on the rollout resamples, kept by (seed, b): the regressions do not depend on the policy, so every candidate and the present controller share them. */
-function resampleFits(regressions: PolynomialModelRegressions): RolloutModel['resampleFit'] {
-  const kept = new Map<string, PolynomialModelFit | ModelFitError>();
-  return (seed, b, c) => {
-    const key = `${seed}:${b}`;
-    let fit = kept.get(key);
-    if (!fit) {
-      try {
-        fit = fitPolynomialModel(regressions, c);
-      } catch (error) {
-        if (!(error instanceof ModelFitError)) throw error;
-        fit = error;
-      }
-      kept.set(key, fit);
-    }
-    if (fit instanceof ModelFitError) throw fit;
-    return fit;
+/** The simulations of every policy's check (rolloutValues.ts), in the order given, on the model's regressions. */
+export function rolloutJob(context: AssessmentContext, policies: readonly GaussianPolicy[], regressions: PolynomialModelRegressions, settings: AssessmentSettings): RolloutJob {
+  const { plan } = context, starts = startSubset(plan.starts.states, plan.starts.count, plan.data.stateDim);
+  return {
+    regressions, policies, discount: plan.discount, startStates: starts.states, rollout: rolloutSettings(context, starts.count),
+    seed: settings.seed, episodes: plan.episodes.episodes, resamples: Math.min(ROLLOUT_RESAMPLES, settings.resamples),
   };
 }
 
-export function rolloutCheck(context: AssessmentContext, work: CandidateWork, model: RolloutModel, settings: AssessmentSettings): RolloutOutcome {
+/**
+ * The simulations' job for their route, made on demand: the first time on the regressions
+ * already formed, again from the data after a helper thread was given those (the same pass, so the
+ * same numbers).
+ */
+function rolloutJobs(context: AssessmentContext, policies: readonly GaussianPolicy[], model: RolloutModel, settings: AssessmentSettings): () => SentRolloutJob {
+  let held: PolynomialModelRegressions | null = model.regressions;
+  return () => {
+    let regressions = held;
+    held = null;
+    if (!regressions) {
+      const formed = rolloutModel(context);
+      if ('reason' in formed) throw new ModelFitError(formed.reason); // not met: the same pass succeeded before
+      regressions = formed.regressions;
+    }
+    return sendRolloutJob(rolloutJob(context, policies, regressions, settings));
+  };
+}
+
+/**
+ * The simulations of every policy's check, opened before the function classes are fitted: on the
+ * host's helper, a thread of their own that runs them meanwhile (their work, resampleWork, decides
+ * as for the loop's), else on this thread when `rollouts()` is asked for after the loop.
+ */
+export function openRolloutSimulations(context: AssessmentContext, policies: readonly GaussianPolicy[], model: RolloutModel, settings: AssessmentSettings): PerDecisionRoute {
+  const { plan } = context;
+  return openPerDecisionRoute([], { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: 0 }, context.helper,
+    { model: null, rollouts: rolloutJobs(context, policies, model, settings) });
+}
+
+function rolloutSettings(context: AssessmentContext, starts: number): { rolloutsPerStart: number; seed: number } {
+  return { rolloutsPerStart: Math.max(ROLLOUTS_PER_START, Math.ceil(ROLLOUTS_TOTAL / starts)), seed: context.plan.seed };
+}
+
+/**
+ * The check of one work from its simulations (rolloutValues): the rollouts' J against the fit's on
+ * the same start states, on the full data and on each rollout resample (the fit's replicate on the
+ * same multiplicities; a resample without one is left out).
+ */
+export function rolloutCheck(context: AssessmentContext, work: CandidateWork, simulated: RolloutValues, settings: AssessmentSettings): RolloutOutcome {
+  if ('reason' in simulated) return { reason: simulated.reason };
   const { plan } = context, ds = plan.data.stateDim, starts = startSubset(plan.starts.states, plan.starts.count, ds);
   const { q } = work.model.fit;
   const values = stateValues(q, work.model.policy, starts.states, starts.count, work.model.quadrature);
   const fqeOnStarts = values.reduce((a, b) => a + b, 0) / starts.count, fqe = work.model.fit.policyValue;
-  const rollout = { rolloutsPerStart: Math.max(ROLLOUTS_PER_START, Math.ceil(ROLLOUTS_TOTAL / starts.count)), seed: plan.seed };
-  try {
-    const full = modelRolloutValue(model.fit, work.model.policy, plan.discount, starts.states, rollout);
-    const e = plan.episodes.episodes, c = new Uint32Array(e), differenceReplicates: number[] = [];
-    for (let b = 0; b < Math.min(ROLLOUT_RESAMPLES, settings.resamples); b++) {
-      throwIfCancelled(context.cancel);
-      episodeMultiplicities(e, settings.seed, b, c);
-      const j = work.replicate?.value(c) ?? fqe;
-      const m = modelRolloutValue(model.resampleFit(settings.seed, b, c), work.model.policy, plan.discount, starts.states, rollout);
-      if (j !== null) differenceReplicates.push(m.value - fqeOnStarts - (j - fqe));
-    }
-    return { value: full.value, difference: full.value - fqeOnStarts, differenceReplicates, shareOutsideLogs: full.shareOutsideLogs, monteCarloError: full.monteCarloError,
-      starts: starts.count, rolloutsPerStart: rollout.rolloutsPerStart };
-  } catch (error) {
-    if (error instanceof ModelFitError || error instanceof ModelValueError) return { reason: error.message };
-    throw error;
-  }
+  const e = plan.episodes.episodes, c = new Uint32Array(e), differenceReplicates: number[] = [], { full } = simulated;
+  simulated.resampled.forEach((m, b) => {
+    throwIfCancelled(context.cancel);
+    episodeMultiplicities(e, settings.seed, b, c);
+    const j = work.replicate?.value(c) ?? fqe;
+    if (j !== null) differenceReplicates.push(m - fqeOnStarts - (j - fqe));
+  });
+  return { value: full.value, difference: full.value - fqeOnStarts, differenceReplicates, shareOutsideLogs: full.shareOutsideLogs, monteCarloError: full.monteCarloError,
+    starts: starts.count, rolloutsPerStart: rolloutSettings(context, starts.count).rolloutsPerStart };
 }
 
 /** At most ROLLOUT_STARTS start states, evenly spaced through the list. */

@@ -6,12 +6,14 @@
  * `stopped` with the reason to whoever waits and to every later `next()`, and the loop carries on by
  * itself. close() ends the thread whatever it is doing; it is safe to call more than once.
  */
-import { perDecisionBlocks, type PerDecisionJob } from './perDecisionBlocks';
+import { helperBlocks, type ResampleJob } from './perDecisionBlocks';
 import type { HelperAnswer, HelperFeed } from './perDecisionRoute';
 
 /**
- * Per-decision work (logged entries × resamples) below which a host keeps the loop to one thread.
- * Measured on the peer plant's logs (bench/peerBench.ts, Node): 10^8 (100,000 transitions, 1,000
+ * Work a helper could take (resampleWork in perDecisionRoute.ts: logged entries × resamples, a
+ * linear-quadratic model's moment value counted at a third of an entry and a simulated rollout step
+ * at 200) below which a host keeps the loop to one thread. Measured on the peer plant's logs
+ * (bench/peerBench.ts, Node) for the per-decision share: 10^8 (100,000 transitions, 1,000
  * resamples) is about 0.9 s of the helper's CPU against about 0.3 s to start a thread and 20–50 MiB
  * more memory; 10^9, about 7 s. Our choice: lend it from 3·10^8, where the work is some ten times
  * the start. The app's worker uses the same figure (a module worker's start is of the same order).
@@ -52,10 +54,10 @@ export function helperFeed(port: HelperPort): HelperFeed {
   };
 }
 
-/** What a helper thread runs on the job it was given: each answer posted as soon as it is ready, an error once, as words. */
-export function serveHelperJob(job: PerDecisionJob, post: (answer: HelperAnswer) => void): void {
+/** What a helper thread runs on the job it was given (its blocks, then its rollouts): each answer posted as soon as it is ready, an error once, as words. */
+export function serveHelperJob(job: ResampleJob, post: (answer: HelperAnswer) => void): void {
   try {
-    for (const block of perDecisionBlocks(job)) post(block);
+    for (const block of helperBlocks(job)) post(block);
   } catch (error) {
     post({ stopped: `stopped: ${error instanceof Error ? error.message : String(error)}` });
   }

@@ -12,7 +12,7 @@ import { readFile } from 'node:fs/promises';
 import { dirname, join, resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE } from '../../src/pipeline/perDecisionRoute';
+import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, ROLLOUT_THREAD_NOTE } from '../../src/pipeline/perDecisionRoute';
 import { openHelperPage, type HelperPage } from './harness/helperPage';
 import type { HelperRun } from './helper-page/main';
 
@@ -50,7 +50,7 @@ describe('the app’s helper worker (e2e)', () => {
     expect(one.ok, one.json.slice(0, 400)).toBe(true);
     expect(two.ok, two.json.slice(0, 400)).toBe(true);
     expect((one.assessment.settings as { threads: string }).threads).toBe(ONE_THREAD_NOTE);
-    expect((two.assessment.settings as { threads: string }).threads).toBe(HELPER_THREAD_NOTE);
+    expect((two.assessment.settings as { threads: string }).threads).toBe(`${HELPER_THREAD_NOTE}; ${ROLLOUT_THREAD_NOTE}`); // the loop's helper and the rollouts' own
     expect(withoutThreads(two.assessment)).toEqual(withoutThreads(one.assessment));
     expect(helper.errors).toEqual([]);
   }, 240_000);
@@ -58,6 +58,6 @@ describe('the app’s helper worker (e2e)', () => {
   it('starts no thread below its minimum work', async () => {
     const run = await assess(Number.POSITIVE_INFINITY);
     expect(run.ok).toBe(true);
-    expect((run.assessment.settings as { threads: string }).threads).toMatch(/^one thread for the resamples \(too little per-decision work/);
+    expect((run.assessment.settings as { threads: string }).threads).toMatch(/^one thread for the resamples \(too little work.*; the model rollouts on this thread \(too little work/);
   }, 240_000);
 });

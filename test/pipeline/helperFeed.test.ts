@@ -20,7 +20,7 @@ function scripted(): { port: HelperPort; post(a: HelperAnswer): void; stop(why: 
   return thread;
 }
 
-const block = (first: number): HelperAnswer => ({ first, outcomes: [] });
+const block = (first: number): HelperAnswer => ({ first, outcomes: [], models: null });
 
 describe('helperFeed', () => {
   it('hands out answers in order, posted before or after they are asked for', async () => {

@@ -7,14 +7,14 @@
  * at all (Node, in the unit tests) there is no helper.
  */
 import { HELPER_MINIMUM_WORK, helperFeed } from '../../../pipeline/helperFeed';
-import { transferables, type PerDecisionJob } from '../../../pipeline/perDecisionBlocks';
+import { transferables, type ResampleJob } from '../../../pipeline/perDecisionBlocks';
 import type { HelperAnswer, HelperFeed, ResampleHelper } from '../../../pipeline/perDecisionRoute';
 
 export function helperWorker(minimumWork = HELPER_MINIMUM_WORK): ResampleHelper | undefined {
   return typeof Worker === 'undefined' ? undefined : { minimumWork, start: startNested };
 }
 
-function startNested(job: PerDecisionJob): HelperFeed {
+function startNested(job: ResampleJob): HelperFeed {
   const worker = new Worker(new URL('./resampleHelperWorker.ts', import.meta.url), { type: 'module', name: 'resample helper' });
   const feed = helperFeed({
     listen(heard) {
