@@ -13,7 +13,7 @@
 import { Worker } from 'node:worker_threads';
 import { transferables, type ResampleJob } from '../pipeline/perDecisionBlocks';
 import { HELPER_MINIMUM_WORK, helperFeed } from '../pipeline/helperFeed';
-import type { HelperAnswer, HelperFeed, ResampleHelper } from '../pipeline/perDecisionRoute';
+import type { HelperAnswer, HelperFeed, ResampleHelper } from '../pipeline/helperFeed';
 
 const fromSource = import.meta.url.endsWith('.ts');
 const threadModule = new URL(fromSource ? './resampleThread.ts' : './resampleThread.js', import.meta.url).href;

@@ -19,7 +19,7 @@ import { linearStateValues } from '../core/features/linearStateValues';
 import type { CandidateModel } from './model/candidateModel';
 import { finalStateValues } from './model/completedReturn';
 import type { EvaluationPlan } from './plan/evaluationPlan';
-import type { ResampleHelper } from './perDecisionRoute';
+import type { ResampleHelper } from './helperFeed';
 
 export interface OffPolicyInputs {
   table: ImportanceWeightTable;

@@ -6,8 +6,26 @@
  * `stopped` with the reason to whoever waits and to every later `next()`, and the loop carries on by
  * itself. close() ends the thread whatever it is doing; it is safe to call more than once.
  */
-import { helperBlocks, type ResampleJob } from './perDecisionBlocks';
-import type { HelperAnswer, HelperFeed } from './perDecisionRoute';
+import { throwIfCancelled, type CancellationCheck } from '../core/fqe/cancellation';
+import { helperBlocks, type ResampleJob, type SentBlock, type SentRollouts } from './perDecisionBlocks';
+
+/** What a host's helper thread answers for the next block (then the rollouts), in order; `stopped` when it can answer no more. */
+export type HelperAnswer = SentBlock | SentRollouts | { stopped: string };
+
+/** A running helper: its answers one block at a time, and its end. */
+export interface HelperFeed {
+  next(): Promise<HelperAnswer>;
+  /** End the thread now (it may be busy); safe to call more than once. */
+  close(): void;
+}
+
+/** A host's helper thread for the resample loop. start may throw; the loop then keeps to its own thread. */
+export interface ResampleHelper {
+  /** Lend the thread only when the work it could take (resampleWork) is at least this: below it a thread costs more to start than it saves. Default 0. */
+  readonly minimumWork?: number;
+  /** Runs helperBlocks(job) on the helper; the job's ranked tables are transferred there (unusable here afterwards). */
+  start(job: ResampleJob): HelperFeed;
+}
 
 /**
  * Work a helper could take (resampleWork in perDecisionRoute.ts: logged entries × resamples, a
@@ -60,5 +78,27 @@ export function serveHelperJob(job: ResampleJob, post: (answer: HelperAnswer) =>
     for (const block of helperBlocks(job)) post(block);
   } catch (error) {
     post({ stopped: `stopped: ${error instanceof Error ? error.message : String(error)}` });
+  }
+}
+
+/** How often a reader waiting on the helper looks for a stop request (answerOrStop). */
+const STOP_POLL_MS = 50;
+
+/**
+ * The feed's next answer, looking for a stop request every STOP_POLL_MS while it waits, so that a
+ * stop (Ctrl+C, the app's Stop) is heard even while the helper is busy with a long share (the model
+ * rollouts); then it throws FqeCancelledError (throwIfCancelled), and the caller's close() ends
+ * the thread.
+ */
+export async function answerOrStop(feed: HelperFeed, cancel?: CancellationCheck): Promise<HelperAnswer> {
+  const answer = feed.next();
+  if (!cancel) return answer;
+  for (;;) {
+    let timer: ReturnType<typeof setTimeout> | undefined;
+    const waited = new Promise<null>((resolve) => { timer = setTimeout(() => resolve(null), STOP_POLL_MS); });
+    const got = await Promise.race([answer, waited]);
+    clearTimeout(timer);
+    if (got !== null) return got;
+    throwIfCancelled(cancel);
   }
 }

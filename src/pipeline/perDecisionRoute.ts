@@ -18,27 +18,10 @@
 import type { CancellationCheck } from '../core/fqe/cancellation';
 import type { PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
 import { prepareResampleEntries, type ResampleEntries } from '../core/offPolicy/perDecisionResamples';
+import { answerOrStop, type HelperAnswer, type HelperFeed, type ResampleHelper } from './helperFeed';
 import { answersModelBlock, modelMomentValues, type ModelJob } from './modelBlocks';
-import { receiveOutcome, shareOfBlock, type BlockShare, type ResampleJob, type SentBlock, type SentRollouts } from './perDecisionBlocks';
+import { receiveOutcome, shareOfBlock, type BlockShare, type ResampleJob, type SentBlock } from './perDecisionBlocks';
 import { answersRollouts, receiveRolloutJob, rolloutSteps, rolloutValues, type RolloutValues, type SentRolloutJob } from './rolloutValues';
-
-/** What a host's helper thread answers for the next block (then the rollouts), in order; `stopped` when it can answer no more. */
-export type HelperAnswer = SentBlock | SentRollouts | { stopped: string };
-
-/** A running helper: its answers one block at a time, and its end. */
-export interface HelperFeed {
-  next(): Promise<HelperAnswer>;
-  /** End the thread now (it may be busy); safe to call more than once. */
-  close(): void;
-}
-
-/** A host's helper thread for the resample loop. start may throw; the loop then keeps to its own thread. */
-export interface ResampleHelper {
-  /** Lend the thread only when the work it could take (resampleWork) is at least this: below it a thread costs more to start than it saves. Default 0. */
-  readonly minimumWork?: number;
-  /** Runs helperBlocks(job) on the helper; the job's ranked tables are transferred there (unusable here afterwards). */
-  start(job: ResampleJob): HelperFeed;
-}
 
 export interface PerDecisionRoute {
   /** Per data (in the order given), the outcomes of resamples first … first + drawn.length − 1; the model's values on them. */
@@ -132,7 +115,7 @@ export function openPerDecisionRoute(
     async rollouts(cancel) {
       if (!shares.rollouts) return null;
       if (feed && given?.rollouts) {
-        const answer = await feed.next();
+        const answer = await answerOrStop(feed, cancel);
         if ('rollouts' in answer && answersRollouts(answer.rollouts, given.rollouts)) return answer.rollouts;
         keepToOwn('stopped' in answer ? answer.stopped : 'answered out of turn', null);
       }

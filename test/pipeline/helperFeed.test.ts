@@ -2,12 +2,14 @@
  * The feed a host's helper thread is read through (src/pipeline/helperFeed.ts), with a scripted
  * thread: answers come out in the order posted, whether they arrive before or after they are asked
  * for; a failure or early end answers `stopped` to the waiting reader and to every later one, with
- * the first reason; close() ends the thread and is safe twice. (Plain queue semantics: the
+ * the first reason; close() ends the thread and is safe twice; a reader waiting on a busy helper
+ * hears a stop request (answerOrStop). (Plain queue semantics: the
  * reference is the order of posting.)
  */
 import { describe, expect, it } from 'vitest';
-import { helperFeed, type HelperPort } from '../../src/pipeline/helperFeed';
-import type { HelperAnswer } from '../../src/pipeline/perDecisionRoute';
+import { FqeCancelledError } from '../../src/core/fqe/fqeErrors';
+import { answerOrStop, helperFeed, type HelperPort } from '../../src/pipeline/helperFeed';
+import type { HelperAnswer } from '../../src/pipeline/helperFeed';
 
 function scripted(): { port: HelperPort; post(a: HelperAnswer): void; stop(why: string): void; terminated: number } {
   let heard: Parameters<HelperPort['listen']>[0] | null = null;
@@ -58,5 +60,15 @@ describe('helperFeed', () => {
     feed.close();
     expect(await waiting).toEqual({ stopped: 'was closed' });
     expect(thread.terminated).toBe(2);
+  });
+
+  it('hears a stop request while the helper is still busy, and else gives the answer when it comes', async () => {
+    const busy = helperFeed(scripted().port);
+    let stop = false;
+    setTimeout(() => { stop = true; }, 120);
+    await expect(answerOrStop(busy, () => stop)).rejects.toBeInstanceOf(FqeCancelledError);
+    const thread = scripted(), feed = helperFeed(thread.port);
+    setTimeout(() => thread.post(block(0)), 120);
+    expect(await answerOrStop(feed, () => false)).toEqual(block(0));
   });
 });

@@ -8,7 +8,7 @@
  */
 import { HELPER_MINIMUM_WORK, helperFeed } from '../../../pipeline/helperFeed';
 import { transferables, type ResampleJob } from '../../../pipeline/perDecisionBlocks';
-import type { HelperAnswer, HelperFeed, ResampleHelper } from '../../../pipeline/perDecisionRoute';
+import type { HelperAnswer, HelperFeed, ResampleHelper } from '../../../pipeline/helperFeed';
 
 export function helperWorker(minimumWork = HELPER_MINIMUM_WORK): ResampleHelper | undefined {
   return typeof Worker === 'undefined' ? undefined : { minimumWork, start: startNested };
