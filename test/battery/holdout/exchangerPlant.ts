@@ -15,6 +15,7 @@
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
+import { valveLaw } from './valveLaw';
 
 const SETPOINT_C = 80, VALVE_BIAS = 0.75;
 
@@ -29,11 +30,9 @@ export const exchangerDynamics: PlantDynamics = {
   },
 };
 
-const VALVE = { lo: [0], hi: [1], mode: 'clip' as const };
-
-/** valve = 0.75 + K·(80 − T) − F·d, clipped to [0, 1], as offset + G·s. */
+/** valve = 0.75 + K·(80 − T) − F·d, clipped to [0, 1] (valveLaw.ts). */
 function valveCommand(k: number, feedforward: number, std: number) {
-  return { offset: [VALVE_BIAS + k * SETPOINT_C], gain: [[-k, -feedforward]], std: [std], bounds: VALVE };
+  return valveLaw({ bias: VALVE_BIAS, setpoint: SETPOINT_C, gain: k, feedforward: -feedforward, std, clipped: true });
 }
 
 export function exchangerPlant(): BatteryPlant {

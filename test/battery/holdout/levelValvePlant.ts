@@ -15,6 +15,7 @@
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
+import { valveLaw } from './valveLaw';
 import { dryerPlant } from './dryerPlant';
 import { exchangerPlant } from './exchangerPlant';
 import { neutralisationPlant } from './neutralisationPlant';
@@ -35,9 +36,9 @@ export const levelValveDynamics: PlantDynamics = {
   },
 };
 
-/** valve = 0.8 + K·(2 − h) − F·d, as offset + G·s. */
+/** valve = 0.8 + K·(2 − h) − F·d, unclipped: the valve saturates in the plant (valveLaw.ts). */
 function valveCommand(k: number, feedforward: number, std: number) {
-  return { offset: [VALVE_BIAS + k * LEVEL_SETPOINT_M], gain: [[-k, -feedforward]], std: [std] };
+  return valveLaw({ bias: VALVE_BIAS, setpoint: LEVEL_SETPOINT_M, gain: k, feedforward: -feedforward, std, clipped: false });
 }
 
 /** The vessel as a battery plant, with its name, the logging controller's dither and its one candidate (the two variants differ only there). */

@@ -20,6 +20,7 @@
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
+import { valveLaw } from './valveLaw';
 
 const NEUTRAL_PH = 7, VALVE_BIAS = 0.1, CURVE_SCALE = 0.01, CURVE_SLOPE = 1.2;
 
@@ -41,11 +42,9 @@ export const neutralisationDynamics: PlantDynamics = {
   },
 };
 
-const VALVE = { lo: [0], hi: [1], mode: 'clip' as const };
-
-/** v = 0.1 + K·(7 − pH) + F·d, clipped to [0, 1], as offset + G·s. */
+/** v = 0.1 + K·(7 − pH) + F·d, clipped to [0, 1] (valveLaw.ts). */
 export function reagentCommand(k: number, feedforward: number, std: number) {
-  return { offset: [VALVE_BIAS + k * NEUTRAL_PH], gain: [[-k, feedforward]], std: [std], bounds: VALVE };
+  return valveLaw({ bias: VALVE_BIAS, setpoint: NEUTRAL_PH, gain: k, feedforward, std, clipped: true });
 }
 
 export function neutralisationPlant(): BatteryPlant {
