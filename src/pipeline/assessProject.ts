@@ -78,10 +78,9 @@ export async function assessProject(options: AssessRunOptions & { project: Proje
 
 async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Assessment> {
   const context = assessmentContext(run, options);
-  const all = [...run.models, ...(run.presentController ? [run.presentController] : [])];
   // Opened first, so that a helper thread simulates them while this thread fits the function classes.
   const dynamics = rolloutModel(context);
-  const simulations = 'reason' in dynamics ? null : openRolloutSimulations(context, all.map((m) => m.policy), dynamics, options.settings);
+  const simulations = 'reason' in dynamics ? null : openRolloutSimulations(context, everyModel(run).map((m) => m.policy), dynamics, options.settings);
   try {
     return await assessWith(run, options, context, { dynamics, simulations });
   } finally {
@@ -89,12 +88,17 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   }
 }
 
+/** The candidates' models, then the present controller's where there is one: the order of every per-policy list. */
+function everyModel(run: ProjectRun): ProjectRun['models'] {
+  return [...run.models, ...(run.presentController ? [run.presentController] : [])];
+}
+
 async function assessWith(
   run: ProjectRun, options: AssessRunOptions, context: AssessmentContext, rollout: { dynamics: RolloutModel | { reason: string }; simulations: PerDecisionRoute | null },
 ): Promise<Assessment> {
   const { plan } = run, { data, sign } = plan, { settings } = options;
-  const all = [...run.models, ...(run.presentController ? [run.presentController] : [])];
-  const progress = (done: number) => options.onProgress?.({ stage: 'preparing', done, total: all.length });
+  const total = everyModel(run).length;
+  const progress = (done: number) => options.onProgress?.({ stage: 'preparing', done, total });
   const works: CandidateWork[] = [];
   for (const [i, model] of run.models.entries()) {
     progress(i);
