@@ -6,6 +6,8 @@
  */
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
+import { startCoverageFinding } from '../core/diagnostics/severity';
+import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
 import { outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
@@ -262,6 +264,8 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
       severity: 'caution', topic: 'startStates',
       message: `The candidates’ J is taken at the ${plan.starts.count} start states given in the project, the logged return at its runs’ own starts: the comparison with the logged return mixes two start distributions.`,
     });
+    const coverage = startCoverage(plan.data, plan.starts.states), finding = startCoverageFinding(coverage.outside, coverage.starts);
+    if (finding) out.push(finding);
   }
   if (!context.presentControllerModel) out.push({ severity: 'caution', topic: 'presentController', message: `The comparison uses the logged return: ${context.presentControllerReason}.` });
   const truncation = plan.loggedReturn.largestTruncationWeight;

@@ -6,7 +6,7 @@
  */
 import { DEFAULT_ACTION_SUPPORT } from '../core/diagnostics/actionSupport';
 import { CLASS_AGREEMENT } from '../core/diagnostics/functionClassRange';
-import { actionSupportRuleText, effectiveShareRuleText, occupancyShiftRuleText } from '../core/diagnostics/severity';
+import { actionSupportRuleText, effectiveShareRuleText, occupancyShiftRuleText, startCoverageRuleText } from '../core/diagnostics/severity';
 import { CROSS_CHECK_RULE } from '../core/offPolicy/crossCheckVerdict';
 import { COMPARED_DEGREES, MAX_CLASS_FEATURES } from './assessClasses';
 import { MODEL_THRESHOLDS } from './assessModelCheck';
@@ -40,5 +40,6 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
     `${actionSupportRuleText()} The logged range near a state is that of the actions at the ${k.neighbours} nearest logged states (states scaled by their standard deviations), ` +
       `for up to ${k.queryStates} logged states.`,
     'Never-visited region: the share of the value-surface grid (spanning the logged range of its two states) with no logged state at a grid point or its 8 neighbours (our definition); V there is extrapolated.',
+    ...(startsFollowEpisodes ? [] : [startCoverageRuleText()]),
   ];
 }
