@@ -6,6 +6,8 @@
  */
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
+import { startCoverageFinding } from '../core/diagnostics/severity';
+import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
 import { outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
@@ -54,9 +56,9 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
   return works.map((work, j) => {
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];
-    const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights);
     const policyValue = withNetworkInterval(intervalEstimate(work.model.fit.policyValue, r.fqe, settings.level, sign), work, sign);
     const classes = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
+    const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights, classes ? classes.settled : null);
     const warnings = [
       ...coverageWarnings(diagnostics),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
@@ -77,7 +79,7 @@ export function assemblePresentController(inputs: AssemblyInputs): PresentContro
   if (!baseline || !replicates.presentController || !replicates.completedReturn) return null;
   const r = replicates.presentController, model = baseline.model;
   const modelReason = modelInapplicability(inputs.modelCheck, model.policy);
-  const { checks, confirmation } = checksOf(inputs, baseline, r, modelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null);
+  const { checks, confirmation } = checksOf(inputs, baseline, r, modelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null, null);
   const completed = completedReturnFromEnds(inputs.context.plan, inputs.baselineEnds!).value;
   return {
     name: model.name, policyValue: intervalEstimate(model.fit.policyValue, r.fqe, settings.level, sign),
@@ -88,12 +90,12 @@ export function assemblePresentController(inputs: AssemblyInputs): PresentContro
 
 function checksOf(
   inputs: AssemblyInputs, work: CandidateWork, r: CandidateReplicates, modelReason: string | null, rollout: RolloutOutcome,
-  weights: CandidateAssessment['diagnostics']['importanceWeights'],
+  weights: CandidateAssessment['diagnostics']['importanceWeights'], settled: boolean | null,
 ): { checks: CrossCheck[]; confirmation: CandidateAssessment['confirmation'] } {
   const points = fullDataCrossChecks(inputs, work, modelReason);
   return crossChecks({
     work, replicates: r, points: points.values, rollout, weights, tailWeight: inputs.tailWeight,
-    offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: inputs.settings.level, sign: inputs.context.plan.sign,
+    offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: inputs.settings.level, sign: inputs.context.plan.sign, settled,
   });
 }
 
@@ -262,6 +264,8 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
       severity: 'caution', topic: 'startStates',
       message: `The candidates’ J is taken at the ${plan.starts.count} start states given in the project, the logged return at its runs’ own starts: the comparison with the logged return mixes two start distributions.`,
     });
+    const coverage = startCoverage(plan.data, plan.starts.states), finding = startCoverageFinding(coverage.outside, coverage.starts);
+    if (finding) out.push(finding);
   }
   if (!context.presentControllerModel) out.push({ severity: 'caution', topic: 'presentController', message: `The comparison uses the logged return: ${context.presentControllerReason}.` });
   const truncation = plan.loggedReturn.largestTruncationWeight;

@@ -37,6 +37,9 @@ const ASSUMPTIONS: Record<CrossCheckMethod, { label: string; assumption: string 
   },
 };
 
+/** The checks that rest on a plant model fitted to the logs rather than on the logged actions and rewards (crossCheckVerdict.ts, confirmationOf). */
+const PLANT_MODEL_CHECKS: readonly CrossCheckMethod[] = ['modelRollouts', 'linearQuadraticModel'];
+
 export interface CrossCheckInputs {
   work: CandidateWork;
   replicates: CandidateReplicates;
@@ -49,6 +52,8 @@ export interface CrossCheckInputs {
   modelReason: string | null;
   level: number;
   sign: number;
+  /** The function-class verdict of this model (false: not settled; null: none). */
+  settled: boolean | null;
 }
 
 export function crossChecks(inputs: CrossCheckInputs): { checks: CrossCheck[]; confirmation: { status: 'confirmed' | 'contradicted' | 'unconfirmed'; text: string } } {
@@ -60,8 +65,10 @@ export function crossChecks(inputs: CrossCheckInputs): { checks: CrossCheck[]; c
     rolloutCrossCheck(inputs),
     crossCheck('linearQuadraticModel', points.model, r.model, inputs.modelReason, inputs, {}),
   ];
-  const verdicts = checks.filter((c) => c.agreement !== 'notApplicable').map((c) => ({ label: c.label, agreement: c.agreement as 'agrees' | 'disagrees' | 'uninformative', note: c.note }));
-  return { checks, confirmation: confirmationOf(verdicts) };
+  const verdicts = checks.filter((c) => c.agreement !== 'notApplicable').map((c) => ({
+    label: c.label, agreement: c.agreement as 'agrees' | 'disagrees' | 'uninformative', note: c.note, fromPlantModel: PLANT_MODEL_CHECKS.includes(c.method),
+  }));
+  return { checks, confirmation: confirmationOf(verdicts, inputs.settled) };
 }
 
 function crossCheck(

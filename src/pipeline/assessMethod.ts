@@ -6,7 +6,7 @@
  */
 import { DEFAULT_ACTION_SUPPORT } from '../core/diagnostics/actionSupport';
 import { CLASS_AGREEMENT } from '../core/diagnostics/functionClassRange';
-import { actionSupportRuleText, effectiveShareRuleText, occupancyShiftRuleText } from '../core/diagnostics/severity';
+import { actionSupportRuleText, effectiveShareRuleText, occupancyShiftRuleText, startCoverageRuleText } from '../core/diagnostics/severity';
 import { CROSS_CHECK_RULE } from '../core/offPolicy/crossCheckVerdict';
 import { COMPARED_DEGREES, MAX_CLASS_FEATURES } from './assessClasses';
 import { MODEL_THRESHOLDS } from './assessModelCheck';
@@ -30,7 +30,8 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
     `Cross-checks are informative only when they could see an error of ${pct(a.detectableGap)} of J (three paired standard errors within it), with an effective size of at least ` +
       `max(${a.minEffectiveEpisodes}, ${pct(a.minEffectiveShare)} of the runs) for the importance weights, at most ${pct(a.maxTailWeight)} of the discount weight past the runs’ ends, ` +
       `and at most ${pct(a.maxShareOutsideLogs)} of simulated steps at the edge of the logged states for the model rollouts; an informative check disagrees when the paired ` +
-      `difference exceeds ${a.standardErrors} standard errors and ${pct(a.relative)} of J (our rule). When no check is informative, the estimate is reported as unconfirmed.`,
+      `difference exceeds ${a.standardErrors} standard errors and ${pct(a.relative)} of J (our rule). When no check is informative, the estimate is reported as unconfirmed; ` +
+      'so it is where the function classes disagree and only checks resting on a plant model fitted to the same logs (rollouts, the linear-quadratic closed form) agree.',
     `Model rollouts: a one-step plant model (polynomial in the state and action) fitted to the logs, simulated from up to ${ROLLOUT_STARTS} start states ` +
       `(${ROLLOUTS_PER_START} rollouts each, at least ${ROLLOUTS_TOTAL} in all), on the first ${ROLLOUT_RESAMPLES} resamples; its Monte Carlo error is added to the paired standard error. ` +
       `Linear-quadratic closed form: used only when each next state has linear-dynamics R² ≥ ${m.dynamicsRSquared}, ` +
@@ -40,5 +41,6 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
     `${actionSupportRuleText()} The logged range near a state is that of the actions at the ${k.neighbours} nearest logged states (states scaled by their standard deviations), ` +
       `for up to ${k.queryStates} logged states.`,
     'Never-visited region: the share of the value-surface grid (spanning the logged range of its two states) with no logged state at a grid point or its 8 neighbours (our definition); V there is extrapolated.',
+    ...(startsFollowEpisodes ? [] : [startCoverageRuleText()]),
   ];
 }

@@ -19,7 +19,7 @@ import type { Assessment } from './assessment';
 import { AssessmentError, candidateWork, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
 import { classWorks } from './assessClasses';
-import { openRolloutSimulations, rolloutCheck, rolloutModel, type RolloutModel, type RolloutOutcome } from './assessRollouts';
+import { openRolloutSimulations, rolloutCheck, type RolloutOutcome } from './assessRollouts';
 import { finalStateValues } from './model/completedReturn';
 import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
@@ -78,13 +78,12 @@ export async function assessProject(options: AssessRunOptions & { project: Proje
 
 async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Assessment> {
   const context = assessmentContext(run, options);
-  // Opened first, so that a helper thread simulates them while this thread fits the function classes.
-  const dynamics = rolloutModel(context);
-  const simulations = 'reason' in dynamics ? null : openRolloutSimulations(context, everyModel(run).map((m) => m.policy), dynamics, options.settings);
+  // Opened first, so that a helper thread forms the one-step model and simulates while this thread fits the function classes.
+  const simulations = openRolloutSimulations(context, everyModel(run).map((m) => m.policy), options.settings);
   try {
-    return await assessWith(run, options, context, { dynamics, simulations });
+    return await assessWith(run, options, context, simulations);
   } finally {
-    simulations?.close();
+    simulations.close();
   }
 }
 
@@ -94,7 +93,7 @@ function everyModel(run: ProjectRun): ProjectRun['models'] {
 }
 
 async function assessWith(
-  run: ProjectRun, options: AssessRunOptions, context: AssessmentContext, rollout: { dynamics: RolloutModel | { reason: string }; simulations: PerDecisionRoute | null },
+  run: ProjectRun, options: AssessRunOptions, context: AssessmentContext, simulations: PerDecisionRoute,
 ): Promise<Assessment> {
   const { plan } = run, { data, sign } = plan, { settings } = options;
   const total = everyModel(run).length;
@@ -116,10 +115,10 @@ async function assessWith(
   } : null;
   const replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings,
     (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
-  const simulated = rollout.simulations && await rollout.simulations.rollouts(context.cancel), { dynamics } = rollout;
-  const rolloutOf = (w: CandidateWork, k: number): RolloutOutcome => (simulated ? rolloutCheck(context, w, simulated[k], settings) : { reason: 'reason' in dynamics ? dynamics.reason : '' });
+  const simulated = await simulations.rollouts(context.cancel);
+  const rolloutOf = (w: CandidateWork, k: number): RolloutOutcome => (simulated ? rolloutCheck(context, w, simulated[k], settings) : { reason: 'the model rollouts were not run' });
   const rollouts = works.map(rolloutOf), baselineRollout = baseline && rolloutOf(baseline, works.length);
-  const threads = threadsNote(replicates.threads, rollout.simulations && rollout.simulations.note);
+  const threads = threadsNote(replicates.threads, simulations.note);
   const ranges = loggedActionRanges(data);
   const reference = {
     presentControllerShift: presentControllerShift(plan, baseline),

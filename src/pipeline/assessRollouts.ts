@@ -9,28 +9,27 @@
  * start states: the difference on the full data is M − J_sub (J_sub the mean of V̂ over the subset),
  * and on resample b, M_b − J_sub − (J_b − J) — the candidate's resample deviation taken over all
  * its start states, the subset held fixed. Rollouts reuse their random numbers across resamples
- * (common random numbers), so their spread is the models' spread. The simulations themselves
- * (rolloutValues.ts) need nothing from the fit, so a helper thread may run them during the resample
- * loop; rolloutCheck pairs them with the fit's values.
+ * (common random numbers), so their spread is the models' spread. The model and the simulations
+ * (rolloutValues.ts) need nothing from the fit, so a helper thread may form and run them while the
+ * function classes are fitted; rolloutCheck pairs them with the fit's values.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { monomialCount } from '../core/features/monomials';
 import { throwIfCancelled } from '../core/fqe/cancellation';
-import { ModelFitError } from '../core/offPolicy/linearQuadraticModel';
-import { fitPolynomialModel, polynomialModelRegressions, type PolynomialModelFit, type PolynomialModelRegressions } from '../core/offPolicy/polynomialDynamicsModel';
+import { modelDataOf, type PolynomialModelOptions } from '../core/offPolicy/polynomialDynamicsModel';
 import type { GaussianPolicy } from '../core/policy';
 import { stateValues } from '../core/value';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
 import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
-import { sendRolloutJob, type RolloutJob, type RolloutValues, type SentRolloutJob } from './rolloutValues';
+import type { RolloutJob, RolloutValues } from './rolloutValues';
 
 export const ROLLOUT_RESAMPLES = 30;
 export const ROLLOUT_STARTS = 200;
 export const ROLLOUTS_PER_START = 2;
 /** At least this many simulated runs in all: with few start states each gets more rollouts (ours). */
 export const ROLLOUTS_TOTAL = 400;
-/** Dynamics of degree 3 where it has at most this many monomials, else degree 2; the reward is quadratic (ours). */
+/** Dynamics of degree 3 where it has at most this many monomials, else degree 2 (ours). */
 const CUBIC_MONOMIALS = 120;
 
 export interface RolloutCheck {
@@ -49,62 +48,34 @@ export interface RolloutCheck {
 
 export type RolloutOutcome = RolloutCheck | { readonly reason: string };
 
-/** The one-step model: its regressions and the full data's fit, formed once for every candidate. */
-export interface RolloutModel {
-  readonly regressions: PolynomialModelRegressions;
-  readonly fit: PolynomialModelFit;
+/** The one-step model's degrees: dynamics of degree 3 where that has at most CUBIC_MONOMIALS monomials, else 2; the reward quadratic. */
+export function rolloutModelOptions(data: { readonly stateDim: number; readonly actionDim: number }): PolynomialModelOptions {
+  return { degree: monomialCount(data.stateDim + data.actionDim, 3) <= CUBIC_MONOMIALS ? 3 : 2, rewardDegree: 2 };
 }
 
-/** The one-step model's regressions, fitted once for every candidate; or why there is none. */
-export function rolloutModel(context: AssessmentContext): RolloutModel | { reason: string } {
-  const { data, episodes } = context.plan, p = data.stateDim + data.actionDim;
-  const degree = monomialCount(p, 3) <= CUBIC_MONOMIALS ? 3 : 2;
-  try {
-    const regressions = polynomialModelRegressions(data, episodes, { degree, rewardDegree: 2 });
-    return { regressions, fit: fitPolynomialModel(regressions) };
-  } catch (error) {
-    if (error instanceof ModelFitError) return { reason: `no one-step model of the plant could be fitted (${error.message})` };
-    throw error;
-  }
-}
-
-/** The simulations of every policy's check (rolloutValues.ts), in the order given, on the model's regressions. */
-export function rolloutJob(context: AssessmentContext, policies: readonly GaussianPolicy[], regressions: PolynomialModelRegressions, settings: AssessmentSettings): RolloutJob {
+/**
+ * The simulations of every policy's check (rolloutValues.ts), in the order given: the one-step model
+ * formed from the plan's data (the arrays themselves; a host copies them to a thread) and simulated.
+ */
+export function rolloutJob(context: AssessmentContext, policies: readonly GaussianPolicy[], settings: AssessmentSettings): RolloutJob {
   const { plan } = context, starts = startSubset(plan.starts.states, plan.starts.count, plan.data.stateDim);
   return {
-    regressions, policies, discount: plan.discount, startStates: starts.states, rollout: rolloutSettings(context, starts.count),
+    source: { data: modelDataOf(plan.data), index: plan.episodes, options: rolloutModelOptions(plan.data) },
+    policies, discount: plan.discount, startStates: starts.states, rollout: rolloutSettings(context, starts.count),
     seed: settings.seed, episodes: plan.episodes.episodes, resamples: Math.min(ROLLOUT_RESAMPLES, settings.resamples),
   };
 }
 
 /**
- * The simulations' job for their route, made on demand: the first time on the regressions
- * already formed, again from the data after a helper thread was given those (the same pass, so the
- * same numbers).
+ * The model and its simulations for every policy's check, opened before the function classes are
+ * fitted: on the host's helper, a thread of their own that forms the model and runs them meanwhile
+ * (their work, resampleWork, decides as for the loop's), else on this thread when `rollouts()` is
+ * asked for after the loop.
  */
-function rolloutJobs(context: AssessmentContext, policies: readonly GaussianPolicy[], model: RolloutModel, settings: AssessmentSettings): () => SentRolloutJob {
-  let held: PolynomialModelRegressions | null = model.regressions;
-  return () => {
-    let regressions = held;
-    held = null;
-    if (!regressions) {
-      const formed = rolloutModel(context);
-      if ('reason' in formed) throw new ModelFitError(formed.reason); // not met: the same pass succeeded before
-      regressions = formed.regressions;
-    }
-    return sendRolloutJob(rolloutJob(context, policies, regressions, settings));
-  };
-}
-
-/**
- * The simulations of every policy's check, opened before the function classes are fitted: on the
- * host's helper, a thread of their own that runs them meanwhile (their work, resampleWork, decides
- * as for the loop's), else on this thread when `rollouts()` is asked for after the loop.
- */
-export function openRolloutSimulations(context: AssessmentContext, policies: readonly GaussianPolicy[], model: RolloutModel, settings: AssessmentSettings): PerDecisionRoute {
+export function openRolloutSimulations(context: AssessmentContext, policies: readonly GaussianPolicy[], settings: AssessmentSettings): PerDecisionRoute {
   const { plan } = context;
   return openPerDecisionRoute([], { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: 0 }, context.helper,
-    { model: null, rollouts: rolloutJobs(context, policies, model, settings) });
+    { model: null, rollouts: () => rolloutJob(context, policies, settings) });
 }
 
 function rolloutSettings(context: AssessmentContext, starts: number): { rolloutsPerStart: number; seed: number } {

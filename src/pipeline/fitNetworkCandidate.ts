@@ -2,20 +2,25 @@
  * One candidate by neural-network fitted Q-evaluation with TensorFlow.js (src/core/fqe/networkFqe.ts):
  * the fit, its J with an interval over the request's start states, the linear estimate it started
  * from, and whether the two agree (src/core/fqe/approximatorAgreement.ts).
+ *
+ * TensorFlow.js is loaded with the first network fit, not with this file: a linear project never
+ * loads it (its import is about 0.7 s of a command-line run's start on these machines).
  */
 import { createActionQuadrature } from '../core/actionQuadrature';
 import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import { policyValue } from '../core/value';
 import { approximatorAgreement } from '../core/fqe/approximatorAgreement';
-import { fitNetworkFqe, type NetworkFit, type NetworkIterationRecord } from '../core/fqe/networkFqe';
-import { networkLayout } from '../core/fqe/networkParameters';
+import type { NetworkFit, NetworkIterationRecord } from '../core/fqe/networkFqe';
 import type { CandidateFit, CandidateFitRequest } from './candidateFit';
 import type { FitIteration } from './estimates';
+
+type NetworkLayoutOf = typeof import('../core/fqe/networkParameters').networkLayout;
 
 export async function fitNetworkCandidate(request: CandidateFitRequest): Promise<CandidateFit> {
   const settings = request.approximator;
   if (settings.kind !== 'network') throw new Error('fitNetworkCandidate: expected network approximator settings');
   const { kind: _kind, ...networkSettings } = settings;
+  const [{ fitNetworkFqe }, { networkLayout }] = await Promise.all([import('../core/fqe/networkFqe'), import('../core/fqe/networkParameters')]);
   const fit = await fitNetworkFqe({
     data: request.data, policy: request.policy, discount: request.discount, quadratureNodes: request.quadratureNodes,
     seed: request.seed, settings: networkSettings, startStates: request.startStates, isCancelled: request.cancel, wasmPath: request.wasmPath,
@@ -26,14 +31,14 @@ export async function fitNetworkCandidate(request: CandidateFitRequest): Promise
     throw new FqeCancelledError();
   }
   try {
-    return candidateFitOf(fit, request);
+    return candidateFitOf(fit, request, networkLayout);
   } catch (e) {
     fit.dispose();
     throw e;
   }
 }
 
-function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest): CandidateFit {
+function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest, layout: NetworkLayoutOf): CandidateFit {
   const estimate = fit.estimate(request.startStates);
   const { rule } = fit.convergence;
   return {
@@ -45,7 +50,7 @@ function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest): Candidat
     // As for the linear path: the start-state sampling part only; the fit's own uncertainty is in `interval`.
     standardError: policyValue(fit.actionValue, request.policy, request.startStates, createActionQuadrature(request.policy, request.quadratureNodes)).standardError,
     fixedPointValue: null,
-    featureCount: parameterCount(fit, request),
+    featureCount: parameterCount(fit, request, layout),
     backend: fit.backend === 'wasm' ? 'TensorFlow.js (WebAssembly)' : 'TensorFlow.js (plain JavaScript)',
     // Said to the user only when it matters to them: the fit ran slower than it could.
     warnings: fit.backendFallback ? [`Computed with plain JavaScript instead of WebAssembly (${fit.backendFallback}): the same numbers, several times slower.`] : [],
@@ -68,7 +73,7 @@ function iterationOf(p: NetworkIterationRecord): FitIteration {
 }
 
 /** Weights and biases of the network plus the weights of its quadratic part. */
-function parameterCount(fit: NetworkFit, request: CandidateFitRequest): number {
+function parameterCount(fit: NetworkFit, request: CandidateFitRequest, layout: NetworkLayoutOf): number {
   const hidden = request.approximator.kind === 'network' ? request.approximator.hiddenLayers : [];
-  return networkLayout(request.data.stateDim + request.data.actionDim, hidden).size + fit.linearStart.features.dim;
+  return layout(request.data.stateDim + request.data.actionDim, hidden).size + fit.linearStart.features.dim;
 }

@@ -16,7 +16,7 @@ import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import { perDecisionResamples, RESAMPLE_BLOCK, type ResampleEntries } from '../core/offPolicy/perDecisionResamples';
 import { modelBlock, modelTransferables, type ModelBlockValues, type ModelJob } from './modelBlocks';
-import { receiveRolloutJob, rolloutTransferables, rolloutValues, type RolloutValues, type SentRolloutJob } from './rolloutValues';
+import { rolloutValues, type RolloutJob, type RolloutValues } from './rolloutValues';
 
 /** Everything a thread needs to compute every block's share on its own. */
 export interface ResampleJob {
@@ -29,7 +29,7 @@ export interface ResampleJob {
   /** The linear-quadratic model's replicates, where the loop has the model; else null. */
   readonly model: ModelJob | null;
   /** The rollout check's simulations (rolloutValues.ts), answered after the last block; null without a one-step model. */
-  readonly rollouts: SentRolloutJob | null;
+  readonly rollouts: RolloutJob | null;
 }
 
 /** The rollout check's simulations as a helper answers them, after the last block. */
@@ -79,7 +79,7 @@ export function* helperBlocks(job: ResampleJob): Generator<SentBlock | SentRollo
     const share = shareOfBlock(job, drawBlock(job.episodes, job.seed, first, job.resamples, block));
     yield { first, outcomes: share.perDecision.map((row) => row.map(sendOutcome)), models: share.models };
   }
-  if (job.rollouts) yield { rollouts: rolloutValues(receiveRolloutJob(job.rollouts)) };
+  if (job.rollouts) yield { rollouts: rolloutValues(job.rollouts) };
 }
 
 export function sendOutcome(outcome: PerDecisionOutcome): SentOutcome {
@@ -90,9 +90,12 @@ export function receiveOutcome(sent: SentOutcome): PerDecisionOutcome {
   return 'failure' in sent ? new ImportanceSamplingError(sent.failure) : sent;
 }
 
-/** The buffers of the job's ranked tables and models' moments, each once: a host transfers these instead of copying them. */
+/**
+ * The buffers of the job's ranked tables and models' moments, each once: a host transfers these
+ * instead of copying them. The rollouts' columns are the loop's own data and are copied.
+ */
 export function transferables(job: ResampleJob): ArrayBuffer[] {
-  const buffers = new Set<ArrayBuffer>([...(job.model ? modelTransferables(job.model) : []), ...(job.rollouts ? rolloutTransferables(job.rollouts) : [])]);
+  const buffers = new Set<ArrayBuffer>(job.model ? modelTransferables(job.model) : []);
   for (const en of job.entries) {
     for (const a of [en.reaching, en.offsets, en.rankOf, en.weight, en.weightedReward, en.weightedAction, en.weightedState, en.endRank, en.endWeightedValue]) {
       if (a && a.buffer instanceof ArrayBuffer) buffers.add(a.buffer);

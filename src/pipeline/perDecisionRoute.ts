@@ -21,7 +21,7 @@ import { prepareResampleEntries, type ResampleEntries } from '../core/offPolicy/
 import { answerOrStop, type HelperAnswer, type HelperFeed, type ResampleHelper } from './helperFeed';
 import { answersModelBlock, modelMomentValues, type ModelJob } from './modelBlocks';
 import { receiveOutcome, shareOfBlock, type BlockShare, type ResampleJob, type SentBlock } from './perDecisionBlocks';
-import { answersRollouts, receiveRolloutJob, rolloutSteps, rolloutValues, type RolloutValues, type SentRolloutJob } from './rolloutValues';
+import { answersRollouts, rolloutSteps, rolloutValues, type RolloutJob, type RolloutValues } from './rolloutValues';
 
 export interface PerDecisionRoute {
   /** Per data (in the order given), the outcomes of resamples first … first + drawn.length − 1; the model's values on them. */
@@ -36,7 +36,7 @@ export interface PerDecisionRoute {
 /** The parts of the job beside the per-decision data, each made on demand (null: the loop has none); see openPerDecisionRoute. */
 export interface HelperShares {
   readonly model: (() => ModelJob) | null;
-  readonly rollouts: (() => SentRolloutJob) | null;
+  readonly rollouts: (() => RolloutJob) | null;
 }
 
 export const ONE_THREAD_NOTE = 'one thread for the resamples';
@@ -65,7 +65,7 @@ export function threadsNote(loop: string, rollouts: string | null): string {
  * helper about 7 s, 2.8·10^6 moment values (with the candidate's value on each refit) about 3.7 s,
  * 3.3·10^6 simulated steps about 2.7 s.
  */
-export function resampleWork(data: readonly PerDecisionData[], model: ModelJob | null, rollouts: SentRolloutJob | null, resamples: number): number {
+export function resampleWork(data: readonly PerDecisionData[], model: ModelJob | null, rollouts: RolloutJob | null, resamples: number): number {
   const perResample = data.reduce((total, d) => total + d.scaled.length, 0) + (model ? modelMomentValues(model) / MOMENT_VALUES_PER_ENTRY : 0);
   return perResample * resamples + (rollouts ? rolloutSteps(rollouts) * ENTRIES_PER_SIMULATED_STEP : 0);
 }
@@ -120,7 +120,7 @@ export function openPerDecisionRoute(
         keepToOwn('stopped' in answer ? answer.stopped : 'answered out of turn', null);
       }
       const rollouts = own.rollouts.get();
-      return rollouts && rolloutValues(receiveRolloutJob(rollouts), cancel);
+      return rollouts && rolloutValues(rollouts, cancel);
     },
     get note() {
       return note;

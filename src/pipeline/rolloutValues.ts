@@ -1,29 +1,39 @@
 /**
  * The rollout check's simulations (assessRollouts.ts), written once for whichever thread runs them:
- * per policy, J by model rollouts on the full data's one-step model and on its refit on each of the
- * first rollout resamples (multiplicities drawn from (seed, b), as the resample loop draws them).
- * They depend on nothing the fitted Q-evaluation computes, so a helper thread can run them while
- * the loop's own thread takes the resamples; rolloutCheck then pairs them with the fit's own
- * replicates. A ModelFitError or ModelValueError gives the policy's reason, on either thread; any
- * other error is thrown (a helper thread that meets one stops, and the loop's thread meets it again).
+ * the one-step model's regressions formed from the log, then per policy, J by model rollouts on the
+ * full data's model and on its refit on each of the first rollout resamples (multiplicities drawn
+ * from (seed, b), as the resample loop draws them). They depend on nothing the fitted Q-evaluation
+ * computes, so a helper thread can run all of it — the model's pass over the data included — while
+ * the loop's thread fits the function classes; rolloutCheck then pairs them with the fit's own
+ * replicates. A ModelFitError or ModelValueError gives the policy's reason (every policy's, where
+ * the model itself cannot be fitted), on either thread; any other error is thrown (a helper thread
+ * that meets one stops, and the loop's thread meets it again).
  *
- * What crosses a thread boundary is plain data: the job with its feature maps as specs (rebuilt on
- * the thread by createFeatureMap: the same spec, the same numbers) and the moments' sums
- * transferred (`rolloutTransferables`), and the values, or the reason as words.
+ * What crosses a thread boundary is plain data: the columns the model reads (ModelData, copied:
+ * the loop's thread keeps its own), the episode index, the settings; and the values, or the reason
+ * as words.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
-import { createFeatureMap } from '../core/features/featureMap';
-import type { FeatureMapSpec } from '../core/features/featureTypes';
+import type { EpisodeIndex } from '../core/bootstrap/episodeTransitions';
 import { throwIfCancelled, type CancellationCheck } from '../core/fqe/cancellation';
 import { ModelFitError } from '../core/offPolicy/linearQuadraticModel';
 import { ModelValueError } from '../core/offPolicy/modelBasedValue';
 import { modelRolloutValue, TAIL_WEIGHT, type RolloutSettings, type RolloutValue } from '../core/offPolicy/modelRollouts';
-import { fitPolynomialModel, type PolynomialModelFit, type PolynomialModelRegressions } from '../core/offPolicy/polynomialDynamicsModel';
+import {
+  fitPolynomialModel, polynomialModelRegressions, type ModelData, type PolynomialModelFit, type PolynomialModelOptions, type PolynomialModelRegressions,
+} from '../core/offPolicy/polynomialDynamicsModel';
 import type { GaussianPolicy } from '../core/policy';
 
-/** Everything a thread needs to simulate every policy's rollouts on its own. */
+/** What the one-step model is formed from: the log's columns it reads, its episodes, its degrees. */
+export interface RolloutSource {
+  readonly data: ModelData;
+  readonly index: EpisodeIndex;
+  readonly options: PolynomialModelOptions;
+}
+
+/** Everything a thread needs to form the model and simulate every policy's rollouts on its own. */
 export interface RolloutJob {
-  readonly regressions: PolynomialModelRegressions;
+  readonly source: RolloutSource;
   /** Per policy in the check's order (the candidates, then the present controller). */
   readonly policies: readonly GaussianPolicy[];
   readonly discount: number;
@@ -38,23 +48,22 @@ export interface RolloutJob {
 /** A policy's rollouts: on the full data, and on each rollout resample; or why there are none. */
 export type RolloutValues = { readonly full: RolloutValue; readonly resampled: readonly number[] } | { readonly reason: string };
 
-/** The job as it crosses a thread boundary: its feature maps as specs. */
-export type SentRolloutJob = Omit<RolloutJob, 'regressions'> & {
-  readonly regressions: Omit<PolynomialModelRegressions, 'dynamicsFeatures' | 'rewardFeatures'> & { readonly dynamicsFeatures: FeatureMapSpec; readonly rewardFeatures: FeatureMapSpec };
-};
-
-/** Every policy's rollouts, the model's refits formed once for every policy (a failed refit fails every policy alike). */
+/**
+ * Every policy's rollouts, the model's refits formed once for every policy (a failed refit fails
+ * every policy alike); where the model cannot be fitted to the full data, that reason for each.
+ */
 export function rolloutValues(job: RolloutJob, cancel?: CancellationCheck): RolloutValues[] {
-  const full = fitOrError(job.regressions), refits = new Map<number, PolynomialModelFit | ModelFitError>();
+  const model = fullModel(job.source);
+  if (model instanceof ModelFitError) return job.policies.map(() => ({ reason: `no one-step model of the plant could be fitted (${model.message})` }));
+  const { regressions, fit: full } = model, refits = new Map<number, PolynomialModelFit | ModelFitError>();
   const refit = (b: number, c: Uint32Array): PolynomialModelFit => {
     let fit = refits.get(b);
-    if (!fit) refits.set(b, (fit = fitOrError(job.regressions, c)));
+    if (!fit) refits.set(b, (fit = fitOrError(regressions, c)));
     if (fit instanceof ModelFitError) throw fit;
     return fit;
   };
   return job.policies.map((policy) => {
     try {
-      if (full instanceof ModelFitError) throw full;
       const value = modelRolloutValue(full, policy, job.discount, job.startStates, job.rollout), c = new Uint32Array(job.episodes), resampled: number[] = [];
       for (let b = 0; b < job.resamples; b++) {
         throwIfCancelled(cancel);
@@ -69,6 +78,17 @@ export function rolloutValues(job: RolloutJob, cancel?: CancellationCheck): Roll
   });
 }
 
+/** The model's regressions (one pass over the data) and its fit on the full data; or why there is none. */
+function fullModel(source: RolloutSource): { regressions: PolynomialModelRegressions; fit: PolynomialModelFit } | ModelFitError {
+  try {
+    const regressions = polynomialModelRegressions(source.data, source.index, source.options);
+    return { regressions, fit: fitPolynomialModel(regressions) };
+  } catch (error) {
+    if (error instanceof ModelFitError) return error;
+    throw error;
+  }
+}
+
 function fitOrError(regressions: PolynomialModelRegressions, c?: Uint32Array): PolynomialModelFit | ModelFitError {
   try {
     return fitPolynomialModel(regressions, c);
@@ -78,28 +98,17 @@ function fitOrError(regressions: PolynomialModelRegressions, c?: Uint32Array): P
   }
 }
 
-export function sendRolloutJob(job: RolloutJob): SentRolloutJob {
-  const r = job.regressions;
-  return { ...job, regressions: { ...r, dynamicsFeatures: r.dynamicsFeatures.toSpec(), rewardFeatures: r.rewardFeatures.toSpec() } };
-}
-
-export function receiveRolloutJob(sent: SentRolloutJob): RolloutJob {
-  const r = sent.regressions;
-  return { ...sent, regressions: { ...r, dynamicsFeatures: createFeatureMap(r.dynamicsFeatures), rewardFeatures: createFeatureMap(r.rewardFeatures) } };
-}
-
 /** The answer has one entry per policy of the job, each values with one per resample or a reason. */
 export function answersRollouts(values: readonly RolloutValues[], job: Pick<RolloutJob, 'policies' | 'resamples'>): boolean {
   return values.length === job.policies.length && values.every((v) => 'reason' in v || v.resampled.length === job.resamples);
 }
 
-/** The buffers of the episodes' moments (the large arrays): a host transfers these instead of copying them. */
-export function rolloutTransferables(job: SentRolloutJob): ArrayBuffer[] {
-  return [job.regressions.dynamics.sums.buffer, job.regressions.reward.sums.buffer].filter((b): b is ArrayBuffer => b instanceof ArrayBuffer);
-}
-
-/** Simulated steps in all (policies × (resamples + 1) × starts × rollouts per start × steps per rollout): a measure of the job's work (perDecisionRoute.ts). */
-export function rolloutSteps(job: Omit<SentRolloutJob, 'regressions'> & { readonly regressions: { readonly stateDim: number } }): number {
-  const starts = job.startStates.length / job.regressions.stateDim, steps = Math.ceil(Math.log(TAIL_WEIGHT) / Math.log(job.discount));
+/**
+ * Simulated steps in all (policies × (resamples + 1) × starts × rollouts per start × steps per
+ * rollout): a measure of the job's work (perDecisionRoute.ts). The model's pass over the data is
+ * not counted: it is done on one thread or the other in any case, and before the loop either way.
+ */
+export function rolloutSteps(job: Pick<RolloutJob, 'policies' | 'resamples' | 'startStates' | 'rollout' | 'discount'> & { readonly source: { readonly data: Pick<ModelData, 'stateDim'> } }): number {
+  const starts = job.startStates.length / job.source.data.stateDim, steps = Math.ceil(Math.log(TAIL_WEIGHT) / Math.log(job.discount));
   return job.policies.length * (job.resamples + 1) * starts * job.rollout.rolloutsPerStart * steps;
 }

@@ -15,7 +15,7 @@ import { evaluateProjectFile } from '../../src/cli/evaluateProjectFile';
 import { helperThread } from '../../src/cli/helperThread';
 import type { TerminalProgress } from '../../src/cli/terminalProgress';
 import { modelRegressions } from '../../src/core/offPolicy/linearQuadraticModel';
-import { polynomialModelRegressions } from '../../src/core/offPolicy/polynomialDynamicsModel';
+import { modelDataOf } from '../../src/core/offPolicy/polynomialDynamicsModel';
 import { ImportanceSamplingError, perDecisionData, type PerDecisionData } from '../../src/core/offPolicy/perDecisionEstimators';
 import { RESAMPLE_BLOCK } from '../../src/core/offPolicy/perDecisionResamples';
 import { createGaussianPolicy } from '../../src/core/policy';
@@ -26,7 +26,7 @@ import { drawBlock, helperBlocks, type PerDecisionOutcome } from '../../src/pipe
 import type { HelperFeed, ResampleHelper } from '../../src/pipeline/helperFeed';
 import { HELPER_THREAD_NOTE, ONE_THREAD_NOTE, openPerDecisionRoute, resampleWork, ROLLOUT_THREAD_NOTE } from '../../src/pipeline/perDecisionRoute';
 import { openProject } from '../../src/pipeline/openProject';
-import { sendRolloutJob, type RolloutValues, type SentRolloutJob } from '../../src/pipeline/rolloutValues';
+import type { RolloutJob, RolloutValues } from '../../src/pipeline/rolloutValues';
 import { CANCELLED_PROBLEM, startRun, type ProjectRun } from '../../src/pipeline/projectRun';
 import { unevenLogInputs } from '../core/offPolicy/unevenCascadeLog';
 
@@ -58,8 +58,8 @@ const modelJob = (): ModelJob => ({
  * The rollout check's simulations on the same log: the model's two policies and one for two states,
  * which the three-state model refuses (a ModelValueError: its reason, on either thread).
  */
-const rolloutJob = (): SentRolloutJob => sendRolloutJob({
-  regressions: polynomialModelRegressions(log, index, { degree: 2, rewardDegree: 2 }), discount, seed: job.seed, episodes: e, resamples: 5,
+const rolloutJob = (): RolloutJob => ({
+  source: { data: modelDataOf(log), index, options: { degree: 2, rewardDegree: 2 } }, discount, seed: job.seed, episodes: e, resamples: 5,
   policies: [...modelJob().policies.filter((p) => p !== null), createGaussianPolicy({ offset: [0], gain: [[-0.1, -0.1]], std: [0.3] }, 2)],
   startStates: log.startStates.slice(0, 15), rollout: { rolloutsPerStart: 2, seed: 5 },
 });

@@ -144,6 +144,13 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
     });
     expect(result.value.candidates[1].crossChecks.find((x) => x.method === 'linearQuadraticModel')!.note).toMatch(/actuator limits/);
     expect(result.value.warnings.some((w) => w.topic === 'startStates')).toBe(true);
+    // Both given starts lie within the logged states (started with standard deviation 1): no start-coverage finding, its rule stated.
+    expect(result.value.warnings.some((w) => w.topic === 'startCoverage')).toBe(false);
+    expect(result.value.method.some((m) => m.startsWith('Start states given in the project'))).toBe(true);
+    // One of two starts 30 standard deviations out: more than 25 % of the starts outside, serious (src/core/diagnostics/severity.ts).
+    const far = await assessProject({ project: { ...project, startStates: { kind: 'given', states: [[0.5, -0.5], [30, 30]] } }, dataset, settings });
+    if (!far.ok) throw new Error('pipeline failed');
+    expect(far.value.warnings.find((w) => w.topic === 'startCoverage')).toMatchObject({ severity: 'serious', message: expect.stringMatching(/^1 of the 2 start states/) });
   });
 
   it('assesses a network approximator with its own interval and no refits, extending the run’s models, and sweeps its width', async () => {

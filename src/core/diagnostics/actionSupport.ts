@@ -80,12 +80,13 @@ export function probabilityOutsideLoggedActions(policy: GaussianPolicy, ranges: 
 }
 
 /** Indices of count (or fewer) transitions spread evenly through 0 … n−1. */
-function evenlySpaced(n: number, count: number): Int32Array {
+export function evenlySpaced(n: number, count: number): Int32Array {
   const c = Math.min(n, count);
   return Int32Array.from({ length: c }, (_, j) => Math.floor(((j + 0.5) * n) / c));
 }
 
-function stateScales(data: TransitionSet): Float64Array {
+/** Each state's logged (population) standard deviation, 1 where it does not vary: the scale of the neighbour searches. */
+export function stateScales(data: Pick<TransitionSet, 'count' | 'stateDim' | 'states'>): Float64Array {
   const { count: n, stateDim: ds, states } = data, scale = new Float64Array(ds);
   for (let c = 0; c < ds; c++) {
     let sum = 0;

@@ -25,8 +25,13 @@
  * reaching it is a caution, below 1 % serious (a common rule of thumb in importance sampling; Owen,
  * "Monte Carlo theory, methods and examples", 2013, ch. 9; section from memory). Action support: a mean share of the
  * candidate's action probability outside the logged actions above 10 % is a caution, above 25 %
- * serious (our rule; the logged controller's own share is shown beside it for scale).
+ * serious (our rule; the logged controller's own share is shown beside it for scale). Start states
+ * given in the project outside the logs (startCoverage.ts): more than 2 % of them a caution (above
+ * the rule's own false alarms, below 0.35 % in 999 logs of 1000), more than 25 % serious (a quarter
+ * of J then rests on extrapolated values; our rule).
  */
+
+import { DEFAULT_START_COVERAGE } from './startCoverage';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -43,6 +48,8 @@ export const OCCUPANCY_SHIFT_LIMITS = { caution: 4, serious: 10 } as const;
 export const EFFECTIVE_SHARE_LIMITS = { caution: 0.1, serious: 0.01 } as const;
 /** Flagged above these shares. */
 export const ACTION_SUPPORT_LIMITS = { caution: 0.1, serious: 0.25 } as const;
+/** Flagged above these shares of the given start states. */
+export const START_OUTSIDE_LIMITS = { caution: 0.02, serious: 0.25 } as const;
 
 interface Limits { readonly caution: number; readonly serious: number }
 
@@ -127,5 +134,22 @@ export function actionSupportFinding(meanOutside: number, neighbours: number, lo
     severity, topic: 'actionSupport',
     message: `On average ${percent(meanOutside)} of the candidate's action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
       'there Q is extrapolated to actions the logs do not hold.',
+  };
+}
+
+export function startCoverageRuleText(): string {
+  const { neighbours: k, calibrationStates: q } = DEFAULT_START_COVERAGE;
+  return `Start states given in the project: each is scored by its distance to its ${k}th nearest logged state (states scaled by their standard deviations) ` +
+    `and is outside the logs when that distance exceeds the largest among ${q} logged states scored against the other runs, a rule that flags a start drawn like the logged ones ` +
+    `at most 1 in ${q + 1} times on average; more than ${percent(START_OUTSIDE_LIMITS.caution)} of the starts outside is a caution, more than ${percent(START_OUTSIDE_LIMITS.serious)} serious (our rule).`;
+}
+
+export function startCoverageFinding(outside: number, starts: number): SeverityFinding | null {
+  const severity = starts > 0 ? severityAbove(outside / starts, START_OUTSIDE_LIMITS) : null;
+  if (!severity) return null;
+  return {
+    severity, topic: 'startCoverage',
+    message: `${outside} of the ${starts} start states given in the project lie outside the logged states: V there is the fitted Q extrapolated, ` +
+      'where the function classes can agree and all be wrong, and the cross-checks, which rest on the logged runs, cannot confirm it. Give start states within the logs, or read J over them as an extrapolation.',
   };
 }

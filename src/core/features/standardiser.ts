@@ -33,7 +33,7 @@ export function fitStandardiser(rows: ArrayLike<number>, count: number, width: n
 }
 
 /** Fit the standardiser of the feature inputs z = [s, a] of a transition set (columns: states, then actions). */
-export function fitStateActionStandardiser(data: TransitionSet): StandardiserFit {
+export function fitStateActionStandardiser(data: Pick<TransitionSet, 'count' | 'stateDim' | 'actionDim' | 'states' | 'actions'>): StandardiserFit {
   const { count, stateDim: ds, actionDim: m, states, actions } = data;
   if (!(count >= 1)) throw new FeatureSpecError('standardiser: the transition set is empty');
   return fitColumns(count, ds + m, (i, c) => (c < ds ? states[i * ds + c] : actions[i * m + c - ds]));

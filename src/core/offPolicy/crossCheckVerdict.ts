@@ -18,7 +18,13 @@
  * uninformative. (A noisy check can still disagree: a gap beyond 3 of its standard errors is seen.)
  * Together: contradicted if any informative check disagrees; confirmed if at least one agrees and
  * none disagrees; unconfirmed when no check is informative — nothing in the logs can then confirm
- * the estimate, and the headline must say so.
+ * the estimate, and the headline must say so. One exception: where the function classes disagree
+ * (not settled), checks that rest on a plant model fitted to the same logs (rollouts, the
+ * linear-quadratic closed form) do not confirm on their own — the classes' disagreement says the
+ * logs do not pin J down where the candidate goes, and a smooth plant model extrapolates there as
+ * a smooth Q does (seen on the battery's saturating pendulum: linear FQE 30 % off, both model
+ * checks within 2 % of it). The estimate is then unconfirmed unless a check on the logged actions
+ * and rewards themselves (importance sampling) agrees.
  */
 
 export const CROSS_CHECK_RULE = {
@@ -39,7 +45,13 @@ export interface CrossCheckEvidence {
   readonly shareOutsideLogs?: number;
 }
 
-export interface CheckVerdict { readonly label: string; readonly agreement: CheckAgreement; readonly note: string }
+export interface CheckVerdict {
+  readonly label: string;
+  readonly agreement: CheckAgreement;
+  readonly note: string;
+  /** The check rests on a plant model fitted to the logs (not on the logged actions and rewards themselves). */
+  readonly fromPlantModel?: boolean;
+}
 
 export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   const r = CROSS_CHECK_RULE, scale = Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
@@ -74,10 +86,18 @@ function weakness(e: CrossCheckEvidence): string | null {
 
 export type Confirmation = 'confirmed' | 'contradicted' | 'unconfirmed';
 
-export function confirmationOf(verdicts: readonly CheckVerdict[]): { readonly status: Confirmation; readonly text: string } {
+/** classesSettled: the function-class verdict (false: not settled; null or omitted: no verdict). */
+export function confirmationOf(verdicts: readonly CheckVerdict[], classesSettled: boolean | null = null): { readonly status: Confirmation; readonly text: string } {
   const against = verdicts.filter((v) => v.agreement === 'disagrees'), support = verdicts.filter((v) => v.agreement === 'agrees');
   const names = (list: readonly CheckVerdict[]) => list.map((v) => v.label.toLowerCase()).join(', ');
   if (against.length) return { status: 'contradicted', text: `Contradicted by ${names(against)}: treat this estimate as unreliable until the difference is explained.` };
+  if (classesSettled === false && support.length && support.every((v) => v.fromPlantModel)) {
+    return {
+      status: 'unconfirmed',
+      text: `The function classes disagree, and the checks that agree with this value (${names(support)}) rest on a plant model fitted to the same logs, ` +
+        'which extrapolates where the logs are thin as a smooth Q does: they cannot tell which class is right, so the estimate is unconfirmed.',
+    };
+  }
   if (support.length) return { status: 'confirmed', text: `Confirmed by ${names(support)}, which rest${support.length === 1 ? 's' : ''} on assumptions other than the fitted Q.` };
   return { status: 'unconfirmed', text: 'Nothing in the logs can confirm this estimate: every cross-check is uninformative here, so it rests on the fitted Q alone.' };
 }

@@ -28,6 +28,15 @@ import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
 import type { TransitionSet } from '../transitions';
 import { ModelFitError } from './linearQuadraticModel';
 
+/** What the model's regressions read of a transition set: a thread that forms them is sent no more. */
+export type ModelData = Pick<TransitionSet, 'count' | 'stateDim' | 'actionDim' | 'states' | 'actions' | 'nextStates' | 'rewards' | 'terminal'>;
+
+/** The fields of ModelData taken from a transition set (the same arrays, not copies). */
+export function modelDataOf(data: ModelData): ModelData {
+  const { count, stateDim, actionDim, states, actions, nextStates, rewards, terminal } = data;
+  return { count, stateDim, actionDim, states, actions, nextStates, rewards, terminal };
+}
+
 export interface PolynomialModelOptions {
   readonly degree: number; // k of the dynamics, ≥ 1
   readonly rewardDegree: number; // k' of the reward, ≥ 1
@@ -56,7 +65,7 @@ export interface PolynomialModelFit {
 /** Ridge per sample on the averaged normal equations (constant unpenalised); our choice, far below the data's scale. */
 const RIDGE = 1e-8;
 
-export function polynomialModelRegressions(data: TransitionSet, index: EpisodeIndex, options: PolynomialModelOptions): PolynomialModelRegressions {
+export function polynomialModelRegressions(data: ModelData, index: EpisodeIndex, options: PolynomialModelOptions): PolynomialModelRegressions {
   const { stateDim: ds, actionDim: m } = data;
   if (!(Number.isInteger(options.degree) && options.degree >= 1 && Number.isInteger(options.rewardDegree) && options.rewardDegree >= 1)) {
     throw new ModelFitError(`model degrees: expected whole numbers ≥ 1, got ${options.degree} and ${options.rewardDegree}`);

@@ -44,4 +44,16 @@ describe('confirmationOf', () => {
     expect(confirmationOf([agree, none])).toEqual({ status: 'confirmed', text: 'Confirmed by model rollouts, which rests on assumptions other than the fitted Q.' });
     expect(confirmationOf([none, none]).text).toMatch(/^Nothing in the logs can confirm this estimate/);
   });
+
+  it('does not let checks on a fitted plant model alone confirm where the function classes disagree', () => {
+    const model = { ...crossCheckVerdict(base), fromPlantModel: true };
+    const sampling = { ...crossCheckVerdict({ ...base, label: 'Weighted per-decision importance sampling', shareOutsideLogs: undefined, weights }), fromPlantModel: false };
+    const notSettled = confirmationOf([model], false);
+    expect(notSettled.status).toBe('unconfirmed');
+    expect(notSettled.text).toMatch(/^The function classes disagree, and the checks that agree with this value \(model rollouts\)/);
+    expect(confirmationOf([model], true).status).toBe('confirmed');
+    expect(confirmationOf([model], null).status).toBe('confirmed');
+    expect(confirmationOf([model, sampling], false).status).toBe('confirmed'); // a check on the logged actions and rewards still confirms
+    expect(confirmationOf([model, { ...crossCheckVerdict({ ...base, difference: 10 }), fromPlantModel: true }], false).status).toBe('contradicted');
+  });
 });
