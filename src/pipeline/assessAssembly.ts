@@ -7,6 +7,7 @@
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
+import { absorbingEndCount } from '../core/absorbingEnds';
 import { outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
@@ -50,7 +51,7 @@ export interface AssemblyInputs {
 
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
   const { context, works, replicates, settings } = inputs, sign = context.plan.sign;
-  const possible = possibleValues(context.plan.data.rewards, context.plan.discount);
+  const { data } = context.plan, possible = possibleValues(data.rewards, context.plan.discount, absorbingEndCount(data.terminal) > 0);
   return works.map((work, j) => {
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];

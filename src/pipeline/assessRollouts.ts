@@ -13,6 +13,7 @@
  * (rolloutValues.ts) need nothing from the fit, so a helper thread may run them during the resample
  * loop; rolloutCheck pairs them with the fit's values.
  */
+import { absorbingEndCount, absorbingEndsReason } from '../core/absorbingEnds';
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { monomialCount } from '../core/features/monomials';
 import { throwIfCancelled } from '../core/fqe/cancellation';
@@ -55,9 +56,10 @@ export interface RolloutModel {
   readonly fit: PolynomialModelFit;
 }
 
-/** The one-step model's regressions, fitted once for every candidate; or why there is none. */
+/** The one-step model's regressions, fitted once for every candidate; or why there is none (a log whose runs end in an end state: the model has no end, ../core/absorbingEnds.ts). */
 export function rolloutModel(context: AssessmentContext): RolloutModel | { reason: string } {
-  const { data, episodes } = context.plan, p = data.stateDim + data.actionDim;
+  const { data, episodes } = context.plan, p = data.stateDim + data.actionDim, ends = absorbingEndCount(data.terminal);
+  if (ends > 0) return { reason: absorbingEndsReason(ends) };
   const degree = monomialCount(p, 3) <= CUBIC_MONOMIALS ? 3 : 2;
   try {
     const regressions = polynomialModelRegressions(data, episodes, { degree, rewardDegree: 2 });

@@ -2,6 +2,9 @@
  * The range of values a policy can reach with rewards in the logged range: r_min/(1 − γ) to
  * r_max/(1 − γ), the geometric series (common practice). Checked on the closed form and on an
  * invented linear plant whose exact value (Lyapunov equation, src/core/lq.ts) must lie inside.
+ * Runs that can end: a run paying r = −1 per step that ends after each step with probability p has
+ * J = −1/(1 − γ(1 − p)) (the geometric series with ratio γ(1 − p); common practice), which lies
+ * outside the range of a plant that goes on and must lie inside the range with ends.
  */
 import { describe, expect, it } from 'vitest';
 import { outsidePossible, possibleValues } from '../../../src/core/diagnostics/possibleValues';
@@ -23,5 +26,17 @@ describe('possible values', () => {
     const data = simulateLog(cascadePlant, cascadeLogging, { episodes: 50, steps: 100, seed: 3, start: steady });
     const exact = exactPolicyValue(cascadePlant, cascadeLogging, 0.97, data.startStates);
     expect(outsidePossible(exact, possibleValues(data.rewards, 0.97))).toBe(false);
+  });
+
+  it('takes in a run that ends after a single step where the log holds end states', () => {
+    const discount = 0.9, endChance = 0.5, exact = -1 / (1 - discount * (1 - endChance)); // −1.818…
+    const rewards = [-1, -1, -1];
+    expect(outsidePossible(exact, possibleValues(rewards, discount))).toBe(true); // −10 is all a plant that goes on can pay
+    const withEnds = possibleValues(rewards, discount, true);
+    expect(withEnds.lower).toBeCloseTo(-10, 12);
+    expect(withEnds.upper).toBeCloseTo(-1, 12); // one step, then the end
+    expect(outsidePossible(exact, withEnds)).toBe(false);
+    const mixed = possibleValues([-2, 3], discount, true); // rewards of both signs: the series' ends, as without ends
+    expect([mixed.lower, mixed.upper]).toEqual([expect.closeTo(-20, 12), expect.closeTo(30, 12)]);
   });
 });
