@@ -11,6 +11,12 @@
  * geometric series, cut at T). Over every T, and so for any mixture of them,
  *   min(r_min, r_min/(1 − γ)) ≤ J ≤ max(r_max, r_max/(1 − γ)):
  * with costs only (r_max < 0) a run that ends at once pays a single step, not 1/(1 − γ) of them.
+ *
+ * An estimate's interval: the slack below is a fixed share of the range's width, and the width is
+ * set by the single most extreme logged step, so where a few large upsets dominate it can exceed J
+ * itself. An interval that shares no point with the possible range says, at its own level, that no
+ * possible value is consistent with the estimate and its sampling error (the duality of confidence
+ * intervals and tests; common practice), whatever the width: that too marks the estimate impossible.
  */
 export interface PossibleValues {
   readonly lower: number;
@@ -33,4 +39,9 @@ export function possibleValues(rewards: ArrayLike<number>, discount: number, run
 export function outsidePossible(v: number, range: PossibleValues): boolean {
   const slack = 0.01 * (range.upper - range.lower);
   return v < range.lower - slack || v > range.upper + slack;
+}
+
+/** True when the interval [lower, upper] of an estimate (same sense as the range) shares no point with the range. */
+export function intervalOutsidePossible(lower: number, upper: number, range: PossibleValues): boolean {
+  return upper < range.lower || lower > range.upper;
 }
