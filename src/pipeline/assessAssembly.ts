@@ -9,7 +9,8 @@ import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/fu
 import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
-import { outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
+import { absorbingEndCount } from '../core/absorbingEnds';
+import { intervalOutsidePossible, outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import type {
@@ -52,7 +53,7 @@ export interface AssemblyInputs {
 
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
   const { context, works, replicates, settings } = inputs, sign = context.plan.sign;
-  const possible = possibleValues(context.plan.data.rewards, context.plan.discount);
+  const { data } = context.plan, possible = possibleValues(data.rewards, context.plan.discount, absorbingEndCount(data.terminal) > 0);
   return works.map((work, j) => {
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];
@@ -64,7 +65,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
       ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes) }] : []),
       ...networkDisagreement(work),
-      ...impossibleValue(context.plan, possible, work),
+      ...impossibleValue(context.plan, possible, work, policyValue.percentile),
       ...failedWarning(policyValue),
     ];
     return {
@@ -151,14 +152,19 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
   };
 }
 
-/** J outside what any policy can reach with rewards in the logged range (core/diagnostics/possibleValues.ts): serious. */
-function impossibleValue(plan: EvaluationPlan, range: PossibleValues, work: CandidateWork): AssessmentWarning[] {
-  const j = work.model.fit.policyValue;
-  if (!outsidePossible(j, range)) return [];
+/**
+ * J outside what any policy can reach with rewards in the logged range (core/diagnostics/possibleValues.ts),
+ * or its interval (project sense) wholly outside it: serious.
+ */
+function impossibleValue(plan: EvaluationPlan, range: PossibleValues, work: CandidateWork, interval: readonly [number, number] | null): AssessmentWarning[] {
+  const j = work.model.fit.policyValue, inReward = interval && (plan.sign > 0 ? interval : [-interval[1], -interval[0]]);
+  const wholly = inReward !== null && intervalOutsidePossible(inReward[0], inReward[1], range);
+  if (!outsidePossible(j, range) && !wholly) return [];
   const words = plan.sense === 'cost' ? 'costs' : 'rewards', [lo, hi] = plan.sign > 0 ? [range.lower, range.upper] : [-range.upper, -range.lower];
+  const what = wholly && interval ? `J = ${(plan.sign * j).toPrecision(4)} and its whole interval (${interval[0].toPrecision(4)} to ${interval[1].toPrecision(4)}) lie` : `J = ${(plan.sign * j).toPrecision(4)} lies`;
   return [{
     severity: 'serious', topic: 'impossibleValue',
-    message: `J = ${(plan.sign * j).toPrecision(4)} lies outside what any policy can reach while its ${words} stay within the logged range (${lo.toPrecision(4)} to ${hi.toPrecision(4)}, discounted): the fit extrapolates far from the logs; do not use this value.`,
+    message: `${what} outside what any policy can reach while its ${words} stay within the logged range (${lo.toPrecision(4)} to ${hi.toPrecision(4)}, discounted): the fit extrapolates far from the logs; do not use this value.`,
   }];
 }
 

@@ -8,9 +8,12 @@
  *     form accounts for that noise — so its threshold only asks that the model explain most of the
  *     next state; the curvature share is the test of linearity;
  *   - the reward (or cost): R² ≥ 0.9 of the quadratic fit;
- *   - the candidate has no actuator limits (a clipped action is not linear-Gaussian).
+ *   - the candidate has no actuator limits (a clipped action is not linear-Gaussian);
+ *   - no run in the log ends in an end state (the closed form is for a plant that goes on;
+ *     ../core/absorbingEnds.ts).
  * With more than 8 states and actions together the quadratic regressions are not formed.
  */
+import { absorbingEndCount, absorbingEndsReason } from '../core/absorbingEnds';
 import type { EpisodeIndex } from '../core/bootstrap/episodeTransitions';
 import { LyapunovStabilityError } from '../core/linalg/lyapunov';
 import { LqModelError, UnstableClosedLoopError } from '../core/lq';
@@ -38,6 +41,8 @@ export function checkLinearQuadraticModel(data: TransitionSet, index: EpisodeInd
   if (inputs > MODEL_THRESHOLDS.maxInputs) {
     return { regressions: null, fit: null, fitsData: false, summary: `not formed for ${inputs} states and actions (at most ${MODEL_THRESHOLDS.maxInputs})` };
   }
+  const ends = absorbingEndCount(data.terminal);
+  if (ends > 0) return { regressions: null, fit: null, fitsData: false, summary: absorbingEndsReason(ends) };
   let regressions: ModelRegressions, fit: LinearQuadraticModelFit, curvature: number[];
   try {
     regressions = modelRegressions(data, index);

@@ -83,7 +83,7 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   try {
     return await assessWith(run, options, context, simulations);
   } finally {
-    simulations.close();
+    if (!('reason' in simulations)) simulations.close();
   }
 }
 
@@ -93,7 +93,7 @@ function everyModel(run: ProjectRun): ProjectRun['models'] {
 }
 
 async function assessWith(
-  run: ProjectRun, options: AssessRunOptions, context: AssessmentContext, simulations: PerDecisionRoute,
+  run: ProjectRun, options: AssessRunOptions, context: AssessmentContext, simulations: PerDecisionRoute | { reason: string },
 ): Promise<Assessment> {
   const { plan } = run, { data, sign } = plan, { settings } = options;
   const total = everyModel(run).length;
@@ -115,10 +115,11 @@ async function assessWith(
   } : null;
   const replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings,
     (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
-  const simulated = await simulations.rollouts(context.cancel);
-  const rolloutOf = (w: CandidateWork, k: number): RolloutOutcome => (simulated ? rolloutCheck(context, w, simulated[k], settings) : { reason: 'the model rollouts were not run' });
+  const simulated = 'reason' in simulations ? simulations : await simulations.rollouts(context.cancel);
+  const rolloutOf = (w: CandidateWork, k: number): RolloutOutcome =>
+    (simulated === null ? { reason: 'the model rollouts were not run' } : 'reason' in simulated ? simulated : rolloutCheck(context, w, simulated[k], settings));
   const rollouts = works.map(rolloutOf), baselineRollout = baseline && rolloutOf(baseline, works.length);
-  const threads = threadsNote(replicates.threads, simulations.note);
+  const threads = threadsNote(replicates.threads, 'reason' in simulations ? null : simulations.note);
   const ranges = loggedActionRanges(data);
   const reference = {
     presentControllerShift: presentControllerShift(plan, baseline),

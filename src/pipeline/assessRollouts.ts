@@ -13,6 +13,7 @@
  * (rolloutValues.ts) need nothing from the fit, so a helper thread may form and run them while the
  * function classes are fitted; rolloutCheck pairs them with the fit's values.
  */
+import { absorbingEndCount, absorbingEndsReason } from '../core/absorbingEnds';
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { monomialCount } from '../core/features/monomials';
 import { throwIfCancelled } from '../core/fqe/cancellation';
@@ -70,10 +71,11 @@ export function rolloutJob(context: AssessmentContext, policies: readonly Gaussi
  * The model and its simulations for every policy's check, opened before the function classes are
  * fitted: on the host's helper, a thread of their own that forms the model and runs them meanwhile
  * (their work, resampleWork, decides as for the loop's), else on this thread when `rollouts()` is
- * asked for after the loop.
+ * asked for after the loop. None for a log whose runs end in an end state: why, instead.
  */
-export function openRolloutSimulations(context: AssessmentContext, policies: readonly GaussianPolicy[], settings: AssessmentSettings): PerDecisionRoute {
-  const { plan } = context;
+export function openRolloutSimulations(context: AssessmentContext, policies: readonly GaussianPolicy[], settings: AssessmentSettings): PerDecisionRoute | { reason: string } {
+  const { plan } = context, ends = absorbingEndCount(plan.data.terminal);
+  if (ends > 0) return { reason: absorbingEndsReason(ends) }; // the model has no end (../core/absorbingEnds.ts)
   return openPerDecisionRoute([], { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: 0 }, context.helper,
     { model: null, rollouts: () => rolloutJob(context, policies, settings) });
 }

@@ -1,7 +1,10 @@
 /**
  * A seeded simulator harness shared by every battery plant: logs episodes of a plant under a
  * Gaussian policy straight into a core TransitionSet (reward = −cost, as the importer stores it).
- * Episodes end on their time limit (terminal = 0 everywhere: the plant goes on after the log stops).
+ * Episodes end on their time limit (terminal = 0: the plant goes on after the log stops), or, for a
+ * plant whose runs really end (`ends`), on reaching an absorbing state (terminal = 1 on that row:
+ * nothing is paid after it); then the next run starts at once, until the same transition budget
+ * (episodes × stepsPerEpisode rows) is logged, the last run cut by the budget.
  *
  * One RandomSource per call, drawn in a fixed order (start state, then per step the action and
  * the process noise), so a seed fixes every number.
@@ -15,6 +18,8 @@ export interface PlantDynamics {
   readonly actionDim: number; // m
   /** Writes s' (ds) and returns the stage cost c(s, a); noise from rng. */
   step(state: Float64Array, action: Float64Array, rng: RandomSource, next: Float64Array): number;
+  /** Runs that really end: true when s' is absorbing (value 0 after; no further cost). Absent: runs end only on a time limit. */
+  ends?(next: Float64Array): boolean;
 }
 
 /** Writes one start state (ds) drawn from the plant's logged start distribution. */
@@ -33,13 +38,14 @@ export function logEpisodes(dynamics: PlantDynamics, policy: GaussianPolicy, sta
   const ds = dynamics.stateDim, m = dynamics.actionDim, count = episodes * steps;
   const rng = createRandom(options.seed);
   const states = new Float64Array(count * ds), actions = new Float64Array(count * m), nextStates = new Float64Array(count * ds);
-  const rewards = new Float64Array(count), episode = new Int32Array(count), startStates = new Float64Array(episodes * ds);
+  const rewards = new Float64Array(count), episode = new Int32Array(count), terminal = new Uint8Array(count);
+  const startStates = new Float64Array(count * ds); // at most one run per row; trimmed below
   const s = new Float64Array(ds), a = new Float64Array(m), next = new Float64Array(ds);
-  let row = 0;
-  for (let e = 0; e < episodes; e++) {
+  let row = 0, e = 0;
+  for (; row < count; e++) {
     start(rng, s);
     startStates.set(s, e * ds);
-    for (let t = 0; t < steps; t++, row++) {
+    for (let t = 0; t < steps && row < count; t++, row++) {
       sampleAction(policy, s, rng, a);
       rewards[row] = -dynamics.step(s, a, rng, next);
       states.set(s, row * ds);
@@ -47,11 +53,16 @@ export function logEpisodes(dynamics: PlantDynamics, policy: GaussianPolicy, sta
       nextStates.set(next, row * ds);
       episode[row] = e;
       s.set(next);
+      if (dynamics.ends?.(next)) {
+        terminal[row] = 1;
+        row++;
+        break;
+      }
     }
   }
   return {
     count, stateDim: ds, actionDim: m, stateNames: [...options.stateNames], actionNames: [...options.actionNames],
-    states, actions, rewards, nextStates, terminal: new Uint8Array(count), episode, episodeCount: episodes, startStates,
+    states, actions, rewards, nextStates, terminal, episode, episodeCount: e, startStates: startStates.slice(0, e * ds),
     sourceLine: Int32Array.from({ length: count }, (_, i) => i + 2),
   };
 }

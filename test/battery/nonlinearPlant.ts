@@ -1,11 +1,12 @@
 /**
  * Battery plants with nonlinear dynamics or a clipped actuator: the same BatteryPlant shape, with
  * the truth from seeded rollouts (rolloutTruth.ts, with its standard error) and episodes that
- * start from a burn-in under the logging controller (the logged steady state).
+ * start from a burn-in under the logging controller (the logged steady state), or from the plant's
+ * own run start (`runStart`, e.g. a batch's charge).
  */
 import { createGaussianPolicy } from '../../src/core/policy';
 import { candidateNamed, startSetNamed, type BatteryPlant, type BatteryTruth, type PlantDescription, type StartSet } from './batteryPlant';
-import { burnInStart, episodesFor, logEpisodes, type PlantDynamics } from './episodeLog';
+import { burnInStart, episodesFor, logEpisodes, type PlantDynamics, type StartSampler } from './episodeLog';
 import { rolloutTruth } from './rolloutTruth';
 import { runStartSampler, standardStartSets } from './startSets';
 
@@ -15,6 +16,8 @@ export interface NonlinearDefinition extends PlantDescription {
   readonly operatingState: readonly number[];
   /** Steps of the behaviour policy before an episode's first logged row. */
   readonly burnIn: number;
+  /** Where a run starts when it is not the logged steady state (a batch's charge); replaces the burn-in. */
+  readonly runStart?: StartSampler;
   /** Rollouts per start state for the truth (their count sets its standard error). */
   readonly rolloutsPerStart: number;
 }
@@ -23,7 +26,7 @@ const ROLLOUT_SEED = 31_337;
 
 export function nonlinearBatteryPlant(def: NonlinearDefinition): BatteryPlant {
   const behaviour = createGaussianPolicy(def.behaviour, def.dynamics.stateDim);
-  const sampler = burnInStart(def.dynamics, behaviour, def.operatingState, def.burnIn);
+  const sampler = def.runStart ?? burnInStart(def.dynamics, behaviour, def.operatingState, def.burnIn);
   let sets: StartSet[] | null = null;
   const truths = new Map<string, BatteryTruth>();
   const plant: BatteryPlant = {

@@ -4,7 +4,8 @@
  *   V̂(s0) = (1/R) Σ_r G_{s0,r},   Ĵ = (1/S) Σ_{s0} V̂(s0),
  *   SE(Ĵ) = (1/S) √(Σ_{s0} σ̂²_{s0} / R)       (independent rollouts; σ̂² the sample variance per start),
  * common practice for Monte Carlo means. H is chosen so the neglected tail γ^H·max|V| is below
- * 10⁻⁶ of the value (H = ⌈ln 10⁻⁶ / ln γ⌉), far below the standard error.
+ * 10⁻⁶ of the value (H = ⌈ln 10⁻⁶ / ln γ⌉), far below the standard error. A rollout of a plant
+ * whose runs really end (`dynamics.ends`) stops at the absorbing state: its value there is 0.
  */
 import { createGaussianPolicy, sampleAction, type GaussianPolicySpec } from '../../src/core/policy';
 import { createRandom } from '../../src/core/random';
@@ -39,6 +40,7 @@ export function rolloutTruth(
         g -= weight * dynamics.step(s, a, rng, next);
         weight *= discount;
         s.set(next);
+        if (dynamics.ends?.(next)) break;
       }
       sum += g;
       squares += g * g;

@@ -4,24 +4,44 @@
  * the geometric series; common practice). An estimate outside it cannot be right under that
  * premise — typically a fit extrapolating far from the logs (e.g. a negative discounted cost when
  * every logged cost is positive). Reward sense.
+ *
+ * Runs that can end (an absorbing state in the log, ../absorbingEnds.ts): the return is then
+ * Σ_{t<T} γ^t r_t for a random end T ≥ 1 (a start pays at least its own step), and for each T the
+ * sum lies between r_min·g_T and r_max·g_T with g_T = (1 − γ^T)/(1 − γ) ∈ [1, 1/(1 − γ)] (the same
+ * geometric series, cut at T). Over every T, and so for any mixture of them,
+ *   min(r_min, r_min/(1 − γ)) ≤ J ≤ max(r_max, r_max/(1 − γ)):
+ * with costs only (r_max < 0) a run that ends at once pays a single step, not 1/(1 − γ) of them.
+ *
+ * An estimate's interval: the slack below is a fixed share of the range's width, and the width is
+ * set by the single most extreme logged step, so where a few large upsets dominate it can exceed J
+ * itself. An interval that shares no point with the possible range says, at its own level, that no
+ * possible value is consistent with the estimate and its sampling error (the duality of confidence
+ * intervals and tests; common practice), whatever the width: that too marks the estimate impossible.
  */
 export interface PossibleValues {
   readonly lower: number;
   readonly upper: number;
 }
 
-export function possibleValues(rewards: ArrayLike<number>, discount: number): PossibleValues {
+export function possibleValues(rewards: ArrayLike<number>, discount: number, runsCanEnd = false): PossibleValues {
   let lo = Infinity, hi = -Infinity;
   for (let i = 0; i < rewards.length; i++) {
     const r = rewards[i];
     if (r < lo) lo = r;
     if (r > hi) hi = r;
   }
-  return { lower: lo / (1 - discount), upper: hi / (1 - discount) };
+  const horizon = 1 / (1 - discount);
+  if (!runsCanEnd) return { lower: lo * horizon, upper: hi * horizon };
+  return { lower: Math.min(lo, lo * horizon), upper: Math.max(hi, hi * horizon) };
 }
 
 /** True when v lies outside the range by more than a relative margin (round-off and small-sample slack; 1 % of the range's width, ours). */
 export function outsidePossible(v: number, range: PossibleValues): boolean {
   const slack = 0.01 * (range.upper - range.lower);
   return v < range.lower - slack || v > range.upper + slack;
+}
+
+/** True when the interval [lower, upper] of an estimate (same sense as the range) shares no point with the range. */
+export function intervalOutsidePossible(lower: number, upper: number, range: PossibleValues): boolean {
+  return upper < range.lower || lower > range.upper;
 }

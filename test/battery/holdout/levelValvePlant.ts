@@ -18,7 +18,9 @@ import { nonlinearBatteryPlant } from '../nonlinearPlant';
 import { valveLaw } from './valveLaw';
 import { dryerPlant } from './dryerPlant';
 import { exchangerPlant } from './exchangerPlant';
+import { kettlePlant } from './kettlePlant';
 import { neutralisationPlant } from './neutralisationPlant';
+import { surgeDrumPlant } from './surgeDrumPlant';
 
 const AREA_M2 = 3, STEP_S = 10, VALVE_FLOW_M3_S = 0.05, LEVEL_SETPOINT_M = 2, VALVE_BIAS = 0.8;
 /** Restriction coefficient that holds the setpoint at the valve bias: k·√2 = 0.05·0.8. */
@@ -69,5 +71,5 @@ export function gentleLevelValvePlant(): BatteryPlant {
 }
 
 export function holdoutPlants(): BatteryPlant[] {
-  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant()];
+  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant()];
 }

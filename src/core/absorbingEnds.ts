@@ -1,0 +1,20 @@
+/**
+ * Runs that really end: transitions into an absorbing state (terminal = 1 in a TransitionSet — the
+ * batch is done, the unit is shut down — after which nothing more is paid; V = 0 there). Where a log
+ * holds any, a run's discounted return stops at a random step T ≥ 1 instead of going on forever,
+ * which changes what a value can be (diagnostics/possibleValues.ts) and what a model of the plant's
+ * next state must simulate (a model without the end would keep paying past it).
+ */
+
+/** Transitions whose next state is absorbing. terminal: n, 0/1. */
+export function absorbingEndCount(terminal: Uint8Array): number {
+  let count = 0;
+  for (let i = 0; i < terminal.length; i++) if (terminal[i] !== 0) count++;
+  return count;
+}
+
+/** Why a model of the next state alone does not apply to a log whose runs end (count ≥ 1 such transitions). */
+export function absorbingEndsReason(count: number): string {
+  const ends = count === 1 ? '1 logged transition ends its run' : `${count.toLocaleString('en-US')} logged transitions end their run`;
+  return `${ends} in an end state (the end-of-run column), and this model of the plant simulates the next state only, not where a run ends: its runs would go on paying past the end`;
+}

@@ -1,0 +1,79 @@
+/**
+ * A log whose runs end in an end state (terminal = 1: nothing is paid after it) cannot be checked by
+ * a model of the plant's next state alone: on an invented chain that pays −1 per step and ends after
+ * each step with probability p, J = −1/(1 − γ(1 − p)) (the geometric series with ratio γ(1 − p);
+ * common practice), while the same one-step dynamics without the end give −1/(1 − γ). Both model
+ * checks (the one-step model's rollouts and the linear-quadratic closed form) then say why they do
+ * not apply instead of contradicting a right estimate.
+ */
+import { describe, expect, it } from 'vitest';
+import { absorbingEndCount } from '../../src/core/absorbingEnds';
+import { indexEpisodes } from '../../src/core/bootstrap/episodeTransitions';
+import { createRandom } from '../../src/core/random';
+import type { TransitionSet } from '../../src/core/transitions';
+import type { AssessmentContext } from '../../src/pipeline/assessCandidate';
+import { checkLinearQuadraticModel } from '../../src/pipeline/assessModelCheck';
+import { openRolloutSimulations } from '../../src/pipeline/assessRollouts';
+import type { AssessmentSettings } from '../../src/pipeline/assessSettings';
+
+const settings = { seed: 1, resamples: 10 } as AssessmentSettings;
+
+/** The rollout check's simulations as the assessment opens them (no helper thread): a route, or why there is none. */
+function rollouts(context: AssessmentContext): { reason: string } | 'opened' {
+  const opened = openRolloutSimulations(context, [], settings);
+  if ('reason' in opened) return opened;
+  opened.close();
+  return 'opened';
+}
+
+/** Runs of a level that drifts (s' = 0.9·s + a + noise), paying −1 per step, ending with probability p after each step. */
+function endingChain(runs: number, endChance: number, seed: number): TransitionSet {
+  const rng = createRandom(seed), rows: number[][] = [];
+  for (let e = 0; e < runs; e++) {
+    let s = rng.normal();
+    for (let t = 0; t < 200; t++) {
+      const a = 0.1 * rng.normal(), next = 0.9 * s + a + 0.1 * rng.normal(), done = rng.uniform() < endChance ? 1 : 0;
+      rows.push([e, s, a, -1, next, done]);
+      s = next;
+      if (done) break;
+    }
+  }
+  const n = rows.length, col = (k: number) => Float64Array.from(rows, (r) => r[k]);
+  const episode = Int32Array.from(rows, (r) => r[0]), firstRows = rows.filter((r, i) => i === 0 || rows[i - 1][0] !== r[0]);
+  return {
+    count: n, stateDim: 1, actionDim: 1, stateNames: ['level'], actionNames: ['valve'], states: col(1), actions: col(2), rewards: col(3), nextStates: col(4),
+    terminal: Uint8Array.from(rows, (r) => r[5]), episode, episodeCount: runs, startStates: Float64Array.from(firstRows, (r) => r[1]),
+    sourceLine: Int32Array.from({ length: n }, (_, i) => i + 2),
+  };
+}
+
+describe('model checks on a log whose runs end', () => {
+  it('counts the end states, and both model checks say they do not apply', () => {
+    const discount = 0.9, endChance = 0.2, data = endingChain(300, endChance, 5);
+    const ends = absorbingEndCount(data.terminal);
+    expect(ends).toBeGreaterThan(250); // nearly every run ends within 200 steps: 0.8^200 ≈ 4e-20
+    // The return the log's runs paid, against the closed form (Monte Carlo, from a few hundred runs).
+    const paid = -1 / (1 - discount * (1 - endChance)); // −3.57, against −10 for a plant that goes on
+    let sum = 0, weight = 1, run = 0;
+    for (let i = 0; i < data.count; i++) {
+      if (i > 0 && data.episode[i] !== data.episode[i - 1]) { weight = 1; run++; }
+      sum += weight * data.rewards[i];
+      weight *= discount;
+    }
+    expect(Math.abs(sum / (run + 1) - paid)).toBeLessThan(0.3);
+    const index = indexEpisodes(data);
+    const lq = checkLinearQuadraticModel(data, index);
+    expect(lq.fitsData).toBe(false);
+    expect(lq.summary).toMatch(/end their run in an end state/);
+    const model = rollouts({ plan: { data, episodes: index, discount } } as unknown as AssessmentContext);
+    expect(model !== 'opened' && model.reason).toMatch(/simulates the next state only, not where a run ends/);
+  });
+
+  it('leaves both model checks to a log without end states', () => {
+    const data = { ...endingChain(100, 0, 6) };
+    expect(absorbingEndCount(data.terminal)).toBe(0);
+    const index = indexEpisodes(data);
+    expect(checkLinearQuadraticModel(data, index).summary).not.toMatch(/end state/);
+    expect(rollouts({ plan: { data, episodes: index, discount: 0.9 } } as unknown as AssessmentContext)).toBe('opened');
+  });
+});
