@@ -61,7 +61,7 @@ export function* readTableSteps(source: ImportSource, fileName: string, csv: Csv
   if (!isPieceSource(source)) return yield* wholeTableSteps(source, fileName, csv, columns);
   try {
     const streamed = yield* streamedTableSteps(source, fileName, csv, columns, sizes);
-    return streamed ?? (yield* wholeTableSteps(readWhole(source), fileName, csv, columns));
+    return streamed ?? (yield* wholeTableSteps({ bytes: readWhole(source) }, fileName, csv, columns));
   } catch (e) {
     if (!(e instanceof PieceReadError)) throw e;
     return failure(pieceReadProblem(fileName, e));
