@@ -136,7 +136,8 @@ function startReading(
 /**
  * Read up to `limit` records; false once the bytes are read to the end. A file read in pieces: a
  * record that reaches the end of the window before the file's end may be cut there (a number, a
- * quoted field, a CR before its LF), so it is read again once the window has moved on (advance).
+ * quoted field, a CR before its LF), so it is read again once the window has moved on (advance);
+ * at the window's very end both readers find no whole record, so the window moves on there too.
  */
 function readBlock(g: Reading, limit: number): boolean {
   const { fast, others, sinks, scanner, fieldCount, problems, lineOffset, blanks } = g;
@@ -144,23 +145,21 @@ function readBlock(g: Reading, limit: number): boolean {
   let { record, position, line, bytes } = g;
   let final = g.window === undefined || g.window.final;
   const stop = record + limit;
-  while (record < stop) {
-    if (position >= bytes.length) {
-      if (final) break;
+  while (record < stop && !(final && position >= bytes.length)) {
+    const r = record;
+    const after = fast ? plainRecord(fast, position, r) : -1;
+    if (after < 0) {
+      scanner.seek(position, line);
+      scanner.next();
+    }
+    if (!final && (after < 0 ? scanner.offset : after) >= bytes.length) {
       bytes = advance(g, position);
       final = g.window!.final;
       position = 0;
+      continue;
     }
-    const r = record;
-    const after = fast ? plainRecord(fast, position, r) : -1;
+    record++;
     if (after >= 0) { // the common case: numbers already in their columns
-      if (!final && after >= bytes.length) {
-        bytes = advance(g, position);
-        final = g.window!.final;
-        position = 0;
-        continue;
-      }
-      record++;
       if (blanks.length > 0) flushBlanks(blanks, fieldCount, problems);
       g.lastContent = r;
       g.lastLine = line + lineOffset;
@@ -169,15 +168,6 @@ function readBlock(g: Reading, limit: number): boolean {
       line++;
       continue;
     }
-    scanner.seek(position, line);
-    scanner.next();
-    if (!final && scanner.offset >= bytes.length) {
-      bytes = advance(g, position);
-      final = g.window!.final;
-      position = 0;
-      continue;
-    }
-    record++;
     position = scanner.offset;
     line = scanner.nextLine;
     if (scanner.fieldCount === 1 && scanner.fault === 'none' && isBlank(bytes, starts[0], ends[0])) {
