@@ -2,7 +2,7 @@
  * openProject with a data file the host left open to be read in pieces (the command line's route
  * for a large log, pipeline/openProject.ts OpenDataFile) gives what the same bytes read whole give:
  * the same fingerprint (checked against Node's own SHA-256), transitions and import report, and the
- * file is closed after the import, also when the file ends early ('file-changed').
+ * file is closed after the import, also when the file ends early ('file-changed') or a stop request ends it.
  * The log is the tank-levels sample's written three times over (run labels made distinct per copy),
  * over 2 MiB, so its records are read through the window (data/csvTable.ts).
  */
@@ -10,6 +10,7 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { CANCELLED_PROBLEM } from '../../src/pipeline/cancelledProblem';
 import { openProject, type OpenDataFile } from '../../src/pipeline/openProject';
 
 const sample = join(__dirname, '..', '..', 'sample-projects', 'tank-levels');
@@ -46,6 +47,16 @@ describe('openProject on a data file read in pieces', () => {
     expect(pieces.value.imported.episodeReport).toEqual(whole.value.imported.episodeReport);
     expect(pieces.value.imported.summary).toEqual(whole.value.imported.summary);
     expect(pieces.value.warnings).toEqual(whole.value.warnings);
+  });
+
+  it('a stop request during the pieces ends the import as cancelled, within a few yields, and closes the file', async () => {
+    const file = openFile();
+    let paces = 0;
+    const opened = await openProject(projectText, 'long-log.spcritic', async () => file, { cancel: () => paces >= 3, pace: async () => { paces++; } });
+    expect(opened.ok).toBe(false);
+    if (!opened.ok) expect(opened.problems).toEqual([CANCELLED_PROBLEM]);
+    expect(paces).toBe(3);
+    expect(file.closed).toBe(1);
   });
 
   it('a file that ends before its length is refused naming the data path, and still closed', async () => {
