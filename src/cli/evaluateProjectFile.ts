@@ -14,7 +14,9 @@ import { evaluationOf } from '../pipeline/evaluateProject';
 import { openProject, type OpenedProject } from '../pipeline/openProject';
 import { CANCELLED_PROBLEM, startRun } from '../pipeline/projectRun';
 import { retuneMapsOfRun, type RetuneMapResult } from '../pipeline/retuneMaps';
-import { HostFileError, MAX_DATA_BYTES, MAX_PROJECT_BYTES, readRegularFile } from '../host/regularFile';
+import { HostFileError, MAX_DATA_BYTES, MAX_PROJECT_BYTES, openRegularFile, readRegularFile } from '../host/regularFile';
+import { STREAMED_FILE_BYTES } from '../core/limits';
+import type { OpenDataFile } from '../pipeline/openProject';
 import { helperThread } from './helperThread';
 import { nativeSha256 } from './nativeSha256';
 import type { TerminalProgress } from './terminalProgress';
@@ -57,7 +59,7 @@ export async function evaluateProjectFile(
     refusal = (await check?.({ projectPath: resolve(projectPath), dataPath })) ?? null;
     if (refusal) return new Uint8Array(0);
     try {
-      return await readRegularFile(dataPath, { maxBytes: MAX_DATA_BYTES, what: 'data file' });
+      return await dataFile(dataPath);
     } catch (e) {
       throw e instanceof HostFileError ? new Error(e.reason) : e;
     }
@@ -81,6 +83,17 @@ export async function evaluateProjectFile(
     return { ok: true, run: { ...opened.value, evaluation, assessment, retuneMaps } };
   } finally {
     run.dispose();
+  }
+}
+
+/** A large data file stays open for the import to read in pieces (never held whole); a smaller one is read whole. */
+async function dataFile(path: string): Promise<Uint8Array | OpenDataFile> {
+  const file = await openRegularFile(path, { maxBytes: MAX_DATA_BYTES, what: 'data file' });
+  if (file.byteLength >= STREAMED_FILE_BYTES) return file;
+  try {
+    return await file.readAll();
+  } finally {
+    await file.close();
   }
 }
 

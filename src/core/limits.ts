@@ -115,3 +115,12 @@ export function horizonSteps(discount: number): number {
 export const MAX_EXPRESSION_LENGTH = 2000;
 export const MAX_EXPRESSION_DEPTH = 40;
 export const MAX_EXPRESSION_OPERATIONS = 200;
+
+/**
+ * A data file at least this large is read in pieces (the command line; ours): its bytes are never
+ * held whole, so the import's peak memory is the columns and the transitions, not the file as well.
+ * A smaller file is read whole, as before.
+ */
+export const STREAMED_FILE_BYTES = 16 * 1024 * 1024;
+/** The window of a file read in pieces: the bytes held at once while its records are read (ours; it grows only for a record longer than it). */
+export const STREAM_WINDOW_BYTES = 4 * 1024 * 1024;

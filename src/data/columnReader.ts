@@ -10,6 +10,8 @@ import { isBlank } from './cellText';
 import { ColumnSink } from './columnSink';
 import type { Delimiter } from './csvDialect';
 import { CsvScanner, recordBound } from './csvScanner';
+import type { ByteWindow } from './byteWindow';
+import { CHANGED_WHILE_READ, PieceReadError } from './pieceSource';
 import { BOUNDS, plainRecord, SKIP, type PlainRecordTarget } from './plainRecord';
 import type { DecimalMark } from './numericCell';
 import { formatCount } from './reportFormat';
@@ -53,6 +55,11 @@ export interface DataBytes {
   readonly start: number;
   /** Physical line (1-based) of the first data record. */
   readonly firstLine: number;
+  /**
+   * A file read in pieces: the window that slides over its data records (`bytes` is its first view,
+   * from `start` = 0) and the records its first pass counted (pieceFacts.ts), which size the columns.
+   */
+  readonly streamed?: { readonly window: ByteWindow; readonly capacity: number };
 }
 
 /** Records read between two yields of readColumnsSteps (about 5 MB of a 10-column log; a choice). */
@@ -77,12 +84,17 @@ export function* readColumnsSteps(
 ): PassSteps<TableColumns> {
   const reading = startReading(data, delimiter, decimalMark, fieldCount, requests, problems, fastPath);
   while (readBlock(reading, RECORDS_PER_STEP)) yield;
+  // More records than counted: the file changed between the passes (the columns could not hold them).
+  if (reading.record > reading.capacity) throw new PieceReadError(CHANGED_WHILE_READ);
   return collect(reading.sinks, reading.lastContent + 1, reading.lastLine);
 }
 
 /** Everything the pass carries from one block of records to the next. */
 interface Reading {
-  readonly bytes: Uint8Array;
+  /** The whole file's bytes, or the window's current view of a file read in pieces. */
+  bytes: Uint8Array;
+  readonly window: ByteWindow | undefined;
+  readonly capacity: number;
   readonly fieldCount: number;
   readonly problems: RowProblems;
   readonly sinks: ColumnSink[];
@@ -106,14 +118,14 @@ function startReading(
   requests: readonly ColumnRequest[], problems: RowProblems, fastPath: boolean,
 ): Reading {
   const { bytes } = data;
-  const capacity = recordBound(bytes, data.start);
+  const capacity = data.streamed?.capacity ?? recordBound(bytes, data.start);
   const sinks = requests.map((request) => new ColumnSink(request, capacity, decimalMark));
   const numbers = sinks.filter((s) => s.request.kind === 'number'), numberFields = new Set(numbers.map((s) => s.request.field));
   // A timestamp of plain seconds reads the same under either day/month order, so the fast path parses it like a number.
   const plainTimes = fastPath && decimalMark !== delimiter ? sinks.filter((s) => s.request.kind === 'timestamp' && !numberFields.has(s.request.field)) : [];
   const others = sinks.filter((s) => s.request.kind !== 'number' && !plainTimes.includes(s));
   return {
-    bytes, fieldCount, problems, sinks, others, plainTimes,
+    bytes, window: data.streamed?.window, capacity, fieldCount, problems, sinks, others, plainTimes,
     scanner: new CsvScanner(bytes, delimiter.charCodeAt(0), fieldCount, data.start),
     fast: fastPath ? plainRecordTarget(bytes, delimiter, decimalMark, fieldCount, [...numbers, ...plainTimes], others) : null,
     lineOffset: data.firstLine - 1, blanks: [],
@@ -121,15 +133,32 @@ function startReading(
   };
 }
 
-/** Read up to `limit` records; false once the bytes are read to the end. */
+/**
+ * Read up to `limit` records; false once the bytes are read to the end. A file read in pieces: a
+ * record that reaches the end of the window before the file's end may be cut there (a number, a
+ * quoted field, a CR before its LF), so it is read again once the window has moved on (advance);
+ * at the window's very end both readers find no whole record, so the window moves on there too.
+ */
 function readBlock(g: Reading, limit: number): boolean {
-  const { bytes, fast, others, sinks, scanner, fieldCount, problems, lineOffset, blanks } = g;
+  const { fast, others, sinks, scanner, fieldCount, problems, lineOffset, blanks } = g;
   const { starts, ends, escaped } = scanner;
-  let { record, position, line } = g;
+  let { record, position, line, bytes } = g;
+  let final = g.window === undefined || g.window.final;
   const stop = record + limit;
-  while (position < bytes.length && record < stop) {
-    const r = record++;
+  while (record < stop && !(final && position >= bytes.length)) {
+    const r = record;
     const after = fast ? plainRecord(fast, position, r) : -1;
+    if (after < 0) {
+      scanner.seek(position, line);
+      scanner.next();
+    }
+    if (!final && (after < 0 ? scanner.offset : after) >= bytes.length) {
+      bytes = advance(g, position);
+      final = g.window!.final;
+      position = 0;
+      continue;
+    }
+    record++;
     if (after >= 0) { // the common case: numbers already in their columns
       if (blanks.length > 0) flushBlanks(blanks, fieldCount, problems);
       g.lastContent = r;
@@ -139,8 +168,6 @@ function readBlock(g: Reading, limit: number): boolean {
       line++;
       continue;
     }
-    scanner.seek(position, line);
-    scanner.next();
     position = scanner.offset;
     line = scanner.nextLine;
     if (scanner.fieldCount === 1 && scanner.fault === 'none' && isBlank(bytes, starts[0], ends[0])) {
@@ -161,7 +188,20 @@ function readBlock(g: Reading, limit: number): boolean {
   g.record = record;
   g.position = position;
   g.line = line;
-  return position < bytes.length;
+  g.bytes = bytes;
+  return position < bytes.length || !final;
+}
+
+/** Move the window on, keeping the bytes from `position` (the record not yet read); the new view, also handed to the scanner and the fast path. */
+function advance(g: Reading, position: number): Uint8Array {
+  const bytes = g.window!.advance(position);
+  g.scanner.reframe(bytes);
+  for (const sink of g.sinks) sink.bytesMoved();
+  if (g.fast) {
+    g.fast.bytes = bytes;
+    g.fast.end = bytes.length;
+  }
+  return bytes;
 }
 
 /**

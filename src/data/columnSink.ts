@@ -36,6 +36,11 @@ export class ColumnSink {
     if (request.kind === 'label') this.codes = new Map();
   }
 
+  /** The bytes moved (a file read in pieces, byteWindow.ts): the previous label's offsets no longer point at it. */
+  bytesMoved(): void {
+    this.previousLabel = { start: 0, end: -1, code: -1 };
+  }
+
   missing(record: number): void {
     this.values[record] = this.request.kind === 'label' ? -1 : NaN;
     if (this.alternate) this.alternate[record] = NaN;

@@ -25,6 +25,23 @@ export const HISTOGRAM_BINS = 30;
 
 /** Statistics of values[i] over the i with include[i] = 1. Throws on an empty selection. */
 export function columnStatistics(values: Float64Array, include: Uint8Array, bins = HISTOGRAM_BINS): ColumnStatistics {
+  // Every row included (the common case): the same sums in the same order, in loops that neither
+  // read `include` nor carry more than one running value (measured some three times faster).
+  const every = include.length === values.length && include.indexOf(0) < 0;
+  const { count, sum, min, max } = every ? firstPassEvery(values) : firstPass(values, include);
+  if (count === 0) throw new RangeError('columnStatistics: no values selected');
+  const mean = Math.min(max, Math.max(min, Number.isFinite(sum) ? sum / count : scaledMean(values, include, count, Math.max(-min, max))));
+  // A constant column gets one bin of width 0: there is nothing to spread.
+  const binCount = max > min ? bins : 1;
+  const width = (max - min) / binCount, perWidth = width > 0 ? 1 / width : 0;
+  const counts = new Float64Array(binCount);
+  const m2 = every ? squaredDeviationsEvery(values, mean, min, perWidth, counts) : squaredDeviations(values, include, mean, min, perWidth, counts);
+  const std = count > 1 ? Math.sqrt(m2 / (count - 1)) : 0;
+  const edges = Array.from({ length: binCount + 1 }, (_, b) => (b === binCount ? max : min + b * width));
+  return { count, min, max, mean, std, histogram: { edges, counts: Array.from(counts) } };
+}
+
+function firstPass(values: Float64Array, include: Uint8Array) {
   let count = 0, sum = 0, min = Infinity, max = -Infinity;
   for (let i = 0; i < values.length; i++) {
     if (!include[i]) continue;
@@ -34,12 +51,23 @@ export function columnStatistics(values: Float64Array, include: Uint8Array, bins
     min = x < min ? x : min; // a select, not a branch: the branches mispredicted on noisy signals (twice the time)
     max = x > max ? x : max;
   }
-  if (count === 0) throw new RangeError('columnStatistics: no values selected');
-  const mean = Math.min(max, Math.max(min, Number.isFinite(sum) ? sum / count : scaledMean(values, include, count, Math.max(-min, max))));
-  // A constant column gets one bin of width 0: there is nothing to spread.
-  const binCount = max > min ? bins : 1;
-  const width = (max - min) / binCount, perWidth = width > 0 ? 1 / width : 0;
-  const counts = new Float64Array(binCount), last = binCount - 1;
+  return { count, sum, min, max };
+}
+
+function firstPassEvery(values: Float64Array) {
+  let sum = 0, min = Infinity, max = -Infinity;
+  for (let i = 0; i < values.length; i++) sum += values[i];
+  for (let i = 0; i < values.length; i++) {
+    const x = values[i];
+    min = x < min ? x : min;
+    max = x > max ? x : max;
+  }
+  return { count: values.length, sum, min, max };
+}
+
+/** Σ (x − mean)² over the rows included, and each row counted into its bin (the last bin closed). */
+function squaredDeviations(values: Float64Array, include: Uint8Array, mean: number, min: number, perWidth: number, counts: Float64Array): number {
+  const last = counts.length - 1;
   let m2 = 0;
   for (let i = 0; i < values.length; i++) {
     if (!include[i]) continue;
@@ -48,9 +76,21 @@ export function columnStatistics(values: Float64Array, include: Uint8Array, bins
     const bin = Math.floor((x - min) * perWidth);
     counts[bin > last ? last : bin]++;
   }
-  const std = count > 1 ? Math.sqrt(m2 / (count - 1)) : 0;
-  const edges = Array.from({ length: binCount + 1 }, (_, b) => (b === binCount ? max : min + b * width));
-  return { count, min, max, mean, std, histogram: { edges, counts: Array.from(counts) } };
+  return m2;
+}
+
+function squaredDeviationsEvery(values: Float64Array, mean: number, min: number, perWidth: number, counts: Float64Array): number {
+  const last = counts.length - 1;
+  let m2 = 0;
+  for (let i = 0; i < values.length; i++) {
+    const d = values[i] - mean;
+    m2 += d * d;
+  }
+  for (let i = 0; i < values.length; i++) {
+    const bin = Math.floor((values[i] - min) * perWidth);
+    counts[bin > last ? last : bin]++;
+  }
+  return m2;
 }
 
 /** The mean of values whose plain sum overflows: each scaled by 1/scale first. */

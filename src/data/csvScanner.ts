@@ -44,8 +44,8 @@ export class CsvScanner {
   private line = 1;
 
   constructor(
-    private readonly bytes: Uint8Array, private readonly delimiter: number,
-    readonly capacity: number, start = 0, private readonly end = bytes.length,
+    private bytes: Uint8Array, private readonly delimiter: number,
+    readonly capacity: number, start = 0, private end = bytes.length,
   ) {
     this.starts = new Int32Array(capacity);
     this.ends = new Int32Array(capacity);
@@ -72,6 +72,12 @@ export class CsvScanner {
   seek(position: number, line: number): void {
     this.position = position;
     this.line = line;
+  }
+
+  /** Read from `bytes` (to their end) from now on: the next view of a file read in pieces (byteWindow.ts); seek() says where. */
+  reframe(bytes: Uint8Array): void {
+    this.bytes = bytes;
+    this.end = bytes.length;
   }
 
   /** Read the next record; false at the end of the input. */

@@ -6,6 +6,13 @@
  * and lets go of them when this pass ends, so that a large file is not held in memory together with
  * the transitions built from it, nor together with its UTF-8 copy when it was in another encoding.
  * A host that keeps the file for later imports (the app's worker) passes the bytes themselves.
+ *
+ * A host may instead let the import read the file in pieces (PieceSource; the command line does
+ * for a large file): a first pass learns what the whole-file path learns from holding the bytes
+ * (pieceFacts.ts), the header and dialect come from the file's head, and the records are read
+ * through a window that slides along the file (byteWindow.ts), so the file is never held whole.
+ * What only the whole-file path words (other encodings, a blank file, a faulty or very long
+ * header) is read whole and goes that way, so every message stays the same.
  */
 import type { ColumnRoles, CsvSettings } from '../project/schema';
 import { failure, success, type Result } from '../core/result';
@@ -17,15 +24,30 @@ import { resolveDialect, type Dialect } from './csvDialect';
 import { readHeader } from './csvHeader';
 import { importProblem } from './importProblem';
 import { RowProblems } from './rowProblems';
-import { sampleText, sourceBytes } from './sourceBytes';
+import { SAMPLE_BYTES, sampleText, sourceBytes } from './sourceBytes';
 import type { TextEncodingName } from './sourceText';
+import { ByteWindow } from './byteWindow';
+import { pieceFactsSteps } from './pieceFacts';
+import { isPieceSource, PieceReadError, pieceReadProblem, readFully, readWhole, type PieceSource } from './pieceSource';
+import { recordBound } from './csvScanner';
+import { MAX_HEADER_BYTES } from './csvHeader';
+import { STREAM_WINDOW_BYTES } from '../core/limits';
 
 /** A data file's bytes handed over to the import, which empties the holder (see above). */
 export interface HandedBytes {
   bytes: Uint8Array | null;
 }
 
-export type ImportSource = string | Uint8Array | HandedBytes;
+export type ImportSource = string | Uint8Array | HandedBytes | PieceSource;
+
+/** Bytes of a file read in pieces: its head (dialect and header) and the window over its records; tests make them small. */
+export interface PieceSizes {
+  readonly head: number;
+  readonly window: number;
+}
+
+/** The head holds a header of the longest length allowed with room to spare, and the dialect's sample (sourceBytes.ts sampleText). */
+const PIECE_SIZES: PieceSizes = { head: 2 * MAX_HEADER_BYTES, window: STREAM_WINDOW_BYTES };
 
 export interface CsvTable {
   table: TableColumns;
@@ -35,7 +57,18 @@ export interface CsvTable {
   problems: RowProblems;
 }
 
-export function* readTableSteps(source: ImportSource, fileName: string, csv: CsvSettings, columns: ColumnRoles): PassSteps<Result<CsvTable>> {
+export function* readTableSteps(source: ImportSource, fileName: string, csv: CsvSettings, columns: ColumnRoles, sizes = PIECE_SIZES): PassSteps<Result<CsvTable>> {
+  if (!isPieceSource(source)) return yield* wholeTableSteps(source, fileName, csv, columns);
+  try {
+    const streamed = yield* streamedTableSteps(source, fileName, csv, columns, sizes);
+    return streamed ?? (yield* wholeTableSteps({ bytes: readWhole(source) }, fileName, csv, columns));
+  } catch (e) {
+    if (!(e instanceof PieceReadError)) throw e;
+    return failure(pieceReadProblem(fileName, e));
+  }
+}
+
+function* wholeTableSteps(source: string | Uint8Array | HandedBytes, fileName: string, csv: CsvSettings, columns: ColumnRoles): PassSteps<Result<CsvTable>> {
   const decoded = sourceBytes(typeof source === 'string' || source instanceof Uint8Array ? source : take(source));
   if (!decoded.ok) return failure(importProblem(decoded.kind, fileName, decoded.reason));
   const { bytes, start } = decoded, encoding = { name: decoded.encoding, how: decoded.how };
@@ -51,6 +84,35 @@ export function* readTableSteps(source: ImportSource, fileName: string, csv: Csv
   const problems = new RowProblems();
   const data = { bytes, start: header.dataStart, firstLine: header.firstDataLine };
   const table = yield* readColumnsSteps(data, dialect.delimiter, dialect.decimalMark, header.names.length, plan.requests, problems);
+  return success({ table, plan, dialect, encoding, problems });
+}
+
+/**
+ * The table of a file read in pieces, or null where the whole-file path must read it (see above).
+ * The head is read before the first pass and dropped after the header; the window after the pass.
+ */
+function* streamedTableSteps(source: PieceSource, fileName: string, csv: CsvSettings, columns: ColumnRoles, sizes: PieceSizes): PassSteps<Result<CsvTable> | null> {
+  // The head holds the sample whole whatever the sizes asked (then the sample is the whole-file path's).
+  const headBytes = Math.max(sizes.head, SAMPLE_BYTES + 4);
+  if (source.byteLength <= headBytes) return null;
+  const head = new Uint8Array(headBytes);
+  readFully(source, head, 0, head.length, 0);
+  const facts = yield* pieceFactsSteps(source, sizes.window);
+  if (!facts.plainUtf8 || facts.blank) return null;
+  const start = facts.marked ? 3 : 0;
+  const dialect = resolveDialect(sampleText(head, start), csv.delimiter, csv.decimalMark);
+  const header = readHeader(head, start, dialect.delimiter);
+  // A header cut by the head's end, or one the whole-file path refuses: that path words it.
+  if (!header.ok || header.dataStart >= head.length || header.names.every((name) => name === '')) return null;
+  const { plan, problems: namingProblems } = planColumns(header.names, columns, fileName, dialect.decimalMark);
+  if (!plan) return failure(...namingProblems);
+  const problems = new RowProblems();
+  // Records from the header's end: the file's line breaks less the header's, plus one (recordBound).
+  const capacity = facts.lineBreaks - (recordBound(head, 0, header.dataStart) - 1) + 1;
+  const window = new ByteWindow(source, header.dataStart, sizes.window);
+  const data = { bytes: window.view, start: 0, firstLine: header.firstDataLine, streamed: { window, capacity } };
+  const table = yield* readColumnsSteps(data, dialect.delimiter, dialect.decimalMark, header.names.length, plan.requests, problems);
+  const encoding = { name: 'UTF-8' as const, how: facts.marked ? 'byte-order mark' as const : 'detected' as const };
   return success({ table, plan, dialect, encoding, problems });
 }
 

@@ -25,6 +25,8 @@ export interface EpisodeInputs {
   readonly terminal?: Float64Array; // records; 1 = next state terminal
   readonly labels?: { codes: Float64Array; values: string[] }; // episode column
   readonly timestampsSeconds?: Float64Array; // timeGap column
+  /** medianStepSeconds(timestampsSeconds, kept) where the caller has it already (it takes an array of the records' size to find). */
+  readonly medianStepSeconds?: number;
   /** Per record, non-zero where it lies in a time window left out (timeWindows.ts): the episode is cut there. */
   readonly inWindow?: Uint16Array; // records
   /** True for an excluded record that is a blank line (it holds no row of any episode). */
@@ -148,7 +150,7 @@ function labelRule(column: string, labels: { codes: Float64Array; values: string
 
 function gapRule(column: string, maxGapSeconds: number | undefined, inputs: EpisodeInputs): BoundaryRule {
   const t = inputs.timestampsSeconds!;
-  const periodSeconds = medianStepSeconds(t, inputs.kept);
+  const periodSeconds = inputs.medianStepSeconds ?? medianStepSeconds(t, inputs.kept);
   const limit = maxGapSeconds ?? 3 * periodSeconds;
   let gaps = 0;
   return {

@@ -116,8 +116,10 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, `${why}, so no row is left to import`));
   }
   const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
+  // Found once for the run rule and the summary (each finding takes an array of the records' size).
+  const periodSeconds = s.timestamps ? medianStepSeconds(s.timestamps.seconds, kept) : NaN;
   const episodeInputs = {
-    kept, terminal, lineOf, inWindow: s.inWindow,
+    kept, terminal, lineOf, inWindow: s.inWindow, medianStepSeconds: periodSeconds,
     labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
     timestampsSeconds: s.timestamps?.seconds,
     isBlankLine: (r: number) => s.problems.firstProblem(r)?.problem.kind === 'blank-line',
@@ -139,7 +141,7 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every run has a single usable row; expected consecutive rows of the same run (or next-state columns)'));
   }
   yield;
-  const summary = summarise(s, kept, transitions, derivedValues, usedRows);
+  const summary = summarise(s, kept, transitions, derivedValues, usedRows, periodSeconds);
   yield;
   const excluded = excludedRows(s.problems, lineOf);
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
@@ -173,7 +175,7 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each run only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
   // The first row where every derived state is defined is the run's start: a run whose own first row
   // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
-  const again = assignEpisodes(s.columns.episode, { ...inputs, kept });
+  const again = assignEpisodes(s.columns.episode, { ...inputs, kept, medianStepSeconds: undefined }); // other rows kept: the median is found again
   const hasStart = new Uint8Array(again.episodeCount);
   for (let r = 0, last = -1; r < kept.length; r++) {
     if (!kept[r] || again.episodeOf[r] === last) continue;
@@ -187,7 +189,7 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
 
 const DERIVED_WORDS = { errorIntegral: 'error integral', filtered: 'first-order lag', previous: 'previous value', difference: 'difference' } as const;
 
-function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet, derived: Map<string, Float64Array>, derivedRows: Uint8Array): DatasetSummary {
+function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet, derived: Map<string, Float64Array>, derivedRows: Uint8Array, periodSeconds: number): DatasetSummary {
   const used: { name: string; roles: string[]; values: Float64Array; field: number; include?: Uint8Array }[] = [];
   for (const request of s.plan.requests) {
     const values = request.kind === 'number' ? s.table.numbers.get(request.name) : request.kind === 'timestamp' ? s.timestamps?.seconds : undefined;
@@ -200,7 +202,7 @@ function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet, deri
   return summariseDataset({
     rowCount: s.table.recordCount, kept, transitionCount: transitions.count, episodeCount: transitions.episodeCount,
     columns: used, rewards: s.rewards,
-    samplingPeriodSeconds: s.timestamps ? nullIfNaN(medianStepSeconds(s.timestamps.seconds, kept)) : null,
+    samplingPeriodSeconds: s.timestamps ? nullIfNaN(periodSeconds) : null,
     delimiter: s.dialect.delimiter, decimalMark: s.dialect.decimalMark, encoding: s.encoding.name,
     dateOrder: decision?.ambiguous ? decision.order : null,
   });

@@ -7,7 +7,7 @@ import type { Problem } from '../core/result';
 
 export type ImportProblemKind =
   // the file as a whole
-  | 'not-utf8' | 'header-too-long' | 'empty-file' | 'blank-header' | 'header-only' | 'no-usable-rows' | 'no-transitions' | 'more-problems'
+  | 'not-utf8' | 'file-changed' | 'header-too-long' | 'empty-file' | 'blank-header' | 'header-only' | 'no-usable-rows' | 'no-transitions' | 'more-problems'
   // naming in the header and the column roles
   | 'missing-column' | 'duplicate-column' | 'next-state-count' | 'expression-syntax' | 'expression-unknown-column'
   | 'derived-name-clash'

@@ -21,8 +21,9 @@ export const SKIP = -1;
 export const BOUNDS = -2;
 
 export interface PlainRecordTarget {
-  readonly bytes: Uint8Array;
-  readonly end: number;
+  /** The bytes and their end (a file read in pieces moves them along with its window). */
+  bytes: Uint8Array;
+  end: number;
   readonly delimiter: number;
   readonly markByte: number;
   readonly fieldCount: number;

@@ -38,7 +38,7 @@ export function sourceBytes(source: string | Uint8Array): SourceBytes {
  * which is non-zero exactly when some byte of v is 0 (Anderson, "Bit Twiddling Hacks", "Determine
  * if a word has a zero byte"; common practice).
  */
-function isAsciiWithoutZero(bytes: Uint8Array): boolean {
+export function isAsciiWithoutZero(bytes: Uint8Array): boolean {
   const head = Math.min(bytes.length, (4 - (bytes.byteOffset % 4)) % 4);
   const words = (bytes.length - head) >> 2;
   let high = 0, zero = 0;
@@ -70,8 +70,11 @@ function validUtf8(bytes: Uint8Array): boolean {
   }
 }
 
+/** Bytes of the dialect's sample (sampleText). */
+export const SAMPLE_BYTES = 64 * 1024;
+
 /** The first records as text, for sniffing the dialect: at most `limit` bytes, cut after the last whole line. */
-export function sampleText(bytes: Uint8Array, start: number, limit = 64 * 1024): string {
+export function sampleText(bytes: Uint8Array, start: number, limit = SAMPLE_BYTES): string {
   let end = Math.min(bytes.length, start + limit);
   if (end < bytes.length) {
     let cut = end;

@@ -34,7 +34,9 @@ export function trendOfImport(
   const sense = columns.reward.sense;
   const sign = sense === 'cost' ? -1 : 1;
   const name = columns.reward.kind === 'column' ? columns.reward.column : sense;
-  inputs.push({ name, role: sense, unit: columns.reward.unit ?? '', values: signed(rewards, sign) });
+  // A reward column's own values are sign · rewards exactly (negation is exact in IEEE 754), so no copy is made of them.
+  const logged = columns.reward.kind === 'column' ? numbers.get(columns.reward.column) : undefined;
+  inputs.push({ name, role: sense, unit: columns.reward.unit ?? '', values: logged ?? signed(rewards, sign) });
   const first = seconds?.find((t) => Number.isFinite(t)) ?? NaN;
   const time = seconds ?? Float64Array.from({ length: rowCount }, (_, r) => lineOf(r));
   const buckets = runRestarts > 0 ? TREND_BUCKETS * Math.min(runRestarts + 1, RUN_TIME_GROUP_FACTOR) : TREND_BUCKETS;

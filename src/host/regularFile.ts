@@ -8,8 +8,12 @@
  *   - at most `maxBytes` are read, in pieces, whatever the file claims (files under /proc report size
  *     0 and still have content), and a file larger than that is refused by its size.
  * Messages name the file and what is wrong, never its content (open(2), fstat(2), POSIX.1-2017).
+ *
+ * openRegularFile makes the same checks and leaves the file open, for a reader that takes it in
+ * pieces by position (pread(2)) instead of holding it whole: the command line's import of a large
+ * log (src/data/pieceSource.ts). Its length is the size fstat reported when it was opened.
  */
-import { constants } from 'node:fs';
+import { constants, readSync } from 'node:fs';
 import { open, type FileHandle } from 'node:fs/promises';
 
 /** Size limits (choices): a project is a few kilobytes; a CSV log of 10 million rows × 10 columns is ~1 GB. */
@@ -37,6 +41,26 @@ export interface RegularFileOptions {
 }
 
 export async function readRegularFile(path: string, options: RegularFileOptions): Promise<Uint8Array> {
+  const file = await openRegularFile(path, options);
+  try {
+    return await file.readAll();
+  } finally {
+    await file.close();
+  }
+}
+
+/** A regular file left open after the checks above: read it whole, or in pieces by position; close it when done. */
+export interface RegularFile {
+  /** The size fstat reported when the file was opened. */
+  readonly byteLength: number;
+  /** Every byte up to EOF, refusing more than maxBytes (the size may be 0 or out of date). */
+  readAll(): Promise<Uint8Array>;
+  /** Up to `length` bytes from file offset `position` into `into` at `offset`, synchronously; the count read (0 at EOF). A refused read throws a HostFileError. */
+  read(into: Uint8Array, offset: number, length: number, position: number): number;
+  close(): Promise<void>;
+}
+
+export async function openRegularFile(path: string, options: RegularFileOptions): Promise<RegularFile> {
   let handle: FileHandle;
   try {
     handle = await open(path, constants.O_RDONLY | (constants.O_NONBLOCK ?? 0));
@@ -47,9 +71,21 @@ export async function readRegularFile(path: string, options: RegularFileOptions)
     const stats = await handle.stat();
     if (!stats.isFile()) throw new HostFileError(options.what, path, `it is ${kindOf(stats)}, not a regular file`, 'ENOTREGULAR');
     if (stats.size > options.maxBytes) throw tooLarge(path, options, stats.size);
-    return await readAll(handle, path, options, stats.size);
-  } finally {
+    return {
+      byteLength: stats.size,
+      readAll: () => readAll(handle, path, options, stats.size),
+      read: (into, offset, length, position) => {
+        try {
+          return readSync(handle.fd, into, offset, length, position);
+        } catch (e) {
+          throw new HostFileError(options.what, path, reasonOf(e), codeOf(e));
+        }
+      },
+      close: () => handle.close().catch(() => undefined),
+    };
+  } catch (e) {
     await handle.close().catch(() => undefined);
+    throw e;
   }
 }
 

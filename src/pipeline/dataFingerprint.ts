@@ -7,6 +7,7 @@
 import { sha256 } from '@noble/hashes/sha2.js';
 import { bytesToHex } from '@noble/hashes/utils.js';
 import type { PassSteps } from '../core/fqe/cancellation';
+import { readFully, type PieceSource } from '../data/pieceSource';
 
 /** SHA-256 fed in pieces: update with each piece in order, then the digest as lowercase hex. */
 export interface Sha256Stream {
@@ -31,6 +32,19 @@ export function* dataFingerprintSteps(bytes: Uint8Array, create: Sha256Factory =
   const hash = create();
   for (let at = 0; at < bytes.length; at += BYTES_PER_STEP) {
     hash.update(bytes.subarray(at, Math.min(bytes.length, at + BYTES_PER_STEP)));
+    yield;
+  }
+  return hash.hex();
+}
+
+/** The same hash of a file read in pieces (data/pieceSource.ts), read a piece at a time into one buffer. */
+export function* pieceFingerprintSteps(source: PieceSource, create: Sha256Factory = portableSha256): PassSteps<string> {
+  const hash = create();
+  const piece = new Uint8Array(Math.min(BYTES_PER_STEP, source.byteLength));
+  for (let at = 0; at < source.byteLength; at += piece.length) {
+    const bytes = piece.subarray(0, Math.min(piece.length, source.byteLength - at));
+    readFully(source, bytes, 0, bytes.length, at);
+    hash.update(bytes);
     yield;
   }
   return hash.hex();

@@ -10,7 +10,8 @@ import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import { importDatasetSteps, type HandedBytes, type ImportedDataset } from '../data/importDataset';
 import { parseProjectText } from '../project/projectFile';
 import type { ProjectDocument } from '../project/schema';
-import { dataFingerprintSteps, type Sha256Factory } from './dataFingerprint';
+import { dataFingerprintSteps, pieceFingerprintSteps, type Sha256Factory } from './dataFingerprint';
+import { isPieceSource, PieceReadError, pieceReadProblem, type PieceSource } from '../data/pieceSource';
 import { CANCELLED_PROBLEM } from './cancelledProblem';
 
 export interface OpenedProject {
@@ -23,8 +24,16 @@ export interface OpenedProject {
   warnings: Problem[];
 }
 
-/** Reads the data file named in the project (a path relative to the project's folder). */
-export type DataFileReader = (relativePath: string) => Promise<Uint8Array>;
+/** Reads the data file named in the project (a path relative to the project's folder): its bytes, or the file opened to be read in pieces (closed once imported). */
+export type DataFileReader = (relativePath: string) => Promise<Uint8Array | OpenDataFile>;
+
+/** A data file the host left open for the import to read in pieces (the command line, for a large log). */
+export interface OpenDataFile extends PieceSource {
+  close(): Promise<void>;
+}
+
+/** What an import reads: the bytes (kept by the caller, or handed over) or a file read in pieces. */
+export type DataSource = Uint8Array | HandedBytes | PieceSource;
 
 /** What a host may give a paced import: a stop request, polled between blocks of records, and the pacer awaited there. */
 export interface ImportHooks {
@@ -39,16 +48,21 @@ export async function openProject(projectText: string, projectFileName: string, 
   const loaded = parseProjectText(projectText, projectFileName);
   if (!loaded.ok) return loaded;
   const project = loaded.value.document;
-  let handed: HandedBytes; // handed over: the import lets go of the file's bytes after its read pass
+  let data: Uint8Array | OpenDataFile;
   try {
-    handed = { bytes: await readDataFile(project.data.path) };
+    data = await readDataFile(project.data.path);
   } catch (e) {
     return failure({
       where: `${projectFileName}, data.path`,
       message: `cannot read the data file "${project.data.path}" (${(e as Error).message}); it may have moved: point the project to its new location`,
     });
   }
-  return importProjectDataPaced(project, handed, hooks);
+  if (!isPieceSource(data)) return importProjectDataPaced(project, { bytes: data }, hooks); // handed over: the import lets go of the bytes after its read pass
+  try {
+    return await importProjectDataPaced(project, data, hooks);
+  } finally {
+    await data.close();
+  }
 }
 
 /** Import already-read data bytes for a project, checking them against the saved fingerprint. */
@@ -61,7 +75,7 @@ export function importProjectData(project: ProjectDocument, bytes: Uint8Array | 
  * (Ctrl+C, a message to the worker) is heard during the import; then it ends with the one
  * "cancelled" problem (CANCELLED_PROBLEM) and keeps nothing.
  */
-export async function importProjectDataPaced(project: ProjectDocument, bytes: Uint8Array | HandedBytes, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
+export async function importProjectDataPaced(project: ProjectDocument, bytes: DataSource, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
   const pace = hooks.pace ?? createPacer(PACE_INTERVAL_MS);
   try {
     return await runStepsPaced(importSteps(project, bytes, hooks.sha256), async () => {
@@ -74,8 +88,11 @@ export async function importProjectDataPaced(project: ProjectDocument, bytes: Ui
   }
 }
 
-function* importSteps(project: ProjectDocument, bytes: Uint8Array | HandedBytes, sha256?: Sha256Factory): PassSteps<Result<OpenedProject>> {
-  const fingerprint = yield* dataFingerprintSteps(bytes instanceof Uint8Array ? bytes : bytes.bytes ?? new Uint8Array(0), sha256);
+function* importSteps(project: ProjectDocument, bytes: DataSource, sha256?: Sha256Factory): PassSteps<Result<OpenedProject>> {
+  const fingerprint = yield* fingerprintSteps(bytes, sha256);
+  if (fingerprint instanceof PieceReadError) {
+    return failure(pieceReadProblem(project.data.path, fingerprint));
+  }
   const imported = yield* importDatasetSteps(bytes, project.data.path, project.data.csv, project.columns);
   if (!imported.ok) return imported;
   const warnings: Problem[] = [...imported.warnings];
@@ -88,4 +105,16 @@ function* importSteps(project: ProjectDocument, bytes: Uint8Array | HandedBytes,
     });
   }
   return success({ project, dataset: imported.value.transitions, imported: imported.value, fingerprint, warnings });
+}
+
+/** The data's SHA-256; a file read in pieces may fail to read to its end (then the error, as a value). */
+function* fingerprintSteps(bytes: DataSource, sha256?: Sha256Factory): PassSteps<string | PieceReadError> {
+  if (bytes instanceof Uint8Array) return yield* dataFingerprintSteps(bytes, sha256);
+  if (!isPieceSource(bytes)) return yield* dataFingerprintSteps(bytes.bytes ?? new Uint8Array(0), sha256);
+  try {
+    return yield* pieceFingerprintSteps(bytes, sha256);
+  } catch (e) {
+    if (e instanceof PieceReadError) return e;
+    throw e;
+  }
 }

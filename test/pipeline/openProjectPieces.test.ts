@@ -1,0 +1,69 @@
+/**
+ * openProject with a data file the host left open to be read in pieces (the command line's route
+ * for a large log, pipeline/openProject.ts OpenDataFile) gives what the same bytes read whole give:
+ * the same fingerprint (checked against Node's own SHA-256), transitions and import report, and the
+ * file is closed after the import, also when the file ends early ('file-changed') or a stop request ends it.
+ * The log is the tank-levels sample's written three times over (run labels made distinct per copy),
+ * over 2 MiB, so its records are read through the window (data/csvTable.ts).
+ */
+import { createHash } from 'node:crypto';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { CANCELLED_PROBLEM } from '../../src/pipeline/cancelledProblem';
+import { openProject, type OpenDataFile } from '../../src/pipeline/openProject';
+
+const sample = join(__dirname, '..', '..', 'sample-projects', 'tank-levels');
+const [header, ...rows] = readFileSync(join(sample, 'tank-levels.csv'), 'utf8').trimEnd().split('\n');
+const bytes = new TextEncoder().encode(`${header}\n${[1, 2, 3].map((k) => rows.map((row) => `${k}-${row}`).join('\n')).join('\n')}\n`);
+const document = JSON.parse(readFileSync(join(sample, 'tank-levels.spcritic'), 'utf8'));
+const projectText = JSON.stringify({ ...document, data: { ...document.data, path: 'long-log.csv', sha256: undefined, rowCount: undefined } });
+
+function openFile(length = bytes.length): OpenDataFile & { closed: number } {
+  const file = {
+    byteLength: length, closed: 0,
+    read: (into: Uint8Array, offset: number, count: number, position: number) => {
+      const n = Math.max(0, Math.min(count, 1 << 20, bytes.length - position));
+      into.set(bytes.subarray(position, position + n), offset);
+      return n;
+    },
+    close: async () => { file.closed++; },
+  };
+  return file;
+}
+
+describe('openProject on a data file read in pieces', () => {
+  it('fingerprint, transitions and report as when the file is read whole; the file is closed', async () => {
+    expect(bytes.length).toBeGreaterThan(2 * 1024 * 1024 + 4096);
+    const file = openFile();
+    const pieces = await openProject(projectText, 'long-log.spcritic', async () => file);
+    const whole = await openProject(projectText, 'long-log.spcritic', async () => bytes.slice());
+    if (!pieces.ok || !whole.ok) throw new Error('the log should open');
+    expect(file.closed).toBe(1);
+    expect(pieces.value.fingerprint).toBe(createHash('sha256').update(bytes).digest('hex'));
+    expect(pieces.value.fingerprint).toBe(whole.value.fingerprint);
+    expect(pieces.value.imported.rowCount).toBe(3 * rows.length);
+    expect(pieces.value.dataset).toEqual(whole.value.dataset);
+    expect(pieces.value.imported.episodeReport).toEqual(whole.value.imported.episodeReport);
+    expect(pieces.value.imported.summary).toEqual(whole.value.imported.summary);
+    expect(pieces.value.warnings).toEqual(whole.value.warnings);
+  });
+
+  it('a stop request during the pieces ends the import as cancelled, within a few yields, and closes the file', async () => {
+    const file = openFile();
+    let paces = 0;
+    const opened = await openProject(projectText, 'long-log.spcritic', async () => file, { cancel: () => paces >= 3, pace: async () => { paces++; } });
+    expect(opened.ok).toBe(false);
+    if (!opened.ok) expect(opened.problems).toEqual([CANCELLED_PROBLEM]);
+    expect(paces).toBe(3);
+    expect(file.closed).toBe(1);
+  });
+
+  it('a file that ends before its length is refused naming the data path, and still closed', async () => {
+    const file = openFile(bytes.length + 10);
+    const opened = await openProject(projectText, 'long-log.spcritic', async () => file);
+    expect(opened.ok).toBe(false);
+    if (!opened.ok) expect(opened.problems[0]).toMatchObject({ kind: 'file-changed', where: 'long-log.csv' });
+    expect(file.closed).toBe(1);
+  });
+});
