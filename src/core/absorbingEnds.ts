@@ -2,8 +2,13 @@
  * Runs that really end: transitions into an absorbing state (terminal = 1 in a TransitionSet — the
  * batch is done, the unit is shut down — after which nothing more is paid; V = 0 there). Where a log
  * holds any, a run's discounted return stops at a random step T ≥ 1 instead of going on forever,
- * which changes what a value can be (diagnostics/possibleValues.ts) and what a model of the plant's
- * next state must simulate (a model without the end would keep paying past it).
+ * which changes what a value can be (diagnostics/possibleValues.ts), what a model of the plant's
+ * next state must simulate (a model without the end would keep paying past it), and how importance
+ * weights may be normalised: weighted per-decision importance sampling normalises step t over the
+ * runs that reach it, which estimates E_π[r_t | the run still going] and drops the factor
+ * P_π(still going at t) — the runs that ended pay 0 from there and must stay in the normaliser
+ * (Thomas & Brunskill, ICML 2016, treat runs of unequal length by padding them with an absorbing
+ * state). The per-decision checks do not do that yet, so they are not used on such a log.
  */
 
 /** Transitions whose next state is absorbing. terminal: n, 0/1. */
@@ -13,8 +18,17 @@ export function absorbingEndCount(terminal: Uint8Array): number {
   return count;
 }
 
+/** Why the per-decision importance-sampling checks are not used on a log whose runs end (count ≥ 1 such transitions). */
+export function absorbingEndsWeightingReason(count: number): string {
+  return `${endsText(count)} in an end state (the end-of-run column), and these checks weight each step over the runs still going, ` +
+    'which leaves out the runs that ended (they pay nothing from there): on such a log they would be biased, so they are not used';
+}
+
+function endsText(count: number): string {
+  return count === 1 ? '1 logged transition ends its run' : `${count.toLocaleString('en-US')} logged transitions end their run`;
+}
+
 /** Why a model of the next state alone does not apply to a log whose runs end (count ≥ 1 such transitions). */
 export function absorbingEndsReason(count: number): string {
-  const ends = count === 1 ? '1 logged transition ends its run' : `${count.toLocaleString('en-US')} logged transitions end their run`;
-  return `${ends} in an end state (the end-of-run column), and this model of the plant simulates the next state only, not where a run ends: its runs would go on paying past the end`;
+  return `${endsText(count)} in an end state (the end-of-run column), and this model of the plant simulates the next state only, not where a run ends: its runs would go on paying past the end`;
 }

@@ -9,7 +9,7 @@ import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/fu
 import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
-import { absorbingEndCount } from '../core/absorbingEnds';
+import { absorbingEndCount, absorbingEndsWeightingReason } from '../core/absorbingEnds';
 import { intervalOutsidePossible, outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
@@ -103,8 +103,10 @@ function checksOf(
 function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, modelReason: string | null) {
   const { plan } = inputs.context, discount = plan.discount;
   const values = { importanceSampling: null as number | null, doublyRobust: null as number | null, model: null as number | null };
-  let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? null : work.offPolicy.reason;
-  if ('perDecision' in work.offPolicy) {
+  // On a log whose runs end the per-step weighting is biased (../core/absorbingEnds.ts): the checks are not used; the weights' diagnostics still are.
+  const absorbed = absorbingEndCount(plan.data.terminal);
+  let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? (absorbed > 0 ? absorbingEndsWeightingReason(absorbed) : null) : work.offPolicy.reason;
+  if ('perDecision' in work.offPolicy && offPolicyReason === null) {
     try {
       const estimates = perDecisionEstimates(work.offPolicy.perDecision, discount);
       values.importanceSampling = estimates.importanceSampling;

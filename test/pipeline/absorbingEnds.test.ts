@@ -4,7 +4,8 @@
  * each step with probability p, J = −1/(1 − γ(1 − p)) (the geometric series with ratio γ(1 − p);
  * common practice), while the same one-step dynamics without the end give −1/(1 − γ). Both model
  * checks (the one-step model's rollouts and the linear-quadratic closed form) then say why they do
- * not apply instead of contradicting a right estimate.
+ * not apply instead of contradicting a right estimate; so do the per-decision importance-sampling
+ * checks, whose per-step weighting over the runs still going leaves out the runs that ended.
  */
 import { describe, expect, it } from 'vitest';
 import { absorbingEndCount } from '../../src/core/absorbingEnds';
@@ -13,7 +14,9 @@ import { createRandom } from '../../src/core/random';
 import type { TransitionSet } from '../../src/core/transitions';
 import type { AssessmentContext } from '../../src/pipeline/assessCandidate';
 import { checkLinearQuadraticModel } from '../../src/pipeline/assessModelCheck';
+import { assessProject } from '../../src/pipeline/assessProject';
 import { openRolloutSimulations } from '../../src/pipeline/assessRollouts';
+import { projectSchema } from '../../src/project/schema';
 import type { AssessmentSettings } from '../../src/pipeline/assessSettings';
 
 const settings = { seed: 1, resamples: 10 } as AssessmentSettings;
@@ -76,4 +79,28 @@ describe('model checks on a log whose runs end', () => {
     expect(checkLinearQuadraticModel(data, index).summary).not.toMatch(/end state/);
     expect(rollouts({ plan: { data, episodes: index, discount: 0.9 } } as unknown as AssessmentContext)).toBe('opened');
   });
+
+  it('leaves out every cross-check in a whole assessment, each saying why, and the estimate is unconfirmed', async () => {
+    const dataset = endingChain(300, 0.05, 8);
+    const project = projectSchema.parse({
+      format: 'setpoint-critic-project', version: 1, name: 'ending chain', data: { path: 'none.csv' },
+      columns: { states: [{ column: 'level' }], actions: [{ column: 'valve' }], reward: { kind: 'column', column: 'r', sense: 'reward' } },
+      discount: 0.9, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } },
+      candidates: [{ name: 'steady', offset: [0], gain: [[-0.1]], std: [0.1] }],
+    });
+    const result = await assessProject({ project, dataset, settings: { resamples: 50, level: 0.9, seed: 2, sensitivity: false } });
+    if (!result.ok) throw new Error(result.problems.map((p) => p.message).join('\n'));
+    const [candidate] = result.value.candidates;
+    for (const method of ['weightedImportanceSampling', 'weightedDoublyRobust']) {
+      expect(candidate.crossChecks.find((c) => c.method === method)).toMatchObject({ agreement: 'notApplicable', note: expect.stringMatching(/weight each step over the runs still going/) });
+    }
+    for (const method of ['modelRollouts', 'linearQuadraticModel']) {
+      expect(candidate.crossChecks.find((c) => c.method === method)).toMatchObject({ agreement: 'notApplicable', note: expect.stringMatching(/end state/) });
+    }
+    expect(candidate.confirmation.status).toBe('unconfirmed');
+    // The fit itself stops at the end states: every run pays −1 per step until it ends, J = −1/(1 − γ(1 − p)) (the geometric series),
+    // within the estimate's own sampling error (the share of steps that end is itself estimated from about 6,000 logged steps).
+    const truth = -1 / (1 - 0.9 * 0.95), { value, standardError } = candidate.policyValue;
+    expect(Math.abs(value - truth)).toBeLessThan(3 * standardError!);
+  }, 120_000);
 });
