@@ -53,7 +53,7 @@ export interface AssemblyInputs {
 
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
   const { context, works, replicates, settings } = inputs, sign = context.plan.sign;
-  const { data } = context.plan, possible = possibleValues(data.rewards, context.plan.discount, absorbingEndCount(data.terminal) > 0);
+  const { data } = context.plan, runsEnd = absorbingEndCount(data.terminal) > 0, possible = possibleValues(data.rewards, context.plan.discount, runsEnd);
   return works.map((work, j) => {
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];
@@ -61,7 +61,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
     const classes = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
     const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights, classes ? classes.settled : null);
     const warnings = [
-      ...coverageWarnings(diagnostics),
+      ...coverageWarnings(diagnostics, !runsEnd),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
       ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes) }] : []),
       ...networkDisagreement(work),

@@ -97,7 +97,8 @@ describe('model checks on a log whose runs end', () => {
     for (const method of ['modelRollouts', 'linearQuadraticModel']) {
       expect(candidate.crossChecks.find((c) => c.method === method)).toMatchObject({ agreement: 'notApplicable', note: expect.stringMatching(/end state/) });
     }
-    expect(candidate.confirmation.status).toBe('unconfirmed');
+    expect(candidate.confirmation).toMatchObject({ status: 'unconfirmed', text: expect.stringMatching(/no cross-check applies here/) });
+    expect(candidate.warnings.every((w) => !/cross-checks rest on/.test(w.message))).toBe(true);
     // The fit itself stops at the end states: every run pays −1 per step until it ends, J = −1/(1 − γ(1 − p)) (the geometric series),
     // within the estimate's own sampling error (the share of steps that end is itself estimated from about 6,000 logged steps).
     const truth = -1 / (1 - 0.9 * 0.95), { value, standardError } = candidate.policyValue;

@@ -99,5 +99,6 @@ export function confirmationOf(verdicts: readonly CheckVerdict[], classesSettled
     };
   }
   if (support.length) return { status: 'confirmed', text: `Confirmed by ${names(support)}, which rest${support.length === 1 ? 's' : ''} on assumptions other than the fitted Q.` };
+  if (verdicts.length === 0) return { status: 'unconfirmed', text: 'Nothing in the logs can confirm this estimate: no cross-check applies here (each says why), so it rests on the fitted Q alone.' };
   return { status: 'unconfirmed', text: 'Nothing in the logs can confirm this estimate: every cross-check is uninformative here, so it rests on the fitted Q alone.' };
 }

@@ -42,7 +42,8 @@ describe('confirmationOf', () => {
     const agree = crossCheckVerdict(base), disagree = crossCheckVerdict({ ...base, difference: 10 }), none = crossCheckVerdict({ ...base, shareOutsideLogs: 0.5 });
     expect(confirmationOf([agree, disagree]).status).toBe('contradicted');
     expect(confirmationOf([agree, none])).toEqual({ status: 'confirmed', text: 'Confirmed by model rollouts, which rests on assumptions other than the fitted Q.' });
-    expect(confirmationOf([none, none]).text).toMatch(/^Nothing in the logs can confirm this estimate/);
+    expect(confirmationOf([none, none]).text).toMatch(/^Nothing in the logs can confirm this estimate: every cross-check is uninformative/);
+    expect(confirmationOf([])).toEqual({ status: 'unconfirmed', text: expect.stringMatching(/no cross-check applies here/) });
   });
 
   it('does not let checks on a fitted plant model alone confirm where the function classes disagree', () => {
