@@ -105,13 +105,19 @@ function gatherStates(data: TransitionSet, rows: Int32Array): Float64Array {
   return out;
 }
 
-/** The k reference transitions nearest to the query state, kept sorted by distance (insertion). */
-function nearestNeighbours(
-  data: TransitionSet, reference: Int32Array, scale: Float64Array, query: Float64Array, nearest: Int32Array, distance: Float64Array,
+/**
+ * The k reference transitions nearest to the query state, kept sorted by squared distance
+ * (insertion); those of run `skipRun` are passed over (−1: none). Fewer than k found leave
+ * distance Infinity at the end.
+ */
+export function nearestNeighbours(
+  data: Pick<TransitionSet, 'stateDim' | 'states' | 'episode'>, reference: Int32Array, scale: Float64Array, query: ArrayLike<number>,
+  nearest: Int32Array, distance: Float64Array, skipRun = -1,
 ): void {
   const ds = data.stateDim, k = nearest.length, s = data.states;
   distance.fill(Infinity);
   for (const r of reference) {
+    if (skipRun >= 0 && data.episode[r] === skipRun) continue;
     let d2 = 0;
     for (let c = 0; c < ds; c++) d2 += ((s[r * ds + c] - query[c]) / scale[c]) ** 2;
     if (d2 >= distance[k - 1]) continue;

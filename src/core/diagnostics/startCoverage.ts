@@ -19,7 +19,7 @@
  * Shapes: starts count×ds row-major.
  */
 import type { TransitionSet } from '../transitions';
-import { DEFAULT_ACTION_SUPPORT, evenlySpaced, stateScales } from './actionSupport';
+import { DEFAULT_ACTION_SUPPORT, evenlySpaced, nearestNeighbours, stateScales } from './actionSupport';
 
 export interface StartCoverageOptions {
   readonly neighbours: number; // k
@@ -45,33 +45,21 @@ type LoggedStates = Pick<TransitionSet, 'count' | 'stateDim' | 'states' | 'episo
 export function startCoverage(data: LoggedStates, starts: Float64Array, options: StartCoverageOptions = DEFAULT_START_COVERAGE): StartCoverage {
   const ds = data.stateDim, count = starts.length / ds, scale = stateScales(data);
   const reference = evenlySpaced(data.count, options.referenceStates), k = Math.min(options.neighbours, reference.length);
+  const nearest = new Int32Array(k), distance = new Float64Array(k);
+  /** Distance to the k-th nearest reference state not in run `skipRun` (−1: none skipped); Infinity when fewer than k remain. */
+  const kthDistance = (query: ArrayLike<number>, skipRun: number): number => {
+    nearestNeighbours(data, reference, scale, query, nearest, distance, skipRun);
+    return Math.sqrt(distance[k - 1]);
+  };
   let yardstick = 0;
   for (const i of evenlySpaced(data.count, options.calibrationStates)) {
-    yardstick = Math.max(yardstick, kthDistance(data, reference, scale, data.states.subarray(i * ds, (i + 1) * ds), k, data.episode[i]));
+    yardstick = Math.max(yardstick, kthDistance(data.states.subarray(i * ds, (i + 1) * ds), data.episode[i]));
   }
   let outside = 0, largestScore = 0;
   for (let s = 0; s < count; s++) {
-    const score = kthDistance(data, reference, scale, starts.subarray(s * ds, (s + 1) * ds), k, -1);
+    const score = kthDistance(starts.subarray(s * ds, (s + 1) * ds), -1);
     largestScore = Math.max(largestScore, score);
     if (score > yardstick) outside++;
   }
   return { starts: count, outside, yardstick, largestScore };
-}
-
-/** Distance to the k-th nearest reference state not in run `skipRun` (−1: none skipped); Infinity when fewer than k remain. */
-function kthDistance(data: LoggedStates, reference: Int32Array, scale: Float64Array, query: ArrayLike<number>, k: number, skipRun: number): number {
-  const ds = data.stateDim, s = data.states, nearest = new Float64Array(k).fill(Infinity);
-  for (const r of reference) {
-    if (data.episode[r] === skipRun) continue;
-    let d2 = 0;
-    for (let c = 0; c < ds; c++) d2 += ((s[r * ds + c] - query[c]) / scale[c]) ** 2;
-    if (d2 >= nearest[k - 1]) continue;
-    let p = k - 1;
-    while (p > 0 && nearest[p - 1] > d2) {
-      nearest[p] = nearest[p - 1];
-      p--;
-    }
-    nearest[p] = d2;
-  }
-  return Math.sqrt(nearest[k - 1]);
 }
