@@ -25,6 +25,7 @@ import type { RandomSource } from '../../../src/core/random';
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
+import { valveLaw } from './valveLaw';
 
 /** Chance of a feed upset per step, its scale and its largest size. */
 export const UPSET_RATE = 0.002, UPSET_SCALE = 0.25, UPSET_LIMIT = 1.5;
@@ -53,9 +54,9 @@ export const surgeDrumDynamics: PlantDynamics = {
   },
 };
 
-/** u = 0.5 + K·(x − x_set) + F·d, clipped to [0, 1]. */
+/** u = 0.5 + K·(x − x_set) + F·d, clipped to [0, 1]: the valve law with the gain's sign turned (the outlet opens as the level rises; valveLaw.ts). */
 export function outletCommand(k: number, levelSetpoint: number, feedforward: number, std: number) {
-  return { offset: [0.5 - k * levelSetpoint], gain: [[k, feedforward]], std: [std], bounds: { lo: [0], hi: [1], mode: 'clip' as const } };
+  return valveLaw({ bias: 0.5, setpoint: levelSetpoint, gain: -k, feedforward, std, clipped: true });
 }
 
 export function surgeDrumPlant(): BatteryPlant {

@@ -1,5 +1,6 @@
 /**
- * The controller the valve hold-out plants share (level loop, steam exchanger, neutralisation tank):
+ * The controller the valve hold-out plants share (level loop, steam exchanger, neutralisation tank,
+ * surge drum; a negative K for a valve that acts with the measured variable, as the drum's outlet):
  * proportional on the measured variable s₀ around its setpoint plus feedforward of a measured
  * disturbance s₁,
  *   valve = bias + K·(setpoint − s₀) + F·s₁,
