@@ -9,7 +9,7 @@ import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/fu
 import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
-import { absorbingEndCount, absorbingEndsWeightingReason } from '../core/absorbingEnds';
+import { absorbingEndsWeightingReason } from '../core/absorbingEnds';
 import { intervalOutsidePossible, outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
@@ -53,7 +53,7 @@ export interface AssemblyInputs {
 
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
   const { context, works, replicates, settings } = inputs, sign = context.plan.sign;
-  const { data } = context.plan, runsEnd = absorbingEndCount(data.terminal) > 0, possible = possibleValues(data.rewards, context.plan.discount, runsEnd);
+  const { data, absorbingEnds } = context.plan, runsEnd = absorbingEnds > 0, possible = possibleValues(data.rewards, context.plan.discount, runsEnd);
   return works.map((work, j) => {
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];
@@ -104,8 +104,7 @@ function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, modelR
   const { plan } = inputs.context, discount = plan.discount;
   const values = { importanceSampling: null as number | null, doublyRobust: null as number | null, model: null as number | null };
   // On a log whose runs end the per-step weighting is biased (../core/absorbingEnds.ts): the checks are not used; the weights' diagnostics still are.
-  const absorbed = absorbingEndCount(plan.data.terminal);
-  let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? (absorbed > 0 ? absorbingEndsWeightingReason(absorbed) : null) : work.offPolicy.reason;
+  let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? (plan.absorbingEnds > 0 ? absorbingEndsWeightingReason(plan.absorbingEnds) : null) : work.offPolicy.reason;
   if ('perDecision' in work.offPolicy && offPolicyReason === null) {
     try {
       const estimates = perDecisionEstimates(work.offPolicy.perDecision, discount);

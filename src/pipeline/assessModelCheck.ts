@@ -36,12 +36,12 @@ export interface ModelCheck {
   summary: string;
 }
 
-export function checkLinearQuadraticModel(data: TransitionSet, index: EpisodeIndex): ModelCheck {
+/** ends: the log's transitions into an end state (the plan's count; counted here when not given). */
+export function checkLinearQuadraticModel(data: TransitionSet, index: EpisodeIndex, ends = absorbingEndCount(data.terminal)): ModelCheck {
   const inputs = data.stateDim + data.actionDim;
   if (inputs > MODEL_THRESHOLDS.maxInputs) {
     return { regressions: null, fit: null, fitsData: false, summary: `not formed for ${inputs} states and actions (at most ${MODEL_THRESHOLDS.maxInputs})` };
   }
-  const ends = absorbingEndCount(data.terminal);
   if (ends > 0) return { regressions: null, fit: null, fitsData: false, summary: absorbingEndsReason(ends) };
   let regressions: ModelRegressions, fit: LinearQuadraticModelFit, curvature: number[];
   try {

@@ -107,7 +107,7 @@ async function assessWith(
   progress(run.models.length);
   const baseline = run.presentController ? candidateWork(context, run.presentController) : null;
   const baselineEnds = run.presentController ? finalStateValues(plan, run.presentController) : null;
-  const modelCheck = checkLinearQuadraticModel(data, plan.episodes);
+  const modelCheck = checkLinearQuadraticModel(data, plan.episodes, plan.absorbingEnds);
   const modelReasons = works.map((w) => modelInapplicability(modelCheck, w.model.policy));
   const model = modelCheck.regressions ? {
     regressions: modelCheck.regressions, applicable: modelReasons.map((r) => r === null),

@@ -13,7 +13,7 @@
  * (rolloutValues.ts) need nothing from the fit, so a helper thread may form and run them while the
  * function classes are fitted; rolloutCheck pairs them with the fit's values.
  */
-import { absorbingEndCount, absorbingEndsReason } from '../core/absorbingEnds';
+import { absorbingEndsReason } from '../core/absorbingEnds';
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { monomialCount } from '../core/features/monomials';
 import { throwIfCancelled } from '../core/fqe/cancellation';
@@ -74,8 +74,8 @@ export function rolloutJob(context: AssessmentContext, policies: readonly Gaussi
  * asked for after the loop. None for a log whose runs end in an end state: why, instead.
  */
 export function openRolloutSimulations(context: AssessmentContext, policies: readonly GaussianPolicy[], settings: AssessmentSettings): PerDecisionRoute | { reason: string } {
-  const { plan } = context, ends = absorbingEndCount(plan.data.terminal);
-  if (ends > 0) return { reason: absorbingEndsReason(ends) }; // the model has no end (../core/absorbingEnds.ts)
+  const { plan } = context;
+  if (plan.absorbingEnds > 0) return { reason: absorbingEndsReason(plan.absorbingEnds) }; // the model has no end (../core/absorbingEnds.ts)
   return openPerDecisionRoute([], { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: 0 }, context.helper,
     { model: null, rollouts: () => rolloutJob(context, policies, settings) });
 }

@@ -14,7 +14,6 @@
  * A network project's map uses the degree-2 polynomial features (a grid of network fits would cost
  * one training per point), and says so.
  */
-import { absorbingEndCount } from '../core/absorbingEnds';
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicateBlock } from '../core/bootstrap/linearFqeReplicate';
 import { occupancyShift } from '../core/diagnostics/occupancyShift';
@@ -118,7 +117,7 @@ function runRetuneMap(
   const level = plan.project.bootstrap?.level ?? CONFIDENCE_LEVEL.default;
   // The same resamples at every point (seed, b), drawn once; each point's replicates are taken a block at a time (linearFqeReplicateBlock).
   const resamples = withIntervals ? Array.from({ length: MAP_RESAMPLES }, (_, b) => episodeMultiplicities(e, plan.seed, b)) : [];
-  const points: RetuneMapPoint[] = [], possible = possibleValues(data.rewards, plan.discount, absorbingEndCount(data.terminal) > 0);
+  const points: RetuneMapPoint[] = [], possible = possibleValues(data.rewards, plan.discount, plan.absorbingEnds > 0);
   retuneGrid({
     data, features, policies, discount: plan.discount, ridge: settings.ridge, quadratureNodes: plan.quadratureNodes,
     tolerance: settings.tolerance, maxIterations: settings.maxIterations, startStates: plan.starts.states,

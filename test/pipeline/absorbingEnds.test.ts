@@ -68,7 +68,7 @@ describe('model checks on a log whose runs end', () => {
     const lq = checkLinearQuadraticModel(data, index);
     expect(lq.fitsData).toBe(false);
     expect(lq.summary).toMatch(/end their run in an end state/);
-    const model = rollouts({ plan: { data, episodes: index, discount } } as unknown as AssessmentContext);
+    const model = rollouts({ plan: { data, episodes: index, discount, absorbingEnds: ends } } as unknown as AssessmentContext);
     expect(model !== 'opened' && model.reason).toMatch(/simulates the next state only, not where a run ends/);
   });
 
@@ -77,7 +77,7 @@ describe('model checks on a log whose runs end', () => {
     expect(absorbingEndCount(data.terminal)).toBe(0);
     const index = indexEpisodes(data);
     expect(checkLinearQuadraticModel(data, index).summary).not.toMatch(/end state/);
-    expect(rollouts({ plan: { data, episodes: index, discount: 0.9 } } as unknown as AssessmentContext)).toBe('opened');
+    expect(rollouts({ plan: { data, episodes: index, discount: 0.9, absorbingEnds: 0 } } as unknown as AssessmentContext)).toBe('opened');
   });
 
   it('leaves out every cross-check in a whole assessment, each saying why, and the estimate is unconfirmed', async () => {

@@ -5,6 +5,7 @@
  * runs or is refused here with the field named. Nothing after the plan re-reads the document's
  * settings or re-derives what the plan holds.
  */
+import { absorbingEndCount } from '../../core/absorbingEnds';
 import { indexEpisodes, type EpisodeIndex } from '../../core/bootstrap/episodeTransitions';
 import type { FeatureMap } from '../../core/features/featureMap';
 import { loggedDiscountedReturn, type LoggedReturn } from '../../core/loggedReturn';
@@ -38,6 +39,8 @@ export interface EvaluationPlan {
   /** The linear approximator's feature map, built once from the data for every candidate; null for a network. */
   readonly features: FeatureMap | null;
   readonly surface: SurfaceGrid | null;
+  /** Transitions into an end state (terminal 1): where there are any, runs end, which changes the possible values and which cross-checks apply (../../core/absorbingEnds.ts). */
+  readonly absorbingEnds: number;
   /** The logs' own discounted return per episode at the project's discount (what the plant did). */
   readonly loggedReturn: LoggedReturn;
   /** Things the user should know that do not stop the evaluation (few transitions per feature, constant columns…). */
@@ -55,7 +58,7 @@ export function planEvaluation(project: ProjectDocument, data: TransitionSet): R
   return success({
     project, data, episodes: indexEpisodes(data), discount: project.discount, quadratureNodes: project.quadratureNodes, seed: project.seed,
     sense, sign: sense === 'cost' ? -1 : 1, starts: starts.value, candidates: policies.value, presentController: planPresentController(data, project.quadratureNodes), approximator: project.approximator,
-    features: features.value, surface: surfaceGridFor(project, data), loggedReturn: loggedDiscountedReturn(data, project.discount), warnings: [...features.warnings, ...dataWarnings(data)],
+    features: features.value, surface: surfaceGridFor(project, data), absorbingEnds: absorbingEndCount(data.terminal), loggedReturn: loggedDiscountedReturn(data, project.discount), warnings: [...features.warnings, ...dataWarnings(data)],
   });
 }
 
