@@ -4,11 +4,10 @@
  * holds any, a run's discounted return stops at a random step T ≥ 1 instead of going on forever,
  * which changes what a value can be (diagnostics/possibleValues.ts), what a model of the plant's
  * next state must simulate (a model without the end would keep paying past it), and how importance
- * weights may be normalised: weighted per-decision importance sampling normalises step t over the
- * runs that reach it, which estimates E_π[r_t | the run still going] and drops the factor
- * P_π(still going at t) — the runs that ended pay 0 from there and must stay in the normaliser
- * (Thomas & Brunskill, ICML 2016, treat runs of unequal length by padding them with an absorbing
- * state). The per-decision checks do not do that yet, so they are not used on such a log.
+ * weights are normalised: weighted per-decision importance sampling normalises step t over the
+ * runs present at t, and a run that ended pays 0 from there and must stay among them, else the
+ * estimate is E_π[r_t | the run still going] without the factor P_π(still going at t); such runs
+ * are padded with the absorbing state (Thomas & Brunskill, ICML 2016; offPolicy/importanceWeights.ts).
  */
 
 /** Transitions whose next state is absorbing. terminal: n, 0/1. */
@@ -16,12 +15,6 @@ export function absorbingEndCount(terminal: Uint8Array): number {
   let count = 0;
   for (let i = 0; i < terminal.length; i++) if (terminal[i] !== 0) count++;
   return count;
-}
-
-/** Why the per-decision importance-sampling checks are not used on a log whose runs end (count ≥ 1 such transitions). */
-export function absorbingEndsWeightingReason(count: number): string {
-  return `${endsText(count)} in an end state (the end-of-run column), and these checks weight each step over the runs still going, ` +
-    'which leaves out the runs that ended (they pay nothing from there): on such a log they would be biased, so they are not used';
 }
 
 function endsText(count: number): string {

@@ -9,7 +9,6 @@ import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/fu
 import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
-import { absorbingEndsWeightingReason } from '../core/absorbingEnds';
 import { intervalOutsidePossible, outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
@@ -61,7 +60,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
     const classes = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
     const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights, classes ? classes.settled : null);
     const warnings = [
-      ...coverageWarnings(diagnostics, !runsEnd),
+      ...coverageWarnings(diagnostics),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
       ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes) }] : []),
       ...networkDisagreement(work),
@@ -103,9 +102,8 @@ function checksOf(
 function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, modelReason: string | null) {
   const { plan } = inputs.context, discount = plan.discount;
   const values = { importanceSampling: null as number | null, doublyRobust: null as number | null, model: null as number | null };
-  // On a log whose runs end the per-step weighting is biased (../core/absorbingEnds.ts): the checks are not used; the weights' diagnostics still are.
-  let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? (plan.absorbingEnds > 0 ? absorbingEndsWeightingReason(plan.absorbingEnds) : null) : work.offPolicy.reason;
-  if ('perDecision' in work.offPolicy && offPolicyReason === null) {
+  let offPolicyReason: string | null = 'perDecision' in work.offPolicy ? null : work.offPolicy.reason;
+  if ('perDecision' in work.offPolicy) {
     try {
       const estimates = perDecisionEstimates(work.offPolicy.perDecision, discount);
       values.importanceSampling = estimates.importanceSampling;

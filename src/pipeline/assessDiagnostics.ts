@@ -109,11 +109,10 @@ function actionSupport(policy: GaussianPolicy, ranges: LoggedActionRanges, behav
 }
 
 /** The findings of the severity rule (src/core/diagnostics/severity.ts), one text per rule. */
-/** weightingChecksUsed: whether the importance-sampling cross-checks are used on this log (not where runs end in an end state). */
-export function coverageWarnings(d: CoverageDiagnostics, weightingChecksUsed = true): AssessmentWarning[] {
+export function coverageWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
   const findings = [
     d.occupancyShift === null ? null : occupancyShiftFinding(d.occupancyShift, d.presentControllerShift),
-    d.importanceWeights ? effectiveShareFinding(d.importanceWeights.horizonEffectiveEpisodes, d.importanceWeights.horizonEpisodes, d.importanceWeights.horizonSteps, weightingChecksUsed) : null,
+    d.importanceWeights ? effectiveShareFinding(d.importanceWeights.horizonEffectiveEpisodes, d.importanceWeights.horizonEpisodes, d.importanceWeights.horizonSteps) : null,
     actionSupportFinding(d.actionSupport.meanOutside, d.actionSupport.neighbours, d.actionSupport.behaviourMeanOutside),
   ];
   return findings.filter((f): f is AssessmentWarning => f !== null);

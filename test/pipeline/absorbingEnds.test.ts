@@ -4,8 +4,9 @@
  * each step with probability p, J = −1/(1 − γ(1 − p)) (the geometric series with ratio γ(1 − p);
  * common practice), while the same one-step dynamics without the end give −1/(1 − γ). Both model
  * checks (the one-step model's rollouts and the linear-quadratic closed form) then say why they do
- * not apply instead of contradicting a right estimate; so do the per-decision importance-sampling
- * checks, whose per-step weighting over the runs still going leaves out the runs that ended.
+ * not apply instead of contradicting a right estimate. The per-decision importance-sampling checks
+ * keep the runs that ended in each step's normaliser (padded with the absorbing state; Thomas &
+ * Brunskill, ICML 2016) and hold the closed form within their standard errors.
  */
 import { describe, expect, it } from 'vitest';
 import { absorbingEndCount } from '../../src/core/absorbingEnds';
@@ -80,7 +81,7 @@ describe('model checks on a log whose runs end', () => {
     expect(rollouts({ plan: { data, episodes: index, discount: 0.9, absorbingEnds: 0 } } as unknown as AssessmentContext)).toBe('opened');
   });
 
-  it('leaves out every cross-check in a whole assessment, each saying why, and the estimate is unconfirmed', async () => {
+  it('leaves out both model checks in a whole assessment, each saying why, and the importance-sampling checks hold the closed form', async () => {
     const dataset = endingChain(300, 0.05, 8);
     const project = projectSchema.parse({
       format: 'setpoint-critic-project', version: 1, name: 'ending chain', data: { path: 'none.csv' },
@@ -90,18 +91,18 @@ describe('model checks on a log whose runs end', () => {
     });
     const result = await assessProject({ project, dataset, settings: { resamples: 50, level: 0.9, seed: 2, sensitivity: false } });
     if (!result.ok) throw new Error(result.problems.map((p) => p.message).join('\n'));
-    const [candidate] = result.value.candidates;
-    for (const method of ['weightedImportanceSampling', 'weightedDoublyRobust']) {
-      expect(candidate.crossChecks.find((c) => c.method === method)).toMatchObject({ agreement: 'notApplicable', note: expect.stringMatching(/weight each step over the runs still going/) });
-    }
+    const [candidate] = result.value.candidates, truth = -1 / (1 - 0.9 * 0.95);
     for (const method of ['modelRollouts', 'linearQuadraticModel']) {
       expect(candidate.crossChecks.find((c) => c.method === method)).toMatchObject({ agreement: 'notApplicable', note: expect.stringMatching(/end state/) });
     }
-    expect(candidate.confirmation).toMatchObject({ status: 'unconfirmed', text: expect.stringMatching(/no cross-check applies here/) });
-    expect(candidate.warnings.every((w) => !/cross-checks rest on/.test(w.message))).toBe(true);
+    for (const method of ['weightedImportanceSampling', 'weightedDoublyRobust']) {
+      const check = candidate.crossChecks.find((c) => c.method === method)!;
+      expect(check.agreement).not.toBe('notApplicable');
+      expect(Math.abs(check.estimate!.value - truth)).toBeLessThan(3 * check.estimate!.standardError!);
+    }
     // The fit itself stops at the end states: every run pays −1 per step until it ends, J = −1/(1 − γ(1 − p)) (the geometric series),
     // within the estimate's own sampling error (the share of steps that end is itself estimated from about 6,000 logged steps).
-    const truth = -1 / (1 - 0.9 * 0.95), { value, standardError } = candidate.policyValue;
+    const { value, standardError } = candidate.policyValue;
     expect(Math.abs(value - truth)).toBeLessThan(3 * standardError!);
   }, 120_000);
 });

@@ -110,15 +110,14 @@ export function effectiveShareRuleText(): string {
     `caution below ${percent(caution)}, serious below ${percent(serious)} (a common rule of thumb).`;
 }
 
-/** checksUsed: false where the importance-sampling cross-checks are not used on the log (../absorbingEnds.ts), so the words do not lean on them. */
-export function effectiveShareFinding(effectiveEpisodes: number, episodes: number, step: number, checksUsed = true): SeverityFinding | null {
+export function effectiveShareFinding(effectiveEpisodes: number, episodes: number, step: number): SeverityFinding | null {
   const severity = episodes > 0 ? severityBelow(effectiveEpisodes / episodes, EFFECTIVE_SHARE_LIMITS) : null;
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
     message: `Importance weights at step ${step}: effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} runs ` +
       `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): ` +
-      (checksUsed ? 'the importance-sampling cross-checks rest on a few runs.' : 'reweighted to the candidate, the logs weigh as a few runs there (the importance-sampling cross-checks are not used on this log).'),
+      'the importance-sampling cross-checks rest on a few runs.',
   };
 }
 

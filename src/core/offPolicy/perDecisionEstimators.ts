@@ -29,7 +29,16 @@
  *          keeps its last term (the recursive form of Jiang & Li 2016, with V̂ past the horizon).
  *   WPDIS: γ^H Σ_k w̄_{k,H−1} V̂(s_{k,H}) over the episodes that end on a time limit at the longest
  *          length H (steps before H are already covered by the episodes that reach them).
- * Episodes that end in a terminal state get no tail. With tails neither estimate is free of the
+ * Episodes that end in a terminal state get no tail.
+ *
+ * Runs that end in an absorbing state (terminal = 1) are padded with it (Thomas & Brunskill 2016
+ * treat runs of unequal length so): from its length T_k on, run k pays 0, has Q̂ = V̂ = 0 and keeps
+ * its last weight W_{k,T_k−1} (ρ = 1 there), so it stays in every later step's normaliser. Leaving
+ * it out, as for a time limit, would estimate E_π[r_t | the run still going] and drop the factor
+ * P_π(still going at t). Per step that adds A_t = Σ_{T_k ≤ t} c_k W_{k,T_k−1} to the weight sums at
+ * t and A′_t (the same runs on step t − 1's scale) to the sums before the decision and to the
+ * WPDIS tail's normaliser: A′_t = A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1}, A_t = carry_t · A′_t
+ * (importanceWeights.ts). On a log without such runs A = A′ = 0 and the sums are unchanged. With tails neither estimate is free of the
  * fitted value any more: their agreement with FQE is then partly agreement with itself, in
  * proportion to the tail's weight (report γ^H beside them).
  */
@@ -62,6 +71,12 @@ export interface PerDecisionData {
   readonly endEpisode: Int32Array; // one per time-limited episode
   readonly endWeight: Float64Array; // W_{k,T−1} scaled as at step T−1
   readonly endValue: Float64Array; // V̂(s_{k,T})
+  /** Runs absorbed at their length T (1 … H), grouped by T: at absorbedOffsets[T] … absorbedOffsets[T+1]. */
+  readonly absorbedOffsets: Int32Array; // H+2
+  readonly absorbedEpisode: Int32Array; // one per absorbed run
+  readonly absorbedWeight: Float64Array; // W_{k,T−1} scaled as at step T−1
+  /** importanceWeights.ts carry: step t − 1's scale over step t's. */
+  readonly carry: Float64Array; // H+1
 }
 
 /** What the tails need per episode, in data episode order (e each). */
@@ -100,31 +115,39 @@ export function perDecisionData(
     horizon, episodes: index.episodes, stepOffsets, episode,
     scaled: gather(table.scaled), scaledBefore: gather(table.scaledBefore), rewards: gather(table.rewards),
     actionValues: values && gather(values.actionValues), stateValues: values && gather(values.stateValues),
-    ...episodeEndGroups(table, tails),
+    ...episodeEndGroups(table, tails), ...absorbedGroups(table),
   };
+}
+
+/** The runs of `table` for which `member` holds, grouped by length T: offsets (H+2) and runs. */
+function runsByLength(table: ImportanceWeightTable, member: (k: number, length: number) => boolean): { offsets: Int32Array; runs: Int32Array } {
+  const { index, horizon } = table, e = index.episodes, length = (k: number) => index.offsets[k + 1] - index.offsets[k];
+  const offsets = new Int32Array(horizon + 2);
+  for (let k = 0; k < e; k++) if (member(k, length(k))) offsets[length(k) + 1]++;
+  for (let t = 0; t <= horizon; t++) offsets[t + 1] += offsets[t];
+  const next = offsets.slice(0, horizon + 1), runs = new Int32Array(offsets[horizon + 1]);
+  for (let k = 0; k < e; k++) if (member(k, length(k))) runs[next[length(k)]++] = k;
+  return { offsets, runs };
+}
+
+/** Absorbed runs grouped by length, with their last scaled weight; the table's carry. */
+function absorbedGroups(table: ImportanceWeightTable) {
+  const { offsets, runs } = runsByLength(table, (k, length) => table.absorbed[k] !== 0 && length > 0);
+  const absorbedWeight = Float64Array.from(runs, (k) => table.scaled[table.index.offsets[k + 1] - 1]);
+  return { absorbedOffsets: offsets, absorbedEpisode: runs, absorbedWeight, carry: table.carry };
 }
 
 /** Time-limited episodes grouped by length, with their last scaled weight and V̂(s_T). */
 function episodeEndGroups(table: ImportanceWeightTable, tails: EpisodeTails | undefined) {
-  const { index, horizon } = table, e = index.episodes;
+  const { index } = table, e = index.episodes;
   if (tails && (tails.finalStateValues.length !== e || tails.tailWeights.length !== e)) {
     throw new ImportanceSamplingError(`tails: expected one final value and one tail weight per episode (${e}), got ${tails.finalStateValues.length} and ${tails.tailWeights.length}`);
   }
-  const length = (k: number) => index.offsets[k + 1] - index.offsets[k];
-  const ends = (k: number) => tails !== undefined && tails.tailWeights[k] !== 0 && length(k) > 0;
-  const endOffsets = new Int32Array(horizon + 2);
-  for (let k = 0; k < e; k++) if (ends(k)) endOffsets[length(k) + 1]++;
-  for (let t = 0; t <= horizon; t++) endOffsets[t + 1] += endOffsets[t];
-  const size = endOffsets[horizon + 1], next = endOffsets.slice(0, horizon + 1);
-  const endEpisode = new Int32Array(size), endWeight = new Float64Array(size), endValue = new Float64Array(size);
-  for (let k = 0; k < e; k++) {
-    if (!ends(k)) continue;
-    const j = next[length(k)]++;
-    endEpisode[j] = k;
-    endWeight[j] = table.scaled[index.offsets[k + 1] - 1];
-    endValue[j] = tails!.finalStateValues[k];
-    if (!Number.isFinite(endValue[j])) throw new ImportanceSamplingError(`tails: the final state value of episode ${k + 1} is not a finite number`);
-  }
+  const { offsets: endOffsets, runs: endEpisode } = runsByLength(table, (k, length) => tails !== undefined && tails.tailWeights[k] !== 0 && length > 0);
+  const endWeight = Float64Array.from(endEpisode, (k) => table.scaled[index.offsets[k + 1] - 1]);
+  const endValue = Float64Array.from(endEpisode, (k) => tails!.finalStateValues[k]);
+  const bad = endValue.findIndex((v) => !Number.isFinite(v));
+  if (bad >= 0) throw new ImportanceSamplingError(`tails: the final state value of episode ${endEpisode[bad] + 1} is not a finite number`);
   return { endOffsets, endEpisode, endWeight, endValue };
 }
 
@@ -145,7 +168,7 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
   const zeros = data.actionValues && data.stateValues ? null : new Float64Array(data.scaled.length);
   const q = data.actionValues ?? zeros!, v = data.stateValues ?? zeros!;
   const { stepOffsets, episode, scaled, scaledBefore, rewards, endOffsets, endEpisode, endWeight, endValue } = data;
-  let is = 0, correction = 0, tail = 0, discountPower = 1;
+  let is = 0, correction = 0, tail = 0, discountPower = 1, absorbedAt = 0;
   for (let t = 0; t <= data.horizon; t++, discountPower *= discount) {
     let reached = 0, weight = 0, weightBefore = 0, reward = 0, action = 0, state = 0, ending = 0, endingValue = 0;
     const end = t < data.horizon ? stepOffsets[t + 1] : 0;
@@ -163,13 +186,24 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
       ending += before;
       endingValue += before * endValue[j];
     }
+    const absorbedBefore = absorbedAt + absorbedJoining(data, c, t); // A′_t, then A_t: the padded runs (value 0)
+    absorbedAt = absorbedBefore * data.carry[t];
+    weight += absorbedAt;
+    weightBefore += absorbedBefore;
     if (reached > 0 && !(weight > 0 && weightBefore > 0)) {
       throw new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run: the candidate gives the logged actions no probability`);
     }
     if (reached > 0) is += (discountPower * reward) / weight;
     if (reached > 0) correction -= (discountPower * action) / weight;
     if (weightBefore + ending > 0) correction += (discountPower * (state + endingValue)) / (weightBefore + ending);
-    if (t === data.horizon && ending > 0) tail = (discountPower * endingValue) / ending;
+    if (t === data.horizon && ending > 0) tail = (discountPower * endingValue) / (weightBefore + ending);
   }
   return { importanceSampling: is + tail, doublyRobust: zeros ? null : is + correction, importanceSamplingTail: tail };
+}
+
+/** Σ c_k W_{k,t−1} over the runs absorbed at length t (step t − 1's scale): 0 on most steps. */
+function absorbedJoining(data: PerDecisionData, c: Float64Array, t: number): number {
+  let sum = 0;
+  for (let j = data.absorbedOffsets[t]; j < data.absorbedOffsets[t + 1]; j++) sum += c[data.absorbedEpisode[j]] * data.absorbedWeight[j];
+  return sum;
 }

@@ -56,6 +56,7 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
   const reached = lanes.map((c) => reachedCounts(entries, c));
   const running: Running[] = Array.from({ length: count }, () => ({ is: 0, correction: 0, tail: 0, failure: null }));
   const sums = new Float64Array(groups * LANES * FIELDS), before = new Float64Array(groups * LANES), pair = new Float64Array(2 * LANES);
+  const absorbedAt = new Float64Array(groups * LANES); // A_t per resample (perDecisionEstimators.ts)
   for (let g = 0; g < groups; g++) for (let l = 0; l < LANES; l++) before[g * LANES + l] = reached[g][l]; // W_{i,−1} = 1
   let discountPower = 1;
   for (let t = 0; t <= horizon; t++, discountPower *= discount) {
@@ -68,6 +69,7 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
       weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES), pair);
       valueSums(entries, lanes[g], t, s, pair);
       endingSums(entries, lanes[g], t, s);
+      absorbedSums(entries, lanes[g], t, s, absorbedAt.subarray(g * LANES, (g + 1) * LANES));
     }
     for (let b = 0; b < count; b++) finishStep(running[b], sums.subarray(b * FIELDS, (b + 1) * FIELDS), t, horizon, discountPower);
   }
@@ -158,6 +160,23 @@ function endingSums(entries: ResampleEntries, c: Float64Array, t: number, s: Flo
   }
 }
 
+/**
+ * The absorbed runs' weights added to step t's sums, as perDecisionEstimates adds them: A′_t =
+ * A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1} to the sums before the decision, A_t = carry_t · A′_t to the
+ * weight sums; `held` carries A per lane from step to step.
+ */
+function absorbedSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, held: Float64Array): void {
+  const { absorbedOffsets, absorbedWeight, carry } = entries.data;
+  for (let l = 0; l < LANES; l++) {
+    let joining = 0;
+    for (let j = absorbedOffsets[t]; j < absorbedOffsets[t + 1]; j++) joining += c[entries.absorbedRank[j] * LANES + l] * absorbedWeight[j];
+    const absorbedBefore = held[l] + joining;
+    held[l] = absorbedBefore * carry[t];
+    s[l * FIELDS + WEIGHT] += held[l];
+    s[l * FIELDS + BEFORE] += absorbedBefore;
+  }
+}
+
 /** The step's contribution, exactly as perDecisionEstimates adds it. s: one resample's FIELDS. */
 function finishStep(r: Running, s: Float64Array, t: number, horizon: number, discountPower: number): void {
   if (r.failure) return;
@@ -169,5 +188,5 @@ function finishStep(r: Running, s: Float64Array, t: number, horizon: number, dis
   if (reached > 0) r.is += (discountPower * s[REWARD]) / weight;
   if (reached > 0) r.correction -= (discountPower * s[ACTION]) / weight;
   if (weightBefore + ending > 0) r.correction += (discountPower * (s[STATE] + s[ENDING_VALUE])) / (weightBefore + ending);
-  if (t === horizon && ending > 0) r.tail = (discountPower * s[ENDING_VALUE]) / ending;
+  if (t === horizon && ending > 0) r.tail = (discountPower * s[ENDING_VALUE]) / (weightBefore + ending);
 }

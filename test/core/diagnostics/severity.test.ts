@@ -37,10 +37,6 @@ describe('severity', () => {
     expect(effectiveShareFinding(2, 300, 33)).toMatchObject({ severity: 'serious', topic: 'importanceWeights' });
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20\.0 of 300 runs \(below 10 %\)/);
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/the importance-sampling cross-checks rest on a few runs/);
-    // Where those checks are not used (a log whose runs end), the same level, in words that do not lean on them.
-    const unused = effectiveShareFinding(20, 300, 33, false)!;
-    expect(unused.severity).toBe('caution');
-    expect(unused.message).toMatch(/not used on this log/);
     expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the logged controller itself: 2\.0 %\)/);
   });
 });
