@@ -85,8 +85,12 @@ function shiftUpper(context: AssessmentContext, model: CandidateModel): number |
 function weightDiagnostics(table: ImportanceWeightTable, discount: number): ImportanceWeightDiagnostics {
   const oneStep = effectiveSampleSizeFromLogs(table.logRatio);
   const horizonSteps = Math.max(1, Math.min(table.horizon, Math.round(1 / (1 - discount))));
-  const atHorizon: number[] = [];
+  const atHorizon: number[] = [], { offsets } = table.index;
   for (let p = 0; p < table.step.length; p++) if (table.step[p] === horizonSteps - 1) atHorizon.push(table.logWeight[p]);
+  // Runs absorbed in an end state before that step are still present there with their last weight (padded; core/offPolicy/importanceWeights.ts).
+  for (let k = 0; k < table.absorbed.length; k++) {
+    if (table.absorbed[k] && offsets[k + 1] - offsets[k] < horizonSteps) atHorizon.push(table.logWeight[offsets[k + 1] - 1]);
+  }
   return {
     oneStepEffectiveSize: oneStep, oneStepShare: oneStep / table.step.length,
     horizonSteps, horizonEffectiveEpisodes: effectiveSampleSizeFromLogs(atHorizon), horizonEpisodes: atHorizon.length,

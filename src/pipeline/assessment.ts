@@ -51,7 +51,7 @@ export interface ImportanceWeightDiagnostics {
   /** Kish ESS of the one-step ratios ρ over all transitions, and as a share of them. */
   oneStepEffectiveSize: number;
   oneStepShare: number;
-  /** Step H = round(1/(1 − γ)) (the effective horizon) and the ESS of the cumulative weights there, over the episodes reaching it. */
+  /** Step H = round(1/(1 − γ)) (the effective horizon) and the ESS of the cumulative weights there, over the episodes reaching it and those that ended in an end state before it (with their last weight). */
   horizonSteps: number;
   horizonEffectiveEpisodes: number;
   horizonEpisodes: number;
