@@ -3,7 +3,8 @@
  * project) on the same CSV, pair by pair in one run: the peer's whole script (load, features, fit,
  * closed form, grid) against Setpoint Critic's whole `evaluate` (import, fit, surface, and the
  * assessment with the default 1,000 bootstrap resamples, cross-checks, diagnostics, sensitivity),
- * both as fresh processes, wall clock. The CSV comes from the peer's own generator
+ * both as fresh processes, wall clock; ours is the built CLI (out/cli/main.js) when it is there, else
+ * the sources through tsx, and the output says which (bench/builtCli.ts). The CSV comes from the peer's own generator
  * (make_lq_dataset.py, seed 0). Also prints our phases from an in-process run, the assessment with
  * the CLI's helper thread (as `evaluate` runs it) and again on one thread, each with the CPU time of
  * the loop's own (main) thread beside its wall clock — on a shared machine the wall clock of two
@@ -13,6 +14,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { readFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
+import { cliCommand } from './builtCli';
 import { helperThread } from '../src/cli/helperThread';
 import { assessRun } from '../src/pipeline/assessProject';
 import { assessmentSettingsFor } from '../src/pipeline/assessSettings';
@@ -68,14 +70,15 @@ export function peerFiles(n: number): { csv: string; project: string } {
 export async function runPeerBench(n: number, pairs = 2): Promise<Record<string, number | string>> {
   const { csv, project } = peerFiles(n);
   const ours: number[] = [], theirs: number[] = [];
+  const cli = cliCommand('evaluate', project, '--json');
   for (let p = 0; p < pairs; p++) {
     theirs.push(timed('python3', [join(peers, 'fqe_numpy.py'), '--data', join(work, csv)], peers));
-    ours.push(timed(process.execPath, ['--import', 'tsx', join(root, 'src/cli/main.ts'), 'evaluate', project, '--json'], root));
+    ours.push(timed(process.execPath, cli.args, root));
   }
   const phases = await inProcessPhases(project);
   const ratios = ours.map((o, i) => o / theirs[i]);
   return {
-    transitions: n, pairs, 'peer script (s)': theirs.map((t) => t.toFixed(1)).join(', '), 'our evaluate (s)': ours.map((t) => t.toFixed(1)).join(', '),
+    transitions: n, pairs, 'our command line': cli.which, 'peer script (s)': theirs.map((t) => t.toFixed(1)).join(', '), 'our evaluate (s)': ours.map((t) => t.toFixed(1)).join(', '),
     'ratio ours/peer': ratios.map((r) => r.toFixed(2)).join(', '), ...phases,
   };
 }

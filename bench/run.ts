@@ -5,7 +5,8 @@
  *   npm run bench -- linear       only the linear FQE sizes
  *   npm run bench -- bootstrap    only the bootstrap resampling rates
  *   npm run bench -- retune       only the retune map
- *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script
+ *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script (the built CLI when out/cli/main.js is there)
+ *   npm run bench -- cli-start    start-up of the command line: sources through tsx beside the built one (npm run build:cli)
  *   npm run bench -- app-thread   the app's assessment in Chromium with one thread and with its helper worker, 1,000,000 transitions
  *   npm run bench -- growth       slopes of evaluate time in transitions and in quadrature nodes
  *   npm run bench -- radial       the whole evaluate with radial-basis features, d = 343, 100,000 transitions
@@ -51,6 +52,10 @@ const jobs: Job[] = [
   {
     name: 'growth of the whole evaluate in transitions and in quadrature nodes (log–log slopes)', group: 'growth',
     run: async () => (await import('./growthBench')).runGrowthBench(),
+  },
+  {
+    name: 'command-line start-up: sources through tsx beside the built CLI (out/cli/main.js), fresh processes, medians', group: 'cli-start',
+    run: async () => (await import('./cliStartBench')).runCliStartBench(),
   },
   ...[1_000_000].map((n) => ({
     name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',

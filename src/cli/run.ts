@@ -3,19 +3,24 @@
  * in-process with their own terminal. Exit statuses, as the README documents them:
  *   0 success; 1 a problem with the project or its data; 2 wrong usage; 3 a fit did not converge;
  *   130 cancelled with Ctrl+C; 70 an internal error (a bug) — never for any input the program can name.
- *   npm run cli -- evaluate <project.spcritic> [--json] [--resamples N] [--level L]
- *   npm run cli -- report <project.spcritic> [--out report.html] [--resamples N] [--level L]
+ *   setpoint-critic evaluate <project.spcritic> [--json] [--resamples N] [--level L]
+ *   setpoint-critic report <project.spcritic> [--out report.html] [--resamples N] [--level L]
+ *   setpoint-critic --help | --version
+ * (`setpoint-critic` is the built out/cli/main.js, vite.cli.config.ts; `npm run cli --` runs the sources.)
  */
 import { parseArgs } from 'node:util';
 import { runEvaluateCommand } from './evaluateCommand';
 import { runReportCommand } from './reportCommand';
 import { EXIT } from './exitStatus';
 import { processTerminal, type Terminal } from './terminal';
+// The version is the package's (a build inlines this one field).
+import { version } from '../../package.json';
 
 
 const USAGE = `Usage:
-  npm run cli -- evaluate <project.spcritic> [--json] [--resamples N] [--level L]
-  npm run cli -- report <project.spcritic> [--out report.html] [--resamples N] [--level L]
+  setpoint-critic evaluate <project.spcritic> [--json] [--resamples N] [--level L]
+  setpoint-critic report <project.spcritic> [--out report.html] [--resamples N] [--level L]
+  (in a source checkout: npm run build:cli, then node out/cli/main.js …; or npm run cli -- …)
 
 Commands:
   evaluate   fit the action-value function of each candidate policy in the project to the
@@ -31,6 +36,7 @@ Options:
   --resamples <N>   bootstrap resamples of the runs (default: the project's, else 1000)
   --level <L>       confidence level of the intervals (default: the project's, else 0.9)
   --help            show this text
+  --version         show the version
 
 Exit status: 0 success; 1 a problem with the project or its data; 2 wrong usage;
 3 a fit did not converge; 130 cancelled (Ctrl+C); 70 an internal error (please report it).`;
@@ -49,11 +55,15 @@ async function dispatch(argv: string[], terminal: Terminal): Promise<number> {
   try {
     parsed = parseArgs({
       args: argv, allowPositionals: true,
-      options: { json: { type: 'boolean' }, help: { type: 'boolean' }, out: { type: 'string' }, resamples: { type: 'string' }, level: { type: 'string' } },
+      options: { json: { type: 'boolean' }, help: { type: 'boolean' }, version: { type: 'boolean' }, out: { type: 'string' }, resamples: { type: 'string' }, level: { type: 'string' } },
     });
   } catch (e) {
     terminal.err(`${(e as Error).message}\n\n${USAGE}\n`);
     return EXIT.usage;
+  }
+  if (parsed.values.version) {
+    terminal.out(`setpoint-critic ${version}\n`);
+    return EXIT.ok;
   }
   const [command, ...rest] = parsed.positionals;
   if (parsed.values.help || command === undefined) {
