@@ -4,8 +4,10 @@
  *   npm run cli -- evaluate <project.spcritic> [--json] [--resamples N] [--level L]
  *   npm run cli -- report <project.spcritic> [--out report.html] [--resamples N] [--level L]
  */
+import { stopWhenOutputCloses } from './closedOutput';
 import { runCli } from './run';
 
+stopWhenOutputCloses(process.stdout);
 runCli(process.argv.slice(2)).then((code) => {
   process.exitCode = code;
 });

@@ -2,7 +2,7 @@
  * The command line's whole behaviour as one function, so tests (and the fuzz suite) run it
  * in-process with their own terminal. Exit statuses, as the README documents them:
  *   0 success; 1 a problem with the project or its data; 2 wrong usage; 3 a fit did not converge;
- *   130 cancelled with Ctrl+C; 70 an internal error (a bug) — never for any input the program can name.
+ *   130 cancelled with Ctrl+C; 141 the output's reader went away (… | head); 70 an internal error (a bug) — never for any input the program can name.
  *   setpoint-critic evaluate <project.spcritic> [--json] [--resamples N] [--level L]
  *   setpoint-critic report <project.spcritic> [--out report.html] [--resamples N] [--level L]
  *   setpoint-critic --help | --version
@@ -39,7 +39,8 @@ Options:
   --version         show the version
 
 Exit status: 0 success; 1 a problem with the project or its data; 2 wrong usage;
-3 a fit did not converge; 130 cancelled (Ctrl+C); 70 an internal error (please report it).`;
+3 a fit did not converge; 130 cancelled (Ctrl+C); 141 the output was closed (e.g. | head);
+70 an internal error (please report it).`;
 
 export async function runCli(argv: string[], terminal: Terminal = processTerminal): Promise<number> {
   try {

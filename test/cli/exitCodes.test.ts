@@ -3,7 +3,7 @@
  * through runCli, with hostile files: devices, pipes, other people's files as data, --out over an
  * input, and names full of terminal escapes. None of these may hang, crash or echo a file.
  */
-import { execFileSync } from 'node:child_process';
+import { execFileSync, spawn } from 'node:child_process';
 import { copyFile, mkdir, mkdtemp, readFile, rm, symlink, writeFile } from 'node:fs/promises';
 import { tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
@@ -92,6 +92,19 @@ describe('exit statuses', () => {
     expect(run.stdout).toMatch(/spectral-radius estimate of the update 1\.59/);
     expect(run.code).toBe(3);
   });
+
+  it('141: the output closed before it was all written (a reader that stops, as `head` does) ends the run quietly', async () => {
+    // A real process: the reader of its stdout is gone before it writes, so its first write meets EPIPE.
+    const child = spawn(process.execPath, ['--import', 'tsx', 'src/cli/main.ts', 'evaluate', project, '--json', '--resamples', '20'], {
+      cwd: resolve(__dirname, '../..'), stdio: ['ignore', 'pipe', 'pipe'],
+    });
+    child.stdout.destroy();
+    let stderr = '';
+    child.stderr.on('data', (chunk: Buffer) => { stderr += chunk.toString(); });
+    const code = await new Promise<number | null>((done) => child.on('close', done));
+    expect(stderr).not.toMatch(/Error|EPIPE|\n\s+at /);
+    expect(code).toBe(141);
+  }, 120_000);
 
   it('70 is for a bug only: an exception inside the program', async () => {
     const terminal = recordingTerminal();
