@@ -2,8 +2,9 @@
  * Runs that really end: transitions into an absorbing state (terminal = 1 in a TransitionSet — the
  * batch is done, the unit is shut down — after which nothing more is paid; V = 0 there). Where a log
  * holds any, a run's discounted return stops at a random step T ≥ 1 instead of going on forever,
- * which changes what a value can be (diagnostics/possibleValues.ts), what a model of the plant's
- * next state must simulate (a model without the end would keep paying past it), and how importance
+ * which changes what a value can be (diagnostics/possibleValues.ts), what a model of the plant must
+ * simulate (the chance of the end as well as the next state: offPolicy/endChanceModel.ts; the
+ * linear-quadratic closed form has none and does not apply), and how importance
  * weights are normalised: weighted per-decision importance sampling normalises step t over the
  * runs present at t, and a run that ended pays 0 from there and must stay among them, else the
  * estimate is E_π[r_t | the run still going] without the factor P_π(still going at t); such runs
@@ -21,7 +22,7 @@ function endsText(count: number): string {
   return count === 1 ? '1 logged transition ends its run' : `${count.toLocaleString('en-US')} logged transitions end their run`;
 }
 
-/** Why a model of the next state alone does not apply to a log whose runs end (count ≥ 1 such transitions). */
+/** Why the linear-quadratic closed form does not apply to a log whose runs end (count ≥ 1 such transitions). */
 export function absorbingEndsReason(count: number): string {
-  return `${endsText(count)} in an end state (the end-of-run column), and this model of the plant simulates the next state only, not where a run ends: its runs would go on paying past the end`;
+  return `${endsText(count)} in an end state (the end-of-run column), and this closed form is for a plant that goes on, not one whose runs end: it would go on paying past the end`;
 }

@@ -26,7 +26,8 @@ const ASSUMPTIONS: Record<CrossCheckMethod, { label: string; assumption: string 
   },
   modelRollouts: {
     label: 'Rollouts of a fitted plant model',
-    assumption: 'The plant’s next state and the reward are polynomials of the state and action with Gaussian noise, as fitted to the logs by least squares; ' +
+    assumption: 'The plant’s next state and the reward are polynomials of the state and action with Gaussian noise, as fitted to the logs by least squares ' +
+      '(and, where runs end in an end state, the chance of that end a logistic function of the same terms); ' +
       `the candidate is simulated on that model from up to ${ROLLOUT_STARTS} start states. Shares no fit with Q, so it can see an error in it; it extrapolates ` +
       'where the simulated states leave the logged range, and says how often they do.',
   },

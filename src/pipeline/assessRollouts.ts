@@ -13,7 +13,6 @@
  * (rolloutValues.ts) need nothing from the fit, so a helper thread may form and run them while the
  * function classes are fitted; rolloutCheck pairs them with the fit's values.
  */
-import { absorbingEndsReason } from '../core/absorbingEnds';
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { monomialCount } from '../core/features/monomials';
 import { throwIfCancelled } from '../core/fqe/cancellation';
@@ -71,11 +70,11 @@ export function rolloutJob(context: AssessmentContext, policies: readonly Gaussi
  * The model and its simulations for every policy's check, opened before the function classes are
  * fitted: on the host's helper, a thread of their own that forms the model and runs them meanwhile
  * (their work, resampleWork, decides as for the loop's), else on this thread when `rollouts()` is
- * asked for after the loop. None for a log whose runs end in an end state: why, instead.
+ * asked for after the loop. Where the log's runs end in an end state, the model has the chance of
+ * that end too (rolloutValues.ts).
  */
 export function openRolloutSimulations(context: AssessmentContext, policies: readonly GaussianPolicy[], settings: AssessmentSettings): PerDecisionRoute | { reason: string } {
   const { plan } = context;
-  if (plan.absorbingEnds > 0) return { reason: absorbingEndsReason(plan.absorbingEnds) }; // the model has no end (../core/absorbingEnds.ts)
   return openPerDecisionRoute([], { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: 0 }, context.helper,
     { model: null, rollouts: () => rolloutJob(context, policies, settings) });
 }

@@ -6,7 +6,8 @@
  * computes, so a helper thread can run all of it — the model's pass over the data included — while
  * the loop's thread fits the function classes; rolloutCheck then pairs them with the fit's own
  * replicates. A ModelFitError or ModelValueError gives the policy's reason (every policy's, where
- * the model itself cannot be fitted), on either thread; any other error is thrown (a helper thread
+ * the model itself cannot be fitted), on either thread; where the log's runs end in an end state,
+ * the model includes the chance that a step ends its run (endChanceModel.ts), refitted with it; any other error is thrown (a helper thread
  * that meets one stops, and the loop's thread meets it again).
  *
  * What crosses a thread boundary is plain data: the columns the model reads (ModelData, copied:
@@ -17,6 +18,7 @@ import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import type { EpisodeIndex } from '../core/bootstrap/episodeTransitions';
 import { throwIfCancelled, type CancellationCheck } from '../core/fqe/cancellation';
 import { ModelFitError } from '../core/offPolicy/linearQuadraticModel';
+import { endChanceData, fitEndChance, type EndChanceData, type EndChanceFit } from '../core/offPolicy/endChanceModel';
 import { ModelValueError } from '../core/offPolicy/modelBasedValue';
 import { modelRolloutValue, TAIL_WEIGHT, type RolloutSettings, type RolloutValue } from '../core/offPolicy/modelRollouts';
 import {
@@ -55,20 +57,22 @@ export type RolloutValues = { readonly full: RolloutValue; readonly resampled: r
 export function rolloutValues(job: RolloutJob, cancel?: CancellationCheck): RolloutValues[] {
   const model = fullModel(job.source);
   if (model instanceof ModelFitError) return job.policies.map(() => ({ reason: `no one-step model of the plant could be fitted (${model.message})` }));
-  const { regressions, fit: full } = model, refits = new Map<number, PolynomialModelFit | ModelFitError>();
-  const refit = (b: number, c: Uint32Array): PolynomialModelFit => {
+  const { regressions, fit: full, ends } = model, refits = new Map<number, ModelRefit | ModelFitError>();
+  const refit = (b: number, c: Uint32Array): ModelRefit => {
     let fit = refits.get(b);
-    if (!fit) refits.set(b, (fit = fitOrError(regressions, c)));
+    if (!fit) refits.set(b, (fit = refitOrError(regressions, ends, c)));
     if (fit instanceof ModelFitError) throw fit;
     return fit;
   };
   return job.policies.map((policy) => {
     try {
-      const value = modelRolloutValue(full, policy, job.discount, job.startStates, job.rollout), c = new Uint32Array(job.episodes), resampled: number[] = [];
+      const value = modelRolloutValue(full, policy, job.discount, job.startStates, job.rollout, null, ends?.fit);
+      const c = new Uint32Array(job.episodes), resampled: number[] = [];
       for (let b = 0; b < job.resamples; b++) {
         throwIfCancelled(cancel);
         episodeMultiplicities(job.episodes, job.seed, b, c);
-        resampled.push(modelRolloutValue(refit(b, c), policy, job.discount, job.startStates, job.rollout).value);
+        const again = refit(b, c);
+        resampled.push(modelRolloutValue(again.fit, policy, job.discount, job.startStates, job.rollout, null, again.ends).value);
       }
       return { full: value, resampled };
     } catch (error) {
@@ -78,20 +82,33 @@ export function rolloutValues(job: RolloutJob, cancel?: CancellationCheck): Roll
   });
 }
 
-/** The model's regressions (one pass over the data) and its fit on the full data; or why there is none. */
-function fullModel(source: RolloutSource): { regressions: PolynomialModelRegressions; fit: PolynomialModelFit } | ModelFitError {
+/** The end-chance model's data and its fit on the full data, where the log's runs end. */
+interface EndChance {
+  readonly data: EndChanceData;
+  readonly fit: EndChanceFit;
+}
+
+interface ModelRefit {
+  readonly fit: PolynomialModelFit;
+  readonly ends: EndChanceFit | null;
+}
+
+/** The model's regressions (one pass over the data), its fit on the full data and its end chance; or why there is none. */
+function fullModel(source: RolloutSource): { regressions: PolynomialModelRegressions; fit: PolynomialModelFit; ends: EndChance | null } | ModelFitError {
   try {
     const regressions = polynomialModelRegressions(source.data, source.index, source.options);
-    return { regressions, fit: fitPolynomialModel(regressions) };
+    const endData = endChanceData(source.data, source.index, regressions.rewardFeatures);
+    return { regressions, fit: fitPolynomialModel(regressions), ends: endData && { data: endData, fit: fitEndChance(endData) } };
   } catch (error) {
     if (error instanceof ModelFitError) return error;
     throw error;
   }
 }
 
-function fitOrError(regressions: PolynomialModelRegressions, c?: Uint32Array): PolynomialModelFit | ModelFitError {
+/** The model refitted on a resample, its end chance from the full data's (a few Newton steps). */
+function refitOrError(regressions: PolynomialModelRegressions, ends: EndChance | null, c: Uint32Array): ModelRefit | ModelFitError {
   try {
-    return fitPolynomialModel(regressions, c);
+    return { fit: fitPolynomialModel(regressions, c), ends: ends && fitEndChance(ends.data, c, ends.fit.weights) };
   } catch (error) {
     if (error instanceof ModelFitError) return error;
     throw error;

@@ -12,6 +12,10 @@
  * steps at which that box was reached is returned: above a few percent the estimate rests on
  * extrapolated dynamics and cannot confirm anything.
  *
+ * Runs that end: with an end-chance model (endChanceModel.ts) a rollout ends after step t with
+ * probability P(end | s_t, a_t), drawn after the step's noise, and pays nothing more (V = 0 in the end
+ * state); without one (a log with no end state) it goes on to L and draws exactly as before.
+ *
  * Seeded: rollout r of start s uses the stream createRandom(seed + s·R + r), so a bootstrap
  * replicate with the same seed reuses the same random numbers (common random numbers; Glasserman,
  * "Monte Carlo Methods in Financial Engineering", 2003, ch. 4; section from memory) and its spread is the models' spread.
@@ -23,6 +27,7 @@
 import type { GaussianPolicy } from '../policy';
 import { sampleAction } from '../policy';
 import { createRandom } from '../random';
+import { endChance, type EndChanceFit } from './endChanceModel';
 import { ModelValueError } from './modelBasedValue';
 import type { PolynomialModelFit } from './polynomialDynamicsModel';
 
@@ -44,15 +49,18 @@ export interface RolloutValue {
   readonly shareOutsideLogs: number;
 }
 
+/** ends: the chance that a step ends the run (fitted on the reward's features ψ), or null/omitted where runs do not end. */
 export function modelRolloutValue(
-  model: PolynomialModelFit, policy: GaussianPolicy, discount: number, startStates: Float64Array, settings: RolloutSettings, weights?: ArrayLike<number>,
+  model: PolynomialModelFit, policy: GaussianPolicy, discount: number, startStates: Float64Array, settings: RolloutSettings, weights?: ArrayLike<number> | null,
+  ends?: EndChanceFit | null,
 ): RolloutValue {
   const ds = model.regressions.stateDim, e = startStates.length / ds, rolls = settings.rolloutsPerStart;
   if (!(discount > 0 && discount < 1)) throw new ModelValueError(`model rollouts: the discount must lie in (0, 1), got ${discount}`);
   if (!(Number.isInteger(rolls) && rolls >= 2)) throw new ModelValueError(`model rollouts: need at least 2 rollouts per start, got ${rolls}`);
   if (policy.stateDim !== ds || policy.actionDim !== model.regressions.actionDim) throw new ModelValueError('model rollouts: the policy does not match the model’s states and actions');
   const steps = Math.ceil(Math.log(TAIL_WEIGHT) / Math.log(discount));
-  const sim = simulator(model, policy, discount, steps);
+  if (ends && ends.features !== model.regressions.rewardFeatures) throw new ModelValueError('model rollouts: the end chance must be fitted on the reward’s features');
+  const sim = simulator(model, policy, discount, steps, ends ?? null);
   let total = 0, weightSum = 0, variance = 0, outside = 0;
   for (let s = 0; s < e; s++) {
     const c = weights ? weights[s] : 1;
@@ -74,7 +82,7 @@ export function modelRolloutValue(
 }
 
 /** One rollout from a start: its discounted reward sum and its discounted share of held steps. */
-function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: number, steps: number) {
+function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: number, steps: number, ends: EndChanceFit | null) {
   const { regressions: reg, dynamicsWeights: bw, rewardWeights: cw, noiseFactor: l } = model;
   const ds = reg.stateDim, m = reg.actionDim, d = reg.dynamicsFeatures.dim, dr = reg.rewardFeatures.dim;
   const low = reg.stateLow.map((v, c) => v - RANGE_MARGIN * (reg.stateHigh[c] - v));
@@ -103,6 +111,7 @@ function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: 
         input[c] = Math.min(high[c], Math.max(low[c], next));
       }
       if (atBox) held += power;
+      if (ends && rng.uniform() < endChance(ends, psi)) break;
     }
     return { value, held: held * norm };
   };

@@ -1,0 +1,133 @@
+/**
+ * The chance that a step ends its run in an end state (terminal = 1; ../absorbingEnds.ts), for the
+ * one-step model's rollouts (modelRollouts.ts): a logistic regression of the logged end on the
+ * model's quadratic features ψ(s, a) of the standardised state and action,
+ *   P(end | s, a) = σ(βᵀψ(s, a)),   σ(η) = 1/(1 + e^(−η)),
+ * fitted by maximum likelihood with Newton's method (iteratively reweighted least squares; McCullagh &
+ * Nelder, "Generalized Linear Models", 2nd ed., 1989, §4.4), halving a step that does not raise the
+ * penalised log-likelihood. A small ridge (RIDGE per sample, on every coefficient) keeps β finite
+ * where the logs separate ends from non-ends exactly (a batch that ends on a threshold the state
+ * crosses), where the unpenalised maximum lies at infinity; it leaves the chance as sharp as the
+ * data show. A run cut by a time limit logs terminal = 0 and counts as going on, as it did.
+ *
+ * A bootstrap resample refits from the full data's β (a few Newton steps) with each transition
+ * weighted by its episode's multiplicity, so the rollouts' spread includes the end model's.
+ *
+ * Shapes: n transitions; d features; the design X (n×d, row-major) formed once.
+ */
+import type { EpisodeIndex } from '../bootstrap/episodeTransitions';
+import type { FeatureMap } from '../features/featureMap';
+import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
+import { ModelFitError } from './linearQuadraticModel';
+import type { ModelData } from './polynomialDynamicsModel';
+
+/** Ridge per sample on every coefficient (our choice: far below what 10⁴ logged steps determine). */
+const RIDGE = 1e-6;
+/** Newton steps at most; the relative change at which β has converged (ours). */
+const MAX_STEPS = 100;
+const TOLERANCE = 1e-9;
+
+/** The logged ends regressed on ψ(s, a): the design formed once, for the full fit and every refit. */
+export interface EndChanceData {
+  readonly features: FeatureMap;
+  readonly design: Float64Array; // n×d
+  readonly ended: Uint8Array; // n
+  readonly episodeOf: Int32Array; // n: the transition's episode
+}
+
+export interface EndChanceFit {
+  readonly features: FeatureMap;
+  readonly weights: Float64Array; // β, d
+}
+
+/** The regression's data; null where no logged transition ends its run (the model then never ends one). */
+export function endChanceData(data: ModelData, index: EpisodeIndex, features: FeatureMap): EndChanceData | null {
+  const n = data.count, ds = data.stateDim, m = data.actionDim, d = features.dim;
+  if (!data.terminal.some((t) => t !== 0)) return null;
+  const design = new Float64Array(n * d), input = new Float64Array(ds + m), episodeOf = new Int32Array(n);
+  for (let i = 0; i < n; i++) {
+    input.set(data.states.subarray(i * ds, (i + 1) * ds));
+    input.set(data.actions.subarray(i * m, (i + 1) * m), ds);
+    features.evaluate(input, 0, design, i * d);
+  }
+  for (let k = 0; k < index.episodes; k++) for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) episodeOf[index.order[p]] = k;
+  return { features, design, ended: Uint8Array.from(data.terminal, (t) => (t !== 0 ? 1 : 0)), episodeOf };
+}
+
+/** β on the full data (multiplicities omitted) or on a bootstrap resample, from `start` (zeros if omitted). */
+export function fitEndChance(source: EndChanceData, multiplicities?: ArrayLike<number>, start?: Float64Array): EndChanceFit {
+  const d = source.features.dim, n = source.ended.length;
+  const weightOf = (i: number) => (multiplicities ? multiplicities[source.episodeOf[i]] : 1);
+  let total = 0;
+  for (let i = 0; i < n; i++) total += weightOf(i);
+  if (!(total > d)) throw new ModelFitError(`fitting the chance that a run ends needs more than ${d} transitions, got ${total}`);
+  let beta = start ? Float64Array.from(start) : new Float64Array(d), objective = penalisedLikelihood(source, beta, weightOf, total);
+  for (let step = 0; step < MAX_STEPS; step++) {
+    const direction = newtonDirection(source, beta, weightOf, total);
+    let scale = 1, next = beta, value = -Infinity;
+    for (let halving = 0; halving < 40; halving++, scale /= 2) {
+      next = Float64Array.from(beta, (b, j) => b + scale * direction[j]);
+      value = penalisedLikelihood(source, next, weightOf, total);
+      if (value >= objective) break;
+    }
+    const change = Math.max(...next.map((b, j) => Math.abs(b - beta[j]))), size = Math.max(1, ...next.map(Math.abs));
+    beta = next;
+    objective = Math.max(objective, value);
+    if (change <= TOLERANCE * size) return { features: source.features, weights: beta };
+  }
+  throw new ModelFitError(`fitting the chance that a run ends: Newton's method did not settle in ${MAX_STEPS} steps`);
+}
+
+/** σ(βᵀψ) at one (s, a) whose features are ψ (d, from offset). */
+export function endChance(fit: EndChanceFit, psi: ArrayLike<number>, offset = 0): number {
+  let eta = 0;
+  for (let j = 0; j < fit.weights.length; j++) eta += fit.weights[j] * psi[offset + j];
+  return logistic(eta);
+}
+
+function logistic(eta: number): number {
+  return eta >= 0 ? 1 / (1 + Math.exp(-eta)) : Math.exp(eta) / (1 + Math.exp(eta));
+}
+
+/** (1/N) Σ w_i [y_i η_i − log(1 + e^η_i)] − (RIDGE/2)‖β‖², with log(1 + e^η) formed without overflow. */
+function penalisedLikelihood(source: EndChanceData, beta: Float64Array, weightOf: (i: number) => number, total: number): number {
+  const d = beta.length, { design, ended } = source;
+  let sum = 0;
+  for (let i = 0; i < ended.length; i++) {
+    const w = weightOf(i);
+    if (w === 0) continue;
+    let eta = 0;
+    for (let j = 0; j < d; j++) eta += beta[j] * design[i * d + j];
+    const softplus = eta > 0 ? eta + Math.log1p(Math.exp(-eta)) : Math.log1p(Math.exp(eta));
+    sum += w * (ended[i] * eta - softplus);
+  }
+  return sum / total - 0.5 * RIDGE * beta.reduce((s, b) => s + b * b, 0);
+}
+
+/** The Newton step H⁻¹g of the penalised log-likelihood: g = Xᵀ(y − p)/N − λβ, H = XᵀWX/N + λI. */
+function newtonDirection(source: EndChanceData, beta: Float64Array, weightOf: (i: number) => number, total: number): Float64Array {
+  const d = beta.length, { design, ended } = source, hessian = new Float64Array(d * d), gradient = new Float64Array(d);
+  for (let i = 0; i < ended.length; i++) {
+    const w = weightOf(i);
+    if (w === 0) continue;
+    let eta = 0;
+    for (let j = 0; j < d; j++) eta += beta[j] * design[i * d + j];
+    const p = logistic(eta), residual = (w * (ended[i] - p)) / total, curvature = (w * p * (1 - p)) / total;
+    for (let j = 0; j < d; j++) {
+      const xj = design[i * d + j];
+      gradient[j] += residual * xj;
+      for (let k = 0; k <= j; k++) hessian[j * d + k] += curvature * xj * design[i * d + k];
+    }
+  }
+  for (let j = 0; j < d; j++) {
+    gradient[j] -= RIDGE * beta[j];
+    hessian[j * d + j] += RIDGE;
+    for (let k = 0; k < j; k++) hessian[k * d + j] = hessian[j * d + k];
+  }
+  try {
+    return choleskySolve(cholesky(hessian, d), d, gradient);
+  } catch (error) {
+    if (!(error instanceof SingularMatrixError)) throw error;
+    throw new ModelFitError('fitting the chance that a run ends: the curvature is not positive definite (the fit is numerically unreliable)');
+  }
+}
