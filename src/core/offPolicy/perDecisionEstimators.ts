@@ -38,7 +38,21 @@
  * P_π(still going at t). Per step that adds A_t = Σ_{T_k ≤ t} c_k W_{k,T_k−1} to the weight sums at
  * t and A′_t (the same runs on step t − 1's scale) to the sums before the decision and to the
  * WPDIS tail's normaliser: A′_t = A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1}, A_t = carry_t · A′_t
- * (importanceWeights.ts). On a log without such runs A = A′ = 0 and the sums are unchanged. With tails neither estimate is free of the
+ * (importanceWeights.ts). On a log without such runs A = A′ = 0 and the sums are unchanged.
+ *
+ * Padding alone assumes every run would have been logged to H had it not ended. Where runs are cut by
+ * a time limit before H (the log's end, a left-out window), an ended run's place in later steps' sums
+ * is known only while its own log would have gone on, and padding it regardless over-weights the
+ * ended runs: with S(t) = P_π(still going at t), f(u) = P_π(ends at u) and G(t) the chance that a
+ * run's log is not cut by t, the step-t share of the runs going tends to G(t)S(t)/(G(t)S(t) +
+ * Σ_{u≤t} f(u)G(u−1)) instead of S(t) (too small wherever logs are cut early). The ended runs are
+ * therefore weighted by the chance that their log would still go on (inverse probability of
+ * censoring weighting, Robins & Rotnitzky 1992; the product-limit form of Kaplan & Meier 1958): at
+ * each step the padded sum keeps the share of the runs known to be going there that are not cut there,
+ *   κ_t = L_t / (L_t + K_t),   L_t = Σ_{runs acting at t} c W_{t−1},   K_t = Σ_{T_k = t, cut} c W_{k,t−1},
+ * so A_t = carry_t · κ_t · A′_t, and the state term's normaliser takes A′_t (L_t + E_t)/(L_t + K_t),
+ * E_t the cut runs with a tail (all of them in the pipeline, so the factor is 1 there). With no run cut
+ * before H, κ = 1 and the sums are Thomas & Brunskill's. With tails neither estimate is free of the
  * fitted value any more: their agreement with FQE is then partly agreement with itself, in
  * proportion to the tail's weight (report γ^H beside them).
  */
@@ -77,6 +91,10 @@ export interface PerDecisionData {
   readonly absorbedWeight: Float64Array; // W_{k,T−1} scaled as at step T−1
   /** importanceWeights.ts carry: step t − 1's scale over step t's. */
   readonly carry: Float64Array; // H+1
+  /** Runs cut by a time limit (not absorbed, length ≥ 1, tail or not) grouped by length T: at cutOffsets[T] … cutOffsets[T+1]. */
+  readonly cutOffsets: Int32Array; // H+2
+  readonly cutEpisode: Int32Array; // one per cut run
+  readonly cutWeight: Float64Array; // W_{k,T−1} scaled as at step T−1
 }
 
 /** What the tails need per episode, in data episode order (e each). */
@@ -115,7 +133,7 @@ export function perDecisionData(
     horizon, episodes: index.episodes, stepOffsets, episode,
     scaled: gather(table.scaled), scaledBefore: gather(table.scaledBefore), rewards: gather(table.rewards),
     actionValues: values && gather(values.actionValues), stateValues: values && gather(values.stateValues),
-    ...episodeEndGroups(table, tails), ...absorbedGroups(table),
+    ...episodeEndGroups(table, tails), ...absorbedGroups(table), ...cutGroups(table),
   };
 }
 
@@ -135,6 +153,13 @@ function absorbedGroups(table: ImportanceWeightTable) {
   const { offsets, runs } = runsByLength(table, (k, length) => table.absorbed[k] !== 0 && length > 0);
   const absorbedWeight = Float64Array.from(runs, (k) => table.scaled[table.index.offsets[k + 1] - 1]);
   return { absorbedOffsets: offsets, absorbedEpisode: runs, absorbedWeight, carry: table.carry };
+}
+
+/** Runs cut by a time limit grouped by length, with their last scaled weight (whether or not they carry a tail). */
+function cutGroups(table: ImportanceWeightTable) {
+  const { offsets, runs } = runsByLength(table, (k, length) => table.absorbed[k] === 0 && length > 0);
+  const cutWeight = Float64Array.from(runs, (k) => table.scaled[table.index.offsets[k + 1] - 1]);
+  return { cutOffsets: offsets, cutEpisode: runs, cutWeight };
 }
 
 /** Time-limited episodes grouped by length, with their last scaled weight and V̂(s_T). */
@@ -169,6 +194,7 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
   const q = data.actionValues ?? zeros!, v = data.stateValues ?? zeros!;
   const { stepOffsets, episode, scaled, scaledBefore, rewards, endOffsets, endEpisode, endWeight, endValue } = data;
   let is = 0, correction = 0, tail = 0, discountPower = 1, absorbedAt = 0;
+  const padded = new Float64Array(2);
   for (let t = 0; t <= data.horizon; t++, discountPower *= discount) {
     let reached = 0, weight = 0, weightBefore = 0, reward = 0, action = 0, state = 0, ending = 0, endingValue = 0;
     const end = t < data.horizon ? stepOffsets[t + 1] : 0;
@@ -186,13 +212,12 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
       ending += before;
       endingValue += before * endValue[j];
     }
-    const absorbedBefore = absorbedAt + absorbedJoining(data, c, t); // A′_t, then A_t: the padded runs (value 0)
-    absorbedAt = absorbedBefore * data.carry[t];
+    if (reached > 0 && !(weight > 0 && weightBefore > 0)) throw zeroWeights(t); // on the runs still going: the padded ones pay nothing
+    const absorbedBefore = absorbedAt + groupSum(data.absorbedOffsets, data.absorbedEpisode, data.absorbedWeight, c, t); // A′_t
+    paddedWeights(absorbedBefore, weightBefore, groupSum(data.cutOffsets, data.cutEpisode, data.cutWeight, c, t), ending, data.carry[t], padded);
+    absorbedAt = padded[1];
     weight += absorbedAt;
-    weightBefore += absorbedBefore;
-    if (reached > 0 && !(weight > 0 && weightBefore > 0)) {
-      throw new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run: the candidate gives the logged actions no probability`);
-    }
+    weightBefore += padded[0];
     if (reached > 0) is += (discountPower * reward) / weight;
     if (reached > 0) correction -= (discountPower * action) / weight;
     if (weightBefore + ending > 0) correction += (discountPower * (state + endingValue)) / (weightBefore + ending);
@@ -201,9 +226,25 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
   return { importanceSampling: is + tail, doublyRobust: zeros ? null : is + correction, importanceSamplingTail: tail };
 }
 
-/** Σ c_k W_{k,t−1} over the runs absorbed at length t (step t − 1's scale): 0 on most steps. */
-function absorbedJoining(data: PerDecisionData, c: Float64Array, t: number): number {
+export function zeroWeights(t: number): ImportanceSamplingError {
+  return new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run still going: the candidate gives the logged actions no probability`);
+}
+
+/** Σ c_k W_{k,t−1} over group t of runs grouped by length (absorbed or cut runs, step t − 1's scale): 0 on most steps. */
+function groupSum(offsets: Int32Array, runs: Int32Array, weights: Float64Array, c: Float64Array, t: number): number {
   let sum = 0;
-  for (let j = data.absorbedOffsets[t]; j < data.absorbedOffsets[t + 1]; j++) sum += c[data.absorbedEpisode[j]] * data.absorbedWeight[j];
+  for (let j = offsets[t]; j < offsets[t + 1]; j++) sum += c[runs[j]] * weights[j];
   return sum;
+}
+
+/**
+ * The padded runs' weight at step t (see the header): out[0] = A′_t (L_t + E_t)/(L_t + K_t) for the
+ * sums before the decision, out[1] = A_t = carry_t · A′_t · L_t/(L_t + K_t) for the sums at t.
+ * absorbedBefore: A′_t; liveBefore: L_t; cutting: K_t; ending: E_t (E_t ≤ K_t). x/x is exactly 1, so
+ * with no run cut at t the sums are bit for bit those of plain padding.
+ */
+export function paddedWeights(absorbedBefore: number, liveBefore: number, cutting: number, ending: number, carry: number, out: Float64Array): void {
+  const known = liveBefore + cutting;
+  out[0] = known > 0 ? absorbedBefore * ((liveBefore + ending) / known) : absorbedBefore;
+  out[1] = (known > 0 ? absorbedBefore * (liveBefore / known) : absorbedBefore) * carry;
 }
