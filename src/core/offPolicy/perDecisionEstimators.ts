@@ -37,8 +37,9 @@
  * it out, as for a time limit, would estimate E_π[r_t | the run still going] and drop the factor
  * P_π(still going at t). Per step that adds A_t = Σ_{T_k ≤ t} c_k W_{k,T_k−1} to the weight sums at
  * t and A′_t (the same runs on step t − 1's scale) to the sums before the decision and to the
- * WPDIS tail's normaliser: A′_t = A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1}, A_t = carry_t · A′_t
- * (importanceWeights.ts). On a log without such runs A = A′ = 0 and the sums are unchanged.
+ * WPDIS tail's normaliser: A′_t = A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1}, A_t = A′_t, each carried on
+ * the absorbed runs' own scale and brought to the step's (importanceWeights.ts). On a log without such
+ * runs A = A′ = 0 and the sums are unchanged.
  *
  * Padding alone assumes every run would have been logged to H had it not ended. Where runs are cut by
  * a time limit before H (the log's end, a left-out window), an ended run's place in later steps' sums
@@ -50,7 +51,7 @@
  * censoring weighting, Robins & Rotnitzky 1992; the product-limit form of Kaplan & Meier 1958): at
  * each step the padded sum keeps the share of the runs known to be going there that are not cut there,
  *   κ_t = L_t / (L_t + K_t),   L_t = Σ_{runs acting at t} c W_{t−1},   K_t = Σ_{T_k = t, cut} c W_{k,t−1},
- * so A_t = carry_t · κ_t · A′_t, and the state term's normaliser takes A′_t (L_t + E_t)/(L_t + K_t),
+ * so A_t = κ_t · A′_t (each on its step's scale), and the state term's normaliser takes A′_t (L_t + E_t)/(L_t + K_t),
  * E_t the cut runs with a tail (all of them in the pipeline, so the factor is 1 there). With no run cut
  * before H, κ = 1 and the sums are Thomas & Brunskill's. With tails neither estimate is free of the
  * fitted value any more: their agreement with FQE is then partly agreement with itself, in
@@ -88,9 +89,12 @@ export interface PerDecisionData {
   /** Runs absorbed at their length T (1 … H), grouped by T: at absorbedOffsets[T] … absorbedOffsets[T+1]. */
   readonly absorbedOffsets: Int32Array; // H+2
   readonly absorbedEpisode: Int32Array; // one per absorbed run
-  readonly absorbedWeight: Float64Array; // W_{k,T−1} scaled as at step T−1
-  /** importanceWeights.ts carry: step t − 1's scale over step t's. */
-  readonly carry: Float64Array; // H+1
+  readonly absorbedWeight: Float64Array; // W_{k,T−1} / e^{R_T} (importanceWeights.ts absorbedLargest)
+  /** importanceWeights.ts: R_{t−1} to R_t, R_t to step t − 1's scale and to step t's; where some run going at t has a weight. */
+  readonly heldCarry: Float64Array; // H+1
+  readonly absorbedToBefore: Float64Array; // H+1
+  readonly absorbedToStep: Float64Array; // H+1
+  readonly liveWeighted: Uint8Array; // H
   /** Runs cut by a time limit (not absorbed, length ≥ 1, tail or not) grouped by length T: at cutOffsets[T] … cutOffsets[T+1]. */
   readonly cutOffsets: Int32Array; // H+2
   readonly cutEpisode: Int32Array; // one per cut run
@@ -148,11 +152,12 @@ function runsByLength(table: ImportanceWeightTable, member: (k: number, length: 
   return { offsets, runs };
 }
 
-/** Absorbed runs grouped by length, with their last scaled weight; the table's carry. */
+/** Absorbed runs grouped by length T, with their last weight on the absorbed runs' scale R_T; the table's scales. */
 function absorbedGroups(table: ImportanceWeightTable) {
   const { offsets, runs } = runsByLength(table, (k, length) => table.absorbed[k] !== 0 && length > 0);
-  const absorbedWeight = Float64Array.from(runs, (k) => table.scaled[table.index.offsets[k + 1] - 1]);
-  return { absorbedOffsets: offsets, absorbedEpisode: runs, absorbedWeight, carry: table.carry };
+  const { index, logWeight, absorbedLargest, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted } = table;
+  const absorbedWeight = Float64Array.from(runs, (k) => Math.exp(logWeight[index.offsets[k + 1] - 1] - absorbedLargest[index.offsets[k + 1] - index.offsets[k]]));
+  return { absorbedOffsets: offsets, absorbedEpisode: runs, absorbedWeight, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted };
 }
 
 /** Runs cut by a time limit grouped by length, with their last scaled weight (whether or not they carry a tail). */
@@ -194,7 +199,7 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
   const q = data.actionValues ?? zeros!, v = data.stateValues ?? zeros!;
   const { stepOffsets, episode, scaled, scaledBefore, rewards, endOffsets, endEpisode, endWeight, endValue } = data;
   let is = 0, correction = 0, tail = 0, discountPower = 1, absorbedAt = 0;
-  const padded = new Float64Array(2);
+  const padded = new Float64Array(3);
   for (let t = 0; t <= data.horizon; t++, discountPower *= discount) {
     let reached = 0, weight = 0, weightBefore = 0, reward = 0, action = 0, state = 0, ending = 0, endingValue = 0;
     const end = t < data.horizon ? stepOffsets[t + 1] : 0;
@@ -212,11 +217,11 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
       ending += before;
       endingValue += before * endValue[j];
     }
-    if (reached > 0 && !(weight > 0 && weightBefore > 0)) throw zeroWeights(t); // on the runs still going: the padded ones pay nothing
-    const absorbedBefore = absorbedAt + groupSum(data.absorbedOffsets, data.absorbedEpisode, data.absorbedWeight, c, t); // A′_t
-    paddedWeights(absorbedBefore, weightBefore, groupSum(data.cutOffsets, data.cutEpisode, data.cutWeight, c, t), ending, data.carry[t], padded);
-    absorbedAt = padded[1];
-    weight += absorbedAt;
+    const held = absorbedAt * data.heldCarry[t] + groupSum(data.absorbedOffsets, data.absorbedEpisode, data.absorbedWeight, c, t); // A′_t on R_t
+    paddedWeights(held, weightBefore, groupSum(data.cutOffsets, data.cutEpisode, data.cutWeight, c, t), ending, data, t, padded);
+    absorbedAt = padded[2];
+    if (reached > 0 && !(weight > 0 && weightBefore > 0) && (!data.liveWeighted[t] || !(padded[1] > 0 && padded[0] > 0))) throw zeroWeights(t);
+    weight += padded[1];
     weightBefore += padded[0];
     if (reached > 0) is += (discountPower * reward) / weight;
     if (reached > 0) correction -= (discountPower * action) / weight;
@@ -230,7 +235,7 @@ export function zeroWeights(t: number): ImportanceSamplingError {
   return new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run still going: the candidate gives the logged actions no probability`);
 }
 
-/** Σ c_k W_{k,t−1} over group t of runs grouped by length (absorbed or cut runs, step t − 1's scale): 0 on most steps. */
+/** Σ c_k W_{k,t−1} over group t of runs grouped by length (absorbed runs on R_t, cut runs on step t − 1's scale): 0 on most steps. */
 function groupSum(offsets: Int32Array, runs: Int32Array, weights: Float64Array, c: Float64Array, t: number): number {
   let sum = 0;
   for (let j = offsets[t]; j < offsets[t + 1]; j++) sum += c[runs[j]] * weights[j];
@@ -238,13 +243,19 @@ function groupSum(offsets: Int32Array, runs: Int32Array, weights: Float64Array, 
 }
 
 /**
- * The padded runs' weight at step t (see the header): out[0] = A′_t (L_t + E_t)/(L_t + K_t) for the
- * sums before the decision, out[1] = A_t = carry_t · A′_t · L_t/(L_t + K_t) for the sums at t.
- * absorbedBefore: A′_t; liveBefore: L_t; cutting: K_t; ending: E_t (E_t ≤ K_t). x/x is exactly 1, so
- * with no run cut at t the sums are bit for bit those of plain padding.
+ * The padded runs' weight at step t (see the header). held: A′_t on the absorbed runs' own scale R_t
+ * (importanceWeights.ts), so that an ended run too small to show beside the runs going when it ended
+ * still counts once they fall to its level; liveBefore: L_t; cutting: K_t; ending: E_t (E_t ≤ K_t), on
+ * step t − 1's scale. out[0] = A′_t (L_t + E_t)/(L_t + K_t) on step t − 1's scale, for the sums before
+ * the decision; out[1] = A_t = A′_t · L_t/(L_t + K_t) on step t's, for the sums at t; out[2] = A_t on R_t,
+ * carried to the next step. x/x is exactly 1, so with no run cut at t the factors are exactly 1.
  */
-export function paddedWeights(absorbedBefore: number, liveBefore: number, cutting: number, ending: number, carry: number, out: Float64Array): void {
+export function paddedWeights(
+  held: number, liveBefore: number, cutting: number, ending: number,
+  scales: Pick<PerDecisionData, 'absorbedToBefore' | 'absorbedToStep'>, t: number, out: Float64Array,
+): void {
   const known = liveBefore + cutting;
-  out[0] = known > 0 ? absorbedBefore * ((liveBefore + ending) / known) : absorbedBefore;
-  out[1] = (known > 0 ? absorbedBefore * (liveBefore / known) : absorbedBefore) * carry;
+  out[0] = (known > 0 ? held * ((liveBefore + ending) / known) : held) * scales.absorbedToBefore[t];
+  out[2] = known > 0 ? held * (liveBefore / known) : held;
+  out[1] = out[2] * scales.absorbedToStep[t];
 }

@@ -56,7 +56,7 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
   const reached = lanes.map((c) => reachedCounts(entries, c));
   const running: Running[] = Array.from({ length: count }, () => ({ is: 0, correction: 0, tail: 0, failure: null }));
   const sums = new Float64Array(groups * LANES * FIELDS), before = new Float64Array(groups * LANES), pair = new Float64Array(2 * LANES);
-  const absorbedAt = new Float64Array(groups * LANES), padded = new Float64Array(2); // A_t per resample (perDecisionEstimators.ts)
+  const absorbedAt = new Float64Array(groups * LANES), padded = new Float64Array(3); // A_t per resample (perDecisionEstimators.ts)
   for (let g = 0; g < groups; g++) for (let l = 0; l < LANES; l++) before[g * LANES + l] = reached[g][l]; // W_{i,−1} = 1
   let discountPower = 1;
   for (let t = 0; t <= horizon; t++, discountPower *= discount) {
@@ -71,7 +71,7 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
       endingSums(entries, lanes[g], t, s);
       absorbedSums(entries, lanes[g], t, s, absorbedAt.subarray(g * LANES, (g + 1) * LANES), padded);
     }
-    for (let b = 0; b < count; b++) finishStep(running[b], sums.subarray(b * FIELDS, (b + 1) * FIELDS), t, horizon, discountPower);
+    for (let b = 0; b < count; b++) finishStep(running[b], sums.subarray(b * FIELDS, (b + 1) * FIELDS), t, horizon, discountPower, data.liveWeighted);
   }
   return running.map((r) => r.failure ?? {
     importanceSampling: r.is + r.tail, doublyRobust: entries.weightedAction ? r.is + r.correction : null, importanceSamplingTail: r.tail,
@@ -167,23 +167,23 @@ function endingSums(entries: ResampleEntries, c: Float64Array, t: number, s: Flo
  * from step to step. Reads the step's BEFORE and ENDING sums, so it runs after them.
  */
 function absorbedSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, held: Float64Array, out: Float64Array): void {
-  const { absorbedOffsets, absorbedWeight, cutOffsets, cutWeight, carry } = entries.data;
+  const { absorbedOffsets, absorbedWeight, cutOffsets, cutWeight, heldCarry } = entries.data;
   for (let l = 0; l < LANES; l++) {
     let joining = 0, cutting = 0;
     for (let j = absorbedOffsets[t]; j < absorbedOffsets[t + 1]; j++) joining += c[entries.absorbedRank[j] * LANES + l] * absorbedWeight[j];
     for (let j = cutOffsets[t]; j < cutOffsets[t + 1]; j++) cutting += c[entries.cutRank[j] * LANES + l] * cutWeight[j];
-    paddedWeights(held[l] + joining, s[l * FIELDS + BEFORE], cutting, s[l * FIELDS + ENDING], carry[t], out);
-    held[l] = out[1];
+    paddedWeights(held[l] * heldCarry[t] + joining, s[l * FIELDS + BEFORE], cutting, s[l * FIELDS + ENDING], entries.data, t, out);
+    held[l] = out[2];
     s[l * FIELDS + PADDED] = out[1];
     s[l * FIELDS + PADDED_BEFORE] = out[0];
   }
 }
 
 /** The step's contribution, exactly as perDecisionEstimates adds it. s: one resample's FIELDS. */
-function finishStep(r: Running, s: Float64Array, t: number, horizon: number, discountPower: number): void {
+function finishStep(r: Running, s: Float64Array, t: number, horizon: number, discountPower: number, liveWeighted: Uint8Array): void {
   if (r.failure) return;
   const reached = s[REACHED], ending = s[ENDING];
-  if (reached > 0 && !(s[WEIGHT] > 0 && s[BEFORE] > 0)) {
+  if (reached > 0 && !(s[WEIGHT] > 0 && s[BEFORE] > 0) && (!liveWeighted[t] || !(s[PADDED] > 0 && s[PADDED_BEFORE] > 0))) {
     r.failure = zeroWeights(t);
     return;
   }

@@ -17,7 +17,7 @@
 import { ImportanceSamplingError, type PerDecisionData } from './perDecisionEstimators';
 
 /** What the resamples read of the data besides the ranked tables: plain numbers and small per-end arrays. */
-export type RankedData = Pick<PerDecisionData, 'episodes' | 'horizon' | 'endOffsets' | 'endWeight' | 'absorbedOffsets' | 'absorbedWeight' | 'carry' | 'cutOffsets' | 'cutWeight'>;
+export type RankedData = Pick<PerDecisionData, 'episodes' | 'horizon' | 'endOffsets' | 'endWeight' | 'absorbedOffsets' | 'absorbedWeight' | 'heldCarry' | 'absorbedToBefore' | 'absorbedToStep' | 'liveWeighted' | 'cutOffsets' | 'cutWeight'>;
 
 /**
  * The ranked tables (every typed array but data's) own their buffers, so a host may transfer them to
@@ -75,8 +75,8 @@ export function rankEntries(data: PerDecisionData): RankedEntries {
   const endWeightedValue = Float64Array.from(data.endWeight, (w, j) => w * data.endValue[j]);
   const absorbedRank = Int32Array.from(data.absorbedEpisode, (k) => rankOf[k]);
   const cutRank = Int32Array.from(data.cutEpisode, (k) => rankOf[k]);
-  const { endOffsets, endWeight, absorbedOffsets, absorbedWeight, carry, cutOffsets, cutWeight } = data;
-  const kept: RankedData = { episodes: e, horizon, endOffsets, endWeight, absorbedOffsets, absorbedWeight, carry, cutOffsets, cutWeight };
+  const { endOffsets, endWeight, absorbedOffsets, absorbedWeight, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted, cutOffsets, cutWeight } = data;
+  const kept: RankedData = { episodes: e, horizon, endOffsets, endWeight, absorbedOffsets, absorbedWeight, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted, cutOffsets, cutWeight };
   return { data: kept, reaching, offsets, rankOf, weight, weightedReward, weightedAction, weightedState, endRank, endWeightedValue, absorbedRank, cutRank };
 }
 

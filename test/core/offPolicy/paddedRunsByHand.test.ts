@@ -152,3 +152,32 @@ describe('block route and one-pass route on logs mixing time limits, end states 
     }
   });
 });
+
+describe('padded estimators at the edges of the number range', () => {
+  it('refuse a candidate that gives every run still going zero weight at a step, even where an ended run keeps its weight', () => {
+    // The logged controller is clipped at ±1, so a move logged at 1 has a point mass the unclipped candidate gives probability 0
+    // (importanceRatio.ts): at step 1 both runs still going (A and C) logged 1, while B ended after step 0 with a positive weight.
+    const clipped = createGaussianPolicy({ offset: [0], gain: [[0]], std: [1], bounds: { lo: [-1], hi: [1], mode: 'clip' } }, 1);
+    const data = logOf([
+      { actions: [0.3, 1], rewards: [-1.2, -0.7], absorbed: false },
+      { actions: [0.8], rewards: [-2.0], absorbed: true },
+      { actions: [-0.6, 1], rewards: [-0.5, -1.5], absorbed: true },
+    ]);
+    const prepared = perDecisionData(importanceWeightTable(data, indexEpisodes(data), candidate, clipped), null);
+    expect(() => perDecisionEstimates(prepared, 0.9)).toThrow(/zero at step 2/);
+    expect(perDecisionResamples(prepareResampleEntries(prepared), 0.9, [new Uint32Array([1, 1, 1])])[0]).toBeInstanceOf(ImportanceSamplingError);
+  });
+
+  it('keep an ended run whose weight was e^−800 of the largest when it ended, once the runs going fall to its level', () => {
+    // Candidate N(20, 1) against N(0, 1): log ρ(a) = 20a − 200, so run A's log W is 800, 0, −800 and run B's (ended after one step) is 0.
+    // By hand: step 0 gives −1 (A's weight is e^800 times B's), step 1 (−2·1)/(1 + 1) = −1, step 2 (−3·e^−800)/(e^−800 + 1) = −3e^−800.
+    const wide = createGaussianPolicy({ offset: [20], gain: [[0]], std: [1] }, 1), discount = 0.9;
+    const data = logOf([{ actions: [50, -30, -30], rewards: [-1, -2, -3], absorbed: false }, { actions: [10], rewards: [-4], absorbed: true }]);
+    const prepared = perDecisionData(importanceWeightTable(data, indexEpisodes(data), wide, behaviour), null);
+    const estimate = perDecisionEstimates(prepared, discount).importanceSampling;
+    close(estimate, -1 - discount);
+    const fast = perDecisionResamples(prepareResampleEntries(prepared), discount, [new Uint32Array([1, 1])])[0];
+    if (fast instanceof Error) throw fast;
+    close(fast.importanceSampling, -1 - discount);
+  });
+});
