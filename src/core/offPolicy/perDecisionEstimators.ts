@@ -13,8 +13,9 @@
  * learning", ICML 2016):
  *   WDR = WPDIS − Σ_t γ^t Σ_i ( w̄_{i,t} Q̂(s_{i,t}, a_{i,t}) − w̄_{i,t−1} V̂(s_{i,t}) ),  w̄_{i,−1} = c_i/Σ_j c_j
  *
- * Episodes of unequal length: each step t is normalised over the episodes that reach step t
- * (so an episode that ends early stops contributing rather than counting as zero reward).
+ * Episodes cut by a time limit: each step t is normalised over the episodes whose log reaches step t
+ * (so an episode cut early stops contributing rather than counting as zero reward). Episodes that end
+ * in an absorbing state are padded with it instead (below).
  *
  * Time limits. Without tails both estimators cover Σ_{t<T} γ^t r_t only: the part of the return
  * beyond the logged episodes' ends is missing (γ^100 ≈ 5 % of the weight at γ = 0.97, 37 % at 0.99).

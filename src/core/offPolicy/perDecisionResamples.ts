@@ -4,7 +4,8 @@
  * weighted doubly robust (Thomas & Brunskill 2016, eq. 10; Jiang & Li, ICML 2016), with the same
  * time-limit tails — on a block of bootstrap resamples at once.
  *
- * Why: each estimate needs, per step t, sums Σ_i c_i x_{i,t} over the episodes that reach t (the
+ * Why: each estimate needs, per step t, sums Σ_i c_i x_{i,t} over the episodes that reach t (and the
+ * padded runs that ended in an end state, a few numbers per step: perDecisionEstimators.ts) (the
  * per-step normalisation makes it a ratio per step, so no per-episode total can stand in for
  * them): for R resamples that is the product of an R×e matrix of multiplicities with e×H tables,
  * R·n multiply-adds per table however it is arranged. What this file saves is the constant:
