@@ -8,7 +8,9 @@
  * weights are normalised: weighted per-decision importance sampling normalises step t over the
  * runs present at t, and a run that ended pays 0 from there and must stay among them, else the
  * estimate is E_π[r_t | the run still going] without the factor P_π(still going at t); such runs
- * are padded with the absorbing state (Thomas & Brunskill, ICML 2016; offPolicy/importanceWeights.ts).
+ * are padded with the absorbing state (Thomas & Brunskill, ICML 2016), weighted where other runs' logs
+ * are cut early by a time limit by the chance that their log would have gone on
+ * (offPolicy/perDecisionEstimators.ts, offPolicy/importanceWeights.ts).
  */
 
 /** Transitions whose next state is absorbing. terminal: n, 0/1. */

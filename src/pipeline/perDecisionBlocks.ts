@@ -97,7 +97,7 @@ export function receiveOutcome(sent: SentOutcome): PerDecisionOutcome {
 export function transferables(job: ResampleJob): ArrayBuffer[] {
   const buffers = new Set<ArrayBuffer>(job.model ? modelTransferables(job.model) : []);
   for (const en of job.entries) {
-    for (const a of [en.reaching, en.offsets, en.rankOf, en.weight, en.weightedReward, en.weightedAction, en.weightedState, en.endRank, en.endWeightedValue, en.absorbedRank]) {
+    for (const a of [en.reaching, en.offsets, en.rankOf, en.weight, en.weightedReward, en.weightedAction, en.weightedState, en.endRank, en.endWeightedValue, en.absorbedRank, en.cutRank]) {
       if (a && a.buffer instanceof ArrayBuffer) buffers.add(a.buffer);
     }
   }

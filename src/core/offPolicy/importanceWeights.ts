@@ -26,8 +26,18 @@ export interface ImportanceWeightTable {
   readonly rewards: Float64Array; // n, episode-major
   /** 1 where the run's last transition is into an absorbing state (terminal = 1): padded from its length on. */
   readonly absorbed: Uint8Array; // e
-  /** carry[t] = max_{t−1} / max_t, the scales of steps t − 1 and t (t ≥ 1; carry[0] = 1): 1 everywhere on a log without ends. */
-  readonly carry: Float64Array; // horizon + 1
+  /**
+   * The scale of the absorbed runs' weights, in log form: absorbedLargest[t] = R_t, the largest last log W
+   * of the runs absorbed by t (−∞ before the first), t = 0 … H. Kept apart from the step's scale, which
+   * the runs still going may set far above or below it (perDecisionEstimators.ts).
+   */
+  readonly absorbedLargest: Float64Array; // horizon + 1
+  /** Per step t (0 … H), from R_{t−1} to R_t (0 where R_{t−1} = −∞), from R_t to step t − 1's scale, and from R_t to step t's (each ≤ 1, 0 where R_t = −∞). */
+  readonly heldCarry: Float64Array; // horizon + 1
+  readonly absorbedToBefore: Float64Array; // horizon + 1
+  readonly absorbedToStep: Float64Array; // horizon + 1
+  /** 1 where some run acting at step t has a weight above 0 (log W > −∞): zero sums there are underflow, not a candidate that excludes every logged action. */
+  readonly liveWeighted: Uint8Array; // horizon
 }
 
 export function importanceWeightTable(data: TransitionSet, index: EpisodeIndex, target: GaussianPolicy, behaviour: GaussianPolicy): ImportanceWeightTable {
@@ -50,16 +60,21 @@ export function importanceWeightTable(data: TransitionSet, index: EpisodeIndex, 
     horizon = Math.max(horizon, index.offsets[k + 1] - index.offsets[k]);
   }
   const absorbed = absorbedRuns(data, index);
-  const largest = largestWeights(index, step, logWeight, absorbed, horizon);
+  const { largest, absorbedLargest, liveWeighted } = largestWeights(index, step, logWeight, absorbed, horizon);
   const scaled = new Float64Array(n), scaledBefore = new Float64Array(n);
   for (let p = 0; p < n; p++) {
     const t = step[p];
     scaled[p] = scaledWeight(logWeight[p], largest[t + 1]);
     scaledBefore[p] = t === 0 ? 1 : scaledWeight(logWeight[p - 1], largest[t]);
   }
-  const carry = new Float64Array(horizon + 1).fill(1);
-  for (let t = 1; t <= horizon; t++) carry[t] = Math.min(Number.MAX_VALUE, scaledWeight(largest[t], largest[t + 1])); // finite, so 0 · carry stays 0
-  return { index, horizon, step, logRatio, logWeight, scaled, scaledBefore, rewards, absorbed, carry };
+  const heldCarry = new Float64Array(horizon + 1), absorbedToBefore = new Float64Array(horizon + 1), absorbedToStep = new Float64Array(horizon + 1);
+  for (let t = 0; t <= horizon; t++) {
+    const r = absorbedLargest[t];
+    heldCarry[t] = t === 0 || absorbedLargest[t - 1] === -Infinity ? 0 : Math.exp(absorbedLargest[t - 1] - r);
+    absorbedToBefore[t] = r === -Infinity ? 0 : Math.exp(r - largest[t]); // R_t ≤ largest[t]: the runs absorbed by t were going at t − 1
+    absorbedToStep[t] = r === -Infinity ? 0 : Math.exp(r - largest[t + 1]);
+  }
+  return { index, horizon, step, logRatio, logWeight, scaled, scaledBefore, rewards, absorbed, absorbedLargest, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted };
 }
 
 /** Per run, 1 where its last transition ends in an absorbing state. */
@@ -76,19 +91,20 @@ function absorbedRuns(data: TransitionSet, index: EpisodeIndex): Uint8Array {
  * largest[t + 1] = the largest log W at step t over the runs that reach t and the runs absorbed by t
  * (their last log W), t = 0 … H (at H only absorbed runs); largest[0] = 0, the weight before step 0.
  */
-function largestWeights(index: EpisodeIndex, step: Int32Array, logWeight: Float64Array, absorbed: Uint8Array, horizon: number): Float64Array {
-  const largest = new Float64Array(horizon + 2).fill(-Infinity), absorbedFrom = new Float64Array(horizon + 1).fill(-Infinity);
+function largestWeights(index: EpisodeIndex, step: Int32Array, logWeight: Float64Array, absorbed: Uint8Array, horizon: number) {
+  const largest = new Float64Array(horizon + 2).fill(-Infinity), absorbedLargest = new Float64Array(horizon + 1).fill(-Infinity);
   largest[0] = 0;
   for (let p = 0; p < step.length; p++) largest[step[p] + 1] = Math.max(largest[step[p] + 1], logWeight[p]);
+  const liveWeighted = Uint8Array.from({ length: horizon }, (_, t) => (largest[t + 1] > -Infinity ? 1 : 0));
   for (let k = 0; k < index.episodes; k++) {
     const length = index.offsets[k + 1] - index.offsets[k];
-    if (absorbed[k]) absorbedFrom[length] = Math.max(absorbedFrom[length], logWeight[index.offsets[k + 1] - 1]);
+    if (absorbed[k]) absorbedLargest[length] = Math.max(absorbedLargest[length], logWeight[index.offsets[k + 1] - 1]);
   }
-  for (let t = 1, held = -Infinity; t <= horizon; t++) {
-    held = Math.max(held, absorbedFrom[t]);
-    largest[t + 1] = Math.max(largest[t + 1], held);
+  for (let t = 1; t <= horizon; t++) {
+    absorbedLargest[t] = Math.max(absorbedLargest[t - 1], absorbedLargest[t]);
+    largest[t + 1] = Math.max(largest[t + 1], absorbedLargest[t]);
   }
-  return largest;
+  return { largest, absorbedLargest, liveWeighted };
 }
 
 function scaledWeight(logW: number, logMax: number): number {

@@ -13,8 +13,9 @@
  * learning", ICML 2016):
  *   WDR = WPDIS − Σ_t γ^t Σ_i ( w̄_{i,t} Q̂(s_{i,t}, a_{i,t}) − w̄_{i,t−1} V̂(s_{i,t}) ),  w̄_{i,−1} = c_i/Σ_j c_j
  *
- * Episodes of unequal length: each step t is normalised over the episodes that reach step t
- * (so an episode that ends early stops contributing rather than counting as zero reward).
+ * Episodes cut by a time limit: each step t is normalised over the episodes whose log reaches step t
+ * (so an episode cut early stops contributing rather than counting as zero reward). Episodes that end
+ * in an absorbing state are padded with it instead (below).
  *
  * Time limits. Without tails both estimators cover Σ_{t<T} γ^t r_t only: the part of the return
  * beyond the logged episodes' ends is missing (γ^100 ≈ 5 % of the weight at γ = 0.97, 37 % at 0.99).
@@ -37,8 +38,23 @@
  * it out, as for a time limit, would estimate E_π[r_t | the run still going] and drop the factor
  * P_π(still going at t). Per step that adds A_t = Σ_{T_k ≤ t} c_k W_{k,T_k−1} to the weight sums at
  * t and A′_t (the same runs on step t − 1's scale) to the sums before the decision and to the
- * WPDIS tail's normaliser: A′_t = A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1}, A_t = carry_t · A′_t
- * (importanceWeights.ts). On a log without such runs A = A′ = 0 and the sums are unchanged. With tails neither estimate is free of the
+ * WPDIS tail's normaliser: A′_t = A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1}, A_t = A′_t, each carried on
+ * the absorbed runs' own scale and brought to the step's (importanceWeights.ts). On a log without such
+ * runs A = A′ = 0 and the sums are unchanged.
+ *
+ * Padding alone assumes every run would have been logged to H had it not ended. Where runs are cut by
+ * a time limit before H (the log's end, a left-out window), an ended run's place in later steps' sums
+ * is known only while its own log would have gone on, and padding it regardless over-weights the
+ * ended runs: with S(t) = P_π(still going at t), f(u) = P_π(ends at u) and G(t) the chance that a
+ * run's log is not cut by t, the step-t share of the runs going tends to G(t)S(t)/(G(t)S(t) +
+ * Σ_{u≤t} f(u)G(u−1)) instead of S(t) (too small wherever logs are cut early). The ended runs are
+ * therefore weighted by the chance that their log would still go on (inverse probability of
+ * censoring weighting, Robins & Rotnitzky 1992; the product-limit form of Kaplan & Meier 1958): at
+ * each step the padded sum keeps the share of the runs known to be going there that are not cut there,
+ *   κ_t = L_t / (L_t + K_t),   L_t = Σ_{runs acting at t} c W_{t−1},   K_t = Σ_{T_k = t, cut} c W_{k,t−1},
+ * so A_t = κ_t · A′_t (each on its step's scale), and the state term's normaliser takes A′_t (L_t + E_t)/(L_t + K_t),
+ * E_t the cut runs with a tail (all of them in the pipeline, so the factor is 1 there). With no run cut
+ * before H, κ = 1 and the sums are Thomas & Brunskill's. With tails neither estimate is free of the
  * fitted value any more: their agreement with FQE is then partly agreement with itself, in
  * proportion to the tail's weight (report γ^H beside them).
  */
@@ -74,9 +90,16 @@ export interface PerDecisionData {
   /** Runs absorbed at their length T (1 … H), grouped by T: at absorbedOffsets[T] … absorbedOffsets[T+1]. */
   readonly absorbedOffsets: Int32Array; // H+2
   readonly absorbedEpisode: Int32Array; // one per absorbed run
-  readonly absorbedWeight: Float64Array; // W_{k,T−1} scaled as at step T−1
-  /** importanceWeights.ts carry: step t − 1's scale over step t's. */
-  readonly carry: Float64Array; // H+1
+  readonly absorbedWeight: Float64Array; // W_{k,T−1} / e^{R_T} (importanceWeights.ts absorbedLargest)
+  /** importanceWeights.ts: R_{t−1} to R_t, R_t to step t − 1's scale and to step t's; where some run going at t has a weight. */
+  readonly heldCarry: Float64Array; // H+1
+  readonly absorbedToBefore: Float64Array; // H+1
+  readonly absorbedToStep: Float64Array; // H+1
+  readonly liveWeighted: Uint8Array; // H
+  /** Runs cut by a time limit (not absorbed, length ≥ 1, tail or not) grouped by length T: at cutOffsets[T] … cutOffsets[T+1]. */
+  readonly cutOffsets: Int32Array; // H+2
+  readonly cutEpisode: Int32Array; // one per cut run
+  readonly cutWeight: Float64Array; // W_{k,T−1} scaled as at step T−1
 }
 
 /** What the tails need per episode, in data episode order (e each). */
@@ -115,7 +138,7 @@ export function perDecisionData(
     horizon, episodes: index.episodes, stepOffsets, episode,
     scaled: gather(table.scaled), scaledBefore: gather(table.scaledBefore), rewards: gather(table.rewards),
     actionValues: values && gather(values.actionValues), stateValues: values && gather(values.stateValues),
-    ...episodeEndGroups(table, tails), ...absorbedGroups(table),
+    ...episodeEndGroups(table, tails), ...absorbedGroups(table), ...cutGroups(table),
   };
 }
 
@@ -130,11 +153,19 @@ function runsByLength(table: ImportanceWeightTable, member: (k: number, length: 
   return { offsets, runs };
 }
 
-/** Absorbed runs grouped by length, with their last scaled weight; the table's carry. */
+/** Absorbed runs grouped by length T, with their last weight on the absorbed runs' scale R_T; the table's scales. */
 function absorbedGroups(table: ImportanceWeightTable) {
   const { offsets, runs } = runsByLength(table, (k, length) => table.absorbed[k] !== 0 && length > 0);
-  const absorbedWeight = Float64Array.from(runs, (k) => table.scaled[table.index.offsets[k + 1] - 1]);
-  return { absorbedOffsets: offsets, absorbedEpisode: runs, absorbedWeight, carry: table.carry };
+  const { index, logWeight, absorbedLargest, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted } = table;
+  const absorbedWeight = Float64Array.from(runs, (k) => Math.exp(logWeight[index.offsets[k + 1] - 1] - absorbedLargest[index.offsets[k + 1] - index.offsets[k]]));
+  return { absorbedOffsets: offsets, absorbedEpisode: runs, absorbedWeight, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted };
+}
+
+/** Runs cut by a time limit grouped by length, with their last scaled weight (whether or not they carry a tail). */
+function cutGroups(table: ImportanceWeightTable) {
+  const { offsets, runs } = runsByLength(table, (k, length) => table.absorbed[k] === 0 && length > 0);
+  const cutWeight = Float64Array.from(runs, (k) => table.scaled[table.index.offsets[k + 1] - 1]);
+  return { cutOffsets: offsets, cutEpisode: runs, cutWeight };
 }
 
 /** Time-limited episodes grouped by length, with their last scaled weight and V̂(s_T). */
@@ -169,6 +200,7 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
   const q = data.actionValues ?? zeros!, v = data.stateValues ?? zeros!;
   const { stepOffsets, episode, scaled, scaledBefore, rewards, endOffsets, endEpisode, endWeight, endValue } = data;
   let is = 0, correction = 0, tail = 0, discountPower = 1, absorbedAt = 0;
+  const padded = new Float64Array(3);
   for (let t = 0; t <= data.horizon; t++, discountPower *= discount) {
     let reached = 0, weight = 0, weightBefore = 0, reward = 0, action = 0, state = 0, ending = 0, endingValue = 0;
     const end = t < data.horizon ? stepOffsets[t + 1] : 0;
@@ -186,13 +218,12 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
       ending += before;
       endingValue += before * endValue[j];
     }
-    const absorbedBefore = absorbedAt + absorbedJoining(data, c, t); // A′_t, then A_t: the padded runs (value 0)
-    absorbedAt = absorbedBefore * data.carry[t];
-    weight += absorbedAt;
-    weightBefore += absorbedBefore;
-    if (reached > 0 && !(weight > 0 && weightBefore > 0)) {
-      throw new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run: the candidate gives the logged actions no probability`);
-    }
+    const held = absorbedAt * data.heldCarry[t] + groupSum(data.absorbedOffsets, data.absorbedEpisode, data.absorbedWeight, c, t); // A′_t on R_t
+    paddedWeights(held, weightBefore, groupSum(data.cutOffsets, data.cutEpisode, data.cutWeight, c, t), ending, data, t, padded);
+    absorbedAt = padded[2];
+    if (reached > 0 && !(weight > 0 && weightBefore > 0) && (!data.liveWeighted[t] || !(padded[1] > 0 && padded[0] > 0))) throw zeroWeights(t);
+    weight += padded[1];
+    weightBefore += padded[0];
     if (reached > 0) is += (discountPower * reward) / weight;
     if (reached > 0) correction -= (discountPower * action) / weight;
     if (weightBefore + ending > 0) correction += (discountPower * (state + endingValue)) / (weightBefore + ending);
@@ -201,9 +232,31 @@ export function perDecisionEstimates(data: PerDecisionData, discount: number, mu
   return { importanceSampling: is + tail, doublyRobust: zeros ? null : is + correction, importanceSamplingTail: tail };
 }
 
-/** Σ c_k W_{k,t−1} over the runs absorbed at length t (step t − 1's scale): 0 on most steps. */
-function absorbedJoining(data: PerDecisionData, c: Float64Array, t: number): number {
+export function zeroWeights(t: number): ImportanceSamplingError {
+  return new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run still going: the candidate gives the logged actions no probability`);
+}
+
+/** Σ c_k W_{k,t−1} over group t of runs grouped by length (absorbed runs on R_t, cut runs on step t − 1's scale): 0 on most steps. */
+function groupSum(offsets: Int32Array, runs: Int32Array, weights: Float64Array, c: Float64Array, t: number): number {
   let sum = 0;
-  for (let j = data.absorbedOffsets[t]; j < data.absorbedOffsets[t + 1]; j++) sum += c[data.absorbedEpisode[j]] * data.absorbedWeight[j];
+  for (let j = offsets[t]; j < offsets[t + 1]; j++) sum += c[runs[j]] * weights[j];
   return sum;
+}
+
+/**
+ * The padded runs' weight at step t (see the header). held: A′_t on the absorbed runs' own scale R_t
+ * (importanceWeights.ts), so that an ended run too small to show beside the runs going when it ended
+ * still counts once they fall to its level; liveBefore: L_t; cutting: K_t; ending: E_t (E_t ≤ K_t), on
+ * step t − 1's scale. out[0] = A′_t (L_t + E_t)/(L_t + K_t) on step t − 1's scale, for the sums before
+ * the decision; out[1] = A_t = A′_t · L_t/(L_t + K_t) on step t's, for the sums at t; out[2] = A_t on R_t,
+ * carried to the next step. x/x is exactly 1, so with no run cut at t the factors are exactly 1.
+ */
+export function paddedWeights(
+  held: number, liveBefore: number, cutting: number, ending: number,
+  scales: Pick<PerDecisionData, 'absorbedToBefore' | 'absorbedToStep'>, t: number, out: Float64Array,
+): void {
+  const known = liveBefore + cutting;
+  out[0] = (known > 0 ? held * ((liveBefore + ending) / known) : held) * scales.absorbedToBefore[t];
+  out[2] = known > 0 ? held * (liveBefore / known) : held;
+  out[1] = out[2] * scales.absorbedToStep[t];
 }

@@ -4,7 +4,8 @@
  * weighted doubly robust (Thomas & Brunskill 2016, eq. 10; Jiang & Li, ICML 2016), with the same
  * time-limit tails — on a block of bootstrap resamples at once.
  *
- * Why: each estimate needs, per step t, sums Σ_i c_i x_{i,t} over the episodes that reach t (the
+ * Why: each estimate needs, per step t, sums Σ_i c_i x_{i,t} over the episodes that reach t (and the
+ * padded runs that ended in an end state, a few numbers per step: perDecisionEstimators.ts) (the
  * per-step normalisation makes it a ratio per step, so no per-episode total can stand in for
  * them): for R resamples that is the product of an R×e matrix of multiplicities with e×H tables,
  * R·n multiply-adds per table however it is arranged. What this file saves is the constant:
@@ -19,7 +20,7 @@
  *
  * Shapes: multiplicities one Uint32Array of e per resample, at most RESAMPLE_BLOCK.
  */
-import { ImportanceSamplingError, type PerDecisionEstimates } from './perDecisionEstimators';
+import { ImportanceSamplingError, paddedWeights, zeroWeights, type PerDecisionEstimates } from './perDecisionEstimators';
 import { rankEntries, type RankedEntries } from './rankedEntries';
 
 /** Resamples summed in one read of the entries from memory. */
@@ -31,8 +32,8 @@ export type ResampleEntries = RankedEntries;
 export const prepareResampleEntries = rankEntries;
 
 /** One step's sums per resample: LANES × FIELDS per group, resample-major within the group. */
-const FIELDS = 8;
-const REACHED = 0, WEIGHT = 1, BEFORE = 2, REWARD = 3, ACTION = 4, STATE = 5, ENDING = 6, ENDING_VALUE = 7;
+const FIELDS = 10;
+const REACHED = 0, WEIGHT = 1, BEFORE = 2, REWARD = 3, ACTION = 4, STATE = 5, ENDING = 6, ENDING_VALUE = 7, PADDED = 8, PADDED_BEFORE = 9;
 
 /** The running totals of one resample across the steps. */
 interface Running {
@@ -56,7 +57,7 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
   const reached = lanes.map((c) => reachedCounts(entries, c));
   const running: Running[] = Array.from({ length: count }, () => ({ is: 0, correction: 0, tail: 0, failure: null }));
   const sums = new Float64Array(groups * LANES * FIELDS), before = new Float64Array(groups * LANES), pair = new Float64Array(2 * LANES);
-  const absorbedAt = new Float64Array(groups * LANES); // A_t per resample (perDecisionEstimators.ts)
+  const absorbedAt = new Float64Array(groups * LANES), padded = new Float64Array(3); // A_t per resample (perDecisionEstimators.ts)
   for (let g = 0; g < groups; g++) for (let l = 0; l < LANES; l++) before[g * LANES + l] = reached[g][l]; // W_{i,−1} = 1
   let discountPower = 1;
   for (let t = 0; t <= horizon; t++, discountPower *= discount) {
@@ -69,9 +70,9 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
       weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES), pair);
       valueSums(entries, lanes[g], t, s, pair);
       endingSums(entries, lanes[g], t, s);
-      absorbedSums(entries, lanes[g], t, s, absorbedAt.subarray(g * LANES, (g + 1) * LANES));
+      absorbedSums(entries, lanes[g], t, s, absorbedAt.subarray(g * LANES, (g + 1) * LANES), padded);
     }
-    for (let b = 0; b < count; b++) finishStep(running[b], sums.subarray(b * FIELDS, (b + 1) * FIELDS), t, horizon, discountPower);
+    for (let b = 0; b < count; b++) finishStep(running[b], sums.subarray(b * FIELDS, (b + 1) * FIELDS), t, horizon, discountPower, data.liveWeighted);
   }
   return running.map((r) => r.failure ?? {
     importanceSampling: r.is + r.tail, doublyRobust: entries.weightedAction ? r.is + r.correction : null, importanceSamplingTail: r.tail,
@@ -161,30 +162,33 @@ function endingSums(entries: ResampleEntries, c: Float64Array, t: number, s: Flo
 }
 
 /**
- * The absorbed runs' weights added to step t's sums, as perDecisionEstimates adds them: A′_t =
- * A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1} to the sums before the decision, A_t = carry_t · A′_t to the
- * weight sums; `held` carries A per lane from step to step.
+ * The absorbed runs' weights for step t's sums, as perDecisionEstimates adds them (paddedWeights):
+ * A′_t = A_{t−1} + Σ_{T_k = t} c_k W_{k,t−1}, kept in PADDED_BEFORE (times the share of the runs
+ * known to be going at t that carry on or have a tail) and A_t in PADDED; `held` carries A per lane
+ * from step to step. Reads the step's BEFORE and ENDING sums, so it runs after them.
  */
-function absorbedSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, held: Float64Array): void {
-  const { absorbedOffsets, absorbedWeight, carry } = entries.data;
+function absorbedSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, held: Float64Array, out: Float64Array): void {
+  const { absorbedOffsets, absorbedWeight, cutOffsets, cutWeight, heldCarry } = entries.data;
   for (let l = 0; l < LANES; l++) {
-    let joining = 0;
+    let joining = 0, cutting = 0;
     for (let j = absorbedOffsets[t]; j < absorbedOffsets[t + 1]; j++) joining += c[entries.absorbedRank[j] * LANES + l] * absorbedWeight[j];
-    const absorbedBefore = held[l] + joining;
-    held[l] = absorbedBefore * carry[t];
-    s[l * FIELDS + WEIGHT] += held[l];
-    s[l * FIELDS + BEFORE] += absorbedBefore;
+    for (let j = cutOffsets[t]; j < cutOffsets[t + 1]; j++) cutting += c[entries.cutRank[j] * LANES + l] * cutWeight[j];
+    paddedWeights(held[l] * heldCarry[t] + joining, s[l * FIELDS + BEFORE], cutting, s[l * FIELDS + ENDING], entries.data, t, out);
+    held[l] = out[2];
+    s[l * FIELDS + PADDED] = out[1];
+    s[l * FIELDS + PADDED_BEFORE] = out[0];
   }
 }
 
 /** The step's contribution, exactly as perDecisionEstimates adds it. s: one resample's FIELDS. */
-function finishStep(r: Running, s: Float64Array, t: number, horizon: number, discountPower: number): void {
+function finishStep(r: Running, s: Float64Array, t: number, horizon: number, discountPower: number, liveWeighted: Uint8Array): void {
   if (r.failure) return;
-  const reached = s[REACHED], weight = s[WEIGHT], weightBefore = s[BEFORE], ending = s[ENDING];
-  if (reached > 0 && !(weight > 0 && weightBefore > 0)) {
-    r.failure = new ImportanceSamplingError(`the importance weights are zero at step ${t + 1} in every run: the candidate gives the logged actions no probability`);
+  const reached = s[REACHED], ending = s[ENDING];
+  if (reached > 0 && !(s[WEIGHT] > 0 && s[BEFORE] > 0) && (!liveWeighted[t] || !(s[PADDED] > 0 && s[PADDED_BEFORE] > 0))) {
+    r.failure = zeroWeights(t);
     return;
   }
+  const weight = s[WEIGHT] + s[PADDED], weightBefore = s[BEFORE] + s[PADDED_BEFORE];
   if (reached > 0) r.is += (discountPower * s[REWARD]) / weight;
   if (reached > 0) r.correction -= (discountPower * s[ACTION]) / weight;
   if (weightBefore + ending > 0) r.correction += (discountPower * (s[STATE] + s[ENDING_VALUE])) / (weightBefore + ending);

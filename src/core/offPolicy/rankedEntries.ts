@@ -17,7 +17,7 @@
 import { ImportanceSamplingError, type PerDecisionData } from './perDecisionEstimators';
 
 /** What the resamples read of the data besides the ranked tables: plain numbers and small per-end arrays. */
-export type RankedData = Pick<PerDecisionData, 'episodes' | 'horizon' | 'endOffsets' | 'endWeight' | 'absorbedOffsets' | 'absorbedWeight' | 'carry'>;
+export type RankedData = Pick<PerDecisionData, 'episodes' | 'horizon' | 'endOffsets' | 'endWeight' | 'absorbedOffsets' | 'absorbedWeight' | 'heldCarry' | 'absorbedToBefore' | 'absorbedToStep' | 'liveWeighted' | 'cutOffsets' | 'cutWeight'>;
 
 /**
  * The ranked tables (every typed array but data's) own their buffers, so a host may transfer them to
@@ -41,6 +41,8 @@ export interface RankedEntries {
   readonly endWeightedValue: Float64Array;
   /** Runs absorbed in an end state (data.absorbedOffsets groups): the run's rank. */
   readonly absorbedRank: Int32Array;
+  /** Runs cut by a time limit (data.cutOffsets groups): the run's rank. */
+  readonly cutRank: Int32Array;
 }
 
 export function rankEntries(data: PerDecisionData): RankedEntries {
@@ -72,9 +74,10 @@ export function rankEntries(data: PerDecisionData): RankedEntries {
   const endRank = Int32Array.from(data.endEpisode, (k) => rankOf[k]);
   const endWeightedValue = Float64Array.from(data.endWeight, (w, j) => w * data.endValue[j]);
   const absorbedRank = Int32Array.from(data.absorbedEpisode, (k) => rankOf[k]);
-  const { endOffsets, endWeight, absorbedOffsets, absorbedWeight, carry } = data;
-  const kept: RankedData = { episodes: e, horizon, endOffsets, endWeight, absorbedOffsets, absorbedWeight, carry };
-  return { data: kept, reaching, offsets, rankOf, weight, weightedReward, weightedAction, weightedState, endRank, endWeightedValue, absorbedRank };
+  const cutRank = Int32Array.from(data.cutEpisode, (k) => rankOf[k]);
+  const { endOffsets, endWeight, absorbedOffsets, absorbedWeight, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted, cutOffsets, cutWeight } = data;
+  const kept: RankedData = { episodes: e, horizon, endOffsets, endWeight, absorbedOffsets, absorbedWeight, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted, cutOffsets, cutWeight };
+  return { data: kept, reaching, offsets, rankOf, weight, weightedReward, weightedAction, weightedState, endRank, endWeightedValue, absorbedRank, cutRank };
 }
 
 /** Ranks by length, longest first; ties keep the data's episode order (a stable sort). */
