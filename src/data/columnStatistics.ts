@@ -54,15 +54,31 @@ function firstPass(values: Float64Array, include: Uint8Array) {
   return { count, sum, min, max };
 }
 
+/**
+ * Every row included: each running value in a loop of its own, each loop in a function of its own
+ * (an optimised function with two loops left its second loop without type feedback and fell back to
+ * the interpreter there, on every column).
+ */
 function firstPassEvery(values: Float64Array) {
-  let sum = 0, min = Infinity, max = -Infinity;
+  const { min, max } = extremes(values);
+  return { count: values.length, sum: plainSum(values), min, max };
+}
+
+/** Σ values[i] in index order (the same order as firstPass, so the same double). */
+function plainSum(values: Float64Array): number {
+  let sum = 0;
   for (let i = 0; i < values.length; i++) sum += values[i];
+  return sum;
+}
+
+function extremes(values: Float64Array): { min: number; max: number } {
+  let min = Infinity, max = -Infinity;
   for (let i = 0; i < values.length; i++) {
     const x = values[i];
     min = x < min ? x : min;
     max = x > max ? x : max;
   }
-  return { count: values.length, sum, min, max };
+  return { min, max };
 }
 
 /** Σ (x − mean)² over the rows included, and each row counted into its bin (the last bin closed). */
@@ -80,17 +96,27 @@ function squaredDeviations(values: Float64Array, include: Uint8Array, mean: numb
 }
 
 function squaredDeviationsEvery(values: Float64Array, mean: number, min: number, perWidth: number, counts: Float64Array): number {
-  const last = counts.length - 1;
+  countBins(values, min, perWidth, counts);
+  return squaredDeviationSum(values, mean);
+}
+
+/** Σ (values[i] − mean)² in index order. */
+function squaredDeviationSum(values: Float64Array, mean: number): number {
   let m2 = 0;
   for (let i = 0; i < values.length; i++) {
     const d = values[i] - mean;
     m2 += d * d;
   }
+  return m2;
+}
+
+/** Each value counted into its bin of width 1/perWidth from min (the last bin closed). */
+function countBins(values: Float64Array, min: number, perWidth: number, counts: Float64Array): void {
+  const last = counts.length - 1;
   for (let i = 0; i < values.length; i++) {
     const bin = Math.floor((values[i] - min) * perWidth);
     counts[bin > last ? last : bin]++;
   }
-  return m2;
 }
 
 /** The mean of values whose plain sum overflows: each scaled by 1/scale first. */

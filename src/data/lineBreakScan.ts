@@ -22,29 +22,58 @@ export interface LineBreakScan {
 export function lineBreakScan(bytes: Uint8Array, start = 0, end = bytes.length): LineBreakScan {
   const head = Math.min(end, start + ((4 - ((bytes.byteOffset + start) % 4)) % 4));
   const words = Math.max(0, (end - head) >> 2);
+  const tally: Tally = { breaks: 0, anyCr: 0, high: 0, zero: 0 };
+  tallyBytes(tally, bytes, start, head);
+  if (words > 0) tallyWords(tally, new Int32Array(bytes.buffer, bytes.byteOffset + head, words));
+  tallyBytes(tally, bytes, head + 4 * words, end);
+  const lineBreaks = tally.breaks + (tally.anyCr ? loneCrs(bytes, start, end) : 0);
+  return { lineBreaks, asciiWithoutZero: (tally.high & 0x80808080) === 0 && tally.zero === 0 };
+}
+
+/** LFs so far, and (as non-zero bits) whether a CR, a byte of 0x80 or more, or a zero byte was seen. */
+interface Tally {
+  breaks: number;
+  anyCr: number;
+  high: number;
+  zero: number;
+}
+
+/**
+ * The aligned middle, a word at a time. Each loop of the scan is a function of its own: an
+ * optimised function entered in one loop had no type feedback for the next and fell back to the
+ * interpreter there, once per piece.
+ */
+function tallyWords(tally: Tally, view: Int32Array): void {
   let breaks = 0, anyCr = 0, high = 0, zero = 0;
-  for (let i = start; i < head; i++) {
-    breaks += bytes[i] === LF ? 1 : 0;
-    anyCr |= bytes[i] === CR ? 1 : 0;
-    high |= bytes[i];
-    zero |= bytes[i] === 0 ? 1 : 0;
-  }
-  const view = words > 0 ? new Int32Array(bytes.buffer, bytes.byteOffset + head, words) : new Int32Array(0);
-  for (let w = 0; w < words; w++) {
+  for (let w = 0; w < view.length; w++) {
     const v = view[w], lf = zeroBytes(v ^ 0x0a0a0a0a);
     anyCr |= zeroBytes(v ^ 0x0d0d0d0d);
     high |= v;
     zero |= (v - 0x01010101) & ~v & 0x80808080;
     if (lf !== 0) breaks += (lf >>> 7 & 1) + (lf >>> 15 & 1) + (lf >>> 23 & 1) + (lf >>> 31);
   }
-  for (let i = head + 4 * words; i < end; i++) {
-    breaks += bytes[i] === LF ? 1 : 0;
-    anyCr |= bytes[i] === CR ? 1 : 0;
-    high |= bytes[i];
-    zero |= bytes[i] === 0 ? 1 : 0;
+  tally.breaks += breaks;
+  tally.anyCr |= anyCr;
+  tally.high |= high;
+  tally.zero |= zero;
+}
+
+/** The unaligned bytes at either end, one at a time. */
+function tallyBytes(tally: Tally, bytes: Uint8Array, from: number, to: number): void {
+  for (let i = from; i < to; i++) {
+    const c = bytes[i];
+    tally.breaks += c === LF ? 1 : 0;
+    tally.anyCr |= c === CR ? 1 : 0;
+    tally.high |= c;
+    tally.zero |= c === 0 ? 1 : 0;
   }
-  if (anyCr) for (let i = start; i < end; i++) if (bytes[i] === CR && bytes[i + 1] !== LF) breaks++;
-  return { lineBreaks: breaks, asciiWithoutZero: (high & 0x80808080) === 0 && zero === 0 };
+}
+
+/** CRs not before an LF (an old spreadsheet's line ends), byte by byte: only bytes that hold a CR get here. */
+function loneCrs(bytes: Uint8Array, start: number, end: number): number {
+  let count = 0;
+  for (let i = start; i < end; i++) if (bytes[i] === CR && bytes[i + 1] !== LF) count++;
+  return count;
 }
 
 /** The high bit of each byte of x that is zero, and no other bit. */
