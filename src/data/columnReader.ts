@@ -94,6 +94,8 @@ interface Reading {
   /** The whole file's bytes, or the window's current view of a file read in pieces. */
   bytes: Uint8Array;
   readonly window: ByteWindow | undefined;
+  /** True when `bytes` reach the end of the file (a whole file, or the window's last view). */
+  final: boolean;
   readonly capacity: number;
   readonly fieldCount: number;
   readonly problems: RowProblems;
@@ -105,10 +107,13 @@ interface Reading {
   readonly scanner: CsvScanner;
   readonly fast: PlainRecordTarget | null;
   readonly lineOffset: number;
+  /** Records of blank lines not yet followed by content (then they are bad rows; at the end, none). */
   readonly blanks: number[];
+  /** Records read so far (the next record's index). */
   record: number;
   lastContent: number;
   lastLine: number;
+  /** Offset in `bytes` of the next record, and its physical line counted from the first data line (1-based). */
   position: number;
   line: number;
 }
@@ -125,7 +130,7 @@ function startReading(
   const plainTimes = fastPath && decimalMark !== delimiter ? sinks.filter((s) => s.request.kind === 'timestamp' && !numberFields.has(s.request.field)) : [];
   const others = sinks.filter((s) => s.request.kind !== 'number' && !plainTimes.includes(s));
   return {
-    bytes, window: data.streamed?.window, capacity, fieldCount, problems, sinks, others, plainTimes,
+    bytes, window: data.streamed?.window, final: data.streamed === undefined || data.streamed.window.final, capacity, fieldCount, problems, sinks, others, plainTimes,
     scanner: new CsvScanner(bytes, delimiter.charCodeAt(0), fieldCount, data.start),
     fast: fastPath ? plainRecordTarget(bytes, delimiter, decimalMark, fieldCount, [...numbers, ...plainTimes], others) : null,
     lineOffset: data.firstLine - 1, blanks: [],
@@ -140,68 +145,77 @@ function startReading(
  * at the window's very end both readers find no whole record, so the window moves on there too.
  */
 function readBlock(g: Reading, limit: number): boolean {
-  const { fast, others, sinks, scanner, fieldCount, problems, lineOffset, blanks } = g;
-  const { starts, ends, escaped } = scanner;
-  let { record, position, line, bytes } = g;
-  let final = g.window === undefined || g.window.final;
-  const stop = record + limit;
-  while (record < stop && !(final && position >= bytes.length)) {
-    const r = record;
-    const after = fast ? plainRecord(fast, position, r) : -1;
-    if (after < 0) {
-      scanner.seek(position, line);
-      scanner.next();
-    }
-    if (!final && (after < 0 ? scanner.offset : after) >= bytes.length) {
-      bytes = advance(g, position);
-      final = g.window!.final;
-      position = 0;
-      continue;
-    }
-    record++;
-    if (after >= 0) { // the common case: numbers already in their columns
-      if (blanks.length > 0) flushBlanks(blanks, fieldCount, problems);
-      g.lastContent = r;
-      g.lastLine = line + lineOffset;
-      for (const sink of others) sink.read(bytes, fast!.starts[sink.request.field], fast!.ends[sink.request.field], 0, r, problems);
-      position = after;
-      line++;
-      continue;
-    }
-    position = scanner.offset;
-    line = scanner.nextLine;
-    if (scanner.fieldCount === 1 && scanner.fault === 'none' && isBlank(bytes, starts[0], ends[0])) {
-      blanks.push(r);
-      for (const sink of sinks) sink.missing(r);
-      continue;
-    }
-    flushBlanks(blanks, fieldCount, problems);
-    g.lastContent = r;
-    g.lastLine = scanner.lastLine + lineOffset;
-    if (!acceptFaultless(scanner, fieldCount, r, problems, lineOffset)) {
-      for (const sink of sinks) sink.missing(r);
-      continue;
-    }
-    for (const sink of sinks) sink.read(bytes, starts[sink.request.field], ends[sink.request.field], escaped[sink.request.field], r, problems);
-    if (g.plainTimes.length > 0) handBackDated(g);
+  const stop = g.record + limit;
+  while (g.record < stop && !(g.final && g.position >= g.bytes.length)) {
+    if (!readRecord(g)) advance(g);
   }
-  g.record = record;
-  g.position = position;
-  g.line = line;
-  g.bytes = bytes;
-  return position < bytes.length || !final;
+  return g.position < g.bytes.length || !g.final;
 }
 
-/** Move the window on, keeping the bytes from `position` (the record not yet read); the new view, also handed to the scanner and the fast path. */
-function advance(g: Reading, position: number): Uint8Array {
-  const bytes = g.window!.advance(position);
+/**
+ * The record at g.position into the sinks, by the fast path (plainRecord.ts) where it applies, else
+ * by the general scanner; false, with nothing taken, when the record reaches the end of a window
+ * that is not the file's last (it may be cut there).
+ */
+function readRecord(g: Reading): boolean {
+  const after = g.fast ? plainRecord(g.fast, g.position, g.record) : -1;
+  if (after >= 0) {
+    if (!g.final && after >= g.bytes.length) return false;
+    takePlainRecord(g, after);
+    return true;
+  }
+  g.scanner.seek(g.position, g.line);
+  g.scanner.next();
+  if (!g.final && g.scanner.offset >= g.bytes.length) return false;
+  takeScannedRecord(g);
+  return true;
+}
+
+/** A record the fast path read (the common case: its numbers are already in their columns): the other sinks read their cells' bounds. */
+function takePlainRecord(g: Reading, after: number): void {
+  const r = g.record++, bytes = g.bytes, { starts, ends } = g.fast!;
+  if (g.blanks.length > 0) flushBlanks(g.blanks, g.fieldCount, g.problems);
+  g.lastContent = r;
+  g.lastLine = g.line + g.lineOffset;
+  for (const sink of g.others) sink.read(bytes, starts[sink.request.field], ends[sink.request.field], 0, r, g.problems);
+  g.position = after;
+  g.line++;
+}
+
+/** A record the general scanner read: a blank line waits for content after it; a faulty record fills its slots with "missing"; else every sink reads its cell. */
+function takeScannedRecord(g: Reading): void {
+  const { scanner, sinks, problems } = g, { starts, ends, escaped } = scanner;
+  const r = g.record++;
+  g.position = scanner.offset;
+  g.line = scanner.nextLine;
+  if (scanner.fieldCount === 1 && scanner.fault === 'none' && isBlank(g.bytes, starts[0], ends[0])) {
+    g.blanks.push(r);
+    for (const sink of sinks) sink.missing(r);
+    return;
+  }
+  flushBlanks(g.blanks, g.fieldCount, problems);
+  g.lastContent = r;
+  g.lastLine = scanner.lastLine + g.lineOffset;
+  if (!acceptFaultless(scanner, g.fieldCount, r, problems, g.lineOffset)) {
+    for (const sink of sinks) sink.missing(r);
+    return;
+  }
+  for (const sink of sinks) sink.read(g.bytes, starts[sink.request.field], ends[sink.request.field], escaped[sink.request.field], r, problems);
+  if (g.plainTimes.length > 0) handBackDated(g);
+}
+
+/** Move the window on, keeping the bytes from g.position (the record not yet read), which is then 0 in the new view, also handed to the scanner and the fast path. */
+function advance(g: Reading): void {
+  const bytes = g.window!.advance(g.position);
+  g.bytes = bytes;
+  g.final = g.window!.final;
+  g.position = 0;
   g.scanner.reframe(bytes);
   for (const sink of g.sinks) sink.bytesMoved();
   if (g.fast) {
     g.fast.bytes = bytes;
     g.fast.end = bytes.length;
   }
-  return bytes;
 }
 
 /**

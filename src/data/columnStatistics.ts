@@ -25,8 +25,7 @@ export const HISTOGRAM_BINS = 30;
 
 /** Statistics of values[i] over the i with include[i] = 1. Throws on an empty selection. */
 export function columnStatistics(values: Float64Array, include: Uint8Array, bins = HISTOGRAM_BINS): ColumnStatistics {
-  // Every row included (the common case): the same sums in the same order, in loops that neither
-  // read `include` nor carry more than one running value (measured some three times faster).
+  // Every row included (the common case): the same sums in the same order, in loops that do not read `include`.
   const every = include.length === values.length && include.indexOf(0) < 0;
   const { count, sum, min, max } = every ? firstPassEvery(values) : firstPass(values, include);
   if (count === 0) throw new RangeError('columnStatistics: no values selected');
@@ -54,11 +53,17 @@ function firstPass(values: Float64Array, include: Uint8Array) {
   return { count, sum, min, max };
 }
 
+/**
+ * Every row included: the loops read no `include`, and each is a function of its own (an
+ * optimised function with two loops left its second loop without type feedback and fell back to
+ * the interpreter there, on every column). The sum, min and max are independent chains, so one
+ * loop carries all three (measured about a fifth faster over ten columns than a loop each).
+ */
 function firstPassEvery(values: Float64Array) {
   let sum = 0, min = Infinity, max = -Infinity;
-  for (let i = 0; i < values.length; i++) sum += values[i];
   for (let i = 0; i < values.length; i++) {
     const x = values[i];
+    sum += x;
     min = x < min ? x : min;
     max = x > max ? x : max;
   }
@@ -79,15 +84,14 @@ function squaredDeviations(values: Float64Array, include: Uint8Array, mean: numb
   return m2;
 }
 
+/** squaredDeviations with every row included: the sum and the bin counts in one loop (independent chains, as in firstPassEvery). */
 function squaredDeviationsEvery(values: Float64Array, mean: number, min: number, perWidth: number, counts: Float64Array): number {
   const last = counts.length - 1;
   let m2 = 0;
   for (let i = 0; i < values.length; i++) {
-    const d = values[i] - mean;
+    const x = values[i], d = x - mean;
     m2 += d * d;
-  }
-  for (let i = 0; i < values.length; i++) {
-    const bin = Math.floor((values[i] - min) * perWidth);
+    const bin = Math.floor((x - min) * perWidth);
     counts[bin > last ? last : bin]++;
   }
   return m2;

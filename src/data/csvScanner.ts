@@ -20,6 +20,8 @@
  * Delimiter, quote, CR and LF are ASCII, so scanning UTF-8 bytes for them is exact (RFC 3629 §3:
  * no byte of a multi-byte sequence is below 0x80).
  */
+import { lineBreakScan } from './lineBreakScan';
+
 export const QUOTE = 0x22;
 const LF = 0x0a, CR = 0x0d, SPACE = 0x20, TAB = 0x09;
 
@@ -180,35 +182,9 @@ export class CsvScanner {
 }
 
 /**
- * Upper bound on the records in bytes[start, end): line breaks + 1. LFs are counted four bytes at a
- * time: for x = word XOR 0x0A0A0A0A, ~(((x & 0x7F7F7F7F) + 0x7F7F7F7F) | x | 0x7F7F7F7F) has the
- * high bit of exactly the bytes of x that are zero, with no carry between bytes (Anderson, "Bit
- * Twiddling Hacks", "Determine if a word has a zero byte"; common practice). The same test for CR
- * only says whether the file has one; then each lone CR (not before an LF) is counted byte by byte.
+ * Upper bound on the records in bytes[start, end): line breaks + 1 (an LF, or a CR not before an
+ * LF; counted four bytes at a time by lineBreakScan.ts).
  */
 export function recordBound(bytes: Uint8Array, start = 0, end = bytes.length): number {
-  const head = Math.min(end, start + ((4 - ((bytes.byteOffset + start) % 4)) % 4));
-  const words = Math.max(0, (end - head) >> 2);
-  let breaks = 0, anyCr = 0;
-  for (let i = start; i < head; i++) {
-    breaks += bytes[i] === LF ? 1 : 0;
-    anyCr |= bytes[i] === CR ? 1 : 0;
-  }
-  const view = words > 0 ? new Uint32Array(bytes.buffer, bytes.byteOffset + head, words) : new Uint32Array(0);
-  for (let w = 0; w < words; w++) {
-    const v = view[w], lf = zeroBytes(v ^ 0x0a0a0a0a);
-    anyCr |= zeroBytes(v ^ 0x0d0d0d0d);
-    if (lf !== 0) breaks += (lf >>> 7 & 1) + (lf >>> 15 & 1) + (lf >>> 23 & 1) + (lf >>> 31);
-  }
-  for (let i = head + 4 * words; i < end; i++) {
-    breaks += bytes[i] === LF ? 1 : 0;
-    anyCr |= bytes[i] === CR ? 1 : 0;
-  }
-  if (anyCr) for (let i = start; i < end; i++) if (bytes[i] === CR && bytes[i + 1] !== LF) breaks++;
-  return breaks + 1;
-}
-
-/** The high bit of each byte of x that is zero, and no other bit. */
-function zeroBytes(x: number): number {
-  return ~(((x & 0x7f7f7f7f) + 0x7f7f7f7f) | x | 0x7f7f7f7f);
+  return lineBreakScan(bytes, start, end).lineBreaks + 1;
 }

@@ -2,14 +2,14 @@
  * The first pass over a file read in pieces (pieceSource.ts): what the whole-file import learns
  * from holding every byte, learnt a window at a time — whether the bytes are UTF-8 as they are
  * (sourceBytes.ts: ASCII without a zero byte, or valid UTF-8 without one, and no UTF-16 mark),
- * whether the file is blank, and how many line breaks it has (csvScanner.ts recordBound: LF, and a
- * CR not before an LF), so the columns can be sized once before the records are read.
+ * whether the file is blank, and how many line breaks it has (LF, and a CR not before an LF;
+ * lineBreakScan.ts, one pass over each piece for these and the ASCII test), so the columns can be
+ * sized once before the records are read.
  */
 import type { PassSteps } from '../core/fqe/cancellation';
 import { isBlank } from './cellText';
-import { recordBound } from './csvScanner';
+import { lineBreakScan } from './lineBreakScan';
 import { readFully, type PieceSource } from './pieceSource';
-import { isAsciiWithoutZero } from './sourceBytes';
 
 export interface PieceFacts {
   /** The bytes are read as UTF-8 as they are (else the whole-file reader decodes them). */
@@ -36,14 +36,15 @@ export function* pieceFactsSteps(source: PieceSource, pieceBytes: number): PassS
       marked = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf;
       utf16Mark = (bytes[0] === 0xff && bytes[1] === 0xfe) || (bytes[0] === 0xfe && bytes[1] === 0xff);
     }
-    if (!isAsciiWithoutZero(bytes)) {
+    const scan = lineBreakScan(bytes);
+    if (!scan.asciiWithoutZero) {
       ascii = false; // from here on every piece goes through the decoder; the ASCII pieces before leave it with nothing pending
       zero ||= bytes.indexOf(0) >= 0;
       valid &&= decodes(decoder, bytes);
     } else if (!ascii) valid &&= decodes(decoder, bytes);
     if (blank) blank = isBlank(bytes, at === 0 && marked ? 3 : 0, bytes.length);
-    // recordBound counts a CR at the end of a piece as lone; it is not when the next piece opens with an LF.
-    lineBreaks += recordBound(bytes) - 1 - (lastWasCr && bytes[0] === LF ? 1 : 0);
+    // A CR at the end of a piece is counted as lone; it is not when the next piece opens with an LF.
+    lineBreaks += scan.lineBreaks - (lastWasCr && bytes[0] === LF ? 1 : 0);
     lastWasCr = bytes[bytes.length - 1] === CR;
     yield;
   }
