@@ -10,6 +10,7 @@ import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
 import { possibleValues } from '../core/diagnostics/possibleValues';
+import { returnConcentration, returnConcentrationFinding } from '../core/diagnostics/returnConcentration';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import type {
@@ -257,6 +258,8 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
     const coverage = startCoverage(plan.data, plan.starts.states), finding = startCoverageFinding(coverage.outside, coverage.starts);
     if (finding) out.push(finding);
   }
+  const concentration = returnConcentrationFinding(returnConcentration(plan.loggedReturn.perEpisode), plan.loggedReturn.episodes, plan.sense);
+  if (concentration) out.push(concentration);
   if (!context.presentControllerModel) out.push({ severity: 'caution', topic: 'presentController', message: `The comparison uses the logged return: ${context.presentControllerReason}.` });
   const truncation = plan.loggedReturn.largestTruncationWeight;
   if (truncation > 1e-3) {
