@@ -3,7 +3,8 @@
  *   share = Σ_{k in the ⌈e/10⌉ runs with the largest |G_k|} G_k / Σ_k G_k,
  * over the runs' discounted returns G_k, all of one sign (costs only, or rewards only). A tenth of
  * equal runs carries 10 %; normal run-to-run scatter a little more (for the battery's plants,
- * 14–28 %, starts two to three times wider than the steady state included).
+ * 12–28 %, starts two to three times wider than the steady state included; the hold-out dryer,
+ * neutralisation tank and batch kettle 11–20 %; the surge drum, defined for rare large upsets, 50–94 %).
  *
  * Why it matters: the intervals resample whole runs, and when a few runs carry most of the return
  * the sampling law of any mean over runs is set by how many of those few a log happens to hold,
