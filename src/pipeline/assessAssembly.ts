@@ -258,7 +258,7 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
     const coverage = startCoverage(plan.data, plan.starts.states), finding = startCoverageFinding(coverage.outside, coverage.starts);
     if (finding) out.push(finding);
   }
-  const concentration = returnConcentrationFinding(returnConcentration(plan.loggedReturn.perEpisode), plan.loggedReturn.episodes, plan.sense);
+  const concentration = returnConcentrationFinding(returnConcentration(plan.loggedReturn.perEpisode), plan.loggedReturn.episodes, plan.loggedReturn.value < 0);
   if (concentration) out.push(concentration);
   if (!context.presentControllerModel) out.push({ severity: 'caution', topic: 'presentController', message: `The comparison uses the logged return: ${context.presentControllerReason}.` });
   const truncation = plan.loggedReturn.largestTruncationWeight;

@@ -45,13 +45,13 @@ export function returnConcentrationRuleText(): string {
     `above ${Math.round(100 * CONCENTRATION_LIMIT)} % a caution, since the intervals resample those few runs (a tail that heavy has an infinite variance, where the bootstrap of a mean fails; Athreya 1987).`;
 }
 
-/** The caution's words, or null at or below the limit. sense: the project's, for the words. */
-export function returnConcentrationFinding(share: number | null, runs: number, sense: 'reward' | 'cost'): { severity: 'caution'; topic: string; message: string } | null {
+/** The caution's words, or null at or below the limit. costs: the logged return is a cost (costs only, in either sense of the project). */
+export function returnConcentrationFinding(share: number | null, runs: number, costs: boolean): { severity: 'caution'; topic: string; message: string } | null {
   if (share === null || !(share > CONCENTRATION_LIMIT)) return null;
-  const top = Math.ceil(CONCENTRATION_RUNS * runs), what = sense === 'cost' ? 'cost' : 'return';
+  const top = Math.ceil(CONCENTRATION_RUNS * runs), which = costs ? `The ${top} costliest` : `The ${top} most rewarding`;
   return {
     severity: 'caution', topic: 'runConcentration',
-    message: `The costliest ${top} of the ${runs} logged runs carry ${(100 * share).toFixed(0)} % of the logged discounted ${what}: the intervals resample runs and rest on those few, ` +
+    message: `${which} of the ${runs} logged runs carry ${(100 * share).toFixed(0)} % of the logged discounted ${costs ? 'cost' : 'return'}: the intervals resample runs and rest on those few, ` +
       'so they, and the verdicts read from them, may be far too narrow or too wide; a longer log with more of the rare events would say more.',
   };
 }

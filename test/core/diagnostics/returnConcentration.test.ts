@@ -35,10 +35,11 @@ describe('return concentration', () => {
   });
 
   it('is a caution only above half, in the project’s words', () => {
-    expect(returnConcentrationFinding(0.5, 250, 'cost')).toBeNull();
-    expect(returnConcentrationFinding(null, 250, 'cost')).toBeNull();
-    expect(returnConcentrationFinding(0.94, 250, 'cost')).toMatchObject({
-      severity: 'caution', topic: 'runConcentration', message: expect.stringMatching(/^The costliest 25 of the 250 logged runs carry 94 % of the logged discounted cost/),
+    expect(returnConcentrationFinding(0.5, 250, true)).toBeNull();
+    expect(returnConcentrationFinding(null, 250, true)).toBeNull();
+    expect(returnConcentrationFinding(0.94, 250, true)).toMatchObject({
+      severity: 'caution', topic: 'runConcentration', message: expect.stringMatching(/^The 25 costliest of the 250 logged runs carry 94 % of the logged discounted cost/),
     });
+    expect(returnConcentrationFinding(0.6, 95, false)!.message).toMatch(/^The 10 most rewarding of the 95 logged runs carry 60 % of the logged discounted return/);
   });
 });
