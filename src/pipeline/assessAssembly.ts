@@ -9,7 +9,8 @@ import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/fu
 import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
-import { intervalOutsidePossible, outsidePossible, possibleValues, type PossibleValues } from '../core/diagnostics/possibleValues';
+import { possibleValues } from '../core/diagnostics/possibleValues';
+import { returnConcentration, returnConcentrationFinding } from '../core/diagnostics/returnConcentration';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import type {
@@ -25,6 +26,7 @@ import type { RolloutOutcome } from './assessRollouts';
 import type { AssessmentSettings } from './assessSettings';
 import { actionSlices } from './assessSlices';
 import type { EvaluationPlan } from './plan/evaluationPlan';
+import { impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
 
@@ -64,7 +66,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
       ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes) }] : []),
       ...networkDisagreement(work),
-      ...impossibleValue(context.plan, possible, work, policyValue.percentile),
+      ...impossibleValue(context.plan, possible, work.model, policyValue),
       ...failedWarning(policyValue),
     ];
     return {
@@ -149,22 +151,6 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
     classes: estimates.map((e) => ({ label: e.label, value: sign * e.value, interval: flip(e.interval), standardError: e.standardError })),
     settled: verdict.settled, range: flip(verdict.range), coverage: verdict.coverageText, reason: verdict.reason,
   };
-}
-
-/**
- * J outside what any policy can reach with rewards in the logged range (core/diagnostics/possibleValues.ts),
- * or its interval (project sense) wholly outside it: serious.
- */
-function impossibleValue(plan: EvaluationPlan, range: PossibleValues, work: CandidateWork, interval: readonly [number, number] | null): AssessmentWarning[] {
-  const j = work.model.fit.policyValue, inReward = interval && (plan.sign > 0 ? interval : [-interval[1], -interval[0]]);
-  const wholly = inReward !== null && intervalOutsidePossible(inReward[0], inReward[1], range);
-  if (!outsidePossible(j, range) && !wholly) return [];
-  const words = plan.sense === 'cost' ? 'costs' : 'rewards', [lo, hi] = plan.sign > 0 ? [range.lower, range.upper] : [-range.upper, -range.lower];
-  const what = wholly && interval ? `J = ${(plan.sign * j).toPrecision(4)} and its whole interval (${interval[0].toPrecision(4)} to ${interval[1].toPrecision(4)}) lie` : `J = ${(plan.sign * j).toPrecision(4)} lies`;
-  return [{
-    severity: 'serious', topic: 'impossibleValue',
-    message: `${what} outside what any policy can reach while its ${words} stay within the logged range (${lo.toPrecision(4)} to ${hi.toPrecision(4)}, discounted): the fit extrapolates far from the logs; do not use this value.`,
-  }];
 }
 
 /** A network's J has no bootstrap replicates here; its own interval (run resamples of the last-layer solve) stands in. */
@@ -272,6 +258,8 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
     const coverage = startCoverage(plan.data, plan.starts.states), finding = startCoverageFinding(coverage.outside, coverage.starts);
     if (finding) out.push(finding);
   }
+  const concentration = returnConcentrationFinding(returnConcentration(plan.loggedReturn.perEpisode), plan.loggedReturn.episodes, plan.loggedReturn.value < 0);
+  if (concentration) out.push(concentration);
   if (!context.presentControllerModel) out.push({ severity: 'caution', topic: 'presentController', message: `The comparison uses the logged return: ${context.presentControllerReason}.` });
   const truncation = plan.loggedReturn.largestTruncationWeight;
   if (truncation > 1e-3) {

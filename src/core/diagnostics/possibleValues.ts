@@ -35,9 +35,12 @@ export function possibleValues(rewards: ArrayLike<number>, discount: number, run
   return { lower: Math.min(lo, lo * horizon), upper: Math.max(hi, hi * horizon) };
 }
 
-/** True when v lies outside the range by more than a relative margin (round-off and small-sample slack; 1 % of the range's width, ours). */
+/** The margin of outsidePossible as a share of the range's width (round-off and small-sample slack; ours). */
+export const POSSIBLE_SLACK = 0.01;
+
+/** True when v lies outside the range by more than a relative margin (POSSIBLE_SLACK of the range's width). */
 export function outsidePossible(v: number, range: PossibleValues): boolean {
-  const slack = 0.01 * (range.upper - range.lower);
+  const slack = POSSIBLE_SLACK * (range.upper - range.lower);
   return v < range.lower - slack || v > range.upper + slack;
 }
 

@@ -1,0 +1,67 @@
+/**
+ * Impossible values (core/diagnostics/possibleValues.ts, possibleStateValues.ts): J outside what any
+ * policy can reach with rewards in the logged range, its interval wholly outside it, or the fitted
+ * V̂ outside it at most of the logged states. One serious finding per candidate, in the project's
+ * sense; the first rule that applies gives its words.
+ */
+import { stateValuesOutsidePossible, evenStride, type StateValuesOutside } from '../core/diagnostics/possibleStateValues';
+import { intervalOutsidePossible, outsidePossible, type PossibleValues } from '../core/diagnostics/possibleValues';
+import { linearStateValues } from '../core/features/linearStateValues';
+import { MAX_VALUE_CHECK_STATES } from '../core/limits';
+import { stateValues, ValueQueryError } from '../core/value';
+import type { AssessmentWarning, IntervalEstimate } from './assessment';
+import type { CandidateModel } from './model/candidateModel';
+import type { EvaluationPlan } from './plan/evaluationPlan';
+
+const TOPIC = 'impossibleValue';
+
+export function impossibleValue(plan: EvaluationPlan, range: PossibleValues, model: CandidateModel, estimate: IntervalEstimate): AssessmentWarning[] {
+  const j = model.fit.policyValue, interval = estimate.percentile, inReward = interval && (plan.sign > 0 ? interval : [-interval[1], -interval[0]]);
+  const wholly = inReward !== null && intervalOutsidePossible(inReward[0], inReward[1], range);
+  if (outsidePossible(j, range) || wholly) {
+    const what = wholly && interval ? `J = ${(plan.sign * j).toPrecision(4)} and its whole interval (${interval[0].toPrecision(4)} to ${interval[1].toPrecision(4)}) lie` : `J = ${(plan.sign * j).toPrecision(4)} lies`;
+    return [{
+      severity: 'serious', topic: TOPIC,
+      message: `${what} outside what any policy can reach while its ${words(plan)} stay within the logged range (${rangeText(plan, range)}, discounted): the fit extrapolates far from the logs; do not use this value.`,
+    }];
+  }
+  const outside = estimate.standardError === null ? null : stateCheck(plan, range, model, estimate.standardError);
+  return outside ? [stateFinding(plan, range, outside, estimate.standardError!)] : [];
+}
+
+function words(plan: EvaluationPlan): string {
+  return plan.sense === 'cost' ? 'costs' : 'rewards';
+}
+
+function rangeText(plan: EvaluationPlan, range: PossibleValues): string {
+  const [lo, hi] = plan.sign > 0 ? [range.lower, range.upper] : [-range.upper, -range.lower];
+  return `${lo.toPrecision(4)} to ${hi.toPrecision(4)}`;
+}
+
+/** V̂ at up to MAX_VALUE_CHECK_STATES logged states against the range; null when V̂ cannot be taken there (a value that is not finite). */
+function stateCheck(plan: EvaluationPlan, range: PossibleValues, model: CandidateModel, standardError: number): StateValuesOutside | null {
+  const data = plan.data, ds = data.stateDim, rows = evenStride(data.count, MAX_VALUE_CHECK_STATES), count = rows.length;
+  const states = new Float64Array(count * ds);
+  for (let i = 0; i < count; i++) for (let c = 0; c < ds; c++) states[i * ds + c] = data.states[rows[i] * ds + c];
+  let values: Float64Array;
+  try {
+    const linear = model.linear;
+    values = linear ? linearStateValues(linear.features, linear.weights, model.quadrature, states, count, ds)
+      : stateValues(model.fit.q, model.policy, states, count, model.quadrature);
+  } catch (error) {
+    if (error instanceof ValueQueryError) return null;
+    throw error;
+  }
+  return stateValuesOutsidePossible(values, range, standardError);
+}
+
+function stateFinding(plan: EvaluationPlan, range: PossibleValues, outside: StateValuesOutside, standardError: number): AssessmentWarning {
+  // Project sense: a cost project's range and values are the reward's negated, so its ends swap.
+  const median = plan.sign * outside.median, past = (outside.side === 'above') === plan.sign > 0 ? 'above' : 'below';
+  return {
+    severity: 'serious', topic: TOPIC,
+    message: `The fitted value lies outside what any policy can reach on most of the logged states: V̂ has median ${median.toPrecision(4)} over ${outside.states} logged states, ` +
+      `${(100 * outside.share).toFixed(1)} % of them ${past} the possible range (${rangeText(plan, range)}, discounted, while the ${words(plan)} stay within the logged range), ` +
+      `more than one standard error of J (${standardError.toPrecision(3)}) past its end. The fit fails where it has data, and its interval, the same fit on resampled runs, cannot show it: do not use this value.`,
+  };
+}
