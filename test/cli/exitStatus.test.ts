@@ -12,6 +12,6 @@ describe('exit status', () => {
     expect(exitStatusOf(withStatuses('maxIterations'))).toBe(3);
   });
   it('keeps the documented codes', () => {
-    expect(EXIT).toEqual({ ok: 0, badInput: 1, usage: 2, notConverged: 3, cancelled: 130, internal: 70 });
+    expect(EXIT).toEqual({ ok: 0, badInput: 1, usage: 2, notConverged: 3, cancelled: 130, outputClosed: 141, internal: 70 });
   });
 });
