@@ -63,18 +63,19 @@ export function endChanceData(data: ModelData, index: EpisodeIndex, features: Fe
 
 /**
  * The rows regressed and their weights: all of them when the log has at most maxRows; else every end
- * up to half of maxRows and an even stride of the rest, each class weighted by rows it has ÷ rows
- * kept. No row at all where nothing ends.
+ * up to half of maxRows and as many of the rest as fill maxRows, evenly spread through the log, each
+ * class weighted by rows it has ÷ rows kept. No row at all where nothing ends.
  */
 function keptRows(terminal: Uint8Array, maxRows: number): { rows: Int32Array; weights: Float64Array } {
   const n = terminal.length, ends = terminal.reduce((s, t) => s + (t !== 0 ? 1 : 0), 0);
   if (ends === 0) return { rows: new Int32Array(0), weights: new Float64Array(0) };
   if (n <= maxRows) return { rows: Int32Array.from({ length: n }, (_, i) => i), weights: new Float64Array(n).fill(1) };
   const endsKept = Math.min(ends, Math.floor(maxRows / 2)), othersKept = Math.min(n - ends, maxRows - endsKept);
-  const strideEnds = Math.ceil(ends / endsKept), strideOthers = othersKept > 0 ? Math.ceil((n - ends) / othersKept) : 1;
+  // Row j of a class of `had` rows is kept when ⌊(j + 1)·kept/had⌋ passes an integer: exactly `kept` of them, evenly spread.
+  const keeps = (j: number, had: number, kept: number) => Math.floor(((j + 1) * kept) / had) > Math.floor((j * kept) / had);
   const rows: number[] = [];
   for (let i = 0, e = 0, o = 0; i < n; i++) {
-    if (terminal[i] !== 0 ? e++ % strideEnds === 0 : o++ % strideOthers === 0) rows.push(i);
+    if (terminal[i] !== 0 ? keeps(e++, ends, endsKept) : keeps(o++, n - ends, othersKept)) rows.push(i);
   }
   const picked = Int32Array.from(rows), pickedEnds = picked.reduce((s, i) => s + (terminal[i] !== 0 ? 1 : 0), 0);
   const endWeight = ends / pickedEnds, otherWeight = picked.length > pickedEnds ? (n - ends) / (picked.length - pickedEnds) : 1;

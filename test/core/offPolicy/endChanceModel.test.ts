@@ -72,7 +72,7 @@ describe('the end-chance model on a log longer than its row budget', () => {
     const n = 60_000, x = Array.from({ length: n }, (_, i) => (3 * ((i * 7919) % n)) / n);
     const rng = createRandom(3), ended = x.map((v) => (rng.uniform() < 1 / (1 + Math.exp(5 - v)) ? 1 : 0));
     const data = log(x, ended, x.map((_, i) => Math.floor(i / 10)));
-    const ends = ended.reduce((s, e) => s + e, 0);
+    const ends = ended.reduce<number>((s, e) => s + e, 0);
     expect(ends).toBeLessThan(3_000);
     const full = endChanceData(data, indexEpisodes(data), linearInX)!, small = endChanceData(data, indexEpisodes(data), linearInX, 6_000)!;
     expect(small.ended.length).toBeLessThanOrEqual(6_000);
