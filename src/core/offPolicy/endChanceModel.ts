@@ -12,11 +12,13 @@
  *
  * A bootstrap resample refits from the full data's β (a few Newton steps) with each transition
  * weighted by its episode's multiplicity, so the rollouts' spread includes the end model's.
+ * A log longer than END_MODEL_ROWS is regressed on a weighted subsample (../limits.ts says how).
  *
- * Shapes: n transitions; d features; the design X (n×d, row-major) formed once.
+ * Shapes: n rows regressed (at most END_MODEL_ROWS); d features; the design X (n×d, row-major) formed once.
  */
 import type { EpisodeIndex } from '../bootstrap/episodeTransitions';
 import type { FeatureMap } from '../features/featureMap';
+import { END_MODEL_ROWS } from '../limits';
 import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
 import { ModelFitError } from './linearQuadraticModel';
 import type { ModelData } from './polynomialDynamicsModel';
@@ -33,6 +35,8 @@ export interface EndChanceData {
   readonly design: Float64Array; // n×d
   readonly ended: Uint8Array; // n
   readonly episodeOf: Int32Array; // n: the transition's episode
+  /** Each row's sampling weight: 1 where every row of its class is kept. */
+  readonly rowWeight: Float64Array; // n
 }
 
 export interface EndChanceFit {
@@ -41,23 +45,47 @@ export interface EndChanceFit {
 }
 
 /** The regression's data; null where no logged transition ends its run (the model then never ends one). */
-export function endChanceData(data: ModelData, index: EpisodeIndex, features: FeatureMap): EndChanceData | null {
-  const n = data.count, ds = data.stateDim, m = data.actionDim, d = features.dim;
-  if (!data.terminal.some((t) => t !== 0)) return null;
-  const design = new Float64Array(n * d), input = new Float64Array(ds + m), episodeOf = new Int32Array(n);
-  for (let i = 0; i < n; i++) {
+export function endChanceData(data: ModelData, index: EpisodeIndex, features: FeatureMap, maxRows = END_MODEL_ROWS): EndChanceData | null {
+  const ds = data.stateDim, m = data.actionDim, d = features.dim;
+  const { rows, weights } = keptRows(data.terminal, maxRows);
+  if (rows.length === 0) return null;
+  const n = rows.length, design = new Float64Array(n * d), input = new Float64Array(ds + m), episodeOfRow = new Int32Array(data.count);
+  for (let k = 0; k < index.episodes; k++) for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) episodeOfRow[index.order[p]] = k;
+  rows.forEach((i, r) => {
     input.set(data.states.subarray(i * ds, (i + 1) * ds));
     input.set(data.actions.subarray(i * m, (i + 1) * m), ds);
-    features.evaluate(input, 0, design, i * d);
+    features.evaluate(input, 0, design, r * d);
+  });
+  return {
+    features, design, ended: Uint8Array.from(rows, (i) => (data.terminal[i] !== 0 ? 1 : 0)), episodeOf: Int32Array.from(rows, (i) => episodeOfRow[i]), rowWeight: weights,
+  };
+}
+
+/**
+ * The rows regressed and their weights: all of them when the log has at most maxRows; else every end
+ * up to half of maxRows and as many of the rest as fill maxRows, evenly spread through the log, each
+ * class weighted by rows it has ÷ rows kept. No row at all where nothing ends.
+ */
+function keptRows(terminal: Uint8Array, maxRows: number): { rows: Int32Array; weights: Float64Array } {
+  const n = terminal.length, ends = terminal.reduce((s, t) => s + (t !== 0 ? 1 : 0), 0);
+  if (ends === 0) return { rows: new Int32Array(0), weights: new Float64Array(0) };
+  if (n <= maxRows) return { rows: Int32Array.from({ length: n }, (_, i) => i), weights: new Float64Array(n).fill(1) };
+  const endsKept = Math.min(ends, Math.floor(maxRows / 2)), othersKept = Math.min(n - ends, maxRows - endsKept);
+  // Row j of a class of `had` rows is kept when ⌊(j + 1)·kept/had⌋ passes an integer: exactly `kept` of them, evenly spread.
+  const keeps = (j: number, had: number, kept: number) => Math.floor(((j + 1) * kept) / had) > Math.floor((j * kept) / had);
+  const rows: number[] = [];
+  for (let i = 0, e = 0, o = 0; i < n; i++) {
+    if (terminal[i] !== 0 ? keeps(e++, ends, endsKept) : keeps(o++, n - ends, othersKept)) rows.push(i);
   }
-  for (let k = 0; k < index.episodes; k++) for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) episodeOf[index.order[p]] = k;
-  return { features, design, ended: Uint8Array.from(data.terminal, (t) => (t !== 0 ? 1 : 0)), episodeOf };
+  const picked = Int32Array.from(rows), pickedEnds = picked.reduce((s, i) => s + (terminal[i] !== 0 ? 1 : 0), 0);
+  const endWeight = ends / pickedEnds, otherWeight = picked.length > pickedEnds ? (n - ends) / (picked.length - pickedEnds) : 1;
+  return { rows: picked, weights: Float64Array.from(picked, (i) => (terminal[i] !== 0 ? endWeight : otherWeight)) };
 }
 
 /** β on the full data (multiplicities omitted) or on a bootstrap resample, from `start` (zeros if omitted). */
 export function fitEndChance(source: EndChanceData, multiplicities?: ArrayLike<number>, start?: Float64Array): EndChanceFit {
   const d = source.features.dim, n = source.ended.length;
-  const weightOf = (i: number) => (multiplicities ? multiplicities[source.episodeOf[i]] : 1);
+  const weightOf = (i: number) => source.rowWeight[i] * (multiplicities ? multiplicities[source.episodeOf[i]] : 1);
   let total = 0;
   for (let i = 0; i < n; i++) total += weightOf(i);
   if (!(total > d)) throw new ModelFitError(`fitting the chance that a run ends needs more than ${d} transitions, got ${total}`);

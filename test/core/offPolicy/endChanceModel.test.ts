@@ -12,6 +12,7 @@ import { describe, expect, it } from 'vitest';
 import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
 import { createPolynomialFeatures, polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
 import { endChance, endChanceData, fitEndChance } from '../../../src/core/offPolicy/endChanceModel';
+import { createRandom } from '../../../src/core/random';
 import type { TransitionSet } from '../../../src/core/transitions';
 
 /** One transition per row, state x, action 0; run k holds rows of `runOf`; the row ends its run where `ended` is 1. */
@@ -61,5 +62,24 @@ describe('the chance that a step ends its run', () => {
   it('has no model where no row ends its run', () => {
     const data = log([0, 1, 2], [0, 0, 0], [0, 0, 0]);
     expect(endChanceData(data, indexEpisodes(data), linearInX)).toBeNull();
+  });
+});
+
+describe('the end-chance model on a log longer than its row budget', () => {
+  it('regresses a weighted subsample that keeps every end and gives the full fit’s chances', () => {
+    // 60,000 rows, end chance σ(x − 5) for x spread evenly over [0, 3) (about 4 % end): a budget of 6,000 rows keeps every end
+    // and a stride of the rest, weighted by rows had ÷ rows kept (case-control sampling with weights; King & Zeng 2001).
+    const n = 60_000, x = Array.from({ length: n }, (_, i) => (3 * ((i * 7919) % n)) / n);
+    const rng = createRandom(3), ended = x.map((v) => (rng.uniform() < 1 / (1 + Math.exp(5 - v)) ? 1 : 0));
+    const data = log(x, ended, x.map((_, i) => Math.floor(i / 10)));
+    const ends = ended.reduce<number>((s, e) => s + e, 0);
+    expect(ends).toBeLessThan(3_000);
+    const full = endChanceData(data, indexEpisodes(data), linearInX)!, small = endChanceData(data, indexEpisodes(data), linearInX, 6_000)!;
+    expect(small.ended.length).toBeLessThanOrEqual(6_000);
+    expect(small.ended.reduce((s, e) => s + e, 0)).toBe(ends);
+    const total = small.rowWeight.reduce((s, w) => s + w, 0);
+    expect(total).toBeCloseTo(n, 6);
+    const a = fitEndChance(full), b = fitEndChance(small);
+    for (const v of [0, 1.5, 2.9]) expect(endChance(b, [1, v, 0])).toBeCloseTo(endChance(a, [1, v, 0]), 2);
   });
 });
