@@ -45,7 +45,7 @@ export interface RolloutValue {
   readonly value: number; // Ĵ, reward sense
   readonly monteCarloError: number; // standard error of Ĵ from the rollouts' noise alone
   readonly steps: number; // L
-  /** Σ_t γ^t [state held at the range box] / Σ_t γ^t, averaged over rollouts. */
+  /** Σ_t γ^t [state held at the range box] / Σ_t γ^t over the steps simulated (to the end where a run ends), averaged over rollouts. */
   readonly shareOutsideLogs: number;
 }
 
@@ -92,7 +92,7 @@ function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: 
   return (starts: Float64Array, offset: number, seed: number): { value: number; held: number } => {
     const rng = createRandom(seed);
     for (let c = 0; c < ds; c++) input[c] = starts[offset + c];
-    let value = 0, held = 0, power = 1;
+    let value = 0, held = 0, power = 1, simulated = 0;
     for (let t = 0; t < steps; t++, power *= discount) {
       sampleAction(policy, input, rng, action);
       input.set(action, ds);
@@ -111,8 +111,10 @@ function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: 
         input[c] = Math.min(high[c], Math.max(low[c], next));
       }
       if (atBox) held += power;
+      simulated += power;
       if (ends && rng.uniform() < endChance(ends, psi)) break;
     }
-    return { value, held: held * norm };
+    // Over the steps this run had: a run that ended early and spent them all at the box is held throughout, not a small share of L steps.
+    return { value, held: ends ? held / simulated : held * norm };
   };
 }
