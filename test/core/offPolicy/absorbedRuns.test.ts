@@ -22,59 +22,12 @@ import { loggedDiscountedReturn } from '../../../src/core/loggedReturn';
 import { importanceWeightTable } from '../../../src/core/offPolicy/importanceWeights';
 import { perDecisionData, perDecisionEstimates } from '../../../src/core/offPolicy/perDecisionEstimators';
 import { perDecisionResamples, prepareResampleEntries } from '../../../src/core/offPolicy/perDecisionResamples';
-import { createGaussianPolicy } from '../../../src/core/policy';
-import { createRandom } from '../../../src/core/random';
-import type { TransitionSet } from '../../../src/core/transitions';
+import { behaviour, bootstrapSpread, candidate, chainRuns, discount, exactValues, standardDeviation, truth } from './endingMovesChain';
 
-const discount = 0.9, truth = -8.760977254151745, goingOnWrongly = -1.74 / (1 - discount);
-const behaviour = createGaussianPolicy({ offset: [0], gain: [[0]], std: [1] }, 1);
-const candidate = createGaussianPolicy({ offset: [0.5], gain: [[0]], std: [0.7] }, 1);
-
-/** The end chance p(a) = Φ(a − 2), from the rational approximation of erfc (Abramowitz & Stegun 7.1.26, |ε| < 1.5e-7). */
-function endChance(a: number): number {
-  const z = (a - 2) / Math.SQRT2, t = 1 / (1 + 0.3275911 * Math.abs(z));
-  const erfcAbs = t * (0.254829592 + t * (-0.284496736 + t * (1.421413741 + t * (-1.453152027 + t * 1.061405429)))) * Math.exp(-z * z);
-  return z >= 0 ? 1 - 0.5 * erfcAbs : 0.5 * erfcAbs; // Φ(x) = erfc(−x/√2)/2
-}
-
-/** Runs logged under N(0, 1), each ending in the absorbing state (terminal 1); a 400-step limit is never reached in practice. */
-function endingRuns(runs: number, seed: number): TransitionSet {
-  const rng = createRandom(seed), actions: number[] = [], terminal: number[] = [], episode: number[] = [];
-  for (let k = 0; k < runs; k++) {
-    for (let t = 0; t < 400; t++) {
-      const a = rng.normal(), done = rng.uniform() < endChance(a) ? 1 : 0;
-      actions.push(a);
-      terminal.push(done);
-      episode.push(k);
-      if (done) break;
-    }
-  }
-  const n = actions.length, zeros = new Float64Array(n);
-  return {
-    count: n, stateDim: 1, actionDim: 1, stateNames: ['level'], actionNames: ['move'], states: zeros, nextStates: zeros,
-    actions: Float64Array.from(actions), rewards: Float64Array.from(actions, (a) => -1 - a * a), terminal: Uint8Array.from(terminal),
-    episode: Int32Array.from(episode), episodeCount: runs, startStates: new Float64Array(runs), sourceLine: Int32Array.from({ length: n }, (_, i) => i + 2),
-  };
-}
-
-/** Exact Q and V of the candidate in the table's episode-major order. */
-function exactValues(data: TransitionSet) {
-  const index = indexEpisodes(data), actionValues = new Float64Array(data.count), stateValues = new Float64Array(data.count).fill(truth);
-  for (let p = 0; p < data.count; p++) {
-    const a = data.actions[index.order[p]];
-    actionValues[p] = -1 - a * a + discount * (1 - endChance(a)) * truth;
-  }
-  return { actionValues, stateValues };
-}
-
-/** The sample standard deviation: the bootstrap standard error of a statistic from its resamples. */
-function standardDeviation(x: readonly number[]): number {
-  const mean = x.reduce((s, v) => s + v, 0) / x.length;
-  return Math.sqrt(x.reduce((s, v) => s + (v - mean) ** 2, 0) / (x.length - 1));
-}
+const goingOnWrongly = -1.74 / (1 - discount);
 
 describe('per-decision estimators on runs that end in an absorbing state', () => {
-  const data = endingRuns(4000, 3), index = indexEpisodes(data);
+  const { data } = chainRuns(4000, 3, () => 400), index = indexEpisodes(data); // a 400-step limit is never reached in practice
 
   it('on-policy, weighted importance sampling is the mean discounted return of every run, 0 after its end', () => {
     // Every weight is 1, and padded every run is present at every step: the on-policy Monte Carlo estimate (Sutton & Barto, 2nd ed., §5.1).
@@ -84,15 +37,7 @@ describe('per-decision estimators on runs that end in an absorbing state', () =>
 
   it('hold the closed form for a candidate that changes how soon runs end, within three bootstrap standard errors', () => {
     const table = importanceWeightTable(data, index, candidate, behaviour), exact = perDecisionData(table, exactValues(data));
-    const full = perDecisionEstimates(exact, discount), entries = prepareResampleEntries(exact), is: number[] = [], dr: number[] = [];
-    for (let first = 0; first < 200; first += 8) {
-      const block = Array.from({ length: 8 }, (_, b) => episodeMultiplicities(data.episodeCount, 11, first + b));
-      for (const outcome of perDecisionResamples(entries, discount, block)) {
-        if (outcome instanceof Error) throw outcome;
-        is.push(outcome.importanceSampling);
-        dr.push(outcome.doublyRobust!);
-      }
-    }
+    const full = perDecisionEstimates(exact, discount), { is, dr } = bootstrapSpread(exact, 11);
     const isError = standardDeviation(is), drError = standardDeviation(dr);
     expect(Math.abs(full.importanceSampling - truth)).toBeLessThan(3 * isError);
     expect(Math.abs(full.doublyRobust! - truth)).toBeLessThan(3 * drError);
