@@ -16,6 +16,7 @@
  *
  * Shapes: n rows regressed (at most END_MODEL_ROWS); d features; the design X (n×d, row-major) formed once.
  */
+import { absorbingEndCount } from '../absorbingEnds';
 import type { EpisodeIndex } from '../bootstrap/episodeTransitions';
 import type { FeatureMap } from '../features/featureMap';
 import { END_MODEL_ROWS } from '../limits';
@@ -67,7 +68,7 @@ export function endChanceData(data: ModelData, index: EpisodeIndex, features: Fe
  * class weighted by rows it has ÷ rows kept. No row at all where nothing ends.
  */
 function keptRows(terminal: Uint8Array, maxRows: number): { rows: Int32Array; weights: Float64Array } {
-  const n = terminal.length, ends = terminal.reduce((s, t) => s + (t !== 0 ? 1 : 0), 0);
+  const n = terminal.length, ends = absorbingEndCount(terminal);
   if (ends === 0) return { rows: new Int32Array(0), weights: new Float64Array(0) };
   if (n <= maxRows) return { rows: Int32Array.from({ length: n }, (_, i) => i), weights: new Float64Array(n).fill(1) };
   const endsKept = Math.min(ends, Math.floor(maxRows / 2)), othersKept = Math.min(n - ends, maxRows - endsKept);
@@ -113,19 +114,26 @@ export function endChance(fit: EndChanceFit, psi: ArrayLike<number>, offset = 0)
   return logistic(eta);
 }
 
+/** βᵀx_i for row i of the design (d = β's length). */
+function linearPredictor(design: Float64Array, i: number, beta: Float64Array): number {
+  const d = beta.length;
+  let eta = 0;
+  for (let j = 0; j < d; j++) eta += beta[j] * design[i * d + j];
+  return eta;
+}
+
 function logistic(eta: number): number {
   return eta >= 0 ? 1 / (1 + Math.exp(-eta)) : Math.exp(eta) / (1 + Math.exp(eta));
 }
 
 /** (1/N) Σ w_i [y_i η_i − log(1 + e^η_i)] − (RIDGE/2)‖β‖², with log(1 + e^η) formed without overflow. */
 function penalisedLikelihood(source: EndChanceData, beta: Float64Array, weightOf: (i: number) => number, total: number): number {
-  const d = beta.length, { design, ended } = source;
+  const { design, ended } = source;
   let sum = 0;
   for (let i = 0; i < ended.length; i++) {
     const w = weightOf(i);
     if (w === 0) continue;
-    let eta = 0;
-    for (let j = 0; j < d; j++) eta += beta[j] * design[i * d + j];
+    const eta = linearPredictor(design, i, beta);
     const softplus = eta > 0 ? eta + Math.log1p(Math.exp(-eta)) : Math.log1p(Math.exp(eta));
     sum += w * (ended[i] * eta - softplus);
   }
@@ -138,9 +146,7 @@ function newtonDirection(source: EndChanceData, beta: Float64Array, weightOf: (i
   for (let i = 0; i < ended.length; i++) {
     const w = weightOf(i);
     if (w === 0) continue;
-    let eta = 0;
-    for (let j = 0; j < d; j++) eta += beta[j] * design[i * d + j];
-    const p = logistic(eta), residual = (w * (ended[i] - p)) / total, curvature = (w * p * (1 - p)) / total;
+    const p = logistic(linearPredictor(design, i, beta)), residual = (w * (ended[i] - p)) / total, curvature = (w * p * (1 - p)) / total;
     for (let j = 0; j < d; j++) {
       const xj = design[i * d + j];
       gradient[j] += residual * xj;
