@@ -88,7 +88,6 @@ function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: 
   const low = reg.stateLow.map((v, c) => v - RANGE_MARGIN * (reg.stateHigh[c] - v));
   const high = reg.stateHigh.map((v, c) => v + RANGE_MARGIN * (v - reg.stateLow[c]));
   const input = new Float64Array(ds + m), action = new Float64Array(m), phi = new Float64Array(d), psi = new Float64Array(dr), z = new Float64Array(ds);
-  const norm = (1 - discount) / (1 - discount ** steps);
   return (starts: Float64Array, offset: number, seed: number): { value: number; held: number } => {
     const rng = createRandom(seed);
     for (let c = 0; c < ds; c++) input[c] = starts[offset + c];
@@ -114,7 +113,7 @@ function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: 
       simulated += power;
       if (ends && rng.uniform() < endChance(ends, psi)) break;
     }
-    // Over the steps this run had: a run that ended early and spent them all at the box is held throughout, not a small share of L steps.
-    return { value, held: ends ? held / simulated : held * norm };
+    // Over the steps this run had (L where runs do not end): one that ended early and spent them all at the box is held throughout.
+    return { value, held: held / simulated };
   };
 }
