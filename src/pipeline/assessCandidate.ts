@@ -13,7 +13,7 @@ import type { CancellationCheck } from '../core/fqe/cancellation';
 import type { FittedBehaviour } from '../core/offPolicy/behaviourPolicy';
 import { ImportanceRatioError } from '../core/offPolicy/importanceRatio';
 import { importanceWeightTable, type ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
-import { perDecisionData, type PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
+import { ImportanceSamplingError, perDecisionData, type PerDecisionData } from '../core/offPolicy/perDecisionEstimators';
 import { stateValues } from '../core/value';
 import { linearStateValues } from '../core/features/linearStateValues';
 import type { CandidateModel } from './model/candidateModel';
@@ -155,5 +155,10 @@ function offPolicyInputs(context: AssessmentContext, model: CandidateModel): Off
   const linear = model.linear, valuesAtStates = linear ? linearStateValues(linear.features, linear.weights, model.quadrature, states, n, ds)
     : stateValues(model.fit.q, model.policy, states, n, model.quadrature);
   const values = { actionValues, stateValues: valuesAtStates };
-  return { table, perDecision: perDecisionData(table, values, { finalStateValues: ends.values, tailWeights: ends.tailWeights }) };
+  try {
+    return { table, perDecision: perDecisionData(table, values, { finalStateValues: ends.values, tailWeights: ends.tailWeights }) };
+  } catch (error) {
+    if (error instanceof ImportanceSamplingError) return { reason: error.message };
+    throw error;
+  }
 }

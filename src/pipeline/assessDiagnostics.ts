@@ -10,6 +10,7 @@ import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
 import { meanStartFeatures } from '../core/features/policyFeatures';
 import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { effectiveSampleSizeFromLogs } from '../core/diagnostics/effectiveSampleSize';
+import { paddedLogWeightsAtStep } from '../core/offPolicy/paddedHorizonWeights';
 import { occupancyShift } from '../core/diagnostics/occupancyShift';
 import { actionSupportFinding, effectiveShareFinding, occupancyShiftFinding } from '../core/diagnostics/severity';
 import type { BellmanStatistics } from '../core/fqe/bellmanStatistics';
@@ -85,12 +86,8 @@ function shiftUpper(context: AssessmentContext, model: CandidateModel): number |
 function weightDiagnostics(table: ImportanceWeightTable, discount: number): ImportanceWeightDiagnostics {
   const oneStep = effectiveSampleSizeFromLogs(table.logRatio);
   const horizonSteps = Math.max(1, Math.min(table.horizon, Math.round(1 / (1 - discount))));
-  const atHorizon: number[] = [], { offsets } = table.index;
-  for (let p = 0; p < table.step.length; p++) if (table.step[p] === horizonSteps - 1) atHorizon.push(table.logWeight[p]);
-  // Runs absorbed in an end state before that step are still present there with their last weight (padded; core/offPolicy/importanceWeights.ts).
-  for (let k = 0; k < table.absorbed.length; k++) {
-    if (table.absorbed[k] && offsets[k + 1] - offsets[k] < horizonSteps) atHorizon.push(table.logWeight[offsets[k + 1] - 1]);
-  }
+  // Runs that ended in an end state before that step are still there with their last weight (padded), times the censoring factor the estimators give them.
+  const atHorizon = paddedLogWeightsAtStep(table, horizonSteps - 1);
   return {
     oneStepEffectiveSize: oneStep, oneStepShare: oneStep / table.step.length,
     horizonSteps, horizonEffectiveEpisodes: effectiveSampleSizeFromLogs(atHorizon), horizonEpisodes: atHorizon.length,

@@ -118,6 +118,7 @@ export function perDecisionData(
   table: ImportanceWeightTable, values: { actionValues: Float64Array; stateValues: Float64Array } | null, tails?: EpisodeTails,
 ): PerDecisionData {
   const { index, horizon, step } = table, n = step.length;
+  if (values) refuseNonFinite(table, values);
   const stepOffsets = new Int32Array(horizon + 1);
   for (let p = 0; p < n; p++) stepOffsets[step[p] + 1]++;
   for (let t = 0; t < horizon; t++) stepOffsets[t + 1] += stepOffsets[t];
@@ -140,6 +141,18 @@ export function perDecisionData(
     actionValues: values && gather(values.actionValues), stateValues: values && gather(values.stateValues),
     ...episodeEndGroups(table, tails), ...absorbedGroups(table), ...cutGroups(table),
   };
+}
+
+/** A fitted Q̂ or V̂ that is not a finite number would make the doubly robust sum NaN: refuse it, naming the run and step. */
+function refuseNonFinite(table: ImportanceWeightTable, values: { actionValues: Float64Array; stateValues: Float64Array }): void {
+  for (const [name, a] of [['Q̂', values.actionValues], ['V̂', values.stateValues]] as const) {
+    for (let p = 0; p < a.length; p++) {
+      if (Number.isFinite(a[p])) continue;
+      let k = 0;
+      while (table.index.offsets[k + 1] <= p) k++;
+      throw new ImportanceSamplingError(`the fitted ${name} at run ${k + 1}, step ${table.step[p] + 1} is not a finite number: the fit broke down there, so the checks that reweight the logged runs cannot use it`);
+    }
+  }
 }
 
 /** The runs of `table` for which `member` holds, grouped by length T: offsets (H+2) and runs. */

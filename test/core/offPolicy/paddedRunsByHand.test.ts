@@ -5,13 +5,18 @@
  * (perDecisionResamples.ts) against the one-pass route on random logs that mix time limits, absorbed
  * runs, runs of length 0 and unequal lengths.
  *
+ * Also the weights behind the effective size at a step (paddedHorizonWeights.ts), and the refusal of a
+ * fitted value that is not a finite number.
+ *
  * The importance ratio of a logged move a between N(0.5, 0.7²) and N(0, 1) is written out here from
  * the normal density (common practice): ρ(a) = exp(−(a − 0.5)²/(2·0.49) + a²/2)/0.7.
  */
 import { describe, expect, it } from 'vitest';
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
 import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
+import { effectiveSampleSizeFromLogs } from '../../../src/core/diagnostics/effectiveSampleSize';
 import { importanceWeightTable } from '../../../src/core/offPolicy/importanceWeights';
+import { paddedLogWeightsAtStep } from '../../../src/core/offPolicy/paddedHorizonWeights';
 import { ImportanceSamplingError, perDecisionData, perDecisionEstimates, type PerDecisionEstimates } from '../../../src/core/offPolicy/perDecisionEstimators';
 import { perDecisionResamples, prepareResampleEntries, RESAMPLE_BLOCK } from '../../../src/core/offPolicy/perDecisionResamples';
 import { createGaussianPolicy } from '../../../src/core/policy';
@@ -179,5 +184,53 @@ describe('padded estimators at the edges of the number range', () => {
     const fast = perDecisionResamples(prepareResampleEntries(prepared), discount, [new Uint32Array([1, 1])])[0];
     if (fast instanceof Error) throw fast;
     close(fast.importanceSampling, -1 - discount);
+  });
+});
+
+/**
+ * The weights behind the effective size at a step (paddedHorizonWeights.ts) against a hand computation
+ * of the padded estimators' normaliser there. Run A acts at steps 0–3; B ends in the end state after
+ * step 0; C is cut by a time limit after step 1; D ends in the end state after step 1. At h = 2:
+ *   κ_1 = 1 (nothing is cut at 1), κ_2 = W_A1/(W_A1 + W_C1) (A goes on, C is cut: Kaplan & Meier's
+ *   share of the runs known to be going that are not cut), so A weighs W_A2, B W_B0·κ_1·κ_2, D W_D1·κ_2.
+ * The estimators give step 2's rewards exactly these weights: with reward 1 at A's step 2 and 0
+ * elsewhere, WPDIS is γ² W_A2 / (their sum).
+ */
+describe('the effective size at a step uses the weights the padded estimators give there', () => {
+  const discount = 0.9, moves = { A: [0.3, -0.4, 1.2, 0.1], B: [1.1], C: [-0.6, 0.9], D: [0.7, -1.3] };
+  const runsOf = (atStepTwo: number): Run[] => [
+    { actions: moves.A, rewards: [0, 0, atStepTwo, 0], absorbed: false },
+    { actions: moves.B, rewards: [0], absorbed: true },
+    { actions: moves.C, rewards: [0, 0], absorbed: false },
+    { actions: moves.D, rewards: [0, 0], absorbed: true },
+  ];
+  const product = (a: number[], upTo: number) => a.slice(0, upTo + 1).reduce((w, x) => w * ratio(x), 1);
+  const wA2 = product(moves.A, 2), wA1 = product(moves.A, 1), wB0 = product(moves.B, 0), wC1 = product(moves.C, 1), wD1 = product(moves.D, 1);
+  const kappa2 = wA1 / (wA1 + wC1), hand = [wA2, wB0 * kappa2, wD1 * kappa2];
+
+  it('A, B and D carry W_A2, W_B0·κ_2 and W_D1·κ_2 (1e-12), and Kish’s effective size follows', () => {
+    const data = logOf(runsOf(1)), table = importanceWeightTable(data, indexEpisodes(data), candidate, behaviour);
+    const weights = paddedLogWeightsAtStep(table, 2).map(Math.exp);
+    expect(weights).toHaveLength(3);
+    weights.forEach((w, i) => close(w, hand[i]));
+    const sum = hand.reduce((s, w) => s + w, 0), squares = hand.reduce((s, w) => s + w * w, 0);
+    close(effectiveSampleSizeFromLogs(paddedLogWeightsAtStep(table, 2)), (sum * sum) / squares);
+    close(perDecisionEstimates(perDecisionData(table, null), discount).importanceSampling, (discount ** 2 * wA2) / sum);
+  });
+
+  it('without a run cut early, an ended run carries its last weight unchanged (κ = 1 exactly)', () => {
+    const runs = runsOf(1).filter((_, k) => k !== 2), data = logOf(runs), table = importanceWeightTable(data, indexEpisodes(data), candidate, behaviour);
+    expect(paddedLogWeightsAtStep(table, 2)).toEqual([table.logWeight[2], table.logWeight[4], table.logWeight[6]]);
+  });
+});
+
+describe('a fitted value that is not a finite number', () => {
+  it('is refused with the run and step named, not carried into a NaN doubly robust value', () => {
+    const data = logOf([{ actions: [0.3, -0.4], rewards: [-1, -1], absorbed: false }, { actions: [1.1], rewards: [-2], absorbed: true }]);
+    const table = importanceWeightTable(data, indexEpisodes(data), candidate, behaviour);
+    const values = (q: number) => ({ actionValues: Float64Array.from([-3, q, -2]), stateValues: Float64Array.from([-3, -2.5, -2]) });
+    expect(() => perDecisionData(table, values(Number.NaN))).toThrow(/Q̂ at run 1, step 2 is not a finite number/);
+    expect(() => perDecisionData(table, values(-Infinity))).toThrow(ImportanceSamplingError);
+    expect(Number.isFinite(perDecisionEstimates(perDecisionData(table, values(-2.5)), 0.9).doublyRobust)).toBe(true);
   });
 });
