@@ -12,7 +12,7 @@ import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../cor
 import { effectiveSampleSizeFromLogs } from '../core/diagnostics/effectiveSampleSize';
 import { paddedLogWeightsAtStep } from '../core/offPolicy/paddedHorizonWeights';
 import { occupancyShift } from '../core/diagnostics/occupancyShift';
-import { actionSupportFinding, effectiveShareFinding, occupancyShiftFinding } from '../core/diagnostics/severity';
+import { actionSupportFinding, effectiveShareFinding, occupancyShiftFinding, upperPercentile } from '../core/diagnostics/severity';
 import type { BellmanStatistics } from '../core/fqe/bellmanStatistics';
 import type { ImportanceWeightTable } from '../core/offPolicy/importanceWeights';
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
@@ -80,7 +80,7 @@ function shiftUpper(context: AssessmentContext, model: CandidateModel): number |
   }
   if (values.length < 10) return null;
   values.sort((a, b) => a - b);
-  return values[Math.min(values.length - 1, Math.floor(0.9 * values.length))];
+  return upperPercentile(values);
 }
 
 function weightDiagnostics(table: ImportanceWeightTable, discount: number): ImportanceWeightDiagnostics {
@@ -104,7 +104,7 @@ function actionSupport(policy: GaussianPolicy, ranges: LoggedActionRanges, behav
   const q = outside.length;
   return {
     neighbours: ranges.neighbours, queryStates: q,
-    meanOutside: outside.reduce((a, b) => a + b, 0) / q, p90Outside: outside[Math.min(q - 1, Math.floor(0.9 * q))], maxOutside: outside[q - 1],
+    meanOutside: outside.reduce((a, b) => a + b, 0) / q, p90Outside: upperPercentile(outside), maxOutside: outside[q - 1],
     behaviourMeanOutside,
   };
 }

@@ -75,7 +75,7 @@ export interface CoverageDiagnostics {
    * it cannot be formed.
    */
   occupancyShift: number | null;
-  /** Its upper 90 % bootstrap percentile (the estimate is right-skewed); null without resamples. */
+  /** Its bootstrap percentile UPPER_PERCENTILE (core/diagnostics/severity.ts; the estimate is right-skewed); null without resamples. */
   occupancyShiftUpper: number | null;
   /** The same measure for the present controller's model: the level the logs' own controller reaches. */
   presentControllerShift: number | null;

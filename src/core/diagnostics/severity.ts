@@ -35,6 +35,17 @@ import { DEFAULT_START_COVERAGE } from './startCoverage';
 
 export type SeverityLevel = 'caution' | 'serious';
 
+/**
+ * The upper percentile shown beside a coverage diagnostic's central value: the occupancy shift over
+ * resamples (right-skewed) and the action probability outside the logged range over query states.
+ */
+export const UPPER_PERCENTILE = 90;
+
+/** The UPPER_PERCENTILE-th of sorted values (the value at ⌊p·n⌋, the last at most). */
+export function upperPercentile(sorted: ArrayLike<number>): number {
+  return sorted[Math.min(sorted.length - 1, Math.floor((UPPER_PERCENTILE / 100) * sorted.length))];
+}
+
 /** Structurally the pipeline's AssessmentWarning: a stable topic key and the sentence a reviewer reads. */
 export interface SeverityFinding {
   readonly severity: SeverityLevel;

@@ -1,6 +1,6 @@
 /** The evidence sections: coverage diagnostics, cross-checks, sensitivity, and the warnings and cautions. */
 import type { Assessment, AssessmentWarning, CandidateAssessment } from '../assessment';
-import { OCCUPANCY_SHIFT_LIMITS } from '../../core/diagnostics/severity';
+import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../core/diagnostics/severity';
 import { CAUTIONS } from '../cautions';
 import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
@@ -28,13 +28,13 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
   return [
     row(`Occupancy shift (1 = like the logs; caution above ${OCCUPANCY_SHIFT_LIMITS.caution}×, serious above ${OCCUPANCY_SHIFT_LIMITS.serious}× the present controller’s level, at least 1)`,
       (c) => formatNumber(c.diagnostics.occupancyShift, 3), formatNumber(first?.presentControllerShift, 3)),
-    row('… upper 90 % over resamples', (c) => formatNumber(c.diagnostics.occupancyShiftUpper, 3), ''),
+    row(`… ${UPPER_PERCENTILE}th percentile over resamples`, (c) => formatNumber(c.diagnostics.occupancyShiftUpper, 3), ''),
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
     row('Importance weights: effective share of the one-step ratios', (c) => formatPercent(weights(c)?.oneStepShare), ''),
     row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return w ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes}` : '—'; }, ''),
     row('Action probability outside the logged range near the state: mean', (c) => formatPercent(c.diagnostics.actionSupport.meanOutside), formatPercent(first?.actionSupport.behaviourMeanOutside)),
-    row('… 90th percentile over states', (c) => formatPercent(c.diagnostics.actionSupport.p90Outside), ''),
+    row(`… ${UPPER_PERCENTILE}th percentile over states`, (c) => formatPercent(c.diagnostics.actionSupport.p90Outside), ''),
     row('… largest', (c) => formatPercent(c.diagnostics.actionSupport.maxOutside), ''),
   ];
 }

@@ -5,7 +5,7 @@
  */
 import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
 import type { AssessRunProgress } from '../../../../shared/workerMessages';
-import { OCCUPANCY_SHIFT_LIMITS } from '../../../../core/diagnostics/severity';
+import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../../../core/diagnostics/severity';
 import { fixedAtPrecisionOf, formatNumber } from '../../format/numberFormat';
 
 /**
@@ -68,7 +68,7 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
   const sentences: string[] = [];
   if (d.occupancyShift !== null) {
     const own = d.presentControllerShift === null ? '' : ` (the present controller itself: ${formatNumber(d.presentControllerShift, 3)})`;
-    const upper = d.occupancyShiftUpper === null ? '' : `, up to ${formatNumber(d.occupancyShiftUpper, 3)} over resamples`;
+    const upper = d.occupancyShiftUpper === null ? '' : `, ${formatNumber(d.occupancyShiftUpper, 3)} at the ${UPPER_PERCENTILE}th percentile over resamples`;
     sentences.push(`Occupancy shift: ${formatNumber(d.occupancyShift, 3)}${upper}${own}, measured in ${d.shiftFeatures}. `
       + `1 means the candidate would visit states and actions like the logged ones; the error of its estimate grows with the square root, `
       + `caution above ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller’s own level (at least 1), serious above ${OCCUPANCY_SHIFT_LIMITS.serious} times.`);
@@ -82,7 +82,7 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
   const a = d.actionSupport;
   const own = a.behaviourMeanOutside === null ? '' : ` (the present controller itself: ${shareText(a.behaviourMeanOutside)})`;
   sentences.push(`Action probability outside the logged range: on average ${shareText(a.meanOutside)} of the candidate’s action probability falls outside the actions logged near the same state `
-    + `(${a.neighbours} nearest logged states), ${shareText(a.p90Outside)} at the 90th percentile of ${a.queryStates} states and ${shareText(a.maxOutside)} at worst${own}. Q is extrapolated there.`);
+    + `(${a.neighbours} nearest logged states), ${shareText(a.p90Outside)} at the ${UPPER_PERCENTILE}th percentile of ${a.queryStates} states and ${shareText(a.maxOutside)} at worst${own}. Q is extrapolated there.`);
   return sentences;
 }
 
