@@ -10,12 +10,15 @@
  *   npm run bench -- app-thread   the app's assessment in Chromium with one thread and with its helper worker, 1,000,000 transitions
  *   npm run bench -- growth       slopes of evaluate time in transitions and in quadrature nodes
  *   npm run bench -- radial       the whole evaluate with radial-basis features, d = 343, 100,000 transitions
+ *   npm run bench -- build-pairs <before/main.js> [pairs]   two builds of the CLI in alternating pairs beside the peer,
+ *                                 1,000,000 transitions, wall and CPU (bench/buildPairsBench.ts)
  *   npm run bench -- battery [options]   the battery sweep of the network and linear estimators
  *                                 (bench/batteryBench.ts; long: run it under `nice`)
  *   npm run bench -- battery-table f.json …   the network interval without and with the class-error
  *                                 allowance, from records the battery sweep wrote (bench/batteryAllowanceTable.ts)
  */
 import { execFileSync } from 'node:child_process';
+import { resolve } from 'node:path';
 import { fileURLToPath } from 'node:url';
 
 type Job = { name: string; group: string; run: () => Promise<Record<string, number | string>> };
@@ -87,5 +90,8 @@ function parent(groups: string[]): void {
 const args = process.argv.slice(2);
 if (args[0] === '--child') await child(Number(args[1]));
 else if (args[0] === 'battery') await (await import('./batteryBench')).runBatteryBench(args.slice(1));
-else if (args[0] === 'battery-table') (await import('./batteryAllowanceTable')).printAllowanceTableOf(args.slice(1));
+else if (args[0] === 'build-pairs') {
+  const figures = (await import('./buildPairsBench')).runBuildPairsBench(resolve(args[1] ?? ''), args[2] ? Number(args[2]) : undefined);
+  for (const [key, value] of Object.entries(figures)) console.log(`  ${key.padEnd(28)} ${format(value)}`);
+} else if (args[0] === 'battery-table') (await import('./batteryAllowanceTable')).printAllowanceTableOf(args.slice(1));
 else parent(args);

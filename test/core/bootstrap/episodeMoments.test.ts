@@ -47,6 +47,33 @@ describe('episodeMoments', () => {
     resampleMomentsBlock(moments, block).forEach((fast, b) => expect(fast).toEqual(resampleMoments(moments, block[b])));
   });
 
+  it('gives exactly, bit for bit, what one resample at a time gives when the runs span several chunks (odd and even entry counts, part blocks)', () => {
+    // More runs than one chunk of the block sums (2,048) and not a multiple of it; 11 summed entries (odd) and 22 (even).
+    const many = simulateLinearPlant({
+      dynamics: [0.9, 0.1, 0, 0.8], inputGain: [0.5, 0.2], processNoiseStd: [0.1, 0.1], stateWeight: [1, 0, 0, 1], actionWeight: [0.1],
+      behaviourGain: [-0.3, -0.1], behaviourStd: [0.5], startStd: 1, episodes: 4500, stepsPerEpisode: 2, seed: 11,
+    });
+    const index = indexEpisodes(many);
+    const odd = episodeMoments(index, 3, 1, (i, x, y) => {
+      x.set([1, many.states[2 * i], many.actions[i]]);
+      y[0] = many.rewards[i];
+      return true;
+    });
+    const even = episodeMoments(index, 4, 2, (i, x, y) => {
+      x.set([1, many.states[2 * i], many.states[2 * i + 1], many.actions[i]]);
+      y.set([many.nextStates[2 * i], many.nextStates[2 * i + 1]]);
+      return true;
+    });
+    const bits = (m: { xx: Float64Array; xy: Float64Array; yy: Float64Array; count: number }) =>
+      [...new BigUint64Array(Float64Array.from([...m.xx, ...m.xy, ...m.yy, m.count]).buffer)];
+    for (const moments of [odd, even]) {
+      for (const resamples of [1, 3, 5]) {
+        const block = Array.from({ length: resamples }, (_, b) => episodeMultiplicities(many.episodeCount, 9, b));
+        resampleMomentsBlock(moments, block).forEach((fast, b) => expect(bits(fast)).toEqual(bits(resampleMoments(moments, block[b]))));
+      }
+    }
+  });
+
   it('keeps a non-finite run out of the resamples that do not draw it, as one resample at a time does', () => {
     const index = indexEpisodes(data);
     const moments = episodeMoments(index, 3, 1, (i, x, y) => {
