@@ -98,6 +98,8 @@ function checksOf(
   return crossChecks({
     work, replicates: r, points: points.values, rollout, weights, tailWeight: inputs.tailWeight,
     offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: inputs.settings.level, sign: inputs.context.plan.sign, settled,
+    // A fit without resamples of its own (a network) pairs nothing; its own interval's standard error goes into the difference's.
+    fitStandardError: work.replicate ? null : work.model.fit.interval?.standardError ?? null,
   });
 }
 

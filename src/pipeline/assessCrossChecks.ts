@@ -6,6 +6,7 @@
  * and 2 % of J). The verdicts together give the headline: confirmed, contradicted or unconfirmed.
  */
 import { confirmationOf, crossCheckVerdict, type CrossCheckEvidence } from '../core/offPolicy/crossCheckVerdict';
+import { unpairedStandardError } from '../core/offPolicy/unpairedDifference';
 import type { CrossCheck, CrossCheckMethod, ImportanceWeightDiagnostics } from './assessment';
 import type { CandidateWork } from './assessCandidate';
 import { intervalEstimate, pairedReplicates } from './assessIntervals';
@@ -55,6 +56,11 @@ export interface CrossCheckInputs {
   sign: number;
   /** The function-class verdict of this model (false: not settled; null: none). */
   settled: boolean | null;
+  /**
+   * The fit's own standard error of J where it has no resamples to pair a check with (a network's,
+   * from its own interval); null where it has them, or has no standard error at all.
+   */
+  fitStandardError: number | null;
 }
 
 export function crossChecks(inputs: CrossCheckInputs): { checks: CrossCheck[]; confirmation: { status: 'confirmed' | 'contradicted' | 'unconfirmed'; text: string } } {
@@ -81,9 +87,10 @@ function crossCheck(
   const fqe = inputs.work.model.fit.policyValue;
   const estimate = intervalEstimate(point, replicates, inputs.level, inputs.sign, 'sampling of the logged runs');
   const difference = intervalEstimate(point - fqe, pairedReplicates(replicates, inputs.replicates.fqe), inputs.level, inputs.sign, 'sampling of the logged runs, paired');
-  // Without replicates of the main estimate (a network) the check's own standard error stands in for the paired one.
-  const standardError = difference.standardError ?? estimate.standardError ?? Infinity;
-  const verdict = crossCheckVerdict({ label, difference: point - fqe, differenceStandardError: standardError, fqe, ...evidence });
+  // Without replicates of the main estimate (a network) the difference cannot be paired: the unpaired bound, the check's and the fit's own added.
+  const paired = difference.standardError !== null || inputs.fitStandardError === null;
+  const standardError = paired ? difference.standardError ?? estimate.standardError ?? Infinity : unpairedStandardError(estimate.standardError, inputs.fitStandardError!);
+  const verdict = crossCheckVerdict({ label, difference: point - fqe, differenceStandardError: standardError, fqe, paired, ...evidence });
   return { method, label, assumption, estimate, difference, agreement: verdict.agreement, note: verdict.note };
 }
 
@@ -94,8 +101,11 @@ function rolloutCrossCheck(inputs: CrossCheckInputs): CrossCheck {
   const difference = intervalEstimate(r.difference, r.differenceReplicates, inputs.level, inputs.sign, covers);
   const estimate = { ...intervalEstimate(r.value, [], inputs.level, inputs.sign, `the model's value over ${r.starts} start states`) };
   // The resamples reuse the rollouts' random numbers, so the Monte Carlo error of the full-data value is added on top of their spread.
-  const standardError = Math.hypot(difference.standardError ?? Infinity, r.monteCarloError);
-  const verdict = crossCheckVerdict({ label, difference: r.difference, differenceStandardError: standardError, fqe, shareOutsideLogs: r.shareOutsideLogs });
+  const ownError = Math.hypot(difference.standardError ?? Infinity, r.monteCarloError);
+  // A fit without resamples is held at its full-data value in those replicates (assessRollouts.ts), so they hold the model's spread only: unpaired.
+  const paired = inputs.fitStandardError === null;
+  const standardError = paired ? ownError : unpairedStandardError(ownError, inputs.fitStandardError!);
+  const verdict = crossCheckVerdict({ label, difference: r.difference, differenceStandardError: standardError, fqe, paired, shareOutsideLogs: r.shareOutsideLogs });
   return { method, label, assumption, estimate, difference, agreement: verdict.agreement, note: verdict.note };
 }
 

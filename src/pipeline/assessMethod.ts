@@ -33,7 +33,8 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
     `Cross-checks are informative only when they could see an error of ${pct(a.detectableGap)} of J (three paired standard errors within it), with an effective size of at least ` +
       `max(${a.minEffectiveEpisodes}, ${pct(a.minEffectiveShare)} of the runs) for the importance weights, at most ${pct(a.maxTailWeight)} of the discount weight past the runs’ ends, ` +
       `and at most ${pct(a.maxShareOutsideLogs)} of simulated steps at the edge of the logged states for the model rollouts; an informative check disagrees when the paired ` +
-      `difference exceeds ${a.standardErrors} standard errors and ${pct(a.relative)} of J (our rule). When no check is informative, the estimate is reported as unconfirmed; ` +
+      `difference exceeds ${a.standardErrors} standard errors and ${pct(a.relative)} of J (our rule). A fit without resamples of its own (a network) pairs nothing: ` +
+      'there the difference’s standard error is the check’s plus the fit’s own, a bound that holds whatever their correlation. When no check is informative, the estimate is reported as unconfirmed; ' +
       'so it is where the function classes disagree and only checks resting on a plant model fitted to the same logs (rollouts, the linear-quadratic closed form) agree.',
     `Model rollouts: a one-step plant model (polynomial in the state and action) fitted to the logs, simulated from up to ${ROLLOUT_STARTS} start states ` +
       `(${ROLLOUTS_PER_START} rollouts each, at least ${ROLLOUTS_TOTAL} in all), on the first ${ROLLOUT_RESAMPLES} resamples; its Monte Carlo error is added to the paired standard error. ` +

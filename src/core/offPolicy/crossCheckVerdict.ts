@@ -16,6 +16,8 @@
  * it could have seen a gap of detectableGap (10 %) of |J| — 3 standard errors of the paired
  * difference below that; a check whose interval spans ±20 % "agrees" with anything, so it is then
  * uninformative. (A noisy check can still disagree: a gap beyond 3 of its standard errors is seen.)
+ * Where the fit has no resamples to pair with (a network), the standard error is the unpaired
+ * bound σ_check + σ_fit, which holds whatever the two estimates' correlation (unpairedDifference.ts).
  * Together: contradicted if any informative check disagrees; confirmed if at least one agrees and
  * none disagrees; unconfirmed when no check is informative — nothing in the logs can then confirm
  * the estimate, and the headline must say so. One exception: where the function classes disagree
@@ -37,7 +39,9 @@ export type CheckAgreement = 'agrees' | 'disagrees' | 'uninformative';
 export interface CrossCheckEvidence {
   readonly label: string;
   readonly difference: number; // check − FQE (reward or cost sense, as long as fqe is the same)
-  readonly differenceStandardError: number; // paired bootstrap standard error of the difference
+  readonly differenceStandardError: number; // paired bootstrap standard error of the difference (unpaired: unpairedDifference.ts)
+  /** False when the fit had no resamples to pair with, so the standard error is the unpaired bound (unpairedDifference.ts); true when omitted. */
+  readonly paired?: boolean;
   readonly fqe: number; // J by FQE
   /** Weighted importance sampling and doubly robust: weights at the effective horizon and the tail weight γ^H. */
   readonly weights?: { readonly effectiveEpisodes: number; readonly episodesReaching: number; readonly horizonSteps: number; readonly tailWeight: number };
@@ -53,11 +57,13 @@ export interface CheckVerdict {
   readonly fromPlantModel?: boolean;
 }
 
+const UNPAIRED_WORDS = 'standard errors of the difference, unpaired: the fit has no resamples to pair with, so its own standard error is added to the check\'s';
+
 export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   const r = CROSS_CHECK_RULE, scale = Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
   const relative = Math.abs(e.difference) / scale;
   const z = e.differenceStandardError > 0 ? Math.abs(e.difference) / e.differenceStandardError : Infinity;
-  const gap = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J (${Number.isFinite(z) ? z.toFixed(1) : '∞'} standard errors of the paired difference)`;
+  const gap = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J (${Number.isFinite(z) ? z.toFixed(1) : '∞'} ${e.paired === false ? UNPAIRED_WORDS : 'standard errors of the paired difference'})`;
   const weak = weakness(e);
   if (weak) return { label: e.label, agreement: 'uninformative', note: `Uninformative: ${weak}; it ${gap}.` };
   if (z > r.standardErrors && relative > r.relative) return { label: e.label, agreement: 'disagrees', note: `Disagrees: it ${gap}.` };
