@@ -87,6 +87,7 @@ export function fitBehaviourModel(states: Float64Array, actions: Float64Array, n
     for (let p = 0; p < ds; p++) offset[j] -= gain[j * ds + p] * sMean[p];
   }
   const { covariance, rSquared } = residualMoments(states, actions, n, ds, m, offset, gain, aMean, dof);
+  checkJointNoise(covariance, m);
   const model = assembleModel({ n, ds, m, dof, offset, gain, covariance, rSquared, factor, sMean });
   const limits = loggedActionLimits(actions, n, m);
   return hasLimits(limits) ? censoredModel(model, limits, states, actions, sMean) : { ...model, limits };
@@ -157,6 +158,42 @@ function stateScatterFactor(sss: Float64Array, ds: number): Float64Array {
   // L_pp² / S_pp is the share of state p's variation not explained by states 1..p−1 (1 − R²_p).
   for (let p = 0; p < ds; p++) if (factor[p * ds + p] ** 2 < NEGLIGIBLE_SHARE * sss[p * ds + p]) throw collinear(p);
   return factor;
+}
+
+/**
+ * The actions' residual noise must have a joint density: Σ positive definite. By the Cholesky
+ * factor, L_jj²/Σ_jj is the share of action j's noise not explained by the actions before it
+ * (1 − R², as for the states above); below NEGLIGIBLE_SHARE action j moves exactly with them — one
+ * controller output driving several valves (split range, u₂ = c − u₁) — and no Gaussian density of
+ * the logged actions exists to weigh a candidate against.
+ */
+function checkJointNoise(covariance: Float64Array, m: number): void {
+  for (let j = 1; j < m; j++) {
+    const own = covariance[j * m + j];
+    let explained = 0;
+    // Schur complement of the leading block: Σ_jj − Σ_j,<j Σ_<j⁻¹ Σ_<j,j, by the factor of the leading j×j block.
+    let factor: Float64Array;
+    try {
+      factor = cholesky(leadingBlock(covariance, m, j), j);
+    } catch (error) {
+      if (!(error instanceof SingularMatrixError)) throw error;
+      continue; // an earlier action already failed; reported at its own index
+    }
+    const z = choleskySolve(factor, j, Array.from({ length: j }, (_, p) => covariance[p * m + j]));
+    for (let p = 0; p < j; p++) explained += z[p] * covariance[p * m + j];
+    if (!(own - explained > NEGLIGIBLE_SHARE * own)) {
+      throw new BehaviourModelError(
+        `action ${j + 1} moves exactly with action${j > 1 ? 's 1 to ' + j : ' 1'} in the log (one controller output drives them, as in split range), ` +
+          'so the logged actions have no joint Gaussian density to model the present controller with',
+      );
+    }
+  }
+}
+
+function leadingBlock(a: Float64Array, m: number, k: number): Float64Array {
+  const out = new Float64Array(k * k);
+  for (let p = 0; p < k; p++) for (let q = 0; q < k; q++) out[p * k + q] = a[p * m + q];
+  return out;
 }
 
 /** Below this relative share a variation is rounding noise, not signal (double precision, common practice). */

@@ -2,8 +2,9 @@
 import { actionSliceChart } from '../../figures/charts/actionSlice';
 import { valueSurfaceChart } from '../../figures/charts/valueSurface';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
+import type { ActionSlice } from '../assessment';
 import { CAUTION_SHORT } from '../cautions';
-import { escapeHtml, formatNumber, html, raw, type Html } from './htmlText';
+import { formatNumber, html, raw, type Html } from './htmlText';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 const SURFACE_SIZE = { widthPx: 640, heightPx: 460 }, SLICE_SIZE = { widthPx: 420, heightPx: 330 };
@@ -43,8 +44,21 @@ export function slicesSection(input: ReportInput, figures: FigureCounter): Html 
       }, look) as never, { ...SLICE_SIZE, id: `slice-${ci}-${si}`, label: `${c.name}: Q along the action at ${s.label}` }));
       return html`<figure id="fig-slices-${n}"><div class="grid2">${charts.map((svg) => raw(svg))}</div>
         <figcaption>Figure ${n}. ${c.name}: ${raw('Q<sup>π</sup>(s, a)')} along the action (${words.value}, ${words.better}) at ${c.slices.map((s) => s.label).join('; ')};
-        shaded: actions logged near the state; dotted: the candidate’s mean action (dither ${formatNumber(c.slices[0]?.candidateStd, 3)}${escapeHtml(units.get(actions[0]?.column ?? '') ? ` ${units.get(actions[0].column)}` : '')}). ${CAUTION_SHORT}</figcaption></figure>`;
+        shaded: actions logged near the state; dotted: the candidate’s mean action (${sliceDitherText(c.slices, actions)})${actions.length > 1 ? '; the other actions held at the candidate’s median action there' : ''}. ${CAUTION_SHORT}</figcaption></figure>`;
     })}</section>`;
+}
+
+/**
+ * The dither the caption states: one action's with its unit, or with several actions each one's,
+ * named, from that action's own slices (they may differ, as may their units). Plain text: `html` escapes it.
+ */
+export function sliceDitherText(slices: readonly ActionSlice[], actions: readonly { column: string; unit?: string }[]): string {
+  const one = (j: number): string => {
+    const std = slices.find((s) => s.actionIndex === j)?.candidateStd, unit = actions[j]?.unit;
+    return `${formatNumber(std, 3)}${unit ? ` ${unit}` : ''}`;
+  };
+  if (actions.length <= 1) return `dither ${one(0)}`;
+  return `dither ${actions.map((a, j) => `${one(j)} on ${a.column}`).join(', ')}`;
 }
 
 /** The candidate's Gaussian action density along the slice (before any limits): the shading under Q. */

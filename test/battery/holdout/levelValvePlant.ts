@@ -16,6 +16,7 @@ import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
 import { valveLaw } from './valveLaw';
+import { blendingTankPlant } from './blendingTankPlant';
 import { dryerPlant } from './dryerPlant';
 import { exchangerPlant } from './exchangerPlant';
 import { kettlePlant } from './kettlePlant';
@@ -71,5 +72,5 @@ export function gentleLevelValvePlant(): BatteryPlant {
 }
 
 export function holdoutPlants(): BatteryPlant[] {
-  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant()];
+  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant()];
 }

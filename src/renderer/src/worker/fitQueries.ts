@@ -1,11 +1,13 @@
 /**
  * Questions answered from the last run's retained fits: V^π over any two state axes with the
  * other states held (core valueSurface, visits from the pipeline's grid), and the action-value
- * slice Q(s, ·) with the policy's marginal action density and the quadrature nodes at s.
+ * slice Q(s, ·) with the policy's marginal action density and the quadrature nodes at s (the
+ * other actions held at the policy's median action there, limits included: core/policy/medianAction.ts).
  * Values leave in the project's sense (a cost stays a cost).
  */
 import { quadratureNodesAt } from '../../../core/actionQuadrature';
 import { actionStd, createGaussianPolicy, logDensity, policyMean, type GaussianPolicy } from '../../../core/policy';
+import { medianAction } from '../../../core/policy/medianAction';
 import { actionValueSlice, valueSurface } from '../../../core/value';
 import type { ValueSurface } from '../../../pipeline/estimates';
 import type { CandidateModel } from '../../../pipeline/model/candidateModel';
@@ -48,7 +50,9 @@ export function sliceFromFit(run: EvaluatedRun, query: SliceQuery): ActionSliceR
   policyMean(policy, state, mean);
   const marginal = marginalPolicy(policy, mean[i], i);
   const range = sliceRange(mean[i], actionStd(policy, i), policy, i);
-  const slice = actionValueSlice(fit.q, state, i, range, query.points, mean);
+  const held = new Float64Array(policy.actionDim); // the other actions at the candidate's median, limits included
+  medianAction(policy, state, held);
+  const slice = actionValueSlice(fit.q, state, i, range, query.points, held);
   const sign = run.run.plan.sign;
   const density = slice.actions.map((a) => (a < range[0] || a > range[1] ? 0 : Math.exp(logDensity(marginal, zeros(policy.stateDim), [a]))));
   return {

@@ -11,7 +11,7 @@ import type { DataImport } from '../../../../shared/workerMessages';
 import { useDocument } from '../../hooks';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
-import { actionLabel, valueLabel, valueUnit } from './plotLabels';
+import { actionLabel, sliceExplanation, valueLabel, valueUnit } from './plotLabels';
 import { StateSliders } from './StateSliders';
 import { useWorkerQuery } from './useWorkerQuery';
 
@@ -39,7 +39,7 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
   } : null;
   return (
     <>
-      <p className="small muted">Q(s, a) along the action at one state, the policy’s action density beneath, and the quadrature nodes whose weighted mean is V^π(s).</p>
+      <p className="small muted">{sliceExplanation(doc.columns.actions.length)}</p>
       <div className="row">
         <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="slice-candidate"
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />
