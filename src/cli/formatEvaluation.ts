@@ -1,4 +1,5 @@
 /** The readable table `evaluate` prints by default. */
+import { truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
 import { significant, textTable as table } from './textTable';
 
@@ -16,7 +17,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     const settled = p.status === 'converged';
     rows.push([p.name, settled ? number(p.policyValue) : 'not settled', settled ? number(p.standardError) : '', number(p.fixedPointValue), settled ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
   }
-  const pc = e.presentController;
+  const pc = e.presentController, truncation = truncationSentence(e.behaviour);
   if (pc) {
     const x = pc.estimate, settled = x.status === 'converged';
     rows.push([`${x.name} [baseline]`, settled ? number(x.policyValue) : 'not settled', settled ? number(x.standardError) : '', number(x.fixedPointValue), settled ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
@@ -36,7 +37,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
     pc ? `Baseline: today's controller modelled from the log (offset ${pc.model.offset.map(number).join(', ')}; dither ${pc.model.std.map(number).join(', ')}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
-    ...(e.behaviour.largestTruncationWeight > 1e-3 ? [`Logged runs are short for this discount: up to ${(100 * e.behaviour.largestTruncationWeight).toFixed(1)} % of the return's weight lies beyond their end, so the logged return is biased toward zero${pc ? '; compare with the baseline above' : ''}.`] : []),
+    ...(truncation ? [`${truncation}${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),
     '',
   ];

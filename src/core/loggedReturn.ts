@@ -4,7 +4,9 @@
  * policy's value; Sutton & Barto, "Reinforcement Learning", 2nd ed., §5.1).
  *
  * An episode that ends without a terminal state is truncated: the part of the return after its last
- * step, γ^T·V(s_T), is missing. The largest such weight γ^T is reported so the reader can judge it.
+ * step, γ^T·V(s_T), is missing. The mean of γ^T over the episodes (0 for one that ends in a terminal
+ * state) is the share of the mean return's weight that is missing, so it sizes the bias of the mean;
+ * the largest γ^T says how short the shortest truncated episode is.
  *
  * The completed return puts that part back with a fitted value of the logged controller, V̂^b,
  * at each truncated episode's last state (the bootstrapped return of time-limited episodes;
@@ -26,6 +28,8 @@ export interface LoggedReturn {
   episodes: number;
   /** Largest γ^T over episodes that end without a terminal state (0 when all end terminally). */
   largestTruncationWeight: number;
+  /** Mean of γ^T over all episodes, 0 for those that end terminally: the share of the mean return's weight that is missing. */
+  meanTruncationWeight: number;
   /** Per-episode discounted returns, in episode order. */
   perEpisode: Float64Array;
 }
@@ -41,10 +45,29 @@ export function loggedDiscountedReturn(data: TransitionSet, discount: number): L
     weight[k] *= discount;
     if (data.terminal[i]) endsTerminally[k] = 1;
   }
-  let largestTruncationWeight = 0;
-  for (let k = 0; k < e; k++) if (!endsTerminally[k]) largestTruncationWeight = Math.max(largestTruncationWeight, weight[k]);
+  let largestTruncationWeight = 0, truncationSum = 0;
+  for (let k = 0; k < e; k++) {
+    if (endsTerminally[k]) continue;
+    largestTruncationWeight = Math.max(largestTruncationWeight, weight[k]);
+    truncationSum += weight[k];
+  }
   const { mean, standardError } = meanAndStandardError(perEpisode);
-  return { value: mean, standardError, episodes: e, largestTruncationWeight, perEpisode };
+  return { value: mean, standardError, episodes: e, largestTruncationWeight, meanTruncationWeight: e > 0 ? truncationSum / e : 0, perEpisode };
+}
+
+/** Below this mean share of the return's weight past the runs' ends the truncation is not mentioned. */
+export const TRUNCATION_NOTICE = 1e-3;
+
+/**
+ * The sentence on truncated runs, or null when the mean missing weight is below TRUNCATION_NOTICE:
+ * the mean sizes the bias of the mean logged return; one short run (a log that ends mid-run) alone
+ * makes the largest weight large without biasing the mean much, so both are stated.
+ */
+export function truncationSentence(r: Pick<LoggedReturn, 'meanTruncationWeight' | 'largestTruncationWeight'>): string | null {
+  if (!(r.meanTruncationWeight > TRUNCATION_NOTICE)) return null;
+  const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
+  return `Logged runs are short for this discount: on average ${pct(r.meanTruncationWeight)} of the return’s weight lies beyond their end ` +
+    `(${pct(r.largestTruncationWeight)} on the shortest run cut by a time limit), so the logged return is biased toward zero`;
 }
 
 /** Where each episode ends: its last next state and the weight of the value beyond it. */
@@ -70,7 +93,7 @@ export function episodeEnds(data: TransitionSet, discount: number): EpisodeEnds 
   return { finalStates, tailWeights };
 }
 
-export interface CompletedReturn extends Omit<LoggedReturn, 'largestTruncationWeight'> {
+export interface CompletedReturn extends Omit<LoggedReturn, 'largestTruncationWeight' | 'meanTruncationWeight'> {
   /** Mean |γ^T V̂(s_T)| over mean |G^completed|: the share of the value that rests on V̂ rather than on logged rewards. */
   tailShare: number;
 }

@@ -11,6 +11,7 @@ import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
 import { possibleValues } from '../core/diagnostics/possibleValues';
 import { returnConcentration, returnConcentrationFinding } from '../core/diagnostics/returnConcentration';
+import { truncationSentence } from '../core/loggedReturn';
 import { modelPolicyValue } from '../core/offPolicy/modelBasedValue';
 import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import type {
@@ -263,12 +264,11 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
   const concentration = returnConcentrationFinding(returnConcentration(plan.loggedReturn.perEpisode), plan.loggedReturn.episodes, plan.loggedReturn.value < 0);
   if (concentration) out.push(concentration);
   if (!context.presentControllerModel) out.push({ severity: 'caution', topic: 'presentController', message: `The comparison uses the logged return: ${context.presentControllerReason}.` });
-  const truncation = plan.loggedReturn.largestTruncationWeight;
-  if (truncation > 1e-3) {
+  const truncation = truncationSentence(plan.loggedReturn);
+  if (truncation) {
     out.push({
       severity: 'caution', topic: 'loggedReturn',
-      message: `Logged runs are short for this discount: up to ${(100 * truncation).toFixed(1)} % of the return’s weight lies beyond their end, so the logged return is biased toward zero. ` +
-        'Comparisons use the present controller’s model instead, and the logged return completed past each end is shown as a check.',
+      message: `${truncation}. Comparisons use the present controller’s model instead, and the logged return completed past each end is shown as a check.`,
     });
   }
   if (unvisited !== null && unvisited > 0.5) {

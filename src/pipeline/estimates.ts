@@ -81,6 +81,8 @@ export interface LoggedReturnEstimate {
   standardError: number;
   episodes: number;
   largestTruncationWeight: number;
+  /** Mean γ^T over the runs (0 after an end state): the share of the mean return's weight missing (core/loggedReturn.ts). */
+  meanTruncationWeight: number;
 }
 
 /**

@@ -50,7 +50,7 @@ export function evaluationOf(run: ProjectRun, warnings: string[] = [], now: () =
     project: project.name,
     evaluatedAt: now().toISOString(),
     policies: run.models.map((m) => policyEstimate(plan, m)),
-    behaviour: { value: plan.sign * logged.value, standardError: logged.standardError, episodes: logged.episodes, largestTruncationWeight: logged.largestTruncationWeight },
+    behaviour: { value: plan.sign * logged.value, standardError: logged.standardError, episodes: logged.episodes, largestTruncationWeight: logged.largestTruncationWeight, meanTruncationWeight: logged.meanTruncationWeight },
     presentController: run.presentController && presentControllerEstimate(run, run.presentController),
     presentControllerReason: run.presentControllerReason,
     settings: {

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { loggedDiscountedReturn } from '../../src/core/loggedReturn';
+import { loggedDiscountedReturn, truncationSentence } from '../../src/core/loggedReturn';
 import type { TransitionSet } from '../../src/core/transitions';
 
 function episodes(lengths: number[], reward: number): TransitionSet {
@@ -24,7 +24,22 @@ describe('logged discounted return', () => {
     expect(Array.from(result.perEpisode)).toEqual(expected.map((v) => expect.closeTo(v, 12)));
     expect(result.value).toBeCloseTo((expected[0] + expected[1]) / 2, 12);
     expect(result.largestTruncationWeight).toBeCloseTo(g ** 10, 14);
+    expect(result.meanTruncationWeight).toBeCloseTo((g ** 10 + g ** 20) / 2, 14);
     // Two values: s.e. = |a − b| / 2.
     expect(result.standardError).toBeCloseTo(Math.abs(expected[0] - expected[1]) / 2, 12);
+  });
+});
+
+describe('the sentence on runs cut short', () => {
+  it('sizes the bias by the mean missing weight: one short run among long ones is stated but does not decide it', () => {
+    // The mean return's missing part is the mean of γ^T·V(s_T) (finite geometric series; common practice): with equal
+    // values it is the mean of γ^T, so 99 runs of 500 steps and one of 5 at γ = 0.98 miss (99·0.98^500 + 0.98^5)/100 of it.
+    const g = 0.98, oneShort = loggedDiscountedReturn(episodes([...Array(99).fill(500), 5], -1), g);
+    expect(oneShort.meanTruncationWeight).toBeCloseTo((99 * g ** 500 + g ** 5) / 100, 14);
+    expect(oneShort.largestTruncationWeight).toBeCloseTo(g ** 5, 14);
+    expect(truncationSentence(oneShort)).toBe(
+      'Logged runs are short for this discount: on average 0.9 % of the return’s weight lies beyond their end (90.4 % on the shortest run cut by a time limit), so the logged return is biased toward zero',
+    );
+    expect(truncationSentence(loggedDiscountedReturn(episodes(Array(100).fill(500), -1), g))).toBeNull(); // 0.98^500 = 4.1e-5
   });
 });

@@ -56,7 +56,7 @@ export function threeCandidateEvaluation(): Evaluation {
   return {
     project: 'Tank levels (synthetic)', evaluatedAt: '2025-01-15T10:00:00Z',
     policies: [estimate('gentle gain', 41.2, 1.8), estimate('aggressive gain', 47.9, 2.6, 'maxIterations'), estimate('wide noise', 44.0, 3.1)],
-    behaviour: { value: 45.3, standardError: 2.2, episodes: 24, largestTruncationWeight: 0 },
+    behaviour: { value: 45.3, standardError: 2.2, episodes: 24, largestTruncationWeight: 0, meanTruncationWeight: 0 },
     presentController: null, presentControllerReason: 'not modelled in this synthetic evaluation',
     settings: { discount: 0.95, approximator: 'polynomial degree 2', quadratureNodes: 5, seed: 7, transitions: 4800, episodes: 24, startStates: 24 },
     valueSense: 'cost', warnings: [], cautions: [],

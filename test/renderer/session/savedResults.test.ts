@@ -11,7 +11,7 @@ import { newProjectDocument } from '../../../src/renderer/src/document/newProjec
 import { runKey } from '../../../src/shared/runKey';
 
 const evaluation = {
-  project: 'p', evaluatedAt: '2026-11-01T00:00:00.000Z', valueSense: 'cost', behaviour: { value: 3, standardError: 0.1, episodes: 10, largestTruncationWeight: 0 },
+  project: 'p', evaluatedAt: '2026-11-01T00:00:00.000Z', valueSense: 'cost', behaviour: { value: 3, standardError: 0.1, episodes: 10, largestTruncationWeight: 0, meanTruncationWeight: 0 },
   policies: [{ name: 'A', policyValue: 2, standardError: 0.1, fixedPointValue: 2, status: 'converged', message: '', iterations: 5, history: [], surface: null, featureCount: 6, backend: 'linear' }],
 };
 
