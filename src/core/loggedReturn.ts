@@ -67,7 +67,7 @@ export function truncationSentence(r: Pick<LoggedReturn, 'meanTruncationWeight' 
   if (!(r.meanTruncationWeight > TRUNCATION_NOTICE)) return null;
   const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
   return `Logged runs are short for this discount: on average ${pct(r.meanTruncationWeight)} of the return’s weight lies beyond their end ` +
-    `(${pct(r.largestTruncationWeight)} on the shortest run cut by a time limit), so the logged return is biased toward zero`;
+    `(${pct(r.largestTruncationWeight)} on the shortest run cut short, by a time limit or the end of the log), so the logged return is biased toward zero`;
 }
 
 /** Where each episode ends: its last next state and the weight of the value beyond it. */
