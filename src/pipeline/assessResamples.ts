@@ -62,9 +62,10 @@ export async function runResamples(
   const { plan } = context, e = plan.episodes.episodes;
   const { works, baseline } = inputs;
   const withPerDecision = [...works, ...(baseline ? [baseline] : [])].filter((w) => 'perDecision' in w.offPolicy);
-  // Balance (bench/peerBench.ts profile, 1,000,000 transitions): the per-decision blocks alone cost the
-  // helper about what the fits' replicates and the model cost this thread (8.8 s against 7.3 s), so the
-  // model goes to the helper only where it has no per-decision work; either way modelBlock runs it.
+  // Balance (profile of the peer bench's 1,000,000 transitions, quiet machine): the per-decision blocks alone
+  // cost the helper more than the fits' replicates and the closed form's model resamples cost this thread
+  // (6.9 CPU s against 1.5 + 2.8 s since those resamples are summed in blocks), so the model goes to the
+  // helper only where it has no per-decision work; either way modelBlock runs it.
   const modelJob = modelJobOf(context, inputs), modelOnRoute = withPerDecision.length === 0;
   const route = openPerDecisionRoute(withPerDecision.map((w) => (w.offPolicy as OffPolicyInputs).perDecision),
     { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper, { model: modelOnRoute ? modelJob : null, rollouts: null });
