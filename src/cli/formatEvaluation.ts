@@ -8,6 +8,12 @@ const number = (v: number | null): string => significant(v, 6);
 const STATUS_WORDS = { converged: 'converged', maxIterations: 'NOT CONVERGED', diverged: 'DIVERGED' } as const;
 
 
+/** "offset 1.2" with one action; with several, each value named by its action's column: "offset 0.3 on hot_valve, 0.7 on cold_valve". */
+export function perAction(label: string, values: readonly number[], actions: readonly string[] | undefined): string {
+  if (values.length <= 1 || !actions || actions.length !== values.length) return `${label} ${values.map(number).join(', ')}`;
+  return `${label} ${values.map((v, j) => `${number(v)} on ${actions[j]}`).join(', ')}`;
+}
+
 export function formatEvaluation(e: Evaluation, projectFile: string): string {
   const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';
   const s = e.settings;
@@ -35,7 +41,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: its fit did not converge, so no value is reported for it. ${p.message}`),
     ...e.policies.flatMap((p) => (p.network ? [networkLine(p.name, p.network)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
-    pc ? `Baseline: today's controller modelled from the log (offset ${pc.model.offset.map(number).join(', ')}; dither ${pc.model.std.map(number).join(', ')}) and evaluated like the candidates.`
+    pc ? `Baseline: today's controller modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions)}; ${perAction('dither', pc.model.std, pc.model.actions)}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
     ...(truncation ? [`${truncation}${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),

@@ -103,6 +103,7 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
     model: {
       offset: [...fitted.offset], gain: fitted.gain.map((row) => [...row]), std: [...fitted.std],
       lo: fitted.offset.map((_, j) => finiteOrNull(fitted.limits.lo[j])), hi: fitted.offset.map((_, j) => finiteOrNull(fitted.limits.hi[j])),
+      actions: [...plan.data.actionNames],
     },
     completedReturn: { value: plan.sign * completed.value, standardError: completed.standardError, tailShare: completed.tailShare },
   };

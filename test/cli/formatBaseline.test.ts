@@ -1,0 +1,17 @@
+/**
+ * The command line's baseline line names each action beside its offset and dither when the present
+ * controller has several (with two valves the order alone leaves the reader guessing), and reads as
+ * before with one, or for results saved without the action names.
+ */
+import { describe, expect, it } from 'vitest';
+import { perAction } from '../../src/cli/formatEvaluation';
+
+describe('the present controller’s numbers per action', () => {
+  it('names each action when there are several', () => {
+    expect(perAction('offset', [0.31, 0.69], ['hot_valve', 'cold_valve'])).toBe('offset 0.31 on hot_valve, 0.69 on cold_valve');
+  });
+  it('reads as before with one action or without names', () => {
+    expect(perAction('dither', [4], ['heating_valve_pct'])).toBe('dither 4');
+    expect(perAction('dither', [0.1, 0.1], undefined)).toBe('dither 0.1, 0.1');
+  });
+});
