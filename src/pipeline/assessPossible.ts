@@ -22,7 +22,7 @@ export function impossibleValue(plan: EvaluationPlan, range: PossibleValues, mod
     const what = wholly && interval ? `J = ${(plan.sign * j).toPrecision(4)} and its whole interval (${interval[0].toPrecision(4)} to ${interval[1].toPrecision(4)}) lie` : `J = ${(plan.sign * j).toPrecision(4)} lies`;
     return [{
       severity: 'serious', topic: TOPIC,
-      message: `${what} outside what any policy can reach while its ${words(plan)} stay within the logged range (${rangeText(plan, range)}, discounted): the fit extrapolates far from the logs; do not use this value.`,
+      message: `${what} outside what any policy can reach while its ${words(plan)} stay within the logged range (${rangeText(plan, range)}, discounted): either the candidate would take the plant where its steps lie outside the logged ${words(plan)}, or the fit extrapolates far from the logs. The logs cannot vouch for this value either way: do not use it without other evidence.`,
     }];
   }
   const outside = estimate.standardError === null ? null : stateCheck(plan, range, model, estimate.standardError);
