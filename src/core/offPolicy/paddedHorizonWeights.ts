@@ -11,23 +11,22 @@
  * these are each ended run's last weight. Runs cut before h are absent (they are missing there, not 0).
  */
 import type { ImportanceWeightTable } from './importanceWeights';
+import { notCutShare } from './perDecisionEstimators';
 
 export function paddedLogWeightsAtStep(table: ImportanceWeightTable, h: number): number[] {
   const { index, step, scaled, scaledBefore, logWeight, absorbed } = table, offsets = index.offsets;
   const length = (k: number) => offsets[k + 1] - offsets[k];
-  const live = new Float64Array(h + 1), cut = new Float64Array(h + 1); // both on step u − 1's scale
-  for (let p = 0; p < step.length; p++) if (step[p] >= 1 && step[p] <= h) live[step[p]] += scaledBefore[p];
+  const live = new Float64Array(h + 1), cut = new Float64Array(h + 1), weights: number[] = []; // live and cut on step u − 1's scale
+  for (let p = 0; p < step.length; p++) {
+    if (step[p] >= 1 && step[p] <= h) live[step[p]] += scaledBefore[p];
+    if (step[p] === h) weights.push(logWeight[p]);
+  }
   for (let k = 0; k < index.episodes; k++) {
     const T = length(k);
     if (!absorbed[k] && T >= 1 && T <= h) cut[T] += scaled[offsets[k + 1] - 1];
   }
   const heldFrom = new Float64Array(h + 2); // heldFrom[T] = Σ_{u=T}^{h} log κ_u; heldFrom[h + 1] = 0
-  for (let u = h; u >= 1; u--) {
-    const known = live[u] + cut[u];
-    heldFrom[u] = heldFrom[u + 1] + (known > 0 ? Math.log(live[u] / known) : 0);
-  }
-  const weights: number[] = [];
-  for (let p = 0; p < step.length; p++) if (step[p] === h) weights.push(logWeight[p]);
+  for (let u = h; u >= 1; u--) heldFrom[u] = heldFrom[u + 1] + Math.log(notCutShare(live[u], cut[u]));
   for (let k = 0; k < index.episodes; k++) {
     const T = length(k);
     if (absorbed[k] && T >= 1 && T <= h) weights.push(logWeight[offsets[k + 1] - 1] + heldFrom[T]);

@@ -270,6 +270,12 @@ export function paddedWeights(
 ): void {
   const known = liveBefore + cutting;
   out[0] = (known > 0 ? held * ((liveBefore + ending) / known) : held) * scales.absorbedToBefore[t];
-  out[2] = known > 0 ? held * (liveBefore / known) : held;
+  out[2] = held * notCutShare(liveBefore, cutting);
   out[1] = out[2] * scales.absorbedToStep[t];
+}
+
+/** κ_t = L_t/(L_t + K_t): the share of the runs known to be going at t that are not cut there (see the header); exactly 1 where none is cut, or none is known. */
+export function notCutShare(liveBefore: number, cutting: number): number {
+  const known = liveBefore + cutting;
+  return known > 0 ? liveBefore / known : 1;
 }
