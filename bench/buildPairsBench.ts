@@ -15,7 +15,7 @@ import { execFileSync } from 'node:child_process';
 import { existsSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
 import { loadavg, tmpdir } from 'node:os';
 import { join, resolve } from 'node:path';
-import { BUILT_CLI, cliCommand } from './builtCli';
+import { BUILT_CLI, cliCommand, median } from './builtCli';
 import { peerFiles, peers, work } from './peerBench';
 
 const root = resolve(import.meta.dirname, '..');
@@ -36,7 +36,6 @@ function timed(command: string[], cwd: string, niced: boolean): Timing {
   }
 }
 
-const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
 const fixed = (values: number[], digits = 1) => values.map((v) => v.toFixed(digits)).join(', ');
 
 export function runBuildPairsBench(before: string, pairs = 4, n = 1_000_000): Record<string, string | number> {

@@ -14,6 +14,9 @@ export const SOURCE_CLI = join(root, 'src', 'cli', 'main.ts');
 export const sourceCliArgs = (...args: string[]): string[] => ['--import', 'tsx', SOURCE_CLI, ...args];
 export const builtCliArgs = (...args: string[]): string[] => [BUILT_CLI, ...args];
 
+/** The middle of a few run timings (the upper middle one for an even count), as the command-line benches print it. */
+export const median = (values: number[]): number => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
+
 /** Newest modification time (ms) of a .ts file under `folder`. */
 function newestSource(folder: string): number {
   return readdirSync(folder, { recursive: true, encoding: 'utf8' })

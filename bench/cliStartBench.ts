@@ -9,14 +9,13 @@
 import { execFileSync } from 'node:child_process';
 import { mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join, resolve } from 'node:path';
-import { BUILT_CLI, builtCliArgs, cliCommand, sourceCliArgs } from './builtCli';
+import { BUILT_CLI, builtCliArgs, cliCommand, median, sourceCliArgs } from './builtCli';
 
 const root = resolve(import.meta.dirname, '..');
 const work = join(root, 'test-artifacts', 'bench-cli-start');
 const TINY_ROWS = 1500;
 
 const seconds = (start: bigint) => Number(process.hrtime.bigint() - start) / 1e9;
-const median = (values: number[]) => [...values].sort((a, b) => a - b)[Math.floor(values.length / 2)];
 
 function timedNode(args: string[]): number {
   const t = process.hrtime.bigint();
