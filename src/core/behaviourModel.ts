@@ -168,32 +168,23 @@ function stateScatterFactor(sss: Float64Array, ds: number): Float64Array {
  * the logged actions exists to weigh a candidate against.
  */
 function checkJointNoise(covariance: Float64Array, m: number): void {
-  for (let j = 1; j < m; j++) {
-    const own = covariance[j * m + j];
-    let explained = 0;
-    // Schur complement of the leading block: Σ_jj − Σ_j,<j Σ_<j⁻¹ Σ_<j,j, by the factor of the leading j×j block.
-    let factor: Float64Array;
-    try {
-      factor = cholesky(leadingBlock(covariance, m, j), j);
-    } catch (error) {
-      if (!(error instanceof SingularMatrixError)) throw error;
-      continue; // an earlier action already failed; reported at its own index
-    }
-    const z = choleskySolve(factor, j, Array.from({ length: j }, (_, p) => covariance[p * m + j]));
-    for (let p = 0; p < j; p++) explained += z[p] * covariance[p * m + j];
-    if (!(own - explained > NEGLIGIBLE_SHARE * own)) {
-      throw new BehaviourModelError(
-        `action ${j + 1} moves exactly with action${j > 1 ? 's 1 to ' + j : ' 1'} in the log (one controller output drives them, as in split range), ` +
-          'so the logged actions have no joint Gaussian density to model the present controller with',
-      );
-    }
+  let factor: Float64Array;
+  try {
+    factor = cholesky(covariance, m);
+  } catch (error) {
+    if (!(error instanceof SingularMatrixError)) throw error;
+    const j = error.pivot ?? m - 1;
+    if (j === 0) return; // the first action has no noise at all: reported where its spread is checked
+    throw movesWith(j);
   }
+  for (let j = 1; j < m; j++) if (!(factor[j * m + j] ** 2 > NEGLIGIBLE_SHARE * covariance[j * m + j])) throw movesWith(j);
 }
 
-function leadingBlock(a: Float64Array, m: number, k: number): Float64Array {
-  const out = new Float64Array(k * k);
-  for (let p = 0; p < k; p++) for (let q = 0; q < k; q++) out[p * k + q] = a[p * m + q];
-  return out;
+function movesWith(j: number): BehaviourModelError {
+  return new BehaviourModelError(
+    `action ${j + 1} moves exactly with action${j > 1 ? 's 1 to ' + j : ' 1'} in the log (one controller output drives them, as in split range), ` +
+      'so the logged actions have no joint Gaussian density to model the present controller with',
+  );
 }
 
 /** Below this relative share a variation is rounding noise, not signal (double precision, common practice). */

@@ -50,6 +50,17 @@ describe('a split-range log (one controller output drives both valves)', () => {
     expect(model.std[1]).toBeCloseTo(0.05, 2);
   });
 
+  it('names the third action when it is a blend of the first two (a singular 3×3 covariance)', () => {
+    // Third valve = 0.3·hot + 0.7·cold: its conditional variance given the first two is 0 (the same Schur complement).
+    const log = valveLog(false), n = log.count, three = new Float64Array(3 * n);
+    for (let i = 0; i < n; i++) {
+      three[3 * i] = log.actions[2 * i];
+      three[3 * i + 1] = log.actions[2 * i + 1];
+      three[3 * i + 2] = 0.3 * log.actions[2 * i] + 0.7 * log.actions[2 * i + 1];
+    }
+    expect(() => fitBehaviourModel(log.states, three, n, 1, 3)).toThrow(/action 3 moves exactly with actions 1 to 2/);
+  });
+
   it('is evaluated with the logged return as the baseline instead of failing', async () => {
     const project = projectSchema.parse({
       format: 'setpoint-critic-project', version: 1, name: 'split range', data: { path: 'none.csv' },

@@ -6,8 +6,11 @@
  * partial pivoting §3.4); they are short enough to verify against an independent library.
  */
 export class SingularMatrixError extends Error {
-  constructor(message: string) {
+  /** The 0-based pivot where a factorization stopped, when it is known. */
+  readonly pivot?: number;
+  constructor(message: string, pivot?: number) {
     super(message);
+    if (pivot !== undefined) this.pivot = pivot;
     this.name = 'SingularMatrixError';
   }
 }
@@ -53,7 +56,7 @@ export function cholesky(a: ArrayLike<number>, n: number): Float64Array {
   for (let j = 0; j < n; j++) {
     let diag = a[j * n + j];
     for (let k = 0; k < j; k++) diag -= l[j * n + k] * l[j * n + k];
-    if (!(diag > 0)) throw new SingularMatrixError(`matrix is not positive definite (pivot ${j} = ${diag})`);
+    if (!(diag > 0)) throw new SingularMatrixError(`matrix is not positive definite (pivot ${j} = ${diag})`, j);
     const ljj = Math.sqrt(diag);
     l[j * n + j] = ljj;
     for (let i = j + 1; i < n; i++) {
