@@ -8,7 +8,8 @@
  * Run: nice -n 10 npx tsx bench/plantMemoryTable.ts [seeds]
  */
 import { fileURLToPath } from 'node:url';
-import { createFeatureMap, } from '../src/core/features/featureMap';
+import { adjustedPartialRSquared, plantMemoryFinding } from '../src/core/diagnostics/plantMemoryFinding';
+import { createFeatureMap } from '../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../src/core/features/polynomialFeatures';
 import { fitStateActionStandardiser } from '../src/core/features/standardiser';
 import { fitLinearFqe } from '../src/core/fqe/linearFqe';
@@ -23,9 +24,9 @@ import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
 function largest(data: TransitionSet): string {
   const r = loggedPlantMemory(data);
   if ('reason' in r) return `n/a (${r.reason})`;
-  const top = r.components.reduce((a, b) => (b.partialRSquared > a.partialRSquared ? b : a));
-  const s = top.strongest;
-  return `${(100 * top.partialRSquared).toFixed(2)} % (state ${top.component}, F ${top.fStatistic.toFixed(1)} on ${top.numeratorDf}/${top.denominatorDf}` +
+  const top = r.components.reduce((a, b) => (adjustedPartialRSquared(b) > adjustedPartialRSquared(a) ? b : a));
+  const s = top.strongest, finding = plantMemoryFinding(r, { stateNames: [], actionNames: [] });
+  return `${(100 * top.partialRSquared).toFixed(2)} %, adjusted ${(100 * adjustedPartialRSquared(top)).toFixed(2)} % → ${finding?.severity ?? 'quiet'} (state ${top.component}, F ${top.fStatistic.toFixed(1)} on ${top.numeratorDf}/${top.denominatorDf}` +
     `${s ? `; most: ${s.kind} ${s.index} lag ${s.lag} ${(100 * s.partialRSquared).toFixed(2)} %` : ''})`;
 }
 
@@ -53,7 +54,7 @@ function deadTimeTable(seeds: number[], runs: number): void {
       const errors = DEAD_TIME_CANDIDATES.map((c) => {
         const policy = createGaussianPolicy(loggedCandidate(c), 2);
         const fit = fitLinearFqe({ data, policy, features, discount: DEAD_TIME_DISCOUNT, ridge: RIDGE.default, quadratureNodes: 10, tolerance: 1e-10, maxIterations: 5000 });
-        const j = fit.fixedPoint?.policyValue.value ?? fit.policyValue.value, truth = deadTimeTruth(delay, c, log.augmentedStarts, late);
+        const j = fit.fixedPoint?.policyValue.value ?? fit.iterative?.policyValue.value ?? NaN, truth = deadTimeTruth(delay, c, log.augmentedStarts, late);
         return `${c.name} J ${j.toFixed(1)} exact ${truth.toFixed(1)} (${(100 * (j - truth) / Math.abs(truth)).toFixed(1)} %)`;
       });
       console.log(`  late ${late} d=${delay} seed ${seed}: ${errors.join('; ')}; memory ${largest(data)}`);
