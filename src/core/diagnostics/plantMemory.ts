@@ -68,6 +68,8 @@ export type PlantMemoryResult =
 
 /** Column-pivot floor: a pivot below this share of its column's own sum of squares is rounding (ours). */
 const PIVOT_FLOOR = 1e-10;
+/** A base residual below this share of the target's centred sum of squares is rounding, not plant (ours). */
+const RESIDUAL_FLOOR = 1e-12;
 
 export function plantMemory(data: MemoryData, options: PlantMemoryOptions): PlantMemoryResult {
   const { lags } = options, ds = data.stateDim, m = data.actionDim;
@@ -164,8 +166,10 @@ function componentMemory(l: Float64Array, gram: Float64Array, at: Layout, j: num
   for (let c = 0; c < at.p; c++) if (l[c * width + c] > 0) { base += l[y * width + c] ** 2; keptBase++; }
   for (let c = at.p; c < at.p + at.q; c++) if (l[c * width + c] > 0) { added += l[y * width + c] ** 2; keptLags++; }
   const rss0 = Math.max(0, gram[y * width + y] - base), rss1 = Math.max(0, rss0 - added);
-  const partialRSquared = rss0 > 0 ? Math.min(1, added / rss0) : 0;
   const denominatorDf = at.n - keptBase - keptLags;
+  // A component the base explains to rounding (an angle integrated from its rate) has no residual to read.
+  if (!(rss0 > RESIDUAL_FLOOR * gram[y * width + y])) return { component: j, partialRSquared: 0, fStatistic: 0, numeratorDf: keptLags, denominatorDf, strongest: null };
+  const partialRSquared = rss0 > 0 ? Math.min(1, added / rss0) : 0;
   const fStatistic = keptLags > 0 && rss1 > 0 ? (added / keptLags) / (rss1 / denominatorDf) : keptLags > 0 && added > 0 ? Infinity : 0;
   return { component: j, partialRSquared, fStatistic, numeratorDf: keptLags, denominatorDf, strongest: strongestSignal(l, gram, at, rss0) };
 }

@@ -11,11 +11,11 @@
  * Abramowitz & Stegun table 26.1, from memory).
  *
  * Thresholds chosen on the battery (bench/plantMemoryTable.ts, 3 seeds): on every Markov plant of the
- * battery and the hold-outs, both ways of logging, R̄² stayed at or below 0.3 % at 20,000 rows and
- * 0.7 % at 2,000; on the dead-time vessel (test/battery/deadTimePlant.ts, d = 1..5) a partial R² of
+ * battery and the hold-outs, both ways of logging, R̄² stayed at or below 0.2 % at 20,000 rows (3 seeds)
+ * and 0.9 % at 2,000 (1 seed); on the dead-time vessel (test/battery/deadTimePlant.ts, d = 1..5) a partial R² of
  * 9–14 % put the product's J off by at most 3 % (within its own scatter), 31–40 % at most 3 %,
  * 53–60 % up to 6 %, 78–81 % 4–20 %, and 94 % (the whole valve effect late) 10–59 %. Hence a caution
- * from 5 % (fifteen times the Markov plants' largest, and where the memory is plain to see), and a
+ * from 5 % (more than five times the Markov plants' largest, and where the memory is plain to see), and a
  * serious finding from 50 % (where J was first off by more than its scatter). The battery's Markov
  * plants are linear or mildly nonlinear; a strongly nonlinear Markov plant whose misfit leaks into
  * the earlier rows could reach the caution, which then says to look, not that J is wrong.
