@@ -12,13 +12,23 @@
  *
  * Thresholds chosen on the battery (bench/plantMemoryTable.ts, 3 seeds): on every Markov plant of the
  * battery and the hold-outs, both ways of logging, R̄² stayed at or below 0.2 % at 20,000 rows (3 seeds)
- * and 0.9 % at 2,000 (1 seed); on the dead-time vessel (test/battery/deadTimePlant.ts, d = 1..5) a partial R² of
- * 9–14 % put the product's J off by at most 3 % (within its own scatter), 31–40 % at most 3 %,
- * 53–60 % up to 6 %, 78–81 % 4–20 %, and 94 % (the whole valve effect late) 10–59 %. Hence a caution
- * from 5 % (more than five times the Markov plants' largest, and where the memory is plain to see), and a
- * serious finding from 50 % (where J was first off by more than its scatter). The battery's Markov
- * plants are linear or mildly nonlinear; a strongly nonlinear Markov plant whose misfit leaks into
- * the earlier rows could reach the caution, which then says to look, not that J is wrong.
+ * and 0.9 % at 2,000 (1 seed). On the dead-time vessel (test/battery/deadTimePlant.ts, 80,000 rows,
+ * d = 1..5, with a share f of the valve's effect late), the product's J (linear, degree 2) against the
+ * exact J, and its shift from the same seed's J without dead time (within ±3 % there):
+ *
+ *   f      R̄²        J − exact (two candidates)    shift from d = 0
+ *   0.03   0.8–1.5 %   −0.4 … +3.2 %                 none
+ *   0.1    9–14 %      −0.8 … +3.0 %                 ≤ 0.7 points
+ *   0.2    31–40 %     −2.6 … +2.2 %                 1–2 points
+ *   0.3    53–60 %     −6.3 … +0.5 %                 3–6 points
+ *   0.5    78–81 %     −20 … −4 %                    6–20 points
+ *   1      94 %        −59 … −10 %                   11–59 points
+ *
+ * Hence a caution from 5 % (more than five times the Markov plants' largest, where the memory is plain
+ * to see though J may still be right), and a serious finding from 50 % (where J first moved by more than the
+ * ±3 % it scatters by without dead time). The battery's Markov plants are linear or mildly nonlinear; a strongly nonlinear Markov
+ * plant whose misfit leaks into the earlier rows could reach the caution, which then says to look, not
+ * that J is wrong.
  */
 import type { ComponentMemory, PlantMemoryResult } from './plantMemory';
 
@@ -69,7 +79,7 @@ export function plantMemoryFinding(result: PlantMemoryResult, names: MemoryNames
     severity: serious ? 'serious' : 'caution', topic: 'plantMemory',
     message: `The logged state may not carry the plant’s memory: the rows before explain ${pct(share)} of what the one-step model leaves unexplained in ${state}${most}. ` +
       'Every estimate here, the cross-checks included, assumes the next state depends on the present state and action only; a dead time or a lag that is not logged breaks that' +
-      (serious ? ', and then J and the cross-checks can all be off together (on a test plant with a dead time an effect this large put J off by 6–59 %). ' : '. ') +
+      (serious ? ', and then J and the cross-checks can all be off together (on a test plant with a dead time, 53–60 % put J off by up to 6 %, 94 % by up to 59 %). ' : '. ') +
       'Add the earlier values named here as derived states (columns.derived, kind "previous") and evaluate again.',
   };
 }
