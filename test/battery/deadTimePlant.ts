@@ -56,7 +56,8 @@ export function augmentedPlant(delay: number, late = 1): { plant: LinearQuadrati
   };
 }
 
-function augmentedDynamics(delay: number, late: number): PlantDynamics {
+/** The augmented plant as a simulator (noise on the temperatures only). */
+export function augmentedDynamics(delay: number, late = 1): PlantDynamics {
   const n = 2 + delay;
   return {
     stateDim: n, actionDim: 1,
@@ -95,9 +96,14 @@ export function deadTimeLog(delay: number, runs: number, seed: number, late = 1)
 /** The exact J (reward sense) of a candidate over the logged runs' real (augmented) start states. */
 export function deadTimeTruth(delay: number, candidate: (typeof DEAD_TIME_CANDIDATES)[number], augmentedStarts: Float64Array, late = 1): number {
   const { plant, point } = augmentedPlant(delay, late), n = 2 + delay;
-  const policy = createGaussianPolicy(feedback([...candidate.gain], candidate.std, delay), n);
+  const policy = createGaussianPolicy(augmentedCandidate(delay, candidate), n);
   const form = lqClosedForm(plant, point, policy, DEAD_TIME_DISCOUNT);
   return rewardFromCost(closedFormPolicyCost(form, augmentedStarts, augmentedStarts.length / n));
+}
+
+/** The candidate on the augmented state (gain 0 on the remembered valve positions). */
+export function augmentedCandidate(delay: number, candidate: (typeof DEAD_TIME_CANDIDATES)[number]): GaussianPolicySpec {
+  return feedback([...candidate.gain], candidate.std, delay);
 }
 
 /** The candidate as the product sees it: a policy on the logged (vessel, jacket) state. */
