@@ -68,6 +68,8 @@ export type PlantMemoryResult =
 
 /** Column-pivot floor: a pivot below this share of its column's own sum of squares is rounding (ours). */
 const PIVOT_FLOOR = 1e-10;
+/** Relative gap at which a row's s' and the next row's s still count as one value (ours: six printed digits). */
+const CHAIN_TOLERANCE = 1e-6;
 /** A base residual below this share of the target's centred sum of squares is rounding, not plant (ours). */
 const RESIDUAL_FLOOR = 1e-12;
 
@@ -78,7 +80,8 @@ export function plantMemory(data: MemoryData, options: PlantMemoryOptions): Plan
   const rows = usable.filter((_, k) => k % stride === 0);
   const p = options.features.dim, q = lags * (ds + m), width = p + q + ds;
   if (rows.length <= 2 * (p + q)) {
-    return { reason: `it needs more than ${2 * (p + q)} rows with ${lags} earlier rows of their own run before them, and the log has ${usable.length}` };
+    const why = usable.length === 0 && data.count > 2 * lags ? ' (no row’s next state is the next row’s state, or every run is shorter)' : '';
+    return { reason: `it needs more than ${2 * (p + q)} rows with ${lags} earlier rows of their own run before them, and the log has ${usable.length}${why}` };
   }
   const table = regressionTable(data, rows, options);
   const gram = new Float64Array(width * width);
@@ -100,8 +103,12 @@ export function usableRows(data: MemoryData, lags: number): number[] {
   return out;
 }
 
+/** Row i − 1's s' is row i's s, to CHAIN_TOLERANCE (a log whose next-state columns are printed to fewer digits still chains). */
 function chained(data: MemoryData, i: number, ds: number): boolean {
-  for (let c = 0; c < ds; c++) if (data.nextStates[(i - 1) * ds + c] !== data.states[i * ds + c]) return false;
+  for (let c = 0; c < ds; c++) {
+    const a = data.nextStates[(i - 1) * ds + c], b = data.states[i * ds + c];
+    if (!(Math.abs(a - b) <= CHAIN_TOLERANCE * (Math.abs(a) + Math.abs(b)))) return false;
+  }
   return true;
 }
 

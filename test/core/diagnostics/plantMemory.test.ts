@@ -91,6 +91,9 @@ describe('plant memory: the nested regression on earlier rows', () => {
     expect(usableRows(data, 3)).toEqual([3, 4, 5, 6, 7, 8, 9, 13, 14, 15, 16, 17, 18, 19, 23, 24, 25, 26, 27, 28, 29]);
     const broken = { ...data, nextStates: Float64Array.from(data.nextStates, (v, i) => (i === 5 ? v + 1 : v)) };
     expect(usableRows(broken, 3).slice(0, 4)).toEqual([3, 4, 5, 9]);
+    // Next-state columns printed to 8 significant digits still chain.
+    const printed = { ...data, nextStates: Float64Array.from(data.nextStates, (v) => Number(v.toPrecision(8))) };
+    expect(usableRows(printed, 3)).toEqual(usableRows(data, 3));
     // A controller without dither: the action is exactly −0.5·x, so the earlier actions add nothing the earlier states do not.
     const noDither = { ...deadTimeSeries({ phi: 0.5, b: 0, noise: 1, delay: 0, runs: 20, steps: 100, seed: 2 }) };
     const actions = Float64Array.from(noDither.states, (x) => -0.5 * x);
