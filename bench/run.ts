@@ -5,6 +5,7 @@
  *   npm run bench -- linear       only the linear FQE sizes
  *   npm run bench -- bootstrap    only the bootstrap resampling rates
  *   npm run bench -- retune       only the retune map
+ *   npm run bench -- memory       the plant-memory check's cost beside the whole evaluate (bench/plantMemoryBench.ts)
  *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script (the built CLI when out/cli/main.js is there)
  *   npm run bench -- cli-start    start-up of the command line: sources through tsx beside the built one (npm run build:cli)
  *   npm run bench -- app-thread   the app's assessment in Chromium with one thread and with its helper worker, 1,000,000 transitions
@@ -59,6 +60,10 @@ const jobs: Job[] = [
   {
     name: 'command-line start-up: sources through tsx beside the built CLI (out/cli/main.js), fresh processes, medians', group: 'cli-start',
     run: async () => (await import('./cliStartBench')).runCliStartBench(),
+  },
+  {
+    name: 'the plant-memory check beside the whole evaluate, 1,000,000 transitions (peer plant)', group: 'memory',
+    run: async () => (await import('./plantMemoryBench')).runPlantMemoryBench(),
   },
   ...[1_000_000].map((n) => ({
     name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',

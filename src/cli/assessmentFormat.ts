@@ -1,5 +1,6 @@
 /** The readable summary of an assessment for the terminal: intervals, comparison, cross-checks, warnings. */
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
+import { plantMemorySentence } from '../pipeline/plantMemoryCheck';
 import { significant, textTable as table } from './textTable';
 
 const number = (v: number | null): string => significant(v, 5);
@@ -34,6 +35,7 @@ export function formatAssessment(a: Assessment): string {
     ...c.functionClasses.classes.map((k) => `    · ${k.label}: ${number(k.value)} ${interval(k.interval)}`),
   ] : []));
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
+  const memory = plantMemorySentence(a.plantMemory);
   return [
     `Bootstrap over ${a.settings.episodes} runs: ${a.settings.resamples} resamples, level ${level}, seed ${a.settings.seed}. Baseline: ${a.comparison.baseline.name}.`,
     a.comparison.baseline.note,
@@ -47,6 +49,7 @@ export function formatAssessment(a: Assessment): string {
     '',
     'Cross-checks:',
     ...checks,
+    ...(memory ? ['', memory] : []),
     ...(warnings.length ? ['', 'Assessment warnings:', ...warnings.map((w) => `  - [${w.severity}] ${w.message}`)] : []),
     '',
     `Computed with ${a.settings.threads}.`,

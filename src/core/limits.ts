@@ -142,3 +142,12 @@ export const MAX_EXPRESSION_OPERATIONS = 200;
 export const STREAMED_FILE_BYTES = 16 * 1024 * 1024;
 /** The window of a file read in pieces: the bytes held at once while its records are read (ours; it grows only for a record longer than it). */
 export const STREAM_WINDOW_BYTES = 4 * 1024 * 1024;
+
+/**
+ * The plant-memory check (diagnostics/plantMemory.ts): earlier rows read back, and the rows regressed
+ * at most. Eight rows back lets a dead time of several samples show (ours); a larger log is read at
+ * an even stride of its usable rows, deterministic, so the check's cost stays a few tenths of a
+ * second at any size (rows × (monomials + 8·(states + actions))² / 2 multiply-adds).
+ */
+export const PLANT_MEMORY_LAGS = 8;
+export const PLANT_MEMORY_ROWS = 20_000;

@@ -2,13 +2,14 @@
  * The definitions and thresholds behind an assessment, stated once in words for the report and
  * the JSON, so a reviewer can see what each number means without reading the code. Every threshold
  * is quoted from the constant the code applies (src/core/diagnostics/severity.ts,
- * crossCheckVerdict.ts, functionClassRange.ts, possibleStateValues.ts, returnConcentration.ts).
+ * crossCheckVerdict.ts, functionClassRange.ts, possibleStateValues.ts, returnConcentration.ts, plantMemoryFinding.ts).
  */
 import { DEFAULT_ACTION_SUPPORT } from '../core/diagnostics/actionSupport';
 import { CLASS_AGREEMENT } from '../core/diagnostics/functionClassRange';
 import { actionSupportRuleText, effectiveShareRuleText, occupancyShiftRuleText, startCoverageRuleText } from '../core/diagnostics/severity';
 import { possibleValuesRuleText } from '../core/diagnostics/possibleStateValues';
 import { MAX_VALUE_CHECK_STATES } from '../core/limits';
+import { plantMemoryRuleText } from '../core/diagnostics/plantMemoryFinding';
 import { returnConcentrationRuleText } from '../core/diagnostics/returnConcentration';
 import { CROSS_CHECK_RULE } from '../core/offPolicy/crossCheckVerdict';
 import { COMPARED_DEGREES, MAX_CLASS_FEATURES } from './assessClasses';
@@ -46,6 +47,7 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
       `for up to ${k.queryStates} logged states.`,
     possibleValuesRuleText(MAX_VALUE_CHECK_STATES),
     returnConcentrationRuleText(),
+    plantMemoryRuleText(),
     'Never-visited region: the share of the value-surface grid (spanning the logged range of its two states) with no logged state at a grid point or its 8 neighbours (our definition); V there is extrapolated.',
     ...(startsFollowEpisodes ? [] : [startCoverageRuleText()]),
   ];

@@ -24,6 +24,7 @@ import { finalStateValues } from './model/completedReturn';
 import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
+import { plantMemoryAssessment } from './plantMemoryCheck';
 import { checkLinearQuadraticModel, modelInapplicability } from './assessModelCheck';
 import { runResamples, type ResampleProgress } from './assessResamples';
 import type { ResampleHelper } from './helperFeed';
@@ -131,7 +132,7 @@ async function assessWith(
   };
   const candidates = assembleCandidates(inputs);
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
-  const unvisited = unvisitedShare(plan), solver = resampleSolver(works);
+  const unvisited = unvisitedShare(plan), solver = resampleSolver(works), memory = plantMemoryAssessment(data);
   return {
     settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver, threads },
     behaviour: intervalEstimate(plan.loggedReturn.value, replicates.loggedReturn, settings.level, sign,
@@ -141,7 +142,8 @@ async function assessWith(
     comparison: comparison(plan, replicates, works, baseline, settings.level),
     sensitivity: settings.sensitivity ? await sensitivity(context, works, sign) : null,
     unvisitedShare: unvisited,
-    warnings: globalWarnings(context, candidates, unvisited),
+    plantMemory: memory.summary,
+    warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited)],
     method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, solver),
     valueSense: plan.sense,
   };

@@ -6,6 +6,8 @@
  * app's plots. Values are in the project's sense (costs stay costs; lower is better then).
  */
 
+import type { PlantMemorySummary } from './plantMemoryCheck';
+
 export interface IntervalEstimate {
   /** Point estimate on the full data. */
   value: number;
@@ -221,6 +223,8 @@ export interface Assessment {
   sensitivity: Sensitivity | null;
   /** Share of the value-surface grid with no logged state within one grid step (V is extrapolated there); null without a surface. */
   unvisitedShare: number | null;
+  /** Does the logged state carry the plant's memory (plantMemoryCheck.ts)? Once per project; absent in assessments made before the check. */
+  plantMemory?: PlantMemorySummary;
   warnings: AssessmentWarning[];
   /** Definitions and thresholds used, stated once for the report. */
   method: string[];

@@ -14,6 +14,7 @@ export function assessmentToJson(a: Assessment): Record<string, unknown> {
     comparison: a.comparison,
     sensitivity: a.sensitivity,
     unvisitedShare: a.unvisitedShare,
+    plantMemory: a.plantMemory ?? null,
     warnings: a.warnings,
     method: a.method,
   };

@@ -56,7 +56,7 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     await expect.poll(() => page.getByTestId('policy-interval-0').getAttribute('title'), POLL).toContain('basic interval');
   });
 
-  it('shows the ranking, the cross-checks with verdicts and the coverage in words', async () => {
+  it('shows the ranking, the cross-checks with verdicts and the coverage in words, the plant-memory line with it', async () => {
     const { page } = app;
     const ranking = await page.getByTestId('ranking').innerText();
     expect(ranking).toContain('Ranking, best first');
@@ -66,6 +66,7 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     await expect.poll(() => lq.getByTestId('verdict').innerText(), POLL).toMatch(/Agrees|Disagrees|Too uncertain|Not applicable/);
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('Occupancy shift');
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('outside the logged range');
+    await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toMatch(/Plant memory: the 8 rows before explain at most [\d.]+ %/);
   });
 
   it('draws a sensitivity plot that is not blank', async () => {

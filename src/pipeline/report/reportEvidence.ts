@@ -2,6 +2,7 @@
 import type { Assessment, AssessmentWarning, CandidateAssessment } from '../assessment';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../core/diagnostics/severity';
 import { CAUTIONS } from '../cautions';
+import { plantMemorySentence } from '../plantMemoryCheck';
 import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
@@ -17,7 +18,13 @@ export function diagnosticsSection(input: ReportInput): Html {
     ${diagnosticRows(a).map((row) => html`<tr><td>${row.label}</td>${row.values.map((v) => html`<td class="num">${v}</td>`)}<td class="num">${row.reference}</td></tr>`)}
     </tbody></table>
     <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${formatPercent(a.unvisitedShare, 0)} of the value-surface grid has no logged state within one grid step.`}</p>
+    ${memoryParagraph(a)}
     <h3>Warnings</h3>${warningList([...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))])}</section>`;
+}
+
+function memoryParagraph(a: Assessment): Html {
+  const sentence = plantMemorySentence(a.plantMemory);
+  return sentence ? html`<p>${sentence}</p>` : html``;
 }
 
 function diagnosticRows(a: Assessment): { label: string; values: string[]; reference: string }[] {

@@ -4,15 +4,17 @@
  * share of the state grid, and the warnings these raise, as sentences.
  */
 import type { Assessment, AssessmentWarning } from '../../../../pipeline/assessment';
+import { plantMemorySentence } from '../../../../pipeline/plantMemoryCheck';
 import { coverageSentences, unvisitedSentence } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 
 export function CoveragePanel({ assessment }: { assessment: Assessment }) {
-  const unvisited = unvisitedSentence(assessment.unvisitedShare);
+  const unvisited = unvisitedSentence(assessment.unvisitedShare), memory = plantMemorySentence(assessment.plantMemory);
   return (
     <FoldPanel section="coverage" testId="coverage" gist={coverageGist(assessment)}>
       <Warnings warnings={assessment.warnings} testId="assessment-warnings" />
       {unvisited && <p>{unvisited}</p>}
+      {memory && <p data-testid="plant-memory">{memory}</p>}
       {assessment.candidates.map((c, i) => (
         <div key={c.name} data-testid={`coverage-${i}`}>
           <h4>{c.name}</h4>

@@ -1,0 +1,71 @@
+/**
+ * The plant-memory check on a project's log (src/core/diagnostics/plantMemory.ts), once per project,
+ * not per candidate: the monomials of the product's own one-step plant model (the degree the rollout
+ * cross-check uses, assessRollouts.ts) as the base regression, PLANT_MEMORY_LAGS earlier rows and at
+ * most PLANT_MEMORY_ROWS rows (src/core/limits.ts). Its finding and words come from
+ * src/core/diagnostics/plantMemoryFinding.ts; its numbers go to the assessment as `plantMemory`.
+ */
+import { plantMemory, type MemoryData, type PlantMemoryResult } from '../core/diagnostics/plantMemory';
+import { adjustedPartialRSquared, memoryComponent, MEMORY_CAUTION, MEMORY_SERIOUS, plantMemoryFinding, type MemoryNames } from '../core/diagnostics/plantMemoryFinding';
+import { createFeatureMap } from '../core/features/featureMap';
+import { polynomialFeatureSpec } from '../core/features/polynomialFeatures';
+import { fitStateActionStandardiser } from '../core/features/standardiser';
+import { PLANT_MEMORY_LAGS, PLANT_MEMORY_ROWS } from '../core/limits';
+import type { AssessmentWarning } from './assessment';
+import { rolloutModelOptions } from './assessRollouts';
+
+/** One next-state value's result, with names (plain JSON). */
+export interface StateMemory {
+  readonly state: string;
+  /** Share of the one-step model's residual sum of squares the earlier rows explain, and the same adjusted for chance. */
+  readonly partialRSquared: number;
+  readonly adjustedPartialRSquared: number;
+  readonly fStatistic: number;
+  readonly degreesOfFreedom: [number, number];
+  /** The earlier signal that alone explains most, its rows back and its partial R²; null if none can be read. */
+  readonly strongest: { signal: string; kind: 'state' | 'action'; rowsBack: number; partialRSquared: number } | null;
+}
+
+export type PlantMemorySummary =
+  | { readonly rowsUsed: number; readonly usableRows: number; readonly rowsBack: number; readonly read: string | null; readonly states: StateMemory[] }
+  | { readonly reason: string };
+
+export function loggedPlantMemory(data: MemoryData): PlantMemoryResult {
+  if (data.count < 1) return { reason: 'the log has no transitions' };
+  const standardiser = fitStateActionStandardiser(data).spec;
+  const features = createFeatureMap(polynomialFeatureSpec(standardiser, rolloutModelOptions(data).degree));
+  return plantMemory(data, { features, standardiser, lags: PLANT_MEMORY_LAGS, maxRows: PLANT_MEMORY_ROWS });
+}
+
+/** The check's numbers (read: the state the rule read, if any passed its F guard) and its warnings (none or one). */
+export function plantMemoryAssessment(data: MemoryData & MemoryNames): { summary: PlantMemorySummary; warnings: AssessmentWarning[] } {
+  const result = loggedPlantMemory(data), finding = plantMemoryFinding(result, data);
+  const warnings = finding ? [finding] : [];
+  if ('reason' in result) return { summary: { reason: result.reason }, warnings };
+  const read = memoryComponent(result), name = (i: number) => data.stateNames[i] ?? `state ${i + 1}`;
+  return {
+    summary: {
+      rowsUsed: result.rows, usableRows: result.usableRows, rowsBack: result.lags, read: read ? name(read.component) : null,
+      states: result.components.map((c) => ({
+        state: name(c.component), partialRSquared: c.partialRSquared, adjustedPartialRSquared: adjustedPartialRSquared(c),
+        fStatistic: c.fStatistic, degreesOfFreedom: [c.numeratorDf, c.denominatorDf],
+        strongest: c.strongest && {
+          signal: (c.strongest.kind === 'state' ? data.stateNames : data.actionNames)[c.strongest.index] ?? `${c.strongest.kind} ${c.strongest.index + 1}`,
+          kind: c.strongest.kind, rowsBack: c.strongest.lag, partialRSquared: c.strongest.partialRSquared,
+        },
+      })),
+    },
+    warnings,
+  };
+}
+
+/** One line for the app's findings and the report, with the thresholds the rule applies; null for an assessment without the check. */
+export function plantMemorySentence(summary: PlantMemorySummary | undefined): string | null {
+  if (!summary) return null;
+  if ('reason' in summary) return `Plant memory: not checked — ${summary.reason}.`;
+  const top = summary.states.reduce<StateMemory | null>((a, s) => (!a || s.adjustedPartialRSquared > a.adjustedPartialRSquared ? s : a), null);
+  if (!top) return null;
+  const pct = (x: number) => `${(100 * x).toFixed(x < 0.1 ? 1 : 0)} %`;
+  return `Plant memory: the ${summary.rowsBack} rows before explain at most ${pct(top.adjustedPartialRSquared)} (adjusted for chance) of what the one-step model leaves unexplained, in ${top.state} ` +
+    `(${summary.rowsUsed} rows read; a caution above ${pct(MEMORY_CAUTION)}, serious above ${pct(MEMORY_SERIOUS)}).`;
+}
