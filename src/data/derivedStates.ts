@@ -32,7 +32,7 @@
  * The previous action is the one exception allowed: p_{t+1} = a_t is fixed before the choice at
  * t+1, and its dependence on a_t is part of the logged transition; so are its values k rows back
  * (a_{t+1−k}, fixed even earlier). Any other use of an action
- * column (its lag, difference, or an error built from it) would make the state at t depend on a_t,
+ * column (its first-order lag, difference, or an error built from it) would make the state at t depend on a_t,
  * the policy's input on its own output; the project check refuses it (derivedStateConsistency.ts).
  */
 import type { DerivedStateSpec } from '../project/schema';
@@ -80,8 +80,11 @@ function laggedColumn(x: Float64Array, initial: number | undefined, k: number, i
   return out;
 }
 
+/** The declarations computed row by row from the one before (a previous value goes through laggedColumn). */
+type AlongRunSpec = Exclude<DerivedStateSpec, { kind: 'previous' }>;
+
 /** One declaration over all records, restarting at each episode's first kept row. */
-function derivedColumn(d: DerivedStateSpec, inputs: DerivedInputs): Float64Array {
+function derivedColumn(d: AlongRunSpec, inputs: DerivedInputs): Float64Array {
   const { kept, episodeOf } = inputs, n = kept.length;
   const out = new Float64Array(n).fill(NaN);
   const step = stepper(d, inputs);
@@ -102,7 +105,7 @@ interface Stepper {
   next(p: number, r: number, before: number): number;
 }
 
-function stepper(d: DerivedStateSpec, inputs: DerivedInputs): Stepper {
+function stepper(d: AlongRunSpec, inputs: DerivedInputs): Stepper {
   const seconds = (p: number, r: number): number => {
     if ('periodSeconds' in d && d.periodSeconds !== undefined) return d.periodSeconds;
     const t = inputs.timestampsSeconds;
@@ -121,10 +124,6 @@ function stepper(d: DerivedStateSpec, inputs: DerivedInputs): Stepper {
         start: (r) => d.initial ?? x[r],
         next: (p, r, before) => before + -Math.expm1(-seconds(p, r) / d.timeConstantSeconds) * (x[r] - before),
       };
-    }
-    case 'previous': {
-      const x = inputs.column(d.source); // steps 1 only: computeDerivedStates takes lags through laggedColumn
-      return { start: () => d.initial ?? NaN, next: (p) => x[p] };
     }
     case 'difference': {
       const x = inputs.column(d.source);
