@@ -10,6 +10,11 @@
 
 /** State columns of a project (dense least squares in polynomial features grows fast with them; ours). */
 export const MAX_STATE_COLUMNS = 10;
+/**
+ * Rows back a derived previous value may reach (`steps`). A value k rows back is Markov only with
+ * the values 1 … k − 1 rows back among the states, so k cannot usefully exceed the state columns.
+ */
+export const MAX_PREVIOUS_STEPS = MAX_STATE_COLUMNS;
 /** Action columns: tensor-product quadrature has n^m points per state, so m stays small (ours). */
 export const MAX_ACTION_COLUMNS = 3;
 

@@ -4,7 +4,7 @@
  *
  *   error integral  I_first = I_0,            I_{t+1} = I_t + (r_t − y_t)·Δt_t      (forward Euler)
  *   first-order lag f_first = f_0 or x_first, f_t = f_{t−1} + (1 − e^{−Δt/τ})·(x_t − f_{t−1})
- *   previous value  p_first = p_0,            p_t = x_{t−1}
+ *   previous value  p_t = p_0 on the first k rows, p_t = x_{t−k}   (k = steps, 1 by default)
  *   difference      d_first = d_0,            d_t = x_t − x_{t−1}
  *
  * Δt_t is the stated period, or the time to the next (for the integral) or from the previous (for
@@ -14,18 +14,25 @@
  * (rectangular) sum Σ_{k<t} e_k·Δt_k, so I_t uses only errors before row t; the error is
  * r − y, the reverse-acting sign, whatever the direction of the loop that reads it.
  * Without a stated initial value, a previous value or difference is undefined on an episode's
- * first row: that row then only supplies x for the next, and starts no transition.
+ * first row (a previous value k rows back on its first k rows): those rows then only supply x for
+ * later ones, and start no transition. "Rows" are the kept rows of the episode, as for k = 1.
  *
  * Why they are Markov under a candidate. Each derived value at row t+1 is a fixed function of the
  * derived value at row t and the logged signals at rows t and t+1: I_{t+1} = I_t + e_t·Δt_t,
- * f_{t+1} = f_t + α(x_{t+1} − f_t), p_{t+1} = x_t, d_{t+1} = x_{t+1} − x_t. None reads the action
+ * f_{t+1} = f_t + α(x_{t+1} − f_t), p_{t+1} = x_t, d_{t+1} = x_{t+1} − x_t. A value k rows back is
+ * the one exception to "a fixed function of the derived value at row t": p^k_{t+1} = x_{t+1−k} =
+ * p^{k−1}_t, so it is Markov only when the values 1 … k − 1 rows back of the same source are states
+ * too (then the set shifts by one row: p^1_{t+1} = x_t, p^j_{t+1} = p^{j−1}_t); the project check
+ * refuses a lag without them (derivedStateConsistency.ts). This is what a dead time asks for: the
+ * valve positions still travelling to the measurement are the missing state. None reads the action
  * the policy is choosing at the row it describes; a candidate acting on row t's state changes the
  * later signals only through the plant, exactly as the logged controller did, so the logged
  * transition (s_t, a_t, s_{t+1}) with its derived parts is a valid sample of the plant the
  * candidate would face, and the state with them is as Markov as the signals it is built from.
  * The previous action is the one exception allowed: p_{t+1} = a_t is fixed before the choice at
- * t+1, and its dependence on a_t is part of the logged transition. Any other use of an action
- * column (its lag, difference, or an error built from it) would make the state at t depend on a_t,
+ * t+1, and its dependence on a_t is part of the logged transition; so are its values k rows back
+ * (a_{t+1−k}, fixed even earlier). Any other use of an action
+ * column (its first-order lag, difference, or an error built from it) would make the state at t depend on a_t,
  * the policy's input on its own output; the project check refuses it (derivedStateConsistency.ts).
  */
 import type { DerivedStateSpec } from '../project/schema';
@@ -41,21 +48,43 @@ export interface DerivedInputs {
 export interface DerivedColumns {
   /** Each derived state's values over records (NaN on rows not kept). */
   readonly values: Map<string, Float64Array>;
-  /** True for a declaration whose first row per episode is undefined (no initial value). */
-  readonly firstRowUndefined: Set<string>;
+  /** Each declaration whose first rows per episode are undefined (no initial value), with how many. */
+  readonly leadingRowsUndefined: Map<string, number>;
 }
 
 export function computeDerivedStates(definitions: readonly DerivedStateSpec[], inputs: DerivedInputs): DerivedColumns {
-  const values = new Map<string, Float64Array>(), firstRowUndefined = new Set<string>();
+  const values = new Map<string, Float64Array>(), leadingRowsUndefined = new Map<string, number>();
   for (const d of definitions) {
-    values.set(d.name, derivedColumn(d, inputs));
-    if ((d.kind === 'previous' || d.kind === 'difference') && d.initial === undefined) firstRowUndefined.add(d.name);
+    values.set(d.name, d.kind === 'previous' ? laggedColumn(inputs.column(d.source), d.initial, d.steps ?? 1, inputs) : derivedColumn(d, inputs));
+    if (d.kind === 'previous' && d.initial === undefined) leadingRowsUndefined.set(d.name, d.steps ?? 1);
+    if (d.kind === 'difference' && d.initial === undefined) leadingRowsUndefined.set(d.name, 1);
   }
-  return { values, firstRowUndefined };
+  return { values, leadingRowsUndefined };
 }
 
+/** x k kept rows back within the episode, or `initial` (NaN without one) on its first k kept rows. */
+function laggedColumn(x: Float64Array, initial: number | undefined, k: number, inputs: DerivedInputs): Float64Array {
+  const { kept, episodeOf } = inputs, out = new Float64Array(kept.length).fill(NaN);
+  const recent: number[] = []; // the episode's last k kept rows, oldest first
+  let episode = -2;
+  for (let r = 0; r < kept.length; r++) {
+    if (!kept[r]) continue;
+    if (episodeOf[r] !== episode) {
+      recent.length = 0;
+      episode = episodeOf[r];
+    }
+    out[r] = recent.length === k ? x[recent[0]] : (initial ?? NaN);
+    recent.push(r);
+    if (recent.length > k) recent.shift();
+  }
+  return out;
+}
+
+/** The declarations computed row by row from the one before (a previous value goes through laggedColumn). */
+type AlongRunSpec = Exclude<DerivedStateSpec, { kind: 'previous' }>;
+
 /** One declaration over all records, restarting at each episode's first kept row. */
-function derivedColumn(d: DerivedStateSpec, inputs: DerivedInputs): Float64Array {
+function derivedColumn(d: AlongRunSpec, inputs: DerivedInputs): Float64Array {
   const { kept, episodeOf } = inputs, n = kept.length;
   const out = new Float64Array(n).fill(NaN);
   const step = stepper(d, inputs);
@@ -76,7 +105,7 @@ interface Stepper {
   next(p: number, r: number, before: number): number;
 }
 
-function stepper(d: DerivedStateSpec, inputs: DerivedInputs): Stepper {
+function stepper(d: AlongRunSpec, inputs: DerivedInputs): Stepper {
   const seconds = (p: number, r: number): number => {
     if ('periodSeconds' in d && d.periodSeconds !== undefined) return d.periodSeconds;
     const t = inputs.timestampsSeconds;
@@ -96,10 +125,6 @@ function stepper(d: DerivedStateSpec, inputs: DerivedInputs): Stepper {
         next: (p, r, before) => before + -Math.expm1(-seconds(p, r) / d.timeConstantSeconds) * (x[r] - before),
       };
     }
-    case 'previous': {
-      const x = inputs.column(d.source);
-      return { start: () => d.initial ?? NaN, next: (p) => x[p] };
-    }
     case 'difference': {
       const x = inputs.column(d.source);
       return { start: () => d.initial ?? NaN, next: (p, r) => x[r] - x[p] };
@@ -108,19 +133,22 @@ function stepper(d: DerivedStateSpec, inputs: DerivedInputs): Stepper {
 }
 
 /**
- * The kept mask with each episode's first kept row removed (for declarations without an initial
- * value), and how many rows that removed.
+ * The kept mask with each episode's first `rows` kept rows removed (for declarations without an
+ * initial value), and how many rows that removed.
  */
-export function withoutFirstRows(kept: Uint8Array, episodeOf: Int32Array): { kept: Uint8Array; removed: number } {
+export function withoutFirstRows(kept: Uint8Array, episodeOf: Int32Array, rows = 1): { kept: Uint8Array; removed: number } {
   const out = Uint8Array.from(kept);
-  let previous = -1, removed = 0;
+  let episode = -2, seen = 0, removed = 0;
   for (let r = 0; r < kept.length; r++) {
     if (!kept[r]) continue;
-    if (previous < 0 || episodeOf[r] !== episodeOf[previous]) {
+    if (episodeOf[r] !== episode) {
+      episode = episodeOf[r];
+      seen = 0;
+    }
+    if (seen++ < rows) {
       out[r] = 0;
       removed++;
     }
-    previous = r;
   }
   return { kept: out, removed };
 }

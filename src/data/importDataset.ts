@@ -165,14 +165,14 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const stateNames = new Set(s.columns.states.map((c) => c.column));
   const used = definitions.filter((d) => stateNames.has(d.name));
   if (used.length === 0) return { episodes, derivedValues: new Map<string, Float64Array>(), kept: inputs.kept, report: [] as string[] };
-  const { values, firstRowUndefined } = computeDerivedStates(used, {
+  const { values, leadingRowsUndefined } = computeDerivedStates(used, {
     kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds,
   });
-  const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${DERIVED_WORDS[d.kind]})`).join(', ')}.`];
-  if (firstRowUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
-  const { kept, removed } = withoutFirstRows(inputs.kept, episodes.episodeOf);
-  const names = [...firstRowUndefined].join(', ');
-  report.push(`${names} ${firstRowUndefined.size === 1 ? 'has' : 'have'} no initial value, so the first row of each run only supplies the value before it: ${plural(removed, 'row')} start no transition.`);
+  const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${d.kind === 'previous' && (d.steps ?? 1) > 1 ? `value ${d.steps} rows back` : DERIVED_WORDS[d.kind]})`).join(', ')}.`];
+  if (leadingRowsUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
+  const rows = Math.max(...leadingRowsUndefined.values());
+  const { kept, removed } = withoutFirstRows(inputs.kept, episodes.episodeOf, rows);
+  report.push(undefinedStartReport(leadingRowsUndefined, rows, removed));
   // The first row where every derived state is defined is the run's start: a run whose own first row
   // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
   const again = assignEpisodes(s.columns.episode, { ...inputs, kept, medianStepSeconds: undefined }); // other rows kept: the median is found again
@@ -185,6 +185,12 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const lost = (line: string) => /first row to exclusion/.test(line);
   const episodeReport = [...again.report.filter((line) => !lost(line)), ...episodes.report.filter(lost)];
   return { episodes: { ...again, hasStart, report: episodeReport }, derivedValues: values, kept, report };
+}
+
+function undefinedStartReport(undefinedRows: Map<string, number>, rows: number, removed: number): string {
+  const names = [...undefinedRows.keys()].join(', '), has = undefinedRows.size === 1 ? 'has' : 'have';
+  const first = rows === 1 ? 'the first row of each run only supplies the value before it' : `the first ${rows} rows of each run only supply the values before them`;
+  return `${names} ${has} no initial value, so ${first}: ${plural(removed, 'row')} start no transition.`;
 }
 
 const DERIVED_WORDS = { errorIntegral: 'error integral', filtered: 'first-order lag', previous: 'previous value', difference: 'difference' } as const;

@@ -116,7 +116,7 @@ function checkRateLimit(c: CandidateSpec, ctx: Context): void {
     }
     if (!checkState(previous, where, ctx)) return;
     const d = ctx.derived.find((x) => x.name === previous);
-    if (!d || d.kind !== 'previous' || d.source !== ctx.actionNames[j]) {
+    if (!d || d.kind !== 'previous' || d.source !== ctx.actionNames[j] || (d.steps ?? 1) !== 1) {
       ctx.add(where, `"${previous}" is not the previous value of ${ctx.actionNames[j]}; choose the state that holds ${ctx.actionNames[j]} one sample earlier as the previous-action state`);
     }
   });

@@ -2,9 +2,11 @@
  * Checks of the derived states (columns.derived) that the schema cannot express. The one that
  * matters most: a derived state must not depend on the action the candidate is choosing, else the
  * policy's input would depend on its own output; the previous action is allowed (it is fixed
- * before the choice). Why the others are Markov under a candidate: src/data/derivedStates.ts.
+ * before the choice), and so are its values further back. A value k rows back is Markov only with
+ * the values 1 … k − 1 rows back of the same source among the states: it is refused without them.
+ * Why the others are Markov under a candidate: src/data/derivedStates.ts.
  */
-import type { ProjectDocument } from './schema';
+import type { DerivedStateSpec, ProjectDocument } from './schema';
 
 export function checkDerivedStates(doc: ProjectDocument, add: (path: string, message: string) => void): void {
   const derived = doc.columns.derived ?? [];
@@ -28,8 +30,26 @@ export function checkDerivedStates(doc: ProjectDocument, add: (path: string, mes
     const needsTime = (d.kind === 'errorIntegral' || d.kind === 'filtered') && d.periodSeconds === undefined;
     if (needsTime && timestamp === undefined) add(`${where}.periodSeconds`, 'give the sample period in seconds, or name a timestamp column (columns.timestamp) so Δt comes from the log');
   });
+  checkLagChains(derived, new Set(doc.columns.states.map((s) => s.column)), add);
   const usesDerived = doc.columns.states.some((s) => names.has(s.column));
   if (usesDerived && doc.columns.nextState.kind === 'columns') {
     add('columns.nextState', 'derived states need next states from the next row of the same run (nextState "nextRow"), since they are computed along each run');
   }
+}
+
+/**
+ * p^k_{t+1} = x_{t+1−k} = p^{k−1}_t: a value k rows back used as a state needs the values 1 … k − 1
+ * rows back of the same source among the states too, else the next state is not a function of this
+ * one and the logged action (a dead time the state forgets).
+ */
+function checkLagChains(derived: readonly DerivedStateSpec[], states: Set<string>, add: (path: string, message: string) => void): void {
+  derived.forEach((d, i) => {
+    const k = d.kind === 'previous' ? d.steps ?? 1 : 1;
+    if (d.kind !== 'previous' || k === 1 || !states.has(d.name)) return;
+    const held = (j: number) => derived.some((x) => x.kind === 'previous' && x.source === d.source && (x.steps ?? 1) === j && states.has(x.name));
+    const missing = Array.from({ length: k - 1 }, (_, j) => j + 1).filter((j) => !held(j));
+    if (missing.length === 0) return;
+    const rows = missing.map(String).join(', ');
+    add(`columns.derived[${i}].steps`, `"${d.name}", the value of "${d.source}" ${k} rows back, is a valid state only with its values 1 to ${k - 1} rows back among the states (next row it becomes the value ${k - 1} rows back, which the state must already hold); missing: ${rows} row(s) back. Add each as a derived state (kind "previous", source "${d.source}", steps ${missing[0]}…) with the role "state"`);
+  });
 }

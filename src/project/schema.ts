@@ -11,7 +11,7 @@ import { MAX_RETUNE_AXES, MAX_RETUNE_AXIS_POINTS, MIN_RETUNE_AXIS_POINTS } from 
 import { strictObject } from './strictObject';
 import {
   BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
-  MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_STATE_COLUMNS, POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE, RIDGE, SEED,
+  MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_PREVIOUS_STEPS, MAX_STATE_COLUMNS, POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE, RIDGE, SEED,
   SURFACE_RESOLUTION, TOLERANCE,
 } from '../core/limits';
 
@@ -94,7 +94,8 @@ export const dataSourceSchema = strictObject({
  * States derived from logged signals during import, per episode (src/data/derivedStates.ts, where
  * the formulas and the reason they are Markov under a candidate are written out). A state column
  * may name one of them instead of a file column. Sources are file columns; an action column may be
- * used only by a "previous" state (the previous action, for a rate limit).
+ * used only by a "previous" state (the previous action, for a rate limit, or the valve positions
+ * still travelling through a dead time).
  */
 const derivedName = columnName;
 const derivedUnit = z.string().default('');
@@ -116,8 +117,15 @@ export const derivedStateSchema = z.discriminatedUnion('kind', [
     initial: finite.optional(),
     periodSeconds: finite.positive().optional(),
   }),
-  /** x_{t−1}; on an episode's first row `initial`, or (without it) that row only supplies the value for the next. */
-  strictObject({ kind: z.literal('previous'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
+  /**
+   * x_{t−k} with k = `steps` (default 1); on an episode's first k rows `initial`, or (without it) those
+   * rows only supply values for later ones. A value k rows back needs the values 1 … k − 1 rows back
+   * of the same source among the states (derivedStateConsistency.ts).
+   */
+  strictObject({
+    kind: z.literal('previous'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional(),
+    steps: z.number().int('expected a whole number of rows').min(1, 'expected at least 1 row back').max(MAX_PREVIOUS_STEPS, `at most ${MAX_PREVIOUS_STEPS} rows back`).optional(),
+  }),
   /** x_t − x_{t−1}; on an episode's first row `initial`, or (without it) that row only supplies x_{t−1}. */
   strictObject({ kind: z.literal('difference'), name: derivedName, unit: derivedUnit, source: columnName, initial: finite.optional() }),
 ]);

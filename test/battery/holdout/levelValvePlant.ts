@@ -17,6 +17,7 @@ import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
 import { valveLaw } from './valveLaw';
 import { blendingTankPlant } from './blendingTankPlant';
+import { pipeHeaterPlant } from './pipeHeaterPlant';
 import { dryerPlant } from './dryerPlant';
 import { exchangerPlant } from './exchangerPlant';
 import { kettlePlant } from './kettlePlant';
@@ -72,5 +73,5 @@ export function gentleLevelValvePlant(): BatteryPlant {
 }
 
 export function holdoutPlants(): BatteryPlant[] {
-  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant()];
+  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant(), pipeHeaterPlant()];
 }

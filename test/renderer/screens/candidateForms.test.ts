@@ -139,6 +139,11 @@ describe('rate limit', () => {
     expect(cleared).toMatchObject({ name: 'Mine', dither: [2.5] });
   });
 
+  it('does not take the action two rows back for the previous action (a dead-time lag is not a rate limit\'s state)', () => {
+    const lagged = { ...doc, columns: { ...doc.columns, derived: doc.columns.derived?.map((d) => (d.kind === 'previous' ? { ...d, steps: 2 } : d)) } };
+    expect(previousActionState(lagged, 'heating_valve_pct')).toBeNull();
+  });
+
   it('reports a missing previous-action state beside the field', () => {
     const noPrevious = { ...doc, columns: { ...doc.columns, derived: doc.columns.derived?.filter((d) => d.kind !== 'previous') } };
     const limited = withRateLimit(affineCandidate, noPrevious, 0, { maxStep: 2 });

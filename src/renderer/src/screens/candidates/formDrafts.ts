@@ -39,10 +39,10 @@ export function errorIntegralsFor(doc: ProjectDocument, measurement: string, set
   return [...found.filter((d) => d.setpoint === setpoint), ...found.filter((d) => d.setpoint !== setpoint)].map((d) => d.name);
 }
 
-/** The derived previous value of an action column among the state columns, or null. */
+/** The derived previous value (one row back) of an action column among the state columns, or null. */
 export function previousActionState(doc: ProjectDocument, actionColumn: string): string | null {
   const states = new Set(doc.columns.states.map((s) => s.column));
-  return derivedStates(doc).find((d) => d.kind === 'previous' && d.source === actionColumn && states.has(d.name))?.name ?? null;
+  return derivedStates(doc).find((d) => d.kind === 'previous' && (d.steps ?? 1) === 1 && d.source === actionColumn && states.has(d.name))?.name ?? null;
 }
 
 /** A fixed setpoint to start from for a measurement: its error integral's constant setpoint, or 0. */
