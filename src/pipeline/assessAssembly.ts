@@ -21,7 +21,7 @@ import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import { crossChecks } from './assessCrossChecks';
 import { coverageDiagnostics, coverageWarnings, linearModelOf, shiftOf, type CoverageReference } from './assessDiagnostics';
 import { intervalEstimate, pairedDifference, ranking, type Estimator } from './assessIntervals';
-import { isModelValueFailure, modelInapplicability, type ModelCheck } from './assessModelCheck';
+import { isModelValueFailure, type ModelCheck } from './assessModelCheck';
 import type { CandidateReplicates, ReplicateSet, Replicates } from './assessResamples';
 import type { RolloutOutcome } from './assessRollouts';
 import type { AssessmentSettings } from './assessSettings';
@@ -43,6 +43,8 @@ export interface AssemblyInputs {
   replicates: ReplicateSet;
   modelCheck: ModelCheck;
   modelReasons: (string | null)[];
+  /** Why the closed form does not apply to the present controller, or null. */
+  presentModelReason: string | null;
   rollouts: RolloutOutcome[];
   baselineRollout: RolloutOutcome | null;
   ranges: LoggedActionRanges;
@@ -81,8 +83,7 @@ export function assemblePresentController(inputs: AssemblyInputs): PresentContro
   const { context, baseline, replicates, settings } = inputs, sign = context.plan.sign;
   if (!baseline || !replicates.presentController || !replicates.completedReturn) return null;
   const r = replicates.presentController, model = baseline.model;
-  const modelReason = modelInapplicability(inputs.modelCheck, model.policy);
-  const { checks, confirmation } = checksOf(inputs, baseline, r, modelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null, null);
+  const { checks, confirmation } = checksOf(inputs, baseline, r, inputs.presentModelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null, null);
   const completed = completedReturnFromEnds(inputs.context.plan, inputs.baselineEnds!).value;
   return {
     name: model.name, policyValue: intervalEstimate(model.fit.policyValue, r.fqe, settings.level, sign),

@@ -15,7 +15,7 @@ import { episodeEnds, meanAndStandardError } from '../core/loggedReturn';
 import { failure, success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import type { ProjectDocument } from '../project/schema';
-import type { Assessment } from './assessment';
+import type { Assessment, AssessmentWarning } from './assessment';
 import { AssessmentError, candidateWork, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
 import { classWorks } from './assessClasses';
@@ -24,7 +24,7 @@ import { finalStateValues } from './model/completedReturn';
 import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
-import { plantMemoryAssessment } from './plantMemoryCheck';
+import { modelChecksReason, plantMemoryAssessment, type PlantMemorySummary } from './plantMemoryCheck';
 import { checkLinearQuadraticModel, modelInapplicability } from './assessModelCheck';
 import { runResamples, type ResampleProgress } from './assessResamples';
 import type { ResampleHelper } from './helperFeed';
@@ -79,13 +79,22 @@ export async function assessProject(options: AssessRunOptions & { project: Proje
 
 async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Assessment> {
   const context = assessmentContext(run, options);
-  // Opened first, so that a helper thread forms the one-step model and simulates while this thread fits the function classes.
-  const simulations = openRolloutSimulations(context, everyModel(run).map((m) => m.policy), options.settings);
+  // Read first: a serious finding rules out the checks that simulate a one-step model (plantMemoryCheck.ts).
+  const memory = plantMemoryAssessment(run.plan.data), memoryReason = modelChecksReason(memory);
+  // Opened next, so that a helper thread forms the one-step model and simulates while this thread fits the function classes.
+  const simulations = memoryReason !== null ? { reason: memoryReason } : openRolloutSimulations(context, everyModel(run).map((m) => m.policy), options.settings);
   try {
-    return await assessWith(run, options, context, simulations);
+    return await assessWith(run, options, context, simulations, { ...memory, modelReason: memoryReason });
   } finally {
     if (!('reason' in simulations)) simulations.close();
   }
+}
+
+/** The plant-memory check's numbers and warnings, and why it rules out the model checks (null when it does not). */
+interface PlantMemoryRead {
+  readonly summary: PlantMemorySummary;
+  readonly warnings: AssessmentWarning[];
+  readonly modelReason: string | null;
 }
 
 /** The candidates' models, then the present controller's where there is one: the order of every per-policy list. */
@@ -94,7 +103,7 @@ function everyModel(run: ProjectRun): ProjectRun['models'] {
 }
 
 async function assessWith(
-  run: ProjectRun, options: AssessRunOptions, context: AssessmentContext, simulations: PerDecisionRoute | { reason: string },
+  run: ProjectRun, options: AssessRunOptions, context: AssessmentContext, simulations: PerDecisionRoute | { reason: string }, memory: PlantMemoryRead,
 ): Promise<Assessment> {
   const { plan } = run, { data, sign } = plan, { settings } = options;
   const total = everyModel(run).length;
@@ -109,10 +118,11 @@ async function assessWith(
   const baseline = run.presentController ? candidateWork(context, run.presentController) : null;
   const baselineEnds = run.presentController ? finalStateValues(plan, run.presentController) : null;
   const modelCheck = checkLinearQuadraticModel(data, plan.episodes, plan.absorbingEnds);
-  const modelReasons = works.map((w) => modelInapplicability(modelCheck, w.model.policy));
+  const modelReasons = works.map((w) => memory.modelReason ?? modelInapplicability(modelCheck, w.model.policy));
+  const presentModelReason = baseline && (memory.modelReason ?? modelInapplicability(modelCheck, baseline.model.policy));
   const model = modelCheck.regressions ? {
     regressions: modelCheck.regressions, applicable: modelReasons.map((r) => r === null),
-    baselineApplicable: baseline !== null && modelInapplicability(modelCheck, baseline.model.policy) === null,
+    baselineApplicable: baseline !== null && presentModelReason === null,
   } : null;
   const replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings,
     (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
@@ -127,12 +137,12 @@ async function assessWith(
     presentControllerOutside: context.presentController ? meanOutside(context.presentController.policy, ranges) : null,
   };
   const inputs: AssemblyInputs = {
-    context, works, baseline, replicates, modelCheck, modelReasons, rollouts, baselineRollout, ranges, reference, baselineEnds,
+    context, works, baseline, replicates, modelCheck, modelReasons, presentModelReason, rollouts, baselineRollout, ranges, reference, baselineEnds,
     tailWeight: meanAndStandardError((baselineEnds ?? episodeEnds(data, plan.discount)).tailWeights).mean, settings,
   };
   const candidates = assembleCandidates(inputs);
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
-  const unvisited = unvisitedShare(plan), solver = resampleSolver(works), memory = plantMemoryAssessment(data);
+  const unvisited = unvisitedShare(plan), solver = resampleSolver(works);
   return {
     settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver, threads },
     behaviour: intervalEstimate(plan.loggedReturn.value, replicates.loggedReturn, settings.level, sign,

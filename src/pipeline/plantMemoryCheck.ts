@@ -59,6 +59,19 @@ export function plantMemoryAssessment(data: MemoryData & MemoryNames): { summary
   };
 }
 
+/**
+ * Why the checks that simulate a one-step model of the plant (the model rollouts and the
+ * linear-quadratic closed form) are not applied, or null: they assume the next state depends on the
+ * present state and action only, so where the plant-memory finding is serious they would share the
+ * estimate's blind spot and could "confirm" a J that the missing memory has moved (a pipe heater with a
+ * dead time, logged without it: rollouts agreed with a J whose range missed the truth on 3 of 5 seeds).
+ */
+export function modelChecksReason(memory: { warnings: readonly AssessmentWarning[] }): string | null {
+  return memory.warnings.some((w) => w.topic === 'plantMemory' && w.severity === 'serious') ? MODEL_CHECKS_REASON : null;
+}
+
+export const MODEL_CHECKS_REASON = 'the plant-memory finding is serious, and this check simulates a one-step model of the plant that assumes the next state depends on the present state and action only';
+
 /** One line for the app's findings and the report, with the thresholds the rule applies; null for an assessment without the check. */
 export function plantMemorySentence(summary: PlantMemorySummary | undefined): string | null {
   if (!summary) return null;

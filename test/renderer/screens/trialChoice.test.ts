@@ -1,7 +1,7 @@
 /**
  * The Findings answer's rule (trialChoice.ts) on hand-made assessments: a candidate is named only when
  * its paired interval against the baseline lies wholly on the better side of 0 (below 0 for a cost,
- * above for a reward), no serious warning and no contradicting cross-check; the best J of those is named.
+ * above for a reward), no serious warning (for it, or for the whole log) and no contradicting cross-check; the best J of those is named.
  * Invented numbers; the rule is the app's own, so these check its logic, not an outside value.
  */
 import { describe, expect, it } from 'vitest';
@@ -16,10 +16,10 @@ function candidate(name: string, value: number, extra: Partial<CandidateAssessme
   return { name, policyValue: estimate(value, value - 1, value + 1), warnings: [], confirmation: { status: 'unconfirmed', text: '' }, ...extra } as CandidateAssessment;
 }
 
-function assessment(sense: 'cost' | 'reward', candidates: CandidateAssessment[], differences: [string, number, number, number][], order: string[]): Assessment {
+function assessment(sense: 'cost' | 'reward', candidates: CandidateAssessment[], differences: [string, number, number, number][], order: string[], warnings: Assessment['warnings'] = []): Assessment {
   const diffs: PairedDifference[] = differences.map(([a, v, lo, hi]) => ({ a, b: BASE, difference: estimate(v, lo, hi), probabilityBetter: 0.9 }));
   return {
-    valueSense: sense, candidates,
+    valueSense: sense, candidates, warnings,
     comparison: { baseline: { name: BASE, kind: 'presentController', note: '' }, differences: diffs, ranking: { order, frequency: 0.8, neighbours: [] } },
   } as unknown as Assessment;
 }
@@ -51,5 +51,15 @@ describe('which candidate to trial', () => {
     const choice = trialChoice(a);
     expect(choice.pick).toBeNull();
     expect(choice.best?.reasons).toEqual(['a cross-check contradicts it']);
+  });
+
+  it('names none when the whole log has a serious finding, whatever each candidate’s own', () => {
+    const memory = { severity: 'serious' as const, topic: 'plantMemory', message: 'the logged state may not carry the plant’s memory' };
+    const a = assessment('cost', [candidate('A', 5), candidate('B', 6)], [['A', -3, -4, -2], ['B', -2, -3, -1]], ['A', 'B', BASE], [memory]);
+    const choice = trialChoice(a);
+    expect(choice.pick).toBeNull();
+    expect(choice.best?.reasons).toEqual(['the assessment raised a serious warning for the whole log']);
+    const caution = assessment('cost', [candidate('A', 5)], [['A', -3, -4, -2]], ['A', BASE], [{ ...memory, severity: 'caution' }]);
+    expect(trialChoice(caution).pick?.candidate.name).toBe('A');
   });
 });

@@ -2,7 +2,8 @@
  * The Findings answer as a rule over the assessment: which candidate, if any, to take to a plant
  * trial first. A candidate qualifies when (1) the percentile interval of its paired difference
  * against the baseline (the present controller's model, or the logged return without one) lies
- * wholly on the better side of 0, (2) the assessment raised no serious warning for it, and (3) no
+ * wholly on the better side of 0, (2) the assessment raised no serious warning for it, nor for the log as a
+ * whole (a finding such as the plant-memory check's bears on every candidate's J), and (3) no
  * cross-check contradicts it; of those, the one with the best J is named. The rule is ours; its
  * parts are the assessment's own verdicts (paired bootstrap interval, `severity.ts`,
  * `crossCheckVerdict.ts`), so the words on screen follow the thresholds the code applies.
@@ -11,7 +12,7 @@
 import type { Assessment, CandidateAssessment, PairedDifference } from '../../../../pipeline/assessment';
 
 export const TRIAL_RULE = 'A candidate is named for a trial only when the interval of its difference from the baseline lies wholly on the better side of 0, '
-  + 'the assessment raised no serious warning for it and no cross-check contradicts it; of those, the best J is named.';
+  + 'the assessment raised no serious warning for it or for the whole log and no cross-check contradicts it; of those, the best J is named.';
 
 export interface TrialLine {
   readonly candidate: CandidateAssessment;
@@ -50,6 +51,8 @@ function lineOf(assessment: Assessment, candidate: CandidateAssessment): TrialLi
   if (!difference?.difference.percentile) reasons.push('its difference from the baseline has no interval');
   else if (!clearlyBetter) reasons.push('the interval of its difference from the baseline reaches 0 or the worse side');
   if (serious > 0) reasons.push(`the assessment raised ${serious === 1 ? 'a serious warning' : `${serious} serious warnings`} for it`);
+  const whole = assessment.warnings.filter((w) => w.severity === 'serious').length;
+  if (whole > 0) reasons.push(`the assessment raised ${whole === 1 ? 'a serious warning' : `${whole} serious warnings`} for the whole log`);
   if (candidate.confirmation.status === 'contradicted') reasons.push('a cross-check contradicts it');
   return { candidate, difference, clearlyBetter, serious, cautions, reasons };
 }
