@@ -194,11 +194,23 @@ export function dynamicsNonlinearity(data: TransitionSet, regressions: ModelRegr
   const richer = leastSquares(resampleMoments(quadratic), 'the next states');
   const pLinear = 1 + p, pQuadratic = quadraticTermCount(p), count = quadratic.sums[quadratic.stride - 1];
   return Array.from({ length: ds }, (_, j) => {
+    // A component the linear model explains to rounding (a derived lag, p' = x; a position integrated
+    // from its rate) is exactly linear: its residual is rounding noise, and a ratio of two such noises
+    // read as a share came out at 2,600 % on a logged valve lag.
+    if (!(1 - linear.rSquared[j] > EXACT_SHARE)) return 0;
     const ssLinear = linear.residualCovariance[j * ds + j] * (count - pLinear);
     const ssQuadratic = richer.residualCovariance[j * ds + j] * (count - pQuadratic);
-    return ssLinear > 0 ? Math.max(0, 1 - ssQuadratic / ssLinear) : 0;
+    return ssLinear > 0 ? Math.min(1, Math.max(0, 1 - ssQuadratic / ssLinear)) : 0;
   });
 }
+
+/**
+ * Below this share of its variation left unexplained, a next-state component is taken as an exact
+ * linear function of the state and action: the residual sum of squares by the normal equations,
+ * YᵀY − βᵀXᵀY, cancels to about 1e-16·YᵀY times the design's condition number, so shares this small
+ * are rounding, not process noise (ours; double precision, common practice).
+ */
+const EXACT_SHARE = 1e-9;
 
 /** 1 + p + p(p+1)/2 terms: the constant, u_i, and u_i u_j for i ≤ j. */
 function quadraticTermCount(p: number): number {
