@@ -148,17 +148,17 @@ function storeLanes(s: Float64Array, fx: number, fy: number, pair: Float64Array)
   }
 }
 
-/** The time-limited episodes that end at step t: Σ c W_{T−1} and Σ c W_{T−1} V̂(s_T). */
+/** The time-limited episodes that end at step t: Σ c W_{T−1} and Σ c W_{T−1} V̂(s_T), per lane in the ends' order, carried in locals. */
 function endingSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array): void {
-  const { endOffsets, endWeight } = entries.data;
-  for (let l = 0; l < LANES; l++) s[l * FIELDS + ENDING] = s[l * FIELDS + ENDING_VALUE] = 0;
+  const { endOffsets, endWeight } = entries.data, { endRank, endWeightedValue } = entries;
+  let w0 = 0, w1 = 0, w2 = 0, w3 = 0, v0 = 0, v1 = 0, v2 = 0, v3 = 0;
   for (let j = endOffsets[t]; j < endOffsets[t + 1]; j++) {
-    const o = entries.endRank[j] * LANES;
-    for (let l = 0; l < LANES; l++) {
-      s[l * FIELDS + ENDING] += c[o + l] * endWeight[j];
-      s[l * FIELDS + ENDING_VALUE] += c[o + l] * entries.endWeightedValue[j];
-    }
+    const o = endRank[j] * LANES, w = endWeight[j], v = endWeightedValue[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
+    w0 += c0 * w; w1 += c1 * w; w2 += c2 * w; w3 += c3 * w;
+    v0 += c0 * v; v1 += c1 * v; v2 += c2 * v; v3 += c3 * v;
   }
+  s[ENDING] = w0; s[FIELDS + ENDING] = w1; s[2 * FIELDS + ENDING] = w2; s[3 * FIELDS + ENDING] = w3;
+  s[ENDING_VALUE] = v0; s[FIELDS + ENDING_VALUE] = v1; s[2 * FIELDS + ENDING_VALUE] = v2; s[3 * FIELDS + ENDING_VALUE] = v3;
 }
 
 /**
