@@ -67,8 +67,11 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
         s[l * FIELDS + REACHED] = reached[g][t * LANES + l];
         s[l * FIELDS + BEFORE] = before[g * LANES + l];
       }
-      weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES), pair);
-      valueSums(entries, lanes[g], t, s, pair);
+      if (entries.unitWeight) unitWeightSums(entries, lanes[g], t, s, pair);
+      else {
+        weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES), pair);
+        valueSums(entries, lanes[g], t, s, pair);
+      }
       endingSums(entries, lanes[g], t, s);
       absorbedSums(entries, lanes[g], t, s, absorbedAt.subarray(g * LANES, (g + 1) * LANES), padded);
     }
@@ -125,6 +128,29 @@ function valueSums(entries: ResampleEntries, c: Float64Array, t: number, s: Floa
 }
 
 /**
+ * weightSums and valueSums where every weight is 1 (rankedEntries.ts, unitWeight): both weight sums
+ * at t are the count of the runs that reach t — each c·1 = c exactly, and a sum of counts is exact
+ * in any order — so only W·r, W·Q̂ and W_{t−1}·V̂ are read, each added in the same rank order.
+ */
+function unitWeightSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, pair: Float64Array): void {
+  const { weightedReward: wr, weightedAction: wq, weightedState: wv, offsets, reaching } = entries;
+  const from = offsets[t], to = from + reaching[t];
+  pair.fill(0);
+  if (wq && wv) {
+    pairedLaneSums(wr, wq, c, from, to, 0, pair);
+    storeLanes(s, REWARD, ACTION, pair);
+    pair.fill(0);
+    laneSums(wv, c, from, to, pair);
+    storeLanes(s, STATE, STATE, pair);
+  } else {
+    laneSums(wr, c, from, to, pair);
+    storeLanes(s, REWARD, REWARD, pair);
+    for (let l = 0; l < LANES; l++) s[l * FIELDS + ACTION] = s[l * FIELDS + STATE] = 0;
+  }
+  for (let l = 0; l < LANES; l++) s[l * FIELDS + WEIGHT] = s[l * FIELDS + BEFORE] = s[l * FIELDS + REACHED];
+}
+
+/**
  * pair[l] += Σ_j c_{j,l}·x_j and pair[LANES + l] += Σ_j c_{j,l}·y_j for the four lanes l, over the
  * entries j in [from, to), whose multiplicities start at c[o0] (LANES per entry). The eight sums are
  * carried in locals through the loop and added in entry order from pair's values, so a range split
@@ -138,6 +164,16 @@ function pairedLaneSums(x: Float64Array, y: Float64Array, c: Float64Array, from:
     y0 += c0 * b; y1 += c1 * b; y2 += c2 * b; y3 += c3 * b;
   }
   pair[0] = x0; pair[1] = x1; pair[2] = x2; pair[3] = x3; pair[4] = y0; pair[5] = y1; pair[6] = y2; pair[7] = y3;
+}
+
+/** pairedLaneSums for one table: pair[l] = Σ_j c_{j,l}·x_j over [from, to), from 0 (pair[LANES + l] the same sums). */
+function laneSums(x: Float64Array, c: Float64Array, from: number, to: number, pair: Float64Array): void {
+  let x0 = 0, x1 = 0, x2 = 0, x3 = 0;
+  for (let j = from, o = 0; j < to; j++, o += LANES) {
+    const a = x[j];
+    x0 += c[o] * a; x1 += c[o + 1] * a; x2 += c[o + 2] * a; x3 += c[o + 3] * a;
+  }
+  pair[0] = pair[4] = x0; pair[1] = pair[5] = x1; pair[2] = pair[6] = x2; pair[3] = pair[7] = x3;
 }
 
 /** The lanes' x sums into field fx and their y sums into field fy of each resample's FIELDS. */
