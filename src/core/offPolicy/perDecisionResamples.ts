@@ -82,12 +82,17 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
   });
 }
 
-/** Group g's multiplicities in rank order, LANES per rank (lanes past the block's end are 0). */
+/** Group g's multiplicities in rank order, LANES per rank (lanes past the block's end are 0), written a rank's four at a time. */
 function rankedLanes(entries: ResampleEntries, multiplicities: readonly Uint32Array[], g: number): Float64Array {
-  const { rankOf } = entries, e = rankOf.length, c = new Float64Array(e * LANES);
-  for (let l = 0; l < LANES; l++) {
-    const m = multiplicities[g * LANES + l];
-    if (m) for (let k = 0; k < e; k++) c[rankOf[k] * LANES + l] = m[k];
+  const { rankOf } = entries, e = rankOf.length, c = new Float64Array(e * LANES), first = g * LANES;
+  if (multiplicities.length - first < LANES) {
+    for (let l = 0; first + l < multiplicities.length; l++) for (let k = 0; k < e; k++) c[rankOf[k] * LANES + l] = multiplicities[first + l][k];
+    return c;
+  }
+  const m0 = multiplicities[first], m1 = multiplicities[first + 1], m2 = multiplicities[first + 2], m3 = multiplicities[first + 3];
+  for (let k = 0; k < e; k++) {
+    const o = rankOf[k] * LANES;
+    c[o] = m0[k]; c[o + 1] = m1[k]; c[o + 2] = m2[k]; c[o + 3] = m3[k];
   }
   return c;
 }
