@@ -14,7 +14,9 @@
  *   - the entries ranked so a step's episodes are a prefix, read in order with the multiplicities
  *     of four resamples side by side (no gather by episode index);
  *   - a step's entries (a few hundred kilobytes) read from memory once for RESAMPLE_BLOCK
- *     resamples, four at a time while they are still in cache.
+ *     resamples, four at a time while they are still in cache;
+ *   - where every weight is exactly 1 (the present controller weighed against itself), three
+ *     tables: the weight sums are then the counts (rankedEntries.ts, unitWeight).
  * The sums are the same sums, added in rank order rather than episode order: the result equals
  * perDecisionEstimates(data, γ, c) up to rounding; the test compares the two.
  *
