@@ -14,7 +14,9 @@
  *   - the entries ranked so a step's episodes are a prefix, read in order with the multiplicities
  *     of four resamples side by side (no gather by episode index);
  *   - a step's entries (a few hundred kilobytes) read from memory once for RESAMPLE_BLOCK
- *     resamples, four at a time while they are still in cache.
+ *     resamples, four at a time while they are still in cache;
+ *   - where every weight is exactly 1 (the present controller weighed against itself), three
+ *     tables: the weight sums are then the counts (rankedEntries.ts, unitWeight).
  * The sums are the same sums, added in rank order rather than episode order: the result equals
  * perDecisionEstimates(data, γ, c) up to rounding; the test compares the two.
  *
@@ -67,8 +69,11 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
         s[l * FIELDS + REACHED] = reached[g][t * LANES + l];
         s[l * FIELDS + BEFORE] = before[g * LANES + l];
       }
-      weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES), pair);
-      valueSums(entries, lanes[g], t, s, pair);
+      if (entries.unitWeight) unitWeightSums(entries, lanes[g], t, s, pair);
+      else {
+        weightSums(entries, lanes[g], t, s, before.subarray(g * LANES, (g + 1) * LANES), pair);
+        valueSums(entries, lanes[g], t, s, pair);
+      }
       endingSums(entries, lanes[g], t, s);
       absorbedSums(entries, lanes[g], t, s, absorbedAt.subarray(g * LANES, (g + 1) * LANES), padded);
     }
@@ -79,12 +84,17 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
   });
 }
 
-/** Group g's multiplicities in rank order, LANES per rank (lanes past the block's end are 0). */
+/** Group g's multiplicities in rank order, LANES per rank (lanes past the block's end are 0), written a rank's four at a time. */
 function rankedLanes(entries: ResampleEntries, multiplicities: readonly Uint32Array[], g: number): Float64Array {
-  const { rankOf } = entries, e = rankOf.length, c = new Float64Array(e * LANES);
-  for (let l = 0; l < LANES; l++) {
-    const m = multiplicities[g * LANES + l];
-    if (m) for (let k = 0; k < e; k++) c[rankOf[k] * LANES + l] = m[k];
+  const { rankOf } = entries, e = rankOf.length, c = new Float64Array(e * LANES), first = g * LANES;
+  if (multiplicities.length - first < LANES) {
+    for (let l = 0; first + l < multiplicities.length; l++) for (let k = 0; k < e; k++) c[rankOf[k] * LANES + l] = multiplicities[first + l][k];
+    return c;
+  }
+  const m0 = multiplicities[first], m1 = multiplicities[first + 1], m2 = multiplicities[first + 2], m3 = multiplicities[first + 3];
+  for (let k = 0; k < e; k++) {
+    const o = rankOf[k] * LANES;
+    c[o] = m0[k]; c[o + 1] = m1[k]; c[o + 2] = m2[k]; c[o + 3] = m3[k];
   }
   return c;
 }
@@ -125,6 +135,29 @@ function valueSums(entries: ResampleEntries, c: Float64Array, t: number, s: Floa
 }
 
 /**
+ * weightSums and valueSums where every weight is 1 (rankedEntries.ts, unitWeight): both weight sums
+ * at t are the count of the runs that reach t — each c·1 = c exactly, and a sum of counts is exact
+ * in any order — so only W·r, W·Q̂ and W_{t−1}·V̂ are read, each added in the same rank order.
+ */
+function unitWeightSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array, pair: Float64Array): void {
+  const { weightedReward: wr, weightedAction: wq, weightedState: wv, offsets, reaching } = entries;
+  const from = offsets[t], to = from + reaching[t];
+  pair.fill(0);
+  if (wq && wv) {
+    pairedLaneSums(wr, wq, c, from, to, 0, pair);
+    storeLanes(s, REWARD, ACTION, pair);
+    pair.fill(0);
+    laneSums(wv, c, from, to, pair);
+    storeLanes(s, STATE, STATE, pair);
+  } else {
+    laneSums(wr, c, from, to, pair);
+    storeLanes(s, REWARD, REWARD, pair);
+    for (let l = 0; l < LANES; l++) s[l * FIELDS + ACTION] = s[l * FIELDS + STATE] = 0;
+  }
+  for (let l = 0; l < LANES; l++) s[l * FIELDS + WEIGHT] = s[l * FIELDS + BEFORE] = s[l * FIELDS + REACHED];
+}
+
+/**
  * pair[l] += Σ_j c_{j,l}·x_j and pair[LANES + l] += Σ_j c_{j,l}·y_j for the four lanes l, over the
  * entries j in [from, to), whose multiplicities start at c[o0] (LANES per entry). The eight sums are
  * carried in locals through the loop and added in entry order from pair's values, so a range split
@@ -140,6 +173,16 @@ function pairedLaneSums(x: Float64Array, y: Float64Array, c: Float64Array, from:
   pair[0] = x0; pair[1] = x1; pair[2] = x2; pair[3] = x3; pair[4] = y0; pair[5] = y1; pair[6] = y2; pair[7] = y3;
 }
 
+/** pairedLaneSums for one table: pair[l] = Σ_j c_{j,l}·x_j over [from, to), from 0 (pair[LANES + l] the same sums). */
+function laneSums(x: Float64Array, c: Float64Array, from: number, to: number, pair: Float64Array): void {
+  let x0 = 0, x1 = 0, x2 = 0, x3 = 0;
+  for (let j = from, o = 0; j < to; j++, o += LANES) {
+    const a = x[j];
+    x0 += c[o] * a; x1 += c[o + 1] * a; x2 += c[o + 2] * a; x3 += c[o + 3] * a;
+  }
+  pair[0] = pair[4] = x0; pair[1] = pair[5] = x1; pair[2] = pair[6] = x2; pair[3] = pair[7] = x3;
+}
+
 /** The lanes' x sums into field fx and their y sums into field fy of each resample's FIELDS. */
 function storeLanes(s: Float64Array, fx: number, fy: number, pair: Float64Array): void {
   for (let l = 0; l < LANES; l++) {
@@ -148,17 +191,17 @@ function storeLanes(s: Float64Array, fx: number, fy: number, pair: Float64Array)
   }
 }
 
-/** The time-limited episodes that end at step t: Σ c W_{T−1} and Σ c W_{T−1} V̂(s_T). */
+/** The time-limited episodes that end at step t: Σ c W_{T−1} and Σ c W_{T−1} V̂(s_T), per lane in the ends' order, carried in locals. */
 function endingSums(entries: ResampleEntries, c: Float64Array, t: number, s: Float64Array): void {
-  const { endOffsets, endWeight } = entries.data;
-  for (let l = 0; l < LANES; l++) s[l * FIELDS + ENDING] = s[l * FIELDS + ENDING_VALUE] = 0;
+  const { endOffsets, endWeight } = entries.data, { endRank, endWeightedValue } = entries;
+  let w0 = 0, w1 = 0, w2 = 0, w3 = 0, v0 = 0, v1 = 0, v2 = 0, v3 = 0;
   for (let j = endOffsets[t]; j < endOffsets[t + 1]; j++) {
-    const o = entries.endRank[j] * LANES;
-    for (let l = 0; l < LANES; l++) {
-      s[l * FIELDS + ENDING] += c[o + l] * endWeight[j];
-      s[l * FIELDS + ENDING_VALUE] += c[o + l] * entries.endWeightedValue[j];
-    }
+    const o = endRank[j] * LANES, w = endWeight[j], v = endWeightedValue[j], c0 = c[o], c1 = c[o + 1], c2 = c[o + 2], c3 = c[o + 3];
+    w0 += c0 * w; w1 += c1 * w; w2 += c2 * w; w3 += c3 * w;
+    v0 += c0 * v; v1 += c1 * v; v2 += c2 * v; v3 += c3 * v;
   }
+  s[ENDING] = w0; s[FIELDS + ENDING] = w1; s[2 * FIELDS + ENDING] = w2; s[3 * FIELDS + ENDING] = w3;
+  s[ENDING_VALUE] = v0; s[FIELDS + ENDING_VALUE] = v1; s[2 * FIELDS + ENDING_VALUE] = v2; s[3 * FIELDS + ENDING_VALUE] = v3;
 }
 
 /**

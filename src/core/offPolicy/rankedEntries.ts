@@ -36,6 +36,11 @@ export interface RankedEntries {
   /** W_{i,t} Q̂(s_{i,t}, a_{i,t}) and W_{i,t−1} V̂(s_{i,t}); null without Q̂ and V̂. */
   readonly weightedAction: Float64Array | null; // n
   readonly weightedState: Float64Array | null; // n
+  /**
+   * Every W_{i,t} is exactly 1 (the present controller weighed against itself): then c·W = c, so the
+   * weight sums are the counts of the runs that reach each step, and the resamples need not read `weight`.
+   */
+  readonly unitWeight: boolean;
   /** Time-limited ends (data.endOffsets groups): the ending episode's rank and W_{k,T−1}·V̂(s_{k,T}). */
   readonly endRank: Int32Array;
   readonly endWeightedValue: Float64Array;
@@ -77,7 +82,8 @@ export function rankEntries(data: PerDecisionData): RankedEntries {
   const cutRank = Int32Array.from(data.cutEpisode, (k) => rankOf[k]);
   const { endOffsets, endWeight, absorbedOffsets, absorbedWeight, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted, cutOffsets, cutWeight } = data;
   const kept: RankedData = { episodes: e, horizon, endOffsets, endWeight, absorbedOffsets, absorbedWeight, heldCarry, absorbedToBefore, absorbedToStep, liveWeighted, cutOffsets, cutWeight };
-  return { data: kept, reaching, offsets, rankOf, weight, weightedReward, weightedAction, weightedState, endRank, endWeightedValue, absorbedRank, cutRank };
+  const unitWeight = weight.every((w) => w === 1);
+  return { data: kept, reaching, offsets, rankOf, weight, weightedReward, weightedAction, weightedState, unitWeight, endRank, endWeightedValue, absorbedRank, cutRank };
 }
 
 /** Ranks by length, longest first; ties keep the data's episode order (a stable sort). */

@@ -4,7 +4,9 @@
  * and weighted doubly robust sums (Thomas & Brunskill 2016), multiplied in another order, so equal up
  * to rounding — on a log with episodes of unequal length (so the ranked route's runs reach different
  * steps, and a step's weight is split where runs end), terminal ends and time-limit tails, for blocks
- * of every size, with and without Q̂ and V̂.
+ * of every size, with and without Q̂ and V̂. The present controller weighed against itself (every
+ * weight 1) takes a shorter route that does not read the weights; it must give the general route's
+ * numbers to the last bit (c·1 = c exactly, and the sums of counts are exact).
  */
 import { describe, expect, it } from 'vitest';
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
@@ -33,6 +35,21 @@ describe('per-decision estimates on a block of resamples', () => {
       const fast = perDecisionResamples(entries, discount, block);
       expect(fast).toHaveLength(size);
       block.forEach((c, b) => expectSame(fast[b], perDecisionEstimates(prepared, discount, c)));
+    }
+  });
+
+  it.each([
+    ['Q̂, V̂ and tails', true],
+    ['importance sampling alone, no tails', false],
+  ])('with every weight 1, equal the general route bit for bit over several blocks of odd sizes (%s)', (_, withValues) => {
+    const present = unevenLogInputs(discount, true), prepared = withValues ? perDecisionData(present.table, present.values, present.tails) : perDecisionData(present.table, null);
+    const entries = prepareResampleEntries(prepared), general = { ...entries, unitWeight: false };
+    expect(entries.unitWeight).toBe(true);
+    for (const [first, size] of [[0, 7], [7, 5], [12, 1], [13, 3], [16, RESAMPLE_BLOCK]]) {
+      const block = Array.from({ length: size }, (_, b) => episodeMultiplicities(present.data.episodeCount, 29, first + b));
+      const short = perDecisionResamples(entries, discount, block), long = perDecisionResamples(general, discount, block);
+      expect(short).toEqual(long); // toEqual on numbers is Object.is: bit for bit, −0 apart from +0
+      block.forEach((c, b) => expectSame(short[b], perDecisionEstimates(prepared, discount, c)));
     }
   });
 

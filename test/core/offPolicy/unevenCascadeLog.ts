@@ -26,10 +26,14 @@ export function unevenLog(): TransitionSet {
   };
 }
 
-/** The log, its episode index, the weight table, invented Q̂ and V̂ (by index order) and the time-limit tails at this discount. */
-export function unevenLogInputs(discount: number) {
-  const data = unevenLog(), index = indexEpisodes(data);
-  const table = importanceWeightTable(data, index, policyOf(candidateFamily(cascadeLogging)[3][1]), policyOf(cascadeLogging));
+/**
+ * The log, its episode index, the weight table, invented Q̂ and V̂ (by index order) and the time-limit
+ * tails at this discount; the candidate weighed against the logging controller, or with `present` the
+ * logging controller against itself (every weight 1).
+ */
+export function unevenLogInputs(discount: number, present = false) {
+  const data = unevenLog(), index = indexEpisodes(data), logging = policyOf(cascadeLogging);
+  const table = importanceWeightTable(data, index, present ? logging : policyOf(candidateFamily(cascadeLogging)[3][1]), logging);
   const tails = { finalStateValues: Float64Array.from({ length: data.episodeCount }, (_, k) => -8 - Math.cos(k)), tailWeights: episodeEnds(data, discount).tailWeights };
   const values = { actionValues: Float64Array.from(index.order, (i) => Math.cos(data.rewards[i])), stateValues: Float64Array.from(index.order, (i) => Math.sin(data.rewards[i])) };
   return { data, index, table, tails, values };
