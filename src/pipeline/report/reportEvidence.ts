@@ -5,7 +5,8 @@ import { CAUTIONS } from '../cautions';
 import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
-import { formatInterval, formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { intervalAtPrecision, valueAtPrecision } from './intervalPrecision';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 export function diagnosticsSection(input: ReportInput): Html {
@@ -58,7 +59,7 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
         <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th><th class="num">− FQE (${level})</th><th>Verdict</th></tr></thead><tbody>
         <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td></tr>
         ${c.crossChecks.map((x) => html`<tr><td>${x.label}</td>${x.estimate ? estimateCells(x.estimate) : html`<td class="num">—</td><td></td><td></td><td></td>`}
-          <td class="num">${x.difference ? html`${formatNumber(x.difference.value, 3)}<br/>${formatInterval(x.difference.percentile, 3)}` : ''}</td>
+          <td class="num">${x.difference ? html`${valueAtPrecision(x.difference.value, x.difference.percentile)}<br/>${intervalAtPrecision(x.difference.percentile)}` : ''}</td>
           <td><span class="verdict-${x.agreement}">${verdictWord(x.agreement)}</span><br/><span class="small">${x.note}</span></td></tr>`)}
         </tbody></table>
         <figure id="fig-checks-${n}">${raw(intervalFigure(`checks-${n}-svg`, rows, valueAxisLabel(input, 'J')))}
