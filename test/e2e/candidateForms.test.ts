@@ -11,11 +11,10 @@ import type { Locator } from 'playwright-core';
 import { POLL } from './harness/poll';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
+import { UNSTICK } from './harness/unstick';
 import { goToStep } from '../renderer/e2e/appSteps';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
-/** The toolbar sticks to the top of the window; in a screenshot of one card it would cover the card's first row. */
-const UNSTICK = '.toolbar { position: static !important; }';
 
 async function fill(field: Locator, value: string): Promise<void> {
   await field.fill(value);
