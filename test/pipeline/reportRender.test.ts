@@ -96,7 +96,7 @@ describe('the report in headless Chromium', () => {
   // A value read beside its interval carries the interval's precision ("8.36 [6.58, 10.34]", not
   // "8.3582 [6.581, 10.34]"): JCGM 100 (the GUM) §7.2.2 and §7.2.6, a standard error to at most two
   // significant digits — common practice. The statistics of the columns show four digits, as the app's table.
-  it('writes each J and difference at the precision of its interval, and the column statistics to four digits', async () => {
+  it('writes each J and difference at the precision of its interval, the column statistics to four digits, the baseline by its glossary name', async () => {
     const page = await browser.newPage({ viewport: { width: 1040, height: 1400 } });
     await page.goto(`file://${file}`, { waitUntil: 'load' });
     const decimals = (text: string) => (text.match(/\.(\d+)/)?.[1].length ?? 0);
@@ -113,6 +113,8 @@ describe('the report in headless Chromium', () => {
     const statistics = await page.$$eval('#data table td.num', (all) => all.map((td) => td.textContent?.trim() ?? ''));
     expect(statistics.length).toBeGreaterThan(8);
     for (const v of statistics) expect(v.replace(/e.*$/, '').replace(/[−.]/g, '').replace(/^0+/, '').length, v).toBeLessThanOrEqual(4);
+    // The baseline's column is named as the app's glossary names it (renderer help/glossary.ts), not "logged controller".
+    expect(await page.locator('#diagnostics table th').last().innerText()).toBe('present controller');
     await page.close();
   });
 

@@ -14,7 +14,7 @@ export function diagnosticsSection(input: ReportInput): Html {
   if (!a) return html`<section id="diagnostics"><h2>Diagnostics</h2><p>Not computed: ${input.assessmentProblems.join('; ')}</p></section>`;
   return html`<section id="diagnostics"><h2>Diagnostics</h2>
     <p>Does the candidate stay inside what the logs cover? The last column gives the present controller (its model fitted to the log) for scale.</p>
-    <table><thead><tr><th>Diagnostic</th>${a.candidates.map((c) => html`<th class="num">${c.name}</th>`)}<th class="num">logged controller</th></tr></thead><tbody>
+    <table><thead><tr><th>Diagnostic</th>${a.candidates.map((c) => html`<th class="num">${c.name}</th>`)}<th class="num">present controller</th></tr></thead><tbody>
     ${diagnosticRows(a).map((row) => html`<tr><td>${row.label}</td>${row.values.map((v) => html`<td class="num">${v}</td>`)}<td class="num">${row.reference}</td></tr>`)}
     </tbody></table>
     <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${formatPercent(a.unvisitedShare, 0)} of the value-surface grid has no logged state within one grid step.`}</p>
