@@ -151,6 +151,15 @@ describe('the app as a control engineer meets it (e2e)', () => {
         for (const step of ['plant-log', 'candidates', 'estimator', 'run', 'findings'] as const) {
           await goToStep(page, step);
           await expect.poll(() => page.getByTestId(`step-${step}`).getAttribute('aria-selected'), POLL).toBe('true');
+          if (step === 'candidates') {
+            // Each coefficient of the present controller's fit at the precision of its standard error (JCGM 100 §7.2.2, common practice).
+            const decimals = (t: string) => t.match(/\.(\d+)/)?.[1].length ?? 0;
+            const uneven = async () => {
+              const cells = (await page.getByTestId('behaviour-model').locator('td').allInnerTexts()).filter((c) => c.includes('±'));
+              return cells.length ? cells.filter((c) => decimals(c.split(' ± ')[0]) !== decimals(c.split(' ± ')[1])) : ['no coefficients shown'];
+            };
+            await expect.poll(uneven, POLL).toEqual([]);
+          }
           await app.screenshot(`engineer-${size.width}-${theme}-${step}`);
         }
       }
