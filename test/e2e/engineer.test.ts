@@ -160,6 +160,8 @@ describe('the app as a control engineer meets it (e2e)', () => {
             };
             await expect.poll(uneven, POLL).toEqual([]);
           }
+          // A short project name is shown whole where the toolbar has room for it (only a long one gives way).
+          await expect.poll(() => page.getByTestId('project-title').evaluate((e) => e.scrollWidth <= e.clientWidth), POLL).toBe(true);
           await app.screenshot(`engineer-${size.width}-${theme}-${step}`);
         }
       }
