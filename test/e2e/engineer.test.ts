@@ -49,6 +49,12 @@ describe('the app as a control engineer meets it (e2e)', () => {
     await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
     await openFindingsSection(page, 'comparison');
     await page.getByTestId('comparison-table').waitFor({ timeout: 90_000 });
+    // In the half-width card at 1280 px no row of the paired differences runs to five lines (rows in line heights, padding included; the baseline's name took five).
+    const tallestRow = () => page.locator('[data-testid^="difference-row-"]').evaluateAll((rows) => Math.max(...rows.map((r) => r.getBoundingClientRect().height / parseFloat(getComputedStyle(r).lineHeight))));
+    await expect.poll(tallestRow, POLL).toBeLessThan(5);
+    // … and the table stays inside its card.
+    const spill = () => page.getByTestId('comparison-table').evaluate((t) => t.getBoundingClientRect().right - t.closest('.fold, .panel, section')!.getBoundingClientRect().right);
+    await expect.poll(spill, POLL).toBeLessThanOrEqual(0);
     await expect.poll(() => page.locator('figure[data-chart-state="waiting"]').count(), POLL).toBe(0);
     const probe = await page.evaluate(stopMainThreadProbe);
     const cpu = await trace.stop();

@@ -32,7 +32,7 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
               <td>{displayName(d.a)}</td><td>{displayName(d.b)}</td>
               <td className="number">{valueAtIntervalPrecision(d.difference.value, d.difference.percentile)}</td>
               <td className="number interval" title={intervalDetail(d.difference, level)}>{intervalText(d.difference.percentile)}</td>
-              <td className="number">{d.probabilityBetter === null ? '—' : `${shareText(d.probabilityBetter)} of resamples`}</td>
+              <td className="number">{d.probabilityBetter === null ? '—' : shareText(d.probabilityBetter)}</td>
             </tr>
           ))}
         </tbody>
