@@ -49,6 +49,12 @@ describe('the app as a control engineer meets it (e2e)', () => {
     await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
     await openFindingsSection(page, 'comparison');
     await page.getByTestId('comparison-table').waitFor({ timeout: 90_000 });
+    // In the half-width card at 1280 px no row of the paired differences runs to five lines (rows in line heights, padding included; the baseline's name took five).
+    const tallestRow = () => page.locator('[data-testid^="difference-row-"]').evaluateAll((rows) => Math.max(...rows.map((r) => r.getBoundingClientRect().height / parseFloat(getComputedStyle(r).lineHeight))));
+    await expect.poll(tallestRow, POLL).toBeLessThan(5);
+    // … and the table stays inside its card.
+    const spill = () => page.getByTestId('comparison-table').evaluate((t) => t.getBoundingClientRect().right - t.closest('.fold, .panel, section')!.getBoundingClientRect().right);
+    await expect.poll(spill, POLL).toBeLessThanOrEqual(0);
     await expect.poll(() => page.locator('figure[data-chart-state="waiting"]').count(), POLL).toBe(0);
     const probe = await page.evaluate(stopMainThreadProbe);
     const cpu = await trace.stop();
@@ -151,6 +157,17 @@ describe('the app as a control engineer meets it (e2e)', () => {
         for (const step of ['plant-log', 'candidates', 'estimator', 'run', 'findings'] as const) {
           await goToStep(page, step);
           await expect.poll(() => page.getByTestId(`step-${step}`).getAttribute('aria-selected'), POLL).toBe('true');
+          if (step === 'candidates') {
+            // Each coefficient of the present controller's fit at the precision of its standard error (JCGM 100 §7.2.2, common practice).
+            const decimals = (t: string) => t.match(/\.(\d+)/)?.[1].length ?? 0;
+            const uneven = async () => {
+              const cells = (await page.getByTestId('behaviour-model').locator('td').allInnerTexts()).filter((c) => c.includes('±'));
+              return cells.length ? cells.filter((c) => decimals(c.split(' ± ')[0]) !== decimals(c.split(' ± ')[1])) : ['no coefficients shown'];
+            };
+            await expect.poll(uneven, POLL).toEqual([]);
+          }
+          // A short project name is shown whole where the toolbar has room for it (only a long one gives way).
+          await expect.poll(() => page.getByTestId('project-title').evaluate((e) => e.scrollWidth <= e.clientWidth), POLL).toBe(true);
           await app.screenshot(`engineer-${size.width}-${theme}-${step}`);
         }
       }

@@ -19,6 +19,7 @@ import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { decodedPngContent, goToStep, pngSize } from '../renderer/e2e/appSteps';
 import { layoutFaults, selectRoom, svgLayoutIn } from './harness/svgLayout';
+import { UNSTICK } from './harness/unstick';
 import { presetPixels, SIZE_PRESETS } from '../../src/renderer/src/screens/findings/exportSizes';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
@@ -157,7 +158,9 @@ describe('the retune map in the app (e2e)', () => {
         if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
         await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
         await panel.scrollIntoViewIfNeeded();
-        await panel.screenshot({ path: join(SCREENS, `retune-map-${size.width}-${theme}.png`) });
+        // Drawn in this theme, not the last one's "drawn" read before the redraw began: what a person sees.
+        await expect.poll(() => drawnPixels(page, figure).then((p) => p.drawnShare), POLL).toBeGreaterThan(0.3);
+        await panel.screenshot({ path: join(SCREENS, `retune-map-${size.width}-${theme}.png`), style: UNSTICK });
         const exportPanel = page.getByTestId('export-retuneMap');
         await exportPanel.locator('summary').click();
         await exportPanel.screenshot({ path: join(SCREENS, `export-panel-${size.width}-${theme}.png`) });

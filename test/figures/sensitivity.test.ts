@@ -20,6 +20,14 @@ describe('sensitivity chart', () => {
     expect(radii[2]).toBeGreaterThan(radii[0]); // the project's own setting (projectIndex 2)
   });
 
+  it('puts a whole-valued setting (the polynomial degree) on whole-number ticks only, a discount on fractional ones', () => {
+    const degrees = { ...discountSweep(), parameter: 'degree', label: 'polynomial degree of the features', settings: [1, 2, 3], projectIndex: 1 };
+    degrees.series = degrees.series.map((serie) => ({ ...serie, values: serie.values.slice(0, 3), status: serie.status.slice(0, 3) }));
+    const xTicks = (curve: typeof degrees) => (sensitivityChart({ ...props, curve }, look).options?.scales?.x as { ticks?: { precision?: number } }).ticks;
+    expect(xTicks(degrees)?.precision).toBe(0); // Chart.js rounds the tick step to whole numbers: no "1.2" degrees
+    expect(xTicks(discountSweep())?.precision).toBeUndefined();
+  });
+
   it('summarises the range of each series and whether the ranking holds', () => {
     const text = sensitivitySummary(props);
     expect(text).toContain('sharp gain from 24 to 230');

@@ -93,6 +93,31 @@ describe('the report in headless Chromium', () => {
     await page.close();
   });
 
+  // A value read beside its interval carries the interval's precision ("8.36 [6.58, 10.34]", not
+  // "8.3582 [6.581, 10.34]"): JCGM 100 (the GUM) §7.2.2 and §7.2.6, a standard error to at most two
+  // significant digits — common practice. The statistics of the columns show four digits, as the app's table.
+  it('writes each J and difference at the precision of its interval, the column statistics to four digits, the baseline by its glossary name', async () => {
+    const page = await browser.newPage({ viewport: { width: 1040, height: 1400 } });
+    await page.goto(`file://${file}`, { waitUntil: 'load' });
+    const decimals = (text: string) => (text.match(/\.(\d+)/)?.[1].length ?? 0);
+    const rows = await page.$$eval('#comparison > table:first-of-type tbody tr', (all) => all.map((tr) => [...tr.querySelectorAll('td')].map((td) => td.textContent?.trim() ?? '')));
+    expect(rows.length).toBe(5); // two candidates, the baseline, the logged return twice
+    for (const [name, j, se, percentile, basic, vsToday, difference] of rows) {
+      const ends = percentile.slice(1, -1).split(', ');
+      expect(decimals(j), `${name}: J ${j} beside ${percentile}`).toBe(decimals(ends[0]));
+      expect(decimals(ends[1]), `${name}: ${percentile}`).toBe(decimals(ends[0]));
+      expect(basic).toMatch(/^\[−?\d/);
+      expect(se.replace(/^0\.0*/, '').replace('.', '').length, `${name}: s.e. ${se}`).toBeLessThanOrEqual(2);
+      if (vsToday) expect(decimals(vsToday), `${name}: ${vsToday} beside ${difference}`).toBe(decimals(difference.slice(1).split(', ')[0]));
+    }
+    const statistics = await page.$$eval('#data table td.num', (all) => all.map((td) => td.textContent?.trim() ?? ''));
+    expect(statistics.length).toBeGreaterThan(8);
+    for (const v of statistics) expect(v.replace(/e.*$/, '').replace(/[−.]/g, '').replace(/^0+/, '').length, v).toBeLessThanOrEqual(4);
+    // The baseline's column is named as the app's glossary names it (renderer help/glossary.ts), not "logged controller".
+    expect(await page.locator('#diagnostics table th').last().innerText()).toBe('present controller');
+    await page.close();
+  });
+
   it('draws the retune map as a figure with legend and axis titles, the table under it', async () => {
     const page = await browser.newPage({ viewport: { width: 1040, height: 1400 } });
     await page.goto(`file://${file}`, { waitUntil: 'load' });

@@ -9,7 +9,7 @@ import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { legendPlugin } from '../parts/legendBox';
 import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import { PRESENT_CONTROLLER, PRESENT_DASH_PX, type Theme } from '../parts/plotTheme';
-import { formatValue } from '../parts/tickFormat';
+import { formatValue, formatValueInInterval } from '../parts/tickFormat';
 
 export const INTERVAL_CHART_DEFAULTS = { rowHeightPx: 30, baseHeightPx: 120, dotRadiusPx: 4.5, capPx: 10, lineWidthPx: 2.5, labelGapPx: 8 } as const;
 
@@ -122,7 +122,7 @@ function intervalBars(props: IntervalChartProps, colour: (i: number) => string, 
         ctx.font = fontString(look, PLOT_FONTS.tickPx);
         ctx.textAlign = 'left';
         ctx.textBaseline = 'middle';
-        ctx.fillText(formatValue(r.value), a.right + d.labelGapPx * s, y);
+        ctx.fillText(formatValueInInterval(r.value, r.interval), a.right + d.labelGapPx * s, y);
       });
       ctx.restore();
     },

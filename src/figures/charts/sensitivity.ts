@@ -62,7 +62,7 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
       parsing: false,
       interaction: { mode: 'index', intersect: false },
       scales: {
-        x: { ...valueAxis(look, curve.label, 'bottom'), type: 'linear' },
+        x: integerSettings(curve.settings) ? integerAxis(valueAxis(look, curve.label, 'bottom')) : { ...valueAxis(look, curve.label, 'bottom'), type: 'linear' },
         y: { ...valueAxis(look, props.valueLabel, 'left'), type: 'linear' },
       },
       plugins: {
@@ -71,6 +71,15 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
       },
     },
   };
+}
+
+/** A setting that only takes whole values (a polynomial degree, a network width): ticks on whole numbers only, no "1.2" degrees. */
+function integerSettings(settings: readonly number[]): boolean {
+  return settings.length > 0 && settings.every((v) => Number.isInteger(v));
+}
+
+function integerAxis(axis: ReturnType<typeof valueAxis>): ReturnType<typeof valueAxis> & { type: 'linear' } {
+  return { ...axis, type: 'linear', ticks: { ...axis.ticks, precision: 0 } };
 }
 
 export function sensitivitySummary(props: SensitivityPlotProps): string {

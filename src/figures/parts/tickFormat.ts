@@ -57,3 +57,23 @@ export function formatEstimate(value: number, error: number | null): string {
   const fixed = (x: number) => trueMinus(x.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals }));
   return `${fixed(value)} ± ${fixed(error)}`;
 }
+
+/**
+ * Decimal places for numbers read with an interval: those that give its width three significant
+ * digits (0 to 10), so "8.36 [6.58, 10.34]" share one precision (JCGM 100 §7.2.2 — common practice;
+ * the app's Findings tables and the report use the same rule). Null where it does not apply: no
+ * interval, zero or negative width, or ends outside 1e-4 … 1e6 (exponent form there).
+ */
+export function intervalDecimals(interval: readonly [number, number] | null | undefined): number | null {
+  if (!interval) return null;
+  const width = interval[1] - interval[0], magnitude = Math.max(Math.abs(interval[0]), Math.abs(interval[1]));
+  if (!(width > 0) || !Number.isFinite(width) || magnitude >= EXPONENT_ABOVE || magnitude < EXPONENT_BELOW) return null;
+  return Math.min(10, Math.max(0, 2 - Math.floor(Math.log10(width))));
+}
+
+/** A value at the decimal place of its interval ("8.36" beside [6.58, 10.34]); without one, four significant digits. */
+export function formatValueInInterval(value: number, interval: readonly [number, number] | null | undefined): string {
+  const decimals = intervalDecimals(interval);
+  if (decimals === null || !Number.isFinite(value)) return formatValue(value);
+  return trueMinus(value.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals }));
+}

@@ -1,7 +1,8 @@
 /** The comparison section: J of every policy with its intervals, paired differences and the ranking. */
 import type { Assessment, IntervalEstimate } from '../assessment';
 import { BEHAVIOUR_NAME } from '../assessAssembly';
-import { formatInterval, formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { intervalAtPrecision, valueAtPrecision, valueWithError } from './intervalPrecision';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
 import { LOGGED_RETURN_LABEL } from '../../figures/parts/plotTheme';
@@ -30,8 +31,8 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
       <th class="num">vs today</th><th class="num">${level} interval of the difference</th><th class="num">Better than today in</th></tr></thead><tbody>
     ${rows.map((r) => {
       const d = r.present ? undefined : vsToday.get(r.name);
-      return html`<tr><td>${r.name}</td>${estimateCells(r.estimate)}<td class="num">${d ? formatNumber(d.difference.value, 4) : ''}</td>
-        <td class="num">${d ? formatInterval(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(d.probabilityBetter) : ''}</td></tr>`;
+      return html`<tr><td>${r.name}</td>${estimateCells(r.estimate)}<td class="num">${d ? valueAtPrecision(d.difference.value, d.difference.percentile) : ''}</td>
+        <td class="num">${d ? intervalAtPrecision(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(d.probabilityBetter) : ''}</td></tr>`;
     })}
     </tbody></table>
     <figure id="fig-comparison">${raw(intervalFigure('comparison-svg', chartRows, valueAxisLabel(input, 'J'), reference))}
@@ -48,9 +49,10 @@ function resampleShare(share: number | null): string {
   return share === null ? '—' : `${formatPercent(share)} of resamples`;
 }
 
+/** J, its bootstrap s.e. (two significant digits) and its two intervals, each at the precision its interval carries. */
 export function estimateCells(e: IntervalEstimate): Html {
-  return html`<td class="num">${formatNumber(e.value, 5)}</td><td class="num">${formatNumber(e.standardError, 3)}</td>
-    <td class="num">${formatInterval(e.percentile)}</td><td class="num">${formatInterval(e.basic)}</td>`;
+  return html`<td class="num">${valueAtPrecision(e.value, e.percentile)}</td><td class="num">${formatNumber(e.standardError, 2)}</td>
+    <td class="num">${intervalAtPrecision(e.percentile)}</td><td class="num">${intervalAtPrecision(e.basic)}</td>`;
 }
 
 function pairwise(a: Assessment, level: string): Html {
@@ -58,8 +60,8 @@ function pairwise(a: Assessment, level: string): Html {
   if (!between.length) return html``;
   return html`<h3>Candidates against each other</h3>
     <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">First better in</th></tr></thead><tbody>
-    ${between.map((d) => html`<tr><td>${d.a} − ${d.b}</td><td class="num">${formatNumber(d.difference.value, 4)}</td><td class="num">${formatNumber(d.difference.standardError, 3)}</td>
-      <td class="num">${formatInterval(d.difference.percentile)}</td><td class="num">${resampleShare(d.probabilityBetter)}</td></tr>`)}
+    ${between.map((d) => html`<tr><td>${d.a} − ${d.b}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${formatNumber(d.difference.standardError, 2)}</td>
+      <td class="num">${intervalAtPrecision(d.difference.percentile)}</td><td class="num">${resampleShare(d.probabilityBetter)}</td></tr>`)}
     </tbody></table>`;
 }
 
@@ -67,9 +69,15 @@ function pointComparison(input: ReportInput): Html {
   const e = input.evaluation;
   return html`<p>Point estimates only (no intervals: ${input.assessmentProblems.join('; ')}). The ± column covers start-state sampling only.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">± s.e.</th><th>Fit</th></tr></thead><tbody>
-    ${e.policies.map((p) => html`<tr><td>${p.name}</td><td class="num">${formatNumber(p.policyValue, 5)}</td><td class="num">${formatNumber(p.standardError, 3)}</td><td>${p.status}</td></tr>`)}
-    <tr><td>${BEHAVIOUR_NAME}</td><td class="num">${formatNumber(e.behaviour.value, 5)}</td><td class="num">${formatNumber(e.behaviour.standardError, 3)}</td><td>${e.behaviour.episodes} runs</td></tr>
+    ${e.policies.map((p) => html`<tr><td>${p.name}</td>${errorCells(p.policyValue, p.standardError)}<td>${p.status}</td></tr>`)}
+    <tr><td>${BEHAVIOUR_NAME}</td>${errorCells(e.behaviour.value, e.behaviour.standardError)}<td>${e.behaviour.episodes} runs</td></tr>
     </tbody></table>`;
+}
+
+/** A point estimate and its ± s.e. at one precision (intervalPrecision.ts, valueWithError). */
+function errorCells(value: number, standardError: number | null): Html {
+  const t = valueWithError(value, standardError);
+  return html`<td class="num">${t.value}</td><td class="num">${t.error}</td>`;
 }
 
 /** Estimates with intervals as an inline SVG (figures/charts/intervalChart.ts), 640 px wide. */

@@ -6,7 +6,8 @@ import { plantMemorySentence } from '../plantMemoryCheck';
 import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
-import { formatInterval, formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { intervalAtPrecision, valueAtPrecision } from './intervalPrecision';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 export function diagnosticsSection(input: ReportInput): Html {
@@ -14,7 +15,7 @@ export function diagnosticsSection(input: ReportInput): Html {
   if (!a) return html`<section id="diagnostics"><h2>Diagnostics</h2><p>Not computed: ${input.assessmentProblems.join('; ')}</p></section>`;
   return html`<section id="diagnostics"><h2>Diagnostics</h2>
     <p>Does the candidate stay inside what the logs cover? The last column gives the present controller (its model fitted to the log) for scale.</p>
-    <table><thead><tr><th>Diagnostic</th>${a.candidates.map((c) => html`<th class="num">${c.name}</th>`)}<th class="num">logged controller</th></tr></thead><tbody>
+    <table><thead><tr><th>Diagnostic</th>${a.candidates.map((c) => html`<th class="num">${c.name}</th>`)}<th class="num">present controller</th></tr></thead><tbody>
     ${diagnosticRows(a).map((row) => html`<tr><td>${row.label}</td>${row.values.map((v) => html`<td class="num">${v}</td>`)}<td class="num">${row.reference}</td></tr>`)}
     </tbody></table>
     <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${formatPercent(a.unvisitedShare, 0)} of the value-surface grid has no logged state within one grid step.`}</p>
@@ -65,7 +66,7 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
         <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th><th class="num">− FQE (${level})</th><th>Verdict</th></tr></thead><tbody>
         <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td></tr>
         ${c.crossChecks.map((x) => html`<tr><td>${x.label}</td>${x.estimate ? estimateCells(x.estimate) : html`<td class="num">—</td><td></td><td></td><td></td>`}
-          <td class="num">${x.difference ? html`${formatNumber(x.difference.value, 3)}<br/>${formatInterval(x.difference.percentile, 3)}` : ''}</td>
+          <td class="num">${x.difference ? html`${valueAtPrecision(x.difference.value, x.difference.percentile)}<br/>${intervalAtPrecision(x.difference.percentile)}` : ''}</td>
           <td><span class="verdict-${x.agreement}">${verdictWord(x.agreement)}</span><br/><span class="small">${x.note}</span></td></tr>`)}
         </tbody></table>
         <figure id="fig-checks-${n}">${raw(intervalFigure(`checks-${n}-svg`, rows, valueAxisLabel(input, 'J')))}

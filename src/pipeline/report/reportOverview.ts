@@ -42,6 +42,9 @@ export function jobSection(input: ReportInput): Html {
     </tbody></table></section>`;
 }
 
+/** Significant digits of the column statistics: the app's statistics table shows four (renderer format/numberFormat.ts). */
+const STATISTIC_DIGITS = 4;
+
 export function dataSection(input: ReportInput): Html {
   const s = input.data.summary, p = input.project;
   const unit = (name: string) => [...p.columns.states, ...p.columns.actions].find((c) => c.column === name)?.unit ?? '';
@@ -49,8 +52,8 @@ export function dataSection(input: ReportInput): Html {
     <p>${s.rowCount.toLocaleString('en-US')} rows read, ${s.usedRowCount.toLocaleString('en-US')} used (${formatPercent(s.excludedFraction)} excluded);
       ${s.transitionCount.toLocaleString('en-US')} transitions in ${s.episodeCount.toLocaleString('en-US')} runs${s.samplingPeriodSeconds ? `, sampled every ${formatNumber(s.samplingPeriodSeconds, 4)} s` : ''}.
       The reward is ${p.columns.reward.kind === 'column' ? `column “${p.columns.reward.column}”` : `the expression ${p.columns.reward.expression}`}, read as a ${p.columns.reward.sense}.</p>
-    <table><thead><tr><th>Column</th><th>Used as</th><th>Unit</th><th class="num">Min</th><th class="num">Mean</th><th class="num">Max</th><th class="num">Std</th></tr></thead><tbody>
-    ${s.columns.map((c) => html`<tr><td>${c.name}</td><td>${c.roles.join(', ')}</td><td>${unit(c.name)}</td><td class="num">${formatNumber(c.min)}</td><td class="num">${formatNumber(c.mean)}</td><td class="num">${formatNumber(c.max)}</td><td class="num">${formatNumber(c.std)}</td></tr>`)}
+    <table><thead><tr><th>Column</th><th>Used as</th><th>Unit</th><th class="num">Min</th><th class="num">Mean</th><th class="num">Max</th><th class="num">Std dev</th></tr></thead><tbody>
+    ${s.columns.map((c) => html`<tr><td>${c.name}</td><td>${c.roles.join(', ')}</td><td>${unit(c.name)}</td><td class="num">${formatNumber(c.min, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.mean, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.max, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.std, STATISTIC_DIGITS)}</td></tr>`)}
     </tbody></table>
     ${input.data.episodeReport.length ? html`<ul class="small">${input.data.episodeReport.map((line) => html`<li>${line}</li>`)}</ul>` : ''}</section>`;
 }

@@ -14,6 +14,7 @@ import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
 import { escapeHtml, formatInterval, formatNumber, html, raw, type Html } from './htmlText';
+import { intervalAtPrecision, valueAtPrecision } from './intervalPrecision';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 /** The figure's width in CSS px: the report's text column (reportStyles.ts, 980 px less padding). */
@@ -57,10 +58,10 @@ function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: n
 }
 
 function mapTable(map: RetuneMapResult): Html {
-  const best = map.best;
+  const best = map.best, bestInterval = best ? map.points[best.index]?.interval ?? null : null;
   const caption = html`<p><strong>${map.candidate}</strong> — ${best
-    ? html`best supported point ${raw(best.coordinates.map((v, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(formatNumber(v, 4))}`).join(', '))}, J ${formatNumber(best.value, 4)}`
-    : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${formatNumber(map.presentController, 4)}`}.</p>`;
+    ? html`best supported point ${raw(best.coordinates.map((v, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(formatNumber(v, 4))}`).join(', '))}, J ${valueAtPrecision(best.value, bestInterval)}${bestInterval ? ` ${intervalAtPrecision(bestInterval)}` : ''}`
+    : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${valueAtPrecision(map.presentController, bestInterval)}`}.</p>`;
   const notes = html`<ul class="small">${map.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"
     title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${formatNumber(p.occupancyShift, 3)}">${p.value === null ? `no value (${p.status})` : formatNumber(p.value, 4)}<br/><span class="small">${formatInterval(p.interval, 3)}</span></td>`;

@@ -49,6 +49,7 @@ import type { ScriptedDialogs } from './scriptedDialogs';
 import type { HeadlessPrinter } from './headlessPrinter';
 import { requireChromium } from '../../support/chromiumPath';
 import { startHarnessServer, type ApiCallRecord, type HarnessServer } from './server';
+import { UNSTICK } from './unstick';
 
 const root = resolve(dirname(fileURLToPath(import.meta.url)), '../../..');
 const rendererFolder = join(root, 'out/renderer');
@@ -170,7 +171,7 @@ async function screenshot(page: Page, name: string): Promise<string> {
   const path = join(screensFolder, `${name}.png`);
   // Charts are drawn by a worker: wait (a while, without failing) until every figure reports its drawing.
   await page.waitForFunction(() => [...document.querySelectorAll('figure[data-chart-state]')].every((f) => f.getAttribute('data-chart-state') !== 'waiting'), null, { timeout: 20_000 }).catch(() => undefined);
-  await page.screenshot({ path, fullPage: true });
+  await page.screenshot({ path, fullPage: true, style: UNSTICK });
   return path;
 }
 

@@ -4,7 +4,7 @@
  */
 import type { BehaviourFit } from '../../../../shared/workerMessages';
 import type { ProjectDocument } from '../../../../project/schema';
-import { formatNumber } from '../../format/numberFormat';
+import { estimateText, formatNumber } from '../../format/numberFormat';
 
 export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectDocument; behaviour: BehaviourFit; onStart: () => void }) {
   if (!behaviour.ok) {
@@ -17,7 +17,11 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
   }
   const m = behaviour.model;
   const { states, actions } = doc.columns;
-  const pm = (value: number, se: number) => `${formatNumber(value)} ± ${formatNumber(se, 2)}`;
+  // The error to two significant digits and the coefficient to the same place ("−21.6 ± 2.0", not "−21.57 ± 2").
+  const pm = (value: number, se: number) => {
+    const t = estimateText(value, se);
+    return `${t.value} ± ${t.error}`;
+  };
   const rows: { label: string; cell: (j: number) => string }[] = [
     { label: 'Offset', cell: (j) => pm(m.offset[j], m.offsetStandardError[j]) },
     ...states.map((s, p) => ({ label: `Gain on ${s.column}`, cell: (j: number) => pm(m.gain[j][p], m.gainStandardError[j][p]) })),

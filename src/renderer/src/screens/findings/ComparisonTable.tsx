@@ -4,11 +4,10 @@
  * ranking and how often it holds across resamples.
  */
 import type { Assessment } from '../../../../pipeline/assessment';
-import { formatNumber } from '../../format/numberFormat';
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import { displayName } from './plotLabels';
-import { intervalDetail, intervalText, levelText, shareText } from './assessmentWords';
+import { intervalDetail, intervalText, levelText, shareText, valueAtIntervalPrecision } from './assessmentWords';
 
 export function ComparisonTable({ assessment }: { assessment: Assessment }) {
   const { differences, ranking } = assessment.comparison, level = assessment.settings.level;
@@ -31,9 +30,9 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
           {differences.map((d, i) => (
             <tr key={`${d.a}|${d.b}`} data-testid={`difference-row-${i}`}>
               <td>{displayName(d.a)}</td><td>{displayName(d.b)}</td>
-              <td className="number">{formatNumber(d.difference.value, 4)}</td>
+              <td className="number">{valueAtIntervalPrecision(d.difference.value, d.difference.percentile)}</td>
               <td className="number interval" title={intervalDetail(d.difference, level)}>{intervalText(d.difference.percentile)}</td>
-              <td className="number">{d.probabilityBetter === null ? '—' : `${shareText(d.probabilityBetter)} of resamples`}</td>
+              <td className="number">{d.probabilityBetter === null ? '—' : shareText(d.probabilityBetter)}</td>
             </tr>
           ))}
         </tbody>

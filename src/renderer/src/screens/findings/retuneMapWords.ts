@@ -7,7 +7,7 @@ import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
 import type { RetuneMapProgress } from '../../../../shared/workerMessages';
 import { formatDuration, formatNumber } from '../../format/numberFormat';
 import { subscriptMarkup } from '../../../../figures/parts/richText';
-import { intervalText } from './assessmentWords';
+import { intervalText, valueAtIntervalPrecision } from './assessmentWords';
 
 /** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)" (the figures' rich-text markup). */
 export const richAxisLabel = subscriptMarkup;
@@ -17,11 +17,16 @@ export function pointText(map: RetuneMapResult, p: number): string {
   return map.axes.map((axis, a) => `${axis.label} = ${formatNumber(map.points[p].coordinates[a])}`).join(', ');
 }
 
+/**
+ * The map's headline; the best point's J and the present controller's are written at the precision
+ * of the best point's interval ("J 6.75 [4.88, 8.88] … J 8.57"), as every J beside its interval.
+ */
 export function headline(map: RetuneMapResult): string {
-  const present = map.presentController === null ? 'The present controller has no value to compare with.' : `Present controller: J ${formatNumber(map.presentController)}.`;
+  const best = map.best ? map.points[map.best.index] : null, bestInterval = best?.interval ?? null;
+  const present = map.presentController === null ? 'The present controller has no value to compare with.' : `Present controller: J ${valueAtIntervalPrecision(map.presentController, bestInterval)}.`;
   if (!map.best) return `No point of this map is both converged and supported by the logs. ${present}`;
-  const best = map.points[map.best.index], interval = best.interval ? ` ${intervalText(best.interval)}` : '';
-  return `Best supported point: ${pointText(map, map.best.index)}, J ${formatNumber(map.best.value)}${interval}. ${present}`;
+  const interval = bestInterval ? ` ${intervalText(bestInterval)}` : '';
+  return `Best supported point: ${pointText(map, map.best.index)}, J ${valueAtIntervalPrecision(map.best.value, bestInterval)}${interval}. ${present}`;
 }
 
 /** "Map 1 of 2, point 37 of 100 (12 s)". */
