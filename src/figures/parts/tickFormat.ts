@@ -68,7 +68,16 @@ export function intervalDecimals(interval: readonly [number, number] | null | un
   if (!interval) return null;
   const width = interval[1] - interval[0], magnitude = Math.max(Math.abs(interval[0]), Math.abs(interval[1]));
   if (!(width > 0) || !Number.isFinite(width) || magnitude >= EXPONENT_ABOVE || magnitude < EXPONENT_BELOW) return null;
-  return Math.min(10, Math.max(0, 2 - Math.floor(Math.log10(width))));
+  return decimalsAt(width, 3);
+}
+
+/**
+ * The decimal place at which `scale` (> 0) has `significant` significant digits, at most 10 and none
+ * below the units: one precision for numbers read together (a value and its error, an interval's ends).
+ * The app's tables (renderer format/numberFormat.ts), the figures and the report all take it from here.
+ */
+export function decimalsAt(scale: number, significant: number): number {
+  return Math.min(10, Math.max(0, significant - 1 - Math.floor(Math.log10(scale))));
 }
 
 /** A value at the decimal place of its interval ("8.36" beside [6.58, 10.34]); without one, four significant digits. */

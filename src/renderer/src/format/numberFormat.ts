@@ -2,6 +2,7 @@
  * Numbers as people read them on screen: a few significant digits, no trailing zeros, exponent
  * notation only for very large or very small magnitudes, and a true minus sign.
  */
+import { decimalsAt } from '../../../figures/parts/tickFormat';
 import { isoTimeText } from '../../../core/clockText';
 
 export function formatNumber(x: number, significant = 4): string {
@@ -85,6 +86,6 @@ export function estimateText(value: number, error: number | null): { value: stri
  * precision for numbers read together, such as a value and its error or an interval's two ends.
  */
 export function fixedAtPrecisionOf(scale: number, significant: number): (x: number) => string {
-  const decimals = Math.min(10, Math.max(0, significant - 1 - Math.floor(Math.log10(scale))));
+  const decimals = decimalsAt(scale, significant);
   return (x) => x.toFixed(decimals).replace(/^-/, '−');
 }
