@@ -1,0 +1,39 @@
+/**
+ * A derived previous value k rows back next to a row excluded mid-run (badRows "exclude"): the value
+ * k rows back must be the source's value k rows back in the file, or undefined (the row starts no
+ * transition) — never the value of a row further back. Values worked out by hand from the row layout:
+ * the valve is 10 × the row number, so one row back is always the action less 10.
+ */
+import { describe, expect, it } from 'vitest';
+import { importDataset } from '../../src/data/importDataset';
+import type { CsvSettings, DerivedStateSpec } from '../../src/project/schema';
+
+const CSV: CsvSettings = { delimiter: 'auto', decimalMark: 'auto', badRows: 'exclude' };
+// One run of 12 rows; row 6 has an unreadable temperature and is excluded (the run is not cut there).
+const LOG = ['run,temp,valve,reward', ...Array.from({ length: 12 }, (_, i) => `1,${i === 5 ? 'n/a' : 20 + i},${10 * (i + 1)},0`)].join('\n') + '\n';
+const lag = (steps: number): DerivedStateSpec => ({ kind: 'previous', name: `valve_${steps}`, unit: '%', source: 'valve', steps });
+
+function transitions(derived: DerivedStateSpec[]) {
+  const result = importDataset(LOG, 'log.csv', CSV, {
+    states: [{ column: 'temp', unit: '' }, ...derived.map((d) => ({ column: d.name, unit: '' }))], actions: [{ column: 'valve', unit: '%' }],
+    reward: { kind: 'column', column: 'reward', sense: 'reward' }, nextState: { kind: 'nextRow' }, episode: { kind: 'column', column: 'run' }, derived,
+  });
+  if (!result.ok) throw new Error(result.problems.map((p) => `${p.where}: ${p.message}`).join('\n'));
+  return result.value.transitions;
+}
+
+describe('a value k rows back beside a row excluded mid-run', () => {
+  it('is never read from a row further back than k (valve_k = action − 10·k on every transition)', () => {
+    const t = transitions([lag(1), lag(2)]), width = 3;
+    expect(t.count).toBeGreaterThan(0);
+    for (let i = 0; i < t.count; i++) {
+      const action = t.actions[i];
+      expect([t.states[i * width + 1], t.states[i * width + 2]], `transition at valve ${action}`).toEqual([action - 10, action - 20]);
+    }
+  });
+
+  it('holds for k = 1 too (the previous value)', () => {
+    const t = transitions([lag(1)]);
+    for (let i = 0; i < t.count; i++) expect(t.states[i * 2 + 1], `transition at valve ${t.actions[i]}`).toBe(t.actions[i] - 10);
+  });
+});
