@@ -6,9 +6,10 @@
  *   R̄² = 1 − (1 − R²)(N − p)/(N − p − q)
  * (the adjusted R² of the added block, which removes the share q/(N − p) that q unrelated regressors
  * explain by chance; Ezekiel's correction, common practice), and the F statistic only guards small
- * logs: it must also exceed the 0.1 % point of F(q, ∞) = χ²_q/q, by the Wilson–Hilferty cube-root
- * approximation χ²_{q,α} ≈ q(1 − 2/(9q) + z_α√(2/(9q)))³ (Wilson & Hilferty 1931; z_{0.999} = 3.090,
- * Abramowitz & Stegun table 26.1, from memory).
+ * logs: it must also exceed the 0.1 % point of F(q, d), d = N − p − q, by the cube-root approximation
+ * z = ((1 − b)F^{1/3} − (1 − a)) / √(a + bF^{2/3}), a = 2/(9q), b = 2/(9d) (Paulson 1942; Abramowitz &
+ * Stegun 26.6.15, from memory), solved for F at z_{0.999} = 3.090 (A&S table 26.1, from memory); at
+ * d = ∞ it is the Wilson–Hilferty point of χ²_q/q (Wilson & Hilferty 1931).
  *
  * Thresholds chosen on the battery (bench/plantMemoryTable.ts, 3 seeds): on every Markov plant of the
  * battery and the hold-outs, both ways of logging, R̄² stayed at or below 0.2 % at 20,000 rows (3 seeds)
@@ -49,16 +50,17 @@ export function adjustedPartialRSquared(c: ComponentMemory): number {
   return Math.max(0, 1 - ((1 - c.partialRSquared) * (c.denominatorDf + c.numeratorDf)) / c.denominatorDf);
 }
 
-/** The upper 0.1 % point of F(q, ∞) by Wilson–Hilferty. */
-export function memoryFCritical(q: number): number {
-  const h = 2 / (9 * q);
-  return (1 - h + Z_999 * Math.sqrt(h)) ** 3;
+/** The upper 0.1 % point of F(q, d) by A&S 26.6.15 (d = ∞: Wilson–Hilferty's point of χ²_q/q): the larger root for F^{1/3}. */
+export function memoryFCritical(q: number, d = Infinity): number {
+  const a = 2 / (9 * q), b = 2 / (9 * d), z2 = Z_999 * Z_999;
+  const qa = (1 - b) ** 2 - z2 * b, qb = (1 - a) * (1 - b), qc = (1 - a) ** 2 - z2 * a;
+  return ((qb + Math.sqrt(qb * qb - qa * qc)) / qa) ** 3;
 }
 
 /** The component the rule reads: the largest R̄² among those that pass the F guard; null if none. */
 export function memoryComponent(result: PlantMemoryResult): ComponentMemory | null {
   if ('reason' in result) return null;
-  const passing = result.components.filter((c) => c.numeratorDf > 0 && c.fStatistic > memoryFCritical(c.numeratorDf));
+  const passing = result.components.filter((c) => c.numeratorDf > 0 && c.fStatistic > memoryFCritical(c.numeratorDf, c.denominatorDf));
   return passing.reduce<ComponentMemory | null>((a, c) => (!a || adjustedPartialRSquared(c) > adjustedPartialRSquared(a) ? c : a), null);
 }
 
