@@ -1,0 +1,26 @@
+/**
+ * The plant-memory sentence (app, report, CLI) must not contradict the finding: a share above the
+ * caution threshold that its F test does not support raises no finding (plantMemoryFinding.ts), so
+ * the sentence must not print that share as the one read beside "a caution above 5.0 %" with no caution
+ * shown. Numbers by hand.
+ */
+import { describe, expect, it } from 'vitest';
+import { plantMemorySentence, type PlantMemorySummary, type StateMemory } from '../../src/pipeline/plantMemoryCheck';
+
+const state = (name: string, adjusted: number): StateMemory => ({
+  state: name, partialRSquared: adjusted, adjustedPartialRSquared: adjusted, fStatistic: 1, degreesOfFreedom: [16, 30], strongest: null,
+});
+
+describe('plant-memory sentence beside its finding', () => {
+  it('says the share was not supported when no state passed the F guard (no finding was raised)', () => {
+    const summary: PlantMemorySummary = { rowsUsed: 60, usableRows: 60, rowsBack: 8, read: null, states: [state('level_m', 0.3)] };
+    const sentence = plantMemorySentence(summary)!;
+    expect(sentence).toMatch(/level_m/);
+    expect(sentence).toMatch(/not supported by its F test/);
+  });
+
+  it('reads the state the rule read, not a larger share that failed its F guard', () => {
+    const summary: PlantMemorySummary = { rowsUsed: 60, usableRows: 60, rowsBack: 8, read: 'flow_m3h', states: [state('level_m', 0.3), state('flow_m3h', 0.07)] };
+    expect(plantMemorySentence(summary)).toMatch(/explain at most 7\.0 % .* in flow_m3h/);
+  });
+});
