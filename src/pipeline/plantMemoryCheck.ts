@@ -76,9 +76,12 @@ export const MODEL_CHECKS_REASON = 'the plant-memory finding is serious, and thi
 export function plantMemorySentence(summary: PlantMemorySummary | undefined): string | null {
   if (!summary) return null;
   if ('reason' in summary) return `Plant memory: not checked — ${summary.reason}.`;
-  const top = summary.states.reduce<StateMemory | null>((a, s) => (!a || s.adjustedPartialRSquared > a.adjustedPartialRSquared ? s : a), null);
+  // The state the rule read (the largest share that passed its F guard), as the finding does; else the largest share.
+  const largest = summary.states.reduce<StateMemory | null>((a, s) => (!a || s.adjustedPartialRSquared > a.adjustedPartialRSquared ? s : a), null);
+  const top = summary.states.find((s) => s.state === summary.read) ?? largest;
   if (!top) return null;
   const pct = (x: number) => `${(100 * x).toFixed(x < 0.1 ? 1 : 0)} %`;
-  return `Plant memory: the ${summary.rowsBack} rows before explain at most ${pct(top.adjustedPartialRSquared)} (adjusted for chance) of what the one-step model leaves unexplained, in ${top.state} ` +
+  const unsupported = summary.read === null && top.adjustedPartialRSquared > MEMORY_CAUTION ? ', not supported by its F test on a log this short, so no finding' : '';
+  return `Plant memory: the ${summary.rowsBack} rows before explain ${top === largest ? 'at most ' : ''}${pct(top.adjustedPartialRSquared)} (adjusted for chance) of what the one-step model leaves unexplained, in ${top.state}${unsupported} ` +
     `(${summary.rowsUsed} rows read; a caution above ${pct(MEMORY_CAUTION)}, serious above ${pct(MEMORY_SERIOUS)}).`;
 }

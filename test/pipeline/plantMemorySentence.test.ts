@@ -21,6 +21,6 @@ describe('plant-memory sentence beside its finding', () => {
 
   it('reads the state the rule read, not a larger share that failed its F guard', () => {
     const summary: PlantMemorySummary = { rowsUsed: 60, usableRows: 60, rowsBack: 8, read: 'flow_m3h', states: [state('level_m', 0.3), state('flow_m3h', 0.07)] };
-    expect(plantMemorySentence(summary)).toMatch(/explain at most 7\.0 % .* in flow_m3h/);
+    expect(plantMemorySentence(summary)).toMatch(/explain 7\.0 % .* in flow_m3h/);
   });
 });
