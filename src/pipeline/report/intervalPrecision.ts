@@ -36,7 +36,7 @@ export function valueAtPrecision(value: number | null | undefined, iv: readonly 
 /** A value and its standard error (no interval): the error to two significant digits, the value to the same place. */
 export function valueWithError(value: number | null | undefined, error: number | null | undefined): { value: string; error: string } {
   if (error === null || error === undefined || !(error > 0) || !Number.isFinite(error) || value === null || value === undefined
-    || !Number.isFinite(value) || Math.abs(value) >= 1e6) return { value: formatNumber(value, 4), error: formatNumber(error, 2) };
-  const d = decimalsFor(error, 2);
+    || !Number.isFinite(value) || Math.abs(value) >= 1e6 || 1 - Math.floor(Math.log10(error)) > 10) return { value: formatNumber(value, 4), error: formatNumber(error, 2) };
+  const d = decimalsFor(error, 2); // at most 10 here, so the error keeps its two digits
   return { value: fixed(value, d), error: fixed(error, d) };
 }
