@@ -15,7 +15,9 @@
  * r − y, the reverse-acting sign, whatever the direction of the loop that reads it.
  * Without a stated initial value, a previous value or difference is undefined on an episode's
  * first row (a previous value k rows back on its first k rows): those rows then only supply x for
- * later ones, and start no transition. "Rows" are the kept rows of the episode, as for k = 1.
+ * later ones, and start no transition. "Rows" are the kept rows of the episode, as for k = 1; where a
+ * row is excluded mid-run, a previous value or difference without an initial value restarts after it
+ * as at a run's start (undefined on the next k rows), so it never reads a row further back than k.
  *
  * Why they are Markov under a candidate. Each derived value at row t+1 is a fixed function of the
  * derived value at row t and the logged signals at rows t and t+1: I_{t+1} = I_t + e_t·Δt_t,
@@ -43,6 +45,24 @@ export interface DerivedInputs {
   /** A file column's values over records. */
   readonly column: (name: string) => Float64Array;
   readonly timestampsSeconds?: Float64Array; // records
+  /**
+   * The episodes cut after every row excluded mid-run as well (stretchesOf): a value a whole number of
+   * rows back without an initial value restarts there, undefined, rather than reach past the gap.
+   */
+  readonly stretchOf?: Int32Array; // records
+}
+
+/** episodeOf with a new number after every excluded record inside an episode (−1 where not kept). */
+export function stretchesOf(kept: Uint8Array, episodeOf: Int32Array): Int32Array {
+  const out = new Int32Array(kept.length).fill(-1);
+  let stretch = -1, previous = -1;
+  for (let r = 0; r < kept.length; r++) {
+    if (!kept[r]) continue;
+    if (previous < 0 || episodeOf[r] !== episodeOf[previous] || previous !== r - 1) stretch++;
+    out[r] = stretch;
+    previous = r;
+  }
+  return out;
 }
 
 export interface DerivedColumns {
@@ -55,7 +75,9 @@ export interface DerivedColumns {
 export function computeDerivedStates(definitions: readonly DerivedStateSpec[], inputs: DerivedInputs): DerivedColumns {
   const values = new Map<string, Float64Array>(), leadingRowsUndefined = new Map<string, number>();
   for (const d of definitions) {
-    values.set(d.name, d.kind === 'previous' ? laggedColumn(inputs.column(d.source), d.initial, d.steps ?? 1, inputs) : derivedColumn(d, inputs));
+    const rowsBack = (d.kind === 'previous' || d.kind === 'difference') && d.initial === undefined && inputs.stretchOf;
+    const along = rowsBack ? { ...inputs, episodeOf: inputs.stretchOf! } : inputs;
+    values.set(d.name, d.kind === 'previous' ? laggedColumn(inputs.column(d.source), d.initial, d.steps ?? 1, along) : derivedColumn(d, along));
     if (d.kind === 'previous' && d.initial === undefined) leadingRowsUndefined.set(d.name, d.steps ?? 1);
     if (d.kind === 'difference' && d.initial === undefined) leadingRowsUndefined.set(d.name, 1);
   }

@@ -21,7 +21,7 @@ import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
 import { rewardColumn } from './rewardColumn';
 import { assignEpisodes, medianStepSeconds, runsApart, type EpisodeAssignment, type EpisodeInputs } from './episodes';
-import { computeDerivedStates, withoutFirstRows } from './derivedStates';
+import { computeDerivedStates, stretchesOf, withoutFirstRows } from './derivedStates';
 import { plural } from './reportFormat';
 import { buildTransitions } from './transitionBuilder';
 import { constantStateWarnings, summariseDataset, type DatasetSummary } from './datasetSummary';
@@ -165,22 +165,26 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const stateNames = new Set(s.columns.states.map((c) => c.column));
   const used = definitions.filter((d) => stateNames.has(d.name));
   if (used.length === 0) return { episodes, derivedValues: new Map<string, Float64Array>(), kept: inputs.kept, report: [] as string[] };
+  const stretchOf = stretchesOf(inputs.kept, episodes.episodeOf); // a row excluded mid-run: no value reaches past it
   const { values, leadingRowsUndefined } = computeDerivedStates(used, {
-    kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds,
+    kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds, stretchOf,
   });
   const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${d.kind === 'previous' && (d.steps ?? 1) > 1 ? `value ${d.steps} rows back` : DERIVED_WORDS[d.kind]})`).join(', ')}.`];
   if (leadingRowsUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
   const rows = Math.max(...leadingRowsUndefined.values());
-  const { kept, removed } = withoutFirstRows(inputs.kept, episodes.episodeOf, rows);
-  report.push(undefinedStartReport(leadingRowsUndefined, rows, removed));
+  const { kept, removed } = withoutFirstRows(inputs.kept, stretchOf, rows);
+  const midRun = stretchOf.reduce((a, b) => Math.max(a, b), -1) + 1 - episodes.episodeCount; // stretches that begin after a row excluded mid-run
+  report.push(undefinedStartReport(leadingRowsUndefined, rows, removed) + (midRun > 0 ? ` The same holds after each of the ${midRun} places a row was excluded mid-run: no value reaches past it.` : ''));
   // The first row where every derived state is defined is the run's start: a run whose own first row
   // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
   const again = assignEpisodes(s.columns.episode, { ...inputs, kept, medianStepSeconds: undefined }); // other rows kept: the median is found again
-  const hasStart = new Uint8Array(again.episodeCount);
+  const hasStart = new Uint8Array(again.episodeCount), seen = new Set<number>();
   for (let r = 0, last = -1; r < kept.length; r++) {
     if (!kept[r] || again.episodeOf[r] === last) continue;
     last = again.episodeOf[r];
-    hasStart[last] = episodes.hasStart[episodes.episodeOf[r]];
+    // a run cut again where rows after an excluded one were taken out (a timestamp gap) is no start there
+    hasStart[last] = seen.has(episodes.episodeOf[r]) ? 0 : episodes.hasStart[episodes.episodeOf[r]];
+    seen.add(episodes.episodeOf[r]);
   }
   const lost = (line: string) => /first row to exclusion/.test(line);
   const episodeReport = [...again.report.filter((line) => !lost(line)), ...episodes.report.filter(lost)];

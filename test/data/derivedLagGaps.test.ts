@@ -13,19 +13,22 @@ const CSV: CsvSettings = { delimiter: 'auto', decimalMark: 'auto', badRows: 'exc
 const LOG = ['run,temp,valve,reward', ...Array.from({ length: 12 }, (_, i) => `1,${i === 5 ? 'n/a' : 20 + i},${10 * (i + 1)},0`)].join('\n') + '\n';
 const lag = (steps: number): DerivedStateSpec => ({ kind: 'previous', name: `valve_${steps}`, unit: '%', source: 'valve', steps });
 
-function transitions(derived: DerivedStateSpec[]) {
-  const result = importDataset(LOG, 'log.csv', CSV, {
+function imported(derived: DerivedStateSpec[], byTime = false) {
+  const log = byTime ? LOG.replace('run,', 't,').replace(/^1,/gm, () => '').split('\n').map((line, i) => (i === 0 || !line ? line : `${i},${line}`)).join('\n') : LOG;
+  const result = importDataset(log, 'log.csv', CSV, {
     states: [{ column: 'temp', unit: '' }, ...derived.map((d) => ({ column: d.name, unit: '' }))], actions: [{ column: 'valve', unit: '%' }],
-    reward: { kind: 'column', column: 'reward', sense: 'reward' }, nextState: { kind: 'nextRow' }, episode: { kind: 'column', column: 'run' }, derived,
+    reward: { kind: 'column', column: 'reward', sense: 'reward' }, nextState: { kind: 'nextRow' }, episode: byTime ? { kind: 'timeGap', column: 't' } : { kind: 'column', column: 'run' }, derived,
   });
   if (!result.ok) throw new Error(result.problems.map((p) => `${p.where}: ${p.message}`).join('\n'));
-  return result.value.transitions;
+  return result.value;
 }
+const transitions = (derived: DerivedStateSpec[], byTime = false) => imported(derived, byTime).transitions;
 
 describe('a value k rows back beside a row excluded mid-run', () => {
   it('is never read from a row further back than k (valve_k = action − 10·k on every transition)', () => {
-    const t = transitions([lag(1), lag(2)]), width = 3;
+    const d = imported([lag(1), lag(2)]), t = d.transitions, report = d.episodeReport, width = 3;
     expect(t.count).toBeGreaterThan(0);
+    expect(report.join(' ')).toMatch(/after each of the 1 places a row was excluded mid-run/);
     for (let i = 0; i < t.count; i++) {
       const action = t.actions[i];
       expect([t.states[i * width + 1], t.states[i * width + 2]], `transition at valve ${action}`).toEqual([action - 10, action - 20]);
@@ -35,5 +38,12 @@ describe('a value k rows back beside a row excluded mid-run', () => {
   it('holds for k = 1 too (the previous value)', () => {
     const t = transitions([lag(1)]);
     for (let i = 0; i < t.count; i++) expect(t.states[i * 2 + 1], `transition at valve ${t.actions[i]}`).toBe(t.actions[i] - 10);
+  });
+
+  it('keeps one start state where the rows taken out after the excluded row open a timestamp gap (runs by time, 1 s apart)', () => {
+    const t = transitions([lag(1), lag(2), lag(3)], true), width = 4;
+    for (let i = 0; i < t.count; i++) expect(t.states[i * width + 3], `transition at valve ${t.actions[i]}`).toBe(t.actions[i] - 30);
+    // the run's own start is its 4th row (valve 40, temp 23); no mid-run row after the gap is a start state
+    expect(Array.from(t.startStates)).toEqual([23, 30, 20, 10]);
   });
 });
