@@ -60,7 +60,9 @@ export async function assessRun(run: ProjectRun, options: AssessRunOptions): Pro
   } catch (error) {
     if (error instanceof FqeCancelledError) return failure(CANCELLED_PROBLEM);
     if (error instanceof AssessmentError || error instanceof BootstrapError || isEngineError(error)) {
-      return failure({ where: 'assessment', message: (error as Error).message });
+      // The plant-memory check needs no resampling: its finding is not lost with the rest (J is still shown).
+      const memory = plantMemoryAssessment(run.plan.data).warnings.map((w) => ({ where: 'plant memory', message: w.message }));
+      return failure({ where: 'assessment', message: (error as Error).message }, ...memory);
     }
     throw error;
   }
