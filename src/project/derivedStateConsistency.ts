@@ -50,6 +50,6 @@ function checkLagChains(derived: readonly DerivedStateSpec[], states: Set<string
     const missing = Array.from({ length: k - 1 }, (_, j) => j + 1).filter((j) => !held(j));
     if (missing.length === 0) return;
     const rows = missing.map(String).join(', ');
-    add(`columns.derived[${i}].steps`, `"${d.name}", the value of "${d.source}" ${k} rows back, is a valid state only with its values 1 to ${k - 1} rows back among the states (next row it becomes the value ${k - 1} rows back, which the state must already hold); missing: ${rows} row(s) back. Add each as a derived state (kind "previous", source "${d.source}", steps ${missing[0]}…) with the role "state"`);
+    add(`columns.derived[${i}].steps`, `"${d.name}", the value of "${d.source}" ${k} rows back, is a valid state only with ${k === 2 ? 'its value 1 row back' : `its values 1 to ${k - 1} rows back`} among the states (next row it becomes the value ${k - 1} row${k === 2 ? '' : 's'} back, which the state must already hold); missing: ${rows} row(s) back. Add each as a derived state (kind "previous", source "${d.source}", steps ${missing[0]}…) with the role "state"`);
   });
 }
