@@ -80,5 +80,5 @@ export function plantMemorySentence(summary: PlantMemorySummary | undefined): st
   if (!top) return null;
   const pct = (x: number) => `${(100 * x).toFixed(x < 0.1 ? 1 : 0)} %`;
   return `Plant memory: the ${summary.rowsBack} rows before explain at most ${pct(top.adjustedPartialRSquared)} (adjusted for chance) of what the one-step model leaves unexplained, in ${top.state} ` +
-    `(${summary.rowsUsed} rows read; a caution above ${pct(MEMORY_CAUTION)}, serious above ${pct(MEMORY_SERIOUS)}).`;
+    `(${summary.rowsUsed.toLocaleString('en-US')} rows read; a caution above ${pct(MEMORY_CAUTION)}, serious above ${pct(MEMORY_SERIOUS)}).`;
 }
