@@ -6,7 +6,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { PLANT_MEMORY_LAGS, PLANT_MEMORY_ROWS } from '../../src/core/limits';
-import { plantMemoryAssessment, plantMemorySentence } from '../../src/pipeline/plantMemoryCheck';
+import { plantMemoryAssessment } from '../../src/pipeline/plantMemoryCheck';
+import { plantMemorySentence } from '../../src/pipeline/plantMemoryWords';
 import { deadTimeLog } from '../battery/deadTimePlant';
 
 describe('plant memory in the assessment', () => {
