@@ -116,8 +116,9 @@ describe('a new user evaluates two candidates (e2e)', () => {
 
     await page.getByTestId('new-project').click();
     // New shows the welcome, or first asks about unsaved changes when the document changed after the save.
-    // On a loaded CI machine that question once stood in front of the welcome (no change by the test); the
-    // save and reopen are what this checks, so the question is answered "Don't save" and reported, not failed on.
+    // This step once timed out on a loaded CI machine with no trace kept; the question is the one way New
+    // withholds the welcome. The save and reopen are what this checks, so a question is answered
+    // "Don't save" and reported (state and screenshot) rather than failed on, and the wait is longer.
     const welcome = page.getByTestId('welcome'), question = page.getByRole('alertdialog');
     await expect.poll(async () => (await welcome.isVisible()) || (await question.isVisible()), { ...POLL, timeout: 60_000 }).toBe(true);
     if (await question.isVisible()) {
