@@ -1,6 +1,6 @@
 /** The readable summary of an assessment for the terminal: intervals, comparison, cross-checks, warnings. */
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
-import { plantMemorySentence } from '../pipeline/plantMemoryCheck';
+import { plantMemorySentence } from '../pipeline/plantMemoryWords';
 import { significant, textTable as table } from './textTable';
 
 const number = (v: number | null): string => significant(v, 5);

@@ -6,7 +6,7 @@
  * src/core/diagnostics/plantMemoryFinding.ts; its numbers go to the assessment as `plantMemory`.
  */
 import { plantMemory, type MemoryData, type PlantMemoryResult } from '../core/diagnostics/plantMemory';
-import { adjustedPartialRSquared, memoryComponent, MEMORY_CAUTION, MEMORY_SERIOUS, plantMemoryFinding, type MemoryNames } from '../core/diagnostics/plantMemoryFinding';
+import { adjustedPartialRSquared, memoryComponent, plantMemoryFinding, type MemoryNames } from '../core/diagnostics/plantMemoryFinding';
 import { createFeatureMap } from '../core/features/featureMap';
 import { polynomialFeatureSpec } from '../core/features/polynomialFeatures';
 import { fitStateActionStandardiser } from '../core/features/standardiser';
@@ -71,17 +71,3 @@ export function modelChecksReason(memory: { warnings: readonly AssessmentWarning
 }
 
 export const MODEL_CHECKS_REASON = 'the plant-memory finding is serious, and this check simulates a one-step model of the plant that assumes the next state depends on the present state and action only';
-
-/** One line for the app's findings and the report, with the thresholds the rule applies; null for an assessment without the check. */
-export function plantMemorySentence(summary: PlantMemorySummary | undefined): string | null {
-  if (!summary) return null;
-  if ('reason' in summary) return `Plant memory: not checked — ${summary.reason}.`;
-  // The state the rule read (the largest share that passed its F guard), as the finding does; else the largest share.
-  const largest = summary.states.reduce<StateMemory | null>((a, s) => (!a || s.adjustedPartialRSquared > a.adjustedPartialRSquared ? s : a), null);
-  const top = summary.states.find((s) => s.state === summary.read) ?? largest;
-  if (!top) return null;
-  const pct = (x: number) => `${(100 * x).toFixed(x < 0.1 ? 1 : 0)} %`;
-  const unsupported = summary.read === null && top.adjustedPartialRSquared > MEMORY_CAUTION ? ', not supported by its F test on a log this short, so no finding' : '';
-  return `Plant memory: the ${summary.rowsBack} rows before explain ${top === largest ? 'at most ' : ''}${pct(top.adjustedPartialRSquared)} (adjusted for chance) of what the one-step model leaves unexplained, in ${top.state}${unsupported} ` +
-    `(${summary.rowsUsed} rows read; a caution above ${pct(MEMORY_CAUTION)}, serious above ${pct(MEMORY_SERIOUS)}).`;
-}

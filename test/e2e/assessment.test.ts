@@ -12,6 +12,7 @@ import { openAllFindings } from './harness/findingsSections';
 import { drawnPixels } from './harness/drawnPixels';
 import { REPORT_SECTIONS } from '../../src/pipeline/report/reportDocument';
 import { launchApp, type LaunchedApp } from './harness/launch';
+import { UNSTICK } from './harness/unstick';
 import {
   addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, TANK_CSV,
 } from '../renderer/e2e/appSteps';
@@ -87,7 +88,7 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     await page.getByTestId('export-sensitivity').locator('summary').click();
     await app.screenshot('assessment-2-findings');
     for (const [name, testId] of [['values', 'value-table'], ['comparison', 'comparison-table'], ['cross-checks', 'cross-checks'], ['coverage', 'coverage'], ['sensitivity', 'sensitivity']]) {
-      await page.getByTestId(testId).screenshot({ path: join(SCREENS, `assessment-3-${name}.png`) });
+      await page.getByTestId(testId).screenshot({ path: join(SCREENS, `assessment-3-${name}.png`), style: UNSTICK });
     }
   });
 

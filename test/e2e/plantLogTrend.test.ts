@@ -16,6 +16,7 @@ import { startMainThreadProbe, startTaskTrace, stopMainThreadProbe } from './har
 import { openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
+import { UNSTICK } from './harness/unstick';
 
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
@@ -233,7 +234,7 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
         // Drawn in this theme: the pixels on screen, not only the state attribute, which a redraw after the switch may not yet have reset.
         await expect.poll(() => drawnPixels(page, page.getByTestId('plot-trend')).then((p) => p.drawnShare), POLL).toBeGreaterThan(0.02);
         await app.screenshot(`plant-log-trend-${theme}-${size.width}`);
-        await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-trend-panel-${theme}-${size.width}.png` });
+        await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-trend-panel-${theme}-${size.width}.png`, style: UNSTICK });
       }
     }
     expect(app.consoleErrors).toEqual([]);
@@ -277,7 +278,7 @@ describe('the Plant log step on a clock that restarts in each run (e2e)', () => 
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 40 runs for window 1`);
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain('This log’s clock starts again in each run');
     await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
-    await page.getByTestId('trend-panel').screenshot({ path: 'test-artifacts/screens/plant-log-run-time-window.png' });
+    await page.getByTestId('trend-panel').screenshot({ path: 'test-artifacts/screens/plant-log-run-time-window.png', style: UNSTICK });
     expect(app.consoleErrors).toEqual([]);
   });
 });

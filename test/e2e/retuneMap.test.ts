@@ -163,11 +163,11 @@ describe('the retune map in the app (e2e)', () => {
         await panel.screenshot({ path: join(SCREENS, `retune-map-${size.width}-${theme}.png`), style: UNSTICK });
         const exportPanel = page.getByTestId('export-retuneMap');
         await exportPanel.locator('summary').click();
-        await exportPanel.screenshot({ path: join(SCREENS, `export-panel-${size.width}-${theme}.png`) });
+        await exportPanel.screenshot({ path: join(SCREENS, `export-panel-${size.width}-${theme}.png`), style: UNSTICK });
         await exportPanel.locator('summary').click();
         if (size.width === 1280 && theme === 'light') {
           await page.getByTestId('retune-map-table-details').locator('summary').click();
-          await page.getByTestId('retune-map-table-details').screenshot({ path: join(SCREENS, 'retune-map-table.png') });
+          await page.getByTestId('retune-map-table-details').screenshot({ path: join(SCREENS, 'retune-map-table.png'), style: UNSTICK });
           await page.getByTestId('retune-map-table-details').locator('summary').click();
         }
         await page.screenshot({ path: join(SCREENS, `retune-map-${size.width}-${theme}-window.png`) });

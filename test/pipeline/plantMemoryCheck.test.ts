@@ -6,7 +6,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { PLANT_MEMORY_LAGS, PLANT_MEMORY_ROWS } from '../../src/core/limits';
-import { plantMemoryAssessment, plantMemorySentence } from '../../src/pipeline/plantMemoryCheck';
+import { plantMemoryAssessment } from '../../src/pipeline/plantMemoryCheck';
+import { plantMemorySentence } from '../../src/pipeline/plantMemoryWords';
 import { deadTimeLog } from '../battery/deadTimePlant';
 
 describe('plant memory in the assessment', () => {
@@ -21,6 +22,7 @@ describe('plant memory in the assessment', () => {
     expect(jacket.strongest).toMatchObject({ signal: 'steam_valve_pct', kind: 'action', rowsBack: 2 });
     expect(jacket.adjustedPartialRSquared).toBeLessThanOrEqual(jacket.partialRSquared);
     expect(plantMemorySentence(summary)).toMatch(/^Plant memory: the 8 rows before explain at most \d+ % .* in jacket_temp_c .*a caution above 5\.0 %, serious above 50 %\)\.$/);
+    expect(plantMemorySentence(summary)).toMatch(/\(1\d,\d{3} rows read;/); // with its thousands separator, as the app writes counts
   });
 
   it('gives its reason on runs shorter than the rows it reads back, and no warning', () => {

@@ -5,7 +5,8 @@
  * shown. Numbers by hand.
  */
 import { describe, expect, it } from 'vitest';
-import { plantMemorySentence, type PlantMemorySummary, type StateMemory } from '../../src/pipeline/plantMemoryCheck';
+import type { PlantMemorySummary, StateMemory } from '../../src/pipeline/plantMemoryCheck';
+import { plantMemorySentence } from '../../src/pipeline/plantMemoryWords';
 
 const state = (name: string, adjusted: number): StateMemory => ({
   state: name, partialRSquared: adjusted, adjustedPartialRSquared: adjusted, fStatistic: 1, degreesOfFreedom: [16, 30], strongest: null,

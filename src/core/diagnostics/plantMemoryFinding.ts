@@ -67,7 +67,7 @@ export function memoryComponent(result: PlantMemoryResult): ComponentMemory | nu
 export function plantMemoryRuleText(): string {
   return `Plant memory: each next-state value is regressed on the one-step plant model's own terms of the present state and action, then on the states and actions of the earlier rows of the same run as well ` +
     `(residual analysis of a one-step model, Ljung 1999, §16.6, as a nested least-squares regression with an F-test); the share of what the model left that the earlier rows explain, adjusted for chance, ` +
-    `above ${pct(MEMORY_CAUTION)} is a caution and above ${pct(MEMORY_SERIOUS)} serious (when its F also exceeds its 0.1 % point): the logged state then does not carry the plant's memory, which every estimate and cross-check here assumes. ` +
+    `above ${memoryPercent(MEMORY_CAUTION)} is a caution and above ${memoryPercent(MEMORY_SERIOUS)} serious (when its F also exceeds its 0.1 % point): the logged state then does not carry the plant's memory, which every estimate and cross-check here assumes. ` +
     'Where it is serious, the model rollouts and the linear-quadratic closed form are not applied (they simulate a one-step model that assumes the same), and no candidate is named for a trial.';
 }
 
@@ -80,7 +80,7 @@ export function plantMemoryFinding(result: PlantMemoryResult, names: MemoryNames
   const most = s ? ` — most of it ${signalName(s.kind, s.index, names)} ${s.lag} row${s.lag === 1 ? '' : 's'} back` : '';
   return {
     severity: serious ? 'serious' : 'caution', topic: 'plantMemory',
-    message: `The logged state may not carry the plant’s memory: the rows before explain ${pct(share)} of what the one-step model leaves unexplained in ${state}${most}. ` +
+    message: `The logged state may not carry the plant’s memory: the rows before explain ${memoryPercent(share)} of what the one-step model leaves unexplained in ${state}${most}. ` +
       'Every estimate here, the cross-checks included, assumes the next state depends on the present state and action only; a dead time or a lag that is not logged breaks that' +
       (serious ? ', and then J and the cross-checks can all be off together (on a test plant with a dead time, 53–60 % put J off by up to 6 %, 94 % by up to 59 %); the model rollouts and the closed form, which assume it too, are not applied. ' : '. ') +
       'Add the earlier values named here as derived states (columns.derived, kind "previous") and evaluate again.',
@@ -92,6 +92,7 @@ function signalName(kind: 'state' | 'action', index: number, names: MemoryNames)
   return list[index] ?? `${kind} ${index + 1}`;
 }
 
-function pct(share: number): string {
+/** A share as the finding and the coverage line write it: one decimal below 10 %, none above. */
+export function memoryPercent(share: number): string {
   return `${(100 * share).toFixed(share < 0.1 ? 1 : 0)} %`;
 }

@@ -2,7 +2,7 @@
 import type { Assessment, AssessmentWarning, CandidateAssessment } from '../assessment';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../core/diagnostics/severity';
 import { CAUTIONS } from '../cautions';
-import { plantMemorySentence } from '../plantMemoryCheck';
+import { plantMemorySentence } from '../plantMemoryWords';
 import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';

@@ -4,7 +4,7 @@
  * share of the state grid, and the warnings these raise, as sentences.
  */
 import type { Assessment, AssessmentWarning } from '../../../../pipeline/assessment';
-import { plantMemorySentence } from '../../../../pipeline/plantMemoryCheck';
+import { plantMemorySentence } from '../../../../pipeline/plantMemoryWords';
 import { coverageSentences, unvisitedSentence } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 
