@@ -156,3 +156,5 @@ export const STREAM_WINDOW_BYTES = 4 * 1024 * 1024;
  */
 export const PLANT_MEMORY_LAGS = 8;
 export const PLANT_MEMORY_ROWS = 20_000;
+/** Largest monomial count of the plant-memory check's base regression (pipeline/plantMemoryCheck.ts memoryBaseDegree; ours, the rollout model's own cap). */
+export const PLANT_MEMORY_BASE_MONOMIALS = 120;

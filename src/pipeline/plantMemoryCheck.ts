@@ -1,7 +1,7 @@
 /**
  * The plant-memory check on a project's log (src/core/diagnostics/plantMemory.ts), once per project,
- * not per candidate: the monomials of the product's own one-step plant model (the degree the rollout
- * cross-check uses, assessRollouts.ts) as the base regression, PLANT_MEMORY_LAGS earlier rows and at
+ * not per candidate: monomials of the present state and action up to two degrees above the product's
+ * own one-step plant model (memoryBaseDegree below) as the base regression, PLANT_MEMORY_LAGS earlier rows and at
  * most PLANT_MEMORY_ROWS rows (src/core/limits.ts). Its finding and words come from
  * src/core/diagnostics/plantMemoryFinding.ts; its numbers go to the assessment as `plantMemory`.
  */
@@ -10,7 +10,8 @@ import { adjustedPartialRSquared, memoryComponent, plantMemoryFinding, type Memo
 import { createFeatureMap } from '../core/features/featureMap';
 import { polynomialFeatureSpec } from '../core/features/polynomialFeatures';
 import { fitStateActionStandardiser } from '../core/features/standardiser';
-import { PLANT_MEMORY_LAGS, PLANT_MEMORY_ROWS } from '../core/limits';
+import { PLANT_MEMORY_BASE_MONOMIALS, PLANT_MEMORY_LAGS, PLANT_MEMORY_ROWS } from '../core/limits';
+import { monomialCount } from '../core/features/monomials';
 import type { AssessmentWarning } from './assessment';
 import { rolloutModelOptions } from './assessRollouts';
 
@@ -33,8 +34,22 @@ export type PlantMemorySummary =
 export function loggedPlantMemory(data: MemoryData): PlantMemoryResult {
   if (data.count < 1) return { reason: 'the log has no transitions' };
   const standardiser = fitStateActionStandardiser(data).spec;
-  const features = createFeatureMap(polynomialFeatureSpec(standardiser, rolloutModelOptions(data).degree));
+  const features = createFeatureMap(polynomialFeatureSpec(standardiser, memoryBaseDegree(data)));
   return plantMemory(data, { features, standardiser, lags: PLANT_MEMORY_LAGS, maxRows: PLANT_MEMORY_ROWS });
+}
+
+/**
+ * The base regression's degree: the one-step plant model's (assessRollouts.ts) raised by up to two while
+ * its monomials stay within PLANT_MEMORY_BASE_MONOMIALS. Earlier rows predict the present one, so they
+ * also "explain" whatever the base misfits about it: a first-order plant x' = 0.7x + 0.5·sin 3x + 0.3u,
+ * with no memory at all, read 62–63 % (serious) on a cubic base and 0.6 % on a quintic one. Memory
+ * that a richer function of the present row explains away is misfit, not memory; a dead time is not
+ * explained away (the valve's effect 4 rows back is not a function of the present row).
+ */
+export function memoryBaseDegree(data: { readonly stateDim: number; readonly actionDim: number }): number {
+  const inputs = data.stateDim + data.actionDim, model = rolloutModelOptions(data).degree;
+  for (const degree of [model + 2, model + 1]) if (monomialCount(inputs, degree) <= PLANT_MEMORY_BASE_MONOMIALS) return degree;
+  return model;
 }
 
 /** The check's numbers (read: the state the rule read, if any passed its F guard) and its warnings (none or one). */

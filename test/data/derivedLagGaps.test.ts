@@ -47,7 +47,11 @@ describe('a value k rows back beside a row excluded mid-run', () => {
     expect(Array.from(t.startStates)).toEqual([23, 30, 20, 10]);
   });
 
-  it('holds with an initial value too: the initial value is for a run’s first rows, not for the rows after a gap (fails today: left for the lead)', () => {
+  // Known and open (README, columns.derived): with an `initial` value the lag still reads across a row
+  // excluded mid-run. Using the initial value there would be made up too; the right fix leaves the value
+  // undefined after the gap and drops those rows, which needs the import's row-removal report reworked.
+  // it.fails keeps the defect visible: it turns red the day the behaviour is fixed, to be made a plain it.
+  it.fails('holds with an initial value too: the initial value is for a run’s first rows, not for the rows after a gap', () => {
     const t = transitions([{ ...lag(1), initial: 0 }, { ...lag(2), initial: 0 }]), width = 3;
     for (let i = 0; i < t.count; i++) {
       if (t.actions[i] <= 20) continue; // a run's first two rows take the stated initial value

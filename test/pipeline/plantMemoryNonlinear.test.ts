@@ -7,7 +7,9 @@
  * so the earlier rows "explain" it. plantMemoryFinding.ts says such a plant "could reach the caution,
  * which then says to look, not that J is wrong"; here it reaches serious (59 %), which tells the user J
  * and the cross-checks may be off together, switches off the model rollouts and the closed form, and
- * names no candidate for a trial — on a plant with no memory at all. Fails today; see the review report.
+ * names no candidate for a trial — on a plant with no memory at all. It did on the plant model's cubic base
+ * (62–63 %); the base now goes up to two degrees higher (plantMemoryCheck.ts memoryBaseDegree), where a
+ * richer function of the present row takes the misfit (0.6 %).
  */
 import { describe, expect, it } from 'vitest';
 import { plantMemoryAssessment } from '../../src/pipeline/plantMemoryCheck';

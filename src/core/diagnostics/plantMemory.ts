@@ -6,8 +6,8 @@
  * Identification: Theory for the User", 2nd ed., 1999, §16.6: residuals of a correct model are
  * uncorrelated with past inputs and outputs), done as a nested least-squares regression:
  *
- *   base:  s'_j − s_j  on  φ_k(s_t, a_t)                       (the plant model's own monomials,
- *                                                                offPolicy/polynomialDynamicsModel.ts)
+ *   base:  s'_j − s_j  on  φ_k(s_t, a_t)                       (monomials of the standardised (s, a);
+ *                                                                the degree is the host's, pipeline/plantMemoryCheck.ts)
  *   full:  the same  +  s_{t−l}, a_{t−l},  l = 1..L             (earlier rows of the same run)
  *
  * with residual sums of squares RSS₀ ≥ RSS₁. Reported per next-state component j: the share of the
