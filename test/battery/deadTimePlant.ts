@@ -17,6 +17,7 @@ import { closedFormPolicyCost, lqClosedForm, rewardFromCost, type LinearQuadrati
 import { createGaussianPolicy, type GaussianPolicySpec } from '../../src/core/policy';
 import type { TransitionSet } from '../../src/core/transitions';
 import { burnInStart, logEpisodes, type PlantDynamics } from './episodeLog';
+import { projectSchema, type ProjectDocument } from '../../src/project/schema';
 
 const A = [0.9, 0.08, 0.15, 0.75], B = [0, 0.4], XSP = [60, 45], USP = 35;
 const Q = [1, 0.2], R = 0.05, NOISE_STD = [0.15, 0.1];
@@ -109,4 +110,15 @@ export function augmentedCandidate(delay: number, candidate: (typeof DEAD_TIME_C
 /** The candidate as the product sees it: a policy on the logged (vessel, jacket) state. */
 export function loggedCandidate(candidate: (typeof DEAD_TIME_CANDIDATES)[number]): GaussianPolicySpec {
   return feedback([...candidate.gain], candidate.std, 0);
+}
+
+/** A project on the logged vessel (its two temperatures and the valve) with one candidate, linear degree 2: for pipeline tests. */
+export function deadTimeProject(candidate: (typeof DEAD_TIME_CANDIDATES)[number] = DEAD_TIME_CANDIDATES[1]): ProjectDocument {
+  const { offset, gain, std } = loggedCandidate(candidate);
+  return projectSchema.parse({
+    format: 'setpoint-critic-project', version: 1, name: 'dead time', data: { path: 'none.csv' },
+    columns: { states: [{ column: 'vessel_temp_c' }, { column: 'jacket_temp_c' }], actions: [{ column: 'steam_valve_pct' }], reward: { kind: 'column', column: 'r', sense: 'reward' } },
+    discount: DEAD_TIME_DISCOUNT, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } },
+    candidates: [{ name: candidate.name, offset, gain, std }],
+  });
 }

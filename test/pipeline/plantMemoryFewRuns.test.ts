@@ -4,22 +4,14 @@
  * while the command line and the app still print each candidate's J; the plant-memory finding must not
  * be lost with the rest. Data: the battery's dead-time vessel (test/battery/deadTimePlant.ts; invented),
  * a dead time of 3 samples (serious on 100 runs, plantMemoryGate.test.ts), here marked as one run.
- * Fails today: the failure names only the run count.
  */
 import { describe, expect, it } from 'vitest';
 import { assessProject } from '../../src/pipeline/assessProject';
-import { projectSchema } from '../../src/project/schema';
-import { DEAD_TIME_CANDIDATES, DEAD_TIME_DISCOUNT, deadTimeLog, loggedCandidate } from '../battery/deadTimePlant';
+import { deadTimeLog, deadTimeProject } from '../battery/deadTimePlant';
 
 describe('plant memory on a log of one run', () => {
   it('is reported even where the assessment cannot resample runs', async () => {
-    const { offset, gain, std } = loggedCandidate(DEAD_TIME_CANDIDATES[1]);
-    const project = projectSchema.parse({
-      format: 'setpoint-critic-project', version: 1, name: 'dead time', data: { path: 'none.csv' },
-      columns: { states: [{ column: 'vessel_temp_c' }, { column: 'jacket_temp_c' }], actions: [{ column: 'steam_valve_pct' }], reward: { kind: 'column', column: 'r', sense: 'reward' } },
-      discount: DEAD_TIME_DISCOUNT, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } },
-      candidates: [{ name: 'softer', offset, gain, std }],
-    });
+    const project = deadTimeProject();
     const logged = deadTimeLog(3, 20, 7).logged;
     // one run (the 20 simulated runs end to end; the check's chain rule skips the joins)
     const dataset = { ...logged, episode: new Int32Array(logged.count), episodeCount: 1, startStates: logged.startStates.slice(0, logged.stateDim), startEpisode: Int32Array.of(0) };

@@ -13,18 +13,10 @@ import { describe, expect, it } from 'vitest';
 import { assessProject } from '../../src/pipeline/assessProject';
 import type { Assessment } from '../../src/pipeline/assessment';
 import { MODEL_CHECKS_REASON } from '../../src/pipeline/plantMemoryCheck';
-import { projectSchema } from '../../src/project/schema';
-import { DEAD_TIME_CANDIDATES, DEAD_TIME_DISCOUNT, deadTimeLog, loggedCandidate } from '../battery/deadTimePlant';
+import { deadTimeLog, deadTimeProject } from '../battery/deadTimePlant';
 
 async function assessed(delay: number): Promise<Assessment> {
-  const { offset, gain, std } = loggedCandidate(DEAD_TIME_CANDIDATES[1]);
-  const project = projectSchema.parse({
-    format: 'setpoint-critic-project', version: 1, name: 'dead time', data: { path: 'none.csv' },
-    columns: { states: [{ column: 'vessel_temp_c' }, { column: 'jacket_temp_c' }], actions: [{ column: 'steam_valve_pct' }], reward: { kind: 'column', column: 'r', sense: 'reward' } },
-    discount: DEAD_TIME_DISCOUNT, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } },
-    candidates: [{ name: 'softer', offset, gain, std }],
-  });
-  const result = await assessProject({ project, dataset: deadTimeLog(delay, 100, 7).logged, settings: { resamples: 40, level: 0.9, seed: 2, sensitivity: false } });
+  const result = await assessProject({ project: deadTimeProject(), dataset: deadTimeLog(delay, 100, 7).logged, settings: { resamples: 40, level: 0.9, seed: 2, sensitivity: false } });
   if (!result.ok) throw new Error(result.problems.map((p) => p.message).join('\n'));
   return result.value;
 }
