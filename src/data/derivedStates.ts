@@ -37,7 +37,7 @@
  * column (its first-order lag, difference, or an error built from it) would make the state at t depend on a_t,
  * the policy's input on its own output; the project check refuses it (derivedStateConsistency.ts).
  */
-import type { DerivedStateSpec } from '../project/schema';
+import { previousSteps, type DerivedStateSpec } from '../project/schema';
 
 export interface DerivedInputs {
   readonly kept: Uint8Array; // records
@@ -77,8 +77,8 @@ export function computeDerivedStates(definitions: readonly DerivedStateSpec[], i
   for (const d of definitions) {
     const rowsBack = (d.kind === 'previous' || d.kind === 'difference') && d.initial === undefined && inputs.stretchOf;
     const along = rowsBack ? { ...inputs, episodeOf: inputs.stretchOf! } : inputs;
-    values.set(d.name, d.kind === 'previous' ? laggedColumn(inputs.column(d.source), d.initial, d.steps ?? 1, along) : derivedColumn(d, along));
-    if (d.kind === 'previous' && d.initial === undefined) leadingRowsUndefined.set(d.name, d.steps ?? 1);
+    values.set(d.name, d.kind === 'previous' ? laggedColumn(inputs.column(d.source), d.initial, previousSteps(d), along) : derivedColumn(d, along));
+    if (d.kind === 'previous' && d.initial === undefined) leadingRowsUndefined.set(d.name, previousSteps(d));
     if (d.kind === 'difference' && d.initial === undefined) leadingRowsUndefined.set(d.name, 1);
   }
   return { values, leadingRowsUndefined };

@@ -7,7 +7,7 @@
  * Stages: decode → dialect → header and column plan → one streaming pass over the rows →
  * timestamps and rewards → bad rows (stop, or exclude and list) → episodes → transitions → summary.
  */
-import type { ColumnRoles, CsvSettings } from '../project/schema';
+import { previousSteps, type ColumnRoles, type CsvSettings } from '../project/schema';
 import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
 import type { TransitionSet } from '../core/transitions';
@@ -169,7 +169,7 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const { values, leadingRowsUndefined } = computeDerivedStates(used, {
     kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds, stretchOf,
   });
-  const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${d.kind === 'previous' && (d.steps ?? 1) > 1 ? `value ${d.steps} rows back` : DERIVED_WORDS[d.kind]})`).join(', ')}.`];
+  const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${d.kind === 'previous' && previousSteps(d) > 1 ? `value ${previousSteps(d)} rows back` : DERIVED_WORDS[d.kind]})`).join(', ')}.`];
   if (leadingRowsUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
   const rows = Math.max(...leadingRowsUndefined.values());
   const { kept, removed } = withoutFirstRows(inputs.kept, stretchOf, rows);

@@ -4,7 +4,7 @@
  * is the derived error integral of the same measurement and setpoint, a rate limit names the
  * derived previous value of its own action column, limits one per action.
  */
-import type { CandidateSpec, DerivedStateSpec, ProjectDocument } from './schema';
+import { previousSteps, type CandidateSpec, type DerivedStateSpec, type ProjectDocument } from './schema';
 
 type Feedback = {
   measurement: string; setpoint: number | string; proportionalGain: number;
@@ -116,7 +116,7 @@ function checkRateLimit(c: CandidateSpec, ctx: Context): void {
     }
     if (!checkState(previous, where, ctx)) return;
     const d = ctx.derived.find((x) => x.name === previous);
-    if (!d || d.kind !== 'previous' || d.source !== ctx.actionNames[j] || (d.steps ?? 1) !== 1) {
+    if (!d || d.kind !== 'previous' || d.source !== ctx.actionNames[j] || previousSteps(d) !== 1) {
       ctx.add(where, `"${previous}" is not the previous value of ${ctx.actionNames[j]}; choose the state that holds ${ctx.actionNames[j]} one sample earlier as the previous-action state`);
     }
   });

@@ -6,7 +6,7 @@
  * the values 1 … k − 1 rows back of the same source among the states: it is refused without them.
  * Why the others are Markov under a candidate: src/data/derivedStates.ts.
  */
-import type { DerivedStateSpec, ProjectDocument } from './schema';
+import { previousSteps, type DerivedStateSpec, type ProjectDocument } from './schema';
 
 export function checkDerivedStates(doc: ProjectDocument, add: (path: string, message: string) => void): void {
   const derived = doc.columns.derived ?? [];
@@ -44,9 +44,9 @@ export function checkDerivedStates(doc: ProjectDocument, add: (path: string, mes
  */
 function checkLagChains(derived: readonly DerivedStateSpec[], states: Set<string>, add: (path: string, message: string) => void): void {
   derived.forEach((d, i) => {
-    const k = d.kind === 'previous' ? d.steps ?? 1 : 1;
+    const k = d.kind === 'previous' ? previousSteps(d) : 1;
     if (d.kind !== 'previous' || k === 1 || !states.has(d.name)) return;
-    const held = (j: number) => derived.some((x) => x.kind === 'previous' && x.source === d.source && (x.steps ?? 1) === j && states.has(x.name));
+    const held = (j: number) => derived.some((x) => x.kind === 'previous' && x.source === d.source && previousSteps(x) === j && states.has(x.name));
     const missing = Array.from({ length: k - 1 }, (_, j) => j + 1).filter((j) => !held(j));
     if (missing.length === 0) return;
     const rows = missing.map(String).join(', ');

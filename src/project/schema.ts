@@ -99,6 +99,11 @@ export const dataSourceSchema = strictObject({
  */
 const derivedName = columnName;
 const derivedUnit = z.string().default('');
+/** How many rows back a "previous" derived state reads: its `steps`, 1 when it gives none (the one place that default lives). */
+export function previousSteps(d: { readonly steps?: number }): number {
+  return d.steps ?? 1;
+}
+
 export const derivedStateSchema = z.discriminatedUnion('kind', [
   /** I_t = initial + Σ_{k<t} (setpoint − measurement)_k·Δt_k from the episode start, in measurement unit·s. */
   strictObject({

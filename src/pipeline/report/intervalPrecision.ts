@@ -8,13 +8,8 @@
  * decimal place comes from figures/parts/tickFormat.ts (intervalDecimals), which the figures' labels use.
  * Without a usable interval (none, zero width, very large or very small ends) the plain number style.
  */
-import { intervalDecimals } from '../../figures/parts/tickFormat';
+import { decimalsAt, intervalDecimals } from '../../figures/parts/tickFormat';
 import { formatNumber } from './htmlText';
-
-/** Decimal places at which `scale` (> 0) shows `significant` digits: 0 to 10, none below the units. */
-function decimalsFor(scale: number, significant: number): number {
-  return Math.min(10, Math.max(0, significant - 1 - Math.floor(Math.log10(scale))));
-}
 
 function fixed(x: number, decimals: number): string {
   return x.toFixed(decimals).replace(/^-/, '\u2212');
@@ -37,6 +32,6 @@ export function valueAtPrecision(value: number | null | undefined, iv: readonly 
 export function valueWithError(value: number | null | undefined, error: number | null | undefined): { value: string; error: string } {
   if (error === null || error === undefined || !(error > 0) || !Number.isFinite(error) || value === null || value === undefined
     || !Number.isFinite(value) || Math.abs(value) >= 1e6 || 1 - Math.floor(Math.log10(error)) > 10) return { value: formatNumber(value, 4), error: formatNumber(error, 2) };
-  const d = decimalsFor(error, 2); // at most 10 here, so the error keeps its two digits
+  const d = decimalsAt(error, 2); // at most 10 here, so the error keeps its two digits
   return { value: fixed(value, d), error: fixed(error, d) };
 }

@@ -86,6 +86,10 @@ export function estimateText(value: number, error: number | null): { value: stri
  * precision for numbers read together, such as a value and its error or an interval's two ends.
  */
 export function fixedAtPrecisionOf(scale: number, significant: number): (x: number) => string {
-  const decimals = decimalsAt(scale, significant);
+  return fixedToDecimals(decimalsAt(scale, significant));
+}
+
+/** A formatter writing numbers to a given decimal place, with a true minus sign. */
+export function fixedToDecimals(decimals: number): (x: number) => string {
   return (x) => x.toFixed(decimals).replace(/^-/, '−');
 }

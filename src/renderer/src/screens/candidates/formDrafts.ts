@@ -4,7 +4,7 @@
  * candidate's form while keeping its name, description, dither and limits, and the derived states
  * a PI loop or a rate limit needs (found in `columns.derived`, never created here).
  */
-import type { CandidateForm, CandidateSpec, DerivedStateSpec, ProjectDocument } from '../../../../project/schema';
+import { previousSteps, type CandidateForm, type CandidateSpec, type DerivedStateSpec, type ProjectDocument } from '../../../../project/schema';
 import type { DataImport } from '../../../../shared/workerMessages';
 import { roundSignificant } from './candidateDrafts';
 
@@ -42,7 +42,7 @@ export function errorIntegralsFor(doc: ProjectDocument, measurement: string, set
 /** The derived previous value (one row back) of an action column among the state columns, or null. */
 export function previousActionState(doc: ProjectDocument, actionColumn: string): string | null {
   const states = new Set(doc.columns.states.map((s) => s.column));
-  return derivedStates(doc).find((d) => d.kind === 'previous' && (d.steps ?? 1) === 1 && d.source === actionColumn && states.has(d.name))?.name ?? null;
+  return derivedStates(doc).find((d) => d.kind === 'previous' && previousSteps(d) === 1 && d.source === actionColumn && states.has(d.name))?.name ?? null;
 }
 
 /** A fixed setpoint to start from for a measurement: its error integral's constant setpoint, or 0. */

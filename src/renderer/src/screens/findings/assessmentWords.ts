@@ -6,7 +6,8 @@
 import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
 import type { AssessRunProgress } from '../../../../shared/workerMessages';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../../../core/diagnostics/severity';
-import { fixedAtPrecisionOf, formatNumber } from '../../format/numberFormat';
+import { intervalDecimals } from '../../../../figures/parts/tickFormat';
+import { fixedToDecimals, formatNumber } from '../../format/numberFormat';
 
 /**
  * "[6.58, 10.33]", or a dash without replicates: both ends to the same decimal place, the one that
@@ -16,11 +17,9 @@ import { fixedAtPrecisionOf, formatNumber } from '../../format/numberFormat';
  */
 export function intervalText(interval: [number, number] | null, significant = 4): string {
   if (!interval) return '—';
-  const [lo, hi] = interval, width = hi - lo, magnitude = Math.max(Math.abs(lo), Math.abs(hi));
-  if (!(width > 0) || !Number.isFinite(width) || magnitude >= 1e6 || magnitude < 1e-4) {
-    return `[${formatNumber(lo, significant)}, ${formatNumber(hi, significant)}]`;
-  }
-  const fixed = fixedAtPrecisionOf(width, 3);
+  const [lo, hi] = interval, decimals = intervalDecimals(interval);
+  if (decimals === null) return `[${formatNumber(lo, significant)}, ${formatNumber(hi, significant)}]`;
+  const fixed = fixedToDecimals(decimals);
   return `[${fixed(lo)}, ${fixed(hi)}]`;
 }
 
@@ -30,9 +29,9 @@ export function intervalText(interval: [number, number] | null, significant = 4)
  * §7.2.2, common practice); without a usable interval, `significant` digits.
  */
 export function valueAtIntervalPrecision(value: number, interval: [number, number] | null, significant = 4): string {
-  const width = interval ? interval[1] - interval[0] : NaN, magnitude = interval ? Math.max(Math.abs(interval[0]), Math.abs(interval[1])) : NaN;
-  if (!(width > 0) || !Number.isFinite(width) || magnitude >= 1e6 || magnitude < 1e-4 || !Number.isFinite(value)) return formatNumber(value, significant);
-  return fixedAtPrecisionOf(width, 3)(value);
+  const decimals = intervalDecimals(interval);
+  if (decimals === null || !Number.isFinite(value)) return formatNumber(value, significant);
+  return fixedToDecimals(decimals)(value);
 }
 
 /** "90 %" from 0.9. */
