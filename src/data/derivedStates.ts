@@ -16,8 +16,9 @@
  * Without a stated initial value, a previous value or difference is undefined on an episode's
  * first row (a previous value k rows back on its first k rows): those rows then only supply x for
  * later ones, and start no transition. "Rows" are the kept rows of the episode, as for k = 1; where a
- * row is excluded mid-run, a previous value or difference without an initial value restarts after it
- * as at a run's start (undefined on the next k rows), so it never reads a row further back than k.
+ * row is excluded mid-run, a previous value or difference restarts after it undefined on the next k
+ * rows, with or without an initial value (the initial value states what came before a run's first
+ * row, not what the excluded row held), so it never reads a row further back than k.
  *
  * Why they are Markov under a candidate. Each derived value at row t+1 is a fixed function of the
  * derived value at row t and the logged signals at rows t and t+1: I_{t+1} = I_t + e_t·Δt_t,
@@ -47,7 +48,7 @@ export interface DerivedInputs {
   readonly timestampsSeconds?: Float64Array; // records
   /**
    * The episodes cut after every row excluded mid-run as well (stretchesOf): a value a whole number of
-   * rows back without an initial value restarts there, undefined, rather than reach past the gap.
+   * rows back restarts there, undefined, rather than reach past the gap.
    */
   readonly stretchOf?: Int32Array; // records
 }
@@ -70,34 +71,50 @@ export interface DerivedColumns {
   readonly values: Map<string, Float64Array>;
   /** Each declaration whose first rows per episode are undefined (no initial value), with how many. */
   readonly leadingRowsUndefined: Map<string, number>;
+  /** Each declaration a whole number of rows back, with how many rows it is undefined on after a row excluded mid-run. */
+  readonly rowsUndefinedAfterGap: Map<string, number>;
 }
 
 export function computeDerivedStates(definitions: readonly DerivedStateSpec[], inputs: DerivedInputs): DerivedColumns {
-  const values = new Map<string, Float64Array>(), leadingRowsUndefined = new Map<string, number>();
+  const values = new Map<string, Float64Array>(), leadingRowsUndefined = new Map<string, number>(), rowsUndefinedAfterGap = new Map<string, number>();
   for (const d of definitions) {
-    const rowsBack = (d.kind === 'previous' || d.kind === 'difference') && d.initial === undefined && inputs.stretchOf;
-    const along = rowsBack ? { ...inputs, episodeOf: inputs.stretchOf! } : inputs;
-    values.set(d.name, d.kind === 'previous' ? laggedColumn(inputs.column(d.source), d.initial, previousSteps(d), along) : derivedColumn(d, along));
-    if (d.kind === 'previous' && d.initial === undefined) leadingRowsUndefined.set(d.name, previousSteps(d));
-    if (d.kind === 'difference' && d.initial === undefined) leadingRowsUndefined.set(d.name, 1);
+    const rowsBack = d.kind === 'previous' ? previousSteps(d) : d.kind === 'difference' ? 1 : 0;
+    // a value rows back goes along the stretches between excluded rows; its initial value only at a run's own start
+    const along = rowsBack > 0 && inputs.stretchOf ? { ...inputs, episodeOf: inputs.stretchOf, runOf: inputs.episodeOf } : inputs;
+    values.set(d.name, d.kind === 'previous' ? laggedColumn(inputs.column(d.source), d.initial, rowsBack, along) : derivedColumn(d, along));
+    if (rowsBack > 0 && d.initial === undefined) leadingRowsUndefined.set(d.name, rowsBack);
+    if (rowsBack > 0) rowsUndefinedAfterGap.set(d.name, rowsBack);
   }
-  return { values, leadingRowsUndefined };
+  return { values, leadingRowsUndefined, rowsUndefinedAfterGap };
 }
 
-/** x k kept rows back within the episode, or `initial` (NaN without one) on its first k kept rows. */
-function laggedColumn(x: Float64Array, initial: number | undefined, k: number, inputs: DerivedInputs): Float64Array {
+/** Inputs walked along `episodeOf`, which may be the stretches of the runs (`runOf`) between excluded rows. */
+type AlongInputs = DerivedInputs & { readonly runOf?: Int32Array };
+
+/** True where kept record r begins its stretch as the first kept row of its run (not after an excluded row). */
+function opensRun(inputs: AlongInputs, previous: number, r: number): boolean {
+  return !inputs.runOf || previous < 0 || inputs.runOf[previous] !== inputs.runOf[r];
+}
+
+/**
+ * x k kept rows back within the stretch, or `initial` on a run's first k kept rows (NaN without one,
+ * and NaN on the first k rows after a row excluded mid-run).
+ */
+function laggedColumn(x: Float64Array, initial: number | undefined, k: number, inputs: AlongInputs): Float64Array {
   const { kept, episodeOf } = inputs, out = new Float64Array(kept.length).fill(NaN);
-  const recent: number[] = []; // the episode's last k kept rows, oldest first
-  let episode = -2;
+  const recent: number[] = []; // the stretch's last k kept rows, oldest first
+  let episode = -2, previous = -1, before = NaN;
   for (let r = 0; r < kept.length; r++) {
     if (!kept[r]) continue;
     if (episodeOf[r] !== episode) {
       recent.length = 0;
       episode = episodeOf[r];
+      before = opensRun(inputs, previous, r) ? (initial ?? NaN) : NaN;
     }
-    out[r] = recent.length === k ? x[recent[0]] : (initial ?? NaN);
+    out[r] = recent.length === k ? x[recent[0]] : before;
     recent.push(r);
     if (recent.length > k) recent.shift();
+    previous = r;
   }
   return out;
 }
@@ -106,7 +123,7 @@ function laggedColumn(x: Float64Array, initial: number | undefined, k: number, i
 type AlongRunSpec = Exclude<DerivedStateSpec, { kind: 'previous' }>;
 
 /** One declaration over all records, restarting at each episode's first kept row. */
-function derivedColumn(d: AlongRunSpec, inputs: DerivedInputs): Float64Array {
+function derivedColumn(d: AlongRunSpec, inputs: AlongInputs): Float64Array {
   const { kept, episodeOf } = inputs, n = kept.length;
   const out = new Float64Array(n).fill(NaN);
   const step = stepper(d, inputs);
@@ -114,7 +131,7 @@ function derivedColumn(d: AlongRunSpec, inputs: DerivedInputs): Float64Array {
   for (let r = 0; r < n; r++) {
     if (!kept[r]) continue;
     const first = previous < 0 || episodeOf[r] !== episodeOf[previous];
-    out[r] = first ? step.start(r) : step.next(previous, r, out[previous]);
+    out[r] = !first ? step.next(previous, r, out[previous]) : opensRun(inputs, previous, r) ? step.start(r) : NaN;
     previous = r;
   }
   return out;
@@ -155,22 +172,26 @@ function stepper(d: AlongRunSpec, inputs: DerivedInputs): Stepper {
 }
 
 /**
- * The kept mask with each episode's first `rows` kept rows removed (for declarations without an
- * initial value), and how many rows that removed.
+ * The kept mask with the rows where a value rows back is undefined removed: the first `atRunStart`
+ * kept rows of each run (declarations without an initial value) and the first `afterGap` kept rows of
+ * each stretch that begins after a row excluded mid-run; with how many each removed.
+ * Shapes: kept, stretchOf, runOf over records (stretchesOf(kept, runOf) gives stretchOf).
  */
-export function withoutFirstRows(kept: Uint8Array, episodeOf: Int32Array, rows = 1): { kept: Uint8Array; removed: number } {
-  const out = Uint8Array.from(kept);
-  let episode = -2, seen = 0, removed = 0;
+export function withoutUndefinedRows(kept: Uint8Array, stretchOf: Int32Array, runOf: Int32Array, atRunStart: number, afterGap: number): { kept: Uint8Array; atStart: number; afterGap: number } {
+  const out = Uint8Array.from(kept), removed = { atStart: 0, afterGap: 0 };
+  let stretch = -2, seen = 0, previous = -1, where: keyof typeof removed = 'atStart';
   for (let r = 0; r < kept.length; r++) {
     if (!kept[r]) continue;
-    if (episodeOf[r] !== episode) {
-      episode = episodeOf[r];
+    if (stretchOf[r] !== stretch) {
+      stretch = stretchOf[r];
       seen = 0;
+      where = previous < 0 || runOf[previous] !== runOf[r] ? 'atStart' : 'afterGap';
     }
-    if (seen++ < rows) {
+    if (seen++ < (where === 'atStart' ? atRunStart : afterGap)) {
       out[r] = 0;
-      removed++;
+      removed[where]++;
     }
+    previous = r;
   }
-  return { kept: out, removed };
+  return { kept: out, ...removed };
 }

@@ -21,7 +21,7 @@ import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
 import { rewardColumn } from './rewardColumn';
 import { assignEpisodes, medianStepSeconds, runsApart, type EpisodeAssignment, type EpisodeInputs } from './episodes';
-import { computeDerivedStates, stretchesOf, withoutFirstRows } from './derivedStates';
+import { computeDerivedStates, stretchesOf, withoutUndefinedRows } from './derivedStates';
 import { plural } from './reportFormat';
 import { buildTransitions } from './transitionBuilder';
 import { constantStateWarnings, summariseDataset, type DatasetSummary } from './datasetSummary';
@@ -166,15 +166,16 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const used = definitions.filter((d) => stateNames.has(d.name));
   if (used.length === 0) return { episodes, derivedValues: new Map<string, Float64Array>(), kept: inputs.kept, report: [] as string[] };
   const stretchOf = stretchesOf(inputs.kept, episodes.episodeOf); // a row excluded mid-run: no value reaches past it
-  const { values, leadingRowsUndefined } = computeDerivedStates(used, {
+  const { values, leadingRowsUndefined, rowsUndefinedAfterGap } = computeDerivedStates(used, {
     kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds, stretchOf,
   });
   const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${d.kind === 'previous' && previousSteps(d) > 1 ? `value ${previousSteps(d)} rows back` : DERIVED_WORDS[d.kind]})`).join(', ')}.`];
-  if (leadingRowsUndefined.size === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
-  const rows = Math.max(...leadingRowsUndefined.values());
-  const { kept, removed } = withoutFirstRows(inputs.kept, stretchOf, rows);
   const midRun = stretchOf.reduce((a, b) => Math.max(a, b), -1) + 1 - episodes.episodeCount; // stretches that begin after a row excluded mid-run
-  report.push(undefinedStartReport(leadingRowsUndefined, rows, removed) + (midRun > 0 ? ` The same holds after each of the ${midRun} places a row was excluded mid-run: no value reaches past it.` : ''));
+  const atStart = Math.max(0, ...leadingRowsUndefined.values()), afterGap = midRun > 0 ? Math.max(0, ...rowsUndefinedAfterGap.values()) : 0;
+  if (atStart === 0 && afterGap === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
+  const { kept, ...removed } = withoutUndefinedRows(inputs.kept, stretchOf, episodes.episodeOf, atStart, afterGap);
+  if (atStart > 0) report.push(undefinedStartReport(leadingRowsUndefined, atStart, removed.atStart));
+  if (afterGap > 0) report.push(undefinedAfterGapReport(rowsUndefinedAfterGap, midRun, afterGap, removed.afterGap));
   // The first row where every derived state is defined is the run's start: a run whose own first row
   // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
   const again = assignEpisodes(s.columns.episode, { ...inputs, kept, medianStepSeconds: undefined }); // other rows kept: the median is found again
@@ -195,6 +196,11 @@ function undefinedStartReport(undefinedRows: Map<string, number>, rows: number, 
   const names = [...undefinedRows.keys()].join(', '), has = undefinedRows.size === 1 ? 'has' : 'have';
   const first = rows === 1 ? 'the first row of each run only supplies the value before it' : `the first ${rows} rows of each run only supply the values before them`;
   return `${names} ${has} no initial value, so ${first}: ${plural(removed, 'row')} start no transition.`;
+}
+
+function undefinedAfterGapReport(rowsBack: Map<string, number>, places: number, rows: number, removed: number): string {
+  const names = [...rowsBack.keys()].join(', '), next = rows === 1 ? 'the next row' : `the next ${rows} rows`;
+  return `After each of the ${places} places a row was excluded mid-run, ${names} restart undefined on ${next} (no value reaches past it, and an initial value is for a run's first rows only): ${plural(removed, 'row')} start no transition.`;
 }
 
 const DERIVED_WORDS = { errorIntegral: 'error integral', filtered: 'first-order lag', previous: 'previous value', difference: 'difference' } as const;
