@@ -1,14 +1,17 @@
 /** The readable summary of an assessment for the terminal: intervals, comparison, cross-checks, warnings. */
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { plantMemorySentence } from '../pipeline/plantMemoryWords';
-import { significant, textTable as table } from './textTable';
+import { textTable as table } from './textTable';
+import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
 
-const number = (v: number | null): string => significant(v, 5);
-const interval = (iv: [number, number] | null): string => (iv ? `[${number(iv[0])}, ${number(iv[1])}]` : '—');
 const percent = (share: number | null): string => (share === null ? '—' : `${(100 * share).toFixed(1)} %`);
+/** A value at the precision of the interval it is read with. */
+const inInterval = (value: number | null, iv: [number, number] | null): string => `${atDecimals(value, rowDecimals(iv))} ${interval(iv)}`;
 
+/** A row's J and s.e. at the decimal place of its percentile interval (else of its s.e.); each interval at its own. */
 function estimateRow(name: string, e: IntervalEstimate): string[] {
-  return [name, number(e.value), number(e.standardError), interval(e.percentile), interval(e.basic)];
+  const d = rowDecimals(e.percentile, e.standardError);
+  return [name, atDecimals(e.value, d), atDecimals(e.standardError, d), interval(e.percentile), interval(e.basic)];
 }
 
 const settledWord = (settled: boolean | null): string => (settled === null ? 'one class' : settled ? 'settled' : 'NOT SETTLED');
@@ -17,22 +20,22 @@ export function formatAssessment(a: Assessment): string {
   const level = `${Math.round(100 * a.settings.level)} %`;
   const rows = [['policy', 'J', 'bootstrap s.e.', `${level} percentile`, `${level} basic`, 'range to report', 'function classes', 'cross-checks', 'occupancy shift']];
   for (const c of a.candidates) {
-    rows.push([...estimateRow(c.name, c.policyValue), interval(c.reportedRange), settledWord(c.settled), c.confirmation.status, number(c.diagnostics.occupancyShift)]);
+    rows.push([...estimateRow(c.name, c.policyValue), interval(c.reportedRange), settledWord(c.settled), c.confirmation.status, ratioText(c.diagnostics.occupancyShift)]);
   }
   const pc = a.presentController;
-  if (pc) rows.push([...estimateRow(`${pc.name} [baseline]`, pc.policyValue), interval(pc.policyValue.percentile), '', pc.confirmation.status, number(pc.occupancyShift)]);
+  if (pc) rows.push([...estimateRow(`${pc.name} [baseline]`, pc.policyValue), interval(pc.policyValue.percentile), '', pc.confirmation.status, ratioText(pc.occupancyShift)]);
   rows.push([...estimateRow(pc ? 'logged return (check; cut short at time limits)' : 'logged return [baseline]', a.behaviour), '', '', '', '']);
   if (pc) rows.push([...estimateRow('logged return completed past time limits (check)', pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
-  for (const d of a.comparison.differences) diffs.push([`${d.a} − ${d.b}`, number(d.difference.value), interval(d.difference.percentile), percent(d.probabilityBetter)]);
+  for (const d of a.comparison.differences) diffs.push([`${d.a} − ${d.b}`, atDecimals(d.difference.value, rowDecimals(d.difference.percentile, d.difference.standardError)), interval(d.difference.percentile), percent(d.probabilityBetter)]);
   const named = [...a.candidates, ...(pc ? [{ ...pc, functionClasses: null }] : [])];
   const checks = named.flatMap((c) => [
     `  ${c.name}: ${c.confirmation.text}`,
-    ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? `${number(x.estimate.value)} ${interval(x.estimate.percentile)}` : '—'} — ${x.note}`),
+    ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? inInterval(x.estimate.value, x.estimate.percentile) : '—'} — ${x.note}`),
   ]);
   const classes = a.candidates.flatMap((c) => (c.functionClasses ? [
     `  ${c.name}: ${c.functionClasses.reason}`,
-    ...c.functionClasses.classes.map((k) => `    · ${k.label}: ${number(k.value)} ${interval(k.interval)}`),
+    ...c.functionClasses.classes.map((k) => `    · ${k.label}: ${inInterval(k.value, k.interval)}`),
   ] : []));
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
   const memory = plantMemorySentence(a.plantMemory);

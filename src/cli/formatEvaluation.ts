@@ -2,8 +2,13 @@
 import { truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
 import { significant, textTable as table } from './textTable';
+import { intervalDecimals } from '../figures/parts/tickFormat';
+import { atDecimals, errorDecimals, intervalText } from './uncertainNumberText';
 
-const number = (v: number | null): string => significant(v, 6);
+/** A fitted parameter (offset, dither): four significant digits. */
+const number = (v: number | null): string => significant(v, 4);
+/** A value and its standard error, both at the error's two significant digits. */
+const withError = (value: number | null, error: number | null): [string, string] => [atDecimals(value, errorDecimals(error)), atDecimals(error, errorDecimals(error))];
 
 const STATUS_WORDS = { converged: 'converged', maxIterations: 'NOT CONVERGED', diverged: 'DIVERGED' } as const;
 
@@ -21,15 +26,17 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
   // A fit that did not meet its convergence rule has no value to report: the table says so and its message says why.
   for (const p of e.policies) {
     const settled = p.status === 'converged';
-    rows.push([p.name, settled ? number(p.policyValue) : 'not settled', settled ? number(p.standardError) : '', number(p.fixedPointValue), settled ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
+    const [value, error] = withError(p.policyValue, p.standardError), d = errorDecimals(p.standardError);
+    rows.push([p.name, settled ? value : 'not settled', settled ? error : '', atDecimals(p.fixedPointValue, d), settled ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
   }
   const pc = e.presentController, truncation = truncationSentence(e.behaviour);
   if (pc) {
     const x = pc.estimate, settled = x.status === 'converged';
-    rows.push([`${x.name} [baseline]`, settled ? number(x.policyValue) : 'not settled', settled ? number(x.standardError) : '', number(x.fixedPointValue), settled ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
-    rows.push(['logged return, completed past time limits (check)', number(pc.completedReturn.value), number(pc.completedReturn.standardError), '', `${e.behaviour.episodes} runs`]);
+    const [value, error] = withError(x.policyValue, x.standardError), d = errorDecimals(x.standardError);
+    rows.push([`${x.name} [baseline]`, settled ? value : 'not settled', settled ? error : '', atDecimals(x.fixedPointValue, d), settled ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
+    rows.push(['logged return, completed past time limits (check)', ...withError(pc.completedReturn.value, pc.completedReturn.standardError), '', `${e.behaviour.episodes} runs`]);
   }
-  rows.push([pc ? 'logged return (check; cut short at time limits)' : 'logged return [baseline]', number(e.behaviour.value), number(e.behaviour.standardError), '', `${e.behaviour.episodes} runs`]);
+  rows.push([pc ? 'logged return (check; cut short at time limits)' : 'logged return [baseline]', ...withError(e.behaviour.value, e.behaviour.standardError), '', `${e.behaviour.episodes} runs`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
     `Values are the ${sense}, discount ${s.discount}.`,
@@ -51,9 +58,9 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
 }
 
 function networkLine(name: string, n: NonNullable<Evaluation['policies'][number]['network']>): string {
-  const iv = (i: [number, number]) => `[${number(i[0])}, ${number(i[1])}]`, level = `${Math.round(100 * n.level)} %`;
-  return `${name}: network J ${level} interval ${iv(n.interval)} (${n.covers}); degree-2 linear J ${number(n.linear.value)} ${iv(n.linear.interval)}; ` +
-    `network − linear ${number(n.difference.value)} ${iv(n.difference.interval)}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
+  const level = `${Math.round(100 * n.level)} %`, inInterval = (v: number, i: [number, number]) => `${atDecimals(v, intervalDecimals(i))} ${intervalText(i)}`;
+  return `${name}: network J ${level} interval ${intervalText(n.interval)} (${n.covers}); degree-2 linear J ${inInterval(n.linear.value, n.linear.interval)}; ` +
+    `network − linear ${inInterval(n.difference.value, n.difference.interval)}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
 }
 
 /** The cautions, printed last so they are the final thing a reader sees. */
