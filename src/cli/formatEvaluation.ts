@@ -23,17 +23,18 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
   const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';
   const s = e.settings;
   const rows: string[][] = [['policy', 'value J', '± s.e.', 'fixed point', 'fit']];
-  // A fit that did not meet its convergence rule has no value to report: the table says so and its message says why.
+  // A fit that did not meet its convergence rule has no value to report: the table says so and its message says why
+  // ("no value", not "not settled", which names the function-class verdict of the assessment).
   for (const p of e.policies) {
-    const settled = p.status === 'converged';
+    const converged = p.status === 'converged';
     const [value, error] = withError(p.policyValue, p.standardError), d = errorDecimals(p.standardError);
-    rows.push([p.name, settled ? value : 'not settled', settled ? error : '', atDecimals(p.fixedPointValue, d), settled ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
+    rows.push([p.name, converged ? value : 'no value', converged ? error : '', atDecimals(p.fixedPointValue, d), converged ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
   }
   const pc = e.presentController, truncation = truncationSentence(e.behaviour);
   if (pc) {
-    const x = pc.estimate, settled = x.status === 'converged';
+    const x = pc.estimate, converged = x.status === 'converged';
     const [value, error] = withError(x.policyValue, x.standardError), d = errorDecimals(x.standardError);
-    rows.push([`${x.name} [baseline]`, settled ? value : 'not settled', settled ? error : '', atDecimals(x.fixedPointValue, d), settled ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
+    rows.push([`${x.name} [baseline]`, converged ? value : 'no value', converged ? error : '', atDecimals(x.fixedPointValue, d), converged ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
     rows.push(['logged return, completed past time limits (check)', ...withError(pc.completedReturn.value, pc.completedReturn.standardError), '', `${e.behaviour.episodes} runs`]);
   }
   rows.push([pc ? 'logged return (check; cut short at time limits)' : 'logged return [baseline]', ...withError(e.behaviour.value, e.behaviour.standardError), '', `${e.behaviour.episodes} runs`]);
