@@ -19,7 +19,7 @@
  *
  * Shapes: ds states, m actions, d = C(ds+m+k, k) regressors; weights d×ds row-major.
  */
-import { episodeMoments, resampleMoments, type EpisodeMoments, type RegressionMoments } from '../bootstrap/episodeMoments';
+import { episodeMoments, resampleMoments, resampleMomentsBlock, type EpisodeMoments, type RegressionMoments } from '../bootstrap/episodeMoments';
 import type { EpisodeIndex } from '../bootstrap/episodeTransitions';
 import type { FeatureMap } from '../features/featureMap';
 import { createPolynomialFeatures, polynomialFeatureSpec } from '../features/polynomialFeatures';
@@ -101,9 +101,30 @@ export function polynomialModelRegressions(data: ModelData, index: EpisodeIndex,
 
 /** Fit on the full data (multiplicities omitted) or on a bootstrap resample. */
 export function fitPolynomialModel(regressions: PolynomialModelRegressions, multiplicities?: ArrayLike<number>): PolynomialModelFit {
+  return fitFromMoments(regressions, resampleMoments(regressions.dynamics, multiplicities), resampleMoments(regressions.reward, multiplicities));
+}
+
+/**
+ * fitPolynomialModel on each of several resamples, or the ModelFitError of one that cannot be
+ * fitted: their moments are summed in one read of the episodes' (resampleMomentsBlock), the same
+ * sums as one resample at a time to the last bit, so the same fits.
+ */
+export function fitPolynomialModels(regressions: PolynomialModelRegressions, multiplicities: readonly ArrayLike<number>[]): (PolynomialModelFit | ModelFitError)[] {
+  const dynamics = resampleMomentsBlock(regressions.dynamics, multiplicities), reward = resampleMomentsBlock(regressions.reward, multiplicities);
+  return multiplicities.map((_, b) => {
+    try {
+      return fitFromMoments(regressions, dynamics[b], reward[b]);
+    } catch (error) {
+      if (error instanceof ModelFitError) return error;
+      throw error;
+    }
+  });
+}
+
+function fitFromMoments(regressions: PolynomialModelRegressions, dynamics: RegressionMoments, reward: RegressionMoments): PolynomialModelFit {
   const ds = regressions.stateDim;
-  const dyn = ridgeLeastSquares(resampleMoments(regressions.dynamics, multiplicities), 'the next states');
-  const rew = ridgeLeastSquares(resampleMoments(regressions.reward, multiplicities), 'the reward');
+  const dyn = ridgeLeastSquares(dynamics, 'the next states');
+  const rew = ridgeLeastSquares(reward, 'the reward');
   const noiseFactor = semidefiniteFactor(dyn.residualCovariance, ds);
   return {
     regressions, dynamicsWeights: dyn.coefficients, noiseFactor, rewardWeights: rew.coefficients,

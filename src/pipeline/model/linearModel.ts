@@ -20,6 +20,7 @@ import { unitMultiplicities } from '../../core/bootstrap/episodeMultiplicities';
 import { linearisedReplicatesFromSums, linearisedReplicatesSteps } from '../../core/bootstrap/linearisedReplicate';
 import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, type PassSteps } from '../../core/fqe/cancellation';
 import { averageRoute } from '../../core/features/policyFeatureAverage';
+import { leadsPolynomial } from '../../core/features/polynomialFeatures';
 import { startStateFeatures } from '../../core/features/policyFeatures';
 import { bellmanStatisticsSteps, bellmanSumsStride, blockRowsFor, leadingStatistics, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
 import { solveLinearFqe } from '../../core/fqe/linearFqeSolve';
@@ -132,7 +133,7 @@ function passRoute(plan: EvaluationPlan, d: number): 'exact' | 'episodes' | 'who
  */
 function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, enclosing: CandidateModel): PassResult | null {
   const outer = enclosing.linear, k = features.dim;
-  if (!outer || !leadsIn(features, outer.features) || blockRowsFor(k) !== blockRowsFor(outer.features.dim)) return null;
+  if (!outer || !leadsPolynomial(features, outer.features) || blockRowsFor(k) !== blockRowsFor(outer.features.dim)) return null;
   // The same route to E_{a~π} φ (closed-form moments serve degrees ≤ 2n − 1 only; the two routes agree to rounding, not to the bit).
   if (averageRoute(features, quadrature) !== averageRoute(outer.features, enclosing.quadrature)) return null;
   const route = passRoute(plan, k);
@@ -147,14 +148,6 @@ function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature
   const sums = leadingEpisodeSums(outer.resampling.sums, k), statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
   checkStatisticsFinite(statistics, plan.data, features, quadrature);
   return { statistics, sums, exact: true };
-}
-
-/** True when `inner` is a polynomial map of lower degree than `outer` on the same standardised inputs. */
-function leadsIn(inner: FeatureMap, outer: FeatureMap): boolean {
-  const a = inner.toSpec(), b = outer.toSpec();
-  if (a.kind !== 'polynomial' || b.kind !== 'polynomial' || a.degree > b.degree) return false;
-  const same = (x: number[], y: number[]) => x.length === y.length && x.every((v, i) => Object.is(v, y[i]));
-  return same(a.standardiser.mean, b.standardiser.mean) && same(a.standardiser.scale, b.standardiser.scale);
 }
 
 function fitIteration(p: { iteration: number; weightChange: number; bellmanResidual: number; policyValue: number }): FitIteration {
