@@ -1,6 +1,8 @@
 /**
  * The one-step model's rollouts share work that the straightforward route does again each time, and
  * must give its numbers to the last bit:
+ * - the dynamics' and the reward's per-episode moments from one pass (leadingEpisodeMoments), on a
+ *   log with no end state, against episodeMoments run for each regression alone;
  * - fitPolynomialModels (the moments of several resamples in one read of the episodes') against
  *   fitPolynomialModel on each resample alone;
  * - rollouts whose reward monomials are read off the dynamics' (they lead them), from recorded
@@ -11,6 +13,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultiplicities';
+import { episodeMoments } from '../../../src/core/bootstrap/episodeMoments';
 import { indexEpisodes } from '../../../src/core/bootstrap/episodeTransitions';
 import type { FeatureMap, FeatureMapSpec } from '../../../src/core/features/featureTypes';
 import { modelRolloutValue } from '../../../src/core/offPolicy/modelRollouts';
@@ -23,6 +26,28 @@ describe('the one-step model’s shared rollout work', () => {
   const log = pendulumLog(pendulumLogging, 40, 100, 2), index = indexEpisodes(log);
   const regressions = polynomialModelRegressions(log, index, { degree: 3, rewardDegree: 2 });
   const resamples = [0, 1, 2, 3, 4, 5].map((b) => episodeMultiplicities(index.episodes, 11, b));
+
+  it('forms the dynamics’ and the reward’s moments in one pass to the sums of a pass for each', () => {
+    // Runs of 700 rows span several chunks of the sums (CHUNK_ROWS = 256) and end inside one.
+    const long = pendulumLog(pendulumLogging, 4, 700, 3), longIndex = indexEpisodes(long), shared = polynomialModelRegressions(long, longIndex, { degree: 3, rewardDegree: 2 });
+    expect(long.terminal.every((t) => t === 0)).toBe(true); // the route of one pass is taken
+    const ds = 2, input = new Float64Array(3), { dynamicsFeatures, rewardFeatures } = shared;
+    const load = (i: number) => { input.set(long.states.subarray(2 * i, 2 * i + 2)); input[2] = long.actions[i]; };
+    const dynamics = episodeMoments(longIndex, dynamicsFeatures.dim, ds, (i, x, y) => {
+      load(i);
+      dynamicsFeatures.evaluate(input, 0, x, 0);
+      for (let c = 0; c < ds; c++) y[c] = long.nextStates[i * ds + c] - long.states[i * ds + c];
+      return true;
+    });
+    const reward = episodeMoments(longIndex, rewardFeatures.dim, 1, (i, x, y) => {
+      load(i);
+      rewardFeatures.evaluate(input, 0, x, 0);
+      y[0] = long.rewards[i];
+      return true;
+    });
+    expect(shared.dynamics).toEqual(dynamics);
+    expect(shared.reward).toEqual(reward);
+  });
 
   it('refits several resamples in one read to the same fits as one at a time', () => {
     const together = fitPolynomialModels(regressions, resamples);
