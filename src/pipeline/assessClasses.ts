@@ -19,7 +19,7 @@ import { TRANSITIONS_PER_FEATURE } from '../data/datasetChecks';
 import { replicator, type AssessmentContext, type ClassWork } from './assessCandidate';
 import { isEngineError } from './engineErrors';
 import type { CandidateModel, LinearFitSpec } from './model/candidateModel';
-import { buildLinearModelPaced } from './model/linearModel';
+import { buildLinearModelsPaced } from './model/linearModel';
 import { featureMapFor } from './plan/featureMapFor';
 
 export const COMPARED_DEGREES = [2, 3, 4] as const;
@@ -37,22 +37,24 @@ export async function classWorks(context: AssessmentContext, model: CandidateMod
   const own = a.kind === 'linear' && a.features.kind === 'polynomial' ? a.features.degree : null;
   const out: ClassWork[] = [], unconverged: UnconvergedClass[] = [];
   // Highest degree first: a higher degree's data pass (the project's own included) serves the lower
-  // degrees, whose monomials lead its own (linearModel.ts nestedStatistics).
-  const built: CandidateModel[] = [model];
-  for (const degree of [...COMPARED_DEGREES].reverse()) {
-    if (degree === own) continue;
-    throwIfCancelled(context.cancel);
-    const spec = classSpec(context, degree);
-    if (!spec) continue;
-    try {
-      const fitted = await buildLinearModelPaced(plan, model, { cancel: context.cancel }, spec, built);
-      built.push(fitted);
-      if (fitted.fit.status === 'converged') out.unshift({ label: polynomialClassLabel(degree), model: fitted, replicate: replicator(plan, fitted) });
-      else unconverged.unshift({ label: polynomialClassLabel(degree), why: STATUS_WORDS[fitted.fit.status] });
-    } catch (error) {
-      if (!isEngineError(error)) throw error; // a class that cannot be fitted is simply not compared
+  // degrees, whose monomials lead its own (linearModel.ts nestedStatistics), and their influence
+  // passes are one (buildLinearModelsPaced).
+  const classes = [...COMPARED_DEGREES].reverse().flatMap((degree) => {
+    const spec = degree === own ? null : classSpec(context, degree);
+    return spec ? [{ degree, spec }] : [];
+  });
+  throwIfCancelled(context.cancel);
+  const outcomes = await buildLinearModelsPaced(plan, model, { cancel: context.cancel }, classes.map((c) => c.spec), [model]);
+  outcomes.forEach((outcome, i) => {
+    const label = polynomialClassLabel(classes[i].degree);
+    if ('error' in outcome) {
+      if (!isEngineError(outcome.error)) throw outcome.error; // a class that cannot be fitted is simply not compared
+      return;
     }
-  }
+    const fitted = outcome.model;
+    if (fitted.fit.status === 'converged') out.unshift({ label, model: fitted, replicate: replicator(plan, fitted) });
+    else unconverged.unshift({ label, why: STATUS_WORDS[fitted.fit.status] });
+  });
   return { fitted: out, unconverged };
 }
 

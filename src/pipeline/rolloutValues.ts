@@ -22,9 +22,10 @@ import { endChanceData, fitEndChance, type EndChanceData, type EndChanceFit } fr
 import { ModelValueError } from '../core/offPolicy/modelBasedValue';
 import { modelRolloutValue, TAIL_WEIGHT, type RolloutSettings, type RolloutValue } from '../core/offPolicy/modelRollouts';
 import {
-  fitPolynomialModel, polynomialModelRegressions, type ModelData, type PolynomialModelFit, type PolynomialModelOptions, type PolynomialModelRegressions,
+  fitPolynomialModel, fitPolynomialModels, polynomialModelRegressions, type ModelData, type PolynomialModelFit, type PolynomialModelOptions, type PolynomialModelRegressions,
 } from '../core/offPolicy/polynomialDynamicsModel';
 import type { GaussianPolicy } from '../core/policy';
+import { recordedStreams } from '../core/recordedRandom';
 
 /** What the one-step model is formed from: the log's columns it reads, its episodes, its degrees. */
 export interface RolloutSource {
@@ -57,22 +58,16 @@ export type RolloutValues = { readonly full: RolloutValue; readonly resampled: r
 export function rolloutValues(job: RolloutJob, cancel?: CancellationCheck): RolloutValues[] {
   const model = fullModel(job.source);
   if (model instanceof ModelFitError) return job.policies.map(() => ({ reason: `no one-step model of the plant could be fitted (${model.message})` }));
-  const { regressions, fit: full, ends } = model, refits = new Map<number, ModelRefit | ModelFitError>();
-  const refit = (b: number, c: Uint32Array): ModelRefit => {
-    let fit = refits.get(b);
-    if (!fit) refits.set(b, (fit = refitOrError(regressions, ends, c)));
-    if (fit instanceof ModelFitError) throw fit;
-    return fit;
-  };
+  const { regressions, fit: full, ends } = model, refits = job.policies.length > 0 ? modelRefits(regressions, ends, job, cancel) : [];
+  const streams = recordedStreams(); // every policy and refit runs from the same streams (common random numbers)
   return job.policies.map((policy) => {
     try {
-      const value = modelRolloutValue(full, policy, job.discount, job.startStates, job.rollout, null, ends?.fit);
-      const c = new Uint32Array(job.episodes), resampled: number[] = [];
-      for (let b = 0; b < job.resamples; b++) {
+      const value = modelRolloutValue(full, policy, job.discount, job.startStates, job.rollout, null, ends?.fit, streams);
+      const resampled: number[] = [];
+      for (const again of refits) {
         throwIfCancelled(cancel);
-        episodeMultiplicities(job.episodes, job.seed, b, c);
-        const again = refit(b, c);
-        resampled.push(modelRolloutValue(again.fit, policy, job.discount, job.startStates, job.rollout, null, again.ends).value);
+        if (again instanceof ModelFitError) throw again;
+        resampled.push(modelRolloutValue(again.fit, policy, job.discount, job.startStates, job.rollout, null, again.ends, streams).value);
       }
       return { full: value, resampled };
     } catch (error) {
@@ -105,10 +100,28 @@ function fullModel(source: RolloutSource): { regressions: PolynomialModelRegress
   }
 }
 
-/** The model refitted on a resample, its end chance from the full data's (a few Newton steps). */
-function refitOrError(regressions: PolynomialModelRegressions, ends: EndChance | null, c: Uint32Array): ModelRefit | ModelFitError {
+/**
+ * The model refitted on each rollout resample (multiplicities drawn from (seed, b)), their moments
+ * summed four resamples to a read of the episodes' (fitPolynomialModels), each with its end chance
+ * from the full data's (a few Newton steps); a refit that fails gives its error, met by every policy
+ * that reaches it.
+ */
+function modelRefits(regressions: PolynomialModelRegressions, ends: EndChance | null, job: RolloutJob, cancel?: CancellationCheck): (ModelRefit | ModelFitError)[] {
+  const out: (ModelRefit | ModelFitError)[] = [];
+  for (let first = 0; first < job.resamples; first += REFITS_PER_READ) {
+    throwIfCancelled(cancel);
+    const block = Array.from({ length: Math.min(REFITS_PER_READ, job.resamples - first) }, (_, i) => episodeMultiplicities(job.episodes, job.seed, first + i, new Uint32Array(job.episodes)));
+    fitPolynomialModels(regressions, block).forEach((fit, i) => out.push(fit instanceof ModelFitError ? fit : withEnds(fit, ends, block[i])));
+  }
+  return out;
+}
+
+/** Resamples refitted per read of the episodes' moments: resampleMomentsBlock sums four at a time. */
+const REFITS_PER_READ = 4;
+
+function withEnds(fit: PolynomialModelFit, ends: EndChance | null, c: Uint32Array): ModelRefit | ModelFitError {
   try {
-    return { fit: fitPolynomialModel(regressions, c), ends: ends && fitEndChance(ends.data, c, ends.fit.weights) };
+    return { fit, ends: ends && fitEndChance(ends.data, c, ends.fit.weights) };
   } catch (error) {
     if (error instanceof ModelFitError) return error;
     throw error;

@@ -27,7 +27,7 @@ describe('the rollout model’s resample fits', () => {
     const context = { plan: run.value.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
     const { data, episodes } = run.value.plan, regressions = polynomialModelRegressions(data, episodes, rolloutModelOptions(data)), full = fitPolynomialModel(regressions);
     const policies = [...run.value.models, ...(run.value.presentController ? [run.value.presentController] : [])].map((m) => m.policy);
-    const job = rolloutJob(context, policies, { ...settings.value, resamples: 3, seed: 4 });
+    const job = rolloutJob(context, policies, { ...settings.value, resamples: 6, seed: 4 });
     const values = rolloutValues(job), crossed = rolloutValues(structuredClone(job));
     expect(values.length).toBe(policies.length);
     expect(crossed).toEqual(values);
@@ -35,7 +35,7 @@ describe('the rollout model’s resample fits', () => {
     values.forEach((v, k) => {
       if ('reason' in v) throw new Error(v.reason);
       expect(v.full).toEqual(modelRolloutValue(full, job.policies[k], job.discount, job.startStates, job.rollout));
-      for (const b of [0, 2]) {
+      for (const b of [0, 2, 5]) {
         const c = episodeMultiplicities(e, 4, b);
         expect(v.resampled[b]).toBe(modelRolloutValue(fitPolynomialModel(regressions, c), job.policies[k], job.discount, job.startStates, job.rollout).value);
       }

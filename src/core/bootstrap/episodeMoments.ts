@@ -25,7 +25,7 @@ export interface RegressionMoments {
 }
 
 /** Rows gathered per chunk before their products are summed (feature-major, so each sum runs over contiguous memory). */
-const CHUNK_ROWS = 256;
+export const CHUNK_ROWS = 256;
 
 /**
  * row(i, x, y) fills x (p) and y (q) for transition i and returns false to leave it out
@@ -57,7 +57,7 @@ export function episodeMoments(
 }
 
 /** The chunk's products added to episode totals at sums[o …]: XᵀX and YᵀY on and above the diagonal, XᵀY whole, and the count. */
-function addChunk(sums: Float64Array, o: number, cx: Float64Array, cy: Float64Array, p: number, q: number, size: number): void {
+export function addChunk(sums: Float64Array, o: number, cx: Float64Array, cy: Float64Array, p: number, q: number, size: number): void {
   const yy = o + p * p + p * q;
   for (let a = 0; a < p; a++) {
     const xa = a * CHUNK_ROWS;
@@ -69,7 +69,7 @@ function addChunk(sums: Float64Array, o: number, cx: Float64Array, cy: Float64Ar
 }
 
 /** start + Σ_t u[i+t]·v[j+t], added one product at a time in order. */
-function dotFrom(start: number, u: Float64Array, i: number, v: Float64Array, j: number, size: number): number {
+export function dotFrom(start: number, u: Float64Array, i: number, v: Float64Array, j: number, size: number): number {
   let s = start;
   for (let t = 0; t < size; t++) s += u[i + t] * v[j + t];
   return s;
@@ -80,7 +80,7 @@ function dotFrom(start: number, u: Float64Array, i: number, v: Float64Array, j: 
  * on and above their diagonals are summed (here and in the resample sums) and the rest copied:
  * the same numbers for about half the work.
  */
-function mirror(sums: Float64Array, o: number, p: number, q: number): void {
+export function mirror(sums: Float64Array, o: number, p: number, q: number): void {
   for (let a = 1; a < p; a++) for (let b = 0; b < a; b++) sums[o + a * p + b] = sums[o + b * p + a];
   const y = o + p * p + p * q;
   for (let a = 1; a < q; a++) for (let b = 0; b < a; b++) sums[y + a * q + b] = sums[y + b * q + a];

@@ -17,14 +17,14 @@
 import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
-import { runSteps, throwIfCancelled, type CancellationCheck, type PassSteps } from '../fqe/cancellation';
-import { createTransitionFeatureReader } from '../fqe/transitionFeatures';
+import { runSteps, type CancellationCheck, type PassSteps } from '../fqe/cancellation';
 import { ridgeGram } from '../fqe/ridgeSystem';
 import { dot, luFactor, luSolve, transpose } from '../linalg/dense';
 import type { TransitionSet } from '../transitions';
 import type { EpisodeBellmanSums } from './episodeBellmanSums';
 import { BootstrapError } from './episodeMultiplicities';
 import type { EpisodeIndex } from './episodeTransitions';
+import { nestedInfluenceSteps } from './nestedInfluencePass';
 
 export interface LinearisedReplicates {
   /** s_k per episode (reward units per transition). */
@@ -60,17 +60,14 @@ export function linearisedReplicates(input: LinearisationInput): LinearisedRepli
   return runSteps(linearisedReplicatesSteps(input));
 }
 
-/** Transitions read between two yields of the influence pass (as a block of the Bellman pass). */
-const ROWS_PER_STEP = 1024;
-
 /** What both routes to the influence values share: v = A⁻ᵀξ̄, the ridge's share per transition and j_k. */
-interface InfluenceSetup {
+export interface InfluenceSetup {
   readonly v: Float64Array; // d
   readonly ridgeTerm: number;
   readonly startValues: Float64Array;
 }
 
-function influenceSetup(input: LinearisationInput): InfluenceSetup {
+export function influenceSetup(input: LinearisationInput): InfluenceSetup {
   const { features, statistics, weights: w, discount } = input, d = features.dim;
   const starts = input.startFeatures.length / d, xiBar = new Float64Array(d), startValues = new Float64Array(starts);
   for (let s = 0; s < starts; s++) {
@@ -87,28 +84,9 @@ function influenceSetup(input: LinearisationInput): InfluenceSetup {
   return { v, ridgeTerm, startValues };
 }
 
-/** linearisedReplicates as a pass that yields after about every ROWS_PER_STEP transitions (cancellation.ts). */
+/** linearisedReplicates as a pass that yields now and then (cancellation.ts): the nested classes' pass with one class. */
 export function* linearisedReplicatesSteps(input: LinearisationInput): PassSteps<LinearisedReplicates> {
-  const { data, index, features, weights: w, discount } = input;
-  const { v, ridgeTerm, startValues } = influenceSetup(input);
-  const e = index.episodes, influence = new Float64Array(e), counts = new Float64Array(e);
-  const reader = createTransitionFeatureReader(data, features, input.quadrature);
-  let sinceStep = 0;
-  for (let k = 0; k < e; k++) {
-    throwIfCancelled(input.cancel);
-    if (sinceStep >= ROWS_PER_STEP) { sinceStep = 0; yield; }
-    sinceStep += index.offsets[k + 1] - index.offsets[k];
-    let s = 0;
-    for (let p = index.offsets[k]; p < index.offsets[k + 1]; p++) {
-      const i = index.order[p];
-      reader.read(i);
-      const delta = data.rewards[i] + discount * dot(reader.psi, w) - dot(reader.phi, w);
-      s += delta * dot(reader.phi, v) - ridgeTerm;
-    }
-    influence[k] = s;
-    counts[k] = index.offsets[k + 1] - index.offsets[k];
-  }
-  return { influence, counts, startValues, startsFollowEpisodes: input.startsFollowEpisodes, startEpisode: input.startEpisode };
+  return (yield* nestedInfluenceSteps([input], [influenceSetup(input)]))[0];
 }
 
 /**

@@ -40,3 +40,15 @@ export function createPolynomialFeatures(spec: PolynomialFeatureSpec): FeatureMa
     toSpec: () => structuredClone(frozen),
   };
 }
+
+/**
+ * True when `inner` is a polynomial map of no higher degree than `outer` on the same standardised
+ * inputs: its monomials are then outer's first (monomialBasis lists them by degree, each built from
+ * the same parent), so its features are the leading part of outer's, to the last bit.
+ */
+export function leadsPolynomial(inner: FeatureMap, outer: FeatureMap): boolean {
+  const a = inner.toSpec(), b = outer.toSpec();
+  if (a.kind !== 'polynomial' || b.kind !== 'polynomial' || a.degree > b.degree) return false;
+  const same = (x: number[], y: number[]) => x.length === y.length && x.every((v, i) => Object.is(v, y[i]));
+  return same(a.standardiser.mean, b.standardiser.mean) && same(a.standardiser.scale, b.standardiser.scale);
+}

@@ -26,7 +26,9 @@
  */
 import type { GaussianPolicy } from '../policy';
 import { sampleAction } from '../policy';
+import { leadsPolynomial } from '../features/polynomialFeatures';
 import { createRandom } from '../random';
+import type { RandomStreams } from '../recordedRandom';
 import { endChance, type EndChanceFit } from './endChanceModel';
 import { ModelValueError } from './modelBasedValue';
 import type { PolynomialModelFit } from './polynomialDynamicsModel';
@@ -49,10 +51,13 @@ export interface RolloutValue {
   readonly shareOutsideLogs: number;
 }
 
-/** ends: the chance that a step ends the run (fitted on the reward's features ψ), or null/omitted where runs do not end. */
+/**
+ * ends: the chance that a step ends the run (fitted on the reward's features ψ), or null/omitted where runs do not end.
+ * streams: where a rollout's stream comes from (createRandom; recordedStreams gives the same numbers, drawn once for many calls).
+ */
 export function modelRolloutValue(
   model: PolynomialModelFit, policy: GaussianPolicy, discount: number, startStates: Float64Array, settings: RolloutSettings, weights?: ArrayLike<number> | null,
-  ends?: EndChanceFit | null,
+  ends?: EndChanceFit | null, streams: RandomStreams = createRandom,
 ): RolloutValue {
   const ds = model.regressions.stateDim, e = startStates.length / ds, rolls = settings.rolloutsPerStart;
   if (!(discount > 0 && discount < 1)) throw new ModelValueError(`model rollouts: the discount must lie in (0, 1), got ${discount}`);
@@ -60,7 +65,7 @@ export function modelRolloutValue(
   if (policy.stateDim !== ds || policy.actionDim !== model.regressions.actionDim) throw new ModelValueError('model rollouts: the policy does not match the model’s states and actions');
   const steps = Math.ceil(Math.log(TAIL_WEIGHT) / Math.log(discount));
   if (ends && ends.features !== model.regressions.rewardFeatures) throw new ModelValueError('model rollouts: the end chance must be fitted on the reward’s features');
-  const sim = simulator(model, policy, discount, steps, ends ?? null);
+  const sim = simulator(model, policy, discount, steps, ends ?? null, streams);
   let total = 0, weightSum = 0, variance = 0, outside = 0;
   for (let s = 0; s < e; s++) {
     const c = weights ? weights[s] : 1;
@@ -81,25 +86,31 @@ export function modelRolloutValue(
   return { value: total / weightSum, monteCarloError: Math.sqrt(variance) / weightSum, steps, shareOutsideLogs: outside / weightSum };
 }
 
-/** One rollout from a start: its discounted reward sum and its discounted share of held steps. */
-function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: number, steps: number, ends: EndChanceFit | null) {
+/**
+ * One rollout from a start: its discounted reward sum and its discounted share of held steps.
+ * Where the reward's monomials lead the dynamics' (a lower degree on the same standardised inputs),
+ * ψ is the leading part of φ, evaluated once: the same products, so the same numbers.
+ */
+function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: number, steps: number, ends: EndChanceFit | null, streams: RandomStreams) {
   const { regressions: reg, dynamicsWeights: bw, rewardWeights: cw, noiseFactor: l } = model;
   const ds = reg.stateDim, m = reg.actionDim, d = reg.dynamicsFeatures.dim, dr = reg.rewardFeatures.dim;
   const low = reg.stateLow.map((v, c) => v - RANGE_MARGIN * (reg.stateHigh[c] - v));
   const high = reg.stateHigh.map((v, c) => v + RANGE_MARGIN * (v - reg.stateLow[c]));
-  const input = new Float64Array(ds + m), action = new Float64Array(m), phi = new Float64Array(d), psi = new Float64Array(dr), z = new Float64Array(ds);
+  const input = new Float64Array(ds + m), action = new Float64Array(m), phi = new Float64Array(d), z = new Float64Array(ds);
+  const leading = leadsPolynomial(reg.rewardFeatures, reg.dynamicsFeatures), psi = leading ? phi.subarray(0, dr) : new Float64Array(dr);
   return (starts: Float64Array, offset: number, seed: number): { value: number; held: number } => {
-    const rng = createRandom(seed);
+    const rng = streams(seed);
     for (let c = 0; c < ds; c++) input[c] = starts[offset + c];
     let value = 0, held = 0, power = 1, simulated = 0;
     for (let t = 0; t < steps; t++, power *= discount) {
       sampleAction(policy, input, rng, action);
       input.set(action, ds);
-      reg.rewardFeatures.evaluate(input, 0, psi, 0);
+      if (leading) reg.dynamicsFeatures.evaluate(input, 0, phi, 0);
+      else reg.rewardFeatures.evaluate(input, 0, psi, 0);
       let r = 0;
       for (let j = 0; j < dr; j++) r += cw[j] * psi[j];
       value += power * r;
-      reg.dynamicsFeatures.evaluate(input, 0, phi, 0);
+      if (!leading) reg.dynamicsFeatures.evaluate(input, 0, phi, 0);
       for (let c = 0; c < ds; c++) z[c] = rng.normal();
       let atBox = false;
       for (let c = 0; c < ds; c++) {

@@ -19,10 +19,11 @@
  *
  * Shapes: ds states, m actions, d = C(ds+m+k, k) regressors; weights d×ds row-major.
  */
-import { episodeMoments, resampleMoments, type EpisodeMoments, type RegressionMoments } from '../bootstrap/episodeMoments';
+import { episodeMoments, resampleMoments, resampleMomentsBlock, type EpisodeMoments, type RegressionMoments } from '../bootstrap/episodeMoments';
 import type { EpisodeIndex } from '../bootstrap/episodeTransitions';
+import { leadingEpisodeMoments } from '../bootstrap/leadingEpisodeMoments';
 import type { FeatureMap } from '../features/featureMap';
-import { createPolynomialFeatures, polynomialFeatureSpec } from '../features/polynomialFeatures';
+import { createPolynomialFeatures, leadsPolynomial, polynomialFeatureSpec } from '../features/polynomialFeatures';
 import { fitStateActionStandardiser } from '../features/standardiser';
 import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
 import type { TransitionSet } from '../transitions';
@@ -78,19 +79,32 @@ export function polynomialModelRegressions(data: ModelData, index: EpisodeIndex,
     input.set(data.states.subarray(i * ds, (i + 1) * ds));
     input.set(data.actions.subarray(i * m, (i + 1) * m), ds);
   };
-  const dynamics = episodeMoments(index, dynamicsFeatures.dim, ds, (i, x, y) => {
-    if (data.terminal[i]) return false;
-    load(i);
-    dynamicsFeatures.evaluate(input, 0, x, 0);
+  const increment = (i: number, y: Float64Array) => {
     for (let c = 0; c < ds; c++) y[c] = data.nextStates[i * ds + c] - data.states[i * ds + c];
-    return true;
-  });
-  const reward = episodeMoments(index, rewardFeatures.dim, 1, (i, x, y) => {
-    load(i);
-    rewardFeatures.evaluate(input, 0, x, 0);
-    y[0] = data.rewards[i];
-    return true;
-  });
+  };
+  // One pass for both where every row enters both and the reward's regressors lead the dynamics' (the same sums to the last bit).
+  const { dynamics, reward } = !data.terminal.some((t) => t !== 0) && leadsPolynomial(rewardFeatures, dynamicsFeatures)
+    ? renamed(leadingEpisodeMoments(index, dynamicsFeatures.dim, ds, rewardFeatures.dim, (i, x, y) => {
+      load(i);
+      dynamicsFeatures.evaluate(input, 0, x, 0);
+      increment(i, y);
+      y[ds] = data.rewards[i];
+    }))
+    : {
+      dynamics: episodeMoments(index, dynamicsFeatures.dim, ds, (i, x, y) => {
+        if (data.terminal[i]) return false; // no next state to regress on
+        load(i);
+        dynamicsFeatures.evaluate(input, 0, x, 0);
+        increment(i, y);
+        return true;
+      }),
+      reward: episodeMoments(index, rewardFeatures.dim, 1, (i, x, y) => {
+        load(i);
+        rewardFeatures.evaluate(input, 0, x, 0);
+        y[0] = data.rewards[i];
+        return true;
+      }),
+    };
   const stateLow = new Float64Array(ds).fill(Infinity), stateHigh = new Float64Array(ds).fill(-Infinity);
   for (let i = 0; i < data.count * ds; i++) {
     stateLow[i % ds] = Math.min(stateLow[i % ds], data.states[i]);
@@ -99,11 +113,34 @@ export function polynomialModelRegressions(data: ModelData, index: EpisodeIndex,
   return { stateDim: ds, actionDim: m, dynamicsFeatures, rewardFeatures, dynamics, reward, stateLow, stateHigh };
 }
 
+const renamed = (both: { first: EpisodeMoments; second: EpisodeMoments }) => ({ dynamics: both.first, reward: both.second });
+
 /** Fit on the full data (multiplicities omitted) or on a bootstrap resample. */
 export function fitPolynomialModel(regressions: PolynomialModelRegressions, multiplicities?: ArrayLike<number>): PolynomialModelFit {
+  return fitFromMoments(regressions, resampleMoments(regressions.dynamics, multiplicities), resampleMoments(regressions.reward, multiplicities));
+}
+
+/**
+ * fitPolynomialModel on each of several resamples, or the ModelFitError of one that cannot be
+ * fitted: their moments are summed in one read of the episodes' (resampleMomentsBlock), the same
+ * sums as one resample at a time to the last bit, so the same fits.
+ */
+export function fitPolynomialModels(regressions: PolynomialModelRegressions, multiplicities: readonly ArrayLike<number>[]): (PolynomialModelFit | ModelFitError)[] {
+  const dynamics = resampleMomentsBlock(regressions.dynamics, multiplicities), reward = resampleMomentsBlock(regressions.reward, multiplicities);
+  return multiplicities.map((_, b) => {
+    try {
+      return fitFromMoments(regressions, dynamics[b], reward[b]);
+    } catch (error) {
+      if (error instanceof ModelFitError) return error;
+      throw error;
+    }
+  });
+}
+
+function fitFromMoments(regressions: PolynomialModelRegressions, dynamics: RegressionMoments, reward: RegressionMoments): PolynomialModelFit {
   const ds = regressions.stateDim;
-  const dyn = ridgeLeastSquares(resampleMoments(regressions.dynamics, multiplicities), 'the next states');
-  const rew = ridgeLeastSquares(resampleMoments(regressions.reward, multiplicities), 'the reward');
+  const dyn = ridgeLeastSquares(dynamics, 'the next states');
+  const rew = ridgeLeastSquares(reward, 'the reward');
   const noiseFactor = semidefiniteFactor(dyn.residualCovariance, ds);
   return {
     regressions, dynamicsWeights: dyn.coefficients, noiseFactor, rewardWeights: rew.coefficients,

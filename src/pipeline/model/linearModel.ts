@@ -17,9 +17,13 @@
 import { createActionQuadrature, type ActionQuadrature } from '../../core/actionQuadrature';
 import { episodeBellmanSumsSteps, leadingEpisodeSums, resampleBellmanStatistics, type EpisodeBellmanSums } from '../../core/bootstrap/episodeBellmanSums';
 import { unitMultiplicities } from '../../core/bootstrap/episodeMultiplicities';
-import { linearisedReplicatesFromSums, linearisedReplicatesSteps } from '../../core/bootstrap/linearisedReplicate';
-import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, type PassSteps } from '../../core/fqe/cancellation';
+import {
+  influenceSetup, linearisedReplicatesFromSums, linearisedReplicatesSteps, type InfluenceSetup, type LinearisationInput, type LinearisedReplicates,
+} from '../../core/bootstrap/linearisedReplicate';
+import { nestedInfluenceSteps } from '../../core/bootstrap/nestedInfluencePass';
+import { createPacer, PACE_INTERVAL_MS, runSteps, runStepsPaced, throwIfCancelled, type PassSteps } from '../../core/fqe/cancellation';
 import { averageRoute } from '../../core/features/policyFeatureAverage';
+import { leadsPolynomial } from '../../core/features/polynomialFeatures';
 import { startStateFeatures } from '../../core/features/policyFeatures';
 import { bellmanStatisticsSteps, bellmanSumsStride, blockRowsFor, leadingStatistics, checkStatisticsFinite, type BellmanStatistics } from '../../core/fqe/bellmanStatistics';
 import { solveLinearFqe } from '../../core/fqe/linearFqeSolve';
@@ -58,6 +62,34 @@ export function buildLinearModelPaced(
 function* linearModelSteps(
   plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, settings: LinearFitSpec, enclosing: readonly CandidateModel[] = [], others: readonly CandidateModel[] = [],
 ): PassSteps<CandidateModel> {
+  const fitted = yield* linearFitSteps(plan, planned, hooks, settings, enclosing.flatMap(nestOf), others);
+  return fitted.finish(fitted.pass && (yield* linearisedReplicatesSteps(fitted.pass)));
+}
+
+/** What a class nested in another reads of it (nestedStatistics): its features and rule, its statistics, its per-episode sums where its resamples reweight them. */
+interface NestSource {
+  readonly features: FeatureMap;
+  readonly quadrature: ActionQuadrature;
+  readonly statistics: BellmanStatistics;
+  readonly exactSums: EpisodeBellmanSums | null;
+}
+
+function nestOf(model: CandidateModel): NestSource[] {
+  const l = model.linear;
+  return l ? [{ features: l.features, quadrature: model.quadrature, statistics: l.statistics, exactSums: l.resampling.kind === 'exact' ? l.resampling.sums : null }] : [];
+}
+
+/** A fit whose first-order resamples may still wait for their influence pass over the data (pass: its input; null when they need none). */
+interface FittedLinear {
+  readonly pass: LinearisationInput | null;
+  readonly nest: NestSource;
+  /** The model, given the pass's influence values where it has a pass. */
+  finish(replicates: LinearisedReplicates | null): CandidateModel;
+}
+
+function* linearFitSteps(
+  plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, settings: LinearFitSpec, enclosing: readonly NestSource[], others: readonly CandidateModel[],
+): PassSteps<FittedLinear> {
   const { features } = settings, { data } = plan;
   const quadrature = createActionQuadrature(planned.policy, plan.quadratureNodes);
   const nested = enclosing.reduce<ReturnType<typeof nestedStatistics>>((found, outer) => found ?? nestedStatistics(plan, features, quadrature, outer), null);
@@ -77,14 +109,86 @@ function* linearModelSteps(
     fixedPointValue: solved.fixedPoint?.policyValue.value ?? null, featureCount: features.dim,
     backend: 'linear least squares (double precision)', warnings: reported.warnings, dispose: () => undefined,
   };
-  const linearisation = {
+  const linearisation: LinearisationInput = {
     data, index: plan.episodes, features, quadrature, statistics, weights, ridge: settings.ridge, discount: plan.discount,
     startFeatures, startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode, cancel: hooks.cancel,
   };
-  const resampling: LinearResampling = exact && sums ? { kind: 'exact', sums }
+  const fixed: LinearResampling | null = exact && sums ? { kind: 'exact', sums }
     : !atFixedPoint ? { kind: 'none', reason: 'the fit did not converge, so there is no fixed point to take resamples around' }
-    : { kind: 'linearised', replicates: sums ? linearisedReplicatesFromSums(linearisation, sums) : yield* linearisedReplicatesSteps(linearisation) };
-  return { ...planned, quadrature, fit, dispose: () => undefined, linear: { ...settings, resampling, statistics, startFeatures, weights, atFixedPoint } };
+    : sums ? { kind: 'linearised', replicates: linearisedReplicatesFromSums(linearisation, sums) } : null;
+  const model = (resampling: LinearResampling): CandidateModel => ({
+    ...planned, quadrature, fit, dispose: () => undefined, linear: { ...settings, resampling, statistics, startFeatures, weights, atFixedPoint },
+  });
+  return {
+    pass: fixed ? null : linearisation, nest: { features, quadrature, statistics, exactSums: exact ? sums : null },
+    finish: (replicates) => model(fixed ?? { kind: 'linearised', replicates: replicates! }),
+  };
+}
+
+/** A model of buildLinearModelsPaced, or what its fit threw. */
+export type LinearOutcome = { readonly model: CandidateModel } | { readonly error: unknown };
+
+/**
+ * Several linear fits of one policy (the function classes: polynomial degrees, highest first), as
+ * buildLinearModelPaced would make each with the models before it as `enclosing`, save that the
+ * influence passes of those whose features nest are one pass (../../core/bootstrap/nestedInfluencePass.ts):
+ * the same models. Per spec, in order, its model or what its fit threw (a failed fit encloses none).
+ */
+export function buildLinearModelsPaced(
+  plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, specs: readonly LinearFitSpec[], enclosing: readonly CandidateModel[] = [],
+): Promise<LinearOutcome[]> {
+  return runStepsPaced(linearModelsSteps(plan, planned, hooks, specs, enclosing), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
+}
+
+function* linearModelsSteps(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, specs: readonly LinearFitSpec[], enclosing: readonly CandidateModel[]): PassSteps<LinearOutcome[]> {
+  const nests = enclosing.flatMap(nestOf), fits: (FittedLinear | { error: unknown })[] = [];
+  for (const spec of specs) {
+    throwIfCancelled(hooks.cancel);
+    try {
+      const fitted = yield* linearFitSteps(plan, planned, hooks, spec, nests, []);
+      fits.push(fitted);
+      nests.push(fitted.nest);
+    } catch (error) {
+      fits.push({ error });
+    }
+  }
+  const replicates = yield* sharedInfluencePasses(fits.flatMap((f) => ('pass' in f && f.pass ? [f.pass] : [])));
+  return fits.map((f) => {
+    if ('error' in f) return f;
+    const r = f.pass ? replicates.get(f.pass)! : null;
+    return r && 'error' in r ? r : { model: f.finish(r) };
+  });
+}
+
+/**
+ * The influence passes of several fits: each group of fits whose features lead the first's (the
+ * highest degree left) with the same route to the expected next features, on one pass; a fit whose
+ * setup throws (a singular system) gives its error and stays out of the pass.
+ */
+function* sharedInfluencePasses(inputs: LinearisationInput[]): PassSteps<Map<LinearisationInput, LinearisedReplicates | { error: unknown }>> {
+  const out = new Map<LinearisationInput, LinearisedReplicates | { error: unknown }>(), setups = new Map<LinearisationInput, InfluenceSetup>();
+  for (const input of inputs) {
+    try {
+      setups.set(input, influenceSetup(input));
+    } catch (error) {
+      out.set(input, { error });
+    }
+  }
+  let left = inputs.filter((input) => setups.has(input));
+  while (left.length > 0) {
+    const outer = left[0], group = left.filter((input) => input === outer || nestsIn(input, outer));
+    left = left.filter((input) => !group.includes(input));
+    const values = yield* nestedInfluenceSteps(group, group.map((input) => setups.get(input)!));
+    group.forEach((input, c) => out.set(input, values[c]));
+  }
+  return out;
+}
+
+/** True when a pass over `outer`'s features gives `inner`'s φ and ψ as their leading parts, to the last bit. */
+function nestsIn(inner: LinearisationInput, outer: LinearisationInput): boolean {
+  const q = inner.quadrature, r = outer.quadrature;
+  return q.policy === r.policy && q.nodesPerDimension === r.nodesPerDimension && leadsPolynomial(inner.features, outer.features)
+    && averageRoute(inner.features, q) === averageRoute(outer.features, r);
 }
 
 /** A pass's statistics, with the per-episode sums when it kept them; `exact`: the resamples reweight those sums. */
@@ -130,11 +234,11 @@ function passRoute(plan: EvaluationPlan, d: number): 'exact' | 'episodes' | 'who
  * rows per block and the same route to the expected next features (averageRoute). Then they are
  * this map's own pass to the last bit; else null (make the pass).
  */
-function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, enclosing: CandidateModel): PassResult | null {
-  const outer = enclosing.linear, k = features.dim;
-  if (!outer || !leadsIn(features, outer.features) || blockRowsFor(k) !== blockRowsFor(outer.features.dim)) return null;
+function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, outer: NestSource): PassResult | null {
+  const k = features.dim;
+  if (!leadsPolynomial(features, outer.features) || blockRowsFor(k) !== blockRowsFor(outer.features.dim)) return null;
   // The same route to E_{a~π} φ (closed-form moments serve degrees ≤ 2n − 1 only; the two routes agree to rounding, not to the bit).
-  if (averageRoute(features, quadrature) !== averageRoute(outer.features, enclosing.quadrature)) return null;
+  if (averageRoute(features, quadrature) !== averageRoute(outer.features, outer.quadrature)) return null;
   const route = passRoute(plan, k);
   if (route === 'episodes') return null; // its own pass keeps per-episode sums that no enclosing model keeps
   if (route === 'whole') {
@@ -143,18 +247,10 @@ function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature
     checkStatisticsFinite(statistics, plan.data, features, quadrature);
     return { statistics, sums: null, exact: false };
   }
-  if (outer.resampling.kind !== 'exact') return null;
-  const sums = leadingEpisodeSums(outer.resampling.sums, k), statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
+  if (!outer.exactSums) return null;
+  const sums = leadingEpisodeSums(outer.exactSums, k), statistics = resampleBellmanStatistics(sums, unitMultiplicities(plan.episodes.episodes));
   checkStatisticsFinite(statistics, plan.data, features, quadrature);
   return { statistics, sums, exact: true };
-}
-
-/** True when `inner` is a polynomial map of lower degree than `outer` on the same standardised inputs. */
-function leadsIn(inner: FeatureMap, outer: FeatureMap): boolean {
-  const a = inner.toSpec(), b = outer.toSpec();
-  if (a.kind !== 'polynomial' || b.kind !== 'polynomial' || a.degree > b.degree) return false;
-  const same = (x: number[], y: number[]) => x.length === y.length && x.every((v, i) => Object.is(v, y[i]));
-  return same(a.standardiser.mean, b.standardiser.mean) && same(a.standardiser.scale, b.standardiser.scale);
 }
 
 function fitIteration(p: { iteration: number; weightChange: number; bellmanResidual: number; policyValue: number }): FitIteration {
