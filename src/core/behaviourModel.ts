@@ -28,7 +28,7 @@ import { hasLimits, loggedActionLimits, NO_DECLARED_BOUNDS, type DeclaredActionB
 import type { GaussianPolicySpec } from './policy';
 
 export interface BehaviourModel extends Required<Pick<GaussianPolicySpec, 'offset' | 'gain' | 'std' | 'covariance'>> {
-  /** The actuator limits seen in the log (±Infinity where none). */
+  /** The actuator limits read from the log (±Infinity where none): repeated extremes, or an extreme at a declared bound (loggedActionLimits.ts). */
   limits: LoggedActionLimits;
   /** The same limits as a clip, present only when some limit is seen; ready for a GaussianPolicySpec. */
   bounds?: { lo: number[]; hi: number[]; mode: 'clip' };
