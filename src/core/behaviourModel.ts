@@ -10,7 +10,8 @@
  * levels sit far from zero (e.g. 350 K ± 2 K).
  *
  *
- * Actuator limits: where the log shows an action saturating (loggedActionLimits.ts), that action's
+ * Actuator limits: where the log shows an action saturating (loggedActionLimits.ts: repeated
+ * extremes, or a logged extreme at a bound a candidate declares, passed in as `declared`), that action's
  * logged values are clipped, and least squares on them is biased toward zero slope and too small a
  * spread. Its offset, gain and std are then the censored-normal maximum-likelihood fit (the Tobit
  * model, censoredRegression.ts; started from least squares), the model carries the limits as a clip
@@ -23,11 +24,11 @@
  */
 import { CensoredRegressionError, fitCensoredRegression } from './censoredRegression';
 import { cholesky, choleskySolve, SingularMatrixError } from './linalg/dense';
-import { hasLimits, loggedActionLimits, type LoggedActionLimits } from './loggedActionLimits';
+import { hasLimits, loggedActionLimits, NO_DECLARED_BOUNDS, type DeclaredActionBounds, type LoggedActionLimits } from './loggedActionLimits';
 import type { GaussianPolicySpec } from './policy';
 
 export interface BehaviourModel extends Required<Pick<GaussianPolicySpec, 'offset' | 'gain' | 'std' | 'covariance'>> {
-  /** The actuator limits seen in the log (±Infinity where none). */
+  /** The actuator limits read from the log (±Infinity where none): repeated extremes, or an extreme at a declared bound (loggedActionLimits.ts). */
   limits: LoggedActionLimits;
   /** The same limits as a clip, present only when some limit is seen; ready for a GaussianPolicySpec. */
   bounds?: { lo: number[]; hi: number[]; mode: 'clip' };
@@ -68,7 +69,9 @@ function crossProducts(x: Float64Array, xMean: Float64Array, y: Float64Array, yM
   return out;
 }
 
-export function fitBehaviourModel(states: Float64Array, actions: Float64Array, n: number, ds: number, m: number): BehaviourModel {
+export function fitBehaviourModel(
+  states: Float64Array, actions: Float64Array, n: number, ds: number, m: number, declared: DeclaredActionBounds = NO_DECLARED_BOUNDS,
+): BehaviourModel {
   if (states.length !== n * ds) throw new BehaviourModelError(`states: expected ${n}×${ds} = ${n * ds} values, got ${states.length}`);
   if (actions.length !== n * m) throw new BehaviourModelError(`actions: expected ${n}×${m} = ${n * m} values, got ${actions.length}`);
   const dof = n - ds - 1;
@@ -89,7 +92,7 @@ export function fitBehaviourModel(states: Float64Array, actions: Float64Array, n
   const { covariance, rSquared } = residualMoments(states, actions, n, ds, m, offset, gain, aMean, dof);
   checkJointNoise(covariance, m);
   const model = assembleModel({ n, ds, m, dof, offset, gain, covariance, rSquared, factor, sMean });
-  const limits = loggedActionLimits(actions, n, m);
+  const limits = loggedActionLimits(actions, n, m, declared);
   return hasLimits(limits) ? censoredModel(model, limits, states, actions, sMean) : { ...model, limits };
 }
 

@@ -9,6 +9,7 @@ import { CLASS_AGREEMENT } from '../core/diagnostics/functionClassRange';
 import { actionSupportRuleText, effectiveShareRuleText, occupancyShiftRuleText, startCoverageRuleText } from '../core/diagnostics/severity';
 import { possibleValuesRuleText } from '../core/diagnostics/possibleStateValues';
 import { MAX_VALUE_CHECK_STATES } from '../core/limits';
+import { LOGGED_LIMITS_NAMED, loggedLimitRuleText } from '../core/loggedActionLimits';
 import { plantMemoryRuleText } from '../core/diagnostics/plantMemoryFinding';
 import { returnConcentrationRuleText } from '../core/diagnostics/returnConcentration';
 import { CROSS_CHECK_RULE } from '../core/offPolicy/crossCheckVerdict';
@@ -28,9 +29,9 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
     `Function classes: each candidate is also fitted with polynomial features of degree ${COMPARED_DEGREES.join(', ')} (up to ${MAX_CLASS_FEATURES} features) on the same resamples. ` +
       `The classes agree unless a pair differs by more than ${c.standardErrors} paired standard errors (the spread of the paired resamples read from their quartiles, interquartile range / 1.349, so a few runaway fits cannot hide a gap) and ${pct(c.relative)} of J; ` +
       'the reported range spans every class’s interval, so it covers sampling and the spread between the classes fitted — not a bias they all share.',
-    'Baseline: the present controller is modelled from the log (linear-Gaussian in the state, clipped at the logged limits and fitted there by censored maximum likelihood) ' +
+    `Baseline: the present controller is modelled from the log (linear-Gaussian in the state, clipped at ${LOGGED_LIMITS_NAMED} and fitted there by censored maximum likelihood) ` +
       'and evaluated by the same fitted Q-evaluation as the candidates, on the same resamples; every candidate is compared with it. The logged discounted return ' +
-      'is shown as a check, cut short where runs end on a time limit, and completed there by the fitted value γ^T·V̂(s_T).',
+      `is shown as a check, cut short where runs end on a time limit, and completed there by the fitted value γ^T·V̂(s_T). Limits: ${loggedLimitRuleText()} (our rule).`,
     `Cross-checks are informative only when they could see an error of ${pct(a.detectableGap)} of J (three paired standard errors within it), with an effective size of at least ` +
       `max(${a.minEffectiveEpisodes}, ${pct(a.minEffectiveShare)} of the runs) for the importance weights, at most ${pct(a.maxTailWeight)} of the discount weight past the runs’ ends, ` +
       `and at most ${pct(a.maxShareOutsideLogs)} of simulated steps at the edge of the logged states for the model rollouts; an informative check disagrees when the paired ` +

@@ -6,11 +6,11 @@
  * the same model (behaviourPolicySpec) is therefore the same policy as this one.
  */
 import { behaviourPolicySpec, fitBehaviourModel, type BehaviourModel } from '../behaviourModel';
-import type { LoggedActionLimits } from '../loggedActionLimits';
+import { NO_DECLARED_BOUNDS, type DeclaredActionBounds, type LoggedActionLimits } from '../loggedActionLimits';
 import { createGaussianPolicy, type GaussianPolicy } from '../policy';
 import type { TransitionSet } from '../transitions';
 
-export type { LoggedActionLimits } from '../loggedActionLimits';
+export type { DeclaredActionBounds, LoggedActionLimits } from '../loggedActionLimits';
 
 export interface FittedBehaviour {
   readonly model: BehaviourModel;
@@ -18,8 +18,9 @@ export interface FittedBehaviour {
   readonly policy: GaussianPolicy;
 }
 
-export function fittedBehaviourPolicy(data: TransitionSet): FittedBehaviour {
+/** `declared`: the position limits the project's candidates declare (a logged extreme exactly there is a limit; ../loggedActionLimits.ts). */
+export function fittedBehaviourPolicy(data: TransitionSet, declared: DeclaredActionBounds = NO_DECLARED_BOUNDS): FittedBehaviour {
   const { count: n, stateDim: ds, actionDim: m } = data;
-  const model = fitBehaviourModel(data.states, data.actions, n, ds, m);
+  const model = fitBehaviourModel(data.states, data.actions, n, ds, m, declared);
   return { model, limits: model.limits, policy: createGaussianPolicy(behaviourPolicySpec(model), ds) };
 }

@@ -12,6 +12,7 @@ import { loggedDiscountedReturn, type LoggedReturn } from '../../core/loggedRetu
 import { failure, success, type Problem, type Result } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
 import type { ApproximatorSettings, ProjectDocument } from '../../project/schema';
+import { declaredActionBounds } from './declaredBounds';
 import { planFeatures } from './featureMapFor';
 import { planPolicies } from './planPolicies';
 import { planPresentController, type PlannedPresentController } from './presentController';
@@ -57,7 +58,7 @@ export function planEvaluation(project: ProjectDocument, data: TransitionSet): R
   const sense = project.columns.reward.sense;
   return success({
     project, data, episodes: indexEpisodes(data), discount: project.discount, quadratureNodes: project.quadratureNodes, seed: project.seed,
-    sense, sign: sense === 'cost' ? -1 : 1, starts: starts.value, candidates: policies.value, presentController: planPresentController(data, project.quadratureNodes), approximator: project.approximator,
+    sense, sign: sense === 'cost' ? -1 : 1, starts: starts.value, candidates: policies.value, presentController: planPresentController(data, project.quadratureNodes, declaredActionBounds(project, data.actionDim)), approximator: project.approximator,
     features: features.value, surface: surfaceGridFor(project, data), absorbingEnds: absorbingEndCount(data.terminal), loggedReturn: loggedDiscountedReturn(data, project.discount), warnings: [...features.warnings, ...dataWarnings(data)],
   });
 }

@@ -1,12 +1,13 @@
 /**
  * Today's controller as a policy the pipeline can evaluate like any candidate: the linear-Gaussian
- * model fitted to the logged actions, clipped at the actuator limits the logs show and fitted there
- * by censored maximum likelihood (src/core/behaviourModel.ts). Evaluated by the same fitted
+ * model fitted to the logged actions, clipped at the actuator limits the logs show (repeated extremes,
+ * or an extreme exactly at a bound a candidate declares: declaredBounds.ts) and fitted there by
+ * censored maximum likelihood (src/core/behaviourModel.ts). Evaluated by the same fitted
  * Q-evaluation as the candidates, it is the comparable baseline that comparisons and the ranking use;
  * the logged discounted return, which is cut short where runs end on a time limit, is kept as a check.
  */
 import { BehaviourModelError } from '../../core/behaviourModel';
-import { fittedBehaviourPolicy, type FittedBehaviour } from '../../core/offPolicy/behaviourPolicy';
+import { fittedBehaviourPolicy, type DeclaredActionBounds, type FittedBehaviour } from '../../core/offPolicy/behaviourPolicy';
 import type { TransitionSet } from '../../core/transitions';
 import { quadratureProblem } from './planPolicies';
 import type { PlannedPolicy } from './planTypes';
@@ -21,10 +22,10 @@ export interface PlannedPresentController {
   readonly reason: string;
 }
 
-export function planPresentController(data: TransitionSet, quadratureNodes: number): PlannedPresentController {
+export function planPresentController(data: TransitionSet, quadratureNodes: number, declared: DeclaredActionBounds): PlannedPresentController {
   let fitted: FittedBehaviour;
   try {
-    fitted = fittedBehaviourPolicy(data);
+    fitted = fittedBehaviourPolicy(data, declared);
   } catch (error) {
     if (!(error instanceof BehaviourModelError)) throw error;
     return { planned: null, fitted: null, reason: `no model of the present controller could be fitted to the log (${error.message})` };

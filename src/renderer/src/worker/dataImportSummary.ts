@@ -4,8 +4,10 @@
  * draw, and the fitted behaviour model (or why it could not be fitted).
  */
 import { BehaviourModelError, fitBehaviourModel } from '../../../core/behaviourModel';
+import type { DeclaredActionBounds } from '../../../core/loggedActionLimits';
 import type { TransitionSet } from '../../../core/transitions';
 import type { OpenedProject } from '../../../pipeline/openProject';
+import { declaredActionBounds } from '../../../pipeline/plan/declaredBounds';
 import {
   EXCLUDED_ROWS_SHOWN, LOGGED_SAMPLE_SIZE, type BehaviourFit, type DataImport, type LoggedSample,
 } from '../../../shared/workerMessages';
@@ -25,7 +27,7 @@ export function dataImportSummary(opened: OpenedProject): DataImport {
     stateMeans: means,
     stateRanges: ranges,
     sample: loggedSample(dataset, LOGGED_SAMPLE_SIZE),
-    behaviour: behaviourFit(dataset),
+    behaviour: behaviourFit(dataset, declaredActionBounds(opened.project, dataset.actionDim)),
     timeWindows: imported.timeWindows,
     ...(imported.clock ? { clock: imported.clock } : {}),
     trend: imported.trend,
@@ -61,9 +63,10 @@ export function loggedSample(data: TransitionSet, size: number): LoggedSample {
   return { count, states, actions };
 }
 
-function behaviourFit(data: TransitionSet): BehaviourFit {
+/** The same model as the plan's present controller (src/pipeline/plan/presentController.ts), with the same declared bounds. */
+function behaviourFit(data: TransitionSet, declared: DeclaredActionBounds): BehaviourFit {
   try {
-    return { ok: true, model: fitBehaviourModel(data.states, data.actions, data.count, data.stateDim, data.actionDim) };
+    return { ok: true, model: fitBehaviourModel(data.states, data.actions, data.count, data.stateDim, data.actionDim, declared) };
   } catch (e) {
     if (e instanceof BehaviourModelError) return { ok: false, message: e.message };
     throw e;
