@@ -53,7 +53,7 @@ export function syntheticSpec(kind: PlotKind, theme: Theme): PlotSpec {
         kind, props: {
           rows: [
             ...evaluation.policies.map((p) => ({ label: p.name, value: p.policyValue, interval: [p.policyValue - 2 * p.standardError, p.policyValue + 2 * p.standardError] as const })),
-            { label: 'present controller (logged)', value: 45.3, interval: [41, 49.6] as const, present: true },
+            { label: 'present controller', value: 45.3, interval: [41, 49.6] as const, present: true },
           ],
           axisLabel: 'J, discounted cost (kWh)', title: '90 % intervals of J', theme, reference: 45.3,
         },

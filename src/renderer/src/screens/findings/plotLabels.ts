@@ -1,6 +1,4 @@
 /** Words on the plots and in export captions: axes with units, what V means, the settings in a line. */
-import { LOGGED_RETURN_LABEL } from '../../../../figures/parts/plotTheme';
-import { BEHAVIOUR_NAME } from '../../../../pipeline/assessAssembly';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { ProjectDocument } from '../../../../project/schema';
 
@@ -47,10 +45,8 @@ export function heldLabel(doc: ProjectDocument, held: readonly number[], axes: r
   return parts.length === 0 ? '' : `Other states held at ${parts.join(', ')}`;
 }
 
-/** A policy's name as shown: the pipeline's name for the logged return reads as the check it is. */
-export function displayName(name: string): string {
-  return name === BEHAVIOUR_NAME ? LOGGED_RETURN_LABEL : name;
-}
+/** A policy's name as shown (the present controller's and the logged return's read as their one label). */
+export { policyLabel as displayName } from '../../../../pipeline/policyNames';
 
 /**
  * The action-value slice's one-line explanation. With one action the nodes' weighted mean of Q is
