@@ -37,7 +37,7 @@ export function syntheticSpec(kind: PlotKind, theme: Theme): PlotSpec {
   const evaluation = threeCandidateEvaluation();
   switch (kind) {
     case 'surface':
-      return { kind, props: { surface: bowlSurface(), xLabel: 'tank level (m)', yLabel: 'inflow (m³/h)', valueLabel: 'V^π (cost, kWh)', title: 'Value surface: gentle gain', theme, heldLabel: 'outlet temperature held at 1.5 °C' } };
+      return { kind, props: { surface: bowlSurface(), xLabel: 'tank level (m)', yLabel: 'inflow (m³/h)', valueLabel: 'V^{π}(s), discounted cost (kWh)', title: 'Value surface: gentle gain', theme, heldLabel: 'outlet temperature held at 1.5 °C' } };
     case 'slice':
       return { kind, props: { slice: clippedSlice(), actionLabel: 'valve move (%)', valueLabel: 'cost (kWh)', title: 'Action values at one state', theme } };
     case 'convergence':

@@ -49,12 +49,12 @@ export function heldLabel(doc: ProjectDocument, held: readonly number[], axes: r
 export { policyLabel as displayName } from '../../../../pipeline/policyNames';
 
 /**
- * The action-value slice's one-line explanation. With one action the nodes' weighted mean of Q is
- * V^π(s); with several, V^π(s) averages Q over the tensor grid of every action's nodes
+ * The action-value slice's one-line explanation, as rich-text markup (V^{π} set as a superscript).
+ * With one action the nodes' weighted mean of Q is V^π(s); with several, V^π(s) averages Q over the tensor grid of every action's nodes
  * (E_{a,b}[Q(s, a, b)]), and the slice holds the other actions at one value (the candidate's median
  * action there), so its nodes' mean is not V^π(s) unless Q is linear in the other actions.
  */
 export function sliceExplanation(actionCount: number): string {
-  if (actionCount <= 1) return 'Q(s, a) along the action at one state, the policy’s action density beneath, and the quadrature nodes whose weighted mean is V^π(s).';
-  return 'Q(s, a) along one action at one state, the other actions held at the policy’s median action there; the policy’s density of this action beneath, and its quadrature nodes. V^π(s) averages Q over the nodes of every action together, so the weighted mean along this one slice is not V^π(s).';
+  if (actionCount <= 1) return 'Q(s, a) along the action at one state, the policy’s action density beneath, and the quadrature nodes whose weighted mean is V^{π}(s).';
+  return 'Q(s, a) along one action at one state, the other actions held at the policy’s median action there; the policy’s density of this action beneath, and its quadrature nodes. V^{π}(s) averages Q over the nodes of every action together, so the weighted mean along this one slice is not V^{π}(s).';
 }
