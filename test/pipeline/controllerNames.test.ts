@@ -31,7 +31,7 @@ const BANNED = [
 /** Literals that keep an old name on purpose. */
 const ALLOWED = new Set([
   // The glossary's "also called": the off-policy literature's term, named once so a reviewer can map it.
-  'behaviour policy (in the off-policy literature)',
+  'behaviour policy, in the off-policy literature',
   // The name an earlier version saved results under, read back as the logged return.
   'present controller, logged return',
 ]);

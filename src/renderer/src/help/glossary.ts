@@ -11,7 +11,7 @@ export interface GlossaryEntry {
 }
 
 export const GLOSSARY: readonly GlossaryEntry[] = [
-  { term: 'Present controller', aka: 'behaviour policy (in the off-policy literature)', meaning: 'The controller that ran while the log was recorded, as modelled from the log (gain, offset, dither and the actuator limits seen) and evaluated like any candidate.' },
+  { term: 'Present controller', aka: 'behaviour policy, in the off-policy literature', meaning: 'The controller that ran while the log was recorded, as modelled from the log (gain, offset, dither and the actuator limits seen) and evaluated like any candidate.' },
   { term: 'Logged return', meaning: 'The discounted cost the log itself earned, averaged over the runs: read straight off the log, no model. Shown beside the present controller as a check; cut short where a run ends on a time limit.' },
   { term: 'Baseline', meaning: 'What every candidate is compared with: the present controller, or the logged return where no model of the present controller could be fitted.' },
   { term: 'Candidate', aka: 'target policy', meaning: 'A retune to judge before it touches the plant: a mean action (offset plus a gain on each state), a dither around it, and optional actuator limits.' },
