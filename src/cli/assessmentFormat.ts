@@ -1,6 +1,8 @@
 /** The readable summary of an assessment for the terminal: intervals, comparison, cross-checks, warnings. */
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { plantMemorySentence } from '../pipeline/plantMemoryWords';
+import { policyLabel } from '../pipeline/policyNames';
+import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { textTable as table } from './textTable';
 import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
 
@@ -23,14 +25,14 @@ export function formatAssessment(a: Assessment): string {
     rows.push([...estimateRow(c.name, c.policyValue), interval(c.reportedRange), settledWord(c.settled), c.confirmation.status, ratioText(c.diagnostics.occupancyShift)]);
   }
   const pc = a.presentController;
-  if (pc) rows.push([...estimateRow(`${pc.name} [baseline]`, pc.policyValue), interval(pc.policyValue.percentile), '', pc.confirmation.status, ratioText(pc.occupancyShift)]);
-  rows.push([...estimateRow(pc ? 'logged return (check; cut short at time limits)' : 'logged return [baseline]', a.behaviour), '', '', '', '']);
-  if (pc) rows.push([...estimateRow('logged return completed past time limits (check)', pc.completedReturn), '', '', '', '']);
+  if (pc) rows.push([...estimateRow(`${PRESENT_CONTROLLER} [baseline]`, pc.policyValue), interval(pc.policyValue.percentile), '', pc.confirmation.status, ratioText(pc.occupancyShift)]);
+  rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
+  if (pc) rows.push([...estimateRow(`${LOGGED_RETURN}, completed past time limits (check)`, pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
-  for (const d of a.comparison.differences) diffs.push([`${d.a} − ${d.b}`, atDecimals(d.difference.value, rowDecimals(d.difference.percentile, d.difference.standardError)), interval(d.difference.percentile), percent(d.probabilityBetter)]);
+  for (const d of a.comparison.differences) diffs.push([`${policyLabel(d.a)} − ${policyLabel(d.b)}`, atDecimals(d.difference.value, rowDecimals(d.difference.percentile, d.difference.standardError)), interval(d.difference.percentile), percent(d.probabilityBetter)]);
   const named = [...a.candidates, ...(pc ? [{ ...pc, functionClasses: null }] : [])];
   const checks = named.flatMap((c) => [
-    `  ${c.name}: ${c.confirmation.text}`,
+    `  ${policyLabel(c.name)}: ${c.confirmation.text}`,
     ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? inInterval(x.estimate.value, x.estimate.percentile) : '—'} — ${x.note}`),
   ]);
   const classes = a.candidates.flatMap((c) => (c.functionClasses ? [
@@ -40,14 +42,14 @@ export function formatAssessment(a: Assessment): string {
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
   const memory = plantMemorySentence(a.plantMemory);
   return [
-    `Bootstrap over ${a.settings.episodes} runs: ${a.settings.resamples} resamples, level ${level}, seed ${a.settings.seed}. Baseline: ${a.comparison.baseline.name}.`,
+    `Bootstrap over ${a.settings.episodes} runs: ${a.settings.resamples} resamples, level ${level}, seed ${a.settings.seed}. Baseline: ${policyLabel(a.comparison.baseline.name)}.`,
     a.comparison.baseline.note,
     '',
     table(rows),
     '',
     table(diffs),
     '',
-    `Ranking: ${a.comparison.ranking.order.join(' > ')} (${a.comparison.ranking.frequency === null ? 'not every policy was resampled' : `holds in ${percent(a.comparison.ranking.frequency)} of resamples`}).`,
+    `Ranking: ${a.comparison.ranking.order.map(policyLabel).join(' > ')} (${a.comparison.ranking.frequency === null ? 'not every policy was resampled' : `holds in ${percent(a.comparison.ranking.frequency)} of resamples`}).`,
     ...(classes.length ? ['', 'Function classes (the range to report spans them):', ...classes] : []),
     '',
     'Cross-checks:',

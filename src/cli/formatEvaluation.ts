@@ -1,6 +1,7 @@
 /** The readable table `evaluate` prints by default. */
 import { truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
+import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
 import { intervalDecimals } from '../figures/parts/tickFormat';
 import { atDecimals, errorDecimals, intervalText } from './uncertainNumberText';
@@ -34,10 +35,10 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
   if (pc) {
     const x = pc.estimate, converged = x.status === 'converged';
     const [value, error] = withError(x.policyValue, x.standardError), d = errorDecimals(x.standardError);
-    rows.push([`${x.name} [baseline]`, converged ? value : 'no value', converged ? error : '', atDecimals(x.fixedPointValue, d), converged ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
-    rows.push(['logged return, completed past time limits (check)', ...withError(pc.completedReturn.value, pc.completedReturn.standardError), '', `${e.behaviour.episodes} runs`]);
+    rows.push([`${PRESENT_CONTROLLER} [baseline]`, converged ? value : 'no value', converged ? error : '', atDecimals(x.fixedPointValue, d), converged ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
+    rows.push([`${LOGGED_RETURN}, completed past time limits (check)`, ...withError(pc.completedReturn.value, pc.completedReturn.standardError), '', `${e.behaviour.episodes} runs`]);
   }
-  rows.push([pc ? 'logged return (check; cut short at time limits)' : 'logged return [baseline]', ...withError(e.behaviour.value, e.behaviour.standardError), '', `${e.behaviour.episodes} runs`]);
+  rows.push([pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError), '', `${e.behaviour.episodes} runs`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
     `Values are the ${sense}, discount ${s.discount}.`,
@@ -49,7 +50,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: its fit did not converge, so no value is reported for it. ${p.message}`),
     ...e.policies.flatMap((p) => (p.network ? [networkLine(p.name, p.network)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
-    pc ? `Baseline: today's controller modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions)}; ${perAction('dither', pc.model.std, pc.model.actions)}) and evaluated like the candidates.`
+    pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions)}; ${perAction('dither', pc.model.std, pc.model.actions)}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
     ...(truncation ? [`${truncation}${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),

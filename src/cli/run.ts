@@ -24,7 +24,7 @@ const USAGE = `Usage:
 
 Commands:
   evaluate   fit the action-value function of each candidate policy in the project to the
-             project's logged data and report each policy value next to the logged behaviour's,
+             project's logged data and report each policy value next to the present controller's,
              with bootstrap intervals, cross-checks and coverage diagnostics
   report     the same, written as one self-contained HTML report (job, data, settings,
              comparison, value surfaces, slices, diagnostics, cross-checks, sensitivity, cautions)

@@ -75,7 +75,7 @@ export function fitBehaviourModel(
   if (states.length !== n * ds) throw new BehaviourModelError(`states: expected ${n}×${ds} = ${n * ds} values, got ${states.length}`);
   if (actions.length !== n * m) throw new BehaviourModelError(`actions: expected ${n}×${m} = ${n * m} values, got ${actions.length}`);
   const dof = n - ds - 1;
-  if (dof < 1) throw new BehaviourModelError(`a behaviour model on ${ds} states needs at least ${ds + 2} transitions, got ${n}`);
+  if (dof < 1) throw new BehaviourModelError(`a model of the present controller on ${ds} states needs at least ${ds + 2} transitions, got ${n}`);
   const sMean = columnMeans(states, n, ds), aMean = columnMeans(actions, n, m);
   const factor = stateScatterFactor(crossProducts(states, sMean, states, sMean, n), ds);
   const ssa = crossProducts(states, sMean, actions, aMean, n); // ds×m
@@ -212,8 +212,8 @@ function residualMoments(
   }
   const rSquared: number[] = [];
   for (let j = 0; j < m; j++) {
-    if (!(total[j] > 0)) throw new BehaviourModelError(`action ${j + 1} is constant in the log; a Gaussian behaviour model needs actions that vary`);
-    if (!(covariance[j * m + j] > NEGLIGIBLE_SHARE * total[j])) throw new BehaviourModelError(`action ${j + 1} follows the states exactly (no residual noise), so its behaviour density is degenerate`);
+    if (!(total[j] > 0)) throw new BehaviourModelError(`action ${j + 1} is constant in the log; a Gaussian model of the present controller needs actions that vary`);
+    if (!(covariance[j * m + j] > NEGLIGIBLE_SHARE * total[j])) throw new BehaviourModelError(`action ${j + 1} follows the states exactly (no residual noise), so the present controller's action density is degenerate`);
     rSquared.push(1 - covariance[j * m + j] / total[j]);
   }
   for (let k = 0; k < m * m; k++) covariance[k] /= dof;

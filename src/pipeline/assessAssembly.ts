@@ -31,8 +31,8 @@ import { impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
 
-/** The logged return's name wherever it is listed beside the candidates. */
-export const BEHAVIOUR_NAME = 'present controller, logged return';
+/** The logged return's name wherever it is listed beside the candidates (shown through policyNames.ts). */
+export const BEHAVIOUR_NAME = 'logged return';
 /** More failed resamples than this share raise a caution (our rule). */
 const FAILED_SHARE = 0.05;
 

@@ -18,7 +18,7 @@ const ASSUMPTIONS: Record<CrossCheckMethod, { label: string; assumption: string 
   weightedImportanceSampling: {
     label: 'Weighted per-decision importance sampling',
     assumption: `The logged actions were drawn from the present controller’s fitted model (linear-Gaussian in the state, clipped at ${LOGGED_LIMITS_NAMED}), ` +
-      'the candidate only takes actions the logged controller could also have taken, and runs are independent. Uses the logged rewards; past a run that ends on a time limit ' +
+      'the candidate only takes actions the present controller could also have taken, and runs are independent. Uses the logged rewards; past a run that ends on a time limit ' +
       'it adds the fitted value there, discounted; a run that ends in an end state stays in every later step’s weighting, paying nothing (in proportion to the runs not cut by a time limit there, so time limits must not depend on how the plant behaves). Self-normalised per step, so slightly biased in small samples but consistent.',
   },
   weightedDoublyRobust: {

@@ -233,7 +233,7 @@ describe('SVG export (e2e)', () => {
     expect(parsed.title?.length).toBeGreaterThan(5);
     const text = parsed.texts.join('\n');
     expect(text).toContain(CAUTION_SHORT);
-    if (kind === 'surface') for (const label of ['tank level (m)', 'inflow (m³/h)', 'V^π (cost, kWh)']) expect(text).toContain(label);
+    if (kind === 'surface') for (const label of ['tank level (m)', 'inflow (m³/h)', '(s), discounted cost (kWh)']) expect(text).toContain(label);
     const drawn = await page.evaluate(([s, w, h]) => window.plotsPage.renderSvg(s, w, h), [svg, 960, 600] as const);
     expect(drawn.variance).toBeGreaterThan(20);
   });

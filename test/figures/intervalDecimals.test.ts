@@ -6,7 +6,8 @@
  * and the app's Findings (renderer assessmentWords.ts, intervalText) write the same digits.
  */
 import { describe, expect, it } from 'vitest';
-import { formatValueInInterval, intervalDecimals } from '../../src/figures/parts/tickFormat';
+import { formatEstimate, formatValueInInterval, intervalDecimals } from '../../src/figures/parts/tickFormat';
+import { estimateText } from '../../src/renderer/src/format/numberFormat';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../src/pipeline/report/intervalPrecision';
 import { intervalText, valueAtIntervalPrecision } from '../../src/renderer/src/screens/findings/assessmentWords';
 
@@ -36,5 +37,16 @@ describe('numbers at the precision of their interval', () => {
     expect(valueWithError(13.7183, 1.2123)).toEqual({ value: '13.7', error: '1.2' });
     expect(valueWithError(-0.77114, 0.0756)).toEqual({ value: '\u22120.771', error: '0.076' });
     expect(valueWithError(8.3582, null).value).toBe('8.358'); // no error: four significant digits
+  });
+
+  it('writes one J alike on one screen: the ± s.e. table and chart go to the interval\'s place once there is one', () => {
+    const iv: [number, number] = [6.5808, 10.3412];
+    expect(estimateText(8.35823, 1.0912)).toEqual({ value: '8.4', error: '1.1' }); // no interval yet: the ± rule (GUM §7.2.6)
+    expect(estimateText(8.35823, 1.0912, iv)).toEqual({ value: '8.36', error: '1.09' }); // as the answer table writes J
+    expect(estimateText(8.35823, 1.0912, iv).value).toBe(valueAtIntervalPrecision(8.35823, iv));
+    expect(formatEstimate(8.35823, 1.0912)).toBe('8.4 ± 1.1');
+    expect(formatEstimate(8.35823, 1.0912, iv)).toBe('8.36 ± 1.09');
+    expect(formatEstimate(-0.77114, 0.0756, [-0.8871, -0.6598])).toBe('\u22120.771 ± 0.076');
+    expect(estimateText(8.35823, 1.0912, [1, 1])).toEqual({ value: '8.4', error: '1.1' }); // zero width: no interval rule
   });
 });

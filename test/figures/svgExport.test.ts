@@ -40,9 +40,12 @@ describe('exportPlotSvg', () => {
 
   it('surface: escaped title, axis labels, the colour-bar label and the hatching legend as text', () => {
     const svg = svgOf(specs.surface);
-    for (const text of ['Value surface &lt;gentle gain&gt;', 'tank level (m)', 'inflow (m³/h)', 'V^π (cost, kWh)', 'never visited by the logs']) {
+    for (const text of ['Value surface &lt;gentle gain&gt;', 'tank level (m)', 'inflow (m³/h)', '(s), discounted cost (kWh)', 'never visited by the logs']) {
       expect(svg).toContain(text);
     }
+    // The colour bar's V^{π}: π a run of its own at the script size (richText.ts), never a literal caret or brace.
+    expect(svg).toMatch(/>π<\/text>/);
+    expect(svg).not.toMatch(/\^|\{π\}/);
     expect(svg).toContain('transform="matrix(0 -1 1 0'); // the y-axis and colour-bar titles are rotated text
   });
 

@@ -37,7 +37,7 @@ export function syntheticSpec(kind: PlotKind, theme: Theme): PlotSpec {
   const evaluation = threeCandidateEvaluation();
   switch (kind) {
     case 'surface':
-      return { kind, props: { surface: bowlSurface(), xLabel: 'tank level (m)', yLabel: 'inflow (m³/h)', valueLabel: 'V^π (cost, kWh)', title: 'Value surface: gentle gain', theme, heldLabel: 'outlet temperature held at 1.5 °C' } };
+      return { kind, props: { surface: bowlSurface(), xLabel: 'tank level (m)', yLabel: 'inflow (m³/h)', valueLabel: 'V^{π}(s), discounted cost (kWh)', title: 'Value surface: gentle gain', theme, heldLabel: 'outlet temperature held at 1.5 °C' } };
     case 'slice':
       return { kind, props: { slice: clippedSlice(), actionLabel: 'valve move (%)', valueLabel: 'cost (kWh)', title: 'Action values at one state', theme } };
     case 'convergence':
@@ -53,7 +53,7 @@ export function syntheticSpec(kind: PlotKind, theme: Theme): PlotSpec {
         kind, props: {
           rows: [
             ...evaluation.policies.map((p) => ({ label: p.name, value: p.policyValue, interval: [p.policyValue - 2 * p.standardError, p.policyValue + 2 * p.standardError] as const })),
-            { label: 'present controller (logged)', value: 45.3, interval: [41, 49.6] as const, present: true },
+            { label: 'present controller', value: 45.3, interval: [41, 49.6] as const, present: true },
           ],
           axisLabel: 'J, discounted cost (kWh)', title: '90 % intervals of J', theme, reference: 45.3,
         },

@@ -135,13 +135,13 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
 export function actionSupportRuleText(): string {
   const { caution, serious } = ACTION_SUPPORT_LIMITS;
   return `Action support: the mean share of the candidate's action probability outside the actions logged near each state; ` +
-    `caution above ${percent(caution)}, serious above ${percent(serious)} (our rule; the logged controller's own share is shown for scale).`;
+    `caution above ${percent(caution)}, serious above ${percent(serious)} (our rule; the present controller's own share is shown for scale).`;
 }
 
 export function actionSupportFinding(meanOutside: number, neighbours: number, loggedMeanOutside: number | null): SeverityFinding | null {
   const severity = severityAbove(meanOutside, ACTION_SUPPORT_LIMITS);
   if (!severity) return null;
-  const own = loggedMeanOutside === null ? '' : ` (the logged controller itself: ${percent(loggedMeanOutside)})`;
+  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${percent(loggedMeanOutside)})`;
   return {
     severity, topic: 'actionSupport',
     message: `On average ${percent(meanOutside)} of the candidate's action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +

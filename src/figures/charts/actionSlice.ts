@@ -9,7 +9,9 @@ import type { ChartConfiguration, ChartDataset, Plugin } from 'chart.js';
 import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { legendPlugin, type LegendKey } from '../parts/legendBox';
 import { densityOutline } from '../parts/densityOutline';
-import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
+import { drawBackedText } from '../parts/backedText';
+import { limitLabelBoxes, limitLabelFont } from '../parts/limitLabels';
+import type { PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { pointMassesAtBounds, type PointMass, type SliceBounds } from '../parts/pointMasses';
 import { interpolateOnGrid } from '../parts/sliceInterpolation';
@@ -194,33 +196,34 @@ function nodeDataset(slice: ActionSliceData, look: PlotLook): ChartDataset<'scat
   };
 }
 
-/** Dashed lines at the actuator bounds, and the probability written above each point mass. */
+/** Dashed lines at the actuator bounds, each labelled with its value and point mass beyond the line (parts/limitLabels.ts). */
 function boundsPlugin(bounds: SliceBounds | undefined, masses: PointMass[], look: PlotLook): Plugin {
   return {
     id: 'setpointActionBounds',
     afterDatasetsDraw(chart) {
       if (!bounds) return;
-      const ctx = chart.ctx, area = chart.chartArea, xs = chart.scales.x, ys = chart.scales.yMass, s = look.scale;
+      const ctx = chart.ctx, area = chart.chartArea, xs = chart.scales.x, s = look.scale;
+      const shown = ([[bounds.lo, 'lower'], [bounds.hi, 'upper']] as const).filter(([edge]) => edge >= xs.min && edge <= xs.max);
       ctx.save();
       ctx.strokeStyle = look.palette.mutedText;
-      ctx.fillStyle = look.palette.text;
       ctx.lineWidth = s;
       ctx.setLineDash([5 * s, 4 * s]);
-      ctx.font = fontString(look, PLOT_FONTS.tickPx);
-      ctx.textBaseline = 'bottom';
-      for (const [edge, name] of [[bounds.lo, 'lower limit'], [bounds.hi, 'upper limit']] as const) {
-        if (!(edge >= xs.min && edge <= xs.max)) continue;
+      for (const [edge] of shown) {
         const x = xs.getPixelForValue(edge);
         ctx.beginPath();
         ctx.moveTo(x, area.top);
         ctx.lineTo(x, area.bottom);
         ctx.stroke();
-        const mass = masses.find((m) => m.action === edge);
-        const text = `${name} ${formatValue(edge)}${mass ? `: P = ${formatValue(mass.probability)}` : ''}`;
-        ctx.textAlign = edge === bounds.lo ? 'left' : 'right';
-        const y = mass ? Math.max(area.top + 14 * s, ys.getPixelForValue(mass.probability) - 3 * s) : area.top + 14 * s;
-        ctx.fillText(text, x + (edge === bounds.lo ? 4 : -4) * s, y);
       }
+      ctx.setLineDash([]);
+      const { font, heightPx } = limitLabelFont(look);
+      ctx.font = font;
+      const texts = shown.map(([edge, side]) => {
+        const mass = masses.find((m) => m.action === edge);
+        return `${side} limit ${formatValue(edge)}${mass ? `: P = ${formatValue(mass.probability)}` : ''}`;
+      });
+      const boxes = limitLabelBoxes(shown.map(([edge, side], i) => ({ x: xs.getPixelForValue(edge), side, widthPx: ctx.measureText(texts[i]).width })), area, heightPx, s);
+      boxes.forEach((box, i) => drawBackedText(ctx, texts[i], box, look.palette.text, look));
       ctx.restore();
     },
   };

@@ -32,6 +32,8 @@ export interface PolicyValueChartProps {
   title?: string;
   /** The cost's or reward's own unit, e.g. "€" or "kWh"; J is in it, discounted. */
   unit?: string;
+  /** Each row's interval where one is shown beside the chart (candidates, then the baseline): its labels take the interval's decimals. */
+  intervals?: readonly ([number, number] | null)[];
 }
 
 export const LOGGED_BEHAVIOUR_LABEL = PRESENT_CONTROLLER;
@@ -73,7 +75,7 @@ export function policyValueChart(props: PolicyValueChartProps, look: PlotLook): 
   const rows = policyValueRows(props.evaluation), p = look.palette, s = look.scale, d = POLICY_VALUE_DEFAULTS;
   const ends = rows.flatMap((r) => [r.value - (r.error ?? 0), r.value + (r.error ?? 0), 0]);
   const lo = Math.min(...ends), hi = Math.max(...ends), span = hi - lo || 1;
-  const labels = rows.map((r) => formatEstimate(r.value, r.error));
+  const labels = rows.map((r, i) => formatEstimate(r.value, r.error, props.intervals?.[i] ?? null));
   const colours = rows.map((_, i) => (i === rows.length - 1 ? p.reference : p.series[i % p.series.length]));
   const shared = sharedOptions(look, props.title ?? d.title, 'bars: estimate of J; whiskers: ±1 standard error over the start states (not the fit’s own error)');
   return {
@@ -119,5 +121,5 @@ export function policyValueChart(props: PolicyValueChartProps, look: PlotLook): 
 export function policyValueSummary(props: PolicyValueChartProps): string {
   const rows = policyValueRows(props.evaluation);
   return `Policy value J per candidate (${valueSenseText(props.evaluation.valueSense)}), ±1 standard error: `
-    + rows.map((r) => `${r.label} ${formatEstimate(r.value, r.error)}`).join('; ') + '.';
+    + rows.map((r, i) => `${r.label} ${formatEstimate(r.value, r.error, props.intervals?.[i] ?? null)}`).join('; ') + '.';
 }

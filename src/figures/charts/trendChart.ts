@@ -10,6 +10,7 @@
 import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { clockText, durationText } from '../../core/clockText';
 import type { TrendData, TrendSignal } from '../../core/trend/signalEnvelope';
+import { BACKED_TEXT_DEFAULTS, drawBackedText } from '../parts/backedText';
 import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
@@ -187,7 +188,7 @@ function bandLabels(signals: readonly TrendSignal[], look: PlotLook): Plugin<'li
   return {
     id: 'setpointTrendBandLabels',
     afterDatasetsDraw(chart) {
-      const { ctx } = chart, pad = 3 * look.scale;
+      const { ctx } = chart, pad = BACKED_TEXT_DEFAULTS.paddingPx * look.scale;
       ctx.save();
       ctx.font = fontString(look, PLOT_FONTS.legendPx, 'bold');
       ctx.textBaseline = 'top';
@@ -195,13 +196,8 @@ function bandLabels(signals: readonly TrendSignal[], look: PlotLook): Plugin<'li
         const axis = chart.scales[`y${k}`];
         if (!axis) return;
         const text = signalLabel(signal), width = ctx.measureText(text).width;
-        const left = chart.chartArea.right - width - 2 * pad, top = axis.top + pad;
-        ctx.fillStyle = look.palette.background;
-        ctx.globalAlpha = 0.85;
-        ctx.fillRect(left - pad, top - pad / 2, width + 2 * pad, PLOT_FONTS.legendPx * look.scale + pad);
-        ctx.globalAlpha = 1;
-        ctx.fillStyle = look.palette.series[k % look.palette.series.length];
-        ctx.fillText(text, left, top);
+        const box = { left: chart.chartArea.right - width - 2 * pad, top: axis.top + pad, width, height: PLOT_FONTS.legendPx * look.scale };
+        drawBackedText(ctx, text, box, look.palette.series[k % look.palette.series.length], look);
       });
       ctx.restore();
     },

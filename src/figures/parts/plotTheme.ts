@@ -75,6 +75,8 @@ export function plotPalette(theme: Theme): PlotPalette {
  * the app, its exports and the report: the palette's reference grey, dashed, under this name.
  */
 export const PRESENT_CONTROLLER = 'present controller';
-/** The logged discounted return, shown beside the baseline as a check. */
-export const LOGGED_RETURN_LABEL = 'logged return (check)';
+/** The discounted return the log itself earned (not a model): beside the baseline as a check, or the baseline where no model of the present controller could be fitted. */
+export const LOGGED_RETURN = 'logged return';
+/** The logged return where it is shown as the check beside the present controller. */
+export const LOGGED_RETURN_LABEL = `${LOGGED_RETURN} (check)`;
 export const PRESENT_DASH_PX: readonly number[] = [6, 4];

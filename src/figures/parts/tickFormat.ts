@@ -10,7 +10,12 @@ export function formatTick(value: number, fractionDigits: number): string {
   if (value === 0) return (0).toFixed(Math.min(20, fractionDigits));
   const magnitude = Math.abs(value);
   if (magnitude >= EXPONENT_ABOVE || magnitude < EXPONENT_BELOW) return trueMinus(value.toExponential(2).replace('e+', 'e'));
-  return trueMinus(value.toLocaleString('en-US', { minimumFractionDigits: fractionDigits, maximumFractionDigits: fractionDigits }));
+  return toDecimals(value, fractionDigits);
+}
+
+/** Fixed decimals with thousands separators and a true minus, never exponent form. */
+function toDecimals(value: number, decimals: number): string {
+  return trueMinus(value.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals }));
 }
 
 /** The minus sign U+2212 for the hyphen-minus (typographic practice for numbers; ISO 80000-2). */
@@ -47,14 +52,21 @@ export function formatValue(value: number): string {
 /**
  * A value with its standard error as "5.76 ± 0.18": the error to two significant digits and the
  * value to the same decimal place (the usual way to quote a result with its uncertainty; JCGM 100,
- * the GUM, §7.2.2 — common practice). Exponent form outside 1e-4 … 1e6.
+ * the GUM, §7.2.2 — common practice). Exponent form outside 1e-4 … 1e6. Where the value is also
+ * shown with an interval, both go to the interval's decimal place (intervalDecimals), so one value
+ * reads the same beside its interval and beside its error.
  */
-export function formatEstimate(value: number, error: number | null): string {
+export function formatEstimate(value: number, error: number | null, interval: readonly [number, number] | null = null): string {
+  const atInterval = intervalDecimals(interval);
+  if (atInterval !== null && Number.isFinite(value)) {
+    const fixed = (x: number) => toDecimals(x, atInterval);
+    return error === null || !Number.isFinite(error) || error <= 0 ? fixed(value) : `${fixed(value)} ± ${fixed(error)}`;
+  }
   if (error === null || !Number.isFinite(error) || error <= 0) return formatValue(value);
   const magnitude = Math.max(Math.abs(value), error);
   if (magnitude >= EXPONENT_ABOVE || magnitude < EXPONENT_BELOW) return `${formatValue(value)} ± ${formatValue(error)}`;
   const decimals = Math.min(12, Math.max(0, 1 - Math.floor(Math.log10(error))));
-  const fixed = (x: number) => trueMinus(x.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals }));
+  const fixed = (x: number) => toDecimals(x, decimals);
   return `${fixed(value)} ± ${fixed(error)}`;
 }
 
@@ -84,5 +96,5 @@ export function decimalsAt(scale: number, significant: number): number {
 export function formatValueInInterval(value: number, interval: readonly [number, number] | null | undefined): string {
   const decimals = intervalDecimals(interval);
   if (decimals === null || !Number.isFinite(value)) return formatValue(value);
-  return trueMinus(value.toLocaleString('en-US', { minimumFractionDigits: decimals, maximumFractionDigits: decimals }));
+  return toDecimals(value, decimals);
 }

@@ -50,10 +50,6 @@ export function formatWrittenAt(iso: string): string {
   return isoTimeText(iso, 'full');
 }
 
-export function formatInterval(iv: readonly [number, number] | null, digits = 4): string {
-  return iv ? `[${formatNumber(iv[0], digits)}, ${formatNumber(iv[1], digits)}]` : '—';
-}
-
 export function formatPercent(share: number | null | undefined, decimals = 1): string {
   return share === null || share === undefined || !Number.isFinite(share) ? '—' : `${(100 * share).toFixed(decimals)} %`;
 }

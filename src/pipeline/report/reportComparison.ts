@@ -1,11 +1,11 @@
 /** The comparison section: J of every policy with its intervals, paired differences and the ranking. */
 import type { Assessment, IntervalEstimate } from '../assessment';
-import { BEHAVIOUR_NAME } from '../assessAssembly';
 import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from './intervalPrecision';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
-import { LOGGED_RETURN_LABEL } from '../../figures/parts/plotTheme';
+import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
+import { policyLabel } from '../policyNames';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
@@ -17,20 +17,20 @@ export function comparisonSection(input: ReportInput, figures: FigureCounter): H
 function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCounter): Html {
   const words = senseWords(input), level = formatPercent(a.settings.level, 0);
   const baseline = a.comparison.baseline, pc = a.presentController;
-  const vsToday = new Map(a.comparison.differences.filter((d) => d.b === baseline.name).map((d) => [d.a, d]));
+  const vsBaseline = new Map(a.comparison.differences.filter((d) => d.b === baseline.name).map((d) => [d.a, d]));
   const rows = [
     ...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue, present: false })),
-    ...(pc ? [{ name: `${pc.name} — baseline`, estimate: pc.policyValue, present: true }, { name: 'logged return, completed past time limits (check)', estimate: pc.completedReturn, present: false }] : []),
-    { name: pc ? 'logged return (check; cut short at time limits)' : 'logged return — baseline', estimate: a.behaviour, present: !pc },
+    ...(pc ? [{ name: `${PRESENT_CONTROLLER} — baseline`, estimate: pc.policyValue, present: true }, { name: `${LOGGED_RETURN}, completed past time limits (check)`, estimate: pc.completedReturn, present: false }] : []),
+    { name: pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} — baseline`, estimate: a.behaviour, present: !pc },
   ];
   const figure = figures.next(), reference = pc ? pc.policyValue.value : a.behaviour.value;
   const chartRows: IntervalRowData[] = rows.map((r) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: r.present }));
   return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
-      Intervals are ${level} bootstrap intervals over runs; “vs today” is the paired difference J − J(baseline) on the same resamples.</p>
+      Intervals are ${level} bootstrap intervals over runs; “minus baseline” is the paired difference J − J(baseline) on the same resamples.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th>
-      <th class="num">vs today</th><th class="num">${level} interval of the difference</th><th class="num">Better than today in</th></tr></thead><tbody>
+      <th class="num">Minus baseline</th><th class="num">${level} interval of the difference</th><th class="num">Better than the baseline in</th></tr></thead><tbody>
     ${rows.map((r) => {
-      const d = r.present ? undefined : vsToday.get(r.name);
+      const d = r.present ? undefined : vsBaseline.get(r.name);
       return html`<tr><td>${r.name}</td>${estimateCells(r.estimate)}<td class="num">${d ? valueAtPrecision(d.difference.value, d.difference.percentile) : ''}</td>
         <td class="num">${d ? intervalAtPrecision(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(d.probabilityBetter) : ''}</td></tr>`;
     })}
@@ -39,10 +39,10 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
       <figcaption>Figure ${figure}. J of each candidate and of the baseline (dashed line) with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} runs. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
     ${pairwise(a, level)}
     <h3>Ranking</h3>
-    <p>By point estimate: <strong>${a.comparison.ranking.order.join(' › ')}</strong>. ${a.comparison.ranking.frequency === null
+    <p>By point estimate: <strong>${a.comparison.ranking.order.map(policyLabel).join(' › ')}</strong>. ${a.comparison.ranking.frequency === null
       ? 'How often it holds is not known: not every policy was resampled.'
       : `This whole order holds in ${formatPercent(a.comparison.ranking.frequency)} of the resamples.`}</p>
-    <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${n.better} better than ${n.worse}${n.frequency === null ? '' : ` in ${formatPercent(n.frequency)} of resamples`}</li>`)}</ul>`;
+    <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${policyLabel(n.better)} better than ${policyLabel(n.worse)}${n.frequency === null ? '' : ` in ${formatPercent(n.frequency)} of resamples`}</li>`)}</ul>`;
 }
 
 function resampleShare(share: number | null): string {
@@ -60,7 +60,7 @@ function pairwise(a: Assessment, level: string): Html {
   if (!between.length) return html``;
   return html`<h3>Candidates against each other</h3>
     <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">First better in</th></tr></thead><tbody>
-    ${between.map((d) => html`<tr><td>${d.a} − ${d.b}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${formatNumber(d.difference.standardError, 2)}</td>
+    ${between.map((d) => html`<tr><td>${policyLabel(d.a)} − ${policyLabel(d.b)}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${formatNumber(d.difference.standardError, 2)}</td>
       <td class="num">${intervalAtPrecision(d.difference.percentile)}</td><td class="num">${resampleShare(d.probabilityBetter)}</td></tr>`)}
     </tbody></table>`;
 }
@@ -70,7 +70,7 @@ function pointComparison(input: ReportInput): Html {
   return html`<p>Point estimates only (no intervals: ${input.assessmentProblems.join('; ')}). The ± column covers start-state sampling only.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">± s.e.</th><th>Fit</th></tr></thead><tbody>
     ${e.policies.map((p) => html`<tr><td>${p.name}</td>${errorCells(p.policyValue, p.standardError)}<td>${p.status}</td></tr>`)}
-    <tr><td>${BEHAVIOUR_NAME}</td>${errorCells(e.behaviour.value, e.behaviour.standardError)}<td>${e.behaviour.episodes} runs</td></tr>
+    <tr><td>${LOGGED_RETURN}</td>${errorCells(e.behaviour.value, e.behaviour.standardError)}<td>${e.behaviour.episodes} runs</td></tr>
     </tbody></table>`;
 }
 
@@ -86,7 +86,5 @@ export function intervalFigure(id: string, rows: IntervalRowData[], axisLabel: s
     { widthPx: 640, heightPx: intervalChartHeight(rows.length), id, label: axisLabel.replace(/\^\{|\}|_\{/g, '') });
 }
 
-/** A policy's name as the report shows it: the logged return reads as the check it is. */
-export function shownName(name: string): string {
-  return name === BEHAVIOUR_NAME ? LOGGED_RETURN_LABEL : name;
-}
+/** A policy's name as the report shows it. */
+export const shownName = policyLabel;

@@ -4,14 +4,15 @@ import { summariseCandidate } from '../../project/candidateSummary';
 import { CAUTIONS } from '../cautions';
 import { html, formatNumber, formatPercent, formatWrittenAt, type Html } from './htmlText';
 import { senseWords, type ReportInput } from './reportInput';
+import { policyLabel } from '../policyNames';
 
 export function summarySection(input: ReportInput): Html {
   const a = input.assessment, e = input.evaluation, words = senseWords(input);
   const ranking = a?.comparison.ranking;
-  const best = ranking ? ranking.order[0] : [...e.policies].sort((x, y) => (e.valueSense === 'cost' ? x.policyValue - y.policyValue : y.policyValue - x.policyValue))[0]?.name;
+  const best = ranking ? policyLabel(ranking.order[0]) : [...e.policies].sort((x, y) => (e.valueSense === 'cost' ? x.policyValue - y.policyValue : y.policyValue - x.policyValue))[0]?.name;
   const serious = a ? [...a.warnings, ...a.candidates.flatMap((c) => c.warnings)].filter((w) => w.severity === 'serious').length : null;
   return html`<div class="summary" id="summary"><p><strong>Summary.</strong> Values are the ${words.value} (${words.better}). By point estimate the best policy is
-    <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.join(' › ')} holds in ${formatPercent(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
+    <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.map(policyLabel).join(' › ')} holds in ${formatPercent(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
     ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p></div>`;
 }
 
@@ -31,7 +32,7 @@ export function jobSection(input: ReportInput): Html {
       <tr><th>Data file</th><td>${p.data.path}</td></tr>
       <tr><th>Evaluated</th><td>${input.evaluation.evaluatedAt}</td></tr>
       <tr><th>Report written</th><td>${formatWrittenAt(input.generatedAt)}</td></tr>
-      <tr><th>Question</th><td>How would each of ${p.candidates.length} candidate setpoint polic${p.candidates.length === 1 ? 'y' : 'ies'} perform, judged offline from the logs gathered under today’s controller?</td></tr>
+      <tr><th>Question</th><td>How would each of ${p.candidates.length} candidate setpoint polic${p.candidates.length === 1 ? 'y' : 'ies'} perform, judged offline from the logs gathered under the present controller?</td></tr>
     </tbody></table>
     <h3>Candidates</h3>
     <table><thead><tr><th>Name</th><th>Mean action</th><th>Dither</th><th>Limits</th><th>Description</th></tr></thead><tbody>

@@ -13,7 +13,7 @@ import { richTextHtml, subscriptMarkup } from '../../figures/parts/richText';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
-import { escapeHtml, formatInterval, formatNumber, html, raw, type Html } from './htmlText';
+import { escapeHtml, formatNumber, html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision } from './intervalPrecision';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
@@ -64,7 +64,7 @@ function mapTable(map: RetuneMapResult): Html {
     : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${valueAtPrecision(map.presentController, bestInterval)}`}.</p>`;
   const notes = html`<ul class="small">${map.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"
-    title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${formatNumber(p.occupancyShift, 3)}">${p.value === null ? `no value (${p.status})` : formatNumber(p.value, 4)}<br/><span class="small">${formatInterval(p.interval, 3)}</span></td>`;
+    title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${formatNumber(p.occupancyShift, 3)}">${p.value === null ? `no value (${p.status})` : valueAtPrecision(p.value, p.interval)}<br/><span class="small">${intervalAtPrecision(p.interval)}</span></td>`;
   if (map.axes.length === 1) {
     return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">J and interval</th></tr></thead><tbody>
       ${map.points.map((p, i) => html`<tr><td class="num">${formatNumber(p.coordinates[0], 4)}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;

@@ -23,6 +23,7 @@ td.num { white-space: nowrap; }
 .retune-unknown { background: #f4f4f4; }
 .retune-best { outline: 3px solid var(--ink); outline-offset: -3px; }
 .retune-grid td, .retune-grid th { padding: 2px 4px; font-size: 0.85em; }
+.retune-grid td.num { white-space: normal; } /* an interval may break after its comma, so a 10-column grid fits the A4 text width */
 figure { margin: 14px 0 20px; break-inside: avoid; page-break-inside: avoid; }
 figcaption { font-size: 12.5px; color: var(--muted); max-width: 86ch; margin-top: 4px; }
 svg { max-width: 100%; height: auto; font-size: 11px; font-family: inherit; }

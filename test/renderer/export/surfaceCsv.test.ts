@@ -6,13 +6,13 @@ import { bowlSurface } from '../../figures/syntheticPlotData';
 
 describe('surfaceCsv (long form, RFC 4180)', () => {
   const surface = bowlSurface(4, 3);
-  const csv = surfaceCsv(surface, 'V^π (cost, kWh)');
+  const csv = surfaceCsv(surface, 'V^{π}(s), discounted cost (kWh)'); // the app's axis markup (plotLabels.valueLabel)
 
   it('parses with an independent CSV reader (papaparse) into one record per grid point', () => {
     const parsed = Papa.parse<string[]>(csv, { comments: '#', skipEmptyLines: true });
     expect(parsed.errors).toEqual([]);
     const [header, ...rows] = parsed.data;
-    expect(header).toEqual(['tank level', 'inflow', 'V^π (cost, kWh)', 'visits']);
+    expect(header).toEqual(['tank level', 'inflow', 'Vπ(s), discounted cost (kWh)', 'visits']); // plain text: no markup braces in a CSV
     expect(rows).toHaveLength(12);
     // y outer, x inner: record 5 is (x[1], y[1]).
     expect(rows[5].map(Number)).toEqual([surface.x[1], surface.y[1], surface.values[5], surface.visits[5]]);

@@ -12,9 +12,9 @@ import { sliceExplanation } from '../../../src/renderer/src/screens/findings/plo
 
 describe('slice explanation', () => {
   it('says the nodes average to V^π(s) with one action only', () => {
-    expect(sliceExplanation(1)).toMatch(/weighted mean is V\^π\(s\)/);
+    expect(sliceExplanation(1)).toMatch(/weighted mean is V\^\{π\}\(s\)/);
     expect(sliceExplanation(2)).toMatch(/other actions held at the policy’s median action/);
-    expect(sliceExplanation(2)).toMatch(/is not V\^π\(s\)/);
+    expect(sliceExplanation(2)).toMatch(/is not V\^\{π\}\(s\)/);
   });
 
   it('is right that a two-action slice does not average to V^π(s)', () => {

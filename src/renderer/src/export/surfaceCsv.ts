@@ -9,6 +9,7 @@
  * double quotes with inner quotes doubled. Numbers are written in shortest round-trip form; a
  * non-finite V is an empty field.
  */
+import { plainText } from '../../../figures/parts/richText';
 import { CAUTION_SHORT } from '../../../pipeline/cautions';
 import type { ValueSurface } from '../../../pipeline/estimates';
 
@@ -40,11 +41,11 @@ function numberField(v: number): string {
 export function surfaceCsv(surface: ValueSurface, valueLabel: string): string {
   const nx = surface.x.length, ny = surface.y.length;
   const lines = [
-    `# Value surface ${commentText(valueLabel)} over ${commentText(surface.xState)} and ${commentText(surface.yState)}: ${nx}×${ny} grid in long form (one row per grid point — ${commentText(surface.yState)} outer and ${commentText(surface.xState)} inner).`,
+    `# Value surface ${commentText(plainText(valueLabel))} over ${commentText(surface.xState)} and ${commentText(surface.yState)}: ${nx}×${ny} grid in long form (one row per grid point — ${commentText(surface.yState)} outer and ${commentText(surface.xState)} inner).`,
     '# visits = logged states nearest the grid point (projected onto these two states); 0 = never visited, V there is extrapolated.',
     `# Other states held at: ${surface.heldState.map(numberField).join(' | ')}`,
     `# ${CAUTION_SHORT}`,
-    [surface.xState, surface.yState, valueLabel, 'visits'].map(csvField).join(','),
+    [surface.xState, surface.yState, plainText(valueLabel), 'visits'].map(csvField).join(','),
   ];
   for (let iy = 0; iy < ny; iy++) {
     for (let ix = 0; ix < nx; ix++) {

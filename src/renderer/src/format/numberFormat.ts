@@ -2,7 +2,7 @@
  * Numbers as people read them on screen: a few significant digits, no trailing zeros, exponent
  * notation only for very large or very small magnitudes, and a true minus sign.
  */
-import { decimalsAt } from '../../../figures/parts/tickFormat';
+import { decimalsAt, intervalDecimals } from '../../../figures/parts/tickFormat';
 import { isoTimeText } from '../../../core/clockText';
 
 export function formatNumber(x: number, significant = 4): string {
@@ -72,9 +72,16 @@ export function sentence(text: string): string {
 
 /**
  * A value and its standard error at one precision: the error to two significant digits, the value
- * to the same decimal place (JCGM 100, the GUM, §7.2.2 — common practice).
+ * to the same decimal place (JCGM 100, the GUM, §7.2.2 — common practice). Where the value also has
+ * an interval on the same screen, both go to the interval's decimal place instead (intervalDecimals,
+ * figures/parts/tickFormat.ts), so one J prints alike in every table that shows it.
  */
-export function estimateText(value: number, error: number | null): { value: string; error: string } {
+export function estimateText(value: number, error: number | null, interval: readonly [number, number] | null = null): { value: string; error: string } {
+  const decimals = intervalDecimals(interval);
+  if (decimals !== null && Number.isFinite(value)) {
+    const fixed = fixedToDecimals(decimals);
+    return { value: fixed(value), error: error === null || !Number.isFinite(error) ? '—' : fixed(error) };
+  }
   if (error === null || !Number.isFinite(error) || error <= 0 || !Number.isFinite(value)) return { value: formatNumber(value, 4), error: error === null ? '—' : formatNumber(error, 2) };
   const fixed = fixedAtPrecisionOf(error, 2);
   return { value: fixed(value), error: fixed(error) };

@@ -11,7 +11,9 @@ export interface GlossaryEntry {
 }
 
 export const GLOSSARY: readonly GlossaryEntry[] = [
-  { term: 'Present controller (logged)', aka: 'behaviour policy', meaning: 'The controller that ran while the log was recorded. Its discounted cost is read straight off the log; every candidate is compared with it.' },
+  { term: 'Present controller', aka: 'behaviour policy, in the off-policy literature', meaning: 'The controller that ran while the log was recorded, as modelled from the log (gain, offset, dither and the actuator limits seen) and evaluated like any candidate.' },
+  { term: 'Logged return', meaning: 'The discounted cost the log itself earned, averaged over the runs: read straight off the log, no model. Shown beside the present controller as a check; cut short where a run ends on a time limit.' },
+  { term: 'Baseline', meaning: 'What every candidate is compared with: the present controller, or the logged return where no model of the present controller could be fitted.' },
   { term: 'Candidate', aka: 'target policy', meaning: 'A retune to judge before it touches the plant: a mean action (offset plus a gain on each state), a dither around it, and optional actuator limits.' },
   { term: 'Run', aka: 'episode, batch', meaning: 'A stretch of the log recorded without a break; discounted costs are summed within a run, never across two.' },
   { term: 'Logged step', aka: 'transition', meaning: 'One row of the log with the next: state, action, cost, and the state that followed.' },
@@ -31,7 +33,6 @@ export const GLOSSARY: readonly GlossaryEntry[] = [
   { term: 'Paired difference', meaning: 'J of one policy minus J of another on the same resamples, so luck in which runs were logged cancels.' },
   { term: 'Cross-checks', aka: 'importance sampling, doubly robust, model check', meaning: 'Other estimates of the same J under other assumptions. Agreement is evidence; disagreement is a reason to look closer.' },
   { term: 'Occupancy shift', meaning: 'How far the states and actions a candidate would visit (discounted, from the start states) lie from the logged ones, in the fit’s own terms; 1 means like the logs. The estimate’s error grows with its square root.' },
-  { term: 'Present controller', meaning: 'Today’s controller as modelled from the log (gain, offset, dither and the actuator limits seen), evaluated like any candidate: the baseline every candidate is compared with.' },
   { term: 'Function classes', meaning: 'The same candidate fitted with polynomial features of several degrees. When they disagree beyond sampling error the estimate is “not settled” and the range spanning them is reported.' },
   { term: 'Effective sample size', meaning: 'How many logged steps or runs the reweighted log is worth for a candidate; few means noisy cross-checks.' },
   { term: 'Unvisited cells', meaning: 'Cells of a value surface with no logged state nearest them: there the value is extrapolated, not measured.' },

@@ -16,7 +16,7 @@ export function policyValueData(evaluation: PolicyValueData): PolicyValueData {
   };
 }
 
-export function PolicyValueChart({ evaluation, theme, title, unit }: PolicyValueChartProps) {
-  const spec = useMemo<PlotSpec>(() => ({ kind: 'comparison', props: { evaluation: policyValueData(evaluation), theme, title, unit } }), [evaluation, theme, title, unit]);
+export function PolicyValueChart({ evaluation, theme, title, unit, intervals }: PolicyValueChartProps) {
+  const spec = useMemo<PlotSpec>(() => ({ kind: 'comparison', props: { evaluation: policyValueData(evaluation), theme, title, unit, intervals } }), [evaluation, theme, title, unit, intervals]);
   return <PlotFigure spec={spec} />;
 }

@@ -12,6 +12,7 @@ import { intervalText, levelText, shareText, valueAtIntervalPrecision } from './
 import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
 import { displayName, valueUnit } from './plotLabels';
+import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
 import { TRIAL_RULE, trialChoice, type TrialChoice, type TrialLine } from './trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
 
@@ -85,7 +86,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
 function PointTable({ evaluation, unit }: { evaluation: Evaluation; unit: string }) {
   const pc = evaluation.presentController;
   const rows = [...evaluation.policies.map((p) => ({ name: p.name, value: p.policyValue, se: p.standardError })),
-    pc ? { name: 'present controller, modelled (baseline)', value: pc.estimate.policyValue, se: pc.estimate.standardError } : { name: 'logged return (baseline)', value: evaluation.behaviour.value, se: evaluation.behaviour.standardError }];
+    pc ? { name: `${PRESENT_CONTROLLER} (baseline)`, value: pc.estimate.policyValue, se: pc.estimate.standardError } : { name: `${LOGGED_RETURN} (baseline)`, value: evaluation.behaviour.value, se: evaluation.behaviour.standardError }];
   return (
     <table className="answer-table" data-testid="answer-table">
       <thead><tr><th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">± s.e.</th></tr></thead>

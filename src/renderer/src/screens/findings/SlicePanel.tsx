@@ -5,6 +5,7 @@
 import { useMemo, useState } from 'react';
 import { ActionSlicePlot } from '../../plots';
 import { ProblemList } from '../../components/ProblemList';
+import { RichText } from '../../components/RichText';
 import { SelectField } from '../../components/SelectField';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { DataImport } from '../../../../shared/workerMessages';
@@ -39,7 +40,7 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
   } : null;
   return (
     <>
-      <p className="small muted">{sliceExplanation(doc.columns.actions.length)}</p>
+      <p className="small muted"><RichText text={sliceExplanation(doc.columns.actions.length)} /></p>
       <div className="row">
         <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="slice-candidate"
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />

@@ -6,6 +6,7 @@ import { useMemo, useState } from 'react';
 import { ValueSurfacePlot } from '../../plots';
 import { surfaceCsv } from '../../export';
 import { ProblemList } from '../../components/ProblemList';
+import { RichText } from '../../components/RichText';
 import { SelectField } from '../../components/SelectField';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { DataImport } from '../../../../shared/workerMessages';
@@ -46,7 +47,7 @@ export function SurfacePanel({ evaluation, imported, theme, restored = false }: 
   } : null;
   return (
     <>
-      <p className="small muted">V^π(s) over two states; hatched cells are where the logs never went, so V there is extrapolated.</p>
+      <p className="small muted"><RichText text="V^{π}(s) over two states; hatched cells are where the logs never went, so V there is extrapolated." /></p>
       <div className="row">
         <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="surface-candidate"
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />

@@ -5,6 +5,7 @@
  * the fit went; once the assessment is in, the bootstrap interval of each (percentile, the basic
  * interval in its tooltip).
  */
+import { useMemo } from 'react';
 import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessment';
 import { PolicyValueChart } from '../../plots';
 import type { Evaluation } from '../../../../pipeline/estimates';
@@ -33,10 +34,16 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
   const level = assessment?.settings.level ?? 0;
   const sense = evaluation.valueSense === 'cost' ? `J is the expected discounted cost${unit ? ` in ${unit}` : ''} from the start states on (lower is better)` : `J is the expected discounted reward${unit ? ` in ${unit}` : ''} from the start states on (higher is better)`;
   const b = evaluation.behaviour, pc = evaluation.presentController;
+  // With intervals computed, every J here is written at its interval's decimal place, as the answer table writes it.
+  const presentInterval = assessment?.presentController?.policyValue.percentile ?? null;
+  const completedInterval = assessment?.presentController?.completedReturn.percentile ?? null, loggedInterval = assessment?.behaviour.percentile ?? null;
+  const chartIntervals = useMemo(() => (assessment
+    ? [...evaluation.policies.map((_, i) => assessment.candidates[i]?.policyValue.percentile ?? null), pc ? presentInterval : loggedInterval] : undefined),
+  [assessment, evaluation, pc, presentInterval, loggedInterval]);
   return (
     <FoldPanel section="values" span="span-2" testId="panel-values" gist={`J of ${plural(evaluation.policies.length, 'candidate')} beside the baseline: chart, table and how each fit went.`}>
       <p className="small muted">{sense}. ± is one standard error over the start states only; it does not cover the error of the fit (the interval does, once computed).</p>
-      <PolicyValueChart evaluation={evaluation} theme={theme} unit={unit} />
+      <PolicyValueChart evaluation={evaluation} theme={theme} unit={unit} intervals={chartIntervals} />
       <table data-testid="value-table">
         <thead>
           <tr>
@@ -46,39 +53,42 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
           </tr>
         </thead>
         <tbody>
-          {evaluation.policies.map((p, i) => (
-            <tr key={p.name} data-testid={`value-row-${i}`}>
-              <th scope="row">{p.name}</th>
-              <td className="number" data-testid={`policy-value-${i}`} data-value={String(p.policyValue)}>{estimateText(p.policyValue, p.standardError).value}</td>
-              <td className="number">{estimateText(p.policyValue, p.standardError).error}</td>
-              {assessment && <IntervalCell estimate={assessment.candidates[i]?.policyValue} level={level} testId={`policy-interval-${i}`} />}
-              <td className="number">{p.fixedPointValue === null ? '—' : estimateText(p.fixedPointValue, p.standardError).value}</td>
-              <td>{STATUS[p.status] ?? p.status} ({plural(p.iterations, 'iteration')})</td>
-              <td className="small" data-testid={`policy-account-${i}`}>{sentence(p.message)}
-                {p.network && (
-                  <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
-                    {' '}{levelText(p.network.level)} interval {intervalText(p.network.interval)}; degree-2 linear {formatNumber(p.network.linear.value, 4)} {intervalText(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
-                  </span>
-                )}
-                <details className="details-section"><summary>Details</summary>Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
-            </tr>
-          ))}
+          {evaluation.policies.map((p, i) => {
+            const interval = assessment?.candidates[i]?.policyValue.percentile ?? null, shown = estimateText(p.policyValue, p.standardError, interval);
+            return (
+              <tr key={p.name} data-testid={`value-row-${i}`}>
+                <th scope="row">{p.name}</th>
+                <td className="number" data-testid={`policy-value-${i}`} data-value={String(p.policyValue)}>{shown.value}</td>
+                <td className="number">{shown.error}</td>
+                {assessment && <IntervalCell estimate={assessment.candidates[i]?.policyValue} level={level} testId={`policy-interval-${i}`} />}
+                <td className="number">{p.fixedPointValue === null ? '—' : estimateText(p.fixedPointValue, p.standardError, interval).value}</td>
+                <td>{STATUS[p.status] ?? p.status} ({plural(p.iterations, 'iteration')})</td>
+                <td className="small" data-testid={`policy-account-${i}`}>{sentence(p.message)}
+                  {p.network && (
+                    <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
+                      {' '}{levelText(p.network.level)} interval {intervalText(p.network.interval)}; degree-2 linear {formatNumber(p.network.linear.value, 4)} {intervalText(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
+                    </span>
+                  )}
+                  <details className="details-section"><summary>Details</summary>Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
+              </tr>
+            );
+          })}
           {pc && (
             <tr data-testid="value-row-present">
-              <th scope="row">Present controller, modelled <span className="small muted">(baseline)</span></th>
-              <td className="number" data-testid="present-value" data-value={String(pc.estimate.policyValue)}>{estimateText(pc.estimate.policyValue, pc.estimate.standardError).value}</td>
-              <td className="number">{estimateText(pc.estimate.policyValue, pc.estimate.standardError).error}</td>
+              <th scope="row">Present controller <span className="small muted">(baseline)</span></th>
+              <td className="number" data-testid="present-value" data-value={String(pc.estimate.policyValue)}>{estimateText(pc.estimate.policyValue, pc.estimate.standardError, presentInterval).value}</td>
+              <td className="number">{estimateText(pc.estimate.policyValue, pc.estimate.standardError, presentInterval).error}</td>
               {assessment && <IntervalCell estimate={assessment.presentController?.policyValue} level={level} testId="present-interval" />}
-              <td className="number">{pc.estimate.fixedPointValue === null ? '—' : estimateText(pc.estimate.fixedPointValue, pc.estimate.standardError).value}</td>
+              <td className="number">{pc.estimate.fixedPointValue === null ? '—' : estimateText(pc.estimate.fixedPointValue, pc.estimate.standardError, presentInterval).value}</td>
               <td>{STATUS[pc.estimate.status] ?? pc.estimate.status} ({plural(pc.estimate.iterations, 'iteration')})</td>
-              <td className="small">Today’s controller as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.</td>
+              <td className="small">The controller that ran while the log was recorded, as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.</td>
             </tr>
           )}
           {pc && (
             <tr data-testid="value-row-completed">
               <th scope="row">Logged return, completed <span className="small muted">(check)</span></th>
-              <td className="number" data-value={String(pc.completedReturn.value)}>{estimateText(pc.completedReturn.value, pc.completedReturn.standardError).value}</td>
-              <td className="number">{estimateText(pc.completedReturn.value, pc.completedReturn.standardError).error}</td>
+              <td className="number" data-value={String(pc.completedReturn.value)}>{estimateText(pc.completedReturn.value, pc.completedReturn.standardError, completedInterval).value}</td>
+              <td className="number">{estimateText(pc.completedReturn.value, pc.completedReturn.standardError, completedInterval).error}</td>
               {assessment && <IntervalCell estimate={assessment.presentController?.completedReturn} level={level} testId="completed-interval" />}
               <td className="number">—</td>
               <td>{plural(b.episodes, 'run')}</td>
@@ -87,8 +97,8 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
           )}
           <tr data-testid="value-row-behaviour">
             <th scope="row">Logged return <span className="small muted">({pc ? 'check' : 'baseline'})</span></th>
-            <td className="number" data-testid="behaviour-value" data-value={String(b.value)}>{estimateText(b.value, b.standardError).value}</td>
-            <td className="number">{estimateText(b.value, b.standardError).error}</td>
+            <td className="number" data-testid="behaviour-value" data-value={String(b.value)}>{estimateText(b.value, b.standardError, loggedInterval).value}</td>
+            <td className="number">{estimateText(b.value, b.standardError, loggedInterval).error}</td>
             {assessment && <IntervalCell estimate={assessment.behaviour} level={level} testId="behaviour-interval" />}
             <td className="number">—</td>
             <td>{plural(b.episodes, 'run')}</td>
@@ -98,7 +108,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
       </table>
       <CopyTable tableTestId="value-table" fileBase="candidate-values" />
       <ExportPanel kind="comparison" evaluation={evaluation} defaultTitle="Value of each candidate" policy={evaluation.policies.map((p) => p.name).join(', ')}
-        fileBase="candidate-values" makeSpec={(title) => ({ kind: 'comparison', props: { evaluation, theme, title, unit } })} />
+        fileBase="candidate-values" makeSpec={(title) => ({ kind: 'comparison', props: { evaluation, theme, title, unit, intervals: chartIntervals } })} />
     </FoldPanel>
   );
 }

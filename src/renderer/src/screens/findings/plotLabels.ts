@@ -1,6 +1,4 @@
 /** Words on the plots and in export captions: axes with units, what V means, the settings in a line. */
-import { LOGGED_RETURN_LABEL } from '../../../../figures/parts/plotTheme';
-import { BEHAVIOUR_NAME } from '../../../../pipeline/assessAssembly';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { ProjectDocument } from '../../../../project/schema';
 
@@ -47,18 +45,16 @@ export function heldLabel(doc: ProjectDocument, held: readonly number[], axes: r
   return parts.length === 0 ? '' : `Other states held at ${parts.join(', ')}`;
 }
 
-/** A policy's name as shown: the pipeline's name for the logged return reads as the check it is. */
-export function displayName(name: string): string {
-  return name === BEHAVIOUR_NAME ? LOGGED_RETURN_LABEL : name;
-}
+/** A policy's name as shown (the present controller's and the logged return's read as their one label). */
+export { policyLabel as displayName } from '../../../../pipeline/policyNames';
 
 /**
- * The action-value slice's one-line explanation. With one action the nodes' weighted mean of Q is
- * V^π(s); with several, V^π(s) averages Q over the tensor grid of every action's nodes
+ * The action-value slice's one-line explanation, as rich-text markup (V^{π} set as a superscript).
+ * With one action the nodes' weighted mean of Q is V^π(s); with several, V^π(s) averages Q over the tensor grid of every action's nodes
  * (E_{a,b}[Q(s, a, b)]), and the slice holds the other actions at one value (the candidate's median
  * action there), so its nodes' mean is not V^π(s) unless Q is linear in the other actions.
  */
 export function sliceExplanation(actionCount: number): string {
-  if (actionCount <= 1) return 'Q(s, a) along the action at one state, the policy’s action density beneath, and the quadrature nodes whose weighted mean is V^π(s).';
-  return 'Q(s, a) along one action at one state, the other actions held at the policy’s median action there; the policy’s density of this action beneath, and its quadrature nodes. V^π(s) averages Q over the nodes of every action together, so the weighted mean along this one slice is not V^π(s).';
+  if (actionCount <= 1) return 'Q(s, a) along the action at one state, the policy’s action density beneath, and the quadrature nodes whose weighted mean is V^{π}(s).';
+  return 'Q(s, a) along one action at one state, the other actions held at the policy’s median action there; the policy’s density of this action beneath, and its quadrature nodes. V^{π}(s) averages Q over the nodes of every action together, so the weighted mean along this one slice is not V^{π}(s).';
 }

@@ -19,7 +19,7 @@ export function PlantLogScreen(props: { onNext: () => void }) {
       <header>
         <h2>Plant log</h2>
         <p>
-          Start with the data logged under today’s controller: a CSV file with one row per sample. Choose the file, tell the program which
+          Start with the data logged under the present controller: a CSV file with one row per sample. Choose the file, tell the program which
           columns are states, actions and the reward or cost, and check the import below before going on.
         </p>
       </header>
@@ -49,7 +49,7 @@ function Welcome() {
     <section className="panel" aria-labelledby="welcome-heading" data-testid="welcome">
       <h3 id="welcome-heading">What this does</h3>
       <p>
-        From data logged under today’s controller, Setpoint Critic estimates how a candidate setpoint policy would perform before it touches
+        From data logged under the present controller, Setpoint Critic estimates how a candidate setpoint policy would perform before it touches
         the plant: it fits the candidate’s action-value function by fitted Q-evaluation and reports its value beside what the plant does today.
         Go through the steps on the left in order; each says what it still needs. To continue earlier work, use <strong>Open…</strong>;
         to try the app first, open a sample project: {SAMPLE_PROJECTS.map((s, i) => (
