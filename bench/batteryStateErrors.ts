@@ -25,6 +25,7 @@ import { createGaussianPolicy, type GaussianPolicy } from '../src/core/policy';
 import type { TransitionSet } from '../src/core/transitions';
 import { stateValues } from '../src/core/value';
 import type { BatteryPlant, StartSet } from '../test/battery/batteryPlant';
+import { runStartsOption } from './batteryBench';
 import { batteryPlants } from '../test/battery/catalogue';
 
 const wasmPath = fileURLToPath(new URL('../node_modules/@tensorflow/tfjs-backend-wasm/dist/', import.meta.url));
@@ -52,7 +53,7 @@ function parseOptions(args: string[]): Options {
     const value = () => args[++i];
     if (args[i] === '--plants') o.plants = value().split(',');
     else if (args[i] === '--seeds') o.seeds = value().split(',').map(Number);
-    else if (args[i] === '--run-starts') o.runStarts = value() === 'both' ? ['steady', 'wide'] : [value() === 'steady' ? 'steady' : 'wide'];
+    else if (args[i] === '--run-starts') o.runStarts = runStartsOption(value());
     else if (args[i] === '--candidate') o.candidate = Number(value());
     else if (args[i] === '--transitions') o.transitions = Number(value());
     else if (args[i] === '--settings') o.settings = JSON.parse(value());
