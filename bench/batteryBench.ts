@@ -63,7 +63,7 @@ function parseOptions(args: string[]): Options {
   return o;
 }
 
-function runStartsOption(v: string): ('steady' | 'wide')[] {
+export function runStartsOption(v: string): ('steady' | 'wide')[] {
   if (v === 'both') return ['steady', 'wide'];
   if (v === 'steady' || v === 'wide') return [v];
   throw new Error(`battery bench: --run-starts expects steady, wide or both, got ${v}`);

@@ -5,17 +5,20 @@
  *     Lyapunov equation Σ = FΣFᵀ + BSBᵀ + W (Anderson & Moore, "Optimal Filtering", 1979, ch. 2);
  *   - the rollout truth used for nonlinear plants reproduces the closed-form truth of an LQ plant
  *     (src/core/lq.ts; Bertsekas, "Dynamic Programming and Optimal Control", Vol. I, ch. 4)
- *     within 3.5 of its own standard errors;
+ *     within 3.5 of its own standard errors, and state by state (V(s0), the per-state values that
+ *     bench/batteryStateErrors.ts compares a fit with) within 4;
  *   - the nonlinear plants really are nonlinear where it matters (their actuator limit is active
  *     on a share of the log), so they test what they are meant to.
  * Monte Carlo tolerances come from the standard errors stated beside each check.
  */
 import { describe, expect, it } from 'vitest';
+import { closedFormStateCost, lqClosedForm, rewardFromCost } from '../../src/core/lq';
+import { createGaussianPolicy } from '../../src/core/policy';
 import { candidateNamed, startSetNamed } from './batteryPlant';
 import { batteryPlant, batteryPlants } from './catalogue';
 import { linearDynamics, type LinearQuadraticBatteryPlant } from './linearQuadraticPlant';
 import { PENDULUM_TORQUE_LIMIT } from './nonlinearCatalogue';
-import { rolloutTruth } from './rolloutTruth';
+import { rolloutStateValues, rolloutTruth } from './rolloutTruth';
 
 describe('battery simulators', () => {
   it.each(batteryPlants().map((p) => [p.name, p] as const))('%s logs whole episodes that end on the time limit, the same for the same seed', (_, plant) => {
@@ -78,6 +81,22 @@ describe('linear-quadratic battery plants', () => {
     const rolled = rolloutTruth(linearDynamics(plant.lq.plant, plant.lq.operatingPoint), candidate.spec, plant.discount, set, { rolloutsPerStart: 20, seed: 5 });
     expect(Math.abs(rolled.value - exact)).toBeLessThan(3.5 * rolled.standardError);
     expect(rolled.standardError / Math.abs(exact)).toBeLessThan(0.01);
+  });
+
+  it('has per-state rollout values that agree with the closed-form V(s0) state by state, and average to the rollout truth', () => {
+    const plant = batteryPlant('lq2-vessel-g0.90') as LinearQuadraticBatteryPlant;
+    const candidate = candidateNamed(plant, plant.candidates[0].name), set = startSetNamed(plant, 'wide'), count = 12;
+    const states = set.states.subarray(0, count * plant.stateDim), options = { rolloutsPerStart: 200, seed: 6 };
+    const dynamics = linearDynamics(plant.lq.plant, plant.lq.operatingPoint);
+    const rolled = rolloutStateValues(dynamics, candidate.spec, plant.discount, states, count, options);
+    const form = lqClosedForm(plant.lq.plant, plant.lq.operatingPoint, createGaussianPolicy(candidate.spec, plant.stateDim), plant.discount);
+    for (let k = 0; k < count; k++) {
+      const exact = rewardFromCost(closedFormStateCost(form, states, k * plant.stateDim));
+      const standardError = Math.sqrt(rolled.variances[k] / options.rolloutsPerStart);
+      expect(Math.abs(rolled.values[k] - exact)).toBeLessThan(4 * standardError); // 12 states at 4 standard errors: a false alarm below 0.1 %
+    }
+    const subset = { name: 'first', description: '', states: Float64Array.from(states), count };
+    expect(rolloutTruth(dynamics, candidate.spec, plant.discount, subset, options).value).toBe(rolled.values.reduce((a, b) => a + b, 0) / count);
   });
 });
 

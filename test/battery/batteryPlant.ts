@@ -68,6 +68,11 @@ export interface BatteryPlant {
   startSets(): readonly StartSet[];
   /** The known answer for a candidate (by name) over a start set (by name); memoised. */
   truth(candidate: string, startSet: string): BatteryTruth;
+  /**
+   * V^π(s) of a candidate at each of `count` states (count×ds), in reward terms, by the same seeded
+   * rollouts as the truth (plants whose truth comes from rollouts); for state-by-state diagnosis.
+   */
+  rolloutStateValues?(candidate: string, states: Float64Array, count: number): Float64Array;
 }
 
 /** What every plant definition states about itself (the kind-specific parts are added by each maker). */

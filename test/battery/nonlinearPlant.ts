@@ -7,7 +7,7 @@
 import { createGaussianPolicy } from '../../src/core/policy';
 import { candidateNamed, startSetNamed, type BatteryPlant, type BatteryTruth, type PlantDescription, type StartSet } from './batteryPlant';
 import { burnInStart, episodesFor, logEpisodes, type PlantDynamics, type StartSampler } from './episodeLog';
-import { rolloutTruth } from './rolloutTruth';
+import { rolloutStateValues, rolloutTruth } from './rolloutTruth';
 import { runStartSampler, standardStartSets } from './startSets';
 
 export interface NonlinearDefinition extends PlantDescription {
@@ -48,6 +48,9 @@ export function nonlinearBatteryPlant(def: NonlinearDefinition): BatteryPlant {
       }
       return truths.get(key)!;
     },
+    rolloutStateValues: (candidate, states, count) => rolloutStateValues(
+      def.dynamics, candidateNamed(plant, candidate).spec, def.discount, states, count, { rolloutsPerStart: def.rolloutsPerStart, seed: ROLLOUT_SEED },
+    ).values,
   };
   return plant;
 }

@@ -22,18 +22,27 @@ export function rolloutHorizon(discount: number): number {
   return Math.ceil(Math.log(1e-6) / Math.log(discount));
 }
 
-/** J in reward terms (−cost) with its Monte Carlo standard error. */
-export function rolloutTruth(
-  dynamics: PlantDynamics, spec: GaussianPolicySpec, discount: number, starts: StartSet, options: RolloutOptions,
-): BatteryTruth {
+/** V̂(s0) of each start state with its sample variance σ̂²_{s0} over the R rollouts, in reward terms. */
+export interface RolloutStateValues {
+  readonly values: Float64Array; // count
+  readonly variances: Float64Array; // count
+}
+
+/**
+ * V̂(s0) for each of `count` states (count×ds row-major), by R rollouts each, all from one random
+ * stream in state order (so the J of rolloutTruth is their mean, draw for draw).
+ */
+export function rolloutStateValues(
+  dynamics: PlantDynamics, spec: GaussianPolicySpec, discount: number, states: Float64Array, count: number, options: RolloutOptions,
+): RolloutStateValues {
   const ds = dynamics.stateDim, policy = createGaussianPolicy(spec, ds), rng = createRandom(options.seed);
   const horizon = rolloutHorizon(discount), r = options.rolloutsPerStart;
   const s = new Float64Array(ds), a = new Float64Array(dynamics.actionDim), next = new Float64Array(ds);
-  let total = 0, varianceSum = 0;
-  for (let k = 0; k < starts.count; k++) {
+  const values = new Float64Array(count), variances = new Float64Array(count);
+  for (let k = 0; k < count; k++) {
     let sum = 0, squares = 0;
     for (let run = 0; run < r; run++) {
-      s.set(starts.states.subarray(k * ds, (k + 1) * ds));
+      s.set(states.subarray(k * ds, (k + 1) * ds));
       let g = 0, weight = 1;
       for (let t = 0; t < horizon; t++) {
         sampleAction(policy, s, rng, a);
@@ -45,12 +54,20 @@ export function rolloutTruth(
       sum += g;
       squares += g * g;
     }
-    const mean = sum / r;
-    total += mean;
-    varianceSum += Math.max(0, (squares - r * mean * mean) / (r - 1));
+    values[k] = sum / r;
+    variances[k] = Math.max(0, (squares - r * values[k] * values[k]) / (r - 1));
   }
-  const value = total / starts.count;
-  const standardError = Math.sqrt(varianceSum / r) / starts.count;
+  return { values, variances };
+}
+
+/** J in reward terms (−cost) with its Monte Carlo standard error. */
+export function rolloutTruth(
+  dynamics: PlantDynamics, spec: GaussianPolicySpec, discount: number, starts: StartSet, options: RolloutOptions,
+): BatteryTruth {
+  const { values, variances } = rolloutStateValues(dynamics, spec, discount, starts.states, starts.count, options);
+  const r = options.rolloutsPerStart, horizon = rolloutHorizon(discount);
+  const value = values.reduce((a, b) => a + b, 0) / starts.count;
+  const standardError = Math.sqrt(variances.reduce((a, b) => a + b, 0) / r) / starts.count;
   return {
     value, standardError, method: 'rollouts',
     note: `${r} rollouts of ${horizon} steps from each of ${starts.count} start states (seed ${options.seed})`,

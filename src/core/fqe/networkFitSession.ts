@@ -93,7 +93,7 @@ export function createFitSession(input: SessionInput): FitSession {
   try {
     const rows = own(owned, createTrainingSet(data, split, standardiser, output, discount));
     const nextOf = (r: RegressionRows) => own(owned, createNextInputs(data, r.transitions, input.policy, hiddenNodes, standardiser, discount));
-    const linearOf = (r: RegressionRows) => own(owned, linearRows(data, r.transitions, standardiser, quadrature, discount));
+    const linearOf = (r: RegressionRows) => own(owned, linearRows(data, r.transitions, standardiser, quadrature, discount, input.method.linearPartDegree));
     const next = { training: nextOf(rows.training), heldOut: rows.heldOut ? nextOf(rows.heldOut) : null };
     const linear = { training: linearOf(rows.training), heldOut: rows.heldOut ? linearOf(rows.heldOut) : null };
     const theta = own(owned, trainableParameters(initialParameters(layout, settings.activation, rng)));
@@ -117,9 +117,9 @@ export function createFitSession(input: SessionInput): FitSession {
 }
 
 function linearRows(
-  data: TransitionSet, transitions: Int32Array, standardiser: InputStandardiser, quadrature: ActionQuadrature, discount: number,
+  data: TransitionSet, transitions: Int32Array, standardiser: InputStandardiser, quadrature: ActionQuadrature, discount: number, degree: number,
 ): LinearRows & { dispose(): void } {
-  const part = createLinearPart(data, transitions, standardiser, quadrature, discount);
+  const part = createLinearPart(data, transitions, standardiser, quadrature, discount, degree);
   const n = transitions.length, d1 = part.dim;
   const rewards = Float64Array.from(transitions, (i) => data.rewards[i]);
   const transposed = new Float32Array(n * d1);

@@ -18,7 +18,7 @@ import { createFeatureMap, type FeatureMap } from '../features/featureMap';
 import { polynomialFeatureSpec } from '../features/polynomialFeatures';
 import type { TransitionSet } from '../transitions';
 
-/** Degree of the polynomial part (a choice: the smallest degree exact for linear-quadratic plants). */
+/** Default degree of the polynomial part (a choice: the smallest degree exact for linear-quadratic plants; networkMethod.ts). */
 export const LINEAR_PART_DEGREE = 2;
 
 export interface LinearPart {
@@ -30,12 +30,12 @@ export interface LinearPart {
   readonly nextRows: Float64Array;
 }
 
-/** transitions: the training rows' indices into data, in row order. */
+/** transitions: the training rows' indices into data, in row order; degree: of the polynomial features. */
 export function createLinearPart(
   data: TransitionSet, transitions: Int32Array, standardiser: { mean: ArrayLike<number>; scale: ArrayLike<number> },
-  quadrature: ActionQuadrature, discount: number,
+  quadrature: ActionQuadrature, discount: number, degree = LINEAR_PART_DEGREE,
 ): LinearPart {
-  const features = createFeatureMap(polynomialFeatureSpec({ mean: Array.from(standardiser.mean), scale: Array.from(standardiser.scale) }, LINEAR_PART_DEGREE));
+  const features = createFeatureMap(polynomialFeatureSpec({ mean: Array.from(standardiser.mean), scale: Array.from(standardiser.scale) }, degree));
   const d = features.dim, n = transitions.length, ds = data.stateDim, m = data.actionDim;
   const rows = new Float64Array(n * d), nextRows = new Float64Array(n * d);
   const input = new Float64Array(ds + m), phi = new Float64Array(d);

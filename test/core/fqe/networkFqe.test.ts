@@ -161,6 +161,18 @@ describe('fitNetworkFqe values', () => {
     if (e.parts.classErrorAllowance > 0) expect(e.covers).toContain(classErrorSentence());
     fit.dispose();
   });
+
+  it('takes the polynomial part\'s degree from the method (linearPartDegree), 2 unless asked', async () => {
+    // C(p + d, d) monomials of degree ≤ d in p = 3 inputs (common practice): 10 at degree 2, 35 at degree 4.
+    const quadratic = await fitNetworkFqe(input({ outerIterations: 1 }));
+    const quartic = await fitNetworkFqe(input({ outerIterations: 1 }, { method: { members: 1, linearPartDegree: 4 } }));
+    expect(quadratic.linearStart.features.dim).toBe(10);
+    expect(quartic.linearStart.features.dim).toBe(35);
+    const linear = policyValue(quartic.linearStart, policy, data.startStates, createActionQuadrature(policy, 3)).value;
+    expect(quartic.estimate(data.startStates, { resamples: 20 }).linear.value).toBeCloseTo(linear, 9);
+    quadratic.dispose();
+    quartic.dispose();
+  });
 });
 
 describe('fitNetworkFqe with several members (networkMembers.ts)', () => {
