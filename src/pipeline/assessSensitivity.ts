@@ -64,7 +64,7 @@ function discountCurve(context: AssessmentContext, works: CandidateWork[], sign:
     const fits = settings.map((g) => solveReplicate({ ...setup, discount: g }, statistics, xiBar));
     return { name: w.model.name, values: fits.map((f) => (f.policyValue === null ? null : sign * f.policyValue)), status: fits.map((f) => f.status) };
   });
-  series.push({ name: BEHAVIOUR_NAME, values: settings.map((g) => sign * loggedDiscountedReturn(plan.data, g).value), status: settings.map(() => 'logged') });
+  series.push({ name: BEHAVIOUR_NAME, values: settings.map((g) => sign * loggedDiscountedReturn(plan.data, g).value), status: settings.map(() => 'logged'), reference: true });
   return finish('discount', 'discount factor γ', settings, HORIZON_FACTORS.indexOf(1), series, sign);
 }
 
@@ -101,7 +101,7 @@ async function widthCurve(context: AssessmentContext, works: CandidateWork[], a:
 
 function flatBehaviour(context: AssessmentContext, count: number, sign: number): SensitivitySeries {
   const value = sign * context.plan.loggedReturn.value;
-  return { name: BEHAVIOUR_NAME, values: new Array<number>(count).fill(value), status: new Array<string>(count).fill('logged') };
+  return { name: BEHAVIOUR_NAME, values: new Array<number>(count).fill(value), status: new Array<string>(count).fill('logged'), reference: true };
 }
 
 function sizeOf(context: AssessmentContext, settings: LinearSettings): number {

@@ -170,6 +170,8 @@ export interface SensitivitySeries {
   /** J at each setting in the project's sense; null where the fit gave no value (status says why). */
   values: (number | null)[];
   status: string[];
+  /** True on the logged return's series, drawn as the reference line (absent in results saved before it was added). */
+  reference?: boolean;
 }
 
 export interface SensitivityCurve {

@@ -123,7 +123,7 @@ describe('retune map heat map', () => {
     expect(order[GAINS.length]).toBe(1); // row 1 starts at the second time
     const readout = pointReadout(p, p.map.best!.index);
     expect(readout).toEqual(expect.arrayContaining(['proportional gain Kc (%/°C): 40', 'integral time Ti (s): 2,400', 'supported by the logs', 'best supported point']));
-    expect(readout).toContain('J: 5.016 [4.216, 5.916]'); // 5 + 0.004·(40 − 42)², interval −0.8 / +0.9
+    expect(readout).toContain('J: 5.02 [4.22, 5.92]'); // at the interval's precision (width 1.70: three significant digits, JCGM 100 §7.2.6): 5 + 0.004·(40 − 42)², interval −0.8 / +0.9
     expect(pointReadout(p, GAINS.length * TIMES.length - 1)).toEqual(expect.arrayContaining(['J: no solution', 'fit: diverged']));
   });
 

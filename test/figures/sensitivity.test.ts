@@ -20,6 +20,17 @@ describe('sensitivity chart', () => {
     expect(radii[2]).toBeGreaterThan(radii[0]); // the project's own setting (projectIndex 2)
   });
 
+  it('draws as the reference only the series the pipeline marks (or, unmarked, the one labelled the logged return), never a candidate named like it', () => {
+    const base = discountSweep();
+    const named = (name: string) => ({ ...base.series[0], name });
+    const curve = { ...base, series: [named('logged-in cascade trim'), named('present controller, retuned'), base.series[2]] };
+    const sets = sensitivityChart({ ...props, curve }, look).data.datasets;
+    expect(sets.map((s) => s.label)).toEqual(['logged-in cascade trim', 'present controller, retuned', 'logged return (check)']);
+    expect(sets.map((s) => s.borderColor === look.palette.reference)).toEqual([false, false, true]);
+    const saved = { ...base, series: [base.series[0], { ...base.series[2], reference: undefined }] }; // results saved before the mark
+    expect(sensitivityChart({ ...props, curve: saved }, look).data.datasets[1].borderColor).toBe(look.palette.reference);
+  });
+
   it('puts a whole-valued setting (the polynomial degree) on whole-number ticks only, a discount on fractional ones', () => {
     const degrees = { ...discountSweep(), parameter: 'degree', label: 'polynomial degree of the features', settings: [1, 2, 3], projectIndex: 1 };
     degrees.series = degrees.series.map((serie) => ({ ...serie, values: serie.values.slice(0, 3), status: serie.status.slice(0, 3) }));

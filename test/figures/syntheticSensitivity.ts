@@ -8,7 +8,7 @@ export function discountSweep(): SensitivityCurve {
     series: [
       { name: 'gentle gain', values: settings.map((g) => 2 / (1 - g)), status: settings.map(() => 'converged') },
       { name: 'sharp gain', values: [24, 33, null, 80, 230], status: ['converged', 'converged', 'diverged', 'converged', 'converged'] },
-      { name: 'present controller, logged return', values: settings.map((g) => 2.5 / (1 - g)), status: settings.map(() => 'logged') },
+      { name: 'logged return', values: settings.map((g) => 2.5 / (1 - g)), status: settings.map(() => 'logged'), reference: true },
     ],
   };
 }

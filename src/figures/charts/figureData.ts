@@ -40,13 +40,13 @@ export interface PolicyValueData {
   valueSense: 'reward' | 'cost';
 }
 
-/** J at a range of one setting, one series per policy (the present controller's marked by `present`). */
+/** J at a range of one setting, one series per policy (the logged return's marked by `reference`). */
 export interface SensitivityData {
   parameter: string;
   label: string;
   settings: number[];
   projectIndex: number;
-  series: { name: string; values: (number | null)[] }[];
+  series: { name: string; values: (number | null)[]; reference?: boolean }[];
   rankingStable: boolean;
 }
 

@@ -19,7 +19,7 @@ import type { PlotLook } from '../parts/plotLook';
 import { plainText } from '../parts/richText';
 import { formatValue } from '../parts/tickFormat';
 import { retuneMapLineChart } from './retuneMapLine';
-import { betterWords, mapSubtitle, pointReadout, type RetuneMapPlotProps } from './retuneMapText';
+import { bestValueText, betterWords, mapSubtitle, pointReadout, presentValueText, type RetuneMapPlotProps } from './retuneMapText';
 
 export type { RetuneMapPlotProps } from './retuneMapText';
 
@@ -103,8 +103,8 @@ export function retuneMapSummary(props: RetuneMapPlotProps): string {
   const { map } = props, n = map.points.length;
   const count = (s: MapSupport) => map.points.filter((p) => p.value !== null && p.support === s).length;
   const over = map.axes.map((a) => `${plainText(a.label)} (${formatValue(a.values[0])} to ${formatValue(a.values[a.values.length - 1])})`).join(' and ');
-  const best = map.best ? `Best supported point: ${map.axes.map((a, i) => `${plainText(a.label)} ${formatValue(map.points[map.best!.index].coordinates[i])}`).join(', ')}, J ${formatValue(map.best.value)}.` : 'No point is both converged and supported by the logs.';
-  const present = map.presentController === null ? '' : ` Present controller: J ${formatValue(map.presentController)}.`;
+  const best = map.best ? `Best supported point: ${map.axes.map((a, i) => `${plainText(a.label)} ${formatValue(map.points[map.best!.index].coordinates[i])}`).join(', ')}, J ${bestValueText(map)}.` : 'No point is both converged and supported by the logs.';
+  const present = map.presentController === null ? '' : ` Present controller: J ${presentValueText(map)}.`;
   return `${map.axes.length === 2 ? 'Heat map' : 'Curve'} of ${plainText(props.valueLabel)} (${betterWords(props.sense)}) over ${over}, ${n} points: `
     + `${count(null)} supported by the logs, ${count('caution')} on thin logs, ${count('serious') + count('unknown')} beyond them (shaded). ${best}${present}`;
 }

@@ -15,7 +15,7 @@ import { PRESENT_CONTROLLER, PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import type { Rect } from '../parts/raster';
 import { formatValue } from '../parts/tickFormat';
-import { mapSubtitle, pointReadout, type RetuneMapPlotProps } from './retuneMapText';
+import { mapSubtitle, pointReadout, presentValueText, type RetuneMapPlotProps } from './retuneMapText';
 
 type XY = { x: number; y: number | null };
 
@@ -118,7 +118,7 @@ function lineKeys(props: RetuneMapPlotProps, look: PlotLook): LegendKey[] {
   keys.push({ label: 'J', kind: 'line', colour: p.series[0], lineWidthPx: d.lineWidthPx, markerRadiusPx: d.pointRadiusPx });
   if (pts.some((q) => q.interval)) keys.push({ label: 'interval', kind: 'area', colour: p.densityFill });
   if (props.map.best) keys.push({ label: 'best supported point (ringed)', kind: 'marker', colour: p.series[0], markerRadiusPx: d.bestRadiusPx - 2 });
-  if (props.map.presentController !== null) keys.push({ label: `${PRESENT_CONTROLLER}: ${formatValue(props.map.presentController)}`, kind: 'line', colour: p.reference, dash: PRESENT_DASH_PX, lineWidthPx: 1.6 });
+  if (props.map.presentController !== null) keys.push({ label: `${PRESENT_CONTROLLER}: ${presentValueText(props.map)}`, kind: 'line', colour: p.reference, dash: PRESENT_DASH_PX, lineWidthPx: 1.6 });
   if (pts.some((q) => shadeOf(q.value, q.support) === 'caution')) keys.push({ label: 'thin logs (caution)', kind: 'area', colour: p.bandFill });
   if (pts.some((q) => shadeOf(q.value, q.support) === 'unsupported')) keys.push({ label: 'beyond the logs: not supported', kind: 'hatch', colour: p.bandFill, hatch: LIGHT_HATCH });
   return keys;

@@ -5,7 +5,7 @@
 import type { MapSupport, RetuneMapData } from './figureData';
 import { PRESENT_CONTROLLER, type Theme } from '../parts/plotTheme';
 import { plainText } from '../parts/richText';
-import { formatValue } from '../parts/tickFormat';
+import { formatValue, formatValueInInterval } from '../parts/tickFormat';
 
 export interface RetuneMapPlotProps {
   map: RetuneMapData;
@@ -28,19 +28,33 @@ export function betterWords(sense: 'cost' | 'reward'): string {
   return sense === 'cost' ? 'lower is better' : 'higher is better';
 }
 
+/** The best supported point's J at its interval's precision (tickFormat.ts, the rule of every table), or null. */
+export function bestValueText(map: RetuneMapData): string | null {
+  return map.best ? formatValueInInterval(map.best.value, map.points[map.best.index].interval) : null;
+}
+
+/**
+ * The present controller's J at the precision of the best supported point's interval, so the two read
+ * side by side at one precision (the report's caption and the command line use the same); without a
+ * best point, four significant digits.
+ */
+export function presentValueText(map: RetuneMapData): string {
+  return map.presentController === null ? '' : formatValueInInterval(map.presentController, map.best ? map.points[map.best.index].interval : null);
+}
+
 /** The line under the title: what the colour or line means, and the present controller's J. */
 export function mapSubtitle(props: RetuneMapPlotProps, what: 'Colour' | 'Line'): string {
   const present = props.map.presentController;
   return `${what}: ${plainText(props.valueLabel)}, ${betterWords(props.sense)}`
-    + (present === null ? '' : `; ${PRESENT_CONTROLLER}: ${formatValue(present)}${what === 'Colour' ? ' (dashed on the colour bar)' : ' (dashed)'}`);
+    + (present === null ? '' : `; ${PRESENT_CONTROLLER}: ${presentValueText(props.map)}${what === 'Colour' ? ' (dashed on the colour bar)' : ' (dashed)'}`);
 }
 
 /** The readout of point p: its coordinates, J with its interval, its support and, when not converged, its fit status. */
 export function pointReadout(props: RetuneMapPlotProps, p: number): string[] {
   const point = props.map.points[p];
   const lines = props.map.axes.map((axis, a) => `${plainText(axis.label)}: ${formatValue(point.coordinates[a])}`);
-  const interval = point.interval ? ` [${formatValue(point.interval[0])}, ${formatValue(point.interval[1])}]` : '';
-  lines.push(point.value === null ? 'J: no solution' : `J: ${formatValue(point.value)}${interval}`, supportWords(point.support));
+  const interval = point.interval ? ` [${formatValueInInterval(point.interval[0], point.interval)}, ${formatValueInInterval(point.interval[1], point.interval)}]` : '';
+  lines.push(point.value === null ? 'J: no solution' : `J: ${formatValueInInterval(point.value, point.interval)}${interval}`, supportWords(point.support));
   if (point.status !== 'converged') lines.push(`fit: ${point.status}`);
   if (props.map.best?.index === p) lines.push('best supported point');
   return lines;

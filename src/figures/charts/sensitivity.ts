@@ -8,7 +8,7 @@ import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { SensitivityData as SensitivityCurve } from './figureData';
 import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { legendPlugin } from '../parts/legendBox';
-import { LOGGED_RETURN_LABEL, PRESENT_CONTROLLER, PRESENT_DASH_PX } from '../parts/plotTheme';
+import { LOGGED_RETURN, LOGGED_RETURN_LABEL, PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatValue } from '../parts/tickFormat';
@@ -25,17 +25,20 @@ export interface SensitivityPlotProps {
 
 type XY = { x: number; y: number | null };
 
-/** The behaviour's series is named by the pipeline; it is drawn as the reference. */
-export function isBehaviourSeries(name: string): boolean {
-  const n = name.toLowerCase();
-  return name === PRESENT_CONTROLLER || n.startsWith('logged') || n.startsWith('present controller');
+/**
+ * The logged return's series, drawn as the reference: marked by the pipeline (`reference`); in results
+ * saved before the mark, the series the host labelled as the logged return. Never by a prefix of the
+ * name, which drew a candidate the user named "logged …" or "present controller …" as the reference.
+ */
+export function isBehaviourSeries(serie: { name: string; reference?: boolean }): boolean {
+  return serie.reference ?? serie.name === LOGGED_RETURN;
 }
 
 export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
   const { curve } = props, p = look.palette, s = look.scale, d = SENSITIVITY_DEFAULTS;
   let candidate = 0;
   const datasets: ChartDataset<'line', XY[]>[] = curve.series.map((serie) => {
-    const reference = isBehaviourSeries(serie.name);
+    const reference = isBehaviourSeries(serie);
     const colour = reference ? p.reference : p.series[candidate++ % p.series.length];
     return {
       label: reference ? LOGGED_RETURN_LABEL : serie.name,
