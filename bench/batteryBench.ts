@@ -19,6 +19,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
+import { LINEAR_PART_DEGREE } from '../src/core/fqe/networkLinearPart';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
 import { createGaussianPolicy } from '../src/core/policy';
 import { batteryPlants } from '../test/battery/catalogue';
@@ -131,7 +132,7 @@ export async function runBatteryBench(args: string[]): Promise<void> {
       }
     }
   }
-  printBatteryTable(records);
+  printBatteryTable(records, typeof o.method.linearPartDegree === 'number' ? o.method.linearPartDegree : LINEAR_PART_DEGREE);
   printAllowanceTable(records);
   const folder = fileURLToPath(new URL('../test-artifacts/', import.meta.url));
   mkdirSync(folder, { recursive: true });

@@ -89,13 +89,14 @@ function toWithin3(rs: FitRecord[]): string {
   return reached.length === measured.length ? text : `${text} (${reached.length}/${measured.length})`;
 }
 
-export function printBatteryTable(records: FitRecord[]): void {
+/** `linearDegree`: the degree of the network's polynomial part, whose estimate the linear columns show (--method linearPartDegree). */
+export function printBatteryTable(records: FitRecord[], linearDegree: number): void {
   const groups = new Map<string, FitRecord[]>();
   for (const r of records) {
     const key = `${r.plant}|${r.candidate}|${r.startSet}${r.runStarts === 'wide' ? ' (runs logged wide)' : ''}`;
     groups.set(key, [...(groups.get(key) ?? []), r]);
   }
-  console.log('\nplant / candidate / start set                    truth (±SE)        | linear deg 2: mean%  |max|%  cover | network: mean%  |max|%  cover  disagr  range  conv  iters  s/fit  cpu s  s to 3%  steps/s  GFLOP/s');
+  console.log(`\nplant / candidate / start set                    truth (±SE)        | linear deg ${linearDegree}: mean%  |max|%  cover | network: mean%  |max|%  cover  disagr  range  conv  iters  s/fit  cpu s  s to 3%  steps/s  GFLOP/s`);
   for (const [key, rs] of groups) {
     const [plant, candidate, startSet] = key.split('|');
     const t = rs[0].truth, lin = summarise(rs, (r) => r.linear), net = summarise(rs, (r) => r.network);
