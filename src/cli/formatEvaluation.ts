@@ -3,8 +3,7 @@ import { truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
-import { intervalDecimals } from '../figures/parts/tickFormat';
-import { atDecimals, errorDecimals, intervalText } from './uncertainNumberText';
+import { atDecimals, errorDecimals, intervalText, widthDecimals } from './uncertainNumberText';
 
 /** A fitted parameter (offset, dither): four significant digits. */
 const number = (v: number | null): string => significant(v, 4);
@@ -60,7 +59,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
 }
 
 function networkLine(name: string, n: NonNullable<Evaluation['policies'][number]['network']>): string {
-  const level = `${Math.round(100 * n.level)} %`, inInterval = (v: number, i: [number, number]) => `${atDecimals(v, intervalDecimals(i))} ${intervalText(i)}`;
+  const level = `${Math.round(100 * n.level)} %`, inInterval = (v: number, i: [number, number]) => `${atDecimals(v, widthDecimals(i))} ${intervalText(i)}`;
   return `${name}: network J ${level} interval ${intervalText(n.interval)} (${n.covers}); degree-2 linear J ${inInterval(n.linear.value, n.linear.interval)}; ` +
     `network − linear ${inInterval(n.difference.value, n.difference.interval)}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
 }

@@ -16,8 +16,8 @@
  * Without a stated initial value, a previous value or difference is undefined on an episode's
  * first row (a previous value k rows back on its first k rows): those rows then only supply x for
  * later ones, and start no transition. "Rows" are the kept rows of the episode, as for k = 1; where a
- * row is excluded mid-run, a previous value or difference restarts after it undefined on the next k
- * rows, with or without an initial value (the initial value states what came before a run's first
+ * row is excluded mid-run (or a run's own first row is excluded, so its first kept row is mid-run), a
+ * previous value or difference restarts after it undefined on the next k rows, with or without an initial value (the initial value states what came before a run's first
  * row, not what the excluded row held), so it never reads a row further back than k.
  *
  * Why they are Markov under a candidate. Each derived value at row t+1 is a fixed function of the
@@ -51,6 +51,11 @@ export interface DerivedInputs {
    * rows back restarts there, undefined, rather than reach past the gap.
    */
   readonly stretchOf?: Int32Array; // records
+  /**
+   * Per episode, 0 where the run's own first row was excluded (EpisodeAssignment.hasStart): its first
+   * kept row is mid-run, so a value rows back restarts there undefined, as after a row excluded mid-run.
+   */
+  readonly firstRowKept?: Uint8Array; // episodes
 }
 
 /** episodeOf with a new number after every excluded record inside an episode (−1 where not kept). */
@@ -80,7 +85,7 @@ export function computeDerivedStates(definitions: readonly DerivedStateSpec[], i
   for (const d of definitions) {
     const rowsBack = d.kind === 'previous' ? previousSteps(d) : d.kind === 'difference' ? 1 : 0;
     // a value rows back goes along the stretches between excluded rows; its initial value only at a run's own start
-    const along = rowsBack > 0 && inputs.stretchOf ? { ...inputs, episodeOf: inputs.stretchOf, runOf: inputs.episodeOf } : inputs;
+    const along: AlongInputs = rowsBack > 0 ? { ...inputs, episodeOf: inputs.stretchOf ?? inputs.episodeOf, runOf: inputs.episodeOf } : { ...inputs, firstRowKept: undefined };
     values.set(d.name, d.kind === 'previous' ? laggedColumn(inputs.column(d.source), d.initial, rowsBack, along) : derivedColumn(d, along));
     if (rowsBack > 0 && d.initial === undefined) leadingRowsUndefined.set(d.name, rowsBack);
     if (rowsBack > 0) rowsUndefinedAfterGap.set(d.name, rowsBack);
@@ -91,9 +96,14 @@ export function computeDerivedStates(definitions: readonly DerivedStateSpec[], i
 /** Inputs walked along `episodeOf`, which may be the stretches of the runs (`runOf`) between excluded rows. */
 type AlongInputs = DerivedInputs & { readonly runOf?: Int32Array };
 
-/** True where kept record r begins its stretch as the first kept row of its run (not after an excluded row). */
+/** True where kept record r begins its stretch as its run's own first row (not after an excluded row, nor where the run's first row was excluded). */
 function opensRun(inputs: AlongInputs, previous: number, r: number): boolean {
-  return !inputs.runOf || previous < 0 || inputs.runOf[previous] !== inputs.runOf[r];
+  return startsOwnRun(inputs.runOf ?? inputs.episodeOf, inputs.firstRowKept, previous, r);
+}
+
+/** Kept record r (after kept record `previous`, −1 for none) is the first row of its run (runOf) and that run's first row was not excluded. */
+function startsOwnRun(runOf: Int32Array, firstRowKept: Uint8Array | undefined, previous: number, r: number): boolean {
+  return (previous < 0 || runOf[previous] !== runOf[r]) && firstRowKept?.[runOf[r]] !== 0;
 }
 
 /**
@@ -174,10 +184,13 @@ function stepper(d: AlongRunSpec, inputs: DerivedInputs): Stepper {
 /**
  * The kept mask with the rows where a value rows back is undefined removed: the first `atRunStart`
  * kept rows of each run (declarations without an initial value) and the first `afterGap` kept rows of
- * each stretch that begins after a row excluded mid-run; with how many each removed.
+ * each stretch that begins after a row excluded mid-run, or as a run whose own first row was excluded
+ * (firstRowKept 0); with how many each removed.
  * Shapes: kept, stretchOf, runOf over records (stretchesOf(kept, runOf) gives stretchOf).
  */
-export function withoutUndefinedRows(kept: Uint8Array, stretchOf: Int32Array, runOf: Int32Array, atRunStart: number, afterGap: number): { kept: Uint8Array; atStart: number; afterGap: number } {
+export function withoutUndefinedRows(
+  kept: Uint8Array, stretchOf: Int32Array, runOf: Int32Array, atRunStart: number, afterGap: number, firstRowKept?: Uint8Array,
+): { kept: Uint8Array; atStart: number; afterGap: number } {
   const out = Uint8Array.from(kept), removed = { atStart: 0, afterGap: 0 };
   let stretch = -2, seen = 0, previous = -1, where: keyof typeof removed = 'atStart';
   for (let r = 0; r < kept.length; r++) {
@@ -185,7 +198,7 @@ export function withoutUndefinedRows(kept: Uint8Array, stretchOf: Int32Array, ru
     if (stretchOf[r] !== stretch) {
       stretch = stretchOf[r];
       seen = 0;
-      where = previous < 0 || runOf[previous] !== runOf[r] ? 'atStart' : 'afterGap';
+      where = startsOwnRun(runOf, firstRowKept, previous, r) ? 'atStart' : 'afterGap';
     }
     if (seen++ < (where === 'atStart' ? atRunStart : afterGap)) {
       out[r] = 0;

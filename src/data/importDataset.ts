@@ -168,14 +168,16 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const stretchOf = stretchesOf(inputs.kept, episodes.episodeOf); // a row excluded mid-run: no value reaches past it
   const { values, leadingRowsUndefined, rowsUndefinedAfterGap } = computeDerivedStates(used, {
     kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds, stretchOf,
+    firstRowKept: episodes.hasStart,
   });
   const report = [`Derived states computed along each run: ${used.map((d) => `${d.name} (${d.kind === 'previous' && previousSteps(d) > 1 ? `value ${previousSteps(d)} rows back` : DERIVED_WORDS[d.kind]})`).join(', ')}.`];
   const midRun = stretchOf.reduce((a, b) => Math.max(a, b), -1) + 1 - episodes.episodeCount; // stretches that begin after a row excluded mid-run
-  const atStart = Math.max(0, ...leadingRowsUndefined.values()), afterGap = midRun > 0 ? Math.max(0, ...rowsUndefinedAfterGap.values()) : 0;
+  const lostFirstRows = episodes.hasStart.reduce((a, h) => a + (h ? 0 : 1), 0); // runs whose first kept row is mid-run
+  const atStart = Math.max(0, ...leadingRowsUndefined.values()), afterGap = midRun + lostFirstRows > 0 ? Math.max(0, ...rowsUndefinedAfterGap.values()) : 0;
   if (atStart === 0 && afterGap === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
-  const { kept, ...removed } = withoutUndefinedRows(inputs.kept, stretchOf, episodes.episodeOf, atStart, afterGap);
+  const { kept, ...removed } = withoutUndefinedRows(inputs.kept, stretchOf, episodes.episodeOf, atStart, afterGap, episodes.hasStart);
   if (atStart > 0) report.push(undefinedStartReport(leadingRowsUndefined, atStart, removed.atStart));
-  if (afterGap > 0) report.push(undefinedAfterGapReport(rowsUndefinedAfterGap, midRun, afterGap, removed.afterGap));
+  if (afterGap > 0) report.push(undefinedAfterGapReport(rowsUndefinedAfterGap, { midRun, lostFirstRows }, afterGap, removed.afterGap));
   // The first row where every derived state is defined is the run's start: a run whose own first row
   // was a valid start keeps one (the rows removed here are not excluded rows, so no start is lost).
   const again = assignEpisodes(s.columns.episode, { ...inputs, kept, medianStepSeconds: undefined }); // other rows kept: the median is found again
@@ -198,9 +200,13 @@ function undefinedStartReport(undefinedRows: Map<string, number>, rows: number, 
   return `${names} ${has} no initial value, so ${first}: ${plural(removed, 'row')} start no transition.`;
 }
 
-function undefinedAfterGapReport(rowsBack: Map<string, number>, places: number, rows: number, removed: number): string {
+function undefinedAfterGapReport(rowsBack: Map<string, number>, gaps: { midRun: number; lostFirstRows: number }, rows: number, removed: number): string {
   const names = [...rowsBack.keys()].join(', '), next = rows === 1 ? 'the next row' : `the next ${rows} rows`;
-  return `After each of the ${places} places a row was excluded mid-run, ${names} restart undefined on ${next} (no value reaches past it, and an initial value is for a run's first rows only): ${plural(removed, 'row')} start no transition.`;
+  const where = [
+    ...(gaps.midRun > 0 ? [`After each of the ${gaps.midRun} places a row was excluded mid-run`] : []),
+    ...(gaps.lostFirstRows > 0 ? [`${gaps.midRun > 0 ? 'in' : 'In'} the ${plural(gaps.lostFirstRows, 'run')} whose own first row was excluded (from the first kept row)`] : []),
+  ].join(', and ');
+  return `${where}, ${names} restart undefined on ${next} (no value reaches past it, and an initial value is for a run's first rows only): ${plural(removed, 'row')} start no transition.`;
 }
 
 const DERIVED_WORDS = { errorIntegral: 'error integral', filtered: 'first-order lag', previous: 'previous value', difference: 'difference' } as const;

@@ -6,6 +6,7 @@
  */
 import { sha256 } from '@noble/hashes/sha2.js';
 import { bytesToHex } from '@noble/hashes/utils.js';
+import { declaredActionBounds } from '../pipeline/plan/declaredBounds';
 import type { ProjectDocument } from '../project/schema';
 
 export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
@@ -14,9 +15,13 @@ export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
   return JSON.stringify({ ...rest, candidates, csv: data.csv, dataFingerprint });
 }
 
-/** What an import depends on: the CSV settings, the column roles, and which bytes were loaded. */
+/**
+ * What an import depends on: the CSV settings, the column roles, which bytes were loaded, and the
+ * actuator bounds the candidates declare (its summary's present-controller model reads a logged
+ * extreme exactly at one of them as a limit: pipeline/plan/declaredBounds.ts).
+ */
 export function importKey(doc: ProjectDocument, sourceVersion: number): string {
-  return JSON.stringify([doc.data.csv, doc.columns, sourceVersion]);
+  return JSON.stringify([doc.data.csv, doc.columns, sourceVersion, declaredActionBounds(doc, doc.columns.actions.length)]);
 }
 
 /** SHA-256 of the run key: the fingerprint kept with saved results (FIPS 180-4, @noble/hashes). */

@@ -40,4 +40,17 @@ describe('numbers at the precision of their uncertainty, on the command line', (
     expect(atDecimals(-0.0004, 2)).toBe('0.00');
     expect([ratioText(4354.5), ratioText(4.4964), ratioText(240.56)]).toEqual(['4355', '4.5', '241']);
   });
+
+  // A cost summed over a long horizon easily reaches millions (J = 1,234,567.9 ± 3.2): the GUM §7.2.2 rule
+  // (the value to the place of the uncertainty's two significant digits; common practice) holds at any
+  // magnitude, so the value must not fall back to three significant digits ("1.23e+6 ± 3.2" claims ±3
+  // beside a rounding of ±5,000, and two candidates 100 apart print alike).
+  it('keeps a large value at the precision of its uncertainty rather than three significant digits', () => {
+    const d = errorDecimals(3.2);
+    expect([atDecimals(1234567.891, d), atDecimals(3.2, d)]).toEqual(['1234567.9', '3.2']);
+    const iv: [number, number] = [1234500.2, 1234600.7]; // width 100.5: three significant digits at the units
+    expect(intervalText(iv)).toBe('[1234500, 1234601]');
+    expect(atDecimals(1234555.55, rowDecimals(iv))).toBe('1234556');
+    expect(intervalText([-2345678.9, -2345600.1])).toBe('[-2345678.9, -2345600.1]');
+  });
 });

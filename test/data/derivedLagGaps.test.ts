@@ -73,4 +73,23 @@ describe('a value k rows back beside a row excluded mid-run', () => {
     for (let i = 0; i < t.count; i++) expect(t.states[i * width + 1], `transition at valve ${t.actions[i]}`).toBe(t.actions[i] === 10 ? 0 : 10);
     expect(Array.from(t.actions)).not.toContain(70);
   });
+
+  // The same defect at a run whose own first row is excluded: the importer already knows its first kept row is
+  // mid-run (no start state there), so the row before it held a value the initial value does not state.
+  // Hand-worked: run 1's row 1 (valve 10) is unreadable; run 2 is whole. valve_1 must be 0 (the initial value)
+  // only on run 2's first row, and the action less 10 on every other transition — never 0 at valve 20 of run 1.
+  it('does not take the initial value where a run lost its first row to exclusion', () => {
+    const rows = (run: number, bad: boolean) => Array.from({ length: 6 }, (_, i) => `${run},${bad && i === 0 ? 'n/a' : 20 + i},${10 * (i + 1)},0`);
+    const log = ['run,temp,valve,reward', ...rows(1, true), ...rows(2, false)].join('\n') + '\n';
+    const result = importDataset(log, 'log.csv', CSV, {
+      states: [{ column: 'temp', unit: '' }, { column: 'valve_1', unit: '' }], actions: [{ column: 'valve', unit: '%' }],
+      reward: { kind: 'column', column: 'reward', sense: 'reward' }, nextState: { kind: 'nextRow' }, episode: { kind: 'column', column: 'run' },
+      derived: [{ ...lag(1), initial: 0 }],
+    });
+    if (!result.ok) throw new Error(result.problems.map((p) => p.message).join('\n'));
+    const t = result.value.transitions, pairs = Array.from({ length: t.count }, (_, i) => [t.actions[i], t.states[i * 2 + 1]]);
+    // run 1: valve 20 follows the excluded row, so it starts no transition; 30–50 do. Run 2: 10 (initial) to 50.
+    expect(pairs).toEqual([[30, 20], [40, 30], [50, 40], [10, 0], [20, 10], [30, 20], [40, 30], [50, 40]]);
+    expect(result.value.episodeReport.join(' ')).toMatch(/In the 1 run whose own first row was excluded \(from the first kept row\), valve_1 restart undefined on the next row .*: 1 row start no transition/);
+  });
 });

@@ -29,4 +29,17 @@ describe('run key', () => {
     expect(importKey({ ...doc, name: 'x' }, 1)).toBe(importKey(doc, 1));
     expect(importKey(doc, 2)).not.toBe(importKey(doc, 1));
   });
+
+  // The import's summary carries the present controller's model, which reads a logged extreme exactly at a
+  // bound a candidate declares as an actuator limit (src/core/loggedActionLimits.ts): a changed bound changes
+  // that model, so the panel and the "like the present controller" draft must be imported again, or they show
+  // a model the evaluation no longer uses.
+  it('imports again when a candidate declares another actuator bound, not for its dither or limit mode', () => {
+    const bounded = (lo: number | null, mode: 'clip' | 'truncate' = 'clip') =>
+      ({ ...doc, candidates: [{ ...doc.candidates[0], bounds: { lo: [lo], hi: [null], mode } }, ...doc.candidates.slice(1)] });
+    expect(importKey(bounded(0), 1)).not.toBe(importKey(doc, 1));
+    expect(importKey(bounded(0), 1)).not.toBe(importKey(bounded(5), 1));
+    expect(importKey(bounded(0, 'truncate'), 1)).toBe(importKey(bounded(0), 1));
+    expect(importKey({ ...doc, candidates: [{ ...doc.candidates[0], dither: [2] }, ...doc.candidates.slice(1)] }, 1)).toBe(importKey(doc, 1));
+  });
 });
