@@ -2,7 +2,7 @@
  * The actuator position limits the project's candidates declare, per action: the one source the
  * present controller's model reads them from (src/core/loggedActionLimits.ts reads a logged extreme
  * exactly at one of them as a limit even below its 0.1 % floor). Both modes count: clip or
- * truncate is how a candidate acts at the bound, the bound itself is the valve's end.
+ * truncate is how a candidate acts at the bound, the bound itself is taken as the actuator's end (README says to declare bounds where the actuator really stops).
  */
 import type { DeclaredActionBounds } from '../../core/loggedActionLimits';
 import type { ProjectDocument } from '../../project/schema';
