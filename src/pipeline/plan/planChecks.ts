@@ -17,8 +17,14 @@ export function discountProblems(discount: number, transitions: number): Problem
     where: 'discount', field: ['discount'],
     message: `γ = ${discount} weighs the future over about ${formatSteps(horizon)} logged steps (1/(1 − γ)), more than the ` +
       `${transitions.toLocaleString('en-US')} transitions the logs hold in all, so the value would be extrapolated rather than estimated; ` +
-      `use a discount of at most ${(1 - 1 / transitions).toPrecision(6)}, or more data`,
+      discountAdvice(transitions),
   }];
+}
+
+/** 1/(1 − γ) ≤ n ⇔ γ ≤ 1 − 1/n; with a single transition no discount in (0, 1) meets it ("at most 0.00000" before). */
+function discountAdvice(transitions: number): string {
+  const most = 1 - 1 / transitions;
+  return most > 0 ? `use a discount of at most ${Number(most.toPrecision(6))}, or more data` : 'no discount is short enough for a single transition: more data is needed';
 }
 
 /**
