@@ -134,10 +134,11 @@ function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, modelR
 
 /** The serious warning of an estimate that is not settled across function classes: a range to report, or with one class an interval that checks nothing. */
 export function notSettledMessage(classes: FunctionClassAssessment): string {
-  const range = rangeText(classes.range);
+  // The verdict's reason opens with its own "Not settled: "; the warning says it once.
+  const range = rangeText(classes.range), reason = classes.reason.replace(/^Not settled: /, '');
   return classes.classes.length > 1
-    ? `Not settled across function classes: ${classes.reason} Report the range ${range}, not a single value.`
-    : `Not settled across function classes: ${classes.reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.`;
+    ? `Not settled across function classes: ${reason} Report the range ${range}, not a single value.`
+    : `Not settled across function classes: ${reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.`;
 }
 
 /** The candidate in every function class with an interval, and the verdict across them; null with fewer than two, unless others were fitted and did not converge. */

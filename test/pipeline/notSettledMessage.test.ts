@@ -11,13 +11,13 @@ import type { FunctionClassAssessment } from '../../src/pipeline/assessment';
 const classEntry = (label: string, value: number, interval: [number, number]) => ({ label, value, interval, standardError: 1 });
 
 describe('notSettledMessage', () => {
-  it('prints the range to report at its own precision, as the intervals table does', () => {
+  it('prints the range to report at its own precision, as the intervals table does, and says "Not settled" once', () => {
     const classes = {
       classes: [classEntry('polynomial, degree 2', 7.72, [6.09, 9.55]), classEntry('polynomial, degree 3', 7.14, [5.624, 9.03])],
       settled: false, range: [5.6241, 9.5488], coverage: '', reason: 'Not settled: the classes differ.',
     } as unknown as FunctionClassAssessment;
     // width 3.92 → three significant digits at two decimals (worked by hand)
-    expect(notSettledMessage(classes)).toBe('Not settled across function classes: Not settled: the classes differ. Report the range [5.62, 9.55], not a single value.');
+    expect(notSettledMessage(classes)).toBe('Not settled across function classes: the classes differ. Report the range [5.62, 9.55], not a single value.');
   });
 
   it('keeps the ASCII minus of the command line and the precision of a narrow range', () => {
