@@ -17,6 +17,7 @@ import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy
 import type {
   AssessmentWarning, CandidateAssessment, Comparison, CrossCheck, FunctionClassAssessment, IntervalEstimate, PairedDifference, PresentControllerAssessment,
 } from './assessment';
+import { intervalDecimals } from '../figures/parts/tickFormat';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import { crossChecks } from './assessCrossChecks';
 import { coverageDiagnostics, coverageWarnings, linearModelOf, shiftOf, type CoverageReference } from './assessDiagnostics';
@@ -132,11 +133,12 @@ function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, modelR
 }
 
 /** The serious warning of an estimate that is not settled across function classes: a range to report, or with one class an interval that checks nothing. */
-function notSettledMessage(classes: FunctionClassAssessment): string {
-  const range = rangeText(classes.range);
+export function notSettledMessage(classes: FunctionClassAssessment): string {
+  // The verdict's reason opens with its own "Not settled: "; the warning says it once.
+  const range = rangeText(classes.range), reason = classes.reason.replace(/^Not settled: /, '');
   return classes.classes.length > 1
-    ? `Not settled across function classes: ${classes.reason} Report the range ${range}, not a single value.`
-    : `Not settled across function classes: ${classes.reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.`;
+    ? `Not settled across function classes: ${reason} Report the range ${range}, not a single value.`
+    : `Not settled across function classes: ${reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.`;
 }
 
 /** The candidate in every function class with an interval, and the verdict across them; null with fewer than two, unless others were fitted and did not converge. */
@@ -199,8 +201,11 @@ function withUnresampledOwn(classes: FunctionClassAssessment | null, work: Candi
   };
 }
 
-function rangeText([lo, hi]: [number, number]): string {
-  return `[${lo.toPrecision(4)}, ${hi.toPrecision(4)}]`;
+/** The range at its own precision, as the tables beside the warning print it ("[5.62, 9.55]", not "[5.624, 9.549]"): tickFormat.ts's rule; ASCII minus, as the command line keeps. */
+function rangeText(range: [number, number]): string {
+  const decimals = intervalDecimals(range);
+  const text = (x: number): string => (decimals === null ? x.toPrecision(4) : x.toFixed(decimals));
+  return `[${text(range[0])}, ${text(range[1])}]`;
 }
 
 function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {

@@ -65,6 +65,13 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     const lq = page.getByTestId('cross-check-linearQuadraticModel').first();
     await expect.poll(() => lq.innerText(), POLL).toContain('Linear-quadratic');
     await expect.poll(() => lq.getByTestId('verdict').innerText(), POLL).toMatch(/Agrees|Disagrees|Too uncertain|Not applicable/);
+    // A value beside its interval carries the interval's decimals, as the values table does (JCGM 100 §7.2.2, common practice): "8.36 [6.58, 10.34]", not "8.358 [6.58, 10.34]".
+    const sameDecimals = (text: string) => [...text.matchAll(/(-?\d+(?:\.(\d+))?) \[-?\d+(?:\.(\d+))?, /g)].map((m) => [m[1], (m[2] ?? '').length === (m[3] ?? '').length]);
+    const panel = await page.getByTestId('cross-checks').innerText();
+    expect(sameDecimals(panel).length).toBeGreaterThan(2);
+    expect(sameDecimals(panel).filter(([, same]) => !same)).toEqual([]);
+    const rows = await page.getByTestId('cross-checks').locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].slice(0, 2).map((td) => td.textContent ?? '').join(' ')));
+    expect(rows.map((row) => row.replace(/\u2212/g, '-')).filter((row) => /\[/.test(row) && sameDecimals(row).some(([, same]) => !same))).toEqual([]);
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('Occupancy shift');
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('outside the logged range');
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toMatch(/Plant memory: the 8 rows before explain at most [\d.]+ %/);

@@ -69,6 +69,9 @@ describe('the retune map in the app (e2e)', () => {
     await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
     expect((await drawnPixels(page, figure)).drawnShare).toBeGreaterThan(0.3);
     await expect.poll(() => page.getByTestId('retune-map-table').locator('tbody tr').count(), POLL).toBe(10);
+    // One precision on the screen: the best point's J in the table reads as in the headline (its interval's decimals; JCGM 100 §7.2.2, common practice).
+    const bestCell = (await page.getByTestId('retune-map-table').locator('td.map-best').textContent() ?? '').replace(/ [*†]$/, '');
+    expect(bestCell).toBe(/, J ([\d.]+) \[/.exec(headline)![1]);
   });
 
   it('exports the map as PNG with the caption', async () => {

@@ -63,11 +63,18 @@ export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   const r = CROSS_CHECK_RULE, scale = Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
   const relative = Math.abs(e.difference) / scale;
   const z = e.differenceStandardError > 0 ? Math.abs(e.difference) / e.differenceStandardError : Infinity;
-  const gap = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J (${Number.isFinite(z) ? z.toFixed(1) : '∞'} ${e.paired === false ? UNPAIRED_WORDS : 'standard errors of the paired difference'})`;
+  const size = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J`;
+  // No standard error (no resampled values): a count of standard errors would read 0.0 and the gap it could see ∞ %.
+  const gap = Number.isFinite(e.differenceStandardError)
+    ? `${size} (${Number.isFinite(z) ? z.toFixed(1) : '∞'} ${e.paired === false ? UNPAIRED_WORDS : 'standard errors of the paired difference'})`
+    : size;
   const weak = weakness(e);
   if (weak) return { label: e.label, agreement: 'uninformative', note: `Uninformative: ${weak}; it ${gap}.` };
   if (z > r.standardErrors && relative > r.relative) return { label: e.label, agreement: 'disagrees', note: `Disagrees: it ${gap}.` };
   const detectable = (r.standardErrors * e.differenceStandardError) / scale;
+  if (!Number.isFinite(detectable)) {
+    return { label: e.label, agreement: 'uninformative', note: `Uninformative: it has no standard error from the resampled runs, so it cannot show an error of ${100 * r.detectableGap} % of J; it ${gap}.` };
+  }
   if (!(detectable <= r.detectableGap)) {
     return {
       label: e.label, agreement: 'uninformative',

@@ -23,6 +23,13 @@ describe('crossCheckVerdict', () => {
     expect(crossCheckVerdict({ ...base, differenceStandardError: 1.01 * limit, difference: 30 }).agreement).toBe('disagrees');
   });
 
+  it('without a standard error (no resampled values) is uninformative and says so, with no count of standard errors nor an infinite gap', () => {
+    const v = crossCheckVerdict({ ...base, difference: 0.6, differenceStandardError: Infinity });
+    expect(v.agreement).toBe('uninformative');
+    expect(v.note).toBe('Uninformative: it has no standard error from the resampled runs, so it cannot show an error of 10 % of J; it differs from fitted Q-evaluation by 0.6 % of J.');
+    expect(v.note).not.toMatch(/Infinity|standard errors of the/);
+  });
+
   it('is uninformative when the importance weights collapse or the tail carries most of the weight', () => {
     const ok = { ...base, shareOutsideLogs: undefined, label: 'Doubly robust' };
     expect(crossCheckVerdict({ ...ok, weights }).agreement).toBe('agrees');

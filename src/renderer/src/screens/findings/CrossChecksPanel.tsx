@@ -8,8 +8,7 @@
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import type { Assessment } from '../../../../pipeline/assessment';
-import { formatNumber } from '../../format/numberFormat';
-import { intervalDetail, intervalText, levelText, noteWithoutVerdict, VERDICT } from './assessmentWords';
+import { intervalDetail, intervalText, levelText, noteWithoutVerdict, valueAtIntervalPrecision, VERDICT } from './assessmentWords';
 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
   const level = assessment.settings.level;
@@ -24,11 +23,11 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
         {c.functionClasses && (
           <p className="small" data-testid={`classes-${c.name}`}>
             <strong>{c.settled ? 'Settled across function classes' : 'Not settled across function classes'}</strong>
-            {' '}(range to report {intervalText(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label} ${formatNumber(k.value, 4)} ${intervalText(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
+            {' '}(range to report {intervalText(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label} ${valueAtIntervalPrecision(k.value, k.interval)} ${intervalText(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
           </p>
         )}
         <table data-testid={`cross-checks-${c.name}`}>
-          <caption>{c.name}: fitted Q-evaluation J = {formatNumber(c.policyValue.value, 4)} {intervalText(c.policyValue.percentile)}</caption>
+          <caption>{c.name}: fitted Q-evaluation J = {valueAtIntervalPrecision(c.policyValue.value, c.policyValue.percentile)} {intervalText(c.policyValue.percentile)}</caption>
           <thead>
             <tr>
               <th scope="col">Method</th><th scope="col" className="number">Value</th><th scope="col" className="number">{levelText(level)} interval</th>
@@ -39,7 +38,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
             {c.crossChecks.map((x) => (
               <tr key={x.method} data-testid={`cross-check-${x.method}`}>
                 <th scope="row">{x.label}</th>
-                <td className="number">{x.estimate ? formatNumber(x.estimate.value, 4) : '—'}</td>
+                <td className="number">{x.estimate ? valueAtIntervalPrecision(x.estimate.value, x.estimate.percentile) : '—'}</td>
                 <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalText(x.estimate.percentile) : '—'}</td>
                 <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {noteWithoutVerdict(x.note)}</span> : null}</td>
               </tr>

@@ -2,21 +2,24 @@
  * Every point of a retune map as a table: for two axes a grid (rows the first axis, columns the
  * second) with J in each cell, for one axis a list with the interval. Cells the logs do not support
  * are greyed and marked †, thin-log cells marked *, the best supported cell bold; each cell's title
- * gives its interval and support in words.
+ * gives its interval and support in words. J is written at its interval's decimals.
  */
 import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
 import { supportWords } from '../../../../figures/charts/retuneMapText';
 import { CopyTable } from '../../components/CopyTable';
 import { RichText } from '../../components/RichText';
 import { formatNumber } from '../../format/numberFormat';
-import { intervalText } from './assessmentWords';
+import { intervalText, valueAtIntervalPrecision } from './assessmentWords';
 import { richAxisLabel } from './retuneMapWords';
 
 type Point = RetuneMapResult['points'][number];
 
+/** J at its interval's decimals, as the headline, the readout and the report's grid print it (6.74 [4.88, 8.88], not 6.745). */
+const valueText = (p: Point) => (p.value === null ? '—' : valueAtIntervalPrecision(p.value, p.interval));
+
 const mark = (p: Point) => (p.value === null ? '' : p.support === null ? '' : p.support === 'caution' ? ' *' : ' †');
 const cellClass = (p: Point, best: boolean) => ['number', best ? 'map-best' : '', p.value !== null && p.support !== null && p.support !== 'caution' ? 'map-unsupported' : ''].join(' ').trim();
-const cellTitle = (p: Point) => `J ${p.value === null ? 'none' : formatNumber(p.value)} ${intervalText(p.interval)}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
+const cellTitle = (p: Point) => `J ${valueText(p)} ${intervalText(p.interval)}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
 
 export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: string }) {
   const best = map.best?.index ?? -1;
@@ -49,7 +52,7 @@ function GridTable({ map, best, testId }: { map: RetuneMapResult; best: number; 
             <th scope="row" className="number">{formatNumber(r)}</th>
             {columns.values.map((c, j) => {
               const p = map.points[i * n + j];
-              return <td key={c} className={cellClass(p, i * n + j === best)} title={cellTitle(p)}>{p.value === null ? '—' : formatNumber(p.value)}{mark(p)}</td>;
+              return <td key={c} className={cellClass(p, i * n + j === best)} title={cellTitle(p)}>{valueText(p)}{mark(p)}</td>;
             })}
           </tr>
         ))}
@@ -68,7 +71,7 @@ function ListTable({ map, best, testId }: { map: RetuneMapResult; best: number; 
         {map.points.map((p, i) => (
           <tr key={i} className={i === best ? 'map-best' : ''}>
             <td className="number">{formatNumber(p.coordinates[0])}</td>
-            <td className={cellClass(p, false)}>{p.value === null ? '—' : formatNumber(p.value)}</td>
+            <td className={cellClass(p, false)}>{valueText(p)}</td>
             <td className="number">{intervalText(p.interval)}</td>
             <td>{supportWords(p.support)}{p.status === 'converged' ? '' : ` (fit ${p.status})`}</td>
           </tr>
