@@ -130,7 +130,7 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   const usedRows = derived.kept;
   const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
   const { transitions, report } = buildTransitions({
-    kept: usedRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards, terminal, lineOf,
+    kept: usedRows, supplyOnlyRows: countOf(kept) - countOf(usedRows), episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards, terminal, lineOf,
     states: columns.states.map((c) => number(c.column)),
     actions: columns.actions.map((c) => number(c.column)),
     nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
@@ -234,6 +234,12 @@ function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet, deri
 function encodingReport(encoding: Stages['encoding']): string {
   const why = encoding.how === 'byte-order mark' ? 'from its byte-order mark' : encoding.name === 'Windows-1252' ? 'detected: the bytes are not valid UTF-8' : 'detected';
   return `Text encoding: ${encoding.name} (${why}).`;
+}
+
+function countOf(mask: Uint8Array): number {
+  let n = 0;
+  for (let r = 0; r < mask.length; r++) n += mask[r];
+  return n;
 }
 
 function nullIfNaN(x: number): number | null {

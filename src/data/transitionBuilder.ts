@@ -23,6 +23,8 @@ export interface StepColumns {
   readonly stateNames: readonly string[];
   readonly actionNames: readonly string[];
   readonly lineOf: (record: number) => number;
+  /** Rows kept for the values they supply to later rows' derived states, but starting no transition (derivedStates.ts). */
+  readonly supplyOnlyRows?: number;
 }
 
 /**
@@ -140,19 +142,22 @@ function describeSteps(c: StepColumns, t: TransitionSet): string[] {
   if (c.terminal) report.push(`End-of-run column: ${plural(terminal, 'transition')} end${terminal === 1 ? 's' : ''} a run (the plant stopped or was reset there; no value is added past it).`);
   report.push(...describeHoles(c));
   report.push(`In all: ${plural(t.count, 'transition')} in ${plural(t.episodeCount, 'run')}.`);
-  report.push(rowAccount(c.kept, t.count));
+  report.push(rowAccount(c.kept, t.count, c.supplyOnlyRows));
   return report;
 }
 
 /**
- * Every data row is a transition, an excluded row, or an unused row (kept, but with no next row:
- * the last row of an episode's chain), and the three add up to the rows read.
+ * Every data row is a transition, an excluded row, a row that only supplies earlier values to derived
+ * states (kept, but starting no transition: `supplyOnly`), or an unused row (kept, but with no next
+ * row: the last row of an episode's chain), and they add up to the rows read. `kept` is the mask of
+ * rows that may start a transition, so the supplying rows are among those it leaves out.
  */
-export function rowAccount(kept: Uint8Array, transitions: number): string {
+export function rowAccount(kept: Uint8Array, transitions: number, supplyOnly = 0): string {
   let used = 0;
   for (let r = 0; r < kept.length; r++) used += kept[r];
-  const excluded = kept.length - used, unused = used - transitions;
-  return `Rows: ${formatCount(kept.length)} read = ${formatCount(transitions)} transitions + ${formatCount(excluded)} excluded + ${formatCount(unused)} unused (kept, with no next row to pair with: the last of a run, or the row before an excluded one).`;
+  const excluded = kept.length - used - supplyOnly, unused = used - transitions;
+  const supplying = supplyOnly > 0 ? ` + ${formatCount(supplyOnly)} supplying earlier values to derived states only` : '';
+  return `Rows: ${formatCount(kept.length)} read = ${formatCount(transitions)} transitions + ${formatCount(excluded)} excluded${supplying} + ${formatCount(unused)} unused (kept, with no next row to pair with: the last of a run, or the row before an excluded one).`;
 }
 
 /** Runs of excluded rows with kept rows of one episode on both sides: where a chain was cut. */

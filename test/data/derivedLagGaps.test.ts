@@ -35,6 +35,13 @@ describe('a value k rows back beside a row excluded mid-run', () => {
     }
   });
 
+  it('accounts for the rows that only supply earlier values apart from the excluded one (the import said "5 excluded" for 1)', () => {
+    // 12 rows: row 6 excluded; rows 1–2 and 7–8 only supply values 1 and 2 rows back; rows 5 (before the
+    // excluded row) and 12 (the last) have no next row; transitions from rows 3, 4, 9, 10, 11. Counted by hand.
+    const report = imported([lag(1), lag(2)]).episodeReport;
+    expect(report).toContain('Rows: 12 read = 5 transitions + 1 excluded + 4 supplying earlier values to derived states only + 2 unused (kept, with no next row to pair with: the last of a run, or the row before an excluded one).');
+  });
+
   it('holds for k = 1 too (the previous value)', () => {
     const t = transitions([lag(1)]);
     for (let i = 0; i < t.count; i++) expect(t.states[i * 2 + 1], `transition at valve ${t.actions[i]}`).toBe(t.actions[i] - 10);
