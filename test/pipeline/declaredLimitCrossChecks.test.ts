@@ -13,7 +13,7 @@ import { beforeAll, describe, expect, it } from 'vitest';
 import { LIMIT_SHARE, loggedLimitRuleText } from '../../src/core/loggedActionLimits';
 import type { TransitionSet } from '../../src/core/transitions';
 import type { Assessment } from '../../src/pipeline/assessment';
-import { assessProject } from '../../src/pipeline/assessProject';
+import { assessedProject } from '../support/assessedProject';
 import { planEvaluation } from '../../src/pipeline/plan/evaluationPlan';
 import { projectSchema } from '../../src/project/schema';
 import { kettleDynamics, kettlePlant } from '../battery/holdout/kettlePlant';
@@ -40,9 +40,7 @@ describe('importance sampling on a valve at its declared end on one row of 10,00
   let data: TransitionSet, a: Assessment;
   beforeAll(async () => {
     data = plant.simulate({ transitions: 10_000, seed: 3, runStarts: 'wide' });
-    const result = await assessProject({ project: kettleProject(), dataset: data, settings: { resamples: 20, level: 0.9, seed: 3, sensitivity: false } });
-    if (!result.ok) throw new Error(result.problems.map((p) => p.message).join('\n'));
-    a = result.value;
+    a = await assessedProject({ project: kettleProject(), dataset: data, settings: { resamples: 20, level: 0.9, seed: 3, sensitivity: false } });
   }, 300_000);
 
   it('reads the valve end as a limit of the present controller only because the candidates declare it', () => {

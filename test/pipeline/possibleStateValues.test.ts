@@ -19,7 +19,7 @@ import { possibleValues, outsidePossible, intervalOutsidePossible } from '../../
 import { loggedDiscountedReturn } from '../../src/core/loggedReturn';
 import type { TransitionSet } from '../../src/core/transitions';
 import type { Assessment, CandidateAssessment } from '../../src/pipeline/assessment';
-import { assessProject } from '../../src/pipeline/assessProject';
+import { assessedProject } from '../support/assessedProject';
 import { projectSchema } from '../../src/project/schema';
 import { surgeDrumPlant } from '../battery/holdout/surgeDrumPlant';
 
@@ -44,9 +44,7 @@ describe('impossible values state by state on the surge drum', () => {
   let data: TransitionSet, a: Assessment;
   beforeAll(async () => {
     data = plant.simulate({ transitions: 100_000, seed: 1, runStarts: 'steady' });
-    const result = await assessProject({ project: drumProject(), dataset: data, settings: { resamples: 100, level: 0.9, seed: 1, sensitivity: false } });
-    if (!result.ok) throw new Error(result.problems.map((p) => p.message).join('\n'));
-    a = result.value;
+    a = await assessedProject({ project: drumProject(), dataset: data, settings: { resamples: 100, level: 0.9, seed: 1, sensitivity: false } });
   }, 300_000);
 
   it('marks a positive J on a plant that only costs, which the check on J alone lets pass', () => {
