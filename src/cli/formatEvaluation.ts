@@ -13,10 +13,14 @@ const withError = (value: number | null, error: number | null): [string, string]
 const STATUS_WORDS = { converged: 'converged', maxIterations: 'NOT CONVERGED', diverged: 'DIVERGED' } as const;
 
 
-/** "offset 1.2" with one action; with several, each value named by its action's column: "offset 0.3 on hot_valve, 0.7 on cold_valve". */
-export function perAction(label: string, values: readonly number[], actions: readonly string[] | undefined): string {
-  if (values.length <= 1 || !actions || actions.length !== values.length) return `${label} ${values.map(number).join(', ')}`;
-  return `${label} ${values.map((v, j) => `${number(v)} on ${actions[j]}`).join(', ')}`;
+/**
+ * "offset 1.2 %" with one action; with several, each value named by its action's column: "offset 0.3 on
+ * hot_valve, 0.7 on cold_valve". Each value in its action's unit where the project declares one.
+ */
+export function perAction(label: string, values: readonly number[], actions: readonly string[] | undefined, units?: readonly string[]): string {
+  const valued = (v: number, j: number) => `${number(v)}${units?.[j] ? ` ${units[j]}` : ''}`;
+  if (values.length <= 1 || !actions || actions.length !== values.length) return `${label} ${values.map(valued).join(', ')}`;
+  return `${label} ${values.map((v, j) => `${valued(v, j)} on ${actions[j]}`).join(', ')}`;
 }
 
 export function formatEvaluation(e: Evaluation, projectFile: string): string {
@@ -49,7 +53,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: its fit did not converge, so no value is reported for it. ${p.message}`),
     ...e.policies.flatMap((p) => (p.network ? [networkLine(p.name, p.network)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
-    pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions)}; ${perAction('dither', pc.model.std, pc.model.actions)}) and evaluated like the candidates.`
+    pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions, pc.model.units)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
     ...(truncation ? [`${truncation}${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),

@@ -104,6 +104,7 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
       offset: [...fitted.offset], gain: fitted.gain.map((row) => [...row]), std: [...fitted.std],
       lo: fitted.offset.map((_, j) => finiteOrNull(fitted.limits.lo[j])), hi: fitted.offset.map((_, j) => finiteOrNull(fitted.limits.hi[j])),
       actions: [...plan.data.actionNames],
+      units: plan.data.actionNames.map((name) => plan.project.columns.actions.find((c) => c.column === name)?.unit ?? ''),
     },
     completedReturn: { value: plan.sign * completed.value, standardError: completed.standardError, tailShare: completed.tailShare },
   };

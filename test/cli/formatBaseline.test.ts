@@ -13,5 +13,8 @@ describe('the present controller’s numbers per action', () => {
   it('reads as before with one action or without names', () => {
     expect(perAction('dither', [4], ['heating_valve_pct'])).toBe('dither 4');
     expect(perAction('dither', [0.1, 0.1], undefined)).toBe('dither 0.1, 0.1');
+    // each value in its action's declared unit (the screens review found the baseline line without units)
+    expect(perAction('dither', [4], ['heating_valve_pct'], ['%'])).toBe('dither 4 %');
+    expect(perAction('offset', [0.31, 0.69], ['hot_valve', 'cold_valve'], ['', 'm³/h'])).toBe('offset 0.31 on hot_valve, 0.69 m³/h on cold_valve');
   });
 });
