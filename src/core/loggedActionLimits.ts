@@ -7,7 +7,7 @@
  *     a continuous law have probability zero, so repeated extremes mean the actuator saturates
  *     there; the 0.1 % floor keeps coarse logging resolution from looking like a limit.
  *   - declared: at least DECLARED_LIMIT_ROWS = 1 logged value equals it exactly and it is exactly a
- *     position limit some candidate declares for that action (the valve's physical end). A
+ *     position limit some candidate declares for that action (taken as the actuator's own end). A
  *     continuous law hits a number fixed before the log was read with probability zero, so one
  *     row there already says the valve sat at its end; the number comes from the project, not
  *     from the log, so no resolution floor is needed. Two rows would not do: on the battery's
