@@ -130,7 +130,7 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   const usedRows = derived.kept;
   const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
   const { transitions, report } = buildTransitions({
-    kept: usedRows, supplyOnlyRows: countOf(kept) - countOf(usedRows), episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards, terminal, lineOf,
+    kept: usedRows, supplyOnlyRows: derived.supplyOnlyRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards, terminal, lineOf,
     states: columns.states.map((c) => number(c.column)),
     actions: columns.actions.map((c) => number(c.column)),
     nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
@@ -164,7 +164,7 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const definitions = s.columns.derived ?? [];
   const stateNames = new Set(s.columns.states.map((c) => c.column));
   const used = definitions.filter((d) => stateNames.has(d.name));
-  if (used.length === 0) return { episodes, derivedValues: new Map<string, Float64Array>(), kept: inputs.kept, report: [] as string[] };
+  if (used.length === 0) return { episodes, derivedValues: new Map<string, Float64Array>(), kept: inputs.kept, report: [] as string[], supplyOnlyRows: 0 };
   const stretchOf = stretchesOf(inputs.kept, episodes.episodeOf); // a row excluded mid-run: no value reaches past it
   const { values, leadingRowsUndefined, rowsUndefinedAfterGap } = computeDerivedStates(used, {
     kept: inputs.kept, episodeOf: episodes.episodeOf, column: (name) => s.table.numbers.get(name)!, timestampsSeconds: s.timestamps?.seconds, stretchOf,
@@ -174,7 +174,7 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   const midRun = stretchOf.reduce((a, b) => Math.max(a, b), -1) + 1 - episodes.episodeCount; // stretches that begin after a row excluded mid-run
   const lostFirstRows = episodes.hasStart.reduce((a, h) => a + (h ? 0 : 1), 0); // runs whose first kept row is mid-run
   const atStart = Math.max(0, ...leadingRowsUndefined.values()), afterGap = midRun + lostFirstRows > 0 ? Math.max(0, ...rowsUndefinedAfterGap.values()) : 0;
-  if (atStart === 0 && afterGap === 0) return { episodes, derivedValues: values, kept: inputs.kept, report };
+  if (atStart === 0 && afterGap === 0) return { episodes, derivedValues: values, kept: inputs.kept, report, supplyOnlyRows: 0 };
   const { kept, ...removed } = withoutUndefinedRows(inputs.kept, stretchOf, episodes.episodeOf, atStart, afterGap, episodes.hasStart);
   if (atStart > 0) report.push(undefinedStartReport(leadingRowsUndefined, atStart, removed.atStart));
   if (afterGap > 0) report.push(undefinedAfterGapReport(rowsUndefinedAfterGap, { midRun, lostFirstRows }, afterGap, removed.afterGap));
@@ -191,7 +191,8 @@ function derivedStates(s: Stages, inputs: EpisodeInputs, episodes: EpisodeAssign
   }
   const lost = (line: string) => /first row to exclusion/.test(line);
   const episodeReport = [...again.report.filter((line) => !lost(line)), ...episodes.report.filter(lost)];
-  return { episodes: { ...again, hasStart, report: episodeReport }, derivedValues: values, kept, report };
+  // the rows taken out here only supply values to later rows: the row account counts them as such
+  return { episodes: { ...again, hasStart, report: episodeReport }, derivedValues: values, kept, report, supplyOnlyRows: removed.atStart + removed.afterGap };
 }
 
 function undefinedStartReport(undefinedRows: Map<string, number>, rows: number, removed: number): string {
@@ -234,12 +235,6 @@ function summarise(s: Stages, kept: Uint8Array, transitions: TransitionSet, deri
 function encodingReport(encoding: Stages['encoding']): string {
   const why = encoding.how === 'byte-order mark' ? 'from its byte-order mark' : encoding.name === 'Windows-1252' ? 'detected: the bytes are not valid UTF-8' : 'detected';
   return `Text encoding: ${encoding.name} (${why}).`;
-}
-
-function countOf(mask: Uint8Array): number {
-  let n = 0;
-  for (let r = 0; r < mask.length; r++) n += mask[r];
-  return n;
 }
 
 function nullIfNaN(x: number): number | null {
