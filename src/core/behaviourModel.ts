@@ -23,6 +23,7 @@
  * Shapes: states n×ds row-major, actions n×m row-major; gain m×ds.
  */
 import { CensoredRegressionError, fitCensoredRegression } from './censoredRegression';
+import { ditherDependence, type DitherDependence } from './ditherDependence';
 import { cholesky, choleskySolve, SingularMatrixError } from './linalg/dense';
 import { hasLimits, loggedActionLimits, NO_DECLARED_BOUNDS, type DeclaredActionBounds, type LoggedActionLimits } from './loggedActionLimits';
 import type { GaussianPolicySpec } from './policy';
@@ -40,6 +41,11 @@ export interface BehaviourModel extends Required<Pick<GaussianPolicySpec, 'offse
   count: number;
   /** n − ds − 1: the divisor of the residual covariance. */
   degreesOfFreedom: number;
+  /**
+   * With limits and two or more actions the model takes the noise as independent; this measures how
+   * far the log agrees (ditherDependence.ts). Absent otherwise (a full covariance is fitted).
+   */
+  ditherDependence?: DitherDependence;
 }
 
 export class BehaviourModelError extends Error {
@@ -142,6 +148,7 @@ function censoredModel(ols: Omit<BehaviourModel, 'limits'>, limits: LoggedAction
   }
   model.covariance = model.std.map((s, a) => model.std.map((_, b) => (a === b ? s * s : 0)));
   model.bounds = { lo: [...limits.lo], hi: [...limits.hi], mode: 'clip' };
+  if (m > 1) model.ditherDependence = ditherDependence(states, actions, n, ds, m, model, limits);
   return model;
 }
 

@@ -4,6 +4,7 @@
  * warnings; the present controller as the baseline; the comparison of all policies; and the
  * warnings that concern the whole assessment.
  */
+import { ditherDependenceText } from '../core/ditherDependence';
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
 import { startCoverageFinding } from '../core/diagnostics/severity';
@@ -270,6 +271,9 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
   const concentration = returnConcentrationFinding(returnConcentration(plan.loggedReturn.perEpisode), plan.loggedReturn.episodes, plan.loggedReturn.value < 0);
   if (concentration) out.push(concentration);
   if (!context.presentControllerModel) out.push({ severity: 'caution', topic: 'presentController', message: `The comparison uses the logged return: ${context.presentControllerReason}.` });
+  const dependence = context.presentControllerModel && context.presentController?.model.ditherDependence;
+  const dependenceText = dependence ? ditherDependenceText(dependence, plan.data.actionNames) : null;
+  if (dependenceText) out.push({ severity: 'caution', topic: 'presentController', message: dependenceText });
   const truncation = truncationSentence(plan.loggedReturn);
   if (truncation) {
     out.push({

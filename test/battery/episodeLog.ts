@@ -31,6 +31,12 @@ export interface EpisodeLogOptions {
   readonly seed: number;
   readonly stateNames: readonly string[];
   readonly actionNames: readonly string[];
+  /**
+   * Clip each drawn action to [lo, hi] before it acts and is logged: a logger whose noise is
+   * correlated across actions and whose valves stop at their ends, which a GaussianPolicy cannot
+   * be (bounds need independent noise). Absent: the policy's own law, as drawn.
+   */
+  readonly actionClip?: { readonly lo: readonly number[]; readonly hi: readonly number[] };
 }
 
 export function logEpisodes(dynamics: PlantDynamics, policy: GaussianPolicy, start: StartSampler, options: EpisodeLogOptions): TransitionSet {
@@ -47,6 +53,7 @@ export function logEpisodes(dynamics: PlantDynamics, policy: GaussianPolicy, sta
     startStates.set(s, e * ds);
     for (let t = 0; t < steps && row < count; t++, row++) {
       sampleAction(policy, s, rng, a);
+      if (options.actionClip) for (let j = 0; j < m; j++) a[j] = Math.min(options.actionClip.hi[j], Math.max(options.actionClip.lo[j], a[j]));
       rewards[row] = -dynamics.step(s, a, rng, next);
       states.set(s, row * ds);
       actions.set(a, row * m);

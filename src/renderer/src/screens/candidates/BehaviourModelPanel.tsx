@@ -4,6 +4,7 @@
  */
 import type { BehaviourFit } from '../../../../shared/workerMessages';
 import type { ProjectDocument } from '../../../../project/schema';
+import { ditherDependenceText } from '../../../../core/ditherDependence';
 import { estimateText, formatNumber } from '../../format/numberFormat';
 
 export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectDocument; behaviour: BehaviourFit; onStart: () => void }) {
@@ -17,6 +18,7 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
   }
   const m = behaviour.model;
   const { states, actions } = doc.columns;
+  const dependence = m.ditherDependence ? ditherDependenceText(m.ditherDependence, actions.map((a) => a.column)) : null;
   // The error to two significant digits and the coefficient to the same place ("−21.6 ± 2.0", not "−21.57 ± 2").
   const pm = (value: number, se: number) => {
     const t = estimateText(value, se);
@@ -43,6 +45,7 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
           ))}
         </tbody>
       </table>
+      {dependence && <p className="problems warning" data-testid="dither-dependence">{dependence}</p>}
       <p><button onClick={onStart} data-testid="candidate-from-behaviour">Start a candidate from the present controller</button></p>
     </section>
   );

@@ -1,0 +1,96 @@
+/**
+ * The present controller's dithers moving together under actuator limits (src/core/ditherDependence.ts).
+ * Outside facts: the sample correlation's large-sample standard error (1 − ρ²)/√N and Fisher's z
+ * transform with standard error 1/√(N − 3) (Fisher, Biometrika 1915; common practice); the plant is
+ * the two-valve blending tank hold-out (test/battery/holdout/blendingTankPlant.ts), logged by its own
+ * controller with each valve clipped at [0, 1] and the two dithers drawn with a stated correlation.
+ */
+import { beforeAll, describe, expect, it } from 'vitest';
+import { DITHER_CORRELATION_NOTED, ditherDependence, ditherDependenceNoted, ditherDependenceText } from '../../src/core/ditherDependence';
+import { fitBehaviourModel } from '../../src/core/behaviourModel';
+import { createGaussianPolicy } from '../../src/core/policy';
+import { createRandom } from '../../src/core/random';
+import type { TransitionSet } from '../../src/core/transitions';
+import type { Assessment } from '../../src/pipeline/assessment';
+import { projectSchema } from '../../src/project/schema';
+import { assessedProject } from '../support/assessedProject';
+import { burnInStart, logEpisodes, type PlantDynamics } from '../battery/episodeLog';
+import { blendCommand, blendingTankDynamics, blendingTankPlant, SETPOINT_C } from '../battery/holdout/blendingTankPlant';
+
+const plant = blendingTankPlant();
+const VALVES = { lo: [0, 0], hi: [1, 1] };
+
+/** The tank logged by its own controller, dithers 0.1 each with correlation rho, valves clipped at their ends. */
+function correlatedLog(rho: number, transitions: number, seed: number): TransitionSet {
+  const base = blendCommand(0.2, 0.8, 1, 0.02, 0.1);
+  const logger = createGaussianPolicy({ offset: base.offset, gain: base.gain, covariance: [[0.01, rho * 0.01], [rho * 0.01, 0.01]] }, 2);
+  const clipped: PlantDynamics = {
+    ...blendingTankDynamics,
+    step: (s, a, rng, next) => blendingTankDynamics.step(s, a.map((v, j) => Math.min(VALVES.hi[j], Math.max(VALVES.lo[j], v))), rng, next),
+  };
+  return logEpisodes(clipped, logger, burnInStart(clipped, logger, [SETPOINT_C, 1], 200), {
+    episodes: Math.ceil(transitions / 400), stepsPerEpisode: 400, seed, stateNames: plant.stateNames, actionNames: plant.actionNames, actionClip: VALVES,
+  });
+}
+
+describe('the correlation of the dithers over the rows inside the limits', () => {
+  it('recovers a known correlation within four of its standard errors where the limits are never reached', () => {
+    const n = 20_000, rho = 0.5, rng = createRandom(11), states = new Float64Array(n), actions = new Float64Array(2 * n);
+    for (let i = 0; i < n; i++) {
+      const s = rng.normal(), z1 = rng.normal(), z2 = rng.normal();
+      states[i] = s;
+      actions[2 * i] = 1 + 0.5 * s + z1;
+      actions[2 * i + 1] = -2 * s + rho * z1 + Math.sqrt(1 - rho * rho) * z2;
+    }
+    const d = ditherDependence(states, actions, n, 1, 2, { offset: [1, 0], gain: [[0.5], [-2]] }, { lo: [-Infinity, -Infinity], hi: [Infinity, Infinity] });
+    expect(d.rows).toBe(n);
+    expect(Math.abs(d.correlation[0][1] - rho)).toBeLessThan((4 * (1 - rho * rho)) / Math.sqrt(n));
+    expect(d.strongest).toEqual({ actions: [0, 1], correlation: d.correlation[0][1] });
+  });
+
+  it('leaves out the rows where an action sits at a limit, and names nothing from sampling noise on few rows', () => {
+    const actions = Float64Array.from([0, 0.5, 0.2, 1, 0.3, 0.3, 0.6, 0.7, 0.4, 0.2]), states = new Float64Array(5);
+    const d = ditherDependence(states, actions, 5, 1, 2, { offset: [0.4, 0.5], gain: [[0], [0]] }, VALVES);
+    expect(d.rows).toBe(3); // rows 1 (at 0) and 2 (at 1) hold the clip
+    // |ρ| = 0.99 on 3 rows: Fisher's z·√(N − 3) = 0, far below 3 standard errors.
+    expect(ditherDependenceNoted({ ...d, strongest: { actions: [0, 1], correlation: 0.99 } })).toBe(false);
+  });
+});
+
+describe('the blending tank logged with correlated dithers and clipped valves', () => {
+  let independent: TransitionSet, correlated: TransitionSet, assessment: Assessment;
+  beforeAll(async () => {
+    independent = correlatedLog(0, 10_000, 1);
+    correlated = correlatedLog(0.6, 10_000, 1);
+    const project = projectSchema.parse({
+      format: 'setpoint-critic-project', version: 1, name: 'blend', data: { path: 'none.csv' },
+      columns: { states: plant.stateNames.map((column) => ({ column })), actions: plant.actionNames.map((column) => ({ column })), reward: { kind: 'column', column: 'r', sense: 'reward' } },
+      discount: plant.discount, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } }, quadratureNodes: 6,
+      candidates: [{ name: 'trimmed', ...blendCommand(0.2, 0.8, 1.5, 0.03, 0.1), bounds: { ...VALVES, mode: 'clip' } }],
+    });
+    assessment = await assessedProject({ project, dataset: correlated, settings: { resamples: 10, level: 0.9, seed: 1, sensitivity: false } });
+  }, 300_000);
+
+  const model = (d: TransitionSet) => fitBehaviourModel(d.states, d.actions, d.count, 2, 2);
+
+  it('reads the limits, takes the dithers as independent, and measures how far the log disagrees', () => {
+    const quiet = model(independent).ditherDependence!, loud = model(correlated).ditherDependence!;
+    expect(model(correlated).bounds).toBeDefined();
+    // Independent dithers: within 4/√N of zero (the standard error at ρ = 0).
+    expect(Math.abs(quiet.correlation[0][1])).toBeLessThan(4 / Math.sqrt(quiet.rows));
+    expect(ditherDependenceNoted(quiet)).toBe(false);
+    // Drawn at 0.6: the rows inside the limits keep most of it (selection shrinks it toward zero, never past it).
+    expect(loud.correlation[0][1]).toBeGreaterThan(DITHER_CORRELATION_NOTED);
+    expect(loud.correlation[0][1]).toBeLessThan(0.6 + 4 * (1 - 0.36) / Math.sqrt(loud.rows));
+    expect(ditherDependenceNoted(loud)).toBe(true);
+  });
+
+  it('says so as a caution in the assessment, with the numbers the rule read', () => {
+    const d = model(correlated).ditherDependence!, text = ditherDependenceText(d, plant.actionNames)!;
+    const warning = assessment.warnings.find((w) => w.message === text);
+    expect(warning?.severity).toBe('caution');
+    expect(text).toContain(d.correlation[0][1].toFixed(2));
+    expect(text).toContain(`named from ${DITHER_CORRELATION_NOTED}`);
+    expect(text).toContain(plant.actionNames[0]);
+  });
+});
