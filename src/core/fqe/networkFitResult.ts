@@ -18,6 +18,7 @@ import { featureNetwork, jointWeights } from './networkIterateValues';
 import type { IterationRun } from './networkIterations';
 import { episodeLastLayerSums, lastLayerTotals } from './networkLastLayerSums';
 import { solveLastLayer } from './networkLastLayer';
+import { ridgeLadderSentence } from './networkRidgeLadder';
 import type { LastLayer } from './networkOutputLayer';
 import { INTERVAL_COVERS, networkValueInterval, valueInterval, type EstimateOptions, type NetworkValueEstimate } from './networkValueEstimate';
 import { jointRowsAt, meanRow, rowValues, startFeatureRows } from './networkValueRows';
@@ -33,6 +34,8 @@ export interface FinishContext {
 interface FinalIterate {
   readonly theta: tf.Tensor1D; // owned here
   readonly lastLayer: LastLayer;
+  /** The hidden ridge its last layer was solved with; the interval's resamples solve with the same. */
+  readonly hiddenRidge: number;
   readonly status: NetworkFitStatus;
   readonly message: string;
 }
@@ -40,7 +43,7 @@ interface FinalIterate {
 export function finishNetworkFit(s: FitSession, run: IterationRun, ctx: FinishContext): NetworkFit {
   const final = chooseFinal(s, run);
   try {
-    const systems = episodeSystems(s, final.theta);
+    const systems = episodeSystems(s, final.theta, final.hiddenRidge);
     return assemble(s, run, ctx, final, systems);
   } catch (error) {
     final.theta.dispose();
@@ -52,27 +55,29 @@ export function finishNetworkFit(s: FitSession, run: IterationRun, ctx: FinishCo
 
 function chooseFinal(s: FitSession, run: IterationRun): FinalIterate {
   const { stop, kept } = run;
+  const ladder = ridgeLadderSentence(run.raisedRidge, s.method.hiddenRidge), withLadder = (m: string) => (ladder ? `${m} ${ladder}` : m);
   if (!kept) {
     if (stop.kind === 'cancelled') throw new FqeCancelledError('network FQE was cancelled before its first outer iteration completed, so there is no network to keep');
     throw new NetworkDivergedError(`network FQE diverged before any iterate passed its checks. ${stop.message} Lower learningRate (e.g. by 10×) or check the rewards for outliers.`);
   }
+  const at = { theta: kept.theta, lastLayer: kept.lastLayer, hiddenRidge: kept.hiddenRidge };
   if (stop.kind === 'diverged') {
     const message = `${stop.message} Kept iterate ${kept.iteration}, the last that passed the checks; a lower learningRate may avoid the divergence.`;
-    return { theta: kept.theta, lastLayer: kept.lastLayer, status: 'diverged', message };
+    return { ...at, status: 'diverged', message: withLadder(message) };
   }
-  const averaged = stop.kind !== 'cancelled' ? averagedIterate(s) : null;
-  if (averaged) return { ...averaged, status: stop.kind, message: `${stop.message} Hidden layers averaged over the last ${s.average.count} iterations, last layer re-solved on them.` };
-  return { theta: kept.theta, lastLayer: kept.lastLayer, status: stop.kind, message: stop.message };
+  const averaged = stop.kind !== 'cancelled' ? averagedIterate(s, kept.hiddenRidge) : null;
+  if (averaged) return { ...averaged, hiddenRidge: kept.hiddenRidge, status: stop.kind, message: withLadder(`${stop.message} Hidden layers averaged over the last ${s.average.count} iterations, last layer re-solved on them.`) };
+  return { ...at, status: stop.kind, message: withLadder(stop.message) };
 }
 
 /** With averageLast > 1 (least-squares last layer only): the average θ, its last layer re-solved; null when not applicable or not sound. */
-function averagedIterate(s: FitSession): { theta: tf.Tensor1D; lastLayer: LastLayer } | null {
+function averagedIterate(s: FitSession, hiddenRidge: number): { theta: tf.Tensor1D; lastLayer: LastLayer } | null {
   if (s.average.count < 2 || s.method.lastLayer !== 'leastSquares') return null;
   const theta = s.average.mean();
   const features = hiddenFeatureRows(theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
   try {
     const sums = lastLayerTotals(s.linear.training.tensors, features, s.linearTotal);
-    const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, s.method.hiddenRidge);
+    const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, hiddenRidge);
     if (!('failure' in solved)) {
       const lastLayer = { linear: solved.weights.slice(0, sums.linearDim), hidden: solved.weights.slice(sums.linearDim) };
       const probe = rowValues(jointRowsAt(featureNetwork(s, theta), s.probe.inputs, s.probe.linear), jointWeights(lastLayer), sums.dim);
@@ -86,12 +91,12 @@ function averagedIterate(s: FitSession): { theta: tf.Tensor1D; lastLayer: LastLa
   return null;
 }
 
-function episodeSystems(s: FitSession, theta: tf.Tensor1D): EpisodeSystems {
+function episodeSystems(s: FitSession, theta: tf.Tensor1D, hiddenRidge: number): EpisodeSystems {
   const features = hiddenFeatureRows(theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
   try {
     const dh = features.hidden.shape[1], { part, rewards } = s.linear.training;
     const joint = episodeLastLayerSums(part, rewards, features.hidden.dataSync() as Float32Array, features.nextHidden.dataSync() as Float32Array, dh, s.episodes.sums, s.episodes.ranges);
-    return { joint, linear: s.episodes.sums, ids: s.episodes.ids, hiddenRidge: s.method.hiddenRidge };
+    return { joint, linear: s.episodes.sums, ids: s.episodes.ids, hiddenRidge };
   } finally {
     features.dispose();
   }

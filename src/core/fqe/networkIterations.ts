@@ -18,11 +18,11 @@ import type { FitSession } from './networkFitSession';
 import type { NetworkIterationRecord } from './networkFqe';
 import { hiddenFeatureRows, type HiddenFeatureRows } from './networkHiddenFeatures';
 import { lastLayerTotals } from './networkLastLayerSums';
-import { solveLastLayer } from './networkLastLayer';
 import { currentWeights, setOutputLayer, type LastLayer } from './networkOutputLayer';
 import { createPacer, trainSteps, type TrainingGuard } from './networkTrainer';
 import { adamStepFlop, featurePassFlop, lastLayerSumsFlop, newWork, type NetworkWork } from './networkWork';
-import { measureIterate, regressionTargets, heldOutBellmanError } from './networkIterateValues';
+import { measureIterate, regressionTargets, heldOutBellmanError, type MeasuredIterate } from './networkIterateValues';
+import { climbRidgeLadder } from './networkRidgeLadder';
 import { requireActiveBackend, type TfBackendName } from './tfBackend';
 
 export interface IterationStop {
@@ -35,6 +35,8 @@ export interface KeptIterate {
   readonly theta: tf.Tensor1D;
   readonly lastLayer: LastLayer;
   readonly iteration: number;
+  /** The hidden ridge its last layer was solved with (networkRidgeLadder.ts); the default unless raised. */
+  readonly hiddenRidge: number;
 }
 
 export interface IterationRun {
@@ -46,6 +48,8 @@ export interface IterationRun {
   readonly work: NetworkWork;
   /** The last iterate measured at the full step size (the decay began after it); null if it never began. */
   readonly decayFrom: number | null;
+  /** Iterates solved with a raised hidden ridge (networkRidgeLadder.ts); empty when none needed it. */
+  readonly raisedRidge: readonly { readonly iteration: number; readonly hiddenRidge: number }[];
 }
 
 export interface LoopInput {
@@ -73,6 +77,8 @@ interface LoopState {
   readonly linearStart: Float64Array;
   /** performance.now() at the start of the outer loop. */
   readonly started: number;
+  /** Iterates whose last layer needed a larger hidden ridge to stay within the possible values (networkRidgeLadder.ts). */
+  readonly raisedRidge: { iteration: number; hiddenRidge: number }[];
 }
 
 /** Yield to the event loop about this often, so cancellation and progress can get through. */
@@ -81,12 +87,12 @@ const PACE_MS = 50;
 export async function runOuterIterations(s: FitSession, input: LoopInput, backend: TfBackendName, linearStart: Float64Array): Promise<IterationRun> {
   const rule = convergenceRule(s.discount, input.tolerance, input.patience);
   const started = performance.now();
-  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null, decayFrom: null, started };
+  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null, decayFrom: null, started, raisedRidge: [] };
   const guard: TrainingGuard = {
     lossLimit: ((2 * s.valueLimit) / s.output.scale) ** 2, cancel: input.isCancelled, pace: createPacer(PACE_MS),
     checkBackend: () => requireActiveBackend(backend, 'network FQE'),
   };
-  const run = (stop: IterationStop): IterationRun => ({ history: state.history, stop, kept: state.kept, rule, work: state.work, decayFrom: state.decayFrom });
+  const run = (stop: IterationStop): IterationRun => ({ history: state.history, stop, kept: state.kept, rule, work: state.work, decayFrom: state.decayFrom, raisedRidge: state.raisedRidge });
   try {
     for (let k = 1; k <= input.outerIterations; k++) {
       throwIfCancelled(input.isCancelled);
@@ -127,13 +133,10 @@ async function outerIteration(
 function measure(
   s: FitSession, k: number, state: LoopState, features: HiddenFeatureRows, input: LoopInput, rule: ConvergenceRule,
 ): { stop: IterationStop } | { lastLayer: LastLayer; remainingBound: number | null } {
-  const lastLayer = lastLayerOf(s, features, state);
-  if ('failure' in lastLayer) return { stop: diverged(k, lastLayer.failure) };
+  const solved = possibleIterate(s, k, state, features, input);
+  if ('stop' in solved) return solved;
+  const { lastLayer, values, hiddenRidge } = solved;
   if (s.method.lastLayer === 'leastSquares') setOutputLayer(s.net.theta, s.layout, lastLayer, s.output.scale);
-  const values = measureIterate(s, lastLayer, input.startStates, input.stateDim);
-  if (!(values.reach <= s.valueLimit)) {
-    return { stop: diverged(k, `the values reach |Q| = ${values.reach.toPrecision(4)}, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy's value can reach`) };
-  }
   state.iterates.push({ policyValue: values.policyValue, probe: values.probe });
   const change = iterationChange(rule, state.iterates);
   state.history.push({
@@ -142,7 +145,7 @@ function measure(
     elapsedSeconds: (performance.now() - state.started) / 1000,
   });
   state.kept?.theta.dispose();
-  state.kept = { theta: tf.clone(s.net.theta), lastLayer, iteration: k };
+  state.kept = { theta: tf.clone(s.net.theta), lastLayer, iteration: k, hiddenRidge };
   return { lastLayer, remainingBound: change.remainingBound };
 }
 
@@ -177,12 +180,30 @@ function countFeatureWork(s: FitSession, work: NetworkWork): void {
 }
 
 /** The last layer of this iterate: solved (least squares) or read from θ on top of the fixed linear start (gradient). */
-function lastLayerOf(s: FitSession, features: HiddenFeatureRows, state: LoopState): LastLayer | { failure: string } {
-  if (s.method.lastLayer === 'gradient') return currentWeights(s.net.theta, s.layout, state.linearStart, s.output.scale);
+/**
+ * The last layer of this iterate with its values, when they pass the value check: read from θ on top
+ * of the fixed linear start (gradient), or solved by least squares, raising the hidden ridge where
+ * the default gives values no policy can have (networkRidgeLadder.ts).
+ */
+function possibleIterate(
+  s: FitSession, k: number, state: LoopState, features: HiddenFeatureRows, input: LoopInput,
+): { lastLayer: LastLayer; values: MeasuredIterate; hiddenRidge: number } | { stop: IterationStop } {
+  const measureAt = (lastLayer: LastLayer) => measureIterate(s, lastLayer, input.startStates, input.stateDim);
+  const passes = (values: MeasuredIterate) => values.reach <= s.valueLimit;
+  if (s.method.lastLayer === 'gradient') {
+    const lastLayer = currentWeights(s.net.theta, s.layout, state.linearStart, s.output.scale), values = measureAt(lastLayer);
+    return passes(values) ? { lastLayer, values, hiddenRidge: s.method.hiddenRidge } : { stop: beyondReach(k, s, values) };
+  }
   const sums = lastLayerTotals(s.linear.training.tensors, features, s.linearTotal);
-  const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, s.method.hiddenRidge);
-  if ('failure' in solved) return solved;
-  return { linear: solved.weights.slice(0, sums.linearDim), hidden: solved.weights.slice(sums.linearDim) };
+  const step = climbRidgeLadder(sums, s.method.hiddenRidge, measureAt, passes);
+  if ('failure' in step) return { stop: diverged(k, step.failure) };
+  if ('failing' in step) return { stop: beyondReach(k, s, step.failing.values) };
+  if (step.hiddenRidge !== s.method.hiddenRidge) state.raisedRidge.push({ iteration: k, hiddenRidge: step.hiddenRidge });
+  return step;
+}
+
+function beyondReach(k: number, s: FitSession, values: MeasuredIterate): IterationStop {
+  return diverged(k, `the values reach |Q| = ${values.reach.toPrecision(4)}, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy's value can reach`);
 }
 
 /** The iterate after which the step size starts to decay (networkMethod.ts), or null: not yet. */

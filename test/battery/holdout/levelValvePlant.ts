@@ -22,6 +22,7 @@ import { dryerPlant } from './dryerPlant';
 import { exchangerPlant } from './exchangerPlant';
 import { kettlePlant } from './kettlePlant';
 import { neutralisationPlant } from './neutralisationPlant';
+import { steamDrumPlant } from './steamDrumPlant';
 import { surgeDrumPlant } from './surgeDrumPlant';
 
 const AREA_M2 = 3, STEP_S = 10, VALVE_FLOW_M3_S = 0.05, LEVEL_SETPOINT_M = 2, VALVE_BIAS = 0.8;
@@ -73,5 +74,5 @@ export function gentleLevelValvePlant(): BatteryPlant {
 }
 
 export function holdoutPlants(): BatteryPlant[] {
-  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant(), pipeHeaterPlant()];
+  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant(), pipeHeaterPlant(), steamDrumPlant()];
 }
