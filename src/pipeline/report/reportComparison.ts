@@ -1,7 +1,7 @@
 /** The comparison section: J of every policy with its intervals, paired differences and the ranking. */
 import type { Assessment, IntervalEstimate } from '../assessment';
 import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
-import { intervalAtPrecision, valueAtPrecision, valueWithError } from './intervalPrecision';
+import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';

@@ -7,7 +7,7 @@ import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
 import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
-import { intervalAtPrecision, valueAtPrecision } from './intervalPrecision';
+import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 export function diagnosticsSection(input: ReportInput): Html {

@@ -14,7 +14,7 @@ import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
 import { escapeHtml, formatNumber, html, raw, type Html } from './htmlText';
-import { intervalAtPrecision, valueAtPrecision } from './intervalPrecision';
+import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 /** The figure's width in CSS px: the report's text column (reportStyles.ts, 980 px less padding). */

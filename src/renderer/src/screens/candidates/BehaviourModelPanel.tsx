@@ -4,7 +4,8 @@
  */
 import type { BehaviourFit } from '../../../../shared/workerMessages';
 import type { ProjectDocument } from '../../../../project/schema';
-import { estimateText, formatNumber } from '../../format/numberFormat';
+import { formatNumber } from '../../format/numberFormat';
+import { valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectDocument; behaviour: BehaviourFit; onStart: () => void }) {
   if (!behaviour.ok) {
@@ -19,7 +20,7 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
   const { states, actions } = doc.columns;
   // The error to two significant digits and the coefficient to the same place ("−21.6 ± 2.0", not "−21.57 ± 2").
   const pm = (value: number, se: number) => {
-    const t = estimateText(value, se);
+    const t = valueWithError(value, se);
     return `${t.value} ± ${t.error}`;
   };
   const rows: { label: string; cell: (j: number) => string }[] = [

@@ -9,17 +9,18 @@ import { supportWords } from '../../../../figures/charts/retuneMapText';
 import { CopyTable } from '../../components/CopyTable';
 import { RichText } from '../../components/RichText';
 import { formatNumber } from '../../format/numberFormat';
-import { intervalText, valueAtIntervalPrecision } from './assessmentWords';
+
 import { richAxisLabel } from './retuneMapWords';
+import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 type Point = RetuneMapResult['points'][number];
 
 /** J at its interval's decimals, as the headline, the readout and the report's grid print it (6.74 [4.88, 8.88], not 6.745). */
-const valueText = (p: Point) => (p.value === null ? '—' : valueAtIntervalPrecision(p.value, p.interval));
+const valueText = (p: Point) => (p.value === null ? '—' : valueAtPrecision(p.value, p.interval));
 
 const mark = (p: Point) => (p.value === null ? '' : p.support === null ? '' : p.support === 'caution' ? ' *' : ' †');
 const cellClass = (p: Point, best: boolean) => ['number', best ? 'map-best' : '', p.value !== null && p.support !== null && p.support !== 'caution' ? 'map-unsupported' : ''].join(' ').trim();
-const cellTitle = (p: Point) => `J ${valueText(p)} ${intervalText(p.interval)}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
+const cellTitle = (p: Point) => `J ${valueText(p)} ${intervalAtPrecision(p.interval)}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
 
 export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: string }) {
   const best = map.best?.index ?? -1;
@@ -72,7 +73,7 @@ function ListTable({ map, best, testId }: { map: RetuneMapResult; best: number; 
           <tr key={i} className={i === best ? 'map-best' : ''}>
             <td className="number">{formatNumber(p.coordinates[0])}</td>
             <td className={cellClass(p, false)}>{valueText(p)}</td>
-            <td className="number">{intervalText(p.interval)}</td>
+            <td className="number">{intervalAtPrecision(p.interval)}</td>
             <td>{supportWords(p.support)}{p.status === 'converged' ? '' : ` (fit ${p.status})`}</td>
           </tr>
         ))}
