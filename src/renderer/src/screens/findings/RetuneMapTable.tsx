@@ -36,24 +36,25 @@ export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: 
   );
 }
 
+/** The grid as the figure draws it (and the report prints it): the first axis across, the second up, its highest value in the top row. */
 function GridTable({ map, best, testId }: { map: RetuneMapResult; best: number; testId: string }) {
-  const [rows, columns] = map.axes, n = columns.values.length;
+  const [across, up] = map.axes, n = up.values.length, rowOrder = up.values.map((_, r) => n - 1 - r);
   return (
     <table data-testid={testId} className="map-table">
-      <caption className="small muted">Rows: <RichText text={richAxisLabel(rows.label)} />; columns: <RichText text={richAxisLabel(columns.label)} />.</caption>
+      <caption className="small muted">Across: <RichText text={richAxisLabel(across.label)} />; up: <RichText text={richAxisLabel(up.label)} />, as in the figure.</caption>
       <thead>
         <tr>
           <th scope="col" aria-label="row value" />
-          {columns.values.map((v) => <th key={v} scope="col" className="number">{formatNumber(v)}</th>)}
+          {across.values.map((v) => <th key={v} scope="col" className="number">{formatNumber(v)}</th>)}
         </tr>
       </thead>
       <tbody>
-        {rows.values.map((r, i) => (
-          <tr key={r}>
-            <th scope="row" className="number">{formatNumber(r)}</th>
-            {columns.values.map((c, j) => {
-              const p = map.points[i * n + j];
-              return <td key={c} className={cellClass(p, i * n + j === best)} title={cellTitle(p)}>{valueText(p)}{mark(p)}</td>;
+        {rowOrder.map((r) => (
+          <tr key={up.values[r]}>
+            <th scope="row" className="number">{formatNumber(up.values[r])}</th>
+            {across.values.map((c, j) => {
+              const p = map.points[j * n + r];
+              return <td key={c} className={cellClass(p, j * n + r === best)} title={cellTitle(p)}>{valueText(p)}{mark(p)}</td>;
             })}
           </tr>
         ))}
