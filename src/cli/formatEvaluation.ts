@@ -5,6 +5,7 @@ import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
 import { atDecimals, intervalText, rowDecimals, widthDecimals } from './uncertainNumberText';
 import type { Assessment } from '../pipeline/assessment';
+import { loggedLimitText } from '../core/loggedLimitWords';
 
 /** A fitted parameter (offset, dither): four significant digits. */
 const number = (v: number | null): string => significant(v, 4);
@@ -28,6 +29,16 @@ export function perAction(label: string, values: readonly number[], actions: rea
   const valued = (v: number, j: number) => `${number(v)}${units?.[j] ? ` ${units[j]}` : ''}`;
   if (values.length <= 1 || !actions || actions.length !== values.length) return `${label} ${values.map(valued).join(', ')}`;
   return `${label} ${values.map((v, j) => `${valued(v, j)} on ${actions[j]}`).join(', ')}`;
+}
+
+/**
+ * The actuator limits read from the log, each with how the log showed it ("actuator limits read from
+ * the log: lower 0 % (repeated extreme), upper 100 % (at a declared bound)"); with several actions each named.
+ */
+export function limitsText(model: NonNullable<Evaluation['presentController']>['model']): string {
+  const one = (j: number) => loggedLimitText(model.lo[j], model.hi[j], model.limitEvidence && { lo: model.limitEvidence.lo[j], hi: model.limitEvidence.hi[j] }, model.units?.[j] ?? '', number);
+  const several = model.lo.length > 1 && model.actions?.length === model.lo.length;
+  return `actuator limits read from the log: ${model.lo.map((_, j) => (several ? `${one(j)} on ${model.actions![j]}` : one(j))).join('; ')}`;
 }
 
 /** The value table; with the assessment, each row at the precision of the interval the assessment gives it. */
@@ -61,7 +72,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: its fit did not converge, so no value is reported for it. ${p.message}`),
     ...e.policies.flatMap((p) => (p.network ? [networkLine(p.name, p.network)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
-    pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions, pc.model.units)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}) and evaluated like the candidates.`
+    pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions, pc.model.units)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}; ${limitsText(pc.model)}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
     ...(truncation ? [`${truncation}${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),

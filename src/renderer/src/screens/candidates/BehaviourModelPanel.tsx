@@ -1,11 +1,13 @@
 /**
  * The behaviour model fitted to the log (a = c + G·s + e): what today's controller looks like, each
- * coefficient ± its standard error, one column per action.
+ * coefficient ± its standard error, one column per action, and the actuator limits the log shows
+ * with how it shows each (a repeated extreme, or a value at a declared bound).
  */
 import type { BehaviourFit } from '../../../../shared/workerMessages';
 import type { ProjectDocument } from '../../../../project/schema';
 import { formatNumber } from '../../format/numberFormat';
 import { valueWithError } from '../../../../figures/parts/uncertainNumber';
+import { loggedLimitText } from '../../../../core/loggedLimitWords';
 
 export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectDocument; behaviour: BehaviourFit; onStart: () => void }) {
   if (!behaviour.ok) {
@@ -28,6 +30,8 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
     ...states.map((s, p) => ({ label: `Gain on ${s.column}`, cell: (j: number) => pm(m.gain[j][p], m.gainStandardError[j][p]) })),
     { label: 'Dither (standard deviation)', cell: (j) => formatNumber(m.std[j]) },
     { label: 'Share of action variance explained (R²)', cell: (j) => formatNumber(m.rSquared[j], 3) },
+    // Each limit with how the log showed it: a repeated extreme, or one value at a bound a candidate declares (core/loggedActionLimits.ts).
+    { label: 'Actuator limits read from the log', cell: (j) => loggedLimitText(m.limits.lo[j], m.limits.hi[j], { lo: m.limits.evidence.lo[j], hi: m.limits.evidence.hi[j] }, actions[j]?.unit ?? '', (v) => formatNumber(v)) },
   ];
   return (
     <section className="panel" aria-labelledby="behaviour-heading" data-testid="behaviour-model">
