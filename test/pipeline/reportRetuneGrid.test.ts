@@ -14,6 +14,9 @@ import { REPORT_CSS } from '../../src/pipeline/report/reportStyles';
 import type { RetuneMapResult } from '../../src/pipeline/retuneMaps';
 import type { ReportInput } from '../../src/pipeline/report/reportInput';
 import { requireChromium } from '../support/chromiumPath';
+import { join } from 'node:path';
+
+const SCREENS = join(__dirname, '..', '..', 'test-artifacts', 'screens');
 
 const A4_TEXT_WIDTH_PX = Math.floor((182 / 25.4) * 96);
 
@@ -79,6 +82,8 @@ describe('the report\'s retune grid', () => {
         // Every point once, in one of the tables.
         expect(await page.$$eval('.retune-grid td', (cells) => cells.length)).toBe(n * n);
         if (n === 10 && centre < 1e4) expect(widths, `10 × 10, J ≈ ${centre}: one table where it fits`).toHaveLength(1);
+        // For a person to look at: the widest grid the schema allows, split into blocks that fit the page.
+        if (n === 20 && centre === 8.5 && halfWidth === 0.02) await page.screenshot({ path: join(SCREENS, 'report-retune-grid-20.png'), fullPage: true });
       }
     }
     await page.close();
