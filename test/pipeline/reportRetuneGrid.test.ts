@@ -1,7 +1,7 @@
 /**
  * The report's retune grid (pipeline/report/reportRetune.ts): each cell's J and its interval at one
  * precision — the interval's ends to three significant digits of its width, J to the same decimal
- * place (JCGM 100, the GUM, §7.2.2 — common practice; the rule of figures/parts/tickFormat.ts that
+ * place (JCGM 100, the GUM, §7.2.2 — common practice; the rule of figures/parts/uncertainNumber.ts that
  * the app and the report's other tables use) — laid out as the figure beside it draws the map (the
  * first axis across, the second up: retuneMap.ts puts axes[0] on x and axes[1] on y), and grids up to
  * 20 × 20 (the schema's limit) no wider than the A4 text width when printed. A4 is 210 mm wide (ISO 216), less the report's 14 mm margins each side

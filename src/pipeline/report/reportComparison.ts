@@ -74,7 +74,7 @@ function pointComparison(input: ReportInput): Html {
     </tbody></table>`;
 }
 
-/** A point estimate and its ± s.e. at one precision (intervalPrecision.ts, valueWithError). */
+/** A point estimate and its ± s.e. at one precision (figures/parts/uncertainNumber.ts, valueWithError). */
 function errorCells(value: number, standardError: number | null): Html {
   const t = valueWithError(value, standardError);
   return html`<td class="num">${t.value}</td><td class="num">${t.error}</td>`;
