@@ -3,12 +3,20 @@ import { truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
-import { atDecimals, errorDecimals, intervalText, widthDecimals } from './uncertainNumberText';
+import { atDecimals, intervalText, rowDecimals, widthDecimals } from './uncertainNumberText';
+import type { Assessment } from '../pipeline/assessment';
+import { loggedLimitText } from '../core/loggedLimitWords';
 
 /** A fitted parameter (offset, dither): four significant digits. */
 const number = (v: number | null): string => significant(v, 4);
-/** A value and its standard error, both at the error's two significant digits. */
-const withError = (value: number | null, error: number | null): [string, string] => [atDecimals(value, errorDecimals(error)), atDecimals(error, errorDecimals(error))];
+/**
+ * A value and its standard error at one precision: the decimal place of the interval the assessment
+ * prints for the same row where there is one, else the error's two significant digits — the app's rule
+ * (one precision per screen: the Findings' value table takes the interval's place once it has one), so
+ * this table and the assessment table below it print one J alike.
+ */
+const withError = (value: number | null, error: number | null, iv: Interval): [string, string] => [atDecimals(value, rowDecimals(iv, error)), atDecimals(error, rowDecimals(iv, error))];
+type Interval = readonly [number, number] | null;
 
 const STATUS_WORDS = { converged: 'converged', maxIterations: 'NOT CONVERGED', diverged: 'DIVERGED' } as const;
 
@@ -23,25 +31,36 @@ export function perAction(label: string, values: readonly number[], actions: rea
   return `${label} ${values.map((v, j) => `${valued(v, j)} on ${actions[j]}`).join(', ')}`;
 }
 
-export function formatEvaluation(e: Evaluation, projectFile: string): string {
+/**
+ * The actuator limits read from the log, each with how the log showed it ("actuator limits read from
+ * the log: lower 0 % (repeated extreme), upper 100 % (at a declared bound)"); with several actions each named.
+ */
+export function limitsText(model: NonNullable<Evaluation['presentController']>['model']): string {
+  const one = (j: number) => loggedLimitText(model.lo[j], model.hi[j], model.limitEvidence && { lo: model.limitEvidence.lo[j], hi: model.limitEvidence.hi[j] }, model.units?.[j] ?? '', number);
+  const several = model.lo.length > 1 && model.actions?.length === model.lo.length;
+  return `actuator limits read from the log: ${model.lo.map((_, j) => (several ? `${one(j)} on ${model.actions![j]}` : one(j))).join('; ')}`;
+}
+
+/** The value table; with the assessment, each row at the precision of the interval the assessment gives it. */
+export function formatEvaluation(e: Evaluation, projectFile: string, assessment: Assessment | null = null): string {
   const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';
   const s = e.settings;
   const rows: string[][] = [['policy', 'value J', '± s.e.', 'fixed point', 'fit']];
   // A fit that did not meet its convergence rule has no value to report: the table says so and its message says why
   // ("no value", not "not settled", which names the function-class verdict of the assessment).
-  for (const p of e.policies) {
-    const converged = p.status === 'converged';
-    const [value, error] = withError(p.policyValue, p.standardError), d = errorDecimals(p.standardError);
+  e.policies.forEach((p, i) => {
+    const converged = p.status === 'converged', iv = assessment?.candidates[i]?.policyValue.percentile ?? null;
+    const [value, error] = withError(p.policyValue, p.standardError, iv), d = rowDecimals(iv, p.standardError);
     rows.push([p.name, converged ? value : 'no value', converged ? error : '', atDecimals(p.fixedPointValue, d), converged ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
-  }
+  });
   const pc = e.presentController, truncation = truncationSentence(e.behaviour);
   if (pc) {
-    const x = pc.estimate, converged = x.status === 'converged';
-    const [value, error] = withError(x.policyValue, x.standardError), d = errorDecimals(x.standardError);
+    const x = pc.estimate, converged = x.status === 'converged', iv = assessment?.presentController?.policyValue.percentile ?? null;
+    const [value, error] = withError(x.policyValue, x.standardError, iv), d = rowDecimals(iv, x.standardError);
     rows.push([`${PRESENT_CONTROLLER} [baseline]`, converged ? value : 'no value', converged ? error : '', atDecimals(x.fixedPointValue, d), converged ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
-    rows.push([`${LOGGED_RETURN}, completed past time limits (check)`, ...withError(pc.completedReturn.value, pc.completedReturn.standardError), '', `${e.behaviour.episodes} runs`]);
+    rows.push([`${LOGGED_RETURN}, completed past time limits (check)`, ...withError(pc.completedReturn.value, pc.completedReturn.standardError, assessment?.presentController?.completedReturn.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   }
-  rows.push([pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError), '', `${e.behaviour.episodes} runs`]);
+  rows.push([pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
     `Values are the ${sense}, discount ${s.discount}.`,
@@ -53,7 +72,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string): string {
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: its fit did not converge, so no value is reported for it. ${p.message}`),
     ...e.policies.flatMap((p) => (p.network ? [networkLine(p.name, p.network)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
-    pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions, pc.model.units)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}) and evaluated like the candidates.`
+    pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions, pc.model.units)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}; ${limitsText(pc.model)}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
     ...(truncation ? [`${truncation}${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),

@@ -18,7 +18,7 @@ import { ImportanceSamplingError, perDecisionEstimates } from '../core/offPolicy
 import type {
   AssessmentWarning, CandidateAssessment, Comparison, CrossCheck, FunctionClassAssessment, IntervalEstimate, PairedDifference, PresentControllerAssessment,
 } from './assessment';
-import { intervalDecimals } from '../figures/parts/tickFormat';
+import { ASCII_MINUS, intervalAtPrecision, valueAtPrecision } from '../figures/parts/uncertainNumber';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import { crossChecks } from './assessCrossChecks';
 import { coverageDiagnostics, coverageWarnings, linearModelOf, shiftOf, type CoverageReference } from './assessDiagnostics';
@@ -198,15 +198,13 @@ function withUnresampledOwn(classes: FunctionClassAssessment | null, work: Candi
   if (own >= lo && own <= hi) return widened;
   return {
     ...widened, settled: false,
-    reason: `Not settled: the ${work.classes[0].label} value ${own.toPrecision(4)} lies outside the range of the linear classes, ${rangeText([lo, hi])}.`,
+    reason: `Not settled: the ${work.classes[0].label} value ${valueAtPrecision(own, [lo, hi], ASCII_MINUS)} lies outside the range of the linear classes, ${rangeText([lo, hi])}.`,
   };
 }
 
-/** The range at its own precision, as the tables beside the warning print it ("[5.62, 9.55]", not "[5.624, 9.549]"): tickFormat.ts's rule; ASCII minus, as the command line keeps. */
-function rangeText(range: [number, number]): string {
-  const decimals = intervalDecimals(range);
-  const text = (x: number): string => (decimals === null ? x.toPrecision(4) : x.toFixed(decimals));
-  return `[${text(range[0])}, ${text(range[1])}]`;
+/** The range at its own precision, as the tables beside the warning print it ("[5.62, 9.55]", not "[5.624, 9.549]"); ASCII minus, as the command line keeps. */
+function rangeText(range: readonly [number, number]): string {
+  return intervalAtPrecision(range, ASCII_MINUS);
 }
 
 function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {

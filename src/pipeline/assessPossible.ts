@@ -12,6 +12,7 @@ import { stateValues, ValueQueryError } from '../core/value';
 import type { AssessmentWarning, IntervalEstimate } from './assessment';
 import type { CandidateModel } from './model/candidateModel';
 import type { EvaluationPlan } from './plan/evaluationPlan';
+import { ASCII_MINUS, intervalAtPrecision, plainNumber, valueAtPrecision } from '../figures/parts/uncertainNumber';
 
 const TOPIC = 'impossibleValue';
 
@@ -19,7 +20,8 @@ export function impossibleValue(plan: EvaluationPlan, range: PossibleValues, mod
   const j = model.fit.policyValue, interval = estimate.percentile, inReward = interval && (plan.sign > 0 ? interval : [-interval[1], -interval[0]]);
   const wholly = inReward !== null && intervalOutsidePossible(inReward[0], inReward[1], range);
   if (outsidePossible(j, range) || wholly) {
-    const what = wholly && interval ? `J = ${(plan.sign * j).toPrecision(4)} and its whole interval (${interval[0].toPrecision(4)} to ${interval[1].toPrecision(4)}) lie` : `J = ${(plan.sign * j).toPrecision(4)} lies`;
+    const jText = valueAtPrecision(plan.sign * j, interval, ASCII_MINUS); // at its interval's precision (figures/parts/uncertainNumber.ts)
+    const what = wholly && interval ? `J = ${jText} and its whole interval ${intervalAtPrecision(interval, ASCII_MINUS)} lie` : `J = ${jText} lies`;
     return [{
       severity: 'serious', topic: TOPIC,
       message: `${what} outside what any policy can reach while its ${words(plan)} stay within the logged range (${rangeText(plan, range)}, discounted): either the candidate would take the plant where its steps lie outside the logged ${words(plan)}, or the fit extrapolates far from the logs. The logs cannot vouch for this value either way: do not use it without other evidence.`,
@@ -35,7 +37,7 @@ function words(plan: EvaluationPlan): string {
 
 function rangeText(plan: EvaluationPlan, range: PossibleValues): string {
   const [lo, hi] = plan.sign > 0 ? [range.lower, range.upper] : [-range.upper, -range.lower];
-  return `${lo.toPrecision(4)} to ${hi.toPrecision(4)}`;
+  return `${plainNumber(lo, 4, ASCII_MINUS)} to ${plainNumber(hi, 4, ASCII_MINUS)}`;
 }
 
 /** V̂ at up to MAX_VALUE_CHECK_STATES logged states against the range; null when V̂ cannot be taken there (a value that is not finite). */

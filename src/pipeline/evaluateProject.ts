@@ -105,6 +105,7 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
       lo: fitted.offset.map((_, j) => finiteOrNull(fitted.limits.lo[j])), hi: fitted.offset.map((_, j) => finiteOrNull(fitted.limits.hi[j])),
       actions: [...plan.data.actionNames],
       units: plan.data.actionNames.map((name) => plan.project.columns.actions.find((c) => c.column === name)?.unit ?? ''),
+      limitEvidence: { lo: [...fitted.limits.evidence.lo], hi: [...fitted.limits.evidence.hi] },
     },
     completedReturn: { value: plan.sign * completed.value, standardError: completed.standardError, tailShare: completed.tailShare },
   };

@@ -3,11 +3,11 @@
  * quoting a result (JCGM 100:2008 §7.2.2: m_S = 100.021 47 g with u_c = 0.35 mg is written
  * "(100.021 47 ± 0.000 35) g" — the value to the decimal place of the uncertainty's two significant
  * digits; from memory) and against the report's own writer of the same rule, so screen, report and
- * terminal print one interval alike (pipeline/report/intervalPrecision.ts; it writes U+2212 minus).
+ * terminal print one interval alike (figures/parts/uncertainNumber.ts with U+2212 minus, as the report calls it).
  */
 import { describe, expect, it } from 'vitest';
 import { atDecimals, errorDecimals, intervalText, ratioText, rowDecimals } from '../../src/cli/uncertainNumberText';
-import { intervalAtPrecision, valueAtPrecision } from '../../src/pipeline/report/intervalPrecision';
+import { intervalAtPrecision, valueAtPrecision } from '../../src/figures/parts/uncertainNumber';
 
 describe('numbers at the precision of their uncertainty, on the command line', () => {
   it('writes the GUM §7.2.2 example as the GUM does', () => {

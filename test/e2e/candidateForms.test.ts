@@ -37,8 +37,8 @@ describe('candidate forms in the editor (e2e)', () => {
     const [pi, schedule, limited] = [0, 1, 2].map((i) => page.getByTestId(`candidate-${i}`));
     expect(await page.getByTestId('candidate-form-0').inputValue()).toBe('pi');
     expect(await page.getByTestId('candidate-form-1').inputValue()).toBe('schedule');
-    expect(await pi.getByLabel('Proportional gain K_c (% per °C)').inputValue()).toBe('25');
-    expect(await pi.getByLabel('Integral time T_i (s)').inputValue()).toBe('1800');
+    expect(await pi.getByLabel('Proportional gain Kc (% per °C)').inputValue()).toBe('25');
+    expect(await pi.getByLabel('Integral time Ti (s)').inputValue()).toBe('1800');
     expect(await pi.getByLabel('Error-integral state').inputValue()).toBe('zone_error_integral');
     expect(await schedule.getByLabel('Output at breakpoint 3 (%)').inputValue()).toBe('82.7');
     expect(await schedule.getByLabel('Add a P/PI trim').isChecked()).toBe(true);
@@ -46,6 +46,10 @@ describe('candidate forms in the editor (e2e)', () => {
     expect(await limited.getByLabel('Previous-action state').inputValue()).toBe('valve_prev_pct');
     const text = await page.locator('body').innerText();
     expect(text).not.toMatch(/form\.loops|candidates\.\d|proportionalGain|integralTimeSeconds/);
+    // The symbols are typeset with subscripts (K<sub>c</sub>), never written "K_c" or "K_{c}".
+    expect(text).not.toMatch(/[KT]_\{?[ci]/);
+    expect(await pi.locator('label sub').allInnerTexts()).toEqual(expect.arrayContaining(['c', 'i']));
+    expect(await pi.getByTestId('candidate-form-meaning-0').locator('sub').count()).toBe(3);
     expect(await page.locator('[data-testid^="candidate-"] [role="alert"]').count()).toBe(0);
   });
 
@@ -84,7 +88,7 @@ describe('candidate forms in the editor (e2e)', () => {
     const card = page.getByTestId('candidate-1');
     await fill(card.getByLabel('Name', { exact: true }), 'PI from the editor');
     await page.getByTestId('candidate-form-1').selectOption('pi');
-    await expect.poll(() => page.getByTestId('candidate-form-meaning-1').innerText(), POLL).toContain('K_c/T_i');
+    await expect.poll(() => page.getByTestId('candidate-form-meaning-1').innerText(), POLL).toContain('Kc/Ti');
     // The form switch is one undo step, and the name is kept across it.
     await page.getByTestId('step-candidates').focus();
     await page.keyboard.press('Control+z');
@@ -93,9 +97,9 @@ describe('candidate forms in the editor (e2e)', () => {
     await expect.poll(() => page.getByTestId('candidate-form-1').inputValue(), POLL).toBe('pi');
     expect(await card.getByLabel('Name', { exact: true }).inputValue()).toBe('PI from the editor');
     await fill(card.getByLabel('Bias (%)'), '82.7');
-    await fill(card.getByLabel('Proportional gain K_c (% per °C)'), '20');
+    await fill(card.getByLabel('Proportional gain Kc (% per °C)'), '20');
     await card.getByLabel('Integral action').selectOption('time');
-    await fill(card.getByLabel('Integral time T_i (s)'), '2400');
+    await fill(card.getByLabel('Integral time Ti (s)'), '2400');
     expect(await card.getByLabel('Error-integral state').inputValue()).toBe('zone_error_integral');
     // An error integral of another measurement: the check's message stands beside the field, and a hint names what is missing.
     await card.getByLabel('Measurement').selectOption('outdoor_temp_c');

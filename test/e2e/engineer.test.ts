@@ -166,6 +166,8 @@ describe('the app as a control engineer meets it (e2e)', () => {
             };
             await expect.poll(uneven, POLL).toEqual([]);
           }
+          // The discount factor with its time horizon (GUIDE §4), as the Estimator's help states it.
+          if (step === 'run') await expect.poll(() => page.getByTestId('run-discount').innerText(), POLL).toMatch(/^0\.\d+ \(horizon about [\d.]+ steps(; about .+ at the .+ s sampling period)?\)$/);
           // A short project name is shown whole where the toolbar has room for it (only a long one gives way).
           await expect.poll(() => page.getByTestId('project-title').evaluate((e) => e.scrollWidth <= e.clientWidth), POLL).toBe(true);
           await app.screenshot(`engineer-${size.width}-${theme}-${step}`);

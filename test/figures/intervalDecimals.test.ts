@@ -1,15 +1,17 @@
 /**
- * One precision for a value read with its interval (figures/parts/tickFormat.ts): the ends to the
- * decimal place that gives the width three significant digits, the value to the same place. The
- * rule is the usual one for a result and its uncertainty (JCGM 100, the GUM, §7.2.2; common
- * practice), applied to an interval's width; the report's tables (pipeline/report/intervalPrecision.ts)
- * and the app's Findings (renderer assessmentWords.ts, intervalText) write the same digits.
+ * One writer for a value read with its uncertainty (figures/parts/uncertainNumber.ts), which the
+ * figures, the app's tables, the report and the command line all call: an interval's ends to the
+ * decimal place that gives its width three significant digits, the value to the same place; a
+ * standard error to two significant digits and its value to that place (JCGM 100, the GUM, §7.2.2
+ * and §7.2.6; common practice). The place is set by the uncertainty, never by the value's size, so a
+ * value of a million or more stays in fixed notation on every host. Numbers worked by hand.
  */
 import { describe, expect, it } from 'vitest';
-import { formatEstimate, formatValueInInterval, intervalDecimals } from '../../src/figures/parts/tickFormat';
-import { estimateText } from '../../src/renderer/src/format/numberFormat';
-import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../src/pipeline/report/intervalPrecision';
-import { intervalText, valueAtIntervalPrecision } from '../../src/renderer/src/screens/findings/assessmentWords';
+import { formatEstimate, formatTick, formatValue, formatValueInInterval } from '../../src/figures/parts/tickFormat';
+import { intervalAtPrecision, intervalDecimals, plainNumber, valueAtPrecision, valueWithError } from '../../src/figures/parts/uncertainNumber';
+import { intervalText as cliInterval, atDecimals as cliAt, errorDecimals } from '../../src/cli/uncertainNumberText';
+import { formatNumber as appNumber } from '../../src/renderer/src/format/numberFormat';
+import { formatNumber as reportNumber } from '../../src/pipeline/report/htmlText';
 
 describe('numbers at the precision of their interval', () => {
   it('takes the decimal place from three significant digits of the width', () => {
@@ -19,17 +21,17 @@ describe('numbers at the precision of their interval', () => {
     expect(intervalDecimals([300, 4800])).toBe(0); // never below the units
     expect(intervalDecimals([1, 1])).toBeNull(); // zero width: the plain style
     expect(intervalDecimals(null)).toBeNull();
-    expect(intervalDecimals([2e6, 3e6])).toBeNull(); // exponent form there
+    expect(intervalDecimals([2e6, 2.0005e6])).toBe(0); // width 500: the value's size does not matter
+    expect(intervalDecimals([2e6, 3e6])).toBeNull(); // an uncertainty of a million: the plain style
   });
 
-  it('writes a figure label, a report cell and an app cell alike', () => {
+  it('writes a figure label, a report or app cell and a terminal cell alike (the terminal with an ASCII minus)', () => {
     const iv: [number, number] = [6.5808, 10.3412];
     expect(formatValueInInterval(8.35823, iv)).toBe('8.36');
     expect(valueAtPrecision(8.35823, iv)).toBe('8.36');
-    expect(valueAtIntervalPrecision(8.35823, iv)).toBe('8.36');
     expect(intervalAtPrecision(iv)).toBe('[6.58, 10.34]');
-    expect(intervalAtPrecision(iv)).toBe(intervalText(iv));
     expect(valueAtPrecision(-0.77114, [-0.8871, -0.6598])).toBe('\u22120.771');
+    expect(cliInterval([-0.8871, -0.6598])).toBe(intervalAtPrecision([-0.8871, -0.6598]).replace(/\u2212/g, '-'));
     expect(formatValueInInterval(44, [37.8, 50.2])).toBe('44.0'); // the trailing zero stays: one precision down a column
   });
 
@@ -41,12 +43,27 @@ describe('numbers at the precision of their interval', () => {
 
   it('writes one J alike on one screen: the ± s.e. table and chart go to the interval\'s place once there is one', () => {
     const iv: [number, number] = [6.5808, 10.3412];
-    expect(estimateText(8.35823, 1.0912)).toEqual({ value: '8.4', error: '1.1' }); // no interval yet: the ± rule (GUM §7.2.6)
-    expect(estimateText(8.35823, 1.0912, iv)).toEqual({ value: '8.36', error: '1.09' }); // as the answer table writes J
-    expect(estimateText(8.35823, 1.0912, iv).value).toBe(valueAtIntervalPrecision(8.35823, iv));
+    expect(valueWithError(8.35823, 1.0912)).toEqual({ value: '8.4', error: '1.1' }); // no interval yet: the ± rule (GUM §7.2.6)
+    expect(valueWithError(8.35823, 1.0912, iv)).toEqual({ value: '8.36', error: '1.09' }); // as the answer table writes J
     expect(formatEstimate(8.35823, 1.0912)).toBe('8.4 ± 1.1');
     expect(formatEstimate(8.35823, 1.0912, iv)).toBe('8.36 ± 1.09');
     expect(formatEstimate(-0.77114, 0.0756, [-0.8871, -0.6598])).toBe('\u22120.771 ± 0.076');
-    expect(estimateText(8.35823, 1.0912, [1, 1])).toEqual({ value: '8.4', error: '1.1' }); // zero width: no interval rule
+    expect(valueWithError(8.35823, 1.0912, [1, 1])).toEqual({ value: '8.4', error: '1.1' }); // zero width: no interval rule
+  });
+
+  // A cost summed over a long horizon reaches millions (J = 1,234,567.9 ± 3.2). GUM §7.2.2 puts the
+  // value at the error's place whatever its size; exponent form (1.235e6) would round by thousands.
+  it('keeps a value of a million or more in fixed notation in the figures, the app and the report, as on the terminal', () => {
+    expect(formatEstimate(1234567.891, 3.2)).toBe('1234567.9 ± 3.2');
+    expect(valueWithError(1234567.891, 3.2)).toEqual({ value: '1234567.9', error: '3.2' });
+    expect(cliAt(1234567.891, errorDecimals(3.2))).toBe('1234567.9');
+    expect(intervalAtPrecision([1234500.2, 1234600.7])).toBe('[1234500, 1234601]');
+    expect(formatValueInInterval(1234555.55, [1234500.2, 1234600.7])).toBe('1234556');
+    expect(formatValue(1234567)).toBe('1,235,000'); // four significant digits, thousands grouped (a text, not an interval)
+    expect(formatValue(-2.5e7)).toBe('\u221225,000,000');
+    expect([appNumber(1234567), reportNumber(1234567, 4), plainNumber(1234567)]).toEqual(['1235000', '1235000', '1235000']);
+    expect(formatTick(2500000, 0)).toBe('2,500,000'); // a tick label stays readable: grouped
+    expect(formatTick(2.5e9, 0)).toBe('2.50e9'); // past eleven characters: exponent form (the stated width)
+    expect(plainNumber(1.23456e-5)).toBe('1.235e\u22125');
   });
 });

@@ -62,8 +62,9 @@ describe('tick text', () => {
     expect(formatTick(0.25, 2)).toBe('0.25');
     expect(formatTick(-0, 3)).toBe('0.000'); // zero with the axis' decimals, never '−0'
   });
-  it('exponent notation for very large and very small magnitudes', () => {
-    expect(formatTick(2.5e7, 0)).toBe('2.50e7');
+  it('exponent notation only past the stated tick width (1e9) and for very small magnitudes', () => {
+    expect(formatTick(2.5e7, 0)).toBe('25,000,000'); // fixed, as the tables and the command line write millions
+    expect(formatTick(2.5e9, 0)).toBe('2.50e9');
     expect(formatTick(3e-6, 6)).toBe('3.00e−6'); // true minus sign (U+2212)
     expect(formatValue(123456.789)).toBe('123,500');
     expect(formatValue(0.012345)).toBe('0.01235');

@@ -1,11 +1,11 @@
 /**
- * The report's "value ± standard error" (pipeline/report/intervalPrecision.ts, valueWithError): the
+ * The report's "value ± standard error" (figures/parts/uncertainNumber.ts, valueWithError, which the report calls): the
  * error to two significant digits (JCGM 100, the GUM, §7.2.2 — common practice). A positive standard
  * error must never print as zero: where two significant digits need more than the ten decimals the
  * fixed style allows, the plain number style (exponent form) is the honest one. Numbers by hand.
  */
 import { describe, expect, it } from 'vitest';
-import { valueWithError } from '../../src/pipeline/report/intervalPrecision';
+import { valueWithError } from '../../src/figures/parts/uncertainNumber';
 
 const asNumber = (text: string) => Number(text.replace('\u2212', '-'));
 

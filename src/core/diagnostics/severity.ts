@@ -32,6 +32,7 @@
  */
 
 import { DEFAULT_START_COVERAGE } from './startCoverage';
+import { effectiveRunsText } from '../offPolicy/effectiveRunsText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -126,7 +127,7 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
-    message: `Importance weights at step ${step}: effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} runs ` +
+    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
       `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): ` +
       'the importance-sampling cross-checks rest on a few runs.',
   };

@@ -28,6 +28,7 @@
  * checks within 2 % of it). The estimate is then unconfirmed unless a check on the logged actions
  * and rewards themselves (importance sampling) agrees.
  */
+import { effectiveRunsText } from './effectiveRunsText';
 
 export const CROSS_CHECK_RULE = {
   standardErrors: 3, relative: 0.02, detectableGap: 0.1,
@@ -88,7 +89,9 @@ function weakness(e: CrossCheckEvidence): string | null {
   const r = CROSS_CHECK_RULE, w = e.weights;
   if (w) {
     const needed = Math.max(r.minEffectiveEpisodes, r.minEffectiveShare * w.episodesReaching);
-    if (w.effectiveEpisodes < needed) return `at step ${w.horizonSteps} the importance weights have an effective size of ${w.effectiveEpisodes.toFixed(1)} runs (below ${needed.toFixed(0)})`;
+    if (w.effectiveEpisodes < needed) return w.effectiveEpisodes >= 1
+      ? `at step ${w.horizonSteps} the importance weights have an effective size of ${effectiveRunsText(w.effectiveEpisodes)} (below ${needed.toFixed(0)})`
+      : `at step ${w.horizonSteps} the importance weights carry ${effectiveRunsText(w.effectiveEpisodes)}, where ${needed.toFixed(0)} runs are needed`;
     if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged runs' ends, where it uses fitted Q-evaluation's own value`;
   }
   if (e.shareOutsideLogs !== undefined && e.shareOutsideLogs > r.maxShareOutsideLogs) {

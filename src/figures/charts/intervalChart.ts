@@ -10,6 +10,7 @@ import { legendPlugin } from '../parts/legendBox';
 import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import { PRESENT_CONTROLLER, PRESENT_DASH_PX, type Theme } from '../parts/plotTheme';
 import { formatValue, formatValueInInterval } from '../parts/tickFormat';
+import { intervalAtPrecision } from '../parts/uncertainNumber';
 
 export const INTERVAL_CHART_DEFAULTS = { rowHeightPx: 30, baseHeightPx: 120, dotRadiusPx: 4.5, capPx: 10, lineWidthPx: 2.5, labelGapPx: 8 } as const;
 
@@ -130,5 +131,5 @@ function intervalBars(props: IntervalChartProps, colour: (i: number) => string, 
 }
 
 export function intervalSummary(props: IntervalChartProps): string {
-  return `${props.title}: ` + props.rows.map((r) => `${r.label} ${formatValue(r.value)}${r.interval ? ` (${formatValue(r.interval[0])} to ${formatValue(r.interval[1])})` : ''}`).join('; ') + '.';
+  return `${props.title}: ` + props.rows.map((r) => `${r.label} ${formatValueInInterval(r.value, r.interval)}${r.interval ? ` ${intervalAtPrecision(r.interval)}` : ''}`).join('; ') + '.';
 }

@@ -6,6 +6,7 @@ import type { MapSupport, RetuneMapData } from './figureData';
 import { PRESENT_CONTROLLER, type Theme } from '../parts/plotTheme';
 import { plainText } from '../parts/richText';
 import { formatValue, formatValueInInterval } from '../parts/tickFormat';
+import { intervalAtPrecision } from '../parts/uncertainNumber';
 
 export interface RetuneMapPlotProps {
   map: RetuneMapData;
@@ -53,7 +54,7 @@ export function mapSubtitle(props: RetuneMapPlotProps, what: 'Colour' | 'Line'):
 export function pointReadout(props: RetuneMapPlotProps, p: number): string[] {
   const point = props.map.points[p];
   const lines = props.map.axes.map((axis, a) => `${plainText(axis.label)}: ${formatValue(point.coordinates[a])}`);
-  const interval = point.interval ? ` [${formatValueInInterval(point.interval[0], point.interval)}, ${formatValueInInterval(point.interval[1], point.interval)}]` : '';
+  const interval = point.interval ? ` ${intervalAtPrecision(point.interval)}` : '';
   lines.push(point.value === null ? 'J: no solution' : `J: ${formatValueInInterval(point.value, point.interval)}${interval}`, supportWords(point.support));
   if (point.status !== 'converged') lines.push(`fit: ${point.status}`);
   if (props.map.best?.index === p) lines.push('best supported point');

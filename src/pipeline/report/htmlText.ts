@@ -1,5 +1,6 @@
 /** Text into HTML safely, and numbers as a reviewer reads them (the report's one number style). */
 import { isoTimeText } from '../../core/clockText';
+import { plainNumber } from '../../figures/parts/uncertainNumber';
 
 const ESCAPES: Record<string, string> = { '&': '&amp;', '<': '&lt;', '>': '&gt;', '"': '&quot;', "'": '&#39;' };
 
@@ -32,17 +33,9 @@ function piece(v: string | number | Html | Html[] | null | undefined): string {
   return escapeHtml(String(v));
 }
 
-/** Six significant digits, trailing zeros dropped; exponent form for very large or small magnitudes; "—" for none. */
+/** Six significant digits, trailing zeros dropped; the one plain number style (figures/parts/uncertainNumber.ts): fixed notation up to 1e15, exponent form beyond and below 1e-4; "—" for none. */
 export function formatNumber(v: number | null | undefined, digits = 6): string {
-  if (v === null || v === undefined || !Number.isFinite(v)) return '—';
-  const magnitude = Math.abs(v);
-  if (magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return trueMinus(v.toExponential(Math.max(1, digits - 3)));
-  return trueMinus(v.toPrecision(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, ''));
-}
-
-/** The minus sign (U+2212) for the hyphen-minus in a number, as typesetting does (common practice). */
-function trueMinus(text: string): string {
-  return text.replace(/-/g, '\u2212');
+  return v === null || v === undefined || !Number.isFinite(v) ? '—' : plainNumber(v, digits);
 }
 
 /** "2 December 2026, 14:41 UTC" from an ISO 8601 time; the text itself when it is not one. */

@@ -1,7 +1,7 @@
 /** The comparison section: J of every policy with its intervals, paired differences and the ranking. */
 import type { Assessment, IntervalEstimate } from '../assessment';
 import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
-import { intervalAtPrecision, valueAtPrecision, valueWithError } from './intervalPrecision';
+import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
@@ -74,7 +74,7 @@ function pointComparison(input: ReportInput): Html {
     </tbody></table>`;
 }
 
-/** A point estimate and its ± s.e. at one precision (intervalPrecision.ts, valueWithError). */
+/** A point estimate and its ± s.e. at one precision (figures/parts/uncertainNumber.ts, valueWithError). */
 function errorCells(value: number, standardError: number | null): Html {
   const t = valueWithError(value, standardError);
   return html`<td class="num">${t.value}</td><td class="num">${t.error}</td>`;

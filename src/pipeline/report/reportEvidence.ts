@@ -7,7 +7,7 @@ import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
 import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
-import { intervalAtPrecision, valueAtPrecision } from './intervalPrecision';
+import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 export function diagnosticsSection(input: ReportInput): Html {
@@ -40,7 +40,7 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
     row('Importance weights: effective share of the one-step ratios', (c) => formatPercent(weights(c)?.oneStepShare), ''),
-    row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return w ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes}` : '—'; }, ''),
+    row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return !w ? '—' : w.horizonEffectiveEpisodes >= 1 ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes}` : `${w.horizonEffectiveEpisodes > 0 ? 'less than 1' : 'none'} of ${w.horizonEpisodes}`; }, ''),
     row('Action probability outside the logged range near the state: mean', (c) => formatPercent(c.diagnostics.actionSupport.meanOutside), formatPercent(first?.actionSupport.behaviourMeanOutside)),
     row(`… ${UPPER_PERCENTILE}th percentile over states`, (c) => formatPercent(c.diagnostics.actionSupport.p90Outside), ''),
     row('… largest', (c) => formatPercent(c.diagnostics.actionSupport.maxOutside), ''),

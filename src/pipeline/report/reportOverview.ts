@@ -5,6 +5,8 @@ import { CAUTIONS } from '../cautions';
 import { html, formatNumber, formatPercent, formatWrittenAt, type Html } from './htmlText';
 import { senseWords, type ReportInput } from './reportInput';
 import { policyLabel } from '../policyNames';
+import { PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
+import { loggedLimitText } from '../../core/loggedLimitWords';
 
 export function summarySection(input: ReportInput): Html {
   const a = input.assessment, e = input.evaluation, words = senseWords(input);
@@ -40,7 +42,21 @@ export function jobSection(input: ReportInput): Html {
       const summary = summariseCandidate(c, p.columns);
       return html`<tr><td>${c.name}</td><td>${summary.mean.join('; ')}</td><td>${summary.dither}</td><td>${summary.limits}</td><td>${c.description}</td></tr>`;
     })}
+    ${presentControllerRow(input)}
     </tbody></table></section>`;
+}
+
+/**
+ * The baseline beside the candidates: the present controller as fitted to the log, with the actuator
+ * limits read from the log and how the log showed each (core/loggedLimitWords.ts).
+ */
+function presentControllerRow(input: ReportInput): Html {
+  const model = input.evaluation.presentController?.model;
+  if (!model) return html``;
+  const name = (j: number) => (model.lo.length > 1 ? ` on ${model.actions?.[j] ?? `action ${j + 1}`}` : '');
+  const limits = model.lo.map((_, j) => `${loggedLimitText(model.lo[j], model.hi[j], model.limitEvidence && { lo: model.limitEvidence.lo[j], hi: model.limitEvidence.hi[j] }, model.units?.[j] ?? '', (v) => formatNumber(v, 4))}${name(j)}`);
+  const dither = model.std.map((v, j) => `${formatNumber(v, 4)}${model.units?.[j] ? ` ${model.units[j]}` : ''}${name(j)}`);
+  return html`<tr><td>${PRESENT_CONTROLLER} (baseline)</td><td>as fitted to the log (offset and gains on the states)</td><td>${dither.join('; ')}</td><td>read from the log: ${limits.join('; ')}</td><td>The controller that ran while the log was recorded, evaluated like the candidates.</td></tr>`;
 }
 
 /** Significant digits of the column statistics: the app's statistics table shows four (renderer format/numberFormat.ts). */

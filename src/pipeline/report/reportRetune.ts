@@ -3,8 +3,8 @@
  * (src/figures/charts/retuneMap.ts: a heat map over two parameters with the colour bar, the
  * unsupported points hatched and keyed in the legend, the best supported point outlined; a curve
  * over one), written inline by the shared figure stack (src/figures/writers/inlineSvg.ts) — and
- * below it the same numbers as a table, the accessible fallback: for two axes a grid with the first
- * axis down and the second across, each cell J with its interval, shaded by whether the logs support
+ * below it the same numbers as a table, the accessible fallback: for two axes a grid laid out as the
+ * figure is, the first axis across and the second up, each cell J with its interval, shaded by whether the logs support
  * it (the occupancy-shift rule, src/core/diagnostics/severity.ts); the present controller's value
  * for reference.
  */
@@ -14,11 +14,25 @@ import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
 import { escapeHtml, formatNumber, html, raw, type Html } from './htmlText';
-import { intervalAtPrecision, valueAtPrecision } from './intervalPrecision';
+import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 /** The figure's width in CSS px: the report's text column (reportStyles.ts, 980 px less padding). */
 const MAP_WIDTH_PX = 720;
+/** Most grid columns in one table, however narrow the numbers. */
+const MOST_COLUMNS = 10;
+/** The printed text width: A4's 210 mm (ISO 216) less the report's 14 mm side margins (reportStyles.ts), at 96 CSS px per inch. */
+const TEXT_WIDTH_PX = Math.floor((182 / 25.4) * 96);
+/**
+ * A grid cell's text (0.85 × 13 px = 11.05 px, reportStyles.ts) in CSS px per character: a digit or
+ * letter, and a narrow mark (". , [ ]"). The stylesheet's faces (Segoe UI, Arial and their metric twins)
+ * set digits at 0.556 em = 6.15 px and these marks at 3.07 px (measured in Chromium); 4 % more, so a
+ * close call gives one column less rather than a grid past the margin. Checked against Chromium's
+ * layout in test/pipeline/reportRetuneGrid.test.ts.
+ */
+const CHAR_PX = { wide: 6.4, narrow: 3.2 } as const;
+/** A cell's padding (2 × 4 px) and 2 px for rounding. */
+const CELL_EXTRA_PX = 10;
 
 const SUPPORT_WORD = { caution: 'thin logs', serious: 'beyond the logs', unknown: 'support unknown' } as const;
 
@@ -69,8 +83,41 @@ function mapTable(map: RetuneMapResult): Html {
     return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">J and interval</th></tr></thead><tbody>
       ${map.points.map((p, i) => html`<tr><td class="num">${formatNumber(p.coordinates[0], 4)}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;
   }
-  const [rows, cols] = map.axes, width = cols.values.length;
-  return html`${caption}<table class="retune-grid"><thead><tr><th>${raw(axisHtml(rows.label))} ↓ · ${raw(axisHtml(cols.label))} →</th>${cols.values.map((v) => html`<th class="num">${formatNumber(v, 4)}</th>`)}</tr></thead><tbody>
-    ${rows.values.map((v, r) => html`<tr><th class="num">${formatNumber(v, 4)}</th>${cols.values.map((_, c) => cell(map.points[r * width + c], r * width + c))}</tr>`)}
-    </tbody></table>${notes}`;
+  return html`${caption}${gridTables(map, cell)}${notes}`;
+}
+
+/**
+ * The grid as the figure draws it: the first axis across (columns, left to right), the second up
+ * (rows, highest at the top), so a cell stands where its point stands in the figure. Wider than
+ * MOST_COLUMNS, the columns are split into balanced blocks, each a table of its own with the row
+ * values repeated, so a grid of up to 20 per axis (the schema's limit) keeps to the A4 text width.
+ */
+function gridTables(map: RetuneMapResult, cell: (p: RetuneMapPoint, i: number) => Html): Html[] {
+  const [across, up] = map.axes, n = up.values.length, blocks = Math.ceil(across.values.length / columnsThatFit(map));
+  const size = Math.ceil(across.values.length / blocks), rowOrder = up.values.map((_, r) => n - 1 - r);
+  return Array.from({ length: blocks }, (_, b) => {
+    const columns = across.values.map((_, c) => c).slice(b * size, (b + 1) * size);
+    const part = blocks > 1 ? ` (columns ${columns[0] + 1}–${columns[columns.length - 1] + 1} of ${across.values.length})` : '';
+    return html`<table class="retune-grid"><thead><tr><th>${raw(axisHtml(up.label))} ↑ · ${raw(axisHtml(across.label))} →${part}</th>${columns.map((c) => html`<th class="num">${formatNumber(across.values[c], 4)}</th>`)}</tr></thead><tbody>
+    ${rowOrder.map((r) => html`<tr><th class="num">${formatNumber(up.values[r], 4)}</th>${columns.map((c) => cell(map.points[c * n + r], c * n + r))}</tr>`)}
+    </tbody></table>`;
+  });
+}
+
+/** Estimated width of a line of grid text that does not break (a value, an interval's end with its bracket). */
+function textPx(text: string): number {
+  return [...text].reduce((sum, ch) => sum + (/[.,:;[\]()' ]/.test(ch) ? CHAR_PX.narrow : CHAR_PX.wide), 0);
+}
+
+/**
+ * How many columns of the grid fit the text width beside the row values: the widest unbreakable piece
+ * of any cell (its value, or one end of its interval: an interval may break after its comma) decides.
+ */
+function columnsThatFit(map: RetuneMapResult): number {
+  const [across, up] = map.axes;
+  const pieces = map.points.flatMap((p) => [p.value === null ? `no value (${p.status})`.split(' ') : [valueAtPrecision(p.value, p.interval)], intervalAtPrecision(p.interval).split(' ')].flat());
+  const cellPx = Math.max(...[...pieces, ...across.values.map((v) => formatNumber(v, 4))].map(textPx)) + CELL_EXTRA_PX;
+  const labelWords = `${up.label} ${across.label}`.split(/\s+/);
+  const rowHeaderPx = Math.max(...[...labelWords, ...up.values.map((v) => formatNumber(v, 4))].map(textPx)) + CELL_EXTRA_PX;
+  return Math.max(1, Math.min(MOST_COLUMNS, Math.floor((TEXT_WIDTH_PX - rowHeaderPx) / cellPx)));
 }

@@ -1,6 +1,8 @@
 /** The cross-check rule's mechanics on hand-made evidence: each limit in CROSS_CHECK_RULE decides exactly where it says. */
 import { describe, expect, it } from 'vitest';
 import { confirmationOf, CROSS_CHECK_RULE, crossCheckVerdict, type CrossCheckEvidence } from '../../../src/core/offPolicy/crossCheckVerdict';
+import { effectiveRunsText } from '../../../src/core/offPolicy/effectiveRunsText';
+import { effectiveShareFinding } from '../../../src/core/diagnostics/severity';
 
 const base: CrossCheckEvidence = { label: 'Model rollouts', difference: 0, differenceStandardError: 0.5, fqe: -100, shareOutsideLogs: 0 };
 const weights = { effectiveEpisodes: 150, episodesReaching: 300, horizonSteps: 33, tailWeight: 0.05 };
@@ -36,6 +38,19 @@ describe('crossCheckVerdict', () => {
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 29 } }).note).toMatch(/effective size of 29\.0 runs \(below 30\)/);
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 9, episodesReaching: 40 } }).note).toMatch(/below 10/);
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, tailWeight: 0.6 } }).note).toMatch(/60 % of the discount weight lies past/);
+  });
+
+  // Kish's n_eff = (Σw)²/Σw² is at least 1 with any positive weight and 0 when every weight is zero (a candidate
+  // that would never take some action of each logged run): "0.0 runs" read as a fault of the tool.
+  it('says an effective size below one run in words, from the same number', () => {
+    const ok = { ...base, shareOutsideLogs: undefined, label: 'Doubly robust' };
+    const note = crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 0.0412 } }).note;
+    expect(note).toMatch(/importance weights carry less than one run's worth of weight \(0\.041 of a run\), where 30 runs are needed/);
+    expect(note).not.toMatch(/0\.0 runs/);
+    expect(effectiveShareFinding(0.0412, 300, 33)!.message).toMatch(/^Importance weights at step 33: less than one run's worth of weight \(0\.041 of a run\) from 300 runs/);
+    expect(effectiveRunsText(12.34)).toBe('12.3 runs');
+    const none = crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 0 } }).note;
+    expect(none).toMatch(/importance weights carry no run's worth of weight \(every logged run takes an action the candidate would never take\), where 30 runs are needed/);
   });
 
   it('is uninformative when the rollouts leave the logged states', () => {

@@ -2,25 +2,26 @@
 import { describe, expect, it } from 'vitest';
 import type { CoverageDiagnostics } from '../../../src/pipeline/assessment';
 import {
-  assessmentFraction, coverageSentences, intervalText, levelText, noteWithoutVerdict, progressLine, shareText, unvisitedSentence, valueAtIntervalPrecision,
+  assessmentFraction, coverageSentences, levelText, noteWithoutVerdict, progressLine, shareText, unvisitedSentence,
 } from '../../../src/renderer/src/screens/findings/assessmentWords';
+import { intervalAtPrecision, valueAtPrecision } from '../../../src/figures/parts/uncertainNumber';
 
 describe('assessment words', () => {
   it('writes intervals, levels and shares', () => {
-    expect(intervalText([6.58123, 10.3349])).toBe('[6.58, 10.33]'); // one decimal place for both ends
-    expect(intervalText([-53.5712, -50.7204])).toBe('[−53.57, −50.72]');
-    expect(intervalText([1200.4, 1350.6])).toBe('[1200, 1351]');
-    expect(intervalText([2, 2])).toBe('[2, 2]');
-    expect(intervalText(null)).toBe('—');
+    expect(intervalAtPrecision([6.58123, 10.3349])).toBe('[6.58, 10.33]'); // one decimal place for both ends
+    expect(intervalAtPrecision([-53.5712, -50.7204])).toBe('[−53.57, −50.72]');
+    expect(intervalAtPrecision([1200.4, 1350.6])).toBe('[1200, 1351]');
+    expect(intervalAtPrecision([2, 2])).toBe('[2, 2]');
+    expect(intervalAtPrecision(null)).toBe('—');
     expect(levelText(0.9)).toBe('90 %');
     expect(shareText(0.475)).toBe('47.5 %');
     expect(shareText(null)).toBe('—');
   });
 
   it('writes a value at its interval’s precision (one precision for numbers read together, JCGM 100 §7.2.2, common practice)', () => {
-    expect(valueAtIntervalPrecision(7.71841, [5.62131, 10.1834])).toBe('7.72'); // beside "[5.62, 10.18]"
-    expect(valueAtIntervalPrecision(-0.84712, [-1.04533, -0.63021])).toBe('−0.847'); // beside "[−1.045, −0.630]"
-    expect(valueAtIntervalPrecision(8.565, null)).toBe('8.565');
+    expect(valueAtPrecision(7.71841, [5.62131, 10.1834])).toBe('7.72'); // beside "[5.62, 10.18]"
+    expect(valueAtPrecision(-0.84712, [-1.04533, -0.63021])).toBe('−0.847'); // beside "[−1.045, −0.630]"
+    expect(valueAtPrecision(8.565, null)).toBe('8.565');
   });
 
   it('drops the verdict word the verdict column already shows', () => {

@@ -5,8 +5,10 @@
  */
 import { useEffect, useId, useState } from 'react';
 import { editableNumber, parseNumber } from '../format/numberFormat';
+import { RichText } from './RichText';
 
 export interface NumberFieldProps {
+  /** Plain text, or RichText markup for a symbol's subscript ("K_{c}"). */
   label: string;
   value: number | null;
   onCommit: (value: number | null) => void;
@@ -44,13 +46,13 @@ export function NumberField(props: NumberFieldProps) {
   const message = ownMessage ?? props.message ?? null;
   return (
     <div className={`field ${props.className ?? ''}`}>
-      <label htmlFor={id} className={props.hideLabel ? 'sr-only' : undefined}>{props.label}</label>
+      <label htmlFor={id} className={props.hideLabel ? 'sr-only' : undefined}><RichText text={props.label} /></label>
       <input
         id={id} inputMode="decimal" value={text} placeholder={props.placeholder} className="narrow"
         aria-invalid={message !== null} aria-describedby={`${id}-help ${id}-message`}
         onChange={(e) => change(e.target.value)} onBlur={props.onBlur}
       />
-      {props.help && <span id={`${id}-help`} className="help">{props.help}</span>}
+      {props.help && <span id={`${id}-help`} className="help"><RichText text={props.help} /></span>}
       {message && <span id={`${id}-message`} className="message" role="alert">{message}</span>}
     </div>
   );

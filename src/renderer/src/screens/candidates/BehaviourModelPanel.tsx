@@ -1,11 +1,14 @@
 /**
  * The behaviour model fitted to the log (a = c + G·s + e): what today's controller looks like, each
- * coefficient ± its standard error, one column per action.
+ * coefficient ± its standard error, one column per action, and the actuator limits the log shows
+ * with how it shows each (a repeated extreme, or a value at a declared bound).
  */
 import type { BehaviourFit } from '../../../../shared/workerMessages';
 import type { ProjectDocument } from '../../../../project/schema';
 import { ditherDependenceText } from '../../../../core/ditherDependence';
-import { estimateText, formatNumber } from '../../format/numberFormat';
+import { formatNumber } from '../../format/numberFormat';
+import { valueWithError } from '../../../../figures/parts/uncertainNumber';
+import { loggedLimitText } from '../../../../core/loggedLimitWords';
 
 export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectDocument; behaviour: BehaviourFit; onStart: () => void }) {
   if (!behaviour.ok) {
@@ -21,7 +24,7 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
   const dependence = m.ditherDependence ? ditherDependenceText(m.ditherDependence, actions.map((a) => a.column)) : null;
   // The error to two significant digits and the coefficient to the same place ("−21.6 ± 2.0", not "−21.57 ± 2").
   const pm = (value: number, se: number) => {
-    const t = estimateText(value, se);
+    const t = valueWithError(value, se);
     return `${t.value} ± ${t.error}`;
   };
   const rows: { label: string; cell: (j: number) => string }[] = [
@@ -29,12 +32,16 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
     ...states.map((s, p) => ({ label: `Gain on ${s.column}`, cell: (j: number) => pm(m.gain[j][p], m.gainStandardError[j][p]) })),
     { label: 'Dither (standard deviation)', cell: (j) => formatNumber(m.std[j]) },
     { label: 'Share of action variance explained (R²)', cell: (j) => formatNumber(m.rSquared[j], 3) },
+    // Each limit with how the log showed it: a repeated extreme, or one value at a bound a candidate declares (core/loggedActionLimits.ts).
+    { label: 'Actuator limits read from the log', cell: (j) => loggedLimitText(m.limits.lo[j], m.limits.hi[j], { lo: m.limits.evidence.lo[j], hi: m.limits.evidence.hi[j] }, actions[j]?.unit ?? '', (v) => formatNumber(v)) },
   ];
   return (
     <section className="panel" aria-labelledby="behaviour-heading" data-testid="behaviour-model">
       <h3 id="behaviour-heading">Present controller, as fitted to the log</h3>
       <p className="small muted">
-        A straight-line fit of the logged actions on the states (least squares over {m.count.toLocaleString('en-US')} logged steps):
+        A straight-line fit of the logged actions on the states over {m.count.toLocaleString('en-US')} logged steps ({m.bounds
+          ? 'clipped at the actuator limits the log shows and fitted there by censored regression, so the steps at a limit count as what they are'
+          : 'least squares'}):
         roughly what the present controller does, and how much its action wanders around that (the dither). Values ± one standard error.
       </p>
       <table>

@@ -8,6 +8,7 @@
 import { NumberField } from '../../components/NumberField';
 import { SelectField } from '../../components/SelectField';
 import { TextField } from '../../components/TextField';
+import { RichText } from '../../components/RichText';
 import { problemAt, problemsUnder, type FieldProblem } from '../../document/projectProblems';
 import type { CandidateSpec, ProjectDocument } from '../../../../project/schema';
 import type { DataImport } from '../../../../shared/workerMessages';
@@ -33,9 +34,9 @@ const FORMS: readonly { value: FormKind; label: string }[] = [
   { value: 'affine', label: 'Affine in the states' },
 ];
 
-/** What each form means, in one line. */
+/** What each form means, in one line (RichText markup: K_{c} is K with a subscript c). */
 export const FORM_MEANING: Record<FormKind, string> = {
-  pi: 'output = bias ± K_c·(setpoint − measurement) ± K_c/T_i·∫(setpoint − measurement) dt; + for reverse action, − for direct.',
+  pi: 'output = bias ± K_{c}·(setpoint − measurement) ± K_{c}/T_{i}·∫(setpoint − measurement) dt; + for reverse action, − for direct.',
   schedule: 'output = the scheduled value at the input (straight lines between breakpoints, flat beyond the ends) + an optional P/PI trim on a setpoint error.',
   affine: 'output = offset + Σ gain × state, in the units of the action and state columns.',
 };
@@ -64,7 +65,7 @@ export function CandidateEditor({ doc, imported, index, problems, colour, onDupl
           onChange={(next) => documents.edit(`change the form of ${candidate.name}`, (d) => ({
             ...d, candidates: d.candidates.map((c, i) => (i === index ? withFormKind(c, next, d, imported) : c)),
           }))} />
-        <p className="small form-meaning" data-testid={`candidate-form-meaning-${index}`}>{FORM_MEANING[kind]}</p>
+        <p className="small form-meaning" data-testid={`candidate-form-meaning-${index}`}><RichText text={FORM_MEANING[kind]} /></p>
       </div>
       {actions.map((action, a) => (
         <fieldset key={action.column}>

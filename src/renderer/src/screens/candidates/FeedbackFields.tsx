@@ -1,7 +1,7 @@
 /**
  * The fields of one P/PI loop on a setpoint error (a PI candidate's loop, or a schedule's trim):
  * measurement, setpoint (a number or a state column), proportional gain K_c, integral action
- * (none, integral time T_i or integral gain K_i) with its error-integral state, and direction.
+ * (none, integral time T_i or integral gain K_i; on screen as subscripts, K_{c}, through RichText) with its error-integral state, and direction.
  * Each field shows the project check's message for it.
  */
 import type { ReactNode } from 'react';
@@ -66,7 +66,7 @@ export function FeedbackFields({ doc, path, action, loop, problems, edit, leadin
             ? 'Reverse: the output rises when the measurement is below the setpoint (e.g. heating).'
             : 'Direct: the output rises when the measurement is above the setpoint (e.g. cooling).'}
           onChange={(dir) => edit('change the direction', (l) => ({ ...l, action: dir }), 'action')} />
-        <NumberField label={`Proportional gain K_c (${actionUnit} per ${measurementUnit})`} value={loop.proportionalGain} message={at('proportionalGain')}
+        <NumberField label={`Proportional gain K_{c} (${actionUnit} per ${measurementUnit})`} value={loop.proportionalGain} message={at('proportionalGain')}
           help="0 or more; the direction sets the sign."
           onCommit={(v) => v !== null && edit('set the proportional gain', (l) => ({ ...l, proportionalGain: v }), 'proportionalGain')} onBlur={documents.closeStep} />
       </div>
@@ -74,18 +74,18 @@ export function FeedbackFields({ doc, path, action, loop, problems, edit, leadin
         <SelectField<IntegralMode> label="Integral action" value={mode} message={mode === 'gain' ? null : at('integralGain')}
           options={[
             { value: 'none', label: 'None (P only)' },
-            { value: 'time', label: 'Integral time T_i' },
-            { value: 'gain', label: 'Integral gain K_i' },
+            { value: 'time', label: 'Integral time' },
+            { value: 'gain', label: 'Integral gain' },
           ]}
-          help="K_i = K_c / T_i; give whichever you tune by."
+          help="K_{i} = K_{c} / T_{i}; give whichever you tune by."
           onChange={(m) => edit('change the integral action', (l) => withIntegralMode(l, m, doc), 'integralMode')} />
         {mode === 'time' && (
-          <NumberField label="Integral time T_i (s)" value={loop.integralTimeSeconds ?? null} message={at('integralTimeSeconds')}
+          <NumberField label="Integral time T_{i} (s)" value={loop.integralTimeSeconds ?? null} message={at('integralTimeSeconds')}
             help="Above 0; a longer time is gentler integral action."
             onCommit={(v) => v !== null && edit('set the integral time', (l) => ({ ...l, integralTimeSeconds: v }), 'integralTimeSeconds')} onBlur={documents.closeStep} />
         )}
         {mode === 'gain' && (
-          <NumberField label={`Integral gain K_i (${actionUnit} per ${measurementUnit}·s)`} value={loop.integralGain ?? null} message={at('integralGain')}
+          <NumberField label={`Integral gain K_{i} (${actionUnit} per ${measurementUnit}·s)`} value={loop.integralGain ?? null} message={at('integralGain')}
             help="0 or more."
             onCommit={(v) => v !== null && edit('set the integral gain', (l) => ({ ...l, integralGain: v }), 'integralGain')} onBlur={documents.closeStep} />
         )}

@@ -28,3 +28,14 @@ export function discountHelp(discount: number, periodSeconds: number | null): st
     : ' Give the log a timestamp column to see this in time.';
   return `Weight of a cost one logged step later. ${formatNumber(discount)} looks about ${formatNumber(h.horizonSteps, 3)} steps ahead (1/(1 − γ)); a cost ${formatNumber(h.halfLifeSteps, 3)} steps ahead counts half.${inTime}`;
 }
+
+/**
+ * The discount with its time horizon, for a facts line: "0.97 (horizon about 33.3 steps; about 16 min
+ * 40 s at the 30 s sampling period)", or the discount alone outside (0, 1). The same numbers as discountHelp.
+ */
+export function discountWithHorizon(discount: number, periodSeconds: number | null): string {
+  const h = discountHorizon(discount, periodSeconds);
+  if (!h) return formatNumber(discount);
+  const inTime = h.horizonSeconds === null ? '' : `; about ${formatDuration(h.horizonSeconds * 1000)} at the ${formatNumber(periodSeconds!)} s sampling period`;
+  return `${formatNumber(discount)} (horizon about ${formatNumber(h.horizonSteps, 3)} steps${inTime})`;
+}

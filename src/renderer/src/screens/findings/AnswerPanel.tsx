@@ -6,15 +6,16 @@
  */
 import type { Assessment } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
-import { estimateText, plural } from '../../format/numberFormat';
+import { plural } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
-import { intervalText, levelText, shareText, valueAtIntervalPrecision } from './assessmentWords';
+import { levelText, shareText } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
 import { displayName, valueUnit } from './plotLabels';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
 import { TRIAL_RULE, trialChoice, type TrialChoice, type TrialLine } from './trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
+import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const CONFIRMATION: Record<string, string> = { confirmed: 'confirmed', contradicted: 'contradicted', unconfirmed: 'unconfirmed' };
 
@@ -30,8 +31,8 @@ function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: A
     if (!d) return null;
     return (
       <p className="answer-lead" data-testid="answer-lead">
-        <strong>Trial first: {pick.candidate.name}.</strong> J {valueAtIntervalPrecision(pick.candidate.policyValue.value, pick.candidate.policyValue.percentile)} {intervalText(pick.candidate.policyValue.percentile)}{unit ? ` ${unit}` : ''};
-        {' '}{valueAtIntervalPrecision(Math.abs(d.difference.value), d.difference.percentile)}{unit ? ` ${unit}` : ''} {assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the {baseline} (difference {intervalText(d.difference.percentile)}), better in {shareText(d.probabilityBetter)} of resamples.
+        <strong>Trial first: {pick.candidate.name}.</strong> J {valueAtPrecision(pick.candidate.policyValue.value, pick.candidate.policyValue.percentile)} {intervalAtPrecision(pick.candidate.policyValue.percentile)}{unit ? ` ${unit}` : ''};
+        {' '}{valueAtPrecision(Math.abs(d.difference.value), d.difference.percentile)}{unit ? ` ${unit}` : ''} {assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the {baseline} (difference {intervalAtPrecision(d.difference.percentile)}), better in {shareText(d.probabilityBetter)} of resamples.
         {' '}An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions above).
       </p>
     );
@@ -40,7 +41,7 @@ function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: A
   return (
     <p className="answer-lead" data-testid="answer-lead">
       <strong>No candidate is named for a trial.</strong>
-      {best && ` The best J is ${best.candidate.name}’s (${valueAtIntervalPrecision(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${unit ? ` ${unit}` : ''}), but ${best.reasons.join(', and ')}. Read its warnings under Coverage before any trial.`}
+      {best && ` The best J is ${best.candidate.name}’s (${valueAtPrecision(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${unit ? ` ${unit}` : ''}), but ${best.reasons.join(', and ')}. Read its warnings under Coverage before any trial.`}
     </p>
   );
 }
@@ -65,9 +66,9 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
         {choice.lines.map((l) => (
           <tr key={l.candidate.name} className={l === choice.pick ? 'answer-pick' : undefined} data-testid={`answer-row-${evaluation.policies.findIndex((p) => p.name === l.candidate.name)}`}>
             <th scope="row">{l.candidate.name}</th>
-            <td className="number">{valueAtIntervalPrecision(l.candidate.policyValue.value, l.candidate.policyValue.percentile)}</td>
-            <td className="number interval">{intervalText(l.candidate.policyValue.percentile)}</td>
-            <td className="number interval">{l.difference ? `${valueAtIntervalPrecision(l.difference.difference.value, l.difference.difference.percentile)} ${intervalText(l.difference.difference.percentile)}` : '—'}</td>
+            <td className="number">{valueAtPrecision(l.candidate.policyValue.value, l.candidate.policyValue.percentile)}</td>
+            <td className="number interval">{intervalAtPrecision(l.candidate.policyValue.percentile)}</td>
+            <td className="number interval">{l.difference ? `${valueAtPrecision(l.difference.difference.value, l.difference.difference.percentile)} ${intervalAtPrecision(l.difference.difference.percentile)}` : '—'}</td>
             <td className="number">{shareText(l.difference?.probabilityBetter ?? null)}</td>
             <td className={l.candidate.confirmation.status === 'contradicted' ? 'error-text' : undefined}>{CONFIRMATION[l.candidate.confirmation.status]}</td>
             <td className={l.serious ? 'error-text' : undefined}>{warningsText(l)}</td>
@@ -75,7 +76,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
         ))}
         <tr data-testid="answer-row-baseline">
           <th scope="row">{baseName} <span className="small muted">(baseline)</span></th>
-          <td className="number">{valueAtIntervalPrecision(base.value, base.percentile)}</td><td className="number interval">{intervalText(base.percentile)}</td>
+          <td className="number">{valueAtPrecision(base.value, base.percentile)}</td><td className="number interval">{intervalAtPrecision(base.percentile)}</td>
           <td className="number">—</td><td className="number">—</td><td /><td />
         </tr>
       </tbody>
@@ -90,7 +91,7 @@ function PointTable({ evaluation, unit }: { evaluation: Evaluation; unit: string
   return (
     <table className="answer-table" data-testid="answer-table">
       <thead><tr><th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">± s.e.</th></tr></thead>
-      <tbody>{rows.map((r) => <tr key={r.name}><th scope="row">{r.name}</th><td className="number">{estimateText(r.value, r.se).value}</td><td className="number">{estimateText(r.value, r.se).error}</td></tr>)}</tbody>
+      <tbody>{rows.map((r) => <tr key={r.name}><th scope="row">{r.name}</th><td className="number">{valueWithError(r.value, r.se).value}</td><td className="number">{valueWithError(r.value, r.se).error}</td></tr>)}</tbody>
     </table>
   );
 }

@@ -7,7 +7,8 @@ import type { Assessment } from '../../../../pipeline/assessment';
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import { displayName } from './plotLabels';
-import { intervalDetail, intervalText, levelText, shareText, valueAtIntervalPrecision } from './assessmentWords';
+import { intervalDetail, levelText, shareText } from './assessmentWords';
+import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 export function ComparisonTable({ assessment }: { assessment: Assessment }) {
   const { differences, ranking } = assessment.comparison, level = assessment.settings.level;
@@ -30,8 +31,8 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
           {differences.map((d, i) => (
             <tr key={`${d.a}|${d.b}`} data-testid={`difference-row-${i}`}>
               <td>{displayName(d.a)}</td><td>{displayName(d.b)}</td>
-              <td className="number">{valueAtIntervalPrecision(d.difference.value, d.difference.percentile)}</td>
-              <td className="number interval" title={intervalDetail(d.difference, level)}>{intervalText(d.difference.percentile)}</td>
+              <td className="number">{valueAtPrecision(d.difference.value, d.difference.percentile)}</td>
+              <td className="number interval" title={intervalDetail(d.difference, level)}>{intervalAtPrecision(d.difference.percentile)}</td>
               <td className="number">{d.probabilityBetter === null ? '—' : shareText(d.probabilityBetter)}</td>
             </tr>
           ))}

@@ -8,7 +8,8 @@
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import type { Assessment } from '../../../../pipeline/assessment';
-import { intervalDetail, intervalText, levelText, noteWithoutVerdict, valueAtIntervalPrecision, VERDICT } from './assessmentWords';
+import { intervalDetail, levelText, noteWithoutVerdict, VERDICT } from './assessmentWords';
+import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
   const level = assessment.settings.level;
@@ -23,11 +24,11 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
         {c.functionClasses && (
           <p className="small" data-testid={`classes-${c.name}`}>
             <strong>{c.settled ? 'Settled across function classes' : 'Not settled across function classes'}</strong>
-            {' '}(range to report {intervalText(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label} ${valueAtIntervalPrecision(k.value, k.interval)} ${intervalText(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
+            {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label} ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
           </p>
         )}
         <table data-testid={`cross-checks-${c.name}`}>
-          <caption>{c.name}: fitted Q-evaluation J = {valueAtIntervalPrecision(c.policyValue.value, c.policyValue.percentile)} {intervalText(c.policyValue.percentile)}</caption>
+          <caption>{c.name}: fitted Q-evaluation J = {valueAtPrecision(c.policyValue.value, c.policyValue.percentile)} {intervalAtPrecision(c.policyValue.percentile)}</caption>
           <thead>
             <tr>
               <th scope="col">Method</th><th scope="col" className="number">Value</th><th scope="col" className="number">{levelText(level)} interval</th>
@@ -38,8 +39,8 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
             {c.crossChecks.map((x) => (
               <tr key={x.method} data-testid={`cross-check-${x.method}`}>
                 <th scope="row">{x.label}</th>
-                <td className="number">{x.estimate ? valueAtIntervalPrecision(x.estimate.value, x.estimate.percentile) : '—'}</td>
-                <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalText(x.estimate.percentile) : '—'}</td>
+                <td className="number">{x.estimate ? valueAtPrecision(x.estimate.value, x.estimate.percentile) : '—'}</td>
+                <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalAtPrecision(x.estimate.percentile) : '—'}</td>
                 <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {noteWithoutVerdict(x.note)}</span> : null}</td>
               </tr>
             ))}

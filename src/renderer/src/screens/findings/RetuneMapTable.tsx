@@ -9,17 +9,18 @@ import { supportWords } from '../../../../figures/charts/retuneMapText';
 import { CopyTable } from '../../components/CopyTable';
 import { RichText } from '../../components/RichText';
 import { formatNumber } from '../../format/numberFormat';
-import { intervalText, valueAtIntervalPrecision } from './assessmentWords';
+
 import { richAxisLabel } from './retuneMapWords';
+import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 type Point = RetuneMapResult['points'][number];
 
 /** J at its interval's decimals, as the headline, the readout and the report's grid print it (6.74 [4.88, 8.88], not 6.745). */
-const valueText = (p: Point) => (p.value === null ? '—' : valueAtIntervalPrecision(p.value, p.interval));
+const valueText = (p: Point) => (p.value === null ? '—' : valueAtPrecision(p.value, p.interval));
 
 const mark = (p: Point) => (p.value === null ? '' : p.support === null ? '' : p.support === 'caution' ? ' *' : ' †');
 const cellClass = (p: Point, best: boolean) => ['number', best ? 'map-best' : '', p.value !== null && p.support !== null && p.support !== 'caution' ? 'map-unsupported' : ''].join(' ').trim();
-const cellTitle = (p: Point) => `J ${valueText(p)} ${intervalText(p.interval)}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
+const cellTitle = (p: Point) => `J ${valueText(p)} ${intervalAtPrecision(p.interval)}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
 
 export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: string }) {
   const best = map.best?.index ?? -1;
@@ -35,24 +36,25 @@ export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: 
   );
 }
 
+/** The grid as the figure draws it (and the report prints it): the first axis across, the second up, its highest value in the top row. */
 function GridTable({ map, best, testId }: { map: RetuneMapResult; best: number; testId: string }) {
-  const [rows, columns] = map.axes, n = columns.values.length;
+  const [across, up] = map.axes, n = up.values.length, rowOrder = up.values.map((_, r) => n - 1 - r);
   return (
     <table data-testid={testId} className="map-table">
-      <caption className="small muted">Rows: <RichText text={richAxisLabel(rows.label)} />; columns: <RichText text={richAxisLabel(columns.label)} />.</caption>
+      <caption className="small muted">Across: <RichText text={richAxisLabel(across.label)} />; up: <RichText text={richAxisLabel(up.label)} />, as in the figure.</caption>
       <thead>
         <tr>
           <th scope="col" aria-label="row value" />
-          {columns.values.map((v) => <th key={v} scope="col" className="number">{formatNumber(v)}</th>)}
+          {across.values.map((v) => <th key={v} scope="col" className="number">{formatNumber(v)}</th>)}
         </tr>
       </thead>
       <tbody>
-        {rows.values.map((r, i) => (
-          <tr key={r}>
-            <th scope="row" className="number">{formatNumber(r)}</th>
-            {columns.values.map((c, j) => {
-              const p = map.points[i * n + j];
-              return <td key={c} className={cellClass(p, i * n + j === best)} title={cellTitle(p)}>{valueText(p)}{mark(p)}</td>;
+        {rowOrder.map((r) => (
+          <tr key={up.values[r]}>
+            <th scope="row" className="number">{formatNumber(up.values[r])}</th>
+            {across.values.map((c, j) => {
+              const p = map.points[j * n + r];
+              return <td key={c} className={cellClass(p, j * n + r === best)} title={cellTitle(p)}>{valueText(p)}{mark(p)}</td>;
             })}
           </tr>
         ))}
@@ -72,7 +74,7 @@ function ListTable({ map, best, testId }: { map: RetuneMapResult; best: number; 
           <tr key={i} className={i === best ? 'map-best' : ''}>
             <td className="number">{formatNumber(p.coordinates[0])}</td>
             <td className={cellClass(p, false)}>{valueText(p)}</td>
-            <td className="number">{intervalText(p.interval)}</td>
+            <td className="number">{intervalAtPrecision(p.interval)}</td>
             <td>{supportWords(p.support)}{p.status === 'converged' ? '' : ` (fit ${p.status})`}</td>
           </tr>
         ))}

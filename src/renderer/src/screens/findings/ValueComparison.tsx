@@ -9,14 +9,15 @@ import { useMemo } from 'react';
 import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessment';
 import { PolicyValueChart } from '../../plots';
 import type { Evaluation } from '../../../../pipeline/estimates';
-import { estimateText, formatNumber, plural, sentence } from '../../format/numberFormat';
+import { formatNumber, plural, sentence } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
 import { valueUnit } from './plotLabels';
 import type { Theme } from '../../theme';
-import { intervalDetail, intervalText, levelText } from './assessmentWords';
+import { intervalDetail, levelText } from './assessmentWords';
 import { ExportPanel } from './ExportPanel';
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
+import { intervalAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const STATUS: Record<string, string> = { converged: 'converged', maxIterations: 'stopped at the iteration limit', diverged: 'diverged' };
 
@@ -24,7 +25,7 @@ function IntervalCell({ estimate, level, testId }: { estimate: IntervalEstimate 
   const p = estimate?.percentile ?? null;
   return (
     <td className="number interval" data-testid={testId} data-lo={p ? String(p[0]) : undefined} data-hi={p ? String(p[1]) : undefined}
-      title={estimate ? intervalDetail(estimate, level) : 'no resamples for this policy'}>{intervalText(p)}</td>
+      title={estimate ? intervalDetail(estimate, level) : 'no resamples for this policy'}>{intervalAtPrecision(p)}</td>
   );
 }
 
@@ -54,19 +55,19 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
         </thead>
         <tbody>
           {evaluation.policies.map((p, i) => {
-            const interval = assessment?.candidates[i]?.policyValue.percentile ?? null, shown = estimateText(p.policyValue, p.standardError, interval);
+            const interval = assessment?.candidates[i]?.policyValue.percentile ?? null, shown = valueWithError(p.policyValue, p.standardError, interval);
             return (
               <tr key={p.name} data-testid={`value-row-${i}`}>
                 <th scope="row">{p.name}</th>
                 <td className="number" data-testid={`policy-value-${i}`} data-value={String(p.policyValue)}>{shown.value}</td>
                 <td className="number">{shown.error}</td>
                 {assessment && <IntervalCell estimate={assessment.candidates[i]?.policyValue} level={level} testId={`policy-interval-${i}`} />}
-                <td className="number">{p.fixedPointValue === null ? '—' : estimateText(p.fixedPointValue, p.standardError, interval).value}</td>
+                <td className="number">{p.fixedPointValue === null ? '—' : valueWithError(p.fixedPointValue, p.standardError, interval).value}</td>
                 <td>{STATUS[p.status] ?? p.status} ({plural(p.iterations, 'iteration')})</td>
                 <td className="small" data-testid={`policy-account-${i}`}>{sentence(p.message)}
                   {p.network && (
                     <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
-                      {' '}{levelText(p.network.level)} interval {intervalText(p.network.interval)}; degree-2 linear {formatNumber(p.network.linear.value, 4)} {intervalText(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
+                      {' '}{levelText(p.network.level)} interval {intervalAtPrecision(p.network.interval)}; degree-2 linear {formatNumber(p.network.linear.value, 4)} {intervalAtPrecision(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
                     </span>
                   )}
                   <details className="details-section"><summary>Details</summary>Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
@@ -76,10 +77,10 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
           {pc && (
             <tr data-testid="value-row-present">
               <th scope="row">Present controller <span className="small muted">(baseline)</span></th>
-              <td className="number" data-testid="present-value" data-value={String(pc.estimate.policyValue)}>{estimateText(pc.estimate.policyValue, pc.estimate.standardError, presentInterval).value}</td>
-              <td className="number">{estimateText(pc.estimate.policyValue, pc.estimate.standardError, presentInterval).error}</td>
+              <td className="number" data-testid="present-value" data-value={String(pc.estimate.policyValue)}>{valueWithError(pc.estimate.policyValue, pc.estimate.standardError, presentInterval).value}</td>
+              <td className="number">{valueWithError(pc.estimate.policyValue, pc.estimate.standardError, presentInterval).error}</td>
               {assessment && <IntervalCell estimate={assessment.presentController?.policyValue} level={level} testId="present-interval" />}
-              <td className="number">{pc.estimate.fixedPointValue === null ? '—' : estimateText(pc.estimate.fixedPointValue, pc.estimate.standardError, presentInterval).value}</td>
+              <td className="number">{pc.estimate.fixedPointValue === null ? '—' : valueWithError(pc.estimate.fixedPointValue, pc.estimate.standardError, presentInterval).value}</td>
               <td>{STATUS[pc.estimate.status] ?? pc.estimate.status} ({plural(pc.estimate.iterations, 'iteration')})</td>
               <td className="small">The controller that ran while the log was recorded, as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.</td>
             </tr>
@@ -87,8 +88,8 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
           {pc && (
             <tr data-testid="value-row-completed">
               <th scope="row">Logged return, completed <span className="small muted">(check)</span></th>
-              <td className="number" data-value={String(pc.completedReturn.value)}>{estimateText(pc.completedReturn.value, pc.completedReturn.standardError, completedInterval).value}</td>
-              <td className="number">{estimateText(pc.completedReturn.value, pc.completedReturn.standardError, completedInterval).error}</td>
+              <td className="number" data-value={String(pc.completedReturn.value)}>{valueWithError(pc.completedReturn.value, pc.completedReturn.standardError, completedInterval).value}</td>
+              <td className="number">{valueWithError(pc.completedReturn.value, pc.completedReturn.standardError, completedInterval).error}</td>
               {assessment && <IntervalCell estimate={assessment.presentController?.completedReturn} level={level} testId="completed-interval" />}
               <td className="number">—</td>
               <td>{plural(b.episodes, 'run')}</td>
@@ -97,8 +98,8 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
           )}
           <tr data-testid="value-row-behaviour">
             <th scope="row">Logged return <span className="small muted">({pc ? 'check' : 'baseline'})</span></th>
-            <td className="number" data-testid="behaviour-value" data-value={String(b.value)}>{estimateText(b.value, b.standardError, loggedInterval).value}</td>
-            <td className="number">{estimateText(b.value, b.standardError, loggedInterval).error}</td>
+            <td className="number" data-testid="behaviour-value" data-value={String(b.value)}>{valueWithError(b.value, b.standardError, loggedInterval).value}</td>
+            <td className="number">{valueWithError(b.value, b.standardError, loggedInterval).error}</td>
             {assessment && <IntervalCell estimate={assessment.behaviour} level={level} testId="behaviour-interval" />}
             <td className="number">—</td>
             <td>{plural(b.episodes, 'run')}</td>

@@ -6,33 +6,9 @@
 import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
 import type { AssessRunProgress } from '../../../../shared/workerMessages';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../../../core/diagnostics/severity';
-import { intervalDecimals } from '../../../../figures/parts/tickFormat';
-import { fixedToDecimals, formatNumber } from '../../format/numberFormat';
-
-/**
- * "[6.58, 10.33]", or a dash without replicates: both ends to the same decimal place, the one that
- * gives the interval's width three significant digits (ends of one interval at one precision —
- * common practice, as for a value and its uncertainty in JCGM 100 §7.2.2); very large, very small
- * or zero-width intervals fall back to `significant` digits per end.
- */
-export function intervalText(interval: [number, number] | null, significant = 4): string {
-  if (!interval) return '—';
-  const [lo, hi] = interval, decimals = intervalDecimals(interval);
-  if (decimals === null) return `[${formatNumber(lo, significant)}, ${formatNumber(hi, significant)}]`;
-  const fixed = fixedToDecimals(decimals);
-  return `[${fixed(lo)}, ${fixed(hi)}]`;
-}
-
-/**
- * A value written to the decimal place its interval's ends are written to ("7.72" beside
- * "[5.62, 10.18]"), so a number read with its interval has one precision (as intervalText; JCGM 100
- * §7.2.2, common practice); without a usable interval, `significant` digits.
- */
-export function valueAtIntervalPrecision(value: number, interval: [number, number] | null, significant = 4): string {
-  const decimals = intervalDecimals(interval);
-  if (decimals === null || !Number.isFinite(value)) return formatNumber(value, significant);
-  return fixedToDecimals(decimals)(value);
-}
+import { intervalAtPrecision } from '../../../../figures/parts/uncertainNumber';
+import { effectiveRunsText } from '../../../../core/offPolicy/effectiveRunsText';
+import { formatNumber } from '../../format/numberFormat';
 
 /** "90 %" from 0.9. */
 export function levelText(level: number): string {
@@ -47,7 +23,7 @@ export function shareText(share: number | null): string {
 /** The basic interval and the replicate count, for the tooltip of an interval cell. */
 export function intervalDetail(estimate: IntervalEstimate, level: number): string {
   const failed = estimate.failedReplicates > 0 ? `, ${estimate.failedReplicates} gave no value` : '';
-  return `${levelText(level)} basic interval ${intervalText(estimate.basic)}; bootstrap s.e. ${estimate.standardError === null ? '—' : formatNumber(estimate.standardError, 3)}; ${estimate.replicates} resamples${failed}`;
+  return `${levelText(level)} basic interval ${intervalAtPrecision(estimate.basic)}; bootstrap s.e. ${estimate.standardError === null ? '—' : formatNumber(estimate.standardError, 3)}; ${estimate.replicates} resamples${failed}`;
 }
 
 /** A cross-check's note without its leading verdict word, which the verdict column already says. */
@@ -75,7 +51,7 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
   const w = d.importanceWeights;
   if (w) {
     sentences.push(`Importance weights: the one-step weights are worth ${Math.round(w.oneStepEffectiveSize).toLocaleString('en-US')} transitions (${shareText(w.oneStepShare)} of them); `
-      + `after ${w.horizonSteps} steps the cumulative weights are worth ${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes} runs. `
+      + `after ${w.horizonSteps} steps the cumulative weights are worth ${w.horizonEffectiveEpisodes >= 1 ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes} runs` : `${effectiveRunsText(w.horizonEffectiveEpisodes)} from ${w.horizonEpisodes} runs`}. `
       + 'Few effective samples make the importance-sampling cross-checks noisy.');
   }
   const a = d.actionSupport;

@@ -1,6 +1,7 @@
 /** Words on the plots and in export captions: axes with units, what V means, the settings in a line. */
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { ProjectDocument } from '../../../../project/schema';
+import { discountWithHorizon } from '../estimator/discountHorizon';
 
 export function stateLabel(doc: ProjectDocument, index: number): string {
   const s = doc.columns.states[index];
@@ -27,10 +28,10 @@ export function policyValueLabel(sense: 'reward' | 'cost', unit = ''): string {
   return `J, discounted ${sense}${unit ? ` (${unit})` : ''}`;
 }
 
-/** The settings behind the numbers, for captions: "γ = 0.95; linear …; 10 nodes; seed 1; 19,960 transitions". */
+/** The settings behind the numbers, for captions: "γ = 0.95 (horizon about 20 steps); linear …; 10 nodes; seed 1; 19,960 transitions". */
 export function settingsLine(evaluation: Evaluation): string {
   const s = evaluation.settings;
-  return `γ = ${s.discount}; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}; ${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} runs`;
+  return `γ = ${discountWithHorizon(s.discount, null)}; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}; ${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} runs`;
 }
 
 /** "2024-05-01 14:03 UTC" from an ISO time stamp. */

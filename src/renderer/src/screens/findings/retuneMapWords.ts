@@ -7,7 +7,7 @@ import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
 import type { RetuneMapProgress } from '../../../../shared/workerMessages';
 import { formatDuration, formatNumber } from '../../format/numberFormat';
 import { subscriptMarkup } from '../../../../figures/parts/richText';
-import { intervalText, valueAtIntervalPrecision } from './assessmentWords';
+import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 /** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)" (the figures' rich-text markup). */
 export const richAxisLabel = subscriptMarkup;
@@ -23,10 +23,10 @@ export function pointText(map: RetuneMapResult, p: number): string {
  */
 export function headline(map: RetuneMapResult): string {
   const best = map.best ? map.points[map.best.index] : null, bestInterval = best?.interval ?? null;
-  const present = map.presentController === null ? 'The present controller has no value to compare with.' : `Present controller: J ${valueAtIntervalPrecision(map.presentController, bestInterval)}.`;
+  const present = map.presentController === null ? 'The present controller has no value to compare with.' : `Present controller: J ${valueAtPrecision(map.presentController, bestInterval)}.`;
   if (!map.best) return `No point of this map is both converged and supported by the logs. ${present}`;
-  const interval = bestInterval ? ` ${intervalText(bestInterval)}` : '';
-  return `Best supported point: ${pointText(map, map.best.index)}, J ${valueAtIntervalPrecision(map.best.value, bestInterval)}${interval}. ${present}`;
+  const interval = bestInterval ? ` ${intervalAtPrecision(bestInterval)}` : '';
+  return `Best supported point: ${pointText(map, map.best.index)}, J ${valueAtPrecision(map.best.value, bestInterval)}${interval}. ${present}`;
 }
 
 /** "Map 1 of 2, point 37 of 100 (12 s)". */

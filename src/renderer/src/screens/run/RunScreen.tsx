@@ -13,6 +13,7 @@ import { runBlockers } from '../../session/evaluationRunner';
 import { useWorkspace } from '../../WorkspaceContext';
 import { progressView } from './runProgressView';
 import { describeApproximator } from '../../../../pipeline/plan/featureMapFor';
+import { discountWithHorizon } from '../estimator/discountHorizon';
 
 export function RunScreen(props: { onFindings: () => void }) {
   const { runner } = useWorkspace();
@@ -21,6 +22,7 @@ export function RunScreen(props: { onFindings: () => void }) {
   const stale = useStale();
   const blockers = useMemo(() => runBlockers(session, projectProblems(doc), importKey(doc, session.sourceVersion)), [doc, session]);
   const running = session.run.status === 'running';
+  const periodSeconds = session.importState.status === 'done' ? session.importState.result.summary.samplingPeriodSeconds : null;
   return (
     <>
       <header>
@@ -32,7 +34,7 @@ export function RunScreen(props: { onFindings: () => void }) {
         <dl className="facts">
           <dt>Candidates</dt><dd>{doc.candidates.map((c) => c.name).join(', ') || '—'}</dd>
           <dt>Approximator</dt><dd>{describeApproximator(doc.approximator)}</dd>
-          <dt>Discount</dt><dd>{doc.discount}</dd>
+          <dt>Discount factor γ</dt><dd data-testid="run-discount">{discountWithHorizon(doc.discount, periodSeconds)}</dd>
           <dt>Seed</dt><dd>{doc.seed}</dd>
         </dl>
         {blockers && !running && <ProblemList title="Before it can run" problems={blockers} tone="info" testId="run-blockers" />}

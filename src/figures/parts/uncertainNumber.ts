@@ -1,0 +1,111 @@
+/**
+ * Numbers read with their uncertainty, written once for every host: the app's tables, the figures'
+ * labels and tooltips, the report and the command line all call these. An interval's two ends go to
+ * the decimal place that gives its width three significant digits, a value read with the interval to
+ * the same place ("8.36 [6.58, 10.34]", not "8.3582 [6.581, 10.34]"); a standard error to two
+ * significant digits and its value to the same place ("7.7 ± 1.3"). One precision for numbers read
+ * together, as for a value and its uncertainty in JCGM 100 (the GUM) §7.2.2 and §7.2.6 — common practice.
+ *
+ * The decimal place is set by the uncertainty, never by the value's size, so a value of a million or
+ * more stays in fixed notation (J = 1234567.9 ± 3.2, not 1.235e6 ± 3.2, which would round by
+ * thousands beside an error of 3). No grouping separators: inside "[a, b]" a comma would read as the
+ * list's. Where the rule does not apply (no usable interval or error, an uncertainty of a million or
+ * more, or one that needs more than ten decimal places) the plain style: PLAIN_DIGITS significant digits.
+ * The minus sign is a parameter: U+2212 where the text is typeset (app, figures, report), the ASCII
+ * hyphen-minus on the terminal, whose text is searched and pasted as typed.
+ */
+
+/** The minus sign of typeset numbers (ISO 80000-2; typographic practice). */
+export const TRUE_MINUS = '\u2212';
+/** The terminal's minus: the hyphen-minus a user would type. */
+export const ASCII_MINUS = '-';
+export type Minus = typeof TRUE_MINUS | typeof ASCII_MINUS;
+
+/** Significant digits of the plain style, where no interval or error sets the precision. */
+export const PLAIN_DIGITS = 4;
+/** An uncertainty (interval width, standard error) from which the rule gives way to the plain style. */
+const LARGEST_UNCERTAINTY = 1e6;
+/** Values from here on lose their units digit in a double (2⁵³ ≈ 9.0e15): fixed notation would show digits that are not there. */
+export const LARGEST_FIXED = 1e15;
+/** Below this magnitude the plain style writes exponent form ("1.2e−5"), where fixed notation would be mostly zeros. */
+export const SMALLEST_FIXED = 1e-4;
+/** Most decimal places the rule writes. */
+const MOST_DECIMALS = 10;
+
+/**
+ * The decimal place at which `scale` (> 0) has `significant` significant digits, at most 10 and none
+ * below the units: one precision for numbers read together (a value and its error, an interval's ends).
+ */
+export function decimalsAt(scale: number, significant: number): number {
+  return Math.min(MOST_DECIMALS, Math.max(0, significant - 1 - Math.floor(Math.log10(scale))));
+}
+
+/** decimalsAt(scale, digits) where the scale is positive, finite, below LARGEST_UNCERTAINTY and needs at most MOST_DECIMALS places; else null. */
+function uncertaintyDecimals(scale: number, digits: number): number | null {
+  if (!(scale > 0) || !(scale < LARGEST_UNCERTAINTY) || digits - 1 - Math.floor(Math.log10(scale)) > MOST_DECIMALS) return null;
+  return decimalsAt(scale, digits);
+}
+
+/** Decimal places that give an interval's width three significant digits, or null where the rule does not apply. */
+export function intervalDecimals(iv: readonly [number, number] | null | undefined): number | null {
+  return iv && Number.isFinite(iv[0]) && Number.isFinite(iv[1]) ? uncertaintyDecimals(iv[1] - iv[0], 3) : null;
+}
+
+/** Decimal places a standard error of two significant digits needs, or null where the rule does not apply. */
+export function errorDecimals(error: number | null | undefined): number | null {
+  return error === null || error === undefined ? null : uncertaintyDecimals(error, 2);
+}
+
+/** The decimal places for numbers read against an interval, or else against a standard error. */
+export function rowDecimals(iv: readonly [number, number] | null | undefined, error?: number | null): number | null {
+  return intervalDecimals(iv) ?? errorDecimals(error);
+}
+
+/**
+ * The plain style: `digits` significant digits, trailing zeros dropped, fixed notation from
+ * SMALLEST_FIXED up to LARGEST_FIXED ("1235000", "0.01235"), exponent form outside it ("1.235e−5"); "—" for none.
+ */
+export function plainNumber(v: number | null | undefined, digits = PLAIN_DIGITS, minus: Minus = TRUE_MINUS): string {
+  if (v === null || v === undefined || Number.isNaN(v)) return '—';
+  if (!Number.isFinite(v)) return v > 0 ? '∞' : `${minus}∞`;
+  if (v === 0) return '0';
+  const magnitude = Math.abs(v);
+  const text = magnitude >= LARGEST_FIXED || magnitude < SMALLEST_FIXED
+    ? v.toExponential(digits - 1).replace(/\.?0+e/, 'e').replace('e+', 'e')
+    : Number(v.toPrecision(digits)).toFixed(Math.max(0, digits - 1 - Math.floor(Math.log10(magnitude)))).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+  return text.replace(/-/g, minus);
+}
+
+/** A number at `decimals` places (never "−0.00"), or the plain style where that is null or the value too large for fixed notation. */
+export function atDecimals(value: number | null | undefined, decimals: number | null, minus: Minus = TRUE_MINUS): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  if (decimals === null || Math.abs(value) >= LARGEST_FIXED) return plainNumber(value, PLAIN_DIGITS, minus);
+  const zero = Object.is(Math.round(value * 10 ** decimals), -0) || Math.round(value * 10 ** decimals) === 0;
+  return (zero ? 0 : value).toFixed(decimals).replace(/^-/, minus);
+}
+
+/** "[6.58, 10.34]" at the interval's own precision; "—" without one. */
+export function intervalAtPrecision(iv: readonly [number, number] | null | undefined, minus: Minus = TRUE_MINUS): string {
+  if (!iv) return '—';
+  const d = intervalDecimals(iv);
+  return `[${atDecimals(iv[0], d, minus)}, ${atDecimals(iv[1], d, minus)}]`;
+}
+
+/** A value at the decimal place of its interval's ends ("8.36" beside [6.58, 10.34]); without one, the plain style. */
+export function valueAtPrecision(value: number | null | undefined, iv: readonly [number, number] | null | undefined, minus: Minus = TRUE_MINUS): string {
+  return atDecimals(value, intervalDecimals(iv), minus);
+}
+
+/**
+ * A value and its standard error at one precision: at the interval's place where the value is also
+ * shown with one (so one J reads alike beside its interval and beside its error), else the error to
+ * two significant digits and the value to the same place; without either, the plain style (the error to two digits).
+ */
+export function valueWithError(
+  value: number | null | undefined, error: number | null | undefined, iv: readonly [number, number] | null = null, minus: Minus = TRUE_MINUS,
+): { value: string; error: string } {
+  const usable = error !== null && error !== undefined && Number.isFinite(error) && error > 0 ? error : null;
+  const d = rowDecimals(iv, usable);
+  if (d === null) return { value: atDecimals(value, null, minus), error: error === null || error === undefined ? '—' : plainNumber(error, 2, minus) };
+  return { value: atDecimals(value, d, minus), error: error === null || error === undefined || !Number.isFinite(error) ? '—' : atDecimals(error, d, minus) };
+}
