@@ -46,8 +46,9 @@ export interface NetworkMethod {
    */
   readonly runStartEmphasis: number;
   /**
-   * Degree of the polynomial part φ the hidden features correct (networkLinearPart.ts), which is
-   * also the linear estimate reported beside the network's. 2 (LINEAR_PART_DEGREE): exact on the
+   * Degree of the polynomial part φ the hidden features correct (networkLinearPart.ts). The linear
+   * estimate reported beside the network's is not this part but the linear approximator's default
+   * class (networkComparator.ts), whatever this degree. 2 (LINEAR_PART_DEGREE): exact on the
    * linear-quadratic plants with the fewest features. Measured (test/battery/README.md, "J over
    * upsets"): degree 4 took the saturating pendulum's wide starts from +4.4 % to −0.7 % (seed 1,
    * runs logged wide; the polynomial alone from −11.6 % to −0.4 %) and kept all six plants within

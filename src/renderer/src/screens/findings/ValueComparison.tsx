@@ -6,6 +6,7 @@
  * interval in its tooltip).
  */
 import { useMemo } from 'react';
+import { COMPARATOR_DEGREE } from '../../../../core/fqe/networkComparator';
 import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessment';
 import { PolicyValueChart } from '../../plots';
 import type { Evaluation } from '../../../../pipeline/estimates';
@@ -66,7 +67,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
                 <td className="small" data-testid={`policy-account-${i}`}>{sentence(p.message)}
                   {p.network && (
                     <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
-                      {' '}{levelText(p.network.level)} interval {intervalText(p.network.interval)}; degree-2 linear {formatNumber(p.network.linear.value, 4)} {intervalText(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
+                      {' '}{levelText(p.network.level)} interval {intervalText(p.network.interval)}; degree-{COMPARATOR_DEGREE} linear {formatNumber(p.network.linear.value, 4)} {intervalText(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
                     </span>
                   )}
                   <details className="details-section"><summary>Details</summary>Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
