@@ -1,8 +1,9 @@
 /**
  * The full battery sweep (`npm run bench -- battery [options]`): for every battery plant
  * (test/battery), candidate and seed, simulate a log, fit the network approximator with its
- * default settings, and compare its J — and the linear degree-2 estimate it starts from (the
- * LSTD-Q fixed point on the same data) — with the plant's known answer on both start sets.
+ * default settings, and compare its J — and the linear estimate it is compared with (the linear
+ * approximator's default class by LSTD-Q on the same data; src/core/fqe/networkComparator.ts) — with
+ * the plant's known answer on both start sets.
  * Prints, per plant, candidate and start set: truth, mean error %, largest |error| %, how often the
  * 90 % interval held the truth, and for the network its convergence, time per fit, Adam steps/s
  * and GFLOP/s. Results also go to test-artifacts/battery-<time>.json.
@@ -19,7 +20,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
-import { LINEAR_PART_DEGREE } from '../src/core/fqe/networkLinearPart';
+import { COMPARATOR_DEGREE } from '../src/core/fqe/networkComparator';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
 import { createGaussianPolicy } from '../src/core/policy';
 import { batteryPlants } from '../test/battery/catalogue';
@@ -132,7 +133,7 @@ export async function runBatteryBench(args: string[]): Promise<void> {
       }
     }
   }
-  printBatteryTable(records, typeof o.method.linearPartDegree === 'number' ? o.method.linearPartDegree : LINEAR_PART_DEGREE);
+  printBatteryTable(records, COMPARATOR_DEGREE);
   printAllowanceTable(records);
   const folder = fileURLToPath(new URL('../test-artifacts/', import.meta.url));
   mkdirSync(folder, { recursive: true });

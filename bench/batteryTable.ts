@@ -89,7 +89,7 @@ function toWithin3(rs: FitRecord[]): string {
   return reached.length === measured.length ? text : `${text} (${reached.length}/${measured.length})`;
 }
 
-/** `linearDegree`: the degree of the network's polynomial part, whose estimate the linear columns show (--method linearPartDegree). */
+/** `linearDegree`: the degree of the comparator (src/core/fqe/networkComparator.ts), whose estimate the linear columns show. */
 export function printBatteryTable(records: FitRecord[], linearDegree: number): void {
   const groups = new Map<string, FitRecord[]>();
   for (const r of records) {

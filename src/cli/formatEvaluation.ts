@@ -1,4 +1,5 @@
 /** The readable table `evaluate` prints by default. */
+import { COMPARATOR_DEGREE } from '../core/fqe/networkComparator';
 import { truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
@@ -83,7 +84,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
 
 function networkLine(name: string, n: NonNullable<Evaluation['policies'][number]['network']>): string {
   const level = `${Math.round(100 * n.level)} %`, inInterval = (v: number, i: [number, number]) => `${atDecimals(v, widthDecimals(i))} ${intervalText(i)}`;
-  return `${name}: network J ${level} interval ${intervalText(n.interval)} (${n.covers}); degree-2 linear J ${inInterval(n.linear.value, n.linear.interval)}; ` +
+  return `${name}: network J ${level} interval ${intervalText(n.interval)} (${n.covers}); degree-${COMPARATOR_DEGREE} linear J ${inInterval(n.linear.value, n.linear.interval)}; ` +
     `network − linear ${inInterval(n.difference.value, n.difference.interval)}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
 }
 

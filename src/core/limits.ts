@@ -53,6 +53,13 @@ export const MAX_CANDIDATES = 100;
 
 /** Polynomial feature degree and radial-basis centres per input accepted by the schema. */
 export const POLYNOMIAL_DEGREE_RANGE = { min: 1, max: 6 } as const;
+/**
+ * Degree of the linear approximator's default features (full polynomial in the standardised state
+ * and action): the smallest degree whose class holds the exact Q of a linear-quadratic plant (ours;
+ * common practice for such plants). New projects, the retune map's fallback and the linear estimate
+ * the network is compared with (src/core/fqe/networkComparator.ts) all take it from here.
+ */
+export const DEFAULT_POLYNOMIAL_DEGREE = 2;
 export const RADIAL_CENTRES_RANGE = { min: 2, max: 12 } as const;
 /** Dense least squares is O(d³) per solve; beyond this many features a fit would not finish on a desktop. */
 export const MAX_FEATURES = 2000;

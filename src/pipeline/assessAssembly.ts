@@ -173,7 +173,7 @@ function networkInterval(work: CandidateWork, sign: number): [number, number] | 
   return !iv ? null : sign > 0 ? [iv.lower, iv.upper] : [-iv.upper, -iv.lower];
 }
 
-/** The network and the degree-2 linear estimate it started from disagree beyond their intervals: serious (approximatorAgreement.ts). */
+/** The network and the linear estimate beside it (networkComparator.ts) disagree beyond their intervals: serious (approximatorAgreement.ts). */
 function networkDisagreement(work: CandidateWork): AssessmentWarning[] {
   const c = work.model.fit.linearComparison;
   if (!c || c.agreement.verdict !== 'disagree') return [];

@@ -61,8 +61,8 @@ export interface PolicyEstimate {
 
 /**
  * What a network fit adds to its J, in the project's sense: the interval by run resamples of the
- * last-layer solve (and what it covers), the degree-2 linear estimate it started from with its own
- * interval, their paired difference and the agreement verdict (src/core/fqe/approximatorAgreement.ts).
+ * last-layer solve (and what it covers), the linear estimate beside it (the linear approximator's
+ * default class; src/core/fqe/networkComparator.ts) with its own interval, their paired difference and the agreement verdict (src/core/fqe/approximatorAgreement.ts).
  */
 export interface NetworkCheck {
   level: number;

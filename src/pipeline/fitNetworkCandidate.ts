@@ -1,7 +1,7 @@
 /**
  * One candidate by neural-network fitted Q-evaluation with TensorFlow.js (src/core/fqe/networkFqe.ts):
- * the fit, its J with an interval over the request's start states, the linear estimate it started
- * from, and whether the two agree (src/core/fqe/approximatorAgreement.ts).
+ * the fit, its J with an interval over the request's start states, the linear estimate beside it
+ * (src/core/fqe/networkComparator.ts), and whether the two agree (src/core/fqe/approximatorAgreement.ts).
  *
  * TensorFlow.js is loaded with the first network fit, not with this file: a linear project never
  * loads it (its import is about 0.7 s of a command-line run's start on these machines).
@@ -72,7 +72,7 @@ function iterationOf(p: NetworkIterationRecord): FitIteration {
   return { iteration: p.iteration, weightChange: null, bellmanResidual: p.heldOutBellmanError, policyValue: p.policyValue, loss: p.loss };
 }
 
-/** Weights and biases of the network plus the weights of its quadratic part. */
+/** Weights and biases of the network plus the weights of its polynomial part. */
 function parameterCount(fit: NetworkFit, request: CandidateFitRequest, layout: NetworkLayoutOf): number {
   const hidden = request.approximator.kind === 'network' ? request.approximator.hiddenLayers : [];
   return layout(request.data.stateDim + request.data.actionDim, hidden).size + fit.linearStart.features.dim;

@@ -20,7 +20,7 @@ import { occupancyShift } from '../core/diagnostics/occupancyShift';
 import { outsidePossible, possibleValues } from '../core/diagnostics/possibleValues';
 import { OCCUPANCY_SHIFT_LIMITS, occupancyShiftSeverity, shiftReference, type SeverityLevel } from '../core/diagnostics/severity';
 import type { CancellationCheck } from '../core/fqe/cancellation';
-import { CONFIDENCE_LEVEL, MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
+import { CONFIDENCE_LEVEL, DEFAULT_POLYNOMIAL_DEGREE, MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import { PolicyError, type GaussianPolicy } from '../core/policy';
 import { RetuneAxisError } from '../core/retune/retuneAxes';
@@ -99,7 +99,7 @@ function runRetuneMap(
   const { data, sign } = plan, a = plan.approximator;
   const linear = a.kind === 'linear';
   const settings = linear ? { ridge: a.ridge, tolerance: a.tolerance, maxIterations: a.maxIterations } : { ridge: RIDGE.default, tolerance: TOLERANCE.default, maxIterations: MAX_ITERATIONS.default };
-  const features = plan.features ?? featureMapFor({ kind: 'linear', features: { kind: 'polynomial', degree: 2 }, ...settings }, data);
+  const features = plan.features ?? featureMapFor({ kind: 'linear', features: { kind: 'polynomial', degree: DEFAULT_POLYNOMIAL_DEGREE }, ...settings }, data);
   const grid = retuneMapCandidates(plan.project, spec);
   const policies: GaussianPolicy[] = grid.candidates.map((c, p) => {
     try {

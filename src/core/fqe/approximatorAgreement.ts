@@ -1,6 +1,7 @@
 /**
  * Do the network and the linear estimate of J agree? One rule, with its thresholds named once, so
- * the words a user reads come from the same numbers the code applies.
+ * the words a user reads come from the same numbers the code applies. The linear estimate is the
+ * linear approximator's default class (networkComparator.ts), not the network's own polynomial part.
  *
  * Both estimates come from the same logged episodes, so their sampling errors are strongly
  * correlated; the right yardstick for their difference is the interval of the PAIRED difference
@@ -18,6 +19,8 @@
  *                 the two half-widths added in quadrature): too little data to tell them apart;
  *   agree         otherwise.
  */
+
+import { COMPARATOR_DEGREE, comparatorName } from './networkComparator';
 
 /**
  * A difference below this share of |J| is immaterial for a decision: under the 3 % accuracy the
@@ -80,18 +83,18 @@ function agreementMessage(verdict: AgreementVerdict, difference: number, relativ
   const by = `differ by ${formatNumber(difference)} (${(100 * relative).toFixed(1)} % of the value)`;
   const level = `${Math.round(100 * (e.difference ?? e.network).interval.level)} %`;
   if (verdict === 'disagree') {
-    return `The network and the linear (quadratic) estimate disagree: they ${by}, more than resampling the logged runs explains ` +
-      `(${level} intervals). At least one of them is biased by its function class — a quadratic cannot follow saturation, clipping ` +
+    return `The network and the ${comparatorName()} estimate disagree: they ${by}, more than resampling the logged runs explains ` +
+      `(${level} intervals). At least one of them is biased by its function class — a polynomial of degree ${COMPARATOR_DEGREE} cannot follow saturation, clipping ` +
       'or an asymmetric cost, and a network can extrapolate poorly outside the logged states. Treat both values with caution; ' +
       'prefer the network where the plant is known to saturate and the candidate stays inside the logged states.';
   }
   if (verdict === 'inconclusive') {
-    return `The network and the linear (quadratic) estimate ${by}, within what resampling the logged runs explains, but the ` +
+    return `The network and the ${comparatorName()} estimate ${by}, within what resampling the logged runs explains, but the ` +
       `${level} interval of their difference is wider than ${Math.round(100 * WIDE_SHARE)} % of the value: too little data to tell ` +
       'whether they agree. More logged runs would narrow it.';
   }
   const negligible = relative < NEGLIGIBLE_SHARE ? `, under ${+(100 * NEGLIGIBLE_SHARE).toFixed(1)} % of the value` : ', within what resampling the logged runs explains';
-  return `The network and the linear (quadratic) estimate agree: they ${by}${negligible}.`;
+  return `The network and the ${comparatorName()} estimate agree: they ${by}${negligible}.`;
 }
 
 function formatNumber(x: number): string {

@@ -1,7 +1,8 @@
 /**
  * An allowance in the network's interval for the error of its function class, read from how far
- * the network and the linear (quadratic) estimate disagree beyond what resampling the logged runs
- * explains. One rule, its constant named once, and the sentence the app shows built from it.
+ * the network and the linear estimate beside it (the linear approximator's default class, degree-2
+ * polynomial; networkComparator.ts) disagree beyond what resampling the logged runs explains. One
+ * rule, its constant named once, and the sentence the app shows built from it.
  *
  * Why: the network's interval (networkInterval.ts) resamples the last-layer solve on features held
  * fixed, so it cannot see that the features themselves are poorly determined where the logs are
@@ -12,8 +13,9 @@
  * The rule borrows the reasoning of hierarchical a-posteriori error estimates (from memory: Bank &
  * Weiser, Math. Comp. 44, 1985; Bank, Acta Numerica 1996, "Hierarchical bases and the finite
  * element method"; Dörfler & Nochetto, Numer. Math. 91, 2002, on the "saturation assumption"):
- * the network's class contains the quadratic (Q = φᵀv₁ + h_θᵀv₂), and if the richer class's error
- * is at most β times the poorer one's, |e_net| ≤ β|e_lin|, the triangle inequality
+ * the network's class contains the comparator's (Q = φᵀv₁ + h_θᵀv₂, φ a polynomial part of at
+ * least the comparator's degree, whose monomials include the comparator's), and if the richer
+ * class's error is at most β times the poorer one's, |e_net| ≤ β|e_lin|, the triangle inequality
  * |e_lin| ≤ |e_net| + |J_net − J_lin| gives
  *     |e_net| ≤ β/(1 − β) · |J_net − J_lin|.
  * Only the part of the difference that sampling does not explain is evidence of bias (the sampling

@@ -6,6 +6,7 @@
 import * as tf from '@tensorflow/tfjs';
 import { createActionQuadrature } from '../actionQuadrature';
 import { classErrorAllowance, classErrorSentence, withClassErrorAllowance } from './classErrorAllowance';
+import { comparatorStartRows } from './networkComparator';
 import { FqeCancelledError } from './fqeErrors';
 import { linearActionValue } from './linearActionValue';
 import { createNetworkActionValue } from './networkActionValue';
@@ -27,8 +28,10 @@ import type { BackendSelection } from './tfBackend';
 export interface FinishContext {
   readonly input: NetworkFqeInput;
   readonly selection: BackendSelection;
-  /** The linear (degree-2) fixed point the fit started from, d1. */
+  /** The polynomial part's linear fixed point the fit started from, d1. */
   readonly linearWeights: Float64Array;
+  /** The comparator's fixed point (networkComparator.ts), d2: the linear estimate shown beside the network's. */
+  readonly comparatorWeights: Float64Array;
 }
 
 interface FinalIterate {
@@ -96,7 +99,7 @@ function episodeSystems(s: FitSession, theta: tf.Tensor1D, hiddenRidge: number):
   try {
     const dh = features.hidden.shape[1], { part, rewards } = s.linear.training;
     const joint = episodeLastLayerSums(part, rewards, features.hidden.dataSync() as Float32Array, features.nextHidden.dataSync() as Float32Array, dh, s.episodes.sums, s.episodes.ranges);
-    return { joint, linear: s.episodes.sums, ids: s.episodes.ids, hiddenRidge };
+    return { joint, linear: s.comparator.episodes, ids: s.episodes.ids, hiddenRidge };
   } finally {
     features.dispose();
   }
@@ -111,7 +114,7 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
     theta, layout: s.layout, activation: input.settings.activation, standardiser: s.standardiser, output: s.output,
     backend: ctx.selection.backend, stateDim: ds, actionDim: m, linear: { features: linearFeatures, weights: final.lastLayer.linear },
   });
-  const net = featureNetwork(s, theta), v = jointWeights(final.lastLayer), d1 = linearFeatures.dim;
+  const net = featureNetwork(s, theta), v = jointWeights(final.lastLayer), comparator = s.comparator.features, d2 = comparator.dim;
   const quadrature = createActionQuadrature(input.policy, input.quadratureNodes), dataStarts = input.data.startStates;
   let disposed = false;
   const last = run.history[run.history.length - 1], spread = iterateSpread(run), drift = driftAllowance(run);
@@ -123,10 +126,11 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
     estimate(startStates: Float64Array, options: EstimateOptions = {}): NetworkValueEstimate {
       if (disposed) throw new NetworkDisposedError();
       const rows = startFeatureRows(net, quadrature, startStates, ds), d = v.length, mean = meanRow(rows, d);
-      const value = dot(mean, v, d), linear = dot(mean, ctx.linearWeights, d1);
+      const linearRows = comparatorStartRows(comparator, quadrature, startStates, ds);
+      const value = dot(mean, v, d), linear = dot(meanRow(linearRows, d2), ctx.comparatorWeights, d2);
       const follow = options.startsFollowEpisodes ?? sameValues(startStates, dataStarts);
       const resamples = options.resamples ?? s.method.intervalResamples;
-      const r = valueReplicates(systems, { startRows: rows, startsFollowEpisodes: follow, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed }, { network: value, linear });
+      const r = valueReplicates(systems, { startRows: rows, linearStartRows: linearRows, startsFollowEpisodes: follow, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed }, { network: value, linear });
       const difference = networkValueInterval(r.difference, spread * Math.abs(value), drift * Math.abs(value));
       const allowance = classErrorAllowance(difference);
       return {

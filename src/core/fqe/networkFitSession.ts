@@ -16,6 +16,7 @@ import type { TransitionSet } from '../transitions';
 import { createParameterAverage, type ParameterAverage } from './networkAveraging';
 import { splitEpisodes } from './networkEpisodeSplit';
 import { linearPartSums, type LastLayerSums, type LinearPartTensors } from './networkLastLayerSums';
+import { createComparator, type Comparator } from './networkComparator';
 import { createLinearPart, type LinearPart } from './networkLinearPart';
 import type { NetworkMethod } from './networkMethod';
 import { createMinibatchStream, type MinibatchStream } from './networkMinibatches';
@@ -48,6 +49,8 @@ export interface FitSession {
   /** Exact quadratic-part sums over all training rows (one range), and per episode. */
   readonly linearTotal: LastLayerSums;
   readonly episodes: { readonly ranges: Int32Array; readonly ids: Int32Array; readonly sums: LastLayerSums };
+  /** The linear estimate the network is compared with (networkComparator.ts): its features and sums. */
+  readonly comparator: Comparator;
   /** Probe rows of the stopping rule: standardised inputs (PROBE_ROWS×p) and their φ rows. */
   readonly probe: { readonly inputs: tf.Tensor2D; readonly linear: Float64Array };
   /** The project's action quadrature (start-state values and the quadratic part). */
@@ -101,11 +104,15 @@ export function createFitSession(input: SessionInput): FitSession {
     const optimizer = own(owned, tf.train.adam(settings.learningRate));
     const batches = own(owned, createMinibatchStream(rows.training.inputs, settings.batchSize, rng, runStartEmphasis(data, rows.training.transitions, discount, input.method.runStartEmphasis)));
     const average = own(owned, createParameterAverage(settings.averageLast));
-    const all = Int32Array.of(0, rows.training.transitions.length);
+    const all = Int32Array.of(0, rows.training.transitions.length), { part, rewards } = linear.training;
+    const linearTotal = linearPartSums(part, rewards, all), episodeSums = linearPartSums(part, rewards, split.trainingEpisodes.ranges);
+    const comparator = createComparator({
+      data, transitions: rows.training.transitions, standardiser, quadrature, discount, part, partTotal: linearTotal, partEpisodes: episodeSums,
+      rewards, episodeRanges: split.trainingEpisodes.ranges,
+    });
     return {
       net: { theta, layout, activation: settings.activation, optimizer }, layout, standardiser, output, rows, next, linear,
-      linearTotal: linearPartSums(linear.training.part, linear.training.rewards, all),
-      episodes: { ...split.trainingEpisodes, sums: linearPartSums(linear.training.part, linear.training.rewards, split.trainingEpisodes.ranges) },
+      linearTotal, episodes: { ...split.trainingEpisodes, sums: episodeSums }, comparator,
       probe, quadrature, batches, average, discount, method: input.method,
       valueLimit: (2 * largestReward(data.rewards)) / (1 - discount) + scale,
       dispose: () => owned.splice(0).reverse().forEach((o) => o.dispose()),

@@ -1,8 +1,8 @@
 /**
  * Fitted Q-evaluation with a neural network, started from what the linear path already knows.
  *
- * Q(s, a) = φ(z)ᵀ·v₁ + h_θ(z)ᵀ·v₂, z the standardised (s, a): φ the degree-2 polynomial features
- * (networkLinearPart.ts), h_θ the last hidden layer of a fully connected network. Before any
+ * Q(s, a) = φ(z)ᵀ·v₁ + h_θ(z)ᵀ·v₂, z the standardised (s, a): φ the polynomial features of degree
+ * linearPartDegree (networkLinearPart.ts, networkMethod.ts), h_θ the last hidden layer of a fully connected network. Before any
  * network training, v₂ = 0 and v₁ is the linear LSTD-Q fixed point, solved in milliseconds: the
  * fit starts at the linear estimate. Each outer iteration then (networkIterations.ts) solves the
  * last layer [v₁; v₂] by the LSTD-Q fixed point on the current features (Levine et al., "Shallow
@@ -19,7 +19,9 @@
  * FqeCancelledError and divergence NetworkDivergedError.
  *
  * Every value comes with an interval (estimate(); networkInterval.ts) and with the linear estimate
- * it started from, on the same resamples, so the two can be compared (approximatorAgreement.ts).
+ * of the linear approximator's default class (networkComparator.ts: the polynomial part's own fixed
+ * point when its degree is the default), on the same resamples, so the two can be compared
+ * (approximatorAgreement.ts).
  */
 import type { ActionValueFunction } from '../actionValue';
 import type { GaussianPolicy } from '../policy';
@@ -31,6 +33,7 @@ import type { ConvergenceRule } from './networkConvergence';
 import { createFitSession } from './networkFitSession';
 import { checkNetworkFqeInput } from './networkFqeInput';
 import { runOuterIterations } from './networkIterations';
+import { COMPARATOR_DEGREE } from './networkComparator';
 import { solveLastLayer } from './networkLastLayer';
 import { defaultNetworkMethod, type NetworkMethod } from './networkMethod';
 import { finishNetworkFit } from './networkFitResult';
@@ -81,7 +84,7 @@ export interface NetworkConvergence {
 export interface NetworkFit {
   /** Q(s, a) in reward units; evaluate runs the network in batches. */
   readonly actionValue: ActionValueFunction;
-  /** The linear (degree-2 polynomial) LSTD-Q fixed point the fit started from. */
+  /** The LSTD-Q fixed point of the polynomial part (degree linearPartDegree) the fit started from. */
   readonly linearStart: LinearActionValue;
   readonly status: NetworkFitStatus;
   readonly message: string;
@@ -96,7 +99,7 @@ export interface NetworkFit {
   readonly members: number;
   /** Time, Adam steps and FLOPs of the fit (networkWork.ts). */
   readonly work: NetworkWork;
-  /** J over startStates (count×ds) with its interval, the linear estimate and their paired difference. */
+  /** J over startStates (count×ds) with its interval, the linear estimate (networkComparator.ts) and their paired difference. */
   estimate(startStates: Float64Array, options?: EstimateOptions): NetworkValueEstimate;
   /** Frees the network's tensors; actionValue.evaluate and estimate throw afterwards. */
   dispose(): void;
@@ -144,7 +147,9 @@ async function fitMember(input: NetworkFqeInput, method: NetworkMethod, selectio
   const session = createFitSession({ ...input, method });
   try {
     const linearStart = solveLastLayer(session.linearTotal.sums, session.linearTotal.dim, session.linearTotal.dim, 0);
-    if ('failure' in linearStart) throw new FqeDataError(`the linear (degree-2) fixed point the network starts from does not exist: ${linearStart.failure}`);
+    if ('failure' in linearStart) throw new FqeDataError(`the linear (degree-${method.linearPartDegree}) fixed point the network starts from does not exist: ${linearStart.failure}`);
+    const { total } = session.comparator, comparator = total.dim === session.linearTotal.dim ? linearStart : solveLastLayer(total.sums, total.dim, total.dim, 0);
+    if ('failure' in comparator) throw new FqeDataError(`the linear (degree-${COMPARATOR_DEGREE}) estimate to compare the network with does not exist: ${comparator.failure}`);
     const { settings } = input;
     const run = await runOuterIterations(session, {
       startStates: input.startStates ?? input.data.startStates, stateDim: input.data.stateDim, tolerance: settings.tolerance,
@@ -152,7 +157,7 @@ async function fitMember(input: NetworkFqeInput, method: NetworkMethod, selectio
       isCancelled: input.isCancelled,
       onProgress: input.onProgress && ((record, remainingSeconds) => input.onProgress!({ ...record, ...place, outerIterations: settings.outerIterations, remainingSeconds })),
     }, selection.backend, linearStart.weights);
-    const fit = finishNetworkFit(session, run, { input, selection, linearWeights: linearStart.weights });
+    const fit = finishNetworkFit(session, run, { input, selection, linearWeights: linearStart.weights, comparatorWeights: comparator.weights });
     run.work.seconds = (performance.now() - started) / 1000;
     return fit;
   } finally {

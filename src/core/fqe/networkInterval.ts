@@ -14,8 +14,9 @@
  * adds an allowance for the function class's error to the network's interval (classErrorAllowance.ts).
  * The battery measures how often the interval holds the truth anyway (`npm run bench -- battery`).
  *
- * The same resamples give the linear (quadratic part alone) estimate's replicates and the paired
- * difference network − linear, whose interval is what the agreement rule reads
+ * The same resamples give the linear estimate's replicates (the comparator of networkComparator.ts:
+ * the linear approximator's default class on the same episodes) and the paired difference
+ * network − linear, whose interval is what the agreement rule reads
  * (approximatorAgreement.ts): both estimates come from the same episodes, so their sampling
  * errors are strongly correlated and the difference is far better determined than either value.
  *
@@ -28,7 +29,7 @@ import { solveLastLayer } from './networkLastLayer';
 import { meanRow } from './networkValueRows';
 
 export interface EpisodeSystems {
-  /** Per training episode: the joint system (network) and the quadratic part alone (linear). */
+  /** Per training episode: the joint system (network) and the comparator's (linear; networkComparator.ts). */
   readonly joint: LastLayerSums;
   readonly linear: LastLayerSums;
   /** Episode index (into the data's episodes and start states) of each range. */
@@ -37,8 +38,10 @@ export interface EpisodeSystems {
 }
 
 export interface IntervalRequest {
-  /** ξ(s0) rows of the start set, count×d (joint features; the first d1 columns are the quadratic part's). */
+  /** ξ(s0) rows of the start set, count×d (joint features). */
   readonly startRows: Float64Array;
+  /** The comparator's E_a φ₂(s0, a) rows of the same start set, count×d2 (networkComparator.ts). */
+  readonly linearStartRows: Float64Array;
   /** True when start row k is episode k's first state, so it is resampled with its episode. */
   readonly startsFollowEpisodes: boolean;
   readonly level: number;
@@ -57,9 +60,8 @@ export interface ValueReplicates {
 
 /** estimates: the full-data J of the network and of the linear part over the same start set. */
 export function valueReplicates(systems: EpisodeSystems, request: IntervalRequest, estimates: { network: number; linear: number }): ValueReplicates {
-  const { joint, linear, ids } = systems, d = joint.dim, d1 = joint.linearDim, e = joint.ranges;
-  const starts = request.startRows.length / d;
-  const linearStartRows = firstColumns(request.startRows, d, d1);
+  const { joint, linear, ids } = systems, d = joint.dim, d1 = joint.linearDim, d2 = linear.dim, e = joint.ranges;
+  const starts = request.startRows.length / d, linearStartRows = request.linearStartRows;
   const net: number[] = [], lin: number[] = [], diff: number[] = [];
   const jointScratch = new Float64Array(joint.stride), linearScratch = new Float64Array(linear.stride);
   const c = new Uint32Array(e), startWeights = new Float64Array(starts).fill(1);
@@ -68,12 +70,12 @@ export function valueReplicates(systems: EpisodeSystems, request: IntervalReques
     episodeMultiplicities(e, request.seed, b, c);
     if (request.startsFollowEpisodes) for (let r = 0; r < e; r++) if (ids[r] < starts) startWeights[ids[r]] = c[r];
     const v = solveLastLayer(combineSums(joint, c, jointScratch), d, d1, systems.hiddenRidge);
-    const w = solveLastLayer(combineSums(linear, c, linearScratch), d1, d1, 0);
+    const w = solveLastLayer(combineSums(linear, c, linearScratch), d2, d2, 0);
     if ('failure' in v || 'failure' in w || startWeights.every((x) => x === 0)) {
       failed++;
       continue;
     }
-    const jn = dotRow(meanRow(request.startRows, d, startWeights), v.weights), jl = dotRow(meanRow(linearStartRows, d1, startWeights), w.weights);
+    const jn = dotRow(meanRow(request.startRows, d, startWeights), v.weights), jl = dotRow(meanRow(linearStartRows, d2, startWeights), w.weights);
     net.push(jn);
     lin.push(jl);
     diff.push(jn - jl);
@@ -84,12 +86,6 @@ export function valueReplicates(systems: EpisodeSystems, request: IntervalReques
     difference: bootstrapInterval(estimates.network - estimates.linear, diff, request.level),
     failed,
   };
-}
-
-function firstColumns(rows: Float64Array, d: number, d1: number): Float64Array {
-  const count = rows.length / d, out = new Float64Array(count * d1);
-  for (let r = 0; r < count; r++) out.set(rows.subarray(r * d, r * d + d1), r * d1);
-  return out;
 }
 
 function dotRow(a: Float64Array, b: Float64Array): number {

@@ -1,17 +1,19 @@
 /**
- * The linear part of the network's action value: full polynomial features of degree 2 in the
- * standardised (s, a) — the same features as the linear approximator's default — kept row by row
- * for the training transitions, so that the network's last layer can be solved jointly over them
- * and the hidden features (networkLastLayer.ts), and so that the linear LSTD-Q fixed point on
+ * The linear part of the network's action value: full polynomial features of degree
+ * `linearPartDegree` (networkMethod.ts; default 2, the linear approximator's default) in the
+ * standardised (s, a), kept row by row for the training transitions, so that the network's last
+ * layer can be solved jointly over them and the hidden features (networkLastLayer.ts), and so that the linear LSTD-Q fixed point on
  * them alone (Lagoudakis & Parr, "Least-squares policy iteration", JMLR 2003, §5) is at hand as
- * the starting Q and as the linear estimate to compare with.
+ * the starting Q. At the default degree it is also the linear estimate the network is compared
+ * with; that comparator keeps the linear approximator's default degree whatever this part's
+ * (networkComparator.ts).
  *
  * Why a quadratic part at all: a quadratic carries the long-horizon bulk of Q exactly on
  * linear-quadratic plants and closely near any smooth operating point, and extrapolates to start
  * states beyond the logged cloud the way a Taylor expansion does; the hidden features only have to
  * learn what a quadratic misses (saturation, clipping, asymmetric costs).
  *
- * Shapes: n training rows, d1 = C(p+2, 2) features with p = ds + m inputs; rows n×d1 row-major.
+ * Shapes: n training rows, d1 = C(p+k, k) features of degree k with p = ds + m inputs; rows n×d1 row-major.
  */
 import type { ActionQuadrature } from '../actionQuadrature';
 import { createFeatureMap, type FeatureMap } from '../features/featureMap';

@@ -1,7 +1,7 @@
 /**
  * The network's J over a start set with everything a reader needs to judge it: its interval, the
- * linear estimate it started from (the quadratic part alone, by LSTD-Q on the same data) with its
- * own interval, and the paired difference of the two (networkInterval.ts). Values in reward terms.
+ * linear estimate beside it (the linear approximator's default class by LSTD-Q on the same data;
+ * networkComparator.ts) with its own interval, and the paired difference of the two (networkInterval.ts). Values in reward terms.
  */
 import type { BootstrapInterval } from '../bootstrap/bootstrapInterval';
 

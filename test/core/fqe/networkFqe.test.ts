@@ -162,14 +162,17 @@ describe('fitNetworkFqe values', () => {
     fit.dispose();
   });
 
-  it('takes the polynomial part\'s degree from the method (linearPartDegree), 2 unless asked', async () => {
+  it('takes the polynomial part\'s degree from the method (linearPartDegree), 2 unless asked; the linear estimate beside it stays degree 2', async () => {
     // C(p + d, d) monomials of degree ≤ d in p = 3 inputs (common practice): 10 at degree 2, 35 at degree 4.
     const quadratic = await fitNetworkFqe(input({ outerIterations: 1 }));
     const quartic = await fitNetworkFqe(input({ outerIterations: 1 }, { method: { members: 1, linearPartDegree: 4 } }));
     expect(quadratic.linearStart.features.dim).toBe(10);
     expect(quartic.linearStart.features.dim).toBe(35);
-    const linear = policyValue(quartic.linearStart, policy, data.startStates, createActionQuadrature(policy, 3)).value;
+    // The linear estimate beside the network is the default degree-2 class whatever the part's degree (networkComparator.ts):
+    // the quadratic fit's own starting fixed point, on the same training episodes (same seed).
+    const linear = policyValue(quadratic.linearStart, policy, data.startStates, createActionQuadrature(policy, 3)).value;
     expect(quartic.estimate(data.startStates, { resamples: 20 }).linear.value).toBeCloseTo(linear, 9);
+    expect(quadratic.estimate(data.startStates, { resamples: 20 }).linear.value).toBeCloseTo(linear, 9);
     quadratic.dispose();
     quartic.dispose();
   });

@@ -4,6 +4,7 @@
  * the user has chosen the data, mapped the columns and defined a candidate; projectProblems says
  * what is missing.
  */
+import { DEFAULT_POLYNOMIAL_DEGREE } from '../../../core/limits';
 import { approximatorSchema, PROJECT_FORMAT, PROJECT_VERSION, type ApproximatorSettings, type ProjectDocument } from '../../../project/schema';
 
 export const UNTITLED = 'Untitled project';
@@ -13,7 +14,7 @@ export const DEFAULT_DISCOUNT = 0.95;
 
 export function defaultApproximator(kind: ApproximatorSettings['kind']): ApproximatorSettings {
   return kind === 'linear'
-    ? approximatorSchema.parse({ kind: 'linear', features: { kind: 'polynomial', degree: 2 } })
+    ? approximatorSchema.parse({ kind: 'linear', features: { kind: 'polynomial', degree: DEFAULT_POLYNOMIAL_DEGREE } })
     : approximatorSchema.parse({ kind: 'network' });
 }
 

@@ -6,10 +6,11 @@
  * interval in its tooltip).
  */
 import { useMemo } from 'react';
+import { COMPARATOR_DEGREE } from '../../../../core/fqe/networkComparator';
 import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessment';
 import { PolicyValueChart } from '../../plots';
 import type { Evaluation } from '../../../../pipeline/estimates';
-import { formatNumber, plural, sentence } from '../../format/numberFormat';
+import { plural, sentence } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
 import { valueUnit } from './plotLabels';
 import type { Theme } from '../../theme';
@@ -17,7 +18,7 @@ import { intervalDetail, levelText } from './assessmentWords';
 import { ExportPanel } from './ExportPanel';
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
-import { intervalAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const STATUS: Record<string, string> = { converged: 'converged', maxIterations: 'stopped at the iteration limit', diverged: 'diverged' };
 
@@ -67,7 +68,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
                 <td className="small" data-testid={`policy-account-${i}`}>{sentence(p.message)}
                   {p.network && (
                     <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
-                      {' '}{levelText(p.network.level)} interval {intervalAtPrecision(p.network.interval)}; degree-2 linear {formatNumber(p.network.linear.value, 4)} {intervalAtPrecision(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
+                      {' '}{levelText(p.network.level)} interval {intervalAtPrecision(p.network.interval)}; degree-{COMPARATOR_DEGREE} linear {valueAtPrecision(p.network.linear.value, p.network.linear.interval)} {intervalAtPrecision(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
                     </span>
                   )}
                   <details className="details-section"><summary>Details</summary>Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
