@@ -16,7 +16,8 @@
  *     α = (lo − μ)/σ, β = (hi − μ)/σ, Z = Φ(β) − Φ(α).
  * Why standardise: the window moves with the state, so the raw residuals' means on the rows kept
  * move with it, and where one state drives both actions toward their limits they move together:
- * independent dithers then showed a raw correlation of 0.44 to 0.80 (test/core/ditherDependence.test.ts).
+ * independent dithers then showed a raw correlation of 0.44 to 0.56 (limits ±1, dither 1, state spread
+ * 1 to 4, seed 3) and 0.80 with dither 2, and the caution fired (test/core/ditherDependence.test.ts).
  * Standardised this way, independent dithers give residuals independent given the state, with mean 0
  * and variance 1 on every row, so any correlation left is the log's, not the selection's. Without
  * limits on an action its residual is e_j/σ_j, the plain correlation.
@@ -32,7 +33,7 @@
  * logged actions went from "agrees" to "uninformative". So it is a caution, not a serious finding:
  * the numbers held there, but they rest on an assumption the log contradicts.
  *
- * Shapes: states n×ds, actions n×m row-major; offset m; gain m×ds; lo/hi m.
+ * Shapes: states n×ds, actions n×m row-major; offset m; gain m×ds; std m; lo/hi m.
  */
 import { normalDensity, normalIntervalProbability } from './normalDistribution';
 
