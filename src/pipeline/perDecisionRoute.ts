@@ -87,7 +87,7 @@ export function openPerDecisionRoute(
   shares: HelperShares = { model: null, rollouts: null },
 ): PerDecisionRoute {
   const own = {
-    entries: kept((): ResampleEntries[] => data.map(prepareResampleEntries)), model: kept(() => shares.model && shares.model()),
+    entries: kept((): ResampleEntries[] => data.map((d) => prepareResampleEntries(d, job.discount))), model: kept(() => shares.model && shares.model()),
     rollouts: kept(() => shares.rollouts && shares.rollouts()),
   };
   const ownJob = (): ResampleJob => ({ ...job, entries: own.entries.get(), model: own.model.get(), rollouts: own.rollouts.get() });
