@@ -78,11 +78,11 @@ export interface ResampleRoute {
  * resamples, on a helper thread where the host lends one — as soon as their inputs exist: the
  * assessment opens it before it fits the candidates' other function classes, so a helper computes
  * every block's share while this thread fits, and the loop finds the shares waiting. Balance
- * (profile of the peer bench's 1,000,000 transitions, one thread): this thread's share before the
- * loop (the function classes' data pass, the off-policy inputs, the model check: about 8 CPU s)
- * outweighs the helper's (per-decision blocks about 4.4 s, the model's resamples about 2 s), and
- * the loop's own share is then the fits' replicates alone, so the model rides with the
- * per-decision blocks. Without a helper the route runs the same functions on this thread, block by
+ * (profile of the peer bench's 1,000,000 transitions, one thread, quiet machine): this thread's
+ * work from here to the loop's end (the function classes' data and influence passes about 3.4 CPU s,
+ * the fits' replicates about 0.6 s) is about the helper's (the candidate's per-decision blocks
+ * about 2.5 s, the present controller's about 0.2 s by unitWeightSpans.ts, the model's resamples
+ * about 2 s), so the model rides with the per-decision blocks. Without a helper the route runs the same functions on this thread, block by
  * block (perDecisionRoute.ts): the same numbers.
  */
 export function openResampleRoute(context: AssessmentContext, inputs: RouteInputs, settings: AssessmentSettings): ResampleRoute {
