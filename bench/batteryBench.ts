@@ -21,6 +21,7 @@ import { fileURLToPath } from 'node:url';
 import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
 import { COMPARATOR_DEGREE } from '../src/core/fqe/networkComparator';
+import { NetworkDivergedError } from '../src/core/fqe/networkErrors';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
 import { createGaussianPolicy } from '../src/core/policy';
 import { batteryPlants } from '../test/battery/catalogue';
@@ -121,12 +122,21 @@ export async function runBatteryBench(args: string[]): Promise<void> {
   const all = o.holdout ? holdoutPlants() : batteryPlants(), plants = all.filter((p) => !o.plants || o.plants.includes(p.name));
   if (plants.length === 0) throw new Error(`battery bench: no plant matches ${o.plants?.join(', ')}; have ${all.map((p) => p.name).join(', ')}`);
   console.log(`battery sweep: ${plants.length} plants, ${o.seeds} seeds, ${o.transitions.toLocaleString('en-US')} transitions, settings ${JSON.stringify(o.settings)}, method ${JSON.stringify(o.method)}`);
-  const records: FitRecord[] = [];
+  const records: FitRecord[] = [], failed: { plant: string; candidate: string; seed: number; runStarts: string; message: string }[] = [];
   for (const plant of plants) {
     const candidates = o.candidates === 'first' ? [0] : plant.candidates.map((_, i) => i);
     for (const candidate of candidates) {
       for (const runStarts of o.runStarts) for (let seed = 1; seed <= o.seeds; seed++) {
-        const fitted = await fitOne(plant, candidate, seed, runStarts, o);
+        let fitted: FitRecord[];
+        try {
+          fitted = await fitOne(plant, candidate, seed, runStarts, o);
+        } catch (error) {
+          // A fit that stops with no value is a row of the sweep, not the end of it (the user would read the same message).
+          if (!(error instanceof NetworkDivergedError)) throw error;
+          failed.push({ plant: plant.name, candidate: plant.candidates[candidate].name, seed, runStarts, message: error.message });
+          console.log(`  ${plant.name} ${plant.candidates[candidate].name} seed ${seed} (runs logged ${runStarts}): NO VALUE — ${error.message}`);
+          continue;
+        }
         records.push(...fitted);
         const f = fitted[0], err = (x: number) => `${(100 * (x - f.truth.value) / Math.abs(f.truth.value)).toFixed(2)} %`;
         console.log(`  ${plant.name} ${f.candidate} seed ${seed}: network ${err(f.network.value)}, linear ${err(f.linear.value)} (${f.startSet}; runs logged ${runStarts}), ${f.status} after ${f.iterations}, ${f.seconds.toFixed(1)} s`);
@@ -134,11 +144,12 @@ export async function runBatteryBench(args: string[]): Promise<void> {
     }
   }
   printBatteryTable(records, COMPARATOR_DEGREE);
+  if (failed.length > 0) console.log(`\n${failed.length} fit${failed.length === 1 ? '' : 's'} stopped with no value (not in the table above): ${failed.map((f) => `${f.plant} ${f.candidate} seed ${f.seed} (${f.runStarts})`).join('; ')}`);
   printAllowanceTable(records);
   const folder = fileURLToPath(new URL('../test-artifacts/', import.meta.url));
   mkdirSync(folder, { recursive: true });
   const file = `${folder}battery-${new Date().toISOString().replace(/[:.]/g, '-')}.json`;
-  writeFileSync(file, JSON.stringify({ options: o, records }, null, 1));
+  writeFileSync(file, JSON.stringify({ options: o, records, failed }, null, 1));
   console.log(`\nrecords written to ${file}`);
 }
 

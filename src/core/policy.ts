@@ -15,7 +15,7 @@ import { cholesky } from './linalg/dense';
 import { logNormalDensity, normalCdf, normalIntervalProbability, normalSurvival } from './normalDistribution';
 import type { ActuatorBounds, BoundMode, GaussianPolicy, MeanSchedule, RateLimit } from './policy/gaussianPolicyTypes';
 import { checkSchedule, scheduleValue, ScheduleError } from './policy/meanSchedule';
-import { actionLimitsAt, hasActionLimits } from './policy/actionLimits';
+import { actionLimitsAt, hasActionLimits, limitModeOf } from './policy/actionLimits';
 
 const NO_LIMITS = new Float64Array(0);
 
@@ -186,13 +186,15 @@ export function policyMean(
  * the Gaussian's. For truncation the density is renormalised by Φ(β) − Φ(α). Outside the limits
  * the log-density is −∞.
  */
+const EMPTY = new Float64Array(0);
+
 export function logDensity(p: GaussianPolicy, state: ArrayLike<number>, action: ArrayLike<number>): number {
   const m = p.actionDim;
   const mean = new Float64Array(m);
   policyMean(p, state, mean);
   if (!p.independent) return fullCovarianceLogDensity(p, mean, action);
-  const lo = new Float64Array(m), hi = new Float64Array(m);
-  const mode = actionLimitsAt(p, state, 0, lo, hi);
+  const limited = limitModeOf(p) !== null, lo = limited ? new Float64Array(m) : EMPTY, hi = limited ? new Float64Array(m) : EMPTY;
+  const mode = limited ? actionLimitsAt(p, state, 0, lo, hi) : null; // the arrays only where there are limits: this runs per logged transition
   let total = 0;
   for (let i = 0; i < m; i++) {
     const sigma = p.covarianceFactor[i * m + i];

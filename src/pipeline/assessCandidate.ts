@@ -75,10 +75,14 @@ export class AssessmentError extends Error {
   }
 }
 
-export function candidateWork(context: AssessmentContext, model: CandidateModel, classes: ClassWork[] = [], unconverged: readonly UnconvergedClass[] = []): CandidateWork {
+/** offPolicy: the model's offPolicyInputs where the caller formed them already (the assessment forms them before the function classes, to start the resample route's helper early). */
+export function candidateWork(
+  context: AssessmentContext, model: CandidateModel, classes: ClassWork[] = [], unconverged: readonly UnconvergedClass[] = [],
+  offPolicy: OffPolicyInputs | { reason: string } = offPolicyInputs(context, model),
+): CandidateWork {
   const replicate = replicator(context.plan, model);
   return {
-    model, replicate, offPolicy: offPolicyInputs(context, model), classes: [{ label: ownClassLabel(context.plan), model, replicate }, ...classes],
+    model, replicate, offPolicy, classes: [{ label: ownClassLabel(context.plan), model, replicate }, ...classes],
     unconvergedClasses: unconverged,
   };
 }
@@ -130,7 +134,8 @@ export function linearSolveSettings(plan: EvaluationPlan, model: CandidateModel)
   };
 }
 
-function offPolicyInputs(context: AssessmentContext, model: CandidateModel): OffPolicyInputs | { reason: string } {
+/** The importance-sampling cross-checks' inputs of one model, or why it has none. */
+export function offPolicyInputs(context: AssessmentContext, model: CandidateModel): OffPolicyInputs | { reason: string } {
   const { plan } = context;
   if (!plan.starts.followEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged runs’ own starts' };
   if (!context.presentController) return { reason: context.presentControllerReason };

@@ -16,7 +16,7 @@ import { failure, success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import type { ProjectDocument } from '../project/schema';
 import type { Assessment, AssessmentWarning } from './assessment';
-import { AssessmentError, candidateWork, type AssessmentContext, type CandidateWork } from './assessCandidate';
+import { AssessmentError, candidateWork, offPolicyInputs, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
 import { classWorks } from './assessClasses';
 import { openRolloutSimulations, rolloutCheck, type RolloutOutcome } from './assessRollouts';
@@ -26,7 +26,7 @@ import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
 import { modelChecksReason, plantMemoryAssessment, type PlantMemorySummary } from './plantMemoryCheck';
 import { checkLinearQuadraticModel, modelInapplicability } from './assessModelCheck';
-import { runResamples, type ResampleProgress } from './assessResamples';
+import { openResampleRoute, runResamples, type ReplicateSet, type ResampleProgress } from './assessResamples';
 import type { ResampleHelper } from './helperFeed';
 import { threadsNote, type PerDecisionRoute } from './perDecisionRoute';
 import { sensitivity } from './assessSensitivity';
@@ -110,24 +110,34 @@ async function assessWith(
   const { plan } = run, { data, sign } = plan, { settings } = options;
   const total = everyModel(run).length;
   const progress = (done: number) => options.onProgress?.({ stage: 'preparing', done, total });
-  const works: CandidateWork[] = [];
-  for (const [i, model] of run.models.entries()) {
-    progress(i);
-    const others = await classWorks(context, model);
-    works.push(candidateWork(context, model, others.fitted, others.unconverged));
-  }
-  progress(run.models.length);
-  const baseline = run.presentController ? candidateWork(context, run.presentController) : null;
-  const baselineEnds = run.presentController ? finalStateValues(plan, run.presentController) : null;
+  // The off-policy inputs and the model check first: they are all the resample route needs, so a
+  // helper thread computes the loop's per-decision and model shares while this one fits the other
+  // function classes (assessResamples.ts, openResampleRoute).
+  const offPolicy = everyModel(run).map((m) => offPolicyInputs(context, m));
   const modelCheck = checkLinearQuadraticModel(data, plan.episodes, plan.absorbingEnds);
-  const modelReasons = works.map((w) => memory.modelReason ?? modelInapplicability(modelCheck, w.model.policy));
-  const presentModelReason = baseline && (memory.modelReason ?? modelInapplicability(modelCheck, baseline.model.policy));
+  const modelReasons = run.models.map((m) => memory.modelReason ?? modelInapplicability(modelCheck, m.policy));
+  const presentModelReason = run.presentController && (memory.modelReason ?? modelInapplicability(modelCheck, run.presentController.policy));
   const model = modelCheck.regressions ? {
     regressions: modelCheck.regressions, applicable: modelReasons.map((r) => r === null),
-    baselineApplicable: baseline !== null && presentModelReason === null,
+    baselineApplicable: run.presentController !== null && presentModelReason === null,
   } : null;
-  const replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings,
-    (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
+  const route = openResampleRoute(context, { offPolicy, policies: run.models.map((m) => m.policy), model }, settings);
+  let replicates: ReplicateSet, works: CandidateWork[], baseline: CandidateWork | null, baselineEnds: ReturnType<typeof finalStateValues> | null;
+  try {
+    works = [];
+    for (const [i, m] of run.models.entries()) {
+      progress(i);
+      const others = await classWorks(context, m);
+      works.push(candidateWork(context, m, others.fitted, others.unconverged, offPolicy[i]));
+    }
+    progress(run.models.length);
+    baseline = run.presentController ? candidateWork(context, run.presentController, [], [], offPolicy[run.models.length]) : null;
+    baselineEnds = run.presentController ? finalStateValues(plan, run.presentController) : null;
+    replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings, route,
+      (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
+  } finally {
+    route.close();
+  }
   const simulated = 'reason' in simulations ? simulations : await simulations.rollouts(context.cancel);
   const rolloutOf = (w: CandidateWork, k: number): RolloutOutcome =>
     (simulated === null ? { reason: 'the model rollouts were not run' } : 'reason' in simulated ? simulated : rolloutCheck(context, w, simulated[k], settings));

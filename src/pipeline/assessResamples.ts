@@ -13,7 +13,8 @@ import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offP
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import type { AssessmentContext, CandidateWork, OffPolicyInputs } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
-import { modelBlock, type ModelJob } from './modelBlocks';
+import type { GaussianPolicy } from '../core/policy';
+import type { ModelJob } from './modelBlocks';
 import { drawBlock } from './perDecisionBlocks';
 import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
 
@@ -56,32 +57,50 @@ const PACE_MS = 50;
 /** Report progress about every this many resamples. */
 const PROGRESS_EVERY = 25;
 
-export async function runResamples(
-  context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, onProgress?: (p: ResampleProgress) => void,
-): Promise<ReplicateSet> {
-  const { plan } = context, e = plan.episodes.episodes;
-  const { works, baseline } = inputs;
-  const withPerDecision = [...works, ...(baseline ? [baseline] : [])].filter((w) => 'perDecision' in w.offPolicy);
-  // Balance (profile of the peer bench's 1,000,000 transitions, quiet machine): the per-decision blocks alone
-  // cost the helper more than the fits' replicates and the closed form's model resamples cost this thread
-  // (6.9 CPU s against 1.5 + 2.8 s since those resamples are summed in blocks), so the model goes to the
-  // helper only where it has no per-decision work; either way modelBlock runs it.
-  const modelJob = modelJobOf(context, inputs), modelOnRoute = withPerDecision.length === 0;
-  const route = openPerDecisionRoute(withPerDecision.map((w) => (w.offPolicy as OffPolicyInputs).perDecision),
-    { discount: plan.discount, episodes: e, seed: settings.seed, resamples: settings.resamples }, context.helper, { model: modelOnRoute ? modelJob : null, rollouts: null });
-  try {
-    return await resampleLoop(context, inputs, settings, { route, withPerDecision, ownModel: modelOnRoute ? null : modelJob && modelJob() }, onProgress);
-  } finally {
-    route.close();
-  }
+/** What the resample route needs before the works exist (openResampleRoute). */
+export interface RouteInputs {
+  /** Per policy, the candidates then the present controller where there is one: its off-policy inputs (offPolicyInputs), or why it has none. */
+  readonly offPolicy: readonly (OffPolicyInputs | { reason: string })[];
+  /** The candidates' policies, in the works' order. */
+  readonly policies: readonly GaussianPolicy[];
+  readonly model: ResampleInputs['model'];
 }
 
-async function resampleLoop(
-  context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, shares: { route: PerDecisionRoute; withPerDecision: CandidateWork[]; ownModel: ModelJob | null },
-  onProgress?: (p: ResampleProgress) => void,
+/** The loop's route, opened before the function classes are fitted; rows[k]: policy k's row in each block's per-decision share (−1: none). */
+export interface ResampleRoute {
+  readonly route: PerDecisionRoute;
+  readonly rows: readonly number[];
+  close(): void;
+}
+
+/**
+ * Open the resample loop's route — the per-decision cross-checks and the linear-quadratic model's
+ * resamples, on a helper thread where the host lends one — as soon as their inputs exist: the
+ * assessment opens it before it fits the candidates' other function classes, so a helper computes
+ * every block's share while this thread fits, and the loop finds the shares waiting. Balance
+ * (profile of the peer bench's 1,000,000 transitions, one thread, quiet machine): this thread's
+ * work from here to the loop's end (the function classes' data and influence passes about 3.4 CPU s,
+ * the fits' replicates about 0.6 s) is about the helper's (the candidate's per-decision blocks
+ * about 2.5 s, the present controller's about 0.2 s by unitWeightSpans.ts, the model's resamples
+ * about 2 s), so the model rides with the per-decision blocks. Without a helper the route runs the same functions on this thread, block by
+ * block (perDecisionRoute.ts): the same numbers.
+ */
+export function openResampleRoute(context: AssessmentContext, inputs: RouteInputs, settings: AssessmentSettings): ResampleRoute {
+  const { plan } = context;
+  let row = 0;
+  const rows = inputs.offPolicy.map((o) => ('perDecision' in o ? row++ : -1));
+  const data = inputs.offPolicy.flatMap((o) => ('perDecision' in o ? [o.perDecision] : []));
+  const route = openPerDecisionRoute(data, { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: settings.resamples },
+    context.helper, { model: modelJobOf(context, inputs), rollouts: null });
+  return { route, rows, close: () => route.close() };
+}
+
+/** The loop over the resamples on a route opened for the same works (openResampleRoute); the caller closes the route. */
+export async function runResamples(
+  context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, opened: ResampleRoute, onProgress?: (p: ResampleProgress) => void,
 ): Promise<ReplicateSet> {
   const pace = createPacer(PACE_MS), { plan } = context, e = plan.episodes.episodes;
-  const { works, baseline, baselineEnds, model } = inputs, { route, withPerDecision, ownModel } = shares;
+  const { works, baseline, baselineEnds, model } = inputs, { route, rows } = opened;
   const out: ReplicateSet = {
     loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false)),
     presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [], threads: '',
@@ -93,15 +112,14 @@ async function resampleLoop(
     throwIfCancelled(context.cancel);
     if (first - reported >= PROGRESS_EVERY) onProgress?.({ done: (reported = first), total: settings.resamples });
     const drawn = drawBlock(e, settings.seed, first, settings.resamples, block);
-    const ownModels = ownModel && modelBlock(ownModel, drawn);
     const fqe = new Map([...works, ...(baseline ? [baseline] : [])].map((w) => [w, blockValues(w, drawn)]));
     // Asked for last, so a helper thread computing them has had this block's other work to run ahead.
-    const share = await route.block(first, drawn);
-    const perDecision = new Map(withPerDecision.map((w, k) => [w, share.perDecision[k]])), models = ownModels ?? share.models;
+    const share = await route.block(first, drawn), models = share.models;
+    const perDecisionOf = (k: number, i: number) => (rows[k] >= 0 ? share.perDecision[rows[k]][i] : undefined);
     drawn.forEach((c, i) => {
       out.loggedReturn.push(weightedMean(plan.loggedReturn.perEpisode, c));
-      works.forEach((w, j) => replicateCandidate(w, out.candidates[j], fqe.get(w)!.map((v) => v?.[i]), models?.[j]?.[i] ?? null, perDecision.get(w)?.[i]));
-      if (baseline && out.presentController) replicateCandidate(baseline, out.presentController, fqe.get(baseline)!.map((v) => v?.[i]), null, perDecision.get(baseline)?.[i]);
+      works.forEach((w, j) => replicateCandidate(w, out.candidates[j], fqe.get(w)!.map((v) => v?.[i]), models?.[j]?.[i] ?? null, perDecisionOf(j, i)));
+      if (baseline && out.presentController) replicateCandidate(baseline, out.presentController, fqe.get(baseline)!.map((v) => v?.[i]), null, perDecisionOf(works.length, i));
       if (baselineEnds && out.completedReturn) out.completedReturn.push(completedReturnOfResample(plan.loggedReturn.perEpisode, baselineEnds.tailWeights, baselineEnds.values, c));
     });
   }
@@ -148,11 +166,11 @@ function replicateCandidate(
  * moments the model check formed, again from the data after a helper thread was given those
  * (the same pass, so the same numbers). Candidates the model does not apply to get no values.
  */
-function modelJobOf(context: AssessmentContext, inputs: ResampleInputs): (() => ModelJob) | null {
-  const { model, works } = inputs, { plan } = context;
+function modelJobOf(context: AssessmentContext, inputs: RouteInputs): (() => ModelJob) | null {
+  const { model } = inputs, { plan } = context;
   if (!model) return null;
   let held: ModelRegressions | null = model.regressions;
-  const policies = works.map((w, j) => (model.applicable[j] ? w.model.policy : null));
+  const policies = inputs.policies.map((policy, j) => (model.applicable[j] ? policy : null));
   return () => {
     const regressions = held ?? modelRegressions(plan.data, plan.episodes);
     held = null;

@@ -15,6 +15,7 @@
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import { perDecisionResamples, RESAMPLE_BLOCK, type ResampleEntries } from '../core/offPolicy/perDecisionResamples';
+import { spanBuffers } from '../core/offPolicy/unitWeightSpans';
 import { modelBlock, modelTransferables, type ModelBlockValues, type ModelJob } from './modelBlocks';
 import { rolloutValues, type RolloutJob, type RolloutValues } from './rolloutValues';
 
@@ -100,6 +101,7 @@ export function transferables(job: ResampleJob): ArrayBuffer[] {
     for (const a of [en.reaching, en.offsets, en.rankOf, en.weight, en.weightedReward, en.weightedAction, en.weightedState, en.endRank, en.endWeightedValue, en.absorbedRank, en.cutRank]) {
       if (a && a.buffer instanceof ArrayBuffer) buffers.add(a.buffer);
     }
+    for (const b of spanBuffers(en.spans)) if (b instanceof ArrayBuffer) buffers.add(b);
   }
   return [...buffers];
 }

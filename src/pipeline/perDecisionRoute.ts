@@ -41,13 +41,14 @@ export interface HelperShares {
 
 export const ONE_THREAD_NOTE = 'one thread for the resamples';
 
-/** The words for a helper that runs the job's parts (all three, HELPER_THREAD_NOTE, in the usual case). */
+/** The words for a helper that runs the job's parts (the loop's two, HELPER_THREAD_NOTE, in the usual case). */
 export function helperThreadNote(job: Pick<ResampleJob, 'entries' | 'model' | 'rollouts'>): string {
   const parts = [job.entries.length > 0 && 'the per-decision cross-checks', job.model && 'the linear-quadratic model', job.rollouts && 'the model rollouts'].filter((p): p is string => !!p);
   const listed = parts.length > 1 ? `${parts.slice(0, -1).join(', ')} and ${parts[parts.length - 1]}` : parts[0];
   return `two threads for the resamples: ${listed} on the second`;
 }
-export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks on the second';
+/** The loop's helper with the per-decision cross-checks and the linear-quadratic model (assessResamples.ts, openResampleRoute). */
+export const HELPER_THREAD_NOTE = 'two threads for the resamples: the per-decision cross-checks and the linear-quadratic model on the second';
 /** Added to the loop's words when the model rollouts ran on a thread of their own (assessRollouts.ts, openRolloutSimulations). */
 export const ROLLOUT_THREAD_NOTE = 'the model rollouts on a second thread while the function classes were fitted';
 
@@ -86,7 +87,7 @@ export function openPerDecisionRoute(
   shares: HelperShares = { model: null, rollouts: null },
 ): PerDecisionRoute {
   const own = {
-    entries: kept((): ResampleEntries[] => data.map(prepareResampleEntries)), model: kept(() => shares.model && shares.model()),
+    entries: kept((): ResampleEntries[] => data.map((d) => prepareResampleEntries(d, job.discount))), model: kept(() => shares.model && shares.model()),
     rollouts: kept(() => shares.rollouts && shares.rollouts()),
   };
   const ownJob = (): ResampleJob => ({ ...job, entries: own.entries.get(), model: own.model.get(), rollouts: own.rollouts.get() });

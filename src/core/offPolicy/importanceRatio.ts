@@ -11,7 +11,7 @@
  *   with positive probability, so π is not absolutely continuous with respect to b
  *   (ImportanceRatioError, naming the action).
  */
-import { actionLimitsAt, logDensity, type GaussianPolicy } from '../policy';
+import { actionLimitsAt, limitModeOf, logDensity, type GaussianPolicy } from '../policy';
 
 export class ImportanceRatioError extends Error {
   constructor(message: string) {
@@ -25,6 +25,7 @@ export class ImportanceRatioError extends Error {
  * point mass; with a rate limit the limits move with the previous action, policy/actionLimits.ts).
  */
 export function pointMassMask(policy: GaussianPolicy, state: ArrayLike<number>, action: ArrayLike<number>, actionOffset = 0): number {
+  if (limitModeOf(policy) !== 'clip') return 0; // what actionLimitsAt would say, without its arrays (this runs per logged transition)
   const m = policy.actionDim, lo = new Float64Array(m), hi = new Float64Array(m);
   if (actionLimitsAt(policy, state, 0, lo, hi) !== 'clip') return 0;
   let mask = 0;
@@ -39,7 +40,8 @@ export function pointMassMask(policy: GaussianPolicy, state: ArrayLike<number>, 
 export function logImportanceRatio(
   target: GaussianPolicy, behaviour: GaussianPolicy, state: Float64Array, action: Float64Array,
 ): number {
-  const targetMask = pointMassMask(target, state, action), behaviourMask = pointMassMask(behaviour, state, action);
+  const same = target === behaviour; // the present controller weighed against itself: every number below is formed once
+  const targetMask = pointMassMask(target, state, action), behaviourMask = same ? targetMask : pointMassMask(behaviour, state, action);
   const unmatched = targetMask & ~behaviourMask;
   if (unmatched !== 0) {
     let j = 0;
@@ -50,5 +52,6 @@ export function logImportanceRatio(
     );
   }
   if (targetMask !== behaviourMask) return -Infinity; // π continuous where b has an atom
-  return logDensity(target, state, action) - logDensity(behaviour, state, action);
+  const logTarget = logDensity(target, state, action);
+  return logTarget - (same ? logTarget : logDensity(behaviour, state, action));
 }

@@ -16,7 +16,10 @@
  *   - a step's entries (a few hundred kilobytes) read from memory once for RESAMPLE_BLOCK
  *     resamples, four at a time while they are still in cache;
  *   - where every weight is exactly 1 (the present controller weighed against itself), three
- *     tables: the weight sums are then the counts (rankedEntries.ts, unitWeight).
+ *     tables: the weight sums are then the counts (rankedEntries.ts, unitWeight); and where,
+ *     besides, no run is absorbed in an end state, per-run totals over spans of steps reached by
+ *     the same runs (unitWeightSpans.ts), equal to rounding, when the entries were prepared with
+ *     the discount.
  * The sums are the same sums, added in rank order rather than episode order: the result equals
  * perDecisionEstimates(data, γ, c) up to rounding; the test compares the two.
  *
@@ -24,14 +27,23 @@
  */
 import { ImportanceSamplingError, paddedWeights, zeroWeights, type PerDecisionEstimates } from './perDecisionEstimators';
 import { rankEntries, type RankedEntries } from './rankedEntries';
+import { unitSpanResamples, unitWeightSpans, type UnitWeightSpans } from './unitWeightSpans';
 
 /** Resamples summed in one read of the entries from memory. */
 export const RESAMPLE_BLOCK = 8;
 /** Resamples summed side by side in registers (the inner loops are written out for this many). */
 const LANES = 4;
 
-export type ResampleEntries = RankedEntries;
-export const prepareResampleEntries = rankEntries;
+export interface ResampleEntries extends RankedEntries {
+  /** The unit-weight span totals at the discount given to prepareResampleEntries (unitWeightSpans.ts); null where they do not apply or none was given. */
+  readonly spans: UnitWeightSpans | null;
+}
+
+/** The entries ranked (rankedEntries.ts) and, given the discount, the unit-weight span totals where they apply. */
+export function prepareResampleEntries(data: Parameters<typeof rankEntries>[0], discount?: number): ResampleEntries {
+  const ranked = rankEntries(data);
+  return { ...ranked, spans: discount === undefined ? null : unitWeightSpans(ranked, discount) };
+}
 
 /** One step's sums per resample: LANES × FIELDS per group, resample-major within the group. */
 const FIELDS = 10;
@@ -55,6 +67,7 @@ export function perDecisionResamples(entries: ResampleEntries, discount: number,
   for (const c of multiplicities) {
     if (c.length !== e) throw new ImportanceSamplingError(`multiplicities: expected one per episode (${e}), got ${c.length}`);
   }
+  if (entries.spans && entries.spans.discount === discount) return unitSpanResamples(entries, entries.spans, multiplicities);
   const groups = Math.ceil(count / LANES), lanes = Array.from({ length: groups }, (_, g) => rankedLanes(entries, multiplicities, g));
   const reached = lanes.map((c) => reachedCounts(entries, c));
   const running: Running[] = Array.from({ length: count }, () => ({ is: 0, correction: 0, tail: 0, failure: null }));
