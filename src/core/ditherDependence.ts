@@ -132,7 +132,7 @@ export function ditherDependenceText(d: DitherDependence, actionNames: readonly 
   const { actions: [j, k], correlation } = d.strongest!;
   const how = correlation > 0 ? 'move together' : 'move in opposite directions';
   const value = `${correlation < 0 ? '\u2212' : ''}${Math.abs(correlation).toFixed(2)}`;
-  return `The present controller’s variations on ${actionNames[j]} and ${actionNames[k]} ${how} (correlation ${value} over the ` +
+  return `The present controller’s dithers on ${actionNames[j]} and ${actionNames[k]} ${how} (correlation ${value} over the ` +
     `${d.rows.toLocaleString('en-US')} logged rows where no action is at a limit; named from ${DITHER_CORRELATION_NOTED} in size and ${DITHER_CORRELATION_Z} standard errors of Fisher’s z), ` +
     'but its model clips each action at its own limits and so takes them as independent. ' +
     'Its J and the importance-sampling checks rest on that simplification; read them with it in mind.';

@@ -64,7 +64,7 @@ describe('the correlation of the dithers over the rows inside the limits', () =>
   it('says which way the dithers move and the whole rule, in the numbers it read', () => {
     const d = { correlation: [[1, -0.45], [-0.45, 1]], rows: 1_000, strongest: { actions: [0, 1] as [number, number], correlation: -0.45 } };
     const text = ditherDependenceText(d, ['hot', 'cold'])!;
-    expect(text).toMatch(/^The present controller’s variations on hot and cold move in opposite directions \(correlation \u22120\.45 over the 1,000 logged rows/);
+    expect(text).toMatch(/^The present controller’s dithers on hot and cold move in opposite directions \(correlation \u22120\.45 over the 1,000 logged rows/);
     expect(text).toContain(`named from ${DITHER_CORRELATION_NOTED} in size and ${DITHER_CORRELATION_Z} standard errors of Fisher’s z`);
     expect(ditherDependenceText({ ...d, strongest: { actions: [0, 1], correlation: 0.45 } }, ['hot', 'cold'])).toContain('hot and cold move together (correlation 0.45');
   });
