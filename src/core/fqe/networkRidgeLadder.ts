@@ -14,7 +14,7 @@
  * RIDGE_LADDER_RUNGS times, and keep the first rung that passes. Ridge-regularised LSTD is the
  * usual cure for an ill-posed fixed point (Farahmand, Ghavamzadeh, Szepesvári & Mannor, NeurIPS
  * 2008, regularised policy iteration); as λ_h grows the hidden weights shrink to zero and the
- * iterate tends to the quadratic part's own fixed point, which the loop started from. An iterate
+ * iterate tends to the polynomial part's own fixed point, which the loop started from. An iterate
  * that passes at the default λ_h is solved exactly as before, so every fit that never needed it is
  * unchanged; the rungs used are reported with the fit (the message names them).
  */
