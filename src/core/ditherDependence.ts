@@ -77,6 +77,16 @@ export function ditherDependence(
 }
 
 /**
+ * Standard deviations from both limits beyond which a row's cut is not applied: φ(6) ≈ 6.1e-9, so the
+ * cut normal's mean moves by under 1.3e-8 σ and its variance by under 2·6·φ(6) ≈ 7.3e-8 there
+ * (Mills' ratio, A&S 26.2.12), far below what moves a correlation read against 0.3. Most rows of a log
+ * sit this far from the limits (a valve near mid-travel with a dither of a few %), and the erfc calls
+ * they skip were most of this pass: 10⁶ rows, two valves at 0.5 ± 0.1 with dither 0.05, 207 ms with
+ * every row cut, 44 ms with this skip, 21 ms for the raw correlation (best of 3, shared machine).
+ */
+const FAR_FROM_LIMITS = 6;
+
+/**
  * Row i's residuals standardised by the cut normal's mean and variance (see above) into u (m);
  * false where some action's window holds too little of the model's mass to standardise in double
  * precision (Z below 1e-12) or the model gives it no spread: such a row is left out.
@@ -91,7 +101,12 @@ function standardisedRow(
     for (let p = 0; p < ds; p++) mean += model.gain[j][p] * states[i * ds + p];
     const sigma = model.std[j];
     if (!(sigma > 0)) return false;
-    const alpha = (limits.lo[j] - mean) / sigma, beta = (limits.hi[j] - mean) / sigma, kept = normalIntervalProbability(alpha, beta);
+    const alpha = (limits.lo[j] - mean) / sigma, beta = (limits.hi[j] - mean) / sigma;
+    if (alpha <= -FAR_FROM_LIMITS && beta >= FAR_FROM_LIMITS) {
+      u[j] = (actions[i * m + j] - mean) / sigma; // the cut changes mean and spread by under 1e-7 here: skip its erfc calls
+      continue;
+    }
+    const kept = normalIntervalProbability(alpha, beta);
     if (!(kept > 1e-12)) return false;
     const phiA = Number.isFinite(alpha) ? normalDensity(alpha) : 0, phiB = Number.isFinite(beta) ? normalDensity(beta) : 0;
     const shift = (phiA - phiB) / kept;
