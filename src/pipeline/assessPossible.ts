@@ -57,13 +57,14 @@ function stateCheck(plan: EvaluationPlan, range: PossibleValues, model: Candidat
   return stateValuesOutsidePossible(values, range, standardError);
 }
 
-function stateFinding(plan: EvaluationPlan, range: PossibleValues, outside: StateValuesOutside, standardError: number): AssessmentWarning {
+/** Exported for its words' test (test/pipeline/impossibleValueWords.test.ts). */
+export function stateFinding(plan: EvaluationPlan, range: PossibleValues, outside: StateValuesOutside, standardError: number): AssessmentWarning {
   // Project sense: a cost project's range and values are the reward's negated, so its ends swap.
   const median = plan.sign * outside.median, past = (outside.side === 'above') === plan.sign > 0 ? 'above' : 'below';
   return {
     severity: 'serious', topic: TOPIC,
-    message: `The fitted value lies outside what any policy can reach on most of the logged states: V̂ has median ${median.toPrecision(4)} over ${outside.states} logged states, ` +
+    message: `The fitted value lies outside what any policy can reach on most of the logged states: V̂ has median ${plainNumber(median, 4, ASCII_MINUS)} over ${outside.states} logged states, ` +
       `${(100 * outside.share).toFixed(1)} % of them ${past} the possible range (${rangeText(plan, range)}, discounted, while the ${words(plan)} stay within the logged range), ` +
-      `more than one standard error of J (${standardError.toPrecision(3)}) past its end. The fit fails where it has data, and its interval, the same fit on resampled runs, cannot show it: do not use this value.`,
+      `more than one standard error of J (${plainNumber(standardError, 2, ASCII_MINUS)}) past its end. The fit fails where it has data, and its interval, the same fit on resampled runs, cannot show it: do not use this value.`,
   };
 }

@@ -6,7 +6,7 @@
  * controller with each valve clipped at [0, 1] and the two dithers drawn with a stated correlation.
  */
 import { beforeAll, describe, expect, it } from 'vitest';
-import { DITHER_CORRELATION_NOTED, ditherDependence, ditherDependenceNoted, ditherDependenceText } from '../../src/core/ditherDependence';
+import { DITHER_CORRELATION_NOTED, DITHER_CORRELATION_Z, ditherDependence, ditherDependenceNoted, ditherDependenceText } from '../../src/core/ditherDependence';
 import { fitBehaviourModel } from '../../src/core/behaviourModel';
 import { createGaussianPolicy } from '../../src/core/policy';
 import { createRandom } from '../../src/core/random';
@@ -42,7 +42,7 @@ describe('the correlation of the dithers over the rows inside the limits', () =>
       actions[2 * i] = 1 + 0.5 * s + z1;
       actions[2 * i + 1] = -2 * s + rho * z1 + Math.sqrt(1 - rho * rho) * z2;
     }
-    const d = ditherDependence(states, actions, n, 1, 2, { offset: [1, 0], gain: [[0.5], [-2]] }, { lo: [-Infinity, -Infinity], hi: [Infinity, Infinity] });
+    const d = ditherDependence(states, actions, n, 1, 2, { offset: [1, 0], gain: [[0.5], [-2]], std: [1, 1] }, { lo: [-Infinity, -Infinity], hi: [Infinity, Infinity] });
     expect(d.rows).toBe(n);
     expect(Math.abs(d.correlation[0][1] - rho)).toBeLessThan((4 * (1 - rho * rho)) / Math.sqrt(n));
     expect(d.strongest).toEqual({ actions: [0, 1], correlation: d.correlation[0][1] });
@@ -50,10 +50,46 @@ describe('the correlation of the dithers over the rows inside the limits', () =>
 
   it('leaves out the rows where an action sits at a limit, and names nothing from sampling noise on few rows', () => {
     const actions = Float64Array.from([0, 0.5, 0.2, 1, 0.3, 0.3, 0.6, 0.7, 0.4, 0.2]), states = new Float64Array(5);
-    const d = ditherDependence(states, actions, 5, 1, 2, { offset: [0.4, 0.5], gain: [[0], [0]] }, VALVES);
+    const d = ditherDependence(states, actions, 5, 1, 2, { offset: [0.4, 0.5], gain: [[0], [0]], std: [0.2, 0.2] }, VALVES);
     expect(d.rows).toBe(3); // rows 1 (at 0) and 2 (at 1) hold the clip
-    // |ρ| = 0.99 on 3 rows: Fisher's z·√(N − 3) = 0, far below 3 standard errors.
-    expect(ditherDependenceNoted({ ...d, strongest: { actions: [0, 1], correlation: 0.99 } })).toBe(false);
+    // Fisher's rule by hand: atanh(0.5)·√(20 − 3) = 0.549·4.12 = 2.26 < 3, not named although |ρ| ≥ 0.3;
+    // atanh(0.7)·√17 = 0.867·4.12 = 3.57 ≥ 3, named. (Three rows cannot be judged at all.)
+    const on = (rows: number, correlation: number) => ditherDependenceNoted({ ...d, rows, strongest: { actions: [0, 1], correlation } });
+    expect(on(20, 0.5)).toBe(false);
+    expect(on(20, -0.7)).toBe(true);
+    expect(on(10_000, 0.29)).toBe(false);
+    expect(on(3, 0.99)).toBe(false);
+  });
+
+  it('says which way the dithers move and the whole rule, in the numbers it read', () => {
+    const d = { correlation: [[1, -0.45], [-0.45, 1]], rows: 1_000, strongest: { actions: [0, 1] as [number, number], correlation: -0.45 } };
+    const text = ditherDependenceText(d, ['hot', 'cold'])!;
+    expect(text).toMatch(/^The present controller’s dithers on hot and cold move in opposite directions \(correlation \u22120\.45 over the 1,000 logged rows/);
+    expect(text).toContain(`named from ${DITHER_CORRELATION_NOTED} in size and ${DITHER_CORRELATION_Z} standard errors of Fisher’s z`);
+    expect(ditherDependenceText({ ...d, strongest: { actions: [0, 1], correlation: 0.45 } }, ['hot', 'cold'])).toContain('hot and cold move together (correlation 0.45');
+  });
+
+  // Independent dithers, both actions' means driven by one state, limits often reached: on the rows inside
+  // the limits each residual is a normal cut to a window that moves with the state, so both residuals' means
+  // move with the state together; raw residuals then correlate by 0.44 to 0.56 (limits ±1, dither 1, state
+  // spread 1 to 4, seed 3; 0.80 with dither 2) with no dependence at all, and the caution fired. Standardised by the cut normal's own mean and variance
+  // (Johnson, Kotz & Balakrishnan, "Continuous Univariate Distributions", vol. 1, 2nd ed. 1994, §10.1) they
+  // are independent given the state, so their correlation is sampling noise: within 4/√N of 0.
+  it('names no dependence where the limits alone make independent dithers look correlated', () => {
+    for (const [spread, seed] of [[1, 3], [2, 3], [4, 5]]) {
+      const n = 20_000, rng = createRandom(seed), states = new Float64Array(n), actions = new Float64Array(2 * n);
+      for (let i = 0; i < n; i++) {
+        const s = spread * rng.normal();
+        states[i] = s;
+        actions[2 * i] = Math.min(1, Math.max(-1, s + rng.normal()));
+        actions[2 * i + 1] = Math.min(1, Math.max(-1, s + rng.normal()));
+      }
+      const d = ditherDependence(states, actions, n, 1, 2, { offset: [0, 0], gain: [[1], [1]], std: [1, 1] }, { lo: [-1, -1], hi: [1, 1] });
+      expect(Math.abs(d.correlation[0][1])).toBeLessThan(4 / Math.sqrt(d.rows));
+      expect(ditherDependenceNoted(d)).toBe(false);
+      const fitted = fitBehaviourModel(states, actions, n, 1, 2).ditherDependence!;
+      expect(ditherDependenceNoted(fitted)).toBe(false);
+    }
   });
 });
 

@@ -80,7 +80,8 @@ export function severityBelow(value: number, limits: Limits): SeverityLevel | nu
   return value < limits.serious ? 'serious' : 'caution';
 }
 
-const fixed = (v: number, digits: number): string => (Math.abs(v) >= 1e4 ? v.toPrecision(3) : v.toFixed(digits));
+/** `digits` places below 10,000; whole numbers from there (toPrecision would write "3.62e+4" for a shift of 36,180). */
+const fixed = (v: number, digits: number): string => (Math.abs(v) >= 1e4 ? Math.round(v).toFixed(0) : v.toFixed(digits));
 const percent = (share: number): string => `${fixed(100 * share, share < 0.1 ? 1 : 0)} %`;
 
 /** The rule in words, for the method section, glossary and help. */

@@ -16,8 +16,10 @@
  * (a dead rectifier) gets weight 0 instead of making the system singular. Shapes: d = d1 + dh.
  */
 import { luFactor, luSolve, SingularMatrixError } from '../linalg/dense';
+import { RIDGE } from '../limits';
 
-export const LINEAR_PART_RIDGE = 1e-6;
+/** The linear approximator's default ridge (src/core/limits.ts), read from there so the two cannot drift apart. */
+export const LINEAR_PART_RIDGE = RIDGE.default;
 
 export type LastLayerSolve = { readonly weights: Float64Array } | { readonly failure: string };
 

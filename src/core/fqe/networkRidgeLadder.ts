@@ -14,7 +14,7 @@
  * RIDGE_LADDER_RUNGS times, and keep the first rung that passes. Ridge-regularised LSTD is the
  * usual cure for an ill-posed fixed point (Farahmand, Ghavamzadeh, Szepesvári & Mannor, NeurIPS
  * 2008, regularised policy iteration); as λ_h grows the hidden weights shrink to zero and the
- * iterate tends to the quadratic part's own fixed point, which the loop started from. An iterate
+ * iterate tends to the polynomial part's own fixed point, which the loop started from. An iterate
  * that passes at the default λ_h is solved exactly as before, so every fit that never needed it is
  * unchanged; the rungs used are reported with the fit (the message names them).
  */
@@ -64,5 +64,5 @@ export function ridgeLadderSentence(raised: readonly { readonly iteration: numbe
   const at = raised.length === 1 ? `At outer iteration ${raised[0].iteration}` : raised.length <= 3
     ? `At outer iterations ${raised.map((r) => r.iteration).join(', ')}` : `At ${raised.length} outer iterations (the first at iteration ${raised[0].iteration})`;
   return `${at} the last layer gave values no policy can have with the default hidden ridge ${defaultRidge}, ` +
-    `so it was solved again with a larger one (up to ${top}, ×${RIDGE_LADDER_FACTOR} per step, at most ${RIDGE_LADDER_RUNGS} steps), which pulls those iterates toward the quadratic part's own fixed point.`;
+    `so it was solved again with a larger one (up to ${top}, ×${RIDGE_LADDER_FACTOR} per step, at most ${RIDGE_LADDER_RUNGS} steps), which pulls those iterates toward the polynomial part's own fixed point (the network's linear start).`;
 }

@@ -39,4 +39,13 @@ describe('severity', () => {
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/the importance-sampling cross-checks rest on a few runs/);
     expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the present controller itself: 2\.0 %\)/);
   });
+
+  // A shift of tens of thousands is common far from the logs, and a log of 100,000 runs is not rare:
+  // their numbers in fixed notation, as the command line's ratioText writes the same shift, never "3.62e+4".
+  it('writes large shifts and effective sizes in fixed notation', () => {
+    const shift = occupancyShiftFinding(36_180.4, 1.2)!.message;
+    expect(shift).toMatch(/^Occupancy shift 36180 \(the present controller: 1\.20\), above the serious limit /);
+    expect(shift).not.toMatch(/e\+/);
+    expect(effectiveShareFinding(12_345.6, 1_000_000, 40)!.message).toMatch(/effective size 12346 of 1000000 runs/);
+  });
 });
