@@ -88,20 +88,3 @@ export function leadingBlock(sums: LastLayerSums, d2: number): LastLayerSums {
   }
   return { dim: d2, linearDim: d2, ranges: sums.ranges, stride, sums: out };
 }
-
-/** E_{a~π} φ₂(s0, a) per start state by the action quadrature: count×d2. */
-export function comparatorStartRows(features: FeatureMap, quadrature: ActionQuadrature, states: Float64Array, ds: number): Float64Array {
-  const m = quadrature.actionDim, d2 = features.dim, count = states.length / ds;
-  const points = new Float64Array(quadrature.maxPoints * m), weights = new Float64Array(quadrature.maxPoints);
-  const input = new Float64Array(ds + m), phi = new Float64Array(d2), out = new Float64Array(count * d2);
-  for (let s = 0; s < count; s++) {
-    for (let c = 0; c < ds; c++) input[c] = states[s * ds + c];
-    const k = quadrature.at(states, s * ds, points, weights);
-    for (let j = 0; j < k; j++) {
-      for (let c = 0; c < m; c++) input[ds + c] = points[j * m + c];
-      features.evaluate(input, 0, phi, 0);
-      for (let f = 0; f < d2; f++) out[s * d2 + f] += weights[j] * phi[f];
-    }
-  }
-  return out;
-}

@@ -6,7 +6,7 @@
 import * as tf from '@tensorflow/tfjs';
 import { createActionQuadrature } from '../actionQuadrature';
 import { classErrorAllowance, classErrorSentence, withClassErrorAllowance } from './classErrorAllowance';
-import { comparatorStartRows } from './networkComparator';
+import { startStateFeatures } from '../features/policyFeatures';
 import { FqeCancelledError } from './fqeErrors';
 import { linearActionValue } from './linearActionValue';
 import { createNetworkActionValue } from './networkActionValue';
@@ -126,7 +126,7 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
     estimate(startStates: Float64Array, options: EstimateOptions = {}): NetworkValueEstimate {
       if (disposed) throw new NetworkDisposedError();
       const rows = startFeatureRows(net, quadrature, startStates, ds), d = v.length, mean = meanRow(rows, d);
-      const linearRows = comparatorStartRows(comparator, quadrature, startStates, ds);
+      const linearRows = startStateFeatures(comparator, quadrature, startStates, ds);
       const value = dot(mean, v, d), linear = dot(meanRow(linearRows, d2), ctx.comparatorWeights, d2);
       const follow = options.startsFollowEpisodes ?? sameValues(startStates, dataStarts);
       const resamples = options.resamples ?? s.method.intervalResamples;

@@ -17,7 +17,6 @@ import { episodeMultiplicities } from '../../../src/core/bootstrap/episodeMultip
 import { linearFqeReplicate } from '../../../src/core/bootstrap/linearFqeReplicate';
 import { startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { fitLinearFqe } from '../../../src/core/fqe/linearFqe';
-import { comparatorStartRows } from '../../../src/core/fqe/networkComparator';
 import { createFitSession } from '../../../src/core/fqe/networkFitSession';
 import { hiddenFeatureRows } from '../../../src/core/fqe/networkHiddenFeatures';
 import { valueReplicates } from '../../../src/core/fqe/networkInterval';
@@ -84,7 +83,7 @@ describe('network last layer', () => {
       expect(relative(ja, jb)).toBeLessThan(1e-4);
 
       // The interval machinery on these systems: every resample solves, and the full-data J lies inside its 90 % interval.
-      const linearStartRows = comparatorStartRows(s.comparator.features, s.quadrature, data.startStates, plant.stateDim);
+      const linearStartRows = startStateFeatures(s.comparator.features, s.quadrature, data.startStates, plant.stateDim);
       const r = valueReplicates({ joint: episodes, linear: s.comparator.episodes, ids: s.episodes.ids, hiddenRidge: 1e-3 },
         { startRows: rows, linearStartRows, startsFollowEpisodes: true, level: 0.9, resamples: 100, seed: 3 }, { network: jb, linear: jb });
       expect(r.failed).toBe(0);
