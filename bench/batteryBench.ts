@@ -20,7 +20,7 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
-import { COMPARATOR_DEGREE } from '../src/core/fqe/networkComparator';
+import { COMPARATOR_DEGREE } from '../src/core/fqe/comparatorDegree';
 import { NetworkDivergedError } from '../src/core/fqe/networkErrors';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
 import { createGaussianPolicy } from '../src/core/policy';

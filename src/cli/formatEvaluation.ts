@@ -1,5 +1,5 @@
 /** The readable table `evaluate` prints by default. */
-import { COMPARATOR_DEGREE } from '../core/fqe/networkComparator';
+import { COMPARATOR_DEGREE } from '../core/fqe/comparatorDegree';
 import { truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';

@@ -20,7 +20,7 @@
  *   agree         otherwise.
  */
 
-import { COMPARATOR_DEGREE, comparatorName } from './networkComparator';
+import { COMPARATOR_DEGREE, comparatorName } from './comparatorDegree';
 
 /**
  * A difference below this share of |J| is immaterial for a decision: under the 3 % accuracy the

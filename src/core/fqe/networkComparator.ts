@@ -25,18 +25,11 @@
 import type { ActionQuadrature } from '../actionQuadrature';
 import { createFeatureMap, type FeatureMap } from '../features/featureMap';
 import { polynomialFeatureSpec, leadsPolynomial } from '../features/polynomialFeatures';
-import { DEFAULT_POLYNOMIAL_DEGREE } from '../limits';
 import type { TransitionSet } from '../transitions';
 import { lastLayerStride, linearPartSums, type LastLayerSums } from './networkLastLayerSums';
 import { createLinearPart, type LinearPart } from './networkLinearPart';
+import { COMPARATOR_DEGREE } from './comparatorDegree';
 
-/** Degree of the comparator's polynomial features: the linear approximator's default (one source). */
-export const COMPARATOR_DEGREE = DEFAULT_POLYNOMIAL_DEGREE;
-
-/** The comparator's name in the user's words, from its degree. */
-export function comparatorName(degree = COMPARATOR_DEGREE): string {
-  return degree === 2 ? 'linear (quadratic)' : `linear (degree-${degree} polynomial)`;
-}
 
 export interface Comparator {
   readonly features: FeatureMap; // d2

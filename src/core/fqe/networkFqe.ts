@@ -33,7 +33,7 @@ import type { ConvergenceRule } from './networkConvergence';
 import { createFitSession } from './networkFitSession';
 import { checkNetworkFqeInput } from './networkFqeInput';
 import { runOuterIterations } from './networkIterations';
-import { COMPARATOR_DEGREE } from './networkComparator';
+import { COMPARATOR_DEGREE } from './comparatorDegree';
 import { solveLastLayer } from './networkLastLayer';
 import { defaultNetworkMethod, type NetworkMethod } from './networkMethod';
 import { finishNetworkFit } from './networkFitResult';

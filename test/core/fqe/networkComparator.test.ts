@@ -22,7 +22,8 @@ import { startStateFeatures, meanStartFeatures } from '../../../src/core/feature
 import { fitStateActionStandardiser } from '../../../src/core/features/standardiser';
 import { approximatorAgreement } from '../../../src/core/fqe/approximatorAgreement';
 import { fitLinearFqe } from '../../../src/core/fqe/linearFqe';
-import { COMPARATOR_DEGREE, createComparator, leadingBlock } from '../../../src/core/fqe/networkComparator';
+import { COMPARATOR_DEGREE } from '../../../src/core/fqe/comparatorDegree';
+import { createComparator, leadingBlock } from '../../../src/core/fqe/networkComparator';
 import { fitNetworkFqe } from '../../../src/core/fqe/networkFqe';
 import { LINEAR_PART_RIDGE } from '../../../src/core/fqe/networkLastLayer';
 import { linearPartSums } from '../../../src/core/fqe/networkLastLayerSums';

@@ -6,7 +6,7 @@
  * interval in its tooltip).
  */
 import { useMemo } from 'react';
-import { COMPARATOR_DEGREE } from '../../../../core/fqe/networkComparator';
+import { COMPARATOR_DEGREE } from '../../../../core/fqe/comparatorDegree';
 import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessment';
 import { PolicyValueChart } from '../../plots';
 import type { Evaluation } from '../../../../pipeline/estimates';
