@@ -81,6 +81,12 @@ export function severityBelow(value: number, limits: Limits): SeverityLevel | nu
 }
 
 const fixed = (v: number, digits: number): string => (Math.abs(v) >= 1e4 ? v.toPrecision(3) : v.toFixed(digits));
+/**
+ * Three significant digits, fixed notation: the coverage panel's own sentence writes the same shift
+ * this way (plainNumber(v, 3) in figures/parts/uncertainNumber.ts, which core may not import), so a
+ * warning and the sentence beside it read alike ("3790", not "3787.4" above "3790").
+ */
+const threeDigits = (v: number): string => String(Number(v.toPrecision(3)));
 const percent = (share: number): string => `${fixed(100 * share, share < 0.1 ? 1 : 0)} %`;
 
 /** The rule in words, for the method section, glossary and help. */
@@ -107,11 +113,11 @@ export function occupancyShiftFinding(shift: number, loggedShift: number | null)
   const severity = occupancyShiftSeverity(shift, loggedShift);
   if (!severity) return null;
   const reference = shiftReference(loggedShift), ratio = shift / reference;
-  const own = loggedShift === null ? '' : ` (the present controller: ${fixed(loggedShift, 2)})`;
+  const own = loggedShift === null ? '' : ` (the present controller: ${threeDigits(loggedShift)})`;
   const limit = (severity === 'serious' ? OCCUPANCY_SHIFT_LIMITS.serious : OCCUPANCY_SHIFT_LIMITS.caution) * reference;
   return {
     severity, topic: 'occupancyShift',
-    message: `Occupancy shift ${fixed(shift, 1)}${own}, above the ${severity} limit ${fixed(limit, limit < 100 ? 1 : 0)}: the candidate would spend its time where the logs are thin, ` +
+    message: `Occupancy shift ${threeDigits(shift)}${own}, above the ${severity} limit ${fixed(limit, limit < 100 ? 1 : 0)}: the candidate would spend its time where the logs are thin, ` +
       `so its estimate carries about ${fixed(Math.sqrt(ratio), 1)} times the error of the present controller's and leans on extrapolating the fitted model.`,
   };
 }

@@ -1,4 +1,5 @@
 /** One severity rule, one text: every number a user reads comes from the constants the code applies. */
+import { plainNumber } from '../../../src/figures/parts/uncertainNumber';
 import { describe, expect, it } from 'vitest';
 import {
   ACTION_SUPPORT_LIMITS, actionSupportFinding, actionSupportRuleText, EFFECTIVE_SHARE_LIMITS, effectiveShareFinding, effectiveShareRuleText,
@@ -29,8 +30,12 @@ describe('severity', () => {
     expect(occupancyShiftFinding(1.6, 1.0)).toBeNull();
     const caution = occupancyShiftFinding(6, 1.02)!;
     expect(caution.severity).toBe('caution');
-    expect(caution.message).toMatch(/^Occupancy shift 6\.0 \(the present controller: 1\.02\), above the caution limit 4\.1: .* about 2\.4 times/);
+    expect(caution.message).toMatch(/^Occupancy shift 6 \(the present controller: 1\.02\), above the caution limit 4\.1: .* about 2\.4 times/);
     expect(occupancyShiftFinding(97, null)!.message).toMatch(/above the serious limit 10/);
+    // The shift and the present controller's level at three significant digits, as the coverage sentence beside the warning writes them
+    // (plainNumber(v, 3)): the two-valve screen review showed "3787.4 (the present controller: 28.32)" above "3790 … (28.3)".
+    expect(occupancyShiftFinding(3787.4, 28.32)!.message).toMatch(/^Occupancy shift 3790 \(the present controller: 28\.3\), above the serious limit 283:/);
+    for (const v of [1.234, 17.55, 283.2, 3787.4, 1.5e6]) expect(occupancyShiftFinding(1e9, v)!.message).toContain(`(the present controller: ${plainNumber(v, 3)})`);
     // Read against the present controller's own level when it is above 1 (runs that start away from where they spend their time).
     expect(occupancyShiftFinding(6, 3)).toBeNull();
     expect(occupancyShiftFinding(40, 3)).toMatchObject({ severity: 'serious', message: expect.stringMatching(/above the serious limit 30/) });
