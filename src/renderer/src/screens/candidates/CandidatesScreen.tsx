@@ -74,7 +74,7 @@ export function CandidatesScreen(props: { onNext: () => void }) {
           )}
         </>
       )}
-      <button className="primary" onClick={props.onNext} disabled={doc.candidates.length === 0} data-testid="next-estimator">Next: estimator</button>
+      <button className="primary" onClick={props.onNext} disabled={doc.candidates.length === 0} data-testid="next-estimator">Next: method</button>
     </>
   );
 }
