@@ -51,6 +51,8 @@ describe('candidate chart lines', () => {
     expect(Math.max(...props.present!.y)).toBeLessThanOrEqual(100);
     expect(props.present!.y[0]).toBeCloseTo(100, 6); // μ = 200 %, ten dithers above the limit
     expect(props.present!.y.at(-1)).toBeCloseTo(0, 6); // μ = 0 %: no lower limit seen, the plain mean
+    // The note above the plot on two lines, not one line Chart.js squeezes to the panel's width.
+    expect(props.subtitle).toEqual(['mean action', 'the other states held at their logged means']);
   });
 
   it('pairs each logged state with its action', () => {

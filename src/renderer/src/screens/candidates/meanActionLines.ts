@@ -84,6 +84,6 @@ export function candidateActionsProps(doc: ProjectDocument, imported: DataImport
     candidates, present, limits: limits && { lo: limits.lo, hi: limits.hi },
     xLabel: withUnit(doc.columns.states[axis]?.column ?? '', doc.columns.states[axis]?.unit),
     yLabel: withUnit(doc.columns.actions[action]?.column ?? '', unit),
-    title: '', subtitle: [limitWords, others].filter(Boolean).join('; '), theme,
+    title: '', subtitle: [limitWords, others].filter(Boolean), theme,
   };
 }
