@@ -84,7 +84,8 @@ const fixed = (v: number, digits: number): string => (Math.abs(v) >= 1e4 ? v.toP
 /**
  * Three significant digits, fixed notation: the coverage panel's own sentence writes the same shift
  * this way (plainNumber(v, 3) in figures/parts/uncertainNumber.ts, which core may not import), so a
- * warning and the sentence beside it read alike ("3790", not "3787.4" above "3790").
+ * warning and the sentence beside it read alike ("3790", not "3787.4" above "3790"); so do the
+ * effective runs of the importance weights ("1 of 12" in the table, not "1.0 of 12" in the warning).
  */
 const threeDigits = (v: number): string => String(Number(v.toPrecision(3)));
 const percent = (share: number): string => `${fixed(100 * share, share < 0.1 ? 1 : 0)} %`;
@@ -133,7 +134,7 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
-    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
+    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${threeDigits(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
       `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): ` +
       'the importance-sampling cross-checks rest on a few runs.',
   };

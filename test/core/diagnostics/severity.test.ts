@@ -35,12 +35,13 @@ describe('severity', () => {
     // The shift and the present controller's level at three significant digits, as the coverage sentence beside the warning writes them
     // (plainNumber(v, 3)): the two-valve screen review showed "3787.4 (the present controller: 28.32)" above "3790 … (28.3)".
     expect(occupancyShiftFinding(3787.4, 28.32)!.message).toMatch(/^Occupancy shift 3790 \(the present controller: 28\.3\), above the serious limit 283:/);
+    expect(effectiveShareFinding(3.4512, 40, 33)!.message).toContain(`effective size ${plainNumber(3.4512, 3)} of 40 runs`); // as the coverage sentence and the report's table
     for (const v of [1.234, 17.55, 283.2, 3787.4, 1.5e6]) expect(occupancyShiftFinding(1e9, v)!.message).toContain(`(the present controller: ${plainNumber(v, 3)})`);
     // Read against the present controller's own level when it is above 1 (runs that start away from where they spend their time).
     expect(occupancyShiftFinding(6, 3)).toBeNull();
     expect(occupancyShiftFinding(40, 3)).toMatchObject({ severity: 'serious', message: expect.stringMatching(/above the serious limit 30/) });
     expect(effectiveShareFinding(2, 300, 33)).toMatchObject({ severity: 'serious', topic: 'importanceWeights' });
-    expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20\.0 of 300 runs \(below 10 %\)/);
+    expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20 of 300 runs \(below 10 %\)/);
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/the importance-sampling cross-checks rest on a few runs/);
     expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the present controller itself: 2\.0 %\)/);
   });
