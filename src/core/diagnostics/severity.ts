@@ -136,7 +136,10 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
     severity, topic: 'importanceWeights',
     message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${threeDigits(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
       `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): ` +
-      'the importance-sampling cross-checks rest on a few runs.',
+      // With no weight at all the checks are not applied (crossCheckVerdict: "not applicable"), so "a few runs" would contradict them.
+      (effectiveEpisodes >= 1 ? 'the importance-sampling cross-checks rest on a few runs.'
+        : effectiveEpisodes > 0 ? 'the importance-sampling cross-checks rest on less than one run.'
+          : 'no logged run speaks for the candidate there, so the importance-sampling cross-checks cannot be applied.'),
   };
 }
 

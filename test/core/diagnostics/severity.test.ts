@@ -35,6 +35,10 @@ describe('severity', () => {
     // The shift and the present controller's level at three significant digits, as the coverage sentence beside the warning writes them
     // (plainNumber(v, 3)): the two-valve screen review showed "3787.4 (the present controller: 28.32)" above "3790 … (28.3)".
     expect(occupancyShiftFinding(3787.4, 28.32)!.message).toMatch(/^Occupancy shift 3790 \(the present controller: 28\.3\), above the serious limit 283:/);
+    // Where every weight is zero the checks are not applied: the warning says so rather than "rest on a few runs" (heating-loop sample, rate-limited PI).
+    expect(effectiveShareFinding(0, 40, 20)!.message).toMatch(/no run's worth of weight .* cannot be applied\.$/);
+    expect(effectiveShareFinding(0, 40, 20)!.message).not.toContain('a few runs');
+    expect(effectiveShareFinding(0.04, 40, 20)!.message).toMatch(/rest on less than one run\.$/);
     expect(effectiveShareFinding(3.4512, 40, 33)!.message).toContain(`effective size ${plainNumber(3.4512, 3)} of 40 runs`); // as the coverage sentence and the report's table
     for (const v of [1.234, 17.55, 283.2, 3787.4, 1.5e6]) expect(occupancyShiftFinding(1e9, v)!.message).toContain(`(the present controller: ${plainNumber(v, 3)})`);
     // Read against the present controller's own level when it is above 1 (runs that start away from where they spend their time).
