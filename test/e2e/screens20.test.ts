@@ -24,7 +24,9 @@ const STEPS = ['plant-log', 'candidates', 'estimator', 'run', 'findings'] as con
 const FIGURES = ['comparison', 'surface', 'slice', 'convergence', 'sensitivity', 'retuneMap'] as const;
 
 async function shoot(page: Page, name: string): Promise<void> {
-  await page.waitForFunction(() => [...document.querySelectorAll('figure[data-chart-state]')].every((f) => f.getAttribute('data-chart-state') !== 'waiting'), null, { timeout: 30_000 }).catch(() => undefined);
+  // Charts are drawn by a worker, and a slice or surface is computed first ("Computing the slice…"): wait for both (a while, without failing).
+  await page.waitForFunction(() => document.querySelectorAll('.plot-placeholder').length === 0
+    && [...document.querySelectorAll('figure[data-chart-state]')].every((f) => f.getAttribute('data-chart-state') !== 'waiting'), null, { timeout: 30_000 }).catch(() => undefined);
   await page.screenshot({ path: join(SHOTS, `${name}.png`), fullPage: true, style: UNSTICK });
 }
 
@@ -115,7 +117,14 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
         }
         await page.getByTestId('open-help').click();
         await page.getByTestId('glossary').waitFor();
-        await shoot(page, `${c.id}-${size.width}-${theme}-help`);
+        // The help is a panel over the window that scrolls on its own: the window, then the panel page by page.
+        await page.evaluate(() => scrollTo(0, 0));
+        const panel = page.getByTestId('help-panel');
+        const pages = await panel.evaluate((p) => Math.min(8, Math.ceil(p.scrollHeight / p.clientHeight)));
+        for (let i = 0; i < pages; i++) {
+          await panel.evaluate((p, k) => { p.scrollTop = k * p.clientHeight; }, i);
+          await page.screenshot({ path: join(SHOTS, `${c.id}-${size.width}-${theme}-help-${i + 1}.png`) });
+        }
         await page.getByTestId('close-help').click();
       }
     }
