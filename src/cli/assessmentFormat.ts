@@ -7,8 +7,8 @@ import { textTable as table } from './textTable';
 import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
 
 const percent = (share: number | null): string => (share === null ? '—' : `${(100 * share).toFixed(1)} %`);
-/** A value at the precision of the interval it is read with. */
-const inInterval = (value: number | null, iv: [number, number] | null): string => `${atDecimals(value, rowDecimals(iv))} ${interval(iv)}`;
+/** A value at the precision of the interval it is read with; without one (the model rollouts), at `precision`'s (the candidate's J interval), as the app and the report write it. */
+const inInterval = (value: number | null, iv: [number, number] | null, precision: [number, number] | null = null): string => `${atDecimals(value, rowDecimals(iv ?? precision))} ${interval(iv)}`;
 
 /** A row's J and s.e. at the decimal place of its percentile interval (else of its s.e.); each interval at its own. */
 function estimateRow(name: string, e: IntervalEstimate): string[] {
@@ -33,7 +33,7 @@ export function formatAssessment(a: Assessment): string {
   const named = [...a.candidates, ...(pc ? [{ ...pc, functionClasses: null }] : [])];
   const checks = named.flatMap((c) => [
     `  ${policyLabel(c.name)}: ${c.confirmation.text}`,
-    ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? inInterval(x.estimate.value, x.estimate.percentile) : '—'} — ${x.note}`),
+    ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? inInterval(x.estimate.value, x.estimate.percentile, c.policyValue.percentile) : '—'} — ${x.note}`),
   ]);
   const classes = a.candidates.flatMap((c) => (c.functionClasses ? [
     `  ${c.name}: ${c.functionClasses.reason}`,

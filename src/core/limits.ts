@@ -165,3 +165,10 @@ export const PLANT_MEMORY_LAGS = 8;
 export const PLANT_MEMORY_ROWS = 20_000;
 /** Largest monomial count of the plant-memory check's base regression (pipeline/plantMemoryCheck.ts memoryBaseDegree; ours, the rollout model's own cap). */
 export const PLANT_MEMORY_BASE_MONOMIALS = 120;
+
+/**
+ * The smallest share (of action probability, of weights) written as a number: 0.01 %. A positive
+ * share below it is written "below 0.01 %" — "5.74e−6 %" told the engineer nothing more (a display
+ * choice, from the screen review).
+ */
+export const SMALLEST_SHARE_SHOWN = 1e-4;

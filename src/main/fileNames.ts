@@ -4,6 +4,7 @@
  * extension, so it is added here.
  */
 import type { ExportKind } from '../shared/appApi';
+import { fileNameText } from '../shared/fileNameText';
 
 export const PROJECT_EXTENSION = '.spcritic';
 
@@ -16,8 +17,6 @@ export function withExtension(path: string, extension: string): string {
 
 /** A name for a save dialog: characters file systems refuse replaced, never empty. */
 export function suggestedFileName(name: string, extension: string, fallback = 'Untitled project'): string {
-  // Windows forbids <>:"/\|?* and control characters in names (Microsoft, "Naming Files, Paths,
-  // and Namespaces"); POSIX forbids only / and NUL — the stricter set keeps projects portable.
-  const cleaned = name.replace(/[<>:"/\\|?*\u0000-\u001f]/g, '-').replace(/^[\s.]+|[\s.]+$/g, '');
+  const cleaned = fileNameText(name); // the characters Windows refuses, as in the renderer's suggested names
   return withExtension(cleaned === '' ? fallback : cleaned, extension);
 }

@@ -82,6 +82,13 @@ export function severityBelow(value: number, limits: Limits): SeverityLevel | nu
 
 /** `digits` places below 10,000; whole numbers from there (toPrecision would write "3.62e+4" for a shift of 36,180). */
 const fixed = (v: number, digits: number): string => (Math.abs(v) >= 1e4 ? Math.round(v).toFixed(0) : v.toFixed(digits));
+/**
+ * Three significant digits, fixed notation: the coverage panel's own sentence writes the same shift
+ * this way (plainNumber(v, 3) in figures/parts/uncertainNumber.ts, which core may not import), so a
+ * warning and the sentence beside it read alike ("3790", not "3787.4" above "3790"); so do the
+ * effective runs of the importance weights ("1 of 12" in the table, not "1.0 of 12" in the warning).
+ */
+const threeDigits = (v: number): string => String(Number(v.toPrecision(3)));
 const percent = (share: number): string => `${fixed(100 * share, share < 0.1 ? 1 : 0)} %`;
 
 /** The rule in words, for the method section, glossary and help. */
@@ -108,11 +115,11 @@ export function occupancyShiftFinding(shift: number, loggedShift: number | null)
   const severity = occupancyShiftSeverity(shift, loggedShift);
   if (!severity) return null;
   const reference = shiftReference(loggedShift), ratio = shift / reference;
-  const own = loggedShift === null ? '' : ` (the present controller: ${fixed(loggedShift, 2)})`;
+  const own = loggedShift === null ? '' : ` (the present controller: ${threeDigits(loggedShift)})`;
   const limit = (severity === 'serious' ? OCCUPANCY_SHIFT_LIMITS.serious : OCCUPANCY_SHIFT_LIMITS.caution) * reference;
   return {
     severity, topic: 'occupancyShift',
-    message: `Occupancy shift ${fixed(shift, 1)}${own}, above the ${severity} limit ${fixed(limit, limit < 100 ? 1 : 0)}: the candidate would spend its time where the logs are thin, ` +
+    message: `Occupancy shift ${threeDigits(shift)}${own}, above the ${severity} limit ${fixed(limit, limit < 100 ? 1 : 0)}: the candidate would spend its time where the logs are thin, ` +
       `so its estimate carries about ${fixed(Math.sqrt(ratio), 1)} times the error of the present controller's and leans on extrapolating the fitted model.`,
   };
 }
@@ -128,9 +135,12 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
-    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${fixed(effectiveEpisodes, 1)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
+    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${threeDigits(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
       `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): ` +
-      'the importance-sampling cross-checks rest on a few runs.',
+      // With no weight at all the checks are not applied (crossCheckVerdict: "not applicable"), so "a few runs" would contradict them.
+      (effectiveEpisodes >= 1 ? 'the importance-sampling cross-checks rest on a few runs.'
+        : effectiveEpisodes > 0 ? 'the importance-sampling cross-checks rest on less than one run.'
+          : 'no logged run speaks for the candidate there, so the importance-sampling cross-checks cannot be applied.'),
   };
 }
 

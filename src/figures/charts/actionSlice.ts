@@ -46,8 +46,8 @@ export interface ActionSlicePlotProps {
   loggedRange?: readonly [number, number];
   /** The candidate's mean action at this state: a dotted line. */
   meanAction?: number;
-  /** The line under the title; default "<policy> at state (…)". */
-  subtitle?: string;
+  /** The line(s) under the title; default "<policy> at state (…)". */
+  subtitle?: string | readonly string[];
 }
 
 export class ActionSliceShapeError extends Error {

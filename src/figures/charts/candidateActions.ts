@@ -34,7 +34,8 @@ export interface CandidateActionsPlotProps {
   xLabel: string;
   yLabel: string;
   title: string;
-  subtitle?: string;
+  /** One line, or one entry per line (the limits, then what the other states are held at: one line squeezed its type in a half-width panel). */
+  subtitle?: string | readonly string[];
   theme: Theme;
 }
 

@@ -39,13 +39,25 @@ export function intervalChartHeight(rows: number): number {
   return INTERVAL_CHART_DEFAULTS.baseHeightPx + INTERVAL_CHART_DEFAULTS.rowHeightPx * rows;
 }
 
+/**
+ * The interval whose decimals a value is written at: its own row's, else the first row's that has
+ * one (a check without an interval, the model rollouts, beside J's), and for the present
+ * controller's line its own row's — so one chart writes one precision ("6.40", not "6.399" in the
+ * key over a row "6.40", or "5.737" among "5.63").
+ */
+function precisionOf(props: IntervalChartProps, value: number, own?: readonly [number, number] | null): readonly [number, number] | null {
+  if (own) return own;
+  const same = props.rows.find((r) => r.present && r.value === value && r.interval);
+  return same?.interval ?? props.rows.find((r) => r.interval)?.interval ?? null;
+}
+
 export function intervalChart(props: IntervalChartProps, look: PlotLook): ChartConfiguration<'scatter', XY[]> {
   const p = look.palette, s = look.scale, d = INTERVAL_CHART_DEFAULTS, n = props.rows.length;
   const colour = (i: number) => (props.rows[i].present ? p.reference : p.series[i % p.series.length]);
   const ends = props.rows.flatMap((r) => [r.value, ...(r.interval ?? [])]).concat(props.reference === undefined ? [] : [props.reference]);
   const lo = Math.min(...ends), hi = Math.max(...ends), pad = (hi - lo) * 0.06 || Math.abs(hi) * 0.05 || 1;
   const shared = sharedOptions(look, props.title, props.subtitle ?? null);
-  const keys = props.reference === undefined ? [] : [{ label: `${PRESENT_CONTROLLER}: ${formatValue(props.reference)}`, kind: 'line' as const, colour: p.reference, dash: PRESENT_DASH_PX, lineWidthPx: 1.6 }];
+  const keys = props.reference === undefined ? [] : [{ label: `${PRESENT_CONTROLLER}: ${formatValueInInterval(props.reference, precisionOf(props, props.reference))}`, kind: 'line' as const, colour: p.reference, dash: PRESENT_DASH_PX, lineWidthPx: 1.6 }];
   return {
     type: 'scatter',
     data: {
@@ -123,7 +135,7 @@ function intervalBars(props: IntervalChartProps, colour: (i: number) => string, 
         ctx.font = fontString(look, PLOT_FONTS.tickPx);
         ctx.textAlign = 'left';
         ctx.textBaseline = 'middle';
-        ctx.fillText(formatValueInInterval(r.value, r.interval), a.right + d.labelGapPx * s, y);
+        ctx.fillText(formatValueInInterval(r.value, precisionOf(props, r.value, r.interval)), a.right + d.labelGapPx * s, y);
       });
       ctx.restore();
     },

@@ -9,7 +9,8 @@ import { font, PLOT_FONTS, type PlotLook } from './plotLook';
 
 export const CHART_STYLE_DEFAULTS = { paddingPx: 10, titleGapPx: 6, legendBoxPx: 18, legendGapPx: 12, tooltipPaddingPx: 8 } as const;
 
-export function sharedOptions(look: PlotLook, title: string, subtitle: string | null): ChartOptions {
+/** subtitle: one line, or several (Chart.js squeezes a line wider than the plot rather than wrapping it). */
+export function sharedOptions(look: PlotLook, title: string, subtitle: string | readonly string[] | null): ChartOptions {
   const p = look.palette, s = look.scale, d = CHART_STYLE_DEFAULTS;
   return {
     responsive: look.interactive,
@@ -25,7 +26,7 @@ export function sharedOptions(look: PlotLook, title: string, subtitle: string | 
         padding: { top: 0, bottom: (subtitle ? 2 : d.titleGapPx) * s },
       },
       subtitle: {
-        display: subtitle !== null, text: subtitle ?? '', color: p.mutedText, font: font(look, PLOT_FONTS.subtitlePx),
+        display: subtitle !== null, text: typeof subtitle === 'string' || subtitle === null ? subtitle ?? '' : [...subtitle], color: p.mutedText, font: font(look, PLOT_FONTS.subtitlePx),
         padding: { top: 0, bottom: d.titleGapPx * s },
       },
       // Our own legend box (legendBox.ts) draws keys that match the series; Chart.js's stays off.

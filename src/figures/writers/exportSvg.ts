@@ -6,6 +6,7 @@
  *
  * Every plot kind can be written today; null stays in the signature for kinds that could not be.
  */
+import { withRecordingPath2D } from './svgPath2D';
 import { drawCaption } from './captionLayout';
 import { exportPlan } from './exportPlan';
 import { drawChartOnce } from './drawChart';
@@ -17,8 +18,7 @@ import { defaultTextMeasure } from './textMeasure';
 export function exportPlotSvg(spec: PlotSpec, options: ExportOptions, measure: TextMeasure = defaultTextMeasure()): string | null {
   const plan = exportPlan(spec, options, measure);
   const ctx = new SvgContext(plan.widthPx, plan.plotHeightPx, measure);
-  const chart = drawChartOnce(ctx.canvas, spec, plan.look);
-  chart.destroy();
+  withRecordingPath2D(() => drawChartOnce(ctx.canvas, spec, plan.look).destroy());
   drawCaption(ctx as unknown as CanvasRenderingContext2D, plan.caption, plan.plotHeightPx, plan.look);
   const background = options.background === 'white' ? `<rect${attributes({ x: 0, y: 0, width: plan.widthPx, height: plan.heightPx, fill: '#ffffff' })}/>` : '';
   const title = plotTitle(spec), description = `${plotSummary(spec)} ${plan.caption.lines.join(' ')}`;

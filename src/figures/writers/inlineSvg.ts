@@ -10,6 +10,7 @@ import type { PlotLook } from '../parts/plotLook';
 import { drawConfigOnce } from './drawChart';
 import { METRIC_FONT_FAMILY, metricTextMeasure } from './fontMetrics';
 import { SvgContext, type TextMeasure } from './svgContext';
+import { withRecordingPath2D } from './svgPath2D';
 import { attributes, escapeXml } from './svgMarkup';
 
 export interface InlineSvgOptions {
@@ -31,7 +32,7 @@ export function documentLook(theme: Theme = 'light'): PlotLook {
 export function inlineSvg(make: (look: PlotLook) => ChartConfiguration, options: InlineSvgOptions): string {
   const look = documentLook(options.theme);
   const ctx = new SvgContext(options.widthPx, options.heightPx, options.measure ?? metricTextMeasure, `${options.id}-`);
-  drawConfigOnce(ctx.canvas, make(look)).destroy();
+  withRecordingPath2D(() => drawConfigOnce(ctx.canvas, make(look)).destroy());
   return `<svg${attributes({
     xmlns: 'http://www.w3.org/2000/svg', viewBox: `0 0 ${options.widthPx} ${options.heightPx}`, width: options.widthPx, height: options.heightPx,
     role: 'img', 'aria-label': options.label, id: options.id,

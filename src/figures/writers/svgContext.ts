@@ -13,6 +13,7 @@ import { bytesToBase64 } from './base64';
 import { encodePng } from './pngEncoder';
 import { IDENTITY, lengthScale, multiply, RecordedPath, type Matrix } from './svgPath';
 import { attributes, escapeXml, parseFont, parsePaint, svgNumber } from './svgMarkup';
+import { RecordingPath2D } from './svgPath2D';
 
 export class SvgContextError extends Error {
   constructor(message: string) {
@@ -130,8 +131,24 @@ export class SvgContext implements RasterDrawingContext {
   arc(x: number, y: number, r: number, start: number, end: number, ccw?: boolean): void {
     this.path.arc(this.state.matrix, x, y, r, start, end, ccw);
   }
-  fill(rule?: CanvasFillRule): void { this.emitFill(this.path, rule); }
-  stroke(): void { this.emitStroke(this.path); }
+  // Each takes a Path2D first, as a canvas does (Chart.js strokes its lines that way in a browser: svgPath2D.ts).
+  fill(pathOrRule?: RecordingPath2D | CanvasFillRule, rule?: CanvasFillRule): void {
+    if (pathOrRule instanceof RecordingPath2D) return this.emitFill(this.replayed(pathOrRule), rule);
+    this.emitFill(this.path, pathOrRule);
+  }
+  stroke(path?: RecordingPath2D): void {
+    if (path !== undefined && !(path instanceof RecordingPath2D)) throw new SvgContextError('SVG export: stroke(path) needs the recording Path2D (draw inside withRecordingPath2D)');
+    this.emitStroke(path ? this.replayed(path) : this.path);
+  }
+  /** A Path2D as a RecordedPath under the current transform, leaving the context's own path as it was. */
+  private replayed(path: RecordingPath2D): RecordedPath {
+    const own = this.path;
+    this.path = new RecordedPath();
+    path.replay(this);
+    const result = this.path;
+    this.path = own;
+    return result;
+  }
   clip(rule?: CanvasFillRule): void {
     const id = `${this.idPrefix}clip${this.nextId++}`;
     const parent = this.state.clipId ? `url(#${this.state.clipId})` : null;

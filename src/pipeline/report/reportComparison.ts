@@ -50,8 +50,9 @@ function resampleShare(share: number | null): string {
 }
 
 /** J, its bootstrap s.e. (two significant digits) and its two intervals, each at the precision its interval carries. */
-export function estimateCells(e: IntervalEstimate): Html {
-  return html`<td class="num">${valueAtPrecision(e.value, e.percentile)}</td><td class="num">${formatNumber(e.standardError, 2)}</td>
+/** J, s.e. and both intervals; a value without an interval (the model rollouts) at the decimals of `precision` (the candidate's J interval) where given. */
+export function estimateCells(e: IntervalEstimate, precision: readonly [number, number] | null = null): Html {
+  return html`<td class="num">${valueAtPrecision(e.value, e.percentile ?? precision)}</td><td class="num">${formatNumber(e.standardError, 2)}</td>
     <td class="num">${intervalAtPrecision(e.percentile)}</td><td class="num">${intervalAtPrecision(e.basic)}</td>`;
 }
 

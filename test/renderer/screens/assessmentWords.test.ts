@@ -16,6 +16,11 @@ describe('assessment words', () => {
     expect(levelText(0.9)).toBe('90 %');
     expect(shareText(0.475)).toBe('47.5 %');
     expect(shareText(null)).toBe('—');
+    // No exponent for a share too small to matter (heating-loop sample: "5.74e−6 %" of action probability).
+    expect(shareText(5.74e-8)).toBe('below 0.01 %');
+    expect(shareText(1.93e-5)).toBe('below 0.01 %');
+    expect(shareText(0.000193)).toBe('0.0193 %');
+    expect(shareText(0)).toBe('0 %');
   });
 
   it('writes a value at its interval’s precision (one precision for numbers read together, JCGM 100 §7.2.2, common practice)', () => {

@@ -4,7 +4,7 @@
  * the logged spread or the behaviour model's rounded coefficients.
  */
 import { describe, expect, it } from 'vitest';
-import { loggedCurve } from '../../../src/renderer/src/screens/candidates/meanActionLines';
+import { candidateActionsProps, loggedCurve } from '../../../src/renderer/src/screens/candidates/meanActionLines';
 import { meanActionCurve } from '../../../src/figures/parts/meanActionCurve';
 import { normalDensity } from '../../../src/core/normalDistribution';
 import { candidateFromBehaviour, plainCandidate, roundSignificant, uniqueName } from '../../../src/renderer/src/screens/candidates/candidateDrafts';
@@ -37,6 +37,22 @@ describe('candidate chart lines', () => {
     expect(line.y[1]).toBeCloseTo(50, 8);
     expect(line.y[2]).toBeCloseTo(100 - 10 * normalDensity(0), 10);
     expect(Math.max(...line.y)).toBeLessThanOrEqual(100);
+  });
+
+  it('draws the present controller’s model within the limits the log shows, as the model clips there (it ran past 100 % on the heating-loop sample)', () => {
+    // Fitted μ = 300 − 100·u: 200 % at u = 1 unclipped; the log shows the valve at 100 %, so the model's mean stays at or below 100 (Tobit mean, as above).
+    const model = { offset: [300], gain: [[-100, 0]], std: [10], bounds: { lo: [-Infinity], hi: [100], mode: 'clip' as const } };
+    const imported = {
+      stateRanges: [[1, 3], [0, 1]], stateMeans: [2, 0.5], stateNames: ['u', 'l'], actionNames: ['v'],
+      sample: { count: 0, states: new Float64Array(0), actions: new Float64Array(0) },
+      behaviour: { ok: true, model },
+    } as never;
+    const props = candidateActionsProps(doc(), imported, 0, 0, 'light' as never);
+    expect(Math.max(...props.present!.y)).toBeLessThanOrEqual(100);
+    expect(props.present!.y[0]).toBeCloseTo(100, 6); // μ = 200 %, ten dithers above the limit
+    expect(props.present!.y.at(-1)).toBeCloseTo(0, 6); // μ = 0 %: no lower limit seen, the plain mean
+    // The note above the plot on two lines, not one line Chart.js squeezes to the panel's width.
+    expect(props.subtitle).toEqual(['mean action', 'the other states held at their logged means']);
   });
 
   it('pairs each logged state with its action', () => {

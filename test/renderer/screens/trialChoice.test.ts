@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { Assessment, CandidateAssessment, IntervalEstimate, PairedDifference } from '../../../src/pipeline/assessment';
-import { trialChoice, whollyBetter } from '../../../src/renderer/src/screens/findings/trialChoice';
+import { logCautionsText, trialChoice, whollyBetter } from '../../../src/renderer/src/screens/findings/trialChoice';
 
 const BASE = 'present controller';
 const estimate = (value: number, lo: number, hi: number): IntervalEstimate =>
@@ -61,5 +61,14 @@ describe('which candidate to trial', () => {
     expect(choice.best?.reasons).toEqual(['the assessment raised a serious warning for the whole log']);
     const caution = assessment('cost', [candidate('A', 5)], [['A', -3, -4, -2]], ['A', BASE], [{ ...memory, severity: 'caution' }]);
     expect(trialChoice(caution).pick?.candidate.name).toBe('A');
+  });
+
+  it('says the cautions on the whole log beside a named trial (the two-valve log: its dithers move together), and nothing where there are none', () => {
+    const caution = { severity: 'caution' as const, topic: 'ditherDependence', message: '' };
+    const a = assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution]);
+    expect(trialChoice(a).pick?.candidate.name).toBe('A'); // a caution does not stop a trial (TRIAL_RULE) …
+    expect(logCautionsText(a)).toBe('The assessment raised a caution on the whole log; read it under Coverage before the trial.'); // … but is said
+    expect(logCautionsText(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution, caution]))).toMatch(/^The assessment raised 2 cautions .* read them/);
+    expect(logCautionsText(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE]))).toBeNull();
   });
 });

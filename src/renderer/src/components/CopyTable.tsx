@@ -6,6 +6,7 @@
 import { useState } from 'react';
 import { tableCells, toCsv, toTabSeparated } from './tableText';
 import { useWorkspace } from '../WorkspaceContext';
+import { fileNameText } from '../../../shared/fileNameText';
 
 export function CopyTable({ tableTestId, fileBase }: { tableTestId: string; fileBase: string }) {
   const { api } = useWorkspace();
@@ -26,7 +27,7 @@ export function CopyTable({ tableTestId, fileBase }: { tableTestId: string; file
     setStatus(ok ? 'Copied: paste it into a spreadsheet.' : 'The clipboard is not available here; use Save as CSV.');
   };
   const save = async (): Promise<void> => {
-    const written = await api.exportFile('csv', `${fileBase}.csv`, new TextEncoder().encode(toCsv(cells())));
+    const written = await api.exportFile('csv', fileNameText(`${fileBase}.csv`), new TextEncoder().encode(toCsv(cells())));
     setStatus(written ? `Saved ${written.path}` : '');
   };
   return (

@@ -16,6 +16,7 @@ import { reportInputFrom } from '../../../pipeline/report/reportAssembly';
 import { renderReport } from '../../../pipeline/report/reportDocument';
 import type { AppApi } from '../../../shared/appApi';
 import { runKey } from '../../../shared/runKey';
+import { fileNameText } from '../../../shared/fileNameText';
 import type { DocumentStore } from '../document/documentStore';
 import type { SessionState, SessionStore } from '../session/sessionStore';
 
@@ -50,7 +51,7 @@ export function reportText(documents: DocumentStore, session: SessionStore, now:
     project: doc, projectFile, evaluation: record.evaluation, assessment: assessmentOf(s, record.runKey),
     retuneMaps: mapsOf(s, record.runKey, (doc.retuneMaps ?? []).length > 0), data: s.importState.result, generatedAt: now,
   });
-  return { ok: true, html: renderReport(input), fileBase: `${doc.name}-report` };
+  return { ok: true, html: renderReport(input), fileBase: fileNameText(`${doc.name}-report`) };
 }
 
 /** What happened, in a sentence for the status line; null when the user cancelled. */

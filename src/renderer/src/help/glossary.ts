@@ -35,5 +35,9 @@ export const GLOSSARY: readonly GlossaryEntry[] = [
   { term: 'Occupancy shift', meaning: 'How far the states and actions a candidate would visit (discounted, from the start states) lie from the logged ones, in the fit’s own terms; 1 means like the logs. The estimate’s error grows with its square root.' },
   { term: 'Function classes', meaning: 'The same candidate fitted with polynomial features of several degrees. When they disagree beyond sampling error the estimate is “not settled” and the range spanning them is reported.' },
   { term: 'Effective sample size', meaning: 'How many logged steps or runs the reweighted log is worth for a candidate; few means noisy cross-checks.' },
+  { term: 'Censored fit', aka: 'censored regression, Tobit model', meaning: 'How the present controller is fitted where the log shows an actuator limit: a step at the limit counts as “asked for the limit or beyond”, not as the action itself, so the steps spent saturated do not bend the fitted gains.' },
+  { term: 'Dithers that move together', meaning: 'With several actions, the present controller’s variations on two of them can be correlated (both following one noisy measurement, say). Its model clips each action at its own limits and so takes them as independent; a caution names the pair when the correlation is large and clearly not chance.' },
+  { term: 'Plant memory', meaning: 'Whether earlier rows still explain the next state once the present state and action are known. If they do, the state columns miss part of what the plant remembers, which every estimate here assumes away.' },
+  { term: 'Retune map', meaning: 'J of one candidate over a grid of its settings (proportional gain and integral time), each point a full estimate with its interval, shaded where the logs no longer support it.' },
   { term: 'Unvisited cells', meaning: 'Cells of a value surface with no logged state nearest them: there the value is extrapolated, not measured.' },
 ];

@@ -9,6 +9,7 @@ import { ditherDependenceText } from '../../../../core/ditherDependence';
 import { formatNumber } from '../../format/numberFormat';
 import { valueWithError } from '../../../../figures/parts/uncertainNumber';
 import { loggedLimitText } from '../../../../core/loggedLimitWords';
+import { actionCoefficientUnits, gainUnits } from './behaviourUnits';
 
 export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectDocument; behaviour: BehaviourFit; onStart: () => void }) {
   if (!behaviour.ok) {
@@ -27,10 +28,15 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
     const t = valueWithError(value, se);
     return `${t.value} ± ${t.error}`;
   };
+  // Every coefficient with its unit (the action's; the action's per the state's for a gain), as the candidate editor labels them.
+  const own = actionCoefficientUnits(actions);
   const rows: { label: string; cell: (j: number) => string }[] = [
-    { label: 'Offset', cell: (j) => pm(m.offset[j], m.offsetStandardError[j]) },
-    ...states.map((s, p) => ({ label: `Gain on ${s.column}`, cell: (j: number) => pm(m.gain[j][p], m.gainStandardError[j][p]) })),
-    { label: 'Dither (standard deviation)', cell: (j) => formatNumber(m.std[j]) },
+    { label: `Offset${own.label}`, cell: (j) => `${pm(m.offset[j], m.offsetStandardError[j])}${own.cell(j)}` },
+    ...states.map((s, p) => {
+      const per = gainUnits(actions, s);
+      return { label: `Gain on ${s.column}${per.label}`, cell: (j: number) => `${pm(m.gain[j][p], m.gainStandardError[j][p])}${per.cell(j)}` };
+    }),
+    { label: `Dither, standard deviation${own.label}`, cell: (j) => `${formatNumber(m.std[j])}${own.cell(j)}` },
     { label: 'Share of action variance explained (R²)', cell: (j) => formatNumber(m.rSquared[j], 3) },
     // Each limit with how the log showed it: a repeated extreme, or one value at a bound a candidate declares (core/loggedActionLimits.ts).
     { label: 'Actuator limits read from the log', cell: (j) => loggedLimitText(m.limits.lo[j], m.limits.hi[j], { lo: m.limits.evidence.lo[j], hi: m.limits.evidence.hi[j] }, actions[j]?.unit ?? '', (v) => formatNumber(v)) },

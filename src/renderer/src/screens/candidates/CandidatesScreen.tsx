@@ -66,7 +66,7 @@ export function CandidatesScreen(props: { onNext: () => void }) {
                   )}
                 </div>
                 <CandidateChart doc={doc} imported={imported} axis={Math.min(axis, doc.columns.states.length - 1)} action={Math.min(action, doc.columns.actions.length - 1)} />
-                <p className="small muted">Lines: each candidate’s expected action (within its actuator limits) and the present controller’s (dashed), the other states held at their logged means. Points: an even sample of the logged steps.</p>
+                <p className="small muted">Lines: each candidate’s expected action (within its actuator limits) and the present controller’s model (dashed, within the limits the log shows), the other states held at their logged means. Points: an even sample of the logged steps.</p>
               </section>
               <BehaviourModelPanel doc={doc} behaviour={imported.behaviour}
                 onStart={() => startFromBehaviour(imported.behaviour)} />
@@ -74,7 +74,7 @@ export function CandidatesScreen(props: { onNext: () => void }) {
           )}
         </>
       )}
-      <button className="primary" onClick={props.onNext} disabled={doc.candidates.length === 0} data-testid="next-estimator">Next: estimator</button>
+      <button className="primary" onClick={props.onNext} disabled={doc.candidates.length === 0} data-testid="next-estimator">Next: method</button>
     </>
   );
 }

@@ -6,7 +6,7 @@
  * limits on that action.
  */
 import type { CandidateActionsPlotProps } from '../../../../figures/charts/candidateActions';
-import { actionLimits, meanActionCurve, meanCurve, type Curve } from '../../../../figures/parts/meanActionCurve';
+import { actionLimits, meanActionCurve, meanCurve, type AffineCandidate, type Curve } from '../../../../figures/parts/meanActionCurve';
 import { PolicyError, policyMean, type GaussianPolicy } from '../../../../core/policy';
 import { candidatePolicy, type CandidateColumns } from '../../../../pipeline/candidatePolicy';
 import type { Theme } from '../../../../figures/parts/plotTheme';
@@ -59,6 +59,12 @@ function candidateCurve(
   return meanCurve(meanAt, c.dither[action] ?? 0, actionLimits({ offset: [], gain: [], std: [], bounds: c.bounds }, action), range);
 }
 
+/** The behaviour model's clip (±Infinity where the log shows no limit) as the curve's bounds (null where open). */
+function presentBounds(b: { lo: number[]; hi: number[]; mode: 'clip' }): AffineCandidate['bounds'] {
+  const open = (v: number) => (Number.isFinite(v) ? v : null);
+  return { lo: b.lo.map(open), hi: b.hi.map(open), mode: b.mode };
+}
+
 export function candidateActionsProps(doc: ProjectDocument, imported: DataImport, axis: number, action: number, theme: Theme): CandidateActionsPlotProps {
   const range = imported.stateRanges[axis], held = imported.stateMeans, ds = imported.stateNames.length;
   const columns = { stateNames: doc.columns.states.map((s) => s.column), actionNames: doc.columns.actions.map((a) => a.column) };
@@ -67,7 +73,9 @@ export function candidateActionsProps(doc: ProjectDocument, imported: DataImport
     return curve ? [{ name: c.name, ...curve }] : [];
   });
   const model = imported.behaviour.ok ? imported.behaviour.model : null;
-  const present = model ? meanActionCurve({ offset: model.offset, gain: model.gain, std: model.std }, axis, action, range, held) : null;
+  // The present controller's model clips at the limits the log shows (behaviourModel.ts), so its line is drawn within them as the candidates' are
+  // (it ran past 100 % on the heating-loop sample while the note said "within its actuator limits").
+  const present = model ? meanActionCurve({ offset: model.offset, gain: model.gain, std: model.std, bounds: model.bounds && presentBounds(model.bounds) }, axis, action, range, held) : null;
   const limits = shownLimits(doc, action), unit = doc.columns.actions[action]?.unit ?? '';
   const others = ds > 1 ? 'the other states held at their logged means' : '';
   const limitWords = limits ? `mean applied action within the limits ${formatValue(limits.lo ?? -Infinity)} to ${formatValue(limits.hi ?? Infinity)}${unit ? ` ${unit}` : ''} (${limits.mode === 'clip' ? 'clipped' : 'truncated'})` : 'mean action';
@@ -76,6 +84,6 @@ export function candidateActionsProps(doc: ProjectDocument, imported: DataImport
     candidates, present, limits: limits && { lo: limits.lo, hi: limits.hi },
     xLabel: withUnit(doc.columns.states[axis]?.column ?? '', doc.columns.states[axis]?.unit),
     yLabel: withUnit(doc.columns.actions[action]?.column ?? '', unit),
-    title: '', subtitle: [limitWords, others].filter(Boolean).join('; '), theme,
+    title: '', subtitle: [limitWords, others].filter(Boolean), theme,
   };
 }

@@ -13,7 +13,7 @@ import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
 import { displayName, valueUnit } from './plotLabels';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
-import { TRIAL_RULE, trialChoice, type TrialChoice, type TrialLine } from './trialChoice';
+import { logCautionsText, TRIAL_RULE, trialChoice, type TrialChoice, type TrialLine } from './trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
@@ -34,6 +34,7 @@ function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: A
         <strong>Trial first: {pick.candidate.name}.</strong> J {valueAtPrecision(pick.candidate.policyValue.value, pick.candidate.policyValue.percentile)} {intervalAtPrecision(pick.candidate.policyValue.percentile)}{unit ? ` ${unit}` : ''};
         {' '}{valueAtPrecision(Math.abs(d.difference.value), d.difference.percentile)}{unit ? ` ${unit}` : ''} {assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the {baseline} (difference {intervalAtPrecision(d.difference.percentile)}), better in {shareText(d.probabilityBetter)} of resamples.
         {' '}An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions above).
+        {logCautionsText(assessment) && <span data-testid="answer-log-cautions"> {logCautionsText(assessment)}</span>}
       </p>
     );
   }

@@ -24,7 +24,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
         {c.functionClasses && (
           <p className="small" data-testid={`classes-${c.name}`}>
             <strong>{c.settled ? 'Settled across function classes' : 'Not settled across function classes'}</strong>
-            {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label} ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
+            {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label}: ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
           </p>
         )}
         <table data-testid={`cross-checks-${c.name}`}>
@@ -39,7 +39,8 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
             {c.crossChecks.map((x) => (
               <tr key={x.method} data-testid={`cross-check-${x.method}`}>
                 <th scope="row">{x.label}</th>
-                <td className="number">{x.estimate ? valueAtPrecision(x.estimate.value, x.estimate.percentile) : '—'}</td>
+                {/* A check without an interval (the model rollouts) at the decimals of the column's J, not four significant digits ("5.737" among "5.61"). */}
+                <td className="number">{x.estimate ? valueAtPrecision(x.estimate.value, x.estimate.percentile ?? c.policyValue.percentile) : '—'}</td>
                 <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalAtPrecision(x.estimate.percentile) : '—'}</td>
                 <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {noteWithoutVerdict(x.note)}</span> : null}</td>
               </tr>

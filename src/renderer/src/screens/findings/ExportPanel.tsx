@@ -17,6 +17,7 @@ import { exportPlan } from '../../../../figures/writers/exportPlan';
 import { PLOT_FONTS } from '../../../../figures/parts/plotLook';
 import { defaultTextMeasure } from '../../../../figures/writers/textMeasure';
 import { useDocument } from '../../hooks';
+import { fileNameText } from '../../../../shared/fileNameText';
 import { useWorkspace } from '../../WorkspaceContext';
 import { millimetrePixels, presetLabel, presetPixels, SIZE_PRESETS, sizeText, typePoints, type MillimetreSize, type PixelSize } from './exportSizes';
 import { captionDate, settingsLine } from './plotLabels';
@@ -97,9 +98,9 @@ export function ExportPanel({ kind, evaluation, defaultTitle, policy, fileBase, 
       <p className={check.ok ? 'small' : 'error-text'} data-testid={`export-size-text-${kind}`}>{check.text}</p>
       <p className="small muted" style={{ whiteSpace: 'pre-line' }}>Caption: {caption}</p>
       <div className="row">
-        <button data-testid={`export-png-${kind}`} disabled={!check.ok} onClick={() => void save('PNG', async () => api.exportFile('png', `${fileBase}.png`, await exportInWorker(spec(), options, 'png')))}>Export PNG…</button>
-        <button data-testid={`export-svg-${kind}`} disabled={!check.ok} onClick={() => void save('SVG', async () => api.exportFile('svg', `${fileBase}.svg`, await exportInWorker(spec(), options, 'svg')))}>Export SVG…</button>
-        {csv && <button data-testid={`export-csv-${kind}`} onClick={() => void save('CSV', () => api.exportFile('csv', `${fileBase}.csv`, encode(csv())))}>Export grid as CSV…</button>}
+        <button data-testid={`export-png-${kind}`} disabled={!check.ok} onClick={() => void save('PNG', async () => api.exportFile('png', fileNameText(`${fileBase}.png`), await exportInWorker(spec(), options, 'png')))}>Export PNG…</button>
+        <button data-testid={`export-svg-${kind}`} disabled={!check.ok} onClick={() => void save('SVG', async () => api.exportFile('svg', fileNameText(`${fileBase}.svg`), await exportInWorker(spec(), options, 'svg')))}>Export SVG…</button>
+        {csv && <button data-testid={`export-csv-${kind}`} onClick={() => void save('CSV', () => api.exportFile('csv', fileNameText(`${fileBase}.csv`), encode(csv())))}>Export grid as CSV…</button>}
       </div>
       {status && <p className={status.tone === 'error' ? 'error-text' : 'small'} role="status" data-testid={`export-status-${kind}`}>{status.text}</p>}
     </details>

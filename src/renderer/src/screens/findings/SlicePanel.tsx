@@ -12,7 +12,8 @@ import type { DataImport } from '../../../../shared/workerMessages';
 import { useDocument } from '../../hooks';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
-import { actionLabel, sliceExplanation, valueLabel, valueUnit } from './plotLabels';
+import { actionLabel, sliceExplanation, sliceStateLines, valueLabel, valueUnit } from './plotLabels';
+import { formatValue } from '../../../../figures/parts/tickFormat';
 import { StateSliders } from './StateSliders';
 import { useWorkerQuery } from './useWorkerQuery';
 
@@ -37,6 +38,7 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
   const title = `Action values of ${policy}`;
   const sliceProps = slice ? {
     slice, actionLabel: actionLabel(doc, action), valueLabel: valueLabel(evaluation.valueSense, 'Q', valueUnit(doc)), title, theme,
+    subtitle: sliceStateLines(doc, slice.state, formatValue),
   } : null;
   return (
     <>

@@ -3,6 +3,7 @@
  * the coverage diagnostics as sentences with the level the logged controller itself reaches, and
  * the progress line while the assessment runs.
  */
+import { SMALLEST_SHARE_SHOWN } from '../../../../core/limits';
 import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
 import type { AssessRunProgress } from '../../../../shared/workerMessages';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../../../core/diagnostics/severity';
@@ -17,6 +18,8 @@ export function levelText(level: number): string {
 
 /** "73 %" from 0.73, a dash for null. */
 export function shareText(share: number | null): string {
+  // Three significant digits, but no finer than 0.01 %: "5.74e−6 %" of action probability tells an engineer nothing "below 0.01 %" does not.
+  if (share !== null && share > 0 && share < SMALLEST_SHARE_SHOWN) return `below ${formatNumber(SMALLEST_SHARE_SHOWN * 100)} %`;
   return share === null ? '—' : `${formatNumber(share * 100, 3)} %`;
 }
 

@@ -46,6 +46,22 @@ export function heldLabel(doc: ProjectDocument, held: readonly number[], axes: r
   return parts.length === 0 ? '' : `Other states held at ${parts.join(', ')}`;
 }
 
+/**
+ * The state a slice is drawn at, each state named with its unit, two to a line (a line wider than the
+ * plot is squeezed, not wrapped): ["at zone_temp_c = 21.07 °C, outdoor_temp_c = −1.904 °C", "zone_error_integral = …"].
+ * The export's line under the title said "at state (21.07, −1.904, −796.3, 81.2)", numbers with no name or unit.
+ */
+export function sliceStateLines(doc: ProjectDocument, state: readonly number[], format: (x: number) => string): string[] {
+  const parts = state.map((v, i) => {
+    const s = doc.columns.states[i];
+    return `${s?.column ?? `state ${i + 1}`} = ${format(v)}${s?.unit ? ` ${s.unit}` : ''}`;
+  });
+  const lines: string[] = [];
+  for (let i = 0; i < parts.length; i += 2) lines.push(parts.slice(i, i + 2).join(', '));
+  if (lines.length) lines[0] = `at ${lines[0]}`;
+  return lines;
+}
+
 /** A policy's name as shown (the present controller's and the logged return's read as their one label). */
 export { policyLabel as displayName } from '../../../../pipeline/policyNames';
 

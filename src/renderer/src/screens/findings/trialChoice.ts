@@ -66,3 +66,14 @@ export function trialChoice(assessment: Assessment): TrialChoice {
   const lines = assessment.candidates.map((c) => lineOf(assessment, c)).sort((a, b) => rank(a.candidate.name) - rank(b.candidate.name));
   return { pick: lines.find((l) => l.reasons.length === 0) ?? null, best: lines[0] ?? null, lines };
 }
+
+/**
+ * The cautions on the log as a whole (the present controller's dithers moving together, extrapolated
+ * surfaces, unconfirmed estimates), said beside a named trial: they do not stop one (only a serious
+ * warning does, TRIAL_RULE), but the answer read alone said nothing of them. Null when there are none.
+ */
+export function logCautionsText(assessment: Assessment): string | null {
+  const cautions = assessment.warnings.filter((w) => w.severity === 'caution').length;
+  if (cautions === 0) return null;
+  return `The assessment raised ${cautions === 1 ? 'a caution' : `${cautions} cautions`} on the whole log; read ${cautions === 1 ? 'it' : 'them'} under Coverage before the trial.`;
+}

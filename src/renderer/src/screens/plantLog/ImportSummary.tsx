@@ -8,7 +8,7 @@ import { clockText, durationText } from '../../../../core/clockText';
 import type { ProjectDocument } from '../../../../project/schema';
 import { ProblemList } from '../../components/ProblemList';
 import { Histogram } from '../../components/Histogram';
-import { formatNumber } from '../../format/numberFormat';
+import { statisticsText } from './columnStatisticsText';
 import { useDocument, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { DataImport } from '../../../../shared/workerMessages';
@@ -86,7 +86,7 @@ function unitsOf(doc: ProjectDocument): Map<string, string> {
 
 /** A timestamp column's statistics are times (min, max, mean) and a duration (spread); others are numbers. */
 function statistics(c: DataImport['summary']['columns'][number], result: DataImport): string[] {
-  if (!c.roles.includes('timestamp')) return [c.min, c.max, c.mean, c.std].map((x) => formatNumber(x));
+  if (!c.roles.includes('timestamp')) return statisticsText(c.min, c.max, c.mean, c.std);
   const calendar = result.clock?.calendar ?? false;
   return [clockText(c.min, calendar), clockText(c.max, calendar), clockText(c.mean, calendar), durationText(c.std)];
 }
