@@ -36,7 +36,8 @@ export function withCandidateParameter(candidate: CandidateSpec, path: string, v
 export function tunableParameters(candidate: CandidateSpec, columns: ColumnRoles): TunableParameter[] {
   const actionUnit = (j: number): string => columns.actions[j]?.unit ?? '';
   const stateUnit = (name: string): string => columns.states.find((s) => s.column === name)?.unit ?? '';
-  const per = (j: number, state: string): string => `${actionUnit(j) || 'unit'}/${stateUnit(state) || 'unit'}`;
+  // "% per °C", as the candidate editor writes a gain's unit (one notation wherever the engineer reads it).
+  const per = (j: number, state: string): string => `${actionUnit(j) || 'unit'} per ${stateUnit(state) || 'unit'}`;
   const out: TunableParameter[] = [];
   const loopTag = (j: number): string => (columns.actions.length > 1 ? ` (${columns.actions[j]?.column ?? `action ${j + 1}`})` : '');
   const form = candidate.form;

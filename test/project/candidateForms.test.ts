@@ -112,7 +112,7 @@ describe('retune maps', () => {
     const r = parse(withMap([{ parameter: 'dither.0', from: 1, to: 2, count: 2 }]));
     if (!r.ok) throw new Error('did not parse');
     const c = r.value.document.candidates[0];
-    expect(tunableParameters(c, r.value.document.columns)[0]).toEqual({ path: 'form.loops.0.proportionalGain', label: 'proportional gain K_c', unit: '%/°C' });
+    expect(tunableParameters(c, r.value.document.columns)[0]).toEqual({ path: 'form.loops.0.proportionalGain', label: 'proportional gain K_c', unit: '% per °C' });
     expect(candidateParameter(withCandidateParameter(c, 'dither.0', 5), 'dither.0')).toBe(5);
     expect(() => withCandidateParameter(c, 'form.loops.0.action', 1)).toThrow(/not a number/);
   });
