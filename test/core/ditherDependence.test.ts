@@ -12,7 +12,7 @@ import { createGaussianPolicy } from '../../src/core/policy';
 import { createRandom } from '../../src/core/random';
 import type { TransitionSet } from '../../src/core/transitions';
 import type { Assessment } from '../../src/pipeline/assessment';
-import { projectSchema } from '../../src/project/schema';
+import { plantProject } from '../support/plantProject';
 import { assessedProject } from '../support/assessedProject';
 import { burnInStart, logEpisodes, type PlantDynamics } from '../battery/episodeLog';
 import { blendCommand, blendingTankDynamics, blendingTankPlant, SETPOINT_C } from '../battery/holdout/blendingTankPlant';
@@ -98,12 +98,7 @@ describe('the blending tank logged with correlated dithers and clipped valves', 
   beforeAll(async () => {
     independent = correlatedLog(0, 10_000, 1);
     correlated = correlatedLog(0.6, 10_000, 1);
-    const project = projectSchema.parse({
-      format: 'setpoint-critic-project', version: 1, name: 'blend', data: { path: 'none.csv' },
-      columns: { states: plant.stateNames.map((column) => ({ column })), actions: plant.actionNames.map((column) => ({ column })), reward: { kind: 'column', column: 'r', sense: 'reward' } },
-      discount: plant.discount, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } }, quadratureNodes: 6,
-      candidates: [{ name: 'trimmed', ...blendCommand(0.2, 0.8, 1.5, 0.03, 0.1), bounds: { ...VALVES, mode: 'clip' } }],
-    });
+    const project = plantProject(plant, 'blend', [{ name: 'trimmed', ...blendCommand(0.2, 0.8, 1.5, 0.03, 0.1), bounds: { ...VALVES, mode: 'clip' } }], 6);
     assessment = await assessedProject({ project, dataset: correlated, settings: { resamples: 10, level: 0.9, seed: 1, sensitivity: false } });
   }, 300_000);
 

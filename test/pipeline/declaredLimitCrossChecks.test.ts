@@ -14,26 +14,18 @@ import { LIMIT_SHARE, loggedLimitRuleText } from '../../src/core/loggedActionLim
 import type { TransitionSet } from '../../src/core/transitions';
 import type { Assessment } from '../../src/pipeline/assessment';
 import { assessedProject } from '../support/assessedProject';
+import { plantProject } from '../support/plantProject';
 import { planEvaluation } from '../../src/pipeline/plan/evaluationPlan';
-import { projectSchema } from '../../src/project/schema';
 import { kettleDynamics, kettlePlant } from '../battery/holdout/kettlePlant';
 import { rolloutTruth } from '../battery/rolloutTruth';
 
 const plant = kettlePlant();
 
 function kettleProject(withBounds = true) {
-  return projectSchema.parse({
-    format: 'setpoint-critic-project', version: 1, name: 'kettle', data: { path: 'none.csv' },
-    columns: {
-      states: plant.stateNames.map((column) => ({ column })), actions: plant.actionNames.map((column) => ({ column })),
-      reward: { kind: 'column', column: 'r', sense: 'reward' },
-    },
-    discount: plant.discount, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } }, quadratureNodes: 10,
-    candidates: plant.candidates.map((c) => {
-      const { bounds, ...rest } = c.spec;
-      return { name: c.name, ...rest, ...(withBounds && bounds ? { bounds: { lo: Array.from(bounds.lo), hi: Array.from(bounds.hi), mode: bounds.mode } } : {}) };
-    }),
-  });
+  return plantProject(plant, 'kettle', plant.candidates.map((c) => {
+    const { bounds, ...rest } = c.spec;
+    return { name: c.name, ...rest, ...(withBounds && bounds ? { bounds: { lo: Array.from(bounds.lo), hi: Array.from(bounds.hi), mode: bounds.mode } } : {}) };
+  }));
 }
 
 describe('importance sampling on a valve at its declared end on one row of 10,000', () => {

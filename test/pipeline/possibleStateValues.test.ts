@@ -20,22 +20,14 @@ import { loggedDiscountedReturn } from '../../src/core/loggedReturn';
 import type { TransitionSet } from '../../src/core/transitions';
 import type { Assessment, CandidateAssessment } from '../../src/pipeline/assessment';
 import { assessedProject } from '../support/assessedProject';
-import { projectSchema } from '../../src/project/schema';
+import { plantProject } from '../support/plantProject';
 import { surgeDrumPlant } from '../battery/holdout/surgeDrumPlant';
 
 const plant = surgeDrumPlant();
 
 function drumProject() {
   const [feedforward] = plant.candidates;
-  return projectSchema.parse({
-    format: 'setpoint-critic-project', version: 1, name: 'surge drum', data: { path: 'none.csv' },
-    columns: {
-      states: plant.stateNames.map((column) => ({ column })), actions: plant.actionNames.map((column) => ({ column })),
-      reward: { kind: 'column', column: 'r', sense: 'reward' },
-    },
-    discount: plant.discount, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } }, quadratureNodes: 10,
-    candidates: [{ name: 'feedforward', ...feedforward.spec }, { name: 'logged', ...plant.behaviour }],
-  });
+  return plantProject(plant, 'surge drum', [{ name: 'feedforward', ...feedforward.spec }, { name: 'logged', ...plant.behaviour }]);
 }
 
 const impossible = (c: CandidateAssessment) => c.warnings.filter((w) => w.topic === 'impossibleValue');
