@@ -19,7 +19,8 @@ import { normalCdf, normalDensity, normalIntervalProbability, normalSurvival } f
 
 export type LimitMode = 'clip' | 'truncate';
 
-function boundedTerms(mean: number, std: number, lo: number, hi: number) {
+/** α, β, φ(α), φ(β) (0 at an open side) and the kept mass Φ(β) − Φ(α) of N(mean, std²) behind [lo, hi]: the terms every formula above is written in. */
+export function boundedTerms(mean: number, std: number, lo: number, hi: number) {
   const alpha = (lo - mean) / std, beta = (hi - mean) / std;
   const phiA = Number.isFinite(alpha) ? normalDensity(alpha) : 0, phiB = Number.isFinite(beta) ? normalDensity(beta) : 0;
   return { alpha, beta, phiA, phiB, kept: normalIntervalProbability(alpha, beta) };

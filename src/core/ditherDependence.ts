@@ -35,7 +35,7 @@
  *
  * Shapes: states n×ds, actions n×m row-major; offset m; gain m×ds; std m; lo/hi m.
  */
-import { normalDensity, normalIntervalProbability } from './normalDistribution';
+import { boundedTerms } from './boundedNormalMean';
 
 export interface DitherDependence {
   /** Pearson correlation of the standardised residuals for each pair j < k, m×m with 1 on the diagonal. */
@@ -106,9 +106,8 @@ function standardisedRow(
       u[j] = (actions[i * m + j] - mean) / sigma; // the cut changes mean and spread by under 1e-7 here: skip its erfc calls
       continue;
     }
-    const kept = normalIntervalProbability(alpha, beta);
+    const { phiA, phiB, kept } = boundedTerms(mean, sigma, limits.lo[j], limits.hi[j]);
     if (!(kept > 1e-12)) return false;
-    const phiA = Number.isFinite(alpha) ? normalDensity(alpha) : 0, phiB = Number.isFinite(beta) ? normalDensity(beta) : 0;
     const shift = (phiA - phiB) / kept;
     const spread = 1 + ((Number.isFinite(alpha) ? alpha * phiA : 0) - (Number.isFinite(beta) ? beta * phiB : 0)) / kept - shift * shift;
     if (!(spread > 1e-12)) return false;
