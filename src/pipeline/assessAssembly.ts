@@ -32,6 +32,7 @@ import type { EvaluationPlan } from './plan/evaluationPlan';
 import { impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
+import { shareText } from '../figures/parts/shareText';
 
 /** The logged return's name wherever it is listed beside the candidates (shown through policyNames.ts). */
 export const BEHAVIOUR_NAME = 'logged return';
@@ -280,7 +281,7 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
     });
   }
   if (unvisited !== null && unvisited > 0.5) {
-    out.push({ severity: 'caution', topic: 'unvisited', message: `${(100 * unvisited).toFixed(0)} % of the value-surface grid has no logged state within one grid step: the surfaces are extrapolated there.` });
+    out.push({ severity: 'caution', topic: 'unvisited', message: `${shareText(unvisited)} of the value-surface grid has no logged state within one grid step: the surfaces are extrapolated there.` });
   }
   for (const c of candidates) {
     const { percentile: p, basic: b } = c.policyValue;

@@ -32,7 +32,7 @@
  */
 
 import { DEFAULT_START_COVERAGE } from './startCoverage';
-import { effectiveRunsText } from '../offPolicy/effectiveRunsText';
+import { effectiveRunsNumber, effectiveRunsText } from '../offPolicy/effectiveRunsText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -135,7 +135,7 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
-    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${threeDigits(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
+    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${effectiveRunsNumber(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
       `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): ` +
       // With no weight at all the checks are not applied (crossCheckVerdict: "not applicable"), so "a few runs" would contradict them.
       (effectiveEpisodes >= 1 ? 'the importance-sampling cross-checks rest on a few runs.'
