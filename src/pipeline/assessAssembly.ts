@@ -286,9 +286,9 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
   for (const c of candidates) {
     const { percentile: p, basic: b } = c.policyValue;
     if (p && b && Math.abs((p[0] + p[1]) / 2 - (b[0] + b[1]) / 2) > 0.25 * (p[1] - p[0])) {
-      out.push({ severity: 'caution', topic: 'bootstrap', message: `${c.name}: the percentile and basic intervals differ markedly, a sign of a skewed or biased estimator; read both.` });
+      out.push({ severity: 'caution', topic: 'bootstrap', candidate: c.name, message: `${c.name}: the percentile and basic intervals differ markedly, a sign of a skewed or biased estimator; read both.` });
     }
-    if (c.confirmation.status === 'unconfirmed') out.push({ severity: 'caution', topic: 'confirmation', message: `${c.name}: ${c.confirmation.text}` });
+    if (c.confirmation.status === 'unconfirmed') out.push({ severity: 'caution', topic: 'confirmation', candidate: c.name, message: `${c.name}: ${c.confirmation.text}` });
   }
   return out;
 }

@@ -47,6 +47,8 @@ export interface AssessmentWarning {
   /** Stable key for hosts (e.g. "distributionShift"), and the sentence for a reviewer. */
   topic: string;
   message: string;
+  /** In the whole-log list, the candidate a warning is about (its name); absent where it bears on every candidate. */
+  candidate?: string;
 }
 
 export interface ImportanceWeightDiagnostics {
