@@ -58,7 +58,7 @@ export interface CheckVerdict {
   readonly fromPlantModel?: boolean;
 }
 
-const UNPAIRED_WORDS = 'standard errors of the difference, unpaired: the fit has no resamples to pair with, so its own standard error is added to the check\'s';
+const UNPAIRED_WORDS = 'standard errors of the difference, unpaired: the fit has no resamples to pair with, so its own standard error is added to the check’s';
 
 export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   const r = CROSS_CHECK_RULE, scale = Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
@@ -92,7 +92,7 @@ function weakness(e: CrossCheckEvidence): string | null {
     if (w.effectiveEpisodes < needed) return w.effectiveEpisodes >= 1
       ? `at step ${w.horizonSteps} the importance weights have an effective size of ${effectiveRunsText(w.effectiveEpisodes)} (below ${needed.toFixed(0)})`
       : `at step ${w.horizonSteps} the importance weights carry ${effectiveRunsText(w.effectiveEpisodes)}, where ${needed.toFixed(0)} runs are needed`;
-    if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged runs' ends, where it uses fitted Q-evaluation's own value`;
+    if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged runs’ ends, where it uses fitted Q-evaluation’s own value`;
   }
   if (e.shareOutsideLogs !== undefined && e.shareOutsideLogs > r.maxShareOutsideLogs) {
     return `${(100 * e.shareOutsideLogs).toFixed(0)} % of the simulated (discounted) steps reach the edge of the logged states, where the fitted model extrapolates`;

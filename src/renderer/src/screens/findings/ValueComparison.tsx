@@ -60,7 +60,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
           <tr>
             <th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">± s.e.</th>
             {assessment && <th scope="col" className="number" title="Percentile bootstrap interval over runs; hover a cell for the basic interval">{levelText(level)} interval</th>}
-            <th scope="col" className="number" title="J from solving the fit's fixed-point equations directly (LSTD-Q), as a check on the iterated fit">J by direct solve</th><th scope="col">Fit</th><th scope="col">How the fit went</th>
+            <th scope="col" className="number" title="J from solving the fit’s fixed-point equations directly (LSTD-Q), as a check on the iterated fit">J by direct solve</th><th scope="col">Fit</th><th scope="col">How the fit went</th>
           </tr>
         </thead>
         <tbody>
