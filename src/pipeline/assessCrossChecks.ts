@@ -66,7 +66,7 @@ export interface CrossCheckInputs {
 
 export function crossChecks(inputs: CrossCheckInputs): { checks: CrossCheck[]; confirmation: { status: 'confirmed' | 'contradicted' | 'unconfirmed'; text: string } } {
   const { replicates: r, points, weights } = inputs;
-  const importance = weights ? { effectiveEpisodes: weights.horizonEffectiveEpisodes, episodesReaching: weights.horizonEpisodes, horizonSteps: weights.horizonSteps, tailWeight: inputs.tailWeight } : undefined;
+  const importance = weights ? { effectiveEpisodes: weights.horizonEffectiveEpisodes, episodesReaching: weights.horizonEpisodes, horizonSteps: weights.horizonSteps, tailWeight: inputs.tailWeight, notNumbers: weights.horizonNotNumbers } : undefined;
   const checks = [
     crossCheck('weightedImportanceSampling', points.importanceSampling, r.importanceSampling, inputs.offPolicyReason, inputs, { weights: importance }),
     crossCheck('weightedDoublyRobust', points.doublyRobust, r.doublyRobust, inputs.offPolicyReason, inputs, { weights: importance }),

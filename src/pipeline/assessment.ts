@@ -59,6 +59,8 @@ export interface ImportanceWeightDiagnostics {
   horizonSteps: number;
   horizonEffectiveEpisodes: number;
   horizonEpisodes: number;
+  /** Runs whose weight at step H is not a number (NaN or +∞ in log form: effectiveRunsText.ts WHY_NOT_A_NUMBER); 0 as a rule. */
+  horizonNotNumbers: number;
 }
 
 export interface ActionSupportDiagnostics {

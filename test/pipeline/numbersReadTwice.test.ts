@@ -21,7 +21,7 @@ const RUNS = 3.4517, REACHING = 40, SHARE = 0.062912;
 
 const diagnostics: CoverageDiagnostics = {
   occupancyShift: 2.5, occupancyShiftUpper: 3.1, presentControllerShift: 1.2, shiftFeatures: 'the linear features',
-  importanceWeights: { oneStepEffectiveSize: 900, oneStepShare: SHARE, horizonSteps: 20, horizonEffectiveEpisodes: RUNS, horizonEpisodes: REACHING },
+  importanceWeights: { oneStepEffectiveSize: 900, oneStepShare: SHARE, horizonSteps: 20, horizonEffectiveEpisodes: RUNS, horizonEpisodes: REACHING, horizonNotNumbers: 0 },
   actionSupport: { meanOutside: SHARE, p90Outside: SHARE, maxOutside: SHARE, behaviourMeanOutside: SHARE, neighbours: 20, queryStates: 200 },
 } as CoverageDiagnostics;
 

@@ -130,12 +130,14 @@ export function effectiveShareRuleText(): string {
     `caution below ${percent(caution)}, serious below ${percent(serious)} (a common rule of thumb).`;
 }
 
-export function effectiveShareFinding(effectiveEpisodes: number, episodes: number, step: number): SeverityFinding | null {
+export function effectiveShareFinding(effectiveEpisodes: number, episodes: number, step: number, notNumbers = 0): SeverityFinding | null {
+  // Weights that are not numbers carry no usable weight: the size is read as 0 (which Kish's formula gives with a NaN among them).
+  if (notNumbers > 0) effectiveEpisodes = 0;
   const severity = episodes > 0 ? severityBelow(effectiveEpisodes / episodes, EFFECTIVE_SHARE_LIMITS) : null;
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
-    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${effectiveRunsNumber(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
+    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${effectiveRunsNumber(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes, notNumbers)} from ${episodes} runs`} ` +
       `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): ` +
       // With no weight at all the checks are not applied (crossCheckVerdict: "not applicable"), so "a few runs" would contradict them.
       (effectiveEpisodes >= 1 ? 'the importance-sampling cross-checks rest on a few runs.'

@@ -45,7 +45,7 @@ export interface CrossCheckEvidence {
   readonly paired?: boolean;
   readonly fqe: number; // J by FQE
   /** Weighted importance sampling and doubly robust: weights at the effective horizon and the tail weight γ^H. */
-  readonly weights?: { readonly effectiveEpisodes: number; readonly episodesReaching: number; readonly horizonSteps: number; readonly tailWeight: number };
+  readonly weights?: { readonly effectiveEpisodes: number; readonly episodesReaching: number; readonly horizonSteps: number; readonly tailWeight: number; readonly notNumbers?: number };
   /** Model rollouts: the discounted share of simulated steps at the logged-range edge. */
   readonly shareOutsideLogs?: number;
 }
@@ -89,6 +89,7 @@ function weakness(e: CrossCheckEvidence): string | null {
   const r = CROSS_CHECK_RULE, w = e.weights;
   if (w) {
     const needed = Math.max(r.minEffectiveEpisodes, r.minEffectiveShare * w.episodesReaching);
+    if (w.notNumbers) return `at step ${w.horizonSteps} the importance weights carry ${effectiveRunsText(0, w.notNumbers)}, where ${needed.toFixed(0)} runs are needed`;
     if (w.effectiveEpisodes < needed) return w.effectiveEpisodes >= 1
       ? `at step ${w.horizonSteps} the importance weights have an effective size of ${effectiveRunsText(w.effectiveEpisodes)} (below ${needed.toFixed(0)})`
       : `at step ${w.horizonSteps} the importance weights carry ${effectiveRunsText(w.effectiveEpisodes)}, where ${needed.toFixed(0)} runs are needed`;

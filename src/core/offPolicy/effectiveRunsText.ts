@@ -20,18 +20,36 @@ export function effectiveRunsNumber(effectiveRuns: number): string {
   return String(Number(effectiveRuns.toPrecision(EFFECTIVE_RUNS_DIGITS)));
 }
 
-/**
- * Why no logged run carries weight, when every importance weight is zero or not a number. A weight is
- * zero where the candidate gives a logged action no density (outside its truncation limits), and not a
- * number where neither policy does (a logged action outside the present controller's limits too, see
- * importanceRatio.ts); either way no logged run is one the candidate could have produced.
- */
+/** Why no logged run carries weight, when every importance weight is zero: the candidate gives some action of each logged run no probability (outside its truncation limits, say). */
 export const WHY_NO_WEIGHT = 'every logged run takes an action the candidate would never take';
 
-/** "3.45 runs"; "no run’s worth of weight (…)" at 0; "less than one run’s worth of weight (0.041 of a run)" between. */
-export function effectiveRunsText(effectiveRuns: number): string {
+/**
+ * Why a run's importance weight is not a number (NaN or +∞ in log form), which Kish's size cannot
+ * use: where a candidate's mean lies more than about 38.5 dithers outside its truncation limits, the
+ * probability it gives the band underflows to 0 in a double (Φ(−38.5) ≈ φ(38.5)/38.5 ≈ 2e−324, the
+ * smallest double being 4.9e−324), so its density there is 0/0 or x/0 (importanceRatio.ts, policy.ts logDensity). A
+ * project file reaches it with truncation limits and a small dither, e.g. a 0.1 % dither on limits
+ * 40 to 50 % where the mean at some logged states is 64 %. Said for what it is, never as "every run
+ * takes an action the candidate would never take".
+ */
+export const WHY_NOT_A_NUMBER = 'at some logged state the candidate’s mean lies so far outside its truncation limits (dozens of dithers) ' +
+  'that the probability it gives the band is below what the computation can hold; check its limits, offset, gains and dither against the logged states';
+
+/**
+ * "3.45 runs"; "no run’s worth of weight (…)" at 0; "less than one run’s worth of weight (0.041 of a
+ * run)" between; and, where the weights of `notNumbers` runs are not numbers (WHY_NOT_A_NUMBER), that.
+ */
+export function effectiveRunsText(effectiveRuns: number, notNumbers = 0): string {
+  if (notNumbers > 0) return `no usable weight (the importance weight${notNumbers === 1 ? ' of 1 run is' : `s of ${notNumbers} runs are`} not a number: ${WHY_NOT_A_NUMBER})`;
   if (!Number.isFinite(effectiveRuns)) return 'an effective size that could not be computed';
   if (effectiveRuns >= 1) return `${effectiveRunsNumber(effectiveRuns)} runs`;
   if (!(effectiveRuns > 0)) return `no run’s worth of weight (${WHY_NO_WEIGHT})`;
   return `less than one run’s worth of weight (${Number(effectiveRuns.toPrecision(2))} of a run)`;
+}
+
+/** How many of the log weights are not numbers Kish's size can use (NaN, or +∞: see WHY_NOT_A_NUMBER). */
+export function weightsNotNumbers(logWeights: ArrayLike<number>): number {
+  let count = 0;
+  for (let i = 0; i < logWeights.length; i++) if (Number.isNaN(logWeights[i]) || logWeights[i] === Infinity) count++;
+  return count;
 }

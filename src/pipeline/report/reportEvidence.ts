@@ -42,7 +42,7 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
     row('Importance weights: effective share of the one-step ratios', (c) => shareText(weights(c)?.oneStepShare), ''),
-    row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return !w ? '—' : w.horizonEffectiveEpisodes >= 1 ? `${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes}` : `${w.horizonEffectiveEpisodes > 0 ? 'less than 1' : 'none'} of ${w.horizonEpisodes}`; }, ''),
+    row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return !w ? '—' : w.horizonNotNumbers ? `not a number for ${w.horizonNotNumbers} of ${w.horizonEpisodes}` : w.horizonEffectiveEpisodes >= 1 ? `${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes}` : `${w.horizonEffectiveEpisodes > 0 ? 'less than 1' : 'none'} of ${w.horizonEpisodes}`; }, ''),
     row('Action probability outside the logged range near the state: mean', (c) => shareText(c.diagnostics.actionSupport.meanOutside), shareText(first?.actionSupport.behaviourMeanOutside)),
     row(`… ${UPPER_PERCENTILE}th percentile over states`, (c) => shareText(c.diagnostics.actionSupport.p90Outside), ''),
     row('… largest', (c) => shareText(c.diagnostics.actionSupport.maxOutside), ''),

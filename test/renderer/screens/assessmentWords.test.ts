@@ -45,7 +45,7 @@ describe('assessment words', () => {
   it('puts each diagnostic beside the present controller’s own level', () => {
     const d: CoverageDiagnostics = {
       occupancyShift: 55.3, occupancyShiftUpper: 61.2, presentControllerShift: 1.1, shiftFeatures: 'the fit’s own features (15)',
-      importanceWeights: { oneStepEffectiveSize: 9490.4, oneStepShare: 0.475, horizonSteps: 20, horizonEffectiveEpisodes: 1.09, horizonEpisodes: 40 },
+      importanceWeights: { oneStepEffectiveSize: 9490.4, oneStepShare: 0.475, horizonSteps: 20, horizonEffectiveEpisodes: 1.09, horizonEpisodes: 40, horizonNotNumbers: 0 },
       actionSupport: { neighbours: 50, queryStates: 400, meanOutside: 0.001, p90Outside: 0.0002, maxOutside: 0.2, behaviourMeanOutside: 0.039 },
     };
     const [shift, weights, support] = coverageSentences(d);

@@ -50,7 +50,7 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
   const w = d.importanceWeights;
   if (w) {
     sentences.push(`Importance weights: the one-step weights are worth ${Math.round(w.oneStepEffectiveSize).toLocaleString('en-US')} transitions (${shareText(w.oneStepShare)} of them); `
-      + `after ${w.horizonSteps} steps the cumulative weights ${w.horizonEffectiveEpisodes >= 1 ? `are worth ${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes} runs` : `carry ${effectiveRunsText(w.horizonEffectiveEpisodes)} from ${w.horizonEpisodes} runs`}. `
+      + `after ${w.horizonSteps} steps the cumulative weights ${w.horizonEffectiveEpisodes >= 1 && !w.horizonNotNumbers ? `are worth ${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes} runs` : `carry ${effectiveRunsText(w.horizonEffectiveEpisodes, w.horizonNotNumbers)} from ${w.horizonEpisodes} runs`}. `
       + 'Few effective samples make the importance-sampling cross-checks noisy.');
   }
   const a = d.actionSupport;
