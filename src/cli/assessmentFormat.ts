@@ -3,7 +3,7 @@ import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { plantMemorySentence } from '../pipeline/plantMemoryWords';
 import { policyLabel } from '../pipeline/policyNames';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
-import { shareText } from '../figures/parts/shareText';
+import { shareText } from '../core/shareText';
 import { textTable as table } from './textTable';
 import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
 

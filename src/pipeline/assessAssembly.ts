@@ -32,7 +32,7 @@ import type { EvaluationPlan } from './plan/evaluationPlan';
 import { impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
-import { shareText } from '../figures/parts/shareText';
+import { shareText } from '../core/shareText';
 
 /** The logged return's name wherever it is listed beside the candidates (shown through policyNames.ts). */
 export const BEHAVIOUR_NAME = 'logged return';

@@ -3,7 +3,7 @@
  * size of 3.4 runs" in a cross-check note beside "3.45 of 12" in the coverage panel, and "6.3 %" in
  * the report's diagnostics against "6.29 %" on screen for the same share). The same invented
  * diagnostics go through every writer: the cross-check note (crossCheckVerdict.ts), the coverage
- * finding (severity.ts), the app's coverage sentences (assessmentWords.ts) and the report's
+ * finding (severity.ts, its occupancy and action-support findings too), the app's coverage sentences (assessmentWords.ts) and the report's
  * diagnostics table (reportEvidence.ts). The precisions are ours (effectiveRunsText.ts, shareText.ts);
  * the expected digits are worked by hand: 3.4517 to three significant digits is 3.45, 0.062912 is 6.29 %.
  */
@@ -11,7 +11,8 @@ import { describe, expect, it } from 'vitest';
 import { crossCheckVerdict } from '../../src/core/offPolicy/crossCheckVerdict';
 import { effectiveShareFinding } from '../../src/core/diagnostics/severity';
 import { effectiveRunsText } from '../../src/core/offPolicy/effectiveRunsText';
-import { shareText } from '../../src/figures/parts/shareText';
+import { shareText } from '../../src/core/shareText';
+import { actionSupportFinding } from '../../src/core/diagnostics/severity';
 import type { Assessment, CoverageDiagnostics } from '../../src/pipeline/assessment';
 import { diagnosticsSection } from '../../src/pipeline/report/reportEvidence';
 import type { ReportInput } from '../../src/pipeline/report/reportInput';
@@ -48,6 +49,8 @@ describe('one precision for a number read in two places', () => {
 
   it('a share: 6.29 % on screen and in the report, never 6.3 %', () => {
     expect(shareText(SHARE)).toBe('6.29 %');
+    // The coverage finding wrote its measured shares at two digits ("27 %" beside the sentence's "26.9 %").
+    expect(actionSupportFinding(0.269, 50, 0.028)!.message).toMatch(/^On average 26\.9 % .*present controller itself: 2\.8 %/);
     const screen = [...coverageSentences(diagnostics), unvisitedSentence(SHARE)!].join(' '), report = reportText();
     expect(screen).toContain('6.29 %');
     expect(report).toContain('6.29 %');

@@ -33,6 +33,7 @@
 
 import { DEFAULT_START_COVERAGE } from './startCoverage';
 import { effectiveRunsNumber, effectiveRunsText } from '../offPolicy/effectiveRunsText';
+import { shareText } from '../shareText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -155,10 +156,10 @@ export function actionSupportRuleText(): string {
 export function actionSupportFinding(meanOutside: number, neighbours: number, loggedMeanOutside: number | null): SeverityFinding | null {
   const severity = severityAbove(meanOutside, ACTION_SUPPORT_LIMITS);
   if (!severity) return null;
-  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${percent(loggedMeanOutside)})`;
+  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${shareText(loggedMeanOutside)})`;
   return {
     severity, topic: 'actionSupport',
-    message: `On average ${percent(meanOutside)} of the candidate’s action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
+    message: `On average ${shareText(meanOutside)} of the candidate’s action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
       'there Q is extrapolated to actions the logs do not hold.',
   };
 }

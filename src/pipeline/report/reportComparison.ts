@@ -7,7 +7,7 @@ import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
 import { policyLabel } from '../policyNames';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
-import { shareText } from '../../figures/parts/shareText';
+import { shareText } from '../../core/shareText';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
   const a = input.assessment;

@@ -9,7 +9,7 @@ import { estimateCells, intervalFigure, shownName } from './reportComparison';
 import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
-import { shareText } from '../../figures/parts/shareText';
+import { shareText } from '../../core/shareText';
 import { effectiveRunsNumber } from '../../core/offPolicy/effectiveRunsText';
 
 export function diagnosticsSection(input: ReportInput): Html {

@@ -7,7 +7,7 @@ import { senseWords, type ReportInput } from './reportInput';
 import { policyLabel } from '../policyNames';
 import { PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
 import { loggedLimitText } from '../../core/loggedLimitWords';
-import { shareText } from '../../figures/parts/shareText';
+import { shareText } from '../../core/shareText';
 
 export function summarySection(input: ReportInput): Html {
   const a = input.assessment, e = input.evaluation, words = senseWords(input);

@@ -47,7 +47,7 @@ describe('severity', () => {
     expect(effectiveShareFinding(2, 300, 33)).toMatchObject({ severity: 'serious', topic: 'importanceWeights' });
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20 of 300 runs \(below 10 %\)/);
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/the importance-sampling cross-checks rest on a few runs/);
-    expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the present controller itself: 2\.0 %\)/);
+    expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the present controller itself: 2 %\)/);
   });
 
   // A shift of tens of thousands is common far from the logs, and a log of 100,000 runs is not rare:

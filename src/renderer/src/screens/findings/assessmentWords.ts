@@ -9,14 +9,14 @@ import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../../../core/diagn
 import { intervalAtPrecision } from '../../../../figures/parts/uncertainNumber';
 import { effectiveRunsNumber, effectiveRunsText } from '../../../../core/offPolicy/effectiveRunsText';
 import { formatNumber } from '../../format/numberFormat';
-import { shareText } from '../../../../figures/parts/shareText';
+import { shareText } from '../../../../core/shareText';
 
 /** "90 %" from 0.9. */
 export function levelText(level: number): string {
   return `${formatNumber(level * 100, 3)} %`;
 }
 
-/** A share as a percentage: the one writer every host uses (figures/parts/shareText.ts). */
+/** A share as a percentage: the one writer every host uses (core/shareText.ts). */
 export { shareText };
 
 /** The basic interval and the replicate count, for the tooltip of an interval cell. */
