@@ -42,6 +42,7 @@ describe('one precision for a number read in two places', () => {
     }).note;
     expect(note).toContain('effective size of 3.45 runs');
     expect(effectiveRunsText(RUNS)).toBe('3.45 runs');
+    expect(effectiveRunsText(1.0004)).toBe('1 run'); // one weight dominating: not "1 runs" (seen on the after-screenshots)
     expect(effectiveShareFinding(RUNS, REACHING, 20)!.message).toContain('effective size 3.45 of 40 runs');
     expect(coverageSentences(diagnostics).join(' ')).toContain('are worth 3.45 of 40 runs');
     expect(reportText()).toContain('3.45 of 40');

@@ -42,7 +42,10 @@ export const WHY_NOT_A_NUMBER = 'at some logged state the candidate’s mean lie
 export function effectiveRunsText(effectiveRuns: number, notNumbers = 0): string {
   if (notNumbers > 0) return `no usable weight (the importance weight${notNumbers === 1 ? ' of 1 run is' : `s of ${notNumbers} runs are`} not a number: ${WHY_NOT_A_NUMBER})`;
   if (!Number.isFinite(effectiveRuns)) return 'an effective size that could not be computed';
-  if (effectiveRuns >= 1) return `${effectiveRunsNumber(effectiveRuns)} runs`;
+  if (effectiveRuns >= 1) {
+    const text = effectiveRunsNumber(effectiveRuns);
+    return `${text} ${text === '1' ? 'run' : 'runs'}`; // "1 run": Kish's size is exactly 1 where one weight dominates
+  }
   if (!(effectiveRuns > 0)) return `no run’s worth of weight (${WHY_NO_WEIGHT})`;
   return `less than one run’s worth of weight (${Number(effectiveRuns.toPrecision(2))} of a run)`;
 }
