@@ -3,10 +3,10 @@ import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { plantMemorySentence } from '../pipeline/plantMemoryWords';
 import { policyLabel } from '../pipeline/policyNames';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
+import { shareText } from '../core/shareText';
 import { textTable as table } from './textTable';
 import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
 
-const percent = (share: number | null): string => (share === null ? '—' : `${(100 * share).toFixed(1)} %`);
 /** A value at the precision of the interval it is read with; without one (the model rollouts), at `precision`'s (the candidate's J interval), as the app and the report write it. */
 const inInterval = (value: number | null, iv: [number, number] | null, precision: [number, number] | null = null): string => `${atDecimals(value, rowDecimals(iv ?? precision))} ${interval(iv)}`;
 
@@ -29,7 +29,7 @@ export function formatAssessment(a: Assessment): string {
   rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
   if (pc) rows.push([...estimateRow(`${LOGGED_RETURN}, completed past time limits (check)`, pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
-  for (const d of a.comparison.differences) diffs.push([`${policyLabel(d.a)} − ${policyLabel(d.b)}`, atDecimals(d.difference.value, rowDecimals(d.difference.percentile, d.difference.standardError)), interval(d.difference.percentile), percent(d.probabilityBetter)]);
+  for (const d of a.comparison.differences) diffs.push([`${policyLabel(d.a)} − ${policyLabel(d.b)}`, atDecimals(d.difference.value, rowDecimals(d.difference.percentile, d.difference.standardError)), interval(d.difference.percentile), shareText(d.probabilityBetter)]);
   const named = [...a.candidates, ...(pc ? [{ ...pc, functionClasses: null }] : [])];
   const checks = named.flatMap((c) => [
     `  ${policyLabel(c.name)}: ${c.confirmation.text}`,
@@ -49,7 +49,7 @@ export function formatAssessment(a: Assessment): string {
     '',
     table(diffs),
     '',
-    `Ranking: ${a.comparison.ranking.order.map(policyLabel).join(' > ')} (${a.comparison.ranking.frequency === null ? 'not every policy was resampled' : `holds in ${percent(a.comparison.ranking.frequency)} of resamples`}).`,
+    `Ranking: ${a.comparison.ranking.order.map(policyLabel).join(' > ')} (${a.comparison.ranking.frequency === null ? 'not every policy was resampled' : `holds in ${shareText(a.comparison.ranking.frequency)} of resamples`}).`,
     ...(classes.length ? ['', 'Function classes (the range to report spans them):', ...classes] : []),
     '',
     'Cross-checks:',

@@ -26,10 +26,10 @@ export async function destinationRefusal(out: string, files: RunFiles): Promise<
   const refuse = (why: string): CliFailure => ({ message: `Not writing the report to ${out}: ${why}. Choose another --out.`, exitCode: 2 });
   const target = await identity(out);
   if (target !== null && !target.isFile) return refuse('it is not a regular file (a folder, a pipe or a device)');
-  for (const [path, what] of [[files.projectPath, 'the project file'], [files.dataPath, 'the project\'s data file']] as const) {
+  for (const [path, what] of [[files.projectPath, 'the project file'], [files.dataPath, 'the project’s data file']] as const) {
     const input = target && await identity(path);
     if (target && input && input.dev === target.dev && input.ino === target.ino) return refuse(`it is ${what}, which the report is made from`);
   }
-  if (/\.spcritic$/i.test(out)) return refuse('the name is a project file\'s (.spcritic)');
+  if (/\.spcritic$/i.test(out)) return refuse('the name is a project file’s (.spcritic)');
   return null;
 }

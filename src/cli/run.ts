@@ -24,7 +24,7 @@ const USAGE = `Usage:
 
 Commands:
   evaluate   fit the action-value function of each candidate policy in the project to the
-             project's logged data and report each policy value next to the present controller's,
+             project’s logged data and report each policy value next to the present controller’s,
              with bootstrap intervals, cross-checks and coverage diagnostics
   report     the same, written as one self-contained HTML report (job, data, settings,
              comparison, value surfaces, slices, diagnostics, cross-checks, sensitivity, cautions)
@@ -33,8 +33,8 @@ Options:
   --json            write one JSON object to stdout instead of the readable table (evaluate)
   --out <file>      where to write the report (default: <project>-report.html in this folder);
                     never the project file or its data file
-  --resamples <N>   bootstrap resamples of the runs (default: the project's, else 1000)
-  --level <L>       confidence level of the intervals (default: the project's, else 0.9)
+  --resamples <N>   bootstrap resamples of the runs (default: the project’s, else 1000)
+  --level <L>       confidence level of the intervals (default: the project’s, else 0.9)
   --help            show this text
   --version         show the version
 

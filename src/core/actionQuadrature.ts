@@ -156,7 +156,7 @@ export function meanAt(policy: GaussianPolicy, state: ArrayLike<number>, stateOf
   for (let i = 0; i < policy.actionDim; i++) {
     if (!Number.isFinite(mean[i])) {
       // A candidate whose offset or gains overflow at a logged state: the user's input, so a PolicyError (exit 1), not a bug.
-      throw new PolicyError(`the candidate's mean action ${i + 1} is ${mean[i]} at a state of the data (its offset or gains are too large for the states; check their units)`);
+      throw new PolicyError(`the candidate’s mean action ${i + 1} is ${mean[i]} at a state of the data (its offset or gains are too large for the states; check their units)`);
     }
   }
 }

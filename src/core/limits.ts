@@ -172,3 +172,12 @@ export const PLANT_MEMORY_BASE_MONOMIALS = 120;
  * choice, from the screen review).
  */
 export const SMALLEST_SHARE_SHOWN = 1e-4;
+
+/**
+ * Significant digits an editable number field shows: 15, the most at which every decimal text a
+ * person or a script writes reads back to the same double (IEEE 754-2008 §5.12.2: a decimal string of
+ * at most 15 significant digits survives a round trip through binary64). A script's 0.1 + 0.2 is
+ * shown "0.3", not "0.30000000000000004"; the field writes the document only when the user edits it,
+ * so the stored value is kept as it was.
+ */
+export const EDITABLE_DIGITS = 15;

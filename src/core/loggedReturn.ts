@@ -72,7 +72,7 @@ export function truncationSentence(r: Pick<LoggedReturn, 'meanTruncationWeight' 
 
 /** Where each episode ends: its last next state and the weight of the value beyond it. */
 export interface EpisodeEnds {
-  readonly finalStates: Float64Array; // e×ds: s_T, the next state of each episode's last transition (0 for an empty episode)
+  readonly finalStates: Float64Array; // e×ds: s_T, the next state of each episode’s last transition (0 for an empty episode)
   /** γ^T for an episode that ends on a time limit; 0 after a terminal state or for an episode without transitions. */
   readonly tailWeights: Float64Array; // e
 }

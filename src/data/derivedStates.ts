@@ -112,7 +112,7 @@ function startsOwnRun(runOf: Int32Array, firstRowKept: Uint8Array | undefined, p
  */
 function laggedColumn(x: Float64Array, initial: number | undefined, k: number, inputs: AlongInputs): Float64Array {
   const { kept, episodeOf } = inputs, out = new Float64Array(kept.length).fill(NaN);
-  const recent: number[] = []; // the stretch's last k kept rows, oldest first
+  const recent: number[] = []; // the stretch’s last k kept rows, oldest first
   let episode = -2, previous = -1, before = NaN;
   for (let r = 0; r < kept.length; r++) {
     if (!kept[r]) continue;

@@ -156,7 +156,7 @@ class Parser {
   private checkClampLimits(args: ExpressionNode[], nameToken: Token): void {
     const lo = constantValue(args[1]), hi = constantValue(args[2]);
     if (lo !== undefined && hi !== undefined && !(lo <= hi)) {
-      throw this.error(`clamp's lower limit ${lo} is above its upper limit ${hi}; write clamp(x, lower, upper)`, nameToken);
+      throw this.error(`clamp’s lower limit ${lo} is above its upper limit ${hi}; write clamp(x, lower, upper)`, nameToken);
     }
   }
 

@@ -207,7 +207,7 @@ function undefinedAfterGapReport(rowsBack: Map<string, number>, gaps: { midRun: 
     ...(gaps.midRun > 0 ? [`After each of the ${gaps.midRun} places a row was excluded mid-run`] : []),
     ...(gaps.lostFirstRows > 0 ? [`${gaps.midRun > 0 ? 'in' : 'In'} the ${plural(gaps.lostFirstRows, 'run')} whose own first row was excluded (from the first kept row)`] : []),
   ].join(', and ');
-  return `${where}, ${names} restart undefined on ${next} (no value reaches past it, and an initial value is for a run's first rows only): ${plural(removed, 'row')} start no transition.`;
+  return `${where}, ${names} restart undefined on ${next} (no value reaches past it, and an initial value is for a run’s first rows only): ${plural(removed, 'row')} start no transition.`;
 }
 
 const DERIVED_WORDS = { errorIntegral: 'error integral', filtered: 'first-order lag', previous: 'previous value', difference: 'difference' } as const;

@@ -70,7 +70,7 @@ export function excludedWarning(excluded: readonly ExcludedRow[], rowCount: numb
   const first = excluded.slice(0, 5).map((e) => e.line).join(', ');
   const extraLines = lastTextLine - (rowCount + 1);
   const spans = extraLines > 0
-    ? `; the file's ${formatCount(lastTextLine)} lines of text hold the header and ${formatCount(rowCount)} rows, so rows span ${formatCount(extraLines)} more lines than one each (a quoted line break or a quote never closed) — see the reasons`
+    ? `; the file’s ${formatCount(lastTextLine)} lines of text hold the header and ${formatCount(rowCount)} rows, so rows span ${formatCount(extraLines)} more lines than one each (a quoted line break or a quote never closed) — see the reasons`
     : '';
   return [importProblem('rows-excluded', fileName,
     `${plural(excluded.length, 'row')} of ${formatCount(rowCount)} (${+percent.toPrecision(3)}%) excluded because they could not be used (first at line${excluded.length > 1 ? 's' : ''} ${first}); each is listed with its reason${spans}`)];

@@ -44,7 +44,7 @@ export function readFully(source: PieceSource, into: Uint8Array, offset: number,
     try {
       n = source.read(into, offset + done, length - done, position + done);
     } catch (e) {
-      const reason = (e as { reason?: unknown } | null)?.reason; // a host's error may carry the part of its message after the file name
+      const reason = (e as { reason?: unknown } | null)?.reason; // a host’s error may carry the part of its message after the file name
       throw new PieceReadError(typeof reason === 'string' ? reason : e instanceof Error ? e.message.split('\n')[0] : String(e));
     }
     if (n <= 0) throw new PieceReadError(CHANGED_WHILE_READ);

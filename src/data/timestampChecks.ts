@@ -21,7 +21,7 @@ export function settleTimestamps(
   const order = decision.order === 'dayFirst' ? 'day/month/year' : 'month/day/year';
   for (const [r, text] of readings.oneOrderOnly) {
     if (Number.isNaN(seconds[r])) {
-      problems.add(r, column, 'invalid-date', `"${text}" is not a valid ${order} date; this file's dates read in that order because ${decision.reason}`);
+      problems.add(r, column, 'invalid-date', `"${text}" is not a valid ${order} date; this file’s dates read in that order because ${decision.reason}`);
     }
   }
   return { seconds, decision };

@@ -13,7 +13,7 @@ export type CloseOutcome = 'closed' | 'kept-open';
 /** The buttons of the unsaved-changes question, in order; Save is the default, Cancel the Escape answer. */
 export const UNSAVED_CHANGES_BUTTONS: readonly { label: string; choice: UnsavedChangesChoice }[] = [
   { label: 'Save', choice: 'save' },
-  { label: "Don't save", choice: 'discard' },
+  { label: "Don’t save", choice: 'discard' },
   { label: 'Cancel', choice: 'cancel' },
 ];
 export const UNSAVED_DEFAULT_BUTTON = 0;

@@ -17,6 +17,6 @@ export function withExtension(path: string, extension: string): string {
 
 /** A name for a save dialog: characters file systems refuse replaced, never empty. */
 export function suggestedFileName(name: string, extension: string, fallback = 'Untitled project'): string {
-  const cleaned = fileNameText(name); // the characters Windows refuses, as in the renderer's suggested names
+  const cleaned = fileNameText(name); // the characters Windows refuses, as in the renderer’s suggested names
   return withExtension(cleaned === '' ? fallback : cleaned, extension);
 }

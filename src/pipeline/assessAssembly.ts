@@ -32,6 +32,7 @@ import type { EvaluationPlan } from './plan/evaluationPlan';
 import { impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
+import { shareText } from '../core/shareText';
 
 /** The logged return's name wherever it is listed beside the candidates (shown through policyNames.ts). */
 export const BEHAVIOUR_NAME = 'logged return';
@@ -280,14 +281,14 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
     });
   }
   if (unvisited !== null && unvisited > 0.5) {
-    out.push({ severity: 'caution', topic: 'unvisited', message: `${(100 * unvisited).toFixed(0)} % of the value-surface grid has no logged state within one grid step: the surfaces are extrapolated there.` });
+    out.push({ severity: 'caution', topic: 'unvisited', message: `${shareText(unvisited)} of the value-surface grid has no logged state within one grid step: the surfaces are extrapolated there.` });
   }
   for (const c of candidates) {
     const { percentile: p, basic: b } = c.policyValue;
     if (p && b && Math.abs((p[0] + p[1]) / 2 - (b[0] + b[1]) / 2) > 0.25 * (p[1] - p[0])) {
-      out.push({ severity: 'caution', topic: 'bootstrap', message: `${c.name}: the percentile and basic intervals differ markedly, a sign of a skewed or biased estimator; read both.` });
+      out.push({ severity: 'caution', topic: 'bootstrap', candidate: c.name, message: `${c.name}: the percentile and basic intervals differ markedly, a sign of a skewed or biased estimator; read both.` });
     }
-    if (c.confirmation.status === 'unconfirmed') out.push({ severity: 'caution', topic: 'confirmation', message: `${c.name}: ${c.confirmation.text}` });
+    if (c.confirmation.status === 'unconfirmed') out.push({ severity: 'caution', topic: 'confirmation', candidate: c.name, message: `${c.name}: ${c.confirmation.text}` });
   }
   return out;
 }

@@ -66,7 +66,7 @@ export interface CrossCheckInputs {
 
 export function crossChecks(inputs: CrossCheckInputs): { checks: CrossCheck[]; confirmation: { status: 'confirmed' | 'contradicted' | 'unconfirmed'; text: string } } {
   const { replicates: r, points, weights } = inputs;
-  const importance = weights ? { effectiveEpisodes: weights.horizonEffectiveEpisodes, episodesReaching: weights.horizonEpisodes, horizonSteps: weights.horizonSteps, tailWeight: inputs.tailWeight } : undefined;
+  const importance = weights ? { effectiveEpisodes: weights.horizonEffectiveEpisodes, episodesReaching: weights.horizonEpisodes, horizonSteps: weights.horizonSteps, tailWeight: inputs.tailWeight, notNumbers: weights.horizonNotNumbers } : undefined;
   const checks = [
     crossCheck('weightedImportanceSampling', points.importanceSampling, r.importanceSampling, inputs.offPolicyReason, inputs, { weights: importance }),
     crossCheck('weightedDoublyRobust', points.doublyRobust, r.doublyRobust, inputs.offPolicyReason, inputs, { weights: importance }),
@@ -100,7 +100,7 @@ function rolloutCrossCheck(inputs: CrossCheckInputs): CrossCheck {
   if ('reason' in r) return notApplicable(method, r.reason);
   const fqe = inputs.work.model.fit.policyValue, covers = `sampling of the logged runs (${r.differenceReplicates.length} resamples), paired`;
   const difference = intervalEstimate(r.difference, r.differenceReplicates, inputs.level, inputs.sign, covers);
-  const estimate = { ...intervalEstimate(r.value, [], inputs.level, inputs.sign, `the model's value over ${r.starts} start states`) };
+  const estimate = { ...intervalEstimate(r.value, [], inputs.level, inputs.sign, `the model’s value over ${r.starts} start states`) };
   // The resamples reuse the rollouts' random numbers, so the Monte Carlo error of the full-data value is added on top of their spread.
   const ownError = Math.hypot(difference.standardError ?? Infinity, r.monteCarloError);
   // A fit without resamples is held at its full-data value in those replicates (assessRollouts.ts), so they hold the model's spread only: unpaired.

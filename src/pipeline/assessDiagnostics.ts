@@ -10,6 +10,7 @@ import { startMultiplicities } from '../core/bootstrap/startMultiplicities';
 import { meanStartFeatures } from '../core/features/policyFeatures';
 import { probabilityOutsideLoggedActions, type LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { effectiveSampleSizeFromLogs } from '../core/diagnostics/effectiveSampleSize';
+import { weightsNotNumbers } from '../core/offPolicy/effectiveRunsText';
 import { paddedLogWeightsAtStep } from '../core/offPolicy/paddedHorizonWeights';
 import { occupancyShift } from '../core/diagnostics/occupancyShift';
 import { actionSupportFinding, effectiveShareFinding, occupancyShiftFinding, upperPercentile } from '../core/diagnostics/severity';
@@ -90,7 +91,7 @@ function weightDiagnostics(table: ImportanceWeightTable, discount: number): Impo
   const atHorizon = paddedLogWeightsAtStep(table, horizonSteps - 1);
   return {
     oneStepEffectiveSize: oneStep, oneStepShare: oneStep / table.step.length,
-    horizonSteps, horizonEffectiveEpisodes: effectiveSampleSizeFromLogs(atHorizon), horizonEpisodes: atHorizon.length,
+    horizonSteps, horizonEffectiveEpisodes: effectiveSampleSizeFromLogs(atHorizon), horizonEpisodes: atHorizon.length, horizonNotNumbers: weightsNotNumbers(atHorizon),
   };
 }
 
@@ -113,7 +114,7 @@ function actionSupport(policy: GaussianPolicy, ranges: LoggedActionRanges, behav
 export function coverageWarnings(d: CoverageDiagnostics): AssessmentWarning[] {
   const findings = [
     d.occupancyShift === null ? null : occupancyShiftFinding(d.occupancyShift, d.presentControllerShift),
-    d.importanceWeights ? effectiveShareFinding(d.importanceWeights.horizonEffectiveEpisodes, d.importanceWeights.horizonEpisodes, d.importanceWeights.horizonSteps) : null,
+    d.importanceWeights ? effectiveShareFinding(d.importanceWeights.horizonEffectiveEpisodes, d.importanceWeights.horizonEpisodes, d.importanceWeights.horizonSteps, d.importanceWeights.horizonNotNumbers) : null,
     actionSupportFinding(d.actionSupport.meanOutside, d.actionSupport.neighbours, d.actionSupport.behaviourMeanOutside),
   ];
   return findings.filter((f): f is AssessmentWarning => f !== null);

@@ -20,7 +20,7 @@ export function impossibleValue(plan: EvaluationPlan, range: PossibleValues, mod
   const j = model.fit.policyValue, interval = estimate.percentile, inReward = interval && (plan.sign > 0 ? interval : [-interval[1], -interval[0]]);
   const wholly = inReward !== null && intervalOutsidePossible(inReward[0], inReward[1], range);
   if (outsidePossible(j, range) || wholly) {
-    const jText = valueAtPrecision(plan.sign * j, interval, ASCII_MINUS); // at its interval's precision (figures/parts/uncertainNumber.ts)
+    const jText = valueAtPrecision(plan.sign * j, interval, ASCII_MINUS); // at its interval’s precision (figures/parts/uncertainNumber.ts)
     const what = wholly && interval ? `J = ${jText} and its whole interval ${intervalAtPrecision(interval, ASCII_MINUS)} lie` : `J = ${jText} lies`;
     return [{
       severity: 'serious', topic: TOPIC,

@@ -47,6 +47,8 @@ export interface AssessmentWarning {
   /** Stable key for hosts (e.g. "distributionShift"), and the sentence for a reviewer. */
   topic: string;
   message: string;
+  /** In the whole-log list, the candidate a warning is about (its name); absent where it bears on every candidate. */
+  candidate?: string;
 }
 
 export interface ImportanceWeightDiagnostics {
@@ -57,6 +59,8 @@ export interface ImportanceWeightDiagnostics {
   horizonSteps: number;
   horizonEffectiveEpisodes: number;
   horizonEpisodes: number;
+  /** Runs whose weight at step H is not a number (NaN or +∞ in log form: effectiveRunsText.ts WHY_NOT_A_NUMBER); 0 as a rule. */
+  horizonNotNumbers: number;
 }
 
 export interface ActionSupportDiagnostics {

@@ -99,10 +99,10 @@ export function openPerDecisionRoute(
     note = `${ONE_THREAD_NOTE} (${first === null ? 'for the model rollouts; ' : first === 0 ? '' : `from resample ${first + 1}; `}the helper thread ${why})`;
   };
   if (helper && (data.length > 0 || shares.model || shares.rollouts)) {
-    const formed = ownJob(); // formed here: an error of the data's arises on this thread, as without a helper
+    const formed = ownJob(); // formed here: an error of the data’s arises on this thread, as without a helper
     const lent = lend(helper, formed, data);
     if ('refused' in lent) keepToOwn(`could not start: ${lent.refused}`, 0);
-    else [feed, note, given] = [lent.feed, lent.note, lent.feed && formed]; // the job's policies and counts stay readable here; its large arrays go to the helper
+    else [feed, note, given] = [lent.feed, lent.note, lent.feed && formed]; // the job’s policies and counts stay readable here; its large arrays go to the helper
   }
   return {
     async block(first, drawn) {

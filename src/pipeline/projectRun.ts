@@ -93,6 +93,6 @@ async function presentControllerModel(plan: EvaluationPlan, hooks: RunHooks, cou
     return { model: await buildModel(plan, planned, { ...hooks, onIteration: report, onDataPass: (done, total) => report(null, { done, total }) }, built), reason: '' };
   } catch (error) {
     if (!isEngineError(error)) throw error;
-    return { model: null, reason: `the present controller's model could not be fitted (${error.message})` };
+    return { model: null, reason: `the present controller’s model could not be fitted (${error.message})` };
   }
 }

@@ -158,8 +158,8 @@ function runRetuneMap(
   const onEdge = chosen !== null && chosen.coordinates.some((v, a) => v === grid.coordinates[a][0] || v === grid.coordinates[a][grid.coordinates[a].length - 1]);
   const notes = [
     ...(onEdge ? ['The best supported point lies on the edge of the grid: the optimum may lie beyond it; widen the range where the logs allow.'] : []),
-    `Supported: occupancy shift at or below ${fmt(OCCUPANCY_SHIFT_LIMITS.caution * reference)}, ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller's own level ${fmt(reference)} ` +
-      `(the candidates' rule); above ${fmt(OCCUPANCY_SHIFT_LIMITS.serious * reference)} the logs no longer speak for the estimate.`,
+    `Supported: occupancy shift at or below ${fmt(OCCUPANCY_SHIFT_LIMITS.caution * reference)}, ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller’s own level ${fmt(reference)} ` +
+      `(the candidates’ rule); above ${fmt(OCCUPANCY_SHIFT_LIMITS.serious * reference)} the logs no longer speak for the estimate.`,
     withIntervals
       ? `Intervals: ${Math.round(100 * level)} % percentile bootstrap over the ${e} logged runs, ${MAP_RESAMPLES} resamples per point (the same resamples at every point).`
       : `No intervals: ${e < 10 ? `${e} runs are too few to resample` : 'the grid is too large to resample every point within a minute'}.`,
@@ -179,7 +179,7 @@ function axisLabel(candidate: CandidateSpec, path: string, plan: EvaluationPlan)
 
 
 function describePoint(spec: RetuneMapSpec, point: number[]): string {
-  return point.map((v, a) => `${spec.axes[a].parameter} = ${v}`).join(', '); // the project's own paths, to find the field
+  return point.map((v, a) => `${spec.axes[a].parameter} = ${v}`).join(', '); // the project’s own paths, to find the field
 }
 
 /** The maps of a run, as a result: a map that cannot be formed is a problem naming it, not a crash. */

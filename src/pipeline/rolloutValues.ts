@@ -40,7 +40,7 @@ export interface RolloutJob {
   /** Per policy in the check's order (the candidates, then the present controller). */
   readonly policies: readonly GaussianPolicy[];
   readonly discount: number;
-  readonly startStates: Float64Array; // count×ds, the check's subset
+  readonly startStates: Float64Array; // count×ds, the check’s subset
   readonly rollout: RolloutSettings;
   /** Resamples 0 … resamples − 1 of the bootstrap with this seed over this many episodes. */
   readonly seed: number;

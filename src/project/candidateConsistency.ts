@@ -68,17 +68,17 @@ function checkFeedback(loop: Feedback, where: string, ctx: Context): void {
   const integral = loop.integralTimeSeconds !== undefined || (loop.integralGain ?? 0) > 0;
   if (!integral) return;
   if (loop.integralState === undefined) {
-    ctx.add(`${where}.integralState`, 'integral action needs the error-integral state: choose the integral of this loop\'s error as its error-integral state (the project file computes one on import as a derived state of kind "errorIntegral" among the states)');
+    ctx.add(`${where}.integralState`, 'integral action needs the error-integral state: choose the integral of this loop’s error as its error-integral state (the project file computes one on import as a derived state of kind "errorIntegral" among the states)');
     return;
   }
   if (!checkState(loop.integralState, `${where}.integralState`, ctx)) return;
   const integralState = ctx.derived.find((d) => d.name === loop.integralState);
   if (!integralState || integralState.kind !== 'errorIntegral') {
-    ctx.add(`${where}.integralState`, `"${loop.integralState}" is not an error integral computed on import; choose one of this loop's error as its error-integral state`);
+    ctx.add(`${where}.integralState`, `"${loop.integralState}" is not an error integral computed on import; choose one of this loop’s error as its error-integral state`);
     return;
   }
   if (integralState.measurement !== loop.measurement || integralState.setpoint !== loop.setpoint) {
-    ctx.add(`${where}.integralState`, `"${loop.integralState}" integrates ${JSON.stringify(integralState.setpoint)} − ${integralState.measurement}, but this loop's error is ${JSON.stringify(loop.setpoint)} − ${loop.measurement}; choose an error-integral state of the same measurement and setpoint`);
+    ctx.add(`${where}.integralState`, `"${loop.integralState}" integrates ${JSON.stringify(integralState.setpoint)} − ${integralState.measurement}, but this loop’s error is ${JSON.stringify(loop.setpoint)} − ${loop.measurement}; choose an error-integral state of the same measurement and setpoint`);
   }
 }
 

@@ -24,7 +24,7 @@ export function checkDerivedStates(doc: ProjectDocument, add: (path: string, mes
     for (const [field, column] of sources) {
       if (names.has(column) || derived.some((x) => x.name === column)) add(`${where}.${field}`, `"${column}" is a derived state; derived states are computed from file columns only`);
       if (actions.includes(column) && d.kind !== 'previous') {
-        add(`${where}.${field}`, `"${column}" is an action column: a derived state may use the candidate's own action only as its previous value (kind "previous"), because anything else would make the state depend on the action being chosen`);
+        add(`${where}.${field}`, `"${column}" is an action column: a derived state may use the candidate’s own action only as its previous value (kind "previous"), because anything else would make the state depend on the action being chosen`);
       }
     }
     const needsTime = (d.kind === 'errorIntegral' || d.kind === 'filtered') && d.periodSeconds === undefined;

@@ -229,7 +229,7 @@ export const candidateSchema = strictObject({
 }).superRefine((c, ctx) => {
   if (c.form && (c.offset || c.gain)) ctx.addIssue({ code: 'custom', path: [c.offset ? 'offset' : 'gain'], message: 'give the mean once: as "form", or as the older "offset" and "gain", not both' });
   if (!c.form) {
-    if (!c.offset && !c.gain) ctx.addIssue({ code: 'custom', path: ['form'], message: 'expected the candidate\'s form: {"kind": "pi" | "schedule" | "affine", …}' });
+    if (!c.offset && !c.gain) ctx.addIssue({ code: 'custom', path: ['form'], message: 'expected the candidate’s form: {"kind": "pi" | "schedule" | "affine", …}' });
     else if (!c.offset) ctx.addIssue({ code: 'custom', path: ['offset'], message: 'expected the offset of the affine form (one value per action)' });
     else if (!c.gain) ctx.addIssue({ code: 'custom', path: ['gain'], message: 'expected the gain of the affine form (one row per action)' });
   }

@@ -75,7 +75,7 @@ describe('exit statuses', () => {
     for (const out of [project, join(root, 'tank-levels.csv')]) {
       const run = await cli('report', project, '--out', out);
       expect(run.code).toBe(2);
-      expect(run.stderr).toMatch(/Not writing the report to .*: it is the (project file|project's data file)/);
+      expect(run.stderr).toMatch(/Not writing the report to .*: it is the (project file|project’s data file)/);
     }
     await symlink(project, join(root, 'link.html'));
     expect((await cli('report', project, '--out', join(root, 'link.html'))).code).toBe(2);

@@ -46,7 +46,7 @@ describe('expression limits', () => {
 
   it('clamp(r, 5, 1): constant limits that cross are refused at the clamp', () => {
     const e = refusal('clamp(r, 5, 1)');
-    expect(e.reason).toBe("clamp's lower limit 5 is above its upper limit 1; write clamp(x, lower, upper)");
+    expect(e.reason).toBe("clamp’s lower limit 5 is above its upper limit 1; write clamp(x, lower, upper)");
     expect(e.index).toBe(0);
     expect(refusal('clamp(r, -(1), -2)').reason).toContain('lower limit -1 is above its upper limit -2');
     expect(() => parseExpression('clamp(r, 1, 1)')).not.toThrow();

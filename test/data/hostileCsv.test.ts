@@ -48,7 +48,7 @@ describe('every row is accounted for', () => {
     expect(value.excluded).toHaveLength(1);
     expect(value.excluded[0]).toMatchObject({ line: 81, kind: 'quote' });
     expect(value.excluded[0].reason).toContain('never closed, so the rest of the file — 81 lines of text, to line 161 — was read into this one row');
-    expect(warnings.join('\n')).toContain("the file's 161 lines of text hold the header and 80 rows, so rows span 80 more lines than one each");
+    expect(warnings.join('\n')).toContain("the file’s 161 lines of text hold the header and 80 rows, so rows span 80 more lines than one each");
     expect(value.episodeReport).toContain('Rows: 80 read = 78 transitions + 1 excluded + 1 unused (kept, with no next row to pair with: the last of a run, or the row before an excluded one).');
   });
 

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
 import { niceNumber, niceTicks, TickRangeError } from '../../src/figures/parts/niceTicks';
-import { formatTick, formatValue } from '../../src/figures/parts/tickFormat';
+import { formatTick, formatValue, fractionDigitsOf, tickStepOf } from '../../src/figures/parts/tickFormat';
 
 describe('niceNumber (Heckbert, "Nice numbers for graph labels", Graphics Gems, 1990)', () => {
   // Heckbert's rules: rounded — fraction < 1.5 → 1, < 3 → 2, < 7 → 5, else 10; ceiling — ≤ 1, ≤ 2, ≤ 5, else 10.
@@ -69,5 +69,24 @@ describe('tick text', () => {
     expect(formatValue(123456.789)).toBe('123,500');
     expect(formatValue(0.012345)).toBe('0.01235');
     expect(formatValue(NaN)).toBe('NaN');
+  });
+
+  // The screen review saw two colour-bar ticks with one label: in exponent form the mantissa had two
+  // digits whatever the step. Every tick set of a narrow range far from 0 (or near 1e9 and beyond)
+  // must label each tick differently. The ranges are ours; the property is the one any axis needs.
+  it('never writes two ticks of one set alike, in exponent form too', () => {
+    const ranges: [number, number][] = [[9.651005724282472e-8, 9.651007378973049e-8], [-7.369244237136676e-15, -7.369243335238679e-15],
+      [90457894881.46828, 90531968624.54294], [-85250184957520.19, -85249197898227.19], [2.6547404484146937e-6, 2.6549271256411538e-6],
+      [0.99999, 1.00001], [-5e-5, 5e-5], [1e9, 1.0000001e9]];
+    for (const [lo, hi] of ranges) {
+      for (const target of [2, 5, 11]) {
+        const t = niceTicks(lo, hi, target), labels = t.values.map((v) => formatTick(v, t.fractionDigits, t.step));
+        expect(new Set(labels).size, `${lo}…${hi}: ${labels.join(' | ')}`).toBe(labels.length);
+        // An axis knows only its tick values: the same labels from them.
+        expect(t.values.map((v) => formatTick(v, fractionDigitsOf(t.values), tickStepOf(t.values)))).toEqual(labels);
+      }
+    }
+    expect(formatTick(9.6515e-8, 12, 5e-12)).toBe('9.6515e−8');
+    expect(formatTick(2.5e9, 0, 5e8)).toBe('2.50e9'); // a coarse step keeps the two digits
   });
 });

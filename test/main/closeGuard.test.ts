@@ -23,7 +23,7 @@ describe('close guard decisions', () => {
   });
 
   it('offers Save / Don\'t save / Cancel, Save by default, Escape cancels, anything else keeps the window', () => {
-    expect(UNSAVED_CHANGES_BUTTONS.map((b) => b.label)).toEqual(['Save', "Don't save", 'Cancel']);
+    expect(UNSAVED_CHANGES_BUTTONS.map((b) => b.label)).toEqual(['Save', 'Don’t save', 'Cancel']);
     expect(choiceForButton(UNSAVED_DEFAULT_BUTTON)).toBe('save');
     expect(choiceForButton(1)).toBe('discard');
     expect(choiceForButton(UNSAVED_CANCEL_BUTTON)).toBe('cancel');

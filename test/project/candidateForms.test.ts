@@ -70,7 +70,7 @@ describe('candidate forms in the project document', () => {
     const found = problems(doc).join('\n');
     expect(found).toMatch(/"A"\.form\.loops\[0\]\.measurement: "tmep" is not one of the state columns/);
     expect(found).toMatch(/"B"\.form\.loops\[0\]\.integralState: integral action needs the error-integral state/);
-    expect(found).toMatch(/"C"\.form\.loops\[0\]\.integralState: "ie" integrates 21 − temp, but this loop's error is 20 − temp/);
+    expect(found).toMatch(/"C"\.form\.loops\[0\]\.integralState: "ie" integrates 21 − temp, but this loop’s error is 20 − temp/);
     expect(found).toMatch(/"D"\.form\.loops\[0\]\.breakpoints\[1\]: breakpoints must increase strictly/);
     expect(found).toMatch(/"E"\.rateLimit\.previousAction\[0\]: "ie" is not the previous value of valve; choose the state that holds valve one sample earlier/);
     expect(found).toMatch(/"F"\.rateLimit: a rate limit clips the action, so the actuator limits must clip too: set "At a limit" to Clip/);

@@ -65,9 +65,9 @@ export function memoryComponent(result: PlantMemoryResult): ComponentMemory | nu
 }
 
 export function plantMemoryRuleText(): string {
-  return `Plant memory: each next-state value is regressed on polynomial terms of the present state and action (up to two degrees above the one-step plant model's, so that a misfit of the present row is not read as memory), then on the states and actions of the earlier rows of the same run as well ` +
+  return `Plant memory: each next-state value is regressed on polynomial terms of the present state and action (up to two degrees above the one-step plant model’s, so that a misfit of the present row is not read as memory), then on the states and actions of the earlier rows of the same run as well ` +
     `(residual analysis of a one-step model, Ljung 1999, §16.6, as a nested least-squares regression with an F-test); the share of what the model left that the earlier rows explain, adjusted for chance, ` +
-    `above ${memoryPercent(MEMORY_CAUTION)} is a caution and above ${memoryPercent(MEMORY_SERIOUS)} serious (when its F also exceeds its 0.1 % point): the logged state then does not carry the plant's memory, which every estimate and cross-check here assumes. ` +
+    `above ${memoryPercent(MEMORY_CAUTION)} is a caution and above ${memoryPercent(MEMORY_SERIOUS)} serious (when its F also exceeds its 0.1 % point): the logged state then does not carry the plant’s memory, which every estimate and cross-check here assumes. ` +
     'Where it is serious, the model rollouts and the linear-quadratic closed form are not applied (they simulate a one-step model that assumes the same), and no candidate is named for a trial.';
 }
 

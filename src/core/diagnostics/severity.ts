@@ -32,7 +32,8 @@
  */
 
 import { DEFAULT_START_COVERAGE } from './startCoverage';
-import { effectiveRunsText } from '../offPolicy/effectiveRunsText';
+import { effectiveRunsNumber, effectiveRunsText } from '../offPolicy/effectiveRunsText';
+import { shareText } from '../shareText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -95,9 +96,9 @@ const percent = (share: number): string => `${fixed(100 * share, share < 0.1 ? 1
 export function occupancyShiftRuleText(): string {
   const { caution, serious } = OCCUPANCY_SHIFT_LIMITS;
   return `Occupancy shift: how far the states and actions the candidate would visit (discounted, from the start states) lie from the logged ones, ` +
-    `in the fitted model's own terms; 1 means like the logs. The error of the estimate grows with its square root, as if the log held 1/shift of its data. ` +
-    `It is read against the present controller's own shift (at least 1; above 1 when the runs start away from where they spend their time): ` +
-    `caution above ${caution} times that level (error twice the present controller's), serious above ${serious} times (more than ${fixed(Math.sqrt(serious), 1)} times) — our rule.`;
+    `in the fitted model’s own terms; 1 means like the logs. The error of the estimate grows with its square root, as if the log held 1/shift of its data. ` +
+    `It is read against the present controller’s own shift (at least 1; above 1 when the runs start away from where they spend their time): ` +
+    `caution above ${caution} times that level (error twice the present controller’s), serious above ${serious} times (more than ${fixed(Math.sqrt(serious), 1)} times) — our rule.`;
 }
 
 /** The level a shift is read against: the present controller's own shift, at least 1 (1 without it). */
@@ -120,7 +121,7 @@ export function occupancyShiftFinding(shift: number, loggedShift: number | null)
   return {
     severity, topic: 'occupancyShift',
     message: `Occupancy shift ${threeDigits(shift)}${own}, above the ${severity} limit ${fixed(limit, limit < 100 ? 1 : 0)}: the candidate would spend its time where the logs are thin, ` +
-      `so its estimate carries about ${fixed(Math.sqrt(ratio), 1)} times the error of the present controller's and leans on extrapolating the fitted model.`,
+      `so its estimate carries about ${fixed(Math.sqrt(ratio), 1)} times the error of the present controller’s and leans on extrapolating the fitted model.`,
   };
 }
 
@@ -130,12 +131,14 @@ export function effectiveShareRuleText(): string {
     `caution below ${percent(caution)}, serious below ${percent(serious)} (a common rule of thumb).`;
 }
 
-export function effectiveShareFinding(effectiveEpisodes: number, episodes: number, step: number): SeverityFinding | null {
+export function effectiveShareFinding(effectiveEpisodes: number, episodes: number, step: number, notNumbers = 0): SeverityFinding | null {
+  // Weights that are not numbers carry no usable weight: the size is read as 0 (which Kish's formula gives with a NaN among them).
+  if (notNumbers > 0) effectiveEpisodes = 0;
   const severity = episodes > 0 ? severityBelow(effectiveEpisodes / episodes, EFFECTIVE_SHARE_LIMITS) : null;
   if (!severity) return null;
   return {
     severity, topic: 'importanceWeights',
-    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${threeDigits(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes)} from ${episodes} runs`} ` +
+    message: `Importance weights at step ${step}: ${effectiveEpisodes >= 1 ? `effective size ${effectiveRunsNumber(effectiveEpisodes)} of ${episodes} runs` : `${effectiveRunsText(effectiveEpisodes, notNumbers)} from ${episodes} runs`} ` +
       `(below ${percent(severity === 'serious' ? EFFECTIVE_SHARE_LIMITS.serious : EFFECTIVE_SHARE_LIMITS.caution)}): ` +
       // With no weight at all the checks are not applied (crossCheckVerdict: "not applicable"), so "a few runs" would contradict them.
       (effectiveEpisodes >= 1 ? 'the importance-sampling cross-checks rest on a few runs.'
@@ -146,17 +149,17 @@ export function effectiveShareFinding(effectiveEpisodes: number, episodes: numbe
 
 export function actionSupportRuleText(): string {
   const { caution, serious } = ACTION_SUPPORT_LIMITS;
-  return `Action support: the mean share of the candidate's action probability outside the actions logged near each state; ` +
-    `caution above ${percent(caution)}, serious above ${percent(serious)} (our rule; the present controller's own share is shown for scale).`;
+  return `Action support: the mean share of the candidate’s action probability outside the actions logged near each state; ` +
+    `caution above ${percent(caution)}, serious above ${percent(serious)} (our rule; the present controller’s own share is shown for scale).`;
 }
 
 export function actionSupportFinding(meanOutside: number, neighbours: number, loggedMeanOutside: number | null): SeverityFinding | null {
   const severity = severityAbove(meanOutside, ACTION_SUPPORT_LIMITS);
   if (!severity) return null;
-  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${percent(loggedMeanOutside)})`;
+  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${shareText(loggedMeanOutside)})`;
   return {
     severity, topic: 'actionSupport',
-    message: `On average ${percent(meanOutside)} of the candidate's action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
+    message: `On average ${shareText(meanOutside)} of the candidate’s action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
       'there Q is extrapolated to actions the logs do not hold.',
   };
 }

@@ -62,5 +62,5 @@ export function withClassErrorAllowance(interval: ValueInterval, allowance: numb
 export function classErrorSentence(share = CLASS_ERROR_SHARE): string {
   const part = share === 0.25 ? 'a quarter' : `${+(100 * share).toFixed(1)} %`;
   return `where the network and the linear estimate disagree beyond that resampling, both ends are moved out by ${part} of that excess ` +
-    '(an allowance for the function class\'s error, chosen on the battery of plants with known answers; it is not a bound)';
+    '(an allowance for the function class’s error, chosen on the battery of plants with known answers; it is not a bound)';
 }

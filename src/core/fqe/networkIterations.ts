@@ -203,7 +203,7 @@ function possibleIterate(
 }
 
 function beyondReach(k: number, s: FitSession, values: MeasuredIterate): IterationStop {
-  return diverged(k, `the values reach |Q| = ${values.reach.toPrecision(4)}, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy's value can reach`);
+  return diverged(k, `the values reach |Q| = ${values.reach.toPrecision(4)}, beyond the limit ${s.valueLimit.toPrecision(4)} (2·max|r|/(1−γ) plus one output-scale unit) that no policy’s value can reach`);
 }
 
 /** The iterate after which the step size starts to decay (networkMethod.ts), or null: not yet. */

@@ -42,7 +42,7 @@ export function createNextInputs(
   const ds = data.stateDim, m = data.actionDim, p = ds + m, k = quadrature.maxPoints;
   // Budgeted on the whole data set, since training and held-out inputs are both kept.
   if (data.count * k * p > MAX_NEXT_INPUT_VALUES) {
-    throw new FqeOptionsError(`quadratureNodes: ${quadratureNodes} nodes per action dimension give ${k} points per next state, and ${data.count} transitions × ${k} points × ${p} inputs exceed the network path's budget of ${MAX_NEXT_INPUT_VALUES} values; use fewer quadratureNodes`);
+    throw new FqeOptionsError(`quadratureNodes: ${quadratureNodes} nodes per action dimension give ${k} points per next state, and ${data.count} transitions × ${k} points × ${p} inputs exceed the network path’s budget of ${MAX_NEXT_INPUT_VALUES} values; use fewer quadratureNodes`);
   }
   const n = transitions.length;
   const points = new Float64Array(k * m), nodeWeights = new Float64Array(k);

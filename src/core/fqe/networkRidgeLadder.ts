@@ -64,5 +64,5 @@ export function ridgeLadderSentence(raised: readonly { readonly iteration: numbe
   const at = raised.length === 1 ? `At outer iteration ${raised[0].iteration}` : raised.length <= 3
     ? `At outer iterations ${raised.map((r) => r.iteration).join(', ')}` : `At ${raised.length} outer iterations (the first at iteration ${raised[0].iteration})`;
   return `${at} the last layer gave values no policy can have with the default hidden ridge ${defaultRidge}, ` +
-    `so it was solved again with a larger one (up to ${top}, ×${RIDGE_LADDER_FACTOR} per step, at most ${RIDGE_LADDER_RUNGS} steps), which pulls those iterates toward the polynomial part's own fixed point (the network's linear start).`;
+    `so it was solved again with a larger one (up to ${top}, ×${RIDGE_LADDER_FACTOR} per step, at most ${RIDGE_LADDER_RUNGS} steps), which pulls those iterates toward the polynomial part’s own fixed point (the network’s linear start).`;
 }

@@ -57,7 +57,7 @@ export interface EstimateOptions {
 }
 
 export const INTERVAL_COVERS =
-  'resampling whole runs and re-solving the last layer on the learned features, widened by the spread of J over the training\'s iterates: ' +
+  'resampling whole runs and re-solving the last layer on the learned features, widened by the spread of J over the training’s iterates: ' +
   'it covers which runs happened to be logged, the randomness of the training and how far the stopping rule lets J still move, not the error of the function class outside the logged states';
 
 export function valueInterval(b: BootstrapInterval): ValueInterval {

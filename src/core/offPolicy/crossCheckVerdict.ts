@@ -45,7 +45,7 @@ export interface CrossCheckEvidence {
   readonly paired?: boolean;
   readonly fqe: number; // J by FQE
   /** Weighted importance sampling and doubly robust: weights at the effective horizon and the tail weight γ^H. */
-  readonly weights?: { readonly effectiveEpisodes: number; readonly episodesReaching: number; readonly horizonSteps: number; readonly tailWeight: number };
+  readonly weights?: { readonly effectiveEpisodes: number; readonly episodesReaching: number; readonly horizonSteps: number; readonly tailWeight: number; readonly notNumbers?: number };
   /** Model rollouts: the discounted share of simulated steps at the logged-range edge. */
   readonly shareOutsideLogs?: number;
 }
@@ -58,7 +58,7 @@ export interface CheckVerdict {
   readonly fromPlantModel?: boolean;
 }
 
-const UNPAIRED_WORDS = 'standard errors of the difference, unpaired: the fit has no resamples to pair with, so its own standard error is added to the check\'s';
+const UNPAIRED_WORDS = 'standard errors of the difference, unpaired: the fit has no resamples to pair with, so its own standard error is added to the check’s';
 
 export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   const r = CROSS_CHECK_RULE, scale = Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
@@ -89,10 +89,11 @@ function weakness(e: CrossCheckEvidence): string | null {
   const r = CROSS_CHECK_RULE, w = e.weights;
   if (w) {
     const needed = Math.max(r.minEffectiveEpisodes, r.minEffectiveShare * w.episodesReaching);
+    if (w.notNumbers) return `at step ${w.horizonSteps} the importance weights carry ${effectiveRunsText(0, w.notNumbers)}, where ${needed.toFixed(0)} runs are needed`;
     if (w.effectiveEpisodes < needed) return w.effectiveEpisodes >= 1
       ? `at step ${w.horizonSteps} the importance weights have an effective size of ${effectiveRunsText(w.effectiveEpisodes)} (below ${needed.toFixed(0)})`
       : `at step ${w.horizonSteps} the importance weights carry ${effectiveRunsText(w.effectiveEpisodes)}, where ${needed.toFixed(0)} runs are needed`;
-    if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged runs' ends, where it uses fitted Q-evaluation's own value`;
+    if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged runs’ ends, where it uses fitted Q-evaluation’s own value`;
   }
   if (e.shareOutsideLogs !== undefined && e.shareOutsideLogs > r.maxShareOutsideLogs) {
     return `${(100 * e.shareOutsideLogs).toFixed(0)} % of the simulated (discounted) steps reach the edge of the logged states, where the fitted model extrapolates`;

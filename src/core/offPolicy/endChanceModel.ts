@@ -35,7 +35,7 @@ export interface EndChanceData {
   readonly features: FeatureMap;
   readonly design: Float64Array; // n×d
   readonly ended: Uint8Array; // n
-  readonly episodeOf: Int32Array; // n: the transition's episode
+  readonly episodeOf: Int32Array; // n: the transition’s episode
   /** Each row's sampling weight: 1 where every row of its class is kept. */
   readonly rowWeight: Float64Array; // n
 }
@@ -104,7 +104,7 @@ export function fitEndChance(source: EndChanceData, multiplicities?: ArrayLike<n
     objective = Math.max(objective, value);
     if (change <= TOLERANCE * size) return { features: source.features, weights: beta };
   }
-  throw new ModelFitError(`fitting the chance that a run ends: Newton's method did not settle in ${MAX_STEPS} steps`);
+  throw new ModelFitError(`fitting the chance that a run ends: Newton’s method did not settle in ${MAX_STEPS} steps`);
 }
 
 /** σ(βᵀψ) at one (s, a) whose features are ψ (d, from offset). */

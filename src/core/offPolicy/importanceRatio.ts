@@ -47,8 +47,8 @@ export function logImportanceRatio(
     let j = 0;
     while (!(unmatched & (1 << j))) j++;
     throw new ImportanceRatioError(
-      `action ${j + 1} = ${action[j]} sits at the candidate's limit, where the candidate has a point mass but the present ` +
-        'controller\'s model has none: the logs cannot represent that point mass, so the importance ratio does not exist',
+      `action ${j + 1} = ${action[j]} sits at the candidate’s limit, where the candidate has a point mass but the present ` +
+        'controller’s model has none: the logs cannot represent that point mass, so the importance ratio does not exist',
     );
   }
   if (targetMask !== behaviourMask) return -Infinity; // π continuous where b has an atom

@@ -61,7 +61,7 @@ export function rankEntries(data: PerDecisionData): RankedEntries {
   const weight = new Float64Array(n), weightedReward = new Float64Array(n);
   const withValues = data.actionValues !== null && data.stateValues !== null;
   const weightedAction = withValues ? new Float64Array(n) : null, weightedState = withValues ? new Float64Array(n) : null;
-  const last = new Int32Array(e).fill(-1); // each episode's entry at the step before
+  const last = new Int32Array(e).fill(-1); // each episode’s entry at the step before
   for (let t = 0; t < horizon; t++) {
     for (let j = stepOffsets[t]; j < stepOffsets[t + 1]; j++) {
       const k = data.episode[j], to = stepOffsets[t] + rankOf[k];

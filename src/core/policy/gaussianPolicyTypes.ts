@@ -25,8 +25,8 @@ export interface ActuatorBounds {
 export interface MeanSchedule {
   readonly action: number; // index of the action it adds to, 0 ≤ action < m
   readonly state: number; // index of the state it reads, 0 ≤ state < ds
-  readonly breakpoints: Float64Array; // k ≥ 1, strictly increasing, in the state's units
-  readonly values: Float64Array; // k, in the action's units
+  readonly breakpoints: Float64Array; // k ≥ 1, strictly increasing, in the state’s units
+  readonly values: Float64Array; // k, in the action’s units
 }
 
 /**

@@ -4,7 +4,7 @@
  */
 import type { ChartOptions, Plugin, ScaleOptions } from 'chart.js';
 import { axisTitlePlugin } from './axisTitle';
-import { formatTick, fractionDigitsOf } from './tickFormat';
+import { formatTick, fractionDigitsOf, tickStepOf } from './tickFormat';
 import { font, PLOT_FONTS, type PlotLook } from './plotLook';
 
 export const CHART_STYLE_DEFAULTS = { paddingPx: 10, titleGapPx: 6, legendBoxPx: 18, legendGapPx: 12, tooltipPaddingPx: 8 } as const;
@@ -55,7 +55,7 @@ export function valueAxis(look: PlotLook, _title: string, position: 'left' | 'ri
       // Never rotated: a rotated label's box reaches into its neighbours' and the axis title's;
       // Chart.js leaves out every other label instead, with at least autoSkipPadding between two.
       color: p.text, font: font(look, PLOT_FONTS.tickPx), padding: 4 * s, includeBounds: false, maxRotation: 0, autoSkipPadding: 8 * s,
-      callback: (value, _index, ticks) => formatTick(Number(value), fractionDigitsOf(ticks.map((t) => t.value))),
+      callback: (value, _index, ticks) => formatTick(Number(value), fractionDigitsOf(ticks.map((t) => t.value)), tickStepOf(ticks.map((t) => t.value))),
     },
     grid: { color: p.grid, lineWidth: s, drawOnChartArea: gridInside, tickLength: 5 * s, tickColor: p.axis },
     border: { display: true, color: p.axis, width: s },

@@ -117,7 +117,7 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
   }
 
   private tickText(v: number): string {
-    return formatTick(v, this.ticks?.fractionDigits ?? 0);
+    return formatTick(v, this.ticks?.fractionDigits ?? 0, this.ticks?.step);
   }
 }
 

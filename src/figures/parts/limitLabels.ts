@@ -27,7 +27,7 @@ export function limitLabelBoxes(
   for (const r of requests) {
     const outsideRoom = r.side === 'lower' ? r.x - area.left : area.right - r.x;
     const outside = outsideRoom >= r.widthPx + gap + 2 * pad;
-    const leftward = (r.side === 'lower') === outside; // a lower limit's far side is its left
+    const leftward = (r.side === 'lower') === outside; // a lower limit’s far side is its left
     let left = leftward ? r.x - gap - r.widthPx : r.x + gap;
     left = Math.min(Math.max(left, area.left + pad), area.right - pad - r.widthPx);
     let top = area.top + pad;

@@ -10,11 +10,30 @@ import { LARGEST_FIXED, SMALLEST_FIXED, TRUE_MINUS, intervalDecimals, valueAtPre
 /** Tick labels from here on are written in exponent form: fixed notation would run past eleven characters. */
 const WIDEST_FIXED_TICK = 1e9;
 
-export function formatTick(value: number, fractionDigits: number): string {
+/**
+ * A tick label. `step` is the distance between neighbouring ticks: in exponent form the mantissa
+ * keeps as many digits as tell neighbours apart (at least EXPONENT_DIGITS after the point), so a
+ * narrow range far from 0 ("9.6510e−8, 9.6515e−8") never writes two ticks alike ("9.65e−8" twice,
+ * the duplicate label the screen review saw on a colour bar).
+ */
+export function formatTick(value: number, fractionDigits: number, step?: number): string {
   if (value === 0) return (0).toFixed(Math.min(20, fractionDigits));
   const magnitude = Math.abs(value);
-  if (magnitude >= WIDEST_FIXED_TICK || magnitude < SMALLEST_FIXED) return trueMinus(value.toExponential(2).replace('e+', 'e'));
+  if (magnitude >= WIDEST_FIXED_TICK || magnitude < SMALLEST_FIXED) return trueMinus(value.toExponential(mantissaDigits(magnitude, step)).replace('e+', 'e'));
   return toDecimals(value, fractionDigits);
+}
+
+/** Digits after the point of an exponent-form mantissa: fewest EXPONENT_DIGITS, more where the step is finer than that (at most 14, a double's). */
+const EXPONENT_DIGITS = 2;
+function mantissaDigits(magnitude: number, step: number | undefined): number {
+  if (!(step !== undefined && step > 0 && Number.isFinite(step))) return EXPONENT_DIGITS;
+  const needed = Math.floor(Math.log10(magnitude) + 1e-9) - Math.floor(Math.log10(step) + 1e-9);
+  return Math.min(14, Math.max(EXPONENT_DIGITS, needed));
+}
+
+/** The distance between neighbouring ticks, from their values (0 with fewer than two). */
+export function tickStepOf(values: readonly number[]): number {
+  return values.length < 2 ? 0 : Math.abs(values[1] - values[0]);
 }
 
 /** Fixed decimals with thousands separators and a true minus, never exponent form. */

@@ -31,6 +31,6 @@ export function planPresentController(data: TransitionSet, quadratureNodes: numb
     return { planned: null, fitted: null, reason: `no model of the present controller could be fitted to the log (${error.message})` };
   }
   const problem = quadratureProblem(fitted.policy, quadratureNodes);
-  if (problem) return { planned: null, fitted, reason: `the present controller's model clips at the logged limits, and for it ${problem}` };
+  if (problem) return { planned: null, fitted, reason: `the present controller’s model clips at the logged limits, and for it ${problem}` };
   return { planned: { index: -1, name: PRESENT_CONTROLLER_NAME, policy: fitted.policy }, fitted, reason: '' };
 }

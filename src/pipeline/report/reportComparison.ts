@@ -7,6 +7,7 @@ import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
 import { policyLabel } from '../policyNames';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
+import { shareText } from '../../core/shareText';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
   const a = input.assessment;
@@ -41,12 +42,12 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
     <h3>Ranking</h3>
     <p>By point estimate: <strong>${a.comparison.ranking.order.map(policyLabel).join(' › ')}</strong>. ${a.comparison.ranking.frequency === null
       ? 'How often it holds is not known: not every policy was resampled.'
-      : `This whole order holds in ${formatPercent(a.comparison.ranking.frequency)} of the resamples.`}</p>
-    <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${policyLabel(n.better)} better than ${policyLabel(n.worse)}${n.frequency === null ? '' : ` in ${formatPercent(n.frequency)} of resamples`}</li>`)}</ul>`;
+      : `This whole order holds in ${shareText(a.comparison.ranking.frequency)} of the resamples.`}</p>
+    <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${policyLabel(n.better)} better than ${policyLabel(n.worse)}${n.frequency === null ? '' : ` in ${shareText(n.frequency)} of resamples`}</li>`)}</ul>`;
 }
 
 function resampleShare(share: number | null): string {
-  return share === null ? '—' : `${formatPercent(share)} of resamples`;
+  return share === null ? '—' : `${shareText(share)} of resamples`;
 }
 
 /** J, its bootstrap s.e. (two significant digits) and its two intervals, each at the precision its interval carries. */

@@ -9,6 +9,8 @@ import { estimateCells, intervalFigure, shownName } from './reportComparison';
 import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
+import { shareText } from '../../core/shareText';
+import { effectiveRunsNumber } from '../../core/offPolicy/effectiveRunsText';
 
 export function diagnosticsSection(input: ReportInput): Html {
   const a = input.assessment;
@@ -18,7 +20,7 @@ export function diagnosticsSection(input: ReportInput): Html {
     <table><thead><tr><th>Diagnostic</th>${a.candidates.map((c) => html`<th class="num">${c.name}</th>`)}<th class="num">present controller</th></tr></thead><tbody>
     ${diagnosticRows(a).map((row) => html`<tr><td>${row.label}</td>${row.values.map((v) => html`<td class="num">${v}</td>`)}<td class="num">${row.reference}</td></tr>`)}
     </tbody></table>
-    <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${formatPercent(a.unvisitedShare, 0)} of the value-surface grid has no logged state within one grid step.`}</p>
+    <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${shareText(a.unvisitedShare)} of the value-surface grid has no logged state within one grid step.`}</p>
     ${memoryParagraph(a)}
     <h3>Warnings</h3>${warningList([...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))])}</section>`;
 }
@@ -39,11 +41,11 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
     row(`… ${UPPER_PERCENTILE}th percentile over resamples`, (c) => formatNumber(c.diagnostics.occupancyShiftUpper, 3), ''),
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
-    row('Importance weights: effective share of the one-step ratios', (c) => formatPercent(weights(c)?.oneStepShare), ''),
-    row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return !w ? '—' : w.horizonEffectiveEpisodes >= 1 ? `${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes}` : `${w.horizonEffectiveEpisodes > 0 ? 'less than 1' : 'none'} of ${w.horizonEpisodes}`; }, ''),
-    row('Action probability outside the logged range near the state: mean', (c) => formatPercent(c.diagnostics.actionSupport.meanOutside), formatPercent(first?.actionSupport.behaviourMeanOutside)),
-    row(`… ${UPPER_PERCENTILE}th percentile over states`, (c) => formatPercent(c.diagnostics.actionSupport.p90Outside), ''),
-    row('… largest', (c) => formatPercent(c.diagnostics.actionSupport.maxOutside), ''),
+    row('Importance weights: effective share of the one-step ratios', (c) => shareText(weights(c)?.oneStepShare), ''),
+    row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return !w ? '—' : w.horizonNotNumbers ? `not a number for ${w.horizonNotNumbers} of ${w.horizonEpisodes}` : w.horizonEffectiveEpisodes >= 1 ? `${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes}` : `${w.horizonEffectiveEpisodes > 0 ? 'less than 1' : 'none'} of ${w.horizonEpisodes}`; }, ''),
+    row('Action probability outside the logged range near the state: mean', (c) => shareText(c.diagnostics.actionSupport.meanOutside), shareText(first?.actionSupport.behaviourMeanOutside)),
+    row(`… ${UPPER_PERCENTILE}th percentile over states`, (c) => shareText(c.diagnostics.actionSupport.p90Outside), ''),
+    row('… largest', (c) => shareText(c.diagnostics.actionSupport.maxOutside), ''),
   ];
 }
 

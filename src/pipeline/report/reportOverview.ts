@@ -7,6 +7,7 @@ import { senseWords, type ReportInput } from './reportInput';
 import { policyLabel } from '../policyNames';
 import { PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
 import { loggedLimitText } from '../../core/loggedLimitWords';
+import { shareText } from '../../core/shareText';
 
 export function summarySection(input: ReportInput): Html {
   const a = input.assessment, e = input.evaluation, words = senseWords(input);
@@ -14,7 +15,7 @@ export function summarySection(input: ReportInput): Html {
   const best = ranking ? policyLabel(ranking.order[0]) : [...e.policies].sort((x, y) => (e.valueSense === 'cost' ? x.policyValue - y.policyValue : y.policyValue - x.policyValue))[0]?.name;
   const serious = a ? [...a.warnings, ...a.candidates.flatMap((c) => c.warnings)].filter((w) => w.severity === 'serious').length : null;
   return html`<div class="summary" id="summary"><p><strong>Summary.</strong> Values are the ${words.value} (${words.better}). By point estimate the best policy is
-    <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.map(policyLabel).join(' › ')} holds in ${formatPercent(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
+    <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.map(policyLabel).join(' › ')} holds in ${shareText(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
     ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p></div>`;
 }
 

@@ -36,7 +36,7 @@ describe('severity', () => {
     // (plainNumber(v, 3)): the two-valve screen review showed "3787.4 (the present controller: 28.32)" above "3790 … (28.3)".
     expect(occupancyShiftFinding(3787.4, 28.32)!.message).toMatch(/^Occupancy shift 3790 \(the present controller: 28\.3\), above the serious limit 283:/);
     // Where every weight is zero the checks are not applied: the warning says so rather than "rest on a few runs" (heating-loop sample, rate-limited PI).
-    expect(effectiveShareFinding(0, 40, 20)!.message).toMatch(/no run's worth of weight .* cannot be applied\.$/);
+    expect(effectiveShareFinding(0, 40, 20)!.message).toMatch(/no run’s worth of weight .* cannot be applied\.$/);
     expect(effectiveShareFinding(0, 40, 20)!.message).not.toContain('a few runs');
     expect(effectiveShareFinding(0.04, 40, 20)!.message).toMatch(/rest on less than one run\.$/);
     expect(effectiveShareFinding(3.4512, 40, 33)!.message).toContain(`effective size ${plainNumber(3.4512, 3)} of 40 runs`); // as the coverage sentence and the report's table
@@ -47,7 +47,7 @@ describe('severity', () => {
     expect(effectiveShareFinding(2, 300, 33)).toMatchObject({ severity: 'serious', topic: 'importanceWeights' });
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20 of 300 runs \(below 10 %\)/);
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/the importance-sampling cross-checks rest on a few runs/);
-    expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the present controller itself: 2\.0 %\)/);
+    expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the present controller itself: 2 %\)/);
   });
 
   // A shift of tens of thousands is common far from the logs, and a log of 100,000 runs is not rare:

@@ -61,7 +61,7 @@ describe('the hidden-ridge ladder', () => {
     expect(one).toMatch(/^At outer iteration 1 the last layer/);
     expect(one).toContain(`×${RIDGE_LADDER_FACTOR} per step, at most ${RIDGE_LADDER_RUNGS} steps`);
     // As λ_h grows the hidden weights go to 0: the polynomial part's own fixed point, whatever its degree (quadratic only by default).
-    expect(one).toContain("toward the polynomial part's own fixed point");
+    expect(one).toContain("toward the polynomial part’s own fixed point");
     expect(ridgeLadderSentence([1, 4, 7, 9].map((iteration) => ({ iteration, hiddenRidge: 0.1 })), 0.01)).toMatch(/^At 4 outer iterations \(the first at iteration 1\)/);
   });
 });

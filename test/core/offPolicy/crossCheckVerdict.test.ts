@@ -35,7 +35,7 @@ describe('crossCheckVerdict', () => {
   it('is uninformative when the importance weights collapse or the tail carries most of the weight', () => {
     const ok = { ...base, shareOutsideLogs: undefined, label: 'Doubly robust' };
     expect(crossCheckVerdict({ ...ok, weights }).agreement).toBe('agrees');
-    expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 29 } }).note).toMatch(/effective size of 29\.0 runs \(below 30\)/);
+    expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 29 } }).note).toMatch(/effective size of 29 runs \(below 30\)/);
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 9, episodesReaching: 40 } }).note).toMatch(/below 10/);
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, tailWeight: 0.6 } }).note).toMatch(/60 % of the discount weight lies past/);
   });
@@ -45,12 +45,12 @@ describe('crossCheckVerdict', () => {
   it('says an effective size below one run in words, from the same number', () => {
     const ok = { ...base, shareOutsideLogs: undefined, label: 'Doubly robust' };
     const note = crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 0.0412 } }).note;
-    expect(note).toMatch(/importance weights carry less than one run's worth of weight \(0\.041 of a run\), where 30 runs are needed/);
+    expect(note).toMatch(/importance weights carry less than one run’s worth of weight \(0\.041 of a run\), where 30 runs are needed/);
     expect(note).not.toMatch(/0\.0 runs/);
-    expect(effectiveShareFinding(0.0412, 300, 33)!.message).toMatch(/^Importance weights at step 33: less than one run's worth of weight \(0\.041 of a run\) from 300 runs/);
+    expect(effectiveShareFinding(0.0412, 300, 33)!.message).toMatch(/^Importance weights at step 33: less than one run’s worth of weight \(0\.041 of a run\) from 300 runs/);
     expect(effectiveRunsText(12.34)).toBe('12.3 runs');
     const none = crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 0 } }).note;
-    expect(none).toMatch(/importance weights carry no run's worth of weight \(every logged run takes an action the candidate would never take\), where 30 runs are needed/);
+    expect(none).toMatch(/importance weights carry no run’s worth of weight \(every logged run takes an action the candidate would never take\), where 30 runs are needed/);
   });
 
   it('is uninformative when the rollouts leave the logged states', () => {

@@ -18,6 +18,16 @@ describe('number format', () => {
     expect(editableNumber(null)).toBe('');
   });
 
+  // The screen review: a script-written project file's 0.1 + 0.2 showed "0.30000000000000004" in a field.
+  // 15 significant digits always read back for decimal text of up to 15 digits (IEEE 754-2008 §5.12.2).
+  it('shows a script’s floating-point noise as the number meant, at 15 significant digits', () => {
+    expect(editableNumber(0.1 + 0.2)).toBe('0.3');
+    expect(editableNumber(1.1 * 3)).toBe('3.3'); // 3.3000000000000003
+    expect(editableNumber(-(0.7 + 0.1))).toBe('-0.8'); // −0.7999999999999999
+    expect(editableNumber(1e-7 * 3)).toBe('3e-7'); // 2.9999999999999997e-7
+    for (const x of [0.123456789012345, 98765.4321098765, 1.5e-9, 2.5e11]) expect(parseNumber(editableNumber(x))).toBe(x);
+  });
+
   it('refuses text that is not a number', () => {
     for (const text of ['', 'abc', '1,5', '1.2.3', '0x1A', 'Infinity', '1e400']) expect(parseNumber(text)).toBeNull();
     expect(parseNumber(' −2.5 ')).toBe(-2.5);

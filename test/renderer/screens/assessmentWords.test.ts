@@ -45,7 +45,7 @@ describe('assessment words', () => {
   it('puts each diagnostic beside the present controller’s own level', () => {
     const d: CoverageDiagnostics = {
       occupancyShift: 55.3, occupancyShiftUpper: 61.2, presentControllerShift: 1.1, shiftFeatures: 'the fit’s own features (15)',
-      importanceWeights: { oneStepEffectiveSize: 9490.4, oneStepShare: 0.475, horizonSteps: 20, horizonEffectiveEpisodes: 1.09, horizonEpisodes: 40 },
+      importanceWeights: { oneStepEffectiveSize: 9490.4, oneStepShare: 0.475, horizonSteps: 20, horizonEffectiveEpisodes: 1.09, horizonEpisodes: 40, horizonNotNumbers: 0 },
       actionSupport: { neighbours: 50, queryStates: 400, meanOutside: 0.001, p90Outside: 0.0002, maxOutside: 0.2, behaviourMeanOutside: 0.039 },
     };
     const [shift, weights, support] = coverageSentences(d);
@@ -54,9 +54,9 @@ describe('assessment words', () => {
     expect(weights).toContain('worth 9,490 transitions (47.5 % of them)');
     expect(support).toContain('on average 0.1 %');
     expect(coverageSentences({ ...d, occupancyShift: null, importanceWeights: null })).toHaveLength(1);
-    // Below one run (Kish's size is 0 only when every weight is 0): said in words, not "worth no run's worth".
+    // Below one run (Kish's size is 0 only when every weight is 0): said in words, not "worth no run’s worth".
     const none = coverageSentences({ ...d, importanceWeights: { ...d.importanceWeights!, horizonEffectiveEpisodes: 0 } })[1];
-    expect(none).toContain('after 20 steps the cumulative weights carry no run’s worth of weight'.replace('’', "'"));
+    expect(none).toContain('after 20 steps the cumulative weights carry no run’s worth of weight');
     expect(none).not.toMatch(/worth no run/);
     expect(unvisitedSentence(0.497)).toContain('49.7 %');
     expect(unvisitedSentence(null)).toBeNull();

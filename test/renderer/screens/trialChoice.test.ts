@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { Assessment, CandidateAssessment, IntervalEstimate, PairedDifference } from '../../../src/pipeline/assessment';
-import { logCautionsText, trialChoice, whollyBetter } from '../../../src/renderer/src/screens/findings/trialChoice';
+import { logCautionsText, trialChoice, warningsText, whollyBetter } from '../../../src/renderer/src/screens/findings/trialChoice';
 
 const BASE = 'present controller';
 const estimate = (value: number, lo: number, hi: number): IntervalEstimate =>
@@ -70,5 +70,18 @@ describe('which candidate to trial', () => {
     expect(logCautionsText(a)).toBe('The assessment raised a caution on the whole log; read it under Coverage before the trial.'); // … but is said
     expect(logCautionsText(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution, caution]))).toMatch(/^The assessment raised 2 cautions .* read them/);
     expect(logCautionsText(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE]))).toBeNull();
+  });
+
+  it('never says "none" in the warnings column while a caution about the candidate sits in the whole-log list (the screen review: an unconfirmed estimate)', () => {
+    const unconfirmed = { severity: 'caution' as const, topic: 'confirmation', candidate: 'A', message: 'A: Nothing in the logs can confirm this estimate' };
+    const a = assessment('cost', [candidate('A', 5), candidate('B', 6)], [['A', -3, -4, -2], ['B', -2, -3, -1]], ['A', 'B', BASE], [unconfirmed]);
+    const [lineA, lineB] = trialChoice(a).lines;
+    expect(warningsText(lineA)).toBe('1 caution in the whole-log list (Coverage)');
+    expect(warningsText(lineB)).toBe('none'); // about A by name, so not B's
+    const shift = { severity: 'serious' as const, topic: 'shift', message: 'far from the logs' };
+    const general = { severity: 'caution' as const, topic: 'loggedReturn', message: 'runs cut short' };
+    const b = assessment('cost', [candidate('A', 5, { warnings: [shift] })], [['A', -3, -4, -2]], ['A', BASE], [unconfirmed, general]);
+    expect(warningsText(trialChoice(b).lines[0])).toBe('1 serious; 2 cautions in the whole-log list (Coverage)');
+    expect(warningsText(trialChoice(assessment('cost', [candidate('A', 5)], [['A', -3, -4, -2]], ['A', BASE])).lines[0])).toBe('none');
   });
 });

@@ -4,15 +4,22 @@
  */
 import { plainNumber } from '../../../figures/parts/uncertainNumber';
 import { isoTimeText } from '../../../core/clockText';
+import { EDITABLE_DIGITS } from '../../../core/limits';
 
 /** The one plain number style (figures/parts/uncertainNumber.ts): fixed notation up to 1e15, exponent form beyond and below 1e-4. */
 export function formatNumber(x: number, significant = 4): string {
   return plainNumber(x, significant);
 }
 
-/** A value as an editable field shows it: the shortest text that reads back to the same number. */
+/**
+ * A value as an editable field shows it: the shortest text of the value at EDITABLE_DIGITS significant
+ * digits (src/core/limits.ts), so floating-point noise from a script ("0.30000000000000004") reads
+ * "0.3". Any value of 15 significant digits or fewer reads back exactly; the stored value is never
+ * rewritten by showing it (NumberField commits only what the user types).
+ */
 export function editableNumber(x: number | null): string {
   if (x === null || Number.isNaN(x)) return '';
+  if (Number.isFinite(x)) x = Number(x.toPrecision(EDITABLE_DIGITS));
   const magnitude = Math.abs(x);
   // 1e-6 reads better than 0.000001; toExponential() without digits is the shortest round trip.
   return magnitude !== 0 && (magnitude < 1e-3 || magnitude >= 1e9) ? x.toExponential().replace('e+', 'e') : String(x);

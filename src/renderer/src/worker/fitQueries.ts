@@ -50,7 +50,7 @@ export function sliceFromFit(run: EvaluatedRun, query: SliceQuery): ActionSliceR
   policyMean(policy, state, mean);
   const marginal = marginalPolicy(policy, mean[i], i);
   const range = sliceRange(mean[i], actionStd(policy, i), policy, i);
-  const held = new Float64Array(policy.actionDim); // the other actions at the candidate's median, limits included
+  const held = new Float64Array(policy.actionDim); // the other actions at the candidate’s median, limits included
   medianAction(policy, state, held);
   const slice = actionValueSlice(fit.q, state, i, range, query.points, held);
   const sign = run.run.plan.sign;

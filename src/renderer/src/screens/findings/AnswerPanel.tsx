@@ -6,23 +6,17 @@
  */
 import type { Assessment } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
-import { plural } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
 import { levelText, shareText } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
 import { displayName, valueUnit } from './plotLabels';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
-import { logCautionsText, TRIAL_RULE, trialChoice, type TrialChoice, type TrialLine } from './trialChoice';
+import { logCautionsText, TRIAL_RULE, trialChoice, warningsText, type TrialChoice } from './trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const CONFIRMATION: Record<string, string> = { confirmed: 'confirmed', contradicted: 'contradicted', unconfirmed: 'unconfirmed' };
-
-function warningsText(line: TrialLine): string {
-  if (line.serious + line.cautions === 0) return 'none';
-  return [line.serious ? `${line.serious} serious` : '', line.cautions ? plural(line.cautions, 'caution') : ''].filter(Boolean).join(', ');
-}
 
 function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: Assessment; unit: string }) {
   const baseline = displayName(assessment.comparison.baseline.name), pick = choice.pick;
@@ -72,7 +66,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
             <td className="number interval">{l.difference ? `${valueAtPrecision(l.difference.difference.value, l.difference.difference.percentile)} ${intervalAtPrecision(l.difference.difference.percentile)}` : '—'}</td>
             <td className="number">{shareText(l.difference?.probabilityBetter ?? null)}</td>
             <td className={l.candidate.confirmation.status === 'contradicted' ? 'error-text' : undefined}>{CONFIRMATION[l.candidate.confirmation.status]}</td>
-            <td className={l.serious ? 'error-text' : undefined}>{warningsText(l)}</td>
+            <td className={l.serious || l.logSerious ? 'error-text' : undefined}>{warningsText(l)}</td>
           </tr>
         ))}
         <tr data-testid="answer-row-baseline">

@@ -39,7 +39,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
             {c.crossChecks.map((x) => (
               <tr key={x.method} data-testid={`cross-check-${x.method}`}>
                 <th scope="row">{x.label}</th>
-                {/* A check without an interval (the model rollouts) at the decimals of the column's J, not four significant digits ("5.737" among "5.61"). */}
+                {/* A check without an interval (the model rollouts) at the decimals of the column’s J, not four significant digits ("5.737" among "5.61"). */}
                 <td className="number">{x.estimate ? valueAtPrecision(x.estimate.value, x.estimate.percentile ?? c.policyValue.percentile) : '—'}</td>
                 <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalAtPrecision(x.estimate.percentile) : '—'}</td>
                 <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {noteWithoutVerdict(x.note)}</span> : null}</td>

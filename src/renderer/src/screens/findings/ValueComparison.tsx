@@ -22,6 +22,15 @@ import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../
 
 const STATUS: Record<string, string> = { converged: 'converged', maxIterations: 'stopped at the iteration limit', diverged: 'diverged' };
 
+/**
+ * Where a fit's own account goes: the Fit column already says "converged (347 iterations)", so for a
+ * converged fit the account (the last change against the tolerance) is a detail, beside the backend;
+ * a fit that stopped at its limit or diverged keeps it in the row, where the reader must see why.
+ */
+function fitDetail(status: string): boolean {
+  return status === 'converged';
+}
+
 function IntervalCell({ estimate, level, testId }: { estimate: IntervalEstimate | undefined; level: number; testId: string }) {
   const p = estimate?.percentile ?? null;
   return (
@@ -51,7 +60,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
           <tr>
             <th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">± s.e.</th>
             {assessment && <th scope="col" className="number" title="Percentile bootstrap interval over runs; hover a cell for the basic interval">{levelText(level)} interval</th>}
-            <th scope="col" className="number" title="J from solving the fit's fixed-point equations directly (LSTD-Q), as a check on the iterated fit">J by direct solve</th><th scope="col">Fit</th><th scope="col">How the fit went</th>
+            <th scope="col" className="number" title="J from solving the fit’s fixed-point equations directly (LSTD-Q), as a check on the iterated fit">J by direct solve</th><th scope="col">Fit</th><th scope="col">How the fit went</th>
           </tr>
         </thead>
         <tbody>
@@ -65,13 +74,13 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
                 {assessment && <IntervalCell estimate={assessment.candidates[i]?.policyValue} level={level} testId={`policy-interval-${i}`} />}
                 <td className="number">{p.fixedPointValue === null ? '—' : valueWithError(p.fixedPointValue, p.standardError, interval).value}</td>
                 <td>{STATUS[p.status] ?? p.status} ({plural(p.iterations, 'iteration')})</td>
-                <td className="small" data-testid={`policy-account-${i}`}>{sentence(p.message)}
+                <td className="small" data-testid={`policy-account-${i}`}>{!fitDetail(p.status) && sentence(p.message)}
                   {p.network && (
                     <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
                       {' '}{levelText(p.network.level)} interval {intervalAtPrecision(p.network.interval)}; degree-{COMPARATOR_DEGREE} linear {valueAtPrecision(p.network.linear.value, p.network.linear.interval)} {intervalAtPrecision(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
                     </span>
                   )}
-                  <details className="details-section"><summary>Details</summary>Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
+                  <details className="details-section"><summary>Details</summary>{fitDetail(p.status) && <>{sentence(p.message)} </>}Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
               </tr>
             );
           })}

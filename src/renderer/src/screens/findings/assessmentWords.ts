@@ -3,25 +3,21 @@
  * the coverage diagnostics as sentences with the level the logged controller itself reaches, and
  * the progress line while the assessment runs.
  */
-import { SMALLEST_SHARE_SHOWN } from '../../../../core/limits';
 import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
 import type { AssessRunProgress } from '../../../../shared/workerMessages';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../../../core/diagnostics/severity';
 import { intervalAtPrecision } from '../../../../figures/parts/uncertainNumber';
-import { effectiveRunsText } from '../../../../core/offPolicy/effectiveRunsText';
+import { effectiveRunsNumber, effectiveRunsText } from '../../../../core/offPolicy/effectiveRunsText';
 import { formatNumber } from '../../format/numberFormat';
+import { shareText } from '../../../../core/shareText';
 
 /** "90 %" from 0.9. */
 export function levelText(level: number): string {
   return `${formatNumber(level * 100, 3)} %`;
 }
 
-/** "73 %" from 0.73, a dash for null. */
-export function shareText(share: number | null): string {
-  // Three significant digits, but no finer than 0.01 %: "5.74e−6 %" of action probability tells an engineer nothing "below 0.01 %" does not.
-  if (share !== null && share > 0 && share < SMALLEST_SHARE_SHOWN) return `below ${formatNumber(SMALLEST_SHARE_SHOWN * 100)} %`;
-  return share === null ? '—' : `${formatNumber(share * 100, 3)} %`;
-}
+/** A share as a percentage: the one writer every host uses (core/shareText.ts). */
+export { shareText };
 
 /** The basic interval and the replicate count, for the tooltip of an interval cell. */
 export function intervalDetail(estimate: IntervalEstimate, level: number): string {
@@ -54,7 +50,7 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
   const w = d.importanceWeights;
   if (w) {
     sentences.push(`Importance weights: the one-step weights are worth ${Math.round(w.oneStepEffectiveSize).toLocaleString('en-US')} transitions (${shareText(w.oneStepShare)} of them); `
-      + `after ${w.horizonSteps} steps the cumulative weights ${w.horizonEffectiveEpisodes >= 1 ? `are worth ${formatNumber(w.horizonEffectiveEpisodes, 3)} of ${w.horizonEpisodes} runs` : `carry ${effectiveRunsText(w.horizonEffectiveEpisodes)} from ${w.horizonEpisodes} runs`}. `
+      + `after ${w.horizonSteps} steps the cumulative weights ${w.horizonEffectiveEpisodes >= 1 && !w.horizonNotNumbers ? `are worth ${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes} runs` : `carry ${effectiveRunsText(w.horizonEffectiveEpisodes, w.horizonNotNumbers)} from ${w.horizonEpisodes} runs`}. `
       + 'Few effective samples make the importance-sampling cross-checks noisy.');
   }
   const a = d.actionSupport;

@@ -10,6 +10,7 @@
  * The sentence in TRIAL_RULE states it to the reader.
  */
 import type { Assessment, CandidateAssessment, PairedDifference } from '../../../../pipeline/assessment';
+import { plural } from '../../format/numberFormat';
 
 export const TRIAL_RULE = 'A candidate is named for a trial only when the interval of its difference from the baseline lies wholly on the better side of 0, '
   + 'the assessment raised no serious warning for it or for the whole log and no cross-check contradicts it; of those, the best J is named.';
@@ -22,6 +23,9 @@ export interface TrialLine {
   readonly clearlyBetter: boolean;
   readonly serious: number;
   readonly cautions: number;
+  /** Warnings in the whole-log list that bear on this candidate: those about it by name, and those about no one candidate. */
+  readonly logSerious: number;
+  readonly logCautions: number;
   /** Why this candidate is not named, as clauses in the reader's words; empty when it qualifies. */
   readonly reasons: readonly string[];
 }
@@ -47,6 +51,8 @@ function lineOf(assessment: Assessment, candidate: CandidateAssessment): TrialLi
   const clearlyBetter = whollyBetter(difference?.difference.percentile ?? null, assessment.valueSense);
   const serious = candidate.warnings.filter((w) => w.severity === 'serious').length;
   const cautions = candidate.warnings.length - serious;
+  const onLog = assessment.warnings.filter((w) => w.candidate === undefined || w.candidate === candidate.name);
+  const logSerious = onLog.filter((w) => w.severity === 'serious').length, logCautions = onLog.length - logSerious;
   const reasons: string[] = [];
   if (!difference?.difference.percentile) reasons.push('its difference from the baseline has no interval');
   else if (!clearlyBetter) reasons.push('the interval of its difference from the baseline reaches 0 or the worse side');
@@ -54,7 +60,7 @@ function lineOf(assessment: Assessment, candidate: CandidateAssessment): TrialLi
   const whole = assessment.warnings.filter((w) => w.severity === 'serious').length;
   if (whole > 0) reasons.push(`the assessment raised ${whole === 1 ? 'a serious warning' : `${whole} serious warnings`} for the whole log`);
   if (candidate.confirmation.status === 'contradicted') reasons.push('a cross-check contradicts it');
-  return { candidate, difference, clearlyBetter, serious, cautions, reasons };
+  return { candidate, difference, clearlyBetter, serious, cautions, logSerious, logCautions, reasons };
 }
 
 export function trialChoice(assessment: Assessment): TrialChoice {
@@ -77,3 +83,11 @@ export function logCautionsText(assessment: Assessment): string | null {
   if (cautions === 0) return null;
   return `The assessment raised ${cautions === 1 ? 'a caution' : `${cautions} cautions`} on the whole log; read ${cautions === 1 ? 'it' : 'them'} under Coverage before the trial.`;
 }
+/** "1 serious, 2 cautions"; "none" only when no warning bears on the candidate, its own or in the whole-log list (said as such: that list is elsewhere). */
+export function warningsText(line: TrialLine): string {
+  const count = (serious: number, cautions: number) => [serious ? `${serious} serious` : '', cautions ? plural(cautions, 'caution') : ''].filter(Boolean).join(', ');
+  const own = count(line.serious, line.cautions), log = count(line.logSerious, line.logCautions);
+  if (!own && !log) return 'none';
+  return [own, log ? `${log} in the whole-log list (Coverage)` : ''].filter(Boolean).join('; ');
+}
+
