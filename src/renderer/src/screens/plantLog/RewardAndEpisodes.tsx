@@ -84,20 +84,25 @@ function DeclaredBounds({ reward, problems, set, closeStep }: { reward: ColumnRe
     const { [field]: _dropped, ...rest } = reward;
     return v === null ? rest : { ...rest, [field]: v };
   };
-  const help = `Only what the ${what}'s definition guarantees on every row, whatever the plant does (e.g. 0 for a ${what} that sums squares or energy used). A logged row past it is a row that cannot be used; a range to report is cut there. Leave blank when nothing is guaranteed.`;
   return (
-    <div className="field-row">
-      <NumberField
-        label={`Never below (by its definition)`} value={reward.atLeast ?? null} allowBlank placeholder="no floor" help={help}
-        message={problemAt(problems, 'columns.reward.atLeast')}
-        onCommit={(v) => set(`declare the ${what}'s floor`, { reward: change('atLeast', v) }, 'reward-at-least')} onBlur={closeStep}
-      />
-      <NumberField
-        label={`Never above (by its definition)`} value={reward.atMost ?? null} allowBlank placeholder="no ceiling" help={help}
-        message={problemAt(problems, 'columns.reward.atMost')}
-        onCommit={(v) => set(`declare the ${what}'s ceiling`, { reward: change('atMost', v) }, 'reward-at-most')} onBlur={closeStep}
-      />
-    </div>
+    <>
+      <div className="row">
+        <NumberField
+          label="Never below (by its definition)" value={reward.atLeast ?? null} allowBlank placeholder="no floor"
+          message={problemAt(problems, 'columns.reward.atLeast')}
+          onCommit={(v) => set(`declare the ${what}'s floor`, { reward: change('atLeast', v) }, 'reward-at-least')} onBlur={closeStep}
+        />
+        <NumberField
+          label="Never above (by its definition)" value={reward.atMost ?? null} allowBlank placeholder="no ceiling"
+          message={problemAt(problems, 'columns.reward.atMost')}
+          onCommit={(v) => set(`declare the ${what}'s ceiling`, { reward: change('atMost', v) }, 'reward-at-most')} onBlur={closeStep}
+        />
+      </div>
+      <p className="small muted">
+        Only what the {what}&rsquo;s definition guarantees on every row, whatever the plant does (e.g. 0 for a {what} that sums squares or energy used); leave blank when nothing is.
+        A logged row past it is a row that cannot be used, and a range to report is cut there.
+      </p>
+    </>
   );
 }
 
