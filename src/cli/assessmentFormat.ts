@@ -39,6 +39,7 @@ export function formatAssessment(a: Assessment): string {
     `  ${c.name}: ${c.functionClasses.reason}`,
     ...c.functionClasses.classes.map((k) => `    · ${k.label}: ${inInterval(k.value, k.interval)}`),
   ] : []));
+  const cuts = a.candidates.flatMap((c) => (c.rangeCut ? [`  ${c.name}: ${c.rangeCut}`] : []));
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
   const memory = plantMemorySentence(a.plantMemory);
   return [
@@ -51,6 +52,7 @@ export function formatAssessment(a: Assessment): string {
     '',
     `Ranking: ${a.comparison.ranking.order.map(policyLabel).join(' > ')} (${a.comparison.ranking.frequency === null ? 'not every policy was resampled' : `holds in ${shareText(a.comparison.ranking.frequency)} of resamples`}).`,
     ...(classes.length ? ['', 'Function classes (the range to report spans them):', ...classes] : []),
+    ...(cuts.length ? ['', 'Ranges to report cut to what the reward\'s definition allows:', ...cuts] : []),
     '',
     'Cross-checks:',
     ...checks,

@@ -30,4 +30,19 @@ export interface TransitionSet {
   readonly startEpisode?: Int32Array; // k
   /** 1-based line number in the source file of the row each transition starts at (header = line 1). */
   readonly sourceLine: Int32Array; // n
+  /**
+   * Bounds every step's reward keeps whatever the plant does under any policy, from the reward's
+   * definition, in reward sense; either end may be infinite. Absent when nothing is known beyond the logs.
+   */
+  readonly rewardBounds?: RewardBounds;
+}
+
+/**
+ * What a reward's definition guarantees on every step, in reward sense: found from its formula
+ * (src/data/expressionBounds.ts), or declared in the project for a column (checked on every logged row).
+ */
+export interface RewardBounds {
+  readonly lower: number;
+  readonly upper: number;
+  readonly from: 'formula' | 'declaration';
 }

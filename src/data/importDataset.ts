@@ -19,7 +19,7 @@ import { readTableSteps, type ImportSource } from './csvTable';
 import { runSteps, type PassSteps } from '../core/fqe/cancellation';
 import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
-import { rewardColumn } from './rewardColumn';
+import { certainRewardBounds, rewardColumn } from './rewardColumn';
 import { assignEpisodes, medianStepSeconds, runsApart, type EpisodeAssignment, type EpisodeInputs } from './episodes';
 import { computeDerivedStates, stretchesOf, withoutUndefinedRows } from './derivedStates';
 import { plural } from './reportFormat';
@@ -151,7 +151,8 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     ...windowReport(timeWindows, s.clock ?? { calendar: false, runRestarts: 0 }), ...episodes.report, ...derived.report, ...report,
   ];
   const trend = trendOfImport(columns, table.numbers, s.rewards, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
-  return success({ transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
+  const rewardBounds = certainRewardBounds(columns.reward, s.plan.rewardExpression);
+  return success({ transitions: rewardBounds ? { ...transitions, rewardBounds } : transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
 }
 
 /**

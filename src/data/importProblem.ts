@@ -13,7 +13,7 @@ export type ImportProblemKind =
   | 'derived-name-clash'
   // one row or one cell
   | 'blank-line' | 'ragged-row' | 'quote' | 'empty-cell' | 'not-a-number' | 'not-finite' | 'bad-flag'
-  | 'empty-episode' | 'bad-timestamp' | 'invalid-date' | 'timestamp-backwards' | 'reward-not-finite'
+  | 'empty-episode' | 'bad-timestamp' | 'invalid-date' | 'timestamp-backwards' | 'reward-not-finite' | 'reward-outside-declared'
   // a time window left out that cannot be used; the closing hint of an import stopped by bad rows
   | 'bad-time-window' | 'bad-rows'
   // warnings

@@ -29,7 +29,7 @@ import type { RolloutOutcome } from './assessRollouts';
 import type { AssessmentSettings } from './assessSettings';
 import { actionSlices } from './assessSlices';
 import type { EvaluationPlan } from './plan/evaluationPlan';
-import { impossibleValue } from './assessPossible';
+import { cutToCertain, impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
 import { shareText } from '../core/shareText';
@@ -65,18 +65,21 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];
     const policyValue = withNetworkInterval(intervalEstimate(work.model.fit.policyValue, r.fqe, settings.level, sign), work, sign);
-    const classes = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
+    const fitted = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
+    // A range past what any policy can have, whatever it does (the reward formula's bounds), is cut there and says so.
+    const cut = cutToCertain(context.plan, fitted?.range ?? policyValue.percentile);
+    const classes = fitted && cut.range ? { ...fitted, range: cut.range } : fitted;
     const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights, classes ? classes.settled : null);
     const warnings = [
       ...coverageWarnings(diagnostics),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
-      ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes) }] : []),
+      ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes, cut.note) }] : []),
       ...networkDisagreement(work),
       ...impossibleValue(context.plan, possible, work.model, policyValue),
       ...failedWarning(policyValue),
     ];
     return {
-      name: work.model.name, policyValue, reportedRange: classes?.range ?? policyValue.percentile, settled: classes ? classes.settled : null,
+      name: work.model.name, policyValue, reportedRange: cut.range, ...(cut.note ? { rangeCut: cut.note } : {}), settled: classes ? classes.settled : null,
       functionClasses: classes, confirmation, crossChecks: checks, diagnostics, slices: actionSlices(work.model, context.plan.data, sign), warnings,
     };
   });
@@ -135,12 +138,12 @@ function fullDataCrossChecks(inputs: AssemblyInputs, work: CandidateWork, modelR
 }
 
 /** The serious warning of an estimate that is not settled across function classes: a range to report, or with one class an interval that checks nothing. */
-export function notSettledMessage(classes: FunctionClassAssessment): string {
+export function notSettledMessage(classes: FunctionClassAssessment, cut: string | null = null): string {
   // The verdict's reason opens with its own "Not settled: "; the warning says it once.
-  const range = rangeText(classes.range), reason = classes.reason.replace(/^Not settled: /, '');
+  const range = rangeText(classes.range), reason = classes.reason.replace(/^Not settled: /, ''), after = cut ? ` ${cut}` : '';
   return classes.classes.length > 1
-    ? `Not settled across function classes: ${reason} Report the range ${range}, not a single value.`
-    : `Not settled across function classes: ${reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.`;
+    ? `Not settled across function classes: ${reason} Report the range ${range}, not a single value.${after}`
+    : `Not settled across function classes: ${reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.${after}`;
 }
 
 /** The candidate in every function class with an interval, and the verdict across them; null with fewer than two, unless others were fitted and did not converge. */

@@ -2,10 +2,12 @@
  * Impossible values (core/diagnostics/possibleValues.ts, possibleStateValues.ts): J outside what any
  * policy can reach with rewards in the logged range, its interval wholly outside it, or the fitted
  * V̂ outside it at most of the logged states. One serious finding per candidate, in the project's
- * sense; the first rule that applies gives its words.
+ * sense; the first rule that applies gives its words. Where the reward is a formula with bounds it
+ * keeps whatever the plant does (TransitionSet.rewardBounds), J past the range those allow is named
+ * first, in stronger words, and a range to report is cut to it (cutToCertain).
  */
 import { stateValuesOutsidePossible, evenStride, type StateValuesOutside } from '../core/diagnostics/possibleStateValues';
-import { intervalOutsidePossible, outsidePossible, type PossibleValues } from '../core/diagnostics/possibleValues';
+import { certainValues, intervalOutsidePossible, outsidePossible, POSSIBLE_SLACK, type PossibleValues } from '../core/diagnostics/possibleValues';
 import { linearStateValues } from '../core/features/linearStateValues';
 import { MAX_VALUE_CHECK_STATES } from '../core/limits';
 import { stateValues, ValueQueryError } from '../core/value';
@@ -18,6 +20,8 @@ const TOPIC = 'impossibleValue';
 
 export function impossibleValue(plan: EvaluationPlan, range: PossibleValues, model: CandidateModel, estimate: IntervalEstimate): AssessmentWarning[] {
   const j = model.fit.policyValue, interval = estimate.percentile, inReward = interval && (plan.sign > 0 ? interval : [-interval[1], -interval[0]]);
+  const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0), slack = POSSIBLE_SLACK * (range.upper - range.lower);
+  if (certain && (j < certain.lower - slack || j > certain.upper + slack)) return [certainFinding(plan, certain, j, interval)];
   const wholly = inReward !== null && intervalOutsidePossible(inReward[0], inReward[1], range);
   if (outsidePossible(j, range) || wholly) {
     const jText = valueAtPrecision(plan.sign * j, interval, ASCII_MINUS); // at its interval’s precision (figures/parts/uncertainNumber.ts)
@@ -67,4 +71,53 @@ export function stateFinding(plan: EvaluationPlan, range: PossibleValues, outsid
       `${(100 * outside.share).toFixed(1)} % of them ${past} the possible range (${rangeText(plan, range)}, discounted, while the ${words(plan)} stay within the logged range), ` +
       `more than one standard error of J (${plainNumber(standardError, 2, ASCII_MINUS)}) past its end. The fit fails where it has data, and its interval, the same fit on resampled runs, cannot show it: do not use this value.`,
   };
+}
+
+/** J past the range no policy can leave whatever it does (the reward formula's own bounds). Exported for its words' test. */
+export function certainFinding(plan: EvaluationPlan, certain: PossibleValues, j: number, interval: [number, number] | null): AssessmentWarning {
+  const value = plan.sign * j, bound = projectRange(plan, certain), below = value < bound[0];
+  const end = below ? bound[0] : bound[1], step = formulaBounds(plan)[below ? 0 : 1], side = below ? 'below' : 'above';
+  return {
+    severity: 'serious', topic: TOPIC,
+    message: `J = ${valueAtPrecision(value, interval, ASCII_MINUS)} lies ${side} ${plainNumber(end, 4, ASCII_MINUS)}, the ${below ? 'least' : 'most'} discounted ${plan.sense} any policy can have whatever it does (${definition(plan)} never ${side} ${plainNumber(step, 4, ASCII_MINUS)} on any row). The fit extrapolates far from the logs: do not use this value.`,
+  };
+}
+
+/**
+ * A range to report cut to the values some policy can have, whatever it does (the reward formula's
+ * own bounds, core/diagnostics/possibleValues.ts certainValues), in the project's sense, with a
+ * sentence saying where and why; unchanged, with no sentence, when nothing is cut, when the reward
+ * is a column, or when the range lies wholly outside (impossibleValue names that).
+ */
+export function cutToCertain(plan: EvaluationPlan, range: [number, number] | null): { range: [number, number] | null; note: string | null } {
+  const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
+  if (!range || !certain) return { range, note: null };
+  const [lo, hi] = projectRange(plan, certain), cut: [number, number] = [Math.max(range[0], lo), Math.min(range[1], hi)];
+  if (cut[0] > cut[1] || (cut[0] === range[0] && cut[1] === range[1])) return { range, note: null };
+  const steps = formulaBounds(plan), sides = [
+    ...(cut[0] !== range[0] ? [{ side: 'below', end: cut[0], step: steps[0] }] : []),
+    ...(cut[1] !== range[1] ? [{ side: 'above', end: cut[1], step: steps[1] }] : []),
+  ];
+  const where = sides.map((x) => `${x.side} at ${plainNumber(x.end, 4, ASCII_MINUS)}`).join(' and ');
+  const why = sides.map((x) => `never ${x.side} ${plainNumber(x.step, 4, ASCII_MINUS)}`).join(' and ');
+  return {
+    range: cut,
+    note: `The range to report is cut ${where} (it was ${intervalAtPrecision(range, ASCII_MINUS)}): ${definition(plan)} ${why} on any row, whatever the plant does, so no policy's discounted ${plan.sense} lies beyond. The cut keeps the range's coverage, since the true value lies inside it for sure.`,
+  };
+}
+
+/** A range in reward sense, in the project's. */
+function projectRange(plan: EvaluationPlan, range: PossibleValues): [number, number] {
+  return plan.sign > 0 ? [range.lower, range.upper] : [0 - range.upper, 0 - range.lower]; // 0 − x: never −0
+}
+
+/** The definition's own bounds on one row, as the user wrote it (a cost as a cost). */
+function formulaBounds(plan: EvaluationPlan): [number, number] {
+  const { lower, upper } = plan.data.rewardBounds!;
+  return plan.sign > 0 ? [lower, upper] : [0 - upper, 0 - lower];
+}
+
+/** Where the bounds come from, as the sentences name it: "the cost formula is", "the cost column is, as the project declares,". */
+function definition(plan: EvaluationPlan): string {
+  return plan.data.rewardBounds!.from === 'formula' ? `the ${plan.sense} formula is` : `the ${plan.sense} column is, as the project declares,`;
 }

@@ -133,6 +133,8 @@ export interface CandidateAssessment {
    * covers sampling and the spread between classes), else the sampling interval; null without either.
    */
   reportedRange: [number, number] | null;
+  /** Where the range to report was cut to the values the reward formula allows whatever the plant does, and why; absent when nothing was cut. */
+  rangeCut?: string;
   /** Whether the estimate is settled across function classes; null when only one class was fitted. */
   settled: boolean | null;
   functionClasses: FunctionClassAssessment | null;

@@ -33,10 +33,20 @@ const signalSchema = strictObject({
 /** The reward's or cost's own unit (e.g. "€", "kWh"); J, V and Q are in it, discounted. Optional. */
 const valueUnit = z.string().max(40).optional();
 
+/**
+ * A reward read from a column may declare what its definition guarantees: never below `atLeast`,
+ * never above `atMost` (e.g. 0 for a cost that sums squares or energy used). Every logged row is
+ * checked against it on import; the assessment cuts a range to report there (src/pipeline/assessPossible.ts).
+ * A formula's own bounds are found from it (src/data/expressionBounds.ts), so it declares none.
+ */
 const rewardSchema = z.discriminatedUnion('kind', [
-  strictObject({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit }),
+  strictObject({ kind: z.literal('column'), column: columnName, sense: z.enum(['reward', 'cost']), unit: valueUnit, atLeast: finite.optional(), atMost: finite.optional() }),
   strictObject({ kind: z.literal('expression'), expression: z.string().trim().min(1).max(MAX_EXPRESSION_LENGTH, `expected at most ${MAX_EXPRESSION_LENGTH} characters`), sense: z.enum(['reward', 'cost']), unit: valueUnit }),
-]);
+]).superRefine((r, ctx) => {
+  if (r.kind === 'column' && r.atLeast !== undefined && r.atMost !== undefined && r.atLeast > r.atMost) {
+    ctx.addIssue({ code: 'custom', path: ['atMost'], message: `the ${r.sense} is declared never above ${r.atMost} but never below ${r.atLeast}; expected atLeast at or below atMost` });
+  }
+});
 
 const nextStateSchema = z.discriminatedUnion('kind', [
   /** s' is the state on the next row of the same episode. */

@@ -75,6 +75,8 @@ const FAILURES: Case[] = [
     message: 'unexpected ")"; expected an operator or the end of the expression (character 14)\n  (level_m - 2))^2\n               ^',
   },
   { file: 'expression-not-finite.csv', roles: { reward: { kind: 'expression', expression: 'log(level_m)', sense: 'cost' } }, kind: 'reward-not-finite', where: 'expression-not-finite.csv, line 4', message: 'the cost expression gives -Infinity here (level_m = 0)', problems: 1 },
+  // A cost the project declares never negative (columns.reward.atLeast 0): a logged −0.3 is a bad row, not a value to trust.
+  { file: 'reward-below-declared.csv', roles: { reward: { kind: 'column', column: 'cost', sense: 'cost', atLeast: 0 } }, kind: 'reward-outside-declared', where: 'reward-below-declared.csv, line 4, column cost', message: 'the cost is -0.3 here, below 0, which the project declares it never is (columns.reward.atLeast)', problems: 1 },
   { file: 'terminal-bad-flag.csv', roles: { terminal: 'done' }, kind: 'bad-flag', where: 'terminal-bad-flag.csv, line 3, column done', message: '"maybe" is not an end-of-run flag; expected 1 or 0' },
   { file: 'episode-empty.csv', roles: { episode: { kind: 'column', column: 'run' } }, kind: 'empty-episode', where: 'episode-empty.csv, line 4, column run', message: 'the run label cell is empty' },
   { file: 'single-row-episodes.csv', roles: { episode: { kind: 'column', column: 'run' } }, kind: 'no-transitions', where: 'single-row-episodes.csv', message: 'no transitions could be formed' },
@@ -107,7 +109,7 @@ describe('bad files fail with a precise first problem', () => {
   });
 
   it('every case stopped by its rows (a cell, a line, a timestamp) says how to leave those rows out', () => {
-    const rowKinds = new Set(['ragged-row', 'quote', 'empty-cell', 'not-a-number', 'not-finite', 'bad-flag', 'empty-episode', 'bad-timestamp', 'invalid-date', 'timestamp-backwards', 'reward-not-finite', 'blank-line']);
+    const rowKinds = new Set(['ragged-row', 'quote', 'empty-cell', 'not-a-number', 'not-finite', 'bad-flag', 'empty-episode', 'bad-timestamp', 'invalid-date', 'timestamp-backwards', 'reward-not-finite', 'reward-outside-declared', 'blank-line']);
     const stoppedByRows = FAILURES.filter((c) => rowKinds.has(c.kind) && c.csv?.badRows !== 'exclude');
     expect(stoppedByRows.length).toBeGreaterThanOrEqual(8);
     for (const c of stoppedByRows) {

@@ -43,6 +43,19 @@ describe('project document', () => {
     expect(result.problems[0].message).toMatch(/below 1/);
   });
 
+  it('keeps what a cost column is declared never to leave, and names crossed declarations', () => {
+    const doc = minimal() as ReturnType<typeof minimal> & { columns: { reward: Record<string, unknown> } };
+    doc.columns.reward = { kind: 'column', column: 'cost', sense: 'cost', atLeast: 0 };
+    const kept = parse(doc);
+    expect(kept.ok && kept.value.document.columns.reward).toEqual({ kind: 'column', column: 'cost', sense: 'cost', atLeast: 0 });
+    doc.columns.reward = { kind: 'column', column: 'cost', sense: 'cost', atLeast: 5, atMost: 1 };
+    const crossed = parse(doc);
+    expect(crossed.ok).toBe(false);
+    if (crossed.ok) return;
+    expect(crossed.problems[0].where).toBe('p.spcritic, columns.reward.atMost');
+    expect(crossed.problems[0].message).toContain('declared never above 1 but never below 5');
+  });
+
   it('checks gain shapes against the columns', () => {
     const doc = minimal();
     doc.candidates[0].gain = [[-2]];

@@ -22,7 +22,15 @@
  *     otherwise make a gap of 18 % of J read as 0.8 standard errors ("settled") while its own 90 %
  *     interval, and nearly every resample, showed the gap plainly (found on the hold-out
  *     neutralisation tank, test/battery/holdout/neutralisationPlant.ts).
- *   - Settled: no pair disagrees. Not settled: some pair does; the reason names the widest gap.
+ *   - A pair can check the first class (the project's own, listed first) only when it could have
+ *     seen a gap of CROSS_CHECK_RULE.detectableGap (10 %) of |J|: CLASS_AGREEMENT.standardErrors
+ *     standard errors of the difference below that, the cross-checks' own yardstick
+ *     (src/core/offPolicy/crossCheckVerdict.ts). A class whose interval spans ±80 % of J "agrees"
+ *     with anything (seen on an invented two-valve log: degree 3 at 19 [−56, 84] beside degree 2 at
+ *     30 [18, 40], 38 % apart and called settled).
+ *   - Settled: no pair disagrees and at least one pair can check the first class; the classes that
+ *     cannot are named. Not settled: some pair disagrees (a noisy pair can still show a gap), or
+ *     none can check the first class; the reason names the widest gap, or the closest check.
  *   - A class that was fitted but whose fitted Q-evaluation did not converge (it diverged, or stopped
  *     at its iteration limit) has no value to compare. When it leaves the project's own class alone,
  *     the estimate is not settled: the richer classes could not be fitted stably on these logs,
@@ -37,6 +45,7 @@
  * Two standard errors, not the three of the cross-check rule, because a false "not settled" only
  * widens a range, while a missed disagreement shows a confident wrong number.
  */
+import { CROSS_CHECK_RULE } from '../offPolicy/crossCheckVerdict';
 import { normalisedInterquartileRange } from './robustSpread';
 
 export interface ClassEstimate {
@@ -66,6 +75,8 @@ export interface ClassGap {
   readonly standardErrors: number; // |difference| / its standard error
   readonly relative: number; // |difference| / max |J|
   readonly paired: boolean;
+  /** The difference's standard error as a share of max |J| (Infinity where J is 0). */
+  readonly relativeStandardError: number;
 }
 
 export interface ClassVerdict {
@@ -108,8 +119,18 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
   const coverageText = `Covers the sampling of runs and the spread across the ${estimates.length} function classes fitted ` +
     `(${estimates.map((e) => e.label).join('; ')}); a bias they all share would not show.`;
   if (disagreeing.length === 0) {
-    const g = widest(gaps);
-    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).${notCompared}` };
+    const own = estimates[0].label, checks = gaps.filter((x) => x.first === own), checking = checks.filter((x) => detectable(x) <= CROSS_CHECK_RULE.detectableGap);
+    if (checking.length === 0) {
+      const closest = checks.reduce((c, x) => (detectable(x) < detectable(c) ? x : c));
+      return {
+        settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: closest,
+        reason: `Not settled: no other function class checks ${own} closely enough: the closest, ${closest.second}, differs from it by ${percentText(closest.relative)} of J, ` +
+          `but could not have seen a gap of ${100 * CROSS_CHECK_RULE.detectableGap} % of J (it would need ${percentText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
+      };
+    }
+    const g = widest(gaps), loose = checks.filter((x) => !checking.includes(x));
+    const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (it could see a gap of ${percentText(detectable(x))} of J, not ${100 * CROSS_CHECK_RULE.detectableGap} %)`).join('; ')}.`;
+    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).${tooLoose}${notCompared}` };
   }
   const g = widest(disagreeing);
   return {
@@ -130,6 +151,7 @@ function pairGaps(estimates: readonly ClassEstimate[]): ClassGap[] {
       gaps.push({
         first: a.label, second: b.label, difference, paired,
         standardErrors: se > 0 ? Math.abs(difference) / se : difference === 0 ? 0 : Infinity, relative: Math.abs(difference) / scale,
+        relativeStandardError: se / scale,
       });
     }
   }
@@ -138,6 +160,15 @@ function pairGaps(estimates: readonly ClassEstimate[]): ClassGap[] {
 
 function disagrees(g: ClassGap): boolean {
   return g.standardErrors > CLASS_AGREEMENT.standardErrors && g.relative > CLASS_AGREEMENT.relative;
+}
+
+/** The smallest gap, as a share of |J|, the pair could have seen: CLASS_AGREEMENT.standardErrors of its difference's standard errors. */
+function detectable(g: ClassGap): number {
+  return CLASS_AGREEMENT.standardErrors * g.relativeStandardError;
+}
+
+function percentText(share: number): string {
+  return Number.isFinite(share) ? `${(100 * share).toFixed(share < 0.1 ? 1 : 0)} %` : 'an unbounded gap';
 }
 
 /** Robust spread (IQR/1.349) of the paired differences a_b − b_b. */

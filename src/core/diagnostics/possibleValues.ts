@@ -18,6 +18,7 @@
  * possible value is consistent with the estimate and its sampling error (the duality of confidence
  * intervals and tests; common practice), whatever the width: that too marks the estimate impossible.
  */
+import type { RewardBounds } from '../transitions';
 export interface PossibleValues {
   readonly lower: number;
   readonly upper: number;
@@ -30,6 +31,21 @@ export function possibleValues(rewards: ArrayLike<number>, discount: number, run
     if (r < lo) lo = r;
     if (r > hi) hi = r;
   }
+  return discountedRange(lo, hi, discount, runsCanEnd);
+}
+
+/**
+ * The range no policy can leave, whatever it does: the same geometric bound on the rewards' certain
+ * bounds (from the reward's formula, TransitionSet.rewardBounds) instead of the logged range. Either
+ * end may be infinite; null when nothing is known. Any confidence interval cut to it keeps its
+ * coverage, since the truth lies in it for sure: P(J ∈ C ∩ R) = P(J ∈ C) (common practice).
+ */
+export function certainValues(rewardBounds: RewardBounds | undefined, discount: number, runsCanEnd = false): PossibleValues | null {
+  if (!rewardBounds) return null;
+  return discountedRange(rewardBounds.lower, rewardBounds.upper, discount, runsCanEnd);
+}
+
+function discountedRange(lo: number, hi: number, discount: number, runsCanEnd: boolean): PossibleValues {
   const horizon = 1 / (1 - discount);
   if (!runsCanEnd) return { lower: lo * horizon, upper: hi * horizon };
   return { lower: Math.min(lo, lo * horizon), upper: Math.max(hi, hi * horizon) };

@@ -96,6 +96,19 @@ describe('function-class rule: mechanics', () => {
     expect(functionClassVerdict([at('degree 2', -10, 0.2)]).settled).toBe(true); // nothing else fitted: one class, unchecked, as before
   });
 
+  it('calls a class checked only by a pair that could have seen a gap of 10 % of J (the cross-checks\' yardstick)', () => {
+    // The rule's own statements (ours). Unpaired: the difference's standard error is √(6.6² + 42²) = 42.52,
+    // 1.408 of |J| = 30.2; two of them, 282 % of J, is the smallest gap the pair could see.
+    const loose = functionClassVerdict([at('degree 2', 30.2, 6.6), at('degree 3', 19, 42)]);
+    expect(loose.settled).toBe(false);
+    expect(loose.reason).toBe('Not settled: no other function class checks degree 2 closely enough: the closest, degree 3, differs from it by 37 % of J, but could not have seen a gap of 10 % of J (it would need 282 %), so the error of the class is not measured.');
+    // One close class checks it; a loose one is named as too uncertain: √(0.1² + 5²)/10 · 2 = 100 %.
+    const named = functionClassVerdict([at('degree 2', -10, 0.1), at('degree 3', -10.05, 0.1), at('degree 4', -9, 5)]);
+    expect(named.settled).toBe(true);
+    expect(named.reason).toContain('Too uncertain to check degree 2: degree 4 (it could see a gap of 100 % of J, not 10 %).');
+    expect(named.range).toEqual([-9 - 1.645 * 5, -9 + 1.645 * 5]); // the range still spans every class
+  });
+
   it('needs both the standard-error and the relative limit to call a disagreement', () => {
     // 5 % apart but 1 combined standard error: settled (sampling explains it).
     expect(functionClassVerdict([at('a', -10, 0.35), at('b', -10.5, 0.35)]).settled).toBe(true);

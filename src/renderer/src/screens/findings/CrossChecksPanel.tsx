@@ -27,6 +27,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
             {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label}: ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
           </p>
         )}
+        {c.rangeCut && <p className="small" data-testid={`range-cut-${c.name}`}>{c.rangeCut}</p>}
         <table data-testid={`cross-checks-${c.name}`}>
           <caption>{c.name}: fitted Q-evaluation J = {valueAtPrecision(c.policyValue.value, c.policyValue.percentile)} {intervalAtPrecision(c.policyValue.percentile)}</caption>
           <thead>

@@ -9,6 +9,7 @@ import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import { useDocument, useProblems, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { ColumnRoles } from '../../../../project/schema';
+import { formulaBoundsText } from './formulaBoundsText';
 
 type SetColumns = (label: string, change: Partial<ColumnRoles>, key?: string) => void;
 
@@ -67,10 +68,50 @@ function RewardFieldset({ columns, problems, set, closeStep }: PartProps) {
           </div>
         </>
       )}
+      {reward.kind === 'column' && <DeclaredBounds reward={reward} problems={problems} set={set} closeStep={closeStep} />}
+      {reward.kind === 'expression' && <FormulaBounds reward={reward} decimalComma={decimalComma} />}
       {columnProblem && <p className="error-text">{columnProblem}</p>}
     </fieldset>
   );
 }
+
+type ColumnReward = Extract<ColumnRoles['reward'], { kind: 'column' }>;
+
+/** What the column's definition guarantees (e.g. a cost that sums squares is never below 0): checked on every row, and where a range to report is cut. */
+function DeclaredBounds({ reward, problems, set, closeStep }: { reward: ColumnReward; problems: readonly FieldProblem[]; set: SetColumns; closeStep: () => void }) {
+  const what = reward.sense === 'cost' ? 'cost' : 'reward';
+  const change = (field: 'atLeast' | 'atMost', v: number | null): ColumnReward => {
+    const { [field]: _dropped, ...rest } = reward;
+    return v === null ? rest : { ...rest, [field]: v };
+  };
+  return (
+    <>
+      <div className="row">
+        <NumberField
+          label="Never below (by its definition)" value={reward.atLeast ?? null} allowBlank placeholder="no floor"
+          message={problemAt(problems, 'columns.reward.atLeast')}
+          onCommit={(v) => set(`declare the ${what}'s floor`, { reward: change('atLeast', v) }, 'reward-at-least')} onBlur={closeStep}
+        />
+        <NumberField
+          label="Never above (by its definition)" value={reward.atMost ?? null} allowBlank placeholder="no ceiling"
+          message={problemAt(problems, 'columns.reward.atMost')}
+          onCommit={(v) => set(`declare the ${what}'s ceiling`, { reward: change('atMost', v) }, 'reward-at-most')} onBlur={closeStep}
+        />
+      </div>
+      <p className="small muted">
+        Only what the {what}&rsquo;s definition guarantees on every row, whatever the plant does (e.g. 0 for a {what} that sums squares or energy used); leave blank when nothing is.
+        A logged row past it is a row that cannot be used, and a range to report is cut there.
+      </p>
+    </>
+  );
+}
+
+/** What the formula keeps whatever its columns hold (src/data/expressionBounds.ts), said beside it; nothing while it does not parse. */
+function FormulaBounds({ reward, decimalComma }: { reward: Extract<ColumnRoles['reward'], { kind: 'expression' }>; decimalComma: boolean }) {
+  const text = formulaBoundsText(reward.expression, reward.sense, decimalComma);
+  return text ? <p className="small muted" data-testid="formula-bounds">{text}</p> : null;
+}
+
 
 function EpisodeFieldset({ columns, problems, set, closeStep }: PartProps) {
   const episode = columns.episode;
