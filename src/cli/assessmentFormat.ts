@@ -52,7 +52,7 @@ export function formatAssessment(a: Assessment): string {
     '',
     `Ranking: ${a.comparison.ranking.order.map(policyLabel).join(' > ')} (${a.comparison.ranking.frequency === null ? 'not every policy was resampled' : `holds in ${shareText(a.comparison.ranking.frequency)} of resamples`}).`,
     ...(classes.length ? ['', 'Function classes (the range to report spans them):', ...classes] : []),
-    ...(cuts.length ? ['', 'Ranges to report cut to what the reward\'s definition allows:', ...cuts] : []),
+    ...(cuts.length ? ['', 'Ranges to report cut to what the reward’s definition allows:', ...cuts] : []),
     '',
     'Cross-checks:',
     ...checks,

@@ -45,7 +45,7 @@ function reportOutsideDeclared(raw: Float64Array, rule: Extract<ColumnRoles['rew
     const v = raw[r];
     if (!(v < lo || v > hi) || problems.isBad(r)) continue;
     const [side, bound, field] = v < lo ? ['below', lo, 'atLeast'] : ['above', hi, 'atMost'];
-    problems.add(r, rule.column, 'reward-outside-declared', `the ${rule.sense} is ${v} here, ${side} ${bound}, which the project declares it never is (columns.reward.${field}); fix the row, or the declaration if the ${rule.sense}'s definition allows it`);
+    problems.add(r, rule.column, 'reward-outside-declared', `the ${rule.sense} is ${v} here, ${side} ${bound}, which the project declares it never is (columns.reward.${field}); fix the row, or the declaration if the ${rule.sense}’s definition allows it`);
   }
 }
 

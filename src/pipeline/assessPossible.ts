@@ -102,7 +102,7 @@ export function cutToCertain(plan: EvaluationPlan, range: [number, number] | nul
   const why = sides.map((x) => `never ${x.side} ${plainNumber(x.step, 4, ASCII_MINUS)}`).join(' and ');
   return {
     range: cut,
-    note: `The range to report is cut ${where} (it was ${intervalAtPrecision(range, ASCII_MINUS)}): ${definition(plan)} ${why} on any row, whatever the plant does, so no policy's discounted ${plan.sense} lies beyond. The cut keeps the range's coverage, since the true value lies inside it for sure.`,
+    note: `The range to report is cut ${where} (it was ${intervalAtPrecision(range, ASCII_MINUS)}): ${definition(plan)} ${why} on any row, whatever the plant does, so no policy’s discounted ${plan.sense} lies beyond. The cut keeps the range’s coverage, since the true value lies inside it for sure.`,
   };
 }
 

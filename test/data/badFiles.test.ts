@@ -63,7 +63,7 @@ const FAILURES: Case[] = [
   { file: 'timestamp-unparseable.csv', roles: timeGap, kind: 'bad-timestamp', where: 'timestamp-unparseable.csv, line 7, column time', message: '"12:00 yesterday" is not a timestamp', problems: 1 },
   { file: 'timestamp-backwards.csv', roles: timeGap, kind: 'timestamp-backwards', where: 'timestamp-backwards.csv, line 5, column time', message: 'the timestamp goes backwards by 10 s from line 4', problems: 1 },
   { file: 'timestamp-invalid-date.csv', roles: timeGap, kind: 'invalid-date', where: 'timestamp-invalid-date.csv, line 3, column time', message: '"31.02.2024 12:00:00" is not a valid date or time', problems: 1 },
-  { file: 'date-order-conflict.csv', roles: timeGap, kind: 'invalid-date', where: 'date-order-conflict.csv, line 6, column time', message: '"01/17/2024 12:00" is not a valid day/month/year date; this file\'s dates read in that order because line 2 has a day above 12 in first place', problems: 1 },
+  { file: 'date-order-conflict.csv', roles: timeGap, kind: 'invalid-date', where: 'date-order-conflict.csv, line 6, column time', message: '"01/17/2024 12:00" is not a valid day/month/year date; this file’s dates read in that order because line 2 has a day above 12 in first place', problems: 1 },
   {
     file: 'expression-unknown-column.csv', roles: { reward: { kind: 'expression', expression: '(levl_m - 2)^2 + 0.1*valve_pct', sense: 'cost' } },
     kind: 'expression-unknown-column', where: 'expression-unknown-column.csv, cost expression',

@@ -44,7 +44,7 @@ describe('a range to report cut to what any policy can have', () => {
   it('cuts a cost range below 0 at 0 when the cost formula is never negative, and says so', () => {
     const cut = cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1]);
     expect(cut.range).toEqual([0, 14.1]);
-    expect(cut.note).toBe('The range to report is cut below at 0 (it was [-8.0, 14.1]): the cost formula is never below 0 on any row, whatever the plant does, so no policy\'s discounted cost lies beyond. The cut keeps the range\'s coverage, since the true value lies inside it for sure.');
+    expect(cut.note).toBe('The range to report is cut below at 0 (it was [-8.0, 14.1]): the cost formula is never below 0 on any row, whatever the plant does, so no policy’s discounted cost lies beyond. The cut keeps the range’s coverage, since the true value lies inside it for sure.');
   });
 
   it('cuts at the discounted floor, −(0.1/19)/(1 − 0.95) for the heating formula at γ 0.95', () => {

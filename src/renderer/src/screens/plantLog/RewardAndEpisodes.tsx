@@ -90,12 +90,12 @@ function DeclaredBounds({ reward, problems, set, closeStep }: { reward: ColumnRe
         <NumberField
           label="Never below (by its definition)" value={reward.atLeast ?? null} allowBlank placeholder="no floor"
           message={problemAt(problems, 'columns.reward.atLeast')}
-          onCommit={(v) => set(`declare the ${what}'s floor`, { reward: change('atLeast', v) }, 'reward-at-least')} onBlur={closeStep}
+          onCommit={(v) => set(`declare the ${what}’s floor`, { reward: change('atLeast', v) }, 'reward-at-least')} onBlur={closeStep}
         />
         <NumberField
           label="Never above (by its definition)" value={reward.atMost ?? null} allowBlank placeholder="no ceiling"
           message={problemAt(problems, 'columns.reward.atMost')}
-          onCommit={(v) => set(`declare the ${what}'s ceiling`, { reward: change('atMost', v) }, 'reward-at-most')} onBlur={closeStep}
+          onCommit={(v) => set(`declare the ${what}’s ceiling`, { reward: change('atMost', v) }, 'reward-at-most')} onBlur={closeStep}
         />
       </div>
       <p className="small muted">
