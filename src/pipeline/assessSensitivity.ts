@@ -19,7 +19,7 @@ import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
 import { solveReplicate } from '../core/bootstrap/linearFqeReplicate';
 import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
-import { loggedDiscountedReturn } from '../core/loggedReturn';
+import { loggedDiscountedReturns } from '../core/loggedReturn';
 import type { ApproximatorSettings } from '../project/schema';
 import type { Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
@@ -64,7 +64,7 @@ function discountCurve(context: AssessmentContext, works: CandidateWork[], sign:
     const fits = settings.map((g) => solveReplicate({ ...setup, discount: g }, statistics, xiBar));
     return { name: w.model.name, values: fits.map((f) => (f.policyValue === null ? null : sign * f.policyValue)), status: fits.map((f) => f.status) };
   });
-  series.push({ name: BEHAVIOUR_NAME, values: settings.map((g) => sign * loggedDiscountedReturn(plan.data, g).value), status: settings.map(() => 'logged'), reference: true });
+  series.push({ name: BEHAVIOUR_NAME, values: loggedDiscountedReturns(plan.data, settings).map((r) => sign * r.value), status: settings.map(() => 'logged'), reference: true });
   return finish('discount', 'discount factor γ', settings, HORIZON_FACTORS.indexOf(1), series, sign);
 }
 
