@@ -35,24 +35,37 @@ export interface LoggedReturn {
 }
 
 export function loggedDiscountedReturn(data: TransitionSet, discount: number): LoggedReturn {
-  const e = data.episodeCount;
-  const perEpisode = new Float64Array(e);
-  const weight = new Float64Array(e).fill(1); // γ^t for the next step of each episode
+  return loggedDiscountedReturns(data, [discount])[0];
+}
+
+/**
+ * loggedDiscountedReturn at several discounts in one pass over the transitions (the sensitivity
+ * sweep's): each discount's sums are formed by the same operations in the same order as a pass of
+ * its own, so each result equals loggedDiscountedReturn(data, discount) to the last bit.
+ */
+export function loggedDiscountedReturns(data: TransitionSet, discounts: readonly number[]): LoggedReturn[] {
+  const e = data.episodeCount, g = discounts.length;
+  const perEpisode = discounts.map(() => new Float64Array(e));
+  const weight = new Float64Array(e * g).fill(1); // γ_j^t for the next step of each episode: weight[k·g + j]
   const endsTerminally = new Uint8Array(e);
   for (let i = 0; i < data.count; i++) {
-    const k = data.episode[i];
-    perEpisode[k] += weight[k] * data.rewards[i];
-    weight[k] *= discount;
+    const k = data.episode[i], r = data.rewards[i], at = k * g;
+    for (let j = 0; j < g; j++) {
+      perEpisode[j][k] += weight[at + j] * r;
+      weight[at + j] *= discounts[j];
+    }
     if (data.terminal[i]) endsTerminally[k] = 1;
   }
-  let largestTruncationWeight = 0, truncationSum = 0;
-  for (let k = 0; k < e; k++) {
-    if (endsTerminally[k]) continue;
-    largestTruncationWeight = Math.max(largestTruncationWeight, weight[k]);
-    truncationSum += weight[k];
-  }
-  const { mean, standardError } = meanAndStandardError(perEpisode);
-  return { value: mean, standardError, episodes: e, largestTruncationWeight, meanTruncationWeight: e > 0 ? truncationSum / e : 0, perEpisode };
+  return discounts.map((_, j) => {
+    let largestTruncationWeight = 0, truncationSum = 0;
+    for (let k = 0; k < e; k++) {
+      if (endsTerminally[k]) continue;
+      largestTruncationWeight = Math.max(largestTruncationWeight, weight[k * g + j]);
+      truncationSum += weight[k * g + j];
+    }
+    const { mean, standardError } = meanAndStandardError(perEpisode[j]);
+    return { value: mean, standardError, episodes: e, largestTruncationWeight, meanTruncationWeight: e > 0 ? truncationSum / e : 0, perEpisode: perEpisode[j] };
+  });
 }
 
 /** Below this mean share of the return's weight past the runs' ends the truncation is not mentioned. */

@@ -134,8 +134,28 @@ export function linearSolveSettings(plan: EvaluationPlan, model: CandidateModel)
   };
 }
 
-/** The importance-sampling cross-checks' inputs of one model, or why it has none. */
-export function offPolicyInputs(context: AssessmentContext, model: CandidateModel): OffPolicyInputs | { reason: string } {
+/** The logged states and (state, action) inputs in the episode index's order: the same for every policy's off-policy inputs. */
+export interface EpisodeOrderedLog {
+  readonly inputs: Float64Array; // n×(ds+m) row-major
+  readonly states: Float64Array; // n×ds row-major
+}
+
+export function episodeOrderedLog(plan: EvaluationPlan): EpisodeOrderedLog {
+  const { data, episodes: index } = plan, n = data.count, ds = data.stateDim, m = data.actionDim, p = ds + m;
+  const inputs = new Float64Array(n * p), states = new Float64Array(n * ds);
+  for (let r = 0; r < n; r++) {
+    const i = index.order[r];
+    for (let c = 0; c < ds; c++) inputs[r * p + c] = states[r * ds + c] = data.states[i * ds + c];
+    for (let c = 0; c < m; c++) inputs[r * p + ds + c] = data.actions[i * m + c];
+  }
+  return { inputs, states };
+}
+
+/**
+ * The importance-sampling cross-checks' inputs of one model, or why it has none. ordered: the log in
+ * episode order (episodeOrderedLog), asked for only when needed, so that several models can share one.
+ */
+export function offPolicyInputs(context: AssessmentContext, model: CandidateModel, ordered: () => EpisodeOrderedLog = () => episodeOrderedLog(context.plan)): OffPolicyInputs | { reason: string } {
   const { plan } = context;
   if (!plan.starts.followEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged runs’ own starts' };
   if (!context.presentController) return { reason: context.presentControllerReason };
@@ -146,13 +166,7 @@ export function offPolicyInputs(context: AssessmentContext, model: CandidateMode
     if (error instanceof ImportanceRatioError) return { reason: error.message };
     throw error;
   }
-  const { data, episodes: index } = plan, n = data.count, ds = data.stateDim, m = data.actionDim, p = ds + m;
-  const inputs = new Float64Array(n * p), states = new Float64Array(n * ds);
-  for (let r = 0; r < n; r++) {
-    const i = index.order[r];
-    for (let c = 0; c < ds; c++) inputs[r * p + c] = states[r * ds + c] = data.states[i * ds + c];
-    for (let c = 0; c < m; c++) inputs[r * p + ds + c] = data.actions[i * m + c];
-  }
+  const { data } = plan, n = data.count, ds = data.stateDim, { inputs, states } = ordered();
   const actionValues = new Float64Array(n);
   model.fit.q.evaluate(inputs, n, actionValues);
   const ends = finalStateValues(plan, model);

@@ -16,7 +16,7 @@ import { failure, success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import type { ProjectDocument } from '../project/schema';
 import type { Assessment, AssessmentWarning } from './assessment';
-import { AssessmentError, candidateWork, offPolicyInputs, type AssessmentContext, type CandidateWork } from './assessCandidate';
+import { AssessmentError, candidateWork, episodeOrderedLog, offPolicyInputs, type AssessmentContext, type CandidateWork, type EpisodeOrderedLog } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
 import { classWorks } from './assessClasses';
 import { openRolloutSimulations, rolloutCheck, type RolloutOutcome } from './assessRollouts';
@@ -113,7 +113,8 @@ async function assessWith(
   // The off-policy inputs and the model check first: they are all the resample route needs, so a
   // helper thread computes the loop's per-decision and model shares while this one fits the other
   // function classes (assessResamples.ts, openResampleRoute).
-  const offPolicy = everyModel(run).map((m) => offPolicyInputs(context, m));
+  let ordered: EpisodeOrderedLog | null = null; // formed once, for every policy that has off-policy inputs
+  const offPolicy = everyModel(run).map((m) => offPolicyInputs(context, m, () => (ordered ??= episodeOrderedLog(plan))));
   const modelCheck = checkLinearQuadraticModel(data, plan.episodes, plan.absorbingEnds);
   const modelReasons = run.models.map((m) => memory.modelReason ?? modelInapplicability(modelCheck, m.policy));
   const presentModelReason = run.presentController && (memory.modelReason ?? modelInapplicability(modelCheck, run.presentController.policy));

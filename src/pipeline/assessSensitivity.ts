@@ -19,7 +19,7 @@ import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
 import { solveReplicate } from '../core/bootstrap/linearFqeReplicate';
 import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
-import { loggedDiscountedReturn } from '../core/loggedReturn';
+import { loggedDiscountedReturns } from '../core/loggedReturn';
 import type { ApproximatorSettings } from '../project/schema';
 import type { Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
@@ -27,6 +27,7 @@ import { BEHAVIOUR_NAME } from './assessAssembly';
 import { polynomialClassLabel } from './assessClasses';
 import { isEngineError } from './engineErrors';
 import { fitNetworkCandidate } from './fitNetworkCandidate';
+import { wholePassStatistics } from './model/linearModel';
 import { networkRequest } from './model/networkModel';
 import { featureMapFor } from './plan/featureMapFor';
 
@@ -64,7 +65,7 @@ function discountCurve(context: AssessmentContext, works: CandidateWork[], sign:
     const fits = settings.map((g) => solveReplicate({ ...setup, discount: g }, statistics, xiBar));
     return { name: w.model.name, values: fits.map((f) => (f.policyValue === null ? null : sign * f.policyValue)), status: fits.map((f) => f.status) };
   });
-  series.push({ name: BEHAVIOUR_NAME, values: settings.map((g) => sign * loggedDiscountedReturn(plan.data, g).value), status: settings.map(() => 'logged'), reference: true });
+  series.push({ name: BEHAVIOUR_NAME, values: loggedDiscountedReturns(plan.data, settings).map((r) => sign * r.value), status: settings.map(() => 'logged'), reference: true });
   return finish('discount', 'discount factor γ', settings, HORIZON_FACTORS.indexOf(1), series, sign);
 }
 
@@ -116,7 +117,8 @@ function sizeOf(context: AssessmentContext, settings: LinearSettings): number {
 /**
  * The candidate solved with other features. Its statistics and start features are those of the same
  * class in the class comparison when that class was fitted (the same feature map, quadrature and
- * ridge, so the same sums, up to their order of summation), else one more data pass — paced like the
+ * ridge, so the same sums, up to their order of summation), else read off a compared class's whole
+ * pass where that is this pass to the last bit (wholePassStatistics), else one more data pass — paced like the
  * model's own (cancellation.ts), so a stop request is heard during it.
  */
 async function refitLinear(context: AssessmentContext, w: CandidateWork, settings: LinearSettings): Promise<{ value: number | null; status: string }> {
@@ -125,7 +127,8 @@ async function refitLinear(context: AssessmentContext, w: CandidateWork, setting
   try {
     const fitted = settings.features.kind === 'polynomial' ? w.classes.find((c) => c.label === polynomialClassLabel((settings.features as { degree: number }).degree))?.model.linear : undefined;
     const features = fitted?.features ?? featureMapFor(settings, plan.data), d = features.dim;
-    const stats = fitted?.statistics ?? await runStepsPaced(bellmanStatisticsSteps(plan.data, features, quadrature, { cancel }), context.pace ?? createPacer(PACE_INTERVAL_MS));
+    const stats = fitted?.statistics ?? wholePassStatistics(plan, features, quadrature, w.classes.map((c) => c.model))
+      ?? await runStepsPaced(bellmanStatisticsSteps(plan.data, features, quadrature, { cancel }), context.pace ?? createPacer(PACE_INTERVAL_MS));
     const xiBar = meanStartFeatures(fitted?.startFeatures ?? startStateFeatures(features, quadrature, plan.starts.states, plan.data.stateDim), d);
     const fit = solveReplicate({ ...linearSolveSettings(plan, w.model), ridge: settings.ridge, constantIndex: features.constantIndex, initialWeights: new Float64Array(d) }, stats, xiBar);
     return { value: fit.policyValue, status: fit.status };

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { loggedDiscountedReturn, truncationSentence } from '../../src/core/loggedReturn';
+import { loggedDiscountedReturn, loggedDiscountedReturns, truncationSentence } from '../../src/core/loggedReturn';
 import type { TransitionSet } from '../../src/core/transitions';
 
 function episodes(lengths: number[], reward: number): TransitionSet {
@@ -27,6 +27,37 @@ describe('logged discounted return', () => {
     expect(result.meanTruncationWeight).toBeCloseTo((g ** 10 + g ** 20) / 2, 14);
     // Two values: s.e. = |a − b| / 2.
     expect(result.standardError).toBeCloseTo(Math.abs(expected[0] - expected[1]) / 2, 12);
+  });
+});
+
+describe('logged discounted returns at several discounts in one pass', () => {
+  /** The plain route: one episode's G = Σ_t γ^t r_t summed step by step in file order, γ^t carried by repeated products. */
+  function plainReturn(data: TransitionSet, g: number): { perEpisode: number[]; weights: number[] } {
+    const perEpisode = new Array<number>(data.episodeCount).fill(0), weights = new Array<number>(data.episodeCount).fill(1);
+    for (let i = 0; i < data.count; i++) {
+      const k = data.episode[i];
+      perEpisode[k] += weights[k] * data.rewards[i];
+      weights[k] *= g;
+    }
+    return { perEpisode, weights };
+  }
+
+  it('gives each discount the single-discount pass to the last bit, interleaved episodes and a terminal run included', () => {
+    // Invented log: three runs whose rows interleave, rewards of mixed sign and size; the sweep's discounts γ^(1/f).
+    const data = episodes([7, 12, 5], 1), n = data.count;
+    for (let i = 0; i < n; i++) {
+      data.episode[i] = [0, 1, 2, 1][i % 4] % 3;
+      data.rewards[i] = Math.sin(1.7 * i) * 10 ** ((i % 5) - 2);
+    }
+    data.terminal[n - 1] = 1;
+    const discounts = [0.5, 0.75, 1, 1.5, 2].map((f) => 0.97 ** (1 / f));
+    const together = loggedDiscountedReturns(data, discounts);
+    discounts.forEach((g, j) => {
+      const alone = loggedDiscountedReturn(data, g), plain = plainReturn(data, g);
+      expect(Array.from(together[j].perEpisode)).toEqual(plain.perEpisode);
+      expect(together[j]).toEqual(alone);
+      expect(together[j].largestTruncationWeight).toBe(Math.max(...plain.weights.filter((_, k) => k !== data.episode[n - 1])));
+    });
   });
 });
 

@@ -121,6 +121,7 @@ export function linearisedReplicatesFromSums(input: LinearisationInput, sums: Ep
 export function linearisedReplicate(lin: LinearisedReplicates, multiplicities: ArrayLike<number>): number | null {
   const e = lin.counts.length;
   if (multiplicities.length !== e) throw new BootstrapError(`multiplicities: expected one per episode (${e}), got ${multiplicities.length}`);
+  if (lin.startsFollowEpisodes && !lin.startEpisode && lin.startValues.length === e) return oneStartPerEpisode(lin, multiplicities);
   let influence = 0, transitions = 0;
   for (let k = 0; k < e; k++) {
     influence += multiplicities[k] * lin.influence[k];
@@ -129,6 +130,24 @@ export function linearisedReplicate(lin: LinearisedReplicates, multiplicities: A
   if (!(transitions > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
   const starts = startMean(lin, multiplicities);
   return starts === null ? null : starts + influence / transitions;
+}
+
+/**
+ * linearisedReplicate where start state k is episode k's (the common case): the four sums in one
+ * loop over the multiplicities instead of two, each still summed over k in order, so the same bits.
+ */
+function oneStartPerEpisode(lin: LinearisedReplicates, c: ArrayLike<number>): number | null {
+  const e = lin.counts.length, { influence: s, counts: n, startValues: j } = lin;
+  let influence = 0, transitions = 0, total = 0, weight = 0;
+  for (let k = 0; k < e; k++) {
+    const m = c[k];
+    influence += m * s[k];
+    transitions += m * n[k];
+    total += m * j[k];
+    weight += m;
+  }
+  if (!(transitions > 0)) throw new BootstrapError('resample: the episodes drawn contain no transitions');
+  return weight > 0 ? total / weight + influence / transitions : null;
 }
 
 function startMean(lin: LinearisedReplicates, c: ArrayLike<number>): number | null {

@@ -253,6 +253,29 @@ function nestedStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature
   return { statistics, sums, exact: true };
 }
 
+/**
+ * The statistics of a whole-data pass with these features and quadrature (bellmanStatisticsSteps), read
+ * off one of `models` where that gives them to the last bit, else null (make the pass). A model
+ * qualifies when its own statistics are a whole pass's (its route is 'whole': its own pass, or read
+ * off another whole pass), its polynomial features lead with these on the same standardised inputs,
+ * its passes have as many rows per block and its quadrature takes the same route to E_{a~π} φ
+ * (nestedStatistics states why each condition matters). The sensitivity sweep's lower degree reads a
+ * function class's pass this way.
+ */
+export function wholePassStatistics(plan: EvaluationPlan, features: FeatureMap, quadrature: ActionQuadrature, models: readonly CandidateModel[]): BellmanStatistics | null {
+  const k = features.dim;
+  for (const model of models) {
+    const outer = model.linear, q = model.quadrature;
+    if (!outer || passRoute(plan, outer.features.dim) !== 'whole' || q.policy !== quadrature.policy || q.nodesPerDimension !== quadrature.nodesPerDimension) continue;
+    if (!leadsPolynomial(features, outer.features) || blockRowsFor(k) !== blockRowsFor(outer.features.dim)) continue;
+    if (averageRoute(features, quadrature) !== averageRoute(outer.features, q)) continue;
+    const statistics = leadingStatistics(outer.statistics, k);
+    checkStatisticsFinite(statistics, plan.data, features, quadrature);
+    return statistics;
+  }
+  return null;
+}
+
 function fitIteration(p: { iteration: number; weightChange: number; bellmanResidual: number; policyValue: number }): FitIteration {
   return { iteration: p.iteration, weightChange: p.weightChange, bellmanResidual: p.bellmanResidual, policyValue: p.policyValue, loss: null };
 }
