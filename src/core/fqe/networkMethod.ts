@@ -58,6 +58,19 @@ export interface NetworkMethod {
    * 6.5 and 7.1 %, three intervals missing the truth unmarked; degree 2: 5.4 %, always marked). So 2.
    */
   readonly linearPartDegree: number;
+  /**
+   * λ_p of networkHigherTermRidge.ts: a ridge on the polynomial part's terms above degree 2 only,
+   * relative to each term's second moment, shrinking a part of degree > 2 toward the quadratic one.
+   * 0: none (and nothing to shrink at degree 2).
+   */
+  readonly higherTermRidge: number;
+  /**
+   * κ_max of networkPartCancellation.ts: an iterate whose polynomial and hidden parts cancel beyond
+   * it (κ > κ_max on the probe rows) is solved again up the hidden-ridge ladder
+   * (networkRidgeLadder.ts), as one whose values no policy can have; if no rung meets it, the first
+   * rung within the possible values is kept. 0: off (only the values' reach is checked).
+   */
+  readonly cancellationLimit: number;
 }
 
 export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
@@ -67,6 +80,8 @@ export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
   members: 1,
   runStartEmphasis: 0,
   linearPartDegree: LINEAR_PART_DEGREE,
+  higherTermRidge: 0,
+  cancellationLimit: 0,
   intervalResamples: 200,
   learningRateDecay: Object.freeze({ plateau: 4, latest: 20, factor: 0.8, floor: 0.1 }),
 });
