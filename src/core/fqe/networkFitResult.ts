@@ -80,7 +80,7 @@ function averagedIterate(s: FitSession, hiddenRidge: number): { theta: tf.Tensor
   const features = hiddenFeatureRows(theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
   try {
     const sums = lastLayerTotals(s.linear.training.tensors, features, s.linearTotal);
-    const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, hiddenRidge);
+    const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, hiddenRidge, s.higherTermRidge);
     if (!('failure' in solved)) {
       const lastLayer = { linear: solved.weights.slice(0, sums.linearDim), hidden: solved.weights.slice(sums.linearDim) };
       const probe = rowValues(jointRowsAt(featureNetwork(s, theta), s.probe.inputs, s.probe.linear), jointWeights(lastLayer), sums.dim);
@@ -99,7 +99,7 @@ function episodeSystems(s: FitSession, theta: tf.Tensor1D, hiddenRidge: number):
   try {
     const dh = features.hidden.shape[1], { part, rewards } = s.linear.training;
     const joint = episodeLastLayerSums(part, rewards, features.hidden.dataSync() as Float32Array, features.nextHidden.dataSync() as Float32Array, dh, s.episodes.sums, s.episodes.ranges);
-    return { joint, linear: s.comparator.episodes, ids: s.episodes.ids, hiddenRidge };
+    return { joint, linear: s.comparator.episodes, ids: s.episodes.ids, hiddenRidge, higherTermRidge: s.higherTermRidge };
   } finally {
     features.dispose();
   }

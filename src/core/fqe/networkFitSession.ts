@@ -7,6 +7,7 @@
  * fixed order (episode split, layer seeds, probe rows, then minibatch orders), so the seed fixes
  * every number.
  */
+import { higherTermRidge, type HigherTermRidge } from './networkHigherTermRidge';
 import * as tf from '@tensorflow/tfjs';
 import { createActionQuadrature, type ActionQuadrature } from '../actionQuadrature';
 import { fitStateActionStandardiser } from '../features/standardiser';
@@ -66,6 +67,8 @@ export interface FitSession {
   readonly valueLimit: number;
   readonly discount: number;
   readonly method: NetworkMethod;
+  /** The ridge on the polynomial part's terms above degree 2 (networkHigherTermRidge.ts), for every solve of the joint last layer. */
+  readonly higherTermRidge: HigherTermRidge;
   dispose(): void;
 }
 
@@ -114,6 +117,7 @@ export function createFitSession(input: SessionInput): FitSession {
       net: { theta, layout, activation: settings.activation, optimizer }, layout, standardiser, output, rows, next, linear,
       linearTotal, episodes: { ...split.trainingEpisodes, sums: episodeSums }, comparator,
       probe, quadrature, batches, average, discount, method: input.method,
+      higherTermRidge: higherTermRidge(data.stateDim + data.actionDim, input.method.linearPartDegree, input.method.higherTermRidge),
       valueLimit: (2 * largestReward(data.rewards)) / (1 - discount) + scale,
       dispose: () => owned.splice(0).reverse().forEach((o) => o.dispose()),
     };

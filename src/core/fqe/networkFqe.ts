@@ -146,7 +146,7 @@ async function fitMember(input: NetworkFqeInput, method: NetworkMethod, selectio
   const started = performance.now();
   const session = createFitSession({ ...input, method });
   try {
-    const linearStart = solveLastLayer(session.linearTotal.sums, session.linearTotal.dim, session.linearTotal.dim, 0);
+    const linearStart = solveLastLayer(session.linearTotal.sums, session.linearTotal.dim, session.linearTotal.dim, 0, session.higherTermRidge);
     if ('failure' in linearStart) throw new FqeDataError(`the linear (degree-${method.linearPartDegree}) fixed point the network starts from does not exist: ${linearStart.failure}`);
     const { total } = session.comparator, comparator = total.dim === session.linearTotal.dim ? linearStart : solveLastLayer(total.sums, total.dim, total.dim, 0);
     if ('failure' in comparator) throw new FqeDataError(`the linear (degree-${COMPARATOR_DEGREE}) estimate to compare the network with does not exist: ${comparator.failure}`);

@@ -25,6 +25,7 @@
 import { bootstrapInterval, type BootstrapInterval } from '../bootstrap/bootstrapInterval';
 import { episodeMultiplicities } from '../bootstrap/episodeMultiplicities';
 import { combineSums, type LastLayerSums } from './networkLastLayerSums';
+import type { HigherTermRidge } from './networkHigherTermRidge';
 import { solveLastLayer } from './networkLastLayer';
 import { meanRow } from './networkValueRows';
 
@@ -35,6 +36,8 @@ export interface EpisodeSystems {
   /** Episode index (into the data's episodes and start states) of each range. */
   readonly ids: Int32Array;
   readonly hiddenRidge: number;
+  /** The ridge on the polynomial part's terms above degree 2 (networkHigherTermRidge.ts); absent: none. */
+  readonly higherTermRidge?: HigherTermRidge;
 }
 
 export interface IntervalRequest {
@@ -69,7 +72,7 @@ export function valueReplicates(systems: EpisodeSystems, request: IntervalReques
   for (let b = 0; b < request.resamples; b++) {
     episodeMultiplicities(e, request.seed, b, c);
     if (request.startsFollowEpisodes) for (let r = 0; r < e; r++) if (ids[r] < starts) startWeights[ids[r]] = c[r];
-    const v = solveLastLayer(combineSums(joint, c, jointScratch), d, d1, systems.hiddenRidge);
+    const v = solveLastLayer(combineSums(joint, c, jointScratch), d, d1, systems.hiddenRidge, systems.higherTermRidge);
     const w = solveLastLayer(combineSums(linear, c, linearScratch), d2, d2, 0);
     if ('failure' in v || 'failure' in w || startWeights.every((x) => x === 0)) {
       failed++;

@@ -11,11 +11,14 @@ import type { IterationValues } from './networkConvergence';
 import type { FitSession, LinearRows } from './networkFitSession';
 import { hiddenFeatureRows, type HiddenFeatureRows } from './networkHiddenFeatures';
 import type { LastLayer } from './networkOutputLayer';
+import { partCancellation } from './networkPartCancellation';
 import { jointRowsAt, rowValues, startFeatureRows, type FeatureNetwork } from './networkValueRows';
 
 export interface MeasuredIterate extends IterationValues {
   /** max |V| over the start states and |Q| over the probe rows, for the divergence check. */
   readonly reach: number;
+  /** κ of networkPartCancellation.ts on the probe rows: how much the polynomial and hidden parts cancel. */
+  readonly cancellation: number;
 }
 
 export function featureNetwork(s: FitSession, theta: tf.Tensor1D = s.net.theta): FeatureNetwork {
@@ -32,7 +35,7 @@ export function jointWeights(lastLayer: LastLayer): Float64Array {
 export function measureIterate(s: FitSession, lastLayer: LastLayer, startStates: Float64Array, ds: number): MeasuredIterate {
   const net = featureNetwork(s), v = jointWeights(lastLayer), d = v.length;
   const starts = rowValues(startFeatureRows(net, s.quadrature, startStates, ds), v, d);
-  const probe = rowValues(jointRowsAt(net, s.probe.inputs, s.probe.linear), v, d);
+  const probeRows = jointRowsAt(net, s.probe.inputs, s.probe.linear), probe = rowValues(probeRows, v, d);
   let sum = 0, reach = 0;
   for (const x of starts) {
     sum += x;
@@ -40,7 +43,7 @@ export function measureIterate(s: FitSession, lastLayer: LastLayer, startStates:
   }
   for (const x of probe) reach = Math.max(reach, Math.abs(x));
   if (!starts.every(Number.isFinite) || !probe.every(Number.isFinite)) reach = NaN;
-  return { policyValue: sum / starts.length, probe, reach };
+  return { policyValue: sum / starts.length, probe, reach, cancellation: partCancellation(probeRows, v, d, lastLayer.linear.length) };
 }
 
 /** t (n, network units) for the training rows; w1: the quadratic weights the network output sits on. */

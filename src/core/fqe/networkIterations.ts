@@ -22,7 +22,7 @@ import { currentWeights, setOutputLayer, type LastLayer } from './networkOutputL
 import { createPacer, trainSteps, type TrainingGuard } from './networkTrainer';
 import { adamStepFlop, featurePassFlop, lastLayerSumsFlop, newWork, type NetworkWork } from './networkWork';
 import { measureIterate, regressionTargets, heldOutBellmanError, type MeasuredIterate } from './networkIterateValues';
-import { climbRidgeLadder } from './networkRidgeLadder';
+import { climbRidgeLadder, RIDGE_LADDER_FACTOR, RIDGE_LADDER_RUNGS } from './networkRidgeLadder';
 import { requireActiveBackend, type TfBackendName } from './tfBackend';
 
 export interface IterationStop {
@@ -39,6 +39,17 @@ export interface KeptIterate {
   readonly hiddenRidge: number;
 }
 
+/**
+ * An iterate solved with a raised hidden ridge, and why: its values at the ridge it started from lay
+ * beyond reach, or its parts cancelled (networkPartCancellation.ts), or the ridge was held where an
+ * earlier iterate had raised it (the ratchet, with the cancellation limit on).
+ */
+export interface RaisedRidge {
+  readonly iteration: number;
+  readonly hiddenRidge: number;
+  readonly why: 'reach' | 'cancellation' | 'held';
+}
+
 export interface IterationRun {
   readonly history: NetworkIterationRecord[];
   readonly stop: IterationStop;
@@ -49,7 +60,7 @@ export interface IterationRun {
   /** The last iterate measured at the full step size (the decay began after it); null if it never began. */
   readonly decayFrom: number | null;
   /** Iterates solved with a raised hidden ridge (networkRidgeLadder.ts); empty when none needed it. */
-  readonly raisedRidge: readonly { readonly iteration: number; readonly hiddenRidge: number }[];
+  readonly raisedRidge: readonly RaisedRidge[];
 }
 
 export interface LoopInput {
@@ -78,7 +89,7 @@ interface LoopState {
   /** performance.now() at the start of the outer loop. */
   readonly started: number;
   /** Iterates whose last layer needed a larger hidden ridge to stay within the possible values (networkRidgeLadder.ts). */
-  readonly raisedRidge: { iteration: number; hiddenRidge: number }[];
+  readonly raisedRidge: RaisedRidge[];
 }
 
 /** Yield to the event loop about this often, so cancellation and progress can get through. */
@@ -188,17 +199,32 @@ function countFeatureWork(s: FitSession, work: NetworkWork): void {
 function possibleIterate(
   s: FitSession, k: number, state: LoopState, features: HiddenFeatureRows, input: LoopInput,
 ): { lastLayer: LastLayer; values: MeasuredIterate; hiddenRidge: number } | { stop: IterationStop } {
-  const measureAt = (lastLayer: LastLayer) => measureIterate(s, lastLayer, input.startStates, input.stateDim);
+  let atDefault: MeasuredIterate | null = null; // the ladder measures its first rung first (when it can be solved)
+  const measureAt = (lastLayer: LastLayer) => {
+    const values = measureIterate(s, lastLayer, input.startStates, input.stateDim);
+    atDefault ??= values;
+    return values;
+  };
   const passes = (values: MeasuredIterate) => values.reach <= s.valueLimit;
+  const limit = s.method.cancellationLimit, settled = (values: MeasuredIterate) => passes(values) && values.cancellation <= limit;
   if (s.method.lastLayer === 'gradient') {
     const lastLayer = currentWeights(s.net.theta, s.layout, state.linearStart, s.output.scale), values = measureAt(lastLayer);
     return passes(values) ? { lastLayer, values, hiddenRidge: s.method.hiddenRidge } : { stop: beyondReach(k, s, values) };
   }
   const sums = lastLayerTotals(s.linear.training.tensors, features, s.linearTotal);
-  const step = climbRidgeLadder(sums, s.method.hiddenRidge, measureAt, passes);
+  // With the cancellation limit on, the ridge only ratchets up within a fit: a direction the data hardly
+  // determine stays so as the features move, and stepping back down let J wander with it (steam drum, seed 1).
+  const floor = limit > 0 ? Math.max(s.method.hiddenRidge, ...state.raisedRidge.map((r) => r.hiddenRidge)) : s.method.hiddenRidge;
+  const rungsLeft = RIDGE_LADDER_RUNGS - Math.round(Math.log10(floor / s.method.hiddenRidge) / Math.log10(RIDGE_LADDER_FACTOR));
+  const strict = limit > 0 ? climbRidgeLadder(sums, floor, measureAt, settled, s.higherTermRidge, rungsLeft) : null;
+  const step = strict && 'lastLayer' in strict ? strict : climbRidgeLadder(sums, s.method.hiddenRidge, measureAt, passes, s.higherTermRidge);
   if ('failure' in step) return { stop: diverged(k, step.failure) };
   if ('failing' in step) return { stop: beyondReach(k, s, step.failing.values) };
-  if (step.hiddenRidge !== s.method.hiddenRidge) state.raisedRidge.push({ iteration: k, hiddenRidge: step.hiddenRidge });
+  if (step.hiddenRidge !== s.method.hiddenRidge) {
+    const measuredAtFloor = atDefault as MeasuredIterate | null, raisedHere = step.hiddenRidge > floor;
+    const why: RaisedRidge['why'] = !raisedHere ? 'held' : measuredAtFloor !== null && passes(measuredAtFloor) ? 'cancellation' : 'reach';
+    state.raisedRidge.push({ iteration: k, hiddenRidge: step.hiddenRidge, why });
+  }
   return step;
 }
 

@@ -17,14 +17,18 @@
  */
 import { luFactor, luSolve, SingularMatrixError } from '../linalg/dense';
 import { RIDGE } from '../limits';
+import { NO_HIGHER_TERM_RIDGE, type HigherTermRidge } from './networkHigherTermRidge';
 
 /** The linear approximator's default ridge (src/core/limits.ts), read from there so the two cannot drift apart. */
 export const LINEAR_PART_RIDGE = RIDGE.default;
 
 export type LastLayerSolve = { readonly weights: Float64Array } | { readonly failure: string };
 
-/** packed: one range's (or a combination's) sums in the layout of networkLastLayerSums.ts. */
-export function solveLastLayer(packed: Float64Array, d: number, d1: number, hiddenRidge: number): LastLayerSolve {
+/**
+ * packed: one range's (or a combination's) sums in the layout of networkLastLayerSums.ts; higher:
+ * the ridge on the polynomial part's terms above degree 2 (networkHigherTermRidge.ts), none by default.
+ */
+export function solveLastLayer(packed: Float64Array, d: number, d1: number, hiddenRidge: number, higher: HigherTermRidge = NO_HIGHER_TERM_RIDGE): LastLayerSolve {
   const n = packed[packed.length - 1], width = 2 * d + 1;
   if (!(n > 0)) return { failure: 'no transitions to solve the last layer on' };
   const a = new Float64Array(d * d), b = new Float64Array(d);
@@ -35,6 +39,7 @@ export function solveLastLayer(packed: Float64Array, d: number, d1: number, hidd
     for (let c = 0; c < d; c++) a[r * d + c] = (packed[r * width + c] - packed[r * width + d + c]) / n;
     b[r] = packed[r * width + 2 * d] / n;
     if (r > 0 && r < d1) a[r * d + r] += LINEAR_PART_RIDGE;
+    if (r >= higher.from && r < d1) a[r * d + r] += higher.ridge * (packed[r * width + r] / n);
     if (r >= d1) a[r * d + r] += hiddenRidge * (packed[r * width + r] / n + floor);
   }
   try {

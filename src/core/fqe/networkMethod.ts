@@ -58,6 +58,26 @@ export interface NetworkMethod {
    * 6.5 and 7.1 %, three intervals missing the truth unmarked; degree 2: 5.4 %, always marked). So 2.
    */
   readonly linearPartDegree: number;
+  /**
+   * λ_p of networkHigherTermRidge.ts: a ridge on the polynomial part's terms above degree 2 only,
+   * relative to each term's second moment, shrinking a part of degree > 2 toward the quadratic one.
+   * 0: none (and nothing to shrink at degree 2). Measured with degree 4 and λ_p = 10⁻² (test/battery/README.md,
+   * "A ridge on the quartic part's cubic and quartic terms only"): the pendulum's wide starts went
+   * from +4.1 / +3.9 % to −0.3 / −0.8 % (mean), but its steady starts on logs of upsets got worse
+   * beyond the scatter and two greenhouse fits over the wide starts became confident and wrong; so 0.
+   */
+  readonly higherTermRidge: number;
+  /**
+   * κ_max of networkPartCancellation.ts: an iterate whose polynomial and hidden parts cancel beyond
+   * it (κ > κ_max on the probe rows) is solved again up the hidden-ridge ladder
+   * (networkRidgeLadder.ts), as one whose values no policy can have; if no rung meets it, the first
+   * rung within the possible values is kept; with it on, the ridge is not lowered again within a fit.
+   * 0: off (only the values' reach is checked). Measured with κ_max = 2 (test/battery/README.md, "Why
+   * the steam drum's network iterates wander"): it steadied the drum's iterates (seed 1, firmer: within
+   * +0.6 to +1.0 % over the last 15 instead of −25 to +98 %) and changed no battery fit measured, but over
+   * the drum's wide starts it narrowed a wrong value's interval until it missed the truth unmarked; so 0.
+   */
+  readonly cancellationLimit: number;
 }
 
 export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
@@ -67,6 +87,8 @@ export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
   members: 1,
   runStartEmphasis: 0,
   linearPartDegree: LINEAR_PART_DEGREE,
+  higherTermRidge: 0,
+  cancellationLimit: 0,
   intervalResamples: 200,
   learningRateDecay: Object.freeze({ plateau: 4, latest: 20, factor: 0.8, floor: 0.1 }),
 });

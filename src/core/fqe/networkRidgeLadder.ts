@@ -18,6 +18,7 @@
  * that passes at the default λ_h is solved exactly as before, so every fit that never needed it is
  * unchanged; the rungs used are reported with the fit (the message names them).
  */
+import type { HigherTermRidge } from './networkHigherTermRidge';
 import { solveLastLayer } from './networkLastLayer';
 import type { LastLayer } from './networkOutputLayer';
 
@@ -39,12 +40,12 @@ export interface LadderStep<V> {
  */
 export function climbRidgeLadder<V>(
   sums: { readonly sums: Float64Array; readonly dim: number; readonly linearDim: number }, hiddenRidge: number,
-  measure: (lastLayer: LastLayer) => V, passes: (values: V) => boolean,
+  measure: (lastLayer: LastLayer) => V, passes: (values: V) => boolean, higher?: HigherTermRidge, rungs = RIDGE_LADDER_RUNGS,
 ): LadderStep<V> | { failure: string } | { failing: LadderStep<V> } {
   let first: { failure: string } | { failing: LadderStep<V> } | null = null;
-  for (let rung = 0; rung <= RIDGE_LADDER_RUNGS; rung++) {
+  for (let rung = 0; rung <= rungs; rung++) {
     const ridge = hiddenRidge * RIDGE_LADDER_FACTOR ** rung;
-    const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, ridge);
+    const solved = solveLastLayer(sums.sums, sums.dim, sums.linearDim, ridge, higher);
     if ('failure' in solved) {
       first ??= solved;
       continue;
@@ -58,11 +59,19 @@ export function climbRidgeLadder<V>(
 }
 
 /** The sentence the fit's message carries when the ladder was climbed; null when it never was. */
-export function ridgeLadderSentence(raised: readonly { readonly iteration: number; readonly hiddenRidge: number }[], defaultRidge: number): string | null {
+export function ridgeLadderSentence(
+  raised: readonly { readonly iteration: number; readonly hiddenRidge: number; readonly why?: 'reach' | 'cancellation' | 'held' }[], defaultRidge: number,
+): string | null {
+  const held = raised.filter((r) => r.why === 'held').length;
+  raised = raised.filter((r) => r.why !== 'held');
   if (raised.length === 0) return null;
   const top = Math.max(...raised.map((r) => r.hiddenRidge));
   const at = raised.length === 1 ? `At outer iteration ${raised[0].iteration}` : raised.length <= 3
     ? `At outer iterations ${raised.map((r) => r.iteration).join(', ')}` : `At ${raised.length} outer iterations (the first at iteration ${raised[0].iteration})`;
-  return `${at} the last layer gave values no policy can have with the default hidden ridge ${defaultRidge}, ` +
-    `so it was solved again with a larger one (up to ${top}, ×${RIDGE_LADDER_FACTOR} per step, at most ${RIDGE_LADDER_RUNGS} steps), which pulls those iterates toward the polynomial part’s own fixed point (the network’s linear start).`;
+  const reach = raised.some((r) => r.why !== 'cancellation'), cancel = raised.some((r) => r.why === 'cancellation');
+  const what = [reach ? 'values no policy can have' : null, cancel ? 'a polynomial part and a hidden-feature part that largely cancel (a direction the data hardly determine)' : null]
+    .filter((x) => x !== null).join(', or ');
+  return `${at} the last layer gave ${what} with the hidden ridge in use (default ${defaultRidge}), ` +
+    `so it was solved again with a larger one (up to ${top}, ×${RIDGE_LADDER_FACTOR} per step, at most ${RIDGE_LADDER_RUNGS} steps), which pulls those iterates toward the polynomial part’s own fixed point (the network’s linear start).` +
+    (held > 0 ? ` ${held} later iterate${held === 1 ? ' was' : 's were'} solved with the raised ridge kept, not lowered again.` : '');
 }
