@@ -256,5 +256,16 @@ export function sampleAction(p: GaussianPolicy, state: ArrayLike<number>, rng: R
     for (let i = 0; i < m; i++) if (out[i] < lo[i] || out[i] > hi[i]) inside = false;
     if (inside) return;
   }
-  throw new PolicyError('sampling: the truncated action distribution has almost no mass inside the bounds at this state');
+  throw new PolicyError(`sampling: at the state (${Array.from(state, (v) => Number(v.toPrecision(4))).join(', ')}) the truncated action distribution has almost no mass inside its limits: ` +
+    `the mean (${meanText(p, state)}) lies many dithers outside ${limitsText(lo, hi)}, so no action within them could be drawn`);
+}
+
+function meanText(p: GaussianPolicy, state: ArrayLike<number>): string {
+  const mean = new Float64Array(p.actionDim);
+  policyMean(p, state, mean);
+  return Array.from(mean, (v) => Number(v.toPrecision(4))).join(', ');
+}
+
+function limitsText(lo: ArrayLike<number>, hi: ArrayLike<number>): string {
+  return Array.from(lo, (l, i) => `${Number(l.toPrecision(4))} … ${Number(hi[i].toPrecision(4))}`).join('; ');
 }

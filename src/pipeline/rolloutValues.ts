@@ -24,7 +24,7 @@ import { modelRolloutValue, TAIL_WEIGHT, type RolloutSettings, type RolloutValue
 import {
   fitPolynomialModel, fitPolynomialModels, polynomialModelRegressions, type ModelData, type PolynomialModelFit, type PolynomialModelOptions, type PolynomialModelRegressions,
 } from '../core/offPolicy/polynomialDynamicsModel';
-import type { GaussianPolicy } from '../core/policy';
+import { PolicyError, type GaussianPolicy } from '../core/policy';
 import { recordedStreams } from '../core/recordedRandom';
 
 /** What the one-step model is formed from: the log's columns it reads, its episodes, its degrees. */
@@ -72,6 +72,8 @@ export function rolloutValues(job: RolloutJob, cancel?: CancellationCheck): Roll
       return { full: value, resampled };
     } catch (error) {
       if (error instanceof ModelFitError || error instanceof ModelValueError) return { reason: error.message };
+      // A truncated policy whose mean the simulated plant drives dozens of dithers past its limits: this check only, said why.
+      if (error instanceof PolicyError) return { reason: `the simulated plant reaches a state where the policy’s actions cannot be drawn (${error.message.replace(/^sampling: /, '')})` };
       throw error;
     }
   });

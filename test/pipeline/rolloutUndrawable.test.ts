@@ -1,0 +1,44 @@
+/**
+ * A truncated policy whose mean lies dozens of dithers outside its limits at a state the simulated
+ * plant reaches cannot have its actions drawn there (rejection from the untruncated normal: the
+ * band's probability Φ(−k) is below 1e−4 of the 10,000 draws' reach already at k ≈ 4.3). The rollout
+ * check then says so for that policy — naming the state, the mean and the limits — instead of stopping
+ * the whole assessment (found by the screen review's polish helper on the tank-levels sample).
+ * An invented policy on the tank-levels sample's log.
+ */
+import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { describe, expect, it } from 'vitest';
+import { createGaussianPolicy, PolicyError, sampleAction } from '../../src/core/policy';
+import { createRandom } from '../../src/core/random';
+import { rolloutJob } from '../../src/pipeline/assessRollouts';
+import { assessmentSettingsFor } from '../../src/pipeline/assessSettings';
+import { openProject } from '../../src/pipeline/openProject';
+import { startRun } from '../../src/pipeline/projectRun';
+import { rolloutValues } from '../../src/pipeline/rolloutValues';
+
+const farOutside = () => createGaussianPolicy({ offset: [500], gain: [[0, 0]], std: [0.01], bounds: { lo: [0], hi: [100], mode: 'truncate' } }, 2);
+
+describe('actions that cannot be drawn', () => {
+  it('are named with the state, the mean and the limits', () => {
+    const out = new Float64Array(1);
+    expect(() => sampleAction(farOutside(), [1.2, 0.8], createRandom(1), out)).toThrow(PolicyError);
+    expect(() => sampleAction(farOutside(), [1.2, 0.8], createRandom(1), out)).toThrow('at the state (1.2, 0.8) the truncated action distribution has almost no mass inside its limits: the mean (500) lies many dithers outside 0 … 100');
+  });
+
+  it('leave the rollout check of that policy with a reason, and the other policies\' checks as they were', async () => {
+    const folder = join(__dirname, '..', '..', 'sample-projects', 'tank-levels');
+    const opened = await openProject(await readFile(join(folder, 'tank-levels.spcritic'), 'utf8'), 'tank-levels.spcritic', async (p) => new Uint8Array(await readFile(join(folder, p))));
+    if (!opened.ok) throw new Error(opened.problems.map((p) => p.message).join('\n'));
+    const run = await startRun(opened.value.project, opened.value.dataset), settings = assessmentSettingsFor(opened.value.project);
+    if (!run.ok || !settings.ok) throw new Error('setup failed');
+    const context = { plan: run.value.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+    const job = rolloutJob(context, [run.value.models[0].policy, farOutside()], { ...settings.value, resamples: 4, seed: 4 });
+    const [usual, undrawable] = rolloutValues(job);
+    expect('reason' in usual).toBe(false);
+    expect('reason' in undrawable && undrawable.reason).toMatch(/^the simulated plant reaches a state where the policy’s actions cannot be drawn \(at the state \(/);
+    const alone = rolloutValues(rolloutJob(context, [run.value.models[0].policy], { ...settings.value, resamples: 4, seed: 4 }));
+    expect(alone[0]).toEqual(usual);
+    run.value.dispose();
+  });
+});
