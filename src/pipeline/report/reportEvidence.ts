@@ -20,9 +20,16 @@ export function diagnosticsSection(input: ReportInput): Html {
     <table><thead><tr><th>Diagnostic</th>${a.candidates.map((c) => html`<th class="num">${c.name}</th>`)}<th class="num">present controller</th></tr></thead><tbody>
     ${diagnosticRows(a).map((row) => html`<tr><td>${row.label}</td>${row.values.map((v) => html`<td class="num">${v}</td>`)}<td class="num">${row.reference}</td></tr>`)}
     </tbody></table>
+    ${cutParagraph(a)}
     <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${shareText(a.unvisitedShare)} of the value-surface grid has no logged state within one grid step.`}</p>
     ${memoryParagraph(a)}
     <h3>Warnings</h3>${warningList([...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))])}</section>`;
+}
+
+/** Where a range to report was cut to what the reward's definition allows, and why (assessPossible.ts cutToCertain). */
+function cutParagraph(a: Assessment): Html {
+  const cut = a.candidates.filter((c) => c.rangeCut);
+  return cut.length ? html`<p>Ranges marked (cut): ${cut.map((c) => `${c.name}: ${c.rangeCut}`).join(' ')}</p>` : html``;
 }
 
 function memoryParagraph(a: Assessment): Html {
@@ -40,6 +47,7 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
       (c) => formatNumber(c.diagnostics.occupancyShift, 3), formatNumber(first?.presentControllerShift, 3)),
     row(`… ${UPPER_PERCENTILE}th percentile over resamples`, (c) => formatNumber(c.diagnostics.occupancyShiftUpper, 3), ''),
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
+    row('Range to report (spans every function class’s interval; the number to carry forward where not settled)', (c) => (c.reportedRange ? `${intervalAtPrecision(c.reportedRange)}${c.rangeCut ? ' (cut)' : ''}` : '—'), ''),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
     row('Importance weights: effective share of the one-step ratios', (c) => shareText(weights(c)?.oneStepShare), ''),
     row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return !w ? '—' : w.horizonNotNumbers ? `not a number for ${w.horizonNotNumbers} of ${w.horizonEpisodes}` : w.horizonEffectiveEpisodes >= 1 ? `${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes}` : `${w.horizonEffectiveEpisodes > 0 ? 'less than 1' : 'none'} of ${w.horizonEpisodes}`; }, ''),
