@@ -156,7 +156,10 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
     estimates.push({ label: c.label, value: c.model.fit.policyValue, standardError: iv.standardError, interval: iv.percentile, replicates });
   });
   if (estimates.length === 0 || (estimates.length < 2 && work.unconvergedClasses.length === 0)) return null;
-  const verdict = functionClassVerdict(estimates, work.unconvergedClasses);
+  // The project's own class leads the list when it was resampled; a network's own value has none here
+  // (withUnresampledOwn adds it), and the linear classes are then checked among themselves only.
+  const ownFirst = estimates[0]?.label === work.classes[0].label && work.replicate !== null;
+  const verdict = functionClassVerdict(estimates, work.unconvergedClasses, ownFirst);
   const flip = ([lo, hi]: readonly [number, number]): [number, number] => (sign > 0 ? [lo, hi] : [-hi, -lo]);
   return {
     classes: estimates.map((e) => ({ label: e.label, value: sign * e.value, interval: flip(e.interval), standardError: e.standardError })),

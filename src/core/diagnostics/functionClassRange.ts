@@ -91,7 +91,12 @@ export interface ClassVerdict {
   readonly widestGap: ClassGap | null;
 }
 
-export function functionClassVerdict(estimates: readonly ClassEstimate[], unconverged: readonly UnconvergedClass[] = []): ClassVerdict {
+/**
+ * ownFirst: the first estimate is the project's own class (a linear approximator), which some other
+ * class must be able to check; false where the project's own value is not among them (a network,
+ * checked against the linear estimate by its own rule, approximatorAgreement.ts).
+ */
+export function functionClassVerdict(estimates: readonly ClassEstimate[], unconverged: readonly UnconvergedClass[] = [], ownFirst = true): ClassVerdict {
   if (estimates.length === 0) throw new RangeError('function classes: at least one estimate is needed');
   for (const e of estimates) {
     if (![e.value, e.standardError, e.interval[0], e.interval[1]].every(Number.isFinite)) throw new RangeError(`function class "${e.label}": its estimate and interval must be finite numbers`);
@@ -120,7 +125,7 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
     `(${estimates.map((e) => e.label).join('; ')}); a bias they all share would not show.`;
   if (disagreeing.length === 0) {
     const own = estimates[0].label, checks = gaps.filter((x) => x.first === own), checking = checks.filter((x) => detectable(x) <= CROSS_CHECK_RULE.detectableGap);
-    if (checking.length === 0) {
+    if (ownFirst && checking.length === 0) {
       const closest = checks.reduce((c, x) => (detectable(x) < detectable(c) ? x : c));
       return {
         settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: closest,
@@ -128,7 +133,7 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
           `but could not have seen a gap of ${100 * CROSS_CHECK_RULE.detectableGap} % of J (it would need ${percentText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
       };
     }
-    const g = widest(gaps), loose = checks.filter((x) => !checking.includes(x));
+    const g = widest(gaps), loose = ownFirst ? checks.filter((x) => !checking.includes(x)) : [];
     const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (it could see a gap of ${percentText(detectable(x))} of J, not ${100 * CROSS_CHECK_RULE.detectableGap} %)`).join('; ')}.`;
     return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).${tooLoose}${notCompared}` };
   }

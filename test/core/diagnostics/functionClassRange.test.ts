@@ -107,6 +107,10 @@ describe('function-class rule: mechanics', () => {
     expect(named.settled).toBe(true);
     expect(named.reason).toContain('Too uncertain to check degree 2: degree 4 (it could see a gap of 100 % of J, not 10 %).');
     expect(named.range).toEqual([-9 - 1.645 * 5, -9 + 1.645 * 5]); // the range still spans every class
+    // Where the project's own value is not in the list (a network, checked by its own agreement rule), the rule reads disagreement only.
+    const withoutOwn = functionClassVerdict([at('degree 2', 30.2, 6.6), at('degree 3', 19, 42)], [], false);
+    expect(withoutOwn.settled).toBe(true);
+    expect(withoutOwn.reason).not.toContain('Too uncertain');
   });
 
   it('needs both the standard-error and the relative limit to call a disagreement', () => {
