@@ -4,13 +4,19 @@
  * plus a share of delivered heat, 0 … 1: sample-projects/heating-loop/README.md); the field shows it,
  * and raising the floor to 1 makes the rows that cost less than 1 rows that cannot be used, named by
  * line and column. The historian sample's cost is a formula, (T − 21)² + 0.1·(20^(u/100) − 1)/19,
- * whose floor −0.1/19 ≈ −0.005263 is shown beside it (20^x > 0: elementary algebra). Screenshots in
- * both themes at 1280×800 and 1920×1080 go to test-artifacts/screens/.
+ * whose floor −0.1/19 ≈ −0.005263 is shown beside it (20^x > 0: elementary algebra). On the invented
+ * two-valve log (test/fixtures/screens/twoValveBlend.ts, its cost declared never below 0) the findings
+ * carry the range to report, cut at 0 with its sentence, into the answer table where a candidate is not
+ * settled. Screenshots in both themes at 1280×800 and 1920×1080 go to test-artifacts/screens/.
  */
+import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
+import { openAllFindings } from './harness/findingsSections';
+import { goToStep } from '../renderer/e2e/appSteps';
+import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
 
 describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
   let app: LaunchedApp;
@@ -55,4 +61,28 @@ describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
     await page.getByTestId('formula-bounds').scrollIntoViewIfNeeded();
     await app.screenshot('reward-bounds-formula-1280-dark');
   });
+
+  it('carries a cut range to report into the answer table where a candidate is not settled (two-valve log)', async () => {
+    await app.close();
+    app = await launchApp({ viewport: { width: 1280, height: 800 } });
+    const { page } = app;
+    app.harness.dialogs.nextOpenProject = await writeTwoValveBlendProject(app.harness.workFolder);
+    await page.getByTestId('open-project').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
+    await goToStep(page, 'run');
+    await page.getByTestId('run-evaluation').click();
+    await page.getByTestId('run-finished').waitFor({ timeout: 240_000 });
+    await goToStep(page, 'findings');
+    await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });
+    await openAllFindings(page);
+    // Every range to report shown in the answer table starts at 0 or above: the cost is declared never below 0.
+    const ranges = await page.getByTestId('answer-range-to-report').allInnerTexts();
+    expect(ranges.length).toBeGreaterThan(0);
+    for (const r of ranges) expect(r).toMatch(/^range to report \[\d/);
+    const cuts = await page.locator('[data-testid^="range-cut-"]').allInnerTexts();
+    expect(cuts.some((t) => t.startsWith('The range to report is cut below at 0'))).toBe(true);
+    await page.getByTestId('answer-table').scrollIntoViewIfNeeded();
+    await app.screenshot('reward-bounds-two-valve-answer-1280');
+    await page.getByTestId('answer-table').screenshot({ path: resolve(__dirname, '../../test-artifacts/screens/reward-bounds-two-valve-answer-table.png') });
+  }, 600_000);
 });

@@ -62,7 +62,11 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
           <tr key={l.candidate.name} className={l === choice.pick ? 'answer-pick' : undefined} data-testid={`answer-row-${evaluation.policies.findIndex((p) => p.name === l.candidate.name)}`}>
             <th scope="row">{l.candidate.name}</th>
             <td className="number">{valueAtPrecision(l.candidate.policyValue.value, l.candidate.policyValue.percentile)}</td>
-            <td className="number interval">{intervalAtPrecision(l.candidate.policyValue.percentile)}</td>
+            <td className="number interval">
+              {intervalAtPrecision(l.candidate.policyValue.percentile)}
+              {/* Not settled: the sampling interval alone understates the error; the number to carry forward is the range across classes. */}
+              {l.candidate.settled === false && l.candidate.reportedRange && <div className="small" data-testid="answer-range-to-report">range to report {intervalAtPrecision(l.candidate.reportedRange)}</div>}
+            </td>
             <td className="number interval">{l.difference ? `${valueAtPrecision(l.difference.difference.value, l.difference.difference.percentile)} ${intervalAtPrecision(l.difference.difference.percentile)}` : '—'}</td>
             <td className="number">{shareText(l.difference?.probabilityBetter ?? null)}</td>
             <td className={l.candidate.confirmation.status === 'contradicted' ? 'error-text' : undefined}>{CONFIRMATION[l.candidate.confirmation.status]}</td>
