@@ -4,22 +4,14 @@
  * stop request that arrives while it runs is heard before the pass ends. Here the pace itself
  * raises the stop, as a host's message would arrive during a yield.
  */
-import { readFile } from 'node:fs/promises';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { FqeCancelledError } from '../../src/core/fqe/fqeErrors';
 import { candidateWork, type AssessmentContext } from '../../src/pipeline/assessCandidate';
 import { sensitivity } from '../../src/pipeline/assessSensitivity';
-import { openProject } from '../../src/pipeline/openProject';
-import { startRun } from '../../src/pipeline/projectRun';
+import { sampleRun } from '../support/sampleRun';
 
 async function heatingRun() {
-  const folder = join(__dirname, '..', '..', 'sample-projects', 'heating-loop');
-  const opened = await openProject(await readFile(join(folder, 'heating-loop.spcritic'), 'utf8'), 'heating-loop.spcritic', async (p) => new Uint8Array(await readFile(join(folder, p))));
-  if (!opened.ok) throw new Error(opened.problems.map((p) => p.message).join('\n'));
-  const run = await startRun(opened.value.project, opened.value.dataset);
-  if (!run.ok) throw new Error(run.problems.map((p) => p.message).join('\n'));
-  return run.value;
+  return (await sampleRun('heating-loop')).run;
 }
 
 describe('the sensitivity sweep’s refit pass', () => {

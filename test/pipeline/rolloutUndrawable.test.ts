@@ -6,16 +6,12 @@
  * the whole assessment (found by the screen review's polish helper on the tank-levels sample).
  * An invented policy on the tank-levels sample's log.
  */
-import { readFile } from 'node:fs/promises';
-import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { createGaussianPolicy, PolicyError, sampleAction } from '../../src/core/policy';
 import { createRandom } from '../../src/core/random';
 import { rolloutJob } from '../../src/pipeline/assessRollouts';
-import { assessmentSettingsFor } from '../../src/pipeline/assessSettings';
-import { openProject } from '../../src/pipeline/openProject';
-import { startRun } from '../../src/pipeline/projectRun';
 import { rolloutValues } from '../../src/pipeline/rolloutValues';
+import { sampleRun } from '../support/sampleRun';
 
 const farOutside = () => createGaussianPolicy({ offset: [500], gain: [[0, 0]], std: [0.01], bounds: { lo: [0], hi: [100], mode: 'truncate' } }, 2);
 
@@ -27,18 +23,14 @@ describe('actions that cannot be drawn', () => {
   });
 
   it('leave the rollout check of that policy with a reason, and the other policies\' checks as they were', async () => {
-    const folder = join(__dirname, '..', '..', 'sample-projects', 'tank-levels');
-    const opened = await openProject(await readFile(join(folder, 'tank-levels.spcritic'), 'utf8'), 'tank-levels.spcritic', async (p) => new Uint8Array(await readFile(join(folder, p))));
-    if (!opened.ok) throw new Error(opened.problems.map((p) => p.message).join('\n'));
-    const run = await startRun(opened.value.project, opened.value.dataset), settings = assessmentSettingsFor(opened.value.project);
-    if (!run.ok || !settings.ok) throw new Error('setup failed');
-    const context = { plan: run.value.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
-    const job = rolloutJob(context, [run.value.models[0].policy, farOutside()], { ...settings.value, resamples: 4, seed: 4 });
+    const { run, settings } = await sampleRun('tank-levels');
+    const context = { plan: run.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+    const job = rolloutJob(context, [run.models[0].policy, farOutside()], { ...settings, resamples: 4, seed: 4 });
     const [usual, undrawable] = rolloutValues(job);
     expect('reason' in usual).toBe(false);
     expect('reason' in undrawable && undrawable.reason).toMatch(/^the simulated plant reaches a state where the policy’s actions cannot be drawn \(at the state \(/);
-    const alone = rolloutValues(rolloutJob(context, [run.value.models[0].policy], { ...settings.value, resamples: 4, seed: 4 }));
+    const alone = rolloutValues(rolloutJob(context, [run.models[0].policy], { ...settings, resamples: 4, seed: 4 }));
     expect(alone[0]).toEqual(usual);
-    run.value.dispose();
+    run.dispose();
   });
 });
