@@ -9,7 +9,7 @@
 import { copyFile, mkdir, readFile, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openAllFindings } from './harness/findingsSections';
+import { runToAssessedFindings } from './harness/findingsSections';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
@@ -32,12 +32,7 @@ describe('the flagged findings of the heating-loop sample (e2e)', () => {
   it('shows them, and the answer table names cautions where they sit', async () => {
     const { page } = app;
     await openSample(app, 'heating-loop');
-    await goToStep(page, 'run');
-    await page.getByTestId('run-evaluation').click();
-    await page.getByTestId('run-finished').waitFor({ timeout: 240_000 });
-    await goToStep(page, 'findings');
-    await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });
-    await openAllFindings(page);
+    await runToAssessedFindings(page);
     await page.waitForFunction(() => document.querySelectorAll('.plot-placeholder').length === 0
       && [...document.querySelectorAll('figure[data-chart-state]')].every((f) => f.getAttribute('data-chart-state') !== 'waiting'), null, { timeout: 60_000 }).catch(() => undefined);
     for (const id of SECTIONS) {

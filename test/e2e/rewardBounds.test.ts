@@ -11,11 +11,10 @@
  */
 import { resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { openSample } from './harness/openSample';
+import { openProjectFile, openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
-import { openAllFindings } from './harness/findingsSections';
-import { goToStep } from '../renderer/e2e/appSteps';
+import { runToAssessedFindings } from './harness/findingsSections';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
 
 describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
@@ -66,15 +65,8 @@ describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
     await app.close();
     app = await launchApp({ viewport: { width: 1280, height: 800 } });
     const { page } = app;
-    app.harness.dialogs.nextOpenProject = await writeTwoValveBlendProject(app.harness.workFolder);
-    await page.getByTestId('open-project').click();
-    await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
-    await goToStep(page, 'run');
-    await page.getByTestId('run-evaluation').click();
-    await page.getByTestId('run-finished').waitFor({ timeout: 240_000 });
-    await goToStep(page, 'findings');
-    await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });
-    await openAllFindings(page);
+    await openProjectFile(app, await writeTwoValveBlendProject(app.harness.workFolder));
+    await runToAssessedFindings(page);
     // Every range to report shown in the answer table starts at 0 or above: the cost is declared never below 0.
     const ranges = await page.getByTestId('answer-range-to-report').allInnerTexts();
     expect(ranges.length).toBeGreaterThan(0);

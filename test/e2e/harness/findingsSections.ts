@@ -3,6 +3,7 @@
  * section index's "Open all": sections that appear later (the assessment's) open too.
  */
 import type { Page } from 'playwright-core';
+import { goToStep } from '../../renderer/e2e/appSteps';
 
 export async function openAllFindings(page: Page): Promise<void> {
   const button = page.getByTestId('open-all-sections');
@@ -16,4 +17,14 @@ export async function openFindingsSection(page: Page, id: string, timeout = 90_0
   await entry.waitFor({ timeout });
   await entry.click();
   await page.locator(`[data-section="${id}"][data-open="true"]`).waitFor({ timeout: 15_000 });
+}
+
+/** Run the open project with its assessment from the Run step, then open every Findings section once the answer is in. */
+export async function runToAssessedFindings(page: Page): Promise<void> {
+  await goToStep(page, 'run');
+  await page.getByTestId('run-evaluation').click();
+  await page.getByTestId('run-finished').waitFor({ timeout: 240_000 });
+  await goToStep(page, 'findings');
+  await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });
+  await openAllFindings(page);
 }

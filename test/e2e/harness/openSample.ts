@@ -7,12 +7,17 @@ import { join, resolve } from 'node:path';
 import type { LaunchedApp } from './launch';
 
 export async function openSample(app: LaunchedApp, sample: string): Promise<string> {
-  const { page, harness } = app, folder = resolve(__dirname, '../../../sample-projects', sample);
+  const { harness } = app, folder = resolve(__dirname, '../../../sample-projects', sample);
   const projectPath = join(harness.workFolder, `${sample}.spcritic`);
   await copyFile(join(folder, `${sample}.csv`), join(harness.workFolder, `${sample}.csv`));
   await copyFile(join(folder, `${sample}.spcritic`), projectPath);
-  harness.dialogs.nextOpenProject = projectPath;
-  await page.getByTestId('open-project').click();
-  await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
+  await openProjectFile(app, projectPath);
   return projectPath;
+}
+
+/** Open a project file already written to disk through the scripted Open dialog, and wait for the import summary. */
+export async function openProjectFile(app: LaunchedApp, projectPath: string): Promise<void> {
+  app.harness.dialogs.nextOpenProject = projectPath;
+  await app.page.getByTestId('open-project').click();
+  await app.page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
 }
