@@ -106,6 +106,15 @@ export function cutToCertain(plan: EvaluationPlan, range: [number, number] | nul
   };
 }
 
+/** The discounted values no policy can pass, in words for a note ("none below 0"); '' where the reward's definition bounds nothing. */
+export function certainEnds(plan: EvaluationPlan): string {
+  const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
+  if (!certain) return '';
+  const [lo, hi] = projectRange(plan, certain);
+  const sides = [...(lo > -Infinity ? [`below ${plainNumber(lo, 4, ASCII_MINUS)}`] : []), ...(hi < Infinity ? [`above ${plainNumber(hi, 4, ASCII_MINUS)}`] : [])];
+  return sides.length ? `none ${sides.join(' or ')}` : '';
+}
+
 /** A range in reward sense, in the project's. */
 function projectRange(plan: EvaluationPlan, range: PossibleValues): [number, number] {
   return plan.sign > 0 ? [range.lower, range.upper] : [0 - range.upper, 0 - range.lower]; // 0 − x: never −0

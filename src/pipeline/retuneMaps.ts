@@ -37,6 +37,7 @@ import type { EvaluationPlan } from './plan/evaluationPlan';
 import { quadratureProblem } from './plan/planPolicies';
 import { isEngineError } from './engineErrors';
 import { shiftOf } from './assessDiagnostics';
+import { certainEnds, cutToCertain } from './assessPossible';
 import { CANCELLED_PROBLEM, type ProjectRun } from './projectRun';
 
 /** Bootstrap resamples per grid point (ours: enough for a 90 % percentile interval to two digits of its width). */
@@ -118,6 +119,7 @@ function runRetuneMap(
   // The same resamples at every point (seed, b), drawn once; each point's replicates are taken a block at a time (linearFqeReplicateBlock).
   const resamples = withIntervals ? Array.from({ length: MAP_RESAMPLES }, (_, b) => episodeMultiplicities(e, plan.seed, b)) : [];
   const points: RetuneMapPoint[] = [], possible = possibleValues(data.rewards, plan.discount, plan.absorbingEnds > 0);
+  let cutPoints = 0;
   retuneGrid({
     data, features, policies, discount: plan.discount, ridge: settings.ridge, quadratureNodes: plan.quadratureNodes,
     tolerance: settings.tolerance, maxIterations: settings.maxIterations, startStates: plan.starts.states,
@@ -137,7 +139,10 @@ function runRetuneMap(
         for (let first = 0; first < MAP_RESAMPLES; first += RESAMPLE_BLOCK) {
           for (const r of linearFqeReplicateBlock(setup, resamples.slice(first, first + RESAMPLE_BLOCK), scratch)) values.push(r.policyValue);
         }
-        interval = intervalEstimate(m.policyValue, values, level, sign).percentile;
+        // Cut where the reward's definition puts values out of reach of every policy, as a candidate's range to report is.
+        const cut = cutToCertain(plan, intervalEstimate(m.policyValue, values, level, sign).percentile);
+        interval = cut.range;
+        if (cut.note) cutPoints++;
       }
       // A value no policy can reach with rewards in the logged range is beyond the logs whatever its shift says.
       const impossible = m.policyValue !== null && outsidePossible(m.policyValue, possible);
@@ -161,7 +166,8 @@ function runRetuneMap(
     `Supported: occupancy shift at or below ${fmt(OCCUPANCY_SHIFT_LIMITS.caution * reference)}, ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller’s own level ${fmt(reference)} ` +
       `(the candidates’ rule); above ${fmt(OCCUPANCY_SHIFT_LIMITS.serious * reference)} the logs no longer speak for the estimate.`,
     withIntervals
-      ? `Intervals: ${Math.round(100 * level)} % percentile bootstrap over the ${e} logged runs, ${MAP_RESAMPLES} resamples per point (the same resamples at every point).`
+      ? `Intervals: ${Math.round(100 * level)} % percentile bootstrap over the ${e} logged runs, ${MAP_RESAMPLES} resamples per point (the same resamples at every point)` +
+        `${cutPoints > 0 ? `; at ${cutPoints} point${cutPoints === 1 ? '' : 's'} cut where the ${plan.sense}’s definition puts values out of reach of every policy (${certainEnds(plan)})` : ''}.`
       : `No intervals: ${e < 10 ? `${e} runs are too few to resample` : 'the grid is too large to resample every point within a minute'}.`,
     ...(linear ? [] : ['The project uses the network approximator; the map uses degree-2 polynomial features (a network fit per point would cost a training each).']),
     'Each point is a retune of the same candidate; like every estimate here, it is a screening figure to plan a trial, not a substitute for a supervised test on the plant.',

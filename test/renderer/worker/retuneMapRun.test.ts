@@ -48,6 +48,15 @@ describe('retune map worker handler', async () => {
     expect(w.axes.map((a) => a.label)).toEqual(d.axes.map((a) => a.label));
   });
 
+  it('cuts no interval below 0, the cost the sample declares it never goes below, and says where it cut', () => {
+    // The heating loop's cost is a square plus a share of heat (sample-projects/heating-loop/README.md): no J below 0 is possible.
+    if (!viaWorker.ok) throw new Error('map failed');
+    const [w] = viaWorker.value, intervals = w.points.flatMap((p) => (p.interval ? [p.interval] : []));
+    expect(intervals.length).toBe(100);
+    for (const [lo] of intervals) expect(lo).toBeGreaterThanOrEqual(0);
+    expect(w.notes.join(' ')).toMatch(/at \d+ points? cut where the cost’s definition puts values out of reach of every policy \(none below 0\)/);
+  });
+
   it('labels the axes in words, without the parameter paths', () => {
     if (!viaWorker.ok) throw new Error('map failed');
     for (const axis of viaWorker.value[0].axes) expect(axis.label).not.toMatch(/form\.|loops\.\d/);
