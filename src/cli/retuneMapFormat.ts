@@ -20,7 +20,7 @@ export function formatRetuneMap(map: RetuneMapResult, level: number): string {
     : 'No point is both converged and supported by the logs.';
   return [
     `Retune map of "${map.candidate}" (${map.points.length} points; ${map.features}):`,
-    textTable(rows, false),
+    textTable(rows, false, true),
     best + (map.presentController === null ? '' : ` Present controller: J ${atDecimals(map.presentController, bestDecimals)}.`),
     ...map.notes.map((n) => `  ${n}`),
     '',

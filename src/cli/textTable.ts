@@ -11,8 +11,13 @@ export function significant(v: number | null, digits: number, exponent = true): 
   return v.toPrecision(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
 }
 
-/** Columns three spaces apart, right-aligned; the first left-aligned unless `firstLeft` is false. */
-export function textTable(rows: string[][], firstLeft = true): string {
-  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length)));
-  return rows.map((r) => r.map((cell, c) => (c === 0 && firstLeft ? cell.padEnd(widths[c]) : cell.padStart(widths[c]))).join('   ')).join('\n');
+/**
+ * Columns three spaces apart, right-aligned; the first left-aligned unless `firstLeft` is false; a
+ * last column of words (a marker such as "◀ best supported") left-aligned when `lastLeft`. No line
+ * ends in spaces (a row whose last cells are empty, or padding after the widest cell).
+ */
+export function textTable(rows: string[][], firstLeft = true, lastLeft = false): string {
+  const widths = rows[0].map((_, c) => Math.max(...rows.map((r) => r[c].length))), last = rows[0].length - 1;
+  const cellText = (cell: string, c: number): string => ((c === 0 && firstLeft) || (c === last && lastLeft) ? cell.padEnd(widths[c]) : cell.padStart(widths[c]));
+  return rows.map((r) => r.map(cellText).join('   ').trimEnd()).join('\n');
 }
