@@ -74,8 +74,18 @@ function product(a: Bounds, b: Bounds): Bounds {
   return [Math.min(...p), Math.max(...p)];
 }
 
+/**
+ * The ends divided as each row divides (not times a reciprocal: 3·fl(1/17) lies one unit in the last
+ * place below fl(3/17), and a cancellation after it can make that any size); correctly rounded
+ * division is monotone, so the ends enclose every row's quotient. ±∞/±∞ is taken as 0: the other
+ * ends give the infinite side, and a row's value is finite.
+ */
 function quotient(a: Bounds, b: Bounds): Bounds {
-  if (b[0] > 0 || b[1] < 0) return product(a, [1 / b[1], 1 / b[0]]);
+  if (b[0] > 0 || b[1] < 0) {
+    const over = (x: number, y: number): number => (!Number.isFinite(x) && !Number.isFinite(y) ? 0 : x / y);
+    const q = [over(a[0], b[0]), over(a[0], b[1]), over(a[1], b[0]), over(a[1], b[1])];
+    return [Math.min(...q), Math.max(...q)];
+  }
   // A divisor that can be 0 (a row where it is 0 is a bad row): only a sign survives.
   if (b[0] === 0 && b[1] > 0) return a[0] >= 0 ? [0, Infinity] : a[1] <= 0 ? [-Infinity, 0] : ALL;
   if (b[1] === 0 && b[0] < 0) return a[0] >= 0 ? [-Infinity, 0] : a[1] <= 0 ? [0, Infinity] : ALL;

@@ -84,4 +84,19 @@ describe('bounds a formula keeps whatever its columns hold', () => {
     }
     expect(CERTAIN_BOUND_SLACK).toBeLessThan(1e-9);
   });
+
+  it('bounds a quotient by dividing the ends, as each row divides, so a cancellation after it cannot step outside', () => {
+    // 3·fl(1/17) = 0.1764705882352941 < fl(3/17) = 0.17647058823529413 (IEEE 754 round-to-nearest,
+    // checked in node): a bound taken through the reciprocal sat one unit in the last place below the
+    // row at c = 3, and subtracting fl(3/17) and scaling by 1e17 turned that into an upper bound of
+    // −2.8 where the row gives exactly 0.
+    const f = '1e17 * (clamp(c, 0, 3) / 17 - 0.17647058823529413)';
+    const tree = parseExpression(f), [, hi] = expressionBounds(tree);
+    const row = evaluateExpression(tree, () => Float64Array.of(3), 1)[0];
+    expect(row).toBe(0);
+    expect(hi).toBeGreaterThanOrEqual(row);
+    expect(b('clamp(c, 1, 2) / clamp(d, 4, 8)')).toEqual([near(0.125), near(0.5)]);
+    expect(b('clamp(c, 1, 2) / (-1 - x^2)')).toEqual([near(-2), near(0)]);
+    expect(b('(1 + x^2) / (1 + y^2)')).toEqual([near(0), Infinity]);
+  });
 });
