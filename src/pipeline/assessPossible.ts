@@ -86,23 +86,32 @@ export function certainFinding(plan: EvaluationPlan, certain: PossibleValues, j:
 /**
  * A range to report cut to the values some policy can have, whatever it does (the reward formula's
  * own bounds, core/diagnostics/possibleValues.ts certainValues), in the project's sense, with a
- * sentence saying where and why; unchanged, with no sentence, when nothing is cut, when the reward
- * is a column, or when the range lies wholly outside (impossibleValue names that).
+ * sentence saying where and why; unchanged, with no sentence, when nothing is cut, when nothing
+ * bounds the reward, or when the range lies wholly outside (impossibleValue names that).
+ * j, the point estimate in the project's sense: the cut never passes it. J past a certain end by
+ * less than the impossible-value slack is named by no finding, and a range cut at the end would sit
+ * beside it without holding it; the range stops at J instead, still holding the cut one (so its
+ * coverage), and the sentence says so.
  */
-export function cutToCertain(plan: EvaluationPlan, range: [number, number] | null): { range: [number, number] | null; note: string | null } {
+export function cutToCertain(plan: EvaluationPlan, range: [number, number] | null, j: number | null = null): { range: [number, number] | null; note: string | null } {
   const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
   if (!range || !certain) return { range, note: null };
-  const [lo, hi] = projectRange(plan, certain), cut: [number, number] = [Math.max(range[0], lo), Math.min(range[1], hi)];
-  if (cut[0] > cut[1] || (cut[0] === range[0] && cut[1] === range[1])) return { range, note: null };
+  const [lo, hi] = projectRange(plan, certain);
+  if (Math.max(range[0], lo) > Math.min(range[1], hi)) return { range, note: null };
+  const floor = j === null ? lo : Math.min(lo, j), ceiling = j === null ? hi : Math.max(hi, j);
+  const cut: [number, number] = [Math.max(range[0], floor), Math.min(range[1], ceiling)];
+  if (cut[0] === range[0] && cut[1] === range[1]) return { range, note: null };
   const steps = formulaBounds(plan), sides = [
     ...(cut[0] !== range[0] ? [{ side: 'below', end: cut[0], step: steps[0] }] : []),
     ...(cut[1] !== range[1] ? [{ side: 'above', end: cut[1], step: steps[1] }] : []),
   ];
   const where = sides.map((x) => `${x.side} at ${plainNumber(x.end, 4, ASCII_MINUS)}`).join(' and ');
   const why = sides.map((x) => `never ${x.side} ${plainNumber(x.step, 4, ASCII_MINUS)}`).join(' and ');
+  const atJ = j !== null && (cut[0] === j || cut[1] === j) && (j < lo || j > hi)
+    ? ` J itself lies past that end by less than the impossible-value rule’s slack, so it stops at J = ${plainNumber(j, 4, ASCII_MINUS)} to keep the estimate inside its range.` : '';
   return {
     range: cut,
-    note: `The range to report is cut ${where} (it was ${intervalAtPrecision(range, ASCII_MINUS)}): ${definition(plan)} ${why} on any row, whatever the plant does, so no policy’s discounted ${plan.sense} lies beyond. The cut keeps the range’s coverage, since the true value lies inside it for sure.`,
+    note: `The range to report is cut ${where} (it was ${intervalAtPrecision(range, ASCII_MINUS)}): ${definition(plan)} ${why} on any row, whatever the plant does, so no policy’s discounted ${plan.sense} lies beyond. The cut keeps the range’s coverage, since the true value lies inside it for sure.${atJ}`,
   };
 }
 

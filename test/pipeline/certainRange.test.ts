@@ -69,6 +69,21 @@ describe('a range to report cut to what any policy can have', () => {
   });
 });
 
+describe('a cut never leaves J outside its own range to report', () => {
+  it('stops at J where J lies past the certain end by less than the impossible-value slack, and says so', () => {
+    // A cost formula never below 0; J = −0.5 is within the logged-range rule's slack, so no finding
+    // names it, and a cut at 0 would print J = −0.5 beside a range [0, 14.1] that excludes it.
+    const cut = cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], -0.5);
+    expect(cut.range).toEqual([-0.5, 14.1]);
+    expect(cut.note).toContain('cut below at -0.5');
+    expect(cut.note).toContain('so it stops at J = -0.5 to keep the estimate inside its range');
+    // J inside the certain range: the cut is the plain one.
+    expect(cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], 3).range).toEqual([0, 14.1]);
+    // A reward ceiling of 0 and J = 0.2 above it: the range keeps J.
+    expect(cutToCertain(plan('reward', [-Infinity, 0]), [-30, 2.5], 0.2).range).toEqual([-30, 0.2]);
+  });
+});
+
 describe('J past what any policy can have', () => {
   const model = (j: number) => ({ fit: { policyValue: j } }) as unknown as CandidateModel;
   const estimate = (interval: [number, number]) => ({ percentile: interval, standardError: null }) as unknown as IntervalEstimate;
