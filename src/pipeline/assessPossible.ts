@@ -15,6 +15,7 @@ import type { AssessmentWarning, IntervalEstimate } from './assessment';
 import type { CandidateModel } from './model/candidateModel';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 import { ASCII_MINUS, intervalAtPrecision, plainNumber, valueAtPrecision } from '../figures/parts/uncertainNumber';
+import { boundText } from '../figures/parts/boundText';
 
 const TOPIC = 'impossibleValue';
 
@@ -79,7 +80,7 @@ export function certainFinding(plan: EvaluationPlan, certain: PossibleValues, j:
   const end = below ? bound[0] : bound[1], step = formulaBounds(plan)[below ? 0 : 1], side = below ? 'below' : 'above';
   return {
     severity: 'serious', topic: TOPIC,
-    message: `J = ${valueAtPrecision(value, interval, ASCII_MINUS)} lies ${side} ${plainNumber(end, 4, ASCII_MINUS)}, the ${below ? 'least' : 'most'} discounted ${plan.sense} any policy can have whatever it does (${definition(plan)} never ${side} ${plainNumber(step, 4, ASCII_MINUS)} on any row). The fit extrapolates far from the logs: do not use this value.`,
+    message: `J = ${valueAtPrecision(value, interval, ASCII_MINUS)} lies ${side} ${boundText(end, below ? 'lower' : 'upper', 4, ASCII_MINUS)}, the ${below ? 'least' : 'most'} discounted ${plan.sense} any policy can have whatever it does (${definition(plan)} never ${side} ${boundText(step, below ? 'lower' : 'upper', 4, ASCII_MINUS)} on any row). The fit extrapolates far from the logs: do not use this value.`,
   };
 }
 
@@ -105,8 +106,11 @@ export function cutToCertain(plan: EvaluationPlan, range: [number, number] | nul
     ...(cut[0] !== range[0] ? [{ side: 'below', end: cut[0], step: steps[0] }] : []),
     ...(cut[1] !== range[1] ? [{ side: 'above', end: cut[1], step: steps[1] }] : []),
   ];
-  const where = sides.map((x) => `${x.side} at ${plainNumber(x.end, 4, ASCII_MINUS)}`).join(' and ');
-  const why = sides.map((x) => `never ${x.side} ${plainNumber(x.step, 4, ASCII_MINUS)}`).join(' and ');
+  // The ends said outward (boundText.ts): "never below −0.005264" of a floor at −0.00526316 stays true of every row.
+  // An end stopped at J is J itself, said as J is.
+  const end = (x: { side: string; end: number }) => (x.end === j ? plainNumber(x.end, 4, ASCII_MINUS) : boundText(x.end, x.side === 'below' ? 'lower' : 'upper', 4, ASCII_MINUS));
+  const where = sides.map((x) => `${x.side} at ${end(x)}`).join(' and ');
+  const why = sides.map((x) => `never ${x.side} ${boundText(x.step, x.side === 'below' ? 'lower' : 'upper', 4, ASCII_MINUS)}`).join(' and ');
   const atJ = j !== null && (cut[0] === j || cut[1] === j) && (j < lo || j > hi)
     ? ` J itself lies past that end by less than the impossible-value rule’s slack, so it stops at J = ${plainNumber(j, 4, ASCII_MINUS)} to keep the estimate inside its range.` : '';
   return {
@@ -120,7 +124,7 @@ export function certainEnds(plan: EvaluationPlan): string {
   const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
   if (!certain) return '';
   const [lo, hi] = projectRange(plan, certain);
-  const sides = [...(lo > -Infinity ? [`below ${plainNumber(lo, 4, ASCII_MINUS)}`] : []), ...(hi < Infinity ? [`above ${plainNumber(hi, 4, ASCII_MINUS)}`] : [])];
+  const sides = [...(lo > -Infinity ? [`below ${boundText(lo, 'lower', 4, ASCII_MINUS)}`] : []), ...(hi < Infinity ? [`above ${boundText(hi, 'upper', 4, ASCII_MINUS)}`] : [])];
   return sides.length ? `none ${sides.join(' or ')}` : '';
 }
 
