@@ -67,7 +67,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
     const policyValue = withNetworkInterval(intervalEstimate(work.model.fit.policyValue, r.fqe, settings.level, sign), work, sign);
     const fitted = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
     // A range past what any policy can have, whatever it does (the reward formula's bounds), is cut there and says so.
-    const cut = cutToCertain(context.plan, fitted?.range ?? policyValue.percentile, policyValue.value);
+    const cut = cutToCertain(context.plan, fitted?.range ?? policyValue.percentile, policyValue.value, possible);
     const classes = fitted && cut.range ? { ...fitted, range: cut.range } : fitted;
     const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights, classes ? classes.settled : null);
     const warnings = [

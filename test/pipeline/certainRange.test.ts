@@ -73,14 +73,24 @@ describe('a cut never leaves J outside its own range to report', () => {
   it('stops at J where J lies past the certain end by less than the impossible-value slack, and says so', () => {
     // A cost formula never below 0; J = −0.5 is within the logged-range rule's slack, so no finding
     // names it, and a cut at 0 would print J = −0.5 beside a range [0, 14.1] that excludes it.
-    const cut = cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], -0.5);
-    expect(cut.range).toEqual([-0.5, 14.1]);
-    expect(cut.note).toContain('cut below at -0.5');
-    expect(cut.note).toContain('so it stops at J = -0.5 to keep the estimate inside its range');
+    // Logged costs 0.1 to 2 per step at γ 0.95: reward-sense range [−40, −2], slack 1 % of 38 = 0.38.
+    const logged = { lower: -40, upper: -2 };
+    const cut = cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], -0.2, logged);
+    expect(cut.range).toEqual([-0.2, 14.1]);
+    expect(cut.note).toContain('cut below at -0.2');
+    expect(cut.note).toContain('so it stops at J = -0.2 to keep the estimate inside its range');
     // J inside the certain range: the cut is the plain one.
-    expect(cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], 3).range).toEqual([0, 14.1]);
+    expect(cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], 3, logged).range).toEqual([0, 14.1]);
     // A reward ceiling of 0 and J = 0.2 above it: the range keeps J.
-    expect(cutToCertain(plan('reward', [-Infinity, 0]), [-30, 2.5], 0.2).range).toEqual([-30, 0.2]);
+    expect(cutToCertain(plan('reward', [-Infinity, 0]), [-30, 2.5], 0.2, logged).range).toEqual([-30, 0.2]);
+  });
+
+  it('cuts at the end where J lies past it by more than the slack, which certainFinding names, and does not say J was kept', () => {
+    const logged = { lower: -40, upper: -2 };
+    const cut = cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], -0.5, logged);
+    expect(cut.range).toEqual([0, 14.1]);
+    expect(cut.note).not.toContain('stops at J');
+    expect(impossibleValue(plan('cost', [-Infinity, 0]), logged, { fit: { policyValue: 0.5 } } as unknown as CandidateModel, { percentile: [-3.1, 2.0], standardError: null } as unknown as IntervalEstimate)[0].message).toContain('do not use this value');
   });
 });
 
