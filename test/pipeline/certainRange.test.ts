@@ -85,6 +85,24 @@ describe('a cut never leaves J outside its own range to report', () => {
     expect(cutToCertain(plan('reward', [-Infinity, 0]), [-30, 2.5], 0.2, logged).range).toEqual([-30, 0.2]);
   });
 
+  it('keeps J inside the range to report whenever the uncut range held it and no finding names J (random ranges, both senses)', () => {
+    // The property asked of the cut (ours): it never hides the estimate a reader sees beside it.
+    const logged = { lower: -40, upper: -2 };
+    let seed = 7;
+    const next = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    for (let k = 0; k < 2000; k++) {
+      const sense = k % 2 ? 'cost' : 'reward', p = plan(sense, k % 4 < 2 ? [-Infinity, 0] : [0, Infinity]);
+      const j = (next() - 0.5) * 4, lo = j - next() * 20, hi = j + next() * 20;
+      const flagged = impossibleValue(p, logged, { fit: { policyValue: (sense === 'cost' ? -1 : 1) * j } } as unknown as CandidateModel, { percentile: [lo, hi], standardError: null } as unknown as IntervalEstimate)
+        .some((w) => w.message.includes('any policy can have'));
+      const cut = cutToCertain(p, [lo, hi], j, logged).range!;
+      if (!flagged) {
+        expect(cut[0]).toBeLessThanOrEqual(j);
+        expect(cut[1]).toBeGreaterThanOrEqual(j);
+      }
+    }
+  });
+
   it('cuts at the end where J lies past it by more than the slack, which certainFinding names, and does not say J was kept', () => {
     const logged = { lower: -40, upper: -2 };
     const cut = cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], -0.5, logged);
