@@ -240,7 +240,7 @@ export function sampleAction(p: GaussianPolicy, state: ArrayLike<number>, rng: R
   // Limit buffers only when there are limits: unlimited sampling stays allocation-free for simulators.
   const lo = hasActionLimits(p) ? new Float64Array(m) : NO_LIMITS, hi = lo === NO_LIMITS ? NO_LIMITS : new Float64Array(m);
   const mode = lo === NO_LIMITS ? null : actionLimitsAt(p, state, 0, lo, hi);
-  for (let attempt = 0; attempt < 10_000; attempt++) {
+  for (let attempt = 0; attempt < SAMPLING_TRIES; attempt++) {
     // a = μ(s) + L z with z ~ N(0, I); m ≤ 3, so z lives in three locals.
     const z0 = rng.normal(), z1 = m > 1 ? rng.normal() : 0, z2 = m > 2 ? rng.normal() : 0;
     policyMean(p, state, out);
@@ -256,14 +256,28 @@ export function sampleAction(p: GaussianPolicy, state: ArrayLike<number>, rng: R
     for (let i = 0; i < m; i++) if (out[i] < lo[i] || out[i] > hi[i]) inside = false;
     if (inside) return;
   }
+  const mean = new Float64Array(m);
+  policyMean(p, state, mean);
   throw new PolicyError(`sampling: at the state (${Array.from(state, (v) => Number(v.toPrecision(4))).join(', ')}) the truncated action distribution has almost no mass inside its limits: ` +
-    `the mean (${meanText(p, state)}) lies many dithers outside ${limitsText(lo, hi)}, so no action within them could be drawn`);
+    `${whereMeanLies(p, mean, lo, hi)}, so no action within ${limitsText(lo, hi)} could be drawn in ${SAMPLING_TRIES.toLocaleString('en-GB')} tries`);
 }
 
-function meanText(p: GaussianPolicy, state: ArrayLike<number>): string {
-  const mean = new Float64Array(p.actionDim);
-  policyMean(p, state, mean);
-  return Array.from(mean, (v) => Number(v.toPrecision(4))).join(', ');
+/** Draws from the untruncated normal before a truncated policy's action is called undrawable (mass inside below about 1e−4; ours). */
+const SAMPLING_TRIES = 10_000;
+
+/**
+ * How far the mean lies past the limits in dithers (limits need independent noise, so the factor's
+ * diagonal is each action's dither), measured, not assumed: the draws can also fail where the limits
+ * are narrow beside the dither with the mean between them.
+ */
+function whereMeanLies(p: GaussianPolicy, mean: Float64Array, lo: ArrayLike<number>, hi: ArrayLike<number>): string {
+  const m = p.actionDim, l = p.covarianceFactor;
+  let past = 0;
+  for (let i = 0; i < m; i++) past = Math.max(past, Math.max(lo[i] - mean[i], mean[i] - hi[i], 0) / l[i * m + i]);
+  const meanText = Array.from(mean, (v) => Number(v.toPrecision(4))).join(', ');
+  if (past >= 1) return `the mean (${meanText}) lies ${Number(past.toPrecision(2))} dithers outside them`;
+  const dither = Array.from({ length: m }, (_, i) => Number(l[i * m + i].toPrecision(4))).join(', ');
+  return `the mean (${meanText}) lies within a dither of them, but they are narrow beside the dither (${dither})`;
 }
 
 function limitsText(lo: ArrayLike<number>, hi: ArrayLike<number>): string {

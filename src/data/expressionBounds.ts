@@ -74,8 +74,18 @@ function product(a: Bounds, b: Bounds): Bounds {
   return [Math.min(...p), Math.max(...p)];
 }
 
+/**
+ * The ends divided as each row divides (not times a reciprocal: 3·fl(1/17) lies one unit in the last
+ * place below fl(3/17), and a cancellation after it can make that any size); correctly rounded
+ * division is monotone, so the ends enclose every row's quotient. ±∞/±∞ is taken as 0: the other
+ * ends give the infinite side, and a row's value is finite.
+ */
 function quotient(a: Bounds, b: Bounds): Bounds {
-  if (b[0] > 0 || b[1] < 0) return product(a, [1 / b[1], 1 / b[0]]);
+  if (b[0] > 0 || b[1] < 0) {
+    const over = (x: number, y: number): number => (!Number.isFinite(x) && !Number.isFinite(y) ? 0 : x / y);
+    const q = [over(a[0], b[0]), over(a[0], b[1]), over(a[1], b[0]), over(a[1], b[1])];
+    return [Math.min(...q), Math.max(...q)];
+  }
   // A divisor that can be 0 (a row where it is 0 is a bad row): only a sign survives.
   if (b[0] === 0 && b[1] > 0) return a[0] >= 0 ? [0, Infinity] : a[1] <= 0 ? [-Infinity, 0] : ALL;
   if (b[1] === 0 && b[0] < 0) return a[0] >= 0 ? [-Infinity, 0] : a[1] <= 0 ? [0, Infinity] : ALL;
@@ -88,7 +98,7 @@ function power(base: Bounds, exponent: Bounds): Bounds {
     if (Number.isInteger(p) && p > 0) return p % 2 === 0 ? evenPower(base, p) : [base[0] ** p, base[1] ** p];
     if (p === 0) return [1, 1];
     // A negative or fractional power: a negative base gives NaN (a bad row) unless p is an integer.
-    if (Number.isInteger(p)) return quotient([1, 1], power(base, [-p, -p]));
+    if (Number.isInteger(p)) return negativeIntegerPower(base, p);
     const lo = Math.max(base[0], 0), hi = base[1];
     if (hi < 0) return ALL; // every row would be bad; nothing to bound
     return p > 0 ? [lo ** p, hi ** p] : [hi ** p, lo ** p];
@@ -99,6 +109,21 @@ function power(base: Bounds, exponent: Bounds): Bounds {
   }
   // A real power of a base that is never negative on a kept row is never negative.
   return base[0] >= 0 ? [0, Infinity] : ALL;
+}
+
+/**
+ * x^p for a negative integer p, from the ends' own powers as each row takes them (not 1 over the
+ * positive power: 1/9³ lies an ulp below 9^−3). On one side of 0 x^p is monotone; an end at 0 is
+ * taken from its own side (−0 for an interval of negatives, so (−0)^−1 = −∞), and a row at 0 is a
+ * bad row. Across 0: an odd power takes every value, an even one every value from its smaller end's up.
+ */
+function negativeIntegerPower(base: Bounds, p: number): Bounds {
+  const [lo, hi] = base;
+  if (lo >= 0 || hi <= 0) {
+    const a = (lo === 0 && hi > 0 ? 0 : lo) ** p, b = (hi === 0 && lo < 0 ? -0 : hi) ** p;
+    return [Math.min(a, b), Math.max(a, b)];
+  }
+  return p % 2 === 0 ? [Math.min(lo ** p, hi ** p), Infinity] : ALL;
 }
 
 function evenPower(base: Bounds, p: number): Bounds {

@@ -67,7 +67,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
     const policyValue = withNetworkInterval(intervalEstimate(work.model.fit.policyValue, r.fqe, settings.level, sign), work, sign);
     const fitted = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
     // A range past what any policy can have, whatever it does (the reward formula's bounds), is cut there and says so.
-    const cut = cutToCertain(context.plan, fitted?.range ?? policyValue.percentile);
+    const cut = cutToCertain(context.plan, fitted?.range ?? policyValue.percentile, policyValue.value, possible);
     const classes = fitted && cut.range ? { ...fitted, range: cut.range } : fitted;
     const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights, classes ? classes.settled : null);
     const warnings = [
@@ -191,10 +191,13 @@ function networkDisagreement(work: CandidateWork): AssessmentWarning[] {
  * A model without resamples of its own (a network) is not in the class verdict, which needs paired
  * replicates; its value and its own interval (networkInterval.ts) must still lie in the range
  * reported, which spans every class's interval, so the range is widened to them, and the verdict is
- * "not settled" when its value lies outside the classes' range or it disagrees with the linear
- * estimate (approximatorAgreement.ts).
+ * "not settled" when its value lies outside the classes' range, or when the linear estimate does not
+ * check it: it disagrees, or the two cannot be told apart (approximatorAgreement.ts, "inconclusive").
+ * The linear classes are then compared among themselves for disagreement only, so the network's
+ * own value is settled only by the agreement rule's "agree" — as a linear project's own class is
+ * only by a class that could have seen a gap of 10 % (functionClassRange.ts). Exported for its test.
  */
-function withUnresampledOwn(classes: FunctionClassAssessment | null, work: CandidateWork, sign: number): FunctionClassAssessment | null {
+export function withUnresampledOwn(classes: FunctionClassAssessment | null, work: CandidateWork, sign: number): FunctionClassAssessment | null {
   if (!classes || work.replicate) return classes;
   const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range, interval = networkInterval(work, sign);
   const entry = { label: work.classes[0].label, value: own, interval, standardError: work.model.fit.interval?.standardError ?? null };
@@ -202,11 +205,14 @@ function withUnresampledOwn(classes: FunctionClassAssessment | null, work: Candi
   const widened = { ...classes, classes: [entry, ...classes.classes], range: [Math.min(lo, ownLo, own), Math.max(hi, ownHi, own)] as [number, number] };
   const agreement = work.model.fit.linearComparison?.agreement;
   if (agreement?.verdict === 'disagree') return { ...widened, settled: false, reason: `Not settled: ${agreement.message}` };
-  if (own >= lo && own <= hi) return widened;
-  return {
-    ...widened, settled: false,
-    reason: `Not settled: the ${work.classes[0].label} value ${valueAtPrecision(own, [lo, hi], ASCII_MINUS)} lies outside the range of the linear classes, ${rangeText([lo, hi])}.`,
-  };
+  if (own < lo || own > hi) {
+    return {
+      ...widened, settled: false,
+      reason: `Not settled: the ${work.classes[0].label} value ${valueAtPrecision(own, [lo, hi], ASCII_MINUS)} lies outside the range of the linear classes, ${rangeText([lo, hi])}.`,
+    };
+  }
+  if (agreement?.verdict === 'inconclusive') return { ...widened, settled: false, reason: `Not settled: ${agreement.message}` };
+  return widened;
 }
 
 /** The range at its own precision, as the tables beside the warning print it ("[5.62, 9.55]", not "[5.624, 9.549]"); ASCII minus, as the command line keeps. */

@@ -15,13 +15,14 @@ import type { AssessmentWarning, IntervalEstimate } from './assessment';
 import type { CandidateModel } from './model/candidateModel';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 import { ASCII_MINUS, intervalAtPrecision, plainNumber, valueAtPrecision } from '../figures/parts/uncertainNumber';
+import { boundText } from '../figures/parts/boundText';
 
 const TOPIC = 'impossibleValue';
 
 export function impossibleValue(plan: EvaluationPlan, range: PossibleValues, model: CandidateModel, estimate: IntervalEstimate): AssessmentWarning[] {
   const j = model.fit.policyValue, interval = estimate.percentile, inReward = interval && (plan.sign > 0 ? interval : [-interval[1], -interval[0]]);
-  const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0), slack = POSSIBLE_SLACK * (range.upper - range.lower);
-  if (certain && (j < certain.lower - slack || j > certain.upper + slack)) return [certainFinding(plan, certain, j, interval)];
+  const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
+  if (certain && beyondCertain(j, certain, range)) return [certainFinding(plan, certain, j, interval)];
   const wholly = inReward !== null && intervalOutsidePossible(inReward[0], inReward[1], range);
   if (outsidePossible(j, range) || wholly) {
     const jText = valueAtPrecision(plan.sign * j, interval, ASCII_MINUS); // at its interval’s precision (figures/parts/uncertainNumber.ts)
@@ -33,6 +34,12 @@ export function impossibleValue(plan: EvaluationPlan, range: PossibleValues, mod
   }
   const outside = estimate.standardError === null ? null : stateCheck(plan, range, model, estimate.standardError);
   return outside ? [stateFinding(plan, range, outside, estimate.standardError!)] : [];
+}
+
+/** J (reward sense) past the values no policy can leave by more than the logged-range rule's slack (POSSIBLE_SLACK of the logged range's width): certainFinding names it. */
+function beyondCertain(j: number, certain: PossibleValues, logged: PossibleValues): boolean {
+  const slack = POSSIBLE_SLACK * (logged.upper - logged.lower);
+  return j < certain.lower - slack || j > certain.upper + slack;
 }
 
 function words(plan: EvaluationPlan): string {
@@ -79,30 +86,46 @@ export function certainFinding(plan: EvaluationPlan, certain: PossibleValues, j:
   const end = below ? bound[0] : bound[1], step = formulaBounds(plan)[below ? 0 : 1], side = below ? 'below' : 'above';
   return {
     severity: 'serious', topic: TOPIC,
-    message: `J = ${valueAtPrecision(value, interval, ASCII_MINUS)} lies ${side} ${plainNumber(end, 4, ASCII_MINUS)}, the ${below ? 'least' : 'most'} discounted ${plan.sense} any policy can have whatever it does (${definition(plan)} never ${side} ${plainNumber(step, 4, ASCII_MINUS)} on any row). The fit extrapolates far from the logs: do not use this value.`,
+    message: `J = ${valueAtPrecision(value, interval, ASCII_MINUS)} lies ${side} ${boundText(end, below ? 'lower' : 'upper', 4, ASCII_MINUS)}, the ${below ? 'least' : 'most'} discounted ${plan.sense} any policy can have whatever it does (${definition(plan)} never ${side} ${boundText(step, below ? 'lower' : 'upper', 4, ASCII_MINUS)} on any row). The fit extrapolates far from the logs: do not use this value.`,
   };
 }
 
 /**
  * A range to report cut to the values some policy can have, whatever it does (the reward formula's
  * own bounds, core/diagnostics/possibleValues.ts certainValues), in the project's sense, with a
- * sentence saying where and why; unchanged, with no sentence, when nothing is cut, when the reward
- * is a column, or when the range lies wholly outside (impossibleValue names that).
+ * sentence saying where and why; unchanged, with no sentence, when nothing is cut, when nothing
+ * bounds the reward, or when the range lies wholly outside (impossibleValue names that).
+ * j, the point estimate in the project's sense, with logged, the logged range's possible values
+ * (reward sense): J past a certain end by no more than the impossible-value slack is named by no
+ * finding, and a range cut at the end would sit beside it without holding it; the range stops at J
+ * instead, still holding the cut one (so its coverage), and the sentence says so. J past it by more
+ * is named by certainFinding ("do not use this value"), and the range is cut at the end.
  */
-export function cutToCertain(plan: EvaluationPlan, range: [number, number] | null): { range: [number, number] | null; note: string | null } {
+export function cutToCertain(
+  plan: EvaluationPlan, range: [number, number] | null, j: number | null = null, logged: PossibleValues | null = null,
+): { range: [number, number] | null; note: string | null } {
   const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
   if (!range || !certain) return { range, note: null };
-  const [lo, hi] = projectRange(plan, certain), cut: [number, number] = [Math.max(range[0], lo), Math.min(range[1], hi)];
-  if (cut[0] > cut[1] || (cut[0] === range[0] && cut[1] === range[1])) return { range, note: null };
+  const [lo, hi] = projectRange(plan, certain);
+  if (Math.max(range[0], lo) > Math.min(range[1], hi)) return { range, note: null };
+  const keep = j !== null && logged !== null && !beyondCertain(plan.sign * j, certain, logged) ? j : null;
+  const floor = keep === null ? lo : Math.min(lo, keep), ceiling = keep === null ? hi : Math.max(hi, keep);
+  const cut: [number, number] = [Math.max(range[0], floor), Math.min(range[1], ceiling)];
+  if (cut[0] === range[0] && cut[1] === range[1]) return { range, note: null };
   const steps = formulaBounds(plan), sides = [
     ...(cut[0] !== range[0] ? [{ side: 'below', end: cut[0], step: steps[0] }] : []),
     ...(cut[1] !== range[1] ? [{ side: 'above', end: cut[1], step: steps[1] }] : []),
   ];
-  const where = sides.map((x) => `${x.side} at ${plainNumber(x.end, 4, ASCII_MINUS)}`).join(' and ');
-  const why = sides.map((x) => `never ${x.side} ${plainNumber(x.step, 4, ASCII_MINUS)}`).join(' and ');
+  // The ends said outward (boundText.ts): "never below −0.005264" of a floor at −0.00526316 stays true of every row.
+  // An end stopped at J is J itself, said as J is.
+  const end = (x: { side: string; end: number }) => (x.end === keep ? plainNumber(x.end, 4, ASCII_MINUS) : boundText(x.end, x.side === 'below' ? 'lower' : 'upper', 4, ASCII_MINUS));
+  const where = sides.map((x) => `${x.side} at ${end(x)}`).join(' and ');
+  const why = sides.map((x) => `never ${x.side} ${boundText(x.step, x.side === 'below' ? 'lower' : 'upper', 4, ASCII_MINUS)}`).join(' and ');
+  const atJ = keep !== null && (cut[0] === keep || cut[1] === keep) && (keep < lo || keep > hi)
+    ? ` J itself lies past that end by less than the impossible-value rule’s slack, so it stops at J = ${plainNumber(keep, 4, ASCII_MINUS)} to keep the estimate inside its range.` : '';
   return {
     range: cut,
-    note: `The range to report is cut ${where} (it was ${intervalAtPrecision(range, ASCII_MINUS)}): ${definition(plan)} ${why} on any row, whatever the plant does, so no policy’s discounted ${plan.sense} lies beyond. The cut keeps the range’s coverage, since the true value lies inside it for sure.`,
+    note: `The range to report is cut ${where} (it was ${intervalAtPrecision(range, ASCII_MINUS)}): ${definition(plan)} ${why} on any row, whatever the plant does, so no policy’s discounted ${plan.sense} lies beyond. The cut keeps the range’s coverage, since the true value lies inside it for sure.${atJ}`,
   };
 }
 
@@ -111,7 +134,7 @@ export function certainEnds(plan: EvaluationPlan): string {
   const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
   if (!certain) return '';
   const [lo, hi] = projectRange(plan, certain);
-  const sides = [...(lo > -Infinity ? [`below ${plainNumber(lo, 4, ASCII_MINUS)}`] : []), ...(hi < Infinity ? [`above ${plainNumber(hi, 4, ASCII_MINUS)}`] : [])];
+  const sides = [...(lo > -Infinity ? [`below ${boundText(lo, 'lower', 4, ASCII_MINUS)}`] : []), ...(hi < Infinity ? [`above ${boundText(hi, 'upper', 4, ASCII_MINUS)}`] : [])];
   return sides.length ? `none ${sides.join(' or ')}` : '';
 }
 

@@ -140,7 +140,7 @@ function runRetuneMap(
           for (const r of linearFqeReplicateBlock(setup, resamples.slice(first, first + RESAMPLE_BLOCK), scratch)) values.push(r.policyValue);
         }
         // Cut where the reward's definition puts values out of reach of every policy, as a candidate's range to report is.
-        const cut = cutToCertain(plan, intervalEstimate(m.policyValue, values, level, sign).percentile);
+        const cut = cutToCertain(plan, intervalEstimate(m.policyValue, values, level, sign).percentile, sign * m.policyValue, possible);
         interval = cut.range;
         if (cut.note) cutPoints++;
       }

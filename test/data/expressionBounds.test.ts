@@ -84,4 +84,35 @@ describe('bounds a formula keeps whatever its columns hold', () => {
     }
     expect(CERTAIN_BOUND_SLACK).toBeLessThan(1e-9);
   });
+
+  it('bounds a quotient by dividing the ends, as each row divides, so a cancellation after it cannot step outside', () => {
+    // 3·fl(1/17) = 0.1764705882352941 < fl(3/17) = 0.17647058823529413 (IEEE 754 round-to-nearest,
+    // checked in node): a bound taken through the reciprocal sat one unit in the last place below the
+    // row at c = 3, and subtracting fl(3/17) and scaling by 1e17 turned that into an upper bound of
+    // −2.8 where the row gives exactly 0.
+    const f = '1e17 * (clamp(c, 0, 3) / 17 - 0.17647058823529413)';
+    const tree = parseExpression(f), [, hi] = expressionBounds(tree);
+    const row = evaluateExpression(tree, () => Float64Array.of(3), 1)[0];
+    expect(row).toBe(0);
+    expect(hi).toBeGreaterThanOrEqual(row);
+    expect(b('clamp(c, 1, 2) / clamp(d, 4, 8)')).toEqual([near(0.125), near(0.5)]);
+    expect(b('clamp(c, 1, 2) / (-1 - x^2)')).toEqual([near(-2), near(0)]);
+    expect(b('(1 + x^2) / (1 + y^2)')).toEqual([near(0), Infinity]);
+  });
+
+  it('bounds a negative integer power by the power of the ends, as each row takes it, not 1 over the positive power', () => {
+    // 9^−3 = 0.0013717421124828533 but 1/9^3 = 0.0013717421124828531 (checked in node): through the
+    // reciprocal the upper end sat an ulp below the row at c = 9, and 1e19·(… − 9^−3) made it −2.2.
+    const f = '1e19 * (clamp(c, 9, 10)^-3 - 0.0013717421124828533)';
+    const tree = parseExpression(f), [, hi] = expressionBounds(tree);
+    const row = evaluateExpression(tree, () => Float64Array.of(9), 1)[0];
+    expect(row).toBe(0);
+    expect(hi).toBeGreaterThanOrEqual(row);
+    // Closed forms: x^−1 on [−4, 0] is (−∞, −1/4]; x^−2 on [−2, 3] is [1/9, ∞); x^−1 across 0 is anything.
+    expect(b('clamp(x, -4, 0)^-1')).toEqual([-Infinity, near(-0.25)]);
+    expect(b('clamp(x, 0, 4)^-1')).toEqual([near(0.25), Infinity]);
+    expect(b('clamp(x, -2, 3)^-2')).toEqual([near(1 / 9), Infinity]);
+    expect(b('clamp(x, -2, 3)^-1')).toEqual([-Infinity, Infinity]);
+    expect(b('clamp(x, -3, -2)^-3')).toEqual([near(-1 / 8), near(-1 / 27)]);
+  });
 });

@@ -4,7 +4,7 @@
  * plus a share of delivered heat, 0 … 1: sample-projects/heating-loop/README.md); the field shows it,
  * and raising the floor to 1 makes the rows that cost less than 1 rows that cannot be used, named by
  * line and column. The historian sample's cost is a formula, (T − 21)² + 0.1·(20^(u/100) − 1)/19,
- * whose floor −0.1/19 ≈ −0.005263 is shown beside it (20^x > 0: elementary algebra). On the invented
+ * whose floor −0.1/19 = −0.0052631… is shown beside it, rounded outward to −0.005264 (20^x > 0: elementary algebra). On the invented
  * two-valve log (test/fixtures/screens/twoValveBlend.ts, its cost declared never below 0) the findings
  * carry the range to report, cut at 0 with its sentence, into the answer table where a candidate is not
  * settled. Screenshots in both themes at 1280×800 and 1920×1080 go to test-artifacts/screens/.
@@ -56,7 +56,7 @@ describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
     app = await launchApp({ viewport: { width: 1280, height: 800 }, colorScheme: 'dark' });
     const { page } = app;
     await openSample(app, 'heating-historian');
-    await expect.poll(() => page.getByTestId('formula-bounds').innerText(), POLL).toContain('This cost is never below −0.005263 on any row');
+    await expect.poll(() => page.getByTestId('formula-bounds').innerText(), POLL).toContain('This cost is never below −0.005264 on any row');
     await page.getByTestId('formula-bounds').scrollIntoViewIfNeeded();
     await app.screenshot('reward-bounds-formula-1280-dark');
   });

@@ -51,7 +51,7 @@ describe('a range to report cut to what any policy can have', () => {
     const cut = cutToCertain(plan('cost', [-Infinity, 0.1 / 19]), [-8.04, 14.1]);
     expect(cut.range![0]).toBeCloseTo(-0.1 / 19 / 0.05, 12);
     expect(cut.note).toContain('cut below at -0.1053');
-    expect(cut.note).toContain('never below -0.005263');
+    expect(cut.note).toContain('never below -0.005264'); // −0.0052631… rounded outward, so the sentence holds on every row
   });
 
   it('names a declared bound of a cost column as the project\'s declaration', () => {
@@ -66,6 +66,49 @@ describe('a range to report cut to what any policy can have', () => {
     expect(cutToCertain(reward, [1, 2])).toEqual({ range: [1, 2], note: null }); // impossibleValue names it
     expect(cutToCertain(plan('reward', undefined), [-30, 2.5])).toEqual({ range: [-30, 2.5], note: null });
     expect(cutToCertain(reward, null)).toEqual({ range: null, note: null });
+  });
+});
+
+describe('a cut never leaves J outside its own range to report', () => {
+  it('stops at J where J lies past the certain end by less than the impossible-value slack, and says so', () => {
+    // A cost formula never below 0; J = −0.5 is within the logged-range rule's slack, so no finding
+    // names it, and a cut at 0 would print J = −0.5 beside a range [0, 14.1] that excludes it.
+    // Logged costs 0.1 to 2 per step at γ 0.95: reward-sense range [−40, −2], slack 1 % of 38 = 0.38.
+    const logged = { lower: -40, upper: -2 };
+    const cut = cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], -0.2, logged);
+    expect(cut.range).toEqual([-0.2, 14.1]);
+    expect(cut.note).toContain('cut below at -0.2');
+    expect(cut.note).toContain('so it stops at J = -0.2 to keep the estimate inside its range');
+    // J inside the certain range: the cut is the plain one.
+    expect(cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], 3, logged).range).toEqual([0, 14.1]);
+    // A reward ceiling of 0 and J = 0.2 above it: the range keeps J.
+    expect(cutToCertain(plan('reward', [-Infinity, 0]), [-30, 2.5], 0.2, logged).range).toEqual([-30, 0.2]);
+  });
+
+  it('keeps J inside the range to report whenever the uncut range held it and no finding names J (random ranges, both senses)', () => {
+    // The property asked of the cut (ours): it never hides the estimate a reader sees beside it.
+    const logged = { lower: -40, upper: -2 };
+    let seed = 7;
+    const next = () => ((seed = (seed * 1103515245 + 12345) % 2147483648) / 2147483648);
+    for (let k = 0; k < 2000; k++) {
+      const sense = k % 2 ? 'cost' : 'reward', p = plan(sense, k % 4 < 2 ? [-Infinity, 0] : [0, Infinity]);
+      const j = (next() - 0.5) * 4, lo = j - next() * 20, hi = j + next() * 20;
+      const flagged = impossibleValue(p, logged, { fit: { policyValue: (sense === 'cost' ? -1 : 1) * j } } as unknown as CandidateModel, { percentile: [lo, hi], standardError: null } as unknown as IntervalEstimate)
+        .some((w) => w.message.includes('any policy can have'));
+      const cut = cutToCertain(p, [lo, hi], j, logged).range!;
+      if (!flagged) {
+        expect(cut[0]).toBeLessThanOrEqual(j);
+        expect(cut[1]).toBeGreaterThanOrEqual(j);
+      }
+    }
+  });
+
+  it('cuts at the end where J lies past it by more than the slack, which certainFinding names, and does not say J was kept', () => {
+    const logged = { lower: -40, upper: -2 };
+    const cut = cutToCertain(plan('cost', [-Infinity, 0]), [-8.04, 14.1], -0.5, logged);
+    expect(cut.range).toEqual([0, 14.1]);
+    expect(cut.note).not.toContain('stops at J');
+    expect(impossibleValue(plan('cost', [-Infinity, 0]), logged, { fit: { policyValue: 0.5 } } as unknown as CandidateModel, { percentile: [-3.1, 2.0], standardError: null } as unknown as IntervalEstimate)[0].message).toContain('do not use this value');
   });
 });
 

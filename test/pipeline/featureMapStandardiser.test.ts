@@ -1,7 +1,13 @@
-import { describe, expect, it } from 'vitest';
+import { describe, expect, it, vi } from 'vitest';
 import { fitStateActionStandardiser } from '../../src/core/features/standardiser';
 import type { TransitionSet } from '../../src/core/transitions';
 import { featureMapFor } from '../../src/pipeline/plan/featureMapFor';
+
+// Counted, so the test sees the fit made once per log (the cache), not only that its numbers are right.
+vi.mock('../../src/core/features/standardiser', async (original) => {
+  const actual = await original<typeof import('../../src/core/features/standardiser')>();
+  return { ...actual, fitStateActionStandardiser: vi.fn(actual.fitStateActionStandardiser) };
+});
 
 /** Invented log: two states and one action of different scales, n rows. */
 function log(n: number, shift: number): TransitionSet {
@@ -24,7 +30,16 @@ describe('feature maps of several degrees on one log share its standardiser', ()
       expect(spec.mean).toEqual(fresh.mean);
       expect(spec.scale).toEqual(fresh.scale);
     }
+    // A set built from another (a spread with new states) is a new key, so never reads the old entry.
+    const moved = { ...a, states: a.states.map((v) => v + 10) };
+    expect(featureMapFor(polynomial(2), moved).polynomial!.standardiser).toEqual(fitStateActionStandardiser(moved).spec);
     expect(featureMapFor(polynomial(2), b).polynomial!.standardiser).toEqual(fitStateActionStandardiser(b).spec);
     expect(featureMapFor(polynomial(2), b).polynomial!.standardiser.mean).not.toEqual(fresh.mean);
+  });
+
+  it('fits the standardiser once per log, however many degrees ask for it', () => {
+    const c = log(300, 1), fit = vi.mocked(fitStateActionStandardiser), before = fit.mock.calls.length;
+    for (const degree of [1, 2, 3, 4, 2]) featureMapFor(polynomial(degree), c);
+    expect(fit.mock.calls.length - before).toBe(1);
   });
 });

@@ -19,7 +19,15 @@ describe('actions that cannot be drawn', () => {
   it('are named with the state, the mean and the limits', () => {
     const out = new Float64Array(1);
     expect(() => sampleAction(farOutside(), [1.2, 0.8], createRandom(1), out)).toThrow(PolicyError);
-    expect(() => sampleAction(farOutside(), [1.2, 0.8], createRandom(1), out)).toThrow('at the state (1.2, 0.8) the truncated action distribution has almost no mass inside its limits: the mean (500) lies many dithers outside 0 … 100');
+    // (500 − 100)/0.01 = 40,000 dithers past the upper limit (worked by hand).
+    expect(() => sampleAction(farOutside(), [1.2, 0.8], createRandom(1), out)).toThrow('at the state (1.2, 0.8) the truncated action distribution has almost no mass inside its limits: the mean (500) lies 40000 dithers outside them, so no action within 0 … 100 could be drawn in 10,000 tries');
+  });
+
+  it('say where the mean lies as measured: inside limits far narrower than the dither, not \'many dithers outside\'', () => {
+    // Limits 0 … 1e−6 around a mean of 5e−7 with a dither of 1: Φ(5e−7) − Φ(−5e−7) ≈ 4e−7 of the mass inside.
+    const narrow = createGaussianPolicy({ offset: [5e-7], gain: [[0, 0]], std: [1], bounds: { lo: [0], hi: [1e-6], mode: 'truncate' } }, 2);
+    const out = new Float64Array(1);
+    expect(() => sampleAction(narrow, [0, 0], createRandom(1), out)).toThrow('the mean (5e-7) lies within a dither of them, but they are narrow beside the dither (1), so no action within 0 … 0.000001 could be drawn in 10,000 tries');
   });
 
   it('leave the rollout check of that policy with a reason, and the other policies\' checks as they were', async () => {

@@ -130,11 +130,11 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
       return {
         settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: closest,
         reason: `Not settled: no other function class checks ${own} closely enough: the closest, ${closest.second}, differs from it by ${percentText(closest.relative)} of J, ` +
-          `but could not have seen a gap of ${100 * CROSS_CHECK_RULE.detectableGap} % of J (it would need ${percentText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
+          `but could not have seen a gap of ${100 * CROSS_CHECK_RULE.detectableGap} % of J (it would need ${detectableText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
       };
     }
     const g = widest(gaps), loose = ownFirst ? checks.filter((x) => !checking.includes(x)) : [];
-    const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (it could see a gap of ${percentText(detectable(x))} of J, not ${100 * CROSS_CHECK_RULE.detectableGap} %)`).join('; ')}.`;
+    const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (it could see a gap of ${detectableText(detectable(x))} of J, not ${100 * CROSS_CHECK_RULE.detectableGap} %)`).join('; ')}.`;
     return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).${tooLoose}${notCompared}` };
   }
   const g = widest(disagreeing);
@@ -174,6 +174,16 @@ function detectable(g: ClassGap): number {
 
 function percentText(share: number): string {
   return Number.isFinite(share) ? `${(100 * share).toFixed(share < 0.1 ? 1 : 0)} %` : 'an unbounded gap';
+}
+
+/**
+ * The smallest gap a pair that is no check could have seen: past the limit, so never printed at or
+ * below it (10.04 % would round to "10 %" beside "could not have seen a gap of 10 %"); rounded up at
+ * one decimal there.
+ */
+function detectableText(share: number): string {
+  const text = percentText(share), limit = 100 * CROSS_CHECK_RULE.detectableGap;
+  return share > CROSS_CHECK_RULE.detectableGap && Number.parseFloat(text) <= limit ? `${(Math.ceil(1000 * share) / 10).toFixed(1)} %` : text;
 }
 
 /** Robust spread (IQR/1.349) of the paired differences a_b − b_b. */

@@ -107,6 +107,13 @@ describe('function-class rule: mechanics', () => {
     expect(named.settled).toBe(true);
     expect(named.reason).toContain('Too uncertain to check degree 2: degree 4 (it could see a gap of 100 % of J, not 10 %).');
     expect(named.range).toEqual([-9 - 1.645 * 5, -9 + 1.645 * 5]); // the range still spans every class
+    // At the limit the words never contradict the rule: a pair that could see 10.04 % is not a check,
+    // and its 'would need' is rounded up, not to the 10 % it failed. √2 · 0.355 · 2 / 10 = 10.04 %.
+    const edge = functionClassVerdict([at('degree 2', 10, 0.355), at('degree 3', 10, 0.355)]);
+    expect(edge.settled).toBe(false);
+    expect(edge.reason).toContain('could not have seen a gap of 10 % of J (it would need 10.1 %)');
+    const edgeNamed = functionClassVerdict([at('degree 2', 10, 0.01), at('degree 3', 10, 0.01), at('degree 4', 10, 0.355 * Math.SQRT2)]);
+    expect(edgeNamed.reason).toContain('degree 4 (it could see a gap of 10.1 % of J, not 10 %)');
     // Where the project's own value is not in the list (a network, checked by its own agreement rule), the rule reads disagreement only.
     const withoutOwn = functionClassVerdict([at('degree 2', 30.2, 6.6), at('degree 3', 19, 42)], [], false);
     expect(withoutOwn.settled).toBe(true);

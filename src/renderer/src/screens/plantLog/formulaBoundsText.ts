@@ -3,7 +3,7 @@
  */
 import { expressionBounds } from '../../../../data/expressionBounds';
 import { parseExpression, type ExpressionNode } from '../../../../data/expressionSyntax';
-import { plainNumber } from '../../../../figures/parts/uncertainNumber';
+import { boundText } from '../../../../figures/parts/boundText';
 
 /**
  * The formula's bounds in a sentence for the editor ("This cost is never below 0 on any row, whatever
@@ -17,7 +17,8 @@ export function formulaBoundsText(source: string, sense: 'reward' | 'cost', deci
     return null;
   }
   const [lo, hi] = expressionBounds(tree);
-  const sides = [...(lo > -Infinity ? [`below ${plainNumber(lo, 4)}`] : []), ...(hi < Infinity ? [`above ${plainNumber(hi, 4)}`] : [])];
+  // Rounded outward (boundText.ts), so the sentence stays true of every row.
+  const sides = [...(lo > -Infinity ? [`below ${boundText(lo, 'lower')}`] : []), ...(hi < Infinity ? [`above ${boundText(hi, 'upper')}`] : [])];
   if (sides.length === 0) return null;
   return `This ${sense} is never ${sides.join(' nor ')} on any row, whatever the plant does (read from the formula): a range to report is cut where that puts it out of reach of every policy.`;
 }

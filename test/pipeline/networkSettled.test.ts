@@ -1,0 +1,53 @@
+/**
+ * A network project's verdict across function classes (src/pipeline/assessAssembly.ts
+ * withUnresampledOwn). The network has no resamples of its own, so the linear classes are compared
+ * among themselves for disagreement only, and the network's own value is checked by the agreement
+ * rule (src/core/fqe/approximatorAgreement.ts). The rule's own statements (ours): "settled" needs
+ * the network checked, so an agreement that cannot tell ("inconclusive", the difference's interval
+ * wider than 5 % of J) is not settled, as a linear project's own class is not settled where no class
+ * could have seen a gap of 10 % of J. Invented numbers.
+ */
+import { describe, expect, it } from 'vitest';
+import { approximatorAgreement } from '../../src/core/fqe/approximatorAgreement';
+import { withUnresampledOwn } from '../../src/pipeline/assessAssembly';
+import type { CandidateWork } from '../../src/pipeline/assessCandidate';
+import type { FunctionClassAssessment } from '../../src/pipeline/assessment';
+
+const linearClasses = (): FunctionClassAssessment => ({
+  classes: [
+    { label: 'polynomial, degree 2', value: 30.2, interval: [19.3, 41.1], standardError: 6.6 },
+    { label: 'polynomial, degree 3', value: 19, interval: [-50, 88], standardError: 42 },
+  ],
+  settled: true, range: [-50, 88], coverage: '', reason: 'Settled: the function classes agree (widest gap …).',
+});
+
+const network = (value: number, difference: [number, number]) => {
+  const iv = { lower: value - 2, upper: value + 2, level: 0.9 };
+  const estimate = { value, interval: iv }, linear = { value: 30, interval: { lower: 19.3, upper: 41.1, level: 0.9 } };
+  const d = { value: value - 30, interval: { lower: difference[0], upper: difference[1], level: 0.9 } };
+  return {
+    replicate: null, classes: [{ label: 'network 16×16 (tanh)' }],
+    model: { fit: { policyValue: value, interval: { ...iv, standardError: 1.2 }, linearComparison: { agreement: approximatorAgreement({ network: estimate, linear, difference: d }) } } },
+  } as unknown as CandidateWork;
+};
+
+describe('a network project is settled only where the linear estimate checks the network', () => {
+  it('is not settled where the network and the linear estimate cannot be told apart', () => {
+    // Difference 1 with a paired interval [−9, 11]: reaches 11/31 = 35 % of J, beyond 5 %: "inconclusive".
+    const w = network(31, [-9, 11]);
+    expect(w.model.fit.linearComparison!.agreement.verdict).toBe('inconclusive');
+    const v = withUnresampledOwn(linearClasses(), w, 1)!;
+    expect(v.settled).toBe(false);
+    expect(v.reason).toContain('too little data to tell whether they agree');
+  });
+
+  it('stays settled where they agree closely, and the range spans the network too', () => {
+    // Difference 0.2 with a paired interval [−0.5, 0.9]: within 5 % of J: "agree".
+    const w = network(30.2, [-0.5, 0.9]);
+    expect(w.model.fit.linearComparison!.agreement.verdict).toBe('agree');
+    const v = withUnresampledOwn(linearClasses(), w, 1)!;
+    expect(v.settled).toBe(true);
+    expect(v.classes[0].label).toBe('network 16×16 (tanh)');
+    expect(v.range).toEqual([-50, 88]);
+  });
+});
