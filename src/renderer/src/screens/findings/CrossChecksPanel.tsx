@@ -24,7 +24,9 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
         {c.functionClasses && (
           <p className="small" data-testid={`classes-${c.name}`}>
             <strong>{c.settled ? 'Settled across function classes' : 'Not settled across function classes'}</strong>
-            {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label}: ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
+            {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label}: ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}.
+            {/* Why, from the verdict itself (which classes differ, or are too uncertain to check the project's own); its lead is the bold words above. */}
+            {' '}<span data-testid={`classes-reason-${c.name}`}>{classReason(c.functionClasses.reason)}</span> {c.functionClasses.coverage}
           </p>
         )}
         {c.rangeCut && <p className="small" data-testid={`range-cut-${c.name}`}>{c.rangeCut}</p>}
@@ -59,4 +61,10 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
       </details>
     </FoldPanel>
   );
+}
+
+/** The verdict's reason without its lead ("Not settled: ", "Settled: "), which the bold words beside it say, as a sentence. */
+function classReason(reason: string): string {
+  const rest = reason.replace(/^(Not settled|Settled): /, '');
+  return rest.charAt(0).toUpperCase() + rest.slice(1);
 }
