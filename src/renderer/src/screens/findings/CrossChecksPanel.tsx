@@ -8,7 +8,7 @@
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import type { Assessment } from '../../../../pipeline/assessment';
-import { intervalDetail, levelText, noteWithoutVerdict, VERDICT } from './assessmentWords';
+import { intervalDetail, levelText, noteWithoutVerdict, sentenceCase, typesetMinus, VERDICT } from './assessmentWords';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
@@ -29,7 +29,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
             {' '}<span data-testid={`classes-reason-${c.name}`}>{classReason(c.functionClasses.reason)}</span> {c.functionClasses.coverage}
           </p>
         )}
-        {c.rangeCut && <p className="small" data-testid={`range-cut-${c.name}`}>{c.rangeCut}</p>}
+        {c.rangeCut && <p className="small" data-testid={`range-cut-${c.name}`}>{typesetMinus(c.rangeCut)}</p>}
         <table data-testid={`cross-checks-${c.name}`}>
           <caption>{c.name}: fitted Q-evaluation J = {valueAtPrecision(c.policyValue.value, c.policyValue.percentile)} {intervalAtPrecision(c.policyValue.percentile)}</caption>
           <thead>
@@ -45,7 +45,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
                 {/* A check without an interval (the model rollouts) at the decimals of the column’s J, not four significant digits ("5.737" among "5.61"). */}
                 <td className="number">{x.estimate ? valueAtPrecision(x.estimate.value, x.estimate.percentile ?? c.policyValue.percentile) : '—'}</td>
                 <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalAtPrecision(x.estimate.percentile) : '—'}</td>
-                <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {noteWithoutVerdict(x.note)}</span> : null}</td>
+                <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {typesetMinus(noteWithoutVerdict(x.note))}</span> : null}</td>
               </tr>
             ))}
           </tbody>
@@ -65,6 +65,5 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
 
 /** The verdict's reason without its lead ("Not settled: ", "Settled: "), which the bold words beside it say, as a sentence. */
 function classReason(reason: string): string {
-  const rest = reason.replace(/^(Not settled|Settled): /, '');
-  return rest.charAt(0).toUpperCase() + rest.slice(1);
+  return typesetMinus(sentenceCase(reason.replace(/^(Not settled|Settled): /, '')));
 }
