@@ -135,7 +135,7 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
     }
     const g = widest(gaps), loose = ownFirst ? checks.filter((x) => !checking.includes(x)) : [];
     const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (the smallest gap it could see is ${percentText(detectable(x))} of J, not ${100 * CROSS_CHECK_RULE.detectableGap} %)`).join('; ')}.`;
-    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).${tooLoose}${notCompared}` };
+    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree; the widest gap: ${describe(g)}.${tooLoose}${notCompared}` };
   }
   const g = widest(disagreeing);
   return {

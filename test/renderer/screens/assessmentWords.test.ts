@@ -36,6 +36,7 @@ describe('assessment words', () => {
     expect(noteWithoutVerdict('the fitted dynamics do not fit')).toBe('The fitted dynamics do not fit');
     // The model check's words said 'Not applicable here. not applicable to this candidate: …' (screen review).
     expect(noteWithoutVerdict('not applicable to this candidate: it has actuator limits')).toBe('It has actuator limits');
+    expect(noteWithoutVerdict('Not applicable: not applicable to this candidate: it has actuator limits')).toBe('It has actuator limits');
   });
 
   it('says where the assessment is and how far', () => {

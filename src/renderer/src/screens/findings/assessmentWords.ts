@@ -28,7 +28,7 @@ export function intervalDetail(estimate: IntervalEstimate, level: number): strin
 /** A cross-check's note without its leading verdict word, which the verdict column already says. */
 export function noteWithoutVerdict(note: string): string {
   // The column's verdict ends in a full stop, so what follows opens a sentence ("Not applicable here. It has actuator limits").
-  return sentenceCase(note.replace(/^(agrees|disagrees|uninformative|not applicable)( to this candidate)?\s*[:.—-]\s*/i, ''));
+  return sentenceCase(note.replace(/^((agrees|disagrees|uninformative|not applicable)( to this candidate)?\s*[:.—-]\s*)+/i, ''));
 }
 
 /** The first letter in capitals: a phrase shown after a full stop. */
