@@ -28,6 +28,7 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
       ' These intervals cover the sampling of the runs only, with the function class held fixed.',
     `Function classes: each candidate is also fitted with polynomial features of degree ${COMPARED_DEGREES.join(', ')} (up to ${MAX_CLASS_FEATURES} features) on the same resamples. ` +
       `The classes agree unless a pair differs by more than ${c.standardErrors} paired standard errors (the spread of the paired resamples read from their quartiles, interquartile range / 1.349, so a few runaway fits cannot hide a gap) and ${pct(c.relative)} of J; ` +
+      `agreement counts only from a class that could have seen a gap of ${pct(CROSS_CHECK_RULE.detectableGap)} of J (${c.standardErrors} paired standard errors within it), and where no other class could check the project’s own the estimate is not settled; ` +
       'the reported range spans every class’s interval, so it covers sampling and the spread between the classes fitted — not a bias they all share.',
     `Baseline: the present controller is modelled from the log (linear-Gaussian in the state, clipped at ${LOGGED_LIMITS_NAMED} and fitted there by censored maximum likelihood) ` +
       'and evaluated by the same fitted Q-evaluation as the candidates, on the same resamples; every candidate is compared with it. The logged discounted return ' +

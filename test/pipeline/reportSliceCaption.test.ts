@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { ActionSlice } from '../../src/pipeline/assessment';
-import { sliceDitherText } from '../../src/pipeline/report/reportFigures';
+import { sliceDitherText, sliceStatesText } from '../../src/pipeline/report/reportFigures';
 
 const slice = (actionIndex: number, candidateStd: number): ActionSlice => ({
   label: 'T at its 50th percentile', state: [22, 1], actionIndex, actions: [0, 1], values: [0, 0], candidateMean: 0.5, candidateStd, loggedRange: [0, 1],
@@ -21,5 +21,13 @@ describe('slice caption dither', () => {
     const slices = [slice(0, 0.1), slice(1, 0.06), slice(0, 0.1), slice(1, 0.06)];
     expect(sliceDitherText(slices, [{ column: 'hot_valve', unit: 'fraction' }, { column: 'cold_valve', unit: '' }]))
       .toBe('dither 0.1 fraction on hot_valve, 0.06 on cold_valve');
+  });
+});
+
+describe('slice caption states', () => {
+  it('names each state once where two actions each have a slice there (the screen review read every state twice)', () => {
+    const at = (label: string, actionIndex: number): ActionSlice => ({ ...slice(actionIndex, 0.1), label });
+    const slices = [at('T at its 10th percentile', 0), at('T at its 10th percentile', 1), at('T at its 50th percentile', 0), at('T at its 50th percentile', 1)];
+    expect(sliceStatesText(slices)).toBe('T at its 10th percentile; T at its 50th percentile');
   });
 });

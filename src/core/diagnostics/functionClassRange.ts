@@ -129,13 +129,13 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
       const closest = checks.reduce((c, x) => (detectable(x) < detectable(c) ? x : c));
       return {
         settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: closest,
-        reason: `Not settled: no other function class checks ${own} closely enough: the closest, ${closest.second}, differs from it by ${percentText(closest.relative)} of J, ` +
-          `but could not have seen a gap of ${100 * CROSS_CHECK_RULE.detectableGap} % of J (it would need ${detectableText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
+        reason: `Not settled: no other function class checks ${own} closely enough. The closest, ${closest.second}, differs from it by ${percentText(closest.relative)} of J, ` +
+          `but could not have seen a gap of ${100 * CROSS_CHECK_RULE.detectableGap} % of J (it would need a gap of ${detectableText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
       };
     }
     const g = widest(gaps), loose = ownFirst ? checks.filter((x) => !checking.includes(x)) : [];
-    const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (it could see a gap of ${detectableText(detectable(x))} of J, not ${100 * CROSS_CHECK_RULE.detectableGap} %)`).join('; ')}.`;
-    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree (widest gap ${describe(g)}).${tooLoose}${notCompared}` };
+    const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (the smallest gap it could see is ${detectableText(detectable(x))} of J, not ${100 * CROSS_CHECK_RULE.detectableGap} %)`).join('; ')}.`;
+    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree; the widest gap: ${describe(g)}.${tooLoose}${notCompared}` };
   }
   const g = widest(disagreeing);
   return {

@@ -17,7 +17,7 @@ import { drawOutline, GREY_OUT, mapCellLayerPlugin, mix } from '../parts/mapCell
 import { PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import { plainText } from '../parts/richText';
-import { formatValue } from '../parts/tickFormat';
+import { formatValue, gridPointLabels } from '../parts/tickFormat';
 import { retuneMapLineChart } from './retuneMapLine';
 import { bestValueText, betterWords, mapSubtitle, pointReadout, presentValueText, type RetuneMapPlotProps } from './retuneMapText';
 
@@ -38,10 +38,10 @@ export function retuneMapHeatChart(props: RetuneMapPlotProps, look: PlotLook): C
   const shared = sharedOptions(look, props.title, mapSubtitle(props, 'Colour'));
   const present = map.presentController;
   const indexAxis = (values: readonly number[], position: 'bottom' | 'left') => {
-    const base = valueAxis(look, '', position, false);
+    const base = valueAxis(look, '', position, false), labels = gridPointLabels(values);
     return {
       ...base, type: 'linear' as const, min: -0.5, max: values.length - 0.5,
-      ticks: { ...base.ticks, callback: (v: number | string) => (Number.isInteger(Number(v)) && values[Number(v)] !== undefined ? formatValue(values[Number(v)]) : '') },
+      ticks: { ...base.ticks, callback: (v: number | string) => (Number.isInteger(Number(v)) && labels[Number(v)] !== undefined ? labels[Number(v)] : '') },
       // One tick at each cell centre (Chart.js would start its ticks at the axis minimum, a cell edge).
       afterBuildTicks: (axis: { ticks: { value: number }[] }) => { axis.ticks = values.map((_, i) => ({ value: i })); },
     };

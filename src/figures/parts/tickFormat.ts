@@ -63,6 +63,27 @@ export function decadeLabel(value: number): string {
   return `10${String(k).split('').map((c) => SUPERSCRIPT[c]).join('')}`;
 }
 
+/** A grid point's label may be off its value by at most this share of it (half a unit in the third significant digit). */
+export const GRID_LABEL_TOLERANCE = 0.005;
+
+/**
+ * Labels for the points of a grid (a retune map's gains and integral times, often spaced by ratio):
+ * one count of decimals for the whole axis, so "300, 584, 1,136" and never "583.8" beside "1,136";
+ * the fewest with which each label is within GRID_LABEL_TOLERANCE of its point and no two read
+ * alike. Exponent form (formatValue) where any point is past fixed notation's range.
+ */
+export function gridPointLabels(values: readonly number[]): string[] {
+  const finite = values.filter((v) => v !== 0 && Number.isFinite(v));
+  if (finite.some((v) => Math.abs(v) >= LARGEST_FIXED || Math.abs(v) < SMALLEST_FIXED)) return values.map(formatValue);
+  const distinct = new Set(values).size;
+  let decimals = 0;
+  for (; decimals < 12; decimals++) {
+    const close = finite.every((v) => Math.abs(Number(v.toFixed(decimals)) - v) <= GRID_LABEL_TOLERANCE * Math.abs(v));
+    if (close && new Set(values.map((v) => v.toFixed(decimals))).size === distinct) break;
+  }
+  return values.map((v) => toDecimals(v, decimals));
+}
+
 /**
  * A value with four significant digits, for tooltips and text summaries: fixed notation with
  * thousands separators up to LARGEST_FIXED ("1,235,000"), as the tables keep it; exponent form

@@ -43,9 +43,14 @@ export function slicesSection(input: ReportInput, figures: FigureCounter): Html 
         loggedRange: s.loggedRange, meanAction: s.candidateMean,
       }, look) as never, { ...SLICE_SIZE, id: `slice-${ci}-${si}`, label: `${c.name}: Q along the action at ${s.label}` }));
       return html`<figure id="fig-slices-${n}"><div class="grid2">${charts.map((svg) => raw(svg))}</div>
-        <figcaption>Figure ${n}. ${c.name}: ${raw('Q<sup>π</sup>(s, a)')} along the action (${words.value}, ${words.better}) at ${c.slices.map((s) => s.label).join('; ')};
+        <figcaption>Figure ${n}. ${c.name}: ${raw('Q<sup>π</sup>(s, a)')} along ${actions.length > 1 ? `each action (${actions.map((x) => x.column).join(', ')})` : 'the action'} (${words.value}, ${words.better}) at ${sliceStatesText(c.slices)};
         shaded: actions logged near the state; dotted: the candidate’s mean action (${sliceDitherText(c.slices, actions)})${actions.length > 1 ? '; the other actions held at the candidate’s median action there' : ''}. ${CAUTION_SHORT}</figcaption></figure>`;
     })}</section>`;
+}
+
+/** The states the slices are taken at, each once: with several actions each state has a slice per action, and the caption named it once per slice. */
+export function sliceStatesText(slices: readonly Pick<ActionSlice, 'label'>[]): string {
+  return [...new Set(slices.map((s) => s.label))].join('; ');
 }
 
 /**

@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import type { CoverageDiagnostics } from '../../../src/pipeline/assessment';
 import {
-  assessmentFraction, coverageSentences, levelText, noteWithoutVerdict, progressLine, shareText, unvisitedSentence,
+  assessmentFraction, coverageSentences, levelText, noteWithoutVerdict, progressLine, shareText, typesetMinus, unvisitedSentence,
 } from '../../../src/renderer/src/screens/findings/assessmentWords';
 import { intervalAtPrecision, valueAtPrecision } from '../../../src/figures/parts/uncertainNumber';
 
@@ -30,9 +30,13 @@ describe('assessment words', () => {
   });
 
   it('drops the verdict word the verdict column already shows', () => {
-    expect(noteWithoutVerdict('Uninformative: at step 20 the weights …')).toBe('at step 20 the weights …');
-    expect(noteWithoutVerdict('Agrees: it differs by 0.5 % of J')).toBe('it differs by 0.5 % of J');
-    expect(noteWithoutVerdict('the fitted dynamics do not fit')).toBe('the fitted dynamics do not fit');
+    // After the verdict's full stop the note opens a sentence (the screen review saw "… contradict. at step 20").
+    expect(noteWithoutVerdict('Uninformative: at step 20 the weights …')).toBe('At step 20 the weights …');
+    expect(noteWithoutVerdict('Agrees: it differs by 0.5 % of J')).toBe('It differs by 0.5 % of J');
+    expect(noteWithoutVerdict('the fitted dynamics do not fit')).toBe('The fitted dynamics do not fit');
+    // The model check's words said 'Not applicable here. not applicable to this candidate: …' (screen review).
+    expect(noteWithoutVerdict('not applicable to this candidate: it has actuator limits')).toBe('It has actuator limits');
+    expect(noteWithoutVerdict('Not applicable: not applicable to this candidate: it has actuator limits')).toBe('It has actuator limits');
   });
 
   it('says where the assessment is and how far', () => {
@@ -60,5 +64,12 @@ describe('assessment words', () => {
     expect(none).not.toMatch(/worth no run/);
     expect(unvisitedSentence(0.497)).toContain('49.7 %');
     expect(unvisitedSentence(null)).toBeNull();
+  });
+});
+
+describe('typesetMinus', () => {
+  it('gives a number opening with the terminal’s minus the true minus (U+2212, ISO 80000-2), and leaves hyphens in words', () => {
+    expect(typesetMinus('cut below at 0 (it was [-3.4, 12.3]): J = -0.5, x=-2')).toBe('cut below at 0 (it was [\u22123.4, 12.3]): J = \u22120.5, x=\u22122');
+    expect(typesetMinus('linear-quadratic, 2-step, a -.5 shift')).toBe('linear-quadratic, 2-step, a \u2212.5 shift');
   });
 });

@@ -5,7 +5,7 @@
  */
 import type { Assessment, AssessmentWarning } from '../../../../pipeline/assessment';
 import { plantMemorySentence } from '../../../../pipeline/plantMemoryWords';
-import { coverageSentences, unvisitedSentence } from './assessmentWords';
+import { coverageSentences, typesetMinus, unvisitedSentence } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 
 export function CoveragePanel({ assessment }: { assessment: Assessment }) {
@@ -44,7 +44,7 @@ function Warnings({ warnings, testId }: { warnings: AssessmentWarning[]; testId:
   return (
     <div className={`problems ${warnings.some((w) => w.severity === 'serious') ? 'error' : 'warning'}`} role="status" data-testid={testId}>
       <ul>
-        {warnings.map((w) => <li key={`${w.topic}|${w.message}`}><strong>{w.severity === 'serious' ? 'Serious' : 'Caution'}:</strong> {w.message}</li>)}
+        {warnings.map((w) => <li key={`${w.topic}|${w.message}`}><strong>{w.severity === 'serious' ? 'Serious' : 'Caution'}:</strong> {typesetMinus(w.message)}</li>)}
       </ul>
     </div>
   );

@@ -8,7 +8,7 @@
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import type { Assessment } from '../../../../pipeline/assessment';
-import { intervalDetail, levelText, noteWithoutVerdict, VERDICT } from './assessmentWords';
+import { intervalDetail, levelText, noteWithoutVerdict, sentenceCase, typesetMinus, VERDICT } from './assessmentWords';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
@@ -24,10 +24,12 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
         {c.functionClasses && (
           <p className="small" data-testid={`classes-${c.name}`}>
             <strong>{c.settled ? 'Settled across function classes' : 'Not settled across function classes'}</strong>
-            {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label}: ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}. {c.functionClasses.coverage}
+            {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label}: ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}.
+            {/* Why, from the verdict itself (which classes differ, or are too uncertain to check the project's own); its lead is the bold words above. */}
+            {' '}<span data-testid={`classes-reason-${c.name}`}>{classReason(c.functionClasses.reason)}</span> {c.functionClasses.coverage}
           </p>
         )}
-        {c.rangeCut && <p className="small" data-testid={`range-cut-${c.name}`}>{c.rangeCut}</p>}
+        {c.rangeCut && <p className="small" data-testid={`range-cut-${c.name}`}>{typesetMinus(c.rangeCut)}</p>}
         <table data-testid={`cross-checks-${c.name}`}>
           <caption>{c.name}: fitted Q-evaluation J = {valueAtPrecision(c.policyValue.value, c.policyValue.percentile)} {intervalAtPrecision(c.policyValue.percentile)}</caption>
           <thead>
@@ -43,7 +45,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
                 {/* A check without an interval (the model rollouts) at the decimals of the column’s J, not four significant digits ("5.737" among "5.61"). */}
                 <td className="number">{x.estimate ? valueAtPrecision(x.estimate.value, x.estimate.percentile ?? c.policyValue.percentile) : '—'}</td>
                 <td className="number interval" title={x.estimate ? intervalDetail(x.estimate, level) : undefined}>{x.estimate ? intervalAtPrecision(x.estimate.percentile) : '—'}</td>
-                <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {noteWithoutVerdict(x.note)}</span> : null}</td>
+                <td data-testid="verdict" className={x.agreement === 'disagrees' ? 'error-text' : undefined}>{VERDICT[x.agreement]}.{x.note ? <span className="small muted"> {typesetMinus(noteWithoutVerdict(x.note))}</span> : null}</td>
               </tr>
             ))}
           </tbody>
@@ -59,4 +61,9 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
       </details>
     </FoldPanel>
   );
+}
+
+/** The verdict's reason without its lead ("Not settled: ", "Settled: "), which the bold words beside it say, as a sentence. */
+function classReason(reason: string): string {
+  return typesetMinus(sentenceCase(reason.replace(/^(Not settled|Settled): /, '')));
 }

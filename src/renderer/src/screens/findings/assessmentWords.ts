@@ -27,7 +27,22 @@ export function intervalDetail(estimate: IntervalEstimate, level: number): strin
 
 /** A cross-check's note without its leading verdict word, which the verdict column already says. */
 export function noteWithoutVerdict(note: string): string {
-  return note.replace(/^(agrees|disagrees|uninformative|not applicable)\s*[:.—-]\s*/i, '');
+  // The column's verdict ends in a full stop, so what follows opens a sentence ("Not applicable here. It has actuator limits").
+  return sentenceCase(note.replace(/^((agrees|disagrees|uninformative|not applicable)( to this candidate)?\s*[:.—-]\s*)+/i, ''));
+}
+
+/** The first letter in capitals: a phrase shown after a full stop. */
+export function sentenceCase(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
+/**
+ * The pipeline's messages are shared with the command line and write the terminal's minus ("[-3.4, 12.3]");
+ * on screen a number's minus is the true one (U+2212), as every table beside them writes it. Only a
+ * hyphen that opens a number is changed, never one inside a word ("linear-quadratic").
+ */
+export function typesetMinus(text: string): string {
+  return text.replace(/(^|[\s[(,=])-(?=\d|\.\d)/g, '$1\u2212');
 }
 
 export const VERDICT: Record<Agreement, string> = {

@@ -100,7 +100,7 @@ function DeclaredBounds({ reward, problems, set, closeStep }: { reward: ColumnRe
       </div>
       <p className="small muted">
         Only what the {what}&rsquo;s definition guarantees on every row, whatever the plant does (e.g. 0 for a {what} that sums squares or energy used); leave blank when nothing is.
-        A logged row past it is a row that cannot be used, and a range to report is cut there.
+        A logged row past it is listed, by its row number, among the rows that cannot be used; a candidate’s range to report is cut at it.
       </p>
     </>
   );
