@@ -113,7 +113,7 @@ describe('function-class rule: mechanics', () => {
     expect(edge.settled).toBe(false);
     expect(edge.reason).toContain('could not have seen a gap of 10 % of J (it would need a gap of 10.1 %)');
     const edgeNamed = functionClassVerdict([at('degree 2', 10, 0.01), at('degree 3', 10, 0.01), at('degree 4', 10, 0.355 * Math.SQRT2)]);
-    expect(edgeNamed.reason).toContain('degree 4 (it could see a gap of 10.1 % of J, not 10 %)');
+    expect(edgeNamed.reason).toContain('degree 4 (the smallest gap it could see is 10.1 % of J, not 10 %)');
     // Where the project's own value is not in the list (a network, checked by its own agreement rule), the rule reads disagreement only.
     const withoutOwn = functionClassVerdict([at('degree 2', 30.2, 6.6), at('degree 3', 19, 42)], [], false);
     expect(withoutOwn.settled).toBe(true);
