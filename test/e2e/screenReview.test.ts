@@ -2,9 +2,10 @@
  * The screen review: every step, the glossary and every export of three projects (the heating-loop
  * and tank-levels samples, and an invented two-valve log with clipped, correlated dithers:
  * test/fixtures/screens/twoValveBlend.ts) in both themes at 1280 × 800 and 1920 × 1080, written to
- * test-artifacts/screens20/ to be looked at. Besides the pictures it checks what a person would
+ * test-artifacts/screen-review/ to be looked at. Besides the pictures it checks what a person would
  * trip on that a measurement can see: no text cut off by its own box on any step, the two-action
- * caution shown where the log has it, and the report's tables inside its page.
+ * caution shown where the log has it, the report's tables inside its page, every function-class
+ * verdict with its reason, and the range-cut note written with the tables' minus sign.
  */
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
@@ -18,7 +19,7 @@ import { UNSTICK } from './harness/unstick';
 import { goToStep } from '../renderer/e2e/appSteps';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
 
-const SHOTS = resolve(__dirname, '../../test-artifacts/screens20');
+const SHOTS = resolve(__dirname, '../../test-artifacts/screen-review');
 const SIZES = [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }];
 const STEPS = ['plant-log', 'candidates', 'estimator', 'run', 'findings'] as const;
 const FIGURES = ['comparison', 'surface', 'slice', 'convergence', 'sensitivity', 'retuneMap'] as const;
@@ -104,6 +105,8 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
           // At 1920 px the project's name (the samples' are under 60 characters) is shown whole: the toolbar has the room.
           if (size.width === 1920 && !(await page.getByTestId('project-title').evaluate((e) => e.scrollWidth <= e.clientWidth))) faults.push(`${step} 1920 ${theme}: the project name is cut with room to spare`);
           // Each Findings section on its own as well, at a size the eye can read.
+          // The reward panel (declared floor and ceiling of a cost column) on its own, at a size the eye can read.
+          if (step === 'plant-log') await page.locator('section[aria-labelledby="reward-heading"]').screenshot({ path: join(SHOTS, `${c.id}-${size.width}-${theme}-plant-log-reward.png`), style: UNSTICK });
           if (step === 'findings') {
             for (const section of await page.locator('[data-section]').all()) {
               await section.screenshot({ path: join(SHOTS, `${c.id}-${size.width}-${theme}-findings-${await section.getAttribute('data-section')}.png`), style: UNSTICK });
@@ -147,6 +150,21 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
       // The answer names a trial here (no serious warning for it) and says the log's cautions beside it.
       await expect.poll(() => page.getByTestId('answer-log-cautions').innerText(), POLL).toMatch(/cautions? on the whole log/);
     }
+  });
+
+  it('says why each function-class verdict is settled or not, and writes the range-cut note’s numbers as the tables do', async () => {
+    const { page } = app;
+    await goToStep(page, 'findings');
+    await openAllFindings(page);
+    // Every candidate compared across classes says why (a settled verdict's too-uncertain classes were shown on the command line only).
+    const lines = await page.locator('[data-testid^="classes-"]:not([data-testid^="classes-reason-"])').count();
+    expect(await page.locator('[data-testid^="classes-reason-"]').count()).toBe(lines);
+    for (const reason of await page.locator('[data-testid^="classes-reason-"]').allInnerTexts()) expect(reason).toMatch(/^[A-Z]/);
+    const cuts = await page.locator('[data-testid^="range-cut-"]').allInnerTexts();
+    // The two-valve log declares its cost never below 0 and a class's interval reaches below it (test/fixtures/screens/twoValveBlend.ts).
+    if (c.twoActions) expect(cuts.length).toBeGreaterThan(0);
+    for (const cut of cuts) expect(cut, 'a number’s minus on screen is U+2212, as in the class line above it').not.toMatch(/(^|[\s[(,])-\d/);
+    for (const note of await page.getByTestId('verdict').allInnerTexts()) expect(note, 'a note after the verdict’s full stop opens a sentence').not.toMatch(/\.\s+[a-z]/);
   });
 
   it('exports every figure as PNG and SVG, the grids and tables as CSV, and the report', async () => {
