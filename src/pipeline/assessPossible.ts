@@ -15,13 +15,13 @@ import type { AssessmentWarning, IntervalEstimate } from './assessment';
 import type { CandidateModel } from './model/candidateModel';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 import { ASCII_MINUS, intervalAtPrecision, plainNumber, valueAtPrecision } from '../figures/parts/uncertainNumber';
-import { boundText } from '../figures/parts/boundText';
+import { boundSides, boundText } from '../figures/parts/boundText';
 
 const TOPIC = 'impossibleValue';
 
 export function impossibleValue(plan: EvaluationPlan, range: PossibleValues, model: CandidateModel, estimate: IntervalEstimate): AssessmentWarning[] {
   const j = model.fit.policyValue, interval = estimate.percentile, inReward = interval && (plan.sign > 0 ? interval : [-interval[1], -interval[0]]);
-  const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
+  const certain = certainOf(plan);
   if (certain && beyondCertain(j, certain, range)) return [certainFinding(plan, certain, j, interval)];
   const wholly = inReward !== null && intervalOutsidePossible(inReward[0], inReward[1], range);
   if (outsidePossible(j, range) || wholly) {
@@ -104,7 +104,7 @@ export function certainFinding(plan: EvaluationPlan, certain: PossibleValues, j:
 export function cutToCertain(
   plan: EvaluationPlan, range: [number, number] | null, j: number | null = null, logged: PossibleValues | null = null,
 ): { range: [number, number] | null; note: string | null } {
-  const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
+  const certain = certainOf(plan);
   if (!range || !certain) return { range, note: null };
   const [lo, hi] = projectRange(plan, certain);
   if (Math.max(range[0], lo) > Math.min(range[1], hi)) return { range, note: null };
@@ -131,11 +131,16 @@ export function cutToCertain(
 
 /** The discounted values no policy can pass, in words for a note ("none below 0"); '' where the reward's definition bounds nothing. */
 export function certainEnds(plan: EvaluationPlan): string {
-  const certain = certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
+  const certain = certainOf(plan);
   if (!certain) return '';
   const [lo, hi] = projectRange(plan, certain);
-  const sides = [...(lo > -Infinity ? [`below ${boundText(lo, 'lower', 4, ASCII_MINUS)}`] : []), ...(hi < Infinity ? [`above ${boundText(hi, 'upper', 4, ASCII_MINUS)}`] : [])];
+  const sides = boundSides(lo, hi, 4, ASCII_MINUS);
   return sides.length ? `none ${sides.join(' or ')}` : '';
+}
+
+/** The values no policy can leave whatever it does (core/diagnostics/possibleValues.ts certainValues), reward sense; null where the reward's definition bounds nothing. */
+function certainOf(plan: EvaluationPlan): PossibleValues | null {
+  return certainValues(plan.data.rewardBounds, plan.discount, plan.absorbingEnds > 0);
 }
 
 /** A range in reward sense, in the project's. */

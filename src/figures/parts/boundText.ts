@@ -19,3 +19,8 @@ export function boundText(v: number, side: 'lower' | 'upper', digits = 4, minus:
   const outward = side === 'lower' ? Math.floor(v / step) * step : Math.ceil(v / step) * step;
   return plainNumber(outward, digits, minus);
 }
+
+/** The finite ends of [lo, hi] said outward as sides ("below −0.005264", "above 1"); empty where neither is finite. */
+export function boundSides(lo: number, hi: number, digits = 4, minus: Minus = TRUE_MINUS): string[] {
+  return [...(lo > -Infinity ? [`below ${boundText(lo, 'lower', digits, minus)}`] : []), ...(hi < Infinity ? [`above ${boundText(hi, 'upper', digits, minus)}`] : [])];
+}

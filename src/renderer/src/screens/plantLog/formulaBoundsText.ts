@@ -3,7 +3,7 @@
  */
 import { expressionBounds } from '../../../../data/expressionBounds';
 import { parseExpression, type ExpressionNode } from '../../../../data/expressionSyntax';
-import { boundText } from '../../../../figures/parts/boundText';
+import { boundSides } from '../../../../figures/parts/boundText';
 
 /**
  * The formula's bounds in a sentence for the editor ("This cost is never below 0 on any row, whatever
@@ -18,7 +18,7 @@ export function formulaBoundsText(source: string, sense: 'reward' | 'cost', deci
   }
   const [lo, hi] = expressionBounds(tree);
   // Rounded outward (boundText.ts), so the sentence stays true of every row.
-  const sides = [...(lo > -Infinity ? [`below ${boundText(lo, 'lower')}`] : []), ...(hi < Infinity ? [`above ${boundText(hi, 'upper')}`] : [])];
+  const sides = boundSides(lo, hi);
   if (sides.length === 0) return null;
   return `This ${sense} is never ${sides.join(' nor ')} on any row, whatever the plant does (read from the formula): a range to report is cut where that puts it out of reach of every policy.`;
 }
