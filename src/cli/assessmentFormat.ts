@@ -10,6 +10,9 @@ import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './
 /** A value at the precision of the interval it is read with; without one (the model rollouts), at `precision`'s (the candidate's J interval), as the app and the report write it. */
 const inInterval = (value: number | null, iv: [number, number] | null, precision: [number, number] | null = null): string => `${atDecimals(value, rowDecimals(iv ?? precision))} ${interval(iv)}`;
 
+/** A cross-check's value and its interval where it has one; without one (the model rollouts, a closed form without resamples) the value alone, so the line does not read "8.24 — — Uninformative". */
+const checkValue = (value: number, iv: [number, number] | null, precision: [number, number] | null): string => (iv ? inInterval(value, iv) : atDecimals(value, rowDecimals(precision)));
+
 /** A row's J and s.e. at the decimal place of its percentile interval (else of its s.e.); each interval at its own. */
 function estimateRow(name: string, e: IntervalEstimate): string[] {
   const d = rowDecimals(e.percentile, e.standardError);
@@ -33,7 +36,7 @@ export function formatAssessment(a: Assessment): string {
   const named = [...a.candidates, ...(pc ? [{ ...pc, functionClasses: null }] : [])];
   const checks = named.flatMap((c) => [
     `  ${policyLabel(c.name)}: ${c.confirmation.text}`,
-    ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? inInterval(x.estimate.value, x.estimate.percentile, c.policyValue.percentile) : '—'} — ${x.note}`),
+    ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? `${checkValue(x.estimate.value, x.estimate.percentile, c.policyValue.percentile)} — ` : ''}${x.note}`),
   ]);
   const classes = a.candidates.flatMap((c) => (c.functionClasses ? [
     `  ${c.name}: ${c.functionClasses.reason}`,
