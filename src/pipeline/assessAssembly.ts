@@ -33,6 +33,7 @@ import { cutToCertain, impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
 import { shareText } from '../core/shareText';
+import type { NetworkRunResamples } from './networkRunResamples';
 
 /** The logged return's name wherever it is listed beside the candidates (shown through policyNames.ts). */
 export const BEHAVIOUR_NAME = 'logged return';
@@ -64,8 +65,8 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
   return works.map((work, j) => {
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];
-    const policyValue = withNetworkInterval(intervalEstimate(work.model.fit.policyValue, r.fqe, settings.level, sign), work, sign);
-    const fitted = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign);
+    const policyValue = withNetworkInterval(intervalEstimate(work.model.fit.policyValue, r.fqe, settings.level, sign), work, sign, r.network);
+    const fitted = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign, r.network);
     // A range past what any policy can have, whatever it does (the reward formula's bounds), is cut there and says so.
     const cut = cutToCertain(context.plan, fitted?.range ?? policyValue.percentile, policyValue.value, possible);
     const classes = fitted && cut.range ? { ...fitted, range: cut.range } : fitted;
@@ -92,7 +93,7 @@ export function assemblePresentController(inputs: AssemblyInputs): PresentContro
   const { checks, confirmation } = checksOf(inputs, baseline, r, inputs.presentModelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null, null);
   const completed = completedReturnFromEnds(inputs.context.plan, inputs.baselineEnds!).value;
   return {
-    name: model.name, policyValue: intervalEstimate(model.fit.policyValue, r.fqe, settings.level, sign),
+    name: model.name, policyValue: withNetworkInterval(intervalEstimate(model.fit.policyValue, r.fqe, settings.level, sign), baseline, sign, r.network),
     completedReturn: intervalEstimate(completed, replicates.completedReturn, settings.level, sign, 'sampling of the logged runs; the value past each time limit is held at the full-data fit'),
     occupancyShift: inputs.reference.presentControllerShift, crossChecks: checks, confirmation,
   };
@@ -106,8 +107,8 @@ function checksOf(
   return crossChecks({
     work, replicates: r, points: points.values, rollout, weights, tailWeight: inputs.tailWeight,
     offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: inputs.settings.level, sign: inputs.context.plan.sign, settled,
-    // A fit without resamples of its own (a network) pairs nothing; its own interval's standard error goes into the difference's.
-    fitStandardError: work.replicate ? null : work.model.fit.interval?.standardError ?? null,
+    // A network's fit is not paired with the checks; its own interval's standard error goes into the difference's.
+    fitStandardError: work.replicate ? null : (r.network?.interval ?? work.model.fit.interval)?.standardError ?? null,
   });
 }
 
@@ -167,16 +168,19 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
   };
 }
 
-/** A network's J has no bootstrap replicates here; its own interval (run resamples of the last-layer solve) stands in. */
-function withNetworkInterval(estimate: IntervalEstimate, work: CandidateWork, sign: number): IntervalEstimate {
-  const iv = work.model.fit.interval, interval = networkInterval(work, sign);
+/**
+ * A network's J has no linear bootstrap replicates; its own interval stands in: the one on the
+ * assessment's resamples at the assessment's level (networkRunResamples.ts), else the fit's own.
+ */
+function withNetworkInterval(estimate: IntervalEstimate, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): IntervalEstimate {
+  const iv = net?.interval ?? work.model.fit.interval, interval = networkInterval(work, sign, net);
   if (estimate.percentile || !iv || !interval) return estimate;
-  return { ...estimate, percentile: interval, standardError: iv.standardError, covers: work.model.fit.intervalCovers ?? estimate.covers };
+  return { ...estimate, percentile: interval, standardError: iv.standardError, covers: (net ? net.covers : work.model.fit.intervalCovers) ?? estimate.covers };
 }
 
-/** A network fit's interval of J in the project's sense; null for a fit without one. */
-function networkInterval(work: CandidateWork, sign: number): [number, number] | null {
-  const iv = work.model.fit.interval;
+/** A network fit's interval of J in the project's sense (on the assessment's resamples where given); null for a fit without one. */
+function networkInterval(work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): [number, number] | null {
+  const iv = net?.interval ?? work.model.fit.interval;
   return !iv ? null : sign > 0 ? [iv.lower, iv.upper] : [-iv.upper, -iv.lower];
 }
 
@@ -197,10 +201,10 @@ function networkDisagreement(work: CandidateWork): AssessmentWarning[] {
  * own value is settled only by the agreement rule's "agree" — as a linear project's own class is
  * only by a class that could have seen a gap of 10 % (functionClassRange.ts). Exported for its test.
  */
-export function withUnresampledOwn(classes: FunctionClassAssessment | null, work: CandidateWork, sign: number): FunctionClassAssessment | null {
+export function withUnresampledOwn(classes: FunctionClassAssessment | null, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): FunctionClassAssessment | null {
   if (!classes || work.replicate) return classes;
-  const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range, interval = networkInterval(work, sign);
-  const entry = { label: work.classes[0].label, value: own, interval, standardError: work.model.fit.interval?.standardError ?? null };
+  const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range, interval = networkInterval(work, sign, net);
+  const entry = { label: work.classes[0].label, value: own, interval, standardError: (net?.interval ?? work.model.fit.interval)?.standardError ?? null };
   const [ownLo, ownHi] = interval ?? [own, own];
   const widened = { ...classes, classes: [entry, ...classes.classes], range: [Math.min(lo, ownLo, own), Math.max(hi, ownHi, own)] as [number, number] };
   const agreement = work.model.fit.linearComparison?.agreement;
@@ -238,10 +242,9 @@ function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
 export function comparison(plan: EvaluationPlan, replicates: ReplicateSet, works: CandidateWork[], baseline: CandidateWork | null, level: number): Comparison {
   const sign = plan.sign;
   const reference: Estimator = baseline && replicates.presentController
-    ? { name: baseline.model.name, point: baseline.model.fit.policyValue, replicates: replicates.presentController.fqe }
+    ? estimatorOf(baseline, replicates.presentController)
     : { name: BEHAVIOUR_NAME, point: plan.loggedReturn.value, replicates: replicates.loggedReturn };
-  const candidates: Estimator[] = works.flatMap((w, j) => (w.model.fit.status !== 'converged' ? []
-    : [{ name: w.model.name, point: w.model.fit.policyValue, replicates: replicates.candidates[j].fqe }]));
+  const candidates: Estimator[] = works.flatMap((w, j) => (w.model.fit.status !== 'converged' ? [] : [estimatorOf(w, replicates.candidates[j])]));
   const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, reference, level, sign));
   for (let i = 0; i < candidates.length; i++) {
     for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));
@@ -251,6 +254,12 @@ export function comparison(plan: EvaluationPlan, replicates: ReplicateSet, works
     ? 'Each candidate is compared with the present controller’s model, evaluated by the same fitted Q-evaluation on the same resamples; the logged return is shown as a check.'
     : 'No model of the present controller could be fitted, so the logged return stands in as the baseline: it is cut short where runs end on a time limit, which biases it toward zero.';
   return { baseline: { name: reference.name, kind, note }, differences, ranking: ranking([...candidates, reference]) };
+}
+
+/** A fit's J for the comparison: its fitted Q-evaluation replicates, or a network's on the same resamples with the bounds its differences carry. */
+function estimatorOf(w: CandidateWork, r: CandidateReplicates): Estimator {
+  const net = r.network;
+  return { name: w.model.name, point: w.model.fit.policyValue, replicates: net ? net.replicates : r.fqe, ...(net ? { allowance: net.allowance } : {}) };
 }
 
 export function unvisitedShare(plan: EvaluationPlan): number | null {

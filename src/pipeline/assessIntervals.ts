@@ -31,15 +31,36 @@ export interface Estimator {
   name: string;
   point: number; // reward terms
   replicates: Replicates;
+  /**
+   * A bound of unknown sign on this estimate's error that its replicates do not carry (value units,
+   * ≥ 0): a network's stopping-rule drift and class-error allowance (networkRunResamples.ts). Added
+   * to both ends of a difference's interval, as the network's own interval adds it.
+   */
+  allowance?: number;
 }
+
+/** What a difference's interval covers where a network's bounds widen it. */
+export const NETWORK_DIFFERENCE_COVERS =
+  'sampling of the logged runs and the randomness of each network’s training, widened on both sides by how far each network’s stopping rule lets J still move '
+  + '(and by the class-error allowance where a network and the linear estimate disagree)';
 
 export function pairedDifference(a: Estimator, b: Estimator, level: number, sign: number): PairedDifference {
   const differences = pairedReplicates(a.replicates, b.replicates);
   const usable = differences.filter((d): d is number => d !== null);
+  const estimate = intervalEstimate(a.point - b.point, differences, level, sign), allowance = (a.allowance ?? 0) + (b.allowance ?? 0);
   return {
     a: a.name, b: b.name,
-    difference: intervalEstimate(a.point - b.point, differences, level, sign),
+    difference: allowance > 0 ? widened(estimate, allowance) : estimate,
     probabilityBetter: usable.length ? usable.filter((d) => d > 0).length / usable.length : null, // reward terms: higher is better
+  };
+}
+
+/** Both ends moved out by `allowance`; its standard error counts it as one more independent part (networkValueEstimate.ts). */
+function widened(e: IntervalEstimate, allowance: number): IntervalEstimate {
+  const out = ([lo, hi]: [number, number]): [number, number] => [lo - allowance, hi + allowance];
+  return {
+    ...e, standardError: e.standardError === null ? null : Math.hypot(e.standardError, allowance),
+    percentile: e.percentile && out(e.percentile), basic: e.basic && out(e.basic), covers: NETWORK_DIFFERENCE_COVERS,
   };
 }
 

@@ -31,12 +31,12 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
       `agreement counts only from a class that could have seen a gap of ${pct(CROSS_CHECK_RULE.detectableGap)} of J (${c.standardErrors} paired standard errors within it), and where no other class could check the project’s own the estimate is not settled; ` +
       'the reported range spans every class’s interval, so it covers sampling and the spread between the classes fitted — not a bias they all share.',
     `Baseline: the present controller is modelled from the log (linear-Gaussian in the state, clipped at ${LOGGED_LIMITS_NAMED} and fitted there by censored maximum likelihood) ` +
-      'and evaluated by the same fitted Q-evaluation as the candidates, on the same resamples; every candidate is compared with it. The logged discounted return ' +
+      'and evaluated by the same fitted Q-evaluation as the candidates, on the same resamples; every candidate is compared with it (with a network, its last layer re-solved on each resample, a draw of the training’s own spread added, and each difference’s interval widened by both fits’ stopping-rule drift). The logged discounted return ' +
       `is shown as a check, cut short where runs end on a time limit, and completed there by the fitted value γ^T·V̂(s_T). Limits: ${loggedLimitRuleText()} (our rule).`,
     `Cross-checks are informative only when they could see an error of ${pct(a.detectableGap)} of J (three paired standard errors within it), with an effective size of at least ` +
       `max(${a.minEffectiveEpisodes}, ${pct(a.minEffectiveShare)} of the runs) for the importance weights, at most ${pct(a.maxTailWeight)} of the discount weight past the runs’ ends, ` +
       `and at most ${pct(a.maxShareOutsideLogs)} of simulated steps at the edge of the logged states for the model rollouts; an informative check disagrees when the paired ` +
-      `difference exceeds ${a.standardErrors} standard errors and ${pct(a.relative)} of J (our rule). A fit without resamples of its own (a network) pairs nothing: ` +
+      `difference exceeds ${a.standardErrors} standard errors and ${pct(a.relative)} of J (our rule). A network’s fit is not paired with the checks (its resamples re-solve only the last layer, and its interval carries bounds of unknown sign): ` +
       'there the difference’s standard error is the check’s plus the fit’s own, a bound that holds whatever their correlation. When no check is informative, the estimate is reported as unconfirmed; ' +
       'so it is where the function classes disagree and only checks resting on a plant model fitted to the same logs (rollouts, the linear-quadratic closed form) agree.',
     `Model rollouts: a one-step plant model (polynomial in the state and action) fitted to the logs, simulated from up to ${ROLLOUT_STARTS} start states ` +

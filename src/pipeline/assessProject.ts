@@ -173,11 +173,13 @@ async function assessWith(
 }
 
 function resampleSolver(works: CandidateWork[]): string {
-  const kinds = new Set(works.map((w) => w.replicate?.kind ?? 'none'));
+  const network = (w: CandidateWork) => w.model.fit.resampleByRuns !== undefined;
+  const kinds = new Set(works.map((w) => w.replicate?.kind ?? (network(w) ? 'network' : 'none')));
   const words: string[] = [];
   if (kinds.has('exact')) words.push('each resample reweights the fit’s per-run sums and is solved again');
   if (kinds.has('linearised')) words.push('each resample is taken to first order around the full-data fixed point from per-run influence values (the per-run sums would be too many)');
-  if (kinds.has('none')) words.push('candidates whose fit is a network, or did not converge, are not resampled (the logged baseline and the cross-checks are)');
+  if (kinds.has('network')) words.push('for a network, each resample reweights the per-run sums of its last layer on the learned features and solves it again, with a draw of the training’s own spread added, so its differences pair with the present controller’s');
+  if (kinds.has('none')) words.push('candidates whose fit did not converge are not resampled (the logged baseline and the cross-checks are)');
   return words.join('; ');
 }
 

@@ -17,6 +17,7 @@ import type { GaussianPolicy } from '../core/policy';
 import type { ModelJob } from './modelBlocks';
 import { drawBlock } from './perDecisionBlocks';
 import { openPerDecisionRoute, type PerDecisionRoute } from './perDecisionRoute';
+import { networkRunResamples, type NetworkRunResamples } from './networkRunResamples';
 
 export type Replicates = (number | null)[];
 
@@ -27,6 +28,8 @@ export interface CandidateReplicates {
   model: Replicates | null;
   /** J in each function class of the work, its own first (the same array as fqe). */
   classes: Replicates[];
+  /** A network fit's J on these same resamples (networkRunResamples.ts); null for a linear fit. */
+  network: NetworkRunResamples | null;
 }
 
 export interface ReplicateSet {
@@ -102,8 +105,9 @@ export async function runResamples(
   const pace = createPacer(PACE_MS), { plan } = context, e = plan.episodes.episodes;
   const { works, baseline, baselineEnds, model } = inputs, { route, rows } = opened;
   const out: ReplicateSet = {
-    loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false)),
-    presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false), completedReturn: baselineEnds && [], threads: '',
+    loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false, networkRunResamples(w, e, settings, j))),
+    presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false, networkRunResamples(baseline, e, settings, works.length)),
+    completedReturn: baselineEnds && [], threads: '',
   };
   const block = Array.from({ length: RESAMPLE_BLOCK }, () => new Uint32Array(e));
   let reported = -PROGRESS_EVERY;
@@ -128,9 +132,12 @@ export async function runResamples(
   return out;
 }
 
-function emptyReplicates(w: CandidateWork, modelApplicable: boolean): CandidateReplicates {
+function emptyReplicates(w: CandidateWork, modelApplicable: boolean, network: NetworkRunResamples | null): CandidateReplicates {
   const fqe: Replicates = [], offPolicy = 'perDecision' in w.offPolicy;
-  return { fqe, importanceSampling: offPolicy ? [] : null, doublyRobust: offPolicy ? [] : null, model: modelApplicable ? [] : null, classes: w.classes.map((_, i) => (i === 0 ? fqe : [])) };
+  return {
+    fqe, importanceSampling: offPolicy ? [] : null, doublyRobust: offPolicy ? [] : null, model: modelApplicable ? [] : null,
+    classes: w.classes.map((_, i) => (i === 0 ? fqe : [])), network,
+  };
 }
 
 /**

@@ -4,7 +4,7 @@
  */
 import type { ActionValueFunction } from '../core/actionValue';
 import type { Agreement } from '../core/fqe/approximatorAgreement';
-import type { ValueInterval } from '../core/fqe/networkValueEstimate';
+import type { NetworkValueEstimate, ValueInterval } from '../core/fqe/networkValueEstimate';
 import type { CancellationCheck } from '../core/fqe/cancellation';
 import type { GaussianPolicy } from '../core/policy';
 import type { TransitionSet } from '../core/transitions';
@@ -62,4 +62,10 @@ export interface CandidateFit {
     difference: { value: number; interval: ValueInterval };
     agreement: Agreement;
   };
+  /**
+   * Network fits: J on the assessment's own resamples of the runs (src/core/fqe/networkInterval.ts,
+   * `runs`), with its interval at the assessment's level, so the network pairs with the present
+   * controller's and the other candidates' replicates (networkRunResamples.ts). Reward sense.
+   */
+  resampleByRuns?(options: { runs: number; resamples: number; seed: number; level: number }): NetworkValueEstimate;
 }

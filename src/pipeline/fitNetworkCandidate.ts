@@ -61,6 +61,7 @@ function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest, layout: N
     },
     interval: estimate.interval,
     intervalCovers: estimate.covers,
+    resampleByRuns: (options) => fit.estimate(request.startStates, options),
     linearComparison: {
       value: estimate.linear.value, interval: estimate.linear.interval, difference: estimate.difference,
       agreement: approximatorAgreement({ network: estimate, linear: estimate.linear, difference: estimate.difference }),

@@ -130,13 +130,14 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
       const value = dot(mean, v, d), linear = dot(meanRow(linearRows, d2), ctx.comparatorWeights, d2);
       const follow = options.startsFollowEpisodes ?? sameValues(startStates, dataStarts);
       const resamples = options.resamples ?? s.method.intervalResamples;
-      const r = valueReplicates(systems, { startRows: rows, linearStartRows: linearRows, startsFollowEpisodes: follow, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed }, { network: value, linear });
+      const r = valueReplicates(systems, { startRows: rows, linearStartRows: linearRows, startsFollowEpisodes: follow, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed, runs: options.runs }, { network: value, linear });
       const difference = networkValueInterval(r.difference, spread * Math.abs(value), drift * Math.abs(value));
       const allowance = classErrorAllowance(difference);
       return {
         value, interval: withClassErrorAllowance(networkValueInterval(r.network, spread * Math.abs(value), drift * Math.abs(value)), allowance),
         linear: { value: linear, interval: valueInterval(r.linear) }, difference: { value: value - linear, interval: difference },
         startCount: rows.length / d, resamples, failedResamples: r.failed, covers: allowance > 0 ? `${INTERVAL_COVERS}; ${classErrorSentence()}` : INTERVAL_COVERS,
+        ...(options.runs === undefined ? {} : { replicates: r.values }),
         parts: {
           percentile: r.network.percentile, basic: r.network.basic, bootstrapStandardError: r.network.standardError, iterateSpread: spread, driftAllowance: drift,
           classErrorAllowance: allowance / Math.max(Math.abs(value), Number.MIN_VALUE),

@@ -50,6 +50,14 @@ export interface IntervalRequest {
   readonly level: number;
   readonly resamples: number;
   readonly seed: number;
+  /**
+   * The data's run count, when the resamples must be the assessment's own: resample b then draws
+   * every run of the data as episodeMultiplicities(runs, seed, b) does for the linear bootstrap, and
+   * each training episode takes its run's count, so replicate b pairs with every other estimate's
+   * replicate b (a paired difference with the present controller, a ranking). Absent: the draws are
+   * over the training episodes alone (the fit's own interval).
+   */
+  readonly runs?: number;
 }
 
 export interface ValueReplicates {
@@ -59,31 +67,44 @@ export interface ValueReplicates {
   readonly difference: BootstrapInterval;
   /** Resamples whose system could not be solved (left out of the intervals). */
   readonly failed: number;
+  /** The network's J on each resample in order, null where it could not be solved. */
+  readonly values: readonly (number | null)[];
 }
 
 /** estimates: the full-data J of the network and of the linear part over the same start set. */
 export function valueReplicates(systems: EpisodeSystems, request: IntervalRequest, estimates: { network: number; linear: number }): ValueReplicates {
   const { joint, linear, ids } = systems, d = joint.dim, d1 = joint.linearDim, d2 = linear.dim, e = joint.ranges;
   const starts = request.startRows.length / d, linearStartRows = request.linearStartRows;
-  const net: number[] = [], lin: number[] = [], diff: number[] = [];
+  const net: number[] = [], lin: number[] = [], diff: number[] = [], values: (number | null)[] = [];
   const jointScratch = new Float64Array(joint.stride), linearScratch = new Float64Array(linear.stride);
-  const c = new Uint32Array(e), startWeights = new Float64Array(starts).fill(1);
+  const c = new Uint32Array(e), startWeights = new Float64Array(starts).fill(1), runs = request.runs;
+  const all = runs === undefined ? null : new Uint32Array(runs);
   let failed = 0;
   for (let b = 0; b < request.resamples; b++) {
-    episodeMultiplicities(e, request.seed, b, c);
-    if (request.startsFollowEpisodes) for (let r = 0; r < e; r++) if (ids[r] < starts) startWeights[ids[r]] = c[r];
+    if (all) {
+      // The assessment's draw over every run; a start state goes with its run, a training episode takes its run's count.
+      episodeMultiplicities(runs!, request.seed, b, all);
+      for (let r = 0; r < e; r++) c[r] = all[ids[r]];
+      if (request.startsFollowEpisodes) for (let k = 0; k < Math.min(starts, runs!); k++) startWeights[k] = all[k];
+    } else {
+      episodeMultiplicities(e, request.seed, b, c);
+      if (request.startsFollowEpisodes) for (let r = 0; r < e; r++) if (ids[r] < starts) startWeights[ids[r]] = c[r];
+    }
     const v = solveLastLayer(combineSums(joint, c, jointScratch), d, d1, systems.hiddenRidge, systems.higherTermRidge);
     const w = solveLastLayer(combineSums(linear, c, linearScratch), d2, d2, 0);
-    if ('failure' in v || 'failure' in w || startWeights.every((x) => x === 0)) {
+    if ('failure' in v || 'failure' in w || startWeights.every((x) => x === 0) || c.every((x) => x === 0)) {
       failed++;
+      values.push(null);
       continue;
     }
     const jn = dotRow(meanRow(request.startRows, d, startWeights), v.weights), jl = dotRow(meanRow(linearStartRows, d2, startWeights), w.weights);
     net.push(jn);
     lin.push(jl);
     diff.push(jn - jl);
+    values.push(jn);
   }
   return {
+    values,
     network: bootstrapInterval(estimates.network, net, request.level),
     linear: bootstrapInterval(estimates.linear, lin, request.level),
     difference: bootstrapInterval(estimates.network - estimates.linear, diff, request.level),

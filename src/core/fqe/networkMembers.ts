@@ -71,6 +71,8 @@ export function combineEstimates(estimates: readonly NetworkValueEstimate[]): Ne
     interval: hull(estimates.map((e) => e.interval), values),
     difference: { value: differenceValue, interval: hull(estimates.map((e) => e.difference.interval), estimates.map((e) => e.difference.value)) },
     failedResamples: Math.max(...estimates.map((e) => e.failedResamples)),
+    // Resample by resample, the members' mean (they share the draws): null where any member had none.
+    ...(estimates.every((e) => e.replicates) ? { replicates: memberMeans(estimates.map((e) => e.replicates!)) } : {}),
     covers: `${widest.covers}; the span of ${estimates.length} fits from different starting weights, so it also covers where the training lands`,
     parts: {
       ...first.parts, iterateSpread: Math.max(...estimates.map((e) => e.parts.iterateSpread)),
@@ -122,4 +124,16 @@ function maxOrNull(xs: readonly (number | null)[]): number | null {
 
 function mean(xs: readonly number[]): number {
   return xs.reduce((a, b) => a + b, 0) / xs.length;
+}
+
+function memberMeans(replicates: readonly (readonly (number | null)[])[]): (number | null)[] {
+  return replicates[0].map((_, b) => {
+    let total = 0;
+    for (const r of replicates) {
+      const v = r[b];
+      if (v === null) return null;
+      total += v;
+    }
+    return total / replicates.length;
+  });
 }

@@ -26,6 +26,12 @@ export interface NetworkValueEstimate {
   readonly failedResamples: number;
   /** One sentence: what the interval covers and what it does not. */
   readonly covers: string;
+  /**
+   * With EstimateOptions.runs: the network's J on each of the assessment's resamples of the runs, in
+   * order (null where the resample had no solution), before any widening; they pair with the linear
+   * bootstrap's replicates of the same seed. Absent otherwise.
+   */
+  readonly replicates?: readonly (number | null)[];
   /** The parts the interval is built from (for the battery's choice of method). */
   readonly parts: {
     readonly percentile: readonly [number, number];
@@ -54,6 +60,8 @@ export interface EstimateOptions {
   readonly resamples?: number;
   /** Seed of the resamples (default: the fit's seed). */
   readonly seed?: number;
+  /** The data's run count: draw the resamples over every run, as the assessment does, and return them (networkInterval.ts). */
+  readonly runs?: number;
 }
 
 export const INTERVAL_COVERS =

@@ -58,7 +58,7 @@ export interface CheckVerdict {
   readonly fromPlantModel?: boolean;
 }
 
-const UNPAIRED_WORDS = 'standard errors of the difference, unpaired: the fit has no resamples to pair with, so its own standard error is added to the check’s';
+const UNPAIRED_WORDS = 'standard errors of the difference, unpaired: a network’s fit is not paired with the checks, so its own standard error is added to the check’s';
 
 export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   const r = CROSS_CHECK_RULE, scale = Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
