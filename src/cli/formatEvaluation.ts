@@ -1,5 +1,6 @@
 /** The readable table `evaluate` prints by default. */
 import { COMPARATOR_DEGREE } from '../core/fqe/comparatorDegree';
+import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
 import { truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
@@ -47,18 +48,19 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
   const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';
   const s = e.settings;
   const rows: string[][] = [['policy', 'value J', '± s.e.', 'fixed point', 'fit']];
-  // A fit that did not meet its convergence rule has no value to report: the table says so and its message says why
-  // ("no value", not "not settled", which names the function-class verdict of the assessment).
+  // A fit stopped at its iteration limit shows the J it reached, as the app and the assessment table below do, marked
+  // NOT CONVERGED with its message saying why; a diverged fit has no value ("no value", not "not settled", which names
+  // the function-class verdict of the assessment).
   e.policies.forEach((p, i) => {
-    const converged = p.status === 'converged', iv = assessment?.candidates[i]?.policyValue.percentile ?? null;
+    const shown = p.status !== 'diverged', iv = assessment?.candidates[i]?.policyValue.percentile ?? null;
     const [value, error] = withError(p.policyValue, p.standardError, iv), d = rowDecimals(iv, p.standardError);
-    rows.push([p.name, converged ? value : 'no value', converged ? error : '', atDecimals(p.fixedPointValue, d), converged ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
+    rows.push([p.name, shown ? value : 'no value', shown ? error : '', atDecimals(p.fixedPointValue, d), p.status === 'converged' ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
   });
   const pc = e.presentController, truncation = truncationSentence(e.behaviour);
   if (pc) {
-    const x = pc.estimate, converged = x.status === 'converged', iv = assessment?.presentController?.policyValue.percentile ?? null;
+    const x = pc.estimate, shown = x.status !== 'diverged', iv = assessment?.presentController?.policyValue.percentile ?? null;
     const [value, error] = withError(x.policyValue, x.standardError, iv), d = rowDecimals(iv, x.standardError);
-    rows.push([`${PRESENT_CONTROLLER} [baseline]`, converged ? value : 'no value', converged ? error : '', atDecimals(x.fixedPointValue, d), converged ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
+    rows.push([`${PRESENT_CONTROLLER} [baseline]`, shown ? value : 'no value', shown ? error : '', atDecimals(x.fixedPointValue, d), x.status === 'converged' ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
     rows.push([`${LOGGED_RETURN}, completed past time limits (check)`, ...withError(pc.completedReturn.value, pc.completedReturn.standardError, assessment?.presentController?.completedReturn.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   }
   rows.push([pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
@@ -70,7 +72,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     table(rows),
     '',
     '± s.e. covers start-state sampling only; it is not a confidence interval for the fit.',
-    ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: its fit did not converge, so no value is reported for it. ${p.message}`),
+    ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: ${unconvergedWords(p.status)} ${p.message}`),
     ...e.policies.flatMap((p) => (p.network ? [networkLine(p.name, p.network)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
     pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions, pc.model.units)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}; ${limitsText(pc.model)}) and evaluated like the candidates.`
@@ -80,6 +82,13 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     '',
   ];
   return lines.join('\n');
+}
+
+/** What the value table's row of a fit that did not converge holds, and what the comparison does with it. */
+function unconvergedWords(status: Evaluation['policies'][number]['status']): string {
+  return status === 'diverged'
+    ? 'its fit diverged, so no value is reported for it.'
+    : `its fit ${FIT_STATUS_WORDS[status]} without meeting its convergence rule: the J shown is where it stopped, not a settled value, and it is left out of the differences and the ranking.`;
 }
 
 function networkLine(name: string, n: NonNullable<Evaluation['policies'][number]['network']>): string {

@@ -12,7 +12,7 @@
  * (src/core/diagnostics/functionClassRange.ts).
  */
 import type { UnconvergedClass } from '../core/diagnostics/functionClassRange';
-import type { FitStatus } from '../core/fqe/fitStatus';
+import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
 import { MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { TRANSITIONS_PER_FEATURE } from '../data/datasetChecks';
@@ -53,12 +53,12 @@ export async function classWorks(context: AssessmentContext, model: CandidateMod
     }
     const fitted = outcome.model;
     if (fitted.fit.status === 'converged') out.unshift({ label, model: fitted, replicate: replicator(plan, fitted) });
-    else unconverged.unshift({ label, why: STATUS_WORDS[fitted.fit.status] });
+    else unconverged.unshift({ label, why: FIT_STATUS_WORDS[fitted.fit.status] });
   });
   return { fitted: out, unconverged };
 }
 
-const STATUS_WORDS: Record<FitStatus, string> = { converged: 'converged', diverged: 'diverged', maxIterations: 'stopped at its iteration limit' };
+
 
 export function polynomialClassLabel(degree: number): string {
   return `polynomial, degree ${degree}`;

@@ -9,6 +9,9 @@
  */
 export type FitStatus = 'converged' | 'maxIterations' | 'diverged';
 
+/** The words a reader sees for each status, in the app, the report and the command line's notes (one source). */
+export const FIT_STATUS_WORDS: Readonly<Record<FitStatus, string>> = { converged: 'converged', maxIterations: 'stopped at its iteration limit', diverged: 'diverged' };
+
 /** A fit that may also have been stopped by the user. */
 export type FitOutcome = FitStatus | 'cancelled';
 

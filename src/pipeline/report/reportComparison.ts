@@ -1,5 +1,6 @@
 /** The comparison section: J of every policy with its intervals, paired differences and the ranking. */
 import type { Assessment, IntervalEstimate } from '../assessment';
+import { FIT_STATUS_WORDS } from '../../core/fqe/fitStatus';
 import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
@@ -71,7 +72,7 @@ function pointComparison(input: ReportInput): Html {
   const e = input.evaluation;
   return html`<p>Point estimates only (no intervals: ${input.assessmentProblems.join('; ')}). The ± column covers start-state sampling only.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">± s.e.</th><th>Fit</th></tr></thead><tbody>
-    ${e.policies.map((p) => html`<tr><td>${p.name}</td>${errorCells(p.policyValue, p.standardError)}<td>${p.status}</td></tr>`)}
+    ${e.policies.map((p) => html`<tr><td>${p.name}</td>${errorCells(p.policyValue, p.standardError)}<td>${FIT_STATUS_WORDS[p.status]}</td></tr>`)}
     <tr><td>${LOGGED_RETURN}</td>${errorCells(e.behaviour.value, e.behaviour.standardError)}<td>${e.behaviour.episodes} runs</td></tr>
     </tbody></table>`;
 }

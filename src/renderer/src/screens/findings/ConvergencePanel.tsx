@@ -1,5 +1,6 @@
 /** How each candidate's fit converged: weight change and Bellman residual (or loss) per iteration. */
 import { useState } from 'react';
+import { FIT_STATUS_WORDS } from '../../../../core/fqe/fitStatus';
 import { ConvergencePlot } from '../../plots';
 import { SelectField } from '../../components/SelectField';
 import type { Evaluation } from '../../../../pipeline/estimates';
@@ -13,7 +14,7 @@ export function ConvergencePanel({ evaluation, theme }: { evaluation: Evaluation
   if (!estimate) return null;
   const title = `Convergence of ${estimate.name}`;
   return (
-    <FoldPanel section="convergence" testId="panel-convergence" gist={evaluation.policies.map((p) => `${p.name}: ${p.status === 'converged' ? 'converged' : p.status === 'diverged' ? 'diverged' : 'stopped at the iteration limit'}`).join('; ')}>
+    <FoldPanel section="convergence" testId="panel-convergence" gist={evaluation.policies.map((p) => `${p.name}: ${FIT_STATUS_WORDS[p.status]}`).join('; ')}>
       <div className="row">
         <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="convergence-candidate"
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />

@@ -7,6 +7,7 @@
  */
 import { useMemo } from 'react';
 import { COMPARATOR_DEGREE } from '../../../../core/fqe/comparatorDegree';
+import { FIT_STATUS_WORDS } from '../../../../core/fqe/fitStatus';
 import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessment';
 import { PolicyValueChart } from '../../plots';
 import type { Evaluation } from '../../../../pipeline/estimates';
@@ -20,7 +21,6 @@ import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
-const STATUS: Record<string, string> = { converged: 'converged', maxIterations: 'stopped at the iteration limit', diverged: 'diverged' };
 
 /**
  * Where a fit's own account goes: the Fit column already says "converged (347 iterations)", so for a
@@ -73,7 +73,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
                 <td className="number">{shown.error}</td>
                 {assessment && <IntervalCell estimate={assessment.candidates[i]?.policyValue} level={level} testId={`policy-interval-${i}`} />}
                 <td className="number">{p.fixedPointValue === null ? '—' : valueWithError(p.fixedPointValue, p.standardError, interval).value}</td>
-                <td>{STATUS[p.status] ?? p.status} ({plural(p.iterations, 'iteration')})</td>
+                <td>{FIT_STATUS_WORDS[p.status]} ({plural(p.iterations, 'iteration')})</td>
                 <td className="small" data-testid={`policy-account-${i}`}>{!fitDetail(p.status) && sentence(p.message)}
                   {p.network && (
                     <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
@@ -91,7 +91,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
               <td className="number">{valueWithError(pc.estimate.policyValue, pc.estimate.standardError, presentInterval).error}</td>
               {assessment && <IntervalCell estimate={assessment.presentController?.policyValue} level={level} testId="present-interval" />}
               <td className="number">{pc.estimate.fixedPointValue === null ? '—' : valueWithError(pc.estimate.fixedPointValue, pc.estimate.standardError, presentInterval).value}</td>
-              <td>{STATUS[pc.estimate.status] ?? pc.estimate.status} ({plural(pc.estimate.iterations, 'iteration')})</td>
+              <td>{FIT_STATUS_WORDS[pc.estimate.status]} ({plural(pc.estimate.iterations, 'iteration')})</td>
               <td className="small">The controller that ran while the log was recorded, as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.</td>
             </tr>
           )}
