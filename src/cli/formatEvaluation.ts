@@ -6,7 +6,7 @@ import type { Evaluation } from '../pipeline/estimates';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
 import { atDecimals, intervalText, rowDecimals, widthDecimals } from './uncertainNumberText';
-import type { Assessment } from '../pipeline/assessment';
+import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { loggedLimitText } from '../core/loggedLimitWords';
 
 /** A fitted parameter (offset, dither): four significant digits. */
@@ -73,7 +73,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     '',
     '± s.e. covers start-state sampling only; it is not a confidence interval for the fit.',
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: ${unconvergedWords(p.status)} ${p.message}`),
-    ...e.policies.flatMap((p) => (p.network ? [networkLine(p.name, p.network)] : [])),
+    ...e.policies.flatMap((p, i) => (p.network ? [networkLine(p.name, p.network, assessment?.candidates[i]?.policyValue ?? null, assessment?.settings.level)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
     pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions, pc.model.units)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}; ${limitsText(pc.model)}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
@@ -91,10 +91,15 @@ function unconvergedWords(status: Evaluation['policies'][number]['status']): str
     : `its fit ${FIT_STATUS_WORDS[status]} without meeting its convergence rule: the J shown is where it stopped, not a settled value, and it is left out of the differences and the ranking.`;
 }
 
-function networkLine(name: string, n: NonNullable<Evaluation['policies'][number]['network']>): string {
-  const level = `${Math.round(100 * n.level)} %`, inInterval = (v: number, i: [number, number]) => `${atDecimals(v, widthDecimals(i))} ${intervalText(i)}`;
-  return `${name}: network J ${level} interval ${intervalText(n.interval)} (${n.covers}); degree-${COMPARATOR_DEGREE} linear J ${inInterval(n.linear.value, n.linear.interval)}; ` +
-    `network − linear ${inInterval(n.difference.value, n.difference.interval)}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
+/**
+ * One network's line: its J interval — with the assessment, the one the assessment table prints (on its resamples, at its
+ * level), so the two tables never give two intervals for one J — and the linear estimate and difference its agreement rule read.
+ */
+function networkLine(name: string, n: NonNullable<Evaluation['policies'][number]['network']>, assessed: IntervalEstimate | null, assessedLevel = n.level): string {
+  const own = assessed?.percentile ? { interval: assessed.percentile, level: assessedLevel, covers: assessed.covers } : n;
+  const level = `${Math.round(100 * own.level)} %`, inInterval = (v: number, i: [number, number]) => `${atDecimals(v, widthDecimals(i))} ${intervalText(i)}`;
+  return `${name}: network J ${level} interval ${intervalText(own.interval)} (${own.covers}); degree-${COMPARATOR_DEGREE} linear J ${inInterval(n.linear.value, n.linear.interval)}; ` +
+    `network − linear ${inInterval(n.difference.value, n.difference.interval)}${own.level === n.level ? '' : ` (these two at ${Math.round(100 * n.level)} %, the level the agreement rule reads)`}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
 }
 
 /** The cautions, printed last so they are the final thing a reader sees. */

@@ -77,7 +77,8 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
                 <td className="small" data-testid={`policy-account-${i}`}>{!fitDetail(p.status) && sentence(p.message)}
                   {p.network && (
                     <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
-                      {' '}{levelText(p.network.level)} interval {intervalAtPrecision(p.network.interval)}; degree-{COMPARATOR_DEGREE} linear {valueAtPrecision(p.network.linear.value, p.network.linear.interval)} {intervalAtPrecision(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
+                      {/* With the assessment in, the interval column holds the network's interval (on the assessment's resamples); not a second one here. */}
+                      {' '}{assessment ? '' : `${levelText(p.network.level)} interval ${intervalAtPrecision(p.network.interval)}; `}degree-{COMPARATOR_DEGREE} linear {valueAtPrecision(p.network.linear.value, p.network.linear.interval)} {intervalAtPrecision(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
                     </span>
                   )}
                   <details className="details-section"><summary>Details</summary>{fitDetail(p.status) && <>{sentence(p.message)} </>}Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
