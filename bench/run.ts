@@ -9,6 +9,7 @@
  *   npm run bench -- peer         the whole evaluate beside the numerical-Python peer script (the built CLI when out/cli/main.js is there)
  *   npm run bench -- cli-start    start-up of the command line: sources through tsx beside the built one (npm run build:cli)
  *   npm run bench -- app-thread   the app's assessment in Chromium with one thread and with its helper worker, 1,000,000 transitions
+ *   npm run bench -- block-products   the data pass's block cross products, SIMD and scalar, beside the plain route (CPU time)
  *   npm run bench -- growth       slopes of evaluate time in transitions and in quadrature nodes
  *   npm run bench -- radial       the whole evaluate with radial-basis features, d = 343, 100,000 transitions
  *   npm run bench -- build-pairs <before/main.js> [pairs]   two builds of the CLI in alternating pairs beside the peer,
@@ -64,6 +65,10 @@ const jobs: Job[] = [
   {
     name: 'the plant-memory check beside the whole evaluate, 1,000,000 transitions (peer plant)', group: 'memory',
     run: async () => (await import('./plantMemoryBench')).runPlantMemoryBench(),
+  },
+  {
+    name: 'the data pass\'s block cross products: the SIMD kernel and the scalar tiles beside one dot product per entry (CPU time)', group: 'block-products',
+    run: async () => (await import('./blockProductsBench')).runBlockProductsBench(),
   },
   ...[1_000_000].map((n) => ({
     name: `CSV import, ${n.toLocaleString('en-US')} rows × 10 columns`, group: 'import',

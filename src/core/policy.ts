@@ -188,9 +188,9 @@ export function policyMean(
  */
 const EMPTY = new Float64Array(0);
 
-export function logDensity(p: GaussianPolicy, state: ArrayLike<number>, action: ArrayLike<number>): number {
+/** mean: scratch of length m for the mean action, for callers that run this per logged transition (no allocation per call). */
+export function logDensity(p: GaussianPolicy, state: ArrayLike<number>, action: ArrayLike<number>, mean = new Float64Array(p.actionDim)): number {
   const m = p.actionDim;
-  const mean = new Float64Array(m);
   policyMean(p, state, mean);
   if (!p.independent) return fullCovarianceLogDensity(p, mean, action);
   const limited = limitModeOf(p) !== null, lo = limited ? new Float64Array(m) : EMPTY, hi = limited ? new Float64Array(m) : EMPTY;

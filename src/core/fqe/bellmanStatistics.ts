@@ -15,6 +15,7 @@ import type { ActionQuadrature } from '../actionQuadrature';
 import type { FeatureMap } from '../features/featureMap';
 import type { TransitionSet } from '../transitions';
 import { runSteps, throwIfCancelled, type CancellationCheck, type PassSteps } from './cancellation';
+import { createBlockProducts } from './blockProducts';
 import { FqeDataError } from './fqeErrors';
 import { addNextBlock, type Block } from './nextFeatureSums';
 import { createTransitionFeatureReader, type TransitionFeatureReader } from './transitionFeatures';
@@ -36,8 +37,8 @@ export interface AccumulationHooks {
 }
 
 /**
- * Rows are gathered into blocks (features stored feature-major, so each block sum below runs over
- * contiguous memory with a register accumulator), each block's sums are formed separately and
+ * Rows are gathered into blocks (row-major, where blockProducts.ts's SIMD kernel reads a row's
+ * features in pairs), each block's sums are formed separately and
  * then added to the totals. Besides speed this is blocked summation, whose rounding error grows
  * like (n/B + B)·u rather than n·u (Higham, "Accuracy and Stability of Numerical Algorithms",
  * 2nd ed., §4.2).
@@ -129,90 +130,38 @@ export function* segmentSumsSteps(
 }
 
 function newBlock(d: number, rows: number): Block {
-  return { d, rows, phi: new Float64Array(d * rows), psi: new Float64Array(d * rows), reward: new Float64Array(rows) };
+  const products = createBlockProducts(d, rows);
+  return { d, rows, phi: products.phi, psi: products.psi, reward: new Float64Array(rows), products };
 }
 
 /** φ_i and ψ_i of transition i (read into the reader's buffers) copied to block row t. */
 function gatherTransition(reader: TransitionFeatureReader, data: TransitionSet, block: Block, i: number, t: number): void {
-  const { phi, psi } = reader, d = block.d, rows = block.rows;
   reader.read(i);
-  for (let a = 0; a < d; a++) {
-    block.phi[a * rows + t] = phi[a];
-    block.psi[a * rows + t] = psi[a];
-  }
+  block.phi.set(reader.phi, t * block.d);
+  block.psi.set(reader.psi, t * block.d);
   block.reward[t] = data.rewards[i];
 }
 
 /**
- * Add the first `size` rows of the block to the packed sums at out[base …]. Products are formed in
- * 2×2 register blocks (rows a, a+1 against b, b+1), so each pass over the block loads four numbers
- * for four multiply-adds instead of two for one — about twice as fast, with each entry summed in the
- * same order as one dot product at a time (common practice for dense products, e.g. Goto & van de
- * Geijn, "Anatomy of high-performance matrix multiplication", ACM TOMS 2008). G and H are formed on
- * and above the diagonal blocks; lower entries written inside a diagonal block are overwritten by
- * the mirror in statisticsFromSums.
+ * Add the first `size` rows of the block to the packed sums at out[base …]: G and H on and above
+ * the diagonal, all of M, each entry summed over the rows in order as one dot product at a time
+ * (blockProducts.ts: register tiles, the same numbers to the last bit). The entries of G and H
+ * below the diagonal are left alone; statisticsFromSums mirrors the upper ones.
  */
 function addBlock(block: Block, size: number, out: Float64Array, base: number): void {
-  const { d, rows, phi, psi } = block, dd = d * d;
-  for (let a = 0; a < d; a += 2) {
-    const a1 = Math.min(a + 1, d - 1);
-    addPairs(phi, psi, a * rows, a1 * rows, a * rows, a1 * rows, size, out, base + dd, a, a1, a, a1, d);
-    addPairs(phi, phi, a * rows, a1 * rows, a * rows, a1 * rows, size, out, base, a, a1, a, a1, d);
-    addPairs(psi, psi, a * rows, a1 * rows, a * rows, a1 * rows, size, out, base + 2 * dd, a, a1, a, a1, d);
-    for (let b = a + 2; b < d; b += 2) addOffDiagonal(block, size, out, base, a, a1, b, Math.min(b + 1, d - 1));
-  }
+  const { d, phi, psi, products } = block, dd = d * d;
+  products.add(phi, phi, size, out, base, true);
+  products.add(phi, psi, size, out, base + dd, false);
+  products.add(psi, psi, size, out, base + 2 * dd, true);
   addVectors(block, size, out, base + 3 * dd);
-}
-
-/**
- * The 2×2 blocks above the diagonal (b > a1) of G = ΦᵀΦ and H = ΨᵀΨ, and the two blocks of M = ΦᵀΨ
- * at (a, b) and (b, a), in one pass: the eight numbers loaded per row serve sixteen multiply-adds
- * (four separate 2×2 passes load sixteen). Each entry is still summed over the rows in order, so
- * the sums are the same to the last bit.
- */
-function addOffDiagonal(block: Block, size: number, out: Float64Array, base: number, a: number, a1: number, b: number, b1: number): void {
-  const { d, rows, phi, psi } = block, dd = d * d, xa = a * rows, xa1 = a1 * rows, yb = b * rows, yb1 = b1 * rows;
-  let g00 = 0, g01 = 0, g10 = 0, g11 = 0, h00 = 0, h01 = 0, h10 = 0, h11 = 0;
-  let m00 = 0, m01 = 0, m10 = 0, m11 = 0, n00 = 0, n01 = 0, n10 = 0, n11 = 0;
-  for (let t = 0; t < size; t++) {
-    const pa = phi[xa + t], pa1 = phi[xa1 + t], pb = phi[yb + t], pb1 = phi[yb1 + t];
-    const qa = psi[xa + t], qa1 = psi[xa1 + t], qb = psi[yb + t], qb1 = psi[yb1 + t];
-    g00 += pa * pb; g01 += pa * pb1; g10 += pa1 * pb; g11 += pa1 * pb1;
-    h00 += qa * qb; h01 += qa * qb1; h10 += qa1 * qb; h11 += qa1 * qb1;
-    m00 += pa * qb; m01 += pa * qb1; m10 += pa1 * qb; m11 += pa1 * qb1;
-    n00 += pb * qa; n01 += pb * qa1; n10 += pb1 * qa; n11 += pb1 * qa1;
-  }
-  const g = base, m = base + dd, h = base + 2 * dd, pairB = b1 !== b;
-  out[g + a * d + b] += g00; out[h + a * d + b] += h00; out[m + a * d + b] += m00; out[m + b * d + a] += n00;
-  if (pairB) { out[g + a * d + b1] += g01; out[h + a * d + b1] += h01; out[m + a * d + b1] += m01; out[m + b1 * d + a] += n10; }
-  if (a1 === a) return;
-  out[g + a1 * d + b] += g10; out[h + a1 * d + b] += h10; out[m + a1 * d + b] += m10; out[m + b * d + a1] += n01;
-  if (pairB) { out[g + a1 * d + b1] += g11; out[h + a1 * d + b1] += h11; out[m + a1 * d + b1] += m11; out[m + b1 * d + a1] += n11; }
-}
-
-/** out[o + i·d + j] += Σ_t x[i, t]·y[j, t] for i ∈ {a, a1}, j ∈ {b, b1} (a1 = a or b1 = b at an odd end). */
-function addPairs(
-  x: Float64Array, y: Float64Array, xa: number, xa1: number, yb: number, yb1: number, size: number,
-  out: Float64Array, o: number, a: number, a1: number, b: number, b1: number, d: number,
-): void {
-  let s00 = 0, s01 = 0, s10 = 0, s11 = 0;
-  for (let t = 0; t < size; t++) {
-    const p0 = x[xa + t], p1 = x[xa1 + t], q0 = y[yb + t], q1 = y[yb1 + t];
-    s00 += p0 * q0; s01 += p0 * q1; s10 += p1 * q0; s11 += p1 * q1;
-  }
-  out[o + a * d + b] += s00;
-  if (b1 !== b) out[o + a * d + b1] += s01;
-  if (a1 === a) return;
-  out[o + a1 * d + b] += s10;
-  if (b1 !== b) out[o + a1 * d + b1] += s11;
 }
 
 /** Φᵀr, Ψᵀr and rᵀr of the block's rows, at out[o …] = [Φᵀr | Ψᵀr | rᵀr]. */
 function addVectors(block: Block, size: number, out: Float64Array, o: number): void {
-  const { d, rows, phi, psi, reward } = block;
+  const { d, phi, psi, reward } = block;
   for (let a = 0; a < d; a++) {
     let br = 0, er = 0;
-    for (let t = 0; t < size; t++) { br += phi[a * rows + t] * reward[t]; er += psi[a * rows + t] * reward[t]; }
+    for (let t = 0; t < size; t++) { br += phi[t * d + a] * reward[t]; er += psi[t * d + a] * reward[t]; }
     out[o + a] += br;
     out[o + d + a] += er;
   }

@@ -36,9 +36,9 @@ export function pointMassMask(policy: GaussianPolicy, state: ArrayLike<number>, 
   return mask;
 }
 
-/** log ρ at one state (ds) and logged action (m); −Infinity when ρ = 0. */
+/** log ρ at one state (ds) and logged action (m); −Infinity when ρ = 0. mean: scratch of length m (logDensity). */
 export function logImportanceRatio(
-  target: GaussianPolicy, behaviour: GaussianPolicy, state: Float64Array, action: Float64Array,
+  target: GaussianPolicy, behaviour: GaussianPolicy, state: Float64Array, action: Float64Array, mean = new Float64Array(target.actionDim),
 ): number {
   const same = target === behaviour; // the present controller weighed against itself: every number below is formed once
   const targetMask = pointMassMask(target, state, action), behaviourMask = same ? targetMask : pointMassMask(behaviour, state, action);
@@ -52,6 +52,6 @@ export function logImportanceRatio(
     );
   }
   if (targetMask !== behaviourMask) return -Infinity; // π continuous where b has an atom
-  const logTarget = logDensity(target, state, action);
-  return logTarget - (same ? logTarget : logDensity(behaviour, state, action));
+  const logTarget = logDensity(target, state, action, mean);
+  return logTarget - (same ? logTarget : logDensity(behaviour, state, action, mean));
 }

@@ -43,7 +43,7 @@ export interface ImportanceWeightTable {
 export function importanceWeightTable(data: TransitionSet, index: EpisodeIndex, target: GaussianPolicy, behaviour: GaussianPolicy): ImportanceWeightTable {
   const n = data.count, ds = data.stateDim, m = data.actionDim;
   const step = new Int32Array(n), logRatio = new Float64Array(n), logWeight = new Float64Array(n), rewards = new Float64Array(n);
-  const state = new Float64Array(ds), action = new Float64Array(m);
+  const state = new Float64Array(ds), action = new Float64Array(m), mean = new Float64Array(m);
   let horizon = 0;
   for (let k = 0; k < index.episodes; k++) {
     let total = 0;
@@ -51,7 +51,7 @@ export function importanceWeightTable(data: TransitionSet, index: EpisodeIndex, 
       const i = index.order[p];
       for (let c = 0; c < ds; c++) state[c] = data.states[i * ds + c];
       for (let c = 0; c < m; c++) action[c] = data.actions[i * m + c];
-      logRatio[p] = logImportanceRatio(target, behaviour, state, action);
+      logRatio[p] = logImportanceRatio(target, behaviour, state, action, mean);
       total += logRatio[p];
       logWeight[p] = total;
       step[p] = p - index.offsets[k];
