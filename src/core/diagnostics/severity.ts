@@ -33,7 +33,7 @@
 
 import { DEFAULT_START_COVERAGE } from './startCoverage';
 import { effectiveRunsNumber, effectiveRunsText } from '../offPolicy/effectiveRunsText';
-import { shareText } from '../shareText';
+import { sharesText } from '../shareText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -156,10 +156,12 @@ export function actionSupportRuleText(): string {
 export function actionSupportFinding(meanOutside: number, neighbours: number, loggedMeanOutside: number | null): SeverityFinding | null {
   const severity = severityAbove(meanOutside, ACTION_SUPPORT_LIMITS);
   if (!severity) return null;
-  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${shareText(loggedMeanOutside)})`;
+  // The candidate's share and the present controller's are compared in one sentence: one precision (sharesText).
+  const [mean, logged] = sharesText([meanOutside, loggedMeanOutside]);
+  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${logged})`;
   return {
     severity, topic: 'actionSupport',
-    message: `On average ${shareText(meanOutside)} of the candidate’s action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
+    message: `On average ${mean} of the candidate’s action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
       'there Q is extrapolated to actions the logs do not hold.',
   };
 }
