@@ -40,7 +40,7 @@ describe('the colour bar’s ticks', () => {
     expect(drawnHeight).toBeLessThan(height);
     expect(bar.drawnTicks).not.toBeNull();
     // The same ticks colourBarTicks gives for the drawn height: nice ticks (Heckbert 1990) for the bar's target count.
-    const scale = createColourScale(syntheticSpec('surface', 'light').props.surface.values);
+    const scale = createColourScale((syntheticSpec('surface', 'light').props as { surface: { values: Float64Array } }).surface.values);
     expect(bar.drawnTicks!.values).toEqual(colourBarTicks(scale, drawnHeight, look).values);
   });
 });

@@ -33,7 +33,7 @@
 
 import { DEFAULT_START_COVERAGE } from './startCoverage';
 import { effectiveRunsNumber, effectiveRunsText } from '../offPolicy/effectiveRunsText';
-import { sharesText } from '../shareText';
+import { shareText, sharesText } from '../shareText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -90,7 +90,8 @@ const fixed = (v: number, digits: number): string => (Math.abs(v) >= 1e4 ? Math.
  * effective runs of the importance weights ("1 of 12" in the table, not "1.0 of 12" in the warning).
  */
 const threeDigits = (v: number): string => String(Number(v.toPrecision(3)));
-const percent = (share: number): string => `${fixed(100 * share, share < 0.1 ? 1 : 0)} %`;
+/** A threshold share, by the one share writer (core/shareText.ts): exact, so "10 %" beside "1 %", never "1.0 %". */
+const percent = shareText;
 
 /** The rule in words, for the method section, glossary and help. */
 export function occupancyShiftRuleText(): string {
