@@ -81,7 +81,12 @@ describe.each(CASES)('issue 11 leftovers on $id (e2e)', (c) => {
     await drawn(page);
     for (const id of SECTIONS) {
       const section = page.locator(`[data-section="${id}"]`);
-      if (await section.count()) await section.screenshot({ path: join(SHOTS, `${SET}-${c.id}-${id}.png`), style: UNSTICK });
+      if (!(await section.count())) continue;
+      // A chart redrawn when the intervals arrive is blank for a moment: wait for this section's own figures.
+      await section.scrollIntoViewIfNeeded();
+      await page.waitForFunction((s) => [...document.querySelectorAll(`[data-section="${s}"] figure[data-chart-state]`)].every((f) => f.getAttribute('data-chart-state') === 'drawn'), id, { timeout: 30_000 }).catch(() => undefined);
+      await page.waitForTimeout(500);
+      await section.screenshot({ path: join(SHOTS, `${SET}-${c.id}-${id}.png`), style: UNSTICK });
     }
     const svgs: string[] = [];
     for (const [kind, format] of [['comparison', 'png'], ['comparison', 'svg'], ['surface', 'png'], ['slice', 'svg']] as const) {
