@@ -1,22 +1,23 @@
 /** The readable table of a retune map for the terminal: J, its interval and the support of every point, the best supported point marked. */
 import type { RetuneMapResult } from '../pipeline/retuneMaps';
-import { significant, textTable } from './textTable';
+import { textTable } from './textTable';
+import { tuningValueTexts } from '../figures/parts/tickFormat';
 import { atDecimals, intervalText, ratioText, rowDecimals } from './uncertainNumberText';
 
-/** A grid coordinate (a gain, an integral time): five significant digits, no exponent. */
-const number = (v: number | null): string => significant(v, 5, false);
+/** A point's grid coordinates (a gain, an integral time) as the map's axes label them (figures/parts/tickFormat.ts tuningValueTexts), with the terminal's ASCII minus. */
+const coordinatesText = (map: RetuneMapResult, coordinates: readonly number[]): string[] => tuningValueTexts(map.axes, coordinates).map((t) => t.replace(/\u2212/g, '-'));
 const SUPPORT = { null: 'supported', caution: 'thin logs (caution)', serious: 'beyond the logs (serious)', unknown: 'unknown' } as const;
 
 export function formatRetuneMap(map: RetuneMapResult, level: number): string {
   const rows = [[...map.axes.map((a) => a.label), 'J', `${Math.round(100 * level)} % interval`, 'occupancy shift', 'support', '']];
   map.points.forEach((p, i) => rows.push([
-    ...p.coordinates.map(number), p.value === null ? `no value (${p.status})` : atDecimals(p.value, rowDecimals(p.interval)),
+    ...coordinatesText(map, p.coordinates), p.value === null ? `no value (${p.status})` : atDecimals(p.value, rowDecimals(p.interval)),
     intervalText(p.interval), ratioText(p.occupancyShift), SUPPORT[String(p.support) as keyof typeof SUPPORT],
     map.best?.index === i ? '◀ best supported' : '',
   ]));
   // the present controller's J at the best point's precision, so the two read side by side
   const bestDecimals = map.best ? rowDecimals(map.points[map.best.index].interval) : null;
-  const best = map.best ? `Best supported point: ${map.best.coordinates.map((v, a) => `${map.axes[a].label} = ${number(v)}`).join(', ')}, J ${atDecimals(map.best.value, bestDecimals)}.`
+  const best = map.best ? `Best supported point: ${coordinatesText(map, map.best.coordinates).map((t, a) => `${map.axes[a].label} = ${t}`).join(', ')}, J ${atDecimals(map.best.value, bestDecimals)}.`
     : 'No point is both converged and supported by the logs.';
   return [
     `Retune map of "${map.candidate}" (${map.points.length} points; ${map.features}):`,

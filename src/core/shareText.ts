@@ -4,11 +4,20 @@
  * "6.29 %" on screen. SHARE_DIGITS significant digits, trailing zeros dropped ("73 %", "6.29 %",
  * "0.42 %"), and no finer than SMALLEST_SHARE_SHOWN (src/core/limits.ts): a smaller share is "below
  * 0.01 %". A share of exactly 0 or 1 reads "0 %" or "100 %".
+ *
+ * Shares set side by side (one sentence, one table row: a candidate's share beside the present
+ * controller's, a mean beside its percentile and its largest) are compared digit by digit, so they
+ * share one precision (sharesText): the most decimals any of them takes alone, never finer than
+ * SMALLEST_SHARE_SHOWN's place — "6.29 %" beside "6.20 %", never beside "6.2 %". Exactly 0 or 1 and
+ * "below 0.01 %" stay as they read alone: they are exact, or a bound, not a rounded number.
  */
 import { SMALLEST_SHARE_SHOWN } from './limits';
 
 /** Significant digits of a share written as a percentage. */
 export const SHARE_DIGITS = 3;
+
+/** Decimals of SMALLEST_SHARE_SHOWN as a percentage (2 for 0.01 %): the finest place a share is written at. */
+const FINEST_DECIMALS = decimalsOf(digits(SMALLEST_SHARE_SHOWN * 100));
 
 /** "73 %" from 0.73, "6.29 %" from 0.06291, "below 0.01 %" from 5.7e−8; a dash for null or not a number. */
 export function shareText(share: number | null | undefined): string {
@@ -17,7 +26,23 @@ export function shareText(share: number | null | undefined): string {
   return `${digits(share * 100)} %`;
 }
 
+/**
+ * Shares read side by side, at one count of decimals: [0.0629, 0.062] → ["6.29 %", "6.20 %"];
+ * [0.269, 0.028] → ["26.9 %", "2.8 %"]. Each entry as shareText writes it where it is not a rounded
+ * number (a dash, "0 %", "100 %", "below 0.01 %").
+ */
+export function sharesText(shares: readonly (number | null | undefined)[]): string[] {
+  const rounded = (s: number | null | undefined): s is number => s !== null && s !== undefined && Number.isFinite(s) && s !== 0 && s !== 1 && !(s > 0 && s < SMALLEST_SHARE_SHOWN);
+  const decimals = Math.min(FINEST_DECIMALS, Math.max(0, ...shares.filter(rounded).map((s) => decimalsOf(digits(s * 100)))));
+  return shares.map((s) => (rounded(s) ? `${(s * 100).toFixed(decimals)} %` : shareText(s)));
+}
+
 /** SHARE_DIGITS significant digits, trailing zeros dropped; fixed notation, which a percentage from 0.01 up always allows (the plain style of figures/parts/uncertainNumber.ts there). */
 function digits(percent: number): string {
   return String(Number(percent.toPrecision(SHARE_DIGITS)));
+}
+
+function decimalsOf(text: string): number {
+  const point = text.indexOf('.');
+  return point < 0 ? 0 : text.length - point - 1;
 }

@@ -32,8 +32,8 @@ import type { EvaluationPlan } from './plan/evaluationPlan';
 import { cutToCertain, impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
-import { shareText } from '../core/shareText';
 import type { NetworkRunResamples } from './networkRunResamples';
+import { UNVISITED_TOPIC, unvisitedWarningMessage } from './unvisitedWords';
 
 /** The logged return's name wherever it is listed beside the candidates (shown through policyNames.ts). */
 export const BEHAVIOUR_NAME = 'logged return';
@@ -302,7 +302,7 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
     });
   }
   if (unvisited !== null && unvisited > 0.5) {
-    out.push({ severity: 'caution', topic: 'unvisited', message: `${shareText(unvisited)} of the value-surface grid has no logged state within one grid step: the surfaces are extrapolated there.` });
+    out.push({ severity: 'caution', topic: UNVISITED_TOPIC, message: unvisitedWarningMessage(unvisited) });
   }
   for (const c of candidates) {
     const { percentile: p, basic: b } = c.policyValue;

@@ -79,7 +79,7 @@ describe('exportPlotSvg', () => {
     expect(slice).not.toContain('<image');
     expect(slice).toContain('valve move (%)');
     expect(slice).toContain('cost &amp; energy');
-    expect(slice).toContain('upper limit 1.1: P = 0.1587');
+    expect(slice).toContain('upper limit 1.1: 15.9 % probability'); // 1 − Φ(1) = 0.1587 (A&S table 26.1): the share writer's 15.9 %
     expect(fit).toContain('relative weight change');
     expect(fit).toContain('value (log scale)');
     expect(bars).toContain('J, expected cost (discounted): lower is better');

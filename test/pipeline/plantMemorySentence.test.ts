@@ -1,7 +1,7 @@
 /**
  * The plant-memory sentence (app, report, CLI) must not contradict the finding: a share above the
  * caution threshold that its F test does not support raises no finding (plantMemoryFinding.ts), so
- * the sentence must not print that share as the one read beside "a caution above 5.0 %" with no caution
+ * the sentence must not print that share as the one read beside "a caution above 5 %" with no caution
  * shown. Numbers by hand.
  */
 import { describe, expect, it } from 'vitest';
@@ -22,6 +22,6 @@ describe('plant-memory sentence beside its finding', () => {
 
   it('reads the state the rule read, not a larger share that failed its F guard', () => {
     const summary: PlantMemorySummary = { rowsUsed: 60, usableRows: 60, rowsBack: 8, read: 'flow_m3h', states: [state('level_m', 0.3), state('flow_m3h', 0.07)] };
-    expect(plantMemorySentence(summary)).toMatch(/explain 7\.0 % .* in flow_m3h/);
+    expect(plantMemorySentence(summary)).toMatch(/explain 7 % .* in flow_m3h/);
   });
 });

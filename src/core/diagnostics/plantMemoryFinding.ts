@@ -31,6 +31,7 @@
  * plant whose misfit leaks into the earlier rows could reach the caution, which then says to look, not
  * that J is wrong.
  */
+import { shareText } from '../shareText';
 import type { ComponentMemory, PlantMemoryResult } from './plantMemory';
 
 /** Adjusted partial R² above which the finding is a caution, and a serious one (chosen on the battery; see above). */
@@ -92,7 +93,5 @@ function signalName(kind: 'state' | 'action', index: number, names: MemoryNames)
   return list[index] ?? `${kind} ${index + 1}`;
 }
 
-/** A share as the finding and the coverage line write it: one decimal below 10 %, none above. */
-export function memoryPercent(share: number): string {
-  return `${(100 * share).toFixed(share < 0.1 ? 1 : 0)} %`;
-}
+/** A share as the finding, the rule and the coverage line write it: by the one share writer (core/shareText.ts), so its thresholds read "5 %" beside "50 %", not "5.0 %". */
+export const memoryPercent = shareText;

@@ -33,7 +33,7 @@
 
 import { DEFAULT_START_COVERAGE } from './startCoverage';
 import { effectiveRunsNumber, effectiveRunsText } from '../offPolicy/effectiveRunsText';
-import { shareText } from '../shareText';
+import { shareText, sharesText } from '../shareText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -90,7 +90,8 @@ const fixed = (v: number, digits: number): string => (Math.abs(v) >= 1e4 ? Math.
  * effective runs of the importance weights ("1 of 12" in the table, not "1.0 of 12" in the warning).
  */
 const threeDigits = (v: number): string => String(Number(v.toPrecision(3)));
-const percent = (share: number): string => `${fixed(100 * share, share < 0.1 ? 1 : 0)} %`;
+/** A threshold share, by the one share writer (core/shareText.ts): exact, so "10 %" beside "1 %", never "1.0 %". */
+const percent = shareText;
 
 /** The rule in words, for the method section, glossary and help. */
 export function occupancyShiftRuleText(): string {
@@ -156,10 +157,12 @@ export function actionSupportRuleText(): string {
 export function actionSupportFinding(meanOutside: number, neighbours: number, loggedMeanOutside: number | null): SeverityFinding | null {
   const severity = severityAbove(meanOutside, ACTION_SUPPORT_LIMITS);
   if (!severity) return null;
-  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${shareText(loggedMeanOutside)})`;
+  // The candidate's share and the present controller's are compared in one sentence: one precision (sharesText).
+  const [mean, logged] = sharesText([meanOutside, loggedMeanOutside]);
+  const own = loggedMeanOutside === null ? '' : ` (the present controller itself: ${logged})`;
   return {
     severity, topic: 'actionSupport',
-    message: `On average ${shareText(meanOutside)} of the candidate’s action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
+    message: `On average ${mean} of the candidate’s action probability lies outside the actions logged at the ${neighbours} nearest logged states${own}: ` +
       'there Q is extrapolated to actions the logs do not hold.',
   };
 }

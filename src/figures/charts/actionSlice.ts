@@ -16,6 +16,7 @@ import type { Theme } from '../parts/plotTheme';
 import { pointMassesAtBounds, type PointMass, type SliceBounds } from '../parts/pointMasses';
 import { interpolateOnGrid } from '../parts/sliceInterpolation';
 import { formatValue } from '../parts/tickFormat';
+import { shareText } from '../../core/shareText';
 
 export const ACTION_SLICE_DEFAULTS = {
   heightPx: 380,
@@ -220,7 +221,7 @@ function boundsPlugin(bounds: SliceBounds | undefined, masses: PointMass[], look
       ctx.font = font;
       const texts = shown.map(([edge, side]) => {
         const mass = masses.find((m) => m.action === edge);
-        return `${side} limit ${formatValue(edge)}${mass ? `: P = ${formatValue(mass.probability)}` : ''}`;
+        return limitLabelText(side, edge, mass?.probability ?? null);
       });
       const boxes = limitLabelBoxes(shown.map(([edge, side], i) => ({ x: xs.getPixelForValue(edge), side, widthPx: ctx.measureText(texts[i]).width })), area, heightPx, s);
       boxes.forEach((box, i) => drawBackedText(ctx, texts[i], box, look.palette.text, look));
@@ -242,6 +243,19 @@ function checkSlice(slice: ActionSliceData): void {
   }
 }
 
+/**
+ * A limit's label on the slice: "lower limit 0: 2.58 % probability", the chance the clipped action
+ * sits there written by the one share writer (core/shareText.ts), as every share the engineer reads.
+ */
+export function limitLabelText(side: 'lower' | 'upper', edge: number, probability: number | null): string {
+  return `${side} limit ${formatValue(edge)}${probability === null ? '' : `: ${shareText(probability)} probability`}`;
+}
+
+/** "Below 0.01 %" at the start of a sentence; a number stays as it is. */
+function sentenceStart(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
+}
+
 export function actionSliceSummary(props: ActionSlicePlotProps): string {
   const { slice } = props, n = slice.actions.length;
   let best = 0, peak = 0;
@@ -250,7 +264,7 @@ export function actionSliceSummary(props: ActionSlicePlotProps): string {
     if (slice.density[i] > slice.density[peak]) peak = i;
   }
   const masses = pointMassesAtBounds(slice.nodes, slice.bounds)
-    .map((m) => ` Probability ${formatValue(m.probability)} sits on the ${m.side} bound ${formatValue(m.action)}.`).join('');
+    .map((m) => ` ${sentenceStart(shareText(m.probability))} of the action’s probability sits on the ${m.side} bound ${formatValue(m.action)}.`).join('');
   return `Q(s, a) of ${props.valueLabel} along ${props.actionLabel} from ${formatValue(slice.actions[0])} to ${formatValue(slice.actions[n - 1])} `
     + `for ${slice.policyName}; highest ${formatValue(slice.actionValues[best])} at ${formatValue(slice.actions[best])}. `
     + `The policy density peaks at ${formatValue(slice.actions[peak])}; ${slice.nodes.points.length} quadrature nodes are marked.${masses}`;

@@ -10,7 +10,7 @@ import { errorWhiskersPlugin } from '../parts/errorWhiskers';
 import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatEstimate } from '../parts/tickFormat';
-import { LOGGED_RETURN_LABEL, PRESENT_CONTROLLER } from '../parts/plotTheme';
+import { LOGGED_RETURN_LABEL, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../parts/plotTheme';
 
 export const POLICY_VALUE_DEFAULTS = {
   /** On-screen height: base plus one row per bar, CSS px. */
@@ -23,7 +23,7 @@ export const POLICY_VALUE_DEFAULTS = {
   labelRoom: 0.05,
   /** Left of a negative bar the labels share the plot area, so the axis reaches further (a choice). */
   negativeLabelRoom: 0.3,
-  title: 'Policy value per candidate',
+  title: VALUES_CHART_TITLE,
 } as const;
 
 export interface PolicyValueChartProps {

@@ -5,7 +5,7 @@
 import type { MapSupport, RetuneMapData } from './figureData';
 import { PRESENT_CONTROLLER, type Theme } from '../parts/plotTheme';
 import { plainText } from '../parts/richText';
-import { formatValue, formatValueInInterval } from '../parts/tickFormat';
+import { formatValueInInterval, tuningValueTexts } from '../parts/tickFormat';
 import { intervalAtPrecision } from '../parts/uncertainNumber';
 
 export interface RetuneMapPlotProps {
@@ -53,7 +53,7 @@ export function mapSubtitle(props: RetuneMapPlotProps, what: 'Colour' | 'Line'):
 /** The readout of point p: its coordinates, J with its interval, its support and, when not converged, its fit status. */
 export function pointReadout(props: RetuneMapPlotProps, p: number): string[] {
   const point = props.map.points[p];
-  const lines = props.map.axes.map((axis, a) => `${plainText(axis.label)}: ${formatValue(point.coordinates[a])}`);
+  const texts = tuningValueTexts(props.map.axes, point.coordinates), lines = props.map.axes.map((axis, a) => `${plainText(axis.label)}: ${texts[a]}`);
   const interval = point.interval ? ` ${intervalAtPrecision(point.interval)}` : '';
   lines.push(point.value === null ? 'J: no solution' : `J: ${formatValueInInterval(point.value, point.interval)}${interval}`, supportWords(point.support));
   if (point.status !== 'converged') lines.push(`fit: ${point.status}`);

@@ -34,16 +34,21 @@ export interface ColourBarSpec {
   readonly reference?: { readonly value: number; readonly colour: string; readonly dash: readonly number[] };
 }
 
-/** Ticks for a bar heightPx tall: between 2 and 11, about one per tickSpacingPx. */
+/** How many ticks a bar heightPx tall asks for: between 2 and 11, about one per tickSpacingPx. */
+export function colourBarTickTarget(heightPx: number, look: PlotLook): number {
+  return Math.min(11, Math.max(2, Math.round(heightPx / (COLOUR_BAR_DEFAULTS.tickSpacingPx * look.scale))));
+}
+
+/** Ticks for a bar heightPx tall (colourBarTickTarget). */
 export function colourBarTicks(scale: ColourScale, heightPx: number, look: PlotLook): TickSet {
-  const target = Math.min(11, Math.max(2, Math.round(heightPx / (COLOUR_BAR_DEFAULTS.tickSpacingPx * look.scale))));
-  return niceTicks(scale.min, scale.max, target);
+  return niceTicks(scale.min, scale.max, colourBarTickTarget(heightPx, look));
 }
 
 class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
   readonly position = 'right' as const;
   readonly weight = 10;
-  private ticks: TickSet | null = null;
+  /** The ticks last drawn, chosen from the height the bar is drawn at (read by the tests). */
+  drawnTicks: TickSet | null = null;
   private readonly raster;
 
   constructor(private readonly chart: Chart, private readonly spec: ColourBarSpec) {
@@ -55,12 +60,21 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
     return false;
   }
 
+  /**
+   * The box's width. Chart.js sizes a side box before the boxes above and below it take their
+   * height, so maxHeight is an upper bound on the height the bar is drawn at, not that height: the
+   * ticks are chosen in draw(), from the drawn height, and the width here holds the widest labels of
+   * every tick set a height up to maxHeight could ask for.
+   */
   update(_maxWidth: number, maxHeight: number): void {
     const { look } = this.spec, s = look.scale, ctx = this.chart.ctx, d = COLOUR_BAR_DEFAULTS;
-    this.ticks = colourBarTicks(this.spec.scale, maxHeight, look);
     ctx.save();
     ctx.font = fontString(look, PLOT_FONTS.tickPx);
-    const labelWidth = Math.max(...this.ticks.values.map((v) => ctx.measureText(this.tickText(v)).width), 0);
+    let labelWidth = 0;
+    for (let target = 2; target <= colourBarTickTarget(maxHeight, look); target++) {
+      const ticks = niceTicks(this.spec.scale.min, this.spec.scale.max, target);
+      for (const v of ticks.values) labelWidth = Math.max(labelWidth, ctx.measureText(tickText(ticks, v)).width);
+    }
     ctx.restore();
     this.width = (d.gapPx + d.barWidthPx + d.tickLengthPx + d.labelGapPx + d.titleGapPx) * s + labelWidth + PLOT_FONTS.axisTitlePx * s * 1.5;
     this.height = maxHeight;
@@ -69,6 +83,8 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
   draw(): void {
     const { look, scale, label } = this.spec, s = look.scale, ctx = this.chart.ctx, d = COLOUR_BAR_DEFAULTS;
     const x = this.left + d.gapPx * s, barWidth = d.barWidthPx * s, top = this.top, height = this.bottom - this.top;
+    const ticks = colourBarTicks(scale, height, look); // from the height drawn on, not the one offered before layout
+    this.drawnTicks = ticks;
     paintRaster(ctx, this.raster, { x, y: top, width: barWidth, height }, true);
     ctx.save();
     ctx.strokeStyle = look.palette.axis;
@@ -81,11 +97,11 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
     ctx.textBaseline = 'middle';
     ctx.beginPath();
     let labelRight = x + barWidth;
-    for (const v of this.ticks?.values ?? []) {
+    for (const v of ticks.values) {
       const y = top + (1 - (scale.position(v) ?? 0)) * height;
       ctx.moveTo(x + barWidth, y);
       ctx.lineTo(x + barWidth + d.tickLengthPx * s, y);
-      const textX = x + barWidth + (d.tickLengthPx + d.labelGapPx) * s, text = this.tickText(v);
+      const textX = x + barWidth + (d.tickLengthPx + d.labelGapPx) * s, text = tickText(ticks, v);
       ctx.fillText(text, textX, y);
       labelRight = Math.max(labelRight, textX + ctx.measureText(text).width);
     }
@@ -115,10 +131,10 @@ class ColourBarBox extends LayoutBoxGeometry implements LayoutItem {
     }
     ctx.restore();
   }
+}
 
-  private tickText(v: number): string {
-    return formatTick(v, this.ticks?.fractionDigits ?? 0, this.ticks?.step);
-  }
+function tickText(ticks: TickSet, v: number): string {
+  return formatTick(v, ticks.fractionDigits, ticks.step);
 }
 
 /** A per-chart plugin that adds the colour bar box while the chart lives. */

@@ -75,6 +75,12 @@ export function plotPalette(theme: Theme): PlotPalette {
  * the app, its exports and the report: the palette's reference grey, dashed, under this name.
  */
 export const PRESENT_CONTROLLER = 'present controller';
+
+/**
+ * The one title of the values chart — J of each candidate beside the baseline — wherever it is shown:
+ * the Findings panel's heading and its chart, the PNG/SVG export's default title, the report's caption.
+ */
+export const VALUES_CHART_TITLE = 'Value of each candidate, J';
 /** The discounted return the log itself earned (not a model): beside the baseline as a check, or the baseline where no model of the present controller could be fitted. */
 export const LOGGED_RETURN = 'logged return';
 /** The logged return where it is shown as the check beside the present controller. */

@@ -85,6 +85,19 @@ export function gridPointLabels(values: readonly number[]): string[] {
 }
 
 /**
+ * A tuning value (a retune map point's gain or integral time) wherever it is written — the map's
+ * readout, the app's headline, the report's caption and grid, the command line — as its grid axis
+ * labels it (gridPointLabels), so the headline's "T_i (s) = 6,000" is the axis's "6,000", never
+ * "6000" beside it. A value not on its axis (never, from a map) reads as formatValue writes it.
+ */
+export function tuningValueTexts(axes: readonly { values: readonly number[] }[], coordinates: readonly number[]): string[] {
+  return coordinates.map((v, a) => {
+    const values = axes[a]?.values ?? [], i = values.indexOf(v);
+    return i < 0 ? formatValue(v) : gridPointLabels(values)[i];
+  });
+}
+
+/**
  * A value with four significant digits, for tooltips and text summaries: fixed notation with
  * thousands separators up to LARGEST_FIXED ("1,235,000"), as the tables keep it; exponent form
  * beyond, where a double has no units digit, and below SMALLEST_FIXED.

@@ -3,6 +3,7 @@
  * longer than the logs, and logged columns that never change.
  */
 import { horizonSteps } from '../../core/limits';
+import { stepsText } from '../../core/horizonText';
 import type { Problem } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
 
@@ -15,7 +16,7 @@ export function discountProblems(discount: number, transitions: number): Problem
   if (horizon <= transitions) return [];
   return [{
     where: 'discount', field: ['discount'],
-    message: `γ = ${discount} weighs the future over about ${formatSteps(horizon)} logged steps (1/(1 − γ)), more than the ` +
+    message: `γ = ${discount} weighs the future over about ${stepsText(horizon)} logged steps (1/(1 − γ)), more than the ` +
       `${transitions.toLocaleString('en-US')} transitions the logs hold in all, so the value would be extrapolated rather than estimated; ` +
       discountAdvice(transitions),
   }];
@@ -55,8 +56,4 @@ function isConstant(values: Float64Array, n: number, width: number, column: numb
   const first = values[column];
   for (let i = 1; i < n; i++) if (values[i * width + column] !== first) return false;
   return true;
-}
-
-function formatSteps(steps: number): string {
-  return steps >= 1e6 ? steps.toExponential(2) : Math.round(steps).toLocaleString('en-US');
 }

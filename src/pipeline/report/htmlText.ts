@@ -42,7 +42,3 @@ export function formatNumber(v: number | null | undefined, digits = 6): string {
 export function formatWrittenAt(iso: string): string {
   return isoTimeText(iso, 'full');
 }
-
-export function formatPercent(share: number | null | undefined, decimals = 1): string {
-  return share === null || share === undefined || !Number.isFinite(share) ? '—' : `${(100 * share).toFixed(decimals)} %`;
-}

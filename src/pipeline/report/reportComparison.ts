@@ -1,11 +1,11 @@
 /** The comparison section: J of every policy with its intervals, paired differences and the ranking. */
 import type { Assessment, IntervalEstimate } from '../assessment';
 import { FIT_STATUS_WORDS } from '../../core/fqe/fitStatus';
-import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { formatNumber, html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
-import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
+import { LOGGED_RETURN, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../../figures/parts/plotTheme';
 import { policyLabel } from '../policyNames';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { shareText } from '../../core/shareText';
@@ -17,7 +17,7 @@ export function comparisonSection(input: ReportInput, figures: FigureCounter): H
 }
 
 function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCounter): Html {
-  const words = senseWords(input), level = formatPercent(a.settings.level, 0);
+  const words = senseWords(input), level = shareText(a.settings.level);
   const baseline = a.comparison.baseline, pc = a.presentController;
   const vsBaseline = new Map(a.comparison.differences.filter((d) => d.b === baseline.name).map((d) => [d.a, d]));
   const rows = [
@@ -38,7 +38,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
     })}
     </tbody></table>
     <figure id="fig-comparison">${raw(intervalFigure('comparison-svg', chartRows, valueAxisLabel(input, 'J'), reference))}
-      <figcaption>Figure ${figure}. J of each candidate and of the baseline (dashed line) with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} runs. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
+      <figcaption>Figure ${figure}. ${VALUES_CHART_TITLE}, beside the baseline (dashed line), with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} runs. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
     ${pairwise(a, level)}
     <h3>Ranking</h3>
     <p>By point estimate: <strong>${a.comparison.ranking.order.map(policyLabel).join(' › ')}</strong>. ${a.comparison.ranking.frequency === null

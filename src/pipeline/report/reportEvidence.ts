@@ -6,10 +6,11 @@ import { plantMemorySentence } from '../plantMemoryWords';
 import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
-import { formatNumber, formatPercent, html, raw, type Html } from './htmlText';
+import { formatNumber, html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
-import { shareText } from '../../core/shareText';
+import { shareText, sharesText } from '../../core/shareText';
+import { unvisitedSentence } from '../unvisitedWords';
 import { effectiveRunsNumber } from '../../core/offPolicy/effectiveRunsText';
 
 export function diagnosticsSection(input: ReportInput): Html {
@@ -21,7 +22,7 @@ export function diagnosticsSection(input: ReportInput): Html {
     ${diagnosticRows(a).map((row) => html`<tr><td>${row.label}</td>${row.values.map((v) => html`<td class="num">${v}</td>`)}<td class="num">${row.reference}</td></tr>`)}
     </tbody></table>
     ${cutParagraph(a)}
-    <p>Never-visited region: ${a.unvisitedShare === null ? 'no surface grid' : `${shareText(a.unvisitedShare)} of the value-surface grid has no logged state within one grid step.`}</p>
+    ${unvisitedParagraph(a)}
     ${memoryParagraph(a)}
     <h3>Warnings</h3>${warningList([...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))])}</section>`;
 }
@@ -30,6 +31,12 @@ export function diagnosticsSection(input: ReportInput): Html {
 function cutParagraph(a: Assessment): Html {
   const cut = a.candidates.filter((c) => c.rangeCut);
   return cut.length ? html`<p>Ranges marked (cut): ${cut.map((c) => `${c.name}: ${c.rangeCut}`).join(' ')}</p>` : html``;
+}
+
+/** The unvisited share, unless a warning below states it (pipeline/unvisitedWords.ts: said once). */
+function unvisitedParagraph(a: Assessment): Html {
+  const sentence = unvisitedSentence(a.unvisitedShare, a.warnings);
+  return sentence ? html`<p>${sentence}</p>` : html``;
 }
 
 function memoryParagraph(a: Assessment): Html {
@@ -49,12 +56,18 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
     row('Range to report (spans every function class’s interval; the number to carry forward where not settled)', (c) => (c.reportedRange ? `${intervalAtPrecision(c.reportedRange)}${c.rangeCut ? ' (cut)' : ''}` : '—'), ''),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
-    row('Importance weights: effective share of the one-step ratios', (c) => shareText(weights(c)?.oneStepShare), ''),
+    shareRow('Importance weights: effective share of the one-step ratios', (c) => weights(c)?.oneStepShare),
     row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return !w ? '—' : w.horizonNotNumbers ? `not a number for ${w.horizonNotNumbers} of ${w.horizonEpisodes}` : w.horizonEffectiveEpisodes >= 1 ? `${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes}` : `${w.horizonEffectiveEpisodes > 0 ? 'less than 1' : 'none'} of ${w.horizonEpisodes}`; }, ''),
-    row('Action probability outside the logged range near the state: mean', (c) => shareText(c.diagnostics.actionSupport.meanOutside), shareText(first?.actionSupport.behaviourMeanOutside)),
-    row(`… ${UPPER_PERCENTILE}th percentile over states`, (c) => shareText(c.diagnostics.actionSupport.p90Outside), ''),
-    row('… largest', (c) => shareText(c.diagnostics.actionSupport.maxOutside), ''),
+    shareRow('Action probability outside the logged range near the state: mean', (c) => c.diagnostics.actionSupport.meanOutside, first?.actionSupport.behaviourMeanOutside),
+    shareRow(`… ${UPPER_PERCENTILE}th percentile over states`, (c) => c.diagnostics.actionSupport.p90Outside),
+    shareRow('… largest', (c) => c.diagnostics.actionSupport.maxOutside),
   ];
+
+  /** A row of shares, read across (each candidate, the present controller): one precision for the row (core/shareText.ts sharesText). */
+  function shareRow(label: string, share: (c: CandidateAssessment) => number | null | undefined, reference?: number | null) {
+    const texts = sharesText([...a.candidates.map(share), reference]);
+    return { label, values: texts.slice(0, -1), reference: reference === undefined ? '' : texts[texts.length - 1] };
+  }
 }
 
 function warningList(warnings: AssessmentWarning[]): Html {
@@ -69,7 +82,7 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
   return html`<section id="cross-checks"><h2>Cross-checks by independent methods</h2>
     <p>Each method estimates the same J from the same logs under a different assumption; a large gap from fitted Q-evaluation (FQE) is flagged.</p>
     ${a.candidates.map((c) => {
-      const n = figures.next(), level = formatPercent(a.settings.level, 0);
+      const n = figures.next(), level = shareText(a.settings.level);
       const rows = [{ label: 'Fitted Q-evaluation', value: c.policyValue.value, interval: c.policyValue.percentile },
         ...c.crossChecks.filter((x) => x.estimate).map((x) => ({ label: x.label, value: x.estimate!.value, interval: x.estimate!.percentile }))];
       return html`<h3>${c.name}</h3>

@@ -2,12 +2,13 @@
 import type { Assessment } from '../assessment';
 import { summariseCandidate } from '../../project/candidateSummary';
 import { CAUTIONS } from '../cautions';
-import { html, formatNumber, formatPercent, formatWrittenAt, type Html } from './htmlText';
+import { html, formatNumber, formatWrittenAt, type Html } from './htmlText';
 import { senseWords, type ReportInput } from './reportInput';
 import { policyLabel } from '../policyNames';
 import { PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
 import { loggedLimitText } from '../../core/loggedLimitWords';
 import { shareText } from '../../core/shareText';
+import { horizonStepsText } from '../../core/horizonText';
 
 export function summarySection(input: ReportInput): Html {
   const a = input.assessment, e = input.evaluation, words = senseWords(input);
@@ -67,7 +68,7 @@ export function dataSection(input: ReportInput): Html {
   const s = input.data.summary, p = input.project;
   const unit = (name: string) => [...p.columns.states, ...p.columns.actions].find((c) => c.column === name)?.unit ?? '';
   return html`<section id="data"><h2>Data</h2>
-    <p>${s.rowCount.toLocaleString('en-US')} rows read, ${s.usedRowCount.toLocaleString('en-US')} used (${formatPercent(s.excludedFraction)} excluded);
+    <p>${s.rowCount.toLocaleString('en-US')} rows read, ${s.usedRowCount.toLocaleString('en-US')} used (${shareText(s.excludedFraction)} excluded);
       ${s.transitionCount.toLocaleString('en-US')} transitions in ${s.episodeCount.toLocaleString('en-US')} runs${s.samplingPeriodSeconds ? `, sampled every ${formatNumber(s.samplingPeriodSeconds, 4)} s` : ''}.
       The reward is ${p.columns.reward.kind === 'column' ? `column “${p.columns.reward.column}”` : `the expression ${p.columns.reward.expression}`}, read as a ${p.columns.reward.sense}.</p>
     <table><thead><tr><th>Column</th><th>Used as</th><th>Unit</th><th class="num">Min</th><th class="num">Mean</th><th class="num">Max</th><th class="num">Std dev</th></tr></thead><tbody>
@@ -80,12 +81,12 @@ export function settingsSection(input: ReportInput): Html {
   const s = input.evaluation.settings, a = input.assessment;
   return html`<section id="settings"><h2>Settings</h2>
     <table><tbody>
-      <tr><th>Discount γ per logged step</th><td>${formatNumber(s.discount)} (effective horizon ${formatNumber(1 / (1 - s.discount), 4)} steps)</td></tr>
+      <tr><th>Discount γ per logged step</th><td>${formatNumber(s.discount)} (effective horizon ${horizonStepsText(s.discount)} steps)</td></tr>
       <tr><th>Approximator</th><td>${s.approximator}</td></tr>
       <tr><th>Action quadrature</th><td>${s.quadratureNodes} Gauss–Hermite nodes per action</td></tr>
       <tr><th>Start states</th><td>${s.startStates} (${input.project.startStates.kind === 'given' ? 'given in the project' : 'the first state of each logged run'})</td></tr>
       <tr><th>Seed</th><td>${s.seed}</td></tr>
-      ${a ? html`<tr><th>Bootstrap</th><td>${a.settings.resamples} resamples of the ${a.settings.episodes} runs, level ${formatPercent(a.settings.level, 0)}, seed ${a.settings.seed}; ${a.settings.solver}</td></tr>` : ''}
+      ${a ? html`<tr><th>Bootstrap</th><td>${a.settings.resamples} resamples of the ${a.settings.episodes} runs, level ${shareText(a.settings.level)}, seed ${a.settings.seed}; ${a.settings.solver}</td></tr>` : ''}
     </tbody></table>
     ${a ? methodList(a) : html`<p><strong>Intervals, cross-checks and diagnostics were not computed:</strong> ${input.assessmentProblems.join('; ')}</p>`}</section>`;
 }

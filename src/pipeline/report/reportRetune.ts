@@ -15,6 +15,7 @@ import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
 import { escapeHtml, formatNumber, html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
+import { gridPointLabels, tuningValueTexts } from '../../figures/parts/tickFormat';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
 /** The figure's width in CSS px: the report's text column (reportStyles.ts, 980 px less padding). */
@@ -74,14 +75,14 @@ function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: n
 function mapTable(map: RetuneMapResult): Html {
   const best = map.best, bestInterval = best ? map.points[best.index]?.interval ?? null : null;
   const caption = html`<p><strong>${map.candidate}</strong> — ${best
-    ? html`best supported point ${raw(best.coordinates.map((v, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(formatNumber(v, 4))}`).join(', '))}, J ${valueAtPrecision(best.value, bestInterval)}${bestInterval ? ` ${intervalAtPrecision(bestInterval)}` : ''}`
+    ? html`best supported point ${raw(tuningValueTexts(map.axes, best.coordinates).map((text, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(text)}`).join(', '))}, J ${valueAtPrecision(best.value, bestInterval)}${bestInterval ? ` ${intervalAtPrecision(bestInterval)}` : ''}`
     : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${valueAtPrecision(map.presentController, bestInterval)}`}.</p>`;
   const notes = html`<ul class="small">${map.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"
     title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${formatNumber(p.occupancyShift, 3)}">${p.value === null ? `no value (${p.status})` : valueAtPrecision(p.value, p.interval)}<br/><span class="small">${intervalAtPrecision(p.interval)}</span></td>`;
   if (map.axes.length === 1) {
     return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">J and interval</th></tr></thead><tbody>
-      ${map.points.map((p, i) => html`<tr><td class="num">${formatNumber(p.coordinates[0], 4)}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;
+      ${map.points.map((p, i) => html`<tr><td class="num">${tuningValueTexts(map.axes, p.coordinates)[0]}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;
   }
   return html`${caption}${gridTables(map, cell)}${notes}`;
 }
@@ -94,12 +95,13 @@ function mapTable(map: RetuneMapResult): Html {
  */
 function gridTables(map: RetuneMapResult, cell: (p: RetuneMapPoint, i: number) => Html): Html[] {
   const [across, up] = map.axes, n = up.values.length, blocks = Math.ceil(across.values.length / columnsThatFit(map));
+  const acrossText = gridPointLabels(across.values), upText = gridPointLabels(up.values); // as the figure's axes label them
   const size = Math.ceil(across.values.length / blocks), rowOrder = up.values.map((_, r) => n - 1 - r);
   return Array.from({ length: blocks }, (_, b) => {
     const columns = across.values.map((_, c) => c).slice(b * size, (b + 1) * size);
     const part = blocks > 1 ? ` (columns ${columns[0] + 1}–${columns[columns.length - 1] + 1} of ${across.values.length})` : '';
-    return html`<table class="retune-grid"><thead><tr><th>${raw(axisHtml(up.label))} ↑ · ${raw(axisHtml(across.label))} →${part}</th>${columns.map((c) => html`<th class="num">${formatNumber(across.values[c], 4)}</th>`)}</tr></thead><tbody>
-    ${rowOrder.map((r) => html`<tr><th class="num">${formatNumber(up.values[r], 4)}</th>${columns.map((c) => cell(map.points[c * n + r], c * n + r))}</tr>`)}
+    return html`<table class="retune-grid"><thead><tr><th>${raw(axisHtml(up.label))} ↑ · ${raw(axisHtml(across.label))} →${part}</th>${columns.map((c) => html`<th class="num">${acrossText[c]}</th>`)}</tr></thead><tbody>
+    ${rowOrder.map((r) => html`<tr><th class="num">${upText[r]}</th>${columns.map((c) => cell(map.points[c * n + r], c * n + r))}</tr>`)}
     </tbody></table>`;
   });
 }
@@ -116,8 +118,8 @@ function textPx(text: string): number {
 function columnsThatFit(map: RetuneMapResult): number {
   const [across, up] = map.axes;
   const pieces = map.points.flatMap((p) => [p.value === null ? `no value (${p.status})`.split(' ') : [valueAtPrecision(p.value, p.interval)], intervalAtPrecision(p.interval).split(' ')].flat());
-  const cellPx = Math.max(...[...pieces, ...across.values.map((v) => formatNumber(v, 4))].map(textPx)) + CELL_EXTRA_PX;
+  const cellPx = Math.max(...[...pieces, ...gridPointLabels(across.values)].map(textPx)) + CELL_EXTRA_PX;
   const labelWords = `${up.label} ${across.label}`.split(/\s+/);
-  const rowHeaderPx = Math.max(...[...labelWords, ...up.values.map((v) => formatNumber(v, 4))].map(textPx)) + CELL_EXTRA_PX;
+  const rowHeaderPx = Math.max(...[...labelWords, ...gridPointLabels(up.values)].map(textPx)) + CELL_EXTRA_PX;
   return Math.max(1, Math.min(MOST_COLUMNS, Math.floor((TEXT_WIDTH_PX - rowHeaderPx) / cellPx)));
 }

@@ -1,6 +1,7 @@
 /** One severity rule, one text: every number a user reads comes from the constants the code applies. */
 import { plainNumber } from '../../../src/figures/parts/uncertainNumber';
 import { describe, expect, it } from 'vitest';
+import { shareText } from '../../../src/core/shareText';
 import {
   ACTION_SUPPORT_LIMITS, actionSupportFinding, actionSupportRuleText, EFFECTIVE_SHARE_LIMITS, effectiveShareFinding, effectiveShareRuleText,
   OCCUPANCY_SHIFT_LIMITS, occupancyShiftFinding, occupancyShiftRuleText, severityAbove, severityBelow,
@@ -22,7 +23,9 @@ describe('severity', () => {
     expect(occupancyShiftRuleText()).toContain(`caution above ${OCCUPANCY_SHIFT_LIMITS.caution} times that level`);
     expect(occupancyShiftRuleText()).toContain(`serious above ${OCCUPANCY_SHIFT_LIMITS.serious} times`);
     expect(effectiveShareRuleText()).toContain(`caution below ${100 * EFFECTIVE_SHARE_LIMITS.caution} %`);
-    expect(effectiveShareRuleText()).toContain(`serious below ${(100 * EFFECTIVE_SHARE_LIMITS.serious).toFixed(1)} %`);
+    // Both limits by the one share writer (core/shareText.ts): "caution below 10 %, serious below 1 %", not "1.0 %" beside "10 %".
+    expect(effectiveShareRuleText()).toContain(`caution below ${shareText(EFFECTIVE_SHARE_LIMITS.caution)}, serious below ${shareText(EFFECTIVE_SHARE_LIMITS.serious)} `);
+    expect(effectiveShareRuleText()).not.toMatch(/\d\.0 %/);
     expect(actionSupportRuleText()).toContain(`serious above ${100 * ACTION_SUPPORT_LIMITS.serious} %`);
   });
 

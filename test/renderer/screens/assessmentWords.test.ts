@@ -56,7 +56,9 @@ describe('assessment words', () => {
     expect(shift).toContain('Occupancy shift: 55.3, 61.2 at the 90th percentile over resamples (the present controller itself: 1.1), measured in the fit’s own features (15).');
     expect(shift).toContain('caution above 4 times the present controller’s own level (at least 1), serious above 10 times'); // the limits the code applies (src/core/diagnostics/severity.ts)
     expect(weights).toContain('worth 9,490 transitions (47.5 % of them)');
-    expect(support).toContain('on average 0.1 %');
+    // Four shares in one sentence at one count of decimals, the most any takes alone (0.02 %: two; core/shareText.ts sharesText).
+    expect(support).toContain('on average 0.10 % of the candidate’s action probability');
+    expect(support).toContain('0.02 % at the 90th percentile of 400 states and 20.00 % at worst (the present controller itself: 3.90 %)');
     expect(coverageSentences({ ...d, occupancyShift: null, importanceWeights: null })).toHaveLength(1);
     // Below one run (Kish's size is 0 only when every weight is 0): said in words, not "worth no run’s worth".
     const none = coverageSentences({ ...d, importanceWeights: { ...d.importanceWeights!, horizonEffectiveEpisodes: 0 } })[1];

@@ -19,7 +19,7 @@ function map(interval: [number, number] | null, best: boolean): RetuneMapResult 
 
 describe('the retune map headline', () => {
   it('writes both J at the precision of the best point’s interval', () => {
-    expect(headline(map([4.8812, 8.8794], true))).toBe('Best supported point: proportional gain K_c (%/°C) = 90, integral time T_i (s) = 6000, J 6.74 [4.88, 8.88]. Present controller: J 8.57.');
+    expect(headline(map([4.8812, 8.8794], true))).toBe('Best supported point: proportional gain K_c (%/°C) = 90, integral time T_i (s) = 6,000, J 6.74 [4.88, 8.88]. Present controller: J 8.57.');
   });
 
   it('falls back to four significant digits without an interval or a best point', () => {

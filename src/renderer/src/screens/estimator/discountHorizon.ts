@@ -4,6 +4,7 @@
  * ln 2 / −ln γ steps (its half-life). With the sampling period the import found, both read in time.
  */
 import { formatDuration, formatNumber } from '../../format/numberFormat';
+import { stepsText } from '../../../../core/horizonText';
 
 export interface DiscountHorizon {
   horizonSteps: number;
@@ -26,7 +27,7 @@ export function discountHelp(discount: number, periodSeconds: number | null): st
   const inTime = h.horizonSeconds !== null && h.halfLifeSeconds !== null
     ? ` At the ${formatNumber(periodSeconds!)} s sampling period: a horizon of about ${formatDuration(h.horizonSeconds * 1000)}; a cost ${formatDuration(h.halfLifeSeconds * 1000)} ahead counts half.`
     : ' Give the log a timestamp column to see this in time.';
-  return `Weight of a cost one logged step later. ${formatNumber(discount)} looks about ${formatNumber(h.horizonSteps, 3)} steps ahead (1/(1 − γ)); a cost ${formatNumber(h.halfLifeSteps, 3)} steps ahead counts half.${inTime}`;
+  return `Weight of a cost one logged step later. ${formatNumber(discount)} looks about ${stepsText(h.horizonSteps)} steps ahead (1/(1 − γ)); a cost ${stepsText(h.halfLifeSteps)} steps ahead counts half.${inTime}`;
 }
 
 /**
@@ -37,5 +38,5 @@ export function discountWithHorizon(discount: number, periodSeconds: number | nu
   const h = discountHorizon(discount, periodSeconds);
   if (!h) return formatNumber(discount);
   const inTime = h.horizonSeconds === null ? '' : `; about ${formatDuration(h.horizonSeconds * 1000)} at the ${formatNumber(periodSeconds!)} s sampling period`;
-  return `${formatNumber(discount)} (horizon about ${formatNumber(h.horizonSteps, 3)} steps${inTime})`;
+  return `${formatNumber(discount)} (horizon about ${stepsText(h.horizonSteps)} steps${inTime})`;
 }

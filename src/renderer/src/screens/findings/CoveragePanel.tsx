@@ -9,7 +9,7 @@ import { coverageSentences, typesetMinus, unvisitedSentence } from './assessment
 import { FoldPanel } from './FoldPanel';
 
 export function CoveragePanel({ assessment }: { assessment: Assessment }) {
-  const unvisited = unvisitedSentence(assessment.unvisitedShare), memory = plantMemorySentence(assessment.plantMemory);
+  const unvisited = unvisitedSentence(assessment.unvisitedShare, assessment.warnings), memory = plantMemorySentence(assessment.plantMemory);
   return (
     <FoldPanel section="coverage" testId="coverage" gist={coverageGist(assessment)}>
       <Warnings warnings={assessment.warnings} testId="assessment-warnings" />

@@ -8,7 +8,7 @@ import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
 import { supportWords } from '../../../../figures/charts/retuneMapText';
 import { CopyTable } from '../../components/CopyTable';
 import { RichText } from '../../components/RichText';
-import { formatNumber } from '../../format/numberFormat';
+import { gridPointLabels, tuningValueTexts } from '../../../../figures/parts/tickFormat';
 
 import { richAxisLabel } from './retuneMapWords';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
@@ -39,19 +39,20 @@ export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: 
 /** The grid as the figure draws it (and the report prints it): the first axis across, the second up, its highest value in the top row. */
 function GridTable({ map, best, testId }: { map: RetuneMapResult; best: number; testId: string }) {
   const [across, up] = map.axes, n = up.values.length, rowOrder = up.values.map((_, r) => n - 1 - r);
+  const acrossText = gridPointLabels(across.values), upText = gridPointLabels(up.values); // as the figure's axes label them
   return (
     <table data-testid={testId} className="map-table">
       <caption className="small muted">Across: <RichText text={richAxisLabel(across.label)} />; up: <RichText text={richAxisLabel(up.label)} />, as in the figure.</caption>
       <thead>
         <tr>
           <th scope="col" aria-label="row value" />
-          {across.values.map((v) => <th key={v} scope="col" className="number">{formatNumber(v)}</th>)}
+          {across.values.map((v, c) => <th key={v} scope="col" className="number">{acrossText[c]}</th>)}
         </tr>
       </thead>
       <tbody>
         {rowOrder.map((r) => (
           <tr key={up.values[r]}>
-            <th scope="row" className="number">{formatNumber(up.values[r])}</th>
+            <th scope="row" className="number">{upText[r]}</th>
             {across.values.map((c, j) => {
               const p = map.points[j * n + r];
               return <td key={c} className={cellClass(p, j * n + r === best)} title={cellTitle(p)}>{valueText(p)}{mark(p)}</td>;
@@ -72,7 +73,7 @@ function ListTable({ map, best, testId }: { map: RetuneMapResult; best: number; 
       <tbody>
         {map.points.map((p, i) => (
           <tr key={i} className={i === best ? 'map-best' : ''}>
-            <td className="number">{formatNumber(p.coordinates[0])}</td>
+            <td className="number">{tuningValueTexts(map.axes, p.coordinates)[0]}</td>
             <td className={cellClass(p, false)}>{valueText(p)}</td>
             <td className="number">{intervalAtPrecision(p.interval)}</td>
             <td>{supportWords(p.support)}{p.status === 'converged' ? '' : ` (fit ${p.status})`}</td>

@@ -10,6 +10,7 @@ import { COMPARATOR_DEGREE } from '../../../../core/fqe/comparatorDegree';
 import { FIT_STATUS_WORDS } from '../../../../core/fqe/fitStatus';
 import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessment';
 import { PolicyValueChart } from '../../plots';
+import { VALUES_CHART_TITLE } from '../../../../figures/parts/plotTheme';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import { plural, sentence } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
@@ -119,7 +120,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
         </tbody>
       </table>
       <CopyTable tableTestId="value-table" fileBase="candidate-values" />
-      <ExportPanel kind="comparison" evaluation={evaluation} defaultTitle="Value of each candidate" policy={evaluation.policies.map((p) => p.name).join(', ')}
+      <ExportPanel kind="comparison" evaluation={evaluation} defaultTitle={VALUES_CHART_TITLE} policy={evaluation.policies.map((p) => p.name).join(', ')}
         fileBase="candidate-values" makeSpec={(title) => ({ kind: 'comparison', props: { evaluation, theme, title, unit, intervals: chartIntervals } })} />
     </FoldPanel>
   );

@@ -9,11 +9,12 @@ import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../../../core/diagn
 import { intervalAtPrecision } from '../../../../figures/parts/uncertainNumber';
 import { effectiveRunsNumber, effectiveRunsText } from '../../../../core/offPolicy/effectiveRunsText';
 import { formatNumber } from '../../format/numberFormat';
-import { shareText } from '../../../../core/shareText';
+import { shareText, sharesText } from '../../../../core/shareText';
+import { unvisitedSentence } from '../../../../pipeline/unvisitedWords';
 
-/** "90 %" from 0.9. */
+/** "90 %" from 0.9: a confidence level is written by the one share writer, as the report writes it. */
 export function levelText(level: number): string {
-  return `${formatNumber(level * 100, 3)} %`;
+  return shareText(level);
 }
 
 /** A share as a percentage: the one writer every host uses (core/shareText.ts). */
@@ -69,15 +70,16 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
       + 'Few effective samples make the importance-sampling cross-checks noisy.');
   }
   const a = d.actionSupport;
-  const own = a.behaviourMeanOutside === null ? '' : ` (the present controller itself: ${shareText(a.behaviourMeanOutside)})`;
-  sentences.push(`Action probability outside the logged range: on average ${shareText(a.meanOutside)} of the candidate’s action probability falls outside the actions logged near the same state `
-    + `(${a.neighbours} nearest logged states), ${shareText(a.p90Outside)} at the ${UPPER_PERCENTILE}th percentile of ${a.queryStates} states and ${shareText(a.maxOutside)} at worst${own}. Q is extrapolated there.`);
+  // Four shares compared in one sentence: one precision (core/shareText.ts sharesText).
+  const [mean, p90, max, logged] = sharesText([a.meanOutside, a.p90Outside, a.maxOutside, a.behaviourMeanOutside]);
+  const own = a.behaviourMeanOutside === null ? '' : ` (the present controller itself: ${logged})`;
+  sentences.push(`Action probability outside the logged range: on average ${mean} of the candidate’s action probability falls outside the actions logged near the same state `
+    + `(${a.neighbours} nearest logged states), ${p90} at the ${UPPER_PERCENTILE}th percentile of ${a.queryStates} states and ${max} at worst${own}. Q is extrapolated there.`);
   return sentences;
 }
 
-export function unvisitedSentence(share: number | null): string | null {
-  return share === null ? null : `Unvisited states: ${shareText(share)} of the value-surface grid has no logged state within one grid step; values there are extrapolated.`;
-}
+/** The unvisited share in words, said once (pipeline/unvisitedWords.ts): the app and the report share it. */
+export { unvisitedSentence };
 
 const STAGE: Record<AssessRunProgress['stage'], string> = {
   preparing: 'Preparing each candidate',

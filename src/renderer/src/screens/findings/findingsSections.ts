@@ -5,6 +5,8 @@
  * coverage, sensitivity, the fitted surfaces and the convergence) starts folded, one click away in
  * the section index, so a wide screen shows the answer without a long scroll. Ours.
  */
+import { VALUES_CHART_TITLE } from '../../../../figures/parts/plotTheme';
+
 export type SectionId =
   | 'answer' | 'values' | 'comparison' | 'crossChecks' | 'coverage' | 'sensitivity'
   | 'retuneMap' | 'surface' | 'slice' | 'convergence' | 'report';
@@ -20,7 +22,7 @@ export interface FindingsSection {
 
 export const FINDINGS_SECTIONS: readonly FindingsSection[] = [
   { id: 'answer', short: 'Answer', title: 'Which candidate to trial', defaultOpen: true },
-  { id: 'values', short: 'Values', title: 'Value of each candidate, J', defaultOpen: true },
+  { id: 'values', short: 'Values', title: VALUES_CHART_TITLE, defaultOpen: true },
   { id: 'retuneMap', short: 'Retune map', title: 'Retune map', defaultOpen: true },
   { id: 'comparison', short: 'Paired comparison', title: 'Paired comparison', defaultOpen: false },
   { id: 'crossChecks', short: 'Cross-checks', title: 'Cross-checks by other methods', defaultOpen: false },

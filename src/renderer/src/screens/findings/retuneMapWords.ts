@@ -5,7 +5,8 @@
  */
 import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
 import type { RetuneMapProgress } from '../../../../shared/workerMessages';
-import { formatDuration, formatNumber } from '../../format/numberFormat';
+import { formatDuration } from '../../format/numberFormat';
+import { tuningValueTexts } from '../../../../figures/parts/tickFormat';
 import { subscriptMarkup } from '../../../../figures/parts/richText';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
@@ -14,7 +15,8 @@ export const richAxisLabel = subscriptMarkup;
 
 /** "proportional gain K_c (%/°C) = 90, integral time T_i (s) = 6,000" for point p. */
 export function pointText(map: RetuneMapResult, p: number): string {
-  return map.axes.map((axis, a) => `${axis.label} = ${formatNumber(map.points[p].coordinates[a])}`).join(', ');
+  const texts = tuningValueTexts(map.axes, map.points[p].coordinates); // as the map's axis labels them
+  return map.axes.map((axis, a) => `${axis.label} = ${texts[a]}`).join(', ');
 }
 
 /**
