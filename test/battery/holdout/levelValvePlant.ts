@@ -16,6 +16,8 @@ import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
 import { valveLaw } from './valveLaw';
+import { backlashLevelPlant } from './backlashLevelPlant';
+import { headerPressurePlant } from './headerPressurePlant';
 import { blendingTankPlant } from './blendingTankPlant';
 import { pipeHeaterPlant } from './pipeHeaterPlant';
 import { dryerPlant } from './dryerPlant';
@@ -74,5 +76,5 @@ export function gentleLevelValvePlant(): BatteryPlant {
 }
 
 export function holdoutPlants(): BatteryPlant[] {
-  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant(), pipeHeaterPlant(), steamDrumPlant()];
+  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant(), pipeHeaterPlant(), steamDrumPlant(), backlashLevelPlant(), headerPressurePlant()];
 }

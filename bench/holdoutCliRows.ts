@@ -1,0 +1,126 @@
+/**
+ * What a user is told on hold-out plants, read from the command line itself: for each plant and seed,
+ * the plant's log is written as a CSV (run, states, action, reward, next states) with a project file
+ * beside it, `evaluate --json` runs on it (the built CLI when it is there, bench/builtCli.ts), and each
+ * candidate's row is compared with the rollout truth over that log's own run starts (the starts the
+ * CLI's J is over), with its standard error (rolloutTruth.ts).
+ *
+ *   nice -n 10 npx tsx bench/holdoutCliRows.ts --plants a,b [--seeds 1,2,3] [--transitions 100000]
+ *     [--approximator linear|network] [--resamples N] [--out rows.json]
+ *
+ * A row is "confident and wrong" when no finding about it is serious, its verdict is settled (or
+ * only one class was fitted) and its range to report misses the truth by more than 2 of the truth's
+ * standard errors; "confident and right" when it has no serious finding, is settled and its range
+ * holds the truth (within that margin); "cautious" otherwise.
+ */
+import { spawnSync } from 'node:child_process';
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { tmpdir } from 'node:os';
+import type { BatteryPlant, StartSet } from '../test/battery/batteryPlant';
+import type { PlantDynamics } from '../test/battery/episodeLog';
+import { rolloutTruth } from '../test/battery/rolloutTruth';
+import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
+import { backlashLevelDynamics } from '../test/battery/holdout/backlashLevelPlant';
+import { headerPressureDynamics } from '../test/battery/holdout/headerPressurePlant';
+import { cliCommand } from './builtCli';
+
+/** The dynamics of the plants this bench can take the truth of (their rollouts as in nonlinearPlant.ts). */
+const DYNAMICS: Record<string, { dynamics: PlantDynamics; rolloutsPerStart: number }> = {
+  'holdout-backlash-level-g0.96': { dynamics: backlashLevelDynamics, rolloutsPerStart: 200 },
+  'holdout-header-pressure-g0.98': { dynamics: headerPressureDynamics, rolloutsPerStart: 200 },
+};
+const ROLLOUT_SEED = 31_337;
+
+function option(args: string[], name: string, fallback: string): string {
+  const i = args.indexOf(`--${name}`);
+  return i >= 0 && i + 1 < args.length ? args[i + 1] : fallback;
+}
+
+function csvOf(plant: BatteryPlant, data: ReturnType<BatteryPlant['simulate']>): string {
+  const ds = data.stateDim, m = data.actionDim;
+  const head = ['run', ...plant.stateNames, ...plant.actionNames, 'r', ...plant.stateNames.map((n) => `next_${n}`)];
+  const lines = [head.join(',')];
+  for (let i = 0; i < data.count; i++) {
+    const row = [String(data.episode[i])];
+    for (let j = 0; j < ds; j++) row.push(String(data.states[i * ds + j]));
+    for (let j = 0; j < m; j++) row.push(String(data.actions[i * m + j]));
+    row.push(String(data.rewards[i]));
+    for (let j = 0; j < ds; j++) row.push(String(data.nextStates[i * ds + j]));
+    lines.push(row.join(','));
+  }
+  return `${lines.join('\n')}\n`;
+}
+
+function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed: number): object {
+  const candidates = plant.candidates.map((c) => {
+    const spec = c.spec as { offset: number[]; gain: number[][]; std: number[]; bounds?: { lo: number[]; hi: number[]; mode: string } };
+    return { name: c.name, offset: [...spec.offset], gain: spec.gain.map((r) => [...r]), std: [...spec.std], ...(spec.bounds ? { bounds: spec.bounds } : {}) };
+  });
+  return {
+    format: 'setpoint-critic-project', version: 1, name: `${plant.name} seed ${seed}`, data: { path: csv },
+    columns: {
+      states: plant.stateNames.map((column) => ({ column })), actions: plant.actionNames.map((column) => ({ column })),
+      reward: { kind: 'column', column: 'r', sense: 'reward' },
+      nextState: { kind: 'columns', columns: plant.stateNames.map((n) => `next_${n}`) },
+      episode: { kind: 'column', column: 'run' },
+    },
+    discount: plant.discount, candidates,
+    approximator: approximator === 'network' ? { kind: 'network' } : { kind: 'linear', features: { kind: 'polynomial', degree: 2 } },
+  };
+}
+
+type Warning = { severity: 'caution' | 'serious'; topic: string; message: string; candidate?: string };
+
+async function main() {
+  const args = process.argv.slice(2);
+  const names = option(args, 'plants', Object.keys(DYNAMICS).join(',')).split(',');
+  const seeds = option(args, 'seeds', '1,2,3,4,5').split(',').map(Number);
+  const transitions = Number(option(args, 'transitions', '100000')), approximator = option(args, 'approximator', 'linear');
+  const resamples = option(args, 'resamples', ''), out = option(args, 'out', '');
+  const work = join(tmpdir(), `holdout-cli-${process.pid}`);
+  mkdirSync(work, { recursive: true });
+  const rows: object[] = [];
+  const plants = holdoutPlants().filter((p) => names.includes(p.name));
+  console.log(['plant', 'approx', 'seed', 'candidate', 'truth', 'truthSE', 'J', 'err%', 'interval', 'range', 'holds', 'miss/SE', 'settled', 'status', 'most severe', 'exit', 'class', 'seconds'].join('\t'));
+  for (const plant of plants) for (const seed of seeds) {
+    const data = plant.simulate({ transitions, seed }), csv = `${plant.name}-s${seed}.csv`;
+    writeFileSync(join(work, csv), csvOf(plant, data));
+    const projectPath = join(work, `${plant.name}-s${seed}-${approximator}.spcritic`);
+    writeFileSync(projectPath, JSON.stringify(projectOf(plant, csv, approximator, seed), null, 2));
+    const cli = cliCommand('evaluate', projectPath, '--json', ...(resamples ? ['--resamples', resamples] : []));
+    const started = Date.now();
+    const run = spawnSync(process.execPath, cli.args, { encoding: 'utf8', maxBuffer: 1 << 30 });
+    const seconds = (Date.now() - started) / 1000;
+    if (run.status !== 0 && run.status !== 3) { console.log(`${plant.name}\t${approximator}\t${seed}\tFAILED exit ${run.status}: ${run.stderr.slice(0, 400)}`); continue; }
+    const json = JSON.parse(run.stdout);
+    const starts: StartSet = { name: 'runStarts', description: 'the log’s own run starts', states: data.startStates, count: data.episodeCount };
+    const { dynamics, rolloutsPerStart } = DYNAMICS[plant.name];
+    for (const c of json.assessment.candidates) {
+      const spec = plant.candidates.find((k) => k.name === c.name)!.spec;
+      const truth = rolloutTruth(dynamics, spec, plant.discount, starts, { rolloutsPerStart, seed: ROLLOUT_SEED });
+      const j: number = c.policyValue.value, interval: [number, number] | null = c.policyValue.basic ?? c.policyValue.percentile;
+      const range: [number, number] | null = c.reportedRange;
+      const margin = 2 * truth.standardError;
+      const miss = range ? Math.max(range[0] - truth.value, truth.value - range[1], 0) : NaN;
+      const holds = range ? miss <= margin : false;
+      const warnings: Warning[] = [...c.warnings, ...json.assessment.warnings.filter((w: Warning) => !w.candidate || w.candidate === c.name)];
+      const serious = warnings.filter((w) => w.severity === 'serious'), cautions = warnings.filter((w) => w.severity === 'caution');
+      const most = serious.length ? `serious: ${serious.map((w) => w.topic).join('; ')}` : cautions.length ? `caution: ${cautions.map((w) => w.topic).join('; ')}` : 'none';
+      const status = json.policies.find((p: { name: string }) => p.name === c.name)?.status ?? '?';
+      const settled = c.settled !== false;
+      const kind = !serious.length && settled ? (holds ? 'confident & right' : 'confident & wrong') : holds ? 'cautious & right' : 'cautious & wrong';
+      const err = 100 * (j - truth.value) / Math.abs(truth.value);
+      const fmt = (r: [number, number] | null) => (r ? `${r[0].toFixed(3)}..${r[1].toFixed(3)}` : '-');
+      console.log([plant.name, approximator, seed, c.name, truth.value.toFixed(4), truth.standardError.toFixed(4), j.toFixed(4), err.toFixed(2), fmt(interval), fmt(range), holds,
+        range ? (miss / truth.standardError).toFixed(1) : '-', c.settled, status, most, run.status, kind, seconds.toFixed(0)].join('\t'));
+      rows.push({ plant: plant.name, approximator, seed, candidate: c.name, truth, j, err, interval, range, holds, settled: c.settled, status, warnings, confirmation: c.confirmation, exit: run.status, kind, seconds,
+        functionClasses: c.functionClasses?.reason ?? null, crossChecks: c.crossChecks.map((x: { label: string; agreement: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, value: x.estimate?.value ?? null })) });
+    }
+    const present = json.assessment.presentController;
+    if (present) console.log(`#\tpresent controller J ${present.policyValue.value.toFixed(4)} interval ${JSON.stringify(present.policyValue.basic)}; global warnings: ${json.assessment.warnings.map((w: Warning) => `${w.severity}:${w.topic}`).join('; ')}`);
+    if (out) writeFileSync(out, JSON.stringify(rows, null, 1));
+  }
+  console.log(`# CLI: ${cliCommand().which}; ${transitions} transitions; resamples ${resamples || 'the CLI default'}`);
+}
+main();
