@@ -11,8 +11,11 @@
  * Options: --seeds 20  --transitions 100000  --plants name,name  --candidates all|first
  *          --run-starts steady|wide|both (where the logged runs start: test/battery/startSets.ts)
  *          --settings '{"outerIterations": 60}'  --method '{"lastLayer": "gradient"}'  --cpu
+ *          --out file (records, rewritten after every log; default test-artifacts/battery-<time>.json)
  *          --fit-seed-offset k (fit with seed s + k on the data of seed s: the training's own randomness)
  *          --holdout (the hold-out plants of test/battery/holdout/ instead of the battery's six)
+ *          --skip-default-choice (fit only the logs whose degree choice, networkDegreeChoice.ts, is not the
+ *          default: with '{"linearPartDegree":"choose"}' and without, to pair; bench/batteryChoiceMerge.ts)
  * Seeds: the data of seed s is simulated with seed s and the network is fitted with seed s (+ k).
  * Run it under `nice`; it takes about a minute of CPU per fit.
  */
@@ -20,6 +23,8 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
+import { chooseLinearPartDegree, type DegreeChoice } from '../src/core/fqe/networkDegreeChoice';
+import { defaultNetworkMethod } from '../src/core/fqe/networkMethod';
 import { COMPARATOR_DEGREE } from '../src/core/fqe/comparatorDegree';
 import { NetworkDivergedError } from '../src/core/fqe/networkErrors';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
@@ -45,10 +50,20 @@ interface Options {
   fitSeedOffset: number;
   /** Run the hold-out plants (test/battery/holdout/) instead of the battery: they check choices made on the battery. */
   holdout: boolean;
+  /**
+   * Fit only the logs where the degree choice (networkDegreeChoice.ts) is not the default, with the
+   * method given. With `linearPartDegree: 'choose'` a log where the default is chosen gets exactly
+   * the default fit (same data, seed and method), so its paired change is 0 by construction: it is
+   * listed in `choseDefault` instead (bench/batteryChoiceMerge.ts can take its records from a default
+   * sweep). With the default method it gives the degree-2 fits to pair with those logs' chosen fits.
+   */
+  skipDefaultChoice: boolean;
+  /** Records file; written after every log, so a sweep stopped part-way keeps what it measured. Default test-artifacts/battery-<time>.json. */
+  out: string | null;
 }
 
 function parseOptions(args: string[]): Options {
-  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto', runStarts: ['steady'], fitSeedOffset: 0, holdout: false };
+  const o: Options = { seeds: 20, transitions: 100_000, plants: null, candidates: 'all', settings: {}, method: {}, backend: 'auto', runStarts: ['steady'], fitSeedOffset: 0, holdout: false, skipDefaultChoice: false, out: null };
   for (let i = 0; i < args.length; i++) {
     const value = () => args[++i];
     if (args[i] === '--seeds') o.seeds = Number(value());
@@ -61,6 +76,8 @@ function parseOptions(args: string[]): Options {
     else if (args[i] === '--run-starts') o.runStarts = runStartsOption(value());
     else if (args[i] === '--fit-seed-offset') o.fitSeedOffset = Number(value());
     else if (args[i] === '--holdout') o.holdout = true;
+    else if (args[i] === '--skip-default-choice') o.skipDefaultChoice = true;
+    else if (args[i] === '--out') o.out = value();
     else throw new Error(`battery bench: unknown option ${args[i]}`);
   }
   return o;
@@ -99,11 +116,20 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, runS
         status: fit.status, iterations: fit.history.length, seconds: fit.work.seconds, cpuSeconds: (cpu.user + cpu.system) / 1e6,
         ...(index === 0 ? { secondsToWithin3: secondsToWithin(fit, truth0, 0.03) } : {}),
         adamSteps: fit.work.adamSteps, stepSeconds: fit.work.stepSeconds, flop: fit.work.flop, backend: fit.backend,
+        ...(fit.degreeChoice ? { degreeChoice: degreeChoiceRecord(fit.degreeChoice) } : {}),
       };
     });
   } finally {
     fit.dispose();
   }
+}
+
+/** The degree choice's numbers as the records keep them (networkDegreeChoice.ts). */
+function degreeChoiceRecord(c: DegreeChoice): NonNullable<FitRecord['degreeChoice']> {
+  return {
+    chosen: c.chosen, degrees: [...c.degrees], relativeError: [...c.relativeError], difference: c.difference, standardError: c.standardError,
+    runsScored: c.runsScored, notCompared: c.notCompared,
+  };
 }
 
 /** Set-up plus loop time at the first iterate after which every iterate's J stays within `share` of the truth; null if none. */
@@ -123,10 +149,25 @@ export async function runBatteryBench(args: string[]): Promise<void> {
   if (plants.length === 0) throw new Error(`battery bench: no plant matches ${o.plants?.join(', ')}; have ${all.map((p) => p.name).join(', ')}`);
   console.log(`battery sweep: ${plants.length} plants, ${o.seeds} seeds, ${o.transitions.toLocaleString('en-US')} transitions, settings ${JSON.stringify(o.settings)}, method ${JSON.stringify(o.method)}`);
   const records: FitRecord[] = [], failed: { plant: string; candidate: string; seed: number; runStarts: string; message: string }[] = [];
+  const choseDefault: { plant: string; candidate: string; seed: number; runStarts: string; degreeChoice: NonNullable<FitRecord['degreeChoice']> }[] = [];
+  const folder = fileURLToPath(new URL('../test-artifacts/', import.meta.url));
+  mkdirSync(folder, { recursive: true });
+  const file = o.out ?? `${folder}battery-${new Date().toISOString().replace(/[:.]/g, '-')}.json`;
+  const save = () => writeFileSync(file, JSON.stringify({ options: o, records, failed, choseDefault }, null, 1));
   for (const plant of plants) {
     const candidates = o.candidates === 'first' ? [0] : plant.candidates.map((_, i) => i);
     for (const candidate of candidates) {
       for (const runStarts of o.runStarts) for (let seed = 1; seed <= o.seeds; seed++) {
+        if (o.skipDefaultChoice) {
+          const data = plant.simulate({ transitions: o.transitions, seed, runStarts });
+          const choice = chooseLinearPartDegree({ data, discount: plant.discount, seed: seed + o.fitSeedOffset });
+          if (choice.chosen === defaultNetworkMethod.linearPartDegree) {
+            choseDefault.push({ plant: plant.name, candidate: plant.candidates[candidate].name, seed, runStarts, degreeChoice: degreeChoiceRecord(choice) });
+            console.log(`  ${plant.name} ${plant.candidates[candidate].name} seed ${seed} (runs logged ${runStarts}): degree ${choice.chosen} chosen, the default fit (not refitted)`);
+            save();
+            continue;
+          }
+        }
         let fitted: FitRecord[];
         try {
           fitted = await fitOne(plant, candidate, seed, runStarts, o);
@@ -135,21 +176,21 @@ export async function runBatteryBench(args: string[]): Promise<void> {
           if (!(error instanceof NetworkDivergedError)) throw error;
           failed.push({ plant: plant.name, candidate: plant.candidates[candidate].name, seed, runStarts, message: error.message });
           console.log(`  ${plant.name} ${plant.candidates[candidate].name} seed ${seed} (runs logged ${runStarts}): NO VALUE — ${error.message}`);
+          save();
           continue;
         }
         records.push(...fitted);
+        save();
         const f = fitted[0], err = (x: number) => `${(100 * (x - f.truth.value) / Math.abs(f.truth.value)).toFixed(2)} %`;
-        console.log(`  ${plant.name} ${f.candidate} seed ${seed}: network ${err(f.network.value)}, linear ${err(f.linear.value)} (${f.startSet}; runs logged ${runStarts}), ${f.status} after ${f.iterations}, ${f.seconds.toFixed(1)} s`);
+        const degree = f.degreeChoice ? `, degree ${f.degreeChoice.chosen} chosen` : '';
+        console.log(`  ${plant.name} ${f.candidate} seed ${seed}: network ${err(f.network.value)}, linear ${err(f.linear.value)} (${f.startSet}; runs logged ${runStarts}), ${f.status} after ${f.iterations}, ${f.seconds.toFixed(1)} s${degree}`);
       }
     }
   }
   printBatteryTable(records, COMPARATOR_DEGREE);
   if (failed.length > 0) console.log(`\n${failed.length} fit${failed.length === 1 ? '' : 's'} stopped with no value (not in the table above): ${failed.map((f) => `${f.plant} ${f.candidate} seed ${f.seed} (${f.runStarts})`).join('; ')}`);
   printAllowanceTable(records);
-  const folder = fileURLToPath(new URL('../test-artifacts/', import.meta.url));
-  mkdirSync(folder, { recursive: true });
-  const file = `${folder}battery-${new Date().toISOString().replace(/[:.]/g, '-')}.json`;
-  writeFileSync(file, JSON.stringify({ options: o, records, failed }, null, 1));
+  save();
   console.log(`\nrecords written to ${file}`);
 }
 

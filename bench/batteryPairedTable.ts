@@ -6,7 +6,7 @@
  * coverage of the 90 % interval without → with the class-error allowance (batteryAllowanceTable.ts);
  * how many seeds the agreement rule marked "disagree"; the converged share; median CPU seconds per fit;
  * confident and wrong: the interval as a user reads it (with the allowance) missing the truth with no
- * "disagree" mark. Δ|err|: mean over seeds of |err variant| − |err base| ± its standard error
+ * "disagree" mark; with the per-project degree choice (networkDegreeChoice.ts), how many seeds chose degree 4. Δ|err|: mean over seeds of |err variant| − |err base| ± its standard error
  * (sample standard deviation / √seeds); a row is "worse" when Δ|err| > 2 standard errors above 0
  * (the pre-stated rule of test/battery/README.md). Only seeds present in both files are paired.
  */
@@ -31,7 +31,8 @@ function summary(rs: FitRecord[]): string {
   const before = rs.filter((r) => holds(allowancePair(r).before, r.truth.value)).length, after = rs.filter((r) => holds(allowancePair(r).after, r.truth.value)).length;
   const disagree = rs.filter((r) => r.agreement === 'disagree').length, converged = rs.filter((r) => r.status === 'converged').length;
   const wrong = rs.filter(confidentWrong).length;
-  return `${mean.toFixed(2).padStart(6)} / ${largest.toFixed(2).padStart(5)} | ${before}→${after} | ${disagree} | ${converged}/${n} | ${median(rs.map((r) => r.cpuSeconds)).toFixed(1).padStart(5)} | ${wrong}`;
+  const chosen = rs.some((r) => r.degreeChoice) ? ` | degree 4 chosen ${rs.filter((r) => r.degreeChoice?.chosen === 4).length}/${n}` : '';
+  return `${mean.toFixed(2).padStart(6)} / ${largest.toFixed(2).padStart(5)} | ${before}→${after} | ${disagree} | ${converged}/${n} | ${median(rs.map((r) => r.cpuSeconds)).toFixed(1).padStart(5)} | ${wrong}${chosen}`;
 }
 
 export function printPairedTable(baseFile: string, variantFile: string): void {

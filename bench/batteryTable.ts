@@ -31,6 +31,10 @@ export interface FitRecord {
   /** The network/linear agreement verdict the app shows (approximatorAgreement.ts); absent in older records. */
   agreement?: 'agree' | 'inconclusive' | 'disagree';
   status: string;
+  /** The per-project choice of the polynomial part's degree (networkDegreeChoice.ts), when the method asked for it. */
+  degreeChoice?: {
+    chosen: number; degrees: number[]; relativeError: number[]; difference: number | null; standardError: number | null; runsScored: number; notCompared: string | null;
+  };
   iterations: number;
   seconds: number;
   cpuSeconds: number;

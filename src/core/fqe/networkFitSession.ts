@@ -19,7 +19,7 @@ import { splitEpisodes } from './networkEpisodeSplit';
 import { linearPartSums, type LastLayerSums, type LinearPartTensors } from './networkLastLayerSums';
 import { createComparator, type Comparator } from './networkComparator';
 import { createLinearPart, type LinearPart } from './networkLinearPart';
-import type { NetworkMethod } from './networkMethod';
+import type { SettledNetworkMethod } from './networkMethod';
 import { createMinibatchStream, type MinibatchStream } from './networkMinibatches';
 import { runStartEmphasis } from './networkRunEmphasis';
 import { createNextInputs, type NextInputs } from './networkNextInputs';
@@ -66,7 +66,7 @@ export interface FitSession {
    */
   readonly valueLimit: number;
   readonly discount: number;
-  readonly method: NetworkMethod;
+  readonly method: SettledNetworkMethod;
   /** The ridge on the polynomial part's terms above degree 2 (networkHigherTermRidge.ts), for every solve of the joint last layer. */
   readonly higherTermRidge: HigherTermRidge;
   dispose(): void;
@@ -79,7 +79,7 @@ export interface SessionInput {
   readonly quadratureNodes: number;
   readonly seed: number;
   readonly settings: NetworkFqeSettings;
-  readonly method: NetworkMethod;
+  readonly method: SettledNetworkMethod;
 }
 
 /** Rows of the probe set (a choice: enough to see a change anywhere in the logged cloud, cheap to evaluate). */

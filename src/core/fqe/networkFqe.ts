@@ -35,7 +35,8 @@ import { checkNetworkFqeInput } from './networkFqeInput';
 import { runOuterIterations } from './networkIterations';
 import { COMPARATOR_DEGREE } from './comparatorDegree';
 import { solveLastLayer } from './networkLastLayer';
-import { defaultNetworkMethod, type NetworkMethod } from './networkMethod';
+import { defaultNetworkMethod, type NetworkMethod, type SettledNetworkMethod } from './networkMethod';
+import { chooseLinearPartDegree, type DegreeChoice } from './networkDegreeChoice';
 import { finishNetworkFit } from './networkFitResult';
 import type { NetworkValueEstimate, EstimateOptions } from './networkValueEstimate';
 import type { NetworkFqeSettings } from './networkSettings';
@@ -99,6 +100,8 @@ export interface NetworkFit {
   readonly members: number;
   /** Time, Adam steps and FLOPs of the fit (networkWork.ts). */
   readonly work: NetworkWork;
+  /** How the polynomial part's degree was chosen from the log (networkDegreeChoice.ts), with its numbers; absent unless linearPartDegree is 'choose'. */
+  readonly degreeChoice?: DegreeChoice;
   /** J over startStates (count×ds) with its interval, the linear estimate (networkComparator.ts) and their paired difference. */
   estimate(startStates: Float64Array, options?: EstimateOptions): NetworkValueEstimate;
   /** Frees the network's tensors; actionValue.evaluate and estimate throw afterwards. */
@@ -125,7 +128,9 @@ export interface NetworkFqeInput {
 
 export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit> {
   checkNetworkFqeInput(input);
-  const method = { ...defaultNetworkMethod, ...input.method };
+  const asked: NetworkMethod = { ...defaultNetworkMethod, ...input.method };
+  const degreeChoice = asked.linearPartDegree === 'choose' ? chooseLinearPartDegree({ data: input.data, discount: input.discount, seed: input.seed }) : undefined;
+  const method: SettledNetworkMethod = { ...asked, linearPartDegree: degreeChoice?.chosen ?? (asked.linearPartDegree as number) };
   const selection = await selectBackend(input.settings.backend, input.wasmPath);
   const fits: NetworkFit[] = [];
   try {
@@ -138,11 +143,12 @@ export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit>
     fits.forEach((f) => f.dispose());
     throw error;
   }
-  return fits.length === 1 ? fits[0] : combineMembers(fits);
+  const fit = fits.length === 1 ? fits[0] : combineMembers(fits);
+  return degreeChoice ? Object.assign(fit, { degreeChoice }) : fit;
 }
 
 /** One member: the linear start, the outer iterations and the kept network. */
-async function fitMember(input: NetworkFqeInput, method: NetworkMethod, selection: BackendSelection, place: { member: number; members: number }): Promise<NetworkFit> {
+async function fitMember(input: NetworkFqeInput, method: SettledNetworkMethod, selection: BackendSelection, place: { member: number; members: number }): Promise<NetworkFit> {
   const started = performance.now();
   const session = createFitSession({ ...input, method });
   try {

@@ -56,8 +56,14 @@ export interface NetworkMethod {
    * runs logged both ways: the pendulum's wide starts went from +4.1 / +3.9 % to −0.0 / −0.7 %
    * (mean), but the clipped greenhouse got worse on three rows beyond the scatter (wide starts up to
    * 6.5 and 7.1 %, three intervals missing the truth unmarked; degree 2: 5.4 %, always marked). So 2.
+   * 'choose': per project, from the log alone, between 2 and 4 by how well each predicts the present
+   * controller's held-out returns (networkDegreeChoice.ts); measured in test/battery/README.md ("A
+   * per-project choice of the polynomial part's degree"): it kept 2 on every linear-quadratic log and
+   * on 18 of 20 greenhouse logs, took 4 on 15 of 20 pendulum logs and fixed the pendulum's wide starts
+   * there, but on one greenhouse log (runs logged steady, seed 9) it took 4 and the wide starts became
+   * confident and wrong (+6.2 %, interval missing the truth, "inconclusive"); so not the default.
    */
-  readonly linearPartDegree: number;
+  readonly linearPartDegree: number | 'choose';
   /**
    * λ_p of networkHigherTermRidge.ts: a ridge on the polynomial part's terms above degree 2 only,
    * relative to each term's second moment, shrinking a part of degree > 2 toward the quadratic one.
@@ -80,7 +86,10 @@ export interface NetworkMethod {
   readonly cancellationLimit: number;
 }
 
-export const defaultNetworkMethod: Readonly<NetworkMethod> = Object.freeze({
+/** The method a fit runs with: the polynomial part's degree settled (networkDegreeChoice.ts when 'choose'). */
+export type SettledNetworkMethod = NetworkMethod & { readonly linearPartDegree: number };
+
+export const defaultNetworkMethod: Readonly<SettledNetworkMethod> = Object.freeze({
   lastLayer: 'leastSquares',
   hiddenRidge: 1e-2,
   hiddenNodes: 5,

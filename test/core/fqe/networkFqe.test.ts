@@ -176,6 +176,18 @@ describe('fitNetworkFqe values', () => {
     quadratic.dispose();
     quartic.dispose();
   });
+
+  it('with linearPartDegree \'choose\' carries the choice (networkDegreeChoice.ts), and where it keeps degree 2 the fit is the default one to the bit', async () => {
+    const plain = await fitNetworkFqe(input({ outerIterations: 2 }));
+    const chosen = await fitNetworkFqe(input({ outerIterations: 2 }, { method: { linearPartDegree: 'choose' } }));
+    expect(plain.degreeChoice).toBeUndefined();
+    expect(chosen.degreeChoice?.chosen).toBe(2);
+    expect(chosen.degreeChoice?.sentence).toMatch(/^Polynomial part of degree 2/);
+    expect(chosen.linearStart.features.dim).toBe(10);
+    expect(chosen.estimate(data.startStates, { resamples: 20 }).value).toBe(plain.estimate(data.startStates, { resamples: 20 }).value);
+    plain.dispose();
+    chosen.dispose();
+  });
 });
 
 describe('fitNetworkFqe with several members (networkMembers.ts)', () => {
