@@ -31,7 +31,7 @@ const ASSUMPTIONS: Record<CrossCheckMethod, { label: string; assumption: string 
     assumption: 'The plant’s next state and the reward are polynomials of the state and action with Gaussian noise, as fitted to the logs by least squares ' +
       '(and, where runs end in an end state, the chance of that end a logistic function of the same terms); ' +
       `the candidate is simulated on that model from up to ${ROLLOUT_STARTS} start states. Shares no fit with Q, so it can see an error in it; it extrapolates ` +
-      'where the simulated states leave the logged range, and says how often they do.',
+      'where the simulated states leave the logged range, and says how often they do and how much of its value comes from there.',
   },
   linearQuadraticModel: {
     label: 'Linear-quadratic model (closed form)',
@@ -106,8 +106,9 @@ function rolloutCrossCheck(inputs: CrossCheckInputs): CrossCheck {
   // A fit without resamples is held at its full-data value in those replicates (assessRollouts.ts), so they hold the model's spread only: unpaired.
   const paired = inputs.fitStandardError === null;
   const standardError = paired ? ownError : unpairedStandardError(ownError, inputs.fitStandardError!);
-  const verdict = crossCheckVerdict({ label, difference: r.difference, differenceStandardError: standardError, fqe, paired, shareOutsideLogs: r.shareOutsideLogs });
-  return { method, label, assumption, estimate, difference, agreement: verdict.agreement, note: verdict.note };
+  const verdict = crossCheckVerdict({ label, difference: r.difference, differenceStandardError: standardError, fqe, paired, shareOutsideLogs: r.shareOutsideLogs, rewardShareAtEdge: r.rewardShareAtEdge });
+  return { method, label, assumption, estimate, difference, agreement: verdict.agreement, note: verdict.note,
+    edge: { stepShare: r.shareOutsideLogs, rewardShare: r.rewardShareAtEdge } };
 }
 
 function notApplicable(method: CrossCheckMethod, reason: string | null): CrossCheck {

@@ -35,7 +35,8 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
       `is shown as a check, cut short where runs end on a time limit, and completed there by the fitted value γ^T·V̂(s_T). Limits: ${loggedLimitRuleText()} (our rule).`,
     `Cross-checks are informative only when they could see an error of ${pct(a.detectableGap)} of J (three paired standard errors within it), with an effective size of at least ` +
       `max(${a.minEffectiveEpisodes}, ${pct(a.minEffectiveShare)} of the runs) for the importance weights, at most ${pct(a.maxTailWeight)} of the discount weight past the runs’ ends, ` +
-      `and at most ${pct(a.maxShareOutsideLogs)} of simulated steps at the edge of the logged states for the model rollouts; an informative check disagrees when the paired ` +
+      `and for the model rollouts at most ${pct(a.maxShareOutsideLogs)} of simulated steps at the edge of the logged states, and at most ${pct(a.maxRewardShareAtEdge)} of the model’s ` +
+      `discounted rewards (in size) from states held there — half the ${pct(a.detectableGap)} the check must see, since an extrapolated part may be wrong by its whole size; an informative check disagrees when the paired ` +
       `difference exceeds ${a.standardErrors} standard errors and ${pct(a.relative)} of J (our rule). A network’s fit is not paired with the checks (its resamples re-solve only the last layer, and its interval carries bounds of unknown sign): ` +
       'there the difference’s standard error is the check’s plus the fit’s own, a bound that holds whatever their correlation. When no check is informative, the estimate is reported as unconfirmed; ' +
       'so it is where the function classes disagree and only checks resting on a plant model fitted to the same logs (rollouts, the linear-quadratic closed form) agree.',

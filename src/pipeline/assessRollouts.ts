@@ -40,6 +40,8 @@ export interface RolloutCheck {
   readonly differenceReplicates: number[];
   /** Discounted share of simulated steps held at the edge of the logged states. */
   readonly shareOutsideLogs: number;
+  /** Share of the model's discounted |reward| collected in states held at that edge. */
+  readonly rewardShareAtEdge: number;
   /** Monte Carlo standard error of the full-data value (the resamples reuse the random numbers, so it is not in their spread). */
   readonly monteCarloError: number;
   readonly starts: number;
@@ -101,7 +103,7 @@ export function rolloutCheck(context: AssessmentContext, work: CandidateWork, si
     const j = work.replicate?.value(c) ?? fqe;
     if (j !== null) differenceReplicates.push(m - fqeOnStarts - (j - fqe));
   });
-  return { value: full.value, difference: full.value - fqeOnStarts, differenceReplicates, shareOutsideLogs: full.shareOutsideLogs, monteCarloError: full.monteCarloError,
+  return { value: full.value, difference: full.value - fqeOnStarts, differenceReplicates, shareOutsideLogs: full.shareOutsideLogs, rewardShareAtEdge: full.rewardShareAtEdge, monteCarloError: full.monteCarloError,
     starts: starts.count, rolloutsPerStart: rolloutSettings(context, starts.count).rolloutsPerStart };
 }
 

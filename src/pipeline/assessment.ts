@@ -38,6 +38,8 @@ export interface CrossCheck {
   agreement: Agreement;
   /** Why it is not applicable or uninformative, or how it compares. */
   note: string;
+  /** Model rollouts: the discounted shares of simulated steps, and of the model's |reward|, at the edge of the logged states (crossCheckVerdict.ts). */
+  edge?: { stepShare: number; rewardShare: number };
 }
 
 export type Severity = 'caution' | 'serious';

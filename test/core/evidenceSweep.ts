@@ -39,7 +39,7 @@ function print(title: string, rows: Row[], discount: number): void {
     const m = run.model, tailWeight = discount ** 100;
     const weights = { effectiveEpisodes: run.effectiveEpisodes, episodesReaching: run.episodesAtHorizon, horizonSteps: run.horizonSteps, tailWeight };
     const err = `(${(100 * (run.fqe.point / truth - 1)).toFixed(1)} %)`.padEnd(9);
-    const model = m ? `${withSe(m.point, m.replicates)} ${(100 * m.shareOutsideLogs).toFixed(1).padStart(5)} %  ${verdictOf('model', m, run.fqe, { shareOutsideLogs: m.shareOutsideLogs }).padEnd(7)}` : '';
+    const model = m ? `${withSe(m.point, m.replicates)} ${(100 * m.shareOutsideLogs).toFixed(1).padStart(5)} %  ${verdictOf('model', m, run.fqe, { shareOutsideLogs: m.shareOutsideLogs, rewardShareAtEdge: m.rewardShareAtEdge }).padEnd(7)}` : '';
     console.log(`${name.padEnd(24)} ${fmt(truth)}${truthSe ? `±${truthSe.toPrecision(1)}` : '       '} ${withSe(run.fqe.point, run.fqe.replicates)}${err} ${withSe(run.importanceSampling.point, run.importanceSampling.replicates)} ` +
       `${withSe(run.doublyRobust.point, run.doublyRobust.replicates)} ${run.effectiveEpisodes.toFixed(1).padStart(6)}    ${verdictOf('IS', run.importanceSampling, run.fqe, { weights }).padEnd(7)} ` +
       `${verdictOf('DR', run.doublyRobust, run.fqe, { weights }).padEnd(7)} ${model} ${(Math.abs(run.fqe.point - truth) / standardDeviation(run.fqe.replicates)).toFixed(1).padStart(5)}`);

@@ -10,7 +10,14 @@
  *     little — and the bootstrapped tail past the episodes' ends carries at most maxTailWeight (half)
  *     of the discount weight, γ^H ≤ ½, since the tail is FQE's own value;
  *   - model rollouts: at most maxShareOutsideLogs (5 %) of the discounted simulated steps reach the
- *     edge of the logged state range (modelRollouts.ts), beyond which the fitted model extrapolates.
+ *     edge of the logged state range (modelRollouts.ts), beyond which the fitted model extrapolates;
+ *     and at most maxRewardShareAtEdge of the model's discounted |reward| is collected in states held
+ *     at that edge. An extrapolated part of the value may be wrong by its whole size, so for the
+ *     check to see a gap of detectableGap (10 %) of J, what it cannot vouch for must stay below half
+ *     of it: maxRewardShareAtEdge = detectableGap / 2 (5 %). The step count alone misses a model
+ *     that runs away to states far costlier than any logged: on the backlash level hold-out, 5.0 %
+ *     of the steps were held and carried most of the model's cost, and a right estimate read
+ *     "contradicted" (test/battery/README.md).
  * A check that passes those disagrees when its difference from FQE exceeds 3 standard errors of the
  * paired difference and 2 % of |J| (both needed: significance and size). Otherwise it agrees only if
  * it could have seen a gap of detectableGap (10 %) of |J| — 3 standard errors of the paired
@@ -30,9 +37,13 @@
  */
 import { effectiveRunsText } from './effectiveRunsText';
 
+const DETECTABLE_GAP = 0.1;
+
 export const CROSS_CHECK_RULE = {
-  standardErrors: 3, relative: 0.02, detectableGap: 0.1,
+  standardErrors: 3, relative: 0.02, detectableGap: DETECTABLE_GAP,
   minEffectiveEpisodes: 10, minEffectiveShare: 0.1, maxTailWeight: 0.5, maxShareOutsideLogs: 0.05,
+  /** Half the gap the check must see: an extrapolated part of the value may be wrong by its whole size. */
+  maxRewardShareAtEdge: DETECTABLE_GAP / 2,
 } as const;
 
 export type CheckAgreement = 'agrees' | 'disagrees' | 'uninformative';
@@ -48,6 +59,8 @@ export interface CrossCheckEvidence {
   readonly weights?: { readonly effectiveEpisodes: number; readonly episodesReaching: number; readonly horizonSteps: number; readonly tailWeight: number; readonly notNumbers?: number };
   /** Model rollouts: the discounted share of simulated steps at the logged-range edge. */
   readonly shareOutsideLogs?: number;
+  /** Model rollouts: the share of the model's discounted |reward| collected in states held at that edge. */
+  readonly rewardShareAtEdge?: number;
 }
 
 export interface CheckVerdict {
@@ -98,7 +111,15 @@ function weakness(e: CrossCheckEvidence): string | null {
   if (e.shareOutsideLogs !== undefined && e.shareOutsideLogs > r.maxShareOutsideLogs) {
     return `${(100 * e.shareOutsideLogs).toFixed(0)} % of the simulated (discounted) steps reach the edge of the logged states, where the fitted model extrapolates`;
   }
+  if (e.rewardShareAtEdge !== undefined && e.rewardShareAtEdge > r.maxRewardShareAtEdge) return rewardAtEdgeText(e.rewardShareAtEdge);
   return null;
+}
+
+/** The words for a value resting on held states, from the same constants the rule applies. */
+export function rewardAtEdgeText(share: number): string {
+  const r = CROSS_CHECK_RULE;
+  return `${(100 * share).toFixed(0)} % of the model’s value (its discounted rewards, in size) comes from simulated states held at the edge of the logged states, ` +
+    `where the fitted model extrapolates and may be wrong by the whole of that part; at most ${100 * r.maxRewardShareAtEdge} % may, half the ${100 * r.detectableGap} % error the check must see`;
 }
 
 export type Confirmation = 'confirmed' | 'contradicted' | 'unconfirmed';

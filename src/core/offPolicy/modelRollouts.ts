@@ -8,9 +8,12 @@
  * reward stream's weight.
  *
  * Leaving the logs: a fitted polynomial extrapolates without limit, so each simulated state is held
- * to the logged range widened by RANGE_MARGIN of its width on each side, and the discounted share of
- * steps at which that box was reached is returned: above a few percent the estimate rests on
- * extrapolated dynamics and cannot confirm anything.
+ * to the logged range widened by RANGE_MARGIN of its width on each side, and two shares are returned:
+ * of the discounted steps at which that box was reached, and of the model's discounted |reward|
+ * collected in held states (a reward r̂(s_t, a_t) whose s_t was held at the box),
+ *   h = Σ_s c_s Σ_r Σ_t γ^t |r̂_t| [s_t held] / Σ_s c_s Σ_r Σ_t γ^t |r̂_t|,
+ * the part of Ĵ that rests on extrapolated dynamics. A few held steps can carry most of the value
+ * where the model runs away to states far costlier than any logged (crossCheckVerdict.ts).
  *
  * Runs that end: with an end-chance model (endChanceModel.ts) a rollout ends after step t with
  * probability P(end | s_t, a_t), drawn after the step's noise, and pays nothing more (V = 0 in the end
@@ -49,6 +52,8 @@ export interface RolloutValue {
   readonly steps: number; // L
   /** Σ_t γ^t [state held at the range box] / Σ_t γ^t over the steps simulated (to the end where a run ends), averaged over rollouts. */
   readonly shareOutsideLogs: number;
+  /** Σ γ^t |r̂_t| over the rewards collected in held states / Σ γ^t |r̂_t|, summed over starts (weighted) and rollouts; 0 when no reward is collected. */
+  readonly rewardShareAtEdge: number;
 }
 
 /**
@@ -66,14 +71,16 @@ export function modelRolloutValue(
   const steps = Math.ceil(Math.log(TAIL_WEIGHT) / Math.log(discount));
   if (ends && ends.features !== model.regressions.rewardFeatures) throw new ModelValueError('model rollouts: the end chance must be fitted on the reward’s features');
   const sim = simulator(model, policy, discount, steps, ends ?? null, streams);
-  let total = 0, weightSum = 0, variance = 0, outside = 0;
+  let total = 0, weightSum = 0, variance = 0, outside = 0, heldMagnitude = 0, magnitude = 0;
   for (let s = 0; s < e; s++) {
     const c = weights ? weights[s] : 1;
     if (c === 0) continue;
     let sum = 0, squares = 0;
     for (let r = 0; r < rolls; r++) {
-      const { value, held } = sim(startStates, s * ds, settings.seed + s * rolls + r);
+      const { value, held, size, heldSize } = sim(startStates, s * ds, settings.seed + s * rolls + r);
       sum += value;
+      magnitude += c * size;
+      heldMagnitude += c * heldSize;
       squares += value * value;
       outside += (c * held) / rolls;
     }
@@ -83,11 +90,13 @@ export function modelRolloutValue(
     variance += (c * c * Math.max(0, squares - rolls * mean * mean)) / (rolls - 1) / rolls;
   }
   if (!(weightSum > 0)) throw new ModelValueError('model rollouts: no start state has a positive weight');
-  return { value: total / weightSum, monteCarloError: Math.sqrt(variance) / weightSum, steps, shareOutsideLogs: outside / weightSum };
+  return { value: total / weightSum, monteCarloError: Math.sqrt(variance) / weightSum, steps, shareOutsideLogs: outside / weightSum,
+    rewardShareAtEdge: magnitude > 0 ? heldMagnitude / magnitude : 0 };
 }
 
 /**
- * One rollout from a start: its discounted reward sum and its discounted share of held steps.
+ * One rollout from a start: its discounted reward sum, its discounted share of held steps, and its
+ * discounted |reward| in all (size) and in held states (heldSize; the start state is never held).
  * Where the reward's monomials lead the dynamics' (a lower degree on the same standardised inputs),
  * ψ is the leading part of φ, evaluated once: the same products, so the same numbers.
  */
@@ -98,10 +107,10 @@ function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: 
   const high = reg.stateHigh.map((v, c) => v + RANGE_MARGIN * (v - reg.stateLow[c]));
   const input = new Float64Array(ds + m), action = new Float64Array(m), phi = new Float64Array(d), z = new Float64Array(ds);
   const leading = leadsPolynomial(reg.rewardFeatures, reg.dynamicsFeatures), psi = leading ? phi.subarray(0, dr) : new Float64Array(dr);
-  return (starts: Float64Array, offset: number, seed: number): { value: number; held: number } => {
+  return (starts: Float64Array, offset: number, seed: number): { value: number; held: number; size: number; heldSize: number } => {
     const rng = streams(seed);
     for (let c = 0; c < ds; c++) input[c] = starts[offset + c];
-    let value = 0, held = 0, power = 1, simulated = 0;
+    let value = 0, held = 0, power = 1, simulated = 0, size = 0, heldSize = 0, inHeldState = false;
     for (let t = 0; t < steps; t++, power *= discount) {
       sampleAction(policy, input, rng, action);
       input.set(action, ds);
@@ -110,6 +119,8 @@ function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: 
       let r = 0;
       for (let j = 0; j < dr; j++) r += cw[j] * psi[j];
       value += power * r;
+      size += power * Math.abs(r);
+      if (inHeldState) heldSize += power * Math.abs(r);
       if (!leading) reg.dynamicsFeatures.evaluate(input, 0, phi, 0);
       for (let c = 0; c < ds; c++) z[c] = rng.normal();
       let atBox = false;
@@ -121,10 +132,11 @@ function simulator(model: PolynomialModelFit, policy: GaussianPolicy, discount: 
         input[c] = Math.min(high[c], Math.max(low[c], next));
       }
       if (atBox) held += power;
+      inHeldState = atBox;
       simulated += power;
       if (ends && rng.uniform() < endChance(ends, psi)) break;
     }
     // Over the steps this run had (L where runs do not end): one that ended early and spent them all at the box is held throughout.
-    return { value, held: held / simulated };
+    return { value, held: held / simulated, size, heldSize };
   };
 }

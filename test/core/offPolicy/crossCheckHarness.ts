@@ -28,7 +28,7 @@ export interface CrossCheckRun {
   importanceSampling: Estimate; doublyRobust: Estimate; // with tails
   importanceSamplingNoTail: Estimate; doublyRobustNoTail: Estimate;
   effectiveEpisodes: number; horizonSteps: number; episodesAtHorizon: number;
-  model: (Estimate & { shareOutsideLogs: number; monteCarloError: number }) | null;
+  model: (Estimate & { shareOutsideLogs: number; rewardShareAtEdge: number; monteCarloError: number }) | null;
 }
 
 export interface CrossCheckOptions {
@@ -91,7 +91,7 @@ function modelRun(o: CrossCheckOptions, draws: Uint32Array[]) {
   const { regressions, rolloutsPerStart } = o.model!, settings = { rolloutsPerStart, seed: o.seed + 1 };
   const full = modelRolloutValue(fitPolynomialModel(regressions), o.policy, o.discount, o.data.startStates, settings);
   return {
-    point: full.value, shareOutsideLogs: full.shareOutsideLogs, monteCarloError: full.monteCarloError,
+    point: full.value, shareOutsideLogs: full.shareOutsideLogs, rewardShareAtEdge: full.rewardShareAtEdge, monteCarloError: full.monteCarloError,
     replicates: draws.map((c) => modelRolloutValue(fitPolynomialModel(regressions, c), o.policy, o.discount, o.data.startStates, settings, c).value),
   };
 }

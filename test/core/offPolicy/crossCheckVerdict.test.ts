@@ -57,6 +57,19 @@ describe('crossCheckVerdict', () => {
     expect(crossCheckVerdict({ ...base, shareOutsideLogs: 0.05 }).agreement).toBe('agrees');
     expect(crossCheckVerdict({ ...base, shareOutsideLogs: 0.06 }).agreement).toBe('uninformative');
   });
+
+  // An extrapolated part may be wrong by its whole size: to see a 10 % gap, at most half of it may rest there (crossCheckVerdict.ts).
+  it('is uninformative when more than half the gap it must see comes from states held at the edge, and says so from the same constants', () => {
+    expect(CROSS_CHECK_RULE.maxRewardShareAtEdge).toBe(CROSS_CHECK_RULE.detectableGap / 2);
+    expect(crossCheckVerdict({ ...base, rewardShareAtEdge: 0.05 }).agreement).toBe('agrees');
+    const v = crossCheckVerdict({ ...base, difference: 10, rewardShareAtEdge: 0.62 });
+    expect(v.agreement).toBe('uninformative');
+    expect(v.note).toBe('Uninformative: 62 % of the model’s value (its discounted rewards, in size) comes from simulated states held at the edge of the logged states, ' +
+      'where the fitted model extrapolates and may be wrong by the whole of that part; at most 5 % may, half the 10 % error the check must see; ' +
+      'it differs from fitted Q-evaluation by 10.0 % of J (20.0 standard errors of the paired difference).');
+    // The step rule still applies first, with its own words.
+    expect(crossCheckVerdict({ ...base, shareOutsideLogs: 0.06, rewardShareAtEdge: 0.62 }).note).toMatch(/6 % of the simulated \(discounted\) steps reach the edge/);
+  });
 });
 
 describe('confirmationOf', () => {
