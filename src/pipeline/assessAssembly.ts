@@ -33,6 +33,7 @@ import { cutToCertain, impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
 import type { NetworkRunResamples } from './networkRunResamples';
+import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
 import { UNVISITED_TOPIC, unvisitedWarningMessage } from './unvisitedWords';
 
 /** The logged return's name wherever it is listed beside the candidates (shown through policyNames.ts). */
@@ -241,8 +242,11 @@ function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
  */
 export function comparison(plan: EvaluationPlan, replicates: ReplicateSet, works: CandidateWork[], baseline: CandidateWork | null, level: number): Comparison {
   const sign = plan.sign;
+  // A present controller whose fit did not converge has no value to compare with, as a candidate's has not:
+  // no difference from it gets an interval (so none can name a trial), and the note says why.
+  const settled = baseline?.model.fit.status === 'converged';
   const reference: Estimator = baseline && replicates.presentController
-    ? estimatorOf(baseline, replicates.presentController)
+    ? (settled ? estimatorOf(baseline, replicates.presentController) : { name: baseline.model.name, point: baseline.model.fit.policyValue, replicates: [] })
     : { name: BEHAVIOUR_NAME, point: plan.loggedReturn.value, replicates: replicates.loggedReturn };
   const candidates: Estimator[] = works.flatMap((w, j) => (w.model.fit.status !== 'converged' ? [] : [estimatorOf(w, replicates.candidates[j])]));
   const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, reference, level, sign));
@@ -250,7 +254,9 @@ export function comparison(plan: EvaluationPlan, replicates: ReplicateSet, works
     for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));
   }
   const kind = baseline ? 'presentController' as const : 'loggedReturn' as const;
-  const note = baseline
+  const note = baseline && !settled
+    ? `The present controller’s model ${FIT_STATUS_WORDS[baseline.model.fit.status]} (its fit did not converge), so no difference from it has an interval and no candidate can be named for a trial against it.`
+    : baseline
     ? 'Each candidate is compared with the present controller’s model, evaluated by the same fitted Q-evaluation on the same resamples; the logged return is shown as a check.'
     : 'No model of the present controller could be fitted, so the logged return stands in as the baseline: it is cut short where runs end on a time limit, which biases it toward zero.';
   return { baseline: { name: reference.name, kind, note }, differences, ranking: ranking([...candidates, reference]) };
