@@ -148,8 +148,14 @@ export function notSettledMessage(classes: FunctionClassAssessment, cut: string 
     : `Not settled across function classes: ${reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.${after}`;
 }
 
-/** The candidate in every function class with an interval, and the verdict across them; null with fewer than two, unless others were fitted and did not converge. */
-function classAssessment(work: CandidateWork, r: CandidateReplicates, level: number, sign: number): FunctionClassAssessment | null {
+/**
+ * The candidate in every function class with an interval, and the verdict across them; null with fewer
+ * than two, unless others were fitted and did not converge. A network's own class is not among them
+ * (no replicates here; withUnresampledOwn adds it), so one linear class beside it already makes two:
+ * without the verdict the agreement rule's "inconclusive" went unsaid and the network stood unchecked.
+ * Exported for its test.
+ */
+export function classAssessment(work: CandidateWork, r: CandidateReplicates, level: number, sign: number): FunctionClassAssessment | null {
   const estimates: ClassEstimate[] = [];
   work.classes.forEach((c, k) => {
     const iv = intervalEstimate(c.model.fit.policyValue, r.classes[k], level, 1);
@@ -157,7 +163,7 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
     const replicates = r.classes[k].every((v) => v !== null) ? (r.classes[k] as number[]) : undefined;
     estimates.push({ label: c.label, value: c.model.fit.policyValue, standardError: iv.standardError, interval: iv.percentile, replicates });
   });
-  if (estimates.length === 0 || (estimates.length < 2 && work.unconvergedClasses.length === 0)) return null;
+  if (estimates.length === 0 || (estimates.length < (work.replicate ? 2 : 1) && work.unconvergedClasses.length === 0)) return null;
   // The project's own class leads the list when it was resampled; a network's own value has none here
   // (withUnresampledOwn adds it), and the linear classes are then checked among themselves only.
   const ownFirst = estimates[0]?.label === work.classes[0].label && work.replicate !== null;
@@ -217,7 +223,15 @@ export function withUnresampledOwn(classes: FunctionClassAssessment | null, work
     };
   }
   if (agreement?.verdict === 'inconclusive') return { ...widened, settled: false, reason: `Not settled: ${agreement.message}` };
+  // One linear class beside the network: the verdict's "one function class only" is not so here; the agreement rule checked the network.
+  if (agreement && classes.classes.length === 1 && classes.settled) {
+    return { ...widened, reason: `Settled: ${agreement.message}`, coverage: oneClassBesideNetwork(classes.classes[0].label) };
+  }
   return widened;
+}
+
+function oneClassBesideNetwork(label: string): string {
+  return `Covers the sampling of runs, the network’s own interval and the ${label} fit beside it; a bias they share would not show.`;
 }
 
 /** The range at its own precision, as the tables beside the warning print it ("[5.62, 9.55]", not "[5.624, 9.549]"); ASCII minus, as the command line keeps. */
