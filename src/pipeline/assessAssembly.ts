@@ -178,11 +178,15 @@ export function classAssessment(work: CandidateWork, r: CandidateReplicates, lev
 /**
  * A network's J has no linear bootstrap replicates; its own interval stands in: the one on the
  * assessment's resamples at the assessment's level (networkRunResamples.ts), else the fit's own.
+ * On the assessment's resamples it counts them as a linear fit's are, so resamples whose last layer
+ * had no solution raise the same caution (failedWarning). Exported for its test.
  */
-function withNetworkInterval(estimate: IntervalEstimate, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): IntervalEstimate {
+export function withNetworkInterval(estimate: IntervalEstimate, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): IntervalEstimate {
   const iv = net?.interval ?? work.model.fit.interval, interval = networkInterval(work, sign, net);
   if (estimate.percentile || !iv || !interval) return estimate;
-  return { ...estimate, percentile: interval, standardError: iv.standardError, covers: (net ? net.covers : work.model.fit.intervalCovers) ?? estimate.covers };
+  const solved = net ? net.replicates.filter((v) => v !== null).length : estimate.replicates;
+  const counts = net ? { replicates: solved, failedReplicates: net.replicates.length - solved } : {};
+  return { ...estimate, ...counts, percentile: interval, standardError: iv.standardError, covers: (net ? net.covers : work.model.fit.intervalCovers) ?? estimate.covers };
 }
 
 /** A network fit's interval of J in the project's sense (on the assessment's resamples where given); null for a fit without one. */
