@@ -163,7 +163,8 @@ export function classAssessment(work: CandidateWork, r: CandidateReplicates, lev
     const replicates = r.classes[k].every((v) => v !== null) ? (r.classes[k] as number[]) : undefined;
     estimates.push({ label: c.label, value: c.model.fit.policyValue, standardError: iv.standardError, interval: iv.percentile, replicates });
   });
-  if (estimates.length === 0 || (estimates.length < (work.replicate ? 2 : 1) && work.unconvergedClasses.length === 0)) return null;
+  const beside = work.model.fit.linearComparison !== undefined && !work.replicate; // a network: its own class is checked by the agreement rule
+  if (estimates.length === 0 || (estimates.length < (beside ? 1 : 2) && work.unconvergedClasses.length === 0)) return null;
   // The project's own class leads the list when it was resampled; a network's own value has none here
   // (withUnresampledOwn adds it), and the linear classes are then checked among themselves only.
   const ownFirst = estimates[0]?.label === work.classes[0].label && work.replicate !== null;

@@ -80,3 +80,14 @@ describe('a network project with one linear class fitted beside it (the others t
     expect(v.reason + v.coverage).not.toMatch(/one function class only|no other function class/i);
   });
 });
+
+describe('a linear fit without resamples of its own (it did not converge) and one other class', () => {
+  it('has no verdict, as before: one class beside it checks nothing and no agreement rule reads it', () => {
+    const w = {
+      replicate: null, unconvergedClasses: [], model: { fit: { policyValue: 30 } },
+      classes: [{ label: 'polynomial, degree 2', model: { fit: { policyValue: 30 } } }, { label: 'polynomial, degree 3', model: { fit: { policyValue: 30 } } }],
+    } as unknown as CandidateWork;
+    const replicates = { fqe: [], classes: [[], Array.from({ length: 41 }, (_, b) => 30 + 0.08 * (b - 20))] } as unknown as CandidateReplicates;
+    expect(classAssessment(w, replicates, 0.9, 1)).toBeNull();
+  });
+});
