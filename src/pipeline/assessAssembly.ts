@@ -33,6 +33,7 @@ import { cutToCertain, impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
 import type { NetworkRunResamples } from './networkRunResamples';
+import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
 import { UNVISITED_TOPIC, unvisitedWarningMessage } from './unvisitedWords';
 
 /** The logged return's name wherever it is listed beside the candidates (shown through policyNames.ts). */
@@ -147,8 +148,14 @@ export function notSettledMessage(classes: FunctionClassAssessment, cut: string 
     : `Not settled across function classes: ${reason} Its interval ${range} covers the sampling of runs only, not the error of the class: treat J as unchecked.${after}`;
 }
 
-/** The candidate in every function class with an interval, and the verdict across them; null with fewer than two, unless others were fitted and did not converge. */
-function classAssessment(work: CandidateWork, r: CandidateReplicates, level: number, sign: number): FunctionClassAssessment | null {
+/**
+ * The candidate in every function class with an interval, and the verdict across them; null with fewer
+ * than two, unless others were fitted and did not converge. A network's own class is not among them
+ * (no replicates here; withUnresampledOwn adds it), so one linear class beside it already makes two:
+ * without the verdict the agreement rule's "inconclusive" went unsaid and the network stood unchecked.
+ * Exported for its test.
+ */
+export function classAssessment(work: CandidateWork, r: CandidateReplicates, level: number, sign: number): FunctionClassAssessment | null {
   const estimates: ClassEstimate[] = [];
   work.classes.forEach((c, k) => {
     const iv = intervalEstimate(c.model.fit.policyValue, r.classes[k], level, 1);
@@ -156,7 +163,8 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
     const replicates = r.classes[k].every((v) => v !== null) ? (r.classes[k] as number[]) : undefined;
     estimates.push({ label: c.label, value: c.model.fit.policyValue, standardError: iv.standardError, interval: iv.percentile, replicates });
   });
-  if (estimates.length === 0 || (estimates.length < 2 && work.unconvergedClasses.length === 0)) return null;
+  const beside = work.model.fit.linearComparison !== undefined && !work.replicate; // a network: its own class is checked by the agreement rule
+  if (estimates.length === 0 || (estimates.length < (beside ? 1 : 2) && work.unconvergedClasses.length === 0)) return null;
   // The project's own class leads the list when it was resampled; a network's own value has none here
   // (withUnresampledOwn adds it), and the linear classes are then checked among themselves only.
   const ownFirst = estimates[0]?.label === work.classes[0].label && work.replicate !== null;
@@ -171,11 +179,15 @@ function classAssessment(work: CandidateWork, r: CandidateReplicates, level: num
 /**
  * A network's J has no linear bootstrap replicates; its own interval stands in: the one on the
  * assessment's resamples at the assessment's level (networkRunResamples.ts), else the fit's own.
+ * On the assessment's resamples it counts them as a linear fit's are, so resamples whose last layer
+ * had no solution raise the same caution (failedWarning). Exported for its test.
  */
-function withNetworkInterval(estimate: IntervalEstimate, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): IntervalEstimate {
+export function withNetworkInterval(estimate: IntervalEstimate, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): IntervalEstimate {
   const iv = net?.interval ?? work.model.fit.interval, interval = networkInterval(work, sign, net);
   if (estimate.percentile || !iv || !interval) return estimate;
-  return { ...estimate, percentile: interval, standardError: iv.standardError, covers: (net ? net.covers : work.model.fit.intervalCovers) ?? estimate.covers };
+  const solved = net ? net.replicates.filter((v) => v !== null).length : estimate.replicates;
+  const counts = net ? { replicates: solved, failedReplicates: net.replicates.length - solved } : {};
+  return { ...estimate, ...counts, percentile: interval, standardError: iv.standardError, covers: (net ? net.covers : work.model.fit.intervalCovers) ?? estimate.covers };
 }
 
 /** A network fit's interval of J in the project's sense (on the assessment's resamples where given); null for a fit without one. */
@@ -216,7 +228,15 @@ export function withUnresampledOwn(classes: FunctionClassAssessment | null, work
     };
   }
   if (agreement?.verdict === 'inconclusive') return { ...widened, settled: false, reason: `Not settled: ${agreement.message}` };
+  // One linear class beside the network: the verdict's "one function class only" is not so here; the agreement rule checked the network.
+  if (agreement && classes.classes.length === 1 && classes.settled) {
+    return { ...widened, reason: `Settled: ${agreement.message}`, coverage: oneClassBesideNetwork(classes.classes[0].label) };
+  }
   return widened;
+}
+
+function oneClassBesideNetwork(label: string): string {
+  return `Covers the sampling of runs, the network’s own interval and the ${label} fit beside it; a bias they share would not show.`;
 }
 
 /** The range at its own precision, as the tables beside the warning print it ("[5.62, 9.55]", not "[5.624, 9.549]"); ASCII minus, as the command line keeps. */
@@ -241,8 +261,11 @@ function failedWarning(estimate: IntervalEstimate): AssessmentWarning[] {
  */
 export function comparison(plan: EvaluationPlan, replicates: ReplicateSet, works: CandidateWork[], baseline: CandidateWork | null, level: number): Comparison {
   const sign = plan.sign;
+  // A present controller whose fit did not converge has no value to compare with, as a candidate's has not:
+  // no difference from it gets an interval (so none can name a trial), and the note says why.
+  const settled = baseline?.model.fit.status === 'converged';
   const reference: Estimator = baseline && replicates.presentController
-    ? estimatorOf(baseline, replicates.presentController)
+    ? (settled ? estimatorOf(baseline, replicates.presentController) : { name: baseline.model.name, point: baseline.model.fit.policyValue, replicates: [] })
     : { name: BEHAVIOUR_NAME, point: plan.loggedReturn.value, replicates: replicates.loggedReturn };
   const candidates: Estimator[] = works.flatMap((w, j) => (w.model.fit.status !== 'converged' ? [] : [estimatorOf(w, replicates.candidates[j])]));
   const differences: PairedDifference[] = candidates.map((c) => pairedDifference(c, reference, level, sign));
@@ -250,7 +273,9 @@ export function comparison(plan: EvaluationPlan, replicates: ReplicateSet, works
     for (let j = i + 1; j < candidates.length; j++) differences.push(pairedDifference(candidates[i], candidates[j], level, sign));
   }
   const kind = baseline ? 'presentController' as const : 'loggedReturn' as const;
-  const note = baseline
+  const note = baseline && !settled
+    ? `The present controller’s model ${FIT_STATUS_WORDS[baseline.model.fit.status]} (its fit did not converge), so no difference from it has an interval and no candidate can be named for a trial against it.`
+    : baseline
     ? 'Each candidate is compared with the present controller’s model, evaluated by the same fitted Q-evaluation on the same resamples; the logged return is shown as a check.'
     : 'No model of the present controller could be fitted, so the logged return stands in as the baseline: it is cut short where runs end on a time limit, which biases it toward zero.';
   return { baseline: { name: reference.name, kind, note }, differences, ranking: ranking([...candidates, reference]) };

@@ -22,9 +22,12 @@ export function intervalEstimate(point: number, replicates: Replicates, level: n
   return { value: sign * point, standardError: iv.standardError, percentile: flip(iv.percentile), basic: flip(iv.basic), replicates: values.length, failedReplicates, covers };
 }
 
-/** a_b − b_b on the resamples where both have a value. */
+/** a_b − b_b on the resamples where both have a value (one side with fewer replicates — none, for a fit that was not resampled — has none past its end). */
 export function pairedReplicates(a: Replicates, b: Replicates): Replicates {
-  return a.map((v, i) => (v === null || b[i] === null ? null : v - (b[i] as number)));
+  return a.map((v, i) => {
+    const w = b[i];
+    return v === null || w === null || w === undefined ? null : v - w;
+  });
 }
 
 export interface Estimator {
@@ -73,7 +76,7 @@ export function ranking(estimators: Estimator[]): Ranking {
   let usable = 0;
   for (let b = 0; b < resamples; b++) {
     const values = order.map((e) => e.replicates[b]);
-    if (values.some((v) => v === null)) continue;
+    if (values.some((v) => v === null || v === undefined)) continue; // an estimate not resampled has no replicate b
     usable++;
     let holds = true;
     for (let i = 0; i + 1 < values.length; i++) {

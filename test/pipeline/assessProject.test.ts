@@ -167,7 +167,9 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
       a.candidates.forEach((c, i) => {
         // No bootstrap refits of the network: its interval is the run resamples of its last-layer solve (networkInterval.ts),
         // drawn as the assessment draws the runs and at its level (networkRunResamples.ts); a cost, so the ends are negated.
-        expect(c.policyValue).toMatchObject({ value: evaluation.value.policies[i].policyValue, replicates: 0 });
+        // Its resamples are counted as a linear fit's are (used + failed = the assessment's resamples), so failedWarning reads them.
+        expect(c.policyValue).toMatchObject({ value: evaluation.value.policies[i].policyValue });
+        expect(c.policyValue.replicates + c.policyValue.failedReplicates).toBe(settings.resamples);
         const network = evaluation.value.policies[i].network!;
         const own = run!.models[i].fit.resampleByRuns!({ runs: dataset.episodeCount, resamples: settings.resamples, seed: settings.seed, level: settings.level }).interval;
         expect(c.policyValue.percentile).toEqual([-own.upper, -own.lower]);

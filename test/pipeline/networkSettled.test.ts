@@ -9,7 +9,8 @@
  */
 import { describe, expect, it } from 'vitest';
 import { approximatorAgreement } from '../../src/core/fqe/approximatorAgreement';
-import { withUnresampledOwn } from '../../src/pipeline/assessAssembly';
+import { classAssessment, withUnresampledOwn } from '../../src/pipeline/assessAssembly';
+import type { CandidateReplicates } from '../../src/pipeline/assessResamples';
 import type { CandidateWork } from '../../src/pipeline/assessCandidate';
 import type { FunctionClassAssessment } from '../../src/pipeline/assessment';
 
@@ -49,5 +50,44 @@ describe('a network project is settled only where the linear estimate checks the
     expect(v.settled).toBe(true);
     expect(v.classes[0].label).toBe('network 16×16 (tanh)');
     expect(v.range).toEqual([-50, 88]);
+  });
+});
+
+describe('a network project with one linear class fitted beside it (the others too large for the data)', () => {
+  // The network's own class has no replicates in the assessment (classes[0]); one linear class does.
+  const oneClass = (value: number, difference: [number, number]) => {
+    const w = network(value, difference) as unknown as { model: unknown };
+    const own = { label: 'network 16×16 (tanh)', model: w.model }, degree2 = { label: 'polynomial, degree 2', model: { fit: { policyValue: 30 } } };
+    return { ...w, classes: [own, degree2], unconvergedClasses: [] } as unknown as CandidateWork;
+  };
+  // Invented replicates of the degree-2 class around 30, spread about ±1.6 (a 90 % interval near [28.4, 31.6]).
+  const replicates = { fqe: [], classes: [[], Array.from({ length: 41 }, (_, b) => 30 + 0.08 * (b - 20))] } as unknown as CandidateReplicates;
+
+  it('has a verdict, and it is not settled where the agreement rule cannot tell', () => {
+    const w = oneClass(31, [-9, 11]);
+    const v = withUnresampledOwn(classAssessment(w, replicates, 0.9, 1), w, 1);
+    expect(v).not.toBeNull();
+    expect(v!.settled).toBe(false);
+    expect(v!.reason).toContain('too little data to tell whether they agree');
+  });
+
+  it('is settled where they agree, and says so by the agreement rule, not as “one function class only”', () => {
+    const w = oneClass(30.2, [-0.5, 0.9]);
+    const v = withUnresampledOwn(classAssessment(w, replicates, 0.9, 1), w, 1)!;
+    expect(v.settled).toBe(true);
+    expect(v.classes.map((c) => c.label)).toEqual(['network 16×16 (tanh)', 'polynomial, degree 2']);
+    expect(v.reason).toMatch(/^Settled: The network and the .* agree/);
+    expect(v.reason + v.coverage).not.toMatch(/one function class only|no other function class/i);
+  });
+});
+
+describe('a linear fit without resamples of its own (it did not converge) and one other class', () => {
+  it('has no verdict, as before: one class beside it checks nothing and no agreement rule reads it', () => {
+    const w = {
+      replicate: null, unconvergedClasses: [], model: { fit: { policyValue: 30 } },
+      classes: [{ label: 'polynomial, degree 2', model: { fit: { policyValue: 30 } } }, { label: 'polynomial, degree 3', model: { fit: { policyValue: 30 } } }],
+    } as unknown as CandidateWork;
+    const replicates = { fqe: [], classes: [[], Array.from({ length: 41 }, (_, b) => 30 + 0.08 * (b - 20))] } as unknown as CandidateReplicates;
+    expect(classAssessment(w, replicates, 0.9, 1)).toBeNull();
   });
 });

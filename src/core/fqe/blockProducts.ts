@@ -51,7 +51,7 @@ function simdProducts(d: number, rows: number, memory: WebAssembly.Memory, tile:
     route: 'simd', d, rows, phi, psi,
     add(x, y, size, out, o, upper) {
       if (size <= 0) return;
-      if (x.buffer !== memory.buffer || y.buffer !== memory.buffer) throw new RangeError('BlockProducts.add: x and y must be this block\'s phi or psi');
+      if (x.buffer !== memory.buffer || y.buffer !== memory.buffer) throw new RangeError('BlockProducts.add: x and y must be this block’s phi or psi');
       const xAt = x.byteOffset, yAt = y.byteOffset;
       for (let i = 0; i < d; i += 2) {
         const i1 = Math.min(i + 1, last);

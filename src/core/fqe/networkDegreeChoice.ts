@@ -175,11 +175,11 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
       for (let r = 1; r < dk; r++) system[r * dk + r] += RIDGE.default;
       try {
         const w = luSolve(luFactor(system, dk), rhs);
-        if (!w.every(Number.isFinite)) return keep(`the degree-${degree} fit of the present controller's value is too badly conditioned to solve`);
+        if (!w.every(Number.isFinite)) return keep(`the degree-${degree} fit of the present controller’s value is too badly conditioned to solve`);
         perFold.push(w);
       } catch (error) {
         if (!(error instanceof SingularMatrixError)) throw error;
-        return keep(`the degree-${degree} fit of the present controller's value is singular on these runs`);
+        return keep(`the degree-${degree} fit of the present controller’s value is singular on these runs`);
       }
     }
     weights.push(perFold);
@@ -229,8 +229,8 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   const other = degrees.find((x) => x !== base) ?? base, rows = `${scored.length} runs, each scored on fits over the other runs`;
   const percent = (x: number) => `${(100 * x).toFixed(1)} %`;
   const sentence = chosen !== base
-    ? `Polynomial part of degree ${chosen}: it predicted the present controller's held-out returns better than degree ${base} (root mean squared error ${percent(relativeError[degrees.indexOf(chosen)])} against ${percent(relativeError[0])} of the return, by more than ${CHOICE_STANDARD_ERRORS} standard errors; ${rows}).`
-    : `Polynomial part of degree ${base}: degree ${other} did not predict the present controller's held-out returns better by more than ${CHOICE_STANDARD_ERRORS} standard errors (root mean squared error ${percent(relativeError[degrees.indexOf(other)])} against ${percent(relativeError[0])} of the return; ${rows}).`;
+    ? `Polynomial part of degree ${chosen}: it predicted the present controller’s held-out returns better than degree ${base} (root mean squared error ${percent(relativeError[degrees.indexOf(chosen)])} against ${percent(relativeError[0])} of the return, by more than ${CHOICE_STANDARD_ERRORS} standard errors; ${rows}).`
+    : `Polynomial part of degree ${base}: degree ${other} did not predict the present controller’s held-out returns better by more than ${CHOICE_STANDARD_ERRORS} standard errors (root mean squared error ${percent(relativeError[degrees.indexOf(other)])} against ${percent(relativeError[0])} of the return; ${rows}).`;
   return { degrees, chosen, meanSquaredError, relativeError, difference, standardError, runsScored: scored.length, rowsScored, notCompared: null, sentence };
 }
 

@@ -128,9 +128,11 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
       const rows = startFeatureRows(net, quadrature, startStates, ds), d = v.length, mean = meanRow(rows, d);
       const linearRows = startStateFeatures(comparator, quadrature, startStates, ds);
       const value = dot(mean, v, d), linear = dot(meanRow(linearRows, d2), ctx.comparatorWeights, d2);
-      const follow = options.startsFollowEpisodes ?? sameValues(startStates, dataStarts);
+      const own = sameValues(startStates, dataStarts), follow = options.startsFollowEpisodes ?? own;
+      // The data's own starts map to their runs through startEpisode (a run whose first row was excluded has none).
+      const startEpisode = own ? input.data.startEpisode : undefined;
       const resamples = options.resamples ?? s.method.intervalResamples;
-      const r = valueReplicates(systems, { startRows: rows, linearStartRows: linearRows, startsFollowEpisodes: follow, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed, runs: options.runs }, { network: value, linear });
+      const r = valueReplicates(systems, { startRows: rows, linearStartRows: linearRows, startsFollowEpisodes: follow, startEpisode, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed, runs: options.runs }, { network: value, linear });
       const difference = networkValueInterval(r.difference, spread * Math.abs(value), drift * Math.abs(value));
       const allowance = classErrorAllowance(difference);
       return {

@@ -45,8 +45,14 @@ export interface IntervalRequest {
   readonly startRows: Float64Array;
   /** The comparator's E_a φ₂(s0, a) rows of the same start set, count×d2 (networkComparator.ts). */
   readonly linearStartRows: Float64Array;
-  /** True when start row k is episode k's first state, so it is resampled with its episode. */
+  /** True when start row k is the first state of an episode (episode k's, or startEpisode[k]'s), so it is resampled with its episode. */
   readonly startsFollowEpisodes: boolean;
+  /**
+   * Episode of each start row when some episode has none (TransitionSet.startEpisode: its first row
+   * was excluded); absent: start row k is episode k's. The linear bootstrap maps its start weights
+   * through the same array (../bootstrap/startMultiplicities.ts), so both weigh a start by its own run.
+   */
+  readonly startEpisode?: Int32Array;
   readonly level: number;
   readonly resamples: number;
   readonly seed: number;
@@ -78,17 +84,21 @@ export function valueReplicates(systems: EpisodeSystems, request: IntervalReques
   const net: number[] = [], lin: number[] = [], diff: number[] = [], values: (number | null)[] = [];
   const jointScratch = new Float64Array(joint.stride), linearScratch = new Float64Array(linear.stride);
   const c = new Uint32Array(e), startWeights = new Float64Array(starts).fill(1), runs = request.runs;
-  const all = runs === undefined ? null : new Uint32Array(runs);
+  const all = runs === undefined ? null : new Uint32Array(runs), runOf = (k: number) => (request.startEpisode ? request.startEpisode[k] : k);
+  // Training range of each start's run, −1 for a held-out run (its start keeps weight 1 in the fit's own draws).
+  const rangeOfRun = new Map<number, number>(), rangeOfStart = new Int32Array(starts);
+  for (let r = 0; r < e; r++) rangeOfRun.set(ids[r], r);
+  for (let k = 0; k < starts; k++) rangeOfStart[k] = rangeOfRun.get(runOf(k)) ?? -1;
   let failed = 0;
   for (let b = 0; b < request.resamples; b++) {
     if (all) {
       // The assessment's draw over every run; a start state goes with its run, a training episode takes its run's count.
       episodeMultiplicities(runs!, request.seed, b, all);
       for (let r = 0; r < e; r++) c[r] = all[ids[r]];
-      if (request.startsFollowEpisodes) for (let k = 0; k < Math.min(starts, runs!); k++) startWeights[k] = all[k];
+      if (request.startsFollowEpisodes) for (let k = 0; k < starts; k++) startWeights[k] = runOf(k) < runs! ? all[runOf(k)] : 1;
     } else {
       episodeMultiplicities(e, request.seed, b, c);
-      if (request.startsFollowEpisodes) for (let r = 0; r < e; r++) if (ids[r] < starts) startWeights[ids[r]] = c[r];
+      if (request.startsFollowEpisodes) for (let k = 0; k < starts; k++) if (rangeOfStart[k] >= 0) startWeights[k] = c[rangeOfStart[k]];
     }
     const v = solveLastLayer(combineSums(joint, c, jointScratch), d, d1, systems.hiddenRidge, systems.higherTermRidge);
     const w = solveLastLayer(combineSums(linear, c, linearScratch), d2, d2, 0);
