@@ -48,11 +48,16 @@ async function chartBoxes(element: Locator): Promise<{ x: number; y: number; wid
 }
 
 /**
- * Shoot `element` to `path` whole (growing the window for the shot when it is taller). A chart blank in
+ * Shoot `element` to `path` whole (growing the window for the shot when it is taller; the sticky bars
+ * that `unstick` names, a rule "selectors { … }", unstuck). A chart blank in
  * the picture is shot again (up to twice, a moment apart): a capture that ran ahead of the compositor
  * shows it the next time, a chart the page failed to draw stays blank and is returned as a fault.
  */
-export async function shootSection(page: Page, element: Locator, path: string, style: string): Promise<string[]> {
+export async function shootSection(page: Page, element: Locator, path: string, unstick: string): Promise<string[]> {
+  // The sticky bars are unstuck before the card is measured: given as the shot's style, they moved the
+  // card down after Playwright had measured it, and its last rows were cut off the picture.
+  const selectors = unstick.replace(/\{[^}]*\}/, '').trim();
+  await page.evaluate((s) => document.querySelectorAll<HTMLElement>(s).forEach((e) => e.style.setProperty('position', 'static', 'important')), selectors);
   const viewport = page.viewportSize()!, box = await element.boundingBox();
   if (!box) return [];
   const grow = box.height + 40 > viewport.height;
@@ -65,7 +70,7 @@ export async function shootSection(page: Page, element: Locator, path: string, s
     for (let attempt = 0; attempt < 3; attempt++) {
       if (attempt > 0) await page.waitForTimeout(500);
       await nextFrames(page);
-      const png = await element.screenshot({ path, style });
+      const png = await element.screenshot({ path });
       blank = (await inkShares(page, png, await chartBoxes(element))).flatMap((s, i) => (s < 0.005 ? [i + 1] : []));
       if (blank.length === 0) {
         if (attempt > 0) console.log(`${path}: a chart blank in shot 1 was drawn in shot ${attempt + 1} (a capture ahead of the compositor)`);
@@ -75,5 +80,6 @@ export async function shootSection(page: Page, element: Locator, path: string, s
     return blank.map((i) => `${path}: chart ${i} of the card is blank in the shot, three times`);
   } finally {
     if (grow) await page.setViewportSize(viewport);
+    await page.evaluate((s) => document.querySelectorAll<HTMLElement>(s).forEach((e) => e.style.removeProperty('position')), selectors);
   }
 }
