@@ -1,11 +1,12 @@
 /**
- * A screenshot of one element (a Findings card) with its charts in it. A card taller than the window
- * is shot by Chromium "beyond the viewport", and there a chart the chart worker draws on its
- * OffscreenCanvas comes out blank now and then although it is drawn and shows on screen (seen on the
- * values, surface and retune-map cards of the heating-loop sample at 1280 × 800: the same card shot
- * again, or with the window tall enough to hold it, shows the chart; the worker had no drawing pending).
- * So the window is made tall enough to hold the card for the shot, and each drawn chart's part of the
- * picture is checked for ink: a blank one is returned as a fault, not left for the eye to miss.
+ * A screenshot of one element (a Findings card) with its charts in it. In an element shot a chart the
+ * chart worker draws on its OffscreenCanvas came out blank now and then although it was drawn and shows
+ * on screen: every chart of the heating-loop sample's first pass at 1280 × 800 (values, retune map,
+ * surface, slice, convergence), the two-valve values card; the same card shot again a moment later, or
+ * the window's own picture, shows it, and the worker had no drawing pending (a capture ahead of the
+ * compositor, not a drawing the app missed). So the card is scrolled into view and shot after two
+ * frames, each drawn chart's part of the picture is checked for ink, the card is shot again where one
+ * is blank, and one still blank is returned as a fault, not left for the eye to miss.
  */
 import type { Locator, Page } from 'playwright-core';
 
@@ -48,8 +49,8 @@ async function chartBoxes(element: Locator): Promise<{ x: number; y: number; wid
 }
 
 /**
- * Shoot `element` to `path` whole (growing the window for the shot when it is taller; the sticky bars
- * that `unstick` names, a rule "selectors { … }", unstuck). A chart blank in
+ * Shoot `element` to `path` whole (the sticky bars that `unstick` names, a rule "selectors { … }",
+ * unstuck; growing the window to hold a tall card instead cut its last rows off). A chart blank in
  * the picture is shot again (up to twice, a moment apart): a capture that ran ahead of the compositor
  * shows it the next time, a chart the page failed to draw stays blank and is returned as a fault.
  */
@@ -58,10 +59,6 @@ export async function shootSection(page: Page, element: Locator, path: string, u
   // card down after Playwright had measured it, and its last rows were cut off the picture.
   const selectors = unstick.replace(/\{[^}]*\}/, '').trim();
   await page.evaluate((s) => document.querySelectorAll<HTMLElement>(s).forEach((e) => e.style.setProperty('position', 'static', 'important')), selectors);
-  const viewport = page.viewportSize()!, box = await element.boundingBox();
-  if (!box) return [];
-  const grow = box.height + 40 > viewport.height;
-  if (grow) await page.setViewportSize({ width: viewport.width, height: Math.ceil(box.height) + 40 });
   try {
     await element.scrollIntoViewIfNeeded();
     await page.waitForFunction((e) => [...e!.querySelectorAll('figure[data-chart-state]')].every((f) => f.getAttribute('data-chart-state') !== 'waiting'),
@@ -79,7 +76,6 @@ export async function shootSection(page: Page, element: Locator, path: string, u
     }
     return blank.map((i) => `${path}: chart ${i} of the card is blank in the shot, three times`);
   } finally {
-    if (grow) await page.setViewportSize(viewport);
     await page.evaluate((s) => document.querySelectorAll<HTMLElement>(s).forEach((e) => e.style.removeProperty('position')), selectors);
   }
 }
