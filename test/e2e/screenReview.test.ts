@@ -264,6 +264,8 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
     expect(await page.locator('[data-section="values"] .fold-heading').first().innerText()).toContain(VALUES_CHART_TITLE);
     expect(await readFile(join(SHOTS, `${c.id}-export-comparison.svg`), 'utf8')).toContain(`<title id="plot-title">${VALUES_CHART_TITLE}</title>`);
     expect(html).toContain(`${VALUES_CHART_TITLE}, beside the baseline`);
+    // An interval's column says it is an interval: "90 % percentile" alone reads as the 90th percentile.
+    expect(html).not.toMatch(/% (percentile|basic)<\/th>/);
     // The effective horizon at three significant digits in the report (core/horizonText.ts).
     expect(html).toMatch(/effective horizon \d[\d,]*(\.\d)? steps/);
     expect(html).not.toMatch(/effective horizon \d+\.\d\d/);
