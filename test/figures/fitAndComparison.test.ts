@@ -36,6 +36,8 @@ describe('convergence plot', () => {
     expect(logTickLabels([1e-3, 2e-3, 5e-3, 1e-2])).toEqual(['10⁻³', '', '', '10⁻²']);
     expect(logTickLabels([0.02, 0.03, 0.04, 0.05, 0.06, 0.07, 0.08, 0.09])).toEqual(['0.02', '', '', '0.05', '', '', '', '']);
     expect(logTickLabels([0.03, 0.04])).toEqual(['0.03', '0.04']);
+    // Ticks packed at the low end of a narrow axis are not all labelled (the network's loss axis had 0.0214 … 0.022 on top of each other).
+    expect(logTickLabels([0.0214, 0.0216, 0.0218, 0.022, 0.023, 0.025])).toEqual(['0.0214', '', '', '', '0.023', '0.025']);
   });
 
   it('summary gives the last values, and says when there is no history', () => {
