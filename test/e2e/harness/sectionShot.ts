@@ -50,7 +50,7 @@ async function chartBoxes(element: Locator): Promise<{ x: number; y: number; wid
 
 /**
  * Shoot `element` to `path` whole (the sticky bars that `unstick` names, a rule "selectors { … }",
- * unstuck; growing the window to hold a tall card instead cut its last rows off). A chart blank in
+ * unstuck; the window grown to hold a tall card). A chart blank in
  * the picture is shot again (up to twice, a moment apart): a capture that ran ahead of the compositor
  * shows it the next time, a chart the page failed to draw stays blank and is returned as a fault.
  */
@@ -59,6 +59,11 @@ export async function shootSection(page: Page, element: Locator, path: string, u
   // card down after Playwright had measured it, and its last rows were cut off the picture.
   const selectors = unstick.replace(/\{[^}]*\}/, '').trim();
   await page.evaluate((s) => document.querySelectorAll<HTMLElement>(s).forEach((e) => e.style.setProperty('position', 'static', 'important')), selectors);
+  // A card taller than the window is shot "beyond the viewport", where its charts stayed blank in three
+  // shots in a row (heating-loop, 1280 × 800, dark): the window is grown to hold it for the shot.
+  const viewport = page.viewportSize()!, box = await element.boundingBox();
+  const grow = box !== null && box.height + 40 > viewport.height;
+  if (grow) await page.setViewportSize({ width: viewport.width, height: Math.ceil(box!.height) + 40 });
   try {
     await element.scrollIntoViewIfNeeded();
     await page.waitForFunction((e) => [...e!.querySelectorAll('figure[data-chart-state]')].every((f) => f.getAttribute('data-chart-state') !== 'waiting'),
@@ -76,6 +81,7 @@ export async function shootSection(page: Page, element: Locator, path: string, u
     }
     return blank.map((i) => `${path}: chart ${i} of the card is blank in the shot, three times`);
   } finally {
+    if (grow) await page.setViewportSize(viewport);
     await page.evaluate((s) => document.querySelectorAll<HTMLElement>(s).forEach((e) => e.style.removeProperty('position')), selectors);
   }
 }
