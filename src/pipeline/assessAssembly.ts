@@ -218,7 +218,8 @@ export function withUnresampledOwn(classes: FunctionClassAssessment | null, work
   const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range, interval = networkInterval(work, sign, net);
   const entry = { label: work.classes[0].label, value: own, interval, standardError: (net?.interval ?? work.model.fit.interval)?.standardError ?? null };
   const [ownLo, ownHi] = interval ?? [own, own];
-  const widened = { ...classes, classes: [entry, ...classes.classes], range: [Math.min(lo, ownLo, own), Math.max(hi, ownHi, own)] as [number, number] };
+  const all = [entry, ...classes.classes];
+  const widened = { ...classes, classes: all, coverage: spreadCoverage(classes.coverage, all.map((c) => c.label)), range: [Math.min(lo, ownLo, own), Math.max(hi, ownHi, own)] as [number, number] };
   const agreement = work.model.fit.linearComparison?.agreement;
   if (agreement?.verdict === 'disagree') return { ...widened, settled: false, reason: `Not settled: ${agreement.message}` };
   if (own < lo || own > hi) {
@@ -237,6 +238,17 @@ export function withUnresampledOwn(classes: FunctionClassAssessment | null, work
 
 function oneClassBesideNetwork(label: string): string {
   return `Covers the sampling of runs, the network’s own interval and the ${label} fit beside it; a bias they share would not show.`;
+}
+
+/**
+ * What the range covers, once the network's own interval is in it: the verdict's text counted and named
+ * the linear classes only ("the 3 function classes fitted (polynomial, degree 2; …)") under a list that
+ * shows the network as well, so it is said again over every class listed. Other texts (the sampling of
+ * runs only) are kept.
+ */
+function spreadCoverage(coverage: string, labels: readonly string[]): string {
+  if (!coverage.startsWith('Covers the sampling of runs and the spread across')) return coverage;
+  return `Covers the sampling of runs and the spread across the ${labels.length} function classes fitted (${labels.join('; ')}); a bias they all share would not show.`;
 }
 
 /** The range at its own precision, as the tables beside the warning print it ("[5.62, 9.55]", not "[5.624, 9.549]"); ASCII minus, as the command line keeps. */

@@ -16,6 +16,19 @@ export function plantMemorySentence(summary: PlantMemorySummary | undefined): st
   const top = summary.states.find((s) => s.state === summary.read) ?? largest;
   if (!top) return null;
   const unsupported = summary.read === null && top.adjustedPartialRSquared > MEMORY_CAUTION ? ', not supported by its F test on a log this short, so no finding' : '';
-  return `Plant memory: the ${summary.rowsBack} rows before explain ${top === largest ? 'at most ' : ''}${memoryPercent(top.adjustedPartialRSquared)} (adjusted for chance) of what the one-step model leaves unexplained, in ${top.state}${unsupported} ` +
+  return `Plant memory: the ${summary.rowsBack} rows before explain ${explained(top.adjustedPartialRSquared, top === largest)} (adjusted for chance) of what the one-step model leaves unexplained, in ${top.state}${unsupported} ` +
     `(${summary.rowsUsed.toLocaleString('en-US')} rows read; a caution above ${memoryPercent(MEMORY_CAUTION)}, serious above ${memoryPercent(MEMORY_SERIOUS)}).`;
+}
+
+/**
+ * The share the earlier rows explain, as the sentence says it: "at most 7 %" for the largest over the
+ * states, but "less than 0.01 %" where the share writer gives a bound (not "at most below 0.01 %"), and
+ * "0 %" where the share adjusted for chance is at or below zero (it can be: the adjustment subtracts
+ * what chance alone would explain), never a negative percentage.
+ */
+function explained(share: number, largest: boolean): string {
+  if (!(share > 0)) return memoryPercent(0);
+  const text = memoryPercent(share);
+  if (text.startsWith('below ')) return `less than ${text.slice('below '.length)}`;
+  return largest ? `at most ${text}` : text;
 }

@@ -19,6 +19,7 @@ import { linearFqeReplicateBlock } from '../core/bootstrap/linearFqeReplicate';
 import { occupancyShift } from '../core/diagnostics/occupancyShift';
 import { outsidePossible, possibleValues } from '../core/diagnostics/possibleValues';
 import { OCCUPANCY_SHIFT_LIMITS, occupancyShiftSeverity, shiftReference, type SeverityLevel } from '../core/diagnostics/severity';
+import { shiftText } from '../core/diagnostics/shiftText';
 import type { CancellationCheck } from '../core/fqe/cancellation';
 import { CONFIDENCE_LEVEL, DEFAULT_POLYNOMIAL_DEGREE, MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
@@ -152,7 +153,7 @@ function runRetuneMap(
       });
     },
   });
-  const reference = shiftReference(options.presentControllerShift), fmt = (v: number) => v.toPrecision(3);
+  const reference = shiftReference(options.presentControllerShift), fmt = shiftText;
   const better = (x: number, y: number) => (plan.sense === 'cost' ? x < y : x > y);
   let best: RetuneMapResult['best'] = null;
   points.forEach((p, index) => {

@@ -1,11 +1,15 @@
 /**
- * The screen review: every step, the glossary and every export of three projects (the heating-loop
- * and tank-levels samples, and an invented two-valve log with clipped, correlated dithers:
- * test/fixtures/screens/twoValveBlend.ts) in both themes at 1280 × 800 and 1920 × 1080, written to
- * test-artifacts/screen-review/ to be looked at. Besides the pictures it checks what a person would
- * trip on that a measurement can see: no text cut off by its own box on any step, the two-action
- * caution shown where the log has it, the report's tables inside its page, every function-class
- * verdict with its reason, and the range-cut note written with the tables' minus sign.
+ * The screen review: every step, the glossary and every export of four projects (the heating-loop
+ * and tank-levels samples, tank-levels again with the Estimator step set to a small network, and an
+ * invented two-valve log with clipped, correlated dithers: test/fixtures/screens/twoValveBlend.ts) in
+ * both themes at 1280 × 800 and 1920 × 1080, written to test-artifacts/screen-review/ (or
+ * SCREEN_REVIEW_DIR) to be looked at. Besides the pictures it checks what a person would trip on that a
+ * measurement can see: no text cut off by its own box on any step, no chart blank in a card's picture
+ * (harness/sectionShot.ts), the two-action caution shown where the log has it, the report's tables
+ * inside its page, every function-class verdict with its reason, the range-cut note written with the
+ * tables' minus sign, a network project's differences and ranking, and each number said once by one
+ * writer (the values chart's one title, the horizon's precision, the unvisited share, a limit's chance,
+ * a tuning value as its axis labels it).
  */
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
@@ -16,10 +20,12 @@ import { openAllFindings } from './harness/findingsSections';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
+import { shootSection } from './harness/sectionShot';
 import { goToStep } from '../renderer/e2e/appSteps';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
+import { VALUES_CHART_TITLE } from '../../src/figures/parts/plotTheme';
 
-const SHOTS = resolve(__dirname, '../../test-artifacts/screen-review');
+const SHOTS = process.env.SCREEN_REVIEW_DIR ?? resolve(__dirname, '../../test-artifacts/screen-review');
 const SIZES = [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }];
 const STEPS = ['plant-log', 'candidates', 'estimator', 'run', 'findings'] as const;
 const FIGURES = ['comparison', 'surface', 'slice', 'convergence', 'sensitivity', 'retuneMap'] as const;
@@ -48,10 +54,32 @@ function clippedText(page: Page): Promise<string[]> {
   }).map((e) => `${e.tagName.toLowerCase()}${(e as HTMLElement).dataset.testid ? `[${(e as HTMLElement).dataset.testid}]` : ''}: ${(e.textContent ?? '').slice(0, 60)}`));
 }
 
-interface Case { id: string; open: (app: LaunchedApp) => Promise<string>; retuneMap: boolean; twoActions: boolean }
+interface Case { id: string; open: (app: LaunchedApp) => Promise<string>; retuneMap: boolean; twoActions: boolean; network?: boolean }
+
+/**
+ * The tank-levels sample with the Estimator step's approximator set to a small network, as an engineer
+ * would set it: its differences from the present controller, shares, ranking and trial now come from
+ * the network's own resamples. Small on purpose (one layer of 8, few iterations) to keep the capture
+ * quick; the accuracy of network fits is tested in test/core/fqe/network*.test.ts and the battery.
+ */
+async function openTankNetwork(app: LaunchedApp): Promise<string> {
+  const path = await openSample(app, 'tank-levels'), { page } = app;
+  await goToStep(page, 'estimator');
+  await page.getByLabel('Neural network').check();
+  await page.getByLabel('Hidden layers').fill('8');
+  await page.getByLabel('Hidden layers').blur();
+  for (const [label, value] of [['Most outer iterations', '15'], ['Gradient steps per outer iteration', '25'], ['Batch size', '256']] as const) {
+    const field = page.getByLabel(label, { exact: true });
+    await field.fill(value);
+    await field.blur();
+  }
+  return path;
+}
+
 const CASES: Case[] = [
   { id: 'heating-loop', open: (app) => openSample(app, 'heating-loop'), retuneMap: true, twoActions: false },
   { id: 'tank-levels', open: (app) => openSample(app, 'tank-levels'), retuneMap: false, twoActions: false },
+  { id: 'tank-network', open: openTankNetwork, retuneMap: false, twoActions: false, network: true },
   {
     id: 'two-valve', retuneMap: false, twoActions: true,
     async open(app) {
@@ -89,6 +117,12 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
     await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });
     await openAllFindings(page);
     await expect.poll(() => page.locator('[data-section][data-open="false"]').count(), POLL).toBe(0);
+    if (c.network) {
+      // A network project is compared with the present controller on its own resamples (before: no differences at all).
+      await expect.poll(() => page.getByTestId('value-table').innerText(), POLL).toMatch(/network|TensorFlow/i);
+      expect(await page.locator('[data-testid^="difference-row-"]').count()).toBeGreaterThan(0);
+      await expect.poll(() => page.getByTestId('ranking').innerText(), POLL).toMatch(/\d %/);
+    }
   }, 600_000);
 
   it('every step and the glossary, both themes, both sizes', async () => {
@@ -109,7 +143,8 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
           if (step === 'plant-log') await page.locator('section[aria-labelledby="reward-heading"]').screenshot({ path: join(SHOTS, `${c.id}-${size.width}-${theme}-plant-log-reward.png`), style: UNSTICK });
           if (step === 'findings') {
             for (const section of await page.locator('[data-section]').all()) {
-              await section.screenshot({ path: join(SHOTS, `${c.id}-${size.width}-${theme}-findings-${await section.getAttribute('data-section')}.png`), style: UNSTICK });
+              const shot = join(SHOTS, `${c.id}-${size.width}-${theme}-findings-${await section.getAttribute('data-section')}.png`);
+              faults.push(...await shootSection(page, section, shot, UNSTICK));
             }
           }
           // A "Next: …" button names the step the list calls by that name (the Method step's button said "estimator").
@@ -223,6 +258,24 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
     await writeFile(join(SHOTS, `${c.id}-written.txt`), `${written.join('\n')}\n`);
     expect(exportFaults).toEqual([]);
     expect(written.length).toBeGreaterThan(4);
+
+    // Each said once, by one writer (the checks of the polish23 capture, folded in here).
+    // One title for the values chart: the panel's heading, the exported SVG's title and the report's caption.
+    expect(await page.locator('[data-section="values"] .fold-heading').first().innerText()).toContain(VALUES_CHART_TITLE);
+    expect(await readFile(join(SHOTS, `${c.id}-export-comparison.svg`), 'utf8')).toContain(`<title id="plot-title">${VALUES_CHART_TITLE}</title>`);
+    expect(html).toContain(`${VALUES_CHART_TITLE}, beside the baseline`);
+    // An interval's column says it is an interval: "90 % percentile" alone reads as the 90th percentile.
+    expect(html).not.toMatch(/% (percentile|basic)<\/th>/);
+    // The effective horizon at three significant digits in the report (core/horizonText.ts).
+    expect(html).toMatch(/effective horizon \d[\d,]*(\.\d)? steps/);
+    expect(html).not.toMatch(/effective horizon \d+\.\d\d/);
+    // The unvisited share said once in the Coverage section (pipeline/unvisitedWords.ts).
+    const coverage = await page.locator('[data-section="coverage"]').innerText();
+    expect(coverage.split('of the value-surface grid has no logged state').length).toBeLessThanOrEqual(2);
+    // A limit's chance by the share writer, never "P = 0.1587".
+    for (const svg of written.filter((p) => p.endsWith('.svg'))) expect(await readFile(svg, 'utf8'), svg).not.toMatch(/P = \d/);
+    // The retune map's headline writes a tuning value as its axis labels it (thousands separated).
+    if (c.retuneMap) expect(await page.getByTestId('retune-map-headline').innerText()).not.toMatch(/= \d{4,}\b/);
   }, 600_000);
 
   it('logged no console errors', () => {

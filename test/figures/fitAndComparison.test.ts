@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { convergenceChart, convergenceSeries, convergenceSummary, isNetworkHistory, logTickLabel } from '../../src/figures/charts/convergence';
+import { convergenceChart, convergenceSeries, convergenceSummary, isNetworkHistory, logTickLabel, logTickLabels } from '../../src/figures/charts/convergence';
 import { plotPalette } from '../../src/figures/parts/plotTheme';
 import type { PlotLook } from '../../src/figures/parts/plotLook';
 import { LOGGED_BEHAVIOUR_LABEL, policyValueAxisTitle, policyValueChart, policyValueRows, policyValueSummary, valueSenseText } from '../../src/figures/charts/policyValueChart';
@@ -32,6 +32,12 @@ describe('convergence plot', () => {
 
   it('labels only the decades 10^k on the log axis, all as powers of ten', () => {
     expect([1e-4, 2e-3, 0.05, 1, 20, 3, 0.4, 7e5].map(logTickLabel)).toEqual(['10⁻⁴', '', '', '10⁰', '', '', '', '']); // decades only, one notation
+    // An axis within one decade (a network's training loss, 0.02–0.09) still has numbers on it: 2, 5 × 10^k, else every tick.
+    expect(logTickLabels([1e-3, 2e-3, 5e-3, 1e-2])).toEqual(['10⁻³', '', '', '10⁻²']);
+    expect(logTickLabels([0.02, 0.03, 0.04, 0.05, 0.06, 0.07, 0.08, 0.09])).toEqual(['0.02', '', '', '0.05', '', '', '', '']);
+    expect(logTickLabels([0.03, 0.04])).toEqual(['0.03', '0.04']);
+    // Ticks packed at the low end of a narrow axis are not all labelled (the network's loss axis had 0.0214 … 0.022 on top of each other).
+    expect(logTickLabels([0.0214, 0.0216, 0.0218, 0.022, 0.023, 0.025])).toEqual(['0.0214', '', '', '', '0.023', '0.025']);
   });
 
   it('summary gives the last values, and says when there is no history', () => {

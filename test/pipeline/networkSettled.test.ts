@@ -51,6 +51,13 @@ describe('a network project is settled only where the linear estimate checks the
     expect(v.classes[0].label).toBe('network 16×16 (tanh)');
     expect(v.range).toEqual([-50, 88]);
   });
+
+  it('says the range covers every class it lists, the network included', () => {
+    const linear = { ...linearClasses(), coverage: 'Covers the sampling of runs and the spread across the 2 function classes fitted (polynomial, degree 2; polynomial, degree 3); a bias they all share would not show.' };
+    const v = withUnresampledOwn(linear, network(30.2, [-0.5, 0.9]), 1)!;
+    expect(v.classes).toHaveLength(3);
+    expect(v.coverage).toBe('Covers the sampling of runs and the spread across the 3 function classes fitted (network 16×16 (tanh); polynomial, degree 2; polynomial, degree 3); a bias they all share would not show.');
+  });
 });
 
 describe('a network project with one linear class fitted beside it (the others too large for the data)', () => {

@@ -34,6 +34,7 @@
 import { DEFAULT_START_COVERAGE } from './startCoverage';
 import { effectiveRunsNumber, effectiveRunsText } from '../offPolicy/effectiveRunsText';
 import { shareText, sharesText } from '../shareText';
+import { shiftText } from './shiftText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -83,13 +84,6 @@ export function severityBelow(value: number, limits: Limits): SeverityLevel | nu
 
 /** `digits` places below 10,000; whole numbers from there (toPrecision would write "3.62e+4" for a shift of 36,180). */
 const fixed = (v: number, digits: number): string => (Math.abs(v) >= 1e4 ? Math.round(v).toFixed(0) : v.toFixed(digits));
-/**
- * Three significant digits, fixed notation: the coverage panel's own sentence writes the same shift
- * this way (plainNumber(v, 3) in figures/parts/uncertainNumber.ts, which core may not import), so a
- * warning and the sentence beside it read alike ("3790", not "3787.4" above "3790"); so do the
- * effective runs of the importance weights ("1 of 12" in the table, not "1.0 of 12" in the warning).
- */
-const threeDigits = (v: number): string => String(Number(v.toPrecision(3)));
 /** A threshold share, by the one share writer (core/shareText.ts): exact, so "10 %" beside "1 %", never "1.0 %". */
 const percent = shareText;
 
@@ -117,11 +111,11 @@ export function occupancyShiftFinding(shift: number, loggedShift: number | null)
   const severity = occupancyShiftSeverity(shift, loggedShift);
   if (!severity) return null;
   const reference = shiftReference(loggedShift), ratio = shift / reference;
-  const own = loggedShift === null ? '' : ` (the present controller: ${threeDigits(loggedShift)})`;
+  const own = loggedShift === null ? '' : ` (the present controller: ${shiftText(loggedShift)})`;
   const limit = (severity === 'serious' ? OCCUPANCY_SHIFT_LIMITS.serious : OCCUPANCY_SHIFT_LIMITS.caution) * reference;
   return {
     severity, topic: 'occupancyShift',
-    message: `Occupancy shift ${threeDigits(shift)}${own}, above the ${severity} limit ${fixed(limit, limit < 100 ? 1 : 0)}: the candidate would spend its time where the logs are thin, ` +
+    message: `Occupancy shift ${shiftText(shift)}${own}, above the ${severity} limit ${fixed(limit, limit < 100 ? 1 : 0)}: the candidate would spend its time where the logs are thin, ` +
       `so its estimate carries about ${fixed(Math.sqrt(ratio), 1)} times the error of the present controller’s and leans on extrapolating the fitted model.`,
   };
 }

@@ -67,7 +67,7 @@ export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): C
       interaction: { mode: 'index', intersect: false },
       scales: {
         x: { ...valueAxis(look, 'iteration', 'bottom'), type: 'linear', min: 1, max: Math.max(2, history.length), ticks: { ...valueAxis(look, '', 'bottom').ticks, precision: 0 } },
-        y: { ...valueAxis(look, 'value (log scale)', 'left'), type: 'logarithmic', ticks: { ...valueAxis(look, '', 'left').ticks, callback: (v) => logTickLabel(Number(v)) } },
+        y: { ...valueAxis(look, 'value (log scale)', 'left'), type: 'logarithmic', ticks: { ...valueAxis(look, '', 'left').ticks, callback: (_v, i, ticks) => logTickLabels(ticks.map((t) => t.value))[i] } },
       },
       plugins: {
         ...shared.plugins,
@@ -80,6 +80,33 @@ export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): C
 /** Label only the decades, all in one notation ("10⁻⁵"); ticks between decades stay unlabelled. */
 export function logTickLabel(value: number): string {
   return decadeLabel(value);
+}
+
+/**
+ * The labels of a log axis's ticks: the decades where the axis holds one; where it spans less than a
+ * decade (a network's training loss between 0.02 and 0.09 has no power of ten inside), the ticks at 1,
+ * 2 and 5 times a power of ten, in plain numbers, else ticks spaced a fifth of the span apart — never an
+ * axis with no number on it.
+ */
+export function logTickLabels(values: readonly number[]): string[] {
+  const decades = values.map(logTickLabel);
+  if (decades.some((l) => l !== '')) return decades;
+  const mantissa = (v: number) => v / 10 ** Math.floor(Math.log10(v) + 1e-9);
+  const round = (v: number) => v > 0 && [1, 2, 5].some((m) => Math.abs(mantissa(v) - m) < 1e-6);
+  if (values.some(round)) return values.map((v) => (round(v) ? formatValue(v) : ''));
+  return spacedLabels(values);
+}
+
+/** Ticks labelled at least a fifth of the axis's span apart on the log scale (Chart.js packs the ticks of a narrow axis at its low end: 0.0214, 0.0216, 0.0218, 0.022 overlapped). */
+function spacedLabels(values: readonly number[]): string[] {
+  const logs = values.map((v) => (v > 0 ? Math.log10(v) : NaN)), finite = logs.filter(Number.isFinite);
+  const gap = (Math.max(...finite) - Math.min(...finite)) / 5;
+  let last = -Infinity;
+  return logs.map((l, i) => {
+    if (!Number.isFinite(l) || l - last < gap) return '';
+    last = l;
+    return formatValue(values[i]);
+  });
 }
 
 function emptyNotice(look: PlotLook): Plugin {

@@ -29,7 +29,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
   const chartRows: IntervalRowData[] = rows.map((r) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: r.present }));
   return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
       Intervals are ${level} bootstrap intervals over runs; “minus baseline” is the paired difference J − J(baseline) on the same resamples.</p>
-    <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th>
+    <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th>
       <th class="num">Minus baseline</th><th class="num">${level} interval of the difference</th><th class="num">Better than the baseline in</th></tr></thead><tbody>
     ${rows.map((r) => {
       const d = r.present ? undefined : vsBaseline.get(r.name);
@@ -62,7 +62,7 @@ function pairwise(a: Assessment, level: string): Html {
   const between = a.comparison.differences.filter((d) => d.b !== a.comparison.baseline.name);
   if (!between.length) return html``;
   return html`<h3>Candidates against each other</h3>
-    <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">First better in</th></tr></thead><tbody>
+    <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">First better in</th></tr></thead><tbody>
     ${between.map((d) => html`<tr><td>${policyLabel(d.a)} − ${policyLabel(d.b)}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${formatNumber(d.difference.standardError, 2)}</td>
       <td class="num">${intervalAtPrecision(d.difference.percentile)}</td><td class="num">${resampleShare(d.probabilityBetter)}</td></tr>`)}
     </tbody></table>`;

@@ -1,12 +1,13 @@
 /** The evidence sections: coverage diagnostics, cross-checks, sensitivity, and the warnings and cautions. */
 import type { Assessment, AssessmentWarning, CandidateAssessment } from '../assessment';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../core/diagnostics/severity';
+import { shiftText } from '../../core/diagnostics/shiftText';
 import { CAUTIONS } from '../cautions';
 import { plantMemorySentence } from '../plantMemoryWords';
 import { sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
-import { formatNumber, html, raw, type Html } from './htmlText';
+import { html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { shareText, sharesText } from '../../core/shareText';
@@ -51,8 +52,8 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
   const horizon = a.candidates.map(weights).find((w) => w)?.horizonSteps;
   return [
     row(`Occupancy shift (1 = like the logs; caution above ${OCCUPANCY_SHIFT_LIMITS.caution}×, serious above ${OCCUPANCY_SHIFT_LIMITS.serious}× the present controller’s level, at least 1)`,
-      (c) => formatNumber(c.diagnostics.occupancyShift, 3), formatNumber(first?.presentControllerShift, 3)),
-    row(`… ${UPPER_PERCENTILE}th percentile over resamples`, (c) => formatNumber(c.diagnostics.occupancyShiftUpper, 3), ''),
+      (c) => shiftText(c.diagnostics.occupancyShift), shiftText(first?.presentControllerShift)),
+    row(`… ${UPPER_PERCENTILE}th percentile over resamples`, (c) => shiftText(c.diagnostics.occupancyShiftUpper), ''),
     row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
     row('Range to report (spans every function class’s interval; the number to carry forward where not settled)', (c) => (c.reportedRange ? `${intervalAtPrecision(c.reportedRange)}${c.rangeCut ? ' (cut)' : ''}` : '—'), ''),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
@@ -86,7 +87,7 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
       const rows = [{ label: 'Fitted Q-evaluation', value: c.policyValue.value, interval: c.policyValue.percentile },
         ...c.crossChecks.filter((x) => x.estimate).map((x) => ({ label: x.label, value: x.estimate!.value, interval: x.estimate!.percentile }))];
       return html`<h3>${c.name}</h3>
-        <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} percentile</th><th class="num">${level} basic</th><th class="num">− FQE (${level})</th><th>Verdict</th></tr></thead><tbody>
+        <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th><th class="num">− FQE (${level})</th><th>Verdict</th></tr></thead><tbody>
         <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td></tr>
         ${c.crossChecks.map((x) => html`<tr><td>${x.label}</td>${x.estimate ? estimateCells(x.estimate, c.policyValue.percentile) : html`<td class="num">—</td><td></td><td></td><td></td>`}
           <td class="num">${x.difference ? html`${valueAtPrecision(x.difference.value, x.difference.percentile)}<br/>${intervalAtPrecision(x.difference.percentile)}` : ''}</td>

@@ -13,7 +13,8 @@ import { richTextHtml, subscriptMarkup } from '../../figures/parts/richText';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
-import { escapeHtml, formatNumber, html, raw, type Html } from './htmlText';
+import { escapeHtml, html, raw, type Html } from './htmlText';
+import { shiftText } from '../../core/diagnostics/shiftText';
 import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { gridPointLabels, tuningValueTexts } from '../../figures/parts/tickFormat';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
@@ -79,7 +80,7 @@ function mapTable(map: RetuneMapResult): Html {
     : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${valueAtPrecision(map.presentController, bestInterval)}`}.</p>`;
   const notes = html`<ul class="small">${map.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"
-    title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${formatNumber(p.occupancyShift, 3)}">${p.value === null ? `no value (${p.status})` : valueAtPrecision(p.value, p.interval)}<br/><span class="small">${intervalAtPrecision(p.interval)}</span></td>`;
+    title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${shiftText(p.occupancyShift)}">${p.value === null ? `no value (${p.status})` : valueAtPrecision(p.value, p.interval)}<br/><span class="small">${intervalAtPrecision(p.interval)}</span></td>`;
   if (map.axes.length === 1) {
     return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">J and interval</th></tr></thead><tbody>
       ${map.points.map((p, i) => html`<tr><td class="num">${tuningValueTexts(map.axes, p.coordinates)[0]}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;

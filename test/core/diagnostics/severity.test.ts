@@ -33,7 +33,7 @@ describe('severity', () => {
     expect(occupancyShiftFinding(1.6, 1.0)).toBeNull();
     const caution = occupancyShiftFinding(6, 1.02)!;
     expect(caution.severity).toBe('caution');
-    expect(caution.message).toMatch(/^Occupancy shift 6 \(the present controller: 1\.02\), above the caution limit 4\.1: .* about 2\.4 times/);
+    expect(caution.message).toMatch(/^Occupancy shift 6\.00 \(the present controller: 1\.02\), above the caution limit 4\.1: .* about 2\.4 times/);
     expect(occupancyShiftFinding(97, null)!.message).toMatch(/above the serious limit 10/);
     // The shift and the present controller's level at three significant digits, as the coverage sentence beside the warning writes them
     // (plainNumber(v, 3)): the two-valve screen review showed "3787.4 (the present controller: 28.32)" above "3790 … (28.3)".
@@ -57,7 +57,7 @@ describe('severity', () => {
   // their numbers in fixed notation, as the command line's ratioText writes the same shift, never "3.62e+4".
   it('writes large shifts and effective sizes in fixed notation, at the three significant digits of the coverage sentence beside them', () => {
     const shift = occupancyShiftFinding(36_180.4, 1.2)!.message;
-    expect(shift).toMatch(/^Occupancy shift 36200 \(the present controller: 1\.2\), above the serious limit /);
+    expect(shift).toMatch(/^Occupancy shift 36200 \(the present controller: 1\.20\), above the serious limit /);
     expect(shift).not.toMatch(/e\+/);
     expect(effectiveShareFinding(12_345.6, 1_000_000, 40)!.message).toMatch(/effective size 12300 of 1000000 runs/);
   });

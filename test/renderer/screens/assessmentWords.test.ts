@@ -53,7 +53,7 @@ describe('assessment words', () => {
       actionSupport: { neighbours: 50, queryStates: 400, meanOutside: 0.001, p90Outside: 0.0002, maxOutside: 0.2, behaviourMeanOutside: 0.039 },
     };
     const [shift, weights, support] = coverageSentences(d);
-    expect(shift).toContain('Occupancy shift: 55.3, 61.2 at the 90th percentile over resamples (the present controller itself: 1.1), measured in the fit’s own features (15).');
+    expect(shift).toContain('Occupancy shift: 55.3, 61.2 at the 90th percentile over resamples (the present controller itself: 1.10), measured in the fit’s own features (15).');
     expect(shift).toContain('caution above 4 times the present controller’s own level (at least 1), serious above 10 times'); // the limits the code applies (src/core/diagnostics/severity.ts)
     expect(weights).toContain('worth 9,490 transitions (47.5 % of them)');
     // Four shares in one sentence at one count of decimals, the most any takes alone (0.02 %: two; core/shareText.ts sharesText).

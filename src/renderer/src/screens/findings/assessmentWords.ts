@@ -10,6 +10,7 @@ import { intervalAtPrecision } from '../../../../figures/parts/uncertainNumber';
 import { effectiveRunsNumber, effectiveRunsText } from '../../../../core/offPolicy/effectiveRunsText';
 import { formatNumber } from '../../format/numberFormat';
 import { shareText, sharesText } from '../../../../core/shareText';
+import { shiftText } from '../../../../core/diagnostics/shiftText';
 import { unvisitedSentence } from '../../../../pipeline/unvisitedWords';
 
 /** "90 %" from 0.9: a confidence level is written by the one share writer, as the report writes it. */
@@ -57,9 +58,9 @@ export const VERDICT: Record<Agreement, string> = {
 export function coverageSentences(d: CoverageDiagnostics): string[] {
   const sentences: string[] = [];
   if (d.occupancyShift !== null) {
-    const own = d.presentControllerShift === null ? '' : ` (the present controller itself: ${formatNumber(d.presentControllerShift, 3)})`;
-    const upper = d.occupancyShiftUpper === null ? '' : `, ${formatNumber(d.occupancyShiftUpper, 3)} at the ${UPPER_PERCENTILE}th percentile over resamples`;
-    sentences.push(`Occupancy shift: ${formatNumber(d.occupancyShift, 3)}${upper}${own}, measured in ${d.shiftFeatures}. `
+    const own = d.presentControllerShift === null ? '' : ` (the present controller itself: ${shiftText(d.presentControllerShift)})`;
+    const upper = d.occupancyShiftUpper === null ? '' : `, ${shiftText(d.occupancyShiftUpper)} at the ${UPPER_PERCENTILE}th percentile over resamples`;
+    sentences.push(`Occupancy shift: ${shiftText(d.occupancyShift)}${upper}${own}, measured in ${d.shiftFeatures}. `
       + `1 means the candidate would visit states and actions like the logged ones; the error of its estimate grows with the square root, `
       + `caution above ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller’s own level (at least 1), serious above ${OCCUPANCY_SHIFT_LIMITS.serious} times.`);
   }
