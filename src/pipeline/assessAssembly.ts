@@ -33,6 +33,7 @@ import { cutToCertain, impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { completedReturnFromEnds } from './model/completedReturn';
 import type { NetworkRunResamples } from './networkRunResamples';
+import type { ValueInterval } from '../core/fqe/networkValueEstimate';
 import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
 import { UNVISITED_TOPIC, unvisitedWarningMessage } from './unvisitedWords';
 
@@ -109,7 +110,7 @@ function checksOf(
     work, replicates: r, points: points.values, rollout, weights, tailWeight: inputs.tailWeight,
     offPolicyReason: points.offPolicyReason, modelReason: points.modelReason, level: inputs.settings.level, sign: inputs.context.plan.sign, settled,
     // A network's fit is not paired with the checks; its own interval's standard error goes into the difference's.
-    fitStandardError: work.replicate ? null : (r.network?.interval ?? work.model.fit.interval)?.standardError ?? null,
+    fitStandardError: work.replicate ? null : ownInterval(work, r.network)?.standardError ?? null,
   });
 }
 
@@ -183,16 +184,21 @@ export function classAssessment(work: CandidateWork, r: CandidateReplicates, lev
  * had no solution raise the same caution (failedWarning). Exported for its test.
  */
 export function withNetworkInterval(estimate: IntervalEstimate, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): IntervalEstimate {
-  const iv = net?.interval ?? work.model.fit.interval, interval = networkInterval(work, sign, net);
+  const iv = ownInterval(work, net), interval = networkInterval(work, sign, net);
   if (estimate.percentile || !iv || !interval) return estimate;
   const solved = net ? net.replicates.filter((v) => v !== null).length : estimate.replicates;
   const counts = net ? { replicates: solved, failedReplicates: net.replicates.length - solved } : {};
   return { ...estimate, ...counts, percentile: interval, standardError: iv.standardError, covers: (net ? net.covers : work.model.fit.intervalCovers) ?? estimate.covers };
 }
 
+/** A network fit's own interval of J (reward sense): the one on the assessment's resamples where given, else the fit's; undefined for a fit without one. */
+function ownInterval(work: CandidateWork, net: NetworkRunResamples | null): ValueInterval | undefined {
+  return net?.interval ?? work.model.fit.interval;
+}
+
 /** A network fit's interval of J in the project's sense (on the assessment's resamples where given); null for a fit without one. */
 function networkInterval(work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): [number, number] | null {
-  const iv = net?.interval ?? work.model.fit.interval;
+  const iv = ownInterval(work, net);
   return !iv ? null : sign > 0 ? [iv.lower, iv.upper] : [-iv.upper, -iv.lower];
 }
 
@@ -216,7 +222,7 @@ function networkDisagreement(work: CandidateWork): AssessmentWarning[] {
 export function withUnresampledOwn(classes: FunctionClassAssessment | null, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): FunctionClassAssessment | null {
   if (!classes || work.replicate) return classes;
   const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range, interval = networkInterval(work, sign, net);
-  const entry = { label: work.classes[0].label, value: own, interval, standardError: (net?.interval ?? work.model.fit.interval)?.standardError ?? null };
+  const entry = { label: work.classes[0].label, value: own, interval, standardError: ownInterval(work, net)?.standardError ?? null };
   const [ownLo, ownHi] = interval ?? [own, own];
   const all = [entry, ...classes.classes];
   const widened = { ...classes, classes: all, coverage: spreadCoverage(classes.coverage, all.map((c) => c.label)), range: [Math.min(lo, ownLo, own), Math.max(hi, ownHi, own)] as [number, number] };
