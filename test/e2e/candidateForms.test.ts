@@ -12,7 +12,7 @@ import { POLL } from './harness/poll';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
-import { goToStep } from '../renderer/e2e/appSteps';
+import { goToStep, setTheme } from '../renderer/e2e/appSteps';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
 
@@ -58,7 +58,7 @@ describe('candidate forms in the editor (e2e)', () => {
     for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
       await page.setViewportSize(size);
       for (const theme of ['light', 'dark']) {
-        if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
+        await setTheme(page, theme);
         for (const i of [0, 1, 2]) {
           const card = page.getByTestId(`candidate-${i}`);
           await card.scrollIntoViewIfNeeded();
@@ -71,7 +71,7 @@ describe('candidate forms in the editor (e2e)', () => {
       }
     }
     await page.setViewportSize({ width: 1280, height: 800 });
-    if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== 'light') await page.getByTestId('toggle-theme').click();
+    await setTheme(page, 'light');
   });
 
   it('writes a new PI candidate through the editor', async () => {

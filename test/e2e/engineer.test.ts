@@ -12,7 +12,8 @@ import { startMainThreadProbe, startTaskTrace, stopMainThreadProbe } from './har
 import { POLL } from './harness/poll';
 import { openFindingsSection } from './harness/findingsSections';
 import { launchApp, type LaunchedApp } from './harness/launch';
-import { chooseData, goToStep, mapTankColumns, TANK_CSV } from '../renderer/e2e/appSteps';
+import { stalledClicks, steadyClick } from './harness/steadyClick';
+import { chooseData, goToStep, mapTankColumns, TANK_CSV, setTheme } from '../renderer/e2e/appSteps';
 import { writeTankProject } from '../renderer/e2e/projectFiles';
 
 const ENCODED = resolve(__dirname, '../fixtures/encodings');
@@ -146,14 +147,15 @@ describe('the app as a control engineer meets it (e2e)', () => {
 
   it('screens of every step in both themes at 1280 × 800 and 1920 × 1080 (test-artifacts/screens/)', async () => {
     const { page } = app;
-    await page.getByTestId('open-help').click();
+    await steadyClick(page.getByTestId('open-help'));
     await page.getByTestId('glossary').waitFor();
     await app.screenshot('engineer-help');
-    await page.getByTestId('close-help').click();
+    await steadyClick(page.getByTestId('close-help'));
+    await page.getByTestId('glossary').waitFor({ state: 'detached', timeout: 15_000 });
     for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
       await page.setViewportSize(size);
       for (const theme of ['light', 'dark']) {
-        if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
+        await setTheme(page, theme);
         for (const step of ['plant-log', 'candidates', 'estimator', 'run', 'findings'] as const) {
           await goToStep(page, step);
           await expect.poll(() => page.getByTestId(`step-${step}`).getAttribute('aria-selected'), POLL).toBe('true');
@@ -175,6 +177,7 @@ describe('the app as a control engineer meets it (e2e)', () => {
       }
     }
     await page.setViewportSize({ width: 1280, height: 800 });
+    if (stalledClicks.length) console.log(`clicks dispatched after headless Chromium stopped producing frames: ${stalledClicks.join('; ')}`);
   });
 
   it('logged no console errors', () => {

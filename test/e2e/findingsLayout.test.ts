@@ -17,7 +17,7 @@ import type { Page } from 'playwright-core';
 import { POLL } from './harness/poll';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
-import { goToStep } from '../renderer/e2e/appSteps';
+import { goToStep, setTheme } from '../renderer/e2e/appSteps';
 
 const SIZES = [{ width: 1280, height: 800, maxHeight: 4800 }, { width: 1920, height: 1080, maxHeight: 3 * 1080 }];
 
@@ -61,11 +61,6 @@ const inWindow = (page: Page, selector: string) => page.evaluate((sel) => {
 }, selector);
 
 const scrollHeight = (page: Page) => page.evaluate(() => document.documentElement.scrollHeight);
-
-async function setTheme(page: Page, theme: string): Promise<void> {
-  if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
-  await expect.poll(() => page.evaluate(() => document.documentElement.dataset.theme), POLL).toBe(theme);
-}
 
 describe('the Findings layout (e2e)', () => {
   let app: LaunchedApp;

@@ -17,6 +17,7 @@ import { openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
+import { setTheme } from '../renderer/e2e/appSteps';
 
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
@@ -225,7 +226,7 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
     for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
       await page.setViewportSize(size);
       for (const theme of ['light', 'dark']) {
-        if ((await page.getByTestId('toggle-theme').getAttribute('aria-pressed')) !== String(theme === 'dark')) await page.getByTestId('toggle-theme').click();
+        await setTheme(page, theme);
         await expect.poll(() => page.getByTestId('toggle-theme').getAttribute('aria-pressed'), POLL).toBe(String(theme === 'dark'));
         await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
         // Nothing on the step is wider than the page.

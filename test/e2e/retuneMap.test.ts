@@ -17,7 +17,7 @@ import { openAllFindings } from './harness/findingsSections';
 import { drawnPixels } from './harness/drawnPixels';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
-import { decodedPngContent, goToStep, pngSize } from '../renderer/e2e/appSteps';
+import { decodedPngContent, goToStep, pngSize, setTheme as switchTheme } from '../renderer/e2e/appSteps';
 import { layoutFaults, selectRoom, svgLayoutIn } from './harness/svgLayout';
 import { UNSTICK } from './harness/unstick';
 import { presetPixels, SIZE_PRESETS } from '../../src/renderer/src/screens/findings/exportSizes';
@@ -33,8 +33,7 @@ describe('the retune map in the app (e2e)', () => {
     const background = () => figure.evaluate((f) => (f as HTMLElement).style.background);
     const before = await background();
     if ((await page.evaluate(() => document.documentElement.dataset.theme)) === theme) return;
-    await page.getByTestId('toggle-theme').click();
-    await expect.poll(() => page.evaluate(() => document.documentElement.dataset.theme), POLL).toBe(theme);
+    await switchTheme(page, theme);
     await expect.poll(background, POLL).not.toBe(before);
   };
   beforeAll(async () => {
@@ -158,7 +157,7 @@ describe('the retune map in the app (e2e)', () => {
     for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
       await page.setViewportSize(size);
       for (const theme of ['light', 'dark']) {
-        if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
+        await switchTheme(page, theme);
         await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
         await panel.scrollIntoViewIfNeeded();
         // Drawn in this theme, not the last one's "drawn" read before the redraw began: what a person sees.

@@ -16,6 +16,7 @@ import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { runToAssessedFindings } from './harness/findingsSections';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
+import { setTheme } from '../renderer/e2e/appSteps';
 
 describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
   let app: LaunchedApp;
@@ -35,7 +36,7 @@ describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
     for (const [width, height] of [[1280, 800], [1920, 1080]]) {
       await page.setViewportSize({ width, height });
       for (const theme of ['light', 'dark']) {
-        if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
+        await setTheme(page, theme);
         await floor.scrollIntoViewIfNeeded();
         await app.screenshot(`reward-bounds-${width}-${theme}`);
       }

@@ -21,7 +21,7 @@ import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
 import { shootSection } from './harness/sectionShot';
-import { goToStep } from '../renderer/e2e/appSteps';
+import { goToStep, setTheme } from '../renderer/e2e/appSteps';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
 import { VALUES_CHART_TITLE } from '../../src/figures/parts/plotTheme';
 
@@ -35,11 +35,6 @@ async function shoot(page: Page, name: string): Promise<void> {
   await page.waitForFunction(() => document.querySelectorAll('.plot-placeholder').length === 0
     && [...document.querySelectorAll('figure[data-chart-state]')].every((f) => f.getAttribute('data-chart-state') !== 'waiting'), null, { timeout: 30_000 }).catch(() => undefined);
   await page.screenshot({ path: join(SHOTS, `${name}.png`), fullPage: true, style: UNSTICK });
-}
-
-async function setTheme(page: Page, theme: string): Promise<void> {
-  if ((await page.evaluate(() => document.documentElement.dataset.theme)) !== theme) await page.getByTestId('toggle-theme').click();
-  await expect.poll(() => page.evaluate(() => document.documentElement.dataset.theme), POLL).toBe(theme);
 }
 
 /** Visible text boxes whose text is wider than the box and is cut off (overflow hidden/clip, no ellipsis meant). */

@@ -11,7 +11,7 @@ import { POLL } from './harness/poll';
 import { openAllFindings } from './harness/findingsSections';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import {
-  addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, TANK_CSV,
+  addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, setTheme, TANK_CSV,
 } from '../renderer/e2e/appSteps';
 
 describe('a new user evaluates two candidates (e2e)', () => {
@@ -81,8 +81,9 @@ describe('a new user evaluates two candidates (e2e)', () => {
     await expect.poll(() => page.getByTestId('cautions').innerText(), POLL).toContain('advisory');
     await app.screenshot('workflow-5-findings-light');
     await app.harness.sendMenuCommand(page, 'toggle-theme');
+    await expect.poll(() => page.evaluate(() => document.documentElement.dataset.theme), POLL).toBe('dark');
     await app.screenshot('workflow-5-findings-dark');
-    await page.getByTestId('toggle-theme').click();
+    await setTheme(page, 'light');
     // 125 % zoom of the 1280 × 840 window: 1024 × 672 CSS pixels at 1.25 device pixels each.
     await page.setViewportSize({ width: 1024, height: 672 });
     await app.screenshot('workflow-5-findings-125-percent');

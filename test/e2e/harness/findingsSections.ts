@@ -4,18 +4,19 @@
  */
 import type { Page } from 'playwright-core';
 import { goToStep } from '../../renderer/e2e/appSteps';
+import { steadyClick } from './steadyClick';
 
 export async function openAllFindings(page: Page): Promise<void> {
   const button = page.getByTestId('open-all-sections');
   await button.waitFor({ timeout: 60_000 });
-  await button.click();
+  await steadyClick(button);
 }
 
 /** Open one Findings section from the section index (waiting for it: the assessment's sections appear when it is done). */
 export async function openFindingsSection(page: Page, id: string, timeout = 90_000): Promise<void> {
   const entry = page.getByTestId(`index-${id}`);
   await entry.waitFor({ timeout });
-  await entry.click();
+  await steadyClick(entry);
   await page.locator(`[data-section="${id}"][data-open="true"]`).waitFor({ timeout: 15_000 });
 }
 

@@ -6,6 +6,7 @@
 import { resolve } from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import type { LaunchedApp } from '../../e2e/harness/launch';
+import { steadyClick } from '../../e2e/harness/steadyClick';
 
 export const TANK_CSV = resolve(__dirname, '../../../sample-projects/tank-levels/tank-levels.csv');
 
@@ -17,7 +18,7 @@ export interface CandidateInput {
 }
 
 export async function goToStep(page: Page, step: 'plant-log' | 'candidates' | 'estimator' | 'run' | 'findings'): Promise<void> {
-  await page.getByTestId(`step-${step}`).click();
+  await steadyClick(page.getByTestId(`step-${step}`));
 }
 
 /** Choose a CSV through the scripted open-data dialog. */
@@ -101,4 +102,16 @@ export async function decodedPngContent(page: Page, bytes: Uint8Array): Promise<
     }
     return { colours: colours.size, differing: differing / (pixels.length / 4) };
   }, base64);
+}
+
+/** Switch the app to a theme with the toolbar's button (if it is not on it already) and wait until the page shows it. */
+export async function setTheme(page: Page, theme: string): Promise<void> {
+  const current = () => page.evaluate(() => document.documentElement.dataset.theme);
+  if ((await current()) === theme) return;
+  await steadyClick(page.getByTestId('toggle-theme'));
+  const deadline = Date.now() + 15_000;
+  while ((await current()) !== theme) {
+    if (Date.now() > deadline) throw new Error(`setTheme: the page still shows the ${await current()} theme 15 s after the toggle`);
+    await new Promise((r) => setTimeout(r, 50));
+  }
 }
