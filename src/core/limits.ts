@@ -181,3 +181,10 @@ export const SMALLEST_SHARE_SHOWN = 1e-4;
  * so the stored value is kept as it was.
  */
 export const EDITABLE_DIGITS = 15;
+
+/** Resamples a discount sweep's changes are checked on (pipeline/assessSweepCheck.ts; ours: the first of the assessment's own; a 90 % percentile end to about a tenth of the interval's width). */
+export const SWEEP_CHECK_RESAMPLES = 200;
+/** Fewest resamples with a value at both discounts for a pair of them to be checked (ours: below it a 90 % percentile end rests on too few replicates). */
+export const SWEEP_CHECK_MIN_PAIRED = 100;
+/** Largest (e·d² + discounts·d³)·resamples for which the sweep's check runs (about a second of one core; ours). */
+export const SWEEP_CHECK_BUDGET = 2e9;

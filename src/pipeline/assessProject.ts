@@ -155,6 +155,8 @@ async function assessWith(
   };
   const candidates = assembleCandidates(inputs);
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
+  const swept = settings.sensitivity ? await sensitivity(context, works, sign, settings) : null;
+  swept?.warnings.forEach((w, c) => candidates[c].warnings.push(...w));
   const unvisited = unvisitedShare(plan), solver = resampleSolver(works);
   return {
     settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver, threads },
@@ -163,7 +165,7 @@ async function assessWith(
     presentController: assemblePresentController(inputs),
     candidates,
     comparison: comparison(plan, replicates, works, baseline, settings.level),
-    sensitivity: settings.sensitivity ? await sensitivity(context, works, sign) : null,
+    sensitivity: swept?.sensitivity ?? null,
     unvisitedShare: unvisited,
     plantMemory: memory.summary,
     warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited)],

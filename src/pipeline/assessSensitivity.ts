@@ -21,7 +21,8 @@ import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturns } from '../core/loggedReturn';
 import type { ApproximatorSettings } from '../project/schema';
-import type { Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
+import type { AssessmentWarning, Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
+import { checkDiscountSweep, type SweepCheckSettings } from './assessSweepCheck';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { BEHAVIOUR_NAME } from './assessAssembly';
 import { polynomialClassLabel } from './assessClasses';
@@ -41,15 +42,17 @@ const WIDTH_FACTORS = [0.5, 1, 2];
 /** Feature maps larger than this are left out of the sweep (each costs a data pass of O(n·K·d²)). */
 const MAX_SWEEP_FEATURES = 300;
 
-export async function sensitivity(context: AssessmentContext, works: CandidateWork[], sign: number): Promise<Sensitivity> {
+/** The sweeps, and per candidate (works' order) the warnings the discount sweep's check raised (assessSweepCheck.ts). */
+export async function sensitivity(context: AssessmentContext, works: CandidateWork[], sign: number, check: SweepCheckSettings): Promise<{ sensitivity: Sensitivity; warnings: AssessmentWarning[][] }> {
   const a = context.plan.approximator;
   if (a.kind === 'network') {
-    return { curves: [await widthCurve(context, works, a, sign)], notes: ['With the network approximator every setting is a new network fit, so the discount is not swept.'] };
+    return { sensitivity: { curves: [await widthCurve(context, works, a, sign)], notes: ['With the network approximator every setting is a new network fit, so the discount is not swept.'] }, warnings: works.map(() => []) };
   }
-  const curves = [discountCurve(context, works, sign)];
+  const discount = discountCurve(context, works, sign, check), curves = [discount.curve];
   const features = await featureCurve(context, works, a, sign);
   if (features) curves.push(features);
-  return { curves, notes: ['Network sizes are swept when the project uses the network approximator; this project’s sweep covers the linear features.'] };
+  const notes = [...(discount.note ? [discount.note] : []), 'Network sizes are swept when the project uses the network approximator; this project’s sweep covers the linear features.'];
+  return { sensitivity: { curves, notes }, warnings: discount.warnings };
 }
 
 /** γ^(1/f): the discount with its time constant scaled by f, inside (0, 1) for every γ there. */
@@ -57,16 +60,21 @@ export function sweptDiscount(discount: number, factor: number): number {
   return discount ** (1 / factor);
 }
 
-function discountCurve(context: AssessmentContext, works: CandidateWork[], sign: number): SensitivityCurve {
-  const { plan } = context, settings = HORIZON_FACTORS.map((f) => sweptDiscount(plan.discount, f));
-  const series: SensitivitySeries[] = works.map((w) => {
+/** The discount curve with its check against what the rewards allow (assessSweepCheck.ts): marked points, the settings the ranking leaves out, warnings. */
+function discountCurve(context: AssessmentContext, works: CandidateWork[], sign: number, check: SweepCheckSettings): { curve: SensitivityCurve; warnings: AssessmentWarning[][]; note: string | null } {
+  const { plan } = context, settings = HORIZON_FACTORS.map((f) => sweptDiscount(plan.discount, f)), projectIndex = HORIZON_FACTORS.indexOf(1);
+  const fitted = works.map((w) => {
     const setup = linearSolveSettings(plan, w.model), { statistics, startFeatures, features } = w.model.linear!;
     const xiBar = meanStartFeatures(startFeatures, features.dim);
-    const fits = settings.map((g) => solveReplicate({ ...setup, discount: g }, statistics, xiBar));
-    return { name: w.model.name, values: fits.map((f) => (f.policyValue === null ? null : sign * f.policyValue)), status: fits.map((f) => f.status) };
+    return settings.map((g) => solveReplicate({ ...setup, discount: g }, statistics, xiBar));
   });
+  const swept = checkDiscountSweep(context, works, settings, projectIndex, fitted.map((fits) => fits.map((f) => f.policyValue)), fitted.map((fits) => fits.map((f) => f.status === 'converged')), check);
+  const series: SensitivitySeries[] = works.map((w, c) => ({
+    name: w.model.name, values: fitted[c].map((f) => (f.policyValue === null ? null : sign * f.policyValue)), status: fitted[c].map((f) => f.status),
+    ...(swept.marks[c].some(Boolean) ? { beyondPossible: swept.marks[c] } : {}),
+  }));
   series.push({ name: BEHAVIOUR_NAME, values: loggedDiscountedReturns(plan.data, settings).map((r) => sign * r.value), status: settings.map(() => 'logged'), reference: true });
-  return finish('discount', 'discount factor γ', settings, HORIZON_FACTORS.indexOf(1), series, sign);
+  return { curve: finish('discount', 'discount factor γ', settings, projectIndex, series, sign), warnings: swept.warnings, note: swept.note };
 }
 
 async function featureCurve(context: AssessmentContext, works: CandidateWork[], a: LinearSettings, sign: number): Promise<SensitivityCurve | null> {
@@ -155,5 +163,10 @@ function finish(
 ): SensitivityCurve {
   const orderAt = (i: number) => series.filter((s) => s.values[i] !== null).sort((x, y) => sign * ((y.values[i] as number) - (x.values[i] as number))).map((s) => s.name).join('>');
   const reference = orderAt(projectIndex);
-  return { parameter, label, settings, projectIndex, series, rankingStable: settings.every((_, i) => orderAt(i) === reference) };
+  // A setting where some J cannot be right says nothing about the ranking: the verdict leaves it out, and says so.
+  const leftOut = settings.flatMap((_, i) => (i !== projectIndex && series.some((s) => s.beyondPossible?.[i]) ? [i] : []));
+  return {
+    parameter, label, settings, projectIndex, series, rankingStable: settings.every((_, i) => leftOut.includes(i) || orderAt(i) === reference),
+    ...(leftOut.length ? { leftOut } : {}),
+  };
 }

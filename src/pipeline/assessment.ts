@@ -180,6 +180,8 @@ export interface SensitivitySeries {
   status: string[];
   /** True on the logged return's series, drawn as the reference line (absent in results saved before it was added). */
   reference?: boolean;
+  /** True at the points that cannot be right: their change from a neighbouring discount lies outside what the rewards allow (assessSweepCheck.ts); absent where nothing was found or checked. */
+  beyondPossible?: boolean[];
 }
 
 export interface SensitivityCurve {
@@ -189,8 +191,10 @@ export interface SensitivityCurve {
   /** Index of the project's own setting in `settings`. */
   projectIndex: number;
   series: SensitivitySeries[];
-  /** Whether the ranking by J (candidates and behaviour where shown) is the same at every setting. */
+  /** Whether the ranking by J (candidates and behaviour where shown) is the same at every setting, those in `leftOut` aside. */
   rankingStable: boolean;
+  /** Settings (indices) the ranking verdict leaves out because a J there cannot be right (a series' beyondPossible); absent when none. */
+  leftOut?: number[];
 }
 
 export interface Sensitivity {

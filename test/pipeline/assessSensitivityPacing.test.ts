@@ -21,11 +21,12 @@ describe('the sensitivity sweep’s refit pass', () => {
     const base = { plan: run.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
     const counting: AssessmentContext = { ...base, pace: async () => { paced++; } };
     // No function classes fitted beside the project's degree 2: degrees 1 and 3 each take a data pass.
-    const finished = await sensitivity(counting, [candidateWork(counting, run.models[0])], -1);
+    const check = { level: 0.9, seed: 1, resamples: 200 };
+    const { sensitivity: finished } = await sensitivity(counting, [candidateWork(counting, run.models[0])], -1, check);
     expect(finished.curves.map((c) => c.parameter)).toEqual(['discount', 'polynomialDegree']);
     expect(paced).toBeGreaterThan(0);
     const stopping: AssessmentContext = { ...base, cancel: () => stopped, pace: async () => { stopped = true; } };
-    await expect(sensitivity(stopping, [candidateWork(stopping, run.models[0])], -1)).rejects.toThrow(FqeCancelledError);
+    await expect(sensitivity(stopping, [candidateWork(stopping, run.models[0])], -1, check)).rejects.toThrow(FqeCancelledError);
     run.dispose();
   });
 });

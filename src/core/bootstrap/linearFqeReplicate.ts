@@ -67,14 +67,31 @@ export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: 
  * before any statistics are formed, as one at a time.
  */
 export function linearFqeReplicateBlock(setup: LinearReplicateSetup, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[]): LinearReplicate[] {
+  return replicateBlock(setup, block, scratch, (stats, xiBar) => solveReplicate(setup, stats, xiBar), { policyValue: null, weights: null, status: 'noStartStates' });
+}
+
+/**
+ * linearFqeReplicateBlock at several discounts: each resample's statistics, which do not depend on
+ * γ, formed once and solved at each discount (for a discount sweep's paired changes). values[r][k]
+ * is resample r's J at discounts[k]; null where that solve has no solution or did not converge.
+ */
+export function linearFqeReplicateDiscounts(
+  setup: LinearReplicateSetup, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[], discounts: readonly number[],
+): (number | null)[][] {
+  return replicateBlock(setup, block, scratch, (stats, xiBar) => discounts.map((discount) => {
+    const fit = solveReplicate({ ...setup, discount }, stats, xiBar);
+    return fit.status === 'converged' ? fit.policyValue : null;
+  }), discounts.map(() => null));
+}
+
+function replicateBlock<T>(
+  setup: LinearReplicateSetup, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[], solve: (stats: BellmanStatistics, xiBar: Float64Array) => T, noStarts: T,
+): T[] {
   const startWeights = block.map((c) => (setup.startsFollowEpisodes ? startMultiplicities(c, setup.startEpisode) : undefined));
   const holds = startWeights.map((w) => !w || holdsStartState(w));
   const stats = resampleBellmanStatisticsBlock(setup.sums, block.filter((_, r) => holds[r]), scratch);
   let next = 0;
-  return block.map((_, r): LinearReplicate => {
-    if (!holds[r]) return { policyValue: null, weights: null, status: 'noStartStates' };
-    return solveReplicate(setup, stats[next++], meanStartFeatures(setup.startFeatures, setup.sums.dim, startWeights[r]));
-  });
+  return block.map((_, r): T => (holds[r] ? solve(stats[next++], meanStartFeatures(setup.startFeatures, setup.sums.dim, startWeights[r])) : noStarts));
 }
 
 /** The solve on given statistics (also used for the full data and for a discount sweep). */

@@ -46,8 +46,11 @@ export interface SensitivityData {
   label: string;
   settings: number[];
   projectIndex: number;
-  series: { name: string; values: (number | null)[]; reference?: boolean }[];
+  /** beyondPossible: true at the points that cannot be right (drawn as crosses; assessSweepCheck.ts). */
+  series: { name: string; values: (number | null)[]; reference?: boolean; beyondPossible?: boolean[] }[];
   rankingStable: boolean;
+  /** Settings the ranking verdict leaves out because a J there cannot be right. */
+  leftOut?: number[];
 }
 
 /** The worker's slice of Q(s, ·) along one action at one state. Arrays: n, ascending actions. */

@@ -7,13 +7,63 @@
 import type { ChartConfiguration, ChartDataset } from 'chart.js';
 import type { SensitivityData as SensitivityCurve } from './figureData';
 import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
-import { legendPlugin } from '../parts/legendBox';
+import { legendPlugin, type LegendKey } from '../parts/legendBox';
 import { LOGGED_RETURN, LOGGED_RETURN_LABEL, PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatValue } from '../parts/tickFormat';
 
-export const SENSITIVITY_DEFAULTS = { heightPx: 300, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6 } as const;
+export const SENSITIVITY_DEFAULTS = { heightPx: 300, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6, crossRadiusPx: 7, crossWidthPx: 2.5 } as const;
+
+/** The legend's words for a crossed point: a J whose change from another discount lies beyond what the per-step values allow. */
+export const BEYOND_POSSIBLE_KEY = 'J that cannot be right: it changes with γ by more than the per-step values allow';
+
+/**
+ * The ranking verdict of one sweep, as every host says it (chart subtitle, panel, report, summary):
+ * the settings where a J cannot be right are left out, and named.
+ */
+export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings'>): string {
+  const base = curve.rankingStable ? 'the ranking is the same at every setting' : 'the ranking changes within this range';
+  const out = curve.leftOut ?? [];
+  if (!out.length) return base;
+  const where = out.map((i) => formatValue(curve.settings[i])).join(', ');
+  return `${base}${curve.rankingStable ? ' where every J can be right' : ''} (left out: ${where}, where a J cannot be right)`;
+}
+
+/**
+ * Which points are crossed, in one sentence for the panel and the report ("J of “A” at 0.966 and 0.975
+ * cannot be right …"); null when none is. `name` shows a series' name as the host does.
+ */
+export function beyondPossibleSentence(curve: Pick<SensitivityCurve, 'series' | 'settings'>, name: (n: string) => string = (n) => n): string | null {
+  const parts = curve.series.flatMap((serie) => {
+    const at = curve.settings.flatMap((x, i) => (serie.beyondPossible?.[i] ? [formatValue(x)] : []));
+    return at.length ? [`of “${name(serie.name)}” at ${at.length > 1 ? `${at.slice(0, -1).join(', ')} and ${at[at.length - 1]}` : at[0]}`] : [];
+  });
+  if (!parts.length) return null;
+  return `Crossed points: J ${parts.join('; ')} cannot be right — its change from another setting lies beyond what the per-step values allow, on paired resamples of the runs (the candidate’s warnings say by how much).`;
+}
+
+/** rankingVerdict as a sentence of its own. */
+export function rankingSentence(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings'>): string {
+  return `${sentence(rankingVerdict(curve))}.`;
+}
+
+/** A cross in a legend swatch, as Chart.js draws 'crossRot' points. */
+function crossSwatch(radiusPx: number, widthPx: number, colour: string): NonNullable<LegendKey['overlay']> {
+  return (ctx, rect, look) => {
+    const r = radiusPx * look.scale * Math.SQRT1_2, x = rect.x + rect.width / 2, y = rect.y + rect.height / 2;
+    ctx.save();
+    ctx.strokeStyle = colour;
+    ctx.lineWidth = widthPx * look.scale;
+    ctx.beginPath();
+    ctx.moveTo(x - r, y - r);
+    ctx.lineTo(x + r, y + r);
+    ctx.moveTo(x - r, y + r);
+    ctx.lineTo(x + r, y - r);
+    ctx.stroke();
+    ctx.restore();
+  };
+}
 
 export interface SensitivityPlotProps {
   curve: SensitivityCurve;
@@ -44,15 +94,18 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
       label: reference ? LOGGED_RETURN_LABEL : serie.name,
       data: curve.settings.map((x, i) => ({ x, y: serie.values[i] })),
       borderColor: colour, backgroundColor: colour, borderWidth: d.lineWidthPx * s, borderDash: reference ? PRESENT_DASH_PX.map((v) => v * s) : [],
-      pointRadius: curve.settings.map((_, i) => (i === curve.projectIndex ? d.projectPointRadiusPx : d.pointRadiusPx) * s),
+      pointRadius: curve.settings.map((_, i) => (serie.beyondPossible?.[i] ? d.crossRadiusPx : i === curve.projectIndex ? d.projectPointRadiusPx : d.pointRadiusPx) * s),
+      pointStyle: curve.settings.map((_, i) => (serie.beyondPossible?.[i] ? 'crossRot' as const : 'circle' as const)),
+      pointBorderWidth: curve.settings.map((_, i) => (serie.beyondPossible?.[i] ? d.crossWidthPx : 1) * s),
       spanGaps: false,
     };
   });
-  const shared = sharedOptions(look, props.title, `large points: the project’s setting (${formatValue(curve.settings[curve.projectIndex] ?? NaN)}); ${curve.rankingStable ? 'the ranking is the same at every setting' : 'the ranking changes within this range'}`);
-  const keys = datasets.map((set) => ({
+  const shared = sharedOptions(look, props.title, `large points: the project’s setting (${formatValue(curve.settings[curve.projectIndex] ?? NaN)}); ${rankingVerdict(curve)}`);
+  const keys: LegendKey[] = datasets.map((set) => ({
     label: String(set.label), kind: 'line' as const, colour: String(set.borderColor), lineWidthPx: d.lineWidthPx,
     dash: (set.borderDash as number[]).map((v) => v / s), markerRadiusPx: d.pointRadiusPx,
   }));
+  if (curve.series.some((serie) => serie.beyondPossible?.some(Boolean))) keys.push({ label: BEYOND_POSSIBLE_KEY, kind: 'marker', colour: p.mutedText, overlay: crossSwatch(d.crossRadiusPx, d.crossWidthPx, p.mutedText) });
   return {
     type: 'line',
     data: { datasets },
@@ -92,5 +145,9 @@ export function sensitivitySummary(props: SensitivityPlotProps): string {
     return shown.length === 0 ? `${serie.name}: no values` : `${serie.name} from ${formatValue(Math.min(...shown))} to ${formatValue(Math.max(...shown))}`;
   });
   return `${props.valueLabel} over ${curve.label} from ${formatValue(curve.settings[0])} to ${formatValue(curve.settings[curve.settings.length - 1])}: ${lines.join('; ')}. `
-    + (curve.rankingStable ? 'The ranking is the same at every setting.' : 'The ranking changes within this range.');
+    + rankingSentence(curve);
+}
+
+function sentence(text: string): string {
+  return text.charAt(0).toUpperCase() + text.slice(1);
 }

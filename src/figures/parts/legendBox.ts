@@ -28,7 +28,7 @@ export interface LegendKey {
   readonly hatch?: HatchStyle;
   /** Border width of an area or hatch swatch in CSS px (default 1). */
   readonly borderWidthPx?: number;
-  /** Drawn over the swatch after its border, e.g. a double outline (a function: local to the chart, never cloned). */
+  /** Drawn over the swatch after its border (a double outline), or in a line's or marker's place (a cross): a function, local to the chart, never cloned. */
   readonly overlay?: (ctx: CanvasRenderingContext2D, rect: { x: number; y: number; width: number; height: number }, look: PlotLook) => void;
 }
 
@@ -123,6 +123,7 @@ function drawKey(ctx: CanvasRenderingContext2D, key: LegendKey, left: number, mi
     ctx.arc(left + width / 2, middle, key.markerRadiusPx * s, 0, 2 * Math.PI);
     ctx.fill();
   }
+  if (key.kind === 'line' || key.kind === 'marker') key.overlay?.(ctx, { x: left, y: middle - h / 2, width, height: h }, look);
   ctx.restore();
 }
 

@@ -110,7 +110,7 @@ export function AnswerPanel({ evaluation, assessment }: { evaluation: Evaluation
       {assessment && (
         <p className="small answer-more">
           Read more: <JumpLink section="comparison">paired comparison</JumpLink> · <JumpLink section="crossChecks">cross-checks</JumpLink> · <JumpLink section="coverage">coverage and warnings</JumpLink>
-          {assessment.sensitivity && <> · <JumpLink section="sensitivity">sensitivity</JumpLink> ({assessment.sensitivity.curves.every((c) => c.rankingStable) ? 'ranking the same at every setting' : 'ranking changes with a setting'})</>}
+          {assessment.sensitivity && <> · <JumpLink section="sensitivity">sensitivity</JumpLink> ({assessment.sensitivity.curves.every((c) => c.rankingStable) ? 'ranking the same at every setting' : 'ranking changes with a setting'}{assessment.sensitivity.curves.some((c) => c.leftOut?.length) ? '; some J cannot be right' : ''})</>}
         </p>
       )}
     </FoldPanel>

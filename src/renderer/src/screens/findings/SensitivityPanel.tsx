@@ -4,6 +4,7 @@ import type { Sensitivity } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import { SelectField } from '../../components/SelectField';
 import { SensitivityPlot } from '../../plots';
+import { beyondPossibleSentence, rankingSentence } from '../../../../figures/charts/sensitivity';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
 import { FoldPanel } from './FoldPanel';
@@ -16,10 +17,11 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
   const curve = sensitivity.curves[index] ?? sensitivity.curves[0];
   const shown = useMemo(() => curve && { ...curve, series: curve.series.map((s) => ({ ...s, name: displayName(s.name) })) }, [curve]);
   if (!curve || !shown) return null;
+  const crossed = beyondPossibleSentence(curve, displayName);
   const title = `J against the ${curve.label}`;
   const props = { curve: shown, valueLabel: policyValueLabel(evaluation.valueSense, valueUnit(doc)), title, theme };
   return (
-    <FoldPanel section="sensitivity" testId="sensitivity" gist={`J against ${sensitivity.curves.map((c) => `the ${c.label}`).join(' and ')}: ${sensitivity.curves.every((c) => c.rankingStable) ? 'the ranking is the same at every setting shown' : 'the ranking changes within the range'}.`}>
+    <FoldPanel section="sensitivity" testId="sensitivity" gist={`J against ${sensitivity.curves.map((c) => `the ${c.label}`).join(' and ')}: ${sensitivity.curves.every((c) => c.rankingStable) ? 'the ranking is the same at every setting shown' : 'the ranking changes within the range'}${sensitivity.curves.some((c) => c.leftOut?.length) ? '; some J cannot be right (crossed)' : ''}.`}>
       <p className="small muted">J refitted at other settings on the full data. If the lines cross inside the range, the conclusion depends on that setting.</p>
       {sensitivity.curves.length > 1 && (
         <div className="row">
@@ -28,7 +30,8 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
         </div>
       )}
       <SensitivityPlot {...props} />
-      <p data-testid="sensitivity-verdict">{curve.rankingStable ? 'The ranking is the same at every setting shown.' : 'The ranking changes within this range: the conclusion depends on this setting.'}</p>
+      <p data-testid="sensitivity-verdict">{rankingSentence(curve)}{curve.rankingStable ? '' : ' The conclusion depends on this setting.'}</p>
+      {crossed && <p className="small" data-testid="sensitivity-crossed">{crossed}</p>}
       {sensitivity.notes.map((n) => <p key={n} className="small muted">{n}</p>)}
       <ExportPanel kind="sensitivity" evaluation={evaluation} defaultTitle={title} policy={curve.series.map((s) => s.name).join(', ')}
         fileBase={`sensitivity-${curve.parameter}`} makeSpec={(t) => ({ kind: 'sensitivity', props: { ...props, title: t } })} />
