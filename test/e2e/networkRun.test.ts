@@ -5,6 +5,7 @@
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { addCandidate, chooseData, goToStep, mapTankColumns, runAndReadValues, TANK_CSV } from '../renderer/e2e/appSteps';
+import { POLL } from './harness/poll';
 
 let app: LaunchedApp;
 beforeAll(async () => { app = await launchApp(); });
@@ -28,7 +29,7 @@ describe('a network fit in the app', () => {
     }
     const [value] = await runAndReadValues(page, 1);
     expect(Number.isFinite(value)).toBe(true);
-    await expect.poll(() => page.getByTestId('policy-account-0').textContent()).toMatch(/Computed by TensorFlow\.js \((WebAssembly|plain JavaScript)\)/);
+    await expect.poll(() => page.getByTestId('policy-account-0').textContent(), POLL).toMatch(/Computed by TensorFlow\.js \((WebAssembly|plain JavaScript)\)/);
     expect(await page.getByTestId('policy-account-0').textContent()).toMatch(/TensorFlow\.js \(WebAssembly\)/);
     await app.screenshot('network-findings');
     expect(app.consoleErrors).toEqual([]);

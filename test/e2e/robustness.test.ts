@@ -166,7 +166,7 @@ describe('the app under trouble (e2e)', () => {
     const discards = () => harness.apiCalls.filter((c) => c.method === 'discardRecovery').length;
     const before = discards();
     await page.getByTestId('save-project').click();
-    await expect.poll(discards).toBeGreaterThan(before); // the save has finished
+    await expect.poll(discards, POLL).toBeGreaterThan(before); // the save has finished
     await expect(readFile(projectPath, 'utf8')).resolves.toBe(text);
   });
 
