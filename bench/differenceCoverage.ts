@@ -6,8 +6,11 @@
  * the exact and estimated difference, its interval, whether it holds, the share "better in", the
  * width in % of |J|, whether J's own interval and the present controller's hold, J's error, the
  * function-class verdict, the serious warnings and the network's agreement verdict; PAIRS=1 adds
- * the candidates' difference from each other.
- *   N=20000 SEEDS=1,2,3 KINDS=network,linear [PLANTS=a,b] [PAIRS=1] nice -n 10 npx tsx bench/differenceCoverage.ts
+ * the candidates' difference from each other. ALT=1 (linear only) adds, on the same resamples,
+ * whether the studentised interval (per-resample standard error from influence values at the
+ * full-data fit, then at each resample's own fit) and BCa hold, with their widths
+ * (differenceIntervals.ts), and whether its percentile interval equals the assessment's.
+ *   N=20000 SEEDS=1,2,3 KINDS=network,linear [PLANTS=a,b] [PAIRS=1] [ALT=1] nice -n 10 npx tsx bench/differenceCoverage.ts
  * (The measured table is in test/battery/README.md, "Differences from the present controller".)
  */
 import { batteryPlants } from '../test/battery/catalogue';
@@ -19,6 +22,7 @@ import type { ProjectRun } from '../src/pipeline/projectRun';
 import { closedFormPolicyCost, lqClosedForm, rewardFromCost } from '../src/core/lq';
 import { createGaussianPolicy, type GaussianPolicy } from '../src/core/policy';
 import type { LinearQuadraticBatteryPlant } from '../test/battery/linearQuadraticPlant';
+import { differenceIntervals, type Interval } from './differenceIntervals';
 
 const transitions = Number(process.env.N ?? 20000), seeds = (process.env.SEEDS ?? '1,2,3').split(',').map(Number);
 const kinds = (process.env.KINDS ?? 'network,linear').split(',');
@@ -26,7 +30,7 @@ const only = process.env.PLANTS?.split(',');
 const plants = batteryPlants().filter((p) => p.kind === 'linearQuadratic' && (!only || only.includes(p.name))) as LinearQuadraticBatteryPlant[];
 
 async function main() {
-  console.log(['plant', 'seed', 'kind', 'candidate', 'status', 'truth diff', 'diff', 'lo', 'hi', 'holds', 'better in', 'width/|truth J|', 'J holds', 'today holds', 'today bounds', 'J err %', 'settled', 'serious', 'agreement'].join('\t'));
+  console.log(['plant', 'seed', 'kind', 'candidate', 'status', 'truth diff', 'diff', 'lo', 'hi', 'holds', 'better in', 'width/|truth J|', 'J holds', 'today holds', 'today bounds', 'J err %', 'settled', 'serious', 'agreement', ...(process.env.ALT ? ['same pct', 't-fixed holds', 't-fixed width', 't-refit holds', 't-refit width', 'bca holds', 'bca width'] : [])].join('\t'));
   for (const plant of plants) for (const seed of seeds) for (const kind of kinds) {
     const data = plant.simulate({ transitions, seed });
     const doc = plantProject(plant, plant.name, plant.candidates.map((c) => {
@@ -50,6 +54,7 @@ async function main() {
         const d = a.value.comparison.differences.find((q) => q.a === x.name && q.b === y.name)!, iv = d.difference.percentile!;
         console.log(['PAIR', plant.name, seed, (tx - ty).toPrecision(4), d.difference.value.toPrecision(4), iv[0].toPrecision(4), iv[1].toPrecision(4), iv[0] <= tx - ty && tx - ty <= iv[1]].join('\t'));
       }
+      const alt = process.env.ALT && kind === 'linear' ? differenceIntervals(r, seed, 200, 0.9) : null;
       a.value.candidates.forEach((c, i) => {
         const spec = plant.candidates[i].spec, truth = exact(createGaussianPolicy(spec, plant.stateDim)) - today;
         const d = a.value.comparison.differences.find((x) => x.a === c.name && x.b === a.value.comparison.baseline.name);
@@ -60,9 +65,15 @@ async function main() {
           a.value.presentController?.policyValue.percentile ? a.value.presentController.policyValue.percentile[0] <= today && today <= a.value.presentController.policyValue.percentile[1] : '-',
           r.presentController!.policy.bounds ? 'bounded' : 'none', (100 * (c.policyValue.value / tJ - 1)).toFixed(1), c.settled,
           c.warnings.filter((w) => w.severity === 'serious').length + a.value.warnings.filter((w) => w.severity === 'serious').length,
-          r.models[i].fit.linearComparison?.agreement.verdict ?? '-'].join('\t'));
+          r.models[i].fit.linearComparison?.agreement.verdict ?? '-', ...(alt ? altColumns(alt[i], iv, truth, tJ) : [])].join('\t'));
       });
     } finally { r.dispose(); }
   }
+}
+/** Whether the percentile interval recomputed on the same resamples is the assessment's, then each other method's "holds" and width / |truth J|. */
+function altColumns(alt: ReturnType<typeof differenceIntervals>[number], iv: readonly [number, number] | null, truth: number, tJ: number): (string | boolean)[] {
+  const same = iv !== null && Math.abs(alt.percentile[0] - iv[0]) + Math.abs(alt.percentile[1] - iv[1]) <= 1e-9 * (1 + Math.abs(iv[0]) + Math.abs(iv[1]));
+  const cols = (x: Interval) => [x[0] <= truth && truth <= x[1], ((x[1] - x[0]) / Math.abs(tJ)).toFixed(3)];
+  return [same, ...cols(alt.studentisedFixed), ...cols(alt.studentisedRefit), ...cols(alt.bca)];
 }
 void main();

@@ -53,6 +53,8 @@ export interface LinearisationInput {
   readonly startFeatures: Float64Array;
   readonly startsFollowEpisodes: boolean;
   readonly startEpisode?: Int32Array;
+  /** ξ̄ of a resample (its start states weighted by their multiplicities); absent: the plain mean of startFeatures. */
+  readonly meanStartFeatures?: Float64Array;
   readonly cancel?: CancellationCheck;
 }
 
@@ -75,6 +77,7 @@ export function influenceSetup(input: LinearisationInput): InfluenceSetup {
     startValues[s] = dot(xi, w);
     for (let f = 0; f < d; f++) xiBar[f] += xi[f] / starts;
   }
+  if (input.meanStartFeatures) xiBar.set(input.meanStartFeatures);
   const system = ridgeGram(statistics, input.ridge, features.constantIndex);
   for (let k = 0; k < d * d; k++) system[k] -= discount * statistics.crossNext[k];
   const v = luSolve(luFactor(transpose(system, d, d), d), xiBar); // v = A⁻ᵀ ξ̄
