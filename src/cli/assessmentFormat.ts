@@ -4,6 +4,7 @@ import { plantMemorySentence } from '../pipeline/plantMemoryWords';
 import { policyLabel } from '../pipeline/policyNames';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { shareText } from '../core/shareText';
+import { beyondPossibleSentence, rankingVerdict } from '../figures/charts/sensitivity';
 import { textTable as table } from './textTable';
 import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
 
@@ -45,6 +46,8 @@ export function formatAssessment(a: Assessment): string {
   const cuts = a.candidates.flatMap((c) => (c.rangeCut ? [`  ${c.name}: ${c.rangeCut}`] : []));
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
   const memory = plantMemorySentence(a.plantMemory);
+  // The sweeps in a line each, by the figure's own verdict (figures/charts/sensitivity.ts): the numbers are in --json and the report.
+  const sweeps = a.sensitivity ? a.sensitivity.curves.flatMap((c) => [`  J against the ${c.label}: ${rankingVerdict(c)}.`, ...[beyondPossibleSentence(c)].flatMap((x) => (x ? [`    ${x}`] : []))]) : [];
   return [
     `Bootstrap over ${a.settings.episodes} runs: ${a.settings.resamples} resamples, level ${level}, seed ${a.settings.seed}. Baseline: ${policyLabel(a.comparison.baseline.name)}.`,
     a.comparison.baseline.note,
@@ -59,6 +62,7 @@ export function formatAssessment(a: Assessment): string {
     '',
     'Cross-checks:',
     ...checks,
+    ...(sweeps.length ? ['', 'Sensitivity (J refitted at other settings):', ...sweeps] : []),
     ...(memory ? ['', memory] : []),
     ...(warnings.length ? ['', 'Assessment warnings:', ...warnings.map((w) => `  - [${w.severity}] ${w.message}`)] : []),
     '',

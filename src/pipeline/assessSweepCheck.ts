@@ -24,6 +24,7 @@ import { SWEEP_CHECK_BUDGET, SWEEP_CHECK_MIN_PAIRED, SWEEP_CHECK_RESAMPLES } fro
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import { ASCII_MINUS, intervalAtPrecision, plainNumber, valueAtPrecision } from '../figures/parts/uncertainNumber';
 import { boundText } from '../figures/parts/boundText';
+import { formatValue } from '../figures/parts/tickFormat';
 import type { AssessmentWarning } from './assessment';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import type { EvaluationPlan } from './plan/evaluationPlan';
@@ -119,7 +120,7 @@ function sweepWarning(
   f: { pair: ImpossibleChange; change: number; interval: [number, number]; range: PossibleChange },
   ownPair: boolean, pairs: number, resamples: number, level: number, bounds: RewardRange,
 ): AssessmentWarning {
-  const s = plan.sign, { earlier: i, later: j } = f.pair, g = (k: number) => plainNumber(settings[k], 3, ASCII_MINUS);
+  const s = plan.sign, { earlier: i, later: j } = f.pair, g = (k: number) => formatValue(settings[k]); // as the figure and its verdict write a swept discount
   const at = (k: number) => `${plainNumber(s * values[k]!, 4, ASCII_MINUS)} at γ ${g(k)}`;
   const change: [number, number] = s > 0 ? f.interval : [-f.interval[1], -f.interval[0]];
   const allowed: [number, number] = s > 0 ? [f.range.lower, f.range.upper] : [0 - f.range.upper, 0 - f.range.lower];
