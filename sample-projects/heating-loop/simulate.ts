@@ -127,11 +127,11 @@ function advance(state: Float64Array, valvePct: number, rng: RandomSource): numb
  * outdoor temperature, the zone error integral Σ (21 − T)·60 s (K·s) and the previous valve
  * opening (%), as the project derives them on import — by seeded rollouts of this plant from
  * given start states (count×4). Returns the mean over starts of each start's mean discounted cost
- * over `horizon` steps (0.95^400 ≈ 1e−9) and its standard error given the starts,
+ * over `horizon` steps (0.95^400 ≈ 1e−9) at `discount` (the project's 0.95 unless given) and its standard error given the starts,
  * √(Σ_i s_i²/R)/count. Costs, as the project reports them.
  */
 export function heatingCandidateCost(
-  policy: GaussianPolicy, starts: Float64Array, rolloutsPerStart: number, seed: number, horizon = 400,
+  policy: GaussianPolicy, starts: Float64Array, rolloutsPerStart: number, seed: number, horizon = 400, discount = heatingDiscount,
 ): { cost: number; standardError: number } {
   if (policy.stateDim !== 4 || policy.actionDim !== 1) throw new RangeError('policy: expected the four states of the sample project and one action');
   const rng = createRandom(seed), count = starts.length / 4, r = rolloutsPerStart, p = heatingPlantParameters;
@@ -142,7 +142,7 @@ export function heatingCandidateCost(
     for (let k = 0; k < r; k++) {
       state.set(starts.subarray(4 * i, 4 * i + 4));
       let ret = 0, weight = 1;
-      for (let t = 0; t < horizon; t++, weight *= heatingDiscount) {
+      for (let t = 0; t < horizon; t++, weight *= discount) {
         sampleAction(policy, state, rng, action);
         const applied = Math.min(p.valveMaxPct, Math.max(p.valveMinPct, action[0]));
         plant[0] = state[0];

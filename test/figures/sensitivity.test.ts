@@ -1,7 +1,7 @@
 /** The sensitivity chart: one line per series, the behaviour dashed in the reference colour, the project's setting marked, gaps kept. */
 import { describe, expect, it } from 'vitest';
 import { screenLook } from '../../src/figures/parts/plotLook';
-import { sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
+import { BEYOND_POSSIBLE_KEY, beyondPossibleSentence, rankingVerdict, sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
 import { discountSweep } from './syntheticSensitivity';
 
 describe('sensitivity chart', () => {
@@ -29,6 +29,22 @@ describe('sensitivity chart', () => {
     expect(sets.map((s) => s.borderColor === look.palette.reference)).toEqual([false, false, true]);
     const saved = { ...base, series: [base.series[0], { ...base.series[2], reference: undefined }] }; // results saved before the mark
     expect(sensitivityChart({ ...props, curve: saved }, look).data.datasets[1].borderColor).toBe(look.palette.reference);
+  });
+
+  it('draws a point that cannot be right as a cross, keys it in the legend, and names the settings the ranking leaves out', () => {
+    const base = discountSweep();
+    const curve = { ...base, leftOut: [4], series: [base.series[0], { ...base.series[1], beyondPossible: [false, false, false, false, true] }, base.series[2]] };
+    const config = sensitivityChart({ ...props, curve }, look), sets = config.data.datasets;
+    expect((sets[1] as { pointStyle: string[] }).pointStyle).toEqual(['circle', 'circle', 'circle', 'circle', 'crossRot']);
+    expect((sets[0] as { pointStyle: string[] }).pointStyle.every((p) => p === 'circle')).toBe(true);
+    expect(rankingVerdict(curve)).toBe('the ranking is the same at every setting where every J can be right (left out: 0.99, where a J cannot be right)');
+    expect(rankingVerdict(curve, true)).toBe('the ranking is the same at every setting where every J can be right');
+    expect(beyondPossibleSentence(curve)).toMatch(/^Crossed points: J of “sharp gain” at 0\.99 cannot be right/);
+    expect(sensitivitySummary({ ...props, curve })).toContain('(left out: 0.99, where a J cannot be right).');
+    // Nothing crossed: no cross key, no sentence, the verdict as before.
+    expect(beyondPossibleSentence(base)).toBeNull();
+    expect(rankingVerdict(base)).toBe('the ranking is the same at every setting');
+    expect(BEYOND_POSSIBLE_KEY.length).toBeLessThan(50); // one legend line in the app's half-width card at 1280 px (seen cut at 72 characters)
   });
 
   it('puts a whole-valued setting (the polynomial degree) on whole-number ticks only, a discount on fractional ones', () => {

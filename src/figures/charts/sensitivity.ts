@@ -15,19 +15,20 @@ import { formatValue } from '../parts/tickFormat';
 
 export const SENSITIVITY_DEFAULTS = { heightPx: 300, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6, crossRadiusPx: 7, crossWidthPx: 2.5 } as const;
 
-/** The legend's words for a crossed point: a J whose change from another discount lies beyond what the per-step values allow. */
-export const BEYOND_POSSIBLE_KEY = 'J that cannot be right: it changes with γ by more than the per-step values allow';
+/** The legend's words for a crossed point (a J whose change from another discount lies beyond what the per-step values allow; the sentence under the figure says so). */
+export const BEYOND_POSSIBLE_KEY = 'J that cannot be right (changes with γ too much)';
 
 /**
  * The ranking verdict of one sweep, as every host says it (chart subtitle, panel, report, summary):
  * the settings where a J cannot be right are left out, and named.
  */
-export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings'>): string {
+export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings'>, brief = false): string {
   const base = curve.rankingStable ? 'the ranking is the same at every setting' : 'the ranking changes within this range';
   const out = curve.leftOut ?? [];
   if (!out.length) return base;
-  const where = out.map((i) => formatValue(curve.settings[i])).join(', ');
-  return `${base}${curve.rankingStable ? ' where every J can be right' : ''} (left out: ${where}, where a J cannot be right)`;
+  const where = curve.rankingStable ? `${base} where every J can be right` : base;
+  // Brief, for the figure's subtitle: the settings left out are read off the crosses, and named under the figure.
+  return brief ? where : `${where} (left out: ${out.map((i) => formatValue(curve.settings[i])).join(', ')}, where a J cannot be right)`;
 }
 
 /**
@@ -100,12 +101,13 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
       spanGaps: false,
     };
   });
-  const shared = sharedOptions(look, props.title, `large points: the project’s setting (${formatValue(curve.settings[curve.projectIndex] ?? NaN)}); ${rankingVerdict(curve)}`);
+  const crossed = curve.series.some((serie) => serie.beyondPossible?.some(Boolean));
+  const shared = sharedOptions(look, props.title, `large points: the project’s setting (${formatValue(curve.settings[curve.projectIndex] ?? NaN)}); ${rankingVerdict(curve, true)}`);
   const keys: LegendKey[] = datasets.map((set) => ({
     label: String(set.label), kind: 'line' as const, colour: String(set.borderColor), lineWidthPx: d.lineWidthPx,
     dash: (set.borderDash as number[]).map((v) => v / s), markerRadiusPx: d.pointRadiusPx,
   }));
-  if (curve.series.some((serie) => serie.beyondPossible?.some(Boolean))) keys.push({ label: BEYOND_POSSIBLE_KEY, kind: 'marker', colour: p.mutedText, overlay: crossSwatch(d.crossRadiusPx, d.crossWidthPx, p.mutedText) });
+  if (crossed) keys.push({ label: BEYOND_POSSIBLE_KEY, kind: 'marker', colour: p.mutedText, overlay: crossSwatch(d.crossRadiusPx, d.crossWidthPx, p.mutedText) });
   return {
     type: 'line',
     data: { datasets },
