@@ -35,8 +35,8 @@ describe('sensitivity chart', () => {
     const base = discountSweep();
     const curve = { ...base, leftOut: [4], series: [base.series[0], { ...base.series[1], beyondPossible: [false, false, false, false, true] }, base.series[2]] };
     const config = sensitivityChart({ ...props, curve }, look), sets = config.data.datasets;
-    expect((sets[1] as { pointStyle: string[] }).pointStyle).toEqual(['circle', 'circle', 'circle', 'circle', 'crossRot']);
-    expect((sets[0] as { pointStyle: string[] }).pointStyle.every((p) => p === 'circle')).toBe(true);
+    expect((sets[1].pointStyle as readonly string[])).toEqual(['circle', 'circle', 'circle', 'circle', 'crossRot']);
+    expect((sets[0].pointStyle as readonly string[]).every((p) => p === 'circle')).toBe(true);
     expect(rankingVerdict(curve)).toBe('the ranking is the same at every setting where every J can be right (left out: 0.99, where a J cannot be right)');
     expect(rankingVerdict(curve, true)).toBe('the ranking is the same at every setting where every J can be right');
     expect(beyondPossibleSentence(curve)).toMatch(/^Crossed points: J of “sharp gain” at 0\.99 cannot be right/);
