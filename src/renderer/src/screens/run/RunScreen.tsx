@@ -12,7 +12,7 @@ import { importKey } from '../../../../shared/runKey';
 import { runBlockers } from '../../session/evaluationRunner';
 import { useWorkspace } from '../../WorkspaceContext';
 import { progressView } from './runProgressView';
-import { describeApproximator } from '../../../../pipeline/plan/featureMapFor';
+import { describeApproximator } from '../../../../pipeline/plan/approximatorLabel';
 import { discountWithHorizon } from '../estimator/discountHorizon';
 
 export function RunScreen(props: { onFindings: () => void }) {
