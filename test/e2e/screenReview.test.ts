@@ -116,7 +116,7 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
       // A network project is compared with the present controller on its own resamples (before: no differences at all).
       await expect.poll(() => page.getByTestId('value-table').innerText(), POLL).toMatch(/network|TensorFlow/i);
       expect(await page.locator('[data-testid^="difference-row-"]').count()).toBeGreaterThan(0);
-      await expect.poll(() => page.getByTestId('ranking').innerText(), POLL).toMatch(/\d %/);
+      await expect.poll(() => page.getByTestId('ranking').innerText(), POLL).toMatch(/\d\s%/);
     }
   }, 600_000);
 
