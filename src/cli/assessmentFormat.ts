@@ -23,7 +23,7 @@ function estimateRow(name: string, e: IntervalEstimate): string[] {
 const settledWord = (settled: boolean | null): string => (settled === null ? 'one class' : settled ? 'settled' : 'NOT SETTLED');
 
 export function formatAssessment(a: Assessment): string {
-  const level = `${Math.round(100 * a.settings.level)} %`;
+  const level = shareText(a.settings.level);
   const rows = [['policy', 'J', 'bootstrap s.e.', `${level} percentile`, `${level} basic`, 'range to report', 'function classes', 'cross-checks', 'occupancy shift']];
   for (const c of a.candidates) {
     rows.push([...estimateRow(c.name, c.policyValue), interval(c.reportedRange), settledWord(c.settled), c.confirmation.status, ratioText(c.diagnostics.occupancyShift)]);

@@ -8,6 +8,7 @@ import { significant, textTable as table } from './textTable';
 import { atDecimals, intervalText, rowDecimals, widthDecimals } from './uncertainNumberText';
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { loggedLimitText } from '../core/loggedLimitWords';
+import { shareText } from '../core/shareText';
 
 /** A fitted parameter (offset, dither): four significant digits. */
 const number = (v: number | null): string => significant(v, 4);
@@ -97,9 +98,9 @@ function unconvergedWords(status: Evaluation['policies'][number]['status']): str
  */
 function networkLine(name: string, n: NonNullable<Evaluation['policies'][number]['network']>, assessed: IntervalEstimate | null, assessedLevel = n.level): string {
   const own = assessed?.percentile ? { interval: assessed.percentile, level: assessedLevel, covers: assessed.covers } : n;
-  const level = `${Math.round(100 * own.level)} %`, inInterval = (v: number, i: [number, number]) => `${atDecimals(v, widthDecimals(i))} ${intervalText(i)}`;
+  const level = shareText(own.level), inInterval = (v: number, i: [number, number]) => `${atDecimals(v, widthDecimals(i))} ${intervalText(i)}`;
   return `${name}: network J ${level} interval ${intervalText(own.interval)} (${own.covers}); degree-${COMPARATOR_DEGREE} linear J ${inInterval(n.linear.value, n.linear.interval)}; ` +
-    `network − linear ${inInterval(n.difference.value, n.difference.interval)}${own.level === n.level ? '' : ` (these two at ${Math.round(100 * n.level)} %, the level the agreement rule reads)`}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
+    `network − linear ${inInterval(n.difference.value, n.difference.interval)}${own.level === n.level ? '' : ` (these two at ${shareText(n.level)}, the level the agreement rule reads)`}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
 }
 
 /** The cautions, printed last so they are the final thing a reader sees. */

@@ -5,7 +5,10 @@
  * ECMA-48 §5), and the Unicode controls that reorder or break lines (bidirectional embeddings and
  * isolates, Unicode TR9; line and paragraph separators) — written as a visible \uXXXX escape. Names
  * and cells come from users' files; a column called "\x1b]0;…\x07" must not retitle the terminal.
- * The escape is also JSON's, so JSON output stays valid and means the same.
+ * The escape is also JSON's, so JSON output stays valid and means the same. The no-break space that
+ * typeset text puts between a number and its "%" (core/shareText.ts) is written as a plain space: a
+ * terminal wraps at the column, not at spaces, and a user searches for "2.8 %" as typed. One character
+ * for one, so columns already padded stay aligned.
  */
 export interface Terminal {
   out(text: string): void;
@@ -15,7 +18,7 @@ export interface Terminal {
 const ACTIVE = /[\u0000-\u0008\u000b-\u001f\u007f-\u009f\u061c\u200e\u200f\u2028\u2029\u202a-\u202e\u2066-\u2069]/g;
 
 export function terminalText(text: string): string {
-  return text.replace(ACTIVE, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`);
+  return text.replace(ACTIVE, (c) => `\\u${c.charCodeAt(0).toString(16).padStart(4, '0')}`).replace(/\u00a0/g, ' ');
 }
 
 export const processTerminal: Terminal = {

@@ -6,6 +6,8 @@
  */
 import type { AssessmentProgress } from '../pipeline/assessProject';
 import type { EvaluationProgress } from '../pipeline/projectRun';
+import { progressText } from '../core/shareText';
+import { terminalText } from './terminal';
 
 export interface TerminalProgress {
   evaluation(progress: EvaluationProgress): void;
@@ -34,11 +36,11 @@ export function createTerminalProgress(stream: NodeJS.WriteStream = process.stde
     if (!force && now - last < REDRAW_MS) return;
     last = now;
     shown = true;
-    stream.write(`\r\x1b[2K${text.slice(0, Math.max(20, (stream.columns ?? 80) - 1))}`);
+    stream.write(`\r\x1b[2K${terminalText(text).slice(0, Math.max(20, (stream.columns ?? 80) - 1))}`); // the terminal's forms: a plain space before %, names' controls escaped
   }
   return {
     evaluation(p) {
-      const what = p.dataPass ? `reading the data ${Math.floor((100 * p.dataPass.done) / p.dataPass.total)} %`
+      const what = p.dataPass ? `reading the data ${progressText(p.dataPass.done / p.dataPass.total)}`
         : p.iteration ? `iteration ${p.iteration.iteration}${p.iteration.member ? ` of fit ${p.iteration.member.index} of ${p.iteration.member.count}` : ''}` : 'starting';
       line(`Fitting ${p.candidate} (${p.candidateIndex + 1} of ${p.candidateCount}): ${what}`, p.iteration === null && p.dataPass === null);
     },

@@ -1,13 +1,15 @@
 /** What the terminal formatters share: a number to so many significant digits, and a plain text table. */
+import { ASCII_MINUS, exponentText } from '../core/exponentText';
 
 /**
  * `digits` significant digits with trailing zeros dropped; "—" for none. With `exponent`,
- * magnitudes of 1e6 and above or below 1e-3 are written in exponent form (digits − 2 decimals).
+ * magnitudes of 1e6 and above or below 1e-3 are written in the terminal's exponent form, "1.23e-5"
+ * (core/exponentText.ts; digits − 2 decimals).
  */
 export function significant(v: number | null, digits: number, exponent = true): string {
   if (v === null || !Number.isFinite(v)) return '—';
   const magnitude = Math.abs(v);
-  if (exponent && magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return v.toExponential(digits - 2);
+  if (exponent && magnitude !== 0 && (magnitude >= 1e6 || magnitude < 1e-3)) return exponentText(v, digits - 2, ASCII_MINUS, true);
   return v.toPrecision(digits).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
 }
 

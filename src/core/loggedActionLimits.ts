@@ -21,6 +21,7 @@
  *
  * Shapes: actions n×m row-major; declared lo/hi: m lists each (values in the action's unit).
  */
+import { shareText } from './shareText';
 
 /** How a limit was read: not seen, repeated at the extreme, or at a declared bound below the floor. */
 export type LimitEvidence = 'none' | 'repeated' | 'declared';
@@ -54,9 +55,9 @@ export const LOGGED_LIMITS_NAMED = 'the limits read from the log: repeated extre
 
 /** The rule above in the user's words, for the report's method text. */
 export function loggedLimitRuleText(): string {
-  return `an actuator limit is read from the log where at least max(${LIMIT_MIN_ROWS}, ${100 * LIMIT_SHARE} % of the rows) logged values of an action equal its smallest (largest) value exactly, ` +
+  return `an actuator limit is read from the log where at least max(${LIMIT_MIN_ROWS}, ${shareText(LIMIT_SHARE)} of the rows) logged values of an action equal its smallest (largest) value exactly, ` +
     `or where at least ${DECLARED_LIMIT_ROWS} logged value${DECLARED_LIMIT_ROWS === 1 ? '' : 's'} sit${DECLARED_LIMIT_ROWS === 1 ? 's' : ''} exactly at the extreme and it is the bound a candidate declares for that action (taken as the actuator’s own end, so declare bounds where the actuator really stops); ` +
-    `below the ${100 * LIMIT_SHARE} % share the clipped fit estimates the small chance of sitting there from the Gaussian tail`;
+    `below the ${shareText(LIMIT_SHARE)} share the clipped fit estimates the small chance of sitting there from the Gaussian tail`;
 }
 
 export function loggedActionLimits(actions: ArrayLike<number>, n: number, m: number, declared: DeclaredActionBounds = NO_DECLARED_BOUNDS): LoggedActionLimits {

@@ -19,6 +19,7 @@
  * error of V̂^b, which only the tails' weight γ^T carries (tailShare says how much that is).
  */
 import type { TransitionSet } from './transitions';
+import { sharesText } from './shareText';
 
 export interface LoggedReturn {
   /** Mean discounted return over episodes. */
@@ -78,9 +79,9 @@ export const TRUNCATION_NOTICE = 1e-3;
  */
 export function truncationSentence(r: Pick<LoggedReturn, 'meanTruncationWeight' | 'largestTruncationWeight'>): string | null {
   if (!(r.meanTruncationWeight > TRUNCATION_NOTICE)) return null;
-  const pct = (x: number) => `${(100 * x).toFixed(1)} %`;
-  return `Logged runs are short for this discount: on average ${pct(r.meanTruncationWeight)} of the return’s weight lies beyond their end ` +
-    `(${pct(r.largestTruncationWeight)} on the shortest run cut short, by a time limit or the end of the log), so the logged return is biased toward zero`;
+  const [mean, largest] = sharesText([r.meanTruncationWeight, r.largestTruncationWeight]);
+  return `Logged runs are short for this discount: on average ${mean} of the return’s weight lies beyond their end ` +
+    `(${largest} on the shortest run cut short, by a time limit or the end of the log), so the logged return is biased toward zero`;
 }
 
 /** Where each episode ends: its last next state and the weight of the value beyond it. */

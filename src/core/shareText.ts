@@ -10,8 +10,18 @@
  * share one precision (sharesText): the most decimals any of them takes alone, never finer than
  * SMALLEST_SHARE_SHOWN's place — "6.29 %" beside "6.20 %", never beside "6.2 %". Exactly 0 or 1 and
  * "below 0.01 %" stay as they read alone: they are exact, or a bound, not a rounded number.
+ *
+ * The number and its "%" are held together by a no-break space (U+00A0; SI Brochure §5.4.7 puts a
+ * space before % — common practice), so a line in the app or the report never ends at "2.8" with the
+ * "%" on the next. The command line writes it as a plain space (cli/terminal.ts, terminalText): a
+ * terminal wraps at the column whatever the space, and its text is searched and pasted as typed. Both
+ * are one character, so the terminal's columns, which count characters, line up either way.
  */
+import { NO_BREAK_SPACE } from './exponentText';
 import { SMALLEST_SHARE_SHOWN } from './limits';
+
+/** Between a share's number and its "%": the no-break space. */
+const BEFORE_PERCENT = `${NO_BREAK_SPACE}%`;
 
 /** Significant digits of a share written as a percentage. */
 export const SHARE_DIGITS = 3;
@@ -22,8 +32,8 @@ const FINEST_DECIMALS = decimalsOf(digits(SMALLEST_SHARE_SHOWN * 100));
 /** "73 %" from 0.73, "6.29 %" from 0.06291, "below 0.01 %" from 5.7e−8; a dash for null or not a number. */
 export function shareText(share: number | null | undefined): string {
   if (share === null || share === undefined || !Number.isFinite(share)) return '—';
-  if (share > 0 && share < SMALLEST_SHARE_SHOWN) return `below ${digits(SMALLEST_SHARE_SHOWN * 100)} %`;
-  return `${digits(share * 100)} %`;
+  if (share > 0 && share < SMALLEST_SHARE_SHOWN) return `below ${digits(SMALLEST_SHARE_SHOWN * 100)}${BEFORE_PERCENT}`;
+  return `${digits(share * 100)}${BEFORE_PERCENT}`;
 }
 
 /**
@@ -34,7 +44,15 @@ export function shareText(share: number | null | undefined): string {
 export function sharesText(shares: readonly (number | null | undefined)[]): string[] {
   const rounded = (s: number | null | undefined): s is number => s !== null && s !== undefined && Number.isFinite(s) && s !== 0 && s !== 1 && !(s > 0 && s < SMALLEST_SHARE_SHOWN);
   const decimals = Math.min(FINEST_DECIMALS, Math.max(0, ...shares.filter(rounded).map((s) => decimalsOf(digits(s * 100)))));
-  return shares.map((s) => (rounded(s) ? `${(s * 100).toFixed(decimals)} %` : shareText(s)));
+  return shares.map((s) => (rounded(s) ? `${(s * 100).toFixed(decimals)}${BEFORE_PERCENT}` : shareText(s)));
+}
+
+/**
+ * Work done as a percentage, for a progress line ("reading the data 42 %"): whole percents, rounded
+ * down, so it reads "100 %" only when the work is done; the same no-break space before "%".
+ */
+export function progressText(fraction: number): string {
+  return `${Number.isFinite(fraction) ? Math.max(0, Math.min(100, Math.floor(100 * fraction))) : 0}${BEFORE_PERCENT}`;
 }
 
 /** SHARE_DIGITS significant digits, trailing zeros dropped; fixed notation, which a percentage from 0.01 up always allows (the plain style of figures/parts/uncertainNumber.ts there). */

@@ -7,6 +7,7 @@ import type { Dialect } from './csvDialect';
 import type { DateOrderDecision } from './dateOrder';
 import type { RowProblems } from './rowProblems';
 import { formatCount, plural } from './reportFormat';
+import { shareText } from '../core/shareText';
 
 export interface ExcludedRow {
   /** 1-based line as a spreadsheet numbers it (header = line 1). */
@@ -66,14 +67,13 @@ export function excludedRows(problems: RowProblems, lineOf: (record: number) => 
  */
 export function excludedWarning(excluded: readonly ExcludedRow[], rowCount: number, fileName: string, lastTextLine = rowCount + 1): ImportProblem[] {
   if (excluded.length === 0) return [];
-  const percent = (100 * excluded.length) / rowCount;
   const first = excluded.slice(0, 5).map((e) => e.line).join(', ');
   const extraLines = lastTextLine - (rowCount + 1);
   const spans = extraLines > 0
     ? `; the file’s ${formatCount(lastTextLine)} lines of text hold the header and ${formatCount(rowCount)} rows, so rows span ${formatCount(extraLines)} more lines than one each (a quoted line break or a quote never closed) — see the reasons`
     : '';
   return [importProblem('rows-excluded', fileName,
-    `${plural(excluded.length, 'row')} of ${formatCount(rowCount)} (${+percent.toPrecision(3)}%) excluded because they could not be used (first at line${excluded.length > 1 ? 's' : ''} ${first}); each is listed with its reason${spans}`)];
+    `${plural(excluded.length, 'row')} of ${formatCount(rowCount)} (${shareText(excluded.length / rowCount)}) excluded because they could not be used (first at line${excluded.length > 1 ? 's' : ''} ${first}); each is listed with its reason${spans}`)];
 }
 
 const DELIMITER_NAMES: Record<string, string> = { ',': 'comma', ';': 'semicolon', '\t': 'tab' };

@@ -9,7 +9,7 @@ import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
 import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
-import { uncoveredShare } from '../core/diagnostics/unvisitedRegion';
+import { uncoveredShare, unvisitedNeedsCaution } from '../core/diagnostics/unvisitedRegion';
 import { possibleValues } from '../core/diagnostics/possibleValues';
 import { returnConcentration, returnConcentrationFinding } from '../core/diagnostics/returnConcentration';
 import { truncationSentence } from '../core/loggedReturn';
@@ -344,7 +344,7 @@ export function globalWarnings(context: AssessmentContext, candidates: Candidate
       message: `${truncation}. Comparisons use the present controller’s model instead, and the logged return completed past each end is shown as a check.`,
     });
   }
-  if (unvisited !== null && unvisited > 0.5) {
+  if (unvisitedNeedsCaution(unvisited)) {
     out.push({ severity: 'caution', topic: UNVISITED_TOPIC, message: unvisitedWarningMessage(unvisited) });
   }
   for (const c of candidates) {

@@ -19,6 +19,7 @@ import { linearStateValues } from '../core/features/linearStateValues';
 import type { CandidateModel } from './model/candidateModel';
 import { finalStateValues } from './model/completedReturn';
 import type { EvaluationPlan } from './plan/evaluationPlan';
+import { approximatorClassLabel } from './plan/approximatorLabel';
 import type { ResampleHelper } from './helperFeed';
 
 export interface OffPolicyInputs {
@@ -82,15 +83,9 @@ export function candidateWork(
 ): CandidateWork {
   const replicate = replicator(context.plan, model);
   return {
-    model, replicate, offPolicy, classes: [{ label: ownClassLabel(context.plan), model, replicate }, ...classes],
+    model, replicate, offPolicy, classes: [{ label: approximatorClassLabel(context.plan.approximator), model, replicate }, ...classes],
     unconvergedClasses: unconverged,
   };
-}
-
-function ownClassLabel(plan: EvaluationPlan): string {
-  const a = plan.approximator;
-  if (a.kind === 'network') return `network ${a.hiddenLayers.join('×')}`;
-  return a.features.kind === 'polynomial' ? `polynomial, degree ${a.features.degree}` : `radial basis, ${a.features.centresPerInput} centres per input`;
 }
 
 /**

@@ -21,6 +21,7 @@ import { isEngineError } from './engineErrors';
 import type { CandidateModel, LinearFitSpec } from './model/candidateModel';
 import { buildLinearModelsPaced } from './model/linearModel';
 import { featureMapFor } from './plan/featureMapFor';
+import { polynomialClassLabel } from './plan/approximatorLabel';
 
 export const COMPARED_DEGREES = [2, 3, 4] as const;
 /** Largest feature count of a compared class (the sensitivity sweep's limit as well; ours). */
@@ -59,10 +60,6 @@ export async function classWorks(context: AssessmentContext, model: CandidateMod
 }
 
 
-
-export function polynomialClassLabel(degree: number): string {
-  return `polynomial, degree ${degree}`;
-}
 
 /** The fit of polynomial degree k with the project's ridge and tolerance (defaults beside a network); null when too large for the data or the budget. */
 function classSpec(context: AssessmentContext, degree: number): LinearFitSpec | null {

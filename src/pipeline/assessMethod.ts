@@ -17,9 +17,10 @@ import { COMPARED_DEGREES, MAX_CLASS_FEATURES } from './assessClasses';
 import { MODEL_THRESHOLDS } from './assessModelCheck';
 import { ROLLOUT_RESAMPLES, ROLLOUT_STARTS, ROLLOUTS_PER_START, ROLLOUTS_TOTAL } from './assessRollouts';
 import type { AssessmentSettings } from './assessSettings';
+import { shareText } from '../core/shareText';
 
 export function methodStatements(settings: AssessmentSettings, episodes: number, startsFollowEpisodes: boolean, resampling: string): string[] {
-  const pct = (x: number) => `${Math.round(100 * x)} %`;
+  const pct = shareText;
   const a = CROSS_CHECK_RULE, m = MODEL_THRESHOLDS, k = DEFAULT_ACTION_SUPPORT, c = CLASS_AGREEMENT;
   return [
     `Intervals: nonparametric bootstrap over the ${episodes} logged runs (whole runs drawn with replacement; Hao et al. 2021), ` +

@@ -24,6 +24,7 @@ import {
 import { ModelValueError } from '../core/offPolicy/modelBasedValue';
 import { notAffineReason, type GaussianPolicy } from '../core/policy';
 import type { TransitionSet } from '../core/transitions';
+import { shareText, sharesText } from '../core/shareText';
 
 export const MODEL_THRESHOLDS = { dynamicsRSquared: 0.5, curvatureShare: 0.05, rewardRSquared: 0.9, maxInputs: 8 } as const;
 
@@ -56,10 +57,10 @@ export function checkLinearQuadraticModel(data: TransitionSet, index: EpisodeInd
   const failures: string[] = [];
   fit.dynamicsRSquared.forEach((r2, j) => {
     if (r2 < t.dynamicsRSquared) failures.push(`${names[j]}: linear dynamics R² ${r2.toFixed(3)} < ${t.dynamicsRSquared}`);
-    if (curvature[j] > t.curvatureShare) failures.push(`${names[j]}: quadratic terms explain ${(100 * curvature[j]).toFixed(1)} % of the linear model’s residual (> ${100 * t.curvatureShare} %)`);
+    if (curvature[j] > t.curvatureShare) failures.push(`${names[j]}: quadratic terms explain ${shareText(curvature[j])} of the linear model’s residual (> ${shareText(t.curvatureShare)})`);
   });
   if (fit.costRSquared < t.rewardRSquared) failures.push(`reward: quadratic fit R² ${fit.costRSquared.toFixed(3)} < ${t.rewardRSquared}`);
-  const found = `linear dynamics R² ${fit.dynamicsRSquared.map((r) => r.toFixed(3)).join(', ')}; curvature share ${curvature.map((c) => `${(100 * c).toFixed(2)} %`).join(', ')}; quadratic reward R² ${fit.costRSquared.toFixed(4)}`;
+  const found = `linear dynamics R² ${fit.dynamicsRSquared.map((r) => r.toFixed(3)).join(', ')}; curvature share ${sharesText(Array.from(curvature)).join(', ')}; quadratic reward R² ${fit.costRSquared.toFixed(4)}`;
   return { regressions, fit, fitsData: failures.length === 0, summary: failures.length ? `the model does not fit the data well enough (${failures.join('; ')})` : found };
 }
 

@@ -16,6 +16,7 @@ import type { CandidateModel } from './model/candidateModel';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 import { ASCII_MINUS, intervalAtPrecision, plainNumber, valueAtPrecision } from '../figures/parts/uncertainNumber';
 import { boundSides, boundText } from '../figures/parts/boundText';
+import { shareText } from '../core/shareText';
 
 const TOPIC = 'impossibleValue';
 
@@ -75,7 +76,7 @@ export function stateFinding(plan: EvaluationPlan, range: PossibleValues, outsid
   return {
     severity: 'serious', topic: TOPIC,
     message: `The fitted value lies outside what any policy can reach on most of the logged states: V̂ has median ${plainNumber(median, 4, ASCII_MINUS)} over ${outside.states} logged states, ` +
-      `${(100 * outside.share).toFixed(1)} % of them ${past} the possible range (${rangeText(plan, range)}, discounted, while the ${words(plan)} stay within the logged range), ` +
+      `${shareText(outside.share)} of them ${past} the possible range (${rangeText(plan, range)}, discounted, while the ${words(plan)} stay within the logged range), ` +
       `more than one standard error of J (${plainNumber(standardError, 2, ASCII_MINUS)}) past its end. The fit fails where it has data, and its interval, the same fit on resampled runs, cannot show it: do not use this value.`,
   };
 }

@@ -25,7 +25,7 @@ import type { AssessmentWarning, Sensitivity, SensitivityCurve, SensitivitySerie
 import { checkDiscountSweep, type SweepCheckSettings } from './assessSweepCheck';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { BEHAVIOUR_NAME } from './assessAssembly';
-import { polynomialClassLabel } from './assessClasses';
+import { polynomialClassLabel } from './plan/approximatorLabel';
 import { isEngineError } from './engineErrors';
 import { fitNetworkCandidate } from './fitNetworkCandidate';
 import { wholePassStatistics } from './model/linearModel';

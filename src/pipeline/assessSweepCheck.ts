@@ -28,6 +28,7 @@ import { formatValue } from '../figures/parts/tickFormat';
 import type { AssessmentWarning } from './assessment';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import type { EvaluationPlan } from './plan/evaluationPlan';
+import { shareText } from '../core/shareText';
 
 
 export interface SweepCheck {
@@ -134,7 +135,7 @@ function sweepWarning(
   const premise = bounds.certain ? '' : ' (or the candidate would meet steps outside the logged range)';
   return {
     severity: ownPair ? 'serious' : 'caution', topic: SWEEP_CHECK_TOPIC,
-    message: `J cannot go from ${at(i)} to ${at(j)}: the change, ${valueAtPrecision(s * f.change, change, ASCII_MINUS)} (${Math.round(100 * level)} % interval ${intervalAtPrecision(change, ASCII_MINUS)} on ${resamples} resamples of the runs), lies outside what the ${what}s allow, ` +
+    message: `J cannot go from ${at(i)} to ${at(j)}: the change, ${valueAtPrecision(s * f.change, change, ASCII_MINUS)} (${shareText(level)} interval ${intervalAtPrecision(change, ASCII_MINUS)} on ${resamples} resamples of the runs), lies outside what the ${what}s allow, ` +
       `since ${source} ${boundText(step[0], 'lower', 4, ASCII_MINUS)} and ${boundText(step[1], 'upper', 4, ASCII_MINUS)}, so between these two discounts J can change only by between ${plainNumber(allowed[0], 4, ASCII_MINUS)} and ${plainNumber(allowed[1], 4, ASCII_MINUS)}. ` +
       `The linear fit extrapolates at one of these discounts${premise}. ${which}${more}`,
   };

@@ -12,7 +12,7 @@ import { CAUTIONS } from './cautions';
 import type { Evaluation, NetworkCheck, PolicyEstimate, PresentControllerEstimate, ValueSurface } from './estimates';
 import { completedReturnOf } from './model/completedReturn';
 import type { CandidateModel } from './model/candidateModel';
-import { describeApproximator } from './plan/featureMapFor';
+import { describeApproximator } from './plan/approximatorLabel';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { startRun, type ProjectRun, type RunHooks } from './projectRun';

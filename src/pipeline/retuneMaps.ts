@@ -40,6 +40,7 @@ import { isEngineError } from './engineErrors';
 import { shiftOf } from './assessDiagnostics';
 import { certainEnds, cutToCertain } from './assessPossible';
 import { CANCELLED_PROBLEM, type ProjectRun } from './projectRun';
+import { shareText } from '../core/shareText';
 
 /** Bootstrap resamples per grid point (ours: enough for a 90 % percentile interval to two digits of its width). */
 export const MAP_RESAMPLES = 100;
@@ -167,7 +168,7 @@ function runRetuneMap(
     `Supported: occupancy shift at or below ${fmt(OCCUPANCY_SHIFT_LIMITS.caution * reference)}, ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller’s own level ${fmt(reference)} ` +
       `(the candidates’ rule); above ${fmt(OCCUPANCY_SHIFT_LIMITS.serious * reference)} the logs no longer speak for the estimate.`,
     withIntervals
-      ? `Intervals: ${Math.round(100 * level)} % percentile bootstrap over the ${e} logged runs, ${MAP_RESAMPLES} resamples per point (the same resamples at every point)` +
+      ? `Intervals: ${shareText(level)} percentile bootstrap over the ${e} logged runs, ${MAP_RESAMPLES} resamples per point (the same resamples at every point)` +
         `${cutPoints > 0 ? `; at ${cutPoints} point${cutPoints === 1 ? '' : 's'} cut where the ${plan.sense}’s definition puts values out of reach of every policy (${certainEnds(plan)})` : ''}.`
       : `No intervals: ${e < 10 ? `${e} runs are too few to resample` : 'the grid is too large to resample every point within a minute'}.`,
     ...(linear ? [] : ['The project uses the network approximator; the map uses degree-2 polynomial features (a network fit per point would cost a training each).']),

@@ -4,6 +4,7 @@
  * Pure text from the document; no numbers are computed beyond K_i = K_c/T_i.
  */
 import type { CandidateSpec, ColumnRoles } from './schema';
+import { exponentText, TRUE_MINUS } from '../core/exponentText';
 
 export interface CandidateSummary {
   /** One line per action: how its mean depends on the states. */
@@ -22,8 +23,7 @@ type Feedback = {
 const num = (v: number): string => {
   if (!Number.isFinite(v)) return String(v);
   const a = Math.abs(v);
-  const text = a !== 0 && (a >= 1e6 || a < 1e-3) ? v.toExponential(3) : Number(v.toPrecision(5)).toString();
-  return text.replace('-', '−');
+  return a !== 0 && (a >= 1e6 || a < 1e-3) ? exponentText(v, 3, TRUE_MINUS, true) : Number(v.toPrecision(5)).toString().replace('-', TRUE_MINUS);
 };
 
 export function summariseCandidate(c: CandidateSpec, columns: ColumnRoles): CandidateSummary {

@@ -134,7 +134,7 @@ describe('evaluate command with the network approximator', () => {
     // Three outer iterations cannot meet the convergence rule: the fit says so and the exit status is 3.
     expect(code).toBe(3);
     const json = JSON.parse(stdout);
-    expect(json.settings.approximator).toBe('network 16×16 (relu)');
+    expect(json.settings.approximator).toBe('network, two hidden layers of 16 units each, ReLU activation');
     for (const p of json.policies) {
       expect(p.backend).toBe('TensorFlow.js (WebAssembly)');
       expect(Number.isFinite(p.policyValue)).toBe(true);

@@ -26,17 +26,17 @@ const line = (text: string) => text.split('\n').find((l) => l.startsWith('retune
 
 describe('a network’s line on the command line', () => {
   it('gives the fit’s own interval without an assessment', () => {
-    expect(line(formatEvaluation(evaluation, 'loop.spcritic'))).toContain('network J 90 % interval [5.19, 9.83] (the fit’s own resamples)');
+    expect(line(formatEvaluation(evaluation, 'loop.spcritic'))).toContain('network J 90\u00a0% interval [5.19, 9.83] (the fit’s own resamples)');
   });
   it('gives the assessment’s interval with one, so the two tables agree', () => {
     const text = line(formatEvaluation(evaluation, 'loop.spcritic', assessed(0.9)));
-    expect(text).toContain('network J 90 % interval [5.12, 10.01] (the assessment’s resamples)');
+    expect(text).toContain('network J 90\u00a0% interval [5.12, 10.01] (the assessment’s resamples)');
     expect(text).not.toContain('[5.19, 9.83]');
     expect(text).not.toContain('the level the agreement rule reads');
   });
   it('says at which level the linear estimate and the difference are read when the assessment’s differs', () => {
     const text = line(formatEvaluation(evaluation, 'loop.spcritic', assessed(0.95)));
-    expect(text).toContain('network J 95 % interval [5.12, 10.01]');
-    expect(text).toContain('(these two at 90 %, the level the agreement rule reads)');
+    expect(text).toContain('network J 95\u00a0% interval [5.12, 10.01]');
+    expect(text).toContain('(these two at 90\u00a0%, the level the agreement rule reads)');
   });
 });

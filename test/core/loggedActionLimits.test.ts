@@ -44,7 +44,7 @@ describe('a limit at a bound a candidate declares', () => {
   const n = 200_000, log = tinyShareLog(n, 11);
   const atEnd = log.actions.reduce((k, a) => k + (a === 1 ? 1 : 0), 0);
 
-  it('is read at the valve end below the 0.1 % floor only when a candidate declares it there', () => {
+  it('is read at the valve end below the 0.1\u00a0% floor only when a candidate declares it there', () => {
     expect(atEnd).toBeGreaterThanOrEqual(DECLARED_LIMIT_ROWS);
     expect(atEnd).toBeLessThan(LIMIT_SHARE * n); // the floor alone misses it: the defect's condition
     expect(loggedActionLimits(log.actions, n, 1).hi).toEqual([Infinity]);
@@ -55,7 +55,7 @@ describe('a limit at a bound a candidate declares', () => {
     expect(limits.shareAtLimit[0]).toBeCloseTo(atEnd / n, 12);
   });
 
-  it('lets the censored fit estimate the tiny mass there: 1 − Φ(3.5) within 10 % and within 3 binomial errors of the logged share', () => {
+  it('lets the censored fit estimate the tiny mass there: 1 − Φ(3.5) within 10\u00a0% and within 3 binomial errors of the logged share', () => {
     const model = fitBehaviourModel(log.states, log.actions, n, 1, 1, VALVE_END);
     let predicted = 0;
     for (let i = 0; i < n; i++) predicted += normalSurvival((1 - model.offset[0] - model.gain[0][0] * log.states[i]) / model.std[0]) / n;
@@ -110,7 +110,7 @@ describe('one row at the declared bound', () => {
 describe('the rule in words', () => {
   it('states both ways with the thresholds the code applies', () => {
     const text = loggedLimitRuleText();
-    expect(text).toContain(`max(2, ${100 * LIMIT_SHARE} % of the rows)`);
+    expect(text).toContain(`max(2, ${100 * LIMIT_SHARE}\u00a0% of the rows)`);
     expect(text).toContain(`at least ${DECLARED_LIMIT_ROWS} logged value`);
     expect(text).toContain('the bound a candidate declares for that action');
   });

@@ -69,7 +69,7 @@ describe('the sentence on runs cut short', () => {
     expect(oneShort.meanTruncationWeight).toBeCloseTo((99 * g ** 500 + g ** 5) / 100, 14);
     expect(oneShort.largestTruncationWeight).toBeCloseTo(g ** 5, 14);
     expect(truncationSentence(oneShort)).toBe(
-      'Logged runs are short for this discount: on average 0.9 % of the return’s weight lies beyond their end (90.4 % on the shortest run cut short, by a time limit or the end of the log), so the logged return is biased toward zero',
+      'Logged runs are short for this discount: on average 0.91\u00a0% of the return’s weight lies beyond their end (90.39\u00a0% on the shortest run cut short, by a time limit or the end of the log), so the logged return is biased toward zero',
     );
     expect(truncationSentence(loggedDiscountedReturn(episodes(Array(100).fill(500), -1), g))).toBeNull(); // 0.98^500 = 4.1e-5
   });

@@ -3,8 +3,10 @@
  * a P trim, rate-limited PI): the editor shows each form's fields in words with no field paths;
  * screenshots in both themes at 1280 × 800 and 1920 × 1080 go to test-artifacts/screens/. Then a
  * new PI candidate is written through the editor (form switch undone and redone from the keyboard,
- * a hint where the project lacks the error integral), run, and its J read in Findings.
+ * a hint where the project lacks the error integral), run, and its J read in Findings. And a
+ * script-written 0.1 + 0.2 in a candidate's field shows as 0.3, the file left as written.
  */
+import { copyFile, readFile, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Locator } from 'playwright-core';
@@ -139,4 +141,33 @@ describe('candidate forms in the editor (e2e)', () => {
   it('logged no console errors', () => {
     expect(app.consoleErrors).toEqual([]);
   });
+});
+
+/** Moved from the polish21 capture, whose other checks are in screenReview.test.ts. */
+describe('a script-written number in a candidate field (e2e)', () => {
+  let app: LaunchedApp;
+  beforeAll(async () => {
+    app = await launchApp({ viewport: { width: 1280, height: 800 } });
+  });
+  afterAll(async () => {
+    await app?.close();
+  });
+
+  it('shows a script-written 0.1 + 0.2 in a candidate field as 0.3, and leaves the file as written', async () => {
+    const { page, harness } = app, folder = resolve(__dirname, '../../sample-projects/tank-levels');
+    const doc = JSON.parse(await readFile(join(folder, 'tank-levels.spcritic'), 'utf8'));
+    doc.candidates[0].std = [0.1 + 0.2]; // 0.30000000000000004, as a script writes it
+    const projectPath = join(harness.workFolder, 'noisy-tank.spcritic');
+    await copyFile(join(folder, 'tank-levels.csv'), join(harness.workFolder, 'tank-levels.csv'));
+    await writeFile(projectPath, JSON.stringify(doc, null, 2));
+    harness.dialogs.nextOpenProject = projectPath;
+    await page.getByTestId('open-project').click();
+    await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
+    await goToStep(page, 'candidates');
+    const values = await page.locator('input').evaluateAll((inputs) => inputs.map((i) => (i as HTMLInputElement).value));
+    expect(values).toContain('0.3');
+    expect(values.filter((v) => /0000000\d|9999999\d/.test(v))).toEqual([]);
+    await page.locator('main').screenshot({ path: join(SCREENS, 'noisy-field.png'), style: UNSTICK }).catch(() => page.screenshot({ path: join(SCREENS, 'noisy-field.png'), style: UNSTICK }));
+    expect(JSON.parse(await readFile(projectPath, 'utf8')).candidates[0].std[0]).toBe(0.1 + 0.2); // showing it wrote nothing back
+  }, 300_000);
 });

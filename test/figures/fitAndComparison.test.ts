@@ -20,6 +20,15 @@ describe('convergence plot', () => {
     expect(convergenceSeries(history).map((s) => s.label)).toEqual(['training loss', 'one-step mismatch on held-out runs (mean square)']);
   });
 
+  it('shows in the legend only what is drawn: a network fit with no held-out runs has no held-out entry', () => {
+    const history = geometricHistory(3).map((h) => ({ ...h, weightChange: null, loss: 0.1 / h.iteration, bellmanResidual: null }));
+    expect(convergenceSeries(history).map((s) => s.label)).toEqual(['training loss']);
+    const config = convergenceChart({ history, title: 'fit', theme: 'dark' }, look);
+    expect(config.data.datasets.map((d) => d.label)).toEqual(['training loss']);
+    expect(config.data.datasets[0].borderDash).toEqual([]); // the loss keeps its own look
+    expect(convergenceSummary({ history, title: 'fit', theme: 'dark' })).not.toContain('held-out');
+  });
+
   it('leaves gaps where a log axis cannot show the value', () => {
     const history = geometricHistory(3);
     history[1] = { ...history[1], weightChange: 0, bellmanResidual: null };

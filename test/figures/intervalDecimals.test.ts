@@ -63,7 +63,7 @@ describe('numbers at the precision of their interval', () => {
     expect(formatValue(-2.5e7)).toBe('\u221225,000,000');
     expect([appNumber(1234567), reportNumber(1234567, 4), plainNumber(1234567)]).toEqual(['1235000', '1235000', '1235000']);
     expect(formatTick(2500000, 0)).toBe('2,500,000'); // a tick label stays readable: grouped
-    expect(formatTick(2.5e9, 0)).toBe('2.50e9'); // past eleven characters: exponent form (the stated width)
-    expect(plainNumber(1.23456e-5)).toBe('1.235e\u22125');
+    expect(formatTick(2.5e9, 0)).toBe('2.50\u00a0×\u00a010⁹'); // past eleven characters: exponent form (the stated width)
+    expect(plainNumber(1.23456e-5)).toBe('1.235\u00a0×\u00a010⁻⁵');
   });
 });

@@ -64,8 +64,8 @@ describe('tick text', () => {
   });
   it('exponent notation only past the stated tick width (1e9) and for very small magnitudes', () => {
     expect(formatTick(2.5e7, 0)).toBe('25,000,000'); // fixed, as the tables and the command line write millions
-    expect(formatTick(2.5e9, 0)).toBe('2.50e9');
-    expect(formatTick(3e-6, 6)).toBe('3.00e−6'); // true minus sign (U+2212)
+    expect(formatTick(2.5e9, 0)).toBe('2.50\u00a0×\u00a010⁹');
+    expect(formatTick(3e-6, 6)).toBe('3.00\u00a0×\u00a010⁻⁶'); // true minus sign (U+2212)
     expect(formatValue(123456.789)).toBe('123,500');
     expect(formatValue(0.012345)).toBe('0.01235');
     expect(formatValue(NaN)).toBe('NaN');
@@ -86,7 +86,7 @@ describe('tick text', () => {
         expect(t.values.map((v) => formatTick(v, fractionDigitsOf(t.values), tickStepOf(t.values)))).toEqual(labels);
       }
     }
-    expect(formatTick(9.6515e-8, 12, 5e-12)).toBe('9.6515e−8');
-    expect(formatTick(2.5e9, 0, 5e8)).toBe('2.50e9'); // a coarse step keeps the two digits
+    expect(formatTick(9.6515e-8, 12, 5e-12)).toBe('9.6515\u00a0×\u00a010⁻⁸');
+    expect(formatTick(2.5e9, 0, 5e8)).toBe('2.50\u00a0×\u00a010⁹'); // a coarse step keeps the two digits
   });
 });

@@ -79,7 +79,7 @@ describe('exportPlotSvg', () => {
     expect(slice).not.toContain('<image');
     expect(slice).toContain('valve move (%)');
     expect(slice).toContain('cost &amp; energy');
-    expect(slice).toContain('upper limit 1.1: 15.9 % probability'); // 1 − Φ(1) = 0.1587 (A&S table 26.1): the share writer's 15.9 %
+    expect(slice).toContain('upper limit 1.1: 15.87\u00a0% probability'); // 1 − Φ(1) = 0.1587 (A&S table 26.1), read beside the lower limit's 0.62 %: one precision for both (sharesText)
     expect(fit).toContain('relative weight change');
     expect(fit).toContain('value (log scale)');
     expect(bars).toContain('J, expected cost (discounted): lower is better');

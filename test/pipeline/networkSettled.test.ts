@@ -27,7 +27,7 @@ const network = (value: number, difference: [number, number]) => {
   const estimate = { value, interval: iv }, linear = { value: 30, interval: { lower: 19.3, upper: 41.1, level: 0.9 } };
   const d = { value: value - 30, interval: { lower: difference[0], upper: difference[1], level: 0.9 } };
   return {
-    replicate: null, classes: [{ label: 'network 16×16 (tanh)' }],
+    replicate: null, classes: [{ label: 'network, two hidden layers of 16 units each' }],
     model: { fit: { policyValue: value, interval: { ...iv, standardError: 1.2 }, linearComparison: { agreement: approximatorAgreement({ network: estimate, linear, difference: d }) } } },
   } as unknown as CandidateWork;
 };
@@ -48,7 +48,7 @@ describe('a network project is settled only where the linear estimate checks the
     expect(w.model.fit.linearComparison!.agreement.verdict).toBe('agree');
     const v = withUnresampledOwn(linearClasses(), w, 1)!;
     expect(v.settled).toBe(true);
-    expect(v.classes[0].label).toBe('network 16×16 (tanh)');
+    expect(v.classes[0].label).toBe('network, two hidden layers of 16 units each');
     expect(v.range).toEqual([-50, 88]);
   });
 
@@ -56,7 +56,7 @@ describe('a network project is settled only where the linear estimate checks the
     const linear = { ...linearClasses(), coverage: 'Covers the sampling of runs and the spread across the 2 function classes fitted (polynomial, degree 2; polynomial, degree 3); a bias they all share would not show.' };
     const v = withUnresampledOwn(linear, network(30.2, [-0.5, 0.9]), 1)!;
     expect(v.classes).toHaveLength(3);
-    expect(v.coverage).toBe('Covers the sampling of runs and the spread across the 3 function classes fitted (network 16×16 (tanh); polynomial, degree 2; polynomial, degree 3); a bias they all share would not show.');
+    expect(v.coverage).toBe('Covers the sampling of runs and the spread across the 3 function classes fitted (network, two hidden layers of 16 units each; polynomial, degree 2; polynomial, degree 3); a bias they all share would not show.');
   });
 });
 
@@ -64,7 +64,7 @@ describe('a network project with one linear class fitted beside it (the others t
   // The network's own class has no replicates in the assessment (classes[0]); one linear class does.
   const oneClass = (value: number, difference: [number, number]) => {
     const w = network(value, difference) as unknown as { model: unknown };
-    const own = { label: 'network 16×16 (tanh)', model: w.model }, degree2 = { label: 'polynomial, degree 2', model: { fit: { policyValue: 30 } } };
+    const own = { label: 'network, two hidden layers of 16 units each', model: w.model }, degree2 = { label: 'polynomial, degree 2', model: { fit: { policyValue: 30 } } };
     return { ...w, classes: [own, degree2], unconvergedClasses: [] } as unknown as CandidateWork;
   };
   // Invented replicates of the degree-2 class around 30, spread about ±1.6 (a 90 % interval near [28.4, 31.6]).
@@ -82,7 +82,7 @@ describe('a network project with one linear class fitted beside it (the others t
     const w = oneClass(30.2, [-0.5, 0.9]);
     const v = withUnresampledOwn(classAssessment(w, replicates, 0.9, 1), w, 1)!;
     expect(v.settled).toBe(true);
-    expect(v.classes.map((c) => c.label)).toEqual(['network 16×16 (tanh)', 'polynomial, degree 2']);
+    expect(v.classes.map((c) => c.label)).toEqual(['network, two hidden layers of 16 units each', 'polynomial, degree 2']);
     expect(v.reason).toMatch(/^Settled: The network and the .* agree/);
     expect(v.reason + v.coverage).not.toMatch(/one function class only|no other function class/i);
   });

@@ -48,13 +48,13 @@ describe('one precision for a number read in two places', () => {
     expect(reportText()).toContain('3.45 of 40');
   });
 
-  it('a share: 6.29 % on screen and in the report, never 6.3 %', () => {
-    expect(shareText(SHARE)).toBe('6.29 %');
+  it('a share: 6.29\u00a0% on screen and in the report, never 6.3\u00a0%', () => {
+    expect(shareText(SHARE)).toBe('6.29\u00a0%');
     // The coverage finding wrote its measured shares at two digits ("27 %" beside the sentence's "26.9 %").
-    expect(actionSupportFinding(0.269, 50, 0.028)!.message).toMatch(/^On average 26\.9 % .*present controller itself: 2\.8 %/);
+    expect(actionSupportFinding(0.269, 50, 0.028)!.message).toMatch(/^On average 26\.9\u00a0% .*present controller itself: 2\.8\u00a0%/);
     const screen = [...coverageSentences(diagnostics), unvisitedSentence(SHARE)!].join(' '), report = reportText();
-    expect(screen).toContain('6.29 %');
-    expect(report).toContain('6.29 %');
-    for (const text of [screen, report]) expect(text).not.toMatch(/\b6\.3 %/);
+    expect(screen).toContain('6.29\u00a0%');
+    expect(report).toContain('6.29\u00a0%');
+    for (const text of [screen, report]) expect(text).not.toMatch(/\b6\.3\u00a0%/);
   });
 });

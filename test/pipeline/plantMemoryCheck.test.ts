@@ -21,7 +21,7 @@ describe('plant memory in the assessment', () => {
     const jacket = summary.states.find((s) => s.state === 'jacket_temp_c')!;
     expect(jacket.strongest).toMatchObject({ signal: 'steam_valve_pct', kind: 'action', rowsBack: 2 });
     expect(jacket.adjustedPartialRSquared).toBeLessThanOrEqual(jacket.partialRSquared);
-    expect(plantMemorySentence(summary)).toMatch(/^Plant memory: the 8 rows before explain at most [\d.]+ % .* in jacket_temp_c .*a caution above 5 %, serious above 50 %\)\.$/);
+    expect(plantMemorySentence(summary)).toMatch(/^Plant memory: the 8 rows before explain at most [\d.]+\u00a0% .* in jacket_temp_c .*a caution above 5\u00a0%, serious above 50\u00a0%\)\.$/);
     expect(plantMemorySentence(summary)).toMatch(/\(1\d,\d{3} rows read;/); // with its thousands separator, as the app writes counts
   });
 

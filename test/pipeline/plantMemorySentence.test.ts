@@ -22,15 +22,15 @@ describe('plant-memory sentence beside its finding', () => {
 
   it('reads the state the rule read, not a larger share that failed its F guard', () => {
     const summary: PlantMemorySummary = { rowsUsed: 60, usableRows: 60, rowsBack: 8, read: 'flow_m3h', states: [state('level_m', 0.3), state('flow_m3h', 0.07)] };
-    expect(plantMemorySentence(summary)).toMatch(/explain 7 % .* in flow_m3h/);
+    expect(plantMemorySentence(summary)).toMatch(/explain 7\u00a0% .* in flow_m3h/);
   });
 
-  it('says a share below the smallest written as a bound, and one adjusted below zero as 0 %, not "at most below" or a negative share', () => {
+  it('says a share below the smallest written as a bound, and one adjusted below zero as 0\u00a0%, not "at most below" or a negative share', () => {
     const tiny: PlantMemorySummary = { rowsUsed: 19_640, usableRows: 19_640, rowsBack: 8, read: 'level_m', states: [state('level_m', 2e-6)] };
-    expect(plantMemorySentence(tiny)).toMatch(/explain less than 0\.01 % \(adjusted for chance\)/);
+    expect(plantMemorySentence(tiny)).toMatch(/explain less than 0\.01\u00a0% \(adjusted for chance\)/);
     expect(plantMemorySentence(tiny)).not.toMatch(/at most below/);
     const none: PlantMemorySummary = { rowsUsed: 19_640, usableRows: 19_640, rowsBack: 8, read: 'level_m', states: [state('level_m', -0.0004)] };
-    expect(plantMemorySentence(none)).toMatch(/explain 0 % \(adjusted for chance\)/);
+    expect(plantMemorySentence(none)).toMatch(/explain 0\u00a0% \(adjusted for chance\)/);
     expect(plantMemorySentence(none)).not.toMatch(/[-−]\d/);
   });
 });

@@ -26,7 +26,7 @@ import { FINDINGS_SECTIONS } from '../../src/renderer/src/screens/findings/findi
 import { gridPointLabels } from '../../src/figures/parts/tickFormat';
 import { pointReadout } from '../../src/figures/charts/retuneMapText';
 import { plotTitle } from '../../src/figures/writers/plotSpec';
-import { limitLabelText } from '../../src/figures/charts/actionSlice';
+import { limitLabelText, limitLabelTexts } from '../../src/figures/charts/actionSlice';
 import { VALUES_CHART_TITLE } from '../../src/figures/parts/plotTheme';
 import { UNVISITED_TOPIC, unvisitedWarningMessage } from '../../src/pipeline/unvisitedWords';
 
@@ -43,27 +43,27 @@ function assessmentWith(d: CoverageDiagnostics, unvisitedShare: number | null, w
 }
 
 describe('1. shares compared in one sentence share a precision', () => {
-  it('the rule: the most decimals any takes alone, no finer than 0.01 %; exact 0, 1 and "below" as alone', () => {
-    expect(sharesText([0.062912, 0.062])).toEqual(['6.29 %', '6.20 %']);
-    expect(sharesText([0.269, 0.028])).toEqual(['26.9 %', '2.8 %']);
-    expect(sharesText([0.73, 0.0042])).toEqual(['73.00 %', '0.42 %']);
-    expect(sharesText([0.062912, 0.000123])).toEqual(['6.29 %', '0.01 %']); // alone 0.0123 %: finer than the place a share is compared at
-    expect(sharesText([0.062912, 0, 1, 5e-8, null])).toEqual(['6.29 %', '0 %', '100 %', 'below 0.01 %', '—']);
+  it('the rule: the most decimals any takes alone, no finer than 0.01\u00a0%; exact 0, 1 and "below" as alone', () => {
+    expect(sharesText([0.062912, 0.062])).toEqual(['6.29\u00a0%', '6.20\u00a0%']);
+    expect(sharesText([0.269, 0.028])).toEqual(['26.9\u00a0%', '2.8\u00a0%']);
+    expect(sharesText([0.73, 0.0042])).toEqual(['73.00\u00a0%', '0.42\u00a0%']);
+    expect(sharesText([0.062912, 0.000123])).toEqual(['6.29\u00a0%', '0.01\u00a0%']); // alone 0.0123 %: finer than the place a share is compared at
+    expect(sharesText([0.062912, 0, 1, 5e-8, null])).toEqual(['6.29\u00a0%', '0\u00a0%', '100\u00a0%', 'below 0.01\u00a0%', '—']);
     expect(sharesText([0.5])).toEqual([shareText(0.5)]);
   });
 
-  it('the coverage finding, the app’s sentence and the report’s row write 6.29 % beside 6.20 %, never beside 6.2 %', () => {
+  it('the coverage finding, the app’s sentence and the report’s row write 6.29\u00a0% beside 6.20\u00a0%, never beside 6.2\u00a0%', () => {
     const d = diagnostics(0.062912, 0.062);
     // The finding speaks above the caution limit (10 %, severity.ts): 12.90 % beside 6.29 %.
     const finding = actionSupportFinding(0.129, 20, 0.062912)!.message, sentence = coverageSentences(d).join(' ');
     const report = diagnosticsSection({ assessment: assessmentWith(d, null), assessmentProblems: [] } as unknown as ReportInput).html;
-    expect(finding).toMatch(/^On average 12\.90 % .*\(the present controller itself: 6\.29 %\)/);
-    expect(sentence).toContain('on average 6.29 %');
-    expect(sentence).toContain('19.00 % at the 90th percentile');
-    expect(sentence).toContain('40.00 % at worst (the present controller itself: 6.20 %)');
-    expect(report).toMatch(/<td class="num">6\.29 %<\/td><td class="num">6\.20 %<\/td>/);
-    for (const text of [sentence, report]) expect(text).not.toMatch(/\b6\.2 %/);
-    expect(finding).not.toMatch(/\b12\.9 %/);
+    expect(finding).toMatch(/^On average 12\.90\u00a0% .*\(the present controller itself: 6\.29\u00a0%\)/);
+    expect(sentence).toContain('on average 6.29\u00a0%');
+    expect(sentence).toContain('19.00\u00a0% at the 90th percentile');
+    expect(sentence).toContain('40.00\u00a0% at worst (the present controller itself: 6.20\u00a0%)');
+    expect(report).toMatch(/<td class="num">6\.29\u00a0%<\/td><td class="num">6\.20\u00a0%<\/td>/);
+    for (const text of [sentence, report]) expect(text).not.toMatch(/\b6\.2\u00a0%/);
+    expect(finding).not.toMatch(/\b12\.9\u00a0%/);
   });
 });
 
@@ -122,30 +122,35 @@ describe('5. the unvisited share is said once', () => {
   it('where a caution states it, neither the app nor the report adds the plain sentence', () => {
     const warning = { severity: 'caution' as const, topic: UNVISITED_TOPIC, message: unvisitedWarningMessage(0.62) };
     expect(unvisitedSentence(0.62, [warning])).toBeNull();
-    expect(unvisitedSentence(0.2, [])).toContain('Unvisited states: 20 %');
+    expect(unvisitedSentence(0.2, [])).toContain('Unvisited states: 20\u00a0%');
     const report = diagnosticsSection({ assessment: assessmentWith(diagnostics(0.01, 0.01), 0.62, [warning]), assessmentProblems: [] } as unknown as ReportInput).html;
-    expect(report.split('62 % of the value-surface grid')).toHaveLength(2);
+    expect(report.split('62\u00a0% of the value-surface grid')).toHaveLength(2);
   });
 });
 
 describe('6. the chance of sitting at a limit reads as a share', () => {
-  it('"upper limit 1.1: 2.58 % probability", never "P = 0.02581"', () => {
-    expect(limitLabelText('upper', 1.1, 0.025807)).toBe('upper limit 1.1: 2.58 % probability');
+  it('"upper limit 1.1: 2.58\u00a0% probability", never "P = 0.02581"', () => {
+    expect(limitLabelText('upper', 1.1, 0.025807)).toBe('upper limit 1.1: 2.58\u00a0% probability');
     expect(limitLabelText('lower', 0, null)).toBe('lower limit 0');
+  });
+
+  it('both limits on one slice at one precision: "2.80 %" beside "0.31 %", never "2.8 %"', () => {
+    expect(limitLabelTexts([{ side: 'lower', edge: 0, probability: 0.028 }, { side: 'upper', edge: 1.1, probability: 0.0031 }]))
+      .toEqual(['lower limit 0: 2.80\u00a0% probability', 'upper limit 1.1: 0.31\u00a0% probability']);
   });
 });
 
 describe('8. the report’s excluded share and confidence level by the one share writer', () => {
-  it('one excluded row in a million is "below 0.01 %", not "0.0 %"; the level reads "90 %" as the app writes it', () => {
+  it('one excluded row in a million is "below 0.01\u00a0%", not "0.0\u00a0%"; the level reads "90\u00a0%" as the app writes it', () => {
     const summary = { rowCount: 1_000_000, usedRowCount: 999_999, excludedFraction: 1e-6, transitionCount: 999_000, episodeCount: 10, samplingPeriodSeconds: null, columns: [] };
     const project = { columns: { states: [], actions: [], reward: { kind: 'column', column: 'cost', sense: 'cost' } } };
     const data = dataSection({ data: { summary, episodeReport: [] }, project } as unknown as ReportInput).html;
-    expect(data).toContain('(below 0.01 % excluded)');
+    expect(data).toContain('(below 0.01\u00a0% excluded)');
     const settings = settingsSection({
       evaluation: { settings: { discount: 0.9, approximator: 'linear', quadratureNodes: 7, startStates: 10, seed: 1 } }, project: { startStates: { kind: 'episodeStarts' } },
       assessment: { settings: { level: 0.9, resamples: 100, episodes: 40, seed: 1, solver: 'one thread' }, method: [] },
     } as unknown as ReportInput).html;
     expect(settings).toContain(`level ${levelText(0.9)},`);
-    expect(levelText(0.9)).toBe('90 %');
+    expect(levelText(0.9)).toBe('90\u00a0%');
   });
 });

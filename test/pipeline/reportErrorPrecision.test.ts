@@ -7,7 +7,10 @@
 import { describe, expect, it } from 'vitest';
 import { valueWithError } from '../../src/figures/parts/uncertainNumber';
 
-const asNumber = (text: string) => Number(text.replace('\u2212', '-'));
+/** The typeset text read back as a number: "−1 × 10⁻¹¹" (core/exponentText.ts) → −1e-11. */
+const SUPERSCRIPTS = '⁰¹²³⁴⁵⁶⁷⁸⁹';
+const asNumber = (text: string) => Number(text.replace('\u2212', '-')
+  .replace(/\u00a0×\u00a010([⁻⁰¹²³⁴⁵⁶⁷⁸⁹]+)/, (_, e: string) => `e${[...e].map((c) => (c === '⁻' ? '-' : SUPERSCRIPTS.indexOf(c))).join('')}`));
 
 describe('report value ± standard error at tiny errors', () => {
   it('keeps a positive error positive (5 ± 1e-11; 3e-12 ± 1e-12)', () => {

@@ -47,6 +47,7 @@
  */
 import { CROSS_CHECK_RULE } from '../offPolicy/crossCheckVerdict';
 import { normalisedInterquartileRange } from './robustSpread';
+import { shareText } from '../shareText';
 
 export interface ClassEstimate {
   /** The function class in words, e.g. "polynomial, degree 2". */
@@ -130,17 +131,17 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
       return {
         settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: closest,
         reason: `Not settled: no other function class checks ${own} closely enough. The closest, ${closest.second}, differs from it by ${percentText(closest.relative)} of J, ` +
-          `but could not have seen a gap of ${100 * CROSS_CHECK_RULE.detectableGap} % of J (it would need a gap of ${detectableText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
+          `but could not have seen a gap of ${shareText(CROSS_CHECK_RULE.detectableGap)} of J (it would need a gap of ${detectableText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
       };
     }
     const g = widest(gaps), loose = ownFirst ? checks.filter((x) => !checking.includes(x)) : [];
-    const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (the smallest gap it could see is ${detectableText(detectable(x))} of J, not ${100 * CROSS_CHECK_RULE.detectableGap} %)`).join('; ')}.`;
+    const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (the smallest gap it could see is ${detectableText(detectable(x))} of J, not ${shareText(CROSS_CHECK_RULE.detectableGap)})`).join('; ')}.`;
     return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree; the widest gap: ${describe(g)}.${tooLoose}${notCompared}` };
   }
   const g = widest(disagreeing);
   return {
     settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: g,
-    reason: `Not settled: ${describe(g)}, beyond ${CLASS_AGREEMENT.standardErrors} standard errors and ${100 * CLASS_AGREEMENT.relative} % of J, ` +
+    reason: `Not settled: ${describe(g)}, beyond ${CLASS_AGREEMENT.standardErrors} standard errors and ${shareText(CLASS_AGREEMENT.relative)} of J, ` +
       `so at least one class cannot represent the value of this policy; the range spans them all.${notCompared}`,
   };
 }
@@ -173,17 +174,17 @@ function detectable(g: ClassGap): number {
 }
 
 function percentText(share: number): string {
-  return Number.isFinite(share) ? `${(100 * share).toFixed(share < 0.1 ? 1 : 0)} %` : 'an unbounded gap';
+  return Number.isFinite(share) ? shareText(share) : 'an unbounded gap';
 }
 
 /**
  * The smallest gap a pair that is no check could have seen: past the limit, so never printed at or
  * below it (10.04 % would round to "10 %" beside "could not have seen a gap of 10 %"); rounded up at
- * one decimal there.
+ * one decimal of a percent there, then written by the one share writer.
  */
 function detectableText(share: number): string {
-  const text = percentText(share), limit = 100 * CROSS_CHECK_RULE.detectableGap;
-  return share > CROSS_CHECK_RULE.detectableGap && Number.parseFloat(text) <= limit ? `${(Math.ceil(1000 * share) / 10).toFixed(1)} %` : text;
+  const text = percentText(share), limit = CROSS_CHECK_RULE.detectableGap;
+  return share > limit && text === shareText(limit) ? shareText(Math.ceil(1000 * share) / 1000) : text;
 }
 
 /** Robust spread (IQR/1.349) of the paired differences a_b − b_b. */
@@ -193,5 +194,5 @@ function pairedSpread(a: ArrayLike<number>, b: ArrayLike<number>): number {
 
 function describe(g: ClassGap): string {
   const z = Number.isFinite(g.standardErrors) ? g.standardErrors.toFixed(1) : '∞';
-  return `${g.first} and ${g.second} differ by ${(100 * g.relative).toFixed(1)} % of J (${z} ${g.paired ? 'paired ' : ''}standard errors)`;
+  return `${g.first} and ${g.second} differ by ${shareText(g.relative)} of J (${z} ${g.paired ? 'paired ' : ''}standard errors)`;
 }

@@ -29,6 +29,7 @@
  */
 import { sampleQuantile } from '../bootstrap/bootstrapInterval';
 import { POSSIBLE_SLACK, type PossibleValues } from './possibleValues';
+import { shareText } from '../shareText';
 
 /** The allowance for sampling error, in standard errors of J (our rule). */
 export const STATE_VALUE_ALLOWANCE = 1;
@@ -78,7 +79,7 @@ export function evenStride(count: number, limit: number): Int32Array {
 export function possibleValuesRuleText(maxStates: number): string {
   return 'Possible values: with every logged reward between r_min and r_max, no policy’s J, nor its value at any state, can leave r_min/(1 − γ) … r_max/(1 − γ) ' +
     '(the geometric series; where runs end in an end state, min(r_min, r_min/(1 − γ)) … max(r_max, r_max/(1 − γ)), since a run may pay a single step). ' +
-    `An estimate is marked impossible (serious) when J lies outside this range by more than ${Math.round(100 * POSSIBLE_SLACK)} % of its width, when its whole interval lies outside it, ` +
+    `An estimate is marked impossible (serious) when J lies outside this range by more than ${shareText(POSSIBLE_SLACK)} of its width, when its whole interval lies outside it, ` +
     `or when the fitted V̂ lies outside it at most of the logged states — its median over up to ${maxStates} logged states beyond an end by more than ` +
     `${STATE_VALUE_ALLOWANCE === 1 ? 'one standard error' : `${STATE_VALUE_ALLOWANCE} standard errors`} of J: the fit then fails on the states it was fitted on, ` +
     'which its interval (the same fit on resampled runs) cannot show. The range’s width is set by the most extreme logged step, so the state rule, which does not use it, is the one that speaks where a few large upsets dominate the log (our rules).';

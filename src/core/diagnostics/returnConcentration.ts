@@ -17,6 +17,7 @@
  * the verdicts read from them (settled across classes, the cross-checks' agreement), are a caution
  * (our rule; the threshold by the Pareto equivalence above, not chosen on any log).
  */
+import { shareText } from '../shareText';
 
 /** A caution above this share of the logged return in the costliest tenth of the runs (our rule). */
 export const CONCENTRATION_LIMIT = 0.5;
@@ -41,8 +42,8 @@ export function returnConcentration(returns: ArrayLike<number>): number | null {
 }
 
 export function returnConcentrationRuleText(): string {
-  return `Runs that carry the return: the share of the logged discounted return carried by the costliest ${Math.round(100 * CONCENTRATION_RUNS)} % of the runs; ` +
-    `above ${Math.round(100 * CONCENTRATION_LIMIT)} % a caution, since the intervals resample those few runs (a tail that heavy has an infinite variance, where the bootstrap of a mean fails; Athreya 1987).`;
+  return `Runs that carry the return: the share of the logged discounted return carried by the costliest ${shareText(CONCENTRATION_RUNS)} of the runs; ` +
+    `above ${shareText(CONCENTRATION_LIMIT)} a caution, since the intervals resample those few runs (a tail that heavy has an infinite variance, where the bootstrap of a mean fails; Athreya 1987).`;
 }
 
 /** The caution's words, or null at or below the limit. costs: the logged return is a cost (costs only, in either sense of the project). */
@@ -51,7 +52,7 @@ export function returnConcentrationFinding(share: number | null, runs: number, c
   const top = Math.ceil(CONCENTRATION_RUNS * runs), which = costs ? `The ${top} costliest` : `The ${top} most rewarding`;
   return {
     severity: 'caution', topic: 'runConcentration',
-    message: `${which} of the ${runs} logged runs carry ${(100 * share).toFixed(0)} % of the logged discounted ${costs ? 'cost' : 'return'}: the intervals resample runs and rest on those few, ` +
+    message: `${which} of the ${runs} logged runs carry ${shareText(share)} of the logged discounted ${costs ? 'cost' : 'return'}: the intervals resample runs and rest on those few, ` +
       'so they, and the verdicts read from them, may be far too narrow or too wide; a longer log with more of the rare events would say more.',
   };
 }

@@ -1,4 +1,17 @@
 /**
+ * The unvisited share of the value-surface grid above which the assessment cautions that the surfaces
+ * are mostly extrapolated: more than half the grid (ours, a display choice: below it the share is
+ * stated plainly, above it as a caution). The rule (unvisitedNeedsCaution) and the words that state the
+ * limit (pipeline/unvisitedWords.ts) both read it, so they cannot drift apart.
+ */
+export const UNVISITED_CAUTION_SHARE = 0.5;
+
+/** Whether the unvisited share is large enough for a caution: above UNVISITED_CAUTION_SHARE. */
+export function unvisitedNeedsCaution(share: number | null): share is number {
+  return share !== null && share > UNVISITED_CAUTION_SHARE;
+}
+
+/**
  * The state region the logs never visit, on a value-surface grid: a grid point counts as covered
  * when a logged state falls at it or at one of its 8 neighbours (a 3×3 neighbourhood, so the
  * sampling gaps inside a well-covered cloud do not read as holes; our definition, stated in the

@@ -21,6 +21,7 @@
  */
 
 import { COMPARATOR_DEGREE, comparatorName } from './comparatorDegree';
+import { shareText } from '../shareText';
 
 /**
  * A difference below this share of |J| is immaterial for a decision: under the 3 % accuracy the
@@ -80,8 +81,8 @@ function halfWidth(e: EstimateWithInterval): number {
 }
 
 function agreementMessage(verdict: AgreementVerdict, difference: number, relative: number, e: ApproximatorEstimates): string {
-  const by = `differ by ${formatNumber(difference)} (${(100 * relative).toFixed(1)} % of the value)`;
-  const level = `${Math.round(100 * (e.difference ?? e.network).interval.level)} %`;
+  const by = `differ by ${formatNumber(difference)} (${shareText(relative)} of the value)`;
+  const level = shareText((e.difference ?? e.network).interval.level);
   if (verdict === 'disagree') {
     return `The network and the ${comparatorName()} estimate disagree: they ${by}, more than resampling the logged runs explains ` +
       `(${level} intervals). At least one of them is biased by its function class — a polynomial of degree ${COMPARATOR_DEGREE} cannot follow saturation, clipping ` +
@@ -90,10 +91,10 @@ function agreementMessage(verdict: AgreementVerdict, difference: number, relativ
   }
   if (verdict === 'inconclusive') {
     return `The network and the ${comparatorName()} estimate ${by}, within what resampling the logged runs explains, but the ` +
-      `${level} interval of their difference is wider than ${Math.round(100 * WIDE_SHARE)} % of the value: too little data to tell ` +
+      `${level} interval of their difference is wider than ${shareText(WIDE_SHARE)} of the value: too little data to tell ` +
       'whether they agree. More logged runs would narrow it.';
   }
-  const negligible = relative < NEGLIGIBLE_SHARE ? `, under ${+(100 * NEGLIGIBLE_SHARE).toFixed(1)} % of the value` : ', within what resampling the logged runs explains';
+  const negligible = relative < NEGLIGIBLE_SHARE ? `, under ${shareText(NEGLIGIBLE_SHARE)} of the value` : ', within what resampling the logged runs explains';
   return `The network and the ${comparatorName()} estimate agree: they ${by}${negligible}.`;
 }
 

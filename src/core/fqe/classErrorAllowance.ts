@@ -38,6 +38,7 @@
  * were 30 % to several hundred % wide already. So its gain is measured on the battery only.
  */
 import type { ValueInterval } from './networkValueEstimate';
+import { shareText } from '../shareText';
 
 /** β/(1 − β) of the rule above, with β = 0.2 (measured on the battery; see above). */
 export const CLASS_ERROR_SHARE = 0.25;
@@ -60,7 +61,7 @@ export function withClassErrorAllowance(interval: ValueInterval, allowance: numb
 
 /** What the allowance adds, in the words the interval's description ends with. */
 export function classErrorSentence(share = CLASS_ERROR_SHARE): string {
-  const part = share === 0.25 ? 'a quarter' : `${+(100 * share).toFixed(1)} %`;
+  const part = share === 0.25 ? 'a quarter' : shareText(share);
   return `where the network and the linear estimate disagree beyond that resampling, both ends are moved out by ${part} of that excess ` +
     '(an allowance for the function class’s error, chosen on the battery of plants with known answers; it is not a bound)';
 }

@@ -16,6 +16,7 @@ import { bellmanResidual } from './bellmanResidual';
 import { throwIfCancelled, type CancellationCheck } from './cancellation';
 
 import type { FqeStatus } from './fitStatus';
+import { ASCII_MINUS, exponentText } from '../exponentText';
 
 export type { FqeStatus } from './fitStatus';
 
@@ -67,7 +68,7 @@ export function runFqeIteration(setup: IterationSetup): IterationOutcome {
     const { step, size } = stepSize(w, next);
     const residual = bellmanResidual(stats, next, discount);
     if (!Number.isFinite(step) || !Number.isFinite(residual) || size > WEIGHT_NORM_LIMIT) {
-      return diverged(history, `the weights grew beyond ${WEIGHT_NORM_LIMIT.toExponential(0)} after ${k} iterations`, bound);
+      return diverged(history, `the weights grew beyond ${exponentText(WEIGHT_NORM_LIMIT, 0, ASCII_MINUS)} after ${k} iterations`, bound);
     }
     const progress = { iteration: k, weightChange: size === 0 ? 0 : step / size, bellmanResidual: residual, policyValue: dot(setup.startFeatures, next) };
     history.push(progress);

@@ -51,6 +51,7 @@ import { MAX_FEATURES, RIDGE } from '../limits';
 import { createRandom } from '../random';
 import type { TransitionSet } from '../transitions';
 import { LINEAR_PART_DEGREE } from './networkLinearPart';
+import { shareText, sharesText } from '../shareText';
 
 /** The degrees compared: the default, and the quartic measured on the battery (README, "What the network is compared with"). */
 export const DEGREE_CHOICES: readonly number[] = [LINEAR_PART_DEGREE, 4];
@@ -210,7 +211,7 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   const scored: number[] = [];
   for (let run = 0; run < e; run++) if (runWeight[run] > 0) scored.push(run);
   if (scored.length < MIN_SCORED_RUNS) {
-    return keep(`only ${scored.length} run${scored.length === 1 ? '' : 's'} hold rows whose return is observed to within ${100 * TAIL_WEIGHT} % of its horizon; at least ${MIN_SCORED_RUNS} are needed`);
+    return keep(`only ${scored.length} run${scored.length === 1 ? '' : 's'} hold rows whose return is observed to within ${shareText(TAIL_WEIGHT)} of its horizon; at least ${MIN_SCORED_RUNS} are needed`);
   }
   const perRun = (k: number) => scored.map((run) => runScore[k][run] / runWeight[run]);
   const meanSquaredError = degrees.map((_, k) => average(perRun(k)));
@@ -227,10 +228,12 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
     if (mean < -CHOICE_STANDARD_ERRORS * se && mean < bestGain) { chosen = degrees[k]; bestGain = mean; }
   }
   const other = degrees.find((x) => x !== base) ?? base, rows = `${scored.length} runs, each scored on fits over the other runs`;
-  const percent = (x: number) => `${(100 * x).toFixed(1)} %`;
+  // The two errors are compared in one sentence: one precision (core/shareText.ts sharesText).
+  const [chosenError, baseError] = sharesText([relativeError[degrees.indexOf(chosen)], relativeError[0]]);
+  const [otherError, ownError] = sharesText([relativeError[degrees.indexOf(other)], relativeError[0]]);
   const sentence = chosen !== base
-    ? `Polynomial part of degree ${chosen}: it predicted the present controller’s held-out returns better than degree ${base} (root mean squared error ${percent(relativeError[degrees.indexOf(chosen)])} against ${percent(relativeError[0])} of the return, by more than ${CHOICE_STANDARD_ERRORS} standard errors; ${rows}).`
-    : `Polynomial part of degree ${base}: degree ${other} did not predict the present controller’s held-out returns better by more than ${CHOICE_STANDARD_ERRORS} standard errors (root mean squared error ${percent(relativeError[degrees.indexOf(other)])} against ${percent(relativeError[0])} of the return; ${rows}).`;
+    ? `Polynomial part of degree ${chosen}: it predicted the present controller’s held-out returns better than degree ${base} (root mean squared error ${chosenError} against ${baseError} of the return, by more than ${CHOICE_STANDARD_ERRORS} standard errors; ${rows}).`
+    : `Polynomial part of degree ${base}: degree ${other} did not predict the present controller’s held-out returns better by more than ${CHOICE_STANDARD_ERRORS} standard errors (root mean squared error ${otherError} against ${ownError} of the return; ${rows}).`;
   return { degrees, chosen, meanSquaredError, relativeError, difference, standardError, runsScored: scored.length, rowsScored, notCompared: null, sentence };
 }
 

@@ -24,6 +24,7 @@ import { adamStepFlop, featurePassFlop, lastLayerSumsFlop, newWork, type Network
 import { measureIterate, regressionTargets, heldOutBellmanError, type MeasuredIterate } from './networkIterateValues';
 import { climbRidgeLadder, RIDGE_LADDER_FACTOR, RIDGE_LADDER_RUNGS } from './networkRidgeLadder';
 import { requireActiveBackend, type TfBackendName } from './tfBackend';
+import { shareText } from '../shareText';
 
 export interface IterationStop {
   readonly kind: 'converged' | 'maxIterations' | 'diverged' | 'cancelled';
@@ -271,5 +272,5 @@ function notConvergedMessage(rule: ConvergenceRule, history: readonly NetworkIte
 }
 
 function percent(x: number): string {
-  return `${(100 * x).toPrecision(2)} %`;
+  return shareText(x);
 }

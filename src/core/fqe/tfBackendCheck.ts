@@ -21,6 +21,7 @@ import { networkLayout } from './networkParameters';
 import { networkOutput } from './networkForward';
 import { lossAndGradient } from './networkGradient';
 import type { NetworkActivation } from './networkSettings';
+import { ASCII_MINUS, exponentText } from '../exponentText';
 
 export const BACKEND_CHECK_TOLERANCE = 1e-3;
 
@@ -59,7 +60,7 @@ export async function verifyBackend(name: string): Promise<BackendCheck> {
         const difference = relativeDifference(candidate[key], reference[key]);
         largest = Math.max(largest, difference);
         if (!(difference <= BACKEND_CHECK_TOLERANCE)) {
-          return fail(`the ${key} of a ${activation} network differs from cpu by ${difference.toExponential(2)} relative (tolerance ${BACKEND_CHECK_TOLERANCE})`, difference);
+          return fail(`the ${key} of a ${activation} network differs from cpu by ${exponentText(difference, 2, ASCII_MINUS, true)} relative (tolerance ${BACKEND_CHECK_TOLERANCE})`, difference);
         }
       }
     }

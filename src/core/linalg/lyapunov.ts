@@ -20,6 +20,7 @@
  * Kronecker form solved by an independent library.
  */
 import { multiply, transpose } from './dense';
+import { ASCII_MINUS, exponentText } from '../exponentText';
 
 /** X = Q + s·AᵀXA has no convergent-series solution: s·ρ(A)² ≥ 1 (to working precision). */
 export class LyapunovStabilityError extends Error {
@@ -103,7 +104,7 @@ function checkResidual(a: ArrayLike<number>, q: ArrayLike<number>, n: number, sc
   if (Math.sqrt(residualSq) > RESIDUAL_TOLERANCE * size) {
     throw new LyapunovStabilityError(
       `the discrete Lyapunov equation is too ill-conditioned to solve in double precision ` +
-        `(relative residual ${(Math.sqrt(residualSq) / size).toExponential(2)}); s·ρ(A)² is too close to 1`,
+        `(relative residual ${exponentText(Math.sqrt(residualSq) / size, 2, ASCII_MINUS, true)}); s·ρ(A)² is too close to 1`,
       1,
     );
   }

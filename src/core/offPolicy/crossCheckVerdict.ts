@@ -36,6 +36,7 @@
  * and rewards themselves (importance sampling) agrees.
  */
 import { effectiveRunsText } from './effectiveRunsText';
+import { shareText } from '../shareText';
 
 const DETECTABLE_GAP = 0.1;
 
@@ -77,7 +78,7 @@ export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   const r = CROSS_CHECK_RULE, scale = Math.max(Math.abs(e.fqe), Number.MIN_VALUE);
   const relative = Math.abs(e.difference) / scale;
   const z = e.differenceStandardError > 0 ? Math.abs(e.difference) / e.differenceStandardError : Infinity;
-  const size = `differs from fitted Q-evaluation by ${(100 * relative).toFixed(1)} % of J`;
+  const size = `differs from fitted Q-evaluation by ${shareText(relative)} of J`;
   // No standard error (no resampled values): a count of standard errors would read 0.0 and the gap it could see ∞ %.
   const gap = Number.isFinite(e.differenceStandardError)
     ? `${size} (${Number.isFinite(z) ? z.toFixed(1) : '∞'} ${e.paired === false ? UNPAIRED_WORDS : 'standard errors of the paired difference'})`
@@ -87,12 +88,12 @@ export function crossCheckVerdict(e: CrossCheckEvidence): CheckVerdict {
   if (z > r.standardErrors && relative > r.relative) return { label: e.label, agreement: 'disagrees', note: `Disagrees: it ${gap}.` };
   const detectable = (r.standardErrors * e.differenceStandardError) / scale;
   if (!Number.isFinite(detectable)) {
-    return { label: e.label, agreement: 'uninformative', note: `Uninformative: it has no standard error from the resampled runs, so it cannot show an error of ${100 * r.detectableGap} % of J; it ${gap}.` };
+    return { label: e.label, agreement: 'uninformative', note: `Uninformative: it has no standard error from the resampled runs, so it cannot show an error of ${shareText(r.detectableGap)} of J; it ${gap}.` };
   }
   if (!(detectable <= r.detectableGap)) {
     return {
       label: e.label, agreement: 'uninformative',
-      note: `Uninformative: its uncertainty is too wide to see an error of ${100 * r.detectableGap} % of J (it would need a gap of ${(100 * detectable).toFixed(0)} %); it ${gap}.`,
+      note: `Uninformative: its uncertainty is too wide to see an error of ${shareText(r.detectableGap)} of J (it would need a gap of ${shareText(detectable)}); it ${gap}.`,
     };
   }
   return { label: e.label, agreement: 'agrees', note: `Agrees: it ${gap}.` };
@@ -106,10 +107,10 @@ function weakness(e: CrossCheckEvidence): string | null {
     if (w.effectiveEpisodes < needed) return w.effectiveEpisodes >= 1
       ? `at step ${w.horizonSteps} the importance weights have an effective size of ${effectiveRunsText(w.effectiveEpisodes)} (below ${needed.toFixed(0)})`
       : `at step ${w.horizonSteps} the importance weights carry ${effectiveRunsText(w.effectiveEpisodes)}, where ${needed.toFixed(0)} runs are needed`;
-    if (w.tailWeight > r.maxTailWeight) return `${(100 * w.tailWeight).toFixed(0)} % of the discount weight lies past the logged runs’ ends, where it uses fitted Q-evaluation’s own value`;
+    if (w.tailWeight > r.maxTailWeight) return `${shareText(w.tailWeight)} of the discount weight lies past the logged runs’ ends, where it uses fitted Q-evaluation’s own value`;
   }
   if (e.shareOutsideLogs !== undefined && e.shareOutsideLogs > r.maxShareOutsideLogs) {
-    return `${(100 * e.shareOutsideLogs).toFixed(0)} % of the simulated (discounted) steps reach the edge of the logged states, where the fitted model extrapolates`;
+    return `${shareText(e.shareOutsideLogs)} of the simulated (discounted) steps reach the edge of the logged states, where the fitted model extrapolates`;
   }
   if (e.rewardShareAtEdge !== undefined && e.rewardShareAtEdge > r.maxRewardShareAtEdge) return rewardAtEdgeText(e.rewardShareAtEdge);
   return null;
@@ -118,8 +119,8 @@ function weakness(e: CrossCheckEvidence): string | null {
 /** The words for a value resting on held states, from the same constants the rule applies. */
 export function rewardAtEdgeText(share: number): string {
   const r = CROSS_CHECK_RULE;
-  return `${(100 * share).toFixed(0)} % of the model’s value (its discounted rewards, in size) comes from simulated states held at the edge of the logged states, ` +
-    `where the fitted model extrapolates and may be wrong by the whole of that part; at most ${100 * r.maxRewardShareAtEdge} % may, half the ${100 * r.detectableGap} % error the check must see`;
+  return `${shareText(share)} of the model’s value (its discounted rewards, in size) comes from simulated states held at the edge of the logged states, ` +
+    `where the fitted model extrapolates and may be wrong by the whole of that part; at most ${shareText(r.maxRewardShareAtEdge)} may, half the ${shareText(r.detectableGap)} error the check must see`;
 }
 
 export type Confirmation = 'confirmed' | 'contradicted' | 'unconfirmed';

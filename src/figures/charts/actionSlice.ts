@@ -16,7 +16,7 @@ import type { Theme } from '../parts/plotTheme';
 import { pointMassesAtBounds, type PointMass, type SliceBounds } from '../parts/pointMasses';
 import { interpolateOnGrid } from '../parts/sliceInterpolation';
 import { formatValue } from '../parts/tickFormat';
-import { shareText } from '../../core/shareText';
+import { sharesText } from '../../core/shareText';
 
 export const ACTION_SLICE_DEFAULTS = {
   heightPx: 380,
@@ -219,10 +219,7 @@ function boundsPlugin(bounds: SliceBounds | undefined, masses: PointMass[], look
       ctx.setLineDash([]);
       const { font, heightPx } = limitLabelFont(look);
       ctx.font = font;
-      const texts = shown.map(([edge, side]) => {
-        const mass = masses.find((m) => m.action === edge);
-        return limitLabelText(side, edge, mass?.probability ?? null);
-      });
+      const texts = limitLabelTexts(shown.map(([edge, side]) => ({ side, edge, probability: masses.find((m) => m.action === edge)?.probability ?? null })));
       const boxes = limitLabelBoxes(shown.map(([edge, side], i) => ({ x: xs.getPixelForValue(edge), side, widthPx: ctx.measureText(texts[i]).width })), area, heightPx, s);
       boxes.forEach((box, i) => drawBackedText(ctx, texts[i], box, look.palette.text, look));
       ctx.restore();
@@ -248,7 +245,13 @@ function checkSlice(slice: ActionSliceData): void {
  * sits there written by the one share writer (core/shareText.ts), as every share the engineer reads.
  */
 export function limitLabelText(side: 'lower' | 'upper', edge: number, probability: number | null): string {
-  return `${side} limit ${formatValue(edge)}${probability === null ? '' : `: ${shareText(probability)} probability`}`;
+  return limitLabelTexts([{ side, edge, probability }])[0];
+}
+
+/** The labels of both limits, read side by side on one chart: their shares at one precision (sharesText), "2.80 %" beside "0.31 %", never "2.8 %". */
+export function limitLabelTexts(limits: readonly { side: 'lower' | 'upper'; edge: number; probability: number | null }[]): string[] {
+  const shares = sharesText(limits.map((l) => l.probability));
+  return limits.map((l, i) => `${l.side} limit ${formatValue(l.edge)}${l.probability === null ? '' : `: ${shares[i]} probability`}`);
 }
 
 /** "Below 0.01 %" at the start of a sentence; a number stays as it is. */
@@ -263,8 +266,8 @@ export function actionSliceSummary(props: ActionSlicePlotProps): string {
     if (slice.actionValues[i] > slice.actionValues[best]) best = i;
     if (slice.density[i] > slice.density[peak]) peak = i;
   }
-  const masses = pointMassesAtBounds(slice.nodes, slice.bounds)
-    .map((m) => ` ${sentenceStart(shareText(m.probability))} of the action’s probability sits on the ${m.side} bound ${formatValue(m.action)}.`).join('');
+  const atBounds = pointMassesAtBounds(slice.nodes, slice.bounds), shares = sharesText(atBounds.map((m) => m.probability));
+  const masses = atBounds.map((m, i) => ` ${sentenceStart(shares[i])} of the action’s probability sits on the ${m.side} bound ${formatValue(m.action)}.`).join('');
   return `Q(s, a) of ${props.valueLabel} along ${props.actionLabel} from ${formatValue(slice.actions[0])} to ${formatValue(slice.actions[n - 1])} `
     + `for ${slice.policyName}; highest ${formatValue(slice.actionValues[best])} at ${formatValue(slice.actions[best])}. `
     + `The policy density peaks at ${formatValue(slice.actions[peak])}; ${slice.nodes.points.length} quadrature nodes are marked.${masses}`;

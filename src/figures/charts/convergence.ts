@@ -25,6 +25,8 @@ type SeriesField = 'weightChange' | 'bellmanResidual' | 'loss';
 interface Series {
   readonly field: SeriesField;
   readonly label: string;
+  /** The series' place in the palette and dash pattern: its look stays when the other is left out. */
+  readonly style: number;
 }
 
 /** A network fit reports a loss and no weight change. */
@@ -32,10 +34,17 @@ export function isNetworkHistory(history: readonly FitIteration[]): boolean {
   return history.length > 0 && history.every((h) => h.weightChange === null) && history.some((h) => h.loss !== null);
 }
 
+/**
+ * The series drawn, and so the legend's entries: only those with a value the log axis can show. A
+ * network fit with no held-out runs (heldOutFraction 0) records no held-out mismatch, and its legend
+ * had an entry for a line that was never drawn. An empty history keeps both, for the empty notice's legend.
+ */
 export function convergenceSeries(history: readonly FitIteration[]): Series[] {
-  return isNetworkHistory(history)
-    ? [{ field: 'loss', label: 'training loss' }, { field: 'bellmanResidual', label: 'one-step mismatch on held-out runs (mean square)' }]
-    : [{ field: 'weightChange', label: 'relative weight change' }, { field: 'bellmanResidual', label: 'one-step mismatch (mean square)' }];
+  const all: Series[] = isNetworkHistory(history)
+    ? [{ field: 'loss', label: 'training loss', style: 0 }, { field: 'bellmanResidual', label: 'one-step mismatch on held-out runs (mean square)', style: 1 }]
+    : [{ field: 'weightChange', label: 'relative weight change', style: 0 }, { field: 'bellmanResidual', label: 'one-step mismatch (mean square)', style: 1 }];
+  const drawn = all.filter((serie) => history.some((h) => positiveOrNull(h[serie.field]) !== null));
+  return drawn.length > 0 ? drawn : all;
 }
 
 function positiveOrNull(v: number | null): number | null {
@@ -45,9 +54,9 @@ function positiveOrNull(v: number | null): number | null {
 export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
   const { history } = props, p = look.palette, s = look.scale, d = CONVERGENCE_DEFAULTS;
   const series = convergenceSeries(history);
-  const datasets: ChartDataset<'line', XY[]>[] = series.map((serie, k) => ({
-    label: serie.label,
-    data: history.map((h) => ({ x: h.iteration, y: positiveOrNull(h[serie.field]) })),
+  const datasets: ChartDataset<'line', XY[]>[] = series.map(({ label, field, style: k }) => ({
+    label,
+    data: history.map((h) => ({ x: h.iteration, y: positiveOrNull(h[field]) })),
     borderColor: p.series[k], backgroundColor: p.series[k], borderWidth: d.lineWidthPx * s,
     borderDash: k === 1 ? [6 * s, 3 * s] : [], pointRadius: history.length > 60 ? 0 : d.pointRadiusPx * s, spanGaps: false,
   }));
@@ -57,7 +66,7 @@ export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): C
     type: 'line',
     data: { datasets },
     plugins: [
-      legendPlugin(series.map((serie, k) => ({ label: serie.label, kind: 'line' as const, colour: p.series[k], dash: k === 1 ? [6, 3] : [], lineWidthPx: d.lineWidthPx })), look),
+      legendPlugin(series.map(({ label, style: k }) => ({ label, kind: 'line' as const, colour: p.series[k], dash: k === 1 ? [6, 3] : [], lineWidthPx: d.lineWidthPx })), look),
       ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: 'iteration' }, { scaleId: 'y', position: 'left', text: 'value (log scale)' }]),
       ...(hasData ? [] : [emptyNotice(look)]),
     ],

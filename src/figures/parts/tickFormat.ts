@@ -6,6 +6,7 @@
  * zeros (below SMALLEST_FIXED). The locale is fixed ('en-US') so an exported figure reads the same on every machine.
  */
 import { LARGEST_FIXED, SMALLEST_FIXED, TRUE_MINUS, intervalDecimals, valueAtPrecision, valueWithError } from './uncertainNumber';
+import { exponentText, powerOfTen } from '../../core/exponentText';
 
 /** Tick labels from here on are written in exponent form: fixed notation would run past eleven characters. */
 const WIDEST_FIXED_TICK = 1e9;
@@ -19,7 +20,7 @@ const WIDEST_FIXED_TICK = 1e9;
 export function formatTick(value: number, fractionDigits: number, step?: number): string {
   if (value === 0) return (0).toFixed(Math.min(20, fractionDigits));
   const magnitude = Math.abs(value);
-  if (magnitude >= WIDEST_FIXED_TICK || magnitude < SMALLEST_FIXED) return trueMinus(value.toExponential(mantissaDigits(magnitude, step)).replace('e+', 'e'));
+  if (magnitude >= WIDEST_FIXED_TICK || magnitude < SMALLEST_FIXED) return exponentText(value, mantissaDigits(magnitude, step), TRUE_MINUS, true);
   return toDecimals(value, fractionDigits);
 }
 
@@ -53,14 +54,12 @@ export function fractionDigitsOf(values: readonly number[]): number {
   return step > 0 ? Math.min(12, Math.max(0, -Math.floor(Math.log10(step) + 1e-9))) : 0;
 }
 
-const SUPERSCRIPT: Record<string, string> = { '-': '⁻', '0': '⁰', '1': '¹', '2': '²', '3': '³', '4': '⁴', '5': '⁵', '6': '⁶', '7': '⁷', '8': '⁸', '9': '⁹' };
-
 /** A decade on a log axis as 10 with a superscript exponent ("10⁻⁵"); '' for values between decades. */
 export function decadeLabel(value: number): string {
   if (!(value > 0)) return '';
   const exponent = Math.log10(value), k = Math.round(exponent);
   if (Math.abs(exponent - k) > 1e-9) return '';
-  return `10${String(k).split('').map((c) => SUPERSCRIPT[c]).join('')}`;
+  return powerOfTen(k);
 }
 
 /** A grid point's label may be off its value by at most this share of it (half a unit in the third significant digit). */
@@ -106,7 +105,7 @@ export function formatValue(value: number): string {
   if (!Number.isFinite(value)) return String(value);
   if (value === 0) return '0';
   const magnitude = Math.abs(value);
-  if (magnitude >= LARGEST_FIXED || magnitude < SMALLEST_FIXED) return trueMinus(value.toExponential(3).replace('e+', 'e'));
+  if (magnitude >= LARGEST_FIXED || magnitude < SMALLEST_FIXED) return exponentText(value, 3, TRUE_MINUS, true);
   return trueMinus(Number(value.toPrecision(4)).toLocaleString('en-US', { maximumFractionDigits: 10 }));
 }
 

@@ -12,14 +12,12 @@
  * list's. Where the rule does not apply (no usable interval or error, an uncertainty of a million or
  * more, or one that needs more than ten decimal places) the plain style: PLAIN_DIGITS significant digits.
  * The minus sign is a parameter: U+2212 where the text is typeset (app, figures, report), the ASCII
- * hyphen-minus on the terminal, whose text is searched and pasted as typed.
+ * hyphen-minus on the terminal, whose text is searched and pasted as typed; it also picks the exponent
+ * form, "1.235 × 10⁻⁵" typeset and "1.235e-5" on the terminal (core/exponentText.ts, the one writer).
  */
+import { ASCII_MINUS, exponentText, TRUE_MINUS, type Minus } from '../../core/exponentText';
 
-/** The minus sign of typeset numbers (ISO 80000-2; typographic practice). */
-export const TRUE_MINUS = '\u2212';
-/** The terminal's minus: the hyphen-minus a user would type. */
-export const ASCII_MINUS = '-';
-export type Minus = typeof TRUE_MINUS | typeof ASCII_MINUS;
+export { ASCII_MINUS, TRUE_MINUS, type Minus };
 
 /** Significant digits of the plain style, where no interval or error sets the precision. */
 export const PLAIN_DIGITS = 4;
@@ -27,7 +25,7 @@ export const PLAIN_DIGITS = 4;
 const LARGEST_UNCERTAINTY = 1e6;
 /** Values from here on lose their units digit in a double (2⁵³ ≈ 9.0e15): fixed notation would show digits that are not there. */
 export const LARGEST_FIXED = 1e15;
-/** Below this magnitude the plain style writes exponent form ("1.2e−5"), where fixed notation would be mostly zeros. */
+/** Below this magnitude the plain style writes exponent form ("1.2 × 10⁻⁵"), where fixed notation would be mostly zeros. */
 export const SMALLEST_FIXED = 1e-4;
 /** Most decimal places the rule writes. */
 const MOST_DECIMALS = 10;
@@ -63,16 +61,16 @@ export function rowDecimals(iv: readonly [number, number] | null | undefined, er
 
 /**
  * The plain style: `digits` significant digits, trailing zeros dropped, fixed notation from
- * SMALLEST_FIXED up to LARGEST_FIXED ("1235000", "0.01235"), exponent form outside it ("1.235e−5"); "—" for none.
+ * SMALLEST_FIXED up to LARGEST_FIXED ("1235000", "0.01235"), exponent form outside it ("1.235 × 10⁻⁵", on
+ * the terminal "1.235e-5"); "—" for none.
  */
 export function plainNumber(v: number | null | undefined, digits = PLAIN_DIGITS, minus: Minus = TRUE_MINUS): string {
   if (v === null || v === undefined || Number.isNaN(v)) return '—';
   if (!Number.isFinite(v)) return v > 0 ? '∞' : `${minus}∞`;
   if (v === 0) return '0';
   const magnitude = Math.abs(v);
-  const text = magnitude >= LARGEST_FIXED || magnitude < SMALLEST_FIXED
-    ? v.toExponential(digits - 1).replace(/\.?0+e/, 'e').replace('e+', 'e')
-    : Number(v.toPrecision(digits)).toFixed(Math.max(0, digits - 1 - Math.floor(Math.log10(magnitude)))).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
+  if (magnitude >= LARGEST_FIXED || magnitude < SMALLEST_FIXED) return exponentText(v, digits - 1, minus);
+  const text = Number(v.toPrecision(digits)).toFixed(Math.max(0, digits - 1 - Math.floor(Math.log10(magnitude)))).replace(/(\.\d*?)0+$/, '$1').replace(/\.$/, '');
   return text.replace(/-/g, minus);
 }
 

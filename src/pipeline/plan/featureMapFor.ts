@@ -49,9 +49,3 @@ export function planFeatures(settings: Extract<ApproximatorSettings, { kind: 'li
   if (!enough.ok) return failure(...enough.problems.map((p) => ({ ...p, field: ['approximator', 'features'] })));
   return success(features, enough.warnings);
 }
-
-export function describeApproximator(settings: ApproximatorSettings): string {
-  if (settings.kind === 'network') return `network ${settings.hiddenLayers.join('×')} (${settings.activation})`;
-  const f = settings.features;
-  return f.kind === 'polynomial' ? `linear, polynomial features of degree ${f.degree}` : `linear, radial basis (${f.centresPerInput} centres per input)`;
-}

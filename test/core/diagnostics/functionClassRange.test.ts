@@ -96,24 +96,24 @@ describe('function-class rule: mechanics', () => {
     expect(functionClassVerdict([at('degree 2', -10, 0.2)]).settled).toBe(true); // nothing else fitted: one class, unchecked, as before
   });
 
-  it('calls a class checked only by a pair that could have seen a gap of 10 % of J (the cross-checks\' yardstick)', () => {
+  it('calls a class checked only by a pair that could have seen a gap of 10\u00a0% of J (the cross-checks\' yardstick)', () => {
     // The rule's own statements (ours). Unpaired: the difference's standard error is √(6.6² + 42²) = 42.52,
     // 1.408 of |J| = 30.2; two of them, 282 % of J, is the smallest gap the pair could see.
     const loose = functionClassVerdict([at('degree 2', 30.2, 6.6), at('degree 3', 19, 42)]);
     expect(loose.settled).toBe(false);
-    expect(loose.reason).toBe('Not settled: no other function class checks degree 2 closely enough. The closest, degree 3, differs from it by 37 % of J, but could not have seen a gap of 10 % of J (it would need a gap of 282 %), so the error of the class is not measured.');
+    expect(loose.reason).toBe('Not settled: no other function class checks degree 2 closely enough. The closest, degree 3, differs from it by 37.1\u00a0% of J, but could not have seen a gap of 10\u00a0% of J (it would need a gap of 282\u00a0%), so the error of the class is not measured.');
     // One close class checks it; a loose one is named as too uncertain: √(0.1² + 5²)/10 · 2 = 100 %.
     const named = functionClassVerdict([at('degree 2', -10, 0.1), at('degree 3', -10.05, 0.1), at('degree 4', -9, 5)]);
     expect(named.settled).toBe(true);
-    expect(named.reason).toContain('Too uncertain to check degree 2: degree 4 (the smallest gap it could see is 100 % of J, not 10 %).');
+    expect(named.reason).toContain('Too uncertain to check degree 2: degree 4 (the smallest gap it could see is 100\u00a0% of J, not 10\u00a0%).');
     expect(named.range).toEqual([-9 - 1.645 * 5, -9 + 1.645 * 5]); // the range still spans every class
     // At the limit the words never contradict the rule: a pair that could see 10.04 % is not a check,
     // and its 'would need' is rounded up, not to the 10 % it failed. √2 · 0.355 · 2 / 10 = 10.04 %.
     const edge = functionClassVerdict([at('degree 2', 10, 0.355), at('degree 3', 10, 0.355)]);
     expect(edge.settled).toBe(false);
-    expect(edge.reason).toContain('could not have seen a gap of 10 % of J (it would need a gap of 10.1 %)');
+    expect(edge.reason).toContain('could not have seen a gap of 10\u00a0% of J (it would need a gap of 10.1\u00a0%)');
     const edgeNamed = functionClassVerdict([at('degree 2', 10, 0.01), at('degree 3', 10, 0.01), at('degree 4', 10, 0.355 * Math.SQRT2)]);
-    expect(edgeNamed.reason).toContain('degree 4 (the smallest gap it could see is 10.1 % of J, not 10 %)');
+    expect(edgeNamed.reason).toContain('degree 4 (the smallest gap it could see is 10.1\u00a0% of J, not 10\u00a0%)');
     // Where the project's own value is not in the list (a network, checked by its own agreement rule), the rule reads disagreement only.
     const withoutOwn = functionClassVerdict([at('degree 2', 30.2, 6.6), at('degree 3', 19, 42)], [], false);
     expect(withoutOwn.settled).toBe(true);
@@ -128,7 +128,7 @@ describe('function-class rule: mechanics', () => {
     const v = functionClassVerdict([at('a', -10, 0.1), at('b', -10.5, 0.1), at('c', -10.1, 0.1)]);
     expect(v.settled).toBe(false);
     expect(v.widestGap).toMatchObject({ first: 'a', second: 'b' });
-    expect(v.reason).toContain(`beyond ${CLASS_AGREEMENT.standardErrors} standard errors and ${100 * CLASS_AGREEMENT.relative} % of J`);
+    expect(v.reason).toContain(`beyond ${CLASS_AGREEMENT.standardErrors} standard errors and ${100 * CLASS_AGREEMENT.relative}\u00a0% of J`);
     expect(v.range[0]).toBeCloseTo(-10.5 - 1.645 * 0.1, 12);
     expect(v.range[1]).toBeCloseTo(-10 + 1.645 * 0.1, 12);
   });

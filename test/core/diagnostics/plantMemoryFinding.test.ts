@@ -28,13 +28,13 @@ describe('plant memory rule', () => {
     expect(adjustedPartialRSquared(component(0.001, 24, 1676))).toBe(0);
   });
 
-  it('puts the F guard at the tabulated 0.1 % points of χ²_q / q (Wilson–Hilferty within 1 %)', () => {
+  it('puts the F guard at the tabulated 0.1\u00a0% points of χ²_q / q (Wilson–Hilferty within 1\u00a0%)', () => {
     expect(memoryFCritical(10) * 10).toBeCloseTo(29.588, 0);
     expect(Math.abs(memoryFCritical(10) * 10 / 29.588 - 1)).toBeLessThan(0.01);
     expect(Math.abs(memoryFCritical(24) * 24 / 51.179 - 1)).toBeLessThan(0.01);
   });
 
-  it('is quiet at the Markov plants’ level, a caution above 5 %, serious above 50 %, naming the state and the signal', () => {
+  it('is quiet at the Markov plants’ level, a caution above 5\u00a0%, serious above 50\u00a0%, naming the state and the signal', () => {
     expect(plantMemoryFinding(result(component(0.003), component(0.002, 24, 19_000, 0)), names)).toBeNull();
     const caution = plantMemoryFinding(result(component(MEMORY_CAUTION + 0.03)), names);
     expect(caution?.severity).toBe('caution');
@@ -52,7 +52,7 @@ describe('plant memory rule', () => {
   });
 
   it('states its thresholds from the constants the rule applies', () => {
-    expect(plantMemoryRuleText()).toContain('above 5 %'); // the one share writer (core/shareText.ts): not '5.0 %' beside '50 %'
-    expect(plantMemoryRuleText()).toContain('above 50 %');
+    expect(plantMemoryRuleText()).toContain('above 5\u00a0%'); // the one share writer (core/shareText.ts): not '5.0 %' beside '50 %'
+    expect(plantMemoryRuleText()).toContain('above 50\u00a0%');
   });
 });

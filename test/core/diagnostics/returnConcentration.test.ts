@@ -38,8 +38,8 @@ describe('return concentration', () => {
     expect(returnConcentrationFinding(0.5, 250, true)).toBeNull();
     expect(returnConcentrationFinding(null, 250, true)).toBeNull();
     expect(returnConcentrationFinding(0.94, 250, true)).toMatchObject({
-      severity: 'caution', topic: 'runConcentration', message: expect.stringMatching(/^The 25 costliest of the 250 logged runs carry 94 % of the logged discounted cost/),
+      severity: 'caution', topic: 'runConcentration', message: expect.stringMatching(/^The 25 costliest of the 250 logged runs carry 94\u00a0% of the logged discounted cost/),
     });
-    expect(returnConcentrationFinding(0.6, 95, false)!.message).toMatch(/^The 10 most rewarding of the 95 logged runs carry 60 % of the logged discounted return/);
+    expect(returnConcentrationFinding(0.6, 95, false)!.message).toMatch(/^The 10 most rewarding of the 95 logged runs carry 60\u00a0% of the logged discounted return/);
   });
 });

@@ -22,11 +22,11 @@ describe('severity', () => {
   it('states the limits it applies in the rule texts', () => {
     expect(occupancyShiftRuleText()).toContain(`caution above ${OCCUPANCY_SHIFT_LIMITS.caution} times that level`);
     expect(occupancyShiftRuleText()).toContain(`serious above ${OCCUPANCY_SHIFT_LIMITS.serious} times`);
-    expect(effectiveShareRuleText()).toContain(`caution below ${100 * EFFECTIVE_SHARE_LIMITS.caution} %`);
+    expect(effectiveShareRuleText()).toContain(`caution below ${100 * EFFECTIVE_SHARE_LIMITS.caution}\u00a0%`);
     // Both limits by the one share writer (core/shareText.ts): "caution below 10 %, serious below 1 %", not "1.0 %" beside "10 %".
     expect(effectiveShareRuleText()).toContain(`caution below ${shareText(EFFECTIVE_SHARE_LIMITS.caution)}, serious below ${shareText(EFFECTIVE_SHARE_LIMITS.serious)} `);
-    expect(effectiveShareRuleText()).not.toMatch(/\d\.0 %/);
-    expect(actionSupportRuleText()).toContain(`serious above ${100 * ACTION_SUPPORT_LIMITS.serious} %`);
+    expect(effectiveShareRuleText()).not.toMatch(/\d\.0\u00a0%/);
+    expect(actionSupportRuleText()).toContain(`serious above ${100 * ACTION_SUPPORT_LIMITS.serious}\u00a0%`);
   });
 
   it('writes findings whose level and limit agree with each other', () => {
@@ -48,9 +48,9 @@ describe('severity', () => {
     expect(occupancyShiftFinding(6, 3)).toBeNull();
     expect(occupancyShiftFinding(40, 3)).toMatchObject({ severity: 'serious', message: expect.stringMatching(/above the serious limit 30/) });
     expect(effectiveShareFinding(2, 300, 33)).toMatchObject({ severity: 'serious', topic: 'importanceWeights' });
-    expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20 of 300 runs \(below 10 %\)/);
+    expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/effective size 20 of 300 runs \(below 10\u00a0%\)/);
     expect(effectiveShareFinding(20, 300, 33)!.message).toMatch(/the importance-sampling cross-checks rest on a few runs/);
-    expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30 % .* \(the present controller itself: 2 %\)/);
+    expect(actionSupportFinding(0.3, 20, 0.02)!.message).toMatch(/^On average 30\u00a0% .* \(the present controller itself: 2\u00a0%\)/);
   });
 
   // A shift of tens of thousands is common far from the logs, and a log of 100,000 runs is not rare:

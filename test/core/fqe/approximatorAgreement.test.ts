@@ -15,14 +15,14 @@ describe('approximatorAgreement with a paired difference', () => {
     expect(a.verdict).toBe('disagree');
     expect(a.basis).toBe('pairedDifference');
     expect(a.relativeDifference).toBeCloseTo(1 / 11, 12);
-    expect(a.message).toMatch(/disagree: they differ by 1\.00 \(9\.1 % of the value\).*90 % intervals.*function class/);
+    expect(a.message).toMatch(/disagree: they differ by 1\.00 \(9\.09\u00a0% of the value\).*90\u00a0% intervals.*function class/);
   });
 
   it('agrees when the difference is significant but below the negligible share', () => {
     const small = 0.5 * NEGLIGIBLE_SHARE * 10;
     const a = approximatorAgreement({ network: at(-10 + small, -10.2, -9.8), linear: at(-10, -10.2, -9.8), difference: at(small, 0.01, 0.09) });
     expect(a.verdict).toBe('agree');
-    expect(a.message).toMatch(/agree.*under 2\.5 % of the value/);
+    expect(a.message).toMatch(/agree.*under 2\.5\u00a0% of the value/);
   });
 
   it('agrees when the paired interval holds 0 and is narrow, even though the separate intervals barely overlap', () => {

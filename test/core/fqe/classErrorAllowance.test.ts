@@ -50,6 +50,6 @@ describe('classErrorAllowance', () => {
 
   it('says what it adds in words built from the share', () => {
     expect(classErrorSentence()).toMatch(/by a quarter of that excess/);
-    expect(classErrorSentence(0.1)).toMatch(/by 10 % of that excess/);
+    expect(classErrorSentence(0.1)).toMatch(/by 10\u00a0% of that excess/);
   });
 });

@@ -8,27 +8,27 @@ const base: CrossCheckEvidence = { label: 'Model rollouts', difference: 0, diffe
 const weights = { effectiveEpisodes: 150, episodesReaching: 300, horizonSteps: 33, tailWeight: 0.05 };
 
 describe('crossCheckVerdict', () => {
-  it('agrees within 3 standard errors or 2 % of J, disagrees beyond both', () => {
+  it('agrees within 3 standard errors or 2\u00a0% of J, disagrees beyond both', () => {
     expect(crossCheckVerdict({ ...base, difference: 1.4 }).agreement).toBe('agrees'); // 2.8 SE
     expect(crossCheckVerdict({ ...base, difference: 1.9, differenceStandardError: 0.2 }).agreement).toBe('agrees'); // 1.9 % of J
     const v = crossCheckVerdict({ ...base, difference: 2.5 });
     expect(v.agreement).toBe('disagrees');
-    expect(v.note).toMatch(/2\.5 % of J \(5\.0 standard errors/);
+    expect(v.note).toMatch(/2\.5\u00a0% of J \(5\.0 standard errors/);
   });
 
-  it('is uninformative when it agrees but could not have seen a 10 % error; a gap beyond 3 of its standard errors still counts', () => {
+  it('is uninformative when it agrees but could not have seen a 10\u00a0% error; a gap beyond 3 of its standard errors still counts', () => {
     const limit = (CROSS_CHECK_RULE.detectableGap * 100) / CROSS_CHECK_RULE.standardErrors;
     expect(crossCheckVerdict({ ...base, differenceStandardError: 0.99 * limit }).agreement).toBe('agrees');
     const v = crossCheckVerdict({ ...base, differenceStandardError: 1.01 * limit, difference: 5 });
     expect(v.agreement).toBe('uninformative');
-    expect(v.note).toMatch(/too wide to see an error of 10 % of J/);
+    expect(v.note).toMatch(/too wide to see an error of 10\u00a0% of J/);
     expect(crossCheckVerdict({ ...base, differenceStandardError: 1.01 * limit, difference: 30 }).agreement).toBe('disagrees');
   });
 
   it('without a standard error (no resampled values) is uninformative and says so, with no count of standard errors nor an infinite gap', () => {
     const v = crossCheckVerdict({ ...base, difference: 0.6, differenceStandardError: Infinity });
     expect(v.agreement).toBe('uninformative');
-    expect(v.note).toBe('Uninformative: it has no standard error from the resampled runs, so it cannot show an error of 10 % of J; it differs from fitted Q-evaluation by 0.6 % of J.');
+    expect(v.note).toBe('Uninformative: it has no standard error from the resampled runs, so it cannot show an error of 10\u00a0% of J; it differs from fitted Q-evaluation by 0.6\u00a0% of J.');
     expect(v.note).not.toMatch(/Infinity|standard errors of the/);
   });
 
@@ -37,7 +37,7 @@ describe('crossCheckVerdict', () => {
     expect(crossCheckVerdict({ ...ok, weights }).agreement).toBe('agrees');
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 29 } }).note).toMatch(/effective size of 29 runs \(below 30\)/);
     expect(crossCheckVerdict({ ...ok, weights: { ...weights, effectiveEpisodes: 9, episodesReaching: 40 } }).note).toMatch(/below 10/);
-    expect(crossCheckVerdict({ ...ok, weights: { ...weights, tailWeight: 0.6 } }).note).toMatch(/60 % of the discount weight lies past/);
+    expect(crossCheckVerdict({ ...ok, weights: { ...weights, tailWeight: 0.6 } }).note).toMatch(/60\u00a0% of the discount weight lies past/);
   });
 
   // Kish's n_eff = (Σw)²/Σw² is at least 1 with any positive weight and 0 when every weight is zero (a candidate
@@ -64,11 +64,11 @@ describe('crossCheckVerdict', () => {
     expect(crossCheckVerdict({ ...base, rewardShareAtEdge: 0.05 }).agreement).toBe('agrees');
     const v = crossCheckVerdict({ ...base, difference: 10, rewardShareAtEdge: 0.62 });
     expect(v.agreement).toBe('uninformative');
-    expect(v.note).toBe('Uninformative: 62 % of the model’s value (its discounted rewards, in size) comes from simulated states held at the edge of the logged states, ' +
-      'where the fitted model extrapolates and may be wrong by the whole of that part; at most 5 % may, half the 10 % error the check must see; ' +
-      'it differs from fitted Q-evaluation by 10.0 % of J (20.0 standard errors of the paired difference).');
+    expect(v.note).toBe('Uninformative: 62\u00a0% of the model’s value (its discounted rewards, in size) comes from simulated states held at the edge of the logged states, ' +
+      'where the fitted model extrapolates and may be wrong by the whole of that part; at most 5\u00a0% may, half the 10\u00a0% error the check must see; ' +
+      'it differs from fitted Q-evaluation by 10\u00a0% of J (20.0 standard errors of the paired difference).');
     // The step rule still applies first, with its own words.
-    expect(crossCheckVerdict({ ...base, shareOutsideLogs: 0.06, rewardShareAtEdge: 0.62 }).note).toMatch(/6 % of the simulated \(discounted\) steps reach the edge/);
+    expect(crossCheckVerdict({ ...base, shareOutsideLogs: 0.06, rewardShareAtEdge: 0.62 }).note).toMatch(/6\u00a0% of the simulated \(discounted\) steps reach the edge/);
   });
 });
 

@@ -7,7 +7,7 @@ describe('number format', () => {
     expect(formatNumber(8.358179, 6)).toBe('8.35818');
     expect(formatNumber(-29.18)).toBe('−29.18');
     expect(formatNumber(0.0002505)).toBe('0.0002505');
-    expect(formatNumber(9.69e-11)).toBe('9.69e−11');
+    expect(formatNumber(9.69e-11)).toBe('9.69\u00a0×\u00a010⁻¹¹');
     expect(formatNumber(1.5e6)).toBe('1500000'); // fixed notation for millions, one rule with the report and the terminal (figures/parts/uncertainNumber.ts)
     expect(formatNumber(Infinity)).toBe('∞');
   });

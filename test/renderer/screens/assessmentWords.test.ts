@@ -13,14 +13,14 @@ describe('assessment words', () => {
     expect(intervalAtPrecision([1200.4, 1350.6])).toBe('[1200, 1351]');
     expect(intervalAtPrecision([2, 2])).toBe('[2, 2]');
     expect(intervalAtPrecision(null)).toBe('—');
-    expect(levelText(0.9)).toBe('90 %');
-    expect(shareText(0.475)).toBe('47.5 %');
+    expect(levelText(0.9)).toBe('90\u00a0%');
+    expect(shareText(0.475)).toBe('47.5\u00a0%');
     expect(shareText(null)).toBe('—');
     // No exponent for a share too small to matter (heating-loop sample: "5.74e−6 %" of action probability).
-    expect(shareText(5.74e-8)).toBe('below 0.01 %');
-    expect(shareText(1.93e-5)).toBe('below 0.01 %');
-    expect(shareText(0.000193)).toBe('0.0193 %');
-    expect(shareText(0)).toBe('0 %');
+    expect(shareText(5.74e-8)).toBe('below 0.01\u00a0%');
+    expect(shareText(1.93e-5)).toBe('below 0.01\u00a0%');
+    expect(shareText(0.000193)).toBe('0.0193\u00a0%');
+    expect(shareText(0)).toBe('0\u00a0%');
   });
 
   it('writes a value at its interval’s precision (one precision for numbers read together, JCGM 100 §7.2.2, common practice)', () => {
@@ -32,7 +32,7 @@ describe('assessment words', () => {
   it('drops the verdict word the verdict column already shows', () => {
     // After the verdict's full stop the note opens a sentence (the screen review saw "… contradict. at step 20").
     expect(noteWithoutVerdict('Uninformative: at step 20 the weights …')).toBe('At step 20 the weights …');
-    expect(noteWithoutVerdict('Agrees: it differs by 0.5 % of J')).toBe('It differs by 0.5 % of J');
+    expect(noteWithoutVerdict('Agrees: it differs by 0.5\u00a0% of J')).toBe('It differs by 0.5\u00a0% of J');
     expect(noteWithoutVerdict('the fitted dynamics do not fit')).toBe('The fitted dynamics do not fit');
     // The model check's words said 'Not applicable here. not applicable to this candidate: …' (screen review).
     expect(noteWithoutVerdict('not applicable to this candidate: it has actuator limits')).toBe('It has actuator limits');
@@ -55,16 +55,16 @@ describe('assessment words', () => {
     const [shift, weights, support] = coverageSentences(d);
     expect(shift).toContain('Occupancy shift: 55.3, 61.2 at the 90th percentile over resamples (the present controller itself: 1.10), measured in the fit’s own features (15).');
     expect(shift).toContain('caution above 4 times the present controller’s own level (at least 1), serious above 10 times'); // the limits the code applies (src/core/diagnostics/severity.ts)
-    expect(weights).toContain('worth 9,490 transitions (47.5 % of them)');
+    expect(weights).toContain('worth 9,490 transitions (47.5\u00a0% of them)');
     // Four shares in one sentence at one count of decimals, the most any takes alone (0.02 %: two; core/shareText.ts sharesText).
-    expect(support).toContain('on average 0.10 % of the candidate’s action probability');
-    expect(support).toContain('0.02 % at the 90th percentile of 400 states and 20.00 % at worst (the present controller itself: 3.90 %)');
+    expect(support).toContain('on average 0.10\u00a0% of the candidate’s action probability');
+    expect(support).toContain('0.02\u00a0% at the 90th percentile of 400 states and 20.00\u00a0% at worst (the present controller itself: 3.90\u00a0%)');
     expect(coverageSentences({ ...d, occupancyShift: null, importanceWeights: null })).toHaveLength(1);
     // Below one run (Kish's size is 0 only when every weight is 0): said in words, not "worth no run’s worth".
     const none = coverageSentences({ ...d, importanceWeights: { ...d.importanceWeights!, horizonEffectiveEpisodes: 0 } })[1];
     expect(none).toContain('after 20 steps the cumulative weights carry no run’s worth of weight');
     expect(none).not.toMatch(/worth no run/);
-    expect(unvisitedSentence(0.497)).toContain('49.7 %');
+    expect(unvisitedSentence(0.497)).toContain('49.7\u00a0%');
     expect(unvisitedSentence(null)).toBeNull();
   });
 });

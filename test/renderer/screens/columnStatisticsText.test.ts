@@ -15,7 +15,7 @@ describe('statisticsText', () => {
   });
 
   it('keeps the plain style where one place would hide the values or run long', () => {
-    expect(statisticsText(1e-6, 3e-6, 2e-6, 1e-6)).toEqual(['1e−6', '3e−6', '2e−6', '1e−6']);
+    expect(statisticsText(1e-6, 3e-6, 2e-6, 1e-6)).toEqual(['1\u00a0×\u00a010⁻⁶', '3\u00a0×\u00a010⁻⁶', '2\u00a0×\u00a010⁻⁶', '1\u00a0×\u00a010⁻⁶']);
     expect(statisticsText(0, 0, 0, 0)).toEqual(['0', '0', '0', '0']);
     expect(statisticsText(12345678, 23456789, 2e7, 1e6)).toEqual(['12345678', '23456789', '20000000', '1000000']);
   });

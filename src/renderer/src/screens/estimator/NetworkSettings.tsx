@@ -4,6 +4,7 @@ import { NumberField } from '../../components/NumberField';
 import { SelectField } from '../../components/SelectField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import type { ApproximatorSettings } from '../../../../project/schema';
+import { ACTIVATION_NAMES } from '../../../../pipeline/plan/approximatorLabel';
 import { useWorkspace } from '../../WorkspaceContext';
 import { formatHiddenLayers, parseHiddenLayers } from './hiddenLayers';
 import { SETTING_HELP } from './settingHelp';
@@ -44,7 +45,7 @@ export function NetworkSettings({ settings, problems }: { settings: Network; pro
           {(layers === null || at('hiddenLayers')) && <span className="message">{layers === null ? 'expected whole numbers separated by commas, e.g. 64, 64' : at('hiddenLayers')}</span>}
         </div>
         <SelectField label="Activation" value={settings.activation} help={SETTING_HELP.activation}
-          options={[{ value: 'relu', label: 'ReLU' }, { value: 'tanh', label: 'tanh' }, { value: 'elu', label: 'ELU' }]}
+          options={(['relu', 'tanh', 'elu'] as const).map((value) => ({ value, label: ACTIVATION_NAMES[value] }))}
           onChange={(activation) => set('change the activation', { activation }, 'activation')} />
       </div>
       <details className="details-section">

@@ -12,7 +12,8 @@ import { importKey } from '../../../../shared/runKey';
 import { runBlockers } from '../../session/evaluationRunner';
 import { useWorkspace } from '../../WorkspaceContext';
 import { progressView } from './runProgressView';
-import { describeApproximator } from '../../../../pipeline/plan/featureMapFor';
+import { describeApproximator } from '../../../../pipeline/plan/approximatorLabel';
+import { progressText } from '../../../../core/shareText';
 import { discountWithHorizon } from '../estimator/discountHorizon';
 
 export function RunScreen(props: { onFindings: () => void }) {
@@ -72,7 +73,7 @@ function Progress({ reports, startsMs }: { reports: Parameters<typeof progressVi
       {view ? (
         <dl className="facts" aria-live="polite">
           <dt>Candidate</dt><dd>{view.candidate} ({view.candidateNumber} of {view.candidateCount})</dd>
-          <dt>Iteration</dt><dd data-testid="progress-iteration">{view.iteration !== null && view.member ? `${view.iteration} (${view.member})` : view.iteration ?? (view.dataPass === null ? 'starting' : `reading the data (${Math.floor(100 * view.dataPass)} %)`)}</dd>
+          <dt>Iteration</dt><dd data-testid="progress-iteration">{view.iteration !== null && view.member ? `${view.iteration} (${view.member})` : view.iteration ?? (view.dataPass === null ? 'starting' : `reading the data (${progressText(view.dataPass)})`)}</dd>
           {view.bellmanResidual !== null && <><dt title="How far Q is from its own one-step target r + γV(s′) on the logged steps (the Bellman residual)">One-step mismatch</dt><dd>{formatNumber(view.bellmanResidual)}</dd></>}
           {view.weightChange !== null && <><dt title="Relative change of the fitted weights in the last iteration">Weight change</dt><dd>{formatNumber(view.weightChange)}</dd></>}
           <dt>Elapsed</dt><dd>{formatDuration(view.elapsedMs)}</dd>
