@@ -1,7 +1,7 @@
 /** The sensitivity chart: one line per series, the behaviour dashed in the reference colour, the project's setting marked, gaps kept. */
 import { describe, expect, it } from 'vitest';
 import { screenLook } from '../../src/figures/parts/plotLook';
-import { sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
+import { BEYOND_POSSIBLE_KEY, beyondPossibleSentence, sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
 import { discountSweep } from './syntheticSensitivity';
 
 describe('sensitivity chart', () => {
@@ -43,5 +43,33 @@ describe('sensitivity chart', () => {
     const text = sensitivitySummary(props);
     expect(text).toContain('sharp gain from 24 to 230');
     expect(text).toContain('The ranking is the same at every setting.');
+  });
+
+  describe('with crossed points (a pair of swept J that cannot both be right)', () => {
+    // The heating-loop sample's pattern (test/pipeline/discountSweepCheck.test.ts): a cost that falls as the horizon grows, crossed at the two longest.
+    const base = discountSweep();
+    const curve = {
+      ...base, leftOut: [3, 4],
+      series: [{ ...base.series[0], values: [9.1, 10.6, 10.69, 7.14, 0.66], beyondPossible: [false, false, false, true, true] }, base.series[2]],
+    };
+    const config = sensitivityChart({ ...props, curve }, look);
+
+    it('draws the crossed points as crosses and keeps the verdict on a line of its own under the title', () => {
+      expect(config.data.datasets[0].pointStyle).toEqual(['circle', 'circle', 'circle', 'crossRot', 'crossRot']);
+      // One squeezed line of 150 characters was unreadable in the app and cut at both ends in the exported SVG.
+      const subtitle = config.options?.plugins?.subtitle?.text;
+      expect(subtitle).toEqual(['large points: the project’s setting (0.95)', 'the ranking is the same at every setting without a crossed J']);
+    });
+
+    it('names the crosses without claiming more than a failing pair shows', () => {
+      // The change fails by being too small here (J falls while every cost is positive): "by more than" was wrong, and a pair does not say which of its two is wrong.
+      expect(BEYOND_POSSIBLE_KEY).not.toMatch(/more than|cannot be right/);
+      expect(BEYOND_POSSIBLE_KEY.length).toBeLessThanOrEqual(40); // one legend row beside the others (it was cut off at the plot's edge)
+      const sentence = beyondPossibleSentence(curve)!;
+      expect(sentence).toMatch(/^Crossed points: J of “gentle gain” at 0\.97 and 0\.99\. /);
+      expect(sentence).toContain('cannot both be right');
+      expect(sentence).not.toMatch(/more than/);
+      expect(sensitivitySummary({ ...props, curve })).toContain('The ranking is the same at every setting without a crossed J (left out: 0.97, 0.99, where a J is crossed).');
+    });
   });
 });
