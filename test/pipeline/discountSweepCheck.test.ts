@@ -21,6 +21,9 @@ import { possibleChange } from '../../src/core/diagnostics/possibleChange';
 import { assessProject } from '../../src/pipeline/assessProject';
 import { openProject } from '../../src/pipeline/openProject';
 import { SWEEP_CHECK_TOPIC } from '../../src/pipeline/assessSweepCheck';
+import { candidateWork, type AssessmentContext } from '../../src/pipeline/assessCandidate';
+import { sensitivity } from '../../src/pipeline/assessSensitivity';
+import { sampleRun } from '../support/sampleRun';
 import { tankOperatingPoint, tankPlant, tankTunedPolicy } from '../../sample-projects/tank-levels/simulate';
 
 async function assessSample(name: string) {
@@ -36,6 +39,8 @@ describe('the discount sweep against what the per-step values allow', () => {
   it('crosses nothing on a linear-quadratic plant, where the sweep follows the closed form', async () => {
     const { assessment, dataset } = await assessSample('tank-levels');
     const curve = assessment.sensitivity!.curves.find((c) => c.parameter === 'discount')!;
+    // The check ran (a sweep left unchecked would cross nothing either): no note says it was not checked.
+    expect(assessment.sensitivity!.notes.filter((n) => /not checked/.test(n))).toEqual([]);
     expect(curve.leftOut).toBeUndefined();
     expect(curve.series.every((s) => !s.beyondPossible)).toBe(true);
     expect(assessment.candidates.flatMap((c) => c.warnings).filter((w) => w.topic === SWEEP_CHECK_TOPIC)).toEqual([]);
@@ -64,7 +69,24 @@ describe('the discount sweep against what the per-step values allow', () => {
     expect(warnings).toHaveLength(1);
     expect(warnings[0].severity).toBe('serious');
     expect(warnings[0].message).toMatch(/^J cannot go from 10\.69 at γ 0\.95 to 7\.136 at γ 0\.966: /);
+    // The resamples said are those the pair's interval rests on (a resample without a value at either discount is not one of them).
+    const said = Number(/ on (\d+) resamples of the runs/.exec(warnings[0].message)![1]);
+    expect(said).toBeGreaterThanOrEqual(100);
+    expect(said).toBeLessThanOrEqual(200);
     // The other candidates' sweeps are consistent with their costs: nothing crossed, nothing said.
     for (const c of assessment.candidates.filter((x) => x.name !== name)) expect(c.warnings.filter((w) => w.topic === SWEEP_CHECK_TOPIC)).toEqual([]);
+  }, 600_000);
+
+  it('says why a sweep is not checked when the project asks for fewer resamples than the check needs', async () => {
+    const { run } = await sampleRun('heating-loop');
+    try {
+      const context: AssessmentContext = { plan: run.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+      const { sensitivity: swept, warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 50 });
+      expect(warnings.flat()).toEqual([]);
+      // It said "re-solves a linear fit on 200 resamples … needs exact resampling within its budget", none of which was the reason.
+      expect(swept.notes[0]).toBe('The discount sweep of the candidates is not checked against what the costs allow: the check needs at least 100 resamples of the runs and the project asks for 50.');
+    } finally {
+      run.dispose();
+    }
   }, 600_000);
 });
