@@ -1,7 +1,8 @@
 /** The sensitivity chart: one line per series, the behaviour dashed in the reference colour, the project's setting marked, gaps kept. */
 import { describe, expect, it } from 'vitest';
 import { screenLook } from '../../src/figures/parts/plotLook';
-import { BEYOND_POSSIBLE_KEY, beyondPossibleSentence, sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
+import { BEYOND_POSSIBLE_KEY, beyondPossibleSentence, SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
+import { plotScreenHeight } from '../../src/figures/writers/plotSpec';
 import { discountSweep } from './syntheticSensitivity';
 
 describe('sensitivity chart', () => {
@@ -59,6 +60,12 @@ describe('sensitivity chart', () => {
       // One squeezed line of 150 characters was unreadable in the app and cut at both ends in the exported SVG.
       const subtitle = config.options?.plugins?.subtitle?.text;
       expect(subtitle).toEqual(['large points: the project’s setting (0.95)', 'the ranking is the same at every setting without a crossed J']);
+    });
+
+    it('is taller on screen by the subtitle line and legend row the crosses add', () => {
+      // At 300 px the heating loop's plot area was shorter than its value axis's title, which ran up into the legend's cross (screen review, 1280 and 1920).
+      expect(plotScreenHeight({ kind: 'sensitivity', props: { ...props, curve } })).toBe(SENSITIVITY_DEFAULTS.heightPx + SENSITIVITY_DEFAULTS.crossedExtraPx);
+      expect(plotScreenHeight({ kind: 'sensitivity', props })).toBe(SENSITIVITY_DEFAULTS.heightPx);
     });
 
     it('names the crosses without claiming more than a failing pair shows', () => {

@@ -14,7 +14,16 @@ import type { Theme } from '../parts/plotTheme';
 import { formatValue } from '../parts/tickFormat';
 import { discountText } from '../../core/horizonText';
 
-export const SENSITIVITY_DEFAULTS = { heightPx: 300, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6, crossRadiusPx: 7, crossWidthPx: 2.5 } as const;
+export const SENSITIVITY_DEFAULTS = { heightPx: 300, crossedExtraPx: 48, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6, crossRadiusPx: 7, crossWidthPx: 2.5 } as const;
+
+/**
+ * The on-screen height: with crosses the subtitle takes a second line and the legend a row more, which
+ * at 300 px left a plot shorter than its value axis's title (the title ran up into the legend's cross).
+ */
+export function sensitivityChartHeight(curve: Pick<SensitivityCurve, 'series'>): number {
+  const d = SENSITIVITY_DEFAULTS;
+  return d.heightPx + (hasCrossedPoints(curve) ? d.crossedExtraPx : 0);
+}
 
 /**
  * The legend's words for a crossed point, short enough for one legend row. A failing pair says only
