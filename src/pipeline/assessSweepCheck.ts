@@ -58,7 +58,7 @@ export function checkDiscountSweep(
 ): SweepCheck {
   const { plan } = context, e = plan.episodes.episodes, b = Math.min(SWEEP_CHECK_RESAMPLES, check.resamples);
   const marks = works.map(() => settings.map(() => false)), warnings: AssessmentWarning[][] = works.map(() => []);
-  const bounds = rewardRange(plan), skipped: { name: string; reason: SkipReason }[] = [];
+  const bounds = rewardRange(plan), skipped: { name: string; reason: SkipReason }[] = [], partly: { name: string; pairs: number }[] = [];
   const draws = Array.from({ length: b }, (_, r) => episodeMultiplicities(e, check.seed, r));
   works.forEach((w, c) => {
     throwIfCancelled(context.cancel);
@@ -74,23 +74,29 @@ export function checkDiscountSweep(
     const scratch = Array.from({ length: RESAMPLE_BLOCK }, () => new Float64Array(setup.sums.stride)), replicates: (number | null)[][] = [];
     for (let first = 0; first < b; first += RESAMPLE_BLOCK) replicates.push(...linearFqeReplicateDiscounts(setup, draws.slice(first, first + RESAMPLE_BLOCK), scratch, settings));
     const found: Failing[] = [];
+    let thin = 0;
     for (let i = 0; i < settings.length; i++) {
       for (let j = i + 1; j < settings.length; j++) {
         const vi = values[c][i], vj = values[c][j];
         if (vi === null || vj === null || !converged[c][i] || !converged[c][j]) continue;
         const changes = replicates.flatMap((r) => (r[i] === null || r[j] === null ? [] : [r[j]! - r[i]!]));
-        if (changes.length < SWEEP_CHECK_MIN_PAIRED) continue;
+        if (changes.length < SWEEP_CHECK_MIN_PAIRED) {
+          thin++; // said in the note: a pair left unchecked must not read as one that passed
+          continue;
+        }
         const interval = bootstrapInterval(vj - vi, changes, check.level).percentile, range = possibleChange(bounds.lower, bounds.upper, settings[i], settings[j], plan.absorbingEnds > 0);
         if (changeIntervalImpossible(interval[0], interval[1], range)) found.push({ pair: { earlier: i, later: j }, change: vj - vi, interval: [interval[0], interval[1]], range, paired: changes.length });
       }
     }
+    if (thin) partly.push({ name: w.model.name, pairs: thin });
     marks[c] = fewestWrong(found.map((f) => f.pair), settings.length, projectIndex);
     const own = found.filter((f) => f.pair.earlier === projectIndex || f.pair.later === projectIndex);
     // The pair said is the one the reader most needs: one holding the project's own J, else any; of those the nearest to the project's discount.
     const said = (own.length ? own : found).reduce<Failing | null>((x, y) => (x === null || near(y.pair, projectIndex) < near(x.pair, projectIndex) ? y : x), null);
     if (said) warnings[c].push(sweepWarning(plan, settings, values[c], said, own.length > 0, found.length, check.level, bounds));
   });
-  return { marks, warnings, note: skipped.length ? notCheckedNote(plan, skipped, works.length, b) : null };
+  const notes = [...(skipped.length ? [notCheckedNote(plan, skipped, works.length, b)] : []), ...partly.map((x) => partlyCheckedNote(x.name, x.pairs, b))];
+  return { marks, warnings, note: notes.length ? notes.join(' ') : null };
 }
 
 /** How far a pair reaches from the project's discount: the farther of its two settings (a pair holding the project's own and its neighbour is nearest). */
@@ -130,6 +136,11 @@ function notCheckedNote(plan: EvaluationPlan, skipped: readonly { name: string; 
   const who = (names: readonly string[]) => (names.length === total ? 'the candidates' : names.map((n) => `“${n}”`).join(', '));
   const why = reasons.map((r) => `${reasons.length > 1 ? `${who(skipped.filter((x) => x.reason === r).map((x) => x.name))}: ` : ''}${SKIP_WORDS[r](resamples)}`).join('; ');
   return `The discount sweep of ${who(skipped.map((x) => x.name))} is not checked against what the ${plan.sense === 'cost' ? 'costs' : 'rewards'} allow: ${why}.`;
+}
+
+/** Pairs whose solves gave a J at both discounts on too few resamples (a solve that did not converge, a resample without start states). */
+function partlyCheckedNote(name: string, pairs: number, resamples: number): string {
+  return `The discount sweep of “${name}” is checked only in part: for ${pairs === 1 ? 'one pair' : `${pairs} pairs`} of swept discounts fewer than ${SWEEP_CHECK_MIN_PAIRED} of the ${resamples} resamples of the runs gave a J at both (a solve that did not converge, or a resample without start states), and ${pairs === 1 ? 'that pair is' : 'those pairs are'} not checked.`;
 }
 
 function sweepWarning(

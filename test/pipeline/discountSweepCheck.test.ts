@@ -89,4 +89,18 @@ describe('the discount sweep against what the per-step values allow', () => {
       run.dispose();
     }
   }, 600_000);
+
+  it('says so when a pair of discounts is left unchecked for want of resamples with a J at both', async () => {
+    const { run } = await sampleRun('heating-loop');
+    try {
+      // Every start state mapped to run 0 (invented): a resample holds a start only when it draws that run, about 1 − (39/40)^40 ≈ 64 % of them,
+      // so of 120 resamples about 77 give a J at all — fewer than the 100 a pair needs. Before, nothing said the sweep went unchecked.
+      const plan = { ...run.plan, starts: { ...run.plan.starts, followEpisodes: true, episode: new Int32Array(run.plan.starts.count) } };
+      const context: AssessmentContext = { plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+      const { sensitivity: swept } = await sensitivity(context, run.models.slice(0, 1).map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 120 });
+      expect(swept.notes[0]).toBe(`The discount sweep of “${run.models[0].name}” is checked only in part: for 10 pairs of swept discounts fewer than 100 of the 120 resamples of the runs gave a J at both (a solve that did not converge, or a resample without start states), and those pairs are not checked.`);
+    } finally {
+      run.dispose();
+    }
+  }, 600_000);
 });
