@@ -24,6 +24,8 @@ import { SWEEP_CHECK_TOPIC } from '../../src/pipeline/assessSweepCheck';
 import { candidateWork, type AssessmentContext } from '../../src/pipeline/assessCandidate';
 import { sensitivity } from '../../src/pipeline/assessSensitivity';
 import { sampleRun } from '../support/sampleRun';
+import { diagnosticsSection } from '../../src/pipeline/report/reportEvidence';
+import type { ReportInput } from '../../src/pipeline/report/reportInput';
 import { tankOperatingPoint, tankPlant, tankTunedPolicy } from '../../sample-projects/tank-levels/simulate';
 
 async function assessSample(name: string) {
@@ -73,6 +75,11 @@ describe('the discount sweep against what the per-step values allow', () => {
     const said = Number(/ on (\d+) resamples of the runs/.exec(warnings[0].message)![1]);
     expect(said).toBeGreaterThanOrEqual(100);
     expect(said).toBeLessThanOrEqual(200);
+    // In the report the warning's minus is the tables' (U+2212): "the change, -3.56 (… [-6.50, -2.57] …)" was written with the terminal's.
+    const report = diagnosticsSection({ assessment, assessmentProblems: [] } as unknown as ReportInput).html;
+    const written = /J cannot go from [^<]*/.exec(report)![0];
+    expect(written).toMatch(/the change, \u2212\d/);
+    expect(written).not.toMatch(/(^|[\s[(,=])-\d/);
     // The other candidates' sweeps are consistent with their costs: nothing crossed, nothing said.
     for (const c of assessment.candidates.filter((x) => x.name !== name)) expect(c.warnings.filter((w) => w.topic === SWEEP_CHECK_TOPIC)).toEqual([]);
   }, 600_000);

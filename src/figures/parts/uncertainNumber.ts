@@ -109,3 +109,12 @@ export function valueWithError(
   if (d === null) return { value: atDecimals(value, null, minus), error: error === null || error === undefined ? '—' : plainNumber(error, 2, minus) };
   return { value: atDecimals(value, d, minus), error: error === null || error === undefined || !Number.isFinite(error) ? '—' : atDecimals(error, d, minus) };
 }
+
+/**
+ * The pipeline's messages are shared with the command line and write the terminal's minus ("[-3.4, 12.3]");
+ * on screen and in the report a number's minus is the true one (U+2212), as every table beside them
+ * writes it. Only a hyphen that opens a number is changed, never one inside a word ("linear-quadratic").
+ */
+export function typesetMinus(text: string): string {
+  return text.replace(/(^|[\s[(,=])-(?=\d|\.\d)/g, `$1${TRUE_MINUS}`);
+}

@@ -8,7 +8,7 @@ import { beyondPossibleSentence, rankingSentence, sensitivityChart } from '../..
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
 import { html, raw, type Html } from './htmlText';
-import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, typesetMinus, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { shareText, sharesText } from '../../core/shareText';
 import { unvisitedSentence } from '../unvisitedWords';
@@ -31,7 +31,7 @@ export function diagnosticsSection(input: ReportInput): Html {
 /** Where a range to report was cut to what the reward's definition allows, and why (assessPossible.ts cutToCertain). */
 function cutParagraph(a: Assessment): Html {
   const cut = a.candidates.filter((c) => c.rangeCut);
-  return cut.length ? html`<p>Ranges marked (cut): ${cut.map((c) => `${c.name}: ${c.rangeCut}`).join(' ')}</p>` : html``;
+  return cut.length ? html`<p>Ranges marked (cut): ${cut.map((c) => `${c.name}: ${typesetMinus(c.rangeCut!)}`).join(' ')}</p>` : html``;
 }
 
 /** The unvisited share, unless a warning below states it (pipeline/unvisitedWords.ts: said once). */
@@ -74,7 +74,7 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
 function warningList(warnings: AssessmentWarning[]): Html {
   if (!warnings.length) return html`<p>None.</p>`;
   const ordered = [...warnings].sort((x, y) => (x.severity === y.severity ? 0 : x.severity === 'serious' ? -1 : 1));
-  return html`<ul>${ordered.map((w) => html`<li class="warning ${w.severity}"><strong>${w.severity === 'serious' ? 'Serious' : 'Caution'}:</strong> ${w.message}</li>`)}</ul>`;
+  return html`<ul>${ordered.map((w) => html`<li class="warning ${w.severity}"><strong>${w.severity === 'serious' ? 'Serious' : 'Caution'}:</strong> ${typesetMinus(w.message)}</li>`)}</ul>`;
 }
 
 export function crossChecksSection(input: ReportInput, figures: FigureCounter): Html {
@@ -91,7 +91,7 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
         <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td></tr>
         ${c.crossChecks.map((x) => html`<tr><td>${x.label}</td>${x.estimate ? estimateCells(x.estimate, c.policyValue.percentile) : html`<td class="num">—</td><td></td><td></td><td></td>`}
           <td class="num">${x.difference ? html`${valueAtPrecision(x.difference.value, x.difference.percentile)}<br/>${intervalAtPrecision(x.difference.percentile)}` : ''}</td>
-          <td><span class="verdict-${x.agreement}">${verdictWord(x.agreement)}</span><br/><span class="small">${x.note}</span></td></tr>`)}
+          <td><span class="verdict-${x.agreement}">${verdictWord(x.agreement)}</span><br/><span class="small">${typesetMinus(x.note)}</span></td></tr>`)}
         </tbody></table>
         <figure id="fig-checks-${n}">${raw(intervalFigure(`checks-${n}-svg`, rows, valueAxisLabel(input, 'J')))}
           <figcaption>Figure ${n}. ${c.name}: J by fitted Q-evaluation and by each applicable cross-check, with ${level} percentile bootstrap intervals over the same resamples.</figcaption></figure>`;
@@ -119,7 +119,7 @@ export function sensitivitySection(input: ReportInput, figures: FigureCounter): 
       return html`<figure id="fig-sensitivity-${n}">${raw(chart)}<figcaption>Figure ${n}. J (${words.value}, ${words.better}) against the ${curve.label}; large points: the project’s setting.
         ${curve.rankingStable ? rankingSentence(curve) : html`<strong>${rankingSentence(curve)}</strong>`}${crossed ? html` <strong>${crossed}</strong>` : ''}</figcaption></figure>`;
     })}
-    <ul class="small">${s.notes.map((note) => html`<li>${note}</li>`)}</ul></section>`;
+    <ul class="small">${s.notes.map((note) => html`<li>${typesetMinus(note)}</li>`)}</ul></section>`;
 }
 
 export function cautionsSection(input: ReportInput, a: Assessment | null): Html {

@@ -38,14 +38,7 @@ export function sentenceCase(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
 }
 
-/**
- * The pipeline's messages are shared with the command line and write the terminal's minus ("[-3.4, 12.3]");
- * on screen a number's minus is the true one (U+2212), as every table beside them writes it. Only a
- * hyphen that opens a number is changed, never one inside a word ("linear-quadratic").
- */
-export function typesetMinus(text: string): string {
-  return text.replace(/(^|[\s[(,=])-(?=\d|\.\d)/g, '$1\u2212');
-}
+export { typesetMinus } from '../../../../figures/parts/uncertainNumber';
 
 export const VERDICT: Record<Agreement, string> = {
   agrees: 'Agrees with fitted Q-evaluation',
