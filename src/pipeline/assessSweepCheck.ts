@@ -105,7 +105,8 @@ function near(pair: ImpossibleChange, projectIndex: number): number {
 }
 
 
-interface RewardRange { lower: number; upper: number; certain: boolean }
+/** certain: the bounds' source (TransitionSet.rewardBounds) where they are the definition's, null where they are the logged range. */
+interface RewardRange { lower: number; upper: number; certain: 'formula' | 'declaration' | null }
 
 /** The per-step reward range (reward sense): the formula's own bounds where they are finite, else the logged range. */
 function rewardRange(plan: EvaluationPlan): RewardRange {
@@ -115,8 +116,8 @@ function rewardRange(plan: EvaluationPlan): RewardRange {
     if (rewards[i] < lo) lo = rewards[i];
     if (rewards[i] > hi) hi = rewards[i];
   }
-  if (certain && Number.isFinite(certain.lower) && Number.isFinite(certain.upper)) return { lower: certain.lower, upper: certain.upper, certain: true };
-  return { lower: lo, upper: hi, certain: false };
+  if (certain && Number.isFinite(certain.lower) && Number.isFinite(certain.upper)) return { lower: certain.lower, upper: certain.upper, certain: certain.from };
+  return { lower: lo, upper: hi, certain: null };
 }
 
 /** Why a candidate's sweep was not checked. */
@@ -153,7 +154,9 @@ function sweepWarning(
   const allowed: [number, number] = s > 0 ? [f.range.lower, f.range.upper] : [0 - f.range.upper, 0 - f.range.lower];
   const step: [number, number] = s > 0 ? [bounds.lower, bounds.upper] : [0 - bounds.upper, 0 - bounds.lower];
   const what = plan.sense === 'cost' ? 'cost' : 'reward';
-  const source = bounds.certain ? `the ${what} of every step lies, whatever the plant does, between` : `every logged step’s ${what} lies between`;
+  // Where the bounds come from, as assessPossible.ts names them: a declared column's are the project's word, checked on the logged rows only.
+  const source = bounds.certain === 'formula' ? `the ${what} formula keeps every step’s ${what}, whatever the plant does, between`
+    : bounds.certain === 'declaration' ? `the project declares that every step’s ${what} lies between` : `every logged step’s ${what} lies between`;
   const more = pairs > 1 ? ` ${pairs} pairs of swept discounts fail this check in all.` : '';
   const which = ownPair
     ? 'One of the two is the J reported at the project’s own discount: do not use it without other evidence.'

@@ -110,4 +110,20 @@ describe('the discount sweep against what the per-step values allow', () => {
       run.dispose();
     }
   }, 600_000);
+
+  it('names a declared column’s bounds as the project’s word, not as what holds whatever the plant does', async () => {
+    const { run } = await sampleRun('heating-loop');
+    try {
+      // Invented: the cost column declared within [0, 11] (every logged cost is in [0.018, 10.58]); J's fall from 10.69 still fails against it.
+      const plan = { ...run.plan, data: { ...run.plan.data, rewardBounds: { lower: -11, upper: 0, from: 'declaration' as const } } };
+      const context: AssessmentContext = { plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+      const { warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 200 });
+      const said = warnings.flat().map((w) => w.message);
+      expect(said).toHaveLength(1);
+      expect(said[0]).toContain('since the project declares that every step’s cost lies between');
+      expect(said[0]).not.toContain('whatever the plant does');
+    } finally {
+      run.dispose();
+    }
+  }, 600_000);
 });
