@@ -22,3 +22,15 @@ export function stepsText(steps: number): string {
 export function horizonStepsText(discount: number): string {
   return stepsText(horizonSteps(discount));
 }
+
+/**
+ * A discount as the sentences name it: 1 − γ to two significant digits, so the horizon it stands for
+ * reads to a few per cent and close discounts stay apart ("0.966" for 0.96638, "0.999" beside
+ * "0.99933" and "0.9995"); never rounded to 1, which no discount is. Significant digits of γ itself
+ * would write 0.9995 as "1" at three and 0.99933 and 0.99867 alike at four.
+ */
+export function discountText(discount: number): string {
+  if (!(discount > 0 && discount < 1)) return String(discount);
+  const decimals = Math.max(2, 1 - Math.floor(Math.log10(1 - discount)));
+  return discount.toFixed(decimals).replace(/0+$/, '').replace(/\.$/, '');
+}

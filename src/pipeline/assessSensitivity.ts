@@ -26,6 +26,7 @@ import { checkDiscountSweep, type SweepCheckSettings } from './assessSweepCheck'
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { BEHAVIOUR_NAME } from './assessAssembly';
 import { polynomialClassLabel } from './plan/approximatorLabel';
+import { sweepRanking } from './sweepRanking';
 import { isEngineError } from './engineErrors';
 import { fitNetworkCandidate } from './fitNetworkCandidate';
 import { wholePassStatistics } from './model/linearModel';
@@ -161,12 +162,5 @@ async function refitNetwork(context: AssessmentContext, w: CandidateWork, settin
 function finish(
   parameter: SensitivityCurve['parameter'], label: string, settings: number[], projectIndex: number, series: SensitivitySeries[], sign: number,
 ): SensitivityCurve {
-  const orderAt = (i: number) => series.filter((s) => s.values[i] !== null).sort((x, y) => sign * ((y.values[i] as number) - (x.values[i] as number))).map((s) => s.name).join('>');
-  const reference = orderAt(projectIndex);
-  // A setting where some J cannot be right says nothing about the ranking: the verdict leaves it out, and says so.
-  const leftOut = settings.flatMap((_, i) => (i !== projectIndex && series.some((s) => s.beyondPossible?.[i]) ? [i] : []));
-  return {
-    parameter, label, settings, projectIndex, series, rankingStable: settings.every((_, i) => leftOut.includes(i) || orderAt(i) === reference),
-    ...(leftOut.length ? { leftOut } : {}),
-  };
+  return { parameter, label, settings, projectIndex, series, ...sweepRanking(settings, series, sign) };
 }

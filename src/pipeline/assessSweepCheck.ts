@@ -6,25 +6,27 @@
  * resample do not depend on γ, so each is formed once), and every pair of discounts gets a paired
  * percentile interval of its change. A pair whose interval shares no point with the possible change
  * says that the two values cannot both be right (at the interval's level; common practice):
- *   - the point farther from the project's own discount is marked as one that cannot be right, and
- *     the ranking verdict leaves its setting out;
+ *   - the fewest points that account for every such pair are crossed (core/diagnostics/possibleChange.ts
+ *     fewestWrong: away from the project's own discount where as few will do), and the ranking
+ *     verdict leaves their settings out (sweepRanking.ts);
  *   - a pair holding the project's own discount is a SERIOUS warning on the candidate (its reported
  *     J is one of the two), any other pair a CAUTION (the fit breaks down at another horizon, on the
  *     same kind of fixed point as the reported J).
  * The rewards' range is the reward formula's own bounds where the project has them (nothing can
  * pass them), else the logged range (the premise of the possible-value check, assessPossible.ts).
- * Only a linear fit with exact resampling is checked, within SWEEP_CHECK_BUDGET; the others say so.
+ * Only a linear fit with exact resampling is checked, within SWEEP_CHECK_BUDGET and with at least
+ * SWEEP_CHECK_MIN_PAIRED resamples; the others say so, with the reason.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicateDiscounts, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
 import { bootstrapInterval } from '../core/bootstrap/bootstrapInterval';
 import { changeIntervalImpossible, fewestWrong, possibleChange, type ImpossibleChange, type PossibleChange } from '../core/diagnostics/possibleChange';
 import { throwIfCancelled } from '../core/fqe/cancellation';
+import { discountText } from '../core/horizonText';
 import { SWEEP_CHECK_BUDGET, SWEEP_CHECK_MIN_PAIRED, SWEEP_CHECK_RESAMPLES } from '../core/limits';
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import { ASCII_MINUS, intervalAtPrecision, plainNumber, valueAtPrecision } from '../figures/parts/uncertainNumber';
 import { boundText } from '../figures/parts/boundText';
-import { formatValue } from '../figures/parts/tickFormat';
 import type { AssessmentWarning } from './assessment';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import type { EvaluationPlan } from './plan/evaluationPlan';
@@ -57,38 +59,45 @@ export function checkDiscountSweep(
 ): SweepCheck {
   const { plan } = context, e = plan.episodes.episodes, b = Math.min(SWEEP_CHECK_RESAMPLES, check.resamples);
   const marks = works.map(() => settings.map(() => false)), warnings: AssessmentWarning[][] = works.map(() => []);
-  const bounds = rewardRange(plan), skipped: string[] = [];
+  const bounds = rewardRange(plan), skipped: { name: string; reason: SkipReason }[] = [], partly: { name: string; pairs: number }[] = [];
   const draws = Array.from({ length: b }, (_, r) => episodeMultiplicities(e, check.seed, r));
   works.forEach((w, c) => {
     throwIfCancelled(context.cancel);
     const linear = w.model.linear;
-    if (!linear || linear.resampling.kind !== 'exact') return void skipped.push(w.model.name);
+    if (!linear || linear.resampling.kind !== 'exact') return void skipped.push({ name: w.model.name, reason: 'linearised' });
+    if (b < SWEEP_CHECK_MIN_PAIRED) return void skipped.push({ name: w.model.name, reason: 'resamples' });
     const d = linear.features.dim;
-    if ((e * d * d + settings.length * d ** 3) * b > SWEEP_CHECK_BUDGET || b < SWEEP_CHECK_MIN_PAIRED) return void skipped.push(w.model.name);
+    if ((e * d * d + settings.length * d ** 3) * b > SWEEP_CHECK_BUDGET) return void skipped.push({ name: w.model.name, reason: 'budget' });
     const setup: LinearReplicateSetup = {
       ...linearSolveSettings(plan, w.model), sums: linear.resampling.sums, startFeatures: linear.startFeatures,
       startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode,
     };
     const scratch = Array.from({ length: RESAMPLE_BLOCK }, () => new Float64Array(setup.sums.stride)), replicates: (number | null)[][] = [];
     for (let first = 0; first < b; first += RESAMPLE_BLOCK) replicates.push(...linearFqeReplicateDiscounts(setup, draws.slice(first, first + RESAMPLE_BLOCK), scratch, settings));
-    const found: { pair: ImpossibleChange; change: number; interval: [number, number]; range: PossibleChange }[] = [];
+    const found: Failing[] = [];
+    let thin = 0;
     for (let i = 0; i < settings.length; i++) {
       for (let j = i + 1; j < settings.length; j++) {
         const vi = values[c][i], vj = values[c][j];
         if (vi === null || vj === null || !converged[c][i] || !converged[c][j]) continue;
         const changes = replicates.flatMap((r) => (r[i] === null || r[j] === null ? [] : [r[j]! - r[i]!]));
-        if (changes.length < SWEEP_CHECK_MIN_PAIRED) continue;
+        if (changes.length < SWEEP_CHECK_MIN_PAIRED) {
+          thin++; // said in the note: a pair left unchecked must not read as one that passed
+          continue;
+        }
         const interval = bootstrapInterval(vj - vi, changes, check.level).percentile, range = possibleChange(bounds.lower, bounds.upper, settings[i], settings[j], plan.absorbingEnds > 0);
-        if (changeIntervalImpossible(interval[0], interval[1], range)) found.push({ pair: { earlier: i, later: j }, change: vj - vi, interval: [interval[0], interval[1]], range });
+        if (changeIntervalImpossible(interval[0], interval[1], range)) found.push({ pair: { earlier: i, later: j }, change: vj - vi, interval: [interval[0], interval[1]], range, paired: changes.length });
       }
     }
+    if (thin) partly.push({ name: w.model.name, pairs: thin });
     marks[c] = fewestWrong(found.map((f) => f.pair), settings.length, projectIndex);
     const own = found.filter((f) => f.pair.earlier === projectIndex || f.pair.later === projectIndex);
     // The pair said is the one the reader most needs: one holding the project's own J, else any; of those the nearest to the project's discount.
-    const said = (own.length ? own : found).reduce<typeof found[number] | null>((x, y) => (x === null || near(y.pair, projectIndex) < near(x.pair, projectIndex) ? y : x), null);
-    if (said) warnings[c].push(sweepWarning(plan, settings, values[c], said, own.length > 0, found.length, b, check.level, bounds));
+    const said = (own.length ? own : found).reduce<Failing | null>((x, y) => (x === null || near(y.pair, projectIndex) < near(x.pair, projectIndex) ? y : x), null);
+    if (said) warnings[c].push(sweepWarning(plan, settings, values[c], said, own.length > 0, found.length, check.level, bounds));
   });
-  return { marks, warnings, note: skipped.length ? notCheckedNote(plan, skipped, works.length) : null };
+  const notes = [...(skipped.length ? [notCheckedNote(plan, skipped, works.length, b)] : []), ...partly.map((x) => partlyCheckedNote(x.name, x.pairs, b))];
+  return { marks, warnings, note: notes.length ? notes.join(' ') : null };
 }
 
 /** How far a pair reaches from the project's discount: the farther of its two settings (a pair holding the project's own and its neighbour is nearest). */
@@ -97,7 +106,8 @@ function near(pair: ImpossibleChange, projectIndex: number): number {
 }
 
 
-interface RewardRange { lower: number; upper: number; certain: boolean }
+/** certain: the bounds' source (TransitionSet.rewardBounds) where they are the definition's, null where they are the logged range. */
+interface RewardRange { lower: number; upper: number; certain: 'formula' | 'declaration' | null }
 
 /** The per-step reward range (reward sense): the formula's own bounds where they are finite, else the logged range. */
 function rewardRange(plan: EvaluationPlan): RewardRange {
@@ -107,27 +117,47 @@ function rewardRange(plan: EvaluationPlan): RewardRange {
     if (rewards[i] < lo) lo = rewards[i];
     if (rewards[i] > hi) hi = rewards[i];
   }
-  if (certain && Number.isFinite(certain.lower) && Number.isFinite(certain.upper)) return { lower: certain.lower, upper: certain.upper, certain: true };
-  return { lower: lo, upper: hi, certain: false };
+  if (certain && Number.isFinite(certain.lower) && Number.isFinite(certain.upper)) return { lower: certain.lower, upper: certain.upper, certain: certain.from };
+  return { lower: lo, upper: hi, certain: null };
 }
 
-function notCheckedNote(plan: EvaluationPlan, skipped: readonly string[], total: number): string {
-  const who = skipped.length === total ? 'the candidates' : skipped.map((n) => `“${n}”`).join(', ');
-  return `The discount sweep of ${who} is not checked against what the ${plan.sense === 'cost' ? 'costs' : 'rewards'} allow: the check re-solves a linear fit on ${SWEEP_CHECK_RESAMPLES} resamples of the runs, and needs exact resampling within its budget.`;
+/** Why a candidate's sweep was not checked. */
+type SkipReason = 'linearised' | 'resamples' | 'budget';
+
+/** A pair of swept discounts that fails the check, with the resamples that gave its paired interval. */
+interface Failing { pair: ImpossibleChange; change: number; interval: [number, number]; range: PossibleChange; paired: number }
+
+const SKIP_WORDS: Record<SkipReason, (resamples: number) => string> = {
+  linearised: () => 'the check re-solves the linear fit on resamples of the runs, which this fit does not keep exactly (its intervals come from the first-order approximation)',
+  resamples: (b) => `the check needs at least ${SWEEP_CHECK_MIN_PAIRED} resamples of the runs and the project asks for ${b}`,
+  budget: () => `re-solving this fit on ${SWEEP_CHECK_RESAMPLES} resamples at every swept discount would take longer than the check is given`,
+};
+
+function notCheckedNote(plan: EvaluationPlan, skipped: readonly { name: string; reason: SkipReason }[], total: number, resamples: number): string {
+  const reasons = [...new Set(skipped.map((x) => x.reason))];
+  const who = (names: readonly string[]) => (names.length === total ? 'the candidates' : names.map((n) => `“${n}”`).join(', '));
+  const why = reasons.map((r) => `${reasons.length > 1 ? `${who(skipped.filter((x) => x.reason === r).map((x) => x.name))}: ` : ''}${SKIP_WORDS[r](resamples)}`).join('; ');
+  return `The discount sweep of ${who(skipped.map((x) => x.name))} is not checked against what the ${plan.sense === 'cost' ? 'costs' : 'rewards'} allow: ${why}.`;
+}
+
+/** Pairs whose solves gave a J at both discounts on too few resamples (a solve that did not converge, a resample without start states). */
+function partlyCheckedNote(name: string, pairs: number, resamples: number): string {
+  return `The discount sweep of “${name}” is checked only in part: for ${pairs === 1 ? 'one pair' : `${pairs} pairs`} of swept discounts fewer than ${SWEEP_CHECK_MIN_PAIRED} of the ${resamples} resamples of the runs gave a J at both (a solve that did not converge, or a resample without start states), and ${pairs === 1 ? 'that pair is' : 'those pairs are'} not checked.`;
 }
 
 function sweepWarning(
   plan: EvaluationPlan, settings: readonly number[], values: readonly (number | null)[],
-  f: { pair: ImpossibleChange; change: number; interval: [number, number]; range: PossibleChange },
-  ownPair: boolean, pairs: number, resamples: number, level: number, bounds: RewardRange,
+  f: Failing, ownPair: boolean, pairs: number, level: number, bounds: RewardRange,
 ): AssessmentWarning {
-  const s = plan.sign, { earlier: i, later: j } = f.pair, g = (k: number) => formatValue(settings[k]); // as the figure and its verdict write a swept discount
+  const s = plan.sign, { earlier: i, later: j } = f.pair, g = (k: number) => discountText(settings[k]);
   const at = (k: number) => `${plainNumber(s * values[k]!, 4, ASCII_MINUS)} at γ ${g(k)}`;
   const change: [number, number] = s > 0 ? f.interval : [-f.interval[1], -f.interval[0]];
   const allowed: [number, number] = s > 0 ? [f.range.lower, f.range.upper] : [0 - f.range.upper, 0 - f.range.lower];
   const step: [number, number] = s > 0 ? [bounds.lower, bounds.upper] : [0 - bounds.upper, 0 - bounds.lower];
   const what = plan.sense === 'cost' ? 'cost' : 'reward';
-  const source = bounds.certain ? `the ${what} of every step lies, whatever the plant does, between` : `every logged step’s ${what} lies between`;
+  // Where the bounds come from, as assessPossible.ts names them: a declared column's are the project's word, checked on the logged rows only.
+  const source = bounds.certain === 'formula' ? `the ${what} formula keeps every step’s ${what}, whatever the plant does, between`
+    : bounds.certain === 'declaration' ? `the project declares that every step’s ${what} lies between` : `every logged step’s ${what} lies between`;
   const more = pairs > 1 ? ` ${pairs} pairs of swept discounts fail this check in all.` : '';
   const which = ownPair
     ? 'One of the two is the J reported at the project’s own discount: do not use it without other evidence.'
@@ -135,7 +165,7 @@ function sweepWarning(
   const premise = bounds.certain ? '' : ' (or the candidate would meet steps outside the logged range)';
   return {
     severity: ownPair ? 'serious' : 'caution', topic: SWEEP_CHECK_TOPIC,
-    message: `J cannot go from ${at(i)} to ${at(j)}: the change, ${valueAtPrecision(s * f.change, change, ASCII_MINUS)} (${shareText(level)} interval ${intervalAtPrecision(change, ASCII_MINUS)} on ${resamples} resamples of the runs), lies outside what the ${what}s allow, ` +
+    message: `J cannot go from ${at(i)} to ${at(j)}: the change, ${valueAtPrecision(s * f.change, change, ASCII_MINUS)} (${shareText(level)} interval ${intervalAtPrecision(change, ASCII_MINUS)} on ${f.paired} resamples of the runs), lies outside what the ${what}s allow, ` +
       `since ${source} ${boundText(step[0], 'lower', 4, ASCII_MINUS)} and ${boundText(step[1], 'upper', 4, ASCII_MINUS)}, so between these two discounts J can change only by between ${plainNumber(allowed[0], 4, ASCII_MINUS)} and ${plainNumber(allowed[1], 4, ASCII_MINUS)}. ` +
       `The linear fit extrapolates at one of these discounts${premise}. ${which}${more}`,
   };

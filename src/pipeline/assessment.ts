@@ -180,7 +180,7 @@ export interface SensitivitySeries {
   status: string[];
   /** True on the logged return's series, drawn as the reference line (absent in results saved before it was added). */
   reference?: boolean;
-  /** True at the points that cannot be right: their change from a neighbouring discount lies outside what the rewards allow (assessSweepCheck.ts); absent where nothing was found or checked. */
+  /** True at the crossed points: the fewest that account for every pair of swept discounts whose change lies outside what the rewards allow, so whose two J cannot both be right (assessSweepCheck.ts); absent where nothing was found or checked. */
   beyondPossible?: boolean[];
 }
 
@@ -193,7 +193,7 @@ export interface SensitivityCurve {
   series: SensitivitySeries[];
   /** Whether the ranking by J (candidates and behaviour where shown) is the same at every setting, those in `leftOut` aside. */
   rankingStable: boolean;
-  /** Settings (indices) the ranking verdict leaves out because a J there cannot be right (a series' beyondPossible); absent when none. */
+  /** Settings (indices) the ranking verdict leaves out because a J there is crossed (a series' beyondPossible; the project's own too, pipeline/sweepRanking.ts); absent when none. */
   leftOut?: number[];
 }
 

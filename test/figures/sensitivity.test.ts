@@ -1,7 +1,8 @@
 /** The sensitivity chart: one line per series, the behaviour dashed in the reference colour, the project's setting marked, gaps kept. */
 import { describe, expect, it } from 'vitest';
 import { screenLook } from '../../src/figures/parts/plotLook';
-import { BEYOND_POSSIBLE_KEY, beyondPossibleSentence, rankingVerdict, sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
+import { BEYOND_POSSIBLE_KEY, beyondPossibleSentence, rankingVerdict, SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
+import { plotScreenHeight } from '../../src/figures/writers/plotSpec';
 import { discountSweep } from './syntheticSensitivity';
 
 describe('sensitivity chart', () => {
@@ -37,10 +38,9 @@ describe('sensitivity chart', () => {
     const config = sensitivityChart({ ...props, curve }, look), sets = config.data.datasets;
     expect((sets[1].pointStyle as readonly string[])).toEqual(['circle', 'circle', 'circle', 'circle', 'crossRot']);
     expect((sets[0].pointStyle as readonly string[]).every((p) => p === 'circle')).toBe(true);
-    expect(rankingVerdict(curve)).toBe('the ranking is the same at every setting where every J can be right (left out: 0.99, where a J cannot be right)');
-    expect(rankingVerdict(curve, true)).toBe('the ranking is the same at every setting where every J can be right');
-    expect(beyondPossibleSentence(curve)).toMatch(/^Crossed points: J of “sharp gain” at 0\.99 cannot be right/);
-    expect(sensitivitySummary({ ...props, curve })).toContain('(left out: 0.99, where a J cannot be right).');
+    expect(rankingVerdict(curve)).toBe('the ranking is the same at every setting without a crossed J (left out: 0.99, where a J is crossed)');
+    expect(beyondPossibleSentence(curve)).toMatch(/^Crossed points: J of “sharp gain” at 0\.99\. .* cannot both be right/);
+    expect(sensitivitySummary({ ...props, curve })).toContain('(left out: 0.99, where a J is crossed).');
     // Nothing crossed: no cross key, no sentence, the verdict as before.
     expect(beyondPossibleSentence(base)).toBeNull();
     expect(rankingVerdict(base)).toBe('the ranking is the same at every setting');
@@ -59,5 +59,39 @@ describe('sensitivity chart', () => {
     const text = sensitivitySummary(props);
     expect(text).toContain('sharp gain from 24 to 230');
     expect(text).toContain('The ranking is the same at every setting.');
+  });
+
+  describe('with crossed points (a pair of swept J that cannot both be right)', () => {
+    // The heating-loop sample's pattern (test/pipeline/discountSweepCheck.test.ts): a cost that falls as the horizon grows, crossed at the two longest.
+    const base = discountSweep();
+    const curve = {
+      ...base, leftOut: [3, 4],
+      series: [{ ...base.series[0], values: [9.1, 10.6, 10.69, 7.14, 0.66], beyondPossible: [false, false, false, true, true] }, base.series[2]],
+    };
+    const config = sensitivityChart({ ...props, curve }, look);
+
+    it('draws the crossed points as crosses and keeps the verdict on a line of its own under the title', () => {
+      expect(config.data.datasets[0].pointStyle).toEqual(['circle', 'circle', 'circle', 'crossRot', 'crossRot']);
+      // One squeezed line of 150 characters was unreadable in the app and cut at both ends in the exported SVG.
+      const subtitle = config.options?.plugins?.subtitle?.text;
+      expect(subtitle).toEqual(['large points: the project’s setting (0.95)', 'the ranking is the same at every setting without a crossed J']);
+    });
+
+    it('is taller on screen by the subtitle line and legend row the crosses add', () => {
+      // At 300 px the heating loop's plot area was shorter than its value axis's title, which ran up into the legend's cross (screen review, 1280 and 1920).
+      expect(plotScreenHeight({ kind: 'sensitivity', props: { ...props, curve } })).toBe(SENSITIVITY_DEFAULTS.heightPx + SENSITIVITY_DEFAULTS.crossedExtraPx);
+      expect(plotScreenHeight({ kind: 'sensitivity', props })).toBe(SENSITIVITY_DEFAULTS.heightPx);
+    });
+
+    it('names the crosses without claiming more than a failing pair shows', () => {
+      // The change fails by being too small here (J falls while every cost is positive): "by more than" was wrong, and a pair does not say which of its two is wrong.
+      expect(BEYOND_POSSIBLE_KEY).not.toMatch(/more than|cannot be right/);
+      expect(BEYOND_POSSIBLE_KEY.length).toBeLessThanOrEqual(40); // one legend row beside the others (it was cut off at the plot's edge)
+      const sentence = beyondPossibleSentence(curve)!;
+      expect(sentence).toMatch(/^Crossed points: J of “gentle gain” at 0\.97 and 0\.99\. /);
+      expect(sentence).toContain('cannot both be right');
+      expect(sentence).not.toMatch(/more than/);
+      expect(sensitivitySummary({ ...props, curve })).toContain('The ranking is the same at every setting without a crossed J (left out: 0.97, 0.99, where a J is crossed).');
+    });
   });
 });

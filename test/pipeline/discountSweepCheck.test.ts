@@ -21,6 +21,11 @@ import { possibleChange } from '../../src/core/diagnostics/possibleChange';
 import { assessProject } from '../../src/pipeline/assessProject';
 import { openProject } from '../../src/pipeline/openProject';
 import { SWEEP_CHECK_TOPIC } from '../../src/pipeline/assessSweepCheck';
+import { candidateWork, type AssessmentContext } from '../../src/pipeline/assessCandidate';
+import { sensitivity } from '../../src/pipeline/assessSensitivity';
+import { sampleRun } from '../support/sampleRun';
+import { diagnosticsSection } from '../../src/pipeline/report/reportEvidence';
+import type { ReportInput } from '../../src/pipeline/report/reportInput';
 import { tankOperatingPoint, tankPlant, tankTunedPolicy } from '../../sample-projects/tank-levels/simulate';
 
 async function assessSample(name: string) {
@@ -36,6 +41,8 @@ describe('the discount sweep against what the per-step values allow', () => {
   it('crosses nothing on a linear-quadratic plant, where the sweep follows the closed form', async () => {
     const { assessment, dataset } = await assessSample('tank-levels');
     const curve = assessment.sensitivity!.curves.find((c) => c.parameter === 'discount')!;
+    // The check ran (a sweep left unchecked would cross nothing either): no note says it was not checked.
+    expect(assessment.sensitivity!.notes.filter((n) => /not checked/.test(n))).toEqual([]);
     expect(curve.leftOut).toBeUndefined();
     expect(curve.series.every((s) => !s.beyondPossible)).toBe(true);
     expect(assessment.candidates.flatMap((c) => c.warnings).filter((w) => w.topic === SWEEP_CHECK_TOPIC)).toEqual([]);
@@ -63,8 +70,60 @@ describe('the discount sweep against what the per-step values allow', () => {
     const warnings = assessment.candidates.find((c) => c.name === name)!.warnings.filter((w) => w.topic === SWEEP_CHECK_TOPIC);
     expect(warnings).toHaveLength(1);
     expect(warnings[0].severity).toBe('serious');
-    expect(warnings[0].message).toMatch(/^J cannot go from 10\.69 at γ 0\.95 to 7\.136 at γ 0\.9664: /);
+    expect(warnings[0].message).toMatch(/^J cannot go from 10\.69 at γ 0\.95 to 7\.136 at γ 0\.966: /);
+    // The resamples said are those the pair's interval rests on (a resample without a value at either discount is not one of them).
+    const said = Number(/ on (\d+) resamples of the runs/.exec(warnings[0].message)![1]);
+    expect(said).toBeGreaterThanOrEqual(100);
+    expect(said).toBeLessThanOrEqual(200);
+    // In the report the warning's minus is the tables' (U+2212): "the change, -3.56 (… [-6.50, -2.57] …)" was written with the terminal's.
+    const report = diagnosticsSection({ assessment, assessmentProblems: [] } as unknown as ReportInput).html;
+    const written = /J cannot go from [^<]*/.exec(report)![0];
+    expect(written).toMatch(/the change, \u2212\d/);
+    expect(written).not.toMatch(/(^|[\s[(,=])-\d/);
     // The other candidates' sweeps are consistent with their costs: nothing crossed, nothing said.
     for (const c of assessment.candidates.filter((x) => x.name !== name)) expect(c.warnings.filter((w) => w.topic === SWEEP_CHECK_TOPIC)).toEqual([]);
+  }, 600_000);
+
+  it('says why a sweep is not checked when the project asks for fewer resamples than the check needs', async () => {
+    const { run } = await sampleRun('heating-loop');
+    try {
+      const context: AssessmentContext = { plan: run.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+      const { sensitivity: swept, warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 50 });
+      expect(warnings.flat()).toEqual([]);
+      // It said "re-solves a linear fit on 200 resamples … needs exact resampling within its budget", none of which was the reason.
+      expect(swept.notes[0]).toBe('The discount sweep of the candidates is not checked against what the costs allow: the check needs at least 100 resamples of the runs and the project asks for 50.');
+    } finally {
+      run.dispose();
+    }
+  }, 600_000);
+
+  it('says so when a pair of discounts is left unchecked for want of resamples with a J at both', async () => {
+    const { run } = await sampleRun('heating-loop');
+    try {
+      // Every start state mapped to run 0 (invented): a resample holds a start only when it draws that run, about 1 − (39/40)^40 ≈ 64 % of them,
+      // so of 120 resamples about 77 give a J at all — fewer than the 100 a pair needs. Before, nothing said the sweep went unchecked.
+      const plan = { ...run.plan, starts: { ...run.plan.starts, followEpisodes: true, episode: new Int32Array(run.plan.starts.count) } };
+      const context: AssessmentContext = { plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+      const { sensitivity: swept } = await sensitivity(context, run.models.slice(0, 1).map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 120 });
+      expect(swept.notes[0]).toBe(`The discount sweep of “${run.models[0].name}” is checked only in part: for 10 pairs of swept discounts fewer than 100 of the 120 resamples of the runs gave a J at both (a solve that did not converge, or a resample without start states), and those pairs are not checked.`);
+    } finally {
+      run.dispose();
+    }
+  }, 600_000);
+
+  it('names a declared column’s bounds as the project’s word, not as what holds whatever the plant does', async () => {
+    const { run } = await sampleRun('heating-loop');
+    try {
+      // Invented: the cost column declared within [0, 11] (every logged cost is in [0.018, 10.58]); J's fall from 10.69 still fails against it.
+      const plan = { ...run.plan, data: { ...run.plan.data, rewardBounds: { lower: -11, upper: 0, from: 'declaration' as const } } };
+      const context: AssessmentContext = { plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+      const { warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 200 });
+      const said = warnings.flat().map((w) => w.message);
+      expect(said).toHaveLength(1);
+      expect(said[0]).toContain('since the project declares that every step’s cost lies between');
+      expect(said[0]).not.toContain('whatever the plant does');
+    } finally {
+      run.dispose();
+    }
   }, 600_000);
 });

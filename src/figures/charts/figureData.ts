@@ -46,10 +46,10 @@ export interface SensitivityData {
   label: string;
   settings: number[];
   projectIndex: number;
-  /** beyondPossible: true at the points that cannot be right (drawn as crosses; assessSweepCheck.ts). */
+  /** beyondPossible: true at the crossed points, the fewest that account for every pair of swept J that cannot both be right (drawn as crosses; assessSweepCheck.ts). */
   series: { name: string; values: (number | null)[]; reference?: boolean; beyondPossible?: boolean[] }[];
   rankingStable: boolean;
-  /** Settings the ranking verdict leaves out because a J there cannot be right. */
+  /** Settings the ranking verdict leaves out because a J there is crossed (pipeline/sweepRanking.ts). */
   leftOut?: number[];
 }
 

@@ -12,40 +12,79 @@ import { LOGGED_RETURN, LOGGED_RETURN_LABEL, PRESENT_DASH_PX } from '../parts/pl
 import type { PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatValue } from '../parts/tickFormat';
+import { discountText } from '../../core/horizonText';
 
-export const SENSITIVITY_DEFAULTS = { heightPx: 300, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6, crossRadiusPx: 7, crossWidthPx: 2.5 } as const;
+export const SENSITIVITY_DEFAULTS = { heightPx: 300, crossedExtraPx: 48, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6, crossRadiusPx: 7, crossWidthPx: 2.5 } as const;
 
-/** The legend's words for a crossed point (a J whose change from another discount lies beyond what the per-step values allow; the sentence under the figure says so). */
-export const BEYOND_POSSIBLE_KEY = 'J that cannot be right (changes with γ too much)';
+/**
+ * The on-screen height: with crosses the subtitle takes a second line and the legend a row more, which
+ * at 300 px left a plot shorter than its value axis's title (the title ran up into the legend's cross).
+ */
+export function sensitivityChartHeight(curve: Pick<SensitivityCurve, 'series'>): number {
+  const d = SENSITIVITY_DEFAULTS;
+  return d.heightPx + (hasCrossedPoints(curve) ? d.crossedExtraPx : 0);
+}
+
+/**
+ * The legend's words for a crossed point, short enough for one legend row. A failing pair says only
+ * that its two J cannot both be right, not which is wrong, and the change may fail by being too small
+ * as well as too large (a cost that falls as the horizon grows): so neither "cannot be right" of the
+ * point alone nor "by more than". Every crossed point is in some failing pair (the crosses are a
+ * fewest cover of them, core/diagnostics/possibleChange.ts fewestWrong); the sentence under the
+ * figure says why (beyondPossibleSentence).
+ */
+export const BEYOND_POSSIBLE_KEY = 'J at odds with J at another γ';
+
+/** A setting as the sentences name it: a discount by discountText (core/horizonText.ts), the rest by formatValue. */
+function settingText(curve: Pick<SensitivityCurve, 'parameter' | 'settings'>, i: number): string {
+  return curve.parameter === 'discount' ? discountText(curve.settings[i]) : formatValue(curve.settings[i]);
+}
 
 /**
  * The ranking verdict of one sweep, as every host says it (chart subtitle, panel, report, summary):
- * the settings where a J cannot be right are left out, and named.
+ * the settings where a J is crossed are left out, and named (pipeline/sweepRanking.ts).
  */
-export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings'>, brief = false): string {
-  const base = curve.rankingStable ? 'the ranking is the same at every setting' : 'the ranking changes within this range';
+export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings' | 'parameter'>): string {
   const out = curve.leftOut ?? [];
-  if (!out.length) return base;
-  const where = curve.rankingStable ? `${base} where every J can be right` : base;
-  // Brief, for the figure's subtitle: the settings left out are read off the crosses, and named under the figure.
-  return brief ? where : `${where} (left out: ${out.map((i) => formatValue(curve.settings[i])).join(', ')}, where a J cannot be right)`;
+  if (!out.length) return shortVerdict(curve);
+  return `${shortVerdict(curve)} (left out: ${out.map((i) => settingText(curve, i)).join(', ')}, where a J is crossed)`;
+}
+
+/** rankingVerdict without the settings left out, for the figure's subtitle (Chart.js squeezes a line wider than the plot). */
+function shortVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings'>): string {
+  const out = curve.leftOut ?? [];
+  if (!out.length) return curve.rankingStable ? 'the ranking is the same at every setting' : 'the ranking changes within this range';
+  if (curve.settings.length - out.length < 2) return 'too few settings without a crossed J to compare the ranking';
+  return curve.rankingStable ? 'the ranking is the same at every setting without a crossed J' : 'the ranking changes between the settings without a crossed J';
+}
+
+/** Whether some point of the sweep is crossed. */
+export function hasCrossedPoints(curve: Pick<SensitivityCurve, 'series'>): boolean {
+  return curve.series.some((serie) => serie.beyondPossible?.some(Boolean) ?? false);
+}
+
+/** The sweeps' verdicts in one phrase, for the Findings panel's gist and the answer's link to it. */
+export function sweepsVerdict(curves: readonly Pick<SensitivityCurve, 'rankingStable' | 'series'>[]): string {
+  const crossed = curves.some(hasCrossedPoints);
+  if (!curves.every((c) => c.rankingStable)) return `the ranking changes within the range${crossed ? '; some J are crossed (at odds with J at another discount)' : ''}`;
+  return crossed ? 'the ranking is the same at every setting without a crossed J; some J are crossed (at odds with J at another discount)' : 'the ranking is the same at every setting shown';
 }
 
 /**
- * Which points are crossed, in one sentence for the panel and the report ("J of “A” at 0.966 and 0.975
- * cannot be right …"); null when none is. `name` shows a series' name as the host does.
+ * Which points are crossed, in one sentence for the panel and the report ("J of “A” at 0.966 and
+ * 0.975 …"); null when none is. `name` shows a series' name as the host does.
  */
-export function beyondPossibleSentence(curve: Pick<SensitivityCurve, 'series' | 'settings'>, name: (n: string) => string = (n) => n): string | null {
+export function beyondPossibleSentence(curve: Pick<SensitivityCurve, 'series' | 'settings' | 'parameter'>, name: (n: string) => string = (n) => n): string | null {
   const parts = curve.series.flatMap((serie) => {
-    const at = curve.settings.flatMap((x, i) => (serie.beyondPossible?.[i] ? [formatValue(x)] : []));
+    const at = curve.settings.flatMap((_, i) => (serie.beyondPossible?.[i] ? [settingText(curve, i)] : []));
     return at.length ? [`of “${name(serie.name)}” at ${at.length > 1 ? `${at.slice(0, -1).join(', ')} and ${at[at.length - 1]}` : at[0]}`] : [];
   });
   if (!parts.length) return null;
-  return `Crossed points: J ${parts.join('; ')} cannot be right — its change from another setting lies beyond what the per-step values allow, on paired resamples of the runs (the candidate’s warnings say by how much).`;
+  return `Crossed points: J ${parts.join('; ')}. Between a crossed J and J at another setting the change lies outside what the per-step values allow, on paired resamples of the runs, so the two cannot both be right; the crosses are the fewest points that account for every such pair (the candidate’s warnings say by how much).`;
 }
 
 /** rankingVerdict as a sentence of its own. */
-export function rankingSentence(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings'>): string {
+export function rankingSentence(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings' | 'parameter'>): string {
   return `${sentence(rankingVerdict(curve))}.`;
 }
 
@@ -101,13 +140,14 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
       spanGaps: false,
     };
   });
-  const crossed = curve.series.some((serie) => serie.beyondPossible?.some(Boolean));
-  const shared = sharedOptions(look, props.title, `large points: the project’s setting (${formatValue(curve.settings[curve.projectIndex] ?? NaN)}); ${rankingVerdict(curve, true)}`);
+  // With crosses the verdict is longer: on a line of its own, where Chart.js would squeeze one line past the plot's width.
+  const project = `large points: the project’s setting (${formatValue(curve.settings[curve.projectIndex] ?? NaN)})`;
+  const shared = sharedOptions(look, props.title, curve.leftOut?.length ? [project, shortVerdict(curve)] : `${project}; ${shortVerdict(curve)}`);
   const keys: LegendKey[] = datasets.map((set) => ({
     label: String(set.label), kind: 'line' as const, colour: String(set.borderColor), lineWidthPx: d.lineWidthPx,
     dash: (set.borderDash as number[]).map((v) => v / s), markerRadiusPx: d.pointRadiusPx,
   }));
-  if (crossed) keys.push({ label: BEYOND_POSSIBLE_KEY, kind: 'marker', colour: p.mutedText, overlay: crossSwatch(d.crossRadiusPx, d.crossWidthPx, p.mutedText) });
+  if (curve.series.some((serie) => serie.beyondPossible?.some(Boolean))) keys.push({ label: BEYOND_POSSIBLE_KEY, kind: 'marker', colour: p.mutedText, overlay: crossSwatch(d.crossRadiusPx, d.crossWidthPx, p.mutedText) });
   return {
     type: 'line',
     data: { datasets },

@@ -11,7 +11,7 @@ import { CONVERGENCE_DEFAULTS, convergenceChart, convergenceSummary, type Conver
 import type { PlotLook } from '../parts/plotLook';
 import { POLICY_VALUE_DEFAULTS, policyValueChart, policyValueChartHeight, policyValueSummary, type PolicyValueChartProps } from '../charts/policyValueChart';
 import { retuneMapChart, retuneMapHeight, retuneMapSummary, type RetuneMapPlotProps } from '../charts/retuneMap';
-import { SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary, type SensitivityPlotProps } from '../charts/sensitivity';
+import { sensitivityChart, sensitivityChartHeight, sensitivitySummary, type SensitivityPlotProps } from '../charts/sensitivity';
 import { trendChart, trendChartHeight, trendSummary, type TrendPlotProps } from '../charts/trendChart';
 import { VALUE_SURFACE_DEFAULTS, valueSurfaceChart, valueSurfaceSummary, type ValueSurfacePlotProps } from '../charts/valueSurface';
 
@@ -79,7 +79,7 @@ export function plotScreenHeight(spec: PlotSpec): number {
     case 'slice': return ACTION_SLICE_DEFAULTS.heightPx;
     case 'convergence': return CONVERGENCE_DEFAULTS.heightPx;
     case 'comparison': return policyValueChartHeight(spec.props.evaluation);
-    case 'sensitivity': return SENSITIVITY_DEFAULTS.heightPx;
+    case 'sensitivity': return sensitivityChartHeight(spec.props.curve);
     case 'candidates': return CANDIDATE_ACTIONS_DEFAULTS.heightPx;
     case 'interval': return intervalChartHeight(spec.props.rows.length);
     case 'retuneMap': return retuneMapHeight(spec.props.map);

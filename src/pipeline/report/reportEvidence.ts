@@ -120,7 +120,7 @@ export function sensitivitySection(input: ReportInput, figures: FigureCounter): 
       return html`<figure id="fig-sensitivity-${n}">${raw(chart)}<figcaption>Figure ${n}. J (${words.value}, ${words.better}) against the ${curve.label}; large points: the project’s setting.
         ${curve.rankingStable ? rankingSentence(curve) : html`<strong>${rankingSentence(curve)}</strong>`}${crossed ? html` <strong>${crossed}</strong>` : ''}</figcaption></figure>`;
     })}
-    <ul class="small">${s.notes.map((note) => html`<li>${note}</li>`)}</ul></section>`;
+    <ul class="small">${s.notes.map((note) => html`<li>${typesetText(note)}</li>`)}</ul></section>`;
 }
 
 export function cautionsSection(input: ReportInput, a: Assessment | null): Html {

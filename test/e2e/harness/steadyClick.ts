@@ -11,7 +11,7 @@
  */
 import type { Locator } from 'playwright-core';
 
-/** How often the fallback was needed in this test process (printed by the screens test). */
+/** How often the fallback was needed in this test process (printed by test/e2e/engineer.test.ts). */
 export const stalledClicks: string[] = [];
 
 export async function steadyClick(locator: Locator, waitMs = 10_000): Promise<void> {

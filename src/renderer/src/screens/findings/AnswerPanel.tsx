@@ -12,6 +12,7 @@ import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
 import { displayName, valueUnit } from './plotLabels';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
+import { sweepsVerdict } from '../../../../figures/charts/sensitivity';
 import { logCautionsText, TRIAL_RULE, trialChoice, warningsText, type TrialChoice } from './trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
@@ -110,7 +111,7 @@ export function AnswerPanel({ evaluation, assessment }: { evaluation: Evaluation
       {assessment && (
         <p className="small answer-more">
           Read more: <JumpLink section="comparison">paired comparison</JumpLink> · <JumpLink section="crossChecks">cross-checks</JumpLink> · <JumpLink section="coverage">coverage and warnings</JumpLink>
-          {assessment.sensitivity && <> · <JumpLink section="sensitivity">sensitivity</JumpLink> ({assessment.sensitivity.curves.every((c) => c.rankingStable) ? 'ranking the same at every setting' : 'ranking changes with a setting'}{assessment.sensitivity.curves.some((c) => c.leftOut?.length) ? '; some J cannot be right' : ''})</>}
+          {assessment.sensitivity && <> · <JumpLink section="sensitivity">sensitivity</JumpLink> ({sweepsVerdict(assessment.sensitivity.curves)})</>}
         </p>
       )}
     </FoldPanel>

@@ -4,7 +4,7 @@ import type { Sensitivity } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import { SelectField } from '../../components/SelectField';
 import { SensitivityPlot } from '../../plots';
-import { beyondPossibleSentence, rankingSentence } from '../../../../figures/charts/sensitivity';
+import { beyondPossibleSentence, rankingSentence, sweepsVerdict } from '../../../../figures/charts/sensitivity';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
 import { FoldPanel } from './FoldPanel';
@@ -21,7 +21,7 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
   const title = `J against the ${curve.label}`;
   const props = { curve: shown, valueLabel: policyValueLabel(evaluation.valueSense, valueUnit(doc)), title, theme };
   return (
-    <FoldPanel section="sensitivity" testId="sensitivity" gist={`J against ${sensitivity.curves.map((c) => `the ${c.label}`).join(' and ')}: ${sensitivity.curves.every((c) => c.rankingStable) ? 'the ranking is the same at every setting shown' : 'the ranking changes within the range'}${sensitivity.curves.some((c) => c.leftOut?.length) ? '; some J cannot be right (crossed)' : ''}.`}>
+    <FoldPanel section="sensitivity" testId="sensitivity" gist={`J against ${sensitivity.curves.map((c) => `the ${c.label}`).join(' and ')}: ${sweepsVerdict(sensitivity.curves)}.`}>
       <p className="small muted">J refitted at other settings on the full data. If the lines cross inside the range, the conclusion depends on that setting.</p>
       {sensitivity.curves.length > 1 && (
         <div className="row">
