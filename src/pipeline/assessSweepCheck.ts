@@ -12,14 +12,17 @@
  *   - a pair holding the project's own discount is a SERIOUS warning on the candidate (its reported
  *     J is one of the two), any other pair a CAUTION (the fit breaks down at another horizon, on the
  *     same kind of fixed point as the reported J).
- * The rewards' range is the reward formula's own bounds where the project has them (nothing can
- * pass them), else the logged range (the premise of the possible-value check, assessPossible.ts).
+ * The rewards' range is the definition's own bounds, each end on its own (a formula's, or a column's
+ * as the project declares them): nothing can pass them. An end the definition leaves open is
+ * unbounded, and a project with no bound is not checked — never the logged range, which a right J of a
+ * candidate that takes the plant to costlier steps breaks (rewardRange).
  * Only a linear fit with exact resampling is checked, within SWEEP_CHECK_BUDGET and with at least
  * SWEEP_CHECK_MIN_PAIRED resamples; the others say so, with the reason.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicateDiscounts, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
 import { bootstrapInterval } from '../core/bootstrap/bootstrapInterval';
+import { POSSIBLE_SLACK } from '../core/diagnostics/possibleValues';
 import { changeIntervalImpossible, fewestWrong, possibleChange, type ImpossibleChange, type PossibleChange } from '../core/diagnostics/possibleChange';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { discountText } from '../core/horizonText';
@@ -60,6 +63,7 @@ export function checkDiscountSweep(
   const { plan } = context, e = plan.episodes.episodes, b = Math.min(SWEEP_CHECK_RESAMPLES, check.resamples);
   const marks = works.map(() => settings.map(() => false)), warnings: AssessmentWarning[][] = works.map(() => []);
   const bounds = rewardRange(plan), skipped: { name: string; reason: SkipReason }[] = [], partly: { name: string; pairs: number }[] = [];
+  if (bounds === null) return { marks, warnings, note: unboundedNote(plan) };
   const draws = Array.from({ length: b }, (_, r) => episodeMultiplicities(e, check.seed, r));
   works.forEach((w, c) => {
     throwIfCancelled(context.cancel);
@@ -86,7 +90,8 @@ export function checkDiscountSweep(
           continue;
         }
         const interval = bootstrapInterval(vj - vi, changes, check.level).percentile, range = possibleChange(bounds.lower, bounds.upper, settings[i], settings[j], plan.absorbingEnds > 0);
-        if (changeIntervalImpossible(interval[0], interval[1], range)) found.push({ pair: { earlier: i, later: j }, change: vj - vi, interval: [interval[0], interval[1]], range, paired: changes.length });
+        const slack = POSSIBLE_SLACK * bounds.loggedWidth * Math.abs(1 / (1 - settings[j]) - 1 / (1 - settings[i]));
+        if (changeIntervalImpossible(interval[0], interval[1], range, slack)) found.push({ pair: { earlier: i, later: j }, change: vj - vi, interval: [interval[0], interval[1]], range, paired: changes.length });
       }
     }
     if (thin) partly.push({ name: w.model.name, pairs: thin });
@@ -106,19 +111,32 @@ function near(pair: ImpossibleChange, projectIndex: number): number {
 }
 
 
-/** certain: the bounds' source (TransitionSet.rewardBounds) where they are the definition's, null where they are the logged range. */
-interface RewardRange { lower: number; upper: number; certain: 'formula' | 'declaration' | null }
+/**
+ * The per-step reward range the check holds a candidate to (reward sense): the definition's own bounds
+ * (TransitionSet.rewardBounds: a formula's, or the project's declaration for a column), each end on its
+ * own — an end the definition leaves open is unbounded. Never the logged range: a candidate that takes
+ * the plant where steps cost more than any logged one changes with γ by more than the logged range
+ * allows, and is right (the battery's blending-tank hold-out, `warmer`: J within 1 % of the truth at every
+ * swept γ, crossed at four of five when the logged range was used; test/battery/README.md). loggedWidth
+ * sets the slack. Null when the definition bounds neither end.
+ */
+interface RewardRange { lower: number; upper: number; source: 'formula' | 'declaration'; loggedWidth: number }
 
-/** The per-step reward range (reward sense): the formula's own bounds where they are finite, else the logged range. */
-function rewardRange(plan: EvaluationPlan): RewardRange {
+function rewardRange(plan: EvaluationPlan): RewardRange | null {
   const rewards = plan.data.rewards, certain = plan.data.rewardBounds;
+  if (!certain || (!Number.isFinite(certain.lower) && !Number.isFinite(certain.upper))) return null;
   let lo = Infinity, hi = -Infinity;
   for (let i = 0; i < rewards.length; i++) {
     if (rewards[i] < lo) lo = rewards[i];
     if (rewards[i] > hi) hi = rewards[i];
   }
-  if (certain && Number.isFinite(certain.lower) && Number.isFinite(certain.upper)) return { lower: certain.lower, upper: certain.upper, certain: certain.from };
-  return { lower: lo, upper: hi, certain: null };
+  return { lower: Number.isFinite(certain.lower) ? certain.lower : -Infinity, upper: Number.isFinite(certain.upper) ? certain.upper : Infinity, source: certain.from, loggedWidth: hi - lo };
+}
+
+function unboundedNote(plan: EvaluationPlan): string {
+  const what = plan.sense === 'cost' ? 'cost' : 'reward';
+  return `The discount sweep is not checked against what the ${what}s allow: the check holds J to the bounds the ${what}’s definition keeps whatever the plant does, and this project’s ${what} has none. ` +
+    `Declare them on the Plant log step where the definition guarantees them (for a sum of squares or of energy used, never below 0); the logged range is no bound for a candidate that takes the plant elsewhere.`;
 }
 
 /** Why a candidate's sweep was not checked. */
@@ -156,17 +174,21 @@ function sweepWarning(
   const step: [number, number] = s > 0 ? [bounds.lower, bounds.upper] : [0 - bounds.upper, 0 - bounds.lower];
   const what = plan.sense === 'cost' ? 'cost' : 'reward';
   // Where the bounds come from, as assessPossible.ts names them: a declared column's are the project's word, checked on the logged rows only.
-  const source = bounds.certain === 'formula' ? `the ${what} formula keeps every step’s ${what}, whatever the plant does, between`
-    : bounds.certain === 'declaration' ? `the project declares that every step’s ${what} lies between` : `every logged step’s ${what} lies between`;
+  const source = bounds.source === 'formula' ? `the ${what} formula keeps every step’s ${what}, whatever the plant does,` : `the project declares every step’s ${what}`;
+  const ends = [
+    ...(Number.isFinite(step[0]) ? [`never below ${boundText(step[0], 'lower', 4, ASCII_MINUS)}`] : []),
+    ...(Number.isFinite(step[1]) ? [`never above ${boundText(step[1], 'upper', 4, ASCII_MINUS)}`] : []),
+  ].join(' and ');
+  const can = Number.isFinite(allowed[0]) && Number.isFinite(allowed[1]) ? `by between ${plainNumber(allowed[0], 4, ASCII_MINUS)} and ${plainNumber(allowed[1], 4, ASCII_MINUS)}`
+    : Number.isFinite(allowed[0]) ? `by no less than ${plainNumber(allowed[0], 4, ASCII_MINUS)}` : `by no more than ${plainNumber(allowed[1], 4, ASCII_MINUS)}`;
   const more = pairs > 1 ? ` ${pairs} pairs of swept discounts fail this check in all.` : '';
   const which = ownPair
     ? 'One of the two is the J reported at the project’s own discount: do not use it without other evidence.'
     : 'The J reported at the project’s own discount passes this check, but it rests on the same kind of fixed point that fails at this horizon.';
-  const premise = bounds.certain ? '' : ' (or the candidate would meet steps outside the logged range)';
   return {
     severity: ownPair ? 'serious' : 'caution', topic: SWEEP_CHECK_TOPIC,
     message: `J cannot go from ${at(i)} to ${at(j)}: the change, ${valueAtPrecision(s * f.change, change, ASCII_MINUS)} (${shareText(level)} interval ${intervalAtPrecision(change, ASCII_MINUS)} on ${f.paired} resamples of the runs), lies outside what the ${what}s allow, ` +
-      `since ${source} ${boundText(step[0], 'lower', 4, ASCII_MINUS)} and ${boundText(step[1], 'upper', 4, ASCII_MINUS)}, so between these two discounts J can change only by between ${plainNumber(allowed[0], 4, ASCII_MINUS)} and ${plainNumber(allowed[1], 4, ASCII_MINUS)}. ` +
-      `The linear fit extrapolates at one of these discounts${premise}. ${which}${more}`,
+      `since ${source} ${ends}, so between these two discounts J can change only ${can}. ` +
+      `The linear fit extrapolates at one of these discounts. ${which}${more}`,
   };
 }

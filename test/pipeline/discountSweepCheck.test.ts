@@ -120,8 +120,28 @@ describe('the discount sweep against what the per-step values allow', () => {
       const { warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 200 });
       const said = warnings.flat().map((w) => w.message);
       expect(said).toHaveLength(1);
-      expect(said[0]).toContain('since the project declares that every step’s cost lies between');
+      expect(said[0]).toContain('since the project declares every step’s cost never below 0 and never above 11, so between these two discounts J can change only by between');
       expect(said[0]).not.toContain('whatever the plant does');
+    } finally {
+      run.dispose();
+    }
+  }, 600_000);
+
+  it('holds J to the definition’s bounds only: with none declared it checks nothing and says how to declare one', async () => {
+    const { run } = await sampleRun('heating-loop');
+    try {
+      // The logged range is no bound for a candidate that takes the plant elsewhere: on the battery's blending-tank hold-out it crossed
+      // four right values of a candidate that settles where every step costs more than any logged one (test/battery/README.md).
+      const plan = { ...run.plan, data: { ...run.plan.data, rewardBounds: undefined } };
+      const context: AssessmentContext = { plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+      const { sensitivity: swept, warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 200 });
+      expect(warnings.flat()).toEqual([]);
+      expect(swept.curves[0].series.every((x) => !x.beyondPossible)).toBe(true);
+      expect(swept.notes[0]).toMatch(/^The discount sweep is not checked against what the costs allow: .* this project’s cost has none\. Declare them/);
+      // One end declared is enough for a fall: the sample's own declaration (never below 0) crosses the rate-limited PI's fall.
+      const own: AssessmentContext = { ...context, plan: run.plan };
+      const declared = await sensitivity(own, run.models.map((m) => candidateWork(own, m)), -1, { level: 0.9, seed: 1, resamples: 200 });
+      expect(declared.warnings.flat().map((w) => w.message)[0]).toContain('since the project declares every step’s cost never below 0, so between these two discounts J can change only by no less than 0.');
     } finally {
       run.dispose();
     }

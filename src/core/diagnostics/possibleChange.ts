@@ -33,9 +33,13 @@ export function possibleChange(lo: number, hi: number, earlier: number, later: n
   return d >= 0 ? { lower: a * d, upper: b * d } : { lower: b * d, upper: a * d };
 }
 
-/** True when the interval [lower, upper] of an estimated change shares no point with the possible change widened by its slack. */
-export function changeIntervalImpossible(lower: number, upper: number, range: PossibleChange): boolean {
-  const slack = POSSIBLE_SLACK * (range.upper - range.lower);
+/**
+ * True when the interval [lower, upper] of an estimated change shares no point with the possible change
+ * widened by its slack: by default POSSIBLE_SLACK of the range's width; where an end is unbounded (a
+ * reward bounded on one side only) the caller gives it, as POSSIBLE_SLACK of the logged rewards' range
+ * times D — the margin assessPossible.ts's certain-bound rule (beyondCertain) takes for J.
+ */
+export function changeIntervalImpossible(lower: number, upper: number, range: PossibleChange, slack = POSSIBLE_SLACK * (range.upper - range.lower)): boolean {
   return upper < range.lower - slack || lower > range.upper + slack;
 }
 
