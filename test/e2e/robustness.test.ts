@@ -92,7 +92,7 @@ describe('the app under trouble (e2e)', () => {
     await goToStep(page, 'run');
     report('switching to Candidates and back, no run', await page.evaluate(stopMainThreadProbe));
     await page.getByTestId('run-evaluation').click();
-    await page.getByTestId('progress-iteration').getByText(/reading the data \(\d+ %\)/).waitFor({ timeout: 30_000 });
+    await page.getByTestId('progress-iteration').getByText(/reading the data \(\d+\s%\)/).waitFor({ timeout: 30_000 });
     // The main thread while the worker fits: one second left alone, then while the user switches steps.
     await page.evaluate(startMainThreadProbe);
     await page.waitForTimeout(1000);

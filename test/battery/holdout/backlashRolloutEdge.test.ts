@@ -62,7 +62,7 @@ describe('backlash level hold-out, seed 2: model rollouts that collect their cos
     const verdict = crossCheckVerdict({ label: 'Rollouts of a fitted plant model', difference: model.value - fqe, differenceStandardError: 0.01, fqe,
       shareOutsideLogs: model.shareOutsideLogs, rewardShareAtEdge: model.rewardShareAtEdge });
     expect(verdict.agreement).toBe('uninformative');
-    expect(verdict.note).toMatch(/^Uninformative: \d+ % of the model’s value \(its discounted rewards, in size\) comes from simulated states held at the edge/);
+    expect(verdict.note).toMatch(/^Uninformative: [\d.]+\s% of the model’s value \(its discounted rewards, in size\) comes from simulated states held at the edge/);
     expect(crossCheckVerdict({ ...{ label: 'x', difference: model.value - fqe, differenceStandardError: 0.01, fqe }, shareOutsideLogs: model.shareOutsideLogs }).agreement).toBe('disagrees');
   });
 });
