@@ -37,6 +37,20 @@ async function assessSample(name: string) {
   return { assessment: result.value, dataset: opened.value.dataset };
 }
 
+type Plan = AssessmentContext['plan'];
+
+/** The heating-loop sample's sweep on a plan edited as the test says (invented edits), the run disposed after. */
+async function sweepHeating(edit: (plan: Plan) => Plan, check: { level: number; seed: number; resamples: number }, only?: number) {
+  const { run } = await sampleRun('heating-loop');
+  try {
+    const context: AssessmentContext = { plan: edit(run.plan), presentController: null, presentControllerModel: null, presentControllerReason: '' };
+    const models = only === undefined ? run.models : run.models.slice(0, only);
+    return { ...(await sensitivity(context, models.map((m) => candidateWork(context, m)), -1, check)), names: run.models.map((m) => m.name) };
+  } finally {
+    run.dispose();
+  }
+}
+
 describe('the discount sweep against what the per-step values allow', () => {
   it('crosses nothing on a linear-quadratic plant, where the sweep follows the closed form', async () => {
     const { assessment, dataset } = await assessSample('tank-levels');
@@ -85,65 +99,39 @@ describe('the discount sweep against what the per-step values allow', () => {
   }, 600_000);
 
   it('says why a sweep is not checked when the project asks for fewer resamples than the check needs', async () => {
-    const { run } = await sampleRun('heating-loop');
-    try {
-      const context: AssessmentContext = { plan: run.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
-      const { sensitivity: swept, warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 50 });
-      expect(warnings.flat()).toEqual([]);
-      // It said "re-solves a linear fit on 200 resamples … needs exact resampling within its budget", none of which was the reason.
-      expect(swept.notes[0]).toBe('The discount sweep of the candidates is not checked against what the costs allow: the check needs at least 100 resamples of the runs and the project asks for 50.');
-    } finally {
-      run.dispose();
-    }
+    const { sensitivity: swept, warnings } = await sweepHeating((plan) => plan, { level: 0.9, seed: 1, resamples: 50 });
+    expect(warnings.flat()).toEqual([]);
+    // It said "re-solves a linear fit on 200 resamples … needs exact resampling within its budget", none of which was the reason.
+    expect(swept.notes[0]).toBe('The discount sweep of the candidates is not checked against what the costs allow: the check needs at least 100 resamples of the runs and the project asks for 50.');
   }, 600_000);
 
   it('says so when a pair of discounts is left unchecked for want of resamples with a J at both', async () => {
-    const { run } = await sampleRun('heating-loop');
-    try {
-      // Every start state mapped to run 0 (invented): a resample holds a start only when it draws that run, about 1 − (39/40)^40 ≈ 64 % of them,
-      // so of 120 resamples about 77 give a J at all — fewer than the 100 a pair needs. Before, nothing said the sweep went unchecked.
-      const plan = { ...run.plan, starts: { ...run.plan.starts, followEpisodes: true, episode: new Int32Array(run.plan.starts.count) } };
-      const context: AssessmentContext = { plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
-      const { sensitivity: swept } = await sensitivity(context, run.models.slice(0, 1).map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 120 });
-      expect(swept.notes[0]).toBe(`The discount sweep of “${run.models[0].name}” is checked only in part: for 10 pairs of swept discounts fewer than 100 of the 120 resamples of the runs gave a J at both (a solve that did not converge, or a resample without start states), and those pairs are not checked.`);
-    } finally {
-      run.dispose();
-    }
+    // Every start state mapped to run 0 (invented): a resample holds a start only when it draws that run, about 1 − (39/40)^40 ≈ 64 % of them,
+    // so of 120 resamples about 77 give a J at all — fewer than the 100 a pair needs. Before, nothing said the sweep went unchecked.
+    const toRunZero = (plan: Plan) => ({ ...plan, starts: { ...plan.starts, followEpisodes: true, episode: new Int32Array(plan.starts.count) } });
+    const { sensitivity: swept, names } = await sweepHeating(toRunZero, { level: 0.9, seed: 1, resamples: 120 }, 1);
+    expect(swept.notes[0]).toBe(`The discount sweep of “${names[0]}” is checked only in part: for 10 pairs of swept discounts fewer than 100 of the 120 resamples of the runs gave a J at both (a solve that did not converge, or a resample without start states), and those pairs are not checked.`);
   }, 600_000);
 
   it('names a declared column’s bounds as the project’s word, not as what holds whatever the plant does', async () => {
-    const { run } = await sampleRun('heating-loop');
-    try {
-      // Invented: the cost column declared within [0, 11] (every logged cost is in [0.018, 10.58]); J's fall from 10.69 still fails against it.
-      const plan = { ...run.plan, data: { ...run.plan.data, rewardBounds: { lower: -11, upper: 0, from: 'declaration' as const } } };
-      const context: AssessmentContext = { plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
-      const { warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 200 });
-      const said = warnings.flat().map((w) => w.message);
-      expect(said).toHaveLength(1);
-      expect(said[0]).toContain('since the project declares every step’s cost never below 0 and never above 11, so between these two discounts J can change only by between');
-      expect(said[0]).not.toContain('whatever the plant does');
-    } finally {
-      run.dispose();
-    }
+    // Invented: the cost column declared within [0, 11] (every logged cost is in [0.018, 10.58]); J's fall from 10.69 still fails against it.
+    const declared = (plan: Plan) => ({ ...plan, data: { ...plan.data, rewardBounds: { lower: -11, upper: 0, from: 'declaration' as const } } });
+    const said = (await sweepHeating(declared, { level: 0.9, seed: 1, resamples: 200 })).warnings.flat().map((w) => w.message);
+    expect(said).toHaveLength(1);
+    expect(said[0]).toContain('since the project declares every step’s cost never below 0 and never above 11, so between these two discounts J can change only by between');
+    expect(said[0]).not.toContain('whatever the plant does');
   }, 600_000);
 
   it('holds J to the definition’s bounds only: with none declared it checks nothing and says how to declare one', async () => {
-    const { run } = await sampleRun('heating-loop');
-    try {
-      // The logged range is no bound for a candidate that takes the plant elsewhere: on the battery's blending-tank hold-out it crossed
-      // four right values of a candidate that settles where every step costs more than any logged one (test/battery/README.md).
-      const plan = { ...run.plan, data: { ...run.plan.data, rewardBounds: undefined } };
-      const context: AssessmentContext = { plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
-      const { sensitivity: swept, warnings } = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), -1, { level: 0.9, seed: 1, resamples: 200 });
-      expect(warnings.flat()).toEqual([]);
-      expect(swept.curves[0].series.every((x) => !x.beyondPossible)).toBe(true);
-      expect(swept.notes[0]).toMatch(/^The discount sweep is not checked against what the costs allow: .* this project’s cost has none\. Declare them/);
-      // One end declared is enough for a fall: the sample's own declaration (never below 0) crosses the rate-limited PI's fall.
-      const own: AssessmentContext = { ...context, plan: run.plan };
-      const declared = await sensitivity(own, run.models.map((m) => candidateWork(own, m)), -1, { level: 0.9, seed: 1, resamples: 200 });
-      expect(declared.warnings.flat().map((w) => w.message)[0]).toContain('since the project declares every step’s cost never below 0, so between these two discounts J can change only by no less than 0.');
-    } finally {
-      run.dispose();
-    }
+    // The logged range is no bound for a candidate that takes the plant elsewhere: on the battery's blending-tank hold-out it crossed
+    // four right values of a candidate that settles where every step costs more than any logged one (test/battery/README.md).
+    const check = { level: 0.9, seed: 1, resamples: 200 };
+    const { sensitivity: swept, warnings } = await sweepHeating((plan) => ({ ...plan, data: { ...plan.data, rewardBounds: undefined } }), check);
+    expect(warnings.flat()).toEqual([]);
+    expect(swept.curves[0].series.every((x) => !x.beyondPossible)).toBe(true);
+    expect(swept.notes[0]).toMatch(/^The discount sweep is not checked against what the costs allow: .* this project’s cost has none\. Declare them/);
+    // One end declared is enough for a fall: the sample's own declaration (never below 0) crosses the rate-limited PI's fall.
+    const own = await sweepHeating((plan) => plan, check);
+    expect(own.warnings.flat().map((w) => w.message)[0]).toContain('since the project declares every step’s cost never below 0, so between these two discounts J can change only by no less than 0.');
   }, 600_000);
 });
