@@ -22,7 +22,7 @@
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicateDiscounts, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
 import { bootstrapInterval } from '../core/bootstrap/bootstrapInterval';
-import { POSSIBLE_SLACK } from '../core/diagnostics/possibleValues';
+import { loggedRewardRange, POSSIBLE_SLACK } from '../core/diagnostics/possibleValues';
 import { changeIntervalImpossible, fewestWrong, possibleChange, type ImpossibleChange, type PossibleChange } from '../core/diagnostics/possibleChange';
 import { throwIfCancelled } from '../core/fqe/cancellation';
 import { discountText } from '../core/horizonText';
@@ -123,14 +123,10 @@ function near(pair: ImpossibleChange, projectIndex: number): number {
 interface RewardRange { lower: number; upper: number; source: 'formula' | 'declaration'; loggedWidth: number }
 
 function rewardRange(plan: EvaluationPlan): RewardRange | null {
-  const rewards = plan.data.rewards, certain = plan.data.rewardBounds;
+  const certain = plan.data.rewardBounds;
   if (!certain || (!Number.isFinite(certain.lower) && !Number.isFinite(certain.upper))) return null;
-  let lo = Infinity, hi = -Infinity;
-  for (let i = 0; i < rewards.length; i++) {
-    if (rewards[i] < lo) lo = rewards[i];
-    if (rewards[i] > hi) hi = rewards[i];
-  }
-  return { lower: Number.isFinite(certain.lower) ? certain.lower : -Infinity, upper: Number.isFinite(certain.upper) ? certain.upper : Infinity, source: certain.from, loggedWidth: hi - lo };
+  const logged = loggedRewardRange(plan.data.rewards);
+  return { lower: Number.isFinite(certain.lower) ? certain.lower : -Infinity, upper: Number.isFinite(certain.upper) ? certain.upper : Infinity, source: certain.from, loggedWidth: logged.upper - logged.lower };
 }
 
 function unboundedNote(plan: EvaluationPlan): string {

@@ -25,13 +25,19 @@ export interface PossibleValues {
 }
 
 export function possibleValues(rewards: ArrayLike<number>, discount: number, runsCanEnd = false): PossibleValues {
+  const { lower, upper } = loggedRewardRange(rewards);
+  return discountedRange(lower, upper, discount, runsCanEnd);
+}
+
+/** The least and greatest logged reward (Infinity and −Infinity for none). */
+export function loggedRewardRange(rewards: ArrayLike<number>): PossibleValues {
   let lo = Infinity, hi = -Infinity;
   for (let i = 0; i < rewards.length; i++) {
     const r = rewards[i];
     if (r < lo) lo = r;
     if (r > hi) hi = r;
   }
-  return discountedRange(lo, hi, discount, runsCanEnd);
+  return { lower: lo, upper: hi };
 }
 
 /**
