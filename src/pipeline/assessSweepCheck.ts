@@ -28,7 +28,7 @@ import { throwIfCancelled } from '../core/fqe/cancellation';
 import { discountText } from '../core/horizonText';
 import { SWEEP_CHECK_BUDGET, SWEEP_CHECK_MIN_PAIRED, SWEEP_CHECK_RESAMPLES } from '../core/limits';
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
-import { ASCII_MINUS, intervalAtPrecision, plainNumber, valueAtPrecision } from '../figures/parts/uncertainNumber';
+import { ASCII_MINUS, intervalAtPrecision, valueAtPrecision } from '../figures/parts/uncertainNumber';
 import { boundText } from '../figures/parts/boundText';
 import type { AssessmentWarning } from './assessment';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
@@ -164,8 +164,9 @@ function sweepWarning(
   f: Failing, ownPair: boolean, pairs: number, level: number, bounds: RewardRange,
 ): AssessmentWarning {
   const s = plan.sign, { earlier: i, later: j } = f.pair, g = (k: number) => discountText(settings[k]);
-  const at = (k: number) => `${plainNumber(s * values[k]!, 4, ASCII_MINUS)} at γ ${g(k)}`;
   const change: [number, number] = s > 0 ? f.interval : [-f.interval[1], -f.interval[0]];
+  // The two J, the change and its interval are read against each other: one precision, the interval's (uncertainNumber.ts).
+  const at = (k: number) => `${valueAtPrecision(s * values[k]!, change, ASCII_MINUS)} at γ ${g(k)}`;
   const allowed: [number, number] = s > 0 ? [f.range.lower, f.range.upper] : [0 - f.range.upper, 0 - f.range.lower];
   const step: [number, number] = s > 0 ? [bounds.lower, bounds.upper] : [0 - bounds.upper, 0 - bounds.lower];
   const what = plan.sense === 'cost' ? 'cost' : 'reward';
@@ -175,8 +176,10 @@ function sweepWarning(
     ...(Number.isFinite(step[0]) ? [`never below ${boundText(step[0], 'lower', 4, ASCII_MINUS)}`] : []),
     ...(Number.isFinite(step[1]) ? [`never above ${boundText(step[1], 'upper', 4, ASCII_MINUS)}`] : []),
   ].join(' and ');
-  const can = Number.isFinite(allowed[0]) && Number.isFinite(allowed[1]) ? `by between ${plainNumber(allowed[0], 4, ASCII_MINUS)} and ${plainNumber(allowed[1], 4, ASCII_MINUS)}`
-    : Number.isFinite(allowed[0]) ? `by no less than ${plainNumber(allowed[0], 4, ASCII_MINUS)}` : `by no more than ${plainNumber(allowed[1], 4, ASCII_MINUS)}`;
+  // The allowed change is a bound: said rounded outward (boundText), so no change it excludes reads as inside it.
+  const low = boundText(allowed[0], 'lower', 4, ASCII_MINUS), high = boundText(allowed[1], 'upper', 4, ASCII_MINUS);
+  const can = Number.isFinite(allowed[0]) && Number.isFinite(allowed[1]) ? `by between ${low} and ${high}`
+    : Number.isFinite(allowed[0]) ? `by no less than ${low}` : `by no more than ${high}`;
   const more = pairs > 1 ? ` ${pairs} pairs of swept discounts fail this check in all.` : '';
   const which = ownPair
     ? 'One of the two is the J reported at the project’s own discount: do not use it without other evidence.'

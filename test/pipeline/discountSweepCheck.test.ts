@@ -84,7 +84,10 @@ describe('the discount sweep against what the per-step values allow', () => {
     const warnings = assessment.candidates.find((c) => c.name === name)!.warnings.filter((w) => w.topic === SWEEP_CHECK_TOPIC);
     expect(warnings).toHaveLength(1);
     expect(warnings[0].severity).toBe('serious');
-    expect(warnings[0].message).toMatch(/^J cannot go from 10\.69 at γ 0\.95 to 7\.136 at γ 0\.966: /);
+    // The two J are written at the change's interval's precision, one precision for numbers read together (JCGM 100 §7.2.6,
+    // common practice): "from 10.69 … to 7.14 …: the change, −3.56 ([−6.50, −2.57])", not "to 7.136" beside "−3.56".
+    expect(warnings[0].message).toMatch(/^J cannot go from 10\.69 at γ 0\.95 to 7\.14 at γ 0\.966: the change, -3\.\d\d \(90\u00a0% interval \[-\d\.\d\d, -\d\.\d\d\]/);
+    expect(warnings[0].message).toMatch(/J can change only by no less than 0\./);
     // The resamples said are those the pair's interval rests on (a resample without a value at either discount is not one of them).
     const said = Number(/ on (\d+) resamples of the runs/.exec(warnings[0].message)![1]);
     expect(said).toBeGreaterThanOrEqual(100);
