@@ -23,12 +23,15 @@ import { rolloutTruth } from '../test/battery/rolloutTruth';
 import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
 import { backlashLevelDynamics } from '../test/battery/holdout/backlashLevelPlant';
 import { headerPressureDynamics } from '../test/battery/holdout/headerPressurePlant';
+import { greenhouseDynamics, nonlinearPlants, pendulumDynamics } from '../test/battery/nonlinearCatalogue';
 import { cliCommand } from './builtCli';
 
 /** The dynamics of the plants this bench can take the truth of (their rollouts as in nonlinearPlant.ts). */
 const DYNAMICS: Record<string, { dynamics: PlantDynamics; rolloutsPerStart: number }> = {
   'holdout-backlash-level-g0.96': { dynamics: backlashLevelDynamics, rolloutsPerStart: 200 },
   'holdout-header-pressure-g0.98': { dynamics: headerPressureDynamics, rolloutsPerStart: 200 },
+  'greenhouse-clipped-g0.95': { dynamics: greenhouseDynamics, rolloutsPerStart: 200 },
+  'pendulum-saturating-g0.97': { dynamics: pendulumDynamics, rolloutsPerStart: 200 },
 };
 const ROLLOUT_SEED = 31_337;
 
@@ -81,7 +84,7 @@ async function main() {
   const work = join(tmpdir(), `holdout-cli-${process.pid}`);
   mkdirSync(work, { recursive: true });
   const rows: object[] = [];
-  const plants = holdoutPlants().filter((p) => names.includes(p.name));
+  const plants = [...holdoutPlants(), ...nonlinearPlants()].filter((p) => names.includes(p.name));
   console.log(['plant', 'approx', 'seed', 'candidate', 'truth', 'truthSE', 'J', 'err%', 'interval', 'range', 'holds', 'miss/SE', 'settled', 'status', 'most severe', 'exit', 'class', 'seconds'].join('\t'));
   for (const plant of plants) for (const seed of seeds) {
     const data = plant.simulate({ transitions, seed }), csv = `${plant.name}-s${seed}.csv`;
