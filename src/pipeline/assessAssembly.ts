@@ -77,7 +77,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
       ...coverageWarnings(diagnostics),
       ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
       ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes, cut.note) }] : []),
-      ...networkDisagreement(work),
+      ...networkDisagreement(work, classes),
       ...impossibleValue(context.plan, possible, work.model, policyValue),
       ...failedWarning(policyValue),
     ];
@@ -202,10 +202,15 @@ function networkInterval(work: CandidateWork, sign: number, net: NetworkRunResam
   return !iv ? null : sign > 0 ? [iv.lower, iv.upper] : [-iv.upper, -iv.lower];
 }
 
-/** The network and the linear estimate beside it (networkComparator.ts) disagree beyond their intervals: serious (approximatorAgreement.ts). */
-function networkDisagreement(work: CandidateWork): AssessmentWarning[] {
+/**
+ * The network and the linear estimate beside it (networkComparator.ts) disagree beyond their intervals: serious (approximatorAgreement.ts).
+ * Said once: where the function classes' verdict is "not settled" for this very reason (withUnresampledOwn), its warning
+ * already carries the same sentence, and a second serious warning would repeat it word for word. Exported for its test.
+ */
+export function networkDisagreement(work: CandidateWork, classes: FunctionClassAssessment | null): AssessmentWarning[] {
   const c = work.model.fit.linearComparison;
   if (!c || c.agreement.verdict !== 'disagree') return [];
+  if (classes && !classes.settled && classes.reason.includes(c.agreement.message)) return [];
   return [{ severity: 'serious', topic: 'approximatorAgreement', message: c.agreement.message }];
 }
 

@@ -9,7 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { approximatorAgreement } from '../../src/core/fqe/approximatorAgreement';
-import { classAssessment, withUnresampledOwn } from '../../src/pipeline/assessAssembly';
+import { classAssessment, networkDisagreement, withUnresampledOwn } from '../../src/pipeline/assessAssembly';
 import type { CandidateReplicates } from '../../src/pipeline/assessResamples';
 import type { CandidateWork } from '../../src/pipeline/assessCandidate';
 import type { FunctionClassAssessment } from '../../src/pipeline/assessment';
@@ -40,6 +40,20 @@ describe('a network project is settled only where the linear estimate checks the
     const v = withUnresampledOwn(linearClasses(), w, 1)!;
     expect(v.settled).toBe(false);
     expect(v.reason).toContain('too little data to tell whether they agree');
+  });
+
+  it('says a disagreement once: the class verdict carries it, so no second serious warning repeats the sentence', () => {
+    // Difference −8 with a paired interval [−10, −6]: beyond the intervals, "disagree". Before, the user read the same
+    // paragraph twice among the serious warnings (topics functionClass and approximatorAgreement).
+    const w = network(22, [-10, -6]);
+    const agreement = w.model.fit.linearComparison!.agreement;
+    expect(agreement.verdict).toBe('disagree');
+    const v = withUnresampledOwn(linearClasses(), w, 1)!;
+    expect(v.settled).toBe(false);
+    expect(v.reason).toBe(`Not settled: ${agreement.message}`);
+    expect(networkDisagreement(w, v)).toEqual([]);
+    // Without a class verdict to carry it, the disagreement is its own serious warning.
+    expect(networkDisagreement(w, null)).toEqual([{ severity: 'serious', topic: 'approximatorAgreement', message: agreement.message }]);
   });
 
   it('stays settled where they agree closely, and the range spans the network too', () => {
