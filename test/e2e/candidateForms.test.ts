@@ -167,6 +167,23 @@ describe('candidate forms in the editor (e2e)', () => {
     await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(1);
     await expect(selectAsChosen(page.getByTestId('candidate-form-1'), 'no-such-form')).rejects.toThrow(/has no option "no-such-form"/);
     expect(stalledActions.length).toBe(before); // the fallbacks called directly are not counted; only steady* count them
+    // The whole path: a sheet over the page takes every pointer event, so Playwright's click waits out its
+    // wait (as on stalled frames); the box is then ticked by its click event, and the fallback counted.
+    await steadyClick(limits);
+    await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(0);
+    await page.evaluate(() => {
+      const sheet = Object.assign(document.createElement('div'), { id: 'pointer-sheet' });
+      sheet.style.cssText = 'position: fixed; inset: 0; z-index: 2147483647;';
+      document.body.append(sheet);
+    });
+    try {
+      await steadyCheck(limits, 1_500);
+    } finally {
+      await page.evaluate(() => document.getElementById('pointer-sheet')?.remove());
+    }
+    await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(1);
+    expect(stalledActions.slice(before)).toEqual([expect.stringMatching(/^check .*The actuator has limits/)]);
+    stalledActions.splice(before); // counted here on purpose: not a stall of the machine
   });
 
   it('shows a script-written 0.1 + 0.2 in a candidate field as 0.3, and leaves the file as written', async () => {
