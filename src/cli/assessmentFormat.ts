@@ -3,7 +3,7 @@ import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { plantMemorySentence } from '../pipeline/plantMemoryWords';
 import { policyLabel } from '../pipeline/policyNames';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
-import { shareText } from '../core/shareText';
+import { shareText, sharesText } from '../core/shareText';
 import { beyondPossibleSentence, rankingVerdict } from '../figures/charts/sensitivity';
 import { textTable as table } from './textTable';
 import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
@@ -33,7 +33,9 @@ export function formatAssessment(a: Assessment): string {
   rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
   if (pc) rows.push([...estimateRow(`${LOGGED_RETURN}, completed past time limits (check)`, pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
-  for (const d of a.comparison.differences) diffs.push([`${policyLabel(d.a)} − ${policyLabel(d.b)}`, atDecimals(d.difference.value, rowDecimals(d.difference.percentile, d.difference.standardError)), interval(d.difference.percentile), shareText(d.probabilityBetter)]);
+  // The shares down the column at one precision (core/shareText.ts, sharesText): "50.0 %" under "99.5 %".
+  const firstBetterIn = sharesText(a.comparison.differences.map((d) => d.probabilityBetter));
+  a.comparison.differences.forEach((d, i) => diffs.push([`${policyLabel(d.a)} − ${policyLabel(d.b)}`, atDecimals(d.difference.value, rowDecimals(d.difference.percentile, d.difference.standardError)), interval(d.difference.percentile), firstBetterIn[i]]));
   const named = [...a.candidates, ...(pc ? [{ ...pc, functionClasses: null }] : [])];
   const checks = named.flatMap((c) => [
     `  ${policyLabel(c.name)}: ${c.confirmation.text}`,

@@ -6,10 +6,12 @@
  * 0.01 %". A share of exactly 0 or 1 reads "0 %" or "100 %".
  *
  * Shares set side by side (one sentence, one table row: a candidate's share beside the present
- * controller's, a mean beside its percentile and its largest) are compared digit by digit, so they
- * share one precision (sharesText): the most decimals any of them takes alone, never finer than
- * SMALLEST_SHARE_SHOWN's place — "6.29 %" beside "6.20 %", never beside "6.2 %". Exactly 0 or 1 and
- * "below 0.01 %" stay as they read alone: they are exact, or a bound, not a rounded number.
+ * controller's, a mean beside its percentile and its largest; one table column: how often each
+ * candidate came out better, read down the app's, the report's and the CLI's comparison tables) are
+ * compared digit by digit, so they share one precision (sharesText): the most decimals any of them
+ * takes alone, never finer than SMALLEST_SHARE_SHOWN's place — "6.29 %" beside "6.20 %", never
+ * beside "6.2 %". Exactly 0 or 1 and "below 0.01 %" stay as they read alone: they are exact, or a
+ * bound, not a rounded number.
  *
  * The number and its "%" are held together by a no-break space (U+00A0; SI Brochure §5.4.7 puts a
  * space before % — common practice), so a line in the app or the report never ends at "2.8" with the

@@ -2,9 +2,13 @@
  * A candidate described in the trade's words, with units, for the CLI, the report and the app:
  * "PI, reverse acting, on 21 °C − zone_temp_c: bias 82.7 %, K_c 25 % per °C, T_i 600 s".
  * Pure text from the document; no numbers are computed beyond K_i = K_c/T_i.
+ *
+ * Each number is held to its unit by the no-break space core/shareText.ts puts before a share's "%"
+ * (SI Brochure §5.4.3: a space between a number and its unit), so a line in the report never ends at
+ * "25" with "% per °C" on the next; the command line writes it as a plain space (cli/terminal.ts).
  */
 import type { CandidateSpec, ColumnRoles } from './schema';
-import { exponentText, TRUE_MINUS } from '../core/exponentText';
+import { exponentText, NO_BREAK_SPACE, TRUE_MINUS } from '../core/exponentText';
 
 export interface CandidateSummary {
   /** One line per action: how its mean depends on the states. */
@@ -26,26 +30,28 @@ const num = (v: number): string => {
   return a !== 0 && (a >= 1e6 || a < 1e-3) ? exponentText(v, 3, TRUE_MINUS, true) : Number(v.toPrecision(5)).toString().replace('-', TRUE_MINUS);
 };
 
+/** "25 % per °C": the number held to its unit (a bare number where there is none). */
+const withUnit = (v: number, unit: string): string => (unit ? `${num(v)}${NO_BREAK_SPACE}${unit}` : num(v));
+
 export function summariseCandidate(c: CandidateSpec, columns: ColumnRoles): CandidateSummary {
   const unitOf = (name: string): string => columns.states.find((s) => s.column === name)?.unit ?? '';
   const actionUnit = (j: number): string => columns.actions[j]?.unit ?? '';
-  const withUnit = (v: number, unit: string): string => (unit ? `${num(v)} ${unit}` : num(v));
   const per = (j: number, state: string): string => `${actionUnit(j) || 'unit'} per ${unitOf(state) || 'unit'}`;
   const actionName = (j: number): string => columns.actions[j]?.column ?? `action ${j + 1}`;
   const feedback = (loop: Feedback, j: number): string => {
     const setpoint = typeof loop.setpoint === 'number' ? withUnit(loop.setpoint, unitOf(loop.measurement)) : loop.setpoint;
-    const integral = loop.integralTimeSeconds !== undefined ? `, T_i ${num(loop.integralTimeSeconds)} s`
-      : loop.integralGain ? `, K_i ${num(loop.integralGain)} ${per(j, loop.measurement)}·s` : '';
+    const integral = loop.integralTimeSeconds !== undefined ? `, T_i ${withUnit(loop.integralTimeSeconds, 's')}`
+      : loop.integralGain ? `, K_i ${withUnit(loop.integralGain, `${per(j, loop.measurement)}·s`)}` : '';
     const kind = integral ? 'PI' : 'P';
     const state = integral && loop.integralState ? ` (integral state ${loop.integralState})` : '';
-    return `${kind}, ${loop.action} acting, on ${setpoint} − ${loop.measurement}: K_c ${num(loop.proportionalGain)} ${per(j, loop.measurement)}${integral}${state}`;
+    return `${kind}, ${loop.action} acting, on ${setpoint} − ${loop.measurement}: K_c ${withUnit(loop.proportionalGain, per(j, loop.measurement))}${integral}${state}`;
   };
   const form = c.form;
   let mean: string[];
   if (form.kind === 'affine') {
     mean = form.offset.map((o, j) => `${actionName(j)} = ${withUnit(o, actionUnit(j))}${(form.gain[j] ?? []).map((g, k) => {
       const state = columns.states[k]?.column ?? `state ${k + 1}`;
-      return ` + (${num(g)} ${per(j, state)})·${state}`;
+      return ` + (${withUnit(g, per(j, state))})·${state}`;
     }).join('')}`);
   } else if (form.kind === 'pi') {
     mean = form.loops.map((loop, j) => `${actionName(j)}: ${feedback(loop, j)}; bias ${withUnit(loop.bias, actionUnit(j))}`);
@@ -63,11 +69,11 @@ function limitsText(c: CandidateSpec, actionUnit: (j: number) => string, actionN
   const parts: string[] = [];
   if (c.bounds) {
     const b = c.bounds;
-    const range = b.lo.map((lo, j) => `${lo === null ? '−∞' : num(lo)} … ${b.hi[j] === null || b.hi[j] === undefined ? '∞' : num(b.hi[j]!)}${actionUnit(j) ? ` ${actionUnit(j)}` : ''}`);
+    const range = b.lo.map((lo, j) => `${lo === null ? '−∞' : num(lo)} … ${b.hi[j] === null || b.hi[j] === undefined ? '∞' : num(b.hi[j]!)}${actionUnit(j) ? `${NO_BREAK_SPACE}${actionUnit(j)}` : ''}`);
     parts.push(`${b.mode === 'clip' ? 'clipped' : 'truncated'} to ${range.join('; ')}`);
   }
   c.rateLimit?.maxStep.forEach((step, j) => {
-    if (step !== null) parts.push(`${actionName(j)} moves at most ${num(step)}${actionUnit(j) ? ` ${actionUnit(j)}` : ''} per step from ${c.rateLimit!.previousAction[j] ?? 'its previous value'}`);
+    if (step !== null) parts.push(`${actionName(j)} moves at most ${withUnit(step, actionUnit(j))} per step from ${c.rateLimit!.previousAction[j] ?? 'its previous value'}`);
   });
   return parts.length ? parts.join('; ') : 'none';
 }

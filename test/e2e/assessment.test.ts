@@ -16,6 +16,7 @@ import { UNSTICK } from './harness/unstick';
 import {
   addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, TANK_CSV,
 } from '../renderer/e2e/appSteps';
+import { steadyClick, steadyFill, steadySelect } from './harness/steadyActions';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
 
@@ -34,12 +35,12 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     const { page } = app;
     await chooseData(app, TANK_CSV);
     await mapTankColumns(page);
-    await page.getByLabel('Project name').fill('Tank levels, assessment');
+    await steadyFill(page.getByLabel('Project name'), 'Tank levels, assessment');
     await goToStep(page, 'candidates');
     await addCandidate(page, 0, { name: 'Tuned', offset: 189, gain: [-60, -90], std: 1.5 });
     await addCandidate(page, 1, { name: 'Trim error', offset: 190.5, gain: [-60, -90], std: 1.5 });
     await goToStep(page, 'estimator');
-    await page.getByLabel('Bootstrap resamples').fill('200');
+    await steadyFill(page.getByLabel('Bootstrap resamples'), '200');
     await page.getByLabel('Bootstrap resamples').blur();
     await app.screenshot('assessment-1-estimator');
     values = await runAndReadValues(page, 2);
@@ -86,13 +87,13 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     // PNG export through the same export panel as the other plots.
     const target = join(app.harness.workFolder, 'sensitivity.png');
     app.harness.dialogs.nextExport = target;
-    await page.getByTestId('export-sensitivity').locator('summary').click();
-    await page.getByTestId('export-png-sensitivity').click();
+    await steadyClick(page.getByTestId('export-sensitivity').locator('summary'));
+    await steadyClick(page.getByTestId('export-png-sensitivity'));
     await page.getByTestId('export-status-sensitivity').getByText('Saved').waitFor({ timeout: 30_000 });
     const bytes = new Uint8Array(await readFile(target));
     expect(pngSize(bytes)).toEqual({ width: 1950, height: 1200 }); // the default preset, 6.5 × 4 in at 300 dpi
     expect((await decodedPngContent(page, bytes)).colours).toBeGreaterThan(20);
-    await page.getByTestId('export-sensitivity').locator('summary').click();
+    await steadyClick(page.getByTestId('export-sensitivity').locator('summary'));
     await app.screenshot('assessment-2-findings');
     for (const [name, testId] of [['values', 'value-table'], ['comparison', 'comparison-table'], ['cross-checks', 'cross-checks'], ['coverage', 'coverage'], ['sensitivity', 'sensitivity']]) {
       await page.getByTestId(testId).screenshot({ path: join(SCREENS, `assessment-3-${name}.png`), style: UNSTICK });
@@ -103,7 +104,7 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     const { page, harness } = app;
     const target = join(harness.workFolder, 'tank-report.html');
     harness.dialogs.nextExport = target;
-    await page.getByTestId('write-report').click();
+    await steadyClick(page.getByTestId('write-report'));
     await page.getByTestId('report-status').getByText('Saved').waitFor({ timeout: 30_000 });
     expect(harness.dialogs.asked.at(-1)).toMatchObject({ dialog: 'export', kind: 'html' });
     const html = await readFile(target, 'utf8');
@@ -120,10 +121,10 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
   it('cancels a long assessment as it cancels a run, and offers to compute it again', async () => {
     const { page } = app;
     await goToStep(page, 'estimator');
-    await page.getByLabel('Bootstrap resamples').fill('100000');
+    await steadyFill(page.getByLabel('Bootstrap resamples'), '100000');
     await page.getByLabel('Bootstrap resamples').blur();
     await goToStep(page, 'run');
-    await page.getByTestId('run-evaluation').click();
+    await steadyClick(page.getByTestId('run-evaluation'));
     await page.getByTestId('run-finished').waitFor({ timeout: 90_000 });
     await goToStep(page, 'findings');
     await page.getByTestId('assessment-progress').waitFor({ timeout: 30_000 });
@@ -131,14 +132,14 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     await page.getByTestId('plot-surface').waitFor({ timeout: 30_000 });
     await expect.poll(() => page.getByTestId('assessment-progress').isVisible(), POLL).toBe(true);
     await app.screenshot('assessment-5-running');
-    await page.getByTestId('cancel-assessment').click();
+    await steadyClick(page.getByTestId('cancel-assessment'));
     await page.getByTestId('assessment-cancelled').waitFor({ timeout: 10_000 });
     await expect.poll(() => page.getByTestId('compute-assessment').isEnabled(), POLL).toBe(true);
     // The evaluation itself stays: its values are still shown, without intervals.
     await expect.poll(() => page.getByTestId('policy-value-0').getAttribute('data-value'), POLL).toBe(String(values[0]));
     await expect.poll(() => page.getByTestId('policy-interval-0').count(), POLL).toBe(0);
     // The evaluation worker kept its fits: the slice is still redrawn from them.
-    await page.getByTestId('slice-candidate').selectOption('1');
+    await steadySelect(page.getByTestId('slice-candidate'), '1');
     await page.getByRole('img', { name: 'Action values of Trim error' }).waitFor({ timeout: 30_000 });
     await expect.poll(() => page.getByText('The slice could not be drawn').count(), POLL).toBe(0);
   });

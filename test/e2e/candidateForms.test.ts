@@ -3,8 +3,10 @@
  * a P trim, rate-limited PI): the editor shows each form's fields in words with no field paths;
  * screenshots in both themes at 1280 × 800 and 1920 × 1080 go to test-artifacts/screens/. Then a
  * new PI candidate is written through the editor (form switch undone and redone from the keyboard,
- * a hint where the project lacks the error integral), run, and its J read in Findings. And a
- * script-written 0.1 + 0.2 in a candidate's field shows as 0.3, the file left as written.
+ * a hint where the project lacks the error integral), run, and its J read in Findings. The e2e
+ * harness's fallbacks (harness/steadyActions.ts) change a field, a select and a checkbox so React takes
+ * each. And, in the same launch, a script-written 0.1 + 0.2 in a candidate's field shows as 0.3, the
+ * file left as written.
  */
 import { copyFile, readFile, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
@@ -15,11 +17,12 @@ import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
 import { goToStep, setTheme } from '../renderer/e2e/appSteps';
+import { checkAsClicked, fillAsTyped, selectAsChosen, stalledActions, steadyCheck, steadyClick, steadyFill, steadySelect } from './harness/steadyActions';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
 
 async function fill(field: Locator, value: string): Promise<void> {
-  await field.fill(value);
+  await steadyFill(field, value);
   await field.blur();
 }
 
@@ -85,11 +88,11 @@ describe('candidate forms in the editor (e2e)', () => {
     await page.keyboard.press('Control+z');
     await expect.poll(() => page.getByTestId('retune-map-problems').count(), POLL).toBe(0);
     // Keep the run short: the sample's PI (its retune map names it) and the new candidate.
-    for (let k = 0; k < 2; k++) await page.getByTestId('remove-candidate-1').click();
-    await page.getByTestId('add-candidate').click();
+    for (let k = 0; k < 2; k++) await steadyClick(page.getByTestId('remove-candidate-1'));
+    await steadyClick(page.getByTestId('add-candidate'));
     const card = page.getByTestId('candidate-1');
     await fill(card.getByLabel('Name', { exact: true }), 'PI from the editor');
-    await page.getByTestId('candidate-form-1').selectOption('pi');
+    await steadySelect(page.getByTestId('candidate-form-1'), 'pi');
     await expect.poll(() => page.getByTestId('candidate-form-meaning-1').innerText(), POLL).toContain('Kc/Ti');
     // The form switch is one undo step, and the name is kept across it.
     await page.getByTestId('step-candidates').focus();
@@ -100,24 +103,24 @@ describe('candidate forms in the editor (e2e)', () => {
     expect(await card.getByLabel('Name', { exact: true }).inputValue()).toBe('PI from the editor');
     await fill(card.getByLabel('Bias (%)'), '82.7');
     await fill(card.getByLabel('Proportional gain Kc (% per °C)'), '20');
-    await card.getByLabel('Integral action').selectOption('time');
+    await steadySelect(card.getByLabel('Integral action'), 'time');
     await fill(card.getByLabel('Integral time Ti (s)'), '2400');
     expect(await card.getByLabel('Error-integral state').inputValue()).toBe('zone_error_integral');
     // An error integral of another measurement: the check's message stands beside the field, and a hint names what is missing.
-    await card.getByLabel('Measurement').selectOption('outdoor_temp_c');
+    await steadySelect(card.getByLabel('Measurement'), 'outdoor_temp_c');
     await card.getByTestId('integral-state-hint').waitFor();
     await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBeGreaterThan(0);
     expect(await card.innerText()).not.toMatch(/form\.loops|candidates\.\d/);
     await card.screenshot({ path: join(SCREENS, 'candidate-forms-problem.png'), style: UNSTICK });
-    await card.getByLabel('Measurement').selectOption('zone_temp_c');
+    await steadySelect(card.getByLabel('Measurement'), 'zone_temp_c');
     await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
     await fill(card.getByLabel('Dither, standard deviation (%)'), '3');
-    await card.getByLabel('The actuator has limits').check();
+    await steadyCheck(card.getByLabel('The actuator has limits'));
     await fill(card.getByLabel('Lowest heating_valve_pct (%)'), '0');
     await fill(card.getByLabel('Highest heating_valve_pct (%)'), '100');
     await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
     // A rate limit: the previous-action state is filled in from the project's derived states.
-    await card.getByLabel('The output may move only so far per sample').check();
+    await steadyCheck(card.getByLabel('The output may move only so far per sample'));
     await fill(card.getByLabel('Largest step per sample (%)'), '4');
     expect(await card.getByLabel('Previous-action state').inputValue()).toBe('valve_prev_pct');
     await expect.poll(() => card.locator('[role="alert"]').count(), POLL).toBe(0);
@@ -127,7 +130,7 @@ describe('candidate forms in the editor (e2e)', () => {
   it('runs it and shows its J in Findings', async () => {
     const { page } = app;
     await goToStep(page, 'run');
-    await page.getByTestId('run-evaluation').click();
+    await steadyClick(page.getByTestId('run-evaluation'));
     await page.getByTestId('run-finished').waitFor({ timeout: 180_000 });
     await goToStep(page, 'findings');
     await page.getByTestId('value-table').waitFor();
@@ -138,19 +141,49 @@ describe('candidate forms in the editor (e2e)', () => {
     await app.screenshot('candidate-forms-findings');
   }, 240_000);
 
-  it('logged no console errors', () => {
-    expect(app.consoleErrors).toEqual([]);
-  });
-});
-
-/** Moved from the polish21 capture, whose other checks are in screenReview.test.ts. */
-describe('a script-written number in a candidate field (e2e)', () => {
-  let app: LaunchedApp;
-  beforeAll(async () => {
-    app = await launchApp({ viewport: { width: 1280, height: 800 } });
-  });
-  afterAll(async () => {
-    await app?.close();
+  it('the harness’s fallbacks change a field, a select and a checkbox as a person would (React reads each)', async () => {
+    const { page } = app;
+    await goToStep(page, 'candidates');
+    const card = page.getByTestId('candidate-1'), before = stalledActions.length;
+    // A name typed by its events: the retune map loses the candidate it names, so React took the value; undo mends it.
+    await fillAsTyped(page.getByTestId('candidate-0').getByLabel('Name', { exact: true }), 'PI by its events');
+    await page.getByTestId('candidate-0').getByLabel('Name', { exact: true }).blur();
+    await expect.poll(() => page.getByTestId('retune-map-problems').innerText(), POLL).toMatch(/no candidate is named "PI \(25 %\/K, 30 min\)"/);
+    await page.getByTestId('step-candidates').focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('retune-map-problems').count(), POLL).toBe(0);
+    // An option chosen by its events: the form's meaning follows it; undo goes back to PI.
+    await selectAsChosen(page.getByTestId('candidate-form-1'), 'affine');
+    await expect.poll(() => page.getByTestId('candidate-form-1').inputValue(), POLL).toBe('affine');
+    await expect.poll(() => page.getByTestId('candidate-form-meaning-1').innerText(), POLL).not.toContain('Kc/Ti');
+    await page.getByTestId('step-candidates').focus();
+    await page.keyboard.press('Control+z');
+    await expect.poll(() => page.getByTestId('candidate-form-meaning-1').innerText(), POLL).toContain('Kc/Ti');
+    // A box ticked by its click: the limits' fields go when it is cleared and come back when it is ticked.
+    const limits = card.getByLabel('The actuator has limits');
+    await steadyClick(limits); // cleared (the setup for the check below)
+    await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(0);
+    await checkAsClicked(limits);
+    await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(1);
+    await expect(selectAsChosen(page.getByTestId('candidate-form-1'), 'no-such-form')).rejects.toThrow(/has no option "no-such-form"/);
+    expect(stalledActions.length).toBe(before); // the fallbacks called directly are not counted; only steady* count them
+    // The whole path: a sheet over the page takes every pointer event, so Playwright's click waits out its
+    // wait (as on stalled frames); the box is then ticked by its click event, and the fallback counted.
+    await steadyClick(limits);
+    await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(0);
+    await page.evaluate(() => {
+      const sheet = Object.assign(document.createElement('div'), { id: 'pointer-sheet' });
+      sheet.style.cssText = 'position: fixed; inset: 0; z-index: 2147483647;';
+      document.body.append(sheet);
+    });
+    try {
+      await steadyCheck(limits, 1_500);
+    } finally {
+      await page.evaluate(() => document.getElementById('pointer-sheet')?.remove());
+    }
+    await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(1);
+    expect(stalledActions.slice(before)).toEqual([expect.stringMatching(/^check .*The actuator has limits/)]);
+    stalledActions.splice(before); // counted here on purpose: not a stall of the machine
   });
 
   it('shows a script-written 0.1 + 0.2 in a candidate field as 0.3, and leaves the file as written', async () => {
@@ -161,13 +194,24 @@ describe('a script-written number in a candidate field (e2e)', () => {
     await copyFile(join(folder, 'tank-levels.csv'), join(harness.workFolder, 'tank-levels.csv'));
     await writeFile(projectPath, JSON.stringify(doc, null, 2));
     harness.dialogs.nextOpenProject = projectPath;
-    await page.getByTestId('open-project').click();
+    await steadyClick(page.getByTestId('open-project'));
+    // The candidates written above are unsaved: the app asks first, and they are let go (run alone, this test has none).
+    const question = page.getByRole('alertdialog'), opened = () => harness.documentState().name === doc.name;
+    await expect.poll(async () => opened() || (await question.isVisible()), { ...POLL, timeout: 60_000 }).toBe(true);
+    if (!opened()) await steadyClick(question.getByRole('button', { name: 'Don’t save' }));
+    await harness.waitForDocumentState((state) => state.name === doc.name && !state.dirty, 60_000);
     await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
     await goToStep(page, 'candidates');
-    const values = await page.locator('input').evaluateAll((inputs) => inputs.map((i) => (i as HTMLInputElement).value));
-    expect(values).toContain('0.3');
+    // The editor shows the opened project's candidates once React has committed them: the read is retried.
+    const inputValues = () => page.locator('input').evaluateAll((inputs) => inputs.map((i) => (i as HTMLInputElement).value));
+    await expect.poll(inputValues, POLL).toContain('0.3');
+    const values = await inputValues();
     expect(values.filter((v) => /0000000\d|9999999\d/.test(v))).toEqual([]);
     await page.locator('main').screenshot({ path: join(SCREENS, 'noisy-field.png'), style: UNSTICK }).catch(() => page.screenshot({ path: join(SCREENS, 'noisy-field.png'), style: UNSTICK }));
     expect(JSON.parse(await readFile(projectPath, 'utf8')).candidates[0].std[0]).toBe(0.1 + 0.2); // showing it wrote nothing back
   }, 300_000);
+
+  it('logged no console errors', () => {
+    expect(app.consoleErrors).toEqual([]);
+  });
 });

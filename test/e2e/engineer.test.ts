@@ -12,9 +12,9 @@ import { startMainThreadProbe, startTaskTrace, stopMainThreadProbe } from './har
 import { POLL } from './harness/poll';
 import { openFindingsSection } from './harness/findingsSections';
 import { launchApp, type LaunchedApp } from './harness/launch';
-import { stalledClicks, steadyClick } from './harness/steadyClick';
 import { chooseData, goToStep, mapTankColumns, TANK_CSV, setTheme } from '../renderer/e2e/appSteps';
 import { writeTankProject } from '../renderer/e2e/projectFiles';
+import { stalledActions, steadyClick, steadyFill } from './harness/steadyActions';
 
 const ENCODED = resolve(__dirname, '../fixtures/encodings');
 
@@ -37,12 +37,12 @@ describe('the app as a control engineer meets it (e2e)', () => {
     await copyFile(TANK_CSV, data);
     await writeTankProject({ projectPath, dataPath: data, fingerprint: true });
     harness.dialogs.nextOpenProject = projectPath;
-    await page.getByTestId('open-project').click();
+    await steadyClick(page.getByTestId('open-project'));
     await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
     await goToStep(page, 'run');
     await page.evaluate(startMainThreadProbe);
     const trace = await startTaskTrace(page);
-    await page.getByTestId('run-evaluation').click();
+    await steadyClick(page.getByTestId('run-evaluation'));
     await page.getByTestId('run-finished').waitFor({ timeout: 90_000 });
     await goToStep(page, 'findings');
     // The evidence starts folded: open the two sections read here from the section index.
@@ -88,16 +88,16 @@ describe('the app as a control engineer meets it (e2e)', () => {
     const saved = JSON.parse(await readFile(projectPath, 'utf8'));
     expect(saved.results.fingerprint).toMatch(/^[0-9a-f]{64}$/);
     expect(saved.results.evaluation.policies[0].policyValue).toBe(Number(firstValue));
-    await page.getByTestId('new-project').click();
+    await steadyClick(page.getByTestId('new-project'));
     harness.dialogs.nextOpenProject = projectPath;
-    await page.getByTestId('open-project').click();
+    await steadyClick(page.getByTestId('open-project'));
     await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
     await goToStep(page, 'findings');
     await expect.poll(() => page.getByTestId('kept-results').innerText(), POLL).toContain('no rerun is needed');
     await expect.poll(() => page.getByTestId('policy-value-0').getAttribute('data-value'), POLL).toBe(firstValue);
     // A changed setting marks them out of date instead of showing them as current.
     await goToStep(page, 'estimator');
-    await page.getByLabel('Discount factor γ').fill('0.9');
+    await steadyFill(page.getByLabel('Discount factor γ'), '0.9');
     await page.getByLabel('Discount factor γ').blur();
     await goToStep(page, 'findings');
     await expect.poll(() => page.getByTestId('kept-results').innerText(), POLL).toContain('other data or settings');
@@ -109,11 +109,11 @@ describe('the app as a control engineer meets it (e2e)', () => {
     const moved = join(harness.workFolder, 'levels-moved.csv');
     await rename(join(harness.workFolder, 'levels.csv'), moved);
     harness.dialogs.nextOpenProject = projectPath;
-    await page.getByTestId('open-project').click();
-    await page.getByRole('button', { name: 'Don’t save' }).click(); // the edit of the discount above
+    await steadyClick(page.getByTestId('open-project'));
+    await steadyClick(page.getByRole('button', { name: 'Don’t save' })); // the edit of the discount above
     await page.getByTestId('relocate-data').waitFor({ timeout: 30_000 });
     harness.dialogs.nextOpenData = moved;
-    await page.getByTestId('relocate-data').click();
+    await steadyClick(page.getByTestId('relocate-data'));
     await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
     await expect.poll(() => page.getByTestId('next-candidates').isEnabled(), POLL).toBe(true);
     await expect.poll(() => page.getByTestId('step-plant-log').innerText(), POLL).toContain('transitions');
@@ -136,7 +136,7 @@ describe('the app as a control engineer meets it (e2e)', () => {
     await chooseData(app, TANK_CSV);
     await mapTankColumns(page);
     const name = page.getByLabel('Project name');
-    await name.fill('Redo check');
+    await steadyFill(name, 'Redo check');
     await name.blur();
     await page.getByTestId('step-plant-log').focus();
     await page.keyboard.press('Control+z');
@@ -177,7 +177,7 @@ describe('the app as a control engineer meets it (e2e)', () => {
       }
     }
     await page.setViewportSize({ width: 1280, height: 800 });
-    if (stalledClicks.length) console.log(`clicks dispatched after headless Chromium stopped producing frames: ${stalledClicks.join('; ')}`);
+    if (stalledActions.length) console.log(`actions finished by their DOM events after headless Chromium stopped producing frames: ${stalledActions.join('; ')}`);
   });
 
   it('logged no console errors', () => {

@@ -18,6 +18,7 @@ import { POLL } from './harness/poll';
 import { openSample } from './harness/openSample';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { goToStep, setTheme } from '../renderer/e2e/appSteps';
+import { steadyClick } from './harness/steadyActions';
 
 const SIZES = [{ width: 1280, height: 800, maxHeight: 4800 }, { width: 1920, height: 1080, maxHeight: 3 * 1080 }];
 
@@ -75,10 +76,10 @@ describe('the Findings layout (e2e)', () => {
     const { page } = app;
     await openSample(app, 'heating-loop');
     await goToStep(page, 'run');
-    await page.getByTestId('run-evaluation').click();
+    await steadyClick(page.getByTestId('run-evaluation'));
     await page.getByTestId('run-finished').waitFor({ timeout: 180_000 });
     await goToStep(page, 'findings');
-    await page.getByTestId('compute-retune-map').click();
+    await steadyClick(page.getByTestId('compute-retune-map'));
     await page.getByTestId('retune-map-headline').waitFor({ timeout: 240_000 });
     await page.getByTestId('answer-rule').waitFor({ timeout: 240_000 });
     const first = await page.evaluate(() => (document.querySelector('[data-testid="findings-grid"]')?.firstElementChild as HTMLElement | null)?.dataset.section);
@@ -104,7 +105,7 @@ describe('the Findings layout (e2e)', () => {
 
   it('with every section open: no overlaps, figures inside their panels', async () => {
     const { page } = app;
-    await page.getByTestId('open-all-sections').click();
+    await steadyClick(page.getByTestId('open-all-sections'));
     await expect.poll(() => page.locator('[data-section][data-open="false"]').count(), POLL).toBe(0);
     for (const size of SIZES) {
       await page.setViewportSize(size);
@@ -112,7 +113,7 @@ describe('the Findings layout (e2e)', () => {
       await expect.poll(() => layoutFaults(page), POLL).toEqual([]);
       console.log(`Findings, every section open, ${size.width} × ${size.height}: scrollHeight ${await scrollHeight(page)} px`);
     }
-    await page.getByTestId('fold-all-sections').click();
+    await steadyClick(page.getByTestId('fold-all-sections'));
     await expect.poll(() => page.locator('[data-section][data-open="true"]').count(), POLL).toBe(0);
   });
 
@@ -122,7 +123,7 @@ describe('the Findings layout (e2e)', () => {
     const ids = await page.getByTestId('section-index').locator('li button').evaluateAll((bs) => bs.map((b) => b.getAttribute('data-testid')!.slice('index-'.length)));
     expect(ids).toEqual(['answer', 'values', 'retuneMap', 'comparison', 'crossChecks', 'coverage', 'sensitivity', 'surface', 'slice', 'convergence', 'report']);
     for (const id of ids) {
-      await page.getByTestId(`index-${id}`).click();
+      await steadyClick(page.getByTestId(`index-${id}`));
       const panel = page.locator(`[data-section="${id}"]`);
       await expect.poll(() => panel.getAttribute('data-open'), POLL).toBe('true');
       const heading = panel.locator('.fold-toggle');
@@ -138,13 +139,13 @@ describe('the Findings layout (e2e)', () => {
 
   it('remembers a fold for the project when the reader leaves Findings and comes back', async () => {
     const { page } = app;
-    await page.getByTestId('fold-retuneMap').click();
+    await steadyClick(page.getByTestId('fold-retuneMap'));
     await expect.poll(() => page.locator('[data-section="retuneMap"]').getAttribute('data-open'), POLL).toBe('false');
     await goToStep(page, 'candidates');
     await goToStep(page, 'findings');
     await expect.poll(() => page.locator('[data-section="retuneMap"]').getAttribute('data-open'), POLL).toBe('false');
     await expect.poll(() => page.locator('[data-section="coverage"]').getAttribute('data-open'), POLL).toBe('true'); // opened from the index above
-    await page.getByTestId('fold-retuneMap').click();
+    await steadyClick(page.getByTestId('fold-retuneMap'));
     await expect.poll(() => page.locator('[data-section="retuneMap"]').getAttribute('data-open'), POLL).toBe('true');
   });
 

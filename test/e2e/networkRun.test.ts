@@ -6,6 +6,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { addCandidate, chooseData, goToStep, mapTankColumns, runAndReadValues, TANK_CSV } from '../renderer/e2e/appSteps';
 import { POLL } from './harness/poll';
+import { steadyCheck, steadyFill } from './harness/steadyActions';
 
 let app: LaunchedApp;
 beforeAll(async () => { app = await launchApp(); });
@@ -19,12 +20,12 @@ describe('a network fit in the app', () => {
     await goToStep(page, 'candidates');
     await addCandidate(page, 0, { name: 'Tuned', offset: 189, gain: [-60, -90], std: 1.5 });
     await goToStep(page, 'estimator');
-    await page.getByLabel('Neural network').check();
+    await steadyCheck(page.getByLabel('Neural network'));
     // Tiny on purpose: the accuracy of network fits is tested in test/core/fqe/network*.test.ts.
-    await page.getByLabel('Hidden layers').fill('16, 16');
+    await steadyFill(page.getByLabel('Hidden layers'), '16, 16');
     for (const [label, value] of [['Most outer iterations', '3'], ['Gradient steps per outer iteration', '20'], ['Batch size', '256']] as const) {
       const field = page.getByLabel(label, { exact: true });
-      await field.fill(value);
+      await steadyFill(field, value);
       await field.blur();
     }
     const [value] = await runAndReadValues(page, 1);

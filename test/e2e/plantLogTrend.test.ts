@@ -18,6 +18,7 @@ import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
 import { setTheme } from '../renderer/e2e/appSteps';
+import { steadyClick, steadyFill, steadyPress, steadySelect } from './harness/steadyActions';
 
 
 const MONTHS = ['Jan', 'Feb', 'Mar', 'Apr', 'May', 'Jun', 'Jul', 'Aug', 'Sep', 'Oct', 'Nov', 'Dec'];
@@ -127,12 +128,12 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
   it('adds a window by its start and end: 60 rows counted, the run cut in two, the chart drawn again', async () => {
     const { page } = app;
     const form = page.getByTestId('add-window');
-    await form.getByLabel('From').fill('13.01.2025 08:00:00');
-    await form.getByLabel('To').fill('13.01.2025 08:59:00');
-    await form.getByLabel('Reason').fill('valve test');
+    await steadyFill(form.getByLabel('From'), '13.01.2025 08:00:00');
+    await steadyFill(form.getByLabel('To'), '13.01.2025 08:59:00');
+    await steadyFill(form.getByLabel('Reason'), 'valve test');
     await page.evaluate(startMainThreadProbe);
     const trace = await startTaskTrace(page);
-    await page.getByTestId('add-window-button').click();
+    await steadyClick(page.getByTestId('add-window-button'));
     await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe('60');
     await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe(String(runsBefore + 1));
     await expect.poll(() => page.getByTestId('row-counts').innerText(), POLL).toContain('60 in time windows left out');
@@ -150,11 +151,11 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
   it('says which window cannot be used and why, and removing it imports again', async () => {
     const { page } = app;
     const form = page.getByTestId('add-window');
-    await form.getByLabel('From').fill('13.01.2025 10:00');
-    await form.getByLabel('To').fill('13.01.2025 09:30');
-    await page.getByTestId('add-window-button').click();
+    await steadyFill(form.getByLabel('From'), '13.01.2025 10:00');
+    await steadyFill(form.getByLabel('To'), '13.01.2025 09:30');
+    await steadyClick(page.getByTestId('add-window-button'));
     await expect.poll(() => page.getByTestId('window-problems').innerText(), POLL).toContain('Window 2, To: window 2 ends (13 Jan 2025 09:30) before it starts (13 Jan 2025 10:00)');
-    await page.getByTestId('time-windows').getByRole('button', { name: 'Remove' }).nth(1).click();
+    await steadyClick(page.getByTestId('time-windows').getByRole('button', { name: 'Remove' }).nth(1));
     await expect.poll(() => page.getByTestId('window-problems').count(), POLL).toBe(0);
     await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe('60');
   });
@@ -193,8 +194,8 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 1 run for window 2`);
 
     // A dragged window gets its reason in the list (one undo step); two undos take the reason and then the window away.
-    await page.getByTestId('window-reason-1').fill('trial of a new valve');
-    await page.getByTestId('window-reason-1').press('Tab');
+    await steadyFill(page.getByTestId('window-reason-1'), 'trial of a new valve');
+    await steadyPress(page.getByTestId('window-reason-1'), 'Tab');
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain(`${rows.toLocaleString('en-US')} rows in 1 run for trial of a new valve`);
     await page.keyboard.press('Control+z');
     await expect.poll(() => page.getByTestId('window-reason-1').inputValue(), POLL).toBe('');
@@ -212,10 +213,10 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
 
   it('a stopped import says how to leave the bad rows out, and one click does it', async () => {
     const { page } = app;
-    await page.getByTestId('bad-rows').selectOption('stop');
+    await steadySelect(page.getByTestId('bad-rows'), 'stop');
     await expect.poll(() => page.getByTestId('import-errors').innerText(), POLL).toContain('To import without them');
     await expect.poll(() => page.getByTestId('import-errors').innerText(), POLL).toContain('“Rows that cannot be used” to “Leave them out and list them”');
-    await page.getByTestId('leave-out-bad-rows').click();
+    await steadyClick(page.getByTestId('leave-out-bad-rows'));
     await expect.poll(() => page.getByTestId('bad-rows').inputValue(), POLL).toBe('exclude');
     await expect.poll(() => page.getByTestId('import-summary').count(), POLL).toBe(1);
     await expect.poll(() => page.getByTestId('row-counts').innerText(), POLL).toContain('60 in time windows left out');
@@ -261,7 +262,7 @@ describe('the Plant log step on a clock that restarts in each run (e2e)', () => 
 
   it('says a window is run time where it is added, and a drag leaves out the same minutes of every run', async () => {
     const { page } = app;
-    await page.getByTestId('role-time_s').selectOption('timestamp');
+    await steadySelect(page.getByTestId('role-time_s'), 'timestamp');
     await expect.poll(() => page.getByTestId('every-run-note').innerText(), POLL).toContain('clock starts again in each run');
     await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('40');
     await dragTrend(page, 0, 600, false);

@@ -27,6 +27,7 @@ import { requireChromium } from '../support/chromiumPath';
 import { PLOT_KINDS, type PlotKind } from './plots-page/plotSpecs';
 import { presetLabel, presetPixels, SIZE_PRESETS } from '../../src/renderer/src/screens/findings/exportSizes';
 import type {} from './plots-page/main';
+import { steadyHover } from './harness/steadyActions';
 
 const here = dirname(fileURLToPath(import.meta.url));
 const screens = resolve(here, '../../test-artifacts/screens');
@@ -141,11 +142,11 @@ describe('plots on screen (e2e)', () => {
     await page.locator('#slice-bounded-light').screenshot({ path: join(screens, 'plots-slice-bounded-light.png') });
     // A hover tooltip over a never-visited cell, and one on the slice.
     const surface = page.locator('#surface-light canvas'), box = (await surface.boundingBox())!;
-    await surface.hover({ position: { x: box.width * 0.8, y: box.height * 0.3 } });
+    await steadyHover(surface, { x: box.width * 0.8, y: box.height * 0.3 });
     await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('surface', 'light')), POLL).toBe(1);
     await page.locator('#surface-light').screenshot({ path: join(screens, 'plots-surface-light-tooltip.png') });
     const slice = page.locator('#slice-light canvas'), sliceBox = (await slice.boundingBox())!;
-    await slice.hover({ position: { x: sliceBox.width * 0.45, y: sliceBox.height * 0.5 } });
+    await steadyHover(slice, { x: sliceBox.width * 0.45, y: sliceBox.height * 0.5 });
     await expect.poll(() => page.evaluate(() => window.plotsPage.tooltipActive('slice', 'light')), POLL).toBeGreaterThan(0);
     await page.locator('#slice-light').screenshot({ path: join(screens, 'plots-slice-light-tooltip.png') });
     await page.mouse.move(0, 0);

@@ -21,6 +21,7 @@ import { decodedPngContent, goToStep, pngSize, setTheme as switchTheme } from '.
 import { layoutFaults, selectRoom, svgLayoutIn } from './harness/svgLayout';
 import { UNSTICK } from './harness/unstick';
 import { presetPixels, SIZE_PRESETS } from '../../src/renderer/src/screens/findings/exportSizes';
+import { steadyClick, steadyFill, steadySelect } from './harness/steadyActions';
 
 const SCREENS = resolve(__dirname, '../../test-artifacts/screens');
 
@@ -47,19 +48,19 @@ describe('the retune map in the app (e2e)', () => {
     const { page } = app;
     projectPath = await openSample(app, 'heating-loop');
     await goToStep(page, 'run');
-    await page.getByTestId('run-evaluation').click();
+    await steadyClick(page.getByTestId('run-evaluation'));
     await page.getByTestId('run-finished').waitFor({ timeout: 180_000 });
     await goToStep(page, 'findings');
     await openAllFindings(page); // the convergence panel's export is used below; the evidence starts folded
     const panel = page.getByTestId('retune-map');
     await panel.waitFor({ timeout: 30_000 });
-    await page.getByTestId('compute-retune-map').click();
+    await steadyClick(page.getByTestId('compute-retune-map'));
     await page.getByTestId('retune-map-progress').waitFor({ timeout: 30_000 });
     await expect.poll(() => page.getByTestId('retune-map-progress').innerText(), { ...POLL, timeout: 120_000 }).toMatch(/Point \d+ of 100/);
-    await page.getByTestId('cancel-retune-map').click();
+    await steadyClick(page.getByTestId('cancel-retune-map'));
     await page.getByTestId('retune-map-cancelled').waitFor({ timeout: 60_000 });
     // The run was kept: the map computes again without a new run.
-    await page.getByTestId('compute-retune-map').click();
+    await steadyClick(page.getByTestId('compute-retune-map'));
     await page.getByTestId('retune-map-headline').waitFor({ timeout: 240_000 });
     const headline = await page.getByTestId('retune-map-headline').innerText();
     expect(headline).toMatch(/^Best supported point: proportional gain .+ = [\d.,]+, integral time .+ = [\d.,]+, J [\d.]+ \[[\d.−]+, [\d.]+\]\. Present controller: J [\d.]+\.$/);
@@ -77,22 +78,22 @@ describe('the retune map in the app (e2e)', () => {
     const { page, harness } = app;
     const target = join(harness.workFolder, 'retune-map.png');
     harness.dialogs.nextExport = target;
-    await page.getByTestId('export-retuneMap').locator('summary').click();
-    await page.getByTestId('export-png-retuneMap').click();
+    await steadyClick(page.getByTestId('export-retuneMap').locator('summary'));
+    await steadyClick(page.getByTestId('export-png-retuneMap'));
     await page.getByTestId('export-status-retuneMap').getByText('Saved').waitFor({ timeout: 30_000 });
     const bytes = new Uint8Array(await readFile(target));
     expect(pngSize(bytes)).toEqual({ width: 1950, height: 1200 });
     expect((await decodedPngContent(page, bytes)).colours).toBeGreaterThan(20);
-    await page.getByTestId('export-retuneMap').locator('summary').click();
+    await steadyClick(page.getByTestId('export-retuneMap').locator('summary'));
   });
 
   it('exports the map as SVG at every size offered, no text overlapping or clipped; the size list is not clipped', async () => {
     const { page, harness } = app;
     const details = page.getByTestId('export-retuneMap'), select = page.getByTestId('export-size-retuneMap');
-    await details.locator('summary').click();
+    await steadyClick(details.locator('summary'));
     // The size list in the full-width map panel and in a half-width one (the convergence panel's) at both window sizes.
     const narrow = page.getByTestId('export-convergence');
-    await narrow.locator('summary').click();
+    await steadyClick(narrow.locator('summary'));
     for (const size of SIZES) {
       await page.setViewportSize(size);
       for (const list of [select, page.getByTestId('export-size-convergence')]) {
@@ -100,22 +101,22 @@ describe('the retune map in the app (e2e)', () => {
         expect(room.longest, `${room.longestText} at ${size.width} px`).toBeLessThanOrEqual(room.room);
       }
     }
-    await narrow.locator('summary').click();
+    await steadyClick(narrow.locator('summary'));
     await page.setViewportSize(SIZES[0]);
     for (const preset of SIZE_PRESETS) {
       const px = presetPixels(preset), target = join(harness.workFolder, `retune-map-${preset.id}.svg`);
-      await select.selectOption(preset.id);
+      await steadySelect(select, preset.id);
       await expect.poll(() => page.getByTestId('export-size-text-retuneMap').innerText(), POLL).toContain(`${px.widthPx} × ${px.heightPx} px at ${px.dpi} dpi: prints at`);
       harness.dialogs.nextExport = target;
-      await page.getByTestId('export-svg-retuneMap').click();
+      await steadyClick(page.getByTestId('export-svg-retuneMap'));
       await expect.poll(() => page.getByTestId('export-status-retuneMap').innerText(), { ...POLL, timeout: 30_000 }).toContain(target);
       const laid = await svgLayoutIn(page, await readFile(target, 'utf8'), px.widthPx, px.heightPx);
       const words = laid.texts.map((t) => t.text).join(' ');
       for (const expected of ['proportional gain', 'integral time', 'supported by the logs', 'Advisory offline estimate']) expect(words, preset.id).toContain(expected);
       expect(layoutFaults(laid), preset.id).toEqual([]);
     }
-    await select.selectOption('report');
-    await details.locator('summary').click();
+    await steadySelect(select, 'report');
+    await steadyClick(details.locator('summary'));
   });
 
   it('writes the report with the map drawn above its table, as HTML and as PDF; Ctrl+P prints it', async () => {
@@ -123,7 +124,7 @@ describe('the retune map in the app (e2e)', () => {
     await expect.poll(() => page.getByTestId('write-report').isEnabled(), { ...POLL, timeout: 240_000 }).toBe(true);
     const htmlPath = join(harness.workFolder, 'heating-report.html'), pdfPath = join(harness.workFolder, 'heating-report.pdf');
     harness.dialogs.nextExport = htmlPath;
-    await page.getByTestId('write-report').click();
+    await steadyClick(page.getByTestId('write-report'));
     await expect.poll(() => page.getByTestId('report-status').innerText(), { ...POLL, timeout: 60_000 }).toContain(htmlPath);
     const html = await readFile(htmlPath, 'utf8');
     expect(html).toMatch(/<figure id="fig-retune-map-0"[^>]*><svg[^>]*aria-label="Heat map of J/);
@@ -140,7 +141,7 @@ describe('the retune map in the app (e2e)', () => {
     }
     await reader.close();
     harness.dialogs.nextExport = pdfPath;
-    await page.getByTestId('report-pdf').click();
+    await steadyClick(page.getByTestId('report-pdf'));
     await expect.poll(() => page.getByTestId('report-status').innerText(), { ...POLL, timeout: 120_000 }).toContain(pdfPath);
     expect((await readFile(pdfPath)).subarray(0, 5).toString('latin1')).toBe('%PDF-');
     await page.keyboard.press('Control+p');
@@ -164,13 +165,13 @@ describe('the retune map in the app (e2e)', () => {
         await expect.poll(() => drawnPixels(page, figure).then((p) => p.drawnShare), POLL).toBeGreaterThan(0.3);
         await panel.screenshot({ path: join(SCREENS, `retune-map-${size.width}-${theme}.png`), style: UNSTICK });
         const exportPanel = page.getByTestId('export-retuneMap');
-        await exportPanel.locator('summary').click();
+        await steadyClick(exportPanel.locator('summary'));
         await exportPanel.screenshot({ path: join(SCREENS, `export-panel-${size.width}-${theme}.png`), style: UNSTICK });
-        await exportPanel.locator('summary').click();
+        await steadyClick(exportPanel.locator('summary'));
         if (size.width === 1280 && theme === 'light') {
-          await page.getByTestId('retune-map-table-details').locator('summary').click();
+          await steadyClick(page.getByTestId('retune-map-table-details').locator('summary'));
           await page.getByTestId('retune-map-table-details').screenshot({ path: join(SCREENS, 'retune-map-table.png'), style: UNSTICK });
-          await page.getByTestId('retune-map-table-details').locator('summary').click();
+          await steadyClick(page.getByTestId('retune-map-table-details').locator('summary'));
         }
         await page.screenshot({ path: join(SCREENS, `retune-map-${size.width}-${theme}-window.png`) });
       }
@@ -186,9 +187,9 @@ describe('the retune map in the app (e2e)', () => {
     const saved = JSON.parse(await readFile(projectPath, 'utf8'));
     expect(saved.results.retuneMaps).toHaveLength(1);
     expect(saved.results.retuneMaps[0].points).toHaveLength(100);
-    await page.getByTestId('new-project').click();
+    await steadyClick(page.getByTestId('new-project'));
     harness.dialogs.nextOpenProject = projectPath;
-    await page.getByTestId('open-project').click();
+    await steadyClick(page.getByTestId('open-project'));
     await page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
     await goToStep(page, 'findings');
     await expect.poll(() => page.getByTestId('kept-retune-map').innerText(), POLL).toContain('needs no recomputing');
@@ -198,7 +199,7 @@ describe('the retune map in the app (e2e)', () => {
     await expect.poll(() => page.getByTestId('retune-map-table').locator('tbody tr').count(), POLL).toBe(10);
     await goToStep(page, 'candidates');
     const dither = page.getByLabel(/^Dither, standard deviation/).first();
-    await dither.fill(String(Number(await dither.inputValue()) * 2));
+    await steadyFill(dither, String(Number(await dither.inputValue()) * 2));
     await dither.blur();
     await goToStep(page, 'findings');
     await expect.poll(() => page.getByTestId('kept-retune-map').innerText(), POLL).toContain('Out of date');

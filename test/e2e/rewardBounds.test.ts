@@ -17,6 +17,7 @@ import { launchApp, type LaunchedApp } from './harness/launch';
 import { runToAssessedFindings } from './harness/findingsSections';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
 import { setTheme } from '../renderer/e2e/appSteps';
+import { steadyFill, steadyPress } from './harness/steadyActions';
 
 describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
   let app: LaunchedApp;
@@ -47,8 +48,8 @@ describe('the reward\'s guaranteed bounds on the Plant log step (e2e)', () => {
   it('names the rows past a floor raised to 1 as rows that cannot be used', async () => {
     const { page } = app;
     const floor = page.getByLabel('Never below (by its definition)');
-    await floor.fill('1');
-    await floor.press('Tab');
+    await steadyFill(floor, '1');
+    await steadyPress(floor, 'Tab');
     await expect.poll(() => page.locator('body').innerText(), { ...POLL, timeout: 60_000 }).toMatch(/line \d+, column cost[^\n]*the cost is [\d.]+ here, below 1, which the project declares it never is \(columns\.reward\.atLeast\)/);
   });
 

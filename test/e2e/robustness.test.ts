@@ -12,22 +12,23 @@ import { startMainThreadProbe, stopMainThreadProbe } from './harness/mainThreadP
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { chooseData, goToStep, TANK_CSV } from '../renderer/e2e/appSteps';
 import { writeTankProject } from '../renderer/e2e/projectFiles';
+import { steadyClick, steadySelect } from './harness/steadyActions';
 
 const BAD_CSV = resolve(__dirname, '../fixtures/bad/not-a-number.csv');
 
 /** New project; answers "Don’t save" when the app asks about unsaved changes. */
 async function startNewProject(app: LaunchedApp): Promise<void> {
   const { page } = app;
-  await page.getByTestId('new-project').click();
+  await steadyClick(page.getByTestId('new-project'));
   const dontSave = page.getByRole('button', { name: 'Don’t save' });
   await page.getByTestId('welcome').or(dontSave).waitFor();
-  if (await dontSave.isVisible()) await dontSave.click();
+  if (await dontSave.isVisible()) await steadyClick(dontSave);
   await page.getByTestId('welcome').waitFor();
 }
 
 async function openProject(app: LaunchedApp, path: string): Promise<void> {
   app.harness.dialogs.nextOpenProject = path;
-  await app.page.getByTestId('open-project').click();
+  await steadyClick(app.page.getByTestId('open-project'));
 }
 
 describe('the app under trouble (e2e)', () => {
@@ -44,16 +45,16 @@ describe('the app under trouble (e2e)', () => {
     const csv = join(harness.workFolder, 'not-a-number.csv');
     await copyFile(BAD_CSV, csv);
     await chooseData(app, csv);
-    await page.getByTestId('role-level_m').selectOption('state');
-    await page.getByTestId('role-valve_pct').selectOption('action');
-    await page.getByTestId('role-cost').selectOption('cost');
+    await steadySelect(page.getByTestId('role-level_m'), 'state');
+    await steadySelect(page.getByTestId('role-valve_pct'), 'action');
+    await steadySelect(page.getByTestId('role-cost'), 'cost');
     const errors = page.getByTestId('import-errors');
     await errors.waitFor({ timeout: 30_000 });
     // The importer's own wording (test/data/badFiles.test.ts): line 17 holds "1,2.3" in column level_m.
     await expect.poll(() => errors.innerText(), POLL).toContain('not-a-number.csv, line 17, column level_m');
     await expect.poll(() => errors.innerText(), POLL).toContain('"1,2.3" is not a number');
     await app.screenshot('robustness-bad-csv');
-    await page.getByTestId('bad-rows').selectOption('exclude');
+    await steadySelect(page.getByTestId('bad-rows'), 'exclude');
     const excluded = page.getByTestId('excluded-rows');
     await excluded.waitFor({ timeout: 30_000 });
     await expect.poll(() => excluded.innerText(), POLL).toContain('17');
@@ -71,7 +72,7 @@ describe('the app under trouble (e2e)', () => {
     await page.getByTestId('dropzone').dispatchEvent('drop', { dataTransfer: transfer });
     await page.getByTestId('role-table').waitFor();
     await expect.poll(() => page.getByTestId('data-file').innerText(), POLL).toBe('dropped-levels.csv');
-    await page.getByTestId('save-project').click();
+    await steadyClick(page.getByTestId('save-project'));
     await expect.poll(() => page.getByTestId('notice').innerText(), POLL).toContain('dropped onto the window');
   });
 
@@ -91,7 +92,7 @@ describe('the app under trouble (e2e)', () => {
     await page.getByTestId('candidate-chart').waitFor();
     await goToStep(page, 'run');
     report('switching to Candidates and back, no run', await page.evaluate(stopMainThreadProbe));
-    await page.getByTestId('run-evaluation').click();
+    await steadyClick(page.getByTestId('run-evaluation'));
     await page.getByTestId('progress-iteration').getByText(/reading the data \(\d+\s%\)/).waitFor({ timeout: 30_000 });
     // The main thread while the worker fits: one second left alone, then while the user switches steps.
     await page.evaluate(startMainThreadProbe);
@@ -105,15 +106,15 @@ describe('the app under trouble (e2e)', () => {
     report('switching to Candidates and back during a run', await page.evaluate(stopMainThreadProbe));
     await expect.poll(() => page.getByTestId('progress-iteration').innerText(), POLL).toMatch(/reading the data/); // still running
     await app.screenshot('robustness-run-progress');
-    await page.getByTestId('cancel-evaluation').click();
+    await steadyClick(page.getByTestId('cancel-evaluation'));
     await page.getByTestId('run-cancelled').waitFor({ timeout: 10_000 });
     await expect.poll(() => page.getByTestId('run-progress').count(), POLL).toBe(0);
 
     // The fresh worker has the data again: a short run finishes.
     await goToStep(page, 'estimator');
-    await page.getByLabel('Features', { exact: true }).selectOption('polynomial');
+    await steadySelect(page.getByLabel('Features', { exact: true }), 'polynomial');
     await goToStep(page, 'run');
-    await page.getByTestId('run-evaluation').click();
+    await steadyClick(page.getByTestId('run-evaluation'));
     await page.getByTestId('run-finished').waitFor({ timeout: 90_000 });
   });
 
@@ -133,7 +134,7 @@ describe('the app under trouble (e2e)', () => {
     await expect.poll(() => page.getByTestId('step-plant-log').innerText(), POLL).toContain('could not be read');
     await app.screenshot('robustness-data-moved');
     harness.dialogs.nextOpenData = moved;
-    await page.getByTestId('relocate-data').click();
+    await steadyClick(page.getByTestId('relocate-data'));
     await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
     await expect.poll(() => page.getByTestId('import-warnings').count(), POLL).toBe(0); // the same bytes: no "changed" warning
   });
@@ -165,7 +166,7 @@ describe('the app under trouble (e2e)', () => {
     // The open project is still the previous one: Save writes that one, and nothing touches future.spcritic.
     const discards = () => harness.apiCalls.filter((c) => c.method === 'discardRecovery').length;
     const before = discards();
-    await page.getByTestId('save-project').click();
+    await steadyClick(page.getByTestId('save-project'));
     await expect.poll(discards, POLL).toBeGreaterThan(before); // the save has finished
     await expect(readFile(projectPath, 'utf8')).resolves.toBe(text);
   });
@@ -180,7 +181,7 @@ describe('the app under trouble (e2e)', () => {
     try {
       await next.page.getByRole('alertdialog').getByText('did not close cleanly').waitFor({ timeout: 30_000 });
       await next.screenshot('robustness-recovery-offer');
-      await next.page.getByRole('button', { name: 'Restore it' }).click();
+      await steadyClick(next.page.getByRole('button', { name: 'Restore it' }));
       await next.harness.waitForDocumentState((st) => st.name === 'Recovered work' && st.dirty);
       await expect.poll(() => next.page.getByTestId('notice').innerText(), POLL).toContain('Choose the data file again');
       expect(next.consoleErrors).toEqual([]);

@@ -25,6 +25,7 @@ import { shootSection } from './harness/sectionShot';
 import { goToStep, setTheme } from '../renderer/e2e/appSteps';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
 import { VALUES_CHART_TITLE } from '../../src/figures/parts/plotTheme';
+import { steadyCheck, steadyClick, steadyFill } from './harness/steadyActions';
 
 const SHOTS = process.env.SCREEN_REVIEW_DIR ?? resolve(__dirname, '../../test-artifacts/screen-review');
 const SIZES = [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }];
@@ -61,12 +62,12 @@ interface Case { id: string; open: (app: LaunchedApp) => Promise<string>; retune
 async function openTankNetwork(app: LaunchedApp): Promise<string> {
   const path = await openSample(app, 'tank-levels'), { page } = app;
   await goToStep(page, 'estimator');
-  await page.getByLabel('Neural network').check();
-  await page.getByLabel('Hidden layers').fill('8');
+  await steadyCheck(page.getByLabel('Neural network'));
+  await steadyFill(page.getByLabel('Hidden layers'), '8');
   await page.getByLabel('Hidden layers').blur();
   for (const [label, value] of [['Most outer iterations', '15'], ['Gradient steps per outer iteration', '25'], ['Batch size', '256']] as const) {
     const field = page.getByLabel(label, { exact: true });
-    await field.fill(value);
+    await steadyFill(field, value);
     await field.blur();
   }
   return path;
@@ -81,7 +82,7 @@ const CASES: Case[] = [
     async open(app) {
       const path = await writeTwoValveBlendProject(app.harness.workFolder);
       app.harness.dialogs.nextOpenProject = path;
-      await app.page.getByTestId('open-project').click();
+      await steadyClick(app.page.getByTestId('open-project'));
       await app.page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
       return path;
     },
@@ -103,11 +104,11 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
     const { page } = app;
     await c.open(app);
     await goToStep(page, 'run');
-    await page.getByTestId('run-evaluation').click();
+    await steadyClick(page.getByTestId('run-evaluation'));
     await page.getByTestId('run-finished').waitFor({ timeout: 240_000 });
     await goToStep(page, 'findings');
     if (c.retuneMap) {
-      await page.getByTestId('compute-retune-map').click();
+      await steadyClick(page.getByTestId('compute-retune-map'));
       await page.getByTestId('retune-map-headline').waitFor({ timeout: 300_000 });
     }
     await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });
@@ -156,7 +157,7 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
           }
           for (const f of await clippedText(page)) faults.push(`${step} ${size.width} ${theme}: ${f}`);
         }
-        await page.getByTestId('open-help').click();
+        await steadyClick(page.getByTestId('open-help'));
         await page.getByTestId('glossary').waitFor();
         // The help is a panel over the window that scrolls on its own: the window, then the panel page by page.
         await page.evaluate(() => scrollTo(0, 0));
@@ -166,7 +167,7 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
           await panel.evaluate((p, k) => { p.scrollTop = k * p.clientHeight; }, i);
           await page.screenshot({ path: join(SHOTS, `${c.id}-${size.width}-${theme}-help-${i + 1}.png`) });
         }
-        await page.getByTestId('close-help').click();
+        await steadyClick(page.getByTestId('close-help'));
       }
     }
     await page.setViewportSize(SIZES[0]);
@@ -239,27 +240,27 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
       const panel = page.getByTestId(`export-${kind}`);
       console.log(`${c.id}: ${await panel.count()} export panel(s) for ${kind}`);
       if ((await panel.count()) === 0) continue;
-      await panel.first().locator('summary').click();
+      await steadyClick(panel.first().locator('summary'));
       for (const format of ['png', 'svg', 'csv'] as const) {
         const button = page.getByTestId(`export-${format}-${kind}`).first();
         if ((await button.count()) === 0) continue;
         const target = join(SHOTS, `${c.id}-export-${kind}.${format}`);
         harness.dialogs.nextExport = target;
-        await button.click();
+        await steadyClick(button);
         const status = panel.first().getByTestId(`export-status-${kind}`);
         await expect.poll(() => status.innerText().catch(() => 'Exporting'), { ...POLL, timeout: 60_000 }).not.toMatch(/^Exporting/);
         const said = await status.innerText();
         if (said.startsWith('Saved')) written.push(target);
         else exportFaults.push(`${kind} ${format}: ${said}`);
       }
-      await panel.first().locator('summary').click();
+      await steadyClick(panel.first().locator('summary'));
     }
     for (const button of await page.locator('[data-testid^="csv-"]').all()) {
       if (!(await button.isVisible())) continue; // a table folded away (the retune map's) is saved where it is shown
       const id = (await button.getAttribute('data-testid'))!.slice(4).replace(/[^\w-]+/g, '-');
       const target = join(SHOTS, `${c.id}-table-${id}.csv`);
       harness.dialogs.nextExport = target;
-      await button.click();
+      await steadyClick(button);
       await expect.poll(() => readFile(target).then(() => true, () => false), POLL).toBe(true);
       written.push(target);
     }
@@ -271,7 +272,7 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
     }
     const report = join(SHOTS, `${c.id}-report.html`);
     harness.dialogs.nextExport = report;
-    await page.getByTestId('write-report').click();
+    await steadyClick(page.getByTestId('write-report'));
     await page.getByTestId('report-status').getByText('Saved').waitFor({ timeout: 60_000 });
     const html = await readFile(report, 'utf8');
     for (const size of SIZES) {

@@ -13,6 +13,7 @@ import { launchApp, type LaunchedApp } from './harness/launch';
 import {
   addCandidate, chooseData, decodedPngContent, goToStep, mapTankColumns, pngSize, runAndReadValues, setTheme, TANK_CSV,
 } from '../renderer/e2e/appSteps';
+import { steadyClick, steadyFill } from './harness/steadyActions';
 
 describe('a new user evaluates two candidates (e2e)', () => {
   let app: LaunchedApp;
@@ -39,7 +40,7 @@ describe('a new user evaluates two candidates (e2e)', () => {
     // The sample's simulator writes 40 runs of 500 rows (sample-projects/tank-levels/simulate.ts): 40 × 499 transitions.
     await expect.poll(() => page.getByTestId('transition-count').innerText(), POLL).toBe('19,960');
     await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('40');
-    await page.getByLabel('Project name').fill('Tank levels, e2e');
+    await steadyFill(page.getByLabel('Project name'), 'Tank levels, e2e');
     await app.screenshot('workflow-2-plant-log');
   });
 
@@ -94,8 +95,8 @@ describe('a new user evaluates two candidates (e2e)', () => {
     const { page, harness } = app;
     const target = join(harness.workFolder, 'surface.png');
     harness.dialogs.nextExport = target;
-    await page.getByTestId('export-surface').locator('summary').click();
-    await page.getByTestId('export-png-surface').click();
+    await steadyClick(page.getByTestId('export-surface').locator('summary'));
+    await steadyClick(page.getByTestId('export-png-surface'));
     await page.getByTestId('export-status-surface').getByText('Saved').waitFor({ timeout: 30_000 });
     const bytes = new Uint8Array(await readFile(target));
     // The default preset: 6.5 × 4 in at 300 dpi = 1950 × 1200 px.
@@ -115,7 +116,7 @@ describe('a new user evaluates two candidates (e2e)', () => {
     expect(saved.candidates.map((c: { name: string }) => c.name)).toEqual(['Tuned', 'Trim error']);
     expect(saved.data.sha256).toMatch(/^[0-9a-f]{64}$/);
 
-    await page.getByTestId('new-project').click();
+    await steadyClick(page.getByTestId('new-project'));
     // New shows the welcome, or first asks about unsaved changes when the document changed after the save.
     // This step once timed out on a loaded CI machine with no trace kept; the question is the one way New
     // withholds the welcome. The save and reopen are what this checks, so a question is answered
@@ -126,11 +127,11 @@ describe('a new user evaluates two candidates (e2e)', () => {
       expect(await question.innerText()).toContain('Unsaved changes');
       console.warn(`New asked about unsaved changes right after the save; document state ${JSON.stringify(harness.documentState())}`);
       await app.screenshot('workflow-new-project-question');
-      await question.getByRole('button', { name: 'Don’t save' }).click();
+      await steadyClick(question.getByRole('button', { name: 'Don’t save' }));
       await welcome.waitFor({ timeout: 30_000 });
     }
     harness.dialogs.nextOpenProject = projectPath;
-    await page.getByTestId('open-project').click();
+    await steadyClick(page.getByTestId('open-project'));
     await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
     await expect.poll(() => page.getByLabel('Project name').inputValue(), POLL).toBe('Tank levels, e2e');
     const again = await runAndReadValues(page, 2);

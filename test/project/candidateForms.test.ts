@@ -80,9 +80,26 @@ describe('candidate forms in the project document', () => {
     const r = parse({ ...base(), candidates: [{ name: 'PI', form: pi, dither: [3], bounds: { lo: [0], hi: [100], mode: 'clip' }, rateLimit: { maxStep: [2], previousAction: ['valve_prev'] } }] });
     if (!r.ok) throw new Error('did not parse');
     const s = summariseCandidate(r.value.document.candidates[0], r.value.document.columns);
-    expect(s.mean[0]).toBe('valve: PI, reverse acting, on 21 °C − temp: K_c 25 % per °C, T_i 1800 s (integral state ie); bias 80 %');
-    expect(s.dither).toBe('dither 3 % (standard deviation)');
-    expect(s.limits).toBe('clipped to 0 … 100 %; valve moves at most 2 % per step from valve_prev');
+    // A number and its unit held by a no-break space (U+00A0), as core/shareText.ts holds a share to its "%":
+    // SI Brochure (9th ed., 2019) §5.4.3 puts a space between a number and its unit, §5.4.7 before "%";
+    // keeping the two on one line is common practice in typesetting.
+    const nb = '\u00a0';
+    expect(s.mean[0]).toBe(`valve: PI, reverse acting, on 21${nb}°C − temp: K_c 25${nb}% per °C, T_i 1800${nb}s (integral state ie); bias 80${nb}%`);
+    expect(s.dither).toBe(`dither 3${nb}% (standard deviation)`);
+    expect(s.limits).toBe(`clipped to 0 … 100${nb}%; valve moves at most 2${nb}% per step from valve_prev`);
+  });
+
+  it('never leaves a line free to break between a number and its unit, in any sample candidate', () => {
+    const broken: string[] = [];
+    for (const sample of ['heating-loop', 'tank-levels', 'heating-historian']) {
+      const r = parseProjectText(readFileSync(new URL(`../../sample-projects/${sample}/${sample}.spcritic`, import.meta.url), 'utf8'), `${sample}.spcritic`);
+      if (!r.ok) throw new Error(`${sample} did not load`);
+      for (const c of r.value.document.candidates) {
+        const s = summariseCandidate(c, r.value.document.columns);
+        for (const line of [...s.mean, s.dither, s.limits]) if (/\d (?:%|°C|K\b|s\b|m\b|unit\b)/.test(line)) broken.push(`${sample} "${c.name}": ${line}`);
+      }
+    }
+    expect(broken).toEqual([]);
   });
 });
 

@@ -8,7 +8,7 @@ import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../
 import { LOGGED_RETURN, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../../figures/parts/plotTheme';
 import { policyLabel } from '../policyNames';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
-import { shareText } from '../../core/shareText';
+import { shareText, sharesText } from '../../core/shareText';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
   const a = input.assessment;
@@ -25,16 +25,19 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
     ...(pc ? [{ name: `${PRESENT_CONTROLLER} — baseline`, estimate: pc.policyValue, present: true }, { name: `${LOGGED_RETURN}, completed past time limits (check)`, estimate: pc.completedReturn, present: false }] : []),
     { name: pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} — baseline`, estimate: a.behaviour, present: !pc },
   ];
+  // "Better than the baseline in", down the column at one precision (core/shareText.ts, sharesText).
+  const differenceOf = rows.map((r) => (r.present ? undefined : vsBaseline.get(r.name)));
+  const betterIn = sharesText(differenceOf.map((d) => d?.probabilityBetter ?? null));
   const figure = figures.next(), reference = pc ? pc.policyValue.value : a.behaviour.value;
   const chartRows: IntervalRowData[] = rows.map((r) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: r.present }));
   return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
       Intervals are ${level} bootstrap intervals over runs; “minus baseline” is the paired difference J − J(baseline) on the same resamples.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th>
       <th class="num">Minus baseline</th><th class="num">${level} interval of the difference</th><th class="num">Better than the baseline in</th></tr></thead><tbody>
-    ${rows.map((r) => {
-      const d = r.present ? undefined : vsBaseline.get(r.name);
+    ${rows.map((r, i) => {
+      const d = differenceOf[i];
       return html`<tr><td>${r.name}</td>${estimateCells(r.estimate)}<td class="num">${d ? valueAtPrecision(d.difference.value, d.difference.percentile) : ''}</td>
-        <td class="num">${d ? intervalAtPrecision(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(d.probabilityBetter) : ''}</td></tr>`;
+        <td class="num">${d ? intervalAtPrecision(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(betterIn[i], d.probabilityBetter) : ''}</td></tr>`;
     })}
     </tbody></table>
     <figure id="fig-comparison">${raw(intervalFigure('comparison-svg', chartRows, valueAxisLabel(input, 'J'), reference))}
@@ -47,8 +50,9 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
     <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${policyLabel(n.better)} better than ${policyLabel(n.worse)}${n.frequency === null ? '' : ` in ${shareText(n.frequency)} of resamples`}</li>`)}</ul>`;
 }
 
-function resampleShare(share: number | null): string {
-  return share === null ? '—' : `${shareText(share)} of resamples`;
+/** "99.5 % of resamples" from the share as its column writes it; a dash where the share is unknown. */
+function resampleShare(text: string, share: number | null): string {
+  return share === null ? '—' : `${text} of resamples`;
 }
 
 /** J, its bootstrap s.e. (two significant digits) and its two intervals, each at the precision its interval carries. */
@@ -61,10 +65,11 @@ export function estimateCells(e: IntervalEstimate, precision: readonly [number, 
 function pairwise(a: Assessment, level: string): Html {
   const between = a.comparison.differences.filter((d) => d.b !== a.comparison.baseline.name);
   if (!between.length) return html``;
+  const firstBetterIn = sharesText(between.map((d) => d.probabilityBetter));
   return html`<h3>Candidates against each other</h3>
     <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">First better in</th></tr></thead><tbody>
-    ${between.map((d) => html`<tr><td>${policyLabel(d.a)} − ${policyLabel(d.b)}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${formatNumber(d.difference.standardError, 2)}</td>
-      <td class="num">${intervalAtPrecision(d.difference.percentile)}</td><td class="num">${resampleShare(d.probabilityBetter)}</td></tr>`)}
+    ${between.map((d, i) => html`<tr><td>${policyLabel(d.a)} − ${policyLabel(d.b)}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${formatNumber(d.difference.standardError, 2)}</td>
+      <td class="num">${intervalAtPrecision(d.difference.percentile)}</td><td class="num">${resampleShare(firstBetterIn[i], d.probabilityBetter)}</td></tr>`)}
     </tbody></table>`;
 }
 

@@ -4,7 +4,7 @@
  */
 import type { Page } from 'playwright-core';
 import { goToStep } from '../../renderer/e2e/appSteps';
-import { steadyClick } from './steadyClick';
+import { steadyClick } from './steadyActions';
 
 export async function openAllFindings(page: Page): Promise<void> {
   const button = page.getByTestId('open-all-sections');
@@ -23,7 +23,7 @@ export async function openFindingsSection(page: Page, id: string, timeout = 90_0
 /** Run the open project with its assessment from the Run step, then open every Findings section once the answer is in. */
 export async function runToAssessedFindings(page: Page): Promise<void> {
   await goToStep(page, 'run');
-  await page.getByTestId('run-evaluation').click();
+  await steadyClick(page.getByTestId('run-evaluation'));
   await page.getByTestId('run-finished').waitFor({ timeout: 240_000 });
   await goToStep(page, 'findings');
   await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });

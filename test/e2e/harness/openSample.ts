@@ -5,6 +5,7 @@
 import { copyFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
 import type { LaunchedApp } from './launch';
+import { steadyClick } from './steadyActions';
 
 export async function openSample(app: LaunchedApp, sample: string): Promise<string> {
   const { harness } = app, folder = resolve(__dirname, '../../../sample-projects', sample);
@@ -18,6 +19,6 @@ export async function openSample(app: LaunchedApp, sample: string): Promise<stri
 /** Open a project file already written to disk through the scripted Open dialog, and wait for the import summary. */
 export async function openProjectFile(app: LaunchedApp, projectPath: string): Promise<void> {
   app.harness.dialogs.nextOpenProject = projectPath;
-  await app.page.getByTestId('open-project').click();
+  await steadyClick(app.page.getByTestId('open-project'));
   await app.page.getByTestId('import-summary').waitFor({ timeout: 60_000 });
 }

@@ -6,7 +6,7 @@
 import { resolve } from 'node:path';
 import type { Locator, Page } from 'playwright-core';
 import type { LaunchedApp } from '../../e2e/harness/launch';
-import { steadyClick } from '../../e2e/harness/steadyClick';
+import { steadyClick, steadyFill, steadySelect } from '../../e2e/harness/steadyActions';
 
 export const TANK_CSV = resolve(__dirname, '../../../sample-projects/tank-levels/tank-levels.csv');
 
@@ -25,31 +25,31 @@ export async function goToStep(page: Page, step: 'plant-log' | 'candidates' | 'e
 export async function chooseData(app: LaunchedApp, path: string): Promise<void> {
   app.harness.dialogs.nextOpenData = path;
   await goToStep(app.page, 'plant-log');
-  await app.page.getByTestId('choose-data').click();
+  await steadyClick(app.page.getByTestId('choose-data'));
   await app.page.getByTestId('role-table').waitFor();
 }
 
 /** The tank-levels roles: two level states in m, the valve in %, the cost column, episodes by run. */
 export async function mapTankColumns(page: Page): Promise<void> {
-  await page.getByTestId('role-level_upper_m').selectOption('state');
-  await page.getByTestId('unit-level_upper_m').fill('m');
-  await page.getByTestId('role-level_lower_m').selectOption('state');
-  await page.getByTestId('unit-level_lower_m').fill('m');
-  await page.getByTestId('role-inflow_valve_pct').selectOption('action');
-  await page.getByTestId('unit-inflow_valve_pct').fill('%');
-  await page.getByTestId('role-cost').selectOption('cost');
-  await page.getByTestId('role-run').selectOption('episode');
+  await steadySelect(page.getByTestId('role-level_upper_m'), 'state');
+  await steadyFill(page.getByTestId('unit-level_upper_m'), 'm');
+  await steadySelect(page.getByTestId('role-level_lower_m'), 'state');
+  await steadyFill(page.getByTestId('unit-level_lower_m'), 'm');
+  await steadySelect(page.getByTestId('role-inflow_valve_pct'), 'action');
+  await steadyFill(page.getByTestId('unit-inflow_valve_pct'), '%');
+  await steadySelect(page.getByTestId('role-cost'), 'cost');
+  await steadySelect(page.getByTestId('role-run'), 'episode');
   await page.getByTestId('import-summary').waitFor({ timeout: 30_000 });
 }
 
 async function fill(field: Locator, value: string): Promise<void> {
-  await field.fill(value);
+  await steadyFill(field, value);
   await field.blur();
 }
 
 /** Add a candidate with the Add button and type its values into the labelled fields. */
 export async function addCandidate(page: Page, index: number, c: CandidateInput): Promise<void> {
-  await page.getByTestId('add-candidate').click();
+  await steadyClick(page.getByTestId('add-candidate'));
   const card = page.getByTestId(`candidate-${index}`);
   await fill(card.getByLabel('Name', { exact: true }), c.name);
   await fill(card.getByLabel('Offset (%)'), String(c.offset));
@@ -61,7 +61,7 @@ export async function addCandidate(page: Page, index: number, c: CandidateInput)
 /** Start a run and wait until it has finished; returns each candidate's J as shown (full precision). */
 export async function runAndReadValues(page: Page, candidates: number): Promise<number[]> {
   await goToStep(page, 'run');
-  await page.getByTestId('run-evaluation').click();
+  await steadyClick(page.getByTestId('run-evaluation'));
   await page.getByTestId('run-finished').waitFor({ timeout: 90_000 });
   await goToStep(page, 'findings');
   await page.getByTestId('value-table').waitFor();

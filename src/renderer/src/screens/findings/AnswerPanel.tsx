@@ -7,7 +7,7 @@
 import type { Assessment } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import { useDocument } from '../../hooks';
-import { levelText, shareText } from './assessmentWords';
+import { levelText, shareText, sharesText } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
 import { displayName, valueUnit } from './plotLabels';
@@ -50,6 +50,8 @@ function JumpLink({ section, children }: { section: SectionId; children: string 
 function AssessedTable({ choice, assessment, evaluation, unit }: { choice: TrialChoice; assessment: Assessment; evaluation: Evaluation; unit: string }) {
   const level = levelText(assessment.settings.level), base = assessment.presentController?.policyValue ?? assessment.behaviour;
   const baseName = displayName(assessment.comparison.baseline.name);
+  // "Better in", down the column at one precision (core/shareText.ts, sharesText).
+  const betterIn = sharesText(choice.lines.map((l) => l.difference?.probabilityBetter ?? null));
   return (
     <table className="answer-table" data-testid="answer-table">
       <thead>
@@ -59,7 +61,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
         </tr>
       </thead>
       <tbody>
-        {choice.lines.map((l) => (
+        {choice.lines.map((l, i) => (
           <tr key={l.candidate.name} className={l === choice.pick ? 'answer-pick' : undefined} data-testid={`answer-row-${evaluation.policies.findIndex((p) => p.name === l.candidate.name)}`}>
             <th scope="row">{l.candidate.name}</th>
             <td className="number">{valueAtPrecision(l.candidate.policyValue.value, l.candidate.policyValue.percentile)}</td>
@@ -69,7 +71,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
               {l.candidate.settled === false && l.candidate.reportedRange && <div className="small" data-testid="answer-range-to-report">range to report {intervalAtPrecision(l.candidate.reportedRange)}</div>}
             </td>
             <td className="number interval">{l.difference ? `${valueAtPrecision(l.difference.difference.value, l.difference.difference.percentile)} ${intervalAtPrecision(l.difference.difference.percentile)}` : '—'}</td>
-            <td className="number">{shareText(l.difference?.probabilityBetter ?? null)}</td>
+            <td className="number">{betterIn[i]}</td>
             <td className={l.candidate.confirmation.status === 'contradicted' ? 'error-text' : undefined}>{CONFIRMATION[l.candidate.confirmation.status]}</td>
             <td className={l.serious || l.logSerious ? 'error-text' : undefined}>{warningsText(l)}</td>
           </tr>

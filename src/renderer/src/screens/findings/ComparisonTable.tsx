@@ -7,11 +7,13 @@ import type { Assessment } from '../../../../pipeline/assessment';
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import { displayName } from './plotLabels';
-import { intervalDetail, levelText, shareText } from './assessmentWords';
+import { intervalDetail, levelText, shareText, sharesText } from './assessmentWords';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 export function ComparisonTable({ assessment }: { assessment: Assessment }) {
   const { differences, ranking } = assessment.comparison, level = assessment.settings.level;
+  // "First better in", down the column at one precision (core/shareText.ts, sharesText); a dash where unknown.
+  const firstBetterIn = sharesText(differences.map((d) => d.probabilityBetter));
   const better = assessment.valueSense === 'cost' ? 'lower cost' : 'higher reward';
   return (
     <FoldPanel section="comparison" testId="panel-comparison" gist={`Each candidate against the baseline and each other, ${levelText(level)} intervals; the ranking holds in ${shareText(ranking.frequency)} of resamples.`}>
@@ -33,7 +35,7 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
               <td>{displayName(d.a)}</td><td>{displayName(d.b)}</td>
               <td className="number">{valueAtPrecision(d.difference.value, d.difference.percentile)}</td>
               <td className="number interval" title={intervalDetail(d.difference, level)}>{intervalAtPrecision(d.difference.percentile)}</td>
-              <td className="number">{d.probabilityBetter === null ? '—' : shareText(d.probabilityBetter)}</td>
+              <td className="number">{firstBetterIn[i]}</td>
             </tr>
           ))}
         </tbody>

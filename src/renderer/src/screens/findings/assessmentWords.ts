@@ -19,7 +19,7 @@ export function levelText(level: number): string {
 }
 
 /** A share as a percentage: the one writer every host uses (core/shareText.ts). */
-export { shareText };
+export { shareText, sharesText };
 
 /** The basic interval and the replicate count, for the tooltip of an interval cell. */
 export function intervalDetail(estimate: IntervalEstimate, level: number): string {
