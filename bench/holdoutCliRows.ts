@@ -24,6 +24,15 @@ import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
 import { backlashLevelDynamics } from '../test/battery/holdout/backlashLevelPlant';
 import { headerPressureDynamics } from '../test/battery/holdout/headerPressurePlant';
 import { greenhouseDynamics, nonlinearPlants, pendulumDynamics } from '../test/battery/nonlinearCatalogue';
+import { blendingTankDynamics } from '../test/battery/holdout/blendingTankPlant';
+import { dryerDynamics } from '../test/battery/holdout/dryerPlant';
+import { exchangerDynamics } from '../test/battery/holdout/exchangerPlant';
+import { kettleDynamics } from '../test/battery/holdout/kettlePlant';
+import { levelValveDynamics } from '../test/battery/holdout/levelValvePlant';
+import { neutralisationDynamics } from '../test/battery/holdout/neutralisationPlant';
+import { pipeHeaterDynamics } from '../test/battery/holdout/pipeHeaterPlant';
+import { steamDrumDynamics } from '../test/battery/holdout/steamDrumPlant';
+import { surgeDrumDynamics } from '../test/battery/holdout/surgeDrumPlant';
 import { cliCommand } from './builtCli';
 
 /** The dynamics of the plants this bench can take the truth of (their rollouts as in nonlinearPlant.ts). */
@@ -32,6 +41,16 @@ const DYNAMICS: Record<string, { dynamics: PlantDynamics; rolloutsPerStart: numb
   'holdout-header-pressure-g0.98': { dynamics: headerPressureDynamics, rolloutsPerStart: 200 },
   'greenhouse-clipped-g0.95': { dynamics: greenhouseDynamics, rolloutsPerStart: 200 },
   'pendulum-saturating-g0.97': { dynamics: pendulumDynamics, rolloutsPerStart: 200 },
+  'holdout-level-valve-g0.96': { dynamics: levelValveDynamics, rolloutsPerStart: 100 },
+  'holdout-level-valve-gentle-g0.96': { dynamics: levelValveDynamics, rolloutsPerStart: 100 },
+  'holdout-exchanger-g0.95': { dynamics: exchangerDynamics, rolloutsPerStart: 100 },
+  'holdout-dryer-g0.99': { dynamics: dryerDynamics, rolloutsPerStart: 100 },
+  'holdout-neutralisation-g0.95': { dynamics: neutralisationDynamics, rolloutsPerStart: 100 },
+  'holdout-kettle-g0.98': { dynamics: kettleDynamics, rolloutsPerStart: 100 },
+  'holdout-surge-drum-g0.97': { dynamics: surgeDrumDynamics, rolloutsPerStart: 100 },
+  'holdout-blending-tank-g0.97': { dynamics: blendingTankDynamics, rolloutsPerStart: 100 },
+  'holdout-pipe-heater-g0.97': { dynamics: pipeHeaterDynamics, rolloutsPerStart: 100 },
+  'holdout-steam-drum-g0.97': { dynamics: steamDrumDynamics, rolloutsPerStart: 100 },
 };
 const ROLLOUT_SEED = 31_337;
 
@@ -118,7 +137,7 @@ async function main() {
       console.log([plant.name, approximator, seed, c.name, truth.value.toFixed(4), truth.standardError.toFixed(4), j.toFixed(4), err.toFixed(2), fmt(interval), fmt(range), holds,
         range ? (miss / truth.standardError).toFixed(1) : '-', c.settled, status, most, run.status, kind, seconds.toFixed(0)].join('\t'));
       rows.push({ plant: plant.name, approximator, seed, candidate: c.name, truth, j, err, interval, range, holds, settled: c.settled, status, warnings, confirmation: c.confirmation, exit: run.status, kind, seconds,
-        functionClasses: c.functionClasses?.reason ?? null, crossChecks: c.crossChecks.map((x: { label: string; agreement: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, value: x.estimate?.value ?? null })) });
+        functionClasses: c.functionClasses?.reason ?? null, classes: c.functionClasses?.classes?.map((k: { label: string; value: number; interval: [number, number] | null }) => ({ label: k.label, value: k.value, interval: k.interval })) ?? null, crossChecks: c.crossChecks.map((x: { label: string; agreement: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, value: x.estimate?.value ?? null })) });
     }
     const present = json.assessment.presentController;
     if (present) console.log(`#\tpresent controller J ${present.policyValue.value.toFixed(4)} interval ${JSON.stringify(present.policyValue.basic)}; global warnings: ${json.assessment.warnings.map((w: Warning) => `${w.severity}:${w.topic}`).join('; ')}`);
