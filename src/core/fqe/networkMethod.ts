@@ -62,6 +62,9 @@ export interface NetworkMethod {
    * on 18 of 20 greenhouse logs, took 4 on 15 of 20 pendulum logs and fixed the pendulum's wide starts
    * there, but on one greenhouse log (runs logged steady, seed 9) it took 4 and the wide starts became
    * confident and wrong (+6.2 %, interval missing the truth, "inconclusive"); so not the default.
+   * The choice is now guarded (degreeChoiceStartGuard.ts): degree 4 is kept only when J's start states
+   * lie inside the logs by the start-coverage rule (run starts pass by construction); otherwise 2, and
+   * the fit says why. Measured in test/battery/README.md ("The degree choice guarded by where J's starts lie").
    */
   readonly linearPartDegree: number | 'choose';
   /**

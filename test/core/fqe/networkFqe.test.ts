@@ -181,8 +181,9 @@ describe('fitNetworkFqe values', () => {
     const plain = await fitNetworkFqe(input({ outerIterations: 2 }));
     const chosen = await fitNetworkFqe(input({ outerIterations: 2 }, { method: { linearPartDegree: 'choose' } }));
     expect(plain.degreeChoice).toBeUndefined();
-    expect(chosen.degreeChoice?.chosen).toBe(2);
+    expect(chosen.degreeChoice).toMatchObject({ chosen: 2, criterionChose: 2, startGuard: null });
     expect(chosen.degreeChoice?.sentence).toMatch(/^Polynomial part of degree 2/);
+    expect(chosen.message.endsWith(chosen.degreeChoice!.sentence)).toBe(true);
     expect(chosen.linearStart.features.dim).toBe(10);
     expect(chosen.estimate(data.startStates, { resamples: 20 }).value).toBe(plain.estimate(data.startStates, { resamples: 20 }).value);
     plain.dispose();
