@@ -24,6 +24,7 @@ import { fileURLToPath } from 'node:url';
 import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
 import { chooseLinearPartDegree, type DegreeChoice } from '../src/core/fqe/networkDegreeChoice';
+import { startGuard } from '../src/core/fqe/degreeChoiceStartGuard';
 import { defaultNetworkMethod } from '../src/core/fqe/networkMethod';
 import { COMPARATOR_DEGREE } from '../src/core/fqe/comparatorDegree';
 import { NetworkDivergedError } from '../src/core/fqe/networkErrors';
@@ -103,6 +104,8 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, runS
     const truth0 = plant.truth(c.name, sets[0].name).value;
     return sets.map((set, index) => {
       const e = fit.estimate(set.states, { startsFollowEpisodes: false });
+      // The start sets are drawn apart from the log (test/battery/startSets.ts), never its run starts: scored.
+      const guard = startGuard(data, set.states, false);
       return {
         plant: plant.name, candidate: c.name, startSet: set.name, runStarts, seed, truth: plant.truth(c.name, set.name),
         network: { value: e.value, lower: e.interval.lower, upper: e.interval.upper },
@@ -117,6 +120,7 @@ async function fitOne(plant: BatteryPlant, candidate: number, seed: number, runS
         ...(index === 0 ? { secondsToWithin3: secondsToWithin(fit, truth0, 0.03) } : {}),
         adamSteps: fit.work.adamSteps, stepSeconds: fit.work.stepSeconds, flop: fit.work.flop, backend: fit.backend,
         ...(fit.degreeChoice ? { degreeChoice: degreeChoiceRecord(fit.degreeChoice) } : {}),
+        startGuard: { starts: guard.starts, outside: guard.outside, inside: guard.inside },
       };
     });
   } finally {
