@@ -35,6 +35,13 @@ export interface FitRecord {
   degreeChoice?: {
     chosen: number; degrees: number[]; relativeError: number[]; difference: number | null; standardError: number | null; runsScored: number; notCompared: string | null;
   };
+  /**
+   * The start guard of the degree choice (src/core/fqe/degreeChoiceStartGuard.ts) for this record's start
+   * set over this log: starts scored outside the logs and whether a degree above the default may be kept.
+   * The bench fits once for both start sets; bench/batteryChoicePairedTable.ts composes the guarded
+   * choice per start set from the default and the chosen fit. Absent in older records.
+   */
+  startGuard?: { starts: number; outside: number; inside: boolean };
   iterations: number;
   seconds: number;
   cpuSeconds: number;

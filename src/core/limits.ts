@@ -63,6 +63,18 @@ export const DEFAULT_POLYNOMIAL_DEGREE = 2;
 export const RADIAL_CENTRES_RANGE = { min: 2, max: 12 } as const;
 /** Dense least squares is O(d³) per solve; beyond this many features a fit would not finish on a desktop. */
 export const MAX_FEATURES = 2000;
+/**
+ * The network's per-project choice of its polynomial part's degree (src/core/fqe/networkDegreeChoice.ts)
+ * costs n·d² multiply-adds in the quartic's d features, on every fit that asks for it; above this many
+ * features it is not run and the default degree is kept, with the reason in the fit's message.
+ * 126 = a quartic in 5 inputs, the largest class on the battery (the 4-state plant), where the choice
+ * was measured by the adoption rule (test/battery/README.md). Cost per 100,000 rows with the block
+ * products (degreeChoiceSums.ts), a loaded 2-core machine: 0.2–0.6 s at 35 features, 1.1–1.2 s at 126
+ * (6.3× faster than the row loop before them); the pipe heater's 7 inputs (330 features) 7.4 s (it took
+ * 460–650 s before, on a machine loaded by three sweeps) — a large share of a network fit, for a class
+ * the rule never measured.
+ */
+export const DEGREE_CHOICE_MAX_FEATURES = 126;
 
 /**
  * Ridge λ per sample on the averaged normal equations of standardised features (ridgeSystem.ts).

@@ -40,18 +40,23 @@
  *
  * What it can and cannot see: only the states the logged runs pass through. Where the candidate's
  * starts lie beyond every logged state (runs logged steady, J over wider starts) it has no rows,
- * and the choice rests on the logged region.
+ * and the choice rests on the logged region: the fit therefore keeps a higher degree only when J's
+ * starts lie inside the logs (degreeChoiceStartGuard.ts).
+ *
+ * Cost: one pass of n·d² multiply-adds by block products (degreeChoiceSums.ts); not run above
+ * DEGREE_CHOICE_MAX_FEATURES (limits.ts) quartic features, and the reason says so.
  */
 import { fitStateActionStandardiser } from '../features/standardiser';
 import { createFeatureMap } from '../features/featureMap';
 import { polynomialFeatureSpec } from '../features/polynomialFeatures';
 import { monomialCount } from '../features/monomials';
 import { luFactor, luSolve, SingularMatrixError } from '../linalg/dense';
-import { MAX_FEATURES, RIDGE } from '../limits';
+import { DEGREE_CHOICE_MAX_FEATURES, RIDGE } from '../limits';
 import { createRandom } from '../random';
 import type { TransitionSet } from '../transitions';
 import { LINEAR_PART_DEGREE } from './networkLinearPart';
 import { shareText, sharesText } from '../shareText';
+import { foldLstdSums, stateAction } from './degreeChoiceSums';
 
 /** The degrees compared: the default, and the quartic measured on the battery (README, "What the network is compared with"). */
 export const DEGREE_CHOICES: readonly number[] = [LINEAR_PART_DEGREE, 4];
@@ -80,6 +85,8 @@ export interface DegreeChoice {
   readonly rowsScored: number;
   /** Why the default degree was kept without a comparison (too few runs, a singular fit, too many features); null when compared. */
   readonly notCompared: string | null;
+  /** True when the comparison was not run because the quartic has more than DEGREE_CHOICE_MAX_FEATURES features (limits.ts). */
+  readonly overFeatureLimit: boolean;
   /** One sentence in the user's words: what was chosen and why, from the same numbers. */
   readonly sentence: string;
 }
@@ -96,7 +103,11 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   const { data, discount: gamma } = input, degrees = input.degrees ?? DEGREE_CHOICES;
   const base = degrees[0], top = Math.max(...degrees), p = data.stateDim + data.actionDim;
   const keep = (why: string) => notCompared(degrees, base, why);
-  if (monomialCount(p, top) > MAX_FEATURES) return keep(`a degree-${top} polynomial in ${p} inputs has more than ${MAX_FEATURES} features`);
+  // The choice's cost grows as n·d² in the top degree's features (degreeChoiceSums.ts): skipped above the limit, and said so.
+  const topFeatures = monomialCount(p, top);
+  if (topFeatures > DEGREE_CHOICE_MAX_FEATURES) {
+    return { ...keep(`a degree-${top} polynomial in ${p} inputs has ${topFeatures} features, more than the ${DEGREE_CHOICE_MAX_FEATURES} up to which the comparison is cheap enough to run on every fit`), overFeatureLimit: true };
+  }
   const n = data.count, ds = data.stateDim, e = data.episodeCount;
   if (e < DEGREE_CHOICE_FOLDS) return keep(`the log has ${e} run${e === 1 ? '' : 's'}; at least ${DEGREE_CHOICE_FOLDS} are needed to fit on some and score on others`);
 
@@ -128,33 +139,11 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   const fold = new Int32Array(e);
   order.forEach((run, position) => { fold[run] = position % DEGREE_CHOICE_FOLDS; });
 
-  // LSTD sums per fold at the top degree: A_f = Σ φ(φ − γφ')ᵀ, b_f = Σ φ r, n_f.
+  // LSTD sums per fold at the top degree, one pass (degreeChoiceSums.ts).
   const spec = fitStateActionStandardiser(data).spec;
   const features = createFeatureMap(polynomialFeatureSpec(spec, top)), d = features.dim;
-  const a = Array.from({ length: DEGREE_CHOICE_FOLDS }, () => new Float64Array(d * d));
-  const b = Array.from({ length: DEGREE_CHOICE_FOLDS }, () => new Float64Array(d)), counts = new Float64Array(DEGREE_CHOICE_FOLDS);
-  const input0 = new Float64Array(p), phi = new Float64Array(d), next = new Float64Array(d), diff = new Float64Array(d);
-  for (let i = 0; i < n; i++) {
-    const terminal = data.terminal[i] !== 0;
-    if (!terminal && !continues[i]) continue; // the next action was not logged: no on-policy target
-    stateAction(data, i, input0);
-    features.evaluate(input0, 0, phi, 0);
-    if (terminal) next.fill(0);
-    else {
-      stateAction(data, i + 1, input0);
-      features.evaluate(input0, 0, next, 0);
-    }
-    for (let k = 0; k < d; k++) diff[k] = phi[k] - gamma * next[k];
-    const f = fold[data.episode[i]], af = a[f], bf = b[f], r = data.rewards[i];
-    for (let row = 0; row < d; row++) {
-      const x = phi[row];
-      if (x === 0) continue;
-      const offset = row * d;
-      for (let col = 0; col < d; col++) af[offset + col] += x * diff[col];
-      bf[row] += x * r;
-    }
-    counts[f]++;
-  }
+  const { a, b, counts } = foldLstdSums(data, features, gamma, continues, fold, DEGREE_CHOICE_FOLDS);
+  const input0 = new Float64Array(p), phi = new Float64Array(d);
   // Each degree's weights per fold, fitted on the other folds' runs.
   const weights: Float64Array[][] = [];
   for (const degree of degrees) {
@@ -234,20 +223,14 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   const sentence = chosen !== base
     ? `Polynomial part of degree ${chosen}: it predicted the present controller’s held-out returns better than degree ${base} (root mean squared error ${chosenError} against ${baseError} of the return, by more than ${CHOICE_STANDARD_ERRORS} standard errors; ${rows}).`
     : `Polynomial part of degree ${base}: degree ${other} did not predict the present controller’s held-out returns better by more than ${CHOICE_STANDARD_ERRORS} standard errors (root mean squared error ${otherError} against ${ownError} of the return; ${rows}).`;
-  return { degrees, chosen, meanSquaredError, relativeError, difference, standardError, runsScored: scored.length, rowsScored, notCompared: null, sentence };
+  return { degrees, chosen, meanSquaredError, relativeError, difference, standardError, runsScored: scored.length, rowsScored, notCompared: null, overFeatureLimit: false, sentence };
 }
 
 function notCompared(degrees: readonly number[], base: number, why: string): DegreeChoice {
   return {
-    degrees, chosen: base, meanSquaredError: [], relativeError: [], difference: null, standardError: null, runsScored: 0, rowsScored: 0, notCompared: why,
+    degrees, chosen: base, meanSquaredError: [], relativeError: [], difference: null, standardError: null, runsScored: 0, rowsScored: 0, notCompared: why, overFeatureLimit: false,
     sentence: `Polynomial part of degree ${base}, the default: the degrees were not compared because ${why}.`,
   };
-}
-
-function stateAction(data: TransitionSet, i: number, out: Float64Array): void {
-  const ds = data.stateDim, m = data.actionDim;
-  for (let c = 0; c < ds; c++) out[c] = data.states[i * ds + c];
-  for (let c = 0; c < m; c++) out[ds + c] = data.actions[i * m + c];
 }
 
 function average(xs: readonly number[]): number {

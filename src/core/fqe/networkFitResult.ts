@@ -198,7 +198,8 @@ function dot(a: ArrayLike<number>, b: ArrayLike<number>, n: number): number {
   return x;
 }
 
-function sameValues(a: Float64Array, b: Float64Array): boolean {
+/** Whether two arrays hold the same values in the same order (start states given equal to the data's own run starts). */
+export function sameValues(a: Float64Array, b: Float64Array): boolean {
   if (a === b) return true;
   if (a.length !== b.length) return false;
   for (let i = 0; i < a.length; i++) if (a[i] !== b[i]) return false;

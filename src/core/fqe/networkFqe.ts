@@ -36,8 +36,9 @@ import { runOuterIterations } from './networkIterations';
 import { COMPARATOR_DEGREE } from './comparatorDegree';
 import { solveLastLayer } from './networkLastLayer';
 import { defaultNetworkMethod, type NetworkMethod, type SettledNetworkMethod } from './networkMethod';
-import { chooseLinearPartDegree, type DegreeChoice } from './networkDegreeChoice';
-import { finishNetworkFit } from './networkFitResult';
+import { chooseLinearPartDegree } from './networkDegreeChoice';
+import { guardDegreeChoice, startGuard, type GuardedDegreeChoice } from './degreeChoiceStartGuard';
+import { finishNetworkFit, sameValues } from './networkFitResult';
 import type { NetworkValueEstimate, EstimateOptions } from './networkValueEstimate';
 import type { NetworkFqeSettings } from './networkSettings';
 import { combineMembers, memberSeed } from './networkMembers';
@@ -100,8 +101,12 @@ export interface NetworkFit {
   readonly members: number;
   /** Time, Adam steps and FLOPs of the fit (networkWork.ts). */
   readonly work: NetworkWork;
-  /** How the polynomial part's degree was chosen from the log (networkDegreeChoice.ts), with its numbers; absent unless linearPartDegree is 'choose'. */
-  readonly degreeChoice?: DegreeChoice;
+  /**
+   * How the polynomial part's degree was chosen from the log (networkDegreeChoice.ts), with its numbers,
+   * and the start guard that may have kept the default (degreeChoiceStartGuard.ts); absent unless
+   * linearPartDegree is 'choose'. Its sentence ends the fit's message where the degree is not simply 2 (choiceWorthSaying).
+   */
+  readonly degreeChoice?: GuardedDegreeChoice;
   /** J over startStates (count×ds) with its interval, the linear estimate (networkComparator.ts) and their paired difference. */
   estimate(startStates: Float64Array, options?: EstimateOptions): NetworkValueEstimate;
   /** Frees the network's tensors; actionValue.evaluate and estimate throw afterwards. */
@@ -129,7 +134,7 @@ export interface NetworkFqeInput {
 export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit> {
   checkNetworkFqeInput(input);
   const asked: NetworkMethod = { ...defaultNetworkMethod, ...input.method };
-  const degreeChoice = asked.linearPartDegree === 'choose' ? chooseLinearPartDegree({ data: input.data, discount: input.discount, seed: input.seed }) : undefined;
+  const degreeChoice = asked.linearPartDegree === 'choose' ? guardedDegreeChoice(input) : undefined;
   const method: SettledNetworkMethod = { ...asked, linearPartDegree: degreeChoice?.chosen ?? (asked.linearPartDegree as number) };
   const selection = await selectBackend(input.settings.backend, input.wasmPath);
   const fits: NetworkFit[] = [];
@@ -144,7 +149,30 @@ export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit>
     throw error;
   }
   const fit = fits.length === 1 ? fits[0] : combineMembers(fits);
-  return degreeChoice ? Object.assign(fit, { degreeChoice }) : fit;
+  if (!degreeChoice) return fit;
+  return Object.assign(fit, { degreeChoice, ...(choiceWorthSaying(degreeChoice) ? { message: `${fit.message} ${degreeChoice.sentence}` } : {}) });
+}
+
+/**
+ * The choice's sentence ends the fit's message when the degree is not simply the long-standing 2:
+ * degree 4 used, 4 picked but kept at 2 by the start guard, or the choice skipped for its cost. Where
+ * the criterion kept 2 (or the log was too short to compare), the message is the degree-2 fit's, and
+ * the sentence is in `degreeChoice`.
+ */
+function choiceWorthSaying(choice: GuardedDegreeChoice): boolean {
+  const base = choice.degrees[0];
+  return choice.chosen !== base || choice.criterionChose !== base || choice.overFeatureLimit;
+}
+
+/**
+ * The degree by the held-out criterion, kept above the default only when J's start states lie inside
+ * the logs (degreeChoiceStartGuard.ts). The fit's start states are the data's run starts unless given;
+ * given ones equal to them, value for value, are run starts too (as the estimate treats them).
+ */
+function guardedDegreeChoice(input: NetworkFqeInput): GuardedDegreeChoice {
+  const choice = chooseLinearPartDegree({ data: input.data, discount: input.discount, seed: input.seed });
+  const starts = input.startStates ?? input.data.startStates;
+  return guardDegreeChoice(choice, () => startGuard(input.data, starts, sameValues(starts, input.data.startStates)));
 }
 
 /** One member: the linear start, the outer iterations and the kept network. */

@@ -14,31 +14,14 @@
  */
 import { describe, expect, it } from 'vitest';
 import { CHOICE_STANDARD_ERRORS, chooseLinearPartDegree } from '../../../src/core/fqe/networkDegreeChoice';
-import { createRandom } from '../../../src/core/random';
+import { foldLstdSums } from '../../../src/core/fqe/degreeChoiceSums';
+import { createFeatureMap } from '../../../src/core/features/featureMap';
+import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
+import { fitStateActionStandardiser } from '../../../src/core/features/standardiser';
+import { DEGREE_CHOICE_MAX_FEATURES } from '../../../src/core/limits';
 import type { TransitionSet } from '../../../src/core/transitions';
 import { batteryPlant } from '../../battery/catalogue';
-
-/** Runs of `steps` rows: s' = 0.8 s + 0.5 a + w, a = −0.3 s + dither, r = −s⁴ (invented). */
-function quarticCostLog(runs: number, steps: number, seed: number): TransitionSet {
-  const rng = createRandom(seed), n = runs * steps;
-  const normal = () => rng.normal();
-  const states = new Float64Array(n), actions = new Float64Array(n), rewards = new Float64Array(n), nextStates = new Float64Array(n);
-  const episode = new Int32Array(n), startStates = new Float64Array(runs), sourceLine = new Int32Array(n);
-  let i = 0;
-  for (let run = 0; run < runs; run++) {
-    let s = 1.5 * normal();
-    startStates[run] = s;
-    for (let t = 0; t < steps; t++, i++) {
-      const a = -0.3 * s + 0.3 * normal(), next = 0.8 * s + 0.5 * a + 0.2 * normal();
-      states[i] = s; actions[i] = a; rewards[i] = -(s ** 4); nextStates[i] = next; episode[i] = run; sourceLine[i] = i + 2;
-      s = next;
-    }
-  }
-  return {
-    count: n, stateDim: 1, actionDim: 1, stateNames: ['x'], actionNames: ['u'], states, actions, rewards, nextStates,
-    terminal: new Uint8Array(n), episode, episodeCount: runs, startStates, sourceLine,
-  };
-}
+import { quarticCostLog } from './quarticCostLog';
 
 describe('choice of the polynomial part\'s degree from held-out returns of the present controller', () => {
   it.each([
@@ -65,5 +48,42 @@ describe('choice of the polynomial part\'s degree from held-out returns of the p
     expect(choice.chosen).toBe(2);
     expect(choice.notCompared).toMatch(/the log has 1 run/);
     expect(choice.sentence).toMatch(/not compared because the log has 1 run/);
+  });
+
+  it('forms its sums by block products equal to the plain row-by-row sums (to rounding)', () => {
+    const data = quarticCostLog(40, 60, 5), gamma = 0.9, d = 15;
+    const features = createFeatureMap(polynomialFeatureSpec(fitStateActionStandardiser(data).spec, 4));
+    const continues = Uint8Array.from({ length: data.count }, (_, i) => (i + 1 < data.count && data.episode[i + 1] === data.episode[i] ? 1 : 0));
+    const fold = Int32Array.from({ length: 40 }, (_, run) => run % 2);
+    const sums = foldLstdSums(data, features, gamma, continues, fold, 2);
+    // The reference: Σ φ(φ − γφ')ᵀ and Σ φ r one row at a time, written out here.
+    const phi = new Float64Array(d), next = new Float64Array(d);
+    const a = [new Float64Array(d * d), new Float64Array(d * d)], b = [new Float64Array(d), new Float64Array(d)];
+    for (let i = 0; i < data.count; i++) {
+      if (!continues[i]) continue;
+      features.evaluate([data.states[i], data.actions[i]], 0, phi, 0);
+      features.evaluate([data.states[i + 1], data.actions[i + 1]], 0, next, 0);
+      const f = fold[data.episode[i]];
+      for (let r = 0; r < d; r++) {
+        for (let c = 0; c < d; c++) a[f][r * d + c] += phi[r] * (phi[c] - gamma * next[c]);
+        b[f][r] += phi[r] * data.rewards[i];
+      }
+    }
+    for (const f of [0, 1]) {
+      const scale = Math.max(...a[f].map(Math.abs));
+      a[f].forEach((x, k) => expect(Math.abs(sums.a[f][k] - x)).toBeLessThan(1e-12 * scale));
+      b[f].forEach((x, k) => expect(sums.b[f][k]).toBeCloseTo(x, 6));
+    }
+    expect(sums.counts[0] + sums.counts[1]).toBe(40 * 59);
+  });
+
+  it('is not run above DEGREE_CHOICE_MAX_FEATURES quartic features, and says so', () => {
+    // 5 states and 1 action: a quartic in 6 inputs has C(10, 4) = 210 features.
+    const one = quarticCostLog(20, 20, 1), n = one.count, wide = (x: Float64Array) => Float64Array.from({ length: 5 * n }, (_, k) => x[Math.floor(k / 5)] + 0.01 * (k % 5));
+    const data: TransitionSet = { ...one, stateDim: 5, stateNames: ['a', 'b', 'c', 'd', 'e'], states: wide(one.states), nextStates: wide(one.nextStates), startStates: wide(one.startStates).subarray(0, 5 * 20) };
+    const choice = chooseLinearPartDegree({ data, discount: 0.9, seed: 1 });
+    expect(DEGREE_CHOICE_MAX_FEATURES).toBeLessThan(210);
+    expect(choice.chosen).toBe(2);
+    expect(choice.notCompared).toBe(`a degree-4 polynomial in 6 inputs has 210 features, more than the ${DEGREE_CHOICE_MAX_FEATURES} up to which the comparison is cheap enough to run on every fit`);
   });
 });
