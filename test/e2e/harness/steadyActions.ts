@@ -22,6 +22,11 @@
  *   `input` and `change` (React's onChange for a select reads `change`);
  * - press: the element focused from the page, then the keyboard press, which waits on no frame;
  * - hover: `pointerover`, `pointermove`, `mouseover` and `mousemove` at the same point of the element.
+ * A click or a check falls back only on an element a person could reach: enabled (or enabled within
+ * APPEAR_WAIT_MS, a button enabled once a run ends) and on top at its centre once scrolled into view
+ * (`document.elementFromPoint`, which reads the layout and needs no frame; its own label counts, as
+ * Playwright's hit test takes it). An element under a dialog, a sheet or a toast fails as the ordinary
+ * action would, so the fallback never does what a person could not.
  * The caller still checks the action's effect — a step selected, a field's value kept, a tooltip
  * shown — so an action that does nothing still fails. test/support/e2eSteadyActions.test.ts fails when
  * an e2e source calls one of these actions outside this file.
@@ -42,6 +47,10 @@ async function steady(action: string, locator: Locator, waitMs: number, ordinary
   } catch (error) {
     if (!(error instanceof Error) || error.name !== 'TimeoutError') throw error;
     if (action !== 'hover' && !(await enabledWithin(locator, APPEAR_WAIT_MS))) throw error;
+    if (action === 'click' || action === 'check') {
+      const cover = await coveredBy(locator);
+      if (cover) throw new Error(`${action}: ${String(locator)} is covered by ${cover} at its centre; a person could not ${action} it (${error.message.split('\n')[0]})`);
+    }
     stalledActions.push(`${action} ${String(locator)}`);
     await fallback();
   }
@@ -55,6 +64,23 @@ async function enabledWithin(locator: Locator, waitMs: number): Promise<boolean>
     if (Date.now() > deadline) return false;
     await new Promise((r) => setTimeout(r, 100));
   }
+}
+
+/**
+ * What lies on top at the element's centre once it is scrolled into view, when that is neither the
+ * element, nor inside it, nor a label of it; null when a pointer there would reach the element.
+ */
+export function coveredBy(locator: Locator): Promise<string | null> {
+  return locator.evaluate((element) => {
+    element.scrollIntoView({ block: 'center', inline: 'center' });
+    const box = element.getBoundingClientRect();
+    const top = document.elementFromPoint(box.left + box.width / 2, box.top + box.height / 2);
+    if (!top || element.contains(top)) return top ? null : 'nothing (the centre is outside the window)';
+    const label = top.closest('label');
+    if (label && (label.control === element || label.contains(element))) return null;
+    const name = (e: Element) => `<${e.tagName.toLowerCase()}${e.id ? `#${e.id}` : ''}${typeof e.className === 'string' && e.className ? `.${e.className.trim().split(/\s+/).join('.')}` : ''}>`;
+    return name(top);
+  });
 }
 
 export function steadyClick(locator: Locator, waitMs = ORDINARY_WAIT_MS): Promise<void> {
