@@ -89,3 +89,26 @@ describe('a share below 1 never reads 100 %, alone or in a column', () => {
     expect(wrong.slice(0, 5)).toEqual([]);
   });
 });
+
+/**
+ * The report's standard errors at two significant digits with their trailing zero: 0.9 is "0.90" under
+ * "0.15" (JCGM 100:2008 §7.2.6 gives an uncertainty to at most two significant digits —
+ * common practice; the heating-loop sample's table read "0.15, 0.9, 0.97"). The errors are invented.
+ */
+describe('the report’s s.e. column keeps two significant digits', () => {
+  it('reads 0.15 above 0.90 in the table of candidates against each other, and 1.0 for a J', () => {
+    const withErrors = {
+      ...assessment,
+      candidates: assessment.candidates.map((c, i) => (i === 0 ? { ...c, policyValue: { ...c.policyValue, standardError: 1 } } : c)),
+      comparison: {
+        ...assessment.comparison,
+        differences: assessment.comparison.differences.map((d, i) => ({ ...d, difference: { ...d.difference, standardError: [0.2, 0.2, 0.2, 0.15, 0.9][i] } })),
+      },
+    } as unknown as Assessment;
+    const html = comparisonSection({ assessment: withErrors, evaluation: { valueSense: 'cost' }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 1 } as never).html;
+    const pairwise = html.slice(html.indexOf('Candidates against each other'));
+    const errors = [...pairwise.matchAll(/<tr><td>[^<]*<\/td><td class="num">[^<]*<\/td><td class="num">([^<]*)<\/td>/g)].map((m) => m[1]);
+    expect(errors).toEqual(['0.15', '0.90']);
+    expect(html).toMatch(/<td>A<\/td><td class="num">5\.000<\/td><td class="num">1\.0<\/td>/);
+  });
+});
