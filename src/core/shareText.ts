@@ -3,7 +3,11 @@
  * and tables, the report and the command line all call shareText, so one share never reads "6.3 %" in the report and
  * "6.29 %" on screen. SHARE_DIGITS significant digits, trailing zeros dropped ("73 %", "6.29 %",
  * "0.42 %"), and no finer than SMALLEST_SHARE_SHOWN (src/core/limits.ts): a smaller share is "below
- * 0.01 %". A share of exactly 0 or 1 reads "0 %" or "100 %".
+ * 0.01 %". A share of exactly 0 or 1 reads "0 %" or "100 %", and only such a share: one below 1
+ * whose SHARE_DIGITS would round it to "100 %" (1999 of 2000 resamples, 0.9995) takes the decimals
+ * that keep it below ("99.95 %"), and one closer to 1 than SMALLEST_SHARE_SHOWN is "above 99.99 %",
+ * as a share that close to 0 is "below 0.01 %": "better in 100 % of resamples" says none went the
+ * other way.
  *
  * Shares set side by side (one sentence, one table row: a candidate's share beside the present
  * controller's, a mean beside its percentile and its largest; one table column: how often each
@@ -35,17 +39,29 @@ const FINEST_DECIMALS = decimalsOf(digits(SMALLEST_SHARE_SHOWN * 100));
 export function shareText(share: number | null | undefined): string {
   if (share === null || share === undefined || !Number.isFinite(share)) return '—';
   if (share > 0 && share < SMALLEST_SHARE_SHOWN) return `below ${digits(SMALLEST_SHARE_SHOWN * 100)}${BEFORE_PERCENT}`;
+  if (share < 1 && digits(share * 100) === '100') return `${belowWhole(share)}${BEFORE_PERCENT}`;
   return `${digits(share * 100)}${BEFORE_PERCENT}`;
+}
+
+/** A share below 1 that three digits would write "100": the fewest decimals, up to SMALLEST_SHARE_SHOWN's place, that keep it below; "above 99.99" past that. */
+function belowWhole(share: number): string {
+  for (let d = 1; d <= FINEST_DECIMALS; d++) {
+    const text = (share * 100).toFixed(d);
+    if (Number(text) < 100) return text;
+  }
+  return `above ${(100 - SMALLEST_SHARE_SHOWN * 100).toFixed(FINEST_DECIMALS)}`;
 }
 
 /**
  * Shares read side by side, at one count of decimals: [0.0629, 0.062] → ["6.29 %", "6.20 %"];
- * [0.269, 0.028] → ["26.9 %", "2.8 %"]. Each entry as shareText writes it where it is not a rounded
- * number (a dash, "0 %", "100 %", "below 0.01 %").
+ * [0.269, 0.028] → ["26.9 %", "2.8 %"]; [0.9995, 0.503] → ["99.95 %", "50.30 %"]. Each entry as shareText
+ * writes it where it is not a rounded number (a dash, "0 %", "100 %", "below 0.01 %", "above 99.99 %").
  */
 export function sharesText(shares: readonly (number | null | undefined)[]): string[] {
-  const rounded = (s: number | null | undefined): s is number => s !== null && s !== undefined && Number.isFinite(s) && s !== 0 && s !== 1 && !(s > 0 && s < SMALLEST_SHARE_SHOWN);
-  const decimals = Math.min(FINEST_DECIMALS, Math.max(0, ...shares.filter(rounded).map((s) => decimalsOf(digits(s * 100)))));
+  // A bound ("below 0.01 %", "above 99.99 %") is not a rounded number either.
+  const rounded = (s: number | null | undefined): s is number => s !== null && s !== undefined && Number.isFinite(s) && s !== 0 && s !== 1 && !/^(below|above) /.test(shareText(s));
+  // Each share's decimals as shareText writes it alone (so "99.95 %" keeps two): at as many or more, none reads "100".
+  const decimals = Math.min(FINEST_DECIMALS, Math.max(0, ...shares.filter(rounded).map((s) => decimalsOf(shareText(s).slice(0, -BEFORE_PERCENT.length)))));
   return shares.map((s) => (rounded(s) ? `${(s * 100).toFixed(decimals)}${BEFORE_PERCENT}` : shareText(s)));
 }
 

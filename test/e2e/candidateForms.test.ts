@@ -167,8 +167,8 @@ describe('candidate forms in the editor (e2e)', () => {
     await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(1);
     await expect(selectAsChosen(page.getByTestId('candidate-form-1'), 'no-such-form')).rejects.toThrow(/has no option "no-such-form"/);
     expect(stalledActions.length).toBe(before); // the fallbacks called directly are not counted; only steady* count them
-    // The whole path: a sheet over the page takes every pointer event, so Playwright's click waits out its
-    // wait (as on stalled frames); the box is then ticked by its click event, and the fallback counted.
+    // The whole path, twice. A sheet over the page takes every pointer event: a person could not tick the box,
+    // so the fallback must not either — it fails as Playwright's check would, nothing ticked and nothing counted.
     await steadyClick(limits);
     await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(0);
     await page.evaluate(() => {
@@ -177,9 +177,19 @@ describe('candidate forms in the editor (e2e)', () => {
       document.body.append(sheet);
     });
     try {
-      await steadyCheck(limits, 1_500);
+      await expect(steadyCheck(limits, 1_500)).rejects.toThrow(/covered by <div#pointer-sheet>/);
     } finally {
       await page.evaluate(() => document.getElementById('pointer-sheet')?.remove());
+    }
+    expect(await limits.isChecked()).toBe(false);
+    expect(stalledActions.length).toBe(before);
+    // A box that never keeps one place for two frames (a wobble: as on stalled frames, Playwright's wait for
+    // "stable" runs out) but is on top where a person would click: its click event ticks it, and the fallback is counted.
+    await limits.evaluate((box) => box.animate([{ transform: 'translateX(0)' }, { transform: 'translateX(3px)' }], { duration: 200, iterations: Infinity, direction: 'alternate' }));
+    try {
+      await steadyCheck(limits, 1_500);
+    } finally {
+      await limits.evaluate((box) => box.getAnimations().forEach((a) => a.cancel()));
     }
     await expect.poll(() => card.getByLabel('Lowest heating_valve_pct (%)').count(), POLL).toBe(1);
     expect(stalledActions.slice(before)).toEqual([expect.stringMatching(/^check .*The actuator has limits/)]);

@@ -15,6 +15,7 @@ import { terminalText } from '../../src/cli/terminal';
 import type { Assessment } from '../../src/pipeline/assessment';
 import { comparisonSection } from '../../src/pipeline/report/reportComparison';
 import type { ReportInput } from '../../src/pipeline/report/reportInput';
+import { shareText, sharesText } from '../../src/core/shareText';
 
 const estimate = (value: number) => ({ value, standardError: 0.1, percentile: [value - 0.2, value + 0.2] as [number, number], basic: [value - 0.2, value + 0.2] as [number, number], replicates: 100, failedReplicates: 0 });
 const difference = (a: string, b: string, probabilityBetter: number) => ({ a, b, difference: estimate(-1), probabilityBetter });
@@ -55,5 +56,59 @@ describe('a column of shares at one precision', () => {
     const files = (folder: string): string[] => readdirSync(folder).flatMap((n) => (statSync(join(folder, n)).isDirectory() ? files(join(folder, n)) : /\.tsx$/.test(n) ? [join(folder, n)] : []));
     const cellByCell = files(root).flatMap((path) => readFileSync(path, 'utf8').split('\n').flatMap((line, i) => (/<td\b[^>]*>[^<]*\bshareText\(/.test(line) ? [`${relative(root, path)}:${i + 1}`] : [])));
     expect(cellByCell).toEqual([]);
+  });
+});
+
+/**
+ * A share below 1 never reads "100": 1999 of 2000 resamples is 0.9995, which three significant digits
+ * round to "100 %" — "better in 100 % of resamples" would say no resample went the other way. The
+ * bound (k − 1)/k < 1 is arithmetic; the resample counts are the project's range (BOOTSTRAP_RESAMPLES).
+ */
+describe('a share below 1 never reads 100 %, alone or in a column', () => {
+  const hundred = (text: string) => /^100(\.0+)?\u00a0%$/.test(text);
+
+  it('alone: 1999 of 2000 reads 99.95 %, one closer than 0.01 % reads above 99.99 %', () => {
+    expect(shareText(0.9995)).toBe('99.95\u00a0%');
+    expect(shareText(0.9996)).toBe('99.96\u00a0%');
+    expect(shareText(0.99996)).toBe('above 99.99\u00a0%');
+    expect(shareText(0.9994)).toBe('99.9\u00a0%');
+    expect(shareText(1)).toBe('100\u00a0%');
+  });
+
+  it('in a column: 0.9995 beside 0.503 reads 99.95 % beside 50.30 %, never 100.0 %', () => {
+    expect(sharesText([0.9995, 0.503])).toEqual(['99.95\u00a0%', '50.30\u00a0%']);
+    expect(sharesText([0.99996, 0.503])).toEqual(['above 99.99\u00a0%', '50.3\u00a0%']);
+  });
+
+  it('(k − 1) of k resamples, for every k the settings allow up to 100 000, never reads 100', () => {
+    const wrong: string[] = [];
+    for (let k = 20; k <= 100_000; k++) {
+      const s = (k - 1) / k, [alone, column] = [shareText(s), sharesText([s, 0.5])[0]];
+      if (hundred(alone) || hundred(column)) wrong.push(`${k - 1}/${k}: ${alone} | ${column}`);
+    }
+    expect(wrong.slice(0, 5)).toEqual([]);
+  });
+});
+
+/**
+ * The report's standard errors at two significant digits with their trailing zero: 0.9 is "0.90" under
+ * "0.15" (JCGM 100:2008 §7.2.6 gives an uncertainty to at most two significant digits —
+ * common practice; the heating-loop sample's table read "0.15, 0.9, 0.97"). The errors are invented.
+ */
+describe('the report’s s.e. column keeps two significant digits', () => {
+  it('reads 0.15 above 0.90 in the table of candidates against each other, and 1.0 for a J', () => {
+    const withErrors = {
+      ...assessment,
+      candidates: assessment.candidates.map((c, i) => (i === 0 ? { ...c, policyValue: { ...c.policyValue, standardError: 1 } } : c)),
+      comparison: {
+        ...assessment.comparison,
+        differences: assessment.comparison.differences.map((d, i) => ({ ...d, difference: { ...d.difference, standardError: [0.2, 0.2, 0.2, 0.15, 0.9][i] } })),
+      },
+    } as unknown as Assessment;
+    const html = comparisonSection({ assessment: withErrors, evaluation: { valueSense: 'cost' }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 1 } as never).html;
+    const pairwise = html.slice(html.indexOf('Candidates against each other'));
+    const errors = [...pairwise.matchAll(/<tr><td>[^<]*<\/td><td class="num">[^<]*<\/td><td class="num">([^<]*)<\/td>/g)].map((m) => m[1]);
+    expect(errors).toEqual(['0.15', '0.90']);
+    expect(html).toMatch(/<td>A<\/td><td class="num">5\.000<\/td><td class="num">1\.0<\/td>/);
   });
 });

@@ -22,6 +22,12 @@
  *   `input` and `change` (React's onChange for a select reads `change`);
  * - press: the element focused from the page, then the keyboard press, which waits on no frame;
  * - hover: `pointerover`, `pointermove`, `mouseover` and `mousemove` at the same point of the element.
+ * A click, a check or a hover falls back only on an element a person could reach: enabled (a click or
+ * a check; or enabled within APPEAR_WAIT_MS, a button enabled once a run ends) and on top at its centre
+ * (a hover: at its point) once scrolled into view
+ * (`document.elementFromPoint`, which reads the layout and needs no frame; its own label counts, as
+ * Playwright's hit test takes it). An element under a dialog, a sheet or a toast fails as the ordinary
+ * action would, so the fallback never does what a person could not.
  * The caller still checks the action's effect — a step selected, a field's value kept, a tooltip
  * shown — so an action that does nothing still fails. test/support/e2eSteadyActions.test.ts fails when
  * an e2e source calls one of these actions outside this file.
@@ -35,13 +41,19 @@ export const stalledActions: string[] = [];
 const ORDINARY_WAIT_MS = 10_000;
 const APPEAR_WAIT_MS = 30_000;
 
-async function steady(action: string, locator: Locator, waitMs: number, ordinary: (timeout: number) => Promise<unknown>, fallback: () => Promise<void>): Promise<void> {
+async function steady(
+  action: string, locator: Locator, waitMs: number, ordinary: (timeout: number) => Promise<unknown>, fallback: () => Promise<void>, position?: { x: number; y: number },
+): Promise<void> {
   await locator.waitFor({ state: 'visible', timeout: APPEAR_WAIT_MS });
   try {
     await ordinary(waitMs);
   } catch (error) {
     if (!(error instanceof Error) || error.name !== 'TimeoutError') throw error;
     if (action !== 'hover' && !(await enabledWithin(locator, APPEAR_WAIT_MS))) throw error;
+    if (action === 'click' || action === 'check' || action === 'hover') {
+      const cover = await coveredBy(locator, position);
+      if (cover) throw new Error(`${action}: ${String(locator)} is covered by ${cover} ${position ? 'at the point given' : 'at its centre'}; a person could not ${action} it (${error.message.split('\n')[0]})`);
+    }
     stalledActions.push(`${action} ${String(locator)}`);
     await fallback();
   }
@@ -55,6 +67,23 @@ async function enabledWithin(locator: Locator, waitMs: number): Promise<boolean>
     if (Date.now() > deadline) return false;
     await new Promise((r) => setTimeout(r, 100));
   }
+}
+
+/**
+ * What lies on top at the element's centre (or at `position` within it) once it is scrolled into view,
+ * when that is neither the element, nor inside it, nor a label of it; null when a pointer there would reach the element.
+ */
+export function coveredBy(locator: Locator, position?: { x: number; y: number }): Promise<string | null> {
+  return locator.evaluate((element, at) => {
+    element.scrollIntoView({ block: 'center', inline: 'center' });
+    const box = element.getBoundingClientRect();
+    const top = document.elementFromPoint(box.left + (at ? at.x : box.width / 2), box.top + (at ? at.y : box.height / 2));
+    if (!top || element.contains(top)) return top ? null : 'nothing (the centre is outside the window)';
+    const label = top.closest('label');
+    if (label && (label.control === element || label.contains(element))) return null;
+    const name = (e: Element) => `<${e.tagName.toLowerCase()}${e.id ? `#${e.id}` : ''}${typeof e.className === 'string' && e.className ? `.${e.className.trim().split(/\s+/).join('.')}` : ''}>`;
+    return name(top);
+  }, position ?? null);
 }
 
 export function steadyClick(locator: Locator, waitMs = ORDINARY_WAIT_MS): Promise<void> {
@@ -79,7 +108,7 @@ export function steadyPress(locator: Locator, key: string, waitMs = ORDINARY_WAI
 
 /** A hover at `position` (pixels from the element's top-left corner; default its centre). */
 export function steadyHover(locator: Locator, position?: { x: number; y: number }, waitMs = ORDINARY_WAIT_MS): Promise<void> {
-  return steady('hover', locator, waitMs, (timeout) => locator.hover({ timeout, position }), () => moveAsPointer(locator, position));
+  return steady('hover', locator, waitMs, (timeout) => locator.hover({ timeout, position }), () => moveAsPointer(locator, position), position);
 }
 
 /** The fallback of steadyCheck: a click on a box not yet checked; the box must be checked after it. */

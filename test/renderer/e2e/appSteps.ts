@@ -17,8 +17,10 @@ export interface CandidateInput {
   std: number;
 }
 
+/** Click a step's tab and wait until it is the selected one: a click that changed nothing (its fallback's event lost) fails here. */
 export async function goToStep(page: Page, step: 'plant-log' | 'candidates' | 'estimator' | 'run' | 'findings'): Promise<void> {
   await steadyClick(page.getByTestId(`step-${step}`));
+  await page.locator(`[data-testid="step-${step}"][aria-selected="true"]`).waitFor({ timeout: 15_000 });
 }
 
 /** Choose a CSV through the scripted open-data dialog. */
