@@ -4,6 +4,7 @@ import { plantMemorySentence } from '../pipeline/plantMemoryWords';
 import { policyLabel } from '../pipeline/policyNames';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { shareText, sharesText } from '../core/shareText';
+import { loggedReturnRole } from '../core/loggedReturn';
 import { beyondPossibleSentence, rankingVerdict } from '../figures/charts/sensitivity';
 import { textTable as table } from './textTable';
 import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
@@ -22,7 +23,8 @@ function estimateRow(name: string, e: IntervalEstimate): string[] {
 
 const settledWord = (settled: boolean | null): string => (settled === null ? 'one class' : settled ? 'settled' : 'NOT SETTLED');
 
-export function formatAssessment(a: Assessment): string {
+/** `completedShown`: whether the logged return completed past time limits gets its own row (core/loggedReturn.ts truncationMatters of the evaluation's logged return). */
+export function formatAssessment(a: Assessment, completedShown = true): string {
   const level = shareText(a.settings.level);
   const rows = [['policy', 'J', 'bootstrap s.e.', `${level} percentile`, `${level} basic`, 'range to report', 'function classes', 'cross-checks', 'occupancy shift']];
   for (const c of a.candidates) {
@@ -30,8 +32,8 @@ export function formatAssessment(a: Assessment): string {
   }
   const pc = a.presentController;
   if (pc) rows.push([...estimateRow(`${PRESENT_CONTROLLER} [baseline]`, pc.policyValue), interval(pc.policyValue.percentile), '', pc.confirmation.status, ratioText(pc.occupancyShift)]);
-  rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
-  if (pc) rows.push([...estimateRow(`${LOGGED_RETURN}, completed past time limits (check)`, pc.completedReturn), '', '', '', '']);
+  rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (${loggedReturnRole(true, completedShown)})` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
+  if (pc && completedShown) rows.push([...estimateRow(`${LOGGED_RETURN}, completed past time limits (check)`, pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
   // The shares down the column at one precision (core/shareText.ts, sharesText): "50.0 %" under "99.5 %".
   const firstBetterIn = sharesText(a.comparison.differences.map((d) => d.probabilityBetter));

@@ -14,6 +14,7 @@ import { CONFIDENCE_LEVEL } from '../core/limits';
 import { createTerminalProgress } from './terminalProgress';
 import { exitStatusOf } from './exitStatus';
 import { processTerminal, type Terminal } from './terminal';
+import { truncationMatters } from '../core/loggedReturn';
 
 export async function runEvaluateCommand(projectPath: string, options: { json: boolean; terminal?: Terminal } & AssessmentOverrides): Promise<number> {
   const terminal = options.terminal ?? processTerminal;
@@ -36,7 +37,7 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     terminal.out(formatImport(imported, project.data.path));
     terminal.out(formatCandidates(project));
     terminal.out(formatEvaluation(evaluation, basename(projectPath), assessment.ok ? assessment.value : null));
-    terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value)}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
+    terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value, truncationMatters(evaluation.behaviour))}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
     if (retuneMaps.ok) retuneMaps.value.forEach((map) => terminal.out(`\n${formatRetuneMap(map, level)}`));
     else terminal.out(`\nRetune maps not computed: ${describeProblems(retuneMaps.problems)}\n`);
     terminal.out(formatCautions(evaluation));

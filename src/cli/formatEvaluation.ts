@@ -1,7 +1,7 @@
 /** The readable table `evaluate` prints by default. */
 import { COMPARATOR_DEGREE } from '../core/fqe/comparatorDegree';
 import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
-import { truncationSentence } from '../core/loggedReturn';
+import { loggedReturnRole, truncationMatters, truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
@@ -57,14 +57,14 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     const [value, error] = withError(p.policyValue, p.standardError, iv), d = rowDecimals(iv, p.standardError);
     rows.push([p.name, shown ? value : 'no value', shown ? error : '', atDecimals(p.fixedPointValue, d), p.status === 'converged' ? `converged (${p.iterations} it.)` : STATUS_WORDS[p.status]]);
   });
-  const pc = e.presentController, truncation = truncationSentence(e.behaviour);
+  const pc = e.presentController, truncation = truncationSentence(e.behaviour), completed = truncationMatters(e.behaviour);
   if (pc) {
     const x = pc.estimate, shown = x.status !== 'diverged', iv = assessment?.presentController?.policyValue.percentile ?? null;
     const [value, error] = withError(x.policyValue, x.standardError, iv), d = rowDecimals(iv, x.standardError);
     rows.push([`${PRESENT_CONTROLLER} [baseline]`, shown ? value : 'no value', shown ? error : '', atDecimals(x.fixedPointValue, d), x.status === 'converged' ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
-    rows.push([`${LOGGED_RETURN}, completed past time limits (check)`, ...withError(pc.completedReturn.value, pc.completedReturn.standardError, assessment?.presentController?.completedReturn.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
+    if (completed) rows.push([`${LOGGED_RETURN}, completed past time limits (check)`, ...withError(pc.completedReturn.value, pc.completedReturn.standardError, assessment?.presentController?.completedReturn.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   }
-  rows.push([pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
+  rows.push([pc ? `${LOGGED_RETURN} (${loggedReturnRole(true, completed)})` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
     `Values are the ${sense}, discount ${s.discount}.`,

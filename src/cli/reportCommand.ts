@@ -14,6 +14,7 @@ import { exitStatusOf } from './exitStatus';
 import { createTerminalProgress } from './terminalProgress';
 import { destinationRefusal } from './reportDestination';
 import { processTerminal, type Terminal } from './terminal';
+import { truncationMatters } from '../core/loggedReturn';
 
 export interface ReportCommandOptions extends AssessmentOverrides {
   /** Where to write the HTML; default "<project name>-report.html" in the working folder. */
@@ -39,7 +40,7 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   } catch (e) {
     return fail(`Cannot write the report to ${out}: ${(e as Error).message}`);
   }
-  if (assessment.ok) terminal.out(formatAssessment(assessment.value));
+  if (assessment.ok) terminal.out(formatAssessment(assessment.value, truncationMatters(evaluation.behaviour)));
   else terminal.err(`The report has no intervals or diagnostics: ${input.assessmentProblems.join('; ')}\n`);
   terminal.out(`Report written to ${out}\n`);
   return exitStatusOf(evaluation);

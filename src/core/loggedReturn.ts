@@ -73,12 +73,28 @@ export function loggedDiscountedReturns(data: TransitionSet, discounts: readonly
 export const TRUNCATION_NOTICE = 1e-3;
 
 /**
+ * Whether the value past the runs' time-limited ends weighs enough to be said (the mean missing weight
+ * above TRUNCATION_NOTICE, the sentence's own rule). Below it the logged return completed past the ends
+ * differs from the cut-short one by less than that share of the values' scale, and every host shows one
+ * logged-return row instead of two rows with the same number (greenhouse runs of 500 steps at γ 0.95:
+ * a weight of 7 × 10⁻¹²).
+ */
+export function truncationMatters(r: Pick<LoggedReturn, 'meanTruncationWeight'>): boolean {
+  return r.meanTruncationWeight > TRUNCATION_NOTICE;
+}
+
+/** The logged return's row label where a completed row may stand beside it (CLI, report): which of the two it is, or its role alone. */
+export function loggedReturnRole(presentController: boolean, completedShown: boolean): string {
+  return !presentController ? 'baseline' : completedShown ? 'check; cut short at time limits' : 'check';
+}
+
+/**
  * The sentence on truncated runs, or null when the mean missing weight is below TRUNCATION_NOTICE:
  * the mean sizes the bias of the mean logged return; one short run (a log that ends mid-run) alone
  * makes the largest weight large without biasing the mean much, so both are stated.
  */
 export function truncationSentence(r: Pick<LoggedReturn, 'meanTruncationWeight' | 'largestTruncationWeight'>): string | null {
-  if (!(r.meanTruncationWeight > TRUNCATION_NOTICE)) return null;
+  if (!truncationMatters(r)) return null;
   const [mean, largest] = sharesText([r.meanTruncationWeight, r.largestTruncationWeight]);
   return `Logged runs are short for this discount: on average ${mean} of the return’s weight lies beyond their end ` +
     `(${largest} on the shortest run cut short, by a time limit or the end of the log), so the logged return is biased toward zero`;

@@ -9,6 +9,7 @@ import { LOGGED_RETURN, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../../fig
 import { policyLabel } from '../policyNames';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { shareText, sharesText } from '../../core/shareText';
+import { loggedReturnRole, truncationMatters } from '../../core/loggedReturn';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
   const a = input.assessment;
@@ -20,10 +21,13 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
   const words = senseWords(input), level = shareText(a.settings.level);
   const baseline = a.comparison.baseline, pc = a.presentController;
   const vsBaseline = new Map(a.comparison.differences.filter((d) => d.b === baseline.name).map((d) => [d.a, d]));
+  // The completed logged return gets a row of its own only where the value past the runs' ends weighs enough to be said (core/loggedReturn.ts).
+  const completed = truncationMatters(input.evaluation.behaviour);
   const rows = [
     ...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue, present: false })),
-    ...(pc ? [{ name: `${PRESENT_CONTROLLER} — baseline`, estimate: pc.policyValue, present: true }, { name: `${LOGGED_RETURN}, completed past time limits (check)`, estimate: pc.completedReturn, present: false }] : []),
-    { name: pc ? `${LOGGED_RETURN} (check; cut short at time limits)` : `${LOGGED_RETURN} — baseline`, estimate: a.behaviour, present: !pc },
+    ...(pc ? [{ name: `${PRESENT_CONTROLLER} — baseline`, estimate: pc.policyValue, present: true }] : []),
+    ...(pc && completed ? [{ name: `${LOGGED_RETURN}, completed past time limits (check)`, estimate: pc.completedReturn, present: false }] : []),
+    { name: pc ? `${LOGGED_RETURN} (${loggedReturnRole(true, completed)})` : `${LOGGED_RETURN} — baseline`, estimate: a.behaviour, present: !pc },
   ];
   // "Better than the baseline in", down the column at one precision (core/shareText.ts, sharesText).
   const differenceOf = rows.map((r) => (r.present ? undefined : vsBaseline.get(r.name)));

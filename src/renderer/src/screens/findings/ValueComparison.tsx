@@ -20,6 +20,8 @@ import { intervalDetail, levelText } from './assessmentWords';
 import { ExportPanel } from './ExportPanel';
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
+import { TRUNCATION_NOTICE, truncationMatters } from '../../../../core/loggedReturn';
+import { shareText } from '../../../../core/shareText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 
@@ -46,6 +48,8 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
   const level = assessment?.settings.level ?? 0;
   const sense = evaluation.valueSense === 'cost' ? `J is the expected discounted cost${unit ? ` in ${unit}` : ''} from the start states on (lower is better)` : `J is the expected discounted reward${unit ? ` in ${unit}` : ''} from the start states on (higher is better)`;
   const b = evaluation.behaviour, pc = evaluation.presentController;
+  // The completed logged return has a row only where the value past the runs' ends weighs enough to be said (core/loggedReturn.ts).
+  const completed = truncationMatters(b);
   // With intervals computed, every J here is written at its interval's decimal place, as the answer table writes it.
   const presentInterval = assessment?.presentController?.policyValue.percentile ?? null;
   const completedInterval = assessment?.presentController?.completedReturn.percentile ?? null, loggedInterval = assessment?.behaviour.percentile ?? null;
@@ -97,7 +101,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
               <td className="small">The controller that ran while the log was recorded, as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.</td>
             </tr>
           )}
-          {pc && (
+          {pc && completed && (
             <tr data-testid="value-row-completed">
               <th scope="row">Logged return, completed <span className="small muted">(check)</span></th>
               <td className="number" data-value={String(pc.completedReturn.value)}>{valueWithError(pc.completedReturn.value, pc.completedReturn.standardError, completedInterval).value}</td>
@@ -115,7 +119,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
             {assessment && <IntervalCell estimate={assessment.behaviour} level={level} testId="behaviour-interval" />}
             <td className="number">—</td>
             <td>{plural(b.episodes, 'run')}</td>
-            <td className="small">The discounted {evaluation.valueSense} actually logged, averaged over the runs; cut short where a run ends on a time limit{pc ? '' : ` (no model of the present controller: ${evaluation.presentControllerReason})`}.</td>
+            <td className="small">The discounted {evaluation.valueSense} actually logged, averaged over the runs; cut short where a run ends on a time limit{pc && !completed && b.meanTruncationWeight > 0 ? ` (the value past those ends weighs ${shareText(b.meanTruncationWeight)} of the return on average, under the ${shareText(TRUNCATION_NOTICE)} from which a completed row is shown)` : ''}{pc ? '' : ` (no model of the present controller: ${evaluation.presentControllerReason})`}.</td>
           </tr>
         </tbody>
       </table>
