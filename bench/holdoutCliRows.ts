@@ -61,7 +61,9 @@ function option(args: string[], name: string, fallback: string): string {
 
 function csvOf(plant: BatteryPlant, data: ReturnType<BatteryPlant['simulate']>): string {
   const ds = data.stateDim, m = data.actionDim;
-  const head = ['run', ...plant.stateNames, ...plant.actionNames, 'r', ...plant.stateNames.map((n) => `next_${n}`)];
+  // Runs that end in an end state (the kettle) carry it in a column of their own, as a project declares it (columns.terminal).
+  const ends = data.terminal.some((t) => t !== 0);
+  const head = ['run', ...plant.stateNames, ...plant.actionNames, 'r', ...plant.stateNames.map((n) => `next_${n}`), ...(ends ? ['done'] : [])];
   const lines = [head.join(',')];
   for (let i = 0; i < data.count; i++) {
     const row = [String(data.episode[i])];
@@ -69,12 +71,13 @@ function csvOf(plant: BatteryPlant, data: ReturnType<BatteryPlant['simulate']>):
     for (let j = 0; j < m; j++) row.push(String(data.actions[i * m + j]));
     row.push(String(data.rewards[i]));
     for (let j = 0; j < ds; j++) row.push(String(data.nextStates[i * ds + j]));
+    if (ends) row.push(String(data.terminal[i]));
     lines.push(row.join(','));
   }
   return `${lines.join('\n')}\n`;
 }
 
-function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed: number): object {
+function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed: number, ends: boolean): object {
   const candidates = plant.candidates.map((c) => {
     const spec = c.spec as { offset: number[]; gain: number[][]; std: number[]; bounds?: { lo: number[]; hi: number[]; mode: string } };
     return { name: c.name, offset: [...spec.offset], gain: spec.gain.map((r) => [...r]), std: [...spec.std], ...(spec.bounds ? { bounds: spec.bounds } : {}) };
@@ -85,7 +88,7 @@ function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed:
       states: plant.stateNames.map((column) => ({ column })), actions: plant.actionNames.map((column) => ({ column })),
       reward: { kind: 'column', column: 'r', sense: 'reward' },
       nextState: { kind: 'columns', columns: plant.stateNames.map((n) => `next_${n}`) },
-      episode: { kind: 'column', column: 'run' },
+      episode: { kind: 'column', column: 'run' }, ...(ends ? { terminal: 'done' } : {}),
     },
     discount: plant.discount, candidates,
     approximator: approximator === 'network' ? { kind: 'network' } : { kind: 'linear', features: { kind: 'polynomial', degree: 2 } },
@@ -109,7 +112,7 @@ async function main() {
     const data = plant.simulate({ transitions, seed }), csv = `${plant.name}-s${seed}.csv`;
     writeFileSync(join(work, csv), csvOf(plant, data));
     const projectPath = join(work, `${plant.name}-s${seed}-${approximator}.spcritic`);
-    writeFileSync(projectPath, JSON.stringify(projectOf(plant, csv, approximator, seed), null, 2));
+    writeFileSync(projectPath, JSON.stringify(projectOf(plant, csv, approximator, seed, data.terminal.some((t) => t !== 0)), null, 2));
     const cli = cliCommand('evaluate', projectPath, '--json', ...(resamples ? ['--resamples', resamples] : []));
     const started = Date.now();
     const run = spawnSync(process.execPath, cli.args, { encoding: 'utf8', maxBuffer: 1 << 30 });
