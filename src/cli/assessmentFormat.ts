@@ -32,7 +32,7 @@ export function formatAssessment(a: Assessment, completedShown = true): string {
   }
   const pc = a.presentController;
   if (pc) rows.push([...estimateRow(`${PRESENT_CONTROLLER} [baseline]`, pc.policyValue), interval(pc.policyValue.percentile), '', pc.confirmation.status, ratioText(pc.occupancyShift)]);
-  rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (${loggedReturnRole(true, completedShown)})` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
+  rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (${loggedReturnRole(completedShown)})` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
   if (pc && completedShown) rows.push([...estimateRow(`${LOGGED_RETURN}, completed past time limits (check)`, pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
   // The shares down the column at one precision (core/shareText.ts, sharesText): "50.0 %" under "99.5 %".

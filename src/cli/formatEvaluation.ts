@@ -64,7 +64,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     rows.push([`${PRESENT_CONTROLLER} [baseline]`, shown ? value : 'no value', shown ? error : '', atDecimals(x.fixedPointValue, d), x.status === 'converged' ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
     if (completed) rows.push([`${LOGGED_RETURN}, completed past time limits (check)`, ...withError(pc.completedReturn.value, pc.completedReturn.standardError, assessment?.presentController?.completedReturn.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   }
-  rows.push([pc ? `${LOGGED_RETURN} (${loggedReturnRole(true, completed)})` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
+  rows.push([pc ? `${LOGGED_RETURN} (${loggedReturnRole(completed)})` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
     `Values are the ${sense}, discount ${s.discount}.`,

@@ -83,9 +83,9 @@ export function truncationMatters(r: Pick<LoggedReturn, 'meanTruncationWeight'>)
   return r.meanTruncationWeight > TRUNCATION_NOTICE;
 }
 
-/** The logged return's row label where a completed row may stand beside it (CLI, report): which of the two it is, or its role alone. */
-export function loggedReturnRole(presentController: boolean, completedShown: boolean): string {
-  return !presentController ? 'baseline' : completedShown ? 'check; cut short at time limits' : 'check';
+/** The logged return's role beside the present controller (CLI, report): which of the two rows it is where a completed row stands beside it. */
+export function loggedReturnRole(completedShown: boolean): string {
+  return completedShown ? 'check; cut short at time limits' : 'check';
 }
 
 /**
