@@ -103,7 +103,7 @@ describe('3. one title for the values chart', () => {
       settings: { level: 0.9, resamples: 100, episodes: 40 }, candidates: [{ name: 'PI', policyValue: estimate }], presentController: null, behaviour: estimate,
       comparison: { baseline: { name: 'logged', note: '' }, differences: [], ranking: { order: ['PI'], frequency: 1, neighbours: [] } },
     } as unknown as Assessment;
-    const report = comparisonSection({ assessment, evaluation: { valueSense: 'cost' }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 2 } as never).html;
+    const report = comparisonSection({ assessment, evaluation: { valueSense: 'cost', behaviour: { meanTruncationWeight: 0.2 } }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 2 } as never).html;
     expect(report).toContain(`Figure 2. ${VALUES_CHART_TITLE}, beside the baseline`);
   });
 });

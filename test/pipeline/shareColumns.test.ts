@@ -47,7 +47,7 @@ describe('a column of shares at one precision', () => {
   });
 
   it('the report’s comparison against the baseline and its table of candidates against each other', () => {
-    const html = comparisonSection({ assessment, evaluation: { valueSense: 'cost' }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 1 } as never).html;
+    const html = comparisonSection({ assessment, evaluation: { valueSense: 'cost', behaviour: { meanTruncationWeight: 0.2 } }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 1 } as never).html;
     expect(resampleCells(html)).toEqual(['99.5 % of resamples', '50.0 % of resamples', '87.1 % of resamples', '62.0 % of resamples', '93.8 % of resamples']);
   });
 
@@ -105,7 +105,7 @@ describe('the report’s s.e. column keeps two significant digits', () => {
         differences: assessment.comparison.differences.map((d, i) => ({ ...d, difference: { ...d.difference, standardError: [0.2, 0.2, 0.2, 0.15, 0.9][i] } })),
       },
     } as unknown as Assessment;
-    const html = comparisonSection({ assessment: withErrors, evaluation: { valueSense: 'cost' }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 1 } as never).html;
+    const html = comparisonSection({ assessment: withErrors, evaluation: { valueSense: 'cost', behaviour: { meanTruncationWeight: 0.2 } }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 1 } as never).html;
     const pairwise = html.slice(html.indexOf('Candidates against each other'));
     const errors = [...pairwise.matchAll(/<tr><td>[^<]*<\/td><td class="num">[^<]*<\/td><td class="num">([^<]*)<\/td>/g)].map((m) => m[1]);
     expect(errors).toEqual(['0.15', '0.90']);

@@ -50,6 +50,8 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
   const b = evaluation.behaviour, pc = evaluation.presentController;
   // The completed logged return has a row only where the value past the runs' ends weighs enough to be said (core/loggedReturn.ts).
   const completed = truncationMatters(b);
+  const endsWeigh = pc && !completed && b.meanTruncationWeight > 0
+    ? ` (the value past those ends weighs ${shareText(b.meanTruncationWeight)} of the return on average, under the ${shareText(TRUNCATION_NOTICE)} from which a completed row is shown)` : '';
   // With intervals computed, every J here is written at its interval's decimal place, as the answer table writes it.
   const presentInterval = assessment?.presentController?.policyValue.percentile ?? null;
   const completedInterval = assessment?.presentController?.completedReturn.percentile ?? null, loggedInterval = assessment?.behaviour.percentile ?? null;
@@ -119,7 +121,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
             {assessment && <IntervalCell estimate={assessment.behaviour} level={level} testId="behaviour-interval" />}
             <td className="number">—</td>
             <td>{plural(b.episodes, 'run')}</td>
-            <td className="small">The discounted {evaluation.valueSense} actually logged, averaged over the runs; cut short where a run ends on a time limit{pc && !completed && b.meanTruncationWeight > 0 ? ` (the value past those ends weighs ${shareText(b.meanTruncationWeight)} of the return on average, under the ${shareText(TRUNCATION_NOTICE)} from which a completed row is shown)` : ''}{pc ? '' : ` (no model of the present controller: ${evaluation.presentControllerReason})`}.</td>
+            <td className="small">The discounted {evaluation.valueSense} actually logged, averaged over the runs; cut short where a run ends on a time limit{endsWeigh}{pc ? '' : ` (no model of the present controller: ${evaluation.presentControllerReason})`}.</td>
           </tr>
         </tbody>
       </table>
