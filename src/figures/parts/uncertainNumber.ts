@@ -95,6 +95,18 @@ export function valueAtPrecision(value: number | null | undefined, iv: readonly 
 }
 
 /**
+ * A standard error read alone, at two significant digits with its trailing zero ("0.90", "1.0"): the plain
+ * style drops it, and "0.9" under "0.15" and "0.97" reads as one digit (JCGM 100 §7.2.6: an uncertainty to
+ * at most two significant digits — common practice); the plain style where the decimals rule does not apply,
+ * "—" for none.
+ */
+export function errorAtPrecision(error: number | null | undefined, minus: Minus = TRUE_MINUS): string {
+  if (error === null || error === undefined || !Number.isFinite(error)) return '—';
+  const d = errorDecimals(error);
+  return d === null ? plainNumber(error, 2, minus) : atDecimals(error, d, minus);
+}
+
+/**
  * A value and its standard error at one precision: at the interval's place where the value is also
  * shown with one (so one J reads alike beside its interval and beside its error), else the error to
  * two significant digits and the value to the same place; without either, the plain style (the error to two digits).

@@ -1,8 +1,8 @@
 /** The comparison section: J of every policy with its intervals, paired differences and the ranking. */
 import type { Assessment, IntervalEstimate } from '../assessment';
 import { FIT_STATUS_WORDS } from '../../core/fqe/fitStatus';
-import { formatNumber, html, raw, type Html } from './htmlText';
-import { atDecimals, errorDecimals, intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
+import { html, raw, type Html } from './htmlText';
+import { errorAtPrecision, intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
 import { LOGGED_RETURN, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../../figures/parts/plotTheme';
@@ -59,20 +59,10 @@ function resampleShare(text: string, share: number | null): string {
   return share === null ? '—' : `${text} of resamples`;
 }
 
-/**
- * A standard error at two significant digits with its trailing zero ("0.90", "1.0"): the plain style dropped
- * it, and "0.9" under "0.15" and "0.97" reads as one digit (JCGM 100 §7.2.6: an uncertainty to at most two
- * significant digits — common practice); the plain style where the decimals rule does not apply.
- */
-function errorText(error: number | null | undefined): string {
-  const d = errorDecimals(error);
-  return d === null ? formatNumber(error, 2) : atDecimals(error, d);
-}
-
 /** J, its bootstrap s.e. (two significant digits) and its two intervals, each at the precision its interval carries. */
 /** J, s.e. and both intervals; a value without an interval (the model rollouts) at the decimals of `precision` (the candidate's J interval) where given. */
 export function estimateCells(e: IntervalEstimate, precision: readonly [number, number] | null = null): Html {
-  return html`<td class="num">${valueAtPrecision(e.value, e.percentile ?? precision)}</td><td class="num">${errorText(e.standardError)}</td>
+  return html`<td class="num">${valueAtPrecision(e.value, e.percentile ?? precision)}</td><td class="num">${errorAtPrecision(e.standardError)}</td>
     <td class="num">${intervalAtPrecision(e.percentile)}</td><td class="num">${intervalAtPrecision(e.basic)}</td>`;
 }
 
@@ -82,7 +72,7 @@ function pairwise(a: Assessment, level: string): Html {
   const firstBetterIn = sharesText(between.map((d) => d.probabilityBetter));
   return html`<h3>Candidates against each other</h3>
     <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">First better in</th></tr></thead><tbody>
-    ${between.map((d, i) => html`<tr><td>${policyLabel(d.a)} − ${policyLabel(d.b)}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${errorText(d.difference.standardError)}</td>
+    ${between.map((d, i) => html`<tr><td>${policyLabel(d.a)} − ${policyLabel(d.b)}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${errorAtPrecision(d.difference.standardError)}</td>
       <td class="num">${intervalAtPrecision(d.difference.percentile)}</td><td class="num">${resampleShare(firstBetterIn[i], d.probabilityBetter)}</td></tr>`)}
     </tbody></table>`;
 }
