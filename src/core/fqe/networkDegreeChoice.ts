@@ -216,11 +216,11 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   }
   const other = degrees.find((x) => x !== base) ?? base, rows = `${scored.length} runs, each scored on fits over the other runs`;
   // The two errors are compared in one sentence: one precision (core/shareText.ts sharesText).
-  const [chosenError, baseError] = sharesText([relativeError[degrees.indexOf(chosen)], relativeError[0]]);
-  const [otherError, ownError] = sharesText([relativeError[degrees.indexOf(other)], relativeError[0]]);
+  // The degree set against the default: the one chosen, or else the other one compared.
+  const [comparedError, baseError] = sharesText([relativeError[degrees.indexOf(chosen !== base ? chosen : other)], relativeError[0]]);
   const sentence = chosen !== base
-    ? `Polynomial part of degree ${chosen}: it predicted the present controller’s held-out returns better than degree ${base} (root mean squared error ${chosenError} against ${baseError} of the return, by more than ${CHOICE_STANDARD_ERRORS} standard errors; ${rows}).`
-    : `Polynomial part of degree ${base}: degree ${other} did not predict the present controller’s held-out returns better by more than ${CHOICE_STANDARD_ERRORS} standard errors (root mean squared error ${otherError} against ${ownError} of the return; ${rows}).`;
+    ? `Polynomial part of degree ${chosen}: it predicted the present controller’s held-out returns better than degree ${base} (root mean squared error ${comparedError} against ${baseError} of the return, by more than ${CHOICE_STANDARD_ERRORS} standard errors; ${rows}).`
+    : `Polynomial part of degree ${base}: degree ${other} did not predict the present controller’s held-out returns better by more than ${CHOICE_STANDARD_ERRORS} standard errors (root mean squared error ${comparedError} against ${baseError} of the return; ${rows}).`;
   return { degrees, chosen, meanSquaredError, relativeError, difference, standardError, runsScored: scored.length, rowsScored, notCompared: null, sentence };
 }
 
