@@ -162,5 +162,5 @@ async function refitNetwork(context: AssessmentContext, w: CandidateWork, settin
 function finish(
   parameter: SensitivityCurve['parameter'], label: string, settings: number[], projectIndex: number, series: SensitivitySeries[], sign: number,
 ): SensitivityCurve {
-  return { parameter, label, settings, projectIndex, series, ...sweepRanking(settings, series, sign) };
+  return { parameter, label, settings, projectIndex, series, ...sweepRanking(settings, series, sign, projectIndex) };
 }

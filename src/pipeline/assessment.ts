@@ -195,6 +195,16 @@ export interface SensitivityCurve {
   rankingStable: boolean;
   /** Settings (indices) the ranking verdict leaves out because a J there is crossed (a series' beyondPossible; the project's own too, pipeline/sweepRanking.ts); absent when none. */
   leftOut?: number[];
+  /** Where the ranking is not stable: each kept setting whose order differs from the project's own (or, where that is left out, the first kept), with the pairs that stand the other way round; absent when stable. */
+  rankingChanges?: RankingChange[];
+}
+
+/** One swept setting at which the ranking differs from the reference setting's (pipeline/sweepRanking.ts). */
+export interface RankingChange {
+  /** Index into the sweep's settings. */
+  at: number;
+  /** [ahead, behind] at this setting, each pair ranked the other way round at the reference setting; series names. */
+  swapped: [string, string][];
 }
 
 export interface Sensitivity {

@@ -5,13 +5,31 @@
  * settings kept with each other; with fewer than two kept there is nothing to compare, and
  * figures/charts/sensitivity.ts rankingVerdict says so.
  */
-import type { SensitivityCurve, SensitivitySeries } from './assessment';
+import type { RankingChange, SensitivityCurve, SensitivitySeries } from './assessment';
 
+/**
+ * projectIndex: the project's own setting, against whose order the changes are named (rankingChanges);
+ * where it is left out, the first setting kept. sign: +1 where a larger J is better (a reward), −1 for a cost.
+ */
 export function sweepRanking(
-  settings: readonly number[], series: readonly SensitivitySeries[], sign: number,
-): Pick<SensitivityCurve, 'rankingStable' | 'leftOut'> {
-  const orderAt = (i: number) => series.filter((s) => s.values[i] !== null).sort((x, y) => sign * ((y.values[i] as number) - (x.values[i] as number))).map((s) => s.name).join('>');
+  settings: readonly number[], series: readonly SensitivitySeries[], sign: number, projectIndex = 0,
+): Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'rankingChanges'> {
+  const orderAt = (i: number) => series.filter((s) => s.values[i] !== null).sort((x, y) => sign * ((y.values[i] as number) - (x.values[i] as number))).map((s) => s.name);
   const leftOut = settings.flatMap((_, i) => (series.some((s) => s.beyondPossible?.[i]) ? [i] : []));
-  const kept = settings.flatMap((_, i) => (leftOut.includes(i) ? [] : [orderAt(i)]));
-  return { rankingStable: kept.every((order) => order === kept[0]), ...(leftOut.length ? { leftOut } : {}) };
+  const kept = settings.flatMap((_, i) => (leftOut.includes(i) ? [] : [i]));
+  const key = (i: number) => orderAt(i).join('>');
+  const rankingStable = kept.every((i) => key(i) === key(kept[0]));
+  const reference = kept.includes(projectIndex) ? projectIndex : kept[0];
+  const rankingChanges = rankingStable || reference === undefined ? [] : kept.flatMap((i) => {
+    const swapped = swappedPairs(orderAt(reference), orderAt(i));
+    return swapped.length ? [{ at: i, swapped }] : [];
+  });
+  return { rankingStable, ...(leftOut.length ? { leftOut } : {}), ...(rankingChanges.length ? { rankingChanges } : {}) };
+}
+
+/** The pairs [ahead, behind] as ranked in `order` whose two stand the other way round in `reference` (both ranked in each). */
+function swappedPairs(reference: readonly string[], order: readonly string[]): RankingChange['swapped'] {
+  const place = new Map(reference.map((name, i) => [name, i]));
+  const ranked = order.filter((name) => place.has(name));
+  return ranked.flatMap((ahead, i) => ranked.slice(i + 1).flatMap((behind): [string, string][] => (place.get(ahead)! > place.get(behind)! ? [[ahead, behind]] : [])));
 }

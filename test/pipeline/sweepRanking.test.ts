@@ -21,27 +21,58 @@ describe('the ranking verdict of a sweep with crossed points', () => {
     const ranking = sweepRanking(settings, series, -1);
     expect(ranking.leftOut).toEqual([2]);
     expect(ranking.rankingStable).toBe(true); // B before A at every setting kept
-    const curve = { ...ranking, settings, parameter: 'discount' };
+    const curve = { ...ranking, settings, parameter: 'discount', projectIndex: 2 };
     expect(rankingVerdict(curve)).toBe('the ranking is the same at every setting without a crossed J (left out: 0.95, where a J is crossed)');
     expect(sweepsVerdict([{ ...ranking, series }])).toMatch(/^the ranking is the same at every setting without a crossed J; some J are crossed/);
   });
 
   it('says the ranking changes where it changes between settings kept', () => {
     const series = [serie('A', [3, 6, 7, 8, 1], [4]), serie('B', [4, 5, 6, 7, 8])];
-    const ranking = sweepRanking(settings, series, -1);
-    expect(ranking).toEqual({ rankingStable: false, leftOut: [4] });
-    expect(rankingVerdict({ ...ranking, settings, parameter: 'discount' })).toBe('the ranking changes between the settings without a crossed J (left out: 0.975, where a J is crossed)');
+    const ranking = sweepRanking(settings, series, -1, 2);
+    // Kept: 0.902 (A 3 before B 4), 0.934, 0.95, 0.966 (B before A); against the project's 0.95 only 0.902 differs.
+    expect(ranking).toEqual({ rankingStable: false, leftOut: [4], rankingChanges: [{ at: 0, swapped: [['A', 'B']] }] });
+    expect(rankingVerdict({ ...ranking, settings, parameter: 'discount', projectIndex: 2 })).toBe(
+      'the ranking changes between the settings without a crossed J: at 0.902, “A” ranks above “B” (the other way round at the project’s 0.95) (left out: 0.975, where a J is crossed)',
+    );
   });
 
   it('compares nothing when fewer than two settings are kept, and says so', () => {
     const series = [serie('A', [3, 6, 7, 8, 1], [0, 1, 3, 4]), serie('B', [4, 5, 6, 7, 8])];
     const ranking = sweepRanking(settings, series, -1);
-    expect(rankingVerdict({ ...ranking, settings, parameter: 'discount' })).toMatch(/^too few settings without a crossed J to compare the ranking \(left out: 0\.902, 0\.934, 0\.966, 0\.975,/);
+    expect(rankingVerdict({ ...ranking, settings, parameter: 'discount', projectIndex: 2 })).toMatch(/^too few settings without a crossed J to compare the ranking \(left out: 0\.902, 0\.934, 0\.966, 0\.975,/);
   });
 
   it('without crosses, compares every setting as before', () => {
     const series = [serie('A', [5, 6, 7, 8, 9]), serie('B', [4, 5, 6, 7, 10])];
-    expect(sweepRanking(settings, series, -1)).toEqual({ rankingStable: false });
-    expect(sweepRanking(settings, series.slice(0, 1), -1)).toEqual({ rankingStable: true });
+    expect(sweepRanking(settings, series, -1, 2)).toEqual({ rankingStable: false, rankingChanges: [{ at: 4, swapped: [['A', 'B']] }] });
+    expect(sweepRanking(settings, series.slice(0, 1), -1, 2)).toEqual({ rankingStable: true });
+  });
+});
+
+describe('where the ranking changes, named against the project’s setting', () => {
+  it('names each setting whose order differs, with the pairs that turn round, for a cost and for a reward', () => {
+    // A polynomial-degree sweep 1, 2, 3 with the project at 2 (as in a sample whose degree-1 fit cannot follow a quadratic cost).
+    const degrees = [1, 2, 3];
+    const series = [serie('Tuned', [6.66, 8.36, 8.38]), serie('Trimmed', [6.46, 9.13, 9.16]), serie('logged return', [13.9, 13.9, 13.9])];
+    const cost = sweepRanking(degrees, series, -1, 1);
+    expect(cost.rankingChanges).toEqual([{ at: 0, swapped: [['Trimmed', 'Tuned']] }]);
+    expect(rankingVerdict({ ...cost, settings: degrees, parameter: 'polynomialDegree', projectIndex: 1 })).toBe(
+      'the ranking changes within this range: at 1, “Trimmed” ranks above “Tuned” (the other way round at the project’s 2)',
+    );
+    // The same numbers read as rewards (higher is better): at 2 logged > Trimmed > Tuned, at 1 logged > Tuned > Trimmed.
+    expect(sweepRanking(degrees, series, 1, 1)).toEqual({ rankingStable: false, rankingChanges: [{ at: 0, swapped: [['Tuned', 'Trimmed']] }] });
+  });
+
+  it('names at most three settings and two pairs each, and counts the rest', () => {
+    const five = [1, 2, 3, 4, 5];
+    // Project at 1 (index 0): A < B < C < D (cost). Every other setting reverses all four: six pairs turn round at each.
+    const series = [serie('A', [1, 9, 9, 9, 9]), serie('B', [2, 8, 8, 8, 8]), serie('C', [3, 7, 7, 7, 7]), serie('D', [4, 6, 6, 6, 6])];
+    const ranking = sweepRanking(five, series, -1, 0);
+    expect(ranking.rankingChanges).toHaveLength(4);
+    expect(ranking.rankingChanges![0].swapped).toHaveLength(6);
+    expect(rankingVerdict({ ...ranking, settings: five, parameter: 'polynomialDegree', projectIndex: 0 })).toBe(
+      'the ranking changes within this range: at 2, “D” ranks above “C”; “D” ranks above “B” and 4 pairs more; at 3, “D” ranks above “C”; “D” ranks above “B” and 4 pairs more; '
+      + 'at 4, “D” ranks above “C”; “D” ranks above “B” and 4 pairs more and 1 setting more (the other way round at the project’s 1)',
+    );
   });
 });

@@ -51,6 +51,8 @@ export interface SensitivityData {
   rankingStable: boolean;
   /** Settings the ranking verdict leaves out because a J there is crossed (pipeline/sweepRanking.ts). */
   leftOut?: number[];
+  /** Where the ranking differs from the project's setting: the setting's index and the pairs [ahead, behind] there that stand the other way round at the project's (pipeline/sweepRanking.ts); absent when stable or in results saved before. */
+  rankingChanges?: { at: number; swapped: [string, string][] }[];
 }
 
 /** The worker's slice of Q(s, ·) along one action at one state. Arrays: n, ascending actions. */

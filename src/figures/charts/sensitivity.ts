@@ -44,10 +44,30 @@ function settingText(curve: Pick<SensitivityCurve, 'parameter' | 'settings'>, i:
  * The ranking verdict of one sweep, as every host says it (chart subtitle, panel, report, summary):
  * the settings where a J is crossed are left out, and named (pipeline/sweepRanking.ts).
  */
-export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings' | 'parameter'>): string {
-  const out = curve.leftOut ?? [];
-  if (!out.length) return shortVerdict(curve);
-  return `${shortVerdict(curve)} (left out: ${out.map((i) => settingText(curve, i)).join(', ')}, where a J is crossed)`;
+export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings' | 'parameter' | 'rankingChanges' | 'projectIndex'>): string {
+  const out = curve.leftOut ?? [], changes = changesText(curve);
+  const verdict = `${shortVerdict(curve)}${changes ? `: ${changes}` : ''}`;
+  if (!out.length) return verdict;
+  return `${verdict} (left out: ${out.map((i) => settingText(curve, i)).join(', ')}, where a J is crossed)`;
+}
+
+/** Settings named, pairs per setting named, before "and N more". */
+const CHANGES_NAMED = { settings: 3, pairs: 2 } as const;
+
+/**
+ * Where the ranking differs from the project's setting, in words: "at 1, “B” ranks above “A”, the
+ * other way round at the project's 2"; empty when the curve has no changes (stable, or saved before they were kept).
+ */
+function changesText(curve: Pick<SensitivityCurve, 'rankingChanges' | 'settings' | 'parameter' | 'projectIndex' | 'leftOut'>): string {
+  const changes = curve.rankingChanges ?? [];
+  if (!changes.length) return '';
+  const more = (shown: number, all: number, what: string) => (all > shown ? ` and ${all - shown} ${what}${all - shown > 1 ? 's' : ''} more` : '');
+  const parts = changes.slice(0, CHANGES_NAMED.settings).map(({ at, swapped }) => {
+    const pairs = swapped.slice(0, CHANGES_NAMED.pairs).map(([ahead, behind]) => `“${ahead}” ranks above “${behind}”`);
+    return `at ${settingText(curve, at)}, ${pairs.join('; ')}${more(pairs.length, swapped.length, 'pair')}`;
+  });
+  const project = curve.leftOut?.includes(curve.projectIndex) ? 'the first setting without a crossed J' : `the project’s ${settingText(curve, curve.projectIndex)}`;
+  return `${parts.join('; ')}${more(parts.length, changes.length, 'setting')} (the other way round at ${project})`;
 }
 
 /** rankingVerdict without the settings left out, for the figure's subtitle (Chart.js squeezes a line wider than the plot). */
@@ -84,7 +104,7 @@ export function beyondPossibleSentence(curve: Pick<SensitivityCurve, 'series' | 
 }
 
 /** rankingVerdict as a sentence of its own. */
-export function rankingSentence(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings' | 'parameter'>): string {
+export function rankingSentence(curve: Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'settings' | 'parameter' | 'rankingChanges' | 'projectIndex'>): string {
   return `${sentence(rankingVerdict(curve))}.`;
 }
 
