@@ -63,7 +63,7 @@ describe('where the ranking changes, named against the project’s setting', () 
     expect(sweepRanking(degrees, series, 1, 1)).toEqual({ rankingStable: false, rankingChanges: [{ at: 0, swapped: [['Tuned', 'Trimmed']] }] });
   });
 
-  it('names at most three settings and two pairs each, and counts the rest', () => {
+  it('names at most three settings and three pairs each, and counts the rest', () => {
     const five = [1, 2, 3, 4, 5];
     // Project at 1 (index 0): A < B < C < D (cost). Every other setting reverses all four: six pairs turn round at each.
     const series = [serie('A', [1, 9, 9, 9, 9]), serie('B', [2, 8, 8, 8, 8]), serie('C', [3, 7, 7, 7, 7]), serie('D', [4, 6, 6, 6, 6])];
@@ -71,8 +71,8 @@ describe('where the ranking changes, named against the project’s setting', () 
     expect(ranking.rankingChanges).toHaveLength(4);
     expect(ranking.rankingChanges![0].swapped).toHaveLength(6);
     expect(rankingVerdict({ ...ranking, settings: five, parameter: 'polynomialDegree', projectIndex: 0 })).toBe(
-      'the ranking changes within this range: at 2, “D” ranks above “C”; “D” ranks above “B” and 4 pairs more; at 3, “D” ranks above “C”; “D” ranks above “B” and 4 pairs more; '
-      + 'at 4, “D” ranks above “C”; “D” ranks above “B” and 4 pairs more and 1 setting more (the other way round at the project’s 1)',
+      'the ranking changes within this range: at 2, “D” ranks above “C”, “B” and “A” (3 more pairs); at 3, “D” ranks above “C”, “B” and “A” (3 more pairs); '
+      + 'at 4, “D” ranks above “C”, “B” and “A” (3 more pairs); and at 1 more setting (the other way round at the project’s 1)',
     );
   });
 });

@@ -51,8 +51,13 @@ export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | '
   return `${verdict} (left out: ${out.map((i) => settingText(curve, i)).join(', ')}, where a J is crossed)`;
 }
 
-/** Settings named, pairs per setting named, before "and N more". */
-const CHANGES_NAMED = { settings: 3, pairs: 2 } as const;
+/** Settings named, and pairs per setting (grouped by the one ranked above), before "and N more". */
+const CHANGES_NAMED = { settings: 3, pairs: 3 } as const;
+
+/** “A”, “B” and “C”. */
+function listText(items: readonly string[]): string {
+  return items.length > 1 ? `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}` : items[0];
+}
 
 /**
  * Where the ranking differs from the project's setting, in words: "at 1, “B” ranks above “A”, the
@@ -61,13 +66,15 @@ const CHANGES_NAMED = { settings: 3, pairs: 2 } as const;
 function changesText(curve: Pick<SensitivityCurve, 'rankingChanges' | 'settings' | 'parameter' | 'projectIndex' | 'leftOut'>): string {
   const changes = curve.rankingChanges ?? [];
   if (!changes.length) return '';
-  const more = (shown: number, all: number, what: string) => (all > shown ? ` and ${all - shown} ${what}${all - shown > 1 ? 's' : ''} more` : '');
+  const more = (shown: number, all: number) => (all > shown ? ` (${all - shown} more pair${all - shown > 1 ? 's' : ''})` : '');
   const parts = changes.slice(0, CHANGES_NAMED.settings).map(({ at, swapped }) => {
-    const pairs = swapped.slice(0, CHANGES_NAMED.pairs).map(([ahead, behind]) => `“${ahead}” ranks above “${behind}”`);
-    return `at ${settingText(curve, at)}, ${pairs.join('; ')}${more(pairs.length, swapped.length, 'pair')}`;
+    const shown = swapped.slice(0, CHANGES_NAMED.pairs), ahead = [...new Set(shown.map(([a]) => a))];
+    const groups = ahead.map((a) => `“${a}” ranks above ${listText(shown.filter(([x]) => x === a).map(([, b]) => `“${b}”`))}`);
+    return `at ${settingText(curve, at)}, ${groups.join('; ')}${more(shown.length, swapped.length)}`;
   });
   const project = curve.leftOut?.includes(curve.projectIndex) ? 'the first setting without a crossed J' : `the project’s ${settingText(curve, curve.projectIndex)}`;
-  return `${parts.join('; ')}${more(parts.length, changes.length, 'setting')} (the other way round at ${project})`;
+  const rest = changes.length - parts.length;
+  return `${parts.join('; ')}${rest > 0 ? `; and at ${rest} more setting${rest > 1 ? 's' : ''}` : ''} (the other way round at ${project})`;
 }
 
 /** rankingVerdict without the settings left out, for the figure's subtitle (Chart.js squeezes a line wider than the plot). */
