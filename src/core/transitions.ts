@@ -46,3 +46,10 @@ export interface RewardBounds {
   readonly upper: number;
   readonly from: 'formula' | 'declaration';
 }
+
+/** The logged (s_i, a_i) of transition i into out (length ds + m): the input of a state–action feature map. */
+export function loggedStateAction(data: TransitionSet, i: number, out: Float64Array): void {
+  const ds = data.stateDim, m = data.actionDim;
+  for (let c = 0; c < ds; c++) out[c] = data.states[i * ds + c];
+  for (let c = 0; c < m; c++) out[ds + c] = data.actions[i * m + c];
+}

@@ -15,7 +15,7 @@
  * Shapes: A_f d×d row-major; b_f length d.
  */
 import type { FeatureMap } from '../features/featureMap';
-import type { TransitionSet } from '../transitions';
+import { loggedStateAction, type TransitionSet } from '../transitions';
 import { blockRowsFor } from './bellmanStatistics';
 import { createBlockProducts } from './blockProducts';
 
@@ -48,11 +48,11 @@ export function foldLstdSums(
     const f = fold[data.episode[i]];
     if (f !== blockFold || size === rows) { flush(); blockFold = f; }
     const at = size * d;
-    stateAction(data, i, input);
+    loggedStateAction(data, i, input);
     features.evaluate(input, 0, phi, at);
     if (terminal) next.fill(0);
     else {
-      stateAction(data, i + 1, input);
+      loggedStateAction(data, i + 1, input);
       features.evaluate(input, 0, next, 0);
     }
     const bf = b[f], r = data.rewards[i];
@@ -67,9 +67,3 @@ export function foldLstdSums(
   return { a, b, counts };
 }
 
-/** The logged (s_i, a_i) of row i into out (length ds + m). */
-export function stateAction(data: TransitionSet, i: number, out: Float64Array): void {
-  const ds = data.stateDim, m = data.actionDim;
-  for (let c = 0; c < ds; c++) out[c] = data.states[i * ds + c];
-  for (let c = 0; c < m; c++) out[ds + c] = data.actions[i * m + c];
-}

@@ -53,10 +53,10 @@ import { monomialCount } from '../features/monomials';
 import { luFactor, luSolve, SingularMatrixError } from '../linalg/dense';
 import { DEGREE_CHOICE_MAX_FEATURES, RIDGE } from '../limits';
 import { createRandom } from '../random';
-import type { TransitionSet } from '../transitions';
+import { loggedStateAction, type TransitionSet } from '../transitions';
 import { LINEAR_PART_DEGREE } from './networkLinearPart';
 import { shareText, sharesText } from '../shareText';
-import { foldLstdSums, stateAction } from './degreeChoiceSums';
+import { foldLstdSums } from './degreeChoiceSums';
 
 /** The degrees compared: the default, and the quartic measured on the battery (README, "What the network is compared with"). */
 export const DEGREE_CHOICES: readonly number[] = [LINEAR_PART_DEGREE, 4];
@@ -181,7 +181,7 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
     if (i === 0 || data.episode[i - 1] !== run) { runStart = i; discountFromStart = 1; }
     else discountFromStart *= gamma;
     if (tail[i] > TAIL_WEIGHT) continue;
-    stateAction(data, i, input0);
+    loggedStateAction(data, i, input0);
     features.evaluate(input0, 0, phi, 0);
     const f = fold[run];
     for (let k = 0; k < q; k++) {

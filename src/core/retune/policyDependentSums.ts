@@ -14,8 +14,8 @@
  */
 import type { FeatureMap } from '../features/featureMap';
 import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
-import type { TransitionSet } from '../transitions';
-import { logged, type PolicyFreeSums } from './policyFreeSums';
+import type { PolicyFreeSums } from './policyFreeSums';
+import { loggedStateAction, type TransitionSet } from '../transitions';
 import type { PolicyFeatureAverage } from '../features/policyFeatureAverage';
 import { addSlot, keepUpperTriangles, newPacked, newSlot, packedSlot, statisticsOf, type PointSums, type Slot } from './pointSums';
 
@@ -55,7 +55,7 @@ function gather(
     const i = order[from + t];
     if (stored) for (let a = 0; a < d; a++) block.phi[a * rows + t] = stored[(from + t) * d + a];
     else {
-      logged(data, i, block.input);
+      loggedStateAction(data, i, block.input);
       features.evaluate(block.input, 0, row, 0);
       for (let a = 0; a < d; a++) block.phi[a * rows + t] = row[a];
     }

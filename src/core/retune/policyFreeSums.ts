@@ -13,7 +13,7 @@
 import type { FeatureMap } from '../features/featureMap';
 import { indexEpisodes, type EpisodeIndex } from '../bootstrap/episodeTransitions';
 import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
-import type { TransitionSet } from '../transitions';
+import { loggedStateAction, type TransitionSet } from '../transitions';
 
 /** Φ is kept when n·d is at most this many numbers (128 MiB of doubles). */
 export const MAX_STORED_FEATURE_VALUES = 1 << 24;
@@ -49,7 +49,7 @@ export function policyFreeSums(
       const size = Math.min(rows, index.offsets[k + 1] - from);
       for (let t = 0; t < size; t++) {
         const i = index.order[from + t];
-        logged(data, i, input);
+        loggedStateAction(data, i, input);
         features.evaluate(input, 0, phi, 0);
         if (store) store.set(phi, (from + t) * d);
         for (let a = 0; a < d; a++) block[a * rows + t] = phi[a];
@@ -74,13 +74,6 @@ export function policyFreeSums(
   for (let j = 0; j < d * d; j++) gram[j] /= n;
   for (let j = 0; j < d; j++) featureReward[j] /= n;
   return { count: n, dim: d, index, features: store, gram, featureReward, rewardSquare: rewardSquare / n, episodeSums: perEpisode };
-}
-
-/** [s_i, a_i] into input. */
-export function logged(data: TransitionSet, i: number, input: Float64Array): void {
-  const ds = data.stateDim, m = data.actionDim;
-  for (let c = 0; c < ds; c++) input[c] = data.states[i * ds + c];
-  for (let c = 0; c < m; c++) input[ds + c] = data.actions[i * m + c];
 }
 
 /** gram (upper triangle) += Σ_t x_t x_tᵀ, reward += Σ_t r_t x_t over a feature-major block (blocked summation). */
