@@ -7,6 +7,8 @@ import { shareText, sharesText } from '../core/shareText';
 import { loggedReturnRole } from '../core/loggedReturn';
 import { beyondPossibleSentence, rankingVerdict } from '../figures/charts/sensitivity';
 import { textTable as table } from './textTable';
+import { TRIAL_RULE, trialAnswer, trialChoice } from '../pipeline/trialChoice';
+import { ASCII_MINUS } from '../figures/parts/uncertainNumber';
 import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
 
 /** A value at the precision of the interval it is read with; without one (the model rollouts), at `precision`'s (the candidate's J interval), as the app and the report write it. */
@@ -61,6 +63,7 @@ export function formatAssessment(a: Assessment, completedShown = true): string {
     table(diffs),
     '',
     `Ranking: ${a.comparison.ranking.order.map(policyLabel).join(' > ')} (${a.comparison.ranking.frequency === null ? 'not every policy was resampled' : `holds in ${shareText(a.comparison.ranking.frequency)} of resamples`}).`,
+    ...answerLines(a),
     ...(classes.length ? ['', 'Function classes (the range to report spans them):', ...classes] : []),
     ...(cuts.length ? ['', 'Ranges to report cut to what the reward’s definition allows:', ...cuts] : []),
     '',
@@ -73,4 +76,14 @@ export function formatAssessment(a: Assessment, completedShown = true): string {
     `Computed with ${a.settings.threads}.`,
     '',
   ].join('\n');
+}
+
+/** Where the terminal shows what the answer points to. */
+const TERMINAL_PLACES = { cautions: 'at the end', warnings: 'in the list below', minus: ASCII_MINUS } as const;
+
+/** The answer, as the app's Findings and the report say it (pipeline/trialChoice.ts), with the rule it follows. */
+function answerLines(a: Assessment): string[] {
+  const answer = trialAnswer(a, trialChoice(a), TERMINAL_PLACES);
+  if (!answer) return [];
+  return ['', `Answer: ${[answer.headline, answer.detail, answer.logCautions].filter(Boolean).join(' ')}`, `  (${TRIAL_RULE})`];
 }

@@ -3,7 +3,8 @@ import type { Assessment } from '../assessment';
 import { summariseCandidate } from '../../project/candidateSummary';
 import { CAUTIONS } from '../cautions';
 import { html, formatNumber, formatWrittenAt, type Html } from './htmlText';
-import { senseWords, type ReportInput } from './reportInput';
+import { senseWords, valueUnit, type ReportInput } from './reportInput';
+import { TRIAL_RULE, trialAnswer, trialChoice } from '../trialChoice';
 import { policyLabel } from '../policyNames';
 import { PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
 import { loggedLimitText } from '../../core/loggedLimitWords';
@@ -17,7 +18,19 @@ export function summarySection(input: ReportInput): Html {
   const serious = a ? [...a.warnings, ...a.candidates.flatMap((c) => c.warnings)].filter((w) => w.severity === 'serious').length : null;
   return html`<div class="summary" id="summary"><p><strong>Summary.</strong> Values are the ${words.value} (${words.better}). By point estimate the best policy is
     <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.map(policyLabel).join(' › ')} holds in ${shareText(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
-    ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p></div>`;
+    ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p>
+    ${a ? answerParagraph(input, a) : ''}</div>`;
+}
+
+/** Where the report shows what the answer points to: the cautions on its first page, the warnings in its two sections. */
+const REPORT_PLACES = { cautions: 'above', warnings: 'under Diagnostics and Cross-checks' } as const;
+
+/** Which candidate to trial, in the words the app's Findings and the command line use (pipeline/trialChoice.ts), with the rule. */
+function answerParagraph(input: ReportInput, a: Assessment): Html | string {
+  const answer = trialAnswer(a, trialChoice(a), REPORT_PLACES, valueUnit(input));
+  if (!answer) return '';
+  return html`<p id="answer"><strong>${answer.headline}</strong>${answer.detail ? ` ${answer.detail}` : ''}${answer.logCautions ? ` ${answer.logCautions}` : ''}</p>
+    <p class="small">${TRIAL_RULE}</p>`;
 }
 
 /** The cautions at the head of the document, so a printout carries them on its first page. */

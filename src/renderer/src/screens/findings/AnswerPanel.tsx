@@ -1,5 +1,5 @@
 /**
- * The answer first: which candidate to take to a plant trial (by the rule in trialChoice.ts, stated
+ * The answer first: which candidate to take to a plant trial (by the rule in pipeline/trialChoice.ts, stated
  * beside it), each candidate's J with its interval and unit against today's controller, how often
  * it came out better, what the cross-checks and the coverage warnings say, and where to read more.
  * Before the intervals and checks are in, J ± s.e. only, and no candidate is named.
@@ -7,37 +7,28 @@
 import type { Assessment } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import { useDocument } from '../../hooks';
-import { levelText, shareText, sharesText } from './assessmentWords';
+import { levelText, sharesText } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
 import { displayName, valueUnit } from './plotLabels';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
 import { sweepsVerdict } from '../../../../figures/charts/sensitivity';
-import { logCautionsText, TRIAL_RULE, trialChoice, warningsText, type TrialChoice } from './trialChoice';
+import { TRIAL_RULE, trialAnswer, trialChoice, warningsText, type TrialChoice } from '../../../../pipeline/trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const CONFIRMATION: Record<string, string> = { confirmed: 'confirmed', contradicted: 'contradicted', unconfirmed: 'unconfirmed' };
 
+/** Where the app shows what the answer points to. */
+const APP_PLACES = { cautions: 'above', warnings: 'under Coverage' } as const;
+
 function Lead({ choice, assessment, unit }: { choice: TrialChoice; assessment: Assessment; unit: string }) {
-  const baseline = displayName(assessment.comparison.baseline.name), pick = choice.pick;
-  if (pick) {
-    const d = pick.difference;
-    if (!d) return null;
-    return (
-      <p className="answer-lead" data-testid="answer-lead">
-        <strong>Trial first: {pick.candidate.name}.</strong> J {valueAtPrecision(pick.candidate.policyValue.value, pick.candidate.policyValue.percentile)} {intervalAtPrecision(pick.candidate.policyValue.percentile)}{unit ? ` ${unit}` : ''};
-        {' '}{valueAtPrecision(Math.abs(d.difference.value), d.difference.percentile)}{unit ? ` ${unit}` : ''} {assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the {baseline} (difference {intervalAtPrecision(d.difference.percentile)}), better in {shareText(d.probabilityBetter)} of resamples.
-        {' '}An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions above).
-        {logCautionsText(assessment) && <span data-testid="answer-log-cautions"> {logCautionsText(assessment)}</span>}
-      </p>
-    );
-  }
-  const best = choice.best;
+  const answer = trialAnswer(assessment, choice, APP_PLACES, unit);
+  if (!answer) return null;
   return (
     <p className="answer-lead" data-testid="answer-lead">
-      <strong>No candidate is named for a trial.</strong>
-      {best && ` The best J is ${best.candidate.name}’s (${valueAtPrecision(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${unit ? ` ${unit}` : ''}), but ${best.reasons.join(', and ')}. Read its warnings under Coverage before any trial.`}
+      <strong>{answer.headline}</strong>{answer.detail && ` ${answer.detail}`}
+      {answer.logCautions && <span data-testid="answer-log-cautions"> {answer.logCautions}</span>}
     </p>
   );
 }

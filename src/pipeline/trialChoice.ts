@@ -7,10 +7,14 @@
  * cross-check contradicts it; of those, the one with the best J is named. The rule is ours; its
  * parts are the assessment's own verdicts (paired bootstrap interval, `severity.ts`,
  * `crossCheckVerdict.ts`), so the words on screen follow the thresholds the code applies.
- * The sentence in TRIAL_RULE states it to the reader.
+ * The sentence in TRIAL_RULE states it to the reader. Every host says the answer in the same words
+ * (trialAnswer): the app's Findings, the command line and the report.
  */
-import type { Assessment, CandidateAssessment, PairedDifference } from '../../../../pipeline/assessment';
-import { plural } from '../../format/numberFormat';
+import type { Assessment, CandidateAssessment, PairedDifference } from './assessment';
+import { plural } from '../data/reportFormat';
+import { shareText } from '../core/shareText';
+import { intervalAtPrecision, TRUE_MINUS, valueAtPrecision, type Minus } from '../figures/parts/uncertainNumber';
+import { policyLabel } from './policyNames';
 
 export const TRIAL_RULE = 'A candidate is named for a trial only when the interval of its difference from the baseline lies wholly on the better side of 0, '
   + 'the assessment raised no serious warning for it or for the whole log and no cross-check contradicts it; of those, the best J is named.';
@@ -78,10 +82,54 @@ export function trialChoice(assessment: Assessment): TrialChoice {
  * surfaces, unconfirmed estimates), said beside a named trial: they do not stop one (only a serious
  * warning does, TRIAL_RULE), but the answer read alone said nothing of them. Null when there are none.
  */
-export function logCautionsText(assessment: Assessment): string | null {
+export function logCautionsText(assessment: Assessment, where = 'under Coverage'): string | null {
   const cautions = assessment.warnings.filter((w) => w.severity === 'caution').length;
   if (cautions === 0) return null;
-  return `The assessment raised ${cautions === 1 ? 'a caution' : `${cautions} cautions`} on the whole log; read ${cautions === 1 ? 'it' : 'them'} under Coverage before the trial.`;
+  return `The assessment raised ${cautions === 1 ? 'a caution' : `${cautions} cautions`} on the whole log; read ${cautions === 1 ? 'it' : 'them'} ${where} before the trial.`;
+}
+
+/** Where a host shows what the answer points to: the safety cautions, and the warnings (e.g. "above", "under Coverage"); its minus sign (the terminal's is ASCII). */
+export interface AnswerPlaces {
+  readonly cautions: string;
+  readonly warnings: string;
+  readonly minus?: Minus;
+}
+
+/** The answer in words, as every host says it: a headline (shown strong) and what follows it; logCautions beside a named trial, else null. */
+export interface TrialAnswer {
+  readonly headline: string;
+  readonly detail: string;
+  readonly logCautions: string | null;
+}
+
+/**
+ * The answer of trialChoice in words: the candidate to trial first with its J, interval, difference
+ * from the baseline and how often it came out better, and the cautions a trial keeps; or that none is
+ * named, with the best J's reasons. unit: J's unit, '' where the host has none. Null when the named
+ * candidate has no difference to state (it cannot be named without one: trialChoice's rule).
+ */
+export function trialAnswer(assessment: Assessment, choice: TrialChoice, places: AnswerPlaces, unit = ''): TrialAnswer | null {
+  const u = unit ? ` ${unit}` : '', pick = choice.pick, minus = places.minus ?? TRUE_MINUS;
+  const value = (v: number, iv: readonly [number, number] | null) => valueAtPrecision(v, iv, minus), interval = (iv: readonly [number, number] | null) => intervalAtPrecision(iv, minus);
+  if (pick) {
+    const d = pick.difference;
+    if (!d) return null;
+    const j = pick.candidate.policyValue;
+    return {
+      headline: `Trial first: ${pick.candidate.name}.`,
+      detail: `J ${value(j.value, j.percentile)} ${interval(j.percentile)}${u}; `
+        + `${value(Math.abs(d.difference.value), d.difference.percentile)}${u} ${assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the ${policyLabel(assessment.comparison.baseline.name)} `
+        + `(difference ${interval(d.difference.percentile)}), better in ${shareText(d.probabilityBetter)} of resamples. `
+        + `An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions ${places.cautions}).`,
+      logCautions: logCautionsText(assessment, places.warnings),
+    };
+  }
+  const best = choice.best;
+  return {
+    headline: 'No candidate is named for a trial.',
+    detail: best ? `The best J is ${best.candidate.name}’s (${value(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${u}), but ${best.reasons.join(', and ')}. Read its warnings ${places.warnings} before any trial.` : '',
+    logCautions: null,
+  };
 }
 /** "1 serious, 2 cautions"; "none" only when no warning bears on the candidate, its own or in the whole-log list (said as such: that list is elsewhere). */
 export function warningsText(line: TrialLine): string {

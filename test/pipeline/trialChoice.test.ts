@@ -5,8 +5,10 @@
  * Invented numbers; the rule is the app's own, so these check its logic, not an outside value.
  */
 import { describe, expect, it } from 'vitest';
-import type { Assessment, CandidateAssessment, IntervalEstimate, PairedDifference } from '../../../src/pipeline/assessment';
-import { logCautionsText, trialChoice, warningsText, whollyBetter } from '../../../src/renderer/src/screens/findings/trialChoice';
+import type { Assessment, CandidateAssessment, IntervalEstimate, PairedDifference } from '../../src/pipeline/assessment';
+import { logCautionsText, TRIAL_RULE, trialAnswer, trialChoice, warningsText, whollyBetter } from '../../src/pipeline/trialChoice';
+import { ASCII_MINUS } from '../../src/figures/parts/uncertainNumber';
+import { formatAssessment } from '../../src/cli/assessmentFormat';
 
 const BASE = 'present controller';
 const estimate = (value: number, lo: number, hi: number): IntervalEstimate =>
@@ -83,5 +85,45 @@ describe('which candidate to trial', () => {
     const b = assessment('cost', [candidate('A', 5, { warnings: [shift] })], [['A', -3, -4, -2]], ['A', BASE], [unconfirmed, general]);
     expect(warningsText(trialChoice(b).lines[0])).toBe('1 serious; 2 cautions in the whole-log list (Coverage)');
     expect(warningsText(trialChoice(assessment('cost', [candidate('A', 5)], [['A', -3, -4, -2]], ['A', BASE])).lines[0])).toBe('none');
+  });
+});
+
+describe('the answer in words, one writer for the app, the command line and the report', () => {
+  const places = { cautions: 'above', warnings: 'under Coverage' };
+
+  it('names the trial with J, its interval, the difference and how often it came out better, each at its interval’s precision', () => {
+    const caution = { severity: 'caution' as const, topic: 'ditherDependence', message: '' };
+    const a = assessment('cost', [candidate('A', 5.123), candidate('B', 6)], [['A', -1.234, -2.345, -0.456], ['B', -0.5, -1, 0.1]], ['A', 'B', BASE], [caution]);
+    const answer = trialAnswer(a, trialChoice(a), places, '€')!;
+    expect(answer.headline).toBe('Trial first: A.');
+    // J's interval [4.123, 6.123] is 2 wide: three significant digits of the width, two decimals (uncertainNumber.ts).
+    expect(answer.detail).toBe('J 5.12 [4.12, 6.12] €; 1.23 € lower than the present controller (difference [−2.35, −0.46]), better in 90\u00a0% of resamples. '
+      + 'An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions above).');
+    expect(answer.logCautions).toBe('The assessment raised a caution on the whole log; read it under Coverage before the trial.');
+    // The terminal's ASCII minus, and its own places.
+    const terminal = trialAnswer(a, trialChoice(a), { cautions: 'at the end', warnings: 'in the list below', minus: ASCII_MINUS })!;
+    expect(terminal.detail).toContain('(difference [-2.35, -0.46])');
+    expect(terminal.detail).toMatch(/\(cautions at the end\)\.$/);
+    expect(terminal.logCautions).toMatch(/read it in the list below before the trial\.$/);
+  });
+
+  it('says none is named and why, for the best J', () => {
+    const a = assessment('reward', [candidate('A', 5, { confirmation: { status: 'contradicted', text: '' } }), candidate('B', 4)], [['A', 1, 0.5, 2], ['B', 0.5, -0.2, 1]], ['A', 'B', BASE]);
+    expect(trialAnswer(a, trialChoice(a), places)).toEqual({
+      headline: 'No candidate is named for a trial.',
+      detail: 'The best J is A’s (5.00), but a cross-check contradicts it. Read its warnings under Coverage before any trial.',
+      logCautions: null,
+    });
+  });
+
+  it('is printed by the command line after the ranking, with the rule', () => {
+    const a = assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE]);
+    const full = { ...a, settings: { level: 0.9, resamples: 100, episodes: 10, seed: 1, threads: 'one thread' }, behaviour: estimate(6, 5, 7), presentController: null,
+      candidates: a.candidates.map((c) => ({ ...c, crossChecks: [], functionClasses: null, reportedRange: null, settled: null, diagnostics: { occupancyShift: null } })) } as unknown as typeof a;
+    const text = formatAssessment(full);
+    const lines = text.split('\n'), at = lines.findIndex((l) => l.startsWith('Answer: '));
+    expect(lines[at]).toMatch(/^Answer: Trial first: A\. J 5\.00 \[4\.00, 6\.00\]; 1\.00 lower than the present controller \(difference \[-2\.00, -0\.50\]\)/);
+    expect(lines[at + 1]).toBe(`  (${TRIAL_RULE})`);
+    expect(lines.findIndex((l) => l.startsWith('Ranking: '))).toBeLessThan(at);
   });
 });
