@@ -7,8 +7,7 @@
  * 87.1 %; 0.62 and 0.9375 read 62.0 % and 93.8 % (93.75 is exact in binary, a tie: ECMA-262's
  * Number.prototype.toFixed then takes the larger n).
  */
-import { createElement, type ReactElement } from 'react';
-import { renderToStaticMarkup } from 'react-dom/server';
+import { createElement } from 'react';
 import { describe, expect, it } from 'vitest';
 import { formatAssessment } from '../../src/cli/assessmentFormat';
 import { terminalText } from '../../src/cli/terminal';
@@ -17,12 +16,9 @@ import { comparisonSection } from '../../src/pipeline/report/reportComparison';
 import type { ReportInput } from '../../src/pipeline/report/reportInput';
 import { shareText, sharesText } from '../../src/core/shareText';
 import type { Evaluation } from '../../src/pipeline/estimates';
-import { createDocumentStore } from '../../src/renderer/src/document/documentStore';
-import { WorkspaceContext } from '../../src/renderer/src/WorkspaceContext';
-import type { Workspace } from '../../src/renderer/src/workspace';
 import { AnswerPanel } from '../../src/renderer/src/screens/findings/AnswerPanel';
 import { ComparisonTable } from '../../src/renderer/src/screens/findings/ComparisonTable';
-import { projectKey, setOpen } from '../../src/renderer/src/screens/findings/foldMemory';
+import { renderFindings, tableCells } from '../support/renderFindings';
 
 const estimate = (value: number) => ({ value, standardError: 0.1, percentile: [value - 0.2, value + 0.2] as [number, number], basic: [value - 0.2, value + 0.2] as [number, number], replicates: 100, failedReplicates: 0 });
 const difference = (a: string, b: string, probabilityBetter: number) => ({ a, b, difference: estimate(-1), probabilityBetter });
@@ -53,22 +49,6 @@ const rendered = {
 } as unknown as Assessment;
 const evaluation = { valueSense: 'cost', policies: ['A', 'B', 'C'].map((name) => ({ name })) } as unknown as Evaluation;
 
-/** A Findings panel rendered to static HTML inside the workspace it reads (a new project's document); the comparison section unfolded, as the reader opens it. */
-function renderFindings(panel: ReactElement): string {
-  const documents = createDocumentStore();
-  const { projectPath, generation } = documents.get();
-  setOpen(projectKey(projectPath, generation), ['answer', 'comparison'], true);
-  return renderToStaticMarkup(createElement(WorkspaceContext.Provider, { value: { documents, api: {} } as unknown as Workspace }, panel));
-}
-
-/** The text of every cell of the table with this data-testid, row by row (no-break spaces read as spaces, markup dropped). */
-function cells(html: string, testId: string): string[][] {
-  const table = new RegExp(`<table[^>]*data-testid="${testId}"[^>]*>([\\s\\S]*?)</table>`).exec(html);
-  if (!table) throw new Error(`no table ${testId} in the rendered panel`);
-  const text = (cell: string) => cell.replace(/<[^>]+>/g, '').replace(/&amp;/g, '&').replace(/&#x27;/g, "'").replace(/\u00a0/g, ' ').trim();
-  return [...table[1].matchAll(/<tr[^>]*>([\s\S]*?)<\/tr>/g)].map((row) => [...row[1].matchAll(/<t[hd][^>]*>([\s\S]*?)<\/t[hd]>/g)].map((c) => text(c[1])));
-}
-
 /** The distinct counts of decimals among a column's shares ("99.5 %" → 1, "50 %" → 0); cells without a share are skipped. */
 const decimals = (column: readonly string[]): number[] => [...new Set(column.flatMap((c) => {
   const m = /^(?:above )?\d+(?:\.(\d+))? %$/.exec(c);
@@ -89,12 +69,12 @@ describe('a column of shares at one precision', () => {
 
   it('the app’s answer table and comparison table, rendered: one precision down each share column', () => {
     // Rendered as the app renders them (react-dom/server), so a cell that formats its share alone shows as "50 %" under "99.5 %".
-    const answer = cells(renderFindings(createElement(AnswerPanel, { evaluation, assessment: rendered })), 'answer-table');
+    const answer = tableCells(renderFindings(createElement(AnswerPanel, { evaluation, assessment: rendered }), ['answer']), 'answer-table');
     expect(answer[0]).toEqual(['Policy', 'J', '90 % interval', 'Minus baseline', 'Better in', 'Cross-checks', 'Warnings']);
     const betterIn = answer.slice(1).map((row) => row[4]);
     expect(betterIn).toEqual(['99.5 %', '50.0 %', '87.1 %', '—']); // the baseline's own row has none
     expect(decimals(betterIn)).toEqual([1]);
-    const comparison = cells(renderFindings(createElement(ComparisonTable, { assessment: rendered })), 'comparison-table');
+    const comparison = tableCells(renderFindings(createElement(ComparisonTable, { assessment: rendered }), ['comparison']), 'comparison-table');
     expect(comparison[0]).toEqual(['First', 'Second', 'Difference', '90 % interval', 'First better in']);
     const firstBetterIn = comparison.slice(1).map((row) => row[4]);
     expect(firstBetterIn).toEqual(['99.5 %', '50.0 %', '87.1 %', '62.0 %', '93.8 %']);
