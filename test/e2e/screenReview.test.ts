@@ -65,7 +65,7 @@ function comparisonNameFaults(page: Page): Promise<string[]> {
     const faults: string[] = [];
     const spill = table.getBoundingClientRect().right - card.getBoundingClientRect().right;
     if (spill > 0) faults.push(`the comparison table runs ${spill.toFixed(0)} px past its card`);
-    const group = new RegExp(`\\d[ \u00a0][\\p{L}%‰°µΩ′″][^\\s,;:)\\]}]{0,${most - 1}}(?=[\\s,;:)\\]}]|$)`, 'gu');
+    const group = new RegExp(`\\d+(?:\\.\\d+)?[ \u00a0][\\p{L}%‰°µΩ′″][^\\s,;:)\\]}]{0,${most - 1}}(?=[\\s,;:)\\]}]|$)`, 'gu');
     const boxes = [...table.querySelectorAll('tbody td:nth-child(-n+2)'), ...card.querySelectorAll('[data-testid="ranking"] p, [data-testid="ranking"] li')];
     for (const box of boxes) {
       const walker = document.createTreeWalker(box, NodeFilter.SHOW_TEXT);
