@@ -26,6 +26,7 @@ import { goToStep, setTheme } from '../renderer/e2e/appSteps';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
 import { VALUES_CHART_TITLE } from '../../src/figures/parts/plotTheme';
 import { steadyCheck, steadyClick, steadyFill } from './harness/steadyActions';
+import { UNIT_GROUP_MOST } from '../../src/core/unitGroups';
 
 const SHOTS = process.env.SCREEN_REVIEW_DIR ?? resolve(__dirname, '../../test-artifacts/screen-review');
 const SIZES = [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }];
@@ -49,6 +50,37 @@ function clippedText(page: Page): Promise<string[]> {
     if (![...el.childNodes].some((n) => n.nodeType === 3 && n.textContent!.trim())) return false;
     return el.scrollWidth > el.clientWidth + 1;
   }).map((e) => `${e.tagName.toLowerCase()}${(e as HTMLElement).dataset.testid ? `[${(e as HTMLElement).dataset.testid}]` : ''}: ${(e.textContent ?? '').slice(0, 60)}`));
+}
+
+/**
+ * In the comparison card (its table's name columns and the ranking under it): every number and the unit
+ * after it that wrap onto two lines ("PI (25 | %/K, 30 | min)"), read as core/unitGroups.ts reads a unit,
+ * and the table running past its card. Each line of a group's text has its own box (Range.getClientRects).
+ */
+function comparisonNameFaults(page: Page): Promise<string[]> {
+  return page.evaluate((most) => {
+    const card = document.querySelector('[data-section="comparison"]');
+    const table = card?.querySelector('[data-testid="comparison-table"]');
+    if (!card || !table) return ['the comparison card or its table is not shown'];
+    const faults: string[] = [];
+    const spill = table.getBoundingClientRect().right - card.getBoundingClientRect().right;
+    if (spill > 0) faults.push(`the comparison table runs ${spill.toFixed(0)} px past its card`);
+    const group = new RegExp(`\\d+(?:\\.\\d+)?[ \u00a0][\\p{L}%‰°µΩ′″][^\\s,;:)\\]}]{0,${most - 1}}(?=[\\s,;:)\\]}]|$)`, 'gu');
+    const boxes = [...table.querySelectorAll('tbody td:nth-child(-n+2)'), ...card.querySelectorAll('[data-testid="ranking"] p, [data-testid="ranking"] li')];
+    for (const box of boxes) {
+      const walker = document.createTreeWalker(box, NodeFilter.SHOW_TEXT);
+      for (let node = walker.nextNode(); node; node = walker.nextNode()) {
+        for (const m of node.textContent!.matchAll(group)) {
+          const range = document.createRange();
+          range.setStart(node, m.index!);
+          range.setEnd(node, m.index! + m[0].length);
+          const lines = [...range.getClientRects()].filter((r) => r.width > 0);
+          if (lines.some((r) => r.top >= lines[0].bottom - 1)) faults.push(`"${m[0].replace(/\u00a0/g, ' ')}" wraps inside “${(box.textContent ?? '').replace(/\u00a0/g, ' ').slice(0, 60)}”`);
+        }
+      }
+    }
+    return faults;
+  }, UNIT_GROUP_MOST);
 }
 
 interface Case { id: string; open: (app: LaunchedApp) => Promise<string>; retuneMap: boolean; twoActions: boolean; network?: boolean }
@@ -144,6 +176,8 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
           // The reward panel (declared floor and ceiling of a cost column) on its own, at a size the eye can read.
           if (step === 'plant-log') await page.locator('section[aria-labelledby="reward-heading"]').screenshot({ path: join(SHOTS, `${c.id}-${size.width}-${theme}-plant-log-reward.png`), style: UNSTICK });
           if (step === 'findings') {
+            // A candidate's name wraps between its groups in the narrow comparison card, never inside "25 %/K" (core/unitGroups.ts).
+            for (const f of await comparisonNameFaults(page)) faults.push(`findings ${size.width} ${theme}: ${f}`);
             for (const section of await page.locator('[data-section]').all()) {
               const shot = join(SHOTS, `${c.id}-${size.width}-${theme}-findings-${await section.getAttribute('data-section')}.png`);
               faults.push(...await shootSection(page, section, shot, UNSTICK));

@@ -24,6 +24,7 @@ import { SWEEP_CHECK_TOPIC } from '../../src/pipeline/assessSweepCheck';
 import { candidateWork, type AssessmentContext } from '../../src/pipeline/assessCandidate';
 import { sensitivity } from '../../src/pipeline/assessSensitivity';
 import { sampleRun } from '../support/sampleRun';
+import { startRun } from '../../src/pipeline/projectRun';
 import { diagnosticsSection } from '../../src/pipeline/report/reportEvidence';
 import type { ReportInput } from '../../src/pipeline/report/reportInput';
 import { tankOperatingPoint, tankPlant, tankTunedPolicy } from '../../sample-projects/tank-levels/simulate';
@@ -136,5 +137,98 @@ describe('the discount sweep against what the per-step values allow', () => {
     // One end declared is enough for a fall: the sample's own declaration (never below 0) crosses the rate-limited PI's fall.
     const own = await sweepHeating((plan) => plan, check);
     expect(own.warnings.flat().map((w) => w.message)[0]).toContain('since the project declares every step’s cost never below 0, so between these two discounts J can change only by no less than 0.');
+  }, 600_000);
+});
+
+/**
+ * The same check on a REWARD project, where J is to be maximised and the allowed change keeps its sign in
+ * the user's sense: per-step rewards within [lo, hi] hold J(γ) = Σ γ^t m_t within lo/(1 − γ) .. hi/(1 − γ),
+ * and the change from γ₁ to γ₂ > γ₁ within [lo·D, hi·D], D = 1/(1 − γ₂) − 1/(1 − γ₁) (the geometric
+ * sum; common practice). Positive rewards let J only rise with the horizon; negative ones only fall.
+ *
+ * The heating-loop sample's log read as a reward (invented edits of its project): the cost column taken as
+ * the reward itself (every value in the file is in [0.018, 14.26]), or the reward formula −max(cost, 0). The
+ * linear fit is linear in the rewards, so the rate-limited PI's J is ±10.69 at γ 0.95 and ±7.14 at the
+ * next swept discount, γ₂ = 0.95^(1/1.5) = 0.966383 (assessSensitivity.ts: γ^(1/f), f = 1.5). By hand:
+ * 1/(1 − γ₂) = 1/0.0336175 = 29.7464, 1/(1 − 0.95) = 20, so D = 9.7464.
+ *   - reward column declared within [0.01, 15]: the change may lie in [0.01·D, 15·D] = [0.097464, 146.197],
+    said rounded outward at four digits as 0.09746 and 146.2;
+ *     a fall of 3.56 is impossible, the other candidates' rises (to their larger J at longer horizons) are not.
+ *   - the same column declared within [−1, 15]: the allowed change starts at −1·D = −9.746, and the fall of
+ *     3.56 (interval about [−6.5, −2.6]) lies inside it: no warning for that pair.
+ *   - reward −max(cost, 0), never above 0 by its formula: the change may be at most 0·D = 0; the PI's J
+ *     rises from −10.69 to −7.14, which is impossible; the others fall, which is allowed.
+ */
+describe('the discount sweep check on a reward project: the allowed change in the reward’s own sense', () => {
+  type Reward = Record<string, unknown>;
+  const check = { level: 0.9, seed: 1, resamples: 200 };
+
+  /** The heating-loop sample with its reward rule replaced, planned, fitted and swept; the run disposed after. */
+  async function sweepAsReward(reward: Reward) {
+    const folder = join(__dirname, '..', '..', 'sample-projects', 'heating-loop');
+    const doc = JSON.parse(await readFile(join(folder, 'heating-loop.spcritic'), 'utf8')) as { columns: { reward: Reward } };
+    doc.columns.reward = reward;
+    const opened = await openProject(JSON.stringify(doc), 'heating-loop.spcritic', async (p) => new Uint8Array(await readFile(join(folder, p))));
+    if (!opened.ok) throw new Error(opened.problems.map((p) => p.message).join('\n'));
+    const started = await startRun(opened.value.project, opened.value.dataset);
+    if (!started.ok) throw new Error(started.problems.map((p) => p.message).join('\n'));
+    const run = started.value;
+    try {
+      expect(run.plan.sense).toBe('reward');
+      const context: AssessmentContext = { plan: run.plan, presentController: null, presentControllerModel: null, presentControllerReason: '' };
+      const swept = await sensitivity(context, run.models.map((m) => candidateWork(context, m)), 1, check);
+      const curve = swept.sensitivity.curves.find((c) => c.parameter === 'discount')!;
+      const names = run.models.map((m) => m.name);
+      return { curve, notes: swept.sensitivity.notes, said: (name: string) => swept.warnings[names.indexOf(name)].filter((w) => w.topic === SWEEP_CHECK_TOPIC), names };
+    } finally {
+      run.dispose();
+    }
+  }
+  const limited = 'PI with a 2 %/min rate limit';
+
+  it('positive rewards: a fall of J with the horizon is crossed and said, the rises are not', async () => {
+    const { curve, notes, said, names } = await sweepAsReward({ kind: 'column', column: 'cost', sense: 'reward', atLeast: 0.01, atMost: 15 });
+    expect(notes.filter((n) => /not checked/.test(n))).toEqual([]);
+    expect(curve.settings[3]).toBeCloseTo(0.966383, 6);
+    const v = curve.series.find((s) => s.name === limited)!.values as number[];
+    expect(v[2]).toBeCloseTo(10.69, 2); // the reward's J in its own sense: positive, and falling
+    expect(v[3]).toBeCloseTo(7.14, 2);
+    const warnings = said(limited);
+    expect(warnings).toHaveLength(1);
+    expect(warnings[0].severity).toBe('serious');
+    expect(warnings[0].message).toMatch(/^J cannot go from 10\.69 at γ 0\.95 to 7\.14 at γ 0\.966: the change, -3\.\d\d \(90\u00a0% interval \[-\d\.\d\d, -\d\.\d\d\]/);
+    expect(warnings[0].message).toContain('since the project declares every step’s reward never below 0.01 and never above 15, so between these two discounts J can change only by between 0.09746 and 146.2.');
+    for (const name of names.filter((n) => n !== limited)) {
+      const s = curve.series.find((x) => x.name === name)!.values as number[];
+      for (let k = 1; k < s.length; k++) expect(s[k]).toBeGreaterThan(s[k - 1]); // rises, the possible way for positive rewards
+      expect(said(name)).toEqual([]);
+    }
+  }, 600_000);
+
+  it('a lower bound of −1 allows the same fall between γ 0.95 and 0.966: nothing crossed, nothing said', async () => {
+    const { curve, notes, said } = await sweepAsReward({ kind: 'column', column: 'cost', sense: 'reward', atLeast: -1, atMost: 15 });
+    expect(notes.filter((n) => /not checked/.test(n))).toEqual([]); // checked, and passed
+    const v = curve.series.find((s) => s.name === limited)!.values as number[];
+    expect(v[3] - v[2]).toBeGreaterThan(-9.746); // the fall, inside the allowed [−9.746, 146.2]
+    expect(v[3] - v[2]).toBeLessThan(0);
+    expect(curve.series.find((s) => s.name === limited)!.beyondPossible).toBeUndefined();
+    expect(said(limited)).toEqual([]);
+  }, 600_000);
+
+  it('rewards never above 0 by their formula: a rise of J is crossed and said, the falls are not', async () => {
+    const { curve, said, names } = await sweepAsReward({ kind: 'expression', expression: '-max(cost, 0)', sense: 'reward' });
+    const v = curve.series.find((s) => s.name === limited)!.values as number[];
+    expect(v[2]).toBeCloseTo(-10.69, 2);
+    expect(v[3]).toBeCloseTo(-7.14, 2);
+    const warnings = said(limited);
+    expect(warnings).toHaveLength(1);
+    expect(warnings[0].severity).toBe('serious');
+    expect(warnings[0].message).toMatch(/^J cannot go from -10\.69 at γ 0\.95 to -7\.14 at γ 0\.966: the change, 3\.\d\d \(90\u00a0% interval \[\d\.\d\d, \d\.\d\d\]/);
+    expect(warnings[0].message).toContain('since the reward formula keeps every step’s reward, whatever the plant does, never above 0, so between these two discounts J can change only by no more than 0.');
+    for (const name of names.filter((n) => n !== limited)) {
+      const s = curve.series.find((x) => x.name === name)!.values as number[];
+      for (let k = 1; k < s.length; k++) expect(s[k]).toBeLessThan(s[k - 1]); // falls, the possible way for rewards never above 0
+      expect(said(name)).toEqual([]);
+    }
   }, 600_000);
 });

@@ -7,8 +7,7 @@
  * 87.1 %; 0.62 and 0.9375 read 62.0 % and 93.8 % (93.75 is exact in binary, a tie: ECMA-262's
  * Number.prototype.toFixed then takes the larger n).
  */
-import { readdirSync, readFileSync, statSync } from 'node:fs';
-import { join, relative, resolve } from 'node:path';
+import { createElement } from 'react';
 import { describe, expect, it } from 'vitest';
 import { formatAssessment } from '../../src/cli/assessmentFormat';
 import { terminalText } from '../../src/cli/terminal';
@@ -16,6 +15,10 @@ import type { Assessment } from '../../src/pipeline/assessment';
 import { comparisonSection } from '../../src/pipeline/report/reportComparison';
 import type { ReportInput } from '../../src/pipeline/report/reportInput';
 import { shareText, sharesText } from '../../src/core/shareText';
+import type { Evaluation } from '../../src/pipeline/estimates';
+import { AnswerPanel } from '../../src/renderer/src/screens/findings/AnswerPanel';
+import { ComparisonTable } from '../../src/renderer/src/screens/findings/ComparisonTable';
+import { renderFindings, tableCells } from '../support/renderFindings';
 
 const estimate = (value: number) => ({ value, standardError: 0.1, percentile: [value - 0.2, value + 0.2] as [number, number], basic: [value - 0.2, value + 0.2] as [number, number], replicates: 100, failedReplicates: 0 });
 const difference = (a: string, b: string, probabilityBetter: number) => ({ a, b, difference: estimate(-1), probabilityBetter });
@@ -39,6 +42,19 @@ const assessment = {
 /** Each `<td class="num">` of the report's tables that ends "of resamples", in order. */
 const resampleCells = (html: string): string[] => [...html.matchAll(/<td class="num">([^<]*of resamples)<\/td>/g)].map((m) => m[1].replace(/\u00a0/g, ' '));
 
+/** The same assessment as the app holds it: in the project's sense, its baseline the logged return, J's intervals. */
+const rendered = {
+  ...assessment, valueSense: 'cost',
+  comparison: { ...assessment.comparison, ranking: { ...assessment.comparison.ranking, order: ['A', 'B', 'C', 'logged return'] } },
+} as unknown as Assessment;
+const evaluation = { valueSense: 'cost', policies: ['A', 'B', 'C'].map((name) => ({ name })) } as unknown as Evaluation;
+
+/** The distinct counts of decimals among a column's shares ("99.5 %" → 1, "50 %" → 0); cells without a share are skipped. */
+const decimals = (column: readonly string[]): number[] => [...new Set(column.flatMap((c) => {
+  const m = /^(?:above )?\d+(?:\.(\d+))? %$/.exec(c);
+  return m ? [m[1]?.length ?? 0] : [];
+}))];
+
 describe('a column of shares at one precision', () => {
   it('the command line’s table of differences: first better in', () => {
     const lines = terminalText(formatAssessment(assessment)).split('\n');
@@ -51,11 +67,18 @@ describe('a column of shares at one precision', () => {
     expect(resampleCells(html)).toEqual(['99.5 % of resamples', '50.0 % of resamples', '87.1 % of resamples', '62.0 % of resamples', '93.8 % of resamples']);
   });
 
-  it('the app’s tables write no share cell by cell (a table cell calling shareText)', () => {
-    const root = resolve(__dirname, '../../src/renderer/src');
-    const files = (folder: string): string[] => readdirSync(folder).flatMap((n) => (statSync(join(folder, n)).isDirectory() ? files(join(folder, n)) : /\.tsx$/.test(n) ? [join(folder, n)] : []));
-    const cellByCell = files(root).flatMap((path) => readFileSync(path, 'utf8').split('\n').flatMap((line, i) => (/<td\b[^>]*>[^<]*\bshareText\(/.test(line) ? [`${relative(root, path)}:${i + 1}`] : [])));
-    expect(cellByCell).toEqual([]);
+  it('the app’s answer table and comparison table, rendered: one precision down each share column', () => {
+    // Rendered as the app renders them (react-dom/server), so a cell that formats its share alone shows as "50 %" under "99.5 %".
+    const answer = tableCells(renderFindings(createElement(AnswerPanel, { evaluation, assessment: rendered }), ['answer']), 'answer-table');
+    expect(answer[0]).toEqual(['Policy', 'J', '90 % interval', 'Minus baseline', 'Better in', 'Cross-checks', 'Warnings']);
+    const betterIn = answer.slice(1).map((row) => row[4]);
+    expect(betterIn).toEqual(['99.5 %', '50.0 %', '87.1 %', '—']); // the baseline's own row has none
+    expect(decimals(betterIn)).toEqual([1]);
+    const comparison = tableCells(renderFindings(createElement(ComparisonTable, { assessment: rendered }), ['comparison']), 'comparison-table');
+    expect(comparison[0]).toEqual(['First', 'Second', 'Difference', '90 % interval', 'First better in']);
+    const firstBetterIn = comparison.slice(1).map((row) => row[4]);
+    expect(firstBetterIn).toEqual(['99.5 %', '50.0 %', '87.1 %', '62.0 %', '93.8 %']);
+    expect(decimals(firstBetterIn)).toEqual([1]);
   });
 });
 
