@@ -174,6 +174,7 @@ export function classAssessment(work: CandidateWork, r: CandidateReplicates, lev
   return {
     classes: estimates.map((e) => ({ label: e.label, value: sign * e.value, interval: flip(e.interval), standardError: e.standardError })),
     settled: verdict.settled, range: flip(verdict.range), coverage: verdict.coverageText, reason: verdict.reason,
+    pairs: verdict.gaps.map((g) => ({ ...g, difference: sign * g.difference })),
   };
 }
 
