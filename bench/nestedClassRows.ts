@@ -18,7 +18,7 @@ import { readFileSync } from 'node:fs';
 import { detectable, disagrees, type ClassGap } from '../src/core/diagnostics/functionClassRange';
 import { CROSS_CHECK_RULE } from '../src/core/offPolicy/crossCheckVerdict';
 import { nestedClassesPoint } from '../src/core/diagnostics/nestedClassPointer';
-import { polynomialClassLabel } from '../src/pipeline/plan/approximatorLabel';
+import { NESTED_CLASS_LABELS as LABELS } from '../src/pipeline/plan/approximatorLabel';
 
 /** Every plant bench/holdoutCliRows.ts can take the truth of (its DYNAMICS), in the order the task ran them. */
 const PLANTS = [
@@ -27,7 +27,6 @@ const PLANTS = [
   'holdout-header-pressure-g0.98', 'holdout-backlash-level-g0.96', 'holdout-steam-drum-g0.97', 'holdout-pipe-heater-g0.97',
 ];
 const RULE = { truthStandardErrors: 2, share: 0.9, perPlant: 0.5 } as const;
-const LABELS = { own: polynomialClassLabel(2), middle: polynomialClassLabel(3), top: polynomialClassLabel(4) };
 
 interface Row {
   plant: string; approximator: string; seed: number; candidate: string;
@@ -55,10 +54,10 @@ function whyNot(settled: boolean, gaps: ClassGap[]): Why {
 
 function judge(row: Row): Judged {
   const none = (why: Why) => ({ why, fires: false, hullHolds: false, closer: false, err2: NaN, err4: NaN, hull: null });
-  if (row.approximator !== 'linear' || !row.classes || row.classes[0]?.label !== LABELS.own) return none(row.settled === false ? 'not all of 2-4' : 'settled');
+  if (row.approximator !== 'linear' || !row.classes || row.classes[0]?.label !== LABELS.own) return none(row.settled === true ? 'settled' : 'not all of 2-4');
   // JSON writes Infinity as null: a pair with no finite standard error.
   const gaps: ClassGap[] = (row.classPairs ?? []).map((g) => ({ ...g, standardErrors: g.standardErrors ?? Infinity, relativeStandardError: g.relativeStandardError ?? Infinity }));
-  if (!nestedClassesPoint({ settled: row.settled !== false, gaps }, LABELS)) return none(whyNot(row.settled !== false, gaps));
+  if (!nestedClassesPoint({ settled: row.settled === true, gaps }, LABELS)) return none(whyNot(row.settled === true, gaps));
   const byLabel = (label: string) => row.classes!.find((k) => k.label === label)!;
   const two = byLabel(LABELS.own), three = byLabel(LABELS.middle), four = byLabel(LABELS.top);
   if (!three.interval || !four.interval) throw new Error(`${row.plant} seed ${row.seed} ${row.candidate}: a compared class without an interval`);

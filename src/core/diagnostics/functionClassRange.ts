@@ -31,6 +31,9 @@
  *   - Settled: no pair disagrees and at least one pair can check the first class; the classes that
  *     cannot are named. Not settled: some pair disagrees (a noisy pair can still show a gap), or
  *     none can check the first class; the reason names the widest gap, or the closest check.
+ *   - Where a linear project of degree 2 is not settled and degrees 3 and 4 agree with each other
+ *     (paired, able to see 10 %) while both disagree with degree 2, the reason adds that the gap most
+ *     likely lies in degree 2 (nestedClassPointer.ts, adopted on a measured rule); range and verdict unchanged.
  *   - A class that was fitted but whose fitted Q-evaluation did not converge (it diverged, or stopped
  *     at its iteration limit) has no value to compare. When it leaves the project's own class alone,
  *     the estimate is not settled: the richer classes could not be fitted stably on these logs,
