@@ -7,6 +7,7 @@
 import { ditherDependenceText } from '../core/ditherDependence';
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
 import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
+import { nestedClassSentence } from '../core/diagnostics/nestedClassPointer';
 import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare, unvisitedNeedsCaution } from '../core/diagnostics/unvisitedRegion';
@@ -31,6 +32,7 @@ import { actionSlices } from './assessSlices';
 import type { EvaluationPlan } from './plan/evaluationPlan';
 import { cutToCertain, impossibleValue } from './assessPossible';
 import { surfaceVisits } from './plan/surfaceGrid';
+import { NESTED_CLASS_LABELS } from './plan/approximatorLabel';
 import { completedReturnFromEnds } from './model/completedReturn';
 import type { NetworkRunResamples } from './networkRunResamples';
 import type { ValueInterval } from '../core/fqe/networkValueEstimate';
@@ -170,10 +172,13 @@ export function classAssessment(work: CandidateWork, r: CandidateReplicates, lev
   // (withUnresampledOwn adds it), and the linear classes are then checked among themselves only.
   const ownFirst = estimates[0]?.label === work.classes[0].label && work.replicate !== null;
   const verdict = functionClassVerdict(estimates, work.unconvergedClasses, ownFirst);
+  // A linear project of degree 2 whose degrees 3 and 4 agree and both differ from it: the reason says where the gap most likely lies (range and verdict unchanged).
+  const nested = ownFirst && estimates[0].label === NESTED_CLASS_LABELS.own ? nestedClassSentence(verdict, NESTED_CLASS_LABELS) : null;
   const flip = ([lo, hi]: readonly [number, number]): [number, number] => (sign > 0 ? [lo, hi] : [-hi, -lo]);
   return {
     classes: estimates.map((e) => ({ label: e.label, value: sign * e.value, interval: flip(e.interval), standardError: e.standardError })),
-    settled: verdict.settled, range: flip(verdict.range), coverage: verdict.coverageText, reason: verdict.reason,
+    settled: verdict.settled, range: flip(verdict.range), coverage: verdict.coverageText, reason: nested ? `${verdict.reason} ${nested}` : verdict.reason,
+    pairs: verdict.gaps.map((g) => ({ ...g, difference: sign * g.difference })),
   };
 }
 

@@ -7,6 +7,7 @@
  */
 
 import type { PlantMemorySummary } from './plantMemoryCheck';
+import type { ClassGap } from '../core/diagnostics/functionClassRange';
 
 export interface IntervalEstimate {
   /** Point estimate on the full data. */
@@ -125,6 +126,8 @@ export interface FunctionClassAssessment {
   /** What the range covers, and why settled or not, in words. */
   coverage: string;
   reason: string;
+  /** Every pair of classes the rule compared, differences in the project's sense (empty for one class; a network's own value is in none). */
+  pairs: ClassGap[];
 }
 
 export interface CandidateAssessment {

@@ -19,7 +19,7 @@ const linearClasses = (): FunctionClassAssessment => ({
     { label: 'polynomial, degree 2', value: 30.2, interval: [19.3, 41.1], standardError: 6.6 },
     { label: 'polynomial, degree 3', value: 19, interval: [-50, 88], standardError: 42 },
   ],
-  settled: true, range: [-50, 88], coverage: '', reason: 'Settled: the function classes agree (widest gap …).',
+  settled: true, range: [-50, 88], coverage: '', reason: 'Settled: the function classes agree (widest gap …).', pairs: [],
 });
 
 const network = (value: number, difference: [number, number]) => {

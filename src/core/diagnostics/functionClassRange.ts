@@ -31,6 +31,9 @@
  *   - Settled: no pair disagrees and at least one pair can check the first class; the classes that
  *     cannot are named. Not settled: some pair disagrees (a noisy pair can still show a gap), or
  *     none can check the first class; the reason names the widest gap, or the closest check.
+ *   - Where a linear project of degree 2 is not settled and degrees 3 and 4 agree with each other
+ *     (paired, able to see 10 %) while both disagree with degree 2, the reason adds that the gap most
+ *     likely lies in degree 2 (nestedClassPointer.ts, adopted on a measured rule); range and verdict unchanged.
  *   - A class that was fitted but whose fitted Q-evaluation did not converge (it diverged, or stopped
  *     at its iteration limit) has no value to compare. When it leaves the project's own class alone,
  *     the estimate is not settled: the richer classes could not be fitted stably on these logs,
@@ -90,6 +93,8 @@ export interface ClassVerdict {
   readonly reason: string;
   /** The disagreeing pair with the largest relative gap, or the largest gap when all agree; null for one class. */
   readonly widestGap: ClassGap | null;
+  /** Every pair of classes compared, in the order the estimates were given (empty for one class). */
+  readonly gaps: readonly ClassGap[];
 }
 
 /**
@@ -106,7 +111,7 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
   const failed = unconverged.map((u) => `${u.label} (${u.why})`).join('; ');
   if (estimates.length === 1 && unconverged.length > 0) {
     return {
-      settled: false, range, covers: 'sampling', widestGap: null,
+      settled: false, range, covers: 'sampling', widestGap: null, gaps: [],
       coverageText: 'Covers the sampling of runs only: the other function classes fitted did not converge, so the error of the class itself is not measured.',
       reason: `Not settled: the other function classes fitted did not converge (${failed}), so no second class checks this one; ` +
         'that happens where the candidate leads beyond the states and actions the logs cover.',
@@ -115,7 +120,7 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
   const notCompared = unconverged.length === 0 ? '' : ` Not compared, as their fits did not converge: ${failed}.`;
   if (estimates.length === 1) {
     return {
-      settled: true, range, covers: 'sampling', widestGap: null,
+      settled: true, range, covers: 'sampling', widestGap: null, gaps: [],
       coverageText: 'Covers the sampling of runs only: no other function class was fitted, so the error of the class itself is not measured.',
       reason: 'One function class only: its approximation error is not checked.',
     };
@@ -129,18 +134,18 @@ export function functionClassVerdict(estimates: readonly ClassEstimate[], unconv
     if (ownFirst && checking.length === 0) {
       const closest = checks.reduce((c, x) => (detectable(x) < detectable(c) ? x : c));
       return {
-        settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: closest,
+        settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: closest, gaps,
         reason: `Not settled: no other function class checks ${own} closely enough. The closest, ${closest.second}, differs from it by ${percentText(closest.relative)} of J, ` +
           `but could not have seen a gap of ${shareText(CROSS_CHECK_RULE.detectableGap)} of J (it would need a gap of ${detectableText(detectable(closest))}), so the error of the class is not measured.${notCompared}`,
       };
     }
     const g = widest(gaps), loose = ownFirst ? checks.filter((x) => !checking.includes(x)) : [];
     const tooLoose = loose.length === 0 ? '' : ` Too uncertain to check ${own}: ${loose.map((x) => `${x.second} (the smallest gap it could see is ${detectableText(detectable(x))} of J, not ${shareText(CROSS_CHECK_RULE.detectableGap)})`).join('; ')}.`;
-    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, reason: `Settled: the function classes agree; the widest gap: ${describe(g)}.${tooLoose}${notCompared}` };
+    return { settled: true, range, covers: 'samplingAndClasses', coverageText, widestGap: g, gaps, reason: `Settled: the function classes agree; the widest gap: ${describe(g)}.${tooLoose}${notCompared}` };
   }
   const g = widest(disagreeing);
   return {
-    settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: g,
+    settled: false, range, covers: 'samplingAndClasses', coverageText, widestGap: g, gaps,
     reason: `Not settled: ${describe(g)}, beyond ${CLASS_AGREEMENT.standardErrors} standard errors and ${shareText(CLASS_AGREEMENT.relative)} of J, ` +
       `so at least one class cannot represent the value of this policy; the range spans them all.${notCompared}`,
   };
@@ -164,12 +169,12 @@ function pairGaps(estimates: readonly ClassEstimate[]): ClassGap[] {
   return gaps;
 }
 
-function disagrees(g: ClassGap): boolean {
+export function disagrees(g: ClassGap): boolean {
   return g.standardErrors > CLASS_AGREEMENT.standardErrors && g.relative > CLASS_AGREEMENT.relative;
 }
 
 /** The smallest gap, as a share of |J|, the pair could have seen: CLASS_AGREEMENT.standardErrors of its difference's standard errors. */
-function detectable(g: ClassGap): number {
+export function detectable(g: ClassGap): number {
   return CLASS_AGREEMENT.standardErrors * g.relativeStandardError;
 }
 

@@ -27,6 +27,9 @@ export function polynomialClassLabel(degree: number): string {
   return `polynomial, degree ${degree}`;
 }
 
+/** The three nested polynomial classes the class verdict's pointer reads (src/core/diagnostics/nestedClassPointer.ts): a project's own degree 2, and 3 and 4. */
+export const NESTED_CLASS_LABELS = { own: polynomialClassLabel(2), middle: polynomialClassLabel(3), top: polynomialClassLabel(4) } as const;
+
 /** The function class the approximator fits, as the class list names it: "network, one hidden layer of 8 units", "polynomial, degree 2". */
 export function approximatorClassLabel(a: Pick<Network, 'kind' | 'hiddenLayers'> | Pick<Linear, 'kind' | 'features'>): string {
   if (a.kind === 'network') return `network, ${hiddenLayersText(a.hiddenLayers)}`;

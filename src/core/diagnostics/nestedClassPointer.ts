@@ -1,0 +1,54 @@
+/**
+ * Where a linear project's function classes are not settled, whether the nested polynomial classes
+ * point one way: degrees 2, 3 and 4 were all fitted (each holds the one below), degrees 3 and 4 agree
+ * with each other by the class rule on paired resamples and could have seen a gap of
+ * CROSS_CHECK_RULE.detectableGap (10 %) of J, and the project's own degree 2 disagrees with both.
+ * Then the verdict's reason says the gap most likely lies in degree 2; the range and the verdict
+ * stay as they are (functionClassRange.ts).
+ *
+ * Why only as a sentence, and on what evidence: a richer class that adds nothing to the next one
+ * suggests, without proving, that the poorer class's bias makes the gap (our reading). The rule for
+ * saying so was written before any measurement and judged on every battery and hold-out plant the
+ * command-line bench takes the truth of (bench/nestedClassRows.ts; the table in test/battery/README.md,
+ * "Where degrees 3 and 4 agree and degree 2 stands apart"): it fired on 4 of 50 rows, on 2 plants,
+ * and there the hull of degrees 3 and 4's intervals held the truth and degree 4 was nearer the truth
+ * than degree 2 on all 4. Few rows: a plant where it fires and misleads would be news to record there.
+ */
+import { CROSS_CHECK_RULE } from '../offPolicy/crossCheckVerdict';
+import { detectable, disagrees, type ClassGap } from './functionClassRange';
+import { shareText } from '../shareText';
+
+/** The labels of the three nested classes: the project's own (degree 2) and the two above it. */
+export interface NestedClassLabels {
+  readonly own: string;
+  readonly middle: string;
+  readonly top: string;
+}
+
+/** True when the pointer's conditions all hold on the verdict's pairs (see the file comment). */
+export function nestedClassesPoint(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NestedClassLabels): boolean {
+  return pointingPair(verdict, labels) !== null;
+}
+
+/**
+ * The sentence a not-settled verdict's reason carries where the pointer holds, else null: written
+ * here once, so the command line, the app and the report read the same words.
+ */
+export function nestedClassSentence(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NestedClassLabels): string | null {
+  const upper = pointingPair(verdict, labels);
+  if (!upper) return null;
+  const z = Number.isFinite(upper.standardErrors) ? upper.standardErrors.toFixed(1) : '∞';
+  return `The two richer classes (${labels.middle}; ${labels.top}), each holding the one below it, agree with each other by the same rule ` +
+    `(${shareText(upper.relative)} of J apart, ${z} paired standard errors; they could have seen a gap of ${shareText(CROSS_CHECK_RULE.detectableGap)}), ` +
+    `and both differ from ${labels.own}: the gap most likely lies in that class, too simple for the value of this policy.`;
+}
+
+/** The agreeing upper pair where every condition holds, else null. */
+function pointingPair(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NestedClassLabels): ClassGap | null {
+  if (verdict.settled) return null;
+  const pair = (a: string, b: string) => verdict.gaps.find((g) => (g.first === a && g.second === b) || (g.first === b && g.second === a));
+  const ownMiddle = pair(labels.own, labels.middle), ownTop = pair(labels.own, labels.top), upper = pair(labels.middle, labels.top);
+  if (!ownMiddle || !ownTop || !upper) return null;
+  const points = upper.paired && !disagrees(upper) && detectable(upper) <= CROSS_CHECK_RULE.detectableGap && disagrees(ownMiddle) && disagrees(ownTop);
+  return points ? upper : null;
+}
