@@ -10,6 +10,8 @@ import { describe, expect, it } from 'vitest';
 import type { Assessment } from '../../../src/pipeline/assessment';
 import { PRESENT_CONTROLLER_NAME } from '../../../src/pipeline/plan/presentController';
 import { ComparisonTable } from '../../../src/renderer/src/screens/findings/ComparisonTable';
+import { AnswerPanel } from '../../../src/renderer/src/screens/findings/AnswerPanel';
+import type { Evaluation } from '../../../src/pipeline/estimates';
 import { renderFindings, tableCells } from '../../support/renderFindings';
 
 const PI = 'PI (25 %/K, 30 min)', LIMITED = 'PI with a 2 %/min rate limit';
@@ -39,5 +41,17 @@ describe('names in the comparison card', () => {
     expect(ranking).toContain('PI (25\u00a0%/K, 30\u00a0min) › present controller › PI with a 2\u00a0%/min rate limit.');
     expect(ranking).toContain('PI (25\u00a0%/K, 30\u00a0min) ahead of present controller');
     expect(ranking).not.toMatch(/\d %\/|\d min/);
+  });
+});
+
+describe('names in the answer card', () => {
+  it('holds each number to its unit in the policy column too (the same narrow column at 1280 px)', () => {
+    const withCandidates = {
+      ...assessment, warnings: [], behaviour: estimate(9),
+      candidates: [PI, LIMITED].map((name, i) => ({ name, policyValue: estimate(7 + 3 * i), warnings: [], confirmation: { status: 'unconfirmed', text: '' } })),
+    } as unknown as Assessment;
+    const evaluation = { valueSense: 'cost', policies: [PI, LIMITED].map((name) => ({ name })) } as unknown as Evaluation;
+    const rows = tableCells(renderFindings(createElement(AnswerPanel, { evaluation, assessment: withCandidates }), ['answer']), 'answer-table', false);
+    expect(rows.slice(1, 3).map((r) => r[0])).toEqual(['PI (25\u00a0%/K, 30\u00a0min)', 'PI with a 2\u00a0%/min rate limit']);
   });
 });
