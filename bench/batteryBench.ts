@@ -14,8 +14,8 @@
  *          --out file (records, rewritten after every log; default test-artifacts/battery-<time>.json)
  *          --fit-seed-offset k (fit with seed s + k on the data of seed s: the training's own randomness)
  *          --holdout (the hold-out plants of test/battery/holdout/ instead of the battery's six)
- *          --skip-default-choice (fit only the logs whose degree choice, networkDegreeChoice.ts, is not the
- *          default: with '{"linearPartDegree":"choose"}' and without, to pair; bench/batteryChoiceMerge.ts)
+ *          --skip-default-choice (fit only the logs whose degree choice, networkDegreeChoice.ts, is not degree 2:
+ *          with the default method, which chooses, and with '{"linearPartDegree":2}', to pair; bench/batteryChoiceMerge.ts)
  * Seeds: the data of seed s is simulated with seed s and the network is fitted with seed s (+ k).
  * Run it under `nice`; it takes about a minute of CPU per fit.
  */
@@ -25,7 +25,7 @@ import { approximatorAgreement } from '../src/core/fqe/approximatorAgreement';
 import { fitNetworkFqe, type NetworkFit } from '../src/core/fqe/networkFqe';
 import { chooseLinearPartDegree, type DegreeChoice } from '../src/core/fqe/networkDegreeChoice';
 import { startGuard } from '../src/core/fqe/degreeChoiceStartGuard';
-import { defaultNetworkMethod } from '../src/core/fqe/networkMethod';
+import { LINEAR_PART_DEGREE } from '../src/core/fqe/networkLinearPart';
 import { COMPARATOR_DEGREE } from '../src/core/fqe/comparatorDegree';
 import { NetworkDivergedError } from '../src/core/fqe/networkErrors';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
@@ -165,7 +165,7 @@ export async function runBatteryBench(args: string[]): Promise<void> {
         if (o.skipDefaultChoice) {
           const data = plant.simulate({ transitions: o.transitions, seed, runStarts });
           const choice = chooseLinearPartDegree({ data, discount: plant.discount, seed: seed + o.fitSeedOffset });
-          if (choice.chosen === defaultNetworkMethod.linearPartDegree) {
+          if (choice.chosen === LINEAR_PART_DEGREE) {
             choseDefault.push({ plant: plant.name, candidate: plant.candidates[candidate].name, seed, runStarts, degreeChoice: degreeChoiceRecord(choice) });
             console.log(`  ${plant.name} ${plant.candidates[candidate].name} seed ${seed} (runs logged ${runStarts}): degree ${choice.chosen} chosen, the default fit (not refitted)`);
             save();

@@ -19,6 +19,7 @@ import { forwardPass } from '../src/core/fqe/networkForward';
 import { hiddenFeatureRows } from '../src/core/fqe/networkHiddenFeatures';
 import { lastLayerTotals } from '../src/core/fqe/networkLastLayerSums';
 import { defaultNetworkMethod } from '../src/core/fqe/networkMethod';
+import { LINEAR_PART_DEGREE } from '../src/core/fqe/networkLinearPart';
 import { featurePassFlop, lastLayerSumsFlop } from '../src/core/fqe/networkWork';
 import { multiplyAddsPerRow, networkLayout } from '../src/core/fqe/networkParameters';
 import { defaultNetworkSettings } from '../src/core/fqe/networkSettings';
@@ -63,7 +64,7 @@ async function measureBackend(data: TransitionSet, backend: TfBackendName, steps
   const failure = await loadBackend(backend, wasmPath);
   if (failure) throw new Error(failure);
   const policy = createGaussianPolicy(tankTunedPolicy, 2);
-  const s = createFitSession({ data, policy, discount: tankDiscount, quadratureNodes: QUADRATURE_NODES, seed: 1, settings, method: { ...defaultNetworkMethod } });
+  const s = createFitSession({ data, policy, discount: tankDiscount, quadratureNodes: QUADRATURE_NODES, seed: 1, settings, method: { ...defaultNetworkMethod, linearPartDegree: LINEAR_PART_DEGREE } });
   try {
     const n = s.rows.training.inputs.shape[0], rows = n * (1 + s.next.training.pointsPerState);
     hiddenFeatureRows(s.net.theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training).dispose(); // warm-up

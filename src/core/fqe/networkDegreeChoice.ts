@@ -85,6 +85,8 @@ export interface DegreeChoice {
   readonly rowsScored: number;
   /** Why the default degree was kept without a comparison (too few runs, a singular fit, too many features); null when compared. */
   readonly notCompared: string | null;
+  /** True when the comparison was not run because the quartic has more than DEGREE_CHOICE_MAX_FEATURES features (limits.ts). */
+  readonly overFeatureLimit: boolean;
   /** One sentence in the user's words: what was chosen and why, from the same numbers. */
   readonly sentence: string;
 }
@@ -104,7 +106,7 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   // The choice's cost grows as n·d² in the top degree's features (degreeChoiceSums.ts): skipped above the limit, and said so.
   const topFeatures = monomialCount(p, top);
   if (topFeatures > DEGREE_CHOICE_MAX_FEATURES) {
-    return keep(`a degree-${top} polynomial in ${p} inputs has ${topFeatures} features, more than the ${DEGREE_CHOICE_MAX_FEATURES} up to which the comparison is cheap enough to run on every fit`);
+    return { ...keep(`a degree-${top} polynomial in ${p} inputs has ${topFeatures} features, more than the ${DEGREE_CHOICE_MAX_FEATURES} up to which the comparison is cheap enough to run on every fit`), overFeatureLimit: true };
   }
   const n = data.count, ds = data.stateDim, e = data.episodeCount;
   if (e < DEGREE_CHOICE_FOLDS) return keep(`the log has ${e} run${e === 1 ? '' : 's'}; at least ${DEGREE_CHOICE_FOLDS} are needed to fit on some and score on others`);
@@ -221,12 +223,12 @@ export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   const sentence = chosen !== base
     ? `Polynomial part of degree ${chosen}: it predicted the present controller’s held-out returns better than degree ${base} (root mean squared error ${comparedError} against ${baseError} of the return, by more than ${CHOICE_STANDARD_ERRORS} standard errors; ${rows}).`
     : `Polynomial part of degree ${base}: degree ${other} did not predict the present controller’s held-out returns better by more than ${CHOICE_STANDARD_ERRORS} standard errors (root mean squared error ${comparedError} against ${baseError} of the return; ${rows}).`;
-  return { degrees, chosen, meanSquaredError, relativeError, difference, standardError, runsScored: scored.length, rowsScored, notCompared: null, sentence };
+  return { degrees, chosen, meanSquaredError, relativeError, difference, standardError, runsScored: scored.length, rowsScored, notCompared: null, overFeatureLimit: false, sentence };
 }
 
 function notCompared(degrees: readonly number[], base: number, why: string): DegreeChoice {
   return {
-    degrees, chosen: base, meanSquaredError: [], relativeError: [], difference: null, standardError: null, runsScored: 0, rowsScored: 0, notCompared: why,
+    degrees, chosen: base, meanSquaredError: [], relativeError: [], difference: null, standardError: null, runsScored: 0, rowsScored: 0, notCompared: why, overFeatureLimit: false,
     sentence: `Polynomial part of degree ${base}, the default: the degrees were not compared because ${why}.`,
   };
 }

@@ -104,7 +104,7 @@ export interface NetworkFit {
   /**
    * How the polynomial part's degree was chosen from the log (networkDegreeChoice.ts), with its numbers,
    * and the start guard that may have kept the default (degreeChoiceStartGuard.ts); absent unless
-   * linearPartDegree is 'choose'. Its sentence ends the fit's message.
+   * linearPartDegree is 'choose'. Its sentence ends the fit's message where the degree is not simply 2 (choiceWorthSaying).
    */
   readonly degreeChoice?: GuardedDegreeChoice;
   /** J over startStates (count×ds) with its interval, the linear estimate (networkComparator.ts) and their paired difference. */
@@ -149,7 +149,19 @@ export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit>
     throw error;
   }
   const fit = fits.length === 1 ? fits[0] : combineMembers(fits);
-  return degreeChoice ? Object.assign(fit, { degreeChoice, message: `${fit.message} ${degreeChoice.sentence}` }) : fit;
+  if (!degreeChoice) return fit;
+  return Object.assign(fit, { degreeChoice, ...(choiceWorthSaying(degreeChoice) ? { message: `${fit.message} ${degreeChoice.sentence}` } : {}) });
+}
+
+/**
+ * The choice's sentence ends the fit's message when the degree is not simply the long-standing 2:
+ * degree 4 used, 4 picked but kept at 2 by the start guard, or the choice skipped for its cost. Where
+ * the criterion kept 2 (or the log was too short to compare), the message is the degree-2 fit's, and
+ * the sentence is in `degreeChoice`.
+ */
+function choiceWorthSaying(choice: GuardedDegreeChoice): boolean {
+  const base = choice.degrees[0];
+  return choice.chosen !== base || choice.criterionChose !== base || choice.overFeatureLimit;
 }
 
 /**

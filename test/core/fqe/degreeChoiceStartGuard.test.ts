@@ -84,7 +84,7 @@ describe('the guarded choice in the network fit', () => {
     expect(own.message).toMatch(/Polynomial part of degree 4/);
     own.dispose();
     const guarded = await fitNetworkFqe(input({ startStates: farStarts, method: { members: 1, intervalResamples: 20, linearPartDegree: 'choose' } }));
-    const plain = await fitNetworkFqe(input({ startStates: farStarts }));
+    const plain = await fitNetworkFqe(input({ startStates: farStarts, method: { members: 1, intervalResamples: 20, linearPartDegree: 2 } }));
     expect(guarded.degreeChoice).toMatchObject({ chosen: 2, criterionChose: 4, startGuard: { runStarts: false, outside: 50, inside: false } });
     expect(guarded.linearStart.features.dim).toBe(6);
     expect(guarded.message).toMatch(/degree 2, the default: degree 4 predicted .* 50 of the 50 start states of J/);
@@ -96,8 +96,8 @@ describe('the guarded choice in the network fit', () => {
   it('keeps degree 2 on a linear-quadratic battery log (lq2-vessel, seed 1), the default fit to the bit', async () => {
     const plant = batteryPlant('lq2-vessel-g0.90'), data = plant.simulate({ transitions: 20_000, seed: 1 });
     const lq = { data, policy: createGaussianPolicy(plant.candidates[0].spec, plant.stateDim), discount: plant.discount, startStates: plant.startSets()[1].states };
-    const chosen = await fitNetworkFqe(input({ ...lq, method: { members: 1, intervalResamples: 20, linearPartDegree: 'choose' } }));
-    const plain = await fitNetworkFqe(input(lq));
+    const chosen = await fitNetworkFqe(input({ ...lq, method: { members: 1, intervalResamples: 20 } })); // the default method chooses
+    const plain = await fitNetworkFqe(input({ ...lq, method: { members: 1, intervalResamples: 20, linearPartDegree: 2 } }));
     expect(chosen.degreeChoice).toMatchObject({ chosen: 2, criterionChose: 2, startGuard: null });
     expect(chosen.estimate(lq.startStates).value).toBe(plain.estimate(lq.startStates).value);
     expect(chosen.estimate(lq.startStates).interval).toEqual(plain.estimate(lq.startStates).interval);

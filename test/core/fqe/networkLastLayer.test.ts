@@ -40,7 +40,7 @@ const relative = (a: number, b: number) => Math.abs(a - b) / Math.abs(b);
 describe('network last layer', () => {
   it('on the quadratic part alone equals linear FQE\'s LSTD-Q fixed point with degree-2 features', async () => {
     expect(await loadBackend('cpu')).toBeNull();
-    const s = createFitSession({ data, policy, discount: plant.discount, quadratureNodes: 10, seed: 1, settings, method: defaultNetworkMethod });
+    const s = createFitSession({ data, policy, discount: plant.discount, quadratureNodes: 10, seed: 1, settings, method: { ...defaultNetworkMethod, linearPartDegree: 2 } });
     try {
       const solved = solveLastLayer(s.linearTotal.sums, s.linearTotal.dim, s.linearTotal.dim, 0);
       if ('failure' in solved) throw new Error(solved.failure);
@@ -70,7 +70,7 @@ describe('network last layer', () => {
 
   it.each(['cpu', 'wasm'] as const)('float32 totals give the J of double-precision per-episode sums (%s)', async (backend) => {
     expect(await loadBackend(backend, wasmDirectory)).toBeNull();
-    const s = createFitSession({ data, policy, discount: plant.discount, quadratureNodes: 10, seed: 2, settings, method: defaultNetworkMethod });
+    const s = createFitSession({ data, policy, discount: plant.discount, quadratureNodes: 10, seed: 2, settings, method: { ...defaultNetworkMethod, linearPartDegree: 2 } });
     const features = hiddenFeatureRows(s.net.theta, s.layout, s.net.activation, s.rows.training.inputs, s.next.training);
     try {
       const dh = features.hidden.shape[1], { part, rewards } = s.linear.training;
