@@ -119,6 +119,8 @@ async function main() {
     const seconds = (Date.now() - started) / 1000;
     if (run.status !== 0 && run.status !== 3) { console.log(`${plant.name}\t${approximator}\t${seed}\tFAILED exit ${run.status}: ${run.stderr.slice(0, 400)}`); continue; }
     const json = JSON.parse(run.stdout);
+    // The command line's own answer, kept beside the rows for what they do not carry (e.g. the fit's message).
+    if (out) writeFileSync(out.replace(/\.json$/, '') + `-${plant.name}-s${seed}.cli.json`, run.stdout);
     const starts: StartSet = { name: 'runStarts', description: 'the log’s own run starts', states: data.startStates, count: data.episodeCount };
     const { dynamics, rolloutsPerStart } = DYNAMICS[plant.name];
     for (const c of json.assessment.candidates) {
@@ -132,7 +134,8 @@ async function main() {
       const warnings: Warning[] = [...c.warnings, ...json.assessment.warnings.filter((w: Warning) => !w.candidate || w.candidate === c.name)];
       const serious = warnings.filter((w) => w.severity === 'serious'), cautions = warnings.filter((w) => w.severity === 'caution');
       const most = serious.length ? `serious: ${serious.map((w) => w.topic).join('; ')}` : cautions.length ? `caution: ${cautions.map((w) => w.topic).join('; ')}` : 'none';
-      const status = json.policies.find((p: { name: string }) => p.name === c.name)?.status ?? '?';
+      const policy = json.policies.find((p: { name: string }) => p.name === c.name);
+      const status = policy?.status ?? '?';
       const settled = c.settled !== false;
       const kind = !serious.length && settled ? (holds ? 'confident & right' : 'confident & wrong') : holds ? 'cautious & right' : 'cautious & wrong';
       const err = 100 * (j - truth.value) / Math.abs(truth.value);
@@ -140,7 +143,7 @@ async function main() {
       console.log([plant.name, approximator, seed, c.name, truth.value.toFixed(4), truth.standardError.toFixed(4), j.toFixed(4), err.toFixed(2), fmt(interval), fmt(range), holds,
         range ? (miss / truth.standardError).toFixed(1) : '-', c.settled, status, most, run.status, kind, seconds.toFixed(0)].join('\t'));
       rows.push({ plant: plant.name, approximator, seed, candidate: c.name, truth, j, err, interval, range, holds, settled: c.settled, status, warnings, confirmation: c.confirmation, exit: run.status, kind, seconds,
-        functionClasses: c.functionClasses?.reason ?? null, classes: c.functionClasses?.classes?.map((k: { label: string; value: number; interval: [number, number] | null }) => ({ label: k.label, value: k.value, interval: k.interval })) ?? null,
+        fitMessage: policy?.message ?? null, functionClasses: c.functionClasses?.reason ?? null, classes: c.functionClasses?.classes?.map((k: { label: string; value: number; interval: [number, number] | null }) => ({ label: k.label, value: k.value, interval: k.interval })) ?? null,
         // Every pair the class rule compared (paired standard errors, the smallest gap it could see), for bench/nestedClassRows.ts.
         classPairs: c.functionClasses?.pairs ?? null, crossChecks: c.crossChecks.map((x: { label: string; agreement: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, value: x.estimate?.value ?? null })) });
     }
