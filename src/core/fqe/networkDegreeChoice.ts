@@ -1,9 +1,10 @@
 /**
  * A per-project choice of the degree of the network's polynomial part (networkLinearPart.ts) from
  * the log alone, by how well each degree predicts the returns the PRESENT controller really earned
- * on runs it was not fitted on. An option (networkMethod.ts, `linearPartDegree: 'choose'`), off by
- * default; measured on the battery in test/battery/README.md ("A per-project choice of the
- * polynomial part's degree").
+ * on runs it was not fitted on (networkMethod.ts, `linearPartDegree: 'choose'`): the default, with
+ * the start guard of degreeChoiceStartGuard.ts; measured on the battery and the hold-outs in
+ * test/battery/README.md ("A per-project choice of the polynomial part's degree", "The degree
+ * choice guarded by where J's starts lie").
  *
  * Why the present controller: only for the policy that logged the data is the observed discounted
  * return G_t = Σ_j γ^j r_{t+j} an unbiased sample of its action value at the logged (s_t, a_t)

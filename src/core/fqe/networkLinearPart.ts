@@ -1,7 +1,7 @@
 /**
  * The linear part of the network's action value: full polynomial features of degree
- * `linearPartDegree` (networkMethod.ts; default 2, the linear approximator's default) in the
- * standardised (s, a), kept row by row for the training transitions, so that the network's last
+ * `linearPartDegree` (networkMethod.ts: by default 2, the linear approximator's default, or 4 where
+ * the guarded per-project choice takes it, networkDegreeChoice.ts) in the standardised (s, a), kept row by row for the training transitions, so that the network's last
  * layer can be solved jointly over them and the hidden features (networkLastLayer.ts), and so that the linear LSTD-Q fixed point on
  * them alone (Lagoudakis & Parr, "Least-squares policy iteration", JMLR 2003, §5) is at hand as
  * the starting Q. At the default degree it is also the linear estimate the network is compared

@@ -64,9 +64,11 @@ export interface NetworkMethod {
    * The choice is now guarded (degreeChoiceStartGuard.ts): degree 4 is kept only when J's start states
    * lie inside the logs by the start-coverage rule (run starts pass by construction); otherwise 2, and
    * the fit says why. Measured in test/battery/README.md ("The degree choice guarded by where J's starts lie"):
-   * no battery row worse by the paired rule, no new confident-and-wrong fit on the battery or the
-   * hold-outs run through the command line (backlash level seeds 1–2, header pressure seed 1, J over
-   * their run starts, where degree 4 was taken), and over the log's own run starts (the set a project
+   * no battery row worse by the paired rule, no new confident-and-wrong fit on the battery or on the
+   * hold-outs run through the command line on every log of seeds 1–2 where degree 4 was taken (J over the run
+   * starts: backlash level seeds 1–2, header pressure seeds 1–2, kettle seeds 1–2, and seed 1 of the
+   * level valve, gentle level valve, exchanger, surge and steam drums, seed 2 of the neutralisation
+   * tank: 21 rows, none confident and wrong), and over the log's own run starts (the set a project
    * takes J over) the pendulum logged wide went from +2.4 / +3.0 % to −0.7 / −0.3 % (seeds 1–2). So
    * 'choose', guarded, is the default; 2 or 4 can still be asked for.
    */
