@@ -100,6 +100,26 @@ export interface DegreeChoiceInput {
   readonly degrees?: readonly number[];
 }
 
+/**
+ * chooseLinearPartDegree made once per log: the choice reads the log, the discount and the fold seed
+ * only — never the candidate — so every network fit of a project (each candidate and the present
+ * controller) takes the same answer, and computing it again per fit cost 0.2–1.2 s of CPU each at
+ * 100,000 rows. Keyed by the log object (logs are read-only by the house's convention, as for the
+ * standardiser's cache) and the other inputs; the answer is the very object the first call made.
+ */
+export function chooseLinearPartDegreeOnce(input: DegreeChoiceInput): DegreeChoice {
+  const key = `${input.discount}|${input.seed}|${(input.degrees ?? DEGREE_CHOICES).join(',')}`;
+  let byKey = choicesMade.get(input.data);
+  if (!byKey) choicesMade.set(input.data, (byKey = new Map()));
+  const made = byKey.get(key);
+  if (made) return made;
+  const choice = chooseLinearPartDegree(input);
+  byKey.set(key, choice);
+  return choice;
+}
+
+const choicesMade = new WeakMap<TransitionSet, Map<string, DegreeChoice>>();
+
 export function chooseLinearPartDegree(input: DegreeChoiceInput): DegreeChoice {
   const { data, discount: gamma } = input, degrees = input.degrees ?? DEGREE_CHOICES;
   const base = degrees[0], top = Math.max(...degrees), p = data.stateDim + data.actionDim;

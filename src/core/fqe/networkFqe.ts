@@ -36,7 +36,7 @@ import { runOuterIterations } from './networkIterations';
 import { COMPARATOR_DEGREE } from './comparatorDegree';
 import { solveLastLayer } from './networkLastLayer';
 import { defaultNetworkMethod, type NetworkMethod, type SettledNetworkMethod } from './networkMethod';
-import { chooseLinearPartDegree } from './networkDegreeChoice';
+import { chooseLinearPartDegreeOnce } from './networkDegreeChoice';
 import { guardDegreeChoice, startGuard, type GuardedDegreeChoice } from './degreeChoiceStartGuard';
 import { finishNetworkFit, sameValues } from './networkFitResult';
 import type { NetworkValueEstimate, EstimateOptions } from './networkValueEstimate';
@@ -170,7 +170,7 @@ function choiceWorthSaying(choice: GuardedDegreeChoice): boolean {
  * given ones equal to them, value for value, are run starts too (as the estimate treats them).
  */
 function guardedDegreeChoice(input: NetworkFqeInput): GuardedDegreeChoice {
-  const choice = chooseLinearPartDegree({ data: input.data, discount: input.discount, seed: input.seed });
+  const choice = chooseLinearPartDegreeOnce({ data: input.data, discount: input.discount, seed: input.seed });
   const starts = input.startStates ?? input.data.startStates;
   return guardDegreeChoice(choice, () => startGuard(input.data, starts, sameValues(starts, input.data.startStates)));
 }

@@ -13,7 +13,7 @@
  *     (s, a) and no quadratic holds it: the rule must pick degree 4.
  */
 import { describe, expect, it } from 'vitest';
-import { CHOICE_STANDARD_ERRORS, chooseLinearPartDegree } from '../../../src/core/fqe/networkDegreeChoice';
+import { CHOICE_STANDARD_ERRORS, chooseLinearPartDegree, chooseLinearPartDegreeOnce } from '../../../src/core/fqe/networkDegreeChoice';
 import { foldLstdSums } from '../../../src/core/fqe/degreeChoiceSums';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
@@ -41,6 +41,15 @@ describe('choice of the polynomial part\'s degree from held-out returns of the p
     expect(choice.chosen).toBe(4);
     expect(choice.relativeError[1]).toBeLessThan(choice.relativeError[0]);
     expect(choice.sentence).toContain('Polynomial part of degree 4');
+  });
+
+  it('is made once per log, discount and fold seed: every fit of a project takes the first call\'s answer, equal to a fresh one', () => {
+    const data = quarticCostLog(200, 100, 7), first = chooseLinearPartDegreeOnce({ data, discount: 0.9, seed: 1 });
+    expect(chooseLinearPartDegreeOnce({ data, discount: 0.9, seed: 1 })).toBe(first);
+    expect(first).toEqual(chooseLinearPartDegree({ data, discount: 0.9, seed: 1 }));
+    // Another discount or fold seed is another question.
+    expect(chooseLinearPartDegreeOnce({ data, discount: 0.95, seed: 1 })).not.toBe(first);
+    expect(chooseLinearPartDegreeOnce({ data, discount: 0.9, seed: 2 })).not.toBe(first);
   });
 
   it('keeps the default degree and says why when too few runs can be scored', () => {
