@@ -60,21 +60,25 @@ function listText(items: readonly string[]): string {
 }
 
 /**
- * Where the ranking differs from the project's setting, in words: "at 1, “B” ranks above “A”, the
- * other way round at the project's 2"; empty when the curve has no changes (stable, or saved before they were kept).
+ * Where the ranking differs from the project's setting, in words: "at 1, “B” ranks above “A” and “C”,
+ * and “A” above “C”; each the other way round at the project’s 2"; empty when the curve has no changes
+ * (stable, or saved before they were kept). The pairs at a setting are grouped by the one ranked above;
+ * where the project's own setting is left out, the first setting kept is named (pipeline/sweepRanking.ts).
  */
 function changesText(curve: Pick<SensitivityCurve, 'rankingChanges' | 'settings' | 'parameter' | 'projectIndex' | 'leftOut'>): string {
-  const changes = curve.rankingChanges ?? [];
+  const changes = curve.rankingChanges ?? [], out = curve.leftOut ?? [];
   if (!changes.length) return '';
   const more = (shown: number, all: number) => (all > shown ? ` (${all - shown} more pair${all - shown > 1 ? 's' : ''})` : '');
   const parts = changes.slice(0, CHANGES_NAMED.settings).map(({ at, swapped }) => {
     const shown = swapped.slice(0, CHANGES_NAMED.pairs), ahead = [...new Set(shown.map(([a]) => a))];
-    const groups = ahead.map((a) => `“${a}” ranks above ${listText(shown.filter(([x]) => x === a).map(([, b]) => `“${b}”`))}`);
-    return `at ${settingText(curve, at)}, ${groups.join('; ')}${more(shown.length, swapped.length)}`;
+    const groups = ahead.map((a, k) => `“${a}” ${k === 0 ? 'ranks ' : ''}above ${listText(shown.filter(([x]) => x === a).map(([, b]) => `“${b}”`))}`);
+    return `at ${settingText(curve, at)}, ${groups.join(', and ')}${more(shown.length, swapped.length)}`;
   });
-  const project = curve.leftOut?.includes(curve.projectIndex) ? 'the first setting without a crossed J' : `the project’s ${settingText(curve, curve.projectIndex)}`;
-  const rest = changes.length - parts.length;
-  return `${parts.join('; ')}${rest > 0 ? `; and at ${rest} more setting${rest > 1 ? 's' : ''}` : ''} (the other way round at ${project})`;
+  const reference = out.includes(curve.projectIndex)
+    ? `the first setting without a crossed J, ${settingText(curve, curve.settings.findIndex((_, i) => !out.includes(i)))}`
+    : `the project’s ${settingText(curve, curve.projectIndex)}`;
+  const rest = changes.length - parts.length, pairs = changes.reduce((n, c) => n + c.swapped.length, 0);
+  return `${parts.join('; ')}${rest > 0 ? `; and at ${rest} more setting${rest > 1 ? 's' : ''}` : ''}; ${pairs > 1 ? 'each ' : ''}the other way round at ${reference}`;
 }
 
 /** rankingVerdict without the settings left out, for the figure's subtitle (Chart.js squeezes a line wider than the plot). */
