@@ -125,9 +125,11 @@ export function trialAnswer(assessment: Assessment, choice: TrialChoice, places:
     };
   }
   const best = choice.best;
+  // Pointed to only where some warning bears on it: a best J held back by its interval alone has none to read (and the terminal then prints no list).
+  const warned = best && best.serious + best.cautions + best.logSerious + best.logCautions > 0;
   return {
     headline: 'No candidate is named for a trial.',
-    detail: best ? `The best J is ${best.candidate.name}’s (${value(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${u}), but ${best.reasons.join(', and ')}. Read its warnings ${places.warnings} before any trial.` : '',
+    detail: best ? `The best J is ${best.candidate.name}’s (${value(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${u}), but ${best.reasons.join(', and ')}.${warned ? ` Read its warnings ${places.warnings} before any trial.` : ''}` : '',
     logCautions: null,
   };
 }

@@ -108,12 +108,22 @@ describe('the answer in words, one writer for the app, the command line and the 
   });
 
   it('says none is named and why, for the best J', () => {
+    // A contradiction raises no warning of its own (the cross-checks say it), so no list is pointed to.
     const a = assessment('reward', [candidate('A', 5, { confirmation: { status: 'contradicted', text: '' } }), candidate('B', 4)], [['A', 1, 0.5, 2], ['B', 0.5, -0.2, 1]], ['A', 'B', BASE]);
     expect(trialAnswer(a, trialChoice(a), places)).toEqual({
       headline: 'No candidate is named for a trial.',
-      detail: 'The best J is A’s (5.00), but a cross-check contradicts it. Read its warnings under Coverage before any trial.',
+      detail: 'The best J is A’s (5.00), but a cross-check contradicts it.',
       logCautions: null,
     });
+  });
+
+  it('points to the best J’s warnings only where some bear on it', () => {
+    // B's interval reaches 0 and nothing was raised about it: there is no warning to read, and the terminal prints no list "below".
+    const a = assessment('cost', [candidate('B', 6)], [['B', -0.5, -1, 0.1]], ['B', BASE]);
+    expect(trialAnswer(a, trialChoice(a), places)?.detail).toBe('The best J is B’s (6.00), but the interval of its difference from the baseline reaches 0 or the worse side.');
+    const caution = { severity: 'caution' as const, topic: 'confirmation', candidate: 'B', message: 'B: Nothing in the logs can confirm this estimate' };
+    const b = assessment('cost', [candidate('B', 6)], [['B', -0.5, -1, 0.1]], ['B', BASE], [caution]);
+    expect(trialAnswer(b, trialChoice(b), places)?.detail).toMatch(/reaches 0 or the worse side\. Read its warnings under Coverage before any trial\.$/);
   });
 
   it('is printed by the command line after the ranking, with the rule', () => {
