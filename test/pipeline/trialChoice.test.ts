@@ -69,9 +69,27 @@ describe('which candidate to trial', () => {
     const caution = { severity: 'caution' as const, topic: 'ditherDependence', message: '' };
     const a = assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution]);
     expect(trialChoice(a).pick?.candidate.name).toBe('A'); // a caution does not stop a trial (TRIAL_RULE) …
-    expect(logCautionsText(a)).toBe('The assessment raised a caution on the whole log; read it under Coverage before the trial.'); // … but is said
-    expect(logCautionsText(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution, caution]))).toMatch(/^The assessment raised 2 cautions .* read them/);
-    expect(logCautionsText(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE]))).toBeNull();
+    const said = (x: Assessment) => logCautionsText(x, trialChoice(x).pick!);
+    expect(said(a)).toBe('The assessment raised a caution on the whole log; read it under Coverage before the trial.'); // … but is said
+    expect(said(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution, caution]))).toMatch(/^The assessment raised 2 cautions on the whole log; read them/);
+    expect(said(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE]))).toBeNull();
+  });
+
+  it('counts beside a named trial the cautions about it and on the whole log, not those about other candidates', () => {
+    // As on the heating-loop sample: every candidate's estimate unconfirmed (a caution about each by name in the whole-log list),
+    // and the named one with a caution of its own. Before, "3 cautions on the whole log": two about others, its own left out.
+    const unconfirmed = (name: string) => ({ severity: 'caution' as const, topic: 'confirmation', candidate: name, message: `${name}: Nothing in the logs can confirm this estimate` });
+    const weights = { severity: 'caution' as const, topic: 'importanceWeights', message: 'effective size 1 of 40 runs' };
+    const a = assessment('cost', [candidate('A', 5, { warnings: [weights] }), candidate('B', 6), candidate('C', 7)],
+      [['A', -3, -4, -2], ['B', -2, -3, -1], ['C', -1, -2, 0.5]], ['A', 'B', 'C', BASE], [unconfirmed('A'), unconfirmed('B'), unconfirmed('C')]);
+    const pick = trialChoice(a).pick!;
+    expect(pick.candidate.name).toBe('A');
+    expect(logCautionsText(a, pick)).toBe('The assessment raised 2 cautions about it; read them under Coverage before the trial.');
+    const general = { severity: 'caution' as const, topic: 'ditherDependence', message: '' };
+    const b = { ...a, warnings: [...a.warnings, general] };
+    expect(logCautionsText(b, trialChoice(b).pick!, 'in the list below')).toBe('The assessment raised 2 cautions about it and 1 on the whole log; read them in the list below before the trial.');
+    const c = assessment('cost', [candidate('B', 6)], [['B', -2, -3, -1]], ['B', BASE], [unconfirmed('A')]);
+    expect(logCautionsText(c, trialChoice(c).pick!)).toBeNull(); // a caution about another candidate only
   });
 
   it('never says "none" in the warnings column while a caution about the candidate sits in the whole-log list (the screen review: an unconfirmed estimate)', () => {
