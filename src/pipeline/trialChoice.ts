@@ -90,7 +90,7 @@ export function logCautionsText(assessment: Assessment, line: TrialLine, where =
   const general = assessment.warnings.filter((w) => w.severity === 'caution' && w.candidate === undefined).length;
   const aboutIt = line.cautions + line.logCautions - general;
   const count = (n: number) => (n === 1 ? 'a caution' : `${n} cautions`);
-  const parts = [aboutIt > 0 ? `${count(aboutIt)} about it` : '', general > 0 ? `${aboutIt > 0 ? general : count(general)} on the whole log` : ''].filter(Boolean);
+  const parts = [aboutIt > 0 ? `${count(aboutIt)} about it` : '', general > 0 ? `${count(general)} on the whole log` : ''].filter(Boolean);
   if (parts.length === 0) return null;
   return `The assessment raised ${parts.join(' and ')}; read ${aboutIt + general === 1 ? 'it' : 'them'} ${where} before the trial.`;
 }

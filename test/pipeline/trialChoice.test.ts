@@ -87,7 +87,7 @@ describe('which candidate to trial', () => {
     expect(logCautionsText(a, pick)).toBe('The assessment raised 2 cautions about it; read them under Coverage before the trial.');
     const general = { severity: 'caution' as const, topic: 'ditherDependence', message: '' };
     const b = { ...a, warnings: [...a.warnings, general] };
-    expect(logCautionsText(b, trialChoice(b).pick!, 'in the list below')).toBe('The assessment raised 2 cautions about it and 1 on the whole log; read them in the list below before the trial.');
+    expect(logCautionsText(b, trialChoice(b).pick!, 'in the list below')).toBe('The assessment raised 2 cautions about it and a caution on the whole log; read them in the list below before the trial.');
     const c = assessment('cost', [candidate('B', 6)], [['B', -2, -3, -1]], ['B', BASE], [unconfirmed('A')]);
     expect(logCautionsText(c, trialChoice(c).pick!)).toBeNull(); // a caution about another candidate only
   });
