@@ -10,6 +10,8 @@ import { describe, expect, it } from 'vitest';
 import type { Assessment } from '../../../src/pipeline/assessment';
 import { PRESENT_CONTROLLER_NAME } from '../../../src/pipeline/plan/presentController';
 import { ComparisonTable } from '../../../src/renderer/src/screens/findings/ComparisonTable';
+import { AnswerPanel } from '../../../src/renderer/src/screens/findings/AnswerPanel';
+import type { Evaluation } from '../../../src/pipeline/estimates';
 import { renderFindings, tableCells } from '../../support/renderFindings';
 
 const PI = 'PI (25 %/K, 30 min)', LIMITED = 'PI with a 2 %/min rate limit';
@@ -39,5 +41,24 @@ describe('names in the comparison card', () => {
     expect(ranking).toContain('PI (25\u00a0%/K, 30\u00a0min) › present controller › PI with a 2\u00a0%/min rate limit.');
     expect(ranking).toContain('PI (25\u00a0%/K, 30\u00a0min) ahead of present controller');
     expect(ranking).not.toMatch(/\d %\/|\d min/);
+  });
+});
+
+describe('names in the answer card', () => {
+  // The answer table's policy column is as narrow: at 1280 px the screen review showed "PI (25 %/K, 30 | min)" there too.
+  const candidate = (name: string, value: number) => ({
+    name, policyValue: estimate(value), reportedRange: null, settled: null, confirmation: { status: 'unconfirmed', text: '' },
+    diagnostics: { occupancyShift: 1 }, functionClasses: null, rangeCut: null, warnings: [], crossChecks: [],
+  });
+  const answered = {
+    ...assessment, candidates: [candidate(PI, 7.72), candidate(LIMITED, 10.69)], warnings: [], presentController: { policyValue: estimate(8.56) }, behaviour: estimate(8.51),
+    comparison: { ...assessment.comparison, differences: [...assessment.comparison.differences, { a: LIMITED, b: PRESENT_CONTROLLER_NAME, difference: estimate(2.13), probabilityBetter: 0.013 }] },
+  } as unknown as Assessment;
+  const evaluation = { valueSense: 'cost', policies: [PI, LIMITED].map((name) => ({ name })) } as unknown as Evaluation;
+
+  it('holds each number to its unit in the policy column', () => {
+    const html = renderFindings(createElement(AnswerPanel, { evaluation, assessment: answered }), ['answer']);
+    const names = tableCells(html, 'answer-table', false).slice(1, -1).map((r) => r[0]);
+    expect(names).toEqual(['PI (25\u00a0%/K, 30\u00a0min)', 'PI with a 2\u00a0%/min rate limit']);
   });
 });
