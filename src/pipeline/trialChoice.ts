@@ -140,6 +140,23 @@ export function trialAnswer(assessment: Assessment, choice: TrialChoice, places:
     logCautions: null,
   };
 }
+/** The answer as data, for `--json`: what the text says, without the words a host places. */
+export interface TrialJson {
+  /** The candidate to trial first, or null when none qualifies. */
+  readonly named: string | null;
+  /** The candidate with the best J by its point estimate, and why it is not named (empty when it is). */
+  readonly best: string | null;
+  readonly reasons: readonly string[];
+  /** The rule, as the text prints it under the answer. */
+  readonly rule: string;
+}
+
+/** trialChoice for a JSON reader, so a script that reads `--json` need not rewrite the rule (and cannot drift from it). */
+export function trialJson(assessment: Assessment): TrialJson {
+  const choice = trialChoice(assessment);
+  return { named: choice.pick?.candidate.name ?? null, best: choice.best?.candidate.name ?? null, reasons: choice.best?.reasons ?? [], rule: TRIAL_RULE };
+}
+
 /** "1 serious, 2 cautions"; "none" only when no warning bears on the candidate, its own or in the whole-log list (said as such: that list is elsewhere). */
 export function warningsText(line: TrialLine): string {
   const count = (serious: number, cautions: number) => [serious ? `${serious} serious` : '', cautions ? plural(cautions, 'caution') : ''].filter(Boolean).join(', ');

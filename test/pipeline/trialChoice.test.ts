@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { Assessment, CandidateAssessment, IntervalEstimate, PairedDifference } from '../../src/pipeline/assessment';
-import { logCautionsText, TRIAL_RULE, trialAnswer, trialChoice, warningsText, whollyBetter } from '../../src/pipeline/trialChoice';
+import { logCautionsText, TRIAL_RULE, trialAnswer, trialChoice, trialJson, warningsText, whollyBetter } from '../../src/pipeline/trialChoice';
 import { ASCII_MINUS } from '../../src/figures/parts/uncertainNumber';
 import { formatAssessment } from '../../src/cli/assessmentFormat';
 
@@ -142,6 +142,14 @@ describe('the answer in words, one writer for the app, the command line and the 
     const caution = { severity: 'caution' as const, topic: 'confirmation', candidate: 'B', message: 'B: Nothing in the logs can confirm this estimate' };
     const b = assessment('cost', [candidate('B', 6)], [['B', -0.5, -1, 0.1]], ['B', BASE], [caution]);
     expect(trialAnswer(b, trialChoice(b), places)?.detail).toMatch(/reaches 0 or the worse side\. Read its warnings under Coverage before any trial\.$/);
+  });
+
+  it('gives a JSON reader the same answer as data: the candidate named, the best J and why not, the rule', () => {
+    const serious = { severity: 'serious' as const, topic: 'shift', message: 'far from the logs' };
+    const a = assessment('cost', [candidate('A', 5, { warnings: [serious] }), candidate('B', 6)], [['A', -3, -4, -2], ['B', -2, -3, -1]], ['A', 'B', BASE]);
+    expect(trialJson(a)).toEqual({ named: 'B', best: 'A', reasons: ['the assessment raised a serious warning for it'], rule: TRIAL_RULE });
+    const none = assessment('cost', [candidate('B', 6)], [['B', -0.5, -1, 0.1]], ['B', BASE]);
+    expect(trialJson(none)).toEqual({ named: null, best: 'B', reasons: ['the interval of its difference from the baseline reaches 0 or the worse side'], rule: TRIAL_RULE });
   });
 
   it('is printed by the command line after the ranking, with the rule', () => {
