@@ -25,7 +25,7 @@ import { shootSection } from './harness/sectionShot';
 import { goToStep, setTheme } from '../renderer/e2e/appSteps';
 import { writeTwoValveBlendProject } from '../fixtures/screens/twoValveBlend';
 import { VALUES_CHART_TITLE } from '../../src/figures/parts/plotTheme';
-import { steadyCheck, steadyClick, steadyFill } from './harness/steadyActions';
+import { steadyCheck, steadyClick, steadyFill, steadySelect } from './harness/steadyActions';
 import { UNIT_GROUP_MOST } from '../../src/core/unitGroups';
 
 const SHOTS = process.env.SCREEN_REVIEW_DIR ?? resolve(__dirname, '../../test-artifacts/screen-review');
@@ -221,6 +221,29 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
       // The answer names a trial here (no serious warning for it) and says the log's cautions beside it.
       await expect.poll(() => page.getByTestId('answer-log-cautions').innerText(), POLL).toMatch(/cautions? on the whole log/);
     }
+  });
+
+  it('names where the feature sweep’s ranking turns round, and shows that sweep’s panel in both themes', async () => {
+    // The panel opens on the discount sweep, so the pictures above never showed the longer verdict of a sweep whose
+    // ranking changes (pipeline/sweepRanking.ts rankingChanges): the heating-loop sample's degree-1 fit turns it round.
+    if (c.id !== 'heating-loop') return;
+    const { page } = app;
+    await goToStep(page, 'findings');
+    await openAllFindings(page);
+    await steadySelect(page.getByTestId('sensitivity-curve'), '1');
+    await expect.poll(() => page.getByTestId('sensitivity-verdict').innerText(), POLL).toMatch(/^The ranking changes within this range: at 1, “.+” ranks above .+; each the other way round at the project’s 2\. The conclusion depends on this setting\.$/);
+    const faults: string[] = [];
+    for (const size of SIZES) {
+      await page.setViewportSize(size);
+      for (const theme of ['light', 'dark']) {
+        await setTheme(page, theme);
+        faults.push(...await shootSection(page, page.locator('[data-section="sensitivity"]'), join(SHOTS, `${c.id}-${size.width}-${theme}-findings-sensitivity-degree.png`), UNSTICK));
+      }
+    }
+    await page.setViewportSize(SIZES[0]);
+    await setTheme(page, 'light');
+    await steadySelect(page.getByTestId('sensitivity-curve'), '0');
+    expect(faults).toEqual([]);
   });
 
   it('says why each function-class verdict is settled or not, and writes the range-cut note’s numbers as the tables do', async () => {
