@@ -100,4 +100,13 @@ describe('where the ranking changes, named against the project’s setting', () 
       + 'each the other way round at the first setting without a crossed J, 0.902 (left out: 0.95, where a J is crossed)',
     );
   });
+
+  it('holds a number in a name to its unit, so the sentence wraps between words', () => {
+    // The heating-loop sample's names: at 1280 px the panel wrapped "PI with a 2 | %/min rate limit" (core/unitGroups.ts).
+    const series = [serie('PI (25 %/K, 30 min)', [3.76, 7.72]), serie('PI with a 2 %/min rate limit', [3.23, 10.69])];
+    const ranking = sweepRanking([1, 2], series, -1, 1);
+    expect(rankingVerdict({ ...ranking, settings: [1, 2], parameter: 'polynomialDegree', projectIndex: 1 })).toBe(
+      'the ranking changes within this range: at 1, “PI with a 2\u00a0%/min rate limit” ranks above “PI (25\u00a0%/K, 30\u00a0min)”; the other way round at the project’s 2',
+    );
+  });
 });
