@@ -5,6 +5,7 @@ import { assessmentToJson } from '../pipeline/assessmentJson';
 import type { AssessmentOverrides } from '../pipeline/assessSettings';
 import { evaluationToJson, importToJson } from '../pipeline/evaluationJson';
 import { formatAssessment } from './assessmentFormat';
+import { trialJson } from '../pipeline/trialChoice';
 import { evaluateProjectFile } from './evaluateProjectFile';
 import { formatCautions, formatEvaluation } from './formatEvaluation';
 import { formatImport } from './formatImport';
@@ -30,6 +31,8 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     const json = {
       ...evaluationToJson(evaluation), import: importToJson(imported),
       assessment: assessment.ok ? assessmentToJson(assessment.value) : null, assessmentProblems: assessment.ok ? [] : assessment.problems,
+      // The answer the text prints after the ranking, as data (pipeline/trialChoice.ts); null without an assessment.
+      trial: assessment.ok ? trialJson(assessment.value) : null,
       retuneMaps: retuneMaps.ok ? retuneMaps.value : null, retuneMapProblems: retuneMaps.ok ? [] : retuneMaps.problems,
     };
     terminal.out(`${JSON.stringify(json, null, 2)}\n`);

@@ -9,6 +9,7 @@ import { reportInputFrom } from '../pipeline/report/reportAssembly';
 import { renderReport } from '../pipeline/report/reportDocument';
 import type { AssessmentOverrides } from '../pipeline/assessSettings';
 import { formatAssessment } from './assessmentFormat';
+import { formatCautions } from './formatEvaluation';
 import { evaluateProjectFile } from './evaluateProjectFile';
 import { exitStatusOf } from './exitStatus';
 import { createTerminalProgress } from './terminalProgress';
@@ -42,6 +43,8 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   }
   if (assessment.ok) terminal.out(formatAssessment(assessment.value, truncationMatters(evaluation.behaviour)));
   else terminal.err(`The report has no intervals or diagnostics: ${input.assessmentProblems.join('; ')}\n`);
+  // The cautions where the numbers are printed, as `evaluate` ends with them: the answer above points "at the end" to them.
+  terminal.out(formatCautions(evaluation));
   terminal.out(`Report written to ${out}\n`);
   return exitStatusOf(evaluation);
 }

@@ -206,7 +206,7 @@ export interface SensitivityCurve {
 export interface RankingChange {
   /** Index into the sweep's settings. */
   at: number;
-  /** [ahead, behind] at this setting, each pair ranked the other way round at the reference setting; series names. */
+  /** [ahead, behind] at this setting, each pair ranked the other way round at the reference setting; series names; pairs of two candidates before those with a reference series. */
   swapped: [string, string][];
 }
 

@@ -6,7 +6,6 @@
  * controller's assessment — its interval, cross-checks and confirmation — was once left out).
  */
 import type { Assessment } from './assessment';
-import { TRIAL_RULE, trialChoice } from './trialChoice';
 
 export function assessmentToJson(a: Assessment): Record<string, unknown> {
   const fields: { [K in keyof Required<Assessment>]: unknown } = {
@@ -22,14 +21,5 @@ export function assessmentToJson(a: Assessment): Record<string, unknown> {
     warnings: a.warnings,
     method: a.method,
   };
-  return { ...fields, trial: trialJson(a) };
-}
-
-/**
- * The answer the text, the app and the report give (trialChoice.ts), for a program: the candidate to
- * trial first (null when none qualifies), the best J's candidate and why it is not named where it is not, and the rule.
- */
-function trialJson(a: Assessment): { pick: string | null; best: string | null; bestNotNamedBecause: readonly string[]; rule: string } {
-  const choice = trialChoice(a);
-  return { pick: choice.pick?.candidate.name ?? null, best: choice.best?.candidate.name ?? null, bestNotNamedBecause: choice.best?.reasons ?? [], rule: TRIAL_RULE };
+  return fields;
 }

@@ -78,14 +78,21 @@ export function trialChoice(assessment: Assessment): TrialChoice {
 }
 
 /**
- * The cautions on the log as a whole (the present controller's dithers moving together, extrapolated
- * surfaces, unconfirmed estimates), said beside a named trial: they do not stop one (only a serious
- * warning does, TRIAL_RULE), but the answer read alone said nothing of them. Null when there are none.
+ * The cautions that bear on the named candidate, said beside a named trial: its own (e.g. importance
+ * weights on a few runs), those in the whole-log list about it by name (an unconfirmed estimate) and
+ * those on the log as a whole (the present controller's dithers moving together, extrapolated
+ * surfaces). They do not stop a trial (only a serious warning does, TRIAL_RULE), but the answer read
+ * alone said nothing of them. Cautions about other candidates are not counted: on the heating-loop
+ * sample each candidate's "unconfirmed" caution was read as one of three "on the whole log".
+ * Null when there are none.
  */
-export function logCautionsText(assessment: Assessment, where = 'under Coverage'): string | null {
-  const cautions = assessment.warnings.filter((w) => w.severity === 'caution').length;
-  if (cautions === 0) return null;
-  return `The assessment raised ${cautions === 1 ? 'a caution' : `${cautions} cautions`} on the whole log; read ${cautions === 1 ? 'it' : 'them'} ${where} before the trial.`;
+export function logCautionsText(assessment: Assessment, line: TrialLine, where = 'under Coverage'): string | null {
+  const general = assessment.warnings.filter((w) => w.severity === 'caution' && w.candidate === undefined).length;
+  const aboutIt = line.cautions + line.logCautions - general;
+  const count = (n: number) => (n === 1 ? 'a caution' : `${n} cautions`);
+  const parts = [aboutIt > 0 ? `${count(aboutIt)} about it` : '', general > 0 ? `${count(general)} on the whole log` : ''].filter(Boolean);
+  if (parts.length === 0) return null;
+  return `The assessment raised ${parts.join(' and ')}; read ${aboutIt + general === 1 ? 'it' : 'them'} ${where} before the trial.`;
 }
 
 /** Where a host shows what the answer points to: the safety cautions, and the warnings (e.g. "above", "under Coverage"); its minus sign (the terminal's is ASCII). */
@@ -121,16 +128,35 @@ export function trialAnswer(assessment: Assessment, choice: TrialChoice, places:
         + `${value(Math.abs(d.difference.value), d.difference.percentile)}${u} ${assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the ${policyLabel(assessment.comparison.baseline.name)} `
         + `(difference ${interval(d.difference.percentile)}), better in ${shareText(d.probabilityBetter)} of resamples. `
         + `An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions ${places.cautions}).`,
-      logCautions: logCautionsText(assessment, places.warnings),
+      logCautions: logCautionsText(assessment, pick, places.warnings),
     };
   }
   const best = choice.best;
+  // Pointed to only where some warning bears on it: a best J held back by its interval alone has none to read (and the terminal then prints no list).
+  const warned = best && best.serious + best.cautions + best.logSerious + best.logCautions > 0;
   return {
     headline: 'No candidate is named for a trial.',
-    detail: best ? `The best J is ${best.candidate.name}’s (${value(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${u}), but ${best.reasons.join(', and ')}. Read its warnings ${places.warnings} before any trial.` : '',
+    detail: best ? `The best J is ${best.candidate.name}’s (${value(best.candidate.policyValue.value, best.candidate.policyValue.percentile)}${u}), but ${best.reasons.join(', and ')}.${warned ? ` Read its warnings ${places.warnings} before any trial.` : ''}` : '',
     logCautions: null,
   };
 }
+/** The answer as data, for `--json`: what the text says, without the words a host places. */
+export interface TrialJson {
+  /** The candidate to trial first, or null when none qualifies. */
+  readonly named: string | null;
+  /** The candidate with the best J by its point estimate, and why it is not named (empty when it is). */
+  readonly best: string | null;
+  readonly reasons: readonly string[];
+  /** The rule, as the text prints it under the answer. */
+  readonly rule: string;
+}
+
+/** trialChoice for a JSON reader, so a script that reads `--json` need not rewrite the rule (and cannot drift from it). */
+export function trialJson(assessment: Assessment): TrialJson {
+  const choice = trialChoice(assessment);
+  return { named: choice.pick?.candidate.name ?? null, best: choice.best?.candidate.name ?? null, reasons: choice.best?.reasons ?? [], rule: TRIAL_RULE };
+}
+
 /** "1 serious, 2 cautions"; "none" only when no warning bears on the candidate, its own or in the whole-log list (said as such: that list is elsewhere). */
 export function warningsText(line: TrialLine): string {
   const count = (serious: number, cautions: number) => [serious ? `${serious} serious` : '', cautions ? plural(cautions, 'caution') : ''].filter(Boolean).join(', ');

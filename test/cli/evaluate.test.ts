@@ -38,6 +38,10 @@ describe('evaluate command', () => {
     }
     expect(Number.isFinite(json.behaviour.value)).toBe(true);
     expect(json.cautions.join(' ')).toMatch(/advisory/);
+    // The answer the text prints after the ranking, as data: a candidate's name or null, the best J's name and why not.
+    expect(json.trial.named === null || json.policies.some((p: { name: string }) => p.name === json.trial.named)).toBe(true);
+    expect(json.trial.best).toBe(json.assessment.comparison.ranking.order.find((n: string) => json.policies.some((p: { name: string }) => p.name === n)));
+    expect(json.trial.rule).toMatch(/^A candidate is named for a trial only when/);
     // The heating sample has a 10 × 10 retune map over gain and integral time: every point in the JSON, the best one supported by the logs.
     if (sample.startsWith('heating')) {
       const [map] = json.retuneMaps;

@@ -8,6 +8,7 @@ import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { afterEach, describe, expect, it, vi } from 'vitest';
 import { runReportCommand } from '../../src/cli/reportCommand';
+import { CAUTIONS } from '../../src/pipeline/cautions';
 
 const sample = join(__dirname, '..', '..', 'sample-projects', 'tank-levels', 'tank-levels.spcritic');
 
@@ -30,6 +31,8 @@ describe('report command', () => {
     expect(code).toBe(0);
     expect(io.stdout()).toMatch(/Bootstrap over 40 runs: 100 resamples, level 90 %/);
     expect(io.stdout()).toContain(`Report written to ${out}`);
+    // The terminal's answer points to the cautions "at the end" (src/cli/assessmentFormat.ts): they are printed there, as `evaluate` prints them.
+    expect(io.stdout()).toContain(`Cautions:\n${CAUTIONS.map((c) => `  - ${c}`).join('\n')}`);
     const html = await readFile(out, 'utf8');
     expect(html.startsWith('<!DOCTYPE html>')).toBe(true);
     for (const id of ['job', 'data', 'settings', 'comparison', 'surfaces', 'slices', 'diagnostics', 'cross-checks', 'sensitivity', 'cautions']) expect(html).toContain(`<section id="${id}">`);

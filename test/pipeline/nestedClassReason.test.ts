@@ -56,6 +56,16 @@ describe('the nested-class sentence in the class verdict', () => {
     expect(a.reason).not.toContain('The two richer classes');
   });
 
+  it('is not said on a network project, whose own value has no replicates here and whose linear classes are checked among themselves', () => {
+    // Degrees 2, 3 and 4 as above (3 and 4 agree, 2 stands apart), beside a network's own class: degree 2 is not the project's class.
+    const { w, r } = work(own2, [90, 100, 100.5]);
+    const network = { ...w, replicate: null, classes: [{ label: 'network, one hidden layer of 8 units', model: { fit: { policyValue: 95 } } }, ...w.classes] } as unknown as CandidateWork;
+    const a = classAssessment(network, { ...r, classes: [new Array(N).fill(null), ...r.classes] } as unknown as CandidateReplicates, 0.9, 1)!;
+    expect(a.classes.map((c) => c.label)).toEqual(own2); // the three linear classes were compared …
+    expect(a.settled).toBe(false); // … and disagree, as in the first case …
+    expect(a.reason).not.toContain('The two richer classes'); // … but the sentence is for a project whose own class is degree 2
+  });
+
   it('is not said where degrees 3 and 4 disagree', () => {
     const { w, r } = work(own2, [90, 100, 110]);
     expect(classAssessment(w, r, 0.9, 1)!.reason).not.toContain('The two richer classes');

@@ -64,6 +64,19 @@ describe('renderReport on the tank-levels sample', () => {
     expect(captions).toBe(figures);
   });
 
+  it('says the answer in the summary, below the first-page cautions it calls "above", pointing to the warnings where they are listed', () => {
+    const cautions = html.indexOf('<aside class="cautions-first"'), at = html.indexOf('<p id="answer">');
+    expect(cautions).toBeGreaterThan(-1);
+    expect(at).toBeGreaterThan(cautions);
+    expect(at).toBeLessThan(html.indexOf('<section id="job">'));
+    const answer = html.slice(at, html.indexOf('</p>', at));
+    expect(answer).toMatch(/^<p id="answer"><strong>(Trial first: .+\.|No candidate is named for a trial\.)<\/strong>/);
+    // Every warning is listed once, at the end of Diagnostics (reportEvidence.ts): the answer points there, not to Cross-checks too.
+    expect(html).toMatch(/<section id="diagnostics">(?:(?!<\/section>).)*<h3>Warnings<\/h3>/s);
+    expect(answer).not.toMatch(/Cross-checks/);
+    if (/Trial first/.test(answer)) expect(answer).toContain('(cautions above)');
+  });
+
   it('loads nothing from outside the file and escapes the project’s text', () => {
     const references = [...html.matchAll(/(?:src|href)="([^"]*)"/g)].map((m) => m[1]);
     expect(references.every((r) => r.startsWith('data:image/png;base64,') || r.startsWith('#'))).toBe(true);

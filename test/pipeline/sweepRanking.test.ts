@@ -32,7 +32,7 @@ describe('the ranking verdict of a sweep with crossed points', () => {
     // Kept: 0.902 (A 3 before B 4), 0.934, 0.95, 0.966 (B before A); against the project's 0.95 only 0.902 differs.
     expect(ranking).toEqual({ rankingStable: false, leftOut: [4], rankingChanges: [{ at: 0, swapped: [['A', 'B']] }] });
     expect(rankingVerdict({ ...ranking, settings, parameter: 'discount', projectIndex: 2 })).toBe(
-      'the ranking changes between the settings without a crossed J: at 0.902, “A” ranks above “B” (the other way round at the project’s 0.95) (left out: 0.975, where a J is crossed)',
+      'the ranking changes between the settings without a crossed J: at 0.902, “A” ranks above “B”; the other way round at the project’s 0.95 (left out: 0.975, where a J is crossed)',
     );
   });
 
@@ -57,7 +57,7 @@ describe('where the ranking changes, named against the project’s setting', () 
     const cost = sweepRanking(degrees, series, -1, 1);
     expect(cost.rankingChanges).toEqual([{ at: 0, swapped: [['Trimmed', 'Tuned']] }]);
     expect(rankingVerdict({ ...cost, settings: degrees, parameter: 'polynomialDegree', projectIndex: 1 })).toBe(
-      'the ranking changes within this range: at 1, “Trimmed” ranks above “Tuned” (the other way round at the project’s 2)',
+      'the ranking changes within this range: at 1, “Trimmed” ranks above “Tuned”; the other way round at the project’s 2',
     );
     // The same numbers read as rewards (higher is better): at 2 logged > Trimmed > Tuned, at 1 logged > Tuned > Trimmed.
     expect(sweepRanking(degrees, series, 1, 1)).toEqual({ rankingStable: false, rankingChanges: [{ at: 0, swapped: [['Tuned', 'Trimmed']] }] });
@@ -72,7 +72,41 @@ describe('where the ranking changes, named against the project’s setting', () 
     expect(ranking.rankingChanges![0].swapped).toHaveLength(6);
     expect(rankingVerdict({ ...ranking, settings: five, parameter: 'polynomialDegree', projectIndex: 0 })).toBe(
       'the ranking changes within this range: at 2, “D” ranks above “C”, “B” and “A” (3 more pairs); at 3, “D” ranks above “C”, “B” and “A” (3 more pairs); '
-      + 'at 4, “D” ranks above “C”, “B” and “A” (3 more pairs); and at 1 more setting (the other way round at the project’s 1)',
+      + 'at 4, “D” ranks above “C”, “B” and “A” (3 more pairs); and at 1 more setting; each the other way round at the project’s 1',
+    );
+  });
+
+  it('names the pairs of two candidates before those with the logged return, grouped by the one ranked above', () => {
+    // The heating-loop sample's degree sweep as `evaluate --json` gave it (costs, project at degree 2, rounded here): at
+    // degree 1 the rate-limited PI comes first, and the PI also passes the schedule. Before, the three pairs named were
+    // the rate-limited PI's (the logged return's among them) and the PI over the schedule was counted as "1 more pair".
+    const degrees = [1, 2, 3];
+    const series = [serie('PI', [3.76, 7.72, 7.14]), serie('Schedule', [4.12, 7.12, 6.83]), serie('Rate-limited PI', [3.23, 10.69, 10.34]),
+      { ...serie('logged return', [8.51, 8.51, 8.51]), reference: true }];
+    const ranking = sweepRanking(degrees, series, -1, 1);
+    expect(ranking.rankingChanges).toEqual([{ at: 0, swapped: [['Rate-limited PI', 'PI'], ['Rate-limited PI', 'Schedule'], ['PI', 'Schedule'], ['Rate-limited PI', 'logged return']] }]);
+    expect(rankingVerdict({ ...ranking, settings: degrees, parameter: 'polynomialDegree', projectIndex: 1 })).toBe(
+      'the ranking changes within this range: at 1, “Rate-limited PI” ranks above “PI” and “Schedule”, and “PI” above “Schedule” (1 more pair); each the other way round at the project’s 2',
+    );
+  });
+
+  it('names the setting it compares with where the project’s own is left out', () => {
+    // Project at 0.95 (index 2), crossed there; the first setting kept, 0.902, is the reference.
+    const series = [serie('A', [3, 6, 1, 8, 9], [2]), serie('B', [4, 5, 6, 7, 8])];
+    const ranking = sweepRanking(settings, series, -1, 2);
+    expect(ranking.rankingChanges).toEqual([{ at: 1, swapped: [['B', 'A']] }, { at: 3, swapped: [['B', 'A']] }, { at: 4, swapped: [['B', 'A']] }]);
+    expect(rankingVerdict({ ...ranking, settings, parameter: 'discount', projectIndex: 2 })).toBe(
+      'the ranking changes between the settings without a crossed J: at 0.934, “B” ranks above “A”; at 0.966, “B” ranks above “A”; at 0.975, “B” ranks above “A”; '
+      + 'each the other way round at the first setting without a crossed J, 0.902 (left out: 0.95, where a J is crossed)',
+    );
+  });
+
+  it('holds a number in a name to its unit, so the sentence wraps between words', () => {
+    // The heating-loop sample's names: at 1280 px the panel wrapped "PI with a 2 | %/min rate limit" (core/unitGroups.ts).
+    const series = [serie('PI (25 %/K, 30 min)', [3.76, 7.72]), serie('PI with a 2 %/min rate limit', [3.23, 10.69])];
+    const ranking = sweepRanking([1, 2], series, -1, 1);
+    expect(rankingVerdict({ ...ranking, settings: [1, 2], parameter: 'polynomialDegree', projectIndex: 1 })).toBe(
+      'the ranking changes within this range: at 1, “PI with a 2\u00a0%/min rate limit” ranks above “PI (25\u00a0%/K, 30\u00a0min)”; the other way round at the project’s 2',
     );
   });
 });

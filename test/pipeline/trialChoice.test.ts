@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import type { Assessment, CandidateAssessment, IntervalEstimate, PairedDifference } from '../../src/pipeline/assessment';
-import { logCautionsText, TRIAL_RULE, trialAnswer, trialChoice, warningsText, whollyBetter } from '../../src/pipeline/trialChoice';
+import { logCautionsText, TRIAL_RULE, trialAnswer, trialChoice, trialJson, warningsText, whollyBetter } from '../../src/pipeline/trialChoice';
 import { ASCII_MINUS } from '../../src/figures/parts/uncertainNumber';
 import { formatAssessment } from '../../src/cli/assessmentFormat';
 
@@ -69,9 +69,27 @@ describe('which candidate to trial', () => {
     const caution = { severity: 'caution' as const, topic: 'ditherDependence', message: '' };
     const a = assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution]);
     expect(trialChoice(a).pick?.candidate.name).toBe('A'); // a caution does not stop a trial (TRIAL_RULE) …
-    expect(logCautionsText(a)).toBe('The assessment raised a caution on the whole log; read it under Coverage before the trial.'); // … but is said
-    expect(logCautionsText(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution, caution]))).toMatch(/^The assessment raised 2 cautions .* read them/);
-    expect(logCautionsText(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE]))).toBeNull();
+    const said = (x: Assessment) => logCautionsText(x, trialChoice(x).pick!);
+    expect(said(a)).toBe('The assessment raised a caution on the whole log; read it under Coverage before the trial.'); // … but is said
+    expect(said(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE], [caution, caution]))).toMatch(/^The assessment raised 2 cautions on the whole log; read them/);
+    expect(said(assessment('cost', [candidate('A', 5)], [['A', -1, -2, -0.5]], ['A', BASE]))).toBeNull();
+  });
+
+  it('counts beside a named trial the cautions about it and on the whole log, not those about other candidates', () => {
+    // As on the heating-loop sample: every candidate's estimate unconfirmed (a caution about each by name in the whole-log list),
+    // and the named one with a caution of its own. Before, "3 cautions on the whole log": two about others, its own left out.
+    const unconfirmed = (name: string) => ({ severity: 'caution' as const, topic: 'confirmation', candidate: name, message: `${name}: Nothing in the logs can confirm this estimate` });
+    const weights = { severity: 'caution' as const, topic: 'importanceWeights', message: 'effective size 1 of 40 runs' };
+    const a = assessment('cost', [candidate('A', 5, { warnings: [weights] }), candidate('B', 6), candidate('C', 7)],
+      [['A', -3, -4, -2], ['B', -2, -3, -1], ['C', -1, -2, 0.5]], ['A', 'B', 'C', BASE], [unconfirmed('A'), unconfirmed('B'), unconfirmed('C')]);
+    const pick = trialChoice(a).pick!;
+    expect(pick.candidate.name).toBe('A');
+    expect(logCautionsText(a, pick)).toBe('The assessment raised 2 cautions about it; read them under Coverage before the trial.');
+    const general = { severity: 'caution' as const, topic: 'ditherDependence', message: '' };
+    const b = { ...a, warnings: [...a.warnings, general] };
+    expect(logCautionsText(b, trialChoice(b).pick!, 'in the list below')).toBe('The assessment raised 2 cautions about it and a caution on the whole log; read them in the list below before the trial.');
+    const c = assessment('cost', [candidate('B', 6)], [['B', -2, -3, -1]], ['B', BASE], [unconfirmed('A')]);
+    expect(logCautionsText(c, trialChoice(c).pick!)).toBeNull(); // a caution about another candidate only
   });
 
   it('never says "none" in the warnings column while a caution about the candidate sits in the whole-log list (the screen review: an unconfirmed estimate)', () => {
@@ -108,12 +126,30 @@ describe('the answer in words, one writer for the app, the command line and the 
   });
 
   it('says none is named and why, for the best J', () => {
+    // A contradiction raises no warning of its own (the cross-checks say it), so no list is pointed to.
     const a = assessment('reward', [candidate('A', 5, { confirmation: { status: 'contradicted', text: '' } }), candidate('B', 4)], [['A', 1, 0.5, 2], ['B', 0.5, -0.2, 1]], ['A', 'B', BASE]);
     expect(trialAnswer(a, trialChoice(a), places)).toEqual({
       headline: 'No candidate is named for a trial.',
-      detail: 'The best J is A’s (5.00), but a cross-check contradicts it. Read its warnings under Coverage before any trial.',
+      detail: 'The best J is A’s (5.00), but a cross-check contradicts it.',
       logCautions: null,
     });
+  });
+
+  it('points to the best J’s warnings only where some bear on it', () => {
+    // B's interval reaches 0 and nothing was raised about it: there is no warning to read, and the terminal prints no list "below".
+    const a = assessment('cost', [candidate('B', 6)], [['B', -0.5, -1, 0.1]], ['B', BASE]);
+    expect(trialAnswer(a, trialChoice(a), places)?.detail).toBe('The best J is B’s (6.00), but the interval of its difference from the baseline reaches 0 or the worse side.');
+    const caution = { severity: 'caution' as const, topic: 'confirmation', candidate: 'B', message: 'B: Nothing in the logs can confirm this estimate' };
+    const b = assessment('cost', [candidate('B', 6)], [['B', -0.5, -1, 0.1]], ['B', BASE], [caution]);
+    expect(trialAnswer(b, trialChoice(b), places)?.detail).toMatch(/reaches 0 or the worse side\. Read its warnings under Coverage before any trial\.$/);
+  });
+
+  it('gives a JSON reader the same answer as data: the candidate named, the best J and why not, the rule', () => {
+    const serious = { severity: 'serious' as const, topic: 'shift', message: 'far from the logs' };
+    const a = assessment('cost', [candidate('A', 5, { warnings: [serious] }), candidate('B', 6)], [['A', -3, -4, -2], ['B', -2, -3, -1]], ['A', 'B', BASE]);
+    expect(trialJson(a)).toEqual({ named: 'B', best: 'A', reasons: ['the assessment raised a serious warning for it'], rule: TRIAL_RULE });
+    const none = assessment('cost', [candidate('B', 6)], [['B', -0.5, -1, 0.1]], ['B', BASE]);
+    expect(trialJson(none)).toEqual({ named: null, best: 'B', reasons: ['the interval of its difference from the baseline reaches 0 or the worse side'], rule: TRIAL_RULE });
   });
 
   it('is printed by the command line after the ranking, with the rule', () => {

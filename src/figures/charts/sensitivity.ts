@@ -13,6 +13,7 @@ import type { PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatValue } from '../parts/tickFormat';
 import { discountText } from '../../core/horizonText';
+import { keepUnitGroups } from '../../core/unitGroups';
 
 export const SENSITIVITY_DEFAULTS = { heightPx: 300, crossedExtraPx: 48, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6, crossRadiusPx: 7, crossWidthPx: 2.5 } as const;
 
@@ -54,27 +55,34 @@ export function rankingVerdict(curve: Pick<SensitivityCurve, 'rankingStable' | '
 /** Settings named, and pairs per setting (grouped by the one ranked above), before "and N more". */
 const CHANGES_NAMED = { settings: 3, pairs: 3 } as const;
 
+/** A series' name in quotes, each number held to its unit (core/unitGroups.ts), so a sentence wraps "“PI with a 2 %/min rate limit”" between words, not inside "2 %/min". */
+const quoted = (name: string): string => `“${keepUnitGroups(name)}”`;
+
 /** “A”, “B” and “C”. */
 function listText(items: readonly string[]): string {
   return items.length > 1 ? `${items.slice(0, -1).join(', ')} and ${items[items.length - 1]}` : items[0];
 }
 
 /**
- * Where the ranking differs from the project's setting, in words: "at 1, “B” ranks above “A”, the
- * other way round at the project's 2"; empty when the curve has no changes (stable, or saved before they were kept).
+ * Where the ranking differs from the project's setting, in words: "at 1, “B” ranks above “A” and “C”,
+ * and “A” above “C”; each the other way round at the project’s 2"; empty when the curve has no changes
+ * (stable, or saved before they were kept). The pairs at a setting are grouped by the one ranked above;
+ * where the project's own setting is left out, the first setting kept is named (pipeline/sweepRanking.ts).
  */
 function changesText(curve: Pick<SensitivityCurve, 'rankingChanges' | 'settings' | 'parameter' | 'projectIndex' | 'leftOut'>): string {
-  const changes = curve.rankingChanges ?? [];
+  const changes = curve.rankingChanges ?? [], out = curve.leftOut ?? [];
   if (!changes.length) return '';
   const more = (shown: number, all: number) => (all > shown ? ` (${all - shown} more pair${all - shown > 1 ? 's' : ''})` : '');
   const parts = changes.slice(0, CHANGES_NAMED.settings).map(({ at, swapped }) => {
     const shown = swapped.slice(0, CHANGES_NAMED.pairs), ahead = [...new Set(shown.map(([a]) => a))];
-    const groups = ahead.map((a) => `“${a}” ranks above ${listText(shown.filter(([x]) => x === a).map(([, b]) => `“${b}”`))}`);
-    return `at ${settingText(curve, at)}, ${groups.join('; ')}${more(shown.length, swapped.length)}`;
+    const groups = ahead.map((a, k) => `${quoted(a)} ${k === 0 ? 'ranks ' : ''}above ${listText(shown.filter(([x]) => x === a).map(([, b]) => quoted(b)))}`);
+    return `at ${settingText(curve, at)}, ${groups.join(', and ')}${more(shown.length, swapped.length)}`;
   });
-  const project = curve.leftOut?.includes(curve.projectIndex) ? 'the first setting without a crossed J' : `the project’s ${settingText(curve, curve.projectIndex)}`;
-  const rest = changes.length - parts.length;
-  return `${parts.join('; ')}${rest > 0 ? `; and at ${rest} more setting${rest > 1 ? 's' : ''}` : ''} (the other way round at ${project})`;
+  const reference = out.includes(curve.projectIndex)
+    ? `the first setting without a crossed J, ${settingText(curve, curve.settings.findIndex((_, i) => !out.includes(i)))}`
+    : `the project’s ${settingText(curve, curve.projectIndex)}`;
+  const rest = changes.length - parts.length, pairs = changes.reduce((n, c) => n + c.swapped.length, 0);
+  return `${parts.join('; ')}${rest > 0 ? `; and at ${rest} more setting${rest > 1 ? 's' : ''}` : ''}; ${pairs > 1 ? 'each ' : ''}the other way round at ${reference}`;
 }
 
 /** rankingVerdict without the settings left out, for the figure's subtitle (Chart.js squeezes a line wider than the plot). */
@@ -104,7 +112,7 @@ export function sweepsVerdict(curves: readonly Pick<SensitivityCurve, 'rankingSt
 export function beyondPossibleSentence(curve: Pick<SensitivityCurve, 'series' | 'settings' | 'parameter'>, name: (n: string) => string = (n) => n): string | null {
   const parts = curve.series.flatMap((serie) => {
     const at = curve.settings.flatMap((_, i) => (serie.beyondPossible?.[i] ? [settingText(curve, i)] : []));
-    return at.length ? [`of “${name(serie.name)}” at ${at.length > 1 ? `${at.slice(0, -1).join(', ')} and ${at[at.length - 1]}` : at[0]}`] : [];
+    return at.length ? [`of ${quoted(name(serie.name))} at ${at.length > 1 ? `${at.slice(0, -1).join(', ')} and ${at[at.length - 1]}` : at[0]}`] : [];
   });
   if (!parts.length) return null;
   return `Crossed points: J ${parts.join('; ')}. Between a crossed J and J at another setting the change lies outside what the per-step values allow, on paired resamples of the runs, so the two cannot both be right; the crosses are the fewest points that account for every such pair (the candidate’s warnings say by how much).`;

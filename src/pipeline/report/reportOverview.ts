@@ -22,8 +22,8 @@ export function summarySection(input: ReportInput): Html {
     ${a ? answerParagraph(input, a) : ''}</div>`;
 }
 
-/** Where the report shows what the answer points to: the cautions on its first page, the warnings in its two sections. */
-const REPORT_PLACES = { cautions: 'above', warnings: 'under Diagnostics and Cross-checks' } as const;
+/** Where the report shows what the answer points to: the cautions on its first page, above the summary; every warning in the list at the end of Diagnostics (reportEvidence.ts). */
+const REPORT_PLACES = { cautions: 'above', warnings: 'under Diagnostics' } as const;
 
 /** Which candidate to trial, in the words the app's Findings and the command line use (pipeline/trialChoice.ts), with the rule. */
 function answerParagraph(input: ReportInput, a: Assessment): Html | string {

@@ -32,6 +32,7 @@ svg .axis-label { font-size: 12px; fill: #222; }
 svg .value { fill: #333; }
 .summary { border: 1px solid var(--rule); border-left: 5px solid var(--ink); padding: 10px 14px; margin: 12px 0; }
 .summary p { margin: 0; }
+.summary p + p { margin-top: 6px; }
 .warning { margin: 4px 0; }
 .warning.serious strong { color: var(--serious); }
 .warning.caution strong { color: var(--caution); }

@@ -45,13 +45,20 @@ describe('names in the comparison card', () => {
 });
 
 describe('names in the answer card', () => {
-  it('holds each number to its unit in the policy column too (the same narrow column at 1280 px)', () => {
-    const withCandidates = {
-      ...assessment, warnings: [], behaviour: estimate(9),
-      candidates: [PI, LIMITED].map((name, i) => ({ name, policyValue: estimate(7 + 3 * i), warnings: [], confirmation: { status: 'unconfirmed', text: '' } })),
-    } as unknown as Assessment;
-    const evaluation = { valueSense: 'cost', policies: [PI, LIMITED].map((name) => ({ name })) } as unknown as Evaluation;
-    const rows = tableCells(renderFindings(createElement(AnswerPanel, { evaluation, assessment: withCandidates }), ['answer']), 'answer-table', false);
-    expect(rows.slice(1, 3).map((r) => r[0])).toEqual(['PI (25\u00a0%/K, 30\u00a0min)', 'PI with a 2\u00a0%/min rate limit']);
+  // The answer table's policy column is as narrow: at 1280 px the screen review showed "PI (25 %/K, 30 | min)" there too.
+  const candidate = (name: string, value: number) => ({
+    name, policyValue: estimate(value), reportedRange: null, settled: null, confirmation: { status: 'unconfirmed', text: '' },
+    diagnostics: { occupancyShift: 1 }, functionClasses: null, rangeCut: null, warnings: [], crossChecks: [],
+  });
+  const answered = {
+    ...assessment, candidates: [candidate(PI, 7.72), candidate(LIMITED, 10.69)], warnings: [], presentController: { policyValue: estimate(8.56) }, behaviour: estimate(8.51),
+    comparison: { ...assessment.comparison, differences: [...assessment.comparison.differences, { a: LIMITED, b: PRESENT_CONTROLLER_NAME, difference: estimate(2.13), probabilityBetter: 0.013 }] },
+  } as unknown as Assessment;
+  const evaluation = { valueSense: 'cost', policies: [PI, LIMITED].map((name) => ({ name })) } as unknown as Evaluation;
+
+  it('holds each number to its unit in the policy column', () => {
+    const html = renderFindings(createElement(AnswerPanel, { evaluation, assessment: answered }), ['answer']);
+    const names = tableCells(html, 'answer-table', false).slice(1, -1).map((r) => r[0]);
+    expect(names).toEqual(['PI (25\u00a0%/K, 30\u00a0min)', 'PI with a 2\u00a0%/min rate limit']);
   });
 });

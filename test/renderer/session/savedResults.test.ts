@@ -9,6 +9,8 @@ import { assessmentFromJson, evaluationFromJson, restoreResults, resultsOf, retu
 import { createSessionStore } from '../../../src/renderer/src/session/sessionStore';
 import { newProjectDocument } from '../../../src/renderer/src/document/newProject';
 import { runKey } from '../../../src/shared/runKey';
+import { rankingVerdict } from '../../../src/figures/charts/sensitivity';
+import { trialAnswer, trialChoice } from '../../../src/pipeline/trialChoice';
 
 const evaluation = {
   project: 'p', evaluatedAt: '2026-11-01T00:00:00.000Z', valueSense: 'cost', behaviour: { value: 3, standardError: 0.1, episodes: 10, largestTruncationWeight: 0, meanTruncationWeight: 0 },
@@ -27,6 +29,20 @@ describe('results saved by an earlier version', () => {
     expect(assessmentFromJson(old)).toBeNull();
     const current = { settings: {}, comparison: {}, presentController: null, candidates: [{ name: 'A', confirmation: { status: 'unconfirmed', text: '' }, reportedRange: null, diagnostics: { occupancyShift: 1.1 } }] };
     expect(assessmentFromJson(current)).not.toBeNull();
+  });
+
+  it('opens an assessment saved before the class pairs and the sweep’s ranking changes were kept, and says what it can', () => {
+    const classes = { classes: [], settled: false, range: [1, 2], coverage: '', reason: 'Not settled: …' }; // no `pairs`
+    const curve = { parameter: 'polynomialDegree', label: 'degree', settings: [1, 2, 3], projectIndex: 1, series: [], rankingStable: false }; // no `rankingChanges`
+    const saved = {
+      settings: {}, valueSense: 'cost', warnings: [], presentController: null, sensitivity: { curves: [curve], notes: [] },
+      comparison: { baseline: { name: 'logged return', note: '' }, differences: [], ranking: { order: ['A'], frequency: null, neighbours: [] } },
+      candidates: [{ name: 'A', policyValue: { value: 2, percentile: [1, 3] }, warnings: [], functionClasses: classes, confirmation: { status: 'unconfirmed', text: '' }, reportedRange: [1, 2], diagnostics: { occupancyShift: 1.1 } }],
+    };
+    const a = assessmentFromJson(saved)!;
+    expect(a).not.toBeNull();
+    expect(rankingVerdict(a.sensitivity!.curves[0])).toBe('the ranking changes within this range'); // the words before this version, no pairs to name
+    expect(trialAnswer(a, trialChoice(a), { cautions: 'above', warnings: 'under Coverage' })?.headline).toBe('No candidate is named for a trial.');
   });
 });
 

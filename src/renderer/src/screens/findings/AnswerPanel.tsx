@@ -10,10 +10,9 @@ import { useDocument } from '../../hooks';
 import { levelText, sharesText } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 import type { SectionId } from './findingsSections';
-import { displayName, valueUnit } from './plotLabels';
+import { columnName, displayName, valueUnit } from './plotLabels';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plotTheme';
 import { sweepsVerdict } from '../../../../figures/charts/sensitivity';
-import { keepUnitGroups } from '../../../../core/unitGroups';
 import { TRIAL_RULE, trialAnswer, trialChoice, warningsText, type TrialChoice } from '../../../../pipeline/trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
@@ -55,7 +54,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
       <tbody>
         {choice.lines.map((l, i) => (
           <tr key={l.candidate.name} className={l === choice.pick ? 'answer-pick' : undefined} data-testid={`answer-row-${evaluation.policies.findIndex((p) => p.name === l.candidate.name)}`}>
-            <th scope="row">{keepUnitGroups(l.candidate.name)}</th>
+            <th scope="row">{columnName(l.candidate.name)}</th>
             <td className="number">{valueAtPrecision(l.candidate.policyValue.value, l.candidate.policyValue.percentile)}</td>
             <td className="number interval">
               {intervalAtPrecision(l.candidate.policyValue.percentile)}

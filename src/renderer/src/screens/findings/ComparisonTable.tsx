@@ -6,13 +6,9 @@
 import type { Assessment } from '../../../../pipeline/assessment';
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
-import { displayName } from './plotLabels';
+import { columnName, displayName } from './plotLabels';
 import { intervalDetail, levelText, shareText, sharesText } from './assessmentWords';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
-import { keepUnitGroups } from '../../../../core/unitGroups';
-
-/** A policy's name in this card: its label, each number held to its unit, so the narrow name columns wrap between groups (core/unitGroups.ts). */
-const cardName = (name: string): string => keepUnitGroups(displayName(name));
 
 export function ComparisonTable({ assessment }: { assessment: Assessment }) {
   const { differences, ranking } = assessment.comparison, level = assessment.settings.level;
@@ -36,7 +32,7 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
         <tbody>
           {differences.map((d, i) => (
             <tr key={`${d.a}|${d.b}`} data-testid={`difference-row-${i}`}>
-              <td>{cardName(d.a)}</td><td>{cardName(d.b)}</td>
+              <td>{columnName(d.a)}</td><td>{columnName(d.b)}</td>
               <td className="number">{valueAtPrecision(d.difference.value, d.difference.percentile)}</td>
               <td className="number interval" title={intervalDetail(d.difference, level)}>{intervalAtPrecision(d.difference.percentile)}</td>
               <td className="number">{firstBetterIn[i]}</td>
@@ -46,13 +42,13 @@ export function ComparisonTable({ assessment }: { assessment: Assessment }) {
       </table>
       <CopyTable tableTestId="comparison-table" fileBase="paired-differences" />
       <div data-testid="ranking">
-        <p><strong>Ranking, best first:</strong> {ranking.order.map(cardName).join(' › ')}.{' '}
+        <p><strong>Ranking, best first:</strong> {ranking.order.map(columnName).join(' › ')}.{' '}
           {ranking.frequency === null ? 'How often it holds is unknown (some policy has no resamples).' : `This whole order holds in ${shareText(ranking.frequency)} of the resamples.`}
         </p>
         {ranking.neighbours.length > 0 && (
           <ul className="small">
             {ranking.neighbours.map((n) => (
-              <li key={`${n.better}|${n.worse}`}>{cardName(n.better)} ahead of {cardName(n.worse)}: {n.frequency === null ? 'unknown' : `in ${shareText(n.frequency)} of resamples`}</li>
+              <li key={`${n.better}|${n.worse}`}>{columnName(n.better)} ahead of {columnName(n.worse)}: {n.frequency === null ? 'unknown' : `in ${shareText(n.frequency)} of resamples`}</li>
             ))}
           </ul>
         )}

@@ -25,7 +25,7 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
       <p className="small muted">J refitted at other settings on the full data. If the lines cross inside the range, the conclusion depends on that setting.</p>
       {sensitivity.curves.length > 1 && (
         <div className="row">
-          <SelectField label="Setting" value={String(index)} onChange={(v) => setIndex(Number(v))} testId="sensitivity-curve"
+          <SelectField label="Setting" value={String(index)} onChange={(v) => setIndex(Number(v))} testId="sensitivity-curve" className="fit-field"
             options={sensitivity.curves.map((c, i) => ({ value: String(i), label: c.label }))} />
         </div>
       )}

@@ -2,6 +2,8 @@
 import type { Evaluation } from '../../../../pipeline/estimates';
 import type { ProjectDocument } from '../../../../project/schema';
 import { discountWithHorizon } from '../estimator/discountHorizon';
+import { keepUnitGroups } from '../../../../core/unitGroups';
+import { policyLabel } from '../../../../pipeline/policyNames';
 
 export function stateLabel(doc: ProjectDocument, index: number): string {
   const s = doc.columns.states[index];
@@ -64,6 +66,11 @@ export function sliceStateLines(doc: ProjectDocument, state: readonly number[], 
 
 /** A policy's name as shown (the present controller's and the logged return's read as their one label). */
 export { policyLabel as displayName } from '../../../../pipeline/policyNames';
+
+/** A policy's name where a Findings card lists names (the answer and comparison tables' narrow name columns, the ranking): its label, each number held to its unit, so it wraps between groups (core/unitGroups.ts). */
+export function columnName(name: string): string {
+  return keepUnitGroups(policyLabel(name));
+}
 
 /**
  * The action-value slice's one-line explanation, as rich-text markup (V^{π} set as a superscript).
