@@ -2,7 +2,8 @@
  * Whether a sweep's ranking by J holds over its settings, the settings where some J is crossed
  * (SensitivitySeries.beyondPossible, assessSweepCheck.ts) left out — the project's own setting too:
  * a ranking read against a J that cannot be right would vouch for nothing. The verdict compares the
- * settings kept with each other; with fewer than two kept there is nothing to compare, and
+ * settings kept with each other, pair by pair among the J that exist (a missing J is not a change);
+ * with fewer than two kept there is nothing to compare, and
  * figures/charts/sensitivity.ts rankingVerdict says so.
  */
 import type { RankingChange, SensitivityCurve, SensitivitySeries } from './assessment';
@@ -17,8 +18,10 @@ export function sweepRanking(
   const orderAt = (i: number) => series.filter((s) => s.values[i] !== null).sort((x, y) => sign * ((y.values[i] as number) - (x.values[i] as number))).map((s) => s.name);
   const leftOut = settings.flatMap((_, i) => (series.some((s) => s.beyondPossible?.[i]) ? [i] : []));
   const kept = settings.flatMap((_, i) => (leftOut.includes(i) ? [] : [i]));
-  const key = (i: number) => orderAt(i).join('>');
-  const rankingStable = kept.every((i) => key(i) === key(kept[0]));
+  // Stable when no two policies stand the other way round at two kept settings, among the J each has: a fit with no value
+  // at one setting (its status says why) leaves a gap in the line, not a change of ranking.
+  const orders = new Map(kept.map((i) => [i, orderAt(i)]));
+  const rankingStable = kept.every((i) => kept.every((j) => j <= i || swappedPairs(orders.get(i)!, orders.get(j)!).length === 0));
   const reference = kept.includes(projectIndex) ? projectIndex : kept[0];
   // The pairs of two candidates first, those with the logged return's reference line after: the words name the first
   // few and count the rest, and on the heating-loop sample the one pair of candidates a degree-1 fit turns round was

@@ -110,3 +110,17 @@ describe('where the ranking changes, named against the project’s setting', () 
     );
   });
 });
+
+describe('a setting where a fit gave no value', () => {
+  it('is a gap in the line, not a change of ranking (review: "the ranking changes" where nothing turned round)', () => {
+    // B has no J at 0.95 (its fit diverged there); A stays ahead of B wherever both have one.
+    const series: SensitivitySeries[] = [
+      { name: 'A', values: [4, 5, 6, 7, 8], status: Array(5).fill('converged') },
+      { name: 'B', values: [5, 6, null, 8, 9], status: ['converged', 'converged', 'diverged', 'converged', 'converged'] },
+    ];
+    expect(sweepRanking(settings, series, -1, 2)).toEqual({ rankingStable: true });
+    // Where B does turn round at another setting, it is a change, named against the project's setting's order (A alone there).
+    const turned = series.map((s) => (s.name === 'B' ? { ...s, values: [3, 6, null, 8, 9] } : s));
+    expect(sweepRanking(settings, turned, -1, 2).rankingStable).toBe(false);
+  });
+});
