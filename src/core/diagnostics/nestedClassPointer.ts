@@ -52,3 +52,27 @@ function pointingPair(verdict: { readonly settled: boolean; readonly gaps: reado
   const points = upper.paired && !disagrees(upper) && detectable(upper) <= CROSS_CHECK_RULE.detectableGap && disagrees(ownMiddle) && disagrees(ownTop);
   return points ? upper : null;
 }
+
+/** The labels a network project's pointer reads: the network's own class and the three nested polynomial classes beside it. */
+export interface NetworkNestedLabels extends NestedClassLabels {
+  readonly network: string;
+}
+
+/**
+ * The same question for a network project (issue 9, task netnest32; not wired: the rule in
+ * /work/notes/rule-network-nested.md decides): the verdict is not settled; the network and degrees
+ * 2, 3 and 4 were all fitted and compared (an unconverged class has no pair); every pair among
+ * {network, degree 3, degree 4} agrees by the class rule and could have seen a gap of
+ * CROSS_CHECK_RULE.detectableGap of J; and degree 2 disagrees with each of the three. The network's
+ * pairs are not in the class verdict (it is checked against the linear estimate by its own rule), so
+ * the caller compares them unpaired (unpairedGap, functionClassRange.ts); the pairs among the
+ * polynomial classes are the verdict's own, paired where it paired them.
+ */
+export function networkNestedClassesPoint(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NetworkNestedLabels): boolean {
+  if (verdict.settled) return false;
+  const pair = (a: string, b: string) => verdict.gaps.find((g) => (g.first === a && g.second === b) || (g.first === b && g.second === a));
+  const agreeing = [pair(labels.network, labels.middle), pair(labels.network, labels.top), pair(labels.middle, labels.top)];
+  const apart = [pair(labels.own, labels.network), pair(labels.own, labels.middle), pair(labels.own, labels.top)];
+  if (![...agreeing, ...apart].every((g) => g !== undefined)) return false;
+  return agreeing.every((g) => !disagrees(g!) && detectable(g!) <= CROSS_CHECK_RULE.detectableGap) && apart.every((g) => disagrees(g!));
+}
