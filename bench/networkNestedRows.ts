@@ -11,7 +11,8 @@
  * rule and has no pair with degrees 3 and 4 there, so its pairs are formed here by the class rule,
  * unpaired: √(se_net² + se_k²) from each class's standard error (unpairedGap, functionClassRange.ts).
  *
- * Fires where: not settled; the network and degrees 2, 3, 4 all fitted and compared; every pair among
+ * Fires where: not settled; the network and degrees 2, 3, 4 all fitted and converged (the network's
+ * status 'converged'; an unconverged polynomial class is absent from the list); every pair among
  * {network, 3, 4} agrees (CLASS_AGREEMENT) and could have seen a 10 % gap; degree 2 disagrees with each
  * of the three. Then, as the rule asks:
  *  (a) the hull of the network's, degree 3's and degree 4's intervals holds the truth (within 2 truth
@@ -40,14 +41,16 @@ interface Row {
   plant: string; approximator: string; seed: number; candidate: string;
   truth: { value: number; standardError: number };
   j: number;
+  /** The network fit's outcome (the CLI's policies[].status): 'converged', 'maxIterations', 'diverged'. */
+  status: string;
   settled: boolean | null;
   classes: ClassRow[] | null;
   classPairs: (Omit<ClassGap, 'standardErrors' | 'relativeStandardError'> & { standardErrors: number | null; relativeStandardError: number | null })[] | null;
 }
 
 /** Why a row's pointer did not fire: the first condition that failed, in the rule's order. */
-type Why = 'fires' | 'settled' | 'not all of net,2-4' | 'net/3/4 disagree' | 'net/3/4 cannot see 10 %' | '2 agrees with net, 3 or 4';
-const WHYS: Why[] = ['settled', 'not all of net,2-4', 'net/3/4 disagree', 'net/3/4 cannot see 10 %', '2 agrees with net, 3 or 4'];
+type Why = 'fires' | 'settled' | 'not all of net,2-4 converged' | 'net/3/4 disagree' | 'net/3/4 cannot see 10 %' | '2 agrees with net, 3 or 4';
+const WHYS: Why[] = ['settled', 'not all of net,2-4 converged', 'net/3/4 disagree', 'net/3/4 cannot see 10 %', '2 agrees with net, 3 or 4'];
 
 interface Judged { why: Why; hullHolds: boolean; closer: boolean; errNet: number; err2: number; err3: number; err4: number; hull: [number, number] | null }
 
@@ -60,7 +63,9 @@ function judge(row: Row): Judged {
   const settled = row.settled !== false;
   if (settled) return { why: 'settled', ...base };
   const se = (k: ClassRow | undefined) => (k && typeof k.standardError === 'number' && Number.isFinite(k.standardError) ? k.standardError : null);
-  if (!network?.label.startsWith('network') || !d2 || !d3 || !d4 || se(network) === null || [d2, d3, d4].some((k) => se(k) === null)) return { why: 'not all of net,2-4', ...base };
+  // A polynomial class that did not converge is not in the class list; the network's own outcome is the row's status.
+  const fitted = network?.label.startsWith('network') && row.status === 'converged' && d2 && d3 && d4 && se(network) !== null && [d2, d3, d4].every((k) => se(k) !== null);
+  if (!fitted || !network || !d2 || !d3 || !d4) return { why: 'not all of net,2-4 converged', ...base };
   // JSON writes Infinity as null: a pair with no finite standard error.
   const linear: ClassGap[] = (row.classPairs ?? []).map((g) => ({ ...g, standardErrors: g.standardErrors ?? Infinity, relativeStandardError: g.relativeStandardError ?? Infinity }));
   const net = { label: network.label, value: network.value, standardError: se(network)! };
@@ -69,7 +74,7 @@ function judge(row: Row): Judged {
   const L = { network: network.label, ...NESTED_CLASS_LABELS };
   const agreeing = [pair(L.network, L.middle), pair(L.network, L.top), pair(L.middle, L.top)], apart = [pair(L.own, L.network), pair(L.own, L.middle), pair(L.own, L.top)];
   let why: Why = 'fires';
-  if (![...agreeing, ...apart].every(Boolean)) why = 'not all of net,2-4';
+  if (![...agreeing, ...apart].every(Boolean)) why = 'not all of net,2-4 converged';
   else if (agreeing.some((g) => disagrees(g!))) why = 'net/3/4 disagree';
   else if (agreeing.some((g) => detectable(g!) > CROSS_CHECK_RULE.detectableGap)) why = 'net/3/4 cannot see 10 %';
   else if (!apart.every((g) => disagrees(g!))) why = '2 agrees with net, 3 or 4';

@@ -61,7 +61,8 @@ export interface NetworkNestedLabels extends NestedClassLabels {
 /**
  * The same question for a network project (issue 9, task netnest32; not wired: the rule in
  * /work/notes/rule-network-nested.md decides): the verdict is not settled; the network and degrees
- * 2, 3 and 4 were all fitted and compared (an unconverged class has no pair); every pair among
+ * 2, 3 and 4 were all fitted and converged (the caller leaves out the pairs of any class that did
+ * not converge, the network's own included); every pair among
  * {network, degree 3, degree 4} agrees by the class rule and could have seen a gap of
  * CROSS_CHECK_RULE.detectableGap of J; and degree 2 disagrees with each of the three. The network's
  * pairs are not in the class verdict (it is checked against the linear estimate by its own rule), so
