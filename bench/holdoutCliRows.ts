@@ -143,7 +143,7 @@ async function main() {
       console.log([plant.name, approximator, seed, c.name, truth.value.toFixed(4), truth.standardError.toFixed(4), j.toFixed(4), err.toFixed(2), fmt(interval), fmt(range), holds,
         range ? (miss / truth.standardError).toFixed(1) : '-', c.settled, status, most, run.status, kind, seconds.toFixed(0)].join('\t'));
       rows.push({ plant: plant.name, approximator, seed, candidate: c.name, truth, j, err, interval, range, holds, settled: c.settled, status, warnings, confirmation: c.confirmation, exit: run.status, kind, seconds,
-        fitMessage: policy?.message ?? null, functionClasses: c.functionClasses?.reason ?? null, classes: c.functionClasses?.classes?.map((k: { label: string; value: number; interval: [number, number] | null }) => ({ label: k.label, value: k.value, interval: k.interval })) ?? null,
+        fitMessage: policy?.message ?? null, functionClasses: c.functionClasses?.reason ?? null, classes: c.functionClasses?.classes?.map((k: { label: string; value: number; interval: [number, number] | null; standardError: number | null }) => ({ label: k.label, value: k.value, interval: k.interval, standardError: k.standardError })) ?? null,
         // Every pair the class rule compared (paired standard errors, the smallest gap it could see), for bench/nestedClassRows.ts.
         classPairs: c.functionClasses?.pairs ?? null, crossChecks: c.crossChecks.map((x: { label: string; agreement: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, value: x.estimate?.value ?? null })) });
     }

@@ -6,8 +6,8 @@
  */
 import { ditherDependenceText } from '../core/ditherDependence';
 import type { LoggedActionRanges } from '../core/diagnostics/actionSupport';
-import { functionClassVerdict, type ClassEstimate } from '../core/diagnostics/functionClassRange';
-import { nestedClassSentence } from '../core/diagnostics/nestedClassPointer';
+import { functionClassVerdict, unpairedGap, type ClassEstimate } from '../core/diagnostics/functionClassRange';
+import { nestedClassSentence, networkNestedClassSentence } from '../core/diagnostics/nestedClassPointer';
 import { startCoverageFinding } from '../core/diagnostics/severity';
 import { startCoverage } from '../core/diagnostics/startCoverage';
 import { uncoveredShare, unvisitedNeedsCaution } from '../core/diagnostics/unvisitedRegion';
@@ -231,6 +231,27 @@ export function networkDisagreement(work: CandidateWork, classes: FunctionClassA
  */
 export function withUnresampledOwn(classes: FunctionClassAssessment | null, work: CandidateWork, sign: number, net: NetworkRunResamples | null = null): FunctionClassAssessment | null {
   if (!classes || work.replicate) return classes;
+  return withNetworkNestedPointer(ownBesideClasses(classes, work, sign, net), work.model.fit.status === 'converged');
+}
+
+/**
+ * A network project not settled whose network, degree 3 and degree 4 agree by the class rule and all
+ * differ from degree 2, the network's fit converged: the reason says where the gap most likely lies
+ * (nestedClassPointer.ts; range and verdict unchanged). The network's pairs are not in the class verdict, so they are compared here
+ * unpaired, by the class rule's own formula (unpairedGap).
+ */
+function withNetworkNestedPointer(a: FunctionClassAssessment, networkConverged: boolean): FunctionClassAssessment {
+  if (a.settled || !networkConverged) return a;
+  const [own, ...linear] = a.classes;
+  const known = (c: (typeof a.classes)[number]) => (c.standardError === null || c.standardError === undefined ? null : { label: c.label, value: c.value, standardError: c.standardError });
+  const network = known(own), others = linear.map(known);
+  if (!network || others.some((c) => c === null)) return a;
+  const gaps = [...a.pairs, ...others.map((c) => unpairedGap(network, c!))];
+  const sentence = networkNestedClassSentence({ settled: false, gaps }, { network: network.label, ...NESTED_CLASS_LABELS });
+  return sentence ? { ...a, reason: `${a.reason} ${sentence}` } : a;
+}
+
+function ownBesideClasses(classes: FunctionClassAssessment, work: CandidateWork, sign: number, net: NetworkRunResamples | null): FunctionClassAssessment {
   const own = sign * work.model.fit.policyValue, [lo, hi] = classes.range, interval = networkInterval(work, sign, net);
   const entry = { label: work.classes[0].label, value: own, interval, standardError: ownInterval(work, net)?.standardError ?? null };
   const [ownLo, ownHi] = interval ?? [own, own];

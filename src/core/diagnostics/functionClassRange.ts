@@ -34,6 +34,8 @@
  *   - Where a linear project of degree 2 is not settled and degrees 3 and 4 agree with each other
  *     (paired, able to see 10 %) while both disagree with degree 2, the reason adds that the gap most
  *     likely lies in degree 2 (nestedClassPointer.ts, adopted on a measured rule); range and verdict unchanged.
+ *     For a network project the same where the network, degrees 3 and 4 agree pairwise (the network's
+ *     pairs unpaired, unpairedGap) and all three differ from degree 2 (withUnresampledOwn, assessAssembly.ts).
  *   - A class that was fitted but whose fitted Q-evaluation did not converge (it diverged, or stopped
  *     at its iteration limit) has no value to compare. When it leaves the project's own class alone,
  *     the estimate is not settled: the richer classes could not be fitted stably on these logs,
@@ -156,17 +158,25 @@ function pairGaps(estimates: readonly ClassEstimate[]): ClassGap[] {
   const gaps: ClassGap[] = [];
   for (let i = 0; i < estimates.length; i++) {
     for (let j = i + 1; j < estimates.length; j++) {
-      const a = estimates[i], b = estimates[j], difference = a.value - b.value;
-      const se = paired ? pairedSpread(a.replicates!, b.replicates!) : Math.hypot(a.standardError, b.standardError);
-      const scale = Math.max(Math.abs(a.value), Math.abs(b.value), Number.MIN_VALUE);
-      gaps.push({
-        first: a.label, second: b.label, difference, paired,
-        standardErrors: se > 0 ? Math.abs(difference) / se : difference === 0 ? 0 : Infinity, relative: Math.abs(difference) / scale,
-        relativeStandardError: se / scale,
-      });
+      const a = estimates[i], b = estimates[j];
+      gaps.push(paired ? gapOf(a, b, pairedSpread(a.replicates!, b.replicates!), true) : unpairedGap(a, b));
     }
   }
   return gaps;
+}
+
+/** Two classes compared without shared resamples: the standard error of their difference is √(se_a² + se_b²) (conservative). */
+export function unpairedGap(a: Pick<ClassEstimate, 'label' | 'value' | 'standardError'>, b: Pick<ClassEstimate, 'label' | 'value' | 'standardError'>): ClassGap {
+  return gapOf(a, b, Math.hypot(a.standardError, b.standardError), false);
+}
+
+function gapOf(a: Pick<ClassEstimate, 'label' | 'value'>, b: Pick<ClassEstimate, 'label' | 'value'>, se: number, paired: boolean): ClassGap {
+  const difference = a.value - b.value, scale = Math.max(Math.abs(a.value), Math.abs(b.value), Number.MIN_VALUE);
+  return {
+    first: a.label, second: b.label, difference, paired,
+    standardErrors: se > 0 ? Math.abs(difference) / se : difference === 0 ? 0 : Infinity, relative: Math.abs(difference) / scale,
+    relativeStandardError: se / scale,
+  };
 }
 
 export function disagrees(g: ClassGap): boolean {

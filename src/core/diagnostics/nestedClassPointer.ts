@@ -52,3 +52,46 @@ function pointingPair(verdict: { readonly settled: boolean; readonly gaps: reado
   const points = upper.paired && !disagrees(upper) && detectable(upper) <= CROSS_CHECK_RULE.detectableGap && disagrees(ownMiddle) && disagrees(ownTop);
   return points ? upper : null;
 }
+
+/** The labels a network project's pointer reads: the network's own class and the three nested polynomial classes beside it. */
+export interface NetworkNestedLabels extends NestedClassLabels {
+  readonly network: string;
+}
+
+/**
+ * The same question for a network project (issue 9): the verdict is not settled; the network and
+ * degrees 2, 3 and 4 were all fitted and converged (the caller leaves out the pairs of any class that
+ * did not converge, the network's own included); every pair among
+ * {network, degree 3, degree 4} agrees by the class rule and could have seen a gap of
+ * CROSS_CHECK_RULE.detectableGap of J; and degree 2 disagrees with each of the three. The network's
+ * pairs are not in the class verdict (it is checked against the linear estimate by its own rule), so
+ * the caller compares them unpaired (unpairedGap, functionClassRange.ts); the pairs among the
+ * polynomial classes are the verdict's own, paired where it paired them. Adopted by a rule written
+ * before measuring, on network rows of 10+ battery and hold-out plants through the command line
+ * (bench/networkNestedRows.ts; test/battery/README.md, "Where the network, degrees 3 and 4 agree"):
+ * it fired on 2 of 29 rows, one candidate on one plant (greenhouse, seeds 1–2), so the evidence is thin; a plant where it fires and misleads is news.
+ */
+export function networkNestedClassesPoint(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NetworkNestedLabels): boolean {
+  return networkPointingPairs(verdict, labels) !== null;
+}
+
+/** The sentence a network project's not-settled reason carries where networkNestedClassesPoint holds, else null (written once here). */
+export function networkNestedClassSentence(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NetworkNestedLabels): string | null {
+  const agreeing = networkPointingPairs(verdict, labels);
+  if (!agreeing) return null;
+  const widest = agreeing.reduce((w, g) => (g.relative > w.relative ? g : w));
+  return `The network and the two richer polynomial classes (${labels.middle}; ${labels.top}) agree with each other by the class rule ` +
+    `(at most ${shareText(widest.relative)} of J apart; each pair could have seen a gap of ${shareText(CROSS_CHECK_RULE.detectableGap)}), ` +
+    `and all three differ from ${labels.own}: the gap most likely lies in that class, too simple for the value of this policy.`;
+}
+
+/** The three agreeing pairs among {network, middle, top} where every condition holds, else null. */
+function networkPointingPairs(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NetworkNestedLabels): ClassGap[] | null {
+  if (verdict.settled) return null;
+  const pair = (a: string, b: string) => verdict.gaps.find((g) => (g.first === a && g.second === b) || (g.first === b && g.second === a));
+  const agreeing = [pair(labels.network, labels.middle), pair(labels.network, labels.top), pair(labels.middle, labels.top)];
+  const apart = [pair(labels.own, labels.network), pair(labels.own, labels.middle), pair(labels.own, labels.top)];
+  if (![...agreeing, ...apart].every((g) => g !== undefined)) return null;
+  const points = agreeing.every((g) => !disagrees(g!) && detectable(g!) <= CROSS_CHECK_RULE.detectableGap) && apart.every((g) => disagrees(g!));
+  return points ? (agreeing as ClassGap[]) : null;
+}
