@@ -18,6 +18,19 @@ import { CROSS_CHECK_RULE } from '../offPolicy/crossCheckVerdict';
 import { detectable, disagrees, type ClassGap } from './functionClassRange';
 import { shareText } from '../shareText';
 
+/** What the pointers read of a class verdict: whether it settled, and every pair it compared. */
+type ClassPairs = { readonly settled: boolean; readonly gaps: readonly ClassGap[] };
+
+/** The pair of classes a and b, in either order; undefined where they were not compared. */
+function pairOf(gaps: readonly ClassGap[], a: string, b: string): ClassGap | undefined {
+  return gaps.find((g) => (g.first === a && g.second === b) || (g.first === b && g.second === a));
+}
+
+/** A pair that agrees by the class rule and could have seen a gap of CROSS_CHECK_RULE.detectableGap of J. */
+function agreesVisibly(g: ClassGap): boolean {
+  return !disagrees(g) && detectable(g) <= CROSS_CHECK_RULE.detectableGap;
+}
+
 /** The labels of the three nested classes: the project's own (degree 2) and the two above it. */
 export interface NestedClassLabels {
   readonly own: string;
@@ -26,7 +39,7 @@ export interface NestedClassLabels {
 }
 
 /** True when the pointer's conditions all hold on the verdict's pairs (see the file comment). */
-export function nestedClassesPoint(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NestedClassLabels): boolean {
+export function nestedClassesPoint(verdict: ClassPairs, labels: NestedClassLabels): boolean {
   return pointingPair(verdict, labels) !== null;
 }
 
@@ -34,7 +47,7 @@ export function nestedClassesPoint(verdict: { readonly settled: boolean; readonl
  * The sentence a not-settled verdict's reason carries where the pointer holds, else null: written
  * here once, so the command line, the app and the report read the same words.
  */
-export function nestedClassSentence(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NestedClassLabels): string | null {
+export function nestedClassSentence(verdict: ClassPairs, labels: NestedClassLabels): string | null {
   const upper = pointingPair(verdict, labels);
   if (!upper) return null;
   const z = Number.isFinite(upper.standardErrors) ? upper.standardErrors.toFixed(1) : '∞';
@@ -44,12 +57,12 @@ export function nestedClassSentence(verdict: { readonly settled: boolean; readon
 }
 
 /** The agreeing upper pair where every condition holds, else null. */
-function pointingPair(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NestedClassLabels): ClassGap | null {
+function pointingPair(verdict: ClassPairs, labels: NestedClassLabels): ClassGap | null {
   if (verdict.settled) return null;
-  const pair = (a: string, b: string) => verdict.gaps.find((g) => (g.first === a && g.second === b) || (g.first === b && g.second === a));
+  const pair = (a: string, b: string) => pairOf(verdict.gaps, a, b);
   const ownMiddle = pair(labels.own, labels.middle), ownTop = pair(labels.own, labels.top), upper = pair(labels.middle, labels.top);
   if (!ownMiddle || !ownTop || !upper) return null;
-  const points = upper.paired && !disagrees(upper) && detectable(upper) <= CROSS_CHECK_RULE.detectableGap && disagrees(ownMiddle) && disagrees(ownTop);
+  const points = upper.paired && agreesVisibly(upper) && disagrees(ownMiddle) && disagrees(ownTop);
   return points ? upper : null;
 }
 
@@ -71,12 +84,12 @@ export interface NetworkNestedLabels extends NestedClassLabels {
  * (bench/networkNestedRows.ts; test/battery/README.md, "Where the network, degrees 3 and 4 agree"):
  * it fired on 2 of 29 rows, one candidate on one plant (greenhouse, seeds 1–2), so the evidence is thin; a plant where it fires and misleads is news.
  */
-export function networkNestedClassesPoint(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NetworkNestedLabels): boolean {
+export function networkNestedClassesPoint(verdict: ClassPairs, labels: NetworkNestedLabels): boolean {
   return networkPointingPairs(verdict, labels) !== null;
 }
 
 /** The sentence a network project's not-settled reason carries where networkNestedClassesPoint holds, else null (written once here). */
-export function networkNestedClassSentence(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NetworkNestedLabels): string | null {
+export function networkNestedClassSentence(verdict: ClassPairs, labels: NetworkNestedLabels): string | null {
   const agreeing = networkPointingPairs(verdict, labels);
   if (!agreeing) return null;
   const widest = agreeing.reduce((w, g) => (g.relative > w.relative ? g : w));
@@ -86,12 +99,12 @@ export function networkNestedClassSentence(verdict: { readonly settled: boolean;
 }
 
 /** The three agreeing pairs among {network, middle, top} where every condition holds, else null. */
-function networkPointingPairs(verdict: { readonly settled: boolean; readonly gaps: readonly ClassGap[] }, labels: NetworkNestedLabels): ClassGap[] | null {
+function networkPointingPairs(verdict: ClassPairs, labels: NetworkNestedLabels): ClassGap[] | null {
   if (verdict.settled) return null;
-  const pair = (a: string, b: string) => verdict.gaps.find((g) => (g.first === a && g.second === b) || (g.first === b && g.second === a));
+  const pair = (a: string, b: string) => pairOf(verdict.gaps, a, b);
   const agreeing = [pair(labels.network, labels.middle), pair(labels.network, labels.top), pair(labels.middle, labels.top)];
   const apart = [pair(labels.own, labels.network), pair(labels.own, labels.middle), pair(labels.own, labels.top)];
   if (![...agreeing, ...apart].every((g) => g !== undefined)) return null;
-  const points = agreeing.every((g) => !disagrees(g!) && detectable(g!) <= CROSS_CHECK_RULE.detectableGap) && apart.every((g) => disagrees(g!));
+  const points = agreeing.every((g) => agreesVisibly(g!)) && apart.every((g) => disagrees(g!));
   return points ? (agreeing as ClassGap[]) : null;
 }
