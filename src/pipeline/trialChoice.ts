@@ -140,6 +140,7 @@ export function trialAnswer(assessment: Assessment, choice: TrialChoice, places:
     logCautions: null,
   };
 }
+
 /** The answer as data, for `--json`: what the text says, without the words a host places. */
 export interface TrialJson {
   /** The candidate to trial first, or null when none qualifies. */
