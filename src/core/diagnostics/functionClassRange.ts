@@ -208,6 +208,11 @@ function pairedSpread(a: ArrayLike<number>, b: ArrayLike<number>): number {
 }
 
 function describe(g: ClassGap): string {
+  return `${g.first} and ${g.second} differ by ${shareText(g.relative)} of J (${standardErrorsText(g)})`;
+}
+
+/** A gap in its standard errors, as the class sentences say it: "0.9 paired standard errors" (one decimal; ∞ where the spread is 0). */
+export function standardErrorsText(g: ClassGap): string {
   const z = Number.isFinite(g.standardErrors) ? g.standardErrors.toFixed(1) : '∞';
-  return `${g.first} and ${g.second} differ by ${shareText(g.relative)} of J (${z} ${g.paired ? 'paired ' : ''}standard errors)`;
+  return `${z} ${g.paired ? 'paired ' : ''}standard errors`;
 }

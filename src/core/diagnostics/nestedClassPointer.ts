@@ -15,7 +15,7 @@
  * than degree 2 on all 4. Few rows: a plant where it fires and misleads would be news to record there.
  */
 import { CROSS_CHECK_RULE } from '../offPolicy/crossCheckVerdict';
-import { detectable, disagrees, type ClassGap } from './functionClassRange';
+import { detectable, disagrees, standardErrorsText, type ClassGap } from './functionClassRange';
 import { shareText } from '../shareText';
 
 /** What the pointers read of a class verdict: whether it settled, and every pair it compared. */
@@ -50,9 +50,8 @@ export function nestedClassesPoint(verdict: ClassPairs, labels: NestedClassLabel
 export function nestedClassSentence(verdict: ClassPairs, labels: NestedClassLabels): string | null {
   const upper = pointingPair(verdict, labels);
   if (!upper) return null;
-  const z = Number.isFinite(upper.standardErrors) ? upper.standardErrors.toFixed(1) : '∞';
   return `The two richer classes (${labels.middle}; ${labels.top}), each holding the one below it, agree with each other by the same rule ` +
-    `(${shareText(upper.relative)} of J apart, ${z} paired standard errors; they could have seen a gap of ${shareText(CROSS_CHECK_RULE.detectableGap)}), ` +
+    `(${shareText(upper.relative)} of J apart, ${standardErrorsText(upper)}; they could have seen a gap of ${shareText(CROSS_CHECK_RULE.detectableGap)}), ` +
     `and both differ from ${labels.own}: the gap most likely lies in that class, too simple for the value of this policy.`;
 }
 
