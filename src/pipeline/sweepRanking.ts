@@ -29,7 +29,7 @@ export function sweepRanking(
   const isReference = new Set(series.filter((s) => s.reference).map((s) => s.name));
   const withReference = ([a, b]: [string, string]) => (isReference.has(a) || isReference.has(b) ? 1 : 0);
   const rankingChanges = rankingStable || reference === undefined ? [] : kept.flatMap((i) => {
-    const swapped = swappedPairs(orderAt(reference), orderAt(i)).sort((x, y) => withReference(x) - withReference(y));
+    const swapped = swappedPairs(orders.get(reference)!, orders.get(i)!).sort((x, y) => withReference(x) - withReference(y));
     return swapped.length ? [{ at: i, swapped }] : [];
   });
   return { rankingStable, ...(leftOut.length ? { leftOut } : {}), ...(rankingChanges.length ? { rankingChanges } : {}) };
