@@ -22,6 +22,7 @@ import type {
 import { ASCII_MINUS, intervalAtPrecision, valueAtPrecision } from '../figures/parts/uncertainNumber';
 import type { AssessmentContext, CandidateWork } from './assessCandidate';
 import { crossChecks } from './assessCrossChecks';
+import { disagreementWarnings } from './crossCheckWarnings';
 import { coverageDiagnostics, coverageWarnings, linearModelOf, shiftOf, type CoverageReference } from './assessDiagnostics';
 import { intervalEstimate, pairedDifference, ranking, type Estimator } from './assessIntervals';
 import { isModelValueFailure, type ModelCheck } from './assessModelCheck';
@@ -77,7 +78,7 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
     const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights, classes ? classes.settled : null);
     const warnings = [
       ...coverageWarnings(diagnostics),
-      ...checks.filter((c) => c.agreement === 'disagrees').map((c): AssessmentWarning => ({ severity: 'serious', topic: 'crossCheck', message: `${c.label}: ${c.note}` })),
+      ...disagreementWarnings(checks),
       ...(classes && !classes.settled ? [{ severity: 'serious' as const, topic: 'functionClass', message: notSettledMessage(classes, cut.note) }] : []),
       ...networkDisagreement(work, classes),
       ...impossibleValue(context.plan, possible, work.model, policyValue),

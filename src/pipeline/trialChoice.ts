@@ -15,6 +15,7 @@ import { plural } from '../data/reportFormat';
 import { shareText } from '../core/shareText';
 import { intervalAtPrecision, TRUE_MINUS, valueAtPrecision, type Minus } from '../figures/parts/uncertainNumber';
 import { policyLabel } from './policyNames';
+import { CROSS_CHECK_TOPIC } from './crossCheckWarnings';
 
 export const TRIAL_RULE = 'A candidate is named for a trial only when the interval of its difference from the baseline lies wholly on the better side of 0, '
   + 'the assessment raised no serious warning for it or for the whole log and no cross-check contradicts it; of those, the best J is named.';
@@ -54,16 +55,21 @@ function lineOf(assessment: Assessment, candidate: CandidateAssessment): TrialLi
   const difference = assessment.comparison.differences.find((d) => d.a === candidate.name && d.b === baseline) ?? null;
   const clearlyBetter = whollyBetter(difference?.difference.percentile ?? null, assessment.valueSense);
   const serious = candidate.warnings.filter((w) => w.severity === 'serious').length;
+  // A disagreeing check's serious warning is the contradiction itself (crossCheckWarnings.ts): said once, as the contradiction.
+  const contradicted = candidate.confirmation.status === 'contradicted';
   const cautions = candidate.warnings.length - serious;
   const onLog = assessment.warnings.filter((w) => w.candidate === undefined || w.candidate === candidate.name);
   const logSerious = onLog.filter((w) => w.severity === 'serious').length, logCautions = onLog.length - logSerious;
+  // Its own serious warnings, and those in the whole-log list about it by name.
+  const namedInLog = onLog.filter((w) => w.severity === 'serious' && w.candidate !== undefined).length;
+  const otherSerious = namedInLog + (contradicted ? candidate.warnings.filter((w) => w.severity === 'serious' && w.topic !== CROSS_CHECK_TOPIC).length : serious);
   const reasons: string[] = [];
   if (!difference?.difference.percentile) reasons.push('its difference from the baseline has no interval');
   else if (!clearlyBetter) reasons.push('the interval of its difference from the baseline reaches 0 or the worse side');
-  if (serious > 0) reasons.push(`the assessment raised ${serious === 1 ? 'a serious warning' : `${serious} serious warnings`} for it`);
-  const whole = assessment.warnings.filter((w) => w.severity === 'serious').length;
+  if (contradicted) reasons.push('a cross-check contradicts it');
+  if (otherSerious > 0) reasons.push(`the assessment raised ${otherSerious === 1 ? `a${contradicted ? 'nother' : ''} serious warning` : `${otherSerious}${contradicted ? ' other' : ''} serious warnings`} for it`);
+  const whole = assessment.warnings.filter((w) => w.severity === 'serious' && w.candidate === undefined).length;
   if (whole > 0) reasons.push(`the assessment raised ${whole === 1 ? 'a serious warning' : `${whole} serious warnings`} for the whole log`);
-  if (candidate.confirmation.status === 'contradicted') reasons.push('a cross-check contradicts it');
   return { candidate, difference, clearlyBetter, serious, cautions, logSerious, logCautions, reasons };
 }
 

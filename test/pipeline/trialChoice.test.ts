@@ -5,7 +5,8 @@
  * Invented numbers; the rule is the app's own, so these check its logic, not an outside value.
  */
 import { describe, expect, it } from 'vitest';
-import type { Assessment, CandidateAssessment, IntervalEstimate, PairedDifference } from '../../src/pipeline/assessment';
+import type { Assessment, CandidateAssessment, CrossCheck, IntervalEstimate, PairedDifference } from '../../src/pipeline/assessment';
+import { CROSS_CHECK_TOPIC, disagreementWarnings } from '../../src/pipeline/crossCheckWarnings';
 import { logCautionsText, TRIAL_RULE, trialAnswer, trialChoice, trialJson, warningsText, whollyBetter } from '../../src/pipeline/trialChoice';
 import { ASCII_MINUS } from '../../src/figures/parts/uncertainNumber';
 import { formatAssessment } from '../../src/cli/assessmentFormat';
@@ -125,14 +126,28 @@ describe('the answer in words, one writer for the app, the command line and the 
     expect(terminal.logCautions).toMatch(/read it in the list below before the trial\.$/);
   });
 
-  it('says none is named and why, for the best J', () => {
-    // A contradiction raises no warning of its own (the cross-checks say it), so no list is pointed to.
-    const a = assessment('reward', [candidate('A', 5, { confirmation: { status: 'contradicted', text: '' } }), candidate('B', 4)], [['A', 1, 0.5, 2], ['B', 0.5, -0.2, 1]], ['A', 'B', BASE]);
+  it('says none is named and why, for the best J: a contradiction once, as the contradiction, and its warning pointed to', () => {
+    // As the pipeline writes it (assessAssembly.ts): a disagreeing check is a serious warning of the candidate's, and the headline says "Contradicted".
+    const check = { method: 'weightedImportanceSampling', label: 'Weighted per-decision importance sampling', agreement: 'disagrees', note: 'Disagrees: it is 12 % above.' } as CrossCheck;
+    const contradicted = { confirmation: { status: 'contradicted' as const, text: 'Contradicted by weighted per-decision importance sampling' }, warnings: disagreementWarnings([check]) };
+    expect(contradicted.warnings).toEqual([{ severity: 'serious', topic: CROSS_CHECK_TOPIC, message: 'Weighted per-decision importance sampling: Disagrees: it is 12 % above.' }]);
+    const a = assessment('reward', [candidate('A', 5, contradicted), candidate('B', 4)], [['A', 1, 0.5, 2], ['B', 0.5, -0.2, 1]], ['A', 'B', BASE]);
     expect(trialAnswer(a, trialChoice(a), places)).toEqual({
       headline: 'No candidate is named for a trial.',
-      detail: 'The best J is A’s (5.00), but a cross-check contradicts it.',
+      detail: 'The best J is A’s (5.00), but a cross-check contradicts it. Read its warnings under Coverage before any trial.',
       logCautions: null,
     });
+    // Another serious warning beside it is counted apart from the contradiction's own.
+    const shift = { severity: 'serious' as const, topic: 'shift', message: 'far from the logs' };
+    const b = assessment('reward', [candidate('A', 5, { ...contradicted, warnings: [...contradicted.warnings, shift] })], [['A', 1, 0.5, 2]], ['A', BASE]);
+    expect(trialChoice(b).best?.reasons).toEqual(['a cross-check contradicts it', 'the assessment raised another serious warning for it']);
+  });
+
+  it('counts as the whole log’s only the serious warnings about no one candidate', () => {
+    const aboutB = { severity: 'serious' as const, topic: 'other', candidate: 'B', message: 'B: something' };
+    const a = assessment('cost', [candidate('A', 5), candidate('B', 6)], [['A', -3, -4, -2], ['B', -2, -3, -1]], ['A', 'B', BASE], [aboutB]);
+    expect(trialChoice(a).pick?.candidate.name).toBe('A');
+    expect(trialChoice(a).lines[1].reasons).toEqual(['the assessment raised a serious warning for it']);
   });
 
   it('points to the best J’s warnings only where some bear on it', () => {
