@@ -35,6 +35,16 @@ export function perAction(label: string, values: readonly number[], actions: rea
 }
 
 /**
+ * Where the modelled controller sits: its mean action at the mean logged state (before its limits),
+ * the number an engineer can hold against the log; the offset (the mean at the state 0, often far
+ * outside the logs) only for results saved before that was kept.
+ */
+export function centreText(model: NonNullable<Evaluation['presentController']>['model']): string {
+  if (!model.meanAtMeanState) return perAction('offset', model.offset, model.actions, model.units);
+  return `linear in the state: ${perAction('mean', model.meanAtMeanState, model.actions, model.units)} at the mean logged state, before the limits`;
+}
+
+/**
  * The actuator limits read from the log, each with how the log showed it ("actuator limits read from
  * the log: lower 0 % (repeated extreme), upper 100 % (at a declared bound)"); with several actions each named.
  */
@@ -76,7 +86,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: ${unconvergedWords(p.status)} ${p.message}`),
     ...e.policies.flatMap((p, i) => (p.network ? [networkLine(p.name, p.network, assessment?.candidates[i]?.policyValue ?? null, assessment?.settings.level)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
-    pc ? `Baseline: the present controller as modelled from the log (${perAction('offset', pc.model.offset, pc.model.actions, pc.model.units)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}; ${limitsText(pc.model)}) and evaluated like the candidates.`
+    pc ? `Baseline: the present controller as modelled from the log (${centreText(pc.model)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}; ${limitsText(pc.model)}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
     ...(truncation ? [`${truncation}${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),

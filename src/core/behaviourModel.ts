@@ -55,6 +55,16 @@ export class BehaviourModelError extends Error {
   }
 }
 
+/**
+ * The model's mean action before its limits, offset + gain·s̄, at s̄ the mean of the logged states
+ * (n×ds row-major, over the transitions): where the controller sits in the logs. The offset alone is
+ * the mean at the state 0, often far outside them (392.7 % on the heating sample, whose zone sits near 21 °C).
+ */
+export function meanActionAtMeanState(offset: readonly number[], gain: readonly (readonly number[])[], states: Float64Array, stateDim: number): number[] {
+  const mean = columnMeans(states, stateDim > 0 ? states.length / stateDim : 0, stateDim);
+  return offset.map((o, j) => gain[j].reduce((sum, g, k) => sum + g * mean[k], o));
+}
+
 /** Means (length d) of the columns of an n×d row-major matrix. */
 function columnMeans(x: Float64Array, n: number, d: number): Float64Array {
   const mean = new Float64Array(d);

@@ -95,7 +95,11 @@ export interface PresentControllerEstimate {
   /** J of the present controller's model by fitted Q-evaluation, with its fit (as for a candidate; surface omitted). */
   estimate: Omit<PolicyEstimate, 'surface'>;
   /** The fitted model in the columns' units: μ(s) = offset + gain·s, dither (std), clip limits (null for none), per action (`actions`: their columns, `units`: their units as the project declares them, `limitEvidence`: how the log showed each limit, core/loggedActionLimits.ts; each absent in results saved before it). */
-  model: { offset: number[]; gain: number[][]; std: number[]; lo: (number | null)[]; hi: (number | null)[]; actions?: string[]; units?: string[]; limitEvidence?: { lo: LimitEvidence[]; hi: LimitEvidence[] } };
+  model: {
+    offset: number[]; gain: number[][]; std: number[]; lo: (number | null)[]; hi: (number | null)[]; actions?: string[]; units?: string[]; limitEvidence?: { lo: LimitEvidence[]; hi: LimitEvidence[] };
+    /** offset + gain·s̄ at the mean logged state, before the limits (evaluateProject.ts meanActionAtMeanState); absent in results saved before it. */
+    meanAtMeanState?: number[];
+  };
   /**
    * The logged return with each run that ends on a time limit completed by γ^T·V̂(s_T), V̂ the
    * present controller's fitted value: the check on the estimate that leans least on the fit.

@@ -4,6 +4,7 @@
  * return. Numbers leave in the project's sense (a cost stays a cost). `evaluateProject` runs a
  * project start to finish for hosts that need nothing else; hosts that also assess keep the run.
  */
+import { meanActionAtMeanState } from '../core/behaviourModel';
 import { success, type Result } from '../core/result';
 import type { TransitionSet } from '../core/transitions';
 import { valueSurface } from '../core/value';
@@ -106,12 +107,14 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
       actions: [...plan.data.actionNames],
       units: plan.data.actionNames.map((name) => plan.project.columns.actions.find((c) => c.column === name)?.unit ?? ''),
       limitEvidence: { lo: [...fitted.limits.evidence.lo], hi: [...fitted.limits.evidence.hi] },
+      meanAtMeanState: meanActionAtMeanState(fitted.offset, fitted.gain, plan.data.states, plan.data.stateDim),
     },
     completedReturn: { value: plan.sign * completed.value, standardError: completed.standardError, tailShare: completed.tailShare },
   };
 }
 
 const finiteOrNull = (v: number): number | null => (Number.isFinite(v) ? v : null);
+
 
 function surfaceOf(plan: EvaluationPlan, model: CandidateModel): ValueSurface | null {
   const grid = plan.surface;

@@ -4,7 +4,7 @@
  * before with one, or for results saved without the action names.
  */
 import { describe, expect, it } from 'vitest';
-import { perAction } from '../../src/cli/formatEvaluation';
+import { centreText, perAction } from '../../src/cli/formatEvaluation';
 
 describe('the present controller’s numbers per action', () => {
   it('names each action when there are several', () => {
@@ -16,5 +16,15 @@ describe('the present controller’s numbers per action', () => {
     // each value in its action's declared unit (the screens review found the baseline line without units)
     expect(perAction('dither', [4], ['heating_valve_pct'], ['%'])).toBe('dither 4 %');
     expect(perAction('offset', [0.31, 0.69], ['hot_valve', 'cold_valve'], ['', 'm³/h'])).toBe('offset 0.31 on hot_valve, 0.69 m³/h on cold_valve');
+  });
+});
+
+describe('where the modelled present controller sits', () => {
+  const model = { offset: [392.7], gain: [[-14.4, 0.1, 0]], std: [10.07], lo: [null], hi: [100], actions: ['heating_valve_pct'], units: ['%'] };
+  it('gives its mean action at the mean logged state, not the offset at the state 0', () => {
+    expect(centreText({ ...model, meanAtMeanState: [78.4] })).toBe('linear in the state: mean 78.4 % at the mean logged state, before the limits');
+  });
+  it('reads the offset for results saved before the mean was kept', () => {
+    expect(centreText(model)).toBe('offset 392.7 %');
   });
 });

@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { inverse, Matrix, solve as mlSolve } from 'ml-matrix';
-import { BehaviourModelError, fitBehaviourModel } from '../../src/core/behaviourModel';
+import { BehaviourModelError, fitBehaviourModel, meanActionAtMeanState } from '../../src/core/behaviourModel';
 import { createGaussianPolicy } from '../../src/core/policy';
 import { createRandom } from '../../src/core/random';
 
@@ -116,5 +116,20 @@ describe('fitBehaviourModel', () => {
     expect(() => fitBehaviourModel(collinear, a, 4, 2, 1)).toThrow(/state 2 is \(almost\) a linear combination/);
     const nearly = Float64Array.from([1, 0.1, 2, 0.2, 3, 0.3 + 1e-15, 4, 0.4]);
     expect(() => fitBehaviourModel(nearly, a, 4, 2, 1)).toThrow(BehaviourModelError);
+  });
+});
+
+describe('meanActionAtMeanState', () => {
+  it('is the mean logged action for an unclipped least-squares fit: least squares with an intercept passes through the means (common practice; Greene, "Econometric Analysis", ch. 3, from memory)', () => {
+    const n = 4000, { states, actions } = simulateLog(n, 7);
+    const model = fitBehaviourModel(states, actions, n, 2, 2);
+    const centre = meanActionAtMeanState(model.offset, model.gain, states, 2);
+    for (let j = 0; j < 2; j++) {
+      let mean = 0;
+      for (let i = 0; i < n; i++) mean += actions[2 * i + j] / n;
+      expect(centre[j]).toBeCloseTo(mean, 9);
+    }
+    // The offset alone is the mean at s = 0, far from where these logs sit (a temperature near 350 K).
+    expect(Math.abs(model.offset[0] - centre[0])).toBeGreaterThan(100);
   });
 });
