@@ -15,17 +15,14 @@
  * |err4| < |err2|; the totals against (a) and (b); and which plants have no rows (not run).
  */
 import { readFileSync } from 'node:fs';
+import { rolloutTruthPlantNames } from '../test/battery/rolloutTruthPlants';
 import { detectable, disagrees, type ClassGap } from '../src/core/diagnostics/functionClassRange';
 import { CROSS_CHECK_RULE } from '../src/core/offPolicy/crossCheckVerdict';
 import { nestedClassesPoint } from '../src/core/diagnostics/nestedClassPointer';
 import { NESTED_CLASS_LABELS as LABELS } from '../src/pipeline/plan/approximatorLabel';
 
-/** Every plant bench/holdoutCliRows.ts can take the truth of (its DYNAMICS), in the order the task ran them. */
-const PLANTS = [
-  'greenhouse-clipped-g0.95', 'pendulum-saturating-g0.97', 'holdout-exchanger-g0.95', 'holdout-level-valve-g0.96', 'holdout-level-valve-gentle-g0.96',
-  'holdout-kettle-g0.98', 'holdout-neutralisation-g0.95', 'holdout-surge-drum-g0.97', 'holdout-dryer-g0.99', 'holdout-blending-tank-g0.97',
-  'holdout-header-pressure-g0.98', 'holdout-backlash-level-g0.96', 'holdout-steam-drum-g0.97', 'holdout-pipe-heater-g0.97',
-];
+/** Every plant bench/holdoutCliRows.ts can take the truth of: the one list (test/battery/rolloutTruthPlants.ts). */
+const PLANTS = rolloutTruthPlantNames();
 const RULE = { truthStandardErrors: 2, share: 0.9, perPlant: 0.5 } as const;
 
 interface Row {

@@ -19,21 +19,8 @@
 import { batteryPlants } from '../test/battery/catalogue';
 import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
 import type { BatteryPlant, StartSet } from '../test/battery/batteryPlant';
-import type { PlantDynamics } from '../test/battery/episodeLog';
 import type { LinearQuadraticBatteryPlant } from '../test/battery/linearQuadraticPlant';
 import { rolloutTruth } from '../test/battery/rolloutTruth';
-import { greenhouseDynamics, pendulumDynamics } from '../test/battery/nonlinearCatalogue';
-import { backlashLevelDynamics } from '../test/battery/holdout/backlashLevelPlant';
-import { blendingTankDynamics } from '../test/battery/holdout/blendingTankPlant';
-import { dryerDynamics } from '../test/battery/holdout/dryerPlant';
-import { exchangerDynamics } from '../test/battery/holdout/exchangerPlant';
-import { headerPressureDynamics } from '../test/battery/holdout/headerPressurePlant';
-import { kettleDynamics } from '../test/battery/holdout/kettlePlant';
-import { levelValveDynamics } from '../test/battery/holdout/levelValvePlant';
-import { neutralisationDynamics } from '../test/battery/holdout/neutralisationPlant';
-import { pipeHeaterDynamics } from '../test/battery/holdout/pipeHeaterPlant';
-import { steamDrumDynamics } from '../test/battery/holdout/steamDrumPlant';
-import { surgeDrumDynamics } from '../test/battery/holdout/surgeDrumPlant';
 import { plantProject } from '../test/support/plantProject';
 import { evaluateProject } from '../src/pipeline/evaluateProject';
 import { assessRun } from '../src/pipeline/assessProject';
@@ -42,15 +29,6 @@ import type { ProjectRun } from '../src/pipeline/projectRun';
 import { closedFormPolicyCost, lqClosedForm, rewardFromCost } from '../src/core/lq';
 import { createGaussianPolicy, type GaussianPolicySpec } from '../src/core/policy';
 
-/** The plants whose dynamics this bench can roll out at any discount (the definitions' own). */
-const DYNAMICS: Record<string, PlantDynamics> = {
-  'greenhouse-clipped-g0.95': greenhouseDynamics, 'pendulum-saturating-g0.97': pendulumDynamics,
-  'holdout-level-valve-g0.96': levelValveDynamics, 'holdout-level-valve-gentle-g0.96': levelValveDynamics,
-  'holdout-exchanger-g0.95': exchangerDynamics, 'holdout-dryer-g0.99': dryerDynamics, 'holdout-neutralisation-g0.95': neutralisationDynamics,
-  'holdout-kettle-g0.98': kettleDynamics, 'holdout-surge-drum-g0.97': surgeDrumDynamics, 'holdout-blending-tank-g0.97': blendingTankDynamics,
-  'holdout-pipe-heater-g0.97': pipeHeaterDynamics, 'holdout-steam-drum-g0.97': steamDrumDynamics,
-  'holdout-backlash-level-g0.96': backlashLevelDynamics, 'holdout-header-pressure-g0.98': headerPressureDynamics,
-};
 /** A crossed point nearer its truth than this is a false alarm by the rule written before measuring. */
 const NEAR = 0.03;
 /** A point farther than this from its truth should be crossed (a "hit" when it is, a "miss" when not). */
@@ -72,7 +50,9 @@ function truthAt(plant: BatteryPlant, spec: GaussianPolicySpec, g: number, start
     const lq = (plant as LinearQuadraticBatteryPlant).lq;
     return { value: rewardFromCost(closedFormPolicyCost(lqClosedForm(lq.plant, lq.operatingPoint, createGaussianPolicy(spec, plant.stateDim), g), starts.states, starts.count)), se: 0 };
   }
-  const t = rolloutTruth(DYNAMICS[plant.name], spec, g, starts, { rolloutsPerStart: rollouts, seed: ROLLOUT_SEED });
+  // The plant's own dynamics (BatteryPlant.dynamics), rolled out at any discount.
+  if (!plant.dynamics) throw new Error(`${plant.name}: no dynamics to roll out, so no truth at another discount`);
+  const t = rolloutTruth(plant.dynamics, spec, g, starts, { rolloutsPerStart: rollouts, seed: ROLLOUT_SEED });
   return { value: t.value, se: t.standardError };
 }
 

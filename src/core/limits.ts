@@ -200,3 +200,17 @@ export const SWEEP_CHECK_RESAMPLES = 200;
 export const SWEEP_CHECK_MIN_PAIRED = 100;
 /** Largest (e·d² + discounts·d³)·resamples for which the sweep's check runs (about a second of one core; ours). */
 export const SWEEP_CHECK_BUDGET = 2e9;
+
+/**
+ * Two J of a sweep are tied, and rank neither above the other, when they differ by at most this share
+ * of the larger magnitude (pipeline/sweepRanking.ts). The ranking's words name no J, only which
+ * policy "ranks above" which, so the rule is about the numbers themselves, not how a figure prints
+ * them: two J of the same value reached by sums in another order lie a few units in the last place
+ * apart (0.1 + 0.2 against 0.3: a relative 1.9e−16), and a sort that put one of them first named a
+ * turn that was rounding. Ours: 1e−9 lies well above the rounding of float64 sums (recursive summation
+ * errs by at most about n·2^−53 of Σ|xᵢ|, Higham, "Accuracy and Stability of Numerical Algorithms",
+ * 2nd ed., §4.2, quoted from memory: 1.1e−11 for 100,000 rows) and far below the sampling error of any J the app reports.
+ * A rule at the figure's 4 significant digits would call a real 0.04 % gap a tie, and is not
+ * consistent (1.2344 and 1.2346 print apart, 1.2346 and 1.2354, four times as far apart, alike).
+ */
+export const RANKING_TIE_RELATIVE = 1e-9;

@@ -247,7 +247,8 @@ function withNetworkNestedPointer(a: FunctionClassAssessment, networkConverged: 
   const known = (c: (typeof a.classes)[number]) => (c.standardError === null || c.standardError === undefined ? null : { label: c.label, value: c.value, standardError: c.standardError });
   const network = known(own), others = linear.map(known);
   if (!network || others.some((c) => c === null)) return a;
-  const gaps = [...a.pairs, ...others.map((c) => unpairedGap(network, c!))];
+  // Without the linear pairs (a verdict saved before they were kept) degree 2 is compared with nothing, and the pointer holds on none.
+  const gaps = [...(a.pairs ?? []), ...others.map((c) => unpairedGap(network, c!))];
   const sentence = networkNestedClassSentence({ settled: false, gaps }, { network: network.label, ...NESTED_CLASS_LABELS });
   return sentence ? { ...a, reason: `${a.reason} ${sentence}` } : a;
 }

@@ -126,8 +126,13 @@ export interface FunctionClassAssessment {
   /** What the range covers, and why settled or not, in words. */
   coverage: string;
   reason: string;
-  /** Every pair of classes the rule compared, differences in the project's sense (empty for one class; a network's own value is in none). */
-  pairs: ClassGap[];
+  /**
+   * Every pair of classes the rule compared, differences in the project's sense (empty for one class; a network's own
+   * value is in none). Absent in results saved before the pairs were kept: a reopened project's verdict is shown from
+   * its saved reason, which the pairs never reword, so nothing is lost; an empty list would claim no pair was compared.
+   * Kept as JSON, a standard error of Infinity (J of 0) reads back null.
+   */
+  pairs?: ClassGap[];
 }
 
 export interface CandidateAssessment {

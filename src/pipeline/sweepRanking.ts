@@ -2,11 +2,13 @@
  * Whether a sweep's ranking by J holds over its settings, the settings where some J is crossed
  * (SensitivitySeries.beyondPossible, assessSweepCheck.ts) left out — the project's own setting too:
  * a ranking read against a J that cannot be right would vouch for nothing. The verdict compares the
- * settings kept with each other, pair by pair among the J that exist (a missing J is not a change);
- * with fewer than two kept there is nothing to compare, and
+ * settings kept with each other, pair by pair among the J that exist (a missing J is not a change, nor
+ * is a pair tied at either setting: core/limits.ts RANKING_TIE_RELATIVE); with fewer than two kept there
+ * is nothing to compare, and
  * figures/charts/sensitivity.ts rankingVerdict says so.
  */
 import type { RankingChange, SensitivityCurve, SensitivitySeries } from './assessment';
+import { RANKING_TIE_RELATIVE } from '../core/limits';
 
 /**
  * projectIndex: the project's own setting, against whose order the changes are named (rankingChanges);
@@ -15,13 +17,14 @@ import type { RankingChange, SensitivityCurve, SensitivitySeries } from './asses
 export function sweepRanking(
   settings: readonly number[], series: readonly SensitivitySeries[], sign: number, projectIndex = 0,
 ): Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'rankingChanges'> {
-  const orderAt = (i: number) => series.filter((s) => s.values[i] !== null).sort((x, y) => sign * ((y.values[i] as number) - (x.values[i] as number))).map((s) => s.name);
+  const orderAt = (i: number) => series.filter((s) => s.values[i] !== null).sort((x, y) => sign * ((y.values[i] as number) - (x.values[i] as number)));
   const leftOut = settings.flatMap((_, i) => (series.some((s) => s.beyondPossible?.[i]) ? [i] : []));
   const kept = settings.flatMap((_, i) => (leftOut.includes(i) ? [] : [i]));
   // Stable when no two policies stand the other way round at two kept settings, among the J each has: a fit with no value
   // at one setting (its status says why) leaves a gap in the line, not a change of ranking.
   const orders = new Map(kept.map((i) => [i, orderAt(i)]));
-  const rankingStable = kept.every((i) => kept.every((j) => j <= i || swappedPairs(orders.get(i)!, orders.get(j)!).length === 0));
+  const swapped = (i: number, j: number) => swappedPairs(orders.get(i)!, i, j, sign);
+  const rankingStable = kept.every((i) => kept.every((j) => j <= i || swapped(i, j).length === 0));
   const reference = kept.includes(projectIndex) ? projectIndex : kept[0];
   // The pairs of two candidates first, those with the logged return's reference line after: the words name the first
   // few and count the rest, and on the heating-loop sample the one pair of candidates a degree-1 fit turns round was
@@ -29,15 +32,28 @@ export function sweepRanking(
   const isReference = new Set(series.filter((s) => s.reference).map((s) => s.name));
   const withReference = ([a, b]: [string, string]) => (isReference.has(a) || isReference.has(b) ? 1 : 0);
   const rankingChanges = rankingStable || reference === undefined ? [] : kept.flatMap((i) => {
-    const swapped = swappedPairs(orders.get(reference)!, orders.get(i)!).sort((x, y) => withReference(x) - withReference(y));
-    return swapped.length ? [{ at: i, swapped }] : [];
+    const pairs = swapped(i, reference).sort((x, y) => withReference(x) - withReference(y));
+    return pairs.length ? [{ at: i, swapped: pairs }] : [];
   });
   return { rankingStable, ...(leftOut.length ? { leftOut } : {}), ...(rankingChanges.length ? { rankingChanges } : {}) };
 }
 
-/** The pairs [ahead, behind] as ranked in `order` whose two stand the other way round in `reference` (both ranked in each). */
-function swappedPairs(reference: readonly string[], order: readonly string[]): RankingChange['swapped'] {
-  const place = new Map(reference.map((name, i) => [name, i]));
-  const ranked = order.filter((name) => place.has(name));
-  return ranked.flatMap((ahead, i) => ranked.slice(i + 1).flatMap((behind): [string, string][] => (place.get(ahead)! > place.get(behind)! ? [[ahead, behind]] : [])));
+/**
+ * The pairs [ahead, behind] as ranked in `order` (the series with a J at `at`, best first) whose two stand
+ * the other way round at `reference`; a pair tied at either setting, or without a J at the reference, is no turn.
+ */
+function swappedPairs(order: readonly SensitivitySeries[], at: number, reference: number, sign: number): RankingChange['swapped'] {
+  return order.flatMap((ahead, k) => order.slice(k + 1).flatMap((behind): [string, string][] => (
+    standing(ahead, behind, at, sign) > 0 && standing(ahead, behind, reference, sign) < 0 ? [[ahead.name, behind.name]] : [])));
+}
+
+/**
+ * +1 where `a` ranks above `b` at setting i, −1 below, 0 where either has no J or the two are tied: within
+ * RANKING_TIE_RELATIVE of the larger magnitude (core/limits.ts says why), so that a pair equal at one setting
+ * up to rounding reads as neither order there, and a sort that put one of two equal J first turns nothing round.
+ */
+function standing(a: SensitivitySeries, b: SensitivitySeries, i: number, sign: number): number {
+  const x = a.values[i], y = b.values[i];
+  if (x === null || y === null || Math.abs(x - y) <= RANKING_TIE_RELATIVE * Math.max(Math.abs(x), Math.abs(y))) return 0;
+  return Math.sign(sign * (x - y));
 }

@@ -9,6 +9,7 @@
  */
 import type { GaussianPolicySpec } from '../../src/core/policy';
 import type { TransitionSet } from '../../src/core/transitions';
+import type { PlantDynamics } from './episodeLog';
 
 export interface SimulationOptions {
   /** Total transitions; rounded up to whole episodes. */
@@ -73,6 +74,11 @@ export interface BatteryPlant {
    * rollouts as the truth (plants whose truth comes from rollouts); for state-by-state diagnosis.
    */
   rolloutStateValues?(candidate: string, states: Float64Array, count: number): Float64Array;
+  /**
+   * The plant's own dynamics, where its truth comes from rollouts: the route a bench takes to the truth
+   * over start states or a discount of its own (a log's run starts, a swept γ′; rolloutTruth.ts).
+   */
+  readonly dynamics?: PlantDynamics;
 }
 
 /** What every plant definition states about itself (the kind-specific parts are added by each maker). */

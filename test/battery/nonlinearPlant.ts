@@ -32,7 +32,7 @@ export function nonlinearBatteryPlant(def: NonlinearDefinition): BatteryPlant {
   const plant: BatteryPlant = {
     name: def.name, description: def.description, kind: 'nonlinear',
     stateDim: def.dynamics.stateDim, actionDim: def.dynamics.actionDim, stateNames: def.stateNames, actionNames: def.actionNames,
-    discount: def.discount, stepsPerEpisode: def.stepsPerEpisode, behaviour: def.behaviour, candidates: def.candidates,
+    discount: def.discount, stepsPerEpisode: def.stepsPerEpisode, behaviour: def.behaviour, candidates: def.candidates, dynamics: def.dynamics,
     simulate: (o) => {
       const steps = o.stepsPerEpisode ?? def.stepsPerEpisode;
       return logEpisodes(def.dynamics, behaviour, runStartSampler(sampler, def.operatingState, o.runStarts), {

@@ -54,7 +54,7 @@ describe('the network nested-class sentence in a network project\'s class reason
   it('is the same in a cost project (values flipped)', () => {
     const flip = (a: FunctionClassAssessment): FunctionClassAssessment => ({
       ...a, classes: a.classes.map((c) => ({ ...c, value: -c.value, interval: [-c.interval![1], -c.interval![0]] as [number, number] })),
-      pairs: a.pairs.map((g) => ({ ...g, difference: -g.difference })), range: [-a.range[1], -a.range[0]],
+      pairs: a.pairs!.map((g) => ({ ...g, difference: -g.difference })), range: [-a.range[1], -a.range[0]],
     });
     const reward = withUnresampledOwn(linearClasses(90, 100.5, 99.8), network(), 1)!.reason;
     expect(withUnresampledOwn(flip(linearClasses(90, 100.5, 99.8)), network(), -1)!.reason).toBe(reward);
@@ -72,9 +72,18 @@ describe('the network nested-class sentence in a network project\'s class reason
     expect(v.reason).not.toContain('two richer polynomial classes');
   });
 
+  it('is not said, and nothing fails, where the verdict has no pairs (results saved before they were kept)', () => {
+    // Before pairs was optional the network's pointer spread `a.pairs` and threw "a.pairs is not iterable" here.
+    const { pairs: _dropped, ...old } = linearClasses(90, 100.5, 99.8);
+    const saved: FunctionClassAssessment = old;
+    const v = withUnresampledOwn(saved, network(), 1)!;
+    expect(v.settled).toBe(false);
+    expect(v.reason).not.toContain('most likely lies');
+  });
+
   it('is not said where degree 4 was not fitted', () => {
     const two = linearClasses(90, 100.5, 99.8);
-    const v = withUnresampledOwn({ ...two, classes: two.classes.slice(0, 2), pairs: two.pairs.slice(0, 1) }, network(), 1)!;
+    const v = withUnresampledOwn({ ...two, classes: two.classes.slice(0, 2), pairs: two.pairs!.slice(0, 1) }, network(), 1)!;
     expect(v.reason).not.toContain('two richer polynomial classes');
   });
 });

@@ -124,3 +124,39 @@ describe('a setting where a fit gave no value', () => {
     expect(sweepRanking(settings, turned, -1, 2).rankingStable).toBe(false);
   });
 });
+
+describe('two J equal at a setting (core/limits.ts RANKING_TIE_RELATIVE)', () => {
+  // The degree sweep of the named-changes test above, with "Tuned" and "Trimmed" equal at the project's degree 2.
+  const degrees = [1, 2, 3];
+  const words = (ranking: ReturnType<typeof sweepRanking>) => rankingVerdict({ ...ranking, settings: degrees, parameter: 'polynomialDegree', projectIndex: 1 });
+
+  it('names no turn where the two are exactly equal at the project’s setting', () => {
+    const series = [serie('Tuned', [6.66, 7, 8.38]), serie('Trimmed', [6.46, 7, 8.2])];
+    const ranking = sweepRanking(degrees, series, -1, 1);
+    expect(ranking).toEqual({ rankingStable: true });
+    expect(words(ranking)).toBe('the ranking is the same at every setting');
+  });
+
+  it('names no turn where they differ only by rounding (0.1 + 0.2 against 0.3, 7.000000000000001 against 7)', () => {
+    // 0.1 + 0.2 = 0.30000000000000004 in binary64 (IEEE 754): one unit in the last place from 0.3, a relative 1.9e−16.
+    const sum = [serie('Tuned', [6.66, 0.1 + 0.2, 8.38]), serie('Trimmed', [6.46, 0.3, 8.2])];
+    expect(sweepRanking(degrees, sum, -1, 1)).toEqual({ rankingStable: true });
+    // Before the rule, Trimmed (7) stood ahead of Tuned (7.000000000000001) at 2 and behind it nowhere else: a turn was
+    // named at 1 and 3 only because the sort put one of two equal values first.
+    const ulp = [serie('Tuned', [6.46, 7.000000000000001, 8.2]), serie('Trimmed', [6.66, 7, 8.38])];
+    const ranking = sweepRanking(degrees, ulp, -1, 1);
+    expect(ranking).toEqual({ rankingStable: true });
+    expect(words(ranking)).toBe('the ranking is the same at every setting');
+    // The same at a non-project setting: a tie at 3 is no turn against the project's order either.
+    expect(sweepRanking(degrees, [serie('Tuned', [6.66, 8.36, 9.000000000000002]), serie('Trimmed', [6.46, 9.13, 9])], -1, 1).rankingChanges)
+      .toEqual([{ at: 0, swapped: [['Trimmed', 'Tuned']] }]);
+  });
+
+  it('still names a real turn, one just above the rule', () => {
+    // A relative 1e−7 gap, a hundred times the rule: Tuned is the cheaper at 2, Trimmed at 1 and 3.
+    const series = [serie('Tuned', [6.66, 7, 8.38]), serie('Trimmed', [6.46, 7 * (1 + 1e-7), 8.2])];
+    const ranking = sweepRanking(degrees, series, -1, 1);
+    expect(ranking.rankingChanges).toEqual([{ at: 0, swapped: [['Trimmed', 'Tuned']] }, { at: 2, swapped: [['Trimmed', 'Tuned']] }]);
+    expect(words(ranking)).toBe('the ranking changes within this range: at 1, “Trimmed” ranks above “Tuned”; at 3, “Trimmed” ranks above “Tuned”; each the other way round at the project’s 2');
+  });
+});

@@ -66,7 +66,8 @@ function listText(items: readonly string[]): string {
 /**
  * Where the ranking differs from the project's setting, in words: "at 1, “B” ranks above “A” and “C”,
  * and “A” above “C”; each the other way round at the project’s 2"; empty when the curve has no changes
- * (stable, or saved before they were kept). The pairs at a setting are grouped by the one ranked above;
+ * (stable, or saved before they were kept). A pair tied at either setting is never among them, so "ranks
+ * above" is true of the two J (pipeline/sweepRanking.ts). The pairs at a setting are grouped by the one ranked above;
  * where the project's own setting is left out, the first setting kept is named (pipeline/sweepRanking.ts).
  */
 function changesText(curve: Pick<SensitivityCurve, 'rankingChanges' | 'settings' | 'parameter' | 'projectIndex' | 'leftOut'>): string {

@@ -11,6 +11,10 @@ import { newProjectDocument } from '../../../src/renderer/src/document/newProjec
 import { runKey } from '../../../src/shared/runKey';
 import { rankingVerdict } from '../../../src/figures/charts/sensitivity';
 import { trialAnswer, trialChoice } from '../../../src/pipeline/trialChoice';
+import type { FunctionClassAssessment } from '../../../src/pipeline/assessment';
+import { CrossChecksPanel } from '../../../src/renderer/src/screens/findings/CrossChecksPanel';
+import { renderFindings } from '../../support/renderFindings';
+import { createElement } from 'react';
 
 const evaluation = {
   project: 'p', evaluatedAt: '2026-11-01T00:00:00.000Z', valueSense: 'cost', behaviour: { value: 3, standardError: 0.1, episodes: 10, largestTruncationWeight: 0, meanTruncationWeight: 0 },
@@ -43,6 +47,32 @@ describe('results saved by an earlier version', () => {
     expect(a).not.toBeNull();
     expect(rankingVerdict(a.sensitivity!.curves[0])).toBe('the ranking changes within this range'); // the words before this version, no pairs to name
     expect(trialAnswer(a, trialChoice(a), { cautions: 'above', warnings: 'under Coverage' })?.headline).toBe('No candidate is named for a trial.');
+  });
+
+  it('reopens a class verdict saved without its pairs and shows it with no pointer sentence', () => {
+    // As the app wrote it before b03f1f9: degrees 2, 3 and 4, not settled, its reason without the nested-class sentence.
+    const k = (label: string, value: number) => ({ label, value, interval: [value - 1, value + 1] as [number, number], standardError: 0.6 });
+    const classes: FunctionClassAssessment = {
+      classes: [k('polynomial, degree 2', 90), k('polynomial, degree 3', 100.5), k('polynomial, degree 4', 99.8)], settled: false, range: [89, 101.5],
+      coverage: 'Covers the sampling of runs and the spread between function classes.', reason: 'Not settled: polynomial, degree 2 and polynomial, degree 3 differ by 10 % of J.',
+    };
+    const candidate = {
+      name: 'A', policyValue: { value: 90, standardError: 0.6, percentile: [89, 91], basic: null, replicates: 100, failedReplicates: 0 }, reportedRange: [89, 101.5], settled: false,
+      functionClasses: classes, confirmation: { status: 'unconfirmed', text: 'No cross-check could confirm it.' }, crossChecks: [], warnings: [], diagnostics: { occupancyShift: 1.1 },
+    };
+    const doc = newProjectDocument(), key = runKey(doc, 'data-a');
+    const results = { ...resultsOf({ evaluation: evaluationFromJson(evaluation)!, assessment: null, retuneMaps: null }, key, new Date()) };
+    const assessment = { settings: { level: 0.9, resamples: 100 }, valueSense: 'cost', warnings: [], presentController: null, comparison: {}, candidates: [candidate] };
+    const session = createSessionStore();
+    expect(restoreResults({ ...doc, results: JSON.parse(JSON.stringify({ ...results, assessment })) }, 'data-a', session)).toBe(true);
+    const restored = session.get().assessment;
+    expect(restored.status).toBe('done');
+    if (restored.status !== 'done') return;
+    expect(restored.assessment.candidates[0].functionClasses?.pairs).toBeUndefined();
+    const html = renderFindings(createElement(CrossChecksPanel, { assessment: restored.assessment }), ['crossChecks']);
+    const reason = /data-testid="classes-reason-A">([^<]*)</.exec(html)![1];
+    expect(reason).toMatch(/degree 2 and polynomial, degree 3 differ by 10/);
+    expect(html).not.toMatch(/most likely lies|richer classes/);
   });
 });
 

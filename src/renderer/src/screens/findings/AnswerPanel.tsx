@@ -102,9 +102,10 @@ export function AnswerPanel({ evaluation, assessment }: { evaluation: Evaluation
       <p className="small muted">{sense}{assessment ? ` Baseline: ${displayName(assessment.comparison.baseline.name)}; “minus baseline” and “better in” come from the same ${assessment.settings.resamples.toLocaleString('en-US')} paired resamples of the logged runs.` : ''}</p>
       {assessment && <p className="small muted" data-testid="answer-rule">{TRIAL_RULE}</p>}
       {assessment && (
-        <p className="small answer-more">
+        <p className="small answer-more" data-testid="answer-more">
           Read more: <JumpLink section="comparison">paired comparison</JumpLink> · <JumpLink section="crossChecks">cross-checks</JumpLink> · <JumpLink section="coverage">coverage and warnings</JumpLink>
-          {assessment.sensitivity && <> · <JumpLink section="sensitivity">sensitivity</JumpLink> ({sweepsVerdict(assessment.sensitivity.curves)})</>}
+          {/* After a dash, not in parentheses: the verdict has its own where some J are crossed, and "(… (…))" read badly. */}
+          {assessment.sensitivity && <> · <JumpLink section="sensitivity">sensitivity</JumpLink> — {sweepsVerdict(assessment.sensitivity.curves)}</>}
         </p>
       )}
     </FoldPanel>
