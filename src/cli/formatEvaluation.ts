@@ -35,13 +35,16 @@ export function perAction(label: string, values: readonly number[], actions: rea
 }
 
 /**
- * Where the modelled controller sits: its mean action at the mean logged state (before its limits),
- * the number an engineer can hold against the log; the offset (the mean at the state 0, often far
- * outside the logs) only for results saved before that was kept.
+ * Where the modelled controller sits: its mean action at the mean logged state, the number an engineer
+ * can hold against the log; the offset (the mean at the state 0, often far outside the logs) only for
+ * results saved before that was kept. "Before the limits" only where the log shows a limit: there the
+ * censored fit's mean is that of the unclipped law (it may lie past a limit), and without one the words
+ * would name a clip the model does not have (the tank sample read "before the limits; … limits: none seen").
  */
 export function centreText(model: NonNullable<Evaluation['presentController']>['model']): string {
   if (!model.meanAtMeanState) return perAction('offset', model.offset, model.actions, model.units);
-  return `linear in the state: ${perAction('mean', model.meanAtMeanState, model.actions, model.units)} at the mean logged state, before the limits`;
+  const limited = [...model.lo, ...model.hi].some((limit) => limit !== null);
+  return `linear in the state: ${perAction('mean', model.meanAtMeanState, model.actions, model.units)} at the mean logged state${limited ? ', before the limits' : ''}`;
 }
 
 /**

@@ -97,7 +97,7 @@ export interface PresentControllerEstimate {
   /** The fitted model in the columns' units: μ(s) = offset + gain·s, dither (std), clip limits (null for none), per action (`actions`: their columns, `units`: their units as the project declares them, `limitEvidence`: how the log showed each limit, core/loggedActionLimits.ts; each absent in results saved before it). */
   model: {
     offset: number[]; gain: number[][]; std: number[]; lo: (number | null)[]; hi: (number | null)[]; actions?: string[]; units?: string[]; limitEvidence?: { lo: LimitEvidence[]; hi: LimitEvidence[] };
-    /** offset + gain·s̄ at the mean logged state, before the limits (evaluateProject.ts meanActionAtMeanState); absent in results saved before it. */
+    /** offset + gain·s̄ at the mean logged state, before the limits: with limits, the unclipped law's mean, which may lie past one (core/behaviourModel.ts meanActionAtMeanState); absent in results saved before it. */
     meanAtMeanState?: number[];
   };
   /**

@@ -115,7 +115,6 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
 
 const finiteOrNull = (v: number): number | null => (Number.isFinite(v) ? v : null);
 
-
 function surfaceOf(plan: EvaluationPlan, model: CandidateModel): ValueSurface | null {
   const grid = plan.surface;
   if (!grid) return null;

@@ -8,7 +8,7 @@
  * "25" with "% per °C" on the next; the command line writes it as a plain space (cli/terminal.ts).
  */
 import type { CandidateSpec, ColumnRoles } from './schema';
-import { exponentText, NO_BREAK_SPACE, TRUE_MINUS } from '../core/exponentText';
+import { exponentText, NO_BREAK_SPACE, TRUE_MINUS, type Minus } from '../core/exponentText';
 
 export interface CandidateSummary {
   /** One line per action: how its mean depends on the states. */
@@ -24,16 +24,22 @@ type Feedback = {
   integralTimeSeconds?: number; integralGain?: number; integralState?: string;
 };
 
-const num = (v: number): string => {
+/** A number's sign in `minus`: typeset text's U+2212, the terminal's hyphen-minus (core/exponentText.ts). */
+const numberWith = (minus: Minus) => (v: number): string => {
   if (!Number.isFinite(v)) return String(v);
   const a = Math.abs(v);
-  return a !== 0 && (a >= 1e6 || a < 1e-3) ? exponentText(v, 3, TRUE_MINUS, true) : Number(v.toPrecision(5)).toString().replace('-', TRUE_MINUS);
+  return a !== 0 && (a >= 1e6 || a < 1e-3) ? exponentText(v, 3, minus, true) : Number(v.toPrecision(5)).toString().replace('-', minus);
 };
 
-/** "25 % per °C": the number held to its unit (a bare number where there is none). */
-const withUnit = (v: number, unit: string): string => (unit ? `${num(v)}${NO_BREAK_SPACE}${unit}` : num(v));
-
-export function summariseCandidate(c: CandidateSpec, columns: ColumnRoles): CandidateSummary {
+/**
+ * minus: the sign of each number, U+2212 for the app and the report, ASCII for the command line, where
+ * every other number is ASCII and a user searches for "-10" as typed. The "−" between a setpoint and
+ * its measurement is an operator between names, not a number's sign, and stays as written.
+ */
+export function summariseCandidate(c: CandidateSpec, columns: ColumnRoles, minus: Minus = TRUE_MINUS): CandidateSummary {
+  const num = numberWith(minus);
+  /** "25 % per °C": the number held to its unit (a bare number where there is none). */
+  const withUnit = (v: number, unit: string): string => (unit ? `${num(v)}${NO_BREAK_SPACE}${unit}` : num(v));
   const unitOf = (name: string): string => columns.states.find((s) => s.column === name)?.unit ?? '';
   const actionUnit = (j: number): string => columns.actions[j]?.unit ?? '';
   const per = (j: number, state: string): string => `${actionUnit(j) || 'unit'} per ${unitOf(state) || 'unit'}`;
@@ -62,14 +68,17 @@ export function summariseCandidate(c: CandidateSpec, columns: ColumnRoles): Cand
     });
   }
   const dither = `dither ${c.dither.map((d, j) => withUnit(d, actionUnit(j))).join(', ')} (standard deviation)`;
-  return { mean, dither, limits: limitsText(c, actionUnit, actionName) };
+  return { mean, dither, limits: limitsText(c, actionUnit, actionName, num, withUnit, minus) };
 }
 
-function limitsText(c: CandidateSpec, actionUnit: (j: number) => string, actionName: (j: number) => string): string {
+function limitsText(
+  c: CandidateSpec, actionUnit: (j: number) => string, actionName: (j: number) => string,
+  num: (v: number) => string, withUnit: (v: number, unit: string) => string, minus: Minus,
+): string {
   const parts: string[] = [];
   if (c.bounds) {
     const b = c.bounds;
-    const range = b.lo.map((lo, j) => `${lo === null ? '−∞' : num(lo)} … ${b.hi[j] === null || b.hi[j] === undefined ? '∞' : num(b.hi[j]!)}${actionUnit(j) ? `${NO_BREAK_SPACE}${actionUnit(j)}` : ''}`);
+    const range = b.lo.map((lo, j) => `${lo === null ? `${minus}∞` : num(lo)} … ${b.hi[j] === null || b.hi[j] === undefined ? '∞' : num(b.hi[j]!)}${actionUnit(j) ? `${NO_BREAK_SPACE}${actionUnit(j)}` : ''}`);
     parts.push(`${b.mode === 'clip' ? 'clipped' : 'truncated'} to ${range.join('; ')}`);
   }
   c.rateLimit?.maxStep.forEach((step, j) => {

@@ -24,6 +24,10 @@ describe('where the modelled present controller sits', () => {
   it('gives its mean action at the mean logged state, not the offset at the state 0', () => {
     expect(centreText({ ...model, meanAtMeanState: [78.4] })).toBe('linear in the state: mean 78.4 % at the mean logged state, before the limits');
   });
+  it('says “before the limits” only where the log shows a limit (the tank sample, with none, read “before the limits; … none seen”)', () => {
+    expect(centreText({ ...model, hi: [null], meanAtMeanState: [45] })).toBe('linear in the state: mean 45 % at the mean logged state');
+    expect(centreText({ ...model, lo: [0], hi: [null], meanAtMeanState: [45] })).toBe('linear in the state: mean 45 % at the mean logged state, before the limits');
+  });
   it('reads the offset for results saved before the mean was kept', () => {
     expect(centreText(model)).toBe('offset 392.7 %');
   });

@@ -189,10 +189,12 @@ describe('candidate forms in the editor (e2e)', () => {
     }
     expect(await limits.isChecked()).toBe(false);
     // A box that never keeps one place between two animation frames, whatever the frame rate or the machine's
-    // load (Playwright's "stable" compares the box at frames at least 15 ms apart, playwright-core 1.65
-    // _checkElementIsStable): the page moves it a quarter pixel on every frame, by a count of frames and not by
-    // the clock, so no two frames see one place (a sawtooth of 64 frames: a repeat would need over 60 frames inside
-    // 15 ms), yet it stays on top where a person would click. Its click event ticks it, and the fallback is counted.
+    // load: the page moves it a quarter pixel on every frame, by a count of frames and not by the clock, yet it
+    // stays on top where a person would click. Playwright's "stable" (playwright-core 1.65 _checkElementIsStable)
+    // reads the box in its own animation-frame callbacks; Chromium's rafCountForStablePosition is 1, so it
+    // compares two successive frames (the 15 ms spacing applies only to a count above 1), and each frame runs
+    // this page's move once between two of its reads: no read repeats the one before (a sawtooth of 64 frames;
+    // with the spacing a repeat would need 64 frames inside 15 ms). Its click event ticks it, and the fallback is counted.
     // (A clock-driven back-and-forth animation was used before: two samples either side of its turn can read one
     // place, and on a loaded CI run the ordinary check then passed and nothing was counted.)
     await limits.evaluate((box) => {

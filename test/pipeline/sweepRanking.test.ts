@@ -160,3 +160,14 @@ describe('two J equal at a setting (core/limits.ts RANKING_TIE_RELATIVE)', () =>
     expect(words(ranking)).toBe('the ranking changes within this range: at 1, “Trimmed” ranks above “Tuned”; at 3, “Trimmed” ranks above “Tuned”; each the other way round at the project’s 2');
   });
 });
+
+describe('a tie at the project’s setting between two that turn round elsewhere', () => {
+  it('still reads as a change: the tie names no pair against the project’s order, but the two settings either side differ', () => {
+    // Cost sense. "Tuned" and "Trimmed" are equal at the project's degree 2; Trimmed is the cheaper at 1, Tuned at 3.
+    const degrees = [1, 2, 3];
+    const ranking = sweepRanking(degrees, [serie('Tuned', [6.66, 7, 8.2]), serie('Trimmed', [6.46, 7, 8.38])], -1, 1);
+    expect(ranking.rankingStable).toBe(false);
+    expect(ranking.rankingChanges).toBeUndefined();
+    expect(rankingVerdict({ ...ranking, settings: degrees, parameter: 'polynomialDegree', projectIndex: 1 })).toBe('the ranking changes within this range');
+  });
+});
