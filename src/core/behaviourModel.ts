@@ -39,6 +39,8 @@ export interface BehaviourModel extends Required<Pick<GaussianPolicySpec, 'offse
   gainStandardError: number[][]; // m×ds
   /** Transitions used, n. */
   count: number;
+  /** s̄, the mean of the logged states over those transitions (ds): where the controller sits in the logs (meanActionAtMeanState). */
+  stateMean: number[];
   /** n − ds − 1: the divisor of the residual covariance. */
   degreesOfFreedom: number;
   /**
@@ -56,13 +58,14 @@ export class BehaviourModelError extends Error {
 }
 
 /**
- * The model's mean action before its limits, offset + gain·s̄, at s̄ the mean of the logged states
- * (n×ds row-major, over the transitions): where the controller sits in the logs. The offset alone is
- * the mean at the state 0, often far outside them (392.7 % on the heating sample, whose zone sits near 21 °C).
+ * The model's mean action before its limits, offset + gain·s̄ at s̄ the mean logged state: where the
+ * controller sits in the logs (without limits, the mean logged action: least squares with an
+ * intercept passes through the means; with them, the censored fit's own intercept on s − s̄, which
+ * may lie past a limit). The offset alone is the mean at the state 0, often far outside the logs
+ * (392.7 % on the heating sample, whose zone sits near 21 °C).
  */
-export function meanActionAtMeanState(offset: readonly number[], gain: readonly (readonly number[])[], states: Float64Array, stateDim: number): number[] {
-  const mean = columnMeans(states, stateDim > 0 ? states.length / stateDim : 0, stateDim);
-  return offset.map((o, j) => gain[j].reduce((sum, g, k) => sum + g * mean[k], o));
+export function meanActionAtMeanState(model: Pick<BehaviourModel, 'offset' | 'gain' | 'stateMean'>): number[] {
+  return model.offset.map((o, j) => model.gain[j].reduce((sum, g, k) => sum + g * model.stateMean[k], o));
 }
 
 /** Means (length d) of the columns of an n×d row-major matrix. */
@@ -262,6 +265,7 @@ function assembleModel(f: FittedParts): Omit<BehaviourModel, 'limits'> {
     offsetStandardError: variance.map((v) => Math.sqrt(v * interceptFactor)),
     gainStandardError: variance.map((v) => inverseDiagonal.map((d) => Math.sqrt(v * d))),
     count: f.n,
+    stateMean: Array.from(f.sMean),
     degreesOfFreedom: f.dof,
   };
 }

@@ -107,7 +107,7 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
       actions: [...plan.data.actionNames],
       units: plan.data.actionNames.map((name) => plan.project.columns.actions.find((c) => c.column === name)?.unit ?? ''),
       limitEvidence: { lo: [...fitted.limits.evidence.lo], hi: [...fitted.limits.evidence.hi] },
-      meanAtMeanState: meanActionAtMeanState(fitted.offset, fitted.gain, plan.data.states, plan.data.stateDim),
+      meanAtMeanState: meanActionAtMeanState(fitted),
     },
     completedReturn: { value: plan.sign * completed.value, standardError: completed.standardError, tailShare: completed.tailShare },
   };

@@ -123,7 +123,8 @@ describe('meanActionAtMeanState', () => {
   it('is the mean logged action for an unclipped least-squares fit: least squares with an intercept passes through the means (common practice; Greene, "Econometric Analysis", ch. 3, from memory)', () => {
     const n = 4000, { states, actions } = simulateLog(n, 7);
     const model = fitBehaviourModel(states, actions, n, 2, 2);
-    const centre = meanActionAtMeanState(model.offset, model.gain, states, 2);
+    const centre = meanActionAtMeanState(model);
+    expect(model.stateMean[0]).toBeCloseTo(Array.from({ length: n }, (_, i) => states[2 * i]).reduce((a, b) => a + b) / n, 9);
     for (let j = 0; j < 2; j++) {
       let mean = 0;
       for (let i = 0; i < n; i++) mean += actions[2 * i + j] / n;
@@ -131,5 +132,20 @@ describe('meanActionAtMeanState', () => {
     }
     // The offset alone is the mean at s = 0, far from where these logs sit (a temperature near 350 K).
     expect(Math.abs(model.offset[0] - centre[0])).toBeGreaterThan(100);
+  });
+
+  it('with a clipped log it is the law before the clip, where the mean logged action is pulled below it', () => {
+    // a = 50 + 10·(s − 2) + N(0, 5²), s ~ N(2, 1), clipped at 55: at s̄ = 2 the law's mean is 50, while the mean logged
+    // action is 50 − σ·(φ(z) − z·(1 − Φ(z))) ≈ 47.6 with σ = √(10² + 5²), z = 5/σ (the mean of a normal capped above; common practice).
+    const n = 20_000, rng = createRandom(11), states = new Float64Array(n), actions = new Float64Array(n);
+    for (let i = 0; i < n; i++) {
+      states[i] = 2 + rng.normal();
+      actions[i] = Math.min(55, 50 + 10 * (states[i] - 2) + 5 * rng.normal());
+    }
+    const model = fitBehaviourModel(states, actions, n, 1, 1);
+    expect(model.bounds?.hi).toEqual([55]);
+    const centre = meanActionAtMeanState(model)[0], logged = actions.reduce((a, b) => a + b) / n;
+    expect(Math.abs(centre - 50)).toBeLessThan(0.3);
+    expect(logged).toBeLessThan(48.5);
   });
 });

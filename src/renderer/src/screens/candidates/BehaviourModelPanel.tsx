@@ -5,6 +5,7 @@
  */
 import type { BehaviourFit } from '../../../../shared/workerMessages';
 import type { ProjectDocument } from '../../../../project/schema';
+import { meanActionAtMeanState } from '../../../../core/behaviourModel';
 import { ditherDependenceText } from '../../../../core/ditherDependence';
 import { formatNumber } from '../../format/numberFormat';
 import { valueWithError } from '../../../../figures/parts/uncertainNumber';
@@ -29,13 +30,15 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
     return `${t.value} ± ${t.error}`;
   };
   // Every coefficient with its unit (the action's; the action's per the state's for a gain), as the candidate editor labels them.
-  const own = actionCoefficientUnits(actions);
+  const own = actionCoefficientUnits(actions), centre = meanActionAtMeanState(m);
   const rows: { label: string; cell: (j: number) => string }[] = [
     { label: `Offset${own.label}`, cell: (j) => `${pm(m.offset[j], m.offsetStandardError[j])}${own.cell(j)}` },
     ...states.map((s, p) => {
       const per = gainUnits(actions, s);
       return { label: `Gain on ${s.column}${per.label}`, cell: (j: number) => `${pm(m.gain[j][p], m.gainStandardError[j][p])}${per.cell(j)}` };
     }),
+    // Where the law sits in the logs: the offset alone is its mean at the state 0, often far outside them (core/behaviourModel.ts).
+    { label: `Mean action at the mean logged state${m.bounds ? ', before the limits' : ''}${own.label}`, cell: (j) => `${formatNumber(centre[j])}${own.cell(j)}` },
     { label: `Dither, standard deviation${own.label}`, cell: (j) => `${formatNumber(m.std[j])}${own.cell(j)}` },
     { label: 'Share of action variance explained (R²)', cell: (j) => formatNumber(m.rSquared[j], 3) },
     // Each limit with how the log showed it: a repeated extreme, or one value at a bound a candidate declares (core/loggedActionLimits.ts).
