@@ -64,6 +64,12 @@ export interface CandidateFit {
     agreement: Agreement;
   };
   /**
+   * Network fits: the degree of the polynomial part the fit used, and the sentence that says why —
+   * the guarded choice's own (src/core/fqe/networkDegreeChoice.ts) or, where the project fixed the
+   * degree, that it was set (src/core/fqe/polynomialPartSetting.ts).
+   */
+  polynomialPart?: { degree: number; sentence: string };
+  /**
    * Network fits: J on the assessment's own resamples of the runs (src/core/fqe/networkInterval.ts,
    * `runs`), with its interval at the assessment's level, so the network pairs with the present
    * controller's and the other candidates' replicates (networkRunResamples.ts). Reward sense.
