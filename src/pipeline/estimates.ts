@@ -6,7 +6,7 @@
 export type { FitStatus } from '../core/fqe/fitStatus';
 import type { FitStatus } from '../core/fqe/fitStatus';
 import type { LimitEvidence } from '../core/loggedActionLimits';
-import type { PolynomialDegreeSetting } from '../core/fqe/polynomialPartSetting';
+import type { PolynomialPartSetting } from '../core/fqe/polynomialPartSetting';
 
 export interface FitIteration {
   iteration: number; // 1-based
@@ -117,7 +117,7 @@ export interface EvaluationSettings {
    * used (one per log: every fit of a run takes the same; src/core/fqe/networkDegreeChoice.ts) and
    * the fit's own sentence saying which and why. Absent for a linear project and in results saved before it.
    */
-  polynomialPart?: { setting: PolynomialDegreeSetting; degree: number; reason: string };
+  polynomialPart?: { setting: PolynomialPartSetting; degree: number; reason: string };
 }
 
 export interface Evaluation {

@@ -7,7 +7,7 @@
  */
 import { z } from 'zod';
 import { defaultNetworkSettings as net } from '../core/fqe/networkSettings';
-import { POLYNOMIAL_DEGREE_VALUES, POLYNOMIAL_DEGREE_VALUES_TEXT, type PolynomialDegreeSetting } from '../core/fqe/polynomialPartSetting';
+import { POLYNOMIAL_PART_VALUES, POLYNOMIAL_PART_VALUES_TEXT, type PolynomialPartSetting } from '../core/fqe/polynomialPartSetting';
 import { MAX_RETUNE_AXES, MAX_RETUNE_AXIS_POINTS, MIN_RETUNE_AXIS_POINTS } from '../core/retune/retuneAxes';
 import { strictObject } from './strictObject';
 import {
@@ -304,8 +304,8 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
      * rule (src/core/fqe/networkDegreeChoice.ts), or fixed at one of the degrees allowed there.
      * Absent in files from before the setting: the default.
      */
-    polynomialDegree: z.literal(POLYNOMIAL_DEGREE_VALUES as [PolynomialDegreeSetting, ...PolynomialDegreeSetting[]], {
-      error: `expected the polynomial part’s degree: ${POLYNOMIAL_DEGREE_VALUES_TEXT}`,
+    polynomialDegree: z.literal(POLYNOMIAL_PART_VALUES as [PolynomialPartSetting, ...PolynomialPartSetting[]], {
+      error: `expected the polynomial part’s degree: ${POLYNOMIAL_PART_VALUES_TEXT}`,
     }).default(net.polynomialDegree),
   }),
 ]);

@@ -8,7 +8,7 @@ import { sha256 } from '@noble/hashes/sha2.js';
 import { bytesToHex } from '@noble/hashes/utils.js';
 import { declaredActionBounds } from '../pipeline/plan/declaredBounds';
 import type { ProjectDocument } from '../project/schema';
-import { DEFAULT_POLYNOMIAL_DEGREE } from '../core/fqe/polynomialPartSetting';
+import { DEFAULT_POLYNOMIAL_PART } from '../core/fqe/polynomialPartSetting';
 
 export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
   const { name: _name, description: _description, surface: _surface, data, results: _results, ...rest } = doc;
@@ -22,7 +22,7 @@ export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
  * results stay current — the same numbers — while any other value changes the key.
  */
 function keyedApproximator(a: ProjectDocument['approximator']): Record<string, unknown> {
-  if (a.kind !== 'network' || a.polynomialDegree !== DEFAULT_POLYNOMIAL_DEGREE) return a;
+  if (a.kind !== 'network' || a.polynomialDegree !== DEFAULT_POLYNOMIAL_PART) return a;
   const { polynomialDegree: _default, ...rest } = a;
   return rest;
 }

@@ -15,6 +15,7 @@ import { formatEvaluation } from '../../src/cli/formatEvaluation';
 import { evaluateProject } from '../../src/pipeline/evaluateProject';
 import { openProject } from '../../src/pipeline/openProject';
 import { polynomialPartProblems } from '../../src/pipeline/plan/planChecks';
+import { settingsSection } from '../../src/pipeline/report/reportOverview';
 import { quarticCostLog } from '../core/fqe/quarticCostLog';
 import { wasmDirectory } from '../core/fqe/networkTestEnvironment';
 
@@ -50,7 +51,7 @@ async function evaluate(polynomialDegree?: unknown) {
   if (!opened.ok) throw new Error(opened.problems.map((p) => `${p.where}: ${p.message}`).join('\n'));
   const result = await evaluateProject({ project: opened.value.project, dataset: opened.value.dataset, wasmPath: wasmDirectory });
   if (!result.ok) throw new Error(result.problems.map((p) => `${p.where}: ${p.message}`).join('\n'));
-  return result.value;
+  return Object.assign(result.value, { project: opened.value.project });
 }
 
 describe('the network polynomial part set in the project', () => {
@@ -67,6 +68,10 @@ describe('the network polynomial part set in the project', () => {
     const text = formatEvaluation(fixed, 'quartic.spcritic');
     expect(text).toContain('polynomial part of degree 2, fixed; 3 quadrature nodes');
     expect(text.split('\n')).toContain('Polynomial part of degree 2, as set in the project (not chosen from the log).');
+    // The report's settings table: the setting in the approximator's row, the degree used and why in a row of its own.
+    const settings = settingsSection({ evaluation: chosen, assessment: null, assessmentProblems: ['not computed here'], project: chosen.project } as never).html;
+    expect(settings).toContain('<td>network, one hidden layer of 8 units, ReLU activation, polynomial part’s degree chosen from the log</td>');
+    expect(settings).toContain(`<tr><th>Polynomial part of the network</th><td>${chosen.settings.polynomialPart!.reason}</td></tr>`);
   }, 240_000);
 
   it('fixes degree 4 as asked, the same degree the choice took', async () => {

@@ -7,7 +7,7 @@
 import { describe, expect, it } from 'vitest';
 import { DEGREE_CHOICES } from '../../src/core/fqe/networkDegreeChoice';
 import { checkNetworkSettings, defaultNetworkSettings } from '../../src/core/fqe/networkSettings';
-import { DEFAULT_POLYNOMIAL_DEGREE, POLYNOMIAL_DEGREE_VALUES } from '../../src/core/fqe/polynomialPartSetting';
+import { DEFAULT_POLYNOMIAL_PART, POLYNOMIAL_PART_VALUES } from '../../src/core/fqe/polynomialPartSetting';
 import { parseProjectText, serializeProject } from '../../src/project/projectFile';
 import { PROJECT_FORMAT } from '../../src/project/schema';
 
@@ -30,14 +30,14 @@ describe('the network polynomial part in the project file', () => {
     if (!loaded.ok) return;
     const a = loaded.value.document.approximator;
     expect(a).toMatchObject({ kind: 'network', hiddenLayers: [16, 16], activation: 'tanh', polynomialDegree: 'chosen' });
-    expect(DEFAULT_POLYNOMIAL_DEGREE).toBe('chosen');
+    expect(DEFAULT_POLYNOMIAL_PART).toBe('chosen');
     expect(loaded.value.fromVersion).toBe(1);
   });
 
   it('takes "chosen", 2 and 4, the degrees the engine compares, and round-trips them', () => {
-    expect(POLYNOMIAL_DEGREE_VALUES).toEqual(['chosen', ...DEGREE_CHOICES]);
+    expect(POLYNOMIAL_PART_VALUES).toEqual(['chosen', ...DEGREE_CHOICES]);
     expect(DEGREE_CHOICES).toEqual([2, 4]);
-    for (const polynomialDegree of POLYNOMIAL_DEGREE_VALUES) {
+    for (const polynomialDegree of POLYNOMIAL_PART_VALUES) {
       const loaded = parse(before({ polynomialDegree }));
       expect(loaded.ok).toBe(true);
       if (!loaded.ok) continue;

@@ -11,29 +11,29 @@
 import { DEGREE_CHOICES } from './networkDegreeChoice';
 
 /** The setting's value for the guarded choice from the log. */
-export const POLYNOMIAL_DEGREE_CHOSEN = 'chosen';
+export const POLYNOMIAL_PART_CHOSEN = 'chosen';
 
-export type PolynomialDegreeSetting = typeof POLYNOMIAL_DEGREE_CHOSEN | number;
+export type PolynomialPartSetting = typeof POLYNOMIAL_PART_CHOSEN | number;
 
 /** Degrees the part may be fixed at, the default degree first. */
-export const FIXED_POLYNOMIAL_DEGREES: readonly number[] = DEGREE_CHOICES;
+export const FIXED_POLYNOMIAL_PART_DEGREES: readonly number[] = DEGREE_CHOICES;
 
 /** Every value the setting takes, the default first: ["chosen", 2, 4]. */
-export const POLYNOMIAL_DEGREE_VALUES: readonly PolynomialDegreeSetting[] = [POLYNOMIAL_DEGREE_CHOSEN, ...FIXED_POLYNOMIAL_DEGREES];
+export const POLYNOMIAL_PART_VALUES: readonly PolynomialPartSetting[] = [POLYNOMIAL_PART_CHOSEN, ...FIXED_POLYNOMIAL_PART_DEGREES];
 
 /** The default: the guarded choice (networkMethod.ts says why). */
-export const DEFAULT_POLYNOMIAL_DEGREE: PolynomialDegreeSetting = POLYNOMIAL_DEGREE_CHOSEN;
+export const DEFAULT_POLYNOMIAL_PART: PolynomialPartSetting = POLYNOMIAL_PART_CHOSEN;
 
 /** The allowed values in words, for messages: `"chosen", 2 or 4`. */
-export const POLYNOMIAL_DEGREE_VALUES_TEXT = `"${POLYNOMIAL_DEGREE_CHOSEN}", ${FIXED_POLYNOMIAL_DEGREES.slice(0, -1).join(', ')} or ${FIXED_POLYNOMIAL_DEGREES[FIXED_POLYNOMIAL_DEGREES.length - 1]}`;
+export const POLYNOMIAL_PART_VALUES_TEXT = `"${POLYNOMIAL_PART_CHOSEN}", ${FIXED_POLYNOMIAL_PART_DEGREES.slice(0, -1).join(', ')} or ${FIXED_POLYNOMIAL_PART_DEGREES[FIXED_POLYNOMIAL_PART_DEGREES.length - 1]}`;
 
-export function isPolynomialDegreeSetting(value: unknown): value is PolynomialDegreeSetting {
-  return POLYNOMIAL_DEGREE_VALUES.includes(value as PolynomialDegreeSetting);
+export function isPolynomialPartSetting(value: unknown): value is PolynomialPartSetting {
+  return POLYNOMIAL_PART_VALUES.includes(value as PolynomialPartSetting);
 }
 
 /** The method's linearPartDegree (networkMethod.ts) the setting asks for: 'choose' or the fixed degree. */
-export function linearPartDegreeOf(setting: PolynomialDegreeSetting): number | 'choose' {
-  return setting === POLYNOMIAL_DEGREE_CHOSEN ? 'choose' : setting;
+export function linearPartDegreeOf(setting: PolynomialPartSetting): number | 'choose' {
+  return setting === POLYNOMIAL_PART_CHOSEN ? 'choose' : setting;
 }
 
 /** What the fit says of a degree it did not choose (the chosen one's sentence is the choice's own, networkDegreeChoice.ts). */

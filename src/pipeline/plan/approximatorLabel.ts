@@ -4,7 +4,7 @@
  * network reads as what it is — "network, one hidden layer of 8 units" — not as "network 8 (relu)",
  * which only a reader of the settings file could decode (the screen review).
  */
-import { POLYNOMIAL_DEGREE_CHOSEN, type PolynomialDegreeSetting } from '../../core/fqe/polynomialPartSetting';
+import { POLYNOMIAL_PART_CHOSEN, type PolynomialPartSetting } from '../../core/fqe/polynomialPartSetting';
 import type { ApproximatorSettings } from '../../project/schema';
 
 type Network = Extract<ApproximatorSettings, { kind: 'network' }>;
@@ -38,8 +38,8 @@ export function approximatorClassLabel(a: Pick<Network, 'kind' | 'hiddenLayers'>
 }
 
 /** The polynomial part's setting in words: "polynomial part’s degree chosen from the log", "polynomial part of degree 4, fixed". */
-export function polynomialDegreeSettingText(setting: PolynomialDegreeSetting): string {
-  return setting === POLYNOMIAL_DEGREE_CHOSEN ? 'polynomial part’s degree chosen from the log' : `polynomial part of degree ${setting}, fixed`;
+export function polynomialDegreeSettingText(setting: PolynomialPartSetting): string {
+  return setting === POLYNOMIAL_PART_CHOSEN ? 'polynomial part’s degree chosen from the log' : `polynomial part of degree ${setting}, fixed`;
 }
 
 /**

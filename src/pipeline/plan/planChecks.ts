@@ -4,7 +4,7 @@
  * columns that never change.
  */
 import { monomialCount } from '../../core/features/monomials';
-import { POLYNOMIAL_DEGREE_CHOSEN } from '../../core/fqe/polynomialPartSetting';
+import { POLYNOMIAL_PART_CHOSEN } from '../../core/fqe/polynomialPartSetting';
 import { horizonSteps, MAX_FEATURES } from '../../core/limits';
 import type { ApproximatorSettings } from '../../project/schema';
 import { stepsText } from '../../core/horizonText';
@@ -38,12 +38,12 @@ function discountAdvice(transitions: number): string {
  * The guarded choice needs no check: it compares degrees only up to a smaller limit (networkDegreeChoice.ts).
  */
 export function polynomialPartProblems(approximator: ApproximatorSettings, inputs: number): Problem[] {
-  if (approximator.kind !== 'network' || approximator.polynomialDegree === POLYNOMIAL_DEGREE_CHOSEN) return [];
+  if (approximator.kind !== 'network' || approximator.polynomialDegree === POLYNOMIAL_PART_CHOSEN) return [];
   const degree = approximator.polynomialDegree, count = monomialCount(inputs, degree);
   if (count <= MAX_FEATURES) return [];
   return [{
     where: 'approximator.polynomialDegree', field: ['approximator', 'polynomialDegree'],
-    message: `a polynomial part of degree ${degree} in ${inputs} states and actions has ${count.toLocaleString('en-US')} features, more than the ${MAX_FEATURES.toLocaleString('en-US')} supported; use "${POLYNOMIAL_DEGREE_CHOSEN}" or a lower degree`,
+    message: `a polynomial part of degree ${degree} in ${inputs} states and actions has ${count.toLocaleString('en-US')} features, more than the ${MAX_FEATURES.toLocaleString('en-US')} supported; use "${POLYNOMIAL_PART_CHOSEN}" or a lower degree`,
   }];
 }
 
