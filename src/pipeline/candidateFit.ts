@@ -54,7 +54,7 @@ export interface CandidateFit {
   /**
    * Network fits: the linear estimate beside the network (degree-2 polynomial LSTD-Q on the same data
    * and start states, src/core/fqe/networkComparator.ts; the network started from it, or from the
-   * degree-4 part where the degree choice took 4) with its interval, the paired difference network − linear, and the
+   * degree-4 part where the degree choice took 4 or the project fixed it) with its interval, the paired difference network − linear, and the
    * agreement verdict with its message (src/core/fqe/approximatorAgreement.ts). Reward sense.
    */
   linearComparison?: {
