@@ -5,7 +5,7 @@ import { SelectField } from '../../components/SelectField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import type { ApproximatorSettings } from '../../../../project/schema';
 import { ACTIVATION_NAMES } from '../../../../pipeline/plan/approximatorLabel';
-import { FIXED_POLYNOMIAL_PART_DEGREES, POLYNOMIAL_PART_CHOSEN, POLYNOMIAL_PART_VALUES, type PolynomialPartSetting } from '../../../../core/fqe/polynomialPartSetting';
+import { POLYNOMIAL_PART_CHOSEN, POLYNOMIAL_PART_VALUES, type PolynomialPartSetting } from '../../../../core/fqe/polynomialPartSetting';
 import { useWorkspace } from '../../WorkspaceContext';
 import { formatHiddenLayers, parseHiddenLayers } from './hiddenLayers';
 import { SETTING_HELP } from './settingHelp';
@@ -23,9 +23,9 @@ const NUMERIC: { key: NumericKey; label: string; help: string }[] = [
   { key: 'heldOutFraction', label: 'Share of runs held out', help: SETTING_HELP.heldOutFraction },
 ];
 
-/** "Chosen from the log (degree 2 or 4)", "Degree 4". */
+/** "Chosen from the log", "Degree 4" (the help line under the control says between which degrees). */
 function polynomialDegreeOptionText(value: PolynomialPartSetting): string {
-  return value === POLYNOMIAL_PART_CHOSEN ? `Chosen from the log (degree ${FIXED_POLYNOMIAL_PART_DEGREES.join(' or ')})` : `Degree ${value}`;
+  return value === POLYNOMIAL_PART_CHOSEN ? 'Chosen from the log' : `Degree ${value}`;
 }
 
 export function NetworkSettings({ settings, problems }: { settings: Network; problems: readonly FieldProblem[] }) {

@@ -13,7 +13,7 @@ export const SETTING_HELP = {
   maxIterations: 'The iteration gives up after this many steps (the fixed-point solve is reported either way).',
   hiddenLayers: 'Units per hidden layer, input side first, separated by commas (1–6 layers of 1–1024 units).',
   activation: 'Nonlinearity between layers.',
-  polynomialDegree: `The polynomial in the states and actions that the network starts from and corrects. Chosen: degree 4 where it predicts the present controller’s held-out runs better by more than ${CHOICE_STANDARD_ERRORS} standard errors, else 2, and 2 whenever J’s start states lie outside the logs.`,
+  polynomialDegree: `The polynomial the network starts from and corrects. Chosen: degree 4 where it predicts the present controller’s held-out runs better (by more than ${CHOICE_STANDARD_ERRORS} standard errors), else 2; always 2 when J’s start states lie outside the logs.`,
   learningRate: 'Step size of the Adam optimiser.',
   batchSize: 'Transitions per gradient step.',
   stepsPerIteration: 'Gradient steps towards each outer iteration’s Bellman targets (held fixed during those steps).',
