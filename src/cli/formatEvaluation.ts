@@ -82,6 +82,8 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     `Setpoint Critic — ${e.project} (${projectFile})`,
     `Values are the ${sense}, discount ${s.discount}.`,
     `${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} runs; J averaged over ${s.startStates} start states; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}.`,
+    // The degree the network's fits used, in the fit's own sentence (the choice's, or that the project fixed it).
+    ...(s.polynomialPart ? [s.polynomialPart.reason] : []),
     '',
     table(rows),
     '',

@@ -54,7 +54,7 @@ export interface CandidateFit {
   /**
    * Network fits: the linear estimate beside the network (degree-2 polynomial LSTD-Q on the same data
    * and start states, src/core/fqe/networkComparator.ts; the network started from it, or from the
-   * degree-4 part where the degree choice took 4) with its interval, the paired difference network − linear, and the
+   * degree-4 part where the degree choice took 4 or the project fixed it) with its interval, the paired difference network − linear, and the
    * agreement verdict with its message (src/core/fqe/approximatorAgreement.ts). Reward sense.
    */
   linearComparison?: {
@@ -63,6 +63,12 @@ export interface CandidateFit {
     difference: { value: number; interval: ValueInterval };
     agreement: Agreement;
   };
+  /**
+   * Network fits: the degree of the polynomial part the fit used, and the sentence that says why —
+   * the guarded choice's own (src/core/fqe/networkDegreeChoice.ts) or, where the project fixed the
+   * degree, that it was set (src/core/fqe/polynomialPartSetting.ts).
+   */
+  polynomialPart?: { degree: number; sentence: string };
   /**
    * Network fits: J on the assessment's own resamples of the runs (src/core/fqe/networkInterval.ts,
    * `runs`), with its interval at the assessment's level, so the network pairs with the present

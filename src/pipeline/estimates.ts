@@ -6,6 +6,7 @@
 export type { FitStatus } from '../core/fqe/fitStatus';
 import type { FitStatus } from '../core/fqe/fitStatus';
 import type { LimitEvidence } from '../core/loggedActionLimits';
+import type { PolynomialPartSetting } from '../core/fqe/polynomialPartSetting';
 
 export interface FitIteration {
   iteration: number; // 1-based
@@ -115,6 +116,12 @@ export interface EvaluationSettings {
   transitions: number;
   episodes: number;
   startStates: number;
+  /**
+   * Network projects: the polynomial part's setting ("chosen" or a fixed degree), the degree the fits
+   * used (one per log: every fit of a run takes the same; src/core/fqe/networkDegreeChoice.ts) and
+   * the fit's own sentence saying which and why. Absent for a linear project and in results saved before it.
+   */
+  polynomialPart?: { setting: PolynomialPartSetting; degree: number; reason: string };
 }
 
 export interface Evaluation {

@@ -10,7 +10,7 @@ import type { TransitionSet } from '../core/transitions';
 import { valueSurface } from '../core/value';
 import type { ProjectDocument } from '../project/schema';
 import { CAUTIONS } from './cautions';
-import type { Evaluation, NetworkCheck, PolicyEstimate, PresentControllerEstimate, ValueSurface } from './estimates';
+import type { Evaluation, EvaluationSettings, NetworkCheck, PolicyEstimate, PresentControllerEstimate, ValueSurface } from './estimates';
 import { completedReturnOf } from './model/completedReturn';
 import type { CandidateModel } from './model/candidateModel';
 import { describeApproximator } from './plan/approximatorLabel';
@@ -57,11 +57,19 @@ export function evaluationOf(run: ProjectRun, warnings: string[] = [], now: () =
     settings: {
       discount: plan.discount, approximator: describeApproximator(plan.approximator), quadratureNodes: plan.quadratureNodes,
       seed: plan.seed, transitions: data.count, episodes: data.episodeCount, startStates: plan.starts.count,
+      ...polynomialPartOf(run),
     },
     valueSense: plan.sense,
     warnings: [...warnings, ...run.models.flatMap((m) => m.fit.warnings.map((w) => `${m.name}: ${w}`))],
     cautions: CAUTIONS,
   };
+}
+
+/** The network's polynomial part as its fits used it: the first fit's, the same for all (the choice reads the log, never the candidate). */
+function polynomialPartOf(run: ProjectRun): Pick<EvaluationSettings, 'polynomialPart'> {
+  const { approximator } = run.plan, used = [run.presentController, ...run.models].find((m) => m?.fit.polynomialPart)?.fit.polynomialPart;
+  if (approximator.kind !== 'network' || !used) return {};
+  return { polynomialPart: { setting: approximator.polynomialDegree, degree: used.degree, reason: used.sentence } };
 }
 
 function policyEstimate(plan: EvaluationPlan, model: CandidateModel): PolicyEstimate {

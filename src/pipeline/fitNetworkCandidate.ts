@@ -10,6 +10,7 @@ import { createActionQuadrature } from '../core/actionQuadrature';
 import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import { policyValue } from '../core/value';
 import { approximatorAgreement } from '../core/fqe/approximatorAgreement';
+import { fixedDegreeSentence } from '../core/fqe/polynomialPartSetting';
 import type { NetworkFit, NetworkIterationRecord } from '../core/fqe/networkFqe';
 import type { CandidateFit, CandidateFitRequest } from './candidateFit';
 import type { FitIteration } from './estimates';
@@ -61,6 +62,7 @@ function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest, layout: N
     },
     interval: estimate.interval,
     intervalCovers: estimate.covers,
+    polynomialPart: { degree: fit.linearPartDegree, sentence: fit.degreeChoice?.sentence ?? fixedDegreeSentence(fit.linearPartDegree) },
     resampleByRuns: (options) => fit.estimate(request.startStates, options),
     linearComparison: {
       value: estimate.linear.value, interval: estimate.linear.interval, difference: estimate.difference,

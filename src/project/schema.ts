@@ -7,6 +7,7 @@
  */
 import { z } from 'zod';
 import { defaultNetworkSettings as net } from '../core/fqe/networkSettings';
+import { POLYNOMIAL_PART_VALUES, POLYNOMIAL_PART_VALUES_TEXT, type PolynomialPartSetting } from '../core/fqe/polynomialPartSetting';
 import { MAX_RETUNE_AXES, MAX_RETUNE_AXIS_POINTS, MIN_RETUNE_AXIS_POINTS } from '../core/retune/retuneAxes';
 import { strictObject } from './strictObject';
 import {
@@ -298,6 +299,14 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
     averageLast: z.number().int().min(1).max(100).default(net.averageLast),
     /** TensorFlow.js backend: auto = wasm where it loads and passes its check, else cpu. */
     backend: z.enum(['auto', 'wasm', 'cpu']).default(net.backend),
+    /**
+     * Degree of the polynomial part the hidden features correct: "chosen" from the log by the guarded
+     * rule (src/core/fqe/networkDegreeChoice.ts), or fixed at one of the degrees allowed there.
+     * Absent in files from before the setting: the default.
+     */
+    polynomialDegree: z.literal(POLYNOMIAL_PART_VALUES as [PolynomialPartSetting, ...PolynomialPartSetting[]], {
+      error: `expected the polynomial part’s degree: ${POLYNOMIAL_PART_VALUES_TEXT}`,
+    }).default(net.polynomialDegree),
   }),
 ]);
 

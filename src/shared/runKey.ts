@@ -8,11 +8,23 @@ import { sha256 } from '@noble/hashes/sha2.js';
 import { bytesToHex } from '@noble/hashes/utils.js';
 import { declaredActionBounds } from '../pipeline/plan/declaredBounds';
 import type { ProjectDocument } from '../project/schema';
+import { DEFAULT_POLYNOMIAL_PART } from '../core/fqe/polynomialPartSetting';
 
 export function runKey(doc: ProjectDocument, dataFingerprint: string): string {
   const { name: _name, description: _description, surface: _surface, data, results: _results, ...rest } = doc;
   const candidates = rest.candidates.map(({ description: _d, ...c }) => c);
-  return JSON.stringify({ ...rest, candidates, csv: data.csv, dataFingerprint });
+  return JSON.stringify({ ...rest, approximator: keyedApproximator(rest.approximator), candidates, csv: data.csv, dataFingerprint });
+}
+
+/**
+ * The approximator as the key holds it: a network's polynomial part at its default is left out, as
+ * files saved before the setting existed have it (absent, read as the default), so their kept
+ * results stay current — the same numbers — while any other value changes the key.
+ */
+function keyedApproximator(a: ProjectDocument['approximator']): Record<string, unknown> {
+  if (a.kind !== 'network' || a.polynomialDegree !== DEFAULT_POLYNOMIAL_PART) return a;
+  const { polynomialDegree: _default, ...rest } = a;
+  return rest;
 }
 
 /**

@@ -129,6 +129,17 @@ describe('evaluate command on a historian-style export', () => {
 });
 
 describe('evaluate command with the network approximator', () => {
+  it('stops a polynomial part of a degree not offered as a problem with the project: exit 1, the field and the values allowed', async () => {
+    const dir = await mkdtemp(join(tmpdir(), 'spc-cli-net-'));
+    const sample = JSON.parse(await readFile(join(root, 'sample-projects', samples[0]), 'utf8'));
+    await copyFile(join(root, 'sample-projects', 'tank-levels', sample.data.path), join(dir, sample.data.path));
+    await writeFile(join(dir, 'cubic.spcritic'), JSON.stringify({ ...sample, approximator: { kind: 'network', polynomialDegree: 3 } }));
+    const { code, stdout, stderr } = await run(['evaluate', join(dir, 'cubic.spcritic')]);
+    expect(code).toBe(1);
+    expect(stdout).toBe('');
+    expect(stderr).toContain('cubic.spcritic, approximator.polynomialDegree: expected the polynomial part’s degree: "chosen", 2 or 4');
+  });
+
   it('fits a small TensorFlow.js network and says which backend computed it', async () => {
     const dir = await mkdtemp(join(tmpdir(), 'spc-cli-net-'));
     const sample = JSON.parse(await readFile(join(root, 'sample-projects', samples[0]), 'utf8'));
@@ -141,7 +152,10 @@ describe('evaluate command with the network approximator', () => {
     // Three outer iterations cannot meet the convergence rule: the fit says so and the exit status is 3.
     expect(code).toBe(3);
     const json = JSON.parse(stdout);
-    expect(json.settings.approximator).toBe('network, two hidden layers of 16 units each, ReLU activation');
+    expect(json.settings.approximator).toBe('network, two hidden layers of 16 units each, ReLU activation, polynomial part’s degree chosen from the log');
+    // The degree the fits used and the fit's own sentence why (src/core/fqe/networkDegreeChoice.ts); the tank's cost is quadratic.
+    expect(json.settings.polynomialPart).toMatchObject({ setting: 'chosen', degree: 2 });
+    expect(json.settings.polynomialPart.reason).toMatch(/^Polynomial part of degree 2/);
     for (const p of json.policies) {
       expect(p.backend).toBe('TensorFlow.js (WebAssembly)');
       expect(Number.isFinite(p.policyValue)).toBe(true);

@@ -1,12 +1,13 @@
 /**
  * The network approximator chosen in the app: the worker loads TensorFlow.js, picks the wasm backend
- * in the cross-origin-isolated page, fits, and the Findings say which backend computed the values.
+ * in the cross-origin-isolated page, fits, and the Findings say which backend computed the values;
+ * the polynomial part set in the Estimator step reaches the fit (the Run step says the degree used).
  */
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { addCandidate, chooseData, goToStep, mapTankColumns, runAndReadValues, TANK_CSV } from '../renderer/e2e/appSteps';
 import { POLL } from './harness/poll';
-import { steadyCheck, steadyFill } from './harness/steadyActions';
+import { steadyCheck, steadyFill, steadySelect } from './harness/steadyActions';
 
 let app: LaunchedApp;
 beforeAll(async () => { app = await launchApp(); });
@@ -28,8 +29,13 @@ describe('a network fit in the app', () => {
       await steadyFill(field, value);
       await field.blur();
     }
+    // The polynomial part fixed for a comparison run: the project holds it and the run says the degree the fits used.
+    await steadySelect(page.getByLabel('Polynomial part'), '2');
     const [value] = await runAndReadValues(page, 1);
     expect(Number.isFinite(value)).toBe(true);
+    await goToStep(page, 'run');
+    await expect.poll(() => page.getByTestId('run-polynomial-part').textContent(), POLL).toBe('Polynomial part of degree 2, as set in the project (not chosen from the log).');
+    await goToStep(page, 'findings');
     await expect.poll(() => page.getByTestId('policy-account-0').textContent(), POLL).toMatch(/Computed by TensorFlow\.js \((WebAssembly|plain JavaScript)\)/);
     expect(await page.getByTestId('policy-account-0').textContent()).toMatch(/TensorFlow\.js \(WebAssembly\)/);
     await app.screenshot('network-findings');

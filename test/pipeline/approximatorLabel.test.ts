@@ -10,7 +10,8 @@ describe('approximator labels', () => {
     expect(hiddenLayersText([32, 16, 8])).toBe('three hidden layers, of 32, 16 and 8 units');
     const network = { ...defaultNetworkSettings, kind: 'network' as const, hiddenLayers: [8], activation: 'relu' as const };
     expect(approximatorClassLabel(network)).toBe('network, one hidden layer of 8 units');
-    expect(describeApproximator(network as never)).toBe('network, one hidden layer of 8 units, ReLU activation');
+    expect(describeApproximator(network as never)).toBe('network, one hidden layer of 8 units, ReLU activation, polynomial part’s degree chosen from the log');
+    expect(describeApproximator({ ...network, polynomialDegree: 4 } as never)).toBe('network, one hidden layer of 8 units, ReLU activation, polynomial part of degree 4, fixed');
     expect(describeApproximator(network as never)).not.toMatch(/\(relu\)|network \d/);
   });
 

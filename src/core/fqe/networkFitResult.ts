@@ -123,6 +123,7 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
     status: final.status, message: final.message, history: run.history,
     convergence: { rule: run.rule, converged: final.status === 'converged', iterations: run.history.length, remainingBound: last?.remainingBound ?? null },
     backend: ctx.selection.backend, backendNote: ctx.selection.note, backendFallback: ctx.selection.fallbackReason, seed: input.seed, work: run.work, members: 1,
+    linearPartDegree: s.method.linearPartDegree,
     estimate(startStates: Float64Array, options: EstimateOptions = {}): NetworkValueEstimate {
       if (disposed) throw new NetworkDisposedError();
       const rows = startFeatureRows(net, quadrature, startStates, ds), d = v.length, mean = meanRow(rows, d);

@@ -37,6 +37,7 @@ import { COMPARATOR_DEGREE } from './comparatorDegree';
 import { solveLastLayer } from './networkLastLayer';
 import { defaultNetworkMethod, type NetworkMethod, type SettledNetworkMethod } from './networkMethod';
 import { chooseLinearPartDegreeOnce } from './networkDegreeChoice';
+import { linearPartDegreeOf } from './polynomialPartSetting';
 import { guardDegreeChoice, startGuard, type GuardedDegreeChoice } from './degreeChoiceStartGuard';
 import { finishNetworkFit, sameValues } from './networkFitResult';
 import type { NetworkValueEstimate, EstimateOptions } from './networkValueEstimate';
@@ -88,6 +89,8 @@ export interface NetworkFit {
   readonly actionValue: ActionValueFunction;
   /** The LSTD-Q fixed point of the polynomial part (degree linearPartDegree) the fit started from. */
   readonly linearStart: LinearActionValue;
+  /** The degree of the polynomial part the fit used: the one fixed, or the one the guarded choice took (degreeChoice). */
+  readonly linearPartDegree: number;
   readonly status: NetworkFitStatus;
   readonly message: string;
   readonly convergence: NetworkConvergence;
@@ -133,7 +136,8 @@ export interface NetworkFqeInput {
 
 export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit> {
   checkNetworkFqeInput(input);
-  const asked: NetworkMethod = { ...defaultNetworkMethod, ...input.method };
+  // The degree from the project's setting unless a method (a bench, a test) asks for one.
+  const asked: NetworkMethod = { ...defaultNetworkMethod, ...input.method, linearPartDegree: input.method?.linearPartDegree ?? linearPartDegreeOf(input.settings.polynomialDegree) };
   const degreeChoice = asked.linearPartDegree === 'choose' ? guardedDegreeChoice(input) : undefined;
   const method: SettledNetworkMethod = { ...asked, linearPartDegree: degreeChoice?.chosen ?? (asked.linearPartDegree as number) };
   const selection = await selectBackend(input.settings.backend, input.wasmPath);

@@ -43,6 +43,7 @@ export function combineMembers(members: readonly NetworkFit[]): NetworkFit {
   return {
     actionValue: meanActionValue(members.map((m) => m.actionValue)),
     linearStart: first.linearStart,
+    linearPartDegree: first.linearPartDegree, // the same for every member: settled before them (networkFqe.ts)
     status,
     message: `${least.message} ${membersSentence(members)}`,
     history: first.history,

@@ -3,6 +3,7 @@
  * depend on the project document (its zod schema mirrors these fields and defaults).
  */
 import { FqeOptionsError } from './fqeErrors';
+import { DEFAULT_POLYNOMIAL_PART, isPolynomialPartSetting, POLYNOMIAL_PART_VALUES_TEXT, type PolynomialPartSetting } from './polynomialPartSetting';
 
 export type NetworkActivation = 'relu' | 'tanh' | 'elu';
 export type NetworkBackendPreference = 'auto' | 'wasm' | 'cpu';
@@ -28,6 +29,8 @@ export interface NetworkFqeSettings {
   /** Average the weights of the last k outer iterations' networks (1 = no averaging). */
   averageLast: number;
   backend: NetworkBackendPreference;
+  /** The polynomial part's degree: "chosen" from the log (guarded), or fixed at 2 or 4 (polynomialPartSetting.ts). */
+  polynomialDegree: PolynomialPartSetting;
 }
 
 /**
@@ -57,6 +60,7 @@ export const defaultNetworkSettings: Readonly<NetworkFqeSettings> = Object.freez
   tolerance: 0.01,
   averageLast: 5,
   backend: 'auto',
+  polynomialDegree: DEFAULT_POLYNOMIAL_PART,
 });
 
 const ACTIVATIONS: readonly NetworkActivation[] = ['relu', 'tanh', 'elu'];
@@ -83,6 +87,7 @@ export function checkNetworkSettings(s: NetworkFqeSettings): void {
   if (!(s.tolerance > 0 && s.tolerance <= 1)) throw new FqeOptionsError(`tolerance: expected a fraction above 0 and at most 1, got ${s.tolerance}`);
   wholeNumber('averageLast', s.averageLast, 1, 100);
   if (!BACKENDS.includes(s.backend)) throw new FqeOptionsError(`backend: expected one of ${BACKENDS.join(', ')}, got ${String(s.backend)}`);
+  if (!isPolynomialPartSetting(s.polynomialDegree)) throw new FqeOptionsError(`polynomialDegree: expected ${POLYNOMIAL_PART_VALUES_TEXT}, got ${JSON.stringify(s.polynomialDegree)}`);
 }
 
 function wholeNumber(name: string, value: number, lo: number, hi: number): void {

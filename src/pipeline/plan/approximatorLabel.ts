@@ -4,6 +4,7 @@
  * network reads as what it is — "network, one hidden layer of 8 units" — not as "network 8 (relu)",
  * which only a reader of the settings file could decode (the screen review).
  */
+import { POLYNOMIAL_PART_CHOSEN, type PolynomialPartSetting } from '../../core/fqe/polynomialPartSetting';
 import type { ApproximatorSettings } from '../../project/schema';
 
 type Network = Extract<ApproximatorSettings, { kind: 'network' }>;
@@ -36,9 +37,17 @@ export function approximatorClassLabel(a: Pick<Network, 'kind' | 'hiddenLayers'>
   return a.features.kind === 'polynomial' ? polynomialClassLabel(a.features.degree) : `radial basis, ${a.features.centresPerInput} centres per input`;
 }
 
-/** The approximator among the run's settings: the class and how it is fitted ("network, one hidden layer of 8 units, ReLU activation"). */
+/** The polynomial part's setting in words: "polynomial part’s degree chosen from the log", "polynomial part of degree 4, fixed". */
+export function polynomialDegreeSettingText(setting: PolynomialPartSetting): string {
+  return setting === POLYNOMIAL_PART_CHOSEN ? 'polynomial part’s degree chosen from the log' : `polynomial part of degree ${setting}, fixed`;
+}
+
+/**
+ * The approximator among the run's settings: the class and how it is fitted ("network, one hidden layer of 8 units, ReLU
+ * activation, polynomial part’s degree chosen from the log").
+ */
 export function describeApproximator(settings: ApproximatorSettings): string {
-  if (settings.kind === 'network') return `${approximatorClassLabel(settings)}, ${ACTIVATION_NAMES[settings.activation]} activation`;
+  if (settings.kind === 'network') return `${approximatorClassLabel(settings)}, ${ACTIVATION_NAMES[settings.activation]} activation, ${polynomialDegreeSettingText(settings.polynomialDegree)}`;
   const f = settings.features;
   return f.kind === 'polynomial' ? `linear, polynomial features of degree ${f.degree}` : `linear, radial basis (${f.centresPerInput} centres per input)`;
 }

@@ -16,7 +16,7 @@ import { declaredActionBounds } from './declaredBounds';
 import { planFeatures } from './featureMapFor';
 import { planPolicies } from './planPolicies';
 import { planPresentController, type PlannedPresentController } from './presentController';
-import { dataWarnings, discountProblems } from './planChecks';
+import { dataWarnings, discountProblems, polynomialPartProblems } from './planChecks';
 import { surfaceGridFor } from './surfaceGrid';
 import type { PlannedPolicy, StartStates, SurfaceGrid } from './planTypes';
 
@@ -53,7 +53,7 @@ export function planEvaluation(project: ProjectDocument, data: TransitionSet): R
   if (!starts.ok) return starts;
   const policies = planPolicies(project, data);
   const features = project.approximator.kind === 'linear' ? planFeatures(project.approximator, data) : success(null);
-  const problems = [...discountProblems(project.discount, data.count), ...(policies.ok ? [] : policies.problems), ...(features.ok ? [] : features.problems)];
+  const problems = [...discountProblems(project.discount, data.count), ...polynomialPartProblems(project.approximator, data.stateDim + data.actionDim), ...(policies.ok ? [] : policies.problems), ...(features.ok ? [] : features.problems)];
   if (!policies.ok || !features.ok || problems.length > 0) return failure(...problems);
   const sense = project.columns.reward.sense;
   return success({

@@ -1,8 +1,12 @@
 /**
  * Checks of the settings against the data that no schema can make: a discount whose horizon is
- * longer than the logs, and logged columns that never change.
+ * longer than the logs, a network's fixed polynomial part too large for the inputs, and logged
+ * columns that never change.
  */
-import { horizonSteps } from '../../core/limits';
+import { monomialCount } from '../../core/features/monomials';
+import { POLYNOMIAL_PART_CHOSEN } from '../../core/fqe/polynomialPartSetting';
+import { horizonSteps, MAX_FEATURES } from '../../core/limits';
+import type { ApproximatorSettings } from '../../project/schema';
 import { stepsText } from '../../core/horizonText';
 import type { Problem } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
@@ -26,6 +30,21 @@ export function discountProblems(discount: number, transitions: number): Problem
 function discountAdvice(transitions: number): string {
   const most = 1 - 1 / transitions;
   return most > 0 ? `use a discount of at most ${Number(most.toPrecision(6))}, or more data` : 'no discount is short enough for a single transition: more data is needed';
+}
+
+/**
+ * A network's polynomial part fixed at a degree whose features exceed the feature limit for these
+ * inputs (the limit of polynomialFeatures.ts, core/limits.ts): said before any fit, at the setting.
+ * The guarded choice needs no check: it compares degrees only up to a smaller limit (networkDegreeChoice.ts).
+ */
+export function polynomialPartProblems(approximator: ApproximatorSettings, inputs: number): Problem[] {
+  if (approximator.kind !== 'network' || approximator.polynomialDegree === POLYNOMIAL_PART_CHOSEN) return [];
+  const degree = approximator.polynomialDegree, count = monomialCount(inputs, degree);
+  if (count <= MAX_FEATURES) return [];
+  return [{
+    where: 'approximator.polynomialDegree', field: ['approximator', 'polynomialDegree'],
+    message: `a polynomial part of degree ${degree} in ${inputs} states and actions has ${count.toLocaleString('en-US')} features, more than the ${MAX_FEATURES.toLocaleString('en-US')} supported; use "${POLYNOMIAL_PART_CHOSEN}" or a lower degree`,
+  }];
 }
 
 /**

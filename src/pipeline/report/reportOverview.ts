@@ -96,6 +96,7 @@ export function settingsSection(input: ReportInput): Html {
     <table><tbody>
       <tr><th>Discount γ per logged step</th><td>${formatNumber(s.discount)} (effective horizon ${horizonStepsText(s.discount)} steps)</td></tr>
       <tr><th>Approximator</th><td>${s.approximator}</td></tr>
+      ${s.polynomialPart ? html`<tr><th>Polynomial part of the network</th><td>${s.polynomialPart.reason}</td></tr>` : ''}
       <tr><th>Action quadrature</th><td>${s.quadratureNodes} Gauss–Hermite nodes per action</td></tr>
       <tr><th>Start states</th><td>${s.startStates} (${input.project.startStates.kind === 'given' ? 'given in the project' : 'the first state of each logged run'})</td></tr>
       <tr><th>Seed</th><td>${s.seed}</td></tr>

@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
+import { approximatorSchema } from '../../../src/project/schema';
 import { importKey, runKey } from '../../../src/shared/runKey';
 
 const loaded = parseProjectText(readFileSync(resolve(__dirname, '../../../sample-projects/tank-levels/tank-levels.spcritic'), 'utf8'), 'p');
@@ -23,6 +24,17 @@ describe('run key', () => {
     expect(runKey({ ...doc, seed: 2 }, 'f')).not.toBe(runKey(doc, 'f'));
     expect(runKey({ ...doc, candidates: [{ ...doc.candidates[0], dither: [2] }, doc.candidates[1]] }, 'f')).not.toBe(runKey(doc, 'f'));
     expect(runKey({ ...doc, data: { ...doc.data, csv: { ...doc.data.csv, badRows: 'exclude' } } }, 'f')).not.toBe(runKey(doc, 'f'));
+  });
+
+  // A network file saved before the polynomial part's setting existed has no such field; read with the
+  // default it gives the numbers it gave, so its kept results must stay current (the key it was saved under).
+  it('keeps a network file from before the polynomial part setting current, and goes stale when the setting changes', () => {
+    const { polynomialDegree: _absent, ...before } = approximatorSchema.parse({ kind: 'network' }) as Record<string, unknown>;
+    const keyBefore = JSON.stringify({ ...JSON.parse(runKey(doc, 'f')), approximator: before });
+    const network = { ...doc, approximator: approximatorSchema.parse({ kind: 'network' }) };
+    expect(runKey(network, 'f')).toBe(keyBefore);
+    expect(runKey({ ...network, approximator: { ...network.approximator, polynomialDegree: 2 } } as never, 'f')).not.toBe(runKey(network, 'f'));
+    expect(runKey({ ...network, approximator: { ...network.approximator, polynomialDegree: 4 } } as never, 'f')).not.toBe(runKey({ ...network, approximator: { ...network.approximator, polynomialDegree: 2 } } as never, 'f'));
   });
 
   it('imports again for new bytes or roles, not for a new name', () => {

@@ -3,6 +3,8 @@
  * names for the rest, and the method names a reviewer needs, explained once. Terms are rich text
  * (V^{π}: superscript; E_{a~π}: subscript) so they are typeset as written in the literature.
  */
+import { CHOICE_STANDARD_ERRORS } from '../../../core/fqe/networkDegreeChoice';
+
 export interface GlossaryEntry {
   term: string;
   /** Other names the same thing goes by (the literature's, or ours elsewhere). */
@@ -33,6 +35,7 @@ export const GLOSSARY: readonly GlossaryEntry[] = [
   { term: 'Paired difference', meaning: 'J of one policy minus J of another on the same resamples, so luck in which runs were logged cancels.' },
   { term: 'Cross-checks', aka: 'importance sampling, doubly robust, model check', meaning: 'Other estimates of the same J under other assumptions. Agreement is evidence; disagreement is a reason to look closer.' },
   { term: 'Occupancy shift', meaning: 'How far the states and actions a candidate would visit (discounted, from the start states) lie from the logged ones, in the fit’s own terms; 1 means like the logs. The estimate’s error grows with its square root.' },
+  { term: 'Polynomial part', meaning: `The polynomial in the states and actions that a network’s Q starts from; the network’s hidden layers learn what it misses. Its degree is 2, or 4 where 4 predicts the present controller’s held-out runs better by more than ${CHOICE_STANDARD_ERRORS} standard errors and J’s start states lie inside the logs; the Estimator step can fix it at 2 or 4 instead.` },
   { term: 'Function classes', meaning: 'The same candidate fitted with polynomial features of several degrees. When they disagree beyond sampling error, or when no other class is precise enough to see a gap of 10 % of J, the estimate is “not settled” and the range spanning them is reported.' },
   { term: 'Range to report', meaning: 'The number to carry forward for a candidate that is not settled: the span of every function class’s interval, cut where the cost’s definition (never below or above a value on any row) puts values out of reach of every policy.' },
   { term: 'Effective sample size', meaning: 'How many logged steps or runs the reweighted log is worth for a candidate; few means noisy cross-checks.' },

@@ -5,6 +5,7 @@ import { SelectField } from '../../components/SelectField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import type { ApproximatorSettings } from '../../../../project/schema';
 import { ACTIVATION_NAMES } from '../../../../pipeline/plan/approximatorLabel';
+import { POLYNOMIAL_PART_CHOSEN, POLYNOMIAL_PART_VALUES, type PolynomialPartSetting } from '../../../../core/fqe/polynomialPartSetting';
 import { useWorkspace } from '../../WorkspaceContext';
 import { formatHiddenLayers, parseHiddenLayers } from './hiddenLayers';
 import { SETTING_HELP } from './settingHelp';
@@ -21,6 +22,11 @@ const NUMERIC: { key: NumericKey; label: string; help: string }[] = [
   { key: 'averageLast', label: 'Outer iterations averaged at the end', help: SETTING_HELP.averageLast },
   { key: 'heldOutFraction', label: 'Share of runs held out', help: SETTING_HELP.heldOutFraction },
 ];
+
+/** "Chosen from the log", "Degree 4" (the help line under the control says between which degrees). */
+function polynomialDegreeOptionText(value: PolynomialPartSetting): string {
+  return value === POLYNOMIAL_PART_CHOSEN ? 'Chosen from the log' : `Degree ${value}`;
+}
 
 export function NetworkSettings({ settings, problems }: { settings: Network; problems: readonly FieldProblem[] }) {
   const { documents } = useWorkspace();
@@ -47,6 +53,12 @@ export function NetworkSettings({ settings, problems }: { settings: Network; pro
         <SelectField label="Activation" value={settings.activation} help={SETTING_HELP.activation}
           options={(['relu', 'tanh', 'elu'] as const).map((value) => ({ value, label: ACTIVATION_NAMES[value] }))}
           onChange={(activation) => set('change the activation', { activation }, 'activation')} />
+        <SelectField label="Polynomial part" value={String(settings.polynomialDegree)} help={SETTING_HELP.polynomialDegree} message={at('polynomialDegree')} testId="polynomial-degree"
+          options={POLYNOMIAL_PART_VALUES.map((value) => ({ value: String(value), label: polynomialDegreeOptionText(value) }))}
+          onChange={(text) => {
+            const polynomialDegree = POLYNOMIAL_PART_VALUES.find((value) => String(value) === text);
+            if (polynomialDegree !== undefined) set('change the polynomial part', { polynomialDegree }, 'polynomialDegree');
+          }} />
       </div>
       <details className="details-section">
         <summary>Computation details</summary>

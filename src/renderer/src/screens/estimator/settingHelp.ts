@@ -1,4 +1,6 @@
 /** One line of explanation for every estimator setting, in the words of the trade. */
+import { CHOICE_STANDARD_ERRORS } from '../../../../core/fqe/networkDegreeChoice';
+
 export const SETTING_HELP = {
   discount: 'Weight of a cost or reward one step later (0 < γ < 1); 0.95 looks about 20 steps ahead (1/(1 − γ)).',
   approximator: 'How Q(s, a) is represented: linear in fixed features (fast, exact fixed point) or a small neural network (flexible, slower).',
@@ -11,6 +13,7 @@ export const SETTING_HELP = {
   maxIterations: 'The iteration gives up after this many steps (the fixed-point solve is reported either way).',
   hiddenLayers: 'Units per hidden layer, input side first, separated by commas (1–6 layers of 1–1024 units).',
   activation: 'Nonlinearity between layers.',
+  polynomialDegree: `The polynomial the network starts from and corrects. Chosen: degree 4 where it predicts the present controller’s held-out runs better (by more than ${CHOICE_STANDARD_ERRORS} standard errors), else 2; always 2 when J’s start states lie outside the logs.`,
   learningRate: 'Step size of the Adam optimiser.',
   batchSize: 'Transitions per gradient step.',
   stepsPerIteration: 'Gradient steps towards each outer iteration’s Bellman targets (held fixed during those steps).',

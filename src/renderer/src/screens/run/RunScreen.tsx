@@ -15,6 +15,7 @@ import { progressView } from './runProgressView';
 import { describeApproximator } from '../../../../pipeline/plan/approximatorLabel';
 import { progressText } from '../../../../core/shareText';
 import { discountWithHorizon } from '../estimator/discountHorizon';
+import type { Evaluation } from '../../../../pipeline/estimates';
 
 export function RunScreen(props: { onFindings: () => void }) {
   const { runner } = useWorkspace();
@@ -55,11 +56,18 @@ export function RunScreen(props: { onFindings: () => void }) {
           <ul>
             {session.evaluation.evaluation.policies.map((p) => <li key={p.name}>{p.name}: {p.message}</li>)}
           </ul>
+          {polynomialPartLine(session.evaluation.evaluation) && <p className="small" data-testid="run-polynomial-part">{polynomialPartLine(session.evaluation.evaluation)}</p>}
           <button className="primary" onClick={props.onFindings} data-testid="see-findings">See the findings</button>
         </section>
       )}
     </>
   );
+}
+
+/** The network's polynomial part as the fits used it, said once: not where the fits' messages already end with it (networkFqe.ts). */
+function polynomialPartLine(evaluation: Evaluation): string | null {
+  const reason = evaluation.settings.polynomialPart?.reason;
+  return reason && !evaluation.policies.some((p) => p.message.includes(reason)) ? reason : null;
 }
 
 function Progress({ reports, startsMs }: { reports: Parameters<typeof progressView>[0]; startsMs: number[] }) {
