@@ -3,6 +3,7 @@ import { COMPARATOR_DEGREE } from '../core/fqe/comparatorDegree';
 import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
 import { loggedReturnRole, truncationMatters, truncationSentence } from '../core/loggedReturn';
 import type { Evaluation } from '../pipeline/estimates';
+import { centreText as centreIn, perAction as perActionIn } from '../pipeline/baselineWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
 import { atDecimals, intervalText, rowDecimals, widthDecimals } from './uncertainNumberText';
@@ -23,29 +24,9 @@ type Interval = readonly [number, number] | null;
 
 const STATUS_WORDS = { converged: 'converged', maxIterations: 'NOT CONVERGED', diverged: 'DIVERGED' } as const;
 
-
-/**
- * "offset 1.2 %" with one action; with several, each value named by its action's column: "offset 0.3 on
- * hot_valve, 0.7 on cold_valve". Each value in its action's unit where the project declares one.
- */
-export function perAction(label: string, values: readonly number[], actions: readonly string[] | undefined, units?: readonly string[]): string {
-  const valued = (v: number, j: number) => `${number(v)}${units?.[j] ? ` ${units[j]}` : ''}`;
-  if (values.length <= 1 || !actions || actions.length !== values.length) return `${label} ${values.map(valued).join(', ')}`;
-  return `${label} ${values.map((v, j) => `${valued(v, j)} on ${actions[j]}`).join(', ')}`;
-}
-
-/**
- * Where the modelled controller sits: its mean action at the mean logged state, the number an engineer
- * can hold against the log; the offset (the mean at the state 0, often far outside the logs) only for
- * results saved before that was kept. "Before the limits" only where the log shows a limit: there the
- * censored fit's mean is that of the unclipped law (it may lie past a limit), and without one the words
- * would name a clip the model does not have (the tank sample read "before the limits; … limits: none seen").
- */
-export function centreText(model: NonNullable<Evaluation['presentController']>['model']): string {
-  if (!model.meanAtMeanState) return perAction('offset', model.offset, model.actions, model.units);
-  const limited = [...model.lo, ...model.hi].some((limit) => limit !== null);
-  return `linear in the state: ${perAction('mean', model.meanAtMeanState, model.actions, model.units)} at the mean logged state${limited ? ', before the limits' : ''}`;
-}
+/** The baseline's numbers per action at the command line's four significant digits (pipeline/baselineWords.ts). */
+export const perAction = (label: string, values: readonly number[], actions: readonly string[] | undefined, units?: readonly string[]): string => perActionIn(label, values, actions, units, number);
+export const centreText = (model: NonNullable<Evaluation['presentController']>['model']): string => centreIn(model, number);
 
 /**
  * The actuator limits read from the log, each with how the log showed it ("actuator limits read from

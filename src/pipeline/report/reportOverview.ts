@@ -6,6 +6,7 @@ import { html, formatNumber, formatWrittenAt, type Html } from './htmlText';
 import { senseWords, valueUnit, type ReportInput } from './reportInput';
 import { TRIAL_RULE, trialAnswer, trialChoice } from '../trialChoice';
 import { policyLabel } from '../policyNames';
+import { centreText } from '../baselineWords';
 import { PRESENT_CONTROLLER } from '../../figures/parts/plotTheme';
 import { loggedLimitText } from '../../core/loggedLimitWords';
 import { shareText } from '../../core/shareText';
@@ -71,7 +72,7 @@ function presentControllerRow(input: ReportInput): Html {
   const name = (j: number) => (model.lo.length > 1 ? ` on ${model.actions?.[j] ?? `action ${j + 1}`}` : '');
   const limits = model.lo.map((_, j) => `${loggedLimitText(model.lo[j], model.hi[j], model.limitEvidence && { lo: model.limitEvidence.lo[j], hi: model.limitEvidence.hi[j] }, model.units?.[j] ?? '', (v) => formatNumber(v, 4))}${name(j)}`);
   const dither = model.std.map((v, j) => `${formatNumber(v, 4)}${model.units?.[j] ? ` ${model.units[j]}` : ''}${name(j)}`);
-  return html`<tr><td>${PRESENT_CONTROLLER} (baseline)</td><td>as fitted to the log (offset and gains on the states)</td><td>${dither.join('; ')}</td><td>read from the log: ${limits.join('; ')}</td><td>The controller that ran while the log was recorded, evaluated like the candidates.</td></tr>`;
+  return html`<tr><td>${PRESENT_CONTROLLER} (baseline)</td><td>as fitted to the log, ${centreText(model, (v) => formatNumber(v, 4))}</td><td>${dither.join('; ')}</td><td>read from the log: ${limits.join('; ')}</td><td>The controller that ran while the log was recorded, evaluated like the candidates.</td></tr>`;
 }
 
 /** Significant digits of the column statistics: the app's statistics table shows four (renderer format/numberFormat.ts). */
