@@ -12,6 +12,11 @@
  * only one class was fitted) and its range to report misses the truth by more than 2 of the truth's
  * standard errors; "confident and right" when it has no serious finding, is settled and its range
  * holds the truth (within that margin); "cautious" otherwise.
+ *
+ * Each log also gives one baseline row (printed with candidate "present controller", kept apart in
+ * --out's sibling `*.baseline.json`): the present controller's J and interval, its cross-checks and
+ * confirmation status, and the truth of the plant's logging policy (plant.behaviour, with its limits)
+ * rolled out from the same run starts, as the candidates' truth is (bench/baselineContradictedRows.ts).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
@@ -30,6 +35,13 @@ import { cliCommand } from './builtCli';
 const ROLLOUTS_PER_START = { default: 100, more: 200 } as const;
 const MORE_ROLLOUTS = ['holdout-backlash-level-g0.96', 'holdout-header-pressure-g0.98', 'greenhouse-clipped-g0.95', 'pendulum-saturating-g0.97'];
 const ROLLOUT_SEED = 31_337;
+/** The baseline's row name in the printed table (its rows are kept apart in --out, under `baseline`). */
+const PRESENT = 'present controller';
+
+/** Where --out's baseline rows go: beside it, `rows.json` → `rows.baseline.json`. */
+function baselineFile(out: string): string {
+  return `${out.replace(/\.json$/, '')}.baseline.json`;
+}
 
 function option(args: string[], name: string, fallback: string): string {
   const i = args.indexOf(`--${name}`);
@@ -85,7 +97,7 @@ async function main() {
   const resamples = option(args, 'resamples', ''), out = option(args, 'out', '');
   const work = join(tmpdir(), `holdout-cli-${process.pid}`);
   mkdirSync(work, { recursive: true });
-  const rows: object[] = [];
+  const rows: object[] = [], baseline: object[] = [];
   const plants = all.filter((p) => names.includes(p.name));
   console.log(['plant', 'approx', 'seed', 'candidate', 'truth', 'truthSE', 'J', 'err%', 'interval', 'range', 'holds', 'miss/SE', 'settled', 'status', 'most severe', 'exit', 'class', 'seconds'].join('\t'));
   for (const plant of plants) for (const seed of seeds) {
@@ -129,7 +141,25 @@ async function main() {
     }
     const present = json.assessment.presentController;
     if (present) console.log(`#\tpresent controller J ${present.policyValue.value.toFixed(4)} interval ${JSON.stringify(present.policyValue.basic)}; global warnings: ${json.assessment.warnings.map((w: Warning) => `${w.severity}:${w.topic}`).join('; ')}`);
+    // The baseline every difference is taken against: the present controller's J (fitted to the logged actions)
+    // beside the truth of the plant's logging policy (plant.behaviour, with its limits), rolled out from the same
+    // run starts with the same budget and seed as the candidates' truth (bench/baselineContradictedRows.ts).
+    if (present) {
+      const truth = rolloutTruth(dynamics, plant.behaviour, plant.discount, starts, { rolloutsPerStart, seed: ROLLOUT_SEED });
+      const j: number = present.policyValue.value, interval: [number, number] | null = present.policyValue.basic ?? present.policyValue.percentile;
+      const margin = 2 * truth.standardError;
+      const miss = interval ? Math.max(interval[0] - truth.value, truth.value - interval[1], 0) : NaN;
+      const err = 100 * (j - truth.value) / Math.abs(truth.value);
+      const checks = present.crossChecks.map((x: { label: string; agreement: string; note: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, note: x.note, value: x.estimate?.value ?? null }));
+      console.log([plant.name, approximator, seed, PRESENT, truth.value.toFixed(4), truth.standardError.toFixed(4), j.toFixed(4), err.toFixed(2),
+        interval ? `${interval[0].toFixed(3)}..${interval[1].toFixed(3)}` : '-', '-', interval ? miss <= margin : false, interval ? (miss / truth.standardError).toFixed(1) : '-',
+        '-', present.confirmation.status, checks.map((x: { label: string; agreement: string }) => `${x.label}: ${x.agreement}`).join('; '), run.status, '-', seconds.toFixed(0)].join('\t'));
+      baseline.push({ plant: plant.name, approximator, seed, candidate: PRESENT, truth, j, err, interval, holds: interval ? miss <= margin : false, missOverSE: interval ? miss / truth.standardError : null,
+        confirmation: present.confirmation, crossChecks: checks, globalWarnings: json.assessment.warnings, exit: run.status, seconds });
+    }
     if (out) writeFileSync(out, JSON.stringify(rows, null, 1));
+    // Apart, so the readers of the candidate rows (bench/nestedClassRows.ts and the rest) read the same array as before.
+    if (out) writeFileSync(baselineFile(out), JSON.stringify(baseline, null, 1));
   }
   console.log(`# CLI: ${cliCommand().which}; ${transitions} transitions; resamples ${resamples || 'the CLI default'}`);
 }

@@ -19,6 +19,7 @@ import type { Assessment, AssessmentWarning } from './assessment';
 import { AssessmentError, candidateWork, episodeOrderedLog, offPolicyInputs, type AssessmentContext, type CandidateWork, type EpisodeOrderedLog } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
 import { classWorks } from './assessClasses';
+import { baselineContradictedWarnings } from './crossCheckWarnings';
 import { openRolloutSimulations, rolloutCheck, type RolloutOutcome } from './assessRollouts';
 import { finalStateValues } from './model/completedReturn';
 import { intervalEstimate } from './assessIntervals';
@@ -157,18 +158,19 @@ async function assessWith(
   options.onProgress?.({ stage: 'sensitivity', done: 0, total: 1 });
   const swept = settings.sensitivity ? await sensitivity(context, works, sign, settings) : null;
   swept?.warnings.forEach((w, c) => candidates[c].warnings.push(...w));
-  const unvisited = unvisitedShare(plan), solver = resampleSolver(works);
+  const unvisited = unvisitedShare(plan), solver = resampleSolver(works), presentController = assemblePresentController(inputs);
   return {
     settings: { resamples: settings.resamples, level: settings.level, seed: settings.seed, resampledUnit: 'episodes', episodes: plan.episodes.episodes, solver, threads },
     behaviour: intervalEstimate(plan.loggedReturn.value, replicates.loggedReturn, settings.level, sign,
       'sampling of the logged runs; cut short where runs end on a time limit'),
-    presentController: assemblePresentController(inputs),
+    presentController,
     candidates,
     comparison: comparison(plan, replicates, works, baseline, settings.level),
     sensitivity: swept?.sensitivity ?? null,
     unvisitedShare: unvisited,
     plantMemory: memory.summary,
-    warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited)],
+    // A contradicted baseline: every difference is taken against its J (crossCheckWarnings.ts).
+    warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineContradictedWarnings(presentController)],
     method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, solver),
     valueSense: plan.sense,
   };

@@ -4,12 +4,31 @@
  * candidate, one per disagreeing check, under one topic — the same fact as the headline
  * "Contradicted by …" (confirmationOf), so the answer (trialChoice.ts) names it once, as the
  * contradiction, and never again as "a serious warning".
+ *
+ * The same verdict on the present controller's own J — the baseline every difference and the
+ * ranking are taken against — is a serious warning on the whole log (no candidate named), in the
+ * verdict's own words, so the answer names no candidate for a trial (TRIAL_RULE). Adopted by the rule
+ * written before measuring (test/battery/README.md, "A contradicted baseline"): on the hold-out
+ * command-line rows it never fired, so it stands on the principle that a candidate's contradiction
+ * already follows, not on evidence that it catches a wrong baseline.
  */
-import type { AssessmentWarning, CrossCheck } from './assessment';
+import type { AssessmentWarning, CrossCheck, PresentControllerAssessment } from './assessment';
+import { policyLabel } from './policyNames';
 
 export const CROSS_CHECK_TOPIC = 'crossCheck';
+export const BASELINE_CONTRADICTED_TOPIC = 'baselineContradicted';
 
 /** The serious warnings of a candidate's disagreeing checks, in the checks' order. */
 export function disagreementWarnings(checks: readonly CrossCheck[]): AssessmentWarning[] {
   return checks.filter((c) => c.agreement === 'disagrees').map((c) => ({ severity: 'serious', topic: CROSS_CHECK_TOPIC, message: `${c.label}: ${c.note}` }));
+}
+
+/** The whole-log warning of a contradicted present controller (its confirmation's text, and that every difference is taken against this J); none otherwise. */
+export function baselineContradictedWarnings(present: Pick<PresentControllerAssessment, 'name' | 'confirmation'> | null): AssessmentWarning[] {
+  if (!present || present.confirmation.status !== 'contradicted') return [];
+  const label = policyLabel(present.name);
+  return [{
+    severity: 'serious', topic: BASELINE_CONTRADICTED_TOPIC,
+    message: `${label.charAt(0).toUpperCase()}${label.slice(1)}: ${present.confirmation.text} Every difference from the baseline is taken against this J.`,
+  }];
 }
