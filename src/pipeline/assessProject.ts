@@ -19,7 +19,7 @@ import type { Assessment, AssessmentWarning } from './assessment';
 import { AssessmentError, candidateWork, episodeOrderedLog, offPolicyInputs, type AssessmentContext, type CandidateWork, type EpisodeOrderedLog } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
 import { classWorks } from './assessClasses';
-import { baselineContradictedWarnings } from './crossCheckWarnings';
+import { baselineConfirmationWarnings } from './crossCheckWarnings';
 import { openRolloutSimulations, rolloutCheck, type RolloutOutcome } from './assessRollouts';
 import { finalStateValues } from './model/completedReturn';
 import { intervalEstimate } from './assessIntervals';
@@ -169,8 +169,8 @@ async function assessWith(
     sensitivity: swept?.sensitivity ?? null,
     unvisitedShare: unvisited,
     plantMemory: memory.summary,
-    // A contradicted baseline: every difference is taken against its J (crossCheckWarnings.ts).
-    warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineContradictedWarnings(presentController)],
+    // A contradicted or unconfirmed baseline: every difference is taken against its J (crossCheckWarnings.ts).
+    warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineConfirmationWarnings(presentController)],
     method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, solver),
     valueSense: plan.sense,
   };

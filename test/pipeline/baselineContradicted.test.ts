@@ -1,5 +1,5 @@
 /**
- * A contradicted baseline (crossCheckWarnings.ts, baselineContradictedWarnings): where a cross-check
+ * A contradicted baseline (crossCheckWarnings.ts, baselineConfirmationWarnings): where a cross-check
  * disagrees with the present controller's own J (crossCheckVerdict.ts: beyond 3 paired standard
  * errors and 2 % of J), the whole log gets one serious warning in the verdict's own words, with no
  * candidate named in it, and the answer (trialChoice.ts) then names no candidate. Invented numbers;
@@ -8,7 +8,7 @@
 import { describe, expect, it } from 'vitest';
 import { confirmationOf, crossCheckVerdict } from '../../src/core/offPolicy/crossCheckVerdict';
 import type { Assessment, CandidateAssessment, IntervalEstimate } from '../../src/pipeline/assessment';
-import { BASELINE_CONTRADICTED_TOPIC, baselineContradictedWarnings } from '../../src/pipeline/crossCheckWarnings';
+import { BASELINE_CONTRADICTED_TOPIC, BASELINE_UNCONFIRMED_TOPIC, baselineConfirmationWarnings } from '../../src/pipeline/crossCheckWarnings';
 import { PRESENT_CONTROLLER_NAME } from '../../src/pipeline/plan/presentController';
 import { trialChoice } from '../../src/pipeline/trialChoice';
 
@@ -24,7 +24,7 @@ describe('a contradicted baseline', () => {
   it('is one serious warning on the whole log, in the confirmation’s words, where a check disagrees with the present controller’s J', () => {
     const confirmation = confirmationOf([check(-2, 0.2)]); // 5 % of J at 10 standard errors: disagrees
     expect(confirmation.status).toBe('contradicted');
-    const warnings = baselineContradictedWarnings(present(confirmation));
+    const warnings = baselineConfirmationWarnings(present(confirmation));
     expect(warnings).toHaveLength(1);
     expect(warnings[0]).toEqual({
       severity: 'serious', topic: BASELINE_CONTRADICTED_TOPIC,
@@ -34,12 +34,19 @@ describe('a contradicted baseline', () => {
     expect('candidate' in warnings[0]).toBe(false);
   });
 
-  it('raises nothing where the present controller’s J is confirmed or unconfirmed, or there is no baseline model', () => {
-    expect(baselineContradictedWarnings(present(confirmationOf([check(-0.2, 0.2)])))).toEqual([]); // 0.5 % of J: agrees
-    expect(baselineContradictedWarnings(present(confirmationOf([check(-2, 1.5)])))).toEqual([]); // 1.3 standard errors: not seen, and too wide to agree
-    expect(confirmationOf([check(-2, 1.5)]).status).toBe('unconfirmed');
-    expect(baselineContradictedWarnings(present(confirmationOf([])))).toEqual([]);
-    expect(baselineContradictedWarnings(null)).toEqual([]);
+  it('raises nothing where the present controller’s J is confirmed, or there is no baseline model', () => {
+    expect(baselineConfirmationWarnings(present(confirmationOf([check(-0.2, 0.2)])))).toEqual([]); // 0.5 % of J: agrees
+    expect(baselineConfirmationWarnings(null)).toEqual([]);
+  });
+
+  it('is a caution on the whole log where nothing can confirm the present controller’s J, as for an unconfirmed candidate', () => {
+    const wide = confirmationOf([check(-2, 1.5)]); // 1.3 standard errors: not seen, and too wide to agree
+    expect(wide.status).toBe('unconfirmed');
+    expect(baselineConfirmationWarnings(present(wide))).toEqual([{
+      severity: 'caution', topic: BASELINE_UNCONFIRMED_TOPIC,
+      message: `Present controller: ${wide.text} Every difference from the baseline is taken against this J.`,
+    }]);
+    expect(baselineConfirmationWarnings(present(confirmationOf([])))[0].severity).toBe('caution');
   });
 
   it('leaves no candidate named for a trial, however clearly better one is', () => {
@@ -54,7 +61,7 @@ describe('a contradicted baseline', () => {
       },
     }) as unknown as Assessment;
     expect(trialChoice(assessment([])).pick?.candidate.name).toBe('A');
-    const choice = trialChoice(assessment(baselineContradictedWarnings(present(confirmationOf([check(-2, 0.2)])))));
+    const choice = trialChoice(assessment(baselineConfirmationWarnings(present(confirmationOf([check(-2, 0.2)])))));
     expect(choice.pick).toBeNull();
     expect(choice.best?.reasons).toEqual(['the assessment raised a serious warning for the whole log']);
   });
