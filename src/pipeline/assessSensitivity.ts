@@ -9,8 +9,9 @@
  * (linearFqe.ts), so each point is one solve. The discounts are γ^(1/f) for f = ½, ¾, 1, 1½, 2: the
  * project's discount with its time constant scaled by f (γ = e^(−Δt/τ) per step of Δt, so τ → f·τ
  * gives γ^(1/f)); for γ near 1 this scales the effective horizon 1/(1 − γ) by about f, and it stays
- * inside (0, 1) for every γ there by construction. The feature sweep takes the project's degree (or centres)
- * and one either side, each with its own data pass, solved as the resamples are.
+ * inside (0, 1) for every γ there by construction. The feature sweep takes the project's centres and
+ * one either side, or three polynomial degrees around the project's from 2 up (sweptDegrees), each
+ * from the class check's fit of that degree or its own data pass, solved as the resamples are.
  * Network: every point is a new network fit, so only the width is swept (½× and 2× the units of
  * every hidden layer, beside the project's own fit) and the discount sweep is left out.
  */
@@ -25,6 +26,7 @@ import type { AssessmentWarning, Sensitivity, SensitivityCurve, SensitivitySerie
 import { checkDiscountSweep, type SweepCheckSettings } from './assessSweepCheck';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
 import { BEHAVIOUR_NAME } from './assessAssembly';
+import { COMPARED_DEGREES, MAX_CLASS_FEATURES } from './assessClasses';
 import { polynomialClassLabel } from './plan/approximatorLabel';
 import { sweepRanking } from './sweepRanking';
 import { isEngineError } from './engineErrors';
@@ -40,8 +42,6 @@ const HORIZON_FACTORS = [0.5, 0.75, 1, 1.5, 2];
 /** The schema's limit on hidden units (src/core/fqe/networkSettings.ts). */
 const MAX_UNITS = 1024;
 const WIDTH_FACTORS = [0.5, 1, 2];
-/** Feature maps larger than this are left out of the sweep (each costs a data pass of O(n·K·d²)). */
-const MAX_SWEEP_FEATURES = 300;
 
 /** The sweeps, and per candidate (works' order) the warnings the discount sweep's check raised (assessSweepCheck.ts). */
 export async function sensitivity(context: AssessmentContext, works: CandidateWork[], sign: number, check: SweepCheckSettings): Promise<{ sensitivity: Sensitivity; warnings: AssessmentWarning[][] }> {
@@ -81,10 +81,11 @@ function discountCurve(context: AssessmentContext, works: CandidateWork[], sign:
 async function featureCurve(context: AssessmentContext, works: CandidateWork[], a: LinearSettings, sign: number): Promise<SensitivityCurve | null> {
   const polynomial = a.features.kind === 'polynomial';
   const own = a.features.kind === 'polynomial' ? a.features.degree : a.features.centresPerInput;
-  const range = polynomial ? POLYNOMIAL_DEGREE_RANGE : RADIAL_CENTRES_RANGE, lowest = range.min, highest = range.max;
-  const variants = [own - 1, own, own + 1].filter((v) => v >= lowest && v <= highest)
+  const range = polynomial ? POLYNOMIAL_DEGREE_RANGE : RADIAL_CENTRES_RANGE;
+  const sizes = polynomial ? sweptDegrees(own, range.max) : [own - 1, own, own + 1].filter((v) => v >= range.min && v <= range.max);
+  const variants = sizes
     .map((v) => ({ value: v, settings: { ...a, features: polynomial ? { kind: 'polynomial' as const, degree: v } : { ...a.features, centresPerInput: v } } }))
-    .filter((v) => v.value === own || sizeOf(context, v.settings) <= MAX_SWEEP_FEATURES);
+    .filter((v) => v.value === own || sizeOf(context, v.settings) <= MAX_CLASS_FEATURES);
   const series: SensitivitySeries[] = [];
   for (const w of works) {
     const fits = [];
@@ -95,6 +96,19 @@ async function featureCurve(context: AssessmentContext, works: CandidateWork[], 
   const parameter = polynomial ? 'polynomialDegree' : 'centresPerInput';
   const label = polynomial ? 'polynomial degree of the features' : 'radial-basis centres per input';
   return finish(parameter, label, variants.map((v) => v.value), variants.findIndex((v) => v.value === own), series, sign);
+}
+
+/**
+ * The polynomial degrees swept: three neighbours of the project's own, one either side where both
+ * exist, the window moved up (or down at the schema's highest) to keep three, and never below the
+ * lowest degree the function-class check compares (2) unless the project's own is lower. A degree-1
+ * Q cannot represent the value of a quadratic cost (assessClasses.ts), so a ranking that turned
+ * there would say nothing about the candidates; degrees 2–4 are the class check's own fits, reused.
+ */
+export function sweptDegrees(own: number, highest: number): number[] {
+  const lowest = Math.min(own, COMPARED_DEGREES[0]);
+  const start = Math.max(lowest, Math.min(own - 1, highest - 2));
+  return [start, start + 1, start + 2].filter((v) => v >= lowest && v <= highest);
 }
 
 async function widthCurve(context: AssessmentContext, works: CandidateWork[], a: NetworkSettings, sign: number): Promise<SensitivityCurve> {
@@ -129,18 +143,26 @@ function sizeOf(context: AssessmentContext, settings: LinearSettings): number {
  * ridge, so the same sums, up to their order of summation), else read off a compared class's whole
  * pass where that is this pass to the last bit (wholePassStatistics), else one more data pass — paced like the
  * model's own (cancellation.ts), so a stop request is heard during it.
+ * Its status is the class check's where that class did not converge (no value, the same words), else
+ * that of the fitted Q-evaluation iteration from zero weights, the rule the project's own fit is judged
+ * by: solved directly at its fixed point, as the resamples of a converged fit are, a class whose
+ * iteration diverges would still give a number and be called converged.
  */
 async function refitLinear(context: AssessmentContext, w: CandidateWork, settings: LinearSettings): Promise<{ value: number | null; status: string }> {
   const { plan, cancel } = context, { quadrature } = w.model;
   throwIfCancelled(cancel);
+  const label = settings.features.kind === 'polynomial' ? polynomialClassLabel(settings.features.degree) : null;
+  const unconverged = w.unconvergedClasses.find((c) => c.label === label);
+  if (unconverged) return { value: null, status: unconverged.why };
   try {
-    const fitted = settings.features.kind === 'polynomial' ? w.classes.find((c) => c.label === polynomialClassLabel((settings.features as { degree: number }).degree))?.model.linear : undefined;
+    const fitted = w.classes.find((c) => c.label === label)?.model.linear;
     const features = fitted?.features ?? featureMapFor(settings, plan.data), d = features.dim;
     const stats = fitted?.statistics ?? wholePassStatistics(plan, features, quadrature, w.classes.map((c) => c.model))
       ?? await runStepsPaced(bellmanStatisticsSteps(plan.data, features, quadrature, { cancel }), context.pace ?? createPacer(PACE_INTERVAL_MS));
     const xiBar = meanStartFeatures(fitted?.startFeatures ?? startStateFeatures(features, quadrature, plan.starts.states, plan.data.stateDim), d);
-    const fit = solveReplicate({ ...linearSolveSettings(plan, w.model), ridge: settings.ridge, constantIndex: features.constantIndex, initialWeights: new Float64Array(d) }, stats, xiBar);
-    return { value: fit.policyValue, status: fit.status };
+    const solve = { ...linearSolveSettings(plan, w.model), solver: 'iteration' as const, ridge: settings.ridge, tolerance: settings.tolerance, maxIterations: settings.maxIterations };
+    const fit = solveReplicate({ ...solve, constantIndex: features.constantIndex, initialWeights: new Float64Array(d) }, stats, xiBar);
+    return { value: fit.status === 'converged' ? fit.policyValue : null, status: fit.status };
   } catch (error) {
     if (isEngineError(error)) return { value: null, status: (error as Error).message };
     throw error;

@@ -107,7 +107,12 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
     const curves = result.value.sensitivity!.curves;
     expect(curves.map((c) => c.parameter)).toEqual(['discount', 'polynomialDegree']);
     expect(curves[0].settings[curves[0].projectIndex]).toBe(0.95);
-    expect(curves[1].settings).toEqual([1, 2, 3]);
+    // From degree 2 up, as the function-class check compares (assessSensitivity.ts, sweptDegrees).
+    expect(curves[1].settings).toEqual([2, 3, 4]);
+    // Where the class check's degree-4 fit diverged, the sweep has no J there and says so: before, solved at its
+    // fixed point, it read "converged" at J = −26 for a cost that is never negative.
+    const swept = curves[1].series.find((s) => /rate limit/.test(s.name))!;
+    expect([swept.values[2], swept.status[2]]).toEqual([null, 'diverged']);
     // A compared class whose fit did not converge is carried to the verdict and named (functionClassRange.ts):
     // in this sample the rate-limited PI's degree-4 fit diverges, while degrees 2 and 3 converge.
     const rateLimited = result.value.candidates.find((c) => /rate limit/.test(c.name))!;

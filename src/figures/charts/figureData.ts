@@ -46,8 +46,8 @@ export interface SensitivityData {
   label: string;
   settings: number[];
   projectIndex: number;
-  /** beyondPossible: true at the crossed points, the fewest that account for every pair of swept J that cannot both be right (drawn as crosses; assessSweepCheck.ts). */
-  series: { name: string; values: (number | null)[]; reference?: boolean; beyondPossible?: boolean[] }[];
+  /** beyondPossible: true at the crossed points, the fewest that account for every pair of swept J that cannot both be right (drawn as crosses; assessSweepCheck.ts); status: each fit's, read where a value is null (missingPointsSentence). */
+  series: { name: string; values: (number | null)[]; status?: string[]; reference?: boolean; beyondPossible?: boolean[] }[];
   rankingStable: boolean;
   /** Settings the ranking verdict leaves out because a J there is crossed (pipeline/sweepRanking.ts). */
   leftOut?: number[];

@@ -14,6 +14,7 @@ import type { Theme } from '../parts/plotTheme';
 import { formatValue } from '../parts/tickFormat';
 import { discountText } from '../../core/horizonText';
 import { keepUnitGroups } from '../../core/unitGroups';
+import { FIT_STATUS_WORDS, type FitStatus } from '../../core/fqe/fitStatus';
 
 export const SENSITIVITY_DEFAULTS = { heightPx: 300, crossedExtraPx: 48, lineWidthPx: 2, pointRadiusPx: 3, projectPointRadiusPx: 6, crossRadiusPx: 7, crossWidthPx: 2.5 } as const;
 
@@ -117,6 +118,24 @@ export function beyondPossibleSentence(curve: Pick<SensitivityCurve, 'series' | 
   });
   if (!parts.length) return null;
   return `Crossed points: J ${parts.join('; ')}. Between a crossed J and J at another setting the change lies outside what the per-step values allow, on paired resamples of the runs, so the two cannot both be right; the crosses are the fewest points that account for every such pair (the candidate’s warnings say by how much).`;
+}
+
+/** A swept fit's status in the words a reader sees (core/fqe/fitStatus.ts); an engine's message as it is. */
+function statusWords(status: string): string {
+  if (status === 'singular') return 'no solution: its equations are singular';
+  return status in FIT_STATUS_WORDS ? FIT_STATUS_WORDS[status as FitStatus] : status;
+}
+
+/**
+ * Where a series has no J (its fit at that setting gave no value, or did not meet its convergence
+ * rule), in one sentence for the panel, the report and the command line ("No J: “A” at 4 (diverged)."),
+ * so a gap in a line is never left unexplained; null when every point has a value.
+ */
+export function missingPointsSentence(curve: Pick<SensitivityCurve, 'series' | 'settings' | 'parameter'>, name: (n: string) => string = (n) => n): string | null {
+  const parts = curve.series.flatMap((serie) => curve.settings.flatMap((_, i) =>
+    (serie.values[i] === null ? [`${quoted(name(serie.name))} at ${settingText(curve, i)} (${statusWords(serie.status?.[i] ?? 'no value')})`] : [])));
+  if (!parts.length) return null;
+  return `No J where the fit at that setting did not converge: ${parts.join('; ')}. The line has a gap there, and the ranking at that setting is read among the others.`;
 }
 
 /** rankingVerdict as a sentence of its own. */
