@@ -31,6 +31,7 @@ import { polynomialClassLabel } from './plan/approximatorLabel';
 import { sweepRanking } from './sweepRanking';
 import { isEngineError } from './engineErrors';
 import { fitNetworkCandidate } from './fitNetworkCandidate';
+import { NETWORK_LIMITS } from '../core/fqe/networkSettings';
 import { wholePassStatistics } from './model/linearModel';
 import { networkRequest } from './model/networkModel';
 import { featureMapFor } from './plan/featureMapFor';
@@ -39,8 +40,6 @@ type LinearSettings = Extract<ApproximatorSettings, { kind: 'linear' }>;
 type NetworkSettings = Extract<ApproximatorSettings, { kind: 'network' }>;
 
 const HORIZON_FACTORS = [0.5, 0.75, 1, 1.5, 2];
-/** The schema's limit on hidden units (src/core/fqe/networkSettings.ts). */
-const MAX_UNITS = 1024;
 const WIDTH_FACTORS = [0.5, 1, 2];
 
 /** The sweeps, and per candidate (works' order) the warnings the discount sweep's check raised (assessSweepCheck.ts). */
@@ -112,7 +111,7 @@ export function sweptDegrees(own: number, highest: number): number[] {
 }
 
 async function widthCurve(context: AssessmentContext, works: CandidateWork[], a: NetworkSettings, sign: number): Promise<SensitivityCurve> {
-  const widths = WIDTH_FACTORS.map((f) => a.hiddenLayers.map((u) => Math.min(MAX_UNITS, Math.max(1, Math.round(u * f)))));
+  const widths = WIDTH_FACTORS.map((f) => a.hiddenLayers.map((u) => Math.min(NETWORK_LIMITS.units.max, Math.max(NETWORK_LIMITS.units.min, Math.round(u * f)))));
   const series: SensitivitySeries[] = [];
   for (const w of works) {
     const fits = [];

@@ -63,35 +63,54 @@ export const defaultNetworkSettings: Readonly<NetworkFqeSettings> = Object.freez
   polynomialDegree: DEFAULT_POLYNOMIAL_PART,
 });
 
-const ACTIVATIONS: readonly NetworkActivation[] = ['relu', 'tanh', 'elu'];
-const BACKENDS: readonly NetworkBackendPreference[] = ['auto', 'wasm', 'cpu'];
+export const NETWORK_ACTIVATIONS = ['relu', 'tanh', 'elu'] as const satisfies readonly NetworkActivation[];
+export const NETWORK_BACKENDS = ['auto', 'wasm', 'cpu'] as const satisfies readonly NetworkBackendPreference[];
 
-/** Throws FqeOptionsError naming the first setting that cannot be used. Limits match the schema. */
+/**
+ * The ranges a network setting may take, in one place: the project schema reads them
+ * (src/project/schema.ts) and checkNetworkSettings holds the engine's other callers to them. Ours:
+ * wide enough for any network this CPU-only tool can train, narrow enough that a typo (a hidden layer
+ * of 100,000 units, a held-out half plus) is refused with the field's name rather than run out of memory.
+ */
+export const NETWORK_LIMITS = Object.freeze({
+  hiddenLayers: { min: 1, max: 6 },
+  units: { min: 1, max: 1024 },
+  batchSize: { min: 8, max: 65_536 },
+  stepsPerIteration: { min: 1, max: 100_000 },
+  outerIterations: { min: 1, max: 10_000 },
+  heldOutFraction: { min: 0, max: 0.5 },
+  patience: { min: 0, max: 10_000 },
+  /** Exclusive of its lower end: a tolerance of 0 could never be met. */
+  tolerance: { above: 0, max: 1 },
+  averageLast: { min: 1, max: 100 },
+});
+
+/** Throws FqeOptionsError naming the first setting that cannot be used (NETWORK_LIMITS, as the schema). */
 export function checkNetworkSettings(s: NetworkFqeSettings): void {
-  const layers = s.hiddenLayers;
-  if (!Array.isArray(layers) || layers.length < 1 || layers.length > 6) {
-    throw new FqeOptionsError(`hiddenLayers: expected 1 to 6 hidden layers, got ${Array.isArray(layers) ? layers.length : String(layers)}`);
+  const layers = s.hiddenLayers, L = NETWORK_LIMITS;
+  if (!Array.isArray(layers) || layers.length < L.hiddenLayers.min || layers.length > L.hiddenLayers.max) {
+    throw new FqeOptionsError(`hiddenLayers: expected ${L.hiddenLayers.min} to ${L.hiddenLayers.max} hidden layers, got ${Array.isArray(layers) ? layers.length : String(layers)}`);
   }
-  layers.forEach((units, i) => wholeNumber(`hiddenLayers[${i}]`, units, 1, 1024));
-  if (!ACTIVATIONS.includes(s.activation)) throw new FqeOptionsError(`activation: expected one of ${ACTIVATIONS.join(', ')}, got ${String(s.activation)}`);
+  layers.forEach((units, i) => wholeNumber(`hiddenLayers[${i}]`, units, L.units));
+  if (!(NETWORK_ACTIVATIONS as readonly string[]).includes(s.activation)) throw new FqeOptionsError(`activation: expected one of ${NETWORK_ACTIVATIONS.join(', ')}, got ${String(s.activation)}`);
   if (!(s.learningRate > 0) || !Number.isFinite(s.learningRate)) {
     throw new FqeOptionsError(`learningRate: expected a positive number, got ${s.learningRate}`);
   }
-  wholeNumber('batchSize', s.batchSize, 8, 65_536);
-  wholeNumber('stepsPerIteration', s.stepsPerIteration, 1, 100_000);
-  wholeNumber('outerIterations', s.outerIterations, 1, 10_000);
-  if (!(s.heldOutFraction >= 0 && s.heldOutFraction <= 0.5)) {
-    throw new FqeOptionsError(`heldOutFraction: expected a fraction from 0 to 0.5, got ${s.heldOutFraction}`);
+  wholeNumber('batchSize', s.batchSize, L.batchSize);
+  wholeNumber('stepsPerIteration', s.stepsPerIteration, L.stepsPerIteration);
+  wholeNumber('outerIterations', s.outerIterations, L.outerIterations);
+  if (!(s.heldOutFraction >= L.heldOutFraction.min && s.heldOutFraction <= L.heldOutFraction.max)) {
+    throw new FqeOptionsError(`heldOutFraction: expected a fraction from ${L.heldOutFraction.min} to ${L.heldOutFraction.max}, got ${s.heldOutFraction}`);
   }
-  wholeNumber('patience', s.patience, 0, 10_000);
-  if (!(s.tolerance > 0 && s.tolerance <= 1)) throw new FqeOptionsError(`tolerance: expected a fraction above 0 and at most 1, got ${s.tolerance}`);
-  wholeNumber('averageLast', s.averageLast, 1, 100);
-  if (!BACKENDS.includes(s.backend)) throw new FqeOptionsError(`backend: expected one of ${BACKENDS.join(', ')}, got ${String(s.backend)}`);
+  wholeNumber('patience', s.patience, L.patience);
+  if (!(s.tolerance > L.tolerance.above && s.tolerance <= L.tolerance.max)) throw new FqeOptionsError(`tolerance: expected a fraction above ${L.tolerance.above} and at most ${L.tolerance.max}, got ${s.tolerance}`);
+  wholeNumber('averageLast', s.averageLast, L.averageLast);
+  if (!(NETWORK_BACKENDS as readonly string[]).includes(s.backend)) throw new FqeOptionsError(`backend: expected one of ${NETWORK_BACKENDS.join(', ')}, got ${String(s.backend)}`);
   if (!isPolynomialPartSetting(s.polynomialDegree)) throw new FqeOptionsError(`polynomialDegree: expected ${POLYNOMIAL_PART_VALUES_TEXT}, got ${JSON.stringify(s.polynomialDegree)}`);
 }
 
-function wholeNumber(name: string, value: number, lo: number, hi: number): void {
-  if (!Number.isInteger(value) || value < lo || value > hi) {
-    throw new FqeOptionsError(`${name}: expected a whole number from ${lo} to ${hi}, got ${value}`);
+function wholeNumber(name: string, value: number, range: { readonly min: number; readonly max: number }): void {
+  if (!Number.isInteger(value) || value < range.min || value > range.max) {
+    throw new FqeOptionsError(`${name}: expected a whole number from ${range.min} to ${range.max}, got ${value}`);
   }
 }
