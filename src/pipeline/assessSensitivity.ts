@@ -20,7 +20,7 @@ import { solveReplicate } from '../core/bootstrap/linearFqeReplicate';
 import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturns } from '../core/loggedReturn';
-import type { ApproximatorSettings } from '../project/schema';
+import type { ApproximatorSettings } from '../project/approximatorSchema';
 import type { AssessmentWarning, Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
 import { checkDiscountSweep, type SweepCheckSettings } from './assessSweepCheck';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
