@@ -203,7 +203,8 @@ export const SWEEP_CHECK_BUDGET = 2e9;
 
 /**
  * Two J of a sweep are tied, and rank neither above the other, when they differ by at most this share
- * of the larger magnitude (pipeline/sweepRanking.ts). The ranking's words name no J, only which
+ * of the larger magnitude, or of the size of the terms they sum where J is nearer 0 than that
+ * (core/rankingTie.ts, which says why the scale must not vanish; pipeline/sweepRanking.ts). The ranking's words name no J, only which
  * policy "ranks above" which, so the rule is about the numbers themselves, not how a figure prints
  * them: two J of the same value reached by sums in another order lie a few units in the last place
  * apart (0.1 + 0.2 against 0.3: a relative 1.9e−16), and a sort that put one of them first named a

@@ -21,7 +21,8 @@ import { solveReplicate } from '../core/bootstrap/linearFqeReplicate';
 import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturns } from '../core/loggedReturn';
-import type { ApproximatorSettings } from '../project/schema';
+import { rewardTermScale } from '../core/rankingTie';
+import type { ApproximatorSettings } from '../project/approximatorSchema';
 import type { AssessmentWarning, Sensitivity, SensitivityCurve, SensitivitySeries } from './assessment';
 import { checkDiscountSweep, type SweepCheckSettings } from './assessSweepCheck';
 import { linearSolveSettings, type AssessmentContext, type CandidateWork } from './assessCandidate';
@@ -74,7 +75,8 @@ function discountCurve(context: AssessmentContext, works: CandidateWork[], sign:
     ...(swept.marks[c].some(Boolean) ? { beyondPossible: swept.marks[c] } : {}),
   }));
   series.push({ name: BEHAVIOUR_NAME, values: loggedDiscountedReturns(plan.data, settings).map((r) => sign * r.value), status: settings.map(() => 'logged'), reference: true });
-  return { curve: finish('discount', 'discount factor γ', settings, projectIndex, series, sign), warnings: swept.warnings, note: swept.note };
+  const scales = settings.map((g) => rewardTermScale(plan.data.rewards, g));
+  return { curve: finish('discount', 'discount factor γ', settings, projectIndex, series, sign, scales), warnings: swept.warnings, note: swept.note };
 }
 
 async function featureCurve(context: AssessmentContext, works: CandidateWork[], a: LinearSettings, sign: number): Promise<SensitivityCurve | null> {
@@ -94,7 +96,7 @@ async function featureCurve(context: AssessmentContext, works: CandidateWork[], 
   series.push(flatBehaviour(context, variants.length, sign));
   const parameter = polynomial ? 'polynomialDegree' : 'centresPerInput';
   const label = polynomial ? 'polynomial degree of the features' : 'radial-basis centres per input';
-  return finish(parameter, label, variants.map((v) => v.value), variants.findIndex((v) => v.value === own), series, sign);
+  return finish(parameter, label, variants.map((v) => v.value), variants.findIndex((v) => v.value === own), series, sign, projectScales(context, variants.length));
 }
 
 /**
@@ -119,7 +121,7 @@ async function widthCurve(context: AssessmentContext, works: CandidateWork[], a:
     series.push({ name: w.model.name, values: fits.map((f) => (f.value === null ? null : sign * f.value)), status: fits.map((f) => f.status) });
   }
   series.push(flatBehaviour(context, widths.length, sign));
-  return finish('networkWidth', `units in the first hidden layer (all layers scaled alike; project ${a.hiddenLayers.join('×')})`, widths.map((h) => h[0]), WIDTH_FACTORS.indexOf(1), series, sign);
+  return finish('networkWidth', `units in the first hidden layer (all layers scaled alike; project ${a.hiddenLayers.join('×')})`, widths.map((h) => h[0]), WIDTH_FACTORS.indexOf(1), series, sign, projectScales(context, widths.length));
 }
 
 function flatBehaviour(context: AssessmentContext, count: number, sign: number): SensitivitySeries {
@@ -180,8 +182,14 @@ async function refitNetwork(context: AssessmentContext, w: CandidateWork, settin
   }
 }
 
+/** The tie rule's term scale at the project's discount, the same at each of `count` settings (core/rankingTie.ts). */
+function projectScales(context: AssessmentContext, count: number): number[] {
+  return new Array<number>(count).fill(rewardTermScale(context.plan.data.rewards, context.plan.discount));
+}
+
+/** termScales: per setting, the size of the terms its J sum, for the ranking's tie rule (core/rankingTie.ts). */
 function finish(
-  parameter: SensitivityCurve['parameter'], label: string, settings: number[], projectIndex: number, series: SensitivitySeries[], sign: number,
+  parameter: SensitivityCurve['parameter'], label: string, settings: number[], projectIndex: number, series: SensitivitySeries[], sign: number, termScales: number[],
 ): SensitivityCurve {
-  return { parameter, label, settings, projectIndex, series, ...sweepRanking(settings, series, sign, projectIndex) };
+  return { parameter, label, settings, projectIndex, series, ...sweepRanking(settings, series, sign, projectIndex, termScales) };
 }

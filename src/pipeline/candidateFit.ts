@@ -8,7 +8,7 @@ import type { NetworkValueEstimate, ValueInterval } from '../core/fqe/networkVal
 import type { CancellationCheck } from '../core/fqe/cancellation';
 import type { GaussianPolicy } from '../core/policy';
 import type { TransitionSet } from '../core/transitions';
-import type { ApproximatorSettings } from '../project/schema';
+import type { ApproximatorSettings } from '../project/approximatorSchema';
 import type { FitIteration, FitStatus } from './estimates';
 
 export interface CandidateFitRequest {

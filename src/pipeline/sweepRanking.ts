@@ -3,19 +3,21 @@
  * (SensitivitySeries.beyondPossible, assessSweepCheck.ts) left out — the project's own setting too:
  * a ranking read against a J that cannot be right would vouch for nothing. The verdict compares the
  * settings kept with each other, pair by pair among the J that exist (a missing J is not a change, nor
- * is a pair tied at either setting: core/limits.ts RANKING_TIE_RELATIVE); with fewer than two kept there
+ * is a pair tied at either setting: core/rankingTie.ts); with fewer than two kept there
  * is nothing to compare, and
  * figures/charts/sensitivity.ts rankingVerdict says so.
  */
 import type { RankingChange, SensitivityCurve, SensitivitySeries } from './assessment';
-import { RANKING_TIE_RELATIVE } from '../core/limits';
+import { tiedValues } from '../core/rankingTie';
 
 /**
  * projectIndex: the project's own setting, against whose order the changes are named (rankingChanges);
  * where it is left out, the first setting kept. sign: +1 where a larger J is better (a reward), −1 for a cost.
+ * termScales: per setting, the size of the terms its J sum (core/rankingTie.ts rewardTermScale), below which
+ * the tie rule's scale does not shrink; absent (hand-made series): the relative rule alone.
  */
 export function sweepRanking(
-  settings: readonly number[], series: readonly SensitivitySeries[], sign: number, projectIndex = 0,
+  settings: readonly number[], series: readonly SensitivitySeries[], sign: number, projectIndex = 0, termScales: readonly number[] = [],
 ): Pick<SensitivityCurve, 'rankingStable' | 'leftOut' | 'rankingChanges'> {
   const orderAt = (i: number) => series.filter((s) => s.values[i] !== null).sort((x, y) => sign * ((y.values[i] as number) - (x.values[i] as number)));
   const leftOut = settings.flatMap((_, i) => (series.some((s) => s.beyondPossible?.[i]) ? [i] : []));
@@ -23,7 +25,7 @@ export function sweepRanking(
   // Stable when no two policies stand the other way round at two kept settings, among the J each has: a fit with no value
   // at one setting (its status says why) leaves a gap in the line, not a change of ranking.
   const orders = new Map(kept.map((i) => [i, orderAt(i)]));
-  const swapped = (i: number, j: number) => swappedPairs(orders.get(i)!, i, j, sign);
+  const swapped = (i: number, j: number) => swappedPairs(orders.get(i)!, i, j, sign, termScales);
   const rankingStable = kept.every((i) => kept.every((j) => j <= i || swapped(i, j).length === 0));
   const reference = kept.includes(projectIndex) ? projectIndex : kept[0];
   // The pairs of two candidates first, those with the logged return's reference line after: the words name the first
@@ -42,18 +44,19 @@ export function sweepRanking(
  * The pairs [ahead, behind] as ranked in `order` (the series with a J at `at`, best first) whose two stand
  * the other way round at `reference`; a pair tied at either setting, or without a J at the reference, is no turn.
  */
-function swappedPairs(order: readonly SensitivitySeries[], at: number, reference: number, sign: number): RankingChange['swapped'] {
+function swappedPairs(order: readonly SensitivitySeries[], at: number, reference: number, sign: number, termScales: readonly number[]): RankingChange['swapped'] {
   return order.flatMap((ahead, k) => order.slice(k + 1).flatMap((behind): [string, string][] => (
-    standing(ahead, behind, at, sign) > 0 && standing(ahead, behind, reference, sign) < 0 ? [[ahead.name, behind.name]] : [])));
+    standing(ahead, behind, at, sign, termScales) > 0 && standing(ahead, behind, reference, sign, termScales) < 0 ? [[ahead.name, behind.name]] : [])));
 }
 
 /**
  * +1 where `a` ranks above `b` at setting i, −1 below, 0 where either has no J or the two are tied: within
- * RANKING_TIE_RELATIVE of the larger magnitude (core/limits.ts says why), so that a pair equal at one setting
- * up to rounding reads as neither order there, and a sort that put one of two equal J first turns nothing round.
+ * RANKING_TIE_RELATIVE of the larger magnitude, or of the setting's term scale where that is larger
+ * (core/rankingTie.ts says why), so that a pair equal at one setting up to rounding reads as neither order
+ * there — near 0 too — and a sort that put one of two equal J first turns nothing round.
  */
-function standing(a: SensitivitySeries, b: SensitivitySeries, i: number, sign: number): number {
+function standing(a: SensitivitySeries, b: SensitivitySeries, i: number, sign: number, termScales: readonly number[]): number {
   const x = a.values[i], y = b.values[i];
-  if (x === null || y === null || Math.abs(x - y) <= RANKING_TIE_RELATIVE * Math.max(Math.abs(x), Math.abs(y))) return 0;
+  if (x === null || y === null || tiedValues(x, y, termScales[i] ?? 0)) return 0;
   return Math.sign(sign * (x - y));
 }

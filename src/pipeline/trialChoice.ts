@@ -55,14 +55,15 @@ function lineOf(assessment: Assessment, candidate: CandidateAssessment): TrialLi
   const difference = assessment.comparison.differences.find((d) => d.a === candidate.name && d.b === baseline) ?? null;
   const clearlyBetter = whollyBetter(difference?.difference.percentile ?? null, assessment.valueSense);
   const serious = candidate.warnings.filter((w) => w.severity === 'serious').length;
-  // A disagreeing check's serious warning is the contradiction itself (crossCheckWarnings.ts): said once, as the contradiction.
   const contradicted = candidate.confirmation.status === 'contradicted';
   const cautions = candidate.warnings.length - serious;
   const onLog = assessment.warnings.filter((w) => w.candidate === undefined || w.candidate === candidate.name);
   const logSerious = onLog.filter((w) => w.severity === 'serious').length, logCautions = onLog.length - logSerious;
-  // Its own serious warnings, and those in the whole-log list about it by name.
+  // Its own serious warnings, and those in the whole-log list about it by name. A disagreeing check's serious warning is the
+  // contradiction itself, said once as the contradiction: it comes from the same disagreeing checks as the status "contradicted"
+  // (assessAssembly.ts, crossCheckWarnings.ts), so leaving its topic out never drops a warning the contradiction does not say.
   const namedInLog = onLog.filter((w) => w.severity === 'serious' && w.candidate !== undefined).length;
-  const otherSerious = namedInLog + (contradicted ? candidate.warnings.filter((w) => w.severity === 'serious' && w.topic !== CROSS_CHECK_TOPIC).length : serious);
+  const otherSerious = namedInLog + candidate.warnings.filter((w) => w.severity === 'serious' && w.topic !== CROSS_CHECK_TOPIC).length;
   const reasons: string[] = [];
   if (!difference?.difference.percentile) reasons.push('its difference from the baseline has no interval');
   else if (!clearlyBetter) reasons.push('the interval of its difference from the baseline reaches 0 or the worse side');

@@ -31,19 +31,24 @@ const numberWith = (minus: Minus) => (v: number): string => {
   return a !== 0 && (a >= 1e6 || a < 1e-3) ? exponentText(v, 3, minus, true) : Number(v.toPrecision(5)).toString().replace('-', minus);
 };
 
+/** "25 % per °C": the number held to its unit (a bare number where there is none). */
+const withUnitIn = (minus: Minus) => {
+  const num = numberWith(minus);
+  return (v: number, unit: string): string => (unit ? `${num(v)}${NO_BREAK_SPACE}${unit}` : num(v));
+};
+
+const actionUnitIn = (columns: ColumnRoles) => (j: number): string => columns.actions[j]?.unit ?? '';
+const actionNameIn = (columns: ColumnRoles) => (j: number): string => columns.actions[j]?.column ?? `action ${j + 1}`;
+
 /**
  * minus: the sign of each number, U+2212 for the app and the report, ASCII for the command line, where
  * every other number is ASCII and a user searches for "-10" as typed. The "−" between a setpoint and
  * its measurement is an operator between names, not a number's sign, and stays as written.
  */
 export function summariseCandidate(c: CandidateSpec, columns: ColumnRoles, minus: Minus = TRUE_MINUS): CandidateSummary {
-  const num = numberWith(minus);
-  /** "25 % per °C": the number held to its unit (a bare number where there is none). */
-  const withUnit = (v: number, unit: string): string => (unit ? `${num(v)}${NO_BREAK_SPACE}${unit}` : num(v));
+  const withUnit = withUnitIn(minus), actionUnit = actionUnitIn(columns), actionName = actionNameIn(columns);
   const unitOf = (name: string): string => columns.states.find((s) => s.column === name)?.unit ?? '';
-  const actionUnit = (j: number): string => columns.actions[j]?.unit ?? '';
   const per = (j: number, state: string): string => `${actionUnit(j) || 'unit'} per ${unitOf(state) || 'unit'}`;
-  const actionName = (j: number): string => columns.actions[j]?.column ?? `action ${j + 1}`;
   const feedback = (loop: Feedback, j: number): string => {
     const setpoint = typeof loop.setpoint === 'number' ? withUnit(loop.setpoint, unitOf(loop.measurement)) : loop.setpoint;
     const integral = loop.integralTimeSeconds !== undefined ? `, T_i ${withUnit(loop.integralTimeSeconds, 's')}`
@@ -68,13 +73,12 @@ export function summariseCandidate(c: CandidateSpec, columns: ColumnRoles, minus
     });
   }
   const dither = `dither ${c.dither.map((d, j) => withUnit(d, actionUnit(j))).join(', ')} (standard deviation)`;
-  return { mean, dither, limits: limitsText(c, actionUnit, actionName, num, withUnit, minus) };
+  return { mean, dither, limits: limitsText(c, columns, minus) };
 }
 
-function limitsText(
-  c: CandidateSpec, actionUnit: (j: number) => string, actionName: (j: number) => string,
-  num: (v: number) => string, withUnit: (v: number, unit: string) => string, minus: Minus,
-): string {
+/** Position limits and rate limit in words, each number's sign in `minus`; "none" where there are neither. */
+function limitsText(c: CandidateSpec, columns: ColumnRoles, minus: Minus): string {
+  const num = numberWith(minus), withUnit = withUnitIn(minus), actionUnit = actionUnitIn(columns), actionName = actionNameIn(columns);
   const parts: string[] = [];
   if (c.bounds) {
     const b = c.bounds;

@@ -161,6 +161,28 @@ describe('two J equal at a setting (core/limits.ts RANKING_TIE_RELATIVE)', () =>
   });
 });
 
+describe('two J near 0 at a setting (core/rankingTie.ts: the tie scale cannot vanish)', () => {
+  const degrees = [1, 2, 3];
+  // A reward project whose gains and costs cancel: J near 0. The logged rewards' mean magnitude 0.2 over 1/(1 − 0.9): S = 2 at every setting.
+  const scales = [2, 2, 2];
+
+  it('names no turn where two J equal to 0 differ only by rounding, one each side of 0', () => {
+    // IEEE 754 binary64: (0.1 + 0.2) − 0.3 = 5.55e−17 and 0.1 + (0.2 − 0.3) − 5.55e−17 < 0: the same 0 by two sums.
+    const zeroA = (0.1 + 0.2) - 0.3, zeroB = 0.1 + (0.2 - 0.3) - zeroA;
+    // Reward sense: Tuned ahead at 1 and 3; at 2 the two are the same 0, Trimmed's rounded up and Tuned's down.
+    const series = [serie('Tuned', [0.5, zeroB, 0.3]), serie('Trimmed', [0.4, zeroA, 0.2])];
+    expect(sweepRanking(degrees, series, 1, 1, scales)).toEqual({ rankingStable: true });
+    // Relative to max(|J|) alone, rounding of 1e−17 was a gap: a turn was named at 1 and 3.
+    expect(sweepRanking(degrees, series, 1, 1).rankingChanges).toEqual([{ at: 0, swapped: [['Tuned', 'Trimmed']] }, { at: 2, swapped: [['Tuned', 'Trimmed']] }]);
+  });
+
+  it('still names a real turn near 0 and of mixed sign (−0.0004 against +0.0003), and ties two zeros', () => {
+    const series = [serie('Tuned', [0.5, -0.0004, 0.3]), serie('Trimmed', [0.4, 0.0003, 0.2])];
+    expect(sweepRanking(degrees, series, 1, 1, scales).rankingChanges).toEqual([{ at: 0, swapped: [['Tuned', 'Trimmed']] }, { at: 2, swapped: [['Tuned', 'Trimmed']] }]);
+    expect(sweepRanking(degrees, [serie('Tuned', [0.5, 0, 0.3]), serie('Trimmed', [0.4, 0, 0.2])], 1, 1, scales)).toEqual({ rankingStable: true });
+  });
+});
+
 describe('a tie at the project’s setting between two that turn round elsewhere', () => {
   it('still reads as a change: the tie names no pair against the project’s order, but the two settings either side differ', () => {
     // Cost sense. "Tuned" and "Trimmed" are equal at the project's degree 2; Trimmed is the cheaper at 1, Tuned at 3.

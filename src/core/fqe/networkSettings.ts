@@ -34,7 +34,7 @@ export interface NetworkFqeSettings {
 }
 
 /**
- * The defaults of the project schema (src/project/schema.ts, approximator kind "network"), chosen
+ * The defaults of the project schema (src/project/approximatorSchema.ts, kind "network"), chosen
  * on the battery (test/battery, `npm run bench -- battery --run-starts wide`, 6 plants, seeds 1–2):
  * two layers of 32 with 75 steps of 1,024 transitions per outer iteration (the same 76,800
  * transitions an iteration saw before with [64, 32] × 150 steps of 512, at twice the step size)

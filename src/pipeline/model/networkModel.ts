@@ -4,7 +4,7 @@
  * and nowhere else; a sweep that varies a setting passes it as an override.
  */
 import { createActionQuadrature } from '../../core/actionQuadrature';
-import type { ApproximatorSettings } from '../../project/schema';
+import type { ApproximatorSettings } from '../../project/approximatorSchema';
 import type { CandidateFitRequest } from '../candidateFit';
 import { fitNetworkCandidate } from '../fitNetworkCandidate';
 import type { EvaluationPlan, PlannedPolicy } from '../plan/evaluationPlan';

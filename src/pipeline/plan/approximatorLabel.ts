@@ -5,7 +5,7 @@
  * which only a reader of the settings file could decode (the screen review).
  */
 import { POLYNOMIAL_PART_CHOSEN, type PolynomialPartSetting } from '../../core/fqe/polynomialPartSetting';
-import type { ApproximatorSettings } from '../../project/schema';
+import type { ApproximatorSettings } from '../../project/approximatorSchema';
 
 type Network = Extract<ApproximatorSettings, { kind: 'network' }>;
 type Linear = Extract<ApproximatorSettings, { kind: 'linear' }>;

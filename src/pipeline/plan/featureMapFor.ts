@@ -7,7 +7,7 @@ import { FeatureSpecError } from '../../core/features/featureSpecError';
 import { failure, success, type Result } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
 import { checkEnoughTransitions } from '../../data/datasetChecks';
-import type { ApproximatorSettings } from '../../project/schema';
+import type { ApproximatorSettings } from '../../project/approximatorSchema';
 
 /** Half-width of the radial-basis grid in standard deviations (radialBasisFeatures.ts default). */
 const RBF_HALF_RANGE = 2;

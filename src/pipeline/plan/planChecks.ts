@@ -6,7 +6,7 @@
 import { monomialCount } from '../../core/features/monomials';
 import { POLYNOMIAL_PART_CHOSEN } from '../../core/fqe/polynomialPartSetting';
 import { horizonSteps, MAX_FEATURES } from '../../core/limits';
-import type { ApproximatorSettings } from '../../project/schema';
+import type { ApproximatorSettings } from '../../project/approximatorSchema';
 import { stepsText } from '../../core/horizonText';
 import type { Problem } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';

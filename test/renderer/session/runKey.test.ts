@@ -3,7 +3,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
-import { approximatorSchema } from '../../../src/project/schema';
+import { approximatorSchema } from '../../../src/project/approximatorSchema';
 import { importKey, runKey } from '../../../src/shared/runKey';
 
 const loaded = parseProjectText(readFileSync(resolve(__dirname, '../../../sample-projects/tank-levels/tank-levels.spcritic'), 'utf8'), 'p');

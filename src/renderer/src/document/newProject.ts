@@ -5,7 +5,8 @@
  * what is missing.
  */
 import { DEFAULT_POLYNOMIAL_DEGREE } from '../../../core/limits';
-import { approximatorSchema, PROJECT_FORMAT, PROJECT_VERSION, type ApproximatorSettings, type ProjectDocument } from '../../../project/schema';
+import { approximatorSchema, type ApproximatorSettings } from '../../../project/approximatorSchema';
+import { PROJECT_FORMAT, PROJECT_VERSION, type ProjectDocument } from '../../../project/schema';
 
 export const UNTITLED = 'Untitled project';
 

@@ -2,7 +2,7 @@
 import { NumberField } from '../../components/NumberField';
 import { SelectField } from '../../components/SelectField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
-import type { ApproximatorSettings } from '../../../../project/schema';
+import type { ApproximatorSettings } from '../../../../project/approximatorSchema';
 import { useWorkspace } from '../../WorkspaceContext';
 import { SETTING_HELP } from './settingHelp';
 

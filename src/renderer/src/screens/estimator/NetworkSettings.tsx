@@ -3,7 +3,7 @@ import { useEffect, useState } from 'react';
 import { NumberField } from '../../components/NumberField';
 import { SelectField } from '../../components/SelectField';
 import { problemAt, type FieldProblem } from '../../document/projectProblems';
-import type { ApproximatorSettings } from '../../../../project/schema';
+import type { ApproximatorSettings } from '../../../../project/approximatorSchema';
 import { ACTIVATION_NAMES } from '../../../../pipeline/plan/approximatorLabel';
 import { POLYNOMIAL_PART_CHOSEN, POLYNOMIAL_PART_VALUES, type PolynomialPartSetting } from '../../../../core/fqe/polynomialPartSetting';
 import { useWorkspace } from '../../WorkspaceContext';
