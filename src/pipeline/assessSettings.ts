@@ -3,6 +3,7 @@
  * with which seed, and whether to run the sensitivity sweeps. Read from the project document's
  * optional `bootstrap` block and overridden by the host (CLI flags, the app's form).
  */
+import { BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, SEED } from '../core/limits';
 import { failure, success, type Problem, type Result } from '../core/result';
 import type { ProjectDocument } from '../project/schema';
 
@@ -13,15 +14,9 @@ export interface AssessmentSettings {
   sensitivity: boolean;
 }
 
-/**
- * 1000 resamples keep the Monte Carlo error of a 90 % percentile endpoint near 0.03 standard
- * errors of the estimate (Efron & Tibshirani 1993, §19.3, recommend B ≥ 1000 for percentile
- * intervals; common practice).
- */
-export const DEFAULT_RESAMPLES = 1000;
-export const DEFAULT_LEVEL = 0.9;
-export const MIN_RESAMPLES = 20;
-export const MAX_RESAMPLES = 100_000;
+/** The defaults and ranges of core/limits.ts (BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL), where the schema reads them too. */
+export const DEFAULT_RESAMPLES = BOOTSTRAP_RESAMPLES.default;
+export const DEFAULT_LEVEL = CONFIDENCE_LEVEL.default;
 
 /** The optional block of the project document (schema field `bootstrap`). */
 export interface BootstrapBlock {
@@ -40,12 +35,15 @@ export function assessmentSettingsFor(project: ProjectDocument & { bootstrap?: B
     sensitivity: overrides.sensitivity ?? project.approximator.kind === 'linear',
   };
   const problems: Problem[] = [];
-  if (!Number.isInteger(settings.resamples) || settings.resamples < MIN_RESAMPLES || settings.resamples > MAX_RESAMPLES) {
-    problems.push({ where: 'bootstrap.resamples', message: `expected a whole number from ${MIN_RESAMPLES} to ${MAX_RESAMPLES.toLocaleString('en-US')}, got ${settings.resamples}` });
+  const { min, max } = BOOTSTRAP_RESAMPLES, level = CONFIDENCE_LEVEL;
+  if (!Number.isInteger(settings.resamples) || settings.resamples < min || settings.resamples > max) {
+    problems.push({ where: 'bootstrap.resamples', message: `expected a whole number from ${min} to ${max.toLocaleString('en-US')}, got ${settings.resamples}` });
   }
-  if (!(settings.level >= 0.5 && settings.level < 1)) {
-    problems.push({ where: 'bootstrap.level', message: `expected a confidence level from 0.5 to below 1 (e.g. 0.9), got ${settings.level}` });
+  if (!(settings.level >= level.min && settings.level < level.below)) {
+    problems.push({ where: 'bootstrap.level', message: `expected a confidence level from ${level.min} to below ${level.below} (e.g. ${level.default}), got ${settings.level}` });
   }
-  if (!Number.isInteger(settings.seed) || settings.seed < 0) problems.push({ where: 'seed', message: `expected a whole number ≥ 0, got ${settings.seed}` });
+  if (!Number.isInteger(settings.seed) || settings.seed < SEED.min || settings.seed > SEED.max) {
+    problems.push({ where: 'seed', message: `expected a whole number from ${SEED.min} to ${SEED.max.toLocaleString('en-US')}, got ${settings.seed}` });
+  }
   return problems.length ? failure(...problems) : success(settings);
 }

@@ -4,7 +4,7 @@
  * (src/core/limits.ts, src/core/fqe/networkSettings.ts) so each lives once.
  */
 import { z } from 'zod';
-import { defaultNetworkSettings as net } from '../core/fqe/networkSettings';
+import { defaultNetworkSettings as net, NETWORK_ACTIVATIONS, NETWORK_BACKENDS, NETWORK_LIMITS as L } from '../core/fqe/networkSettings';
 import { POLYNOMIAL_PART_VALUES, POLYNOMIAL_PART_VALUES_TEXT, type PolynomialPartSetting } from '../core/fqe/polynomialPartSetting';
 import { MAX_ITERATIONS, POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE, RIDGE, TOLERANCE } from '../core/limits';
 import { finite } from './finiteNumber';
@@ -33,28 +33,28 @@ export const approximatorSchema = z.discriminatedUnion('kind', [
     kind: z.literal('network'),
     // Defaults are the engine's (src/core/fqe/networkSettings.ts), chosen on the battery of invented plants.
     /** Units per hidden layer; the last layer's units are the features the value is solved on. */
-    hiddenLayers: z.array(z.number().int().min(1).max(1024)).min(1).max(6).default(() => [...net.hiddenLayers]),
-    activation: z.enum(['relu', 'tanh', 'elu']).default(net.activation),
+    hiddenLayers: z.array(z.number().int().min(L.units.min).max(L.units.max)).min(L.hiddenLayers.min).max(L.hiddenLayers.max).default(() => [...net.hiddenLayers]),
+    activation: z.enum(NETWORK_ACTIVATIONS).default(net.activation),
     learningRate: finite.positive().default(net.learningRate),
-    batchSize: z.number().int().min(8).max(65_536).default(net.batchSize),
+    batchSize: z.number().int().min(L.batchSize.min).max(L.batchSize.max).default(net.batchSize),
     /** Adam steps per outer iteration (they improve the hidden features). */
-    stepsPerIteration: z.number().int().min(1).max(100_000).default(net.stepsPerIteration),
+    stepsPerIteration: z.number().int().min(L.stepsPerIteration.min).max(L.stepsPerIteration.max).default(net.stepsPerIteration),
     /** Most outer iterations; each solves the last layer over the whole horizon and then trains the features. */
-    outerIterations: z.number().int().min(1).max(10_000).default(net.outerIterations),
+    outerIterations: z.number().int().min(L.outerIterations.min).max(L.outerIterations.max).default(net.outerIterations),
     /** Fraction of episodes held out (not trained on) to report a held-out Bellman error; a diagnostic, not a stopping rule. */
-    heldOutFraction: finite.min(0).max(0.5).default(net.heldOutFraction),
+    heldOutFraction: finite.min(L.heldOutFraction.min).max(L.heldOutFraction.max).default(net.heldOutFraction),
     /**
      * Window of the stopping rule in outer iterations: "converged" when the drift of J and Q between
      * two windows, times γ^W/(1 − γ^W), is within `tolerance`; 0 = never stop early. (Files from before
      * this rule keep their value, now read as the window.)
      */
-    patience: z.number().int().min(0).max(10_000).default(net.patience),
+    patience: z.number().int().min(L.patience.min).max(L.patience.max).default(net.patience),
     /** Stopping rule: the largest share of the value that may still be moving. */
-    tolerance: finite.gt(0).max(1).default(net.tolerance),
+    tolerance: finite.gt(L.tolerance.above).max(L.tolerance.max).default(net.tolerance),
     /** Average the hidden layers of the last k outer iterations and re-solve the last layer on them (1 = no averaging). */
-    averageLast: z.number().int().min(1).max(100).default(net.averageLast),
+    averageLast: z.number().int().min(L.averageLast.min).max(L.averageLast.max).default(net.averageLast),
     /** TensorFlow.js backend: auto = wasm where it loads and passes its check, else cpu. */
-    backend: z.enum(['auto', 'wasm', 'cpu']).default(net.backend),
+    backend: z.enum(NETWORK_BACKENDS).default(net.backend),
     /**
      * Degree of the polynomial part the hidden features correct: "chosen" from the log by the guarded
      * rule (src/core/fqe/networkDegreeChoice.ts), or fixed at one of the degrees allowed there.

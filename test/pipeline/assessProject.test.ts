@@ -205,6 +205,7 @@ describe('assessProject on the heating-loop sample and on unusable inputs', () =
     const { project } = await open('tank-levels');
     expect(assessmentSettingsFor(project, { resamples: 5 })).toMatchObject({ ok: false, problems: [{ where: 'bootstrap.resamples' }] });
     expect(assessmentSettingsFor(project, { level: 1 })).toMatchObject({ ok: false, problems: [{ where: 'bootstrap.level' }] });
+    expect(assessmentSettingsFor(project, { seed: 2 ** 32 })).toMatchObject({ ok: false, problems: [{ where: 'seed' }] }); // SEED.max, core/limits.ts, as the schema
     expect(assessmentSettingsFor({ ...project, bootstrap: { resamples: 300, level: 0.8 } })).toMatchObject({ ok: true, value: { resamples: 300, level: 0.8, seed: 1 } });
   });
 });

@@ -20,7 +20,7 @@ import { createRandom } from '../random';
 import { networkLayout } from './networkParameters';
 import { networkOutput } from './networkForward';
 import { lossAndGradient } from './networkGradient';
-import type { NetworkActivation } from './networkSettings';
+import { NETWORK_ACTIVATIONS, type NetworkActivation } from './networkSettings';
 import { ASCII_MINUS, exponentText } from '../exponentText';
 
 export const BACKEND_CHECK_TOLERANCE = 1e-3;
@@ -41,7 +41,6 @@ interface StepResult {
   readonly output: Float32Array;
 }
 
-const CHECK_ACTIVATIONS: readonly NetworkActivation[] = ['relu', 'tanh', 'elu'];
 const BATCH = 32, INPUTS = 3, HIDDEN = [16, 16];
 
 /**
@@ -53,7 +52,7 @@ export async function verifyBackend(name: string): Promise<BackendCheck> {
   const fail = (reason: string, largestDifference = 0): BackendCheck => ({ backend: name, agrees: false, largestDifference, tolerance: BACKEND_CHECK_TOLERANCE, reason });
   try {
     let largest = 0;
-    for (const activation of CHECK_ACTIVATIONS) {
+    for (const activation of NETWORK_ACTIVATIONS) {
       const candidate = await stepOn(name, activation);
       const reference = await stepOn('cpu', activation);
       for (const key of ['loss', 'gradient', 'output'] as const) {

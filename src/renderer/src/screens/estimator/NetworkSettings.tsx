@@ -6,6 +6,7 @@ import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import type { ApproximatorSettings } from '../../../../project/approximatorSchema';
 import { ACTIVATION_NAMES } from '../../../../pipeline/plan/approximatorLabel';
 import { POLYNOMIAL_PART_CHOSEN, POLYNOMIAL_PART_VALUES, type PolynomialPartSetting } from '../../../../core/fqe/polynomialPartSetting';
+import { NETWORK_ACTIVATIONS } from '../../../../core/fqe/networkSettings';
 import { useWorkspace } from '../../WorkspaceContext';
 import { formatHiddenLayers, parseHiddenLayers } from './hiddenLayers';
 import { SETTING_HELP } from './settingHelp';
@@ -51,7 +52,7 @@ export function NetworkSettings({ settings, problems }: { settings: Network; pro
           {(layers === null || at('hiddenLayers')) && <span className="message">{layers === null ? 'expected whole numbers separated by commas, e.g. 64, 64' : at('hiddenLayers')}</span>}
         </div>
         <SelectField label="Activation" value={settings.activation} help={SETTING_HELP.activation}
-          options={(['relu', 'tanh', 'elu'] as const).map((value) => ({ value, label: ACTIVATION_NAMES[value] }))}
+          options={NETWORK_ACTIVATIONS.map((value) => ({ value, label: ACTIVATION_NAMES[value] }))}
           onChange={(activation) => set('change the activation', { activation }, 'activation')} />
         <SelectField label="Polynomial part" value={String(settings.polynomialDegree)} help={SETTING_HELP.polynomialDegree} message={at('polynomialDegree')} testId="polynomial-degree"
           options={POLYNOMIAL_PART_VALUES.map((value) => ({ value: String(value), label: polynomialDegreeOptionText(value) }))}

@@ -1,5 +1,7 @@
 /** One line of explanation for every estimator setting, in the words of the trade. */
 import { CHOICE_STANDARD_ERRORS } from '../../../../core/fqe/networkDegreeChoice';
+import { NETWORK_LIMITS as L } from '../../../../core/fqe/networkSettings';
+import { BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL } from '../../../../core/limits';
 
 export const SETTING_HELP = {
   discount: 'Weight of a cost or reward one step later (0 < γ < 1); 0.95 looks about 20 steps ahead (1/(1 − γ)).',
@@ -11,7 +13,7 @@ export const SETTING_HELP = {
   ridge: 'Small penalty on the fitted weights (ridge regression) that keeps the least-squares solve well posed; raise it if a fit reports a singular system.',
   tolerance: 'The iteration stops when the relative change of the weights falls below this.',
   maxIterations: 'The iteration gives up after this many steps (the fixed-point solve is reported either way).',
-  hiddenLayers: 'Units per hidden layer, input side first, separated by commas (1–6 layers of 1–1024 units).',
+  hiddenLayers: `Units per hidden layer, input side first, separated by commas (${L.hiddenLayers.min}–${L.hiddenLayers.max} layers of ${L.units.min}–${L.units.max} units).`,
   activation: 'Nonlinearity between layers.',
   polynomialDegree: `The polynomial the network starts from and corrects. Chosen: degree 4 where it predicts the present controller’s held-out runs better (by more than ${CHOICE_STANDARD_ERRORS} standard errors), else 2; always 2 when J’s start states lie outside the logs.`,
   learningRate: 'Step size of the Adam optimiser.',
@@ -26,7 +28,7 @@ export const SETTING_HELP = {
   quadratureNodes: 'Points per action at which Q is averaged over the candidate’s dither (Gauss–Hermite rule); 10 is plenty for smooth Q.',
   seed: 'Random seed; the same seed, data and settings give the same numbers.',
   bootstrap: 'After each run, whole runs of the log are drawn again at random with replacement and the fit repeated (the bootstrap), giving intervals, paired comparisons and how often the ranking holds.',
-  resamples: 'How many times the runs are drawn again (20–100,000); 1,000 steadies the interval ends, 200 is enough for a first look.',
-  level: 'Share of resamples the interval covers (0.5 to below 1); 0.9 gives a 90 % interval.',
+  resamples: `How many times the runs are drawn again (${BOOTSTRAP_RESAMPLES.min}–${BOOTSTRAP_RESAMPLES.max.toLocaleString('en-US')}); ${BOOTSTRAP_RESAMPLES.default.toLocaleString('en-US')} steadies the interval ends, 200 is enough for a first look.`,
+  level: `Share of resamples the interval covers (${CONFIDENCE_LEVEL.min} to below ${CONFIDENCE_LEVEL.below}); ${CONFIDENCE_LEVEL.default} gives a ${CONFIDENCE_LEVEL.default * 100} % interval.`,
   startStates: 'J averages V over the first state of every logged run.',
 } as const;
