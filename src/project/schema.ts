@@ -11,7 +11,7 @@ import { strictObject } from './strictObject';
 import { finite } from './finiteNumber';
 import { approximatorSchema } from './approximatorSchema';
 import {
-  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
+  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, MAX_RETUNE_MAPS, MAX_SCHEDULE_BREAKPOINTS, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
   MAX_GAUSS_HERMITE_NODES, MAX_PREVIOUS_STEPS, MAX_STATE_COLUMNS, SEED, SURFACE_RESOLUTION,
 } from '../core/limits';
 
@@ -192,9 +192,9 @@ export const scheduleLoopSchema = strictObject({
   /** The state the schedule reads (e.g. outdoor temperature). */
   input: columnName,
   /** Strictly increasing values of the input; the output is held beyond the first and last. */
-  breakpoints: z.array(finite).min(1).max(50),
+  breakpoints: z.array(finite).min(1).max(MAX_SCHEDULE_BREAKPOINTS),
   /** Output at each breakpoint, in the action's unit; straight lines between. */
-  values: z.array(finite).min(1).max(50),
+  values: z.array(finite).min(1).max(MAX_SCHEDULE_BREAKPOINTS),
   /** Optional P/PI trim added to the schedule (no bias of its own). */
   feedback: feedbackSchema.optional(),
 });
@@ -203,8 +203,8 @@ export const scheduleLoopSchema = strictObject({
 export const candidateFormSchema = z.discriminatedUnion('kind', [
   /** μ(s) = offset + gain·s, in the units of the action and state columns. */
   strictObject({ kind: z.literal('affine'), offset: z.array(finite).min(1), gain: z.array(z.array(finite)).min(1) }),
-  strictObject({ kind: z.literal('pi'), loops: z.array(piLoopSchema).min(1).max(3) }),
-  strictObject({ kind: z.literal('schedule'), loops: z.array(scheduleLoopSchema).min(1).max(3) }),
+  strictObject({ kind: z.literal('pi'), loops: z.array(piLoopSchema).min(1).max(MAX_ACTION_COLUMNS) }),
+  strictObject({ kind: z.literal('schedule'), loops: z.array(scheduleLoopSchema).min(1).max(MAX_ACTION_COLUMNS) }),
 ]);
 
 /** |a − a_prev| ≤ maxStep per sample, per action (null: no rate limit on that action). */
@@ -285,7 +285,7 @@ export const resultsSchema = strictObject({
   evaluation: z.record(z.string(), z.unknown()),
   assessment: z.record(z.string(), z.unknown()).optional(),
   /** The retune maps computed from the same run (pipeline/retuneMaps.ts RetuneMapResult, as the CLI's --json writes them); absent in older files. */
-  retuneMaps: z.array(z.record(z.string(), z.unknown())).max(10).optional(),
+  retuneMaps: z.array(z.record(z.string(), z.unknown())).max(MAX_RETUNE_MAPS).optional(),
 });
 
 /** One swept number of a candidate: its dotted path and the values (src/core/retune/retuneAxes.ts). */
@@ -321,7 +321,7 @@ export const projectSchema = strictObject({
   startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
   surface: surfaceSchema.optional(),
   bootstrap: bootstrapSchema.optional(),
-  retuneMaps: z.array(retuneMapSchema).max(10).optional(),
+  retuneMaps: z.array(retuneMapSchema).max(MAX_RETUNE_MAPS).optional(),
   results: resultsSchema.optional(),
   /**
    * Free-form remarks of the user's own (any JSON: text, or an object such as

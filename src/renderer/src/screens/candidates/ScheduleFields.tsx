@@ -12,6 +12,7 @@ import { FeedbackFields } from './FeedbackFields';
 import { defaultFeedback, type ScheduleLoop } from './formDrafts';
 import { withRowAdded, withRowRemoved } from './scheduleRows';
 import type { DataImport } from '../../../../shared/workerMessages';
+import { MAX_SCHEDULE_BREAKPOINTS } from '../../../../core/limits';
 
 interface Props {
   doc: ProjectDocument;
@@ -67,7 +68,7 @@ export function ScheduleFields({ doc, imported, path, action, loop, problems, ed
       </table>
       {tableMessages.map((m) => <p key={m} className="error-text" role="alert">{m}</p>)}
       <div className="row">
-        <button type="button" disabled={loop.breakpoints.length >= 50} onClick={() => edit('add a breakpoint', withRowAdded, 'add')}>Add a breakpoint</button>
+        <button type="button" disabled={loop.breakpoints.length >= MAX_SCHEDULE_BREAKPOINTS} title={loop.breakpoints.length >= MAX_SCHEDULE_BREAKPOINTS ? `At most ${MAX_SCHEDULE_BREAKPOINTS} breakpoints per loop` : undefined} onClick={() => edit('add a breakpoint', withRowAdded, 'add')}>Add a breakpoint</button>
         <span className="small muted">Breakpoints must increase from row to row; the output is held flat beyond the first and last.</span>
       </div>
       <label className="choice">
