@@ -15,6 +15,7 @@ import { readTimestamp, TIMESTAMP_FORMS } from './timestampCell';
 const MESSAGE_BYTES = 256;
 /** Labels longer than this are not episode identifiers (the bytes are compared, then decoded). */
 const LABEL_BYTES = 1024;
+const DIGIT_ZERO = 0x30;
 
 export class ColumnSink {
   /** One slot per record; `capacity` must bound the records (csvScanner.recordBound). */
@@ -74,7 +75,17 @@ export class ColumnSink {
     else if (end - start > MESSAGE_BYTES) problems.add(record, this.request.name, 'not-a-number', `the cell holds ${end - start} characters; expected a number`);
   }
 
+  /**
+   * A flag cell. A lone "0" or "1" (nearly every cell of a logged flag) is its own value, as readFlag
+   * reads it, without decoding a string per cell (a million short strings cost more than the rest of
+   * the record); any other cell is decoded and read by readFlag.
+   */
   private readFlagCell(bytes: Uint8Array, start: number, end: number, escaped: number, record: number, problems: RowProblems): void {
+    const only = end - start === 1 ? bytes[start] - DIGIT_ZERO : -1;
+    if (!escaped && (only === 0 || only === 1)) {
+      this.values[record] = only;
+      return;
+    }
     const reading = readFlag(cellText(bytes, start, end, escaped, MESSAGE_BYTES));
     this.values[record] = reading.ok ? reading.value : NaN;
     if (!reading.ok) problems.add(record, this.request.name, reading.kind, reading.reason);
