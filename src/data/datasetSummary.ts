@@ -7,7 +7,8 @@ import { importProblem, type ImportProblem } from './importProblem';
 import type { DecimalMark } from './numericCell';
 import type { Delimiter } from './csvDialect';
 import type { DateOrder } from './dateOrder';
-import { columnStatistics, type ColumnStatistics } from './columnStatistics';
+import { columnStatistics, HISTOGRAM_BINS, type ColumnStatistics } from './columnStatistics';
+import type { RewardValues } from './rewardColumn';
 
 export interface ColumnSummary extends ColumnStatistics {
   readonly name: string;
@@ -45,7 +46,8 @@ export interface SummaryInputs {
   readonly episodeCount: number;
   /** Used columns in header order, with their values over all records (over `include` where given, else `kept`). */
   readonly columns: readonly { name: string; roles: string[]; values: Float64Array; include?: Uint8Array }[];
-  readonly rewards: Float64Array;
+  /** The rewards as sign · values (rewardColumn.ts). */
+  readonly rewards: RewardValues;
   readonly samplingPeriodSeconds: number | null;
   readonly delimiter: Delimiter;
   readonly decimalMark: DecimalMark;
@@ -64,7 +66,7 @@ export function summariseDataset(s: SummaryInputs): DatasetSummary {
     transitionCount: s.transitionCount,
     episodeCount: s.episodeCount,
     columns: s.columns.map(({ name, roles, values, include }) => ({ name, roles, ...columnStatistics(values, include ?? s.kept) })),
-    reward: columnStatistics(s.rewards, s.kept),
+    reward: columnStatistics(s.rewards.values, s.kept, HISTOGRAM_BINS, s.rewards.sign),
     samplingPeriodSeconds: s.samplingPeriodSeconds,
     delimiter: s.delimiter,
     decimalMark: s.decimalMark,

@@ -19,8 +19,9 @@ import { readTableSteps, type ImportSource } from './csvTable';
 import { runSteps, type PassSteps } from '../core/fqe/cancellation';
 import { RowProblems } from './rowProblems';
 import { checkTimestampsForward, settleTimestamps, type SettledTimestamps } from './timestampChecks';
-import { certainRewardBounds, rewardColumn } from './rewardColumn';
-import { assignEpisodes, medianStepSeconds, runsApart, type EpisodeAssignment, type EpisodeInputs } from './episodes';
+import { certainRewardBounds, rewardColumn, type RewardValues } from './rewardColumn';
+import { assignEpisodes, runsApart, type EpisodeAssignment, type EpisodeInputs } from './episodes';
+import { medianStepSeconds } from './stepMedian';
 import { computeDerivedStates, stretchesOf, withoutUndefinedRows } from './derivedStates';
 import { plural } from './reportFormat';
 import { buildTransitions } from './transitionBuilder';
@@ -98,7 +99,7 @@ interface Stages {
   plan: ColumnPlan;
   table: TableColumns;
   problems: RowProblems;
-  rewards: Float64Array;
+  rewards: RewardValues;
   timestamps?: SettledTimestamps & { column: string };
   encoding: { name: TextEncodingName; how: 'byte-order mark' | 'detected' };
   clock?: LogClock;
@@ -116,7 +117,7 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, `${why}, so no row is left to import`));
   }
   const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
-  // Found once for the run rule and the summary (each finding takes an array of the records' size).
+  // Found once for the run rule and the summary (each finding is a pass over the records).
   const periodSeconds = s.timestamps ? medianStepSeconds(s.timestamps.seconds, kept) : NaN;
   const episodeInputs = {
     kept, terminal, lineOf, inWindow: s.inWindow, medianStepSeconds: periodSeconds,
@@ -130,7 +131,7 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   const usedRows = derived.kept;
   const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
   const { transitions, report } = buildTransitions({
-    kept: usedRows, supplyOnlyRows: derived.supplyOnlyRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards, terminal, lineOf,
+    kept: usedRows, supplyOnlyRows: derived.supplyOnlyRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards.values, rewardSign: s.rewards.sign, terminal, lineOf,
     states: columns.states.map((c) => number(c.column)),
     actions: columns.actions.map((c) => number(c.column)),
     nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
@@ -150,7 +151,7 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     ...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding),
     ...windowReport(timeWindows, s.clock ?? { calendar: false, runRestarts: 0 }), ...episodes.report, ...derived.report, ...report,
   ];
-  const trend = trendOfImport(columns, table.numbers, s.rewards, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
+  const trend = trendOfImport(columns, table.numbers, s.rewards.values, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
   const rewardBounds = certainRewardBounds(columns.reward, s.plan.rewardExpression);
   return success({ transitions: rewardBounds ? { ...transitions, rewardBounds } : transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
 }

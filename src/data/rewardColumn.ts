@@ -10,19 +10,28 @@ import { expressionColumns, type ExpressionNode } from './expressionSyntax';
 import type { RowProblems } from './rowProblems';
 import type { RewardBounds } from '../core/transitions';
 
+/**
+ * The rewards as sign · values: `values` are the rule's own (the column, or the expression's result:
+ * a cost as a cost), `sign` is −1 for a cost. The negated copy is never made as an array of the
+ * records' size: each reader forms sign · values[r] where it reads it (the transitions, the summary's
+ * statistics), the same double the copy held (negation is exact in IEEE 754), and the trend draws
+ * `values` as they are.
+ */
+export interface RewardValues {
+  readonly values: Float64Array; // records
+  readonly sign: 1 | -1;
+}
+
 export function rewardColumn(
   rule: ColumnRoles['reward'], tree: ExpressionNode | undefined, numbers: Map<string, Float64Array>,
   recordCount: number, problems: RowProblems,
-): Float64Array {
+): RewardValues {
   const raw = rule.kind === 'column'
     ? numbers.get(rule.column)!
     : evaluateExpression(tree!, (name) => numbers.get(name)!, recordCount);
-  const sign = rule.sense === 'cost' ? -1 : 1;
   if (tree) reportNonFinite(raw, tree, numbers, rule.sense, problems);
   if (rule.kind === 'column') reportOutsideDeclared(raw, rule, problems);
-  const rewards = new Float64Array(recordCount);
-  for (let r = 0; r < recordCount; r++) rewards[r] = sign * raw[r];
-  return rewards;
+  return { values: raw, sign: rule.sense === 'cost' ? -1 : 1 };
 }
 
 /** raw: the expression's values before a cost is negated, so messages show what the user wrote. */

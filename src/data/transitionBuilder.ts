@@ -16,7 +16,9 @@ export interface StepColumns {
   readonly hasStart: Uint8Array; // episodes
   readonly states: readonly Float64Array[]; // ds columns over records
   readonly actions: readonly Float64Array[]; // m columns over records
-  readonly rewards: Float64Array; // records, already rewards
+  readonly rewards: Float64Array; // records: the reward rule's values, a cost as a cost
+  /** −1 for a cost: each transition's reward is rewardSign · rewards[r] (rewardColumn.ts). */
+  readonly rewardSign: 1 | -1;
   readonly terminal?: Float64Array; // records, 0/1
   /** Next-state columns on the same row, or undefined for "next row". */
   readonly nextStates?: readonly Float64Array[];
@@ -28,31 +30,30 @@ export interface StepColumns {
 }
 
 /**
- * successor[r] for each record: the record holding s' (itself with next-state columns), −1 for a
- * terminal row (s' is a copy of s, never used), −2 for no transition (excluded, or the last kept
- * row of its episode's chain). Returns the transition count.
+ * The record holding s' for record r: itself with next-state columns, −1 for a terminal row (s' is
+ * a copy of s, never used), −2 for no transition (excluded, or the last kept row of its episode's
+ * chain). Found where it is used (counted once, then again while copying) rather than kept in an
+ * array of the records' size: the array cost more to fill in fresh memory than the test costs twice.
  */
-function successors(c: StepColumns, successor: Int32Array): number {
-  const { kept, episodeOf, terminal, nextStates } = c, records = kept.length;
+function successorOf(c: StepColumns, r: number): number {
+  const { kept, episodeOf, terminal } = c;
+  if (!kept[r]) return -2;
+  if (terminal !== undefined && terminal[r] === 1) return -1;
+  if (c.nextStates) return r;
+  return r + 1 < kept.length && kept[r + 1] && episodeOf[r + 1] === episodeOf[r] ? r + 1 : -2;
+}
+
+function transitionCount(c: StepColumns): number {
   let n = 0;
-  for (let r = 0; r < records; r++) {
-    if (!kept[r]) { successor[r] = -2; continue; }
-    let s: number;
-    if (terminal !== undefined && terminal[r] === 1) s = -1;
-    else if (nextStates) s = r;
-    else s = r + 1 < records && kept[r + 1] && episodeOf[r + 1] === episodeOf[r] ? r + 1 : -2;
-    successor[r] = s;
-    if (s !== -2) n++;
-  }
+  for (let r = 0; r < c.kept.length; r++) if (successorOf(c, r) !== -2) n++;
   return n;
 }
 
 export function buildTransitions(c: StepColumns): { transitions: TransitionSet; report: string[] } {
-  const ds = c.states.length, m = c.actions.length, records = c.kept.length;
-  const successor = new Int32Array(records);
-  const n = successors(c, successor);
+  const ds = c.states.length, m = c.actions.length;
+  const n = transitionCount(c);
   const t = allocate(n, ds, m, c.hasStart);
-  copyRows(c, successor, t);
+  copyRows(c, t);
   writeStartStates(c, t.startStates, t.startEpisode);
   const transitions: TransitionSet = {
     count: n, stateDim: ds, actionDim: m, stateNames: [...c.stateNames], actionNames: [...c.actionNames],
@@ -63,44 +64,53 @@ export function buildTransitions(c: StepColumns): { transitions: TransitionSet; 
 
 /** Transitions written per block: their rows' indices stay in cache while every column is copied. */
 const BLOCK = 4096;
+type Output = ReturnType<typeof allocate>;
 
 /**
  * The transitions' columns from the records, a block of transitions at a time: the source rows of
- * the block first, then one column at a time into the block's slice of the row-major output (a
- * row-by-row loop over every column was the import's slowest step at 10⁶ rows; column by column over
- * all rows at once wrote each output line of cache once per column).
+ * the block first (blockRows), then one column at a time into the block's slice of the row-major
+ * output (a row-by-row loop over every column was the import's slowest step at 10⁶ rows; column by
+ * column over all rows at once wrote each output line of cache once per column).
  */
-function copyRows(c: StepColumns, successor: Int32Array, t: ReturnType<typeof allocate>): void {
+function copyRows(c: StepColumns, t: Output): void {
   const ds = c.states.length, m = c.actions.length, next = c.nextStates ?? c.states;
-  const from = new Int32Array(BLOCK), to = new Int32Array(BLOCK);
+  const from = new Int32Array(BLOCK), to = new Int32Array(BLOCK), records = c.kept.length;
+  const { rewards, terminal, episode, sourceLine } = t, sign = c.rewardSign;
   let r = 0, k0 = 0;
-  while (r < successor.length) {
+  while (r < records) {
     let b = 0;
-    for (; r < successor.length && b < BLOCK; r++) {
-      const s = successor[r];
+    for (; r < records && b < BLOCK; r++) {
+      const s = successorOf(c, r);
       if (s === -2) continue;
       const k = k0 + b;
       from[b] = r;
       to[b++] = s;
-      t.rewards[k] = c.rewards[r];
-      t.terminal[k] = s === -1 ? 1 : 0;
-      t.episode[k] = c.episodeOf[r];
-      t.sourceLine[k] = c.lineOf(r);
+      rewards[k] = sign * c.rewards[r];
+      terminal[k] = s === -1 ? 1 : 0;
+      episode[k] = c.episodeOf[r];
+      sourceLine[k] = c.lineOf(r);
     }
-    for (let j = 0; j < ds; j++) {
-      const column = c.states[j], nextColumn = next[j];
-      for (let i = 0; i < b; i++) {
-        const row = (k0 + i) * ds + j;
-        t.states[row] = column[from[i]];
-        t.nextStates[row] = to[i] < 0 ? column[from[i]] : nextColumn[to[i]];
-      }
-    }
-    for (let j = 0; j < m; j++) {
-      const column = c.actions[j];
-      for (let i = 0; i < b; i++) t.actions[(k0 + i) * m + j] = column[from[i]];
-    }
+    for (let j = 0; j < ds; j++) copyStateColumn(c.states[j], next[j], from, to, b, t.states, t.nextStates, k0 * ds + j, ds);
+    for (let j = 0; j < m; j++) copyColumn(c.actions[j], from, b, t.actions, k0 * m + j, m);
     k0 += b;
   }
+}
+
+/** column[from[i]] into out[at + i·stride], and s' (the next row's value, or s again for a terminal row: to[i] < 0) into outNext, for i < b. */
+function copyStateColumn(
+  column: Float64Array, nextColumn: Float64Array, from: Int32Array, to: Int32Array, b: number,
+  out: Float64Array, outNext: Float64Array, at: number, stride: number,
+): void {
+  for (let i = 0, row = at; i < b; i++, row += stride) {
+    const value = column[from[i]], s = to[i];
+    out[row] = value;
+    outNext[row] = s < 0 ? value : nextColumn[s];
+  }
+}
+
+/** column[from[i]] into out[at + i·stride] for i < b. */
+function copyColumn(column: Float64Array, from: Int32Array, b: number, out: Float64Array, at: number, stride: number): void {
+  for (let i = 0, row = at; i < b; i++, row += stride) out[row] = column[from[i]];
 }
 
 /** The first kept row's state of every episode that has its true first row (c.hasStart). */

@@ -18,11 +18,12 @@ export type { TrendData, TrendSignal } from '../core/trend/signalEnvelope';
 export const RUN_TIME_GROUP_FACTOR = 8;
 
 /**
- * numbers: every numeric column read (rows each); rewards: rows, the reward (a cost negated);
- * runRestarts: how often the clock started again at a new run (LogClock.runRestarts).
+ * numbers: every numeric column read (rows each); ruleValues: rows, the reward rule's own values (a
+ * cost as a cost: RewardValues.values, rewardColumn.ts); runRestarts: how often the clock started
+ * again at a new run (LogClock.runRestarts).
  */
 export function trendOfImport(
-  columns: ColumnRoles, numbers: ReadonlyMap<string, Float64Array>, rewards: Float64Array,
+  columns: ColumnRoles, numbers: ReadonlyMap<string, Float64Array>, ruleValues: Float64Array,
   seconds: Float64Array | undefined, rowCount: number, lineOf: (record: number) => number, runRestarts = 0,
 ): TrendData {
   const inputs: TrendInput[] = [];
@@ -32,20 +33,10 @@ export function trendOfImport(
   }
   for (const c of columns.actions) inputs.push({ name: c.column, role: 'action', unit: c.unit ?? '', values: numbers.get(c.column)! });
   const sense = columns.reward.sense;
-  const sign = sense === 'cost' ? -1 : 1;
   const name = columns.reward.kind === 'column' ? columns.reward.column : sense;
-  // A reward column's own values are sign · rewards exactly (negation is exact in IEEE 754), so no copy is made of them.
-  const logged = columns.reward.kind === 'column' ? numbers.get(columns.reward.column) : undefined;
-  inputs.push({ name, role: sense, unit: columns.reward.unit ?? '', values: logged ?? signed(rewards, sign) });
+  inputs.push({ name, role: sense, unit: columns.reward.unit ?? '', values: ruleValues });
   const first = seconds?.find((t) => Number.isFinite(t)) ?? NaN;
   const time = seconds ?? Float64Array.from({ length: rowCount }, (_, r) => lineOf(r));
   const buckets = runRestarts > 0 ? TREND_BUCKETS * Math.min(runRestarts + 1, RUN_TIME_GROUP_FACTOR) : TREND_BUCKETS;
   return signalEnvelope(inputs, time, seconds ? 'seconds' : 'line', seconds !== undefined && isCalendarClock(first), buckets);
-}
-
-/** sign · values, in a loop (TypedArray.map boxes each value its callback returns: a million short-lived numbers). */
-function signed(values: Float64Array, sign: number): Float64Array {
-  const out = new Float64Array(values.length);
-  for (let r = 0; r < values.length; r++) out[r] = sign * values[r];
-  return out;
 }
