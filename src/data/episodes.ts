@@ -6,6 +6,7 @@
  */
 import type { ColumnRoles } from '../project/schema';
 import { formatCount, formatSeconds, plural } from './reportFormat';
+import { medianStepSeconds } from './stepMedian';
 
 export interface EpisodeAssignment {
   /** Episode of each record, 0-based in file order; −1 for excluded records. */
@@ -25,7 +26,7 @@ export interface EpisodeInputs {
   readonly terminal?: Float64Array; // records; 1 = next state terminal
   readonly labels?: { codes: Float64Array; values: string[] }; // episode column
   readonly timestampsSeconds?: Float64Array; // timeGap column
-  /** medianStepSeconds(timestampsSeconds, kept) where the caller has it already (it takes an array of the records' size to find). */
+  /** medianStepSeconds(timestampsSeconds, kept) where the caller has it already (stepMedian.ts: a pass over the records, and an array of their size for a jittery clock). */
   readonly medianStepSeconds?: number;
   /** Per record, non-zero where it lies in a time window left out (timeWindows.ts): the episode is cut there. */
   readonly inWindow?: Uint16Array; // records
@@ -168,52 +169,3 @@ function gapRule(column: string, maxGapSeconds: number | undefined, inputs: Epis
   };
 }
 
-/**
- * Median of the positive steps between adjacent kept rows (NaN when there is none). Steps across
- * an excluded row are skipped so a hole does not count as a long sample; zero steps (repeated
- * timestamps) are skipped so they cannot make every later step look like a gap.
- */
-export function medianStepSeconds(t: Float64Array, kept: Uint8Array): number {
-  const steps = new Float64Array(Math.max(0, t.length - 1));
-  let count = 0;
-  for (let r = 1; r < t.length; r++) {
-    const step = t[r] - t[r - 1];
-    if (kept[r] && kept[r - 1] && step > 0) steps[count++] = step;
-  }
-  if (count === 0) return NaN;
-  const values = steps.subarray(0, count), mid = count >> 1;
-  const upper = selectKth(values, mid);
-  return count % 2 ? upper : (maxBelow(values, mid) + upper) / 2;
-}
-
-/**
- * The k-th smallest of values (0-based), reordering them so that values[0..k) ≤ values[k]:
- * Hoare's selection (Hoare 1961, "Algorithm 65: FIND"), O(n) on average, with the middle element
- * as pivot (the steps of a log are nearly constant, so no order hurts it).
- */
-function selectKth(values: Float64Array, k: number): number {
-  let lo = 0, hi = values.length - 1;
-  while (lo < hi) {
-    const pivot = values[(lo + hi) >> 1];
-    let i = lo, j = hi;
-    while (i <= j) {
-      while (values[i] < pivot) i++;
-      while (values[j] > pivot) j--;
-      if (i <= j) {
-        const swap = values[i]; values[i] = values[j]; values[j] = swap;
-        i++; j--;
-      }
-    }
-    if (k <= j) hi = j;
-    else if (k >= i) lo = i;
-    else break;
-  }
-  return values[k];
-}
-
-/** The largest of values[0..k) (after selectKth(values, k) these are the k smallest). */
-function maxBelow(values: Float64Array, k: number): number {
-  let best = -Infinity;
-  for (let i = 0; i < k; i++) if (values[i] > best) best = values[i];
-  return best;
-}
