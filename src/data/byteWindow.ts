@@ -15,8 +15,10 @@ export class ByteWindow {
   /** File offset of the byte after the view. */
   private next: number;
 
-  constructor(private readonly source: PieceSource, from: number, windowBytes: number) {
-    this.buffer = new Uint8Array(Math.max(1, Math.min(windowBytes, source.byteLength - from)));
+  /** `scratch`, when at least a window long, is used as the window's memory (a buffer an earlier pass over the file filled already). */
+  constructor(private readonly source: PieceSource, from: number, windowBytes: number, scratch?: Uint8Array) {
+    const length = Math.max(1, Math.min(windowBytes, source.byteLength - from));
+    this.buffer = scratch && scratch.length >= length ? scratch.subarray(0, length) : new Uint8Array(length);
     this.next = from;
     this.view = this.buffer.subarray(0, 0);
     this.advance(0);

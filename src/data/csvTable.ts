@@ -97,7 +97,9 @@ function* streamedTableSteps(source: PieceSource, fileName: string, csv: CsvSett
   if (source.byteLength <= headBytes) return null;
   const head = new Uint8Array(headBytes);
   readFully(source, head, 0, head.length, 0);
-  const facts = yield* pieceFactsSteps(source, sizes.window);
+  // One buffer for the first pass's pieces and then the window: fresh memory costs more to fill than to reuse.
+  const scratch = new Uint8Array(Math.min(sizes.window, source.byteLength));
+  const facts = yield* pieceFactsSteps(source, sizes.window, scratch);
   if (!facts.plainUtf8 || facts.blank) return null;
   const start = facts.marked ? 3 : 0;
   const dialect = resolveDialect(sampleText(head, start), csv.delimiter, csv.decimalMark);
@@ -109,7 +111,7 @@ function* streamedTableSteps(source: PieceSource, fileName: string, csv: CsvSett
   const problems = new RowProblems();
   // Records from the header's end: the file's line breaks less the header's, plus one (recordBound).
   const capacity = facts.lineBreaks - (recordBound(head, 0, header.dataStart) - 1) + 1;
-  const window = new ByteWindow(source, header.dataStart, sizes.window);
+  const window = new ByteWindow(source, header.dataStart, sizes.window, scratch);
   const data = { bytes: window.view, start: 0, firstLine: header.firstDataLine, streamed: { window, capacity } };
   const table = yield* readColumnsSteps(data, dialect.delimiter, dialect.decimalMark, header.names.length, plan.requests, problems);
   const encoding = { name: 'UTF-8' as const, how: facts.marked ? 'byte-order mark' as const : 'detected' as const };

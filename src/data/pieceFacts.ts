@@ -24,9 +24,13 @@ export interface PieceFacts {
 
 const CR = 0x0d, LF = 0x0a;
 
-/** One pass over the file in pieces of `pieceBytes`, yielding after each. */
-export function* pieceFactsSteps(source: PieceSource, pieceBytes: number): PassSteps<PieceFacts> {
-  const piece = new Uint8Array(Math.min(pieceBytes, source.byteLength));
+/**
+ * One pass over the file in pieces of `pieceBytes`, yielding after each, read into `piece` (a caller
+ * that reads the file again in pieces passes the buffer it will use then, so the memory is filled once).
+ */
+export function* pieceFactsSteps(source: PieceSource, pieceBytes: number, scratch?: Uint8Array): PassSteps<PieceFacts> {
+  const length = Math.min(pieceBytes, source.byteLength);
+  const piece = scratch && scratch.length >= length ? scratch.subarray(0, length) : new Uint8Array(length);
   const decoder = new TextDecoder('utf-8', { fatal: true });
   let ascii = true, zero = false, valid = true, blank = true, lineBreaks = 0, marked = false, utf16Mark = false, lastWasCr = false;
   for (let at = 0; at < source.byteLength; at += piece.length) {
