@@ -13,56 +13,12 @@
  *   npm run bench -- import        or        npx tsx bench/importBench.ts 1000000
  */
 import { execFileSync } from 'node:child_process';
-import { existsSync, mkdirSync, statSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
+import { statSync, writeFileSync } from 'node:fs';
 import { fileURLToPath, pathToFileURL } from 'node:url';
-import { createRandom } from '../src/core/random';
 import { importDataset } from '../src/data/importDataset';
 import { MAX_DATA_BYTES, openRegularFile } from '../src/host/regularFile';
 import { STREAMED_FILE_BYTES } from '../src/core/limits';
-import type { ColumnRoles } from '../src/project/schema';
-
-const HEADER = 'time_s;level_1_m;level_2_m;level_3_m;inflow_1_m3h;inflow_2_m3h;outflow_m3h;valve_1_pct;valve_2_pct;cost';
-
-const ROLES: ColumnRoles = {
-  states: ['level_1_m', 'level_2_m', 'level_3_m', 'inflow_1_m3h', 'inflow_2_m3h', 'outflow_m3h'].map((column) => ({ column, unit: '' })),
-  actions: [{ column: 'valve_1_pct', unit: '%' }, { column: 'valve_2_pct', unit: '%' }],
-  reward: { kind: 'column', column: 'cost', sense: 'cost' },
-  nextState: { kind: 'nextRow' },
-  episode: { kind: 'timeGap', column: 'time_s' },
-};
-
-/** rows × 10 semicolon-separated, decimal-comma CSV text, seeded. */
-export function synthesiseTankLog(rows: number, seed = 7): string {
-  const rng = createRandom(seed);
-  const chunks: string[] = [HEADER];
-  const levels = [1, 1.5, 2];
-  let lines: string[] = [];
-  for (let i = 0; i < rows; i++) {
-    for (let k = 0; k < 3; k++) levels[k] += 0.01 * (1.5 - levels[k]) + 0.02 * rng.normal();
-    const valves = [50 + 10 * rng.normal(), 40 + 8 * rng.normal()];
-    const cells = [i * 10, ...levels, 3 + rng.normal(), 2 + rng.normal(), 4 + rng.normal(), ...valves, (levels[0] - 1.5) ** 2];
-    lines.push(cells.map((v) => (Number.isInteger(v) ? String(v) : v.toFixed(4).replace('.', ','))).join(';'));
-    if (lines.length === 10_000) {
-      chunks.push(lines.join('\n'));
-      lines = [];
-    }
-  }
-  if (lines.length > 0) chunks.push(lines.join('\n'));
-  return chunks.join('\n') + '\n';
-}
-
-/** The benchmark file for `rows`, written by a child process (so this one never holds the text). */
-function benchFile(rows: number): string {
-  const folder = join(tmpdir(), 'setpoint-critic-bench');
-  const path = join(folder, `tank-${rows}.csv`);
-  if (!existsSync(path)) {
-    mkdirSync(folder, { recursive: true });
-    execFileSync(process.execPath, ['--import', 'tsx', fileURLToPath(import.meta.url), '--write', String(rows), path], { stdio: 'inherit' });
-  }
-  return path;
-}
+import { synthesiseTankLog, TANK_ROLES, tankLogFile } from './tankLog';
 
 interface Reference {
   numpyLoadtxt: { wallSeconds: number; cpuSeconds: number };
@@ -81,14 +37,14 @@ function pythonReference(path: string): Reference | null {
 }
 
 export async function runImportBench(rows: number, whole = false): Promise<Record<string, number | string>> {
-  const path = benchFile(rows);
+  const path = tankLogFile(rows);
   const megabytes = statSync(path).size / 1e6;
   const wall = performance.now(), cpu = process.cpuUsage();
   // As the command line reads it (cli/evaluateProjectFile.ts): a large file in pieces; a small one (or --whole) read whole and handed over.
   const file = await openRegularFile(path, { maxBytes: MAX_DATA_BYTES, what: 'data file' });
   const streamed = !whole && file.byteLength >= STREAMED_FILE_BYTES;
   const source = streamed ? file : { bytes: await file.readAll() };
-  const result = importDataset(source, 'bench.csv', { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }, ROLES);
+  const result = importDataset(source, 'bench.csv', { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop' }, TANK_ROLES);
   await file.close();
   const seconds = (performance.now() - wall) / 1000, used = process.cpuUsage(cpu), cpuSeconds = (used.user + used.system) / 1e6;
   if (!result.ok) throw new Error(`benchmark import failed: ${result.problems[0].where}: ${result.problems[0].message}`);

@@ -2,7 +2,7 @@
 Setpoint Critic's import: numpy.loadtxt on the bytes (decimal commas turned into points first, as
 loadtxt has no decimal-mark option) and the standard csv module with float() per cell. Prints one
 JSON object: seconds (wall and CPU) and peak resident memory of each read, rows and columns read.
-Usage: python3 bench/importReference.py <file.csv>
+Usage: python3 bench/importReference.py <file.csv> [--loadtxt-only]   (the second: numpy.loadtxt alone, for bench/importPairsBench.ts)
 """
 import csv
 import io
@@ -37,7 +37,8 @@ def with_csv_module(path):
 if __name__ == "__main__":
     path = sys.argv[1]
     result = {"numpyLoadtxt": timed(lambda: with_loadtxt(path))}
-    result["csvModule"] = timed(lambda: with_csv_module(path))
+    if "--loadtxt-only" not in sys.argv:
+        result["csvModule"] = timed(lambda: with_csv_module(path))
     result["peakRssMiB"] = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024
     result["numpy"] = np.__version__
     print(json.dumps(result))

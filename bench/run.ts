@@ -14,6 +14,8 @@
  *   npm run bench -- radial       the whole evaluate with radial-basis features, d = 343, 100,000 transitions
  *   npm run bench -- build-pairs <before/main.js> [pairs]   two builds of the CLI in alternating pairs beside the peer,
  *                                 1,000,000 transitions, wall and CPU (bench/buildPairsBench.ts)
+ *   npm run bench -- import-pairs <before folder> [pairs]   two copies of the import's sources in alternating pairs:
+ *                                 the tank log (beside numpy.loadtxt) and the peer's open, 1,000,000 rows (bench/importPairsBench.ts)
  *   npm run bench -- battery [options]   the battery sweep of the network and linear estimators
  *                                 (bench/batteryBench.ts; long: run it under `nice`)
  *   npm run bench -- battery-table f.json …   the network interval without and with the class-error
@@ -103,5 +105,8 @@ else if (args[0] === 'battery') await (await import('./batteryBench')).runBatter
 else if (args[0] === 'build-pairs') {
   const figures = (await import('./buildPairsBench')).runBuildPairsBench(resolve(args[1] ?? ''), args[2] ? Number(args[2]) : undefined);
   for (const [key, value] of Object.entries(figures)) console.log(`  ${key.padEnd(28)} ${format(value)}`);
+} else if (args[0] === 'import-pairs') {
+  const figures = (await import('./importPairsBench')).runImportPairsBench(resolve(args[1] ?? ''), args[2] ? Number(args[2]) : undefined);
+  for (const [key, value] of Object.entries(figures)) console.log(`  ${key.padEnd(52)} ${format(value)}`);
 } else if (args[0] === 'battery-table') (await import('./batteryAllowanceTable')).printAllowanceTableOf(args.slice(1));
 else parent(args);

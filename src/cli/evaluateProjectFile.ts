@@ -86,8 +86,8 @@ export async function evaluateProjectFile(
   }
 }
 
-/** A large data file stays open for the import to read in pieces (never held whole); a smaller one is read whole. */
-async function dataFile(path: string): Promise<Uint8Array | OpenDataFile> {
+/** A large data file stays open for the import to read in pieces (never held whole); a smaller one is read whole. Also the peer bench's way in (bench/peerBench.ts). */
+export async function dataFile(path: string): Promise<Uint8Array | OpenDataFile> {
   const file = await openRegularFile(path, { maxBytes: MAX_DATA_BYTES, what: 'data file' });
   if (file.byteLength >= STREAMED_FILE_BYTES) return file;
   try {
