@@ -48,7 +48,7 @@ export function jobSection(input: ReportInput): Html {
       <tr><th>Description</th><td>${p.description || '—'}</td></tr>
       <tr><th>Project file</th><td>${input.projectFile}</td></tr>
       <tr><th>Data file</th><td>${p.data.path}</td></tr>
-      <tr><th>Evaluated</th><td>${input.evaluation.evaluatedAt}</td></tr>
+      <tr><th>Evaluated</th><td>${formatWrittenAt(input.evaluation.evaluatedAt)}</td></tr>
       <tr><th>Report written</th><td>${formatWrittenAt(input.generatedAt)}</td></tr>
       <tr><th>Question</th><td>How would each of ${p.candidates.length} candidate setpoint polic${p.candidates.length === 1 ? 'y' : 'ies'} perform, judged offline from the logs gathered under the present controller?</td></tr>
     </tbody></table>

@@ -29,12 +29,12 @@ export function Toolbar({ onHelp }: { onHelp: () => void }) {
   const dirty = useDirty();
   const recent = useSession().recentProjects;
   const theme = useStore(themeStore, same);
+  const shownName = `${name}${dirty ? ' • unsaved changes' : ''}`;
   return (
     <header className="toolbar" ref={toolbarRef}>
       <h1 className="title">Setpoint Critic</h1>
-      <span className="project-name" data-testid="project-title" title={path ?? 'not saved yet'}>
-        {name}{dirty ? ' • unsaved changes' : ''}
-      </span>
+      {/* Cut with an ellipsis where the window is narrow: the tooltip gives the whole name, then the file. */}
+      <span className="project-name" data-testid="project-title" title={`${shownName}\n${path ?? 'not saved yet'}`}>{shownName}</span>
       <span className="spacer" />
       <div className="group" role="group" aria-label="Project file">
         <button onClick={() => void files.newProject()} data-testid="new-project">New</button>

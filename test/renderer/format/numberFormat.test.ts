@@ -1,6 +1,6 @@
 /** Numbers on screen and in fields: significant digits, exponents only at extremes, exact round trips. */
 import { describe, expect, it } from 'vitest';
-import { editableNumber, formatDuration, formatNumber, parseNumber } from '../../../src/renderer/src/format/numberFormat';
+import { editableNumber, formatDuration, formatNumber, parseNumber, screenMessage } from '../../../src/renderer/src/format/numberFormat';
 
 describe('number format', () => {
   it('shows a few significant digits with a true minus sign', () => {
@@ -10,6 +10,13 @@ describe('number format', () => {
     expect(formatNumber(9.69e-11)).toBe('9.69\u00a0×\u00a010⁻¹¹');
     expect(formatNumber(1.5e6)).toBe('1500000'); // fixed notation for millions, one rule with the report and the terminal (figures/parts/uncertainNumber.ts)
     expect(formatNumber(Infinity)).toBe('∞');
+  });
+
+  it('typesets the exponents of a pipeline message as formatNumber does', () => {
+    // The fit's message is written for the terminal too ("9.92e-11", core/fqe/fqeIteration.ts); on screen it reads as formatNumber writes 9.92e-11.
+    expect(screenMessage('converged in 643 iterations (relative weight change 9.92e-11 ≤ tolerance 1.00e-10)'))
+      .toBe(`converged in 643 iterations (relative weight change ${formatNumber(9.92e-11, 3)} ≤ tolerance 1.00\u00a0×\u00a010⁻¹⁰)`);
+    expect(screenMessage('grew 3.5e+4-fold; degree-2 fit; 1e5 rows')).toBe('grew 3.5\u00a0×\u00a010⁴-fold; degree-2 fit; 1\u00a0×\u00a010⁵ rows');
   });
 
   it('writes field values that read back to the same number', () => {

@@ -57,8 +57,8 @@ export function CandidateEditor({ doc, imported, index, problems, colour, onDupl
   return (
     <article className="panel candidate" style={{ borderLeftColor: colour }} aria-label={`Candidate ${candidate.name}`} data-testid={`candidate-${index}`}>
       <div className="row">
-        <TextField label="Name" value={candidate.name} message={problemAt(problems, `${path}.name`)} onChange={(name) => update('rename', (c) => ({ ...c, name }), 'name')} onBlur={documents.closeStep} />
-        <TextField label="Description" value={candidate.description} className="wide" onChange={(description) => update('describe', (c) => ({ ...c, description }), 'description')} onBlur={documents.closeStep} />
+        <TextField label="Name" value={candidate.name} className="name-field" message={problemAt(problems, `${path}.name`)} onChange={(name) => update('rename', (c) => ({ ...c, name }), 'name')} onBlur={documents.closeStep} />
+        <TextField label="Description" value={candidate.description} className="wide prose" multiline onChange={(description) => update('describe', (c) => ({ ...c, description }), 'description')} onBlur={documents.closeStep} />
       </div>
       <div className="row form-choice">
         <SelectField<FormKind> label="Form" value={kind} options={FORMS} testId={`candidate-form-${index}`}

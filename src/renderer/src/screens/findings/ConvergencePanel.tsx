@@ -16,7 +16,7 @@ export function ConvergencePanel({ evaluation, theme }: { evaluation: Evaluation
   return (
     <FoldPanel section="convergence" testId="panel-convergence" gist={evaluation.policies.map((p) => `${p.name}: ${FIT_STATUS_WORDS[p.status]}`).join('; ')}>
       <div className="row">
-        <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="convergence-candidate"
+        <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="convergence-candidate" className="fit-field"
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />
       </div>
       <p className="small">{estimate.message}</p>

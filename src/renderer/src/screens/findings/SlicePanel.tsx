@@ -44,7 +44,7 @@ export function SlicePanel({ evaluation, imported, theme }: { evaluation: Evalua
     <>
       <p className="small muted"><RichText text={sliceExplanation(doc.columns.actions.length)} /></p>
       <div className="row">
-        <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="slice-candidate"
+        <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="slice-candidate" className="fit-field"
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />
         {doc.columns.actions.length > 1 && (
           <SelectField label="Action" value={String(action)} onChange={(v) => setAction(Number(v))}

@@ -49,7 +49,7 @@ export function SurfacePanel({ evaluation, imported, theme, restored = false }: 
     <>
       <p className="small muted"><RichText text="V^{π}(s) over two states; hatched cells are where the logs never went, so V there is extrapolated." /></p>
       <div className="row">
-        <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="surface-candidate"
+        <SelectField label="Candidate" value={String(candidate)} onChange={(v) => setCandidate(Number(v))} testId="surface-candidate" className="fit-field"
           options={evaluation.policies.map((p, i) => ({ value: String(i), label: p.name }))} />
         <SelectField label="Horizontal axis" value={String(xAxis)} options={options} testId="surface-x" onChange={(v) => setSurface(Number(v), Number(v) === yAxis ? xAxis : yAxis, resolution)} />
         <SelectField label="Vertical axis" value={String(yAxis)} options={options} testId="surface-y" onChange={(v) => setSurface(Number(v) === xAxis ? yAxis : xAxis, Number(v), resolution)} />

@@ -12,7 +12,7 @@ import type { Assessment, IntervalEstimate } from '../../../../pipeline/assessme
 import { PolicyValueChart } from '../../plots';
 import { VALUES_CHART_TITLE } from '../../../../figures/parts/plotTheme';
 import type { Evaluation } from '../../../../pipeline/estimates';
-import { plural, sentence } from '../../format/numberFormat';
+import { plural, screenMessage, sentence } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
 import { valueUnit } from './plotLabels';
 import type { Theme } from '../../theme';
@@ -81,14 +81,14 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
                 {assessment && <IntervalCell estimate={assessment.candidates[i]?.policyValue} level={level} testId={`policy-interval-${i}`} />}
                 <td className="number">{p.fixedPointValue === null ? '—' : valueWithError(p.fixedPointValue, p.standardError, interval).value}</td>
                 <td>{FIT_STATUS_WORDS[p.status]} ({plural(p.iterations, 'iteration')})</td>
-                <td className="small" data-testid={`policy-account-${i}`}>{!fitDetail(p.status) && sentence(p.message)}
+                <td className="small" data-testid={`policy-account-${i}`}>{!fitDetail(p.status) && sentence(screenMessage(p.message))}
                   {p.network && (
                     <span data-testid={`network-check-${i}`} className={p.network.agreement.verdict === 'disagree' ? 'error-text' : undefined}>
                       {/* With the assessment in, the interval column holds the network's interval (on the assessment's resamples); not a second one here. */}
                       {' '}{assessment ? '' : `${levelText(p.network.level)} interval ${intervalAtPrecision(p.network.interval)}; `}degree-{COMPARATOR_DEGREE} linear {valueAtPrecision(p.network.linear.value, p.network.linear.interval)} {intervalAtPrecision(p.network.linear.interval)}. {sentence(p.network.agreement.message)}
                     </span>
                   )}
-                  <details className="details-section"><summary>Details</summary>{fitDetail(p.status) && <>{sentence(p.message)} </>}Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
+                  <details className="details-section"><summary>Details</summary>{fitDetail(p.status) && <>{sentence(screenMessage(p.message))} </>}Computed by {p.backend}; {plural(p.featureCount, 'fitted weight')}.</details></td>
               </tr>
             );
           })}

@@ -18,7 +18,7 @@ export function ProjectNameFields() {
           onChange={(name) => documents.edit('rename the project', (d) => ({ ...d, name }), 'name')} onBlur={documents.closeStep}
         />
         <TextField
-          label="Description" value={doc.description} className="wide" multiline
+          label="Description" value={doc.description} className="wide prose" multiline
           help="What the project is about (optional)."
           onChange={(description) => documents.edit('edit the description', (d) => ({ ...d, description }), 'description')} onBlur={documents.closeStep}
         />

@@ -6,7 +6,7 @@
 import { useMemo } from 'react';
 import { ProblemList } from '../../components/ProblemList';
 import { projectProblems } from '../../document/projectProblems';
-import { formatDuration, formatNumber } from '../../format/numberFormat';
+import { formatDuration, formatNumber, screenMessage } from '../../format/numberFormat';
 import { useDocument, useSession, useStale } from '../../hooks';
 import { importKey } from '../../../../shared/runKey';
 import { runBlockers } from '../../session/evaluationRunner';
@@ -54,7 +54,7 @@ export function RunScreen(props: { onFindings: () => void }) {
         <section className="panel" aria-labelledby="done-heading" data-testid="run-finished">
           <h3 id="done-heading">{stale ? 'Results of an earlier run (settings or data have changed since)' : 'Finished'}</h3>
           <ul>
-            {session.evaluation.evaluation.policies.map((p) => <li key={p.name}>{p.name}: {p.message}</li>)}
+            {session.evaluation.evaluation.policies.map((p) => <li key={p.name}>{p.name}: {screenMessage(p.message)}</li>)}
           </ul>
           {polynomialPartLine(session.evaluation.evaluation) && <p className="small" data-testid="run-polynomial-part">{polynomialPartLine(session.evaluation.evaluation)}</p>}
           <button className="primary" onClick={props.onFindings} data-testid="see-findings">See the findings</button>
