@@ -18,8 +18,8 @@
  * confident & right candidate rows today and how many would turn cautious, confident & wrong rows that
  * would turn cautious, and where it fires whether the baseline's J misses its truth; then the details.
  */
-import { readFileSync } from 'node:fs';
 import { rolloutTruthPlantNames } from '../test/battery/rolloutTruthPlants';
+import { holdoutRowFiles, openTable, pct } from './holdoutRowFiles';
 
 const PLANTS = rolloutTruthPlantNames();
 const RULE = { maxTurned: 0.1, relative: 0.02, truthStandardErrors: 2, missShare: 0.5 } as const;
@@ -39,14 +39,11 @@ function misses(b: BaselineRow): { relative: boolean; interval: boolean } {
   return { relative, interval: gap > RULE.truthStandardErrors * b.truth.standardError };
 }
 
-const pct = (n: number, d: number) => (d === 0 ? '-' : `${((100 * n) / d).toFixed(0)} %`);
 
 function table(approximator: string, rows: CandidateRow[], baselines: BaselineRow[]): void {
   const mineB = baselines.filter((b) => b.approximator === approximator);
-  if (mineB.length === 0) { console.log(`\n## ${approximator}: no baseline rows`); return; }
-  console.log(`\n## ${approximator}`);
-  console.log('| plant | logs | fires | confident & right rows | of them turned cautious | confident & wrong turned cautious | fires and J misses truth (> 2 % / interval > 2 SE) | baseline status per seed |');
-  console.log('|---|---|---|---|---|---|---|---|');
+  if (!openTable(approximator, mineB.length, ['plant', 'logs', 'fires', 'confident & right rows', 'of them turned cautious', 'confident & wrong turned cautious',
+    'fires and J misses truth (> 2 % / interval > 2 SE)', 'baseline status per seed'])) return;
   let logs = 0, fired = 0, right = 0, turned = 0, wrongTurned = 0, missed = 0, missRel = 0, missInt = 0;
   const details: string[] = [];
   for (const plant of PLANTS) {
@@ -88,11 +85,7 @@ function table(approximator: string, rows: CandidateRow[], baselines: BaselineRo
 }
 
 function main() {
-  const files = process.argv.slice(2).filter((f) => !f.endsWith('.cli.json'));
-  if (files.length === 0) throw new Error('usage: npx tsx bench/baselineContradictedRows.ts rows.json rows.baseline.json [more …]');
-  const read = (f: string) => JSON.parse(readFileSync(f, 'utf8')) as unknown[];
-  const baselines = files.filter((f) => f.endsWith('.baseline.json')).flatMap((f) => read(f) as BaselineRow[]);
-  const rows = files.filter((f) => !f.endsWith('.baseline.json')).flatMap((f) => read(f) as CandidateRow[]);
+  const { rows, baselines } = holdoutRowFiles<CandidateRow, BaselineRow>(process.argv.slice(2), 'npx tsx bench/baselineContradictedRows.ts rows.json rows.baseline.json [more …]');
   for (const approximator of ['linear', 'network']) table(approximator, rows, baselines);
 }
 main();

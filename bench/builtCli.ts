@@ -7,7 +7,8 @@ import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join, resolve } from 'node:path';
 
 const root = resolve(import.meta.dirname, '..');
-export const BUILT_CLI = join(root, 'out', 'cli', 'main.js');
+/** SETPOINT_CRITIC_CLI names another build's main.js (e.g. one kept beside out/cli while a bench times out/cli). */
+export const BUILT_CLI = process.env.SETPOINT_CRITIC_CLI ?? join(root, 'out', 'cli', 'main.js');
 export const SOURCE_CLI = join(root, 'src', 'cli', 'main.ts');
 
 /** Node arguments that start the command line from its sources (tsx compiles them at every start). */

@@ -150,12 +150,17 @@ async function main() {
       const margin = 2 * truth.standardError;
       const miss = interval ? Math.max(interval[0] - truth.value, truth.value - interval[1], 0) : NaN;
       const err = 100 * (j - truth.value) / Math.abs(truth.value);
+      // The baseline in the compared function classes (absent from a CLI before it): verdict, range to report, and whether that holds the truth.
+      const presentRange: [number, number] | null = present.reportedRange ?? null;
+      const rangeMiss = presentRange ? Math.max(presentRange[0] - truth.value, truth.value - presentRange[1], 0) : NaN;
+      const classes = { settled: present.settled ?? null, range: presentRange, rangeHolds: presentRange ? rangeMiss <= margin : null, reason: present.functionClasses?.reason ?? null,
+        classes: present.functionClasses?.classes?.map((k: { label: string; value: number; interval: [number, number] | null }) => ({ label: k.label, value: k.value, interval: k.interval })) ?? null };
       const checks = present.crossChecks.map((x: { label: string; agreement: string; note: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, note: x.note, value: x.estimate?.value ?? null }));
       console.log([plant.name, approximator, seed, PRESENT, truth.value.toFixed(4), truth.standardError.toFixed(4), j.toFixed(4), err.toFixed(2),
-        interval ? `${interval[0].toFixed(3)}..${interval[1].toFixed(3)}` : '-', '-', interval ? miss <= margin : false, interval ? (miss / truth.standardError).toFixed(1) : '-',
-        '-', present.confirmation.status, checks.map((x: { label: string; agreement: string }) => `${x.label}: ${x.agreement}`).join('; '), run.status, '-', seconds.toFixed(0)].join('\t'));
+        interval ? `${interval[0].toFixed(3)}..${interval[1].toFixed(3)}` : '-', presentRange ? `${presentRange[0].toFixed(3)}..${presentRange[1].toFixed(3)}` : '-', interval ? miss <= margin : false, interval ? (miss / truth.standardError).toFixed(1) : '-',
+        present.settled ?? '-', present.confirmation.status, checks.map((x: { label: string; agreement: string }) => `${x.label}: ${x.agreement}`).join('; '), run.status, '-', seconds.toFixed(0)].join('\t'));
       baseline.push({ plant: plant.name, approximator, seed, candidate: PRESENT, truth, j, err, interval, holds: interval ? miss <= margin : false, missOverSE: interval ? miss / truth.standardError : null,
-        confirmation: present.confirmation, crossChecks: checks, globalWarnings: json.assessment.warnings, exit: run.status, seconds });
+        confirmation: present.confirmation, crossChecks: checks, globalWarnings: json.assessment.warnings, exit: run.status, seconds, ...classes });
     }
     if (out) writeFileSync(out, JSON.stringify(rows, null, 1));
     // Apart, so the readers of the candidate rows (bench/nestedClassRows.ts and the rest) read the same array as before.

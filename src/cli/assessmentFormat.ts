@@ -33,7 +33,8 @@ export function formatAssessment(a: Assessment, completedShown = true): string {
     rows.push([...estimateRow(c.name, c.policyValue), interval(c.reportedRange), settledWord(c.settled), c.confirmation.status, ratioText(c.diagnostics.occupancyShift)]);
   }
   const pc = a.presentController;
-  if (pc) rows.push([...estimateRow(`${PRESENT_CONTROLLER} [baseline]`, pc.policyValue), interval(pc.policyValue.percentile), '', pc.confirmation.status, ratioText(pc.occupancyShift)]);
+  // Its range to report and verdict as a candidate's (an assessment saved before it had them: its interval, no verdict).
+  if (pc) rows.push([...estimateRow(`${PRESENT_CONTROLLER} [baseline]`, pc.policyValue), interval(pc.reportedRange ?? pc.policyValue.percentile), pc.settled === undefined ? '' : settledWord(pc.settled), pc.confirmation.status, ratioText(pc.occupancyShift)]);
   rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (${loggedReturnRole(completedShown)})` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
   if (pc && completedShown) rows.push([...estimateRow(`${LOGGED_RETURN}, completed past time limits (check)`, pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
@@ -45,11 +46,13 @@ export function formatAssessment(a: Assessment, completedShown = true): string {
     `  ${policyLabel(c.name)}: ${c.confirmation.text}`,
     ...c.crossChecks.map((x) => `    · ${x.label}: ${x.estimate ? `${checkValue(x.estimate.value, x.estimate.percentile, c.policyValue.percentile)} — ` : ''}${x.note}`),
   ]);
-  const classes = a.candidates.flatMap((c) => (c.functionClasses ? [
+  // The baseline's function classes and cut beside the candidates', under its row's name.
+  const ranged = [...a.candidates, ...(pc ? [{ ...pc, name: `${PRESENT_CONTROLLER} [baseline]` }] : [])];
+  const classes = ranged.flatMap((c) => (c.functionClasses ? [
     `  ${c.name}: ${c.functionClasses.reason}`,
     ...c.functionClasses.classes.map((k) => `    · ${k.label}: ${inInterval(k.value, k.interval)}`),
   ] : []));
-  const cuts = a.candidates.flatMap((c) => (c.rangeCut ? [`  ${c.name}: ${c.rangeCut}`] : []));
+  const cuts = ranged.flatMap((c) => (c.rangeCut ? [`  ${c.name}: ${c.rangeCut}`] : []));
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
   const memory = plantMemorySentence(a.plantMemory);
   // The sweeps in a line each, by the figure's own verdict (figures/charts/sensitivity.ts): the numbers are in --json and the report.

@@ -66,15 +66,12 @@ export interface AssemblyInputs {
 
 export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[] {
   const { context, works, replicates, settings } = inputs, sign = context.plan.sign;
-  const { data, absorbingEnds } = context.plan, runsEnd = absorbingEnds > 0, possible = possibleValues(data.rewards, context.plan.discount, runsEnd);
+  const possible = possibleOf(context);
   return works.map((work, j) => {
     const diagnostics = coverageDiagnostics(work, context, inputs.ranges, inputs.reference);
     const r = replicates.candidates[j];
     const policyValue = withNetworkInterval(intervalEstimate(work.model.fit.policyValue, r.fqe, settings.level, sign), work, sign, r.network);
-    const fitted = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign, r.network);
-    // A range past what any policy can have, whatever it does (the reward formula's bounds), is cut there and says so.
-    const cut = cutToCertain(context.plan, fitted?.range ?? policyValue.percentile, policyValue.value, possible);
-    const classes = fitted && cut.range ? { ...fitted, range: cut.range } : fitted;
+    const { classes, cut } = reportedClasses(inputs, work, r, policyValue, possible);
     const { checks, confirmation } = checksOf(inputs, work, r, inputs.modelReasons[j], inputs.rollouts[j], diagnostics.importanceWeights, classes ? classes.settled : null);
     const warnings = [
       ...coverageWarnings(diagnostics),
@@ -91,17 +88,46 @@ export function assembleCandidates(inputs: AssemblyInputs): CandidateAssessment[
   });
 }
 
+/**
+ * The baseline, assessed as a candidate is: its J, the same function classes and range to report
+ * (reportedClasses), and its cross-checks read with that verdict. Where it is not settled, the
+ * whole-log caution (baselineClassWarning.ts) names it.
+ */
 export function assemblePresentController(inputs: AssemblyInputs): PresentControllerAssessment | null {
   const { context, baseline, replicates, settings } = inputs, sign = context.plan.sign;
   if (!baseline || !replicates.presentController || !replicates.completedReturn) return null;
   const r = replicates.presentController, model = baseline.model;
-  const { checks, confirmation } = checksOf(inputs, baseline, r, inputs.presentModelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null, null);
+  const policyValue = withNetworkInterval(intervalEstimate(model.fit.policyValue, r.fqe, settings.level, sign), baseline, sign, r.network);
+  const { classes, cut } = reportedClasses(inputs, baseline, r, policyValue, possibleOf(context));
+  const settled = classes ? classes.settled : null;
+  const { checks, confirmation } = checksOf(inputs, baseline, r, inputs.presentModelReason, inputs.baselineRollout ?? { reason: 'not computed' }, null, settled);
   const completed = completedReturnFromEnds(inputs.context.plan, inputs.baselineEnds!).value;
   return {
-    name: model.name, policyValue: withNetworkInterval(intervalEstimate(model.fit.policyValue, r.fqe, settings.level, sign), baseline, sign, r.network),
+    name: model.name, policyValue,
     completedReturn: intervalEstimate(completed, replicates.completedReturn, settings.level, sign, 'sampling of the logged runs; the value past each time limit is held at the full-data fit'),
     occupancyShift: inputs.reference.presentControllerShift, crossChecks: checks, confirmation,
+    reportedRange: cut.range, ...(cut.note ? { rangeCut: cut.note } : {}), settled, functionClasses: classes,
   };
+}
+
+/** The values any policy can have on these logs (the reward formula's bounds), for cutting a range to report. */
+function possibleOf(context: AssessmentContext) {
+  const { data, absorbingEnds, discount } = context.plan;
+  return possibleValues(data.rewards, discount, absorbingEnds > 0);
+}
+
+/**
+ * A model's J across its function classes and the range to report: one path for a candidate and the
+ * present controller. A range past what any policy can have, whatever it does (the reward formula's
+ * bounds), is cut there and says so.
+ */
+function reportedClasses(
+  inputs: AssemblyInputs, work: CandidateWork, r: CandidateReplicates, policyValue: IntervalEstimate, possible: ReturnType<typeof possibleValues>,
+): { classes: FunctionClassAssessment | null; cut: ReturnType<typeof cutToCertain> } {
+  const { context, settings } = inputs, sign = context.plan.sign;
+  const fitted = withUnresampledOwn(classAssessment(work, r, settings.level, sign), work, sign, r.network);
+  const cut = cutToCertain(context.plan, fitted?.range ?? policyValue.percentile, policyValue.value, possible);
+  return { classes: fitted && cut.range ? { ...fitted, range: cut.range } : fitted, cut };
 }
 
 function checksOf(

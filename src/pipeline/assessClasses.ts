@@ -33,7 +33,23 @@ export interface OtherClasses {
   readonly unconverged: UnconvergedClass[];
 }
 
-export async function classWorks(context: AssessmentContext, model: CandidateModel): Promise<OtherClasses> {
+/**
+ * What the class fits of several policies on one run share (one per assessment, classFits): each
+ * degree's fit spec made once, so every policy's fit of a degree has the very same feature map, and
+ * the class models fitted so far, which lend a later policy's pass of the same map its policy-free
+ * sums (ΦᵀΦ, Φᵀr, rᵀr: the same numbers to the last bit, ../core/fqe/nextFeatureSums.ts). The
+ * present controller's classes, fitted after the candidates', so form only the policy's own part.
+ */
+export interface ClassFits {
+  readonly specs: Map<number, LinearFitSpec | null>;
+  readonly models: CandidateModel[];
+}
+
+export function classFits(): ClassFits {
+  return { specs: new Map(), models: [] };
+}
+
+export async function classWorks(context: AssessmentContext, model: CandidateModel, shared: ClassFits = classFits()): Promise<OtherClasses> {
   const { plan } = context, a = plan.approximator;
   const own = a.kind === 'linear' && a.features.kind === 'polynomial' ? a.features.degree : null;
   const out: ClassWork[] = [], unconverged: UnconvergedClass[] = [];
@@ -41,11 +57,15 @@ export async function classWorks(context: AssessmentContext, model: CandidateMod
   // degrees, whose monomials lead its own (linearModel.ts nestedStatistics), and their influence
   // passes are one (buildLinearModelsPaced).
   const classes = [...COMPARED_DEGREES].reverse().flatMap((degree) => {
-    const spec = degree === own ? null : classSpec(context, degree);
+    if (!shared.specs.has(degree)) shared.specs.set(degree, degree === own ? null : classSpec(context, degree));
+    const spec = shared.specs.get(degree);
     return spec ? [{ degree, spec }] : [];
   });
   throwIfCancelled(context.cancel);
-  const outcomes = await buildLinearModelsPaced(plan, model, { cancel: context.cancel }, classes.map((c) => c.spec), [model]);
+  const outcomes = await buildLinearModelsPaced(plan, model, { cancel: context.cancel }, classes.map((c) => c.spec), [model], shared.models);
+  outcomes.forEach((outcome) => {
+    if ('model' in outcome) shared.models.push(outcome.model);
+  });
   outcomes.forEach((outcome, i) => {
     const label = polynomialClassLabel(classes[i].degree);
     if ('error' in outcome) {

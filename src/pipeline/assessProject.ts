@@ -18,10 +18,12 @@ import type { ProjectDocument } from '../project/schema';
 import type { Assessment, AssessmentWarning } from './assessment';
 import { AssessmentError, candidateWork, episodeOrderedLog, offPolicyInputs, type AssessmentContext, type CandidateWork, type EpisodeOrderedLog } from './assessCandidate';
 import { assembleCandidates, assemblePresentController, comparison, globalWarnings, presentControllerShift, unvisitedShare, type AssemblyInputs } from './assessAssembly';
-import { classWorks } from './assessClasses';
+import { classFits, classWorks, type ClassFits } from './assessClasses';
 import { baselineConfirmationWarnings } from './crossCheckWarnings';
+import { baselineClassWarnings } from './baselineClassWarning';
 import { openRolloutSimulations, rolloutCheck, type RolloutOutcome } from './assessRollouts';
 import { finalStateValues } from './model/completedReturn';
+import type { CandidateModel } from './model/candidateModel';
 import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
@@ -127,13 +129,14 @@ async function assessWith(
   let replicates: ReplicateSet, works: CandidateWork[], baseline: CandidateWork | null, baselineEnds: ReturnType<typeof finalStateValues> | null;
   try {
     works = [];
+    const shared = classFits();
     for (const [i, m] of run.models.entries()) {
       progress(i);
-      const others = await classWorks(context, m);
-      works.push(candidateWork(context, m, others.fitted, others.unconverged, offPolicy[i]));
+      works.push(await workInClasses(context, m, offPolicy[i], shared));
     }
     progress(run.models.length);
-    baseline = run.presentController ? candidateWork(context, run.presentController, [], [], offPolicy[run.models.length]) : null;
+    // The baseline in the same function classes as a candidate, so its J gets the same verdict and range (test/battery/README.md, "The baseline in other function classes").
+    baseline = run.presentController ? await workInClasses(context, run.presentController, offPolicy[run.models.length], shared) : null;
     baselineEnds = run.presentController ? finalStateValues(plan, run.presentController) : null;
     replicates = await runResamples(context, { works, baseline, baselineEnds, model }, settings, route,
       (p: ResampleProgress) => options.onProgress?.({ stage: 'resampling', ...p }));
@@ -170,10 +173,16 @@ async function assessWith(
     unvisitedShare: unvisited,
     plantMemory: memory.summary,
     // A contradicted or unconfirmed baseline: every difference is taken against its J (crossCheckWarnings.ts).
-    warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineConfirmationWarnings(presentController)],
+    warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineConfirmationWarnings(presentController), ...baselineClassWarnings(presentController)],
     method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, solver),
     valueSense: plan.sense,
   };
+}
+
+/** A model's work with its fits in the other function classes (classWorks): one path for a candidate and the present controller. */
+async function workInClasses(context: AssessmentContext, model: CandidateModel, offPolicy: CandidateWork['offPolicy'], shared: ClassFits): Promise<CandidateWork> {
+  const others = await classWorks(context, model, shared);
+  return candidateWork(context, model, others.fitted, others.unconverged, offPolicy);
 }
 
 function resampleSolver(works: CandidateWork[]): string {

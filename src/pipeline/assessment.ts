@@ -242,6 +242,14 @@ export interface PresentControllerAssessment {
   occupancyShift: number | null;
   crossChecks: CrossCheck[];
   confirmation: { status: 'confirmed' | 'contradicted' | 'unconfirmed'; text: string };
+  /**
+   * As a candidate's (CandidateAssessment): the range to report, the function-class verdict and the classes.
+   * Absent in assessments saved before the present controller was fitted in the compared classes.
+   */
+  reportedRange?: [number, number] | null;
+  rangeCut?: string;
+  settled?: boolean | null;
+  functionClasses?: FunctionClassAssessment | null;
 }
 
 export interface Assessment {

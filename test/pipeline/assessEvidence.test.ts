@@ -17,28 +17,17 @@ import { describe, expect, it } from 'vitest';
 import type { TransitionSet } from '../../src/core/transitions';
 import type { Assessment } from '../../src/pipeline/assessment';
 import { assessProject } from '../../src/pipeline/assessProject';
-import { projectSchema } from '../../src/project/schema';
+import { linearProjectFor } from './linearProjectFor';
 import { exactPolicyValue, simulateLog, type TestController } from '../core/linearGaussianPlant';
 import { PENDULUM, pendulumLog, pendulumLogging, pendulumRolloutValue } from '../core/saturatingPendulum';
 import { candidateFamily, cascadeLogging, cascadePlant, startLaws } from '../core/testPlants';
 
 const settings = { resamples: 200, level: 0.9, seed: 7, sensitivity: false };
 
-function projectFor(data: TransitionSet, discount: number, candidates: unknown[]) {
-  return projectSchema.parse({
-    format: 'setpoint-critic-project', version: 1, name: 'evidence check', data: { path: 'none.csv' },
-    columns: {
-      states: data.stateNames.map((column) => ({ column })), actions: data.actionNames.map((column) => ({ column })),
-      reward: { kind: 'column', column: 'r', sense: 'reward' },
-    },
-    discount, approximator: { kind: 'linear', features: { kind: 'polynomial', degree: 2 } }, candidates,
-  });
-}
-
 const asCandidate = (name: string, c: TestController, n: number) => ({ name, offset: c.offset, gain: [c.gain.slice(0, n)], std: c.std });
 
 async function assessed(data: TransitionSet, discount: number, candidates: unknown[]): Promise<Assessment> {
-  const result = await assessProject({ project: projectFor(data, discount, candidates), dataset: data, settings });
+  const result = await assessProject({ project: linearProjectFor(data, discount, candidates), dataset: data, settings });
   if (!result.ok) throw new Error(result.problems.map((p) => p.message).join('\n'));
   return result.value;
 }

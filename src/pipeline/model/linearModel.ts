@@ -136,16 +136,20 @@ export type LinearOutcome = { readonly model: CandidateModel } | { readonly erro
  */
 export function buildLinearModelsPaced(
   plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, specs: readonly LinearFitSpec[], enclosing: readonly CandidateModel[] = [],
+  others: readonly CandidateModel[] = [],
 ): Promise<LinearOutcome[]> {
-  return runStepsPaced(linearModelsSteps(plan, planned, hooks, specs, enclosing), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
+  return runStepsPaced(linearModelsSteps(plan, planned, hooks, specs, enclosing, others), hooks.pace ?? createPacer(PACE_INTERVAL_MS));
 }
 
-function* linearModelsSteps(plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, specs: readonly LinearFitSpec[], enclosing: readonly CandidateModel[]): PassSteps<LinearOutcome[]> {
+/** `others`: models of other policies on this plan; one with a spec's very feature map lends that fit's pass its policy-free sums (buildLinearModelPaced). */
+function* linearModelsSteps(
+  plan: EvaluationPlan, planned: PlannedPolicy, hooks: ModelHooks, specs: readonly LinearFitSpec[], enclosing: readonly CandidateModel[], others: readonly CandidateModel[],
+): PassSteps<LinearOutcome[]> {
   const nests = enclosing.flatMap(nestOf), fits: (FittedLinear | { error: unknown })[] = [];
   for (const spec of specs) {
     throwIfCancelled(hooks.cancel);
     try {
-      const fitted = yield* linearFitSteps(plan, planned, hooks, spec, nests, []);
+      const fitted = yield* linearFitSteps(plan, planned, hooks, spec, nests, others);
       fits.push(fitted);
       nests.push(fitted.nest);
     } catch (error) {

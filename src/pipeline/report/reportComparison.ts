@@ -10,6 +10,7 @@ import { policyLabel } from '../policyNames';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { shareText, sharesText } from '../../core/shareText';
 import { loggedReturnRole, truncationMatters } from '../../core/loggedReturn';
+import { BASELINE_RANGE_READING } from '../baselineClassWarning';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
   const a = input.assessment;
@@ -44,6 +45,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
         <td class="num">${d ? intervalAtPrecision(d.difference.percentile) : ''}</td><td class="num">${d ? resampleShare(betterIn[i], d.probabilityBetter) : ''}</td></tr>`;
     })}
     </tbody></table>
+    ${baselineNotSettled(a)}
     <figure id="fig-comparison">${raw(intervalFigure('comparison-svg', chartRows, valueAxisLabel(input, 'J'), reference))}
       <figcaption>Figure ${figure}. ${VALUES_CHART_TITLE}, beside the baseline (dashed line), with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} runs. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
     ${pairwise(a, level)}
@@ -52,6 +54,13 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
       ? 'How often it holds is not known: not every policy was resampled.'
       : `This whole order holds in ${shareText(a.comparison.ranking.frequency)} of the resamples.`}</p>
     <ul>${a.comparison.ranking.neighbours.map((n) => html`<li>${policyLabel(n.better)} better than ${policyLabel(n.worse)}${n.frequency === null ? '' : ` in ${shareText(n.frequency)} of resamples`}</li>`)}</ul>`;
+}
+
+/** Where the baseline's J is not settled across function classes: its range to report, and how the differences read against it (baselineClassWarning.ts). */
+function baselineNotSettled(a: Assessment): Html {
+  const pc = a.presentController;
+  if (!pc?.functionClasses || pc.functionClasses.settled) return html``;
+  return html`<p><strong>The ${PRESENT_CONTROLLER}’s J is not settled across function classes</strong> (range to report ${intervalAtPrecision(pc.reportedRange ?? null)}). ${BASELINE_RANGE_READING}</p>`;
 }
 
 /** "99.5 % of resamples" from the share as its column writes it; a dash where the share is unknown. */

@@ -31,7 +31,7 @@ export function diagnosticsSection(input: ReportInput): Html {
 
 /** Where a range to report was cut to what the reward's definition allows, and why (assessPossible.ts cutToCertain). */
 function cutParagraph(a: Assessment): Html {
-  const cut = a.candidates.filter((c) => c.rangeCut);
+  const cut = [...a.candidates, ...(a.presentController ? [{ ...a.presentController, name: 'present controller' }] : [])].filter((c) => c.rangeCut);
   return cut.length ? html`<p>Ranges marked (cut): ${typesetText(cut.map((c) => `${c.name}: ${c.rangeCut}`).join(' '))}</p>` : html``;
 }
 
@@ -47,7 +47,7 @@ function memoryParagraph(a: Assessment): Html {
 }
 
 function diagnosticRows(a: Assessment): { label: string; values: string[]; reference: string }[] {
-  const first = a.candidates[0]?.diagnostics;
+  const first = a.candidates[0]?.diagnostics, pc = a.presentController;
   const row = (label: string, value: (c: CandidateAssessment) => string, reference: string) => ({ label, values: a.candidates.map(value), reference });
   const weights = (c: CandidateAssessment) => c.diagnostics.importanceWeights;
   const horizon = a.candidates.map(weights).find((w) => w)?.horizonSteps;
@@ -55,8 +55,9 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
     row(`Occupancy shift (1 = like the logs; caution above ${OCCUPANCY_SHIFT_LIMITS.caution}×, serious above ${OCCUPANCY_SHIFT_LIMITS.serious}× the present controller’s level, at least 1)`,
       (c) => shiftText(c.diagnostics.occupancyShift), shiftText(first?.presentControllerShift)),
     row(`… ${UPPER_PERCENTILE}th percentile over resamples`, (c) => shiftText(c.diagnostics.occupancyShiftUpper), ''),
-    row('Across function classes', (c) => (c.settled === null ? 'one class' : c.settled ? 'settled' : 'not settled'), ''),
-    row('Range to report (spans every function class’s interval; the number to carry forward where not settled)', (c) => (c.reportedRange ? `${intervalAtPrecision(c.reportedRange)}${c.rangeCut ? ' (cut)' : ''}` : '—'), ''),
+    // The present controller's as a candidate's, where the assessment has them (saved before it was fitted in the classes: blank).
+    row('Across function classes', (c) => classesWord(c.settled), pc?.settled === undefined ? '' : classesWord(pc.settled)),
+    row('Range to report (spans every function class’s interval; the number to carry forward where not settled)', rangeCell, pc?.reportedRange === undefined ? '' : rangeCell(pc)),
     row('Cross-checks', (c) => c.confirmation.status, a.presentController?.confirmation.status ?? ''),
     shareRow('Importance weights: effective share of the one-step ratios', (c) => weights(c)?.oneStepShare),
     row(`Importance weights: effective runs at step ${horizon ?? 'H'}`, (c) => { const w = weights(c); return !w ? '—' : w.horizonNotNumbers ? `not a number for ${w.horizonNotNumbers} of ${w.horizonEpisodes}` : w.horizonEffectiveEpisodes >= 1 ? `${effectiveRunsNumber(w.horizonEffectiveEpisodes)} of ${w.horizonEpisodes}` : `${w.horizonEffectiveEpisodes > 0 ? 'less than 1' : 'none'} of ${w.horizonEpisodes}`; }, ''),
@@ -70,6 +71,12 @@ function diagnosticRows(a: Assessment): { label: string; values: string[]; refer
     const texts = sharesText([...a.candidates.map(share), reference]);
     return { label, values: texts.slice(0, -1), reference: reference === undefined ? '' : texts[texts.length - 1] };
   }
+}
+
+const classesWord = (settled: boolean | null | undefined): string => (settled === null || settled === undefined ? 'one class' : settled ? 'settled' : 'not settled');
+
+function rangeCell(c: { reportedRange?: [number, number] | null; rangeCut?: string }): string {
+  return c.reportedRange ? `${intervalAtPrecision(c.reportedRange)}${c.rangeCut ? ' (cut)' : ''}` : '—';
 }
 
 function warningList(warnings: AssessmentWarning[]): Html {

@@ -8,7 +8,8 @@
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import type { Assessment } from '../../../../pipeline/assessment';
-import { intervalDetail, levelText, noteWithoutVerdict, sentenceCase, typesetMinus, VERDICT } from './assessmentWords';
+import { intervalDetail, levelText, noteWithoutVerdict, typesetMinus, VERDICT } from './assessmentWords';
+import { ClassesVerdict } from './ClassesVerdict';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
@@ -23,10 +24,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
         </p>
         {c.functionClasses && (
           <p className="small" data-testid={`classes-${c.name}`}>
-            <strong>{c.settled ? 'Settled across function classes' : 'Not settled across function classes'}</strong>
-            {' '}(range to report {intervalAtPrecision(c.reportedRange)}): {c.functionClasses.classes.map((k) => `${k.label}: ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}.
-            {/* Why, from the verdict itself (which classes differ, or are too uncertain to check the project's own); its lead is the bold words above. */}
-            {' '}<span data-testid={`classes-reason-${c.name}`}>{classReason(c.functionClasses.reason)}</span> {c.functionClasses.coverage}
+            <ClassesVerdict classes={c.functionClasses} reportedRange={c.reportedRange} reasonTestId={`classes-reason-${c.name}`} />
           </p>
         )}
         {c.rangeCut && <p className="small" data-testid={`range-cut-${c.name}`}>{typesetMinus(c.rangeCut)}</p>}
@@ -61,9 +59,4 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
       </details>
     </FoldPanel>
   );
-}
-
-/** The verdict's reason without its lead ("Not settled: ", "Settled: "), which the bold words beside it say, as a sentence. */
-function classReason(reason: string): string {
-  return typesetMinus(sentenceCase(reason.replace(/^(Not settled|Settled): /, '')));
 }

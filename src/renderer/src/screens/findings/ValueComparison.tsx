@@ -23,6 +23,8 @@ import { FoldPanel } from './FoldPanel';
 import { TRUNCATION_NOTICE, truncationMatters } from '../../../../core/loggedReturn';
 import { shareText } from '../../../../core/shareText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
+import { BASELINE_RANGE_READING } from '../../../../pipeline/baselineClassWarning';
+import { ClassesVerdict } from './ClassesVerdict';
 
 
 /**
@@ -55,6 +57,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
   // With intervals computed, every J here is written at its interval's decimal place, as the answer table writes it.
   const presentInterval = assessment?.presentController?.policyValue.percentile ?? null;
   const completedInterval = assessment?.presentController?.completedReturn.percentile ?? null, loggedInterval = assessment?.behaviour.percentile ?? null;
+  const presentClasses = assessment?.presentController?.functionClasses ?? null;
   const chartIntervals = useMemo(() => (assessment
     ? [...evaluation.policies.map((_, i) => assessment.candidates[i]?.policyValue.percentile ?? null), pc ? presentInterval : loggedInterval] : undefined),
   [assessment, evaluation, pc, presentInterval, loggedInterval]);
@@ -100,7 +103,10 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
               {assessment && <IntervalCell estimate={assessment.presentController?.policyValue} level={level} testId="present-interval" />}
               <td className="number">{pc.estimate.fixedPointValue === null ? '—' : valueWithError(pc.estimate.fixedPointValue, pc.estimate.standardError, presentInterval).value}</td>
               <td>{FIT_STATUS_WORDS[pc.estimate.status]} ({plural(pc.estimate.iterations, 'iteration')})</td>
-              <td className="small">The controller that ran while the log was recorded, as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.</td>
+              <td className="small">The controller that ran while the log was recorded, as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.
+                {/* Its J across the function classes, as a candidate's (an assessment saved before it had them: nothing). */}
+                {presentClasses && <p data-testid="classes-present"><ClassesVerdict classes={presentClasses} reportedRange={assessment?.presentController?.reportedRange ?? null} reasonTestId="classes-reason-present" /></p>}
+                {presentClasses && !presentClasses.settled && <p data-testid="present-range-reading">{BASELINE_RANGE_READING}</p>}</td>
             </tr>
           )}
           {pc && completed && (
