@@ -15,6 +15,7 @@ import { EXIT } from './exitStatus';
 import { processTerminal, type Terminal } from './terminal';
 // The version is the package's (a build inlines this one field).
 import { version } from '../../package.json';
+import { BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL } from '../core/limits';
 
 
 const USAGE = `Usage:
@@ -33,8 +34,8 @@ Options:
   --json            write one JSON object to stdout instead of the readable table (evaluate)
   --out <file>      where to write the report (default: <project>-report.html in this folder);
                     never the project file or its data file
-  --resamples <N>   bootstrap resamples of the runs (default: the project’s, else 1000)
-  --level <L>       confidence level of the intervals (default: the project’s, else 0.9)
+  --resamples <N>   bootstrap resamples of the runs (default: the project’s, else ${BOOTSTRAP_RESAMPLES.default})
+  --level <L>       confidence level of the intervals (default: the project’s, else ${CONFIDENCE_LEVEL.default})
   --help            show this text
   --version         show the version
 

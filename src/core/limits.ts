@@ -141,6 +141,8 @@ export const SEED = { default: 1, min: 0, max: 2 ** 32 - 1 } as const;
 export const BOOTSTRAP_RESAMPLES = { default: 1000, min: 20, max: 100_000 } as const;
 /** Confidence level of the intervals. */
 export const CONFIDENCE_LEVEL = { default: 0.9, min: 0.5, below: 1 } as const;
+/** Fewest logged runs (episodes) the bootstrap resamples: fewer give intervals too coarse to mean much (common practice). */
+export const MIN_EPISODES = 10;
 
 /**
  * The effective horizon 1/(1 − γ) in logged steps may not exceed the number of logged

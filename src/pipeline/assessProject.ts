@@ -36,9 +36,7 @@ import { sensitivity } from './assessSensitivity';
 import type { AssessmentSettings } from './assessSettings';
 import { isEngineError } from './engineErrors';
 import { CANCELLED_PROBLEM, startRun, type ProjectRun } from './projectRun';
-
-/** Fewer episodes than this give bootstrap intervals too coarse to mean much (common practice). */
-export const MIN_EPISODES = 10;
+import { MIN_EPISODES } from '../core/limits';
 
 export interface AssessmentProgress {
   stage: 'preparing' | 'resampling' | 'sensitivity';

@@ -13,7 +13,7 @@
  * one either side, or three polynomial degrees around the project's from 2 up (sweptDegrees), each
  * from the class check's fit of that degree or its own data pass, solved as the resamples are.
  * Network: every point is a new network fit, so only the width is swept (½× and 2× the units of
- * every hidden layer, beside the project's own fit) and the discount sweep is left out.
+ * every hidden layer, beside the project's own fit; sweptWidths) and the discount sweep is left out.
  */
 import { meanStartFeatures, startStateFeatures } from '../core/features/policyFeatures';
 import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
@@ -112,16 +112,30 @@ export function sweptDegrees(own: number, highest: number): number[] {
   return [start, start + 1, start + 2].filter((v) => v >= lowest && v <= highest);
 }
 
+/**
+ * The swept networks: every hidden layer scaled by each of WIDTH_FACTORS and held to NETWORK_LIMITS.units,
+ * the project's own (factor 1) kept as it is. A scaled network whose first layer — the figure's setting — comes
+ * out as the project's (one unit halved, or 1,024 doubled at the limit) is left out: its point would stand at the
+ * project's setting under the project's label while being another fit.
+ */
+export function sweptWidths(hiddenLayers: readonly number[]): { factor: number; hiddenLayers: number[] }[] {
+  const { min, max } = NETWORK_LIMITS.units;
+  return WIDTH_FACTORS
+    .map((factor) => ({ factor, hiddenLayers: hiddenLayers.map((u) => (factor === 1 ? u : Math.min(max, Math.max(min, Math.round(u * factor))))) }))
+    .filter((w) => w.factor === 1 || w.hiddenLayers[0] !== hiddenLayers[0]);
+}
+
 async function widthCurve(context: AssessmentContext, works: CandidateWork[], a: NetworkSettings, sign: number): Promise<SensitivityCurve> {
-  const widths = WIDTH_FACTORS.map((f) => a.hiddenLayers.map((u) => Math.min(NETWORK_LIMITS.units.max, Math.max(NETWORK_LIMITS.units.min, Math.round(u * f)))));
+  const widths = sweptWidths(a.hiddenLayers);
   const series: SensitivitySeries[] = [];
   for (const w of works) {
     const fits = [];
-    for (const [i, hiddenLayers] of widths.entries()) fits.push(WIDTH_FACTORS[i] === 1 ? { value: w.model.fit.policyValue, status: 'project setting' } : await refitNetwork(context, w, { ...a, hiddenLayers }));
+    for (const { factor, hiddenLayers } of widths) fits.push(factor === 1 ? { value: w.model.fit.policyValue, status: 'project setting' } : await refitNetwork(context, w, { ...a, hiddenLayers }));
     series.push({ name: w.model.name, values: fits.map((f) => (f.value === null ? null : sign * f.value)), status: fits.map((f) => f.status) });
   }
   series.push(flatBehaviour(context, widths.length, sign));
-  return finish('networkWidth', `units in the first hidden layer (all layers scaled alike; project ${a.hiddenLayers.join('×')})`, widths.map((h) => h[0]), WIDTH_FACTORS.indexOf(1), series, sign, projectScales(context, widths.length));
+  const projectIndex = widths.findIndex((w) => w.factor === 1);
+  return finish('networkWidth', `units in the first hidden layer (all layers scaled alike; project ${a.hiddenLayers.join('×')})`, widths.map((w) => w.hiddenLayers[0]), projectIndex, series, sign, projectScales(context, widths.length));
 }
 
 function flatBehaviour(context: AssessmentContext, count: number, sign: number): SensitivitySeries {

@@ -21,7 +21,7 @@ import { outsidePossible, possibleValues } from '../core/diagnostics/possibleVal
 import { OCCUPANCY_SHIFT_LIMITS, occupancyShiftSeverity, shiftReference, type SeverityLevel } from '../core/diagnostics/severity';
 import { shiftText } from '../core/diagnostics/shiftText';
 import type { CancellationCheck } from '../core/fqe/cancellation';
-import { CONFIDENCE_LEVEL, DEFAULT_POLYNOMIAL_DEGREE, MAX_ITERATIONS, RIDGE, TOLERANCE } from '../core/limits';
+import { CONFIDENCE_LEVEL, DEFAULT_POLYNOMIAL_DEGREE, MAX_ITERATIONS, MIN_EPISODES, RIDGE, TOLERANCE } from '../core/limits';
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import { PolicyError, type GaussianPolicy } from '../core/policy';
 import { RetuneAxisError } from '../core/retune/retuneAxes';
@@ -116,7 +116,7 @@ function runRetuneMap(
     }
   });
   const e = plan.episodes.episodes, d = features.dim;
-  const withIntervals = e >= 10 && e * d * d * policies.length * MAP_RESAMPLES <= INTERVAL_BUDGET;
+  const withIntervals = e >= MIN_EPISODES && e * d * d * policies.length * MAP_RESAMPLES <= INTERVAL_BUDGET;
   const level = plan.project.bootstrap?.level ?? CONFIDENCE_LEVEL.default;
   // The same resamples at every point (seed, b), drawn once; each point's replicates are taken a block at a time (linearFqeReplicateBlock).
   const resamples = withIntervals ? Array.from({ length: MAP_RESAMPLES }, (_, b) => episodeMultiplicities(e, plan.seed, b)) : [];
@@ -170,7 +170,7 @@ function runRetuneMap(
     withIntervals
       ? `Intervals: ${shareText(level)} percentile bootstrap over the ${e} logged runs, ${MAP_RESAMPLES} resamples per point (the same resamples at every point)` +
         `${cutPoints > 0 ? `; at ${cutPoints} point${cutPoints === 1 ? '' : 's'} cut where the ${plan.sense}’s definition puts values out of reach of every policy (${certainEnds(plan)})` : ''}.`
-      : `No intervals: ${e < 10 ? `${e} runs are too few to resample` : 'the grid is too large to resample every point within a minute'}.`,
+      : `No intervals: ${e < MIN_EPISODES ? `${e} runs are too few to resample` : 'the grid is too large to resample every point within a minute'}.`,
     ...(linear ? [] : ['The project uses the network approximator; the map uses degree-2 polynomial features (a network fit per point would cost a training each).']),
     'Each point is a retune of the same candidate; like every estimate here, it is a screening figure to plan a trial, not a substitute for a supervised test on the plant.',
   ];

@@ -24,6 +24,7 @@ import type { LastLayer } from './networkOutputLayer';
 import { INTERVAL_COVERS, networkValueInterval, valueInterval, type EstimateOptions, type NetworkValueEstimate } from './networkValueEstimate';
 import { jointRowsAt, meanRow, rowValues, startFeatureRows } from './networkValueRows';
 import type { BackendSelection } from './tfBackend';
+import { CONFIDENCE_LEVEL } from '../limits';
 
 export interface FinishContext {
   readonly input: NetworkFqeInput;
@@ -133,7 +134,7 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
       // The data's own starts map to their runs through startEpisode (a run whose first row was excluded has none).
       const startEpisode = own ? input.data.startEpisode : undefined;
       const resamples = options.resamples ?? s.method.intervalResamples;
-      const r = valueReplicates(systems, { startRows: rows, linearStartRows: linearRows, startsFollowEpisodes: follow, startEpisode, level: options.level ?? 0.9, resamples, seed: options.seed ?? input.seed, runs: options.runs }, { network: value, linear });
+      const r = valueReplicates(systems, { startRows: rows, linearStartRows: linearRows, startsFollowEpisodes: follow, startEpisode, level: options.level ?? CONFIDENCE_LEVEL.default, resamples, seed: options.seed ?? input.seed, runs: options.runs }, { network: value, linear });
       const difference = networkValueInterval(r.difference, spread * Math.abs(value), drift * Math.abs(value));
       const allowance = classErrorAllowance(difference);
       return {

@@ -2,6 +2,7 @@
 import { FqeOptionsError } from './fqeErrors';
 import type { NetworkFqeInput } from './networkFqe';
 import { checkNetworkSettings } from './networkSettings';
+import { SEED } from '../limits';
 
 export function checkNetworkFqeInput(input: NetworkFqeInput): void {
   const { data, policy } = input;
@@ -14,8 +15,8 @@ export function checkNetworkFqeInput(input: NetworkFqeInput): void {
   if (!Number.isInteger(input.quadratureNodes) || input.quadratureNodes < 1) {
     throw new FqeOptionsError(`quadratureNodes: expected a whole number ≥ 1, got ${input.quadratureNodes}`);
   }
-  if (!Number.isInteger(input.seed) || input.seed < 0 || input.seed > 2 ** 32 - 1) {
-    throw new FqeOptionsError(`seed: expected a whole number from 0 to 2^32 − 1, got ${input.seed}`);
+  if (!Number.isInteger(input.seed) || input.seed < SEED.min || input.seed > SEED.max) {
+    throw new FqeOptionsError(`seed: expected a whole number from ${SEED.min} to 2^32 − 1, got ${input.seed}`);
   }
   checkNetworkSettings(input.settings);
 }
