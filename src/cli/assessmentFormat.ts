@@ -5,7 +5,7 @@ import { policyLabel } from '../pipeline/policyNames';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { shareText, sharesText } from '../core/shareText';
 import { loggedReturnRole } from '../core/loggedReturn';
-import { beyondPossibleSentence, missingPointsSentence, rankingVerdict } from '../figures/charts/sensitivity';
+import { beyondPossibleSentence, unconvergedPointsSentence, rankingVerdict } from '../figures/charts/sensitivity';
 import { textTable as table } from './textTable';
 import { TRIAL_RULE, trialAnswer, trialChoice } from '../pipeline/trialChoice';
 import { ASCII_MINUS } from '../figures/parts/uncertainNumber';
@@ -56,7 +56,7 @@ export function formatAssessment(a: Assessment, completedShown = true): string {
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
   const memory = plantMemorySentence(a.plantMemory);
   // The sweeps in a line each, by the figure's own verdict (figures/charts/sensitivity.ts): the numbers are in --json and the report.
-  const sweeps = a.sensitivity ? a.sensitivity.curves.flatMap((c) => [`  J against the ${c.label}: ${rankingVerdict(c)}.`, ...[beyondPossibleSentence(c), missingPointsSentence(c)].flatMap((x) => (x ? [`    ${x}`] : []))]) : [];
+  const sweeps = a.sensitivity ? a.sensitivity.curves.flatMap((c) => [`  J against the ${c.label}: ${rankingVerdict(c)}.`, ...[beyondPossibleSentence(c), unconvergedPointsSentence(c)].flatMap((x) => (x ? [`    ${x}`] : []))]) : [];
   return [
     `Bootstrap over ${a.settings.episodes} runs: ${a.settings.resamples} resamples, level ${level}, seed ${a.settings.seed}. Baseline: ${policyLabel(a.comparison.baseline.name)}.`,
     a.comparison.baseline.note,

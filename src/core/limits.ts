@@ -50,6 +50,8 @@ export const CLIPPED_MOMENT_TOLERANCE = 1e-11;
 
 /** Breakpoints of one scheduled loop (a lookup table of the input; more than this is a curve, better written as an expression; ours). */
 export const MAX_SCHEDULE_BREAKPOINTS = 50;
+/** States computed from the log during import (each is an expression evaluated on every row; ours). */
+export const MAX_DERIVED_STATES = 10;
 /** Retune maps per project, and kept with its saved results (each is a grid of fits; ours). */
 export const MAX_RETUNE_MAPS = 10;
 /** Candidates per project (each is a fit and, in the assessment, a series of resamples; ours). */

@@ -17,8 +17,8 @@
  */
 import { meanStartFeatures, startStateFeatures } from '../core/features/policyFeatures';
 import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
-import { solveReplicate } from '../core/bootstrap/linearFqeReplicate';
-import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
+import { solveReplicate, type LinearReplicate, type LinearSolveSettings } from '../core/bootstrap/linearFqeReplicate';
+import { bellmanStatisticsSteps, type BellmanStatistics } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturns } from '../core/loggedReturn';
 import { rewardTermScale } from '../core/rankingTie';
@@ -61,13 +61,26 @@ export function sweptDiscount(discount: number, factor: number): number {
   return discount ** (1 / factor);
 }
 
+/**
+ * One swept discount's J. Solved at its fixed point where the project's fit converged (the route of
+ * its resamples), it keeps that value only where the fitted Q-evaluation iteration, from the
+ * project's weights, reaches it too — the rule the project's own fit is judged by; else no J, with
+ * the iteration's status. The fixed point exists wherever its equations are regular, reachable or not.
+ */
+function discountPoint(setup: LinearSolveSettings, statistics: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
+  const fit = solveReplicate(setup, statistics, xiBar);
+  if (setup.solver !== 'fixedPoint' || fit.status !== 'converged') return fit;
+  const iterated = solveReplicate({ ...setup, solver: 'iteration' }, statistics, xiBar);
+  return iterated.status === 'converged' ? fit : { policyValue: null, weights: null, status: iterated.status };
+}
+
 /** The discount curve with its check against what the rewards allow (assessSweepCheck.ts): marked points, the settings the ranking leaves out, warnings. */
 function discountCurve(context: AssessmentContext, works: CandidateWork[], sign: number, check: SweepCheckSettings): { curve: SensitivityCurve; warnings: AssessmentWarning[][]; note: string | null } {
   const { plan } = context, settings = HORIZON_FACTORS.map((f) => sweptDiscount(plan.discount, f)), projectIndex = HORIZON_FACTORS.indexOf(1);
   const fitted = works.map((w) => {
     const setup = linearSolveSettings(plan, w.model), { statistics, startFeatures, features } = w.model.linear!;
     const xiBar = meanStartFeatures(startFeatures, features.dim);
-    return settings.map((g) => solveReplicate({ ...setup, discount: g }, statistics, xiBar));
+    return settings.map((g) => discountPoint({ ...setup, discount: g }, statistics, xiBar));
   });
   const swept = checkDiscountSweep(context, works, settings, projectIndex, fitted.map((fits) => fits.map((f) => f.policyValue)), fitted.map((fits) => fits.map((f) => f.status === 'converged')), check);
   const series: SensitivitySeries[] = works.map((w, c) => ({
@@ -90,7 +103,7 @@ async function featureCurve(context: AssessmentContext, works: CandidateWork[], 
   const series: SensitivitySeries[] = [];
   for (const w of works) {
     const fits = [];
-    for (const v of variants) fits.push(v.value === own ? { value: w.model.fit.policyValue, status: 'project setting' } : await refitLinear(context, w, v.settings));
+    for (const v of variants) fits.push(v.value === own ? ownPoint(w) : await refitLinear(context, w, v.settings));
     series.push({ name: w.model.name, values: fits.map((f) => (f.value === null ? null : sign * f.value)), status: fits.map((f) => f.status) });
   }
   series.push(flatBehaviour(context, variants.length, sign));
@@ -130,12 +143,17 @@ async function widthCurve(context: AssessmentContext, works: CandidateWork[], a:
   const series: SensitivitySeries[] = [];
   for (const w of works) {
     const fits = [];
-    for (const { factor, hiddenLayers } of widths) fits.push(factor === 1 ? { value: w.model.fit.policyValue, status: 'project setting' } : await refitNetwork(context, w, { ...a, hiddenLayers }));
+    for (const { factor, hiddenLayers } of widths) fits.push(factor === 1 ? ownPoint(w) : await refitNetwork(context, w, { ...a, hiddenLayers }));
     series.push({ name: w.model.name, values: fits.map((f) => (f.value === null ? null : sign * f.value)), status: fits.map((f) => f.status) });
   }
   series.push(flatBehaviour(context, widths.length, sign));
   const projectIndex = widths.findIndex((w) => w.factor === 1);
   return finish('networkWidth', `units in the first hidden layer (all layers scaled alike; project ${a.hiddenLayers.join('×')})`, widths.map((w) => w.hiddenLayers[0]), projectIndex, series, sign, projectScales(context, widths.length));
+}
+
+/** The project's own fit as a sweep's point: "project setting" where it converged, else its own status, which the figure's sentence names. */
+function ownPoint(w: CandidateWork): { value: number | null; status: string } {
+  return { value: w.model.fit.policyValue, status: w.model.fit.status === 'converged' ? 'project setting' : w.model.fit.status };
 }
 
 function flatBehaviour(context: AssessmentContext, count: number, sign: number): SensitivitySeries {

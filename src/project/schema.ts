@@ -11,7 +11,7 @@ import { strictObject } from './strictObject';
 import { finite } from './finiteNumber';
 import { approximatorSchema } from './approximatorSchema';
 import {
-  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, MAX_RETUNE_MAPS, MAX_SCHEDULE_BREAKPOINTS, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
+  BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, MAX_DERIVED_STATES, MAX_RETUNE_MAPS, MAX_SCHEDULE_BREAKPOINTS, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
   MAX_GAUSS_HERMITE_NODES, MAX_PREVIOUS_STEPS, MAX_STATE_COLUMNS, SEED, SURFACE_RESOLUTION,
 } from '../core/limits';
 
@@ -155,7 +155,7 @@ export const columnRolesSchema = strictObject({
   /** Timestamp column, for the sampling period and time checks (a timeGap episode rule names its own). */
   timestamp: columnName.optional(),
   /** States computed from the log during import; states may name them. */
-  derived: z.array(derivedStateSchema).max(10).optional(),
+  derived: z.array(derivedStateSchema).max(MAX_DERIVED_STATES, `at most ${MAX_DERIVED_STATES} derived states`).optional(),
 });
 
 export const actuatorBoundsSchema = strictObject({

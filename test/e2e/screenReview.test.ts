@@ -234,14 +234,14 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
   it('names the feature sweep’s gap and why, and shows that sweep’s panel in both themes', async () => {
     // The panel opens on the discount sweep, so the pictures above never showed the feature sweep: on the
     // heating-loop sample the rate-limited PI's degree-4 fit diverges, and the sweep says so under the figure
-    // (figures/charts/sensitivity.ts missingPointsSentence) rather than leaving the gap unexplained.
+    // (figures/charts/sensitivity.ts unconvergedPointsSentence) rather than leaving the gap unexplained.
     if (c.id !== 'heating-loop') return;
     const { page } = app;
     await goToStep(page, 'findings');
     await openAllFindings(page);
     await steadySelect(page.getByTestId('sensitivity-curve'), '1');
     await expect.poll(() => page.getByTestId('sensitivity-verdict').innerText(), POLL).toMatch(/^The ranking is the same at every setting\.$/);
-    await expect.poll(() => page.getByTestId('sensitivity-missing').innerText(), POLL).toMatch(/^No J where the fit at that setting did not converge: “PI with a 2[\s\u00a0\u202f]%\/min rate limit” at 4 \(diverged\)\./);
+    await expect.poll(() => page.getByTestId('sensitivity-unconverged').innerText(), POLL).toMatch(/^No J where the fit at that setting failed or did not converge: “PI with a 2[\s\u00a0\u202f]%\/min rate limit” at 4 \(diverged\); the line has a gap there/);
     const faults: string[] = [];
     // The choice shows whole: at 17rem the select cut "polynomial degree of the features" to "…of the feat".
     const cut = await page.getByTestId('sensitivity-curve').evaluate((select: HTMLSelectElement) => {

@@ -1,7 +1,7 @@
 /** The sensitivity chart: one line per series, the behaviour dashed in the reference colour, the project's setting marked, gaps kept. */
 import { describe, expect, it } from 'vitest';
 import { screenLook } from '../../src/figures/parts/plotLook';
-import { BEYOND_POSSIBLE_KEY, beyondPossibleSentence, missingPointsSentence, rankingVerdict, SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
+import { BEYOND_POSSIBLE_KEY, beyondPossibleSentence, unconvergedPointsSentence, rankingVerdict, SENSITIVITY_DEFAULTS, sensitivityChart, sensitivitySummary } from '../../src/figures/charts/sensitivity';
 import { plotScreenHeight } from '../../src/figures/writers/plotSpec';
 import { discountSweep } from './syntheticSensitivity';
 
@@ -49,13 +49,17 @@ describe('sensitivity chart', () => {
 
   it('names every gap with its fit’s status in the reader’s words, and says nothing when every point has a J', () => {
     const base = discountSweep(); // "sharp gain" has no J at 0.95 (a failed fit)
-    expect(missingPointsSentence(base)).toMatch(/^No J where the fit at that setting did not converge: “sharp gain” at 0\.95 \(.+\)\. The line has a gap there/);
+    expect(unconvergedPointsSentence(base)).toMatch(/^No J where the fit at that setting failed or did not converge: “sharp gain” at 0\.95 \(.+\); the line has a gap there/);
     const statuses = (status: string) => ({ ...base, series: [base.series[0], { ...base.series[1], status: base.series[1].status.map((s, i) => (i === 2 ? status : s)) }, base.series[2]] });
-    expect(missingPointsSentence(statuses('maxIterations'))).toContain('(stopped at its iteration limit)'); // FIT_STATUS_WORDS, core/fqe/fitStatus.ts
-    expect(missingPointsSentence(statuses('singular'))).toContain('(no solution: its equations are singular)');
-    expect(missingPointsSentence(statuses('expected at most 300 features'))).toContain('(expected at most 300 features)'); // an engine's own message as it is
-    const whole = { ...base, series: base.series.map((s) => ({ ...s, values: s.values.map((v) => v ?? 1) })) };
-    expect(missingPointsSentence(whole)).toBeNull();
+    expect(unconvergedPointsSentence(statuses('maxIterations'))).toContain('(stopped at its iteration limit)'); // FIT_STATUS_WORDS, core/fqe/fitStatus.ts
+    expect(unconvergedPointsSentence(statuses('singular'))).toContain('(no solution: its equations are singular)');
+    expect(unconvergedPointsSentence(statuses('expected at most 300 features'))).toContain('(expected at most 300 features)'); // an engine's own message as it is
+    // A J drawn as the fit reached it (a network at its iteration limit, the project's own unconverged fit) is named too.
+    const reached = { ...base, series: [{ ...base.series[0], status: base.series[0].status.map((s, i) => (i === 0 ? 'maxIterations' : s)) }, base.series[1], base.series[2]] };
+    expect(unconvergedPointsSentence(reached)).toMatch(/ Drawn where the fit reached it without converging, so not to be relied on: “gentle gain” at 0\.9\d* \(stopped at its iteration limit\)\.$/);
+    const whole = { ...base, series: base.series.map((s) => ({ ...s, values: s.values.map((v) => v ?? 1), status: s.status.map((x) => (x === 'diverged' ? 'converged' : x)) })) };
+    expect(unconvergedPointsSentence(whole)).toBeNull();
+    expect(unconvergedPointsSentence({ ...whole, series: whole.series.map((s) => ({ ...s, status: s.status.map((x, i) => (i === 2 && !s.reference ? 'project setting' : x)) })) })).toBeNull();
   });
 
   it('puts a whole-valued setting (the polynomial degree) on whole-number ticks only, a discount on fractional ones', () => {

@@ -46,7 +46,7 @@ export interface SensitivityData {
   label: string;
   settings: number[];
   projectIndex: number;
-  /** beyondPossible: true at the crossed points, the fewest that account for every pair of swept J that cannot both be right (drawn as crosses; assessSweepCheck.ts); status: each fit's, read where a value is null (missingPointsSentence). */
+  /** beyondPossible: true at the crossed points, the fewest that account for every pair of swept J that cannot both be right (drawn as crosses; assessSweepCheck.ts); status: each fit's, read where a point stands for no converged fit (unconvergedPointsSentence). */
   series: { name: string; values: (number | null)[]; status?: string[]; reference?: boolean; beyondPossible?: boolean[] }[];
   rankingStable: boolean;
   /** Settings the ranking verdict leaves out because a J there is crossed (pipeline/sweepRanking.ts). */

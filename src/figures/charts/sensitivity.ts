@@ -126,16 +126,28 @@ function statusWords(status: string): string {
   return status in FIT_STATUS_WORDS ? FIT_STATUS_WORDS[status as FitStatus] : status;
 }
 
+/** Statuses of a point that stands for a converged fit, or for the logged return (no fit). */
+const SETTLED_STATUSES = new Set(['converged', 'project setting', 'logged']);
+
 /**
- * Where a series has no J (its fit at that setting gave no value, or did not meet its convergence
- * rule), in one sentence for the panel, the report and the command line ("No J: “A” at 4 (diverged)."),
- * so a gap in a line is never left unexplained; null when every point has a value.
+ * The points no converged fit stands behind, in one sentence for the panel, the report and the
+ * command line: where a series has no J (its fit at that setting failed or did not meet its
+ * convergence rule; a gap in the line) and where a J is drawn as the fit reached it without meeting
+ * the rule (a network stopped at its iteration limit, or the project's own unconverged fit). A gap or
+ * an unconverged point is never left unexplained; null when every point stands for a converged fit.
  */
-export function missingPointsSentence(curve: Pick<SensitivityCurve, 'series' | 'settings' | 'parameter'>, name: (n: string) => string = (n) => n): string | null {
-  const parts = curve.series.flatMap((serie) => curve.settings.flatMap((_, i) =>
-    (serie.values[i] === null ? [`${quoted(name(serie.name))} at ${settingText(curve, i)} (${statusWords(serie.status?.[i] ?? 'no value')})`] : [])));
-  if (!parts.length) return null;
-  return `No J where the fit at that setting did not converge: ${parts.join('; ')}. The line has a gap there, and the ranking at that setting is read among the others.`;
+export function unconvergedPointsSentence(curve: Pick<SensitivityCurve, 'series' | 'settings' | 'parameter'>, name: (n: string) => string = (n) => n): string | null {
+  const named = (drawn: boolean) => curve.series.flatMap((serie) => curve.settings.flatMap((_, i) => {
+    const status = serie.status?.[i] ?? (serie.values[i] === null ? 'no value' : 'converged');
+    const pick = drawn ? serie.values[i] !== null && !SETTLED_STATUSES.has(status) : serie.values[i] === null;
+    return pick ? [`${quoted(name(serie.name))} at ${settingText(curve, i)} (${statusWords(status)})`] : [];
+  }));
+  const gaps = named(false), drawn = named(true);
+  const parts = [
+    ...(gaps.length ? [`No J where the fit at that setting failed or did not converge: ${gaps.join('; ')}; the line has a gap there, and the ranking at that setting is read among the others.`] : []),
+    ...(drawn.length ? [`Drawn where the fit reached it without converging, so not to be relied on: ${drawn.join('; ')}.`] : []),
+  ];
+  return parts.length ? parts.join(' ') : null;
 }
 
 /** rankingVerdict as a sentence of its own. */

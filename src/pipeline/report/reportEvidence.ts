@@ -4,7 +4,7 @@ import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../core/diagnostics
 import { shiftText } from '../../core/diagnostics/shiftText';
 import { CAUTIONS } from '../cautions';
 import { plantMemorySentence } from '../plantMemoryWords';
-import { beyondPossibleSentence, missingPointsSentence, rankingSentence, sensitivityChart } from '../../figures/charts/sensitivity';
+import { beyondPossibleSentence, unconvergedPointsSentence, rankingSentence, sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
 import { html, raw, type Html } from './htmlText';
@@ -123,7 +123,7 @@ export function sensitivitySection(input: ReportInput, figures: FigureCounter): 
       const shown = { ...curve, series: curve.series.map((x) => ({ ...x, name: shownName(x.name) })) };
       const chart = inlineSvg((look) => sensitivityChart({ curve: shown, valueLabel: valueAxisLabel(input, 'J'), title: '', theme: 'light' }, look) as never,
         { widthPx: 640, heightPx: 360, id: `sensitivity-${n}-svg`, label: `J against the ${curve.label}` });
-      const crossed = beyondPossibleSentence(curve, shownName), missing = missingPointsSentence(curve, shownName);
+      const crossed = beyondPossibleSentence(curve, shownName), missing = unconvergedPointsSentence(curve, shownName);
       return html`<figure id="fig-sensitivity-${n}">${raw(chart)}<figcaption>Figure ${n}. J (${words.value}, ${words.better}) against the ${curve.label}; large points: the project’s setting.
         ${curve.rankingStable ? rankingSentence(curve) : html`<strong>${rankingSentence(curve)}</strong>`}${crossed ? html` <strong>${crossed}</strong>` : ''}${missing ? ` ${missing}` : ''}</figcaption></figure>`;
     })}

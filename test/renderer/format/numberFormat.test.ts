@@ -17,6 +17,8 @@ describe('number format', () => {
     expect(screenMessage('converged in 643 iterations (relative weight change 9.92e-11 ≤ tolerance 1.00e-10)'))
       .toBe(`converged in 643 iterations (relative weight change ${formatNumber(9.92e-11, 3)} ≤ tolerance 1.00\u00a0×\u00a010⁻¹⁰)`);
     expect(screenMessage('grew 3.5e+4-fold; degree-2 fit; 1e5 rows')).toBe('grew 3.5\u00a0×\u00a010⁴-fold; degree-2 fit; 1\u00a0×\u00a010⁵ rows');
+    // A negative number's minus as the app writes it (U+2212, as formatNumber does); a hyphen after a word stays one.
+    expect(screenMessage('J = -1.5e-3, range x-2e-3')).toBe(`J = \u22121.5\u00a0×\u00a010⁻³, range x-2\u00a0×\u00a010⁻³`);
   });
 
   it('writes field values that read back to the same number', () => {

@@ -5,7 +5,7 @@
 import { plainNumber } from '../../../figures/parts/uncertainNumber';
 import { isoTimeText } from '../../../core/clockText';
 import { EDITABLE_DIGITS } from '../../../core/limits';
-import { NO_BREAK_SPACE, powerOfTen } from '../../../core/exponentText';
+import { NO_BREAK_SPACE, powerOfTen, TRUE_MINUS } from '../../../core/exponentText';
 
 /** The one plain number style (figures/parts/uncertainNumber.ts): fixed notation up to 1e15, exponent form beyond and below 1e-4. */
 export function formatNumber(x: number, significant = 4): string {
@@ -57,11 +57,12 @@ export function plural(count: number, noun: string, pluralNoun = `${noun}s`): st
 
 /**
  * A message from the pipeline (written for the terminal too) as the screen typesets it: "9.92e-11" as
- * "9.92 × 10⁻¹¹", the app's one exponent form (core/exponentText.ts), whose no-break spaces keep it on one
+ * "9.92 × 10⁻¹¹" (a leading minus as the app writes it, U+2212), the app's one exponent form (core/exponentText.ts), whose no-break spaces keep it on one
  * line. The terminal's form was shown as it was, and Chromium broke "1.00e-" | "10)" across two lines (Run step).
  */
 export function screenMessage(text: string): string {
-  return text.replace(/\b(\d+(?:\.\d+)?)e([+-]?\d+)\b/g, (_, mantissa: string, exponent: string) => `${mantissa}${NO_BREAK_SPACE}×${NO_BREAK_SPACE}${powerOfTen(Number(exponent))}`);
+  return text.replace(/(^|[^\w.])(-?)(\d+(?:\.\d+)?)e([+-]?\d+)\b/g, (_, before: string, sign: string, mantissa: string, exponent: string) =>
+    `${before}${sign ? TRUE_MINUS : ''}${mantissa}${NO_BREAK_SPACE}×${NO_BREAK_SPACE}${powerOfTen(Number(exponent))}`);
 }
 
 /** Text as a sentence: first letter capital, and a full stop at the end. */

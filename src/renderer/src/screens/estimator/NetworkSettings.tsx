@@ -6,7 +6,7 @@ import { problemAt, type FieldProblem } from '../../document/projectProblems';
 import type { ApproximatorSettings } from '../../../../project/approximatorSchema';
 import { ACTIVATION_NAMES } from '../../../../pipeline/plan/approximatorLabel';
 import { POLYNOMIAL_PART_CHOSEN, POLYNOMIAL_PART_VALUES, type PolynomialPartSetting } from '../../../../core/fqe/polynomialPartSetting';
-import { NETWORK_ACTIVATIONS } from '../../../../core/fqe/networkSettings';
+import { NETWORK_ACTIVATIONS, NETWORK_BACKENDS, type NetworkBackendPreference } from '../../../../core/fqe/networkSettings';
 import { useWorkspace } from '../../WorkspaceContext';
 import { formatHiddenLayers, parseHiddenLayers } from './hiddenLayers';
 import { SETTING_HELP } from './settingHelp';
@@ -28,6 +28,9 @@ const NUMERIC: { key: NumericKey; label: string; help: string }[] = [
 function polynomialDegreeOptionText(value: PolynomialPartSetting): string {
   return value === POLYNOMIAL_PART_CHOSEN ? 'Chosen from the log' : `Degree ${value}`;
 }
+
+/** How each TensorFlow.js backend choice reads in the select. */
+const BACKEND_NAMES: Readonly<Record<NetworkBackendPreference, string>> = { auto: 'Automatic', wasm: 'WebAssembly', cpu: 'Plain JavaScript' };
 
 export function NetworkSettings({ settings, problems }: { settings: Network; problems: readonly FieldProblem[] }) {
   const { documents } = useWorkspace();
@@ -64,7 +67,7 @@ export function NetworkSettings({ settings, problems }: { settings: Network; pro
       <details className="details-section">
         <summary>Computation details</summary>
         <SelectField label="Computed with" value={settings.backend} help={SETTING_HELP.backend}
-          options={[{ value: 'auto', label: 'Automatic' }, { value: 'wasm', label: 'WebAssembly' }, { value: 'cpu', label: 'Plain JavaScript' }]}
+          options={NETWORK_BACKENDS.map((value) => ({ value, label: BACKEND_NAMES[value] }))}
           onChange={(backend) => set('change how the network is computed', { backend }, 'backend')} />
       </details>
       <div className="row">

@@ -4,7 +4,7 @@ import type { Sensitivity } from '../../../../pipeline/assessment';
 import type { Evaluation } from '../../../../pipeline/estimates';
 import { SelectField } from '../../components/SelectField';
 import { SensitivityPlot } from '../../plots';
-import { beyondPossibleSentence, missingPointsSentence, rankingSentence, sweepsVerdict } from '../../../../figures/charts/sensitivity';
+import { beyondPossibleSentence, unconvergedPointsSentence, rankingSentence, sweepsVerdict } from '../../../../figures/charts/sensitivity';
 import type { Theme } from '../../theme';
 import { ExportPanel } from './ExportPanel';
 import { FoldPanel } from './FoldPanel';
@@ -17,7 +17,7 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
   const curve = sensitivity.curves[index] ?? sensitivity.curves[0];
   const shown = useMemo(() => curve && { ...curve, series: curve.series.map((s) => ({ ...s, name: displayName(s.name) })) }, [curve]);
   if (!curve || !shown) return null;
-  const crossed = beyondPossibleSentence(curve, displayName), missing = missingPointsSentence(curve, displayName);
+  const crossed = beyondPossibleSentence(curve, displayName), missing = unconvergedPointsSentence(curve, displayName);
   const title = `J against the ${curve.label}`;
   const props = { curve: shown, valueLabel: policyValueLabel(evaluation.valueSense, valueUnit(doc)), title, theme };
   return (
@@ -32,7 +32,7 @@ export function SensitivityPanel({ sensitivity, evaluation, theme }: { sensitivi
       <SensitivityPlot {...props} />
       <p data-testid="sensitivity-verdict">{rankingSentence(curve)}{curve.rankingStable ? '' : ' The conclusion depends on this setting.'}</p>
       {crossed && <p className="small" data-testid="sensitivity-crossed">{crossed}</p>}
-      {missing && <p className="small" data-testid="sensitivity-missing">{missing}</p>}
+      {missing && <p className="small" data-testid="sensitivity-unconverged">{missing}</p>}
       {sensitivity.notes.map((n) => <p key={n} className="small muted">{n}</p>)}
       <ExportPanel kind="sensitivity" evaluation={evaluation} defaultTitle={title} policy={curve.series.map((s) => s.name).join(', ')}
         fileBase={`sensitivity-${curve.parameter}`} makeSpec={(t) => ({ kind: 'sensitivity', props: { ...props, title: t } })} />
