@@ -1,7 +1,7 @@
 /**
  * A policy's J across the function classes: the verdict in bold, the range to report, each class's
- * value and interval, and why (the verdict's own reason and what the range covers). One writer for a
- * candidate (CrossChecksPanel) and the present controller, the baseline (ValueComparison).
+ * value and interval, and why (the verdict's own reason and what the range covers). One writer for the
+ * candidates and the present controller, the baseline (both in CrossChecksPanel).
  */
 import type { FunctionClassAssessment } from '../../../../pipeline/assessment';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';

@@ -13,7 +13,7 @@ import { ClassesVerdict } from './ClassesVerdict';
 import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
-  const level = assessment.settings.level;
+  const level = assessment.settings.level, present = assessment.presentController;
   return (
     <FoldPanel section="crossChecks" span="span-2" testId="cross-checks" gist={assessment.candidates.map((c) => `${c.name}: ${c.confirmation.status}`).join('; ')}>
       <p className="small muted">Each method rests on a different assumption; agreement between them is evidence, disagreement is a reason to look closer.</p>
@@ -51,6 +51,12 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
         <CopyTable tableTestId={`cross-checks-${c.name}`} fileBase={`cross-checks-${c.name.replace(/[^\w-]+/g, '-').toLowerCase()}`} />
         </div>
       ))}
+      {/* The baseline's J across the function classes, as a candidate's (an assessment saved before it had them: nothing). */}
+      {present?.functionClasses && (
+        <p className="small" data-testid="classes-present">
+          <strong>{present.name}:</strong> <ClassesVerdict classes={present.functionClasses} reportedRange={present.reportedRange ?? null} reasonTestId="classes-reason-present" />
+        </p>
+      )}
       <details data-testid="cross-check-assumptions">
         <summary>What each method rests on</summary>
         <dl className="small">
