@@ -103,8 +103,8 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
               <td className="number">{pc.estimate.fixedPointValue === null ? '—' : valueWithError(pc.estimate.fixedPointValue, pc.estimate.standardError, presentInterval).value}</td>
               <td>{FIT_STATUS_WORDS[pc.estimate.status]} ({plural(pc.estimate.iterations, 'iteration')})</td>
               <td className="small">The controller that ran while the log was recorded, as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.
-                {/* Where its function classes disagree, the range and how every difference then reads, in short: the verdict's
-                    reason is under Cross-checks, as a candidate's, and in the whole-log caution (an assessment saved before: nothing). */}
+                {/* Where its function classes disagree, the range and how every difference then reads, in short: the reason of
+                    the verdict is under Cross-checks, as for a candidate, and in the whole-log caution (saved before: nothing). */}
                 {presentClasses && !presentClasses.settled && (
                   <p data-testid="present-range-reading"><strong>Not settled across function classes</strong> (range to report {intervalAtPrecision(assessment?.presentController?.reportedRange ?? null)}; why: under Cross-checks). {BASELINE_RANGE_READING}</p>
                 )}</td>
