@@ -11,7 +11,7 @@
  * "The baseline in other function classes").
  */
 import type { AssessmentWarning, PresentControllerAssessment } from './assessment';
-import { notSettledMessage } from './assessAssembly';
+import { notSettledMessage } from './assessClassRange';
 import { policyLabel } from './policyNames';
 
 export const BASELINE_NOT_SETTLED_TOPIC = 'baselineNotSettled';

@@ -16,7 +16,7 @@
 import { describe, expect, it } from 'vitest';
 import type { FunctionClassAssessment } from '../../src/pipeline/assessment';
 import { assessProject } from '../../src/pipeline/assessProject';
-import { notSettledMessage } from '../../src/pipeline/assessAssembly';
+import { notSettledMessage } from '../../src/pipeline/assessClassRange';
 import { BASELINE_NOT_SETTLED_TOPIC, BASELINE_RANGE_READING, baselineClassWarnings } from '../../src/pipeline/baselineClassWarning';
 import { buildLinearModelsPaced } from '../../src/pipeline/model/linearModel';
 import type { LinearFitSpec } from '../../src/pipeline/model/candidateModel';

@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { functionClassVerdict } from '../../src/core/diagnostics/functionClassRange';
-import { classAssessment, notSettledMessage } from '../../src/pipeline/assessAssembly';
+import { classAssessment, notSettledMessage } from '../../src/pipeline/assessClassRange';
 import type { CandidateReplicates } from '../../src/pipeline/assessResamples';
 import type { CandidateWork } from '../../src/pipeline/assessCandidate';
 

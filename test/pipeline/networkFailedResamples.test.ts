@@ -7,7 +7,7 @@
  * nothing. Invented numbers.
  */
 import { describe, expect, it } from 'vitest';
-import { withNetworkInterval } from '../../src/pipeline/assessAssembly';
+import { withNetworkInterval } from '../../src/pipeline/assessClassRange';
 import { intervalEstimate } from '../../src/pipeline/assessIntervals';
 import type { CandidateWork } from '../../src/pipeline/assessCandidate';
 import type { NetworkRunResamples } from '../../src/pipeline/networkRunResamples';

@@ -10,7 +10,7 @@
 import { describe, expect, it } from 'vitest';
 import { approximatorAgreement } from '../../src/core/fqe/approximatorAgreement';
 import { unpairedGap } from '../../src/core/diagnostics/functionClassRange';
-import { notSettledMessage, withUnresampledOwn } from '../../src/pipeline/assessAssembly';
+import { notSettledMessage, withUnresampledOwn } from '../../src/pipeline/assessClassRange';
 import type { CandidateWork } from '../../src/pipeline/assessCandidate';
 import type { FunctionClassAssessment } from '../../src/pipeline/assessment';
 

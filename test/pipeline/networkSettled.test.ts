@@ -9,7 +9,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { approximatorAgreement } from '../../src/core/fqe/approximatorAgreement';
-import { classAssessment, networkDisagreement, withUnresampledOwn } from '../../src/pipeline/assessAssembly';
+import { classAssessment, networkDisagreement, withUnresampledOwn } from '../../src/pipeline/assessClassRange';
 import type { CandidateReplicates } from '../../src/pipeline/assessResamples';
 import type { CandidateWork } from '../../src/pipeline/assessCandidate';
 import type { FunctionClassAssessment } from '../../src/pipeline/assessment';

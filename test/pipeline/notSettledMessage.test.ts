@@ -5,7 +5,7 @@
  * page never shows "[5.62, 9.55]" in the table and "[5.624, 9.549]" in the warning.
  */
 import { describe, expect, it } from 'vitest';
-import { notSettledMessage } from '../../src/pipeline/assessAssembly';
+import { notSettledMessage } from '../../src/pipeline/assessClassRange';
 import type { FunctionClassAssessment } from '../../src/pipeline/assessment';
 
 const classEntry = (label: string, value: number, interval: [number, number]) => ({ label, value, interval, standardError: 1 });

@@ -35,7 +35,7 @@
  *     (paired, able to see 10 %) while both disagree with degree 2, the reason adds that the gap most
  *     likely lies in degree 2 (nestedClassPointer.ts, adopted on a measured rule); range and verdict unchanged.
  *     For a network project the same where the network, degrees 3 and 4 agree pairwise (the network's
- *     pairs unpaired, unpairedGap) and all three differ from degree 2 (withUnresampledOwn, assessAssembly.ts).
+ *     pairs unpaired, unpairedGap) and all three differ from degree 2 (withUnresampledOwn, assessClassRange.ts).
  *   - A class that was fitted but whose fitted Q-evaluation did not converge (it diverged, or stopped
  *     at its iteration limit) has no value to compare. When it leaves the project's own class alone,
  *     the estimate is not settled: the richer classes could not be fitted stably on these logs,
