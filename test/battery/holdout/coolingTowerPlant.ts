@@ -26,7 +26,7 @@
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
-import { valveLaw } from './valveLaw';
+import { directActingLaw } from './valveLaw';
 
 export const SETPOINT_C = 28, FAN_SPEEDS = 4;
 
@@ -45,10 +45,8 @@ export const coolingTowerDynamics: PlantDynamics = {
   },
 };
 
-/** u = 0.5 + K·(T − setpoint) + F·q, clipped to [0, 1] (valveLaw.ts, the gain's sign turned: more fan as T rises). */
-export function fanCommand(k: number, setpointC: number, feedforward: number, std: number) {
-  return valveLaw({ bias: 0.5, setpoint: setpointC, gain: -k, feedforward, std, clipped: true });
-}
+/** u = 0.5 + K·(T − setpoint) + F·q, clipped to [0, 1]: more fan as T or the load rises (valveLaw.ts). */
+export const fanCommand = directActingLaw;
 
 export function coolingTowerPlant(): BatteryPlant {
   return nonlinearBatteryPlant({

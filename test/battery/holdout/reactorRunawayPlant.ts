@@ -32,7 +32,7 @@
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
-import { valveLaw } from './valveLaw';
+import { directActingLaw } from './valveLaw';
 
 export const REFERENCE_K = 350, ACTIVATION_K = 8000, RATE_AT_REFERENCE = 0.1, SPOIL_LIMIT_K = 354;
 /** Where the plant rests at 350 K: 0.1·(1 − c) = c·(1 − e^{−0.1}). */
@@ -56,9 +56,9 @@ export const reactorDynamics: PlantDynamics = {
   },
 };
 
-/** u = 0.5 + K·(T − setpoint), clipped to [0, 1] (valveLaw.ts, the gain's sign turned: more coolant as T rises). */
+/** u = 0.5 + K·(T − setpoint), clipped to [0, 1]: more coolant as T rises (valveLaw.ts). */
 export function coolantCommand(k: number, setpointK: number, std: number) {
-  return valveLaw({ bias: 0.5, setpoint: setpointK, gain: -k, feedforward: 0, std, clipped: true });
+  return directActingLaw(k, setpointK, 0, std);
 }
 
 export function reactorRunawayPlant(): BatteryPlant {

@@ -25,7 +25,7 @@
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
-import { valveLaw } from './valveLaw';
+import { directActingLaw } from './valveLaw';
 
 export const TARGET_G_L = 1, REJECT_G_L = 1.3;
 
@@ -39,10 +39,8 @@ export const rinseBathDynamics: PlantDynamics = {
   },
 };
 
-/** u = 0.5 + K·(c − target) + F·d, clipped to [0, 1] (valveLaw.ts, the gain's sign turned: more water as c rises). */
-export function freshWaterCommand(k: number, targetGL: number, feedforward: number, std: number) {
-  return valveLaw({ bias: 0.5, setpoint: targetGL, gain: -k, feedforward, std, clipped: true });
-}
+/** u = 0.5 + K·(c − target) + F·d, clipped to [0, 1]: more water as c or the load rises (valveLaw.ts). */
+export const freshWaterCommand = directActingLaw;
 
 export function rinseBathPlant(): BatteryPlant {
   return nonlinearBatteryPlant({
