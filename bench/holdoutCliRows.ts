@@ -16,13 +16,14 @@
  * Each log also gives one baseline row (printed with candidate "present controller", kept apart in
  * --out's sibling `*.baseline.json`): the present controller's J and interval, its cross-checks and
  * confirmation status, and the truth of the plant's logging policy (plant.behaviour, with its limits)
- * rolled out from the same run starts, as the candidates' truth is (bench/baselineContradictedRows.ts).
+ * rolled out from the same run starts, as the candidates' truth is (bench/baselineContradictedRows.ts);
+ * and the trial choice (`trial` there, a `# trial:` line printed) scored against those truths (trialVerdict).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
-import type { BatteryPlant, StartSet } from '../test/battery/batteryPlant';
+import type { BatteryPlant, BatteryTruth, StartSet } from '../test/battery/batteryPlant';
 import { rolloutTruth } from '../test/battery/rolloutTruth';
 import { rolloutTruthPlants } from '../test/battery/rolloutTruthPlants';
 import { cliCommand } from './builtCli';
@@ -84,15 +85,13 @@ function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed:
   };
 }
 
-type Truth = ReturnType<typeof rolloutTruth>;
-
 /**
  * The trial choice (`json.trial`, pipeline/trialChoice.ts) against the truth: a named candidate is right when its
  * truth beats the logging policy's by more than 2 standard errors of the difference (independent rollouts:
  * √(SE² + SE²)); none named is a miss when some candidate is truly better by that margin. Rewards: larger is better.
  */
-function trialVerdict(trial: { named: string | null; best: string | null } | null, present: Truth, truths: Map<string, Truth>) {
-  const better = (t: Truth) => t.value - present.value > 2 * Math.hypot(t.standardError, present.standardError);
+function trialVerdict(trial: { named: string | null; best: string | null } | null, present: BatteryTruth, truths: Map<string, BatteryTruth>) {
+  const better = (t: BatteryTruth) => t.value - present.value > 2 * Math.hypot(t.standardError, present.standardError);
   const trulyBetter = [...truths].filter(([, t]) => better(t)).map(([n]) => n);
   const trulyBest = [...truths].sort((a, b) => b[1].value - a[1].value)[0]?.[0] ?? null;
   const named = trial?.named ?? null;
@@ -132,7 +131,7 @@ async function main() {
     if (out) writeFileSync(out.replace(/\.json$/, '') + `-${plant.name}-s${seed}.cli.json`, run.stdout);
     const starts: StartSet = { name: 'runStarts', description: 'the log’s own run starts', states: data.startStates, count: data.episodeCount };
     const dynamics = plant.dynamics, rolloutsPerStart = MORE_ROLLOUTS.includes(plant.name) ? ROLLOUTS_PER_START.more : ROLLOUTS_PER_START.default;
-    const truths = new Map<string, ReturnType<typeof rolloutTruth>>();
+    const truths = new Map<string, BatteryTruth>();
     for (const c of json.assessment.candidates) {
       const spec = plant.candidates.find((k) => k.name === c.name)!.spec;
       const truth = rolloutTruth(dynamics, spec, plant.discount, starts, { rolloutsPerStart, seed: ROLLOUT_SEED });
