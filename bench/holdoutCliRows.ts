@@ -16,13 +16,14 @@
  * Each log also gives one baseline row (printed with candidate "present controller", kept apart in
  * --out's sibling `*.baseline.json`): the present controller's J and interval, its cross-checks and
  * confirmation status, and the truth of the plant's logging policy (plant.behaviour, with its limits)
- * rolled out from the same run starts, as the candidates' truth is (bench/baselineContradictedRows.ts).
+ * rolled out from the same run starts, as the candidates' truth is (bench/baselineContradictedRows.ts);
+ * and the trial choice (`trial` there, a `# trial:` line printed) scored against those truths (trialVerdict).
  */
 import { spawnSync } from 'node:child_process';
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
-import type { BatteryPlant, StartSet } from '../test/battery/batteryPlant';
+import type { BatteryPlant, BatteryTruth, StartSet } from '../test/battery/batteryPlant';
 import { rolloutTruth } from '../test/battery/rolloutTruth';
 import { rolloutTruthPlants } from '../test/battery/rolloutTruthPlants';
 import { cliCommand } from './builtCli';
@@ -84,6 +85,21 @@ function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed:
   };
 }
 
+/**
+ * The trial choice (`json.trial`, pipeline/trialChoice.ts) against the truth: a named candidate is right when its
+ * truth beats the logging policy's by more than 2 standard errors of the difference (independent rollouts:
+ * √(SE² + SE²)); none named is a miss when some candidate is truly better by that margin. Rewards: larger is better.
+ */
+function trialVerdict(trial: { named: string | null; best: string | null } | null, present: BatteryTruth, truths: Map<string, BatteryTruth>) {
+  const better = (t: BatteryTruth) => t.value - present.value > 2 * Math.hypot(t.standardError, present.standardError);
+  const trulyBetter = [...truths].filter(([, t]) => better(t)).map(([n]) => n);
+  const trulyBest = [...truths].sort((a, b) => b[1].value - a[1].value)[0]?.[0] ?? null;
+  const named = trial?.named ?? null;
+  const verdict = named === null ? (trulyBetter.length ? 'none named (a miss)' : 'none named') : trulyBetter.includes(named) ? 'right' : 'WRONG';
+  const words = `named ${named ?? 'none'} (best by J: ${trial?.best ?? '-'}); truly better than the logging policy: ${trulyBetter.join(', ') || 'none'}; truly best ${trulyBest}: ${verdict}`;
+  return { named, best: trial?.best ?? null, trulyBetter, trulyBest, verdict, words };
+}
+
 type Warning = { severity: 'caution' | 'serious'; topic: string; message: string; candidate?: string };
 
 async function main() {
@@ -115,9 +131,11 @@ async function main() {
     if (out) writeFileSync(out.replace(/\.json$/, '') + `-${plant.name}-s${seed}.cli.json`, run.stdout);
     const starts: StartSet = { name: 'runStarts', description: 'the log’s own run starts', states: data.startStates, count: data.episodeCount };
     const dynamics = plant.dynamics, rolloutsPerStart = MORE_ROLLOUTS.includes(plant.name) ? ROLLOUTS_PER_START.more : ROLLOUTS_PER_START.default;
+    const truths = new Map<string, BatteryTruth>();
     for (const c of json.assessment.candidates) {
       const spec = plant.candidates.find((k) => k.name === c.name)!.spec;
       const truth = rolloutTruth(dynamics, spec, plant.discount, starts, { rolloutsPerStart, seed: ROLLOUT_SEED });
+      truths.set(c.name, truth);
       const j: number = c.policyValue.value, interval: [number, number] | null = c.policyValue.basic ?? c.policyValue.percentile;
       const range: [number, number] | null = c.reportedRange;
       const margin = 2 * truth.standardError;
@@ -159,8 +177,10 @@ async function main() {
       console.log([plant.name, approximator, seed, PRESENT, truth.value.toFixed(4), truth.standardError.toFixed(4), j.toFixed(4), err.toFixed(2),
         interval ? `${interval[0].toFixed(3)}..${interval[1].toFixed(3)}` : '-', presentRange ? `${presentRange[0].toFixed(3)}..${presentRange[1].toFixed(3)}` : '-', interval ? miss <= margin : false, interval ? (miss / truth.standardError).toFixed(1) : '-',
         present.settled ?? '-', present.confirmation.status, checks.map((x: { label: string; agreement: string }) => `${x.label}: ${x.agreement}`).join('; '), run.status, '-', seconds.toFixed(0)].join('\t'));
+      const trial = trialVerdict(json.trial, truth, truths);
+      console.log(`#\ttrial: ${trial.words}`);
       baseline.push({ plant: plant.name, approximator, seed, candidate: PRESENT, truth, j, err, interval, holds: interval ? miss <= margin : false, missOverSE: interval ? miss / truth.standardError : null,
-        confirmation: present.confirmation, crossChecks: checks, globalWarnings: json.assessment.warnings, exit: run.status, seconds, ...classes });
+        confirmation: present.confirmation, crossChecks: checks, globalWarnings: json.assessment.warnings, exit: run.status, seconds, ...classes, trial });
     }
     if (out) writeFileSync(out, JSON.stringify(rows, null, 1));
     // Apart, so the readers of the candidate rows (bench/nestedClassRows.ts and the rest) read the same array as before.

@@ -26,6 +26,9 @@ import { kettlePlant } from './kettlePlant';
 import { neutralisationPlant } from './neutralisationPlant';
 import { steamDrumPlant } from './steamDrumPlant';
 import { surgeDrumPlant } from './surgeDrumPlant';
+import { reactorRunawayPlant } from './reactorRunawayPlant';
+import { coolingTowerPlant } from './coolingTowerPlant';
+import { rinseBathPlant } from './rinseBathPlant';
 
 const AREA_M2 = 3, STEP_S = 10, VALVE_FLOW_M3_S = 0.05, LEVEL_SETPOINT_M = 2, VALVE_BIAS = 0.8;
 /** Restriction coefficient that holds the setpoint at the valve bias: k·√2 = 0.05·0.8. */
@@ -76,5 +79,6 @@ export function gentleLevelValvePlant(): BatteryPlant {
 }
 
 export function holdoutPlants(): BatteryPlant[] {
-  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant(), pipeHeaterPlant(), steamDrumPlant(), backlashLevelPlant(), headerPressurePlant()];
+  return [levelValvePlant(), gentleLevelValvePlant(), exchangerPlant(), dryerPlant(), neutralisationPlant(), kettlePlant(), surgeDrumPlant(), blendingTankPlant(), pipeHeaterPlant(), steamDrumPlant(), backlashLevelPlant(), headerPressurePlant(),
+    reactorRunawayPlant(), coolingTowerPlant(), rinseBathPlant()];
 }

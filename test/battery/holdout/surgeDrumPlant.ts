@@ -25,7 +25,7 @@ import type { RandomSource } from '../../../src/core/random';
 import type { BatteryPlant } from '../batteryPlant';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
-import { valveLaw } from './valveLaw';
+import { directActingLaw } from './valveLaw';
 
 /** Chance of a feed upset per step, its scale and its largest size. */
 export const UPSET_RATE = 0.002, UPSET_SCALE = 0.25, UPSET_LIMIT = 1.5;
@@ -54,10 +54,8 @@ export const surgeDrumDynamics: PlantDynamics = {
   },
 };
 
-/** u = 0.5 + K·(x − x_set) + F·d, clipped to [0, 1]: the valve law with the gain's sign turned (the outlet opens as the level rises; valveLaw.ts). */
-export function outletCommand(k: number, levelSetpoint: number, feedforward: number, std: number) {
-  return valveLaw({ bias: 0.5, setpoint: levelSetpoint, gain: -k, feedforward, std, clipped: true });
-}
+/** u = 0.5 + K·(x − x_set) + F·d, clipped to [0, 1]: the outlet opens as the level rises (valveLaw.ts). */
+export const outletCommand = directActingLaw;
 
 export function surgeDrumPlant(): BatteryPlant {
   return nonlinearBatteryPlant({

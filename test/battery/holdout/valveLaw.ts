@@ -23,3 +23,12 @@ export function valveLaw(v: ValveLaw) {
   const law = { offset: [v.bias + v.gain * v.setpoint], gain: [[-v.gain, v.feedforward]], std: [v.std] };
   return v.clipped ? { ...law, bounds: VALVE_RANGE } : law;
 }
+
+/**
+ * A direct-acting P law around a valve at half open, clipped to [0, 1]: the command rises as the measured
+ * variable rises above its setpoint, u = 0.5 + K·(s₀ − setpoint) + F·s₁ (the surge drum's outlet, the
+ * reactor's coolant, the cooling tower's fan, the rinse bath's fresh water).
+ */
+export function directActingLaw(k: number, setpoint: number, feedforward: number, std: number) {
+  return valveLaw({ bias: 0.5, setpoint, gain: -k, feedforward, std, clipped: true });
+}
