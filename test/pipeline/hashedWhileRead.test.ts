@@ -11,22 +11,14 @@ import { createRandom } from '../../src/core/random';
 import { hashedWhileRead } from '../../src/pipeline/dataFingerprint';
 import { nativeSha256 } from '../../src/cli/nativeSha256';
 import type { PieceSource } from '../../src/data/pieceSource';
+import { memorySource } from '../data/memorySource';
 
 const rng = createRandom(11);
 const bytes = Uint8Array.from({ length: 100_003 }, () => Math.floor(256 * rng.uniform()));
 const openssl = createHash('sha256').update(bytes).digest('hex');
 
 /** The bytes as a file that gives at most `most` bytes a read. */
-function fileOf(most: number): PieceSource {
-  return {
-    byteLength: bytes.length,
-    read: (into, offset, length, position) => {
-      const n = Math.max(0, Math.min(length, most, bytes.length - position));
-      into.set(bytes.subarray(position, position + n), offset);
-      return n;
-    },
-  };
-}
+const fileOf = (most: number): PieceSource => memorySource(bytes, most);
 
 function readAt(source: PieceSource, position: number, length: number): void {
   source.read(new Uint8Array(length + 5), 5, length, position);
