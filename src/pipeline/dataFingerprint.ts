@@ -37,7 +37,35 @@ export function* dataFingerprintSteps(bytes: Uint8Array, create: Sha256Factory =
   return hash.hex();
 }
 
-/** The same hash of a file read in pieces (data/pieceSource.ts), read a piece at a time into one buffer. */
+/**
+ * The same hash taken while a file read in pieces (data/pieceSource.ts) is read for the import, so
+ * the fingerprint costs no read of its own: every read passes through `source`, and the bytes of a
+ * read that reach past the part hashed so far extend it, in file order (FIPS 180-4 §6.2, as above).
+ * The import reads the file's head, then every piece from the start (pieceFacts.ts), so the hash is
+ * whole after its first pass; `hex()` is null while some byte was never read.
+ */
+export interface HashedPieces {
+  readonly source: PieceSource;
+  hex(): string | null;
+}
+
+export function hashedWhileRead(file: PieceSource, create: Sha256Factory = portableSha256): HashedPieces {
+  const hash = create();
+  let hashed = 0; // file bytes [0, hashed) are in the hash
+  const read = (into: Uint8Array, offset: number, length: number, position: number): number => {
+    const n = file.read(into, offset, length, position);
+    if (n > 0 && position <= hashed && position + n > hashed) {
+      hash.update(into.subarray(offset + hashed - position, offset + n));
+      hashed = position + n;
+    }
+    return n;
+  };
+  let digest: string | null = null; // a hash gives its digest once
+  const hex = () => (digest ??= hashed >= file.byteLength ? hash.hex() : null);
+  return { source: { byteLength: file.byteLength, read }, hex };
+}
+
+/** The same hash of a file read in pieces, read a piece at a time into one buffer: where the import left bytes unread (hashedWhileRead). */
 export function* pieceFingerprintSteps(source: PieceSource, create: Sha256Factory = portableSha256): PassSteps<string> {
   const hash = create();
   const piece = new Uint8Array(Math.min(BYTES_PER_STEP, source.byteLength));

@@ -10,7 +10,7 @@ import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import { importDatasetSteps, type HandedBytes, type ImportedDataset } from '../data/importDataset';
 import { parseProjectText } from '../project/projectFile';
 import type { ProjectDocument } from '../project/schema';
-import { dataFingerprintSteps, pieceFingerprintSteps, type Sha256Factory } from './dataFingerprint';
+import { dataFingerprintSteps, hashedWhileRead, pieceFingerprintSteps, type Sha256Factory } from './dataFingerprint';
 import { isPieceSource, PieceReadError, pieceReadProblem, type PieceSource } from '../data/pieceSource';
 import { CANCELLED_PROBLEM } from './cancelledProblem';
 
@@ -42,6 +42,8 @@ export interface ImportHooks {
   readonly pace?: () => Promise<void>;
   /** The data file's SHA-256 (dataFingerprint.ts); default the portable one. */
   readonly sha256?: Sha256Factory;
+  /** The SHA-256 of the bytes given, where the host has it already (the app's main process hashes the file it reads); then they are not hashed again. Not for a file read in pieces. */
+  readonly fingerprint?: string;
 }
 
 export async function openProject(projectText: string, projectFileName: string, readDataFile: DataFileReader, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
@@ -78,7 +80,7 @@ export function importProjectData(project: ProjectDocument, bytes: Uint8Array | 
 export async function importProjectDataPaced(project: ProjectDocument, bytes: DataSource, hooks: ImportHooks = {}): Promise<Result<OpenedProject>> {
   const pace = hooks.pace ?? createPacer(PACE_INTERVAL_MS);
   try {
-    return await runStepsPaced(importSteps(project, bytes, hooks.sha256), async () => {
+    return await runStepsPaced(importSteps(project, bytes, hooks), async () => {
       await pace();
       throwIfCancelled(hooks.cancel);
     });
@@ -88,13 +90,34 @@ export async function importProjectDataPaced(project: ProjectDocument, bytes: Da
   }
 }
 
-function* importSteps(project: ProjectDocument, bytes: DataSource, sha256?: Sha256Factory): PassSteps<Result<OpenedProject>> {
-  const fingerprint = yield* fingerprintSteps(bytes, sha256);
-  if (fingerprint instanceof PieceReadError) {
-    return failure(pieceReadProblem(project.data.path, fingerprint));
-  }
+/**
+ * The fingerprint and the import. Bytes in memory are hashed before the import (which may take them);
+ * a file read in pieces is hashed as the import reads it (dataFingerprint.ts hashedWhileRead), so the
+ * file is read twice (the import's first pass, then its records), not three times.
+ */
+function* importSteps(project: ProjectDocument, bytes: DataSource, hooks: Pick<ImportHooks, 'sha256' | 'fingerprint'> = {}): PassSteps<Result<OpenedProject>> {
+  if (isPieceSource(bytes)) return yield* importPieceSteps(project, bytes, hooks.sha256);
+  const fingerprint = hooks.fingerprint ?? (yield* dataFingerprintSteps(bytes instanceof Uint8Array ? bytes : bytes.bytes ?? new Uint8Array(0), hooks.sha256));
   const imported = yield* importDatasetSteps(bytes, project.data.path, project.data.csv, project.columns);
+  return imported.ok ? openedWith(project, imported, fingerprint) : imported;
+}
+
+function* importPieceSteps(project: ProjectDocument, file: PieceSource, sha256?: Sha256Factory): PassSteps<Result<OpenedProject>> {
+  const hashed = hashedWhileRead(file, sha256);
+  const imported = yield* importDatasetSteps(hashed.source, project.data.path, project.data.csv, project.columns);
   if (!imported.ok) return imported;
+  let fingerprint = hashed.hex();
+  try {
+    fingerprint ??= yield* pieceFingerprintSteps(file, sha256); // only where the import left bytes unread
+  } catch (e) {
+    if (e instanceof PieceReadError) return failure(pieceReadProblem(project.data.path, e));
+    throw e;
+  }
+  return openedWith(project, imported, fingerprint);
+}
+
+/** The opened project, with a warning first when the data's fingerprint is not the one saved. */
+function openedWith(project: ProjectDocument, imported: Extract<Result<ImportedDataset>, { ok: true }>, fingerprint: string): Result<OpenedProject> {
   const warnings: Problem[] = [...imported.warnings];
   const saved = project.data.sha256;
   if (saved !== undefined && saved !== fingerprint) {
@@ -105,16 +128,4 @@ function* importSteps(project: ProjectDocument, bytes: DataSource, sha256?: Sha2
     });
   }
   return success({ project, dataset: imported.value.transitions, imported: imported.value, fingerprint, warnings });
-}
-
-/** The data's SHA-256; a file read in pieces may fail to read to its end (then the error, as a value). */
-function* fingerprintSteps(bytes: DataSource, sha256?: Sha256Factory): PassSteps<string | PieceReadError> {
-  if (bytes instanceof Uint8Array) return yield* dataFingerprintSteps(bytes, sha256);
-  if (!isPieceSource(bytes)) return yield* dataFingerprintSteps(bytes.bytes ?? new Uint8Array(0), sha256);
-  try {
-    return yield* pieceFingerprintSteps(bytes, sha256);
-  } catch (e) {
-    if (e instanceof PieceReadError) return e;
-    throw e;
-  }
 }

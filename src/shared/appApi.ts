@@ -21,6 +21,8 @@ export interface DataFileReply {
   /** The path relative to the project's folder (forward slashes) when a project path is known, else the absolute path. */
   relativePath: string;
   bytes: Uint8Array;
+  /** SHA-256 of `bytes` (hex), hashed by the main process where it read them (Node's own), so the worker imports them without hashing them again. */
+  sha256: string;
 }
 
 export type SaveReply = { saved: true; path: string } | { saved: false; reason: 'cancelled' } | { saved: false; reason: 'error'; message: string };

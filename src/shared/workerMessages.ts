@@ -124,8 +124,8 @@ export interface RetuneMapProgress {
 
 /** Each call's arguments and the value its successful result carries. */
 export interface WorkerCalls {
-  /** Keep these bytes as the data file (until the next setData) and look at its first lines. */
-  setData: { args: { bytes: Uint8Array; fileName: string; csv: CsvSettings }; value: DataInspection };
+  /** Keep these bytes as the data file (until the next setData) and look at its first lines; `sha256`, their SHA-256 where the main process read them (DataFileReply), else the first import hashes them. */
+  setData: { args: { bytes: Uint8Array; fileName: string; csv: CsvSettings; sha256?: string }; value: DataInspection };
   /** Look at the kept data file's first lines again with other CSV settings. */
   inspect: { args: { csv: CsvSettings }; value: DataInspection };
   /**

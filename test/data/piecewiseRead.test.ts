@@ -17,21 +17,11 @@ import { pieceFactsSteps } from '../../src/data/pieceFacts';
 import type { PieceSource } from '../../src/data/pieceSource';
 import { RowProblems } from '../../src/data/rowProblems';
 import { sourceBytes } from '../../src/data/sourceBytes';
+import { memorySource } from './memorySource';
 import type { ColumnRoles, CsvSettings } from '../../src/project/schema';
 
 const bytesOf = (v: ArrayBufferView) => Buffer.from(v.buffer, v.byteOffset, v.byteLength);
 
-/** The bytes as a file read by position, at most `chunk` bytes a read (a short read, as read(2) may give). */
-function memorySource(bytes: Uint8Array, chunk = Infinity): PieceSource {
-  return {
-    byteLength: bytes.length,
-    read: (into, offset, length, position) => {
-      const n = Math.max(0, Math.min(length, chunk, bytes.length - position));
-      into.set(bytes.subarray(position, position + n), offset);
-      return n;
-    },
-  };
-}
 
 const CELL = fc.oneof(
   { weight: 6, arbitrary: fc.double({ noNaN: true, min: -1e6, max: 1e6 }).map((x) => String(+x.toFixed(3))) },

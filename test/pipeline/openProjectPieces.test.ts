@@ -1,7 +1,7 @@
 /**
  * openProject with a data file the host left open to be read in pieces (the command line's route
  * for a large log, pipeline/openProject.ts OpenDataFile) gives what the same bytes read whole give:
- * the same fingerprint (checked against Node's own SHA-256), transitions and import report, and the
+ * the same fingerprint (checked against Node's own SHA-256, and taken without a read of its own), transitions and import report, and the
  * file is closed after the import, also when the file ends early ('file-changed') or a stop request ends it.
  * The log is the tank-levels sample's written three times over (run labels made distinct per copy),
  * over 2 MiB, so its records are read through the window (data/csvTable.ts).
@@ -10,6 +10,7 @@ import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
+import { MAX_HEADER_BYTES } from '../../src/data/csvHeader';
 import { CANCELLED_PROBLEM } from '../../src/pipeline/cancelledProblem';
 import { openProject, type OpenDataFile } from '../../src/pipeline/openProject';
 
@@ -19,12 +20,13 @@ const bytes = new TextEncoder().encode(`${header}\n${[1, 2, 3].map((k) => rows.m
 const document = JSON.parse(readFileSync(join(sample, 'tank-levels.spcritic'), 'utf8'));
 const projectText = JSON.stringify({ ...document, data: { ...document.data, path: 'long-log.csv', sha256: undefined, rowCount: undefined } });
 
-function openFile(length = bytes.length): OpenDataFile & { closed: number } {
+function openFile(length = bytes.length): OpenDataFile & { closed: number; bytesRead: number } {
   const file = {
-    byteLength: length, closed: 0,
+    byteLength: length, closed: 0, bytesRead: 0,
     read: (into: Uint8Array, offset: number, count: number, position: number) => {
       const n = Math.max(0, Math.min(count, 1 << 20, bytes.length - position));
       into.set(bytes.subarray(position, position + n), offset);
+      file.bytesRead += n;
       return n;
     },
     close: async () => { file.closed++; },
@@ -42,6 +44,8 @@ describe('openProject on a data file read in pieces', () => {
     expect(file.closed).toBe(1);
     expect(pieces.value.fingerprint).toBe(createHash('sha256').update(bytes).digest('hex'));
     expect(pieces.value.fingerprint).toBe(whole.value.fingerprint);
+    // The fingerprint rides on the import's reads: the head, the first pass and the records' pass, no third pass of its own.
+    expect(file.bytesRead).toBeLessThanOrEqual(2 * bytes.length + 2 * MAX_HEADER_BYTES);
     expect(pieces.value.imported.rowCount).toBe(3 * rows.length);
     expect(pieces.value.dataset).toEqual(whole.value.dataset);
     expect(pieces.value.imported.episodeReport).toEqual(whole.value.imported.episodeReport);

@@ -23,10 +23,11 @@ export interface DataLoading {
 export function createDataLoading(api: AppApi, documents: DocumentStore, session: SessionStore, client: EvaluationClient): DataLoading {
   const document = () => documents.get().history.present;
 
-  async function accept(bytes: Uint8Array, source: DataSource, fileName: string): Promise<void> {
+  /** `sha256`: the bytes' SHA-256 where the main process read them (a dropped file or a sample has none). */
+  async function accept(bytes: Uint8Array, source: DataSource, fileName: string, sha256?: string): Promise<void> {
     session.set((s) => ({ ...s, source, sourceVersion: s.sourceVersion + 1, inspection: null, dataProblems: [], dataMissing: false, importState: { status: 'idle' }, notice: null }));
     const version = session.get().sourceVersion;
-    const result = await client.call('setData', { bytes, fileName, csv: document().data.csv });
+    const result = await client.call('setData', { bytes, fileName, csv: document().data.csv, ...(sha256 ? { sha256 } : {}) });
     if (session.get().sourceVersion !== version) return; // another file arrived meanwhile
     session.set((s) => (result.ok ? { ...s, inspection: result.value } : { ...s, dataProblems: result.problems }));
   }
@@ -43,7 +44,7 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
       const reply = await api.chooseDataFile(documents.get().projectPath);
       if (!reply) return;
       recordPath('choose the data file', reply.relativePath, false);
-      await accept(reply.bytes, { kind: 'file', absolutePath: reply.path, bytes: reply.bytes }, reply.relativePath);
+      await accept(reply.bytes, { kind: 'file', absolutePath: reply.path, bytes: reply.bytes }, reply.relativePath, reply.sha256);
     },
     async dropDataFile(file) {
       const bytes = new Uint8Array(await file.arrayBuffer());
@@ -59,13 +60,13 @@ export function createDataLoading(api: AppApi, documents: DocumentStore, session
       if (!reply) return;
       // The saved fingerprint stays, so a file that is not the same one is reported as changed.
       recordPath('point to the moved data file', reply.relativePath, true);
-      await accept(reply.bytes, { kind: 'file', absolutePath: reply.path, bytes: reply.bytes }, reply.relativePath);
+      await accept(reply.bytes, { kind: 'file', absolutePath: reply.path, bytes: reply.bytes }, reply.relativePath, reply.sha256);
     },
     async readProjectData(projectPath) {
       const path = document().data.path;
       try {
         const reply = await api.readProjectData(projectPath, path);
-        await accept(reply.bytes, { kind: 'file', absolutePath: reply.path, bytes: reply.bytes }, path);
+        await accept(reply.bytes, { kind: 'file', absolutePath: reply.path, bytes: reply.bytes }, path, reply.sha256);
         return true;
       } catch (e) {
         const problem = {

@@ -28,7 +28,7 @@ async function answer(request: WorkerRequest): Promise<Result<unknown>> {
   switch (request.call) {
     case 'setData': {
       const inspection = inspectData(request.bytes, request.fileName, request.csv);
-      if (inspection.ok) memory.setData(request.bytes, request.fileName);
+      if (inspection.ok) memory.setData(request.bytes, request.fileName, request.sha256);
       return inspection;
     }
     case 'inspect': {

@@ -26,7 +26,8 @@ export class WorkerQueryError extends Error {
 }
 
 export interface WorkerMemory {
-  setData(bytes: Uint8Array, fileName: string): void;
+  /** `sha256`: the bytes' SHA-256 when the main process hashed them as it read them; else the first import hashes them, once for the file. */
+  setData(bytes: Uint8Array, fileName: string, sha256?: string): void;
   data(): { bytes: Uint8Array; fileName: string };
   /**
    * Import the data for project, or reuse the last import (or the one in progress) when nothing it
@@ -61,19 +62,20 @@ interface RunningImport {
 }
 
 export function createWorkerMemory(pace?: () => Promise<void>): WorkerMemory {
-  let data: { bytes: Uint8Array; fileName: string } | null = null;
+  let data: { bytes: Uint8Array; fileName: string; sha256?: string } | null = null;
   let cached: { key: string; opened: OpenedProject } | null = null;
   let running: RunningImport | null = null;
   const stopImport = (): void => {
     if (running) running.stop.requested = true;
     running = null;
   };
-  const startImport = (project: ProjectDocument, bytes: Uint8Array, key: string): RunningImport => {
+  const startImport = (project: ProjectDocument, file: NonNullable<typeof data>, key: string): RunningImport => {
     const stop = { requested: false };
     const finished = (): void => {
       if (running?.stop === stop) running = null;
     };
-    const answer = importProjectDataPaced(project, bytes, { cancel: () => stop.requested, pace }).then((opened) => {
+    const answer = importProjectDataPaced(project, file.bytes, { cancel: () => stop.requested, pace, fingerprint: file.sha256 }).then((opened) => {
+      if (opened.ok) file.sha256 ??= opened.value.fingerprint; // the same bytes are not hashed again by a later import
       if (stop.requested) return opened; // superseded: its answer is its own, the memory keeps nothing of it
       finished();
       cached = opened.ok ? { key, opened: opened.value } : null;
@@ -90,9 +92,9 @@ export function createWorkerMemory(pace?: () => Promise<void>): WorkerMemory {
     last = null;
   };
   return {
-    setData(bytes, fileName) {
+    setData(bytes, fileName, sha256) {
       stopImport();
-      data = { bytes, fileName };
+      data = { bytes, fileName, ...(sha256 ? { sha256 } : {}) };
       cached = null;
       dropRun();
     },
@@ -106,7 +108,7 @@ export function createWorkerMemory(pace?: () => Promise<void>): WorkerMemory {
       if (cached && cached.key === key) return { ok: true, value: { ...cached.opened, project }, warnings: cached.opened.warnings };
       if (running?.key !== key) {
         stopImport();
-        running = startImport(project, data.bytes, key);
+        running = startImport(project, data, key);
       }
       const opened = await running.answer;
       return opened.ok ? { ok: true, value: { ...opened.value, project }, warnings: opened.warnings } : opened;
