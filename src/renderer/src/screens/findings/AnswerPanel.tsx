@@ -15,7 +15,7 @@ import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plo
 import { sweepsVerdict } from '../../../../figures/charts/sensitivity';
 import { TRIAL_RULE, trialAnswer, trialChoice, warningsText, type TrialChoice } from '../../../../pipeline/trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
-import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, valueAtPrecision, valueInInterval, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const CONFIRMATION: Record<string, string> = { confirmed: 'confirmed', contradicted: 'contradicted', unconfirmed: 'unconfirmed' };
 
@@ -61,7 +61,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
               {/* Not settled: the sampling interval alone understates the error; the number to carry forward is the range across classes. */}
               {l.candidate.settled === false && l.candidate.reportedRange && <div className="small" data-testid="answer-range-to-report">range to report {intervalAtPrecision(l.candidate.reportedRange)}</div>}
             </td>
-            <td className="number interval">{l.difference ? `${valueAtPrecision(l.difference.difference.value, l.difference.difference.percentile)} ${intervalAtPrecision(l.difference.difference.percentile)}` : '—'}</td>
+            <td className="number interval">{l.difference ? valueInInterval(l.difference.difference.value, l.difference.difference.percentile).text : '—'}</td>
             <td className="number">{betterIn[i]}</td>
             <td className={l.candidate.confirmation.status === 'contradicted' ? 'error-text' : undefined}>{CONFIRMATION[l.candidate.confirmation.status]}</td>
             <td className={l.serious || l.logSerious ? 'error-text' : undefined}>{warningsText(l)}</td>
