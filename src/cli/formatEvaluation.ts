@@ -6,6 +6,7 @@ import type { Evaluation } from '../pipeline/estimates';
 import { centreText as centreIn, perAction as perActionIn } from '../pipeline/baselineWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
+import { valueUnitWords } from '../pipeline/valueUnitWords';
 import { atDecimals, intervalText, rowDecimals, valueInIntervalText } from './uncertainNumberText';
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { loggedLimitText } from '../core/loggedLimitWords';
@@ -39,8 +40,8 @@ export function limitsText(model: NonNullable<Evaluation['presentController']>['
 }
 
 /** The value table; with the assessment, each row at the precision of the interval the assessment gives it. */
-export function formatEvaluation(e: Evaluation, projectFile: string, assessment: Assessment | null = null): string {
-  const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';
+export function formatEvaluation(e: Evaluation, projectFile: string, assessment: Assessment | null = null, unit = ''): string {
+  const sense = `expected discounted ${e.valueSense}, ${valueUnitWords(unit)} (${e.valueSense === 'cost' ? 'lower' : 'higher'} is better)`;
   const s = e.settings;
   const rows: string[][] = [['policy', 'value J', '± s.e.', 'fixed point', 'fit']];
   // A fit stopped at its iteration limit shows the J it reached, as the app and the assessment table below do, marked

@@ -3,7 +3,8 @@ import type { Assessment, IntervalEstimate } from '../assessment';
 import { FIT_STATUS_WORDS } from '../../core/fqe/fitStatus';
 import { html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
-import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
+import { senseWords, valueAxisLabel, valueUnit, type FigureCounter, type ReportInput } from './reportInput';
+import { valueUnitWords } from '../valueUnitWords';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
 import { LOGGED_RETURN, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../../figures/parts/plotTheme';
 import { policyLabel } from '../policyNames';
@@ -35,7 +36,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
   const betterIn = sharesText(differenceOf.map((d) => d?.probabilityBetter ?? null));
   const figure = figures.next(), reference = pc ? pc.policyValue.value : a.behaviour.value;
   const chartRows: IntervalRowData[] = rows.map((r) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: r.present }));
-  return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
+  return html`<p>J is the ${words.value}, ${valueUnitWords(valueUnit(input))} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
       Intervals are ${level} bootstrap intervals over runs; “minus baseline” is the paired difference J − J(baseline) on the same resamples.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th>
       <th class="num">Minus baseline</th><th class="num">${level} interval of the difference</th><th class="num">Better than the baseline in</th></tr></thead><tbody>
