@@ -8,19 +8,16 @@ import { loggedReturnRole } from '../core/loggedReturn';
 import { beyondPossibleSentence, unconvergedPointsSentence, rankingVerdict } from '../figures/charts/sensitivity';
 import { textTable as table } from './textTable';
 import { TRIAL_RULE, trialAnswer, trialChoice } from '../pipeline/trialChoice';
-import { ASCII_MINUS } from '../figures/parts/uncertainNumber';
-import { atDecimals, intervalText as interval, ratioText, rowDecimals } from './uncertainNumberText';
-
-/** A value at the precision of the interval it is read with; without one (the model rollouts), at `precision`'s (the candidate's J interval), as the app and the report write it. */
-const inInterval = (value: number | null, iv: [number, number] | null, precision: [number, number] | null = null): string => `${atDecimals(value, rowDecimals(iv ?? precision))} ${interval(iv)}`;
+import { ASCII_MINUS, valueWithError } from '../figures/parts/uncertainNumber';
+import { atDecimals, intervalText as interval, ratioText, rowDecimals, valueInIntervalText } from './uncertainNumberText';
 
 /** A cross-check's value and its interval where it has one; without one (the model rollouts, a closed form without resamples) the value alone, so the line does not read "8.24 — — Uninformative". */
-const checkValue = (value: number, iv: [number, number] | null, precision: [number, number] | null): string => (iv ? inInterval(value, iv) : atDecimals(value, rowDecimals(precision)));
+const checkValue = (value: number, iv: [number, number] | null, precision: [number, number] | null): string => (iv ? valueInIntervalText(value, iv) : atDecimals(value, rowDecimals(precision)));
 
-/** A row's J and s.e. at the decimal place of its percentile interval (else of its s.e.); each interval at its own. */
+/** A row's J and s.e. at the decimal place of its percentile interval (else of its s.e.), as the app and the report write them (valueWithError); each interval at its own. */
 function estimateRow(name: string, e: IntervalEstimate): string[] {
-  const d = rowDecimals(e.percentile, e.standardError);
-  return [name, atDecimals(e.value, d), atDecimals(e.standardError, d), interval(e.percentile), interval(e.basic)];
+  const shown = valueWithError(e.value, e.standardError, e.percentile, ASCII_MINUS);
+  return [name, shown.value, shown.error, interval(e.percentile), interval(e.basic)];
 }
 
 const settledWord = (settled: boolean | null): string => (settled === null ? 'one class' : settled ? 'settled' : 'NOT SETTLED');
@@ -50,7 +47,7 @@ export function formatAssessment(a: Assessment, completedShown = true): string {
   const ranged = [...a.candidates, ...(pc ? [{ ...pc, name: `${PRESENT_CONTROLLER} [baseline]` }] : [])];
   const classes = ranged.flatMap((c) => (c.functionClasses ? [
     `  ${c.name}: ${c.functionClasses.reason}`,
-    ...c.functionClasses.classes.map((k) => `    · ${k.label}: ${inInterval(k.value, k.interval)}`),
+    ...c.functionClasses.classes.map((k) => `    · ${k.label}: ${k.interval ? valueInIntervalText(k.value, k.interval) : `${valueInIntervalText(k.value, null)} —`}`),
   ] : []));
   const cuts = ranged.flatMap((c) => (c.rangeCut ? [`  ${c.name}: ${c.rangeCut}`] : []));
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];

@@ -39,7 +39,7 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
   } else {
     terminal.out(formatImport(imported, project.data.path));
     terminal.out(formatCandidates(project));
-    terminal.out(formatEvaluation(evaluation, basename(projectPath), assessment.ok ? assessment.value : null));
+    terminal.out(formatEvaluation(evaluation, basename(projectPath), assessment.ok ? assessment.value : null, project.columns.reward.unit ?? ''));
     terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value, truncationMatters(evaluation.behaviour))}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
     if (retuneMaps.ok) retuneMaps.value.forEach((map) => terminal.out(`\n${formatRetuneMap(map, level)}`));
     else terminal.out(`\nRetune maps not computed: ${describeProblems(retuneMaps.problems)}\n`);

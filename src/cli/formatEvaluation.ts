@@ -6,7 +6,8 @@ import type { Evaluation } from '../pipeline/estimates';
 import { centreText as centreIn, perAction as perActionIn } from '../pipeline/baselineWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
-import { atDecimals, intervalText, rowDecimals, widthDecimals } from './uncertainNumberText';
+import { valueUnitWords } from '../pipeline/valueUnitWords';
+import { atDecimals, intervalText, rowDecimals, valueInIntervalText } from './uncertainNumberText';
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { loggedLimitText } from '../core/loggedLimitWords';
 import { shareText } from '../core/shareText';
@@ -39,8 +40,8 @@ export function limitsText(model: NonNullable<Evaluation['presentController']>['
 }
 
 /** The value table; with the assessment, each row at the precision of the interval the assessment gives it. */
-export function formatEvaluation(e: Evaluation, projectFile: string, assessment: Assessment | null = null): string {
-  const sense = e.valueSense === 'cost' ? 'expected discounted cost (lower is better)' : 'expected discounted reward (higher is better)';
+export function formatEvaluation(e: Evaluation, projectFile: string, assessment: Assessment | null = null, unit = ''): string {
+  const sense = `expected discounted ${e.valueSense}, ${valueUnitWords(unit)} (${e.valueSense === 'cost' ? 'lower' : 'higher'} is better)`;
   const s = e.settings;
   const rows: string[][] = [['policy', 'value J', '± s.e.', 'fixed point', 'fit']];
   // A fit stopped at its iteration limit shows the J it reached, as the app and the assessment table below do, marked
@@ -94,7 +95,7 @@ function unconvergedWords(status: Evaluation['policies'][number]['status']): str
  */
 function networkLine(name: string, n: NonNullable<Evaluation['policies'][number]['network']>, assessed: IntervalEstimate | null, assessedLevel = n.level): string {
   const own = assessed?.percentile ? { interval: assessed.percentile, level: assessedLevel, covers: assessed.covers } : n;
-  const level = shareText(own.level), inInterval = (v: number, i: [number, number]) => `${atDecimals(v, widthDecimals(i))} ${intervalText(i)}`;
+  const level = shareText(own.level), inInterval = valueInIntervalText;
   return `${name}: network J ${level} interval ${intervalText(own.interval)} (${own.covers}); degree-${COMPARATOR_DEGREE} linear J ${inInterval(n.linear.value, n.linear.interval)}; ` +
     `network − linear ${inInterval(n.difference.value, n.difference.interval)}${own.level === n.level ? '' : ` (these two at ${shareText(n.level)}, the level the agreement rule reads)`}. ${n.agreement.verdict === 'disagree' ? 'SERIOUS — ' : ''}${n.agreement.message}`;
 }

@@ -5,13 +5,10 @@
  * and pasted as typed. "7.7 ± 1.3", not "7.71825 ± 1.27478"; "[5.62, 10.18]", not "[5.6171, 10.175]".
  * `--json` keeps full precision.
  */
-import { ASCII_MINUS, atDecimals as atDecimalsWith, intervalAtPrecision, intervalDecimals } from '../figures/parts/uncertainNumber';
+import { ASCII_MINUS, atDecimals as atDecimalsWith, intervalAtPrecision, valueInInterval } from '../figures/parts/uncertainNumber';
 import { significant } from './textTable';
 
 export { errorDecimals, rowDecimals } from '../figures/parts/uncertainNumber';
-
-/** Decimal places that give an interval's width three significant digits, or null where the rule does not apply. */
-export const widthDecimals = intervalDecimals;
 
 /** A number at `decimals` places, or the plain style where that is null. */
 export function atDecimals(value: number | null | undefined, decimals: number | null): string {
@@ -21,6 +18,11 @@ export function atDecimals(value: number | null | undefined, decimals: number | 
 /** "[5.62, 10.18]" at the interval's own precision; "—" without one. */
 export function intervalText(iv: readonly [number, number] | null | undefined): string {
   return intervalAtPrecision(iv, ASCII_MINUS);
+}
+
+/** "7.72 [5.62, 10.18]": a value with its interval, by the one writer (valueInInterval); the value alone without one. */
+export function valueInIntervalText(value: number | null | undefined, iv: readonly [number, number] | null | undefined): string {
+  return valueInInterval(value, iv, ASCII_MINUS).text;
 }
 
 /** A diagnostic ratio (the occupancy shift): three significant digits, whole numbers from 1,000 up (toPrecision would write 4.35e+3). */

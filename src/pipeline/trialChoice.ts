@@ -13,7 +13,7 @@
 import type { Assessment, CandidateAssessment, PairedDifference } from './assessment';
 import { plural } from '../data/reportFormat';
 import { shareText } from '../core/shareText';
-import { intervalAtPrecision, TRUE_MINUS, valueAtPrecision, type Minus } from '../figures/parts/uncertainNumber';
+import { intervalAtPrecision, TRUE_MINUS, valueAtPrecision, valueInInterval, type Minus } from '../figures/parts/uncertainNumber';
 import { policyLabel } from './policyNames';
 import { CROSS_CHECK_TOPIC } from './crossCheckWarnings';
 
@@ -131,7 +131,7 @@ export function trialAnswer(assessment: Assessment, choice: TrialChoice, places:
     const j = pick.candidate.policyValue;
     return {
       headline: `Trial first: ${pick.candidate.name}.`,
-      detail: `J ${value(j.value, j.percentile)} ${interval(j.percentile)}${u}; `
+      detail: `J ${valueInInterval(j.value, j.percentile, minus).text}${u}; `
         + `${value(Math.abs(d.difference.value), d.difference.percentile)}${u} ${assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the ${policyLabel(assessment.comparison.baseline.name)} `
         + `(difference ${interval(d.difference.percentile)}), better in ${shareText(d.probabilityBetter)} of resamples. `
         + `An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions ${places.cautions}).`,

@@ -31,6 +31,11 @@ import { steadyCheck, steadyClick, steadyFill, steadySelect } from './harness/st
 import { UNIT_GROUP_MOST } from '../../src/core/unitGroups';
 import { cutTextFindings, cutTextLine } from './harness/cutText';
 import { layoutFaults, svgLayoutIn } from './harness/svgLayout';
+import { brokenFormulas } from './harness/formulaWrap';
+import { formulaText, HORIZON_FORMULA } from '../../src/core/formulaText';
+
+/** The formulas the app writes into running text, each held on one line (core/formulaText.ts). */
+const FORMULAS = [`(${HORIZON_FORMULA})`, HORIZON_FORMULA, formulaText('0 < γ < 1')];
 
 const SHOTS = process.env.SCREEN_REVIEW_DIR ?? resolve(__dirname, '../../test-artifacts/screen-review');
 const SIZES = [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }];
@@ -183,6 +188,7 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
           }
           // No text a person sees cut off, run out of its box or lying over other text (harness/cutText.ts).
           for (const f of await cutTextFindings(page)) faults.push(cutTextLine(`${c.id} ${step} ${size.width} ${theme}`, f));
+          for (const f of await brokenFormulas(page, FORMULAS)) faults.push(`${c.id} ${step} ${size.width} ${theme}: ${f}`);
         }
         await steadyClick(page.getByTestId('open-help'));
         await page.getByTestId('glossary').waitFor();
@@ -195,6 +201,7 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
           await page.screenshot({ path: join(SHOTS, `${c.id}-${size.width}-${theme}-help-${i + 1}.png`) });
           // Page by page: text scrolled out of the panel is not seen, so not checked for overlaps.
           for (const f of await cutTextFindings(page, '[data-testid="help-panel"]')) faults.push(cutTextLine(`${c.id} help ${i + 1} ${size.width} ${theme}`, f));
+          for (const f of await brokenFormulas(page, FORMULAS, '[data-testid="help-panel"]')) faults.push(`${c.id} help ${i + 1} ${size.width} ${theme}: ${f}`);
         }
         await steadyClick(page.getByTestId('close-help'));
       }

@@ -8,7 +8,11 @@
  */
 import { describe, expect, it } from 'vitest';
 import { formatEstimate, formatTick, formatValue, formatValueInInterval } from '../../src/figures/parts/tickFormat';
-import { intervalAtPrecision, intervalDecimals, plainNumber, valueAtPrecision, valueWithError } from '../../src/figures/parts/uncertainNumber';
+import { ASCII_MINUS, intervalAtPrecision, intervalDecimals, plainNumber, valueAtPrecision, valueInInterval, valueWithError } from '../../src/figures/parts/uncertainNumber';
+import { valueInIntervalText } from '../../src/cli/uncertainNumberText';
+import { estimateCells } from '../../src/pipeline/report/reportComparison';
+import { intervalDetail } from '../../src/renderer/src/screens/findings/assessmentWords';
+import type { IntervalEstimate } from '../../src/pipeline/assessment';
 import { intervalText as cliInterval, atDecimals as cliAt, errorDecimals } from '../../src/cli/uncertainNumberText';
 import { formatNumber as appNumber } from '../../src/renderer/src/format/numberFormat';
 import { formatNumber as reportNumber } from '../../src/pipeline/report/htmlText';
@@ -65,5 +69,42 @@ describe('numbers at the precision of their interval', () => {
     expect(formatTick(2500000, 0)).toBe('2,500,000'); // a tick label stays readable: grouped
     expect(formatTick(2.5e9, 0)).toBe('2.50\u00a0×\u00a010⁹'); // past eleven characters: exponent form (the stated width)
     expect(plainNumber(1.23456e-5)).toBe('1.235\u00a0×\u00a010⁻⁵');
+  });
+});
+
+// The one writer of "a value with its interval" (valueInInterval): the rule in its doc comment, worked by hand.
+describe('a value with its interval, by one writer', () => {
+  it('puts the value and both ends at the place where the width has three significant digits (worked examples)', () => {
+    // width 3.7604 → 3.76 at two decimals
+    expect(valueInInterval(8.35823, [6.5808, 10.3412])).toEqual({ value: '8.36', interval: '[6.58, 10.34]', text: '8.36 [6.58, 10.34]' });
+    // width 0.6702 → 0.670 at three decimals: a paired difference, known more closely than J, keeps its third decimal
+    expect(valueInInterval(-5.3612, [-5.7031, -5.0329]).text).toBe('\u22125.361 [\u22125.703, \u22125.033]');
+    // width 100.5 → the units: never fewer decimals than none, never exponent form
+    expect(valueInInterval(1234555.55, [1234500.2, 1234600.7]).text).toBe('1234556 [1234500, 1234601]');
+    // width 0.000412 → 0.000412 at six decimals
+    expect(valueInInterval(0.0123456, [0.0121234, 0.0125354]).text).toBe('0.012346 [0.012123, 0.012535]');
+  });
+
+  it('writes ends that differ wherever the rule applies (its promise: at least 100 units of the last digit apart)', () => {
+    for (const width of [1.1e-8, 3.3e-7, 0.00999, 0.0101, 0.5, 0.999, 1, 7.77, 99.9, 123, 98765]) {
+      const [lo, hi] = valueInInterval(1, [1 - width / 3, 1 + (2 * width) / 3]).interval.slice(1, -1).split(', ');
+      expect(lo, `width ${width}`).not.toBe(hi);
+    }
+    // Past ten decimals the plain style (four significant digits) takes over, and an interval of J near 1 that narrow reads as one number: left as it is.
+    expect(valueInInterval(1, [1 - 1e-9, 1 + 1e-9]).interval).toBe('[1, 1]');
+  });
+
+  it('says the value alone without an interval, and the terminal writes the same digits with its ASCII minus', () => {
+    expect(valueInInterval(8.35823, null)).toEqual({ value: '8.358', interval: '—', text: '8.358' });
+    expect(valueInIntervalText(-5.3612, [-5.7031, -5.0329])).toBe('-5.361 [-5.703, -5.033]');
+    expect(valueInInterval(-5.3612, [-5.7031, -5.0329], ASCII_MINUS).text).toBe(valueInIntervalText(-5.3612, [-5.7031, -5.0329]));
+  });
+
+  it('writes a bootstrap s.e. beside its interval alike in the app\'s tooltip, the report and on the terminal', () => {
+    // The rate-limit candidate of the heating-loop sample, rounded: the report wrote "1.8" where the app and the terminal wrote "1.83".
+    const e: IntervalEstimate = { value: 10.6912, standardError: 1.8314, percentile: [7.7312, 13.8587], basic: [7.5237, 13.6512], replicates: 1000, failedReplicates: 0, covers: '' };
+    expect(valueWithError(e.value, e.standardError, e.percentile)).toEqual({ value: '10.69', error: '1.83' });
+    expect(intervalDetail(e, 0.9)).toContain('bootstrap s.e. 1.83;');
+    expect(estimateCells(e).html).toMatch(/>10\.69<\/td><td class="num">1\.83<\/td>/);
   });
 });

@@ -94,8 +94,9 @@ describe('the report in headless Chromium', () => {
   });
 
   // A value read beside its interval carries the interval's precision ("8.36 [6.58, 10.34]", not
-  // "8.3582 [6.581, 10.34]"): JCGM 100 (the GUM) §7.2.2 and §7.2.6, a standard error to at most two
-  // significant digits — common practice. The statistics of the columns show four digits, as the app's table.
+  // "8.3582 [6.581, 10.34]"), and its standard error goes to the same place, so a row reads at one precision
+  // and the report writes the s.e. as the app and the terminal do (JCGM 100, the GUM, §7.2.2: a value and its
+  // uncertainty at one decimal place — common practice). The statistics of the columns show four digits, as the app's table.
   it('writes each J and difference at the precision of its interval, the column statistics to four digits, the baseline by its glossary name', async () => {
     const page = await browser.newPage({ viewport: { width: 1040, height: 1400 } });
     await page.goto(`file://${file}`, { waitUntil: 'load' });
@@ -107,7 +108,7 @@ describe('the report in headless Chromium', () => {
       expect(decimals(j), `${name}: J ${j} beside ${percentile}`).toBe(decimals(ends[0]));
       expect(decimals(ends[1]), `${name}: ${percentile}`).toBe(decimals(ends[0]));
       expect(basic).toMatch(/^\[−?\d/);
-      expect(se.replace(/^0\.0*/, '').replace('.', '').length, `${name}: s.e. ${se}`).toBeLessThanOrEqual(2);
+      expect(decimals(se), `${name}: s.e. ${se} beside J ${j}`).toBe(decimals(j));
       if (vsToday) expect(decimals(vsToday), `${name}: ${vsToday} beside ${difference}`).toBe(decimals(difference.slice(1).split(', ')[0]));
     }
     const statistics = await page.$$eval('#data table td.num', (all) => all.map((td) => td.textContent?.trim() ?? ''));

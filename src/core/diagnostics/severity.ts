@@ -35,6 +35,7 @@ import { DEFAULT_START_COVERAGE } from './startCoverage';
 import { effectiveRunsNumber, effectiveRunsText } from '../offPolicy/effectiveRunsText';
 import { shareText, sharesText } from '../shareText';
 import { shiftText } from './shiftText';
+import { HORIZON_FORMULA } from '../formulaText';
 
 export type SeverityLevel = 'caution' | 'serious';
 
@@ -122,7 +123,7 @@ export function occupancyShiftFinding(shift: number, loggedShift: number | null)
 
 export function effectiveShareRuleText(): string {
   const { caution, serious } = EFFECTIVE_SHARE_LIMITS;
-  return `Importance weights: the Kish effective number of runs at the effective horizon 1/(1 − γ), as a share of the runs reaching it; ` +
+  return `Importance weights: the Kish effective number of runs at the effective horizon ${HORIZON_FORMULA}, as a share of the runs reaching it; ` +
     `caution below ${percent(caution)}, serious below ${percent(serious)} (a common rule of thumb).`;
 }
 

@@ -10,7 +10,7 @@ import { legendPlugin } from '../parts/legendBox';
 import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import { PRESENT_CONTROLLER, PRESENT_DASH_PX, type Theme } from '../parts/plotTheme';
 import { formatValue, formatValueInInterval } from '../parts/tickFormat';
-import { intervalAtPrecision } from '../parts/uncertainNumber';
+import { valueInInterval } from '../parts/uncertainNumber';
 
 export const INTERVAL_CHART_DEFAULTS = { rowHeightPx: 30, baseHeightPx: 120, dotRadiusPx: 4.5, capPx: 10, lineWidthPx: 2.5, labelGapPx: 8 } as const;
 
@@ -143,5 +143,5 @@ function intervalBars(props: IntervalChartProps, colour: (i: number) => string, 
 }
 
 export function intervalSummary(props: IntervalChartProps): string {
-  return `${props.title}: ` + props.rows.map((r) => `${r.label} ${formatValueInInterval(r.value, r.interval)}${r.interval ? ` ${intervalAtPrecision(r.interval)}` : ''}`).join('; ') + '.';
+  return `${props.title}: ` + props.rows.map((r) => `${r.label} ${r.interval ? valueInInterval(r.value, r.interval).text : formatValueInInterval(r.value, null)}`).join('; ') + '.';
 }

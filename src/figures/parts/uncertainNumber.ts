@@ -1,10 +1,21 @@
 /**
  * Numbers read with their uncertainty, written once for every host: the app's tables, the figures'
- * labels and tooltips, the report and the command line all call these. An interval's two ends go to
- * the decimal place that gives its width three significant digits, a value read with the interval to
- * the same place ("8.36 [6.58, 10.34]", not "8.3582 [6.581, 10.34]"); a standard error to two
- * significant digits and its value to the same place ("7.7 ± 1.3"). One precision for numbers read
- * together, as for a value and its uncertainty in JCGM 100 (the GUM) §7.2.2 and §7.2.6 — common practice.
+ * labels and tooltips, the report and the command line all call these. A value with its interval has
+ * one writer, valueInInterval: "8.36 [6.58, 10.34]", never a value and an interval each written by its
+ * own rule.
+ *
+ * The rule (common practice: enough significant digits that an interval's ends differ, and no more than
+ * its width can carry; JCGM 100, the GUM, §7.2.2 and §7.2.6): the interval's width sets the decimal place,
+ * at which it has three significant digits, so its two ends differ by at least 100 units of the last
+ * digit shown; the value goes to the same place. Worked by hand:
+ *   8.35823 in [6.5808, 10.3412]: width 3.76, three digits at 2 decimals   → "8.36 [6.58, 10.34]"
+ *   −5.3612 in [−5.7031, −5.0329]: width 0.670, at 3 decimals               → "−5.361 [−5.703, −5.033]"
+ *   1234555.55 in [1234500.2, 1234600.7]: width 100.5, never below the units → "1234556 [1234500, 1234601]"
+ * So a J and its difference from the baseline, read side by side, may differ in their count of
+ * decimals: the paired difference is known more closely than J itself, and each keeps what its own
+ * interval carries. A standard error alone goes to two significant digits and its value to the same
+ * place ("7.7 ± 1.3"); read beside an interval, to the interval's place ("7.72 ± 1.27 [5.62, 10.18]"),
+ * so one J and its s.e. read alike in the app, the report and on the terminal.
  *
  * The decimal place is set by the uncertainty, never by the value's size, so a value of a million or
  * more stays in fixed notation (J = 1234567.9 ± 3.2, not 1.235e6 ± 3.2, which would round by
@@ -89,21 +100,19 @@ export function intervalAtPrecision(iv: readonly [number, number] | null | undef
   return `[${atDecimals(iv[0], d, minus)}, ${atDecimals(iv[1], d, minus)}]`;
 }
 
-/** A value at the decimal place of its interval's ends ("8.36" beside [6.58, 10.34]); without one, the plain style. */
+/** A value at the decimal place of its interval's ends ("8.36" beside [6.58, 10.34]); without one, the plain style. A value shown with that interval: valueInInterval. */
 export function valueAtPrecision(value: number | null | undefined, iv: readonly [number, number] | null | undefined, minus: Minus = TRUE_MINUS): string {
   return atDecimals(value, intervalDecimals(iv), minus);
 }
 
-/**
- * A standard error read alone, at two significant digits with its trailing zero ("0.90", "1.0"): the plain
- * style drops it, and "0.9" under "0.15" and "0.97" reads as one digit (JCGM 100 §7.2.6: an uncertainty to
- * at most two significant digits — common practice); the plain style where the decimals rule does not apply,
- * "—" for none.
- */
-export function errorAtPrecision(error: number | null | undefined, minus: Minus = TRUE_MINUS): string {
-  if (error === null || error === undefined || !Number.isFinite(error)) return '—';
-  const d = errorDecimals(error);
-  return d === null ? plainNumber(error, 2, minus) : atDecimals(error, d, minus);
+/** A value and its interval as read together, both at the interval's place: { value: "8.36", interval: "[6.58, 10.34]", text: "8.36 [6.58, 10.34]" }; without an interval, the value in the plain style and the text without brackets. */
+export function valueInInterval(
+  value: number | null | undefined, iv: readonly [number, number] | null | undefined, minus: Minus = TRUE_MINUS,
+): { value: string; interval: string; text: string } {
+  const shown = valueAtPrecision(value, iv, minus);
+  if (!iv) return { value: shown, interval: '—', text: shown };
+  const interval = intervalAtPrecision(iv, minus);
+  return { value: shown, interval, text: `${shown} ${interval}` };
 }
 
 /**

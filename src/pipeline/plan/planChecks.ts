@@ -10,6 +10,7 @@ import type { ApproximatorSettings } from '../../project/approximatorSchema';
 import { stepsText } from '../../core/horizonText';
 import type { Problem } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
+import { HORIZON_FORMULA } from '../../core/formulaText';
 
 /**
  * The effective horizon 1/(1 − γ) may not exceed the number of logged transitions (our rule,
@@ -20,7 +21,7 @@ export function discountProblems(discount: number, transitions: number): Problem
   if (horizon <= transitions) return [];
   return [{
     where: 'discount', field: ['discount'],
-    message: `γ = ${discount} weighs the future over about ${stepsText(horizon)} logged steps (1/(1 − γ)), more than the ` +
+    message: `γ = ${discount} weighs the future over about ${stepsText(horizon)} logged steps (${HORIZON_FORMULA}), more than the ` +
       `${transitions.toLocaleString('en-US')} transitions the logs hold in all, so the value would be extrapolated rather than estimated; ` +
       discountAdvice(transitions),
   }];

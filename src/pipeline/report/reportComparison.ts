@@ -2,8 +2,9 @@
 import type { Assessment, IntervalEstimate } from '../assessment';
 import { FIT_STATUS_WORDS } from '../../core/fqe/fitStatus';
 import { html, raw, type Html } from './htmlText';
-import { errorAtPrecision, intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
-import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
+import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
+import { senseWords, valueAxisLabel, valueUnit, type FigureCounter, type ReportInput } from './reportInput';
+import { valueUnitWords } from '../valueUnitWords';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
 import { LOGGED_RETURN, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../../figures/parts/plotTheme';
 import { policyLabel } from '../policyNames';
@@ -35,7 +36,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
   const betterIn = sharesText(differenceOf.map((d) => d?.probabilityBetter ?? null));
   const figure = figures.next(), reference = pc ? pc.policyValue.value : a.behaviour.value;
   const chartRows: IntervalRowData[] = rows.map((r) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: r.present }));
-  return html`<p>J is the ${words.value} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
+  return html`<p>J is the ${words.value}, ${valueUnitWords(valueUnit(input))} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
       Intervals are ${level} bootstrap intervals over runs; “minus baseline” is the paired difference J − J(baseline) on the same resamples.</p>
     <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th>
       <th class="num">Minus baseline</th><th class="num">${level} interval of the difference</th><th class="num">Better than the baseline in</th></tr></thead><tbody>
@@ -68,11 +69,19 @@ function resampleShare(text: string, share: number | null): string {
   return share === null ? '—' : `${text} of resamples`;
 }
 
-/** J, its bootstrap s.e. (two significant digits) and its two intervals, each at the precision its interval carries. */
-/** J, s.e. and both intervals; a value without an interval (the model rollouts) at the decimals of `precision` (the candidate's J interval) where given. */
+/**
+ * J, its bootstrap s.e. and its two intervals: J and the s.e. at the percentile interval's place (valueWithError, as
+ * the app's tooltip and the terminal write them: "1.83", not "1.8" here and "1.83" there), each interval at its own;
+ * a value without an interval (the model rollouts) at the decimals of `precision` (the candidate's J interval) where given.
+ */
 export function estimateCells(e: IntervalEstimate, precision: readonly [number, number] | null = null): Html {
-  return html`<td class="num">${valueAtPrecision(e.value, e.percentile ?? precision)}</td><td class="num">${errorAtPrecision(e.standardError)}</td>
+  return html`<td class="num">${valueAtPrecision(e.value, e.percentile ?? precision)}</td><td class="num">${errorBeside(e.value, e.standardError, e.percentile)}</td>
     <td class="num">${intervalAtPrecision(e.percentile)}</td><td class="num">${intervalAtPrecision(e.basic)}</td>`;
+}
+
+/** A bootstrap s.e. read beside its value's interval: at the interval's place, else two significant digits (figures/parts/uncertainNumber.ts). */
+function errorBeside(value: number, error: number | null, iv: readonly [number, number] | null): string {
+  return valueWithError(value, error, iv).error;
 }
 
 function pairwise(a: Assessment, level: string): Html {
@@ -81,7 +90,7 @@ function pairwise(a: Assessment, level: string): Html {
   const firstBetterIn = sharesText(between.map((d) => d.probabilityBetter));
   return html`<h3>Candidates against each other</h3>
     <table><thead><tr><th>Difference</th><th class="num">Value</th><th class="num">s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">First better in</th></tr></thead><tbody>
-    ${between.map((d, i) => html`<tr><td>${policyLabel(d.a)} − ${policyLabel(d.b)}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${errorAtPrecision(d.difference.standardError)}</td>
+    ${between.map((d, i) => html`<tr><td>${policyLabel(d.a)} − ${policyLabel(d.b)}</td><td class="num">${valueAtPrecision(d.difference.value, d.difference.percentile)}</td><td class="num">${errorBeside(d.difference.value, d.difference.standardError, d.difference.percentile)}</td>
       <td class="num">${intervalAtPrecision(d.difference.percentile)}</td><td class="num">${resampleShare(firstBetterIn[i], d.probabilityBetter)}</td></tr>`)}
     </tbody></table>`;
 }

@@ -15,7 +15,7 @@ import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
 import { escapeHtml, html, raw, type Html } from './htmlText';
 import { shiftText } from '../../core/diagnostics/shiftText';
-import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, valueAtPrecision, valueInInterval } from '../../figures/parts/uncertainNumber';
 import { gridPointLabels, tuningValueTexts } from '../../figures/parts/tickFormat';
 import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
 
@@ -76,7 +76,7 @@ function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: n
 function mapTable(map: RetuneMapResult): Html {
   const best = map.best, bestInterval = best ? map.points[best.index]?.interval ?? null : null;
   const caption = html`<p><strong>${map.candidate}</strong> — ${best
-    ? html`best supported point ${raw(tuningValueTexts(map.axes, best.coordinates).map((text, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(text)}`).join(', '))}, J ${valueAtPrecision(best.value, bestInterval)}${bestInterval ? ` ${intervalAtPrecision(bestInterval)}` : ''}`
+    ? html`best supported point ${raw(tuningValueTexts(map.axes, best.coordinates).map((text, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(text)}`).join(', '))}, J ${valueInInterval(best.value, bestInterval).text}`
     : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${valueAtPrecision(map.presentController, bestInterval)}`}.</p>`;
   const notes = html`<ul class="small">${map.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"

@@ -4,6 +4,7 @@
  * (V^{π}: superscript; E_{a~π}: subscript) so they are typeset as written in the literature.
  */
 import { CHOICE_STANDARD_ERRORS } from '../../../core/fqe/networkDegreeChoice';
+import { HORIZON_FORMULA } from '../../../core/formulaText';
 
 export interface GlossaryEntry {
   term: string;
@@ -21,7 +22,7 @@ export const GLOSSARY: readonly GlossaryEntry[] = [
   { term: 'Logged step', aka: 'transition', meaning: 'One row of the log with the next: state, action, cost, and the state that followed.' },
   { term: 'Dither', aka: 'exploration noise, policy standard deviation', meaning: 'How far a candidate’s action wanders around its mean (one standard deviation of a Gaussian). The log must hold actions like it for the estimate to rest on data.' },
   { term: 'Actuator limit', meaning: 'The lowest and highest action the actuator can take. Clip: the action sits at the limit. Truncate: the candidate never asks beyond it.' },
-  { term: 'Discount factor γ', meaning: 'Weight of a cost one logged step later. 1/(1 − γ) steps is the horizon it looks over; with the sampling period that is a time.' },
+  { term: 'Discount factor γ', meaning: `Weight of a cost one logged step later. ${HORIZON_FORMULA} steps is the horizon it looks over; with the sampling period that is a time.` },
   { term: 'J', aka: 'policy value', meaning: 'A candidate’s expected discounted cost from the start states on, in the cost’s own unit, discounted. Lower is better for a cost.' },
   { term: 'V^{π}(s)', aka: 'state value', meaning: 'The expected discounted cost from state s on under candidate π. J is its mean over the start states.' },
   { term: 'Q^{π}(s, a)', aka: 'action value, Q-function', meaning: 'The expected discounted cost of taking action a in state s, then following candidate π.' },

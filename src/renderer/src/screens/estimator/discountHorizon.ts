@@ -5,6 +5,7 @@
  */
 import { formatDuration, formatNumber } from '../../format/numberFormat';
 import { stepsText } from '../../../../core/horizonText';
+import { HORIZON_FORMULA } from '../../../../core/formulaText';
 
 export interface DiscountHorizon {
   horizonSteps: number;
@@ -27,7 +28,7 @@ export function discountHelp(discount: number, periodSeconds: number | null): st
   const inTime = h.horizonSeconds !== null && h.halfLifeSeconds !== null
     ? ` At the ${formatNumber(periodSeconds!)} s sampling period: a horizon of about ${formatDuration(h.horizonSeconds * 1000)}; a cost ${formatDuration(h.halfLifeSeconds * 1000)} ahead counts half.`
     : ' Give the log a timestamp column to see this in time.';
-  return `Weight of a cost one logged step later. ${formatNumber(discount)} looks about ${stepsText(h.horizonSteps)} steps ahead (1/(1 − γ)); a cost ${stepsText(h.halfLifeSteps)} steps ahead counts half.${inTime}`;
+  return `Weight of a cost one logged step later. ${formatNumber(discount)} looks about ${stepsText(h.horizonSteps)} steps ahead (${HORIZON_FORMULA}); a cost ${stepsText(h.halfLifeSteps)} steps ahead counts half.${inTime}`;
 }
 
 /**

@@ -2,9 +2,10 @@
 import { CHOICE_STANDARD_ERRORS } from '../../../../core/fqe/networkDegreeChoice';
 import { NETWORK_LIMITS as L } from '../../../../core/fqe/networkSettings';
 import { BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL } from '../../../../core/limits';
+import { formulaText, HORIZON_FORMULA } from '../../../../core/formulaText';
 
 export const SETTING_HELP = {
-  discount: 'Weight of a cost or reward one step later (0 < γ < 1); 0.95 looks about 20 steps ahead (1/(1 − γ)).',
+  discount: `Weight of a cost or reward one step later (${formulaText('0 < γ < 1')}); 0.95 looks about 20 steps ahead (${HORIZON_FORMULA}).`,
   approximator: 'How Q(s, a) is represented: linear in fixed features (fast, exact fixed point) or a small neural network (flexible, slower).',
   featureKind: 'Polynomials in the standardised states and actions, or Gaussian bumps on a grid over them.',
   degree: 'Highest total power of the features; 2 represents a quadratic cost around a linear plant exactly.',

@@ -15,7 +15,8 @@ import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plo
 import { sweepsVerdict } from '../../../../figures/charts/sensitivity';
 import { TRIAL_RULE, trialAnswer, trialChoice, warningsText, type TrialChoice } from '../../../../pipeline/trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
-import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
+import { valueUnitWords } from '../../../../pipeline/valueUnitWords';
+import { intervalAtPrecision, valueAtPrecision, valueInInterval, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const CONFIRMATION: Record<string, string> = { confirmed: 'confirmed', contradicted: 'contradicted', unconfirmed: 'unconfirmed' };
 
@@ -61,7 +62,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
               {/* Not settled: the sampling interval alone understates the error; the number to carry forward is the range across classes. */}
               {l.candidate.settled === false && l.candidate.reportedRange && <div className="small" data-testid="answer-range-to-report">range to report {intervalAtPrecision(l.candidate.reportedRange)}</div>}
             </td>
-            <td className="number interval">{l.difference ? `${valueAtPrecision(l.difference.difference.value, l.difference.difference.percentile)} ${intervalAtPrecision(l.difference.difference.percentile)}` : '—'}</td>
+            <td className="number interval">{l.difference ? valueInInterval(l.difference.difference.value, l.difference.difference.percentile).text : '—'}</td>
             <td className="number">{betterIn[i]}</td>
             <td className={l.candidate.confirmation.status === 'contradicted' ? 'error-text' : undefined}>{CONFIRMATION[l.candidate.confirmation.status]}</td>
             <td className={l.serious || l.logSerious ? 'error-text' : undefined}>{warningsText(l)}</td>
@@ -92,7 +93,7 @@ function PointTable({ evaluation, unit }: { evaluation: Evaluation; unit: string
 export function AnswerPanel({ evaluation, assessment }: { evaluation: Evaluation; assessment: Assessment | null }) {
   const unit = valueUnit(useDocument());
   const choice = assessment ? trialChoice(assessment) : null;
-  const sense = `J is the expected discounted ${evaluation.valueSense}${unit ? ` in ${unit}` : ''} from the start states on (${evaluation.valueSense === 'cost' ? 'lower' : 'higher'} is better).`;
+  const sense = `J is the expected discounted ${evaluation.valueSense} from the start states on, ${valueUnitWords(unit)} (${evaluation.valueSense === 'cost' ? 'lower' : 'higher'} is better).`;
   const gist = choice ? (choice.pick ? `Trial first: ${choice.pick.candidate.name}.` : 'No candidate is named for a trial.') : 'Waiting for the intervals and checks.';
   return (
     <FoldPanel section="answer" span="span-2" testId="panel-answer" gist={gist}>

@@ -4,7 +4,7 @@
  * candidates and the present controller, the baseline (both in CrossChecksPanel).
  */
 import type { FunctionClassAssessment } from '../../../../pipeline/assessment';
-import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, valueInInterval } from '../../../../figures/parts/uncertainNumber';
 import { sentenceCase, typesetMinus } from './assessmentWords';
 
 /** reasonTestId: the test id of the reason's span (`classes-reason-<name>`). */
@@ -12,7 +12,7 @@ export function ClassesVerdict({ classes, reportedRange, reasonTestId }: { class
   return (
     <>
       <strong>{classes.settled ? 'Settled across function classes' : 'Not settled across function classes'}</strong>
-      {' '}(range to report {intervalAtPrecision(reportedRange)}): {classes.classes.map((k) => `${k.label}: ${valueAtPrecision(k.value, k.interval)} ${intervalAtPrecision(k.interval)}`).join('; ')}.
+      {' '}(range to report {intervalAtPrecision(reportedRange)}): {classes.classes.map((k) => `${k.label}: ${valueInInterval(k.value, k.interval).text}`).join('; ')}.
       {/* Why, from the verdict itself (which classes differ, or are too uncertain to check the project's own); its lead is the bold words above. */}
       {' '}<span data-testid={reasonTestId}>{classReason(classes.reason)}</span> {classes.coverage}
     </>

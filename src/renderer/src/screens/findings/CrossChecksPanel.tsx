@@ -10,7 +10,7 @@ import { FoldPanel } from './FoldPanel';
 import type { Assessment } from '../../../../pipeline/assessment';
 import { intervalDetail, levelText, noteWithoutVerdict, typesetMinus, VERDICT } from './assessmentWords';
 import { ClassesVerdict } from './ClassesVerdict';
-import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, valueAtPrecision, valueInInterval } from '../../../../figures/parts/uncertainNumber';
 
 export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
   const level = assessment.settings.level, present = assessment.presentController;
@@ -29,7 +29,7 @@ export function CrossChecksPanel({ assessment }: { assessment: Assessment }) {
         )}
         {c.rangeCut && <p className="small" data-testid={`range-cut-${c.name}`}>{typesetMinus(c.rangeCut)}</p>}
         <table data-testid={`cross-checks-${c.name}`}>
-          <caption>{c.name}: fitted Q-evaluation J = {valueAtPrecision(c.policyValue.value, c.policyValue.percentile)} {intervalAtPrecision(c.policyValue.percentile)}</caption>
+          <caption>{c.name}: fitted Q-evaluation J = {valueInInterval(c.policyValue.value, c.policyValue.percentile).text}</caption>
           <thead>
             <tr>
               <th scope="col">Method</th><th scope="col" className="number">Value</th><th scope="col" className="number">{levelText(level)} interval</th>

@@ -11,7 +11,7 @@ import { RichText } from '../../components/RichText';
 import { gridPointLabels, tuningValueTexts } from '../../../../figures/parts/tickFormat';
 
 import { richAxisLabel } from './retuneMapWords';
-import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, valueAtPrecision, valueInInterval } from '../../../../figures/parts/uncertainNumber';
 
 type Point = RetuneMapResult['points'][number];
 
@@ -20,7 +20,7 @@ const valueText = (p: Point) => (p.value === null ? '—' : valueAtPrecision(p.v
 
 const mark = (p: Point) => (p.value === null ? '' : p.support === null ? '' : p.support === 'caution' ? ' *' : ' †');
 const cellClass = (p: Point, best: boolean) => ['number', best ? 'map-best' : '', p.value !== null && p.support !== null && p.support !== 'caution' ? 'map-unsupported' : ''].join(' ').trim();
-const cellTitle = (p: Point) => `J ${valueText(p)} ${intervalAtPrecision(p.interval)}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
+const cellTitle = (p: Point) => `J ${p.value === null ? '—' : valueInInterval(p.value, p.interval).text}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
 
 export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: string }) {
   const best = map.best?.index ?? -1;

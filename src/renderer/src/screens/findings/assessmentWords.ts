@@ -6,9 +6,8 @@
 import type { Agreement, CoverageDiagnostics, IntervalEstimate } from '../../../../pipeline/assessment';
 import type { AssessRunProgress } from '../../../../shared/workerMessages';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../../../core/diagnostics/severity';
-import { intervalAtPrecision } from '../../../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 import { effectiveRunsNumber, effectiveRunsText } from '../../../../core/offPolicy/effectiveRunsText';
-import { formatNumber } from '../../format/numberFormat';
 import { shareText, sharesText } from '../../../../core/shareText';
 import { shiftText } from '../../../../core/diagnostics/shiftText';
 import { unvisitedSentence } from '../../../../pipeline/unvisitedWords';
@@ -24,7 +23,7 @@ export { shareText, sharesText };
 /** The basic interval and the replicate count, for the tooltip of an interval cell. */
 export function intervalDetail(estimate: IntervalEstimate, level: number): string {
   const failed = estimate.failedReplicates > 0 ? `, ${estimate.failedReplicates} gave no value` : '';
-  return `${levelText(level)} basic interval ${intervalAtPrecision(estimate.basic)}; bootstrap s.e. ${estimate.standardError === null ? '—' : formatNumber(estimate.standardError, 3)}; ${estimate.replicates} resamples${failed}`;
+  return `${levelText(level)} basic interval ${intervalAtPrecision(estimate.basic)}; bootstrap s.e. ${valueWithError(estimate.value, estimate.standardError, estimate.percentile).error}; ${estimate.replicates} resamples${failed}`;
 }
 
 /** A cross-check's note without its leading verdict word, which the verdict column already says. */

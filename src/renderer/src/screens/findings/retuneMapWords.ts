@@ -8,7 +8,7 @@ import type { RetuneMapProgress } from '../../../../shared/workerMessages';
 import { formatDuration } from '../../format/numberFormat';
 import { tuningValueTexts } from '../../../../figures/parts/tickFormat';
 import { subscriptMarkup } from '../../../../figures/parts/richText';
-import { intervalAtPrecision, valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
+import { valueAtPrecision, valueInInterval } from '../../../../figures/parts/uncertainNumber';
 
 /** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)" (the figures' rich-text markup). */
 export const richAxisLabel = subscriptMarkup;
@@ -27,8 +27,7 @@ export function headline(map: RetuneMapResult): string {
   const best = map.best ? map.points[map.best.index] : null, bestInterval = best?.interval ?? null;
   const present = map.presentController === null ? 'The present controller has no value to compare with.' : `Present controller: J ${valueAtPrecision(map.presentController, bestInterval)}.`;
   if (!map.best) return `No point of this map is both converged and supported by the logs. ${present}`;
-  const interval = bestInterval ? ` ${intervalAtPrecision(bestInterval)}` : '';
-  return `Best supported point: ${pointText(map, map.best.index)}, J ${valueAtPrecision(map.best.value, bestInterval)}${interval}. ${present}`;
+  return `Best supported point: ${pointText(map, map.best.index)}, J ${valueInInterval(map.best.value, bestInterval).text}. ${present}`;
 }
 
 /** "Map 1 of 2, point 37 of 100 (12 s)". */

@@ -1,0 +1,15 @@
+/**
+ * J's unit said once where a table or a sentence states it: "in €" where the project gives the cost's or
+ * reward's unit (`columns.reward.unit`), and "no unit given" in plain words where it gives none — never a
+ * bare dash, which read as a missing number. J, V and Q are in that unit, discounted. Every host (the
+ * app's Findings and Plant log, the report, the command line) reads these words from here.
+ */
+
+/** The words where a unit would stand and the project gives none. */
+export const NO_UNIT_GIVEN = 'no unit given';
+
+/** "in €", or "no unit given" for a blank unit. */
+export function valueUnitWords(unit: string | null | undefined): string {
+  const u = unit?.trim() ?? '';
+  return u ? `in ${u}` : NO_UNIT_GIVEN;
+}
