@@ -14,11 +14,16 @@ const RULE = { unchanged: 0.95, median: [0.9, 1.1], floor: 0.7 } as const;
 
 interface Row { plant: string; seed: string; model: string; check: string; ratio: number; before: string; after: string; headBefore: string; headAfter: string; turned: string }
 
+/** Every row once: a log run twice (the same seed gives the same numbers) counts once. */
 function rowsOf(files: string[]): Row[] {
+  const seen = new Set<string>();
   return files.flatMap((f) => readFileSync(f, 'utf8').split('\n').filter((l) => l && !l.startsWith('plant') && l.split('\t').length >= 12).map((l) => {
     const x = l.split('\t');
     return { plant: x[0], seed: x[1], model: x[2], check: x[3], ratio: Number(x[6]), before: x[7], after: x[8], headBefore: x[9], headAfter: x[10], turned: x[11] };
-  }));
+  })).filter((r) => {
+    const key = `${r.plant}|${r.seed}|${r.model}|${r.check}`;
+    return !seen.has(key) && seen.add(key);
+  });
 }
 
 function median(x: number[]): number {
