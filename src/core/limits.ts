@@ -141,6 +141,15 @@ export const SEED = { default: 1, min: 0, max: 2 ** 32 - 1 } as const;
  * B ≥ 1000 for percentile intervals; common practice). At least 20 give any spread at all.
  */
 export const BOOTSTRAP_RESAMPLES = { default: 1000, min: 20, max: 100_000 } as const;
+/**
+ * How the resamples take the weighted per-decision checks (importance sampling, doubly robust):
+ * 'resampled' recomputes each check on every resample; 'firstOrder' takes it to first order in the
+ * run multiplicities (offPolicy/perDecisionDerivatives.ts), O(data) once instead of O(resamples × data).
+ * The default is the one the battery's rule chose (test/battery/README.md, "First-order standard errors
+ * of the per-decision checks").
+ */
+export const PER_DECISION_RESAMPLING = { default: 'resampled', routes: ['resampled', 'firstOrder'] } as const;
+export type PerDecisionResampling = (typeof PER_DECISION_RESAMPLING.routes)[number];
 /** Confidence level of the intervals. */
 export const CONFIDENCE_LEVEL = { default: 0.9, min: 0.5, below: 1 } as const;
 /** Fewest logged runs (episodes) the bootstrap resamples: fewer give intervals too coarse to mean much (common practice). */

@@ -9,7 +9,9 @@
 import { createPacer, throwIfCancelled } from '../core/fqe/cancellation';
 import { completedReturnOfResample } from '../core/loggedReturn';
 import { modelRegressions, type ModelRegressions } from '../core/offPolicy/linearQuadraticModel';
-import { ImportanceSamplingError, type PerDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
+import { PER_DECISION_RESAMPLING } from '../core/limits';
+import { linearisedPerDecision, perDecisionDerivatives, type PerDecisionDerivatives } from '../core/offPolicy/perDecisionDerivatives';
+import { ImportanceSamplingError, perDecisionEstimates, type PerDecisionData, type PerDecisionEstimates } from '../core/offPolicy/perDecisionEstimators';
 import { RESAMPLE_BLOCK } from '../core/offPolicy/perDecisionResamples';
 import type { AssessmentContext, CandidateWork, OffPolicyInputs } from './assessCandidate';
 import type { AssessmentSettings } from './assessSettings';
@@ -73,6 +75,8 @@ export interface RouteInputs {
 export interface ResampleRoute {
   readonly route: PerDecisionRoute;
   readonly rows: readonly number[];
+  /** Per row, the full-data checks and their per-run derivatives where they are taken to first order; null where they are resampled. */
+  readonly firstOrder: readonly FirstOrderChecks[] | null;
   close(): void;
 }
 
@@ -93,9 +97,28 @@ export function openResampleRoute(context: AssessmentContext, inputs: RouteInput
   let row = 0;
   const rows = inputs.offPolicy.map((o) => ('perDecision' in o ? row++ : -1));
   const data = inputs.offPolicy.flatMap((o) => ('perDecision' in o ? [o.perDecision] : []));
-  const route = openPerDecisionRoute(data, { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: settings.resamples },
+  const firstOrder = (settings.perDecision ?? PER_DECISION_RESAMPLING.default) === 'firstOrder' ? data.map((d) => firstOrderChecks(d, plan.discount)) : null;
+  // Taken to first order, the checks leave the route (and a helper thread) only the model's resamples.
+  const route = openPerDecisionRoute(firstOrder ? [] : data, { discount: plan.discount, episodes: plan.episodes.episodes, seed: settings.seed, resamples: settings.resamples },
     context.helper, { model: modelJobOf(context, inputs), rollouts: null });
-  return { route, rows, close: () => route.close() };
+  return { route, rows, firstOrder, close: () => route.close() };
+}
+
+/** The full-data checks and their per-run derivatives (perDecisionDerivatives.ts), or the error that stands for every resample's. */
+export type FirstOrderChecks = { point: PerDecisionEstimates; derivatives: PerDecisionDerivatives } | ImportanceSamplingError;
+
+function firstOrderChecks(data: PerDecisionData, discount: number): FirstOrderChecks {
+  try {
+    return { point: perDecisionEstimates(data, discount), derivatives: perDecisionDerivatives(data, discount) };
+  } catch (error) {
+    if (error instanceof ImportanceSamplingError) return error;
+    throw error;
+  }
+}
+
+/** A resample's checks to first order on its multiplicities c. */
+function linearisedChecks(checks: FirstOrderChecks, c: Uint32Array): PerDecisionEstimates | ImportanceSamplingError {
+  return checks instanceof ImportanceSamplingError ? checks : linearisedPerDecision(checks.point, checks.derivatives, c);
 }
 
 /** The loop over the resamples on a route opened for the same works (openResampleRoute); the caller closes the route. */
@@ -103,7 +126,7 @@ export async function runResamples(
   context: AssessmentContext, inputs: ResampleInputs, settings: AssessmentSettings, opened: ResampleRoute, onProgress?: (p: ResampleProgress) => void,
 ): Promise<ReplicateSet> {
   const pace = createPacer(PACE_MS), { plan } = context, e = plan.episodes.episodes;
-  const { works, baseline, baselineEnds, model } = inputs, { route, rows } = opened;
+  const { works, baseline, baselineEnds, model } = inputs, { route, rows, firstOrder } = opened;
   const out: ReplicateSet = {
     loggedReturn: [], candidates: works.map((w, j) => emptyReplicates(w, model?.applicable[j] ?? false, networkRunResamples(w, e, settings, j))),
     presentController: baseline && emptyReplicates(baseline, model?.baselineApplicable ?? false, networkRunResamples(baseline, e, settings, works.length)),
@@ -119,7 +142,7 @@ export async function runResamples(
     const fqe = new Map([...works, ...(baseline ? [baseline] : [])].map((w) => [w, blockValues(w, drawn)]));
     // Asked for last, so a helper thread computing them has had this block's other work to run ahead.
     const share = await route.block(first, drawn), models = share.models;
-    const perDecisionOf = (k: number, i: number) => (rows[k] >= 0 ? share.perDecision[rows[k]][i] : undefined);
+    const perDecisionOf = (k: number, i: number) => (rows[k] < 0 ? undefined : firstOrder ? linearisedChecks(firstOrder[rows[k]], drawn[i]) : share.perDecision[rows[k]][i]);
     drawn.forEach((c, i) => {
       out.loggedReturn.push(weightedMean(plan.loggedReturn.perEpisode, c));
       works.forEach((w, j) => replicateCandidate(w, out.candidates[j], fqe.get(w)!.map((v) => v?.[i]), models?.[j]?.[i] ?? null, perDecisionOf(j, i)));

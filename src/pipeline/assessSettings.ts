@@ -3,7 +3,7 @@
  * with which seed, and whether to run the sensitivity sweeps. Read from the project document's
  * optional `bootstrap` block and overridden by the host (CLI flags, the app's form).
  */
-import { BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, SEED } from '../core/limits';
+import { BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, SEED, type PerDecisionResampling } from '../core/limits';
 import { failure, success, type Problem, type Result } from '../core/result';
 import type { ProjectDocument } from '../project/schema';
 
@@ -12,6 +12,8 @@ export interface AssessmentSettings {
   level: number; // e.g. 0.9
   seed: number;
   sensitivity: boolean;
+  /** The per-decision checks' route through the resamples; PER_DECISION_RESAMPLING.default when omitted (a comparison setting, not offered to users). */
+  perDecision?: PerDecisionResampling;
 }
 
 /** The defaults and ranges of core/limits.ts (BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL), where the schema reads them too. */
