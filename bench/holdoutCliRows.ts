@@ -87,8 +87,10 @@ function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed:
 
 /**
  * The trial choice (`json.trial`, pipeline/trialChoice.ts) against the truth: a named candidate is right when its
- * truth beats the logging policy's by more than 2 standard errors of the difference (independent rollouts:
- * √(SE² + SE²)); none named is a miss when some candidate is truly better by that margin. Rewards: larger is better.
+ * truth beats the logging policy's by more than 2·√(SE² + SE²) (the rule in notes/probe36-rule.md); none named is a
+ * miss when some candidate is truly better by that margin. Rewards: larger is better. Both truths roll out from
+ * the same starts with the same seed (ROLLOUT_SEED), so their errors are shared in part and √(SE² + SE²) is no
+ * smaller than the difference's own error would be for positively correlated rollouts: strict for "right", lenient for "a miss".
  */
 function trialVerdict(trial: { named: string | null; best: string | null } | null, present: BatteryTruth, truths: Map<string, BatteryTruth>) {
   const better = (t: BatteryTruth) => t.value - present.value > 2 * Math.hypot(t.standardError, present.standardError);

@@ -42,7 +42,9 @@ export function* dataFingerprintSteps(bytes: Uint8Array, create: Sha256Factory =
  * the fingerprint costs no read of its own: every read passes through `source`, and the bytes of a
  * read that reach past the part hashed so far extend it, in file order (FIPS 180-4 §6.2, as above).
  * The import reads the file's head, then every piece from the start (pieceFacts.ts), so the hash is
- * whole after its first pass; `hex()` is null while some byte was never read.
+ * whole after its first pass; `hex()` is null while some byte was never read. A read from byte 0 starts
+ * the hash afresh, so the digest is that of one pass from the start (the first pass, or the whole-file
+ * read after it), never of the head as first read joined to the rest of a file rewritten in between.
  */
 export interface HashedPieces {
   readonly source: PieceSource;
@@ -50,10 +52,11 @@ export interface HashedPieces {
 }
 
 export function hashedWhileRead(file: PieceSource, create: Sha256Factory = portableSha256): HashedPieces {
-  const hash = create();
+  let hash = create();
   let hashed = 0; // file bytes [0, hashed) are in the hash
   const read = (into: Uint8Array, offset: number, length: number, position: number): number => {
     const n = file.read(into, offset, length, position);
+    if (n > 0 && position === 0 && hashed > 0) [hash, hashed] = [create(), 0]; // a pass from the start: hash what it reads
     if (n > 0 && position <= hashed && position + n > hashed) {
       hash.update(into.subarray(offset + hashed - position, offset + n));
       hashed = position + n;

@@ -13,3 +13,8 @@ export function valueUnitWords(unit: string | null | undefined): string {
   const u = unit?.trim() ?? '';
   return u ? `in ${u}` : NO_UNIT_GIVEN;
 }
+
+/** What J is, in one sentence without its full stop, as the Findings' answer and values tables say it: "J is the expected discounted cost from the start states on, in € (lower is better)". */
+export function valueSenseSentence(sense: 'cost' | 'reward', unit: string | null | undefined): string {
+  return `J is the expected discounted ${sense} from the start states on, ${valueUnitWords(unit)} (${sense === 'cost' ? 'lower' : 'higher'} is better)`;
+}

@@ -2,8 +2,9 @@
  * The fingerprint taken while a file is read in pieces (pipeline/dataFingerprint.ts hashedWhileRead)
  * is the SHA-256 of the whole file, checked against Node's crypto (OpenSSL) over the bytes at once,
  * whatever the readers' order: the import's head, then its first pass from byte 0 (overlapping the
- * head), then its records' pass; reads of random lengths that go back and overlap; and it says
- * nothing (null) while a byte was never read.
+ * head), then its records' pass; reads of random lengths that go back and overlap; a read from byte 0
+ * starting the hash afresh (a file rewritten after its head was read); and it says nothing (null) while
+ * a byte was never read.
  */
 import { createHash } from 'node:crypto';
 import { describe, expect, it } from 'vitest';
@@ -42,13 +43,26 @@ describe('hashedWhileRead', () => {
       const hashed = hashedWhileRead(fileOf(7001), create);
       let frontier = 0;
       while (frontier < bytes.length) {
-        const position = Math.max(0, frontier - Math.floor(3000 * rng.uniform()));
+        const position = frontier === 0 ? 0 : Math.max(1, frontier - Math.floor(3000 * rng.uniform())); // back to byte 0 would start afresh (below)
         const length = 1 + Math.floor(9000 * rng.uniform());
         readAt(hashed.source, position, Math.min(length, bytes.length - position));
         frontier = Math.max(frontier, Math.min(position + Math.min(length, 7001), bytes.length));
       }
       expect(hashed.hex()).toBe(openssl);
     }
+  });
+
+  it('a read from byte 0 starts afresh: a file rewritten (same length) after its head was read gives the digest of the pass that followed, not a mixture', () => {
+    const first = bytes.slice();
+    first[10] ^= 1; // the head as first read, before the file was rewritten
+    const firstReads: PieceSource = memorySource(first, 4096), later = fileOf(4096);
+    let headDone = false;
+    const file: PieceSource = { byteLength: bytes.length, read: (into, offset, length, position) => (headDone ? later : firstReads).read(into, offset, length, position) };
+    const hashed = hashedWhileRead(file, nativeSha256);
+    for (let at = 0; at < 20_000; at += 4096) readAt(hashed.source, at, 4096); // the head
+    headDone = true;
+    for (let at = 0; at < bytes.length; at += 4096) readAt(hashed.source, at, 4096); // the first pass, over the file as it is now
+    expect(hashed.hex()).toBe(openssl);
   });
 
   it('a byte never read leaves no digest, even when every later byte was read', () => {

@@ -4,7 +4,7 @@
  * schema's optional `columns.reward.unit` is what a user fills in (README, project file).
  */
 import { describe, expect, it } from 'vitest';
-import { NO_UNIT_GIVEN, valueUnitWords } from '../../src/pipeline/valueUnitWords';
+import { NO_UNIT_GIVEN, valueSenseSentence, valueUnitWords } from '../../src/pipeline/valueUnitWords';
 import { projectSchema } from '../../src/project/schema';
 
 describe('the unit of J in words', () => {
@@ -21,5 +21,10 @@ describe('the unit of J in words', () => {
     const parsed = reward.parse({ kind: 'column', column: 'cost', sense: 'cost', unit: '€' });
     expect(valueUnitWords(parsed.unit)).toBe('in €');
     expect(valueUnitWords(reward.parse({ kind: 'expression', expression: 'a^2', sense: 'cost' }).unit)).toBe('no unit given');
+  });
+
+  it('says what J is once for the Findings\' answer and values tables, in the project\'s sense', () => {
+    expect(valueSenseSentence('cost', '€')).toBe('J is the expected discounted cost from the start states on, in € (lower is better)');
+    expect(valueSenseSentence('reward', undefined)).toBe('J is the expected discounted reward from the start states on, no unit given (higher is better)');
   });
 });

@@ -15,7 +15,7 @@ import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plo
 import { sweepsVerdict } from '../../../../figures/charts/sensitivity';
 import { TRIAL_RULE, trialAnswer, trialChoice, warningsText, type TrialChoice } from '../../../../pipeline/trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
-import { valueUnitWords } from '../../../../pipeline/valueUnitWords';
+import { valueSenseSentence } from '../../../../pipeline/valueUnitWords';
 import { intervalAtPrecision, valueAtPrecision, valueInInterval, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const CONFIRMATION: Record<string, string> = { confirmed: 'confirmed', contradicted: 'contradicted', unconfirmed: 'unconfirmed' };
@@ -93,7 +93,7 @@ function PointTable({ evaluation, unit }: { evaluation: Evaluation; unit: string
 export function AnswerPanel({ evaluation, assessment }: { evaluation: Evaluation; assessment: Assessment | null }) {
   const unit = valueUnit(useDocument());
   const choice = assessment ? trialChoice(assessment) : null;
-  const sense = `J is the expected discounted ${evaluation.valueSense} from the start states on, ${valueUnitWords(unit)} (${evaluation.valueSense === 'cost' ? 'lower' : 'higher'} is better).`;
+  const sense = `${valueSenseSentence(evaluation.valueSense, unit)}.`;
   const gist = choice ? (choice.pick ? `Trial first: ${choice.pick.candidate.name}.` : 'No candidate is named for a trial.') : 'Waiting for the intervals and checks.';
   return (
     <FoldPanel section="answer" span="span-2" testId="panel-answer" gist={gist}>

@@ -15,7 +15,7 @@ import type { Evaluation } from '../../../../pipeline/estimates';
 import { plural, screenMessage, sentence } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
 import { valueUnit } from './plotLabels';
-import { valueUnitWords } from '../../../../pipeline/valueUnitWords';
+import { valueSenseSentence } from '../../../../pipeline/valueUnitWords';
 import type { Theme } from '../../theme';
 import { intervalDetail, levelText } from './assessmentWords';
 import { ExportPanel } from './ExportPanel';
@@ -48,7 +48,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
   const doc = useDocument();
   const unit = valueUnit(doc);
   const level = assessment?.settings.level ?? 0;
-  const sense = `J is the expected discounted ${evaluation.valueSense} from the start states on, ${valueUnitWords(unit)} (${evaluation.valueSense === 'cost' ? 'lower' : 'higher'} is better)`;
+  const sense = valueSenseSentence(evaluation.valueSense, unit);
   const b = evaluation.behaviour, pc = evaluation.presentController;
   // The completed logged return has a row only where the value past the runs' ends weighs enough to be said (core/loggedReturn.ts).
   const completed = truncationMatters(b);
