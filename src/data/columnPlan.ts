@@ -19,6 +19,9 @@ export interface ColumnPlan {
   readonly warnings: ImportProblem[];
 }
 
+/** The roles of a column that holds an identifier or a flag, which has no unit (the Plant log's column table says so). */
+export const RUN_ROLE = 'run', END_OF_RUN_ROLE = 'end of run';
+
 export function planColumns(header: readonly string[], roles: ColumnRoles, fileName: string, decimalMark: '.' | ',' = '.'): { plan?: ColumnPlan; problems: ImportProblem[] } {
   const problems: ImportProblem[] = [];
   const where = `${fileName}, header (line 1)`;
@@ -47,10 +50,10 @@ export function planColumns(header: readonly string[], roles: ColumnRoles, fileN
   roles.actions.forEach((a, i) => use(a.column, 'number', 'action', `action ${i + 1}`));
   const rewardExpression = planReward(roles, header, fileName, use, problems, decimalMark);
   planNextState(roles, use, problems, fileName);
-  if (roles.episode.kind === 'column') use(roles.episode.column, 'label', 'run', 'run column');
+  if (roles.episode.kind === 'column') use(roles.episode.column, 'label', RUN_ROLE, 'run column');
   const timestamp = timestampColumnOf(roles);
   if (timestamp !== undefined) use(timestamp, 'timestamp', 'timestamp', roles.episode.kind === 'timeGap' ? 'timestamp column for runs' : 'timestamp column');
-  if (roles.terminal !== undefined) use(roles.terminal, 'flag', 'end of run', 'end-of-run column');
+  if (roles.terminal !== undefined) use(roles.terminal, 'flag', END_OF_RUN_ROLE, 'end-of-run column');
   if (problems.length > 0) return { problems };
   return { plan: { requests: [...requests.values()], rewardExpression, roles: used, warnings: duplicateWarnings(fields, used, where) }, problems };
 }

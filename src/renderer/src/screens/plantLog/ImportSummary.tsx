@@ -12,7 +12,7 @@ import { statisticsText } from './columnStatisticsText';
 import { useDocument, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { DataImport } from '../../../../shared/workerMessages';
-import { NO_UNIT_GIVEN } from '../../../../pipeline/valueUnitWords';
+import { columnUnitText } from './columnUnitText';
 
 export function ImportSummary() {
   const state = useSession().importState;
@@ -108,7 +108,7 @@ function ColumnTable({ result, units }: { result: DataImport; units: ReadonlyMap
             <tr key={c.name}>
               <th scope="row" className="mono">{c.name}</th>
               <td>{c.roles.join(', ')}</td>
-              <td data-testid={`stat-unit-${c.name}`}>{c.roles.includes('timestamp') ? (result.clock?.calendar ? 'date and time' : 's') : units.get(c.name) ?? NO_UNIT_GIVEN}</td>
+              <td data-testid={`stat-unit-${c.name}`}>{c.roles.includes('timestamp') ? (result.clock?.calendar ? 'date and time' : 's') : columnUnitText(c.roles, units.get(c.name))}</td>
               {statistics(c, result).map((text, k) => <td key={k} className="number">{text}</td>)}
               <td><Histogram histogram={c.histogram} label={c.name} /></td>
             </tr>
