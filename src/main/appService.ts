@@ -10,7 +10,7 @@ import type { AppApi, DataFileReply, ExportKind, ProjectFileReply, RecoveryOffer
 import type { AppContext } from './appContext';
 import type { Dialogs } from './dialogs';
 import { FileAccessError, describeFileError } from './fileErrors';
-import { fingerprint } from './fileVersions';
+import { fingerprintPaced } from './fileVersions';
 import { EXPORT_EXTENSIONS, PROJECT_EXTENSION, suggestedFileName, withExtension } from './fileNames';
 import { pathApi } from './pathIdentity';
 import { resolveDataPath } from './pathAccess';
@@ -68,7 +68,7 @@ export function createAppService(context: AppContext, session: AppSession): AppS
   async function dataReply(path: string, projectPath: string | null): Promise<DataFileReply> {
     const bytes = await store.readBytes(path);
     const relativePath = projectPath === null ? path : toForwardSlashes(api.relative(api.dirname(projectPath), path) || api.basename(path));
-    return { path, relativePath, bytes, sha256: fingerprint(bytes) };
+    return { path, relativePath, bytes, sha256: await fingerprintPaced(bytes) };
   }
 
   async function chooseData(projectPath: string | null): Promise<DataFileReply | null> {
