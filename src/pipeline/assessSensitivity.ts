@@ -17,8 +17,8 @@
  */
 import { meanStartFeatures, startStateFeatures } from '../core/features/policyFeatures';
 import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
-import { solveReplicate, type LinearReplicate, type LinearSolveSettings } from '../core/bootstrap/linearFqeReplicate';
-import { bellmanStatisticsSteps, type BellmanStatistics } from '../core/fqe/bellmanStatistics';
+import { reachedSolve, solveReplicate } from '../core/bootstrap/linearFqeReplicate';
+import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturns } from '../core/loggedReturn';
 import { rewardTermScale } from '../core/rankingTie';
@@ -61,28 +61,19 @@ export function sweptDiscount(discount: number, factor: number): number {
   return discount ** (1 / factor);
 }
 
-/**
- * One swept discount's J. Solved at its fixed point where the project's fit converged (the route of
- * its resamples), it keeps that value only where the fitted Q-evaluation iteration, from the
- * project's weights, reaches it too — the rule the project's own fit is judged by; else no J, with
- * the iteration's status. The fixed point exists wherever its equations are regular, reachable or not.
- */
-function discountPoint(setup: LinearSolveSettings, statistics: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
-  const fit = solveReplicate(setup, statistics, xiBar);
-  if (setup.solver !== 'fixedPoint' || fit.status !== 'converged') return fit;
-  const iterated = solveReplicate({ ...setup, solver: 'iteration' }, statistics, xiBar);
-  return iterated.status === 'converged' ? fit : { policyValue: null, weights: null, status: iterated.status };
-}
-
 /** The discount curve with its check against what the rewards allow (assessSweepCheck.ts): marked points, the settings the ranking leaves out, warnings. */
 function discountCurve(context: AssessmentContext, works: CandidateWork[], sign: number, check: SweepCheckSettings): { curve: SensitivityCurve; warnings: AssessmentWarning[][]; note: string | null } {
   const { plan } = context, settings = HORIZON_FACTORS.map((f) => sweptDiscount(plan.discount, f)), projectIndex = HORIZON_FACTORS.indexOf(1);
   const fitted = works.map((w) => {
     const setup = linearSolveSettings(plan, w.model), { statistics, startFeatures, features } = w.model.linear!;
     const xiBar = meanStartFeatures(startFeatures, features.dim);
-    return settings.map((g) => discountPoint({ ...setup, discount: g }, statistics, xiBar));
+    // The project's own point carries its fit's status, as in the feature sweep (ownPoint): where that fit diverged its weights
+    // are the fixed point, from which the iteration at the same discount stops at once and would read as converged.
+    return settings.map((g, k) => (k === projectIndex && w.model.fit.status !== 'converged'
+      ? { policyValue: w.model.fit.policyValue, weights: null, status: w.model.fit.status }
+      : reachedSolve({ ...setup, discount: g }, statistics, xiBar)));
   });
-  const swept = checkDiscountSweep(context, works, settings, projectIndex, fitted.map((fits) => fits.map((f) => f.policyValue)), fitted.map((fits) => fits.map((f) => f.status === 'converged')), check);
+  const swept = checkDiscountSweep(context, works, settings, projectIndex, fitted, check);
   const series: SensitivitySeries[] = works.map((w, c) => ({
     name: w.model.name, values: fitted[c].map((f) => (f.policyValue === null ? null : sign * f.policyValue)), status: fitted[c].map((f) => f.status),
     ...(swept.marks[c].some(Boolean) ? { beyondPossible: swept.marks[c] } : {}),

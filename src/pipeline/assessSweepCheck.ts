@@ -20,7 +20,7 @@
  * SWEEP_CHECK_MIN_PAIRED resamples; the others say so, with the reason.
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
-import { linearFqeReplicateDiscounts, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
+import { linearFqeReplicateDiscounts, type LinearReplicate, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
 import { bootstrapInterval } from '../core/bootstrap/bootstrapInterval';
 import { loggedRewardRange, POSSIBLE_SLACK } from '../core/diagnostics/possibleValues';
 import { changeIntervalImpossible, fewestWrong, possibleChange, type ImpossibleChange, type PossibleChange } from '../core/diagnostics/possibleChange';
@@ -53,16 +53,19 @@ export interface SweepCheckSettings {
 export const SWEEP_CHECK_TOPIC = 'discountSweep';
 
 /**
- * values[c][k]: candidate c's J at settings[k] (reward sense; null without one), from the sweep's own
- * full-data solves; converged[c][k] whether that solve converged.
+ * points[c][k]: candidate c's full-data solve at settings[k] by the sweep's rule (reachedSolve,
+ * core/bootstrap/linearFqeReplicate.ts; J in the reward sense). The resamples are judged by the same
+ * rule, started from the full data's weights at each discount; a discount whose full-data point has no
+ * J takes no part in the check, and the note says so (gapsNote).
  */
 export function checkDiscountSweep(
   context: AssessmentContext, works: readonly CandidateWork[], settings: readonly number[], projectIndex: number,
-  values: readonly (readonly (number | null)[])[], converged: readonly (readonly boolean[])[], check: SweepCheckSettings,
+  points: readonly (readonly LinearReplicate[])[], check: SweepCheckSettings,
 ): SweepCheck {
   const { plan } = context, e = plan.episodes.episodes, b = Math.min(SWEEP_CHECK_RESAMPLES, check.resamples);
   const marks = works.map(() => settings.map(() => false)), warnings: AssessmentWarning[][] = works.map(() => []);
   const bounds = rewardRange(plan), skipped: { name: string; reason: SkipReason }[] = [], partly: { name: string; pairs: number }[] = [];
+  const gaps: { name: string; at: number[] }[] = [];
   if (bounds === null) return { marks, warnings, note: unboundedNote(plan) };
   const draws = Array.from({ length: b }, (_, r) => episodeMultiplicities(e, check.seed, r));
   works.forEach((w, c) => {
@@ -71,19 +74,26 @@ export function checkDiscountSweep(
     if (!linear || linear.resampling.kind !== 'exact') return void skipped.push({ name: w.model.name, reason: 'linearised' });
     if (b < SWEEP_CHECK_MIN_PAIRED) return void skipped.push({ name: w.model.name, reason: 'resamples' });
     const d = linear.features.dim;
-    if ((e * d * d + settings.length * d ** 3) * b > SWEEP_CHECK_BUDGET) return void skipped.push({ name: w.model.name, reason: 'budget' });
+    // A resample's solve at a discount: the fixed point (d³) and the iteration that must reach it (rule of reachedSolve), counted at the
+    // steps the full data's own iteration took there (a resample's starts from the full data's answer, nearer its own).
+    const steps = points[c].reduce((sum, p) => sum + (p.iterations ?? 0), 0);
+    if ((e * d * d + settings.length * d ** 3 + steps * d * d) * b > SWEEP_CHECK_BUDGET) return void skipped.push({ name: w.model.name, reason: 'budget' });
     const setup: LinearReplicateSetup = {
       ...linearSolveSettings(plan, w.model), sums: linear.resampling.sums, startFeatures: linear.startFeatures,
       startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode,
     };
+    const own = points[c], values = own.map((p) => (p.status === 'converged' ? p.policyValue : null));
+    const starts = own.map((p, k) => (values[k] === null ? null : p.weights));
+    const missing = settings.flatMap((_, k) => (values[k] === null ? [k] : []));
+    if (missing.length) gaps.push({ name: w.model.name, at: missing });
     const scratch = Array.from({ length: RESAMPLE_BLOCK }, () => new Float64Array(setup.sums.stride)), replicates: (number | null)[][] = [];
-    for (let first = 0; first < b; first += RESAMPLE_BLOCK) replicates.push(...linearFqeReplicateDiscounts(setup, draws.slice(first, first + RESAMPLE_BLOCK), scratch, settings));
+    for (let first = 0; first < b; first += RESAMPLE_BLOCK) replicates.push(...linearFqeReplicateDiscounts(setup, draws.slice(first, first + RESAMPLE_BLOCK), scratch, settings, starts));
     const found: Failing[] = [];
     let thin = 0;
     for (let i = 0; i < settings.length; i++) {
       for (let j = i + 1; j < settings.length; j++) {
-        const vi = values[c][i], vj = values[c][j];
-        if (vi === null || vj === null || !converged[c][i] || !converged[c][j]) continue;
+        const vi = values[i], vj = values[j];
+        if (vi === null || vj === null) continue; // a point without a J takes no part (gapsNote says so)
         const changes = replicates.flatMap((r) => (r[i] === null || r[j] === null ? [] : [r[j]! - r[i]!]));
         if (changes.length < SWEEP_CHECK_MIN_PAIRED) {
           thin++; // said in the note: a pair left unchecked must not read as one that passed
@@ -96,12 +106,14 @@ export function checkDiscountSweep(
     }
     if (thin) partly.push({ name: w.model.name, pairs: thin });
     marks[c] = fewestWrong(found.map((f) => f.pair), settings.length, projectIndex);
-    const own = found.filter((f) => f.pair.earlier === projectIndex || f.pair.later === projectIndex);
+    const holding = found.filter((f) => f.pair.earlier === projectIndex || f.pair.later === projectIndex);
     // The pair said is the one the reader most needs: one holding the project's own J, else any; of those the nearest to the project's discount.
-    const said = (own.length ? own : found).reduce<Failing | null>((x, y) => (x === null || near(y.pair, projectIndex) < near(x.pair, projectIndex) ? y : x), null);
-    if (said) warnings[c].push(sweepWarning(plan, settings, values[c], said, own.length > 0, found.length, check.level, bounds));
+    const said = (holding.length ? holding : found).reduce<Failing | null>((x, y) => (x === null || near(y.pair, projectIndex) < near(x.pair, projectIndex) ? y : x), null);
+    if (said) warnings[c].push(sweepWarning(plan, settings, values, said, holding.length > 0, found.length, check.level, bounds));
   });
-  const notes = [...(skipped.length ? [notCheckedNote(plan, skipped, works.length, b)] : []), ...partly.map((x) => partlyCheckedNote(x.name, x.pairs, b))];
+  const notes = [
+    ...(skipped.length ? [notCheckedNote(plan, skipped, works.length, b)] : []), ...gaps.map((x) => gapsNote(x.name, x.at, settings)), ...partly.map((x) => partlyCheckedNote(x.name, x.pairs, b)),
+  ];
   return { marks, warnings, note: notes.length ? notes.join(' ') : null };
 }
 
@@ -154,9 +166,16 @@ function notCheckedNote(plan: EvaluationPlan, skipped: readonly { name: string; 
   return `The discount sweep of ${who(skipped.map((x) => x.name))} is not checked against what the ${plan.sense === 'cost' ? 'costs' : 'rewards'} allow: ${why}.`;
 }
 
-/** Pairs whose solves gave a J at both discounts on too few resamples (a solve that did not converge, a resample without start states). */
+/** Swept discounts whose full-data point has no J (the iteration does not reach it, or no solution): no pair holding one is checked. */
+function gapsNote(name: string, at: readonly number[], settings: readonly number[]): string {
+  const list = at.map((k) => discountText(settings[k])), one = at.length === 1;
+  const words = one ? list[0] : `${list.slice(0, -1).join(', ')} and ${list[list.length - 1]}`;
+  return `The discount sweep of “${name}” is checked without γ ${words}: the fitted Q-evaluation iteration does not reach a J there (${one ? 'a gap' : 'gaps'} in the figure), so no pair holding ${one ? 'it' : 'one of them'} is checked.`;
+}
+
+/** Pairs whose solves gave a J at both discounts on too few resamples (the iteration did not reach the solve, a resample without start states). */
 function partlyCheckedNote(name: string, pairs: number, resamples: number): string {
-  return `The discount sweep of “${name}” is checked only in part: for ${pairs === 1 ? 'one pair' : `${pairs} pairs`} of swept discounts fewer than ${SWEEP_CHECK_MIN_PAIRED} of the ${resamples} resamples of the runs gave a J at both (a solve that did not converge, or a resample without start states), and ${pairs === 1 ? 'that pair is' : 'those pairs are'} not checked.`;
+  return `The discount sweep of “${name}” is checked only in part: for ${pairs === 1 ? 'one pair' : `${pairs} pairs`} of swept discounts fewer than ${SWEEP_CHECK_MIN_PAIRED} of the ${resamples} resamples of the runs gave a J at both (the fitted Q-evaluation iteration did not reach it, or a resample without start states), and ${pairs === 1 ? 'that pair is' : 'those pairs are'} not checked.`;
 }
 
 function sweepWarning(

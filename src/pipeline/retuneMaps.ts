@@ -35,7 +35,7 @@ import { intervalEstimate } from './assessIntervals';
 import { candidatePolicy } from './candidatePolicy';
 import { featureMapFor } from './plan/featureMapFor';
 import type { EvaluationPlan } from './plan/evaluationPlan';
-import { quadratureProblem } from './plan/planPolicies';
+import { quadratureProblem } from '../core/fqe/solveSettingChecks';
 import { isEngineError } from './engineErrors';
 import { shiftOf } from './assessDiagnostics';
 import { certainEnds, cutToCertain } from './assessPossible';

@@ -28,5 +28,5 @@ describe('the sensitivity sweep’s refit pass', () => {
     const stopping: AssessmentContext = { ...base, cancel: () => stopped, pace: async () => { stopped = true; } };
     await expect(sensitivity(stopping, [candidateWork(stopping, run.models[0])], -1, check)).rejects.toThrow(FqeCancelledError);
     run.dispose();
-  });
+  }, 600_000); // the sweep's paired check runs the iteration on every resample (assessSweepCheck.ts): minutes on a loaded machine, like the other sweep tests
 });

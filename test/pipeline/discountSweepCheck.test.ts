@@ -58,6 +58,8 @@ describe('the discount sweep against what the per-step values allow', () => {
     const curve = assessment.sensitivity!.curves.find((c) => c.parameter === 'discount')!;
     // The check ran (a sweep left unchecked would cross nothing either): no note says it was not checked.
     expect(assessment.sensitivity!.notes.filter((n) => /not checked/.test(n))).toEqual([]);
+    // Every swept point and every resample reached by the iteration (the sweep's rule, reachedSolve): no gap, no pair checked only in part.
+    expect(assessment.sensitivity!.notes.filter((n) => /checked without|checked only in part/.test(n))).toEqual([]);
     expect(curve.leftOut).toBeUndefined();
     expect(curve.series.every((s) => !s.beyondPossible)).toBe(true);
     expect(assessment.candidates.flatMap((c) => c.warnings).filter((w) => w.topic === SWEEP_CHECK_TOPIC)).toEqual([]);
@@ -114,7 +116,7 @@ describe('the discount sweep against what the per-step values allow', () => {
     // so of 120 resamples about 77 give a J at all — fewer than the 100 a pair needs. Before, nothing said the sweep went unchecked.
     const toRunZero = (plan: Plan) => ({ ...plan, starts: { ...plan.starts, followEpisodes: true, episode: new Int32Array(plan.starts.count) } });
     const { sensitivity: swept, names } = await sweepHeating(toRunZero, { level: 0.9, seed: 1, resamples: 120 }, 1);
-    expect(swept.notes[0]).toBe(`The discount sweep of “${names[0]}” is checked only in part: for 10 pairs of swept discounts fewer than 100 of the 120 resamples of the runs gave a J at both (a solve that did not converge, or a resample without start states), and those pairs are not checked.`);
+    expect(swept.notes[0]).toBe(`The discount sweep of “${names[0]}” is checked only in part: for 10 pairs of swept discounts fewer than 100 of the 120 resamples of the runs gave a J at both (the fitted Q-evaluation iteration did not reach it, or a resample without start states), and those pairs are not checked.`);
   }, 600_000);
 
   it('names a declared column’s bounds as the project’s word, not as what holds whatever the plant does', async () => {

@@ -55,6 +55,8 @@ export interface LinearReplicate {
   readonly policyValue: number | null;
   readonly weights: Float64Array | null;
   readonly status: ReplicateStatus;
+  /** Steps of the fitted Q-evaluation iteration run for it (0 where none ran: solved at its fixed point only, or no solution). */
+  readonly iterations?: number;
 }
 
 export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: ArrayLike<number>, scratch: Float64Array = new Float64Array(setup.sums.stride)): LinearReplicate {
@@ -72,16 +74,43 @@ export function linearFqeReplicateBlock(setup: LinearReplicateSetup, block: read
 
 /**
  * linearFqeReplicateBlock at several discounts: each resample's statistics, which do not depend on
- * γ, formed once and solved at each discount (for a discount sweep's paired changes). values[r][k]
- * is resample r's J at discounts[k]; null where that solve has no solution or did not converge.
+ * γ, formed once and solved at each discount (for a discount sweep's paired changes) by the sweep's
+ * own rule (reachedSolve). values[r][k] is resample r's J at discounts[k]; null where that solve has
+ * no solution or the iteration does not reach it, and at every discount whose startWeights[k] is
+ * null (the full data's own point there has no J, so no pair holds it).
+ *
+ * startWeights[k]: where the iteration at discounts[k] starts — the full data's weights at that
+ * discount. Whether an affine iteration w ← Aw + c reaches its fixed point does not depend on where it
+ * starts (it does from every start exactly when the spectral radius of A is below 1; common practice,
+ * e.g. Golub & Van Loan, "Matrix Computations", 4th ed., §11.2), so the verdict is the drawn point's
+ * rule; started near the resample's answer, it needs only the steps from there.
  */
 export function linearFqeReplicateDiscounts(
   setup: LinearReplicateSetup, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[], discounts: readonly number[],
+  startWeights: readonly (Float64Array | null)[],
 ): (number | null)[][] {
-  return replicateBlock(setup, block, scratch, (stats, xiBar) => discounts.map((discount) => {
-    const fit = solveReplicate({ ...setup, discount }, stats, xiBar);
+  return replicateBlock(setup, block, scratch, (stats, xiBar) => discounts.map((discount, k) => {
+    const from = startWeights[k];
+    if (!from) return null;
+    const fit = reachedSolve({ ...setup, discount, initialWeights: from }, stats, xiBar);
     return fit.status === 'converged' ? fit.policyValue : null;
   }), discounts.map(() => null));
+}
+
+/**
+ * A solve kept only where the fitted Q-evaluation iteration reaches it: the rule the project's own
+ * fit is judged by, one place for a discount sweep's drawn points (assessSensitivity.ts) and its
+ * paired check on resamples (assessSweepCheck.ts). A fit solved at its fixed point (the route of a
+ * converged fit's resamples) keeps that value only where the iteration from setup.initialWeights
+ * converges too; else no J, with the iteration's status. The fixed point exists wherever its
+ * equations are regular, reachable or not, so without this a discount where the iteration diverges
+ * would still give a number.
+ */
+export function reachedSolve(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
+  const fit = solveReplicate(setup, stats, xiBar);
+  if (setup.solver !== 'fixedPoint' || fit.status !== 'converged') return fit;
+  const iterated = solveReplicate({ ...setup, solver: 'iteration' }, stats, xiBar);
+  return iterated.status === 'converged' ? { ...fit, iterations: iterated.iterations } : { policyValue: null, weights: null, status: iterated.status, iterations: iterated.iterations };
 }
 
 function replicateBlock<T>(
@@ -104,7 +133,7 @@ export function solveReplicate(setup: LinearSolveSettings, stats: BellmanStatist
     if (error instanceof FqeDataError) return { policyValue: null, weights: null, status: 'singular' };
     throw error;
   }
-  let status: ReplicateStatus = 'converged', weights: Float64Array | null = null;
+  let status: ReplicateStatus = 'converged', weights: Float64Array | null = null, iterations = 0;
   if (setup.solver === 'iteration') {
     const outcome = runFqeIteration({
       stats, factor, discount: setup.discount, tolerance: setup.tolerance, maxIterations: setup.maxIterations,
@@ -113,11 +142,12 @@ export function solveReplicate(setup: LinearSolveSettings, stats: BellmanStatist
     });
     status = outcome.status;
     weights = outcome.weights;
+    iterations = outcome.history.length;
   }
   if (!weights) {
     const fixed = fixedPointWeights(stats, a, setup.discount);
-    if ('failure' in fixed) return { policyValue: null, weights: null, status: 'singular' };
+    if ('failure' in fixed) return { policyValue: null, weights: null, status: 'singular', iterations };
     weights = fixed.weights;
   }
-  return { policyValue: dot(xiBar, weights), weights, status };
+  return { policyValue: dot(xiBar, weights), weights, status, iterations };
 }

@@ -24,9 +24,13 @@ export interface PossibleChange {
   readonly upper: number;
 }
 
-/** The change J(later) − J(earlier) that rewards in [lo, hi] allow, reward sense; the discounts in either order. */
+/**
+ * The change J(later) − J(earlier) that rewards in [lo, hi] allow, reward sense; the discounts in either order,
+ * each in [0, 1): γ = 0 is J = m₀ (γ⁰ = 1), and the series' sum 1/(1 − γ) holds there too. A swept discount
+ * γ^(1/f) of a project's tiny γ (the schema takes any γ above 0) underflows to exactly 0.
+ */
 export function possibleChange(lo: number, hi: number, earlier: number, later: number, runsCanEnd = false): PossibleChange {
-  if (!(earlier > 0 && earlier < 1 && later > 0 && later < 1)) throw new RangeError(`possibleChange: discounts must lie in (0, 1), found ${earlier} and ${later}`);
+  if (!(earlier >= 0 && earlier < 1 && later >= 0 && later < 1)) throw new RangeError(`possibleChange: discounts must lie in [0, 1), found ${earlier} and ${later}`);
   const d = 1 / (1 - later) - 1 / (1 - earlier);
   const [a, b] = runsCanEnd ? [Math.min(0, lo), Math.max(0, hi)] : [lo, hi];
   // D < 0 when the later discount is the smaller: the ends swap.

@@ -5,6 +5,7 @@ import type { TransitionSet } from '../transitions';
 import type { CancellationCheck } from './cancellation';
 import type { FqeIterationProgress } from './fqeIteration';
 import { FqeOptionsError } from './fqeErrors';
+import { checkDiscount, checkMaxIterations, checkQuadratureNodes, checkRidge, checkTolerance } from './solveSettingChecks';
 
 export interface LinearFqeInput {
   readonly data: TransitionSet;
@@ -35,15 +36,11 @@ export function checkFqeInput(input: LinearFqeInput): void {
     throw new FqeOptionsError(`policy: has ${policy.stateDim} states and ${policy.actionDim} actions, the data ${ds} and ${m}`);
   }
   if (features.inputDim !== ds + m) throw new FqeOptionsError(`features: take ${features.inputDim} inputs, the data have ${ds} states + ${m} actions`);
-  if (!(input.discount >= 0 && input.discount <= 1)) throw new FqeOptionsError(`discount: expected a number from 0 to 1, got ${input.discount}`);
-  if (!(input.ridge >= 0) || !Number.isFinite(input.ridge)) throw new FqeOptionsError(`ridge: expected a number ≥ 0, got ${input.ridge}`);
-  if (!(input.tolerance > 0) || !Number.isFinite(input.tolerance)) throw new FqeOptionsError(`tolerance: expected a positive number, got ${input.tolerance}`);
-  if (!Number.isInteger(input.maxIterations) || input.maxIterations < 1) {
-    throw new FqeOptionsError(`maxIterations: expected a whole number ≥ 1, got ${input.maxIterations}`);
-  }
-  if (!Number.isInteger(input.quadratureNodes) || input.quadratureNodes < 1) {
-    throw new FqeOptionsError(`quadratureNodes: expected a whole number ≥ 1, got ${input.quadratureNodes}`);
-  }
+  checkDiscount(input.discount);
+  checkRidge(input.ridge);
+  checkTolerance(input.tolerance);
+  checkMaxIterations(input.maxIterations);
+  checkQuadratureNodes(policy, input.quadratureNodes);
   const w0 = input.initialWeights;
   if (w0 && (w0.length !== features.dim || !Array.from(w0).every(Number.isFinite))) {
     throw new FqeOptionsError(`initialWeights: expected ${features.dim} finite numbers (one per feature)`);

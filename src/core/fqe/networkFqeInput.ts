@@ -2,6 +2,7 @@
 import { FqeOptionsError } from './fqeErrors';
 import type { NetworkFqeInput } from './networkFqe';
 import { checkNetworkSettings } from './networkSettings';
+import { checkDiscount, checkQuadratureNodes } from './solveSettingChecks';
 import { SEED } from '../limits';
 
 export function checkNetworkFqeInput(input: NetworkFqeInput): void {
@@ -10,11 +11,8 @@ export function checkNetworkFqeInput(input: NetworkFqeInput): void {
   if (policy.stateDim !== data.stateDim || policy.actionDim !== data.actionDim) {
     throw new FqeOptionsError(`policy: has ${policy.stateDim} states and ${policy.actionDim} actions, the data ${data.stateDim} and ${data.actionDim}`);
   }
-  // γ = 1 has no finite value bound and no fixed output scale; the project schema also requires γ < 1.
-  if (!(input.discount >= 0 && input.discount < 1)) throw new FqeOptionsError(`discount: expected a number from 0 up to (not including) 1, got ${input.discount}`);
-  if (!Number.isInteger(input.quadratureNodes) || input.quadratureNodes < 1) {
-    throw new FqeOptionsError(`quadratureNodes: expected a whole number ≥ 1, got ${input.quadratureNodes}`);
-  }
+  checkDiscount(input.discount);
+  checkQuadratureNodes(policy, input.quadratureNodes);
   if (!Number.isInteger(input.seed) || input.seed < SEED.min || input.seed > SEED.max) {
     throw new FqeOptionsError(`seed: expected a whole number from ${SEED.min} to 2^32 − 1, got ${input.seed}`);
   }

@@ -26,6 +26,7 @@ import { bellmanResidual } from '../fqe/bellmanResidual';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { throwIfCancelled, type CancellationCheck } from '../fqe/cancellation';
 import { FqeOptionsError } from '../fqe/fqeErrors';
+import { checkDiscount, checkQuadratureNodes, checkRidge } from '../fqe/solveSettingChecks';
 import type { GaussianPolicy } from '../policy';
 import type { TransitionSet } from '../transitions';
 import { closedFormPointSums, MAX_CORRECTED_SHARE, rowsNearLimits } from './closedFormSums';
@@ -178,9 +179,9 @@ function checkInput(input: RetuneGridInput): void {
   policies.forEach((p, i) => {
     if (p.stateDim !== data.stateDim || p.actionDim !== data.actionDim) throw new FqeOptionsError(`policies[${i}]: has ${p.stateDim} states and ${p.actionDim} actions, the data ${data.stateDim} and ${data.actionDim}`);
   });
-  if (!(input.discount >= 0 && input.discount < 1)) throw new FqeOptionsError(`discount: expected a number from 0 to below 1, got ${input.discount}`);
-  if (!(input.ridge >= 0) || !Number.isFinite(input.ridge)) throw new FqeOptionsError(`ridge: expected a number ≥ 0, got ${input.ridge}`);
-  if (!Number.isInteger(input.quadratureNodes) || input.quadratureNodes < 1) throw new FqeOptionsError(`quadratureNodes: expected a whole number ≥ 1, got ${input.quadratureNodes}`);
+  checkDiscount(input.discount);
+  checkRidge(input.ridge);
+  policies.forEach((p) => checkQuadratureNodes(p, input.quadratureNodes));
   const starts = input.startStates ?? data.startStates;
   if (starts.length < data.stateDim || starts.length % data.stateDim !== 0) throw new FqeOptionsError(`startStates: expected whole rows of ${data.stateDim} values`);
 }

@@ -4,8 +4,8 @@
  * most MAX_BOUNDED_NORMAL_NODES nodes per action, and no rule may put more than MAX_QUADRATURE_POINTS
  * points on one state. A candidate that breaks either is refused with its name and the setting.
  */
-import { MAX_BOUNDED_NORMAL_NODES, MAX_QUADRATURE_POINTS } from '../../core/limits';
-import { hasActionLimits, PolicyError, type GaussianPolicy } from '../../core/policy';
+import { quadratureProblem } from '../../core/fqe/solveSettingChecks';
+import { PolicyError, type GaussianPolicy } from '../../core/policy';
 import { failure, success, type Problem, type Result } from '../../core/result';
 import type { TransitionSet } from '../../core/transitions';
 import type { ProjectDocument } from '../../project/schema';
@@ -29,19 +29,4 @@ export function planPolicies(project: ProjectDocument, data: TransitionSet): Res
     else planned.push({ index, name: candidate.name, policy });
   });
   return problems.length ? failure(...problems) : success(planned);
-}
-
-/** Why the action quadrature cannot be built for this policy with n nodes per action, or null. */
-export function quadratureProblem(policy: GaussianPolicy, n: number): string | null {
-  const bounded = hasActionLimits(policy);
-  if (bounded && n > MAX_BOUNDED_NORMAL_NODES) {
-    return `${n} nodes per action: with actuator limits at most ${MAX_BOUNDED_NORMAL_NODES} are supported (the bounded-normal rule keeps its accuracy up to there); use ${MAX_BOUNDED_NORMAL_NODES} or fewer`;
-  }
-  const points = (bounded ? n + 2 : n) ** policy.actionDim;
-  if (points > MAX_QUADRATURE_POINTS) {
-    const largest = Math.floor(MAX_QUADRATURE_POINTS ** (1 / policy.actionDim) + 1e-9) - (bounded ? 2 : 0);
-    return `${n} nodes per action on ${policy.actionDim} actions make ${points.toLocaleString('en-US')} points per state, above the ` +
-      `${MAX_QUADRATURE_POINTS.toLocaleString('en-US')} a data pass can afford; use at most ${largest} nodes per action`;
-  }
-  return null;
 }

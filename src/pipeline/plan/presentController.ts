@@ -9,7 +9,7 @@
 import { BehaviourModelError } from '../../core/behaviourModel';
 import { fittedBehaviourPolicy, type DeclaredActionBounds, type FittedBehaviour } from '../../core/offPolicy/behaviourPolicy';
 import type { TransitionSet } from '../../core/transitions';
-import { quadratureProblem } from './planPolicies';
+import { quadratureProblem } from '../../core/fqe/solveSettingChecks';
 import type { PlannedPolicy } from './planTypes';
 
 export const PRESENT_CONTROLLER_NAME = 'present controller (model fitted to the log)';

@@ -91,6 +91,14 @@ describe('the change of J with the discount that bounded rewards allow', () => {
     expect(changeIntervalImpossible(3.01, 4, range)).toBe(false);
     expect(() => possibleChange(0, 1, 1, 0.9)).toThrow(RangeError);
   });
+
+  it('takes a discount of exactly 0, where a tiny project discount’s swept γ^2 underflows', () => {
+    // A project with γ = 1e−200 (the schema takes any γ above 0) swept to γ^(1/0.5) = 1e−400 = 0 in doubles; the check stopped the
+    // command line with an internal error (exit 70). At γ = 0, J = m₀; from 0 to 0.5, D = 1/(1 − 0.5) − 1/(1 − 0) = 1 (by hand).
+    expect((1e-200) ** 2).toBe(0);
+    expect(possibleChange(2, 5, 0, 0.5)).toEqual({ lower: 2, upper: 5 });
+    expect(possibleChange(2, 5, 0.5, 0)).toEqual({ lower: -5, upper: -2 });
+  });
 });
 
 describe('which swept points are marked when failing pairs do not say which value is wrong', () => {

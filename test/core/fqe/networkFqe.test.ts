@@ -256,8 +256,8 @@ describe('fitNetworkFqe input checks', () => {
   });
 
   it.each([
-    [{ discount: 1 }, /discount: expected a number from 0 up to \(not including\) 1, got 1/],
-    [{ quadratureNodes: 0 }, /quadratureNodes: expected a whole number ≥ 1, got 0/],
+    [{ discount: 1 }, /discount: expected a number above 0 and below 1, got 1/],
+    [{ quadratureNodes: 0 }, /quadratureNodes: expected a whole number from 1 to 64, got 0/],
     [{ seed: -3 }, /seed: expected a whole number from 0 to 2\^32 − 1, got -3/],
     [{ policy: createGaussianPolicy({ offset: [1], gain: [[1]], std: [1] }, 1) }, /policy: has 1 states and 1 actions, the data 2 and 1/],
   ] as [Partial<NetworkFqeInput>, RegExp][])('input %#', async (extra, message) => {
