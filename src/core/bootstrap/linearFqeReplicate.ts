@@ -98,19 +98,28 @@ export function linearFqeReplicateDiscounts(
 }
 
 /**
- * A solve kept only where the fitted Q-evaluation iteration reaches it: the rule the project's own
- * fit is judged by, one place for a discount sweep's drawn points (assessSensitivity.ts) and its
- * paired check on resamples (assessSweepCheck.ts). A fit solved at its fixed point (the route of a
- * converged fit's resamples) keeps that value only where the iteration from setup.initialWeights
- * converges too; else no J, with the iteration's status. The fixed point exists wherever its
- * equations are regular, reachable or not, so without this a discount where the iteration diverges
- * would still give a number.
+ * A solve kept only where the fitted Q-evaluation iteration reaches it, by the rule the project's own
+ * fit is judged by (pipeline/model/reportedSolution.ts): the iteration meets its tolerance, or it
+ * provably contracts (a spectral-radius bound of its matrix below 1, spectralRadiusBound.ts), in
+ * which case its limit is the fixed point from every start (Banach; Golub & Van Loan, "Matrix
+ * Computations", 4th ed., §11.2) and no step need be run. One place for a discount sweep's drawn
+ * points (assessSensitivity.ts) and its paired check on resamples (assessSweepCheck.ts). A fit solved
+ * at its fixed point (the route of a converged fit's resamples) keeps that value only where one of the
+ * two holds, the iteration from setup.initialWeights run only where no contraction is proved; else no
+ * J, with the iteration's status. The fixed point exists wherever its equations are regular, reachable
+ * or not, so without this a discount where the iteration diverges would still give a number.
  */
 export function reachedSolve(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
   const fit = solveReplicate(setup, stats, xiBar);
-  if (setup.solver !== 'fixedPoint' || fit.status !== 'converged') return fit;
+  if (setup.solver !== 'fixedPoint' || fit.status !== 'converged' || provablyContracts(setup, stats)) return fit;
   const iterated = solveReplicate({ ...setup, solver: 'iteration' }, stats, xiBar);
   return iterated.status === 'converged' ? { ...fit, iterations: iterated.iterations } : { policyValue: null, weights: null, status: iterated.status, iterations: iterated.iterations };
+}
+
+/** True when the FQE iteration on these statistics provably contracts: the bound on its matrix's spectral radius is below 1. */
+function provablyContracts(setup: LinearSolveSettings, stats: BellmanStatistics): boolean {
+  const d = stats.dim, factor = ridgeGramFactor(ridgeGram(stats, setup.ridge, setup.constantIndex), d, setup.ridge);
+  return spectralRadiusBound(iterationMatrix(stats, factor, setup.discount), d) < 1;
 }
 
 function replicateBlock<T>(
