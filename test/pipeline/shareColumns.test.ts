@@ -114,12 +114,15 @@ describe('a share below 1 never reads 100 %, alone or in a column', () => {
 });
 
 /**
- * The report's standard errors at two significant digits with their trailing zero: 0.9 is "0.90" under
- * "0.15" (JCGM 100:2008 §7.2.6 gives an uncertainty to at most two significant digits —
- * common practice; the heating-loop sample's table read "0.15, 0.9, 0.97"). The errors are invented.
+ * The report's standard errors are written at the decimal place of their row's interval, as the value
+ * and the interval's ends are (figures/parts/uncertainNumber.ts valueInInterval: the place that gives
+ * the interval's width three significant digits), trailing zeros kept, so a column never mixes "0.9"
+ * with "0.15" (the heating-loop sample's table once read "0.15, 0.9, 0.97"). JCGM 100:2008 §7.2.6
+ * (common practice): the estimate and its uncertainty are given to the same place, without excess
+ * digits. Here every interval is ±0.2 (0.400 wide: three decimals). The errors are invented.
  */
-describe('the report’s s.e. column keeps two significant digits', () => {
-  it('reads 0.15 above 0.90 in the table of candidates against each other, and 1.0 for a J', () => {
+describe('the report’s s.e. column is written at its row’s interval’s place', () => {
+  it('reads 0.150 above 0.900 in the table of candidates against each other, and 1.000 for a J', () => {
     const withErrors = {
       ...assessment,
       candidates: assessment.candidates.map((c, i) => (i === 0 ? { ...c, policyValue: { ...c.policyValue, standardError: 1 } } : c)),
@@ -131,7 +134,7 @@ describe('the report’s s.e. column keeps two significant digits', () => {
     const html = comparisonSection({ assessment: withErrors, evaluation: { valueSense: 'cost', behaviour: { meanTruncationWeight: 0.2 } }, project: { columns: { reward: {} } } } as unknown as ReportInput, { next: () => 1 } as never).html;
     const pairwise = html.slice(html.indexOf('Candidates against each other'));
     const errors = [...pairwise.matchAll(/<tr><td>[^<]*<\/td><td class="num">[^<]*<\/td><td class="num">([^<]*)<\/td>/g)].map((m) => m[1]);
-    expect(errors).toEqual(['0.15', '0.90']);
-    expect(html).toMatch(/<td>A<\/td><td class="num">5\.000<\/td><td class="num">1\.0<\/td>/);
+    expect(errors).toEqual(['0.150', '0.900']);
+    expect(html).toMatch(/<td>A<\/td><td class="num">5\.000<\/td><td class="num">1\.000<\/td>/);
   });
 });
