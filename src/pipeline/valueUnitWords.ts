@@ -13,3 +13,12 @@ export function valueUnitWords(unit: string | null | undefined): string {
   const u = unit?.trim() ?? '';
   return u ? `in ${u}` : NO_UNIT_GIVEN;
 }
+
+/**
+ * A table's column head for J (or a value in J's unit): "J (€)" where the project gives the unit, the
+ * head alone where it gives none — then the sentence above the table says "no unit given".
+ */
+export function valueColumnHead(head: string, unit: string | null | undefined): string {
+  const u = unit?.trim() ?? '';
+  return u ? `${head} (${u})` : head;
+}
