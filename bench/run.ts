@@ -16,6 +16,8 @@
  *                                 1,000,000 transitions, wall and CPU (bench/buildPairsBench.ts)
  *   npm run bench -- import-pairs <before folder> [pairs]   two copies of the import's sources in alternating pairs:
  *                                 the tank log (beside numpy.loadtxt) and the peer's open, 1,000,000 rows (bench/importPairsBench.ts)
+ *   npm run bench -- inspect-pairs <before folder> [pairs] [csv]   two copies of the app worker's first look at a data
+ *                                 file (setData) in alternating pairs, the peer's 1,000,000-row log (bench/inspectionPairsBench.ts)
  *   npm run bench -- battery [options]   the battery sweep of the network and linear estimators
  *                                 (bench/batteryBench.ts; long: run it under `nice`)
  *   npm run bench -- battery-table f.json …   the network interval without and with the class-error
@@ -108,5 +110,8 @@ else if (args[0] === 'build-pairs') {
 } else if (args[0] === 'import-pairs') {
   const figures = (await import('./importPairsBench')).runImportPairsBench(resolve(args[1] ?? ''), args[2] ? Number(args[2]) : undefined);
   for (const [key, value] of Object.entries(figures)) console.log(`  ${key.padEnd(52)} ${format(value)}`);
+} else if (args[0] === 'inspect-pairs') {
+  const figures = (await import('./inspectionPairsBench')).runInspectionPairsBench(resolve(args[1] ?? ''), args[2] ? Number(args[2]) : undefined, args[3]);
+  for (const [key, value] of Object.entries(figures)) console.log(`  ${key.padEnd(44)} ${format(value)}`);
 } else if (args[0] === 'battery-table') (await import('./batteryAllowanceTable')).printAllowanceTableOf(args.slice(1));
 else parent(args);

@@ -26,6 +26,16 @@ export function sampleRecords(text: string, delimiter: Delimiter, records = SAMP
   return parsed.data;
 }
 
+/**
+ * True when `text`, the head of a longer text, decides the dialect as the whole would: it holds
+ * one record past the sample for every delimiter resolveDialect may try, so each sampled record
+ * ended before the head did (a record cut by the head's end is always the last one parsed).
+ */
+export function headHoldsSample(text: string, delimiter: Delimiter | 'auto'): boolean {
+  const tried = delimiter === 'auto' ? DELIMITERS : [delimiter];
+  return tried.every((d) => sampleRecords(text, d, SAMPLE_RECORDS + 1).length > SAMPLE_RECORDS);
+}
+
 export function detectDelimiter(text: string): Delimiter {
   let best: Delimiter = ',';
   let bestScore = -Infinity;

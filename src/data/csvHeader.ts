@@ -11,6 +11,12 @@ import { formatCount } from './reportFormat';
 /** Limits of a header line (choices: far above any plant log's, far below what hurts). */
 export const MAX_HEADER_BYTES = 1 << 20;
 export const MAX_COLUMNS = 10_000;
+/**
+ * Bytes of a file's head: a header of the longest length allowed with room to spare, and the
+ * dialect's sample (sourceBytes.ts sampleText). The import reads a large file's header from it
+ * (csvTable.ts) and the app's first look decodes no more than it (dataInspection.ts).
+ */
+export const HEAD_BYTES = 2 * MAX_HEADER_BYTES;
 
 export type CsvHeader =
   | { ok: true; names: string[]; dataStart: number; firstDataLine: number }

@@ -21,7 +21,7 @@ import { isBlank } from './cellText';
 import { planColumns, type ColumnPlan } from './columnPlan';
 import { readColumnsSteps, type TableColumns } from './columnReader';
 import { resolveDialect, type Dialect } from './csvDialect';
-import { readHeader } from './csvHeader';
+import { HEAD_BYTES, readHeader } from './csvHeader';
 import { importProblem } from './importProblem';
 import { RowProblems } from './rowProblems';
 import { SAMPLE_BYTES, sampleText, sourceBytes } from './sourceBytes';
@@ -30,7 +30,6 @@ import { ByteWindow } from './byteWindow';
 import { pieceFactsSteps } from './pieceFacts';
 import { isPieceSource, PieceReadError, pieceReadProblem, readFully, readWhole, type PieceSource } from './pieceSource';
 import { recordBound } from './csvScanner';
-import { MAX_HEADER_BYTES } from './csvHeader';
 import { STREAM_WINDOW_BYTES } from '../core/limits';
 
 /** A data file's bytes handed over to the import, which empties the holder (see above). */
@@ -46,8 +45,7 @@ export interface PieceSizes {
   readonly window: number;
 }
 
-/** The head holds a header of the longest length allowed with room to spare, and the dialect's sample (sourceBytes.ts sampleText). */
-const PIECE_SIZES: PieceSizes = { head: 2 * MAX_HEADER_BYTES, window: STREAM_WINDOW_BYTES };
+const PIECE_SIZES: PieceSizes = { head: HEAD_BYTES, window: STREAM_WINDOW_BYTES };
 
 export interface CsvTable {
   table: TableColumns;

@@ -22,16 +22,21 @@ const CHUNK = 1 << 20;
 export function sourceBytes(source: string | Uint8Array): SourceBytes {
   if (typeof source === 'string') return { ok: true, bytes: new TextEncoder().encode(source.replace(/^\uFEFF/, '')), start: 0, encoding: 'UTF-8', how: 'detected' };
   const marked = source[0] === 0xef && source[1] === 0xbb && source[2] === 0xbf;
-  const utf16Mark = (source[0] === 0xff && source[1] === 0xfe) || (source[0] === 0xfe && source[1] === 0xff);
-  if (!utf16Mark && (isAsciiWithoutZero(source) || (source.indexOf(0) < 0 && validUtf8(source)))) {
-    return { ok: true, bytes: source, start: marked ? 3 : 0, encoding: 'UTF-8', how: marked ? 'byte-order mark' : 'detected' };
-  }
+  if (isPlainUtf8(source)) return { ok: true, bytes: source, start: marked ? 3 : 0, encoding: 'UTF-8', how: marked ? 'byte-order mark' : 'detected' };
   const text = sourceText(source);
   if (!text.ok) return { ok: false, kind: 'not-utf8', reason: text.reason };
   return { ok: true, bytes: new TextEncoder().encode(text.text), start: 0, encoding: text.encoding, how: text.how };
 }
 
-/** No byte has its high bit set: four bytes at a time over the aligned middle. */
+/**
+ * True when the text reader would read these bytes as UTF-8 (sourceText.ts: no UTF-16 mark, no
+ * zero byte, valid UTF-8, with or without its mark), found without decoding the whole file.
+ */
+export function isPlainUtf8(source: Uint8Array): boolean {
+  const utf16Mark = (source[0] === 0xff && source[1] === 0xfe) || (source[0] === 0xfe && source[1] === 0xff);
+  return !utf16Mark && (isAsciiWithoutZero(source) || (source.indexOf(0) < 0 && validUtf8(source)));
+}
+
 /**
  * True when every byte is below 0x80 and none is 0 — one pass over 32-bit words for both tests: a
  * set high bit anywhere, and a zero byte by the word test (v − 0x01010101) & ~v & 0x80808080 ≠ 0,

@@ -72,7 +72,7 @@ function decode(b: Uint8Array, encoding: TextEncodingName, how: 'byte-order mark
   }
 }
 
-function stripByteOrderMark(text: string): string {
+export function stripByteOrderMark(text: string): string {
   return text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
 }
 

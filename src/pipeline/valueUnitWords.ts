@@ -18,3 +18,12 @@ export function valueUnitWords(unit: string | null | undefined): string {
 export function valueSenseSentence(sense: 'cost' | 'reward', unit: string | null | undefined): string {
   return `J is the expected discounted ${sense} from the start states on, ${valueUnitWords(unit)} (${sense === 'cost' ? 'lower' : 'higher'} is better)`;
 }
+
+/**
+ * A table's column head for J (or a value in J's unit): "J (€)" where the project gives the unit, the
+ * head alone where it gives none — then the sentence above the table says "no unit given".
+ */
+export function valueColumnHead(head: string, unit: string | null | undefined): string {
+  const u = unit?.trim() ?? '';
+  return u ? `${head} (${u})` : head;
+}

@@ -4,7 +4,7 @@ import { FIT_STATUS_WORDS } from '../../core/fqe/fitStatus';
 import { html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../figures/parts/uncertainNumber';
 import { senseWords, valueAxisLabel, valueUnit, type FigureCounter, type ReportInput } from './reportInput';
-import { valueUnitWords } from '../valueUnitWords';
+import { valueColumnHead, valueUnitWords } from '../valueUnitWords';
 import { intervalChart, intervalChartHeight, type IntervalRowData } from '../../figures/charts/intervalChart';
 import { LOGGED_RETURN, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../../figures/parts/plotTheme';
 import { policyLabel } from '../policyNames';
@@ -38,7 +38,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
   const chartRows: IntervalRowData[] = rows.map((r) => ({ label: r.name, value: r.estimate.value, interval: r.estimate.percentile, present: r.present }));
   return html`<p>J is the ${words.value}, ${valueUnitWords(valueUnit(input))} (${words.better}), the mean of ${raw('V<sup>π</sup>')} over the start states. ${baseline.note}
       Intervals are ${level} bootstrap intervals over runs; “minus baseline” is the paired difference J − J(baseline) on the same resamples.</p>
-    <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">Bootstrap s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th>
+    <table><thead><tr><th>Policy</th><th class="num">${valueColumnHead('J', valueUnit(input))}</th><th class="num">Bootstrap s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th>
       <th class="num">Minus baseline</th><th class="num">${level} interval of the difference</th><th class="num">Better than the baseline in</th></tr></thead><tbody>
     ${rows.map((r, i) => {
       const d = differenceOf[i];
@@ -98,7 +98,7 @@ function pairwise(a: Assessment, level: string): Html {
 function pointComparison(input: ReportInput): Html {
   const e = input.evaluation;
   return html`<p>Point estimates only (no intervals: ${input.assessmentProblems.join('; ')}). The ± column covers start-state sampling only.</p>
-    <table><thead><tr><th>Policy</th><th class="num">J</th><th class="num">± s.e.</th><th>Fit</th></tr></thead><tbody>
+    <table><thead><tr><th>Policy</th><th class="num">${valueColumnHead('J', valueUnit(input))}</th><th class="num">± s.e.</th><th>Fit</th></tr></thead><tbody>
     ${e.policies.map((p) => html`<tr><td>${p.name}</td>${errorCells(p.policyValue, p.standardError)}<td>${FIT_STATUS_WORDS[p.status]}</td></tr>`)}
     <tr><td>${LOGGED_RETURN}</td>${errorCells(e.behaviour.value, e.behaviour.standardError)}<td>${e.behaviour.episodes} runs</td></tr>
     </tbody></table>`;

@@ -9,7 +9,8 @@ import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
 import { html, raw, type Html } from './htmlText';
 import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
-import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
+import { senseWords, valueAxisLabel, valueUnit, type FigureCounter, type ReportInput } from './reportInput';
+import { valueColumnHead } from '../valueUnitWords';
 import { shareText, sharesText } from '../../core/shareText';
 import { unvisitedSentence } from '../unvisitedWords';
 import { typesetText } from '../../core/typesetText';
@@ -95,7 +96,7 @@ export function crossChecksSection(input: ReportInput, figures: FigureCounter): 
       const rows = [{ label: 'Fitted Q-evaluation', value: c.policyValue.value, interval: c.policyValue.percentile },
         ...c.crossChecks.filter((x) => x.estimate).map((x) => ({ label: x.label, value: x.estimate!.value, interval: x.estimate!.percentile }))];
       return html`<h3>${c.name}</h3>
-        <table><thead><tr><th>Method</th><th class="num">J</th><th class="num">s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th><th class="num">− FQE (${level})</th><th>Verdict</th></tr></thead><tbody>
+        <table><thead><tr><th>Method</th><th class="num">${valueColumnHead('J', valueUnit(input))}</th><th class="num">s.e.</th><th class="num">${level} interval (percentile)</th><th class="num">${level} interval (basic)</th><th class="num">− FQE (${level})</th><th>Verdict</th></tr></thead><tbody>
         <tr><td>Fitted Q-evaluation</td>${estimateCells(c.policyValue)}<td></td><td></td></tr>
         ${c.crossChecks.map((x) => html`<tr><td>${x.label}</td>${x.estimate ? estimateCells(x.estimate, c.policyValue.percentile) : html`<td class="num">—</td><td></td><td></td><td></td>`}
           <td class="num">${x.difference ? html`${valueAtPrecision(x.difference.value, x.difference.percentile)}<br/>${intervalAtPrecision(x.difference.percentile)}` : ''}</td>

@@ -17,7 +17,8 @@ import { escapeHtml, html, raw, type Html } from './htmlText';
 import { shiftText } from '../../core/diagnostics/shiftText';
 import { intervalAtPrecision, valueAtPrecision, valueInInterval } from '../../figures/parts/uncertainNumber';
 import { gridPointLabels, tuningValueTexts } from '../../figures/parts/tickFormat';
-import { senseWords, valueAxisLabel, type FigureCounter, type ReportInput } from './reportInput';
+import { senseWords, valueAxisLabel, valueUnit, type FigureCounter, type ReportInput } from './reportInput';
+import { valueColumnHead } from '../valueUnitWords';
 
 /** The figure's width in CSS px: the report's text column (reportStyles.ts, 980 px less padding). */
 const MAP_WIDTH_PX = 720;
@@ -50,7 +51,7 @@ export function retuneSection(input: ReportInput, figures: FigureCounter): Html 
       The table under each figure gives the same numbers with their intervals:
       <span class="retune-supported">unshaded</span>: the logs support the estimate; <span class="retune-caution">light</span>: thin logs (caution);
       <span class="retune-serious">dark</span>: beyond the logs (serious).</p>
-    ${maps.map((m, i) => html`${mapFigure(input, m, i, figures.next())}${mapTable(m)}`)}</section>`;
+    ${maps.map((m, i) => html`${mapFigure(input, m, i, figures.next())}${mapTable(m, valueUnit(input))}`)}</section>`;
 }
 
 /** "proportional gain K_c (%/°C)" with its symbol's subscript set as HTML. */
@@ -73,7 +74,7 @@ function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: n
     hatched: not supported by the logs; outlined: the best supported point${map.presentController === null ? '' : '; dashed: the present controller'}. The table below gives each point’s value and interval. ${CAUTION_SHORT}</figcaption></figure>`;
 }
 
-function mapTable(map: RetuneMapResult): Html {
+function mapTable(map: RetuneMapResult, unit: string): Html {
   const best = map.best, bestInterval = best ? map.points[best.index]?.interval ?? null : null;
   const caption = html`<p><strong>${map.candidate}</strong> — ${best
     ? html`best supported point ${raw(tuningValueTexts(map.axes, best.coordinates).map((text, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(text)}`).join(', '))}, J ${valueInInterval(best.value, bestInterval).text}`
@@ -82,7 +83,7 @@ function mapTable(map: RetuneMapResult): Html {
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"
     title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${shiftText(p.occupancyShift)}">${p.value === null ? `no value (${p.status})` : valueAtPrecision(p.value, p.interval)}<br/><span class="small">${intervalAtPrecision(p.interval)}</span></td>`;
   if (map.axes.length === 1) {
-    return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">J and interval</th></tr></thead><tbody>
+    return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">${valueColumnHead('J', unit)} and interval</th></tr></thead><tbody>
       ${map.points.map((p, i) => html`<tr><td class="num">${tuningValueTexts(map.axes, p.coordinates)[0]}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;
   }
   return html`${caption}${gridTables(map, cell)}${notes}`;

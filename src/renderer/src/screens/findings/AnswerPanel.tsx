@@ -15,7 +15,7 @@ import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../../../../figures/parts/plo
 import { sweepsVerdict } from '../../../../figures/charts/sensitivity';
 import { TRIAL_RULE, trialAnswer, trialChoice, warningsText, type TrialChoice } from '../../../../pipeline/trialChoice';
 import { jumpToSection, useProjectKey } from './useFold';
-import { valueSenseSentence } from '../../../../pipeline/valueUnitWords';
+import { valueColumnHead, valueSenseSentence } from '../../../../pipeline/valueUnitWords';
 import { intervalAtPrecision, valueAtPrecision, valueInInterval, valueWithError } from '../../../../figures/parts/uncertainNumber';
 
 const CONFIRMATION: Record<string, string> = { confirmed: 'confirmed', contradicted: 'contradicted', unconfirmed: 'unconfirmed' };
@@ -48,7 +48,7 @@ function AssessedTable({ choice, assessment, evaluation, unit }: { choice: Trial
     <table className="answer-table" data-testid="answer-table">
       <thead>
         <tr>
-          <th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">{level} interval</th>
+          <th scope="col">Policy</th><th scope="col" className="number">{valueColumnHead('J', unit)}</th><th scope="col" className="number">{level} interval</th>
           <th scope="col" className="number">Minus baseline</th><th scope="col" className="number">Better in</th><th scope="col">Cross-checks</th><th scope="col">Warnings</th>
         </tr>
       </thead>
@@ -84,7 +84,7 @@ function PointTable({ evaluation, unit }: { evaluation: Evaluation; unit: string
     pc ? { name: `${PRESENT_CONTROLLER} (baseline)`, value: pc.estimate.policyValue, se: pc.estimate.standardError } : { name: `${LOGGED_RETURN} (baseline)`, value: evaluation.behaviour.value, se: evaluation.behaviour.standardError }];
   return (
     <table className="answer-table" data-testid="answer-table">
-      <thead><tr><th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">± s.e.</th></tr></thead>
+      <thead><tr><th scope="col">Policy</th><th scope="col" className="number">{valueColumnHead('J', unit)}</th><th scope="col" className="number">± s.e.</th></tr></thead>
       <tbody>{rows.map((r) => <tr key={r.name}><th scope="row">{r.name}</th><td className="number">{valueWithError(r.value, r.se).value}</td><td className="number">{valueWithError(r.value, r.se).error}</td></tr>)}</tbody>
     </table>
   );

@@ -105,7 +105,7 @@ function MapResults({ maps, record, theme }: { maps: RetuneMapResult[]; record: 
         <li>{`Features: ${map.features}.`}</li>
         {map.notes.map((n) => <li key={n}>{n}</li>)}
       </ul>
-      <RetuneMapTable map={map} testId="retune-map-table" />
+      <RetuneMapTable map={map} testId="retune-map-table" unit={valueUnit(doc)} />
       <ExportPanel kind="retuneMap" evaluation={record.evaluation} defaultTitle={title} policy={map.candidate}
         fileBase={`retune-map-${map.candidate.replace(/[^\w-]+/g, '-').replace(/^-|-$/g, '').toLowerCase() || 'map'}`}
         makeSpec={(t) => ({ kind: 'retuneMap', props: { map: shown, valueLabel, sense, title: t, theme } })} />

@@ -11,6 +11,7 @@ import { RichText } from '../../components/RichText';
 import { gridPointLabels, tuningValueTexts } from '../../../../figures/parts/tickFormat';
 
 import { richAxisLabel } from './retuneMapWords';
+import { valueColumnHead, valueUnitWords } from '../../../../pipeline/valueUnitWords';
 import { intervalAtPrecision, valueAtPrecision, valueInInterval } from '../../../../figures/parts/uncertainNumber';
 
 type Point = RetuneMapResult['points'][number];
@@ -22,14 +23,15 @@ const mark = (p: Point) => (p.value === null ? '' : p.support === null ? '' : p.
 const cellClass = (p: Point, best: boolean) => ['number', best ? 'map-best' : '', p.value !== null && p.support !== null && p.support !== 'caution' ? 'map-unsupported' : ''].join(' ').trim();
 const cellTitle = (p: Point) => `J ${p.value === null ? '—' : valueInInterval(p.value, p.interval).text}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
 
-export function RetuneMapTable({ map, testId }: { map: RetuneMapResult; testId: string }) {
+/** `unit`: the cost's or reward's own unit from the project, '' when none is given. */
+export function RetuneMapTable({ map, testId, unit }: { map: RetuneMapResult; testId: string; unit: string }) {
   const best = map.best?.index ?? -1;
   return (
     <details className="details-section" data-testid={`${testId}-details`}>
       <summary>Values at every point</summary>
-      <p className="small muted">J at each point; † beyond the logs (not supported), * thin logs (caution), bold the best supported point. Hover a cell for its interval.</p>
+      <p className="small muted">J at each point, {valueUnitWords(unit)}; † beyond the logs (not supported), * thin logs (caution), bold the best supported point. Hover a cell for its interval.</p>
       <div className="table-scroll">
-        {map.axes.length === 2 ? <GridTable map={map} best={best} testId={testId} /> : <ListTable map={map} best={best} testId={testId} />}
+        {map.axes.length === 2 ? <GridTable map={map} best={best} testId={testId} /> : <ListTable map={map} best={best} testId={testId} unit={unit} />}
       </div>
       <CopyTable tableTestId={testId} fileBase="retune-map" />
     </details>
@@ -64,11 +66,11 @@ function GridTable({ map, best, testId }: { map: RetuneMapResult; best: number; 
   );
 }
 
-function ListTable({ map, best, testId }: { map: RetuneMapResult; best: number; testId: string }) {
+function ListTable({ map, best, testId, unit }: { map: RetuneMapResult; best: number; testId: string; unit: string }) {
   return (
     <table data-testid={testId} className="map-table">
       <thead>
-        <tr><th scope="col" className="number"><RichText text={richAxisLabel(map.axes[0].label)} /></th><th scope="col" className="number">J</th><th scope="col" className="number">Interval</th><th scope="col">Support</th></tr>
+        <tr><th scope="col" className="number"><RichText text={richAxisLabel(map.axes[0].label)} /></th><th scope="col" className="number">{valueColumnHead('J', unit)}</th><th scope="col" className="number">Interval</th><th scope="col">Support</th></tr>
       </thead>
       <tbody>
         {map.points.map((p, i) => (

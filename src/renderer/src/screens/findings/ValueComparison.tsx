@@ -15,7 +15,7 @@ import type { Evaluation } from '../../../../pipeline/estimates';
 import { plural, screenMessage, sentence } from '../../format/numberFormat';
 import { useDocument } from '../../hooks';
 import { valueUnit } from './plotLabels';
-import { valueSenseSentence } from '../../../../pipeline/valueUnitWords';
+import { valueColumnHead, valueSenseSentence } from '../../../../pipeline/valueUnitWords';
 import type { Theme } from '../../theme';
 import { intervalDetail, levelText } from './assessmentWords';
 import { ExportPanel } from './ExportPanel';
@@ -68,7 +68,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
       <table data-testid="value-table">
         <thead>
           <tr>
-            <th scope="col">Policy</th><th scope="col" className="number">J{unit ? ` (${unit})` : ''}</th><th scope="col" className="number">± s.e.</th>
+            <th scope="col">Policy</th><th scope="col" className="number">{valueColumnHead('J', unit)}</th><th scope="col" className="number">± s.e.</th>
             {assessment && <th scope="col" className="number" title="Percentile bootstrap interval over runs; hover a cell for the basic interval">{levelText(level)} interval</th>}
             <th scope="col" className="number" title="J from solving the fit’s fixed-point equations directly (LSTD-Q), as a check on the iterated fit">J by direct solve</th><th scope="col">Fit</th><th scope="col">How the fit went</th>
           </tr>

@@ -1,0 +1,84 @@
+/**
+ * J's unit in the report's table heads (pipeline/valueUnitWords.ts valueColumnHead): "J (€)" where the
+ * project gives the cost's unit (`columns.reward.unit`), "J" alone where it gives none — the sentence
+ * above the table then says "no unit given". The tank-levels sample (invented plant) is evaluated and
+ * assessed once; the report is rendered with and without a unit, the same numbers both times.
+ */
+import { readFile } from 'node:fs/promises';
+import { join } from 'node:path';
+import { beforeAll, describe, expect, it } from 'vitest';
+import { assessProject } from '../../src/pipeline/assessProject';
+import { evaluateProject } from '../../src/pipeline/evaluateProject';
+import { openProject } from '../../src/pipeline/openProject';
+import { renderReport } from '../../src/pipeline/report/reportDocument';
+import type { ReportInput } from '../../src/pipeline/report/reportInput';
+import { retuneSection } from '../../src/pipeline/report/reportRetune';
+import type { RetuneMapResult } from '../../src/pipeline/retuneMaps';
+import { valueColumnHead } from '../../src/pipeline/valueUnitWords';
+
+const root = join(__dirname, '..', '..');
+
+/** The report's table heads (the text of every <th> in a <thead>). */
+function heads(html: string): string[] {
+  return [...html.matchAll(/<thead>([\s\S]*?)<\/thead>/g)].flatMap((m) => [...m[1].matchAll(/<th[^>]*>([\s\S]*?)<\/th>/g)].map((h) => h[1].trim()));
+}
+
+describe('J\'s unit in the report\'s table heads', () => {
+  let input: Omit<ReportInput, 'project'>, project: ReportInput['project'];
+  beforeAll(async () => {
+    const folder = join(root, 'sample-projects', 'tank-levels');
+    const opened = await openProject(await readFile(join(folder, 'tank-levels.spcritic'), 'utf8'), 'tank-levels.spcritic', async (p) => new Uint8Array(await readFile(join(folder, p))));
+    if (!opened.ok) throw new Error('open failed');
+    const { dataset, imported } = opened.value;
+    project = opened.value.project;
+    const evaluation = await evaluateProject({ project, dataset, now: () => new Date('2026-01-01T00:00:00Z') });
+    const assessment = await assessProject({ project, dataset, settings: { resamples: 50, level: 0.9, seed: 1, sensitivity: false } });
+    if (!evaluation.ok || !assessment.ok) throw new Error('pipeline failed');
+    input = { projectFile: 'tank-levels.spcritic', evaluation: evaluation.value, assessment: assessment.value, assessmentProblems: [], retuneMaps: [], retuneMapProblems: [],
+      data: { summary: imported.summary, episodeReport: imported.episodeReport }, generatedAt: '2026-01-01T00:00:00.000Z' };
+  }, 300_000);
+
+  const withUnit = (unit: string | undefined) => ({ ...project, columns: { ...project.columns, reward: { ...project.columns.reward, unit } } });
+
+  it('heads the comparison and every cross-check table "J (€)" where the project gives €', () => {
+    const html = renderReport({ ...input, project: withUnit('€') } as ReportInput);
+    const jHeads = heads(html).filter((h) => /^J\b/.test(h));
+    expect(jHeads.length).toBe(1 + input.assessment!.candidates.length);
+    expect(new Set(jHeads)).toEqual(new Set(['J (€)']));
+    expect(html).toContain('in €');
+  });
+
+  it('heads them "J" alone where none is given, and says "no unit given" above', () => {
+    const html = renderReport({ ...input, project: withUnit(undefined) } as ReportInput);
+    expect(new Set(heads(html).filter((h) => /^J\b/.test(h)))).toEqual(new Set(['J']));
+    expect(html).toContain('no unit given');
+  });
+
+  it('heads the point-estimate table (no assessment) the same way', () => {
+    const html = renderReport({ ...input, assessment: null, assessmentProblems: ['not run'], project: withUnit('kWh') } as ReportInput);
+    expect(heads(html)).toContain('J (kWh)');
+  });
+});
+
+describe('J\'s unit in the report\'s retune-map table', () => {
+  const map = (): RetuneMapResult => ({
+    candidate: 'invented P', features: 'polynomial degree 2', notes: [], presentController: 12, best: { index: 0, value: 10, coordinates: [1] },
+    axes: [{ parameter: 'form.loops.0.proportionalGain', label: 'proportional gain K_c (%/°C)', values: [1, 2] }],
+    points: [1, 2].map((g) => ({ coordinates: [g], value: 9 + g, interval: [8 + g, 10 + g] as [number, number], status: 'converged', support: null, occupancyShift: 1, route: 'closedForm' as never })),
+  });
+  const section = (unit?: string) => {
+    const input = { retuneMaps: [map()], retuneMapProblems: [], evaluation: { valueSense: 'cost' }, project: { columns: { reward: { unit } } } } as unknown as ReportInput;
+    let n = 0;
+    return retuneSection(input, { next: () => ++n } as never).html;
+  };
+
+  it('writes "J (€) and interval" with a unit, "J and interval" without (the invented map is drawing data)', () => {
+    expect(heads(section('€'))).toContain('J (€) and interval');
+    expect(heads(section())).toContain('J and interval');
+  });
+
+  it('trims the unit and writes nothing for a blank one', () => {
+    expect(valueColumnHead('J', ' kWh ')).toBe('J (kWh)');
+    expect(valueColumnHead('J', '  ')).toBe('J');
+  });
+});
