@@ -84,14 +84,14 @@ export function actionSliceChart(props: ActionSlicePlotProps, look: PlotLook): C
       scales: {
         // offset: false — the point-mass bars must not pad the action axis as a bar chart's would.
         x: {
-          type: 'linear', ...actionRange(slice.actions, masses), offset: false, ...valueAxis(look, props.actionLabel, 'bottom'),
+          type: 'linear', ...actionRange(slice.actions, masses), offset: false, ...valueAxis(look, 'bottom'),
           // Only round ticks: a padded end would read "-1.063"; the bounds carry their values in their labels.
-          ticks: { ...valueAxis(look, '', 'bottom').ticks, includeBounds: false },
+          ticks: { ...valueAxis(look, 'bottom').ticks, includeBounds: false },
         },
-        y: { type: 'linear', ...valueAxis(look, props.valueLabel, 'left') },
+        y: { type: 'linear', ...valueAxis(look, 'left') },
         yDensity: {
           type: 'linear', min: 0, suggestedMax: densityPeak > 0 ? densityPeak * d.densityHeadroom : 1,
-          ...valueAxis(look, 'policy density', 'right', false), display: densityPeak > 0,
+          ...valueAxis(look, 'right', false), display: densityPeak > 0,
         },
         yMass: { type: 'linear', min: 0, max: 1, display: false },
       },

@@ -104,8 +104,8 @@ export function candidateActionsChart(props: CandidateActionsPlotProps, look: Pl
       parsing: false,
       interaction: { mode: 'nearest', intersect: false },
       scales: {
-        x: { type: 'linear', ...valueAxis(look, props.xLabel, 'bottom') },
-        y: { type: 'linear', ...actionAxisRange(props), ...valueAxis(look, props.yLabel, 'left') },
+        x: { type: 'linear', ...valueAxis(look, 'bottom') },
+        y: { type: 'linear', ...actionAxisRange(props), ...valueAxis(look, 'left') },
       },
       plugins: {
         ...shared.plugins,

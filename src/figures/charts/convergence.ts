@@ -75,8 +75,8 @@ export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): C
       parsing: false,
       interaction: { mode: 'index', intersect: false },
       scales: {
-        x: { ...valueAxis(look, 'iteration', 'bottom'), type: 'linear', min: 1, max: Math.max(2, history.length), ticks: { ...valueAxis(look, '', 'bottom').ticks, precision: 0 } },
-        y: { ...valueAxis(look, 'value (log scale)', 'left'), type: 'logarithmic', ticks: { ...valueAxis(look, '', 'left').ticks, callback: (_v, i, ticks) => logTickLabels(ticks.map((t) => t.value))[i] } },
+        x: { ...valueAxis(look, 'bottom'), type: 'linear', min: 1, max: Math.max(2, history.length), ticks: { ...valueAxis(look, 'bottom').ticks, precision: 0 } },
+        y: { ...valueAxis(look, 'left'), type: 'logarithmic', ticks: { ...valueAxis(look, 'left').ticks, callback: (_v, i, ticks) => logTickLabels(ticks.map((t) => t.value))[i] } },
       },
       plugins: {
         ...shared.plugins,

@@ -74,7 +74,7 @@ export function intervalChart(props: IntervalChartProps, look: PlotLook): ChartC
       ...shared,
       parsing: false,
       scales: {
-        x: { type: 'linear', min: lo - pad, max: hi + pad, ...valueAxis(look, props.axisLabel, 'bottom') },
+        x: { type: 'linear', min: lo - pad, max: hi + pad, ...valueAxis(look, 'bottom') },
         y: {
           type: 'linear', reverse: true, min: -0.6, max: n - 0.4, grid: { display: false }, border: { color: p.axis, width: s },
           ticks: { stepSize: 1, autoSkip: false, color: p.text, font: font(look, PLOT_FONTS.tickPx), callback: (v) => props.rows[Number(v)]?.label ?? '' },

@@ -95,7 +95,7 @@ export function policyValueChart(props: PolicyValueChartProps, look: PlotLook): 
         x: {
           // Suggested, so Chart.js rounds the ends out to its own ticks.
           type: 'linear', suggestedMin: lo < 0 ? lo - span * d.negativeLabelRoom : 0, suggestedMax: hi > 0 ? hi + span * d.labelRoom : 0,
-          ...valueAxis(look, `policy value J (${valueSenseText(props.evaluation.valueSense)})`, 'bottom'),
+          ...valueAxis(look, 'bottom'),
         },
         y: {
           type: 'category', ticks: { color: p.text, font: font(look, PLOT_FONTS.tickPx), padding: 6 * s }, grid: { display: false }, border: { color: p.axis, width: s },

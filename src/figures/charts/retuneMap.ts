@@ -38,7 +38,7 @@ export function retuneMapHeatChart(props: RetuneMapPlotProps, look: PlotLook): C
   const shared = sharedOptions(look, props.title, mapSubtitle(props, 'Colour'));
   const present = map.presentController;
   const indexAxis = (values: readonly number[], position: 'bottom' | 'left') => {
-    const base = valueAxis(look, '', position, false), labels = gridPointLabels(values);
+    const base = valueAxis(look, position, false), labels = gridPointLabels(values);
     return {
       ...base, type: 'linear' as const, min: -0.5, max: values.length - 0.5,
       ticks: { ...base.ticks, callback: (v: number | string) => (Number.isInteger(Number(v)) && labels[Number(v)] !== undefined ? labels[Number(v)] : '') },

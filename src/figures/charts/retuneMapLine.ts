@@ -59,7 +59,7 @@ export function retuneMapLineChart(props: RetuneMapPlotProps, look: PlotLook): C
   }
   const shared = sharedOptions(look, props.title, mapSubtitle(props, 'Line'));
   const range = lineRange(props), logarithmic = geometricSpacing(axis.values);
-  const base = valueAxis(look, axis.label, 'bottom');
+  const base = valueAxis(look, 'bottom');
   return {
     type: 'line',
     data: { datasets },
@@ -75,7 +75,7 @@ export function retuneMapLineChart(props: RetuneMapPlotProps, look: PlotLook): C
         x: logarithmic
           ? { ...base, type: 'logarithmic', min: xs[0], max: xs[xs.length - 1], ticks: { ...base.ticks, callback: (v) => formatValue(Number(v)) } }
           : { ...base, type: 'linear', min: xs[0], max: xs[xs.length - 1] },
-        y: { ...valueAxis(look, props.valueLabel, 'left'), type: 'linear', ...(range ? { min: range[0], max: range[1] } : {}) },
+        y: { ...valueAxis(look, 'left'), type: 'linear', ...(range ? { min: range[0], max: range[1] } : {}) },
       },
       plugins: {
         ...shared.plugins,

@@ -227,8 +227,8 @@ export function sensitivityChart(props: SensitivityPlotProps, look: PlotLook): C
       parsing: false,
       interaction: { mode: 'index', intersect: false },
       scales: {
-        x: integerSettings(curve.settings) ? integerAxis(valueAxis(look, curve.label, 'bottom')) : { ...valueAxis(look, curve.label, 'bottom'), type: 'linear' },
-        y: { ...valueAxis(look, props.valueLabel, 'left'), type: 'linear' },
+        x: integerSettings(curve.settings) ? integerAxis(valueAxis(look, 'bottom')) : { ...valueAxis(look, 'bottom'), type: 'linear' },
+        y: { ...valueAxis(look, 'left'), type: 'linear' },
       },
       plugins: {
         ...shared.plugins,

@@ -99,8 +99,8 @@ export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfigur
   // Chart.js stacks axes of one stack from the bottom up in the order they are declared: declared
   // last to first, the first signal (a state) is the top band.
   const yScales = Object.fromEntries(trend.signals.map((_, k) => [`y${k}`, {
-    ...valueAxis(look, '', 'left'), type: 'linear' as const, stack: 'signals', stackWeight: 1, offset: true,
-    ticks: { ...valueAxis(look, '', 'left').ticks, maxTicksLimit: 4 },
+    ...valueAxis(look, 'left'), type: 'linear' as const, stack: 'signals', stackWeight: 1, offset: true,
+    ticks: { ...valueAxis(look, 'left').ticks, maxTicksLimit: 4 },
   }]).reverse());
   const shared = sharedOptions(look, props.title, trendSubtitle(trend));
   const xTitle = trend.clock === 'line' ? 'line in the file' : trend.calendar ? 'time (the log’s clock)'
@@ -134,7 +134,7 @@ function timeText(trend: TrendData, x: number): string {
 }
 
 function timeScale(trend: TrendData, min: number, max: number, look: PlotLook) {
-  const base = valueAxis(look, '', 'bottom');
+  const base = valueAxis(look, 'bottom');
   if (trend.clock === 'line') return { ...base, type: 'linear' as const, min, max, ticks: { ...base.ticks, precision: 0 } };
   let step = 1;
   return {

@@ -67,8 +67,8 @@ export function valueSurfaceChart(props: ValueSurfacePlotProps, look: PlotLook):
       normalized: true,
       interaction: { mode: 'nearest', intersect: false },
       scales: {
-        x: { type: 'linear', min: geometry.xExtent[0], max: geometry.xExtent[1], ...valueAxis(look, props.xLabel, 'bottom', false) },
-        y: { type: 'linear', min: geometry.yExtent[0], max: geometry.yExtent[1], ...valueAxis(look, props.yLabel, 'left', false) },
+        x: { type: 'linear', min: geometry.xExtent[0], max: geometry.xExtent[1], ...valueAxis(look, 'bottom', false) },
+        y: { type: 'linear', min: geometry.yExtent[0], max: geometry.yExtent[1], ...valueAxis(look, 'left', false) },
       },
       plugins: {
         ...shared.plugins,

@@ -42,11 +42,11 @@ export function sharedOptions(look: PlotLook, title: string, subtitle: string | 
 type AxisOptions = ScaleOptions<'linear'>;
 
 /**
- * A numeric axis. Its title is set by axisTitlePlugin (so it can carry V^{π}); ticks use one
+ * A numeric axis. Its title is drawn by axisTitles (axisTitlePlugin, so it can carry V^{π}), never here; ticks use one
  * number of decimals per axis, the true minus sign, and no extra ticks at the axis ends (an end
  * tick such as "3.2" would crowd the round "3" beside it).
  */
-export function valueAxis(look: PlotLook, _title: string, position: 'left' | 'right' | 'bottom', gridInside = true): AxisOptions {
+export function valueAxis(look: PlotLook, position: 'left' | 'right' | 'bottom', gridInside = true): AxisOptions {
   const p = look.palette, s = look.scale;
   return {
     position,
