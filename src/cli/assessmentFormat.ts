@@ -2,6 +2,7 @@
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { plantMemorySentence } from '../pipeline/plantMemoryWords';
 import { policyLabel } from '../pipeline/policyNames';
+import { valueColumnHead } from '../pipeline/valueUnitWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { shareText, sharesText } from '../core/shareText';
 import { loggedReturnRole } from '../core/loggedReturn';
@@ -23,9 +24,9 @@ function estimateRow(name: string, e: IntervalEstimate): string[] {
 const settledWord = (settled: boolean | null): string => (settled === null ? 'one class' : settled ? 'settled' : 'NOT SETTLED');
 
 /** `completedShown`: whether the logged return completed past time limits gets its own row (core/loggedReturn.ts truncationMatters of the evaluation's logged return). */
-export function formatAssessment(a: Assessment, completedShown = true): string {
+export function formatAssessment(a: Assessment, completedShown = true, unit = ''): string {
   const level = shareText(a.settings.level);
-  const rows = [['policy', 'J', 'bootstrap s.e.', `${level} percentile`, `${level} basic`, 'range to report', 'function classes', 'cross-checks', 'occupancy shift']];
+  const rows = [['policy', valueColumnHead('J', unit), 'bootstrap s.e.', `${level} percentile`, `${level} basic`, 'range to report', 'function classes', 'cross-checks', 'occupancy shift']];
   for (const c of a.candidates) {
     rows.push([...estimateRow(c.name, c.policyValue), interval(c.reportedRange), settledWord(c.settled), c.confirmation.status, ratioText(c.diagnostics.occupancyShift)]);
   }

@@ -40,8 +40,8 @@ export async function runEvaluateCommand(projectPath: string, options: { json: b
     terminal.out(formatImport(imported, project.data.path));
     terminal.out(formatCandidates(project));
     terminal.out(formatEvaluation(evaluation, basename(projectPath), assessment.ok ? assessment.value : null, project.columns.reward.unit ?? ''));
-    terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value, truncationMatters(evaluation.behaviour))}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
-    if (retuneMaps.ok) retuneMaps.value.forEach((map) => terminal.out(`\n${formatRetuneMap(map, level)}`));
+    terminal.out(assessment.ok ? `\nIntervals, cross-checks and diagnostics\n${formatAssessment(assessment.value, truncationMatters(evaluation.behaviour), project.columns.reward.unit ?? '')}` : `\nIntervals not computed: ${describeProblems(assessment.problems)}\n`);
+    if (retuneMaps.ok) retuneMaps.value.forEach((map) => terminal.out(`\n${formatRetuneMap(map, level, project.columns.reward.unit ?? '')}`));
     else terminal.out(`\nRetune maps not computed: ${describeProblems(retuneMaps.problems)}\n`);
     terminal.out(formatCautions(evaluation));
   }

@@ -6,7 +6,7 @@ import type { Evaluation } from '../pipeline/estimates';
 import { centreText as centreIn, perAction as perActionIn } from '../pipeline/baselineWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
-import { valueUnitWords } from '../pipeline/valueUnitWords';
+import { valueColumnHead, valueUnitWords } from '../pipeline/valueUnitWords';
 import { atDecimals, intervalText, rowDecimals, valueInIntervalText } from './uncertainNumberText';
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { loggedLimitText } from '../core/loggedLimitWords';
@@ -43,7 +43,7 @@ export function limitsText(model: NonNullable<Evaluation['presentController']>['
 export function formatEvaluation(e: Evaluation, projectFile: string, assessment: Assessment | null = null, unit = ''): string {
   const sense = `expected discounted ${e.valueSense}, ${valueUnitWords(unit)} (${e.valueSense === 'cost' ? 'lower' : 'higher'} is better)`;
   const s = e.settings;
-  const rows: string[][] = [['policy', 'value J', '± s.e.', 'fixed point', 'fit']];
+  const rows: string[][] = [['policy', valueColumnHead('value J', unit), '± s.e.', 'fixed point', 'fit']];
   // A fit stopped at its iteration limit shows the J it reached, as the app and the assessment table below do, marked
   // NOT CONVERGED with its message saying why; a diverged fit has no value ("no value", not "not settled", which names
   // the function-class verdict of the assessment).

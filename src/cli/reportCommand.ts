@@ -41,7 +41,7 @@ export async function runReportCommand(projectPath: string, options: ReportComma
   } catch (e) {
     return fail(`Cannot write the report to ${out}: ${(e as Error).message}`);
   }
-  if (assessment.ok) terminal.out(formatAssessment(assessment.value, truncationMatters(evaluation.behaviour)));
+  if (assessment.ok) terminal.out(formatAssessment(assessment.value, truncationMatters(evaluation.behaviour), project.columns.reward.unit ?? ''));
   else terminal.err(`The report has no intervals or diagnostics: ${input.assessmentProblems.join('; ')}\n`);
   // The cautions where the numbers are printed, as `evaluate` ends with them: the answer above points "at the end" to them.
   terminal.out(formatCautions(evaluation));

@@ -4,13 +4,14 @@ import { textTable } from './textTable';
 import { tuningValueTexts } from '../figures/parts/tickFormat';
 import { atDecimals, intervalText, ratioText, rowDecimals } from './uncertainNumberText';
 import { shareText } from '../core/shareText';
+import { valueColumnHead } from '../pipeline/valueUnitWords';
 
 /** A point's grid coordinates (a gain, an integral time) as the map's axes label them (figures/parts/tickFormat.ts tuningValueTexts), with the terminal's ASCII minus. */
 const coordinatesText = (map: RetuneMapResult, coordinates: readonly number[]): string[] => tuningValueTexts(map.axes, coordinates).map((t) => t.replace(/\u2212/g, '-'));
 const SUPPORT = { null: 'supported', caution: 'thin logs (caution)', serious: 'beyond the logs (serious)', unknown: 'unknown' } as const;
 
-export function formatRetuneMap(map: RetuneMapResult, level: number): string {
-  const rows = [[...map.axes.map((a) => a.label), 'J', `${shareText(level)} interval`, 'occupancy shift', 'support', '']];
+export function formatRetuneMap(map: RetuneMapResult, level: number, unit = ''): string {
+  const rows = [[...map.axes.map((a) => a.label), valueColumnHead('J', unit), `${shareText(level)} interval`, 'occupancy shift', 'support', '']];
   map.points.forEach((p, i) => rows.push([
     ...coordinatesText(map, p.coordinates), p.value === null ? `no value (${p.status})` : atDecimals(p.value, rowDecimals(p.interval)),
     intervalText(p.interval), ratioText(p.occupancyShift), SUPPORT[String(p.support) as keyof typeof SUPPORT],

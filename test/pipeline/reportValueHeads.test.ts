@@ -2,7 +2,8 @@
  * J's unit in the report's table heads (pipeline/valueUnitWords.ts valueColumnHead): "J (€)" where the
  * project gives the cost's unit (`columns.reward.unit`), "J" alone where it gives none — the sentence
  * above the table then says "no unit given". The tank-levels sample (invented plant) is evaluated and
- * assessed once; the report is rendered with and without a unit, the same numbers both times.
+ * assessed once; the report is rendered with and without a unit, the same numbers both times, and
+ * the command line's value and assessment tables take the same heads.
  */
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
@@ -15,6 +16,9 @@ import type { ReportInput } from '../../src/pipeline/report/reportInput';
 import { retuneSection } from '../../src/pipeline/report/reportRetune';
 import type { RetuneMapResult } from '../../src/pipeline/retuneMaps';
 import { valueColumnHead } from '../../src/pipeline/valueUnitWords';
+import { formatAssessment } from '../../src/cli/assessmentFormat';
+import { formatEvaluation } from '../../src/cli/formatEvaluation';
+import { formatRetuneMap } from '../../src/cli/retuneMapFormat';
 
 const root = join(__dirname, '..', '..');
 
@@ -54,6 +58,13 @@ describe('J\'s unit in the report\'s table heads', () => {
     expect(html).toContain('no unit given');
   });
 
+  it('heads the command line\'s value and assessment tables the same way', () => {
+    const head = (text: string, first: string) => text.split('\n').find((l) => l.trimStart().startsWith(first))!;
+    expect(head(formatEvaluation(input.evaluation, 'tank-levels.spcritic', input.assessment, '€'), 'policy')).toContain('value J (€)');
+    expect(head(formatAssessment(input.assessment!, true, '€'), 'policy')).toMatch(/\bJ \(€\)/);
+    expect(head(formatAssessment(input.assessment!, true), 'policy')).not.toContain('(€)');
+  });
+
   it('heads the point-estimate table (no assessment) the same way', () => {
     const html = renderReport({ ...input, assessment: null, assessmentProblems: ['not run'], project: withUnit('kWh') } as ReportInput);
     expect(heads(html)).toContain('J (kWh)');
@@ -75,6 +86,7 @@ describe('J\'s unit in the report\'s retune-map table', () => {
   it('writes "J (€) and interval" with a unit, "J and interval" without (the invented map is drawing data)', () => {
     expect(heads(section('€'))).toContain('J (€) and interval');
     expect(heads(section())).toContain('J and interval');
+    expect(formatRetuneMap(map(), 0.9, '€').split('\n')[1]).toContain('J (€)');
   });
 
   it('trims the unit and writes nothing for a blank one', () => {
