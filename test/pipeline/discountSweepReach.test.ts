@@ -92,6 +92,29 @@ describe('the discount sweep check judges a resample by the drawn points’ rule
     }
   }, 600_000);
 
+  it('calls an iteration stopped at its limit while provably contracting converged, at its fixed point, on the iteration route too', async () => {
+    // The route of a fit that did not converge at the project's discount (linearSolveSettings: solver 'iteration'). reportedSolution.ts
+    // calls a stop at the limit with a spectral-radius bound below 1 converged at the fixed point; the swept point read 'stopped at its
+    // iteration limit' with its last iterate's J (review37). Reference: the same iteration left to run to its tolerance, whose limit the
+    // contraction makes the fixed point (Golub & Van Loan, "Matrix Computations", 4th ed., §11.2).
+    const { run } = await sampleRun('heating-loop');
+    try {
+      const model = run.models.find((m) => m.name === limited)!, linear = model.linear!, g = 0.5;
+      const solve = { ...linearSolveSettings(run.plan, model), solver: 'iteration' as const, discount: g };
+      const xiBar = meanStartFeatures(linear.startFeatures, linear.features.dim);
+      const stopped = solveReplicate({ ...solve, maxIterations: 3 }, linear.statistics, xiBar);
+      expect(stopped.status).toBe('maxIterations');
+      const reached = reachedSolve({ ...solve, maxIterations: 3 }, linear.statistics, xiBar);
+      const full = solveReplicate({ ...solve, maxIterations: 100_000 }, linear.statistics, xiBar);
+      expect(full.status).toBe('converged');
+      expect(reached.status).toBe('converged');
+      expect(reached.policyValue!).toBeCloseTo(full.policyValue!, 6);
+      expect(Math.abs(stopped.policyValue! - full.policyValue!)).toBeGreaterThan(0.1); // the last iterate the point showed before
+    } finally {
+      run.dispose();
+    }
+  }, 600_000);
+
   it('leaves a swept discount without a J out of every pair, and says so', async () => {
     // Invented edit of the heating-loop sample's sweep: the rate-limited PI's point at γ 0.966 taken as not reached. Its pairs fail the
     // check on the sample (discountSweepCheck.test.ts); with the point out, no pair holding it is judged and the note names it.

@@ -106,14 +106,23 @@ export function linearFqeReplicateDiscounts(
  * points (assessSensitivity.ts) and its paired check on resamples (assessSweepCheck.ts). A fit solved
  * at its fixed point (the route of a converged fit's resamples) keeps that value only where one of the
  * two holds, the iteration from setup.initialWeights run only where no contraction is proved; else no
- * J, with the iteration's status. The fixed point exists wherever its equations are regular, reachable
- * or not, so without this a discount where the iteration diverges would still give a number.
+ * J, with the iteration's status. A fit solved by the iteration (the route of a fit that did not
+ * converge at the project's discount) that stops at its limit while provably contracting is, by the
+ * same rule, converged at its fixed point. The fixed point exists wherever its equations are regular,
+ * reachable or not, so without this a discount where the iteration diverges would still give a number.
  */
 export function reachedSolve(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
   const fit = solveReplicate(setup, stats, xiBar);
-  if (setup.solver !== 'fixedPoint' || fit.status !== 'converged' || provablyContracts(setup, stats)) return fit;
+  if (setup.solver === 'iteration') return fit.status === 'maxIterations' && provablyContracts(setup, stats) ? atFixedPoint(setup, stats, xiBar, fit) : fit;
+  if (fit.status !== 'converged' || provablyContracts(setup, stats)) return fit;
   const iterated = solveReplicate({ ...setup, solver: 'iteration' }, stats, xiBar);
   return iterated.status === 'converged' ? { ...fit, iterations: iterated.iterations } : { policyValue: null, weights: null, status: iterated.status, iterations: iterated.iterations };
+}
+
+/** An iteration stopped at its limit while provably contracting: its limit, the fixed point, as reportedSolution.ts reports such a fit (converged). */
+function atFixedPoint(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array, stopped: LinearReplicate): LinearReplicate {
+  const fixed = solveReplicate({ ...setup, solver: 'fixedPoint' }, stats, xiBar);
+  return fixed.status === 'converged' ? { ...fixed, iterations: stopped.iterations } : stopped;
 }
 
 /** True when the FQE iteration on these statistics provably contracts: the bound on its matrix's spectral radius is below 1. */

@@ -106,6 +106,13 @@ describe('the first look at a data file longer than its head', () => {
     expect(firstLook(bytes)).toEqual(wholeFileReading(bytes, AUTO));
   });
 
+  it('words a head of lines holding only spaces as the whole file did (a blank header line, not an empty file)', () => {
+    const bytes = log(' \n'.repeat(HEAD_BYTES) + 'a,b', (i) => `${i},${i}`);
+    const look = firstLook(bytes);
+    expect(look).toEqual(wholeFileReading(bytes, AUTO));
+    expect(look.problem).toBe('the header line has no column names');
+  });
+
   it('refuses a zero byte past the head with the whole file\'s words', () => {
     const bytes = log('a,b', (i) => `${i},${i}`);
     bytes[bytes.length - 3] = 0;

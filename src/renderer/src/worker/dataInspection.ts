@@ -3,9 +3,10 @@
  * CSV settings ask for (or detect), so the user can give each column a role before importing.
  *
  * Only the file's head is decoded (HEAD_BYTES, sourceHead.ts) where it decides everything the
- * whole text would: the dialect's sample and the preview rows end inside it, and it is long enough
- * for the CSV parser's guess of the line ending. Otherwise — long records, a blank head, a file in
- * another encoding — the whole file is decoded as before, so the results never depend on the head.
+ * whole text would: the dialect's sample and the preview rows end inside it, it is long enough
+ * for the CSV parser's guess of the line ending, and it is not blank. Otherwise — long records, a
+ * blank head (empty lines or spaces), a file in another encoding — the whole file is decoded as
+ * before, so the results never depend on the head.
  */
 import Papa from 'papaparse';
 import { failure, success, type Result } from '../../../core/result';
@@ -23,7 +24,8 @@ const LINE_ENDING_GUESS_CHARS = 1024 * 1024;
 
 export function inspectData(bytes: Uint8Array, fileName: string, csv: CsvSettings): Result<DataInspection> {
   const head = sourceHead(bytes, HEAD_BYTES);
-  const decides = head.whole || (head.ok && head.text.length >= LINE_ENDING_GUESS_CHARS && headHoldsSample(head.text, csv.delimiter));
+  // A head of spaces alone reads as an empty file; the whole one may not be (its header line is then blank).
+  const decides = head.whole || (head.ok && head.text.length >= LINE_ENDING_GUESS_CHARS && head.text.trim() !== '' && headHoldsSample(head.text, csv.delimiter));
   return inspectText(decides ? head : sourceText(bytes), fileName, csv);
 }
 
