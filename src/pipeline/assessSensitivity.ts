@@ -17,7 +17,7 @@
  */
 import { meanStartFeatures, startStateFeatures } from '../core/features/policyFeatures';
 import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
-import { reachedSolve, solveReplicate } from '../core/bootstrap/linearFqeReplicate';
+import { reachedSolve } from '../core/bootstrap/linearFqeReplicate';
 import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturns } from '../core/loggedReturn';
@@ -185,7 +185,8 @@ async function refitLinear(context: AssessmentContext, w: CandidateWork, setting
       ?? await runStepsPaced(bellmanStatisticsSteps(plan.data, features, quadrature, { cancel }), context.pace ?? createPacer(PACE_INTERVAL_MS));
     const xiBar = meanStartFeatures(fitted?.startFeatures ?? startStateFeatures(features, quadrature, plan.starts.states, plan.data.stateDim), d);
     const solve = { ...linearSolveSettings(plan, w.model), solver: 'iteration' as const, ridge: settings.ridge, tolerance: settings.tolerance, maxIterations: settings.maxIterations };
-    const fit = solveReplicate({ ...solve, constantIndex: features.constantIndex, initialWeights: new Float64Array(d) }, stats, xiBar);
+    // Judged as the project's own fit is (reachedSolve: the tolerance met, or a stop at the limit with a proved contraction).
+    const fit = reachedSolve({ ...solve, constantIndex: features.constantIndex, initialWeights: new Float64Array(d) }, stats, xiBar);
     return { value: fit.status === 'converged' ? fit.policyValue : null, status: fit.status };
   } catch (error) {
     if (isEngineError(error)) return { value: null, status: (error as Error).message };

@@ -89,6 +89,17 @@ describe('J\'s unit in the report\'s retune-map table', () => {
     expect(formatRetuneMap(map(), 0.9, '€').split('\n')[1]).toContain('J (€)');
   });
 
+  it('says the unit once above a two-axis grid, whose cells have no J head', () => {
+    const grid: RetuneMapResult = {
+      ...map(), best: null,
+      axes: [{ parameter: 'form.loops.0.proportionalGain', label: 'proportional gain K_c (%/°C)', values: [1, 2] }, { parameter: 'form.loops.0.integralTime', label: 'integral time T_i (s)', values: [60, 120] }],
+      points: [[1, 60], [1, 120], [2, 60], [2, 120]].map((c) => ({ coordinates: c, value: 10, interval: [9, 11] as [number, number], status: 'converged', support: null, occupancyShift: 1, route: 'closedForm' as never })),
+    };
+    const of = (unit?: string) => retuneSection({ retuneMaps: [grid], retuneMapProblems: [], evaluation: { valueSense: 'cost' }, project: { columns: { reward: { unit } } } } as unknown as ReportInput, { next: () => 1 } as never).html;
+    expect(of('€')).toContain('Each cell: J at that point, in €');
+    expect(of()).toContain('Each cell: J at that point, no unit given');
+  });
+
   it('trims the unit and writes nothing for a blank one', () => {
     expect(valueColumnHead('J', ' kWh ')).toBe('J (kWh)');
     expect(valueColumnHead('J', '  ')).toBe('J');

@@ -18,7 +18,7 @@ import { shiftText } from '../../core/diagnostics/shiftText';
 import { intervalAtPrecision, valueAtPrecision, valueInInterval } from '../../figures/parts/uncertainNumber';
 import { gridPointLabels, tuningValueTexts } from '../../figures/parts/tickFormat';
 import { senseWords, valueAxisLabel, valueUnit, type FigureCounter, type ReportInput } from './reportInput';
-import { valueColumnHead } from '../valueUnitWords';
+import { valueColumnHead, valueUnitWords } from '../valueUnitWords';
 
 /** The figure's width in CSS px: the report's text column (reportStyles.ts, 980 px less padding). */
 const MAP_WIDTH_PX = 720;
@@ -86,7 +86,8 @@ function mapTable(map: RetuneMapResult, unit: string): Html {
     return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">${valueColumnHead('J', unit)} and interval</th></tr></thead><tbody>
       ${map.points.map((p, i) => html`<tr><td class="num">${tuningValueTexts(map.axes, p.coordinates)[0]}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;
   }
-  return html`${caption}${gridTables(map, cell)}${notes}`;
+  // The grid's cells have no J head of their own: one line says what they hold, in which unit (valueUnitWords).
+  return html`${caption}<p class="small">Each cell: J at that point, ${valueUnitWords(unit)}, with its interval below it.</p>${gridTables(map, cell)}${notes}`;
 }
 
 /**
