@@ -170,7 +170,7 @@ function notCheckedNote(plan: EvaluationPlan, skipped: readonly { name: string; 
 function gapsNote(name: string, at: readonly number[], settings: readonly number[]): string {
   const list = at.map((k) => discountText(settings[k])), one = at.length === 1;
   const words = one ? list[0] : `${list.slice(0, -1).join(', ')} and ${list[list.length - 1]}`;
-  return `The discount sweep of “${name}” is checked without γ ${words}: the fitted Q-evaluation iteration does not reach a J there (${one ? 'a gap' : 'gaps'} in the figure), so no pair holding ${one ? 'it' : 'one of them'} is checked.`;
+  return `The discount sweep of “${name}” is checked without γ ${words} (${one ? 'a gap' : 'gaps'} in the figure): the fit has no J there — its iteration does not reach one, or its equations have no solution — so no pair holding ${one ? 'it' : 'one of them'} is checked.`;
 }
 
 /** Pairs whose solves gave a J at both discounts on too few resamples (the iteration did not reach the solve, a resample without start states). */

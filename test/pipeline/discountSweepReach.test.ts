@@ -130,7 +130,7 @@ describe('the discount sweep check judges a resample by the drawn points’ rule
       points[c][3] = { policyValue: null, weights: null, status: 'diverged' };
       const check = checkDiscountSweep(context, works, settings, 2, points, { level: 0.9, seed: 1, resamples: 200 });
       expect(check.marks[c][3]).toBe(false);
-      expect(check.note).toContain(`The discount sweep of “${limited}” is checked without γ 0.966: the fitted Q-evaluation iteration does not reach a J there (a gap in the figure), so no pair holding it is checked.`);
+      expect(check.note).toContain(`The discount sweep of “${limited}” is checked without γ 0.966 (a gap in the figure): the fit has no J there — its iteration does not reach one, or its equations have no solution — so no pair holding it is checked.`);
       for (const w of check.warnings[c]) expect(w.message).not.toContain('0.966');
     } finally {
       run.dispose();
