@@ -78,7 +78,9 @@ function mapTable(map: RetuneMapResult, unit: string): Html {
   const best = map.best, bestInterval = best ? map.points[best.index]?.interval ?? null : null;
   const caption = html`<p><strong>${map.candidate}</strong> — ${best
     ? html`best supported point ${raw(tuningValueTexts(map.axes, best.coordinates).map((text, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(text)}`).join(', '))}, J ${valueInInterval(best.value, bestInterval).text}`
-    : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${valueAtPrecision(map.presentController, bestInterval)}`}.</p>`;
+    : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${valueAtPrecision(map.presentController, bestInterval)}`}.${
+    // A grid's cells have no J head of their own: the caption says what they hold, in which unit (valueUnitWords).
+    map.axes.length === 1 ? '' : ` Each cell: J at that point, ${valueUnitWords(unit)}, with its interval below it.`}</p>`;
   const notes = html`<ul class="small">${map.notes.map((n) => html`<li>${n}</li>`)}</ul>`;
   const cell = (p: RetuneMapPoint, i: number) => html`<td class="num retune-${p.support === null ? 'supported' : p.support}${best?.index === i ? ' retune-best' : ''}"
     title="${p.support === null ? 'supported' : SUPPORT_WORD[p.support]}; occupancy shift ${shiftText(p.occupancyShift)}">${p.value === null ? `no value (${p.status})` : valueAtPrecision(p.value, p.interval)}<br/><span class="small">${intervalAtPrecision(p.interval)}</span></td>`;
@@ -86,8 +88,7 @@ function mapTable(map: RetuneMapResult, unit: string): Html {
     return html`${caption}<table><thead><tr><th>${raw(axisHtml(map.axes[0].label))}</th><th class="num">${valueColumnHead('J', unit)} and interval</th></tr></thead><tbody>
       ${map.points.map((p, i) => html`<tr><td class="num">${tuningValueTexts(map.axes, p.coordinates)[0]}</td>${cell(p, i)}</tr>`)}</tbody></table>${notes}`;
   }
-  // The grid's cells have no J head of their own: one line says what they hold, in which unit (valueUnitWords).
-  return html`${caption}<p class="small">Each cell: J at that point, ${valueUnitWords(unit)}, with its interval below it.</p>${gridTables(map, cell)}${notes}`;
+  return html`${caption}${gridTables(map, cell)}${notes}`;
 }
 
 /**
