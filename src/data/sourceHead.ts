@@ -10,14 +10,14 @@
  * instead of writing U+FFFD for it, so the head's text is a prefix of the whole file's.
  */
 import { isPlainUtf8 } from './sourceBytes';
-import { sourceText, stripByteOrderMark, type TextReading } from './sourceText';
+import { byteOrderMark, sourceText, stripByteOrderMark, type TextReading } from './sourceText';
 
 /** The reading, and whether its text is the whole file's or the head's only. */
 export type HeadReading = TextReading & { whole: boolean };
 
 export function sourceHead(bytes: Uint8Array, headBytes: number): HeadReading {
   if (bytes.length <= headBytes || !isPlainUtf8(bytes)) return { ...sourceText(bytes), whole: true };
-  const marked = bytes[0] === 0xef && bytes[1] === 0xbb && bytes[2] === 0xbf;
+  const marked = byteOrderMark(bytes) === 'UTF-8';
   const text = new TextDecoder('utf-8').decode(bytes.subarray(0, headBytes), { stream: true });
   return { ok: true, text: stripByteOrderMark(text), encoding: 'UTF-8', how: marked ? 'byte-order mark' : 'detected', whole: false };
 }

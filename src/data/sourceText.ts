@@ -31,7 +31,8 @@ export function sourceText(source: string | Uint8Array): TextReading {
   return isUtf8(source) ? decode(source, 'UTF-8', 'detected') : decode(source, 'Windows-1252', 'detected');
 }
 
-function byteOrderMark(b: Uint8Array): TextEncodingName | null {
+/** The encoding a byte-order mark at the start names, or null where there is none. */
+export function byteOrderMark(b: Uint8Array): TextEncodingName | null {
   if (b[0] === 0xef && b[1] === 0xbb && b[2] === 0xbf) return 'UTF-8';
   if (b[0] === 0xff && b[1] === 0xfe) return 'UTF-16LE';
   if (b[0] === 0xfe && b[1] === 0xff) return 'UTF-16BE';
