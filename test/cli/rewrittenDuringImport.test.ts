@@ -13,8 +13,8 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { evaluateProjectFile } from '../../src/cli/evaluateProjectFile';
 import { EXIT } from '../../src/cli/exitStatus';
-import type { TerminalProgress } from '../../src/cli/terminalProgress';
 import { STREAMED_FILE_BYTES } from '../../src/core/limits';
+import { countingProgress } from '../support/countingProgress';
 
 const sample = join(__dirname, '..', '..', 'sample-projects', 'tank-levels');
 let folder = '', project = '', data = '', content = '';
@@ -37,19 +37,9 @@ beforeAll(() => {
 afterAll(() => rmSync(folder, { recursive: true, force: true }));
 
 /** A terminal whose first yield rewrites the data file: one cost digit changed, the length kept. */
-function rewritingAtFirstYield(): { progress: TerminalProgress; seen: { paces: number; fits: number } } {
-  const seen = { paces: 0, fits: 0 };
-  const progress: TerminalProgress = {
-    evaluation: () => { seen.fits++; },
-    assessment: () => undefined,
-    cancelled: () => false,
-    async pace() {
-      if (seen.paces++ === 0) writeFileSync(data, content.replace(/\d(\r?\n)/, (d, end: string) => `${(Number(d[0]) + 1) % 10}${end}`));
-    },
-    done: () => undefined,
-  };
-  return { progress, seen };
-}
+const rewritingAtFirstYield = () => countingProgress((paces) => {
+  if (paces === 0) writeFileSync(data, content.replace(/\d(\r?\n)/, (d, end: string) => `${(Number(d[0]) + 1) % 10}${end}`));
+});
 
 describe('a data file rewritten while the command line reads it', () => {
   it('is large enough to be read in pieces, and the rewrite keeps its length', () => {
