@@ -6,7 +6,7 @@ import type { Evaluation } from '../pipeline/estimates';
 import { centreText as centreIn, perAction as perActionIn } from '../pipeline/baselineWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { significant, textTable as table } from './textTable';
-import { valueColumnHead, valueUnitWords } from '../pipeline/valueUnitWords';
+import { valueColumnHead, valueSenseSentence } from '../pipeline/valueUnitWords';
 import { atDecimals, intervalText, rowDecimals, valueInIntervalText } from './uncertainNumberText';
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { loggedLimitText } from '../core/loggedLimitWords';
@@ -41,7 +41,6 @@ export function limitsText(model: NonNullable<Evaluation['presentController']>['
 
 /** The value table; with the assessment, each row at the precision of the interval the assessment gives it. */
 export function formatEvaluation(e: Evaluation, projectFile: string, assessment: Assessment | null = null, unit = ''): string {
-  const sense = `expected discounted ${e.valueSense}, ${valueUnitWords(unit)} (${e.valueSense === 'cost' ? 'lower' : 'higher'} is better)`;
   const s = e.settings;
   const rows: string[][] = [['policy', valueColumnHead('value J', unit), '± s.e.', 'fixed point', 'fit']];
   // A fit stopped at its iteration limit shows the J it reached, as the app and the assessment table below do, marked
@@ -62,7 +61,8 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
   rows.push([pc ? `${LOGGED_RETURN} (${loggedReturnRole(completed)})` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
-    `Values are the ${sense}, discount ${s.discount}.`,
+    // What J is, in the sentence the app's Findings and the report's summary say (pipeline/valueUnitWords.ts).
+    `${valueSenseSentence(e.valueSense, unit)}; discount ${s.discount}.`,
     `${s.transitions.toLocaleString('en-US')} transitions in ${s.episodes} runs; J averaged over ${s.startStates} start states; ${s.approximator}; ${s.quadratureNodes} quadrature nodes; seed ${s.seed}.`,
     // The degree the network's fits used, in the fit's own sentence (the choice's, or that the project fixed it).
     ...(s.polynomialPart ? [s.polynomialPart.reason] : []),

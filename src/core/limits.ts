@@ -31,6 +31,8 @@ export const MAX_GAUSS_HERMITE_NODES = 64;
  * its discretised Stieltjes procedure keeps full accuracy to 32 nodes (boundedNormal.ts).
  */
 export const MAX_BOUNDED_NORMAL_NODES = 32;
+/** Fewest nodes per action a project may set: one node puts the action at the policy's mean (a rule exact to degree 1). The schema and the engine's check both read it. */
+export const MIN_QUADRATURE_NODES = 1;
 export const DEFAULT_QUADRATURE_NODES = 10;
 /**
  * Quadrature points per state (n^m, or (n + 2)^m with clipped limits). Every data pass evaluates

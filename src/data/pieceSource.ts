@@ -11,6 +11,13 @@ export interface PieceSource {
   readonly byteLength: number;
   /** Copy up to `length` bytes from file offset `position` into `into` at `offset`; the count copied (0 at the end of the file). */
   read(into: Uint8Array, offset: number, length: number, position: number): number;
+  /**
+   * False where the file is no longer as it was opened: its size or modification time differs from the
+   * host's fstat(2) before the first read. Asked after the last read, it catches most rewrites, also one
+   * at the same length between the first pass and the records (a file whose system keeps times to the
+   * second may hide one made within the same second). A host that cannot tell leaves it out.
+   */
+  unchangedSinceOpened?(): boolean;
 }
 
 export function isPieceSource(source: unknown): source is PieceSource {
@@ -35,6 +42,11 @@ export function pieceReadProblem(fileName: string, error: PieceReadError): Impor
 }
 
 export const CHANGED_WHILE_READ = 'the file changed while it was read (is a program still writing it?)';
+
+/** The problem of a file whose size or modification time moved while it was read (PieceSource.unchangedSinceOpened), naming the file. */
+export function changedWhileReadProblem(fileName: string): ImportProblem {
+  return importProblem('file-changed', fileName, `${CHANGED_WHILE_READ}; run again once it is written`);
+}
 
 /** Fill into[offset, offset + length) from file offset `position`, reading until done; throws PieceReadError when the file ends first or a read fails. */
 export function readFully(source: PieceSource, into: Uint8Array, offset: number, length: number, position: number): void {

@@ -11,9 +11,10 @@
  *
  * openRegularFile makes the same checks and leaves the file open, for a reader that takes it in
  * pieces by position (pread(2)) instead of holding it whole: the command line's import of a large
- * log (src/data/pieceSource.ts). Its length is the size fstat reported when it was opened.
+ * log (src/data/pieceSource.ts). Its length is the size fstat reported when it was opened, and it can
+ * say whether the file is still as it was then (size and modification time, fstat again).
  */
-import { constants, readSync } from 'node:fs';
+import { constants, fstatSync, readSync } from 'node:fs';
 import { open, type FileHandle } from 'node:fs/promises';
 
 /** Size limits (choices): a project is a few kilobytes; a CSV log of 10 million rows × 10 columns is ~1 GB. */
@@ -57,6 +58,8 @@ export interface RegularFile {
   readAll(): Promise<Uint8Array>;
   /** Up to `length` bytes from file offset `position` into `into` at `offset`, synchronously; the count read (0 at EOF). A refused read throws a HostFileError. */
   read(into: Uint8Array, offset: number, length: number, position: number): number;
+  /** False where the file's size or modification time now differs from when it was opened, or fstat now fails (a rewrite at the same length moves the time). */
+  unchangedSinceOpened(): boolean;
   close(): Promise<void>;
 }
 
@@ -71,6 +74,7 @@ export async function openRegularFile(path: string, options: RegularFileOptions)
     const stats = await handle.stat();
     if (!stats.isFile()) throw new HostFileError(options.what, path, `it is ${kindOf(stats)}, not a regular file`, 'ENOTREGULAR');
     if (stats.size > options.maxBytes) throw tooLarge(path, options, stats.size);
+    const opened = contentStamp(handle.fd); // before the first read
     return {
       byteLength: stats.size,
       readAll: () => readAll(handle, path, options, stats.size),
@@ -81,12 +85,25 @@ export async function openRegularFile(path: string, options: RegularFileOptions)
           throw new HostFileError(options.what, path, reasonOf(e), codeOf(e));
         }
       },
+      unchangedSinceOpened: () => {
+        try {
+          return contentStamp(handle.fd) === opened;
+        } catch {
+          return false;
+        }
+      },
       close: () => handle.close().catch(() => undefined),
     };
   } catch (e) {
     await handle.close().catch(() => undefined);
     throw e;
   }
+}
+
+/** What a rewrite changes: the size and the modification time to the nanosecond the file system keeps (fstat(2) st_size, st_mtim). */
+function contentStamp(fd: number): string {
+  const stats = fstatSync(fd, { bigint: true });
+  return `${stats.size}:${stats.mtimeNs}`;
 }
 
 /** Every byte up to EOF, refusing more than maxBytes (the size may be 0 or out of date). */

@@ -45,6 +45,8 @@ export function* dataFingerprintSteps(bytes: Uint8Array, create: Sha256Factory =
  * whole after its first pass; `hex()` is null while some byte was never read. A read from byte 0 starts
  * the hash afresh, so the digest is that of one pass from the start (the first pass, or the whole-file
  * read after it), never of the head as first read joined to the rest of a file rewritten in between.
+ * A rewrite at the same length between the passes leaves no trace in the bytes; the host's fstat does
+ * (PieceSource.unchangedSinceOpened, asked after the last read in openProject.ts).
  */
 export interface HashedPieces {
   readonly source: PieceSource;

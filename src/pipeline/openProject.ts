@@ -10,8 +10,8 @@ import { FqeCancelledError } from '../core/fqe/fqeErrors';
 import { importDatasetSteps, type HandedBytes, type ImportedDataset } from '../data/importDataset';
 import { parseProjectText } from '../project/projectFile';
 import type { ProjectDocument } from '../project/schema';
-import { dataFingerprintSteps, hashedWhileRead, pieceFingerprintSteps, type Sha256Factory } from './dataFingerprint';
-import { isPieceSource, PieceReadError, pieceReadProblem, type PieceSource } from '../data/pieceSource';
+import { dataFingerprintSteps, hashedWhileRead, pieceFingerprintSteps, type HashedPieces, type Sha256Factory } from './dataFingerprint';
+import { changedWhileReadProblem, isPieceSource, PieceReadError, pieceReadProblem, type PieceSource } from '../data/pieceSource';
 import { CANCELLED_PROBLEM } from './cancelledProblem';
 
 export interface OpenedProject {
@@ -102,18 +102,35 @@ function* importSteps(project: ProjectDocument, bytes: DataSource, hooks: Pick<I
   return imported.ok ? openedWith(project, imported, fingerprint) : imported;
 }
 
+/**
+ * The import of a file read in pieces, then the host's word that the file is as it was opened
+ * (PieceSource.unchangedSinceOpened, asked after the last read): a rewrite between the first pass and
+ * the records, even at the same length, would join two files' bytes, so it stops the import whatever
+ * the passes made of it.
+ */
 function* importPieceSteps(project: ProjectDocument, file: PieceSource, sha256?: Sha256Factory): PassSteps<Result<OpenedProject>> {
   const hashed = hashedWhileRead(file, sha256);
   const imported = yield* importDatasetSteps(hashed.source, project.data.path, project.data.csv, project.columns);
-  if (!imported.ok) return imported;
-  let fingerprint = hashed.hex();
+  if (!imported.ok) return changedWhileRead(file, project.data.path) ?? imported;
+  const fingerprint = yield* pieceFingerprint(file, hashed, project.data.path, sha256);
+  return changedWhileRead(file, project.data.path) ?? (fingerprint.ok ? openedWith(project, imported, fingerprint.value) : fingerprint);
+}
+
+/** The fingerprint taken while the import read the file, or by a read of its own where the import left bytes unread. */
+function* pieceFingerprint(file: PieceSource, hashed: HashedPieces, fileName: string, sha256?: Sha256Factory): PassSteps<Result<string>> {
+  const hex = hashed.hex();
+  if (hex !== null) return success(hex);
   try {
-    fingerprint ??= yield* pieceFingerprintSteps(file, sha256); // only where the import left bytes unread
+    return success(yield* pieceFingerprintSteps(file, sha256));
   } catch (e) {
-    if (e instanceof PieceReadError) return failure(pieceReadProblem(project.data.path, e));
+    if (e instanceof PieceReadError) return failure(pieceReadProblem(fileName, e));
     throw e;
   }
-  return openedWith(project, imported, fingerprint);
+}
+
+/** The failure to return after the last read where the host says the file is no longer as it was opened. */
+function changedWhileRead(file: PieceSource, fileName: string): Result<never> | null {
+  return file.unchangedSinceOpened?.() === false ? failure(changedWhileReadProblem(fileName)) : null;
 }
 
 /** The opened project, with a warning first when the data's fingerprint is not the one saved. */

@@ -8,9 +8,17 @@
 /** The words where a unit would stand and the project gives none. */
 export const NO_UNIT_GIVEN = 'no unit given';
 
+/**
+ * The unit as every host writes it: the project's `columns.reward.unit` without surrounding spaces, '' where
+ * it gives none or a blank one. The one place the unit is trimmed; the words, heads and axis titles read it.
+ */
+export function valueUnitText(unit: string | null | undefined): string {
+  return unit?.trim() ?? '';
+}
+
 /** "in €", or "no unit given" for a blank unit. */
 export function valueUnitWords(unit: string | null | undefined): string {
-  const u = unit?.trim() ?? '';
+  const u = valueUnitText(unit);
   return u ? `in ${u}` : NO_UNIT_GIVEN;
 }
 
@@ -24,6 +32,6 @@ export function valueSenseSentence(sense: 'cost' | 'reward', unit: string | null
  * head alone where it gives none — then the sentence above the table says "no unit given".
  */
 export function valueColumnHead(head: string, unit: string | null | undefined): string {
-  const u = unit?.trim() ?? '';
+  const u = valueUnitText(unit);
   return u ? `${head} (${u})` : head;
 }

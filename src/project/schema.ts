@@ -12,7 +12,7 @@ import { finite } from './finiteNumber';
 import { approximatorSchema } from './approximatorSchema';
 import {
   BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, MAX_DERIVED_STATES, MAX_RETUNE_MAPS, MAX_SCHEDULE_BREAKPOINTS, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
-  MAX_GAUSS_HERMITE_NODES, MAX_PREVIOUS_STEPS, MAX_STATE_COLUMNS, SEED, SURFACE_RESOLUTION,
+  MAX_GAUSS_HERMITE_NODES, MIN_QUADRATURE_NODES, MAX_PREVIOUS_STEPS, MAX_STATE_COLUMNS, SEED, SURFACE_RESOLUTION,
 } from '../core/limits';
 
 export const PROJECT_FORMAT = 'setpoint-critic-project';
@@ -316,7 +316,7 @@ export const projectSchema = strictObject({
   candidates: z.array(candidateSchema).min(1, 'expected at least one candidate policy').max(MAX_CANDIDATES, `at most ${MAX_CANDIDATES} candidates per project`),
   approximator: approximatorSchema,
   /** Per action dimension; with actuator limits the plan allows at most MAX_BOUNDED_NORMAL_NODES (src/core/limits.ts). */
-  quadratureNodes: z.number().int().min(1).max(MAX_GAUSS_HERMITE_NODES).default(DEFAULT_QUADRATURE_NODES),
+  quadratureNodes: z.number().int().min(MIN_QUADRATURE_NODES).max(MAX_GAUSS_HERMITE_NODES).default(DEFAULT_QUADRATURE_NODES),
   seed: z.number().int().min(SEED.min).max(SEED.max).default(SEED.default),
   startStates: startStatesSchema.default({ kind: 'episodeStarts' }),
   surface: surfaceSchema.optional(),

@@ -15,8 +15,8 @@ import { join } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { EXIT } from '../../src/cli/exitStatus';
 import { evaluateProjectFile } from '../../src/cli/evaluateProjectFile';
-import type { TerminalProgress } from '../../src/cli/terminalProgress';
 import { RECORDS_PER_STEP } from '../../src/data/columnReader';
+import { countingProgress } from '../support/countingProgress';
 
 const sample = join(__dirname, '..', '..', 'sample-projects', 'tank-levels');
 const COPIES = 10;
@@ -36,20 +36,12 @@ beforeAll(() => {
 afterAll(() => rmSync(folder, { recursive: true, force: true }));
 
 /** A terminal that "presses Ctrl+C" by an event-loop timer at the first yield; counts yields and fits begun. */
-function pressingCtrlC(yieldToEvents: boolean): { progress: TerminalProgress; seen: { paces: number; fits: number } } {
+function pressingCtrlC(yieldToEvents: boolean): ReturnType<typeof countingProgress> {
   let stop = false;
-  const seen = { paces: 0, fits: 0 };
-  const progress: TerminalProgress = {
-    evaluation: () => { seen.fits++; },
-    assessment: () => undefined,
-    cancelled: () => stop,
-    async pace() {
-      if (seen.paces++ === 0) setTimeout(() => { stop = true; }, 0);
-      if (yieldToEvents) await new Promise((resolve) => setTimeout(resolve, 0));
-    },
-    done: () => undefined,
-  };
-  return { progress, seen };
+  return countingProgress(async (paces) => {
+    if (paces === 0) setTimeout(() => { stop = true; }, 0);
+    if (yieldToEvents) await new Promise((resolve) => setTimeout(resolve, 0));
+  }, () => stop);
 }
 
 describe('cancelling the command line during the import', () => {

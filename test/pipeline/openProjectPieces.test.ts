@@ -2,7 +2,9 @@
  * openProject with a data file the host left open to be read in pieces (the command line's route
  * for a large log, pipeline/openProject.ts OpenDataFile) gives what the same bytes read whole give:
  * the same fingerprint (checked against Node's own SHA-256, and taken without a read of its own), transitions and import report, and the
- * file is closed after the import, also when the file ends early ('file-changed') or a stop request ends it.
+ * file is closed after the import, also when the file ends early ('file-changed') or a stop request ends it;
+ * a file rewritten at the same length between the first read and the records is refused once the host
+ * says so (PieceSource.unchangedSinceOpened, asked after the last read).
  * The log is the tank-levels sample's written three times over (run labels made distinct per copy),
  * over 2 MiB, so its records are read through the window (data/csvTable.ts).
  */
@@ -69,5 +71,38 @@ describe('openProject on a data file read in pieces', () => {
     expect(opened.ok).toBe(false);
     if (!opened.ok) expect(opened.problems[0]).toMatchObject({ kind: 'file-changed', where: 'long-log.csv' });
     expect(file.closed).toBe(1);
+  });
+
+  it('a file rewritten at the same length after its first read is refused naming the data path, "run again", and closed', async () => {
+    // The rewrite keeps every line's length and the CSV well formed (run labels 1- become 7-), so the passes alone cannot tell.
+    const rewritten = new TextEncoder().encode(new TextDecoder().decode(bytes).replaceAll('\n1-', '\n7-'));
+    expect(rewritten.length).toBe(bytes.length);
+    let reads = 0;
+    const file = openFile();
+    const read = file.read;
+    const stamp = () => (reads > 1 ? 'rewritten' : 'as opened'); // what the host's fstat would say
+    const injected = {
+      ...file,
+      read: (into: Uint8Array, offset: number, count: number, position: number) => {
+        if (++reads === 1) return read(into, offset, count, position);
+        const n = Math.max(0, Math.min(count, 1 << 20, rewritten.length - position));
+        into.set(rewritten.subarray(position, position + n), offset);
+        return n;
+      },
+      unchangedSinceOpened: () => stamp() === 'as opened',
+    };
+    const opened = await openProject(projectText, 'long-log.spcritic', async () => injected);
+    expect(reads).toBeGreaterThan(1);
+    expect(opened.ok).toBe(false);
+    if (!opened.ok) {
+      expect(opened.problems).toHaveLength(1);
+      expect(opened.problems[0]).toMatchObject({ kind: 'file-changed', where: 'long-log.csv' });
+      expect(opened.problems[0].message).toMatch(/changed while it was read.*run again/);
+    }
+    expect(file.closed).toBe(1);
+    // The same rewrite from a host that cannot tell (no unchangedSinceOpened) opens: what the check adds.
+    reads = 0;
+    const { unchangedSinceOpened: _, ...blind } = injected;
+    expect((await openProject(projectText, 'long-log.spcritic', async () => blind)).ok).toBe(true);
   });
 });

@@ -4,8 +4,10 @@
  * schema's optional `columns.reward.unit` is what a user fills in (README, project file).
  */
 import { describe, expect, it } from 'vitest';
-import { NO_UNIT_GIVEN, valueSenseSentence, valueUnitWords } from '../../src/pipeline/valueUnitWords';
-import { projectSchema } from '../../src/project/schema';
+import { NO_UNIT_GIVEN, valueColumnHead, valueSenseSentence, valueUnitText, valueUnitWords } from '../../src/pipeline/valueUnitWords';
+import { valueAxisLabel, valueUnit as reportValueUnit, type ReportInput } from '../../src/pipeline/report/reportInput';
+import { projectSchema, type ProjectDocument } from '../../src/project/schema';
+import { policyValueLabel, valueUnit as findingsValueUnit } from '../../src/renderer/src/screens/findings/plotLabels';
 
 describe('the unit of J in words', () => {
   it('says the unit a project gives, and "no unit given" for none or a blank one', () => {
@@ -26,5 +28,27 @@ describe('the unit of J in words', () => {
   it('says what J is once for the Findings\' answer and values tables, in the project\'s sense', () => {
     expect(valueSenseSentence('cost', '€')).toBe('J is the expected discounted cost from the start states on, in € (lower is better)');
     expect(valueSenseSentence('reward', undefined)).toBe('J is the expected discounted reward from the start states on, no unit given (higher is better)');
+  });
+});
+
+describe('one writer trims the unit for every host', () => {
+  // What a user reads is the same before and after the trim moved into valueUnitText: the unit without
+  // its surrounding spaces, and for an empty or absent unit the words "no unit given" and a bare head.
+  const doc = (unit: string | undefined) => ({ columns: { reward: { kind: 'column', column: 'cost', sense: 'cost', unit } } }) as unknown as ProjectDocument;
+  const input = (unit: string | undefined) => ({ project: doc(unit), evaluation: { valueSense: 'cost' } }) as unknown as ReportInput;
+  const cases: [string | undefined, string, string, string, string][] = [
+    // unit as typed, unit shown, words, column head, axis title
+    ['  € ', '€', 'in €', 'J (€)', 'J, discounted cost (€)'],
+    ['', '', NO_UNIT_GIVEN, 'J', 'J, discounted cost'],
+    [undefined, '', NO_UNIT_GIVEN, 'J', 'J, discounted cost'],
+  ];
+  it.each(cases)('unit %j reads %j in the words, heads, report and Findings', (typed, shown, words, head, axis) => {
+    expect(valueUnitText(typed)).toBe(shown);
+    expect(valueUnitWords(typed)).toBe(words);
+    expect(valueColumnHead('J', typed)).toBe(head);
+    expect(reportValueUnit(input(typed))).toBe(shown);
+    expect(valueAxisLabel(input(typed), 'J')).toBe(axis);
+    expect(findingsValueUnit(doc(typed))).toBe(shown);
+    expect(policyValueLabel('cost', findingsValueUnit(doc(typed)))).toBe(axis);
   });
 });

@@ -23,7 +23,7 @@ import type { NetworkFqeInput } from '../../src/core/fqe/networkFqe';
 import { defaultNetworkSettings } from '../../src/core/fqe/networkSettings';
 import { quadratureProblem } from '../../src/core/fqe/solveSettingChecks';
 import {
-  DISCOUNT_RANGE, MAX_BOUNDED_NORMAL_NODES, MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_QUADRATURE_POINTS, RIDGE, SEED, TOLERANCE,
+  DISCOUNT_RANGE, MAX_BOUNDED_NORMAL_NODES, MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_QUADRATURE_POINTS, MIN_QUADRATURE_NODES, RIDGE, SEED, TOLERANCE,
 } from '../../src/core/limits';
 import { createGaussianPolicy, type GaussianPolicy } from '../../src/core/policy';
 import { approximatorSchema } from '../../src/project/approximatorSchema';
@@ -70,7 +70,7 @@ describe('the schema and the engine hold every project limit at the same ends', 
   const project: ['discount' | 'quadratureNodes' | 'seed', number, boolean][] = [
     ['discount', DISCOUNT_RANGE.above, false], ['discount', above(DISCOUNT_RANGE.above), true],
     ['discount', below(DISCOUNT_RANGE.below), true], ['discount', DISCOUNT_RANGE.below, false],
-    ['quadratureNodes', 0, false], ['quadratureNodes', 1, true], ['quadratureNodes', MAX_GAUSS_HERMITE_NODES, true], ['quadratureNodes', MAX_GAUSS_HERMITE_NODES + 1, false],
+    ['quadratureNodes', MIN_QUADRATURE_NODES - 1, false], ['quadratureNodes', MIN_QUADRATURE_NODES, true], ['quadratureNodes', MAX_GAUSS_HERMITE_NODES, true], ['quadratureNodes', MAX_GAUSS_HERMITE_NODES + 1, false],
     ['quadratureNodes', 2.5, false],
   ];
   it.each(project)('%s = %d (accepted: %s), linear and network fits alike', (field, value, ok) => {

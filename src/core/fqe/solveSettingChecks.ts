@@ -7,7 +7,7 @@
  */
 import { FqeOptionsError } from './fqeErrors';
 import { hasActionLimits, type GaussianPolicy } from '../policy';
-import { DISCOUNT_RANGE, MAX_BOUNDED_NORMAL_NODES, MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_QUADRATURE_POINTS, RIDGE, TOLERANCE } from '../limits';
+import { DISCOUNT_RANGE, MAX_BOUNDED_NORMAL_NODES, MAX_GAUSS_HERMITE_NODES, MAX_ITERATIONS, MAX_QUADRATURE_POINTS, MIN_QUADRATURE_NODES, RIDGE, TOLERANCE } from '../limits';
 
 /** γ strictly inside DISCOUNT_RANGE: γ = 1 has no discounted value in general, γ = 0 no horizon to evaluate. */
 export function checkDiscount(discount: number): void {
@@ -35,8 +35,8 @@ export function checkMaxIterations(maxIterations: number): void {
 
 /** Nodes per action: a whole number the policy's rule can be built with (quadratureProblem), named as the project's field. */
 export function checkQuadratureNodes(policy: GaussianPolicy, nodes: number): void {
-  if (!Number.isInteger(nodes) || nodes < 1 || nodes > MAX_GAUSS_HERMITE_NODES) {
-    throw new FqeOptionsError(`quadratureNodes: expected a whole number from 1 to ${MAX_GAUSS_HERMITE_NODES}, got ${nodes}`);
+  if (!Number.isInteger(nodes) || nodes < MIN_QUADRATURE_NODES || nodes > MAX_GAUSS_HERMITE_NODES) {
+    throw new FqeOptionsError(`quadratureNodes: expected a whole number from ${MIN_QUADRATURE_NODES} to ${MAX_GAUSS_HERMITE_NODES}, got ${nodes}`);
   }
   const problem = quadratureProblem(policy, nodes);
   if (problem) throw new FqeOptionsError(`quadratureNodes: ${problem}`);
@@ -44,7 +44,7 @@ export function checkQuadratureNodes(policy: GaussianPolicy, nodes: number): voi
 
 /**
  * Why the action quadrature cannot be built for this policy with n nodes per action (n within the
- * schema's 1 … MAX_GAUSS_HERMITE_NODES), or null: with actuator limits the bounded-normal rule keeps
+ * schema's MIN_QUADRATURE_NODES … MAX_GAUSS_HERMITE_NODES), or null: with actuator limits the bounded-normal rule keeps
  * its accuracy to MAX_BOUNDED_NORMAL_NODES, and no rule may put more than MAX_QUADRATURE_POINTS points
  * on one state. The plan (pipeline/plan/planPolicies.ts) words a project's candidate by it too.
  */

@@ -5,6 +5,7 @@ import type { Assessment } from '../assessment';
 import type { Evaluation } from '../estimates';
 
 import type { RetuneMapResult } from '../retuneMaps';
+import { valueUnitText } from '../valueUnitWords';
 
 export interface ReportInput {
   project: ProjectDocument;
@@ -30,7 +31,7 @@ export function senseWords(input: ReportInput): { value: string; better: string;
 
 /** The cost's or reward's own unit from the project ('' when none). */
 export function valueUnit(input: ReportInput): string {
-  return input.project.columns.reward.unit?.trim() ?? '';
+  return valueUnitText(input.project.columns.reward.unit);
 }
 
 /** Rich-text axis title of V, Q or J: "V^{π}(s), discounted cost (€)". */

@@ -3,8 +3,8 @@ import type { Assessment } from '../assessment';
 import { summariseCandidate } from '../../project/candidateSummary';
 import { CAUTIONS } from '../cautions';
 import { html, formatNumber, formatWrittenAt, type Html } from './htmlText';
-import { senseWords, valueUnit, type ReportInput } from './reportInput';
-import { valueUnitWords } from '../valueUnitWords';
+import { valueUnit, type ReportInput } from './reportInput';
+import { valueSenseSentence } from '../valueUnitWords';
 import { TRIAL_RULE, trialAnswer, trialChoice } from '../trialChoice';
 import { policyLabel } from '../policyNames';
 import { centreText } from '../baselineWords';
@@ -14,11 +14,11 @@ import { shareText } from '../../core/shareText';
 import { horizonStepsText } from '../../core/horizonText';
 
 export function summarySection(input: ReportInput): Html {
-  const a = input.assessment, e = input.evaluation, words = senseWords(input);
+  const a = input.assessment, e = input.evaluation;
   const ranking = a?.comparison.ranking;
   const best = ranking ? policyLabel(ranking.order[0]) : [...e.policies].sort((x, y) => (e.valueSense === 'cost' ? x.policyValue - y.policyValue : y.policyValue - x.policyValue))[0]?.name;
   const serious = a ? [...a.warnings, ...a.candidates.flatMap((c) => c.warnings)].filter((w) => w.severity === 'serious').length : null;
-  return html`<div class="summary" id="summary"><p><strong>Summary.</strong> Values are the ${words.value}, ${valueUnitWords(valueUnit(input))} (${words.better}). By point estimate the best policy is
+  return html`<div class="summary" id="summary"><p><strong>Summary.</strong> ${valueSenseSentence(e.valueSense, valueUnit(input))}. By point estimate the best policy is
     <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.map(policyLabel).join(' › ')} holds in ${shareText(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
     ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p>
     ${a ? answerParagraph(input, a) : ''}</div>`;

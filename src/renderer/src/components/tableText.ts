@@ -11,7 +11,17 @@ export function tableCells(table: HTMLTableElement): string[][] {
 function cellText(cell: HTMLTableCellElement): string {
   const copy = cell.cloneNode(true) as HTMLElement;
   copy.querySelectorAll('details').forEach((d) => d.remove());
-  return (copy.textContent ?? '').replace(/\s+/g, ' ').trim();
+  return plainCellText(copy.textContent ?? '');
+}
+
+/**
+ * A cell's words for a file or the clipboard: every run of white space one plain space, the no-break
+ * spaces that hold a formula or a "%" together on screen (core/formulaText.ts, core/shareText.ts)
+ * included (U+00A0 is white space to \s, ECMA-262 §12.2), since nothing wraps in a CSV file and a
+ * user searches it for "1/(1 − γ)" as typed.
+ */
+export function plainCellText(text: string): string {
+  return text.replace(/\s+/g, ' ').trim();
 }
 
 function defused(text: string): string {

@@ -4,6 +4,7 @@ import type { ProjectDocument } from '../../../../project/schema';
 import { discountWithHorizon } from '../estimator/discountHorizon';
 import { keepUnitGroups } from '../../../../core/unitGroups';
 import { policyLabel } from '../../../../pipeline/policyNames';
+import { valueUnitText } from '../../../../pipeline/valueUnitWords';
 
 export function stateLabel(doc: ProjectDocument, index: number): string {
   const s = doc.columns.states[index];
@@ -17,7 +18,7 @@ export function actionLabel(doc: ProjectDocument, index: number): string {
 
 /** The cost's or reward's own unit from the project, '' when none is given. */
 export function valueUnit(doc: ProjectDocument): string {
-  return doc.columns.reward.unit?.trim() ?? '';
+  return valueUnitText(doc.columns.reward.unit);
 }
 
 /** What the plotted values are, as rich text for an axis: "V^{π}(s), discounted cost (€)". */
