@@ -19,7 +19,7 @@ import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { resampleBellmanStatisticsBlock, type EpisodeBellmanSums } from './episodeBellmanSums';
 import { meanStartFeatures } from '../features/policyFeatures';
 import { holdsStartState, startMultiplicities } from './startMultiplicities';
-import { countWork, solveWork, type SolveTally } from './solveWork';
+import { countWork, overBudget, solveWork, stepsAllowed, type SolveTally } from './solveWork';
 
 /**
  * iteration: the iterate at the tolerance, or — as the pipeline reports it — the fixed point when
@@ -58,6 +58,8 @@ export interface LinearReplicate {
   readonly status: ReplicateStatus;
   /** Steps of the fitted Q-evaluation iteration run for it (0 where none ran: solved at its fixed point only, or no solution). */
   readonly iterations?: number;
+  /** Work its solve did, multiply-adds (solveWork.ts; reachedSolve only, the ridge system passed in not included). */
+  readonly work?: number;
 }
 
 export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: ArrayLike<number>, scratch: Float64Array = new Float64Array(setup.sums.stride)): LinearReplicate {
@@ -93,6 +95,7 @@ export function linearFqeReplicateDiscounts(
 ): (number | null)[][] {
   const d = setup.sums.dim;
   return replicateBlock(setup, block, scratch, (stats, xiBar) => {
+    if (tally && overBudget(tally)) return discounts.map(() => null); // the caller drops the block's answers
     countWork(tally, solveWork.statistics(setup.sums.episodes, d));
     const system = replicateSystem(setup, stats, tally);
     return discounts.map((discount, k) => {
@@ -141,13 +144,23 @@ export function replicateSystem(setup: Pick<LinearSolveSettings, 'ridge' | 'cons
  *
  * system: the statistics' ridge system where the caller has formed it (replicateSystem; the same at
  * every discount). The bound is formed at most once per call and handed to the iteration that needs it.
+ * tally: the work is added to it, and its limit stops an iteration (solveWork.ts); the answer's work
+ * says what this call did.
  */
 export function reachedSolve(
   setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array, system: ReplicateSystem = replicateSystem(setup, stats), tally?: SolveTally,
 ): LinearReplicate {
+  const own: SolveTally = { units: 0, limit: tally?.limit === undefined ? undefined : tally.limit - tally.units };
+  const fit = reachedOnSystem(setup, system, xiBar, own);
+  countWork(tally, own.units);
+  if (tally && own.exhausted) tally.exhausted = true;
+  return { ...fit, work: own.units };
+}
+
+function reachedOnSystem(setup: LinearSolveSettings, system: ReplicateSystem, xiBar: Float64Array, tally: SolveTally): LinearReplicate {
   const bound = contractionBound(system, setup.discount, tally), contracts = () => bound() < 1;
   const fit = solveOnSystem(setup, system, xiBar, bound, tally);
-  if (setup.solver === 'iteration') return fit.status === 'maxIterations' && contracts() ? atFixedPoint(setup, system, xiBar, fit, bound, tally) : fit;
+  if (setup.solver === 'iteration') return fit.status === 'maxIterations' && !tally.exhausted && contracts() ? atFixedPoint(setup, system, xiBar, fit, bound, tally) : fit;
   if (fit.status !== 'converged' || contracts()) return fit;
   const iterated = solveOnSystem({ ...setup, solver: 'iteration' }, system, xiBar, bound, tally);
   return iterated.status === 'converged' ? { ...fit, iterations: iterated.iterations } : { policyValue: null, weights: null, status: iterated.status, iterations: iterated.iterations };
@@ -192,20 +205,29 @@ export function solveReplicate(setup: LinearSolveSettings, stats: BellmanStatist
   return solveOnSystem(setup, system, xiBar, contractionBound(system, setup.discount));
 }
 
+/** An iteration the tally's limit stopped: no answer, and the tally says why. */
+function exhausted(tally: SolveTally): LinearReplicate {
+  tally.exhausted = true;
+  return { policyValue: null, weights: null, status: 'maxIterations' };
+}
+
 /** The solve on a formed ridge system, by setup.solver; bound: the iteration's spectral-radius bound, asked for only by the iteration. */
 function solveOnSystem(setup: LinearSolveSettings, system: ReplicateSystem, xiBar: Float64Array, bound: () => number, tally?: SolveTally): LinearReplicate {
   const { stats, gram, factor } = system, d = stats.dim;
   if (!factor) return { policyValue: null, weights: null, status: 'singular' };
   let status: ReplicateStatus = 'converged', weights: Float64Array | null = null, iterations = 0;
   if (setup.solver === 'iteration') {
+    const allowed = Math.min(setup.maxIterations, stepsAllowed(tally, d));
+    if (allowed < 1) return exhausted(tally!);
     const outcome = runFqeIteration({
-      stats, factor, discount: setup.discount, tolerance: setup.tolerance, maxIterations: setup.maxIterations,
+      stats, factor, discount: setup.discount, tolerance: setup.tolerance, maxIterations: allowed,
       initialWeights: setup.initialWeights, startFeatures: xiBar, spectralRadiusBound: bound(),
     });
     status = outcome.status;
     weights = outcome.weights;
     iterations = outcome.history.length;
     countWork(tally, solveWork.steps(d, iterations));
+    if (allowed < setup.maxIterations && status === 'maxIterations') return exhausted(tally!);
   }
   if (!weights) {
     countWork(tally, solveWork.fixedPoint(d));

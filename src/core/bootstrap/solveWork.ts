@@ -13,9 +13,16 @@
  *   FQE iteration step          5·d²     (M w, a Cholesky solve, the Bellman residual's three products; fqeIteration.ts)
  */
 
-/** A running count of the work done, in multiply-adds; the caller owns it and reads it between blocks. */
+/**
+ * A running count of the work done, in multiply-adds; the caller owns it and reads it between blocks.
+ * limit: where set, no FQE iteration is let run past it (its steps are the one part of a solve without
+ * a bound of its own but maxIterations), and exhausted says that one was stopped there, so its answer
+ * is not the solve's and the caller must not use the block's.
+ */
 export interface SolveTally {
   units: number;
+  readonly limit?: number;
+  exhausted?: boolean;
 }
 
 export const solveWork = {
@@ -26,6 +33,17 @@ export const solveWork = {
   bound: (d: number, squarings: number): number => squarings * d ** 3,
   steps: (d: number, steps: number): number => 5 * steps * d * d,
 };
+
+/** Steps of an FQE iteration on d features the tally still allows (Infinity without a tally or a limit). */
+export function stepsAllowed(tally: SolveTally | undefined, d: number): number {
+  if (tally?.limit === undefined) return Infinity;
+  return Math.max(0, Math.floor((tally.limit - tally.units) / solveWork.steps(d, 1)));
+}
+
+/** True when the tally has reached its limit, or an iteration was stopped at it. */
+export function overBudget(tally: SolveTally): boolean {
+  return tally.exhausted === true || (tally.limit !== undefined && tally.units >= tally.limit);
+}
 
 /** Adds units to the tally where there is one. */
 export function countWork(tally: SolveTally | undefined, units: number): void {
