@@ -17,7 +17,7 @@
  */
 import { meanStartFeatures, startStateFeatures } from '../core/features/policyFeatures';
 import { POLYNOMIAL_DEGREE_RANGE, RADIAL_CENTRES_RANGE } from '../core/limits';
-import { reachedSolve } from '../core/bootstrap/linearFqeReplicate';
+import { reachedSolve, replicateSystem } from '../core/bootstrap/linearFqeReplicate';
 import { bellmanStatisticsSteps } from '../core/fqe/bellmanStatistics';
 import { createPacer, PACE_INTERVAL_MS, runStepsPaced, throwIfCancelled } from '../core/fqe/cancellation';
 import { loggedDiscountedReturns } from '../core/loggedReturn';
@@ -66,12 +66,12 @@ function discountCurve(context: AssessmentContext, works: CandidateWork[], sign:
   const { plan } = context, settings = HORIZON_FACTORS.map((f) => sweptDiscount(plan.discount, f)), projectIndex = HORIZON_FACTORS.indexOf(1);
   const fitted = works.map((w) => {
     const setup = linearSolveSettings(plan, w.model), { statistics, startFeatures, features } = w.model.linear!;
-    const xiBar = meanStartFeatures(startFeatures, features.dim);
+    const xiBar = meanStartFeatures(startFeatures, features.dim), system = replicateSystem(setup, statistics); // G + λD and its factor: the same at every γ
     // The project's own point carries its fit's status, as in the feature sweep (ownPoint): where that fit diverged its weights
     // are the fixed point, from which the iteration at the same discount stops at once and would read as converged.
     return settings.map((g, k) => (k === projectIndex && w.model.fit.status !== 'converged'
       ? { policyValue: w.model.fit.policyValue, weights: null, status: w.model.fit.status }
-      : reachedSolve({ ...setup, discount: g }, statistics, xiBar)));
+      : reachedSolve({ ...setup, discount: g }, statistics, xiBar, system)));
   });
   const swept = checkDiscountSweep(context, works, settings, projectIndex, fitted, check);
   const series: SensitivitySeries[] = works.map((w, c) => ({

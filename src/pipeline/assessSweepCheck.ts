@@ -17,11 +17,16 @@
  * unbounded, and a project with no bound is not checked — never the logged range, which a right J of a
  * candidate that takes the plant to costlier steps breaks (rewardRange).
  * Only a linear fit with exact resampling is checked, within SWEEP_CHECK_BUDGET and with at least
- * SWEEP_CHECK_MIN_PAIRED resamples; the others say so, with the reason.
+ * SWEEP_CHECK_MIN_PAIRED resamples; the others say so, with the reason. The budget counts what runs, by
+ * one cost model (core/bootstrap/solveWork.ts): a candidate is skipped before it starts where the full
+ * data's own solves say its resamples would take more (expectedWork), and stopped, unchecked, where
+ * what its resamples ran reaches the budget (a resample that does not contract iterates up to
+ * maxIterations, which the full data's solves do not foresee).
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicateDiscounts, type LinearReplicate, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
 import { bootstrapInterval } from '../core/bootstrap/bootstrapInterval';
+import { overBudget, solveWork, type SolveTally } from '../core/bootstrap/solveWork';
 import { loggedRewardRange, POSSIBLE_SLACK } from '../core/diagnostics/possibleValues';
 import { changeIntervalImpossible, fewestWrong, possibleChange, type ImpossibleChange, type PossibleChange } from '../core/diagnostics/possibleChange';
 import { throwIfCancelled } from '../core/fqe/cancellation';
@@ -42,6 +47,8 @@ export interface SweepCheck {
   warnings: AssessmentWarning[][];
   /** Why some or all candidates were not checked; null when every one was. */
   note: string | null;
+  /** Per candidate: the work its check ran, multiply-adds (core/bootstrap/solveWork.ts); 0 where none ran. */
+  work: number[];
 }
 
 export interface SweepCheckSettings {
@@ -65,19 +72,15 @@ export function checkDiscountSweep(
   const { plan } = context, e = plan.episodes.episodes, b = Math.min(SWEEP_CHECK_RESAMPLES, check.resamples);
   const marks = works.map(() => settings.map(() => false)), warnings: AssessmentWarning[][] = works.map(() => []);
   const bounds = rewardRange(plan), skipped: { name: string; reason: SkipReason }[] = [], partly: { name: string; pairs: number }[] = [];
-  const gaps: { name: string; at: number[] }[] = [];
-  if (bounds === null) return { marks, warnings, note: unboundedNote(plan) };
+  const gaps: { name: string; at: number[] }[] = [], work = works.map(() => 0);
+  if (bounds === null) return { marks, warnings, note: unboundedNote(plan), work };
   const draws = Array.from({ length: b }, (_, r) => episodeMultiplicities(e, check.seed, r));
   works.forEach((w, c) => {
     throwIfCancelled(context.cancel);
     const linear = w.model.linear;
     if (!linear || linear.resampling.kind !== 'exact') return void skipped.push({ name: w.model.name, reason: 'linearised' });
     if (b < SWEEP_CHECK_MIN_PAIRED) return void skipped.push({ name: w.model.name, reason: 'resamples' });
-    const d = linear.features.dim;
-    // A resample's solve at a discount: the fixed point (d³) and the iteration that must reach it (rule of reachedSolve), counted at the
-    // steps the full data's own iteration took there (a resample's starts from the full data's answer, nearer its own).
-    const steps = points[c].reduce((sum, p) => sum + (p.iterations ?? 0), 0);
-    if ((e * d * d + settings.length * d ** 3 + steps * d * d) * b > SWEEP_CHECK_BUDGET) return void skipped.push({ name: w.model.name, reason: 'budget' });
+    if (expectedWork(points[c], e, linear.features.dim) * b > SWEEP_CHECK_BUDGET) return void skipped.push({ name: w.model.name, reason: 'budget' });
     const setup: LinearReplicateSetup = {
       ...linearSolveSettings(plan, w.model), sums: linear.resampling.sums, startFeatures: linear.startFeatures,
       startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode,
@@ -87,7 +90,11 @@ export function checkDiscountSweep(
     const missing = settings.flatMap((_, k) => (values[k] === null ? [k] : []));
     if (missing.length) gaps.push({ name: w.model.name, at: missing });
     const scratch = Array.from({ length: RESAMPLE_BLOCK }, () => new Float64Array(setup.sums.stride)), replicates: (number | null)[][] = [];
-    for (let first = 0; first < b; first += RESAMPLE_BLOCK) replicates.push(...linearFqeReplicateDiscounts(setup, draws.slice(first, first + RESAMPLE_BLOCK), scratch, settings, starts));
+    // What runs is counted as it runs: a resample that does not contract may iterate to maxIterations, which no estimate foresees.
+    const tally: SolveTally = { units: 0, limit: SWEEP_CHECK_BUDGET };
+    for (let first = 0; first < b && !overBudget(tally); first += RESAMPLE_BLOCK) replicates.push(...linearFqeReplicateDiscounts(setup, draws.slice(first, first + RESAMPLE_BLOCK), scratch, settings, starts, tally));
+    work[c] = tally.units;
+    if (overBudget(tally)) return void skipped.push({ name: w.model.name, reason: 'budget' });
     const found: Failing[] = [];
     let thin = 0;
     for (let i = 0; i < settings.length; i++) {
@@ -114,7 +121,18 @@ export function checkDiscountSweep(
   const notes = [
     ...(skipped.length ? [notCheckedNote(plan, skipped, works.length, b)] : []), ...gaps.map((x) => gapsNote(x.name, x.at, settings)), ...partly.map((x) => partlyCheckedNote(x.name, x.pairs, b)),
   ];
-  return { marks, warnings, note: notes.length ? notes.join(' ') : null };
+  return { marks, warnings, note: notes.length ? notes.join(' ') : null, work };
+}
+
+/**
+ * The work one resample's solves are expected to take, by the cost model that counts them
+ * (core/bootstrap/solveWork.ts): its statistics and ridge system, and at each swept discount with a J
+ * the work the full data's own solve did there (a resample's starts from the full data's answer, so
+ * seldom needs more; one that does not contract may, and the running tally stops it).
+ */
+function expectedWork(points: readonly LinearReplicate[], episodes: number, d: number): number {
+  const solves = points.reduce((sum, p) => sum + (p.status === 'converged' ? p.work ?? 0 : 0), 0);
+  return solveWork.statistics(episodes, d) + solveWork.ridgeSystem(d) + solves;
 }
 
 /** How far a pair reaches from the project's discount: the farther of its two settings (a pair holding the project's own and its neighbour is nearest). */

@@ -14,11 +14,12 @@ import { dot } from '../linalg/dense';
 import { FqeDataError } from '../fqe/fqeErrors';
 import { runFqeIteration, type FqeStatus } from '../fqe/fqeIteration';
 import { fixedPointWeights, iterationMatrix, ridgeGram, ridgeGramFactor } from '../fqe/ridgeSystem';
-import { spectralRadiusBound } from '../fqe/spectralRadiusBound';
+import { countedSpectralRadiusBound } from '../fqe/spectralRadiusBound';
 import type { BellmanStatistics } from '../fqe/bellmanStatistics';
 import { resampleBellmanStatisticsBlock, type EpisodeBellmanSums } from './episodeBellmanSums';
 import { meanStartFeatures } from '../features/policyFeatures';
 import { holdsStartState, startMultiplicities } from './startMultiplicities';
+import { countWork, overBudget, solveWork, stepsAllowed, type SolveTally } from './solveWork';
 
 /**
  * iteration: the iterate at the tolerance, or — as the pipeline reports it — the fixed point when
@@ -57,6 +58,8 @@ export interface LinearReplicate {
   readonly status: ReplicateStatus;
   /** Steps of the fitted Q-evaluation iteration run for it (0 where none ran: solved at its fixed point only, or no solution). */
   readonly iterations?: number;
+  /** Work its solve did, multiply-adds (solveWork.ts; reachedSolve only, the ridge system passed in not included). */
+  readonly work?: number;
 }
 
 export function linearFqeReplicate(setup: LinearReplicateSetup, multiplicities: ArrayLike<number>, scratch: Float64Array = new Float64Array(setup.sums.stride)): LinearReplicate {
@@ -73,28 +76,56 @@ export function linearFqeReplicateBlock(setup: LinearReplicateSetup, block: read
 }
 
 /**
- * linearFqeReplicateBlock at several discounts: each resample's statistics, which do not depend on
- * γ, formed once and solved at each discount (for a discount sweep's paired changes) by the sweep's
- * own rule (reachedSolve). values[r][k] is resample r's J at discounts[k]; null where that solve has
- * no solution or the iteration does not reach it, and at every discount whose startWeights[k] is
- * null (the full data's own point there has no J, so no pair holds it).
+ * linearFqeReplicateBlock at several discounts: each resample's statistics and ridge system (G + λD
+ * and its factor), which do not depend on γ, formed once and solved at each discount (for a discount
+ * sweep's paired changes) by the sweep's own rule (reachedSolve). values[r][k] is resample r's J at
+ * discounts[k]; null where that solve has no solution or the iteration does not reach it, and at every
+ * discount whose startWeights[k] is null (the full data's own point there has no J, so no pair holds it).
  *
  * startWeights[k]: where the iteration at discounts[k] starts — the full data's weights at that
  * discount. Whether an affine iteration w ← Aw + c reaches its fixed point does not depend on where it
  * starts (it does from every start exactly when the spectral radius of A is below 1; common practice,
  * e.g. Golub & Van Loan, "Matrix Computations", 4th ed., §11.2), so the verdict is the drawn point's
- * rule; started near the resample's answer, it needs only the steps from there.
+ * rule; started near the resample's answer, it needs only the steps from there. tally: where given, the
+ * work done is added to it (solveWork.ts), the statistics' included.
  */
 export function linearFqeReplicateDiscounts(
   setup: LinearReplicateSetup, block: readonly ArrayLike<number>[], scratch: readonly Float64Array[], discounts: readonly number[],
-  startWeights: readonly (Float64Array | null)[],
+  startWeights: readonly (Float64Array | null)[], tally?: SolveTally,
 ): (number | null)[][] {
-  return replicateBlock(setup, block, scratch, (stats, xiBar) => discounts.map((discount, k) => {
-    const from = startWeights[k];
-    if (!from) return null;
-    const fit = reachedSolve({ ...setup, discount, initialWeights: from }, stats, xiBar);
-    return fit.status === 'converged' ? fit.policyValue : null;
-  }), discounts.map(() => null));
+  const d = setup.sums.dim;
+  return replicateBlock(setup, block, scratch, (stats, xiBar) => {
+    if (tally && overBudget(tally)) return discounts.map(() => null); // the caller drops the block's answers
+    countWork(tally, solveWork.statistics(setup.sums.episodes, d));
+    const system = replicateSystem(setup, stats, tally);
+    return discounts.map((discount, k) => {
+      const from = startWeights[k];
+      if (!from) return null;
+      const fit = reachedSolve({ ...setup, discount, initialWeights: from }, stats, xiBar, system, tally);
+      return fit.status === 'converged' ? fit.policyValue : null;
+    });
+  }, discounts.map(() => null));
+}
+
+/**
+ * G + λD and its lower Cholesky factor on one set of statistics (ridgeSystem.ts): what every solve on
+ * them shares, at any discount and by either route. factor is null where G + λD has none (singular).
+ */
+export interface ReplicateSystem {
+  readonly stats: BellmanStatistics;
+  readonly gram: Float64Array; // d×d
+  readonly factor: Float64Array | null; // d×d lower
+}
+
+export function replicateSystem(setup: Pick<LinearSolveSettings, 'ridge' | 'constantIndex'>, stats: BellmanStatistics, tally?: SolveTally): ReplicateSystem {
+  const d = stats.dim, gram = ridgeGram(stats, setup.ridge, setup.constantIndex);
+  countWork(tally, solveWork.ridgeSystem(d));
+  try {
+    return { stats, gram, factor: ridgeGramFactor(gram, d, setup.ridge) };
+  } catch (error) {
+    if (error instanceof FqeDataError) return { stats, gram, factor: null };
+    throw error;
+  }
 }
 
 /**
@@ -110,25 +141,52 @@ export function linearFqeReplicateDiscounts(
  * converge at the project's discount) that stops at its limit while provably contracting is, by the
  * same rule, converged at its fixed point. The fixed point exists wherever its equations are regular,
  * reachable or not, so without this a discount where the iteration diverges would still give a number.
+ *
+ * system: the statistics' ridge system where the caller has formed it (replicateSystem; the same at
+ * every discount). The bound is formed at most once per call and handed to the iteration that needs it.
+ * tally: the work is added to it, and its limit stops an iteration (solveWork.ts); the answer's work
+ * says what this call did.
  */
-export function reachedSolve(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
-  const fit = solveReplicate(setup, stats, xiBar);
-  if (setup.solver === 'iteration') return fit.status === 'maxIterations' && provablyContracts(setup, stats) ? atFixedPoint(setup, stats, xiBar, fit) : fit;
-  if (fit.status !== 'converged' || provablyContracts(setup, stats)) return fit;
-  const iterated = solveReplicate({ ...setup, solver: 'iteration' }, stats, xiBar);
+export function reachedSolve(
+  setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array, system: ReplicateSystem = replicateSystem(setup, stats), tally?: SolveTally,
+): LinearReplicate {
+  const own: SolveTally = { units: 0, limit: tally?.limit === undefined ? undefined : tally.limit - tally.units };
+  const fit = reachedOnSystem(setup, system, xiBar, own);
+  countWork(tally, own.units);
+  if (tally && own.exhausted) tally.exhausted = true;
+  return { ...fit, work: own.units };
+}
+
+function reachedOnSystem(setup: LinearSolveSettings, system: ReplicateSystem, xiBar: Float64Array, tally: SolveTally): LinearReplicate {
+  const bound = contractionBound(system, setup.discount, tally), contracts = () => bound() < 1;
+  const fit = solveOnSystem(setup, system, xiBar, bound, tally);
+  if (setup.solver === 'iteration') return fit.status === 'maxIterations' && !tally.exhausted && contracts() ? atFixedPoint(setup, system, xiBar, fit, bound, tally) : fit;
+  if (fit.status !== 'converged' || contracts()) return fit;
+  const iterated = solveOnSystem({ ...setup, solver: 'iteration' }, system, xiBar, bound, tally);
   return iterated.status === 'converged' ? { ...fit, iterations: iterated.iterations } : { policyValue: null, weights: null, status: iterated.status, iterations: iterated.iterations };
 }
 
 /** An iteration stopped at its limit while provably contracting: its limit, the fixed point, as reportedSolution.ts reports such a fit (converged). */
-function atFixedPoint(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array, stopped: LinearReplicate): LinearReplicate {
-  const fixed = solveReplicate({ ...setup, solver: 'fixedPoint' }, stats, xiBar);
+function atFixedPoint(setup: LinearSolveSettings, system: ReplicateSystem, xiBar: Float64Array, stopped: LinearReplicate, bound: () => number, tally?: SolveTally): LinearReplicate {
+  const fixed = solveOnSystem({ ...setup, solver: 'fixedPoint' }, system, xiBar, bound, tally);
   return fixed.status === 'converged' ? { ...fixed, iterations: stopped.iterations } : stopped;
 }
 
-/** True when the FQE iteration on these statistics provably contracts: the bound on its matrix's spectral radius is below 1. */
-function provablyContracts(setup: LinearSolveSettings, stats: BellmanStatistics): boolean {
-  const d = stats.dim, factor = ridgeGramFactor(ridgeGram(stats, setup.ridge, setup.constantIndex), d, setup.ridge);
-  return spectralRadiusBound(iterationMatrix(stats, factor, setup.discount), d) < 1;
+/**
+ * The spectral-radius bound of the FQE iteration matrix γ(G + λD)⁻¹M on a system with a factor,
+ * formed on first use and then kept: the contraction test and the iteration's divergence test read
+ * the same number.
+ */
+function contractionBound(system: ReplicateSystem, discount: number, tally?: SolveTally): () => number {
+  let bound: number | undefined;
+  return () => {
+    if (bound === undefined) {
+      const d = system.stats.dim, counted = countedSpectralRadiusBound(iterationMatrix(system.stats, system.factor!, discount), d);
+      countWork(tally, solveWork.iterationMatrix(d) + solveWork.bound(d, counted.squarings));
+      bound = counted.bound;
+    }
+    return bound;
+  };
 }
 
 function replicateBlock<T>(
@@ -143,27 +201,37 @@ function replicateBlock<T>(
 
 /** The solve on given statistics (also used for the full data and for a discount sweep). */
 export function solveReplicate(setup: LinearSolveSettings, stats: BellmanStatistics, xiBar: Float64Array): LinearReplicate {
-  const d = stats.dim, a = ridgeGram(stats, setup.ridge, setup.constantIndex);
-  let factor: Float64Array;
-  try {
-    factor = ridgeGramFactor(a, d, setup.ridge);
-  } catch (error) {
-    if (error instanceof FqeDataError) return { policyValue: null, weights: null, status: 'singular' };
-    throw error;
-  }
+  const system = replicateSystem(setup, stats);
+  return solveOnSystem(setup, system, xiBar, contractionBound(system, setup.discount));
+}
+
+/** An iteration the tally's limit stopped: no answer, and the tally says why. */
+function exhausted(tally: SolveTally): LinearReplicate {
+  tally.exhausted = true;
+  return { policyValue: null, weights: null, status: 'maxIterations' };
+}
+
+/** The solve on a formed ridge system, by setup.solver; bound: the iteration's spectral-radius bound, asked for only by the iteration. */
+function solveOnSystem(setup: LinearSolveSettings, system: ReplicateSystem, xiBar: Float64Array, bound: () => number, tally?: SolveTally): LinearReplicate {
+  const { stats, gram, factor } = system, d = stats.dim;
+  if (!factor) return { policyValue: null, weights: null, status: 'singular' };
   let status: ReplicateStatus = 'converged', weights: Float64Array | null = null, iterations = 0;
   if (setup.solver === 'iteration') {
+    const allowed = Math.min(setup.maxIterations, stepsAllowed(tally, d));
+    if (allowed < 1) return exhausted(tally!);
     const outcome = runFqeIteration({
-      stats, factor, discount: setup.discount, tolerance: setup.tolerance, maxIterations: setup.maxIterations,
-      initialWeights: setup.initialWeights, startFeatures: xiBar,
-      spectralRadiusBound: spectralRadiusBound(iterationMatrix(stats, factor, setup.discount), d),
+      stats, factor, discount: setup.discount, tolerance: setup.tolerance, maxIterations: allowed,
+      initialWeights: setup.initialWeights, startFeatures: xiBar, spectralRadiusBound: bound(),
     });
     status = outcome.status;
     weights = outcome.weights;
     iterations = outcome.history.length;
+    countWork(tally, solveWork.steps(d, iterations));
+    if (allowed < setup.maxIterations && status === 'maxIterations') return exhausted(tally!);
   }
   if (!weights) {
-    const fixed = fixedPointWeights(stats, a, setup.discount);
+    countWork(tally, solveWork.fixedPoint(d));
+    const fixed = fixedPointWeights(stats, gram, setup.discount);
     if ('failure' in fixed) return { policyValue: null, weights: null, status: 'singular', iterations };
     weights = fixed.weights;
   }

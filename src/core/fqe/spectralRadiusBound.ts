@@ -15,14 +15,20 @@ const MAX_SQUARINGS = 30;
 
 /** t: n×n row-major. Returns a bound ≥ ρ(t); 0 for a nilpotent matrix. */
 export function spectralRadiusBound(t: Float64Array, n: number, stopBelow = 1 - 1e-3): number {
+  return countedSpectralRadiusBound(t, n, stopBelow).bound;
+}
+
+/** spectralRadiusBound with the squarings it ran (each an n×n product, n³ multiply-adds), for a budget that counts what runs. */
+export function countedSpectralRadiusBound(t: Float64Array, n: number, stopBelow = 1 - 1e-3): { bound: number; squarings: number } {
   let power = Float64Array.from(t), square = new Float64Array(n * n);
   let logNorm = normalise(power); // log ‖T^k‖_F with power = T^k/‖T^k‖_F
-  if (logNorm === -Infinity) return 0;
-  let k = 1, bound = Math.exp(logNorm);
-  for (let p = 0; p < MAX_SQUARINGS; p++) {
+  if (logNorm === -Infinity) return { bound: 0, squarings: 0 };
+  let k = 1, bound = Math.exp(logNorm), p = 0;
+  while (p < MAX_SQUARINGS) {
     multiplyInto(power, power, square, n);
+    p++;
     const logScale = normalise(square);
-    if (logScale === -Infinity) return 0; // T^(2k) = 0 to working precision
+    if (logScale === -Infinity) return { bound: 0, squarings: p }; // T^(2k) = 0 to working precision
     [power, square] = [square, power];
     logNorm = 2 * logNorm + logScale;
     k *= 2;
@@ -31,7 +37,7 @@ export function spectralRadiusBound(t: Float64Array, n: number, stopBelow = 1 - 
     bound = next;
     if (bound < stopBelow || settled) break;
   }
-  return bound;
+  return { bound, squarings: p };
 }
 
 /** Divide a by its Frobenius norm in place; returns log of that norm (−∞ for a zero matrix). */
