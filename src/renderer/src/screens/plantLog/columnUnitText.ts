@@ -5,6 +5,7 @@
  */
 import { END_OF_RUN_ROLE, RUN_ROLE } from '../../../../data/columnPlan';
 import { NO_UNIT_GIVEN } from '../../../../pipeline/valueUnitWords';
+import type { ProjectDocument } from '../../../../project/schema';
 
 /** Roles (data/columnPlan.ts) whose columns hold an identifier or a flag. */
 const UNITLESS_ROLES: readonly string[] = [RUN_ROLE, END_OF_RUN_ROLE];
@@ -12,4 +13,13 @@ const UNITLESS_ROLES: readonly string[] = [RUN_ROLE, END_OF_RUN_ROLE];
 export function columnUnitText(roles: readonly string[], given: string | undefined): string {
   if (given !== undefined) return given;
   return roles.length > 0 && roles.every((r) => UNITLESS_ROLES.includes(r)) ? '—' : NO_UNIT_GIVEN;
+}
+
+/** Each column's unit as the project holds it (trimmed, project/unitText.ts): states, actions, the reward or cost, derived states. */
+export function columnUnits(doc: ProjectDocument): Map<string, string> {
+  const c = doc.columns, units = new Map<string, string>();
+  for (const s of [...c.states, ...c.actions]) if (s.unit) units.set(s.column, s.unit);
+  for (const d of c.derived ?? []) if (d.unit) units.set(d.name, d.unit);
+  if (c.reward.kind === 'column' && c.reward.unit) units.set(c.reward.column, c.reward.unit);
+  return units;
 }
