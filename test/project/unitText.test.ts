@@ -11,9 +11,11 @@ import { parseProjectText, serializeProject } from '../../src/project/projectFil
 import { PROJECT_FORMAT, type ProjectDocument } from '../../src/project/schema';
 import { heldUnit } from '../../src/project/unitText';
 import { actionLabel, stateLabel, valueUnit } from '../../src/renderer/src/screens/findings/plotLabels';
-import { columnUnits } from '../../src/renderer/src/screens/plantLog/columnUnitText';
+import { columnUnits } from '../../src/pipeline/columnUnitWords';
 import { trendOfImport } from '../../src/data/trendSeries';
 import { valueColumnHead, valueUnitWords } from '../../src/pipeline/valueUnitWords';
+import { dataSection } from '../../src/pipeline/report/reportOverview';
+import type { ReportInput } from '../../src/pipeline/report/reportInput';
 
 type Typed = string | undefined;
 const project = (state: Typed, action: Typed, cost: Typed, derived: Typed = undefined) => ({
@@ -54,6 +56,12 @@ describe('a unit is held trimmed where the project is read', () => {
     const numbers = new Map([['level', Float64Array.of(1, 2)], ['valve', Float64Array.of(3, 4)]]);
     const trend = trendOfImport(doc.columns, numbers, Float64Array.of(5, 6), undefined, 2, (r) => r + 2);
     expect(trend.signals.map((s) => [s.name, s.unit])).toEqual([['level', held], ['valve', held], ['cost', held]]);
+    // The report's Data table writes each unit cell as the app's import table does (pipeline/columnUnitWords.ts).
+    const column = (name: string, roles: string[]) => ({ name, roles, min: 0, mean: 1, max: 2, std: 1 });
+    const summary = { rowCount: 2, usedRowCount: 2, excludedFraction: 0, transitionCount: 1, episodeCount: 1, samplingPeriodSeconds: null,
+      columns: [column('level', ['state']), column('valve', ['action']), column('cost', ['cost']), column('level_prev', ['state', 'derived'])] };
+    const cells = [...dataSection({ data: { summary, episodeReport: [] }, project: doc } as unknown as ReportInput).html.matchAll(/<tr><td>[^<]*<\/td><td>[^<]*<\/td><td>([^<]*)<\/td>/g)].map((m) => m[1]);
+    expect(cells).toEqual(Array(4).fill(held || 'no unit given'));
   });
 
   it('reads a saved project back the same, with the units as held', () => {

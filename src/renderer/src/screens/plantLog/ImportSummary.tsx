@@ -11,7 +11,7 @@ import { statisticsText } from './columnStatisticsText';
 import { useDocument, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { DataImport } from '../../../../shared/workerMessages';
-import { columnUnits, columnUnitText } from './columnUnitText';
+import { columnUnits, columnUnitText } from '../../../../pipeline/columnUnitWords';
 
 export function ImportSummary() {
   const state = useSession().importState;
