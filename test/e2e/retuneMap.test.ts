@@ -63,7 +63,7 @@ describe('the retune map in the app (e2e)', () => {
     await steadyClick(page.getByTestId('compute-retune-map'));
     await page.getByTestId('retune-map-headline').waitFor({ timeout: 240_000 });
     const headline = await page.getByTestId('retune-map-headline').innerText();
-    expect(headline).toMatch(/^Best supported point: proportional gain .+ = [\d.,]+, integral time .+ = [\d.,]+, J [\d.]+ \[[\d.−]+, [\d.]+\]\. Present controller: J [\d.]+\.$/);
+    expect(headline).toMatch(/^Best supported point: proportional gain .+ = [\d.,]+, integral time .+ = [\d.,]+, J [\d.]+, [\d.]+\s% interval \[[\d.−]+, [\d.]+\]\. Present controller: J [\d.]+\.$/);
     expect(await panel.innerText()).not.toMatch(/form\.loops|proportionalGain|integralTimeSeconds/);
     const figure = page.getByTestId('plot-retuneMap');
     await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
