@@ -72,6 +72,8 @@ export interface RetuneMapResult {
   readonly presentController: number | null;
   readonly features: string;
   readonly notes: string[];
+  /** The points' intervals' level (0.9 for 90 %); absent without intervals, and in results saved before it was kept. */
+  readonly level?: number;
 }
 
 export interface RetuneMapsOptions {
@@ -177,6 +179,7 @@ function runRetuneMap(
   return {
     candidate: spec.candidate, axes: spec.axes.map((axis, i) => ({ parameter: axis.parameter, label: axisLabel(grid.base, axis.parameter, plan), values: grid.coordinates[i] })), points, best,
     presentController: options.presentControllerValue, features: `${features.dim} features (${plan.features ? 'the project’s own' : 'degree-2 polynomial'})`, notes,
+    ...(withIntervals ? { level } : {}),
   };
 }
 

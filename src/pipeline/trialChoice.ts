@@ -133,7 +133,7 @@ export function trialAnswer(assessment: Assessment, choice: TrialChoice, places:
       headline: `Trial first: ${pick.candidate.name}.`,
       detail: `J ${valueInInterval(j.value, j.percentile, minus).text}${u}; `
         + `${value(Math.abs(d.difference.value), d.difference.percentile)}${u} ${assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the ${policyLabel(assessment.comparison.baseline.name)} `
-        + `(difference ${interval(d.difference.percentile)}), better in ${shareText(d.probabilityBetter)} of resamples. `
+        + `(difference ${interval(d.difference.percentile)}; both ${shareText(assessment.settings.level)} intervals), better in ${shareText(d.probabilityBetter)} of resamples. `
         + `An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions ${places.cautions}).`,
       logCautions: logCautionsText(assessment, pick, places.warnings),
     };

@@ -9,11 +9,11 @@
 export const NO_UNIT_GIVEN = 'no unit given';
 
 /**
- * The unit as every host writes it: the project's `columns.reward.unit` without surrounding spaces, '' where
- * it gives none or a blank one. The one place the unit is trimmed; the words, heads and axis titles read it.
+ * The unit as every host writes it: the project's `columns.reward.unit`, '' where it gives none. The
+ * document holds it trimmed (project/unitText.ts), so nothing here trims; the words, heads and axis titles read it.
  */
 export function valueUnitText(unit: string | null | undefined): string {
-  return unit?.trim() ?? '';
+  return unit ?? '';
 }
 
 /** "in €", or "no unit given" for a blank unit. */

@@ -10,6 +10,7 @@ import { MAX_RETUNE_AXES, MAX_RETUNE_AXIS_POINTS, MIN_RETUNE_AXIS_POINTS } from 
 import { strictObject } from './strictObject';
 import { finite } from './finiteNumber';
 import { approximatorSchema } from './approximatorSchema';
+import { unitText } from './unitText';
 import {
   BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, MAX_DERIVED_STATES, MAX_RETUNE_MAPS, MAX_SCHEDULE_BREAKPOINTS, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
   MAX_GAUSS_HERMITE_NODES, MIN_QUADRATURE_NODES, MAX_PREVIOUS_STEPS, MAX_STATE_COLUMNS, SEED, SURFACE_RESOLUTION,
@@ -25,12 +26,12 @@ const optionalLimit = finite.nullable();
 
 const signalSchema = strictObject({
   column: columnName,
-  /** Engineering unit shown on axes, e.g. "m", "°C", "%". */
-  unit: z.string().default(''),
+  /** Engineering unit shown on axes, e.g. "m", "°C", "%"; held trimmed (unitText.ts). */
+  unit: unitText.default(''),
 });
 
-/** The reward's or cost's own unit (e.g. "€", "kWh"); J, V and Q are in it, discounted. Optional. */
-const valueUnit = z.string().max(40).optional();
+/** The reward's or cost's own unit (e.g. "€", "kWh"); J, V and Q are in it, discounted. Optional; held trimmed (unitText.ts). */
+const valueUnit = unitText.max(40).optional();
 
 /**
  * A reward read from a column may declare what its definition guarantees: never below `atLeast`,
@@ -107,7 +108,7 @@ export const dataSourceSchema = strictObject({
  * still travelling through a dead time).
  */
 const derivedName = columnName;
-const derivedUnit = z.string().default('');
+const derivedUnit = unitText.default('');
 /** How many rows back a "previous" derived state reads: its `steps`, 1 when it gives none (the one place that default lives). */
 export function previousSteps(d: { readonly steps?: number }): number {
   return d.steps ?? 1;

@@ -1,7 +1,8 @@
 /**
  * What J is, said once: the command line's line under its title, the report's summary and the app's
  * Findings all read `valueSenseSentence` (pipeline/valueUnitWords.ts), so a user reads one sentence
- * whichever host printed it. The evaluation is a hand-built stub of an invented tank.
+ * whichever host printed it. The evaluation is a hand-built stub of an invented tank; the unit is as the
+ * project holds it, trimmed where it is read (project/unitText.ts, test/project/unitText.test.ts).
  */
 import { describe, expect, it } from 'vitest';
 import { formatEvaluation } from '../../src/cli/formatEvaluation';
@@ -19,7 +20,7 @@ const evaluation = (valueSense: 'cost' | 'reward') => ({
 
 describe('the sentence saying what J is', () => {
   it.each([
-    ['cost', ' € ', 'J is the expected discounted cost from the start states on, in € (lower is better); discount 0.97.'],
+    ['cost', '€', 'J is the expected discounted cost from the start states on, in € (lower is better); discount 0.97.'],
     ['cost', '', 'J is the expected discounted cost from the start states on, no unit given (lower is better); discount 0.97.'],
     ['reward', undefined, 'J is the expected discounted reward from the start states on, no unit given (higher is better); discount 0.97.'],
   ] as const)('the command line says the app\'s words for a %s in %j, then the discount', (sense, unit, line) => {

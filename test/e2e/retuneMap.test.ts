@@ -63,7 +63,7 @@ describe('the retune map in the app (e2e)', () => {
     await steadyClick(page.getByTestId('compute-retune-map'));
     await page.getByTestId('retune-map-headline').waitFor({ timeout: 240_000 });
     const headline = await page.getByTestId('retune-map-headline').innerText();
-    expect(headline).toMatch(/^Best supported point: proportional gain .+ = [\d.,]+, integral time .+ = [\d.,]+, J [\d.]+ \[[\d.−]+, [\d.]+\]\. Present controller: J [\d.]+\.$/);
+    expect(headline).toMatch(/^Best supported point: proportional gain .+ = [\d.,]+, integral time .+ = [\d.,]+, J [\d.]+, [\d.]+\s% interval \[[\d.−]+, [\d.]+\]\. Present controller: J [\d.]+\.$/);
     expect(await panel.innerText()).not.toMatch(/form\.loops|proportionalGain|integralTimeSeconds/);
     const figure = page.getByTestId('plot-retuneMap');
     await expect.poll(() => figure.getAttribute('data-chart-state'), POLL).toBe('drawn');
@@ -71,7 +71,7 @@ describe('the retune map in the app (e2e)', () => {
     await expect.poll(() => page.getByTestId('retune-map-table').locator('tbody tr').count(), POLL).toBe(10);
     // One precision on the screen: the best point's J in the table reads as in the headline (its interval's decimals; JCGM 100 §7.2.2, common practice).
     const bestCell = (await page.getByTestId('retune-map-table').locator('td.map-best').textContent() ?? '').replace(/ [*†]$/, '');
-    expect(bestCell).toBe(/, J ([\d.]+) \[/.exec(headline)![1]);
+    expect(bestCell).toBe(/, J ([\d.]+), [\d.]+\s% interval \[/.exec(headline)![1]);
   });
 
   it('exports the map as PNG with the caption', async () => {

@@ -113,15 +113,16 @@ describe('the answer in words, one writer for the app, the command line and the 
   it('names the trial with J, its interval, the difference and how often it came out better, each at its interval’s precision', () => {
     const caution = { severity: 'caution' as const, topic: 'ditherDependence', message: '' };
     const a = assessment('cost', [candidate('A', 5.123), candidate('B', 6)], [['A', -1.234, -2.345, -0.456], ['B', -0.5, -1, 0.1]], ['A', 'B', BASE], [caution]);
+    a.settings = { level: 0.9 } as typeof a.settings;
     const answer = trialAnswer(a, trialChoice(a), places, '€')!;
     expect(answer.headline).toBe('Trial first: A.');
     // J's interval [4.123, 6.123] is 2 wide: three significant digits of the width, two decimals (uncertainNumber.ts).
-    expect(answer.detail).toBe('J 5.12 [4.12, 6.12] €; 1.23 € lower than the present controller (difference [−2.35, −0.46]), better in 90\u00a0% of resamples. '
+    expect(answer.detail).toBe('J 5.12 [4.12, 6.12] €; 1.23 € lower than the present controller (difference [−2.35, −0.46]; both 90\u00a0% intervals), better in 90\u00a0% of resamples. '
       + 'An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions above).');
     expect(answer.logCautions).toBe('The assessment raised a caution on the whole log; read it under Coverage before the trial.');
     // The terminal's ASCII minus, and its own places.
     const terminal = trialAnswer(a, trialChoice(a), { cautions: 'at the end', warnings: 'in the list below', minus: ASCII_MINUS })!;
-    expect(terminal.detail).toContain('(difference [-2.35, -0.46])');
+    expect(terminal.detail).toContain('(difference [-2.35, -0.46]; both 90\u00a0% intervals)');
     expect(terminal.detail).toMatch(/\(cautions at the end\)\.$/);
     expect(terminal.logCautions).toMatch(/read it in the list below before the trial\.$/);
   });
@@ -173,7 +174,7 @@ describe('the answer in words, one writer for the app, the command line and the 
       candidates: a.candidates.map((c) => ({ ...c, crossChecks: [], functionClasses: null, reportedRange: null, settled: null, diagnostics: { occupancyShift: null } })) } as unknown as typeof a;
     const text = formatAssessment(full);
     const lines = text.split('\n'), at = lines.findIndex((l) => l.startsWith('Answer: '));
-    expect(lines[at]).toMatch(/^Answer: Trial first: A\. J 5\.00 \[4\.00, 6\.00\]; 1\.00 lower than the present controller \(difference \[-2\.00, -0\.50\]\)/);
+    expect(lines[at]).toMatch(/^Answer: Trial first: A\. J 5\.00 \[4\.00, 6\.00\]; 1\.00 lower than the present controller \(difference \[-2\.00, -0\.50\]; both 90\s% intervals\)/);
     expect(lines[at + 1]).toBe(`  (${TRIAL_RULE})`);
     expect(lines.findIndex((l) => l.startsWith('Ranking: '))).toBeLessThan(at);
   });

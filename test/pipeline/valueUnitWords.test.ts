@@ -12,9 +12,7 @@ import { policyValueLabel, valueUnit as findingsValueUnit } from '../../src/rend
 describe('the unit of J in words', () => {
   it('says the unit a project gives, and "no unit given" for none or a blank one', () => {
     expect(valueUnitWords('€')).toBe('in €');
-    expect(valueUnitWords(' kWh ')).toBe('in kWh');
     expect(valueUnitWords('')).toBe(NO_UNIT_GIVEN);
-    expect(valueUnitWords('   ')).toBe('no unit given');
     expect(valueUnitWords(undefined)).toBe('no unit given');
   });
 
@@ -22,6 +20,9 @@ describe('the unit of J in words', () => {
     const reward = projectSchema.shape.columns.shape.reward;
     const parsed = reward.parse({ kind: 'column', column: 'cost', sense: 'cost', unit: '€' });
     expect(valueUnitWords(parsed.unit)).toBe('in €');
+    // The schema holds the unit trimmed (project/unitText.ts): a padded or blank one reads as the trimmed one.
+    expect(valueUnitWords(reward.parse({ kind: 'column', column: 'cost', sense: 'cost', unit: ' kWh ' }).unit)).toBe('in kWh');
+    expect(valueUnitWords(reward.parse({ kind: 'column', column: 'cost', sense: 'cost', unit: '   ' }).unit)).toBe(NO_UNIT_GIVEN);
     expect(valueUnitWords(reward.parse({ kind: 'expression', expression: 'a^2', sense: 'cost' }).unit)).toBe('no unit given');
   });
 
@@ -31,10 +32,12 @@ describe('the unit of J in words', () => {
   });
 });
 
-describe('one writer trims the unit for every host', () => {
-  // What a user reads is the same before and after the trim moved into valueUnitText: the unit without
-  // its surrounding spaces, and for an empty or absent unit the words "no unit given" and a bare head.
-  const doc = (unit: string | undefined) => ({ columns: { reward: { kind: 'column', column: 'cost', sense: 'cost', unit } } }) as unknown as ProjectDocument;
+describe('one writer says the unit for every host', () => {
+  // The unit reaches the words as the schema holds it (trimmed where the project is read, project/unitText.ts;
+  // test/project/unitText.test.ts checks the state, action and cost units): the unit, and for an empty or
+  // absent one the words "no unit given" and a bare head.
+  const held = (unit: string | undefined) => projectSchema.shape.columns.shape.reward.parse({ kind: 'column', column: 'cost', sense: 'cost', ...(unit === undefined ? {} : { unit }) }).unit;
+  const doc = (unit: string | undefined) => ({ columns: { reward: { kind: 'column', column: 'cost', sense: 'cost', unit: held(unit) } } }) as unknown as ProjectDocument;
   const input = (unit: string | undefined) => ({ project: doc(unit), evaluation: { valueSense: 'cost' } }) as unknown as ReportInput;
   const cases: [string | undefined, string, string, string, string][] = [
     // unit as typed, unit shown, words, column head, axis title
@@ -43,9 +46,9 @@ describe('one writer trims the unit for every host', () => {
     [undefined, '', NO_UNIT_GIVEN, 'J', 'J, discounted cost'],
   ];
   it.each(cases)('unit %j reads %j in the words, heads, report and Findings', (typed, shown, words, head, axis) => {
-    expect(valueUnitText(typed)).toBe(shown);
-    expect(valueUnitWords(typed)).toBe(words);
-    expect(valueColumnHead('J', typed)).toBe(head);
+    expect(valueUnitText(held(typed))).toBe(shown);
+    expect(valueUnitWords(held(typed))).toBe(words);
+    expect(valueColumnHead('J', held(typed))).toBe(head);
     expect(reportValueUnit(input(typed))).toBe(shown);
     expect(valueAxisLabel(input(typed), 'J')).toBe(axis);
     expect(findingsValueUnit(doc(typed))).toBe(shown);

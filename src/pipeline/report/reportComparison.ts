@@ -48,7 +48,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
     </tbody></table>
     ${baselineNotSettled(a)}
     <figure id="fig-comparison">${raw(intervalFigure('comparison-svg', chartRows, valueAxisLabel(input, 'J'), reference))}
-      <figcaption>Figure ${figure}. ${VALUES_CHART_TITLE}, beside the baseline (dashed line), with ${level} percentile bootstrap intervals over ${a.settings.resamples} resamples of the ${a.settings.episodes} runs. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
+      <figcaption>Figure ${figure}. ${VALUES_CHART_TITLE}, beside the baseline (dashed line), with ${level} percentile bootstrap intervals over ${a.settings.resamples.toLocaleString('en-US')} resamples of the ${a.settings.episodes} runs. ${words.better[0].toUpperCase()}${words.better.slice(1)}.</figcaption></figure>
     ${pairwise(a, level)}
     <h3>Ranking</h3>
     <p>By point estimate: <strong>${a.comparison.ranking.order.map(policyLabel).join(' › ')}</strong>. ${a.comparison.ranking.frequency === null

@@ -5,6 +5,7 @@ import { CAUTIONS } from '../cautions';
 import { html, formatNumber, formatWrittenAt, type Html } from './htmlText';
 import { valueUnit, type ReportInput } from './reportInput';
 import { valueSenseSentence } from '../valueUnitWords';
+import { columnUnits, columnUnitText } from '../columnUnitWords';
 import { TRIAL_RULE, trialAnswer, trialChoice } from '../trialChoice';
 import { policyLabel } from '../policyNames';
 import { centreText } from '../baselineWords';
@@ -19,7 +20,7 @@ export function summarySection(input: ReportInput): Html {
   const best = ranking ? policyLabel(ranking.order[0]) : [...e.policies].sort((x, y) => (e.valueSense === 'cost' ? x.policyValue - y.policyValue : y.policyValue - x.policyValue))[0]?.name;
   const serious = a ? [...a.warnings, ...a.candidates.flatMap((c) => c.warnings)].filter((w) => w.severity === 'serious').length : null;
   return html`<div class="summary" id="summary"><p><strong>Summary.</strong> ${valueSenseSentence(e.valueSense, valueUnit(input))}. By point estimate the best policy is
-    <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.map(policyLabel).join(' › ')} holds in ${shareText(ranking.frequency)} of ${a!.settings.resamples} bootstrap resamples` : ''}.
+    <strong>${best ?? '—'}</strong>${ranking?.frequency != null ? html`; the full ranking ${ranking.order.map(policyLabel).join(' › ')} holds in ${shareText(ranking.frequency)} of ${a!.settings.resamples.toLocaleString('en-US')} bootstrap resamples` : ''}.
     ${serious === null ? 'Intervals and diagnostics were not computed (see Settings).' : `${serious} serious warning${serious === 1 ? '' : 's'} (see Diagnostics and Cross-checks).`}</p>
     ${a ? answerParagraph(input, a) : ''}</div>`;
 }
@@ -81,13 +82,15 @@ const STATISTIC_DIGITS = 4;
 
 export function dataSection(input: ReportInput): Html {
   const s = input.data.summary, p = input.project;
-  const unit = (name: string) => [...p.columns.states, ...p.columns.actions].find((c) => c.column === name)?.unit ?? '';
+  const units = columnUnits(p);
+  // As the app's import table writes it (pipeline/columnUnitWords.ts); a timestamp's cell is left blank, since the summary does not say whether its clock is calendar time.
+  const unit = (c: { name: string; roles: readonly string[] }) => (c.roles.includes('timestamp') ? '' : columnUnitText(c.roles, units.get(c.name)));
   return html`<section id="data"><h2>Data</h2>
     <p>${s.rowCount.toLocaleString('en-US')} rows read, ${s.usedRowCount.toLocaleString('en-US')} used (${shareText(s.excludedFraction)} excluded);
       ${s.transitionCount.toLocaleString('en-US')} transitions in ${s.episodeCount.toLocaleString('en-US')} runs${s.samplingPeriodSeconds ? `, sampled every ${formatNumber(s.samplingPeriodSeconds, 4)} s` : ''}.
       The reward is ${p.columns.reward.kind === 'column' ? `column “${p.columns.reward.column}”` : `the expression ${p.columns.reward.expression}`}, read as a ${p.columns.reward.sense}.</p>
     <table><thead><tr><th>Column</th><th>Used as</th><th>Unit</th><th class="num">Min</th><th class="num">Mean</th><th class="num">Max</th><th class="num">Std dev</th></tr></thead><tbody>
-    ${s.columns.map((c) => html`<tr><td>${c.name}</td><td>${c.roles.join(', ')}</td><td>${unit(c.name)}</td><td class="num">${formatNumber(c.min, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.mean, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.max, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.std, STATISTIC_DIGITS)}</td></tr>`)}
+    ${s.columns.map((c) => html`<tr><td>${c.name}</td><td>${c.roles.join(', ')}</td><td>${unit(c)}</td><td class="num">${formatNumber(c.min, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.mean, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.max, STATISTIC_DIGITS)}</td><td class="num">${formatNumber(c.std, STATISTIC_DIGITS)}</td></tr>`)}
     </tbody></table>
     ${input.data.episodeReport.length ? html`<ul class="small">${input.data.episodeReport.map((line) => html`<li>${line}</li>`)}</ul>` : ''}</section>`;
 }
@@ -102,7 +105,7 @@ export function settingsSection(input: ReportInput): Html {
       <tr><th>Action quadrature</th><td>${s.quadratureNodes} Gauss–Hermite nodes per action</td></tr>
       <tr><th>Start states</th><td>${s.startStates} (${input.project.startStates.kind === 'given' ? 'given in the project' : 'the first state of each logged run'})</td></tr>
       <tr><th>Seed</th><td>${s.seed}</td></tr>
-      ${a ? html`<tr><th>Bootstrap</th><td>${a.settings.resamples} resamples of the ${a.settings.episodes} runs, level ${shareText(a.settings.level)}, seed ${a.settings.seed}; ${a.settings.solver}</td></tr>` : ''}
+      ${a ? html`<tr><th>Bootstrap</th><td>${a.settings.resamples.toLocaleString('en-US')} resamples of the ${a.settings.episodes} runs, level ${shareText(a.settings.level)}, seed ${a.settings.seed}; ${a.settings.solver}</td></tr>` : ''}
     </tbody></table>
     ${a ? methodList(a) : html`<p><strong>Intervals, cross-checks and diagnostics were not computed:</strong> ${input.assessmentProblems.join('; ')}</p>`}</section>`;
 }

@@ -22,6 +22,11 @@ describe('the retune map headline', () => {
     expect(headline(map([4.8812, 8.8794], true))).toBe('Best supported point: proportional gain K_c (%/°C) = 90, integral time T_i (s) = 6,000, J 6.74 [4.88, 8.88]. Present controller: J 8.57.');
   });
 
+  it('names the interval\'s level where the map keeps it (results saved before it was kept read as above)', () => {
+    expect(headline({ ...map([4.8812, 8.8794], true), level: 0.9 })).toBe('Best supported point: proportional gain K_c (%/°C) = 90, integral time T_i (s) = 6,000, J 6.74, 90\u00a0% interval [4.88, 8.88]. Present controller: J 8.57.');
+    expect(headline({ ...map(null, true), level: 0.9 })).toContain('J 6.745. Present controller');
+  });
+
   it('falls back to four significant digits without an interval or a best point', () => {
     expect(headline(map(null, true))).toContain('J 6.745. Present controller: J 8.565.');
     expect(headline(map(null, false))).toBe('No point of this map is both converged and supported by the logs. Present controller: J 8.565.');

@@ -64,18 +64,19 @@ export function NetworkSettings({ settings, problems }: { settings: Network; pro
             if (polynomialDegree !== undefined) set('change the polynomial part', { polynomialDegree }, 'polynomialDegree');
           }} />
       </div>
-      <details className="details-section">
-        <summary>Computation details</summary>
-        <SelectField label="Computed with" value={settings.backend} help={SETTING_HELP.backend}
-          options={NETWORK_BACKENDS.map((value) => ({ value, label: BACKEND_NAMES[value] }))}
-          onChange={(backend) => set('change how the network is computed', { backend }, 'backend')} />
-      </details>
       <div className="row">
         {NUMERIC.map(({ key, label, help }) => (
           <NumberField key={key} label={label} value={settings[key]} help={help} message={at(key)} onBlur={documents.closeStep}
             onCommit={(v) => v !== null && set(`set the ${label.toLowerCase()}`, { [key]: v }, key)} />
         ))}
       </div>
+      {/* Last: a closed disclosure between two rows of fields read as if the fields below were its contents. */}
+      <details className="details-section">
+        <summary>Computation details</summary>
+        <SelectField label="Computed with" value={settings.backend} help={SETTING_HELP.backend}
+          options={NETWORK_BACKENDS.map((value) => ({ value, label: BACKEND_NAMES[value] }))}
+          onChange={(backend) => set('change how the network is computed', { backend }, 'backend')} />
+      </details>
     </>
   );
 }

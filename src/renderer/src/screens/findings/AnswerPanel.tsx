@@ -100,7 +100,7 @@ export function AnswerPanel({ evaluation, assessment }: { evaluation: Evaluation
       {assessment && choice ? <Lead choice={choice} assessment={assessment} unit={unit} />
         : <p className="answer-lead" data-testid="answer-lead"><strong>Intervals and checks are not in yet:</strong> J ± one standard error over the start states only; no candidate is named until they are.</p>}
       {assessment && choice ? <AssessedTable choice={choice} assessment={assessment} evaluation={evaluation} unit={unit} /> : <PointTable evaluation={evaluation} unit={unit} />}
-      <p className="small muted">{sense}{assessment ? ` Baseline: ${displayName(assessment.comparison.baseline.name)}; “minus baseline” and “better in” come from the same ${assessment.settings.resamples.toLocaleString('en-US')} paired resamples of the logged runs.` : ''}</p>
+      <p className="small muted">{sense}{assessment ? ` Baseline: ${displayName(assessment.comparison.baseline.name)}; “minus baseline” (its ${levelText(assessment.settings.level)} interval in brackets) and “better in” come from the same ${assessment.settings.resamples.toLocaleString('en-US')} paired resamples of the logged runs.` : ''}</p>
       {assessment && <p className="small muted" data-testid="answer-rule">{TRIAL_RULE}</p>}
       {assessment && (
         <p className="small answer-more" data-testid="answer-more">

@@ -54,7 +54,7 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
     const own = d.presentControllerShift === null ? '' : ` (the present controller itself: ${shiftText(d.presentControllerShift)})`;
     const upper = d.occupancyShiftUpper === null ? '' : `, ${shiftText(d.occupancyShiftUpper)} at the ${UPPER_PERCENTILE}th percentile over resamples`;
     sentences.push(`Occupancy shift: ${shiftText(d.occupancyShift)}${upper}${own}, measured in ${d.shiftFeatures}. `
-      + `1 means the candidate would visit states and actions like the logged ones; the error of its estimate grows with the square root, `
+      + `1 means the candidate would visit states and actions like the logged ones; the error of its estimate grows with the shift’s square root, `
       + `caution above ${OCCUPANCY_SHIFT_LIMITS.caution} times the present controller’s own level (at least 1), serious above ${OCCUPANCY_SHIFT_LIMITS.serious} times.`);
   }
   const w = d.importanceWeights;

@@ -9,6 +9,7 @@ import { formatDuration } from '../../format/numberFormat';
 import { tuningValueTexts } from '../../../../figures/parts/tickFormat';
 import { subscriptMarkup } from '../../../../figures/parts/richText';
 import { valueAtPrecision, valueInInterval } from '../../../../figures/parts/uncertainNumber';
+import { levelText } from './assessmentWords';
 
 /** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)" (the figures' rich-text markup). */
 export const richAxisLabel = subscriptMarkup;
@@ -21,13 +22,16 @@ export function pointText(map: RetuneMapResult, p: number): string {
 
 /**
  * The map's headline; the best point's J and the present controller's are written at the precision
- * of the best point's interval ("J 6.75 [4.88, 8.88] … J 8.57"), as every J beside its interval.
+ * of the best point's interval ("J 6.75, 90 % interval [4.88, 8.88] … J 8.57"), as every J beside its
+ * interval, and the interval with its level where the map keeps it.
  */
 export function headline(map: RetuneMapResult): string {
   const best = map.best ? map.points[map.best.index] : null, bestInterval = best?.interval ?? null;
   const present = map.presentController === null ? 'The present controller has no value to compare with.' : `Present controller: J ${valueAtPrecision(map.presentController, bestInterval)}.`;
   if (!map.best) return `No point of this map is both converged and supported by the logs. ${present}`;
-  return `Best supported point: ${pointText(map, map.best.index)}, J ${valueInInterval(map.best.value, bestInterval).text}. ${present}`;
+  const { value, interval, text } = valueInInterval(map.best.value, bestInterval);
+  const j = bestInterval && map.level !== undefined ? `${value}, ${levelText(map.level)} interval ${interval}` : text; // an interval is read with its level
+  return `Best supported point: ${pointText(map, map.best.index)}, J ${j}. ${present}`;
 }
 
 /** "Map 1 of 2, point 37 of 100 (12 s)". */

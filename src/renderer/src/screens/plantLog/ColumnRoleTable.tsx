@@ -6,6 +6,7 @@
 import { assignRole, roleOf, setUnit, type ColumnRole } from '../../document/columnRoles';
 import { useDocument, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
+import { UnitField } from './UnitField';
 
 const BASE_ROLES: { value: ColumnRole; label: string }[] = [
   { value: 'unused', label: 'Not used' },
@@ -69,9 +70,9 @@ export function ColumnRoleTable() {
                     {isValue && (
                       <>
                         <label className="sr-only" htmlFor={`unit-${index}`}>Unit of {column}</label>
-                        <input
-                          id={`unit-${index}`} data-testid={`unit-${column}`} value={reward.unit ?? ''} placeholder="e.g. €, kWh" size={8} title="The cost’s own unit: J, V and Q are given in it"
-                          onChange={(e) => documents.edit(`set the unit of ${column}`, (d) => ({ ...d, columns: { ...d.columns, reward: { ...d.columns.reward, unit: e.target.value } } }), `unit-${column}`)}
+                        <UnitField
+                          id={`unit-${index}`} testId={`unit-${column}`} value={reward.unit ?? ''} placeholder="e.g. €, kWh" title="The cost’s own unit: J, V and Q are given in it"
+                          onChange={(unit) => documents.edit(`set the unit of ${column}`, (d) => ({ ...d, columns: { ...d.columns, reward: { ...d.columns.reward, unit } } }), `unit-${column}`)}
                           onBlur={documents.closeStep}
                         />
                       </>
@@ -79,9 +80,9 @@ export function ColumnRoleTable() {
                     {signal && (
                       <>
                         <label className="sr-only" htmlFor={`unit-${index}`}>Unit of {column}</label>
-                        <input
-                          id={`unit-${index}`} data-testid={`unit-${column}`} value={signal.unit} placeholder="e.g. m, °C, %" size={8}
-                          onChange={(e) => documents.edit(`set the unit of ${column}`, (d) => setUnit(d, column, e.target.value), `unit-${column}`)}
+                        <UnitField
+                          id={`unit-${index}`} testId={`unit-${column}`} value={signal.unit} placeholder="e.g. m, °C, %"
+                          onChange={(unit) => documents.edit(`set the unit of ${column}`, (d) => setUnit(d, column, unit), `unit-${column}`)}
                           onBlur={documents.closeStep}
                         />
                       </>

@@ -5,14 +5,13 @@
  * with, when rows cannot be used, the one click that imports without them.
  */
 import { clockText, durationText } from '../../../../core/clockText';
-import type { ProjectDocument } from '../../../../project/schema';
 import { ProblemList } from '../../components/ProblemList';
 import { Histogram } from '../../components/Histogram';
 import { statisticsText } from './columnStatisticsText';
 import { useDocument, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { DataImport } from '../../../../shared/workerMessages';
-import { columnUnitText } from './columnUnitText';
+import { columnUnits, columnUnitText } from '../../../../pipeline/columnUnitWords';
 
 export function ImportSummary() {
   const state = useSession().importState;
@@ -35,7 +34,7 @@ export function ImportSummary() {
       <Counts result={result} />
       <ProblemList title="Warnings" problems={result.warnings} tone="warning" testId="import-warnings" />
       {result.episodeReport.length > 0 && <ul className="small muted">{result.episodeReport.map((line) => <li key={line}>{line}</li>)}</ul>}
-      <ColumnTable result={result} units={unitsOf(doc)} />
+      <ColumnTable result={result} units={columnUnits(doc)} />
       <ExcludedRows result={result} />
     </section>
   );
@@ -76,14 +75,6 @@ function Counts({ result }: { result: DataImport }) {
   );
 }
 
-/** Each column's unit from the project: states, actions, the reward or cost, derived states. */
-function unitsOf(doc: ProjectDocument): Map<string, string> {
-  const c = doc.columns, units = new Map<string, string>();
-  for (const s of [...c.states, ...c.actions]) if (s.unit) units.set(s.column, s.unit);
-  for (const d of c.derived ?? []) if (d.unit) units.set(d.name, d.unit);
-  if (c.reward.kind === 'column' && c.reward.unit) units.set(c.reward.column, c.reward.unit);
-  return units;
-}
 
 /** A timestamp column's statistics are times (min, max, mean) and a duration (spread); others are numbers. */
 function statistics(c: DataImport['summary']['columns'][number], result: DataImport): string[] {

@@ -10,6 +10,7 @@ import { useDocument, useProblems, useSession } from '../../hooks';
 import { useWorkspace } from '../../WorkspaceContext';
 import type { ColumnRoles } from '../../../../project/schema';
 import { formulaBoundsText } from './formulaBoundsText';
+import { valueUnitText } from '../../../../pipeline/valueUnitWords';
 
 type SetColumns = (label: string, change: Partial<ColumnRoles>, key?: string) => void;
 
@@ -80,6 +81,8 @@ type ColumnReward = Extract<ColumnRoles['reward'], { kind: 'column' }>;
 /** What the column's definition guarantees (e.g. a cost that sums squares is never below 0): checked on every row, and where a range to report is cut. */
 function DeclaredBounds({ reward, problems, set, closeStep }: { reward: ColumnReward; problems: readonly FieldProblem[]; set: SetColumns; closeStep: () => void }) {
   const what = reward.sense === 'cost' ? 'cost' : 'reward';
+  // A bound is a value of the cost itself: in its unit where the project gives one (pipeline/valueUnitWords.ts).
+  const unit = valueUnitText(reward.unit), inUnit = unit ? `, in ${unit}` : '';
   const change = (field: 'atLeast' | 'atMost', v: number | null): ColumnReward => {
     const { [field]: _dropped, ...rest } = reward;
     return v === null ? rest : { ...rest, [field]: v };
@@ -88,12 +91,12 @@ function DeclaredBounds({ reward, problems, set, closeStep }: { reward: ColumnRe
     <>
       <div className="row">
         <NumberField
-          label="Never below (by its definition)" value={reward.atLeast ?? null} allowBlank placeholder="no floor"
+          label={`Never below (by its definition)${inUnit}`} value={reward.atLeast ?? null} allowBlank placeholder="no floor"
           message={problemAt(problems, 'columns.reward.atLeast')}
           onCommit={(v) => set(`declare the ${what}’s floor`, { reward: change('atLeast', v) }, 'reward-at-least')} onBlur={closeStep}
         />
         <NumberField
-          label="Never above (by its definition)" value={reward.atMost ?? null} allowBlank placeholder="no ceiling"
+          label={`Never above (by its definition)${inUnit}`} value={reward.atMost ?? null} allowBlank placeholder="no ceiling"
           message={problemAt(problems, 'columns.reward.atMost')}
           onCommit={(v) => set(`declare the ${what}’s ceiling`, { reward: change('atMost', v) }, 'reward-at-most')} onBlur={closeStep}
         />

@@ -4,9 +4,9 @@
  * reads "—". Role names are the import's own (data/columnPlan.ts).
  */
 import { describe, expect, it } from 'vitest';
-import { columnUnitText } from '../../../src/renderer/src/screens/plantLog/columnUnitText';
-import { END_OF_RUN_ROLE, RUN_ROLE } from '../../../src/data/columnPlan';
-import { NO_UNIT_GIVEN } from '../../../src/pipeline/valueUnitWords';
+import { columnUnitText } from '../../src/pipeline/columnUnitWords';
+import { END_OF_RUN_ROLE, RUN_ROLE } from '../../src/data/columnPlan';
+import { NO_UNIT_GIVEN } from '../../src/pipeline/valueUnitWords';
 
 describe('columnUnitText', () => {
   it('writes the unit the project gives, whatever the role', () => {
