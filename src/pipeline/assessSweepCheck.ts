@@ -18,15 +18,17 @@
  * candidate that takes the plant to costlier steps breaks (rewardRange).
  * Only a linear fit with exact resampling is checked, within SWEEP_CHECK_BUDGET and with at least
  * SWEEP_CHECK_MIN_PAIRED resamples; the others say so, with the reason. The budget counts what runs, by
- * one cost model (core/bootstrap/solveWork.ts): a candidate is skipped before it starts where the full
- * data's own solves say its resamples would take more (expectedWork), and stopped, unchecked, where
- * what its resamples ran reaches the budget (a resample that does not contract iterates up to
- * maxIterations, which the full data's solves do not foresee).
+ * one cost model (core/bootstrap/solveWork.ts): a candidate is skipped after its first block of
+ * resamples where what that block ran, carried to all of them, exceeds the budget (pilotSaysOver), and
+ * stopped, unchecked, wherever what its resamples ran reaches the budget (a resample that does not
+ * contract iterates up to maxIterations, which no estimate foresees). The pilot replaced an estimate from
+ * the full data's own solves, which foresaw no resample's extra iterations (test/battery/README.md, "The
+ * sweep check's budget").
  */
 import { episodeMultiplicities } from '../core/bootstrap/episodeMultiplicities';
 import { linearFqeReplicateDiscounts, type LinearReplicate, type LinearReplicateSetup } from '../core/bootstrap/linearFqeReplicate';
 import { bootstrapInterval } from '../core/bootstrap/bootstrapInterval';
-import { overBudget, solveWork, type SolveTally } from '../core/bootstrap/solveWork';
+import { overBudget, type SolveTally } from '../core/bootstrap/solveWork';
 import { loggedRewardRange, POSSIBLE_SLACK } from '../core/diagnostics/possibleValues';
 import { changeIntervalImpossible, fewestWrong, possibleChange, type ImpossibleChange, type PossibleChange } from '../core/diagnostics/possibleChange';
 import { throwIfCancelled } from '../core/fqe/cancellation';
@@ -55,6 +57,8 @@ export interface SweepCheckSettings {
   level: number;
   seed: number;
   resamples: number;
+  /** Most work the check may run per candidate, multiply-adds (solveWork.ts); SWEEP_CHECK_BUDGET unless a bench or test lifts it. */
+  budget?: number;
 }
 
 export const SWEEP_CHECK_TOPIC = 'discountSweep';
@@ -69,7 +73,7 @@ export function checkDiscountSweep(
   context: AssessmentContext, works: readonly CandidateWork[], settings: readonly number[], projectIndex: number,
   points: readonly (readonly LinearReplicate[])[], check: SweepCheckSettings,
 ): SweepCheck {
-  const { plan } = context, e = plan.episodes.episodes, b = Math.min(SWEEP_CHECK_RESAMPLES, check.resamples);
+  const { plan } = context, e = plan.episodes.episodes, b = Math.min(SWEEP_CHECK_RESAMPLES, check.resamples), budget = check.budget ?? SWEEP_CHECK_BUDGET;
   const marks = works.map(() => settings.map(() => false)), warnings: AssessmentWarning[][] = works.map(() => []);
   const bounds = rewardRange(plan), skipped: { name: string; reason: SkipReason }[] = [], partly: { name: string; pairs: number }[] = [];
   const gaps: { name: string; at: number[] }[] = [], work = works.map(() => 0);
@@ -80,7 +84,6 @@ export function checkDiscountSweep(
     const linear = w.model.linear;
     if (!linear || linear.resampling.kind !== 'exact') return void skipped.push({ name: w.model.name, reason: 'linearised' });
     if (b < SWEEP_CHECK_MIN_PAIRED) return void skipped.push({ name: w.model.name, reason: 'resamples' });
-    if (expectedWork(points[c], e, linear.features.dim) * b > SWEEP_CHECK_BUDGET) return void skipped.push({ name: w.model.name, reason: 'budget' });
     const setup: LinearReplicateSetup = {
       ...linearSolveSettings(plan, w.model), sums: linear.resampling.sums, startFeatures: linear.startFeatures,
       startsFollowEpisodes: plan.starts.followEpisodes, startEpisode: plan.starts.episode,
@@ -91,10 +94,14 @@ export function checkDiscountSweep(
     if (missing.length) gaps.push({ name: w.model.name, at: missing });
     const scratch = Array.from({ length: RESAMPLE_BLOCK }, () => new Float64Array(setup.sums.stride)), replicates: (number | null)[][] = [];
     // What runs is counted as it runs: a resample that does not contract may iterate to maxIterations, which no estimate foresees.
-    const tally: SolveTally = { units: 0, limit: SWEEP_CHECK_BUDGET };
-    for (let first = 0; first < b && !overBudget(tally); first += RESAMPLE_BLOCK) replicates.push(...linearFqeReplicateDiscounts(setup, draws.slice(first, first + RESAMPLE_BLOCK), scratch, settings, starts, tally));
+    const tally: SolveTally = { units: 0, limit: budget };
+    let pilotOver = false;
+    for (let first = 0; first < b && !overBudget(tally) && !pilotOver; first += RESAMPLE_BLOCK) {
+      replicates.push(...linearFqeReplicateDiscounts(setup, draws.slice(first, first + RESAMPLE_BLOCK), scratch, settings, starts, tally));
+      pilotOver = first === 0 && pilotSaysOver(tally.units, Math.min(RESAMPLE_BLOCK, b), b, budget);
+    }
     work[c] = tally.units;
-    if (overBudget(tally)) return void skipped.push({ name: w.model.name, reason: 'budget' });
+    if (overBudget(tally) || pilotOver) return void skipped.push({ name: w.model.name, reason: 'budget' });
     const found: Failing[] = [];
     let thin = 0;
     for (let i = 0; i < settings.length; i++) {
@@ -125,14 +132,13 @@ export function checkDiscountSweep(
 }
 
 /**
- * The work one resample's solves are expected to take, by the cost model that counts them
- * (core/bootstrap/solveWork.ts): its statistics and ridge system, and at each swept discount with a J
- * the work the full data's own solve did there (a resample's starts from the full data's answer, so
- * seldom needs more; one that does not contract may, and the running tally stops it).
+ * The pilot: true when the `done` resamples of the first block ran `units`, carried to all b, exceed the
+ * budget — so a check that cannot finish stops after one block, not at the budget. Ours; measured on the
+ * battery beside the full data's own solves, which it matches where the resamples contract and exceeds
+ * where one iterates to its limit (test/battery/README.md, "The sweep check's budget").
  */
-function expectedWork(points: readonly LinearReplicate[], episodes: number, d: number): number {
-  const solves = points.reduce((sum, p) => sum + (p.status === 'converged' ? p.work ?? 0 : 0), 0);
-  return solveWork.statistics(episodes, d) + solveWork.ridgeSystem(d) + solves;
+function pilotSaysOver(units: number, done: number, b: number, budget: number): boolean {
+  return (units * b) / done > budget;
 }
 
 /** How far a pair reaches from the project's discount: the farther of its two settings (a pair holding the project's own and its neighbour is nearest). */
