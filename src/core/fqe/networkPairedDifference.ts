@@ -28,7 +28,7 @@
  *
  * Not used by the assessment: measured against the per-fit construction (pipeline/networkRunResamples.ts,
  * assessIntervals.ts) by a rule written beforehand and dropped — it held the truth as often, but was
- * not narrower by enough (median 0.92 of the width; the drift of D read where the shorter fit stopped
+ * not narrower by enough (median 0.91 of the width; the drift of D read where the shorter fit stopped
  * includes the longer fit's movement before it settled). Kept so bench/networkDifferenceTable.ts
  * reproduces the table. Rule, measurements and decision: test/battery/README.md, "The network's
  * difference intervals: too wide, or right?".
