@@ -44,7 +44,7 @@ export interface CandidateFit {
    * converged is true exactly when status is 'converged'; remainingBound is the share of the value
    * that may still be moving by the rule (null before two full windows); window 0 = rule off.
    */
-  convergence?: { converged: boolean; iterations: number; remainingBound: number | null; tolerance: number; window: number; discount: number };
+  convergence?: { converged: boolean; iterations: number; remainingBound: number | null; tolerance: number; window: number; discount: number; fullStepIterations?: number };
   /**
    * Network fits: the interval of policyValue (reward sense), by episode resamples of the last-layer
    * solve; intervalCovers says in one sentence what it covers and what it does not.

@@ -58,7 +58,7 @@ function candidateFitOf(fit: NetworkFit, request: CandidateFitRequest, layout: N
     dispose: () => fit.dispose(),
     convergence: {
       converged: fit.convergence.converged, iterations: fit.convergence.iterations, remainingBound: fit.convergence.remainingBound,
-      tolerance: rule.tolerance, window: rule.window, discount: rule.discount,
+      tolerance: rule.tolerance, window: rule.window, discount: rule.discount, fullStepIterations: fit.convergence.fullStepIterations,
     },
     interval: estimate.interval,
     intervalCovers: estimate.covers,

@@ -122,7 +122,10 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
   return {
     actionValue, linearStart: linearActionValue(linearFeatures, ctx.linearWeights, ds, m),
     status: final.status, message: final.message, history: run.history,
-    convergence: { rule: run.rule, converged: final.status === 'converged', iterations: run.history.length, remainingBound: last?.remainingBound ?? null },
+    convergence: {
+      rule: run.rule, converged: final.status === 'converged', iterations: run.history.length, remainingBound: last?.remainingBound ?? null,
+      fullStepIterations: run.decayFrom ?? run.history.length,
+    },
     backend: ctx.selection.backend, backendNote: ctx.selection.note, backendFallback: ctx.selection.fallbackReason, seed: input.seed, work: run.work, members: 1,
     linearPartDegree: s.method.linearPartDegree,
     estimate(startStates: Float64Array, options: EstimateOptions = {}): NetworkValueEstimate {
@@ -141,7 +144,7 @@ function assemble(s: FitSession, run: IterationRun, ctx: FinishContext, final: F
         value, interval: withClassErrorAllowance(networkValueInterval(r.network, spread * Math.abs(value), drift * Math.abs(value)), allowance),
         linear: { value: linear, interval: valueInterval(r.linear) }, difference: { value: value - linear, interval: difference },
         startCount: rows.length / d, resamples, failedResamples: r.failed, covers: allowance > 0 ? `${INTERVAL_COVERS}; ${classErrorSentence()}` : INTERVAL_COVERS,
-        ...(options.runs === undefined ? {} : { replicates: r.values }),
+        ...(options.runs === undefined ? {} : { replicates: r.values, linearReplicates: r.linearValues }),
         parts: {
           percentile: r.network.percentile, basic: r.network.basic, bootstrapStandardError: r.network.standardError, iterateSpread: spread, driftAllowance: drift,
           classErrorAllowance: allowance / Math.max(Math.abs(value), Number.MIN_VALUE),

@@ -82,6 +82,8 @@ export interface NetworkConvergence {
   readonly iterations: number;
   /** remainingBound of the kept iterate (null when only one was measured). */
   readonly remainingBound: number | null;
+  /** Outer iterations at the full step size: up to where the step's decay began, all of them when it never did (networkIterations.ts). */
+  readonly fullStepIterations: number;
 }
 
 export interface NetworkFit {

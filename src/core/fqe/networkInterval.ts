@@ -75,13 +75,15 @@ export interface ValueReplicates {
   readonly failed: number;
   /** The network's J on each resample in order, null where it could not be solved. */
   readonly values: readonly (number | null)[];
+  /** The linear comparator's J on the same resamples, null where either could not be solved (pairs with `values`). */
+  readonly linearValues: readonly (number | null)[];
 }
 
 /** estimates: the full-data J of the network and of the linear part over the same start set. */
 export function valueReplicates(systems: EpisodeSystems, request: IntervalRequest, estimates: { network: number; linear: number }): ValueReplicates {
   const { joint, linear, ids } = systems, d = joint.dim, d1 = joint.linearDim, d2 = linear.dim, e = joint.ranges;
   const starts = request.startRows.length / d, linearStartRows = request.linearStartRows;
-  const net: number[] = [], lin: number[] = [], diff: number[] = [], values: (number | null)[] = [];
+  const net: number[] = [], lin: number[] = [], diff: number[] = [], values: (number | null)[] = [], linearValues: (number | null)[] = [];
   const jointScratch = new Float64Array(joint.stride), linearScratch = new Float64Array(linear.stride);
   const c = new Uint32Array(e), startWeights = new Float64Array(starts).fill(1), runs = request.runs;
   const all = runs === undefined ? null : new Uint32Array(runs), runOf = (k: number) => (request.startEpisode ? request.startEpisode[k] : k);
@@ -105,6 +107,7 @@ export function valueReplicates(systems: EpisodeSystems, request: IntervalReques
     if ('failure' in v || 'failure' in w || startWeights.every((x) => x === 0) || c.every((x) => x === 0)) {
       failed++;
       values.push(null);
+      linearValues.push(null);
       continue;
     }
     const jn = dotRow(meanRow(request.startRows, d, startWeights), v.weights), jl = dotRow(meanRow(linearStartRows, d2, startWeights), w.weights);
@@ -112,9 +115,10 @@ export function valueReplicates(systems: EpisodeSystems, request: IntervalReques
     lin.push(jl);
     diff.push(jn - jl);
     values.push(jn);
+    linearValues.push(jl);
   }
   return {
-    values,
+    values, linearValues,
     network: bootstrapInterval(estimates.network, net, request.level),
     linear: bootstrapInterval(estimates.linear, lin, request.level),
     difference: bootstrapInterval(estimates.network - estimates.linear, diff, request.level),

@@ -51,6 +51,7 @@ export function combineMembers(members: readonly NetworkFit[]): NetworkFit {
       rule: first.convergence.rule, converged: members.every((m) => m.convergence.converged),
       iterations: members.reduce((n, m) => n + m.convergence.iterations, 0),
       remainingBound: maxOrNull(members.map((m) => m.convergence.remainingBound)),
+      fullStepIterations: first.convergence.fullStepIterations, // of the first member, whose history the fit carries
     },
     backend: first.backend, backendNote: first.backendNote, backendFallback: first.backendFallback, seed: first.seed,
     work: summedWork(members.map((m) => m.work)),
@@ -74,6 +75,7 @@ export function combineEstimates(estimates: readonly NetworkValueEstimate[]): Ne
     failedResamples: Math.max(...estimates.map((e) => e.failedResamples)),
     // Resample by resample, the members' mean (they share the draws): null where any member had none.
     ...(estimates.every((e) => e.replicates) ? { replicates: memberMeans(estimates.map((e) => e.replicates!)) } : {}),
+    ...(estimates.every((e) => e.linearReplicates) ? { linearReplicates: memberMeans(estimates.map((e) => e.linearReplicates!)) } : {}),
     covers: `${widest.covers}; the span of ${estimates.length} fits from different starting weights, so it also covers where the training lands`,
     parts: {
       ...first.parts, iterateSpread: Math.max(...estimates.map((e) => e.parts.iterateSpread)),

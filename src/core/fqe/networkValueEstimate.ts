@@ -32,6 +32,8 @@ export interface NetworkValueEstimate {
    * bootstrap's replicates of the same seed. Absent otherwise.
    */
   readonly replicates?: readonly (number | null)[];
+  /** With EstimateOptions.runs: the linear comparator's J on the same resamples (null where either had no solution). Absent otherwise. */
+  readonly linearReplicates?: readonly (number | null)[];
   /** The parts the interval is built from (for the battery's choice of method). */
   readonly parts: {
     readonly percentile: readonly [number, number];

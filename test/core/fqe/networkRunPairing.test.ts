@@ -36,6 +36,8 @@ describe('network replicates on the assessment’s runs', () => {
       const expected = total === 0 ? null : Array.from(w).reduce((a, x, k) => a + x * startRows[k], 0) / total;
       if (expected === null) expect(r.values[b]).toBeNull();
       else expect(r.values[b]).toBeCloseTo(expected, 12);
+      // The linear comparator's value on the same draw pairs with it (the same system here, so the same number).
+      expect(r.linearValues[b]).toBe(r.values[b]);
     }
   });
 
