@@ -46,9 +46,12 @@ export function blowerLaw(k: number, feedforward: number, std: number, setpoint 
   return directActingLaw(-k, setpoint, feedforward, std);
 }
 
-const onTrueState = (spec: GaussianPolicySpec) => lawOnTrueState(spec, READING_NOISE);
-
-export function aerationNoisyProbePlant(): BrokenLogPlant {
+/**
+ * kept: the control (probe37's addendum) — the same plant, candidates and seeds with the probe read without
+ * noise (holdout-aeration-clean-probe-g0.95), to tell what the noisy reading costs from what the plant costs.
+ */
+export function aerationNoisyProbePlant(kept = false): BrokenLogPlant {
+  const noise = kept ? [0, 0] : READING_NOISE, onTrueState = (spec: GaussianPolicySpec) => lawOnTrueState(spec, noise);
   const behaviour = blowerLaw(0.3, 0, 0.05);
   const candidates = [
     { name: 'loadFed', description: '0.3 per mg/L, 0.2 of the load fed forward, dither 0.05', spec: blowerLaw(0.3, 0.2, 0.05) },
@@ -57,7 +60,7 @@ export function aerationNoisyProbePlant(): BrokenLogPlant {
   ];
   // The truth's plumbing (start sets, truth per start set) on the true plant with each law as it acts on the true state.
   const truthSide = nonlinearBatteryPlant({
-    name: 'holdout-aeration-noisy-probe-g0.95',
+    name: kept ? 'holdout-aeration-clean-probe-g0.95' : 'holdout-aeration-noisy-probe-g0.95',
     description: 'aeration basin, dissolved oxygen and load read with white noise (10 % of their spread), the controller acting on the readings, Monod uptake, blower clipped at 0 and 1, 2 states, γ 0.95 (hold-out; the log breaks: a noisy sensor)',
     stateNames: ['dissolved_oxygen_mg_l', 'uptake_load'], actionNames: ['blower_fraction'], discount: 0.95, stepsPerEpisode: 400,
     dynamics: aerationDynamics, operatingState: [SETPOINT_MG_L, 0], burnIn: 200,
@@ -65,6 +68,6 @@ export function aerationNoisyProbePlant(): BrokenLogPlant {
   });
   const start = steadyRun(aerationDynamics, onTrueState(behaviour), [SETPOINT_MG_L, 0], 200).start;
   const run = { dynamics: aerationDynamics, policy: createGaussianPolicy(behaviour, 2), start };
-  return withBrokenLog({ ...truthSide, behaviour, candidates }, 'noisy sensors: the log holds readings with white noise, the controller acts on them',
-    { runConditions: () => run, readingNoise: READING_NOISE }, onTrueState);
+  return withBrokenLog({ ...truthSide, behaviour, candidates }, kept ? 'none (the control: the probe read without noise)' : 'noisy sensors: the log holds readings with white noise, the controller acts on them',
+    { runConditions: () => run, readingNoise: noise }, onTrueState);
 }

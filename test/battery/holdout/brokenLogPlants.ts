@@ -11,3 +11,8 @@ import { dosingPumpWearPlant } from './dosingPumpWearPlant';
 export function brokenLogPlants(): BrokenLogPlant[] {
   return [aerationNoisyProbePlant(), dosingPumpWearPlant(), coldStoreRetunedPlant()];
 }
+
+/** Their controls: each plant with the assumption kept (no reading noise; the end-of-log pump throughout; one tuning). */
+export function keptAssumptionPlants(): BrokenLogPlant[] {
+  return [aerationNoisyProbePlant(true), dosingPumpWearPlant(true), coldStoreRetunedPlant(true)];
+}

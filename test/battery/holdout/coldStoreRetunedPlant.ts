@@ -45,9 +45,13 @@ export function compressorLaw(k: number, feedforward: number, std: number): Gaus
 /** The tuning before the retune (the first half of the runs) and the retune in force at the end of the log. */
 export const OLD_TUNING = compressorLaw(0.12, 0, 0.08), RETUNE = compressorLaw(0.3, 0, 0.05);
 
-export function coldStoreRetunedPlant(): BrokenLogPlant {
+/**
+ * kept: the control (probe37's addendum) — the same plant, candidates and seeds under the retune on every run
+ * (holdout-cold-store-one-tuning-g0.97), to tell what the two tunings cost from what the plant costs.
+ */
+export function coldStoreRetunedPlant(kept = false): BrokenLogPlant {
   const plant = nonlinearBatteryPlant({
-    name: 'holdout-cold-store-retuned-g0.97',
+    name: kept ? 'holdout-cold-store-one-tuning-g0.97' : 'holdout-cold-store-retuned-g0.97',
     description: 'cold store, the temperature loop retuned halfway through the log (two controllers in one log), measured heat load, compressor clipped at 0 and 1, 2 states, γ 0.97 (hold-out; the log breaks: two tunings; truth: the retune in force at the end)',
     stateNames: ['store_temperature_c', 'heat_load'], actionNames: ['compressor_fraction'], discount: 0.97, stepsPerEpisode: 400,
     dynamics: coldStoreDynamics, operatingState: [SETPOINT_C, 0], burnIn: 200, behaviour: RETUNE,
@@ -59,7 +63,7 @@ export function coldStoreRetunedPlant(): BrokenLogPlant {
     rolloutsPerStart: 200,
   });
   const old = steadyRun(coldStoreDynamics, OLD_TUNING, [SETPOINT_C, 0], 200), today = steadyRun(coldStoreDynamics, RETUNE, [SETPOINT_C, 0], 200);
-  return withBrokenLog(plant, 'two tunings: the loop was retuned halfway through the log', {
-    runConditions: (e, episodes) => (e < episodes / 2 ? old : today),
+  return withBrokenLog(plant, kept ? 'none (the control: the retune on every run)' : 'two tunings: the loop was retuned halfway through the log', {
+    runConditions: (e, episodes) => (e < episodes / 2 && !kept ? old : today),
   });
 }

@@ -52,10 +52,14 @@ export function dosingLaw(k: number, feedforward: number, std: number, bias = 0.
   return { ...law, offset: [law.offset[0] + bias - 0.5] };
 }
 
-export function dosingPumpWearPlant(): BrokenLogPlant {
+/**
+ * kept: the control (probe37's addendum) — the same plant, candidates and seeds with the pump at the end-of-log
+ * delivery on every run (holdout-dosing-pump-steady-g0.96), to tell what the drift costs from what the plant costs.
+ */
+export function dosingPumpWearPlant(kept = false): BrokenLogPlant {
   const behaviour = dosingLaw(0.5, 0.25, 0.05), end = dosingDynamics(DELIVERY.last);
   const plant = nonlinearBatteryPlant({
-    name: 'holdout-dosing-pump-wear-g0.96',
+    name: kept ? 'holdout-dosing-pump-steady-g0.96' : 'holdout-dosing-pump-wear-g0.96',
     description: 'chlorine dosing, the pump delivering 20 % less per unit speed at the last logged run than at the first (tube wear), measured demand, pump clipped at 0 and 1, 2 states, γ 0.96 (hold-out; the log breaks: a plant that drifts; truth: the end-of-log plant)',
     stateNames: ['chlorine_residual_mg_l', 'chlorine_demand'], actionNames: ['pump_speed_fraction'], discount: 0.96, stepsPerEpisode: 400,
     dynamics: end, operatingState: [TARGET_MG_L, 0], burnIn: 200, behaviour,
@@ -66,7 +70,8 @@ export function dosingPumpWearPlant(): BrokenLogPlant {
     ],
     rolloutsPerStart: 200,
   });
-  return withBrokenLog(plant, 'a plant that drifts: the pump delivers 20 % less per unit speed at the last run than at the first', {
-    runConditions: (e, episodes) => steadyRun(dosingDynamics(deliveryAtRun(e, episodes)), behaviour, [TARGET_MG_L, 0], 200),
+  const steady = steadyRun(end, behaviour, [TARGET_MG_L, 0], 200);
+  return withBrokenLog(plant, kept ? 'none (the control: the end-of-log pump on every run)' : 'a plant that drifts: the pump delivers 20 % less per unit speed at the last run than at the first', {
+    runConditions: (e, episodes) => (kept ? steady : steadyRun(dosingDynamics(deliveryAtRun(e, episodes)), behaviour, [TARGET_MG_L, 0], 200)),
   });
 }
