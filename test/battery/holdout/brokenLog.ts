@@ -13,7 +13,7 @@ import { createGaussianPolicy, sampleAction, type GaussianPolicy, type GaussianP
 import { createRandom, type RandomSource } from '../../../src/core/random';
 import type { TransitionSet } from '../../../src/core/transitions';
 import type { BatteryPlant } from '../batteryPlant';
-import type { PlantDynamics, StartSampler } from '../episodeLog';
+import type { EpisodeLogOptions, PlantDynamics, StartSampler } from '../episodeLog';
 import type { RolloutTruthPlant } from '../rolloutTruthPlants';
 
 /** What run e of E met: the plant, the controller in force, and where the run started. */
@@ -23,12 +23,8 @@ export interface RunConditions {
   readonly start: StartSampler;
 }
 
-export interface BrokenLogOptions {
-  readonly episodes: number;
-  readonly stepsPerEpisode: number;
-  readonly seed: number;
-  readonly stateNames: readonly string[];
-  readonly actionNames: readonly string[];
+/** The episode log's options (episodeLog.ts; no action clip: each run's policy clips), with what changes by run. */
+export interface BrokenLogOptions extends Omit<EpisodeLogOptions, 'actionClip'> {
   /** Run e (0-based) of `episodes`. */
   runConditions(e: number, episodes: number): RunConditions;
   /** Standard deviation of white Gaussian noise on each state's reading (ds); absent: the log holds the true state. */
