@@ -24,8 +24,11 @@ import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { tmpdir } from 'node:os';
 import type { BatteryPlant, BatteryTruth, StartSet } from '../test/battery/batteryPlant';
+import type { GaussianPolicySpec } from '../src/core/policy';
 import { rolloutTruth } from '../test/battery/rolloutTruth';
 import { rolloutTruthPlants } from '../test/battery/rolloutTruthPlants';
+import { brokenLogPlants, keptAssumptionPlants } from '../test/battery/holdout/brokenLogPlants';
+import type { BrokenLogPlant } from '../test/battery/holdout/brokenLog';
 import { cliCommand } from './builtCli';
 
 /**
@@ -34,7 +37,9 @@ import { cliCommand } from './builtCli';
  * dynamics are the one list (test/battery/rolloutTruthPlants.ts); a name here that is not in it stops the bench.
  */
 const ROLLOUTS_PER_START = { default: 100, more: 200 } as const;
-const MORE_ROLLOUTS = ['holdout-backlash-level-g0.96', 'holdout-header-pressure-g0.98', 'greenhouse-clipped-g0.95', 'pendulum-saturating-g0.97'];
+const MORE_ROLLOUTS = ['holdout-backlash-level-g0.96', 'holdout-header-pressure-g0.98', 'greenhouse-clipped-g0.95', 'pendulum-saturating-g0.97',
+  'holdout-aeration-noisy-probe-g0.95', 'holdout-dosing-pump-wear-g0.96', 'holdout-cold-store-retuned-g0.97',
+  'holdout-aeration-clean-probe-g0.95', 'holdout-dosing-pump-steady-g0.96', 'holdout-cold-store-one-tuning-g0.97'];
 const ROLLOUT_SEED = 31_337;
 /** The baseline's row name in the printed table (its rows are kept apart in --out, under `baseline`). */
 const PRESENT = 'present controller';
@@ -106,7 +111,9 @@ type Warning = { severity: 'caution' | 'serious'; topic: string; message: string
 
 async function main() {
   const args = process.argv.slice(2);
-  const all = rolloutTruthPlants(), known = new Set(all.map((p) => p.name));
+  // The plants whose logs break an assumption (noisy readings, drift, two tunings) and their controls (kept) after the others; each law's truth is
+  // rolled out as it acts on the true state (truthPolicy: a law on a noisy reading), on the end-of-log plant.
+  const all: (ReturnType<typeof rolloutTruthPlants>[number] & Partial<Pick<BrokenLogPlant, 'truthPolicy'>>)[] = [...rolloutTruthPlants(), ...brokenLogPlants(), ...keptAssumptionPlants()], known = new Set(all.map((p) => p.name));
   const names = option(args, 'plants', [...known].join(',')).split(',');
   const unknown = [...names, ...MORE_ROLLOUTS].filter((n) => !known.has(n));
   if (unknown.length) throw new Error(`holdoutCliRows: no plant with rollout truth named ${unknown.join(', ')} (have ${[...known].join(', ')})`);
@@ -132,11 +139,11 @@ async function main() {
     // The command line's own answer, kept beside the rows for what they do not carry (e.g. the fit's message).
     if (out) writeFileSync(out.replace(/\.json$/, '') + `-${plant.name}-s${seed}.cli.json`, run.stdout);
     const starts: StartSet = { name: 'runStarts', description: 'the log’s own run starts', states: data.startStates, count: data.episodeCount };
-    const dynamics = plant.dynamics, rolloutsPerStart = MORE_ROLLOUTS.includes(plant.name) ? ROLLOUTS_PER_START.more : ROLLOUTS_PER_START.default;
+    const dynamics = plant.dynamics, onTrueState = plant.truthPolicy ?? ((spec: GaussianPolicySpec) => spec), rolloutsPerStart = MORE_ROLLOUTS.includes(plant.name) ? ROLLOUTS_PER_START.more : ROLLOUTS_PER_START.default;
     const truths = new Map<string, BatteryTruth>();
     for (const c of json.assessment.candidates) {
       const spec = plant.candidates.find((k) => k.name === c.name)!.spec;
-      const truth = rolloutTruth(dynamics, spec, plant.discount, starts, { rolloutsPerStart, seed: ROLLOUT_SEED });
+      const truth = rolloutTruth(dynamics, onTrueState(spec), plant.discount, starts, { rolloutsPerStart, seed: ROLLOUT_SEED });
       truths.set(c.name, truth);
       const j: number = c.policyValue.value, interval: [number, number] | null = c.policyValue.basic ?? c.policyValue.percentile;
       const range: [number, number] | null = c.reportedRange;
@@ -165,7 +172,7 @@ async function main() {
     // beside the truth of the plant's logging policy (plant.behaviour, with its limits), rolled out from the same
     // run starts with the same budget and seed as the candidates' truth (bench/baselineContradictedRows.ts).
     if (present) {
-      const truth = rolloutTruth(dynamics, plant.behaviour, plant.discount, starts, { rolloutsPerStart, seed: ROLLOUT_SEED });
+      const truth = rolloutTruth(dynamics, onTrueState(plant.behaviour), plant.discount, starts, { rolloutsPerStart, seed: ROLLOUT_SEED });
       const j: number = present.policyValue.value, interval: [number, number] | null = present.policyValue.basic ?? present.policyValue.percentile;
       const margin = 2 * truth.standardError;
       const miss = interval ? Math.max(interval[0] - truth.value, truth.value - interval[1], 0) : NaN;

@@ -1,0 +1,18 @@
+/**
+ * The hold-out plants whose logs break one assumption each (probe37): a noisy sensor, a plant that drifts,
+ * two tunings in one log. Kept apart from the catalogue and rolloutTruthPlants.ts (their logs are not what
+ * the battery's Markov, one-plant, one-controller tests ask of a plant); bench/holdoutCliRows.ts reads them.
+ */
+import { aerationNoisyProbePlant } from './aerationNoisyProbePlant';
+import type { BrokenLogPlant } from './brokenLog';
+import { coldStoreRetunedPlant } from './coldStoreRetunedPlant';
+import { dosingPumpWearPlant } from './dosingPumpWearPlant';
+
+export function brokenLogPlants(): BrokenLogPlant[] {
+  return [aerationNoisyProbePlant(), dosingPumpWearPlant(), coldStoreRetunedPlant()];
+}
+
+/** Their controls: each plant with the assumption kept (no reading noise; the end-of-log pump throughout; one tuning). */
+export function keptAssumptionPlants(): BrokenLogPlant[] {
+  return [aerationNoisyProbePlant(true), dosingPumpWearPlant(true), coldStoreRetunedPlant(true)];
+}
