@@ -69,7 +69,7 @@ describe('policy value chart', () => {
   it('the value sense is in the axis title', () => {
     const config = policyValueChart({ evaluation, theme: 'dark' }, look);
     expect(config.plugins?.map((p) => p.id)).toContain('setpointAxisTitle-x');
-    expect(policyValueAxisTitle({ evaluation, theme: 'dark', unit: '€' })).toBe('J, expected cost (€, discounted): lower is better');
+    expect(policyValueAxisTitle({ evaluation, theme: 'dark', unit: '€' })).toBe('J, discounted cost (€): lower is better');
     expect(valueSenseText('reward')).toBe('reward: higher is better');
   });
 
