@@ -5,6 +5,8 @@ import { tuningValueTexts } from '../figures/parts/tickFormat';
 import { atDecimals, intervalText, ratioText, rowDecimals } from './uncertainNumberText';
 import { shareText } from '../core/shareText';
 import { valueColumnHead } from '../pipeline/valueUnitWords';
+import { bestValueText } from '../figures/charts/retuneMapText';
+import { ASCII_MINUS } from '../figures/parts/uncertainNumber';
 
 /** A point's grid coordinates (a gain, an integral time) as the map's axes label them (figures/parts/tickFormat.ts tuningValueTexts), with the terminal's ASCII minus. */
 const coordinatesText = (map: RetuneMapResult, coordinates: readonly number[]): string[] => tuningValueTexts(map.axes, coordinates).map((t) => t.replace(/\u2212/g, '-'));
@@ -19,7 +21,7 @@ export function formatRetuneMap(map: RetuneMapResult, level: number, unit = ''):
   ]));
   // the present controller's J at the best point's precision, so the two read side by side
   const bestDecimals = map.best ? rowDecimals(map.points[map.best.index].interval) : null;
-  const best = map.best ? `Best supported point: ${coordinatesText(map, map.best.coordinates).map((t, a) => `${map.axes[a].label} = ${t}`).join(', ')}, J ${atDecimals(map.best.value, bestDecimals)}.`
+  const best = map.best ? `Best supported point: ${coordinatesText(map, map.best.coordinates).map((t, a) => `${map.axes[a].label} = ${t}`).join(', ')}, J ${bestValueText({ ...map, level: map.level ?? level }, ASCII_MINUS)}.`
     : 'No point is both converged and supported by the logs.';
   return [
     `Retune map of "${map.candidate}" (${map.points.length} points; ${map.features}):`,

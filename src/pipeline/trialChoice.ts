@@ -31,6 +31,9 @@ export interface TrialLine {
   /** Warnings in the whole-log list that bear on this candidate: those about it by name, and those about no one candidate. */
   readonly logSerious: number;
   readonly logCautions: number;
+  /** Of those, the warnings on the whole log (about no one candidate); the rest, with its own, are "about it". */
+  readonly generalSerious: number;
+  readonly generalCautions: number;
   /** Why this candidate is not named, as clauses in the reader's words; empty when it qualifies. */
   readonly reasons: readonly string[];
 }
@@ -71,7 +74,8 @@ function lineOf(assessment: Assessment, candidate: CandidateAssessment): TrialLi
   if (otherSerious > 0) reasons.push(`the assessment raised ${otherSerious === 1 ? `a${contradicted ? 'nother' : ''} serious warning` : `${otherSerious}${contradicted ? ' other' : ''} serious warnings`} for it`);
   const whole = assessment.warnings.filter((w) => w.severity === 'serious' && w.candidate === undefined).length;
   if (whole > 0) reasons.push(`the assessment raised ${whole === 1 ? 'a serious warning' : `${whole} serious warnings`} for the whole log`);
-  return { candidate, difference, clearlyBetter, serious, cautions, logSerious, logCautions, reasons };
+  const generalCautions = assessment.warnings.filter((w) => w.severity === 'caution' && w.candidate === undefined).length;
+  return { candidate, difference, clearlyBetter, serious, cautions, logSerious, logCautions, generalSerious: whole, generalCautions, reasons };
 }
 
 export function trialChoice(assessment: Assessment): TrialChoice {
@@ -93,9 +97,8 @@ export function trialChoice(assessment: Assessment): TrialChoice {
  * sample each candidate's "unconfirmed" caution was read as one of three "on the whole log".
  * Null when there are none.
  */
-export function logCautionsText(assessment: Assessment, line: TrialLine, where = 'under Coverage'): string | null {
-  const general = assessment.warnings.filter((w) => w.severity === 'caution' && w.candidate === undefined).length;
-  const aboutIt = line.cautions + line.logCautions - general;
+export function logCautionsText(line: TrialLine, where = 'under Coverage'): string | null {
+  const { aboutIt, general } = warningGroups(line).cautions;
   const count = (n: number) => (n === 1 ? 'a caution' : `${n} cautions`);
   const parts = [aboutIt > 0 ? `${count(aboutIt)} about it` : '', general > 0 ? `${count(general)} on the whole log` : ''].filter(Boolean);
   if (parts.length === 0) return null;
@@ -135,7 +138,7 @@ export function trialAnswer(assessment: Assessment, choice: TrialChoice, places:
         + `${value(Math.abs(d.difference.value), d.difference.percentile)}${u} ${assessment.valueSense === 'cost' ? 'lower' : 'higher'} than the ${policyLabel(assessment.comparison.baseline.name)} `
         + `(difference ${interval(d.difference.percentile)}; both ${shareText(assessment.settings.level)} intervals), better in ${shareText(d.probabilityBetter)} of resamples. `
         + `An offline estimate from the logs: a trial still goes through the site’s design review and commissioning, with the safety functions and interlocks left in place (cautions ${places.cautions}).`,
-      logCautions: logCautionsText(assessment, pick, places.warnings),
+      logCautions: logCautionsText(pick, places.warnings),
     };
   }
   const best = choice.best;
@@ -165,11 +168,26 @@ export function trialJson(assessment: Assessment): TrialJson {
   return { named: choice.pick?.candidate.name ?? null, best: choice.best?.candidate.name ?? null, reasons: choice.best?.reasons ?? [], rule: TRIAL_RULE };
 }
 
-/** "1 serious, 2 cautions"; "none" only when no warning bears on the candidate, its own or in the whole-log list (said as such: that list is elsewhere). */
+/**
+ * The warnings that bear on a candidate in the two groups the answer's lead and its table both say:
+ * "about it" (its own and those in the whole-log list naming it) and "on the whole log" (naming no candidate).
+ */
+export function warningGroups(line: TrialLine): { serious: { aboutIt: number; general: number }; cautions: { aboutIt: number; general: number } } {
+  return {
+    serious: { aboutIt: line.serious + line.logSerious - line.generalSerious, general: line.generalSerious },
+    cautions: { aboutIt: line.cautions + line.logCautions - line.generalCautions, general: line.generalCautions },
+  };
+}
+
+/**
+ * "1 serious, a caution about it; 3 cautions on the whole log" — the groups and words of the answer's lead
+ * (logCautionsText), so the two count the same things; "none" only when no warning bears on the candidate.
+ */
 export function warningsText(line: TrialLine): string {
-  const count = (serious: number, cautions: number) => [serious ? `${serious} serious` : '', cautions ? plural(cautions, 'caution') : ''].filter(Boolean).join(', ');
-  const own = count(line.serious, line.cautions), log = count(line.logSerious, line.logCautions);
-  if (!own && !log) return 'none';
-  return [own, log ? `${log} in the whole-log list (Coverage)` : ''].filter(Boolean).join('; ');
+  const g = warningGroups(line);
+  const count = (serious: number, cautions: number) => [serious ? `${serious} serious` : '', cautions ? (cautions === 1 ? 'a caution' : plural(cautions, 'caution')) : ''].filter(Boolean).join(', ');
+  const about = count(g.serious.aboutIt, g.cautions.aboutIt), general = count(g.serious.general, g.cautions.general);
+  if (!about && !general) return 'none';
+  return [about ? `${about} about it` : '', general ? `${general} on the whole log` : ''].filter(Boolean).join('; ');
 }
 

@@ -1,4 +1,7 @@
 import { describe, expect, it } from 'vitest';
+import { LOG_TICK_RULE, logAxisRange, logAxisTicks } from '../../src/figures/parts/logTicks';
+import { exportPlotSvg } from '../../src/figures/writers/exportSvg';
+import { estimatedTextMeasure } from '../../src/figures/writers/textMeasure';
 import { convergenceChart, convergenceSeries, convergenceSummary, isNetworkHistory, logTickLabel, logTickLabels } from '../../src/figures/charts/convergence';
 import { plotPalette } from '../../src/figures/parts/plotTheme';
 import type { PlotLook } from '../../src/figures/parts/plotLook';
@@ -49,6 +52,32 @@ describe('convergence plot', () => {
     expect(logTickLabels([0.0214, 0.0216, 0.0218, 0.022, 0.023, 0.025])).toEqual(['0.0214', '', '', '', '0.023', '0.025']);
   });
 
+  it('labels every decade on the axis, and 2 and 5 × 10^k between where fewer than three decades stand (common practice)', () => {
+    // Whole decades around the values, so each decade reached is on the axis.
+    expect(logAxisRange([0.021, 0.09])).toEqual({ min: 0.01, max: 0.1 });
+    expect(logAxisRange([8.3e-5, 0.51, NaN, 0, -1])).toEqual({ min: 1e-5, max: 1 });
+    expect(logAxisRange([0.1])).toEqual({ min: 0.1, max: 1 });
+    expect(logAxisRange([0, NaN])).toBeNull();
+    expect(logAxisTicks(0.01, 0.1).map((t) => t.label)).toEqual(['10⁻²', '2 × 10⁻²', '5 × 10⁻²', '10⁻¹']);
+    expect(logAxisTicks(0.01, 0.1).map((t) => t.value)).toEqual([0.01, 0.02, 0.05, 0.1]);
+    expect(logAxisTicks(0.01, 1).map((t) => t.label)).toEqual(['10⁻²', '10⁻¹', '10⁰']); // three decades: decades only
+    expect(logAxisTicks(1e-5, 1).map((t) => t.label)).toEqual(['10⁻⁵', '10⁻⁴', '10⁻³', '10⁻²', '10⁻¹', '10⁰']);
+    expect(logAxisTicks(1e-12, 1e4).length).toBeLessThanOrEqual(LOG_TICK_RULE.maxLabels + 1); // 17 decades: every other one
+  });
+
+  it('draws the network fit\'s loss (0.02–0.09) on a log axis with four labelled ticks, and the line clear of the frame', () => {
+    const history = Array.from({ length: 120 }, (_, k) => ({ iteration: k + 1, weightChange: null, bellmanResidual: 0.09 - 0.0005 * k, policyValue: null, loss: 0.08 - 0.0005 * k }));
+    const config = convergenceChart({ history, title: 'fit', theme: 'light' }, look);
+    const y = config.options!.scales!.y as { min: number; max: number; ticks: { callback: (v: number) => string } };
+    expect([y.min, y.max]).toEqual([0.01, 0.1]);
+    expect([0.01, 0.02, 0.05, 0.1].map((v) => y.ticks.callback(v))).toEqual(['10⁻²', '2 × 10⁻²', '5 × 10⁻²', '10⁻¹']);
+    const x = config.options!.scales!.x as { min: number; max: number };
+    expect(x.min).toBeLessThan(1);
+    expect(x.max).toBeGreaterThan(120); // the last iteration sits inside the plot area, not on its right edge
+    const fit = exportPlotSvg({ kind: 'convergence', props: { history, title: 'fit', theme: 'light' } }, { widthPx: 1950, heightPx: 1200, dpi: 300, background: 'white', caption: '', caution: '' }, estimatedTextMeasure)!;
+    for (const label of ['2 × 10', '5 × 10']) expect(fit).toContain(label);
+  });
+
   it('summary gives the last values, and says when there is no history', () => {
     expect(convergenceSummary({ history: geometricHistory(2), title: '', theme: 'light' })).toMatch(/2 iterations.*relative weight change 0\.4; one-step mismatch \(mean square\) 0\.435/);
     expect(convergenceSummary({ history: [], title: '', theme: 'light' })).toMatch(/no iterations/);
@@ -69,7 +98,7 @@ describe('policy value chart', () => {
   it('the value sense is in the axis title', () => {
     const config = policyValueChart({ evaluation, theme: 'dark' }, look);
     expect(config.plugins?.map((p) => p.id)).toContain('setpointAxisTitle-x');
-    expect(policyValueAxisTitle({ evaluation, theme: 'dark', unit: '€' })).toBe('J, expected cost (€, discounted): lower is better');
+    expect(policyValueAxisTitle({ evaluation, theme: 'dark', unit: '€' })).toBe('J, discounted cost (€): lower is better');
     expect(valueSenseText('reward')).toBe('reward: higher is better');
   });
 

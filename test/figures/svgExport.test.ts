@@ -82,7 +82,7 @@ describe('exportPlotSvg', () => {
     expect(slice).toContain('upper limit 1.1: 15.87\u00a0% probability'); // 1 − Φ(1) = 0.1587 (A&S table 26.1), read beside the lower limit's 0.62 %: one precision for both (sharesText)
     expect(fit).toContain('relative weight change');
     expect(fit).toContain('value (log scale)');
-    expect(bars).toContain('J, expected cost (discounted): lower is better');
+    expect(bars).toContain('J, discounted cost: lower is better'); // the one value-axis writer, valueAxisTitle
     expect(bars).toContain('41.2 ± 1.8');
   });
 

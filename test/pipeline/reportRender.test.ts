@@ -136,6 +136,35 @@ describe('the report in headless Chromium', () => {
     await page.close();
   });
 
+  // From the last look at the screens: a slice figure's right axis title ("policy density") at the figure's edge,
+  // the summary and caution boxes wrapping at 78ch inside a wider box, the Job table's row heads on a heavier rule
+  // than their values. Measured in the page at both window widths the review uses and at the A4 text width.
+  it.each([1280, 1920, A4_TEXT_PX.width])('at %i px every figure\'s text lies inside its figure, boxed text fills its box, and the Job table\'s rules line up', async (width) => {
+    const page = await browser.newPage({ viewport: { width, height: 1400 } });
+    await page.goto(`file://${file}`, { waitUntil: 'load' });
+    const outside = await page.$$eval('figure svg', (svgs) => svgs.flatMap((svg) => {
+      const box = svg.getBoundingClientRect();
+      return [...svg.querySelectorAll('text')].filter((t) => (t.textContent ?? '').trim() !== '').map((t) => ({ text: t.textContent, r: t.getBoundingClientRect() }))
+        .filter(({ r }) => r.left < box.left - 0.5 || r.right > box.right + 0.5 || r.top < box.top - 0.5 || r.bottom > box.bottom + 0.5)
+        .map(({ text, r }) => `${svg.id}: "${text}" [${r.left.toFixed(1)}, ${r.right.toFixed(1)}] in [${box.left.toFixed(1)}, ${box.right.toFixed(1)}]`);
+    }));
+    expect(outside).toEqual([]);
+    const slack = await page.$$eval('.summary p, .cautions li, .cautions-first p, .cautions-first li', (all) => all.map((el) => {
+      const box = el.closest('.summary, .cautions, .cautions-first')!, style = getComputedStyle(box), b = box.getBoundingClientRect();
+      const inner = b.right - parseFloat(style.borderRightWidth) - parseFloat(style.paddingRight);
+      return inner - el.getBoundingClientRect().right;
+    }));
+    expect(slack.length).toBeGreaterThan(3);
+    for (const gap of slack) expect(gap).toBeLessThan(1); // each paragraph reaches its box's inner edge
+    const rules = await page.$$eval('#job table tbody tr', (rows) => rows.map((tr) => [...tr.children].map((cell) => {
+      const r = cell.getBoundingClientRect(), style = getComputedStyle(cell);
+      return `${r.bottom.toFixed(2)} ${style.borderBottomWidth} ${style.borderBottomColor}`; // a collapsed border: its place, width and colour
+    })));
+    expect(rules.length).toBeGreaterThan(4);
+    for (const row of rules) expect(new Set(row).size, row.join(' ')).toBe(1); // one rule, at one height, across the row
+    await page.close();
+  });
+
   it('prints on A4 with the cautions on the first page and no figure or table split', async () => {
     const page = await browser.newPage({ viewport: A4_TEXT_PX });
     await page.goto(`file://${file}`, { waitUntil: 'load' });

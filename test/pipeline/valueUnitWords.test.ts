@@ -3,6 +3,7 @@
  * and in plain words where the project gives none — the samples' J read "—" as their unit before. The
  * schema's optional `columns.reward.unit` is what a user fills in (README, project file).
  */
+import { policyValueAxisTitle, type PolicyValueChartProps } from '../../src/figures/charts/policyValueChart';
 import { describe, expect, it } from 'vitest';
 import { NO_UNIT_GIVEN, valueColumnHead, valueSenseSentence, valueUnitText, valueUnitWords } from '../../src/pipeline/valueUnitWords';
 import { valueAxisLabel, valueUnit as reportValueUnit, type ReportInput } from '../../src/pipeline/report/reportInput';
@@ -53,5 +54,7 @@ describe('one writer says the unit for every host', () => {
     expect(valueAxisLabel(input(typed), 'J')).toBe(axis);
     expect(findingsValueUnit(doc(typed))).toBe(shown);
     expect(policyValueLabel('cost', findingsValueUnit(doc(typed)))).toBe(axis);
+    // The comparison chart's axis (app and its PNG/SVG export) reads the same words, then the sense.
+    expect(policyValueAxisTitle({ evaluation: { valueSense: 'cost' } as PolicyValueChartProps['evaluation'], theme: 'light', unit: shown })).toBe(`${axis}: lower is better`);
   });
 });

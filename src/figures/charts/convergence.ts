@@ -10,8 +10,13 @@ import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { decadeLabel, formatValue } from '../parts/tickFormat';
 import { legendPlugin } from '../parts/legendBox';
+import { logAxisRange, logAxisTicks } from '../parts/logTicks';
 
-export const CONVERGENCE_DEFAULTS = { heightPx: 320, lineWidthPx: 2, pointRadiusPx: 2.5 } as const;
+export const CONVERGENCE_DEFAULTS = {
+  heightPx: 320, lineWidthPx: 2, pointRadiusPx: 2.5,
+  /** Room past the last iteration, as a share of the iterations and at least this many; before the first, the least (no tick at 0; a choice). */
+  edgeShare: 0.02, minEdgeIterations: 0.5,
+} as const;
 
 export interface ConvergencePlotProps {
   history: FitIteration[];
@@ -62,6 +67,10 @@ export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): C
   }));
   const shared = sharedOptions(look, props.title, history.length ? `${history.length} iteration${history.length === 1 ? '' : 's'}, log scale` : null);
   const hasData = datasets.some((set) => set.data.some((pt) => pt.y !== null));
+  const yRange = logAxisRange(datasets.flatMap((set) => set.data.map((pt) => pt.y ?? NaN)));
+  const yTicks = yRange ? logAxisTicks(yRange.min, yRange.max) : [];
+  // The line's first and last points sit inside the frame, not on it (the screens showed it running into the right edge).
+  const xPad = Math.max(CONVERGENCE_DEFAULTS.minEdgeIterations, CONVERGENCE_DEFAULTS.edgeShare * history.length);
   return {
     type: 'line',
     data: { datasets },
@@ -75,8 +84,14 @@ export function convergenceChart(props: ConvergencePlotProps, look: PlotLook): C
       parsing: false,
       interaction: { mode: 'index', intersect: false },
       scales: {
-        x: { ...valueAxis(look, 'bottom'), type: 'linear', min: 1, max: Math.max(2, history.length), ticks: { ...valueAxis(look, 'bottom').ticks, precision: 0 } },
-        y: { ...valueAxis(look, 'left'), type: 'logarithmic', ticks: { ...valueAxis(look, 'left').ticks, callback: (_v, i, ticks) => logTickLabels(ticks.map((t) => t.value))[i] } },
+        x: { ...valueAxis(look, 'bottom'), type: 'linear', min: 1 - CONVERGENCE_DEFAULTS.minEdgeIterations, max: Math.max(2, history.length) + xPad, ticks: { ...valueAxis(look, 'bottom').ticks, precision: 0, includeBounds: false } },
+        y: yRange
+          ? {
+            ...valueAxis(look, 'left'), type: 'logarithmic', min: yRange.min, max: yRange.max,
+            afterBuildTicks: (scale) => { scale.ticks = yTicks.map((t) => ({ value: t.value, label: t.label })); },
+            ticks: { ...valueAxis(look, 'left').ticks, autoSkip: false, callback: (v) => yTicks.find((t) => t.value === v)?.label ?? '' },
+          }
+          : { ...valueAxis(look, 'left'), type: 'logarithmic', ticks: { ...valueAxis(look, 'left').ticks, callback: (_v, i, ticks) => logTickLabels(ticks.map((t) => t.value))[i] } },
       },
       plugins: {
         ...shared.plugins,

@@ -76,4 +76,6 @@ export interface RetuneMapData {
   points: readonly { coordinates: readonly number[]; value: number | null; interval: readonly [number, number] | null; status: string; support: MapSupport }[];
   best: { index: number; value: number } | null;
   presentController: number | null;
+  /** The points' intervals' level (0.9 for 90 %); absent without intervals or in results saved before it was kept. */
+  level?: number;
 }

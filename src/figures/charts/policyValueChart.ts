@@ -10,6 +10,7 @@ import { errorWhiskersPlugin } from '../parts/errorWhiskers';
 import { font, fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
 import { formatEstimate } from '../parts/tickFormat';
+import { valueAxisTitle } from '../parts/valueAxisTitle';
 import { LOGGED_RETURN_LABEL, PRESENT_CONTROLLER, VALUES_CHART_TITLE } from '../parts/plotTheme';
 
 export const POLICY_VALUE_DEFAULTS = {
@@ -56,11 +57,10 @@ export function policyValueRows(evaluation: Evaluation): Row[] {
   ];
 }
 
-/** "J, expected discounted cost (€) — lower is better". */
+/** "J, discounted cost (€): lower is better" — the value axis's one title (valueAxisTitle) and the sense. */
 export function policyValueAxisTitle(props: PolicyValueChartProps): string {
   const sense = props.evaluation.valueSense;
-  const unit = props.unit ? ` (${props.unit}, discounted)` : ' (discounted)';
-  return `J, expected ${sense}${unit}: ${sense === 'cost' ? 'lower' : 'higher'} is better`;
+  return `${valueAxisTitle('J', sense, props.unit ?? '')}: ${sense === 'cost' ? 'lower' : 'higher'} is better`;
 }
 
 export function valueSenseText(sense: Evaluation['valueSense']): string {

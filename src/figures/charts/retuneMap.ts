@@ -17,7 +17,7 @@ import { drawOutline, GREY_OUT, mapCellLayerPlugin, mix } from '../parts/mapCell
 import { PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import { plainText } from '../parts/richText';
-import { formatValue, gridPointLabels } from '../parts/tickFormat';
+import { formatValue, gridPointLabels, tuningValueTexts } from '../parts/tickFormat';
 import { retuneMapLineChart } from './retuneMapLine';
 import { bestValueText, betterWords, mapSubtitle, pointReadout, presentValueText, type RetuneMapPlotProps } from './retuneMapText';
 
@@ -94,6 +94,12 @@ function heatKeys(layout: MapCellLayout, mid: readonly [number, number, number],
   return keys;
 }
 
+/** The best point's coordinates as the axes label them (tuningValueTexts), never formatValue's "2400" beside the axis's "2,400". */
+function bestPointTexts(map: RetuneMapData): string[] {
+  const texts = tuningValueTexts(map.axes, map.points[map.best!.index].coordinates);
+  return map.axes.map((a, i) => `${plainText(a.label)} ${texts[i]}`);
+}
+
 export function retuneMapHeight(map: RetuneMapData): number {
   return map.axes.length === 1 ? RETUNE_MAP_DEFAULTS.lineHeightPx : RETUNE_MAP_DEFAULTS.heatHeightPx;
 }
@@ -103,7 +109,7 @@ export function retuneMapSummary(props: RetuneMapPlotProps): string {
   const { map } = props, n = map.points.length;
   const count = (s: MapSupport) => map.points.filter((p) => p.value !== null && p.support === s).length;
   const over = map.axes.map((a) => `${plainText(a.label)} (${formatValue(a.values[0])} to ${formatValue(a.values[a.values.length - 1])})`).join(' and ');
-  const best = map.best ? `Best supported point: ${map.axes.map((a, i) => `${plainText(a.label)} ${formatValue(map.points[map.best!.index].coordinates[i])}`).join(', ')}, J ${bestValueText(map)}.` : 'No point is both converged and supported by the logs.';
+  const best = map.best ? `Best supported point: ${bestPointTexts(map).join(', ')}, J ${bestValueText(map)}.` : 'No point is both converged and supported by the logs.';
   const present = map.presentController === null ? '' : ` Present controller: J ${presentValueText(map)}.`;
   return `${map.axes.length === 2 ? 'Heat map' : 'Curve'} of ${plainText(props.valueLabel)} (${betterWords(props.sense)}) over ${over}, ${n} points: `
     + `${count(null)} supported by the logs, ${count('caution')} on thin logs, ${count('serious') + count('unknown')} beyond them (shaded). ${best}${present}`;

@@ -6,7 +6,7 @@ import type { MapSupport, RetuneMapData } from './figureData';
 import { PRESENT_CONTROLLER, type Theme } from '../parts/plotTheme';
 import { plainText } from '../parts/richText';
 import { formatValueInInterval, tuningValueTexts } from '../parts/tickFormat';
-import { intervalAtPrecision } from '../parts/uncertainNumber';
+import { intervalAtPrecision, TRUE_MINUS, valueInLevelledInterval, type Minus } from '../parts/uncertainNumber';
 
 export interface RetuneMapPlotProps {
   map: RetuneMapData;
@@ -29,9 +29,13 @@ export function betterWords(sense: 'cost' | 'reward'): string {
   return sense === 'cost' ? 'lower is better' : 'higher is better';
 }
 
-/** The best supported point's J at its interval's precision (tickFormat.ts, the rule of every table), or null. */
-export function bestValueText(map: RetuneMapData): string | null {
-  return map.best ? formatValueInInterval(map.best.value, map.points[map.best.index].interval) : null;
+/**
+ * The best supported point's J with its interval and the interval's level, "6.74, 90 % interval [4.88, 8.88]"
+ * (valueInLevelledInterval): the one writer of the map's headline J for the app, the figure's text, the
+ * report and the command line (which passes its ASCII minus); null without a best point.
+ */
+export function bestValueText(map: RetuneMapData, minus: Minus = TRUE_MINUS): string | null {
+  return map.best ? valueInLevelledInterval(map.best.value, map.points[map.best.index].interval, map.level, minus) : null;
 }
 
 /**

@@ -27,6 +27,7 @@
  * form, "1.235 × 10⁻⁵" typeset and "1.235e-5" on the terminal (core/exponentText.ts, the one writer).
  */
 import { ASCII_MINUS, exponentText, TRUE_MINUS, type Minus } from '../../core/exponentText';
+import { shareText } from '../../core/shareText';
 
 export { ASCII_MINUS, TRUE_MINUS, type Minus };
 
@@ -113,6 +114,18 @@ export function valueInInterval(
   if (!iv) return { value: shown, interval: '—', text: shown };
   const interval = intervalAtPrecision(iv, minus);
   return { value: shown, interval, text: `${shown} ${interval}` };
+}
+
+/**
+ * A value with its interval read at its level: "6.74, 90 % interval [4.88, 8.88]" (the level by shareText).
+ * Without a level (results saved before it was kept) the value and the interval alone, "6.74 [4.88, 8.88]";
+ * without an interval, the value in the plain style. The one writer of a headline's J, whatever the host.
+ */
+export function valueInLevelledInterval(
+  value: number | null | undefined, iv: readonly [number, number] | null | undefined, level: number | undefined, minus: Minus = TRUE_MINUS,
+): string {
+  const shown = valueInInterval(value, iv, minus);
+  return iv && level !== undefined ? `${shown.value}, ${shareText(level)} interval ${shown.interval}` : shown.text;
 }
 
 /**

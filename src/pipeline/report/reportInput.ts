@@ -6,6 +6,7 @@ import type { Evaluation } from '../estimates';
 
 import type { RetuneMapResult } from '../retuneMaps';
 import { valueUnitText } from '../valueUnitWords';
+import { valueAxisTitle, type ValueSymbol } from '../../figures/parts/valueAxisTitle';
 
 export interface ReportInput {
   project: ProjectDocument;
@@ -35,10 +36,8 @@ export function valueUnit(input: ReportInput): string {
 }
 
 /** Rich-text axis title of V, Q or J: "V^{π}(s), discounted cost (€)". */
-export function valueAxisLabel(input: ReportInput, symbol: 'V' | 'Q' | 'J'): string {
-  const unit = valueUnit(input), sense = input.evaluation.valueSense;
-  const head = symbol === 'V' ? 'V^{π}(s)' : symbol === 'Q' ? 'Q^{π}(s, a)' : 'J';
-  return `${head}, discounted ${sense}${unit ? ` (${unit})` : ''}`;
+export function valueAxisLabel(input: ReportInput, symbol: ValueSymbol): string {
+  return valueAxisTitle(symbol, input.evaluation.valueSense, valueUnit(input));
 }
 
 /** Figure numbers in order of appearance, per document (no shared state between reports). */

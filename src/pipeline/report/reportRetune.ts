@@ -9,13 +9,14 @@
  * for reference.
  */
 import { retuneMapChart, retuneMapHeight, retuneMapSummary } from '../../figures/charts/retuneMap';
+import { bestValueText } from '../../figures/charts/retuneMapText';
 import { richTextHtml, subscriptMarkup } from '../../figures/parts/richText';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { CAUTION_SHORT } from '../cautions';
 import type { RetuneMapPoint, RetuneMapResult } from '../retuneMaps';
 import { escapeHtml, html, raw, type Html } from './htmlText';
 import { shiftText } from '../../core/diagnostics/shiftText';
-import { intervalAtPrecision, valueAtPrecision, valueInInterval } from '../../figures/parts/uncertainNumber';
+import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { gridPointLabels, tuningValueTexts } from '../../figures/parts/tickFormat';
 import { senseWords, valueAxisLabel, valueUnit, type FigureCounter, type ReportInput } from './reportInput';
 import { valueColumnHead, valueUnitWords } from '../valueUnitWords';
@@ -77,7 +78,7 @@ function mapFigure(input: ReportInput, map: RetuneMapResult, index: number, n: n
 function mapTable(map: RetuneMapResult, unit: string): Html {
   const best = map.best, bestInterval = best ? map.points[best.index]?.interval ?? null : null;
   const caption = html`<p><strong>${map.candidate}</strong> — ${best
-    ? html`best supported point ${raw(tuningValueTexts(map.axes, best.coordinates).map((text, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(text)}`).join(', '))}, J ${valueInInterval(best.value, bestInterval).text}`
+    ? html`best supported point ${raw(tuningValueTexts(map.axes, best.coordinates).map((text, a) => `${axisHtml(map.axes[a].label)} = ${escapeHtml(text)}`).join(', '))}, J ${bestValueText(map)}`
     : 'no point is both converged and supported by the logs'}${map.presentController === null ? '' : `; present controller J ${valueAtPrecision(map.presentController, bestInterval)}`}.${
     // A grid's cells have no J head of their own: the caption says what they hold, in which unit (valueUnitWords).
     map.axes.length === 1 ? '' : ` Each cell: J at that point, ${valueUnitWords(unit)}, with its interval below it.`}</p>`;

@@ -12,10 +12,14 @@ h1 { font-size: 24px; margin: 0 0 4px; }
 h2 { font-size: 19px; margin: 32px 0 10px; padding-bottom: 4px; border-bottom: 2px solid var(--ink); }
 h3 { font-size: 15px; margin: 20px 0 6px; }
 p, li { max-width: 78ch; }
+/* A boxed paragraph fills its box: the reading measure above is for running text, and a box drawn wider than its words read as a layout fault. */
+.summary p, .cautions li, .cautions-first p, .cautions-first li { max-width: none; }
 .subtitle { color: var(--muted); margin: 0 0 16px; }
 table { border-collapse: collapse; margin: 8px 0 14px; font-size: 13px; }
 th, td { border-bottom: 1px solid var(--rule); padding: 4px 10px 4px 0; text-align: left; vertical-align: top; }
 th { border-bottom: 1.5px solid var(--ink); font-weight: 600; }
+/* A row's own head (the Job table's "Project", "Data file" …) sits on the same rule as its value, so each row's line runs straight across. */
+tbody th { border-bottom: 1px solid var(--rule); }
 td.num, th.num { text-align: right; font-variant-numeric: tabular-nums; }
 td.num { white-space: nowrap; }
 .retune-caution { background: #e8e8e8; }

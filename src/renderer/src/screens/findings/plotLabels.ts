@@ -5,6 +5,7 @@ import { discountWithHorizon } from '../estimator/discountHorizon';
 import { keepUnitGroups } from '../../../../core/unitGroups';
 import { policyLabel } from '../../../../pipeline/policyNames';
 import { valueUnitText } from '../../../../pipeline/valueUnitWords';
+import { valueAxisTitle } from '../../../../figures/parts/valueAxisTitle';
 
 export function stateLabel(doc: ProjectDocument, index: number): string {
   const s = doc.columns.states[index];
@@ -23,12 +24,12 @@ export function valueUnit(doc: ProjectDocument): string {
 
 /** What the plotted values are, as rich text for an axis: "V^{π}(s), discounted cost (€)". */
 export function valueLabel(sense: 'reward' | 'cost', symbol: 'V' | 'Q', unit = ''): string {
-  return `${symbol}^{π}${symbol === 'V' ? '(s)' : '(s, a)'}, discounted ${sense}${unit ? ` (${unit})` : ''}`;
+  return valueAxisTitle(symbol, sense, unit);
 }
 
 /** J's axis title: "J, discounted cost (€)". */
 export function policyValueLabel(sense: 'reward' | 'cost', unit = ''): string {
-  return `J, discounted ${sense}${unit ? ` (${unit})` : ''}`;
+  return valueAxisTitle('J', sense, unit);
 }
 
 /** The settings behind the numbers, for captions: "γ = 0.95 (horizon about 20 steps); linear …; 10 nodes; seed 1; 19,960 transitions". */

@@ -8,8 +8,8 @@ import type { RetuneMapProgress } from '../../../../shared/workerMessages';
 import { formatDuration } from '../../format/numberFormat';
 import { tuningValueTexts } from '../../../../figures/parts/tickFormat';
 import { subscriptMarkup } from '../../../../figures/parts/richText';
-import { valueAtPrecision, valueInInterval } from '../../../../figures/parts/uncertainNumber';
-import { levelText } from './assessmentWords';
+import { valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
+import { bestValueText } from '../../../../figures/charts/retuneMapText';
 
 /** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)" (the figures' rich-text markup). */
 export const richAxisLabel = subscriptMarkup;
@@ -29,9 +29,7 @@ export function headline(map: RetuneMapResult): string {
   const best = map.best ? map.points[map.best.index] : null, bestInterval = best?.interval ?? null;
   const present = map.presentController === null ? 'The present controller has no value to compare with.' : `Present controller: J ${valueAtPrecision(map.presentController, bestInterval)}.`;
   if (!map.best) return `No point of this map is both converged and supported by the logs. ${present}`;
-  const { value, interval, text } = valueInInterval(map.best.value, bestInterval);
-  const j = bestInterval && map.level !== undefined ? `${value}, ${levelText(map.level)} interval ${interval}` : text; // an interval is read with its level
-  return `Best supported point: ${pointText(map, map.best.index)}, J ${j}. ${present}`;
+  return `Best supported point: ${pointText(map, map.best.index)}, J ${bestValueText(map)}. ${present}`; // an interval is read with its level
 }
 
 /** "Map 1 of 2, point 37 of 100 (12 s)". */
