@@ -100,8 +100,11 @@ describe('J\'s unit in the report\'s retune-map table', () => {
     expect(of()).toContain('Each cell: J at that point, no unit given');
   });
 
-  it('trims the unit and writes nothing for a blank one', () => {
-    expect(valueColumnHead('J', ' kWh ')).toBe('J (kWh)');
-    expect(valueColumnHead('J', '  ')).toBe('J');
+  // The project schema trims every unit where the document is read (src/project/unitText.ts; its test
+  // test/project/unitText.test.ts), so a head receives the unit as held: nothing downstream trims again.
+  it('writes the held unit, and nothing for an empty or absent one', () => {
+    expect(valueColumnHead('J', 'kWh')).toBe('J (kWh)');
+    expect(valueColumnHead('J', '')).toBe('J');
+    expect(valueColumnHead('J', undefined)).toBe('J');
   });
 });
