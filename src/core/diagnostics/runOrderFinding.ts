@@ -42,7 +42,7 @@ export function runOrderSeverity(result: RunOrderResult, alpha = RUN_ORDER_ALPHA
 export function runOrderRuleText(): string {
   return 'Run order: per run, in the order the runs appear in the data, the present controller’s law (each action on the states, least squares) and the one-step plant model (each next state on the states and actions) are fitted; ' +
     'each coefficient’s trend over the runs is Spearman’s rank correlation with run order (z = ρ√(n − 1), normal approximation), ' +
-    `and a coefficient changed when its two-sided p times the number of coefficients tested is at most ${alphaText()} (Bonferroni). ` +
+    `and a coefficient changed when its two-sided p times the number of coefficients tested is at most ${RUN_ORDER_ALPHA} (Bonferroni). ` +
     'A change in the law (the present controller was retuned) or in the plant’s response to a state or an action (the plant drifted) is serious, and then no candidate is named for a trial; ' +
     'a change in the plant model’s offset alone is a caution.';
 }
@@ -69,7 +69,7 @@ export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): {
   ].filter(Boolean).join('; and ');
   return {
     severity: 'serious', topic: 'runOrder',
-    message: opening + `That means ${why}. On test plants that drifted or were retuned halfway, J was off by about 20 % with every cross-check agreeing. ` +
+    message: opening + `That means ${why}. On test plants that drifted or were retuned halfway, J was off by about 20\u00a0% with every cross-check agreeing. ` +
       'No candidate is named for a trial. Find where the change happened and evaluate the runs since the change: exclude the earlier rows.',
   };
 }
@@ -89,6 +89,3 @@ function number(v: number): string {
   return Number(v.toPrecision(3)).toString();
 }
 
-function alphaText(): string {
-  return RUN_ORDER_ALPHA.toExponential(0).replace('e-', ' × 10⁻').replace(/⁻(\d)/, (_, d: string) => `⁻${'⁰¹²³⁴⁵⁶⁷⁸⁹'[Number(d)]}`);
-}
