@@ -1,6 +1,7 @@
 /** The readable summary of an assessment for the terminal: intervals, comparison, cross-checks, warnings. */
 import type { Assessment, IntervalEstimate } from '../pipeline/assessment';
 import { plantMemorySentence } from '../pipeline/plantMemoryWords';
+import { runOrderSentence } from '../pipeline/runOrderWords';
 import { policyLabel } from '../pipeline/policyNames';
 import { valueColumnHead } from '../pipeline/valueUnitWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
@@ -52,7 +53,7 @@ export function formatAssessment(a: Assessment, completedShown = true, unit = ''
   ] : []));
   const cuts = ranged.flatMap((c) => (c.rangeCut ? [`  ${c.name}: ${c.rangeCut}`] : []));
   const warnings = [...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))];
-  const memory = plantMemorySentence(a.plantMemory);
+  const memory = plantMemorySentence(a.plantMemory), order = runOrderSentence(a.runOrder);
   // The sweeps in a line each, by the figure's own verdict (figures/charts/sensitivity.ts): the numbers are in --json and the report.
   const sweeps = a.sensitivity ? a.sensitivity.curves.flatMap((c) => [`  J against the ${c.label}: ${rankingVerdict(c)}.`, ...[beyondPossibleSentence(c), unconvergedPointsSentence(c)].flatMap((x) => (x ? [`    ${x}`] : []))]) : [];
   return [
@@ -72,6 +73,7 @@ export function formatAssessment(a: Assessment, completedShown = true, unit = ''
     ...checks,
     ...(sweeps.length ? ['', 'Sensitivity (J refitted at other settings):', ...sweeps] : []),
     ...(memory ? ['', memory] : []),
+    ...(order ? ['', order] : []),
     ...(warnings.length ? ['', 'Assessment warnings:', ...warnings.map((w) => `  - [${w.severity}] ${w.message}`)] : []),
     '',
     `Computed with ${a.settings.threads}.`,

@@ -194,6 +194,14 @@ export const STREAM_WINDOW_BYTES = 4 * 1024 * 1024;
  */
 export const PLANT_MEMORY_LAGS = 8;
 export const PLANT_MEMORY_ROWS = 20_000;
+/**
+ * The run-order check (diagnostics/runOrder.ts, runOrderFinding.ts): the family-wise level of its
+ * Bonferroni-corrected Spearman trend tests, chosen on the battery by the rule in
+ * test/battery/README.md ("Run order"); and the fewest fitted runs it reads (ours: below ten the
+ * normal approximation of Spearman's ρ is poor).
+ */
+export const RUN_ORDER_ALPHA = 1e-3;
+export const RUN_ORDER_MIN_RUNS = 10;
 /** Largest monomial count of the plant-memory check's base regression (pipeline/plantMemoryCheck.ts memoryBaseDegree; ours, the rollout model's own cap). */
 export const PLANT_MEMORY_BASE_MONOMIALS = 120;
 

@@ -11,6 +11,7 @@ import { possibleValuesRuleText } from '../core/diagnostics/possibleStateValues'
 import { MAX_VALUE_CHECK_STATES } from '../core/limits';
 import { LOGGED_LIMITS_NAMED, loggedLimitRuleText } from '../core/loggedActionLimits';
 import { plantMemoryRuleText } from '../core/diagnostics/plantMemoryFinding';
+import { runOrderRuleText } from '../core/diagnostics/runOrderFinding';
 import { returnConcentrationRuleText } from '../core/diagnostics/returnConcentration';
 import { CROSS_CHECK_RULE } from '../core/offPolicy/crossCheckVerdict';
 import { COMPARED_DEGREES, MAX_CLASS_FEATURES } from './assessClasses';
@@ -52,6 +53,7 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
     possibleValuesRuleText(MAX_VALUE_CHECK_STATES),
     returnConcentrationRuleText(),
     plantMemoryRuleText(),
+    runOrderRuleText(),
     'Never-visited region: the share of the value-surface grid (spanning the logged range of its two states) with no logged state at a grid point or its 8 neighbours (our definition); V there is extrapolated.',
     ...(startsFollowEpisodes ? [] : [startCoverageRuleText()]),
   ];

@@ -28,6 +28,7 @@ import { intervalEstimate } from './assessIntervals';
 import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
 import { modelChecksReason, plantMemoryAssessment, type PlantMemorySummary } from './plantMemoryCheck';
+import { runOrderAssessment, type RunOrderSummary } from './runOrderCheck';
 import { checkLinearQuadraticModel, modelInapplicability } from './assessModelCheck';
 import { openResampleRoute, runResamples, type ReplicateSet, type ResampleProgress } from './assessResamples';
 import type { ResampleHelper } from './helperFeed';
@@ -63,7 +64,8 @@ export async function assessRun(run: ProjectRun, options: AssessRunOptions): Pro
     if (error instanceof AssessmentError || error instanceof BootstrapError || isEngineError(error)) {
       // The plant-memory check needs no resampling: its finding is not lost with the rest (J is still shown).
       const memory = plantMemoryAssessment(run.plan.data).warnings.map((w) => ({ where: 'plant memory', message: w.message }));
-      return failure({ where: 'assessment', message: (error as Error).message }, ...memory);
+      const order = runOrderAssessment(run.plan.data).warnings.map((w) => ({ where: 'run order', message: w.message }));
+      return failure({ where: 'assessment', message: (error as Error).message }, ...memory, ...order);
     }
     throw error;
   }
@@ -84,10 +86,12 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   const context = assessmentContext(run, options);
   // Read first: a serious finding rules out the checks that simulate a one-step model (plantMemoryCheck.ts).
   const memory = plantMemoryAssessment(run.plan.data), memoryReason = modelChecksReason(memory);
+  // Whole-log, like the plant memory: a serious run-order finding stops a trial (trialChoice.ts) and bears on every J.
+  const runOrder = runOrderAssessment(run.plan.data);
   // Opened next, so that a helper thread forms the one-step model and simulates while this thread fits the function classes.
   const simulations = memoryReason !== null ? { reason: memoryReason } : openRolloutSimulations(context, everyModel(run).map((m) => m.policy), options.settings);
   try {
-    return await assessWith(run, options, context, simulations, { ...memory, modelReason: memoryReason });
+    return await assessWith(run, options, context, simulations, { ...memory, modelReason: memoryReason, runOrder });
   } finally {
     if (!('reason' in simulations)) simulations.close();
   }
@@ -98,6 +102,8 @@ interface PlantMemoryRead {
   readonly summary: PlantMemorySummary;
   readonly warnings: AssessmentWarning[];
   readonly modelReason: string | null;
+  /** The run-order check's numbers and warnings (runOrderCheck.ts), carried with it: both are read once, before any fit. */
+  readonly runOrder: { readonly summary: RunOrderSummary; readonly warnings: AssessmentWarning[] };
 }
 
 /** The candidates' models, then the present controller's where there is one: the order of every per-policy list. */
@@ -170,8 +176,9 @@ async function assessWith(
     sensitivity: swept?.sensitivity ?? null,
     unvisitedShare: unvisited,
     plantMemory: memory.summary,
+    runOrder: memory.runOrder.summary,
     // A contradicted or unconfirmed baseline: every difference is taken against its J (crossCheckWarnings.ts).
-    warnings: [...memory.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineConfirmationWarnings(presentController), ...baselineClassWarnings(presentController)],
+    warnings: [...memory.warnings, ...memory.runOrder.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineConfirmationWarnings(presentController), ...baselineClassWarnings(presentController)],
     method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, solver),
     valueSense: plan.sense,
   };

@@ -7,6 +7,7 @@
  */
 
 import type { PlantMemorySummary } from './plantMemoryCheck';
+import type { RunOrderSummary } from './runOrderCheck';
 import type { ClassGap } from '../core/diagnostics/functionClassRange';
 
 export interface IntervalEstimate {
@@ -265,6 +266,8 @@ export interface Assessment {
   unvisitedShare: number | null;
   /** Does the logged state carry the plant's memory (plantMemoryCheck.ts)? Once per project; absent in assessments made before the check. */
   plantMemory?: PlantMemorySummary;
+  /** Is the log one plant under one controller, early runs against late (runOrderCheck.ts)? Once per project; absent in assessments made before the check. */
+  runOrder?: RunOrderSummary;
   warnings: AssessmentWarning[];
   /** Definitions and thresholds used, stated once for the report. */
   method: string[];

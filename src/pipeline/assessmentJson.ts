@@ -18,6 +18,7 @@ export function assessmentToJson(a: Assessment): Record<string, unknown> {
     sensitivity: a.sensitivity,
     unvisitedShare: a.unvisitedShare,
     plantMemory: a.plantMemory ?? null,
+    runOrder: a.runOrder ?? null,
     warnings: a.warnings,
     method: a.method,
   };

@@ -4,6 +4,7 @@ import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../core/diagnostics
 import { shiftText } from '../../core/diagnostics/shiftText';
 import { CAUTIONS } from '../cautions';
 import { plantMemorySentence } from '../plantMemoryWords';
+import { runOrderSentence } from '../runOrderWords';
 import { beyondPossibleSentence, unconvergedPointsSentence, rankingSentence, sensitivityChart } from '../../figures/charts/sensitivity';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { estimateCells, intervalFigure, shownName } from './reportComparison';
@@ -43,8 +44,8 @@ function unvisitedParagraph(a: Assessment): Html {
 }
 
 function memoryParagraph(a: Assessment): Html {
-  const sentence = plantMemorySentence(a.plantMemory);
-  return sentence ? html`<p>${sentence}</p>` : html``;
+  const sentence = plantMemorySentence(a.plantMemory), order = runOrderSentence(a.runOrder);
+  return html`${sentence ? html`<p>${sentence}</p>` : html``}${order ? html`<p>${order}</p>` : html``}`;
 }
 
 function diagnosticRows(a: Assessment): { label: string; values: string[]; reference: string }[] {

@@ -5,16 +5,19 @@
  */
 import type { Assessment, AssessmentWarning } from '../../../../pipeline/assessment';
 import { plantMemorySentence } from '../../../../pipeline/plantMemoryWords';
+import { runOrderSentence } from '../../../../pipeline/runOrderWords';
 import { coverageSentences, typesetMinus, unvisitedSentence } from './assessmentWords';
 import { FoldPanel } from './FoldPanel';
 
 export function CoveragePanel({ assessment }: { assessment: Assessment }) {
   const unvisited = unvisitedSentence(assessment.unvisitedShare, assessment.warnings), memory = plantMemorySentence(assessment.plantMemory);
+  const order = runOrderSentence(assessment.runOrder);
   return (
     <FoldPanel section="coverage" testId="coverage" gist={coverageGist(assessment)}>
       <Warnings warnings={assessment.warnings} testId="assessment-warnings" />
       {unvisited && <p>{unvisited}</p>}
       {memory && <p data-testid="plant-memory">{memory}</p>}
+      {order && <p data-testid="run-order">{order}</p>}
       {assessment.candidates.map((c, i) => (
         <div key={c.name} data-testid={`coverage-${i}`}>
           <h4>{c.name}</h4>

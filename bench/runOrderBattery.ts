@@ -1,0 +1,85 @@
+/**
+ * The run-order check (src/core/diagnostics/runOrder.ts, runOrderFinding.ts) on simulated logs
+ * directly, no evaluation: every battery plant, every hold-out, the probe37 plants and their controls,
+ * and the three sample projects. Per log: the runs, the runs skipped per block, the smallest
+ * Bonferroni-corrected p of the law's coefficients, of the plant model's slopes and of its intercepts
+ * (K·p, K the coefficients tested), and the finding at each candidate family-wise level.
+ *
+ *   nice -n 10 npx tsx bench/runOrderBattery.ts [--seeds 1,2,3,4,5] [--transitions 100000] [--plants a,b]
+ *
+ * The rule these columns are read by: test/battery/README.md, "Run order".
+ */
+import { readFile } from 'node:fs/promises';
+import { dirname, join } from 'node:path';
+import { fileURLToPath } from 'node:url';
+import { batteryPlants } from '../test/battery/catalogue';
+import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
+import { brokenLogPlants, keptAssumptionPlants } from '../test/battery/holdout/brokenLogPlants';
+import { runOrderTrends, type RunOrderData, type RunOrderResult } from '../src/core/diagnostics/runOrder';
+import { runOrderSeverity } from '../src/core/diagnostics/runOrderFinding';
+import { RUN_ORDER_MIN_RUNS } from '../src/core/limits';
+import { openProject } from '../src/pipeline/openProject';
+import { startRun } from '../src/pipeline/projectRun';
+
+const ALPHAS = [1e-2, 1e-3, 1e-4, 1e-5];
+const CHANGED = new Set(['holdout-dosing-pump-wear-g0.96', 'holdout-cold-store-retuned-g0.97']);
+
+function option(name: string, fallback: string): string {
+  const at = process.argv.indexOf(`--${name}`);
+  return at >= 0 ? process.argv[at + 1] : fallback;
+}
+
+function smallest(result: RunOrderResult, pick: (block: string, input: number) => boolean): string {
+  if ('reason' in result) return '—';
+  const k = result.trends.length, ps = result.trends.filter((t) => pick(t.block, t.input)).map((t) => Math.min(1, t.p * k));
+  return ps.length ? Math.min(...ps).toExponential(1) : '—';
+}
+
+function row(name: string, seed: number | string, data: RunOrderData): { serious: boolean[]; caution: boolean[] } {
+  const result = runOrderTrends(data, RUN_ORDER_MIN_RUNS);
+  const severities = ALPHAS.map((a) => runOrderSeverity(result, a));
+  const runs = 'reason' in result ? result.reason : `${result.runs} (skip ${result.lawSkipped}/${result.modelSkipped})`;
+  console.log([name, seed, runs, smallest(result, (b) => b === 'law'), smallest(result, (b, i) => b === 'model' && i >= 0), smallest(result, (b, i) => b === 'model' && i < 0),
+    ...severities.map((s) => s ?? '·')].join(' | '));
+  return { serious: severities.map((s) => s === 'serious'), caution: severities.map((s) => s === 'caution') };
+}
+
+async function sampleData(sample: string): Promise<{ data: RunOrderData; dispose: () => void }> {
+  const folder = join(dirname(fileURLToPath(import.meta.url)), '..', 'sample-projects', sample);
+  const opened = await openProject(await readFile(join(folder, `${sample}.spcritic`), 'utf8'), `${sample}.spcritic`, async (p: string) => new Uint8Array(await readFile(join(folder, p))));
+  if (!opened.ok) throw new Error(`${sample}: ${opened.problems.map((p) => p.message).join('; ')}`);
+  const started = await startRun(opened.value.project, opened.value.dataset);
+  if (!started.ok) throw new Error(`${sample}: ${started.problems.map((p) => p.message).join('; ')}`);
+  return { data: started.value.plan.data, dispose: () => started.value.dispose() };
+}
+
+async function main(): Promise<void> {
+  const seeds = option('seeds', '1,2,3,4,5').split(',').map(Number), transitions = Number(option('transitions', '100000'));
+  const only = option('plants', '').split(',').filter(Boolean);
+  const plants = [...batteryPlants(), ...holdoutPlants(), ...brokenLogPlants(), ...keptAssumptionPlants().map((p) => ({ ...p, name: `${p.name} (control)` }))]
+    .filter((p) => only.length === 0 || only.some((o) => p.name.includes(o)));
+  console.log(`# ${transitions} transitions, seeds ${seeds.join(',')}; K·p smallest over law | model slopes | model intercepts; finding at α = ${ALPHAS.map((a) => a.toExponential(0)).join(', ')}`);
+  console.log('log | seed | runs (skipped law/model) | law K·p | model slope K·p | model offset K·p | ' + ALPHAS.map((a) => `α ${a.toExponential(0)}`).join(' | '));
+  const stationaryFalse = ALPHAS.map(() => 0), changedMissed = ALPHAS.map(() => 0), stationaryCautions = ALPHAS.map(() => 0);
+  let stationary = 0, changed = 0;
+  const tally = (name: string, r: { serious: boolean[]; caution: boolean[] }) => {
+    const isChanged = CHANGED.has(name);
+    if (isChanged) changed++; else stationary++;
+    ALPHAS.forEach((_, k) => {
+      if (isChanged && !r.serious[k]) changedMissed[k]++;
+      if (!isChanged && r.serious[k]) stationaryFalse[k]++;
+      if (!isChanged && r.caution[k]) stationaryCautions[k]++;
+    });
+  };
+  for (const plant of plants) for (const seed of seeds) tally(plant.name, row(plant.name, seed, plant.simulate({ transitions, seed })));
+  if (only.length === 0) {
+    for (const sample of ['heating-loop', 'heating-historian', 'tank-levels']) {
+      const s = await sampleData(sample);
+      try { tally(sample, row(`sample ${sample}`, '—', s.data)); } finally { s.dispose(); }
+    }
+  }
+  console.log(`# stationary logs ${stationary}, changed logs ${changed}`);
+  ALPHAS.forEach((a, k) => console.log(`# α ${a.toExponential(0)}: serious on stationary ${stationaryFalse[k]}, cautions on stationary ${stationaryCautions[k]}, changed logs not serious ${changedMissed[k]}`));
+}
+
+void main();

@@ -1,0 +1,192 @@
+/**
+ * Is the log one plant under one controller from its first run to its last? Every estimate here
+ * assumes so: the present controller's law is fitted to all logged actions as one law, and every
+ * J is over one plant. A plant that wears over the months, or a controller retuned halfway through
+ * the log, breaks that, and nothing else in the product looks at the order of the runs.
+ *
+ * Per run, in the order the runs appear in the data (the episode index, file order), ordinary least
+ * squares of
+ *   (a) the present controller's law: each action on [1, states] (the inputs of the product's
+ *       baseline law, core/behaviourModel.ts: a = c + G·s + e);
+ *   (b) the one-step plant model: each next state on [1, states, actions].
+ * The regressors are centred and scaled by the whole log's means and spreads (the same for every
+ * run), so an intercept is the fitted value at the log's mean state (and action), and ranks across
+ * runs are those of the coefficients themselves. A run with too few rows for its block, or whose
+ * normal equations are singular (a pivot at rounding level: an action without dither is a function
+ * of the state), is skipped for that block and counted.
+ *
+ * For each coefficient, its trend against run order: Spearman's rank correlation ρ between the run's
+ * position and the run's estimate (average ranks for ties), z = ρ·√(n − 1) (the large-sample normal
+ * approximation; Kendall & Gibbons, "Rank Correlation Methods", 5th ed., 1990 — from memory), two-sided
+ * p = 2·Φ(−|z|). One estimate per run makes the runs the independent units; ranks keep a few wild
+ * per-run fits (a short run, a run that never left the setpoint) from deciding. The Bonferroni
+ * correction over the coefficients tested lives with the rule (runOrderFinding.ts).
+ *
+ * Shapes: ds states, m actions; law coefficients m × (1 + ds), model coefficients ds × (1 + ds + m).
+ */
+import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
+import { normalSurvival } from '../normalDistribution';
+
+export interface RunOrderData {
+  readonly count: number;
+  readonly stateDim: number;
+  readonly actionDim: number;
+  readonly states: Float64Array;
+  readonly actions: Float64Array;
+  readonly nextStates: Float64Array;
+  readonly episode: Int32Array;
+}
+
+/** One coefficient's trend over the runs. `input` is -1 for the intercept, else the regressor's index in [states, actions]. */
+export interface CoefficientTrend {
+  readonly block: 'law' | 'model';
+  /** The action (law) or next state (model) regressed. */
+  readonly output: number;
+  readonly input: number;
+  readonly runs: number;
+  readonly rho: number;
+  readonly z: number;
+  /** Two-sided p of z under the normal approximation (not yet corrected for the number tested). */
+  readonly p: number;
+  /** The estimate's medians over the first and the last fifth of the runs, in the log's units (an intercept: the value at the log's mean state and action), to say which way it went. */
+  readonly early: number;
+  readonly late: number;
+}
+
+export type RunOrderResult =
+  | { readonly runs: number; readonly lawSkipped: number; readonly modelSkipped: number; readonly trends: CoefficientTrend[] }
+  | { readonly reason: string };
+
+/** A pivot below this share of its column's own sum of squares is rounding (ours, as plant-memory's). */
+const PIVOT_FLOOR = 1e-10;
+
+/** Spearman's ρ of two equal-length samples, average ranks for ties; NaN when either is constant. */
+export function spearmanRho(x: ArrayLike<number>, y: ArrayLike<number>): number {
+  const rx = averageRanks(x), ry = averageRanks(y), n = rx.length;
+  if (n < 2) return NaN;
+  const mean = (n + 1) / 2;
+  let sxy = 0, sxx = 0, syy = 0;
+  for (let i = 0; i < n; i++) {
+    const a = rx[i] - mean, b = ry[i] - mean;
+    sxy += a * b;
+    sxx += a * a;
+    syy += b * b;
+  }
+  return sxx > 0 && syy > 0 ? sxy / Math.sqrt(sxx * syy) : NaN;
+}
+
+/** 1-based ranks, ties given the average of the ranks they span. */
+export function averageRanks(x: ArrayLike<number>): Float64Array {
+  const n = x.length, order = Array.from({ length: n }, (_, i) => i).sort((a, b) => x[a] - x[b]), ranks = new Float64Array(n);
+  for (let i = 0; i < n;) {
+    let j = i;
+    while (j + 1 < n && x[order[j + 1]] === x[order[i]]) j++;
+    for (let k = i; k <= j; k++) ranks[order[k]] = (i + j) / 2 + 1;
+    i = j + 1;
+  }
+  return ranks;
+}
+
+/** z = ρ·√(n − 1) and its two-sided normal p (Kendall & Gibbons, from memory). */
+export function spearmanTrend(rho: number, n: number): { z: number; p: number } {
+  if (!Number.isFinite(rho) || n < 2) return { z: 0, p: 1 };
+  const z = rho * Math.sqrt(n - 1);
+  return { z, p: Math.min(1, 2 * normalSurvival(Math.abs(z))) };
+}
+
+export function runOrderTrends(data: RunOrderData, minimumRuns: number): RunOrderResult {
+  const ds = data.stateDim, m = data.actionDim, w = ds + m;
+  const spans = runSpans(data);
+  if (spans.length < minimumRuns) return { reason: `it needs at least ${minimumRuns} runs, and the log has ${spans.length}` };
+  const { mean, scale } = columnScales(data);
+  const law: number[][] = [], model: number[][] = []; // per run: coefficients, or skipped
+  const lawRuns: number[] = [], modelRuns: number[] = [];
+  spans.forEach(([from, to], r) => {
+    const lawFit = fitRun(data, from, to, { inputs: ds, mean, scale, outputs: m, target: 'action' });
+    if (lawFit) { law.push(lawFit); lawRuns.push(r); }
+    const modelFit = fitRun(data, from, to, { inputs: w, mean, scale, outputs: ds, target: 'next' });
+    if (modelFit) { model.push(modelFit); modelRuns.push(r); }
+  });
+  const trends: CoefficientTrend[] = [];
+  const add = (block: 'law' | 'model', fits: number[][], runs: number[], outputs: number, inputs: number) => {
+    if (runs.length < minimumRuns) return;
+    for (let o = 0; o < outputs; o++) for (let c = 0; c <= inputs; c++) {
+      const unit = c === 0 ? 1 : scale[c - 1], series = fits.map((f) => f[o * (inputs + 1) + c] / unit);
+      const rho = spearmanRho(runs, series), { z, p } = spearmanTrend(rho, runs.length);
+      const fifth = Math.max(1, Math.floor(series.length / 5));
+      trends.push({ block, output: o, input: c - 1, runs: runs.length, rho: Number.isFinite(rho) ? rho : 0, z, p, early: median(series.slice(0, fifth)), late: median(series.slice(-fifth)) });
+    }
+  };
+  add('law', law, lawRuns, m, ds);
+  add('model', model, modelRuns, ds, w);
+  if (trends.length === 0) return { reason: `fewer than ${minimumRuns} runs could be fitted (each needs more rows than twice its coefficients, and some spread in its states and actions)` };
+  return { runs: spans.length, lawSkipped: spans.length - lawRuns.length, modelSkipped: spans.length - modelRuns.length, trends };
+}
+
+/** [first row, one past the last] of each run, in the order the runs appear (rows of one episode index in a row). */
+function runSpans(data: RunOrderData): [number, number][] {
+  const spans: [number, number][] = [];
+  for (let i = 0; i < data.count;) {
+    let j = i + 1;
+    while (j < data.count && data.episode[j] === data.episode[i]) j++;
+    spans.push([i, j]);
+    i = j;
+  }
+  return spans;
+}
+
+/** The whole log's mean and spread of each of [states, actions] (spread 1 where a column is constant). */
+function columnScales(data: RunOrderData): { mean: Float64Array; scale: Float64Array } {
+  const ds = data.stateDim, m = data.actionDim, w = ds + m, n = data.count;
+  const mean = new Float64Array(w), scale = new Float64Array(w);
+  for (let i = 0; i < n; i++) for (let c = 0; c < w; c++) mean[c] += input(data, i, c) / n;
+  for (let i = 0; i < n; i++) for (let c = 0; c < w; c++) scale[c] += (input(data, i, c) - mean[c]) ** 2 / n;
+  for (let c = 0; c < w; c++) scale[c] = scale[c] > 0 ? Math.sqrt(scale[c]) : 1;
+  return { mean, scale };
+}
+
+function input(data: RunOrderData, i: number, c: number): number {
+  return c < data.stateDim ? data.states[i * data.stateDim + c] : data.actions[i * data.actionDim + c - data.stateDim];
+}
+
+interface Block { inputs: number; outputs: number; mean: Float64Array; scale: Float64Array; target: 'action' | 'next' }
+
+/** Least squares of each output on [1, scaled inputs] over rows [from, to); null when too short or singular. Row-major outputs × (1 + inputs). */
+function fitRun(data: RunOrderData, from: number, to: number, b: Block): number[] | null {
+  const p = b.inputs + 1, n = to - from;
+  if (n <= 2 * p) return null;
+  const gram = new Float64Array(p * p), rhs = new Float64Array(p * b.outputs), x = new Float64Array(p);
+  x[0] = 1;
+  for (let i = from; i < to; i++) {
+    for (let c = 0; c < b.inputs; c++) x[c + 1] = (input(data, i, c) - b.mean[c]) / b.scale[c];
+    for (let a = 0; a < p; a++) for (let c = a; c < p; c++) gram[a * p + c] += x[a] * x[c];
+    for (let o = 0; o < b.outputs; o++) {
+      const y = b.target === 'action' ? data.actions[i * data.actionDim + o] : data.nextStates[i * data.stateDim + o];
+      for (let a = 0; a < p; a++) rhs[o * p + a] += x[a] * y;
+    }
+  }
+  const l = factor(gram, p);
+  if (!l) return null;
+  const out: number[] = [];
+  for (let o = 0; o < b.outputs; o++) out.push(...choleskySolve(l, p, rhs.subarray(o * p, o * p + p)));
+  return out;
+}
+
+/** Lower Cholesky factor of the gram (upper triangle filled here, mirrored); null when a pivot is at rounding level. */
+function factor(gram: Float64Array, p: number): Float64Array | null {
+  for (let a = 0; a < p; a++) for (let c = a + 1; c < p; c++) gram[c * p + a] = gram[a * p + c];
+  let l: Float64Array;
+  try {
+    l = cholesky(gram, p);
+  } catch (error) {
+    if (error instanceof SingularMatrixError) return null;
+    throw error;
+  }
+  for (let j = 0; j < p; j++) if (!(l[j * p + j] ** 2 > PIVOT_FLOOR * gram[j * p + j])) return null;
+  return l;
+}
+
+function median(v: number[]): number {
+  const s = [...v].sort((a, b) => a - b), h = Math.floor(s.length / 2);
+  return s.length % 2 ? s[h] : (s[h - 1] + s[h]) / 2;
+}

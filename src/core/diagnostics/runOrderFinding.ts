@@ -1,0 +1,91 @@
+/**
+ * The rule that reads the run-order check (runOrder.ts) and its words, stated once: the app, the
+ * command line, the report and the method statement all take their text from here.
+ *
+ * A coefficient changed with run order when its two-sided p, times the number of coefficients tested
+ * (Bonferroni), is at most RUN_ORDER_ALPHA. SERIOUS: a coefficient of the present controller's law
+ * (its intercept or a gain) changed — the baseline is then an average of tunings; or a coefficient of
+ * the plant model on a state or an action changed — every estimate is then an average of plants.
+ * CAUTION: only plant-model intercepts changed — a slow disturbance the states do not carry.
+ *
+ * Threshold chosen by the rule written before measuring (/work/notes/runorder37-rule.md; table in
+ * test/battery/README.md, "Run order", bench/runOrderBattery.ts).
+ */
+import { RUN_ORDER_ALPHA } from '../limits';
+import type { CoefficientTrend, RunOrderResult } from './runOrder';
+
+export interface RunOrderNames {
+  readonly stateNames: readonly string[];
+  readonly actionNames: readonly string[];
+}
+
+export type RunOrderSeverity = 'caution' | 'serious';
+
+/** The coefficients that changed with run order at family-wise level alpha (Bonferroni over those tested). */
+export function changedTrends(result: RunOrderResult, alpha = RUN_ORDER_ALPHA): CoefficientTrend[] {
+  if ('reason' in result) return [];
+  const k = result.trends.length;
+  return result.trends.filter((t) => t.p * k <= alpha);
+}
+
+/** A changed coefficient's weight: serious unless it is a plant-model intercept. */
+export function trendSeverity(t: CoefficientTrend): RunOrderSeverity {
+  return t.block === 'model' && t.input < 0 ? 'caution' : 'serious';
+}
+
+export function runOrderSeverity(result: RunOrderResult, alpha = RUN_ORDER_ALPHA): RunOrderSeverity | null {
+  const changed = changedTrends(result, alpha);
+  if (changed.length === 0) return null;
+  return changed.some((t) => trendSeverity(t) === 'serious') ? 'serious' : 'caution';
+}
+
+export function runOrderRuleText(): string {
+  return 'Run order: per run, in the order the runs appear in the data, the present controller’s law (each action on the states, least squares) and the one-step plant model (each next state on the states and actions) are fitted; ' +
+    'each coefficient’s trend over the runs is Spearman’s rank correlation with run order (z = ρ√(n − 1), normal approximation), ' +
+    `and a coefficient changed when its two-sided p times the number of coefficients tested is at most ${RUN_ORDER_ALPHA} (Bonferroni). ` +
+    'A change in the law (the present controller was retuned) or in the plant’s response to a state or an action (the plant drifted) is serious, and then no candidate is named for a trial; ' +
+    'a change in the plant model’s offset alone is a caution.';
+}
+
+/** The finding's words, or null when nothing changed with run order. */
+export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): { severity: RunOrderSeverity; topic: string; message: string } | null {
+  const changed = changedTrends(result);
+  if (changed.length === 0 || 'reason' in result) return null;
+  const serious = changed.filter((t) => trendSeverity(t) === 'serious');
+  const shown = (serious.length > 0 ? serious : changed).sort((a, b) => Math.abs(b.z) - Math.abs(a.z));
+  const law = serious.some((t) => t.block === 'law'), plant = serious.some((t) => t.block === 'model');
+  const first = shown.slice(0, 3).map((t) => trendText(t, names)).join('; ');
+  const more = shown.length > 3 ? `; and ${shown.length - 3} more` : '';
+  const opening = `The log may not be one plant under one controller: taking the ${result.runs.toLocaleString('en-US')} runs in the order they appear in the data, ${first}${more}. `;
+  if (serious.length === 0) {
+    return {
+      severity: 'caution', topic: 'runOrder',
+      message: opening + 'Only the plant model’s offset moved: a slow disturbance that the logged states do not carry. The estimates assume one plant throughout; look at what changed, and if the plant itself changed, evaluate the runs since the change: exclude the earlier rows.',
+    };
+  }
+  const why = [
+    law ? 'the present controller’s law changed (it was retuned?), so the baseline fitted to all logged actions is an average of tunings, not the controller in service now' : '',
+    plant ? 'the plant’s response changed (wear, fouling, a replaced part?), so every estimate here, the cross-checks included, describes the log’s average plant, not today’s' : '',
+  ].filter(Boolean).join('; and ');
+  return {
+    severity: 'serious', topic: 'runOrder',
+    message: opening + `That means ${why}. On test plants that drifted or were retuned halfway, J was off by about 20\u00a0% with every cross-check agreeing. ` +
+      'No candidate is named for a trial. Find where the change happened and evaluate the runs since the change: exclude the earlier rows.',
+  };
+}
+
+/** "the law’s gain of valve on level rose from 0.12 to 0.30 (ρ = 0.93 over 500 runs)". */
+function trendText(t: CoefficientTrend, names: RunOrderNames): string {
+  const action = (i: number) => names.actionNames[i] ?? `action ${i + 1}`, state = (i: number) => names.stateNames[i] ?? `state ${i + 1}`;
+  const regressor = (c: number) => (c < names.stateNames.length ? state(c) : action(c - names.stateNames.length));
+  const what = t.block === 'law'
+    ? (t.input < 0 ? `the present controller’s ${action(t.output)} at the log’s mean state` : `the present controller’s gain of ${action(t.output)} on ${regressor(t.input)}`)
+    : (t.input < 0 ? `the plant model’s offset of next ${state(t.output)}` : `the plant’s response of next ${state(t.output)} to ${regressor(t.input)}`);
+  const way = t.late > t.early ? 'rose' : 'fell';
+  return `${what} ${way} from ${number(t.early)} in the first fifth of the runs to ${number(t.late)} in the last (Spearman’s ρ = ${t.rho.toFixed(2)} over ${t.runs.toLocaleString('en-US')} runs)`;
+}
+
+function number(v: number): string {
+  return Number(v.toPrecision(3)).toString();
+}
+

@@ -1,0 +1,39 @@
+/**
+ * The run-order check on a project's log (src/core/diagnostics/runOrder.ts), once per project, not per
+ * candidate: is the log one plant under one controller from its first run to its last? Its rule and
+ * words come from src/core/diagnostics/runOrderFinding.ts; its numbers go to the assessment as `runOrder`.
+ */
+import { runOrderTrends, type RunOrderData } from '../core/diagnostics/runOrder';
+import { changedTrends, runOrderFinding, trendSeverity, type RunOrderNames } from '../core/diagnostics/runOrderFinding';
+import { RUN_ORDER_MIN_RUNS } from '../core/limits';
+import type { AssessmentWarning } from './assessment';
+
+/** The check's numbers (plain JSON): runs read, runs skipped per fit, coefficients tested, and those that changed. */
+export type RunOrderSummary =
+  | {
+    readonly runs: number; readonly lawRunsSkipped: number; readonly modelRunsSkipped: number; readonly coefficientsTested: number;
+    /** The smallest Bonferroni-corrected p over the coefficients (K·p, at most 1). */
+    readonly smallestCorrectedP: number;
+    readonly changed: { fit: 'law' | 'model'; output: string; input: string; rho: number; z: number; correctedP: number; early: number; late: number; severity: 'caution' | 'serious' }[];
+  }
+  | { readonly reason: string };
+
+export function runOrderAssessment(data: RunOrderData & RunOrderNames): { summary: RunOrderSummary; warnings: AssessmentWarning[] } {
+  const result = data.count > 0 ? runOrderTrends(data, RUN_ORDER_MIN_RUNS) : { reason: 'the log has no transitions' };
+  const finding = runOrderFinding(result, data);
+  const warnings = finding ? [finding] : [];
+  if ('reason' in result) return { summary: { reason: result.reason }, warnings };
+  const k = result.trends.length, names = [...data.stateNames, ...data.actionNames];
+  const output = (block: 'law' | 'model', i: number) => (block === 'law' ? data.actionNames[i] ?? `action ${i + 1}` : data.stateNames[i] ?? `state ${i + 1}`);
+  return {
+    summary: {
+      runs: result.runs, lawRunsSkipped: result.lawSkipped, modelRunsSkipped: result.modelSkipped, coefficientsTested: k,
+      smallestCorrectedP: Math.min(1, ...result.trends.map((t) => t.p * k)),
+      changed: changedTrends(result).map((t) => ({
+        fit: t.block, output: output(t.block, t.output), input: t.input < 0 ? 'intercept' : names[t.input] ?? `input ${t.input + 1}`,
+        rho: t.rho, z: t.z, correctedP: Math.min(1, t.p * k), early: t.early, late: t.late, severity: trendSeverity(t),
+      })),
+    },
+    warnings,
+  };
+}

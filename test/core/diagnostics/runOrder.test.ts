@@ -1,0 +1,99 @@
+/**
+ * The run-order check (src/core/diagnostics/runOrder.ts, runOrderFinding.ts) against outside facts:
+ * Spearman's ρ of small tables against a hand computation and a published worked example, its null
+ * distribution against the normal tail, and the finding on logs built to have, or not have, a change.
+ */
+import { describe, expect, it } from 'vitest';
+import { averageRanks, runOrderTrends, spearmanRho, spearmanTrend, type RunOrderData } from '../../../src/core/diagnostics/runOrder';
+import { runOrderFinding, runOrderSeverity } from '../../../src/core/diagnostics/runOrderFinding';
+import { createRandom } from '../../../src/core/random';
+
+describe('Spearman’s rank correlation', () => {
+  it('matches a hand computation without ties: ρ = 1 − 6Σd²/(n(n² − 1))', () => {
+    // d = (−1, 1, −1, 1, 0), Σd² = 4, ρ = 1 − 24/120 = 0.8 (by hand).
+    expect(spearmanRho([1, 2, 3, 4, 5], [2, 1, 4, 3, 5])).toBeCloseTo(0.8, 12);
+  });
+
+  it('gives tied values their average rank, and ρ is Pearson’s r of the ranks', () => {
+    // y ranks (1.5, 1.5, 3, 4); by hand: Sxy = 4.5, Sxx = 5, Syy = 4.5, ρ = 4.5/√22.5 = 0.948683...
+    expect(Array.from(averageRanks([1, 1, 2, 3]))).toEqual([1.5, 1.5, 3, 4]);
+    expect(spearmanRho([1, 2, 3, 4], [1, 1, 2, 3])).toBeCloseTo(4.5 / Math.sqrt(22.5), 12);
+    // A table with a tie in x: scipy.stats.spearmanr (a general-purpose reference library) gives −0.7207499701564473.
+    expect(spearmanRho([3.1, 1.2, 5.5, 2.2, 4.0, 4.0, 0.5], [10, 30, 20, 25, 5, 15, 40])).toBeCloseTo(-0.7207499701564473, 12);
+  });
+
+  it('matches the published worked example of IQ against hours of television (ρ = −29/165)', () => {
+    // The worked example in Wikipedia's article "Spearman's rank correlation coefficient" (from memory;
+    // scipy.stats.spearmanr gives the same −0.17575757...).
+    const iq = [106, 100, 86, 101, 99, 103, 97, 113, 112, 110], tv = [7, 27, 2, 50, 28, 29, 20, 12, 6, 17];
+    expect(spearmanRho(iq, tv)).toBeCloseTo(-29 / 165, 12);
+  });
+
+  it('under independence, z = ρ√(n − 1) exceeds the normal two-sided points as often as the normal tail says, within Monte Carlo error', () => {
+    // Kendall & Gibbons, Rank Correlation Methods (from memory): under independence Var ρ = 1/(n − 1) exactly and ρ√(n − 1) → N(0, 1).
+    const random = createRandom(37), draws = 4000, n = 60, position = Array.from({ length: n }, (_, i) => i);
+    const levels = [0.1, 0.05, 0.01], hits = levels.map(() => 0);
+    for (let d = 0; d < draws; d++) {
+      const series = Array.from({ length: n }, () => random.normal());
+      const { p } = spearmanTrend(spearmanRho(position, series), n);
+      levels.forEach((a, k) => { if (p <= a) hits[k]++; });
+    }
+    levels.forEach((a, k) => {
+      const share = hits[k] / draws, se = Math.sqrt((a * (1 - a)) / draws);
+      expect(Math.abs(share - a)).toBeLessThan(4 * se);
+    });
+  });
+});
+
+/** A first-order plant x' = a·x + b·u + w under u = −k·x + dither, runs of `steps` rows; `change(r)` sets (k, b) of run r. */
+function loggedRuns(runs: number, steps: number, seed: number, change: (r: number) => { k: number; b: number }, dither = 0.1): RunOrderData {
+  const random = createRandom(seed), n = runs * steps;
+  const states = new Float64Array(n), actions = new Float64Array(n), nextStates = new Float64Array(n), episode = new Int32Array(n);
+  for (let r = 0, i = 0; r < runs; r++) {
+    const { k, b } = change(r);
+    let x = random.normal();
+    for (let t = 0; t < steps; t++, i++) {
+      const u = -k * x + dither * random.normal(), next = 0.8 * x + b * u + 0.1 * random.normal();
+      states[i] = x; actions[i] = u; nextStates[i] = next; episode[i] = r;
+      x = next;
+    }
+  }
+  return { count: n, stateDim: 1, actionDim: 1, states, actions, nextStates, episode };
+}
+
+const names = { stateNames: ['level'], actionNames: ['valve'] };
+
+describe('the run-order check', () => {
+  it('finds nothing on a stationary log', () => {
+    for (const seed of [1, 2, 3]) {
+      const result = runOrderTrends(loggedRuns(200, 100, seed, () => ({ k: 0.4, b: 0.5 })), 10);
+      expect(runOrderSeverity(result)).toBeNull();
+      expect(runOrderFinding(result, names)).toBeNull();
+    }
+  });
+
+  it('calls a controller retuned halfway through the log serious, naming the gain and what to do', () => {
+    const result = runOrderTrends(loggedRuns(200, 100, 4, (r) => ({ k: r < 100 ? 0.2 : 0.5, b: 0.5 })), 10);
+    const finding = runOrderFinding(result, names);
+    expect(finding?.severity).toBe('serious');
+    expect(finding?.message).toContain('the present controller’s gain of valve on level');
+    expect(finding?.message).toContain('the order they appear in the data');
+    expect(finding?.message).toContain('exclude the earlier rows');
+    expect(finding?.message).toContain('No candidate is named for a trial');
+  });
+
+  it('calls a plant whose response to the action drifts serious', () => {
+    const result = runOrderTrends(loggedRuns(200, 100, 5, (r) => ({ k: 0.4, b: 0.5 - 0.1 * (r / 200) })), 10);
+    const finding = runOrderFinding(result, names);
+    expect(finding?.severity).toBe('serious');
+    expect(finding?.message).toContain('the plant’s response of next level to valve');
+  });
+
+  it('skips and counts runs without dither for the plant model, and says why it cannot read too few runs', () => {
+    const result = runOrderTrends(loggedRuns(30, 50, 6, () => ({ k: 0.4, b: 0.5 }), 0), 10);
+    expect('reason' in result ? null : result.modelSkipped).toBe(30);
+    expect('reason' in result ? null : result.lawSkipped).toBe(0);
+    const short = runOrderTrends(loggedRuns(5, 50, 6, () => ({ k: 0.4, b: 0.5 })), 10);
+    expect('reason' in short && short.reason).toContain('at least 10 runs');
+  });
+});
