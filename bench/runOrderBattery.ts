@@ -18,6 +18,7 @@ import { brokenLogPlants, keptAssumptionPlants } from '../test/battery/holdout/b
 import { runOrderTrends, type RunOrderData, type RunOrderResult } from '../src/core/diagnostics/runOrder';
 import { runOrderSeverity } from '../src/core/diagnostics/runOrderFinding';
 import { RUN_ORDER_MIN_RUNS } from '../src/core/limits';
+import { loggedActionLimits } from '../src/core/loggedActionLimits';
 import { openProject } from '../src/pipeline/openProject';
 import { startRun } from '../src/pipeline/projectRun';
 
@@ -36,7 +37,8 @@ function smallest(result: RunOrderResult, pick: (block: string, input: number) =
 }
 
 function row(name: string, seed: number | string, data: RunOrderData): { serious: boolean[]; caution: boolean[] } {
-  const result = runOrderTrends(data, RUN_ORDER_MIN_RUNS);
+  // The limits as the baseline reads them from the log (repeated extremes; no candidate's declared bounds here).
+  const result = runOrderTrends({ ...data, actionLimits: loggedActionLimits(data.actions, data.count, data.actionDim) }, RUN_ORDER_MIN_RUNS);
   const severities = ALPHAS.map((a) => runOrderSeverity(result, a));
   const runs = 'reason' in result ? result.reason : `${result.runs} (skip ${result.lawSkipped}/${result.modelSkipped})`;
   console.log([name, seed, runs, smallest(result, (b) => b === 'law'), smallest(result, (b, i) => b === 'model' && i >= 0), smallest(result, (b, i) => b === 'model' && i < 0),

@@ -64,7 +64,7 @@ export async function assessRun(run: ProjectRun, options: AssessRunOptions): Pro
     if (error instanceof AssessmentError || error instanceof BootstrapError || isEngineError(error)) {
       // The plant-memory check needs no resampling: its finding is not lost with the rest (J is still shown).
       const memory = plantMemoryAssessment(run.plan.data).warnings.map((w) => ({ where: 'plant memory', message: w.message }));
-      const order = runOrderAssessment(run.plan.data).warnings.map((w) => ({ where: 'run order', message: w.message }));
+      const order = runOrderAssessment(run.plan.data, run.plan.presentController.fitted?.limits).warnings.map((w) => ({ where: 'run order', message: w.message }));
       return failure({ where: 'assessment', message: (error as Error).message }, ...memory, ...order);
     }
     throw error;
@@ -87,7 +87,7 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   // Read first: a serious finding rules out the checks that simulate a one-step model (plantMemoryCheck.ts).
   const memory = plantMemoryAssessment(run.plan.data), memoryReason = modelChecksReason(memory);
   // Whole-log, like the plant memory: a serious run-order finding stops a trial (trialChoice.ts) and bears on every J.
-  const runOrder = runOrderAssessment(run.plan.data);
+  const runOrder = runOrderAssessment(run.plan.data, run.plan.presentController.fitted?.limits);
   // Opened next, so that a helper thread forms the one-step model and simulates while this thread fits the function classes.
   const simulations = memoryReason !== null ? { reason: memoryReason } : openRolloutSimulations(context, everyModel(run).map((m) => m.policy), options.settings);
   try {

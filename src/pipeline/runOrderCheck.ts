@@ -4,7 +4,7 @@
  * words come from src/core/diagnostics/runOrderFinding.ts; its numbers go to the assessment as `runOrder`.
  */
 import { runOrderTrends, type RunOrderData } from '../core/diagnostics/runOrder';
-import { changedTrends, runOrderFinding, trendSeverity, type RunOrderNames } from '../core/diagnostics/runOrderFinding';
+import { changedTrends, fewestRunsToShow, runOrderFinding, trendSeverity, type RunOrderNames } from '../core/diagnostics/runOrderFinding';
 import { RUN_ORDER_MIN_RUNS } from '../core/limits';
 import type { AssessmentWarning } from './assessment';
 
@@ -18,11 +18,16 @@ export type RunOrderSummary =
   }
   | { readonly reason: string };
 
-export function runOrderAssessment(data: RunOrderData & RunOrderNames): { summary: RunOrderSummary; warnings: AssessmentWarning[] } {
-  const result = data.count > 0 ? runOrderTrends(data, RUN_ORDER_MIN_RUNS) : { reason: 'the log has no transitions' };
+/** `limits`: the actuator limits the baseline read from the log (its fitted model's, core/behaviourModel.ts), so a run's law is fitted as the baseline's is. */
+export function runOrderAssessment(data: RunOrderData & RunOrderNames, limits?: RunOrderData['actionLimits']): { summary: RunOrderSummary; warnings: AssessmentWarning[] } {
+  const result = data.count > 0 ? runOrderTrends({ ...data, actionLimits: limits ?? data.actionLimits }, RUN_ORDER_MIN_RUNS) : { reason: 'the log has no transitions' };
   const finding = runOrderFinding(result, data);
   const warnings = finding ? [finding] : [];
   if ('reason' in result) return { summary: { reason: result.reason }, warnings };
+  const fewest = fewestRunsToShow(result.trends.length), most = Math.max(...result.trends.map((t) => t.runs));
+  if (most < fewest) {
+    return { summary: { reason: `its ${most.toLocaleString('en-US')} fitted runs cannot show a change at this level: with ${result.trends.length} coefficients tested, even a perfect trend needs ${fewest} runs` }, warnings };
+  }
   const k = result.trends.length, names = [...data.stateNames, ...data.actionNames];
   const output = (block: 'law' | 'model', i: number) => (block === 'law' ? data.actionNames[i] ?? `action ${i + 1}` : data.stateNames[i] ?? `state ${i + 1}`);
   return {

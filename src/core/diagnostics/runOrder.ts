@@ -7,8 +7,9 @@
  * Per run, in the order the runs appear in the data (the episode index, file order), ordinary least
  * squares of
  *   (a) the present controller's law: each action on [1, states] (the inputs of the product's
- *       baseline law, core/behaviourModel.ts: a = c + G·s + e);
- *   (b) the one-step plant model: each next state on [1, states, actions].
+ *       baseline law, core/behaviourModel.ts: a = c + G·s + e; where the log shows an actuator limit
+ *       and the run reaches it, by the baseline's censored fit — censoredLaw);
+ *   (b) the one-step plant model: each next state on [1, states, actions], rows that end a run left out.
  * The regressors are centred and scaled by the whole log's means and spreads (the same for every
  * run), so an intercept is the fitted value at the log's mean state (and action), and ranks across
  * runs are those of the coefficients themselves. A run with too few rows for its block, or whose
@@ -24,6 +25,7 @@
  *
  * Shapes: ds states, m actions; law coefficients m × (1 + ds), model coefficients ds × (1 + ds + m).
  */
+import { CensoredRegressionError, fitCensoredRegression } from '../censoredRegression';
 import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
 import { normalSurvival } from '../normalDistribution';
 
@@ -35,6 +37,13 @@ export interface RunOrderData {
   readonly actions: Float64Array;
   readonly nextStates: Float64Array;
   readonly episode: Int32Array;
+  /** 1 where the row ends its run (its next state is a copy, core/transitions.ts): left out of the plant model, as the dynamics model leaves it out. */
+  readonly terminal?: Uint8Array;
+  /**
+   * The actuator limits the baseline reads from the whole log (core/loggedActionLimits.ts; ±Infinity or
+   * absent where none): a run's law is then fitted as the baseline's is, by censored maximum likelihood.
+   */
+  readonly actionLimits?: { readonly lo: ArrayLike<number>; readonly hi: ArrayLike<number> };
 }
 
 /** One coefficient's trend over the runs. `input` is -1 for the intercept, else the regressor's index in [states, actions]. */
@@ -158,6 +167,7 @@ function fitRun(data: RunOrderData, from: number, to: number, b: Block): number[
   const gram = new Float64Array(p * p), rhs = new Float64Array(p * b.outputs), x = new Float64Array(p);
   x[0] = 1;
   for (let i = from; i < to; i++) {
+    if (b.target === 'next' && data.terminal?.[i]) continue;
     for (let c = 0; c < b.inputs; c++) x[c + 1] = (input(data, i, c) - b.mean[c]) / b.scale[c];
     for (let a = 0; a < p; a++) for (let c = a; c < p; c++) gram[a * p + c] += x[a] * x[c];
     for (let o = 0; o < b.outputs; o++) {
@@ -169,7 +179,65 @@ function fitRun(data: RunOrderData, from: number, to: number, b: Block): number[
   if (!l) return null;
   const out: number[] = [];
   for (let o = 0; o < b.outputs; o++) out.push(...choleskySolve(l, p, rhs.subarray(o * p, o * p + p)));
+  return b.target === 'action' ? censoredLaw(data, from, to, b, out) : out;
+}
+
+/**
+ * Where the log shows an action's limits and this run reaches one, least squares on the clipped values
+ * is biased toward zero slope by how often the run sits at the limit — which moves with the operating
+ * point from run to run (a cold season's heater at full output), not with the law. That action's law
+ * is then the censored-normal maximum-likelihood fit (Tobit, J. Tobin, Econometrica 26, 1958), the
+ * baseline's own estimator (core/behaviourModel.ts), started from least squares; a run wholly at a
+ * limit, or whose fit fails, is skipped. A run that never reaches a limit keeps least squares, which
+ * is then the same maximum-likelihood fit.
+ */
+function censoredLaw(data: RunOrderData, from: number, to: number, b: Block, ols: number[]): number[] | null {
+  const limits = data.actionLimits, p = b.inputs + 1, n = to - from, m = data.actionDim;
+  if (!limits) return ols;
+  const out = [...ols];
+  let x: Float64Array | null = null;
+  for (let o = 0; o < b.outputs; o++) {
+    const lo = limits.lo[o] ?? -Infinity, hi = limits.hi[o] ?? Infinity, y = new Float64Array(n);
+    let atLimit = 0;
+    for (let i = 0; i < n; i++) {
+      y[i] = data.actions[(from + i) * m + o];
+      if (y[i] <= lo || y[i] >= hi) atLimit++;
+    }
+    if (atLimit === 0) continue;
+    if (atLimit === n) return null;
+    x ??= runInputs(data, from, to, b);
+    const start = ols.slice(o * p, o * p + p), sigma = residualSpread(x, y, start);
+    if (!(sigma > 0)) return null;
+    try {
+      out.splice(o * p, p, ...fitCensoredRegression(x, y, n, p, lo, hi, { coefficients: start, sigma }).coefficients);
+    } catch (error) {
+      if (error instanceof CensoredRegressionError) return null;
+      throw error;
+    }
+  }
   return out;
+}
+
+/** The run's rows of [1, scaled inputs], n × (1 + inputs) row-major. */
+function runInputs(data: RunOrderData, from: number, to: number, b: Block): Float64Array {
+  const p = b.inputs + 1, x = new Float64Array((to - from) * p);
+  for (let i = from; i < to; i++) {
+    x[(i - from) * p] = 1;
+    for (let c = 0; c < b.inputs; c++) x[(i - from) * p + c + 1] = (input(data, i, c) - b.mean[c]) / b.scale[c];
+  }
+  return x;
+}
+
+/** √(Σ (y − xβ)² / (n − p)): least squares' residual spread, the censored fit's starting σ. */
+function residualSpread(x: Float64Array, y: Float64Array, beta: number[]): number {
+  const p = beta.length, n = y.length;
+  let ss = 0;
+  for (let i = 0; i < n; i++) {
+    let fitted = 0;
+    for (let c = 0; c < p; c++) fitted += x[i * p + c] * beta[c];
+    ss += (y[i] - fitted) ** 2;
+  }
+  return Math.sqrt(ss / Math.max(1, n - p));
 }
 
 /** Lower Cholesky factor of the gram (upper triangle filled here, mirrored); null when a pivot is at rounding level. */

@@ -12,6 +12,7 @@
  * test/battery/README.md, "Run order", bench/runOrderBattery.ts).
  */
 import { RUN_ORDER_ALPHA } from '../limits';
+import { normalSurvival } from '../normalDistribution';
 import type { CoefficientTrend, RunOrderResult } from './runOrder';
 
 export interface RunOrderNames {
@@ -28,9 +29,9 @@ export function changedTrends(result: RunOrderResult, alpha = RUN_ORDER_ALPHA): 
   return result.trends.filter((t) => t.p * k <= alpha);
 }
 
-/** A changed coefficient's weight: serious unless it is a plant-model intercept. */
+/** A changed coefficient's weight: serious for a gain or a plant response, a caution for an offset (the law's or the plant model's). */
 export function trendSeverity(t: CoefficientTrend): RunOrderSeverity {
-  return t.block === 'model' && t.input < 0 ? 'caution' : 'serious';
+  return t.input < 0 ? 'caution' : 'serious';
 }
 
 export function runOrderSeverity(result: RunOrderResult, alpha = RUN_ORDER_ALPHA): RunOrderSeverity | null {
@@ -39,12 +40,24 @@ export function runOrderSeverity(result: RunOrderResult, alpha = RUN_ORDER_ALPHA
   return changed.some((t) => trendSeverity(t) === 'serious') ? 'serious' : 'caution';
 }
 
+/**
+ * The fewest runs with which any of k coefficients could ever be called changed at level alpha: even a
+ * perfect trend (ρ = ±1) has z = √(n − 1), so n must reach the smallest with k·2Φ(−√(n − 1)) ≤ alpha
+ * (found by review: with 12 runs no coefficient of a 2-state, 1-action log can fire at 10⁻³, and the
+ * sentence must not then read "no coefficient changed").
+ */
+export function fewestRunsToShow(k: number, alpha = RUN_ORDER_ALPHA): number {
+  let n = 2;
+  while (k * 2 * normalSurvival(Math.sqrt(n - 1)) > alpha) n++;
+  return n;
+}
+
 export function runOrderRuleText(): string {
-  return 'Run order: per run, in the order the runs appear in the data, the present controller’s law (each action on the states, least squares) and the one-step plant model (each next state on the states and actions) are fitted; ' +
+  return 'Run order: per run, in the order the runs appear in the data, the present controller’s law (each action on the states: least squares, or the baseline’s censored fit where the log shows an actuator limit) and the one-step plant model (each next state on the states and actions) are fitted; ' +
     'each coefficient’s trend over the runs is Spearman’s rank correlation with run order (z = ρ√(n − 1), normal approximation), ' +
     `and a coefficient changed when its two-sided p times the number of coefficients tested is at most ${RUN_ORDER_ALPHA} (Bonferroni). ` +
-    'A change in the law (the present controller was retuned) or in the plant’s response to a state or an action (the plant drifted) is serious, and then no candidate is named for a trial; ' +
-    'a change in the plant model’s offset alone is a caution.';
+    'A change in a gain of the law (the present controller was retuned) or in the plant’s response to a state or an action (the plant drifted) is serious, and then no candidate is named for a trial; ' +
+    'a change in an offset alone (the law’s output level, which an integral taking up a drifting load also moves, or the plant model’s) is a caution.';
 }
 
 /** The finding's words, or null when nothing changed with run order. */
@@ -60,11 +73,11 @@ export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): {
   if (serious.length === 0) {
     return {
       severity: 'caution', topic: 'runOrder',
-      message: opening + 'Only the plant model’s offset moved: a slow disturbance that the logged states do not carry. The estimates assume one plant throughout; look at what changed, and if the plant itself changed, evaluate the runs since the change: exclude the earlier rows.',
+      message: opening + 'Only an offset moved — the present controller’s output level (an integral taking up a drifting load, a setpoint change, or a retune) or the plant model’s (a slow disturbance that the logged states do not carry). The estimates assume one plant under one controller throughout; look at what changed, and if the plant or the controller itself changed, evaluate the runs since the change: exclude the earlier rows.',
     };
   }
   const why = [
-    law ? 'the present controller’s law changed (it was retuned?), so the baseline fitted to all logged actions is an average of tunings, not the controller in service now' : '',
+    law ? 'a gain of the present controller’s law changed (it was retuned?), so the baseline fitted to all logged actions is an average of tunings, not the controller in service now' : '',
     plant ? 'the plant’s response changed (wear, fouling, a replaced part?), so every estimate here, the cross-checks included, describes the log’s average plant, not today’s' : '',
   ].filter(Boolean).join('; and ');
   return {
@@ -79,10 +92,10 @@ function trendText(t: CoefficientTrend, names: RunOrderNames): string {
   const action = (i: number) => names.actionNames[i] ?? `action ${i + 1}`, state = (i: number) => names.stateNames[i] ?? `state ${i + 1}`;
   const regressor = (c: number) => (c < names.stateNames.length ? state(c) : action(c - names.stateNames.length));
   const what = t.block === 'law'
-    ? (t.input < 0 ? `the present controller’s ${action(t.output)} at the log’s mean state` : `the present controller’s gain of ${action(t.output)} on ${regressor(t.input)}`)
+    ? (t.input < 0 ? `the present controller’s ${action(t.output)} output at the log’s mean state` : `the present controller’s gain of ${action(t.output)} on ${regressor(t.input)}`)
     : (t.input < 0 ? `the plant model’s offset of next ${state(t.output)}` : `the plant’s response of next ${state(t.output)} to ${regressor(t.input)}`);
-  const way = t.late > t.early ? 'rose' : 'fell';
-  return `${what} ${way} from ${number(t.early)} in the first fifth of the runs to ${number(t.late)} in the last (Spearman’s ρ = ${t.rho.toFixed(2)} over ${t.runs.toLocaleString('en-US')} runs)`;
+  const way = number(t.late) === number(t.early) ? 'moved' : t.late > t.early ? 'rose' : 'fell';
+  return `${what} ${way} from ${number(t.early)} in the first fifth of the fitted runs to ${number(t.late)} in the last (Spearman’s ρ = ${t.rho.toFixed(2)} over ${t.runs.toLocaleString('en-US')} runs)`;
 }
 
 function number(v: number): string {

@@ -5,7 +5,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { averageRanks, runOrderTrends, spearmanRho, spearmanTrend, type RunOrderData } from '../../../src/core/diagnostics/runOrder';
-import { runOrderFinding, runOrderSeverity } from '../../../src/core/diagnostics/runOrderFinding';
+import { fewestRunsToShow, runOrderFinding, runOrderSeverity } from '../../../src/core/diagnostics/runOrderFinding';
 import { createRandom } from '../../../src/core/random';
 
 describe('Spearman’s rank correlation', () => {
@@ -95,5 +95,40 @@ describe('the run-order check', () => {
     expect('reason' in result ? null : result.lawSkipped).toBe(0);
     const short = runOrderTrends(loggedRuns(5, 50, 6, () => ({ k: 0.4, b: 0.5 })), 10);
     expect('reason' in short && short.reason).toContain('at least 10 runs');
+  });
+});
+
+describe('the fewest runs that can show a change (review finding: a small log must not read "no coefficient changed")', () => {
+  // Reference: the smallest n with K·2·Φ(−√(n − 1)) ≤ 10⁻³, computed with scipy.stats.norm.sf for K = 5, 11, 16, 38, 81
+  // (the coefficients of logs with 1–6 states and 1–3 actions) by the review of this check.
+  it('matches the normal tail computed outside the project', () => {
+    expect([5, 11, 16, 38, 81].map((k) => fewestRunsToShow(k, 1e-3))).toEqual([15, 17, 18, 19, 21]);
+  });
+});
+
+describe('a stationary plant and controller whose operating point moves with the season (review of this check)', () => {
+  // Invented: x' = x + 0.2·(d − x) + 0.5·u + 0.1·ε, one law u = clip(0.9 − 0.6·x + 0.1·η, 0, 1) throughout,
+  // the disturbance level d falling from 0 to −1.5 over the runs, so the law sits at its upper limit more and
+  // more often. Least squares on the clipped values attenuates the gain by the share at the limit (Tobin,
+  // Econometrica 1958); the baseline's censored fit does not, so neither may the check.
+  function seasonal(limits: boolean): RunOrderData {
+    const rng = createRandom(11), runs = 150, steps = 200, n = runs * steps;
+    const states = new Float64Array(n), actions = new Float64Array(n), nextStates = new Float64Array(n), episode = new Int32Array(n);
+    let i = 0;
+    for (let r = 0; r < runs; r++) {
+      const d = -1.5 * r / (runs - 1);
+      let x = d;
+      for (let t = 0; t < steps; t++, i++) {
+        const u = Math.min(1, Math.max(0, 0.9 - 0.6 * x + 0.1 * rng.normal()));
+        const next = x + 0.2 * (d - x) + 0.5 * u + 0.1 * rng.normal();
+        states[i] = x; actions[i] = u; nextStates[i] = next; episode[i] = r;
+        x = next;
+      }
+    }
+    return { count: n, stateDim: 1, actionDim: 1, states, actions, nextStates, episode, ...(limits ? { actionLimits: { lo: [0], hi: [1] } } : {}) };
+  }
+  it('least squares on the clipped actions would call the law retuned; the censored per-run fit does not', () => {
+    expect(runOrderSeverity(runOrderTrends(seasonal(false), 10))).toBe('serious');
+    expect(runOrderSeverity(runOrderTrends(seasonal(true), 10))).not.toBe('serious');
   });
 });
