@@ -200,6 +200,8 @@ export const PLANT_MEMORY_ROWS = 20_000;
  * test/battery/README.md ("Run order"); and the fewest fitted runs it reads (ours: below ten the
  * normal approximation of Spearman's ρ is poor).
  */
+/** Column-pivot floor of the whole-log regressions (diagnostics/plantMemory.ts, diagnostics/runOrder.ts): a pivot below this share of its column's own sum of squares is rounding (ours). */
+export const PIVOT_FLOOR = 1e-10;
 export const RUN_ORDER_ALPHA = 1e-3;
 export const RUN_ORDER_MIN_RUNS = 10;
 /** Largest monomial count of the plant-memory check's base regression (pipeline/plantMemoryCheck.ts memoryBaseDegree; ours, the rollout model's own cap). */

@@ -31,6 +31,7 @@
  * s, so no row was left out between), that is not a transition into an end state; at most maxRows
  * of them at an even stride. Shapes: ds states, m actions, p monomials, q = L·(ds + m).
  */
+import { PIVOT_FLOOR } from '../limits';
 import type { FeatureMap } from '../features/featureMap';
 import type { StandardiserSpec } from '../features/standardiser';
 import type { TransitionSet } from '../transitions';
@@ -66,8 +67,6 @@ export type PlantMemoryResult =
   | { readonly rows: number; readonly usableRows: number; readonly lags: number; readonly components: ComponentMemory[] }
   | { readonly reason: string };
 
-/** Column-pivot floor: a pivot below this share of its column's own sum of squares is rounding (ours). */
-const PIVOT_FLOOR = 1e-10;
 /** Relative gap at which a row's s' and the next row's s still count as one value (ours: six printed digits). */
 const CHAIN_TOLERANCE = 1e-6;
 /** A base residual below this share of the target's centred sum of squares is rounding, not plant (ours). */

@@ -27,6 +27,7 @@
  */
 import { CensoredRegressionError, fitCensoredRegression } from '../censoredRegression';
 import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
+import { PIVOT_FLOOR } from '../limits';
 import { normalSurvival } from '../normalDistribution';
 
 export interface RunOrderData {
@@ -65,9 +66,6 @@ export interface CoefficientTrend {
 export type RunOrderResult =
   | { readonly runs: number; readonly lawSkipped: number; readonly modelSkipped: number; readonly trends: CoefficientTrend[] }
   | { readonly reason: string };
-
-/** A pivot below this share of its column's own sum of squares is rounding (ours, as plant-memory's). */
-const PIVOT_FLOOR = 1e-10;
 
 /** Spearman's ρ of two equal-length samples, average ranks for ties; NaN when either is constant. */
 export function spearmanRho(x: ArrayLike<number>, y: ArrayLike<number>): number {
@@ -165,10 +163,9 @@ function fitRun(data: RunOrderData, from: number, to: number, b: Block): number[
   const p = b.inputs + 1, n = to - from;
   if (n <= 2 * p) return null;
   const gram = new Float64Array(p * p), rhs = new Float64Array(p * b.outputs), x = new Float64Array(p);
-  x[0] = 1;
   for (let i = from; i < to; i++) {
     if (b.target === 'next' && data.terminal?.[i]) continue;
-    for (let c = 0; c < b.inputs; c++) x[c + 1] = (input(data, i, c) - b.mean[c]) / b.scale[c];
+    scaledRow(data, i, b, x);
     for (let a = 0; a < p; a++) for (let c = a; c < p; c++) gram[a * p + c] += x[a] * x[c];
     for (let o = 0; o < b.outputs; o++) {
       const y = b.target === 'action' ? data.actions[i * data.actionDim + o] : data.nextStates[i * data.stateDim + o];
@@ -221,11 +218,14 @@ function censoredLaw(data: RunOrderData, from: number, to: number, b: Block, ols
 /** The run's rows of [1, scaled inputs], n × (1 + inputs) row-major. */
 function runInputs(data: RunOrderData, from: number, to: number, b: Block): Float64Array {
   const p = b.inputs + 1, x = new Float64Array((to - from) * p);
-  for (let i = from; i < to; i++) {
-    x[(i - from) * p] = 1;
-    for (let c = 0; c < b.inputs; c++) x[(i - from) * p + c + 1] = (input(data, i, c) - b.mean[c]) / b.scale[c];
-  }
+  for (let i = from; i < to; i++) scaledRow(data, i, b, x.subarray((i - from) * p, (i - from + 1) * p));
   return x;
+}
+
+/** Row i as [1, inputs centred and scaled by the whole log], written into `out` (1 + inputs). */
+function scaledRow(data: RunOrderData, i: number, b: Block, out: Float64Array): void {
+  out[0] = 1;
+  for (let c = 0; c < b.inputs; c++) out[c + 1] = (input(data, i, c) - b.mean[c]) / b.scale[c];
 }
 
 /** √(Σ (y − xβ)² / (n − p)): least squares' residual spread, the censored fit's starting σ. */
