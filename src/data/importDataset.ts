@@ -137,6 +137,7 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
     stateNames: columns.states.map((c) => c.column),
     actionNames: columns.actions.map((c) => c.column),
+    labels: episodeInputs.labels,
   });
   if (transitions.count === 0) {
     return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every run has a single usable row; expected consecutive rows of the same run (or next-state columns)'));
