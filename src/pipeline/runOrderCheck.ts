@@ -46,12 +46,19 @@ function changeOf(t: CoefficientTrend, runName: (position: number) => RunName): 
   return { kind: 'step', runIndex: t.change.run, runLabel: run.label, line: run.line };
 }
 
+/** "; setpoint_c is constant within every run (…)", naming the columns; empty where there are none (review38: the check said "not checked" without saying which). */
+function constantWords(columns: readonly number[] | undefined, names: readonly string[]): string {
+  if (!columns?.length) return '';
+  const listed = columns.map((c) => names[c] ?? `input ${c + 1}`), many = listed.length > 1;
+  return `; ${listed.join(', ')} ${many ? 'are' : 'is'} constant within every run (a setpoint or grade?), so no run’s fit can tell ${many ? 'their effects' : 'its effect'} from the run’s own offset`;
+}
+
 /** `limits`: the actuator limits the baseline read from the log (its fitted model's, core/behaviourModel.ts), so a run's law is fitted as the baseline's is. */
 export function runOrderAssessment(data: RunOrderData & RunOrderNames & Parameters<typeof runNames>[0], limits?: RunOrderData['actionLimits']): { summary: RunOrderSummary; warnings: AssessmentWarning[] } {
   const result = data.count > 0 ? runOrderTrends({ ...data, actionLimits: limits ?? data.actionLimits }, RUN_ORDER_MIN_RUNS) : { reason: 'the log has no transitions' };
   const finding = runOrderFinding(result, { ...data, ...('reason' in result ? {} : { runName: runNames(data, result.firstRows) }) });
   const warnings = finding ? [finding] : [];
-  if ('reason' in result) return { summary: { reason: result.reason }, warnings };
+  if ('reason' in result) return { summary: { reason: result.reason + constantWords(result.constantInRuns, [...data.stateNames, ...data.actionNames]) }, warnings };
   const fewest = fewestRunsToShow(result.trends.length), most = Math.max(...result.trends.map((t) => t.runs));
   if (most < fewest) {
     return { summary: { reason: `its ${most.toLocaleString('en-US')} fitted runs cannot show a change at this level: with ${result.trends.length} coefficients tested, even a perfect trend needs ${fewest} runs` }, warnings };

@@ -48,6 +48,15 @@ describe('run-order check on logs that change by run order, and their controls',
     expect('reason' in drift.summary ? null : drift.summary.change).toEqual({ kind: 'drift' });
   });
 
+  it('a state constant within every run (a grade column) switches the check off, and the sentence names it', () => {
+    const data = coldStoreRetunedPlant(true).simulate({ transitions: 40_000, seed: 1 }), states = data.states.slice();
+    for (let i = 0; i < data.count; i++) states[i * 2 + 1] = data.episode[i] % 3; // heat_load made a grade held through each run
+    const { summary, warnings } = runOrderAssessment({ ...data, states });
+    expect(warnings).toEqual([]);
+    expect(runOrderSentence(summary)).toContain('Run order: not checked — fewer than 10 runs could be fitted');
+    expect(runOrderSentence(summary)).toContain('heat_load is constant within every run (a setpoint or grade?), so no run’s fit can tell its effect from the run’s own offset.');
+  });
+
   it('their controls: no warning, and the sentence says nothing changed', () => {
     for (const plant of [coldStoreRetunedPlant(true), dosingPumpWearPlant(true)]) {
       const { summary, warnings } = runOrderAssessment(plant.simulate({ transitions: 40_000, seed: 1 }));

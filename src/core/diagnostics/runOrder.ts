@@ -75,7 +75,11 @@ export type RunOrderResult =
     /** The first row of each run, by run position: where a host reads a run's label. */
     readonly firstRows: readonly number[];
   }
-  | { readonly reason: string };
+  | {
+    readonly reason: string;
+    /** Inputs ([states, actions] indices) that never vary within a run (a setpoint or grade column): each run's fit is singular through them. */
+    readonly constantInRuns?: readonly number[];
+  };
 
 /** Spearman's ρ of two equal-length samples, average ranks for ties; NaN when either is constant. */
 export function spearmanRho(x: ArrayLike<number>, y: ArrayLike<number>): number {
@@ -139,7 +143,10 @@ export function runOrderTrends(data: RunOrderData, minimumRuns: number): RunOrde
   };
   add('law', law, lawRuns, m, ds);
   add('model', model, modelRuns, ds, w);
-  if (trends.length === 0) return { reason: `fewer than ${minimumRuns} runs could be fitted (each needs more rows than twice its coefficients, and some spread in its states and actions)` };
+  if (trends.length === 0) {
+    const constant = constantInEveryRun(data, spans);
+    return { reason: `fewer than ${minimumRuns} runs could be fitted (each needs more rows than twice its coefficients, and some spread in its states and actions)`, ...(constant.length ? { constantInRuns: constant } : {}) };
+  }
   return { runs: spans.length, lawSkipped: spans.length - lawRuns.length, modelSkipped: spans.length - modelRuns.length, trends, firstRows: spans.map(([from]) => from) };
 }
 
@@ -153,6 +160,15 @@ function runSpans(data: RunOrderData): [number, number][] {
     i = j;
   }
   return spans;
+}
+
+/** The inputs ([states, actions]) whose value never changes within any run: no per-run fit can tell their effect from the run's offset. */
+function constantInEveryRun(data: RunOrderData, spans: [number, number][]): number[] {
+  const w = data.stateDim + data.actionDim, out: number[] = [];
+  for (let c = 0; c < w; c++) {
+    if (spans.every(([from, to]) => { for (let i = from + 1; i < to; i++) if (input(data, i, c) !== input(data, from, c)) return false; return true; })) out.push(c);
+  }
+  return out;
 }
 
 /** The whole log's mean and spread of each of [states, actions] (spread 1 where a column is constant). */
