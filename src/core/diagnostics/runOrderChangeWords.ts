@@ -26,7 +26,9 @@ export function changeAdvice(t: CoefficientTrend, what: string, runs: number, ru
   const kept = Math.max(1, Math.round(runs * DRIFT_RECENT_SHARE)), from = runs - kept;
   const latest = runSpanText(runName(from), runName(runs - 1)) ?? `the runs from line ${runName(from).line.toLocaleString('en-US')}`;
   return `${capital(what)} changed steadily over the runs, not in one step, so no run marks the change and only the latest runs describe the plant as it is now. ` +
-    `Evaluating only those — the latest third, say, ${latest} — trades fewer runs, and so wider intervals, for a baseline and a plant closer to today’s: ${leaveOut(runName(0), runName(from - 1), runName(from))}.`;
+    `Evaluating only those — the latest third, say, ${latest} — trades fewer runs, and so wider intervals, for a baseline and a plant closer to today’s, though not today’s: ` +
+    'the plant went on changing through them, so their numbers describe it as it was partway through them (on a test pump that wore steadily, the latest third left the present controller’s J off by about 11\u00a0% instead of 24\u00a0%, and the check then read only a caution). ' +
+    `To do so, ${leaveOut(runName(0), runName(from - 1), runName(from))}.`;
 }
 
 /** "leave out runs "1" to "17" (…)", or the rows above the next run's first line where the log has no run column. */
