@@ -5,6 +5,7 @@
 import { describe, expect, it } from 'vitest';
 import type { CoefficientTrend } from '../../../src/core/diagnostics/runOrder';
 import { changeAdvice, ordinal } from '../../../src/core/diagnostics/runOrderChangeWords';
+import { runOrderFinding } from '../../../src/core/diagnostics/runOrderFinding';
 
 const trend = (change: CoefficientTrend['change']): CoefficientTrend => ({ block: 'law', output: 0, input: 0, runs: 12, rho: 0.9, z: 3, p: 0.001, early: 0.1, late: 0.3, change });
 
@@ -29,5 +30,24 @@ describe('run-order change advice', () => {
     expect(drift).toContain('fewer runs, and so wider intervals');
     expect(drift).toContain('leave out runs "R0" to "R7"');
     expect(changeAdvice(trend(null), 'the gain', 12, () => ({ label: null, line: 2 }))).toBeNull();
+  });
+});
+
+describe('an offset alone (a caution)', () => {
+  const offset = (change: CoefficientTrend['change']) => ({
+    runs: 12, lawSkipped: 0, modelSkipped: 0, firstRows: [], trends: [{ ...trend(change), input: -1, p: 1e-9 }],
+  });
+  const names = { stateNames: ['level'], actionNames: ['valve'], runName: (p: number) => ({ label: `R${p}`, line: 2 + 10 * p }) };
+
+  it('that stepped (a setpoint change?) is located, with the runs since it', () => {
+    const finding = runOrderFinding(offset({ kind: 'step', run: 5 }), names);
+    expect(finding?.severity).toBe('caution');
+    expect(finding?.message).toContain('changed around run "R5" (the 6th of 12 in the data)');
+  });
+
+  it('that drifted (a slow disturbance?) is not cut again to its latest runs', () => {
+    const finding = runOrderFinding(offset({ kind: 'drift', run: 5 }), names);
+    expect(finding?.severity).toBe('caution');
+    expect(finding?.message).not.toContain('latest third');
   });
 });
