@@ -4,31 +4,14 @@
  * in `--json`; a range that cannot be used stops with exit status 1 (README, exit status), naming its
  * field and the closest label.
  */
-import { copyFile, mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/run';
-import { recordingTerminal } from '../../src/cli/terminal';
-
-const SAMPLE = resolve(__dirname, '../../sample-projects/tank-levels');
+import { csvVariants, type CsvVariants } from './csvVariants';
 
 describe('the command line leaves runs out by label', () => {
-  let root: string, project: Record<string, { csv: Record<string, unknown> } & Record<string, unknown>>;
-  beforeAll(async () => {
-    root = await mkdtemp(join(tmpdir(), 'spc-runs-'));
-    await copyFile(join(SAMPLE, 'tank-levels.csv'), join(root, 'tank-levels.csv'));
-    project = JSON.parse(await readFile(join(SAMPLE, 'tank-levels.spcritic'), 'utf8'));
-  });
-  afterAll(() => rm(root, { recursive: true, force: true }));
-
-  async function evaluate(name: string, excludedRuns: unknown, json = false) {
-    const path = join(root, `${name}.spcritic`);
-    await writeFile(path, JSON.stringify({ ...project, data: { ...project.data, csv: { ...project.data.csv, excludedRuns } } }));
-    const terminal = recordingTerminal();
-    const code = await runCli(['evaluate', path, ...(json ? ['--json'] : [])], terminal);
-    return { code, stdout: terminal.stdout, stderr: terminal.stderr };
-  }
+  let variants: CsvVariants;
+  beforeAll(async () => { variants = await csvVariants('tank-levels'); });
+  afterAll(() => variants.remove());
+  const evaluate = (name: string, excludedRuns: unknown, json = false) => variants.evaluate(name, { excludedRuns }, json ? ['--json'] : []);
 
   it('a range that can be used: exit 0, counted in the report and in --json', async () => {
     const text = await evaluate('kept', [{ from: '1', to: '15', reason: 'before the retune' }]);
