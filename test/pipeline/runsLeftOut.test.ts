@@ -6,6 +6,9 @@
  * check, start coverage, the baseline) with the same seed — since every stage after the import sees only the
  * rows kept (centring, the feature scaling and the episode resamples included). Only the row count
  * and what the import reports differ, and each transition's file line (sourceLine: 7,500 lines on).
+ * On the heating-loop sample, runs cut from the middle of a log whose states are derived along each
+ * run (an error integral, the previous valve position) give the transitions and J of the log without
+ * them: a run after those left out starts afresh, as it does in the cut file.
  */
 import { readFile } from 'node:fs/promises';
 import { join } from 'node:path';
@@ -18,14 +21,25 @@ import { evaluationToJson } from '../../src/pipeline/evaluationJson';
 import { assessProject } from '../../src/pipeline/assessProject';
 import { assessmentToJson } from '../../src/pipeline/assessmentJson';
 
-const folder = join(__dirname, '..', '..', 'sample-projects', 'tank-levels');
 const fixedClock = () => new Date('2026-01-01T00:00:00Z');
 
-async function tank(): Promise<{ project: ProjectDocument; text: string }> {
-  const raw = JSON.parse(await readFile(join(folder, 'tank-levels.spcritic'), 'utf8'));
+async function sample(name = 'tank-levels'): Promise<{ project: ProjectDocument; text: string }> {
+  const folder = join(__dirname, '..', '..', 'sample-projects', name);
+  const raw = JSON.parse(await readFile(join(folder, `${name}.spcritic`), 'utf8'));
   delete raw.data.sha256;
   delete raw.data.rowCount;
-  return { project: projectSchema.parse(raw), text: await readFile(join(folder, 'tank-levels.csv'), 'utf8') };
+  return { project: projectSchema.parse(raw), text: await readFile(join(folder, `${name}.csv`), 'utf8') };
+}
+const tank = () => sample();
+
+/** The CSV holding only the rows whose run (first column, a number) passes `keep`. */
+function runsOnly(text: string, keep: (run: number) => boolean): string {
+  const lines = text.trimEnd().split('\n');
+  return `${[lines[0], ...lines.slice(1).filter((line) => keep(Number(line.split(',')[0])))].join('\n')}\n`;
+}
+
+function withRuns(project: ProjectDocument, excludedRuns: ProjectDocument['data']['csv']['excludedRuns']): ProjectDocument {
+  return { ...project, data: { ...project.data, csv: { ...project.data.csv, excludedRuns } } };
 }
 
 function opened(project: ProjectDocument, text: string) {
@@ -37,10 +51,8 @@ function opened(project: ProjectDocument, text: string) {
 describe('runs left out by label give the evaluation of the log without them', () => {
   it('runs "1" to "15" left out of 40 = the CSV holding runs 16 to 40, to the last bit', async () => {
     const { project, text } = await tank();
-    const leftOut: ProjectDocument = { ...project, data: { ...project.data, csv: { ...project.data.csv, excludedRuns: [{ from: '1', to: '15', reason: 'before the retune' }] } } };
-    const lines = text.trimEnd().split('\n');
-    const cut = `${[lines[0], ...lines.slice(1).filter((line) => Number(line.split(',')[0]) >= 16)].join('\n')}\n`;
-    const a = opened(leftOut, text), b = opened(project, cut);
+    const leftOut = withRuns(project, [{ from: '1', to: '15', reason: 'before the retune' }]);
+    const a = opened(leftOut, text), b = opened(project, runsOnly(text, (run) => run >= 16));
 
     expect(a.imported.runsLeftOut).toEqual([{ from: '1', to: '15', reason: 'before the retune', runs: 15, rows: 7500 }]);
     expect(a.imported.summary.usedRowCount).toBe(b.imported.summary.rowCount);
@@ -69,11 +81,24 @@ describe('runs left out by label give the evaluation of the log without them', (
     expect(assessmentToJson(aa.value)).toEqual(assessmentToJson(ab.value));
   }, 240_000);
 
+  it('runs in the middle with derived states (heating-loop: an error integral and the previous valve position, from each run’s start): "10" to "20" left out = the CSV without them', async () => {
+    const { project, text } = await sample('heating-loop');
+    const a = opened(withRuns(project, [{ from: '10', to: '20', reason: 'trip tests' }]), text), b = opened(project, runsOnly(text, (run) => run < 10 || run > 20));
+    expect(a.imported.runsLeftOut[0]).toMatchObject({ runs: 11 });
+    expect(a.dataset.episodeCount).toBe(b.dataset.episodeCount);
+    for (const key of ['states', 'actions', 'rewards', 'nextStates', 'terminal', 'episode', 'startStates', 'startEpisode'] as const) {
+      expect(a.dataset[key], key).toEqual(b.dataset[key]);
+    }
+    const [ea, eb] = await Promise.all([evaluateProject({ project, dataset: a.dataset, now: fixedClock }), evaluateProject({ project, dataset: b.dataset, now: fixedClock })]);
+    if (!ea.ok || !eb.ok) throw new Error('evaluation failed');
+    expect(ea.value.policies.map((p) => p.policyValue)).toEqual(eb.value.policies.map((p) => p.policyValue));
+    expect(ea.value.behaviour).toEqual(eb.value.behaviour);
+  }, 120_000);
+
   it('the run key (cached results) changes with the field', async () => {
     const { project } = await tank();
-    const withRuns: ProjectDocument = { ...project, data: { ...project.data, csv: { ...project.data.csv, excludedRuns: [{ from: '1', reason: '' }] } } };
-    const otherReason: ProjectDocument = { ...project, data: { ...project.data, csv: { ...project.data.csv, excludedRuns: [{ from: '1', reason: 'trip' }] } } };
-    expect(runKey(withRuns, 'f')).not.toBe(runKey(project, 'f'));
-    expect(runKey(otherReason, 'f')).not.toBe(runKey(withRuns, 'f'));
+    const one = withRuns(project, [{ from: '1', reason: '' }]), otherReason = withRuns(project, [{ from: '1', reason: 'trip' }]);
+    expect(runKey(one, 'f')).not.toBe(runKey(project, 'f'));
+    expect(runKey(otherReason, 'f')).not.toBe(runKey(one, 'f'));
   });
 });
