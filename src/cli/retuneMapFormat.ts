@@ -2,6 +2,7 @@
 import type { RetuneMapResult } from '../pipeline/retuneMaps';
 import { textTable } from './textTable';
 import { tuningValueTexts } from '../figures/parts/tickFormat';
+import { shownMap } from '../figures/parts/tuningAxis';
 import { atDecimals, intervalText, ratioText, rowDecimals } from './uncertainNumberText';
 import { shareText } from '../core/shareText';
 import { valueColumnHead } from '../pipeline/valueUnitWords';
@@ -12,7 +13,8 @@ import { ASCII_MINUS } from '../figures/parts/uncertainNumber';
 const coordinatesText = (map: RetuneMapResult, coordinates: readonly number[]): string[] => tuningValueTexts(map.axes, coordinates).map((t) => t.replace(/\u2212/g, '-'));
 const SUPPORT = { null: 'supported', caution: 'thin logs (caution)', serious: 'beyond the logs (serious)', unknown: 'unknown' } as const;
 
-export function formatRetuneMap(map: RetuneMapResult, level: number, unit = ''): string {
+export function formatRetuneMap(given: RetuneMapResult, level: number, unit = ''): string {
+  const map = shownMap(given); // tuning values in the units the figure shows (an integral time in minutes); --json keeps the project's seconds
   const rows = [[...map.axes.map((a) => a.label), valueColumnHead('J', unit), `${shareText(level)} interval`, 'occupancy shift', 'support', '']];
   map.points.forEach((p, i) => rows.push([
     ...coordinatesText(map, p.coordinates), p.value === null ? `no value (${p.status})` : atDecimals(p.value, rowDecimals(p.interval)),

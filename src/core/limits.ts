@@ -167,6 +167,15 @@ export function horizonSteps(discount: number): number {
 }
 
 /**
+ * A run label: a run column's cell is read as a label up to this many bytes (src/data/columnSink.ts;
+ * longer is a bad cell), and a label named in data.csv.excludedRuns is at most this many characters,
+ * so every label the import reads can be named (ours).
+ */
+export const MAX_RUN_LABEL_LENGTH = 1024;
+/** Ranges of runs a project leaves out (data.csv.excludedRuns; ours, as for time windows left out). */
+export const MAX_RUN_RANGES_LEFT_OUT = 100;
+
+/**
  * A reward/cost expression (src/data/expressionSyntax.ts): a plant's formula is a few terms over a
  * few columns, and these bounds are two orders of magnitude above that while keeping the recursive
  * parser and the column-wise evaluation (one n-long array per operation) far from any stack or

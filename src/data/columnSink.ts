@@ -4,6 +4,7 @@
  * record (NaN, or −1 for a label, where a cell could not be read) so that record r stays file line
  * r + 2 throughout the import. Problems go to the RowProblems log with the cell's text, shortened.
  */
+import { MAX_RUN_LABEL_LENGTH } from '../core/limits';
 import { cellText, sameBytes } from './cellText';
 import type { ColumnRequest } from './columnReader';
 import { numberFromBytes } from './numericBytes';
@@ -13,8 +14,8 @@ import { readTimestamp, TIMESTAMP_FORMS } from './timestampCell';
 
 /** Bytes of a cell decoded for a message at most (messages show 40 characters). */
 const MESSAGE_BYTES = 256;
-/** Labels longer than this are not episode identifiers (the bytes are compared, then decoded). */
-const LABEL_BYTES = 1024;
+/** Labels longer than this are not episode identifiers (the bytes are compared, then decoded; core/limits.ts). */
+const LABEL_BYTES = MAX_RUN_LABEL_LENGTH;
 const DIGIT_ZERO = 0x30;
 
 export class ColumnSink {

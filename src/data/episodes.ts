@@ -2,11 +2,13 @@
  * Which rows belong to which episode. Only kept rows (not excluded) take part; an episode is a
  * run of kept rows in file order, cut where the episode column changes value, where the
  * timestamp jumps by more than the allowed gap, after every terminal row (the plant was
- * reset, so the next row starts afresh), and after a time window left out (timeWindows.ts).
+ * reset, so the next row starts afresh), after a time window left out (timeWindows.ts), and after
+ * a run left out by label (runRanges.ts).
  */
 import type { ColumnRoles } from '../project/schema';
 import { formatCount, formatSeconds, plural } from './reportFormat';
 import { medianStepSeconds } from './stepMedian';
+import { runLabelText } from './runLabelText';
 
 export interface EpisodeAssignment {
   /** Episode of each record, 0-based in file order; −1 for excluded records. */
@@ -30,6 +32,8 @@ export interface EpisodeInputs {
   readonly medianStepSeconds?: number;
   /** Per record, non-zero where it lies in a time window left out (timeWindows.ts): the episode is cut there. */
   readonly inWindow?: Uint16Array; // records
+  /** Per record, non-zero where its run is left out by label (runRanges.ts): a label seen again after it starts another run. */
+  readonly inRunRange?: Uint16Array; // records
   /** True for an excluded record that is a blank line (it holds no row of any episode). */
   readonly isBlankLine?: (record: number) => boolean;
   readonly lineOf: (record: number) => number;
@@ -42,14 +46,17 @@ export function assignEpisodes(rule: ColumnRoles['episode'], inputs: EpisodeInpu
   const episodeOf = new Int32Array(kept.length).fill(-1);
   const startsNew = boundaryRule(rule, inputs);
   const firstRows: number[] = [];
-  let episode = -1, previous = -1, terminalCuts = 0, windowCuts = 0, afterWindow = false;
+  let episode = -1, previous = -1, terminalCuts = 0, windowCuts = 0, afterWindow = false, afterRunLeftOut = false;
   for (let r = 0; r < kept.length; r++) {
     if (!kept[r]) {
       afterWindow ||= (inputs.inWindow?.[r] ?? 0) > 0;
+      afterRunLeftOut ||= (inputs.inRunRange?.[r] ?? 0) > 0;
       continue;
     }
     const afterTerminal = previous >= 0 && inputs.terminal?.[previous] === 1;
-    const ruleCut = previous < 0 || startsNew.cut(previous, r);
+    // a label kept on both sides of a run left out (A, B left out, A again) is two runs, as A, B, A would be
+    const ruleCut = previous < 0 || startsNew.cut(previous, r) || afterRunLeftOut;
+    afterRunLeftOut = false;
     if (afterTerminal && !ruleCut) terminalCuts++;
     const windowCut = previous >= 0 && afterWindow && !ruleCut && !afterTerminal;
     if (windowCut) windowCuts++;
@@ -83,7 +90,7 @@ function startIsFirstRow(r: number, rule: BoundaryRule, inputs: EpisodeInputs): 
     if (inputs.kept[q]) return true;
     if (inputs.isBlankLine?.(q)) continue;
     // The plant was elsewhere (a start-up, a test) and the present controller takes over again here.
-    if ((inputs.inWindow?.[q] ?? 0) > 0) return true;
+    if ((inputs.inWindow?.[q] ?? 0) > 0 || (inputs.inRunRange?.[q] ?? 0) > 0) return true;
     return inputs.terminal?.[q] === 1 || rule.apart(q, r);
   }
   return true;
@@ -132,7 +139,7 @@ function labelRule(column: string, labels: { codes: Float64Array; values: string
       finished.add(before);
       if (finished.has(now)) {
         reappearCount++;
-        if (reappearing.length < LISTED) reappearing.push(`"${labels.values[now]}" at line ${lineOf(r)}`);
+        if (reappearing.length < LISTED) reappearing.push(`${runLabelText(labels.values[now])} at line ${lineOf(r)}`);
       }
       return true;
     },

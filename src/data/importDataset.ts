@@ -28,11 +28,13 @@ import { buildTransitions } from './transitionBuilder';
 import { constantStateWarnings, summariseDataset, type DatasetSummary } from './datasetSummary';
 import { badRowsHint, dialectReport, excludedRows, excludedWarning, rowProblemList, type ExcludedRow } from './importReport';
 import { leftOutWindows, logClock, readTimeWindows, recordsInWindows, windowReport, type LeftOutWindow, type LogClock, type TimeWindow } from './timeWindows';
+import { leftOutRuns, readRunRanges, recordsInRunRanges, runRangeReport, type LeftOutRuns, type RunRange } from './runRanges';
 import { trendOfImport, type TrendData } from './trendSeries';
 
 export type { DatasetSummary, ColumnSummary } from './datasetSummary';
 export type { ExcludedRow } from './importReport';
 export type { LeftOutWindow, LogClock } from './timeWindows';
+export type { LeftOutRuns } from './runRanges';
 export type { TrendData, TrendSignal } from './trendSeries';
 export type { ImportProblem, ImportProblemKind } from './importProblem';
 export type { HandedBytes, ImportSource } from './csvTable';
@@ -48,6 +50,10 @@ export interface ImportedDataset {
   rowCount: number;
   /** Each time window left out (data.csv.excludedTimes) and how many rows it left out; their rows are in summary.excludedRowCount, not in `excluded`. */
   timeWindows: LeftOutWindow[];
+  /** Each range of runs left out (data.csv.excludedRuns) with its runs and rows; their rows are in summary.excludedRowCount, not in `excluded` nor in a window's count. */
+  runsLeftOut: LeftOutRuns[];
+  /** The run column's labels in the order the runs first appear (runLabelText.ts); empty without a run column. */
+  runLabels: readonly string[];
   /** The timestamp column's first and last time, when there is one. */
   clock?: LogClock;
   /** The logged signals over every row, as min/max envelopes for drawing (trendSeries.ts). */
@@ -72,18 +78,28 @@ export function* importDatasetSteps(source: ImportSource, fileName: string, csv:
     return failure(importProblem('header-only', `${fileName}, line 2`, 'the file has a header line but no data rows below it'));
   }
   const timestamps = settleTimestampColumn(columns, table, problems);
-  const episodeCodes = columns.episode.kind === 'column' ? table.labels.get(columns.episode.column)?.codes : undefined;
+  const runLabels = columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined;
+  const episodeCodes = runLabels?.codes;
   const clock = timestamps && logClock(timestamps.seconds, episodeCodes);
   const read = readTimeWindows(csv.excludedTimes ?? [], timestamps?.column, timestamps?.decision.order ?? 'dayFirst', clock);
-  if (read.problems.length > 0) return failure(...read.problems);
+  const runs = readRunRanges(csv.excludedRuns ?? [], columns.episode, runLabels);
+  if (read.problems.length + runs.problems.length > 0) return failure(...read.problems, ...runs.problems);
   const rewards = rewardColumn(columns.reward, plan.rewardExpression, table.numbers, table.recordCount, problems);
   if (timestamps) checkTimestampsForward(timestamps.column, timestamps.seconds, problems, lineOf, episodeCodes);
-  // A row in a time window left out is not a bad row: its problems neither stop the import nor list it twice.
+  // A row in a time window or a run left out is not a bad row: its problems neither stop the import nor list it twice.
+  // A row of a run left out is counted by its range only (the whole run goes), not by a window it also lies in.
+  const inRunRange = recordsInRunRanges(runs.ranges, runLabels, table.recordCount);
   const inWindow = recordsInWindows(read.windows, timestamps?.seconds, table.recordCount);
+  inRunRange.forEach((k, r) => { if (k > 0) inWindow[r] = 0; });
   inWindow.forEach((w, r) => { if (w > 0) problems.forget(r); });
+  inRunRange.forEach((k, r) => { if (k > 0) problems.forget(r); });
   if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf), badRowsHint(problems.badRecords().length, fileName));
   yield;
-  return yield* assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding, clock, windows: read.windows, inWindow });
+  return yield* assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding, clock, windows: read.windows, inWindow, runRanges: runs.ranges, inRunRange });
+}
+
+function runLabelsOf(columns: ColumnRoles, table: TableColumns): readonly string[] {
+  return columns.episode.kind === 'column' ? table.labels.get(columns.episode.column)?.values ?? [] : [];
 }
 
 function settleTimestampColumn(columns: ColumnRoles, table: TableColumns, problems: RowProblems): (SettledTimestamps & { column: string }) | undefined {
@@ -105,6 +121,8 @@ interface Stages {
   clock?: LogClock;
   windows: TimeWindow[];
   inWindow: Uint16Array; // records: 1 + the window holding the record, or 0
+  runRanges: RunRange[];
+  inRunRange: Uint16Array; // records: 1 + the range of runs left out holding the record's run, or 0
 }
 
 function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
@@ -112,15 +130,16 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   const kept = new Uint8Array(table.recordCount).fill(1);
   for (const r of s.problems.badRecords()) kept[r] = 0;
   s.inWindow.forEach((w, r) => { if (w > 0) kept[r] = 0; });
+  s.inRunRange.forEach((k, r) => { if (k > 0) kept[r] = 0; });
   if (!kept.includes(1)) {
-    const why = s.windows.length === 0 ? 'every data row has a problem' : 'every data row has a problem or lies in a time window left out';
+    const why = s.windows.length + s.runRanges.length === 0 ? 'every data row has a problem' : 'every data row has a problem or lies in a time window or run left out';
     return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, `${why}, so no row is left to import`));
   }
   const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
   // Found once for the run rule and the summary (each finding is a pass over the records).
   const periodSeconds = s.timestamps ? medianStepSeconds(s.timestamps.seconds, kept) : NaN;
   const episodeInputs = {
-    kept, terminal, lineOf, inWindow: s.inWindow, medianStepSeconds: periodSeconds,
+    kept, terminal, lineOf, inWindow: s.inWindow, inRunRange: s.inRunRange, medianStepSeconds: periodSeconds,
     labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
     timestampsSeconds: s.timestamps?.seconds,
     isBlankLine: (r: number) => s.problems.firstProblem(r)?.problem.kind === 'blank-line',
@@ -148,13 +167,15 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   const excluded = excludedRows(s.problems, lineOf);
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
   const timeWindows = leftOutWindows(s.windows, s.inWindow, kept, s.windows.length > 0 ? runsApart(columns.episode, episodeInputs) : undefined);
+  const runsLeftOut = leftOutRuns(s.runRanges, s.inRunRange);
   const episodeReport = [
     ...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding),
+    ...runRangeReport(runsLeftOut, columns.episode.kind === 'column' ? columns.episode.column : undefined),
     ...windowReport(timeWindows, s.clock ?? { calendar: false, runRestarts: 0 }), ...episodes.report, ...derived.report, ...report,
   ];
   const trend = trendOfImport(columns, table.numbers, s.rewards.values, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
   const rewardBounds = certainRewardBounds(columns.reward, s.plan.rewardExpression);
-  return success({ transitions: rewardBounds ? { ...transitions, rewardBounds } : transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
+  return success({ transitions: rewardBounds ? { ...transitions, rewardBounds } : transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, runsLeftOut, runLabels: runLabelsOf(columns, table), ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
 }
 
 /**

@@ -14,8 +14,8 @@ export type ImportProblemKind =
   // one row or one cell
   | 'blank-line' | 'ragged-row' | 'quote' | 'empty-cell' | 'not-a-number' | 'not-finite' | 'bad-flag'
   | 'empty-episode' | 'bad-timestamp' | 'invalid-date' | 'timestamp-backwards' | 'reward-not-finite' | 'reward-outside-declared'
-  // a time window left out that cannot be used; the closing hint of an import stopped by bad rows
-  | 'bad-time-window' | 'bad-rows'
+  // a time window or a range of runs left out that cannot be used; the closing hint of an import stopped by bad rows
+  | 'bad-time-window' | 'bad-run-range' | 'bad-rows'
   // warnings
   | 'unused-duplicate-column' | 'constant-state' | 'rows-excluded' | 'actions-outside-bounds'
   | 'few-transitions' | 'too-few-transitions';

@@ -45,7 +45,7 @@ export function badRowsHint(rows: number, fileName: string): ImportProblem {
     ...importProblem('bad-rows', fileName,
       `${plural(rows, 'row')} cannot be used. To import without ${them}, fix the file, or on the Plant log step set “Rows that cannot be used” to `
       + `“Leave them out and list them” (in the project file: "badRows": "exclude" under data.csv); each row left out is then counted and listed with its reason. `
-      + 'To leave out a whole period instead (a start-up, a plant test), add a time window left out (data.csv.excludedTimes).'),
+      + 'To leave out a whole period instead (a start-up, a plant test), add a time window left out (data.csv.excludedTimes), or, with a run column, leave out whole runs by label (data.csv.excludedRuns).'),
     rows,
   };
 }

@@ -31,7 +31,7 @@ function policyJson(p: Omit<PolicyEstimate, 'surface'> & { surface?: ValueSurfac
   };
 }
 
-/** The import's account for `--json`: counts, the rules that made episodes, every excluded row and the time windows left out. */
+/** The import's account for `--json`: counts, the rules that made episodes, every excluded row, the time windows and the runs left out. */
 export function importToJson(imported: ImportedDataset): Record<string, unknown> {
   const s = imported.summary;
   return {
@@ -48,5 +48,7 @@ export function importToJson(imported: ImportedDataset): Record<string, unknown>
     excluded: imported.excluded,
     /** Each time window left out, in seconds on the timestamp column's clock, and the rows it left out. */
     timeWindows: imported.timeWindows,
+    /** Each range of runs left out by label (data.csv.excludedRuns): its first and last label, reason, runs and rows. */
+    runsLeftOut: imported.runsLeftOut,
   };
 }

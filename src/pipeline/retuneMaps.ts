@@ -62,8 +62,12 @@ export interface RetuneMapPoint {
 
 export interface RetuneMapResult {
   readonly candidate: string;
-  /** Each axis: its path in the candidate, its name in the trade's words with the unit, and its values. */
-  readonly axes: { parameter: string; label: string; values: number[] }[];
+  /**
+   * Each axis: its path in the candidate, its name in the trade's words with the unit, its values, and
+   * the unit as data ('s' for an integral time; the figure shows a time in minutes or hours by it). The
+   * unit is absent in maps saved before it was kept.
+   */
+  readonly axes: { parameter: string; label: string; values: number[]; unit?: string }[];
   /** Row-major over the axes (the last axis fastest). */
   readonly points: RetuneMapPoint[];
   /** The best converged, supported point; null when none is. */
@@ -177,15 +181,16 @@ function runRetuneMap(
     'Each point is a retune of the same candidate; like every estimate here, it is a screening figure to plan a trial, not a substitute for a supervised test on the plant.',
   ];
   return {
-    candidate: spec.candidate, axes: spec.axes.map((axis, i) => ({ parameter: axis.parameter, label: axisLabel(grid.base, axis.parameter, plan), values: grid.coordinates[i] })), points, best,
+    candidate: spec.candidate, axes: spec.axes.map((axis, i) => ({ parameter: axis.parameter, ...axisLabel(grid.base, axis.parameter, plan), values: grid.coordinates[i] })), points, best,
     presentController: options.presentControllerValue, features: `${features.dim} features (${plan.features ? 'the project’s own' : 'degree-2 polynomial'})`, notes,
     ...(withIntervals ? { level } : {}),
   };
 }
 
-function axisLabel(candidate: CandidateSpec, path: string, plan: EvaluationPlan): string {
+function axisLabel(candidate: CandidateSpec, path: string, plan: EvaluationPlan): { label: string; unit?: string } {
   const known = tunableParameters(candidate, plan.project.columns).find((p) => p.path === path);
-  return known ? `${known.label}${known.unit ? ` (${known.unit})` : ''}` : path;
+  if (!known) return { label: path };
+  return known.unit ? { label: `${known.label} (${known.unit})`, unit: known.unit } : { label: known.label };
 }
 
 

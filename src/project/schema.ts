@@ -13,7 +13,7 @@ import { approximatorSchema } from './approximatorSchema';
 import { unitText } from './unitText';
 import {
   BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, MAX_DERIVED_STATES, MAX_RETUNE_MAPS, MAX_SCHEDULE_BREAKPOINTS, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
-  MAX_GAUSS_HERMITE_NODES, MIN_QUADRATURE_NODES, MAX_PREVIOUS_STEPS, MAX_STATE_COLUMNS, SEED, SURFACE_RESOLUTION,
+  MAX_GAUSS_HERMITE_NODES, MIN_QUADRATURE_NODES, MAX_PREVIOUS_STEPS, MAX_RUN_LABEL_LENGTH, MAX_RUN_RANGES_LEFT_OUT, MAX_STATE_COLUMNS, SEED, SURFACE_RESOLUTION,
 } from '../core/limits';
 
 export const PROJECT_FORMAT = 'setpoint-critic-project';
@@ -81,6 +81,24 @@ export const excludedTimeSchema = strictObject({
   }
 });
 
+/** A run label as the run column's cells read (trimmed, as the import reads them; src/data/runLabelText.ts). */
+const runLabel = z.string({ error: (issue) => `expected a run label${issue.input === undefined ? '' : ' in quotes'}, as the run column's cells read, e.g. "40"` }).trim()
+  .min(1, 'expected a run label, as the run column\'s cells read, e.g. "40"')
+  .max(MAX_RUN_LABEL_LENGTH, `expected a run label of at most ${MAX_RUN_LABEL_LENGTH} characters`);
+
+/**
+ * Runs left out of the import by their label (a retune, a trip test): every row of the runs from
+ * `from` to `to` (both included; `to` absent: that one run), in the order the runs first appear in
+ * the data, is left out and counted (src/data/runRanges.ts). Needs a run column; labels that are
+ * not in the log, ranges that run backwards or overlap, and ranges that leave no run are checked on
+ * import.
+ */
+export const excludedRunSchema = strictObject({
+  from: runLabel,
+  to: runLabel.optional(),
+  reason: z.string().trim().max(200).default(''),
+});
+
 export const csvSettingsSchema = strictObject({
   delimiter: z.enum(['auto', ',', ';', '\t']).default('auto'),
   decimalMark: z.enum(['auto', '.', ',']).default('auto'),
@@ -88,6 +106,8 @@ export const csvSettingsSchema = strictObject({
   badRows: z.enum(['stop', 'exclude']).default('stop'),
   /** Time windows whose rows are left out (needs a timestamp column); the rows are counted per window. */
   excludedTimes: z.array(excludedTimeSchema).max(100, 'expected at most 100 time windows left out').optional(),
+  /** Runs whose rows are left out, by the run column's labels (needs a run column); the rows and runs are counted per range. */
+  excludedRuns: z.array(excludedRunSchema).max(MAX_RUN_RANGES_LEFT_OUT, `expected at most ${MAX_RUN_RANGES_LEFT_OUT} ranges of runs left out`).optional(),
 });
 
 export const dataSourceSchema = strictObject({
@@ -342,5 +362,6 @@ export type RetuneMapSpec = z.infer<typeof retuneMapSchema>;
 export type ColumnRoles = z.infer<typeof columnRolesSchema>;
 export type CsvSettings = z.infer<typeof csvSettingsSchema>;
 export type ExcludedTime = z.infer<typeof excludedTimeSchema>;
+export type ExcludedRun = z.infer<typeof excludedRunSchema>;
 export type BootstrapSettings = z.infer<typeof bootstrapSchema>;
 export type SavedResults = z.infer<typeof resultsSchema>;

@@ -8,7 +8,7 @@
  */
 import type { BehaviourModel } from '../core/behaviourModel';
 import type { Problem } from '../core/result';
-import type { DatasetSummary, ExcludedRow, LeftOutWindow, LogClock, TrendData } from '../data/importDataset';
+import type { DatasetSummary, ExcludedRow, LeftOutRuns, LeftOutWindow, LogClock, TrendData } from '../data/importDataset';
 import type { Assessment } from '../pipeline/assessment';
 import type { AssessmentProgress } from '../pipeline/assessProject';
 import type { Evaluation, ValueSurface } from '../pipeline/estimates';
@@ -58,6 +58,10 @@ export interface DataImport {
   behaviour: BehaviourFit;
   /** Each time window left out and the rows it left out (their rows are in summary.excludedRowCount, not in `excluded`). */
   timeWindows: LeftOutWindow[];
+  /** Each range of runs left out and its runs and rows (their rows are in summary.excludedRowCount, not in `excluded` nor in a window). */
+  runsLeftOut: LeftOutRuns[];
+  /** The run column's labels in the order the runs first appear (at most RUN_LABELS_OFFERED), offered where runs are left out; empty without a run column. */
+  runLabels: string[];
   /** The timestamp column's first and last time, when there is one. */
   clock?: LogClock;
   /** The logged signals over every row as min/max envelopes, for the Plant log step's trend. */
@@ -65,6 +69,8 @@ export interface DataImport {
 }
 
 export const EXCLUDED_ROWS_SHOWN = 1000;
+/** Run labels the Plant log offers where runs are left out (typing names any other). */
+export const RUN_LABELS_OFFERED = 1000;
 export const LOGGED_SAMPLE_SIZE = 2000;
 
 /** Recompute V^π from a retained fit over two chosen state axes, the other states held. */

@@ -4,31 +4,14 @@
  * cannot be used is named by its field; a project check refuses a window of two numbers that ends
  * before it starts.
  */
-import { copyFile, mkdtemp, readFile, rm, writeFile } from 'node:fs/promises';
-import { tmpdir } from 'node:os';
-import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
-import { runCli } from '../../src/cli/run';
-import { recordingTerminal } from '../../src/cli/terminal';
-
-const SAMPLE = resolve(__dirname, '../../sample-projects/heating-historian');
+import { csvVariants, type CsvVariants } from './csvVariants';
 
 describe('the command line says how to leave rows and windows out', () => {
-  let root: string, project: Record<string, { csv: Record<string, unknown> } & Record<string, unknown>>;
-  beforeAll(async () => {
-    root = await mkdtemp(join(tmpdir(), 'spc-hints-'));
-    await copyFile(join(SAMPLE, 'heating-historian.csv'), join(root, 'heating-historian.csv'));
-    project = JSON.parse(await readFile(join(SAMPLE, 'heating-historian.spcritic'), 'utf8'));
-  });
-  afterAll(() => rm(root, { recursive: true, force: true }));
-
-  async function evaluate(name: string, csv: Record<string, unknown>) {
-    const path = join(root, `${name}.spcritic`);
-    await writeFile(path, JSON.stringify({ ...project, data: { ...project.data, csv: { ...project.data.csv, ...csv } } }));
-    const terminal = recordingTerminal();
-    const code = await runCli(['evaluate', path], terminal);
-    return { code, stderr: terminal.stderr };
-  }
+  let variants: CsvVariants;
+  beforeAll(async () => { variants = await csvVariants('heating-historian'); });
+  afterAll(() => variants.remove());
+  const evaluate = (name: string, csv: Record<string, unknown>) => variants.evaluate(name, csv);
 
   it('bad rows with "stop": exit 1, each row named, then how to import without them', async () => {
     const { code, stderr } = await evaluate('stop', { badRows: 'stop' });

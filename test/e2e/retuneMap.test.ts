@@ -20,6 +20,7 @@ import { launchApp, type LaunchedApp } from './harness/launch';
 import { decodedPngContent, goToStep, pngSize, setTheme as switchTheme } from '../renderer/e2e/appSteps';
 import { layoutFaults, selectRoom, svgLayoutIn } from './harness/svgLayout';
 import { UNSTICK } from './harness/unstick';
+import { shootSection } from './harness/sectionShot';
 import { presetPixels, SIZE_PRESETS } from '../../src/renderer/src/screens/findings/exportSizes';
 import { steadyClick, steadyFill, steadySelect } from './harness/steadyActions';
 
@@ -113,6 +114,11 @@ describe('the retune map in the app (e2e)', () => {
       const laid = await svgLayoutIn(page, await readFile(target, 'utf8'), px.widthPx, px.heightPx);
       const words = laid.texts.map((t) => t.text).join(' ');
       for (const expected of ['proportional gain', 'integral time', 'supported by the logs', 'Advisory offline estimate']) expect(words, preset.id).toContain(expected);
+      // The integral time (300 … 6,000 s, 10 points, log) in minutes at round ticks, by hand (figures/parts/tuningAxis.ts; /work/notes/axis38-rule.md).
+      const texts = laid.texts.map((t) => t.text);
+      expect(texts, preset.id).toContain(' (min)');
+      expect(texts, preset.id).toEqual(expect.arrayContaining(['5', '10', '20', '50', '100'])); // '5' only a time: the gains run 10 … 100
+      for (const centre of ['300', '1,136', '4,301', '6,000']) expect(texts, preset.id).not.toContain(centre); // the cell centres in seconds, as before
       expect(layoutFaults(laid), preset.id).toEqual([]);
     }
     await steadySelect(select, 'report');
@@ -163,7 +169,8 @@ describe('the retune map in the app (e2e)', () => {
         await panel.scrollIntoViewIfNeeded();
         // Drawn in this theme, not the last one's "drawn" read before the redraw began: what a person sees.
         await expect.poll(() => drawnPixels(page, figure).then((p) => p.drawnShare), POLL).toBeGreaterThan(0.3);
-        await panel.screenshot({ path: join(SCREENS, `retune-map-${size.width}-${theme}.png`), style: UNSTICK });
+        // Shot with its chart checked for ink (an element shot can run ahead of the compositor: the 1280 light shot came out blank once).
+        expect(await shootSection(page, panel, join(SCREENS, `retune-map-${size.width}-${theme}.png`), UNSTICK)).toEqual([]);
         const exportPanel = page.getByTestId('export-retuneMap');
         await steadyClick(exportPanel.locator('summary'));
         await exportPanel.screenshot({ path: join(SCREENS, `export-panel-${size.width}-${theme}.png`), style: UNSTICK });

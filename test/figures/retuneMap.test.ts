@@ -7,7 +7,8 @@
 import type { Chart, Plugin } from 'chart.js';
 import { describe, expect, it } from 'vitest';
 import { retuneMapChart, retuneMapSummary, hoverOrder } from '../../src/figures/charts/retuneMap';
-import { geometricSpacing, lineRange, retuneMapLineChart } from '../../src/figures/charts/retuneMapLine';
+import { lineRange, retuneMapLineChart } from '../../src/figures/charts/retuneMapLine';
+import { geometricSpacing } from '../../src/figures/parts/tuningAxis';
 import { pointReadout, type RetuneMapPlotProps } from '../../src/figures/charts/retuneMapText';
 import { createColourScale, rgbText } from '../../src/figures/parts/colourScale';
 import { cellFill } from '../../src/figures/parts/mapCellLayer';
@@ -105,13 +106,18 @@ describe('retune map heat map', () => {
     expect(y).toBeLessThan(400 - 100 * row + 10);
   });
 
-  it('has index axes labelled with the grid values, and a colour bar and legend', () => {
-    const x = config.options!.scales!.x as { min: number; max: number; ticks: { callback: (v: number) => string } };
+  it('labels the gain axis at its cells and the integral-time axis in minutes at round ticks, and has a colour bar and legend', () => {
+    type Axis = { min: number; max: number; ticks: { callback: (v: number) => string }; afterBuildTicks: (a: { ticks: { value: number }[] }) => void };
+    const x = config.options!.scales!.x as Axis;
     expect([x.min, x.max]).toEqual([-0.5, GAINS.length - 0.5]);
     expect(x.ticks.callback(2)).toBe('30');
     expect(x.ticks.callback(0.5)).toBe('');
-    const y = config.options!.scales!.y as { ticks: { callback: (v: number) => string } };
-    expect(y.ticks.callback(4)).toBe('4,800');
+    // 300 · 2^k s = 5 … 80 min; cell edges 3.54 … 113 min: 1-2-5 × 10^k (two decades on the axis, so 2 and 5 too), by hand.
+    const y = config.options!.scales!.y as Axis, built = { ticks: [] as { value: number }[] };
+    y.afterBuildTicks(built);
+    expect(built.ticks.map((t) => y.ticks.callback(t.value))).toEqual(['5', '10', '20', '50', '100']);
+    expect(built.ticks.map((t) => t.value)).toEqual([0, 1, 2, Math.log2(10), Math.log2(20)].map((v) => expect.closeTo(v, 12)));
+    expect(y.ticks.callback(4)).toBe(''); // the 4,800 s cell centre is no longer labelled
     const ids = (config.plugins as Plugin[]).map((q) => q.id);
     expect(ids).toEqual(expect.arrayContaining(['setpointMapCells', 'setpointColourBar', 'setpointLegend']));
     expect(config.options!.plugins!.subtitle!.text).toContain('lower is better');
@@ -129,7 +135,8 @@ describe('retune map heat map', () => {
 
   it('summarises the counts, the best point and the present controller', () => {
     const text = retuneMapSummary(p);
-    expect(text).toContain('Best supported point: proportional gain Kc (%/°C) 40, integral time Ti (s) 2,400');
+    expect(text).toContain('Best supported point: proportional gain Kc (%/°C) 40, integral time Ti (min) 40'); // 2,400 s in the figure's minutes
+    expect(text).toContain('integral time Ti (min) (5 to 80)');
     expect(text).toContain('Present controller: J 6.1');
     expect(text).toContain(`${GAINS.length * TIMES.length} points`);
   });
@@ -142,6 +149,17 @@ describe('retune map over one axis', () => {
     expect(geometricSpacing(TIMES)).toBe(true);
     expect(geometricSpacing(GAINS)).toBe(false);
     expect((config.options!.scales!.x as { type: string }).type).toBe('logarithmic');
+  });
+
+  it('draws the integral time in minutes with round ticks between its first and last points', () => {
+    type Axis = { min: number; max: number; ticks: { callback: (v: number) => string }; afterBuildTicks: (a: { ticks: { value: number }[] }) => void };
+    const x = config.options!.scales!.x as Axis, built = { ticks: [] as { value: number }[] };
+    x.afterBuildTicks(built);
+    // 300 … 4,800 s = 5 … 80 min, by hand: the 1-2-5 values inside.
+    expect([x.min, x.max]).toEqual([5, 80]);
+    expect(built.ticks.map((t) => t.value)).toEqual([5, 10, 20, 50]);
+    expect(built.ticks.map((t) => x.ticks.callback(t.value))).toEqual(['5', '10', '20', '50']);
+    expect(config.data.datasets[2].data.map((d) => d.x)).toEqual([5, 10, 20, 40, 80]);
   });
 
   it('draws J with its band, rings the best point and draws the present controller dashed', () => {

@@ -31,6 +31,15 @@ describe('exportPlotSvg', () => {
     expect(svg).toContain(CAUTION_SHORT.split(' ').slice(0, 3).join(' '));
   });
 
+  it('retuneMap: the integral time in minutes at round ticks in the exported text (tuningAxis.ts; 300 · 2^k s by hand)', () => {
+    const texts = [...svgOf(specs.retuneMap).matchAll(/<text[^>]*>([^<]*)<\/text>/g)].map((m) => m[1]);
+    const title = texts.indexOf(' (min)');
+    expect(texts.slice(title - 2, title + 1)).toEqual(['integral time T', 'i', ' (min)']);
+    expect(texts.slice(title + 1, title + 12)).toEqual(['10', '20', '30', '40', '50', '60', '5', '10', '20', '50', '100']); // gains at their cells, then the times
+    expect(texts).not.toContain('4,800');
+    expect(texts).not.toContain(' (s)');
+  });
+
   it('is 6.5 in × 4 in for 1950 × 1200 px at 300 dpi, with a white background', () => {
     const svg = svgOf(specs.surface);
     expect(svg).toMatch(/width="6.5in" height="4in" viewBox="0 0 1950 1200"/);

@@ -29,7 +29,7 @@ export function syntheticRetuneMap(): RetuneMapData & { points: Point[] } {
   points[GAINS.length * TIMES.length - 1] = { ...points[GAINS.length * TIMES.length - 1], value: null, interval: null, status: 'diverged' };
   const best = points.reduce((b, p, i) => (p.value !== null && p.support === null && (b < 0 || p.value < (points[b].value as number)) ? i : b), -1);
   return {
-    axes: [{ label: 'proportional gain K_{c} (%/°C)', values: GAINS }, { label: 'integral time T_{i} (s)', values: TIMES }],
+    axes: [{ label: 'proportional gain K_{c} (%/°C)', values: GAINS }, { label: 'integral time T_{i} (s)', values: TIMES, unit: 's' }],
     points, best: { index: best, value: points[best].value as number }, presentController: 6.1,
   };
 }

@@ -92,6 +92,20 @@ describe('2. a tuning value reads as the retune map’s axis labels it', () => {
     expect(report).not.toMatch(/= 2400|>4800</);
     expect(formatRetuneMap(map, 0.9)).toContain('integral time T_i (s) = 2,400');
   });
+
+  it('with its unit kept, the integral time reads in the figure’s minutes everywhere: 2,400 s = 40 min (figures/parts/tuningAxis.ts shownMap)', () => {
+    const raw = retuneMap(), map = { ...raw, axes: raw.axes.map((a, i) => (i === 1 ? { ...a, unit: 's' } : a)) };
+    expect(headline(map)).toContain('integral time T_i (min) = 40');
+    const input = { retuneMaps: [map], retuneMapProblems: [], evaluation: { valueSense: 'cost' }, project: { columns: { reward: { unit: 'kWh' } } } } as unknown as ReportInput;
+    const report = retuneSection(input, { next: () => 1 } as never).html;
+    expect(report).toMatch(/T<sub>i<\/sub> \(min\) = 40/);
+    expect(report).toContain('<th class="num">80</th>'); // 4,800 s
+    expect(report).not.toMatch(/\(s\)|4,800|2,400/);
+    const cli = formatRetuneMap(map, 0.9);
+    expect(cli).toContain('integral time T_i (min) = 40');
+    expect(cli).not.toContain('(s)');
+    expect(map.axes[1].values).toEqual([300, 600, 1200, 2400, 4800]); // the result itself (and --json) keeps the project's seconds
+  });
 });
 
 describe('3. one title for the values chart', () => {

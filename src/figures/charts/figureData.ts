@@ -70,8 +70,11 @@ export type MapSupport = null | 'caution' | 'serious' | 'unknown';
 
 /** What the retune-map figure needs of a map (src/pipeline/retuneMaps.ts has this shape or a wider one). */
 export interface RetuneMapData {
-  /** One or two axes: the name in the trade's words with the unit, and the grid values. */
-  axes: readonly { label: string; values: readonly number[] }[];
+  /**
+   * One or two axes: the name in the trade's words with the unit, the grid values and the unit as data
+   * (figures/parts/tuningAxis.ts shows a time in minutes or hours by it; absent in maps saved before it was kept).
+   */
+  axes: readonly { label: string; values: readonly number[]; unit?: string }[];
   /** Row-major over the axes (the last axis fastest); value in the project's sense, null without a solution. */
   points: readonly { coordinates: readonly number[]; value: number | null; interval: readonly [number, number] | null; status: string; support: MapSupport }[];
   best: { index: number; value: number } | null;

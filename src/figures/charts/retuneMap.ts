@@ -3,7 +3,8 @@
  * at its index, so a logarithmic axis gets equal cells), our colour bar on the right with the
  * present controller's J marked across it, unsupported cells greyed and strongly hatched, thin-log
  * cells lightly hatched, the best supported cell outlined, and a readout of each cell on hover.
- * One axis: see retuneMapLine.ts.
+ * The tuning axes' units and ticks: tuningAxis.ts (an integral time in minutes, round ticks between
+ * cell centres). One axis: see retuneMapLine.ts.
  */
 import type { ChartConfiguration, TooltipItem } from 'chart.js';
 import type { MapSupport, RetuneMapData } from './figureData';
@@ -17,9 +18,10 @@ import { drawOutline, GREY_OUT, mapCellLayerPlugin, mix } from '../parts/mapCell
 import { PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import { plainText } from '../parts/richText';
-import { formatValue, gridPointLabels, tuningValueTexts } from '../parts/tickFormat';
+import { formatValue, tuningValueTexts } from '../parts/tickFormat';
+import { cellAxisTicks, tuningAxisView, type TuningAxisView } from '../parts/tuningAxis';
 import { retuneMapLineChart } from './retuneMapLine';
-import { bestValueText, betterWords, mapSubtitle, pointReadout, presentValueText, type RetuneMapPlotProps } from './retuneMapText';
+import { bestValueText, betterWords, mapSubtitle, pointReadout, presentValueText, shownProps, type RetuneMapPlotProps } from './retuneMapText';
 
 export type { RetuneMapPlotProps } from './retuneMapText';
 
@@ -32,18 +34,20 @@ export function retuneMapChart(props: RetuneMapPlotProps, look: PlotLook): Chart
   return retuneMapHeatChart(props, look) as unknown as ChartConfiguration;
 }
 
-export function retuneMapHeatChart(props: RetuneMapPlotProps, look: PlotLook): ChartConfiguration<'scatter', CellPoint[]> {
-  const { map } = props, layout = mapCellLayout(map), [xAxis, yAxis] = map.axes;
+export function retuneMapHeatChart(given: RetuneMapPlotProps, look: PlotLook): ChartConfiguration<'scatter', CellPoint[]> {
+  const props = shownProps(given), { map } = props, layout = mapCellLayout(map), [xAxis, yAxis] = map.axes;
   const scale = createColourScale(layout.domainValues);
   const shared = sharedOptions(look, props.title, mapSubtitle(props, 'Colour'));
   const present = map.presentController;
-  const indexAxis = (values: readonly number[], position: 'bottom' | 'left') => {
-    const base = valueAxis(look, position, false), labels = gridPointLabels(values);
+  const [xView, yView] = [tuningAxisView(xAxis), tuningAxisView(yAxis)];
+  const indexAxis = (view: TuningAxisView, position: 'bottom' | 'left') => {
+    const base = valueAxis(look, position, false), ticks = cellAxisTicks(view);
+    const labelAt = (v: number) => ticks.find((t) => Math.abs(t.position - v) < 1e-9)?.label ?? '';
     return {
-      ...base, type: 'linear' as const, min: -0.5, max: values.length - 0.5,
-      ticks: { ...base.ticks, callback: (v: number | string) => (Number.isInteger(Number(v)) && labels[Number(v)] !== undefined ? labels[Number(v)] : '') },
-      // One tick at each cell centre (Chart.js would start its ticks at the axis minimum, a cell edge).
-      afterBuildTicks: (axis: { ticks: { value: number }[] }) => { axis.ticks = values.map((_, i) => ({ value: i })); },
+      ...base, type: 'linear' as const, min: -0.5, max: view.values.length - 0.5,
+      ticks: { ...base.ticks, callback: (v: number | string) => labelAt(Number(v)) },
+      // Our ticks (tuningAxis.ts): at cell centres, or round values at their true places between them (Chart.js would start at the axis minimum, a cell edge).
+      afterBuildTicks: (axis: { ticks: { value: number }[] }) => { axis.ticks = ticks.map((t) => ({ value: t.position })); },
     };
   };
   return {
@@ -53,14 +57,14 @@ export function retuneMapHeatChart(props: RetuneMapPlotProps, look: PlotLook): C
       mapCellLayerPlugin({ layout, scale, look }),
       colourBarPlugin({ scale, label: props.valueLabel, look, ...(present === null ? {} : { reference: { value: present, colour: look.palette.text, dash: PRESENT_DASH_PX } }) }),
       legendPlugin(heatKeys(layout, scale.colourAt(0.5), look), look),
-      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: xAxis.label }, { scaleId: 'y', position: 'left', text: yAxis.label }]),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: xView.title }, { scaleId: 'y', position: 'left', text: yView.title }]),
     ],
     options: {
       ...shared,
       parsing: false,
       normalized: true,
       interaction: { mode: 'nearest', intersect: false },
-      scales: { x: indexAxis(xAxis.values, 'bottom'), y: indexAxis(yAxis.values, 'left') },
+      scales: { x: indexAxis(xView, 'bottom'), y: indexAxis(yView, 'left') },
       plugins: {
         ...shared.plugins,
         legend: { display: false },
@@ -105,8 +109,8 @@ export function retuneMapHeight(map: RetuneMapData): number {
 }
 
 /** Text alternative for screen readers and the figure's description. */
-export function retuneMapSummary(props: RetuneMapPlotProps): string {
-  const { map } = props, n = map.points.length;
+export function retuneMapSummary(given: RetuneMapPlotProps): string {
+  const props = shownProps(given), { map } = props, n = map.points.length;
   const count = (s: MapSupport) => map.points.filter((p) => p.value !== null && p.support === s).length;
   const over = map.axes.map((a) => `${plainText(a.label)} (${formatValue(a.values[0])} to ${formatValue(a.values[a.values.length - 1])})`).join(' and ');
   const best = map.best ? `Best supported point: ${bestPointTexts(map).join(', ')}, J ${bestValueText(map)}.` : 'No point is both converged and supported by the logs.';

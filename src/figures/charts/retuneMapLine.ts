@@ -2,7 +2,8 @@
  * A one-axis retune map: J against the parameter with its interval as a band, the stretches the
  * logs do not support shaded and hatched (thin-log stretches shaded only) from midway
  * to the neighbouring points, the best supported point ringed, and the present controller's J as a
- * dashed line. A geometrically spaced axis is drawn on a logarithmic scale. The value axis spans
+ * dashed line. A geometrically spaced axis is drawn on a logarithmic scale; the parameter axis's unit
+ * and round ticks are tuningAxis.ts's (an integral time in minutes from 10 min). The value axis spans
  * the supported and thin-log points (with their intervals) when there are any, so a far larger
  * unsupported value cannot flatten the part that can be read; the rest is clipped under the shading.
  */
@@ -14,19 +15,12 @@ import { shadeOf } from '../parts/mapCells';
 import { PRESENT_CONTROLLER, PRESENT_DASH_PX } from '../parts/plotTheme';
 import type { PlotLook } from '../parts/plotLook';
 import type { Rect } from '../parts/raster';
-import { formatValue } from '../parts/tickFormat';
-import { mapSubtitle, pointReadout, presentValueText, type RetuneMapPlotProps } from './retuneMapText';
+import { roundTicks, tuningAxisView, type AxisTick, type TuningAxisView } from '../parts/tuningAxis';
+import { mapSubtitle, pointReadout, presentValueText, shownProps, type RetuneMapPlotProps } from './retuneMapText';
 
 type XY = { x: number; y: number | null };
 
 export const RETUNE_LINE_DEFAULTS = { lineWidthPx: 2, pointRadiusPx: 3, bestRadiusPx: 7 } as const;
-
-/** True when the values are positive and evenly spaced in their logarithm (to one part in 10⁶). */
-export function geometricSpacing(values: readonly number[]): boolean {
-  if (values.length < 3 || values.some((v) => !(v > 0))) return false;
-  const ratio = Math.log(values[1] / values[0]);
-  return Math.abs(ratio) > 0 && values.every((v, i) => i === 0 || Math.abs(Math.log(v / values[i - 1]) - ratio) <= 1e-6 * Math.abs(ratio));
-}
 
 /** Value-axis range over the trusted points and intervals (and the present controller), padded 6 %; null lets Chart.js choose. */
 export function lineRange(props: RetuneMapPlotProps): [number, number] | null {
@@ -41,9 +35,9 @@ export function lineRange(props: RetuneMapPlotProps): [number, number] | null {
   return [lo - pad, hi + pad];
 }
 
-export function retuneMapLineChart(props: RetuneMapPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
-  const { map } = props, p = look.palette, s = look.scale, d = RETUNE_LINE_DEFAULTS, axis = map.axes[0], colour = p.series[0];
-  const xs = map.points.map((q) => q.coordinates[0]);
+export function retuneMapLineChart(given: RetuneMapPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
+  const props = shownProps(given), { map } = props, p = look.palette, s = look.scale, d = RETUNE_LINE_DEFAULTS, axis = map.axes[0], colour = p.series[0];
+  const view = tuningAxisView(axis), xs = map.points.map((q) => q.coordinates[0]);
   const at = (f: (i: number) => number | null) => xs.map((x, i) => ({ x, y: f(i) }));
   const datasets: ChartDataset<'line', XY[]>[] = [
     { label: 'interval low', data: at((i) => map.points[i].interval?.[0] ?? null), borderWidth: 0, pointRadius: 0, pointHitRadius: 0, spanGaps: false },
@@ -58,23 +52,25 @@ export function retuneMapLineChart(props: RetuneMapPlotProps, look: PlotLook): C
     datasets.push({ label: PRESENT_CONTROLLER, data: [{ x: xs[0], y: map.presentController }, { x: xs[xs.length - 1], y: map.presentController }], borderColor: p.reference, borderWidth: 1.6 * s, borderDash: PRESENT_DASH_PX.map((v) => v * s), pointRadius: 0, pointHitRadius: 0 });
   }
   const shared = sharedOptions(look, props.title, mapSubtitle(props, 'Line'));
-  const range = lineRange(props), logarithmic = geometricSpacing(axis.values);
-  const base = valueAxis(look, 'bottom');
+  const range = lineRange(props), logarithmic = view.logarithmic;
+  const base = valueAxis(look, 'bottom'), ticks = view.roundTicks ? lineTicks(view) : null;
+  const ours = ticks && {
+    ticks: { ...base.ticks, callback: (v: number | string) => ticks.find((t) => Math.abs(t.value - Number(v)) <= 1e-9 * Math.abs(t.value))?.label ?? '' },
+    afterBuildTicks: (scale: { ticks: { value: number }[] }) => { scale.ticks = ticks.map((t) => ({ value: t.value })); },
+  };
   return {
     type: 'line',
     data: { datasets },
     plugins: [
       stretchPlugin(props, look), legendPlugin(lineKeys(props, look), look),
-      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: axis.label }, { scaleId: 'y', position: 'left', text: props.valueLabel }]),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: view.title }, { scaleId: 'y', position: 'left', text: props.valueLabel }]),
     ],
     options: {
       ...shared,
       parsing: false,
       interaction: { mode: 'index', intersect: false },
       scales: {
-        x: logarithmic
-          ? { ...base, type: 'logarithmic', min: xs[0], max: xs[xs.length - 1], ticks: { ...base.ticks, callback: (v) => formatValue(Number(v)) } }
-          : { ...base, type: 'linear', min: xs[0], max: xs[xs.length - 1] },
+        x: { ...base, type: logarithmic ? 'logarithmic' : 'linear', min: Math.min(xs[0], xs[xs.length - 1]), max: Math.max(xs[0], xs[xs.length - 1]), ...ours },
         y: { ...valueAxis(look, 'left'), type: 'linear', ...(range ? { min: range[0], max: range[1] } : {}) },
       },
       plugins: {
@@ -87,6 +83,12 @@ export function retuneMapLineChart(props: RetuneMapPlotProps, look: PlotLook): C
       },
     },
   };
+}
+
+/** The curve's round ticks: between its first and last grid values, in the shown unit (tuningAxis.ts). */
+function lineTicks(view: TuningAxisView): AxisTick[] {
+  const lo = Math.min(view.values[0], view.values[view.values.length - 1]), hi = Math.max(view.values[0], view.values[view.values.length - 1]);
+  return roundTicks(lo, hi, view.logarithmic);
 }
 
 /** The shaded stretches: each unsupported or thin-log point from midway to its neighbours, the full height of the plot. */

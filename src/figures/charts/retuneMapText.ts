@@ -6,6 +6,7 @@ import type { MapSupport, RetuneMapData } from './figureData';
 import { PRESENT_CONTROLLER, type Theme } from '../parts/plotTheme';
 import { plainText } from '../parts/richText';
 import { formatValueInInterval, tuningValueTexts } from '../parts/tickFormat';
+import { shownMap } from '../parts/tuningAxis';
 import { intervalAtPrecision, TRUE_MINUS, valueInLevelledInterval, type Minus } from '../parts/uncertainNumber';
 
 export interface RetuneMapPlotProps {
@@ -15,6 +16,12 @@ export interface RetuneMapPlotProps {
   sense: 'cost' | 'reward';
   title: string;
   theme: Theme;
+}
+
+/** The props with the map's tuning values in their shown units (tuningAxis.ts shownMap: an integral time in minutes from 10 min). */
+export function shownProps(props: RetuneMapPlotProps): RetuneMapPlotProps {
+  const map = shownMap(props.map);
+  return map === props.map ? props : { ...props, map };
 }
 
 /** The words for a point's support, the same levels as the candidates' (src/core/diagnostics/severity.ts). */

@@ -26,15 +26,30 @@ export function logAxisRange(values: readonly number[]): { min: number; max: num
 
 /** The labelled ticks between two powers of ten (min < max, as logAxisRange gives them). */
 export function logAxisTicks(min: number, max: number): LogTick[] {
-  const low = Math.round(Math.log10(min)), high = Math.round(Math.log10(max)), decades = high - low + 1;
-  const every = Math.ceil(decades / LOG_TICK_RULE.maxLabels), ticks: LogTick[] = [];
-  for (let k = low; k <= high; k++) {
-    if ((k - low) % every === 0) ticks.push({ value: decade(k), label: powerOfTen(k) });
-    if (decades < LOG_TICK_RULE.fewDecades && k < high) {
-      for (const m of LOG_TICK_RULE.between) ticks.push({ value: Number(`${m}e${k}`), label: `${m} × ${powerOfTen(k)}` });
-    }
+  return logTickValues(min, max).map((value) => ({ value, label: logTickLabel(value) }));
+}
+
+/**
+ * The values of LOG_TICK_RULE between any two positive ends (0 < min < max): each power of ten on the
+ * axis (every k-th past maxLabels), and 2 and 5 × 10^k on it as well where fewer than fewDecades powers
+ * of ten stand between the ends. Between whole-decade ends these are logAxisTicks' ticks; the retune
+ * map's tuning axes (tuningAxis.ts) take them between their own ends.
+ */
+export function logTickValues(min: number, max: number): number[] {
+  const low = Math.ceil(Math.log10(min) - 1e-9), high = Math.floor(Math.log10(max) + 1e-9), decades = Math.max(0, high - low + 1);
+  const every = Math.max(1, Math.ceil(decades / LOG_TICK_RULE.maxLabels)), inside = (v: number) => v >= min * (1 - 1e-12) && v <= max * (1 + 1e-12);
+  const values: number[] = [];
+  for (let k = low - 1; k <= high; k++) {
+    if (k >= low && (k - low) % every === 0) values.push(decade(k));
+    if (decades < LOG_TICK_RULE.fewDecades) for (const m of LOG_TICK_RULE.between) if (inside(Number(`${m}e${k}`))) values.push(Number(`${m}e${k}`));
   }
-  return ticks;
+  return values;
+}
+
+/** "10⁻³" for a power of ten, "2 × 10⁻³" for 2 and 5 times one. */
+function logTickLabel(value: number): string {
+  const k = Math.floor(Math.log10(value) + 1e-9), m = Math.round(value / Number(`1e${k}`));
+  return m === 1 ? powerOfTen(k) : `${m} × ${powerOfTen(k)}`;
 }
 
 /** 10^k exactly as the decimal literal reads (10 ** −5 is 0.000009999999999999999 in floating point). */

@@ -85,9 +85,11 @@ export function gridPointLabels(values: readonly number[]): string[] {
 
 /**
  * A tuning value (a retune map point's gain or integral time) wherever it is written — the map's
- * readout, the app's headline, the report's caption and grid, the command line — as its grid axis
- * labels it (gridPointLabels), so the headline's "T_i (s) = 6,000" is the axis's "6,000", never
- * "6000" beside it. A value not on its axis (never, from a map) reads as formatValue writes it.
+ * readout, the app's headline and table, the report's caption and grid, the command line — as its
+ * grid point is labelled (gridPointLabels), so the headline's "T_i (min) = 100" is the table's "100",
+ * never "100.0" beside it. Callers pass the map in its shown units (tuningAxis.ts shownMap: an
+ * integral time in minutes from 10 min), the units of the figure's axis. A value not on its axis
+ * (never, from a map) reads as formatValue writes it.
  */
 export function tuningValueTexts(axes: readonly { values: readonly number[] }[], coordinates: readonly number[]): string[] {
   return coordinates.map((v, a) => {

@@ -18,6 +18,7 @@ import { escapeHtml, html, raw, type Html } from './htmlText';
 import { shiftText } from '../../core/diagnostics/shiftText';
 import { intervalAtPrecision, valueAtPrecision } from '../../figures/parts/uncertainNumber';
 import { gridPointLabels, tuningValueTexts } from '../../figures/parts/tickFormat';
+import { shownMap } from '../../figures/parts/tuningAxis';
 import { senseWords, valueAxisLabel, valueUnit, type FigureCounter, type ReportInput } from './reportInput';
 import { valueColumnHead, valueUnitWords } from '../valueUnitWords';
 
@@ -52,7 +53,7 @@ export function retuneSection(input: ReportInput, figures: FigureCounter): Html 
       The table under each figure gives the same numbers with their intervals:
       <span class="retune-supported">unshaded</span>: the logs support the estimate; <span class="retune-caution">light</span>: thin logs (caution);
       <span class="retune-serious">dark</span>: beyond the logs (serious).</p>
-    ${maps.map((m, i) => html`${mapFigure(input, m, i, figures.next())}${mapTable(m, valueUnit(input))}`)}</section>`;
+    ${maps.map(shownMap).map((m, i) => html`${mapFigure(input, m, i, figures.next())}${mapTable(m, valueUnit(input))}`)}</section>`; // tuning values in their axes' shown units (an integral time in minutes)
 }
 
 /** "proportional gain K_c (%/°C)" with its symbol's subscript set as HTML. */

@@ -5,7 +5,10 @@
  * computes it). Invented minimal results, shaped as the JSON the app writes.
  */
 import { describe, expect, it } from 'vitest';
-import { assessmentFromJson, evaluationFromJson, restoreResults, resultsOf, retuneMapsFromJson } from '../../../src/renderer/src/session/savedResults';
+import { assessmentFromJson, evaluationFromJson, restoreResults, resultsOf, retuneMapsFromJson, withAxisUnits } from '../../../src/renderer/src/session/savedResults';
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
+import { parseProjectText } from '../../../src/project/projectFile';
 import { createSessionStore } from '../../../src/renderer/src/session/sessionStore';
 import { newProjectDocument } from '../../../src/renderer/src/document/newProject';
 import { runKey } from '../../../src/shared/runKey';
@@ -101,6 +104,15 @@ describe('retune maps kept with the results', () => {
     expect(retuneMapsFromJson(undefined)).toBeNull();
     expect(retuneMapsFromJson([{ ...map, points: map.points.slice(1) }])).toBeNull(); // two axis values, one point
     expect(retuneMapsFromJson([{ ...map, axes: undefined } as never])).toBeNull();
+  });
+
+  it('gives a map saved before axes kept their unit the unit of its candidate’s parameter, so its integral time reads in minutes', () => {
+    const loaded = parseProjectText(readFileSync(resolve(__dirname, '../../../sample-projects/heating-loop/heating-loop.spcritic'), 'utf8'), 'heating-loop.spcritic');
+    if (!loaded.ok) throw new Error('sample did not parse');
+    const doc = loaded.value.document, candidate = doc.retuneMaps![0].candidate;
+    const old = { ...map, candidate, axes: [{ parameter: 'form.loops.0.integralTimeSeconds', label: 'integral time T_i (s)', values: [300, 6000] }], points: map.points.map((p, i) => ({ ...p, coordinates: [[300, 6000][i]] })) };
+    expect(withAxisUnits(old as never, doc).axes[0].unit).toBe('s');
+    expect(withAxisUnits({ ...old, candidate: 'gone' } as never, doc).axes[0].unit).toBeUndefined();
   });
 
   it('restores a kept map as done for the current run key, and out of date for another', () => {

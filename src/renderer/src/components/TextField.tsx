@@ -12,6 +12,8 @@ export interface TextFieldProps {
   className?: string;
   placeholder?: string;
   hideLabel?: boolean;
+  /** The id of a <datalist> whose options the field offers while typing. */
+  list?: string;
 }
 
 export function TextField(props: TextFieldProps) {
@@ -25,7 +27,7 @@ export function TextField(props: TextFieldProps) {
       <label htmlFor={id} className={props.hideLabel ? 'sr-only' : undefined}>{props.label}</label>
       {props.multiline
         ? <textarea {...common} rows={2} onChange={(e) => props.onChange(e.target.value)} />
-        : <input {...common} onChange={(e) => props.onChange(e.target.value)} />}
+        : <input {...common} list={props.list} onChange={(e) => props.onChange(e.target.value)} />}
       {props.help && <span id={`${id}-help`} className="help">{props.help}</span>}
       {props.message && <span id={`${id}-message`} className="message" role="alert">{props.message}</span>}
     </div>

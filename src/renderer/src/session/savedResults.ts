@@ -12,6 +12,7 @@ import type { Evaluation, PolicyEstimate } from '../../../pipeline/estimates';
 import { evaluationToJson } from '../../../pipeline/evaluationJson';
 import type { RetuneMapResult } from '../../../pipeline/retuneMaps';
 import type { ProjectDocument, SavedResults } from '../../../project/schema';
+import { tunableParameters } from '../../../project/candidateParameters';
 import type { DocumentStore } from '../document/documentStore';
 import { runFingerprint, runKey } from '../../../shared/runKey';
 import type { SessionStore } from './sessionStore';
@@ -98,6 +99,19 @@ export function retuneMapsFromJson(json: readonly Record<string, unknown>[] | un
   return maps.every((m) => m !== null) ? (maps as RetuneMapResult[]) : null;
 }
 
+/**
+ * A map saved before its axes kept their unit, with each axis's unit from the project's candidate by the
+ * parameter's path (the tunableParameters the pipeline labels by), so a kept integral time reads in minutes
+ * as a fresh map's does; an axis whose candidate or parameter is gone stays as saved.
+ */
+export function withAxisUnits(map: RetuneMapResult, doc: ProjectDocument): RetuneMapResult {
+  const candidate = doc.candidates.find((c) => c.name === map.candidate);
+  if (!candidate || map.axes.every((a) => a.unit !== undefined)) return map;
+  const known = tunableParameters(candidate, doc.columns);
+  const unitOf = (a: RetuneMapResult['axes'][number]) => a.unit ?? known.find((p) => p.path === a.parameter)?.unit;
+  return { ...map, axes: map.axes.map((a) => (unitOf(a) ? { ...a, unit: unitOf(a) } : a)) };
+}
+
 /** After an import of the current data: show the kept results, current or marked out of date. */
 export function restoreResults(doc: ProjectDocument, dataFingerprint: string, session: SessionStore): boolean {
   const saved = doc.results;
@@ -110,7 +124,7 @@ export function restoreResults(doc: ProjectDocument, dataFingerprint: string, se
   const key = runKey(doc, dataFingerprint);
   const current = runFingerprint(key) === saved.fingerprint;
   const recordKey = current ? key : `out of date: ${saved.fingerprint}`;
-  const assessment = assessmentFromJson(saved.assessment), maps = retuneMapsFromJson(saved.retuneMaps);
+  const assessment = assessmentFromJson(saved.assessment), maps = retuneMapsFromJson(saved.retuneMaps)?.map((m) => withAxisUnits(m, doc)) ?? null;
   session.set((s) => ({
     ...s,
     evaluation: { evaluation, runKey: recordKey, restored: { savedAt: saved.savedAt, current } },

@@ -9,7 +9,7 @@ import type { TransitionSet } from '../../../core/transitions';
 import type { OpenedProject } from '../../../pipeline/openProject';
 import { declaredActionBounds } from '../../../pipeline/plan/declaredBounds';
 import {
-  EXCLUDED_ROWS_SHOWN, LOGGED_SAMPLE_SIZE, type BehaviourFit, type DataImport, type LoggedSample,
+  EXCLUDED_ROWS_SHOWN, LOGGED_SAMPLE_SIZE, RUN_LABELS_OFFERED, type BehaviourFit, type DataImport, type LoggedSample,
 } from '../../../shared/workerMessages';
 
 export function dataImportSummary(opened: OpenedProject): DataImport {
@@ -29,6 +29,8 @@ export function dataImportSummary(opened: OpenedProject): DataImport {
     sample: loggedSample(dataset, LOGGED_SAMPLE_SIZE),
     behaviour: behaviourFit(dataset, declaredActionBounds(opened.project, dataset.actionDim)),
     timeWindows: imported.timeWindows,
+    runsLeftOut: imported.runsLeftOut,
+    runLabels: imported.runLabels.slice(0, RUN_LABELS_OFFERED),
     ...(imported.clock ? { clock: imported.clock } : {}),
     trend: imported.trend,
   };

@@ -9,6 +9,7 @@ import { supportWords } from '../../../../figures/charts/retuneMapText';
 import { CopyTable } from '../../components/CopyTable';
 import { RichText } from '../../components/RichText';
 import { gridPointLabels, tuningValueTexts } from '../../../../figures/parts/tickFormat';
+import { shownMap } from '../../../../figures/parts/tuningAxis';
 
 import { richAxisLabel } from './retuneMapWords';
 import { valueColumnHead, valueUnitWords } from '../../../../pipeline/valueUnitWords';
@@ -24,8 +25,8 @@ const cellClass = (p: Point, best: boolean) => ['number', best ? 'map-best' : ''
 const cellTitle = (p: Point) => `J ${p.value === null ? '—' : valueInInterval(p.value, p.interval).text}; ${supportWords(p.support)}${p.status === 'converged' ? '' : `; fit ${p.status}`}`;
 
 /** `unit`: the cost's or reward's own unit from the project, '' when none is given. */
-export function RetuneMapTable({ map, testId, unit }: { map: RetuneMapResult; testId: string; unit: string }) {
-  const best = map.best?.index ?? -1;
+export function RetuneMapTable({ map: given, testId, unit }: { map: RetuneMapResult; testId: string; unit: string }) {
+  const map = shownMap(given), best = map.best?.index ?? -1;
   return (
     <details className="details-section" data-testid={`${testId}-details`}>
       <summary>Values at every point</summary>

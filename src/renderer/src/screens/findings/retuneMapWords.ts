@@ -7,6 +7,7 @@ import type { RetuneMapResult } from '../../../../pipeline/retuneMaps';
 import type { RetuneMapProgress } from '../../../../shared/workerMessages';
 import { formatDuration } from '../../format/numberFormat';
 import { tuningValueTexts } from '../../../../figures/parts/tickFormat';
+import { shownMap } from '../../../../figures/parts/tuningAxis';
 import { subscriptMarkup } from '../../../../figures/parts/richText';
 import { valueAtPrecision } from '../../../../figures/parts/uncertainNumber';
 import { bestValueText } from '../../../../figures/charts/retuneMapText';
@@ -14,9 +15,9 @@ import { bestValueText } from '../../../../figures/charts/retuneMapText';
 /** "proportional gain K_c (%/°C)" → "proportional gain K_{c} (%/°C)" (the figures' rich-text markup). */
 export const richAxisLabel = subscriptMarkup;
 
-/** "proportional gain K_c (%/°C) = 90, integral time T_i (s) = 6,000" for point p. */
-export function pointText(map: RetuneMapResult, p: number): string {
-  const texts = tuningValueTexts(map.axes, map.points[p].coordinates); // as the map's axis labels them
+/** "proportional gain K_c (%/°C) = 90, integral time T_i (min) = 100" for point p, in the axes' shown units (tuningAxis.ts). */
+export function pointText(given: RetuneMapResult, p: number): string {
+  const map = shownMap(given), texts = tuningValueTexts(map.axes, map.points[p].coordinates); // as the map's axis labels them
   return map.axes.map((axis, a) => `${axis.label} = ${texts[a]}`).join(', ');
 }
 

@@ -53,16 +53,22 @@ function LeaveOutBadRows({ problems }: { problems: readonly { kind?: string; row
   );
 }
 
-/** Rows left out in time windows (counted per window) and rows that cannot be used (listed). */
+/** Rows left out in time windows (counted per window), in runs left out (counted per range) and rows that cannot be used (listed). */
 function windowRows(result: DataImport): number {
   return result.timeWindows.reduce((sum, w) => sum + w.rows, 0);
+}
+
+function runRows(result: DataImport): number {
+  return result.runsLeftOut.reduce((sum, r) => sum + r.rows, 0);
 }
 
 function Counts({ result }: { result: DataImport }) {
   const s = result.summary;
   const n = (x: number): string => x.toLocaleString('en-US');
-  const inWindows = windowRows(result), bad = s.excludedRowCount - inWindows;
-  const parts = [inWindows > 0 ? `${n(inWindows)} in time windows left out` : '', bad > 0 ? `${n(bad)} that cannot be used` : ''].filter(Boolean);
+  const inWindows = windowRows(result), inRuns = runRows(result), bad = s.excludedRowCount - inWindows - inRuns;
+  const parts = [
+    inRuns > 0 ? `${n(inRuns)} in runs left out` : '', inWindows > 0 ? `${n(inWindows)} in time windows left out` : '', bad > 0 ? `${n(bad)} that cannot be used` : '',
+  ].filter(Boolean);
   const used = parts.length === 0 ? 'all used' : `${n(s.usedRowCount)} used; left out: ${parts.join(', ')}`;
   return (
     <dl className="facts" data-testid="import-counts">
@@ -111,7 +117,7 @@ function ColumnTable({ result, units }: { result: DataImport; units: ReadonlyMap
 }
 
 function ExcludedRows({ result }: { result: DataImport }) {
-  const total = result.summary.excludedRowCount - windowRows(result);
+  const total = result.summary.excludedRowCount - windowRows(result) - runRows(result);
   if (total === 0) return null;
   return (
     <>

@@ -121,7 +121,7 @@ function AddWindow(props: { calendar: boolean; firstSeconds: number; onAdd: (w: 
       <TextField label="From" value={from} onChange={setFrom} placeholder={example} help={`Start of the window, included: ${how}.`} />
       <TextField label="To" value={to} onChange={setTo} placeholder={example} help="End of the window, included." />
       <TextField label="Reason" value={reason} onChange={setReason} placeholder="start-up" help="Shown on the chart and in the import report." />
-      <div className="field"><button onClick={add} disabled={!ready} data-testid="add-window-button">Leave out this window</button></div>
+      <div className="field button-field"><button onClick={add} disabled={!ready} data-testid="add-window-button">Leave out this window</button></div>
     </div>
   );
 }

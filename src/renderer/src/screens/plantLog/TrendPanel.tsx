@@ -14,6 +14,7 @@ import type { PlotFrame } from '../../plots/chartMessages';
 import { useStore } from '../../state/useStore';
 import { themeStore, type Theme } from '../../theme';
 import { TimeWindows, useAddWindow } from './TimeWindows';
+import { RunsLeftOut } from './RunsLeftOut';
 import { draggedWindow } from './trendDrag';
 import { TrendWindowDrag } from './TrendWindowDrag';
 
@@ -65,6 +66,7 @@ export function TrendPanel() {
         )
         : figure}
       <TimeWindows imported={imported} />
+      <RunsLeftOut imported={imported} />
     </section>
   );
 }
