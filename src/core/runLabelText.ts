@@ -1,9 +1,10 @@
 /**
- * How a run label is written wherever one is shown: the run column's cell text exactly as the import
- * reads it (trimmed, never re-written as a number, so "007" reads as in the file and is what a person
- * types to name the run in data.csv.excludedRuns), in straight double quotes, so "3" the label is not
- * read as a count. The same form as the import's own words (the since38 branch's data/runLabelText.ts);
- * here in core so the run-order words (diagnostics/runOrderFinding.ts) write it too.
+ * How a run label is written wherever one is shown (the import report, problems, the Plant log's runs
+ * left out, the run-order finding): the run column's cell text exactly as the import reads it — trimmed
+ * of the spaces around it, never re-written as a number, so a numeric run column's "007" or "1.0" reads
+ * as in the file, and what is shown is what a person types to name the run (data.csv.excludedRuns) — in
+ * straight double quotes, so "3" the label is not read as a count. In core so that the data layer, the
+ * renderer and the run-order words (diagnostics/runOrderChangeWords.ts) share the one writer.
  */
 export function runLabelText(label: string): string {
   return `"${label}"`;

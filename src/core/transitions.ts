@@ -34,7 +34,7 @@ export interface TransitionSet {
    * The run column's cell on each episode's first kept row, as the import reads it (null where it could not
    * be read); absent where runs are not cut by a run column. Words name runs by it (core/runLabelText.ts).
    */
-  readonly runLabels?: readonly (string | null)[]; // e
+  readonly episodeLabels?: readonly (string | null)[]; // e
   /**
    * Bounds every step's reward keeps whatever the plant does under any policy, from the reward's
    * definition, in reward sense; either end may be infinite. Absent when nothing is known beyond the logs.

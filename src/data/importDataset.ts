@@ -52,7 +52,7 @@ export interface ImportedDataset {
   timeWindows: LeftOutWindow[];
   /** Each range of runs left out (data.csv.excludedRuns) with its runs and rows; their rows are in summary.excludedRowCount, not in `excluded` nor in a window's count. */
   runsLeftOut: LeftOutRuns[];
-  /** The run column's labels in the order the runs first appear (runLabelText.ts); empty without a run column. */
+  /** The run column's labels in the order the runs first appear (core/runLabelText.ts writes one); empty without a run column. */
   runLabels: readonly string[];
   /** The timestamp column's first and last time, when there is one. */
   clock?: LogClock;

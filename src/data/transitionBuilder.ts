@@ -27,7 +27,7 @@ export interface StepColumns {
   readonly lineOf: (record: number) => number;
   /** Rows kept for the values they supply to later rows' derived states, but starting no transition (derivedStates.ts). */
   readonly supplyOnlyRows?: number;
-  /** The run column as codes into its values (−1 where unreadable), where runs are cut by one: each episode's label (TransitionSet.runLabels). */
+  /** The run column as codes into its values (−1 where unreadable), where runs are cut by one: each episode's label (TransitionSet.episodeLabels). */
   readonly labels?: { readonly codes: Float64Array; readonly values: readonly string[] };
 }
 
@@ -60,7 +60,7 @@ export function buildTransitions(c: StepColumns): { transitions: TransitionSet; 
   const transitions: TransitionSet = {
     count: n, stateDim: ds, actionDim: m, stateNames: [...c.stateNames], actionNames: [...c.actionNames],
     episodeCount: c.episodeCount, ...t, startEpisode: t.startEpisode.length === c.episodeCount ? undefined : t.startEpisode,
-    ...(c.labels ? { runLabels: runLabelsOf(c, c.labels) } : {}),
+    ...(c.labels ? { episodeLabels: episodeLabelsOf(c, c.labels) } : {}),
   };
   return { transitions, report: describeSteps(c, transitions) };
 }
@@ -131,7 +131,7 @@ function writeStartStates(c: StepColumns, startStates: Float64Array, startEpisod
 }
 
 /** The run column's cell on each episode's first kept row (null where unreadable). */
-function runLabelsOf(c: StepColumns, labels: NonNullable<StepColumns['labels']>): (string | null)[] {
+function episodeLabelsOf(c: StepColumns, labels: NonNullable<StepColumns['labels']>): (string | null)[] {
   const out: (string | null)[] = new Array(c.episodeCount).fill(null);
   for (let r = 0, seen = -1; r < c.kept.length; r++) {
     const e = c.episodeOf[r];

@@ -31,11 +31,11 @@ export type RunOrderChange =
   | { readonly kind: Extract<ChangeKind, 'step'>; readonly runIndex: number; readonly runLabel: string | null; readonly line: number }
   | { readonly kind: Extract<ChangeKind, 'drift'> };
 
-/** Run position → its label and first line, from the log's first row of each run (TransitionSet.runLabels, sourceLine). */
-function runNames(data: RunOrderData & { readonly runLabels?: readonly (string | null)[]; readonly sourceLine?: Int32Array }, firstRows: readonly number[]): (position: number) => RunName {
+/** Run position → its label and first line, from the log's first row of each run (TransitionSet.episodeLabels, sourceLine). */
+function runNames(data: RunOrderData & { readonly episodeLabels?: readonly (string | null)[]; readonly sourceLine?: Int32Array }, firstRows: readonly number[]): (position: number) => RunName {
   return (position) => {
     const row = firstRows[position] ?? 0;
-    return { label: data.runLabels?.[data.episode[row]] ?? null, line: data.sourceLine?.[row] ?? row + 2 };
+    return { label: data.episodeLabels?.[data.episode[row]] ?? null, line: data.sourceLine?.[row] ?? row + 2 };
   };
 }
 

@@ -34,12 +34,12 @@ describe('run-order check on logs that change by run order, and their controls',
 
   it('with a run column, the runs are named by its labels, as data.csv.excludedRuns takes them', () => {
     const data = coldStoreRetunedPlant().simulate({ transitions: 40_000, seed: 1 });
-    const { summary, warnings } = runOrderAssessment({ ...data, runLabels: Array.from({ length: data.episodeCount }, (_, e) => `C${e + 1}`) });
+    const { summary, warnings } = runOrderAssessment({ ...data, episodeLabels: Array.from({ length: data.episodeCount }, (_, e) => `C${e + 1}`) });
     expect(warnings[0].message).toContain('changed around run "C51" (the 51st of 100 in the data)');
     expect(warnings[0].message).toContain('To evaluate the runs since the change, leave out runs "C1" to "C50" (project field data.csv.excludedRuns; in the app, Plant log → Runs left out).');
     expect('reason' in summary ? null : summary.change).toEqual({ kind: 'step', runIndex: 50, runLabel: 'C51', line: 20_002 });
     const pump = dosingPumpWearPlant().simulate({ transitions: 40_000, seed: 1 });
-    const drift = runOrderAssessment({ ...pump, runLabels: Array.from({ length: pump.episodeCount }, (_, e) => `P${e}`) });
+    const drift = runOrderAssessment({ ...pump, episodeLabels: Array.from({ length: pump.episodeCount }, (_, e) => `P${e}`) });
     // The latest third of 100 runs: 33, from run 67.
     expect(drift.warnings[0].message).toContain('changed steadily over the runs, not in one step');
     expect(drift.warnings[0].message).toContain('runs "P67" to "P99"');

@@ -1,5 +1,5 @@
 /**
- * Each run's label reaches the transitions (TransitionSet.runLabels), so the run-order finding can name the
+ * Each run's label reaches the transitions (TransitionSet.episodeLabels), so the run-order finding can name the
  * run where the log changed as the run column reads (src/core/diagnostics/runOrderChangeWords.ts). Expected
  * values by hand from the row layout.
  */
@@ -25,10 +25,10 @@ describe('run labels carried to the transitions', () => {
   it('one label per run, as the cells read (never re-written as a number), a reappearing label once per run it starts', () => {
     const { transitions: t } = imported(csv);
     expect(t.episodeCount).toBe(3);
-    expect(t.runLabels).toEqual(['007', 'B 2', '007']);
+    expect(t.episodeLabels).toEqual(['007', 'B 2', '007']);
   });
 
   it('none where runs are not cut by a run column', () => {
-    expect(imported(csv, { episode: { kind: 'single' } }).transitions.runLabels).toBeUndefined();
+    expect(imported(csv, { episode: { kind: 'single' } }).transitions.episodeLabels).toBeUndefined();
   });
 });
