@@ -6,7 +6,12 @@
  * CLI's J is over), with its standard error (rolloutTruth.ts).
  *
  *   nice -n 10 npx tsx bench/holdoutCliRows.ts --plants a,b [--seeds 1,2,3] [--transitions 100000]
- *     [--approximator linear|network] [--resamples N] [--out rows.json]
+ *     [--approximator linear|network] [--resamples N] [--out rows.json] [--keep-runs all|change] [--drift-share 0.333]
+ *
+ * --keep-runs change: each log is cut as its run-order finding advises before the CSV is written
+ * (bench/keptRuns.ts: after a step the runs since it, after a drift the latest third), and the truth is
+ * rolled out from the kept runs' starts; a `# kept runs:` line says where the cut fell. --drift-share keeps
+ * another latest share after a drift (the words' DRIFT_RECENT_SHARE by default), to see the trade-off.
  *
  * A row is "confident and wrong" when no finding about it is serious, its verdict is settled (or
  * only one class was fitted) and its range to report misses the truth by more than 2 of the truth's
@@ -30,6 +35,8 @@ import { rolloutTruthPlants } from '../test/battery/rolloutTruthPlants';
 import { brokenLogPlants, keptAssumptionPlants } from '../test/battery/holdout/brokenLogPlants';
 import type { BrokenLogPlant } from '../test/battery/holdout/brokenLog';
 import { cliCommand } from './builtCli';
+import { keptRunsAfterChange } from './keptRuns';
+import { DRIFT_RECENT_SHARE } from '../src/core/limits';
 
 /**
  * Rollouts per run start for the truth over a log's run starts (this bench's budget, not the plants' own):
@@ -119,14 +126,17 @@ async function main() {
   if (unknown.length) throw new Error(`holdoutCliRows: no plant with rollout truth named ${unknown.join(', ')} (have ${[...known].join(', ')})`);
   const seeds = option(args, 'seeds', '1,2,3,4,5').split(',').map(Number);
   const transitions = Number(option(args, 'transitions', '100000')), approximator = option(args, 'approximator', 'linear');
-  const resamples = option(args, 'resamples', ''), out = option(args, 'out', '');
+  const resamples = option(args, 'resamples', ''), out = option(args, 'out', ''), keepRuns = option(args, 'keep-runs', 'all');
+  const driftShare = Number(option(args, 'drift-share', String(DRIFT_RECENT_SHARE)));
   const work = join(tmpdir(), `holdout-cli-${process.pid}`);
   mkdirSync(work, { recursive: true });
   const rows: object[] = [], baseline: object[] = [];
   const plants = all.filter((p) => names.includes(p.name));
   console.log(['plant', 'approx', 'seed', 'candidate', 'truth', 'truthSE', 'J', 'err%', 'interval', 'range', 'holds', 'miss/SE', 'settled', 'status', 'most severe', 'exit', 'class', 'seconds'].join('\t'));
   for (const plant of plants) for (const seed of seeds) {
-    const data = plant.simulate({ transitions, seed }), csv = `${plant.name}-s${seed}.csv`;
+    const whole = plant.simulate({ transitions, seed }), cut = keepRuns === 'change' ? keptRunsAfterChange(whole, driftShare) : null, data = cut?.data ?? whole;
+    const csv = `${plant.name}-s${seed}${cut ? '-kept' : ''}.csv`;
+    if (cut) console.log(`#\tkept runs: ${cut.from}–${cut.runs - 1} of ${cut.runs} (${cut.why}); ${data.count} transitions`);
     writeFileSync(join(work, csv), csvOf(plant, data));
     const projectPath = join(work, `${plant.name}-s${seed}-${approximator}.spcritic`);
     writeFileSync(projectPath, JSON.stringify(projectOf(plant, csv, approximator, seed, data.terminal.some((t) => t !== 0)), null, 2));
@@ -167,6 +177,7 @@ async function main() {
         classPairs: c.functionClasses?.pairs ?? null, crossChecks: c.crossChecks.map((x: { label: string; agreement: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, value: x.estimate?.value ?? null })) });
     }
     const present = json.assessment.presentController;
+    if (json.assessment.runOrder) console.log(`#\trun order: ${JSON.stringify({ changed: json.assessment.runOrder.changed?.length ?? null, change: json.assessment.runOrder.change ?? null, reason: json.assessment.runOrder.reason ?? null })}`);
     if (present) console.log(`#\tpresent controller J ${present.policyValue.value.toFixed(4)} interval ${JSON.stringify(present.policyValue.basic)}; global warnings: ${json.assessment.warnings.map((w: Warning) => `${w.severity}:${w.topic}`).join('; ')}`);
     // The baseline every difference is taken against: the present controller's J (fitted to the logged actions)
     // beside the truth of the plant's logging policy (plant.behaviour, with its limits), rolled out from the same
@@ -188,7 +199,7 @@ async function main() {
         present.settled ?? '-', present.confirmation.status, checks.map((x: { label: string; agreement: string }) => `${x.label}: ${x.agreement}`).join('; '), run.status, '-', seconds.toFixed(0)].join('\t'));
       const trial = trialVerdict(json.trial, truth, truths);
       console.log(`#\ttrial: ${trial.words}`);
-      baseline.push({ plant: plant.name, approximator, seed, candidate: PRESENT, truth, j, err, interval, holds: interval ? miss <= margin : false, missOverSE: interval ? miss / truth.standardError : null,
+      baseline.push({ plant: plant.name, approximator, seed, candidate: PRESENT, keptRuns: cut ? { from: cut.from, runs: cut.runs, why: cut.why } : null, runOrder: json.assessment.runOrder ?? null, truth, j, err, interval, holds: interval ? miss <= margin : false, missOverSE: interval ? miss / truth.standardError : null,
         confirmation: present.confirmation, crossChecks: checks, globalWarnings: json.assessment.warnings, exit: run.status, seconds, ...classes, trial });
     }
     if (out) writeFileSync(out, JSON.stringify(rows, null, 1));

@@ -3,7 +3,9 @@
  * directly, no evaluation: every battery plant, every hold-out, the probe37 plants and their controls,
  * and the three sample projects. Per log: the runs, the runs skipped per block, the smallest
  * Bonferroni-corrected p of the law's coefficients, of the plant model's slopes and of its intercepts
- * (K·p, K the coefficients tested), and the finding at each candidate family-wise level.
+ * (K·p, K the coefficients tested), the finding at each candidate family-wise level, and where the finding
+ * has one, the shape of the change it leads with (core/diagnostics/changeShape.ts: step at a run position,
+ * or drift) and the shapes of every changed coefficient (l: law, m: plant model; -1 the intercept).
  *
  *   nice -n 10 npx tsx bench/runOrderBattery.ts [--seeds 1,2,3,4,5] [--transitions 100000] [--plants a,b]
  *
@@ -16,7 +18,7 @@ import { batteryPlants } from '../test/battery/catalogue';
 import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
 import { brokenLogPlants, keptAssumptionPlants } from '../test/battery/holdout/brokenLogPlants';
 import { runOrderTrends, type RunOrderData, type RunOrderResult } from '../src/core/diagnostics/runOrder';
-import { runOrderSeverity } from '../src/core/diagnostics/runOrderFinding';
+import { changedTrends, runOrderSeverity, shownTrends } from '../src/core/diagnostics/runOrderFinding';
 import { RUN_ORDER_MIN_RUNS } from '../src/core/limits';
 import { loggedActionLimits } from '../src/core/loggedActionLimits';
 import { openProject } from '../src/pipeline/openProject';
@@ -42,8 +44,15 @@ function row(name: string, seed: number | string, data: RunOrderData): { serious
   const severities = ALPHAS.map((a) => runOrderSeverity(result, a));
   const runs = 'reason' in result ? result.reason : `${result.runs} (skip ${result.lawSkipped}/${result.modelSkipped})`;
   console.log([name, seed, runs, smallest(result, (b) => b === 'law'), smallest(result, (b, i) => b === 'model' && i >= 0), smallest(result, (b, i) => b === 'model' && i < 0),
-    ...severities.map((s) => s ?? '·')].join(' | '));
+    ...severities.map((s) => s ?? '·'), shapes(result)].join(' | '));
   return { serious: severities.map((s) => s === 'serious'), caution: severities.map((s) => s === 'caution') };
+}
+
+/** The shown coefficient's change, then every changed one's: "step@125 [l0.0 step@125, m0.-1 drift]". */
+function shapes(result: RunOrderResult): string {
+  const shown = shownTrends(result), changed = changedTrends(result);
+  const text = (t: (typeof shown)[number]) => (t.change ? (t.change.kind === 'step' ? `step@${t.change.run}` : 'drift') : '?');
+  return shown.length ? `${text(shown[0])} [${changed.map((t) => `${t.block[0]}${t.output}.${t.input} ${text(t)}`).join(', ')}]` : '·';
 }
 
 async function sampleData(sample: string): Promise<{ data: RunOrderData; dispose: () => void }> {

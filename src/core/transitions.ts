@@ -31,6 +31,11 @@ export interface TransitionSet {
   /** 1-based line number in the source file of the row each transition starts at (header = line 1). */
   readonly sourceLine: Int32Array; // n
   /**
+   * The run column's cell on each episode's first kept row, as the import reads it (null where it could not
+   * be read); absent where runs are not cut by a run column. Words name runs by it (core/runLabelText.ts).
+   */
+  readonly episodeLabels?: readonly (string | null)[]; // e
+  /**
    * Bounds every step's reward keeps whatever the plant does under any policy, from the reward's
    * definition, in reward sense; either end may be infinite. Absent when nothing is known beyond the logs.
    */

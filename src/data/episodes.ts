@@ -8,7 +8,7 @@
 import type { ColumnRoles } from '../project/schema';
 import { formatCount, formatSeconds, plural } from './reportFormat';
 import { medianStepSeconds } from './stepMedian';
-import { runLabelText } from './runLabelText';
+import { runLabelText } from '../core/runLabelText';
 
 export interface EpisodeAssignment {
   /** Episode of each record, 0-based in file order; −1 for excluded records. */

@@ -52,7 +52,7 @@ export interface ImportedDataset {
   timeWindows: LeftOutWindow[];
   /** Each range of runs left out (data.csv.excludedRuns) with its runs and rows; their rows are in summary.excludedRowCount, not in `excluded` nor in a window's count. */
   runsLeftOut: LeftOutRuns[];
-  /** The run column's labels in the order the runs first appear (runLabelText.ts); empty without a run column. */
+  /** The run column's labels in the order the runs first appear (core/runLabelText.ts writes one); empty without a run column. */
   runLabels: readonly string[];
   /** The timestamp column's first and last time, when there is one. */
   clock?: LogClock;
@@ -156,6 +156,7 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
     stateNames: columns.states.map((c) => c.column),
     actionNames: columns.actions.map((c) => c.column),
+    labels: episodeInputs.labels,
   });
   if (transitions.count === 0) {
     return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every run has a single usable row; expected consecutive rows of the same run (or next-state columns)'));

@@ -1,7 +1,7 @@
 /**
  * Runs the project leaves out of the import by their label (data.csv.excludedRuns): the runs before
  * a retune, a trip test, a week under another controller. A range names its first and last run as
- * the run column's cells read them (runLabelText.ts) and takes every run between, both included,
+ * the run column's cells read them (core/runLabelText.ts) and takes every run between, both included,
  * in the order the runs first appear in the data (a label's codes are given in that order on import,
  * columnSink.ts); `to` absent is that one run. Every row of those runs is left out with the range's
  * reason — counted per range and reported, never dropped silently — so every later stage (runs,
@@ -17,7 +17,7 @@ import type { ColumnRoles, ExcludedRun } from '../project/schema';
 import { closestName } from '../core/closestName';
 import { importProblem, type ImportProblem } from './importProblem';
 import { plural } from './reportFormat';
-import { runLabelText } from './runLabelText';
+import { runLabelText } from '../core/runLabelText';
 
 /** A range read against the log: its first and last run as label codes (codes in order of first appearance). */
 export interface RunRange {

@@ -27,6 +27,8 @@ export interface StepColumns {
   readonly lineOf: (record: number) => number;
   /** Rows kept for the values they supply to later rows' derived states, but starting no transition (derivedStates.ts). */
   readonly supplyOnlyRows?: number;
+  /** The run column as codes into its values (−1 where unreadable), where runs are cut by one: each episode's label (TransitionSet.episodeLabels). */
+  readonly labels?: { readonly codes: Float64Array; readonly values: readonly string[] };
 }
 
 /**
@@ -58,6 +60,7 @@ export function buildTransitions(c: StepColumns): { transitions: TransitionSet; 
   const transitions: TransitionSet = {
     count: n, stateDim: ds, actionDim: m, stateNames: [...c.stateNames], actionNames: [...c.actionNames],
     episodeCount: c.episodeCount, ...t, startEpisode: t.startEpisode.length === c.episodeCount ? undefined : t.startEpisode,
+    ...(c.labels ? { episodeLabels: episodeLabelsOf(c, c.labels) } : {}),
   };
   return { transitions, report: describeSteps(c, transitions) };
 }
@@ -125,6 +128,19 @@ function writeStartStates(c: StepColumns, startStates: Float64Array, startEpisod
     for (let j = 0; j < ds; j++) startStates[next * ds + j] = c.states[j][r];
     startEpisode[next++] = e;
   }
+}
+
+/** The run column's cell on each episode's first kept row (null where unreadable). */
+function episodeLabelsOf(c: StepColumns, labels: NonNullable<StepColumns['labels']>): (string | null)[] {
+  const out: (string | null)[] = new Array(c.episodeCount).fill(null);
+  for (let r = 0, seen = -1; r < c.kept.length; r++) {
+    const e = c.episodeOf[r];
+    if (!c.kept[r] || e <= seen) continue;
+    seen = e;
+    const code = labels.codes[r];
+    out[e] = code >= 0 ? labels.values[code] ?? null : null;
+  }
+  return out;
 }
 
 function allocate(n: number, ds: number, m: number, hasStart: Uint8Array) {

@@ -3,9 +3,11 @@
  * candidate: is the log one plant under one controller from its first run to its last? Its rule and
  * words come from src/core/diagnostics/runOrderFinding.ts; its numbers go to the assessment as `runOrder`.
  */
-import { runOrderTrends, type RunOrderData } from '../core/diagnostics/runOrder';
-import { changedTrends, fewestRunsToShow, runOrderFinding, trendSeverity, type RunOrderNames } from '../core/diagnostics/runOrderFinding';
+import type { ChangeKind } from '../core/diagnostics/changeShape';
+import { runOrderTrends, type CoefficientTrend, type RunOrderData } from '../core/diagnostics/runOrder';
+import { changedTrends, fewestRunsToShow, runOrderFinding, shownTrends, trendSeverity, type RunOrderNames } from '../core/diagnostics/runOrderFinding';
 import { RUN_ORDER_MIN_RUNS } from '../core/limits';
+import type { RunName } from '../core/runLabelText';
 import type { AssessmentWarning } from './assessment';
 
 /** The check's numbers (plain JSON): runs read, runs skipped per fit, coefficients tested, and those that changed. */
@@ -14,21 +16,54 @@ export type RunOrderSummary =
     readonly runs: number; readonly lawRunsSkipped: number; readonly modelRunsSkipped: number; readonly coefficientsTested: number;
     /** The smallest Bonferroni-corrected p over the coefficients (K·p, at most 1). */
     readonly smallestCorrectedP: number;
-    readonly changed: { fit: 'law' | 'model'; output: string; input: string; rho: number; z: number; correctedP: number; early: number; late: number; severity: 'caution' | 'serious' }[];
+    readonly changed: { fit: 'law' | 'model'; output: string; input: string; rho: number; z: number; correctedP: number; early: number; late: number; severity: 'caution' | 'serious'; change: RunOrderChange | null }[];
+    /** The change the finding leads with (the first of `changed` it shows), or null when nothing changed. */
+    readonly change: RunOrderChange | null;
   }
   | { readonly reason: string };
 
+/**
+ * Where a changed coefficient changed (core/diagnostics/changeShape.ts): a step, with the first run after it —
+ * its position in the data (0-based), its label as the run column reads (null without one) and its first line;
+ * or a drift, with no run (the best single step's run is not a change point then).
+ */
+export type RunOrderChange =
+  | { readonly kind: Extract<ChangeKind, 'step'>; readonly runIndex: number; readonly runLabel: string | null; readonly line: number }
+  | { readonly kind: Extract<ChangeKind, 'drift'> };
+
+/** Run position → its label and first line, from the log's first row of each run (TransitionSet.episodeLabels, sourceLine). */
+function runNames(data: RunOrderData & { readonly episodeLabels?: readonly (string | null)[]; readonly sourceLine?: Int32Array }, firstRows: readonly number[]): (position: number) => RunName {
+  return (position) => {
+    const row = firstRows[position] ?? 0;
+    return { label: data.episodeLabels?.[data.episode[row]] ?? null, line: data.sourceLine?.[row] ?? row + 2 };
+  };
+}
+
+function changeOf(t: CoefficientTrend, runName: (position: number) => RunName): RunOrderChange | null {
+  if (!t.change) return null;
+  if (t.change.kind === 'drift') return { kind: 'drift' };
+  const run = runName(t.change.run);
+  return { kind: 'step', runIndex: t.change.run, runLabel: run.label, line: run.line };
+}
+
+/** "; setpoint_c is constant within every run (…)", naming the columns; empty where there are none (review38: the check said "not checked" without saying which). */
+function constantWords(columns: readonly number[] | undefined, names: readonly string[]): string {
+  if (!columns?.length) return '';
+  const listed = columns.map((c) => names[c] ?? `input ${c + 1}`), many = listed.length > 1;
+  return `; ${listed.join(', ')} ${many ? 'are' : 'is'} constant within every run (a setpoint or grade?), so no run’s fit can tell ${many ? 'their effects' : 'its effect'} from the run’s own offset`;
+}
+
 /** `limits`: the actuator limits the baseline read from the log (its fitted model's, core/behaviourModel.ts), so a run's law is fitted as the baseline's is. */
-export function runOrderAssessment(data: RunOrderData & RunOrderNames, limits?: RunOrderData['actionLimits']): { summary: RunOrderSummary; warnings: AssessmentWarning[] } {
+export function runOrderAssessment(data: RunOrderData & RunOrderNames & Parameters<typeof runNames>[0], limits?: RunOrderData['actionLimits']): { summary: RunOrderSummary; warnings: AssessmentWarning[] } {
   const result = data.count > 0 ? runOrderTrends({ ...data, actionLimits: limits ?? data.actionLimits }, RUN_ORDER_MIN_RUNS) : { reason: 'the log has no transitions' };
-  const finding = runOrderFinding(result, data);
+  const finding = runOrderFinding(result, { ...data, ...('reason' in result ? {} : { runName: runNames(data, result.firstRows) }) });
   const warnings = finding ? [finding] : [];
-  if ('reason' in result) return { summary: { reason: result.reason }, warnings };
+  if ('reason' in result) return { summary: { reason: result.reason + constantWords(result.constantInRuns, [...data.stateNames, ...data.actionNames]) }, warnings };
   const fewest = fewestRunsToShow(result.trends.length), most = Math.max(...result.trends.map((t) => t.runs));
   if (most < fewest) {
     return { summary: { reason: `its ${most.toLocaleString('en-US')} fitted runs cannot show a change at this level: with ${result.trends.length} coefficients tested, even a perfect trend needs ${fewest} runs` }, warnings };
   }
-  const k = result.trends.length, names = [...data.stateNames, ...data.actionNames];
+  const k = result.trends.length, names = [...data.stateNames, ...data.actionNames], runName = runNames(data, result.firstRows);
   const output = (block: 'law' | 'model', i: number) => (block === 'law' ? data.actionNames[i] ?? `action ${i + 1}` : data.stateNames[i] ?? `state ${i + 1}`);
   return {
     summary: {
@@ -36,8 +71,9 @@ export function runOrderAssessment(data: RunOrderData & RunOrderNames, limits?: 
       smallestCorrectedP: Math.min(1, ...result.trends.map((t) => t.p * k)),
       changed: changedTrends(result).map((t) => ({
         fit: t.block, output: output(t.block, t.output), input: t.input < 0 ? 'intercept' : names[t.input] ?? `input ${t.input + 1}`,
-        rho: t.rho, z: t.z, correctedP: Math.min(1, t.p * k), early: t.early, late: t.late, severity: trendSeverity(t),
+        rho: t.rho, z: t.z, correctedP: Math.min(1, t.p * k), early: t.early, late: t.late, severity: trendSeverity(t), change: changeOf(t, runName),
       })),
+      change: shownTrends(result).slice(0, 1).map((t) => changeOf(t, runName))[0] ?? null,
     },
     warnings,
   };

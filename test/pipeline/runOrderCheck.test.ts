@@ -18,8 +18,11 @@ describe('run-order check on logs that change by run order, and their controls',
     expect(warnings[0]).toMatchObject({ severity: 'serious', topic: 'runOrder' });
     expect(warnings[0].candidate).toBeUndefined();
     expect(warnings[0].message).toContain('the present controller’s gain of compressor_fraction');
-    expect(warnings[0].message).toContain('exclude the earlier rows');
+    // Retuned at run 50 of 100 (the plant's own definition); without a run column the rows are named by line (400 rows a run, header line 1).
+    expect(warnings[0].message).toContain('changed around the run from line 20,002 (the 51st of 100 in the data), in one step rather than a steady drift');
+    expect(warnings[0].message).toContain('leave out the rows above line 20,002');
     expect('reason' in summary ? [] : summary.changed.map((c) => c.fit)).toContain('law');
+    expect('reason' in summary ? null : summary.change).toEqual({ kind: 'step', runIndex: 50, runLabel: null, line: 20_002 });
     expect(runOrderSentence(summary)).toMatch(/changed with run order \(see the warning\)/);
   });
 
@@ -27,6 +30,31 @@ describe('run-order check on logs that change by run order, and their controls',
     const { warnings } = runOrderAssessment(dosingPumpWearPlant().simulate({ transitions: 40_000, seed: 1 }));
     expect(warnings[0]?.severity).toBe('serious');
     expect(warnings[0]?.message).toContain('the plant’s response changed');
+  });
+
+  it('with a run column, the runs are named by its labels, as data.csv.excludedRuns takes them', () => {
+    const data = coldStoreRetunedPlant().simulate({ transitions: 40_000, seed: 1 });
+    const { summary, warnings } = runOrderAssessment({ ...data, episodeLabels: Array.from({ length: data.episodeCount }, (_, e) => `C${e + 1}`) });
+    expect(warnings[0].message).toContain('changed around run "C51" (the 51st of 100 in the data)');
+    expect(warnings[0].message).toContain('To evaluate the runs since the change, leave out runs "C1" to "C50" (project field data.csv.excludedRuns; in the app, Plant log → Runs left out).');
+    expect('reason' in summary ? null : summary.change).toEqual({ kind: 'step', runIndex: 50, runLabel: 'C51', line: 20_002 });
+    const pump = dosingPumpWearPlant().simulate({ transitions: 40_000, seed: 1 });
+    const drift = runOrderAssessment({ ...pump, episodeLabels: Array.from({ length: pump.episodeCount }, (_, e) => `P${e}`) });
+    // The latest third of 100 runs: 33, from run 67.
+    expect(drift.warnings[0].message).toContain('changed steadily over the runs, not in one step');
+    expect(drift.warnings[0].message).toContain('runs "P67" to "P99"');
+    expect(drift.warnings[0].message).toContain('wider intervals');
+    expect(drift.warnings[0].message).toContain('leave out runs "P0" to "P66" (project field data.csv.excludedRuns');
+    expect('reason' in drift.summary ? null : drift.summary.change).toEqual({ kind: 'drift' });
+  });
+
+  it('a state constant within every run (a grade column) switches the check off, and the sentence names it', () => {
+    const data = coldStoreRetunedPlant(true).simulate({ transitions: 40_000, seed: 1 }), states = data.states.slice();
+    for (let i = 0; i < data.count; i++) states[i * 2 + 1] = data.episode[i] % 3; // heat_load made a grade held through each run
+    const { summary, warnings } = runOrderAssessment({ ...data, states });
+    expect(warnings).toEqual([]);
+    expect(runOrderSentence(summary)).toContain('Run order: not checked — fewer than 10 runs could be fitted');
+    expect(runOrderSentence(summary)).toContain('heat_load is constant within every run (a setpoint or grade?), so no run’s fit can tell its effect from the run’s own offset.');
   });
 
   it('their controls: no warning, and the sentence says nothing changed', () => {

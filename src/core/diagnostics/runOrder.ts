@@ -26,6 +26,7 @@
  * Shapes: ds states, m actions; law coefficients m × (1 + ds), model coefficients ds × (1 + ds + m).
  */
 import { CensoredRegressionError, fitCensoredRegression } from '../censoredRegression';
+import { changeShape, type ChangeKind } from './changeShape';
 import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
 import { PIVOT_FLOOR } from '../limits';
 import { normalSurvival } from '../normalDistribution';
@@ -61,11 +62,24 @@ export interface CoefficientTrend {
   /** The estimate's medians over the first and the last fifth of the runs, in the log's units (an intercept: the value at the log's mean state and action), to say which way it went. */
   readonly early: number;
   readonly late: number;
+  /**
+   * The series' shape (changeShape.ts, on the ranks ρ reads): a step, with the run position (0-based among
+   * all the log's runs) of the first fitted run after it, or a drift (`run` then the best step's, unused by the words).
+   */
+  readonly change: { readonly kind: ChangeKind; readonly run: number } | null;
 }
 
 export type RunOrderResult =
-  | { readonly runs: number; readonly lawSkipped: number; readonly modelSkipped: number; readonly trends: CoefficientTrend[] }
-  | { readonly reason: string };
+  | {
+    readonly runs: number; readonly lawSkipped: number; readonly modelSkipped: number; readonly trends: CoefficientTrend[];
+    /** The first row of each run, by run position: where a host reads a run's label. */
+    readonly firstRows: readonly number[];
+  }
+  | {
+    readonly reason: string;
+    /** Inputs ([states, actions] indices) that never vary within a run (a setpoint or grade column): each run's fit is singular through them. */
+    readonly constantInRuns?: readonly number[];
+  };
 
 /** Spearman's ρ of two equal-length samples, average ranks for ties; NaN when either is constant. */
 export function spearmanRho(x: ArrayLike<number>, y: ArrayLike<number>): number {
@@ -120,14 +134,20 @@ export function runOrderTrends(data: RunOrderData, minimumRuns: number): RunOrde
     for (let o = 0; o < outputs; o++) for (let c = 0; c <= inputs; c++) {
       const unit = c === 0 ? 1 : scale[c - 1], series = fits.map((f) => f[o * (inputs + 1) + c] / unit);
       const rho = spearmanRho(runs, series), { z, p } = spearmanTrend(rho, runs.length);
-      const fifth = Math.max(1, Math.floor(series.length / 5));
-      trends.push({ block, output: o, input: c - 1, runs: runs.length, rho: Number.isFinite(rho) ? rho : 0, z, p, early: median(series.slice(0, fifth)), late: median(series.slice(-fifth)) });
+      const fifth = Math.max(1, Math.floor(series.length / 5)), shape = changeShape(runs, averageRanks(series));
+      trends.push({
+        block, output: o, input: c - 1, runs: runs.length, rho: Number.isFinite(rho) ? rho : 0, z, p, early: median(series.slice(0, fifth)), late: median(series.slice(-fifth)),
+        change: shape && { kind: shape.kind, run: runs[shape.after] },
+      });
     }
   };
   add('law', law, lawRuns, m, ds);
   add('model', model, modelRuns, ds, w);
-  if (trends.length === 0) return { reason: `fewer than ${minimumRuns} runs could be fitted (each needs more rows than twice its coefficients, and some spread in its states and actions)` };
-  return { runs: spans.length, lawSkipped: spans.length - lawRuns.length, modelSkipped: spans.length - modelRuns.length, trends };
+  if (trends.length === 0) {
+    const constant = constantInEveryRun(data, spans);
+    return { reason: `fewer than ${minimumRuns} runs could be fitted (each needs more rows than twice its coefficients, and some spread in its states and actions)`, ...(constant.length ? { constantInRuns: constant } : {}) };
+  }
+  return { runs: spans.length, lawSkipped: spans.length - lawRuns.length, modelSkipped: spans.length - modelRuns.length, trends, firstRows: spans.map(([from]) => from) };
 }
 
 /** [first row, one past the last] of each run, in the order the runs appear (rows of one episode index in a row). */
@@ -140,6 +160,15 @@ function runSpans(data: RunOrderData): [number, number][] {
     i = j;
   }
   return spans;
+}
+
+/** The inputs ([states, actions]) whose value never changes within any run: no per-run fit can tell their effect from the run's offset. */
+function constantInEveryRun(data: RunOrderData, spans: [number, number][]): number[] {
+  const w = data.stateDim + data.actionDim, out: number[] = [];
+  for (let c = 0; c < w; c++) {
+    if (spans.every(([from, to]) => { for (let i = from + 1; i < to; i++) if (input(data, i, c) !== input(data, from, c)) return false; return true; })) out.push(c);
+  }
+  return out;
 }
 
 /** The whole log's mean and spread of each of [states, actions] (spread 1 where a column is constant). */

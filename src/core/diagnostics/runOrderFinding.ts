@@ -13,11 +13,15 @@
  */
 import { RUN_ORDER_ALPHA } from '../limits';
 import { normalSurvival } from '../normalDistribution';
+import type { RunName } from '../runLabelText';
 import type { CoefficientTrend, RunOrderResult } from './runOrder';
+import { changeAdvice } from './runOrderChangeWords';
 
 export interface RunOrderNames {
   readonly stateNames: readonly string[];
   readonly actionNames: readonly string[];
+  /** A run by its position in the data (0-based): its label and first line; absent, the words say where without naming runs. */
+  readonly runName?: (position: number) => RunName;
 }
 
 export type RunOrderSeverity = 'caution' | 'serious';
@@ -57,15 +61,22 @@ export function runOrderRuleText(): string {
     'each coefficient’s trend over the runs is Spearman’s rank correlation with run order (z = ρ√(n − 1), normal approximation), ' +
     `and a coefficient changed when its two-sided p times the number of coefficients tested is at most ${RUN_ORDER_ALPHA} (Bonferroni). ` +
     'A change in a gain of the law (the present controller was retuned) or in the plant’s response to a state or an action (the plant drifted) is serious, and then no candidate is named for a trial; ' +
-    'a change in an offset alone (the law’s output level, which an integral taking up a drifting load also moves, or the plant model’s) is a caution.';
+    'a change in an offset alone (the law’s output level, which an integral taking up a drifting load also moves, or the plant model’s) is a caution. ' +
+    'Where the change lies: on the ranks of the changed coefficient the finding leads with, the single step fitting best by least squares over the split points (Hinkley 1970) against a straight line in run order — a step where it leaves the smaller residual sum of squares (evaluate the runs since it), else a steady drift (only the latest runs describe the plant now).';
+}
+
+/** The changed coefficients the finding shows, the one it leads with first: the serious ones if any, else all, by |z| falling. */
+export function shownTrends(result: RunOrderResult, alpha = RUN_ORDER_ALPHA): CoefficientTrend[] {
+  const changed = changedTrends(result, alpha), serious = changed.filter((t) => trendSeverity(t) === 'serious');
+  return (serious.length > 0 ? serious : changed).sort((a, b) => Math.abs(b.z) - Math.abs(a.z));
 }
 
 /** The finding's words, or null when nothing changed with run order. */
 export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): { severity: RunOrderSeverity; topic: string; message: string } | null {
-  const changed = changedTrends(result);
-  if (changed.length === 0 || 'reason' in result) return null;
-  const serious = changed.filter((t) => trendSeverity(t) === 'serious');
-  const shown = (serious.length > 0 ? serious : changed).sort((a, b) => Math.abs(b.z) - Math.abs(a.z));
+  const shown = shownTrends(result);
+  if (shown.length === 0 || 'reason' in result) return null;
+  const serious = shown.filter((t) => trendSeverity(t) === 'serious');
+  const advice = names.runName ? changeAdvice(shown[0], coefficientText(shown[0], names), result.runs, names.runName) : null;
   const law = serious.some((t) => t.block === 'law'), plant = serious.some((t) => t.block === 'model');
   const first = shown.slice(0, 3).map((t) => trendText(t, names)).join('; ');
   const more = shown.length > 3 ? `; and ${shown.length - 3} more` : '';
@@ -73,7 +84,9 @@ export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): {
   if (serious.length === 0) {
     return {
       severity: 'caution', topic: 'runOrder',
-      message: opening + 'Only an offset moved — the present controller’s output level (an integral taking up a drifting load, a setpoint change, or a retune) or the plant model’s (a slow disturbance that the logged states do not carry). The estimates assume one plant under one controller throughout; look at what changed, and if the plant or the controller itself changed, evaluate the runs since the change: exclude the earlier rows.',
+      message: opening + 'Only an offset moved — the present controller’s output level (an integral taking up a drifting load, a setpoint change, or a retune) or the plant model’s (a slow disturbance that the logged states do not carry). The estimates assume one plant under one controller throughout; look at what changed, and if the plant or the controller itself changed, evaluate the runs since the change: exclude the earlier rows.' +
+        // An offset that stepped (a setpoint change, a retune of the output level) has runs since it; one that drifts is a slow disturbance, and cutting the log to its latest runs would only find it drifting there too.
+        (advice && shown[0].change?.kind === 'step' ? ` ${advice}` : ''),
     };
   }
   const why = [
@@ -83,17 +96,22 @@ export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): {
   return {
     severity: 'serious', topic: 'runOrder',
     message: opening + `That means ${why}. On test plants that drifted or were retuned halfway, J was off by about 20\u00a0% with every cross-check agreeing. ` +
-      'No candidate is named for a trial. Find where the change happened and evaluate the runs since the change: exclude the earlier rows.',
+      'No candidate is named for a trial. ' + (advice ?? 'Find where the change happened and evaluate the runs since the change: exclude the earlier rows.'),
   };
+}
+
+/** "the present controller’s gain of valve on level": the coefficient in words. */
+function coefficientText(t: CoefficientTrend, names: RunOrderNames): string {
+  const action = (i: number) => names.actionNames[i] ?? `action ${i + 1}`, state = (i: number) => names.stateNames[i] ?? `state ${i + 1}`;
+  const regressor = (c: number) => (c < names.stateNames.length ? state(c) : action(c - names.stateNames.length));
+  return t.block === 'law'
+    ? (t.input < 0 ? `the present controller’s ${action(t.output)} output at the log’s mean state` : `the present controller’s gain of ${action(t.output)} on ${regressor(t.input)}`)
+    : (t.input < 0 ? `the plant model’s offset of next ${state(t.output)}` : `the plant’s response of next ${state(t.output)} to ${regressor(t.input)}`);
 }
 
 /** "the law’s gain of valve on level rose from 0.12 to 0.30 (ρ = 0.93 over 500 runs)". */
 function trendText(t: CoefficientTrend, names: RunOrderNames): string {
-  const action = (i: number) => names.actionNames[i] ?? `action ${i + 1}`, state = (i: number) => names.stateNames[i] ?? `state ${i + 1}`;
-  const regressor = (c: number) => (c < names.stateNames.length ? state(c) : action(c - names.stateNames.length));
-  const what = t.block === 'law'
-    ? (t.input < 0 ? `the present controller’s ${action(t.output)} output at the log’s mean state` : `the present controller’s gain of ${action(t.output)} on ${regressor(t.input)}`)
-    : (t.input < 0 ? `the plant model’s offset of next ${state(t.output)}` : `the plant’s response of next ${state(t.output)} to ${regressor(t.input)}`);
+  const what = coefficientText(t, names);
   const way = number(t.late) === number(t.early) ? 'moved' : t.late > t.early ? 'rose' : 'fell';
   return `${what} ${way} from ${number(t.early)} in the first fifth of the fitted runs to ${number(t.late)} in the last (Spearman’s ρ = ${t.rho.toFixed(2)} over ${t.runs.toLocaleString('en-US')} runs)`;
 }

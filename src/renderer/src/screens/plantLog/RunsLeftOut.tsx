@@ -6,7 +6,7 @@
  */
 import { useId, useState } from 'react';
 import type { ColumnRoles, ExcludedRun } from '../../../../project/schema';
-import { runLabelText } from '../../../../data/runLabelText';
+import { runLabelText } from '../../../../core/runLabelText';
 import type { DataImport } from '../../../../shared/workerMessages';
 import { ProblemList } from '../../components/ProblemList';
 import { TextField } from '../../components/TextField';

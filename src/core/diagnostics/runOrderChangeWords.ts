@@ -1,0 +1,49 @@
+/**
+ * What to do about a coefficient that changed with run order, by the shape of its change
+ * (changeShape.ts): after a step, evaluate the runs since it, and which runs to leave out; after a
+ * steady drift, no run marks the change, so only the latest runs describe the plant now, at the cost
+ * of fewer runs and wider intervals. One writer for the app, the command line and the report (through
+ * runOrderFinding.ts); run labels as runLabelText writes them.
+ */
+import { DRIFT_RECENT_SHARE } from '../limits';
+import { runNameText, runSpanText, type RunName } from '../runLabelText';
+import type { CoefficientTrend } from './runOrder';
+
+/** Where the project says which runs to leave out, and where the app does. */
+const LEAVE_OUT_WHERE = 'project field data.csv.excludedRuns; in the app, Plant log → Runs left out';
+
+/**
+ * The advice sentence for the coefficient the finding leads with (`what`: its name in words), or null when
+ * its shape is unknown. `runs`: the log's run count; `runName(position)`: run position (0-based, data order) named.
+ */
+export function changeAdvice(t: CoefficientTrend, what: string, runs: number, runName: (position: number) => RunName): string | null {
+  if (!t.change) return null;
+  if (t.change.kind === 'step') {
+    const at = t.change.run, first = runName(0), before = runName(at - 1), since = runName(at);
+    return `${capital(what)} changed around ${runNameText(since)} (the ${ordinal(at + 1)} of ${runs.toLocaleString('en-US')} in the data), in one step rather than a steady drift. ` +
+      `To evaluate the runs since the change, ${leaveOut(first, before, since)}.`;
+  }
+  const kept = Math.max(1, Math.round(runs * DRIFT_RECENT_SHARE)), from = runs - kept;
+  const latest = runSpanText(runName(from), runName(runs - 1)) ?? `the runs from line ${runName(from).line.toLocaleString('en-US')}`;
+  return `${capital(what)} changed steadily over the runs, not in one step, so no run marks the change and only the latest runs describe the plant as it is now. ` +
+    `Evaluating only those — the latest third, say, ${latest} — trades fewer runs, and so wider intervals, for a baseline and a plant closer to today’s, though not today’s: ` +
+    'the plant went on changing through them, so their numbers describe it as it was partway through them (on a test pump that wore steadily, the latest third left the present controller’s J off by about 11\u00a0% instead of 24\u00a0%, and the check then read only a caution). ' +
+    `To do so, ${leaveOut(runName(0), runName(from - 1), runName(from))}.`;
+}
+
+/** "leave out runs "1" to "17" (…)", or the rows above the next run's first line where the log has no run column. */
+function leaveOut(first: RunName, last: RunName, next: RunName): string {
+  const span = runSpanText(first, last);
+  return span ? `leave out ${span} (${LEAVE_OUT_WHERE})` : `leave out the rows above line ${next.line.toLocaleString('en-US')} (the log has no run column to name the runs by)`;
+}
+
+function capital(s: string): string {
+  return s.charAt(0).toUpperCase() + s.slice(1);
+}
+
+/** 1st, 2nd, 3rd, 4th, 11th, 12th, 13th, 21st … */
+export function ordinal(k: number): string {
+  const tens = k % 100, units = k % 10;
+  const suffix = tens >= 11 && tens <= 13 ? 'th' : units === 1 ? 'st' : units === 2 ? 'nd' : units === 3 ? 'rd' : 'th';
+  return `${k.toLocaleString('en-US')}${suffix}`;
+}
