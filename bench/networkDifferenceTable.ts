@@ -7,6 +7,9 @@
  * 2·√(SE_c² + SE_p²) (0 for the closed form). Per plant and overall: rows holding, median width /
  * |true difference|, median width / the present width; the trial rule (trialChoice.ts: interval wholly
  * better, no serious warning, not contradicted, best J named) recomputed with each interval.
+ * Lines written with SAME=1 add "same iteration" (/work/notes/netdiff38-rule.md: the paired construction
+ * with both fits at W* = max of the two stops) and, per log, the fit time a warm continuation would add
+ * against the network run's wall time.
  *   npx tsx bench/networkDifferenceTable.ts rows.jsonl [more.jsonl …] [--rows]
  */
 import { readFileSync } from 'node:fs';
@@ -15,7 +18,7 @@ import { classErrorAllowance } from '../src/core/fqe/classErrorAllowance';
 import { networkValueInterval } from '../src/core/fqe/networkValueEstimate';
 import { resampleSeed } from '../src/core/bootstrap/episodeMultiplicities';
 import { createRandom } from '../src/core/random';
-import { pairedNetworkDifference, trainingSpread, type PairedFit, type PairingRule } from '../src/core/fqe/networkPairedDifference';
+import { pairedNetworkDifference, trainingSpread, type PairedFit, type PairedNetworkDifference, type PairingRule } from '../src/core/fqe/networkPairedDifference';
 
 type Truth = { value: number; standardError: number };
 type Fit = {
@@ -25,11 +28,14 @@ type Fit = {
 };
 type Line = {
   plant: string; seed: number; sign: number; present: { truth: Truth; fit: Fit };
-  candidates: { name: string; truth: Truth; fit: Fit; assessed: { percentile: [number, number] | null } | null; serious: number; contradicted: boolean }[];
+  candidates: { name: string; truth: Truth; fit: Fit; assessed: { percentile: [number, number] | null } | null; serious: number; contradicted: boolean; same?: Same | null }[];
+  seconds: number; presentAddedSeconds?: number;
 };
+type RanOn = { at: number; ownStop: number; repeatError: number; addedSeconds: number; fit: Fit };
+type Same = { W: number; candidate: RanOn | null; present: RanOn | null };
 type Interval = readonly [number, number];
 /** The last is a diagnostic, not a construction the rule judges: the paired run resamples alone, no training spread, no allowance. */
-const METHODS = ['present', 'paired', 'paired, per-J drift', 'sampling only'] as const;
+const METHODS = ['present', 'paired', 'paired, per-J drift', 'sampling only', 'same iteration'] as const;
 
 function pairedFit(f: Fit): PairedFit | null {
   if (f.status !== 'converged' || !f.replicates || !f.linearReplicates || !f.convergence || !f.parts || f.linear === null) return null;
@@ -83,7 +89,7 @@ function median(xs: number[]): number {
   return s.length ? (s.length % 2 ? s[(s.length - 1) / 2] : (s[s.length / 2 - 1] + s[s.length / 2]) / 2) : NaN;
 }
 
-interface Row { D: number; same: boolean; plant: string; seed: number; candidate: string; truth: number; margin: number; intervals: (Interval | null)[]; eligible: boolean; J: number }
+interface Row { parts: string; D: number; same: boolean; plant: string; seed: number; candidate: string; truth: number; margin: number; intervals: (Interval | null)[]; eligible: boolean; J: number }
 
 function rowsOf(line: Line): Row[] {
   const p = pairedFit(line.present.fit);
@@ -94,12 +100,30 @@ function rowsOf(line: Line): Row[] {
     const pct = c.assessed.percentile, assessed: Interval = line.sign > 0 ? pct : [-pct[1], -pct[0]]; // back to reward terms
     const present = perFitConstruction(c.fit, j, line.present.fit, line.candidates.length, line.seed)!;
     const same = Math.abs(present[0] - assessed[0]) + Math.abs(present[1] - assessed[1]) <= 1e-9 * (1 + Math.abs(assessed[0]) + Math.abs(assessed[1]));
-    const paired = pairedNetworkDifference(a, p, rule);
-    return [{
+    const paired = pairedNetworkDifference(a, p, rule), atW = sameIteration(c.fit, line.present.fit, c.same, rule);
+    const parts = atW ? `W*=${c.same!.W} drift ${atW.driftAllowance.toPrecision(2)} class ${atW.classErrorAllowance.toPrecision(2)} s_D ${atW.trainingSpread.toPrecision(2)}` : '';
+    return [{ parts,
       D: c.fit.J - line.present.fit.J, plant: line.plant, seed: line.seed, candidate: c.name, truth: c.truth.value - line.present.truth.value, J: c.fit.J,
       margin: 2 * Math.hypot(c.truth.standardError, line.present.truth.standardError),
-      same, intervals: [present, paired ? [paired.interval.lower, paired.interval.upper] : null, perFitDrift(a, p, rule), samplingOnly(a, p)], eligible: c.serious === 0 && !c.contradicted,
+      same, intervals: [present, paired ? [paired.interval.lower, paired.interval.upper] : null, perFitDrift(a, p, rule), samplingOnly(a, p), atW ? [atW.interval.lower, atW.interval.upper] : null],
+      eligible: c.serious === 0 && !c.contradicted,
     }];
+  });
+}
+
+/** netdiff38: the paired construction on both fits at W* (the one that stopped first run on to it). */
+function sameIteration(c: Fit, p: Fit, same: Same | null | undefined, rule: PairingRule): PairedNetworkDifference | null {
+  if (!same) return null;
+  const a = pairedFit(same.candidate?.fit ?? c), b = pairedFit(same.present?.fit ?? p);
+  return a && b ? pairedNetworkDifference(a, b, rule) : null;
+}
+
+/** Per log: the seconds a warm continuation would add (every candidate run on, the present controller once to its furthest W*) ÷ the run's wall time. */
+function costs(lines: Line[]): string[] {
+  return lines.filter((l) => l.presentAddedSeconds !== undefined).map((l) => {
+    const added = l.presentAddedSeconds! + l.candidates.reduce((t, c) => t + (c.same?.candidate?.addedSeconds ?? 0), 0);
+    const repeat = Math.max(0, ...l.candidates.flatMap((c) => [c.same?.candidate?.repeatError ?? 0, c.same?.present?.repeatError ?? 0]));
+    return `${l.plant} s${l.seed}: +${added.toFixed(1)} s of ${l.seconds.toFixed(0)} s = ${(added / l.seconds).toFixed(3)} (largest |J_k| repeat difference ${repeat})`;
   });
 }
 
@@ -118,9 +142,10 @@ function trials(rows: Row[], m: number): string[] {
 
 function main() {
   const args = process.argv.slice(2), files = args.filter((a) => !a.startsWith('--'));
-  const rows = files.flatMap((f) => readFileSync(f, 'utf8').split('\n').filter((l) => l.trim().startsWith('{')).flatMap((l) => rowsOf(JSON.parse(l) as Line)));
+  const lines = files.flatMap((f) => readFileSync(f, 'utf8').split('\n').filter((l) => l.trim().startsWith('{')).map((l) => JSON.parse(l) as Line));
+  const rows = lines.flatMap(rowsOf);
   if (args.includes('--rows')) {
-    for (const r of rows) console.log([r.plant, r.seed, r.candidate, r.truth.toPrecision(4), r.margin.toPrecision(2), ...r.intervals.map((iv) => (iv ? `${iv[0].toPrecision(4)}..${iv[1].toPrecision(4)} ${holds(r, iv) ? 'holds' : 'MISS'}` : '-'))].join('\t'));
+    for (const r of rows) console.log([r.plant, r.seed, r.candidate, r.truth.toPrecision(4), r.margin.toPrecision(2), ...r.intervals.map((iv) => (iv ? `${iv[0].toPrecision(4)}..${iv[1].toPrecision(4)} ${holds(r, iv) ? 'holds' : 'MISS'}` : '-')), r.parts].join('\t'));
   }
   const plants = [...new Set(rows.map((r) => r.plant))];
   console.log(['plant', 'rows', ...METHODS.map((m) => `${m}: holds`), ...METHODS.map((m) => `${m}: median width/|diff|`), ...METHODS.slice(1).map((m) => `${m}: median width/present`), 'confident & wrong (per method)', 'truth\'s reach in present half-widths: median, largest'].join('\t'));
@@ -135,5 +160,7 @@ function main() {
   }
   console.log(`# present construction recomputed from the raw parts equals the assessed interval on ${rows.filter((r) => r.same).length} of ${rows.length} rows (rows assessed after the change hold the paired one)`);
   METHODS.forEach((m, i) => console.log(`# trials, ${m}: ${trials(rows, i).join('; ')}`));
+  const cost = costs(lines);
+  if (cost.length) console.log(`# added fit time ÷ run wall time, per log: ${cost.join('; ')}`);
 }
 main();

@@ -134,6 +134,8 @@ export interface NetworkFqeInput {
   readonly isCancelled?: CancellationCheck;
   /** Directory or URL prefix of the wasm backend's .wasm files (Node: node_modules/@tensorflow/tfjs-backend-wasm/dist/). */
   readonly wasmPath?: string;
+  /** Run a fit that converges before this outer iteration on to it (networkIterations.ts's LoopInput.runTo). */
+  readonly runTo?: number;
 }
 
 export async function fitNetworkFqe(input: NetworkFqeInput): Promise<NetworkFit> {
@@ -193,7 +195,7 @@ async function fitMember(input: NetworkFqeInput, method: SettledNetworkMethod, s
     const { settings } = input;
     const run = await runOuterIterations(session, {
       startStates: input.startStates ?? input.data.startStates, stateDim: input.data.stateDim, tolerance: settings.tolerance,
-      outerIterations: settings.outerIterations, patience: settings.patience, stepsPerIteration: settings.stepsPerIteration, learningRate: settings.learningRate,
+      outerIterations: settings.outerIterations, patience: settings.patience, stepsPerIteration: settings.stepsPerIteration, learningRate: settings.learningRate, runTo: input.runTo,
       isCancelled: input.isCancelled,
       onProgress: input.onProgress && ((record, remainingSeconds) => input.onProgress!({ ...record, ...place, outerIterations: settings.outerIterations, remainingSeconds })),
     }, selection.backend, linearStart.weights);

@@ -72,6 +72,13 @@ export interface LoopInput {
   readonly patience: number;
   readonly stepsPerIteration: number;
   readonly learningRate: number;
+  /**
+   * Go on past the iteration where the rule was first met, to this one (within outerIterations), and
+   * stop there as converged: a fit compared with another that stopped later is run to the same
+   * iteration, so their difference's drift is read on aligned iterates (networkPairedDifference.ts).
+   * The iterates before are the same numbers as without it (the seed fixes them). Default: stop when met.
+   */
+  readonly runTo?: number;
   readonly onProgress?: (record: NetworkIterationRecord, remainingSeconds: number) => void;
   readonly isCancelled?: TrainingGuard['cancel'];
 }
@@ -91,6 +98,8 @@ interface LoopState {
   readonly started: number;
   /** Iterates whose last layer needed a larger hidden ridge to stay within the possible values (networkRidgeLadder.ts). */
   readonly raisedRidge: RaisedRidge[];
+  /** The first iterate at which the stopping rule was met; null until then. */
+  convergedAt: number | null;
 }
 
 /** Yield to the event loop about this often, so cancellation and progress can get through. */
@@ -99,7 +108,7 @@ const PACE_MS = 50;
 export async function runOuterIterations(s: FitSession, input: LoopInput, backend: TfBackendName, linearStart: Float64Array): Promise<IterationRun> {
   const rule = convergenceRule(s.discount, input.tolerance, input.patience);
   const started = performance.now();
-  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null, decayFrom: null, started, raisedRidge: [] };
+  const state: LoopState = { history: [], kept: null, iterates: [], linearStart, work: newWork(), lastLoss: null, decayFrom: null, started, raisedRidge: [], convergedAt: null };
   const guard: TrainingGuard = {
     lossLimit: ((2 * s.valueLimit) / s.output.scale) ** 2, cancel: input.isCancelled, pace: createPacer(PACE_MS),
     checkBackend: () => requireActiveBackend(backend, 'network FQE'),
@@ -131,7 +140,8 @@ async function outerIteration(
     const measured = measure(s, k, state, features, input, rule);
     if ('stop' in measured) return measured.stop;
     report();
-    if (hasConverged(rule, state.history.map((h) => h.remainingBound))) return { kind: 'converged', message: convergedMessage(rule, k) };
+    if (state.convergedAt === null && hasConverged(rule, state.history.map((h) => h.remainingBound))) state.convergedAt = k;
+    if (state.convergedAt !== null && (k >= (input.runTo ?? 0) || k === input.outerIterations)) return { kind: 'converged', message: convergedMessage(rule, state.convergedAt, k) };
     if (k === input.outerIterations) return { kind: 'maxIterations', message: notConvergedMessage(rule, state.history) };
     state.decayFrom ??= decayStart(s.method, rule, k, measured.remainingBound);
     setLearningRate(s, input.learningRate * learningRateFactor(s.method, k, state.decayFrom));
@@ -253,9 +263,10 @@ function diverged(k: number, reason: string): IterationStop {
   return { kind: 'diverged', message: `Stopped at outer iteration ${k}: ${reason}.` };
 }
 
-function convergedMessage(rule: ConvergenceRule, k: number): string {
+function convergedMessage(rule: ConvergenceRule, k: number, last: number): string {
+  const ranOn = last > k ? ` Run on to iteration ${last}, where the fit it is compared with stopped.` : '';
   return `Converged at outer iteration ${k}: between the last two windows of ${rule.window} iterations, J and Q on the probe rows drifted so little ` +
-    `that, for a contraction at γ = ${rule.discount}, at most ${percent(rule.tolerance)} of the value can still be moving.`;
+    `that, for a contraction at γ = ${rule.discount}, at most ${percent(rule.tolerance)} of the value can still be moving.${ranOn}`;
 }
 
 function notConvergedMessage(rule: ConvergenceRule, history: readonly NetworkIterationRecord[]): string {

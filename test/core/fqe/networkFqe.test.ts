@@ -104,6 +104,20 @@ describe('fitNetworkFqe progress and stopping', () => {
     fit.dispose();
   });
 
+  it('run on to a later iteration (runTo): the same iterates up to its own stop, then on to that iteration, still converged', async () => {
+    const own = await fitNetworkFqe(input({ outerIterations: 40, patience: 2, tolerance: 0.5 }));
+    const n = own.history.length, to = n + 3;
+    const ranOn = await fitNetworkFqe(input({ outerIterations: 40, patience: 2, tolerance: 0.5 }, { runTo: to }));
+    const numbers = (h: typeof own.history) => h.map(({ elapsedSeconds: _t, ...record }) => record);
+    expect(numbers(ranOn.history.slice(0, n))).toEqual(numbers(own.history));
+    expect(ranOn.history).toHaveLength(to);
+    expect(ranOn.status).toBe('converged');
+    expect(ranOn.message).toMatch(new RegExp(`^Converged at outer iteration ${n}: .* Run on to iteration ${to}, where the fit it is compared with stopped\\.`));
+    const early = await fitNetworkFqe(input({ outerIterations: 40, patience: 2, tolerance: 0.5 }, { runTo: 1 })); // already past: stops where it would
+    expect(numbers(early.history)).toEqual(numbers(own.history));
+    [own, ranOn, early].forEach((f) => f.dispose());
+  });
+
   it('says "not converged" with how far it got when the iteration limit comes first', async () => {
     const fit = await fitNetworkFqe(input({ outerIterations: 4, patience: 2, tolerance: 1e-9 }));
     expect(fit.status).toBe('maxIterations');

@@ -64,6 +64,36 @@ describe('pairedNetworkDifference', () => {
     expect(driftOfDifference(short, b, rule)).toBeCloseTo(0.01 * 48 + 0.01 * 50, 12);
   });
 
+  describe('with both fits at the same iteration (netdiff38: the fit that stopped first run on to the other\'s stop)', () => {
+    // Closed form: iterates that approach their limits geometrically at the discount, x_k = x* + c·γ^k, the case the
+    // a-posteriori contraction bound (Bertsekas & Tsitsiklis 1996, §2.2) is written for. On window means of W:
+    // x̄_prev − x̄_last = (x̄_last − x*)·(γ^−W − 1), so γ^W/(1 − γ^W)·|x̄_last − x̄_prev| = |x̄_last − x*| exactly.
+    const g = rule.discount, K = 20, W = rule.window;
+    const geometric = (limit: number, c: number) => Array.from({ length: K }, (_, k) => limit + c * g ** k);
+    const lastMean = (c: number) => (c * Array.from({ length: W }, (_, i) => g ** (K - W + i)).reduce((s, x) => s + x, 0)) / W;
+    const aligned = (iterates: number[]) => fit(iterates[K - 1], 0, { iterates });
+
+    it('carries none of a movement both fits share exactly: the bound is the floor, tolerance × |D|', () => {
+      const common = 30; // J of both fits still moving by 30·γ^k, in step
+      const a = aligned(geometric(-48, common)), b = aligned(geometric(-50, common));
+      expect(driftOfDifference(a, b, rule)).toBeCloseTo(rule.tolerance * 2, 12);
+      // The same fits' own bounds (networkConvergence.ts's rule on each J) carry the common movement: 30·x̄_last each.
+      const ownBound = (g ** W / (1 - g ** W)) * Math.abs(lastMean(common) - lastMean(common) / g ** W);
+      expect(ownBound).toBeCloseTo(lastMean(common), 9);
+      expect(ownBound / driftOfDifference(a, b, rule)).toBeGreaterThan(500);
+    });
+
+    it('bounds D\'s own movement by the contraction bound, whatever movement the fits share', () => {
+      const own = 0.6; // D_k = 2 + 0.6·γ^k → 2
+      for (const common of [0, 30]) {
+        const a = aligned(geometric(-48, common + own)), b = aligned(geometric(-50, common));
+        const reported = 2 + own * g ** (K - 1), bound = driftOfDifference(a, b, rule);
+        expect(bound).toBeCloseTo(lastMean(own) + Math.abs(reported - (2 + lastMean(own))), 9);
+        expect(bound).toBeGreaterThanOrEqual(Math.abs(reported - 2)); // holds the limit of D
+      }
+    });
+  });
+
   it('reads the class error on D: a class bias that differs between the fits is allowed for by the rule of classErrorAllowance.ts', () => {
     const b = fit(-50, 0), a = fit(-47, 3, { replicates: base.map((r, i) => r + 3 + own[i]), linearShift: -2 });
     const d = pairedNetworkDifference(a, b, rule)!;
