@@ -9,21 +9,9 @@ import { describe, expect, it } from 'vitest';
 import type { RandomSource } from '../../../src/core/random';
 import { SETPOINT_C, coldStoreDynamics } from './coldStoreRetunedPlant';
 import { NUDGED_SETPOINT_C, OLD_SETPOINT_C, coldStoreSetpointMovedPlant, restTemperature } from './coldStoreSetpointMovedPlant';
+import { loggedLawByRuns } from './loggedLawByRuns';
 
 const quiet: RandomSource = { normal: () => 0, uniform: () => 0.5, integer: () => 0 };
-
-/** Intercept, slope and residual sd of the logged action on T + 20 over the rows of runs [from, to). */
-function fitted(data: ReturnType<ReturnType<typeof coldStoreSetpointMovedPlant>['simulate']>, from: number, to: number) {
-  let n = 0, sx = 0, sy = 0, sxx = 0, sxy = 0, syy = 0;
-  for (let i = 0; i < data.count; i++) {
-    if (data.episode[i] < from || data.episode[i] >= to) continue;
-    const x = data.states[2 * i] - SETPOINT_C, y = data.actions[i];
-    n++; sx += x; sy += y; sxx += x * x; sxy += x * y; syy += y * y;
-  }
-  const cxx = sxx / n - (sx / n) ** 2, cxy = sxy / n - (sx / n) * (sy / n), cyy = syy / n - (sy / n) ** 2;
-  const slope = cxy / cxx;
-  return { slope, intercept: sy / n - slope * (sx / n), residualSd: Math.sqrt(cyy - slope * cxy), meanT: sx / n + SETPOINT_C };
-}
 
 describe('hold-out cold store whose setpoint moved halfway through the log, gains kept', () => {
   it('rests where the heat balance puts each half’s law: −21.929 °C (−22 set), −20.482 °C (−20.5 set), −20 °C today', () => {
@@ -38,7 +26,7 @@ describe('hold-out cold store whose setpoint moved halfway through the log, gain
 
   it('logs one gain and two offsets, as least squares recovers them half by half, and today’s cost on every row', () => {
     const data = coldStoreSetpointMovedPlant().simulate({ transitions: 100_000, seed: 4 }), half = data.episodeCount / 2;
-    const before = fitted(data, 0, half), today = fitted(data, half, data.episodeCount);
+    const before = loggedLawByRuns(data, 0, half, SETPOINT_C), today = loggedLawByRuns(data, half, data.episodeCount, SETPOINT_C);
     // On T + 20: u = 0.5 + 0.3·(T + 22) = 1.1 + 0.3·(T + 20) before the move, 0.5 + 0.3·(T + 20) after (clipping is rare at ±0.3 K).
     expect(Math.abs(before.slope - 0.3)).toBeLessThan(0.01);
     expect(Math.abs(today.slope - 0.3)).toBeLessThan(0.01);
@@ -46,8 +34,8 @@ describe('hold-out cold store whose setpoint moved halfway through the log, gain
     expect(Math.abs(today.intercept - 0.5)).toBeLessThan(0.01);
     expect(Math.abs(before.residualSd - 0.05)).toBeLessThan(0.003);
     // The first half sits near its rest point, ~1.93 K below today's setpoint, and pays today's cost for it.
-    expect(Math.abs(before.meanT - restTemperature(0.5, 0.3, OLD_SETPOINT_C))).toBeLessThan(0.05);
-    expect(Math.abs(today.meanT - SETPOINT_C)).toBeLessThan(0.05);
+    expect(Math.abs(before.meanState - restTemperature(0.5, 0.3, OLD_SETPOINT_C))).toBeLessThan(0.05);
+    expect(Math.abs(today.meanState - SETPOINT_C)).toBeLessThan(0.05);
     for (const i of [0, data.count - 1]) {
       const t = data.states[2 * i], u = data.actions[i], next = new Float64Array(2);
       const cost = coldStoreDynamics.step(Float64Array.of(t, data.states[2 * i + 1]), Float64Array.of(u), quiet, next);
