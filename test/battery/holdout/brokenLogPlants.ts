@@ -6,6 +6,7 @@
 import { aerationNoisyProbePlant } from './aerationNoisyProbePlant';
 import type { BrokenLogPlant } from './brokenLog';
 import { coldStoreRetunedPlant } from './coldStoreRetunedPlant';
+import { NUDGED_SETPOINT_C, coldStoreSetpointMovedPlant } from './coldStoreSetpointMovedPlant';
 import { dosingPumpWearPlant } from './dosingPumpWearPlant';
 
 export function brokenLogPlants(): BrokenLogPlant[] {
@@ -15,4 +16,9 @@ export function brokenLogPlants(): BrokenLogPlant[] {
 /** Their controls: each plant with the assumption kept (no reading noise; the end-of-log pump throughout; one tuning). */
 export function keptAssumptionPlants(): BrokenLogPlant[] {
   return [aerationNoisyProbePlant(true), dosingPumpWearPlant(true), coldStoreRetunedPlant(true)];
+}
+
+/** probe38: the present controller's setpoint moved halfway by 2 K and by 0.5 K, gains kept (their control: keptAssumptionPlants' one-tuning cold store). */
+export function movedSetpointPlants(): BrokenLogPlant[] {
+  return [coldStoreSetpointMovedPlant(), coldStoreSetpointMovedPlant(NUDGED_SETPOINT_C)];
 }

@@ -10,22 +10,10 @@ import { describe, expect, it } from 'vitest';
 import { feedbackCostToGo } from '../../../src/core/lq';
 import type { RandomSource } from '../../../src/core/random';
 import { SETPOINT_C, coldStoreDynamics, coldStoreRetunedPlant } from './coldStoreRetunedPlant';
+import { loggedLawByRuns } from './loggedLawByRuns';
 import { smallAmplitudeQuadraticValue } from './smallAmplitude';
 
 const quiet: RandomSource = { normal: () => 0, uniform: () => 0.5, integer: () => 0 };
-
-/** Slope and residual sd of the logged action on T + 20 over the rows of runs [from, to). */
-function fitted(data: ReturnType<ReturnType<typeof coldStoreRetunedPlant>['simulate']>, from: number, to: number) {
-  let n = 0, sx = 0, sy = 0, sxx = 0, sxy = 0, syy = 0;
-  for (let i = 0; i < data.count; i++) {
-    if (data.episode[i] < from || data.episode[i] >= to) continue;
-    const x = data.states[2 * i] - SETPOINT_C, y = data.actions[i];
-    n++; sx += x; sy += y; sxx += x * x; sxy += x * y; syy += y * y;
-  }
-  const cxx = sxx / n - (sx / n) ** 2, cxy = sxy / n - (sx / n) * (sy / n), cyy = syy / n - (sy / n) ** 2;
-  const slope = cxy / cxx;
-  return { slope, residualSd: Math.sqrt(cyy - slope * cxy) };
-}
 
 describe('hold-out cold store whose temperature loop was retuned halfway through the log', () => {
   it('rests at −20 °C with the compressor at half and the nominal load, paying only for the compressor', () => {
@@ -38,7 +26,7 @@ describe('hold-out cold store whose temperature loop was retuned halfway through
 
   it('logs the old tuning on the first half of the runs and the retune on the second, as least squares recovers them', () => {
     const data = coldStoreRetunedPlant().simulate({ transitions: 100_000, seed: 4 }), half = data.episodeCount / 2;
-    const old = fitted(data, 0, half), today = fitted(data, half, data.episodeCount);
+    const old = loggedLawByRuns(data, 0, half, SETPOINT_C), today = loggedLawByRuns(data, half, data.episodeCount, SETPOINT_C);
     expect(Math.abs(old.slope - 0.12)).toBeLessThan(0.01);
     expect(Math.abs(today.slope - 0.3)).toBeLessThan(0.01);
     expect(Math.abs(old.residualSd - 0.08)).toBeLessThan(0.004);
