@@ -82,8 +82,8 @@ export const excludedTimeSchema = strictObject({
 });
 
 /** A run label as the run column's cells read (trimmed, as the import reads them; src/core/runLabelText.ts). */
-const runLabel = z.string({ error: (issue) => `expected a run label${issue.input === undefined ? '' : ' in quotes'}, as the run column's cells read, e.g. "40"` }).trim()
-  .min(1, 'expected a run label, as the run column\'s cells read, e.g. "40"')
+const runLabel = z.string({ error: (issue) => `expected a run label${issue.input === undefined ? '' : ' in quotes'}, as the run column’s cells read, e.g. "40"` }).trim()
+  .min(1, 'expected a run label, as the run column’s cells read, e.g. "40"')
   .max(MAX_RUN_LABEL_LENGTH, `expected a run label of at most ${MAX_RUN_LABEL_LENGTH} characters`);
 
 /**
