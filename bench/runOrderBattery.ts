@@ -16,7 +16,7 @@ import { dirname, join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { batteryPlants } from '../test/battery/catalogue';
 import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
-import { brokenLogPlants, keptAssumptionPlants } from '../test/battery/holdout/brokenLogPlants';
+import { brokenLogPlants, keptAssumptionPlants, movedSetpointPlants } from '../test/battery/holdout/brokenLogPlants';
 import { runOrderTrends, type RunOrderData, type RunOrderResult } from '../src/core/diagnostics/runOrder';
 import { changedTrends, runOrderSeverity, shownTrends } from '../src/core/diagnostics/runOrderFinding';
 import { RUN_ORDER_MIN_RUNS } from '../src/core/limits';
@@ -25,7 +25,7 @@ import { openProject } from '../src/pipeline/openProject';
 import { startRun } from '../src/pipeline/projectRun';
 
 const ALPHAS = [1e-2, 1e-3, 1e-4, 1e-5];
-const CHANGED = new Set(['holdout-dosing-pump-wear-g0.96', 'holdout-cold-store-retuned-g0.97']);
+const CHANGED = new Set(['holdout-dosing-pump-wear-g0.96', 'holdout-cold-store-retuned-g0.97', ...movedSetpointPlants().map((p) => p.name)]);
 
 function option(name: string, fallback: string): string {
   const at = process.argv.indexOf(`--${name}`);
@@ -67,7 +67,7 @@ async function sampleData(sample: string): Promise<{ data: RunOrderData; dispose
 async function main(): Promise<void> {
   const seeds = option('seeds', '1,2,3,4,5').split(',').map(Number), transitions = Number(option('transitions', '100000'));
   const only = option('plants', '').split(',').filter(Boolean);
-  const plants = [...batteryPlants(), ...holdoutPlants(), ...brokenLogPlants(), ...keptAssumptionPlants().map((p) => ({ ...p, name: `${p.name} (control)` }))]
+  const plants = [...batteryPlants(), ...holdoutPlants(), ...brokenLogPlants(), ...movedSetpointPlants(), ...keptAssumptionPlants().map((p) => ({ ...p, name: `${p.name} (control)` }))]
     .filter((p) => only.length === 0 || only.some((o) => p.name.includes(o)));
   console.log(`# ${transitions} transitions, seeds ${seeds.join(',')}; K·p smallest over law | model slopes | model intercepts; finding at α = ${ALPHAS.map((a) => a.toExponential(0)).join(', ')}`);
   console.log('log | seed | runs (skipped law/model) | law K·p | model slope K·p | model offset K·p | ' + ALPHAS.map((a) => `α ${a.toExponential(0)}`).join(' | '));

@@ -33,9 +33,16 @@ export function changedTrends(result: RunOrderResult, alpha = RUN_ORDER_ALPHA): 
   return result.trends.filter((t) => t.p * k <= alpha);
 }
 
-/** A changed coefficient's weight: serious for a gain or a plant response, a caution for an offset (the law's or the plant model's). */
+/**
+ * A changed coefficient's weight: serious for a gain or a plant response, and for the present controller's
+ * output level when it moved in one step (a setpoint moved, a bias changed: the baseline fitted to all logged
+ * actions is then a law that never ran — found on a cold store whose setpoint moved halfway, where a trial was
+ * named wrong; /work/notes/offset38-rule.md); a caution for the law's offset that drifts (an integral taking up
+ * a drifting load, a season) and for the plant model's offset either way.
+ */
 export function trendSeverity(t: CoefficientTrend): RunOrderSeverity {
-  return t.input < 0 ? 'caution' : 'serious';
+  if (t.input >= 0) return 'serious';
+  return t.block === 'law' && t.change?.kind === 'step' ? 'serious' : 'caution';
 }
 
 export function runOrderSeverity(result: RunOrderResult, alpha = RUN_ORDER_ALPHA): RunOrderSeverity | null {
@@ -61,7 +68,7 @@ export function runOrderRuleText(): string {
     'each coefficient’s trend over the runs is Spearman’s rank correlation with run order (z = ρ√(n − 1), normal approximation), ' +
     `and a coefficient changed when its two-sided p times the number of coefficients tested is at most ${RUN_ORDER_ALPHA} (Bonferroni). ` +
     'A change in a gain of the law (the present controller was retuned) or in the plant’s response to a state or an action (the plant drifted) is serious, and then no candidate is named for a trial; ' +
-    'a change in an offset alone (the law’s output level, which an integral taking up a drifting load also moves, or the plant model’s) is a caution. ' +
+    'a change in the law’s output level alone is serious when it moved in one step (a setpoint moved: the baseline is then an average of two operating points) and a caution when it drifts (an integral taking up a drifting load also moves it), and a change in the plant model’s offset alone is a caution. ' +
     'Where the change lies: on the ranks of the changed coefficient the finding leads with, the single step fitting best by least squares over the split points (Hinkley 1970) against a straight line in run order — a step where it leaves the smaller residual sum of squares (evaluate the runs since it), else a steady drift (only the latest runs describe the plant now).';
 }
 
@@ -84,13 +91,16 @@ export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): {
   if (serious.length === 0) {
     return {
       severity: 'caution', topic: 'runOrder',
-      message: opening + 'Only an offset moved — the present controller’s output level (an integral taking up a drifting load, a setpoint change, or a retune) or the plant model’s (a slow disturbance that the logged states do not carry). The estimates assume one plant under one controller throughout; look at what changed, and if the plant or the controller itself changed, evaluate the runs since the change: exclude the earlier rows.' +
+      message: opening + 'Only an offset moved — the present controller’s output level, drifting rather than in one step (as an integral taking up a drifting load moves it), or the plant model’s (a disturbance that the logged states do not carry). The estimates assume one plant under one controller throughout; look at what changed, and if the plant or the controller itself changed, evaluate the runs since the change: exclude the earlier rows.' +
         // An offset that stepped (a setpoint change, a retune of the output level) has runs since it; one that drifts is a slow disturbance, and cutting the log to its latest runs would only find it drifting there too.
         (advice && shown[0].change?.kind === 'step' ? ` ${advice}` : ''),
     };
   }
+  const lawGain = serious.some((t) => t.block === 'law' && t.input >= 0);
   const why = [
-    law ? 'a gain of the present controller’s law changed (it was retuned?), so the baseline fitted to all logged actions is an average of tunings, not the controller in service now' : '',
+    law ? (lawGain
+      ? 'a gain of the present controller’s law changed (it was retuned?), so the baseline fitted to all logged actions is an average of tunings, not the controller in service now'
+      : 'the present controller’s output level moved in one step (its setpoint or bias changed?), so the baseline fitted to all logged actions mixes two operating points and is a law that never ran, not the controller in service now') : '',
     plant ? 'the plant’s response changed (wear, fouling, a replaced part?), so every estimate here, the cross-checks included, describes the log’s average plant, not today’s' : '',
   ].filter(Boolean).join('; and ');
   return {

@@ -45,15 +45,18 @@ describe('Spearman’s rank correlation', () => {
   });
 });
 
-/** A first-order plant x' = a·x + b·u + w under u = −k·x + dither, runs of `steps` rows; `change(r)` sets (k, b) of run r. */
-function loggedRuns(runs: number, steps: number, seed: number, change: (r: number) => { k: number; b: number }, dither = 0.1): RunOrderData {
+/**
+ * A first-order plant x' = a·x + b·u + load + w under u = offset − k·x + dither, runs of `steps` rows; `change(r)`
+ * sets (k, b) of run r, and optionally the law's offset and an unlogged load.
+ */
+function loggedRuns(runs: number, steps: number, seed: number, change: (r: number) => { k: number; b: number; offset?: number; load?: number }, dither = 0.1): RunOrderData {
   const random = createRandom(seed), n = runs * steps;
   const states = new Float64Array(n), actions = new Float64Array(n), nextStates = new Float64Array(n), episode = new Int32Array(n);
   for (let r = 0, i = 0; r < runs; r++) {
-    const { k, b } = change(r);
+    const { k, b, offset = 0, load = 0 } = change(r);
     let x = random.normal();
     for (let t = 0; t < steps; t++, i++) {
-      const u = -k * x + dither * random.normal(), next = 0.8 * x + b * u + 0.1 * random.normal();
+      const u = offset - k * x + dither * random.normal(), next = 0.8 * x + b * u + load + 0.1 * random.normal();
       states[i] = x; actions[i] = u; nextStates[i] = next; episode[i] = r;
       x = next;
     }
@@ -87,6 +90,21 @@ describe('the run-order check', () => {
     const finding = runOrderFinding(result, names);
     expect(finding?.severity).toBe('serious');
     expect(finding?.message).toContain('the plant’s response of next level to valve');
+  });
+
+  // offset38 (/work/notes/offset38-rule.md): the law's output level alone — serious when it stepped (a setpoint
+  // moved: u = −k(x − x_sp) has offset k·x_sp), a caution when it drifts (an integral taking up a load that grows
+  // steadily: offset −load/b, the load also in the plant, so the plant model's offset drifts with it).
+  it('calls the law’s output level that moved in one step serious (a setpoint moved), and one that drifts with a growing load a caution', () => {
+    const stepped = runOrderTrends(loggedRuns(200, 100, 7, (r) => ({ k: 0.4, b: 0.5, offset: 0.4 * (r < 100 ? 0 : 0.5) })), 10);
+    const moved = runOrderFinding(stepped, names);
+    expect(moved?.severity).toBe('serious');
+    expect(moved?.message).toContain('output level moved in one step');
+    expect(moved?.message).toContain('No candidate is named for a trial');
+    const drifting = runOrderTrends(loggedRuns(200, 100, 8, (r) => { const load = 0.2 * (r / 200); return { k: 0.4, b: 0.5, offset: -load / 0.5, load }; }), 10);
+    const taken = runOrderFinding(drifting, names);
+    expect(taken?.severity).toBe('caution');
+    expect(taken?.message).toContain('Only an offset moved');
   });
 
   it('skips and counts runs without dither for the plant model, and says why it cannot read too few runs', () => {

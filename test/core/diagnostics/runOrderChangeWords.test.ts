@@ -33,14 +33,21 @@ describe('run-order change advice', () => {
   });
 });
 
-describe('an offset alone (a caution)', () => {
-  const offset = (change: CoefficientTrend['change']) => ({
-    runs: 12, lawSkipped: 0, modelSkipped: 0, firstRows: [], trends: [{ ...trend(change), input: -1, p: 1e-9 }],
+describe('an offset alone', () => {
+  const offset = (change: CoefficientTrend['change'], block: CoefficientTrend['block'] = 'law') => ({
+    runs: 12, lawSkipped: 0, modelSkipped: 0, firstRows: [], trends: [{ ...trend(change), block, input: -1, p: 1e-9 }],
   });
   const names = { stateNames: ['level'], actionNames: ['valve'], runName: (p: number) => ({ label: `R${p}`, line: 2 + 10 * p }) };
 
-  it('that stepped (a setpoint change?) is located, with the runs since it', () => {
+  it('the law’s, in one step (a setpoint moved?): serious, located, with the runs since it (offset38)', () => {
     const finding = runOrderFinding(offset({ kind: 'step', run: 5 }), names);
+    expect(finding?.severity).toBe('serious');
+    expect(finding?.message).toContain('output level moved in one step');
+    expect(finding?.message).toContain('changed around run "R5" (the 6th of 12 in the data)');
+  });
+
+  it('the plant model’s, in one step (a disturbance’s level?): a caution, located, with the runs since it', () => {
+    const finding = runOrderFinding(offset({ kind: 'step', run: 5 }, 'model'), names);
     expect(finding?.severity).toBe('caution');
     expect(finding?.message).toContain('changed around run "R5" (the 6th of 12 in the data)');
   });
