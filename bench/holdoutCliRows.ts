@@ -12,6 +12,9 @@
  * (bench/keptRuns.ts: after a step the runs since it, after a drift the latest third), and the truth is
  * rolled out from the kept runs' starts; a `# kept runs:` line says where the cut fell. --drift-share keeps
  * another latest share after a drift (the words' DRIFT_RECENT_SHARE by default), to see the trade-off.
+ * --cut-by excludedRuns (with --keep-runs change): the whole log's CSV is written and the runs before the cut
+ * are left out by the project's data.csv.excludedRuns instead, as a user would, so the run-order check also
+ * reads the whole log (core/diagnostics/runsLeftOutReading.ts); the default, --cut-by csv, writes the cut CSV.
  *
  * A row is "confident and wrong" when no finding about it is serious, its verdict is settled (or
  * only one class was fitted) and its range to report misses the truth by more than 2 of the truth's
@@ -80,13 +83,13 @@ function csvOf(plant: BatteryPlant, data: ReturnType<BatteryPlant['simulate']>):
   return `${lines.join('\n')}\n`;
 }
 
-function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed: number, ends: boolean): object {
+function projectOf(plant: BatteryPlant, csv: string, approximator: string, seed: number, ends: boolean, excludedRuns: { from: string; to: string; reason: string }[] = []): object {
   const candidates = plant.candidates.map((c) => {
     const spec = c.spec as { offset: number[]; gain: number[][]; std: number[]; bounds?: { lo: number[]; hi: number[]; mode: string } };
     return { name: c.name, offset: [...spec.offset], gain: spec.gain.map((r) => [...r]), std: [...spec.std], ...(spec.bounds ? { bounds: spec.bounds } : {}) };
   });
   return {
-    format: 'setpoint-critic-project', version: 1, name: `${plant.name} seed ${seed}`, data: { path: csv },
+    format: 'setpoint-critic-project', version: 1, name: `${plant.name} seed ${seed}`, data: { path: csv, ...(excludedRuns.length ? { csv: { delimiter: 'auto', decimalMark: 'auto', badRows: 'stop', excludedRuns } } : {}) },
     columns: {
       states: plant.stateNames.map((column) => ({ column })), actions: plant.actionNames.map((column) => ({ column })),
       reward: { kind: 'column', column: 'r', sense: 'reward' },
@@ -128,7 +131,8 @@ async function main() {
   const seeds = option(args, 'seeds', '1,2,3,4,5').split(',').map(Number);
   const transitions = Number(option(args, 'transitions', '100000')), approximator = option(args, 'approximator', 'linear');
   const resamples = option(args, 'resamples', ''), out = option(args, 'out', ''), keepRuns = option(args, 'keep-runs', 'all');
-  const driftShare = Number(option(args, 'drift-share', String(DRIFT_RECENT_SHARE)));
+  const driftShare = Number(option(args, 'drift-share', String(DRIFT_RECENT_SHARE))), cutBy = option(args, 'cut-by', 'csv');
+  if (cutBy !== 'csv' && cutBy !== 'excludedRuns') throw new Error(`holdoutCliRows: --cut-by is csv or excludedRuns, not ${cutBy}`);
   const work = join(tmpdir(), `holdout-cli-${process.pid}`);
   mkdirSync(work, { recursive: true });
   const rows: object[] = [], baseline: object[] = [];
@@ -136,11 +140,13 @@ async function main() {
   console.log(['plant', 'approx', 'seed', 'candidate', 'truth', 'truthSE', 'J', 'err%', 'interval', 'range', 'holds', 'miss/SE', 'settled', 'status', 'most severe', 'exit', 'class', 'seconds'].join('\t'));
   for (const plant of plants) for (const seed of seeds) {
     const whole = plant.simulate({ transitions, seed }), cut = keepRuns === 'change' ? keptRunsAfterChange(whole, driftShare) : null, data = cut?.data ?? whole;
-    const csv = `${plant.name}-s${seed}${cut ? '-kept' : ''}.csv`;
-    if (cut) console.log(`#\tkept runs: ${cut.from}–${cut.runs - 1} of ${cut.runs} (${cut.why}); ${data.count} transitions`);
-    writeFileSync(join(work, csv), csvOf(plant, data));
+    // By excludedRuns: the whole log is written (runs labelled by their position, csvOf) and the project leaves out runs 0 to cut.from − 1.
+    const byLabel = cut !== null && cutBy === 'excludedRuns', excludedRuns = byLabel && cut.from > 0 ? [{ from: '0', to: String(cut.from - 1), reason: cut.why }] : [];
+    const csv = `${plant.name}-s${seed}${cut && !byLabel ? '-kept' : ''}.csv`;
+    if (cut) console.log(`#\tkept runs: ${cut.from}–${cut.runs - 1} of ${cut.runs} (${cut.why}); ${data.count} transitions${byLabel ? '; left out by data.csv.excludedRuns' : ''}`);
+    writeFileSync(join(work, csv), csvOf(plant, byLabel ? whole : data));
     const projectPath = join(work, `${plant.name}-s${seed}-${approximator}.spcritic`);
-    writeFileSync(projectPath, JSON.stringify(projectOf(plant, csv, approximator, seed, data.terminal.some((t) => t !== 0)), null, 2));
+    writeFileSync(projectPath, JSON.stringify(projectOf(plant, csv, approximator, seed, data.terminal.some((t) => t !== 0), excludedRuns), null, 2));
     const cli = cliCommand('evaluate', projectPath, '--json', ...(resamples ? ['--resamples', resamples] : []));
     const started = Date.now();
     const run = spawnSync(process.execPath, cli.args, { encoding: 'utf8', maxBuffer: 1 << 30 });
@@ -178,7 +184,7 @@ async function main() {
         classPairs: c.functionClasses?.pairs ?? null, crossChecks: c.crossChecks.map((x: { label: string; agreement: string; estimate: { value: number } | null }) => ({ label: x.label, agreement: x.agreement, value: x.estimate?.value ?? null })) });
     }
     const present = json.assessment.presentController;
-    if (json.assessment.runOrder) console.log(`#\trun order: ${JSON.stringify({ changed: json.assessment.runOrder.changed?.length ?? null, change: json.assessment.runOrder.change ?? null, reason: json.assessment.runOrder.reason ?? null })}`);
+    if (json.assessment.runOrder) console.log(`#\trun order: ${JSON.stringify({ changed: json.assessment.runOrder.changed?.length ?? null, change: json.assessment.runOrder.change ?? null, reason: json.assessment.runOrder.reason ?? null, wholeLog: json.assessment.runOrder.wholeLog?.reading ?? null })}`);
     if (present) console.log(`#\tpresent controller J ${present.policyValue.value.toFixed(4)} interval ${JSON.stringify(present.policyValue.basic)}; global warnings: ${json.assessment.warnings.map((w: Warning) => `${w.severity}:${w.topic}`).join('; ')}`);
     // The baseline every difference is taken against: the present controller's J (fitted to the logged actions)
     // beside the truth of the plant's logging policy (plant.behaviour, with its limits), rolled out from the same

@@ -7,7 +7,12 @@
  * has one, the shape of the change it leads with (core/diagnostics/changeShape.ts: step at a run position,
  * or drift) and the shapes of every changed coefficient (l: law, m: plant model; -1 the intercept).
  *
- *   nice -n 10 npx tsx bench/runOrderBattery.ts [--seeds 1,2,3,4,5] [--transitions 100000] [--plants a,b]
+ *   nice -n 10 npx tsx bench/runOrderBattery.ts [--seeds 1,2,3,4,5] [--transitions 100000] [--plants a,b] [--left-out-first 0.333]
+ *
+ * --left-out-first f: each log's earliest share f of runs is left out as data.csv.excludedRuns leaves them
+ * (the runs kept cut by episodeTransitions, the whole log beside them, core/transitions.ts WholeLog), and the
+ * pipeline's check (pipeline/runOrderCheck.ts) reads both: the columns are then the reading of the whole log
+ * (core/diagnostics/runsLeftOutReading.ts) and the severity given at RUN_ORDER_ALPHA (memory38's rule).
  *
  * The rule these columns are read by: test/battery/README.md, "Run order".
  */
@@ -19,7 +24,10 @@ import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
 import { brokenLogPlants, keptAssumptionPlants, movedSetpointPlants } from '../test/battery/holdout/brokenLogPlants';
 import { runOrderTrends, type RunOrderData, type RunOrderResult } from '../src/core/diagnostics/runOrder';
 import { changedTrends, runOrderSeverity, shownTrends } from '../src/core/diagnostics/runOrderFinding';
-import { RUN_ORDER_MIN_RUNS } from '../src/core/limits';
+import { RUN_ORDER_ALPHA, RUN_ORDER_MIN_RUNS } from '../src/core/limits';
+import { episodeTransitions, indexEpisodes } from '../src/core/bootstrap/episodeTransitions';
+import type { TransitionSet } from '../src/core/transitions';
+import { runOrderAssessment } from '../src/pipeline/runOrderCheck';
 import { loggedActionLimits } from '../src/core/loggedActionLimits';
 import { openProject } from '../src/pipeline/openProject';
 import { startRun } from '../src/pipeline/projectRun';
@@ -55,7 +63,18 @@ function shapes(result: RunOrderResult): string {
   return shown.length ? `${text(shown[0])} [${changed.map((t) => `${t.block[0]}${t.output}.${t.input} ${text(t)}`).join(', ')}]` : '·';
 }
 
-async function sampleData(sample: string): Promise<{ data: RunOrderData; dispose: () => void }> {
+/** The check with the earliest `share` of runs left out: the whole log's reading and the finding's severity. */
+function leftOutRow(name: string, seed: number | string, data: TransitionSet, share: number): { serious: boolean[]; caution: boolean[] } {
+  const from = Math.round(data.episodeCount * share), runs = Int32Array.from({ length: data.episodeCount - from }, (_, k) => from + k);
+  const kept = episodeTransitions(data, indexEpisodes(data), runs);
+  const keptRuns = Uint8Array.from({ length: data.episodeCount }, (_, e) => (e >= from ? 1 : 0));
+  const { summary, warnings } = runOrderAssessment({ ...kept, wholeLog: { transitions: data, keptRuns } }, loggedActionLimits(kept.actions, kept.count, kept.actionDim));
+  const severity = warnings[0]?.severity ?? null;
+  console.log([name, seed, `${data.episodeCount} runs, first ${from} left out`, summary.wholeLog?.reading ?? '?', severity ?? '·'].join(' | '));
+  return { serious: ALPHAS.map(() => severity === 'serious'), caution: ALPHAS.map(() => severity === 'caution') };
+}
+
+async function sampleData(sample: string): Promise<{ data: TransitionSet; dispose: () => void }> {
   const folder = join(dirname(fileURLToPath(import.meta.url)), '..', 'sample-projects', sample);
   const opened = await openProject(await readFile(join(folder, `${sample}.spcritic`), 'utf8'), `${sample}.spcritic`, async (p: string) => new Uint8Array(await readFile(join(folder, p))));
   if (!opened.ok) throw new Error(`${sample}: ${opened.problems.map((p) => p.message).join('; ')}`);
@@ -82,11 +101,14 @@ async function main(): Promise<void> {
       if (!isChanged && r.caution[k]) stationaryCautions[k]++;
     });
   };
-  for (const plant of plants) for (const seed of seeds) tally(plant.name, row(plant.name, seed, plant.simulate({ transitions, seed })));
+  const share = Number(option('left-out-first', '0'));
+  const check = (name: string, seed: number | string, data: TransitionSet) => (share > 0 ? leftOutRow(name, seed, data, share) : row(name, seed, data));
+  if (share > 0) console.log(`# the earliest ${share} of each log's runs left out; columns: log | seed | runs | whole-log reading | finding at α ${RUN_ORDER_ALPHA} (every α column of the tally is this one)`);
+  for (const plant of plants) for (const seed of seeds) tally(plant.name, check(plant.name, seed, plant.simulate({ transitions, seed })));
   if (only.length === 0) {
     for (const sample of ['heating-loop', 'heating-historian', 'tank-levels']) {
       const s = await sampleData(sample);
-      try { tally(sample, row(`sample ${sample}`, '—', s.data)); } finally { s.dispose(); }
+      try { tally(sample, check(`sample ${sample}`, '—', s.data)); } finally { s.dispose(); }
     }
   }
   console.log(`# stationary logs ${stationary}, changed logs ${changed}`);

@@ -214,9 +214,10 @@ export const PIVOT_FLOOR = 1e-10;
 export const RUN_ORDER_ALPHA = 1e-3;
 export const RUN_ORDER_MIN_RUNS = 10;
 /**
- * Where a changed coefficient drifted steadily (diagnostics/changeShape.ts), the share of the latest runs the
- * words suggest evaluating alone (runOrderChangeWords.ts): a starting point stated with its cost, not chosen
- * on data (ours; what it gives on the wearing pump: test/battery/README.md, "Where the log changed").
+ * Where a changed coefficient drifted steadily (diagnostics/changeShape.ts), the share of the latest runs that
+ * bench/keptRuns.ts keeps to show what evaluating them alone gives. The words suggested it until memory38; they
+ * no longer do (runOrderChangeWords.ts: it narrows the gap, it does not close it). Ours, not chosen on data;
+ * what it gives on the wearing pump: test/battery/README.md, "Where the log changed".
  */
 export const DRIFT_RECENT_SHARE = 1 / 3;
 /** Largest monomial count of the plant-memory check's base regression (pipeline/plantMemoryCheck.ts memoryBaseDegree; ours, the rollout model's own cap). */

@@ -40,6 +40,20 @@ export interface TransitionSet {
    * definition, in reward sense; either end may be infinite. Absent when nothing is known beyond the logs.
    */
   readonly rewardBounds?: RewardBounds;
+  /**
+   * The whole log, the runs left out by label included (data.csv.excludedRuns), for the run-order check
+   * only (pipeline/runOrderCheck.ts): the runs kept cannot tell alone that they were cut from a log that
+   * changed. Absent when no run is left out.
+   */
+  readonly wholeLog?: WholeLog;
+}
+
+/** Every run of the log in data order, kept or left out, and which are kept. */
+export interface WholeLog {
+  /** The same rows, problems and time windows as the import's, only the runs left out not applied. */
+  readonly transitions: TransitionSet;
+  /** Per episode of `transitions`: 1 where the run is among those evaluated, 0 where the project leaves it out. */
+  readonly keptRuns: Uint8Array; // episodes of transitions
 }
 
 /**

@@ -10,7 +10,7 @@
 import { previousSteps, type ColumnRoles, type CsvSettings } from '../project/schema';
 import { failure, success, type Result } from '../core/result';
 import { importProblem, type ImportProblem } from './importProblem';
-import type { TransitionSet } from '../core/transitions';
+import type { TransitionSet, WholeLog } from '../core/transitions';
 import type { TextEncodingName } from './sourceText';
 import type { Dialect } from './csvDialect';
 import { timestampColumnOf, type ColumnPlan } from './columnPlan';
@@ -90,12 +90,21 @@ export function* importDatasetSteps(source: ImportSource, fileName: string, csv:
   // A row of a run left out is counted by its range only (the whole run goes), not by a window it also lies in.
   const inRunRange = recordsInRunRanges(runs.ranges, runLabels, table.recordCount);
   const inWindow = recordsInWindows(read.windows, timestamps?.seconds, table.recordCount);
+  // Before the runs left out forget their rows' problems and windows: the whole log (for the run-order check) still drops those rows.
+  const wholeLog = runs.ranges.length > 0 ? wholeLogRecords(inRunRange, inWindow, problems) : undefined;
   inRunRange.forEach((k, r) => { if (k > 0) inWindow[r] = 0; });
   inWindow.forEach((w, r) => { if (w > 0) problems.forget(r); });
   inRunRange.forEach((k, r) => { if (k > 0) problems.forget(r); });
   if (problems.count > 0 && csv.badRows === 'stop') return failure(...rowProblemList(problems, fileName, lineOf), badRowsHint(problems.badRecords().length, fileName));
   yield;
-  return yield* assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding, clock, windows: read.windows, inWindow, runRanges: runs.ranges, inRunRange });
+  return yield* assemble({ fileName, columns, dialect, plan, table, problems, rewards, timestamps, encoding, clock, windows: read.windows, inWindow, runRanges: runs.ranges, inRunRange, wholeLog });
+}
+
+/** What the whole log drops that the runs left out forget: a record of such a run with a problem, and the window each record lies in. */
+function wholeLogRecords(inRunRange: Uint16Array, inWindow: Uint16Array, problems: RowProblems): WholeLogRecords {
+  const dropped = new Uint8Array(inRunRange.length);
+  inRunRange.forEach((k, r) => { if (k > 0 && (inWindow[r] > 0 || problems.isBad(r))) dropped[r] = 1; });
+  return { dropped, inWindow: inWindow.slice() };
 }
 
 function runLabelsOf(columns: ColumnRoles, table: TableColumns): readonly string[] {
@@ -123,6 +132,13 @@ interface Stages {
   inWindow: Uint16Array; // records: 1 + the window holding the record, or 0
   runRanges: RunRange[];
   inRunRange: Uint16Array; // records: 1 + the range of runs left out holding the record's run, or 0
+  /** Present only when runs are left out: what the whole log, built for the run-order check, leaves out of those runs. */
+  wholeLog?: WholeLogRecords;
+}
+
+interface WholeLogRecords {
+  dropped: Uint8Array; // records: 1 where a row of a run left out has a problem or lies in a time window
+  inWindow: Uint16Array; // records: as Stages.inWindow before the runs left out took their rows from the windows
 }
 
 function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
@@ -135,29 +151,12 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     const why = s.windows.length + s.runRanges.length === 0 ? 'every data row has a problem' : 'every data row has a problem or lies in a time window or run left out';
     return failure(...rowProblemList(s.problems, fileName, lineOf), importProblem('no-usable-rows', fileName, `${why}, so no row is left to import`));
   }
-  const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
   // Found once for the run rule and the summary (each finding is a pass over the records).
   const periodSeconds = s.timestamps ? medianStepSeconds(s.timestamps.seconds, kept) : NaN;
-  const episodeInputs = {
-    kept, terminal, lineOf, inWindow: s.inWindow, inRunRange: s.inRunRange, medianStepSeconds: periodSeconds,
-    labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
-    timestampsSeconds: s.timestamps?.seconds,
-    isBlankLine: (r: number) => s.problems.firstProblem(r)?.problem.kind === 'blank-line',
-  };
-  const derived = derivedStates(s, episodeInputs, assignEpisodes(columns.episode, episodeInputs));
+  const { derived, episodeInputs, transitions, report } = transitionsOf(s, { kept, inWindow: s.inWindow, inRunRange: s.inRunRange }, periodSeconds);
   yield;
   const { episodes, derivedValues } = derived;
   const usedRows = derived.kept;
-  const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
-  const { transitions, report } = buildTransitions({
-    kept: usedRows, supplyOnlyRows: derived.supplyOnlyRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards.values, rewardSign: s.rewards.sign, terminal, lineOf,
-    states: columns.states.map((c) => number(c.column)),
-    actions: columns.actions.map((c) => number(c.column)),
-    nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
-    stateNames: columns.states.map((c) => c.column),
-    actionNames: columns.actions.map((c) => c.column),
-    labels: episodeInputs.labels,
-  });
   if (transitions.count === 0) {
     return failure(importProblem('no-transitions', fileName, 'no transitions could be formed: every run has a single usable row; expected consecutive rows of the same run (or next-state columns)'));
   }
@@ -175,7 +174,47 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   ];
   const trend = trendOfImport(columns, table.numbers, s.rewards.values, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
   const rewardBounds = certainRewardBounds(columns.reward, s.plan.rewardExpression);
-  return success({ transitions: rewardBounds ? { ...transitions, rewardBounds } : transitions, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, runsLeftOut, runLabels: runLabelsOf(columns, table), ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
+  const wholeLog = s.wholeLog && wholeLogOf(s, kept, s.wholeLog, periodSeconds);
+  yield;
+  return success({ transitions: { ...transitions, ...(rewardBounds ? { rewardBounds } : {}), ...(wholeLog ? { wholeLog } : {}) }, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, runsLeftOut, runLabels: runLabelsOf(columns, table), ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
+}
+
+/** Episodes, derived states and transitions over the rows `rows.kept` (the import's, or the whole log's). */
+function transitionsOf(s: Stages, rows: Pick<EpisodeInputs, 'kept' | 'inWindow' | 'inRunRange'>, periodSeconds: number) {
+  const { columns, table } = s;
+  const terminal = columns.terminal === undefined ? undefined : table.flags.get(columns.terminal);
+  const episodeInputs = {
+    ...rows, terminal, lineOf, medianStepSeconds: periodSeconds,
+    labels: columns.episode.kind === 'column' ? table.labels.get(columns.episode.column) : undefined,
+    timestampsSeconds: s.timestamps?.seconds,
+    isBlankLine: (r: number) => s.problems.firstProblem(r)?.problem.kind === 'blank-line',
+  };
+  const derived = derivedStates(s, episodeInputs, assignEpisodes(columns.episode, episodeInputs));
+  const { episodes, derivedValues } = derived;
+  const number = (name: string): Float64Array => table.numbers.get(name) ?? derivedValues.get(name)!;
+  const { transitions, report } = buildTransitions({
+    kept: derived.kept, supplyOnlyRows: derived.supplyOnlyRows, episodeOf: episodes.episodeOf, episodeCount: episodes.episodeCount, hasStart: episodes.hasStart, rewards: s.rewards.values, rewardSign: s.rewards.sign, terminal, lineOf,
+    states: columns.states.map((c) => number(c.column)),
+    actions: columns.actions.map((c) => number(c.column)),
+    nextStates: columns.nextState.kind === 'columns' ? columns.nextState.columns.map(number) : undefined,
+    stateNames: columns.states.map((c) => c.column),
+    actionNames: columns.actions.map((c) => c.column),
+    labels: episodeInputs.labels,
+  });
+  return { derived, episodeInputs, transitions, report };
+}
+
+/**
+ * The whole log for the run-order check (core/transitions.ts WholeLog): the import's rows and the rows of the
+ * runs left out, save those with a problem or in a time window; runs in data order, each marked kept or not
+ * by its first row. Its reports are not the import's and are dropped.
+ */
+function wholeLogOf(s: Stages, kept: Uint8Array, whole: WholeLogRecords, periodSeconds: number): WholeLog {
+  const rows = kept.map((k, r) => (k || (s.inRunRange[r] > 0 && !whole.dropped[r]) ? 1 : 0));
+  const { transitions } = transitionsOf(s, { kept: rows, inWindow: whole.inWindow, inRunRange: new Uint16Array(rows.length) }, periodSeconds);
+  const keptRuns = new Uint8Array(transitions.episodeCount);
+  for (let i = transitions.count - 1; i >= 0; i--) keptRuns[transitions.episode[i]] = s.inRunRange[transitions.sourceLine[i] - 2] > 0 ? 0 : 1;
+  return { transitions, keptRuns };
 }
 
 /**

@@ -45,6 +45,25 @@ describe('following the run-order advice', () => {
     const since = runOrderAssessment(imported(csv, [{ from: 'R1', to: 'R50', reason: 'before the retune' }]));
     expect(since.warnings).toEqual([]);
     expect('reason' in since.summary ? null : since.summary.runs).toBe(50);
+    // The import keeps the whole log beside the runs kept (memory38): the step lies before them, so it is resolved.
+    expect(since.summary.wholeLog).toMatchObject({ read: true, runs: 100, runsLeftOut: 50, reading: 'resolved' });
+    expect(since.summary.wholeLog?.sentence).toContain('the change at run "R51" lies before the runs kept');
+    // Cut too early (runs R31… kept, the step at R51 among them): the whole log's serious finding stands.
+    const early = runOrderAssessment(imported(csv, [{ from: 'R1', to: 'R30', reason: 'too early' }]));
+    expect(early.warnings[0]?.severity).toBe('serious');
+    expect(early.warnings[0]?.message).toContain('the runs kept still span the change (some lie before run "R51")');
+  });
+
+  it('the whole log drops a bad row of a run left out (its problem is forgotten for the import, not read as a number)', () => {
+    const lines = csvOf(coldStoreRetunedPlant().simulate({ transitions: 40_000, seed: 2 })).split('\n');
+    const bad = lines.findIndex((l) => l.startsWith('R10,')) + 5;
+    lines[bad] = lines[bad].replace(/^R10,[^,]*/, 'R10,not a number');
+    const data = imported(lines.join('\n'), [{ from: 'R1', to: 'R50', reason: 'before the retune' }]);
+    const whole = data.wholeLog!.transitions;
+    expect(whole.episodeCount).toBeGreaterThanOrEqual(100);
+    expect(whole.states.every(Number.isFinite)).toBe(true);
+    expect([...whole.sourceLine]).not.toContain(bad + 1);
+    expect(runOrderAssessment(data).summary.wholeLog).toMatchObject({ reading: 'resolved', runsLeftOut: whole.episodeCount - 50 });
   });
 
   it('the control, one tuning throughout: no finding, no advice', () => {

@@ -1,11 +1,12 @@
 /**
  * What to do about a coefficient that changed with run order, by the shape of its change
  * (changeShape.ts): after a step, evaluate the runs since it, and which runs to leave out; after a
- * steady drift, no run marks the change, so only the latest runs describe the plant now, at the cost
- * of fewer runs and wider intervals. One writer for the app, the command line and the report (through
+ * steady drift, no run marks the change and no part of the log describes today's plant: leaving out
+ * earlier runs narrows the gap but does not close it, and the check keeps its warning where runs are left
+ * out (it reads the whole log, runsLeftOutReading.ts), so the advice is fresh logs after the cause is
+ * mended (memory38). One writer for the app, the command line and the report (through
  * runOrderFinding.ts); run labels as runLabelText writes them.
  */
-import { DRIFT_RECENT_SHARE } from '../limits';
 import { runNameText, runSpanText, type RunName } from '../runLabelText';
 import type { CoefficientTrend } from './runOrder';
 
@@ -23,12 +24,10 @@ export function changeAdvice(t: CoefficientTrend, what: string, runs: number, ru
     return `${capital(what)} changed around ${runNameText(since)} (the ${ordinal(at + 1)} of ${runs.toLocaleString('en-US')} in the data), in one step rather than a steady drift. ` +
       `To evaluate the runs since the change, ${leaveOut(first, before, since)}.`;
   }
-  const kept = Math.max(1, Math.round(runs * DRIFT_RECENT_SHARE)), from = runs - kept;
-  const latest = runSpanText(runName(from), runName(runs - 1)) ?? `the runs from line ${runName(from).line.toLocaleString('en-US')}`;
-  return `${capital(what)} changed steadily over the runs, not in one step, so no run marks the change and only the latest runs describe the plant as it is now. ` +
-    `Evaluating only those — the latest third, say, ${latest} — trades fewer runs, and so wider intervals, for a baseline and a plant closer to today’s, though not today’s: ` +
-    'the plant went on changing through them, so their numbers describe it as it was partway through them (on a test pump that wore steadily, the latest third left the present controller’s J off by about 11\u00a0% instead of 24\u00a0%, and the check then read only a caution). ' +
-    `To do so, ${leaveOut(runName(0), runName(from - 1), runName(from))}.`;
+  return `${capital(what)} changed steadily over the runs, not in one step, so no run marks the change and no part of the log describes the plant as it is now. ` +
+    'Leaving out earlier runs narrows the gap but does not close it: the plant went on changing through the runs kept, so their numbers describe it as it was partway through them ' +
+    '(on a test pump that wore steadily, the latest third left the present controller’s J off by about 11\u00a0% instead of 24\u00a0%), and where runs are left out by label this check still reads the whole log and keeps the warning. ' +
+    'What would help: fresh logs, in a file of their own, taken after the cause (wear, fouling, an instrument) is found and mended, or since a known replacement.';
 }
 
 /** "leave out runs "1" to "17" (…)", or the rows above the next run's first line where the log has no run column. */

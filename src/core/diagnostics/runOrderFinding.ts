@@ -69,7 +69,8 @@ export function runOrderRuleText(): string {
     `and a coefficient changed when its two-sided p times the number of coefficients tested is at most ${RUN_ORDER_ALPHA} (Bonferroni). ` +
     'A change in a gain of the law (the present controller was retuned) or in the plant’s response to a state or an action (the plant drifted) is serious, and then no candidate is named for a trial; ' +
     'a change in the law’s output level alone is serious when it moved in one step (a setpoint moved: the baseline is then an average of two operating points) and a caution when it drifts (an integral taking up a drifting load also moves it), and a change in the plant model’s offset alone is a caution. ' +
-    'Where the change lies: on the ranks of the changed coefficient the finding leads with, the single step fitting best by least squares over the split points (Hinkley 1970) against a straight line in run order — a step where it leaves the smaller residual sum of squares (evaluate the runs since it), else a steady drift (only the latest runs describe the plant now).';
+    'Where the change lies: on the ranks of the changed coefficient the finding leads with, the single step fitting best by least squares over the split points (Hinkley 1970) against a straight line in run order — a step where it leaves the smaller residual sum of squares (evaluate the runs since it), else a steady drift (no part of the log describes the plant now). ' +
+    'Where the project leaves runs out by label, the whole log is checked as well, in data order: its finding stands, with its own severity, unless the change it leads with is a step that lies before every run kept.';
 }
 
 /** The changed coefficients the finding shows, the one it leads with first: the serious ones if any, else all, by |z| falling. */

@@ -24,11 +24,13 @@ describe('run-order change advice', () => {
     expect(lined).toContain('leave out the rows above line 12');
   });
 
-  it('after a drift, suggests the latest third and says what it costs; nothing without a shape', () => {
+  it('after a drift, names no runs to leave out: no part of the log is today’s plant, fresh logs after the cause is mended; nothing without a shape', () => {
     const drift = changeAdvice(trend({ kind: 'drift', run: 6 }), 'the gain', 12, (p) => ({ label: `R${p}`, line: 2 + 10 * p }));
-    expect(drift).toContain('runs "R8" to "R11"');
-    expect(drift).toContain('fewer runs, and so wider intervals');
-    expect(drift).toContain('leave out runs "R0" to "R7"');
+    expect(drift).toContain('no part of the log describes the plant as it is now');
+    expect(drift).toContain('Leaving out earlier runs narrows the gap but does not close it');
+    expect(drift).toContain('about 11\u00a0% instead of 24\u00a0%');
+    expect(drift).toContain('fresh logs, in a file of their own, taken after the cause (wear, fouling, an instrument) is found and mended');
+    expect(drift).not.toMatch(/leave out runs|"R\d+"/);
     expect(changeAdvice(trend(null), 'the gain', 12, () => ({ label: null, line: 2 }))).toBeNull();
   });
 });
