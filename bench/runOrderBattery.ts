@@ -59,7 +59,7 @@ function row(name: string, seed: number | string, data: RunOrderData): { serious
 /** The shown coefficient's change, then every changed one's: "step@125 [l0.0 step@125, m0.-1 drift]". */
 function shapes(result: RunOrderResult): string {
   const shown = shownTrends(result), changed = changedTrends(result);
-  const text = (t: (typeof shown)[number]) => (t.change ? (t.change.kind === 'step' ? `step@${t.change.run}` : 'drift') : '?');
+  const text = (t: (typeof shown)[number]) => (t.change ? (t.change.kind === 'step' ? `${t.change.clear ? 'step' : 'unclear-step'}@${t.change.run}` : 'drift') : '?');
   return shown.length ? `${text(shown[0])} [${changed.map((t) => `${t.block[0]}${t.output}.${t.input} ${text(t)}`).join(', ')}]` : '·';
 }
 

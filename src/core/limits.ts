@@ -214,6 +214,15 @@ export const PIVOT_FLOOR = 1e-10;
 export const RUN_ORDER_ALPHA = 1e-3;
 export const RUN_ORDER_MIN_RUNS = 10;
 /**
+ * A step is CLEAR (diagnostics/changeShape.ts) when the best single step's residual sum of squares on the ranks is at
+ * most this share of the straight line's. Only a clear step earns the advice to leave out the runs before it, and only
+ * clear steps let runs left out resolve a change (diagnostics/runsLeftOutReading.ts). On ranks a perfect step at the
+ * middle leaves about 0.57 (closed form), a straight line far above 1. Chosen by the rule written before measuring
+ * (/work/notes/clearstep38-rule.md): the largest share at which at most 5 % of significant noisy linear drifts read
+ * as clear steps in every cell of its grid; test/battery/README.md, "A step clear enough to cut at".
+ */
+export const CLEAR_STEP_SHARE = 0.75;
+/**
  * Where a changed coefficient drifted steadily (diagnostics/changeShape.ts), the share of the latest runs that
  * bench/keptRuns.ts keeps to show what evaluating them alone gives. The words suggested it until memory38; they
  * no longer do (runOrderChangeWords.ts: it narrows the gap, it does not close it). Ours, not chosen on data;

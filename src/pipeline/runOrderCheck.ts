@@ -47,7 +47,8 @@ type RunOrderNumbers =
  * or a drift, with no run (the best single step's run is not a change point then).
  */
 export type RunOrderChange =
-  | { readonly kind: Extract<ChangeKind, 'step'>; readonly runIndex: number; readonly runLabel: string | null; readonly line: number }
+  /** `clear`: clear enough to cut the log at (core/limits.ts CLEAR_STEP_SHARE); only then does the warning advise runs to leave out. */
+  | { readonly kind: Extract<ChangeKind, 'step'>; readonly runIndex: number; readonly runLabel: string | null; readonly line: number; readonly clear: boolean }
   | { readonly kind: Extract<ChangeKind, 'drift'> };
 
 /** Run position → its label and first line, from the log's first row of each run (TransitionSet.episodeLabels, sourceLine). */
@@ -62,7 +63,7 @@ function changeOf(t: CoefficientTrend, runName: (position: number) => RunName): 
   if (!t.change) return null;
   if (t.change.kind === 'drift') return { kind: 'drift' };
   const run = runName(t.change.run);
-  return { kind: 'step', runIndex: t.change.run, runLabel: run.label, line: run.line };
+  return { kind: 'step', runIndex: t.change.run, runLabel: run.label, line: run.line, clear: t.change.clear };
 }
 
 /** "; setpoint_c is constant within every run (…)", naming the columns; empty where there are none (review38: the check said "not checked" without saying which). */
@@ -88,7 +89,10 @@ export function runOrderAssessment(data: CheckedData & { readonly wholeLog?: Who
   const sentence = runsLeftOutSentence(reading, log.episodeCount, runsLeftOut, runNames(log, firstRows));
   const wholeLog: WholeLogReading = { read: true, runs: log.episodeCount, runsLeftOut, reading: reading.kind, resolved: reading.kind === 'resolved', sentence };
   if (reading.kind !== 'stands') return { summary: { ...kept.summary, wholeLog }, warnings: kept.warnings };
-  return { summary: { ...whole.summary, wholeLog }, warnings: whole.warnings.map((w) => ({ ...w, message: `${w.message} ${sentence}` })) };
+  const standing = whole.warnings.map((w) => ({ ...w, message: `${w.message} ${sentence}` }));
+  // Review39: a change the whole log shows only as a caution may be serious within the runs kept; the more severe is not dropped.
+  const keptSerious = kept.warnings.filter((w) => w.severity === 'serious' && !standing.some((s) => s.severity === 'serious'));
+  return { summary: { ...whole.summary, wholeLog }, warnings: [...standing, ...keptSerious.map((w) => ({ ...w, message: `Within the runs kept: ${w.message}` }))] };
 }
 
 /** One log's check: its trends, numbers and finding. */

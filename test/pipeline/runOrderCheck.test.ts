@@ -22,7 +22,7 @@ describe('run-order check on logs that change by run order, and their controls',
     expect(warnings[0].message).toContain('changed around the run from line 20,002 (the 51st of 100 in the data), in one step rather than a steady drift');
     expect(warnings[0].message).toContain('leave out the rows above line 20,002');
     expect('reason' in summary ? [] : summary.changed.map((c) => c.fit)).toContain('law');
-    expect('reason' in summary ? null : summary.change).toEqual({ kind: 'step', runIndex: 50, runLabel: null, line: 20_002 });
+    expect('reason' in summary ? null : summary.change).toEqual({ kind: 'step', runIndex: 50, runLabel: null, line: 20_002, clear: true });
     expect(runOrderSentence(summary)).toMatch(/changed with run order \(see the warning\)/);
   });
 
@@ -36,8 +36,8 @@ describe('run-order check on logs that change by run order, and their controls',
     const data = coldStoreRetunedPlant().simulate({ transitions: 40_000, seed: 1 });
     const { summary, warnings } = runOrderAssessment({ ...data, episodeLabels: Array.from({ length: data.episodeCount }, (_, e) => `C${e + 1}`) });
     expect(warnings[0].message).toContain('changed around run "C51" (the 51st of 100 in the data)');
-    expect(warnings[0].message).toContain('To evaluate the runs since the change, leave out runs "C1" to "C50" (project field data.csv.excludedRuns; in the app, Plant log → Runs left out).');
-    expect('reason' in summary ? null : summary.change).toEqual({ kind: 'step', runIndex: 50, runLabel: 'C51', line: 20_002 });
+    expect(warnings[0].message).toContain('To evaluate the runs since the change, leave out runs "C1" to "C50" (project field data.csv.excludedRuns; in the app, Plant log → Runs left out); that keeps 50 runs.');
+    expect('reason' in summary ? null : summary.change).toEqual({ kind: 'step', runIndex: 50, runLabel: 'C51', line: 20_002, clear: true });
     const pump = dosingPumpWearPlant().simulate({ transitions: 40_000, seed: 1 });
     const drift = runOrderAssessment({ ...pump, episodeLabels: Array.from({ length: pump.episodeCount }, (_, e) => `P${e}`) });
     // A drift: no run to cut at, and leaving out earlier runs is not offered as the remedy (memory38).

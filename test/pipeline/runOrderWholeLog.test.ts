@@ -45,7 +45,7 @@ describe('the run-order check remembers the runs left out', () => {
       expect(warnings[0].message).toContain('the runs kept still span the change (some lie before run "R50")');
       expect(summary.wholeLog).toMatchObject({ reading: 'stands', resolved: false, runs: 100 });
       // The numbers are the whole log's: 100 runs, the step at run 50.
-      expect('reason' in summary ? null : [summary.runs, summary.change]).toEqual([100, { kind: 'step', runIndex: 50, runLabel: 'R50', line: 20_002 }]);
+      expect('reason' in summary ? null : [summary.runs, summary.change]).toEqual([100, { kind: 'step', runIndex: 50, runLabel: 'R50', line: 20_002, clear: true }]);
     }
   });
 
@@ -54,7 +54,7 @@ describe('the run-order check remembers the runs left out', () => {
     const { summary, warnings } = runOrderAssessment(leftOut(pump, (e) => e >= 67));
     expect(warnings).toHaveLength(1);
     expect(warnings[0].severity).toBe('serious');
-    expect(warnings[0].message).toContain('the plant drifts through the runs kept too');
+    expect(warnings[0].message).toContain('drifts steadily, through the runs kept too');
     expect(warnings[0].message).toContain('no part of the log describes the plant as it is now');
     expect(warnings[0].message).not.toContain('To do so, leave out');
     expect(summary.wholeLog).toMatchObject({ reading: 'stands', runsLeftOut: 67 });

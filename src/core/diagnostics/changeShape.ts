@@ -21,10 +21,14 @@
  * a rank to an end rather than pulling either fit.
  */
 
+import { CLEAR_STEP_SHARE } from '../limits';
+
 export type ChangeKind = 'step' | 'drift';
 
 export interface ChangeShape {
   readonly kind: ChangeKind;
+  /** A step whose RSS is at most CLEAR_STEP_SHARE of the line's (core/limits.ts): clear enough to cut the log at. */
+  readonly clear: boolean;
   /** Index into the series of the first value after the best step's split (1 ≤ after < n). */
   readonly after: number;
   readonly stepRss: number;
@@ -62,5 +66,6 @@ export function lineFit(x: ArrayLike<number>, y: ArrayLike<number>): { intercept
 export function changeShape(positions: ArrayLike<number>, series: ArrayLike<number>): ChangeShape | null {
   if (series.length < 3 || positions.length !== series.length) return null;
   const step = bestStep(series), line = lineFit(positions, series);
-  return { kind: step.rss < line.rss ? 'step' : 'drift', after: step.after, stepRss: step.rss, lineRss: line.rss };
+  const kind: ChangeKind = step.rss < line.rss ? 'step' : 'drift';
+  return { kind, clear: kind === 'step' && step.rss <= CLEAR_STEP_SHARE * line.rss, after: step.after, stepRss: step.rss, lineRss: line.rss };
 }

@@ -66,7 +66,7 @@ export interface CoefficientTrend {
    * The series' shape (changeShape.ts, on the ranks ρ reads): a step, with the run position (0-based among
    * all the log's runs) of the first fitted run after it, or a drift (`run` then the best step's, unused by the words).
    */
-  readonly change: { readonly kind: ChangeKind; readonly run: number } | null;
+  readonly change: { readonly kind: ChangeKind; readonly run: number; readonly clear: boolean } | null;
 }
 
 export type RunOrderResult =
@@ -137,7 +137,7 @@ export function runOrderTrends(data: RunOrderData, minimumRuns: number): RunOrde
       const fifth = Math.max(1, Math.floor(series.length / 5)), shape = changeShape(runs, averageRanks(series));
       trends.push({
         block, output: o, input: c - 1, runs: runs.length, rho: Number.isFinite(rho) ? rho : 0, z, p, early: median(series.slice(0, fifth)), late: median(series.slice(-fifth)),
-        change: shape && { kind: shape.kind, run: runs[shape.after] },
+        change: shape && { kind: shape.kind, run: runs[shape.after], clear: shape.clear },
       });
     }
   };

@@ -7,6 +7,7 @@
  * mended (memory38). One writer for the app, the command line and the report (through
  * runOrderFinding.ts); run labels as runLabelText writes them.
  */
+import { RUN_ORDER_MIN_RUNS } from '../limits';
 import { runNameText, runSpanText, type RunName } from '../runLabelText';
 import type { CoefficientTrend } from './runOrder';
 
@@ -20,9 +21,15 @@ const LEAVE_OUT_WHERE = 'project field data.csv.excludedRuns; in the app, Plant 
 export function changeAdvice(t: CoefficientTrend, what: string, runs: number, runName: (position: number) => RunName): string | null {
   if (!t.change) return null;
   if (t.change.kind === 'step') {
-    const at = t.change.run, first = runName(0), before = runName(at - 1), since = runName(at);
-    return `${capital(what)} changed around ${runNameText(since)} (the ${ordinal(at + 1)} of ${runs.toLocaleString('en-US')} in the data), in one step rather than a steady drift. ` +
-      `To evaluate the runs since the change, ${leaveOut(first, before, since)}.`;
+    const at = t.change.run, first = runName(0), before = runName(at - 1), since = runName(at), where = `${capital(what)} changed around ${runNameText(since)} (the ${ordinal(at + 1)} of ${runs.toLocaleString('en-US')} in the data)`;
+    // Review39: a noisy steady drift often fits one step a little better than a line; only a clear step is a place to cut.
+    if (!t.change.clear) {
+      return `${where}, in what looks more like one step than a steady drift, but not clearly enough to cut the log at: leaving out the runs before it may leave a drift in the runs kept, and where runs are left out by label this check still reads the whole log and keeps the warning. ` +
+        'Look at what changed around then (a retune, a setpoint, a replaced part, wear) before evaluating any part of this log.';
+    }
+    const kept = runs - at, few = kept < RUN_ORDER_MIN_RUNS ? `, too few for this check to read on their own (it needs ${RUN_ORDER_MIN_RUNS}), so log more runs under the present plant and controller before trusting a trial` : '';
+    return `${where}, in one step rather than a steady drift. ` +
+      `To evaluate the runs since the change, ${leaveOut(first, before, since)}; that keeps ${kept.toLocaleString('en-US')} run${kept === 1 ? '' : 's'}${few}.`;
   }
   return `${capital(what)} changed steadily over the runs, not in one step, so no run marks the change and no part of the log describes the plant as it is now. ` +
     'Leaving out earlier runs narrows the gap but does not close it: the plant went on changing through the runs kept, so their numbers describe it as it was partway through them ' +

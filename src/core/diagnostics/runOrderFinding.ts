@@ -101,7 +101,7 @@ export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): {
   const why = [
     law ? (lawGain
       ? 'a gain of the present controller’s law changed (it was retuned?), so the baseline fitted to all logged actions is an average of tunings, not the controller in service now'
-      : 'the present controller’s output level moved in one step (its setpoint or bias changed?), so the baseline fitted to all logged actions mixes two operating points and is a law that never ran, not the controller in service now') : '',
+      : 'the present controller’s output level moved in one step (its setpoint or bias changed, or a load or grade change its integral took up?), so the baseline fitted to all logged actions mixes two operating points and is a law that never ran, not the controller in service now') : '',
     plant ? 'the plant’s response changed (wear, fouling, a replaced part?), so every estimate here, the cross-checks included, describes the log’s average plant, not today’s' : '',
   ].filter(Boolean).join('; and ');
   return {

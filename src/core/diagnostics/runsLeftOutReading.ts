@@ -8,11 +8,16 @@
  * The rule (written before measuring, /work/notes/memory38-rule.md): on the whole log, runs left out
  * included and in data order,
  *  - no coefficient changed → 'no-change': the runs kept decide by their own check;
- *  - the coefficient the finding leads with (runOrderFinding.ts shownTrends) changed in a STEP at run
- *    position p (changeShape.ts) and every run kept lies at p or after → 'resolved': the runs kept decide;
- *  - otherwise (a drift, a change without a shape, or a step with runs kept before it) → 'stands': the
- *    whole log's finding is the finding, with the severity it has there.
- * No threshold of its own: RUN_ORDER_ALPHA and change38's step-or-drift rule decide.
+ *  - the coefficient the finding leads with (runOrderFinding.ts shownTrends) changed in a CLEAR step at run
+ *    position p (changeShape.ts, CLEAR_STEP_SHARE), every run kept lies at p or after, and every other
+ *    coefficient the finding shows also changed in a step located before the first run kept → 'resolved':
+ *    the runs kept decide;
+ *  - otherwise (a drift in any shown coefficient — a setpoint moved while a pump wore —, a step not clear
+ *    enough to cut at, a change without a shape, or a step with runs kept before it) → 'stands': the whole
+ *    log's finding is the finding, with the severity it has there.
+ * No threshold of its own: RUN_ORDER_ALPHA, change38's step-or-drift rule and its clear share decide (the
+ * clear step and the other coefficients after review39: a noisy drift often fits a step a little better than
+ * a line, /work/notes/clearstep38-rule.md).
  */
 import { runNameText, type RunName } from '../runLabelText';
 import type { CoefficientTrend, RunOrderResult } from './runOrder';
@@ -21,16 +26,30 @@ import { shownTrends } from './runOrderFinding';
 export type RunsLeftOutReading =
   | { readonly kind: 'no-change' }
   | { readonly kind: 'resolved'; readonly lead: CoefficientTrend; readonly stepRun: number }
-  | { readonly kind: 'stands'; readonly lead: CoefficientTrend; readonly why: 'spans-step' | 'drift' | 'no-shape' };
+  | { readonly kind: 'stands'; readonly lead: CoefficientTrend; readonly why: 'spans-step' | 'before-step' | 'drift' | 'unclear' | 'no-shape' };
 
 /** `keptAt(position)`: whether the whole log's run at that position (0-based, data order) is among the runs kept. */
 export function readRunsLeftOut(whole: RunOrderResult, keptAt: (position: number) => boolean): RunsLeftOutReading {
-  const lead = shownTrends(whole)[0];
+  const shown = shownTrends(whole), lead = shown[0];
   if ('reason' in whole || !lead) return { kind: 'no-change' };
-  if (lead.change?.kind !== 'step') return { kind: 'stands', lead, why: lead.change ? 'drift' : 'no-shape' };
-  const stepRun = lead.change.run;
-  for (let q = 0; q < stepRun; q++) if (keptAt(q)) return { kind: 'stands', lead, why: 'spans-step' };
+  if (!lead.change) return { kind: 'stands', lead, why: 'no-shape' };
+  if (shown.some((t) => t.change?.kind === 'drift')) return { kind: 'stands', lead, why: 'drift' };
+  if (!lead.change.clear) return { kind: 'stands', lead, why: 'unclear' };
+  const stepRun = lead.change.run, firstKept = firstKeptAt(whole.runs, keptAt);
+  if (firstKept < stepRun) return { kind: 'stands', lead, why: firstKept < 0 || lastKeptBelow(stepRun, whole.runs, keptAt) ? 'before-step' : 'spans-step' };
+  if (shown.some((t) => !t.change || t.change.run > firstKept)) return { kind: 'stands', lead, why: 'spans-step' };
   return { kind: 'resolved', lead, stepRun };
+}
+
+function firstKeptAt(runs: number, keptAt: (position: number) => boolean): number {
+  for (let q = 0; q < runs; q++) if (keptAt(q)) return q;
+  return -1;
+}
+
+/** Whether every run kept lies before position p (the runs left out are those after the change). */
+function lastKeptBelow(p: number, runs: number, keptAt: (position: number) => boolean): boolean {
+  for (let q = p; q < runs; q++) if (keptAt(q)) return false;
+  return true;
 }
 
 /**
@@ -43,8 +62,13 @@ export function runsLeftOutSentence(reading: RunsLeftOutReading, runs: number, l
   if (reading.kind === 'resolved') {
     return `${read}, the change at ${runNameText(runName(reading.stepRun))} lies before the runs kept, so the runs left out resolve it and the runs kept are checked on their own.`;
   }
-  const why = reading.why === 'spans-step'
-    ? `the runs kept still span the change (some lie before ${runNameText(runName((reading.lead.change as { run: number }).run))}), so their numbers describe a plant and controller between then and now`
-    : 'the plant drifts through the runs kept too, so their numbers describe a plant between then and now, not today’s';
+  const at = reading.lead.change ? runNameText(runName(reading.lead.change.run)) : '';
+  const why = {
+    'spans-step': `the runs kept still span the change (some lie before ${at}), so their numbers describe a plant and controller between then and now`,
+    'before-step': `every run kept lies before the change at ${at}, so their numbers describe the plant and controller as they were before it, not today’s`,
+    drift: 'something the finding shows drifts steadily, through the runs kept too, so their numbers describe a plant between then and now, not today’s',
+    unclear: `the change looks more like one step (at ${at}) than a steady drift, but not clearly enough to cut the log at, so the runs kept may still drift`,
+    'no-shape': 'where the change lies could not be read',
+  }[reading.why];
   return `${read}, leaving runs out does not remove the change: ${why}. The finding stands as on the whole log.`;
 }

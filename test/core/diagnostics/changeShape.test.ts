@@ -88,7 +88,7 @@ describe('the change the run-order finding leads with', () => {
       const result = runOrderTrends(loggedRuns(200, seed, (r) => ({ k: r < 70 ? 0.2 : 0.5, b: 0.5 }), [10, 120, 199]), 10);
       const lead = shownTrends(result)[0];
       expect(lead).toMatchObject({ block: 'law', input: 0 });
-      expect(lead.change).toEqual({ kind: 'step', run: 70 });
+      expect(lead.change).toEqual({ kind: 'step', run: 70, clear: true });
     }
   });
 

@@ -16,22 +16,29 @@ describe('run-order change advice', () => {
   });
 
   it('names a step’s runs by label, or by line where the log has no run column', () => {
-    const labelled = changeAdvice(trend({ kind: 'step', run: 3 }), 'the gain', 12, (p) => ({ label: `R${p}`, line: 2 + 10 * p }));
+    const labelled = changeAdvice(trend({ kind: 'step', run: 3, clear: true }), 'the gain', 12, (p) => ({ label: `R${p}`, line: 2 + 10 * p }));
     expect(labelled).toBe('The gain changed around run "R3" (the 4th of 12 in the data), in one step rather than a steady drift. ' +
-      'To evaluate the runs since the change, leave out runs "R0" to "R2" (project field data.csv.excludedRuns; in the app, Plant log → Runs left out).');
-    const lined = changeAdvice(trend({ kind: 'step', run: 1 }), 'the gain', 12, (p) => ({ label: null, line: 2 + 10 * p }));
+      'To evaluate the runs since the change, leave out runs "R0" to "R2" (project field data.csv.excludedRuns; in the app, Plant log → Runs left out); ' +
+      'that keeps 9 runs, too few for this check to read on their own (it needs 10), so log more runs under the present plant and controller before trusting a trial.');
+    const lined = changeAdvice(trend({ kind: 'step', run: 1, clear: true }), 'the gain', 12, (p) => ({ label: null, line: 2 + 10 * p }));
     expect(lined).toContain('changed around the run from line 12 (the 2nd of 12');
     expect(lined).toContain('leave out the rows above line 12');
   });
 
   it('after a drift, names no runs to leave out: no part of the log is today’s plant, fresh logs after the cause is mended; nothing without a shape', () => {
-    const drift = changeAdvice(trend({ kind: 'drift', run: 6 }), 'the gain', 12, (p) => ({ label: `R${p}`, line: 2 + 10 * p }));
+    const drift = changeAdvice(trend({ kind: 'drift', run: 6, clear: false }), 'the gain', 12, (p) => ({ label: `R${p}`, line: 2 + 10 * p }));
     expect(drift).toContain('no part of the log describes the plant as it is now');
     expect(drift).toContain('Leaving out earlier runs narrows the gap but does not close it');
     expect(drift).toContain('about 11\u00a0% instead of 24\u00a0%');
     expect(drift).toContain('fresh logs, in a file of their own, taken after the cause (wear, fouling, an instrument) is found and mended');
     expect(drift).not.toMatch(/leave out runs|"R\d+"/);
     expect(changeAdvice(trend(null), 'the gain', 12, () => ({ label: null, line: 2 }))).toBeNull();
+  });
+
+  it('a step not clear enough to cut at (review39: a noisy drift often fits one step a little better than a line) advises no cut', () => {
+    const unclear = changeAdvice(trend({ kind: 'step', run: 6, clear: false }), 'the gain', 40, (p) => ({ label: `R${p}`, line: 2 + 10 * p }));
+    expect(unclear).toContain('not clearly enough to cut the log at');
+    expect(unclear).not.toContain('leave out runs');
   });
 });
 
@@ -42,20 +49,20 @@ describe('an offset alone', () => {
   const names = { stateNames: ['level'], actionNames: ['valve'], runName: (p: number) => ({ label: `R${p}`, line: 2 + 10 * p }) };
 
   it('the law’s, in one step (a setpoint moved?): serious, located, with the runs since it (offset38)', () => {
-    const finding = runOrderFinding(offset({ kind: 'step', run: 5 }), names);
+    const finding = runOrderFinding(offset({ kind: 'step', run: 5, clear: true }), names);
     expect(finding?.severity).toBe('serious');
     expect(finding?.message).toContain('output level moved in one step');
     expect(finding?.message).toContain('changed around run "R5" (the 6th of 12 in the data)');
   });
 
   it('the plant model’s, in one step (a disturbance’s level?): a caution, located, with the runs since it', () => {
-    const finding = runOrderFinding(offset({ kind: 'step', run: 5 }, 'model'), names);
+    const finding = runOrderFinding(offset({ kind: 'step', run: 5, clear: true }, 'model'), names);
     expect(finding?.severity).toBe('caution');
     expect(finding?.message).toContain('changed around run "R5" (the 6th of 12 in the data)');
   });
 
   it('that drifted (a slow disturbance?) is not cut again to its latest runs', () => {
-    const finding = runOrderFinding(offset({ kind: 'drift', run: 5 }), names);
+    const finding = runOrderFinding(offset({ kind: 'drift', run: 5, clear: false }), names);
     expect(finding?.severity).toBe('caution');
     expect(finding?.message).not.toContain('latest third');
   });
