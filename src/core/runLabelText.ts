@@ -3,11 +3,14 @@
  * left out, the run-order finding): the run column's cell text exactly as the import reads it — trimmed
  * of the spaces around it, never re-written as a number, so a numeric run column's "007" or "1.0" reads
  * as in the file, and what is shown is what a person types to name the run (data.csv.excludedRuns) — in
- * straight double quotes, so "3" the label is not read as a count. In core so that the data layer, the
+ * straight double quotes, so "3" the label is not read as a count (a quote or backslash inside escaped as the
+ * project file writes it). In core so that the data layer, the
  * renderer and the run-order words (diagnostics/runOrderChangeWords.ts) share the one writer.
  */
 export function runLabelText(label: string): string {
-  return `"${label}"`;
+  // As a JSON string (review39: a label holding a double quote read `"a"b"`): the same as `"${label}"` for any
+  // label without a quote, backslash or control character, and otherwise exactly what the project file holds.
+  return JSON.stringify(label);
 }
 
 /** A run as the words name it: its label where the log has a run column, else the line its first row is on. */

@@ -86,7 +86,7 @@ export function runOrderAssessment(data: CheckedData & { readonly wholeLog?: Who
   const firstRows = 'reason' in whole.result ? [] : whole.result.firstRows;
   const reading = readRunsLeftOut(whole.result, (p) => keptRuns[log.episode[firstRows[p]]] === 1);
   const runsLeftOut = keptRuns.reduce((n, k) => n + (k ? 0 : 1), 0);
-  const sentence = runsLeftOutSentence(reading, log.episodeCount, runsLeftOut, runNames(log, firstRows));
+  const sentence = runsLeftOutSentence(reading, log.episodeCount, runNames(log, firstRows));
   const wholeLog: WholeLogReading = { read: true, runs: log.episodeCount, runsLeftOut, reading: reading.kind, resolved: reading.kind === 'resolved', sentence };
   if (reading.kind !== 'stands') return { summary: { ...kept.summary, wholeLog }, warnings: kept.warnings };
   const standing = whole.warnings.map((w) => ({ ...w, message: `${w.message} ${sentence}` }));

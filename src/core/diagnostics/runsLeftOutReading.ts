@@ -54,10 +54,12 @@ function lastKeptBelow(p: number, runs: number, keptAt: (position: number) => bo
 
 /**
  * The one sentence on the reading (null for 'no-change'), for the warning and the check's line.
- * `runs`/`leftOut`: the whole log's runs and how many of them are left out; `runName`: a whole-log run position named.
+ * `runs`: the whole log's runs as the check counts them; `runName`: a whole-log run position named. The runs left
+ * out are not counted here: a label split by a time gap is two runs to the check and one to the import report
+ * (review39), which gives their count.
  */
-export function runsLeftOutSentence(reading: RunsLeftOutReading, runs: number, leftOut: number, runName: (position: number) => RunName): string | null {
-  const read = `Read on the whole log (${runs.toLocaleString('en-US')} runs, the ${leftOut.toLocaleString('en-US')} left out by data.csv.excludedRuns included)`;
+export function runsLeftOutSentence(reading: RunsLeftOutReading, runs: number, runName: (position: number) => RunName): string | null {
+  const read = `Read on the whole log (${runs.toLocaleString('en-US')} runs, those left out by data.csv.excludedRuns included)`;
   if (reading.kind === 'no-change') return null;
   if (reading.kind === 'resolved') {
     return `${read}, the change at ${runNameText(runName(reading.stepRun))} lies before the runs kept, so the runs left out resolve it and the runs kept are checked on their own.`;
