@@ -106,7 +106,7 @@ export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): {
   ].filter(Boolean).join('; and ');
   return {
     severity: 'serious', topic: 'runOrder',
-    message: opening + `That means ${why}. On test plants that drifted or were retuned halfway, J was off by about 20\u00a0% with every cross-check agreeing. ` +
+    message: opening + `That means ${why}. On test plants that drifted, were retuned or had their setpoint moved halfway, the present controller’s J was off by 15\u00a0% or more with every cross-check agreeing. ` +
       'No candidate is named for a trial. ' + (advice ?? 'Find where the change happened and evaluate the runs since the change: exclude the earlier rows.'),
   };
 }
