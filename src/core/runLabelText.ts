@@ -24,8 +24,13 @@ export function runNameText(run: RunName): string {
   return run.label !== null ? `run ${runLabelText(run.label)}` : `the run from line ${run.line.toLocaleString('en-US')}`;
 }
 
+/** `"1" to "17"`, or `"1"` when the two are one: a span of runs by label (the import report's ranges, the run-order advice). */
+export function labelSpanText(first: string, last: string): string {
+  return first === last ? runLabelText(first) : `${runLabelText(first)} to ${runLabelText(last)}`;
+}
+
 /** `runs "1" to "17"` (`run "1"` when the two are one), by label; null where the log has no run column. */
 export function runSpanText(first: RunName, last: RunName): string | null {
   if (first.label === null || last.label === null) return null;
-  return first.label === last.label ? `run ${runLabelText(first.label)}` : `runs ${runLabelText(first.label)} to ${runLabelText(last.label)}`;
+  return `${first.label === last.label ? 'run' : 'runs'} ${labelSpanText(first.label, last.label)}`;
 }

@@ -17,7 +17,7 @@ import type { ColumnRoles, ExcludedRun } from '../project/schema';
 import { closestName } from '../core/closestName';
 import { importProblem, type ImportProblem } from './importProblem';
 import { plural } from './reportFormat';
-import { runLabelText } from '../core/runLabelText';
+import { labelSpanText, runLabelText } from '../core/runLabelText';
 
 /** A range read against the log: its first and last run as label codes (codes in order of first appearance). */
 export interface RunRange {
@@ -122,8 +122,7 @@ export function leftOutRuns(ranges: readonly RunRange[], inRange: Uint16Array): 
 
 /** "40 runs, "0" to "39", 40,000 rows" or "1 run, "57", 1,000 rows". */
 export function leftOutRunsText(left: LeftOutRuns): string {
-  const which = left.from === left.to ? runLabelText(left.from) : `${runLabelText(left.from)} to ${runLabelText(left.to)}`;
-  return `${plural(left.runs, 'run')}, ${which}, ${plural(left.rows, 'row')}`;
+  return `${plural(left.runs, 'run')}, ${labelSpanText(left.from, left.to)}, ${plural(left.rows, 'row')}`;
 }
 
 /** "Runs left out by label (column run): 41 runs and 41,000 rows in all; 40 runs, "0" to "39", 40,000 rows: before the retune; …." */

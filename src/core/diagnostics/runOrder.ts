@@ -83,7 +83,12 @@ export type RunOrderResult =
 
 /** Spearman's ρ of two equal-length samples, average ranks for ties; NaN when either is constant. */
 export function spearmanRho(x: ArrayLike<number>, y: ArrayLike<number>): number {
-  const rx = averageRanks(x), ry = averageRanks(y), n = rx.length;
+  return rankCorrelation(averageRanks(x), averageRanks(y));
+}
+
+/** Pearson's r of two rankings of 1..n (average ranks for ties): Spearman's ρ once the ranks are known; NaN when either is constant. */
+function rankCorrelation(rx: Float64Array, ry: Float64Array): number {
+  const n = rx.length;
   if (n < 2) return NaN;
   const mean = (n + 1) / 2;
   let sxy = 0, sxx = 0, syy = 0;
@@ -131,10 +136,12 @@ export function runOrderTrends(data: RunOrderData, minimumRuns: number): RunOrde
   const trends: CoefficientTrend[] = [];
   const add = (block: 'law' | 'model', fits: number[][], runs: number[], outputs: number, inputs: number) => {
     if (runs.length < minimumRuns) return;
+    const runRanks = averageRanks(runs); // the same for every coefficient of the block
     for (let o = 0; o < outputs; o++) for (let c = 0; c <= inputs; c++) {
       const unit = c === 0 ? 1 : scale[c - 1], series = fits.map((f) => f[o * (inputs + 1) + c] / unit);
-      const rho = spearmanRho(runs, series), { z, p } = spearmanTrend(rho, runs.length);
-      const fifth = Math.max(1, Math.floor(series.length / 5)), shape = changeShape(runs, averageRanks(series));
+      // One ranking of the series for ρ and for its shape (changeShape reads the ranks ρ reads).
+      const ranks = averageRanks(series), rho = rankCorrelation(runRanks, ranks), { z, p } = spearmanTrend(rho, runs.length);
+      const fifth = Math.max(1, Math.floor(series.length / 5)), shape = changeShape(runs, ranks);
       trends.push({
         block, output: o, input: c - 1, runs: runs.length, rho: Number.isFinite(rho) ? rho : 0, z, p, early: median(series.slice(0, fifth)), late: median(series.slice(-fifth)),
         change: shape && { kind: shape.kind, run: runs[shape.after], clear: shape.clear },

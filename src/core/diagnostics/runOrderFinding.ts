@@ -93,7 +93,7 @@ export function runOrderFinding(result: RunOrderResult, names: RunOrderNames): {
     return {
       severity: 'caution', topic: 'runOrder',
       message: opening + 'Only an offset moved — the present controller’s output level, drifting rather than in one step (as an integral taking up a drifting load moves it), or the plant model’s (a disturbance that the logged states do not carry). The estimates assume one plant under one controller throughout; look at what changed, and if the plant or the controller itself changed, evaluate the runs since the change: exclude the earlier rows.' +
-        // An offset that stepped (a setpoint change, a retune of the output level) has runs since it; one that drifts is a slow disturbance, and cutting the log to its latest runs would only find it drifting there too.
+        // Only the plant model's offset can step in a caution (the law's that steps is serious, trendSeverity): a disturbance's level, with runs since it; one that drifts is a slow disturbance, and cutting the log to its latest runs would only find it drifting there too.
         (advice && shown[0].change?.kind === 'step' ? ` ${advice}` : ''),
     };
   }
