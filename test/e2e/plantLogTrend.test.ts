@@ -205,7 +205,7 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
 
     // A drag over the window already there gets the form's overlap message; Ctrl+Z clears it.
     await dragTrend(page, at(13, 8, 30), at(13, 9, 30));
-    await expect.poll(() => page.getByTestId('window-problems').innerText(), POLL).toContain('window 2 overlaps window “valve test” (data.csv.excludedTimes[0])');
+    await expect.poll(() => page.getByTestId('window-problems').innerText(), POLL).toContain('window 2 overlaps window 1 (data.csv.excludedTimes[0])');
     await page.keyboard.press('Control+z');
     await expect.poll(() => page.getByTestId('window-problems').count(), POLL).toBe(0);
     await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe('60');

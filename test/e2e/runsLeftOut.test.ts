@@ -8,7 +8,7 @@
  * test-artifacts/screens/, and no text on the step is cut (harness/cutText.ts).
  */
 import { readFile } from 'node:fs/promises';
-import { resolve } from 'node:path';
+import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cutTextFindings, cutTextLine } from './harness/cutText';
 import { openSample } from './harness/openSample';
@@ -112,4 +112,27 @@ describe('the Plant log step: runs left out by label (e2e)', () => {
     await expect.poll(() => page.getByTestId('runs-rows-0').innerText(), POLL).toBe('7,500');
     expect(app.consoleErrors).toEqual([]);
   }, 180_000);
+
+  // A reason is a note (shared/runKey.ts): no row or number changes with it, so the run stays current
+  // and the report written now says the reason typed last (data/leftOutReasons.ts).
+  it('a reason edited after the run: the results stay current, and the import report and the written report say the new reason', async () => {
+    const { page, harness } = app;
+    await goToStep(page, 'plant-log');
+    await steadyFill(page.getByTestId('runs-reason-0'), 'a valve trim under test');
+    await steadyPress(page.getByTestId('runs-reason-0'), 'Tab');
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain('7,500 rows: a valve trim under test.');
+    await expect.poll(() => page.getByTestId('step-run').innerText(), POLL).toContain('Finished');
+    await goToStep(page, 'findings');
+    await expect.poll(() => page.getByTestId('write-report').isEnabled(), { ...POLL, timeout: 240_000 }).toBe(true);
+    expect(await page.getByTestId('stale-results').count()).toBe(0);
+    expect(await page.getByTestId('step-findings').innerText()).toContain('Results ready');
+    const target = join(harness.workFolder, 'runs-left-out-report.html');
+    harness.dialogs.nextExport = target;
+    await steadyClick(page.getByTestId('write-report'));
+    await expect.poll(() => page.getByTestId('report-status').innerText(), { ...POLL, timeout: 60_000 }).toContain(target);
+    const html = await readFile(target, 'utf8');
+    expect(html).toContain('7,500 rows: a valve trim under test.');
+    expect(html).not.toContain('before the retune of 3 March');
+    expect(app.consoleErrors).toEqual([]);
+  }, 300_000);
 });
