@@ -30,6 +30,7 @@ import { badRowsHint, dialectReport, excludedRows, excludedWarning, rowProblemLi
 import { leftOutWindows, logClock, readTimeWindows, recordsInWindows, type LeftOutWindow, type LogClock, type TimeWindow } from './timeWindows';
 import { leftOutRuns, readRunRanges, recordsInRunRanges, type LeftOutRuns, type RunRange } from './runRanges';
 import { leftOutReport } from './leftOutReasons';
+import { groupsLeftOut } from '../core/trend/groupsLeftOut';
 import { trendOfImport, type TrendData } from './trendSeries';
 
 export type { DatasetSummary, ColumnSummary } from './datasetSummary';
@@ -172,7 +173,8 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
     ...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding),
     ...leftOutReport(runsLeftOut, timeWindows, s.clock, columns.episode), ...episodes.report, ...derived.report, ...report,
   ];
-  const trend = trendOfImport(columns, table.numbers, s.rewards.values, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
+  const envelope = trendOfImport(columns, table.numbers, s.rewards.values, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
+  const trend = s.runRanges.length > 0 ? { ...envelope, leftOut: groupsLeftOut(s.inRunRange, envelope.rowsPerGroup, envelope.time.length) } : envelope;
   const rewardBounds = certainRewardBounds(columns.reward, s.plan.rewardExpression);
   const wholeLog = s.wholeLog && wholeLogOf(s, kept, s.wholeLog, periodSeconds);
   yield;

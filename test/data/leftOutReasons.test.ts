@@ -10,13 +10,10 @@ import { importDataset } from '../../src/data/importDataset';
 import { withCurrentReasons } from '../../src/data/leftOutReasons';
 import type { ColumnRoles, CsvSettings } from '../../src/project/schema';
 
+// A run column and a clock that starts again in each run, so both sentences are written.
 const ROLES: ColumnRoles = {
-  states: [{ column: 'level_m', unit: 'm' }],
-  actions: [{ column: 'valve_pct', unit: '%' }],
-  reward: { kind: 'column', column: 'cost', sense: 'cost', unit: '' },
-  nextState: { kind: 'nextRow' },
-  episode: { kind: 'column', column: 'run' },
-  timestamp: 'time',
+  states: [{ column: 'level_m', unit: 'm' }], actions: [{ column: 'valve_pct', unit: '%' }], timestamp: 'time',
+  reward: { kind: 'column', column: 'cost', sense: 'cost', unit: '' }, nextState: { kind: 'nextRow' }, episode: { kind: 'column', column: 'run' },
 };
 
 function log(): string {

@@ -18,6 +18,7 @@ import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
 import { setTheme } from '../renderer/e2e/appSteps';
+import { MUTED_RUNS_WORDS } from '../../src/figures/charts/trendChart';
 import { steadyClick, steadyFill, steadyPress, steadySelect } from './harness/steadyActions';
 
 
@@ -281,6 +282,36 @@ describe('the Plant log step on a clock that restarts in each run (e2e)', () => 
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain('This log’s clock starts again in each run');
     await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
     await page.getByTestId('trend-panel').screenshot({ path: 'test-artifacts/screens/plant-log-run-time-window.png', style: UNSTICK });
+    expect(app.consoleErrors).toEqual([]);
+  });
+
+  // On run time the runs lie over one another: a band over runs "1" to "10" would cover the runs kept
+  // too, so the runs left out are drawn muted and the trend says so (figures/charts/trendChart.ts).
+  it('runs left out by label are drawn muted on run time, and the trend says so; both themes at 1280×800 and 1920×1080', async () => {
+    const { page } = app;
+    const form = page.getByTestId('add-run-range');
+    await steadyFill(form.getByLabel('From run'), '1');
+    await steadyFill(form.getByLabel('To run'), '10');
+    await steadyFill(form.getByLabel('Reason'), 'before the retune');
+    await steadyClick(page.getByTestId('add-run-range-button'));
+    await expect.poll(() => page.getByTestId('runs-count-0').innerText(), POLL).toBe('10');
+    const summary = () => page.getByTestId('plot-trend').locator('p').last().textContent();
+    await expect.poll(summary, POLL).toContain(MUTED_RUNS_WORDS);
+    expect(await summary()).toContain('Runs left out by label, drawn muted: runs "1" to "10": before the retune.');
+    for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
+      await page.setViewportSize(size);
+      for (const theme of ['light', 'dark']) {
+        await setTheme(page, theme);
+        await expect.poll(() => page.getByTestId('toggle-theme').getAttribute('aria-pressed'), POLL).toBe(String(theme === 'dark'));
+        await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
+        await page.getByTestId('trend-panel').scrollIntoViewIfNeeded();
+        // The pixels on screen, not only the state attribute, which a redraw may not yet have reset.
+        await expect.poll(() => drawnPixels(page, page.getByTestId('plot-trend')).then((p) => p.drawnShare), POLL).toBeGreaterThan(0.02);
+        await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-run-time-runs-left-out-${theme}-${size.width}.png`, style: UNSTICK });
+      }
+    }
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await setTheme(page, 'light');
     expect(app.consoleErrors).toEqual([]);
   });
 });

@@ -121,6 +121,8 @@ describe('the Plant log step: runs left out by label (e2e)', () => {
     await steadyFill(page.getByTestId('runs-reason-0'), 'a valve trim under test');
     await steadyPress(page.getByTestId('runs-reason-0'), 'Tab');
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain('7,500 rows: a valve trim under test.');
+    // The trend says it too (its summary for screen readers; the band's own text is drawn on the canvas).
+    await expect.poll(() => page.getByTestId('plot-trend').locator('p').last().textContent(), POLL).toContain('runs "1" to "15": a valve trim under test');
     await expect.poll(() => page.getByTestId('step-run').innerText(), POLL).toContain('Finished');
     await goToStep(page, 'findings');
     await expect.poll(() => page.getByTestId('write-report').isEnabled(), { ...POLL, timeout: 240_000 }).toBe(true);
