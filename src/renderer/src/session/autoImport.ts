@@ -10,7 +10,7 @@
 import type { ProjectDocument } from '../../../project/schema';
 import type { DocumentStore } from '../document/documentStore';
 import type { EvaluationClient } from '../worker/evaluationClient';
-import { importKey } from '../../../shared/runKey';
+import { csvAsData, importKey } from '../../../shared/runKey';
 import { withCurrentReasons } from '../../../data/leftOutReasons';
 import type { SessionStore } from './sessionStore';
 
@@ -61,7 +61,7 @@ export function startAutoImport(documents: DocumentStore, session: SessionStore,
   function check(): void {
     const s = session.get(), doc = documents.get().history.present;
     if (s.source.kind === 'none' || s.inspection === null) return;
-    const csv = JSON.stringify(doc.data.csv);
+    const csv = JSON.stringify(csvAsData(doc.data.csv)); // a reason edited is not a new dialect
     // The first look came with the bytes; later looks follow changes of the CSV settings.
     if (inspected.version === s.sourceVersion && inspected.csv !== csv) void inspectAgain(doc, s.sourceVersion);
     inspected = { version: s.sourceVersion, csv };
