@@ -15,7 +15,7 @@ import { openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
-import { goToStep, runAndReadValues, setTheme } from '../renderer/e2e/appSteps';
+import { addRunRange, goToStep, runAndReadValues, setTheme } from '../renderer/e2e/appSteps';
 import { steadyClick, steadyFill, steadyPress } from './harness/steadyActions';
 import { evaluateProject } from '../../src/pipeline/evaluateProject';
 import { importProjectData } from '../../src/pipeline/openProject';
@@ -49,11 +49,7 @@ describe('the Plant log step: runs left out by label (e2e)', () => {
   it('adds runs "1" to "15": 15 runs and 7,500 rows counted, 25 runs left, said in the import report', async () => {
     const { page } = app;
     await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('40');
-    const form = page.getByTestId('add-run-range');
-    await steadyFill(form.getByLabel('From run'), '1');
-    await steadyFill(form.getByLabel('To run'), '15');
-    await steadyFill(form.getByLabel('Reason'), 'before the retune');
-    await steadyClick(page.getByTestId('add-run-range-button'));
+    await addRunRange(page, '1', '15', 'before the retune');
     await expect.poll(() => page.getByTestId('runs-rows-0').innerText(), POLL).toBe('7,500');
     await expect.poll(() => page.getByTestId('runs-count-0').innerText(), POLL).toBe('15');
     await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('25');
@@ -61,7 +57,7 @@ describe('the Plant log step: runs left out by label (e2e)', () => {
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL)
       .toContain('Runs left out by label (column run): 15 runs and 7,500 rows in all; 15 runs, "1" to "15", 7,500 rows: before the retune.');
     // The labels the log holds are offered while typing.
-    await expect.poll(() => form.locator('datalist option').count(), POLL).toBe(40);
+    await expect.poll(() => page.getByTestId('add-run-range').locator('datalist option').count(), POLL).toBe(40);
   });
 
   it('says at the range when a label is not in the log, with the closest label; removing it imports again', async () => {
