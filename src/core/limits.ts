@@ -167,11 +167,20 @@ export function horizonSteps(discount: number): number {
 }
 
 /**
- * A run label: a run column's cell is read as a label up to this many bytes (src/data/columnSink.ts;
- * longer is a bad cell), and a label named in data.csv.excludedRuns is at most this many characters,
- * so every label the import reads can be named (ours).
+ * A run label: at most this many characters, counted as Unicode code points (`runLabelLength` in
+ * core/runLabelText.ts) — what a person sees as one character in most scripts: an emoji or a
+ * mathematical letter such as 𝑥 is one, though a JS string counts it as two UTF-16 code units and
+ * UTF-8 writes it in four bytes. The same count for a run column's cell (src/data/columnSink.ts;
+ * longer is a bad cell) and a label named in data.csv.excludedRuns (the schema), so every label the
+ * import reads can be named (ours).
  */
 export const MAX_RUN_LABEL_LENGTH = 1024;
+/**
+ * A run column's cell longer than this in the file's bytes is not decoded: no label of
+ * MAX_RUN_LABEL_LENGTH code points takes more in UTF-8 (at most 4 bytes each, RFC 3629 §3; a doubled
+ * quote of a quoted cell is 2 bytes for 1), blanks around it aside.
+ */
+export const MAX_RUN_LABEL_BYTES = 4 * MAX_RUN_LABEL_LENGTH;
 /** Ranges of runs a project leaves out (data.csv.excludedRuns; ours, as for time windows left out). */
 export const MAX_RUN_RANGES_LEFT_OUT = 100;
 
@@ -276,3 +285,13 @@ export const SWEEP_CHECK_BUDGET = 3e8;
  * consistent (1.2344 and 1.2346 print apart, 1.2346 and 1.2354, four times as far apart, alike).
  */
 export const RANKING_TIE_RELATIVE = 1e-9;
+
+/**
+ * Where a retune map's time axis (an integral time, kept in seconds) changes the unit it is shown in,
+ * by the axis's largest value in seconds (figures/parts/tuningAxis.ts `shownTimeUnit`; rule:
+ * /work/notes/axis38-rule.md): minutes from 10 min (600 s) on, hours above 10 h (36,000 s; 10 h
+ * itself stays in minutes). Common practice: integral times are read in minutes, seconds for fast
+ * loops; the two ends are ours.
+ */
+export const TIME_AXIS_MINUTES_FROM_SECONDS = 600;
+export const TIME_AXIS_HOURS_ABOVE_SECONDS = 36_000;

@@ -13,6 +13,17 @@ export function runLabelText(label: string): string {
   return JSON.stringify(label);
 }
 
+/**
+ * A label's length in Unicode code points, the count MAX_RUN_LABEL_LENGTH (core/limits.ts) limits:
+ * a string's iterator steps by code point (ECMA-262, String.prototype[@@iterator]), so a surrogate
+ * pair is one.
+ */
+export function runLabelLength(label: string): number {
+  let n = 0;
+  for (const _ of label) n++;
+  return n;
+}
+
 /** A run as the words name it: its label where the log has a run column, else the line its first row is on. */
 export interface RunName {
   readonly label: string | null;

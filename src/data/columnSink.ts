@@ -4,7 +4,8 @@
  * record (NaN, or −1 for a label, where a cell could not be read) so that record r stays file line
  * r + 2 throughout the import. Problems go to the RowProblems log with the cell's text, shortened.
  */
-import { MAX_RUN_LABEL_LENGTH } from '../core/limits';
+import { MAX_RUN_LABEL_BYTES, MAX_RUN_LABEL_LENGTH } from '../core/limits';
+import { runLabelLength } from '../core/runLabelText';
 import { cellText, sameBytes } from './cellText';
 import type { ColumnRequest } from './columnReader';
 import { numberFromBytes } from './numericBytes';
@@ -14,9 +15,21 @@ import { readTimestamp, TIMESTAMP_FORMS } from './timestampCell';
 
 /** Bytes of a cell decoded for a message at most (messages show 40 characters). */
 const MESSAGE_BYTES = 256;
-/** Labels longer than this are not episode identifiers (the bytes are compared, then decoded; core/limits.ts). */
-const LABEL_BYTES = MAX_RUN_LABEL_LENGTH;
 const DIGIT_ZERO = 0x30;
+
+const LABEL_LIMIT_TEXT = MAX_RUN_LABEL_LENGTH.toLocaleString('en-US');
+
+/**
+ * Why a run column's cell is no run label, or null where it is one: empty, or longer than
+ * MAX_RUN_LABEL_LENGTH code points (null: a cell past MAX_RUN_LABEL_BYTES, not decoded).
+ */
+function notALabel(label: string | null): string | null {
+  if (label === '') return 'the run label cell is empty; expected a run or batch label';
+  const length = label === null ? null : runLabelLength(label);
+  if (length !== null && length <= MAX_RUN_LABEL_LENGTH) return null;
+  const held = length === null ? `more than ${LABEL_LIMIT_TEXT}` : length.toLocaleString('en-US');
+  return `the run label cell holds ${held} characters; expected a run or batch label of at most ${LABEL_LIMIT_TEXT}`;
+}
 
 export class ColumnSink {
   /** One slot per record; `capacity` must bound the records (csvScanner.recordBound). */
@@ -98,10 +111,11 @@ export class ColumnSink {
       this.values[record] = previous.code;
       return;
     }
-    const label = end - start > LABEL_BYTES ? '' : cellText(bytes, start, end, escaped).trim();
-    if (label === '') {
-      const reason = end - start > LABEL_BYTES ? `the run label cell holds ${end - start} characters; expected a short run or batch label` : 'the run label cell is empty; expected a run or batch label';
-      problems.add(record, this.request.name, 'empty-episode', reason);
+    // A cell past the byte bound that holds every label is not decoded at all (core/limits.ts).
+    const label = end - start > MAX_RUN_LABEL_BYTES ? null : cellText(bytes, start, end, escaped).trim();
+    const reason = notALabel(label);
+    if (label === null || reason !== null) {
+      problems.add(record, this.request.name, 'empty-episode', reason ?? '');
       this.values[record] = -1;
       this.previousLabel = { start: 0, end: -1, code: -1 };
       return;

@@ -27,8 +27,10 @@ import { plural } from './reportFormat';
 import { buildTransitions } from './transitionBuilder';
 import { constantStateWarnings, summariseDataset, type DatasetSummary } from './datasetSummary';
 import { badRowsHint, dialectReport, excludedRows, excludedWarning, rowProblemList, type ExcludedRow } from './importReport';
-import { leftOutWindows, logClock, readTimeWindows, recordsInWindows, windowReport, type LeftOutWindow, type LogClock, type TimeWindow } from './timeWindows';
-import { leftOutRuns, readRunRanges, recordsInRunRanges, runRangeReport, type LeftOutRuns, type RunRange } from './runRanges';
+import { leftOutWindows, logClock, readTimeWindows, recordsInWindows, type LeftOutWindow, type LogClock, type TimeWindow } from './timeWindows';
+import { leftOutRuns, readRunRanges, recordsInRunRanges, type LeftOutRuns, type RunRange } from './runRanges';
+import { leftOutReport } from './leftOutReasons';
+import { groupsLeftOut } from '../core/trend/groupsLeftOut';
 import { trendOfImport, type TrendData } from './trendSeries';
 
 export type { DatasetSummary, ColumnSummary } from './datasetSummary';
@@ -169,10 +171,10 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   const runsLeftOut = leftOutRuns(s.runRanges, s.inRunRange);
   const episodeReport = [
     ...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding),
-    ...runRangeReport(runsLeftOut, columns.episode.kind === 'column' ? columns.episode.column : undefined),
-    ...windowReport(timeWindows, s.clock ?? { calendar: false, runRestarts: 0 }), ...episodes.report, ...derived.report, ...report,
+    ...leftOutReport(runsLeftOut, timeWindows, s.clock, columns.episode), ...episodes.report, ...derived.report, ...report,
   ];
-  const trend = trendOfImport(columns, table.numbers, s.rewards.values, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
+  const envelope = trendOfImport(columns, table.numbers, s.rewards.values, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
+  const trend = s.runRanges.length > 0 ? { ...envelope, leftOut: groupsLeftOut(s.inRunRange, envelope.rowsPerGroup, envelope.time.length) } : envelope;
   const rewardBounds = certainRewardBounds(columns.reward, s.plan.rewardExpression);
   const wholeLog = s.wholeLog && wholeLogOf(s, kept, s.wholeLog, periodSeconds);
   yield;

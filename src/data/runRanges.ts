@@ -8,7 +8,8 @@
  * transitions, fits, checks, start states) sees only the runs kept. A label that reappears later in
  * the file is one label: all its rows go.
  *
- * A range stops the import with a problem naming its field when the log has no run column (runs cut
+ * A problem names a range by its number, never by its reason (a note that changes without an
+ * import: data/leftOutReasons.ts). A range stops the import with a problem naming its field when the log has no run column (runs cut
  * at time gaps or a single run have no labels to name), names a label the log does not hold (the
  * closest label offered), ends before it starts, overlaps another range, or when the ranges
  * together leave no run.
@@ -51,7 +52,6 @@ function rangeProblem(i: number, message: string, end?: End): ImportProblem {
   return { ...importProblem('bad-run-range', whereOf(i, end), message), field: fieldOf(i, end) };
 }
 
-const name = (r: { reason: string }, i: number) => (r.reason ? `“${r.reason}”` : `${i + 1}`);
 
 /** What to do instead when the runs have no labels, by how the project finds its runs. */
 function noRunColumn(episode: ColumnRoles['episode']): string {
@@ -90,7 +90,7 @@ export function readRunRanges(
   for (let k = 1; k < sorted.length; k++) {
     const [a, b] = [sorted[k - 1], sorted[k]];
     if (b.fromCode <= a.toCode) {
-      problems.push(rangeProblem(b.index, `range ${name(b, b.index)} overlaps range ${name(a, a.index)} (${whereOf(a.index)}); join them into one range or move an end`));
+      problems.push(rangeProblem(b.index, `range ${b.index + 1} overlaps range ${a.index + 1} (${whereOf(a.index)}); join them into one range or move an end`));
     }
   }
   const leftOut = read.reduce((sum, r) => sum + r.toCode - r.fromCode + 1, 0);

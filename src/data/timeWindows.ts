@@ -8,7 +8,8 @@
  *
  * A window stops the import with a problem naming its field when it cannot be read, ends before
  * it starts, lies wholly outside the log, or overlaps another window; and every window needs a
- * timestamp column.
+ * timestamp column. A problem names a window by its number, never by its reason: the reason is a
+ * note that changes without an import (data/leftOutReasons.ts), so a message would keep an old one.
  *
  * When the clock starts again in each run (a run column, and the time steps back where the run
  * changes: each run's own elapsed time), a window is a stretch of that run-relative time and takes
@@ -75,8 +76,6 @@ function secondsOf(value: number | string, order: DateOrder): number {
   return reading ? reading[order] : NaN;
 }
 
-const label = (w: ExcludedTime | TimeWindow, i: number) => (w.reason ? `“${w.reason}”` : `${i + 1}`);
-
 /** The windows in seconds on the timestamp column's clock, or the problems that stop the import. */
 export function readTimeWindows(
   windows: readonly ExcludedTime[], timestampColumn: string | undefined, order: DateOrder, clock: LogClock | undefined,
@@ -94,16 +93,16 @@ export function readTimeWindows(
     }
     if (Number.isNaN(from) || Number.isNaN(to)) return;
     if (to < from) {
-      problems.push(windowProblem(i, `window ${label(w, i)} ends (${clockText(to, clock.calendar)}) before it starts (${clockText(from, clock.calendar)}); expected an end at or after the start`, 'to'));
+      problems.push(windowProblem(i, `window ${i + 1} ends (${clockText(to, clock.calendar)}) before it starts (${clockText(from, clock.calendar)}); expected an end at or after the start`, 'to'));
     } else if (to < clock.firstSeconds || from > clock.lastSeconds) {
-      problems.push(windowProblem(i, `window ${label(w, i)} (${clockText(from, clock.calendar)} to ${clockText(to, clock.calendar)}) lies outside the log: ${range}`));
+      problems.push(windowProblem(i, `window ${i + 1} (${clockText(from, clock.calendar)} to ${clockText(to, clock.calendar)}) lies outside the log: ${range}`));
     } else read.push({ fromSeconds: from, toSeconds: to, reason: w.reason, index: i });
   });
   const sorted = [...read].sort((a, b) => a.fromSeconds - b.fromSeconds);
   for (let k = 1; k < sorted.length; k++) {
     const [a, b] = [sorted[k - 1], sorted[k]];
     if (b.fromSeconds <= a.toSeconds) {
-      problems.push(windowProblem(b.index, `window ${label(b, b.index)} overlaps window ${label(a, a.index)} (${whereOf(a.index)}); join them into one window or move an end`));
+      problems.push(windowProblem(b.index, `window ${b.index + 1} overlaps window ${a.index + 1} (${whereOf(a.index)}); join them into one window or move an end`));
     }
   }
   return { windows: read.map(({ fromSeconds, toSeconds, reason }) => ({ fromSeconds, toSeconds, reason })), problems };

@@ -11,6 +11,7 @@ import { strictObject } from './strictObject';
 import { finite } from './finiteNumber';
 import { approximatorSchema } from './approximatorSchema';
 import { unitText } from './unitText';
+import { runLabelLength } from '../core/runLabelText';
 import {
   BOOTSTRAP_RESAMPLES, CONFIDENCE_LEVEL, MAX_DERIVED_STATES, MAX_RETUNE_MAPS, MAX_SCHEDULE_BREAKPOINTS, DEFAULT_QUADRATURE_NODES, DISCOUNT_RANGE, MAX_ACTION_COLUMNS, MAX_CANDIDATES, MAX_EXPRESSION_LENGTH,
   MAX_GAUSS_HERMITE_NODES, MIN_QUADRATURE_NODES, MAX_PREVIOUS_STEPS, MAX_RUN_LABEL_LENGTH, MAX_RUN_RANGES_LEFT_OUT, MAX_STATE_COLUMNS, SEED, SURFACE_RESOLUTION,
@@ -84,7 +85,7 @@ export const excludedTimeSchema = strictObject({
 /** A run label as the run column's cells read (trimmed, as the import reads them; src/core/runLabelText.ts). */
 const runLabel = z.string({ error: (issue) => `expected a run label${issue.input === undefined ? '' : ' in quotes'}, as the run column’s cells read, e.g. "40"` }).trim()
   .min(1, 'expected a run label, as the run column’s cells read, e.g. "40"')
-  .max(MAX_RUN_LABEL_LENGTH, `expected a run label of at most ${MAX_RUN_LABEL_LENGTH} characters`);
+  .refine((label) => runLabelLength(label) <= MAX_RUN_LABEL_LENGTH, `expected a run label of at most ${MAX_RUN_LABEL_LENGTH} characters`);
 
 /**
  * Runs left out of the import by their label (a retune, a trip test): every row of the runs from

@@ -130,13 +130,47 @@ describe('a range of runs that cannot be used stops the import, naming its field
   it('overlapping ranges', () => {
     const [p] = problems([{ from: '1', to: '4', reason: 'a' }, { from: '4', to: '6', reason: 'b' }]);
     expect(p.where).toBe('data.csv.excludedRuns[1]');
-    expect(p.message).toContain('range “b” overlaps range “a” (data.csv.excludedRuns[0])');
+    expect(p.message).toContain('range 2 overlaps range 1 (data.csv.excludedRuns[0])');
   });
 
   it('ranges that leave no run', () => {
     const [p] = problems([{ from: '1', to: '5', reason: '' }, { from: '6', to: '10', reason: '' }]);
     expect(p.where).toBe('data.csv.excludedRuns[1]');
     expect(p.message).toContain('all 10 runs of column run');
+  });
+});
+
+// MAX_RUN_LABEL_LENGTH counts code points, in the cell and in the field alike (core/limits.ts). U+1F6E2
+// (an oil drum) is one code point, two UTF-16 code units and four UTF-8 bytes (RFC 3629 §3; Unicode
+// code chart 1F680–1F6FF, from memory), so a label of them at the limit is 4,096 bytes and 2,048 units.
+describe('a run label of 4-byte characters at the limit and one over', () => {
+  const DRUM = '\u{1F6E2}';
+  const atLimit = DRUM.repeat(MAX_RUN_LABEL_LENGTH), over = DRUM.repeat(MAX_RUN_LABEL_LENGTH + 1);
+  it('the character is what the comment says it is', () => {
+    expect([DRUM.length, new TextEncoder().encode(DRUM).length, [...DRUM].length]).toEqual([2, 4, 1]);
+  });
+
+  it('at the limit: read from the log, named in the field, and its run left out', () => {
+    const labels = ['1', atLimit, '3', '4'];
+    expect(imported([]).runLabels).toEqual(NUMBERED); // the helper's own log, for contrast
+    const parsed = dataSourceSchema.safeParse({ path: 'x.csv', csv: { excludedRuns: [{ from: atLimit }] } });
+    expect(parsed.success).toBe(true);
+    const v = imported([{ from: atLimit, reason: '' }], log(labels));
+    expect(v.runLabels).toEqual(labels);
+    expect(v.runsLeftOut).toEqual([{ from: atLimit, to: atLimit, reason: '', runs: 1, rows: ROWS_PER_RUN }]);
+  });
+
+  it('one over: the field is refused at its path, and the cell is a bad cell named by its line and column', () => {
+    const parsed = dataSourceSchema.safeParse({ path: 'x.csv', csv: { excludedRuns: [{ from: over }] } });
+    expect(parsed.error?.issues[0].path).toEqual(['csv', 'excludedRuns', 0, 'from']);
+    expect(parsed.error?.issues[0].message).toBe(`expected a run label of at most ${MAX_RUN_LABEL_LENGTH} characters`);
+    const [p] = problems([], log(['1', over, '3', '4']));
+    expect(p.where).toBe('log.csv, line 7, column run'); // the header is line 1, run "1" lines 2–6
+    // 4,100 bytes: past the bound that holds every label (4 × 1,024), so not decoded.
+    expect(p.message).toContain('the run label cell holds more than 1,024 characters; expected a run or batch label of at most 1,024');
+    const [q] = problems([], log(['1', '2', 'x'.repeat(MAX_RUN_LABEL_LENGTH + 1)]));
+    expect(q.where).toBe('log.csv, line 12, column run');
+    expect(q.message).toContain('the run label cell holds 1,025 characters; expected a run or batch label of at most 1,024');
   });
 });
 

@@ -143,7 +143,7 @@ describe('a time window that cannot be used stops the import, naming its field',
   it('an end before the start', () => {
     const [p] = problems([{ from: 50, to: 30, reason: 'test' }]);
     expect(p.where).toBe('data.csv.excludedTimes[0].to');
-    expect(p.message).toBe('window “test” ends (30 s) before it starts (50 s); expected an end at or after the start');
+    expect(p.message).toBe('window 1 ends (30 s) before it starts (50 s); expected an end at or after the start');
   });
 
   it('a window wholly outside the log', () => {
@@ -155,7 +155,7 @@ describe('a time window that cannot be used stops the import, naming its field',
   it('overlapping windows: the later one is named, with the one it overlaps', () => {
     const [p] = problems([{ from: 45, to: 70, reason: 'b' }, { from: 30, to: 50, reason: 'a' }]);
     expect(p.where).toBe('data.csv.excludedTimes[0]');
-    expect(p.message).toContain('window “b” overlaps window “a” (data.csv.excludedTimes[1])');
+    expect(p.message).toContain('window 1 overlaps window 2 (data.csv.excludedTimes[1])');
   });
 
   it('no timestamp column', () => {

@@ -17,7 +17,8 @@ import { openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
-import { setTheme } from '../renderer/e2e/appSteps';
+import { addRunRange, setTheme } from '../renderer/e2e/appSteps';
+import { MUTED_RUNS_WORDS } from '../../src/figures/charts/trendChart';
 import { steadyClick, steadyFill, steadyPress, steadySelect } from './harness/steadyActions';
 
 
@@ -99,6 +100,26 @@ async function dragTrend(page: Page, fromSeconds: number, toSeconds: number, rel
     }
   }
   if (release) await page.mouse.up();
+}
+
+/**
+ * At 1280×800 and 1920×1080, in the light theme and the dark, once the trend is drawn in that theme —
+ * the pixels on screen, not only the state attribute, which a redraw after the switch may not yet
+ * have reset — and nothing on the step is wider than the page: then `shoot`.
+ */
+async function eachLook(page: Page, shoot: (theme: string, width: number) => Promise<void>): Promise<void> {
+  for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
+    await page.setViewportSize(size);
+    for (const theme of ['light', 'dark']) {
+      await setTheme(page, theme);
+      await expect.poll(() => page.getByTestId('toggle-theme').getAttribute('aria-pressed'), POLL).toBe(String(theme === 'dark'));
+      await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
+      await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth), POLL).toBe(true);
+      await page.getByTestId('trend-panel').scrollIntoViewIfNeeded();
+      await expect.poll(() => drawnPixels(page, page.getByTestId('plot-trend')).then((p) => p.drawnShare), POLL).toBeGreaterThan(0.02);
+      await shoot(theme, size.width);
+    }
+  }
 }
 
 describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)', () => {
@@ -205,7 +226,7 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
 
     // A drag over the window already there gets the form's overlap message; Ctrl+Z clears it.
     await dragTrend(page, at(13, 8, 30), at(13, 9, 30));
-    await expect.poll(() => page.getByTestId('window-problems').innerText(), POLL).toContain('window 2 overlaps window “valve test” (data.csv.excludedTimes[0])');
+    await expect.poll(() => page.getByTestId('window-problems').innerText(), POLL).toContain('window 2 overlaps window 1 (data.csv.excludedTimes[0])');
     await page.keyboard.press('Control+z');
     await expect.poll(() => page.getByTestId('window-problems').count(), POLL).toBe(0);
     await expect.poll(() => page.getByTestId('window-rows-0').innerText(), POLL).toBe('60');
@@ -224,21 +245,10 @@ describe('the Plant log step: trend, time windows left out, bad-row hint (e2e)',
 
   it('looks right in both themes at 1280×800 and 1920×1080', async () => {
     const { page } = app;
-    for (const size of [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }]) {
-      await page.setViewportSize(size);
-      for (const theme of ['light', 'dark']) {
-        await setTheme(page, theme);
-        await expect.poll(() => page.getByTestId('toggle-theme').getAttribute('aria-pressed'), POLL).toBe(String(theme === 'dark'));
-        await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
-        // Nothing on the step is wider than the page.
-        await expect.poll(() => page.evaluate(() => document.documentElement.scrollWidth <= window.innerWidth), POLL).toBe(true);
-        await page.getByTestId('trend-panel').scrollIntoViewIfNeeded();
-        // Drawn in this theme: the pixels on screen, not only the state attribute, which a redraw after the switch may not yet have reset.
-        await expect.poll(() => drawnPixels(page, page.getByTestId('plot-trend')).then((p) => p.drawnShare), POLL).toBeGreaterThan(0.02);
-        await app.screenshot(`plant-log-trend-${theme}-${size.width}`);
-        await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-trend-panel-${theme}-${size.width}.png`, style: UNSTICK });
-      }
-    }
+    await eachLook(page, async (theme, width) => {
+      await app.screenshot(`plant-log-trend-${theme}-${width}`);
+      await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-trend-panel-${theme}-${width}.png`, style: UNSTICK });
+    });
     expect(app.consoleErrors).toEqual([]);
   });
 });
@@ -281,6 +291,23 @@ describe('the Plant log step on a clock that restarts in each run (e2e)', () => 
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain('This log’s clock starts again in each run');
     await expect.poll(() => page.getByTestId('plot-trend').getAttribute('data-chart-state'), POLL).toBe('drawn');
     await page.getByTestId('trend-panel').screenshot({ path: 'test-artifacts/screens/plant-log-run-time-window.png', style: UNSTICK });
+    expect(app.consoleErrors).toEqual([]);
+  });
+
+  // On run time the runs lie over one another: a band over runs "1" to "10" would cover the runs kept
+  // too, so the runs left out are drawn muted and the trend says so (figures/charts/trendChart.ts).
+  it('runs left out by label are drawn muted on run time, and the trend says so; both themes at 1280×800 and 1920×1080', async () => {
+    const { page } = app;
+    await addRunRange(page, '1', '10', 'before the retune');
+    await expect.poll(() => page.getByTestId('runs-count-0').innerText(), POLL).toBe('10');
+    const summary = () => page.getByTestId('plot-trend').locator('p').last().textContent();
+    await expect.poll(summary, POLL).toContain(MUTED_RUNS_WORDS);
+    expect(await summary()).toContain('Runs left out by label, drawn muted: runs "1" to "10": before the retune.');
+    await eachLook(page, async (theme, width) => {
+      await page.getByTestId('trend-panel').screenshot({ path: `test-artifacts/screens/plant-log-run-time-runs-left-out-${theme}-${width}.png`, style: UNSTICK });
+    });
+    await page.setViewportSize({ width: 1280, height: 800 });
+    await setTheme(page, 'light');
     expect(app.consoleErrors).toEqual([]);
   });
 });

@@ -8,14 +8,14 @@
  * test-artifacts/screens/, and no text on the step is cut (harness/cutText.ts).
  */
 import { readFile } from 'node:fs/promises';
-import { resolve } from 'node:path';
+import { join, resolve } from 'node:path';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { cutTextFindings, cutTextLine } from './harness/cutText';
 import { openSample } from './harness/openSample';
 import { POLL } from './harness/poll';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { UNSTICK } from './harness/unstick';
-import { goToStep, runAndReadValues, setTheme } from '../renderer/e2e/appSteps';
+import { addRunRange, goToStep, runAndReadValues, setTheme } from '../renderer/e2e/appSteps';
 import { steadyClick, steadyFill, steadyPress } from './harness/steadyActions';
 import { evaluateProject } from '../../src/pipeline/evaluateProject';
 import { importProjectData } from '../../src/pipeline/openProject';
@@ -49,11 +49,7 @@ describe('the Plant log step: runs left out by label (e2e)', () => {
   it('adds runs "1" to "15": 15 runs and 7,500 rows counted, 25 runs left, said in the import report', async () => {
     const { page } = app;
     await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('40');
-    const form = page.getByTestId('add-run-range');
-    await steadyFill(form.getByLabel('From run'), '1');
-    await steadyFill(form.getByLabel('To run'), '15');
-    await steadyFill(form.getByLabel('Reason'), 'before the retune');
-    await steadyClick(page.getByTestId('add-run-range-button'));
+    await addRunRange(page, '1', '15', 'before the retune');
     await expect.poll(() => page.getByTestId('runs-rows-0').innerText(), POLL).toBe('7,500');
     await expect.poll(() => page.getByTestId('runs-count-0').innerText(), POLL).toBe('15');
     await expect.poll(() => page.getByTestId('episode-count').innerText(), POLL).toBe('25');
@@ -61,7 +57,7 @@ describe('the Plant log step: runs left out by label (e2e)', () => {
     await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL)
       .toContain('Runs left out by label (column run): 15 runs and 7,500 rows in all; 15 runs, "1" to "15", 7,500 rows: before the retune.');
     // The labels the log holds are offered while typing.
-    await expect.poll(() => form.locator('datalist option').count(), POLL).toBe(40);
+    await expect.poll(() => page.getByTestId('add-run-range').locator('datalist option').count(), POLL).toBe(40);
   });
 
   it('says at the range when a label is not in the log, with the closest label; removing it imports again', async () => {
@@ -112,4 +108,29 @@ describe('the Plant log step: runs left out by label (e2e)', () => {
     await expect.poll(() => page.getByTestId('runs-rows-0').innerText(), POLL).toBe('7,500');
     expect(app.consoleErrors).toEqual([]);
   }, 180_000);
+
+  // A reason is a note (shared/runKey.ts): no row or number changes with it, so the run stays current
+  // and the report written now says the reason typed last (data/leftOutReasons.ts).
+  it('a reason edited after the run: the results stay current, and the import report and the written report say the new reason', async () => {
+    const { page, harness } = app;
+    await goToStep(page, 'plant-log');
+    await steadyFill(page.getByTestId('runs-reason-0'), 'a valve trim under test');
+    await steadyPress(page.getByTestId('runs-reason-0'), 'Tab');
+    await expect.poll(() => page.getByTestId('import-summary').innerText(), POLL).toContain('7,500 rows: a valve trim under test.');
+    // The trend says it too (its summary for screen readers; the band's own text is drawn on the canvas).
+    await expect.poll(() => page.getByTestId('plot-trend').locator('p').last().textContent(), POLL).toContain('runs "1" to "15": a valve trim under test');
+    await expect.poll(() => page.getByTestId('step-run').innerText(), POLL).toContain('Finished');
+    await goToStep(page, 'findings');
+    await expect.poll(() => page.getByTestId('write-report').isEnabled(), { ...POLL, timeout: 240_000 }).toBe(true);
+    expect(await page.getByTestId('stale-results').count()).toBe(0);
+    expect(await page.getByTestId('step-findings').innerText()).toContain('Results ready');
+    const target = join(harness.workFolder, 'runs-left-out-report.html');
+    harness.dialogs.nextExport = target;
+    await steadyClick(page.getByTestId('write-report'));
+    await expect.poll(() => page.getByTestId('report-status').innerText(), { ...POLL, timeout: 60_000 }).toContain(target);
+    const html = await readFile(target, 'utf8');
+    expect(html).toContain('7,500 rows: a valve trim under test.');
+    expect(html).not.toContain('before the retune of 3 March');
+    expect(app.consoleErrors).toEqual([]);
+  }, 300_000);
 });

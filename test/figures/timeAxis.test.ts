@@ -22,9 +22,9 @@ describe('time axis', () => {
     expect(values.map((v) => timeTickLabel(v, false, stepSeconds, 12_000))).toEqual(['0 s', '1 h', '2 h', '3 h']);
   });
 
-  it('the envelope is drawn through each group’s min then max, with a gap where a group is empty', () => {
+  it('the envelope is drawn through each group’s min then max, with a gap where a group is empty, each point carrying its group', () => {
     const points = envelopePoints(Float64Array.from([0, 10, 20]), { name: 'v', role: 'state', unit: '', lo: Float64Array.from([1, NaN, 2]), hi: Float64Array.from([3, NaN, 2]) });
-    expect(points).toEqual([{ x: 0, y: 1 }, { x: 0, y: 3 }, { x: 10, y: null }, { x: 20, y: 2 }]);
+    expect(points).toEqual([{ x: 0, y: 1, g: 0 }, { x: 0, y: 3, g: 0 }, { x: 10, y: null }, { x: 20, y: 2, g: 2 }]); // g: the group a point is drawn from
   });
 
   it('a stop in the log (a step over 3 × the median step of 10) is a gap, not a straight line across it', () => {

@@ -30,6 +30,8 @@ export interface TrendData {
   readonly rowsPerGroup: number;
   readonly rowCount: number;
   readonly signals: readonly TrendSignal[];
+  /** g: 1 + the index of the range of runs left out by label whose rows the group holds, else 0 (groupsLeftOut.ts); absent when no run is left out by label. */
+  readonly leftOut?: Uint16Array;
 }
 
 /** Groups drawn at most: about one per pixel column of a wide screen's chart (a choice). */

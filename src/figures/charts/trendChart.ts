@@ -5,12 +5,18 @@
  * per group of rows, about one group per pixel column, the smallest and largest value); the line
  * runs through (t, min), (t, max) of every group in turn, so the drawing looks like the full trace
  * at screen width and a one-row spike still shows. Time windows left out are shaded grey across
- * every band with their reason on top.
+ * every band with their reason on top, and so are the runs left out by label (data.csv.excludedRuns),
+ * from the first group holding their rows to the last (core/trend/groupsLeftOut.ts): one key "left
+ * out" in the legend, the reason on top and on hover. On a clock that starts again in each run the
+ * runs lie over one another, so a band would cover runs kept too: there the runs left out are drawn
+ * in the muted text colour instead, and the subtitle says so.
  */
 import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
 import { clockText, durationText } from '../../core/clockText';
 import type { TrendData, TrendSignal } from '../../core/trend/signalEnvelope';
+import { leftOutStretches } from '../../core/trend/groupsLeftOut';
 import { BACKED_TEXT_DEFAULTS, drawBackedText } from '../parts/backedText';
+import { legendPlugin, type LegendKey } from '../parts/legendBox';
 import { axisTitles, sharedOptions, valueAxis } from '../parts/chartStyle';
 import { fontString, PLOT_FONTS, type PlotLook } from '../parts/plotLook';
 import type { Theme } from '../parts/plotTheme';
@@ -33,9 +39,12 @@ export interface TrendPlotProps {
   theme: Theme;
   /** The clock starts again in each run (run time): the runs are drawn over one another on it. */
   runTime?: boolean;
+  /** Per range of runs left out by label, in the order of `trend.leftOut`'s indices: what hover and the band say ("runs "1" to "15": before the retune"). */
+  runsLeftOut?: readonly string[];
 }
 
-type XY = { x: number; y: number | null };
+/** g: the envelope group the point is drawn from (a gap has none). */
+type XY = { x: number; y: number | null; g?: number };
 
 export function trendChartHeight(trend: TrendData): number {
   return TREND_DEFAULTS.frameHeightPx + TREND_DEFAULTS.bandHeightPx * Math.max(1, trend.signals.length);
@@ -66,8 +75,8 @@ export function envelopePoints(time: Float64Array, signal: TrendSignal): XY[] {
     else if (x < previous) points.push({ x, y: null }); // the clock started again (a new run on run time): no line drawn back
     previous = x;
     if (Number.isNaN(lo)) { points.push({ x, y: null }); continue; }
-    points.push({ x, y: lo });
-    if (hi !== lo) points.push({ x, y: hi });
+    points.push({ x, y: lo, g });
+    if (hi !== lo) points.push({ x, y: hi, g });
   }
   return points;
 }
@@ -91,24 +100,32 @@ function timeRange(trend: TrendData): [number, number] {
 export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
   const { trend } = props, p = look.palette, s = look.scale, [min, max] = timeRange(trend);
   const colours = [...p.series];
-  const datasets: ChartDataset<'line', XY[]>[] = trend.signals.map((signal, k) => ({
-    label: signalLabel(signal), yAxisID: `y${k}`, data: envelopePoints(trend.time, signal),
-    borderColor: colours[k % colours.length], backgroundColor: colours[k % colours.length],
-    borderWidth: TREND_DEFAULTS.lineWidthPx * s, pointRadius: 0, pointHitRadius: 4 * s, spanGaps: false,
-  }));
+  const left = leftOutView(props);
+  const datasets: ChartDataset<'line', XY[]>[] = trend.signals.map((signal, k) => {
+    const data = envelopePoints(trend.time, signal);
+    return {
+      label: signalLabel(signal), yAxisID: `y${k}`, data,
+      borderColor: colours[k % colours.length], backgroundColor: colours[k % colours.length],
+      borderWidth: TREND_DEFAULTS.lineWidthPx * s, pointRadius: 0, pointHitRadius: 4 * s, spanGaps: false,
+      ...(left.muted ? { segment: { borderColor: (c: { p1DataIndex: number }) => (left.rangeOf(data[c.p1DataIndex]?.g) >= 0 ? p.mutedText : undefined) } } : {}),
+    };
+  });
   // Chart.js stacks axes of one stack from the bottom up in the order they are declared: declared
   // last to first, the first signal (a state) is the top band.
   const yScales = Object.fromEntries(trend.signals.map((_, k) => [`y${k}`, {
     ...valueAxis(look, 'left'), type: 'linear' as const, stack: 'signals', stackWeight: 1, offset: true,
     ticks: { ...valueAxis(look, 'left').ticks, maxTicksLimit: 4 },
   }]).reverse());
-  const shared = sharedOptions(look, props.title, trendSubtitle(trend));
+  const shared = sharedOptions(look, props.title, trendSubtitle(trend, left.muted));
   const xTitle = trend.clock === 'line' ? 'line in the file' : trend.calendar ? 'time (the log’s clock)'
     : props.runTime ? 'time in each run (the runs drawn over one another)' : 'time from the log’s zero';
   return {
     type: 'line',
     data: { datasets },
-    plugins: [windowShading(props.windows, look), bandLabels(trend.signals, look), ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: xTitle }])],
+    plugins: [
+      ...(left.keyKinds.length ? [legendPlugin(leftOutKeys(left.keyKinds, look), look)] : []),
+      windowShading([...props.windows, ...left.bands], look), bandLabels(trend.signals, look), ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: xTitle }]),
+    ],
     options: {
       ...shared,
       parsing: false,
@@ -122,6 +139,7 @@ export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfigur
           callbacks: {
             title: (items) => (items.length ? timeText(trend, items[0].parsed.x ?? NaN) : ''),
             label: (item) => `${item.dataset.label}: ${formatValue(item.parsed.y ?? NaN)}`,
+            footer: (items) => (items.length ? left.hover(items[0].parsed.x ?? NaN, (items[0].raw as XY | undefined)?.g) : ''),
           },
         },
       },
@@ -148,11 +166,12 @@ function timeScale(trend: TrendData, min: number, max: number, look: PlotLook) {
   };
 }
 
-function trendSubtitle(trend: TrendData): string {
+function trendSubtitle(trend: TrendData, muted = false): string {
   const rows = trend.rowCount.toLocaleString('en-US');
-  return trend.rowsPerGroup > 1
+  const drawn = trend.rowsPerGroup > 1
     ? `${rows} rows, drawn as the smallest and largest value of every ${trend.rowsPerGroup.toLocaleString('en-US')} rows`
     : `${rows} rows`;
+  return muted ? `${drawn}; ${MUTED_RUNS_WORDS}` : drawn;
 }
 
 /** Grey shading over each window left out, its reason written at the top. */
@@ -209,6 +228,48 @@ export function trendSummary(props: TrendPlotProps): string {
   const [min, max] = timeRange(trend);
   const span = trend.clock === 'line' ? `lines ${min} to ${max}` : `${clockText(min, trend.calendar)} to ${clockText(max, trend.calendar)} (${durationText(max - min)})`;
   const left = windows.length === 0 ? 'No time window left out.' : `${windows.length} time window${windows.length === 1 ? '' : 's'} left out, shaded: ${windows.map((w) => `${w.label || 'window'} from ${timeText(trend, w.fromSeconds)} to ${timeText(trend, w.toSeconds)}`).join('; ')}.`;
+  const runs = props.runsLeftOut ?? [], view = leftOutView(props);
+  const byLabel = runs.length === 0 ? '' : ` Runs left out by label, ${view.muted ? 'drawn muted' : 'shaded'}: ${runs.join('; ')}.`;
   const over = props.runTime ? `${span} of run time, the runs drawn over one another` : span;
-  return `Trend of ${trend.signals.map(signalLabel).join(', ')} over ${over}; ${trendSubtitle(trend)}. ${left}`;
+  return `Trend of ${trend.signals.map(signalLabel).join(', ')} over ${over}; ${trendSubtitle(trend, view.muted)}. ${left}${byLabel}`;
+}
+
+/** Said under the title where the runs left out are drawn muted rather than shaded. */
+export const MUTED_RUNS_WORDS = 'runs left out drawn muted (each run on its own clock: a band would cover runs kept too)';
+
+/** How the runs left out by label are shown: bands (with the windows' look) or muted lines, the legend key, and what hover says. */
+interface LeftOutView {
+  readonly bands: readonly TrendWindow[];
+  readonly muted: boolean;
+  /** The legend's keys: "left out" for a band's swatch, and a muted line for runs drawn muted ("runs left out" where bands are shown too). */
+  readonly keyKinds: readonly ('area' | 'line')[];
+  /** The range of a group (−1: none). */
+  rangeOf(g: number | undefined): number;
+  /** The hover's footer at x on the time axis, for a point of group g: what is left out there. */
+  hover(x: number, g: number | undefined): string;
+}
+
+function leftOutKeys(kinds: readonly ('area' | 'line')[], look: PlotLook): LegendKey[] {
+  const p = look.palette, line = kinds.length > 1 ? 'runs left out' : 'left out';
+  return kinds.map((kind) => (kind === 'line'
+    ? { label: line, kind, colour: p.mutedText, lineWidthPx: TREND_DEFAULTS.lineWidthPx }
+    : { label: 'left out', kind, colour: p.bandFill, border: p.axis }));
+}
+
+function leftOutView(props: TrendPlotProps): LeftOutView {
+  const { trend, windows } = props, labels = props.runsLeftOut ?? [], marked = trend.leftOut;
+  const muted = Boolean(props.runTime && marked && labels.length > 0);
+  const rangeOf = (g: number | undefined): number => (g === undefined || !marked ? -1 : marked[g] - 1);
+  const bands: TrendWindow[] = muted || !marked ? [] : leftOutStretches(marked).map((r) => ({
+    fromSeconds: trend.time[r.first], toSeconds: r.last + 1 < trend.time.length ? trend.time[r.last + 1] : trend.endTime, label: labels[r.range] ?? '',
+  }));
+  return {
+    bands, muted, rangeOf,
+    keyKinds: [...(windows.length + bands.length > 0 ? ['area' as const] : []), ...(muted ? ['line' as const] : [])],
+    hover(x, g) {
+      const there = [...windows, ...bands].filter((w) => x >= w.fromSeconds && x <= w.toSeconds).map((w) => `left out${w.label ? `: ${w.label}` : ''}`);
+      const range = muted ? rangeOf(g) : -1;
+      return [...there, ...(range >= 0 ? [`left out: ${labels[range] ?? ''}`] : [])].join('\n');
+    },
+  };
 }

@@ -1,8 +1,8 @@
 /**
  * A retune map's tuning axis as the engineer reads it (rule: /work/notes/axis38-rule.md, written before
  * the change): a time (an integral time, in the project's seconds) is shown in minutes from 10 min of
- * axis and in hours above 10 h (TIME_AXIS_UNITS; common practice: integral times are read in minutes,
- * seconds for fast loops), and a time axis or a logarithmically spaced one gets round ticks rather than
+ * axis and in hours above 10 h (TIME_AXIS_MINUTES_FROM_SECONDS, TIME_AXIS_HOURS_ABOVE_SECONDS in
+ * core/limits.ts; common practice: integral times are read in minutes, seconds for fast loops), and a time axis or a logarithmically spaced one gets round ticks rather than
  * a label at each cell centre ("10, 20, 50, 100 min", never "4,301 s"). The ticks come from the house's
  * two tick writers — the log-axis rule's 1-2-5 × 10^k (logTicks.ts) on a geometric grid, Heckbert's
  * 1-2-5 steps (niceTicks.ts) on an even one — and on a cell map each stands at its true place between
@@ -10,12 +10,11 @@
  * not a time keeps one label per cell (gridPointLabels): its values are the engineer's own even steps.
  * The heat map, the one-axis curve, their exports and the report all take their axes from here.
  */
+import { TIME_AXIS_HOURS_ABOVE_SECONDS, TIME_AXIS_MINUTES_FROM_SECONDS } from '../../core/limits';
 import { logTickValues } from './logTicks';
 import { niceTicks } from './niceTicks';
 import { formatTick, gridPointLabels } from './tickFormat';
 
-/** The time unit a tuning value is kept in (the project's), and where the shown unit changes (seconds of the axis's largest value). */
-export const TIME_AXIS_UNITS = { unit: 's', minutesFrom: 600, hoursAbove: 36_000 } as const;
 /** The time units an axis may be shown in, in seconds (an axis already shown in one is read back by the same rule). */
 const TIME_UNIT_SECONDS: Readonly<Record<string, number>> = { s: 1, min: 60, h: 3600 };
 /** About this many ticks on an evenly spaced axis (Heckbert's target). */
@@ -61,7 +60,7 @@ export function shownTimeUnit(axis: TuningAxisData): { unit: string; seconds: nu
   const own = axis.unit === undefined ? undefined : TIME_UNIT_SECONDS[axis.unit];
   if (own === undefined || !axis.label.endsWith(` (${axis.unit})`)) return null;
   const largest = Math.max(...axis.values.map(Math.abs)) * own;
-  const [unit, seconds] = largest > TIME_AXIS_UNITS.hoursAbove ? ['h', 3600] : largest >= TIME_AXIS_UNITS.minutesFrom ? ['min', 60] : ['s', 1];
+  const [unit, seconds] = largest > TIME_AXIS_HOURS_ABOVE_SECONDS ? ['h', 3600] : largest >= TIME_AXIS_MINUTES_FROM_SECONDS ? ['min', 60] : ['s', 1];
   return { unit, seconds, perShownUnit: seconds / own };
 }
 

@@ -117,3 +117,12 @@ export async function setTheme(page: Page, theme: string): Promise<void> {
     await new Promise((r) => setTimeout(r, 50));
   }
 }
+
+/** Plant log → Runs left out: add the range `from` to `to` (empty: that one run) with its reason. */
+export async function addRunRange(page: Page, from: string, to: string, reason: string): Promise<void> {
+  const form = page.getByTestId('add-run-range');
+  await steadyFill(form.getByLabel('From run'), from);
+  await steadyFill(form.getByLabel('To run'), to);
+  await steadyFill(form.getByLabel('Reason'), reason);
+  await steadyClick(page.getByTestId('add-run-range-button'));
+}

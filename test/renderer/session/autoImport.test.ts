@@ -27,7 +27,7 @@ function scriptedClient(): { client: EvaluationClient; answers: ((r: WorkerResul
   const client: EvaluationClient = {
     call(call) {
       calls.push(call);
-      if (call !== 'importData') return Promise.resolve({ kind: 'result', id: 0, ok: true, value: null, warnings: [] } as never);
+      if (call !== 'importData') return Promise.resolve({ kind: 'result', id: 0, ok: true, value: call === 'inspect' ? {} : null, warnings: [] } as never);
       return new Promise((r) => { answers.push(r as (r: WorkerResult) => void); });
     },
     cancel() {},
@@ -55,12 +55,43 @@ describe('imports that follow the document', () => {
     s.answers[0]({ kind: 'result', id: 1, ok: false, problems: [{ ...CANCELLED }] }); // heard late, at its next block
     await vi.advanceTimersByTimeAsync(0);
     expect(session.get().importState.status).toBe('importing');
-    const value = { fingerprint: 'f' } as never;
+    const value = { fingerprint: 'f', episodeReport: [], timeWindows: [], runsLeftOut: [] } as never;
     s.answers[1]({ kind: 'result', id: 2, ok: true, value, warnings: [] });
     await vi.advanceTimersByTimeAsync(0);
     const state = session.get().importState;
     expect(state.status).toBe('done');
     if (state.status === 'done') expect(state.result).toBe(value);
+    stop();
+  });
+
+  // A reason is a note (shared/runKey.ts): no import is asked for, the last one's report takes it.
+  it('a reason edited after an import asks for no import and puts the new reason in the last import\'s report; a new `to` imports again', async () => {
+    const withRange = { ...project, data: { ...project.data, csv: { ...project.data.csv, excludedRuns: [{ from: '1', to: '15', reason: 'before the retune' }] } } };
+    const documents = createDocumentStore(withRange), session = createSessionStore(), s = scriptedClient();
+    const stop = startAutoImport(documents, session, s.client);
+    session.set((x) => ({ ...x, source: { kind: 'sample', fileName: 'tank-levels.csv', bytes: new Uint8Array(1) }, inspection: {} as never }));
+    await vi.advanceTimersByTimeAsync(IMPORT_PAUSE_MS);
+    const said = 'Runs left out by label (column run): 15 runs and 7,500 rows in all; 15 runs, "1" to "15", 7,500 rows: before the retune.';
+    const value = {
+      fingerprint: 'f', episodeReport: ['Delimiter: ",".', said], timeWindows: [],
+      runsLeftOut: [{ from: '1', to: '15', reason: 'before the retune', runs: 15, rows: 7500 }],
+    } as never;
+    s.answers[0]({ kind: 'result', id: 1, ok: true, value, warnings: [] });
+    await vi.advanceTimersByTimeAsync(0);
+    const edit = (range: { from: string; to: string; reason: string }) => documents.edit('edit', (d) => ({ ...d, data: { ...d.data, csv: { ...d.data.csv, excludedRuns: [range] } } }));
+    edit({ from: '1', to: '15', reason: 'a valve trim under test' });
+    await vi.advanceTimersByTimeAsync(IMPORT_PAUSE_MS);
+    expect(s.answers).toHaveLength(1);
+    expect(s.calls).not.toContain('inspect'); // nor is the header read again
+    const state = session.get().importState;
+    expect(state.status).toBe('done');
+    if (state.status === 'done') {
+      expect(state.result.runsLeftOut[0].reason).toBe('a valve trim under test');
+      expect(state.result.episodeReport).toEqual(['Delimiter: ",".', said.replace('before the retune', 'a valve trim under test')]);
+    }
+    edit({ from: '1', to: '16', reason: 'a valve trim under test' });
+    await vi.advanceTimersByTimeAsync(IMPORT_PAUSE_MS);
+    expect(s.answers).toHaveLength(2);
     stop();
   });
 });

@@ -4,7 +4,8 @@ import { resolve } from 'node:path';
 import { describe, expect, it } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
 import { approximatorSchema } from '../../../src/project/approximatorSchema';
-import { importKey, runKey } from '../../../src/shared/runKey';
+import type { CsvSettings, ProjectDocument } from '../../../src/project/schema';
+import { importKey, runKey, runKeyWithNotes } from '../../../src/shared/runKey';
 
 const loaded = parseProjectText(readFileSync(resolve(__dirname, '../../../sample-projects/tank-levels/tank-levels.spcritic'), 'utf8'), 'p');
 if (!loaded.ok) throw new Error('sample does not load');
@@ -53,5 +54,41 @@ describe('run key', () => {
     expect(importKey(bounded(0), 1)).not.toBe(importKey(bounded(5), 1));
     expect(importKey(bounded(0, 'truncate'), 1)).toBe(importKey(bounded(0), 1));
     expect(importKey({ ...doc, candidates: [{ ...doc.candidates[0], dither: [2] }, ...doc.candidates.slice(1)] }, 1)).toBe(importKey(doc, 1));
+  });
+
+  // A reason given for what is left out is a note: it changes no row or number, so editing it must
+  // neither import again nor mark results out of date; the runs and times it names must do both.
+  describe('what is left out: the ends are data, the reason is a note', () => {
+    const withCsv = (csv: Partial<CsvSettings>): ProjectDocument => ({ ...doc, data: { ...doc.data, csv: { ...doc.data.csv, ...csv } } });
+    const runs = (from: string, to: string | undefined, reason: string) => withCsv({ excludedRuns: [{ from, ...(to ? { to } : {}), reason }] });
+    const times = (from: number, to: number, reason: string) => withCsv({ excludedTimes: [{ from, to, reason }] });
+
+    it('a changed reason keeps both keys', () => {
+      for (const [a, b] of [[runs('3', '5', ''), runs('3', '5', 'before the retune')], [times(0, 600, 'start-up'), times(0, 600, 'valve test')]]) {
+        expect(runKey(b, 'f')).toBe(runKey(a, 'f'));
+        expect(importKey(b, 1)).toBe(importKey(a, 1));
+      }
+    });
+
+    it('a changed, added or removed end changes both keys', () => {
+      const base = runs('3', '5', 'retune');
+      for (const other of [runs('3', '6', 'retune'), runs('2', '5', 'retune'), runs('3', undefined, 'retune'), withCsv({ excludedRuns: [] }), withCsv({})]) {
+        expect(runKey(other, 'f')).not.toBe(runKey(base, 'f'));
+        expect(importKey(other, 1)).not.toBe(importKey(base, 1));
+      }
+      expect(runKey(times(0, 900, 'x'), 'f')).not.toBe(runKey(times(0, 600, 'x'), 'f'));
+      expect(importKey(times(60, 600, 'x'), 1)).not.toBe(importKey(times(0, 600, 'x'), 1));
+    });
+
+    it('the user\'s notes and the fields carried over from an older format are notes too', () => {
+      expect(runKey({ ...doc, notes: { comment: 'checked by the shift lead' }, carriedOver: { old: 1 } }, 'f')).toBe(runKey(doc, 'f'));
+    });
+
+    // Results kept by an earlier version carry the fingerprint of its key (reasons and notes in it).
+    it('keeps the earlier form for a project without reasons or notes, and can still write it', () => {
+      expect(runKey(runs('3', '5', ''), 'f')).toBe(runKeyWithNotes(runs('3', '5', ''), 'f'));
+      expect(runKeyWithNotes(runs('3', '5', 'trip'), 'f')).not.toBe(runKey(runs('3', '5', 'trip'), 'f'));
+      expect(JSON.parse(runKeyWithNotes(runs('3', '5', 'trip'), 'f')).csv.excludedRuns[0].reason).toBe('trip');
+    });
   });
 });

@@ -11,7 +11,7 @@ import { resolve } from 'node:path';
 import { parseProjectText } from '../../../src/project/projectFile';
 import { createSessionStore } from '../../../src/renderer/src/session/sessionStore';
 import { newProjectDocument } from '../../../src/renderer/src/document/newProject';
-import { runKey } from '../../../src/shared/runKey';
+import { runKey, runKeyWithNotes } from '../../../src/shared/runKey';
 import { rankingVerdict } from '../../../src/figures/charts/sensitivity';
 import { trialAnswer, trialChoice } from '../../../src/pipeline/trialChoice';
 import type { FunctionClassAssessment } from '../../../src/pipeline/assessment';
@@ -127,5 +127,21 @@ describe('retune maps kept with the results', () => {
       expect(state.retuneMaps.status === 'done' && state.retuneMaps.runKey).toBe(current ? key : `out of date: ${results.fingerprint}`);
       expect(state.evaluation?.restored?.current).toBe(current);
     }
+  });
+
+  // Before the reasons and notes left the key, it held them: results kept then carry that key's
+  // fingerprint, and the numbers of the same project are the same, so they open as current.
+  it('restores results kept under the earlier key (reasons and notes in it) as current', () => {
+    const base = { ...newProjectDocument(), retuneMaps: undefined, notes: 'reviewed' };
+    const doc = { ...base, data: { ...base.data, csv: { ...base.data.csv, excludedRuns: [{ from: '3', reason: 'trip test' }] } } };
+    const results = resultsOf({ evaluation: parsedEvaluation, assessment: null, retuneMaps: null }, runKeyWithNotes(doc, 'data-a'), new Date());
+    expect(runKey(doc, 'data-a')).not.toBe(runKeyWithNotes(doc, 'data-a'));
+    const session = createSessionStore();
+    restoreResults({ ...doc, results }, 'data-a', session);
+    expect(session.get().evaluation?.restored?.current).toBe(true);
+    expect(session.get().evaluation?.runKey).toBe(runKey(doc, 'data-a'));
+    const other = createSessionStore();
+    restoreResults({ ...doc, results }, 'data-b', other);
+    expect(other.get().evaluation?.restored?.current).toBe(false);
   });
 });

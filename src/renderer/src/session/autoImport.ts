@@ -3,12 +3,15 @@
  * change, and the roles are complete enough to read transitions, the worker imports again (after
  * a short pause, so a burst of edits costs one import). CSV settings that change the dialect also
  * refresh the header preview. An import in progress stops in the worker when a newer one is asked
- * for, and on a stop message when the roles no longer make transitions.
+ * for, and on a stop message when the roles no longer make transitions. A reason given for a time
+ * window or runs left out is a note: editing it imports nothing, the last import's report takes it
+ * (data/leftOutReasons.ts).
  */
 import type { ProjectDocument } from '../../../project/schema';
 import type { DocumentStore } from '../document/documentStore';
 import type { EvaluationClient } from '../worker/evaluationClient';
-import { importKey } from '../../../shared/runKey';
+import { csvAsData, importKey } from '../../../shared/runKey';
+import { withCurrentReasons } from '../../../data/leftOutReasons';
 import type { SessionStore } from './sessionStore';
 
 export const IMPORT_PAUSE_MS = 250;
@@ -47,15 +50,23 @@ export function startAutoImport(documents: DocumentStore, session: SessionStore,
     return importKey(documents.get().history.present, session.get().sourceVersion);
   }
 
+  /** A reason edited after the import: the import's report says the new one (a note: nothing is imported again). */
+  function keepReasonsCurrent(doc: ProjectDocument): void {
+    const s = session.get().importState;
+    if (s.status !== 'done') return;
+    const result = withCurrentReasons(s.result, doc.data.csv, doc.columns.episode);
+    if (result !== s.result) session.set((x) => ({ ...x, importState: { ...s, result } }));
+  }
+
   function check(): void {
     const s = session.get(), doc = documents.get().history.present;
     if (s.source.kind === 'none' || s.inspection === null) return;
-    const csv = JSON.stringify(doc.data.csv);
+    const csv = JSON.stringify(csvAsData(doc.data.csv)); // a reason edited is not a new dialect
     // The first look came with the bytes; later looks follow changes of the CSV settings.
     if (inspected.version === s.sourceVersion && inspected.csv !== csv) void inspectAgain(doc, s.sourceVersion);
     inspected = { version: s.sourceVersion, csv };
     const key = currentKey();
-    if (key === importedKey) return;
+    if (key === importedKey) return keepReasonsCurrent(doc);
     if (timer) clearTimeout(timer);
     if (!rolesComplete(doc)) {
       importedKey = '';

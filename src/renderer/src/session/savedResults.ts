@@ -14,7 +14,7 @@ import type { RetuneMapResult } from '../../../pipeline/retuneMaps';
 import type { ProjectDocument, SavedResults } from '../../../project/schema';
 import { tunableParameters } from '../../../project/candidateParameters';
 import type { DocumentStore } from '../document/documentStore';
-import { runFingerprint, runKey } from '../../../shared/runKey';
+import { runFingerprint, runKey, runKeyWithNotes } from '../../../shared/runKey';
 import type { SessionStore } from './sessionStore';
 
 /** What one run produced: the evaluation, and its assessment and retune maps once computed. */
@@ -122,7 +122,8 @@ export function restoreResults(doc: ProjectDocument, dataFingerprint: string, se
     return false;
   }
   const key = runKey(doc, dataFingerprint);
-  const current = runFingerprint(key) === saved.fingerprint;
+  // Results kept by a version whose key held the reasons and notes are current under that key too.
+  const current = runFingerprint(key) === saved.fingerprint || runFingerprint(runKeyWithNotes(doc, dataFingerprint)) === saved.fingerprint;
   const recordKey = current ? key : `out of date: ${saved.fingerprint}`;
   const assessment = assessmentFromJson(saved.assessment), maps = retuneMapsFromJson(saved.retuneMaps)?.map((m) => withAxisUnits(m, doc)) ?? null;
   session.set((s) => ({

@@ -10,7 +10,8 @@ import { failure, type Result } from '../../../core/result';
 import { importProjectDataPaced, type OpenedProject } from '../../../pipeline/openProject';
 import type { ProjectRun } from '../../../pipeline/projectRun';
 import type { ProjectDocument } from '../../../project/schema';
-import { runKey } from '../../../shared/runKey';
+import { csvAsData, runKey } from '../../../shared/runKey';
+import { withCurrentReasons } from '../../../data/leftOutReasons';
 
 export interface EvaluatedRun {
   project: ProjectDocument;
@@ -49,9 +50,14 @@ export interface WorkerMemory {
 
 const NO_DATA = 'no data file is loaded yet; choose a CSV file on the Plant log step';
 
-/** The parts of a project an import depends on; the same key means the same import. */
+/** The parts of a project an import depends on (the reasons given for what is left out are not: csvAsData); the same key means the same import. */
 function importKey(project: ProjectDocument): string {
-  return JSON.stringify([project.data, project.columns]);
+  return JSON.stringify([{ ...project.data, csv: csvAsData(project.data.csv) }, project.columns]);
+}
+
+/** A kept import for `project`: its reasons for what was left out are the project's (data/leftOutReasons.ts). */
+function openedFor(opened: OpenedProject, project: ProjectDocument): OpenedProject {
+  return { ...opened, project, imported: withCurrentReasons(opened.imported, project.data.csv, project.columns.episode) };
 }
 
 /** An import in progress: its key, its answer to come, and its stop request. */
@@ -105,13 +111,13 @@ export function createWorkerMemory(pace?: () => Promise<void>): WorkerMemory {
     async open(project) {
       if (!data) return failure({ where: 'data', message: NO_DATA });
       const key = importKey(project);
-      if (cached && cached.key === key) return { ok: true, value: { ...cached.opened, project }, warnings: cached.opened.warnings };
+      if (cached && cached.key === key) return { ok: true, value: openedFor(cached.opened, project), warnings: cached.opened.warnings };
       if (running?.key !== key) {
         stopImport();
         running = startImport(project, data, key);
       }
       const opened = await running.answer;
-      return opened.ok ? { ok: true, value: { ...opened.value, project }, warnings: opened.warnings } : opened;
+      return opened.ok ? { ok: true, value: openedFor(opened.value, project), warnings: opened.warnings } : opened;
     },
     stopImport,
     keepRun(evaluated) {

@@ -1,11 +1,13 @@
 /**
  * The logged signals over time (src/figures/charts/trendChart.ts, drawn by the chart worker) with
- * the time windows left out shaded. A window is added by dragging across the trend
+ * the time windows and the runs left out by label shaded (runs drawn muted on a clock that starts
+ * again in each run). A window is added by dragging across the trend
  * (TrendWindowDrag.tsx) or by typing its ends (TimeWindows.tsx); both edit the project
  * (data.csv.excludedTimes) the same undoable way, each edit imports again, and the counts of rows
  * and runs left out come back from the import.
  */
 import { useMemo, useRef, useState } from 'react';
+import { runSpanText } from '../../../../core/runLabelText';
 import type { PlotSpec } from '../../../../figures/writers/plotSpec';
 import type { DataImport } from '../../../../shared/workerMessages';
 import { useSession } from '../../hooks';
@@ -19,6 +21,12 @@ import { draggedWindow } from './trendDrag';
 import { TrendWindowDrag } from './TrendWindowDrag';
 
 const same = (t: Theme) => t;
+
+/** What the trend says of a range of runs left out: 'runs "1" to "15": before the retune'. */
+function runsLeftOutLabel(r: DataImport['runsLeftOut'][number]): string {
+  const span = runSpanText({ label: r.from, line: 0 }, { label: r.to, line: 0 }) ?? ''; // labels, so never null
+  return `${span}${r.reason ? `: ${r.reason}` : ''}`;
+}
 
 /** The last import that succeeded, kept while a new one runs so the chart does not blink. */
 function useLastImport(): DataImport | null {
@@ -40,6 +48,7 @@ export function TrendPanel() {
     props: {
       trend: imported.trend, theme, title: 'Logged signals over time', runTime: (imported.clock?.runRestarts ?? 0) > 0,
       windows: imported.timeWindows.map((w) => ({ fromSeconds: w.fromSeconds, toSeconds: w.toSeconds, label: w.reason })),
+      runsLeftOut: imported.runsLeftOut.map(runsLeftOutLabel),
     },
   }, [imported, theme]);
   if (!imported || !spec) return null;
