@@ -13,13 +13,14 @@
  * stretch (the automatic output when manual began, its dither included); the plant and the cost see it.
  *
  * The log draws the automatic action on every row, held or not, in episodeLog.ts's order (the run's burn-in
- * start; per step the action, then the process noise), so its random stream is the plant's own log's: with
- * share 0 the log is the plant's, bit for bit, and the run starts are the same.
+ * start; per step the action, then the process noise; brokenLog.ts's logger keeps it), so its random stream is
+ * the plant's own log's: with share 0 the log is the plant's, bit for bit, and the run starts are the same.
  */
-import { createGaussianPolicy, sampleAction, type GaussianPolicySpec } from '../../../src/core/policy';
+import type { GaussianPolicySpec } from '../../../src/core/policy';
 import { createRandom } from '../../../src/core/random';
 import type { TransitionSet } from '../../../src/core/transitions';
-import { burnInStart, type PlantDynamics } from '../episodeLog';
+import type { PlantDynamics } from '../episodeLog';
+import { logBrokenRuns, steadyRun } from './brokenLog';
 
 /** A stretch's length in steps, drawn uniformly from the whole numbers shortest..longest. */
 export const MANUAL_STEPS = { shortest: 10, longest: 40 } as const;
@@ -76,34 +77,26 @@ export interface ManualLogPlant {
   readonly actionNames: readonly string[];
 }
 
-/** `runs` runs of `steps` rows of the plant under its automatic law from its burn-in start, the stretches' rows held. */
+/**
+ * `runs` runs of `steps` rows of the plant under its automatic law from its burn-in start, the stretches' rows
+ * held: brokenLog.ts's logger with one run condition whose plant, on a held row, replaces the action it is handed
+ * (the law's draw) by the action logged before the stretch — in place, so the log records what the plant got.
+ */
 export function logManualRuns(plant: ManualLogPlant, runs: number, steps: number, share: number, seed: number): ManualLog {
-  const { dynamics } = plant, ds = dynamics.stateDim, m = dynamics.actionDim, count = runs * steps;
-  const policy = createGaussianPolicy(plant.behaviour, ds), start = burnInStart(dynamics, policy, plant.operatingState, plant.burnIn);
+  const m = plant.dynamics.actionDim, count = runs * steps;
   const stretches = manualStretches(runs, steps, share, seed), held = new Uint8Array(count), heldFrom = new Int32Array(count).fill(-1);
   for (const s of stretches) { held.fill(1, s.start, s.start + s.length); heldFrom.fill(s.start - 1, s.start, s.start + s.length); }
-  const rng = createRandom(seed);
-  const states = new Float64Array(count * ds), actions = new Float64Array(count * m), nextStates = new Float64Array(count * ds);
-  const rewards = new Float64Array(count), episode = new Int32Array(count), startStates = new Float64Array(runs * ds);
-  const x = new Float64Array(ds), a = new Float64Array(m), next = new Float64Array(ds);
-  for (let e = 0, row = 0; e < runs; e++) {
-    start(rng, x);
-    startStates.set(x, e * ds);
-    for (let t = 0; t < steps; t++, row++) {
-      sampleAction(policy, x, rng, a);
-      if (held[row]) a.set(actions.subarray(heldFrom[row] * m, heldFrom[row] * m + m));
-      rewards[row] = -dynamics.step(x, a, rng, next);
-      states.set(x, row * ds);
-      actions.set(a, row * m);
-      nextStates.set(next, row * ds);
-      episode[row] = e;
-      x.set(next);
-    }
-  }
-  const data: TransitionSet = {
-    count, stateDim: ds, actionDim: m, stateNames: [...plant.stateNames], actionNames: [...plant.actionNames],
-    states, actions, rewards, nextStates, terminal: new Uint8Array(count), episode, episodeCount: runs, startStates,
-    sourceLine: Int32Array.from({ length: count }, (_, i) => i + 2),
+  const given = new Float64Array(count * m);
+  let row = 0;
+  const dynamics: PlantDynamics = {
+    stateDim: plant.dynamics.stateDim, actionDim: m,
+    step(x, a, rng, next) {
+      if (held[row]) a.set(given.subarray(heldFrom[row] * m, heldFrom[row] * m + m));
+      given.set(a, row++ * m);
+      return plant.dynamics.step(x, a, rng, next);
+    },
   };
+  const automatic = steadyRun(plant.dynamics, plant.behaviour, plant.operatingState, plant.burnIn), run = { ...automatic, dynamics };
+  const data = logBrokenRuns({ episodes: runs, stepsPerEpisode: steps, seed, stateNames: plant.stateNames, actionNames: plant.actionNames, runConditions: () => run });
   return { data, held, stretches };
 }
