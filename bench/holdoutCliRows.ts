@@ -21,6 +21,10 @@
  * standard errors; "confident and right" when it has no serious finding, is settled and its range
  * holds the truth (within that margin); "cautious" otherwise.
  *
+ * Each log's `# repeated actions:` line (bench/repeatedActions.ts; descriptive, no rule reads it) gives the share of
+ * rows whose action repeats the row before exactly and the longest such streak: the trace of a valve held in manual
+ * (the manual-stretch hold-outs, test/battery/holdout/manualStretchPlants.ts).
+ *
  * Each log also gives one baseline row (printed with candidate "present controller", kept apart in
  * --out's sibling `*.baseline.json`): the present controller's J and interval, its cross-checks and
  * confirmation status, and the truth of the plant's logging policy (plant.behaviour, with its limits)
@@ -37,6 +41,8 @@ import { rolloutTruth } from '../test/battery/rolloutTruth';
 import { rolloutTruthPlants } from '../test/battery/rolloutTruthPlants';
 import { brokenLogPlants, keptAssumptionPlants, movedSetpointPlants } from '../test/battery/holdout/brokenLogPlants';
 import type { BrokenLogPlant } from '../test/battery/holdout/brokenLog';
+import { manualStretchPlants } from '../test/battery/holdout/manualStretchPlants';
+import { repeatedActions } from './repeatedActions';
 import { cliCommand } from './builtCli';
 import { keptRunsAfterChange } from './keptRuns';
 import { DRIFT_RECENT_SHARE } from '../src/core/limits';
@@ -50,7 +56,7 @@ const ROLLOUTS_PER_START = { default: 100, more: 200 } as const;
 const MORE_ROLLOUTS = ['holdout-backlash-level-g0.96', 'holdout-header-pressure-g0.98', 'greenhouse-clipped-g0.95', 'pendulum-saturating-g0.97',
   'holdout-aeration-noisy-probe-g0.95', 'holdout-dosing-pump-wear-g0.96', 'holdout-cold-store-retuned-g0.97',
   'holdout-aeration-clean-probe-g0.95', 'holdout-dosing-pump-steady-g0.96', 'holdout-cold-store-one-tuning-g0.97',
-  'holdout-cold-store-setpoint-moved-g0.97', 'holdout-cold-store-setpoint-nudged-g0.97'];
+  'holdout-cold-store-setpoint-moved-g0.97', 'holdout-cold-store-setpoint-nudged-g0.97', 'holdout-cold-store-manual-10-g0.97', 'holdout-cold-store-manual-30-g0.97'];
 const ROLLOUT_SEED = 31_337;
 /** The baseline's row name in the printed table (its rows are kept apart in --out, under `baseline`). */
 const PRESENT = 'present controller';
@@ -124,7 +130,7 @@ async function main() {
   const args = process.argv.slice(2);
   // The plants whose logs break an assumption (noisy readings, drift, two tunings) and their controls (kept) after the others; each law's truth is
   // rolled out as it acts on the true state (truthPolicy: a law on a noisy reading), on the end-of-log plant.
-  const all: (ReturnType<typeof rolloutTruthPlants>[number] & Partial<Pick<BrokenLogPlant, 'truthPolicy'>>)[] = [...rolloutTruthPlants(), ...brokenLogPlants(), ...keptAssumptionPlants(), ...movedSetpointPlants()], known = new Set(all.map((p) => p.name));
+  const all: (ReturnType<typeof rolloutTruthPlants>[number] & Partial<Pick<BrokenLogPlant, 'truthPolicy'>>)[] = [...rolloutTruthPlants(), ...brokenLogPlants(), ...keptAssumptionPlants(), ...movedSetpointPlants(), ...manualStretchPlants()], known = new Set(all.map((p) => p.name));
   const names = option(args, 'plants', [...known].join(',')).split(',');
   const unknown = [...names, ...MORE_ROLLOUTS].filter((n) => !known.has(n));
   if (unknown.length) throw new Error(`holdoutCliRows: no plant with rollout truth named ${unknown.join(', ')} (have ${[...known].join(', ')})`);
@@ -145,6 +151,8 @@ async function main() {
     const csv = `${plant.name}-s${seed}${cut && !byLabel ? '-kept' : ''}.csv`;
     if (cut) console.log(`#\tkept runs: ${cut.from}–${cut.runs - 1} of ${cut.runs} (${cut.why}); ${data.count} transitions${byLabel ? '; left out by data.csv.excludedRuns' : ''}`);
     writeFileSync(join(work, csv), csvOf(plant, byLabel ? whole : data));
+    const repeated = repeatedActions(data);
+    console.log(`#\trepeated actions: ${(100 * repeated.share).toFixed(2)} % of rows repeat the row before exactly; longest streak ${repeated.longest} rows`);
     const projectPath = join(work, `${plant.name}-s${seed}-${approximator}.spcritic`);
     writeFileSync(projectPath, JSON.stringify(projectOf(plant, csv, approximator, seed, data.terminal.some((t) => t !== 0), excludedRuns), null, 2));
     const cli = cliCommand('evaluate', projectPath, '--json', ...(resamples ? ['--resamples', resamples] : []));
