@@ -16,7 +16,7 @@ import { coverageSentences, typesetMinus, unvisitedSentence } from './assessment
 import { FindingTable } from './FindingTable';
 import { FoldPanel } from './FoldPanel';
 import { groupFoldId, setOpen } from './foldMemory';
-import { useGroupFold, useProjectKey } from './useFold';
+import { useFold, useGroupFold, useProjectKey } from './useFold';
 
 export function CoveragePanel({ assessment }: { assessment: Assessment }) {
   const unvisited = unvisitedSentence(assessment.unvisitedShare, assessment.warnings), memory = plantMemorySentence(assessment.plantMemory);
@@ -24,6 +24,8 @@ export function CoveragePanel({ assessment }: { assessment: Assessment }) {
   const matrix = findingMatrix(assessment);
   const [log, ...policies] = matrix.rows;
   const key = useProjectKey();
+  // Two columns for the matrix while open; folded, one line of gist takes one column as before (a folded panel across two pushed the default page down by some 520 px).
+  const [panelOpen] = useFold('coverage');
   const jump = useCallback((row: FindingRow, index: number) => {
     if (row.kind !== 'log') setOpen(key, [groupFoldId('coverage', groupOf(row))], true);
     requestAnimationFrame(() => { // after React has opened the group
@@ -33,7 +35,7 @@ export function CoveragePanel({ assessment }: { assessment: Assessment }) {
     });
   }, [key]);
   return (
-    <FoldPanel section="coverage" span="span-2" testId="coverage" gist={coverageGist(assessment)}>
+    <FoldPanel section="coverage" span={panelOpen ? 'span-2' : undefined} testId="coverage" gist={coverageGist(assessment)}>
       <FindingTable matrix={matrix} onJump={jump} />
       <div className="finding-group" data-testid="coverage-log">
         <h4>{log.label}</h4>
