@@ -232,6 +232,9 @@ describe.each(CASES)('screens and exports of $id (e2e)', (c) => {
     if (c.twoActions) {
       await expect.poll(() => page.getByTestId('dither-dependence').innerText(), POLL).toMatch(/hot_valve_pct and cold_valve_pct move together \(correlation 0\.\d\d/);
       await goToStep(page, 'findings');
+      // Under Coverage it is the present controller's caution (pipeline/findingMatrix.ts), its group folded to its count: its mark in the findings table opens it.
+      await expect.poll(() => page.getByTestId('finding-row-present').innerText(), POLL).toMatch(/caution/);
+      await steadyClick(page.getByTestId('finding-row-present').getByRole('link').first());
       await expect.poll(() => page.getByTestId('findings-grid').innerText(), POLL).toContain('move together');
       // The answer names a trial here (no serious warning for it) and says the log's cautions beside it.
       await expect.poll(() => page.getByTestId('answer-log-cautions').innerText(), POLL).toMatch(/cautions? on the whole log/);
