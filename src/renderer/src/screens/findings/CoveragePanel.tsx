@@ -24,7 +24,7 @@ export function CoveragePanel({ assessment }: { assessment: Assessment }) {
   const matrix = findingMatrix(assessment);
   const [log, ...policies] = matrix.rows;
   const key = useProjectKey();
-  // Two columns for the matrix while open; folded, one line of gist takes one column as before (a folded panel across two pushed the default page down by some 520 px).
+  // Two columns for the matrix while open; folded, its one line of gist keeps one column, so the default page is laid out as before.
   const [panelOpen] = useFold('coverage');
   const jump = useCallback((row: FindingRow, index: number) => {
     if (row.kind !== 'log') setOpen(key, [groupFoldId('coverage', groupOf(row))], true);
