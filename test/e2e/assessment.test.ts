@@ -73,6 +73,10 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     expect(sameDecimals(panel).filter(([, same]) => !same)).toEqual([]);
     const rows = await page.getByTestId('cross-checks').locator('tbody tr').evaluateAll((trs) => trs.map((tr) => [...tr.querySelectorAll('td')].slice(0, 2).map((td) => td.textContent ?? '').join(' ')));
     expect(rows.map((row) => row.replace(/\u2212/g, '-')).filter((row) => /\[/.test(row) && sameDecimals(row).some(([, same]) => !same))).toEqual([]);
+    // A policy's group without a serious finding starts folded to its count (CoveragePanel.tsx): open each, as a reader would, to read its figures.
+    const folded = await page.locator('[data-section="coverage"] details.finding-group:not([open])').evaluateAll((ds) => ds.map((d) => d.getAttribute('data-testid') ?? ''));
+    for (const id of folded) await steadyClick(page.locator(`[data-testid="${id}"] > summary`));
+    await expect.poll(() => page.locator('[data-section="coverage"] details.finding-group:not([open])').count(), POLL).toBe(0);
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('Occupancy shift');
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('outside the logged range');
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toMatch(/Plant memory: the 8 rows before explain (at most|less than) [\d.]+\s%/); // \s: the share writer holds "%" to its number with a no-break space

@@ -16,6 +16,7 @@ import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import type { Page } from 'playwright-core';
 import { POLL } from './harness/poll';
 import { openSample } from './harness/openSample';
+import { runToFindingsWithMap } from './harness/findingsSections';
 import { launchApp, type LaunchedApp } from './harness/launch';
 import { goToStep, setTheme } from '../renderer/e2e/appSteps';
 import { steadyClick } from './harness/steadyActions';
@@ -75,13 +76,7 @@ describe('the Findings layout (e2e)', () => {
   it('after a run with the assessment and a map, answers first', async () => {
     const { page } = app;
     await openSample(app, 'heating-loop');
-    await goToStep(page, 'run');
-    await steadyClick(page.getByTestId('run-evaluation'));
-    await page.getByTestId('run-finished').waitFor({ timeout: 180_000 });
-    await goToStep(page, 'findings');
-    await steadyClick(page.getByTestId('compute-retune-map'));
-    await page.getByTestId('retune-map-headline').waitFor({ timeout: 240_000 });
-    await page.getByTestId('answer-rule').waitFor({ timeout: 240_000 });
+    await runToFindingsWithMap(page);
     const first = await page.evaluate(() => (document.querySelector('[data-testid="findings-grid"]')?.firstElementChild as HTMLElement | null)?.dataset.section);
     expect(first).toBe('answer');
     expect(await page.getByTestId('answer-lead').innerText()).toMatch(/^(Trial first: .+\. J [\d.]+ \[[\d.−]+, [\d.]+\]|No candidate is named for a trial\.)/);

@@ -1,5 +1,5 @@
 /** The evidence sections: coverage diagnostics, cross-checks, sensitivity, and the warnings and cautions. */
-import type { Assessment, AssessmentWarning, CandidateAssessment } from '../assessment';
+import type { Assessment, CandidateAssessment } from '../assessment';
 import { OCCUPANCY_SHIFT_LIMITS, UPPER_PERCENTILE } from '../../core/diagnostics/severity';
 import { shiftText } from '../../core/diagnostics/shiftText';
 import { CAUTIONS } from '../cautions';
@@ -16,6 +16,7 @@ import { shareText, sharesText } from '../../core/shareText';
 import { unvisitedSentence } from '../unvisitedWords';
 import { typesetText } from '../../core/typesetText';
 import { effectiveRunsNumber } from '../../core/offPolicy/effectiveRunsText';
+import { findingsHtml } from './reportFindings';
 
 export function diagnosticsSection(input: ReportInput): Html {
   const a = input.assessment;
@@ -28,7 +29,7 @@ export function diagnosticsSection(input: ReportInput): Html {
     ${cutParagraph(a)}
     ${unvisitedParagraph(a)}
     ${memoryParagraph(a)}
-    <h3>Warnings</h3>${warningList([...a.warnings, ...a.candidates.flatMap((c) => c.warnings.map((w) => ({ ...w, message: `${c.name}: ${w.message}` })))])}</section>`;
+    <h3>Warnings</h3>${findingsHtml(a)}</section>`;
 }
 
 /** Where a range to report was cut to what the reward's definition allows, and why (assessPossible.ts cutToCertain). */
@@ -79,12 +80,6 @@ const classesWord = (settled: boolean | null | undefined): string => (settled ==
 
 function rangeCell(c: { reportedRange?: [number, number] | null; rangeCut?: string }): string {
   return c.reportedRange ? `${intervalAtPrecision(c.reportedRange)}${c.rangeCut ? ' (cut)' : ''}` : '—';
-}
-
-function warningList(warnings: AssessmentWarning[]): Html {
-  if (!warnings.length) return html`<p>None.</p>`;
-  const ordered = [...warnings].sort((x, y) => (x.severity === y.severity ? 0 : x.severity === 'serious' ? -1 : 1));
-  return html`<ul>${ordered.map((w) => html`<li class="warning ${w.severity}"><strong>${w.severity === 'serious' ? 'Serious' : 'Caution'}:</strong> ${typesetText(w.message)}</li>`)}</ul>`;
 }
 
 export function crossChecksSection(input: ReportInput, figures: FigureCounter): Html {

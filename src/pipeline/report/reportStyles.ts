@@ -40,6 +40,13 @@ svg .value { fill: #333; }
 .warning { margin: 4px 0; }
 .warning.serious strong { color: var(--serious); }
 .warning.caution strong { color: var(--caution); }
+.finding-table { width: auto; font-size: 12.5px; }
+.finding-table caption { text-align: left; color: var(--muted); padding-bottom: 4px; }
+.finding-table thead th { vertical-align: bottom; max-width: 7.5em; }
+.finding-table td.finding-cell { text-align: center; padding: 4px 8px; }
+.finding-table td.finding-cell.none { color: var(--muted); }
+.finding-table td.finding-cell.serious a { color: var(--serious); font-weight: 700; }
+.finding-table td.finding-cell.caution a { color: var(--caution); }
 .verdict-agrees { color: var(--ok); font-weight: 600; }
 .verdict-disagrees { color: var(--serious); font-weight: 600; }
 .verdict-uninformative, .verdict-notApplicable { color: var(--caution); font-weight: 600; }

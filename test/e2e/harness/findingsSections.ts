@@ -29,3 +29,14 @@ export async function runToAssessedFindings(page: Page): Promise<void> {
   await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });
   await openAllFindings(page);
 }
+
+/** Run the open project with its assessment, compute its retune map on Findings and wait for the answer (the state the layout check and the screen review measure). */
+export async function runToFindingsWithMap(page: Page): Promise<void> {
+  await goToStep(page, 'run');
+  await steadyClick(page.getByTestId('run-evaluation'));
+  await page.getByTestId('run-finished').waitFor({ timeout: 240_000 });
+  await goToStep(page, 'findings');
+  await steadyClick(page.getByTestId('compute-retune-map'));
+  await page.getByTestId('retune-map-headline').waitFor({ timeout: 300_000 });
+  await page.getByTestId('answer-rule').waitFor({ timeout: 300_000 });
+}

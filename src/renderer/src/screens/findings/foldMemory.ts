@@ -8,8 +8,8 @@ import { FINDINGS_SECTIONS, type SectionId } from './findingsSections';
 
 const STORAGE_KEY = 'setpoint-critic.findings-folds';
 
-/** project key → section → open. */
-export type FoldChoices = Readonly<Record<string, Readonly<Partial<Record<SectionId, boolean>>>>>;
+/** project key → section (or a group inside one, groupFoldId) → open. */
+export type FoldChoices = Readonly<Record<string, Readonly<Partial<Record<string, boolean>>>>>;
 
 function readSaved(): FoldChoices {
   try {
@@ -48,7 +48,15 @@ export function isOpen(choices: FoldChoices, key: string, id: SectionId): boolea
   return choices[key]?.[id] ?? FINDINGS_SECTIONS.find((s) => s.id === id)?.defaultOpen ?? true;
 }
 
-export function setOpen(key: string, ids: readonly SectionId[], open: boolean): void {
+/** A group folded inside a section (a policy's findings under Coverage), kept beside the sections as "section/group". */
+export const groupFoldId = (section: SectionId, group: string): string => `${section}/${group}`;
+
+/** A group's open state as the reader left it, or the group's own default where it was never touched. */
+export function isGroupOpen(choices: FoldChoices, key: string, id: string, byDefault: boolean): boolean {
+  return choices[key]?.[id] ?? byDefault;
+}
+
+export function setOpen(key: string, ids: readonly string[], open: boolean): void {
   foldStore.set((all) => {
     const mine = { ...all[key] };
     for (const id of ids) mine[id] = open;

@@ -3,7 +3,7 @@ import { useCallback, useEffect } from 'react';
 import { useDocumentState } from '../../hooks';
 import { useStore } from '../../state/useStore';
 import { sectionElementId, type SectionId } from './findingsSections';
-import { carryUnsaved, foldStore, isOpen, projectKey, setOpen, type FoldChoices } from './foldMemory';
+import { carryUnsaved, foldStore, groupFoldId, isGroupOpen, isOpen, projectKey, setOpen, type FoldChoices } from './foldMemory';
 
 const all = (c: FoldChoices) => c;
 
@@ -19,6 +19,13 @@ export function useProjectKey(): string {
 export function useFold(id: SectionId): [boolean, (open: boolean) => void] {
   const key = useProjectKey();
   const open = useStore(foldStore, useCallback((c: FoldChoices) => isOpen(c, key, id), [key, id]));
+  return [open, useCallback((next: boolean) => setOpen(key, [id], next), [key, id])];
+}
+
+/** [open, set] for a group inside a section of the open project (a policy's findings under Coverage); `byDefault` until the reader chooses. */
+export function useGroupFold(section: SectionId, group: string, byDefault: boolean): [boolean, (open: boolean) => void] {
+  const key = useProjectKey(), id = groupFoldId(section, group);
+  const open = useStore(foldStore, useCallback((c: FoldChoices) => isGroupOpen(c, key, id, byDefault), [key, id, byDefault]));
   return [open, useCallback((next: boolean) => setOpen(key, [id], next), [key, id])];
 }
 
