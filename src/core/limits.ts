@@ -276,3 +276,11 @@ export const SWEEP_CHECK_BUDGET = 3e8;
  * consistent (1.2344 and 1.2346 print apart, 1.2346 and 1.2354, four times as far apart, alike).
  */
 export const RANKING_TIE_RELATIVE = 1e-9;
+/**
+ * The run-trend forecast of J at the end of a drifting log (drift/runBlocks.ts, drift/runBlockValues.ts; measured
+ * by the rule written before measuring, /work/notes/drift40-rule.md; test/battery/README.md, "A forecast of the end
+ * of a drifting log"): the runs split in run order into `blocks` consecutive blocks of at least `minBlockRuns` runs
+ * each (fewer blocks when the log is short; below `fewestBlocks` no forecast: the line's scale needs K − 2 ≥ 1
+ * degrees of freedom), each block's sampling variance from `resamples` bootstrap resamples of its own runs. Ours.
+ */
+export const DRIFT_FORECAST = { blocks: 5, minBlockRuns: 20, fewestBlocks: 3, resamples: 200 } as const;
