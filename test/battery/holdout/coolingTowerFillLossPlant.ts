@@ -12,16 +12,14 @@
  * `sluggish`, `firmer`.
  */
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
-import { steadyRun, withBrokenLog, type BrokenLogPlant } from './brokenLog';
+import { alongRuns, driftingLog, type BrokenLogPlant } from './brokenLog';
 import { SETPOINT_C, coolingTowerDynamicsWith, coolingTowerPlant } from './coolingTowerPlant';
 
 /** Warming per step (K) at the first logged run and at the last. */
 export const FILL_WARMING = { first: 0, last: 0.15 } as const;
 
 /** Run e of E (0-based) meets the warming on a straight line from the first run's to the last's. */
-export function warmingAtRun(e: number, episodes: number): number {
-  return episodes > 1 ? FILL_WARMING.first + (FILL_WARMING.last - FILL_WARMING.first) * e / (episodes - 1) : FILL_WARMING.last;
-}
+export const warmingAtRun = alongRuns(FILL_WARMING);
 
 /** kept: the control — the tower with its fill lost on every run (holdout-cooling-tower-fill-lost-steady-g0.96). */
 export function coolingTowerFillLossPlant(kept = false): BrokenLogPlant {
@@ -33,8 +31,7 @@ export function coolingTowerFillLossPlant(kept = false): BrokenLogPlant {
     dynamics: end, operatingState: [SETPOINT_C, 0], burnIn: 200, behaviour: built.behaviour, candidates: built.candidates,
     rolloutsPerStart: 200,
   });
-  const steady = steadyRun(end, built.behaviour, [SETPOINT_C, 0], 200);
-  return withBrokenLog(plant, kept ? 'none (the control: the tower with its fill lost on every run)' : 'a plant that drifts: the water comes back warmer for the same fan, more so at every run', {
-    runConditions: (e, episodes) => (kept ? steady : steadyRun(coolingTowerDynamicsWith(warmingAtRun(e, episodes)), built.behaviour, [SETPOINT_C, 0], 200)),
-  });
+  return driftingLog(plant, kept, {
+    kept: 'none (the control: the tower with its fill lost on every run)', drifts: 'a plant that drifts: the water comes back warmer for the same fan, more so at every run',
+  }, (e, episodes) => coolingTowerDynamicsWith(warmingAtRun(e, episodes)), [SETPOINT_C, 0], 200);
 }

@@ -16,16 +16,14 @@
  * `sluggish` (0.02 per °C, dither 0.1).
  */
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
-import { steadyRun, withBrokenLog, type BrokenLogPlant } from './brokenLog';
+import { alongRuns, driftingLog, type BrokenLogPlant } from './brokenLog';
 import { SETPOINT_C, STEAM_GAIN_C, exchangerDynamicsAt, valveCommand } from './exchangerPlant';
 
 /** The steam valve's full effect (°C) at the first logged run and at the last (fouled tubes: 20 % less). */
 export const STEAM_GAIN = { first: STEAM_GAIN_C, last: 32 } as const;
 
 /** Run e of E (0-based) meets the steam gain on a straight line from the first run's to the last's. */
-export function steamGainAtRun(e: number, episodes: number): number {
-  return episodes > 1 ? STEAM_GAIN.first + (STEAM_GAIN.last - STEAM_GAIN.first) * e / (episodes - 1) : STEAM_GAIN.last;
-}
+export const steamGainAtRun = alongRuns(STEAM_GAIN);
 
 /** kept: the control — the end-of-log (fouled) exchanger on every run (holdout-exchanger-fouled-steady-g0.95). */
 export function exchangerFoulingPlant(kept = false): BrokenLogPlant {
@@ -42,8 +40,7 @@ export function exchangerFoulingPlant(kept = false): BrokenLogPlant {
     ],
     rolloutsPerStart: 200,
   });
-  const steady = steadyRun(end, behaviour, [SETPOINT_C, 0], 200);
-  return withBrokenLog(plant, kept ? 'none (the control: the fouled exchanger on every run)' : 'a plant that drifts: the open steam valve adds 20 % fewer degrees at the last run than at the first', {
-    runConditions: (e, episodes) => (kept ? steady : steadyRun(exchangerDynamicsAt(steamGainAtRun(e, episodes)), behaviour, [SETPOINT_C, 0], 200)),
-  });
+  return driftingLog(plant, kept, {
+    kept: 'none (the control: the fouled exchanger on every run)', drifts: 'a plant that drifts: the open steam valve adds 20 % fewer degrees at the last run than at the first',
+  }, (e, episodes) => exchangerDynamicsAt(steamGainAtRun(e, episodes)), [SETPOINT_C, 0], 200);
 }
