@@ -8,7 +8,10 @@
  * the table and the decision: test/battery/README.md, "A forecast of the end of a drifting log".
  *
  *   nice -n 10 npx tsx bench/driftForecastRows.ts [--plants a,b|drifting|stationary] [--seeds 1,2,3]
- *     [--transitions 100000] [--out rows.jsonl]
+ *     [--transitions 100000] [--out rows.jsonl] [--blocks 5] [--degree 1] [--rollouts 200]
+ *
+ * --blocks and --degree: another split and trend shape (drift40b's variant, /work/notes/drift40b-rule.md: 10 blocks,
+ * a quadratic); --rollouts: rollouts per start for the truth.
  *
  * Per row (a plant, a seed, a law — the present controller or a candidate; J in the project's reward sense,
  * −cost): the truth (rollouts of the law on the END plant from the log's run starts, as holdoutCliRows.ts rolls
@@ -36,7 +39,9 @@ import { planEvaluation } from '../src/pipeline/plan/evaluationPlan';
 import { projectSchema } from '../src/project/schema';
 import type { TransitionSet } from '../src/core/transitions';
 
-const LEVEL = 0.9, ROLLOUTS_PER_START = 200, ROLLOUT_SEED = 31_337, PRESENT = 'present controller';
+const LEVEL = 0.9, ROLLOUT_SEED = 31_337, PRESENT = 'present controller';
+/** The trend's split and shape, and the truth's rollouts per start (main sets them from the command line). */
+const settings = { blocks: DRIFT_FORECAST.blocks as number, degree: 1, rolloutsPerStart: 200 };
 
 function option(name: string, fallback: string): string {
   const at = process.argv.indexOf(`--${name}`);
@@ -100,15 +105,15 @@ async function logRows(plant: BrokenLogPlant, seed: number, transitions: number,
   const models: CandidateModel[] = [];
   for (const planned of [present, ...plan.value.candidates]) models.push(await buildModel(plan.value, planned, {}, models));
   const setups = models.map((m) => setupOf(plan.value, m)), names = [PRESENT, ...plan.value.candidates.map((c) => c.name)];
-  const blocks = runBlocks(runs);
+  const blocks = runBlocks(runs, { ...DRIFT_FORECAST, blocks: settings.blocks, fewestBlocks: settings.degree + 2 });
   if ('reason' in blocks) throw new Error(`${plant.name}: ${blocks.reason}`);
-  const forecast = driftForecast(setups, blocks, DRIFT_FORECAST.resamples, seed, LEVEL);
+  const forecast = driftForecast(setups, blocks, DRIFT_FORECAST.resamples, seed, LEVEL, settings.degree);
   const whole = spanEstimates(setups, 0, runs, blockSeed(seed, 1000));
   const from = runs - Math.max(1, Math.round(runs * DRIFT_RECENT_SHARE)), third = spanEstimates(setups, from, runs - from, blockSeed(seed, 1001));
   const starts: StartSet = { name: 'runStarts', description: 'the log’s own run starts', states: data.startStates, count: data.episodeCount };
   const onTrueState = plant.truthPolicy ?? ((spec: GaussianPolicySpec) => spec);
   const laws = [plant.behaviour, ...plan.value.candidates.map((c) => plant.candidates.find((k) => k.name === c.name)!.spec)];
-  const truths = laws.map((spec) => rolloutTruth(plant.dynamics, onTrueState(spec), plant.discount, starts, { rolloutsPerStart: ROLLOUTS_PER_START, seed: ROLLOUT_SEED }));
+  const truths = laws.map((spec) => rolloutTruth(plant.dynamics, onTrueState(spec), plant.discount, starts, { rolloutsPerStart: settings.rolloutsPerStart, seed: ROLLOUT_SEED }));
   names.forEach((who, i) => {
     const truth = truths[i], f = forecast.policies[i].forecast, w = whole[i], t = third[i];
     const fitGap = Math.abs(w.value - models[i].fit.policyValue); // the span over every run is the model's own fit
@@ -117,7 +122,7 @@ async function logRows(plant: BrokenLogPlant, seed: number, transitions: number,
       whole: { j: w.value, err: relative(w.value, truth), interval: w.interval, holds: holds(w.interval, truth), fitGap },
       third: { j: t.value, err: relative(t.value, truth), interval: t.interval, holds: holds(t.interval, truth), from },
       forecast: { j: f.value, err: relative(f.value, truth), interval: f.interval, holds: holds(f.interval, truth), scale: f.residualScale, blocks: [...forecast.policies[i].blockValues] },
-      widthRatio: (f.interval[1] - f.interval[0]) / (w.interval[1] - w.interval[0]), k: blocks.first.length,
+      widthRatio: (f.interval[1] - f.interval[0]) / (w.interval[1] - w.interval[0]), k: blocks.first.length, degree: settings.degree,
     };
     console.log([plant.name, seed, who, truth.value.toFixed(3), `${w.value.toFixed(3)} (${row.whole.err.toFixed(1)} %, ${row.whole.holds ? 'holds' : 'misses'})`,
       `${t.value.toFixed(3)} (${row.third.err.toFixed(1)} %, ${row.third.holds ? 'holds' : 'misses'})`,
@@ -132,6 +137,7 @@ async function logRows(plant: BrokenLogPlant, seed: number, transitions: number,
 async function main() {
   const which = option('plants', 'drifting,stationary').split(','), seeds = option('seeds', '1,2,3').split(',').map(Number);
   const transitions = Number(option('transitions', '100000')), out = option('out', '');
+  Object.assign(settings, { blocks: Number(option('blocks', String(settings.blocks))), degree: Number(option('degree', '1')), rolloutsPerStart: Number(option('rollouts', '200')) });
   const drifting = driftingPlants(), stationary = [...keptAssumptionPlants(), ...driftingPlantControls()];
   const chosen: [BrokenLogPlant, string][] = [
     ...drifting.map((p): [BrokenLogPlant, string] => [p, 'drifting']), ...stationary.map((p): [BrokenLogPlant, string] => [p, 'stationary']),

@@ -1,6 +1,6 @@
 /**
  * Student's t distribution with ν degrees of freedom: its distribution function and quantile, for an
- * interval whose scale is estimated from ν residual degrees of freedom (drift/weightedLineForecast.ts).
+ * interval whose scale is estimated from ν residual degrees of freedom (drift/weightedTrendForecast.ts).
  *
  * The distribution function through the regularised incomplete beta function,
  *   F(t) = 1 − ½·I_x(ν/2, ½) for t ≥ 0, x = ν/(ν + t²)          (Abramowitz & Stegun 26.7.1 with 26.5.27),

@@ -4,7 +4,8 @@
  * Brunskill, "Predictive off-policy policy evaluation for nonstationary decision problems", AAAI/IAAI 2017;
  * from memory). Here: the runs split in run order into K blocks (runBlocks.ts); each policy's J fitted on each
  * block alone, with its sampling variance from resampling the block's runs (runBlockValues.ts); a straight
- * line through the K values by weighted least squares, read at the last run (weightedLineForecast.ts). The
+ * line (or, `degree` 2, a quadratic) through the K values by weighted least squares, read at the last run
+ * (weightedTrendForecast.ts). The
  * difference of each policy from the first (the present controller) is forecast the same way from its
  * paired block differences, for a trial.
  *
@@ -14,12 +15,12 @@
 import type { LinearReplicateSetup } from '../bootstrap/linearFqeReplicate';
 import { blockSeed, spanValues } from './runBlockValues';
 import type { RunBlocks } from './runBlocks';
-import { ForecastError, weightedLineForecast, type WeightedLineForecast } from './weightedLineForecast';
+import { ForecastError, weightedTrendForecast, type WeightedTrendForecast } from './weightedTrendForecast';
 
 export interface TrendSeries {
   readonly blockValues: Float64Array; // K
   readonly blockVariances: Float64Array; // K
-  readonly forecast: WeightedLineForecast;
+  readonly forecast: WeightedTrendForecast;
 }
 
 export interface DriftForecast {
@@ -43,13 +44,13 @@ function finiteVariance(xs: ArrayLike<number>): number {
   return n >= 2 ? squares / (n - 1) : NaN;
 }
 
-function series(values: Float64Array, variances: Float64Array, blocks: RunBlocks, level: number): TrendSeries {
+function series(values: Float64Array, variances: Float64Array, blocks: RunBlocks, level: number, degree: number): TrendSeries {
   if (!values.every(Number.isFinite)) throw new ForecastError('a block\'s fit has no solution; no trend');
-  return { blockValues: values, blockVariances: variances, forecast: weightedLineForecast(blocks.position, values, variances, blocks.lastRun, level) };
+  return { blockValues: values, blockVariances: variances, forecast: weightedTrendForecast(blocks.position, values, variances, blocks.lastRun, level, degree) };
 }
 
-/** setups[0] is the reference the differences are taken from; resamples per block; level e.g. 0.9. */
-export function driftForecast(setups: readonly LinearReplicateSetup[], blocks: RunBlocks, resamples: number, seed: number, level: number): DriftForecast {
+/** setups[0] is the reference the differences are taken from; resamples per block; level e.g. 0.9; degree of the trend in position. */
+export function driftForecast(setups: readonly LinearReplicateSetup[], blocks: RunBlocks, resamples: number, seed: number, level: number, degree = 1): DriftForecast {
   const k = blocks.first.length, p = setups.length;
   const values = Array.from({ length: p }, () => new Float64Array(k)), variances = Array.from({ length: p }, () => new Float64Array(k));
   const diffValues = Array.from({ length: p }, () => new Float64Array(k)), diffVariances = Array.from({ length: p }, () => new Float64Array(k));
@@ -63,7 +64,7 @@ export function driftForecast(setups: readonly LinearReplicateSetup[], blocks: R
     }
   }
   return {
-    policies: values.map((v, i) => series(v, variances[i], blocks, level)),
-    differences: diffValues.map((v, i) => (i === 0 ? null : series(v, diffVariances[i], blocks, level))),
+    policies: values.map((v, i) => series(v, variances[i], blocks, level, degree)),
+    differences: diffValues.map((v, i) => (i === 0 ? null : series(v, diffVariances[i], blocks, level, degree))),
   };
 }

@@ -1,6 +1,6 @@
 /**
  * The runs of a log, in run order, split into K consecutive blocks for a per-block estimate whose trend
- * is then forecast (runBlockValues.ts, weightedLineForecast.ts). The rule (ours; DRIFT_FORECAST in
+ * is then forecast (runBlockValues.ts, weightedTrendForecast.ts). The rule (ours; DRIFT_FORECAST in
  * ../limits.ts): K = min(blocks, ⌊E / minBlockRuns⌋), so every block holds enough runs for its own fit;
  * sizes as equal as possible, the earlier blocks taking the extra run (⌊E/K⌋ or ⌈E/K⌉); fewer than
  * `fewestBlocks` blocks: no split (a reason instead). A block's position is the mean 0-based index of its

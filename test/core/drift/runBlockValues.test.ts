@@ -14,7 +14,7 @@ import { indexEpisodes, resampledTransitions } from '../../../src/core/bootstrap
 import type { LinearReplicateSetup } from '../../../src/core/bootstrap/linearFqeReplicate';
 import { driftForecast } from '../../../src/core/drift/driftForecast';
 import { blockSeed, spanValues } from '../../../src/core/drift/runBlockValues';
-import { weightedLineForecast } from '../../../src/core/drift/weightedLineForecast';
+import { weightedTrendForecast } from '../../../src/core/drift/weightedTrendForecast';
 import { startStateFeatures } from '../../../src/core/features/policyFeatures';
 import { createFeatureMap } from '../../../src/core/features/featureMap';
 import { polynomialFeatureSpec } from '../../../src/core/features/polynomialFeatures';
@@ -61,12 +61,12 @@ describe('a span of runs fitted alone, by reweighting the whole log\'s per-episo
     const variance = (xs: Float64Array) => { const m = xs.reduce((a, b) => a + b, 0) / xs.length; return xs.reduce((a, x) => a + (x - m) ** 2, 0) / (xs.length - 1); };
     for (const i of [0, 1]) {
       const values = spans.map((s) => s.values[i]), variances = spans.map((s) => variance(s.replicates[i]));
-      expect(f.policies[i].forecast.value).toBeCloseTo(weightedLineForecast(blocks.position, values, variances, 23, 0.9).value, 12);
+      expect(f.policies[i].forecast.value).toBeCloseTo(weightedTrendForecast(blocks.position, values, variances, 23, 0.9).value, 12);
     }
     const diffs = spans.map((s) => s.values[1] - s.values[0]), diffVariances = spans.map((s) => variance(s.replicates[1].map((x, r) => x - s.replicates[0][r])));
     expect(f.differences[0]).toBeNull();
-    expect(f.differences[1]!.forecast.value).toBeCloseTo(weightedLineForecast(blocks.position, diffs, diffVariances, 23, 0.9).value, 12);
-    expect(f.differences[1]!.forecast.standardError).toBeCloseTo(weightedLineForecast(blocks.position, diffs, diffVariances, 23, 0.9).standardError, 12);
+    expect(f.differences[1]!.forecast.value).toBeCloseTo(weightedTrendForecast(blocks.position, diffs, diffVariances, 23, 0.9).value, 12);
+    expect(f.differences[1]!.forecast.standardError).toBeCloseTo(weightedTrendForecast(blocks.position, diffs, diffVariances, 23, 0.9).standardError, 12);
   });
 
   it('refuses a span outside the log', () => {
