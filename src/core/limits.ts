@@ -295,3 +295,12 @@ export const RANKING_TIE_RELATIVE = 1e-9;
  */
 export const TIME_AXIS_MINUTES_FROM_SECONDS = 600;
 export const TIME_AXIS_HOURS_ABOVE_SECONDS = 36_000;
+
+/**
+ * The run-trend forecast of J at the end of a drifting log (drift/runBlocks.ts, drift/runBlockValues.ts; measured
+ * by the rule written before measuring, /work/notes/drift40-rule.md; test/battery/README.md, "A forecast of the end
+ * of a drifting log"): the runs split in run order into `blocks` consecutive blocks of at least `minBlockRuns` runs
+ * each (fewer blocks when the log is short; below `fewestBlocks` no forecast: the line's scale needs K − 2 ≥ 1
+ * degrees of freedom), each block's sampling variance from `resamples` bootstrap resamples of its own runs. Ours.
+ */
+export const DRIFT_FORECAST = { blocks: 5, minBlockRuns: 20, fewestBlocks: 3, resamples: 200 } as const;

@@ -120,3 +120,21 @@ export function steadyRun(dynamics: PlantDynamics, spec: GaussianPolicySpec, ope
   };
   return { dynamics, policy, start };
 }
+
+/** A plant parameter on a straight line through the log: `first` at run 0, `last` at run E − 1 (the last alone in a one-run log). */
+export function alongRuns(ends: { readonly first: number; readonly last: number }): (e: number, episodes: number) => number {
+  return (e, episodes) => (episodes > 1 ? ends.first + (ends.last - ends.first) * e / (episodes - 1) : ends.last);
+}
+
+/**
+ * A plant that drifts through its log (run e of E meets `dynamicsAtRun(e, E)`, the logging law throughout,
+ * each run started by a burn-in under that run's plant), or with `kept` its control: the end-of-log plant
+ * (`plant.dynamics`) on every run. `breaks`: the words for each.
+ */
+export function driftingLog(plant: BatteryPlant, kept: boolean, breaks: { readonly drifts: string; readonly kept: string },
+  dynamicsAtRun: (e: number, episodes: number) => PlantDynamics, operatingState: readonly number[], burnIn: number): BrokenLogPlant {
+  const steady = steadyRun(plant.dynamics!, plant.behaviour, operatingState, burnIn);
+  return withBrokenLog(plant, kept ? breaks.kept : breaks.drifts, {
+    runConditions: (e, episodes) => (kept ? steady : steadyRun(dynamicsAtRun(e, episodes), plant.behaviour, operatingState, burnIn)),
+  });
+}

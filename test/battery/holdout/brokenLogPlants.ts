@@ -8,6 +8,8 @@ import type { BrokenLogPlant } from './brokenLog';
 import { coldStoreRetunedPlant } from './coldStoreRetunedPlant';
 import { NUDGED_SETPOINT_C, coldStoreSetpointMovedPlant } from './coldStoreSetpointMovedPlant';
 import { dosingPumpWearPlant } from './dosingPumpWearPlant';
+import { coolingTowerFillLossPlant } from './coolingTowerFillLossPlant';
+import { exchangerFoulingPlant } from './exchangerFoulingPlant';
 
 export function brokenLogPlants(): BrokenLogPlant[] {
   return [aerationNoisyProbePlant(), dosingPumpWearPlant(), coldStoreRetunedPlant()];
@@ -21,4 +23,13 @@ export function keptAssumptionPlants(): BrokenLogPlant[] {
 /** probe38: the present controller's setpoint moved halfway by 2 K and by 0.5 K, gains kept (their control: keptAssumptionPlants' one-tuning cold store). */
 export function movedSetpointPlants(): BrokenLogPlant[] {
   return [coldStoreSetpointMovedPlant(), coldStoreSetpointMovedPlant(NUDGED_SETPOINT_C)];
+}
+
+/** drift40: plants that drift through their logs (the wearing pump and two more), and their controls (the end-of-log plant on every run). */
+export function driftingPlants(): BrokenLogPlant[] {
+  return [dosingPumpWearPlant(), exchangerFoulingPlant(), coolingTowerFillLossPlant()];
+}
+
+export function driftingPlantControls(): BrokenLogPlant[] {
+  return [exchangerFoulingPlant(true), coolingTowerFillLossPlant(true)];
 }

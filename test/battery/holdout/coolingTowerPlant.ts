@@ -35,15 +35,20 @@ export function fanSpeed(command: number): number {
   return Math.round(FAN_SPEEDS * Math.min(1, Math.max(0, command))) / FAN_SPEEDS;
 }
 
-export const coolingTowerDynamics: PlantDynamics = {
-  stateDim: 2, actionDim: 1,
-  step(s, a, rng, next) {
-    const t = s[0], q = s[1], f = fanSpeed(a[0]);
-    next[0] = SETPOINT_C + 0.9 * (t - SETPOINT_C) + 0.15 * q - 0.6 * (f - 0.5) + 0.2 * rng.normal();
-    next[1] = 0.98 * q + 0.1 * rng.normal();
-    return 2 * (t - SETPOINT_C) ** 2 + 4 * f ** 3;
-  },
-};
+/** The tower whose water comes back `warming` K per step warmer for the same fan (fill lost: coolingTowerFillLossPlant.ts); 0 as built. */
+export function coolingTowerDynamicsWith(warming: number): PlantDynamics {
+  return {
+    stateDim: 2, actionDim: 1,
+    step(s, a, rng, next) {
+      const t = s[0], q = s[1], f = fanSpeed(a[0]);
+      next[0] = SETPOINT_C + 0.9 * (t - SETPOINT_C) + 0.15 * q - 0.6 * (f - 0.5) + warming + 0.2 * rng.normal();
+      next[1] = 0.98 * q + 0.1 * rng.normal();
+      return 2 * (t - SETPOINT_C) ** 2 + 4 * f ** 3;
+    },
+  };
+}
+
+export const coolingTowerDynamics: PlantDynamics = coolingTowerDynamicsWith(0);
 
 /** u = 0.5 + K·(T − setpoint) + F·q, clipped to [0, 1]: more fan as T or the load rises (valveLaw.ts). */
 export const fanCommand = directActingLaw;

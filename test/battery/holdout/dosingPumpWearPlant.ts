@@ -22,7 +22,7 @@
 import type { GaussianPolicySpec } from '../../../src/core/policy';
 import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
-import { steadyRun, withBrokenLog, type BrokenLogPlant } from './brokenLog';
+import { alongRuns, driftingLog, type BrokenLogPlant } from './brokenLog';
 import { directActingLaw } from './valveLaw';
 
 export const TARGET_MG_L = 1, UNDERDOSED_MG_L = 0.8;
@@ -42,9 +42,7 @@ export function dosingDynamics(delivery: number): PlantDynamics {
 }
 
 /** Run e of E (0-based) meets the pump's delivery on a straight line from the first run's to the last's. */
-export function deliveryAtRun(e: number, episodes: number): number {
-  return episodes > 1 ? DELIVERY.first + (DELIVERY.last - DELIVERY.first) * e / (episodes - 1) : DELIVERY.last;
-}
+export const deliveryAtRun = alongRuns(DELIVERY);
 
 /** u = bias − K·(c − 1) + F·d, clipped to [0, 1]: more chlorine as the residual falls or the demand rises. */
 export function dosingLaw(k: number, feedforward: number, std: number, bias = 0.5): GaussianPolicySpec {
@@ -70,8 +68,7 @@ export function dosingPumpWearPlant(kept = false): BrokenLogPlant {
     ],
     rolloutsPerStart: 200,
   });
-  const steady = steadyRun(end, behaviour, [TARGET_MG_L, 0], 200);
-  return withBrokenLog(plant, kept ? 'none (the control: the end-of-log pump on every run)' : 'a plant that drifts: the pump delivers 20 % less per unit speed at the last run than at the first', {
-    runConditions: (e, episodes) => (kept ? steady : steadyRun(dosingDynamics(deliveryAtRun(e, episodes)), behaviour, [TARGET_MG_L, 0], 200)),
-  });
+  return driftingLog(plant, kept, {
+    kept: 'none (the control: the end-of-log pump on every run)', drifts: 'a plant that drifts: the pump delivers 20 % less per unit speed at the last run than at the first',
+  }, (e, episodes) => dosingDynamics(deliveryAtRun(e, episodes)), [TARGET_MG_L, 0], 200);
 }

@@ -17,22 +17,29 @@ import type { PlantDynamics } from '../episodeLog';
 import { nonlinearBatteryPlant } from '../nonlinearPlant';
 import { valveLaw } from './valveLaw';
 
-const SETPOINT_C = 80, VALVE_BIAS = 0.75;
+export const SETPOINT_C = 80, VALVE_BIAS = 0.75;
+/** °C of outlet temperature the fully open steam valve adds to the 50 °C the inlet brings (clean tubes). */
+export const STEAM_GAIN_C = 40;
 
-export const exchangerDynamics: PlantDynamics = {
-  stateDim: 2, actionDim: 1,
-  step(s, a, rng, next) {
-    const t = s[0], d = s[1], valve = a[0]; // within [0, 1]: the policy clips
-    next[0] = t + 0.2 * (50 + 40 * valve + d - t) + 0.3 * rng.normal();
-    next[1] = 0.9 * d + 0.5 * rng.normal();
-    const over = Math.max(0, t - SETPOINT_C), under = Math.max(0, SETPOINT_C - t);
-    return 3 * over * over + under * under + 0.5 * valve;
-  },
-};
+/** The exchanger whose fully open valve adds `steamGain` °C (a fouled exchanger adds less: exchangerFoulingPlant.ts). */
+export function exchangerDynamicsAt(steamGain: number): PlantDynamics {
+  return {
+    stateDim: 2, actionDim: 1,
+    step(s, a, rng, next) {
+      const t = s[0], d = s[1], valve = a[0]; // within [0, 1]: the policy clips
+      next[0] = t + 0.2 * (50 + steamGain * valve + d - t) + 0.3 * rng.normal();
+      next[1] = 0.9 * d + 0.5 * rng.normal();
+      const over = Math.max(0, t - SETPOINT_C), under = Math.max(0, SETPOINT_C - t);
+      return 3 * over * over + under * under + 0.5 * valve;
+    },
+  };
+}
 
-/** valve = 0.75 + K·(80 − T) − F·d, clipped to [0, 1] (valveLaw.ts). */
-function valveCommand(k: number, feedforward: number, std: number) {
-  return valveLaw({ bias: VALVE_BIAS, setpoint: SETPOINT_C, gain: k, feedforward: -feedforward, std, clipped: true });
+export const exchangerDynamics: PlantDynamics = exchangerDynamicsAt(STEAM_GAIN_C);
+
+/** valve = bias + K·(80 − T) − F·d, clipped to [0, 1] (valveLaw.ts). */
+export function valveCommand(k: number, feedforward: number, std: number, bias = VALVE_BIAS) {
+  return valveLaw({ bias, setpoint: SETPOINT_C, gain: k, feedforward: -feedforward, std, clipped: true });
 }
 
 export function exchangerPlant(): BatteryPlant {
