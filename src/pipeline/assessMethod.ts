@@ -11,6 +11,7 @@ import { possibleValuesRuleText } from '../core/diagnostics/possibleStateValues'
 import { MAX_VALUE_CHECK_STATES } from '../core/limits';
 import { LOGGED_LIMITS_NAMED, loggedLimitRuleText } from '../core/loggedActionLimits';
 import { plantMemoryRuleText } from '../core/diagnostics/plantMemoryFinding';
+import { heldActionsRuleText } from '../core/diagnostics/heldActionsFinding';
 import { runOrderRuleText } from '../core/diagnostics/runOrderFinding';
 import { returnConcentrationRuleText } from '../core/diagnostics/returnConcentration';
 import { CROSS_CHECK_RULE } from '../core/offPolicy/crossCheckVerdict';
@@ -54,6 +55,7 @@ export function methodStatements(settings: AssessmentSettings, episodes: number,
     returnConcentrationRuleText(),
     plantMemoryRuleText(),
     runOrderRuleText(),
+    heldActionsRuleText(),
     'Never-visited region: the share of the value-surface grid (spanning the logged range of its two states) with no logged state at a grid point or its 8 neighbours (our definition); V there is extrapolated.',
     ...(startsFollowEpisodes ? [] : [startCoverageRuleText()]),
   ];

@@ -29,6 +29,7 @@ import { meanOutside } from './assessDiagnostics';
 import { methodStatements } from './assessMethod';
 import { modelChecksReason, plantMemoryAssessment, type PlantMemorySummary } from './plantMemoryCheck';
 import { runOrderAssessment, type RunOrderSummary } from './runOrderCheck';
+import { heldActionsAssessment, type HeldActionsSummary } from './heldActionsCheck';
 import { checkLinearQuadraticModel, modelInapplicability } from './assessModelCheck';
 import { openResampleRoute, runResamples, type ReplicateSet, type ResampleProgress } from './assessResamples';
 import type { ResampleHelper } from './helperFeed';
@@ -65,7 +66,8 @@ export async function assessRun(run: ProjectRun, options: AssessRunOptions): Pro
       // The plant-memory check needs no resampling: its finding is not lost with the rest (J is still shown).
       const memory = plantMemoryAssessment(run.plan.data).warnings.map((w) => ({ where: 'plant memory', message: w.message }));
       const order = runOrderAssessment(run.plan.data, run.plan.presentController.fitted?.limits).warnings.map((w) => ({ where: 'run order', message: w.message }));
-      return failure({ where: 'assessment', message: (error as Error).message }, ...memory, ...order);
+      const held = heldActionsAssessment(run.plan.data, run.plan.presentController.fitted?.limits).warnings.map((w) => ({ where: 'held actions', message: w.message }));
+      return failure({ where: 'assessment', message: (error as Error).message }, ...memory, ...order, ...held);
     }
     throw error;
   }
@@ -88,10 +90,12 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   const memory = plantMemoryAssessment(run.plan.data), memoryReason = modelChecksReason(memory);
   // Whole-log, like the plant memory: a serious run-order finding stops a trial (trialChoice.ts) and bears on every J.
   const runOrder = runOrderAssessment(run.plan.data, run.plan.presentController.fitted?.limits);
+  // Whole-log too: held rows (a loop in manual) pull the present controller's fitted law; a serious finding stops a trial.
+  const heldActions = heldActionsAssessment(run.plan.data, run.plan.presentController.fitted?.limits);
   // Opened next, so that a helper thread forms the one-step model and simulates while this thread fits the function classes.
   const simulations = memoryReason !== null ? { reason: memoryReason } : openRolloutSimulations(context, everyModel(run).map((m) => m.policy), options.settings);
   try {
-    return await assessWith(run, options, context, simulations, { ...memory, modelReason: memoryReason, runOrder });
+    return await assessWith(run, options, context, simulations, { ...memory, modelReason: memoryReason, runOrder, heldActions });
   } finally {
     if (!('reason' in simulations)) simulations.close();
   }
@@ -104,6 +108,8 @@ interface PlantMemoryRead {
   readonly modelReason: string | null;
   /** The run-order check's numbers and warnings (runOrderCheck.ts), carried with it: both are read once, before any fit. */
   readonly runOrder: { readonly summary: RunOrderSummary; readonly warnings: AssessmentWarning[] };
+  /** The held-actions check's numbers and warnings (heldActionsCheck.ts), read with them. */
+  readonly heldActions: { readonly summary: HeldActionsSummary; readonly warnings: AssessmentWarning[] };
 }
 
 /** The candidates' models, then the present controller's where there is one: the order of every per-policy list. */
@@ -177,8 +183,9 @@ async function assessWith(
     unvisitedShare: unvisited,
     plantMemory: memory.summary,
     runOrder: memory.runOrder.summary,
+    heldActions: memory.heldActions.summary,
     // A contradicted or unconfirmed baseline: every difference is taken against its J (crossCheckWarnings.ts).
-    warnings: [...memory.warnings, ...memory.runOrder.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineConfirmationWarnings(presentController), ...baselineClassWarnings(presentController)],
+    warnings: [...memory.warnings, ...memory.runOrder.warnings, ...memory.heldActions.warnings, ...globalWarnings(context, candidates, unvisited), ...baselineConfirmationWarnings(presentController), ...baselineClassWarnings(presentController)],
     method: methodStatements(settings, plan.episodes.episodes, plan.starts.followEpisodes, solver),
     valueSense: plan.sense,
   };

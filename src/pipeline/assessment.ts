@@ -7,6 +7,7 @@
  */
 
 import type { PlantMemorySummary } from './plantMemoryCheck';
+import type { HeldActionsSummary } from './heldActionsCheck';
 import type { RunOrderSummary } from './runOrderCheck';
 import type { ClassGap } from '../core/diagnostics/functionClassRange';
 
@@ -268,6 +269,8 @@ export interface Assessment {
   plantMemory?: PlantMemorySummary;
   /** Is the log one plant under one controller, early runs against late (runOrderCheck.ts)? Once per project; absent in assessments made before the check. */
   runOrder?: RunOrderSummary;
+  /** Rows whose action repeats the row before exactly, away from the limits, and how far they pull the present controller's law (heldActionsCheck.ts)? Once per project; absent in assessments made before the check. */
+  heldActions?: HeldActionsSummary;
   warnings: AssessmentWarning[];
   /** Definitions and thresholds used, stated once for the report. */
   method: string[];

@@ -19,6 +19,7 @@ export function assessmentToJson(a: Assessment): Record<string, unknown> {
     unvisitedShare: a.unvisitedShare,
     plantMemory: a.plantMemory ?? null,
     runOrder: a.runOrder ?? null,
+    heldActions: a.heldActions ?? null,
     warnings: a.warnings,
     method: a.method,
   };

@@ -9,7 +9,7 @@ import type { Assessment } from '../../src/pipeline/assessment';
 
 describe('the assessment as JSON', () => {
   it('has every field, the present controller among them, in the published order', () => {
-    const fields = ['settings', 'valueSense', 'behaviour', 'presentController', 'candidates', 'comparison', 'sensitivity', 'unvisitedShare', 'plantMemory', 'runOrder', 'warnings', 'method'];
+    const fields = ['settings', 'valueSense', 'behaviour', 'presentController', 'candidates', 'comparison', 'sensitivity', 'unvisitedShare', 'plantMemory', 'runOrder', 'heldActions', 'warnings', 'method'];
     const marked = Object.fromEntries(fields.map((f) => [f, { field: f }])) as unknown as Assessment;
     const json = assessmentToJson(marked);
     expect(Object.keys(json)).toEqual(fields);

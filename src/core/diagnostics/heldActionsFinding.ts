@@ -1,0 +1,62 @@
+/**
+ * The rule that reads the held-actions check (heldActions.ts) and its words, stated once: the app, the
+ * command line, the report and the method statement all take their text from here.
+ *
+ * The effect E decides (heldActions.ts: by how much of its own dither the law fitted to every row sits off
+ * the law the rows not held follow, RMS over the logged states). Thresholds (written before measuring,
+ * /work/notes/held40-rule.md; test/battery/README.md, "Held actions"): on the cooling tower with manual
+ * stretches (seed 1; J of the law fitted to every row, rolled out on the plant, against today's automatic law):
+ *
+ *   held share   2 %     3 %     5 %     10 %
+ *   E            0.147   0.206   0.338   0.565
+ *   J off        2.3 %   3.2 %   5.9 %   11.6 %
+ *
+ * Serious from E = 0.5, where that J first moves by the cross-checks' 10 % yardstick (interpolated: 0.501,
+ * rounded down); a caution from 0.1 (a quarter of it, rounded down: J off by a few per cent at most, within
+ * what the battery's J scatters by — a look, not a verdict). Fewer than HELD_MIN_ROWS held rows: nothing.
+ */
+import { shareText } from '../shareText';
+import type { HeldEffect, HeldStretches } from './heldActions';
+
+/** Effect from which the finding is a caution, and serious (see above). */
+export const HELD_CAUTION = 0.1;
+export const HELD_SERIOUS = 0.5;
+/** Fewest held rows the rule reads (ours: a law fitted on thousands of rows is moved little by fewer). */
+export const HELD_MIN_ROWS = 50;
+
+export const HELD_TOPIC = 'heldActions';
+
+export type HeldSeverity = 'caution' | 'serious' | null;
+
+/** The rule's verdict on the check's numbers: null below HELD_MIN_ROWS held rows, below the caution, or where no effect could be read. */
+export function heldSeverity(stretches: HeldStretches, effect: HeldEffect): HeldSeverity {
+  if (stretches.rows < HELD_MIN_ROWS || 'reason' in effect) return null;
+  if (effect.effect >= HELD_SERIOUS) return 'serious';
+  return effect.effect >= HELD_CAUTION ? 'caution' : null;
+}
+
+/** E as the words give it: two decimals, "less than 0.01" below. */
+export function effectText(effect: number): string {
+  return effect < 0.005 ? 'less than 0.01' : effect.toFixed(2);
+}
+
+export function heldActionsRuleText(): string {
+  return `Held actions: a row whose every action equals the row before’s exactly, in the same run and away from the actuator limits read from the log, is held (a law with dither repeats a value with probability zero); ` +
+    `the present controller’s law is fitted by least squares on every row and on the rows not held, and the effect is the root mean square over the logged states of the difference of their means, in the second law’s dither; ` +
+    `with at least ${HELD_MIN_ROWS} held rows, an effect from ${HELD_CAUTION} is a caution and from ${HELD_SERIOUS} serious (where, on a test plant, the J of the law fitted to every row first moved by 10 %), and then no candidate is named for a trial.`;
+}
+
+/** The finding's words, or null where the rule finds nothing. */
+export function heldActionsFinding(stretches: HeldStretches, effect: HeldEffect): { severity: 'caution' | 'serious'; topic: string; message: string } | null {
+  const severity = heldSeverity(stretches, effect);
+  if (!severity || 'reason' in effect) return null;
+  const { rows, stretches: count, longest } = stretches, serious = severity === 'serious';
+  return {
+    severity, topic: HELD_TOPIC,
+    message: `${rows.toLocaleString('en-US')} rows (${shareText(stretches.share)}) in ${count.toLocaleString('en-US')} stretch${count === 1 ? '' : 'es'} of up to ${longest} rows repeat the action of the row before exactly, away from the actuator limits. ` +
+      `The present controller’s law fitted to every row differs from the law the other rows follow by ${effectText(effect.effect)} of its dither` +
+      (serious ? ': its J is the J of a law that never ran, and every difference is taken against it (on a test plant, 0.56 put that J off by 12 %); no candidate is named for a trial. ' : ' (serious from ' + HELD_SERIOUS + '). ') +
+      'Likely causes: the loop in manual, a held or frozen signal, or historian compression. ' +
+      'Export the loop’s mode with the log and leave out the rows in manual (time windows, where there are few), or log the action without compression, and evaluate again.',
+  };
+}
