@@ -103,5 +103,10 @@ export function findingCountText(row: Pick<FindingRow, 'serious' | 'cautions'>):
 /** A cell as read: "serious", "caution", or "—" for none. */
 export const cellText = (cell: FindingCell): string => cell.severity ?? '—';
 
+/** A marked cell's text as it reads out of the table (a screen reader's list of links): "PI A, Weight spread: serious (2)". The app and the report. */
+export function cellLabel(row: Pick<FindingRow, 'label'>, column: Pick<FindingColumn, 'title'>, cell: FindingCell): string {
+  return `${row.label}, ${column.title}: ${cellText(cell)}${cell.count > 1 ? ` (${cell.count})` : ''}`;
+}
+
 /** The anchor of a row's n-th finding, the same in the app and the report. */
 export const findingAnchor = (row: Pick<FindingRow, 'key'>, index: number): string => `finding-${row.key}-${index}`;

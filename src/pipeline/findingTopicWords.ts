@@ -36,6 +36,7 @@ export const FINDING_COLUMNS: readonly FindingColumn[] = [
   { key: 'baseline', title: 'Baseline', meaning: 'what the candidates are compared with: the present controller’s model, or the logged return in its place', topics: ['presentController', 'loggedReturn'] },
   { key: 'fewRuns', title: 'Cost in few runs', meaning: 'how much of the logged return the costliest tenth of the runs holds', topics: ['runConcentration'] },
   { key: 'plantMemory', title: 'Plant memory', meaning: 'whether the logged state carries the plant’s memory, or earlier rows explain the next step', topics: ['plantMemory'] },
+  { key: 'heldActions', title: 'Held actions', meaning: 'whether rows that repeat the action of the row before exactly (a loop in manual, a held signal) pull the present controller’s fitted law', topics: ['heldActions'] },
   { key: 'runOrder', title: 'Change over the runs', meaning: 'whether the plant or its controller changed over the runs in file order', topics: ['runOrder'] },
 ];
 

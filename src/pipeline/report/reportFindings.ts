@@ -4,7 +4,7 @@
  * rows, serious first. Every warning appears once; a printed page keeps them all in view.
  */
 import type { Assessment } from '../assessment';
-import { FINDING_MATRIX_CAPTION, cellText, findingAnchor, findingCountText, findingMatrix, type FindingMatrix, type FindingRow } from '../findingMatrix';
+import { FINDING_MATRIX_CAPTION, cellLabel, cellText, findingAnchor, findingCountText, findingMatrix, type FindingMatrix, type FindingRow } from '../findingMatrix';
 import { typesetText } from '../../core/typesetText';
 import { html, type Html } from './htmlText';
 
@@ -17,8 +17,8 @@ export function findingsHtml(a: Pick<Assessment, 'warnings' | 'candidates'>): Ht
 function matrixTable(m: FindingMatrix): Html {
   return html`<table class="finding-table"><caption>${FINDING_MATRIX_CAPTION}</caption>
     <thead><tr><td></td>${m.columns.map((c) => html`<th scope="col" title="${c.meaning}">${c.title}</th>`)}</tr></thead><tbody>
-    ${m.rows.map((row, r) => html`<tr><th scope="row">${row.label}</th>${m.cells[r].map((cell) => (cell.severity
-    ? html`<td class="finding-cell ${cell.severity}"><a href="#${findingAnchor(row, cell.first)}">${cellText(cell)}${cell.count > 1 ? ` (${cell.count})` : ''}</a></td>`
+    ${m.rows.map((row, r) => html`<tr><th scope="row">${row.label}</th>${m.cells[r].map((cell, c) => (cell.severity
+    ? html`<td class="finding-cell ${cell.severity}"><a href="#${findingAnchor(row, cell.first)}" aria-label="${cellLabel(row, m.columns[c], cell)}">${cellText(cell)}${cell.count > 1 ? ` (${cell.count})` : ''}</a></td>`
     : html`<td class="finding-cell none">${cellText(cell)}</td>`))}</tr>`)}
     </tbody></table>`;
 }

@@ -53,8 +53,12 @@ export function CoveragePanel({ assessment }: { assessment: Assessment }) {
   );
 }
 
-/** A policy's group's name in the fold memory: a candidate by its name (its place can change), the present controller by its row. */
-const groupOf = (row: FindingRow): string => (row.kind === 'candidate' ? `candidate:${row.label}` : row.key);
+/**
+ * A policy's group's name in the fold memory: a candidate by its name (its place can change), the present controller by its row;
+ * with "|serious" while it holds a serious finding, so a group the reader folded while it held only cautions opens again when a
+ * run brings a serious one (a choice made about cautions is not a choice about a serious finding), and one folded while serious stays folded.
+ */
+const groupOf = (row: FindingRow): string => `${row.kind === 'candidate' ? `candidate:${row.label}` : row.key}${row.serious > 0 ? '|serious' : ''}`;
 
 /** A candidate's or the present controller's findings and figures: open where it holds a serious finding until the reader chooses (kept per project, foldMemory.ts). */
 function PolicyGroup({ row, assessment }: { row: FindingRow; assessment: Assessment }) {

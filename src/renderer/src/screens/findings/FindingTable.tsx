@@ -4,7 +4,7 @@
  * in words (the colour only repeats them), linked to its sentence below.
  */
 import type { MouseEvent } from 'react';
-import { FINDING_MATRIX_CAPTION, cellText, findingAnchor, type FindingMatrix, type FindingRow } from '../../../../pipeline/findingMatrix';
+import { FINDING_MATRIX_CAPTION, cellLabel, cellText, findingAnchor, type FindingMatrix, type FindingRow } from '../../../../pipeline/findingMatrix';
 
 interface Props {
   matrix: FindingMatrix;
@@ -35,7 +35,7 @@ export function FindingTable({ matrix, onJump }: Props) {
               {matrix.cells[r].map((cell, c) => (
                 <td key={matrix.columns[c].key} className={cell.severity ? `finding-cell ${cell.severity}` : 'finding-cell none'}>
                   {cell.severity
-                    ? <a href={`#${findingAnchor(row, cell.first)}`} onClick={follow(row, cell.first)}>{cellText(cell)}{cell.count > 1 ? ` (${cell.count})` : ''}</a>
+                    ? <a href={`#${findingAnchor(row, cell.first)}`} aria-label={cellLabel(row, matrix.columns[c], cell)} onClick={follow(row, cell.first)}>{cellText(cell)}{cell.count > 1 ? ` (${cell.count})` : ''}</a>
                     : cellText(cell)}
                 </td>
               ))}
