@@ -111,8 +111,12 @@ export class ColumnSink {
       this.values[record] = previous.code;
       return;
     }
-    // A cell past the byte bound that holds every label is not decoded at all (core/limits.ts).
-    const label = end - start > MAX_RUN_LABEL_BYTES ? null : cellText(bytes, start, end, escaped).trim();
+    // A cell past the byte bound that holds every label is not decoded at all (core/limits.ts); the blanks
+    // around it (trimmed from the label, as the field's labels are) do not count toward that bound.
+    let first = start, last = end;
+    while (first < last && bytes[first] <= 0x20) first++;
+    while (last > first && bytes[last - 1] <= 0x20) last--;
+    const label = last - first > MAX_RUN_LABEL_BYTES ? null : cellText(bytes, start, end, escaped).trim();
     const reason = notALabel(label);
     if (label === null || reason !== null) {
       problems.add(record, this.request.name, 'empty-episode', reason ?? '');

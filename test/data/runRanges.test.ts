@@ -160,6 +160,13 @@ describe('a run label of 4-byte characters at the limit and one over', () => {
     expect(v.runsLeftOut).toEqual([{ from: atLimit, to: atLimit, reason: '', runs: 1, rows: ROWS_PER_RUN }]);
   });
 
+  it('at the limit with blanks around it in the cell: read, as the field trims its labels', () => {
+    const labels = ['1', ` ${atLimit}\t`, '3', '4'];
+    const v = imported([{ from: atLimit, reason: '' }], log(labels));
+    expect(v.runLabels).toEqual(['1', atLimit, '3', '4']);
+    expect(v.runsLeftOut).toEqual([{ from: atLimit, to: atLimit, reason: '', runs: 1, rows: ROWS_PER_RUN }]);
+  });
+
   it('one over: the field is refused at its path, and the cell is a bad cell named by its line and column', () => {
     const parsed = dataSourceSchema.safeParse({ path: 'x.csv', csv: { excludedRuns: [{ from: over }] } });
     expect(parsed.error?.issues[0].path).toEqual(['csv', 'excludedRuns', 0, 'from']);

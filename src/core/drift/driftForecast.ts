@@ -45,7 +45,7 @@ function finiteVariance(xs: ArrayLike<number>): number {
 }
 
 function series(values: Float64Array, variances: Float64Array, blocks: RunBlocks, level: number, degree: number): TrendSeries {
-  if (!values.every(Number.isFinite)) throw new ForecastError('a block\'s fit has no solution; no trend');
+  if (!values.every(Number.isFinite)) throw new ForecastError('a block’s fit has no solution; no trend');
   return { blockValues: values, blockVariances: variances, forecast: weightedTrendForecast(blocks.position, values, variances, blocks.lastRun, level, degree) };
 }
 

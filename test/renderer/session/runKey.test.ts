@@ -5,7 +5,7 @@ import { describe, expect, it } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
 import { approximatorSchema } from '../../../src/project/approximatorSchema';
 import type { CsvSettings, ProjectDocument } from '../../../src/project/schema';
-import { importKey, runKey, runKeyWithNotes } from '../../../src/shared/runKey';
+import { importKey, runFingerprint, runKey, runKeyWithNotes } from '../../../src/shared/runKey';
 
 const loaded = parseProjectText(readFileSync(resolve(__dirname, '../../../sample-projects/tank-levels/tank-levels.spcritic'), 'utf8'), 'p');
 if (!loaded.ok) throw new Error('sample does not load');
@@ -89,6 +89,17 @@ describe('run key', () => {
       expect(runKey(runs('3', '5', ''), 'f')).toBe(runKeyWithNotes(runs('3', '5', ''), 'f'));
       expect(runKeyWithNotes(runs('3', '5', 'trip'), 'f')).not.toBe(runKey(runs('3', '5', 'trip'), 'f'));
       expect(JSON.parse(runKeyWithNotes(runs('3', '5', 'trip'), 'f')).csv.excludedRuns[0].reason).toBe('trip');
+    });
+
+    // Pinned to what the earlier version wrote: the SHA-256 below was computed by runKey and runFingerprint
+    // as they stood at commit d0c1cb7 (before reasons and notes left the key), on this very document, so a later
+    // change to the key's form cannot silently mark such saved results out of date, nor accept others.
+    it('the earlier form is exactly the fingerprint the earlier version saved', () => {
+      const earlier = { ...withCsv({ excludedRuns: [{ from: '3', to: '5', reason: 'trip' }], excludedTimes: [{ from: 0, to: 600, reason: 'start-up' }] }),
+        notes: { comment: 'checked by the shift lead' }, carriedOver: { old: 1 } } as ProjectDocument;
+      const saved = '18182c374509f4df93ab89ddd024fb796fdac7114c1e1959fa9a36934c6305f1';
+      expect(runFingerprint(runKeyWithNotes(earlier, 'f'))).toBe(saved);
+      expect(runFingerprint(runKey(earlier, 'f'))).not.toBe(saved);
     });
   });
 });
