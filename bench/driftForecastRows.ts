@@ -11,7 +11,8 @@
  *     [--transitions 100000] [--out rows.jsonl] [--blocks 5] [--degree 1] [--rollouts 200]
  *
  * --blocks and --degree: another split and trend shape (drift40b's variant, /work/notes/drift40b-rule.md: 10 blocks,
- * a quadratic); --rollouts: rollouts per start for the truth.
+ * a quadratic; drift41's confirming run, /work/notes/drift41-rule.md: the same on fresh seeds 7–9 with 200 rollouts
+ * and a fourth drifting plant, the pump that wears only after 60 % of its runs); --rollouts: rollouts per start for the truth.
  *
  * Per row (a plant, a seed, a law — the present controller or a candidate; J in the project's reward sense,
  * −cost): the truth (rollouts of the law on the END plant from the log's run starts, as holdoutCliRows.ts rolls
@@ -26,6 +27,7 @@ import type { GaussianPolicySpec } from '../src/core/policy';
 import { rolloutTruth } from '../test/battery/rolloutTruth';
 import { driftingPlantControls, driftingPlants, keptAssumptionPlants } from '../test/battery/holdout/brokenLogPlants';
 import type { BrokenLogPlant } from '../test/battery/holdout/brokenLog';
+import { dosingPumpLateWearPlant } from '../test/battery/holdout/dosingPumpLateWearPlant';
 import { bootstrapInterval } from '../src/core/bootstrap/bootstrapInterval';
 import type { LinearReplicateSetup } from '../src/core/bootstrap/linearFqeReplicate';
 import { driftForecast, type TrendSeries } from '../src/core/drift/driftForecast';
@@ -138,7 +140,7 @@ async function main() {
   const which = option('plants', 'drifting,stationary').split(','), seeds = option('seeds', '1,2,3').split(',').map(Number);
   const transitions = Number(option('transitions', '100000')), out = option('out', '');
   Object.assign(settings, { blocks: Number(option('blocks', String(settings.blocks))), degree: Number(option('degree', '1')), rolloutsPerStart: Number(option('rollouts', '200')) });
-  const drifting = driftingPlants(), stationary = [...keptAssumptionPlants(), ...driftingPlantControls()];
+  const drifting = [...driftingPlants(), dosingPumpLateWearPlant()], stationary = [...keptAssumptionPlants(), ...driftingPlantControls()];
   const chosen: [BrokenLogPlant, string][] = [
     ...drifting.map((p): [BrokenLogPlant, string] => [p, 'drifting']), ...stationary.map((p): [BrokenLogPlant, string] => [p, 'stationary']),
   ].filter(([p, g]) => which.includes(g) || which.includes(p.name));

@@ -6,14 +6,11 @@
  * logging controller costs what the discrete Lyapunov solution says (a linear plant; Bertsekas vol. I §4.1).
  */
 import { describe, expect, it } from 'vitest';
-import { feedbackCostToGo } from '../../../src/core/lq';
 import type { RandomSource } from '../../../src/core/random';
 import { DELIVERY, TARGET_MG_L, deliveryAtRun, dosingDynamics, dosingPumpWearPlant } from './dosingPumpWearPlant';
-import { smallAmplitudeQuadraticValue } from './smallAmplitude';
+import { dosingEndPlantCosts, restResidual } from './dosingEndCost';
 
 const quiet: RandomSource = { normal: () => 0, uniform: () => 0.5, integer: () => 0 };
-/** The residual at rest under u = 0.5 − 0.5·(c − 1) with delivery g: c = g·(1 − 0.5·c) ⇒ c* = g/(1 + 0.5·g). */
-const restResidual = (g: number) => g / (1 + 0.5 * g);
 
 describe('hold-out chlorine dosing whose pump delivers 20 % less by the end of the log', () => {
   it('rests at 1 mg/L with u = 1/g, for the new tube and the worn one', () => {
@@ -44,16 +41,7 @@ describe('hold-out chlorine dosing whose pump delivers 20 % less by the end of t
   });
 
   it('at small amplitude, the end plant under the logging controller costs what the discrete Lyapunov solution says', () => {
-    const plant = dosingPumpWearPlant(), g = DELIVERY.last, rest = restResidual(g), restAction = 1 - 0.5 * rest;
-    // State (c, d): c′ = 0.8·c − 0.1·d + 0.2·g·u, d′ = 0.9·d. Law u = u* − 0.5·(c − c*) + 0.25·d: u = −F·x with F = (0.5, −0.25).
-    const closed = feedbackCostToGo({
-      stateDim: 2, actionDim: 1, dynamics: Float64Array.of(0.8, -0.1, 0, 0.9), inputGain: Float64Array.of(0.2 * g, 0),
-      processNoiseCovariance: Float64Array.of(0.03 ** 2, 0, 0, 0.13 ** 2), stateWeight: Float64Array.of(5, 0, 0, 0), actionWeight: Float64Array.of(0),
-    }, { feedbackGain: Float64Array.of(0.5, -0.25), bias: Float64Array.of(0), noiseCovariance: Float64Array.of(0.05 ** 2) }, plant.discount);
-    const run = smallAmplitudeQuadraticValue({
-      dynamics: plant.dynamics, rest: [rest, 0], restAction, gain: [-0.5, 0.25], std: 0.05,
-      weights: [5, 0], discount: plant.discount, scale: 0.01, rollouts: 3000, seed: 5,
-    });
-    expect(Math.abs(run.value - closed.constant)).toBeLessThan(4 * run.standardError + 0.01 * closed.constant);
+    const { closed, run } = dosingEndPlantCosts(dosingPumpWearPlant(), 5);
+    expect(Math.abs(run.value - closed)).toBeLessThan(4 * run.standardError + 0.01 * closed);
   });
 });
