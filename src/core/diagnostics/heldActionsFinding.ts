@@ -56,7 +56,7 @@ export function heldActionsFinding(stretches: HeldStretches, effect: HeldEffect)
     message: `${rows.toLocaleString('en-US')} rows (${shareText(stretches.share)}) in ${count.toLocaleString('en-US')} stretch${count === 1 ? '' : 'es'} of up to ${longest} rows repeat the action of the row before exactly, away from the actuator limits. ` +
       `The present controller’s law fitted to every row differs from the law the other rows follow by ${effectText(effect.effect)} of its dither` +
       (serious ? ': its J is the J of a law that never ran, and every difference is taken against it (on a test plant, 0.56 put that J off by 12 %); no candidate is named for a trial. ' : ' (serious from ' + HELD_SERIOUS + '). ') +
-      'Likely causes: the loop in manual, a held or frozen signal, or historian compression. ' +
+      'Likely causes: the loop in manual, a held or frozen signal, historian compression, or an action held by design between moves (a setpoint changed by hand now and then), which no law with dither describes. ' +
       'Export the loop’s mode with the log and leave out the rows in manual (time windows, where there are few), or log the action without compression, and evaluate again.',
   };
 }
