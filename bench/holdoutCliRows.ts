@@ -42,6 +42,7 @@ import { rolloutTruthPlants } from '../test/battery/rolloutTruthPlants';
 import { brokenLogPlants, keptAssumptionPlants, movedSetpointPlants } from '../test/battery/holdout/brokenLogPlants';
 import type { BrokenLogPlant } from '../test/battery/holdout/brokenLog';
 import { manualStretchPlants } from '../test/battery/holdout/manualStretchPlants';
+import { deliveryFeedforwardPlants } from '../test/battery/holdout/coldStoreDeliveryPlant';
 import { repeatedActions } from './repeatedActions';
 import { cliCommand } from './builtCli';
 import { keptRunsAfterChange } from './keptRuns';
@@ -56,7 +57,8 @@ const ROLLOUTS_PER_START = { default: 100, more: 200 } as const;
 const MORE_ROLLOUTS = ['holdout-backlash-level-g0.96', 'holdout-header-pressure-g0.98', 'greenhouse-clipped-g0.95', 'pendulum-saturating-g0.97',
   'holdout-aeration-noisy-probe-g0.95', 'holdout-dosing-pump-wear-g0.96', 'holdout-cold-store-retuned-g0.97',
   'holdout-aeration-clean-probe-g0.95', 'holdout-dosing-pump-steady-g0.96', 'holdout-cold-store-one-tuning-g0.97',
-  'holdout-cold-store-setpoint-moved-g0.97', 'holdout-cold-store-setpoint-nudged-g0.97', 'holdout-cold-store-manual-10-g0.97', 'holdout-cold-store-manual-30-g0.97'];
+  'holdout-cold-store-setpoint-moved-g0.97', 'holdout-cold-store-setpoint-nudged-g0.97', 'holdout-cold-store-manual-10-g0.97', 'holdout-cold-store-manual-30-g0.97',
+  ...deliveryFeedforwardPlants().map((p) => p.name)];
 const ROLLOUT_SEED = 31_337;
 /** The baseline's row name in the printed table (its rows are kept apart in --out, under `baseline`). */
 const PRESENT = 'present controller';
@@ -130,7 +132,7 @@ async function main() {
   const args = process.argv.slice(2);
   // The plants whose logs break an assumption (noisy readings, drift, two tunings) and their controls (kept) after the others; each law's truth is
   // rolled out as it acts on the true state (truthPolicy: a law on a noisy reading), on the end-of-log plant.
-  const all: (ReturnType<typeof rolloutTruthPlants>[number] & Partial<Pick<BrokenLogPlant, 'truthPolicy'>>)[] = [...rolloutTruthPlants(), ...brokenLogPlants(), ...keptAssumptionPlants(), ...movedSetpointPlants(), ...manualStretchPlants()], known = new Set(all.map((p) => p.name));
+  const all: (ReturnType<typeof rolloutTruthPlants>[number] & Partial<Pick<BrokenLogPlant, 'truthPolicy'>>)[] = [...rolloutTruthPlants(), ...brokenLogPlants(), ...keptAssumptionPlants(), ...movedSetpointPlants(), ...manualStretchPlants(), ...deliveryFeedforwardPlants()], known = new Set(all.map((p) => p.name));
   const names = option(args, 'plants', [...known].join(',')).split(',');
   const unknown = [...names, ...MORE_ROLLOUTS].filter((n) => !known.has(n));
   if (unknown.length) throw new Error(`holdoutCliRows: no plant with rollout truth named ${unknown.join(', ')} (have ${[...known].join(', ')})`);
