@@ -2,7 +2,8 @@
  * The held-actions check (src/core/diagnostics/heldActions.ts, heldActionsFinding.ts) on simulated logs directly,
  * no evaluation: the logs of bench/runOrderBattery.ts (every battery plant, every hold-out, the broken-log and
  * moved-setpoint plants and the controls) and the three sample projects (limits as the pipeline reads them).
- * Per log: held rows, share, stretches, longest, effect E, and the finding.
+ * Per log: held rows, share, stretches, longest, effect E, the finding, and whether the present controller's law
+ * would be fitted on the rows not held (heldLawRepaired; held42).
  *
  *   nice -n 10 npx tsx bench/heldActionsBattery.ts [--seeds 1,2,3,4,5] [--transitions 100000] [--plants a,b]
  *
@@ -15,7 +16,7 @@ import { batteryPlants } from '../test/battery/catalogue';
 import { holdoutPlants } from '../test/battery/holdout/levelValvePlant';
 import { brokenLogPlants, keptAssumptionPlants, movedSetpointPlants } from '../test/battery/holdout/brokenLogPlants';
 import { heldActionEffect, heldRowMask, heldStretches, type ActionLimits, type HeldActionData } from '../src/core/diagnostics/heldActions';
-import { heldSeverity } from '../src/core/diagnostics/heldActionsFinding';
+import { heldLawRepaired, heldSeverity } from '../src/core/diagnostics/heldActionsFinding';
 import { loggedActionLimits } from '../src/core/loggedActionLimits';
 import { openProject } from '../src/pipeline/openProject';
 import { startRun } from '../src/pipeline/projectRun';
@@ -27,7 +28,7 @@ function option(name: string, fallback: string): string {
 
 function row(name: string, seed: number | string, data: HeldActionData, limits: ActionLimits): string {
   const held = heldRowMask(data, limits), s = heldStretches(held), e = heldActionEffect(data, limits, held), severity = heldSeverity(s, e);
-  console.log([name, seed, s.rows, `${(100 * s.share).toFixed(2)} %`, s.stretches, s.longest, 'reason' in e ? e.reason : e.effect.toFixed(3), severity ?? '·'].join(' | '));
+  console.log([name, seed, s.rows, `${(100 * s.share).toFixed(2)} %`, s.stretches, s.longest, 'reason' in e ? e.reason : e.effect.toFixed(3), severity ?? '·', heldLawRepaired(s, e) ? 'law on the moving rows' : 'law on every row'].join(' | '));
   return severity ?? 'none';
 }
 
@@ -37,7 +38,7 @@ async function main(): Promise<void> {
   const plants = [...batteryPlants(), ...holdoutPlants(), ...brokenLogPlants(), ...movedSetpointPlants(), ...keptAssumptionPlants().map((p) => ({ ...p, name: `${p.name} (control)` }))]
     .filter((p) => only.length === 0 || only.some((o) => p.name.includes(o)));
   console.log(`# ${transitions} transitions, seeds ${seeds.join(',')}`);
-  console.log('log | seed | held rows | share | stretches | longest | E | finding');
+  console.log('log | seed | held rows | share | stretches | longest | E | finding | present controller\'s law');
   const tally = new Map<string, number>();
   const count = (severity: string) => tally.set(severity, (tally.get(severity) ?? 0) + 1);
   for (const plant of plants) for (const seed of seeds) {

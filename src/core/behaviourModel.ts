@@ -25,6 +25,7 @@
 import { CensoredRegressionError, fitCensoredRegression } from './censoredRegression';
 import { ditherDependence, type DitherDependence } from './ditherDependence';
 import { cholesky, choleskySolve, SingularMatrixError } from './linalg/dense';
+import { selectedRows, selectRows } from './selectRows';
 import { hasLimits, loggedActionLimits, NO_DECLARED_BOUNDS, type DeclaredActionBounds, type LoggedActionLimits } from './loggedActionLimits';
 import type { GaussianPolicySpec } from './policy';
 
@@ -88,11 +89,25 @@ function crossProducts(x: Float64Array, xMean: Float64Array, y: Float64Array, yM
   return out;
 }
 
-export function fitBehaviourModel(
-  states: Float64Array, actions: Float64Array, n: number, ds: number, m: number, declared: DeclaredActionBounds = NO_DECLARED_BOUNDS,
-): BehaviourModel {
-  if (states.length !== n * ds) throw new BehaviourModelError(`states: expected ${n}×${ds} = ${n * ds} values, got ${states.length}`);
-  if (actions.length !== n * m) throw new BehaviourModelError(`actions: expected ${n}×${m} = ${n * m} values, got ${actions.length}`);
+/**
+ * The plain least-squares law a = c + G·s + e on n rows, each action on [1, s] by the centred normal equations
+ * (the doc comment above): the present controller's model starts from it, and the held-actions check
+ * (diagnostics/heldActions.ts) fits it on every row and on the rows not held. Throws BehaviourModelError, naming
+ * why, where it cannot be fitted: too few rows, a constant state, collinear states, a constant or noiseless action.
+ * Shapes: states n×ds, actions n×m row-major; gain m×ds; covariance m×m (EᵀE / (n − ds − 1)).
+ */
+export interface LeastSquaresLaw {
+  readonly offset: Float64Array;
+  readonly gain: Float64Array;
+  readonly covariance: Float64Array;
+  readonly rSquared: number[];
+  readonly degreesOfFreedom: number;
+  /** s̄ (ds) and the Cholesky factor of the centred state scatter (ds×ds), for the standard errors. */
+  readonly stateMean: Float64Array;
+  readonly factor: Float64Array;
+}
+
+export function leastSquaresLaw(states: Float64Array, actions: Float64Array, n: number, ds: number, m: number): LeastSquaresLaw {
   const dof = n - ds - 1;
   if (dof < 1) throw new BehaviourModelError(`a model of the present controller on ${ds} states needs at least ${ds + 2} transitions, got ${n}`);
   const sMean = columnMeans(states, n, ds), aMean = columnMeans(actions, n, m);
@@ -109,10 +124,29 @@ export function fitBehaviourModel(
     for (let p = 0; p < ds; p++) offset[j] -= gain[j * ds + p] * sMean[p];
   }
   const { covariance, rSquared } = residualMoments(states, actions, n, ds, m, offset, gain, aMean, dof);
-  checkJointNoise(covariance, m);
-  const model = assembleModel({ n, ds, m, dof, offset, gain, covariance, rSquared, factor, sMean });
+  return { offset, gain, covariance, rSquared, degreesOfFreedom: dof, stateMean: sMean, factor };
+}
+
+/**
+ * `moving` (n, optional): 1 for the rows the law is fitted on, where the held-actions check found held rows
+ * (pipeline/plan/presentController.ts); the limits are still read on every row (a held row is never at one).
+ */
+export function fitBehaviourModel(
+  states: Float64Array, actions: Float64Array, n: number, ds: number, m: number, declared: DeclaredActionBounds = NO_DECLARED_BOUNDS, moving?: Uint8Array,
+): BehaviourModel {
+  if (states.length !== n * ds) throw new BehaviourModelError(`states: expected ${n}×${ds} = ${n * ds} values, got ${states.length}`);
+  if (actions.length !== n * m) throw new BehaviourModelError(`actions: expected ${n}×${m} = ${n * m} values, got ${actions.length}`);
   const limits = loggedActionLimits(actions, n, m, declared);
-  return hasLimits(limits) ? censoredModel(model, limits, states, actions, sMean) : { ...model, limits };
+  if (!moving) return fitOnRows(states, actions, n, ds, m, limits);
+  const kept = selectedRows(moving);
+  return fitOnRows(selectRows(states, ds, kept), selectRows(actions, m, kept), kept.length, ds, m, limits);
+}
+
+function fitOnRows(states: Float64Array, actions: Float64Array, n: number, ds: number, m: number, limits: LoggedActionLimits): BehaviourModel {
+  const law = leastSquaresLaw(states, actions, n, ds, m);
+  checkJointNoise(law.covariance, m);
+  const model = assembleModel({ n, ds, m, dof: law.degreesOfFreedom, offset: law.offset, gain: law.gain, covariance: law.covariance, rSquared: law.rSquared, factor: law.factor, sMean: law.stateMean });
+  return hasLimits(limits) ? censoredModel(model, limits, states, actions, law.stateMean) : { ...model, limits };
 }
 
 function censoredFit(x: Float64Array, y: Float64Array, n: number, k: number, limits: LoggedActionLimits, j: number, start: { coefficients: number[]; sigma: number }) {

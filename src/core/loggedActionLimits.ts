@@ -33,6 +33,8 @@ export interface LoggedActionLimits {
   readonly shareAtLimit: number[];
   /** Which rule saw each limit, per action. */
   readonly evidence: { readonly lo: LimitEvidence[]; readonly hi: LimitEvidence[] };
+  /** Each action's smallest and largest logged value, read here once (the held-actions check takes them as stops too). */
+  readonly extremes: { readonly min: number[]; readonly max: number[] };
 }
 
 /** Position limits declared for each action (by candidates), per action a list; empty where none. */
@@ -63,13 +65,15 @@ export function loggedLimitRuleText(): string {
 export function loggedActionLimits(actions: ArrayLike<number>, n: number, m: number, declared: DeclaredActionBounds = NO_DECLARED_BOUNDS): LoggedActionLimits {
   const needed = Math.max(LIMIT_MIN_ROWS, Math.ceil(LIMIT_SHARE * n));
   const lo: number[] = [], hi: number[] = [], shareAtLimit: number[] = [];
-  const evidence = { lo: [] as LimitEvidence[], hi: [] as LimitEvidence[] };
+  const evidence = { lo: [] as LimitEvidence[], hi: [] as LimitEvidence[] }, extremes = { min: [] as number[], max: [] as number[] };
   for (let j = 0; j < m; j++) {
     let min = Infinity, max = -Infinity;
     for (let i = 0; i < n; i++) {
       min = Math.min(min, actions[i * m + j]);
       max = Math.max(max, actions[i * m + j]);
     }
+    extremes.min.push(min);
+    extremes.max.push(max);
     let atMin = 0, atMax = 0;
     for (let i = 0; i < n; i++) {
       if (actions[i * m + j] === min) atMin++;
@@ -83,7 +87,7 @@ export function loggedActionLimits(actions: ArrayLike<number>, n: number, m: num
     hi.push(upper !== 'none' ? max : Infinity);
     shareAtLimit.push(((lower !== 'none' ? atMin : 0) + (upper !== 'none' ? atMax : 0)) / n);
   }
-  return { lo, hi, shareAtLimit, evidence };
+  return { lo, hi, shareAtLimit, evidence, extremes };
 }
 
 function evidenceAt(count: number, needed: number, declared: boolean): LimitEvidence {

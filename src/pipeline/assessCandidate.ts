@@ -7,6 +7,7 @@
  * itself. Reward terms throughout.
  */
 import type { UnconvergedClass } from '../core/diagnostics/functionClassRange';
+import { heldImportanceReason } from '../core/diagnostics/heldActionsFinding';
 import { linearFqeReplicate, linearFqeReplicateBlock, type LinearReplicateSetup, type LinearSolveSettings } from '../core/bootstrap/linearFqeReplicate';
 import { linearisedReplicate } from '../core/bootstrap/linearisedReplicate';
 import type { CancellationCheck } from '../core/fqe/cancellation';
@@ -154,6 +155,9 @@ export function offPolicyInputs(context: AssessmentContext, model: CandidateMode
   const { plan } = context;
   if (!plan.starts.followEpisodes) return { reason: 'the project evaluates J at given start states, but importance sampling estimates J at the logged runs’ own starts' };
   if (!context.presentController) return { reason: context.presentControllerReason };
+  // The law fitted on the rows not held is no logging law on the held rows (a point mass there): no weights (heldActionsFinding.ts).
+  const held = plan.presentController.held;
+  if (plan.presentController.lawFit.lawFittedOn === 'movingRows' && !('reason' in held)) return { reason: heldImportanceReason(held.runs) };
   let table: ImportanceWeightTable;
   try {
     table = importanceWeightTable(plan.data, plan.episodes, model.policy, context.presentController.policy);

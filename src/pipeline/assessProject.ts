@@ -66,7 +66,7 @@ export async function assessRun(run: ProjectRun, options: AssessRunOptions): Pro
       // The plant-memory check needs no resampling: its finding is not lost with the rest (J is still shown).
       const memory = plantMemoryAssessment(run.plan.data).warnings.map((w) => ({ where: 'plant memory', message: w.message }));
       const order = runOrderAssessment(run.plan.data, run.plan.presentController.fitted?.limits).warnings.map((w) => ({ where: 'run order', message: w.message }));
-      const held = heldActionsAssessment(run.plan.data, run.plan.presentController.fitted?.limits).warnings.map((w) => ({ where: 'held actions', message: w.message }));
+      const held = heldActionsAssessment(run.plan.presentController.held, run.plan.presentController.lawFit).warnings.map((w) => ({ where: 'held actions', message: w.message }));
       return failure({ where: 'assessment', message: (error as Error).message }, ...memory, ...order, ...held);
     }
     throw error;
@@ -90,8 +90,8 @@ async function assess(run: ProjectRun, options: AssessRunOptions): Promise<Asses
   const memory = plantMemoryAssessment(run.plan.data), memoryReason = modelChecksReason(memory);
   // Whole-log, like the plant memory: a serious run-order finding stops a trial (trialChoice.ts) and bears on every J.
   const runOrder = runOrderAssessment(run.plan.data, run.plan.presentController.fitted?.limits);
-  // Whole-log too: held rows (a loop in manual) pull the present controller's fitted law; a serious finding stops a trial.
-  const heldActions = heldActionsAssessment(run.plan.data, run.plan.presentController.fitted?.limits);
+  // Whole-log too: held rows (a loop in manual), read in the plan, where the present controller's law was then fitted on the rows not held; a serious finding stops a trial.
+  const heldActions = heldActionsAssessment(run.plan.presentController.held, run.plan.presentController.lawFit);
   // Opened next, so that a helper thread forms the one-step model and simulates while this thread fits the function classes.
   const simulations = memoryReason !== null ? { reason: memoryReason } : openRolloutSimulations(context, everyModel(run).map((m) => m.policy), options.settings);
   try {

@@ -1,30 +1,58 @@
 /**
  * The held-actions check on a project's log (src/core/diagnostics/heldActions.ts), once per project, not per
  * candidate: rows whose action repeats the row before exactly, away from the actuator limits, and how far they
- * pull the present controller's fitted law. Its rule and words come from
- * src/core/diagnostics/heldActionsFinding.ts; its numbers go to the assessment as `heldActions`.
+ * pull the present controller's fitted law. Read in the plan, before that law is fitted: where the rule says the
+ * held rows pull it (heldLawRepaired), the law is fitted on the rows not held (plan/presentController.ts). Its rule
+ * and words come from src/core/diagnostics/heldActionsFinding.ts; its numbers go to the assessment as `heldActions`.
  */
-import { heldActionEffect, heldRowMask, heldStretches, type ActionLimits, type HeldActionData } from '../core/diagnostics/heldActions';
-import { heldActionsFinding, heldSeverity } from '../core/diagnostics/heldActionsFinding';
-import { loggedActionLimits } from '../core/loggedActionLimits';
+import { heldActionEffect, heldRowMask, heldStretches, type ActionLimits, type HeldActionData, type HeldEffect, type HeldStretches } from '../core/diagnostics/heldActions';
+import { heldActionsFinding, heldLawRepaired, heldSeverity, type HeldRuns } from '../core/diagnostics/heldActionsFinding';
 import type { AssessmentWarning } from './assessment';
 
-/** The check's numbers (plain JSON): held rows, maximal stretches, their share of the rows, the longest, the effect E and the rule's severity. */
-export type HeldActionsSummary =
-  | { readonly rows: number; readonly stretches: number; readonly share: number; readonly longest: number; readonly effect: number | null; readonly severity: 'caution' | 'serious' | null }
+/** The check's reading of a log: the held-row mask (n), its counts, the effect, and the runs with a held row. */
+export type HeldActionsRead =
+  | { readonly held: Uint8Array; readonly stretches: HeldStretches; readonly effect: HeldEffect; readonly runs: HeldRuns }
   | { readonly reason: string };
 
-/**
- * `limits`: the actuator limits the baseline read from the log (its fitted model's, core/behaviourModel.ts, with the
- * candidates' declared bounds); read from the log alone where there is no fitted baseline.
- */
-export function heldActionsAssessment(data: HeldActionData, limits?: ActionLimits): { summary: HeldActionsSummary; warnings: AssessmentWarning[] } {
-  if (data.count < 2 || data.actionDim < 1) return { summary: { reason: 'the log has fewer than two transitions' }, warnings: [] };
-  const read = limits ?? loggedActionLimits(data.actions, data.count, data.actionDim);
-  const held = heldRowMask(data, read), stretches = heldStretches(held), effect = heldActionEffect(data, read, held);
-  const finding = heldActionsFinding(stretches, effect);
+/** Where the present controller's law was fitted: on every row, or on the rows not held (and how many rows that was). */
+export interface HeldLawFit {
+  readonly lawFittedOn: 'everyRow' | 'movingRows';
+  readonly rowsUsed: number | null;
+}
+
+/** The check's numbers (plain JSON): held rows, maximal stretches, their share of the rows, the longest, the effect E, the rule's severity and where the law was fitted. */
+export type HeldActionsSummary =
+  | ({ readonly rows: number; readonly stretches: number; readonly share: number; readonly longest: number; readonly effect: number | null; readonly severity: 'caution' | 'serious' | null } & HeldLawFit)
+  | { readonly reason: string };
+
+/** `limits`: the actuator limits the baseline reads from the log (loggedActionLimits.ts, with the candidates' declared bounds) and the logged extremes. */
+export function readHeldActions(data: HeldActionData, limits: ActionLimits): HeldActionsRead {
+  if (data.count < 2 || data.actionDim < 1) return { reason: 'the log has fewer than two transitions' };
+  const held = heldRowMask(data, limits);
+  return { held, stretches: heldStretches(held), effect: heldActionEffect(data, limits, held), runs: heldRuns(data.episode, held) };
+}
+
+/** Whether the read calls for the present controller's law to be fitted on the rows not held (the rule: heldActionsFinding.ts). */
+export function repairsLaw(read: HeldActionsRead): boolean {
+  return !('reason' in read) && heldLawRepaired(read.stretches, read.effect);
+}
+
+export function heldActionsAssessment(read: HeldActionsRead, fit: HeldLawFit): { summary: HeldActionsSummary; warnings: AssessmentWarning[] } {
+  if ('reason' in read) return { summary: { reason: read.reason }, warnings: [] };
+  const { stretches, effect, runs } = read, repaired = fit.lawFittedOn === 'movingRows' && fit.rowsUsed !== null ? { rowsUsed: fit.rowsUsed, runs } : null;
+  const finding = heldActionsFinding(stretches, effect, repaired);
   return {
-    summary: { ...stretches, effect: 'reason' in effect ? null : effect.effect, severity: heldSeverity(stretches, effect) },
+    summary: { ...stretches, effect: 'reason' in effect ? null : effect.effect, severity: heldSeverity(stretches, effect), ...fit },
     warnings: finding ? [finding] : [],
   };
+}
+
+/** Runs (distinct episode labels) and how many hold at least one held row. */
+function heldRuns(episode: ArrayLike<number>, held: Uint8Array): HeldRuns {
+  const all = new Set<number>(), withHeld = new Set<number>();
+  for (let i = 0; i < held.length; i++) {
+    all.add(episode[i]);
+    if (held[i]) withHeld.add(episode[i]);
+  }
+  return { withHeld: withHeld.size, total: all.size };
 }

@@ -149,3 +149,45 @@ describe('meanActionAtMeanState', () => {
     expect(logged).toBeLessThan(48.5);
   });
 });
+
+describe('fitBehaviourModel on the rows not held (the held-actions repair)', () => {
+  // A log with two laws, both known in closed form (OLS slope S_sa/S_ss and intercept ā − β s̄; Seber & Lee,
+  // "Linear Regression Analysis", 2nd ed., 2003, §3.1, from memory). Moving rows: a = 0.3·s + e, s ∈ {±1, ±2} twice
+  // each, e = ±0.1 once each per state (Σe = Σs·e = 0), so their law is 0.3·s exactly, σ² = 8·0.01/6. Then 0.4 held
+  // for three rows at s = 3 (an operator's valve): every row's law is the pooled one, a law that never ran.
+  const rows: [number, number][] = [[-2, -0.5], [-1, -0.2], [1, 0.2], [2, 0.7], [-2, -0.7], [-1, -0.4], [2, 0.5], [1, 0.4], [3, 0.4], [3, 0.4], [3, 0.4]];
+  const states = Float64Array.from(rows.map((r) => r[0])), actions = Float64Array.from(rows.map((r) => r[1])), n = rows.length;
+  const moving = Uint8Array.from(rows.map((_, i) => (i < 8 ? 1 : 0)));
+
+  it('recovers the law the other rows follow, while the fit on every row gives the pooled law', () => {
+    const repaired = fitBehaviourModel(states, actions, n, 1, 1, undefined, moving);
+    expect(repaired.count).toBe(8);
+    expect(repaired.gain[0][0]).toBeCloseTo(0.3, 12);
+    expect(repaired.offset[0]).toBeCloseTo(0, 12);
+    expect(repaired.std[0]).toBeCloseTo(Math.sqrt(0.08 / 6), 12);
+    const pooled = fitBehaviourModel(states, actions, n, 1, 1);
+    const sss = 47 - 81 / 11, ssa = 9.6 - (9 * 1.2) / 11; // Σs = 9, Σs² = 47, Σa = 1.2, Σs·a = 9.6 over all 11 rows
+    expect(pooled.gain[0][0]).toBeCloseTo(ssa / sss, 12);
+    expect(pooled.offset[0]).toBeCloseTo(1.2 / 11 - (ssa / sss) * (9 / 11), 12);
+  });
+
+  it('every row marked moving: the same model as without a mask, bit for bit', () => {
+    expect(fitBehaviourModel(states, actions, n, 1, 1, undefined, new Uint8Array(n).fill(1))).toEqual(fitBehaviourModel(states, actions, n, 1, 1));
+  });
+
+  it('the limits are read on every row, and the clipped fit runs on the rows not held', () => {
+    // A valve at its stop 1 on 30 rows of 200 (read as a limit), and a held stretch of 20 rows mid-range.
+    const m = 200, random = createRandom(5), s = new Float64Array(m), a = new Float64Array(m);
+    for (let i = 0; i < m; i++) {
+      s[i] = 2 * random.normal();
+      a[i] = Math.min(1, 0.5 + 0.3 * s[i] + 0.05 * random.normal());
+    }
+    for (let i = 100; i < 120; i++) a[i] = 0.42;
+    const keep = Uint8Array.from(a, (_, i) => (i >= 100 && i < 120 ? 0 : 1));
+    const model = fitBehaviourModel(s, a, m, 1, 1, undefined, keep);
+    expect(model.count).toBe(180);
+    expect(model.limits).toEqual(fitBehaviourModel(s, a, m, 1, 1).limits);
+    expect(model.bounds?.hi).toEqual([1]);
+    expect(model.gain[0][0]).toBeCloseTo(0.3, 1);
+  });
+});

@@ -23,7 +23,9 @@
  *
  * Shapes: states n×ds, actions n×m row-major; limits lo/hi m each (±Infinity where none).
  */
-import { cholesky, choleskySolve, SingularMatrixError } from '../linalg/dense';
+import { BehaviourModelError, leastSquaresLaw, type LeastSquaresLaw } from '../behaviourModel';
+import { selectRows } from '../selectRows';
+import type { LoggedActionLimits } from '../loggedActionLimits';
 
 export interface HeldActionData {
   readonly count: number;
@@ -34,10 +36,10 @@ export interface HeldActionData {
   readonly episode: ArrayLike<number>;
 }
 
-export interface ActionLimits {
-  readonly lo: readonly number[];
-  readonly hi: readonly number[];
-}
+/** The limits the behaviour model reads (±Infinity where none) and each action's logged extremes, as loggedActionLimits.ts reads them. */
+export type ActionLimits = Pick<LoggedActionLimits, 'lo' | 'hi' | 'extremes'>;
+
+type Stops = Pick<ActionLimits, 'lo' | 'hi'>;
 
 export interface HeldStretches {
   /** Held rows, their share of all rows, the number of maximal stretches and the longest (rows). */
@@ -50,22 +52,15 @@ export interface HeldStretches {
 export type HeldEffect = { readonly effect: number; readonly action: number } | { readonly reason: string };
 
 /** The limits read from the log widened by each action's logged extremes: a value at either is at a stop. */
-function stops(data: HeldActionData, limits: ActionLimits): ActionLimits {
-  const m = data.actionDim, lo: number[] = [], hi: number[] = [];
-  for (let j = 0; j < m; j++) {
-    let min = Infinity, max = -Infinity;
-    for (let i = 0; i < data.count; i++) {
-      min = Math.min(min, data.actions[i * m + j]);
-      max = Math.max(max, data.actions[i * m + j]);
-    }
-    lo.push(Number.isFinite(limits.lo[j]) ? limits.lo[j] : min);
-    hi.push(Number.isFinite(limits.hi[j]) ? limits.hi[j] : max);
-  }
-  return { lo, hi };
+function stops(limits: ActionLimits): Stops {
+  return {
+    lo: limits.lo.map((l, j) => (Number.isFinite(l) ? l : limits.extremes.min[j])),
+    hi: limits.hi.map((h, j) => (Number.isFinite(h) ? h : limits.extremes.max[j])),
+  };
 }
 
 /** Whether any action of row i sits at a stop (stops() above). */
-function atLimit(data: HeldActionData, at: ActionLimits, i: number): boolean {
+function atLimit(data: HeldActionData, at: Stops, i: number): boolean {
   const m = data.actionDim;
   for (let j = 0; j < m; j++) {
     const a = data.actions[i * m + j];
@@ -76,7 +71,7 @@ function atLimit(data: HeldActionData, at: ActionLimits, i: number): boolean {
 
 /** 1 for a held row (see the doc comment), 0 otherwise. */
 export function heldRowMask(data: HeldActionData, limits: ActionLimits): Uint8Array {
-  const m = data.actionDim, held = new Uint8Array(data.count), at = stops(data, limits);
+  const m = data.actionDim, held = new Uint8Array(data.count), at = stops(limits);
   for (let i = 1; i < data.count; i++) {
     if (data.episode[i] !== data.episode[i - 1]) continue;
     let same = true;
@@ -99,53 +94,21 @@ export function heldStretches(held: Uint8Array): HeldStretches {
   return { rows, share: held.length > 0 ? rows / held.length : 0, stretches, longest };
 }
 
-interface LeastSquares {
-  readonly coefficients: Float64Array; // m × (ds + 1): offset, then gains
-  readonly sigma: Float64Array; // m
-}
-
-/** OLS of each action on [1, s] over `rows` (centred normal equations); null when the states' scatter is singular. */
-function leastSquares(data: HeldActionData, rows: readonly number[]): LeastSquares | null {
-  const ds = data.stateDim, m = data.actionDim, n = rows.length, dof = n - ds - 1;
-  if (dof < 1) return null;
-  const sMean = new Float64Array(ds), aMean = new Float64Array(m);
-  for (const i of rows) {
-    for (let p = 0; p < ds; p++) sMean[p] += data.states[i * ds + p] / n;
-    for (let j = 0; j < m; j++) aMean[j] += data.actions[i * m + j] / n;
-  }
-  const sss = new Float64Array(ds * ds), ssa = new Float64Array(ds * m);
-  for (const i of rows) {
-    for (let p = 0; p < ds; p++) {
-      const cp = data.states[i * ds + p] - sMean[p];
-      for (let q = 0; q < ds; q++) sss[p * ds + q] += cp * (data.states[i * ds + q] - sMean[q]);
-      for (let j = 0; j < m; j++) ssa[p * m + j] += cp * (data.actions[i * m + j] - aMean[j]);
-    }
-  }
-  let factor: Float64Array;
+/** The least-squares law (behaviourModel.ts) on the given rows; the reason it cannot be fitted otherwise. */
+function lawOn(data: HeldActionData, rows: readonly number[]): LeastSquaresLaw | { reason: string } {
+  const ds = data.stateDim, m = data.actionDim;
   try {
-    factor = cholesky(sss, ds);
+    return leastSquaresLaw(selectRows(data.states, ds, rows), selectRows(data.actions, m, rows), rows.length, ds, m);
   } catch (error) {
-    if (error instanceof SingularMatrixError) return null;
+    if (error instanceof BehaviourModelError) return { reason: error.message };
     throw error;
   }
-  const coefficients = new Float64Array(m * (ds + 1)), sigma = new Float64Array(m);
-  for (let j = 0; j < m; j++) {
-    const g = choleskySolve(factor, ds, Array.from({ length: ds }, (_, p) => ssa[p * m + j]));
-    let offset = aMean[j];
-    for (let p = 0; p < ds; p++) offset -= g[p] * sMean[p];
-    coefficients[j * (ds + 1)] = offset;
-    coefficients.set(g, j * (ds + 1) + 1);
-    let rss = 0;
-    for (const i of rows) rss += (data.actions[i * m + j] - mean(coefficients, j, data, i)) ** 2;
-    sigma[j] = Math.sqrt(rss / dof);
-  }
-  return { coefficients, sigma };
 }
 
-function mean(coefficients: Float64Array, j: number, data: HeldActionData, i: number): number {
-  const ds = data.stateDim, at = j * (ds + 1);
-  let mu = coefficients[at];
-  for (let p = 0; p < ds; p++) mu += coefficients[at + 1 + p] * data.states[i * ds + p];
+function mean(law: LeastSquaresLaw, j: number, data: HeldActionData, i: number): number {
+  const ds = data.stateDim;
+  let mu = law.offset[j];
+  for (let p = 0; p < ds; p++) mu += law.gain[j * ds + p] * data.states[i * ds + p];
   return mu;
 }
 
@@ -158,14 +121,16 @@ export function heldActionEffect(data: HeldActionData, limits: ActionLimits, hel
     all.push(i);
     if (!held[i]) moving.push(i);
   }
-  const pooled = leastSquares(data, all), free = leastSquares(data, moving);
-  if (!pooled || !free) return { reason: `the action cannot be fitted on the state over the ${moving.length} rows that are neither held nor at a limit` };
+  const pooled = lawOn(data, all), free = lawOn(data, moving);
+  const cannot = (why: string): HeldEffect => ({ reason: `the action cannot be fitted on the state over the ${moving.length} rows that are neither held nor at a limit (${why})` });
+  if ('reason' in free) return cannot(free.reason);
+  if ('reason' in pooled) return cannot(pooled.reason);
   let effect = 0, action = 0;
   for (let j = 0; j < data.actionDim; j++) {
     let sum = 0;
-    for (const i of moving) sum += (mean(pooled.coefficients, j, data, i) - mean(free.coefficients, j, data, i)) ** 2;
-    const sigma = free.sigma[j];
-    const e = sigma > 0 ? Math.sqrt(sum / moving.length) / sigma : sum > 0 ? Infinity : 0;
+    for (const i of moving) sum += (mean(pooled, j, data, i) - mean(free, j, data, i)) ** 2;
+    // σ > 0: the law's fit refuses an action with no residual noise.
+    const e = Math.sqrt(sum / moving.length) / Math.sqrt(free.covariance[j * data.actionDim + j]);
     if (e > effect || j === 0) { effect = e; action = j; }
   }
   return { effect, action };

@@ -14,6 +14,13 @@
  * Serious from E = 0.5, where that J first moves by the cross-checks' 10 % yardstick (interpolated: 0.501,
  * rounded down); a caution from 0.1 (a quarter of it, rounded down: J off by a few per cent at most, within
  * what the battery's J scatters by — a look, not a verdict). Fewer than HELD_MIN_ROWS held rows: nothing.
+ *
+ * The repair (written before measuring, /work/notes/held42-rule.md; test/battery/README.md, "Held actions",
+ * "The law fitted on the moving rows"): wherever the rule finds something (a caution or worse), the present
+ * controller's law is fitted on the rows not held (pipeline/plan/presentController.ts); FQE still uses every row.
+ * The importance-sampling checks are then not applicable (on a held row the logging law is a point mass, not the
+ * fitted Gaussian). The severity is unchanged: a drop to a caution once repaired was measured and not adopted (on
+ * the tower with 10 % held, a candidate's J — which the repair does not touch — was then confident and wrong).
  */
 import { shareText } from '../shareText';
 import type { HeldEffect, HeldStretches } from './heldActions';
@@ -28,11 +35,33 @@ export const HELD_TOPIC = 'heldActions';
 
 export type HeldSeverity = 'caution' | 'serious' | null;
 
+/** Runs in the log, and how many hold a held row. */
+export interface HeldRuns {
+  readonly withHeld: number;
+  readonly total: number;
+}
+
+/** Where the present controller's law was fitted on the rows not held: how many rows, and the runs with held rows. */
+export interface HeldRepair {
+  readonly rowsUsed: number;
+  readonly runs: HeldRuns;
+}
+
 /** The rule's verdict on the check's numbers: null below HELD_MIN_ROWS held rows, below the caution, or where no effect could be read. */
 export function heldSeverity(stretches: HeldStretches, effect: HeldEffect): HeldSeverity {
   if (stretches.rows < HELD_MIN_ROWS || 'reason' in effect) return null;
   if (effect.effect >= HELD_SERIOUS) return 'serious';
   return effect.effect >= HELD_CAUTION ? 'caution' : null;
+}
+
+/** Whether the present controller's law is to be fitted on the rows not held: wherever the rule finds something. */
+export function heldLawRepaired(stretches: HeldStretches, effect: HeldEffect): boolean {
+  return heldSeverity(stretches, effect) !== null;
+}
+
+/** Why the importance-sampling checks do not apply where the law was fitted on the rows not held (a reason, as the checks print it). */
+export function heldImportanceReason(runs: HeldRuns): string {
+  return `actions were held in ${runs.withHeld.toLocaleString('en-US')} of ${runs.total.toLocaleString('en-US')} runs, and on a held row the logged action came from no law with dither (a point mass, not the present controller’s fitted model), so the importance weights are not defined there`;
 }
 
 /** E as the words give it: two decimals, "less than 0.01" below. */
@@ -43,20 +72,33 @@ export function effectText(effect: number): string {
 export function heldActionsRuleText(): string {
   return `Held actions: a row whose every action equals the row before’s exactly, in the same run and away from the actuator limits read from the log, is held (a law with dither repeats a value with probability zero); ` +
     `the present controller’s law is fitted by least squares on every row and on the rows not held, and the effect is the root mean square over the logged states of the difference of their means, in the second law’s dither; ` +
-    `with at least ${HELD_MIN_ROWS} held rows, an effect from ${HELD_CAUTION} is a caution and from ${HELD_SERIOUS} serious (where, on a test plant, the J of the law fitted to every row first moved by 10 %), and then no candidate is named for a trial.`;
+    `with at least ${HELD_MIN_ROWS} held rows, an effect from ${HELD_CAUTION} is a caution and from ${HELD_SERIOUS} serious (where, on a test plant, the J of the law fitted to every row first moved by 10 %), and then no candidate is named for a trial; ` +
+    `wherever it is a caution or serious, the present controller’s law is fitted on the rows not held (fitted Q-evaluation still uses every row) and the importance-sampling checks are not applicable (on a held row the logging law is a point mass).`;
 }
 
-/** The finding's words, or null where the rule finds nothing. */
-export function heldActionsFinding(stretches: HeldStretches, effect: HeldEffect): { severity: 'caution' | 'serious'; topic: string; message: string } | null {
+/** The finding's words, or null where the rule finds nothing; `repaired` where the law was fitted on the rows not held. */
+export function heldActionsFinding(stretches: HeldStretches, effect: HeldEffect, repaired: HeldRepair | null = null): { severity: 'caution' | 'serious'; topic: string; message: string } | null {
   const severity = heldSeverity(stretches, effect);
   if (!severity || 'reason' in effect) return null;
-  const { rows, stretches: count, longest } = stretches, serious = severity === 'serious';
+  const { rows, stretches: count, longest } = stretches;
   return {
     severity, topic: HELD_TOPIC,
     message: `${rows.toLocaleString('en-US')} rows (${shareText(stretches.share)}) in ${count.toLocaleString('en-US')} stretch${count === 1 ? '' : 'es'} of up to ${longest} rows repeat the action of the row before exactly, away from the actuator limits. ` +
-      `The present controller’s law fitted to every row differs from the law the other rows follow by ${effectText(effect.effect)} of its dither` +
-      (serious ? ': its J is the J of a law that never ran, and every difference is taken against it (on a test plant, 0.56 put that J off by 12 %); no candidate is named for a trial. ' : ' (serious from ' + HELD_SERIOUS + '). ') +
+      (repaired ? repairedWords(effect.effect, severity, repaired) : pooledWords(effect.effect, severity)) +
       'Likely causes: the loop in manual, a held or frozen signal, historian compression, or an action held by design between moves (a setpoint changed by hand now and then), which no law with dither describes. ' +
       'Export the loop’s mode with the log and leave out the rows in manual (time windows, where there are few), or log the action without compression, and evaluate again.',
   };
+}
+
+function pooledWords(effect: number, severity: 'caution' | 'serious'): string {
+  return `The present controller’s law fitted to every row differs from the law the other rows follow by ${effectText(effect)} of its dither` +
+    (severity === 'serious' ? ': its J is the J of a law that never ran, and every difference is taken against it (on a test plant, 0.56 put that J off by 12 %); no candidate is named for a trial. ' : ' (serious from ' + HELD_SERIOUS + '). ');
+}
+
+function repairedWords(effect: number, severity: 'caution' | 'serious', repaired: HeldRepair): string {
+  const { runs } = repaired;
+  return `A law fitted to every row would differ from the law the other rows follow by ${effectText(effect)} of its dither, so the present controller’s law is fitted on the ${repaired.rowsUsed.toLocaleString('en-US')} rows not held; ` +
+    'fitted Q-evaluation still uses every row. ' +
+    `The importance-sampling checks are not applicable (actions held in ${runs.withHeld.toLocaleString('en-US')} of ${runs.total.toLocaleString('en-US')} runs), and the logged return measures the months as logged, held stretches included` +
+    (severity === 'serious' ? '; each candidate’s J is still read from a log that mixes two ways of acting, so no candidate is named for a trial. ' : ' (serious from ' + HELD_SERIOUS + '). ');
 }

@@ -18,9 +18,12 @@ export interface FittedBehaviour {
   readonly policy: GaussianPolicy;
 }
 
-/** `declared`: the position limits the project's candidates declare (a logged extreme exactly there is a limit; ../loggedActionLimits.ts). */
-export function fittedBehaviourPolicy(data: TransitionSet, declared: DeclaredActionBounds = NO_DECLARED_BOUNDS): FittedBehaviour {
+/**
+ * `declared`: the position limits the project's candidates declare (a logged extreme exactly there is a limit; ../loggedActionLimits.ts).
+ * `moving`: 1 for the rows to fit the law on, where held actions were found (../behaviourModel.ts); every row without it.
+ */
+export function fittedBehaviourPolicy(data: TransitionSet, declared: DeclaredActionBounds = NO_DECLARED_BOUNDS, moving?: Uint8Array): FittedBehaviour {
   const { count: n, stateDim: ds, actionDim: m } = data;
-  const model = fitBehaviourModel(data.states, data.actions, n, ds, m, declared);
+  const model = fitBehaviourModel(data.states, data.actions, n, ds, m, declared, moving);
   return { model, limits: model.limits, policy: createGaussianPolicy(behaviourPolicySpec(model), ds) };
 }

@@ -5,11 +5,18 @@
  * censored maximum likelihood (src/core/behaviourModel.ts). Evaluated by the same fitted
  * Q-evaluation as the candidates, it is the comparable baseline that comparisons and the ranking use;
  * the logged discounted return, which is cut short where runs end on a time limit, is kept as a check.
+ *
+ * Held actions (../heldActionsCheck.ts) are read first, with the same limits: where the rule says the held
+ * rows pull the law (heldActionsFinding.ts, heldLawRepaired), the law is fitted on the rows not held — the law
+ * that ran between the stretches — and on every row otherwise (then bit for bit as without the check). Should
+ * the fit on the rows not held fail, the fit on every row stands (and the finding keeps its words for that).
  */
 import { BehaviourModelError } from '../../core/behaviourModel';
+import { loggedActionLimits } from '../../core/loggedActionLimits';
 import { fittedBehaviourPolicy, type DeclaredActionBounds, type FittedBehaviour } from '../../core/offPolicy/behaviourPolicy';
 import type { TransitionSet } from '../../core/transitions';
 import { quadratureProblem } from '../../core/fqe/solveSettingChecks';
+import { readHeldActions, repairsLaw, type HeldActionsRead, type HeldLawFit } from '../heldActionsCheck';
 import type { PlannedPolicy } from './planTypes';
 
 export const PRESENT_CONTROLLER_NAME = 'present controller (model fitted to the log)';
@@ -20,17 +27,34 @@ export interface PlannedPresentController {
   readonly fitted: FittedBehaviour | null;
   /** Why there is no present-controller model, in words; '' when there is one. */
   readonly reason: string;
+  /** The held-actions check's reading of the log, and the rows the law was fitted on. */
+  readonly held: HeldActionsRead;
+  readonly lawFit: HeldLawFit;
 }
 
 export function planPresentController(data: TransitionSet, quadratureNodes: number, declared: DeclaredActionBounds): PlannedPresentController {
+  const held = readHeldActions(data, loggedActionLimits(data.actions, data.count, data.actionDim, declared));
+  const moving = repairsLaw(held) && !('reason' in held) ? held.held.map((h) => 1 - h) : undefined;
+  const repaired = moving ? fitOrNull(() => fittedBehaviourPolicy(data, declared, moving)) : null;
   let fitted: FittedBehaviour;
   try {
-    fitted = fittedBehaviourPolicy(data, declared);
+    fitted = repaired ?? fittedBehaviourPolicy(data, declared);
   } catch (error) {
     if (!(error instanceof BehaviourModelError)) throw error;
-    return { planned: null, fitted: null, reason: `no model of the present controller could be fitted to the log (${error.message})` };
+    const lawFit: HeldLawFit = { lawFittedOn: 'everyRow', rowsUsed: null };
+    return { planned: null, fitted: null, reason: `no model of the present controller could be fitted to the log (${error.message})`, held, lawFit };
   }
+  const lawFit: HeldLawFit = { lawFittedOn: repaired ? 'movingRows' : 'everyRow', rowsUsed: fitted.model.count };
   const problem = quadratureProblem(fitted.policy, quadratureNodes);
-  if (problem) return { planned: null, fitted, reason: `the present controller’s model clips at the logged limits, and for it ${problem}` };
-  return { planned: { index: -1, name: PRESENT_CONTROLLER_NAME, policy: fitted.policy }, fitted, reason: '' };
+  if (problem) return { planned: null, fitted, reason: `the present controller’s model clips at the logged limits, and for it ${problem}`, held, lawFit };
+  return { planned: { index: -1, name: PRESENT_CONTROLLER_NAME, policy: fitted.policy }, fitted, reason: '', held, lawFit };
+}
+
+function fitOrNull(fit: () => FittedBehaviour): FittedBehaviour | null {
+  try {
+    return fit();
+  } catch (error) {
+    if (error instanceof BehaviourModelError) return null;
+    throw error;
+  }
 }
