@@ -36,7 +36,8 @@ export interface LoggedSample {
   actions: Float64Array; // k×m row-major
 }
 
-export type BehaviourFit = { ok: true; model: BehaviourModel } | { ok: false; message: string };
+/** The present controller's law as the evaluation fits it; `heldRowsLeftOut` > 0 when it was fitted on the rows not held (the held-actions check). */
+export type BehaviourFit = { ok: true; model: BehaviourModel; heldRowsLeftOut: number } | { ok: false; message: string };
 
 /** The outcome of importing the data with the project's column roles. */
 export interface DataImport {

@@ -11,6 +11,8 @@ import { fitBehaviourModel } from '../../src/core/behaviourModel';
 import type { TransitionSet } from '../../src/core/transitions';
 import type { Assessment } from '../../src/pipeline/assessment';
 import { planEvaluation } from '../../src/pipeline/plan/evaluationPlan';
+import { fitPresentControllerLaw } from '../../src/pipeline/plan/presentController';
+import { declaredActionBounds } from '../../src/pipeline/plan/declaredBounds';
 import { assessedProject } from '../support/assessedProject';
 import { plantProject } from '../support/plantProject';
 import { coolingTowerManualPlant } from '../battery/holdout/manualStretchPlants';
@@ -40,6 +42,15 @@ describe('the present controller where actions were held', () => {
     expect(pooled).toBeLessThan(gain - 0.02);
     expect(fitted!.model.std[0]).toBeGreaterThan(0.09);
     expect(fitted!.model.std[0]).toBeLessThan(0.11);
+  });
+
+  it('gives the import summary the same law as the plan (the Candidates step shows the law the evaluation uses)', () => {
+    const plan = planEvaluation(project, data);
+    if (!plan.ok) throw new Error('the project should plan');
+    const shown = fitPresentControllerLaw(data, declaredActionBounds(project, 1));
+    expect(shown.lawFit).toEqual(plan.value.presentController.lawFit);
+    expect(shown.fitted!.model.gain).toEqual(plan.value.presentController.fitted!.model.gain);
+    expect(shown.fitted!.model.std).toEqual(plan.value.presentController.fitted!.model.std);
   });
 
   it('leaves out the importance-sampling checks for every policy, and keeps the plant-model checks', () => {

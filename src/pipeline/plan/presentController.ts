@@ -32,19 +32,23 @@ export interface PlannedPresentController {
   readonly lawFit: HeldLawFit;
 }
 
-export function planPresentController(data: TransitionSet, quadratureNodes: number, declared: DeclaredActionBounds): PlannedPresentController {
+/** The present controller's law as the plan fits it (held actions read first, the repair where the rule says so), or why it could not be fitted; the import summary shows the same law. */
+export function fitPresentControllerLaw(data: TransitionSet, declared: DeclaredActionBounds): { fitted: FittedBehaviour | null; error: string; held: HeldActionsRead; lawFit: HeldLawFit } {
   const held = readHeldActions(data, loggedActionLimits(data.actions, data.count, data.actionDim, declared));
   const moving = repairsLaw(held) && !('reason' in held) ? held.held.map((h) => 1 - h) : undefined;
   const repaired = moving ? fitOrNull(() => fittedBehaviourPolicy(data, declared, moving)) : null;
-  let fitted: FittedBehaviour;
   try {
-    fitted = repaired ?? fittedBehaviourPolicy(data, declared);
+    const fitted = repaired ?? fittedBehaviourPolicy(data, declared);
+    return { fitted, error: '', held, lawFit: { lawFittedOn: repaired ? 'movingRows' : 'everyRow', rowsUsed: fitted.model.count } };
   } catch (error) {
     if (!(error instanceof BehaviourModelError)) throw error;
-    const lawFit: HeldLawFit = { lawFittedOn: 'everyRow', rowsUsed: null };
-    return { planned: null, fitted: null, reason: `no model of the present controller could be fitted to the log (${error.message})`, held, lawFit };
+    return { fitted: null, error: error.message, held, lawFit: { lawFittedOn: 'everyRow', rowsUsed: null } };
   }
-  const lawFit: HeldLawFit = { lawFittedOn: repaired ? 'movingRows' : 'everyRow', rowsUsed: fitted.model.count };
+}
+
+export function planPresentController(data: TransitionSet, quadratureNodes: number, declared: DeclaredActionBounds): PlannedPresentController {
+  const { fitted, error, held, lawFit } = fitPresentControllerLaw(data, declared);
+  if (!fitted) return { planned: null, fitted: null, reason: `no model of the present controller could be fitted to the log (${error})`, held, lawFit };
   const problem = quadratureProblem(fitted.policy, quadratureNodes);
   if (problem) return { planned: null, fitted, reason: `the present controller’s model clips at the logged limits, and for it ${problem}`, held, lawFit };
   return { planned: { index: -1, name: PRESENT_CONTROLLER_NAME, policy: fitted.policy }, fitted, reason: '', held, lawFit };

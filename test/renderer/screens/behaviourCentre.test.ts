@@ -22,13 +22,19 @@ const row = (html: string, label: RegExp) => html.match(new RegExp(`<th scope="r
 
 describe('the present controller’s panel', () => {
   it('gives the mean action at the mean logged state, before the limits where the log shows some', () => {
-    const html = renderToStaticMarkup(createElement(BehaviourModelPanel, { doc, behaviour: { ok: true, model: model(true) }, onStart: () => {} }));
+    const html = renderToStaticMarkup(createElement(BehaviourModelPanel, { doc, behaviour: { ok: true, model: model(true), heldRowsLeftOut: 0 }, onStart: () => {} }));
     const found = row(html, /Mean action at the mean logged state[^<]*/);
     expect(found?.[1]).toBe('Mean action at the mean logged state, before the limits (%)');
     expect(Number(found?.[2])).toBeCloseTo(81.1, 6);
   });
   it('says no "before the limits" where the log shows none', () => {
-    const html = renderToStaticMarkup(createElement(BehaviourModelPanel, { doc, behaviour: { ok: true, model: model(false) }, onStart: () => {} }));
+    const html = renderToStaticMarkup(createElement(BehaviourModelPanel, { doc, behaviour: { ok: true, model: model(false), heldRowsLeftOut: 0 }, onStart: () => {} }));
     expect(row(html, /Mean action at the mean logged state[^<]*/)?.[1]).toBe('Mean action at the mean logged state (%)');
+  });
+  it('says why its step count is short where held rows were left out of the fit, and nothing where none were', () => {
+    const withHeld = renderToStaticMarkup(createElement(BehaviourModelPanel, { doc, behaviour: { ok: true, model: model(false), heldRowsLeftOut: 1234 }, onStart: () => {} }));
+    expect(withHeld).toContain('The 1,234 steps whose action repeats the step before exactly');
+    const without = renderToStaticMarkup(createElement(BehaviourModelPanel, { doc, behaviour: { ok: true, model: model(false), heldRowsLeftOut: 0 }, onStart: () => {} }));
+    expect(without).not.toContain('behaviour-held-rows');
   });
 });

@@ -3,11 +3,11 @@
  * state ranges and means for sliders, a small evenly spaced sample of the logged transitions to
  * draw, and the fitted behaviour model (or why it could not be fitted).
  */
-import { BehaviourModelError, fitBehaviourModel } from '../../../core/behaviourModel';
 import type { DeclaredActionBounds } from '../../../core/loggedActionLimits';
 import type { TransitionSet } from '../../../core/transitions';
 import type { OpenedProject } from '../../../pipeline/openProject';
 import { declaredActionBounds } from '../../../pipeline/plan/declaredBounds';
+import { fitPresentControllerLaw } from '../../../pipeline/plan/presentController';
 import {
   EXCLUDED_ROWS_SHOWN, LOGGED_SAMPLE_SIZE, RUN_LABELS_OFFERED, type BehaviourFit, type DataImport, type LoggedSample,
 } from '../../../shared/workerMessages';
@@ -65,12 +65,10 @@ export function loggedSample(data: TransitionSet, size: number): LoggedSample {
   return { count, states, actions };
 }
 
-/** The same model as the plan's present controller (src/pipeline/plan/presentController.ts), with the same declared bounds. */
+/** The same law as the plan's present controller (src/pipeline/plan/presentController.ts), with the same declared bounds and the same held-actions repair. */
 function behaviourFit(data: TransitionSet, declared: DeclaredActionBounds): BehaviourFit {
-  try {
-    return { ok: true, model: fitBehaviourModel(data.states, data.actions, data.count, data.stateDim, data.actionDim, declared) };
-  } catch (e) {
-    if (e instanceof BehaviourModelError) return { ok: false, message: e.message };
-    throw e;
-  }
+  const { fitted, error, held, lawFit } = fitPresentControllerLaw(data, declared);
+  if (!fitted) return { ok: false, message: error };
+  const heldRowsLeftOut = lawFit.lawFittedOn === 'movingRows' && !('reason' in held) ? held.stretches.rows : 0;
+  return { ok: true, model: fitted.model, heldRowsLeftOut };
 }

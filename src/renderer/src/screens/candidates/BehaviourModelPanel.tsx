@@ -53,6 +53,9 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
           : 'least squares'}):
         roughly what the present controller does, and how much its action wanders around that (the dither). Values ± one standard error.
       </p>
+      {behaviour.heldRowsLeftOut > 0 && (
+        <p className="small" data-testid="behaviour-held-rows">{heldRowsSentence(behaviour.heldRowsLeftOut)}</p>
+      )}
       <table>
         <thead><tr><th scope="col">Coefficient</th>{actions.map((a) => <th scope="col" className="number" key={a.column}>{a.column}</th>)}</tr></thead>
         <tbody>
@@ -65,4 +68,9 @@ export function BehaviourModelPanel({ doc, behaviour, onStart }: { doc: ProjectD
       <p><button onClick={onStart} data-testid="candidate-from-behaviour">Start a candidate from the present controller</button></p>
     </section>
   );
+}
+
+/** Why the fit's step count is short of the log's: the held rows it leaves out, as the evaluation does (Coverage says more). */
+export function heldRowsSentence(rows: number): string {
+  return `The ${rows.toLocaleString('en-US')} steps whose action repeats the step before exactly (held by hand, or a frozen signal) are left out of this fit, as the evaluation leaves them out of the present controller’s law; Coverage has the finding.`;
 }
