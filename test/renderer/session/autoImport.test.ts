@@ -11,7 +11,7 @@ import { resolve } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
 import { createDocumentStore } from '../../../src/renderer/src/document/documentStore';
-import { IMPORT_PAUSE_MS, startAutoImport } from '../../../src/renderer/src/session/autoImport';
+import { IMPORT_PAUSE_MS, headerLookDue, startAutoImport } from '../../../src/renderer/src/session/autoImport';
 import { createSessionStore } from '../../../src/renderer/src/session/sessionStore';
 import { CANCELLED, type EvaluationClient } from '../../../src/renderer/src/worker/evaluationClient';
 import type { WorkerResult } from '../../../src/shared/workerMessages';
@@ -93,5 +93,12 @@ describe('imports that follow the document', () => {
     await vi.advanceTimersByTimeAsync(IMPORT_PAUSE_MS);
     expect(s.answers).toHaveLength(2);
     stop();
+  });
+
+  it('reads the header again only for new CSV settings on the same bytes (new bytes come with their own first look)', () => {
+    const last = { version: 3, csv: '{"delimiter":";"}' };
+    expect(headerLookDue(last, { version: 3, csv: '{"delimiter":","}' })).toBe(true);
+    expect(headerLookDue(last, { version: 3, csv: last.csv })).toBe(false); // a reason edited: csvAsData blanks it, the same settings
+    expect(headerLookDue(last, { version: 4, csv: '{"delimiter":","}' })).toBe(false);
   });
 });
