@@ -4,7 +4,8 @@
  * 1280 × 800 and 1920 × 1080. Per view: the page's and the panel's heights, how many lines each matrix
  * column title takes, and whether every serious finding is in view without a click. Pictures and
  * coverage-review.json go to test-artifacts/screen-review/ (or SCREEN_REVIEW_DIR). The checks: at 1280
- * every column title sits on one line, in the app and in the report; every serious sentence is visible.
+ * every column title sits on one line, in the app and in the report, and so does each candidate's
+ * line of coverage figures; every serious sentence is visible without a click.
  */
 import { mkdir, readFile, writeFile } from 'node:fs/promises';
 import { join, resolve } from 'node:path';
@@ -21,7 +22,7 @@ const SHOTS = process.env.SCREEN_REVIEW_DIR ?? resolve(__dirname, '../../test-ar
 const SIZES = [{ width: 1280, height: 800 }, { width: 1920, height: 1080 }];
 const SAMPLES = ['heating-loop', 'tank-levels', 'heating-historian'];
 
-interface View { page: number; coverage: number; titleLines: Record<string, number>; seriousHidden: number }
+interface View { page: number; coverage: number; titleLines: Record<string, number>; figureLines: number[]; seriousHidden: number }
 
 /** Lines each column title of the matrix under `root` takes (distinct line tops of its text). */
 function titleLines(page: Page, root: string): Promise<Record<string, number>> {
@@ -37,6 +38,15 @@ function titleLines(page: Page, root: string): Promise<Record<string, number>> {
   }, root);
 }
 
+/** Lines each candidate's coverage figures take (the one line their sentences fold behind). */
+function figureLines(page: Page): Promise<number[]> {
+  return page.locator('[data-section="coverage"] details.coverage-figures > summary').evaluateAll((summaries) => summaries.map((summary) => {
+    const range = document.createRange();
+    range.selectNodeContents(summary);
+    return new Set([...range.getClientRects()].filter((r) => r.width > 0).map((r) => Math.round(r.top))).size;
+  }));
+}
+
 /** Serious findings in the panel (a line starting "Serious") that a reader cannot see without a click: not rendered, or inside a closed disclosure. */
 function seriousHidden(page: Page): Promise<number> {
   return page.locator('[data-section="coverage"] li, [data-section="coverage"] summary').evaluateAll((items) => items
@@ -49,6 +59,7 @@ async function measureView(page: Page): Promise<View> {
     page: await page.evaluate(() => document.documentElement.scrollHeight),
     coverage: await page.locator('[data-section="coverage"]').evaluate((e) => Math.round(e.getBoundingClientRect().height)),
     titleLines: await titleLines(page, '[data-section="coverage"]'),
+    figureLines: await figureLines(page),
     seriousHidden: await seriousHidden(page),
   };
 }
@@ -104,6 +115,8 @@ describe('the Coverage panel on the three samples (e2e)', () => {
       return Object.entries(lines).filter(([, n]) => n > 1).map(([title, n]) => `${name}: "${title}" on ${n} lines`);
     });
     expect(wrapped).toEqual([]);
+    const figures = Object.entries(views).filter(([name, v]) => name.includes('-1280') && 'figureLines' in v && (v as View).figureLines.some((n) => n > 1));
+    expect(figures.map(([name, v]) => `${name}: ${(v as View).figureLines.join(', ')}`)).toEqual([]);
     const hidden = Object.entries(views).filter(([, v]) => 'seriousHidden' in v && (v as View).seriousHidden > 0).map(([name]) => name);
     expect(hidden).toEqual([]);
   }, 1_800_000);

@@ -67,7 +67,7 @@ describe('assessment words', () => {
     expect(unvisitedSentence(0.497)).toContain('49.7\u00a0%');
     expect(unvisitedSentence(null)).toBeNull();
     // The same figures on the one line the sentences fold behind, the present controller's two in the same order.
-    expect(coverageLine(d)).toBe('Occupancy shift 55.3, action probability outside the logs 0.1\u00a0% (present controller 1.10, 3.9\u00a0%) · one-step weights worth 47.5\u00a0% of the transitions');
+    expect(coverageLine(d)).toBe('Occupancy shift 55.3, action probability outside the logs 0.1\u00a0% (present controller 1.10, 3.9\u00a0%) · weights worth 47.5\u00a0% of transitions');
     expect(coverageLine({ ...d, occupancyShift: null, importanceWeights: null })).toBe('Action probability outside the logs 0.1\u00a0% (present controller 3.9\u00a0%)');
     expect(coverageLine({ ...d, presentControllerShift: null })).toContain('(present controller —, 3.9\u00a0%)');
   });

@@ -75,7 +75,8 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
 /**
  * The coverage figures on one line, the sentences (coverageSentences) behind it, the present
  * controller's own levels in brackets: "Occupancy shift 4.50, action probability outside the logs
- * 26.9 % (present controller 4.40, 2.8 %) · one-step weights worth 2.43 % of the transitions".
+ * 26.9 % (present controller 4.40, 2.8 %) · weights worth 2.43 % of transitions" (the one-step
+ * weights' effective share; the sentence behind says so). Short enough for one line at 1280 × 800.
  */
 export function coverageLine(d: CoverageDiagnostics): string {
   const a = d.actionSupport, [mean, logged] = sharesText([a.meanOutside, a.behaviourMeanOutside]);
@@ -87,7 +88,7 @@ export function coverageLine(d: CoverageDiagnostics): string {
     const own = ownShift === null && ownShare === null ? '' : ` (present controller ${ownShift ?? '—'}, ${ownShare ?? '—'})`;
     figures = `Occupancy shift ${shiftText(d.occupancyShift)}, action probability outside the logs ${mean}${own}`;
   }
-  const weights = d.importanceWeights ? ` · one-step weights worth ${shareText(d.importanceWeights.oneStepShare)} of the transitions` : '';
+  const weights = d.importanceWeights ? ` · weights worth ${shareText(d.importanceWeights.oneStepShare)} of transitions` : '';
   return `${figures}${weights}`;
 }
 
