@@ -29,7 +29,7 @@ import { constantStateWarnings, summariseDataset, type DatasetSummary } from './
 import { badRowsHint, dialectReport, excludedRows, excludedWarning, rowProblemList, type ExcludedRow } from './importReport';
 import { leftOutWindows, logClock, readTimeWindows, recordsInWindows, type LeftOutWindow, type LogClock, type TimeWindow } from './timeWindows';
 import { leftOutRuns, readRunRanges, recordsInRunRanges, type LeftOutRuns, type RunRange } from './runRanges';
-import { leftOutReport } from './leftOutReasons';
+import { leftOutReport, type LeftOutLines } from './leftOutReasons';
 import { groupsLeftOut } from '../core/trend/groupsLeftOut';
 import { trendOfImport, type TrendData } from './trendSeries';
 
@@ -48,6 +48,8 @@ export interface ImportedDataset {
   excluded: ExcludedRow[];
   /** Sentences for the import report: dialect, date order, episodes, transitions per rule. */
   episodeReport: string[];
+  /** Where episodeReport holds the sentences on the runs and time windows left out (data/leftOutReasons.ts writes them again when a reason changes). */
+  leftOutLines: LeftOutLines;
   /** Data rows read (without the header and blank lines at the end). */
   rowCount: number;
   /** Each time window left out (data.csv.excludedTimes) and how many rows it left out; their rows are in summary.excludedRowCount, not in `excluded`. */
@@ -169,16 +171,16 @@ function* assemble(s: Stages): PassSteps<Result<ImportedDataset>> {
   const warnings: ImportProblem[] = [...s.plan.warnings, ...constantStateWarnings(summary, fileName), ...excludedWarning(excluded, table.recordCount, fileName, table.lastTextLine)];
   const timeWindows = leftOutWindows(s.windows, s.inWindow, kept, s.windows.length > 0 ? runsApart(columns.episode, episodeInputs) : undefined);
   const runsLeftOut = leftOutRuns(s.runRanges, s.inRunRange);
-  const episodeReport = [
-    ...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding),
-    ...leftOutReport(runsLeftOut, timeWindows, s.clock, columns.episode), ...episodes.report, ...derived.report, ...report,
-  ];
+  const head = [...dialectReport(s.dialect, s.timestamps?.column, s.timestamps?.decision), encodingReport(s.encoding)];
+  const leftOut = leftOutReport(runsLeftOut, timeWindows, s.clock, columns.episode);
+  const episodeReport = [...head, ...leftOut, ...episodes.report, ...derived.report, ...report];
+  const leftOutLines = { start: head.length, count: leftOut.length };
   const envelope = trendOfImport(columns, table.numbers, s.rewards.values, s.timestamps?.seconds, table.recordCount, lineOf, s.clock?.runRestarts);
   const trend = s.runRanges.length > 0 ? { ...envelope, leftOut: groupsLeftOut(s.inRunRange, envelope.rowsPerGroup, envelope.time.length) } : envelope;
   const rewardBounds = certainRewardBounds(columns.reward, s.plan.rewardExpression);
   const wholeLog = s.wholeLog && wholeLogOf(s, kept, s.wholeLog, periodSeconds);
   yield;
-  return success({ transitions: { ...transitions, ...(rewardBounds ? { rewardBounds } : {}), ...(wholeLog ? { wholeLog } : {}) }, summary, excluded, episodeReport, rowCount: table.recordCount, timeWindows, runsLeftOut, runLabels: runLabelsOf(columns, table), ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
+  return success({ transitions: { ...transitions, ...(rewardBounds ? { rewardBounds } : {}), ...(wholeLog ? { wholeLog } : {}) }, summary, excluded, episodeReport, leftOutLines, rowCount: table.recordCount, timeWindows, runsLeftOut, runLabels: runLabelsOf(columns, table), ...(s.clock ? { clock: s.clock } : {}), trend }, warnings);
 }
 
 /** Episodes, derived states and transitions over the rows `rows.kept` (the import's, or the whole log's). */

@@ -9,6 +9,7 @@
 import type { BehaviourModel } from '../core/behaviourModel';
 import type { Problem } from '../core/result';
 import type { DatasetSummary, ExcludedRow, LeftOutRuns, LeftOutWindow, LogClock, TrendData } from '../data/importDataset';
+import type { LeftOutLines } from '../data/leftOutReasons';
 import type { Assessment } from '../pipeline/assessment';
 import type { AssessmentProgress } from '../pipeline/assessProject';
 import type { Evaluation, ValueSurface } from '../pipeline/estimates';
@@ -45,6 +46,8 @@ export interface DataImport {
   /** The first excluded rows (at most EXCLUDED_ROWS_SHOWN); summary.excludedRowCount has the total. */
   excluded: ExcludedRow[];
   episodeReport: string[];
+  /** Where episodeReport holds the sentences on what was left out (ImportedDataset.leftOutLines). */
+  leftOutLines: LeftOutLines;
   rowCount: number;
   /** SHA-256 of the bytes imported (saved into the project as data.sha256). */
   fingerprint: string;

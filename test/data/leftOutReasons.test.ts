@@ -7,7 +7,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import { importDataset } from '../../src/data/importDataset';
-import { withCurrentReasons } from '../../src/data/leftOutReasons';
+import { leftOutReport, withCurrentReasons } from '../../src/data/leftOutReasons';
 import type { ColumnRoles, CsvSettings } from '../../src/project/schema';
 
 // A run column and a clock that starts again in each run, so both sentences are written.
@@ -51,6 +51,23 @@ describe('the reasons of what is left out, from the current document', () => {
     expect(said).toContain('2 runs, "1" to "2", 10 rows: trip test.');
     expect(said).toContain('for valve test (');
     expect(said).not.toContain('before the retune');
+  });
+
+  it('puts the sentences where the import recorded them, between the dialect lines and the runs', () => {
+    const { start, count } = before.leftOutLines;
+    expect(count).toBe(3); // the runs' sentence, the windows' and the clock's "every run" sentence
+    expect(before.episodeReport.slice(start, start + count)).toEqual(leftOutReport(before.runsLeftOut, before.timeWindows, before.clock, ROLES.episode));
+  });
+
+  // The splice this replaces looked for the old sentence by its words and, not finding it, kept it: here the report
+  // says a reason its ranges no longer hold (as a report carried over from elsewhere would), and the old sentence stays out.
+  it('rebuilds the sentences from the current reasons even where the report no longer says what its ranges hold', () => {
+    const stale = { ...before, runsLeftOut: before.runsLeftOut.map((r) => ({ ...r, reason: 'written over' })) };
+    for (const reasons of [['trip test', 'valve test'], ['before the retune', 'start-up']]) {
+      const now = csv(reasons[0], reasons[1]), kept = withCurrentReasons(stale, now, ROLES.episode);
+      expect(kept.episodeReport).toEqual(imported(now).episodeReport);
+    }
+    expect(withCurrentReasons(stale, csv('trip test', 'start-up'), ROLES.episode).episodeReport.join(' ')).not.toContain('before the retune');
   });
 
   it('unchanged reasons give the same object (nothing to redraw)', () => {

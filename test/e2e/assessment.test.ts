@@ -77,6 +77,10 @@ describe('intervals, cross-checks and the report in the app (e2e)', () => {
     const folded = await page.locator('[data-section="coverage"] details.finding-group:not([open])').evaluateAll((ds) => ds.map((d) => d.getAttribute('data-testid') ?? ''));
     for (const id of folded) await steadyClick(page.locator(`[data-testid="${id}"] > summary`));
     await expect.poll(() => page.locator('[data-section="coverage"] details.finding-group:not([open])').count(), POLL).toBe(0);
+    // A candidate's coverage figures sit on one line, their sentences behind it (CoveragePanel.tsx): open them too.
+    const figures = page.locator('[data-section="coverage"] details.coverage-figures > summary'); // each starts closed: one click opens it
+    for (let k = 0, n = await figures.count(); k < n; k++) await steadyClick(figures.nth(k));
+    await expect.poll(() => page.locator('[data-section="coverage"] details.coverage-figures:not([open])').count(), POLL).toBe(0);
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('Occupancy shift');
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toContain('outside the logged range');
     await expect.poll(() => page.getByTestId('coverage').innerText(), POLL).toMatch(/Plant memory: the 8 rows before explain (at most|less than) [\d.]+\s%/); // \s: the share writer holds "%" to its number with a no-break space

@@ -1,6 +1,7 @@
 /**
  * The Coverage panel's findings matrix on the heating-loop sample (e2e): a real table with a caption
- * and headers, every mark in words, each linked to a sentence that exists; a policy's group open
+ * and headers, every mark in words, each linked to a sentence that exists (or to a candidate's name in a
+ * sentence said of several candidates); a policy's group open
  * exactly when it holds a serious finding; a link into a folded group opens it and puts the focus on
  * the sentence; the report's Diagnostics carries the same matrix. The pictures are taken first, so
  * they show the groups as the app first opens them. Pictures of the panel, the whole
@@ -49,7 +50,8 @@ describe('the findings matrix on the Coverage panel (e2e)', () => {
     expect(marks.some((m) => m.startsWith('serious'))).toBe(true); // the heating loop has serious findings (the discount sweep's, at least)
     const targets = await table.locator('a').evaluateAll((links) => links.map((a) => (a as HTMLAnchorElement).hash.slice(1)));
     expect(targets.length).toBe(marks.filter((m) => m !== '—').length);
-    for (const id of targets) expect(await app.page.locator(`[data-section="coverage"] li[id="${id}"]`).count(), id).toBe(1);
+    // A sentence, or a candidate's name in a sentence said of several candidates (pipeline/findingLines.ts).
+    for (const id of targets) expect(await app.page.locator(`[data-section="coverage"] [id="${id}"]`).count(), id).toBe(1);
   });
 
   it('pictures of the panel, the page and the report’s section in both themes at two sizes, nothing cut', async () => {
@@ -99,10 +101,12 @@ describe('the findings matrix on the Coverage panel (e2e)', () => {
     })));
     expect(groups.length).toBeGreaterThan(0);
     for (const g of groups) expect(g.open, g.summary).toBe(/\d+ serious/.test(g.summary));
-    // The summary's count agrees with the sentences in the group.
+    // The summary's count agrees with the sentences in the group and the shared sentences that name it.
     for (const g of groups) {
-      const items = await page.getByTestId(g.id).locator('.problems li').allTextContents();
-      const serious = items.filter((t) => t.startsWith('Serious:')).length, cautions = items.length - serious;
+      const row = g.id === 'coverage-present' ? 'present' : `candidate-${g.id.replace('coverage-', '')}`;
+      const items = [...await page.getByTestId(g.id).locator('.problems li').allTextContents(), ...await page.locator('[data-testid="coverage-shared"] li')
+        .evaluateAll((lis, r) => lis.flatMap((li) => [...li.querySelectorAll(`span[id^="finding-${r}-"]`)].map(() => li.textContent ?? '')), row)];
+      const serious = items.filter((t) => t.startsWith('Serious')).length, cautions = items.length - serious;
       const said = `${serious ? `${serious} serious` : ''}${serious && cautions ? ', ' : ''}${cautions ? `${cautions} caution${cautions === 1 ? '' : 's'}` : ''}` || 'no findings';
       expect(g.summary).toContain(said);
     }

@@ -1,7 +1,7 @@
 /** Time-axis ticks at round steps of time, and their labels (hand-worked). */
 import { describe, expect, it } from 'vitest';
 import { timeStepSeconds, timeTickLabel, timeTicks } from '../../src/figures/parts/timeAxis';
-import { envelopePoints } from '../../src/figures/charts/trendChart';
+import { envelopePoints, timeAxisTitle } from '../../src/figures/charts/trendChart';
 
 const MARCH_1 = Date.UTC(2024, 2, 1) / 1000;
 
@@ -38,5 +38,12 @@ describe('time axis', () => {
     const flat = (n: number) => new Float64Array(n).fill(1);
     const points = envelopePoints(Float64Array.from([0, 10, 20, 0, 10, 20]), { name: 'v', role: 'state', unit: '', lo: flat(6), hi: flat(6) });
     expect(points.map((p) => p.y === null ? `gap@${p.x}` : p.x)).toEqual([0, 10, 20, 'gap@0', 0, 10, 20]);
+  });
+
+  it('titles the trend’s time axis by what its clock is: file lines, the calendar, run time (runs over one another), or time from zero', () => {
+    expect(timeAxisTitle({ clock: 'line', calendar: false }, true)).toBe('line in the file'); // no clock: the run-time flag has nothing to say
+    expect(timeAxisTitle({ clock: 'seconds', calendar: true }, true)).toBe('time (the log’s clock)');
+    expect(timeAxisTitle({ clock: 'seconds', calendar: false }, true)).toBe('time in each run (the runs drawn over one another)');
+    expect(timeAxisTitle({ clock: 'seconds', calendar: false })).toBe('time from the log’s zero');
   });
 });

@@ -2,7 +2,8 @@
  * The findings matrix (src/pipeline/findingMatrix.ts): columns only for the kinds of finding that
  * occur, in the stated order of findingTopicWords.ts; a cell's mark is its worst severity; the rows
  * (whole log, each candidate, the present controller where it has findings) and which warning lands
- * in which; the report draws the same rows. Invented warnings; the rules checked are our own.
+ * in which; the report draws the same rows; the merged form (findingLines.ts) says a finding of the
+ * same words once for the candidates it concerns. Invented warnings; the rules checked are our own.
  */
 import { describe, expect, it } from 'vitest';
 import type { AssessmentWarning, CandidateAssessment } from '../../src/pipeline/assessment';
@@ -10,6 +11,7 @@ import { BASELINE_NOT_SETTLED_TOPIC } from '../../src/pipeline/baselineClassWarn
 import { BASELINE_CONTRADICTED_TOPIC, BASELINE_UNCONFIRMED_TOPIC } from '../../src/pipeline/crossCheckWarnings';
 import { PRESENT_CONTROLLER_TOPICS, cellText, findingAnchor, findingCountText, findingMatrix } from '../../src/pipeline/findingMatrix';
 import { FINDING_COLUMNS } from '../../src/pipeline/findingTopicWords';
+import { SHARED_LINES_HEADING, cautionsSummaryText, findingLines, groupCountText, namesText, sharedCountOf } from '../../src/pipeline/findingLines';
 import { findingsHtml } from '../../src/pipeline/report/reportFindings';
 
 const w = (severity: 'serious' | 'caution', topic: string, message: string, candidate?: string): AssessmentWarning => ({ severity, topic, message, ...(candidate ? { candidate } : {}) });
@@ -77,5 +79,57 @@ describe('the findings matrix', () => {
     expect(links.length).toBe(7); // marks in the matrix: 2 log, 3 PI A, 2 present controller
     for (const id of links) expect(text).toContain(`id="${id}"`);
     for (const warning of [...assessment.warnings, ...assessment.candidates.flatMap((c) => c.warnings)]) expect(text.split(warning.message).length).toBe(2);
+  });
+});
+
+describe('the merged form: a finding said alike of several candidates is said once, naming them', () => {
+  // Invented: two candidates share a caution word for word, and a cross-check caution that differs only by the name it opens with.
+  const shared = 'Importance weights at step 20: effective size 1 of 40 runs.';
+  const assessment = {
+    warnings: [
+      w('caution', 'confirmation', 'PI A: nothing confirms it.', 'PI A'),
+      w('caution', 'confirmation', 'PI B: nothing confirms it.', 'PI B'),
+      w('serious', 'plantMemory', 'Earlier rows explain the next step.'),
+    ],
+    candidates: [
+      candidate('PI A', [w('serious', 'functionClass', 'Classes differ by 7 %.'), w('caution', 'importanceWeights', shared)]),
+      candidate('PI B', [w('serious', 'functionClass', 'Classes differ by 4 %.'), w('caution', 'importanceWeights', shared)]),
+      candidate('PI C', [w('caution', 'importanceWeights', 'Importance weights at step 20: effective size 9 of 40 runs.')]),
+    ],
+  };
+  const m = findingMatrix(assessment), lines = findingLines(m);
+  const everyWarning = [...assessment.warnings, ...assessment.candidates.flatMap((c) => c.warnings)];
+
+  it('puts every warning in exactly one line, and each line keeps every place it stands for', () => {
+    const places = [...lines.shared, ...lines.own.flat()].flatMap((l) => l.places.map((p) => findingAnchor(p.row, p.index)));
+    expect(places.length).toBe(everyWarning.length);
+    expect(new Set(places).size).toBe(places.length);
+    // Every mark of the matrix goes to one of them.
+    m.rows.forEach((row, r) => m.cells[r].forEach((cell) => { if (cell.severity) expect(places).toContain(findingAnchor(row, cell.first)); }));
+  });
+
+  it('says the same words once for the candidates they concern, the name taken off; different words stay apart', () => {
+    expect(lines.shared.map((l) => [l.message, l.places.map((p) => p.row.label)])).toEqual([
+      [shared, ['PI A', 'PI B']],
+      ['nothing confirms it.', ['PI A', 'PI B']],
+    ]);
+    expect(lines.own.map((own) => own.map((l) => l.message))).toEqual([
+      ['Earlier rows explain the next step.'], ['Classes differ by 7 %.'], ['Classes differ by 4 %.'], ['Importance weights at step 20: effective size 9 of 40 runs.']]);
+    expect(groupCountText(m.rows[1], sharedCountOf(lines, m.rows[1]))).toBe('1 serious, 2 cautions, 2 said above with other candidates');
+    expect(groupCountText(m.rows[3], sharedCountOf(lines, m.rows[3]))).toBe('1 caution');
+    expect(namesText(['PI A', 'PI B', 'PI C'])).toBe('PI A, PI B and PI C');
+    expect(cautionsSummaryText(lines.shared)).toBe('2 cautions: Weight spread, Cross-checks');
+  });
+
+  it('the report says each shared sentence once, naming each candidate at the anchor its mark links to', () => {
+    const text = findingsHtml(assessment).html;
+    expect(text.split(shared).length).toBe(2);
+    expect(text.split('nothing confirms it.').length).toBe(2);
+    expect(text).toContain(`<h4>${SHARED_LINES_HEADING}</h4>`);
+    expect(text).toMatch(/<strong>Caution<\/strong> for <span id="finding-candidate-0-\d">PI A<\/span> and <span id="finding-candidate-1-\d">PI B<\/span>: nothing confirms it\./);
+    for (const id of [...text.matchAll(/href="#([^"]+)"/g)].map((x) => x[1])) expect(text).toContain(`id="${id}"`);
+    // The whole log's group comes before the shared lines, the candidates' groups after.
+    expect(text.indexOf('<h4>Whole log')).toBeLessThan(text.indexOf(SHARED_LINES_HEADING));
+    expect(text.indexOf(SHARED_LINES_HEADING)).toBeLessThan(text.indexOf('<h4>PI A'));
   });
 });

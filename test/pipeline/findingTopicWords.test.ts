@@ -6,7 +6,7 @@
 import { readFile, readdir } from 'node:fs/promises';
 import { join } from 'node:path';
 import { describe, expect, it } from 'vitest';
-import { FINDING_COLUMNS, OTHER_COLUMN, findingColumnOf } from '../../src/pipeline/findingTopicWords';
+import { FINDING_COLUMNS, OTHER_COLUMN, TITLE_CHARACTERS, findingColumnOf } from '../../src/pipeline/findingTopicWords';
 
 const SRC = join(__dirname, '..', '..', 'src');
 
@@ -41,7 +41,7 @@ describe('finding topics and their columns', () => {
     expect(new Set(all).size).toBe(all.length);
     expect(new Set(FINDING_COLUMNS.map((c) => c.title)).size).toBe(FINDING_COLUMNS.length);
     for (const c of FINDING_COLUMNS) {
-      expect(c.title.length, c.key).toBeLessThanOrEqual(26);
+      expect(c.title.length, c.key).toBeLessThanOrEqual(TITLE_CHARACTERS);
       expect(c.meaning.length, c.key).toBeGreaterThan(10);
     }
   });

@@ -11,7 +11,7 @@
  * runs lie over one another, so a band would cover runs kept too: there the runs left out are drawn
  * in the muted text colour instead, and the subtitle says so.
  */
-import type { ChartConfiguration, ChartDataset, Plugin, Scale } from 'chart.js';
+import type { ChartConfiguration, ChartDataset, Plugin, Scale, TooltipItem } from 'chart.js';
 import { clockText, durationText } from '../../core/clockText';
 import type { TrendData, TrendSignal } from '../../core/trend/signalEnvelope';
 import { leftOutStretches } from '../../core/trend/groupsLeftOut';
@@ -97,11 +97,34 @@ function timeRange(trend: TrendData): [number, number] {
   return min <= max ? [min, max === min ? min + 1 : max] : [0, 1];
 }
 
+/** The chart: one line per signal in its own band, the left-out shading and key, band names, time axis and hover. */
 export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfiguration<'line', XY[]> {
-  const { trend } = props, p = look.palette, s = look.scale, [min, max] = timeRange(trend);
-  const colours = [...p.series];
+  const { trend } = props, [min, max] = timeRange(trend);
   const left = leftOutView(props);
-  const datasets: ChartDataset<'line', XY[]>[] = trend.signals.map((signal, k) => {
+  const shared = sharedOptions(look, props.title, trendSubtitle(trend, left.muted));
+  return {
+    type: 'line',
+    data: { datasets: signalLines(trend, left, look) },
+    plugins: [
+      ...(left.keyKinds.length ? [legendPlugin(leftOutKeys(left.keyKinds, look), look)] : []),
+      windowShading([...props.windows, ...left.bands], look), bandLabels(trend.signals, look),
+      ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: timeAxisTitle(trend, props.runTime) }]),
+    ],
+    options: {
+      ...shared,
+      parsing: false,
+      normalized: true,
+      interaction: { mode: 'nearest', axis: 'x', intersect: false },
+      scales: { x: timeScale(trend, min, max, look), ...bandScales(trend, look) },
+      plugins: { ...shared.plugins, tooltip: { ...shared.plugins?.tooltip, callbacks: hoverText(trend, left) } },
+    },
+  };
+}
+
+/** Each signal's envelope as a line on its band's axis; on a muted view, the stretches of runs left out in the muted colour. */
+function signalLines(trend: TrendData, left: LeftOutView, look: PlotLook): ChartDataset<'line', XY[]>[] {
+  const p = look.palette, s = look.scale, colours = [...p.series];
+  return trend.signals.map((signal, k) => {
     const data = envelopePoints(trend.time, signal);
     return {
       label: signalLabel(signal), yAxisID: `y${k}`, data,
@@ -110,40 +133,31 @@ export function trendChart(props: TrendPlotProps, look: PlotLook): ChartConfigur
       ...(left.muted ? { segment: { borderColor: (c: { p1DataIndex: number }) => (left.rangeOf(data[c.p1DataIndex]?.g) >= 0 ? p.mutedText : undefined) } } : {}),
     };
   });
+}
+
+/** One value axis per signal, stacked into bands. */
+function bandScales(trend: TrendData, look: PlotLook) {
   // Chart.js stacks axes of one stack from the bottom up in the order they are declared: declared
   // last to first, the first signal (a state) is the top band.
-  const yScales = Object.fromEntries(trend.signals.map((_, k) => [`y${k}`, {
+  return Object.fromEntries(trend.signals.map((_, k) => [`y${k}`, {
     ...valueAxis(look, 'left'), type: 'linear' as const, stack: 'signals', stackWeight: 1, offset: true,
     ticks: { ...valueAxis(look, 'left').ticks, maxTicksLimit: 4 },
   }]).reverse());
-  const shared = sharedOptions(look, props.title, trendSubtitle(trend, left.muted));
-  const xTitle = trend.clock === 'line' ? 'line in the file' : trend.calendar ? 'time (the log’s clock)'
-    : props.runTime ? 'time in each run (the runs drawn over one another)' : 'time from the log’s zero';
+}
+
+/** What the time axis measures: the file's lines, the log's calendar clock, each run's own time, or time from the log's zero. */
+export function timeAxisTitle(trend: Pick<TrendData, 'clock' | 'calendar'>, runTime = false): string {
+  if (trend.clock === 'line') return 'line in the file';
+  if (trend.calendar) return 'time (the log’s clock)';
+  return runTime ? 'time in each run (the runs drawn over one another)' : 'time from the log’s zero';
+}
+
+/** Hover: the time, each signal's value, and what was left out there. */
+function hoverText(trend: TrendData, left: LeftOutView) {
   return {
-    type: 'line',
-    data: { datasets },
-    plugins: [
-      ...(left.keyKinds.length ? [legendPlugin(leftOutKeys(left.keyKinds, look), look)] : []),
-      windowShading([...props.windows, ...left.bands], look), bandLabels(trend.signals, look), ...axisTitles(look, [{ scaleId: 'x', position: 'bottom', text: xTitle }]),
-    ],
-    options: {
-      ...shared,
-      parsing: false,
-      normalized: true,
-      interaction: { mode: 'nearest', axis: 'x', intersect: false },
-      scales: { x: timeScale(trend, min, max, look), ...yScales },
-      plugins: {
-        ...shared.plugins,
-        tooltip: {
-          ...shared.plugins?.tooltip,
-          callbacks: {
-            title: (items) => (items.length ? timeText(trend, items[0].parsed.x ?? NaN) : ''),
-            label: (item) => `${item.dataset.label}: ${formatValue(item.parsed.y ?? NaN)}`,
-            footer: (items) => (items.length ? left.hover(items[0].parsed.x ?? NaN, (items[0].raw as XY | undefined)?.g) : ''),
-          },
-        },
-      },
-    },
+    title: (items: TooltipItem<'line'>[]) => (items.length ? timeText(trend, items[0].parsed.x ?? NaN) : ''),
+    label: (item: TooltipItem<'line'>) => `${item.dataset.label}: ${formatValue(item.parsed.y ?? NaN)}`,
+    footer: (items: TooltipItem<'line'>[]) => (items.length ? left.hover(items[0].parsed.x ?? NaN, (items[0].raw as XY | undefined)?.g) : ''),
   };
 }
 

@@ -42,7 +42,7 @@ svg .value { fill: #333; }
 .warning.caution strong { color: var(--caution); }
 .finding-table { width: auto; font-size: 12.5px; }
 .finding-table caption { text-align: left; color: var(--muted); padding-bottom: 4px; }
-.finding-table thead th { vertical-align: bottom; max-width: 7.5em; }
+.finding-table thead th { vertical-align: bottom; white-space: nowrap; }
 .finding-table td.finding-cell { text-align: center; padding: 4px 8px; }
 .finding-table td.finding-cell.none { color: var(--muted); }
 .finding-table td.finding-cell.serious a { color: var(--serious); font-weight: 700; }

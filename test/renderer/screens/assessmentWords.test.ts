@@ -2,7 +2,7 @@
 import { describe, expect, it } from 'vitest';
 import type { CoverageDiagnostics } from '../../../src/pipeline/assessment';
 import {
-  assessmentFraction, coverageSentences, levelText, noteWithoutVerdict, progressLine, shareText, typesetMinus, unvisitedSentence,
+  assessmentFraction, coverageLine, coverageSentences, levelText, noteWithoutVerdict, progressLine, shareText, typesetMinus, unvisitedSentence,
 } from '../../../src/renderer/src/screens/findings/assessmentWords';
 import { intervalAtPrecision, valueAtPrecision } from '../../../src/figures/parts/uncertainNumber';
 
@@ -66,6 +66,10 @@ describe('assessment words', () => {
     expect(none).not.toMatch(/worth no run/);
     expect(unvisitedSentence(0.497)).toContain('49.7\u00a0%');
     expect(unvisitedSentence(null)).toBeNull();
+    // The same figures on the one line the sentences fold behind, the present controller's two in the same order.
+    expect(coverageLine(d)).toBe('Occupancy shift 55.3, action probability outside the logs 0.1\u00a0% (present controller 1.10, 3.9\u00a0%) · weights worth 47.5\u00a0% of transitions');
+    expect(coverageLine({ ...d, occupancyShift: null, importanceWeights: null })).toBe('Action probability outside the logs 0.1\u00a0% (present controller 3.9\u00a0%)');
+    expect(coverageLine({ ...d, presentControllerShift: null })).toContain('(present controller —, 3.9\u00a0%)');
   });
 });
 

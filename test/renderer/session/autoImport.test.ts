@@ -11,7 +11,7 @@ import { resolve } from 'node:path';
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { parseProjectText } from '../../../src/project/projectFile';
 import { createDocumentStore } from '../../../src/renderer/src/document/documentStore';
-import { IMPORT_PAUSE_MS, startAutoImport } from '../../../src/renderer/src/session/autoImport';
+import { IMPORT_PAUSE_MS, headerLookDue, startAutoImport } from '../../../src/renderer/src/session/autoImport';
 import { createSessionStore } from '../../../src/renderer/src/session/sessionStore';
 import { CANCELLED, type EvaluationClient } from '../../../src/renderer/src/worker/evaluationClient';
 import type { WorkerResult } from '../../../src/shared/workerMessages';
@@ -55,7 +55,7 @@ describe('imports that follow the document', () => {
     s.answers[0]({ kind: 'result', id: 1, ok: false, problems: [{ ...CANCELLED }] }); // heard late, at its next block
     await vi.advanceTimersByTimeAsync(0);
     expect(session.get().importState.status).toBe('importing');
-    const value = { fingerprint: 'f', episodeReport: [], timeWindows: [], runsLeftOut: [] } as never;
+    const value = { fingerprint: 'f', episodeReport: [], leftOutLines: { start: 0, count: 0 }, timeWindows: [], runsLeftOut: [] } as never;
     s.answers[1]({ kind: 'result', id: 2, ok: true, value, warnings: [] });
     await vi.advanceTimersByTimeAsync(0);
     const state = session.get().importState;
@@ -73,7 +73,7 @@ describe('imports that follow the document', () => {
     await vi.advanceTimersByTimeAsync(IMPORT_PAUSE_MS);
     const said = 'Runs left out by label (column run): 15 runs and 7,500 rows in all; 15 runs, "1" to "15", 7,500 rows: before the retune.';
     const value = {
-      fingerprint: 'f', episodeReport: ['Delimiter: ",".', said], timeWindows: [],
+      fingerprint: 'f', episodeReport: ['Delimiter: ",".', said], leftOutLines: { start: 1, count: 1 }, timeWindows: [],
       runsLeftOut: [{ from: '1', to: '15', reason: 'before the retune', runs: 15, rows: 7500 }],
     } as never;
     s.answers[0]({ kind: 'result', id: 1, ok: true, value, warnings: [] });
@@ -93,5 +93,12 @@ describe('imports that follow the document', () => {
     await vi.advanceTimersByTimeAsync(IMPORT_PAUSE_MS);
     expect(s.answers).toHaveLength(2);
     stop();
+  });
+
+  it('reads the header again only for new CSV settings on the same bytes (new bytes come with their own first look)', () => {
+    const last = { version: 3, csv: '{"delimiter":";"}' };
+    expect(headerLookDue(last, { version: 3, csv: '{"delimiter":","}' })).toBe(true);
+    expect(headerLookDue(last, { version: 3, csv: last.csv })).toBe(false); // a reason edited: csvAsData blanks it, the same settings
+    expect(headerLookDue(last, { version: 4, csv: '{"delimiter":","}' })).toBe(false);
   });
 });

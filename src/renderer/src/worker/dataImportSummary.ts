@@ -19,6 +19,7 @@ export function dataImportSummary(opened: OpenedProject): DataImport {
     summary: imported.summary,
     excluded: imported.excluded.slice(0, EXCLUDED_ROWS_SHOWN),
     episodeReport: imported.episodeReport,
+    leftOutLines: imported.leftOutLines,
     rowCount: imported.rowCount,
     fingerprint: opened.fingerprint,
     warnings: opened.warnings,

@@ -67,71 +67,93 @@ interface RunningImport {
   readonly stop: { requested: boolean };
 }
 
+/** The data file as the worker holds it; `sha256` once known (from the main process, or the first import). */
+interface HeldData {
+  bytes: Uint8Array;
+  fileName: string;
+  sha256?: string;
+}
+
+/** What the memory holds between requests. */
+interface Held {
+  data: HeldData | null;
+  /** The last finished import and its key (importKey). */
+  cached: { key: string; opened: OpenedProject } | null;
+  running: RunningImport | null;
+  last: EvaluatedRun | null;
+  readonly pace?: () => Promise<void>;
+}
+
 export function createWorkerMemory(pace?: () => Promise<void>): WorkerMemory {
-  let data: { bytes: Uint8Array; fileName: string; sha256?: string } | null = null;
-  let cached: { key: string; opened: OpenedProject } | null = null;
-  let running: RunningImport | null = null;
-  const stopImport = (): void => {
-    if (running) running.stop.requested = true;
-    running = null;
-  };
-  const startImport = (project: ProjectDocument, file: NonNullable<typeof data>, key: string): RunningImport => {
-    const stop = { requested: false };
-    const finished = (): void => {
-      if (running?.stop === stop) running = null;
-    };
-    const answer = importProjectDataPaced(project, file.bytes, { cancel: () => stop.requested, pace, fingerprint: file.sha256 }).then((opened) => {
-      if (opened.ok) file.sha256 ??= opened.value.fingerprint; // the same bytes are not hashed again by a later import
-      if (stop.requested) return opened; // superseded: its answer is its own, the memory keeps nothing of it
-      finished();
-      cached = opened.ok ? { key, opened: opened.value } : null;
-      return opened;
-    }, (error: unknown) => {
-      finished(); // an internal error is not kept: the same import asked again runs again
-      throw error;
-    });
-    return { key, answer, stop };
-  };
-  let last: EvaluatedRun | null = null;
-  const dropRun = (): void => {
-    last?.run.dispose();
-    last = null;
-  };
+  const m: Held = { data: null, cached: null, running: null, last: null, pace };
   return {
     setData(bytes, fileName, sha256) {
-      stopImport();
-      data = { bytes, fileName, ...(sha256 ? { sha256 } : {}) };
-      cached = null;
-      dropRun();
+      stopRunning(m);
+      m.data = { bytes, fileName, ...(sha256 ? { sha256 } : {}) };
+      m.cached = null;
+      dropRun(m);
     },
     data() {
-      if (!data) throw new WorkerQueryError(NO_DATA);
-      return data;
+      if (!m.data) throw new WorkerQueryError(NO_DATA);
+      return m.data;
     },
-    async open(project) {
-      if (!data) return failure({ where: 'data', message: NO_DATA });
-      const key = importKey(project);
-      if (cached && cached.key === key) return { ok: true, value: openedFor(cached.opened, project), warnings: cached.opened.warnings };
-      if (running?.key !== key) {
-        stopImport();
-        running = startImport(project, data, key);
-      }
-      const opened = await running.answer;
-      return opened.ok ? { ok: true, value: openedFor(opened.value, project), warnings: opened.warnings } : opened;
-    },
-    stopImport,
+    open: (project) => openFor(m, project),
+    stopImport: () => stopRunning(m),
     keepRun(evaluated) {
-      dropRun();
-      last = evaluated;
+      dropRun(m);
+      m.last = evaluated;
     },
-    dropRun,
+    dropRun: () => dropRun(m),
     lastRun() {
-      if (!last) throw new WorkerQueryError('there is no finished evaluation to draw from; run the evaluation first');
-      return last;
+      if (!m.last) throw new WorkerQueryError('there is no finished evaluation to draw from; run the evaluation first');
+      return m.last;
     },
     runFor(project) {
-      return last && runKey(last.project, '') === runKey(project, '') ? last : null;
+      return m.last && runKey(m.last.project, '') === runKey(project, '') ? m.last : null;
     },
     assessmentStop: { requested: false },
   };
+}
+
+/** The kept import when nothing it depends on changed, else the one in progress for the same key, else a new one (stopping another). */
+async function openFor(m: Held, project: ProjectDocument): Promise<Result<OpenedProject>> {
+  if (!m.data) return failure({ where: 'data', message: NO_DATA });
+  const key = importKey(project);
+  if (m.cached && m.cached.key === key) return { ok: true, value: openedFor(m.cached.opened, project), warnings: m.cached.opened.warnings };
+  if (m.running?.key !== key) {
+    stopRunning(m);
+    m.running = startImport(m, project, m.data, key);
+  }
+  const opened = await m.running.answer;
+  return opened.ok ? { ok: true, value: openedFor(opened.value, project), warnings: opened.warnings } : opened;
+}
+
+function stopRunning(m: Held): void {
+  if (m.running) m.running.stop.requested = true;
+  m.running = null;
+}
+
+function dropRun(m: Held): void {
+  m.last?.run.dispose();
+  m.last = null;
+}
+
+function startImport(m: Held, project: ProjectDocument, file: HeldData, key: string): RunningImport {
+  const stop = { requested: false };
+  const answer = importProjectDataPaced(project, file.bytes, { cancel: () => stop.requested, pace: m.pace, fingerprint: file.sha256 }).then((opened) => {
+    if (opened.ok) file.sha256 ??= opened.value.fingerprint; // the same bytes are not hashed again by a later import
+    if (stop.requested) return opened; // superseded: its answer is its own, the memory keeps nothing of it
+    finishImport(m, stop);
+    m.cached = opened.ok ? { key, opened: opened.value } : null;
+    return opened;
+  }, (error: unknown) => {
+    finishImport(m, stop); // an internal error is not kept: the same import asked again runs again
+    throw error;
+  });
+  return { key, answer, stop };
+}
+
+/** The import with this stop request is over: it is no longer the one in progress (a newer one may be). */
+function finishImport(m: Held, stop: RunningImport['stop']): void {
+  if (m.running?.stop === stop) m.running = null;
 }

@@ -1,18 +1,23 @@
 /**
  * Whether each candidate stays where the logs can speak for it, and what every check found. At the
  * top, the findings matrix (pipeline/findingMatrix.ts): which check is serious for which policy, at a
- * glance. Below it, the same rows as groups of sentences, serious first: the whole log (with the
- * unvisited share, plant memory and run order), then each candidate with its coverage figures
- * (occupancy shift, importance weights, action support), then the present controller where it has
- * findings. A policy's group is open when it holds a serious finding, folded to its count otherwise,
- * until the reader opens or folds it (remembered per project with the sections, foldMemory.ts).
+ * glance. Below it, the same rows as groups of sentences laid out by pipeline/findingLines.ts: the
+ * whole log (with the unvisited share, plant memory and run order), then what is said in the same
+ * words of several candidates, once, naming them, then each candidate with its coverage figures on one
+ * line (occupancy shift, importance weights, action support; the sentences behind it), then the present
+ * controller where it has findings. Serious findings are always in view in an open group; a group's
+ * cautions fold behind one line where it also holds a serious one. A policy's group is open when it
+ * holds a serious finding, folded to its count otherwise, until the reader opens or folds it
+ * (remembered per project with the sections, foldMemory.ts).
  */
 import { useCallback } from 'react';
-import type { Assessment, AssessmentWarning } from '../../../../pipeline/assessment';
-import { findingAnchor, findingCountText, findingMatrix, type FindingRow } from '../../../../pipeline/findingMatrix';
+import type { Assessment, CoverageDiagnostics } from '../../../../pipeline/assessment';
+import { findingAnchor, findingMatrix, type FindingRow } from '../../../../pipeline/findingMatrix';
+import { findingLines, groupCountText, sharedCountOf, type FindingLine } from '../../../../pipeline/findingLines';
 import { plantMemorySentence } from '../../../../pipeline/plantMemoryWords';
 import { runOrderSentence } from '../../../../pipeline/runOrderWords';
-import { coverageSentences, typesetMinus, unvisitedSentence } from './assessmentWords';
+import { coverageLine, coverageSentences, unvisitedSentence } from './assessmentWords';
+import { OwnFindings, SharedFindings } from './FindingSentences';
 import { FindingTable } from './FindingTable';
 import { FoldPanel } from './FoldPanel';
 import { groupFoldId, setOpen } from './foldMemory';
@@ -21,7 +26,7 @@ import { useFold, useGroupFold, useProjectKey } from './useFold';
 export function CoveragePanel({ assessment }: { assessment: Assessment }) {
   const unvisited = unvisitedSentence(assessment.unvisitedShare, assessment.warnings), memory = plantMemorySentence(assessment.plantMemory);
   const order = runOrderSentence(assessment.runOrder);
-  const matrix = findingMatrix(assessment);
+  const matrix = findingMatrix(assessment), lines = findingLines(matrix);
   const [log, ...policies] = matrix.rows;
   const key = useProjectKey();
   // Two columns for the matrix while open; folded, its one line of gist keeps one column, so the default page is laid out as before.
@@ -30,6 +35,7 @@ export function CoveragePanel({ assessment }: { assessment: Assessment }) {
     if (row.kind !== 'log') setOpen(key, [groupFoldId('coverage', groupOf(row))], true);
     requestAnimationFrame(() => { // after React has opened the group
       const target = document.getElementById(findingAnchor(row, index));
+      openAround(target);
       target?.scrollIntoView({ block: 'center' });
       target?.focus({ preventScroll: true });
     });
@@ -39,12 +45,13 @@ export function CoveragePanel({ assessment }: { assessment: Assessment }) {
       <FindingTable matrix={matrix} onJump={jump} />
       <div className="finding-group" data-testid="coverage-log">
         <h4>{log.label}</h4>
-        <Findings row={log} testId="assessment-warnings" />
+        <OwnFindings lines={lines.own[0]} testId="assessment-warnings" />
         {unvisited && <p>{unvisited}</p>}
         {memory && <p data-testid="plant-memory">{memory}</p>}
         {order && <p data-testid="run-order">{order}</p>}
       </div>
-      {policies.map((row) => <PolicyGroup key={row.key} row={row} assessment={assessment} />)}
+      <SharedFindings lines={lines.shared} />
+      {policies.map((row, k) => <PolicyGroup key={row.key} row={row} own={lines.own[k + 1]} shared={sharedCountOf(lines, row)} assessment={assessment} />)}
       <details>
         <summary>How these were computed</summary>
         <ul className="small">{assessment.method.map((m) => <li key={m}>{m}</li>)}</ul>
@@ -60,16 +67,29 @@ export function CoveragePanel({ assessment }: { assessment: Assessment }) {
  */
 const groupOf = (row: FindingRow): string => `${row.kind === 'candidate' ? `candidate:${row.label}` : row.key}${row.serious > 0 ? '|serious' : ''}`;
 
+/** Open every closed disclosure around a sentence a mark links to (its group's cautions), so the focus lands on something in view. */
+function openAround(target: HTMLElement | null): void {
+  for (let d = target?.closest('details:not([open])'); d; d = d.parentElement?.closest('details:not([open])')) (d as HTMLDetailsElement).open = true;
+}
+
+interface GroupProps {
+  row: FindingRow;
+  /** The row's own lines (pipeline/findingLines.ts) and how many of its findings are said with other candidates'. */
+  own: readonly FindingLine[];
+  shared: number;
+  assessment: Assessment;
+}
+
 /** A candidate's or the present controller's findings and figures: open where it holds a serious finding until the reader chooses (kept per project, foldMemory.ts). */
-function PolicyGroup({ row, assessment }: { row: FindingRow; assessment: Assessment }) {
+function PolicyGroup({ row, own, shared, assessment }: GroupProps) {
   const [open, setOpenHere] = useGroupFold('coverage', groupOf(row), row.serious > 0);
   const i = row.candidateIndex, candidate = i === null ? null : assessment.candidates[i];
   return (
     <details className="finding-group" open={open} data-testid={candidate ? `coverage-${i}` : 'coverage-present'}
       onToggle={(e) => { if (e.currentTarget.open !== open) setOpenHere(e.currentTarget.open); }}>
-      <summary><strong>{row.label}</strong> <span className={row.serious ? 'finding-count serious' : 'finding-count'}>— {findingCountText(row)}</span></summary>
-      <Findings row={row} testId={candidate ? `candidate-warnings-${i}` : 'present-controller-warnings'} />
-      {candidate && <ul>{coverageSentences(candidate.diagnostics).map((s) => <li key={s}>{s}</li>)}</ul>}
+      <summary><strong>{row.label}</strong> <span className={row.serious ? 'finding-count serious' : 'finding-count'}>— {groupCountText(row, shared)}</span></summary>
+      <OwnFindings lines={own} testId={candidate ? `candidate-warnings-${i}` : 'present-controller-warnings'} />
+      {candidate && <CoverageFigures diagnostics={candidate.diagnostics} />}
     </details>
   );
 }
@@ -83,18 +103,12 @@ export function coverageGist(assessment: Assessment): string {
   return `${parts.join(' and ')}: occupancy shift, importance weights and action support per candidate.`;
 }
 
-/** A row's findings, serious first, each with the anchor its cell links to. */
-function Findings({ row, testId }: { row: FindingRow; testId: string }) {
-  if (row.findings.length === 0) return null;
+/** A candidate's coverage figures on one line, the sentences that explain them behind it. */
+function CoverageFigures({ diagnostics }: { diagnostics: CoverageDiagnostics }) {
   return (
-    <div className={`problems ${row.serious ? 'error' : 'warning'}`} role="status" data-testid={testId}>
-      <ul>
-        {row.findings.map((w, n) => <FindingItem key={`${w.topic}|${w.message}`} id={findingAnchor(row, n)} warning={w} />)}
-      </ul>
-    </div>
+    <details className="coverage-figures">
+      <summary>{coverageLine(diagnostics)}</summary>
+      <ul>{coverageSentences(diagnostics).map((s) => <li key={s}>{s}</li>)}</ul>
+    </details>
   );
-}
-
-function FindingItem({ id, warning }: { id: string; warning: AssessmentWarning }) {
-  return <li id={id} tabIndex={-1}><strong>{warning.severity === 'serious' ? 'Serious' : 'Caution'}:</strong> {typesetMinus(warning.message)}</li>;
 }

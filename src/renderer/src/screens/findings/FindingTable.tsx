@@ -1,7 +1,8 @@
 /**
  * The findings matrix at the top of the Coverage panel (pipeline/findingMatrix.ts): a row per policy
  * and the whole log, a column per kind of finding that occurs, each cell "serious", "caution" or "—"
- * in words (the colour only repeats them), linked to its sentence below.
+ * in words (the colour only repeats them), linked to its sentence below. A column's short title sits
+ * on one line; its meaning is the header's tooltip and its description for a screen reader.
  */
 import type { MouseEvent } from 'react';
 import { FINDING_MATRIX_CAPTION, cellLabel, cellText, findingAnchor, type FindingMatrix, type FindingRow } from '../../../../pipeline/findingMatrix';
@@ -25,7 +26,7 @@ export function FindingTable({ matrix, onJump }: Props) {
         <thead>
           <tr>
             <td />
-            {matrix.columns.map((c) => <th key={c.key} scope="col" title={c.meaning} data-column={c.key}>{c.title}</th>)}
+            {matrix.columns.map((c) => <th key={c.key} scope="col" title={c.meaning} aria-description={c.meaning} data-column={c.key}>{c.title}</th>)}
           </tr>
         </thead>
         <tbody>

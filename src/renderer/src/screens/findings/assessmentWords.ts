@@ -72,6 +72,26 @@ export function coverageSentences(d: CoverageDiagnostics): string[] {
   return sentences;
 }
 
+/**
+ * The coverage figures on one line, the sentences (coverageSentences) behind it, the present
+ * controller's own levels in brackets: "Occupancy shift 4.50, action probability outside the logs
+ * 26.9 % (present controller 4.40, 2.8 %) · weights worth 2.43 % of transitions" (the one-step
+ * weights' effective share; the sentence behind says so). Short enough for one line at 1280 × 800.
+ */
+export function coverageLine(d: CoverageDiagnostics): string {
+  const a = d.actionSupport, [mean, logged] = sharesText([a.meanOutside, a.behaviourMeanOutside]);
+  const ownShare = a.behaviourMeanOutside === null ? null : logged;
+  let figures = `Action probability outside the logs ${mean}${ownShare === null ? '' : ` (present controller ${ownShare})`}`;
+  if (d.occupancyShift !== null) {
+    // Both figures, and the present controller's two in the same order ("—" for one it lacks).
+    const ownShift = d.presentControllerShift === null ? null : shiftText(d.presentControllerShift);
+    const own = ownShift === null && ownShare === null ? '' : ` (present controller ${ownShift ?? '—'}, ${ownShare ?? '—'})`;
+    figures = `Occupancy shift ${shiftText(d.occupancyShift)}, action probability outside the logs ${mean}${own}`;
+  }
+  const weights = d.importanceWeights ? ` · weights worth ${shareText(d.importanceWeights.oneStepShare)} of transitions` : '';
+  return `${figures}${weights}`;
+}
+
 /** The unvisited share in words, said once (pipeline/unvisitedWords.ts): the app and the report share it. */
 export { unvisitedSentence };
 
