@@ -52,7 +52,8 @@ export interface BehaviourModel extends Required<Pick<GaussianPolicySpec, 'offse
 }
 
 export class BehaviourModelError extends Error {
-  constructor(message: string) {
+  /** 'noResidual' where an action is constant or follows the states exactly (no dither to model); 'other' otherwise. */
+  constructor(message: string, readonly kind: 'noResidual' | 'other' = 'other') {
     super(message);
     this.name = 'BehaviourModelError';
   }
@@ -266,8 +267,8 @@ function residualMoments(
   }
   const rSquared: number[] = [];
   for (let j = 0; j < m; j++) {
-    if (!(total[j] > 0)) throw new BehaviourModelError(`action ${j + 1} is constant in the log; a Gaussian model of the present controller needs actions that vary`);
-    if (!(covariance[j * m + j] > NEGLIGIBLE_SHARE * total[j])) throw new BehaviourModelError(`action ${j + 1} follows the states exactly (no residual noise), so the present controller’s action density is degenerate`);
+    if (!(total[j] > 0)) throw new BehaviourModelError(`action ${j + 1} is constant in the log; a Gaussian model of the present controller needs actions that vary`, 'noResidual');
+    if (!(covariance[j * m + j] > NEGLIGIBLE_SHARE * total[j])) throw new BehaviourModelError(`action ${j + 1} follows the states exactly (no residual noise), so the present controller’s action density is degenerate`, 'noResidual');
     rSquared.push(1 - covariance[j * m + j] / total[j]);
   }
   for (let k = 0; k < m * m; k++) covariance[k] /= dof;

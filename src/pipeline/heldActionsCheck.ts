@@ -18,6 +18,8 @@ export type HeldActionsRead =
 export interface HeldLawFit {
   readonly lawFittedOn: 'everyRow' | 'movingRows';
   readonly rowsUsed: number | null;
+  /** Why the fit on the rows not held failed where the rule called for it (then the fit on every row stands). */
+  readonly repairFailed?: string;
 }
 
 /** The check's numbers (plain JSON): held rows, maximal stretches, their share of the rows, the longest, the effect E, the rule's severity and where the law was fitted. */
@@ -40,7 +42,7 @@ export function repairsLaw(read: HeldActionsRead): boolean {
 export function heldActionsAssessment(read: HeldActionsRead, fit: HeldLawFit): { summary: HeldActionsSummary; warnings: AssessmentWarning[] } {
   if ('reason' in read) return { summary: { reason: read.reason }, warnings: [] };
   const { stretches, effect, runs } = read, repaired = fit.lawFittedOn === 'movingRows' && fit.rowsUsed !== null ? { rowsUsed: fit.rowsUsed, runs } : null;
-  const finding = heldActionsFinding(stretches, effect, repaired);
+  const finding = heldActionsFinding(stretches, effect, repaired, fit.repairFailed ?? '');
   return {
     summary: { ...stretches, effect: 'reason' in effect ? null : effect.effect, severity: heldSeverity(stretches, effect), ...fit },
     warnings: finding ? [finding] : [],
@@ -55,4 +57,9 @@ function heldRuns(episode: ArrayLike<number>, held: Uint8Array): HeldRuns {
     if (held[i]) withHeld.add(episode[i]);
   }
   return { withHeld: withHeld.size, total: all.size };
+}
+
+/** Whether the present controller's law was fitted on the rows not held (then the logged return is no check of it). */
+export function lawFittedOnMovingRows(summary: HeldActionsSummary | undefined): boolean {
+  return !!summary && 'lawFittedOn' in summary && summary.lawFittedOn === 'movingRows';
 }

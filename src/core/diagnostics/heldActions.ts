@@ -95,12 +95,12 @@ export function heldStretches(held: Uint8Array): HeldStretches {
 }
 
 /** The least-squares law (behaviourModel.ts) on the given rows; the reason it cannot be fitted otherwise. */
-function lawOn(data: HeldActionData, rows: readonly number[]): LeastSquaresLaw | { reason: string } {
+function lawOn(data: HeldActionData, rows: readonly number[]): LeastSquaresLaw | { reason: string; noResidual: boolean } {
   const ds = data.stateDim, m = data.actionDim;
   try {
     return leastSquaresLaw(selectRows(data.states, ds, rows), selectRows(data.actions, m, rows), rows.length, ds, m);
   } catch (error) {
-    if (error instanceof BehaviourModelError) return { reason: error.message };
+    if (error instanceof BehaviourModelError) return { reason: error.message, noResidual: error.kind === 'noResidual' };
     throw error;
   }
 }
@@ -112,7 +112,7 @@ function mean(law: LeastSquaresLaw, j: number, data: HeldActionData, i: number):
   return mu;
 }
 
-/** E (see the doc comment) and the action it is read on; a reason where either fit cannot be made. */
+/** E (see the doc comment) and the action it is read on (E = ∞ where the rows not held show no dither: action 0 stands for the log); a reason where either fit cannot be made otherwise. */
 export function heldActionEffect(data: HeldActionData, limits: ActionLimits, held: Uint8Array): HeldEffect {
   // Only the limits the behaviour model reads are left out of the fits (it fits the rest by least squares too).
   const all: number[] = [], moving: number[] = [];
@@ -123,8 +123,10 @@ export function heldActionEffect(data: HeldActionData, limits: ActionLimits, hel
   }
   const pooled = lawOn(data, all), free = lawOn(data, moving);
   const cannot = (why: string): HeldEffect => ({ reason: `the action cannot be fitted on the state over the ${moving.length} rows that are neither held nor at a limit (${why})` });
-  if ('reason' in free) return cannot(free.reason);
   if ('reason' in pooled) return cannot(pooled.reason);
+  // The rows not held follow the states with no dither at all, while every row's law has some: all of its dither
+  // came from the held rows, so the two laws differ by an unbounded share of the second's (E = ∞).
+  if ('reason' in free) return free.noResidual ? { effect: Infinity, action: 0 } : cannot(free.reason);
   let effect = 0, action = 0;
   for (let j = 0; j < data.actionDim; j++) {
     let sum = 0;

@@ -47,16 +47,18 @@ export interface HeldRepair {
   readonly runs: HeldRuns;
 }
 
-/** The rule's verdict on the check's numbers: null below HELD_MIN_ROWS held rows, below the caution, or where no effect could be read. */
+/** The rule's verdict on the check's numbers: null below HELD_MIN_ROWS held rows or below the caution; a caution where enough rows are held but no effect could be read. */
 export function heldSeverity(stretches: HeldStretches, effect: HeldEffect): HeldSeverity {
-  if (stretches.rows < HELD_MIN_ROWS || 'reason' in effect) return null;
+  if (stretches.rows < HELD_MIN_ROWS) return null;
+  // Enough held rows, but their pull on the law could not be read: a caution that says so, never silence.
+  if ('reason' in effect) return 'caution';
   if (effect.effect >= HELD_SERIOUS) return 'serious';
   return effect.effect >= HELD_CAUTION ? 'caution' : null;
 }
 
 /** Whether the present controller's law is to be fitted on the rows not held: wherever the rule finds something. */
 export function heldLawRepaired(stretches: HeldStretches, effect: HeldEffect): boolean {
-  return heldSeverity(stretches, effect) !== null;
+  return !('reason' in effect) && heldSeverity(stretches, effect) !== null;
 }
 
 /** Why the importance-sampling checks do not apply where the law was fitted on the rows not held (a reason, as the checks print it). */
@@ -66,32 +68,40 @@ export function heldImportanceReason(runs: HeldRuns): string {
 
 /** E as the words give it: two decimals, "less than 0.01" below. */
 export function effectText(effect: number): string {
+  if (!Number.isFinite(effect)) return 'more than any multiple (the rows not held follow the states with no dither at all)';
   return effect < 0.005 ? 'less than 0.01' : effect.toFixed(2);
 }
 
 export function heldActionsRuleText(): string {
   return `Held actions: a row whose every action equals the row before’s exactly, in the same run and away from the actuator limits read from the log, is held (a law with dither repeats a value with probability zero); ` +
     `the present controller’s law is fitted by least squares on every row and on the rows not held, and the effect is the root mean square over the logged states of the difference of their means, in the second law’s dither; ` +
-    `with at least ${HELD_MIN_ROWS} held rows, an effect from ${HELD_CAUTION} is a caution and from ${HELD_SERIOUS} serious (where, on a test plant, the J of the law fitted to every row first moved by 10 %), and then no candidate is named for a trial; ` +
+    `with at least ${HELD_MIN_ROWS} held rows, an effect from ${HELD_CAUTION} is a caution and from ${HELD_SERIOUS} serious (where, on a test plant, the J of the law fitted to every row first moved by 10 %), and then no candidate is named for a trial; an effect that cannot be read is a caution; ` +
     `wherever it is a caution or serious, the present controller’s law is fitted on the rows not held (fitted Q-evaluation still uses every row) and the importance-sampling checks are not applicable (on a held row the logging law is a point mass).`;
 }
 
 /** The finding's words, or null where the rule finds nothing; `repaired` where the law was fitted on the rows not held. */
-export function heldActionsFinding(stretches: HeldStretches, effect: HeldEffect, repaired: HeldRepair | null = null): { severity: 'caution' | 'serious'; topic: string; message: string } | null {
+export function heldActionsFinding(stretches: HeldStretches, effect: HeldEffect, repaired: HeldRepair | null = null, repairFailed = ''): { severity: 'caution' | 'serious'; topic: string; message: string } | null {
   const severity = heldSeverity(stretches, effect);
-  if (!severity || 'reason' in effect) return null;
+  if (!severity) return null;
   const { rows, stretches: count, longest } = stretches;
+  const law = 'reason' in effect ? unreadWords(effect.reason)
+    : repaired ? repairedWords(effect.effect, severity, repaired) : pooledWords(effect.effect, severity, repairFailed);
   return {
     severity, topic: HELD_TOPIC,
     message: `${rows.toLocaleString('en-US')} rows (${shareText(stretches.share)}) in ${count.toLocaleString('en-US')} stretch${count === 1 ? '' : 'es'} of up to ${longest} rows repeat the action of the row before exactly, away from the actuator limits. ` +
-      (repaired ? repairedWords(effect.effect, severity, repaired) : pooledWords(effect.effect, severity)) +
+      law +
       'Likely causes: the loop in manual, a held or frozen signal, historian compression, or an action held by design between moves (a setpoint changed by hand now and then), which no law with dither describes. ' +
       'Export the loop’s mode with the log and leave out the rows in manual (time windows, where there are few), or log the action without compression, and evaluate again.',
   };
 }
 
-function pooledWords(effect: number, severity: 'caution' | 'serious'): string {
-  return `The present controller’s law fitted to every row differs from the law the other rows follow by ${effectText(effect)} of its dither` +
+function unreadWords(reason: string): string {
+  return `How far they pull the present controller’s law could not be read (${reason}), so its law is fitted on every row, held rows included: read its J and every difference from it with care. `;
+}
+
+function pooledWords(effect: number, severity: 'caution' | 'serious', repairFailed: string): string {
+  return (repairFailed ? `The present controller’s law could not be fitted on the rows not held (${repairFailed}), so it is fitted on every row. ` : '') +
+    `The present controller’s law fitted to every row differs from the law the other rows follow by ${effectText(effect)} of its dither` +
     (severity === 'serious' ? ': its J is the J of a law that never ran, and every difference is taken against it (on a test plant, 0.56 put that J off by 12 %); no candidate is named for a trial. ' : ' (serious from ' + HELD_SERIOUS + '). ');
 }
 
@@ -100,5 +110,7 @@ function repairedWords(effect: number, severity: 'caution' | 'serious', repaired
   return `A law fitted to every row would differ from the law the other rows follow by ${effectText(effect)} of its dither, so the present controller’s law is fitted on the ${repaired.rowsUsed.toLocaleString('en-US')} rows not held; ` +
     'fitted Q-evaluation still uses every row. ' +
     `The importance-sampling checks are not applicable (actions held in ${runs.withHeld.toLocaleString('en-US')} of ${runs.total.toLocaleString('en-US')} runs), and the logged return measures the months as logged, held stretches included` +
-    (severity === 'serious' ? '; each candidate’s J is still read from a log that mixes two ways of acting, so no candidate is named for a trial. ' : ' (serious from ' + HELD_SERIOUS + '). ');
+    (severity === 'serious'
+      ? '; each candidate’s J is still read from a log that mixes two ways of acting, and the refit can itself be pulled where held stretches sit at an actuator stop (on a test cold store it stayed far off), so the present controller’s J may still be wrong and every difference is taken against it: no candidate is named for a trial. '
+      : ' (serious from ' + HELD_SERIOUS + '). ');
 }

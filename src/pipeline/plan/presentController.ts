@@ -36,10 +36,12 @@ export interface PlannedPresentController {
 export function fitPresentControllerLaw(data: TransitionSet, declared: DeclaredActionBounds): { fitted: FittedBehaviour | null; error: string; held: HeldActionsRead; lawFit: HeldLawFit } {
   const held = readHeldActions(data, loggedActionLimits(data.actions, data.count, data.actionDim, declared));
   const moving = repairsLaw(held) && !('reason' in held) ? held.held.map((h) => 1 - h) : undefined;
-  const repaired = moving ? fitOrNull(() => fittedBehaviourPolicy(data, declared, moving)) : null;
+  const attempt = moving ? fitOrReason(() => fittedBehaviourPolicy(data, declared, moving)) : null;
+  const repaired = attempt && 'fitted' in attempt ? attempt.fitted : null;
+  const repairFailed = attempt && 'reason' in attempt ? { repairFailed: attempt.reason } : {};
   try {
     const fitted = repaired ?? fittedBehaviourPolicy(data, declared);
-    return { fitted, error: '', held, lawFit: { lawFittedOn: repaired ? 'movingRows' : 'everyRow', rowsUsed: fitted.model.count } };
+    return { fitted, error: '', held, lawFit: { lawFittedOn: repaired ? 'movingRows' : 'everyRow', rowsUsed: fitted.model.count, ...repairFailed } };
   } catch (error) {
     if (!(error instanceof BehaviourModelError)) throw error;
     return { fitted: null, error: error.message, held, lawFit: { lawFittedOn: 'everyRow', rowsUsed: null } };
@@ -54,11 +56,11 @@ export function planPresentController(data: TransitionSet, quadratureNodes: numb
   return { planned: { index: -1, name: PRESENT_CONTROLLER_NAME, policy: fitted.policy }, fitted, reason: '', held, lawFit };
 }
 
-function fitOrNull(fit: () => FittedBehaviour): FittedBehaviour | null {
+function fitOrReason(fit: () => FittedBehaviour): { fitted: FittedBehaviour } | { reason: string } {
   try {
-    return fit();
+    return { fitted: fit() };
   } catch (error) {
-    if (error instanceof BehaviourModelError) return null;
+    if (error instanceof BehaviourModelError) return { reason: error.message };
     throw error;
   }
 }

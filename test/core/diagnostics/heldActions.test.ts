@@ -8,7 +8,7 @@ import { describe, expect, it } from 'vitest';
 import { heldActionEffect, heldRowMask, heldStretches, type ActionLimits, type HeldActionData } from '../../../src/core/diagnostics/heldActions';
 import { loggedActionLimits } from '../../../src/core/loggedActionLimits';
 import { shareText } from '../../../src/core/shareText';
-import { heldActionsFinding, heldSeverity, HELD_MIN_ROWS } from '../../../src/core/diagnostics/heldActionsFinding';
+import { heldActionsFinding, heldLawRepaired, heldSeverity, HELD_MIN_ROWS } from '../../../src/core/diagnostics/heldActionsFinding';
 
 /** No limit read, and the log's own extremes (loggedActionLimits.ts reads them on every row). */
 function none(data: HeldActionData): ActionLimits {
@@ -86,6 +86,37 @@ describe('the effect on the law', () => {
     expect(Array.from(heldRowMask(few, none(few)))).toEqual([0, 0, 1, 1, 0]);
     const fewEffect = heldActionEffect(few, none(few), heldRowMask(few, none(few)));
     expect('reason' in fewEffect && fewEffect.reason).toMatch(/needs at least 4 transitions, got 3/);
+  });
+
+  it('rows not held that follow the states with no dither at all: the effect is unbounded and the rule serious, never silent', () => {
+    // a = 0.3·s exactly on the moving rows, then 60 rows held at one value: every row's law has dither only from the held rows.
+    const n = 200, s = Array.from({ length: n }, (_, i) => Math.sin(i)), actions = s.map((v) => 0.3 * v);
+    for (let i = 100; i < 160; i++) actions[i] = actions[99];
+    const data = log(actions, 1, undefined, s);
+    const held = heldRowMask(data, none(data)), stretches = heldStretches(held);
+    expect(stretches.rows).toBe(60);
+    const effect = heldActionEffect(data, none(data), held);
+    expect('effect' in effect && effect.effect).toBe(Infinity);
+    expect(heldSeverity(stretches, effect)).toBe('serious');
+    expect(heldActionsFinding(stretches, effect)?.message).toContain('by more than any multiple (the rows not held follow the states with no dither at all) of its dither');
+  });
+
+  it('enough held rows whose pull cannot be read: a caution that says so, and no repair', () => {
+    const n = 200, s1 = Array.from({ length: n }, (_, i) => Math.sin(i)), states = s1.flatMap((v) => [v, 2 * v]);
+    const actions = s1.map((v, i) => 0.3 * v + 0.05 * Math.cos(3 * i));
+    for (let i = 100; i < 160; i++) actions[i] = actions[99];
+    const data: HeldActionData = { count: n, stateDim: 2, actionDim: 1, states, actions, episode: new Array(n).fill(0) };
+    const held = heldRowMask(data, none(data)), stretches = heldStretches(held), effect = heldActionEffect(data, none(data), held);
+    expect('reason' in effect).toBe(true);
+    expect(heldSeverity(stretches, effect)).toBe('caution');
+    expect(heldLawRepaired(stretches, effect)).toBe(false);
+    expect(heldActionsFinding(stretches, effect)?.message).toMatch(/How far they pull the present controller’s law could not be read \(.*linear combination of the states before it.*\), so its law is fitted on every row/);
+  });
+
+  it('a repair the rule called for that could not be fitted says so, with the law fitted on every row', () => {
+    const finding = heldActionsFinding({ rows: 1234, share: 0.1, stretches: 40, longest: 37 }, { effect: 0.7, action: 0 }, null, 'action 1 is constant in the log');
+    expect(finding?.severity).toBe('serious');
+    expect(finding?.message).toContain('could not be fitted on the rows not held (action 1 is constant in the log), so it is fitted on every row.');
   });
 
   it('the rule: nothing below the minimum of held rows, caution and serious by the effect', () => {
