@@ -5,7 +5,7 @@
  * computes it). Invented minimal results, shaped as the JSON the app writes.
  */
 import { describe, expect, it } from 'vitest';
-import { assessmentFromJson, evaluationFromJson, restoreResults, resultsOf, retuneMapsFromJson, withAxisUnits } from '../../../src/renderer/src/session/savedResults';
+import { assessmentFromJson, evaluationFromJson, fittedBeforeHeldRepair, restoreResults, resultsOf, retuneMapsFromJson, withAxisUnits } from '../../../src/renderer/src/session/savedResults';
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { parseProjectText } from '../../../src/project/projectFile';
@@ -143,5 +143,20 @@ describe('retune maps kept with the results', () => {
     const other = createSessionStore();
     restoreResults({ ...doc, results }, 'data-b', other);
     expect(other.get().evaluation?.restored?.current).toBe(false);
+  });
+
+  // Before the held-actions repair, a log with held rows had its present controller fitted on every row: results kept
+  // then (a held-actions severity with no lawFittedOn) open out of date even under the same key.
+  it('opens results kept before the held-actions repair as out of date where rows were held, and as current where none were', () => {
+    expect(fittedBeforeHeldRepair({ heldActions: { rows: 900, severity: 'serious' } })).toBe(true);
+    expect(fittedBeforeHeldRepair({ heldActions: { rows: 900, severity: 'serious', lawFittedOn: 'movingRows' } })).toBe(false);
+    expect(fittedBeforeHeldRepair({ heldActions: { rows: 0, severity: null } })).toBe(false);
+    expect(fittedBeforeHeldRepair(undefined)).toBe(false);
+    const doc = { ...newProjectDocument(), retuneMaps: undefined };
+    const key = runKey(doc, 'data-a');
+    const results = resultsOf({ evaluation: parsedEvaluation, assessment: null, retuneMaps: null }, key, new Date());
+    const session = createSessionStore();
+    restoreResults({ ...doc, results: { ...results, assessment: { heldActions: { rows: 900, severity: 'caution' } } } }, 'data-a', session);
+    expect(session.get().evaluation?.restored?.current).toBe(false);
   });
 });

@@ -112,6 +112,16 @@ export function withAxisUnits(map: RetuneMapResult, doc: ProjectDocument): Retun
   return { ...map, axes: map.axes.map((a) => (unitOf(a) ? { ...a, unit: unitOf(a) } : a)) };
 }
 
+/**
+ * Results kept by a version that fitted the present controller's law on every row although the held-actions check
+ * found held rows (its summary has a severity but no `lawFittedOn`): this version fits that law on the rows not held,
+ * so the kept baseline, its checks and every difference are out of date, whatever the key says.
+ */
+export function fittedBeforeHeldRepair(assessment: Record<string, unknown> | undefined): boolean {
+  const held = assessment?.heldActions as Record<string, unknown> | undefined;
+  return !!held && typeof held.severity === 'string' && !('lawFittedOn' in held);
+}
+
 /** After an import of the current data: show the kept results, current or marked out of date. */
 export function restoreResults(doc: ProjectDocument, dataFingerprint: string, session: SessionStore): boolean {
   const saved = doc.results;
@@ -123,7 +133,8 @@ export function restoreResults(doc: ProjectDocument, dataFingerprint: string, se
   }
   const key = runKey(doc, dataFingerprint);
   // Results kept by a version whose key held the reasons and notes are current under that key too.
-  const current = runFingerprint(key) === saved.fingerprint || runFingerprint(runKeyWithNotes(doc, dataFingerprint)) === saved.fingerprint;
+  const sameKey = runFingerprint(key) === saved.fingerprint || runFingerprint(runKeyWithNotes(doc, dataFingerprint)) === saved.fingerprint;
+  const current = sameKey && !fittedBeforeHeldRepair(saved.assessment);
   const recordKey = current ? key : `out of date: ${saved.fingerprint}`;
   const assessment = assessmentFromJson(saved.assessment), maps = retuneMapsFromJson(saved.retuneMaps)?.map((m) => withAxisUnits(m, doc)) ?? null;
   session.set((s) => ({
