@@ -7,6 +7,7 @@ import { valueColumnHead } from '../pipeline/valueUnitWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
 import { shareText, sharesText } from '../core/shareText';
 import { loggedReturnRole } from '../core/loggedReturn';
+import { lawFittedOnMovingRows } from '../pipeline/heldActionsCheck';
 import { beyondPossibleSentence, unconvergedPointsSentence, rankingVerdict } from '../figures/charts/sensitivity';
 import { textTable as table } from './textTable';
 import { TRIAL_RULE, trialAnswer, trialChoice } from '../pipeline/trialChoice';
@@ -34,7 +35,7 @@ export function formatAssessment(a: Assessment, completedShown = true, unit = ''
   const pc = a.presentController;
   // Its range to report and verdict as a candidate's (an assessment saved before it had them: its interval, no verdict).
   if (pc) rows.push([...estimateRow(`${PRESENT_CONTROLLER} [baseline]`, pc.policyValue), interval(pc.reportedRange ?? pc.policyValue.percentile), pc.settled === undefined ? '' : settledWord(pc.settled), pc.confirmation.status, ratioText(pc.occupancyShift)]);
-  rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (${loggedReturnRole(completedShown)})` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
+  rows.push([...estimateRow(pc ? `${LOGGED_RETURN} (${loggedReturnRole(completedShown, lawFittedOnMovingRows(a.heldActions))})` : `${LOGGED_RETURN} [baseline]`, a.behaviour), '', '', '', '']);
   if (pc && completedShown) rows.push([...estimateRow(`${LOGGED_RETURN}, completed past time limits (check)`, pc.completedReturn), '', '', '', '']);
   const diffs = [['difference', 'value', `${level} percentile`, 'first better in']];
   // The shares down the column at one precision (core/shareText.ts, sharesText): "50.0 %" under "99.5 %".

@@ -2,6 +2,7 @@
 import { COMPARATOR_DEGREE } from '../core/fqe/comparatorDegree';
 import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
 import { loggedReturnRole, truncationMatters, truncationSentence } from '../core/loggedReturn';
+import { lawFittedOnMovingRows } from '../pipeline/heldActionsCheck';
 import type { Evaluation } from '../pipeline/estimates';
 import { centreText as centreIn, perAction as perActionIn } from '../pipeline/baselineWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
@@ -58,7 +59,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     rows.push([`${PRESENT_CONTROLLER} [baseline]`, shown ? value : 'no value', shown ? error : '', atDecimals(x.fixedPointValue, d), x.status === 'converged' ? `converged (${x.iterations} it.)` : STATUS_WORDS[x.status]]);
     if (completed) rows.push([`${LOGGED_RETURN}, completed past time limits (check)`, ...withError(pc.completedReturn.value, pc.completedReturn.standardError, assessment?.presentController?.completedReturn.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   }
-  rows.push([pc ? `${LOGGED_RETURN} (${loggedReturnRole(completed)})` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
+  rows.push([pc ? `${LOGGED_RETURN} (${loggedReturnRole(completed, lawFittedOnMovingRows(assessment?.heldActions))})` : `${LOGGED_RETURN} [baseline]`, ...withError(e.behaviour.value, e.behaviour.standardError, assessment?.behaviour.percentile ?? null), '', `${e.behaviour.episodes} runs`]);
   const lines = [
     `Setpoint Critic — ${e.project} (${projectFile})`,
     // What J is, in the sentence the app's Findings and the report's summary say (pipeline/valueUnitWords.ts).

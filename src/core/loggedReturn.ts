@@ -84,7 +84,10 @@ export function truncationMatters(r: Pick<LoggedReturn, 'meanTruncationWeight'>)
 }
 
 /** The logged return's role beside the present controller (CLI, report): which of the two rows it is where a completed row stands beside it. */
-export function loggedReturnRole(completedShown: boolean): string {
+export function loggedReturnRole(completedShown: boolean, heldStretchesIn = false): string {
+  // Where the present controller's law was fitted on the rows not held, the logged return measures the months as
+  // logged, held stretches included: another way of acting than the baseline's, so no check of it.
+  if (heldStretchesIn) return completedShown ? 'as logged, held stretches included, cut short at time limits; not a check' : 'as logged, held stretches included; not a check';
   return completedShown ? 'check; cut short at time limits' : 'check';
 }
 

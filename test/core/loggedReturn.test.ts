@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { loggedDiscountedReturn, loggedDiscountedReturns, truncationSentence } from '../../src/core/loggedReturn';
+import { loggedDiscountedReturn, loggedDiscountedReturns, loggedReturnRole, truncationSentence } from '../../src/core/loggedReturn';
+import { lawFittedOnMovingRows } from '../../src/pipeline/heldActionsCheck';
 import type { TransitionSet } from '../../src/core/transitions';
 
 function episodes(lengths: number[], reward: number): TransitionSet {
@@ -72,5 +73,17 @@ describe('the sentence on runs cut short', () => {
       'Logged runs are short for this discount: on average 0.91\u00a0% of the return’s weight lies beyond their end (90.39\u00a0% on the shortest run cut short, by a time limit or the end of the log), so the logged return is biased toward zero',
     );
     expect(truncationSentence(loggedDiscountedReturn(episodes(Array(100).fill(500), -1), g))).toBeNull(); // 0.98^500 = 4.1e-5
+  });
+});
+
+describe('the logged return’s role beside the present controller', () => {
+  it('is a check, except where the present controller’s law was fitted on the rows not held: then the months as logged, no check', () => {
+    expect(loggedReturnRole(false)).toBe('check');
+    expect(loggedReturnRole(true)).toBe('check; cut short at time limits');
+    expect(loggedReturnRole(false, true)).toBe('as logged, held stretches included; not a check');
+    expect(lawFittedOnMovingRows({ rows: 900, share: 0.1, stretches: 30, longest: 40, effect: 0.6, severity: 'serious', lawFittedOn: 'movingRows', rowsUsed: 8100 })).toBe(true);
+    expect(lawFittedOnMovingRows({ rows: 0, share: 0, stretches: 0, longest: 0, effect: 0, severity: null, lawFittedOn: 'everyRow', rowsUsed: 9000 })).toBe(false);
+    expect(lawFittedOnMovingRows({ reason: 'the log has fewer than two transitions' })).toBe(false);
+    expect(lawFittedOnMovingRows(undefined)).toBe(false);
   });
 });

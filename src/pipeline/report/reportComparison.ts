@@ -11,6 +11,7 @@ import { policyLabel } from '../policyNames';
 import { inlineSvg } from '../../figures/writers/inlineSvg';
 import { shareText, sharesText } from '../../core/shareText';
 import { loggedReturnRole, truncationMatters } from '../../core/loggedReturn';
+import { lawFittedOnMovingRows } from '../heldActionsCheck';
 import { BASELINE_RANGE_READING } from '../baselineClassWarning';
 
 export function comparisonSection(input: ReportInput, figures: FigureCounter): Html {
@@ -29,7 +30,7 @@ function assessedComparison(input: ReportInput, a: Assessment, figures: FigureCo
     ...a.candidates.map((c) => ({ name: c.name, estimate: c.policyValue, present: false })),
     ...(pc ? [{ name: `${PRESENT_CONTROLLER} — baseline`, estimate: pc.policyValue, present: true }] : []),
     ...(pc && completed ? [{ name: `${LOGGED_RETURN}, completed past time limits (check)`, estimate: pc.completedReturn, present: false }] : []),
-    { name: pc ? `${LOGGED_RETURN} (${loggedReturnRole(completed)})` : `${LOGGED_RETURN} — baseline`, estimate: a.behaviour, present: !pc },
+    { name: pc ? `${LOGGED_RETURN} (${loggedReturnRole(completed, lawFittedOnMovingRows(a.heldActions))})` : `${LOGGED_RETURN} — baseline`, estimate: a.behaviour, present: !pc },
   ];
   // "Better than the baseline in", down the column at one precision (core/shareText.ts, sharesText).
   const differenceOf = rows.map((r) => (r.present ? undefined : vsBaseline.get(r.name)));

@@ -21,7 +21,8 @@ import { intervalDetail, levelText } from './assessmentWords';
 import { ExportPanel } from './ExportPanel';
 import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
-import { TRUNCATION_NOTICE, truncationMatters } from '../../../../core/loggedReturn';
+import { loggedReturnRole, TRUNCATION_NOTICE, truncationMatters } from '../../../../core/loggedReturn';
+import { lawFittedOnMovingRows } from '../../../../pipeline/heldActionsCheck';
 import { shareText } from '../../../../core/shareText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 import { BASELINE_RANGE_READING } from '../../../../pipeline/baselineClassWarning';
@@ -123,7 +124,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
             </tr>
           )}
           <tr data-testid="value-row-behaviour">
-            <th scope="row">Logged return <span className="small muted">({pc ? 'check' : 'baseline'})</span></th>
+            <th scope="row">Logged return <span className="small muted">({pc ? loggedReturnRole(false, lawFittedOnMovingRows(assessment?.heldActions)) : 'baseline'})</span></th>
             <td className="number" data-testid="behaviour-value" data-value={String(b.value)}>{valueWithError(b.value, b.standardError, loggedInterval).value}</td>
             <td className="number">{valueWithError(b.value, b.standardError, loggedInterval).error}</td>
             {assessment && <IntervalCell estimate={assessment.behaviour} level={level} testId="behaviour-interval" />}
