@@ -3,6 +3,7 @@ import { COMPARATOR_DEGREE } from '../core/fqe/comparatorDegree';
 import { FIT_STATUS_WORDS } from '../core/fqe/fitStatus';
 import { loggedReturnRole, truncationMatters, truncationSentence } from '../core/loggedReturn';
 import { lawFittedOnMovingRows } from '../pipeline/heldActionsCheck';
+import { heldRowsLeftOutText } from '../core/diagnostics/heldActionsFinding';
 import type { Evaluation } from '../pipeline/estimates';
 import { centreText as centreIn, perAction as perActionIn } from '../pipeline/baselineWords';
 import { LOGGED_RETURN, PRESENT_CONTROLLER } from '../figures/parts/plotTheme';
@@ -74,7 +75,7 @@ export function formatEvaluation(e: Evaluation, projectFile: string, assessment:
     ...e.policies.filter((p) => p.status !== 'converged').map((p) => `SERIOUS — ${p.name}: ${unconvergedWords(p.status)} ${p.message}`),
     ...e.policies.flatMap((p, i) => (p.network ? [networkLine(p.name, p.network, assessment?.candidates[i]?.policyValue ?? null, assessment?.settings.level)] : [])),
     `Computed by ${[...new Set(e.policies.map((p) => p.backend))].join('; ')}.`,
-    pc ? `Baseline: the present controller as modelled from the log (${centreText(pc.model)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}; ${limitsText(pc.model)}) and evaluated like the candidates.`
+    pc ? `Baseline: the present controller as modelled from the log${heldRowsLeftOutText(pc.model.heldRowsLeftOut)} (${centreText(pc.model)}; ${perAction('dither', pc.model.std, pc.model.actions, pc.model.units)}; ${limitsText(pc.model)}) and evaluated like the candidates.`
       : `Baseline: the logged return, because ${e.presentControllerReason}.`,
     ...(truncation ? [`${truncation}${pc ? '; compare with the baseline above' : ''}.`] : []),
     ...(e.warnings.length ? ['', 'Warnings:', ...e.warnings.map((w) => `  - ${w}`)] : []),

@@ -100,6 +100,8 @@ export interface PresentControllerEstimate {
     offset: number[]; gain: number[][]; std: number[]; lo: (number | null)[]; hi: (number | null)[]; actions?: string[]; units?: string[]; limitEvidence?: { lo: LimitEvidence[]; hi: LimitEvidence[] };
     /** offset + gain·s̄ at the mean logged state, before the limits: with limits, the unclipped law's mean, which may lie past one (core/behaviourModel.ts meanActionAtMeanState); absent in results saved before it. */
     meanAtMeanState?: number[];
+    /** Rows left out of the fit as held (the held-actions repair, heldActionsCheck.ts); absent where the law was fitted on every row. */
+    heldRowsLeftOut?: number;
   };
   /**
    * The logged return with each run that ends on a time limit completed by γ^T·V̂(s_T), V̂ the

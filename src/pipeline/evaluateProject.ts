@@ -116,12 +116,18 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
       units: plan.data.actionNames.map((name) => plan.project.columns.actions.find((c) => c.column === name)?.unit ?? ''),
       limitEvidence: { lo: [...fitted.limits.evidence.lo], hi: [...fitted.limits.evidence.hi] },
       meanAtMeanState: meanActionAtMeanState(fitted),
+      ...heldRowsLeftOut(plan.presentController),
     },
     completedReturn: { value: plan.sign * completed.value, standardError: completed.standardError, tailShare: completed.tailShare },
   };
 }
 
 const finiteOrNull = (v: number): number | null => (Number.isFinite(v) ? v : null);
+
+/** The held rows the present controller's law was fitted without, where the held-actions repair applied; nothing otherwise. */
+function heldRowsLeftOut(pc: EvaluationPlan['presentController']): { heldRowsLeftOut?: number } {
+  return pc.lawFit.lawFittedOn === 'movingRows' && !('reason' in pc.held) ? { heldRowsLeftOut: pc.held.stretches.rows } : {};
+}
 
 function surfaceOf(plan: EvaluationPlan, model: CandidateModel): ValueSurface | null {
   const grid = plan.surface;

@@ -11,6 +11,8 @@ import { fitBehaviourModel } from '../../src/core/behaviourModel';
 import type { TransitionSet } from '../../src/core/transitions';
 import type { Assessment } from '../../src/pipeline/assessment';
 import { planEvaluation } from '../../src/pipeline/plan/evaluationPlan';
+import { evaluateProject } from '../../src/pipeline/evaluateProject';
+import { heldRowsLeftOutText } from '../../src/core/diagnostics/heldActionsFinding';
 import { fitPresentControllerLaw } from '../../src/pipeline/plan/presentController';
 import { declaredActionBounds } from '../../src/pipeline/plan/declaredBounds';
 import { assessedProject } from '../support/assessedProject';
@@ -52,6 +54,17 @@ describe('the present controller where actions were held', () => {
     expect(shown.fitted!.model.gain).toEqual(plan.value.presentController.fitted!.model.gain);
     expect(shown.fitted!.model.std).toEqual(plan.value.presentController.fitted!.model.std);
   });
+
+  it('gives the evaluation’s present controller the held rows its law was fitted without, and the words that say so', async () => {
+    const evaluation = await evaluateProject({ project, dataset: data });
+    if (!evaluation.ok) throw new Error('the project should evaluate');
+    const plan = planEvaluation(project, data);
+    if (!plan.ok || 'reason' in plan.value.presentController.held) throw new Error('the project should plan, with held rows read');
+    const rows = plan.value.presentController.held.stretches.rows;
+    expect(evaluation.value.presentController?.model.heldRowsLeftOut).toBe(rows);
+    expect(heldRowsLeftOutText(rows)).toBe(` without its ${rows.toLocaleString('en-US')} held rows`);
+    expect(heldRowsLeftOutText(undefined)).toBe('');
+  }, 300_000);
 
   it('leaves out the importance-sampling checks for every policy, and keeps the plant-model checks', () => {
     for (const c of [...a.candidates, a.presentController!]) {

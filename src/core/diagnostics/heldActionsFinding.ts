@@ -66,6 +66,11 @@ export function heldImportanceReason(runs: HeldRuns): string {
   return `actions were held in ${runs.withHeld.toLocaleString('en-US')} of ${runs.total.toLocaleString('en-US')} runs, and on a held row the logged action came from no law with dither (a point mass, not the present controller’s fitted model), so the importance weights are not defined there`;
 }
 
+/** After "as fitted to the log": the held rows the law was fitted without where the repair applied, else nothing (one phrase for app, CLI and report). */
+export function heldRowsLeftOutText(heldRowsLeftOut: number | undefined): string {
+  return heldRowsLeftOut ? ` without its ${heldRowsLeftOut.toLocaleString('en-US')} held rows` : '';
+}
+
 /** E as the words give it: two decimals, "less than 0.01" below. */
 export function effectText(effect: number): string {
   if (!Number.isFinite(effect)) return 'more than any multiple (the rows not held follow the states with no dither at all)';

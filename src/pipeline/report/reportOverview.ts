@@ -2,6 +2,7 @@
 import type { Assessment } from '../assessment';
 import { summariseCandidate } from '../../project/candidateSummary';
 import { CAUTIONS } from '../cautions';
+import { heldRowsLeftOutText } from '../../core/diagnostics/heldActionsFinding';
 import { html, formatNumber, formatWrittenAt, type Html } from './htmlText';
 import { valueUnit, type ReportInput } from './reportInput';
 import { valueSenseSentence } from '../valueUnitWords';
@@ -74,7 +75,7 @@ function presentControllerRow(input: ReportInput): Html {
   const name = (j: number) => (model.lo.length > 1 ? ` on ${model.actions?.[j] ?? `action ${j + 1}`}` : '');
   const limits = model.lo.map((_, j) => `${loggedLimitText(model.lo[j], model.hi[j], model.limitEvidence && { lo: model.limitEvidence.lo[j], hi: model.limitEvidence.hi[j] }, model.units?.[j] ?? '', (v) => formatNumber(v, 4))}${name(j)}`);
   const dither = model.std.map((v, j) => `${formatNumber(v, 4)}${model.units?.[j] ? ` ${model.units[j]}` : ''}${name(j)}`);
-  return html`<tr><td>${PRESENT_CONTROLLER} (baseline)</td><td>as fitted to the log, ${centreText(model, (v) => formatNumber(v, 4))}</td><td>${dither.join('; ')}</td><td>read from the log: ${limits.join('; ')}</td><td>The controller that ran while the log was recorded, evaluated like the candidates.</td></tr>`;
+  return html`<tr><td>${PRESENT_CONTROLLER} (baseline)</td><td>as fitted to the log${heldRowsLeftOutText(model.heldRowsLeftOut)}, ${centreText(model, (v) => formatNumber(v, 4))}</td><td>${dither.join('; ')}</td><td>read from the log: ${limits.join('; ')}</td><td>The controller that ran while the log was recorded, evaluated like the candidates.</td></tr>`;
 }
 
 /** Significant digits of the column statistics: the app's statistics table shows four (renderer format/numberFormat.ts). */

@@ -23,6 +23,7 @@ import { CopyTable } from '../../components/CopyTable';
 import { FoldPanel } from './FoldPanel';
 import { loggedReturnRole, TRUNCATION_NOTICE, truncationMatters } from '../../../../core/loggedReturn';
 import { lawFittedOnMovingRows } from '../../../../pipeline/heldActionsCheck';
+import { heldRowsLeftOutText } from '../../../../core/diagnostics/heldActionsFinding';
 import { shareText } from '../../../../core/shareText';
 import { intervalAtPrecision, valueAtPrecision, valueWithError } from '../../../../figures/parts/uncertainNumber';
 import { BASELINE_RANGE_READING } from '../../../../pipeline/baselineClassWarning';
@@ -104,7 +105,7 @@ export function ValueComparison({ evaluation, theme, assessment }: { evaluation:
               {assessment && <IntervalCell estimate={assessment.presentController?.policyValue} level={level} testId="present-interval" />}
               <td className="number">{pc.estimate.fixedPointValue === null ? '—' : valueWithError(pc.estimate.fixedPointValue, pc.estimate.standardError, presentInterval).value}</td>
               <td>{FIT_STATUS_WORDS[pc.estimate.status]} ({plural(pc.estimate.iterations, 'iteration')})</td>
-              <td className="small">The controller that ran while the log was recorded, as fitted to the log (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.
+              <td className="small">The controller that ran while the log was recorded, as fitted to the log{heldRowsLeftOutText(pc.model.heldRowsLeftOut)} (gain, offset, dither, the actuator limits seen) and evaluated like the candidates: every candidate is compared with it.
                 {/* Where its function classes disagree, the range and how every difference then reads, in short: the reason of
                     the verdict is under Cross-checks, as for a candidate, and in the whole-log caution (saved before: nothing). */}
                 {presentClasses && !presentClasses.settled && (
