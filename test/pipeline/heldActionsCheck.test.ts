@@ -43,7 +43,7 @@ describe('held-actions check', () => {
     expect(warnings[0].message).toContain(`importance-sampling checks are not applicable (actions held in ${read.runs.withHeld} of ${read.runs.total} runs)`);
     expect(read.runs.total).toBe(100); // 40,000 rows in runs of 400
     expect(read.runs.withHeld).toBeGreaterThan(50);
-    expect(warnings[0].message).toContain('so no candidate is named for a trial.');
+    expect(warnings[0].message).toContain('so the present controller’s J may still be wrong and every difference is taken against it: no candidate is named for a trial.');
     expect(warnings[0].message).not.toContain("'");
   });
 

@@ -44,6 +44,6 @@ describe('the sentences under the findings matrix', () => {
   it('says a finding alike for several candidates once, each name the anchor its mark links to, described by the finding’s words', () => {
     const html = renderToStaticMarkup(createElement(SharedFindings, { lines: lines.shared }));
     expect(html.split('Few runs carry the weight.').length).toBe(2);
-    expect(html).toMatch(/<strong>Caution<\/strong> for <span><span id="finding-candidate-0-\d" tabindex="-1" aria-describedby="(finding-candidate-0-\d-words)">PI A<\/span><\/span><span> and <span id="finding-candidate-1-\d" tabindex="-1" aria-describedby="\1">PI B<\/span><\/span>: <span id="\1">Few runs/);
+    expect(html).toMatch(/<strong>Caution<\/strong> for <span><span id="finding-candidate-0-\d" tabindex="-1" aria-describedby="(words-finding-candidate-0-\d)">PI A<\/span><\/span><span> and <span id="finding-candidate-1-\d" tabindex="-1" aria-describedby="\1">PI B<\/span><\/span>: <span id="\1">Few runs/);
   });
 });

@@ -45,8 +45,8 @@ export function SharedFindings({ lines }: { lines: readonly FindingLine[] }) {
             <li key={anchorOf(l.places[0])}>
               <strong>{SEVERITY_WORD[l.severity]}</strong> for {l.places.map((p, k) => (
                 // A mark's jump lands on the name; the finding's words describe it, so a screen reader reads the sentence too.
-                <span key={anchorOf(p)}>{k === 0 ? '' : k === l.places.length - 1 ? ' and ' : ', '}<span id={anchorOf(p)} tabIndex={-1} aria-describedby={`${anchorOf(l.places[0])}-words`}>{p.row.label}</span></span>
-              ))}: <span id={`${anchorOf(l.places[0])}-words`}>{typesetMinus(l.message)}</span>
+                <span key={anchorOf(p)}>{k === 0 ? '' : k === l.places.length - 1 ? ' and ' : ', '}<span id={anchorOf(p)} tabIndex={-1} aria-describedby={`words-${anchorOf(l.places[0])}`}>{p.row.label}</span></span>
+              ))}: <span id={`words-${anchorOf(l.places[0])}`}>{typesetMinus(l.message)}</span>
             </li>
           ))}
         </ul>
