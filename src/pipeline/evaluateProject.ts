@@ -15,6 +15,7 @@ import { completedReturnOf } from './model/completedReturn';
 import type { CandidateModel } from './model/candidateModel';
 import { describeApproximator } from './plan/approximatorLabel';
 import type { EvaluationPlan } from './plan/evaluationPlan';
+import { heldRowsLeftOut } from './heldActionsCheck';
 import { surfaceVisits } from './plan/surfaceGrid';
 import { startRun, type ProjectRun, type RunHooks } from './projectRun';
 
@@ -116,7 +117,7 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
       units: plan.data.actionNames.map((name) => plan.project.columns.actions.find((c) => c.column === name)?.unit ?? ''),
       limitEvidence: { lo: [...fitted.limits.evidence.lo], hi: [...fitted.limits.evidence.hi] },
       meanAtMeanState: meanActionAtMeanState(fitted),
-      ...heldRowsLeftOut(plan.presentController),
+      ...heldRowsField(plan.presentController),
     },
     completedReturn: { value: plan.sign * completed.value, standardError: completed.standardError, tailShare: completed.tailShare },
   };
@@ -125,8 +126,9 @@ function presentControllerEstimate(run: ProjectRun, model: CandidateModel): Pres
 const finiteOrNull = (v: number): number | null => (Number.isFinite(v) ? v : null);
 
 /** The held rows the present controller's law was fitted without, where the held-actions repair applied; nothing otherwise. */
-function heldRowsLeftOut(pc: EvaluationPlan['presentController']): { heldRowsLeftOut?: number } {
-  return pc.lawFit.lawFittedOn === 'movingRows' && !('reason' in pc.held) ? { heldRowsLeftOut: pc.held.stretches.rows } : {};
+function heldRowsField(pc: EvaluationPlan['presentController']): { heldRowsLeftOut?: number } {
+  const rows = heldRowsLeftOut(pc.held, pc.lawFit);
+  return rows > 0 ? { heldRowsLeftOut: rows } : {};
 }
 
 function surfaceOf(plan: EvaluationPlan, model: CandidateModel): ValueSurface | null {

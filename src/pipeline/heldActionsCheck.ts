@@ -59,6 +59,11 @@ function heldRuns(episode: ArrayLike<number>, held: Uint8Array): HeldRuns {
   return { withHeld: withHeld.size, total: all.size };
 }
 
+/** The held rows the present controller's law was fitted without: the read's held rows where the repair applied, 0 otherwise (the evaluation's model and the import summary say it). */
+export function heldRowsLeftOut(read: HeldActionsRead, fit: HeldLawFit): number {
+  return fit.lawFittedOn === 'movingRows' && !('reason' in read) ? read.stretches.rows : 0;
+}
+
 /** Whether the present controller's law was fitted on the rows not held (then the logged return is no check of it). */
 export function lawFittedOnMovingRows(summary: HeldActionsSummary | undefined): boolean {
   return !!summary && 'lawFittedOn' in summary && summary.lawFittedOn === 'movingRows';

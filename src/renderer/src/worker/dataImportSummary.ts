@@ -8,6 +8,7 @@ import type { TransitionSet } from '../../../core/transitions';
 import type { OpenedProject } from '../../../pipeline/openProject';
 import { declaredActionBounds } from '../../../pipeline/plan/declaredBounds';
 import { fitPresentControllerLaw } from '../../../pipeline/plan/presentController';
+import { heldRowsLeftOut } from '../../../pipeline/heldActionsCheck';
 import {
   EXCLUDED_ROWS_SHOWN, LOGGED_SAMPLE_SIZE, RUN_LABELS_OFFERED, type BehaviourFit, type DataImport, type LoggedSample,
 } from '../../../shared/workerMessages';
@@ -70,6 +71,5 @@ export function loggedSample(data: TransitionSet, size: number): LoggedSample {
 function behaviourFit(data: TransitionSet, declared: DeclaredActionBounds): BehaviourFit {
   const { fitted, error, held, lawFit } = fitPresentControllerLaw(data, declared);
   if (!fitted) return { ok: false, message: error };
-  const heldRowsLeftOut = lawFit.lawFittedOn === 'movingRows' && !('reason' in held) ? held.stretches.rows : 0;
-  return { ok: true, model: fitted.model, heldRowsLeftOut };
+  return { ok: true, model: fitted.model, heldRowsLeftOut: heldRowsLeftOut(held, lawFit) };
 }
