@@ -75,7 +75,12 @@ export function sharedCountOf(lines: FindingLines, row: Pick<FindingRow, 'key'>)
 
 /** "PI A", "PI A and PI B", "PI A, PI B and PI C": the candidates a shared line names, in the matrix's order. */
 export function namesText(names: readonly string[]): string {
-  return names.length < 2 ? (names[0] ?? '') : `${names.slice(0, -1).join(', ')} and ${names[names.length - 1]}`;
+  return names.map((name, k) => `${nameJoint(k, names.length)}${name}`).join('');
+}
+
+/** What goes before the k-th of `count` names: nothing, ", ", or " and " before the last (the app and the report set each name as an anchor). */
+export function nameJoint(k: number, count: number): string {
+  return k === 0 ? '' : k === count - 1 ? ' and ' : ', ';
 }
 
 /** The heading of the shared lines, in the app and the report. */

@@ -7,7 +7,7 @@
  */
 import type { Assessment } from '../assessment';
 import { FINDING_MATRIX_CAPTION, cellLabel, cellText, findingAnchor, findingMatrix, type FindingMatrix, type FindingRow } from '../findingMatrix';
-import { SEVERITY_WORD, SHARED_LINES_HEADING, findingLines, groupCountText, sharedCountOf, type FindingLine, type FindingLines, type FindingPlace } from '../findingLines';
+import { SEVERITY_WORD, SHARED_LINES_HEADING, findingLines, groupCountText, nameJoint, sharedCountOf, type FindingLine, type FindingLines, type FindingPlace } from '../findingLines';
 import { typesetText } from '../../core/typesetText';
 import { html, type Html } from './htmlText';
 
@@ -44,5 +44,5 @@ function sharedList(lines: FindingLines): Html | null {
 
 /** The candidates a shared line names, each name the anchor its matrix mark goes to. */
 function names(places: readonly FindingPlace[]): Html[] {
-  return places.map((p, k) => html`${k === 0 ? null : k === places.length - 1 ? ' and ' : ', '}<span id="${findingAnchor(p.row, p.index)}">${p.row.label}</span>`);
+  return places.map((p, k) => html`${nameJoint(k, places.length)}<span id="${findingAnchor(p.row, p.index)}">${p.row.label}</span>`);
 }

@@ -5,7 +5,7 @@
  * said alike of several candidates, once, each candidate's name the anchor its matrix mark goes to.
  */
 import type { FindingLine } from '../../../../pipeline/findingLines';
-import { SEVERITY_WORD, SHARED_LINES_HEADING, cautionsSummaryText, type FindingPlace } from '../../../../pipeline/findingLines';
+import { SEVERITY_WORD, SHARED_LINES_HEADING, cautionsSummaryText, nameJoint, type FindingPlace } from '../../../../pipeline/findingLines';
 import { findingAnchor } from '../../../../pipeline/findingMatrix';
 import { typesetMinus } from './assessmentWords';
 
@@ -45,7 +45,7 @@ export function SharedFindings({ lines }: { lines: readonly FindingLine[] }) {
             <li key={anchorOf(l.places[0])}>
               <strong>{SEVERITY_WORD[l.severity]}</strong> for {l.places.map((p, k) => (
                 // A mark's jump lands on the name; the finding's words describe it, so a screen reader reads the sentence too.
-                <span key={anchorOf(p)}>{k === 0 ? '' : k === l.places.length - 1 ? ' and ' : ', '}<span id={anchorOf(p)} tabIndex={-1} aria-describedby={`words-${anchorOf(l.places[0])}`}>{p.row.label}</span></span>
+                <span key={anchorOf(p)}>{nameJoint(k, l.places.length)}<span id={anchorOf(p)} tabIndex={-1} aria-describedby={`words-${anchorOf(l.places[0])}`}>{p.row.label}</span></span>
               ))}: <span id={`words-${anchorOf(l.places[0])}`}>{typesetMinus(l.message)}</span>
             </li>
           ))}
